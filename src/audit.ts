@@ -1,0 +1,85 @@
+import { checkResults, type CheckedResult } from './checks/engine.js';
+import type { ResolvedConfig } from './checks/config.js';
+import { createLineIndex } from './scan/lines.js';
+import { scanText } from './scan/scan.js';
+import { CAUTION, type DocumentOutput, type Report, type StatisticOutput, type Summary } from './report/model.js';
+import { toolVersion } from './version.js';
+
+/** Maps a text offset to its page, when the document has pages. */
+export type PageOf = (offset: number) => number | null;
+
+function statisticOutput(checked: CheckedResult, lineOf: ReturnType<typeof createLineIndex>, pageOf: PageOf): StatisticOutput {
+  const { result, recomputation, findings } = checked;
+  const { line, column } = lineOf(result.start);
+  return {
+    kind: result.kind,
+    text: result.text,
+    location: { page: pageOf(result.start), line, column, start: result.start, end: result.end },
+    df: result.df.map((df) => df.value),
+    value: result.value?.value ?? null,
+    valueComparator: result.valueComparator,
+    p: result.p ? { comparator: result.p.comparator, value: result.p.value.value, text: result.p.value.text } : null,
+    notSignificant: result.notSignificant,
+    effects: result.effects.map((effect) => ({
+      kind: effect.kind,
+      comparator: effect.comparator,
+      value: effect.value.value,
+      text: effect.value.text,
+      interval: effect.interval
+        ? { level: effect.interval.level, low: effect.interval.low.value, high: effect.interval.high.value }
+        : null,
+    })),
+    recomputed: {
+      evaluable: recomputation.evaluable,
+      reason: recomputation.reason,
+      tails: recomputation.tails,
+      p: recomputation.p,
+      pLow: recomputation.pRange?.low ?? null,
+      pHigh: recomputation.pRange?.high ?? null,
+      partialEtaSquared: recomputation.partialEtaSquared,
+      partialEtaSquaredLow: recomputation.partialEtaSquaredRange?.low ?? null,
+      partialEtaSquaredHigh: recomputation.partialEtaSquaredRange?.high ?? null,
+    },
+    findings,
+  };
+}
+
+/** Scans and checks one document's text. Pure apart from reading the catalogue once through the config. */
+export function auditText(text: string, config: ResolvedConfig, path = '<text>', pageOf: PageOf = () => null): DocumentOutput {
+  const scan = scanText(text);
+  const checked = checkResults(text, scan, config);
+  const lineOf = createLineIndex(text);
+  return {
+    path,
+    status: 'checked',
+    alpha: scan.context.alpha?.value ?? config.defaultAlpha,
+    statistics: checked.map((c) => statisticOutput(c, lineOf, pageOf)),
+    findings: [],
+  };
+}
+
+export function unreadableDocument(path: string, error: string, format?: string): DocumentOutput {
+  return { path, status: 'unreadable', error, ...(format ? { format } : {}), statistics: [], findings: [] };
+}
+
+export function summarise(documents: readonly DocumentOutput[]): Summary {
+  const findings = { fail: 0, warn: 0, note: 0 };
+  let statistics = 0;
+  let flaggedStatistics = 0;
+  let crossesAlpha = 0;
+  for (const document of documents) {
+    statistics += document.statistics.length;
+    const all = [...document.findings, ...document.statistics.flatMap((s) => s.findings)];
+    flaggedStatistics += document.statistics.filter((s) => s.findings.length > 0).length;
+    for (const finding of all) {
+      findings[finding.severity] += 1;
+      if (finding.crossesAlpha) crossesAlpha += 1;
+    }
+  }
+  const unreadable = documents.filter((d) => d.status === 'unreadable').length;
+  return { documents: documents.length, checked: documents.length - unreadable, unreadable, statistics, flaggedStatistics, findings, crossesAlpha };
+}
+
+export function buildReport(documents: DocumentOutput[]): Report {
+  return { tool: { name: 'plumbline', version: toolVersion() }, caution: CAUTION, documents, summary: summarise(documents) };
+}

@@ -1,0 +1,34 @@
+import type { ReportedEffect, ReportedResult } from '../scan/types.js';
+
+const symbolByKind: Record<ReportedResult['kind'], string> = { F: 'F', t: 't', chi2: 'χ²', r: 'r', z: 'z' };
+
+/** The statistic as a reader would write it: "F(1, 44) = 4.21". */
+export function describeStatistic(result: ReportedResult): string {
+  const df = result.df.length > 0 ? `(${result.df.map((d) => d.text).join(', ')})` : '';
+  const value = result.value ? ` ${result.valueComparator} ${result.value.text}` : '';
+  return `${symbolByKind[result.kind]}${df}${value}`;
+}
+
+/** The printed p as a reader would write it: "p = .021". */
+export function describeP(result: ReportedResult): string {
+  if (!result.p) return result.notSignificant ? 'n.s.' : 'no p';
+  return `p ${result.p.comparator} ${result.p.value.text}`;
+}
+
+const effectSymbol: Record<ReportedEffect['kind'], string> = {
+  'partial-eta-squared': 'ηp²',
+  'eta-squared': 'η²',
+  'generalized-eta-squared': 'ηG²',
+  'omega-squared': 'ω²',
+  'partial-omega-squared': 'ωp²',
+  'cohens-d': 'd',
+  'hedges-g': 'g',
+  'cohens-f': 'f',
+  r: 'r',
+  phi: 'φ',
+  'cramers-v': 'V',
+};
+
+export function describeEffect(effect: ReportedEffect): string {
+  return `${effectSymbol[effect.kind]} ${effect.comparator} ${effect.value.text}`;
+}

@@ -1,0 +1,62 @@
+import { z } from 'zod';
+import type { CheckModule } from '../types.js';
+import { describeP, describeStatistic } from '../describe.js';
+import { formatP, formatRange } from '../format.js';
+import { fitsOnlyWhenHalved } from '../pExplanations.js';
+import { crossesAlpha, printedSignificance, recomputedSignificance } from '../pAgreement.js';
+import { severitySchema } from '../catalogue.js';
+
+const optionsSchema = z
+  .object({
+    declaredOneTailedSeverity: severitySchema.default('note'),
+    statementDistance: z.number().int().nonnegative().default(2000),
+  })
+  .strict();
+
+type Options = z.infer<typeof optionsSchema>;
+
+/** A p that fits only half of the recomputed two-tailed (or upper-tail) p. */
+export const halvedP: CheckModule<Options> = {
+  id: 'halved-p',
+  appliesTo: ['F', 't', 'chi2', 'r', 'z'],
+  optionsSchema,
+  messages: {
+    undeclared:
+      '{printedP} is half the two-tailed p of {statistic} (p = {recomputedP}, {recomputedRange} allowing for rounding). One-tailed testing is not declared for this result; if it was intended, say so, otherwise report the two-tailed p.{alphaNote}',
+    declared:
+      '{printedP} is the one-tailed p of {statistic} (two-tailed p = {recomputedP}). The document declares one-tailed testing ("{statement}"), so this is consistent; make sure the direction was set in advance.',
+    upperTail:
+      '{printedP} is half the p of {statistic} (p = {recomputedP}, {recomputedRange} allowing for rounding). {kind} tests have only an upper tail, so their p cannot be halved.{alphaNote}',
+  },
+  run(result, context) {
+    const recomputation = context.recomputations[context.index];
+    if (!recomputation?.pRange || !fitsOnlyWhenHalved(result, recomputation, true)) return [];
+    const range = recomputation.pRange;
+    const data = {
+      statistic: describeStatistic(result),
+      printedP: describeP(result),
+      recomputedP: formatP(recomputation.p ?? range.low),
+      recomputedRange: formatRange(range.low, range.high),
+      kind: result.kind === 'chi2' ? 'Chi-square' : result.kind,
+    };
+    const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(range, context.alpha));
+    const alphaNote = crosses ? ` With the two-tailed p the result is not significant at alpha = ${context.alpha}.` : '';
+    if (recomputation.tails === 'upper') {
+      return [{ messageId: 'upperTail', data: { ...data, alphaNote }, crossesAlpha: crosses }];
+    }
+    const statement = context.document.oneTailed.find(
+      (s) => s.start < result.start || s.start - result.end <= context.options.statementDistance,
+    );
+    if (statement) {
+      return [
+        {
+          messageId: 'declared',
+          data: { ...data, statement: statement.text.trim().slice(0, 120) },
+          severity: context.options.declaredOneTailedSeverity,
+          crossesAlpha: false,
+        },
+      ];
+    }
+    return [{ messageId: 'undeclared', data: { ...data, alphaNote }, crossesAlpha: crosses }];
+  },
+};

@@ -1,0 +1,27 @@
+import type { CheckModule } from '../types.js';
+import { cohensDMismatch } from './cohens-d-mismatch.js';
+import { dfExceedsSample } from './df-exceeds-sample.js';
+import { effectSizeIntervalMismatch } from './effect-size-interval-mismatch.js';
+import { etaSquaredLabelledPartial } from './eta-squared-labelled-partial.js';
+import { halvedP } from './halved-p.js';
+import { impossibleValue } from './impossible-value.js';
+import { partialEtaSquaredMismatch } from './partial-eta-squared-mismatch.js';
+import { pReportedAsZero } from './p-reported-as-zero.js';
+import { pValueMismatch } from './p-value-mismatch.js';
+import { sphericityCorrectedP } from './sphericity-corrected-p.js';
+
+/** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
+export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
+  [
+    impossibleValue,
+    pReportedAsZero,
+    pValueMismatch,
+    halvedP,
+    sphericityCorrectedP,
+    partialEtaSquaredMismatch,
+    etaSquaredLabelledPartial,
+    effectSizeIntervalMismatch,
+    cohensDMismatch,
+    dfExceedsSample,
+  ].map((module) => [module.id, module]),
+);

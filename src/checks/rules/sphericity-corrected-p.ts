@@ -1,0 +1,37 @@
+import { z } from 'zod';
+import type { CheckModule } from '../types.js';
+import { describeP, describeStatistic } from '../describe.js';
+import { formatP } from '../format.js';
+import { fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
+import { crossesAlpha, printedSignificance, recomputedSignificance } from '../pAgreement.js';
+
+const optionsSchema = z.object({}).strict();
+
+export const sphericityCorrectedP: CheckModule<z.infer<typeof optionsSchema>> = {
+  id: 'sphericity-corrected-p',
+  appliesTo: ['F'],
+  optionsSchema,
+  messages: {
+    correctedPOnly:
+      '{printedP} is larger than the p of {statistic} with the printed df (p = {recomputedP}) but within what a sphericity correction gives; the document states one ("{statement}"). The p seems corrected and the df not: report the corrected df or epsilon so readers can verify it.',
+  },
+  run(result, context) {
+    const recomputation = context.recomputations[context.index];
+    const statement = context.document.sphericity[0];
+    if (!recomputation || !statement) return [];
+    if (!fitsOnlyWithSphericityCorrection(result, recomputation, true, true)) return [];
+    const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(recomputation.pRange!, context.alpha));
+    return [
+      {
+        messageId: 'correctedPOnly',
+        crossesAlpha: crosses,
+        data: {
+          printedP: describeP(result),
+          statistic: describeStatistic(result),
+          recomputedP: formatP(recomputation.p ?? recomputation.pRange!.low),
+          statement: statement.text.trim().slice(0, 100),
+        },
+      },
+    ];
+  },
+};

@@ -1,0 +1,57 @@
+import type { z } from 'zod';
+import type { DocumentContext, ReportedResult, StatisticKind } from '../scan/types.js';
+import type { Recomputation } from './recompute.js';
+
+export type Severity = 'fail' | 'warn' | 'note';
+
+/** What a check reports about one result: message id plus the numbers that fill it. */
+export interface FindingDraft {
+  messageId: string;
+  data: Record<string, string | number>;
+  /** Overrides the configured severity (e.g. a halved p is a note when one-tailed testing was declared). */
+  severity?: Severity;
+  /** True when the discrepancy changes the conclusion at the document's alpha. */
+  crossesAlpha?: boolean;
+  /** A name for the simple slip that reproduces the reported numbers, when one does. */
+  slip?: string;
+}
+
+export interface Finding {
+  rule: string;
+  severity: Severity;
+  crossesAlpha: boolean;
+  message: string;
+  messageId: string;
+  data: Record<string, string | number>;
+  slip?: string;
+}
+
+/** Everything a check may look at besides the result itself. */
+export interface CheckContext<Options> {
+  /** The original text of the document. */
+  text: string;
+  document: DocumentContext;
+  /** All results of the document, in order, with their recomputations. */
+  results: readonly ReportedResult[];
+  recomputations: readonly Recomputation[];
+  /** Index of the result being checked in `results`. */
+  index: number;
+  /** Significance level in force: the document's declared alpha, else the configured default. */
+  alpha: number;
+  options: Options;
+  /** Findings of rules that ran earlier on this result, so a check can defer to a more specific one. */
+  earlierFindings: readonly Finding[];
+}
+
+/**
+ * A check: its declarative description lives in rules/<id>.json; the module
+ * holds the parts that are code (options schema, message templates, run).
+ */
+export interface CheckModule<Options = Record<string, unknown>> {
+  id: string;
+  appliesTo: readonly StatisticKind[];
+  optionsSchema: z.ZodType<Options>;
+  /** Message templates by id; `{name}` is replaced by data[name]. */
+  messages: Record<string, string>;
+  run(result: ReportedResult, context: CheckContext<Options>): FindingDraft[];
+}

@@ -1,0 +1,148 @@
+import type { DocumentTable, Region, RegionKind } from './types.js';
+
+/**
+ * Accumulates the text of a structured document (HTML, DOCX via HTML, JATS,
+ * LaTeX) together with its regions and tables, so that every offset is
+ * recorded while the text is written and nothing has to be re-located later.
+ *
+ * Whitespace follows HTML rules: runs of spaces and newlines inside inline
+ * text collapse to one space; only `lineBreak` and `blockBreak` put line
+ * breaks into the text. That keeps the offsets stable (no clean-up pass
+ * after writing).
+ */
+export class TextBuilder {
+  private parts: string[] = [];
+  private length = 0;
+  /** Last character written ('' at the start), to decide on spaces and breaks. */
+  private last = '';
+  /** Number of newlines at the end of the text written so far. */
+  private trailingNewlines = 0;
+  private spacePending = false;
+  private readonly spans: Region[] = [];
+  private readonly openSpans: { kind: RegionKind; start: number }[] = [];
+  readonly tables: DocumentTable[] = [];
+
+  get offset(): number {
+    return this.length;
+  }
+
+  /** Inline text: whitespace collapses to single spaces, none at line starts. */
+  inline(text: string): void {
+    const pieces = text.split(/[ \t\n\r\f\v]+/);
+    const startsWithSpace = /^[ \t\n\r\f\v]/.test(text);
+    const endsWithSpace = /[ \t\n\r\f\v]$/.test(text);
+    if (startsWithSpace) this.spacePending = true;
+    const words = pieces.filter((piece) => piece.length > 0);
+    words.forEach((word, index) => {
+      if (index > 0) this.spacePending = true;
+      this.writeWord(word);
+    });
+    if (endsWithSpace && words.length > 0) this.spacePending = true;
+  }
+
+  /** Text written exactly as given (table rows, preformatted text). */
+  verbatim(text: string): void {
+    if (text.length === 0) return;
+    this.flushSpace();
+    this.write(text);
+  }
+
+  /** Asks for a space before the next word (not at a line start). */
+  space(): void {
+    this.spacePending = true;
+  }
+
+  /** Ends the current line (a <br>, a table row). */
+  lineBreak(): void {
+    this.spacePending = false;
+    this.write('\n');
+  }
+
+  /** Ends a block: the text ends with at least `newlines` newlines (none at the very start). */
+  blockBreak(newlines = 1): void {
+    this.spacePending = false;
+    if (this.length === 0) return;
+    while (this.trailingNewlines < newlines) this.write('\n');
+  }
+
+  open(kind: RegionKind): void {
+    this.openSpans.push({ kind, start: this.length });
+  }
+
+  close(): void {
+    const span = this.openSpans.pop();
+    if (span && this.length > span.start) this.spans.push({ kind: span.kind, start: span.start, end: this.length });
+  }
+
+  /** Records a span written earlier (a reference list that ends where the next heading begins). */
+  addSpan(kind: RegionKind, start: number, end: number): void {
+    if (end > start) this.spans.push({ kind, start, end });
+  }
+
+  text(): string {
+    return this.parts.join('');
+  }
+
+  regions(): Region[] {
+    while (this.openSpans.length > 0) this.close();
+    return flattenRegions(this.spans, this.text());
+  }
+
+  private writeWord(word: string): void {
+    this.flushSpace();
+    this.write(word);
+  }
+
+  private flushSpace(): void {
+    if (this.spacePending && this.length > 0 && this.last !== '\n' && this.last !== ' ') this.write(' ');
+    this.spacePending = false;
+  }
+
+  private write(text: string): void {
+    this.parts.push(text);
+    this.length += text.length;
+    this.last = text[text.length - 1] ?? this.last;
+    const trailing = /\n*$/.exec(text)?.[0].length ?? 0;
+    this.trailingNewlines = trailing === text.length ? this.trailingNewlines + trailing : trailing;
+  }
+}
+
+/**
+ * Turns possibly nested spans into the contract's form: sorted, not
+ * overlapping, body text left out. Where spans nest, the innermost one (the
+ * one that started last) wins, so a footnote inside a table cell stays a
+ * footnote. Each region is trimmed to its non-blank characters.
+ */
+export function flattenRegions(spans: readonly Region[], text: string): Region[] {
+  const boundaries = [...new Set(spans.flatMap((span) => [span.start, span.end]))].sort((a, b) => a - b);
+  const pieces: Region[] = [];
+  for (let index = 0; index + 1 < boundaries.length; index += 1) {
+    const start = boundaries[index]!;
+    const end = boundaries[index + 1]!;
+    const innermost = innermostSpanCovering(spans, start, end);
+    if (!innermost || innermost.kind === 'body') continue;
+    const previous = pieces[pieces.length - 1];
+    if (previous && previous.kind === innermost.kind && previous.end === start) previous.end = end;
+    else pieces.push({ kind: innermost.kind, start, end });
+  }
+  return pieces.map((piece) => trimRegion(piece, text)).filter((piece): piece is Region => piece !== null);
+}
+
+function innermostSpanCovering(spans: readonly Region[], start: number, end: number): Region | undefined {
+  let best: Region | undefined;
+  for (const span of spans) {
+    if (span.start > start || span.end < end) continue;
+    if (!best || span.start > best.start || (span.start === best.start && span.end < best.end)) best = span;
+  }
+  return best;
+}
+
+function trimRegion(region: Region, text: string): Region | null {
+  let { start, end } = region;
+  while (start < end && /\s/.test(text[start]!)) start += 1;
+  while (end > start && /\s/.test(text[end - 1]!)) end -= 1;
+  return end > start ? { kind: region.kind, start, end } : null;
+}
+
+/** Heading texts that open a reference list. */
+export const REFERENCE_HEADING = /^(?:\d+\.?\s*)?(?:references?|reference list|bibliography|works cited|literature cited|literature|cited literature)\s*:?$/i;

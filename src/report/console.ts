@@ -1,0 +1,64 @@
+import { Chalk, type ChalkInstance } from 'chalk';
+import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+
+export interface ConsoleOptions {
+  color: boolean;
+  /** Show results without findings too (the check command does). */
+  showAll: boolean;
+}
+
+function severityLabel(chalk: ChalkInstance, severity: FindingOutput['severity']): string {
+  const padded = severity.padEnd(4);
+  return severity === 'fail' ? chalk.red.bold(padded) : severity === 'warn' ? chalk.yellow.bold(padded) : chalk.cyan(padded);
+}
+
+function where(statistic: StatisticOutput): string {
+  const page = statistic.location.page === null ? '' : `page ${statistic.location.page}, `;
+  return `${page}line ${statistic.location.line}:${statistic.location.column}`;
+}
+
+function oneLine(text: string): string {
+  return text.replace(/\s+/g, ' ').trim();
+}
+
+function statisticBlock(chalk: ChalkInstance, statistic: StatisticOutput, showAll: boolean): string[] {
+  if (statistic.findings.length === 0) {
+    if (!showAll) return [];
+    const verdict = statistic.recomputed.evaluable ? chalk.green('ok  ') : chalk.gray('skip');
+    const reason = statistic.recomputed.evaluable ? '' : chalk.gray(` (not checked: ${statistic.recomputed.reason})`);
+    return [`  ${chalk.gray(where(statistic))}  ${verdict}  ${oneLine(statistic.text)}${reason}`];
+  }
+  const lines = [`  ${chalk.gray(where(statistic))}  ${chalk.bold(oneLine(statistic.text))}`];
+  for (const finding of statistic.findings) {
+    const alpha = finding.crossesAlpha ? chalk.red(' [changes the conclusion]') : '';
+    lines.push(`    ${severityLabel(chalk, finding.severity)} ${chalk.dim(finding.rule)}${alpha}`);
+    lines.push(`         ${finding.message}`);
+  }
+  return lines;
+}
+
+function documentBlock(chalk: ChalkInstance, document: DocumentOutput, showAll: boolean): string[] {
+  if (document.status === 'unreadable') return [chalk.bold(document.path), `  ${chalk.red('unreadable')}: ${document.error}`, ''];
+  const body = document.statistics.flatMap((s) => statisticBlock(chalk, s, showAll));
+  const documentFindings = document.findings.flatMap((f) => [`  ${severityLabel(chalk, f.severity)} ${chalk.dim(f.rule)}`, `         ${f.message}`]);
+  if (body.length === 0 && documentFindings.length === 0) {
+    return showAll ? [chalk.bold(document.path), `  ${chalk.gray(`${document.statistics.length} results, none flagged`)}`, ''] : [];
+  }
+  const flagged = document.statistics.filter((s) => s.findings.length > 0).length;
+  return [chalk.bold(`${document.path}`) + chalk.gray(`  (${document.statistics.length} results, ${flagged} flagged)`), ...documentFindings, ...body, ''];
+}
+
+/** Human-readable report: one block per document, a summary line, and the caution. */
+export function formatConsole(report: Report, options: ConsoleOptions): string {
+  const chalk = new Chalk({ level: options.color ? 1 : 0 });
+  const { summary } = report;
+  const lines = report.documents.flatMap((d) => documentBlock(chalk, d, options.showAll));
+  const counts = `${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`;
+  const unreadable = summary.unreadable > 0 ? chalk.red(`, ${summary.unreadable} unreadable`) : '';
+  lines.push(
+    `${summary.documents} document(s), ${summary.statistics} result(s), ${summary.flaggedStatistics} flagged: ${counts}` +
+      `${summary.crossesAlpha > 0 ? `; ${summary.crossesAlpha} change the conclusion at alpha` : ''}${unreadable}.`,
+  );
+  lines.push(chalk.gray(report.caution));
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,96 @@
+import { z } from 'zod';
+
+/**
+ * The audit's output model. These zod schemas are the single source of the
+ * JSON report's shape: the TypeScript types are inferred from them and the
+ * published JSON Schema (schema/report.schema.json) is generated from them.
+ */
+
+const comparatorSchema = z.enum(['=', '<', '>', '<=', '>=']);
+const severitySchema = z.enum(['fail', 'warn', 'note']);
+
+export const findingSchema = z.object({
+  rule: z.string().describe('Id of the rule in the catalogue (plumbline rules).'),
+  severity: severitySchema,
+  crossesAlpha: z.boolean().describe('True when the discrepancy changes the conclusion at the alpha in force.'),
+  message: z.string(),
+  messageId: z.string(),
+  data: z.record(z.string(), z.union([z.string(), z.number()])),
+  slip: z.string().optional().describe('A simple slip that reproduces the printed numbers, when one was found.'),
+});
+
+export const locationSchema = z.object({
+  page: z.number().int().nullable().describe('1-based page; null for formats without pages.'),
+  line: z.number().int().describe('1-based line of the first character.'),
+  column: z.number().int().describe('1-based column of the first character.'),
+  start: z.number().int().describe('Offset of the first character in the document text.'),
+  end: z.number().int().describe('Offset just after the last character.'),
+});
+
+export const statisticSchema = z.object({
+  kind: z.enum(['F', 't', 'chi2', 'r', 'z']),
+  text: z.string(),
+  location: locationSchema,
+  df: z.array(z.number()),
+  value: z.number().nullable(),
+  valueComparator: comparatorSchema,
+  p: z.object({ comparator: comparatorSchema, value: z.number(), text: z.string() }).nullable(),
+  notSignificant: z.boolean(),
+  effects: z.array(
+    z.object({
+      kind: z.string(),
+      comparator: comparatorSchema,
+      value: z.number(),
+      text: z.string(),
+      interval: z.object({ level: z.number().nullable(), low: z.number(), high: z.number() }).nullable(),
+    }),
+  ),
+  recomputed: z.object({
+    evaluable: z.boolean(),
+    reason: z.string().nullable(),
+    tails: z.enum(['upper', 'two']),
+    p: z.number().nullable().describe('p at the printed statistic and df.'),
+    pLow: z.number().nullable().describe('Smallest p over the values that round to the printed statistic and df.'),
+    pHigh: z.number().nullable(),
+    partialEtaSquared: z.number().nullable(),
+    partialEtaSquaredLow: z.number().nullable(),
+    partialEtaSquaredHigh: z.number().nullable(),
+  }),
+  findings: z.array(findingSchema),
+});
+
+export const documentSchema = z.object({
+  path: z.string(),
+  status: z.enum(['checked', 'unreadable']),
+  error: z.string().optional(),
+  format: z.string().optional(),
+  alpha: z.number().optional().describe('Alpha used for this document (declared in it, or the default).'),
+  statistics: z.array(statisticSchema),
+  findings: z.array(findingSchema).describe('Findings about the document as a whole.'),
+});
+
+export const summarySchema = z.object({
+  documents: z.number().int(),
+  checked: z.number().int(),
+  unreadable: z.number().int(),
+  statistics: z.number().int(),
+  flaggedStatistics: z.number().int(),
+  findings: z.object({ fail: z.number().int(), warn: z.number().int(), note: z.number().int() }),
+  crossesAlpha: z.number().int(),
+});
+
+export const reportSchema = z.object({
+  tool: z.object({ name: z.literal('plumbline'), version: z.string() }),
+  caution: z.string(),
+  documents: z.array(documentSchema),
+  summary: summarySchema,
+});
+
+export type FindingOutput = z.infer<typeof findingSchema>;
+export type StatisticOutput = z.infer<typeof statisticSchema>;
+export type DocumentOutput = z.infer<typeof documentSchema>;
+export type Summary = z.infer<typeof summarySchema>;
+export type Report = z.infer<typeof reportSchema>;
+
+export const CAUTION =
+  'A flag is a prompt to look again at a reported result, not proof of an error, and never proof of misconduct. Typesetting, unusual designs and legitimate corrections can all explain a flag.';

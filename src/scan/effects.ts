@@ -1,0 +1,201 @@
+/**
+ * Effect sizes and confidence intervals written after a test statistic:
+ * "ηp2 = .13", "partial eta squared = .13", "Cohen's d = 0.45",
+ * "90% CI [.01, .25]", "95% CI: .01 to .12".
+ */
+
+import { parseReportedNumber } from '../stats/reportedNumber.js';
+import {
+  endsWord,
+  isAsciiDigit,
+  isAsciiLetter,
+  readComparator,
+  readPlainNumber,
+  skipSpaces,
+  startsWord,
+} from './cursor.js';
+import type { Comparator, EffectKind, ReportedInterval, ReportedNumber } from './types.js';
+
+/**
+ * Effect-size names after canonicalisation (lower case; spaces, hyphens,
+ * apostrophes, "_", "^", braces removed; Greek already spelled out by
+ * normalisation, so "η²p" arrives as "eta2p").
+ */
+const EFFECT_NAMES: ReadonlyMap<string, EffectKind> = new Map<string, EffectKind>([
+  ...names('partial-eta-squared', [
+    'etap2', 'eta2p', 'etap', 'partialeta2', 'partialetasquared', 'partialeta', 'partialetasq', 'etasquaredp', 'etapsquared',
+  ]),
+  ...names('eta-squared', ['eta2', 'etasquared', 'etasq']),
+  ...names('generalized-eta-squared', [
+    'etag2', 'eta2g', 'ges', 'generalizedeta2', 'generalisedeta2', 'generalizedetasquared', 'generalisedetasquared',
+  ]),
+  ...names('omega-squared', ['omega2', 'omegasquared', 'omegasq']),
+  ...names('partial-omega-squared', ['omegap2', 'omega2p', 'partialomega2', 'partialomegasquared']),
+  ...names('cohens-d', ['d', 'dz', 'ds', 'dav', 'drm', 'cohensd', 'cohend', 'cohensdz', 'cohensds']),
+  ...names('hedges-g', ['g', 'gs', 'hedgesg', 'hedgeg', 'hedgessg', 'gav', 'grm']),
+  ...names('cohens-f', ['f', 'cohensf', 'cohenf']),
+  ...names('r', ['r']),
+  ...names('phi', ['phi']),
+  ...names('cramers-v', ['v', 'cramersv', 'cramerv', 'cramersphi']),
+]);
+
+function names(kind: EffectKind, spellings: string[]): Array<[string, EffectKind]> {
+  return spellings.map((spelling) => [spelling, kind]);
+}
+
+/**
+ * Names that are clear on their own, so they may be searched for a little
+ * further away from the statistic. Single letters (d, g, f, V, r) are only
+ * taken right after the result, where their meaning is not in doubt.
+ */
+export function isUnambiguousEffectName(canonical: string): boolean {
+  return canonical.length > 2 && EFFECT_NAMES.has(canonical);
+}
+
+/** Most words an effect-size name spans ("partial eta squared"), and most characters read. */
+const MAX_NAME_WORDS = 4;
+const MAX_NAME_LENGTH = 40;
+
+function isNameCode(code: number): boolean {
+  // Letters, digits, "_", "^", "{", "}", "'".
+  return isAsciiLetter(code) || isAsciiDigit(code) || code === 95 || code === 94 || code === 123 || code === 125 || code === 39;
+}
+
+function canonicalName(written: string): string {
+  return written.toLowerCase().replace(/[^a-z0-9]/g, '');
+}
+
+export interface NameValueRead {
+  /** Canonical name ("etap2"). */
+  name: string;
+  /** Effect kind, or null for a name the scanner does not record ("MSE", "b"). */
+  kind: EffectKind | null;
+  comparator: Comparator;
+  value: ReportedNumber;
+  /** Normalised offsets of the name's first character and the value's end. */
+  start: number;
+  end: number;
+}
+
+/**
+ * Reads "name = number" at `position`, where the name is one to four words
+ * ("d", "Cohen's d", "partial eta squared"). When the whole name is not an
+ * effect size, its trailing words are tried ("effect size d" -> "d").
+ */
+export function readNameAndValue(text: string, position: number): NameValueRead | null {
+  if (!startsWord(text, position) || !isNameCode(text.charCodeAt(position))) return null;
+  const wordStarts: number[] = [];
+  const limit = Math.min(text.length, position + MAX_NAME_LENGTH);
+  let at = position;
+  let nameEnd = position;
+  while (at < limit && wordStarts.length < MAX_NAME_WORDS) {
+    wordStarts.push(at);
+    while (at < limit && isNameCode(text.charCodeAt(at))) at++;
+    nameEnd = at;
+    const gap = text.charCodeAt(at);
+    // Words are joined by one space or hyphen ("partial eta-squared").
+    if ((gap === 32 || gap === 45) && isNameCode(text.charCodeAt(at + 1))) at++;
+    else break;
+  }
+  if (nameEnd === position) return null;
+  const comparatorAt = skipSpaces(text, nameEnd);
+  const comparator = readComparator(text, comparatorAt);
+  if (comparator === null) return null;
+  const valueAt = skipSpaces(text, comparator.end);
+  const valueText = readPlainNumber(text, valueAt);
+  if (valueText === null || !endsWord(text, valueText.end)) return null;
+  const value = parseReportedNumber(valueText.text);
+  if (value === null) return null;
+
+  for (const wordStart of wordStarts) {
+    const name = canonicalName(text.slice(wordStart, nameEnd));
+    const kind = EFFECT_NAMES.get(name);
+    if (kind !== undefined) {
+      return { name, kind, comparator: comparator.comparator, value, start: wordStart, end: valueText.end };
+    }
+  }
+  const lastWordStart = wordStarts[wordStarts.length - 1]!;
+  const name = canonicalName(text.slice(lastWordStart, nameEnd));
+  return { name, kind: null, comparator: comparator.comparator, value, start: lastWordStart, end: valueText.end };
+}
+
+export interface IntervalRead {
+  interval: ReportedInterval;
+  start: number;
+  end: number;
+}
+
+/**
+ * Reads a confidence interval: "95% CI [0.12, 0.45]", "90% CI (.01, .12)",
+ * "CI = [.01; .12]", "95% CI: .01 to .12", "95% confidence interval [...]";
+ * with `allowBareBrackets`, also an unlabelled "[.01, .25]" (used only right
+ * after an effect size, where a bracketed pair can only be its interval).
+ */
+export function readInterval(text: string, position: number, allowBareBrackets: boolean): IntervalRead | null {
+  let at = position;
+  let level: number | null = null;
+  const levelText = readPlainNumber(text, at, false);
+  if (levelText !== null && text.charCodeAt(levelText.end) === 37) {
+    // "95%"
+    level = Number(levelText.text) / 100;
+    at = skipSpaces(text, levelText.end + 1);
+  }
+  const labelEnd = readIntervalLabel(text, at);
+  const labelled = labelEnd !== -1;
+  if (labelled) {
+    at = skipSpaces(text, labelEnd);
+    const code = text.charCodeAt(at);
+    if (code === 58 || code === 61) at = skipSpaces(text, at + 1); // ":" or "="
+  } else if (level === null && !allowBareBrackets) {
+    return null;
+  }
+
+  const opening = text.charCodeAt(at);
+  const bracketed = opening === 91 || opening === 40; // [ (
+  if (!bracketed && !labelled) return null;
+  if (bracketed) at = skipSpaces(text, at + 1);
+
+  const lowText = readPlainNumber(text, at);
+  if (lowText === null) return null;
+  at = skipSpaces(text, lowText.end);
+  const separatorEnd = readRangeSeparator(text, at);
+  if (separatorEnd === -1) return null;
+  at = skipSpaces(text, separatorEnd);
+  const highText = readPlainNumber(text, at);
+  if (highText === null) return null;
+  at = highText.end;
+  if (bracketed) {
+    at = skipSpaces(text, at);
+    const closing = text.charCodeAt(at);
+    if (closing !== 93 && closing !== 41) return null;
+    at++;
+  } else if (!endsWord(text, at)) {
+    return null;
+  }
+  const low = parseReportedNumber(lowText.text);
+  const high = parseReportedNumber(highText.text);
+  if (low === null || high === null) return null;
+  return { interval: { level, low, high }, start: position, end: at };
+}
+
+/** End of "CI" or "confidence interval" at `position`, or -1. */
+function readIntervalLabel(text: string, position: number): number {
+  if (text.charCodeAt(position) === 67 && text.charCodeAt(position + 1) === 73 && !isAsciiLetter(text.charCodeAt(position + 2))) {
+    return position + 2;
+  }
+  const phrase = 'confidence interval';
+  if (text.slice(position, position + phrase.length).toLowerCase() === phrase) {
+    return position + phrase.length;
+  }
+  return -1;
+}
+
+/** End of the separator between the ends of an interval: ",", ";", "to", or a dash. */
+function readRangeSeparator(text: string, position: number): number {
+  const code = text.charCodeAt(position);
+  if (code === 44 || code === 59 || code === 45) return position + 1;
+  if (code === 116 && text.charCodeAt(position + 1) === 111 && !isAsciiLetter(text.charCodeAt(position + 2))) {
+    return position + 2;
+  }
+  return -1;
+}

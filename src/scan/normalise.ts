@@ -1,0 +1,334 @@
+/**
+ * Normalisation: an ASCII-leaning copy of the manuscript that the recogniser
+ * can read with simple character tests, plus a map from every offset of the
+ * copy back to the original, so results point at the characters as written.
+ *
+ * Only characters that matter for reading statistics are rewritten: minus and
+ * dash glyphs, Unicode spaces, invisible characters, ligatures, full-width
+ * forms, super- and subscripts, comparison signs, the multiplication sign,
+ * curly quotes, mathematical alphanumeric letters, and the Greek letters used
+ * for test statistics and effect sizes (spelled out: η -> "eta", χ -> "chi").
+ * Words broken by a hyphen at a line end are joined again.
+ *
+ * Linear time: one pass of a single regular expression finds the characters
+ * that need work; the plain-ASCII stretches between them are copied as whole
+ * slices, and a document with nothing to rewrite is returned as is.
+ */
+
+export interface NormalisedText {
+  /** The original text, unchanged. */
+  readonly original: string;
+  /** The normalised copy that the recogniser reads. */
+  readonly text: string;
+  /** Original offset of the character at normalised `offset` (use for start offsets). */
+  toOriginal(offset: number): number;
+  /** Original offset just after the character before normalised `offset` (use for exclusive end offsets). */
+  toOriginalEnd(offset: number): number;
+}
+
+/** Characters needing work: anything outside ASCII, and an ASCII hyphen at a line end. */
+const NEEDS_WORK = /[^\x00-\x7F]|-[ \t]*\r?\n/g;
+
+/** Single-character replacements (the value may be empty, or longer than one character). */
+const REPLACEMENTS: ReadonlyMap<number, string> = buildReplacementTable();
+
+function buildReplacementTable(): Map<number, string> {
+  const table = new Map<number, string>();
+  const put = (codes: number[], replacement: string): void => {
+    for (const code of codes) table.set(code, replacement);
+  };
+  // Glyphs typeset for a minus sign or a dash; in statistics they all read as "-".
+  put([0x2212, 0x2010, 0x2011, 0x2012, 0x2013, 0x2014, 0x2015, 0x2043, 0xfe58, 0xfe63, 0x2796], '-');
+  // Unicode spaces.
+  put([0x00a0, 0x1680, 0x202f, 0x205f, 0x3000], ' ');
+  for (let code = 0x2000; code <= 0x200a; code++) table.set(code, ' ');
+  put([0x2028, 0x2029, 0x0085], '\n');
+  // Invisible characters: soft hyphen, zero-width space/joiners, word joiner, byte-order mark.
+  put([0x00ad, 0x200b, 0x200c, 0x200d, 0x2060, 0xfeff, 0x180e], '');
+  // Ligatures.
+  table.set(0xfb00, 'ff');
+  table.set(0xfb01, 'fi');
+  table.set(0xfb02, 'fl');
+  table.set(0xfb03, 'ffi');
+  table.set(0xfb04, 'ffl');
+  put([0xfb05, 0xfb06], 'st');
+  // Superscripts and subscripts.
+  const superscriptDigits = [0x2070, 0x00b9, 0x00b2, 0x00b3, 0x2074, 0x2075, 0x2076, 0x2077, 0x2078, 0x2079];
+  superscriptDigits.forEach((code, digit) => table.set(code, String(digit)));
+  for (let digit = 0; digit <= 9; digit++) table.set(0x2080 + digit, String(digit));
+  put([0x207a, 0x208a], '+');
+  put([0x207b, 0x208b], '-');
+  put([0x207c, 0x208c], '=');
+  put([0x207d, 0x208d], '(');
+  put([0x207e, 0x208e], ')');
+  table.set(0x209a, 'p'); // subscript p, as in η with subscript p
+  table.set(0x1d56, 'p'); // modifier small p
+  // Comparison signs.
+  put([0x2264, 0x2266, 0x2a7d], '<=');
+  put([0x2265, 0x2267, 0x2a7e], '>=');
+  put([0xfe64], '<');
+  put([0xfe65], '>');
+  put([0xfe66], '=');
+  // Multiplication signs (the middle dot is handled by context: between digits it is a decimal point).
+  put([0x00d7, 0x2715, 0x2a2f], 'x');
+  put([0x22c5, 0x2219], '*');
+  table.set(0x2024, '.');
+  table.set(0x210e, 'h'); // the italic h that math fonts take from the letterlike block
+  // Quotes and primes.
+  put([0x2018, 0x2019, 0x201a, 0x201b, 0x2032, 0x02bc, 0x02b9, 0x00b4], "'");
+  put([0x201c, 0x201d, 0x201e, 0x201f, 0x2033], '"');
+  // Greek letters used for statistics, effect sizes, alpha levels and sphericity epsilon.
+  table.set(0x03b1, 'alpha');
+  table.set(0x03b2, 'beta');
+  table.set(0x03b5, 'epsilon');
+  table.set(0x03f5, 'epsilon');
+  table.set(0x03b7, 'eta');
+  table.set(0x03c7, 'chi');
+  table.set(0x03a7, 'chi');
+  table.set(0x03c6, 'phi');
+  table.set(0x03d5, 'phi');
+  table.set(0x03a6, 'phi');
+  table.set(0x03c9, 'omega');
+  table.set(0x03a9, 'omega');
+  // Accented letters that occur in effect-size names ("Cramér's V").
+  put([0x00e9, 0x00e8, 0x00ea, 0x00eb], 'e');
+  // Full-width ASCII (digits, letters, punctuation, "＝").
+  for (let code = 0xff01; code <= 0xff5e; code++) table.set(code, String.fromCharCode(code - 0xfee0));
+  return table;
+}
+
+/** One stretch of the map: normalised offsets from `normStart` come from original offsets from `origStart`. */
+interface Segment {
+  normStart: number;
+  origStart: number;
+  /** -1: offsets advance together; otherwise the whole stretch stands for `origLength` original characters. */
+  origLength: number;
+}
+
+class NormalisationBuilder {
+  private readonly pieces: string[] = [];
+  private normLength = 0;
+  readonly segments: Segment[] = [{ normStart: 0, origStart: 0, origLength: -1 }];
+
+  constructor(private readonly original: string) {}
+
+  /** Copies original[from, to) unchanged. */
+  copy(from: number, to: number): void {
+    if (to <= from) return;
+    this.continueLinearAt(from);
+    this.pieces.push(this.original.slice(from, to));
+    this.normLength += to - from;
+  }
+
+  /** Writes `replacement` for original[from, from + length). */
+  replace(from: number, length: number, replacement: string): void {
+    if (replacement.length === length && length === 1) {
+      // Same width: the linear stretch stays valid.
+      this.continueLinearAt(from);
+    } else if (replacement.length > 0) {
+      this.segments.push({ normStart: this.normLength, origStart: from, origLength: length });
+    }
+    this.pieces.push(replacement);
+    this.normLength += replacement.length;
+  }
+
+  /** Makes sure the normalised offset now being written maps linearly onto `origOffset`. */
+  private continueLinearAt(origOffset: number): void {
+    const last = this.segments[this.segments.length - 1]!;
+    const continues = last.origLength === -1 && last.origStart + (this.normLength - last.normStart) === origOffset;
+    if (continues) return;
+    if (last.normStart === this.normLength) this.segments.pop();
+    this.segments.push({ normStart: this.normLength, origStart: origOffset, origLength: -1 });
+  }
+
+  finish(): string {
+    return this.pieces.join('');
+  }
+}
+
+class SegmentMap implements NormalisedText {
+  private readonly normStarts: Int32Array;
+  private readonly origStarts: Int32Array;
+  private readonly origLengths: Int32Array;
+
+  constructor(
+    readonly original: string,
+    readonly text: string,
+    segments: Segment[],
+  ) {
+    this.normStarts = Int32Array.from(segments, (segment) => segment.normStart);
+    this.origStarts = Int32Array.from(segments, (segment) => segment.origStart);
+    this.origLengths = Int32Array.from(segments, (segment) => segment.origLength);
+  }
+
+  toOriginal(offset: number): number {
+    if (offset >= this.text.length) return this.toOriginalEnd(this.text.length);
+    const index = this.segmentOf(offset);
+    const length = this.origLengths[index]!;
+    const origStart = this.origStarts[index]!;
+    return length === -1 ? origStart + (offset - this.normStarts[index]!) : origStart;
+  }
+
+  toOriginalEnd(offset: number): number {
+    if (offset <= 0) return 0;
+    const lastIncluded = Math.min(offset, this.text.length) - 1;
+    const index = this.segmentOf(lastIncluded);
+    const length = this.origLengths[index]!;
+    const origStart = this.origStarts[index]!;
+    if (length === -1) return origStart + (lastIncluded - this.normStarts[index]!) + 1;
+    return origStart + length;
+  }
+
+  /** Index of the last segment starting at or before `offset` (binary search). */
+  private segmentOf(offset: number): number {
+    let low = 0;
+    let high = this.normStarts.length - 1;
+    while (low < high) {
+      const middle = (low + high + 1) >> 1;
+      if (this.normStarts[middle]! <= offset) low = middle;
+      else high = middle - 1;
+    }
+    return low;
+  }
+}
+
+class IdentityMap implements NormalisedText {
+  constructor(readonly original: string) {}
+  get text(): string {
+    return this.original;
+  }
+  toOriginal(offset: number): number {
+    return Math.min(Math.max(offset, 0), this.original.length);
+  }
+  toOriginalEnd(offset: number): number {
+    return Math.min(Math.max(offset, 0), this.original.length);
+  }
+}
+
+/** Normalises `original`; see the module comment for what is rewritten. */
+export function normaliseText(original: string): NormalisedText {
+  NEEDS_WORK.lastIndex = 0;
+  const first = NEEDS_WORK.exec(original);
+  if (first === null) return new IdentityMap(original);
+
+  const builder = new NormalisationBuilder(original);
+  let copiedUpTo = 0;
+  for (let match: RegExpExecArray | null = first; match !== null; match = NEEDS_WORK.exec(original)) {
+    const at = match.index;
+    if (at < copiedUpTo) continue;
+    builder.copy(copiedUpTo, at);
+    copiedUpTo = rewriteAt(original, at, match[0].length, builder);
+    NEEDS_WORK.lastIndex = Math.max(NEEDS_WORK.lastIndex, copiedUpTo);
+  }
+  builder.copy(copiedUpTo, original.length);
+  return new SegmentMap(original, builder.finish(), builder.segments);
+}
+
+/** Rewrites the character(s) found at `at`; returns the original offset up to which input is consumed. */
+function rewriteAt(original: string, at: number, matchLength: number, builder: NormalisationBuilder): number {
+  const code = original.charCodeAt(at);
+
+  // Hyphen (ASCII, soft or typographic) at a line end: join a word broken across lines.
+  if (code === 45 || code === 0x00ad || code === 0x2010) {
+    const joinedUpTo = lineEndHyphenationEnd(original, at);
+    if (joinedUpTo !== -1) {
+      builder.replace(at, joinedUpTo - at, '');
+      return joinedUpTo;
+    }
+    if (code === 45) {
+      builder.copy(at, at + matchLength);
+      return at + matchLength;
+    }
+  }
+
+  if (code === 0x00b7) {
+    // Middle dot: a decimal point between digits ("0·05"), a multiplication sign elsewhere.
+    const betweenDigits = isDigitAt(original, at - 1) && isDigitAt(original, at + 1);
+    builder.replace(at, 1, betweenDigits ? '.' : 'x');
+    return at + 1;
+  }
+
+  const replacement = REPLACEMENTS.get(code);
+  if (replacement !== undefined) {
+    builder.replace(at, 1, replacement);
+    return at + 1;
+  }
+
+  if (code >= 0xd800 && code <= 0xdbff) {
+    const mathematical = mathematicalAlphanumeric(original.codePointAt(at) ?? 0);
+    if (mathematical !== null) {
+      builder.replace(at, 2, mathematical);
+      return at + 2;
+    }
+    builder.copy(at, at + 2);
+    return at + 2;
+  }
+
+  builder.copy(at, at + 1);
+  return at + 1;
+}
+
+function isDigitAt(text: string, at: number): boolean {
+  const code = text.charCodeAt(at);
+  return code >= 48 && code <= 57;
+}
+
+function isAsciiLetterAt(text: string, at: number): boolean {
+  const code = text.charCodeAt(at);
+  return (code >= 65 && code <= 90) || (code >= 97 && code <= 122);
+}
+
+/**
+ * For a hyphen at `at` that ends a line inside a word ("signif-\nicant"),
+ * the original offset where the word continues; -1 when this is not such a
+ * hyphen. Only a letter before and a lower-case letter after count, so
+ * "Greenhouse-\nGeisser" and "F(1, 44) = -\n2.1" are left alone.
+ */
+function lineEndHyphenationEnd(text: string, at: number): number {
+  if (!isAsciiLetterAt(text, at - 1)) return -1;
+  let cursor = at + 1;
+  const limit = Math.min(text.length, at + 12);
+  while (cursor < limit && (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 9)) cursor++;
+  if (text.charCodeAt(cursor) === 13) cursor++;
+  if (text.charCodeAt(cursor) !== 10) return -1;
+  cursor++;
+  while (cursor < limit && (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 9)) cursor++;
+  const next = text.charCodeAt(cursor);
+  return next >= 97 && next <= 122 ? cursor : -1;
+}
+
+/**
+ * Mathematical alphanumeric symbols (U+1D400-U+1D7FF), which PDFs typeset
+ * with math fonts produce for italic F, t, p, η, χ...: their plain letter,
+ * or null when the code point is not one of them.
+ */
+function mathematicalAlphanumeric(codePoint: number): string | null {
+  if (codePoint >= 0x1d400 && codePoint <= 0x1d6a3) {
+    const index = (codePoint - 0x1d400) % 52;
+    return String.fromCharCode(index < 26 ? 65 + index : 97 + index - 26);
+  }
+  if (codePoint >= 0x1d6a8 && codePoint <= 0x1d7c9) {
+    const index = (codePoint - 0x1d6a8) % 58;
+    return MATH_GREEK[index] ?? null;
+  }
+  if (codePoint >= 0x1d7ce && codePoint <= 0x1d7ff) {
+    return String((codePoint - 0x1d7ce) % 10);
+  }
+  return null;
+}
+
+/** Position within each mathematical Greek alphabet -> spelled-out name, for the letters the scanner reads. */
+const MATH_GREEK: Readonly<Record<number, string>> = {
+  21: 'phi',
+  22: 'chi',
+  24: 'omega',
+  26: 'alpha',
+  27: 'beta',
+  30: 'epsilon',
+  32: 'eta',
+  47: 'phi',
+  48: 'chi',
+  50: 'omega',
+  52: 'epsilon',
+  55: 'phi',
+};

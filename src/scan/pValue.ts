@@ -1,0 +1,110 @@
+/**
+ * p-values and "not significant" marks: "p = .021", "ps < .001",
+ * "p ≤ .01" (normalised to "p <= .01"), "p-value = .03",
+ * "p(two-tailed) = .03", "p = 1.2 x 10^-5", "p < 10^-4", "n.s.".
+ */
+
+import { parseReportedNumber } from '../stats/reportedNumber.js';
+import {
+  endsWord,
+  isAsciiLetter,
+  readComparator,
+  readScientificNumber,
+  skipSpaces,
+  startsWord,
+} from './cursor.js';
+import type { ReportedNumber, ReportedP } from './types.js';
+
+/** Longest parenthesised or subscripted qualifier read after "p" ("(two-tailed)", "_Holm"). */
+const MAX_QUALIFIER = 28;
+
+/** Reads a p-value at `position`; offsets are normalised-text offsets. */
+export function readPValue(text: string, position: number): ReportedP | null {
+  if (!startsWord(text, position)) return null;
+  const letter = text.charCodeAt(position);
+  if (letter !== 112 && letter !== 80) return null; // p, P
+  let at = position + 1;
+  let plural = false;
+  if (text.charCodeAt(at) === 115) {
+    // "ps"
+    plural = true;
+    at++;
+  }
+  at = skipValueWord(text, at);
+  if (isAsciiLetter(text.charCodeAt(at))) return null; // "pp.", "power", "ps" inside a word
+  at = skipQualifier(text, at);
+
+  at = skipSpaces(text, at);
+  const comparator = readComparator(text, at);
+  if (comparator === null) return null;
+  at = skipSpaces(text, comparator.end);
+  const written = readScientificNumber(text, at);
+  if (written === null || !endsWord(text, written.end)) return null;
+  const value = written.barePower !== null ? powerOfTen(written.text, written.barePower) : parseReportedNumber(written.text);
+  // A probability above 1 is not a p-value ("p = 12" is a page or a count).
+  if (value === null || value.value < 0 || value.value > 1) return null;
+  return { comparator: comparator.comparator, value, plural, start: position, end: written.end };
+}
+
+/** "10^-4" written alone: mantissa 1, no decimals. */
+function powerOfTen(text: string, power: number): ReportedNumber {
+  return { value: Number(`1e${power}`), text, decimals: 0, exponent: power };
+}
+
+/** Skips "-value", " value", "value" (from a joined line break), with an optional plural "s". */
+function skipValueWord(text: string, position: number): number {
+  let at = position;
+  const joiner = text.charCodeAt(at);
+  if (joiner === 45 || joiner === 32) at++;
+  if (text.slice(at, at + 5).toLowerCase() !== 'value') return position;
+  at += 5;
+  if (text.charCodeAt(at) === 115) at++;
+  return at;
+}
+
+/** Skips "(two-tailed)", " (one-sided)", "_{adj}", "_Holm" after "p"; returns `position` when absent. */
+function skipQualifier(text: string, position: number): number {
+  let at = position;
+  if (text.charCodeAt(at) === 32 && text.charCodeAt(at + 1) === 40) at++;
+  const opening = text.charCodeAt(at);
+  if (opening === 40) {
+    const limit = Math.min(text.length, at + MAX_QUALIFIER);
+    for (let cursor = at + 1; cursor < limit; cursor++) {
+      const code = text.charCodeAt(cursor);
+      if (code === 41) return cursor + 1;
+      // Only words belong in a qualifier; a digit means this is something else ("p (2, 3)").
+      if (!(isAsciiLetter(code) || code === 32 || code === 45 || code === 44 || code === 46)) return position;
+    }
+    return position;
+  }
+  if (opening === 95) {
+    const limit = Math.min(text.length, at + MAX_QUALIFIER);
+    let cursor = at + 1;
+    const braced = text.charCodeAt(cursor) === 123;
+    if (braced) cursor++;
+    while (cursor < limit && (isAsciiLetter(text.charCodeAt(cursor)) || text.charCodeAt(cursor) === 45)) cursor++;
+    if (braced) return text.charCodeAt(cursor) === 125 ? cursor + 1 : position;
+    return cursor;
+  }
+  return position;
+}
+
+/** Reads "n.s.", "n.s", "ns", "NS", "n. s." at `position`; returns its end, or -1. */
+export function readNotSignificant(text: string, position: number): number {
+  if (!startsWord(text, position)) return -1;
+  const first = text.charCodeAt(position);
+  if (first !== 110 && first !== 78) return -1; // n, N
+  let at = position + 1;
+  const second = text.charCodeAt(at);
+  if (second === 115 || second === 83) {
+    return endsWord(text, at + 1) ? at + 1 : -1;
+  }
+  if (second !== 46) return -1;
+  at++;
+  if (text.charCodeAt(at) === 32) at++;
+  const third = text.charCodeAt(at);
+  if (third !== 115 && third !== 83) return -1;
+  at++;
+  if (!endsWord(text, at)) return -1;
+  return text.charCodeAt(at) === 46 ? at + 1 : at;
+}

@@ -1,0 +1,227 @@
+/**
+ * Assembles one result: a statistic head followed by what belongs to it —
+ * p-value, "n.s.", effect sizes and their confidence intervals — read in the
+ * order written, across commas, semicolons, brackets and "and"/"with".
+ *
+ * Offsets here are normalised-text offsets; scan.ts maps them back.
+ */
+
+import { MAX_GAP, isAsciiLetter, isSpaceCode, startsWord } from './cursor.js';
+import { isUnambiguousEffectName, readInterval, readNameAndValue } from './effects.js';
+import { readNotSignificant, readPValue } from './pValue.js';
+import { readStatisticHead, type StatisticHead } from './statistic.js';
+import type { ReportedEffect, ReportedInterval, ReportedP } from './types.js';
+
+/** A result before its offsets are mapped back to the original text. */
+export interface ResultDraft {
+  head: StatisticHead;
+  end: number;
+  p: ReportedP | null;
+  notSignificant: boolean;
+  effects: ReportedEffect[];
+}
+
+/** How far past the last recognised part a p-value may stand ("..., which was reliable, p = .03"). */
+const P_SEARCH_WINDOW = 80;
+/** How far past the last recognised part an unambiguous effect size may stand. */
+const EFFECT_SEARCH_WINDOW = 60;
+/** Upper bound on parts after the head, so a long list cannot keep one result growing. */
+const MAX_TAIL_PARTS = 12;
+/** Longest stretch of separators skipped between two parts. */
+const MAX_SEPARATOR_RUN = 24;
+
+/** Reads a full result starting at `position`, or null when no statistic starts there. */
+export function readResult(text: string, position: number): ResultDraft | null {
+  const head = readStatisticHead(text, position);
+  if (head === null) return null;
+  const draft: ResultDraft = { head, end: head.end, p: null, notSignificant: false, effects: [] };
+  const directP = readTail(text, draft);
+  if (head.needsP && !directP) return null;
+  return draft;
+}
+
+type LastPart = 'head' | 'p' | 'effect' | 'interval' | 'other';
+
+/**
+ * Reads the parts after the head into `draft`. Returns true when a p-value
+ * (or "n.s.") stood directly after the head, with nothing but separators
+ * between them.
+ */
+function readTail(text: string, draft: ResultDraft): boolean {
+  let position = draft.end;
+  let last: LastPart = 'head';
+  let directP = false;
+  let searchedNearby = false;
+
+  for (let parts = 0; parts < MAX_TAIL_PARTS; parts++) {
+    if (last === 'effect') {
+      const interval = readInterval(text, skipOnlySpaces(text, position), true);
+      if (interval !== null) {
+        attachInterval(draft, interval.interval, interval.end);
+        position = interval.end;
+        last = 'interval';
+        continue;
+      }
+    }
+    const next = skipSeparators(text, position);
+    if (next >= text.length || startsResult(text, next)) break;
+
+    const p = readPValue(text, next);
+    if (p !== null) {
+      // A second p-value belongs to something else.
+      if (draft.p !== null) break;
+      draft.p = p;
+      directP ||= last === 'head';
+      position = draft.end = p.end;
+      last = 'p';
+      continue;
+    }
+    const notSignificantEnd = readNotSignificant(text, next);
+    if (notSignificantEnd !== -1) {
+      draft.notSignificant = true;
+      directP ||= last === 'head';
+      position = draft.end = notSignificantEnd;
+      last = 'p';
+      continue;
+    }
+    const interval = readInterval(text, next, false);
+    if (interval !== null) {
+      if (last === 'effect') {
+        attachInterval(draft, interval.interval, interval.end);
+        last = 'interval';
+      } else {
+        // An interval for something unrecorded (a mean difference): read past it.
+        last = 'other';
+      }
+      position = interval.end;
+      continue;
+    }
+    const named = readNameAndValue(text, next);
+    if (named !== null) {
+      // A correlation is its own effect size; an "r = ..." after it is another correlation.
+      if (named.kind === 'r' && draft.head.kind === 'r') break;
+      if (named.kind !== null) {
+        draft.effects.push({
+          kind: named.kind,
+          comparator: named.comparator,
+          value: named.value,
+          interval: null,
+          start: named.start,
+          end: named.end,
+        });
+        position = draft.end = named.end;
+        last = 'effect';
+      } else {
+        // "MSE = 12.4", "b = 0.3": reported alongside, not recorded, but the result continues.
+        position = named.end;
+        last = 'other';
+      }
+      continue;
+    }
+    if (searchedNearby) break;
+    searchedNearby = true;
+    const nearby = findNearby(text, position, draft.p === null);
+    if (nearby === -1) break;
+    position = nearby;
+    last = 'other';
+  }
+  return directP;
+}
+
+/** Gives the last effect size its confidence interval, which ends at `end`. */
+function attachInterval(draft: ResultDraft, interval: ReportedInterval, end: number): void {
+  const effect = draft.effects[draft.effects.length - 1];
+  if (effect === undefined) return;
+  effect.interval = interval;
+  effect.end = end;
+  draft.end = end;
+}
+
+/**
+ * True when a complete result starts at `at`: a head that stands on its own,
+ * or a head without df ("r = .38") that a p-value follows directly. The
+ * latter distinction keeps "t(28) = 2.21, p = .03, r = .38" reading r as the
+ * t-test's effect size rather than as a new result.
+ */
+function startsResult(text: string, at: number): boolean {
+  const head = readStatisticHead(text, at);
+  if (head === null) return false;
+  if (!head.needsP) return true;
+  const next = skipSeparators(text, head.end);
+  return readPValue(text, next) !== null || readNotSignificant(text, next) !== -1;
+}
+
+/**
+ * Looks a short way ahead, within the sentence and before the next
+ * statistic, for where a p-value (when still missing) or an unambiguous
+ * effect size starts. Returns that position, or -1.
+ */
+function findNearby(text: string, from: number, wantP: boolean): number {
+  const window = wantP ? P_SEARCH_WINDOW : EFFECT_SEARCH_WINDOW;
+  const limit = Math.min(text.length, from + window);
+  for (let at = from; at < limit; at++) {
+    const code = text.charCodeAt(at);
+    if (endsSentence(text, at)) return -1;
+    if (!isAsciiLetter(code) || !startsWord(text, at)) continue;
+    if (startsResult(text, at)) return -1;
+    if (wantP && readPValue(text, at) !== null) return at;
+    const named = readNameAndValue(text, at);
+    if (named !== null && named.start === at && isUnambiguousEffectName(named.name)) return at;
+  }
+  return -1;
+}
+
+/** A full stop, "!" or "?" followed by space, or a blank line: parts of a result do not cross it. */
+function endsSentence(text: string, at: number): boolean {
+  const code = text.charCodeAt(at);
+  if (code === 46 || code === 33 || code === 63) {
+    const after = text.charCodeAt(at + 1);
+    return Number.isNaN(after) || isSpaceCode(after);
+  }
+  if (code === 10) {
+    let cursor = at + 1;
+    while (cursor < text.length && cursor < at + MAX_GAP && (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 13)) cursor++;
+    return text.charCodeAt(cursor) === 10;
+  }
+  return false;
+}
+
+function skipOnlySpaces(text: string, position: number): number {
+  let at = position;
+  const limit = Math.min(text.length, position + MAX_GAP);
+  while (at < limit && isSpaceCode(text.charCodeAt(at))) at++;
+  return at;
+}
+
+/**
+ * Skips what stands between two parts of one result: spaces, line breaks,
+ * commas, semicolons, colons, brackets, and the words "and" / "with".
+ */
+function skipSeparators(text: string, position: number): number {
+  const limit = Math.min(text.length, position + MAX_SEPARATOR_RUN);
+  let at = position;
+  while (at < limit) {
+    const code = text.charCodeAt(at);
+    if (isSpaceCode(code) || code === 44 || code === 59 || code === 58 || code === 40 || code === 41 || code === 91 || code === 93) {
+      at++;
+      continue;
+    }
+    const connector = connectorLength(text, at);
+    if (connector > 0) {
+      at += connector;
+      continue;
+    }
+    break;
+  }
+  return at;
+}
+
+/** Length of "and", "with" or "&" standing as a word at `at`; 0 otherwise. */
+function connectorLength(text: string, at: number): number {
+  if (text.charCodeAt(at) === 38) return 1;
+  if (!startsWord(text, at)) return 0;
+  for (const word of ['and', 'with']) {
+    if (text.startsWith(word, at) && !isAsciiLetter(text.charCodeAt(at + word.length))) return word.length;
+  }
+  return 0;
+}

@@ -1,0 +1,297 @@
+/**
+ * Reads the head of a reported test statistic: its symbol, degrees of
+ * freedom, comparator and value ("F(2, 57) = 4.21", "t28 = 2.1", "F < 1",
+ * "χ2(2, N = 120) = 7.81" once normalised to "chi2(2, N = 120) = 7.81").
+ *
+ * Works on the normalised text with bounded lookahead: a head is at most a
+ * few dozen characters, so each candidate costs a constant amount of work.
+ */
+
+import { parseReportedNumber } from '../stats/reportedNumber.js';
+import {
+  isAsciiDigit,
+  isAsciiLetter,
+  readComparator,
+  readPlainNumber,
+  skipSpaces,
+  startsWord,
+} from './cursor.js';
+import type { Comparator, ReportedNumber, StatisticKind } from './types.js';
+
+export interface StatisticHead {
+  kind: StatisticKind;
+  /** Normalised offsets of the symbol's first character and the value's end. */
+  start: number;
+  end: number;
+  df: ReportedNumber[];
+  sampleSize: ReportedNumber | null;
+  value: ReportedNumber;
+  valueComparator: Comparator;
+  /**
+   * Written without degrees of freedom (or with an ambiguous flattened
+   * subscript such as "t1"): it only counts as a result when a p-value
+   * follows directly, because "r = 2.5 cm" or "t1 = 3.2" are not tests.
+   */
+  needsP: boolean;
+}
+
+/** Smallest flattened subscript df accepted for t without a p-value ("t28 = 2.1"; "t1 = 0.5" is a time point). */
+const MIN_BARE_SUBSCRIPT_DF = 5;
+
+interface SymbolRead {
+  kind: StatisticKind;
+  end: number;
+  /** "X2": only trusted with degrees of freedom in brackets. */
+  requiresBracketedDf: boolean;
+}
+
+/** Reads the statistic symbol at `position`, or null. */
+function readSymbol(text: string, position: number): SymbolRead | null {
+  if (!startsWord(text, position)) return null;
+  const code = text.charCodeAt(position);
+  switch (code) {
+    case 70: // F
+    case 116: // t
+      return singleLetterSymbol(text, position, code === 70 ? 'F' : 't', true);
+    case 114: // r
+      return singleLetterSymbol(text, position, 'r', false);
+    case 122: // z
+    case 90: // Z
+      return singleLetterSymbol(text, position, 'z', false);
+    case 99: // c
+    case 67: // C
+      return chiSquareWord(text, position);
+    case 120: // x
+    case 88: // X
+      return chiSquareLetterX(text, position);
+    default:
+      return null;
+  }
+}
+
+/** "F", "Fs" (as in "all Fs < 1"), "t", "ts", "r", "z": the letter must stand alone. */
+function singleLetterSymbol(text: string, position: number, kind: StatisticKind, allowPlural: boolean): SymbolRead | null {
+  let end = position + 1;
+  if (allowPlural && text.charCodeAt(end) === 115 && !isAsciiLetter(text.charCodeAt(end + 1))) end++;
+  if (isAsciiLetter(text.charCodeAt(end))) return null;
+  return { kind, end, requiresBracketedDf: false };
+}
+
+/** "chi2", "chi^2", "chi-square", "chi square", "chisquare", "chi-squared" (any capitalisation of the first letter). */
+function chiSquareWord(text: string, position: number): SymbolRead | null {
+  const word = text.slice(position, position + 3).toLowerCase();
+  if (word !== 'chi') return null;
+  let at = position + 3;
+  if (text.charCodeAt(at) === 94) at++; // "^"
+  if (text.charCodeAt(at) === 50 && !isAsciiDigit(text.charCodeAt(at + 1))) {
+    return { kind: 'chi2', end: at + 1, requiresBracketedDf: false };
+  }
+  at = position + 3;
+  const joiner = text.charCodeAt(at);
+  if (joiner === 45 || joiner === 32) at++;
+  if (text.slice(at, at + 6).toLowerCase() !== 'square') return null;
+  at += 6;
+  if (text.charCodeAt(at) === 100) at++; // "d"
+  if (isAsciiLetter(text.charCodeAt(at))) return null;
+  return { kind: 'chi2', end: at, requiresBracketedDf: false };
+}
+
+/** "X2" / "X^2" / "x2": how χ² often survives PDF extraction; bracketed df required. */
+function chiSquareLetterX(text: string, position: number): SymbolRead | null {
+  let at = position + 1;
+  if (text.charCodeAt(at) === 94) at++;
+  if (text.charCodeAt(at) !== 50 || isAsciiDigit(text.charCodeAt(at + 1)) || isAsciiLetter(text.charCodeAt(at + 1))) {
+    return null;
+  }
+  return { kind: 'chi2', end: at + 1, requiresBracketedDf: true };
+}
+
+function toNumber(written: string): ReportedNumber | null {
+  return parseReportedNumber(written);
+}
+
+const OPENING_BRACKETS = new Set([40, 91, 123]); // ( [ {
+const CLOSING_BRACKETS = new Set([41, 93, 125]); // ) ] }
+
+interface DfRead {
+  df: ReportedNumber[];
+  sampleSize: ReportedNumber | null;
+  end: number;
+  bracketed: boolean;
+  /** True for a flattened subscript whose df is too small to be trusted without a p. */
+  doubtful: boolean;
+}
+
+/** An unsigned df, allowing a thousands separator when `allowThousands` ("t(1,024)"). */
+function readDf(text: string, position: number, allowThousands: boolean): { number: ReportedNumber; end: number } | null {
+  const read = readPlainNumber(text, position, false);
+  if (read === null) return null;
+  let written = read.text;
+  let end = read.end;
+  if (allowThousands && !written.includes('.') && written.length <= 3 && text.charCodeAt(end) === 44) {
+    const group = readPlainNumber(text, end + 1, false);
+    const closes = group !== null && CLOSING_BRACKETS.has(text.charCodeAt(group.end));
+    if (group !== null && closes && group.text.length === 3 && !group.text.includes('.')) {
+      written += group.text;
+      end = group.end;
+    }
+  }
+  const number = toNumber(written);
+  return number === null ? null : { number, end };
+}
+
+/** Skips an optional "df =" or "df:" label inside the brackets. */
+function skipDfLabel(text: string, position: number): number {
+  if (text.charCodeAt(position) !== 100 || text.charCodeAt(position + 1) !== 102) return position; // "df"
+  let at = skipSpaces(text, position + 2);
+  const code = text.charCodeAt(at);
+  if (code !== 61 && code !== 58) return position;
+  at = skipSpaces(text, at + 1);
+  return at;
+}
+
+/** Reads the bracketed df of any statistic: "(2, 57)", "[1, 44]", "(45.3)", "(2, N = 120)". */
+function readBracketedDf(text: string, position: number, kind: StatisticKind): DfRead | null {
+  if (!OPENING_BRACKETS.has(text.charCodeAt(position))) return null;
+  let at = skipDfLabel(text, skipSpaces(text, position + 1));
+  const first = readDf(text, at, kind !== 'F');
+  if (first === null) return null;
+  const df = [first.number];
+  let sampleSize: ReportedNumber | null = null;
+  at = skipSpaces(text, first.end);
+  const separator = text.charCodeAt(at);
+  if (separator === 44 || separator === 59) {
+    at = skipSpaces(text, at + 1);
+    if (kind === 'F') {
+      const second = readDf(text, skipDfLabel(text, at), false);
+      if (second === null) return null;
+      df.push(second.number);
+      at = skipSpaces(text, second.end);
+    } else if (kind === 'chi2') {
+      const sample = readSampleSizeLabel(text, at);
+      if (sample === null) return null;
+      sampleSize = sample.number;
+      at = skipSpaces(text, sample.end);
+    } else {
+      return null;
+    }
+  }
+  if (!CLOSING_BRACKETS.has(text.charCodeAt(at))) return null;
+  if (kind === 'F' && df.length !== 2) return null;
+  return { df, sampleSize, end: at + 1, bracketed: true, doubtful: false };
+}
+
+/** "N = 120" / "n = 1,024" inside a chi-square's brackets. */
+function readSampleSizeLabel(text: string, position: number): { number: ReportedNumber; end: number } | null {
+  const letter = text.charCodeAt(position);
+  if (letter !== 78 && letter !== 110) return null; // N, n
+  let at = skipSpaces(text, position + 1);
+  if (text.charCodeAt(at) !== 61) return null;
+  at = skipSpaces(text, at + 1);
+  const read = readPlainNumber(text, at, false);
+  if (read === null) return null;
+  let written = read.text;
+  let end = read.end;
+  // Thousands groups: "1,024" (at most two groups keeps this bounded).
+  for (let groups = 0; groups < 2 && text.charCodeAt(end) === 44 && !written.includes('.'); groups++) {
+    const group = readPlainNumber(text, end + 1, false);
+    if (group === null || group.text.length !== 3 || group.text.includes('.')) break;
+    written += group.text;
+    end = group.end;
+  }
+  const number = toNumber(written);
+  return number === null ? null : { number, end };
+}
+
+/**
+ * Degrees of freedom flattened from a subscript by PDF extraction:
+ * "F1,44" / "F1, 44" (the comma is required: "F1 = 0.83" is an F1 score) and
+ * "t28".
+ */
+function readSubscriptDf(text: string, position: number, kind: StatisticKind): DfRead | null {
+  if (kind !== 'F' && kind !== 't') return null;
+  if (!isAsciiDigit(text.charCodeAt(position))) return null;
+  const first = readDf(text, position, false);
+  if (first === null) return null;
+  if (kind === 't') {
+    const doubtful = first.number.value < MIN_BARE_SUBSCRIPT_DF;
+    return { df: [first.number], sampleSize: null, end: first.end, bracketed: false, doubtful };
+  }
+  let at = first.end;
+  if (text.charCodeAt(at) === 32) at++;
+  if (text.charCodeAt(at) !== 44) return null;
+  at++;
+  if (text.charCodeAt(at) === 32) at++;
+  if (text.charCodeAt(at) === 32) at++;
+  const second = readDf(text, at, false);
+  if (second === null) return null;
+  return { df: [first.number, second.number], sampleSize: null, end: second.end, bracketed: false, doubtful: false };
+}
+
+/** Reads a complete statistic head at `position` (normalised text), or null. */
+export function readStatisticHead(text: string, position: number): StatisticHead | null {
+  const symbol = readSymbol(text, position);
+  if (symbol === null) return null;
+  let at = symbol.end;
+  // "F_(1,44)" / "F_{1,44}": a LaTeX-style subscript marker.
+  if (text.charCodeAt(at) === 95) at++;
+
+  let dfRead: DfRead | null = null;
+  if (symbol.kind !== 'z') {
+    dfRead = readSubscriptDf(text, at, symbol.kind) ?? readBracketedDf(text, skipSpaces(text, at), symbol.kind);
+    // Digits glued to the symbol that are not a valid subscript ("F1 = 0.83", "F2 gas") end the matter.
+    if (dfRead === null && isAsciiDigit(text.charCodeAt(at))) return null;
+  }
+  if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) return null;
+  if (dfRead !== null) at = dfRead.end;
+
+  at = skipSpaces(text, at);
+  const comparator = readComparator(text, at);
+  if (comparator === null) return null;
+  at = skipSpaces(text, comparator.end);
+  const valueText = readPlainNumber(text, at);
+  if (valueText === null) return null;
+  // A value running into letters or digits is a unit or a label ("t = 5s"), not a statistic.
+  if (!endsValue(text, valueText.end)) return null;
+  const value = toNumber(valueText.text);
+  if (value === null) return null;
+
+  const df = dfRead?.df ?? [];
+  const needsP = needsPValue(symbol.kind, dfRead, comparator.comparator);
+  if (symbol.kind === 'z' && looksLikeCoordinate(text, position)) return null;
+
+  return {
+    kind: symbol.kind,
+    start: position,
+    end: valueText.end,
+    df,
+    sampleSize: dfRead?.sampleSize ?? null,
+    value,
+    valueComparator: comparator.comparator,
+    needsP,
+  };
+}
+
+function endsValue(text: string, position: number): boolean {
+  const code = text.charCodeAt(position);
+  if (isAsciiLetter(code) || isAsciiDigit(code) || code === 95) return false;
+  return true;
+}
+
+/** Whether the head needs a p-value right after it to count as a result (see StatisticHead.needsP). */
+function needsPValue(kind: StatisticKind, dfRead: DfRead | null, comparator: Comparator): boolean {
+  if (kind === 'z') return false;
+  if (dfRead === null) {
+    // "F < 1" is a standard way to report a small F; "F = 4.2" alone could be anything.
+    return !(kind === 'F' && (comparator === '<' || comparator === '<='));
+  }
+  return dfRead.doubtful;
+}
+
+/** "x = 12, y = -40, z = 8" and "x, y, z = ...": brain or map coordinates, not a z test. */
+const COORDINATE_BEFORE = /(?:\by\s{0,3}=\s{0,3}[-+]?\d{1,6}(?:\.\d{1,6})?|\by)\s{0,3}[,;]?\s{0,3}(?:and\s{1,3})?$/;
+
+function looksLikeCoordinate(text: string, zPosition: number): boolean {
+  const before = text.slice(Math.max(0, zPosition - 40), zPosition);
+  return COORDINATE_BEFORE.test(before);
+}

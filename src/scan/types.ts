@@ -1,0 +1,119 @@
+/**
+ * The scanner's output: what a manuscript reports, exactly as written.
+ *
+ * Every number keeps the text it was written with, because "4.20" and "4.2"
+ * imply different rounding intervals. Offsets (`start`, `end`) always point
+ * into the ORIGINAL text handed to the scanner, never into the normalised copy.
+ */
+
+/** A number as it was typed in the manuscript. */
+export interface ReportedNumber {
+  /** The numeric value ("-.32" -> -0.32, "1.2 x 10^-5" -> 0.000012). */
+  value: number;
+  /** The characters as normalised (ASCII digits, "-" for any minus sign). */
+  text: string;
+  /**
+   * Decimal places written in the mantissa ("4.20" -> 2, "4" -> 0,
+   * "1.2e-5" -> 1, meaning the mantissa 1.2 is rounded to one place).
+   */
+  decimals: number;
+  /** Power of ten for scientific notation ("1.2e-5" -> -5); 0 otherwise. */
+  exponent: number;
+}
+
+export type StatisticKind = 'F' | 't' | 'chi2' | 'r' | 'z';
+
+export type Comparator = '=' | '<' | '>' | '<=' | '>=';
+
+export interface ReportedP {
+  comparator: Comparator;
+  value: ReportedNumber;
+  /** Written as "ps < .001" (one p for several tests). */
+  plural: boolean;
+  start: number;
+  end: number;
+}
+
+export type EffectKind =
+  | 'partial-eta-squared'
+  | 'eta-squared'
+  | 'generalized-eta-squared'
+  | 'omega-squared'
+  | 'partial-omega-squared'
+  | 'cohens-d'
+  | 'hedges-g'
+  | 'cohens-f'
+  | 'r'
+  | 'phi'
+  | 'cramers-v';
+
+export interface ReportedInterval {
+  /** Confidence level as a proportion (0.90 for "90% CI"); null when unstated. */
+  level: number | null;
+  low: ReportedNumber;
+  high: ReportedNumber;
+}
+
+export interface ReportedEffect {
+  kind: EffectKind;
+  comparator: Comparator;
+  value: ReportedNumber;
+  interval: ReportedInterval | null;
+  start: number;
+  end: number;
+}
+
+export interface ReportedResult {
+  kind: StatisticKind;
+  /** The original text of the whole result, from the statistic's symbol to its last part. */
+  text: string;
+  /** Offsets into the original text (end exclusive). */
+  start: number;
+  end: number;
+  /** F: [df1, df2]; t, chi2, r: [df]; z: []. */
+  df: ReportedNumber[];
+  /** chi-square's "N = 120" inside the parentheses, when given. */
+  sampleSize: ReportedNumber | null;
+  /** The statistic; null only when not written as a number. */
+  value: ReportedNumber | null;
+  /** "=" normally; "<" for "F < 1". */
+  valueComparator: Comparator;
+  p: ReportedP | null;
+  /** True when the result is marked "n.s." / "ns" instead of (or beside) a p. */
+  notSignificant: boolean;
+  effects: ReportedEffect[];
+}
+
+/** A sentence or phrase of the document that states something the checks need. */
+export interface ContextStatement {
+  text: string;
+  start: number;
+  end: number;
+}
+
+export interface DeclaredAlpha extends ContextStatement {
+  value: number;
+}
+
+export interface StatedSampleSize extends ContextStatement {
+  value: number;
+}
+
+export interface SphericityStatement extends ContextStatement {
+  method: 'greenhouse-geisser' | 'huynh-feldt' | 'unspecified';
+}
+
+/** What the document says once, read before the results are checked. */
+export interface DocumentContext {
+  alpha: DeclaredAlpha | null;
+  /** Statements of one-tailed / one-sided / directional testing. */
+  oneTailed: ContextStatement[];
+  /** "N = 120", "120 participants", "a sample of 64 students". */
+  sampleSizes: StatedSampleSize[];
+  sphericity: SphericityStatement[];
+}
+
+export interface ScanOutput {
+  results: ReportedResult[];
+  context: DocumentContext;
+}

@@ -1,0 +1,38 @@
+import { describe, expect, it } from 'vitest';
+import { emptyContext, flagsOf } from '../helpers.js';
+
+// t(28) = 2.21: two-tailed p = .03545, one-tailed .01772; F(1, 44) = 4.21: p = .04617, half .02308
+// (SciPy 1.10.1 scipy.stats.t.sf and f.sf, computed when this test was written).
+const rule = 'halved-p';
+const oneTailedStatement = { text: 'One-tailed tests were used for the directional hypotheses.', start: 0, end: 58 };
+
+describe(`${rule}: must pass`, () => {
+  it('the two-tailed p', () => {
+    expect(flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '= .035' })).toEqual([]);
+  });
+  it('an inequality that both the one- and two-tailed p satisfy', () => {
+    expect(flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '< .05' })).toEqual([]);
+  });
+});
+
+describe(`${rule}: must flag`, () => {
+  it('a halved t p without a declaration (warn)', () => {
+    const [finding] = flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '= .018' });
+    expect(finding).toMatchObject({ rule, severity: 'warn', messageId: 'undeclared' });
+  });
+  it('a halved t p where one-tailed testing is declared (note)', () => {
+    const context = emptyContext({ oneTailed: [oneTailedStatement] });
+    const [finding] = flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '= .018', start: 200 }, context);
+    expect(finding).toMatchObject({ rule, severity: 'note', messageId: 'declared' });
+  });
+  it('a declaration far after the result does not cover it', () => {
+    const far = emptyContext({ oneTailed: [{ ...oneTailedStatement, start: 9000, end: 9058 }] });
+    const [finding] = flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '= .018', start: 100 }, far);
+    expect(finding).toMatchObject({ severity: 'warn' });
+  });
+  it('a halved F p, even with a one-tailed declaration (warn)', () => {
+    const context = emptyContext({ oneTailed: [oneTailedStatement] });
+    const [finding] = flagsOf(rule, { kind: 'F', df: ['1', '44'], value: '4.21', p: '= .023', start: 200 }, context);
+    expect(finding).toMatchObject({ rule, severity: 'warn', messageId: 'upperTail' });
+  });
+});
