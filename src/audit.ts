@@ -8,13 +8,30 @@ import { toolVersion } from './version.js';
 /** Maps a text offset to its page, when the document has pages. */
 export type PageOf = (offset: number) => number | null;
 
-function statisticOutput(checked: CheckedResult, lineOf: ReturnType<typeof createLineIndex>, pageOf: PageOf): StatisticOutput {
+const SURROUNDING_CHARACTERS = 160;
+
+/** Text around a result, cut at word boundaries where possible, for reports that show results in context. */
+function surroundingsOf(text: string, start: number, end: number): { before: string; after: string } {
+  let before = text.slice(Math.max(0, start - SURROUNDING_CHARACTERS), start);
+  let after = text.slice(end, end + SURROUNDING_CHARACTERS);
+  if (start > SURROUNDING_CHARACTERS) before = before.replace(/^\S*\s/, '');
+  if (end + SURROUNDING_CHARACTERS < text.length) after = after.replace(/\s\S*$/, '');
+  return { before, after };
+}
+
+function statisticOutput(
+  checked: CheckedResult,
+  text: string,
+  lineOf: ReturnType<typeof createLineIndex>,
+  pageOf: PageOf,
+): StatisticOutput {
   const { result, recomputation, findings } = checked;
   const { line, column } = lineOf(result.start);
   return {
     kind: result.kind,
     text: result.text,
     location: { page: pageOf(result.start), line, column, start: result.start, end: result.end },
+    surroundings: surroundingsOf(text, result.start, result.end),
     df: result.df.map((df) => df.value),
     value: result.value?.value ?? null,
     valueComparator: result.valueComparator,
@@ -53,7 +70,7 @@ export function auditText(text: string, config: ResolvedConfig, path = '<text>',
     path,
     status: 'checked',
     alpha: scan.context.alpha?.value ?? config.defaultAlpha,
-    statistics: checked.map((c) => statisticOutput(c, lineOf, pageOf)),
+    statistics: checked.map((c) => statisticOutput(c, text, lineOf, pageOf)),
     findings: [],
   };
 }

@@ -86,8 +86,8 @@ export function resolveConfig(userConfig: unknown = {}, source = 'config', catal
   return { defaultAlpha: parsed.data.alpha ?? 0.05, rules, catalogue };
 }
 
-/** Reads and resolves a config file; a missing or malformed file is a ConfigError naming it. */
-export function loadConfigFile(path: string): ResolvedConfig {
+/** Reads a settings file and validates it; a missing or malformed file is a ConfigError naming it. */
+export function readUserConfigFile(path: string): UserConfig {
   let raw: unknown;
   try {
     raw = JSON.parse(readFileSync(path, 'utf8'));
@@ -95,5 +95,12 @@ export function loadConfigFile(path: string): ResolvedConfig {
     const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'file not found' : `not valid JSON (${(error as Error).message})`;
     throw new ConfigError(`${path}: ${reason}`);
   }
-  return resolveConfig(raw, path);
+  const parsed = userConfigSchema.safeParse(raw);
+  if (!parsed.success) throw new ConfigError(describeIssues(path, parsed.error.issues));
+  return parsed.data;
+}
+
+/** Reads and resolves a settings file. */
+export function loadConfigFile(path: string): ResolvedConfig {
+  return resolveConfig(readUserConfigFile(path), path);
 }

@@ -7,13 +7,14 @@ async function readStdin(): Promise<string> {
   return Buffer.concat(chunks).toString('utf8');
 }
 
-const color = Boolean(process.stdout.isTTY) && !('NO_COLOR' in process.env);
+const color = Boolean(process.stdout.isTTY) && !("NO_COLOR" in process.env);
 
 runCli(process.argv.slice(2), {
   stdout: (text) => process.stdout.write(text),
   stderr: (text) => process.stderr.write(text),
   readStdin,
   color,
+  interactive: Boolean(process.stderr.isTTY),
 }).then(
   (code) => {
     process.exitCode = code;

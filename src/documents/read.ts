@@ -1,13 +1,48 @@
+import { readFile } from 'node:fs/promises';
+import { existsSync, readFileSync } from 'node:fs';
 import { extname } from 'node:path';
+import { readDocxBytes } from './docx.js';
+import { htmlToDocument } from './html.js';
+import { jatsToDocument } from './jats.js';
+import { latexToDocument } from './latex.js';
+import { readPdf, type PdfEngineChoice } from './pdf.js';
+import { describeContent, sniffContent, type ContentKind } from './sniff.js';
 import { readTextDocument } from './text.js';
-import type { ReadOutcome } from './types.js';
+import type { DocumentText, ReadOutcome } from './types.js';
 
-const formatByExtension: Record<string, 'text' | 'markdown'> = {
+export type DocumentFormat = 'text' | 'markdown' | 'pdf' | 'docx' | 'html' | 'jats' | 'latex';
+
+export interface ReadOptions {
+  /** Which PDF engine to use: `auto` (default) takes pdftotext when it is installed, pdf-parse otherwise. */
+  pdfEngine?: PdfEngineChoice;
+}
+
+const formatByExtension: Record<string, DocumentFormat> = {
   '.txt': 'text',
   '.text': 'text',
   '.md': 'markdown',
   '.markdown': 'markdown',
+  '.pdf': 'pdf',
+  '.docx': 'docx',
+  '.html': 'html',
+  '.htm': 'html',
+  '.xhtml': 'html',
+  '.xml': 'jats',
+  '.nxml': 'jats',
+  '.tex': 'latex',
+  '.ltx': 'latex',
 };
+
+/** What each format's bytes may look like; anything else is a mislabelled file. */
+const acceptedContent: Record<Exclude<DocumentFormat, 'text' | 'markdown'>, readonly ContentKind[]> = {
+  pdf: ['pdf'],
+  docx: ['zip'],
+  html: ['html', 'xml', 'text'],
+  jats: ['xml', 'text'],
+  latex: ['text'],
+};
+
+const suggestedExtension: Partial<Record<ContentKind, string>> = { pdf: '.pdf', zip: '.docx', html: '.html', xml: '.xml', text: '.txt' };
 
 export const supportedExtensions = Object.keys(formatByExtension);
 
@@ -15,9 +50,92 @@ export function isSupported(path: string): boolean {
   return extname(path).toLowerCase() in formatByExtension;
 }
 
-/** Reads any supported document; never throws for a bad file, returns its reason instead. */
-export async function readDocument(path: string): Promise<ReadOutcome> {
+/**
+ * Reads any supported document; never throws for a bad file, returns its reason instead.
+ *
+ * The extension picks the reader, and the first bytes must agree with it. A
+ * mislabelled file (a ".pdf" that is really an HTML page, a ".docx" that is
+ * not a zip) is refused with a message that says what the file really is and
+ * which extension would read it, rather than read as what it is: guessing
+ * silently would hide a wrong download or export from the user, and the
+ * outcome has no place for a warning beside a successful read.
+ */
+export async function readDocument(path: string, options: ReadOptions = {}): Promise<ReadOutcome> {
   const format = formatByExtension[extname(path).toLowerCase()];
   if (!format) return { ok: false, path, format: 'unknown', error: `unsupported file type "${extname(path) || '(none)'}"; supported: ${supportedExtensions.join(', ')}` };
-  return readTextDocument(path, format);
+  if (format === 'text' || format === 'markdown') return readTextDocument(path, format);
+  let bytes: Buffer;
+  try {
+    bytes = await readFile(path);
+  } catch (error) {
+    return { ok: false, path, format, error: `cannot read the file (${(error as NodeJS.ErrnoException).code ?? (error as Error).message})` };
+  }
+  const outcome = await readBytes(path, format, bytes, options);
+  return outcome.ok ? { ok: true, document: outcome.document } : { ok: false, path, format, error: outcome.error };
+}
+
+type BytesOutcome = { ok: true; document: DocumentText } | { ok: false; error: string };
+
+async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 'markdown'>, bytes: Buffer, options: ReadOptions): Promise<BytesOutcome> {
+  const content = sniffContent(bytes);
+  if (content === 'empty') return { ok: false, error: 'empty file (0 bytes)' };
+  if (!acceptedContent[format].includes(content)) return { ok: false, error: mislabelledMessage(format, content) };
+  try {
+    switch (format) {
+      case 'pdf':
+        return await readPdf(path, bytes, options.pdfEngine ?? 'auto');
+      case 'docx':
+        return await readDocxBytes(path, bytes);
+      case 'html':
+        return { ok: true, document: htmlToDocument(decodeText(bytes), path, 'html') };
+      case 'jats':
+        return jatsToDocument(decodeText(bytes), path);
+      case 'latex':
+        return { ok: true, document: latexToDocument(decodeText(bytes), path, readBblBeside(path)) };
+    }
+  } catch (error) {
+    // The readers return their known failures; this is the last guard of the never-throws promise.
+    return { ok: false, error: `the ${format.toUpperCase()} reader failed unexpectedly (${error instanceof Error ? error.message : String(error)})` };
+  }
+}
+
+function mislabelledMessage(format: DocumentFormat, content: ContentKind): string {
+  const expected: Record<DocumentFormat, string> = {
+    pdf: 'not a PDF',
+    docx: 'not a DOCX file (a .docx is a zip archive)',
+    html: 'not an HTML page',
+    jats: 'not a JATS XML file',
+    latex: 'not a LaTeX source file',
+    text: 'not text',
+    markdown: 'not text',
+  };
+  const suggestion = suggestedExtension[content];
+  const rename = suggestion && suggestion !== `.${format}` ? `; if that is right, rename it to ${suggestion}` : '';
+  const oleHint = format === 'docx' && content === 'ole' ? ' (save it from Word as an unprotected .docx)' : '';
+  return `${expected[format]}: the file is really ${describeContent(content)}${oleHint}${rename}`;
+}
+
+/** UTF-8 unless an HTML/XML declaration near the top names another charset that the platform decodes. */
+function decodeText(bytes: Buffer): string {
+  const head = bytes.subarray(0, 1024).toString('latin1');
+  const declared = /(?:charset|encoding)\s*=\s*["']?([A-Za-z0-9_-]+)/i.exec(head)?.[1];
+  if (declared && !/^utf-?8$/i.test(declared)) {
+    try {
+      return new TextDecoder(declared).decode(bytes);
+    } catch {
+      // an unknown label: fall back to UTF-8
+    }
+  }
+  return new TextDecoder('utf-8').decode(bytes);
+}
+
+/** For \bibliography{...}: the .bbl that BibTeX wrote next to the .tex, when present. */
+function readBblBeside(path: string): string | null {
+  const bbl = path.replace(/\.[^.]+$/, '.bbl');
+  if (bbl === path || !existsSync(bbl)) return null;
+  try {
+    return readFileSync(bbl, 'utf8');
+  } catch {
+    return null;
+  }
 }

@@ -1,4 +1,6 @@
+import type { ChildNode, Element } from 'domhandler';
 import type { TextBuilder } from './builder.js';
+import { childByName, elementChildren } from './dom.js';
 
 /** A table as a reader found it, before it is written into the text. */
 export interface TableDraft {
@@ -53,4 +55,27 @@ export function writeTable(builder: TextBuilder, draft: TableDraft): void {
 function trimmedEnd(builder: TextBuilder): number {
   // The last line break belongs to the layout, not to the table.
   return builder.offset - 1;
+}
+
+/**
+ * Rows of an HTML-style <table> (HTML, and JATS, which borrows the same
+ * elements) in order: thead, tbody, tfoot or bare rows, without entering
+ * nested tables. A <tfoot> row of a single cell is a note, not data.
+ */
+export function readTableElement(table: Element, cellText: (node: ChildNode) => string): TableDraft {
+  const captionElement = childByName(table, 'caption');
+  const rows: string[][] = [];
+  const notes: string[] = [];
+  for (const child of elementChildren(table)) {
+    const section = child.name.toLowerCase();
+    const rowElements = section === 'tr' ? [child] : ['thead', 'tbody', 'tfoot'].includes(section) ? elementChildren(child).filter((row) => row.name.toLowerCase() === 'tr') : [];
+    for (const row of rowElements) {
+      const cells = elementChildren(row).filter((cell) => ['td', 'th'].includes(cell.name.toLowerCase()));
+      const texts = cells.map((cell) => collapseWhitespace(cellText(cell)));
+      if (section === 'tfoot' && cells.length === 1) notes.push(texts[0]!);
+      else rows.push(texts);
+    }
+  }
+  const caption = captionElement ? collapseWhitespace(cellText(captionElement)) || null : null;
+  return { caption, notes, rows };
 }

@@ -31,6 +31,9 @@ export const statisticSchema = z.object({
   kind: z.enum(['F', 't', 'chi2', 'r', 'z']),
   text: z.string(),
   location: locationSchema,
+  surroundings: z
+    .object({ before: z.string(), after: z.string() })
+    .describe('Up to about 160 characters of the document before and after the result, for showing it in context.'),
   df: z.array(z.number()),
   value: z.number().nullable(),
   valueComparator: comparatorSchema,

@@ -17,16 +17,29 @@ import type {
   StatedSampleSize,
 } from './types.js';
 
-/** Keywords that may introduce a context statement (normalised text: α is "alpha", dashes are "-"). */
-const CONTEXT_ANCHOR =
-  /[Aa]lpha|[Ss]ignifican(?:ce|t)|[Oo]ne[- ]?(?:tailed|sided)|1[- ]?tailed|(?:[Uu]ni)?[Dd]irectional|[Ss]phericity|Greenhouse|Huynh|\bN\s{0,2}=|total of|sample of|\b(?:participants|subjects|students|respondents|volunteers|adults|children|adolescents|infants|patients|individuals|undergraduates|people|persons|workers|employees|pupils|dyads|couples|families|observers|listeners|raters|athletes|teachers|parents|mothers|fathers|women|men)\b/g;
+/**
+ * Candidates for context statements, chosen for speed: each alternative
+ * starts with the least common letters of its keyword ("lpha" for alpha,
+ * "gnifican" for significance), so the regular expression engine can skip
+ * most of the text. The keyword's start is recovered afterwards.
+ * "\d [a-z]" finds counts followed by a word ("120 participants").
+ */
+const CONTEXT_ANCHOR = /lpha|gnifican|ailed|ided|ctional|hericity|Greenh|Huynh|N\s{0,2}=|\d [A-Za-z]/g;
 
 /** How far a statement's sentence is searched for around a keyword. */
 const SENTENCE_REACH = 300;
-/** The slice examined after a keyword (alpha value, sample-size number). */
+/** The slice examined after a keyword (an alpha value). */
 const FORWARD_REACH = 80;
-/** The slice examined before a keyword (a number before "participants", a p before "significant"). */
+/** The slice examined before a keyword (a p before "significant"). */
 const BACKWARD_REACH = 100;
+
+/** Nouns that make a count a sample size ("86 adults"); up to two describing words may stand between. */
+const SAMPLE_NOUNS: ReadonlySet<string> = new Set([
+  'participants', 'subjects', 'students', 'respondents', 'volunteers', 'adults', 'children', 'adolescents',
+  'infants', 'patients', 'individuals', 'undergraduates', 'people', 'persons', 'workers', 'employees', 'pupils',
+  'dyads', 'couples', 'families', 'observers', 'listeners', 'raters', 'athletes', 'teachers', 'parents', 'mothers',
+  'fathers', 'women', 'men', 'participant', 'volunteers', 'toddlers', 'preschoolers', 'twins', 'clients', 'veterans',
+]);
 
 /** Reads the document context from the normalised text; offsets are mapped to the original. */
 export function readDocumentContext(normalised: NormalisedText): DocumentContext {
@@ -34,19 +47,59 @@ export function readDocumentContext(normalised: NormalisedText): DocumentContext
   const found = new ContextCollector(normalised);
   const anchor = new RegExp(CONTEXT_ANCHOR.source, CONTEXT_ANCHOR.flags);
   for (let match = anchor.exec(text); match !== null; match = anchor.exec(text)) {
-    const keyword = match[0];
-    const at = match.index;
-    if (!isWholeWordStart(text, at) && !keyword.startsWith('N')) continue;
-    const first = keyword.charCodeAt(0) | 0x20; // lower-cased first letter
-    if (first === 0x61 /* a */ && /^alpha$/i.test(keyword)) found.alpha(readAlphaStatement(text, at));
-    else if (first === 0x73 /* s */ && keyword.toLowerCase().startsWith('signific')) found.alpha(readSignificanceStatement(text, at, keyword));
-    else if (/tailed|sided|directional/i.test(keyword)) found.oneTailed(readOneTailed(text, at, keyword));
-    else if (/^(?:sphericity|Greenhouse|Huynh)$/i.test(keyword)) found.sphericity(readSphericity(text, at, keyword));
-    else if (keyword.startsWith('N')) found.sampleSize(readCapitalN(text, at));
-    else if (keyword === 'total of' || keyword === 'sample of') found.sampleSize(readCountAfter(text, at, keyword));
-    else found.sampleSize(readCountBefore(text, at, keyword));
+    readCandidate(text, match.index, match[0], found);
   }
   return found.finish();
+}
+
+/** Recovers the keyword a candidate belongs to and reads its statement into `found`. */
+function readCandidate(text: string, at: number, anchor: string, found: ContextCollector): void {
+  switch (anchor) {
+    case 'lpha':
+      if (hasWordBefore(text, at, 'a')) found.alpha(readAlphaStatement(text, at - 1));
+      return;
+    case 'gnifican': {
+      if (!hasWordBefore(text, at, 'si')) return;
+      const keywordEnd = at + anchor.length + (text.startsWith('ce', at + anchor.length) ? 2 : text.charCodeAt(at + anchor.length) === 116 ? 1 : 0);
+      found.alpha(readSignificanceStatement(text, at - 2, text.slice(at - 2, keywordEnd)));
+      return;
+    }
+    case 'ailed':
+      if (hasWordBefore(text, at, 't')) found.oneTailed(readOneTailed(text, at - 1, 'tailed'));
+      return;
+    case 'ided':
+      if (hasWordBefore(text, at, 's')) found.oneTailed(readOneTailed(text, at - 1, 'sided'));
+      return;
+    case 'ctional':
+      if (hasWordBefore(text, at, 'dire') || hasWordBefore(text, at, 'unidire')) {
+        found.oneTailed(readDirectional(text, at + anchor.length));
+      }
+      return;
+    case 'hericity':
+      if (hasWordBefore(text, at, 'sp')) found.sphericity(readSphericity(text, at - 2, 'sphericity'));
+      return;
+    case 'Greenh':
+      if (isWholeWordStart(text, at)) found.sphericity(readSphericity(text, at, 'Greenhouse'));
+      return;
+    case 'Huynh':
+      if (isWholeWordStart(text, at)) found.sphericity(readSphericity(text, at, 'Huynh'));
+      return;
+    default:
+      if (anchor.charCodeAt(0) === 78) found.sampleSize(readCapitalN(text, at));
+      else found.sampleSize(readCountBeforeNoun(text, at));
+  }
+}
+
+/**
+ * True when `prefix` (compared case-insensitively on its first letter)
+ * stands right before `at` and starts a word: "a" + "lpha" is "alpha",
+ * but "sha" + "lpha"... is not.
+ */
+function hasWordBefore(text: string, at: number, prefix: string): boolean {
+  const start = at - prefix.length;
+  if (start < 0 || !isWholeWordStart(text, start)) return false;
+  if ((text.charCodeAt(start) | 0x20) !== prefix.charCodeAt(0)) return false;
+  return text.startsWith(prefix.slice(1), start + 1);
 }
 
 function isWholeWordStart(text: string, at: number): boolean {
@@ -230,17 +283,31 @@ function readSignificanceStatement(text: string, at: number, keyword: string): (
 
 // ---------------------------------------------------------------- one-tailed
 
+/** What must precede "tailed" / "sided" for a one-tailed statement: "one-", "one ", "one" (joined line break), "1-". */
+const ONE_BEFORE = /(?:^|[^A-Za-z0-9])(?:[Oo]ne|1)[- ]?$/;
+
+/** "one-tailed", "one-sided", "1-tailed": the keyword ("tailed" or "sided") starts at `at`. */
+function readOneTailed(text: string, at: number, keyword: string): Span | null {
+  const before = text.slice(Math.max(0, at - 6), at);
+  const one = ONE_BEFORE.exec(before);
+  if (one === null) return null;
+  const start = at - before.length + one.index + (one[0].length > 0 && !/^[Oo1]/.test(one[0]) ? 1 : 0);
+  return sentenceAround(text, start, at + keyword.length);
+}
+
 /** Prefixes that turn "directional" into its opposite. */
 const NEGATING_PREFIX = /(?:non|bi|two|omni)[- ]?$/i;
 
-function readOneTailed(text: string, at: number, keyword: string): Span | null {
-  if (/directional/i.test(keyword)) {
-    if (NEGATING_PREFIX.test(text.slice(Math.max(0, at - 5), at))) return null;
-    // "directional" alone is an adjective of many things; it must qualify a test or hypothesis.
-    const after = text.slice(at + keyword.length, at + keyword.length + 20);
-    if (!/^\s{1,3}(?:hypothes[ie]s|tests?|predictions?|testing|alternative)/i.test(after)) return null;
-  }
-  return sentenceAround(text, at, at + keyword.length);
+/** "directional hypotheses" / "directional tests"; `end` is just after "directional". */
+function readDirectional(text: string, end: number): Span | null {
+  const start = text.lastIndexOf('irectional', end) - 1;
+  if (start < 0) return null;
+  const wordStart = text.charCodeAt(start - 1) === 105 ? start - 3 : start; // "uni"directional
+  if (NEGATING_PREFIX.test(text.slice(Math.max(0, wordStart - 5), wordStart))) return null;
+  // "directional" alone is an adjective of many things; it must qualify a test or hypothesis.
+  const after = text.slice(end, end + 20);
+  if (!/^\s{1,3}(?:hypothes[ie]s|tests?|predictions?|testing|alternative)/i.test(after)) return null;
+  return sentenceAround(text, wordStart, end);
 }
 
 // ---------------------------------------------------------------- sphericity
@@ -278,43 +345,55 @@ function readCapitalN(text: string, at: number): (Span & { value: number }) | nu
   return { start: at, end: at + match[0].length, value: parseCount(match[1]!) };
 }
 
-/** A count: "1,024" or "86". */
-const COUNT = String.raw`(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})`;
-
-/** A count and up to two describing words right before a noun: "86 healthy adults", "120 undergraduate psychology students". */
-const COUNT_BEFORE_NOUN = new RegExp(String.raw`(?<![\d.,])` + COUNT + String.raw`\s{1,3}(?:[A-Za-z-]{1,20}\s{1,3}){0,2}$`);
-
 /** Words after a count that mean it is not the sample ("3 participants were excluded"). */
 const EXCLUDED_AFTER = /^\s{0,3}(?:(?:were|was|had been|had to be)\s{1,3})?(?:excluded|removed|dropped|omitted|discarded|lost|withdrew|did not|failed|declined)/i;
 const EXCLUDED_BEFORE = /(?:exclud\w{0,4}|remov\w{0,4}|dropp\w{0,4}|omitt\w{0,4}|discard\w{0,4}|(?:data|responses) (?:of|from))\s{1,3}(?:the\s{1,3})?(?:data\s{1,3}(?:of|from)\s{1,3})?$/i;
 
-function readCountBefore(text: string, nounAt: number, noun: string): (Span & { value: number }) | null {
-  const nounEnd = nounAt + noun.length;
-  // The noun must be a whole word ("men" not in "women", "adults" not "adultsx").
-  const afterNoun = text.charCodeAt(nounEnd);
-  if ((afterNoun >= 97 && afterNoun <= 122) || (afterNoun >= 65 && afterNoun <= 90)) return null;
-  const behindStart = Math.max(0, nounAt - 48);
-  const behind = text.slice(behindStart, nounAt);
-  const match = COUNT_BEFORE_NOUN.exec(behind);
-  if (match === null) return null;
-  const countAt = behindStart + match.index;
-  if (EXCLUDED_AFTER.test(text.slice(nounEnd, nounEnd + 40))) return null;
-  if (EXCLUDED_BEFORE.test(text.slice(Math.max(0, countAt - 40), countAt))) return null;
-  const value = parseCount(match[1]!);
-  if (value === 0) return null;
-  return { start: countAt, end: nounEnd, value };
+/** Longest count read backwards from its last digit ("1,024,000"). */
+const MAX_COUNT_LENGTH = 9;
+/** Describing words allowed between a count and its noun ("120 undergraduate psychology students"). */
+const MAX_WORDS_BEFORE_NOUN = 2;
+const MAX_WORD_LENGTH = 20;
+
+/**
+ * A count followed by a sample noun: "86 adults", "120 undergraduate
+ * psychology students", "1,024 respondents". `lastDigitAt` holds the count's
+ * last digit, which a space and a letter follow.
+ */
+function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value: number }) | null {
+  let countStart = lastDigitAt;
+  const lowest = Math.max(0, lastDigitAt - MAX_COUNT_LENGTH);
+  while (countStart > lowest && isCountCode(text.charCodeAt(countStart - 1))) countStart--;
+  while (text.charCodeAt(countStart) === 44) countStart++; // a comma is not part of the count's start
+  const before = text.charCodeAt(countStart - 1);
+  if (before === 46 || isLetterCode(before)) return null; // "4.120 ms", "A2 adults"
+  const written = text.slice(countStart, lastDigitAt + 1);
+  if (!/^(?:\d{1,3}(?:,\d{3}){1,2}|\d{1,7})$/.test(written)) return null;
+
+  let at = lastDigitAt + 2;
+  for (let word = 0; word <= MAX_WORDS_BEFORE_NOUN; word++) {
+    const wordStart = at;
+    const limit = Math.min(text.length, at + MAX_WORD_LENGTH + 1);
+    while (at < limit && (isLetterCode(text.charCodeAt(at)) || text.charCodeAt(at) === 45)) at++;
+    if (at === wordStart || isLetterCode(text.charCodeAt(at))) return null;
+    if (SAMPLE_NOUNS.has(text.slice(wordStart, at).toLowerCase())) {
+      if (EXCLUDED_AFTER.test(text.slice(at, at + 40))) return null;
+      if (EXCLUDED_BEFORE.test(text.slice(Math.max(0, countStart - 40), countStart))) return null;
+      const value = parseCount(written);
+      return value === 0 ? null : { start: countStart, end: at, value };
+    }
+    if (text.charCodeAt(at) !== 32) return null;
+    at++;
+  }
+  return null;
 }
 
-/** The count after "total of" / "sample of". */
-const COUNT_AFTER = new RegExp(String.raw`^\s{1,3}` + COUNT + String.raw`(?![\d.])`);
+function isCountCode(code: number): boolean {
+  return (code >= 48 && code <= 57) || code === 44;
+}
 
-/** "a total of 86 ...", "a sample of 64 ...": the span runs from the keyword to the count. */
-function readCountAfter(text: string, at: number, keyword: string): (Span & { value: number }) | null {
-  const countFrom = at + keyword.length;
-  const match = COUNT_AFTER.exec(text.slice(countFrom, countFrom + 24));
-  if (match === null) return null;
-  const value = parseCount(match[1]!);
-  return value === 0 ? null : { start: at, end: countFrom + match[0].length, value };
+function isLetterCode(code: number): boolean {
+  return (code >= 65 && code <= 90) || (code >= 97 && code <= 122);
 }
 
 function parseCount(written: string): number {

@@ -7,7 +7,8 @@
  * again from every candidate that precedes it.
  */
 
-import type { Comparator } from './types.js';
+import { parseReportedNumber } from '../stats/reportedNumber.js';
+import type { Comparator, ReportedNumber } from './types.js';
 
 /** Longest whitespace gap accepted between two parts of one result (covers "\n   " from PDFs). */
 export const MAX_GAP = 16;
@@ -50,28 +51,32 @@ export function endsWord(text: string, position: number): boolean {
 }
 
 export interface ReadComparator {
-  comparator: Comparator;
-  end: number;
+  readonly comparator: Comparator;
+  /** Characters the comparator spans (1 or 2). */
+  readonly length: number;
 }
+
+/** Shared results of readComparator: reading one allocates nothing. */
+const EQUAL: ReadComparator = { comparator: '=', length: 1 };
+const DOUBLE_EQUAL: ReadComparator = { comparator: '=', length: 2 };
+const LESS: ReadComparator = { comparator: '<', length: 1 };
+const LESS_OR_EQUAL: ReadComparator = { comparator: '<=', length: 2 };
+const GREATER: ReadComparator = { comparator: '>', length: 1 };
+const GREATER_OR_EQUAL: ReadComparator = { comparator: '>=', length: 2 };
 
 /** Reads "=", "<", ">", "<=", ">=", "=<", "=>" or "==" at `position` (already normalised from ≤ ≥ ＝). */
 export function readComparator(text: string, position: number): ReadComparator | null {
   const first = text.charCodeAt(position);
   const second = text.charCodeAt(position + 1);
   const EQUALS = 61;
-  const LESS = 60;
-  const GREATER = 62;
-  if (first === LESS) {
-    return second === EQUALS ? { comparator: '<=', end: position + 2 } : { comparator: '<', end: position + 1 };
-  }
-  if (first === GREATER) {
-    return second === EQUALS ? { comparator: '>=', end: position + 2 } : { comparator: '>', end: position + 1 };
-  }
+  const LESS_THAN = 60;
+  const GREATER_THAN = 62;
+  if (first === LESS_THAN) return second === EQUALS ? LESS_OR_EQUAL : LESS;
+  if (first === GREATER_THAN) return second === EQUALS ? GREATER_OR_EQUAL : GREATER;
   if (first === EQUALS) {
-    if (second === LESS) return { comparator: '<=', end: position + 2 };
-    if (second === GREATER) return { comparator: '>=', end: position + 2 };
-    if (second === EQUALS) return { comparator: '=', end: position + 2 };
-    return { comparator: '=', end: position + 1 };
+    if (second === LESS_THAN) return LESS_OR_EQUAL;
+    if (second === GREATER_THAN) return GREATER_OR_EQUAL;
+    return second === EQUALS ? DOUBLE_EQUAL : EQUAL;
   }
   return null;
 }
@@ -85,41 +90,48 @@ function readDigits(text: string, position: number): number {
   return at;
 }
 
-export interface ReadNumberText {
-  /** The number's characters with any space after the sign removed ("- 2.1" -> "-2.1"). */
-  text: string;
+export interface ReadNumber {
+  number: ReportedNumber;
   start: number;
   end: number;
+}
+
+/** A ReportedNumber for a plain decimal already known to be well formed ("-.32", "4.20", "1024"). */
+export function plainNumber(written: string, decimals: number): ReportedNumber {
+  return { value: Number(written), text: written, decimals, exponent: 0 };
 }
 
 /**
  * Reads a plain decimal number: optional sign, digits, optional ".digits",
  * or a leading-dot decimal (".021"). A trailing "." that is not followed by a
- * digit is left alone: it ends the sentence, not the number.
+ * digit is left alone: it ends the sentence, not the number. The number's
+ * text drops a space PDF extraction may put after the sign ("- 2.1" -> "-2.1").
  */
-export function readPlainNumber(text: string, position: number, allowSign = true): ReadNumberText | null {
+export function readNumber(text: string, position: number, allowSign = true): ReadNumber | null {
   let at = position;
   let sign = '';
-  const MINUS = 45;
-  const PLUS = 43;
   const first = text.charCodeAt(at);
-  if (allowSign && (first === MINUS || first === PLUS)) {
-    sign = first === MINUS ? '-' : '+';
+  if (allowSign && (first === 45 || first === 43)) {
+    // "-" or "+"
+    sign = first === 45 ? '-' : '+';
     at++;
-    // PDF extraction sometimes puts a space between the minus and the digits.
     if (text.charCodeAt(at) === 32 && isNumberStart(text, at + 1)) at++;
   }
   const digitsStart = at;
-  const wholeEnd = isAsciiDigit(text.charCodeAt(at)) ? readDigits(text, at) : at;
-  if (wholeEnd === -1) return null;
-  at = wholeEnd;
+  if (isAsciiDigit(text.charCodeAt(at))) {
+    at = readDigits(text, at);
+    if (at === -1) return null;
+  }
+  let decimals = 0;
   if (text.charCodeAt(at) === 46 && isAsciiDigit(text.charCodeAt(at + 1))) {
     const fractionEnd = readDigits(text, at + 1);
     if (fractionEnd === -1) return null;
+    decimals = fractionEnd - at - 1;
     at = fractionEnd;
   }
   if (at === digitsStart) return null;
-  return { text: sign + text.slice(digitsStart, at), start: position, end: at };
+  const digits = text.slice(digitsStart, at);
+  return { number: plainNumber(sign === '' ? digits : sign + digits, decimals), start: position, end: at };
 }
 
 function isNumberStart(text: string, position: number): boolean {
@@ -130,42 +142,41 @@ function isNumberStart(text: string, position: number): boolean {
 /**
  * Reads a number that may carry a power of ten, as p-values do:
  * "1.2e-5", "1.2E-05", "1.2 x 10^-5", "1.2 x 10-5" (caret lost), "1.2*10^-5",
- * and a bare power "10^-4" / "10-4" (mantissa 1). The returned text is the
- * written form, which parseReportedNumber understands except for the bare power.
+ * and a bare power "10^-4" / "10-4" (mantissa 1, no decimals).
  */
-export function readScientificNumber(text: string, position: number): (ReadNumberText & { barePower: number | null }) | null {
-  const mantissa = readPlainNumber(text, position);
+export function readScientificNumber(text: string, position: number): ReadNumber | null {
+  const mantissa = readNumber(text, position);
   if (mantissa === null) return null;
-  const bare = readPowerOfTen(text, mantissa.start, mantissa.text);
-  if (bare !== null) return { text: text.slice(position, bare.end), start: position, end: bare.end, barePower: bare.power };
-  let at = mantissa.end;
-  const code = text.charCodeAt(at);
-  if (code === 101 || code === 69) {
+  const mantissaText = mantissa.number.text;
+  if (mantissaText === '10') {
+    const bare = readPowerOfTen(text, position);
+    if (bare !== null) {
+      const written = text.slice(position, bare.end);
+      return { number: { value: Number(`1e${bare.power}`), text: written, decimals: 0, exponent: bare.power }, start: position, end: bare.end };
+    }
+  }
+  const after = text.charCodeAt(mantissa.end);
+  if (after === 101 || after === 69) {
     // "e" / "E"
-    const exponent = readPlainNumber(text, at + 1);
-    if (exponent !== null && !exponent.text.includes('.') && exponent.text.length <= 4 && endsWord(text, exponent.end)) {
-      return { text: mantissa.text + 'e' + exponent.text, start: position, end: exponent.end, barePower: null };
+    const exponent = readNumber(text, mantissa.end + 1);
+    if (exponent !== null && exponent.number.decimals === 0 && exponent.number.text.length <= 4 && endsWord(text, exponent.end)) {
+      return scientific(`${mantissaText}e${exponent.number.text}`, position, exponent.end) ?? mantissa;
     }
-    return { ...mantissa, barePower: null };
+    return mantissa;
   }
-  at = skipSpacesUpTo(text, at, 2);
-  const times = text.charCodeAt(at);
-  if (times === 120 || times === 42) {
-    // "x" or "*" (× was normalised to x)
-    const tenAt = skipSpacesUpTo(text, at + 1, 2);
-    if (text.charCodeAt(tenAt) === 49 && text.charCodeAt(tenAt + 1) === 48) {
-      const power = readPowerOfTen(text, tenAt, '10');
-      if (power !== null) {
-        return {
-          text: `${mantissa.text} x 10^${power.power}`,
-          start: position,
-          end: power.end,
-          barePower: null,
-        };
-      }
-    }
-  }
-  return { ...mantissa, barePower: null };
+  const timesAt = skipSpacesUpTo(text, mantissa.end, 2);
+  const times = text.charCodeAt(timesAt);
+  if (times !== 120 && times !== 42) return mantissa; // "x" (× was normalised to x) or "*"
+  const tenAt = skipSpacesUpTo(text, timesAt + 1, 2);
+  if (text.charCodeAt(tenAt) !== 49 || text.charCodeAt(tenAt + 1) !== 48) return mantissa;
+  const power = readPowerOfTen(text, tenAt);
+  if (power === null) return mantissa;
+  return scientific(`${mantissaText} x 10^${power.power}`, position, power.end) ?? mantissa;
+}
+
+function scientific(written: string, start: number, end: number): ReadNumber | null {
+  const number = parseReportedNumber(written);
+  return number === null ? null : { number, start, end };
 }
 
 function skipSpacesUpTo(text: string, position: number, most: number): number {
@@ -174,17 +185,15 @@ function skipSpacesUpTo(text: string, position: number, most: number): number {
   return at;
 }
 
-/** Reads "10^-4", "10^ -4" or "10-4" starting at `tenAt`, where the mantissa text is exactly "10". */
-function readPowerOfTen(text: string, tenAt: number, writtenTen: string): { power: number; end: number } | null {
-  if (writtenTen !== '10') return null;
+/** Reads "10^-4", "10^ -4" or "10-4" starting at `tenAt` (which holds "10"). */
+function readPowerOfTen(text: string, tenAt: number): { power: number; end: number } | null {
   let at = tenAt + 2;
   const hasCaret = text.charCodeAt(at) === 94;
   if (hasCaret) at = skipSpacesUpTo(text, at + 1, 1);
-  const signCode = text.charCodeAt(at);
   // Without a caret only a minus marks an exponent ("10-4"); "10 4" or "10+4" stay ordinary text.
-  if (!hasCaret && signCode !== 45) return null;
-  const exponent = readPlainNumber(text, at);
-  if (exponent === null || exponent.text.includes('.') || exponent.text.length > 4) return null;
+  if (!hasCaret && text.charCodeAt(at) !== 45) return null;
+  const exponent = readNumber(text, at);
+  if (exponent === null || exponent.number.decimals > 0 || exponent.number.text.length > 4) return null;
   if (!endsWord(text, exponent.end)) return null;
-  return { power: Number(exponent.text), end: exponent.end };
+  return { power: exponent.number.value, end: exponent.end };
 }

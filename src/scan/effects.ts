@@ -4,13 +4,12 @@
  * "90% CI [.01, .25]", "95% CI: .01 to .12".
  */
 
-import { parseReportedNumber } from '../stats/reportedNumber.js';
 import {
   endsWord,
   isAsciiDigit,
   isAsciiLetter,
   readComparator,
-  readPlainNumber,
+  readNumber,
   skipSpaces,
   startsWord,
 } from './cursor.js';
@@ -77,6 +76,9 @@ export interface NameValueRead {
   end: number;
 }
 
+/** Scratch space for the word starts of a name being read (no allocation per attempt). */
+const wordStarts = new Int32Array(MAX_NAME_WORDS);
+
 /**
  * Reads "name = number" at `position`, where the name is one to four words
  * ("d", "Cohen's d", "partial eta squared"). When the whole name is not an
@@ -84,12 +86,12 @@ export interface NameValueRead {
  */
 export function readNameAndValue(text: string, position: number): NameValueRead | null {
   if (!startsWord(text, position) || !isNameCode(text.charCodeAt(position))) return null;
-  const wordStarts: number[] = [];
   const limit = Math.min(text.length, position + MAX_NAME_LENGTH);
+  let words = 0;
   let at = position;
   let nameEnd = position;
-  while (at < limit && wordStarts.length < MAX_NAME_WORDS) {
-    wordStarts.push(at);
+  while (at < limit && words < MAX_NAME_WORDS) {
+    wordStarts[words++] = at;
     while (at < limit && isNameCode(text.charCodeAt(at))) at++;
     nameEnd = at;
     const gap = text.charCodeAt(at);
@@ -97,26 +99,25 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
     if ((gap === 32 || gap === 45) && isNameCode(text.charCodeAt(at + 1))) at++;
     else break;
   }
-  if (nameEnd === position) return null;
   const comparatorAt = skipSpaces(text, nameEnd);
   const comparator = readComparator(text, comparatorAt);
   if (comparator === null) return null;
-  const valueAt = skipSpaces(text, comparator.end);
-  const valueText = readPlainNumber(text, valueAt);
-  if (valueText === null || !endsWord(text, valueText.end)) return null;
-  const value = parseReportedNumber(valueText.text);
-  if (value === null) return null;
+  const valueAt = skipSpaces(text, comparatorAt + comparator.length);
+  const valueRead = readNumber(text, valueAt);
+  if (valueRead === null || !endsWord(text, valueRead.end)) return null;
+  const value = valueRead.number;
+  const end = valueRead.end;
 
-  for (const wordStart of wordStarts) {
-    const name = canonicalName(text.slice(wordStart, nameEnd));
+  for (let word = 0; word < words; word++) {
+    const name = canonicalName(text.slice(wordStarts[word]!, nameEnd));
     const kind = EFFECT_NAMES.get(name);
     if (kind !== undefined) {
-      return { name, kind, comparator: comparator.comparator, value, start: wordStart, end: valueText.end };
+      return { name, kind, comparator: comparator.comparator, value, start: wordStarts[word]!, end };
     }
   }
-  const lastWordStart = wordStarts[wordStarts.length - 1]!;
+  const lastWordStart = wordStarts[words - 1]!;
   const name = canonicalName(text.slice(lastWordStart, nameEnd));
-  return { name, kind: null, comparator: comparator.comparator, value, start: lastWordStart, end: valueText.end };
+  return { name, kind: null, comparator: comparator.comparator, value, start: lastWordStart, end };
 }
 
 export interface IntervalRead {
@@ -134,11 +135,11 @@ export interface IntervalRead {
 export function readInterval(text: string, position: number, allowBareBrackets: boolean): IntervalRead | null {
   let at = position;
   let level: number | null = null;
-  const levelText = readPlainNumber(text, at, false);
-  if (levelText !== null && text.charCodeAt(levelText.end) === 37) {
+  const levelRead = readNumber(text, at, false);
+  if (levelRead !== null && text.charCodeAt(levelRead.end) === 37) {
     // "95%"
-    level = Number(levelText.text) / 100;
-    at = skipSpaces(text, levelText.end + 1);
+    level = levelRead.number.value / 100;
+    at = skipSpaces(text, levelRead.end + 1);
   }
   const labelEnd = readIntervalLabel(text, at);
   const labelled = labelEnd !== -1;
@@ -155,15 +156,15 @@ export function readInterval(text: string, position: number, allowBareBrackets: 
   if (!bracketed && !labelled) return null;
   if (bracketed) at = skipSpaces(text, at + 1);
 
-  const lowText = readPlainNumber(text, at);
-  if (lowText === null) return null;
-  at = skipSpaces(text, lowText.end);
+  const lowRead = readNumber(text, at);
+  if (lowRead === null) return null;
+  at = skipSpaces(text, lowRead.end);
   const separatorEnd = readRangeSeparator(text, at);
   if (separatorEnd === -1) return null;
   at = skipSpaces(text, separatorEnd);
-  const highText = readPlainNumber(text, at);
-  if (highText === null) return null;
-  at = highText.end;
+  const highRead = readNumber(text, at);
+  if (highRead === null) return null;
+  at = highRead.end;
   if (bracketed) {
     at = skipSpaces(text, at);
     const closing = text.charCodeAt(at);
@@ -172,10 +173,7 @@ export function readInterval(text: string, position: number, allowBareBrackets: 
   } else if (!endsWord(text, at)) {
     return null;
   }
-  const low = parseReportedNumber(lowText.text);
-  const high = parseReportedNumber(highText.text);
-  if (low === null || high === null) return null;
-  return { interval: { level, low, high }, start: position, end: at };
+  return { interval: { level, low: lowRead.number, high: highRead.number }, start: position, end: at };
 }
 
 /** End of "CI" or "confidence interval" at `position`, or -1. */
@@ -184,7 +182,8 @@ function readIntervalLabel(text: string, position: number): number {
     return position + 2;
   }
   const phrase = 'confidence interval';
-  if (text.slice(position, position + phrase.length).toLowerCase() === phrase) {
+  const first = text.charCodeAt(position);
+  if ((first === 99 || first === 67) && text.slice(position, position + phrase.length).toLowerCase() === phrase) {
     return position + phrase.length;
   }
   return -1;

@@ -8,7 +8,10 @@
  * forms, super- and subscripts, comparison signs, the multiplication sign,
  * curly quotes, mathematical alphanumeric letters, and the Greek letters used
  * for test statistics and effect sizes (spelled out: η -> "eta", χ -> "chi").
- * Words broken by a hyphen at a line end are joined again.
+ * Words broken by a hyphen at a line end are joined again. Markdown (and
+ * Word-to-text) emphasis markers around short spans are dropped, so "*t*(46.8)",
+ * "**F**(2, 57)", "_p_ = .03", "*p*s" and "*η*p2" read as "t(46.8)", "F(2, 57)",
+ * "p = .03", "ps" and "etap2"; "F_{1,44}", "η_p^2" and "1.2*10^-5" are kept.
  *
  * Linear time: one pass of a single regular expression finds the characters
  * that need work; the plain-ASCII stretches between them are copied as whole
@@ -26,8 +29,11 @@ export interface NormalisedText {
   toOriginalEnd(offset: number): number;
 }
 
-/** Characters needing work: anything outside ASCII, and an ASCII hyphen at a line end. */
-const NEEDS_WORK = /[^\x00-\x7F]|-[ \t]*\r?\n/g;
+/**
+ * Characters needing work: anything outside ASCII, an ASCII hyphen at a line
+ * end, and "*" / "_" (possible emphasis markers).
+ */
+const NEEDS_WORK = /[^\x00-\x7F]|-[ \t]*\r?\n|[*_]/g;
 
 /** Single-character replacements (the value may be empty, or longer than one character). */
 const REPLACEMENTS: ReadonlyMap<number, string> = buildReplacementTable();
@@ -105,8 +111,15 @@ interface Segment {
   origLength: number;
 }
 
+/** Replacement characters are gathered and turned into one string per run, not one piece each. */
+const PENDING_FLUSH = 4096;
+/** Gaps up to this length between replacements are gathered with them. */
+const SHORT_COPY = 24;
+
 class NormalisationBuilder {
   private readonly pieces: string[] = [];
+  /** Character codes of replacements not yet turned into a piece. */
+  private readonly pending: number[] = [];
   private normLength = 0;
   readonly segments: Segment[] = [{ normStart: 0, origStart: 0, origLength: -1 }];
 
@@ -116,7 +129,14 @@ class NormalisationBuilder {
   copy(from: number, to: number): void {
     if (to <= from) return;
     this.continueLinearAt(from);
-    this.pieces.push(this.original.slice(from, to));
+    if (to - from <= SHORT_COPY) {
+      // Between close replacements: one piece per short gap would be mostly overhead.
+      for (let at = from; at < to; at++) this.pending.push(this.original.charCodeAt(at));
+      if (this.pending.length >= PENDING_FLUSH) this.flushPending();
+    } else {
+      this.flushPending();
+      this.pieces.push(this.original.slice(from, to));
+    }
     this.normLength += to - from;
   }
 
@@ -128,7 +148,8 @@ class NormalisationBuilder {
     } else if (replacement.length > 0) {
       this.segments.push({ normStart: this.normLength, origStart: from, origLength: length });
     }
-    this.pieces.push(replacement);
+    for (let index = 0; index < replacement.length; index++) this.pending.push(replacement.charCodeAt(index));
+    if (this.pending.length >= PENDING_FLUSH) this.flushPending();
     this.normLength += replacement.length;
   }
 
@@ -141,7 +162,14 @@ class NormalisationBuilder {
     this.segments.push({ normStart: this.normLength, origStart: origOffset, origLength: -1 });
   }
 
+  private flushPending(): void {
+    if (this.pending.length === 0) return;
+    this.pieces.push(String.fromCharCode.apply(null, this.pending));
+    this.pending.length = 0;
+  }
+
   finish(): string {
+    this.flushPending();
     return this.pieces.join('');
   }
 }
@@ -156,9 +184,15 @@ class SegmentMap implements NormalisedText {
     readonly text: string,
     segments: Segment[],
   ) {
-    this.normStarts = Int32Array.from(segments, (segment) => segment.normStart);
-    this.origStarts = Int32Array.from(segments, (segment) => segment.origStart);
-    this.origLengths = Int32Array.from(segments, (segment) => segment.origLength);
+    this.normStarts = new Int32Array(segments.length);
+    this.origStarts = new Int32Array(segments.length);
+    this.origLengths = new Int32Array(segments.length);
+    for (let index = 0; index < segments.length; index++) {
+      const segment = segments[index]!;
+      this.normStarts[index] = segment.normStart;
+      this.origStarts[index] = segment.origStart;
+      this.origLengths[index] = segment.origLength;
+    }
   }
 
   toOriginal(offset: number): number {
@@ -205,28 +239,61 @@ class IdentityMap implements NormalisedText {
   }
 }
 
+/**
+ * After one character needing work, the next few characters are checked by
+ * hand before going back to the regular expression: in text dense with
+ * symbols, one regular-expression call per character would dominate.
+ */
+const NEARBY_SEARCH = 24;
+
 /** Normalises `original`; see the module comment for what is rewritten. */
 export function normaliseText(original: string): NormalisedText {
   NEEDS_WORK.lastIndex = 0;
-  const first = NEEDS_WORK.exec(original);
-  if (first === null) return new IdentityMap(original);
+  let match = NEEDS_WORK.exec(original);
+  if (match === null) return new IdentityMap(original);
 
   const builder = new NormalisationBuilder(original);
+  const closers = new EmphasisClosers();
   let copiedUpTo = 0;
-  for (let match: RegExpExecArray | null = first; match !== null; match = NEEDS_WORK.exec(original)) {
-    const at = match.index;
-    if (at < copiedUpTo) continue;
+  let at = match.index;
+  while (at !== -1) {
     builder.copy(copiedUpTo, at);
-    copiedUpTo = rewriteAt(original, at, match[0].length, builder);
-    NEEDS_WORK.lastIndex = Math.max(NEEDS_WORK.lastIndex, copiedUpTo);
+    copiedUpTo = rewriteAt(original, at, builder, closers);
+    at = nextNeedingWorkNearby(original, copiedUpTo);
+    if (at === -1) {
+      NEEDS_WORK.lastIndex = copiedUpTo;
+      match = NEEDS_WORK.exec(original);
+      at = match === null ? -1 : match.index;
+    }
   }
   builder.copy(copiedUpTo, original.length);
   return new SegmentMap(original, builder.finish(), builder.segments);
 }
 
+/** The next offset within NEARBY_SEARCH characters that needs work, or -1 (the caller then asks NEEDS_WORK). */
+function nextNeedingWorkNearby(text: string, from: number): number {
+  const limit = Math.min(text.length, from + NEARBY_SEARCH);
+  for (let at = from; at < limit; at++) {
+    const code = text.charCodeAt(at);
+    if (code >= 128 || code === 42 || code === 95) return at;
+    if (code === 45 && isLineEndHyphen(text, at)) return at;
+  }
+  return -1;
+}
+
+/** An ASCII hyphen followed by optional spaces and a line break (what NEEDS_WORK matches for "-"). */
+function isLineEndHyphen(text: string, at: number): boolean {
+  let cursor = at + 1;
+  while (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 9) cursor++;
+  if (text.charCodeAt(cursor) === 13) cursor++;
+  return text.charCodeAt(cursor) === 10;
+}
+
 /** Rewrites the character(s) found at `at`; returns the original offset up to which input is consumed. */
-function rewriteAt(original: string, at: number, matchLength: number, builder: NormalisationBuilder): number {
+function rewriteAt(original: string, at: number, builder: NormalisationBuilder, closers: EmphasisClosers): number {
   const code = original.charCodeAt(at);
+
+  if (code === 42 || code === 95) return rewriteMarkerRun(original, at, builder, closers);
 
   // Hyphen (ASCII, soft or typographic) at a line end: join a word broken across lines.
   if (code === 45 || code === 0x00ad || code === 0x2010) {
@@ -236,8 +303,8 @@ function rewriteAt(original: string, at: number, matchLength: number, builder: N
       return joinedUpTo;
     }
     if (code === 45) {
-      builder.copy(at, at + matchLength);
-      return at + matchLength;
+      builder.copy(at, at + 1);
+      return at + 1;
     }
   }
 
@@ -266,6 +333,125 @@ function rewriteAt(original: string, at: number, matchLength: number, builder: N
 
   builder.copy(at, at + 1);
   return at + 1;
+}
+
+/** Longest emphasised span (between its markers) whose markers are dropped; "**Psychological safety**" fits. */
+const MAX_EMPHASIS_SPAN = 64;
+/** Longest marker run read as emphasis ("***" is bold italic). */
+const MAX_MARKER_RUN = 3;
+/** Most emphasis spans open at the same time (nesting is shallow in real text). */
+const MAX_OPEN_EMPHASIS = 4;
+
+/** Closing emphasis markers found ahead of the normalisation pass, to be dropped when it reaches them. */
+class EmphasisClosers {
+  private readonly positions: number[] = [];
+  private readonly lengths: number[] = [];
+
+  /** Length of the pending closing marker at `position` (removing it), or 0; forgets closers already passed. */
+  take(position: number): number {
+    for (let index = this.positions.length - 1; index >= 0; index--) {
+      const at = this.positions[index]!;
+      if (at > position) continue;
+      const length = at === position ? this.lengths[index]! : 0;
+      this.positions.splice(index, 1);
+      this.lengths.splice(index, 1);
+      if (length > 0) return length;
+    }
+    return 0;
+  }
+
+  has(position: number): boolean {
+    return this.positions.includes(position);
+  }
+
+  /** Records a closer; false when too many spans are open already. */
+  add(position: number, length: number): boolean {
+    if (this.positions.length >= MAX_OPEN_EMPHASIS) return false;
+    this.positions.push(position);
+    this.lengths.push(length);
+    return true;
+  }
+}
+
+/**
+ * A run of "*" or "_" at `at`. It is dropped when it closes an emphasis span
+ * opened earlier, or when it opens one: it follows neither a letter nor a
+ * digit, a non-space follows it, and a run of the same marker and length
+ * closes it on the same line within MAX_EMPHASIS_SPAN characters, with no
+ * space before it (and, for "_", no letter or digit after it, so snake_case
+ * and "η_p^2" stay). "*" may close inside a word ("*p*s", "*η*p2"), as in
+ * Markdown. Anything else (multiplication "2*3", "F_{1,44}", footnote stars
+ * "p < .05*", list bullets "* item") is copied unchanged.
+ */
+function rewriteMarkerRun(original: string, at: number, builder: NormalisationBuilder, closers: EmphasisClosers): number {
+  const marker = original.charCodeAt(at);
+  let runEnd = at + 1;
+  while (runEnd < original.length && original.charCodeAt(runEnd) === marker && runEnd - at <= MAX_MARKER_RUN) runEnd++;
+  const length = runEnd - at;
+
+  const closing = closers.take(at);
+  if (closing > 0) {
+    builder.replace(at, closing, '');
+    return at + closing;
+  }
+  if (length <= MAX_MARKER_RUN && !isWordCharacterBefore(original, at)) {
+    const closer = findEmphasisCloser(original, runEnd, marker, length);
+    if (closer !== -1 && !closers.has(closer) && closers.add(closer, length)) {
+      builder.replace(at, length, '');
+      return runEnd;
+    }
+  }
+  builder.copy(at, runEnd);
+  return runEnd;
+}
+
+/** Start of the run that closes an emphasis span whose text starts at `from`, or -1. */
+function findEmphasisCloser(text: string, from: number, marker: number, length: number): number {
+  const first = text.charCodeAt(from);
+  if (Number.isNaN(first) || isSpaceOrBreak(first)) return -1;
+  const limit = Math.min(text.length, from + MAX_EMPHASIS_SPAN);
+  let at = from + 1;
+  while (at < limit) {
+    const code = text.charCodeAt(at);
+    if (code === 10 || code === 13) return -1;
+    if (code !== marker) {
+      at++;
+      continue;
+    }
+    let runEnd = at + 1;
+    while (runEnd < limit + MAX_MARKER_RUN && text.charCodeAt(runEnd) === marker) runEnd++;
+    if (runEnd - at === length) {
+      // A run of the same length after a space cannot close this span but may open the next
+      // ("*a *b*"): leave it to that one, which also keeps this search short.
+      if (isSpaceOrBreak(text.charCodeAt(at - 1))) return -1;
+      if (marker === 42 || !isWordCharacterAt(text, runEnd)) return at;
+    }
+    at = runEnd;
+  }
+  return -1;
+}
+
+function isSpaceOrBreak(code: number): boolean {
+  return code === 32 || code === 9 || code === 10 || code === 13 || code === 0x00a0;
+}
+
+const LETTER_OR_DIGIT = /[\p{L}\p{N}]/u;
+
+/** True when a letter or digit (of any script) ends just before `at`. */
+function isWordCharacterBefore(text: string, at: number): boolean {
+  if (at === 0) return false;
+  const code = text.charCodeAt(at - 1);
+  if (code < 128) return isDigitAt(text, at - 1) || isAsciiLetterAt(text, at - 1);
+  const start = code >= 0xdc00 && code <= 0xdfff && at >= 2 ? at - 2 : at - 1;
+  return LETTER_OR_DIGIT.test(String.fromCodePoint(text.codePointAt(start) ?? 32));
+}
+
+/** True when a letter or digit (of any script) starts at `at`. */
+function isWordCharacterAt(text: string, at: number): boolean {
+  if (at >= text.length) return false;
+  const code = text.charCodeAt(at);
+  if (code < 128) return isDigitAt(text, at) || isAsciiLetterAt(text, at);
+  return LETTER_OR_DIGIT.test(String.fromCodePoint(text.codePointAt(at) ?? 32));
 }
 
 function isDigitAt(text: string, at: number): boolean {

@@ -1,10 +1,9 @@
 /**
- * p-values and "not significant" marks: "p = .021", "ps < .001",
+ * p-values and "not significant" marks: "p = .021", "ps < .001", "p-values < .001",
  * "p ≤ .01" (normalised to "p <= .01"), "p-value = .03",
  * "p(two-tailed) = .03", "p = 1.2 x 10^-5", "p < 10^-4", "n.s.".
  */
 
-import { parseReportedNumber } from '../stats/reportedNumber.js';
 import {
   endsWord,
   isAsciiLetter,
@@ -13,13 +12,24 @@ import {
   skipSpaces,
   startsWord,
 } from './cursor.js';
-import type { ReportedNumber, ReportedP } from './types.js';
+import type { ReportedP } from './types.js';
 
 /** Longest parenthesised or subscripted qualifier read after "p" ("(two-tailed)", "_Holm"). */
 const MAX_QUALIFIER = 28;
 
-/** Reads a p-value at `position`; offsets are normalised-text offsets. */
-export function readPValue(text: string, position: number): ReportedP | null {
+/**
+ * Largest |value| read as a p-value written out of range. Right after a
+ * statistic, "p = 1.20" or "p = -.03" is an impossible p that the checks
+ * must see as written; anywhere else, "p = 12" is a page or a count.
+ */
+const MAX_OUT_OF_RANGE_P = 10;
+
+/**
+ * Reads a p-value at `position`; offsets are normalised-text offsets.
+ * With `asWritten` (for a p standing among the parts of a result), a value
+ * outside [0, 1] is kept, up to MAX_OUT_OF_RANGE_P, instead of being rejected.
+ */
+export function readPValue(text: string, position: number, asWritten = false): ReportedP | null {
   if (!startsWord(text, position)) return null;
   const letter = text.charCodeAt(position);
   if (letter !== 112 && letter !== 80) return null; // p, P
@@ -29,26 +39,30 @@ export function readPValue(text: string, position: number): ReportedP | null {
     // "ps"
     plural = true;
     at++;
+  } else if (text.charCodeAt(at) === 39 && text.charCodeAt(at + 1) === 115) {
+    // "p's"
+    plural = true;
+    at += 2;
   }
-  at = skipValueWord(text, at);
+  const valueWordEnd = skipValueWord(text, at);
+  // "p-values < .001"
+  if (valueWordEnd !== at && text.charCodeAt(valueWordEnd - 1) === 115) plural = true;
+  at = valueWordEnd;
   if (isAsciiLetter(text.charCodeAt(at))) return null; // "pp.", "power", "ps" inside a word
   at = skipQualifier(text, at);
 
   at = skipSpaces(text, at);
   const comparator = readComparator(text, at);
   if (comparator === null) return null;
-  at = skipSpaces(text, comparator.end);
-  const written = readScientificNumber(text, at);
-  if (written === null || !endsWord(text, written.end)) return null;
-  const value = written.barePower !== null ? powerOfTen(written.text, written.barePower) : parseReportedNumber(written.text);
-  // A probability above 1 is not a p-value ("p = 12" is a page or a count).
-  if (value === null || value.value < 0 || value.value > 1) return null;
-  return { comparator: comparator.comparator, value, plural, start: position, end: written.end };
-}
-
-/** "10^-4" written alone: mantissa 1, no decimals. */
-function powerOfTen(text: string, power: number): ReportedNumber {
-  return { value: Number(`1e${power}`), text, decimals: 0, exponent: power };
+  at = skipSpaces(text, at + comparator.length);
+  const read = readScientificNumber(text, at);
+  if (read === null || !endsWord(text, read.end)) return null;
+  const value = read.number;
+  // A probability above 1 is not a p-value ("p = 12" is a page or a count), unless it is read as written.
+  if (value.value < 0 || value.value > 1) {
+    if (!asWritten || Math.abs(value.value) >= MAX_OUT_OF_RANGE_P) return null;
+  }
+  return { comparator: comparator.comparator, value, plural, start: position, end: read.end };
 }
 
 /** Skips "-value", " value", "value" (from a joined line break), with an optional plural "s". */
@@ -56,6 +70,8 @@ function skipValueWord(text: string, position: number): number {
   let at = position;
   const joiner = text.charCodeAt(at);
   if (joiner === 45 || joiner === 32) at++;
+  const first = text.charCodeAt(at);
+  if (first !== 118 && first !== 86) return position; // v, V
   if (text.slice(at, at + 5).toLowerCase() !== 'value') return position;
   at += 5;
   if (text.charCodeAt(at) === 115) at++;

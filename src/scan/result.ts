@@ -29,11 +29,20 @@ const EFFECT_SEARCH_WINDOW = 60;
 const MAX_TAIL_PARTS = 12;
 /** Longest stretch of separators skipped between two parts. */
 const MAX_SEPARATOR_RUN = 24;
+/**
+ * Longest run of spaces and tabs, within one line, skipped between two parts
+ * in addition: the columns of a table typed with spaces ("F < 1      n.s.").
+ */
+const MAX_COLUMN_GAP = 200;
 
-/** Reads a full result starting at `position`, or null when no statistic starts there. */
-export function readResult(text: string, position: number): ResultDraft | null {
+/**
+ * Reads a full result starting at `position`, or null when no statistic
+ * starts there (or, when `comparatorAt` is given, when the statistic's
+ * comparator is not the one at that offset).
+ */
+export function readResult(text: string, position: number, comparatorAt = -1): ResultDraft | null {
   const head = readStatisticHead(text, position);
-  if (head === null) return null;
+  if (head === null || (comparatorAt !== -1 && head.comparatorAt !== comparatorAt)) return null;
   const draft: ResultDraft = { head, end: head.end, p: null, notSignificant: false, effects: [] };
   const directP = readTail(text, draft);
   if (head.needsP && !directP) return null;
@@ -55,7 +64,10 @@ function readTail(text: string, draft: ResultDraft): boolean {
 
   for (let parts = 0; parts < MAX_TAIL_PARTS; parts++) {
     if (last === 'effect') {
-      const interval = readInterval(text, skipOnlySpaces(text, position), true);
+      // Unlabelled brackets count only here, right after the effect size (a comma may stand between).
+      let intervalAt = skipOnlySpaces(text, position);
+      if (text.charCodeAt(intervalAt) === 44) intervalAt = skipOnlySpaces(text, intervalAt + 1);
+      const interval = readInterval(text, intervalAt, true);
       if (interval !== null) {
         attachInterval(draft, interval.interval, interval.end);
         position = interval.end;
@@ -66,7 +78,7 @@ function readTail(text: string, draft: ResultDraft): boolean {
     const next = skipSeparators(text, position);
     if (next >= text.length || startsResult(text, next)) break;
 
-    const p = readPValue(text, next);
+    const p = readTailPValue(text, next);
     if (p !== null) {
       // A second p-value belongs to something else.
       if (draft.p !== null) break;
@@ -100,6 +112,9 @@ function readTail(text: string, draft: ResultDraft): boolean {
     if (named !== null) {
       // A correlation is its own effect size; an "r = ..." after it is another correlation.
       if (named.kind === 'r' && draft.head.kind === 'r') break;
+      // One test has one effect size of each kind: a second one belongs to something else
+      // ("ηp2 = .25 has been corrected to ηp2 = .14").
+      if (named.kind !== null && hasEffectOfKind(draft, named.kind)) break;
       if (named.kind !== null) {
         draft.effects.push({
           kind: named.kind,
@@ -128,6 +143,38 @@ function readTail(text: string, draft: ResultDraft): boolean {
   return directP;
 }
 
+function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): boolean {
+  for (const effect of draft.effects) if (effect.kind === kind) return true;
+  return false;
+}
+
+/**
+ * A p-value among the parts of a result: read as written even when out of
+ * range ("p = 1.20"), and a plural one may be introduced by "all" or "both"
+ * ("all ps < .001").
+ */
+function readTailPValue(text: string, at: number): ReportedP | null {
+  const p = readPValue(text, at, true);
+  if (p !== null) return p;
+  const quantifier = quantifierLength(text, at);
+  if (quantifier === 0) return null;
+  const shared = readPValue(text, at + quantifier, true);
+  // "all p < .05" is as plural as "all ps < .05".
+  if (shared !== null) shared.plural = true;
+  return shared;
+}
+
+/** Length of "all " or "both " (with its space) at `at`; 0 otherwise. */
+function quantifierLength(text: string, at: number): number {
+  const first = text.charCodeAt(at);
+  if (first !== 97 && first !== 98 && first !== 65 && first !== 66) return 0; // a, b, A, B
+  if (!startsWord(text, at)) return 0;
+  for (const word of ['all ', 'both ']) {
+    if (text.slice(at, at + word.length).toLowerCase() === word) return word.length;
+  }
+  return 0;
+}
+
 /** Gives the last effect size its confidence interval, which ends at `end`. */
 function attachInterval(draft: ResultDraft, interval: ReportedInterval, end: number): void {
   const effect = draft.effects[draft.effects.length - 1];
@@ -148,7 +195,7 @@ function startsResult(text: string, at: number): boolean {
   if (head === null) return false;
   if (!head.needsP) return true;
   const next = skipSeparators(text, head.end);
-  return readPValue(text, next) !== null || readNotSignificant(text, next) !== -1;
+  return readTailPValue(text, next) !== null || readNotSignificant(text, next) !== -1;
 }
 
 /**
@@ -164,7 +211,7 @@ function findNearby(text: string, from: number, wantP: boolean): number {
     if (endsSentence(text, at)) return -1;
     if (!isAsciiLetter(code) || !startsWord(text, at)) continue;
     if (startsResult(text, at)) return -1;
-    if (wantP && readPValue(text, at) !== null) return at;
+    if (wantP && readTailPValue(text, at) !== null) return at;
     const named = readNameAndValue(text, at);
     if (named !== null && named.start === at && isUnambiguousEffectName(named.name)) return at;
   }
@@ -172,7 +219,7 @@ function findNearby(text: string, from: number, wantP: boolean): number {
 }
 
 /** A full stop, "!" or "?" followed by space, or a blank line: parts of a result do not cross it. */
-function endsSentence(text: string, at: number): boolean {
+export function endsSentence(text: string, at: number): boolean {
   const code = text.charCodeAt(at);
   if (code === 46 || code === 33 || code === 63) {
     const after = text.charCodeAt(at + 1);
@@ -195,14 +242,35 @@ function skipOnlySpaces(text: string, position: number): number {
 
 /**
  * Skips what stands between two parts of one result: spaces, line breaks,
- * commas, semicolons, colons, brackets, and the words "and" / "with".
+ * commas, semicolons, colons, brackets, the "|" of a Markdown table row, and
+ * the words "and" / "with". One
+ * run of spaces and tabs within a line may be longer (MAX_COLUMN_GAP), as
+ * between the columns of a table. A blank line is not skipped.
  */
 function skipSeparators(text: string, position: number): number {
-  const limit = Math.min(text.length, position + MAX_SEPARATOR_RUN);
+  let limit = Math.min(text.length, position + MAX_SEPARATOR_RUN);
   let at = position;
+  let columnGapUsed = false;
+  let lineBreaks = 0;
   while (at < limit) {
     const code = text.charCodeAt(at);
-    if (isSpaceCode(code) || code === 44 || code === 59 || code === 58 || code === 40 || code === 41 || code === 91 || code === 93) {
+    if (code === 10) {
+      // A blank line ends the paragraph, and parts of a result do not cross it.
+      if (++lineBreaks === 2) break;
+    } else if (!isSpaceCode(code)) {
+      lineBreaks = 0;
+    }
+    if ((code === 32 || code === 9) && !columnGapUsed) {
+      const runEnd = skipLineSpaces(text, at);
+      if (runEnd - at > 1) {
+        columnGapUsed = true;
+        limit = Math.min(text.length, Math.max(limit, runEnd + MAX_SEPARATOR_RUN));
+        at = runEnd;
+        continue;
+      }
+    }
+    // 124: "|", the cell border of a Markdown table.
+    if (isSpaceCode(code) || code === 44 || code === 59 || code === 58 || code === 40 || code === 41 || code === 91 || code === 93 || code === 124) {
       at++;
       continue;
     }
@@ -212,6 +280,18 @@ function skipSeparators(text: string, position: number): number {
       continue;
     }
     break;
+  }
+  return at;
+}
+
+/** End of the run of spaces and tabs at `position`, read no further than MAX_COLUMN_GAP characters. */
+function skipLineSpaces(text: string, position: number): number {
+  const limit = Math.min(text.length, position + MAX_COLUMN_GAP);
+  let at = position;
+  while (at < limit) {
+    const code = text.charCodeAt(at);
+    if (code !== 32 && code !== 9) break;
+    at++;
   }
   return at;
 }

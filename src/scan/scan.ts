@@ -2,24 +2,23 @@
  * The scanner's entry point: finds every reported test result in a
  * manuscript's text and reads the document-wide context the checks need.
  *
- * Design for linear time: one sticky-free global regular expression with no
- * quantifiers finds candidate statistic symbols (a letter standing alone
- * and followed by a bracket, digit, space or comparator); a hand-written
- * parser with bounded lookahead then reads the few characters after each
- * candidate. Text consumed by one result is never read again as a candidate.
+ * Design for linear time: comparators ("=", "<", ">") are found with
+ * indexOf; from each, a bounded look back finds a possible statistic symbol,
+ * and a hand-written parser with bounded lookahead reads the head and what
+ * follows it. Text consumed by one result is never read again.
  */
 
 import { readDocumentContext } from './context.js';
 import { normaliseText, type NormalisedText } from './normalise.js';
-import { readResult, type ResultDraft } from './result.js';
+import { startsWord } from './cursor.js';
+import { endsSentence, readResult, type ResultDraft } from './result.js';
 import type { ReportedEffect, ReportedP, ReportedResult, ScanOutput } from './types.js';
 
 /**
- * Candidate statistic symbols in the normalised text: F, t, r, z, Z standing
- * alone; "chi" (from χ, "chi2", "chi-square"); "X2" / "X^2".
+ * How far before its comparator a statistic's symbol may start:
+ * "chi-square(df = 2, N = 1,024) =" with generous spacing still fits.
  */
-const STATISTIC_ANCHOR =
-  /(?<![A-Za-z0-9_])(?:[FtrzZ](?=[\s(\[{_0-9=<>s])|[Cc]hi(?=[-\s2^sS])|[Xx]\^?2(?=[\s(\[{]))/g;
+const MAX_HEAD_BEFORE_COMPARATOR = 56;
 
 /** Scans a manuscript's text (any size) for reported results and document context. */
 export function scanText(text: string): ScanOutput {
@@ -33,16 +32,120 @@ export function scanText(text: string): ScanOutput {
 /** All results in document order, with offsets into the original text. */
 export function findResults(normalised: NormalisedText): ReportedResult[] {
   const source = normalised.text;
-  const anchor = new RegExp(STATISTIC_ANCHOR.source, STATISTIC_ANCHOR.flags);
   const results: ReportedResult[] = [];
-  for (let match = anchor.exec(source); match !== null; match = anchor.exec(source)) {
-    const draft = readResult(source, match.index);
+  const comparators = new ComparatorFinder(source);
+  const spans: number[] = [];
+  let sharedFloor = 0;
+  let consumedUpTo = 0;
+  for (let at = comparators.next(0); at !== -1; at = comparators.next(at + 1)) {
+    if (at < consumedUpTo) continue;
+    const draft = readResultEndingHeadAt(source, at, consumedUpTo);
     if (draft === null) continue;
     results.push(toReportedResult(draft, normalised));
-    // Whatever the result consumed (its p, effects, an "r" read as an effect size) is not a new candidate.
-    if (draft.end > anchor.lastIndex) anchor.lastIndex = draft.end;
+    spans.push(draft.head.start, draft.end);
+    if (draft.p?.plural === true) {
+      shareTheirP(source, results, spans, sharedFloor);
+      sharedFloor = results.length;
+    }
+    // Whatever the result consumed (its p, effects, an "r" read as an effect size) is not read again.
+    consumedUpTo = draft.end;
   }
   return results;
+}
+
+/** Most earlier results a plural p is shared with ("A, B, C and D, ps < .001"). */
+const MAX_SHARING_A_P = 12;
+
+/**
+ * The newest result carries a plural p ("F(1, 86) = 18.42 and F(1, 86) =
+ * 25.93, ps < .001"): every earlier result of the same sentence that has no
+ * p (nor "n.s.") of its own gets a copy of it. `spans` holds the normalised
+ * start and end of every result; results before `floor` already had their
+ * chance, so each gap between results is read at most once (linear time).
+ */
+function shareTheirP(source: string, results: ReportedResult[], spans: number[], floor: number): void {
+  const newest = results.length - 1;
+  const shared = results[newest]!.p!;
+  const lowest = Math.max(floor, newest - MAX_SHARING_A_P);
+  for (let index = newest - 1; index >= lowest; index--) {
+    if (containsSentenceEnd(source, spans[2 * index + 1]!, spans[2 * (index + 1)]!)) return;
+    const earlier = results[index]!;
+    if (earlier.p === null && !earlier.notSignificant) earlier.p = { ...shared, value: { ...shared.value } };
+  }
+}
+
+function containsSentenceEnd(source: string, from: number, to: number): boolean {
+  for (let at = from; at < to; at++) if (endsSentence(source, at)) return true;
+  return false;
+}
+
+/**
+ * Every statistic head contains a comparator ("=", "<", ">"), and prose
+ * rarely does, so comparators are the anchors: found with indexOf, which
+ * runs at memory speed, instead of testing every letter "t" or "r" of the
+ * text as a possible symbol.
+ */
+class ComparatorFinder {
+  private readonly nextOf = [0, 0, 0];
+  private static readonly SIGNS = ['=', '<', '>'];
+
+  constructor(private readonly text: string) {
+    this.nextOf = ComparatorFinder.SIGNS.map((sign) => text.indexOf(sign));
+  }
+
+  /** Offset of the first comparator at or after `from`, or -1. */
+  next(from: number): number {
+    let nearest = -1;
+    for (let index = 0; index < 3; index++) {
+      let found = this.nextOf[index]!;
+      if (found !== -1 && found < from) {
+        found = this.text.indexOf(ComparatorFinder.SIGNS[index]!, from);
+        this.nextOf[index] = found;
+      }
+      if (found !== -1 && (nearest === -1 || found < nearest)) nearest = found;
+    }
+    return nearest;
+  }
+}
+
+/** Letters a statistic symbol can start with: F t r z Z c C x X. */
+function canStartSymbol(code: number): boolean {
+  return code === 70 || code === 116 || code === 114 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88;
+}
+
+/**
+ * Characters that can stand between a statistic's first letter and its
+ * comparator: digits, spaces, brackets and separators, "=" (of "N = 120"),
+ * and the letters of the symbols and labels ("chi-squared", "Fs", "df", "N").
+ * Looking back from a comparator stops at any other character, so "p = .03"
+ * costs one step, not a scan of the whole window.
+ */
+const HEAD_CHARACTERS: Uint8Array = (() => {
+  const table = new Uint8Array(128);
+  for (const character of '0123456789 \t\n\r()[]{},;._^-=FtrzZcChiquaredsSfNnxX') table[character.charCodeAt(0)] = 1;
+  return table;
+})();
+
+/** Most symbol positions tried per comparator; a real head has one, "chi-square" has no other. */
+const MAX_SYMBOL_ATTEMPTS = 3;
+
+/**
+ * Looks back from the comparator at `comparatorAt` (no further than
+ * `notBefore`) for the statistic whose head it completes, nearest symbol
+ * first, and reads the whole result from there.
+ */
+function readResultEndingHeadAt(source: string, comparatorAt: number, notBefore: number): ResultDraft | null {
+  const lowest = Math.max(notBefore, comparatorAt - MAX_HEAD_BEFORE_COMPARATOR);
+  let attempts = 0;
+  for (let at = comparatorAt - 1; at >= lowest; at--) {
+    const code = source.charCodeAt(at);
+    if (code >= 128 || HEAD_CHARACTERS[code] === 0) return null;
+    if (!canStartSymbol(code) || !startsWord(source, at)) continue;
+    const draft = readResult(source, at, comparatorAt);
+    if (draft !== null) return draft;
+    if (++attempts === MAX_SYMBOL_ATTEMPTS) return null;
+  }
+  return null;
 }
 
 function toReportedResult(draft: ResultDraft, normalised: NormalisedText): ReportedResult {
@@ -63,10 +166,15 @@ function toReportedResult(draft: ResultDraft, normalised: NormalisedText): Repor
   };
 }
 
+/** Moves a draft's offsets to the original text in place (the draft is not used again). */
 function mapP(p: ReportedP, normalised: NormalisedText): ReportedP {
-  return { ...p, start: normalised.toOriginal(p.start), end: normalised.toOriginalEnd(p.end) };
+  p.start = normalised.toOriginal(p.start);
+  p.end = normalised.toOriginalEnd(p.end);
+  return p;
 }
 
 function mapEffect(effect: ReportedEffect, normalised: NormalisedText): ReportedEffect {
-  return { ...effect, start: normalised.toOriginal(effect.start), end: normalised.toOriginalEnd(effect.end) };
+  effect.start = normalised.toOriginal(effect.start);
+  effect.end = normalised.toOriginalEnd(effect.end);
+  return effect;
 }

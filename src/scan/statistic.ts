@@ -7,12 +7,12 @@
  * few dozen characters, so each candidate costs a constant amount of work.
  */
 
-import { parseReportedNumber } from '../stats/reportedNumber.js';
 import {
   isAsciiDigit,
   isAsciiLetter,
+  plainNumber,
   readComparator,
-  readPlainNumber,
+  readNumber,
   skipSpaces,
   startsWord,
 } from './cursor.js';
@@ -23,6 +23,8 @@ export interface StatisticHead {
   /** Normalised offsets of the symbol's first character and the value's end. */
   start: number;
   end: number;
+  /** Normalised offset of the comparator ("=" in "F(1, 44) = 5.1"). */
+  comparatorAt: number;
   df: ReportedNumber[];
   sampleSize: ReportedNumber | null;
   value: ReportedNumber;
@@ -35,7 +37,10 @@ export interface StatisticHead {
   needsP: boolean;
 }
 
-/** Smallest flattened subscript df accepted for t without a p-value ("t28 = 2.1"; "t1 = 0.5" is a time point). */
+/**
+ * Smallest flattened subscript df accepted for t without a p-value ("t28 = 2.1";
+ * "t1 = 0.5" is a time point), and for r at all (see readSubscriptDf).
+ */
 const MIN_BARE_SUBSCRIPT_DF = 5;
 
 interface SymbolRead {
@@ -106,10 +111,6 @@ function chiSquareLetterX(text: string, position: number): SymbolRead | null {
   return { kind: 'chi2', end: at + 1, requiresBracketedDf: true };
 }
 
-function toNumber(written: string): ReportedNumber | null {
-  return parseReportedNumber(written);
-}
-
 const OPENING_BRACKETS = new Set([40, 91, 123]); // ( [ {
 const CLOSING_BRACKETS = new Set([41, 93, 125]); // ) ] }
 
@@ -118,26 +119,22 @@ interface DfRead {
   sampleSize: ReportedNumber | null;
   end: number;
   bracketed: boolean;
-  /** True for a flattened subscript whose df is too small to be trusted without a p. */
+  /** True for a flattened subscript that is not trusted without a p ("t3", any "r18"). */
   doubtful: boolean;
 }
 
 /** An unsigned df, allowing a thousands separator when `allowThousands` ("t(1,024)"). */
 function readDf(text: string, position: number, allowThousands: boolean): { number: ReportedNumber; end: number } | null {
-  const read = readPlainNumber(text, position, false);
+  const read = readNumber(text, position, false);
   if (read === null) return null;
-  let written = read.text;
-  let end = read.end;
-  if (allowThousands && !written.includes('.') && written.length <= 3 && text.charCodeAt(end) === 44) {
-    const group = readPlainNumber(text, end + 1, false);
+  if (allowThousands && read.number.decimals === 0 && read.number.text.length <= 3 && text.charCodeAt(read.end) === 44) {
+    const group = readNumber(text, read.end + 1, false);
     const closes = group !== null && CLOSING_BRACKETS.has(text.charCodeAt(group.end));
-    if (group !== null && closes && group.text.length === 3 && !group.text.includes('.')) {
-      written += group.text;
-      end = group.end;
+    if (group !== null && closes && group.number.text.length === 3 && group.number.decimals === 0) {
+      return { number: plainNumber(read.number.text + group.number.text, 0), end: group.end };
     }
   }
-  const number = toNumber(written);
-  return number === null ? null : { number, end };
+  return read;
 }
 
 /** Skips an optional "df =" or "df:" label inside the brackets. */
@@ -188,31 +185,43 @@ function readSampleSizeLabel(text: string, position: number): { number: Reported
   let at = skipSpaces(text, position + 1);
   if (text.charCodeAt(at) !== 61) return null;
   at = skipSpaces(text, at + 1);
-  const read = readPlainNumber(text, at, false);
+  const read = readNumber(text, at, false);
   if (read === null) return null;
-  let written = read.text;
+  let written = read.number.text;
   let end = read.end;
   // Thousands groups: "1,024" (at most two groups keeps this bounded).
-  for (let groups = 0; groups < 2 && text.charCodeAt(end) === 44 && !written.includes('.'); groups++) {
-    const group = readPlainNumber(text, end + 1, false);
-    if (group === null || group.text.length !== 3 || group.text.includes('.')) break;
-    written += group.text;
+  for (let groups = 0; groups < 2 && text.charCodeAt(end) === 44 && read.number.decimals === 0; groups++) {
+    const group = readNumber(text, end + 1, false);
+    if (group === null || group.number.text.length !== 3 || group.number.decimals > 0) break;
+    written += group.number.text;
     end = group.end;
   }
-  const number = toNumber(written);
-  return number === null ? null : { number, end };
+  return { number: written === read.number.text ? read.number : plainNumber(written, 0), end };
 }
 
 /**
  * Degrees of freedom flattened from a subscript by PDF extraction:
- * "F1,44" / "F1, 44" (the comma is required: "F1 = 0.83" is an F1 score) and
- * "t28".
+ * "F1,44" / "F1, 44" (the comma is required: "F1 = 0.83" is an F1 score),
+ * "t28" and "r18".
+ *
+ * A correlation's flattened df is read with more care, because "r" followed
+ * by digits is also a name: "r2" is r squared ("r²" is normalised to "r2",
+ * and extraction flattens it the same way), "r1"/"r3" number correlations,
+ * "r12.3" is a partial-correlation subscript. So "r" takes only a whole
+ * number of at least MIN_BARE_SUBSCRIPT_DF (never 2), and always needs a
+ * p-value right after it ("r18 = -.52, p = .019"). What remains ambiguous,
+ * "r12 = .34, p < .001" written for the correlation of variables 1 and 2, is
+ * rare in results sections; the flattened df form is read there.
  */
 function readSubscriptDf(text: string, position: number, kind: StatisticKind): DfRead | null {
-  if (kind !== 'F' && kind !== 't') return null;
+  if (kind !== 'F' && kind !== 't' && kind !== 'r') return null;
   if (!isAsciiDigit(text.charCodeAt(position))) return null;
   const first = readDf(text, position, false);
   if (first === null) return null;
+  if (kind === 'r') {
+    if (first.number.decimals > 0 || first.number.value < MIN_BARE_SUBSCRIPT_DF) return null;
+    return { df: [first.number], sampleSize: null, end: first.end, bracketed: false, doubtful: true };
+  }
   if (kind === 't') {
     const doubtful = first.number.value < MIN_BARE_SUBSCRIPT_DF;
     return { df: [first.number], sampleSize: null, end: first.end, bracketed: false, doubtful };
@@ -245,16 +254,14 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) return null;
   if (dfRead !== null) at = dfRead.end;
 
-  at = skipSpaces(text, at);
-  const comparator = readComparator(text, at);
+  const comparatorAt = skipSpaces(text, at);
+  const comparator = readComparator(text, comparatorAt);
   if (comparator === null) return null;
-  at = skipSpaces(text, comparator.end);
-  const valueText = readPlainNumber(text, at);
-  if (valueText === null) return null;
+  at = skipSpaces(text, comparatorAt + comparator.length);
+  const valueRead = readNumber(text, at);
+  if (valueRead === null) return null;
   // A value running into letters or digits is a unit or a label ("t = 5s"), not a statistic.
-  if (!endsValue(text, valueText.end)) return null;
-  const value = toNumber(valueText.text);
-  if (value === null) return null;
+  if (!endsValue(text, valueRead.end)) return null;
 
   const df = dfRead?.df ?? [];
   const needsP = needsPValue(symbol.kind, dfRead, comparator.comparator);
@@ -263,10 +270,11 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   return {
     kind: symbol.kind,
     start: position,
-    end: valueText.end,
+    comparatorAt: comparatorAt,
+    end: valueRead.end,
     df,
     sampleSize: dfRead?.sampleSize ?? null,
-    value,
+    value: valueRead.number,
     valueComparator: comparator.comparator,
     needsP,
   };

@@ -63,6 +63,23 @@ export interface ReportedEffect {
   end: number;
 }
 
+/** Columns an ANOVA (or t, r, chi-square) table may have, by meaning. */
+export type TableColumn = 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'statistic' | 'p' | 'partial-eta-squared' | 'eta-squared' | 'generalized-eta-squared' | 'omega-squared' | 'cohens-d' | 'r';
+
+/** Where a result read from a table row came from, so table checks can name the cell. */
+export interface TableRowOrigin {
+  /** 0-based index of the table in the document, in reading order. */
+  tableIndex: number;
+  /** Caption or title of the table, if any. */
+  caption: string | null;
+  /** The row's label as written ("Condition", "Group x Time"). */
+  rowLabel: string;
+  /** The row's numeric cells by meaning, with their offsets in the original text. */
+  cells: Partial<Record<TableColumn, ReportedNumber & { start: number; end: number }>>;
+  /** The error (residual, within) row the effect is tested against, when the table has one. */
+  errorRow: { rowLabel: string; cells: Partial<Record<TableColumn, ReportedNumber & { start: number; end: number }>> } | null;
+}
+
 export interface ReportedResult {
   kind: StatisticKind;
   /** The original text of the whole result, from the statistic's symbol to its last part. */
@@ -82,6 +99,8 @@ export interface ReportedResult {
   /** True when the result is marked "n.s." / "ns" instead of (or beside) a p. */
   notSignificant: boolean;
   effects: ReportedEffect[];
+  /** Set when the result was read from a table row rather than from running text. */
+  tableRow?: TableRowOrigin;
 }
 
 /** A sentence or phrase of the document that states something the checks need. */

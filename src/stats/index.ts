@@ -1,11 +1,12 @@
-/** The statistics core's public surface: one family per file, re-exported here. */
+// Public surface of the statistics core. Each family lives in its own file with its method and references.
 export { fUpperTail, fCdf } from './fDistribution.js';
-export { chiSquareUpperTail } from './chiSquareDistribution.js';
 export { tUpperTail, tTwoTailed } from './tDistribution.js';
+export { chiSquareUpperTail } from './chiSquareDistribution.js';
 export { zUpperTail, zTwoTailed } from './normalDistribution.js';
 export { rToT, rTwoTailed } from './correlation.js';
 export { noncentralFCdf, noncentralFUpperTail } from './noncentralF.js';
-export { partialEtaSquaredInterval } from './partialEtaSquaredInterval.js';
+export { studentizedRangeCdf, studentizedRangeUpperTail } from './studentizedRange.js';
+export { partialEtaSquaredInterval, noncentralityInterval } from './partialEtaSquaredInterval.js';
 export {
   partialEtaSquaredFromF,
   partialOmegaSquaredFromF,
@@ -14,4 +15,6 @@ export {
   cohensDFromTIndependent,
   cohensDzFromTPaired,
 } from './effectSizes.js';
-export { parseReportedNumber, roundingInterval, roundsTo, roundToDecimals, halfUnitInLastPlace } from './reportedNumber.js';
+export { fUpperTailRange, tTwoTailedRange, partialEtaSquaredRange } from './statisticRanges.js';
+export { monotoneImage, type NumberInterval } from './monotoneImage.js';
+export { findRootBrent, bracketDecreasingRoot, type BrentOptions } from './rootFinding.js';

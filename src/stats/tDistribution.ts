@@ -6,15 +6,16 @@ import { zTwoTailed, zUpperTail } from './normalDistribution.js';
  *
  * ## Method
  * P(|T| >= |t|) = I_x(df/2, 1/2) with x = df / (df + t^2) (Abramowitz &
- * Stegun 26.7.1 rewritten with 26.5.27 ... i.e. the standard t-to-beta
- * relation), evaluated through a directly computed incomplete beta tail at
+ * Stegun 26.7.1, expressed as an incomplete beta function), evaluated through a directly computed incomplete beta tail at
  * the ratio (df/|t|) : |t|, which neither overflows for huge t nor forms
  * 1 - x. The one-tailed probability is half of it for t >= 0 and one minus
  * half of it for t < 0 (that value is at least 1/2, so nothing cancels).
  * df = +Infinity is the normal limit.
  *
  * Edge cases: t = 0 gives 1 (two-tailed) and 1/2 (one-tailed); t = +-Infinity
- * gives 0 two-tailed; df <= 0 or NaN, or t NaN, gives NaN.
+ * gives 0 two-tailed; df <= 0 or NaN, or t NaN, gives NaN. For |t| beyond
+ * about 1e154 (df = 1) the ratio df/|t| : |t| makes x underflow and the
+ * result is 0 although the true p (about 2/(pi |t|)) is representable.
  *
  * ## References
  * - Abramowitz, M. & Stegun, I. A. (1964). Handbook of Mathematical

@@ -7,6 +7,8 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { scanText } from '../../src/scan/scan.js';
+import { auditText } from '../../src/audit.js';
+import { resolveConfig } from '../../src/checks/config.js';
 import type { ReportedResult, ScanOutput } from '../../src/scan/types.js';
 
 const DIR = join(dirname(fileURLToPath(import.meta.url)), 'labelled');
@@ -229,6 +231,49 @@ describe('labelled corpus: scanner recall, precision and field accuracy', () => 
     const passes = recall >= 0.99 && precision >= 0.99 && fieldAccuracy >= 0.98;
     // On failure the whole summary is printed, with every miss, false alarm and misread field.
     expect(passes ? 'pass' : summary).toEqual('pass');
+  });
+});
+
+describe('labelled corpus: verdicts', () => {
+  const config = resolveConfig({});
+  const verdicts = corpus.flatMap((ex) => {
+    const audit = auditText(ex.text, config, ex.file);
+    const used = new Set<number>();
+    return audit.statistics.flatMap((statistic) => {
+      const line = statistic.location.line;
+      const idx = ex.labels.results.findIndex(
+        (l, i) =>
+          !used.has(i) &&
+          l.line === line &&
+          l.kind === statistic.kind &&
+          statistic.value !== null &&
+          close(statistic.value, l.value) &&
+          l.df.length === statistic.df.length &&
+          l.df.every((d, j) => close(d, statistic.df[j]!)),
+      );
+      if (idx < 0) return [];
+      used.add(idx);
+      const label = ex.labels.results[idx]!;
+      return [{ where: `${ex.file}:${line} ${statistic.text.replace(/\s+/g, ' ')}`, label, findings: statistic.findings }];
+    });
+  });
+
+  it('gives no fail to a correctly reported result (rounding edge cases included)', () => {
+    const wronglyFailed = verdicts
+      .filter((v) => v.label.consistent && v.findings.some((f) => f.severity === 'fail'))
+      .map((v) => `${v.where}: ${v.findings.map((f) => f.message).join(' | ')}`);
+    expect(wronglyFailed).toEqual([]);
+  });
+
+  it('flags at least 95% of the inconsistent results', () => {
+    const inconsistent = verdicts.filter((v) => !v.label.consistent);
+    const unflagged = inconsistent.filter((v) => v.findings.length === 0).map((v) => v.where);
+    expect(inconsistent.length).toBeGreaterThan(30);
+    expect({ flagged: inconsistent.length - unflagged.length, of: inconsistent.length, unflagged }).toEqual({
+      flagged: expect.toSatisfy((n: number) => n >= 0.95 * inconsistent.length),
+      of: inconsistent.length,
+      unflagged: expect.any(Array),
+    });
   });
 });
 

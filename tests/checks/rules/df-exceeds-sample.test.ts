@@ -19,6 +19,13 @@ describe(`${rule}: must pass`, () => {
   it('repeated-measures F whose error df exceeds N', () => {
     expect(flagsOf(rule, { kind: 'F', df: ['2', '94'], value: '3.30', p: '= .041' }, total48, 'a repeated-measures ANOVA')).toEqual([]);
   });
+  it('an F whose error df fit a within-subject error term, df1 * (n - 1)', () => {
+    expect(flagsOf(rule, { kind: 'F', df: ['2', '94'], value: '3.30', p: '= .041' }, total48)).toEqual([]);
+  });
+  it('a subgroup count is not a total', () => {
+    const subgroup = emptyContext({ sampleSizes: [{ value: 17, text: '17 men', start: 0, end: 6 }] });
+    expect(flagsOf(rule, { kind: 't', df: ['28'], value: '2.10', p: '= .045' }, subgroup)).toEqual([]);
+  });
 });
 
 describe(`${rule}: must flag`, () => {

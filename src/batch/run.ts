@@ -1,0 +1,83 @@
+import { existsSync } from 'node:fs';
+import { readFile } from 'node:fs/promises';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
+import { resolveConfig } from '../checks/config.js';
+import type { DocumentOutput } from '../report/model.js';
+import { AuditCache } from './cache.js';
+import { auditFile } from './auditFile.js';
+import type { WorkerTask } from './worker.js';
+
+export interface BatchOptions {
+  files: readonly string[];
+  task: Omit<WorkerTask, 'path'>;
+  /** Worker threads; 1 audits in this thread. */
+  jobs: number;
+  cache: { store: AuditCache; fingerprint: string } | null;
+  /** Called once per document, in completion order, as soon as it is done. */
+  onDocument: (document: DocumentOutput, fromCache: boolean) => void;
+}
+
+/** The compiled worker module, or null when running from TypeScript sources (tests), where threads cannot load it. */
+function workerModule(): string | null {
+  const url = new URL('./worker.js', import.meta.url);
+  const path = fileURLToPath(url);
+  return existsSync(path) ? url.href : null;
+}
+
+async function cachedOrKey(
+  path: string,
+  cache: NonNullable<BatchOptions['cache']>,
+): Promise<{ document: DocumentOutput | null; key: string | null }> {
+  let content: Buffer;
+  try {
+    content = await readFile(path);
+  } catch {
+    return { document: null, key: null }; // the reader will report why
+  }
+  const key = AuditCache.key(content, cache.fingerprint);
+  return { document: await cache.store.get(key, path), key };
+}
+
+/**
+ * Audits many documents: cache hits first (in this thread, cheap), then the
+ * rest on a worker pool. Every document, readable or not, reaches onDocument
+ * exactly once.
+ */
+export async function runBatch(options: BatchOptions): Promise<void> {
+  const pending: { path: string; key: string | null }[] = [];
+  for (const path of options.files) {
+    if (!options.cache) {
+      pending.push({ path, key: null });
+      continue;
+    }
+    const { document, key } = await cachedOrKey(path, options.cache);
+    if (document) options.onDocument(document, true);
+    else pending.push({ path, key });
+  }
+  if (pending.length === 0) return;
+
+  const finish = async ({ key }: { key: string | null }, document: DocumentOutput): Promise<void> => {
+    if (key && options.cache) await options.cache.store.set(key, document);
+    options.onDocument(document, false);
+  };
+
+  const module = workerModule();
+  if (options.jobs <= 1 || pending.length === 1 || module === null) {
+    const config = resolveConfig(options.task.userConfig, options.task.configSource);
+    for (const item of pending) await finish(item, await auditFile(item.path, config, options.task.readOptions));
+    return;
+  }
+
+  const pool = new Piscina<WorkerTask, DocumentOutput>({
+    filename: module,
+    minThreads: Math.min(options.jobs, pending.length),
+    maxThreads: Math.min(options.jobs, pending.length),
+    idleTimeout: 1000,
+  });
+  try {
+    await Promise.all(pending.map(async (item) => finish(item, await pool.run({ ...options.task, path: item.path }))));
+  } finally {
+    await pool.destroy();
+  }
+}

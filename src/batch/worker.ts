@@ -1,0 +1,30 @@
+import { resolveConfig, type ResolvedConfig, type UserConfig } from '../checks/config.js';
+import type { ReadOptions } from '../documents/read.js';
+import type { DocumentOutput } from '../report/model.js';
+import { auditFile } from './auditFile.js';
+
+/** What the main thread sends for each document (plain data: it crosses a thread boundary). */
+export interface WorkerTask {
+  path: string;
+  userConfig: UserConfig;
+  configSource: string;
+  readOptions: ReadOptions;
+}
+
+// Resolving the config reads the rules catalogue from disk; do it once per worker and settings.
+let cachedKey = '';
+let cachedConfig: ResolvedConfig | null = null;
+
+function configFor(task: WorkerTask): ResolvedConfig {
+  const key = JSON.stringify(task.userConfig);
+  if (cachedConfig === null || key !== cachedKey) {
+    cachedConfig = resolveConfig(task.userConfig, task.configSource);
+    cachedKey = key;
+  }
+  return cachedConfig;
+}
+
+/** The worker pool's entry point: one document in, its audit out. */
+export default async function auditInWorker(task: WorkerTask): Promise<DocumentOutput> {
+  return auditFile(task.path, configFor(task), task.readOptions);
+}

@@ -1,0 +1,89 @@
+import { writeFileSync } from 'node:fs';
+import { Option, type Command } from 'commander';
+import { readUserConfigFile, resolveConfig, type ResolvedConfig, type UserConfig } from '../checks/config.js';
+import { formatConsole } from '../report/console.js';
+import { formatJson } from '../report/json.js';
+import type { Report } from '../report/model.js';
+
+/** Where the CLI reads and writes; tests pass their own. */
+export interface CliIo {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+  readStdin: () => Promise<string>;
+  /** Colour on the console report (a terminal without NO_COLOR). */
+  color: boolean;
+  /** Progress bars on stderr (a terminal). */
+  interactive?: boolean;
+}
+
+export const EXIT_CLEAN = 0;
+export const EXIT_FLAGGED = 1;
+export const EXIT_INPUT_ERROR = 2;
+
+/** An error the user can fix (bad option, missing file): printed briefly, exit code 2. */
+export class UsageError extends Error {}
+
+export type FailOn = 'fail' | 'warn' | 'never';
+export const reportFormats = ['text', 'json', 'jsonl', 'html', 'csv', 'md'] as const;
+export type ReportFormat = (typeof reportFormats)[number];
+
+export interface CommonOptions {
+  format: ReportFormat;
+  config?: string;
+  failOn: FailOn;
+  alpha?: string;
+  output?: string;
+}
+
+/** The settings as plain data (they cross into worker threads) and where they came from. */
+export function userConfigFrom(options: CommonOptions): { userConfig: UserConfig; source: string } {
+  const userConfig = options.config ? readUserConfigFile(options.config) : {};
+  if (options.alpha === undefined) return { userConfig, source: options.config ?? 'defaults' };
+  const alpha = Number(options.alpha);
+  if (!(alpha > 0 && alpha < 1)) throw new UsageError(`--alpha must be a number between 0 and 1, got "${options.alpha}"`);
+  return { userConfig: { ...userConfig, alpha }, source: options.config ?? 'command line' };
+}
+
+export function configFrom(options: CommonOptions): ResolvedConfig {
+  const { userConfig, source } = userConfigFrom(options);
+  return resolveConfig(userConfig, source);
+}
+
+/** 2 when a document could not be read; else 1 when a finding reaches the --fail-on severity; else 0. */
+export function exitCodeFor(report: Report, failOn: FailOn): number {
+  if (report.summary.unreadable > 0) return EXIT_INPUT_ERROR;
+  if (failOn === 'never') return EXIT_CLEAN;
+  const { fail, warn } = report.summary.findings;
+  return fail > 0 || (failOn === 'warn' && warn > 0) ? EXIT_FLAGGED : EXIT_CLEAN;
+}
+
+export function formatReport(report: Report, format: ReportFormat, color: boolean, showAll: boolean): string {
+  switch (format) {
+    case 'json':
+      return formatJson(report);
+    case 'jsonl':
+      return report.documents.map((d) => `${JSON.stringify(d)}\n`).join('');
+    case 'text':
+      return formatConsole(report, { color, showAll });
+    default:
+      throw new UsageError(`--format ${format} is not available yet`);
+  }
+}
+
+/** Writes the report to --output or stdout. Colour only on a terminal, never into a file. */
+export function writeReport(report: Report, options: CommonOptions, io: CliIo, showAll: boolean): void {
+  if (options.output) {
+    writeFileSync(options.output, formatReport(report, options.format, false, showAll));
+    return;
+  }
+  io.stdout(formatReport(report, options.format, io.color, showAll));
+}
+
+export function addCommonOptions(command: Command): Command {
+  return command
+    .addOption(new Option('-f, --format <format>', 'report format').choices(reportFormats).default('text'))
+    .option('-o, --output <file>', 'write the report to a file instead of standard output')
+    .option('-c, --config <file>', 'settings file (JSON) that switches rules off or changes their severity and options')
+    .addOption(new Option('--fail-on <severity>', 'lowest severity that makes the exit code 1').choices(['fail', 'warn', 'never']).default('fail'))
+    .option('--alpha <level>', 'significance level when a document declares none (default .05)');
+}

@@ -1,0 +1,27 @@
+import type { Command } from 'commander';
+import { buildReport } from '../audit.js';
+import { mergeDocuments, readJsonLines } from '../batch/jsonLines.js';
+import { addCommonOptions, exitCodeFor, UsageError, writeReport, type CliIo, type CommonOptions } from './common.js';
+
+export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
+  addCommonOptions(
+    program
+      .command('merge')
+      .description('join the JSON Lines outputs of several scans (for example shards) into one report')
+      .argument('<files...>', 'JSON Lines files written by scan --jsonl'),
+  )
+    .option('--all', 'list results without findings too (text format)')
+    .action((files: string[], options: CommonOptions & { all?: boolean }) => {
+      const documents = files.flatMap((file) => {
+        try {
+          return readJsonLines(file);
+        } catch (error) {
+          const code = (error as NodeJS.ErrnoException).code;
+          throw new UsageError(code === 'ENOENT' ? `${file}: file not found` : (error as Error).message);
+        }
+      });
+      const report = buildReport(mergeDocuments(documents));
+      writeReport(report, options, io, options.all ?? false);
+      setExitCode(exitCodeFor(report, options.failOn));
+    });
+}

@@ -1,0 +1,121 @@
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { Option, type Command } from 'commander';
+import { buildReport, unreadableDocument } from '../audit.js';
+import { AuditCache, settingsFingerprint } from '../batch/cache.js';
+import { collectInputs } from '../batch/inputs.js';
+import { JsonLinesWriter, mergeDocuments, readJsonLines } from '../batch/jsonLines.js';
+import { createProgress } from '../batch/progress.js';
+import { runBatch } from '../batch/run.js';
+import { inShard, parseShard } from '../batch/shard.js';
+import { resolveConfig } from '../checks/config.js';
+import type { ReadOptions } from '../documents/read.js';
+import type { DocumentOutput } from '../report/model.js';
+import { toolVersion } from '../version.js';
+import { addCommonOptions, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
+
+interface ScanOptions extends CommonOptions {
+  all?: boolean;
+  jobs?: string;
+  jsonl?: string;
+  resume?: boolean;
+  cache: boolean;
+  cacheDir: string;
+  shard?: string;
+  pdfEngine: NonNullable<ReadOptions['pdfEngine']>;
+  quiet?: boolean;
+}
+
+function parseJobs(text: string | undefined): number {
+  if (text === undefined) return availableParallelism();
+  const jobs = Number(text);
+  if (!Number.isInteger(jobs) || jobs < 1) throw new UsageError(`--jobs must be a whole number of at least 1, got "${text}"`);
+  return jobs;
+}
+
+function countFlags(document: DocumentOutput): { results: number; flags: number } {
+  return {
+    results: document.statistics.length,
+    flags: document.findings.length + document.statistics.reduce((n, s) => n + s.findings.length, 0),
+  };
+}
+
+export function registerScanCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
+  addCommonOptions(
+    program
+      .command('scan')
+      .description(
+        'audit every supported document (.txt .md .pdf .docx .html .xml .tex) in the given files and folders; @list.txt reads paths from a list file',
+      )
+      .argument('<paths...>', 'files, folders, or @file with one path per line'),
+  )
+    .option('--all', 'list results without findings too (text format)')
+    .option('-j, --jobs <n>', 'documents audited in parallel (default: the number of cores)')
+    .option('--jsonl <file>', 'write each document as one JSON line as soon as it is audited')
+    .option('--resume', 'skip documents already in the --jsonl file and append the rest')
+    .option('--no-cache', 'do not reuse or store audits of unchanged files')
+    .option('--cache-dir <folder>', 'where audits of unchanged files are kept', '.plumbline-cache')
+    .option('--shard <K/N>', 'audit only the K-th of N deterministic shares of the inputs (for batch arrays)')
+    .addOption(
+      new Option('--pdf-engine <engine>', 'PDF text extraction: pdftotext (poppler, faster) when installed, else pdf-parse')
+        .choices(['auto', 'pdf-parse', 'pdftotext'])
+        .default('auto'),
+    )
+    .option('-q, --quiet', 'no progress bar')
+    .action(async (paths: string[], options: ScanOptions) => {
+      const { userConfig, source } = userConfigFrom(options);
+      resolveConfig(userConfig, source); // fail early on bad settings, before any work
+      if (options.resume && !options.jsonl) throw new UsageError('--resume needs --jsonl <file>: the file to resume');
+      const shard = options.shard === undefined ? null : parseShard(options.shard);
+      if (typeof shard === 'string') throw new UsageError(shard);
+      const jobs = parseJobs(options.jobs);
+
+      const { files, missing } = await collectInputs(paths);
+      if (files.length === 0 && missing.length === 0) throw new UsageError(`no supported documents found in ${paths.join(', ')}`);
+      const inputs = [
+        ...missing.map((m) => ({ path: m.path, reason: m.reason })),
+        ...files.map((path) => ({ path, reason: null as string | null })),
+      ].filter((input) => shard === null || inShard(input.path, shard));
+
+      const previous = options.resume && options.jsonl && existsSync(options.jsonl) ? readJsonLines(options.jsonl) : [];
+      const done = new Set(previous.map((d) => d.path));
+      const writer = options.jsonl ? new JsonLinesWriter(options.jsonl, Boolean(options.resume)) : null;
+      const streamToStdout = options.format === 'jsonl' && !options.jsonl && !options.output;
+      const documents: DocumentOutput[] = [...previous];
+      const progress = createProgress(inputs.length - done.size, Boolean(io.interactive) && !options.quiet);
+      const totals = { results: 0, flags: 0 };
+      const emit = (document: DocumentOutput): void => {
+        documents.push(document);
+        writer?.write(document);
+        if (streamToStdout) io.stdout(`${JSON.stringify(document)}\n`);
+        const counts = countFlags(document);
+        totals.results += counts.results;
+        totals.flags += counts.flags;
+        progress.tick(totals);
+      };
+
+      try {
+        for (const input of inputs) if (input.reason !== null && !done.has(input.path)) emit(unreadableDocument(input.path, input.reason));
+        const readOptions: ReadOptions = { pdfEngine: options.pdfEngine };
+        await runBatch({
+          files: inputs.filter((i) => i.reason === null && !done.has(i.path)).map((i) => i.path),
+          task: { userConfig, configSource: source, readOptions },
+          jobs,
+          cache: options.cache
+            ? {
+                store: new AuditCache(options.cacheDir),
+                fingerprint: settingsFingerprint({ version: toolVersion(), userConfig, readOptions }),
+              }
+            : null,
+          onDocument: emit,
+        });
+      } finally {
+        progress.stop();
+        writer?.close();
+      }
+
+      const report = buildReport(mergeDocuments(documents));
+      if (!streamToStdout) writeReport(report, options, io, options.all ?? false);
+      setExitCode(exitCodeFor(report, options.failOn));
+    });
+}

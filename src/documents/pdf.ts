@@ -1,0 +1,196 @@
+import { spawn } from 'node:child_process';
+import { accessSync, constants } from 'node:fs';
+import { delimiter, join } from 'node:path';
+import { findReferenceListRegions } from './plainRegions.js';
+import type { DocumentText } from './types.js';
+
+/**
+ * PDF reader with two engines that give the same kind of text:
+ *
+ * - `pdf-parse` (pdf.js inside, pure JavaScript): always available.
+ * - `pdftotext` (poppler), spawned with `-raw`: text in the order the PDF's
+ *   content stream draws it, which is how pdf.js (inside pdf-parse) reads it
+ *   too, so both engines give the same text. Not `-layout`: it keeps the
+ *   physical layout, so a two-column page comes out with the columns
+ *   interleaved line by line, cutting results in two. Not the default mode
+ *   either: its column detection merged lines of neighbouring columns on the
+ *   two-column demo PDF whenever a paragraph ran on from one column into the
+ *   next. Typesetting programs (LaTeX, word processors, browsers) draw a page
+ *   column by column, so content order is reading order. One cost of `-raw`:
+ *   a raised superscript may land on the next line ("ηp\n2 = .11"). Every
+ *   page ends with a form feed, which gives the page boundaries.
+ *
+ * Both engines thus read a two-column article column by column. The reader then joins words hyphenated at a
+ * line end when the next line goes on in lower case ("recog-\nnition" ->
+ * "recognition"), keeps page boundaries (a form feed between pages) for
+ * `pageOf`, and marks the reference list found from its heading line.
+ *
+ * It does not otherwise rewrite the text: ligatures, odd minus signs and
+ * flattened sub/superscripts ("F1,44", "ηp2") are left to the scanner, which
+ * normalises Unicode itself and reads results split across lines.
+ * Tables are not rebuilt from the page (`tables` stays empty): their rows
+ * are in the text as the engine read them.
+ */
+
+export type PdfEngine = 'pdf-parse' | 'pdftotext';
+export type PdfEngineChoice = 'auto' | PdfEngine;
+
+export type PdfPagesOutcome = { ok: true; pages: string[] } | { ok: false; error: string };
+
+const ENCRYPTED = 'encrypted PDF: it needs a password to open; save a copy without a password (or print it to a new PDF) and read that';
+const NO_TEXT_LAYER = 'no text layer: the PDF seems to be scanned images; run OCR first';
+/** Below this many visible characters per page on average, a PDF is taken to be scanned images. */
+const MIN_CHARACTERS_PER_PAGE = 20;
+
+let pdftotextPath: string | null | undefined;
+
+/** Where `pdftotext` is on PATH, or null; looked up once per process. */
+export function findPdftotext(): string | null {
+  if (pdftotextPath !== undefined) return pdftotextPath;
+  pdftotextPath = null;
+  const names = process.platform === 'win32' ? ['pdftotext.exe', 'pdftotext'] : ['pdftotext'];
+  for (const directory of (process.env.PATH ?? '').split(delimiter).filter(Boolean)) {
+    for (const name of names) {
+      const candidate = join(directory, name);
+      try {
+        accessSync(candidate, constants.X_OK);
+        pdftotextPath = candidate;
+        return candidate;
+      } catch {
+        // not here; keep looking
+      }
+    }
+  }
+  return null;
+}
+
+/** `auto` takes pdftotext when it is installed (it is faster) and pdf-parse otherwise. */
+export function resolvePdfEngine(choice: PdfEngineChoice = 'auto'): PdfEngine {
+  if (choice !== 'auto') return choice;
+  return findPdftotext() !== null ? 'pdftotext' : 'pdf-parse';
+}
+
+/** Reads a PDF (whose bytes the caller has already checked start like a PDF). */
+export async function readPdf(path: string, bytes: Uint8Array, choice: PdfEngineChoice = 'auto'): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
+  if (!hasEndOfFileMarker(bytes)) return { ok: false, error: 'truncated PDF: the end-of-file marker is missing, so the file was cut short (an interrupted download or copy?)' };
+  const engine = resolvePdfEngine(choice);
+  const extracted = engine === 'pdftotext' ? await pagesWithPdftotext(path) : await pagesWithPdfParse(bytes);
+  if (!extracted.ok) return extracted;
+  if (extracted.pages.length === 0) return { ok: false, error: 'the PDF has no pages' };
+  if (looksScanned(extracted.pages)) return { ok: false, error: NO_TEXT_LAYER };
+  return { ok: true, document: pdfDocument(path, extracted.pages.map(dehyphenate)) };
+}
+
+/** A PDF ends with "%%EOF" (possibly followed by a little whitespace or junk); a cut file does not. */
+export function hasEndOfFileMarker(bytes: Uint8Array): boolean {
+  const tail = Buffer.from(bytes.subarray(Math.max(0, bytes.length - 4096))).toString('latin1');
+  return tail.includes('%%EOF');
+}
+
+function looksScanned(pages: readonly string[]): boolean {
+  const visible = pages.reduce((sum, page) => sum + page.replace(/\s+/g, '').length, 0);
+  return visible < MIN_CHARACTERS_PER_PAGE * pages.length;
+}
+
+/** Joins the pages with a form feed after each (as pdftotext writes them) and records where each starts. */
+export function pdfDocument(path: string, pages: readonly string[]): DocumentText {
+  const pageStarts: number[] = [];
+  let text = '';
+  for (const page of pages) {
+    pageStarts.push(text.length);
+    text += `${page.replace(/\s+$/, '')}\n\f`;
+  }
+  return { path, format: 'pdf', text, pageOf: (offset) => pageAt(pageStarts, offset, text.length), regions: findReferenceListRegions(text), tables: [] };
+}
+
+/** 1-based page holding `offset` (binary search over page starts); null outside the text. */
+export function pageAt(pageStarts: readonly number[], offset: number, textLength: number): number | null {
+  if (!Number.isInteger(offset) || offset < 0 || offset > textLength || pageStarts.length === 0) return null;
+  let low = 0;
+  let high = pageStarts.length - 1;
+  while (low < high) {
+    const middle = (low + high + 1) >> 1;
+    if (pageStarts[middle]! <= offset) low = middle;
+    else high = middle - 1;
+  }
+  return low + 1;
+}
+
+/** First parts of compounds whose hyphen is real even at a line end ("chi-square", "within-subjects"). */
+const COMPOUND_FIRST_PARTS = new Set(['chi', 'self', 'non', 'one', 'two', 'three', 'four', 'within', 'between', 'cross', 'follow', 'well', 'long', 'short', 'high', 'low', 'mixed', 'open', 'post', 'pre', 'semi', 'multi', 'co', 'counter', 'right', 'left', 'time', 'age', 'sex', 'first', 'second', 'third', 'full', 'half', 'small', 'large', 'mid', 'over', 'under', 'test', 'inter', 'intra']);
+
+/**
+ * Joins a word hyphenated at a line end when the next line goes on in lower
+ * case: "recog-\nnition of" -> "recognition\nof" (the line break moves after
+ * the joined word, so lines stay lines). A hyphen after a known first part
+ * of a compound is kept ("chi-\nsquare" -> "chi-square"). A hyphen after a
+ * digit or a single letter is never touched: "= -\n.32" stays a minus sign,
+ * "p-\nvalue" stays as written.
+ */
+export function dehyphenate(page: string): string {
+  return page.replace(/(\p{L}{2,})[-\u00AD\u2010]\n[ \t]*(\p{Ll}[\p{L}\p{M}'’]*)( ?)/gu, (_whole, first: string, rest: string, space: string) => {
+    const joiner = COMPOUND_FIRST_PARTS.has(first.toLowerCase()) ? '-' : '';
+    return `${first}${joiner}${rest}${space ? '\n' : ''}`;
+  });
+}
+
+async function pagesWithPdfParse(bytes: Uint8Array): Promise<PdfPagesOutcome> {
+  const { PDFParse, VerbosityLevel } = await import('pdf-parse');
+  // pdf.js may detach the buffer it is given; it gets a copy.
+  const parser = new PDFParse({ data: new Uint8Array(bytes), verbosity: VerbosityLevel.ERRORS });
+  try {
+    const result = await parser.getText({ pageJoiner: '' });
+    return { ok: true, pages: result.pages.map((page) => page.text) };
+  } catch (error) {
+    return { ok: false, error: describePdfParseError(error) };
+  } finally {
+    await parser.destroy().catch(() => undefined);
+  }
+}
+
+function describePdfParseError(error: unknown): string {
+  const name = error instanceof Error ? error.name : '';
+  const message = error instanceof Error ? error.message : String(error);
+  if (name === 'PasswordException' || /password/i.test(message)) return ENCRYPTED;
+  if (name === 'InvalidPDFException' || name === 'FormatError' || /invalid pdf|bad xref|xref|trailer|startxref/i.test(message)) return `corrupt PDF: its structure cannot be read (${message})`;
+  return `the PDF could not be read (${message})`;
+}
+
+/** Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form feeds. */
+async function pagesWithPdftotext(path: string): Promise<PdfPagesOutcome> {
+  const executable = findPdftotext();
+  if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
+  const run = await runProcess(executable, ['-raw', '-enc', 'UTF-8', '-eol', 'unix', path, '-']);
+  if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
+  if (run.code !== 0) return { ok: false, error: describePdftotextFailure(run.code, run.stderr, path) };
+  const pages = run.stdout.split('\f');
+  // pdftotext ends every page with a form feed, so the last piece is what follows the last page.
+  if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
+  return { ok: true, pages };
+}
+
+function describePdftotextFailure(code: number | null, stderr: string, path: string): string {
+  if (/password/i.test(stderr) || code === 3) return ENCRYPTED;
+  const detail = stderr.replaceAll(path, 'the file').trim().split('\n').slice(-2).join('; ');
+  if (code === 1) return `corrupt PDF: its structure cannot be read${detail ? ` (${detail})` : ''}`;
+  return `pdftotext failed (exit code ${code ?? 'none'}${detail ? `: ${detail}` : ''})`;
+}
+
+interface ProcessRun {
+  code: number | null;
+  stdout: string;
+  stderr: string;
+  spawnError: string | null;
+}
+
+function runProcess(executable: string, args: string[]): Promise<ProcessRun> {
+  return new Promise((resolve) => {
+    const child = spawn(executable, args, { stdio: ['ignore', 'pipe', 'pipe'] });
+    const out: Buffer[] = [];
+    const err: Buffer[] = [];
+    child.stdout.on('data', (chunk: Buffer) => out.push(chunk));
+    child.stderr.on('data', (chunk: Buffer) => err.push(chunk));
+    child.on('error', (error) => resolve({ code: null, stdout: '', stderr: '', spawnError: error.message }));
+    child.on('close', (code) => resolve({ code, stdout: Buffer.concat(out).toString('utf8'), stderr: Buffer.concat(err).toString('utf8'), spawnError: null }));
+  });
+}

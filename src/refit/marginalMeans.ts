@@ -1,0 +1,287 @@
+import { studentizedRangeUpperTail } from '../stats/studentizedRange.js';
+import { tTwoTailed, tUpperTail } from '../stats/tDistribution.js';
+import { RefitError } from './errors.js';
+import type { FittedModel } from './model.js';
+import { studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
+
+/**
+ * Estimated marginal means, pairwise comparisons and planned contrasts.
+ *
+ * ## Method
+ * Reference grid: every combination of the levels of the requested factors;
+ * the other factors in the model are averaged with equal weights over their
+ * levels, and covariates are held at their overall means (products of
+ * covariates at the product of the means). A marginal mean is L'b, where L
+ * is the average design row over the grid points that share the requested
+ * levels and b the least-squares coefficients, with standard error
+ * sqrt(MSE L'(X'X)^{-1}L) computed as ||R^{-T} L|| from the triangular
+ * factor (no inverse is formed) and the residual degrees of freedom.
+ * Comparisons and contrasts are the same linear functions of b with L
+ * replaced by differences or weighted sums of the means' L vectors.
+ * Adjustments: Bonferroni (p m, capped at 1), Holm (step-down, monotone),
+ * Tukey (studentized range with k = number of means, Tukey-Kramer for
+ * unequal precision: p = P(Q > |t| sqrt 2)).
+ *
+ * ## References
+ * - Searle, S. R., Speed, F. M. & Milliken, G. A. (1980). Population
+ *   marginal means in the linear model: an alternative to least squares
+ *   means. The American Statistician 34(4), 216-221.
+ * - Holm, S. (1979). A simple sequentially rejective multiple test
+ *   procedure. Scandinavian Journal of Statistics 6(2), 65-70.
+ * - Kramer, C. Y. (1956). Extension of multiple range tests to group means
+ *   with unequal numbers of replications. Biometrics 12(3), 307-310.
+ */
+
+export interface MarginalMean {
+  /** Level code of each requested factor, by factor name. */
+  levels: Record<string, string>;
+  /** e.g. "group=hi, dose=2" (labels from the description when given). */
+  label: string;
+  emmean: number;
+  se: number;
+  df: number;
+  lower: number;
+  upper: number;
+}
+
+export type Adjustment = 'none' | 'bonferroni' | 'holm' | 'tukey';
+
+export interface PairwiseComparison {
+  contrast: string;
+  estimate: number;
+  se: number;
+  df: number;
+  t: number;
+  /** Adjusted p (the unadjusted one when adjust is "none"). */
+  p: number;
+  pUnadjusted: number;
+  lower: number;
+  upper: number;
+}
+
+export type Alternative = 'two-sided' | 'greater' | 'less';
+
+export interface ContrastResult {
+  weights: number[];
+  estimate: number;
+  se: number;
+  df: number;
+  t: number;
+  p: number;
+  alternative: Alternative;
+  lower: number;
+  upper: number;
+}
+
+interface GridMean {
+  levels: number[];
+  l: Float64Array;
+  label: string;
+  codes: Record<string, string>;
+}
+
+function factorSlots(model: FittedModel, factors: string | readonly string[]): number[] {
+  const names = typeof factors === 'string' ? factors.split(':') : [...factors];
+  if (names.length === 0) throw new RefitError('INVALID_CONTRAST', 'Name at least one factor for marginal means.');
+  return names.map((name) => {
+    const slot = model.factorVars.findIndex((v) => v.name === name);
+    if (slot < 0) {
+      throw new RefitError(
+        'INVALID_CONTRAST',
+        `Marginal means: '${name}' is not a factor of the model (factors: ${model.factorVars.map((v) => v.name).join(', ') || 'none'}).`,
+        { column: name },
+      );
+    }
+    return slot;
+  });
+}
+
+/** Iterates over all level combinations of the given factor slots, first slot fastest. */
+function combinations(sizes: number[], visit: (idx: number[]) => void): void {
+  const idx = new Array<number>(sizes.length).fill(0);
+  for (;;) {
+    visit(idx.slice());
+    let k = 0;
+    while (k < idx.length && ++idx[k]! === sizes[k]!) idx[k++] = 0;
+    if (k === idx.length) return;
+  }
+}
+
+function gridMeans(model: FittedModel, slots: number[]): GridMean[] {
+  const others = model.factorVars.map((_, i) => i).filter((i) => !slots.includes(i));
+  const out: GridMean[] = [];
+  const p = model.columns.length;
+  combinations(
+    slots.map((s) => model.factorVars[s]!.levels.length),
+    (target) => {
+      const l = new Float64Array(p);
+      let count = 0;
+      combinations(
+        others.map((s) => model.factorVars[s]!.levels.length),
+        (rest) => {
+          const levels = new Array<number>(model.factorVars.length).fill(0);
+          slots.forEach((s, i) => (levels[s] = target[i]!));
+          others.forEach((s, i) => (levels[s] = rest[i]!));
+          const x = model.designRow(levels, model.numericMeans);
+          for (let j = 0; j < p; j++) l[j] = l[j]! + x[j]!;
+          count++;
+        },
+      );
+      for (let j = 0; j < p; j++) l[j] = l[j]! / count;
+      const codes: Record<string, string> = {};
+      const parts = slots.map((s, i) => {
+        const v = model.factorVars[s]!;
+        const code = v.levels[target[i]!]!;
+        codes[v.name] = code;
+        return `${v.name}=${v.labels[code] ?? code}`;
+      });
+      out.push({ levels: target, l, label: parts.join(', '), codes });
+    },
+  );
+  return out;
+}
+
+function linear(model: FittedModel, beta: Float64Array, l: Float64Array): { estimate: number; se: number } {
+  let est = 0;
+  for (let j = 0; j < l.length; j++) est += l[j]! * beta[j]!;
+  const mse = model.residualSS / model.residualDf;
+  return { estimate: est, se: Math.sqrt(mse * model.unscaledVariance(l)) };
+}
+
+/** Estimated marginal means of one factor or a combination ("a:b" or ["a", "b"]). */
+export function marginalMeans(model: FittedModel, factors: string | readonly string[], options: { level?: number } = {}): MarginalMean[] {
+  const level = options.level ?? 0.95;
+  const beta = model.coefficients();
+  const df = model.residualDf;
+  const tCrit = tQuantileUpper((1 - level) / 2, df);
+  return gridMeans(model, factorSlots(model, factors)).map((g) => {
+    const { estimate, se } = linear(model, beta, g.l);
+    const emmean = estimate + model.outcomeOrigin;
+    return { levels: g.codes, label: g.label, emmean, se, df, lower: emmean - tCrit * se, upper: emmean + tCrit * se };
+  });
+}
+
+/** Holm's step-down adjustment (monotone, capped at 1). */
+export function holmAdjust(p: readonly number[]): number[] {
+  const m = p.length;
+  const order = p.map((v, i) => ({ v, i })).sort((a, b) => a.v - b.v);
+  const out = new Array<number>(m);
+  let running = 0;
+  order.forEach(({ v, i }, rank) => {
+    running = Math.max(running, Math.min(1, (m - rank) * v));
+    out[i] = running;
+  });
+  return out;
+}
+
+/** All pairwise differences of the marginal means (first minus second, in grid order). */
+export function pairwiseComparisons(
+  model: FittedModel,
+  factors: string | readonly string[],
+  options: { adjust?: Adjustment; level?: number } = {},
+): PairwiseComparison[] {
+  const adjust = options.adjust ?? 'holm';
+  const level = options.level ?? 0.95;
+  const beta = model.coefficients();
+  const df = model.residualDf;
+  const means = gridMeans(model, factorSlots(model, factors));
+  const k = means.length;
+  const rows: Array<Omit<PairwiseComparison, 'p' | 'lower' | 'upper'>> = [];
+  for (let i = 0; i < k; i++) {
+    for (let j = i + 1; j < k; j++) {
+      const l = means[i]!.l.map((v, c) => v - means[j]!.l[c]!);
+      const { estimate, se } = linear(model, beta, l);
+      const t = estimate / se;
+      rows.push({ contrast: `${means[i]!.label} - ${means[j]!.label}`, estimate, se, df, t, pUnadjusted: tTwoTailed(t, df) });
+    }
+  }
+  const m = rows.length;
+  const raw = rows.map((r) => r.pUnadjusted);
+  let adjusted: number[];
+  let crit: number;
+  if (adjust === 'none') {
+    adjusted = raw;
+    crit = tQuantileUpper((1 - level) / 2, df);
+  } else if (adjust === 'bonferroni') {
+    adjusted = raw.map((p) => Math.min(1, p * m));
+    crit = tQuantileUpper((1 - level) / (2 * m), df);
+  } else if (adjust === 'holm') {
+    adjusted = holmAdjust(raw);
+    // Holm has no simultaneous intervals of its own; Bonferroni intervals are its usual companion.
+    crit = tQuantileUpper((1 - level) / (2 * m), df);
+  } else {
+    adjusted = rows.map((r) => studentizedRangeUpperTail(Math.abs(r.t) * Math.SQRT2, k, df));
+    crit = studentizedRangeQuantileUpper(1 - level, k, df) / Math.SQRT2;
+  }
+  return rows.map((r, i) => ({ ...r, p: adjusted[i]!, lower: r.estimate - crit * r.se, upper: r.estimate + crit * r.se }));
+}
+
+/**
+ * A planned contrast of the marginal means of `factors`: weights in grid
+ * order (an array) or by level code / label (an object). Weights must sum to
+ * zero. One-sided tests: "greater" tests estimate > 0, "less" estimate < 0.
+ */
+export function plannedContrast(
+  model: FittedModel,
+  factors: string | readonly string[],
+  weights: readonly number[] | Record<string, number>,
+  options: { alternative?: Alternative; level?: number } = {},
+): ContrastResult {
+  const alternative = options.alternative ?? 'two-sided';
+  const level = options.level ?? 0.95;
+  const means = gridMeans(model, factorSlots(model, factors));
+  let w: number[];
+  if (Array.isArray(weights)) {
+    w = [...(weights as readonly number[])];
+  } else {
+    const byKey = weights as Record<string, number>;
+    const keyOf = (g: GridMean) => Object.values(g.codes).join(':');
+    const labelOf = (g: GridMean) => g.label.replace(/^[^=]+=/, '');
+    for (const key of Object.keys(byKey)) {
+      if (!means.some((g) => keyOf(g) === key || labelOf(g) === key || g.label === key)) {
+        throw new RefitError('INVALID_CONTRAST', `Contrast weight for "${key}": no such level (levels: ${means.map(keyOf).join(', ')}).`);
+      }
+    }
+    w = means.map((g) => byKey[keyOf(g)] ?? byKey[labelOf(g)] ?? byKey[g.label] ?? 0);
+  }
+  if (w.length !== means.length) {
+    throw new RefitError('INVALID_CONTRAST', `The contrast has ${w.length} weights, but there are ${means.length} means (${means.map((g) => g.label).join('; ')}).`);
+  }
+  if (w.some((x) => !Number.isFinite(x)) || w.every((x) => x === 0)) {
+    throw new RefitError('INVALID_CONTRAST', 'Contrast weights must be finite numbers, not all zero.');
+  }
+  const sum = w.reduce((a, b) => a + b, 0);
+  const scale = w.reduce((a, b) => a + Math.abs(b), 0);
+  if (Math.abs(sum) > 1e-10 * scale) {
+    throw new RefitError('INVALID_CONTRAST', `Contrast weights must sum to zero (they sum to ${sum}); adjust them, e.g. [1, -0.5, -0.5].`);
+  }
+  const p = model.columns.length;
+  const l = new Float64Array(p);
+  means.forEach((g, i) => {
+    for (let j = 0; j < p; j++) l[j] = l[j]! + w[i]! * g.l[j]!;
+  });
+  const { estimate, se } = linear(model, model.coefficients(), l);
+  const df = model.residualDf;
+  const t = estimate / se;
+  let pValue: number;
+  let lower: number;
+  let upper: number;
+  if (alternative === 'two-sided') {
+    pValue = tTwoTailed(t, df);
+    const c = tQuantileUpper((1 - level) / 2, df);
+    lower = estimate - c * se;
+    upper = estimate + c * se;
+  } else {
+    const c = tQuantileUpper(1 - level, df);
+    if (alternative === 'greater') {
+      pValue = tUpperTail(t, df);
+      lower = estimate - c * se;
+      upper = Infinity;
+    } else {
+      pValue = tUpperTail(-t, df);
+      lower = -Infinity;
+      upper = estimate + c * se;
+    }
+  }
+  return { weights: w, estimate, se, df, t, p: pValue, alternative, lower, upper };
+}

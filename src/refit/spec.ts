@@ -1,0 +1,153 @@
+import { z } from 'zod';
+import { RefitError } from './errors.js';
+import { parseFormula, type ParsedFormula } from './formula.js';
+
+/**
+ * The analysis description: our own JSON format, validated with zod.
+ *
+ * ```json
+ * { "outcome": "score",
+ *   "factors": { "group": { "levels": [1, 2, 3], "labels": { "1": "control" } } },
+ *   "covariates": ["age"],
+ *   "missing": { "score": "-99", "age": ">=200", "group": [9] },
+ *   "rename": { "GRP": "group" },
+ *   "model": "score ~ group + age",
+ *   "type": 3, "coding": "sum" }
+ * ```
+ */
+
+const levelCode = z.union([z.string(), z.number()]);
+
+const missingCodes = z.union([
+  z.string().min(1),
+  z.number(),
+  z.array(z.union([z.number(), z.string()])).min(1),
+]);
+
+export const analysisSpecSchema = z
+  .object({
+    outcome: z.string().min(1).optional(),
+    factors: z
+      .record(
+        z.string(),
+        z
+          .object({
+            levels: z.array(levelCode).min(1).optional(),
+            labels: z.record(z.string(), z.string()).optional(),
+          })
+          .strict(),
+      )
+      .default({}),
+    covariates: z.array(z.string().min(1)).default([]),
+    missing: z.record(z.string(), missingCodes).default({}),
+    rename: z.record(z.string(), z.string().min(1)).default({}),
+    model: z.string().min(1),
+    type: z.union([z.literal(1), z.literal(2), z.literal(3)]).default(3),
+    coding: z.enum(['sum', 'treatment']).default('sum'),
+  })
+  .strict();
+
+export type AnalysisSpecInput = z.input<typeof analysisSpecSchema>;
+export type AnalysisSpec = z.output<typeof analysisSpecSchema>;
+
+/** A missing-value rule for one column: literal codes, closed ranges and comparisons. */
+export interface MissingRule {
+  /** Codes compared as text (after trimming), e.g. "9", "refused". */
+  text: Set<string>;
+  /** Codes compared as numbers. */
+  numbers: number[];
+  ranges: Array<[number, number]>;
+  comparisons: Array<{ op: '<' | '<=' | '>' | '>='; value: number }>;
+}
+
+const NUM = String.raw`[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?`;
+const RANGE_RE = new RegExp(`^(${NUM})\\s*(?:-|to|\\.\\.)\\s*(${NUM})$`);
+const CMP_RE = new RegExp(`^(<=|>=|<|>)\\s*(${NUM})$`);
+
+/** Parses "6,7,8", "6-8", ">=6", [6,7,8] or 9 into a rule; `field` names the spec field in errors. */
+export function parseMissingRule(codes: string | number | Array<string | number>, field: string): MissingRule {
+  const rule: MissingRule = { text: new Set(), numbers: [], ranges: [], comparisons: [] };
+  const pieces: Array<string | number> = Array.isArray(codes)
+    ? codes
+    : typeof codes === 'number'
+      ? [codes]
+      : codes.split(',').map((s) => s.trim()).filter((s) => s.length > 0);
+  for (const piece of pieces) {
+    if (typeof piece === 'number') {
+      rule.numbers.push(piece);
+      continue;
+    }
+    const s = piece.trim();
+    const cmp = CMP_RE.exec(s);
+    const range = RANGE_RE.exec(s);
+    if (cmp) {
+      rule.comparisons.push({ op: cmp[1] as '<', value: Number(cmp[2]) });
+    } else if (range) {
+      const lo = Number(range[1]);
+      const hi = Number(range[2]);
+      if (!(lo <= hi)) {
+        throw new RefitError('INVALID_SPEC', `${field}: range "${s}" has its lower end above its upper end; write it as "low-high".`, { field });
+      }
+      rule.ranges.push([lo, hi]);
+    } else if (s.length > 0) {
+      rule.text.add(s);
+      const n = Number(s);
+      if (Number.isFinite(n)) rule.numbers.push(n);
+    }
+  }
+  return rule;
+}
+
+/** True when the (trimmed, non-empty) cell text or its numeric value matches the rule. */
+export function isMissingCode(rule: MissingRule, text: string, value: number): boolean {
+  if (rule.text.has(text)) return true;
+  if (Number.isNaN(value)) return false;
+  for (const n of rule.numbers) if (n === value) return true;
+  for (const [lo, hi] of rule.ranges) if (value >= lo && value <= hi) return true;
+  for (const { op, value: v } of rule.comparisons) {
+    if (op === '<' ? value < v : op === '<=' ? value <= v : op === '>' ? value > v : value >= v) return true;
+  }
+  return false;
+}
+
+/** A validated analysis description with its formula parsed. */
+export interface ResolvedSpec extends AnalysisSpec {
+  outcome: string;
+  formula: ParsedFormula;
+  missingRules: Map<string, MissingRule>;
+}
+
+/** Validates a parsed JSON value; errors name the offending field. */
+export function parseAnalysisSpec(input: unknown): ResolvedSpec {
+  const result = analysisSpecSchema.safeParse(input);
+  if (!result.success) {
+    const issue = result.error.issues[0]!;
+    const field = issue.path.map(String).join('.') || '(top level)';
+    const extra = result.error.issues.length > 1 ? ` (and ${result.error.issues.length - 1} more problem(s))` : '';
+    throw new RefitError('INVALID_SPEC', `Analysis description, field "${field}": ${issue.message}${extra}.`, { field });
+  }
+  const spec = result.data;
+  const formula = parseFormula(spec.model);
+  if (spec.outcome !== undefined && spec.outcome !== formula.outcome) {
+    throw new RefitError(
+      'INVALID_SPEC',
+      `Analysis description, field "outcome": "${spec.outcome}" differs from the model's outcome "${formula.outcome}"; make them the same.`,
+      { field: 'outcome' },
+    );
+  }
+  for (const name of Object.keys(spec.factors)) {
+    if (spec.covariates.includes(name)) {
+      throw new RefitError('INVALID_SPEC', `Analysis description: "${name}" is listed both under "factors" and "covariates"; keep one.`, {
+        field: `factors.${name}`,
+      });
+    }
+    if (name === formula.outcome) {
+      throw new RefitError('INVALID_SPEC', `Analysis description: the outcome "${name}" cannot also be a factor.`, { field: `factors.${name}` });
+    }
+  }
+  const missingRules = new Map<string, MissingRule>();
+  for (const [column, codes] of Object.entries(spec.missing)) {
+    missingRules.set(column, parseMissingRule(codes, `missing.${column}`));
+  }
+  return { ...spec, outcome: formula.outcome, formula, missingRules };
+}

@@ -1,0 +1,102 @@
+import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+
+/**
+ * A Markdown summary to paste into a review: the totals, then, for each
+ * document with flags, its flagged results (location, the result as printed,
+ * severity, rule and message); one line for each document without flags and
+ * for each unreadable document; the caution last. Text from documents is
+ * kept inert: results and paths go in code spans, messages are escaped so
+ * that they cannot form links, emphasis or HTML.
+ */
+
+/**
+ * A code span that holds any text: the fence is one backtick longer than the
+ * longest run of backticks inside, and a space pads text that starts or ends
+ * with a backtick (CommonMark strips one such space on each side).
+ */
+export function codeSpan(text: string): string {
+  const flat = text.replace(/\s+/g, ' ').trim();
+  const longest = Math.max(0, ...(flat.match(/`+/g) ?? []).map((run) => run.length));
+  const fence = '`'.repeat(longest + 1);
+  const pad = flat.startsWith('`') || flat.endsWith('`') ? ' ' : '';
+  return `${fence}${pad}${flat}${pad}${fence}`;
+}
+
+/**
+ * Escapes text for inline Markdown: backslashes, backticks, emphasis,
+ * brackets, and the `<` and `&` that could open HTML or an entity. A plain
+ * "p < .05" stays readable.
+ */
+export function escapeMarkdown(text: string): string {
+  return text
+    .replace(/\s+/g, ' ')
+    .trim()
+    .replace(/[\\`*_[\]~|#]/g, (c) => `\\${c}`)
+    .replace(/<(?=[A-Za-z/!?])/g, '\\<')
+    .replace(/&(?=[#A-Za-z])/g, '\\&');
+}
+
+function where(statistic: StatisticOutput): string {
+  const page = statistic.location.page === null ? '' : `page ${statistic.location.page}, `;
+  return `${page}line ${statistic.location.line}, column ${statistic.location.column}`;
+}
+
+function plural(count: number, one: string, many = `${one}s`): string {
+  return `${count} ${count === 1 ? one : many}`;
+}
+
+function findingLine(finding: FindingOutput, indent: string): string {
+  const crosses = finding.crossesAlpha ? ' (changes the conclusion at alpha)' : '';
+  return `${indent}- **${finding.severity}** ${codeSpan(finding.rule)}${crosses}: ${escapeMarkdown(finding.message)}`;
+}
+
+function flaggedDocument(document: DocumentOutput): string[] {
+  const flagged = document.statistics.filter((s) => s.findings.length > 0);
+  const lines = [`### ${codeSpan(document.path)}`, '', `${plural(document.statistics.length, 'result')}, ${flagged.length} flagged.`, ''];
+  if (document.findings.length > 0) {
+    lines.push('- About the document as a whole:');
+    for (const finding of document.findings) lines.push(findingLine(finding, '  '));
+  }
+  for (const statistic of flagged) {
+    lines.push(`- ${where(statistic)}: ${codeSpan(statistic.text)}`);
+    for (const finding of statistic.findings) lines.push(findingLine(finding, '  '));
+  }
+  lines.push('');
+  return lines;
+}
+
+function hasFlags(document: DocumentOutput): boolean {
+  return document.findings.length > 0 || document.statistics.some((s) => s.findings.length > 0);
+}
+
+/** The Markdown summary of a report. */
+export function formatMarkdown(report: Report): string {
+  const { summary } = report;
+  const lines: string[] = ['## plumbline audit summary', ''];
+  const counts = `${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`;
+  lines.push(
+    `**Totals:** ${plural(summary.documents, 'document')} (${summary.checked} checked, ${summary.unreadable} unreadable), ` +
+      `${plural(summary.statistics, 'result')} found, ${summary.flaggedStatistics} flagged (${counts}); ` +
+      `${summary.crossesAlpha} ${summary.crossesAlpha === 1 ? 'flag changes' : 'flags change'} the conclusion at alpha.`,
+    '',
+  );
+
+  const flagged = report.documents.filter((d) => d.status === 'checked' && hasFlags(d));
+  const clean = report.documents.filter((d) => d.status === 'checked' && !hasFlags(d));
+  const unreadable = report.documents.filter((d) => d.status === 'unreadable');
+
+  for (const document of flagged) lines.push(...flaggedDocument(document));
+
+  if (clean.length > 0) {
+    lines.push('### Documents without flags', '');
+    for (const document of clean) lines.push(`- ${codeSpan(document.path)}: ${plural(document.statistics.length, 'result')}, none flagged.`);
+    lines.push('');
+  }
+  if (unreadable.length > 0) {
+    lines.push('### Unreadable documents', '');
+    for (const document of unreadable) lines.push(`- ${codeSpan(document.path)}: ${escapeMarkdown(document.error ?? 'no reason given')}`);
+    lines.push('');
+  }
+  lines.push(`> ${escapeMarkdown(report.caution)}`, '');
+  return lines.join('\n');
+}

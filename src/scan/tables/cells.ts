@@ -1,0 +1,165 @@
+/**
+ * Reading single table cells: numbers as printed (with comparators, minus
+ * glyphs, thousands separators and footnote marks) and column headers by
+ * meaning (the usual spellings of SS, df, MS, F, p and effect sizes).
+ *
+ * Every function here works on one cell, whose length is capped, and uses
+ * anchored regular expressions without nested repetition, so the cost per
+ * cell is bounded.
+ */
+
+import { normaliseText } from '../normalise.js';
+import { parseReportedNumber } from '../../stats/reportedNumber.js';
+import type { Comparator, EffectKind, ReportedNumber, StatisticKind } from '../types.js';
+
+/** Cells longer than this are text, not numbers or headers. */
+const MAX_CELL_LENGTH = 80;
+
+export type CellValue =
+  | { kind: 'empty' }
+  | { kind: 'ns' }
+  | { kind: 'text' }
+  | {
+      kind: 'number';
+      comparator: Comparator;
+      number: ReportedNumber;
+      /** Offsets of the number (comparator included) inside the cell string. */
+      start: number;
+      end: number;
+    };
+
+/** "—", "–", "-", "--", "." and "" mark an empty cell. */
+const EMPTY_CELL = /^[\s\u2014\u2013\u2012\u2212.\-]*$/;
+const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
+/**
+ * An optional comparator, an optional sign, digits (with thousands
+ * separators) and an optional exponent, then footnote marks (stars, daggers,
+ * one superscript letter). Groups: 1 comparator, 2 sign, 3 digits, 4 exponent.
+ */
+const NUMBER_CELL =
+  /^(?:p\s*)?(<=|>=|\u2264|\u2265|<|>|=)?\s*([-\u2212\u2013+]?)\s*(\d{1,3}(?:,\d{3})+(?:\.\d+)?|\d*\.?\d+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+
+const COMPARATORS: Record<string, Comparator> = {
+  '<': '<',
+  '>': '>',
+  '=': '=',
+  '<=': '<=',
+  '>=': '>=',
+  '\u2264': '<=',
+  '\u2265': '>=',
+};
+
+/** Reads one cell as written. */
+export function readCell(cell: string): CellValue {
+  if (cell.length > MAX_CELL_LENGTH) return { kind: 'text' };
+  if (EMPTY_CELL.test(cell)) return { kind: 'empty' };
+  const trimmed = cell.trim();
+  if (NOT_SIGNIFICANT.test(trimmed)) return { kind: 'ns' };
+  const match = NUMBER_CELL.exec(trimmed);
+  if (!match) return { kind: 'text' };
+  const [, comparatorText, signText = '', digits = '', exponentText] = match;
+  const sign = signText === '' || signText === '+' ? '' : '-';
+  const exponent = exponentText === undefined ? '' : `e${exponentText.replace('\u2212', '-')}`;
+  const number = parseReportedNumber(`${sign}${digits.replace(/,/g, '')}${exponent}`);
+  if (!number) return { kind: 'text' };
+  const leading = cell.length - cell.trimStart().length;
+  // The number's span: from the comparator (or sign, or first digit) to the last digit.
+  const firstAt = comparatorText !== undefined ? trimmed.indexOf(comparatorText) : signText !== '' ? trimmed.indexOf(signText) : trimmed.indexOf(digits);
+  const lastDigitEnd = exponentText !== undefined ? trimmed.lastIndexOf(exponentText) + exponentText.length : trimmed.indexOf(digits) + digits.length;
+  return {
+    kind: 'number',
+    comparator: comparatorText === undefined ? '=' : COMPARATORS[comparatorText]!,
+    number,
+    start: leading + Math.max(0, firstAt),
+    end: leading + lastDigitEnd,
+  };
+}
+
+/** True when the cell is a number (the only kind of cell that marks a data row). */
+export function isNumberCell(cell: string): boolean {
+  return readCell(cell).kind === 'number';
+}
+
+/** What a column holds, read from its header. */
+export type ColumnRole =
+  | { role: 'label' }
+  | { role: 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' }
+  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[] }
+  | { role: 'effect'; effect: EffectKind }
+  | { role: 'descriptive' }
+  | { role: 'unknown' };
+
+/**
+ * A header as a comparable key: normalised (Greek spelled out, super- and
+ * subscripts as digits), lower case, without markup characters, single spaces.
+ */
+export function headerKey(header: string): string {
+  if (header.length > MAX_CELL_LENGTH) return '';
+  return normaliseText(header)
+    .text.toLowerCase()
+    .replace(/[_^{}$\\*`]/g, '')
+    .replace(/\s+/g, ' ')
+    .trim();
+}
+
+const ROLE_BY_KEY = new Map<string, ColumnRole>();
+function put(keys: string[], role: ColumnRole): void {
+  for (const key of keys) ROLE_BY_KEY.set(key, role);
+}
+put(['source', 'sources', 'effect', 'effects', 'predictor', 'predictors', 'variable', 'variables', 'term', 'factor', 'source of variation', 'source of variance', 'comparison', 'contrast', 'measure', 'model', 'parameter', 'outcome', 'test', 'variable pair', 'association', 'item'], { role: 'label' });
+put(['ss', 'sum of squares', 'sums of squares', 'type iii ss', 'type iii sum of squares', 'type ii ss', 'type ii sum of squares', 'type i ss', 'type i sum of squares', 'sum sq', 'sum sq.', 'sumsq', 'ss effect'], { role: 'ss' });
+put(['df', 'd.f.', 'd.f', 'dfs', 'degrees of freedom', 'dof'], { role: 'df' });
+put(['df1', 'df 1', 'df effect', 'effect df', 'df num', 'num df', 'numdf', 'numerator df', 'df numerator', 'dfn', 'df hyp', 'df hypothesis', 'hypothesis df', 'dfeffect', 'dfnum'], { role: 'df1' });
+put(['df2', 'df 2', 'df error', 'error df', 'df den', 'den df', 'dendf', 'denominator df', 'df denominator', 'dfd', 'dfe', 'df residual', 'residual df', 'dferror', 'dfden', 'df res'], { role: 'df2' });
+put(['ms', 'mean square', 'mean squares', 'mean sq', 'mean sq.', 'meansq', 'ms effect'], { role: 'ms' });
+put(['p', 'p value', 'p-value', 'p-values', 'p values', 'sig', 'sig.', 'significance', 'pr(>f)', 'pr(>|t|)', 'pr(>chisq)', 'pr(>chi)', 'prob', 'prob.', 'prob > f', 'prob>f', 'p (two-tailed)', 'two-tailed p', 'p two-tailed', 'sig. (2-tailed)', 'p(two-tailed)', 'pvalue'], { role: 'p' });
+put(['n', 'sample size', 'total n'], { role: 'n' });
+put(['f', 'f ratio', 'f-ratio', 'f value', 'f-value', 'f statistic', 'f-statistic', 'f change', 'f-test', 'f test'], { role: 'statistic', kind: 'F', df: [] });
+put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test', 't ratio'], { role: 'statistic', kind: 't', df: [] });
+put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2'], { role: 'statistic', kind: 'chi2', df: [] });
+put(['r', "pearson's r", 'pearson r', 'pearson correlation', 'correlation'], { role: 'statistic', kind: 'r', df: [] });
+put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test'], { role: 'statistic', kind: 'z', df: [] });
+put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)'], { role: 'effect', effect: 'partial-eta-squared' });
+put(['eta2', 'eta 2', 'eta squared', 'eta-squared', 'eta'], { role: 'effect', effect: 'eta-squared' });
+put(['etag2', 'eta2g', 'eta g2', 'eta2 g', 'generalized eta squared', 'generalized eta2', 'generalised eta squared', 'generalised eta2', 'ges'], { role: 'effect', effect: 'generalized-eta-squared' });
+put(['omega2', 'omega 2', 'omega squared', 'omega-squared'], { role: 'effect', effect: 'omega-squared' });
+put(['omegap2', 'omega2p', 'partial omega2', 'partial omega squared'], { role: 'effect', effect: 'partial-omega-squared' });
+put(['d', "cohen's d", 'cohens d', 'cohen d', 'cohen\u2019s d', 'effect size d', 'dz', 'd z'], { role: 'effect', effect: 'cohens-d' });
+put(['g', "hedges' g", 'hedges g', "hedges's g"], { role: 'effect', effect: 'hedges-g' });
+put(['cohen\'s f', 'cohens f', 'f2'], { role: 'effect', effect: 'cohens-f' });
+put(['phi', "cramer's v", 'cramers v', 'v'], { role: 'effect', effect: 'cramers-v' });
+put(['m', 'mean', 'means', 'sd', 's.d.', 'se', 's.e.', 'sem', 'mean difference', 'mdiff', 'difference', 'b', 'beta', 'se b', 'estimate', 'std. error', 'standard error', 'min', 'max', 'range', 'median', 'mdn', 'ci', '95% ci', 'lower', 'upper', 'll', 'ul', '%', 'percent', 'm (sd)', 'mean (sd)', 'skew', 'kurtosis', 'alpha', 'ms error', 'mse'], { role: 'descriptive' });
+ROLE_BY_KEY.set('phi', { role: 'effect', effect: 'phi' });
+
+/** Bracketed df after a statistic symbol in a header: "F(1, 170)", "F (2, 57)", "t(58)", "chi2(2)". */
+const HEADER_WITH_DF = /^(f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)$/;
+
+/** The meaning of a column from its header text. */
+export function classifyHeader(header: string): ColumnRole {
+  const key = headerKey(header);
+  if (key === '') return { role: 'unknown' };
+  const known = ROLE_BY_KEY.get(key) ?? ROLE_BY_KEY.get(key.replace(/[.:]$/, ''));
+  if (known) return known.role === 'statistic' ? { ...known, df: [] } : known;
+  const withDf = HEADER_WITH_DF.exec(key);
+  if (withDf) {
+    const [, symbol = '', first = '', second] = withDf;
+    const kind: StatisticKind = symbol === 'f' ? 'F' : symbol === 't' ? 't' : symbol === 'r' ? 'r' : 'chi2';
+    const df = [first, second].filter((text): text is string => text !== undefined).map((text) => parseReportedNumber(text)!);
+    const expected = kind === 'F' ? 2 : 1;
+    if (df.length === expected) return { role: 'statistic', kind, df };
+  }
+  return { role: 'unknown' };
+}
+
+/** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
+export function isKnownHeader(key: string): boolean {
+  return ROLE_BY_KEY.has(key) || ROLE_BY_KEY.has(key.replace(/[.:]$/, '')) || HEADER_WITH_DF.test(key);
+}
+
+/** Longest header phrase, in words, in the vocabulary. */
+export const LONGEST_HEADER_WORDS = 5;
+
+/** The kind of statistic a column header names, or null. */
+export function statisticKindOf(role: ColumnRole): StatisticKind | null {
+  return role.role === 'statistic' ? role.kind : null;
+}

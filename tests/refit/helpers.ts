@@ -1,0 +1,23 @@
+import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
+
+/** Absolute path of a file under tests/fixtures/ (inside the repository). */
+export function fixturePath(relative: string): string {
+  return fileURLToPath(new URL(`../fixtures/${relative}`, import.meta.url));
+}
+
+export function loadJson<T>(relative: string): T {
+  return JSON.parse(readFileSync(fixturePath(relative), 'utf8')) as T;
+}
+
+/** |a - b| / |b| (|a| when b is 0). */
+export function relErr(a: number, b: number): number {
+  if (b === 0) return Math.abs(a);
+  return Math.abs(a - b) / Math.abs(b);
+}
+
+/** Number of agreeing significant digits, -log10(relative error) (capped at 17). */
+export function agreeingDigits(a: number, b: number): number {
+  const e = relErr(a, b);
+  return e === 0 ? 17 : Math.min(17, -Math.log10(e));
+}

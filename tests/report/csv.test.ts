@@ -1,0 +1,167 @@
+import Papa from 'papaparse';
+import { describe, expect, it } from 'vitest';
+import { auditText, buildReport, unreadableDocument } from '../../src/audit.js';
+import { resolveConfig } from '../../src/checks/config.js';
+import { comparatorWord, CSV_COLUMNS, formatCsv, neutraliseCell } from '../../src/report/csv.js';
+import type { Report } from '../../src/report/model.js';
+import { demoReport, hostileReport, HOSTILE_PATH } from '../fixtures/report/reports.js';
+
+const HEADER = CSV_COLUMNS.map((c) => c.name);
+
+function parse(csv: string): string[][] {
+  const parsed = Papa.parse<string[]>(csv, { header: false, skipEmptyLines: true, dynamicTyping: false });
+  expect(parsed.errors).toEqual([]);
+  return parsed.data;
+}
+
+function records(csv: string): Record<string, string>[] {
+  const [header, ...rows] = parse(csv);
+  return rows.map((row) => Object.fromEntries(header!.map((name, i) => [name, row[i]!])));
+}
+
+describe('formatCsv: shape', () => {
+  const report = demoReport();
+  const csv = formatCsv(report);
+
+  it('parses back to a header and one row per result, every row with every column', () => {
+    const rows = parse(csv);
+    expect(rows[0]).toEqual(HEADER);
+    expect(rows).toHaveLength(1 + report.summary.statistics);
+    for (const row of rows) expect(row).toHaveLength(HEADER.length);
+  });
+
+  it('carries the numbers of each result', () => {
+    const rows = records(csv);
+    const statistics = report.documents.flatMap((d) => d.statistics.map((s) => ({ d, s })));
+    rows.forEach((row, i) => {
+      const { d, s } = statistics[i]!;
+      expect(row.row).toBe('result');
+      expect(row.document).toBe(d.path);
+      expect(row.status).toBe('checked');
+      expect(row.line).toBe(String(s.location.line));
+      expect(row.column).toBe(String(s.location.column));
+      expect(row.page).toBe('');
+      expect(row.kind).toBe(s.kind);
+      expect(row.df1).toBe(s.df[0] === undefined ? '' : String(s.df[0]));
+      expect(row['statistic']).toBe(s.value === null ? '' : String(s.value));
+      expect(row['statistic comparator']).toBe(comparatorWord(s.valueComparator));
+      expect(row['reported p comparator']).toBe(s.p ? comparatorWord(s.p.comparator) : '');
+      expect(row['reported p']).toBe(s.p ? String(s.p.value) : '');
+      expect(row['recomputed p']).toBe(s.recomputed.p === null ? '' : String(s.recomputed.p));
+      expect(row['worst severity']).toBe(
+        s.findings.some((f) => f.severity === 'fail') ? 'fail' : s.findings.some((f) => f.severity === 'warn') ? 'warn' : s.findings.length ? 'note' : '',
+      );
+      expect(row['changes conclusion']).toBe(String(s.findings.some((f) => f.crossesAlpha)));
+      for (const finding of s.findings) {
+        expect(row.rules.split('; ')).toContain(finding.rule);
+        expect(row.messages).toContain(finding.message.replace(/\s+/g, ' ').trim());
+      }
+    });
+  });
+
+  it('reads as numbers in statistics software (numeric columns typed as numbers)', () => {
+    const typed = Papa.parse<Record<string, unknown>>(csv, { header: true, skipEmptyLines: true, dynamicTyping: true });
+    const evaluable = typed.data.filter((row) => row['recomputed p'] !== null);
+    expect(evaluable.length).toBeGreaterThan(0);
+    for (const row of evaluable) {
+      expect(typeof row['recomputed p']).toBe('number');
+      expect(typeof row.line).toBe('number');
+      expect(row.df1 === null || typeof row.df1 === 'number').toBe(true);
+      expect(row.statistic === null || typeof row.statistic === 'number').toBe(true);
+    }
+  });
+
+  it('writes comparators as words, so that no cell is a bare "="', () => {
+    const words = new Set(records(csv).flatMap((row) => [row['statistic comparator'], row['reported p comparator']]));
+    expect(words.has('equals')).toBe(true);
+    expect(words.has('below')).toBe(true);
+    expect([...words].every((w) => ['', 'equals', 'below', 'above', 'at most', 'at least'].includes(w!))).toBe(true);
+  });
+
+  it('writes effect sizes as a compact "kind=value; ..." cell', () => {
+    const withInterval = records(csv).find((row) => row['effect sizes'].includes('CI'));
+    expect(withInterval?.['effect sizes']).toMatch(/^partial-eta-squared=0\.\d+ \[90% CI 0\.\d+, 0\.\d+\]$/);
+  });
+});
+
+describe('formatCsv: other rows', () => {
+  it('writes an unreadable document as one row with its error, and a document with no result as one row', () => {
+    const config = resolveConfig({});
+    const report = buildReport([
+      unreadableDocument('scan.pdf', 'no text layer, a scanned image', 'pdf'),
+      auditText('No statistics here at all.', config, 'empty.txt'),
+    ]);
+    const rows = records(formatCsv(report));
+    expect(rows).toHaveLength(2);
+    expect(rows[0]).toMatchObject({ row: 'unreadable', document: 'scan.pdf', status: 'unreadable', format: 'pdf', note: 'no text layer, a scanned image', kind: '' });
+    expect(rows[1]).toMatchObject({ row: 'no results', document: 'empty.txt', status: 'checked' });
+  });
+
+  it('writes a finding about a whole document as its own row', () => {
+    const report = demoReport();
+    const document = report.documents[0]!;
+    document.findings.push({ rule: 'whole-document-rule', severity: 'warn', crossesAlpha: false, message: 'About the whole, document.', messageId: 'x', data: {} });
+    const rows = records(formatCsv(report)).filter((row) => row.row === 'document finding');
+    expect(rows).toEqual([expect.objectContaining({ document: document.path, rules: 'whole-document-rule', 'worst severity': 'warn', messages: 'warn whole-document-rule: About the whole, document.' })]);
+  });
+});
+
+describe('formatCsv: spreadsheet safety and quoting', () => {
+  it('neutralises cells that a spreadsheet would run as a formula', () => {
+    expect(neutraliseCell('=HYPERLINK("http://example.invalid","x")')).toBe(`'=HYPERLINK("http://example.invalid","x")`);
+    expect(neutraliseCell("+cmd|' /C calc'!A0")).toBe(`'+cmd|' /C calc'!A0`);
+    expect(neutraliseCell('-2+3')).toBe(`'-2+3`);
+    expect(neutraliseCell('@SUM(A1:A2)')).toBe(`'@SUM(A1:A2)`);
+    expect(neutraliseCell('\tx')).toBe(`'\tx`);
+    expect(neutraliseCell('\rx')).toBe(`'\rx`);
+    expect(neutraliseCell('F(2, 57) = 4.21')).toBe('F(2, 57) = 4.21');
+  });
+
+  it('neutralises formulas in paths, result texts, messages and errors, and the text still parses back', () => {
+    const config = resolveConfig({});
+    const base = auditText('Dose affected recall, F(2, 57) = 4.21, p = .002.', config, '=HYPERLINK("http://example.invalid/","click")');
+    const second = auditText('A test, t(40) = 2.10, p = .21.', config, "+cmd|' /C calc'!A0");
+    second.statistics[0]!.text = '=HYPERLINK("http://example.invalid/","x")';
+    second.statistics[0]!.recomputed.reason = '@SUM(1)';
+    const report = buildReport([base, second, unreadableDocument('-bad.pdf', '=1+2, "quoted", and\na new line', 'pdf')]);
+    const csv = formatCsv(report);
+    const rows = records(csv);
+    expect(rows).toHaveLength(3);
+    expect(rows[0]!.document).toBe(`'=HYPERLINK("http://example.invalid/","click")`);
+    expect(rows[1]!.document).toBe(`'+cmd|' /C calc'!A0`);
+    expect(rows[1]!['result text']).toBe(`'=HYPERLINK("http://example.invalid/","x")`);
+    expect(rows[2]!.document).toBe(`'-bad.pdf`);
+    expect(rows[2]!.note).toBe(`'=1+2, "quoted", and a new line`);
+    for (const row of parse(csv)) {
+      for (const cell of row) expect(cell, cell).not.toMatch(/^[=+\-@\t\r]/);
+    }
+  });
+
+  it('keeps negative numbers in numeric columns as numbers', () => {
+    const config = resolveConfig({});
+    const report = buildReport([auditText('Scores fell, t(38) = -2.21, p = .033.', config, 'negative.txt')]);
+    const csv = formatCsv(report);
+    const [row] = records(csv);
+    expect(row!.statistic).toBe('-2.21');
+    expect(csv).toContain(',-2.21,');
+    const typed = Papa.parse<Record<string, unknown>>(csv, { header: true, skipEmptyLines: true, dynamicTyping: true });
+    expect(typed.data[0]!.statistic).toBe(-2.21);
+    // The text column with the same number is text, so it is neutralised only when it starts with a sign.
+    expect(row!['result text']).toBe('t(38) = -2.21, p = .033');
+  });
+
+  it('quotes commas, quotes and markup in the hostile manuscript so that every row has every column', () => {
+    const report = hostileReport();
+    const csv = formatCsv(report);
+    const rows = parse(csv);
+    const expectedRows = report.documents.reduce((n, d) => n + Math.max(1, d.statistics.length + d.findings.length), 0);
+    expect(rows).toHaveLength(1 + expectedRows);
+    for (const row of rows) expect(row).toHaveLength(HEADER.length);
+    expect(records(csv)[0]!.document).toBe(HOSTILE_PATH);
+  });
+
+  it('writes nothing but the header for an empty report', () => {
+    const report: Report = buildReport([]);
+    expect(parse(formatCsv(report))).toEqual([HEADER]);
+  });
+});

@@ -1,0 +1,144 @@
+import { describe, expect, it } from 'vitest';
+import { scanText } from '../../src/scan/scan.js';
+import { slice } from './helpers.js';
+
+function contextOf(text: string) {
+  return scanText(text).context;
+}
+
+describe('declared alpha', () => {
+  it.each([
+    ['An alpha level of .01 was used throughout.', 0.01],
+    ['We set alpha = .01 for all tests.', 0.01],
+    ['We set \u03b1 = .005 for all tests.', 0.005],
+    ['Alpha was set at .05 for all tests.', 0.05],
+    ['We used a significance level of .10 for these tests.', 0.1],
+    ['The significance level was set at p < .05.', 0.05],
+    ['Statistical significance was accepted at p < .01 in all analyses.', 0.01],
+    ['A p < .01 was considered significant.', 0.01],
+    ['Results with p \u2264 .005 were considered statistically significant.', 0.005],
+    ['p values below .01 were deemed significant.', 0.01],
+    ['Effects were considered significant at p < .01.', 0.01],
+  ])('reads %j', (text, value) => {
+    const alpha = contextOf(text).alpha;
+    expect(alpha?.value).toBe(value);
+    expect(slice(text, alpha!)).toBe(alpha!.text);
+    expect(alpha!.text.length).toBeGreaterThan(0);
+  });
+
+  it.each([
+    'Internal consistency was good (Cronbach\u2019s \u03b1 = .85).',
+    'Cronbach\u2019s alpha = .09 for the short scale indicated poor reliability.',
+    'The effect was significant at p < .05 in both groups.',
+    'The main effect was significant, p < .01.',
+    'The alphabet task took 5 minutes.',
+  ])('finds no declared alpha in %j', (text) => {
+    expect(contextOf(text).alpha).toBeNull();
+  });
+
+  it('takes the first declaration in the document', () => {
+    const alpha = contextOf('We set alpha = .05. For follow-up tests, alpha = .0125 was used.').alpha;
+    expect(alpha?.value).toBe(0.05);
+  });
+});
+
+describe('one-tailed statements', () => {
+  it.each([
+    'One-tailed tests were used for the preregistered predictions.',
+    'All tests were one-sided.',
+    'We report one tailed p-values.',
+    'A 1-tailed test was used.',
+    'Given our directional hypotheses, we tested accordingly.',
+    'These were directional tests of the prediction.',
+  ])('finds %j', (text) => {
+    const statements = contextOf(text).oneTailed;
+    expect(statements).toHaveLength(1);
+    expect(slice(text, statements[0]!)).toBe(statements[0]!.text);
+  });
+
+  it('gives the offset of the statement so checks can tell how near it stands to a result', () => {
+    const text = 'Intro text here. We used a one-tailed test. Later, t(30) = 1.80, p = .04.';
+    const [statement] = contextOf(text).oneTailed;
+    expect(statement?.start).toBe(text.indexOf('We used'));
+    expect(statement?.end).toBe(text.indexOf('Later') - 1);
+  });
+
+  it.each([
+    'All tests were two-tailed.',
+    'We stated non-directional hypotheses.',
+    'Bidirectional links were drawn.',
+    'The arrows were directional in the figure.',
+    'Someone-sided views were rare.',
+  ])('finds none in %j', (text) => {
+    expect(contextOf(text).oneTailed).toEqual([]);
+  });
+
+  it('reports one statement per sentence', () => {
+    expect(contextOf('One-tailed tests of the directional hypotheses were one-sided.').oneTailed).toHaveLength(1);
+  });
+});
+
+describe('stated sample sizes', () => {
+  it.each([
+    ['The final sample (N = 120) was balanced.', 120, 'N = 120'],
+    ['In total, N=1,024 people responded.', 1024, 'N=1,024'],
+    ['We recruited 120 participants online.', 120, '120 participants'],
+    ['A total of 86 adults took part.', 86, '86 adults'],
+    ['We drew a sample of 64 students.', 64, '64 students'],
+    ['We tested 120 undergraduate psychology students.', 120, '120 undergraduate psychology students'],
+    ['Overall 1,024 respondents answered.', 1024, '1,024 respondents'],
+  ])('reads %j', (text, value, phrase) => {
+    const sizes = contextOf(text).sampleSizes;
+    expect(sizes.map((size) => size.value)).toEqual([value]);
+    expect(slice(text, sizes[0]!)).toBe(phrase);
+  });
+
+  it.each([
+    'Data from 3 participants were excluded.',
+    'We excluded 4 participants for inattention.',
+    'Each of the 12 items was rated.',
+    'Responses took 120 ms on average.',
+    'Group A (n = 24) was smaller.',
+  ])('finds none in %j', (text) => {
+    expect(contextOf(text).sampleSizes).toEqual([]);
+  });
+
+  it('reads the N inside a chi-square result as a stated sample size', () => {
+    const text = 'Choices differed, \u03c72(2, N = 120) = 7.81, p = .02.';
+    expect(contextOf(text).sampleSizes.map((size) => size.value)).toEqual([120]);
+  });
+});
+
+describe('sphericity corrections', () => {
+  it.each([
+    ['Greenhouse-Geisser corrections were applied.', 'greenhouse-geisser'],
+    ['Degrees of freedom were Greenhouse\u2013Geisser corrected.', 'greenhouse-geisser'],
+    ['We applied the Huynh-Feldt correction.', 'huynh-feldt'],
+    ['Degrees of freedom were corrected for violations of sphericity.', 'unspecified'],
+    ['Sphericity was violated, so Greenhouse\u2013Geisser corrections were applied.', 'greenhouse-geisser'],
+  ] as const)('reads %j', (text, method) => {
+    const statements = contextOf(text).sphericity;
+    expect(statements.map((statement) => statement.method)).toEqual([method]);
+    expect(slice(text, statements[0]!)).toBe(statements[0]!.text);
+  });
+
+  it.each([
+    'Mauchly\u2019s test showed that sphericity was not violated.',
+    'Because sphericity was met, no correction was applied.',
+    'No Greenhouse-Geisser correction was necessary because sphericity was not violated.',
+    'The greenhouse was warm.',
+  ])('finds none in %j', (text) => {
+    expect(contextOf(text).sphericity).toEqual([]);
+  });
+});
+
+describe('a document without context statements', () => {
+  it('returns empty context', () => {
+    expect(contextOf('The effect was reliable, F(1, 44) = 5.10, p = .03.')).toEqual({
+      alpha: null,
+      oneTailed: [],
+      sampleSizes: [],
+      sphericity: [],
+    });
+  });
+});
