@@ -39,7 +39,19 @@ export class AuditCache {
   }
 }
 
+/** JSON with object keys sorted at every level, so equal settings always give equal text. */
+function stableJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(stableJson).join(',')}]`;
+  if (value !== null && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${stableJson(v)}`).join(',')}}`;
+  }
+  return JSON.stringify(value);
+}
+
 /** A stable text of everything besides the file content that changes an audit. */
 export function settingsFingerprint(parts: Record<string, unknown>): string {
-  return JSON.stringify(parts, Object.keys(parts).sort());
+  return stableJson(parts);
 }
