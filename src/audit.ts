@@ -1,7 +1,8 @@
 import { checkResults, type CheckedResult } from './checks/engine.js';
 import type { ResolvedConfig } from './checks/config.js';
 import { createLineIndex } from './scan/lines.js';
-import { scanText } from './scan/scan.js';
+import { scanDocument, type ScannableDocument } from './scan/scanDocument.js';
+import { plainTextDocument } from './documents/text.js';
 import { CAUTION, type DocumentOutput, type Report, type StatisticOutput, type Summary } from './report/model.js';
 import { toolVersion } from './version.js';
 
@@ -61,9 +62,20 @@ function statisticOutput(
   };
 }
 
-/** Scans and checks one document's text. Pure apart from reading the catalogue once through the config. */
-export function auditText(text: string, config: ResolvedConfig, path = '<text>', pageOf: PageOf = () => null): DocumentOutput {
-  const scan = scanText(text);
+/** Scans and checks plain text (pasted, or a .txt/.md file): tables and the reference list are found in the text. */
+export function auditText(text: string, config: ResolvedConfig, path = '<text>'): DocumentOutput {
+  return auditDocument({ ...plainTextDocument(path, 'text', text) }, config, path);
+}
+
+/** Scans and checks one document read by a reader. Pure: the document and settings in, the audit out. */
+export function auditDocument(
+  document: ScannableDocument & { pageOf?: PageOf },
+  config: ResolvedConfig,
+  path = '<text>',
+): DocumentOutput {
+  const { text } = document;
+  const pageOf = document.pageOf ?? (() => null);
+  const scan = scanDocument(document);
   const checked = checkResults(text, scan, config);
   const lineOf = createLineIndex(text);
   return {

@@ -2,7 +2,10 @@ import { writeFileSync } from 'node:fs';
 import { Option, type Command } from 'commander';
 import { readUserConfigFile, resolveConfig, type ResolvedConfig, type UserConfig } from '../checks/config.js';
 import { formatConsole } from '../report/console.js';
+import { formatCsv } from '../report/csv.js';
+import { formatHtml } from '../report/html.js';
 import { formatJson } from '../report/json.js';
+import { formatMarkdown } from '../report/markdown.js';
 import type { Report } from '../report/model.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
@@ -65,8 +68,12 @@ export function formatReport(report: Report, format: ReportFormat, color: boolea
       return report.documents.map((d) => `${JSON.stringify(d)}\n`).join('');
     case 'text':
       return formatConsole(report, { color, showAll });
-    default:
-      throw new UsageError(`--format ${format} is not available yet`);
+    case 'html':
+      return formatHtml(report);
+    case 'csv':
+      return formatCsv(report);
+    case 'md':
+      return formatMarkdown(report);
   }
 }
 

@@ -16,6 +16,7 @@ import {
 } from './common.js';
 import { registerMergeCommand } from './merge.js';
 import { registerScanCommand } from './scan.js';
+import { registerRefitCommand } from './refit.js';
 
 export { EXIT_CLEAN, EXIT_FLAGGED, EXIT_INPUT_ERROR, UsageError, type CliIo } from './common.js';
 
@@ -68,6 +69,7 @@ export function buildProgram(io: CliIo, setExitCode: (code: number) => void): Co
   registerScanCommand(program, io, setExitCode);
   registerMergeCommand(program, io, setExitCode);
   registerRulesCommand(program, io);
+  registerRefitCommand(program, io, setExitCode);
   return program;
 }
 

@@ -2,7 +2,14 @@ import { REFERENCE_HEADING } from './builder.js';
 import type { Region } from './types.js';
 
 /** Lines that end a reference list in text without markup (what usually follows one). */
-const AFTER_REFERENCES = /^(?:appendix|appendices|supplementary (?:material|materials|information)|tables?|figures?|author note|footnotes)\b[^.]{0,60}$/i;
+const AFTER_REFERENCES = /^(?:appendix|appendices|supplementary (?:material|materials|information)|tables?|figures?|figure captions|author note|notes|endnotes|footnotes)\b[^.]{0,60}$/i;
+
+/**
+ * A footnote that extraction placed after the list: a number, then a
+ * sentence ("1. A sensitivity analysis that left out ..."). A numbered
+ * reference starts with a name and a comma instead ("1. Almond, R. P.").
+ */
+const FOOTNOTE_AFTER_REFERENCES = /^\d{1,2}[.)]?\s+[A-Z][a-z]*(?:\s+[a-z][\p{L}-]*){2}/u;
 
 /**
  * Regions that can be found in text without markup (PDF): the reference
@@ -21,7 +28,8 @@ export function findReferenceListRegions(text: string): Region[] {
   const heading = lines[headingIndex]!;
   let end = text.length;
   for (const line of lines.slice(headingIndex + 1)) {
-    if (AFTER_REFERENCES.test(text.slice(line.start, line.end).trim())) {
+    const lineText = text.slice(line.start, line.end).trim();
+    if (AFTER_REFERENCES.test(lineText) || FOOTNOTE_AFTER_REFERENCES.test(lineText)) {
       end = line.start;
       break;
     }

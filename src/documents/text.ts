@@ -1,5 +1,6 @@
 import { readFile } from 'node:fs/promises';
-import type { ReadOutcome } from './types.js';
+import { findReferenceListRegions } from './plainRegions.js';
+import type { DocumentText, ReadOutcome } from './types.js';
 
 /**
  * Plain text and Markdown. Bytes are decoded as UTF-8 (a byte-order mark is
@@ -14,5 +15,10 @@ export async function readTextDocument(path: string, format: 'text' | 'markdown'
   }
   if (bytes.includes(0)) return { ok: false, path, format, error: 'binary content (NUL bytes) in a text file; is the extension right?' };
   const text = new TextDecoder('utf-8', { ignoreBOM: false }).decode(bytes);
-  return { ok: true, document: { path, format, text, pageOf: () => null, regions: [], tables: [] } };
+  return { ok: true, document: plainTextDocument(path, format, text) };
+}
+
+/** A document from text with no markup: the reference list is found from its heading; tables are found later, in the text. */
+export function plainTextDocument(path: string, format: string, text: string): DocumentText {
+  return { path, format, text, pageOf: () => null, regions: findReferenceListRegions(text), tables: [] };
 }

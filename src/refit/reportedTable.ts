@@ -51,7 +51,7 @@ function squash(text: string): string {
     .normalize('NFKC')
     .toLowerCase()
     .replace(/[²₂]/g, '2')
-    .replace(/[_*'’`.]/g, '')
+    .replace(/[_'’`.]/g, '')
     .replace(/\s+/g, ' ')
     .trim();
 }
@@ -64,7 +64,7 @@ export function columnMeaning(header: string): 'label' | Quantity | null {
   if (/^(df|d ?f|dof|degrees of freedom)$/.test(h)) return 'df';
   if (/^(ms|mean sq|mean square|mean squares)$/.test(h)) return 'ms';
   if (/^(f|f value|f ratio|f-value|f-ratio|f statistic)$/.test(h)) return 'F';
-  if (/^(p|p value|p-value|sig|significance|pr\(>f\)|pr ?> ?f|prob|probability)$/.test(h) || h === 'pr(>f)') return 'p';
+  if (/^(p|p value|p-value|sig|significance|pr|pr\(>f\)|pr ?> ?f|prob|probability)$/.test(h)) return 'p';
   if (
     /^(partial eta squared|partial eta sq|partial eta2|partial eta\^2|partial η2|partial η\^2|ηp2|η2p|ηp\^2|η\^2p|η2 ?partial|ηp|eta2p|etap2|eta2 partial|pes|np2|partial eta-squared)$/.test(h)
   ) {
@@ -231,8 +231,15 @@ export function tablesInText(text: string): Array<{ cells: string[][]; line: num
       if (line.trim() === '') break;
       const row = split(line);
       if (!row) break;
-      // A row with a blank label cell at the start loses it when split on spaces; pad on the left.
-      while (row.length < header.length && !line.includes('|')) row.unshift('');
+      // Split on spaces, a row loses its blank cells: a blank label when it starts with a number
+      // (pad on the left), blank trailing cells (F, p of an error row) otherwise.
+      if (!line.includes('|')) {
+        const startsWithNumber = parseCell(row[0] ?? '') !== null;
+        while (row.length < header.length) {
+          if (startsWithNumber) row.unshift('');
+          else row.push('');
+        }
+      }
       cells.push(row);
     }
     found.push({ cells, line: i + 1 });

@@ -96,7 +96,6 @@ ul.findings { list-style: none; margin: .25rem 0; padding: 0; }
 .badge.note { background: var(--note); }
 .rule { font-family: ui-monospace, SFMono-Regular, Menlo, Consolas, monospace; font-size: .85rem; }
 .alpha { color: var(--fail); font-weight: 600; font-size: .85rem; }
-.slip { color: #4b5260; font-size: .9rem; }
 .unreadable .reason { color: var(--fail); }
 details { margin-top: .5rem; }
 summary { cursor: pointer; color: #2b4c7e; }
@@ -427,11 +426,10 @@ function findingItem(finding: FindingOutput, alpha: number | undefined): string 
   const crosses = finding.crossesAlpha
     ? ` <span class="alpha">changes the conclusion${alpha === undefined ? '' : ` at alpha ${e(String(alpha))}`}</span>`
     : '';
-  const slip = finding.slip ? `<p class="slip">Possible slip: ${e(finding.slip)}</p>` : '';
   return (
     `<li class="finding" data-severity="${e(finding.severity)}" data-rule="${e(finding.rule)}">` +
     `<span class="badge ${e(finding.severity)}">${e(finding.severity)}</span> <span class="rule">${e(finding.rule)}</span>${crosses}` +
-    `<p class="message">${e(finding.message)}</p>${slip}</li>`
+    `<p class="message">${e(finding.message)}</p></li>`
   );
 }
 

@@ -30,10 +30,12 @@ export interface NormalisedText {
 }
 
 /**
- * Characters needing work: anything outside ASCII, an ASCII hyphen at a line
- * end, and "*" / "_" (possible emphasis markers).
+ * Characters needing work: anything outside ASCII, "*" and "_" (possible
+ * emphasis markers; one class with the non-ASCII range, because a separate
+ * alternative makes the search markedly slower), and an ASCII hyphen at a
+ * line end.
  */
-const NEEDS_WORK = /[^\x00-\x7F]|-[ \t]*\r?\n|[*_]/g;
+const NEEDS_WORK = /[^\x00-\x29\x2B-\x5E\x60-\x7F]|-[ \t]*\r?\n/g;
 
 /** Single-character replacements (the value may be empty, or longer than one character). */
 const REPLACEMENTS: ReadonlyMap<number, string> = buildReplacementTable();
@@ -258,7 +260,8 @@ export function normaliseText(original: string): NormalisedText {
   let at = match.index;
   while (at !== -1) {
     builder.copy(copiedUpTo, at);
-    copiedUpTo = rewriteAt(original, at, builder, closers);
+    const code = original.charCodeAt(at);
+    copiedUpTo = code === 42 || code === 95 ? rewriteMarkerRun(original, at, builder, closers) : rewriteAt(original, at, builder);
     at = nextNeedingWorkNearby(original, copiedUpTo);
     if (at === -1) {
       NEEDS_WORK.lastIndex = copiedUpTo;
@@ -290,10 +293,8 @@ function isLineEndHyphen(text: string, at: number): boolean {
 }
 
 /** Rewrites the character(s) found at `at`; returns the original offset up to which input is consumed. */
-function rewriteAt(original: string, at: number, builder: NormalisationBuilder, closers: EmphasisClosers): number {
+function rewriteAt(original: string, at: number, builder: NormalisationBuilder): number {
   const code = original.charCodeAt(at);
-
-  if (code === 42 || code === 95) return rewriteMarkerRun(original, at, builder, closers);
 
   // Hyphen (ASCII, soft or typographic) at a line end: join a word broken across lines.
   if (code === 45 || code === 0x00ad || code === 0x2010) {

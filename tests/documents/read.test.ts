@@ -39,3 +39,20 @@ describe('readDocument dispatch', () => {
     expect(outcome).toMatchObject({ ok: false, format: 'jats', error: 'not a JATS XML file: the file is really an HTML page; if that is right, rename it to .html' });
   });
 });
+
+describe('reference list in text without markup', async () => {
+  const { findReferenceListRegions } = await import('../../src/documents/plainRegions.js');
+  const references = (text: string) => findReferenceListRegions(text).find((r) => r.kind === 'references');
+  it('ends at a Notes heading', () => {
+    const text = 'Results F(1, 20) = 5.1.\nReferences\nAlmond, R. (2017). Noise. Journal, 12(3), 1-5.\nNotes\n[1] A check gave t(84) = 2.21, p = .030.\n';
+    const region = references(text)!;
+    expect(text.slice(region.start, region.end)).not.toContain('t(84)');
+  });
+  it('ends at a footnote that extraction placed after it, but not at a numbered reference', () => {
+    const text = 'References\n1. Almond, R. P. (2017). Noise bursts. Journal, 12, 1-5.\n2. Dunmore, H. (2020). Sorting. Quarterly, 4, 33-49.\n1. A sensitivity analysis that left out six gave t(84) = 2.21, p = .030.\n';
+    const region = references(text)!;
+    const inside = text.slice(region.start, region.end);
+    expect(inside).toContain('Dunmore');
+    expect(inside).not.toContain('t(84)');
+  });
+});

@@ -4,7 +4,7 @@ import { auditText, buildReport, unreadableDocument } from '../../src/audit.js';
 import { resolveConfig } from '../../src/checks/config.js';
 import { comparatorWord, CSV_COLUMNS, formatCsv, neutraliseCell } from '../../src/report/csv.js';
 import type { Report } from '../../src/report/model.js';
-import { demoReport, hostileReport, HOSTILE_PATH } from '../fixtures/report/reports.js';
+import { corpusReport, demoReport, hostileReport, HOSTILE_PATH } from '../fixtures/report/reports.js';
 
 const HEADER = CSV_COLUMNS.map((c) => c.name);
 
@@ -20,7 +20,7 @@ function records(csv: string): Record<string, string>[] {
 }
 
 describe('formatCsv: shape', () => {
-  const report = demoReport();
+  const report = corpusReport();
   const csv = formatCsv(report);
 
   it('parses back to a header and one row per result, every row with every column', () => {
@@ -53,7 +53,7 @@ describe('formatCsv: shape', () => {
       );
       expect(row['changes conclusion']).toBe(String(s.findings.some((f) => f.crossesAlpha)));
       for (const finding of s.findings) {
-        expect(row.rules.split('; ')).toContain(finding.rule);
+        expect(row.rules!.split('; ')).toContain(finding.rule);
         expect(row.messages).toContain(finding.message.replace(/\s+/g, ' ').trim());
       }
     });
@@ -79,7 +79,7 @@ describe('formatCsv: shape', () => {
   });
 
   it('writes effect sizes as a compact "kind=value; ..." cell', () => {
-    const withInterval = records(csv).find((row) => row['effect sizes'].includes('CI'));
+    const withInterval = records(csv).find((row) => row['effect sizes']!.includes('CI'));
     expect(withInterval?.['effect sizes']).toMatch(/^partial-eta-squared=0\.\d+ \[90% CI 0\.\d+, 0\.\d+\]$/);
   });
 });
@@ -98,7 +98,7 @@ describe('formatCsv: other rows', () => {
   });
 
   it('writes a finding about a whole document as its own row', () => {
-    const report = demoReport();
+    const report = corpusReport();
     const document = report.documents[0]!;
     document.findings.push({ rule: 'whole-document-rule', severity: 'warn', crossesAlpha: false, message: 'About the whole, document.', messageId: 'x', data: {} });
     const rows = records(formatCsv(report)).filter((row) => row.row === 'document finding');
@@ -163,5 +163,15 @@ describe('formatCsv: spreadsheet safety and quoting', () => {
   it('writes nothing but the header for an empty report', () => {
     const report: Report = buildReport([]);
     expect(parse(formatCsv(report))).toEqual([HEADER]);
+  });
+});
+
+describe('formatCsv: the corpus-demo manuscripts', () => {
+  it('has one row per result, every row with every column', () => {
+    const report = demoReport();
+    const rows = parse(formatCsv(report));
+    const expected = report.documents.reduce((n, d) => n + (d.status === 'unreadable' ? 1 : Math.max(1, d.statistics.length + d.findings.length)), 0);
+    expect(rows).toHaveLength(1 + expected);
+    for (const row of rows) expect(row).toHaveLength(HEADER.length);
   });
 });

@@ -4,7 +4,7 @@ import { Element, Text, type ChildNode } from 'domhandler';
 import { describe, expect, it } from 'vitest';
 import { formatHtml } from '../../src/report/html.js';
 import type { Report } from '../../src/report/model.js';
-import { demoReport, hostileReport, HOSTILE_PATH, singleFailReport, UNREADABLE_ERROR } from '../fixtures/report/reports.js';
+import { corpusReport, demoReport, hostileReport, HOSTILE_PATH, singleFailReport, UNREADABLE_ERROR } from '../fixtures/report/reports.js';
 
 function elements(nodes: readonly ChildNode[]): Element[] {
   const found: Element[] = [];
@@ -39,7 +39,7 @@ function countFindings(report: Report): number {
 }
 
 describe('formatHtml: structure', () => {
-  const report = demoReport();
+  const report = corpusReport();
   const html = formatHtml(report);
   const all = parse(html);
 
@@ -255,5 +255,15 @@ describe('formatHtml: small reports', () => {
     expect(html).toContain('No result was flagged.');
     expect(html).toContain('nothing to draw');
     expect(html).toContain(report.caution);
+  });
+});
+
+describe('formatHtml: the corpus-demo manuscripts', () => {
+  it('marks every flagged result and lists every flag', () => {
+    const report = demoReport();
+    const all = parse(formatHtml(report));
+    expect(all.filter((el) => el.name === 'mark')).toHaveLength(report.summary.flaggedStatistics);
+    expect(all.filter((el) => hasClass(el, 'finding'))).toHaveLength(countFindings(report));
+    expect(all.filter((el) => el.name === 'script')).toHaveLength(1);
   });
 });

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { buildReport } from '../../src/audit.js';
 import { codeSpan, escapeMarkdown, formatMarkdown } from '../../src/report/markdown.js';
 import type { Report } from '../../src/report/model.js';
-import { demoReport, hostileReport, HOSTILE_PATH, singleFailReport } from '../fixtures/report/reports.js';
+import { corpusReport, demoReport, hostileReport, HOSTILE_PATH, singleFailReport } from '../fixtures/report/reports.js';
 
 /** Renders Markdown the way a CommonMark viewer would, with raw HTML allowed (the worst case). */
 const markdown = new MarkdownIt({ html: true, linkify: false });
@@ -33,7 +33,7 @@ function flat(text: string): string {
 }
 
 describe('formatMarkdown', () => {
-  const report = demoReport();
+  const report = corpusReport();
   const md = formatMarkdown(report);
   const html = rendered(md);
 
@@ -57,7 +57,8 @@ describe('formatMarkdown', () => {
   });
 
   it('has a heading per document with flags, the totals and the caution', () => {
-    const headings = html.filter((el) => el.name === 'h3').map(textOf);
+    const headings = html.filter((el) => el.name === 'h3' && el.children.some((c) => c instanceof Element && c.name === 'code')).map(textOf);
+    expect(html.filter((el) => el.name === 'h3').map(textOf)).toContain('Documents without flags');
     const withFlags = report.documents.filter((d) => d.statistics.some((s) => s.findings.length > 0) || d.findings.length > 0);
     expect(headings).toEqual(withFlags.map((d) => d.path));
     const { summary } = report;
@@ -110,5 +111,15 @@ describe('formatMarkdown: escaping', () => {
   it('leaves a plain "p < .05" readable', () => {
     expect(escapeMarkdown('p < .05 and p > .01')).toBe('p < .05 and p > .01');
     expect(escapeMarkdown('<b>')).toBe('\\<b>');
+  });
+});
+
+describe('formatMarkdown: the corpus-demo manuscripts', () => {
+  it('lists every flag', () => {
+    const report = demoReport();
+    const md = formatMarkdown(report);
+    const flagLines = md.split('\n').filter((line) => /^\s+- \*\*(fail|warn|note)\*\*/.test(line));
+    const { fail, warn, note } = report.summary.findings;
+    expect(flagLines).toHaveLength(fail + warn + note);
   });
 });

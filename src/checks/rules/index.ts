@@ -9,6 +9,7 @@ import { partialEtaSquaredMismatch } from './partial-eta-squared-mismatch.js';
 import { pReportedAsZero } from './p-reported-as-zero.js';
 import { pValueMismatch } from './p-value-mismatch.js';
 import { sphericityCorrectedP } from './sphericity-corrected-p.js';
+import { tableArithmetic } from './table-arithmetic.js';
 
 /** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
 export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
@@ -23,5 +24,6 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     effectSizeIntervalMismatch,
     cohensDMismatch,
     dfExceedsSample,
+    tableArithmetic,
   ].map((module) => [module.id, module]),
 );

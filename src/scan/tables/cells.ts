@@ -119,17 +119,17 @@ put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test'
 put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['r', "pearson's r", 'pearson r', 'pearson correlation', 'correlation'], { role: 'statistic', kind: 'r', df: [] });
 put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test'], { role: 'statistic', kind: 'z', df: [] });
-put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)'], { role: 'effect', effect: 'partial-eta-squared' });
-put(['eta2', 'eta 2', 'eta squared', 'eta-squared', 'eta'], { role: 'effect', effect: 'eta-squared' });
+put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)', 'etap', 'eta p'], { role: 'effect', effect: 'partial-eta-squared' });
+put(['eta2', 'eta 2', 'eta squared', 'eta-squared'], { role: 'effect', effect: 'eta-squared' });
 put(['etag2', 'eta2g', 'eta g2', 'eta2 g', 'generalized eta squared', 'generalized eta2', 'generalised eta squared', 'generalised eta2', 'ges'], { role: 'effect', effect: 'generalized-eta-squared' });
 put(['omega2', 'omega 2', 'omega squared', 'omega-squared'], { role: 'effect', effect: 'omega-squared' });
 put(['omegap2', 'omega2p', 'partial omega2', 'partial omega squared'], { role: 'effect', effect: 'partial-omega-squared' });
 put(['d', "cohen's d", 'cohens d', 'cohen d', 'cohen\u2019s d', 'effect size d', 'dz', 'd z'], { role: 'effect', effect: 'cohens-d' });
 put(['g', "hedges' g", 'hedges g', "hedges's g"], { role: 'effect', effect: 'hedges-g' });
 put(['cohen\'s f', 'cohens f', 'f2'], { role: 'effect', effect: 'cohens-f' });
-put(['phi', "cramer's v", 'cramers v', 'v'], { role: 'effect', effect: 'cramers-v' });
+put(["cramer's v", 'cramers v', 'v'], { role: 'effect', effect: 'cramers-v' });
+put(['phi'], { role: 'effect', effect: 'phi' });
 put(['m', 'mean', 'means', 'sd', 's.d.', 'se', 's.e.', 'sem', 'mean difference', 'mdiff', 'difference', 'b', 'beta', 'se b', 'estimate', 'std. error', 'standard error', 'min', 'max', 'range', 'median', 'mdn', 'ci', '95% ci', 'lower', 'upper', 'll', 'ul', '%', 'percent', 'm (sd)', 'mean (sd)', 'skew', 'kurtosis', 'alpha', 'ms error', 'mse'], { role: 'descriptive' });
-ROLE_BY_KEY.set('phi', { role: 'effect', effect: 'phi' });
 
 /** Bracketed df after a statistic symbol in a header: "F(1, 170)", "F (2, 57)", "t(58)", "chi2(2)". */
 const HEADER_WITH_DF = /^(f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)$/;

@@ -1,0 +1,148 @@
+/**
+ * Whole-audit throughput on a generated corpus of 200 PDFs and 200 text files.
+ *
+ *   npm run build && node dist/bench/corpus.js [documentsPerFormat]
+ *
+ * Every run is the real command in its own process (start-up included), as a
+ * user would run it:
+ *   - baseline: poppler's `pdftotext` alone over the same PDFs, one after another;
+ *   - plumbline cold (fresh cache) with 1 worker and with all cores, with the
+ *     fastest available PDF engine, and with pdf-parse;
+ *   - plumbline again on unchanged files (cache hits).
+ * Goals: the cached re-audit takes at most 5% of the cold time; the cold audit
+ * of the PDFs with all workers and the fastest engine at most 1.5 times the
+ * pdftotext baseline.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { availableParallelism, tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { PDFDocument, StandardFonts } from 'pdf-lib';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const cli = join(here, '..', 'src', 'cli', 'main.js');
+const perFormat = Number(process.argv[2] ?? 200);
+
+/** Deterministic pseudo-random numbers (mulberry32). */
+function seeded(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(state ^ (state >>> 15), 1 | state);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const filler =
+  'Participants completed the questionnaire in a quiet room and were debriefed afterwards. ' +
+  'Responses were screened for straight-lining before the analyses reported below. ';
+
+/** About fifteen results per manuscript, ASCII only (the standard PDF fonts have no Greek). */
+function manuscript(index: number): string[] {
+  const random = seeded(1000 + index);
+  const lines = [`Study ${index}: an invented manuscript for the benchmark`, ''];
+  for (let paragraph = 0; paragraph < 15; paragraph += 1) {
+    const df2 = 40 + Math.floor(random() * 160);
+    const f = (1 + random() * 9).toFixed(2);
+    const t = (random() * 4).toFixed(2);
+    const p = (random() * 0.2).toFixed(3).replace(/^0/, '');
+    lines.push(filler.trim());
+    lines.push(
+      paragraph % 3 === 0
+        ? `The effect of condition was reliable, F(2, ${df2}) = ${f}, p = ${p}, partial eta squared = .0${1 + Math.floor(random() * 9)}.`
+        : paragraph % 3 === 1
+          ? `Groups differed, t(${df2}) = ${t}, p = ${p}, d = 0.${10 + Math.floor(random() * 80)}.`
+          : `Scores correlated, r(${df2}) = .${10 + Math.floor(random() * 80)}, p = ${p}.`,
+    );
+  }
+  return lines;
+}
+
+async function writePdf(path: string, lines: string[]): Promise<void> {
+  const pdf = await PDFDocument.create();
+  const font = await pdf.embedFont(StandardFonts.Helvetica);
+  let page = pdf.addPage([595, 842]);
+  let y = 800;
+  for (const line of lines) {
+    // Wrap at about 95 characters, as a narrow column would.
+    for (let start = 0; start < Math.max(1, line.length); start += 95) {
+      if (y < 50) {
+        page = pdf.addPage([595, 842]);
+        y = 800;
+      }
+      page.drawText(line.slice(start, start + 95), { x: 40, y, size: 9, font });
+      y -= 13;
+    }
+  }
+  writeFileSync(path, await pdf.save());
+}
+
+function seconds(run: () => void): number {
+  const start = process.hrtime.bigint();
+  run();
+  return Number(process.hrtime.bigint() - start) / 1e9;
+}
+
+function plumbline(args: string[]): void {
+  const result = spawnSync(process.execPath, [cli, 'scan', ...args, '--format', 'json', '--fail-on', 'never', '--quiet'], {
+    encoding: 'utf8',
+    maxBuffer: 1 << 30,
+  });
+  if (result.status !== 0) throw new Error(`plumbline exited ${result.status}: ${result.stderr}`);
+}
+
+async function main(): Promise<void> {
+  const root = mkdtempSync(join(tmpdir(), 'plumbline-bench-corpus-'));
+  const pdfFolder = join(root, 'pdf');
+  const textFolder = join(root, 'text');
+  mkdirSync(pdfFolder);
+  mkdirSync(textFolder);
+  for (let i = 0; i < perFormat; i += 1) {
+    await writePdf(join(pdfFolder, `paper-${i}.pdf`), manuscript(i));
+    writeFileSync(join(textFolder, `paper-${i}.txt`), manuscript(perFormat + i).join('\n'));
+  }
+  const pdfs = readdirSync(pdfFolder).map((name) => join(pdfFolder, name));
+  const hasPdftotext = spawnSync('pdftotext', ['-v']).error === undefined;
+  const cores = availableParallelism();
+  console.log(`corpus: ${perFormat} PDFs and ${perFormat} text files (about 15 results each), ${cores} cores`);
+
+  let baseline = NaN;
+  if (hasPdftotext) {
+    baseline = seconds(() => {
+      for (const pdf of pdfs) spawnSync('pdftotext', ['-raw', pdf, '-'], { maxBuffer: 1 << 26 });
+    });
+    console.log(`baseline  pdftotext alone over the PDFs, one after another: ${baseline.toFixed(2)} s (${(pdfs.length / baseline).toFixed(1)} PDFs/s)`);
+  } else {
+    console.log('baseline  pdftotext is not installed (apt-get install poppler-utils): no baseline ratio');
+  }
+
+  const engine = hasPdftotext ? 'pdftotext' : 'pdf-parse';
+  const cacheDir = (name: string): string => join(root, `cache-${name}`);
+  const rows: [string, number, number][] = [];
+  const time = (label: string, documents: number, args: string[]): number => {
+    const elapsed = seconds(() => plumbline(args));
+    rows.push([label, elapsed, documents]);
+    return elapsed;
+  };
+
+  const pdfCold1 = time(`PDFs cold, 1 worker, ${engine}`, pdfs.length, [pdfFolder, '--jobs', '1', '--pdf-engine', engine, '--cache-dir', cacheDir('p1')]);
+  const pdfColdAll = time(`PDFs cold, ${cores} workers, ${engine}`, pdfs.length, [pdfFolder, '--jobs', String(cores), '--pdf-engine', engine, '--cache-dir', cacheDir('pall')]);
+  time(`PDFs cold, ${cores} workers, pdf-parse`, pdfs.length, [pdfFolder, '--jobs', String(cores), '--pdf-engine', 'pdf-parse', '--no-cache']);
+  const allCold = time(`all cold, ${cores} workers, ${engine}`, 2 * perFormat, [root, '--jobs', String(cores), '--pdf-engine', engine, '--cache-dir', cacheDir('all')]);
+  const allCached = time(`all cached (unchanged files)`, 2 * perFormat, [root, '--jobs', String(cores), '--pdf-engine', engine, '--cache-dir', cacheDir('all')]);
+  time(`text cold, 1 worker`, perFormat, [textFolder, '--jobs', '1', '--no-cache']);
+
+  for (const [label, elapsed, documents] of rows) {
+    console.log(`${label.padEnd(44)} ${elapsed.toFixed(2).padStart(7)} s  ${(documents / elapsed).toFixed(1).padStart(7)} documents/s`);
+  }
+  console.log(`ratio  cached / cold (all documents): ${(allCached / allCold).toFixed(3)} (goal <= 0.05)`);
+  console.log(`ratio  ${cores} workers / 1 worker (PDFs): ${(pdfColdAll / pdfCold1).toFixed(2)}`);
+  if (hasPdftotext) {
+    console.log(`ratio  PDFs cold, ${cores} workers, ${engine} / pdftotext alone: ${(pdfColdAll / baseline).toFixed(2)} (goal <= 1.5)`);
+  }
+  rmSync(root, { recursive: true, force: true });
+}
+
+await main();

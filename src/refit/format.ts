@@ -1,0 +1,287 @@
+import { Chalk, type ChalkInstance } from 'chalk';
+import type { ComparedNumber } from './compare.js';
+import type { RefitOutput } from './output.js';
+
+/**
+ * Pure formatters of a refit result: console text (chalk; plain when not a
+ * terminal), Markdown, and a self-contained HTML page whose ANOVA table is
+ * ready to paste into a response to reviewers. (DOCX: formatDocx.ts.)
+ */
+
+type Row = RefitOutput['terms'][number];
+type Quantity = ComparedNumber['quantity'];
+
+export const QUANTITY_LABEL: Record<Quantity, string> = { ss: 'SS', df: 'df', ms: 'MS', F: 'F', p: 'p', partialEtaSquared: 'ηp²' };
+
+/** "12.35"; small values keep three significant digits. */
+export function formatSS(x: number | null): string {
+  if (x === null) return '—';
+  if (x !== 0 && Math.abs(x) < 0.1) return x.toPrecision(3);
+  return x.toFixed(2);
+}
+
+export function formatF(x: number | null): string {
+  return x === null ? '—' : x.toFixed(2);
+}
+
+/** ".007", "< .001" (APA style, no leading zero). */
+export function formatP(p: number | null): string {
+  if (p === null) return '—';
+  if (p < 0.001) return '< .001';
+  return p.toFixed(3).replace(/^0\./, '.');
+}
+
+export function formatProportion(x: number | null): string {
+  return x === null ? '—' : x.toFixed(3).replace(/^0\./, '.').replace(/^-0\./, '-.');
+}
+
+export function formatDf(x: number): string {
+  return Number.isInteger(x) ? String(x) : x.toFixed(2);
+}
+
+/** "route:pace" -> "route × pace". */
+export function termLabel(term: string): string {
+  return term.split(':').join(' × ');
+}
+
+export function typeLabel(type: 1 | 2 | 3): string {
+  return type === 1 ? 'type I (sequential)' : type === 2 ? 'type II' : 'type III';
+}
+
+function decimalsOf(text: string): number {
+  const m = /\.(\d+)/.exec(text);
+  return m ? m[1]!.length : 0;
+}
+
+/** The recomputed value shown two decimals finer than the reported one (so its rounding can be seen). */
+export function showRecomputed(n: { quantity: Quantity; reported: string | null; recomputed: number | null }): string {
+  const x = n.recomputed;
+  if (x === null || !Number.isFinite(x)) return '—';
+  if (n.quantity === 'df') return formatDf(x);
+  if (n.reported === null) {
+    return n.quantity === 'p' ? formatP(x) : n.quantity === 'partialEtaSquared' ? formatProportion(x) : formatSS(x);
+  }
+  const d = decimalsOf(n.reported) + 2;
+  if (n.quantity === 'p' && x < 10 ** -d) return x.toExponential(2);
+  const s = x.toFixed(d);
+  return n.quantity === 'p' || n.quantity === 'partialEtaSquared' ? s.replace(/^0\./, '.') : s;
+}
+
+function showDifference(n: { quantity: Quantity; reported: string | null; difference: number | null }): string {
+  if (n.difference === null || n.reported === null) return '';
+  if (n.quantity === 'df') return n.difference === 0 ? '0' : `${n.difference > 0 ? '+' : ''}${formatDf(n.difference)}`;
+  const d = decimalsOf(n.reported) + 2;
+  let s = n.difference.toFixed(d);
+  if (n.quantity === 'p' || n.quantity === 'partialEtaSquared') s = s.replace(/^(-?)0\./, '$1.');
+  return `${n.difference > 0 ? '+' : ''}${s}`;
+}
+
+function tableCells(r: Row): string[] {
+  return [termLabel(r.term), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)];
+}
+
+function residualCells(o: Pick<RefitOutput, 'residual'>, label = 'Residual'): string[] {
+  return [label, formatSS(o.residual.ss), formatDf(o.residual.df), formatSS(o.residual.ms), '', '', ''];
+}
+
+const TABLE_HEAD = ['Source', 'SS', 'df', 'MS', 'F', 'p', 'ηp²'];
+
+function pad(cells: string[][], rightAlignFrom = 1): string[] {
+  const widths = cells[0]!.map((_, c) => Math.max(...cells.map((r) => [...(r[c] ?? '')].length)));
+  return cells.map((r) =>
+    r
+      .map((cell, c) => {
+        const gap = ' '.repeat(widths[c]! - [...cell].length);
+        return c >= rightAlignFrom ? gap + cell : cell + gap;
+      })
+      .join('  ')
+      .trimEnd(),
+  );
+}
+
+function missingText(o: RefitOutput): string {
+  const codes = o.missing.map((m) => `${m.column}=${m.codes}`).join('; ');
+  return `${o.droppedRows} row${o.droppedRows === 1 ? '' : 's'} dropped for missing values (empty, NA${codes ? `, codes ${codes}` : ''})`;
+}
+
+/** One line on the type and coding used. */
+export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'>): string {
+  if (o.type === 3) return `type III sums of squares, ${o.codingDescription}`;
+  return `${typeLabel(o.type)} sums of squares (${o.codingDescription}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
+}
+
+function verdictWord(chalk: ChalkInstance, v: ComparedNumber['verdict']): string {
+  return v === 'matches' ? chalk.green(v) : v === 'differs' ? chalk.red.bold(v) : chalk.gray(v);
+}
+
+/** Comparison rows as cell arrays: term, printed as, quantity, reported, recomputed, difference, verdict. */
+function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> {
+  const out: Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> = [];
+  for (const row of o.comparison?.rows ?? []) {
+    const reportedAny = row.numbers.some((n) => n.verdict !== 'not reported');
+    if (!reportedAny) {
+      out.push({ cells: [termLabel(row.term), '', '', '', '', '', 'not reported'], verdict: 'not reported' });
+      continue;
+    }
+    let first = true;
+    for (const n of row.numbers) {
+      if (n.verdict === 'not reported' && !includeUnreported) continue;
+      out.push({
+        cells: [
+          first ? termLabel(row.term) : '',
+          first ? (row.reportedLabel ?? '') : '',
+          QUANTITY_LABEL[n.quantity],
+          n.reported ?? '',
+          showRecomputed(n),
+          showDifference(n),
+          n.verdict,
+        ],
+        verdict: n.verdict,
+      });
+      first = false;
+    }
+  }
+  return out;
+}
+
+function summaryLine(o: RefitOutput): string {
+  const c = o.comparison!;
+  const unmatched = c.unmatched.length > 0 ? ` ${c.unmatched.length} reported row(s) name no model term: ${c.unmatched.map((u) => `"${u.label}"`).join(', ')} (use --map).` : '';
+  if (c.compared === 0) return `No reported number could be compared.${unmatched}`;
+  return c.differs === 0
+    ? `All ${c.compared} reported numbers match the refit.${unmatched}`
+    : `${c.differs} of ${c.compared} reported numbers differ from the refit.${unmatched}`;
+}
+
+function explanationLines(o: RefitOutput): string[] {
+  const list = o.explanations ?? [];
+  if (!o.comparison || o.comparison.allMatch) return [];
+  if (list.length === 0) return ['None of the usual slips reproduces the reported numbers.'];
+  return list.map(
+    (e, i) =>
+      `${i + 1}. ${e.description[0]!.toUpperCase()}${e.description.slice(1)}: ${e.reproduces === 'all' ? `all ${e.compared}` : `${e.matches} of ${e.compared}`} reported numbers match (refit: ${e.model}, ${typeLabel(e.type)}${e.type === 3 ? `, ${e.coding === 'sum' ? 'sum-to-zero' : 'treatment'} coding` : ''}, N = ${e.table.n}).`,
+  );
+}
+
+/** Console report. */
+export function formatRefitText(o: RefitOutput, options: { color: boolean }): string {
+  const chalk = new Chalk({ level: options.color ? 1 : 0 });
+  const lines: string[] = [];
+  lines.push(chalk.bold(`Refit of ${o.data}`));
+  lines.push(`  Model    ${o.model}`);
+  lines.push(`  Method   ${methodLine(o)}`);
+  lines.push(`  Rows     ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`);
+  lines.push('');
+  const table = pad([TABLE_HEAD, ...o.terms.map(tableCells), residualCells(o)]);
+  lines.push(`  ${chalk.bold(table[0]!)}`, ...table.slice(1).map((l) => `  ${l}`));
+  if (o.comparison) {
+    const c = o.comparison;
+    lines.push('');
+    lines.push(chalk.bold(`Compared with ${c.reportedFile} (${c.sources.join(', ')})`));
+    const rows = comparisonCells(o, false);
+    const padded = pad([['Term', 'Printed as', '', 'Reported', 'Recomputed', 'Difference', 'Verdict'], ...rows.map((r) => r.cells)], 3);
+    lines.push(`  ${chalk.bold(padded[0]!)}`);
+    padded.slice(1).forEach((line, i) => {
+      const verdict = rows[i]!.verdict;
+      lines.push(`  ${line.slice(0, line.length - verdict.length)}${verdictWord(chalk, verdict)}`);
+    });
+    lines.push('');
+    lines.push(c.differs === 0 && c.unmatched.length === 0 ? chalk.green(summaryLine(o)) : chalk.red(summaryLine(o)));
+    const explanations = explanationLines(o);
+    if (explanations.length > 0) {
+      lines.push('');
+      lines.push(chalk.bold('What reproduces the reported numbers'));
+      for (const e of explanations) lines.push(`  ${e}`);
+    }
+    if (o.impliedN) {
+      lines.push('');
+      lines.push(o.impliedN.note);
+    }
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+function mdEscape(s: string): string {
+  return s.replace(/\|/g, '\\|');
+}
+
+function mdTable(head: string[], rows: string[][]): string[] {
+  return [`| ${head.map(mdEscape).join(' | ')} |`, `|${head.map((_, i) => (i === 0 ? ' --- ' : ' ---: ')).join('|')}|`, ...rows.map((r) => `| ${r.map(mdEscape).join(' | ')} |`)];
+}
+
+/** Markdown report. */
+export function formatRefitMarkdown(o: RefitOutput): string {
+  const lines: string[] = [];
+  lines.push(`# Refit of ${o.data}`, '');
+  lines.push(`- Model: \`${o.model}\``);
+  lines.push(`- Method: ${methodLine(o)}`);
+  lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`, '');
+  lines.push(...mdTable(TABLE_HEAD, [...o.terms.map(tableCells), residualCells(o)]));
+  if (o.comparison) {
+    lines.push('', `## Compared with ${o.comparison.reportedFile}`, '', `Read from: ${o.comparison.sources.join(', ')}.`, '');
+    lines.push(...mdTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells)));
+    lines.push('', summaryLine(o));
+    const explanations = explanationLines(o);
+    if (explanations.length > 0) lines.push('', '## What reproduces the reported numbers', '', ...explanations);
+    if (o.impliedN) lines.push('', o.impliedN.note);
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+function esc(s: string): string {
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+}
+
+/** The note printed under the formatted table. */
+export function tableNote(o: RefitOutput): string {
+  const codes = o.missing.map((m) => `${m.column} = ${m.codes}`).join('; ');
+  return (
+    `Note. ${methodLine(o)[0]!.toUpperCase()}${methodLine(o).slice(1)}. N = ${o.n}` +
+    `${o.droppedRows > 0 ? `; ${o.droppedRows} of ${o.rowsInFile} rows excluded for missing values${codes ? ` (codes ${codes})` : ''}` : ''}. ` +
+    `ηp² = partial eta squared. Model: ${o.model}.`
+  );
+}
+
+/** Self-contained HTML page: the recomputed ANOVA table (APA-like), and the comparison when numbers were reported. */
+export function formatRefitHtml(o: RefitOutput): string {
+  const title = `Refit of ${o.outcome}: ${o.type === 3 ? 'type III' : typeLabel(o.type)} ANOVA table`;
+  const row = (cells: string[], tag = 'td') => `<tr>${cells.map((c, i) => `<${tag}${i === 0 ? ' class="src"' : ''}>${esc(c)}</${tag}>`).join('')}</tr>`;
+  const italicHead = `<tr>${TABLE_HEAD.map((h, i) => `<th${i === 0 ? ' class="src"' : ''}>${['SS', 'df', 'MS', 'F', 'p'].includes(h) ? `<i>${esc(h)}</i>` : h === 'ηp²' ? '<i>η</i><sub>p</sub><sup>2</sup>' : esc(h)}</th>`).join('')}</tr>`;
+  const parts: string[] = [];
+  parts.push('<!DOCTYPE html>', '<html lang="en">', '<head>', '<meta charset="utf-8">', `<title>${esc(title)}</title>`);
+  parts.push(
+    '<style>',
+    'body{font-family:"Times New Roman",Times,serif;max-width:52rem;margin:2rem auto;padding:0 1rem;color:#111}',
+    'table{border-collapse:collapse;margin:.5rem 0 1rem}',
+    'th,td{padding:.2rem .8rem;text-align:right;font-variant-numeric:tabular-nums}',
+    'th.src,td.src{text-align:left}',
+    'table.anova thead tr{border-top:1.5px solid #000;border-bottom:1px solid #000}',
+    'table.anova tbody tr:last-child{border-bottom:1.5px solid #000}',
+    'table.cmp th{border-bottom:1px solid #000} td.differs{color:#a00;font-weight:bold} td.matches{color:#060} td.not{color:#777}',
+    '.caption{font-style:italic}.note{font-size:.9rem}',
+    '</style>',
+    '</head>',
+    '<body>',
+  );
+  parts.push('<p><b>Table 1</b></p>', `<p class="caption">${esc(`${o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance'} of ${o.outcome}`)}</p>`);
+  parts.push('<table class="anova">', `<thead>${italicHead}</thead>`, '<tbody>');
+  for (const r of o.terms) parts.push(row(tableCells(r)));
+  parts.push(row(residualCells(o)));
+  parts.push('</tbody>', '</table>', `<p class="note">${esc(tableNote(o))}</p>`);
+  if (o.comparison) {
+    parts.push(`<h2>Compared with ${esc(o.comparison.reportedFile)}</h2>`, `<p>Read from: ${esc(o.comparison.sources.join(', '))}.</p>`);
+    parts.push('<table class="cmp"><thead>', row(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], 'th'), '</thead><tbody>');
+    for (const r of comparisonCells(o, false)) {
+      const cls = r.verdict === 'not reported' ? 'not' : r.verdict;
+      parts.push(`<tr>${r.cells.map((c, i) => `<td${i === 0 || i === 1 ? ' class="src"' : i === 6 ? ` class="${cls}"` : ''}>${esc(c)}</td>`).join('')}</tr>`);
+    }
+    parts.push('</tbody></table>', `<p>${esc(summaryLine(o))}</p>`);
+    const explanations = explanationLines(o);
+    if (explanations.length > 0) {
+      parts.push('<h2>What reproduces the reported numbers</h2>', '<ul>', ...explanations.map((e) => `<li>${esc(e.replace(/^\d+\.\s*/, ''))}</li>`), '</ul>');
+    }
+    if (o.impliedN) parts.push(`<p>${esc(o.impliedN.note)}</p>`);
+  }
+  parts.push('</body>', '</html>');
+  return `${parts.join('\n')}\n`;
+}

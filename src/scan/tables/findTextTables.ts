@@ -1,0 +1,470 @@
+/**
+ * Finds tables in plain text, Markdown and text extracted from PDF, where no
+ * markup says "this is a table":
+ *
+ * - pipe tables: Markdown ("| a | b |", with or without outer pipes, with a
+ *   "|---|" separator line) and the " | " rows the document readers write;
+ * - whitespace-aligned columns: cells apart by two or more spaces or a tab;
+ * - crushed columns, as copying from a PDF leaves them: cells apart by single
+ *   spaces ("Condition 12.40 2 6.20 4.21 .018 .13"), recognised by a header
+ *   line made of known column names ("Source SS df MS F p ηp") or by rows
+ *   that end in a run of numbers under a "Table 2" title.
+ *
+ * A title line ("Table 2", "Table 2. Analysis of variance for recall", or
+ * "Table 2" followed by a title line) right before the rows becomes the
+ * caption; lines starting "Note." (or "*p < .05") right after become notes.
+ *
+ * Linear time: the text is cut into lines once, each line is classified with
+ * simple character tests and anchored expressions on bounded pieces, and
+ * each line is looked at a bounded number of times.
+ */
+
+import type { DocumentTable } from '../../documents/types.js';
+import { classifyHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
+
+interface Line {
+  start: number;
+  end: number;
+  text: string;
+  /** Cells are separated by single spaces whatever the gaps look like (see withConsistentSeparators). */
+  crushed?: boolean;
+}
+
+/** A piece of a line with offsets relative to the line. */
+interface Piece {
+  text: string;
+  start: number;
+  end: number;
+}
+
+/** Lines longer than this are prose (or a whole paragraph on one line), not table rows. */
+const MAX_ROW_LENGTH = 400;
+/** A row label longer than this is a sentence that happens to end in numbers. */
+const MAX_LABEL_LENGTH = 80;
+const MAX_LABEL_WORDS = 10;
+
+const TITLE = /^\s{0,8}(?:\*\*|_)?Table\s+[A-Z]?\d{1,3}[A-Za-z]?(?:\*\*|_)?(?=[.:\s]|$)/;
+const BARE_TITLE = /^\s{0,8}(?:\*\*|_)?Table\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?\s*$/;
+const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|[\u2020\u2021]\s*p\s*[<\u2264=])/;
+/** Header fragments that a PDF splits from their superscript ("ηp" over "2"). */
+const INCOMPLETE_HEADERS = new Set(['eta', 'etap', 'eta p', 'etag', 'partial eta', 'omega', 'omegap', 'chi', 'x', 'partial omega']);
+const HEADER_CONTINUATION = /^\s*(?:2|p|g|p2|2p|g2|2g)(?:\s+(?:2|p|g|p2|2p|g2|2g)){0,3}\s*$/;
+
+/** Finds the tables in a text that carries no table markup. */
+export function findTextTables(text: string): DocumentTable[] {
+  const lines = splitLines(text).map(withConsistentSeparators);
+  const tables: DocumentTable[] = [];
+  let index = 0;
+  while (index < lines.length) {
+    const found = readPipeTable(lines, index) ?? readSpacedTable(lines, index);
+    if (found === null) {
+      index++;
+      continue;
+    }
+    const { rows, last } = found;
+    const title = readTitle(lines, index);
+    const notes = readNotes(lines, last + 1);
+    const startLine = title?.firstLine ?? index;
+    const endLine = notes.lastLine ?? last;
+    tables.push({
+      start: lines[startLine]!.start + leadingSpace(lines[startLine]!.text),
+      end: lines[endLine]!.start + lines[endLine]!.text.trimEnd().length,
+      caption: title?.caption ?? null,
+      notes: notes.notes,
+      rows,
+    });
+    index = endLine + 1;
+  }
+  return tables;
+}
+
+function splitLines(text: string): Line[] {
+  const lines: Line[] = [];
+  let start = 0;
+  while (start <= text.length) {
+    let end = text.indexOf('\n', start);
+    if (end === -1) end = text.length;
+    const contentEnd = end > start && text.charCodeAt(end - 1) === 13 ? end - 1 : end;
+    lines.push({ start, end: contentEnd, text: text.slice(start, contentEnd) });
+    start = end + 1;
+  }
+  return lines;
+}
+
+function leadingSpace(text: string): number {
+  return text.length - text.trimStart().length;
+}
+
+function isBlank(line: Line | undefined): boolean {
+  return line === undefined || line.text.trim() === '';
+}
+
+// ---------------------------------------------------------------- pipe tables
+
+function pipeCells(line: Line): string[] | null {
+  const text = line.text;
+  if (text.length > MAX_ROW_LENGTH || !text.includes('|')) return null;
+  let cells = text.split('|').map((cell) => cell.trim());
+  const trimmed = text.trim();
+  if (trimmed.startsWith('|')) cells = cells.slice(1);
+  // Outer pipes come in pairs in Markdown; a lone trailing pipe ends an empty last cell.
+  if (trimmed.startsWith('|') && trimmed.endsWith('|') && cells.length > 0) cells = cells.slice(0, -1);
+  return cells.length >= 2 ? cells : null;
+}
+
+function isSeparatorRow(cells: string[]): boolean {
+  return cells.every((cell) => /^:?-{2,}:?$/.test(cell) || cell === '');
+}
+
+function readPipeTable(lines: Line[], first: number): { rows: string[][]; last: number } | null {
+  const rows: string[][] = [];
+  let index = first;
+  for (; index < lines.length; index++) {
+    const cells = pipeCells(lines[index]!);
+    if (cells === null) break;
+    if (!isSeparatorRow(cells)) rows.push(cells);
+  }
+  if (rows.length < 2) return null;
+  return { rows, last: index - 1 };
+}
+
+// ------------------------------------------------ aligned and crushed tables
+
+/** Splits at whitespace outside brackets; "F (2, 57)" and "Error (between)" stay whole, "< .001" is joined. */
+function tokenize(text: string): Piece[] {
+  const raw: Piece[] = [];
+  let at = 0;
+  while (at < text.length) {
+    while (at < text.length && isSpace(text.charCodeAt(at))) at++;
+    if (at >= text.length) break;
+    const start = at;
+    let depth = 0;
+    while (at < text.length) {
+      const code = text.charCodeAt(at);
+      if (code === 40) depth++;
+      else if (code === 41) depth = Math.max(0, depth - 1);
+      else if (depth === 0 && isSpace(code)) break;
+      at++;
+    }
+    raw.push({ text: text.slice(start, at), start, end: at });
+  }
+  const tokens: Piece[] = [];
+  for (const token of raw) {
+    const previous = tokens[tokens.length - 1];
+    const joinsPrevious =
+      previous !== undefined && (token.text.startsWith('(') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
+    if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
+    else tokens.push(token);
+  }
+  return tokens;
+}
+
+function isSpace(code: number): boolean {
+  return code === 32 || code === 9 || code === 0xa0;
+}
+
+/** A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". */
+function isValueToken(text: string): boolean {
+  const kind = readCell(text).kind;
+  return kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '');
+}
+
+/**
+ * PDF text extraction can put tabs between some cells of a row and single
+ * spaces between others ("Source \tSS \tdf MS F \tp", "Error \t171.12 93 1.84").
+ * When a tab-separated piece still holds several values or names, the tabs do
+ * not mark cells: read the line as space-separated (a tab becomes one space,
+ * so offsets do not move).
+ */
+function withConsistentSeparators(line: Line): Line {
+  if (!line.text.includes('\t')) return line;
+  const pieces = line.text.split('\t').map((piece) => piece.trim()).filter((piece) => piece !== '');
+  const crowded = pieces.slice(1).some((piece) => {
+    const words = piece.split(/ +/);
+    return words.length > 1 && words.every((word) => isValueToken(word) || isKnownHeader(headerKey(word)));
+  });
+  return crowded ? { ...line, text: line.text.replace(/\t/g, ' '), crushed: true } : line;
+}
+
+/** Cells apart by two or more spaces or a tab, with their offsets. */
+function alignedCells(text: string): Piece[] {
+  const cells: Piece[] = [];
+  const separator = /\t+| {2,}/g;
+  let start = leadingSpace(text);
+  separator.lastIndex = start;
+  for (let match = separator.exec(text); match !== null; match = separator.exec(text)) {
+    if (match.index > start) cells.push({ text: text.slice(start, match.index), start, end: match.index });
+    start = match.index + match[0].length;
+  }
+  const end = text.trimEnd().length;
+  if (end > start) cells.push({ text: text.slice(start, end), start, end });
+  return cells;
+}
+
+interface HeaderLine {
+  columns: Piece[];
+  /** True when the columns stand apart by wide gaps, so positions can place data cells. */
+  aligned: boolean;
+  /** True when the header's cells are separated by single tabs, as rows copied from a word processor are. */
+  tabbed: boolean;
+}
+
+/**
+ * A header line: known column names, after an optional label header
+ * ("Source", "Effect", or any words before the first known name). Aligned
+ * headers are read cell by cell; crushed ones are grouped into the longest
+ * known phrases ("Sum of squares", "Partial eta squared").
+ */
+function readHeader(line: Line): HeaderLine | null {
+  const text = line.text;
+  if (text.length > MAX_ROW_LENGTH || text.trim() === '' || /\d\.\d/.test(text)) return null;
+  if (!line.crushed && text.includes('\t')) {
+    const cells = text.split('\t').map((cell) => cell.trim());
+    const known = cells.filter((cell) => isKnownHeader(headerKey(cell)) || INCOMPLETE_HEADERS.has(headerKey(cell))).length;
+    // PDF text extraction can put tabs between some header cells and spaces between others
+    // ("Source \tSS \tdf MS F \tp"): a tab cell holding several words that are not one known
+    // name means the tabs do not mark cells, so the line is read as crushed instead.
+    const mixed = cells.slice(1).some((cell) => /\s/.test(cell) && !isKnownHeader(headerKey(cell)));
+    if (!mixed && cells.length >= 3 && known >= 2 && known >= cells.length - 1) {
+      return { columns: cells.map((cell) => ({ text: cell, start: 0, end: 0 })), aligned: false, tabbed: true };
+    }
+  }
+  const cells = line.crushed ? [] : alignedCells(text);
+  if (cells.length >= 3) {
+    const known = cells.filter((cell) => isKnownHeader(headerKey(cell.text)) || INCOMPLETE_HEADERS.has(headerKey(cell.text))).length;
+    if (known >= 2 && known >= cells.length - 1) {
+      const first = cells[0]!;
+      const labelKnown = classifyHeader(first.text).role === 'label' || !isKnownHeader(headerKey(first.text));
+      const columns = labelKnown ? cells : [{ text: '', start: 0, end: 0 }, ...cells];
+      return { columns, aligned: true, tabbed: false };
+    }
+  }
+  const tokens = tokenize(text);
+  if (tokens.length < 2) return null;
+  const columns: Piece[] = [];
+  let index = 0;
+  let labelEnd = 0;
+  // Label header: words up to the first known column name (a label word itself counts as label).
+  while (index < tokens.length && index <= MAX_LABEL_WORDS && !startsKnownPhrase(tokens, index)) index++;
+  if (index >= tokens.length || index > MAX_LABEL_WORDS) return null;
+  if (index > 0) labelEnd = index;
+  else if (classifyHeader(tokens[0]!.text).role === 'label') {
+    const length = knownPhraseLength(tokens, 0);
+    labelEnd = length;
+    index = length;
+  }
+  if (labelEnd > MAX_LABEL_WORDS) return null;
+  columns.push(labelEnd > 0 ? join(text, tokens[0]!, tokens[labelEnd - 1]!) : { text: '', start: 0, end: 0 });
+  let named = 0;
+  while (index < tokens.length) {
+    const length = knownPhraseLength(tokens, index);
+    if (length === 0) return null;
+    columns.push(join(text, tokens[index]!, tokens[index + length - 1]!));
+    index += length;
+    named++;
+  }
+  return named >= 2 ? { columns, aligned: false, tabbed: false } : null;
+}
+
+function join(text: string, first: Piece, last: Piece): Piece {
+  return { text: text.slice(first.start, last.end), start: first.start, end: last.end };
+}
+
+function startsKnownPhrase(tokens: Piece[], index: number): boolean {
+  return knownPhraseLength(tokens, index) > 0;
+}
+
+/** Words in the longest known header phrase starting at `index` (0 if none). */
+function knownPhraseLength(tokens: Piece[], index: number): number {
+  for (let length = Math.min(LONGEST_HEADER_WORDS, tokens.length - index); length >= 1; length--) {
+    const phrase = tokens
+      .slice(index, index + length)
+      .map((token) => token.text)
+      .join(' ');
+    const key = headerKey(phrase);
+    if (isKnownHeader(key) || INCOMPLETE_HEADERS.has(key)) return length;
+  }
+  return 0;
+}
+
+interface DataLine {
+  label: Piece;
+  values: Piece[];
+}
+
+/** A row: a label, then a run of values (numbers, dashes, "ns") to the end of the line. */
+function readDataLine(line: Line, minimumValues: number): DataLine | null {
+  const text = line.text;
+  if (text.length > MAX_ROW_LENGTH) return null;
+  const tokens = tokenize(text);
+  let first = tokens.length;
+  while (first > 0 && isValueToken(tokens[first - 1]!.text)) first--;
+  if (first === 0 && tokens.length > 0) first = 1; // all numbers: the first is the label ("1", "2005")
+  const values = tokens.slice(first);
+  if (values.length < minimumValues || values.every((token) => readCell(token.text).kind !== 'number')) return null;
+  const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
+  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || /[=<>]/.test(label.text)) return null;
+  return { label, values };
+}
+
+/** A short line without digits inside a table: "Between subjects", "Within subjects". */
+function isSectionLine(line: Line | undefined): boolean {
+  if (line === undefined) return false;
+  const text = line.text.trim();
+  if (text === '' || text.length > 60 || /\d/.test(text) || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
+  return text.split(/\s+/).length <= 6;
+}
+
+function readSpacedTable(lines: Line[], first: number): { rows: string[][]; last: number } | null {
+  const header = readHeader(lines[first]!);
+  const titled = readTitle(lines, first) !== null;
+  if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
+  let index = header === null ? first : first + 1;
+  const columns = header?.columns.map((column) => column.text) ?? null;
+  if (header !== null && lines[index] !== undefined && HEADER_CONTINUATION.test(lines[index]!.text)) {
+    attachContinuation(columns!, lines[index]!.text.trim().split(/\s+/));
+    index++;
+  }
+  const rows: string[][] = columns ? [columns] : [];
+  let dataRows = 0;
+  let last = header === null ? first - 1 : index - 1;
+  for (; index < lines.length; index++) {
+    const line = lines[index]!;
+    const data = readRowLine(line, dataRows === 0);
+    if (data !== null) {
+      rows.push(placeRow(data, line, header));
+      dataRows++;
+      last = index;
+      continue;
+    }
+    // A section line belongs to the table only when a data row follows it.
+    const next = lines[index + 1];
+    const afterNext = lines[index + 2];
+    const followed =
+      (next !== undefined && readRowLine(next, false) !== null) ||
+      (isSectionLine(next) && afterNext !== undefined && readRowLine(afterNext, false) !== null);
+    if (isSectionLine(line) && followed) {
+      rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);
+      continue;
+    }
+    break;
+  }
+  if (dataRows === 0) return null;
+  return { rows, last };
+}
+
+/** Labels of rows that may carry a single number (an error row with only its df). */
+const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subjects?|participants?)\b/i;
+
+/** A data line of a table: two or more values, or one after an error or total label. */
+function readRowLine(line: Line, first: boolean): DataLine | null {
+  if (TITLE.test(line.text) || NOTE.test(line.text)) return null;
+  const data = readDataLine(line, 1);
+  if (data === null) return null;
+  if (data.values.length >= 2 || (!first && SPARSE_ROW_LABEL.test(data.label.text))) return data;
+  return null;
+}
+
+/** "ηp" + a following line "2" -> "ηp2" (PDF text puts superscripts on their own line). */
+function attachContinuation(columns: string[], pieces: string[]): void {
+  const incomplete = columns.map((column, index) => (INCOMPLETE_HEADERS.has(headerKey(column)) ? index : -1)).filter((index) => index >= 0);
+  if (incomplete.length === pieces.length) {
+    incomplete.forEach((column, index) => (columns[column] = `${columns[column]}${pieces[index]}`));
+  } else if (pieces.length === 1 && incomplete.length > 0) {
+    const column = incomplete[incomplete.length - 1]!;
+    columns[column] = `${columns[column]}${pieces[0]}`;
+  }
+}
+
+/**
+ * Puts a data line's values under the header's columns: by position when
+ * the header is laid out with wide gaps and the values fall into distinct
+ * columns in order, otherwise left to right (missing cells are the last
+ * ones, as in an error row that has no F or p). Values beyond the columns
+ * belong to the label ("Block 2 12.40 2 ...").
+ */
+function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string[] {
+  if (header !== null && header.tabbed && line.text.includes('\t')) {
+    // One tab per cell: empty cells are empty strings between tabs.
+    const cells = line.text.split('\t').map((cell) => cell.trim());
+    return header.columns.map((_, index) => cells[index] ?? '');
+  }
+  let label = data.label;
+  let values = data.values;
+  if (header === null) return [label.text, ...values.map((value) => value.text)];
+  const width = header.columns.length;
+  if (values.length > width - 1) {
+    const extra = values.length - (width - 1);
+    label = label.text === '' ? join(line.text, values[0]!, values[extra - 1]!) : join(line.text, label, values[extra - 1]!);
+    values = values.slice(extra);
+  }
+  const row = [label.text, ...new Array<string>(width - 1).fill('')];
+  const byPosition = header.aligned ? placeByPosition(values, header.columns) : null;
+  if (byPosition !== null) {
+    byPosition.forEach((column, index) => (row[column] = values[index]!.text));
+  } else {
+    values.forEach((value, index) => (row[index + 1] = value.text));
+  }
+  return row;
+}
+
+/** Column of each value by the zones between header cells, or null when they collide or go backwards. */
+function placeByPosition(values: Piece[], columns: Piece[]): number[] | null {
+  const zones = columns.map((column, index) => {
+    const previous = columns[index - 1];
+    const next = columns[index + 1];
+    return {
+      low: previous === undefined ? -Infinity : (previous.end + column.start) / 2,
+      high: next === undefined ? Infinity : (column.end + next.start) / 2,
+    };
+  });
+  const placed: number[] = [];
+  for (const value of values) {
+    const centre = (value.start + value.end) / 2;
+    const column = zones.findIndex((zone) => centre >= zone.low && centre < zone.high);
+    if (column < 1 || (placed.length > 0 && column <= placed[placed.length - 1]!)) return null;
+    placed.push(column);
+  }
+  return placed;
+}
+
+// ------------------------------------------------------------ titles, notes
+
+/** The "Table 2 ..." line(s) right before the line `first`, allowing one blank line. */
+function readTitle(lines: Line[], first: number): { caption: string; firstLine: number } | null {
+  let index = first - 1;
+  if (isBlank(lines[index]) && index >= 0) index--;
+  const line = lines[index];
+  if (line === undefined || index < 0) return null;
+  if (TITLE.test(line.text) && line.text.length <= 300) return { caption: line.text.trim(), firstLine: index };
+  // APA layout: "Table 2" on its own line, the title on the next.
+  let above = index - 1;
+  if (isBlank(lines[above]) && above >= 0) above--;
+  const bare = lines[above];
+  if (bare !== undefined && above >= 0 && BARE_TITLE.test(bare.text) && line.text.trim().length <= 200) {
+    return { caption: `${bare.text.trim()} ${line.text.trim()}`, firstLine: above };
+  }
+  return null;
+}
+
+/** Note lines right after the table (one blank line allowed), each with up to three wrapped continuation lines. */
+function readNotes(lines: Line[], first: number): { notes: string[]; lastLine: number | null } {
+  const notes: string[] = [];
+  let lastLine: number | null = null;
+  let index = first;
+  if (isBlank(lines[index]) && lines[index + 1] !== undefined && NOTE.test(lines[index + 1]!.text)) index++;
+  while (index < lines.length && NOTE.test(lines[index]!.text)) {
+    let note = lines[index]!.text.trim();
+    lastLine = index;
+    index++;
+    for (let wrapped = 0; wrapped < 3 && index < lines.length; wrapped++) {
+      const next = lines[index]!;
+      if (isBlank(next) || NOTE.test(next.text) || TITLE.test(next.text) || /[.!?]$/.test(note)) break;
+      note = `${note} ${next.text.trim()}`;
+      lastLine = index;
+      index++;
+    }
+    notes.push(note);
+  }
+  return { notes, lastLine };
+}

@@ -1,0 +1,501 @@
+/**
+ * Turns the rows of ANOVA summary tables (and of tables of t tests,
+ * correlations and chi-square tests) into reported results.
+ *
+ * A table counts when its header names a test statistic column (F, t, χ2, r,
+ * z) and the degrees of freedom can be found: in a df column (with the error
+ * row's df as the F's second df), in separate numerator/denominator df
+ * columns, in the statistic's header ("F(1, 170)"), in the row label
+ * ("effect on recall, F(1, 170)") or in a note under the table ("df = 1, 170
+ * for all effects"). Tables of descriptive statistics (M, SD, n) have no
+ * statistic column and give nothing; neither do look-alikes without df (a
+ * column "F" of female counts, a column "f" of frequencies).
+ *
+ * Rows that are not effects: error rows (Error, Residual(s), Within, Within
+ * groups, Error (condition)) are read as the error term of the effects above
+ * them; Total and Corrected total are skipped. Intercept rows are skipped
+ * too: their test (grand mean = 0) is not a result of the design, its value
+ * depends on where the scale starts, nobody discusses it, and in
+ * repeated-measures output it is tested against an error term that the
+ * layout does not show, so the nearest error row would often be wrong.
+ *
+ * A row whose cell already holds a complete written result ("t(58) = 2.10,
+ * p = .04") is left to the text scanner, which finds it there.
+ */
+
+import type { DocumentTable } from '../../documents/types.js';
+import { normaliseText } from '../normalise.js';
+import { scanText } from '../scan.js';
+import type {
+  Comparator,
+  EffectKind,
+  ReportedEffect,
+  ReportedNumber,
+  ReportedResult,
+  StatisticKind,
+  TableColumn,
+  TableRowOrigin,
+} from '../types.js';
+import { parseReportedNumber } from '../../stats/reportedNumber.js';
+import { classifyHeader, headerKey, readCell, type ColumnRole } from './cells.js';
+
+type CellRecord = ReportedNumber & { start: number; end: number };
+type Cells = Partial<Record<TableColumn, CellRecord>>;
+
+/** A column's meaning within one test (one statistic column and the columns that go with it). */
+type RoleKey = 'statistic' | 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' | `effect:${EffectKind}`;
+
+interface Segment {
+  columns: Map<RoleKey, number>;
+  /** Title over the statistic column in a spanning header row ("Recall"), when the table tests several outcomes. */
+  title: string | null;
+  /** df printed in the statistic's header: "F(1, 170)". */
+  headerDf: ReportedNumber[];
+}
+
+interface LocatedCell {
+  start: number;
+  end: number;
+}
+
+const STATISTIC_PRIORITY: StatisticKind[] = ['F', 't', 'chi2', 'r', 'z'];
+const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic', 'p', 'partial-eta-squared', 'eta-squared', 'generalized-eta-squared', 'omega-squared', 'cohens-d', 'r']);
+
+const ERROR_LABEL = /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term)(?![a-z])/;
+const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\))(?![a-z])/;
+const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
+
+/** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */
+export function readTableResults(text: string, tables: DocumentTable[]): ReportedResult[] {
+  const results: ReportedResult[] = [];
+  distinctTables(tables).forEach((table, index) => {
+    for (const result of readTable(text, table, index)) results.push(result);
+  });
+  return results.sort((a, b) => a.start - b.start);
+}
+
+/**
+ * The tables in reading order, each once: the readers write a marked-up
+ * table into the text as " | " rows, where findTextTables finds it again;
+ * of overlapping tables the one listed first is kept.
+ */
+function distinctTables(tables: DocumentTable[]): DocumentTable[] {
+  const kept: DocumentTable[] = [];
+  for (const table of tables) {
+    if (!kept.some((other) => table.start < other.end && other.start < table.end)) kept.push(table);
+  }
+  return kept.sort((a, b) => a.start - b.start);
+}
+
+function readTable(text: string, table: DocumentTable, tableIndex: number): ReportedResult[] {
+  const rows = table.rows;
+  const headerCount = rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell).kind === 'number'));
+  if (headerCount < 1) return [];
+  const width = Math.max(...rows.map((row) => row.length));
+  const headers: string[] = [];
+  const upperHeaders: (string | null)[] = [];
+  for (let column = 0; column < width; column++) {
+    const texts = rows.slice(0, headerCount).map((row) => (row[column] ?? '').trim());
+    const filled = texts.filter((cell) => cell !== '');
+    headers.push(filled[filled.length - 1] ?? '');
+    upperHeaders.push(filled.length >= 2 ? filled[filled.length - 2]! : null);
+  }
+  const roles = headers.map((header, column) => (column === 0 ? ({ role: 'label' } as ColumnRole) : classifyHeader(header)));
+  const kind = STATISTIC_PRIORITY.find((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
+  if (kind === undefined) return [];
+  // A column of z without p may hold standard scores, not tests.
+  const segments = buildSegments(roles, kind, upperHeaders).filter((segment) => kind !== 'z' || segment.columns.has('p'));
+  if (segments.length === 0) return [];
+
+  const noteText = [...table.notes, table.caption ?? ''].join(' ');
+  const noteDf = readNoteDf(noteText);
+  const noteN = readNoteSampleSize(noteText);
+  const located = locateRows(text, table, headerCount);
+  const errorRows = rows.map((row, index) => index >= headerCount && isErrorRow(row, segments));
+  const results: ReportedResult[] = [];
+
+  for (let index = headerCount; index < rows.length; index++) {
+    const row = rows[index]!;
+    const cellsAt = located[index];
+    if (!cellsAt) continue;
+    const labelKey = headerKey(row[0] ?? '');
+    if (errorRows[index] || TOTAL_LABEL.test(labelKey) || INTERCEPT_LABEL.test(labelKey)) continue;
+    if (row.some((cell) => cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0)) continue;
+    const errorIndex = nearestErrorRow(errorRows, index);
+    const rowSpan = spanOfRow(row, cellsAt);
+    if (rowSpan === null) continue;
+    for (const segment of segments) {
+      const result = readRow({
+        text,
+        table,
+        tableIndex,
+        kind,
+        row,
+        cellsAt,
+        segment,
+        multiple: segments.length > 1,
+        errorRow: errorIndex === null ? null : { row: rows[errorIndex]!, cellsAt: located[errorIndex] ?? null },
+        noteDf,
+        noteN,
+        rowSpan,
+      });
+      if (result !== null) results.push(result);
+    }
+  }
+  return results;
+}
+
+/**
+ * Groups columns into tests: one group per statistic column of the table's
+ * kind; a column whose meaning already occurs in the current group starts
+ * the next one ("df F p | df F p"). Groups without their own df borrow the
+ * first group's df columns ("Source | df | F (Recall) | p | F (Recognition) | p").
+ */
+function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (string | null)[]): Segment[] {
+  const segments: Segment[] = [];
+  let current: Segment = { columns: new Map(), title: null, headerDf: [] };
+  roles.forEach((role, column) => {
+    const key = roleKey(role, kind);
+    if (key === null) return;
+    if (current.columns.has(key) && current.columns.has('statistic')) {
+      segments.push(current);
+      current = { columns: new Map(), title: null, headerDf: [] };
+    }
+    current.columns.set(key, column);
+    if (key === 'statistic' && role.role === 'statistic') {
+      current.headerDf = role.df;
+      current.title = upperHeaders[column] ?? null;
+    }
+  });
+  segments.push(current);
+  const withStatistic = segments.filter((segment) => segment.columns.has('statistic'));
+  const first = withStatistic[0];
+  for (const segment of withStatistic.slice(1)) {
+    for (const key of ['df', 'df1', 'df2', 'n'] as const) {
+      const column = first?.columns.get(key);
+      if (!segment.columns.has(key) && column !== undefined) segment.columns.set(key, column);
+    }
+  }
+  return withStatistic;
+}
+
+function roleKey(role: ColumnRole, kind: StatisticKind): RoleKey | null {
+  switch (role.role) {
+    case 'statistic':
+      if (role.kind === kind) return 'statistic';
+      return role.kind === 'r' ? 'effect:r' : null;
+    case 'effect':
+      return `effect:${role.effect}`;
+    case 'ss':
+    case 'df':
+    case 'df1':
+    case 'df2':
+    case 'ms':
+    case 'p':
+    case 'n':
+      return role.role;
+    default:
+      return null;
+  }
+}
+
+function isErrorRow(row: string[], segments: Segment[]): boolean {
+  if (!ERROR_LABEL.test(headerKey(row[0] ?? ''))) return false;
+  const columns = segments[0]!.columns;
+  const hasStatistic = readCell(row[columns.get('statistic')!] ?? '').kind === 'number';
+  const hasTerms = (['df', 'df1', 'ss', 'ms'] as const).some((key) => {
+    const column = columns.get(key);
+    return column !== undefined && readCell(row[column] ?? '').kind === 'number';
+  });
+  return hasTerms && !hasStatistic;
+}
+
+/** The nearest error row below the effect; above it only when the table has a single error row. */
+function nearestErrorRow(errorRows: boolean[], index: number): number | null {
+  for (let below = index + 1; below < errorRows.length; below++) if (errorRows[below]) return below;
+  const all = errorRows.flatMap((isError, at) => (isError ? [at] : []));
+  return all.length === 1 ? all[0]! : null;
+}
+
+// ------------------------------------------------------------ row reading
+
+interface RowInput {
+  text: string;
+  table: DocumentTable;
+  tableIndex: number;
+  kind: StatisticKind;
+  row: string[];
+  cellsAt: (LocatedCell | null)[];
+  segment: Segment;
+  multiple: boolean;
+  errorRow: { row: string[]; cellsAt: (LocatedCell | null)[] | null } | null;
+  noteDf: NoteDf;
+  noteN: ReportedNumber | null;
+  rowSpan: LocatedCell;
+}
+
+interface NumberCell {
+  comparator: Comparator;
+  record: CellRecord;
+}
+
+function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): NumberCell | null | 'ns' {
+  if (column === undefined) return null;
+  const cell = row[column] ?? '';
+  const read = readCell(cell);
+  if (read.kind === 'ns') return 'ns';
+  if (read.kind !== 'number') return null;
+  const at = cellsAt?.[column] ?? null;
+  const start = at === null ? -1 : at.start + read.start;
+  const end = at === null ? -1 : at.start + read.end;
+  return { comparator: read.comparator, record: { ...read.number, start, end } };
+}
+
+function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): NumberCell | null {
+  const found = numberAt(row, cellsAt, column);
+  return found === 'ns' ? null : found;
+}
+
+function readRow(input: RowInput): ReportedResult | null {
+  const { row, cellsAt, segment, kind } = input;
+  const columns = segment.columns;
+  const statistic = plainNumber(row, cellsAt, columns.get('statistic'));
+  if (statistic === null) return null;
+  const cells: Cells = {};
+  const record = (key: TableColumn, cell: NumberCell | null): void => {
+    if (cell !== null) cells[key] = cell.record;
+  };
+  record('statistic', statistic);
+  const labelDf = readLabelDf(row[0] ?? '');
+  const dfCell = plainNumber(row, cellsAt, columns.get('df'));
+  const df1Cell = plainNumber(row, cellsAt, columns.get('df1'));
+  const df2Cell = plainNumber(row, cellsAt, columns.get('df2'));
+  record('df', dfCell);
+  record('df1', df1Cell);
+  record('df2', df2Cell);
+  record('ss', plainNumber(row, cellsAt, columns.get('ss')));
+  record('ms', plainNumber(row, cellsAt, columns.get('ms')));
+
+  let errorRow: TableRowOrigin['errorRow'] = null;
+  let errorDf: ReportedNumber | null = null;
+  if (input.errorRow !== null && kind === 'F') {
+    const errorCells: Cells = {};
+    for (const key of ['ss', 'df', 'df1', 'df2', 'ms'] as const) {
+      const cell = plainNumber(input.errorRow.row, input.errorRow.cellsAt, columns.get(key));
+      if (cell !== null) errorCells[key] = cell.record;
+    }
+    errorRow = { rowLabel: (input.errorRow.row[0] ?? '').trim(), cells: errorCells };
+    errorDf = errorCells.df ?? errorCells.df1 ?? null;
+  }
+
+  const df = degreesOfFreedom(kind, {
+    dfCell: dfCell?.record ?? null,
+    df1Cell: df1Cell?.record ?? null,
+    df2Cell: df2Cell?.record ?? null,
+    errorDf,
+    labelDf,
+    headerDf: segment.headerDf,
+    noteDf: input.noteDf,
+    nCell: plainNumber(row, cellsAt, columns.get('n'))?.record ?? null,
+    noteN: input.noteN,
+  });
+  if (df === null || df.some((value) => !(value.value > 0))) return null;
+
+  const pCell = numberAt(row, cellsAt, columns.get('p'));
+  if (pCell !== null && pCell !== 'ns') record('p', pCell);
+  const effects: ReportedEffect[] = [];
+  for (const [key, column] of columns) {
+    if (!key.startsWith('effect:')) continue;
+    const effectKind = key.slice('effect:'.length) as EffectKind;
+    const cell = plainNumber(row, cellsAt, column);
+    if (cell === null) continue;
+    if (CELL_COLUMNS.has(effectKind)) cells[effectKind as TableColumn] = cell.record;
+    effects.push({ kind: effectKind, comparator: cell.comparator, value: stripOffsets(cell.record), interval: null, start: cell.record.start, end: cell.record.end });
+  }
+  effects.sort((a, b) => a.start - b.start);
+
+  const label = (row[0] ?? '').trim();
+  const sampleSize = kind === 'chi2' ? (plainNumber(row, cellsAt, columns.get('n'))?.record ?? input.noteN) : null;
+  const { start, end } = input.rowSpan;
+  return {
+    kind,
+    text: input.text.slice(start, end),
+    start,
+    end,
+    df,
+    sampleSize: sampleSize === null ? null : stripOffsets(sampleSize),
+    value: stripOffsets(statistic.record),
+    valueComparator: statistic.comparator,
+    p:
+      pCell === null || pCell === 'ns'
+        ? null
+        : { comparator: pCell.comparator, value: stripOffsets(pCell.record), plural: false, start: pCell.record.start, end: pCell.record.end },
+    notSignificant: pCell === 'ns',
+    effects,
+    tableRow: {
+      tableIndex: input.tableIndex,
+      caption: input.table.caption,
+      rowLabel: input.multiple && segment.title !== null ? `${label} (${segment.title})` : label,
+      cells,
+      errorRow,
+    },
+  };
+}
+
+function stripOffsets(record: ReportedNumber & Partial<LocatedCell>): ReportedNumber {
+  return { value: record.value, text: record.text, decimals: record.decimals, exponent: record.exponent };
+}
+
+// ---------------------------------------------------- degrees of freedom
+
+interface DfSources {
+  dfCell: ReportedNumber | null;
+  df1Cell: ReportedNumber | null;
+  df2Cell: ReportedNumber | null;
+  errorDf: ReportedNumber | null;
+  labelDf: ReportedNumber[];
+  headerDf: ReportedNumber[];
+  noteDf: NoteDf;
+  nCell: ReportedNumber | null;
+  noteN: ReportedNumber | null;
+}
+
+/** df in order of closeness to the row: its own cells, the error row, its label, the column header, the table note. */
+function degreesOfFreedom(kind: StatisticKind, sources: DfSources): ReportedNumber[] | null {
+  const pairFrom = (list: ReportedNumber[]): [ReportedNumber | null, ReportedNumber | null] =>
+    list.length === 2 ? [list[0]!, list[1]!] : [null, null];
+  const [labelFirst, labelSecond] = pairFrom(sources.labelDf);
+  const [headerFirst, headerSecond] = pairFrom(sources.headerDf);
+  const [noteFirst, noteSecond] = pairFrom(sources.noteDf.pair);
+  if (kind === 'F') {
+    const df1 = sources.df1Cell ?? sources.dfCell ?? labelFirst ?? headerFirst ?? noteFirst;
+    const df2 = sources.df2Cell ?? sources.errorDf ?? labelSecond ?? headerSecond ?? noteSecond ?? sources.noteDf.error;
+    return df1 !== null && df2 !== null ? [stripOffsets(df1), stripOffsets(df2)] : null;
+  }
+  if (kind === 'z') return [];
+  const single = (list: ReportedNumber[]): ReportedNumber | null => (list.length === 1 ? list[0]! : null);
+  const fromN = (n: ReportedNumber | null): ReportedNumber | null =>
+    n !== null && n.decimals === 0 && n.value > 2 ? { value: n.value - 2, text: String(n.value - 2), decimals: 0, exponent: 0 } : null;
+  let df = sources.dfCell ?? sources.df1Cell ?? single(sources.labelDf) ?? single(sources.headerDf) ?? sources.noteDf.single;
+  if (df === null && kind === 'r') df = fromN(sources.nCell) ?? fromN(sources.noteN);
+  return df === null ? null : [stripOffsets(df)];
+}
+
+/** A bracketed df written after a statistic symbol in a row label: "effect on recall, F(1, 170)". */
+const LABEL_DF = /(?:^|[^a-z])(?:f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)/i;
+
+function readLabelDf(label: string): ReportedNumber[] {
+  if (label.length > 200) return [];
+  const match = LABEL_DF.exec(normaliseText(label).text);
+  if (!match) return [];
+  return [match[1], match[2]].filter((text): text is string => text !== undefined).map((text) => parseReportedNumber(text)!);
+}
+
+interface NoteDf {
+  /** "df = 1, 170", "dfs = (2, 57)", "F(1, 170)". */
+  pair: ReportedNumber[];
+  /** "df = 58". */
+  single: ReportedNumber | null;
+  /** "error df = 57", "df error = 57". */
+  error: ReportedNumber | null;
+}
+
+const NOTE_ERROR_DF = /(?:error|residual)\s+dfs?\s*=\s*(\d+(?:\.\d+)?)|\bdfs?\s*(?:\(\s*error\s*\)|error|residual)\s*=\s*(\d+(?:\.\d+)?)/i;
+const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*=\s*\(?\s*(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?\s*\)?/i;
+const NOTE_F_DF = /(?:^|[^a-z])F\s*\(\s*(\d+(?:\.\d+)?)\s*,\s*(\d+(?:\.\d+)?)\s*\)/;
+
+function readNoteDf(note: string): NoteDf {
+  const text = normaliseText(note.slice(0, 2000)).text;
+  const none: NoteDf = { pair: [], single: null, error: null };
+  const errorMatch = NOTE_ERROR_DF.exec(text);
+  const error = errorMatch ? parseReportedNumber(errorMatch[1] ?? errorMatch[2]!) : null;
+  const withoutError = errorMatch ? text.slice(0, errorMatch.index) + text.slice(errorMatch.index + errorMatch[0].length) : text;
+  const dfMatch = NOTE_DF.exec(withoutError);
+  if (dfMatch) {
+    const first = parseReportedNumber(dfMatch[1]!)!;
+    if (dfMatch[2] !== undefined) return { ...none, pair: [first, parseReportedNumber(dfMatch[2])!], error };
+    return { ...none, single: first, error };
+  }
+  const fMatch = NOTE_F_DF.exec(withoutError);
+  if (fMatch) return { ...none, pair: [parseReportedNumber(fMatch[1]!)!, parseReportedNumber(fMatch[2]!)!], error };
+  return { ...none, error };
+}
+
+function readNoteSampleSize(note: string): ReportedNumber | null {
+  const match = /(?:^|[^A-Za-z])N\s*=\s*(\d{1,3}(?:,\d{3})+|\d+)(?![\d.])/.exec(note.slice(0, 2000));
+  return match ? parseReportedNumber(match[1]!.replace(/,/g, '')) : null;
+}
+
+// ------------------------------------------------------ locating the cells
+
+/**
+ * Finds each data row's cells in the text: the row's line is the next line of
+ * the table holding all its non-empty cells in order, each standing apart
+ * from neighbouring digits and letters. Rows not found get null.
+ */
+function locateRows(text: string, table: DocumentTable, headerCount: number): ((LocatedCell | null)[] | null)[] {
+  const lines: LocatedCell[] = [];
+  for (let start = table.start; start <= table.end; ) {
+    let end = text.indexOf('\n', start);
+    if (end === -1 || end > table.end) end = table.end;
+    lines.push({ start, end });
+    start = end + 1;
+  }
+  const located: ((LocatedCell | null)[] | null)[] = table.rows.map(() => null);
+  let nextLine = 0;
+  for (let index = headerCount; index < table.rows.length; index++) {
+    const row = table.rows[index]!;
+    for (let line = nextLine; line < lines.length && line < nextLine + 8; line++) {
+      const cells = matchRow(text, lines[line]!, row);
+      if (cells !== null) {
+        located[index] = cells;
+        nextLine = line + 1;
+        break;
+      }
+    }
+  }
+  return located;
+}
+
+function matchRow(text: string, line: LocatedCell, row: string[]): (LocatedCell | null)[] | null {
+  const lineText = text.slice(line.start, line.end);
+  const cells: (LocatedCell | null)[] = [];
+  let from = 0;
+  let any = false;
+  for (const cell of row) {
+    const wanted = cell.trim();
+    if (wanted === '') {
+      cells.push(null);
+      continue;
+    }
+    const at = findStandalone(lineText, wanted, from);
+    if (at === -1) return null;
+    cells.push({ start: line.start + at, end: line.start + at + wanted.length });
+    from = at + wanted.length;
+    any = true;
+  }
+  return any ? cells : null;
+}
+
+function isWordCharacter(code: number): boolean {
+  return (code >= 48 && code <= 57) || (code >= 65 && code <= 90) || (code >= 97 && code <= 122) || code === 46;
+}
+
+/** First occurrence of `wanted` in `line` at or after `from`, not glued to digits, letters or a decimal point. */
+function findStandalone(line: string, wanted: string, from: number): number {
+  const startsWord = isWordCharacter(wanted.charCodeAt(0));
+  const endsWord = isWordCharacter(wanted.charCodeAt(wanted.length - 1));
+  for (let at = line.indexOf(wanted, from); at !== -1; at = line.indexOf(wanted, at + 1)) {
+    const before = at > 0 ? line.charCodeAt(at - 1) : 32;
+    const after = at + wanted.length < line.length ? line.charCodeAt(at + wanted.length) : 32;
+    if ((!startsWord || !isWordCharacter(before)) && (!endsWord || !isWordCharacter(after))) return at;
+  }
+  return -1;
+}
+
+/** From the start of the row label (or first cell) to the end of the last non-empty cell. */
+function spanOfRow(row: string[], cellsAt: (LocatedCell | null)[]): LocatedCell | null {
+  const present = cellsAt.filter((cell): cell is LocatedCell => cell !== null);
+  if (present.length === 0) return null;
+  return { start: present[0]!.start, end: present[present.length - 1]!.end };
+}

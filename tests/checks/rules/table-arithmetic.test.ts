@@ -1,0 +1,93 @@
+import { describe, expect, it } from 'vitest';
+import { findTextTables, readTableResults } from '../../../src/scan/tables/index.js';
+import type { Finding } from '../../../src/checks/types.js';
+import { findingsOf, result } from '../helpers.js';
+
+// Definitions of the columns of an ANOVA summary table (MS = SS/df, F = MS/MS_error,
+// partial eta squared = SS/(SS + SS_error)); Maxwell, Delaney & Kelley (2018), cited from memory.
+// The tables are invented; the arithmetic in the comments was done by hand.
+const rule = 'table-arithmetic';
+
+/** Findings of this rule for every table row of `lines`, keyed by row label. */
+function tableFindings(lines: string[]): Record<string, Finding[]> {
+  const text = lines.join('\n');
+  const results = readTableResults(text, findTextTables(text));
+  const findings = findingsOf(rule, results, undefined, text);
+  return Object.fromEntries(results.map((r, i) => [r.tableRow!.rowLabel, findings[i]!]));
+}
+
+const header = 'Table 2. Analysis of variance for recall\nSource | SS | df | MS | F | p | ηp2';
+
+describe(`${rule}: must pass`, () => {
+  it('a consistent table (12.40/2 = 6.20; 83.95/57 = 1.4728; 6.20/1.47 = 4.22 within rounding; 12.40/96.35 = .129)', () => {
+    const findings = tableFindings([header, 'Condition | 12.40 | 2 | 6.20 | 4.21 | .020 | .13', 'Error | 83.95 | 57 | 1.47 | | |']);
+    expect(findings).toEqual({ Condition: [] });
+  });
+
+  it('the demo mixed table, where rounding of every cell matters (566.27/2 = 283.135 prints as 283.14)', () => {
+    const findings = tableFindings([
+      'Source | SS | df | MS | F | p | ηp2',
+      'Group | 871.82 | 1 | 871.82 | 4.83 | .031 | .06',
+      'Error (between) | 12815.50 | 71 | 180.50 | | |',
+      'Session | 566.27 | 2 | 283.14 | 12.64 | < .001 | .15',
+      'Session × Group | 152.77 | 2 | 76.38 | 3.41 | .036 | .05',
+      'Error (within) | 3180.80 | 142 | 22.40 | | |',
+    ]);
+    expect(Object.values(findings).flat()).toEqual([]);
+  });
+
+  it('a table with F computed from SS and df when MS is not printed (F = (20/1)/(190/95) = 10.0)', () => {
+    const findings = tableFindings(['Source | SS | df | F | p', 'Dose | 20.0 | 1 | 10.0 | .002', 'Error | 190.0 | 95 | |']);
+    expect(findings).toEqual({ Dose: [] });
+  });
+
+  it('results from running text, which have no table row', () => {
+    const findings = findingsOf(rule, [result({ kind: 'F', df: ['2', '57'], value: '4.21', p: '= .020' })]);
+    expect(findings).toEqual([[]]);
+  });
+
+  it('a table without SS or MS has nothing to check', () => {
+    expect(tableFindings(['Source | df | F | p', 'Dose | 1 | 10.0 | .002', 'Error | 95 | |'])).toEqual({ Dose: [] });
+  });
+});
+
+describe(`${rule}: must flag`, () => {
+  it('an effect MS that is not SS / df, naming table, row and cells', () => {
+    const { Condition } = tableFindings([header, 'Condition | 12.40 | 2 | 6.80 | 4.21 | .020 | .13', 'Error | 83.95 | 57 | 1.47 | | |']);
+    // F = 6.80/1.47 = 4.63 is off too, but F agrees with SS / df = 6.20: one mistyped cell, one finding.
+    expect(Condition).toHaveLength(1);
+    expect(Condition![0]).toMatchObject({ rule, severity: 'fail', messageId: 'msMismatch' });
+    expect(Condition![0]!.message).toBe("In Table 2, row 'Condition': MS = 6.80 but SS / df = 12.40 / 2 = 6.20 (6.1975 to 6.2025 allowing for rounding).");
+  });
+
+  it('an F that is not MS / MS error (6.20 / 1.47 = 4.22, printed 2.41)', () => {
+    const { Condition } = tableFindings([header, 'Condition | 12.40 | 2 | 6.20 | 2.41 | .099 | .13', 'Error | 83.95 | 57 | 1.47 | | |']);
+    expect(Condition!.map((f) => f.messageId)).toEqual(['fMismatch']);
+    expect(Condition![0]!.message).toContain("In Table 2, row 'Condition': F = 2.41 but MS / MS of 'Error' = 6.20 / 1.47 = 4.22");
+    expect(Condition![0]!.crossesAlpha).toBe(true); // printed p = .099 vs F = 4.22 with p about .02
+  });
+
+  it('a partial eta squared that is not SS / (SS + SS error) (12.40 / 96.35 = .129, printed .31)', () => {
+    const { Condition } = tableFindings([header, 'Condition | 12.40 | 2 | 6.20 | 4.21 | .020 | .31', 'Error | 83.95 | 57 | 1.47 | | |']);
+    expect(Condition!.map((f) => f.messageId)).toEqual(['partialEtaMismatch']);
+    expect(Condition![0]!.message).toContain("In Table 2, row 'Condition': partial eta squared = .31 but SS / (SS + SS of 'Error') = 12.40 / (12.40 + 83.95) = .13");
+  });
+
+  it('an error row MS that is not SS / df, reported once, with the first effect tested against it', () => {
+    const findings = tableFindings([
+      'Table 4',
+      'Source | SS | df | MS | F | p',
+      'Cue | 40.00 | 1 | 40.00 | 10.00 | .003',
+      'Tone | 8.00 | 1 | 8.00 | 2.00 | .165',
+      'Error | 160.00 | 40 | 5.00 | |',
+    ]);
+    // 160/40 = 4.00, not 5.00; F = 40/4 = 10 agrees with the SS-based MS but not with 40/5 = 8.
+    expect(findings.Cue!.map((f) => f.message)).toContain("In Table 4, row 'Error': MS = 5.00 but SS / df = 160.00 / 40 = 4.00 (3.9999 to 4.0001 allowing for rounding).");
+    expect(findings.Tone!.filter((f) => f.message.includes("row 'Error'"))).toEqual([]);
+  });
+
+  it('names an untitled table by its position', () => {
+    const findings = tableFindings(['Source | SS | df | MS | F | p', 'Cue | 40.00 | 1 | 20.00 | 5.00 | .031', 'Error | 160.00 | 40 | 4.00 | |']);
+    expect(findings.Cue![0]!.message).toMatch(/^In table 1, row 'Cue': MS = 20\.00 but SS \/ df = 40\.00 \/ 1 = 40\.00/);
+  });
+});
