@@ -1,6 +1,6 @@
 import { readFile, stat } from 'node:fs/promises';
 import fg from 'fast-glob';
-import { supportedExtensions } from '../documents/read.js';
+import { supportedExtensions } from '../documents/formats.js';
 
 export interface CollectedInputs {
   /** Files to audit, in a stable order, without duplicates. */

@@ -1,11 +1,8 @@
 import { existsSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
-import { Piscina } from 'piscina';
-import { resolveConfig } from '../checks/config.js';
 import type { DocumentOutput } from '../report/model.js';
 import { AuditCache } from './cache.js';
-import { auditFile } from './auditFile.js';
 import type { WorkerTask } from './worker.js';
 
 export interface BatchOptions {
@@ -62,13 +59,17 @@ export async function runBatch(options: BatchOptions): Promise<void> {
     options.onDocument(document, false);
   };
 
+  // Everything that checks documents is loaded only now, when some document is not in the cache.
+  const { resolveConfig } = await import('../checks/config.js');
+  const config = resolveConfig(options.task.userConfig, options.task.configSource); // bad settings fail here, before any thread starts
   const module = workerModule();
   if (options.jobs <= 1 || pending.length === 1 || module === null) {
-    const config = resolveConfig(options.task.userConfig, options.task.configSource);
+    const { auditFile } = await import('./auditFile.js');
     for (const item of pending) await finish(item, await auditFile(item.path, config, options.task.readOptions));
     return;
   }
 
+  const { Piscina } = await import('piscina');
   const pool = new Piscina<WorkerTask, DocumentOutput>({
     filename: module,
     minThreads: Math.min(options.jobs, pending.length),

@@ -1,41 +1,9 @@
-import { readFileSync } from 'node:fs';
-import { z } from 'zod';
-import { loadCatalogue, severitySchema, type RuleEntry } from './catalogue.js';
+import { loadCatalogue, type RuleEntry } from './catalogue.js';
+import { ConfigError, describeIssues, readUserConfigFile, userConfigSchema } from './userConfig.js';
+
+export { ConfigError, readUserConfigFile, userConfigSchema, type UserConfig } from './userConfig.js';
 import { checkModules } from './rules/index.js';
 import type { CheckModule, Severity } from './types.js';
-
-/**
- * The user's settings file (plumbline.config.json by convention):
- * {
- *   "alpha": 0.05,
- *   "rules": {
- *     "halved-p": "off",
- *     "cohens-d-mismatch": "note",
- *     "halved-p": { "severity": "fail", "options": { "statementDistance": 500 } }
- *   }
- * }
- */
-const ruleSettingSchema = z.union([
-  z.literal('off'),
-  severitySchema,
-  z
-    .object({
-      enabled: z.boolean().optional(),
-      severity: severitySchema.optional(),
-      options: z.record(z.string(), z.unknown()).optional(),
-    })
-    .strict(),
-]);
-
-export const userConfigSchema = z
-  .object({
-    $schema: z.string().optional(),
-    alpha: z.number().gt(0).lt(1).optional(),
-    rules: z.record(z.string(), ruleSettingSchema).optional(),
-  })
-  .strict();
-
-export type UserConfig = z.infer<typeof userConfigSchema>;
 
 export interface ActiveRule {
   entry: RuleEntry;
@@ -50,12 +18,6 @@ export interface ResolvedConfig {
   rules: ActiveRule[];
   /** Every catalogue entry, active or not (for listing). */
   catalogue: RuleEntry[];
-}
-
-export class ConfigError extends Error {}
-
-function describeIssues(source: string, issues: readonly z.core.$ZodIssue[]): string {
-  return issues.map((issue) => `${source}: ${issue.path.length ? issue.path.join('.') : '(top level)'}: ${issue.message}`).join('\n');
 }
 
 /** Applies a user config to the catalogue; every problem names the source and the field. */
@@ -84,20 +46,6 @@ export function resolveConfig(userConfig: unknown = {}, source = 'config', catal
     rules.push({ entry, module, severity, options: options.data });
   }
   return { defaultAlpha: parsed.data.alpha ?? 0.05, rules, catalogue };
-}
-
-/** Reads a settings file and validates it; a missing or malformed file is a ConfigError naming it. */
-export function readUserConfigFile(path: string): UserConfig {
-  let raw: unknown;
-  try {
-    raw = JSON.parse(readFileSync(path, 'utf8'));
-  } catch (error) {
-    const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'file not found' : `not valid JSON (${(error as Error).message})`;
-    throw new ConfigError(`${path}: ${reason}`);
-  }
-  const parsed = userConfigSchema.safeParse(raw);
-  if (!parsed.success) throw new ConfigError(describeIssues(path, parsed.error.issues));
-  return parsed.data;
 }
 
 /** Reads and resolves a settings file. */

@@ -1,11 +1,7 @@
 import { writeFileSync } from 'node:fs';
 import { Option, type Command } from 'commander';
-import { readUserConfigFile, resolveConfig, type ResolvedConfig, type UserConfig } from '../checks/config.js';
-import { formatConsole } from '../report/console.js';
-import { formatCsv } from '../report/csv.js';
-import { formatHtml } from '../report/html.js';
-import { formatJson } from '../report/json.js';
-import { formatMarkdown } from '../report/markdown.js';
+import type { ResolvedConfig } from '../checks/config.js';
+import { readUserConfigFile, type UserConfig } from '../checks/userConfig.js';
 import type { Report } from '../report/model.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
@@ -47,8 +43,10 @@ export function userConfigFrom(options: CommonOptions): { userConfig: UserConfig
   return { userConfig: { ...userConfig, alpha }, source: options.config ?? 'command line' };
 }
 
-export function configFrom(options: CommonOptions): ResolvedConfig {
+/** Resolves the settings against the rules catalogue (loads every check, so only when checking). */
+export async function configFrom(options: CommonOptions): Promise<ResolvedConfig> {
   const { userConfig, source } = userConfigFrom(options);
+  const { resolveConfig } = await import('../checks/config.js');
   return resolveConfig(userConfig, source);
 }
 
@@ -60,30 +58,31 @@ export function exitCodeFor(report: Report, failOn: FailOn): number {
   return fail > 0 || (failOn === 'warn' && warn > 0) ? EXIT_FLAGGED : EXIT_CLEAN;
 }
 
-export function formatReport(report: Report, format: ReportFormat, color: boolean, showAll: boolean): string {
+/** Formats a report; each formatter is loaded only when asked for. */
+export async function formatReport(report: Report, format: ReportFormat, color: boolean, showAll: boolean): Promise<string> {
   switch (format) {
     case 'json':
-      return formatJson(report);
+      return (await import('../report/json.js')).formatJson(report);
     case 'jsonl':
       return report.documents.map((d) => `${JSON.stringify(d)}\n`).join('');
     case 'text':
-      return formatConsole(report, { color, showAll });
+      return (await import('../report/console.js')).formatConsole(report, { color, showAll });
     case 'html':
-      return formatHtml(report);
+      return (await import('../report/html.js')).formatHtml(report);
     case 'csv':
-      return formatCsv(report);
+      return (await import('../report/csv.js')).formatCsv(report);
     case 'md':
-      return formatMarkdown(report);
+      return (await import('../report/markdown.js')).formatMarkdown(report);
   }
 }
 
 /** Writes the report to --output or stdout. Colour only on a terminal, never into a file. */
-export function writeReport(report: Report, options: CommonOptions, io: CliIo, showAll: boolean): void {
+export async function writeReport(report: Report, options: CommonOptions, io: CliIo, showAll: boolean): Promise<void> {
   if (options.output) {
-    writeFileSync(options.output, formatReport(report, options.format, false, showAll));
+    writeFileSync(options.output, await formatReport(report, options.format, false, showAll));
     return;
   }
-  io.stdout(formatReport(report, options.format, io.color, showAll));
+  io.stdout(await formatReport(report, options.format, io.color, showAll));
 }
 
 export function addCommonOptions(command: Command): Command {

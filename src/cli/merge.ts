@@ -1,5 +1,5 @@
 import type { Command } from 'commander';
-import { buildReport } from '../audit.js';
+import { buildReport } from '../report/build.js';
 import { mergeDocuments, readJsonLines } from '../batch/jsonLines.js';
 import { addCommonOptions, exitCodeFor, UsageError, writeReport, type CliIo, type CommonOptions } from './common.js';
 
@@ -11,7 +11,7 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
       .argument('<files...>', 'JSON Lines files written by scan --jsonl'),
   )
     .option('--all', 'list results without findings too (text format)')
-    .action((files: string[], options: CommonOptions & { all?: boolean }) => {
+    .action(async (files: string[], options: CommonOptions & { all?: boolean }) => {
       const documents = files.flatMap((file) => {
         try {
           return readJsonLines(file);
@@ -21,7 +21,7 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
         }
       });
       const report = buildReport(mergeDocuments(documents));
-      writeReport(report, options, io, options.all ?? false);
+      await writeReport(report, options, io, options.all ?? false);
       setExitCode(exitCodeFor(report, options.failOn));
     });
 }

@@ -1,7 +1,7 @@
 import { Command, CommanderError, Option } from 'commander';
-import { auditText, buildReport } from '../audit.js';
-import { ConfigError, resolveConfig } from '../checks/config.js';
 import { CatalogueError } from '../checks/catalogue.js';
+import { ConfigError } from '../checks/userConfig.js';
+import { buildReport } from '../report/build.js';
 import { toolVersion } from '../version.js';
 import {
   addCommonOptions,
@@ -27,10 +27,11 @@ function registerCheckCommand(program: Command, io: CliIo, setExitCode: (code: n
       .description('check the results in a piece of text given as the argument, or "-" to read standard input')
       .argument('<text>', 'the text, or - for standard input'),
   ).action(async (text: string, options: CommonOptions) => {
-    const config = configFrom(options);
+    const config = await configFrom(options);
     const input = text === '-' ? await io.readStdin() : text;
+    const { auditText } = await import('../audit.js');
     const report = buildReport([auditText(input, config, text === '-' ? '<stdin>' : '<text>')]);
-    writeReport(report, options, io, true);
+    await writeReport(report, options, io, true);
     setExitCode(exitCodeFor(report, options.failOn));
   });
 }
@@ -40,7 +41,8 @@ function registerRulesCommand(program: Command, io: CliIo): void {
     .command('rules')
     .description('list the rules catalogue: id, default severity and title')
     .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json']).default('text'))
-    .action((options: { format: 'text' | 'json' }) => {
+    .action(async (options: { format: 'text' | 'json' }) => {
+      const { resolveConfig } = await import('../checks/config.js');
       const { catalogue } = resolveConfig({});
       if (options.format === 'json') {
         io.stdout(`${JSON.stringify(catalogue, null, 2)}\n`);

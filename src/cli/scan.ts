@@ -1,14 +1,13 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
-import { buildReport, unreadableDocument } from '../audit.js';
+import { buildReport, unreadableDocument } from '../report/build.js';
 import { AuditCache, settingsFingerprint } from '../batch/cache.js';
 import { collectInputs } from '../batch/inputs.js';
 import { JsonLinesWriter, mergeDocuments, readJsonLines } from '../batch/jsonLines.js';
 import { createProgress } from '../batch/progress.js';
 import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
-import { resolveConfig } from '../checks/config.js';
 import type { ReadOptions } from '../documents/read.js';
 import type { DocumentOutput } from '../report/model.js';
 import { toolVersion } from '../version.js';
@@ -64,7 +63,6 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
     .option('-q, --quiet', 'no progress bar')
     .action(async (paths: string[], options: ScanOptions) => {
       const { userConfig, source } = userConfigFrom(options);
-      resolveConfig(userConfig, source); // fail early on bad settings, before any work
       if (options.resume && !options.jsonl) throw new UsageError('--resume needs --jsonl <file>: the file to resume');
       const shard = options.shard === undefined ? null : parseShard(options.shard);
       if (typeof shard === 'string') throw new UsageError(shard);
@@ -115,7 +113,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       }
 
       const report = buildReport(mergeDocuments(documents));
-      if (!streamToStdout) writeReport(report, options, io, options.all ?? false);
+      if (!streamToStdout) await writeReport(report, options, io, options.all ?? false);
       setExitCode(exitCodeFor(report, options.failOn));
     });
 }

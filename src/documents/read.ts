@@ -1,37 +1,16 @@
 import { readFile } from 'node:fs/promises';
 import { existsSync, readFileSync } from 'node:fs';
 import { extname } from 'node:path';
-import { readDocxBytes } from './docx.js';
-import { htmlToDocument } from './html.js';
-import { jatsToDocument } from './jats.js';
-import { latexToDocument } from './latex.js';
-import { readPdf, type PdfEngineChoice } from './pdf.js';
+import type { PdfEngineChoice } from './pdf.js';
 import { describeContent, sniffContent, type ContentKind } from './sniff.js';
 import { readTextDocument } from './text.js';
 import type { DocumentText, ReadOutcome } from './types.js';
-
-export type DocumentFormat = 'text' | 'markdown' | 'pdf' | 'docx' | 'html' | 'jats' | 'latex';
+import { formatByExtension, supportedExtensions, type DocumentFormat } from './formats.js';
 
 export interface ReadOptions {
   /** Which PDF engine to use: `auto` (default) takes pdftotext when it is installed, pdf-parse otherwise. */
   pdfEngine?: PdfEngineChoice;
 }
-
-const formatByExtension: Record<string, DocumentFormat> = {
-  '.txt': 'text',
-  '.text': 'text',
-  '.md': 'markdown',
-  '.markdown': 'markdown',
-  '.pdf': 'pdf',
-  '.docx': 'docx',
-  '.html': 'html',
-  '.htm': 'html',
-  '.xhtml': 'html',
-  '.xml': 'jats',
-  '.nxml': 'jats',
-  '.tex': 'latex',
-  '.ltx': 'latex',
-};
 
 /** What each format's bytes may look like; anything else is a mislabelled file. */
 const acceptedContent: Record<Exclude<DocumentFormat, 'text' | 'markdown'>, readonly ContentKind[]> = {
@@ -44,11 +23,7 @@ const acceptedContent: Record<Exclude<DocumentFormat, 'text' | 'markdown'>, read
 
 const suggestedExtension: Partial<Record<ContentKind, string>> = { pdf: '.pdf', zip: '.docx', html: '.html', xml: '.xml', text: '.txt' };
 
-export const supportedExtensions = Object.keys(formatByExtension);
-
-export function isSupported(path: string): boolean {
-  return extname(path).toLowerCase() in formatByExtension;
-}
+export { isSupported, supportedExtensions, type DocumentFormat } from './formats.js';
 
 /**
  * Reads any supported document; never throws for a bad file, returns its reason instead.
@@ -82,16 +57,17 @@ async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 
   if (!acceptedContent[format].includes(content)) return { ok: false, error: mislabelledMessage(format, content) };
   try {
     switch (format) {
+      // Each reader and its libraries load on first use: a text-only audit never pays for them.
       case 'pdf':
-        return await readPdf(path, bytes, options.pdfEngine ?? 'auto');
+        return await (await import('./pdf.js')).readPdf(path, bytes, options.pdfEngine ?? 'auto');
       case 'docx':
-        return await readDocxBytes(path, bytes);
+        return await (await import('./docx.js')).readDocxBytes(path, bytes);
       case 'html':
-        return { ok: true, document: htmlToDocument(decodeText(bytes), path, 'html') };
+        return { ok: true, document: (await import('./html.js')).htmlToDocument(decodeText(bytes), path, 'html') };
       case 'jats':
-        return jatsToDocument(decodeText(bytes), path);
+        return (await import('./jats.js')).jatsToDocument(decodeText(bytes), path);
       case 'latex':
-        return { ok: true, document: latexToDocument(decodeText(bytes), path, readBblBeside(path)) };
+        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path)) };
     }
   } catch (error) {
     // The readers return their known failures; this is the last guard of the never-throws promise.

@@ -95,5 +95,4 @@ export type DocumentOutput = z.infer<typeof documentSchema>;
 export type Summary = z.infer<typeof summarySchema>;
 export type Report = z.infer<typeof reportSchema>;
 
-export const CAUTION =
-  'A flag is a prompt to look again at a reported result, not proof of an error, and never proof of misconduct. Typesetting, unusual designs and legitimate corrections can all explain a flag.';
+export { CAUTION } from './caution.js';

@@ -23,7 +23,10 @@ function inRegion(offset: number, regions: readonly Region[], kind: Region['kind
  */
 export function scanDocument(document: ScannableDocument): ScanOutput {
   const written = scanText(document.text);
-  const tabled = readTableResults(document.text, [...document.tables, ...findTextTables(document.text)]);
+  const tabled = readTableResults(document.text, [...document.tables, ...findTextTables(document.text)]).filter(
+    // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
+    (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
+  );
   const results: ReportedResult[] = [...written.results, ...tabled]
     .filter((result) => !inRegion(result.start, document.regions, 'references'))
     .sort((a, b) => a.start - b.start || a.end - b.end);

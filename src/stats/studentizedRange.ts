@@ -16,7 +16,8 @@ import { gaussLegendreRule, integrateOutward } from './gaussLegendre.js';
  *   1 - W_k(w) = k integral phi(z) {Phi(z)^(k-1) - [Phi(z) - Phi(z - w)]^(k-1)} dz,
  * with the braces formed as Phi(z)^(k-1) (-expm1((k-1) log1p(-Phi(z-w)/Phi(z)))),
  * so no 1 - cdf cancellation occurs at any level. Both integrals use fixed
- * 12-point Gauss-Legendre panels (width 1 in z; at most 0.5 in log s)
+ * 12-point Gauss-Legendre panels (width min(1, 3/sqrt(k)) in z and
+ * min(0.5, 1.5/sqrt(df + k)) in log s)
  * placed outward from the integrand's centre until a panel adds less than
  * 1e-15 of the total. The inner centre is z = w/2 for the upper tail and
  * min(w/2, sqrt(2 log k)) for the cdf (for wide ranges the cdf integrand is
@@ -50,7 +51,7 @@ export function studentizedRangeCdf(q: number, k: number, df: number): number {
   if (!validParameters(k, df) || Number.isNaN(q)) return NaN;
   if (q <= 0) return 0;
   if (q === Infinity) return 1;
-  return mixOverScale(q, df, (w) => rangeCdf(w, k));
+  return mixOverScale(q, k, df, (w) => rangeCdf(w, k));
 }
 
 /** P(Q >= q) for the studentized range with k groups and df error df (see studentizedRangeCdf). */
@@ -58,7 +59,7 @@ export function studentizedRangeUpperTail(q: number, k: number, df: number): num
   if (!validParameters(k, df) || Number.isNaN(q)) return NaN;
   if (q <= 0) return 1;
   if (q === Infinity) return 0;
-  return mixOverScale(q, df, (w) => rangeUpperTail(w, k));
+  return mixOverScale(q, k, df, (w) => rangeUpperTail(w, k));
 }
 
 /** Gauss-Legendre points per panel (panels are 1 wide in z and at most 0.5 in log s). */
@@ -67,7 +68,7 @@ const RULE_ORDER = 12;
 const RELATIVE_TOLERANCE = 1e-15;
 
 /** integral of g_df(s) h(q s) ds, done in y = log s; h(q) itself when df = Infinity. */
-function mixOverScale(q: number, df: number, h: (w: number) => number): number {
+function mixOverScale(q: number, k: number, df: number, h: (w: number) => number): number {
   if (df === Infinity) return h(q);
   // s g_df(s) = exp(logNormaliser + df y - df e^{2y} / 2) with s = e^y.
   const logNormaliser = (df / 2) * Math.log(df / 2) + Math.log(2) - gammaln(df / 2);
@@ -76,8 +77,18 @@ function mixOverScale(q: number, df: number, h: (w: number) => number): number {
     const logDensity = logNormaliser + df * y - (df * s * s) / 2;
     return Math.exp(logDensity) * h(q * s);
   };
-  const width = Math.min(0.5, 1.5 / Math.sqrt(df));
+  // The integrand's width in y is about 1/sqrt(2 df), narrower (1/sqrt(2 (df + k))) when a small
+  // q makes W_k(q s) grow like s^(k-1); panels of 1.5/sqrt(df + k) keep 12 points per ~2 sd.
+  const width = Math.min(0.5, 1.5 / Math.sqrt(df + k));
   return integrateOutward(integrand, 0, width, -Infinity, Infinity, gaussLegendreRule(RULE_ORDER), RELATIVE_TOLERANCE);
+}
+
+/**
+ * Panel width in z. For small w the cdf integrand is about phi(z)^k, whose width is 1/sqrt(k):
+ * a width-1 panel then misses by 2e-6 at k = 100 (q = 0.1), so panels shrink with k.
+ */
+function innerPanelWidth(k: number): number {
+  return Math.min(1, 3 / Math.sqrt(k));
 }
 
 /** W_k(w) = P(range of k standard normals <= w). */
@@ -89,7 +100,7 @@ function rangeCdf(w: number, k: number): number {
   // For large w the integrand is the density of the largest of k normals, centred near
   // sqrt(2 log k); starting the outward sweep at w/2 there would meet only underflowed zeros.
   const centre = Math.min(w / 2, Math.sqrt(2 * Math.log(k)));
-  return k * integrateOutward(integrand, centre, 1, -Infinity, Infinity, gaussLegendreRule(RULE_ORDER), RELATIVE_TOLERANCE);
+  return k * integrateOutward(integrand, centre, innerPanelWidth(k), -Infinity, Infinity, gaussLegendreRule(RULE_ORDER), RELATIVE_TOLERANCE);
 }
 
 /** 1 - W_k(w), computed without subtracting from 1. */
@@ -103,7 +114,7 @@ function rangeUpperTail(w: number, k: number): number {
     return standardNormalDensity(z) * Math.exp((k - 1) * Math.log(below)) * difference;
   };
   // The integrand is phi(z) times roughly (k - 1) Phi(z - w): centred near w/2.
-  return k * integrateOutward(integrand, w / 2, 1, -Infinity, Infinity, gaussLegendreRule(RULE_ORDER), RELATIVE_TOLERANCE);
+  return k * integrateOutward(integrand, w / 2, innerPanelWidth(k), -Infinity, Infinity, gaussLegendreRule(RULE_ORDER), RELATIVE_TOLERANCE);
 }
 
 /** Phi(b) - Phi(a) for a < b, subtracting the two smaller tails. */

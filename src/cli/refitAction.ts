@@ -1,0 +1,186 @@
+import { existsSync, readFileSync } from 'node:fs';
+import { mkdir, writeFile } from 'node:fs/promises';
+import { basename, dirname } from 'node:path';
+import { RefitError } from '../refit/errors.js';
+import { compareTables } from '../refit/compare.js';
+import { explainMismatch, impliedSampleSize, loadTable } from '../refit/explain.js';
+import { formatRefitHtml, formatRefitMarkdown, formatRefitText } from '../refit/format.js';
+import { fitModel } from '../refit/model.js';
+import { buildRefitOutput, type RefitResult } from '../refit/output.js';
+import { parseTermMap, readReported } from '../refit/reportedTable.js';
+import { parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
+import { EXIT_CLEAN, EXIT_FLAGGED, UsageError, type CliIo } from './common.js';
+
+/**
+ * `plumbline refit <data> --model "<formula>"`: rebuilds the ANOVA/ANCOVA
+ * table from raw data, compares it with the reported numbers (--reported)
+ * and names the usual slips that reproduce them.
+ *
+ * Exit codes: 0 when every reported number matches (or none is reported),
+ * 1 when something differs, 2 for usage and input errors.
+ */
+
+type Format = 'text' | 'json' | 'md' | 'html' | 'docx';
+
+export interface RefitOptions {
+  model?: string;
+  type?: string;
+  coding?: 'sum' | 'treatment';
+  factor: string[];
+  covariate: string[];
+  missing: string[];
+  map: string[];
+  reported?: string;
+  spec?: string;
+  format: Format;
+  output?: string;
+}
+
+
+/** Adds row and column to data-file errors that name only part of the place. */
+export function refitErrorMessage(error: RefitError): string {
+  const { file, row, column } = error.details;
+  if (file === undefined) return error.message;
+  const rest = (prefix: RegExp) => error.message.replace(prefix, '').trim();
+  if (error.code === 'RAGGED_ROW' && row !== undefined && column === undefined) {
+    const m = /(\d+) fields, but the header has (\d+) columns/.exec(error.message);
+    if (m) {
+      const fields = Number(m[1]);
+      const width = Number(m[2]);
+      const where = fields > width ? `column ${width + 1}` : `column ${fields + 1}`;
+      return `${file}, row ${row}, ${where}: ${rest(/^[^:]*:\s*/)}`;
+    }
+  }
+  if (error.code === 'UNKNOWN_COLUMN' && row === undefined && column !== undefined && error.message.startsWith(`${file}:`)) {
+    return `${file}, row 1 (header), column '${column}': ${rest(/^[^:]*:\s*/)}`;
+  }
+  if (error.code === 'EMPTY_FILE' && row === undefined) {
+    const r = /no data rows/.test(error.message) ? 2 : 1;
+    return `${file}, row ${r}, column 1: ${rest(/^[^:]*:\s*/)}`;
+  }
+  return error.message;
+}
+
+function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown> {
+  if (!existsSync(path)) throw new UsageError(`--spec ${path}: no such file`);
+  try {
+    const value = JSON.parse(readFileSync(path, 'utf8')) as unknown;
+    if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new Error('the file must hold one JSON object');
+    return value as AnalysisSpecInput & Record<string, unknown>;
+  } catch (error) {
+    throw new UsageError(`--spec ${path}: not valid JSON (${(error as Error).message})`);
+  }
+}
+
+/** The analysis description: the --spec file, overridden by the command line. */
+export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing'>): AnalysisSpecInput {
+  const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
+  if (options.model !== undefined) {
+    raw.model = options.model;
+    delete raw.outcome; // the command line's formula names the outcome
+  }
+  if (typeof raw.model !== 'string' || raw.model.trim() === '') {
+    throw new UsageError('refit needs a model: --model "outcome ~ factor * factor + covariate" (or "model" in the --spec file)');
+  }
+  if (options.type !== undefined) raw.type = Number(options.type);
+  if (options.coding !== undefined) raw.coding = options.coding;
+  const factors = { ...((raw.factors as Record<string, unknown> | undefined) ?? {}) };
+  let covariates = [...((raw.covariates as string[] | undefined) ?? [])];
+  for (const f of options.factor) {
+    factors[f] ??= {};
+    covariates = covariates.filter((c) => c !== f);
+  }
+  for (const c of options.covariate) {
+    if (!covariates.includes(c)) covariates.push(c);
+    delete factors[c];
+  }
+  raw.factors = factors;
+  raw.covariates = covariates;
+  const missing = { ...((raw.missing as Record<string, unknown> | undefined) ?? {}) };
+  for (const entry of options.missing) {
+    const eq = entry.indexOf('=');
+    if (eq <= 0 || eq === entry.length - 1) {
+      throw new UsageError(`--missing "${entry}": write it as "<column>=<codes>", e.g. "mood=99", "anxiety=6-8", "age=>=200" or "group=8,9"`);
+    }
+    missing[entry.slice(0, eq).trim()] = entry.slice(eq + 1).trim();
+  }
+  raw.missing = missing;
+  return raw as unknown as AnalysisSpecInput;
+}
+
+function codesText(codes: unknown): string {
+  return Array.isArray(codes) ? codes.join(',') : String(codes);
+}
+
+async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Promise<number> {
+  if (options.format === 'docx' && options.output === undefined) throw new UsageError('--format docx writes a Word file: give it with --output <file.docx>');
+  if (!existsSync(dataFile)) throw new UsageError(`${dataFile}: no such data file`);
+  if (options.reported !== undefined && !existsSync(options.reported)) throw new UsageError(`--reported ${options.reported}: no such file`);
+  const spec = buildSpec(options);
+  const map = parseTermMap(options.map);
+  parseAnalysisSpec(spec); // validate before reading data
+
+  const model = await fitModel(dataFile, spec);
+  const table = model.anova();
+  const result: RefitResult = {
+    dataFile,
+    model,
+    table,
+    missing: Object.entries(spec.missing ?? {}).map(([column, codes]) => ({ column, codes: codesText(codes) })),
+  };
+  if (options.reported !== undefined) {
+    const reported = await readReported(options.reported, model.spec.formula.terms, map);
+    const comparison = compareTables(table, reported, map);
+    result.reported = reported;
+    result.comparison = comparison;
+    result.impliedN = impliedSampleSize(table, reported);
+    if (!comparison.allMatch) {
+      const data = await loadTable(dataFile);
+      result.explained = await explainMismatch(data, spec, model, comparison, reported, map);
+    }
+  }
+  const output = buildRefitOutput(result);
+
+  let text: string | Buffer;
+  switch (options.format) {
+    case 'json':
+      text = `${JSON.stringify(output, null, 2)}\n`;
+      break;
+    case 'md':
+      text = formatRefitMarkdown(output);
+      break;
+    case 'html':
+      text = formatRefitHtml(output);
+      break;
+    case 'docx': {
+      const { formatRefitDocx } = await import('../refit/formatDocx.js');
+      text = await formatRefitDocx(output);
+      break;
+    }
+    default:
+      text = formatRefitText(output, { color: io.color && options.output === undefined });
+  }
+  if (options.output !== undefined) {
+    await mkdir(dirname(options.output), { recursive: true });
+    await writeFile(options.output, text);
+    io.stderr(`plumbline refit: wrote ${options.output} (${options.format})\n`);
+  } else {
+    io.stdout(typeof text === 'string' ? text : text.toString('utf8'));
+  }
+  return output.verdict === 'differs' ? EXIT_FLAGGED : EXIT_CLEAN;
+}
+
+/** Name of the data file as shown in messages. */
+export function dataName(path: string): string {
+  return basename(path);
+}
+
+/** The refit command's work, loaded only when the command runs (it brings the data readers and the model). */
+export async function runRefitCommand(dataFile: string, options: RefitOptions, io: CliIo): Promise<number> {
+  try {
+    return await runRefit(dataFile, options, io);
+  } catch (error) {
+    if (error instanceof RefitError) throw new UsageError(refitErrorMessage(error));
+    throw error;
+  }
+}
