@@ -15,6 +15,22 @@ export interface BatchOptions {
   onDocument: (document: DocumentOutput, fromCache: boolean) => void;
 }
 
+const CACHE_LOOKUPS_AT_ONCE = 32;
+
+/** Maps over items with at most `limit` promises in flight; results keep the input order. */
+async function mapConcurrently<T, R>(items: readonly T[], limit: number, map: (item: T) => Promise<R>): Promise<R[]> {
+  const results = new Array<R>(items.length);
+  let next = 0;
+  const lane = async (): Promise<void> => {
+    while (next < items.length) {
+      const index = next++;
+      results[index] = await map(items[index]!);
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(limit, items.length) }, lane));
+  return results;
+}
+
 /** The compiled worker module, or null when running from TypeScript sources (tests), where threads cannot load it. */
 function workerModule(): string | null {
   const url = new URL('./worker.js', import.meta.url);
@@ -43,14 +59,17 @@ async function cachedOrKey(
  */
 export async function runBatch(options: BatchOptions): Promise<void> {
   const pending: { path: string; key: string | null }[] = [];
-  for (const path of options.files) {
-    if (!options.cache) {
-      pending.push({ path, key: null });
-      continue;
-    }
-    const { document, key } = await cachedOrKey(path, options.cache);
-    if (document) options.onDocument(document, true);
-    else pending.push({ path, key });
+  if (!options.cache) {
+    pending.push(...options.files.map((path) => ({ path, key: null })));
+  } else {
+    // Look up many files at once: the lookups wait on the disk, not the processor.
+    const cache = options.cache;
+    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache));
+    lookups.forEach(({ document, key }, index) => {
+      const path = options.files[index]!;
+      if (document) options.onDocument(document, true);
+      else pending.push({ path, key });
+    });
   }
   if (pending.length === 0) return;
 
