@@ -60,3 +60,5 @@ report('SciPy 1.10.1 studentized_range.cdf vs reference', range, (p) => num(p.sc
 report('SciPy 1.10.1 studentized_range.sf vs reference', range, (p) => num(p.scipyUpper), (p) => num(p.upper));
 const finiteRange = range.filter((p) => Number.isFinite(num(p.df)));
 report('jstat tukey.cdf vs reference (finite df)', finiteRange, (p) => jStat.tukey.cdf(num(p.q), num(p.k), num(p.df)), (p) => num(p.cdf));
+const centralRange = finiteRange.filter((p) => num(p.cdf) > 1e-3 && num(p.cdf) < 0.999);
+report('jstat tukey.cdf vs reference (finite df, 1e-3 < cdf < 0.999)', centralRange, (p) => jStat.tukey.cdf(num(p.q), num(p.k), num(p.df)), (p) => num(p.cdf));

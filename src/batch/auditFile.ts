@@ -1,11 +1,28 @@
+import { createReadStream } from 'node:fs';
+import { stat } from 'node:fs/promises';
+import { extname } from 'node:path';
 import { auditDocument, unreadableDocument } from '../audit.js';
 import type { ResolvedConfig } from '../checks/config.js';
+import { formatByExtension } from '../documents/formats.js';
+import { ReferenceListTracker } from '../documents/plainRegions.js';
 import { readDocument, type ReadOptions } from '../documents/read.js';
-import type { DocumentOutput } from '../report/model.js';
+import type { Region } from '../documents/types.js';
+import { MB, resolveLimits } from '../limits.js';
+import type { DocumentOutput, StatisticOutput } from '../report/model.js';
+import { decodeChunks, TextDecodingError, textWindows, type StreamOptions } from '../scan/stream.js';
 
 /** Reads and audits one file; an unreadable file becomes a row with its reason, never an exception. */
-export async function auditFile(path: string, config: ResolvedConfig, readOptions: ReadOptions): Promise<DocumentOutput> {
+export async function auditFile(path: string, config: ResolvedConfig, readOptions: ReadOptions, streamOptions: StreamOptions = {}): Promise<DocumentOutput> {
   try {
+    const limits = resolveLimits(readOptions.limits);
+    const format = formatByExtension[extname(path).toLowerCase()];
+    if (format === 'text' || format === 'markdown') {
+      const size = await stat(path).then(
+        (stats) => stats.size,
+        () => -1, // the reader says why the file cannot be read
+      );
+      if (size > limits.streamTextAboveMb * MB) return await auditTextStream(path, format, config, streamOptions);
+    }
     const outcome = await readDocument(path, readOptions);
     if (!outcome.ok) return unreadableDocument(path, outcome.error, outcome.format);
     return { ...auditDocument(outcome.document, config, path), format: outcome.document.format };
@@ -13,4 +30,60 @@ export async function auditFile(path: string, config: ResolvedConfig, readOption
     // A reader bug must not stop an audit of thousands of files: record it against this file.
     return unreadableDocument(path, `internal error while reading: ${(error as Error).message}`);
   }
+}
+
+/**
+ * Audits a large text file in bounded memory (src/scan/stream.ts): the file
+ * is read twice, first to find its reference list (which, as in a whole
+ * read, starts at the LAST "References" line, so it is only known at the
+ * end), then window by window, each window audited as a text of its own and
+ * keeping the results that start in the stretch it owns. Locations are those
+ * of the whole file.
+ *
+ * Document-wide context is read per window: a significance level declared
+ * in the text applies from the window where it is declared onwards (it is
+ * usually declared in the Method section, before the results).
+ */
+export async function auditTextStream(path: string, format: 'text' | 'markdown', config: ResolvedConfig, options: StreamOptions = {}): Promise<DocumentOutput> {
+  let regions: Region[];
+  try {
+    const tracker = new ReferenceListTracker();
+    for await (const piece of decodeChunks(createReadStream(path, { highWaterMark: 1 << 20 }))) tracker.add(piece);
+    regions = tracker.finish();
+  } catch (error) {
+    return unreadableDocument(path, describeStreamError(error), format);
+  }
+
+  const statistics: StatisticOutput[] = [];
+  let declaredAlpha: number | null = null;
+  try {
+    for await (const window of textWindows(createReadStream(path, { highWaterMark: 1 << 20 }), options)) {
+      const windowEnd = window.start + window.text.length;
+      const windowRegions = regions
+        .filter((region) => region.end > window.start && region.start < windowEnd)
+        .map((region) => ({ ...region, start: Math.max(0, region.start - window.start), end: Math.min(window.text.length, region.end - window.start) }));
+      const windowConfig = declaredAlpha === null ? config : { ...config, defaultAlpha: declaredAlpha };
+      const audited = auditDocument({ text: window.text, tables: [], regions: windowRegions }, windowConfig, path);
+      if (declaredAlpha === null && audited.alpha !== undefined && audited.alpha !== config.defaultAlpha) declaredAlpha = audited.alpha;
+      for (const statistic of audited.statistics) {
+        const local = statistic.location.start;
+        const start = local + window.start;
+        if (start < window.ownStart || start >= window.ownEnd) continue;
+        const { line, column } = window.locate(local);
+        statistics.push({
+          ...statistic,
+          location: { ...statistic.location, line, column, start, end: statistic.location.end + window.start },
+        });
+      }
+    }
+  } catch (error) {
+    return unreadableDocument(path, describeStreamError(error), format);
+  }
+  return { path, status: 'checked', alpha: declaredAlpha ?? config.defaultAlpha, statistics, findings: [], format };
+}
+
+function describeStreamError(error: unknown): string {
+  if (error instanceof TextDecodingError) return error.message;
+  const code = (error as NodeJS.ErrnoException).code;
+  return code ? `cannot read the file (${code})` : `internal error while reading: ${(error as Error).message}`;
 }

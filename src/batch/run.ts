@@ -1,5 +1,5 @@
-import { existsSync } from 'node:fs';
-import { readFile } from 'node:fs/promises';
+import { createHash } from 'node:crypto';
+import { createReadStream, existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { DocumentOutput } from '../report/model.js';
 import { AuditCache } from './cache.js';
@@ -42,14 +42,20 @@ async function cachedOrKey(
   path: string,
   cache: NonNullable<BatchOptions['cache']>,
 ): Promise<{ document: DocumentOutput | null; key: string | null }> {
-  let content: Buffer;
+  let key: string;
   try {
-    content = await readFile(path);
+    key = await streamedKey(path, cache.fingerprint);
   } catch {
     return { document: null, key: null }; // the reader will report why
   }
-  const key = AuditCache.key(content, cache.fingerprint);
   return { document: await cache.store.get(key, path), key };
+}
+
+/** AuditCache.key of a file's content, hashed as it is read: a 1 GB text file is never held in memory. */
+async function streamedKey(path: string, fingerprint: string): Promise<string> {
+  const hash = createHash('sha256').update(fingerprint).update('\0');
+  for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) hash.update(chunk as Buffer);
+  return hash.digest('hex'); // the same as AuditCache.key(content, fingerprint)
 }
 
 /**

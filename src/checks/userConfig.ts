@@ -1,6 +1,7 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
 import { z } from 'zod';
 import { severitySchema } from './catalogue.js';
+import { limitNames, type Limits } from '../limits.js';
 
 /**
  * The user's settings file (plumbline.config.json by convention):
@@ -10,8 +11,11 @@ import { severitySchema } from './catalogue.js';
  *     "halved-p": "off",
  *     "cohens-d-mismatch": "note",
  *     "halved-p": { "severity": "fail", "options": { "statementDistance": 500 } }
- *   }
+ *   },
+ *   "limits": { "maxDocumentMb": 500, "maxUnzippedMb": 300 }
  * }
+ * "limits" changes the limits of src/limits.ts (document size, DOCX
+ * uncompressed size, nesting depth, PDF pages...); unnamed limits keep their defaults.
  */
 const ruleSettingSchema = z.union([
   z.literal('off'),
@@ -25,11 +29,16 @@ const ruleSettingSchema = z.union([
     .strict(),
 ]);
 
+const limitsSchema = z
+  .object(Object.fromEntries(limitNames.map((name) => [name, z.number().positive().finite().optional()])) as Record<keyof Limits, z.ZodOptional<z.ZodNumber>>)
+  .strict();
+
 export const userConfigSchema = z
   .object({
     $schema: z.string().optional(),
     alpha: z.number().gt(0).lt(1).optional(),
     rules: z.record(z.string(), ruleSettingSchema).optional(),
+    limits: limitsSchema.optional(),
   })
   .strict();
 
@@ -41,12 +50,18 @@ export function describeIssues(source: string, issues: readonly z.core.$ZodIssue
   return issues.map((issue) => `${source}: ${issue.path.length ? issue.path.join('.') : '(top level)'}: ${issue.message}`).join('\n');
 }
 
+const MAX_SETTINGS_BYTES = 1_000_000;
+
 /** Reads a settings file and validates it; a missing or malformed file is a ConfigError naming it. */
 export function readUserConfigFile(path: string): UserConfig {
   let raw: unknown;
   try {
+    // A settings file is a few hundred bytes; a huge one is a mistake (or hostile), and is not read whole.
+    const size = statSync(path).size;
+    if (size > MAX_SETTINGS_BYTES) throw new ConfigError(`${path}: ${size} bytes is too large for a settings file (at most ${MAX_SETTINGS_BYTES} bytes)`);
     raw = JSON.parse(readFileSync(path, 'utf8'));
   } catch (error) {
+    if (error instanceof ConfigError) throw error;
     const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'file not found' : `not valid JSON (${(error as Error).message})`;
     throw new ConfigError(`${path}: ${reason}`);
   }

@@ -1,5 +1,8 @@
 import { htmlToDocument } from './html.js';
 import type { DocumentText } from './types.js';
+import { defaultLimits, type Limits } from '../limits.js';
+import { DocumentLimitError } from './markupLimits.js';
+import { checkZipExpansion } from './zipGuard.js';
 
 /**
  * DOCX reader: mammoth turns the document into HTML (headings from Word's
@@ -9,12 +12,22 @@ import type { DocumentText } from './types.js';
  * footnotes are marked. Images, comments and tracked deletions are dropped
  * (mammoth's defaults); text boxes are read in document order.
  */
-export async function readDocxBytes(path: string, bytes: Uint8Array): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
+export async function readDocxBytes(
+  path: string,
+  bytes: Uint8Array,
+  limits: Pick<Limits, 'maxUnzippedMb' | 'maxNestingDepth' | 'maxElements'> = defaultLimits,
+): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
+  // A zip bomb is refused before mammoth inflates anything.
+  const tooLarge = checkZipExpansion(bytes, limits.maxUnzippedMb);
+  if (tooLarge !== null) return { ok: false, error: tooLarge };
   const mammoth = (await import('mammoth')).default;
   try {
-    const converted = await mammoth.convertToHtml({ buffer: Buffer.from(bytes) });
-    return { ok: true, document: htmlToDocument(converted.value, path, 'docx') };
+    // Images are dropped by the HTML reader anyway: never read (inflate) them or inline them as base64.
+    const convertImage = mammoth.images.imgElement(async () => ({ src: '' }));
+    const converted = await mammoth.convertToHtml({ buffer: Buffer.from(bytes) }, { convertImage });
+    return { ok: true, document: htmlToDocument(converted.value, path, 'docx', limits) };
   } catch (error) {
+    if (error instanceof DocumentLimitError) return { ok: false, error: error.message };
     return { ok: false, error: describeDocxError(error) };
   }
 }

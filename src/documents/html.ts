@@ -1,9 +1,10 @@
-import { parseDocument } from 'htmlparser2';
 import { isTag, isText, type ChildNode, type Element } from 'domhandler';
 import { REFERENCE_HEADING, TextBuilder } from './builder.js';
 import { attribute, childByName, elementChildren, nextElement, previousElement, tagName } from './dom.js';
 import { collapseWhitespace, readTableElement, writeTable, type TableDraft } from './tables.js';
 import type { DocumentText } from './types.js';
+import { defaultLimits, type Limits } from '../limits.js';
+import { parseLimitedDocument } from './markupLimits.js';
 
 /**
  * HTML reader (also reads the HTML that mammoth makes from DOCX).
@@ -26,8 +27,9 @@ import type { DocumentText } from './types.js';
  * Drops: <head>, <script>, <style>, <template>, <noscript>, <svg>, <iframe>,
  * images, and the back-links of footnotes.
  */
-export function htmlToDocument(html: string, path: string, format: string): DocumentText {
-  const root = parseDocument(html, { decodeEntities: true, lowerCaseTags: true, lowerCaseAttributeNames: true });
+export function htmlToDocument(html: string, path: string, format: string, limits: Pick<Limits, 'maxNestingDepth' | 'maxElements'> = defaultLimits): DocumentText {
+  // Throws DocumentLimitError for markup nested too deep or with too many elements (see src/limits.ts).
+  const root = parseLimitedDocument(html, { decodeEntities: true, lowerCaseTags: true, lowerCaseAttributeNames: true }, limits);
   const walker = new HtmlWalker();
   walker.walkChildren(root.children);
   return walker.finish(path, format);

@@ -1,9 +1,10 @@
-import { parseDocument } from 'htmlparser2';
 import { isTag, isText, type ChildNode, type Element } from 'domhandler';
 import { REFERENCE_HEADING, TextBuilder } from './builder.js';
 import { attribute, childByName, childrenByName, descendantsByName, elementChildren } from './dom.js';
 import { collapseWhitespace, readTableElement, writeTable } from './tables.js';
 import type { DocumentText } from './types.js';
+import { defaultLimits, type Limits } from '../limits.js';
+import { parseLimitedDocument } from './markupLimits.js';
 
 /** Why a JATS file could not be read (not a thrown error: the caller turns it into a ReadOutcome). */
 export type JatsOutcome = { ok: true; document: DocumentText } | { ok: false; error: string };
@@ -25,8 +26,9 @@ export type JatsOutcome = { ok: true; document: DocumentText } | { ok: false; er
  * permissions), graphics, and of alternative renderings of one formula all
  * but the first textual one.
  */
-export function jatsToDocument(xml: string, path: string): JatsOutcome {
-  const root = parseDocument(xml, { xmlMode: true, decodeEntities: true });
+export function jatsToDocument(xml: string, path: string, limits: Pick<Limits, 'maxNestingDepth' | 'maxElements'> = defaultLimits): JatsOutcome {
+  // Throws DocumentLimitError for markup nested too deep or with too many elements (see src/limits.ts).
+  const root = parseLimitedDocument(xml, { xmlMode: true, decodeEntities: true }, limits);
   const article = root.children.filter(isTag).find((element) => localName(element) === 'article');
   if (!article) {
     const rootName = root.children.filter(isTag)[0]?.name;

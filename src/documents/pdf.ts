@@ -3,6 +3,7 @@ import { accessSync, constants } from 'node:fs';
 import { delimiter, join } from 'node:path';
 import { findReferenceListRegions } from './plainRegions.js';
 import type { DocumentText } from './types.js';
+import { defaultLimits, limitHint, type Limits } from '../limits.js';
 
 /**
  * PDF reader with two engines that give the same kind of text:
@@ -71,10 +72,15 @@ export function resolvePdfEngine(choice: PdfEngineChoice = 'auto'): PdfEngine {
 }
 
 /** Reads a PDF (whose bytes the caller has already checked start like a PDF). */
-export async function readPdf(path: string, bytes: Uint8Array, choice: PdfEngineChoice = 'auto'): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
+export async function readPdf(
+  path: string,
+  bytes: Uint8Array,
+  choice: PdfEngineChoice = 'auto',
+  limits: Pick<Limits, 'maxPdfPages'> = defaultLimits,
+): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
   if (!hasEndOfFileMarker(bytes)) return { ok: false, error: 'truncated PDF: the end-of-file marker is missing, so the file was cut short (an interrupted download or copy?)' };
   const engine = resolvePdfEngine(choice);
-  const extracted = engine === 'pdftotext' ? await pagesWithPdftotext(path) : await pagesWithPdfParse(bytes);
+  const extracted = engine === 'pdftotext' ? await pagesWithPdftotext(path, limits.maxPdfPages) : await pagesWithPdfParse(bytes, limits.maxPdfPages);
   if (!extracted.ok) return extracted;
   if (extracted.pages.length === 0) return { ok: false, error: 'the PDF has no pages' };
   if (looksScanned(extracted.pages)) return { ok: false, error: NO_TEXT_LAYER };
@@ -134,11 +140,18 @@ export function dehyphenate(page: string): string {
   });
 }
 
-async function pagesWithPdfParse(bytes: Uint8Array): Promise<PdfPagesOutcome> {
+function tooManyPages(pages: number | null, maxPages: number): string {
+  return `the PDF has ${pages === null ? 'more than' : ''}${pages === null ? ` ${maxPages}` : pages} pages ${limitHint('maxPdfPages', maxPages)}`;
+}
+
+async function pagesWithPdfParse(bytes: Uint8Array, maxPages: number): Promise<PdfPagesOutcome> {
   const { PDFParse, VerbosityLevel } = await import('pdf-parse');
   // pdf.js may detach the buffer it is given; it gets a copy.
   const parser = new PDFParse({ data: new Uint8Array(bytes), verbosity: VerbosityLevel.ERRORS });
   try {
+    // The page count comes from the page tree, before any page's text is extracted.
+    const { total } = await parser.getInfo();
+    if (total > maxPages) return { ok: false, error: tooManyPages(total, maxPages) };
     const result = await parser.getText({ pageJoiner: '' });
     return { ok: true, pages: result.pages.map((page) => page.text) };
   } catch (error) {
@@ -157,15 +170,17 @@ function describePdfParseError(error: unknown): string {
 }
 
 /** Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form feeds. */
-async function pagesWithPdftotext(path: string): Promise<PdfPagesOutcome> {
+async function pagesWithPdftotext(path: string, maxPages: number): Promise<PdfPagesOutcome> {
   const executable = findPdftotext();
   if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
-  const run = await runProcess(executable, ['-raw', '-enc', 'UTF-8', '-eol', 'unix', path, '-']);
+  // One page past the limit is read, to tell a PDF at the limit from one over it.
+  const run = await runProcess(executable, ['-raw', '-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-']);
   if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
   if (run.code !== 0) return { ok: false, error: describePdftotextFailure(run.code, run.stderr, path) };
   const pages = run.stdout.split('\f');
   // pdftotext ends every page with a form feed, so the last piece is what follows the last page.
   if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
+  if (pages.length > maxPages) return { ok: false, error: tooManyPages(null, maxPages) };
   return { ok: true, pages };
 }
 

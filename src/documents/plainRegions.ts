@@ -57,3 +57,67 @@ function trimmed(region: Region, text: string): Region {
   while (end > start && /\s/.test(text[end - 1]!)) end -= 1;
   return { kind: region.kind, start, end };
 }
+
+/** Of a line, only its start is needed to tell a heading or what ends a reference list. */
+const LINE_PREFIX = 200;
+
+/**
+ * findReferenceListRegions for a text read in pieces (a streamed text file):
+ * feed it the text in order with `add`, then `finish` gives the same
+ * reference-list region (untrimmed, which selects the same results) in
+ * offsets of the whole text. Memory: one line's first characters.
+ */
+export class ReferenceListTracker {
+  private offset = 0;
+  private lineStart = 0;
+  private prefix = '';
+  private heading: { start: number; end: number } | null = null;
+  private endAfterHeading: number | null = null;
+
+  add(piece: string): void {
+    let from = 0;
+    for (;;) {
+      const newline = nextBreak(piece, from);
+      if (newline === -1) {
+        if (this.prefix.length < LINE_PREFIX) this.prefix += piece.slice(from, from + LINE_PREFIX - this.prefix.length);
+        this.offset += piece.length - from;
+        return;
+      }
+      if (this.prefix.length < LINE_PREFIX) this.prefix += piece.slice(from, Math.min(newline, from + LINE_PREFIX - this.prefix.length));
+      this.offset += newline - from;
+      this.endLine(this.offset);
+      this.offset += 1;
+      this.lineStart = this.offset;
+      from = newline + 1;
+    }
+  }
+
+  private endLine(end: number): void {
+    const line = this.prefix.trim();
+    const whole = end - this.lineStart <= LINE_PREFIX;
+    if (whole && REFERENCE_HEADING.test(line)) {
+      this.heading = { start: this.lineStart, end };
+      this.endAfterHeading = null;
+    } else if (this.heading !== null && this.endAfterHeading === null) {
+      if ((whole && AFTER_REFERENCES.test(line)) || FOOTNOTE_AFTER_REFERENCES.test(line)) this.endAfterHeading = this.lineStart;
+    }
+    this.prefix = '';
+  }
+
+  finish(): Region[] {
+    this.endLine(this.offset);
+    if (this.heading === null) return [];
+    const end = this.endAfterHeading ?? this.offset;
+    const regions: Region[] = [{ kind: 'heading', start: this.heading.start, end: this.heading.end }];
+    if (end > this.heading.end) regions.push({ kind: 'references', start: this.heading.end, end });
+    return regions;
+  }
+}
+
+function nextBreak(text: string, from: number): number {
+  const newline = text.indexOf('\n', from);
+  const formFeed = text.indexOf('\f', from);
+  if (newline === -1) return formFeed;
+  if (formFeed === -1) return newline;
+  return Math.min(newline, formFeed);
+}

@@ -1,4 +1,4 @@
-import { readFile } from 'node:fs/promises';
+import { readFile, stat } from 'node:fs/promises';
 import { existsSync, readFileSync } from 'node:fs';
 import { extname } from 'node:path';
 import type { PdfEngineChoice } from './pdf.js';
@@ -6,10 +6,14 @@ import { describeContent, sniffContent, type ContentKind } from './sniff.js';
 import { readTextDocument } from './text.js';
 import type { DocumentText, ReadOutcome } from './types.js';
 import { formatByExtension, supportedExtensions, type DocumentFormat } from './formats.js';
+import { formatMb, limitHint, MB, resolveLimits, type Limits } from '../limits.js';
+import { DocumentLimitError } from './markupLimits.js';
 
 export interface ReadOptions {
   /** Which PDF engine to use: `auto` (default) takes pdftotext when it is installed, pdf-parse otherwise. */
   pdfEngine?: PdfEngineChoice;
+  /** Overrides of the limits in src/limits.ts (document size, DOCX expansion, nesting, PDF pages); the rest keep their defaults. */
+  limits?: Partial<Limits>;
 }
 
 /** What each format's bytes may look like; anything else is a mislabelled file. */
@@ -38,20 +42,34 @@ export { isSupported, supportedExtensions, type DocumentFormat } from './formats
 export async function readDocument(path: string, options: ReadOptions = {}): Promise<ReadOutcome> {
   const format = formatByExtension[extname(path).toLowerCase()];
   if (!format) return { ok: false, path, format: 'unknown', error: `unsupported file type "${extname(path) || '(none)'}"; supported: ${supportedExtensions.join(', ')}` };
-  if (format === 'text' || format === 'markdown') return readTextDocument(path, format);
+  const limits = resolveLimits(options.limits);
+  if (format === 'text' || format === 'markdown') return readTextDocument(path, format, limits);
   let bytes: Buffer;
   try {
+    // The size is checked before a single byte is read: a huge file is refused, not loaded.
+    const size = (await stat(path)).size;
+    if (size > limits.maxDocumentMb * MB) return { ok: false, path, format, error: tooLargeMessage(size, limits) };
     bytes = await readFile(path);
   } catch (error) {
     return { ok: false, path, format, error: `cannot read the file (${(error as NodeJS.ErrnoException).code ?? (error as Error).message})` };
   }
-  const outcome = await readBytes(path, format, bytes, options);
-  return outcome.ok ? { ok: true, document: outcome.document } : { ok: false, path, format, error: outcome.error };
+  const outcome = await readBytes(path, format, bytes, options, limits);
+  if (!outcome.ok) return { ok: false, path, format, error: outcome.error };
+  // A small file may still hold a huge text (a compressed PDF or DOCX): the text is held to the same limit.
+  const length = outcome.document.text.length;
+  if (length > limits.maxDocumentMb * MB) {
+    return { ok: false, path, format, error: `the extracted text is too long: ${(length / MB).toFixed(1)} million characters ${limitHint('maxDocumentMb', limits.maxDocumentMb)}` };
+  }
+  return { ok: true, document: outcome.document };
+}
+
+export function tooLargeMessage(size: number, limits: Limits): string {
+  return `document too large: ${formatMb(size)} ${limitHint('maxDocumentMb', limits.maxDocumentMb)}`;
 }
 
 type BytesOutcome = { ok: true; document: DocumentText } | { ok: false; error: string };
 
-async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 'markdown'>, bytes: Buffer, options: ReadOptions): Promise<BytesOutcome> {
+async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 'markdown'>, bytes: Buffer, options: ReadOptions, limits: Limits): Promise<BytesOutcome> {
   const content = sniffContent(bytes);
   if (content === 'empty') return { ok: false, error: 'empty file (0 bytes)' };
   if (!acceptedContent[format].includes(content)) return { ok: false, error: mislabelledMessage(format, content) };
@@ -59,17 +77,18 @@ async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 
     switch (format) {
       // Each reader and its libraries load on first use: a text-only audit never pays for them.
       case 'pdf':
-        return await (await import('./pdf.js')).readPdf(path, bytes, options.pdfEngine ?? 'auto');
+        return await (await import('./pdf.js')).readPdf(path, bytes, options.pdfEngine ?? 'auto', limits);
       case 'docx':
-        return await (await import('./docx.js')).readDocxBytes(path, bytes);
+        return await (await import('./docx.js')).readDocxBytes(path, bytes, limits);
       case 'html':
-        return { ok: true, document: (await import('./html.js')).htmlToDocument(decodeText(bytes), path, 'html') };
+        return { ok: true, document: (await import('./html.js')).htmlToDocument(decodeText(bytes), path, 'html', limits) };
       case 'jats':
-        return (await import('./jats.js')).jatsToDocument(decodeText(bytes), path);
+        return (await import('./jats.js')).jatsToDocument(decodeText(bytes), path, limits);
       case 'latex':
         return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path)) };
     }
   } catch (error) {
+    if (error instanceof DocumentLimitError) return { ok: false, error: error.message };
     // The readers return their known failures; this is the last guard of the never-throws promise.
     return { ok: false, error: `the ${format.toUpperCase()} reader failed unexpectedly (${error instanceof Error ? error.message : String(error)})` };
   }

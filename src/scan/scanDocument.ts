@@ -1,6 +1,7 @@
 import type { DocumentTable, Region } from '../documents/types.js';
 import { scanText } from './scan.js';
 import { findTextTables, readTableResults } from './tables/index.js';
+import { readDescriptives } from './descriptives/index.js';
 import type { ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
@@ -14,6 +15,15 @@ function inRegion(offset: number, regions: readonly Region[], kind: Region['kind
   return regions.some((region) => region.kind === kind && offset >= region.start && offset < region.end);
 }
 
+/** The tables in reading order, each once (a marked-up table is found again in the text; the first listed is kept). */
+function distinctTables(tables: readonly DocumentTable[]): DocumentTable[] {
+  const kept: DocumentTable[] = [];
+  for (const table of tables) {
+    if (!kept.some((other) => table.start < other.end && other.start < table.end)) kept.push(table);
+  }
+  return kept.sort((a, b) => a.start - b.start);
+}
+
 /**
  * Every reported result of a document: those written in running text, and
  * those in the rows of test tables (marked-up tables first, then tables
@@ -23,12 +33,22 @@ function inRegion(offset: number, regions: readonly Region[], kind: Region['kind
  */
 export function scanDocument(document: ScannableDocument): ScanOutput {
   const written = scanText(document.text);
-  const tabled = readTableResults(document.text, [...document.tables, ...findTextTables(document.text)]).filter(
+  const allTables = [...document.tables, ...findTextTables(document.text)];
+  const tabled = readTableResults(document.text, allTables).filter(
     // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
     (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
   );
   const results: ReportedResult[] = [...written.results, ...tabled]
     .filter((result) => !inRegion(result.start, document.regions, 'references'))
     .sort((a, b) => a.start - b.start || a.end - b.end);
-  return { results, context: written.context };
+  // Group means, SDs and ns (in the text and in descriptive tables), linked to the tests computed from them.
+  const descriptives = readDescriptives(document.text, distinctTables(allTables), results);
+  descriptives.links.forEach((set, index) => {
+    if (set !== null) results[index]!.descriptives = set;
+  });
+  return {
+    results,
+    context: written.context,
+    descriptives: descriptives.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
+  };
 }

@@ -101,6 +101,55 @@ export interface ReportedResult {
   effects: ReportedEffect[];
   /** Set when the result was read from a table row rather than from running text. */
   tableRow?: TableRowOrigin;
+  /**
+   * The group means, SDs and sizes the result was computed from, when the
+   * document reports them beside it (same paragraph, or a descriptive table
+   * the paragraph refers to) for the groups the test compares.
+   */
+  descriptives?: DescriptiveSet;
+}
+
+/** One group's descriptive statistics as reported. */
+export interface GroupDescriptives {
+  /** The group's name when the table or text gives one. */
+  label: string | null;
+  mean: ReportedNumber;
+  sd: ReportedNumber | null;
+  /** Group size; null when the document does not state it. */
+  n: number | null;
+  /**
+   * Where n comes from: written with the group ('group', incl. a table's n
+   * column), a per-group statement in the same paragraph or table note
+   * ('paragraph'), or a per-group statement elsewhere in the document that
+   * the test's df agree with ('document').
+   */
+  nSource: 'group' | 'paragraph' | 'document' | null;
+  /** Offsets of the group's numbers in the original text. */
+  start: number;
+  end: number;
+}
+
+/** A statement that a measure takes whole-number values ("on a single 7-point item", "number of errors"). */
+export interface IntegerScaleStatement {
+  text: string;
+  start: number;
+  end: number;
+  /** Integer-valued items averaged per person (1 for a single item or a count). */
+  items: number;
+}
+
+/** The descriptive statistics of the groups of one measure. */
+export interface DescriptiveSet {
+  source: 'text' | 'table';
+  groups: GroupDescriptives[];
+  /** Words naming what was measured: the sentence leading to the values, or a table's caption and headers. */
+  measure: string;
+  /** 0-based index of the table among the document's tables (source 'table'). */
+  tableIndex: number | null;
+  start: number;
+  end: number;
+  /** The document's statement that this measure is integer-valued, when it makes one nearby. */
+  integerScale: IntegerScaleStatement | null;
 }
 
 /** A sentence or phrase of the document that states something the checks need. */
@@ -135,4 +184,6 @@ export interface DocumentContext {
 export interface ScanOutput {
   results: ReportedResult[];
   context: DocumentContext;
+  /** Every set of group descriptive statistics found (linked or not to a result). */
+  descriptives?: DescriptiveSet[];
 }

@@ -1,4 +1,5 @@
 import { betaUpperFromRatio, betaLowerFromRatio } from './incompleteBeta.js';
+import { chiSquareUpperTail } from './chiSquareDistribution.js';
 
 /**
  * Upper tail of the central F distribution, P(F >= f), for F(df1, df2).
@@ -11,8 +12,9 @@ import { betaUpperFromRatio, betaLowerFromRatio } from './incompleteBeta.js';
  * non-integer (Welch, Greenhouse-Geisser or Huynh-Feldt corrected df).
  *
  * Edge cases: f <= 0 gives 1 (the whole distribution lies at or above 0);
- * f = +Infinity gives 0; df1 or df2 <= 0, infinite, or NaN, or f NaN, gives
- * NaN.
+ * f = +Infinity gives 0; df2 = Infinity is the limit df1 F ~ chi-square(df1)
+ * (an F whose error term is known); df1 <= 0 or infinite, df2 <= 0, or any
+ * NaN gives NaN.
  *
  * ## References
  * - Abramowitz, M. & Stegun, I. A. (1964). Handbook of Mathematical
@@ -21,9 +23,10 @@ import { betaUpperFromRatio, betaLowerFromRatio } from './incompleteBeta.js';
  *   Software 18(3), 360-373 (incomplete beta ratios).
  */
 export function fUpperTail(f: number, df1: number, df2: number): number {
-  if (!validDf(df1) || !validDf(df2) || Number.isNaN(f)) return NaN;
+  if (!validDf(df1) || !(validDf(df2) || df2 === Infinity) || Number.isNaN(f)) return NaN;
   if (f <= 0) return 1;
   if (f === Infinity) return 0;
+  if (df2 === Infinity) return chiSquareUpperTail(df1 * f, df1);
   return betaUpperFromRatio(df1 * f, df2, df1 / 2, df2 / 2);
 }
 

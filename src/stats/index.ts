@@ -18,3 +18,18 @@ export {
 export { fUpperTailRange, tTwoTailedRange, partialEtaSquaredRange } from './statisticRanges.js';
 export { monotoneImage, type NumberInterval } from './monotoneImage.js';
 export { findRootBrent, bracketDecreasingRoot, type BrentOptions } from './rootFinding.js';
+export {
+  oneWayAnovaFromSummary,
+  oneWayAnovaRange,
+  welchAnovaFromSummary,
+  welchAnovaRange,
+  studentTFromSummary,
+  welchTFromSummary,
+  welchDf,
+  independentTRange,
+  weightedSpread,
+  weightedSpreadRange,
+  type GroupSummary,
+  type GroupSummaryBox,
+} from './summaryStatistics.js';
+export { grimTest, grimmerTest, type GrimOutcome, type GrimmerOutcome } from './grim.js';

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fCdf, fUpperTail } from '../../src/stats/fDistribution.js';
+import { chiSquareUpperTail } from '../../src/stats/chiSquareDistribution.js';
 import { loadFixture, relativeFailures, type Comparison } from './referenceFixtures.js';
 
 interface FPoint { f: number; df1: number; df2: number; p: number; scipy: number; scipyRelErr: number }
@@ -61,9 +62,15 @@ describe('fUpperTail edge cases', () => {
   });
 
   it('returns NaN for invalid parameters', () => {
-    for (const [f, df1, df2] of [[1, 0, 5], [1, 5, 0], [1, -2, 5], [NaN, 2, 5], [1, NaN, 5], [1, 2, Infinity]] as const) {
+    for (const [f, df1, df2] of [[1, 0, 5], [1, 5, 0], [1, -2, 5], [NaN, 2, 5], [1, NaN, 5], [1, Infinity, 5]] as const) {
       expect(fUpperTail(f, df1, df2)).toBeNaN();
     }
+  });
+
+  it('treats df2 = Infinity as the chi-square limit and approaches it as df2 grows', () => {
+    const limit = fUpperTail(2.5, 3, Infinity);
+    expect(limit).toBe(chiSquareUpperTail(7.5, 3));
+    expect(Math.abs(fUpperTail(2.5, 3, 1e9) / limit - 1)).toBeLessThan(1e-7);
   });
 
   it('has fCdf + fUpperTail = 1 (common practice: complementary tails)', () => {

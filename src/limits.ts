@@ -1,0 +1,96 @@
+/**
+ * Limits on the work one document may cause. plumbline reads files that its
+ * user did not write: a document must not be able to exhaust memory or time
+ * by its size, its nesting, or a compressed part that expands enormously.
+ * A document over a limit is refused with a message that names the limit,
+ * its value, and how to raise it; the rest of the audit goes on.
+ *
+ * Every limit can be changed in the settings file ("limits": { ... }) and on
+ * the scan command line (--max-document-mb, or --limit name=value).
+ */
+
+export interface Limits {
+  /**
+   * Largest document read whole, in MB (10^6 bytes): the file's size for
+   * PDF, DOCX, HTML, XML and LaTeX, and the length of the text a reader
+   * extracts from it (in millions of characters). Plain-text files larger
+   * than `streamTextAboveMb` are scanned as a stream instead and have no
+   * size limit.
+   */
+  maxDocumentMb: number;
+  /** Plain-text (.txt, .md) files above this size, in MB, are scanned in chunks with bounded memory. */
+  streamTextAboveMb: number;
+  /** Largest total uncompressed size of a DOCX's zip entries, in MB (a zip bomb is refused before it is inflated). */
+  maxUnzippedMb: number;
+  /** Deepest nesting of elements in HTML, JATS XML and the HTML made from DOCX. */
+  maxNestingDepth: number;
+  /** Most elements in one HTML or XML document. */
+  maxElements: number;
+  /** Most pages read from one PDF. */
+  maxPdfPages: number;
+  /** Most columns in a refit data file (CSV, TSV, XLSX header). */
+  maxDataColumns: number;
+}
+
+export const defaultLimits: Readonly<Limits> = Object.freeze({
+  maxDocumentMb: 200,
+  streamTextAboveMb: 64,
+  maxUnzippedMb: 100,
+  maxNestingDepth: 1000,
+  maxElements: 2_000_000,
+  maxPdfPages: 5000,
+  maxDataColumns: 100_000,
+});
+
+/** How each limit is named in the settings file and after --limit, and what it counts. */
+export const limitDescriptions: Record<keyof Limits, { unit: string; what: string }> = {
+  maxDocumentMb: { unit: 'MB', what: 'document size' },
+  streamTextAboveMb: { unit: 'MB', what: 'size above which text files are streamed' },
+  maxUnzippedMb: { unit: 'MB', what: 'uncompressed size of a DOCX' },
+  maxNestingDepth: { unit: 'levels', what: 'element nesting depth' },
+  maxElements: { unit: 'elements', what: 'number of elements' },
+  maxPdfPages: { unit: 'pages', what: 'number of PDF pages' },
+  maxDataColumns: { unit: 'columns', what: 'number of data columns' },
+};
+
+export const limitNames = Object.keys(defaultLimits) as (keyof Limits)[];
+
+/** The defaults with the given overrides (undefined entries keep the default). */
+export function resolveLimits(overrides: Partial<Limits> | undefined): Limits {
+  const limits: Limits = { ...defaultLimits };
+  if (overrides) {
+    for (const name of limitNames) {
+      const value = overrides[name];
+      if (value !== undefined) limits[name] = value;
+    }
+  }
+  return limits;
+}
+
+export const MB = 1_000_000;
+
+/**
+ * The end of every refusal: which limit, its value, and how to raise it.
+ * "(limit maxUnzippedMb = 100 MB; raise it with --limit maxUnzippedMb=<n> or "limits": {"maxUnzippedMb": <n>} in the settings file)"
+ */
+export function limitHint(name: keyof Limits, value: number): string {
+  const { unit } = limitDescriptions[name];
+  const option = name === 'maxDocumentMb' ? '--max-document-mb <n>' : `--limit ${name}=<n>`;
+  return `(limit ${name} = ${formatLimit(value)} ${unit}; raise it with ${option} or "limits": {"${name}": <n>} in the settings file)`;
+}
+
+function formatLimit(value: number): string {
+  return Number.isInteger(value) ? value.toLocaleString('en-US') : String(value);
+}
+
+/** Megabytes with one decimal for messages ("312.4 MB"). */
+export function formatMb(bytes: number): string {
+  return `${(bytes / MB).toFixed(1)} MB`;
+}
+
+/** Checks one override (from the command line or settings): a positive number. Returns an error message or null. */
+export function checkLimitValue(name: string, value: number): string | null {
+  if (!(limitNames as string[]).includes(name)) return `unknown limit "${name}"; known limits: ${limitNames.join(', ')}`;
+  if (!Number.isFinite(value) || value <= 0) return `limit ${name} must be a positive number, got ${value}`;
+  return null;
+}

@@ -1,0 +1,309 @@
+/**
+ * Reads the group descriptive statistics of a document (text and tables)
+ * and links them to the tests computed from them.
+ *
+ * A test is linked to the groups written in its own paragraph, between the
+ * previous test of the paragraph (or the paragraph's start) and the test
+ * itself (or, when there are none, right after the test in the same
+ * sentence), or to a descriptive table that its sentence or paragraph
+ * names ("Table 1"). The number of groups must fit the test: two for an
+ * independent t, k for an F(k - 1, df2). Tests whose paragraph speaks of
+ * covariates, adjustment, paired, repeated or within-subject measures,
+ * interactions or main effects, and every test of a document that declares
+ * a within-subjects, mixed or factorial design, are left unlinked: their
+ * statistics do not follow from the groups' means and SDs alone.
+ *
+ * Group sizes come from the group itself (an n beside it or an n column),
+ * from a per-group statement in the same paragraph or table note ("n = 30
+ * per group"), or from a per-group statement elsewhere in the document when
+ * the test's df agree with it.
+ *
+ * Whole-number measures: a statement in the same paragraph, or in the
+ * table's caption, notes or headers, that the measure is a count or a
+ * rating on a single k-point item ("on a 7-point scale", "single-item",
+ * "number of errors") marks the set as integer-valued; "six-item" or "6
+ * items" in the same place gives the number of items averaged.
+ */
+
+import type { DocumentTable } from '../../documents/types.js';
+import type { DescriptiveSet, GroupDescriptives, IntegerScaleStatement, ReportedResult } from '../types.js';
+import { readDescriptiveTable, type DescriptiveTable } from './readTableDescriptives.js';
+import { readTextGroups, sentenceEnd, type TextGroup } from './readTextDescriptives.js';
+
+export { readTextGroups } from './readTextDescriptives.js';
+export { readDescriptiveTable } from './readTableDescriptives.js';
+
+const PARAGRAPH_GUARD =
+  /\b(?:covariates?|ANCOVA|MANOVA|adjust(?:ed|ing|ment)|controlling for|paired|repeated[- ]measures?|within[- ](?:subjects?|participants?|person|groups? design)|interactions?|main effects?|mixed|pre[- ]?tests?|post[- ]?tests?|matched|one[- ]sample|simple effects?)\b/i;
+const DOCUMENT_GUARD =
+  /\b(?:within[- ]subjects?|within[- ]participants?|repeated[- ]measures|mixed|split[- ]plot)\s(?:design|ANOVA|factorial|model)|\b(?:two|three|2|3)[- ]way\b|\bfactorial\b|\b\d\s?[x\u00d7]\s?\d\s(?:between[- ]subjects\s)?design/i;
+const PER_GROUP =
+  /\bn\s?=\s?(\d{1,5})\s?(?:per|in each|for each|each)\s(?:group|condition|cell|arm)s?\b|\b(\d{1,5})\s(?:[a-z]{1,20}\s){0,2}(?:per|in each|in every)\s(?:group|condition|cell|arm)\b/gi;
+const WORD_NUMBERS: Record<string, number> = {
+  one: 1, two: 2, three: 3, four: 4, five: 5, six: 6, seven: 7, eight: 8, nine: 9, ten: 10, eleven: 11, twelve: 12,
+};
+const INTEGER_SCALE =
+  /\b(?:single[- ]item|one[- ]item|(?:\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|eleven)[- ]point\b|number of (?:errors|mistakes|correct|words|items|trials|responses|problems|questions|answers|days|times|visits|steps|drinks|cigarettes|sessions)\b|counts? of\b|whole[- ]numbers?\b|integer[- ]valued\b)/gi;
+const ITEM_COUNT = /\b(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve)(?:[- ]items?\b|\sitems\b)/i;
+const TABLE_REFERENCE = /\bTables?\s([A-Z]?\d{1,3}[A-Za-z]?)\b/g;
+
+/** Most characters looked back from a result for its sentence's start. */
+const MAX_SENTENCE = 600;
+
+interface Paragraphs {
+  starts: number[];
+  ends: number[];
+}
+
+function paragraphsOf(text: string): Paragraphs {
+  const starts = [0];
+  const ends: number[] = [];
+  const blank = /\n[ \t]*\n/g;
+  for (let match = blank.exec(text); match !== null; match = blank.exec(text)) {
+    ends.push(match.index);
+    starts.push(match.index + match[0].length);
+  }
+  ends.push(text.length);
+  return { starts, ends };
+}
+
+function paragraphIndex(paragraphs: Paragraphs, offset: number): number {
+  let low = 0;
+  let high = paragraphs.starts.length - 1;
+  while (low < high) {
+    const mid = (low + high + 1) >> 1;
+    if (paragraphs.starts[mid]! <= offset) low = mid;
+    else high = mid - 1;
+  }
+  return low;
+}
+
+/** Start of the sentence holding `offset`, no earlier than `floor`. */
+function sentenceStart(text: string, offset: number, floor: number): number {
+  const lowest = Math.max(floor, offset - MAX_SENTENCE);
+  for (let at = offset - 1; at > lowest; at--) {
+    if (/[.!?]/.test(text[at - 1]!) && /\s/.test(text[at]!) && /[A-Z(]/.test(text[at + 1] ?? '')) return at + 1;
+  }
+  return lowest;
+}
+
+function integerStatements(text: string, from: number, to: number): IntegerScaleStatement[] {
+  const scope = text.slice(from, to);
+  const statements: IntegerScaleStatement[] = [];
+  const items = ITEM_COUNT.exec(scope);
+  const itemCount = items ? (WORD_NUMBERS[items[1]!.toLowerCase()] ?? Number(items[1])) : 1;
+  INTEGER_SCALE.lastIndex = 0;
+  for (let match = INTEGER_SCALE.exec(scope); match !== null; match = INTEGER_SCALE.exec(scope)) {
+    const single = /^(?:single|one)/i.test(match[0]);
+    statements.push({ text: match[0], start: from + match.index, end: from + match.index + match[0].length, items: single ? 1 : itemCount });
+  }
+  return statements;
+}
+
+function requiredGroups(result: ReportedResult): number | null {
+  if (result.value === null || result.valueComparator !== '=') return null;
+  if (result.kind === 't' && result.df.length === 1) return 2;
+  if (result.kind === 'F' && result.df.length === 2) {
+    const df1 = result.df[0]!;
+    if (df1.decimals === 0 && Number.isInteger(df1.value) && df1.value >= 1 && df1.value <= 11) return df1.value + 1;
+  }
+  return null;
+}
+
+/** The df the test would have with k equal groups of size n (Student / classic ANOVA). */
+function dfAgreesWithEqualN(result: ReportedResult, n: number, k: number): boolean {
+  const errorDf = result.kind === 'F' ? result.df[1] : result.df[0];
+  return errorDf !== undefined && errorDf.decimals === 0 && errorDf.value === k * n - k;
+}
+
+interface PerGroupStatement {
+  n: number;
+  start: number;
+}
+
+function perGroupStatements(text: string): PerGroupStatement[] {
+  const found: PerGroupStatement[] = [];
+  PER_GROUP.lastIndex = 0;
+  for (let match = PER_GROUP.exec(text); match !== null; match = PER_GROUP.exec(text)) {
+    found.push({ n: Number(match[1] ?? match[2]), start: match.index });
+  }
+  return found;
+}
+
+function fromText(groups: TextGroup[]): GroupDescriptives[] {
+  return groups.map((group) => ({
+    label: null,
+    mean: group.mean,
+    sd: group.sd,
+    n: group.n,
+    nSource: group.n === null ? null : 'group',
+    start: group.start,
+    end: group.end,
+  }));
+}
+
+export interface DescriptivesReading {
+  /** Every set found, linked or not. */
+  sets: DescriptiveSet[];
+  /** The set linked to each result (same order as the results given), or null. */
+  links: (DescriptiveSet | null)[];
+}
+
+/**
+ * Reads the document's descriptive statistics and links them to `results`
+ * (results read from table rows are not linked). `tables` are the
+ * document's tables, distinct and in reading order.
+ */
+export function readDescriptives(text: string, tables: readonly DocumentTable[], results: readonly ReportedResult[]): DescriptivesReading {
+  const paragraphs = paragraphsOf(text);
+  const textGroups = readTextGroups(text);
+  const groupsByParagraph = new Map<number, TextGroup[]>();
+  for (const group of textGroups) {
+    const index = paragraphIndex(paragraphs, group.start);
+    const list = groupsByParagraph.get(index) ?? [];
+    list.push(group);
+    groupsByParagraph.set(index, list);
+  }
+  const perGroup = perGroupStatements(text);
+  const documentGuarded = DOCUMENT_GUARD.test(text);
+  const descriptiveTables: { reading: DescriptiveTable; index: number }[] = [];
+  tables.forEach((table, index) => {
+    const reading = readDescriptiveTable(table);
+    if (reading !== null) descriptiveTables.push({ reading, index });
+  });
+
+  const sets: DescriptiveSet[] = [];
+  const usedGroups = new Set<TextGroup>();
+  const links = results.map((result, resultIndex): DescriptiveSet | null => {
+    if (result.tableRow !== undefined || documentGuarded) return null;
+    const required = requiredGroups(result);
+    if (required === null) return null;
+    const paragraph = paragraphIndex(paragraphs, result.start);
+    const paragraphStart = paragraphs.starts[paragraph]!;
+    const paragraphEnd = paragraphs.ends[paragraph] ?? text.length;
+    if (PARAGRAPH_GUARD.test(text.slice(paragraphStart, paragraphEnd))) return null;
+    const previous = results
+      .slice(0, resultIndex)
+      .filter((other) => other.tableRow === undefined && other.end <= result.start && other.end >= paragraphStart)
+      .reduce((latest, other) => Math.max(latest, other.end), paragraphStart);
+    const next = results.find((other) => other.tableRow === undefined && other.start >= result.end)?.start ?? paragraphEnd;
+    const inParagraph = groupsByParagraph.get(paragraph) ?? [];
+    let chosen = inParagraph.filter((group) => group.start >= previous && group.end <= result.start);
+    if (chosen.length === 0) {
+      const sentenceStop = sentenceEnd(text, result.end, MAX_SENTENCE);
+      chosen = inParagraph.filter((group) => group.start >= result.end && group.end <= Math.min(next, sentenceStop));
+    }
+    let set: DescriptiveSet | null = null;
+    if (chosen.length === required) {
+      chosen.forEach((group) => usedGroups.add(group));
+      const first = chosen[0]!;
+      const measureStart = sentenceStart(text, first.start, paragraphStart);
+      const statements = integerStatements(text, paragraphStart, paragraphEnd);
+      set = {
+        source: 'text',
+        groups: fromText(chosen),
+        measure: text.slice(measureStart, first.start).trim().slice(0, 200),
+        tableIndex: null,
+        start: first.start,
+        end: chosen[chosen.length - 1]!.end,
+        integerScale: statements[0] ?? null,
+      };
+      // Sizes from a per-group statement of the paragraph.
+      const local = perGroup.filter((statement) => statement.start >= paragraphStart && statement.start < paragraphEnd);
+      if (local.length > 0) {
+        const n = local[local.length - 1]!.n;
+        for (const group of set.groups) if (group.n === null) Object.assign(group, { n, nSource: 'paragraph' });
+      }
+    } else {
+      set = linkTable(text, result, required, descriptiveTables, paragraphStart, paragraphEnd);
+    }
+    if (set === null) return null;
+    // Sizes from a per-group statement elsewhere, when the test's df agree with it.
+    if (set.groups.some((group) => group.n === null)) {
+      const agreeing = perGroup.filter((statement) => dfAgreesWithEqualN(result, statement.n, required));
+      const statement = agreeing.filter((s) => s.start < result.start).pop() ?? agreeing[0];
+      if (statement !== undefined) {
+        for (const group of set.groups) if (group.n === null) Object.assign(group, { n: statement.n, nSource: 'document' });
+      }
+    }
+    sets.push(set);
+    return set;
+  });
+
+  // Unlinked descriptive statistics are reported too (one set per paragraph, one per table measure).
+  for (const [, groups] of groupsByParagraph) {
+    const unused = groups.filter((group) => !usedGroups.has(group));
+    if (unused.length === 0) continue;
+    sets.push({
+      source: 'text',
+      groups: fromText(unused),
+      measure: '',
+      tableIndex: null,
+      start: unused[0]!.start,
+      end: unused[unused.length - 1]!.end,
+      integerScale: null,
+    });
+  }
+  for (const { reading, index } of descriptiveTables) {
+    for (const measure of reading.measures) {
+      if (sets.some((set) => set.tableIndex === index && set.measure === measure.measure)) continue;
+      sets.push(tableSet(text, reading, index, measure.measure, measure.groups));
+    }
+  }
+  sets.sort((a, b) => a.start - b.start);
+  return { sets, links };
+}
+
+function tableSet(
+  text: string,
+  reading: DescriptiveTable,
+  index: number,
+  measure: string,
+  groups: DescriptiveTable['measures'][number]['groups'],
+): DescriptiveSet {
+  const { table } = reading;
+  const header = table.rows.slice(0, 3).flat().join(' ');
+  const scope = [table.caption ?? '', ...table.notes, header].join('\n');
+  const statement = integerStatements(scope, 0, scope.length)[0] ?? null;
+  return {
+    source: 'table',
+    groups: groups.map((group) => ({ ...group, start: table.start, end: table.end })),
+    measure,
+    tableIndex: index,
+    start: table.start,
+    end: table.end,
+    // Offsets of a statement in a caption or note are those of the table.
+    integerScale: statement === null ? null : { ...statement, start: table.start, end: table.end },
+  };
+}
+
+function linkTable(
+  text: string,
+  result: ReportedResult,
+  required: number,
+  tables: { reading: DescriptiveTable; index: number }[],
+  paragraphStart: number,
+  paragraphEnd: number,
+): DescriptiveSet | null {
+  const sentenceFrom = sentenceStart(text, result.start, paragraphStart);
+  const sentence = text.slice(sentenceFrom, sentenceEnd(text, result.end, MAX_SENTENCE));
+  const paragraph = text.slice(paragraphStart, paragraphEnd);
+  const referenced = (scope: string): string[] => [...scope.matchAll(TABLE_REFERENCE)].map((match) => match[1]!);
+  const numbers = referenced(sentence).length > 0 ? referenced(sentence) : referenced(paragraph);
+  const candidates = tables.filter(({ reading }) => reading.number !== null && numbers.includes(reading.number));
+  const fitting = candidates.flatMap(({ reading, index }) =>
+    reading.measures.filter((measure) => measure.groups.length === required).map((measure) => ({ reading, index, measure })),
+  );
+  let pick = fitting.length === 1 ? fitting[0]! : undefined;
+  if (pick === undefined && fitting.length > 1) {
+    // Several measures fit: the one whose name (spanning header) the sentence mentions.
+    const lower = sentence.toLowerCase();
+    const named = fitting.filter(({ measure }) => {
+      const name = measure.measure.split(' (')[0]!.trim().toLowerCase();
+      return name.length >= 3 && lower.includes(name);
+    });
+    if (named.length === 1) pick = named[0];
+  }
+  if (pick === undefined) return null;
+  return tableSet(text, pick.reading, pick.index, pick.measure.measure, pick.measure.groups);
+}
