@@ -37,7 +37,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * one superscript letter). Groups: 1 comparator, 2 sign, 3 digits, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:p\s*)?(<=|>=|\u2264|\u2265|<|>|=)?\s*([-\u2212\u2013+]?)\s*(\d{1,3}(?:,\d{3})+(?:\.\d+)?|\d*\.?\d+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+  /^(?:p\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?(\d{1,3}(?:,\d{3})+(?:\.\d+)?|\d+(?:\.\d+)?|\.\d+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 
 const COMPARATORS: Record<string, Comparator> = {
   '<': '<',
@@ -89,12 +89,18 @@ export type ColumnRole =
   | { role: 'descriptive' }
   | { role: 'unknown' };
 
+/** Printable ASCII without markup characters (which normalisation would remove or rewrite). */
+const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
+
 /**
  * A header as a comparable key: normalised (Greek spelled out, super- and
  * subscripts as digits), lower case, without markup characters, single spaces.
  */
 export function headerKey(header: string): string {
   if (header.length > MAX_CELL_LENGTH) return '';
+  // Plain ASCII words need no normalisation; most candidate phrases in running text are such words,
+  // and this is called for every word of every line while looking for table headers.
+  if (PLAIN_HEADER.test(header)) return header.toLowerCase().replace(/\s+/g, ' ').trim();
   return normaliseText(header)
     .text.toLowerCase()
     .replace(/[_^{}$\\*`]/g, '')
@@ -154,6 +160,24 @@ export function classifyHeader(header: string): ColumnRole {
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
   return ROLE_BY_KEY.has(key) || ROLE_BY_KEY.has(key.replace(/[.:]$/, '')) || HEADER_WITH_DF.test(key);
+}
+
+let firstWords: Set<string> | null = null;
+
+/**
+ * Whether a word can begin a known header name. Plain ASCII words are looked
+ * up in the first words of the vocabulary; anything else (Greek letters,
+ * markup) might normalise into one, so it counts as possible. This lets the
+ * table finder dismiss lines of prose without trying every phrase in them.
+ */
+export function couldStartHeader(word: string): boolean {
+  if (!PLAIN_HEADER.test(word)) return true;
+  if (firstWords === null) {
+    firstWords = new Set([...ROLE_BY_KEY.keys()].map((key) => key.split(' ')[0]!));
+    for (const word of ['eta', 'etap', 'etag', 'partial', 'omega', 'omegap', 'chi', 'x']) firstWords.add(word);
+  }
+  const key = word.toLowerCase().replace(/[.:,;]$/, '');
+  return firstWords.has(key) || HEADER_WITH_DF.test(key) || /^[a-z]{1,3}\(/.test(key);
 }
 
 /** Longest header phrase, in words, in the vocabulary. */

@@ -20,7 +20,7 @@
  */
 
 import type { DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
+import { classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
 
 interface Line {
   start: number;
@@ -241,6 +241,8 @@ function readHeader(line: Line): HeaderLine | null {
   }
   const tokens = tokenize(text);
   if (tokens.length < 2) return null;
+  // A crushed header names at least two columns; prose rarely has two words that could begin a name.
+  if (tokens.filter((token) => couldStartHeader(token.text)).length < 2) return null;
   const columns: Piece[] = [];
   let index = 0;
   let labelEnd = 0;

@@ -401,7 +401,7 @@ interface NoteDf {
 }
 
 const NOTE_ERROR_DF = /(?:error|residual)\s+dfs?\s*=\s*(\d+(?:\.\d+)?)|\bdfs?\s*(?:\(\s*error\s*\)|error|residual)\s*=\s*(\d+(?:\.\d+)?)/i;
-const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*=\s*\(?\s*(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?\s*\)?/i;
+const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*=\s*(?:\(\s*)?(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?\s*\)?/i;
 const NOTE_F_DF = /(?:^|[^a-z])F\s*\(\s*(\d+(?:\.\d+)?)\s*,\s*(\d+(?:\.\d+)?)\s*\)/;
 
 function readNoteDf(note: string): NoteDf {
