@@ -89,6 +89,18 @@ FINDINGS = [
      "r = 1.12 is impossible (slip for .112; p = .439 belongs to r = .112)"),
     ("brannock-commute-survey.txt", "t(120) = 2.45, p = .008", "halved-p", "warn", False,
      "p = .008 is half the two-tailed p = .016; the report says all tests were two-tailed"),
+    # quiet-carrel-study-rooms.txt (group means, SDs and ns written beside each test)
+    ("quiet-carrel-study-rooms.txt", "t(38) = 2.95, p = .005", "group-statistics-test-mismatch", "fail", True,
+     "M = 9.12 (0.61) vs 9.05 (0.70), n = 20 each, give t(38) = 0.34, p = .74; 2.95 does not follow"),
+    ("quiet-carrel-study-rooms.txt", "F(2, 66) = 4.29, p = .018", "group-sizes-df-mismatch", "fail", False,
+     "three groups of 21 give df2 = 63 - 3 = 60, not 66 (F = 4.29 itself follows from the groups)"),
+    ("quiet-carrel-study-rooms.txt", "F(2, 66) = 4.29, p = .018", "integer-data-granularity", "warn", False,
+     "M = 4.37 with n = 21 on a single 7-point item is impossible (GRIM): 91/21 = 4.33, 92/21 = 4.38"),
+    # lichen-trail-signage.md (means (SDs) with a per-group n)
+    ("lichen-trail-signage.md", "t(36) = 2.20, p = .034", "group-sizes-df-mismatch", "fail", False,
+     "17 hikers in each of two groups give df = 32, not 36 (t = 2.20 itself follows from the groups)"),
+    ("lichen-trail-signage.md", "F(2, 42) = 2.10, p = .135", "group-statistics-test-mismatch", "fail", True,
+     "means 6.8, 7.9, 9.6 (SDs 2.1, 2.4, 2.2), n = 15 each, give F(2, 42) = 5.97, p = .005; 2.10 does not follow"),
 ]
 
 DESCRIPTION = (

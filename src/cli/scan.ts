@@ -9,6 +9,7 @@ import { createProgress } from '../batch/progress.js';
 import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
+import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
 import type { DocumentOutput } from '../report/model.js';
 import { toolVersion } from '../version.js';
 import { addCommonOptions, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
@@ -23,6 +24,8 @@ interface ScanOptions extends CommonOptions {
   shard?: string;
   pdfEngine: NonNullable<ReadOptions['pdfEngine']>;
   quiet?: boolean;
+  maxDocumentMb?: string;
+  limit?: string[];
 }
 
 function parseJobs(text: string | undefined): number {
@@ -30,6 +33,24 @@ function parseJobs(text: string | undefined): number {
   const jobs = Number(text);
   if (!Number.isInteger(jobs) || jobs < 1) throw new UsageError(`--jobs must be a whole number of at least 1, got "${text}"`);
   return jobs;
+}
+
+/** The settings file's limits with the command line's on top; undefined when neither changes any. */
+function limitsFrom(fromSettings: Partial<Limits> | undefined, options: ScanOptions): Partial<Limits> | undefined {
+  const limits: Partial<Limits> = { ...fromSettings };
+  const set = (name: string, text: string, option: string): void => {
+    const value = Number(text);
+    const problem = text.trim() === '' ? `limit ${name} needs a value` : checkLimitValue(name, value);
+    if (problem !== null) throw new UsageError(`${option}: ${problem}`);
+    limits[name as keyof Limits] = value;
+  };
+  for (const item of options.limit ?? []) {
+    const equals = item.indexOf('=');
+    if (equals === -1) throw new UsageError(`--limit takes name=value, got "${item}"`);
+    set(item.slice(0, equals).trim(), item.slice(equals + 1), '--limit');
+  }
+  if (options.maxDocumentMb !== undefined) set('maxDocumentMb', options.maxDocumentMb, '--max-document-mb');
+  return Object.keys(limits).length > 0 ? limits : undefined;
 }
 
 function countFlags(document: DocumentOutput): { results: number; flags: number } {
@@ -61,8 +82,15 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         .default('auto'),
     )
     .option('-q, --quiet', 'no progress bar')
+    .option('--max-document-mb <n>', `largest document read whole, in MB (default ${defaultLimits.maxDocumentMb}; larger text files are streamed)`)
+    .option(
+      '--limit <name=value>',
+      `change another limit, repeatable (${limitNames.join(', ')}); see DEVELOPERS.md, "Limits"`,
+      (item: string, earlier: string[] = []) => [...earlier, item],
+    )
     .action(async (paths: string[], options: ScanOptions) => {
       const { userConfig, source } = userConfigFrom(options);
+      const limits = limitsFrom(userConfig.limits, options);
       if (options.resume && !options.jsonl) throw new UsageError('--resume needs --jsonl <file>: the file to resume');
       const shard = options.shard === undefined ? null : parseShard(options.shard);
       if (typeof shard === 'string') throw new UsageError(shard);
@@ -94,7 +122,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
 
       try {
         for (const input of inputs) if (input.reason !== null && !done.has(input.path)) emit(unreadableDocument(input.path, input.reason));
-        const readOptions: ReadOptions = { pdfEngine: options.pdfEngine };
+        const readOptions: ReadOptions = { pdfEngine: options.pdfEngine, ...(limits ? { limits } : {}) };
         await runBatch({
           files: inputs.filter((i) => i.reason === null && !done.has(i.path)).map((i) => i.path),
           task: { userConfig, configSource: source, readOptions },

@@ -102,7 +102,9 @@ export class TextBuilder {
     this.parts.push(text);
     this.length += text.length;
     this.last = text[text.length - 1] ?? this.last;
-    const trailing = /\n*$/.exec(text)?.[0].length ?? 0;
+    // Counted by hand: /\n*$/ takes quadratic time on a long run of newlines followed by anything else.
+    let trailing = 0;
+    while (trailing < text.length && text.charCodeAt(text.length - 1 - trailing) === 10) trailing++;
     this.trailingNewlines = trailing === text.length ? this.trailingNewlines + trailing : trailing;
   }
 }

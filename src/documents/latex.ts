@@ -50,7 +50,7 @@ function splitPreamble(source: string): { preamble: string; body: string } {
 }
 
 function readCommandArgument(source: string, command: string): string | null {
-  const match = new RegExp(`\\\\${command}\\*?\\s*(?:\\[[^\\]]*\\])?\\s*\\{`).exec(source);
+  const match = new RegExp(`\\\\${command}\\*?\\s*(?:\\[[^\\][]*\\]\\s*)?\\{`).exec(source);
   if (!match) return null;
   const group = readBalanced(source, match.index + match[0].length - 1, '{', '}');
   return group ? group.content : null;
@@ -352,7 +352,7 @@ class LatexConverter {
     const after = Math.min(source.length, endIndex + endMarker.length);
     if (name === 'document' || name === 'center' || name === 'minipage' || name === 'flushleft' || name === 'threeparttable') {
       this.builder.blockBreak(1);
-      this.run(name === 'minipage' ? body.replace(/^\s*(?:\[[^\]]*\])?\s*\{[^}]*\}/, '') : body);
+      this.run(name === 'minipage' ? body.replace(/^\s*(?:\[[^\][]*\]\s*)?\{[^}]*\}/, '') : body);
       this.builder.blockBreak(1);
       return after;
     }
@@ -443,7 +443,7 @@ function findEnvironmentEnd(source: string, from: number, name: string): number 
 
 /** A table float: its \caption, its tabular rows, and whatever other text it holds as notes. */
 function readTableFloat(body: string): TableDraft {
-  const captionMatch = /\\caption\*?\s*(?:\[[^\]]*\])?\s*\{/.exec(body);
+  const captionMatch = /\\caption\*?\s*(?:\[[^\][]*\]\s*)?\{/.exec(body);
   let caption: string | null = null;
   let rest = body;
   if (captionMatch) {
@@ -488,7 +488,7 @@ function tabularBody(body: string, name: string): string {
 
 /** Rows split on \\ and cells on & (at brace depth 0, not escaped); rule commands dropped; empty rows left out. */
 export function readTabularRows(body: string): string[][] {
-  const cleaned = body.replace(/\\(?:hline|toprule|midrule|bottomrule|addlinespace|endhead|endfirsthead|endfoot|endlastfoot|noalign\{[^}]*\})\b/g, ' ').replace(/\\(?:cline|cmidrule)(?:\([^)]*\))?\{[^}]*\}/g, ' ');
+  const cleaned = body.replace(/\\(?:hline|toprule|midrule|bottomrule|addlinespace|endhead|endfirsthead|endfoot|endlastfoot|noalign\{[^{}]*\})\b/g, ' ').replace(/\\(?:cline|cmidrule)(?:\([^()]*\))?\{[^{}]*\}/g, ' ');
   return splitAtDepthZero(cleaned, '\\\\')
     .map((row) => row.replace(/^\s*\[[^\]]*\]/, ''))
     .map((row) => splitAtDepthZero(row, '&').map((cell) => convertInline(cell)))

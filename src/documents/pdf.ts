@@ -84,7 +84,7 @@ export async function readPdf(
   if (!extracted.ok) return extracted;
   if (extracted.pages.length === 0) return { ok: false, error: 'the PDF has no pages' };
   if (looksScanned(extracted.pages)) return { ok: false, error: NO_TEXT_LAYER };
-  return { ok: true, document: pdfDocument(path, extracted.pages.map(dehyphenate)) };
+  return { ok: true, document: pdfDocument(path, withoutPageFurniture(extracted.pages).map(dehyphenate)) };
 }
 
 /** A PDF ends with "%%EOF" (possibly followed by a little whitespace or junk); a cut file does not. */
@@ -98,13 +98,64 @@ function looksScanned(pages: readonly string[]): boolean {
   return visible < MIN_CHARACTERS_PER_PAGE * pages.length;
 }
 
+/** A line that is only a page number: "12", "Page 12", "12 of 30", "- 12 -". */
+const PAGE_NUMBER_LINE = /^[-\u2013\u2014\s]*(?:page\s+)?\d{1,4}(?:\s*(?:of|\/)\s*\d{1,4})?[-\u2013\u2014\s]*$/i;
+/** How many lines at the top and bottom of a page may be running heads, feet or page numbers. */
+const FURNITURE_LINES = 3;
+
+function furnitureKey(line: string): string {
+  return line.trim().replace(/\d+/g, '#').toLowerCase();
+}
+
+/**
+ * Drops page furniture that text extraction leaves inside the running text,
+ * where it can fall between a result and its p ("F(1, 39) = 0.09,\fJournal of
+ * Things\n2\nn.s."): page-number lines, and running heads and feet, i.e.
+ * lines among the first or last few of a page that recur (numbers aside) on
+ * at least two pages and at least a third of them. Only the edges of pages
+ * are touched; body text is never removed.
+ */
+export function withoutPageFurniture(pages: readonly string[]): string[] {
+  const split = pages.map((page) => page.split('\n'));
+  const edgeCounts = new Map<string, number>();
+  for (const lines of split) {
+    const nonEmpty = lines.map((line, index) => ({ line, index })).filter(({ line }) => line.trim() !== '');
+    const edges = new Set([...nonEmpty.slice(0, FURNITURE_LINES), ...nonEmpty.slice(-FURNITURE_LINES)].map(({ line }) => furnitureKey(line)));
+    for (const key of edges) edgeCounts.set(key, (edgeCounts.get(key) ?? 0) + 1);
+  }
+  const recurring = (line: string): boolean => {
+    const count = edgeCounts.get(furnitureKey(line)) ?? 0;
+    return pages.length >= 2 && count >= 2 && count * 3 >= pages.length;
+  };
+  const isFurniture = (line: string): boolean => PAGE_NUMBER_LINE.test(line) || recurring(line);
+  return split.map((lines) => {
+    let first = 0;
+    let last = lines.length - 1;
+    for (let removed = 0; removed < FURNITURE_LINES && first <= last; ) {
+      if (lines[first]!.trim() === '') first += 1;
+      else if (isFurniture(lines[first]!)) {
+        first += 1;
+        removed += 1;
+      } else break;
+    }
+    for (let removed = 0; removed < FURNITURE_LINES && last >= first; ) {
+      if (lines[last]!.trim() === '') last -= 1;
+      else if (isFurniture(lines[last]!)) {
+        last -= 1;
+        removed += 1;
+      } else break;
+    }
+    return lines.slice(first, last + 1).join('\n');
+  });
+}
+
 /** Joins the pages with a form feed after each (as pdftotext writes them) and records where each starts. */
 export function pdfDocument(path: string, pages: readonly string[]): DocumentText {
   const pageStarts: number[] = [];
   let text = '';
   for (const page of pages) {
     pageStarts.push(text.length);
-    text += `${page.replace(/\s+$/, '')}\n\f`;
+    text += `${page.trimEnd()}\n\f`; // not /\s+$/, which is quadratic on a long run of spaces
   }
   return { path, format: 'pdf', text, pageOf: (offset) => pageAt(pageStarts, offset, text.length), regions: findReferenceListRegions(text), tables: [] };
 }
@@ -134,7 +185,8 @@ const COMPOUND_FIRST_PARTS = new Set(['chi', 'self', 'non', 'one', 'two', 'three
  * "p-\nvalue" stays as written.
  */
 export function dehyphenate(page: string): string {
-  return page.replace(/(\p{L}{2,})[-\u00AD\u2010]\n[ \t]*(\p{Ll}[\p{L}\p{M}'’]*)( ?)/gu, (_whole, first: string, rest: string, space: string) => {
+  // The look-behind starts a try only at the start of a word: without it, a long word with no hyphen is read again from each of its letters.
+  return page.replace(/(?<!\p{L})(\p{L}{2,})[-\u00AD\u2010]\n[ \t]*(\p{Ll}[\p{L}\p{M}'’]*)( ?)/gu, (_whole, first: string, rest: string, space: string) => {
     const joiner = COMPOUND_FIRST_PARTS.has(first.toLowerCase()) ? '-' : '';
     return `${first}${joiner}${rest}${space ? '\n' : ''}`;
   });

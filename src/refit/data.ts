@@ -429,7 +429,7 @@ export class ModelFrameReader implements RowConsumer {
               'TEXT_IN_NUMERIC_COLUMN',
               `${this.file}, row ${rowNumber}, column '${v.name}': "${text}" is not a number, but the column is numeric ` +
                 `(${v === vars[0] ? 'it is the outcome' : 'a covariate'}). Fix the cell, declare the code missing under missing.${v.name}` +
-                `${v === vars[0] ? '' : `, or declare the column under factors`}.`,
+                `${v === vars[0] ? '' : `, or declare the column under factors`}.${thousandsHint(text, decimalComma)}`,
               { file: this.file, row: rowNumber, column: v.name },
             );
           }
@@ -482,6 +482,14 @@ export class ModelFrameReader implements RowConsumer {
       origin: v.shifted.origin,
     }));
   }
+}
+
+/** For "1,234.5" (or "1.234,5" where the decimal mark is a comma): a hint that thousands separators are not read. */
+function thousandsHint(text: string, decimalComma: boolean): string {
+  const grouped = decimalComma ? /^[-+]?\d{1,3}(?:\.\d{3})+(?:,\d+)?$/ : /^[-+]?\d{1,3}(?:,\d{3})+(?:\.\d+)?$/;
+  if (!grouped.test(text)) return '';
+  const separator = decimalComma ? '.' : ',';
+  return ` (It looks like a thousands separator: write ${text.split(separator).join('')}.)`;
 }
 
 function suggest(name: string, candidates: readonly string[]): string {

@@ -56,9 +56,22 @@ function squash(text: string): string {
     .trim();
 }
 
+/**
+ * The header without a parenthesis at its end ("F (1, 40)" -> "F"): what
+ * .replace(/\s*\(.*\)\s*$/, '') does, without that pattern's quadratic time
+ * on long runs of spaces.
+ */
+function withoutTrailingParenthesis(text: string): string {
+  const end = text.trimEnd();
+  if (!end.endsWith(')')) return text;
+  const lastBreak = Math.max(end.lastIndexOf('\n'), end.lastIndexOf('\r'), end.lastIndexOf('\u2028'), end.lastIndexOf('\u2029'));
+  const open = end.indexOf('(', lastBreak + 1);
+  return open === -1 ? text : end.slice(0, open).trimEnd();
+}
+
 /** What a column header means: the label column, a quantity, or null (ignored). */
 export function columnMeaning(header: string): 'label' | Quantity | null {
-  const h = squash(header).replace(/\s*\(.*\)\s*$/, '');
+  const h = withoutTrailingParenthesis(squash(header));
   if (h === '' || /^(source|sources|effect|effects|term|terms|variable|predictor|source of variation|variation)$/.test(h)) return 'label';
   if (/^(ss|sum sq|sumsq|sum of squares|sums of squares|type (i|ii|iii|1|2|3) (sum of squares|ss)|(i|ii|iii) ss)$/.test(h)) return 'ss';
   if (/^(df|d ?f|dof|degrees of freedom)$/.test(h)) return 'df';
@@ -80,7 +93,7 @@ const SKIPPED_LABEL = /^(total|corrected total|intercept|\(intercept\)|constant|
 function cleanLabel(label: string): string {
   return label
     .normalize('NFKC')
-    .replace(/[*†‡§]+$/u, '')
+    .replace(/(?<![*†‡§])[*†‡§]+$/u, '')
     .replace(/^(main effect of|main effect|effect of)\s+/i, '')
     .trim();
 }
@@ -109,7 +122,7 @@ export function parseTermMap(entries: readonly string[]): Map<string, string> {
 /** Splits a printed interaction label into its parts ("Group × Dose", "group*dose", "group:dose", "Group by Dose"). */
 function labelParts(label: string): string[] {
   return squash(label)
-    .split(/\s*(?:×|:|\*|\bx\b|\bby\b|\s\/\s)\s*/u)
+    .split(/(?<!\s)\s*(?:×|:|\*|\bx\b|\bby\b|(?<=\s)\/(?=\s))\s*/u)
     .map((s) => s.trim())
     .filter((s) => s.length > 0);
 }
@@ -144,7 +157,7 @@ export function parseCell(text: string): ReportedValue | null {
     .normalize('NFKC')
     .replace(/[\u2212\u2013\u2014]/g, '-')
     .replace(/^\s*[pP]\s*(?=[<>=])/, '')
-    .replace(/[*†‡§]+$/u, '')
+    .replace(/(?<![*†‡§])[*†‡§]+$/u, '')
     .replace(/(?<=\d)[a-z]$/, '')
     .trim();
   if (/^\(.*\)$/.test(s)) s = s.slice(1, -1).trim();
@@ -217,7 +230,7 @@ export function tablesInText(text: string): Array<{ cells: string[][]; line: num
     const parts = t.split(/\t|\s{2,}/).map((c) => c.trim());
     return parts.length >= 3 ? parts : null;
   };
-  const isRule = (line: string) => /^\s*\|?\s*:?-{2,}:?\s*(\|\s*:?-{2,}:?\s*)*\|?\s*$/.test(line) || /^\s*[-=─━_]{5,}\s*$/.test(line);
+  const isRule = (line: string) => /^\s*(?:\|\s*)?:?-{2,}:?(?:\s*\|\s*:?-{2,}:?)*\s*(?:\|\s*)?$/.test(line) || /^\s*[-=─━_]{5,}\s*$/.test(line);
   for (let i = 0; i < lines.length; i++) {
     const header = split(lines[i]!);
     if (!header) continue;

@@ -60,7 +60,7 @@ export interface MissingRule {
   comparisons: Array<{ op: '<' | '<=' | '>' | '>='; value: number }>;
 }
 
-const NUM = String.raw`[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?`;
+const NUM = String.raw`[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?`;
 const RANGE_RE = new RegExp(`^(${NUM})\\s*(?:-|to|\\.\\.)\\s*(${NUM})$`);
 const CMP_RE = new RegExp(`^(<=|>=|<|>)\\s*(${NUM})$`);
 

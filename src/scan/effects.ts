@@ -95,8 +95,10 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
     while (at < limit && isNameCode(text.charCodeAt(at))) at++;
     nameEnd = at;
     const gap = text.charCodeAt(at);
-    // Words are joined by one space or hyphen ("partial eta-squared").
-    if ((gap === 32 || gap === 45) && isNameCode(text.charCodeAt(at + 1))) at++;
+    // Words are joined by one space or hyphen ("partial eta-squared"), or by a line break
+    // where a narrow column wrapped the name ("partial eta\nsquared").
+    if ((gap === 32 || gap === 45 || gap === 10) && isNameCode(text.charCodeAt(at + 1))) at++;
+    else if (gap === 13 && text.charCodeAt(at + 1) === 10 && isNameCode(text.charCodeAt(at + 2))) at += 2;
     else break;
   }
   const comparatorAt = skipSpaces(text, nameEnd);

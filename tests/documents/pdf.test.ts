@@ -81,3 +81,18 @@ describe('PDF text helpers', () => {
     ]);
   });
 });
+
+describe('page furniture', async () => {
+  const { withoutPageFurniture } = await import('../../src/documents/pdf.js');
+  it('drops running heads and page numbers at page edges, never body text', () => {
+    const pages = withoutPageFurniture([
+      'Journal of Invented Findings 12\nIntro text, F(1, 39) = 0.09,\n1',
+      'Journal of Invented Findings 13\nn.s.) and the rest.\n2',
+      'Journal of Invented Findings 14\nJournal of Invented Findings is cited here.\nLast line\nPage 3 of 3',
+    ]);
+    expect(pages).toEqual(['Intro text, F(1, 39) = 0.09,', 'n.s.) and the rest.', 'Journal of Invented Findings is cited here.\nLast line']);
+  });
+  it('leaves a single page alone apart from a page number', () => {
+    expect(withoutPageFurniture(['Title\nBody text\n7'])).toEqual(['Title\nBody text']);
+  });
+});

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { onlyResult, slice } from './helpers.js';
+import { scanText } from '../../src/scan/scan.js';
 import type { EffectKind } from '../../src/scan/types.js';
 
 describe('effect sizes', () => {
@@ -95,5 +96,12 @@ describe('confidence intervals', () => {
     expect(result.effects).toHaveLength(1);
     expect(result.effects[0]!.interval).toBeNull();
     expect(result.effects[0]!.kind).toBe('cohens-d');
+  });
+});
+
+describe('effect-size names wrapped by a narrow column', () => {
+  it.each(['partial eta\nsquared = .09', 'partial\neta squared = .09', 'partial eta\r\nsquared = .09'])('%j', (effect) => {
+    const [result] = scanText(`F(1, 40) = 4.00, p = .052, ${effect}.`).results;
+    expect(result?.effects.map((e) => [e.kind, e.value.value])).toEqual([['partial-eta-squared', 0.09]]);
   });
 });

@@ -10,6 +10,9 @@ import { pReportedAsZero } from './p-reported-as-zero.js';
 import { pValueMismatch } from './p-value-mismatch.js';
 import { sphericityCorrectedP } from './sphericity-corrected-p.js';
 import { tableArithmetic } from './table-arithmetic.js';
+import { groupStatisticsTestMismatch } from './group-statistics-test-mismatch.js';
+import { groupSizesDfMismatch } from './group-sizes-df-mismatch.js';
+import { integerDataGranularity } from './integer-data-granularity.js';
 
 /** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
 export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
@@ -25,5 +28,8 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     cohensDMismatch,
     dfExceedsSample,
     tableArithmetic,
+    groupStatisticsTestMismatch,
+    groupSizesDfMismatch,
+    integerDataGranularity,
   ].map((module) => [module.id, module]),
 );

@@ -1,0 +1,46 @@
+import { describe, expect, it } from 'vitest';
+import { ruleFindings } from './descriptivesHelper.js';
+
+const rule = 'group-statistics-test-mismatch';
+// Reference values: SciPy 1.10.1 (scipy.stats.ttest_ind_from_stats, and f_oneway on data with these
+// summaries; see tests/fixtures/stats/gen_summary.py, first hand-picked case): 4.25 (1.11, n = 24) vs
+// 3.52 (1.23, n = 25) give Student's t(47) = 2.178 and Welch's t = 2.183, df = 46.83.
+const twoGroups = (t: string) =>
+  `Comfort was higher in the warm room (M = 4.25, SD = 1.11, n = 24) than in the cool room (M = 3.52, SD = 1.23, n = 25), ${t}.`;
+
+describe(`${rule}: must pass`, () => {
+  it.each(['t(47) = 2.18, p = .034', 't(47) = -2.18, p = .034', 't(46.83) = 2.18, p = .034', 't(47) = 2.17, p = .035'])('%s', (t) => {
+    const [only] = ruleFindings(rule, twoGroups(t));
+    expect(only!.findings).toEqual([]);
+  });
+  it('a one-way ANOVA that follows from three groups (SciPy: F(2, 60) = 0.287)', () => {
+    const text =
+      'Speed was similar (M = 182.4, SD = 24.6, n = 21), (M = 179.8, SD = 26.1, n = 21) and (M = 176.5, SD = 25.2, n = 21), F(2, 60) = 0.29, p = .749.';
+    expect(ruleFindings(rule, text)[0]!.findings).toEqual([]);
+  });
+  it('leaves tests alone whose paragraph mentions a covariate', () => {
+    expect(ruleFindings(rule, twoGroups('t(46) = 3.90, p < .001') + ' Age was a covariate.')[0]!.findings).toEqual([]);
+  });
+  it('needs n: without group sizes nothing is recomputed', () => {
+    const text = 'Warm (M = 4.25, SD = 1.11) and cool (M = 3.52, SD = 1.23) rooms differed, t(47) = 3.90, p < .001.';
+    expect(ruleFindings(rule, text)[0]!.findings).toEqual([]);
+  });
+});
+
+describe(`${rule}: must flag`, () => {
+  it('a t that the groups do not give, with the recomputed numbers in the message', () => {
+    const [only] = ruleFindings(rule, twoGroups('t(47) = 3.18, p = .003'));
+    expect(only!.findings).toHaveLength(1);
+    expect(only!.findings[0]).toMatchObject({ rule, severity: 'fail', crossesAlpha: false });
+    expect(only!.findings[0]!.message).toContain("Student's t = 2.18");
+    expect(only!.findings[0]!.message).toContain('M = 4.25, SD = 1.11, n = 24');
+  });
+  it('an F that the groups do not give (SciPy: 5.97) and marks the changed conclusion', () => {
+    const text =
+      'Decision time, means (SDs), was 6.8 (2.1), 7.9 (2.4) and 9.6 (2.2) (n = 15 per group), F(2, 42) = 2.10, p = .135.';
+    const [only] = ruleFindings(rule, text);
+    expect(only!.findings).toHaveLength(1);
+    expect(only!.findings[0]!.crossesAlpha).toBe(true);
+    expect(only!.findings[0]!.message).toContain('one-way ANOVA F = 5.97');
+  });
+});
