@@ -28,8 +28,6 @@ export interface Limits {
   maxElements: number;
   /** Most pages read from one PDF. */
   maxPdfPages: number;
-  /** Most columns in a refit data file (CSV, TSV, XLSX header). */
-  maxDataColumns: number;
 }
 
 export const defaultLimits: Readonly<Limits> = Object.freeze({
@@ -39,7 +37,6 @@ export const defaultLimits: Readonly<Limits> = Object.freeze({
   maxNestingDepth: 1000,
   maxElements: 2_000_000,
   maxPdfPages: 5000,
-  maxDataColumns: 100_000,
 });
 
 /** How each limit is named in the settings file and after --limit, and what it counts. */
@@ -50,7 +47,6 @@ export const limitDescriptions: Record<keyof Limits, { unit: string; what: strin
   maxNestingDepth: { unit: 'levels', what: 'element nesting depth' },
   maxElements: { unit: 'elements', what: 'number of elements' },
   maxPdfPages: { unit: 'pages', what: 'number of PDF pages' },
-  maxDataColumns: { unit: 'columns', what: 'number of data columns' },
 };
 
 export const limitNames = Object.keys(defaultLimits) as (keyof Limits)[];

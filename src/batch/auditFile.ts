@@ -70,10 +70,9 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
         const start = local + window.start;
         if (start < window.ownStart || start >= window.ownEnd) continue;
         const { line, column } = window.locate(local);
-        statistics.push({
-          ...statistic,
-          location: { ...statistic.location, line, column, start, end: statistic.location.end + window.start },
-        });
+        // A copy: the result's strings are slices of the window's text, and would keep every window in memory.
+        const kept = structuredClone(statistic);
+        statistics.push({ ...kept, location: { ...kept.location, line, column, start, end: statistic.location.end + window.start } });
       }
     }
   } catch (error) {

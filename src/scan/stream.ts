@@ -213,7 +213,8 @@ export async function* scanTextStream(source: TextSource, options: StreamOptions
       const start = result.start + window.start;
       if (start < window.ownStart || start >= window.ownEnd) continue;
       const { line, column } = window.locate(result.start);
-      yield { ...shiftResult(result, window.start), line, column };
+      // A copy: the result's strings are slices of the window's text, and would keep the window alive as long as the result.
+      yield { ...shiftResult(structuredClone(result), window.start), line, column };
     }
   }
 }

@@ -11,7 +11,7 @@ import type { ReportedNumber } from '../scan/types.js';
  */
 export function parseReportedNumber(written: string): ReportedNumber | null {
   const text = written.trim();
-  const match = /^([+-]?)(\d*)(?:\.(\d+))?(?:\s*(?:[eE]|[x×*]\s*10\s*\^?)\s*([+-]?\d{1,3}))?$/.exec(text);
+  const match = /^([+-]?)(\d*)(?:\.(\d+))?(?:\s*(?:[eE]|[x×*]\s*10\s*(?:\^\s*)?)([+-]?\d{1,3}))?$/.exec(text);
   if (!match) return null;
   const [, sign = '', whole = '', fraction, exponentText] = match;
   if (whole === '' && fraction === undefined) return null;

@@ -33,3 +33,83 @@ export function pdfWithTextRuns(runs: number, pages = 1): Buffer {
   chunks.push(Buffer.from(`${xref}trailer\n<< /Size ${objects.length + 1} /Root 1 0 R >>\nstartxref\n${length}\n%%EOF\n`));
   return Buffer.concat(chunks);
 }
+
+export interface ZipEntryInput {
+  name: string;
+  /** Raw deflate data (method 8) or the stored bytes (method 0). */
+  data: Buffer;
+  method: 0 | 8;
+  crc: number;
+  /** The uncompressed size written in the headers (a bomb may lie). */
+  size: number;
+}
+
+/** A zip archive of the given entries (no zip64: sizes below 4 GiB). */
+export function zipArchive(entries: ZipEntryInput[]): Buffer {
+  const locals: Buffer[] = [];
+  const centrals: Buffer[] = [];
+  let offset = 0;
+  for (const entry of entries) {
+    const name = Buffer.from(entry.name, 'utf8');
+    const local = Buffer.alloc(30);
+    local.writeUInt32LE(0x04034b50, 0);
+    local.writeUInt16LE(20, 4);
+    local.writeUInt16LE(entry.method, 8);
+    local.writeUInt32LE(entry.crc >>> 0, 14);
+    local.writeUInt32LE(entry.data.length, 18);
+    local.writeUInt32LE(entry.size, 22);
+    local.writeUInt16LE(name.length, 26);
+    const central = Buffer.alloc(46);
+    central.writeUInt32LE(0x02014b50, 0);
+    central.writeUInt16LE(20, 4);
+    central.writeUInt16LE(20, 6);
+    central.writeUInt16LE(entry.method, 10);
+    central.writeUInt32LE(entry.crc >>> 0, 16);
+    central.writeUInt32LE(entry.data.length, 20);
+    central.writeUInt32LE(entry.size, 24);
+    central.writeUInt16LE(name.length, 28);
+    central.writeUInt32LE(offset, 42);
+    locals.push(local, name, entry.data);
+    centrals.push(central, name);
+    offset += 30 + name.length + entry.data.length;
+  }
+  const directory = Buffer.concat(centrals);
+  const end = Buffer.alloc(22);
+  end.writeUInt32LE(0x06054b50, 0);
+  end.writeUInt16LE(entries.length, 8);
+  end.writeUInt16LE(entries.length, 10);
+  end.writeUInt32LE(directory.length, 12);
+  end.writeUInt32LE(offset, 16);
+  return Buffer.concat([...locals, directory, end]);
+}
+
+/**
+ * Raw deflate data that inflates to `megabytes` MiB of zeros, built without
+ * compressing them all: once the window is full of zeros, every further MiB
+ * flushed with Z_SYNC_FLUSH compresses to the same bytes, which are repeated.
+ */
+export async function deflatedZeros(megabytes: number): Promise<{ data: Buffer; crc: number; size: number }> {
+  const { createDeflateRaw, constants, crc32 } = await import('node:zlib');
+  const mib = Buffer.alloc(1 << 20);
+  const deflate = createDeflateRaw({ level: 9 });
+  const output: Buffer[] = [];
+  deflate.on('data', (chunk: Buffer) => output.push(chunk));
+  const segment = async (): Promise<Buffer> => {
+    const before = output.length;
+    deflate.write(mib);
+    await new Promise<void>((resolve) => deflate.flush(constants.Z_SYNC_FLUSH, () => resolve()));
+    return Buffer.concat(output.slice(before));
+  };
+  const first = await segment();
+  const second = await segment();
+  const third = await segment();
+  if (!second.equals(third)) throw new Error('deflate did not reach a steady state');
+  const before = output.length;
+  await new Promise<void>((resolve) => deflate.end(() => resolve()));
+  await new Promise<void>((resolve) => (deflate.closed ? resolve() : deflate.on('close', () => resolve())));
+  const tail = Buffer.concat(output.slice(before));
+  const data = Buffer.concat([first, ...Array.from({ length: megabytes - 1 }, () => second), tail]);
+  let crc = 0;
+  for (let index = 0; index < megabytes; index++) crc = crc32(mib, crc);
+  return { data, crc, size: megabytes * (1 << 20) };
+}

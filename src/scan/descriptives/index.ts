@@ -174,19 +174,51 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
 
   const sets: DescriptiveSet[] = [];
   const usedGroups = new Set<TextGroup>();
-  const links = results.map((result, resultIndex): DescriptiveSet | null => {
+  // Everything about a paragraph is read once, however many results it holds (PDF text often has no
+  // blank lines, so one "paragraph" can be the whole document): the work stays linear.
+  const guardedParagraphs = new Map<number, boolean>();
+  const statementsOfParagraph = new Map<number, IntegerScaleStatement[]>();
+  const paragraphGuarded = (index: number, start: number, end: number): boolean => {
+    let guarded = guardedParagraphs.get(index);
+    if (guarded === undefined) guardedParagraphs.set(index, (guarded = PARAGRAPH_GUARD.test(text.slice(start, end))));
+    return guarded;
+  };
+  const paragraphStatements = (index: number, start: number, end: number): IntegerScaleStatement[] => {
+    let statements = statementsOfParagraph.get(index);
+    if (statements === undefined) statementsOfParagraph.set(index, (statements = integerStatements(text, start, end)));
+    return statements;
+  };
+  const writtenStarts = results.filter((result) => result.tableRow === undefined).map((result) => result.start).sort((a, b) => a - b);
+  /** Start of the first written result at or after `offset` (binary search). */
+  const nextWrittenStart = (offset: number): number | undefined => {
+    let low = 0;
+    let high = writtenStarts.length;
+    while (low < high) {
+      const mid = (low + high) >> 1;
+      if (writtenStarts[mid]! < offset) low = mid + 1;
+      else high = mid;
+    }
+    return writtenStarts[low];
+  };
+  const perGroupByParagraph = new Map<number, PerGroupStatement[]>();
+  for (const statement of perGroup) {
+    const index = paragraphIndex(paragraphs, statement.start);
+    perGroupByParagraph.set(index, [...(perGroupByParagraph.get(index) ?? []), statement]);
+  }
+  let latestWrittenEnd = -1;
+  const links = results.map((result): DescriptiveSet | null => {
+    // The end of the latest written result before this one (results come in reading order).
+    const previousEnd = latestWrittenEnd;
+    if (result.tableRow === undefined) latestWrittenEnd = Math.max(latestWrittenEnd, result.end);
     if (result.tableRow !== undefined || documentGuarded) return null;
     const required = requiredGroups(result);
     if (required === null) return null;
     const paragraph = paragraphIndex(paragraphs, result.start);
     const paragraphStart = paragraphs.starts[paragraph]!;
     const paragraphEnd = paragraphs.ends[paragraph] ?? text.length;
-    if (PARAGRAPH_GUARD.test(text.slice(paragraphStart, paragraphEnd))) return null;
-    const previous = results
-      .slice(0, resultIndex)
-      .filter((other) => other.tableRow === undefined && other.end <= result.start && other.end >= paragraphStart)
-      .reduce((latest, other) => Math.max(latest, other.end), paragraphStart);
-    const next = results.find((other) => other.tableRow === undefined && other.start >= result.end)?.start ?? paragraphEnd;
+    if (paragraphGuarded(paragraph, paragraphStart, paragraphEnd)) return null;
+    const previous = previousEnd >= paragraphStart && previousEnd <= result.start ? previousEnd : paragraphStart;
+    const next = nextWrittenStart(result.end) ?? paragraphEnd;
     const inParagraph = groupsByParagraph.get(paragraph) ?? [];
     let chosen = inParagraph.filter((group) => group.start >= previous && group.end <= result.start);
     if (chosen.length === 0) {
@@ -198,7 +230,7 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
       chosen.forEach((group) => usedGroups.add(group));
       const first = chosen[0]!;
       const measureStart = sentenceStart(text, first.start, paragraphStart);
-      const statements = integerStatements(text, paragraphStart, paragraphEnd);
+      const statements = paragraphStatements(paragraph, paragraphStart, paragraphEnd);
       set = {
         source: 'text',
         groups: fromText(chosen),
@@ -209,7 +241,7 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
         integerScale: statements[0] ?? null,
       };
       // Sizes from a per-group statement of the paragraph.
-      const local = perGroup.filter((statement) => statement.start >= paragraphStart && statement.start < paragraphEnd);
+      const local = perGroupByParagraph.get(paragraph) ?? [];
       if (local.length > 0) {
         const n = local[local.length - 1]!.n;
         for (const group of set.groups) if (group.n === null) Object.assign(group, { n, nSource: 'paragraph' });

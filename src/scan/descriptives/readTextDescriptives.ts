@@ -26,15 +26,18 @@ export interface TextGroup {
   end: number;
 }
 
-const NUMBER = String.raw`(-?\d{0,7}\.?\d{1,7})`;
-const UNSIGNED = String.raw`(\d{0,7}\.?\d{1,7})`;
+// Unambiguous: digits with an optional fraction, or a bare fraction (".85"), so no digit can be
+// matched two ways (an ambiguous split made the patterns slow on long runs of digits).
+const NUMBER = String.raw`(-?(?:\d{1,7}(?:\.\d{1,7})?|\.\d{1,7}))`;
+const UNSIGNED = String.raw`((?:\d{1,7}(?:\.\d{1,7})?|\.\d{1,7}))`;
 const LABELLED = new RegExp(
   String.raw`\b(?:n\s?=\s?(\d{1,6})\s?[,;]\s?)?(?:M|Mean|mean)\s?[=:]\s?${NUMBER}\s?(?:[,;]\s?|\(\s?)(?:SD|S\.D\.|sd|s\.d\.)\s?[=:]\s?${UNSIGNED}\s?\)?(?:\s?[,;]\s?n\s?=\s?(\d{1,6})\b)?`,
   'g',
 );
 const DECLARED =
   /\b(?:M\s?\(\s?SD\s?\)|Ms\s?\(\s?SDs\s?\)|means?\s?\(\s?SDs?\s?\)|means?\s?\(\s?standard deviations?\s?\)|means? and (?:\(\s?)?standard deviations?)/gi;
-const PAIR = new RegExp(String.raw`${NUMBER}\s?\(\s?${UNSIGNED}\s?(?:[,;]\s?n\s?=\s?(\d{1,6})\s?)?\)`, 'g');
+// A pair starts at the start of a number, never inside one (which also keeps the search linear).
+const PAIR = new RegExp(String.raw`(?<![\d.])${NUMBER}\s?\(\s?${UNSIGNED}\s?(?:[,;]\s?n\s?=\s?(\d{1,6})\s?)?\)`, 'g');
 
 /** Longest stretch after a declaration ("means (SDs) were") read for pairs. */
 const MAX_DECLARED_SPAN = 400;
