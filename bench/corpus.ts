@@ -158,7 +158,8 @@ async function main(): Promise<void> {
     console.log(`ratio  PDFs cold, ${cores} workers, pdf-parse / pdftotext alone: ${(pdfParseAll / baseline).toFixed(2)}`);
     console.log(`ratio  fastest engine / pdftotext alone: ${(Math.min(pdfColdAll, pdfParseAll) / baseline).toFixed(2)} (goal <= 1.5)`);
   }
-  rmSync(root, { recursive: true, force: true });
+  if (process.env.PLUMBLINE_BENCH_KEEP) console.log(`kept ${root}`);
+  else rmSync(root, { recursive: true, force: true });
 }
 
 await main();
