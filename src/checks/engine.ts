@@ -26,7 +26,6 @@ export function checkResults(text: string, scan: ScanOutput, config: ResolvedCon
         index,
         alpha,
         options: rule.options,
-        earlierFindings: findings,
       });
       for (const draft of drafts) {
         const template = rule.module.messages[draft.messageId];

@@ -39,8 +39,6 @@ export interface CheckContext<Options> {
   /** Significance level in force: the document's declared alpha, else the configured default. */
   alpha: number;
   options: Options;
-  /** Findings of rules that ran earlier on this result, so a check can defer to a more specific one. */
-  earlierFindings: readonly Finding[];
 }
 
 /**

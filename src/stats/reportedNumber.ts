@@ -23,11 +23,6 @@ export function parseReportedNumber(written: string): ReportedNumber | null {
   return { value, text, decimals, exponent };
 }
 
-/** Builds a ReportedNumber from a value known exactly (for tests and recomputed values). */
-export function exactNumber(value: number, decimals = 15): ReportedNumber {
-  return { value, text: String(value), decimals, exponent: 0 };
-}
-
 /** Half a unit in the last written place: 0.005 for "4.21", 0.5e-6 for "1.2e-5". */
 export function halfUnitInLastPlace(reported: ReportedNumber): number {
   return 0.5 * 10 ** (reported.exponent - reported.decimals);

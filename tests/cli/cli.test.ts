@@ -125,3 +125,14 @@ describe('the built command (bin entry)', () => {
     expect(result.stdout).not.toMatch(/\u001b\[/);
   });
 });
+
+describe('the library entry', () => {
+  it('audits text and formats a report without the command line', async () => {
+    const library = await import('../../src/index.js');
+    const config = library.resolveConfig({});
+    const report = library.buildReport([library.auditText(inconsistent, config, 'pasted')]);
+    expect(report.summary.findings.fail).toBe(1);
+    expect(library.formatMarkdown(report)).toContain('p-value-mismatch');
+    expect(library.statistics.fUpperTail(4.21, 2, 57)).toBeCloseTo(0.0197098, 6); // SciPy 1.10.1 scipy.stats.f.sf
+  });
+});
