@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { mkdir, readFile, rename, writeFile } from 'node:fs/promises';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import type { DocumentOutput } from '../report/model.js';
 
 /**
@@ -10,7 +10,7 @@ import type { DocumentOutput } from '../report/model.js';
  * A cached audit is reused whatever the file is called now.
  */
 export class AuditCache {
-  constructor(private readonly directory: string) {}
+  constructor(readonly directory: string) {}
 
   static key(content: Buffer, settingsFingerprint: string): string {
     return createHash('sha256').update(settingsFingerprint).update('\0').update(content).digest('hex');
@@ -54,4 +54,58 @@ function stableJson(value: unknown): string {
 /** A stable text of everything besides the file content that changes an audit. */
 export function settingsFingerprint(parts: Record<string, unknown>): string {
   return stableJson(parts);
+}
+
+interface IndexEntry {
+  size: number;
+  mtimeMs: number;
+  key: string;
+}
+
+/**
+ * Remembers the content key of each file by its size and modification time,
+ * so a re-audit of unchanged files does not read and hash every byte again
+ * (the way build tools decide a file is unchanged). A file whose size or
+ * time differs is hashed again; the audit itself is always found by the
+ * content key. One index per settings fingerprint, since the key includes it.
+ */
+export class ContentKeyIndex {
+  private entries = new Map<string, IndexEntry>();
+  private changed = false;
+  private readonly file: string;
+
+  constructor(directory: string, settingsFingerprint: string) {
+    const id = createHash('sha256').update(settingsFingerprint).digest('hex').slice(0, 16);
+    this.file = join(directory, `index-${id}.json`);
+  }
+
+  async load(): Promise<void> {
+    try {
+      const raw = JSON.parse(await readFile(this.file, 'utf8')) as Record<string, IndexEntry>;
+      this.entries = new Map(Object.entries(raw));
+    } catch {
+      this.entries = new Map(); // absent or damaged: every file is hashed
+    }
+  }
+
+  lookup(path: string, size: number, mtimeMs: number): string | null {
+    const entry = this.entries.get(path);
+    return entry && entry.size === size && entry.mtimeMs === mtimeMs ? entry.key : null;
+  }
+
+  record(path: string, size: number, mtimeMs: number, key: string): void {
+    const entry = this.entries.get(path);
+    if (entry && entry.size === size && entry.mtimeMs === mtimeMs && entry.key === key) return;
+    this.entries.set(path, { size, mtimeMs, key });
+    this.changed = true;
+  }
+
+  async save(): Promise<void> {
+    if (!this.changed) return;
+    await mkdir(dirname(this.file), { recursive: true });
+    const temporary = `${this.file}.${process.pid}.tmp`;
+    await writeFile(temporary, JSON.stringify(Object.fromEntries(this.entries)));
+    await rename(temporary, this.file);
+    this.changed = false;
+  }
 }

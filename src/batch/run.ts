@@ -1,8 +1,9 @@
 import { createHash } from 'node:crypto';
 import { createReadStream, existsSync } from 'node:fs';
+import { readFile, stat } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
 import type { DocumentOutput } from '../report/model.js';
-import { AuditCache } from './cache.js';
+import { AuditCache, ContentKeyIndex } from './cache.js';
 import type { WorkerTask } from './worker.js';
 
 export interface BatchOptions {
@@ -41,18 +42,28 @@ function workerModule(): string | null {
 async function cachedOrKey(
   path: string,
   cache: NonNullable<BatchOptions['cache']>,
+  index: ContentKeyIndex,
 ): Promise<{ document: DocumentOutput | null; key: string | null }> {
   let key: string;
   try {
-    key = await streamedKey(path, cache.fingerprint);
+    const info = await stat(path);
+    key = index.lookup(path, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, cache.fingerprint));
+    index.record(path, info.size, info.mtimeMs, key);
   } catch {
     return { document: null, key: null }; // the reader will report why
   }
   return { document: await cache.store.get(key, path), key };
 }
 
-/** AuditCache.key of a file's content, hashed as it is read: a 1 GB text file is never held in memory. */
-async function streamedKey(path: string, fingerprint: string): Promise<string> {
+/** Files up to this size are hashed from one read; larger ones as a stream. */
+const READ_WHOLE_BELOW = 16 << 20;
+
+/**
+ * AuditCache.key of a file's content. Small files are read at once; large
+ * ones are hashed as they are read, so a 1 GB text file is never held in memory.
+ */
+async function contentKey(path: string, size: number, fingerprint: string): Promise<string> {
+  if (size < READ_WHOLE_BELOW) return AuditCache.key(await readFile(path), fingerprint);
   const hash = createHash('sha256').update(fingerprint).update('\0');
   for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) hash.update(chunk as Buffer);
   return hash.digest('hex'); // the same as AuditCache.key(content, fingerprint)
@@ -70,7 +81,10 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   } else {
     // Look up many files at once: the lookups wait on the disk, not the processor.
     const cache = options.cache;
-    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache));
+    const index = new ContentKeyIndex(cache.store.directory, cache.fingerprint);
+    await index.load();
+    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache, index));
+    await index.save();
     lookups.forEach(({ document, key }, index) => {
       const path = options.files[index]!;
       if (document) options.onDocument(document, true);

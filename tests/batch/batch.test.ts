@@ -149,3 +149,22 @@ describe('cache fingerprint', () => {
     expect(a).toBe(c);
   });
 });
+
+describe('content key index', () => {
+  it('reuses a key only while size and modification time are unchanged', async () => {
+    const { ContentKeyIndex } = await import('../../src/batch/cache.js');
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-index-'));
+    const index = new ContentKeyIndex(dir, 'settings-a');
+    await index.load();
+    index.record('a.txt', 10, 1000, 'key-1');
+    await index.save();
+    const again = new ContentKeyIndex(dir, 'settings-a');
+    await again.load();
+    expect(again.lookup('a.txt', 10, 1000)).toBe('key-1');
+    expect(again.lookup('a.txt', 11, 1000)).toBeNull();
+    expect(again.lookup('a.txt', 10, 1001)).toBeNull();
+    const otherSettings = new ContentKeyIndex(dir, 'settings-b');
+    await otherSettings.load();
+    expect(otherSettings.lookup('a.txt', 10, 1000)).toBeNull();
+  });
+});
