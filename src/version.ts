@@ -1,4 +1,5 @@
-import { readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -17,4 +18,41 @@ export function toolVersion(): string {
     }
   }
   return (cached = '0.0.0');
+}
+
+let cachedBuild: string | null = null;
+
+/**
+ * Identifies the code that produced an audit: the version plus the size and
+ * modification time of every module of this build. Part of the cache key, so
+ * a rebuilt plumbline (a developer's change, or a reinstall) never reuses
+ * audits made by other code, even under the same version number.
+ */
+export function buildFingerprint(): string {
+  if (cachedBuild) return cachedBuild;
+  const sourceRoot = dirname(fileURLToPath(import.meta.url));
+  const parts: string[] = [toolVersion()];
+  const walk = (folder: string): void => {
+    for (const entry of readdirSync(folder, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) {
+      const path = join(folder, entry.name);
+      if (entry.isDirectory()) walk(path);
+      else if (/\.(?:js|ts)$/.test(entry.name)) {
+        const info = statSync(path);
+        parts.push(`${path.slice(sourceRoot.length)}:${info.size}:${info.mtimeMs}`);
+      }
+    }
+  };
+  walk(sourceRoot);
+  for (const rules of [join(sourceRoot, '..', 'rules'), join(sourceRoot, '..', '..', 'rules')]) {
+    try {
+      for (const name of readdirSync(rules).sort()) {
+        const info = statSync(join(rules, name));
+        parts.push(`rules/${name}:${info.size}:${info.mtimeMs}`);
+      }
+      break;
+    } catch {
+      // not this layout
+    }
+  }
+  return (cachedBuild = createHash('sha256').update(parts.join('\n')).digest('hex'));
 }

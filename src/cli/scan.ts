@@ -11,7 +11,7 @@ import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
 import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
 import type { DocumentOutput } from '../report/model.js';
-import { toolVersion } from '../version.js';
+import { buildFingerprint } from '../version.js';
 import { addCommonOptions, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 interface ScanOptions extends CommonOptions {
@@ -130,7 +130,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
           cache: options.cache
             ? {
                 store: new AuditCache(options.cacheDir),
-                fingerprint: settingsFingerprint({ version: toolVersion(), userConfig, readOptions }),
+                fingerprint: settingsFingerprint({ build: buildFingerprint(), userConfig, readOptions }),
               }
             : null,
           onDocument: emit,
