@@ -1,13 +1,15 @@
 import { closeSync, openSync, readFileSync, writeSync } from 'node:fs';
-import { documentSchema, type DocumentOutput } from '../report/model.js';
+import type { DocumentOutput } from '../report/model.js';
 
 /**
  * Reads a JSON Lines audit file: one document per line. A last line cut off
  * by an interrupted run is ignored (it is audited again on --resume); any
  * other bad line is an error naming the file and line.
  */
-export function readJsonLines(path: string): DocumentOutput[] {
+export async function readJsonLines(path: string): Promise<DocumentOutput[]> {
   const text = readFileSync(path, 'utf8');
+  // The record schema (zod) loads only when there is a file to check.
+  const { documentSchema } = await import('../report/model.js');
   const lines = text.split('\n');
   const documents: DocumentOutput[] = [];
   lines.forEach((line, index) => {

@@ -34,7 +34,9 @@ export function defaultRulesDirectory(): string {
   throw new Error(`rules catalogue not found (looked in ${candidates.join(', ')})`);
 }
 
-export class CatalogueError extends Error {}
+import { CatalogueError } from './errors.js';
+
+export { CatalogueError };
 
 /** Reads and validates every rules/<id>.json; the file name must equal the id. */
 export function loadCatalogue(directory = defaultRulesDirectory()): RuleEntry[] {

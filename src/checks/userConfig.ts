@@ -44,7 +44,9 @@ export const userConfigSchema = z
 
 export type UserConfig = z.infer<typeof userConfigSchema>;
 
-export class ConfigError extends Error {}
+import { ConfigError } from './errors.js';
+
+export { ConfigError };
 
 export function describeIssues(source: string, issues: readonly z.core.$ZodIssue[]): string {
   return issues.map((issue) => `${source}: ${issue.path.length ? issue.path.join('.') : '(top level)'}: ${issue.message}`).join('\n');

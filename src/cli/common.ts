@@ -1,7 +1,7 @@
 import { writeFileSync } from 'node:fs';
 import { Option, type Command } from 'commander';
 import type { ResolvedConfig } from '../checks/config.js';
-import { readUserConfigFile, type UserConfig } from '../checks/userConfig.js';
+import type { UserConfig } from '../checks/userConfig.js';
 import type { Report } from '../report/model.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
@@ -35,8 +35,9 @@ export interface CommonOptions {
 }
 
 /** The settings as plain data (they cross into worker threads) and where they came from. */
-export function userConfigFrom(options: CommonOptions): { userConfig: UserConfig; source: string } {
-  const userConfig = options.config ? readUserConfigFile(options.config) : {};
+export async function userConfigFrom(options: CommonOptions): Promise<{ userConfig: UserConfig; source: string }> {
+  // The validator (zod) loads only when there is a settings file to validate.
+  const userConfig = options.config ? (await import('../checks/userConfig.js')).readUserConfigFile(options.config) : {};
   if (options.alpha === undefined) return { userConfig, source: options.config ?? 'defaults' };
   const alpha = Number(options.alpha);
   if (!(alpha > 0 && alpha < 1)) throw new UsageError(`--alpha must be a number between 0 and 1, got "${options.alpha}"`);
@@ -45,7 +46,7 @@ export function userConfigFrom(options: CommonOptions): { userConfig: UserConfig
 
 /** Resolves the settings against the rules catalogue (loads every check, so only when checking). */
 export async function configFrom(options: CommonOptions): Promise<ResolvedConfig> {
-  const { userConfig, source } = userConfigFrom(options);
+  const { userConfig, source } = await userConfigFrom(options);
   const { resolveConfig } = await import('../checks/config.js');
   return resolveConfig(userConfig, source);
 }

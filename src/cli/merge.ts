@@ -12,15 +12,15 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
   )
     .option('--all', 'list results without findings too (text format)')
     .action(async (files: string[], options: CommonOptions & { all?: boolean }) => {
-      const documents = files.flatMap((file) => {
+      const perFile = await Promise.all(files.map(async (file) => {
         try {
-          return readJsonLines(file);
+          return await readJsonLines(file);
         } catch (error) {
           const code = (error as NodeJS.ErrnoException).code;
           throw new UsageError(code === 'ENOENT' ? `${file}: file not found` : (error as Error).message);
         }
-      });
-      const report = buildReport(mergeDocuments(documents));
+      }));
+      const report = buildReport(mergeDocuments(perFile.flat()));
       await writeReport(report, options, io, options.all ?? false);
       setExitCode(exitCodeFor(report, options.failOn));
     });

@@ -1,6 +1,5 @@
 import { Command, CommanderError, Option } from 'commander';
-import { CatalogueError } from '../checks/catalogue.js';
-import { ConfigError } from '../checks/userConfig.js';
+import { CatalogueError, ConfigError } from '../checks/errors.js';
 import { buildReport } from '../report/build.js';
 import { toolVersion } from '../version.js';
 import {

@@ -89,7 +89,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       (item: string, earlier: string[] = []) => [...earlier, item],
     )
     .action(async (paths: string[], options: ScanOptions) => {
-      const { userConfig, source } = userConfigFrom(options);
+      const { userConfig, source } = await userConfigFrom(options);
       const limits = limitsFrom(userConfig.limits, options);
       if (options.resume && !options.jsonl) throw new UsageError('--resume needs --jsonl <file>: the file to resume');
       const shard = options.shard === undefined ? null : parseShard(options.shard);
@@ -103,7 +103,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         ...files.map((path) => ({ path, reason: null as string | null })),
       ].filter((input) => shard === null || inShard(input.path, shard));
 
-      const previous = options.resume && options.jsonl && existsSync(options.jsonl) ? readJsonLines(options.jsonl) : [];
+      const previous = options.resume && options.jsonl && existsSync(options.jsonl) ? await readJsonLines(options.jsonl) : [];
       const done = new Set(previous.map((d) => d.path));
       const writer = options.jsonl ? new JsonLinesWriter(options.jsonl, Boolean(options.resume)) : null;
       const streamToStdout = options.format === 'jsonl' && !options.jsonl && !options.output;
