@@ -28,6 +28,13 @@ export interface Limits {
   maxElements: number;
   /** Most pages read from one PDF. */
   maxPdfPages: number;
+  /**
+   * Longest time one document may take, in seconds: a document audited on a
+   * worker thread is stopped (the thread is replaced) and pdftotext is killed
+   * when it runs longer. A document audited on the main thread (--jobs 1)
+   * with pdf-parse cannot be interrupted.
+   */
+  maxSecondsPerDocument: number;
 }
 
 export const defaultLimits: Readonly<Limits> = Object.freeze({
@@ -37,6 +44,7 @@ export const defaultLimits: Readonly<Limits> = Object.freeze({
   maxNestingDepth: 1000,
   maxElements: 2_000_000,
   maxPdfPages: 5000,
+  maxSecondsPerDocument: 120,
 });
 
 /** How each limit is named in the settings file and after --limit, and what it counts. */
@@ -47,6 +55,7 @@ export const limitDescriptions: Record<keyof Limits, { unit: string; what: strin
   maxNestingDepth: { unit: 'levels', what: 'element nesting depth' },
   maxElements: { unit: 'elements', what: 'number of elements' },
   maxPdfPages: { unit: 'pages', what: 'number of PDF pages' },
+  maxSecondsPerDocument: { unit: 'seconds', what: 'time for one document' },
 };
 
 export const limitNames = Object.keys(defaultLimits) as (keyof Limits)[];

@@ -3,6 +3,8 @@ import { createReadStream, existsSync } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
 import type { DocumentOutput } from '../report/model.js';
+import { limitHint, resolveLimits } from '../limits.js';
+import { unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
 import type { WorkerTask } from './worker.js';
 
@@ -94,7 +96,9 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   if (pending.length === 0) return;
 
   const finish = async ({ key }: { key: string | null }, document: DocumentOutput): Promise<void> => {
-    if (key && options.cache) await options.cache.store.set(key, document);
+    // Only audits are kept: a document that could not be read (or ran out of time, which may be the
+    // machine's load) is tried again next time.
+    if (key && options.cache && document.status === 'checked') await options.cache.store.set(key, document);
     options.onDocument(document, false);
   };
 
@@ -116,7 +120,19 @@ export async function runBatch(options: BatchOptions): Promise<void> {
     idleTimeout: 1000,
   });
   try {
-    await Promise.all(pending.map(async (item) => finish(item, await pool.run({ ...options.task, path: item.path }))));
+    const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
+    const auditOnPool = async (path: string): Promise<DocumentOutput> => {
+      try {
+        // Past the time budget piscina stops the thread (and starts a new one); the document is listed with the reason.
+        return await pool.run({ ...options.task, path }, { signal: AbortSignal.timeout(maxSecondsPerDocument * 1000) });
+      } catch (error) {
+        if ((error as Error).name === 'AbortError' || (error as Error).name === 'TimeoutError') {
+          return unreadableDocument(path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`);
+        }
+        return unreadableDocument(path, `internal error while auditing: ${(error as Error).message}`);
+      }
+    };
+    await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(item.path))));
   } finally {
     await pool.destroy();
   }

@@ -76,11 +76,14 @@ export async function readPdf(
   path: string,
   bytes: Uint8Array,
   choice: PdfEngineChoice = 'auto',
-  limits: Pick<Limits, 'maxPdfPages'> = defaultLimits,
+  limits: Pick<Limits, 'maxPdfPages' | 'maxSecondsPerDocument'> = defaultLimits,
 ): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
   if (!hasEndOfFileMarker(bytes)) return { ok: false, error: 'truncated PDF: the end-of-file marker is missing, so the file was cut short (an interrupted download or copy?)' };
   const engine = resolvePdfEngine(choice);
-  const extracted = engine === 'pdftotext' ? await pagesWithPdftotext(path, limits.maxPdfPages) : await pagesWithPdfParse(bytes, limits.maxPdfPages);
+  const extracted =
+    engine === 'pdftotext'
+      ? await pagesWithPdftotext(path, limits.maxPdfPages, limits.maxSecondsPerDocument)
+      : await pagesWithPdfParse(bytes, limits.maxPdfPages);
   if (!extracted.ok) return extracted;
   if (extracted.pages.length === 0) return { ok: false, error: 'the PDF has no pages' };
   if (looksScanned(extracted.pages)) return { ok: false, error: NO_TEXT_LAYER };
@@ -222,11 +225,12 @@ function describePdfParseError(error: unknown): string {
 }
 
 /** Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form feeds. */
-async function pagesWithPdftotext(path: string, maxPages: number): Promise<PdfPagesOutcome> {
+async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: number): Promise<PdfPagesOutcome> {
   const executable = findPdftotext();
   if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
   // One page past the limit is read, to tell a PDF at the limit from one over it.
-  const run = await runProcess(executable, ['-raw', '-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-']);
+  const run = await runProcess(executable, ['-raw', '-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-'], maxSeconds * 1000);
+  if (run.timedOut) return { ok: false, error: `pdftotext took longer than ${maxSeconds} s on this PDF and was stopped ${limitHint('maxSecondsPerDocument', maxSeconds)}` };
   if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
   if (run.code !== 0) return { ok: false, error: describePdftotextFailure(run.code, run.stderr, path) };
   const pages = run.stdout.split('\f');
@@ -248,16 +252,29 @@ interface ProcessRun {
   stdout: string;
   stderr: string;
   spawnError: string | null;
+  timedOut: boolean;
 }
 
-function runProcess(executable: string, args: string[]): Promise<ProcessRun> {
+function runProcess(executable: string, args: string[], timeoutMs: number): Promise<ProcessRun> {
   return new Promise((resolve) => {
-    const child = spawn(executable, args, { stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(executable, args, { stdio: ['ignore', 'pipe', 'pipe'], timeout: timeoutMs, killSignal: 'SIGKILL' });
+    let timedOut = false;
+    const timer = setTimeout(() => {
+      timedOut = true;
+    }, timeoutMs);
+    timer.unref();
     const out: Buffer[] = [];
     const err: Buffer[] = [];
     child.stdout.on('data', (chunk: Buffer) => out.push(chunk));
     child.stderr.on('data', (chunk: Buffer) => err.push(chunk));
-    child.on('error', (error) => resolve({ code: null, stdout: '', stderr: '', spawnError: error.message }));
-    child.on('close', (code) => resolve({ code, stdout: Buffer.concat(out).toString('utf8'), stderr: Buffer.concat(err).toString('utf8'), spawnError: null }));
+    child.on('error', (error) => {
+      clearTimeout(timer);
+      resolve({ code: null, stdout: '', stderr: '', spawnError: error.message, timedOut: false });
+    });
+    child.on('close', (code, signal) => {
+      clearTimeout(timer);
+      const killedForTime = timedOut && signal === 'SIGKILL';
+      resolve({ code, stdout: Buffer.concat(out).toString('utf8'), stderr: Buffer.concat(err).toString('utf8'), spawnError: null, timedOut: killedForTime });
+    });
   });
 }
