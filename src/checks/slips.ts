@@ -23,14 +23,21 @@ function withNumber(original: ReportedNumber, text: string): ReportedNumber | nu
   return parsed ? { ...parsed, decimals: original.decimals } : null;
 }
 
-/** Every text that differs from `digits` by one swapped pair of adjacent digits. */
+/**
+ * Every text that differs from `text` by one swapped pair of neighbouring
+ * digits, reading across a decimal point ("3.61" -> "6.31", "3.16"): the
+ * point stays where it was typed.
+ */
 export function adjacentTranspositions(text: string): string[] {
+  const digitPositions = [...text].flatMap((character, index) => (/\d/.test(character) ? [index] : []));
   const variants = new Set<string>();
-  for (let i = 0; i + 1 < text.length; i += 1) {
-    const here = text[i]!;
-    const next = text[i + 1]!;
-    if (here === next || !/\d/.test(here) || !/\d/.test(next)) continue;
-    variants.add(text.slice(0, i) + next + here + text.slice(i + 2));
+  for (let i = 0; i + 1 < digitPositions.length; i += 1) {
+    const left = digitPositions[i]!;
+    const right = digitPositions[i + 1]!;
+    if (text[left] === text[right]) continue;
+    const characters = [...text];
+    [characters[left], characters[right]] = [characters[right]!, characters[left]!];
+    variants.add(characters.join(''));
   }
   return [...variants];
 }
@@ -192,6 +199,8 @@ export function findSlips(
   neighbours: readonly { result: ReportedResult; recomputation: Recomputation }[],
   allowTruncation: boolean,
 ): Slip[] {
+  // Only an exact p can single out a slip: "p < .05" fits many alternatives equally well.
+  if (result.p?.comparator !== '=') return [];
   return [
     ...sampleSizeSlips(result, allowTruncation),
     ...neighbourSlips(result, neighbours, allowTruncation),

@@ -104,3 +104,18 @@ describe('p-value-mismatch: must flag', () => {
     expect(secondFindings![0]).toMatchObject({ slip: 'neighbour-p-copied' });
   });
 });
+
+describe('p-value-mismatch: slips across a decimal point, and none for inequalities', () => {
+  it('names digits swapped across the decimal point (6.31 typed as 3.61)', () => {
+    // F(2, 86) = 6.31 -> p = .0028; F(2, 86) = 3.61 -> p = .0312 (SciPy 1.10.1 scipy.stats.f.sf)
+    const [finding] = flagsOf(rule, { kind: 'F', df: ['2', '86'], value: '3.61', p: '= .003' });
+    expect(finding).toMatchObject({ slip: 'statistic-digits-transposed' });
+    expect(finding!.message).toContain('F(2, 86) = 6.31');
+  });
+  it('names no slip for a p given as an inequality, which many alternatives would fit', () => {
+    // chi2(2) = 5.10 -> p = .078 (SciPy 1.10.1 scipy.stats.chi2.sf)
+    const [finding] = flagsOf(rule, { kind: 'chi2', df: ['2'], value: '5.10', p: '< .05' });
+    expect(finding).toMatchObject({ crossesAlpha: true });
+    expect(finding!.slip).toBeUndefined();
+  });
+});
