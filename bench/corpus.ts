@@ -109,6 +109,8 @@ function plumbline(args: string[]): void {
 
 async function main(): Promise<void> {
   const root = mkdtempSync(join(tmpdir(), 'plumbline-bench-corpus-'));
+  // Caches live outside the corpus folder, as .plumbline-cache does for a user, so no run walks them.
+  const caches = mkdtempSync(join(tmpdir(), 'plumbline-bench-caches-'));
   const pdfFolder = join(root, 'pdf');
   const textFolder = join(root, 'text');
   mkdirSync(pdfFolder);
@@ -133,7 +135,7 @@ async function main(): Promise<void> {
   }
 
   const engine = hasPdftotext ? 'pdftotext' : 'pdf-parse';
-  const cacheDir = (name: string): string => join(root, `cache-${name}`);
+  const cacheDir = (name: string): string => join(caches, name);
   const rows: [string, number, number][] = [];
   const time = (label: string, documents: number, args: string[]): number => {
     const elapsed = seconds(() => plumbline(args));
@@ -160,6 +162,7 @@ async function main(): Promise<void> {
   }
   if (process.env.PLUMBLINE_BENCH_KEEP) console.log(`kept ${root}`);
   else rmSync(root, { recursive: true, force: true });
+  rmSync(caches, { recursive: true, force: true });
 }
 
 await main();
