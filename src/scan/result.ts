@@ -10,7 +10,8 @@ import { MAX_GAP, isAsciiLetter, isSpaceCode, startsWord } from './cursor.js';
 import { isUnambiguousEffectName, readInterval, readNameAndValue } from './effects.js';
 import { readNotSignificant, readPValue } from './pValue.js';
 import { readStatisticHead, type StatisticHead } from './statistic.js';
-import type { ReportedEffect, ReportedInterval, ReportedP } from './types.js';
+import type { ReportedEffect, ReportedInterval, ReportedNumber, ReportedP } from './types.js';
+import { parseReportedNumber } from '../stats/reportedNumber.js';
 
 /** A result before its offsets are mapped back to the original text. */
 export interface ResultDraft {
@@ -78,6 +79,15 @@ function readTail(text: string, draft: ResultDraft): boolean {
     const next = skipSeparators(text, position);
     if (next >= text.length || startsResult(text, next)) break;
 
+    if (last === 'head' && draft.head.df.length === 0) {
+      // Older styles give the df after the value: "t = 2.21, df = 28, p = .035", "F = 4.21, df = 1, 44".
+      const trailing = readTrailingDf(text, next, draft.head.kind === 'F' ? 2 : 1);
+      if (trailing !== null) {
+        draft.head = { ...draft.head, df: trailing.df };
+        position = draft.end = trailing.end;
+        continue; // still right after the head: a p that follows counts as direct
+      }
+    }
     const p = readTailPValue(text, next);
     if (p !== null) {
       // A second p-value belongs to something else.
@@ -141,6 +151,46 @@ function readTail(text: string, draft: ResultDraft): boolean {
     last = 'other';
   }
   return directP;
+}
+
+/** Longest run of digits read as one df (a bounded read, like every reader here). */
+const MAX_DF_DIGITS = 7;
+
+function readDfNumber(text: string, at: number): { number: ReportedNumber; end: number } | null {
+  let end = at;
+  while (end < text.length && end - at < MAX_DF_DIGITS && text.charCodeAt(end) >= 48 && text.charCodeAt(end) <= 57) end++;
+  if (end === at) return null;
+  if (text.charCodeAt(end) === 46 && text.charCodeAt(end + 1) >= 48 && text.charCodeAt(end + 1) <= 57) {
+    end++;
+    while (end < text.length && end - at < 2 * MAX_DF_DIGITS && text.charCodeAt(end) >= 48 && text.charCodeAt(end) <= 57) end++;
+  }
+  const number = parseReportedNumber(text.slice(at, end));
+  return number === null ? null : { number, end };
+}
+
+/**
+ * "df = 28" or "df = 1, 44" ("dfs", ":" and "/" also read) after a statistic
+ * written without df. `count` numbers are needed: two for F, one otherwise;
+ * a second number that is not there leaves the part unread.
+ */
+export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
+  if (!(text.startsWith('df', at) || text.startsWith('dfs', at))) return null;
+  let position = at + (text.startsWith('dfs', at) ? 3 : 2);
+  while (isSpaceCode(text.charCodeAt(position))) position++;
+  const sign = text.charCodeAt(position);
+  if (sign !== 61 && sign !== 58) return null; // "=" or ":"
+  position++;
+  while (isSpaceCode(text.charCodeAt(position))) position++;
+  const first = readDfNumber(text, position);
+  if (first === null) return null;
+  if (count === 1) return { df: [first.number], end: first.end };
+  position = first.end;
+  const separator = text.charCodeAt(position);
+  if (separator !== 44 && separator !== 47 && separator !== 59) return null; // "," "/" ";"
+  position++;
+  while (isSpaceCode(text.charCodeAt(position))) position++;
+  const second = readDfNumber(text, position);
+  return second === null ? null : { df: [first.number, second.number], end: second.end };
 }
 
 function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): boolean {

@@ -179,3 +179,21 @@ describe('placement in text', () => {
     expect(results.map((result) => result.start)).toEqual([...results.map((result) => result.start)].sort((a, b) => a - b));
   });
 });
+
+describe('df written after the value (older styles)', () => {
+  it.each([
+    ['F = 4.21, df = 1, 44, p = .046', 'F', [1, 44]],
+    ['F = 4.21, df = 1/44, p = .046', 'F', [1, 44]],
+    ['t = 2.21, df = 28, p = .035', 't', [28]],
+    ['t = 2.21, df=28, p<.05', 't', [28]],
+    ['chi2 = 3.9, df = 1, p = .048', 'chi2', [1]],
+    ['r = .32, df = 48, p = .023', 'r', [48]],
+  ])('%s', (text, kind, df) => {
+    const results = scanText(`The effect (${text}) was clear.`).results;
+    expect(results.map((r) => [r.kind, r.df.map((d) => d.value)])).toEqual([[kind, df]]);
+  });
+  it('an F with one trailing df is incomplete and not read; df elsewhere in the sentence is not taken', () => {
+    expect(scanText('F = 4.21, df = 1, p = .046').results).toEqual([]);
+    expect(scanText('we used df = 28 and t = 2.21.').results).toEqual([]);
+  });
+});
