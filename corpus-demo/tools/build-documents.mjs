@@ -19,12 +19,11 @@
  * "::: table" and ":::" (a "caption:" line, "| a | b |" rows, "note:" lines), and "- " items
  * under "# References". Inline: *italic*, _{sub}, ^{sup}, [^footnote text].
  */
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as docx from 'docx';
+import { findChromium, printPdf } from './print-pdf.mjs';
 
 const demoDirectory = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const sourceDirectory = join(demoDirectory, 'sources');
@@ -368,29 +367,6 @@ async function toDocx({ meta, blocks }) {
 }
 
 // ---------- PDF ----------
-
-function findChromium() {
-  for (const name of ['chromium', 'chromium-browser', 'google-chrome']) {
-    try {
-      return execFileSync('which', [name], { encoding: 'utf8' }).trim();
-    } catch {
-      // try the next name
-    }
-  }
-  throw new Error('Chromium is needed to print the PDFs: apt-get install chromium');
-}
-
-function printPdf(chromium, html, target) {
-  const directory = mkdtempSync(join(tmpdir(), 'plumbline-demo-'));
-  try {
-    const page = join(directory, 'page.html');
-    writeFileSync(page, html);
-    execFileSync(chromium, ['--headless', '--no-sandbox', '--disable-gpu', '--no-pdf-header-footer', `--user-data-dir=${join(directory, 'profile')}`, `--print-to-pdf=${target}`, `file://${page}`], { stdio: 'ignore', timeout: 120_000 });
-  } finally {
-    rmSync(directory, { recursive: true, force: true });
-  }
-  if (!existsSync(target)) throw new Error(`Chromium did not write ${target}`);
-}
 
 // ---------- main ----------
 

@@ -8,7 +8,7 @@
  * is used once. Among labels with the same key, one whose p and effect sizes
  * also agree is taken first.
  */
-import { readFileSync, readdirSync } from 'node:fs';
+import { readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -16,40 +16,12 @@ import { auditFile } from '../../src/batch/auditFile.js';
 import { resolveConfig } from '../../src/checks/config.js';
 import { findPdftotext, type PdfEngine } from '../../src/documents/pdf.js';
 import type { DocumentOutput, StatisticOutput } from '../../src/report/model.js';
+import { loadLabelledCorpus, type Excerpt, type LabelledResult } from './labels.js';
 
 const HERE = dirname(fileURLToPath(import.meta.url));
-const LABELLED = join(HERE, 'labelled');
 const FORMATS = join(HERE, 'formats');
 
-type Kind = 'F' | 't' | 'chi2' | 'r' | 'z';
-type Cmp = '=' | '<' | '>' | '<=' | '>=';
-
-interface LabelledResult {
-  line: number;
-  kind: Kind;
-  df: number[];
-  value: number;
-  valueComparator: Cmp;
-  p: { comparator: Cmp; value: number } | null;
-  notSignificant: boolean;
-  effects: { kind: string; value: number }[];
-  consistent: boolean;
-}
-
-interface Excerpt {
-  name: string;
-  lines: string[];
-  results: LabelledResult[];
-}
-
-const excerpts: Excerpt[] = readdirSync(LABELLED)
-  .filter((n) => /\.(txt|md)$/.test(n))
-  .sort()
-  .map((file) => {
-    const name = file.replace(/\.(txt|md)$/, '');
-    const labels = JSON.parse(readFileSync(join(LABELLED, `${name}.labels.json`), 'utf8')) as { results: LabelledResult[] };
-    return { name, lines: readFileSync(join(LABELLED, file), 'utf8').split('\n'), results: labels.results };
-  });
+const excerpts: Excerpt[] = loadLabelledCorpus();
 
 interface FormatCase {
   id: string;
@@ -132,8 +104,8 @@ function scoreDocument(where: string, excerpt: Excerpt, doc: DocumentOutput, sco
   let misses = 0;
   let falseAlarms = 0;
   for (const found of doc.statistics) {
-    const candidates = excerpt.results.map((l, i) => i).filter((i) => !used.has(i) && sameKey(found, excerpt.results[i]!));
-    const exact = candidates.find((i) => pCorrect(found, excerpt.results[i]!) && effectsCorrect(found, excerpt.results[i]!));
+    const candidates = excerpt.labels.results.map((l, i) => i).filter((i) => !used.has(i) && sameKey(found, excerpt.labels.results[i]!));
+    const exact = candidates.find((i) => pCorrect(found, excerpt.labels.results[i]!) && effectsCorrect(found, excerpt.labels.results[i]!));
     const idx = exact ?? candidates[0];
     if (idx === undefined) {
       falseAlarms++;
@@ -142,7 +114,7 @@ function scoreDocument(where: string, excerpt: Excerpt, doc: DocumentOutput, sco
     }
     used.add(idx);
     hits++;
-    const label = excerpt.results[idx]!;
+    const label = excerpt.labels.results[idx]!;
     if (exact === undefined) {
       score.fieldErrors.push(`${where}: ${describeFound(found)}, labelled ${describeLabel(label)} (labelled line ${label.line})`);
     }
@@ -151,16 +123,16 @@ function scoreDocument(where: string, excerpt: Excerpt, doc: DocumentOutput, sco
       score.wronglyFailed.push(`${where}: ${describeFound(found)}: ${fails.map((f) => f.message).join(' | ')}`);
     }
   }
-  excerpt.results.forEach((l, i) => {
+  excerpt.labels.results.forEach((l, i) => {
     if (used.has(i)) return;
     misses++;
     score.misses.push(`${where}: ${describeLabel(l)} | labelled line ${l.line}: ${clip(excerpt.lines[l.line - 1]?.trim() ?? '')}`);
   });
-  score.labelled += excerpt.results.length;
+  score.labelled += excerpt.labels.results.length;
   score.found += doc.statistics.length;
   score.hits += hits;
   score.perFile.push(
-    `${excerpt.name.padEnd(28)} labelled ${String(excerpt.results.length).padStart(3)}, found ${String(doc.statistics.length).padStart(3)},` +
+    `${excerpt.name.padEnd(28)} labelled ${String(excerpt.labels.results.length).padStart(3)}, found ${String(doc.statistics.length).padStart(3)},` +
       ` hits ${String(hits).padStart(3)}, misses ${misses}, false alarms ${falseAlarms}`,
   );
 }

@@ -2,56 +2,14 @@
  * Scores the scanner against the hand-labelled corpus in tests/corpus/labelled/
  * (see tests/corpus/README.md for how the excerpts and labels are made).
  */
-import { readFileSync, readdirSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { scanText } from '../../src/scan/scan.js';
 import { auditText } from '../../src/audit.js';
 import { resolveConfig } from '../../src/checks/config.js';
 import type { ReportedResult, ScanOutput } from '../../src/scan/types.js';
+import { loadLabelledCorpus, type Excerpt, type Kind, type LabelledResult } from './labels.js';
 
-const DIR = join(dirname(fileURLToPath(import.meta.url)), 'labelled');
-
-type Kind = 'F' | 't' | 'chi2' | 'r' | 'z';
-type Cmp = '=' | '<' | '>' | '<=' | '>=';
-
-interface LabelledResult {
-  line: number;
-  kind: Kind;
-  df: number[];
-  value: number;
-  valueComparator: Cmp;
-  p: { comparator: Cmp; value: number } | null;
-  notSignificant: boolean;
-  effects: { kind: string; value: number }[];
-  consistent: boolean;
-}
-
-interface Labels {
-  description: string;
-  results: LabelledResult[];
-  lookalikes: { line: number; text: string }[];
-}
-
-interface Excerpt {
-  file: string;
-  text: string;
-  lines: string[];
-  labels: Labels;
-}
-
-function loadCorpus(): Excerpt[] {
-  const names = readdirSync(DIR).filter((n) => /\.(txt|md)$/.test(n)).sort();
-  return names.map((file) => {
-    const text = readFileSync(join(DIR, file), 'utf8');
-    const labelFile = file.replace(/\.(txt|md)$/, '.labels.json');
-    const labels = JSON.parse(readFileSync(join(DIR, labelFile), 'utf8')) as Labels;
-    return { file, text, lines: text.split('\n'), labels };
-  });
-}
-
-const corpus = loadCorpus();
+const corpus = loadLabelledCorpus();
 
 function lineOf(text: string, offset: number): number {
   let line = 1;

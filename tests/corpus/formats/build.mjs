@@ -29,12 +29,11 @@
  * CI does not run this script; the generated files are committed. The test that reads them is
  * tests/corpus/labelled-formats.test.ts.
  */
-import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as docx from 'docx';
+import { findChromium, printPdf } from '../../../corpus-demo/tools/print-pdf.mjs';
 import MarkdownIt from 'markdown-it';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -426,34 +425,6 @@ async function toDocx(name, blocks) {
 }
 
 // ---------- PDF ----------
-
-function findChromium() {
-  for (const name of ['chromium', 'chromium-browser', 'google-chrome']) {
-    try {
-      return execFileSync('which', [name], { encoding: 'utf8' }).trim();
-    } catch {
-      // try the next name
-    }
-  }
-  throw new Error('Chromium is needed to print the PDFs: apt-get install chromium');
-}
-
-function printPdf(chromium, html, target) {
-  const directory = mkdtempSync(join(tmpdir(), 'plumbline-formats-'));
-  try {
-    const page = join(directory, 'page.html');
-    writeFileSync(page, html);
-    rmSync(target, { force: true });
-    execFileSync(
-      chromium,
-      ['--headless', '--no-sandbox', '--disable-gpu', '--no-pdf-header-footer', `--user-data-dir=${join(directory, 'profile')}`, `--print-to-pdf=${target}`, `file://${page}`],
-      { stdio: 'ignore', timeout: 120_000 },
-    );
-  } finally {
-    rmSync(directory, { recursive: true, force: true });
-  }
-  if (!existsSync(target)) throw new Error(`Chromium did not write ${target}`);
-}
 
 // ---------- main ----------
 
