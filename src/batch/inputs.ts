@@ -1,5 +1,6 @@
 import { readFile, stat } from 'node:fs/promises';
-import fg from 'fast-glob';
+import { basename } from 'node:path';
+import { fdir } from 'fdir';
 import { supportedExtensions } from '../documents/formats.js';
 
 export interface CollectedInputs {
@@ -22,17 +23,36 @@ async function readListFile(path: string): Promise<string[] | null> {
   }
 }
 
-/** Every supported document under a folder (hidden folders and node_modules skipped), sorted. */
+const supported = new Set(supportedExtensions);
+
+/** The extension of a file name in lower case (".PDF" counts as ".pdf"); "" when it has none. */
+function extensionOf(name: string): string {
+  const dot = name.lastIndexOf('.');
+  return dot > 0 ? name.slice(dot).toLowerCase() : '';
+}
+
+/** Hidden entries (a leading dot) and node_modules are never walked into. */
+function isSkippedName(name: string): boolean {
+  return name.startsWith('.') || name === 'node_modules';
+}
+
+/**
+ * Every supported document under a folder, sorted; hidden files and folders
+ * and node_modules are skipped, and symbolic links to folders are not
+ * followed (a link can loop back). A directory crawler (fdir) rather than a
+ * glob library: the walk is the whole of what is needed, and a re-audit from
+ * the cache spends a large part of its time here (DEVELOPERS.md, "Libraries").
+ */
 async function documentsUnder(folder: string): Promise<string[]> {
-  const extensions = supportedExtensions.map((e) => e.slice(1)).join(',');
-  const found = await fg(`**/*.{${extensions}}`, {
-    cwd: folder,
-    caseSensitiveMatch: false,
-    onlyFiles: true,
-    followSymbolicLinks: false,
-    dot: false,
-    ignore: ['**/node_modules/**'],
-  });
+  const found = await new fdir()
+    .withRelativePaths()
+    .exclude((name) => isSkippedName(name))
+    .filter((path) => {
+      const name = basename(path);
+      return !isSkippedName(name) && supported.has(extensionOf(name));
+    })
+    .crawl(folder)
+    .withPromise();
   const prefix = folder.endsWith('/') ? folder : `${folder}/`;
   return found.sort().map((relative) => prefix + relative);
 }

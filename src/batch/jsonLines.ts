@@ -1,5 +1,6 @@
 import { closeSync, openSync, readFileSync, writeSync } from 'node:fs';
 import type { DocumentOutput } from '../report/model.js';
+import { entryJson, type AuditEntry } from './entry.js';
 
 /**
  * Reads a JSON Lines audit file: one document per line. A last line cut off
@@ -37,18 +38,11 @@ export class JsonLinesWriter {
     this.descriptor = openSync(path, append ? 'a' : 'w');
   }
 
-  write(document: DocumentOutput): void {
-    writeSync(this.descriptor, `${JSON.stringify(document)}\n`);
+  write(entry: AuditEntry): void {
+    writeSync(this.descriptor, `${entryJson(entry)}\n`);
   }
 
   close(): void {
     closeSync(this.descriptor);
   }
-}
-
-/** Keeps the last record per path and sorts by path, so shards merged equal the unsharded run. */
-export function mergeDocuments(documents: readonly DocumentOutput[]): DocumentOutput[] {
-  const byPath = new Map<string, DocumentOutput>();
-  for (const document of documents) byPath.set(document.path, document);
-  return [...byPath.values()].sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0));
 }

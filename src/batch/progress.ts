@@ -1,13 +1,16 @@
-import cliProgress from 'cli-progress';
-
 export interface ProgressCounts {
   results: number;
   flags: number;
 }
 
-/** A progress bar on stderr for long audits; shown only when stderr is a terminal. */
-export function createProgress(total: number, enabled: boolean): { tick: (counts: ProgressCounts) => void; stop: () => void } {
+/**
+ * A progress bar on stderr for long audits; shown only when stderr is a
+ * terminal. The bar library loads only then, so scripted runs (and re-audits
+ * from the cache) do not pay for it.
+ */
+export async function createProgress(total: number, enabled: boolean): Promise<{ tick: (counts: ProgressCounts) => void; stop: () => void }> {
   if (!enabled || total < 2) return { tick: () => {}, stop: () => {} };
+  const { default: cliProgress } = await import('cli-progress');
   const bar = new cliProgress.SingleBar(
     {
       format: 'auditing [{bar}] {value}/{total} documents | {results} results | {flags} flags | {rate}/s | ETA {eta_formatted}',

@@ -1,11 +1,11 @@
 import { createHash } from 'node:crypto';
-import { createReadStream, existsSync } from 'node:fs';
-import { readFile, stat } from 'node:fs/promises';
+import { createReadStream, existsSync, statSync } from 'node:fs';
+import { readFile } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
-import type { DocumentOutput } from '../report/model.js';
 import { limitHint, resolveLimits } from '../limits.js';
 import { unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
+import { entryOf, type AuditEntry } from './entry.js';
 import type { WorkerTask } from './worker.js';
 
 export interface BatchOptions {
@@ -15,7 +15,7 @@ export interface BatchOptions {
   jobs: number;
   cache: { store: AuditCache; fingerprint: string } | null;
   /** Called once per document, in completion order, as soon as it is done. */
-  onDocument: (document: DocumentOutput, fromCache: boolean) => void;
+  onDocument: (entry: AuditEntry, fromCache: boolean) => void;
 }
 
 const CACHE_LOOKUPS_AT_ONCE = 32;
@@ -45,16 +45,17 @@ async function cachedOrKey(
   path: string,
   cache: NonNullable<BatchOptions['cache']>,
   index: ContentKeyIndex,
-): Promise<{ document: DocumentOutput | null; key: string | null }> {
+): Promise<{ entry: AuditEntry | null; key: string | null }> {
   let key: string;
   try {
-    const info = await stat(path);
+    // Synchronous stat: for an unchanged file this and the cache read below are all the work (see AuditCache.get).
+    const info = statSync(path);
     key = index.lookup(path, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, cache.fingerprint));
     index.record(path, info.size, info.mtimeMs, key);
   } catch {
-    return { document: null, key: null }; // the reader will report why
+    return { entry: null, key: null }; // the reader will report why
   }
-  return { document: await cache.store.get(key, path), key };
+  return { entry: cache.store.get(key, path), key };
 }
 
 /** Files up to this size are hashed from one read; larger ones as a stream. */
@@ -87,19 +88,19 @@ export async function runBatch(options: BatchOptions): Promise<void> {
     await index.load();
     const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache, index));
     await index.save();
-    lookups.forEach(({ document, key }, index) => {
+    lookups.forEach(({ entry, key }, index) => {
       const path = options.files[index]!;
-      if (document) options.onDocument(document, true);
+      if (entry) options.onDocument(entry, true);
       else pending.push({ path, key });
     });
   }
   if (pending.length === 0) return;
 
-  const finish = async ({ key }: { key: string | null }, document: DocumentOutput): Promise<void> => {
+  const finish = async ({ key }: { key: string | null }, entry: AuditEntry): Promise<void> => {
     // Only audits are kept: a document that could not be read (or ran out of time, which may be the
     // machine's load) is tried again next time.
-    if (key && options.cache && document.status === 'checked') await options.cache.store.set(key, document);
-    options.onDocument(document, false);
+    if (key && options.cache && !entry.tally.unreadable) await options.cache.store.set(key, entry);
+    options.onDocument(entry, false);
   };
 
   // Everything that checks documents is loaded only now, when some document is not in the cache.
@@ -108,12 +109,12 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   const module = workerModule();
   if (options.jobs <= 1 || pending.length === 1 || module === null) {
     const { auditFile } = await import('./auditFile.js');
-    for (const item of pending) await finish(item, await auditFile(item.path, config, options.task.readOptions));
+    for (const item of pending) await finish(item, entryOf(await auditFile(item.path, config, options.task.readOptions)));
     return;
   }
 
   const { Piscina } = await import('piscina');
-  const pool = new Piscina<WorkerTask, DocumentOutput>({
+  const pool = new Piscina<WorkerTask, AuditEntry>({
     filename: module,
     minThreads: Math.min(options.jobs, pending.length),
     maxThreads: Math.min(options.jobs, pending.length),
@@ -121,15 +122,15 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   });
   try {
     const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
-    const auditOnPool = async (path: string): Promise<DocumentOutput> => {
+    const auditOnPool = async (path: string): Promise<AuditEntry> => {
       try {
         // Past the time budget piscina stops the thread (and starts a new one); the document is listed with the reason.
         return await pool.run({ ...options.task, path }, { signal: AbortSignal.timeout(maxSecondsPerDocument * 1000) });
       } catch (error) {
         if ((error as Error).name === 'AbortError' || (error as Error).name === 'TimeoutError') {
-          return unreadableDocument(path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`);
+          return entryOf(unreadableDocument(path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
         }
-        return unreadableDocument(path, `internal error while auditing: ${(error as Error).message}`);
+        return entryOf(unreadableDocument(path, `internal error while auditing: ${(error as Error).message}`));
       }
     };
     await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(item.path))));

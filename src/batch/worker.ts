@@ -1,7 +1,7 @@
 import { resolveConfig, type ResolvedConfig, type UserConfig } from '../checks/config.js';
 import type { ReadOptions } from '../documents/read.js';
-import type { DocumentOutput } from '../report/model.js';
 import { auditFile } from './auditFile.js';
+import { entryOf, type AuditEntry } from './entry.js';
 
 /** What the main thread sends for each document (plain data: it crosses a thread boundary). */
 export interface WorkerTask {
@@ -24,7 +24,7 @@ function configFor(task: WorkerTask): ResolvedConfig {
   return cachedConfig;
 }
 
-/** The worker pool's entry point: one document in, its audit out. */
-export default async function auditInWorker(task: WorkerTask): Promise<DocumentOutput> {
-  return auditFile(task.path, configFor(task), task.readOptions);
+/** The worker pool's entry point: one document in, its audit out, already as JSON (serialised here, in parallel, not on the main thread). */
+export default async function auditInWorker(task: WorkerTask): Promise<AuditEntry> {
+  return entryOf(await auditFile(task.path, configFor(task), task.readOptions));
 }

@@ -2,7 +2,10 @@ import { writeFileSync } from 'node:fs';
 import { Option, type Command } from 'commander';
 import type { ResolvedConfig } from '../checks/config.js';
 import type { UserConfig } from '../checks/userConfig.js';
-import type { Report } from '../report/model.js';
+import { documentOf, entryJson, type AuditEntry } from '../batch/entry.js';
+import { buildReport, reportHead } from '../report/build.js';
+import { documentJson, formatJson, formatJsonParts } from '../report/json.js';
+import type { Report, Summary } from '../report/model.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
 export interface CliIo {
@@ -52,20 +55,38 @@ export async function configFrom(options: CommonOptions): Promise<ResolvedConfig
 }
 
 /** 2 when a document could not be read; else 1 when a finding reaches the --fail-on severity; else 0. */
-export function exitCodeFor(report: Report, failOn: FailOn): number {
-  if (report.summary.unreadable > 0) return EXIT_INPUT_ERROR;
+export function exitCodeFor(summary: Summary, failOn: FailOn): number {
+  if (summary.unreadable > 0) return EXIT_INPUT_ERROR;
   if (failOn === 'never') return EXIT_CLEAN;
-  const { fail, warn } = report.summary.findings;
+  const { fail, warn } = summary.findings;
   return fail > 0 || (failOn === 'warn' && warn > 0) ? EXIT_FLAGGED : EXIT_CLEAN;
 }
 
+/**
+ * A scan's audits as they came from the batch, with their summary. The JSON
+ * formats take each audit's JSON as it is (a cached audit is never parsed
+ * for them); the other formats parse the audits into a report.
+ */
+export interface ScannedAudits {
+  entries: readonly AuditEntry[];
+  summary: Summary;
+}
+
+export type ReportInput = Report | ScannedAudits;
+
 /** Formats a report; each formatter is loaded only when asked for. */
-export async function formatReport(report: Report, format: ReportFormat, color: boolean, showAll: boolean): Promise<string> {
+export async function formatReport(input: ReportInput, format: ReportFormat, color: boolean, showAll: boolean): Promise<string> {
+  if ('entries' in input) {
+    if (format === 'json') return formatJsonParts({ ...reportHead(), summary: input.summary }, input.entries.map(entryJson));
+    if (format === 'jsonl') return input.entries.map((entry) => `${entryJson(entry)}\n`).join('');
+    return formatReport(buildReport(input.entries.map(documentOf)), format, color, showAll);
+  }
+  const report = input;
   switch (format) {
     case 'json':
-      return (await import('../report/json.js')).formatJson(report);
+      return formatJson(report);
     case 'jsonl':
-      return report.documents.map((d) => `${JSON.stringify(d)}\n`).join('');
+      return report.documents.map((d) => `${documentJson(d)}\n`).join('');
     case 'text':
       return (await import('../report/console.js')).formatConsole(report, { color, showAll });
     case 'html':
@@ -78,12 +99,12 @@ export async function formatReport(report: Report, format: ReportFormat, color: 
 }
 
 /** Writes the report to --output or stdout. Colour only on a terminal, never into a file. */
-export async function writeReport(report: Report, options: CommonOptions, io: CliIo, showAll: boolean): Promise<void> {
+export async function writeReport(input: ReportInput, options: CommonOptions, io: CliIo, showAll: boolean): Promise<void> {
   if (options.output) {
-    writeFileSync(options.output, await formatReport(report, options.format, false, showAll));
+    writeFileSync(options.output, await formatReport(input, options.format, false, showAll));
     return;
   }
-  io.stdout(await formatReport(report, options.format, io.color, showAll));
+  io.stdout(await formatReport(input, options.format, io.color, showAll));
 }
 
 export function addCommonOptions(command: Command): Command {

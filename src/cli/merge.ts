@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import { buildReport } from '../report/build.js';
-import { mergeDocuments, readJsonLines } from '../batch/jsonLines.js';
+import { mergeByPath } from '../batch/entry.js';
+import { readJsonLines } from '../batch/jsonLines.js';
 import { addCommonOptions, exitCodeFor, UsageError, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
@@ -20,8 +21,8 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
           throw new UsageError(code === 'ENOENT' ? `${file}: file not found` : (error as Error).message);
         }
       }));
-      const report = buildReport(mergeDocuments(perFile.flat()));
+      const report = buildReport(mergeByPath(perFile.flat()));
       await writeReport(report, options, io, options.all ?? false);
-      setExitCode(exitCodeFor(report, options.failOn));
+      setExitCode(exitCodeFor(report.summary, options.failOn));
     });
 }

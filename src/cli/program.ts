@@ -31,7 +31,7 @@ function registerCheckCommand(program: Command, io: CliIo, setExitCode: (code: n
     const { auditText } = await import('../audit.js');
     const report = buildReport([auditText(input, config, text === '-' ? '<stdin>' : '<text>')]);
     await writeReport(report, options, io, true);
-    setExitCode(exitCodeFor(report, options.failOn));
+    setExitCode(exitCodeFor(report.summary, options.failOn));
   });
 }
 

@@ -1,16 +1,16 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
-import { buildReport, unreadableDocument } from '../report/build.js';
+import { summaryOfTallies, unreadableDocument } from '../report/build.js';
 import { AuditCache, settingsFingerprint } from '../batch/cache.js';
 import { collectInputs } from '../batch/inputs.js';
-import { JsonLinesWriter, mergeDocuments, readJsonLines } from '../batch/jsonLines.js';
+import { entryJson, entryOf, mergeByPath, type AuditEntry } from '../batch/entry.js';
+import { JsonLinesWriter, readJsonLines } from '../batch/jsonLines.js';
 import { createProgress } from '../batch/progress.js';
 import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
 import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
-import type { DocumentOutput } from '../report/model.js';
 import { buildFingerprint } from '../version.js';
 import { addCommonOptions, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
@@ -51,13 +51,6 @@ function limitsFrom(fromSettings: Partial<Limits> | undefined, options: ScanOpti
   }
   if (options.maxDocumentMb !== undefined) set('maxDocumentMb', options.maxDocumentMb, '--max-document-mb');
   return Object.keys(limits).length > 0 ? limits : undefined;
-}
-
-function countFlags(document: DocumentOutput): { results: number; flags: number } {
-  return {
-    results: document.statistics.length,
-    flags: document.findings.length + document.statistics.reduce((n, s) => n + s.findings.length, 0),
-  };
 }
 
 export function registerScanCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
@@ -107,21 +100,21 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       const done = new Set(previous.map((d) => d.path));
       const writer = options.jsonl ? new JsonLinesWriter(options.jsonl, Boolean(options.resume)) : null;
       const streamToStdout = options.format === 'jsonl' && !options.jsonl && !options.output;
-      const documents: DocumentOutput[] = [...previous];
-      const progress = createProgress(inputs.length - done.size, Boolean(io.interactive) && !options.quiet);
+      const entries: AuditEntry[] = previous.map(entryOf);
+      const progress = await createProgress(inputs.length - done.size, Boolean(io.interactive) && !options.quiet);
       const totals = { results: 0, flags: 0 };
-      const emit = (document: DocumentOutput): void => {
-        documents.push(document);
-        writer?.write(document);
-        if (streamToStdout) io.stdout(`${JSON.stringify(document)}\n`);
-        const counts = countFlags(document);
-        totals.results += counts.results;
-        totals.flags += counts.flags;
+      const emit = (entry: AuditEntry): void => {
+        entries.push(entry);
+        writer?.write(entry);
+        if (streamToStdout) io.stdout(`${entryJson(entry)}\n`);
+        const { statistics, findings } = entry.tally;
+        totals.results += statistics;
+        totals.flags += findings.fail + findings.warn + findings.note;
         progress.tick(totals);
       };
 
       try {
-        for (const input of inputs) if (input.reason !== null && !done.has(input.path)) emit(unreadableDocument(input.path, input.reason));
+        for (const input of inputs) if (input.reason !== null && !done.has(input.path)) emit(entryOf(unreadableDocument(input.path, input.reason)));
         const readOptions: ReadOptions = { pdfEngine: options.pdfEngine, ...(limits ? { limits } : {}) };
         await runBatch({
           files: inputs.filter((i) => i.reason === null && !done.has(i.path)).map((i) => i.path),
@@ -140,8 +133,9 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         writer?.close();
       }
 
-      const report = buildReport(mergeDocuments(documents));
-      if (!streamToStdout) await writeReport(report, options, io, options.all ?? false);
-      setExitCode(exitCodeFor(report, options.failOn));
+      const merged = mergeByPath(entries);
+      const summary = summaryOfTallies(merged.map((entry) => entry.tally));
+      if (!streamToStdout) await writeReport({ entries: merged, summary }, options, io, options.all ?? false);
+      setExitCode(exitCodeFor(summary, options.failOn));
     });
 }

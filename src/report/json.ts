@@ -1,6 +1,39 @@
-import type { Report } from './model.js';
+import type { DocumentOutput, Report } from './model.js';
 
-/** The JSON report (shape: src/report/model.ts, published as schema/report.schema.json). */
+/**
+ * The JSON report (shape: src/report/model.ts, published as
+ * schema/report.schema.json). The header and summary are indented; each
+ * document is one line of compact JSON, so a report of thousands of
+ * documents stays small, reads line by line with grep, and a re-audit can
+ * put an audit kept in the cache into the report as it was stored, without
+ * parsing it again (src/batch/entry.ts).
+ */
 export function formatJson(report: Report): string {
-  return `${JSON.stringify(report, null, 2)}\n`;
+  return formatJsonParts(report, report.documents.map(documentJson));
+}
+
+/** The JSON report from its parts, the documents given as their compact JSON (documentJson). */
+export function formatJsonParts(head: Pick<Report, 'tool' | 'caution' | 'summary'>, documentTexts: readonly string[]): string {
+  const nested = (value: unknown): string => JSON.stringify(value, null, 2).replace(/\n/g, '\n  ');
+  const documents = documentTexts.length === 0 ? '[]' : `[\n    ${documentTexts.join(',\n    ')}\n  ]`;
+  return (
+    `{\n  "tool": ${nested(head.tool)},\n  "caution": ${JSON.stringify(head.caution)},\n` +
+    `  "documents": ${documents},\n  "summary": ${nested(head.summary)}\n}\n`
+  );
+}
+
+/** A document's JSON without its path: what the cache keeps, since the same content may be audited under another name. */
+export function documentBodyJson(document: DocumentOutput): string {
+  return JSON.stringify({ ...document, path: undefined });
+}
+
+/** A document's compact JSON from its path and body: the path always first, whichever way the document was made. */
+export function documentJsonFromBody(path: string, body: string): string {
+  const rest = body.slice(1); // after the opening brace
+  return `{"path":${JSON.stringify(path)}${rest === '}' ? '' : ','}${rest}`;
+}
+
+/** A document as one line of compact JSON (the JSON report's and the JSON Lines' form). */
+export function documentJson(document: DocumentOutput): string {
+  return documentJsonFromBody(document.path, documentBodyJson(document));
 }

@@ -1,5 +1,5 @@
 import { spawn, spawnSync } from 'node:child_process';
-import { appendFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { appendFileSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -37,6 +37,13 @@ function documentsOf(report: Report): unknown {
   return { documents: report.documents, summary: report.summary };
 }
 
+/** The audit files in a cache folder (two-character subfolders), not its indexes. */
+function cacheFiles(cache: string): string[] {
+  return readdirSync(cache)
+    .filter((name) => name.length === 2)
+    .flatMap((sub) => readdirSync(join(cache, sub)).map((name) => join(cache, sub, name)));
+}
+
 describe('scan at scale', () => {
   expect(existsSync(bin), `${bin} missing: run npm run build`).toBe(true);
 
@@ -53,8 +60,19 @@ describe('scan at scale', () => {
     const dir = makeCorpus(12);
     const cold = scan(['papers', '--cache-dir', 'cache', '--format', 'json'], dir);
     const warm = scan(['papers', '--cache-dir', 'cache', '--format', 'json'], dir);
-    expect(documentsOf(reportOf(warm.stdout))).toEqual(documentsOf(reportOf(cold.stdout)));
+    // Byte for byte: a cached audit goes into the JSON report as it was stored.
+    expect(warm.stdout).toBe(cold.stdout);
+    expect(documentsOf(reportOf(warm.stdout)).summary).toMatchObject({ documents: 12, findings: { fail: 3 } });
     expect(existsSync(join(dir, 'cache'))).toBe(true);
+    // The other formats parse the cached audits: the same report as a run without the cache
+    // (JSON Lines on standard output come in the order documents finish, so their lines are compared as a set).
+    const linesOf = (text: string, format: string): string[] => (format === 'jsonl' ? text.split('\n').sort() : [text]);
+    for (const format of ['text', 'csv', 'md', 'html', 'jsonl']) {
+      const cached = scan(['papers', '--cache-dir', 'cache', '--format', format], dir).stdout;
+      const uncached = scan(['papers', '--no-cache', '--format', format], dir).stdout;
+      expect(cached.length, format).toBeGreaterThan(1000);
+      expect(linesOf(cached, format), format).toEqual(linesOf(uncached, format));
+    }
     // Change one file: its audit must change, not come from the cache.
     writeFileSync(join(dir, 'papers', 'paper-001.txt'.replace('paper-001', 'nested/paper-001')), 'F(1, 44) = 4.21, p = .31.\n');
     const changed = reportOf(scan(['papers', '--cache-dir', 'cache', '--format', 'json'], dir).stdout);
@@ -64,6 +82,26 @@ describe('scan at scale', () => {
     writeFileSync(join(dir, 'quiet.json'), JSON.stringify({ rules: { 'p-value-mismatch': 'off' } }));
     const otherSettings = reportOf(scan(['papers', '--cache-dir', 'cache', '--config', 'quiet.json', '--format', 'json'], dir).stdout);
     expect(otherSettings.summary.findings.fail).toBe(0);
+  });
+
+  it('audits again, and never copies into a report, a cache entry that is cut short or damaged', () => {
+    const dir = makeCorpus(6);
+    const cold = scan(['papers', '--cache-dir', 'cache', '--format', 'json'], dir);
+    const entries = cacheFiles(join(dir, 'cache'));
+    expect(entries).toHaveLength(6);
+    const damage = [
+      (text: string) => text.slice(0, text.length - 40), // cut short
+      (text: string) => `${text}]`, // something appended
+      (text: string) => text.replace('{', '['), // header garbled
+      () => '', // emptied
+      (text: string) => text.slice(0, text.indexOf('\n')), // body lost
+      (text: string) => text.replace('\n', ' '), // no header line
+    ];
+    entries.forEach((file, index) => writeFileSync(file, damage[index]!(readFileSync(file, 'utf8'))));
+    const again = scan(['papers', '--cache-dir', 'cache', '--format', 'json'], dir);
+    expect(again.stdout).toBe(cold.stdout);
+    // And the damaged entries were replaced by good ones.
+    expect(scan(['papers', '--cache-dir', 'cache', '--format', 'json'], dir).stdout).toBe(cold.stdout);
   });
 
   it('shards merged equal the unsharded run', () => {
@@ -166,5 +204,27 @@ describe('content key index', () => {
     const otherSettings = new ContentKeyIndex(dir, 'settings-b');
     await otherSettings.load();
     expect(otherSettings.lookup('a.txt', 10, 1000)).toBeNull();
+  });
+});
+
+describe('folder walk', () => {
+  it('finds every supported document, in any letter case, and skips hidden folders, hidden files and node_modules', async () => {
+    const { collectInputs } = await import('../../src/batch/inputs.js');
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-walk-'));
+    const files = [
+      'a.txt', 'B.PDF', 'c.Docx', 'deep/er/d.md', 'deep/e.html', 'deep/f.htm', 'g.xml', 'h.tex', // found
+      'notes.csv', 'image.png', 'README', // unsupported
+      '.hidden.txt', '.git/i.txt', 'node_modules/pkg/j.md', 'deep/node_modules/k.txt', 'deep/.cache/l.pdf', // skipped
+    ];
+    for (const file of files) {
+      mkdirSync(join(dir, file, '..'), { recursive: true });
+      writeFileSync(join(dir, file), 'text');
+    }
+    const { files: found, missing } = await collectInputs([dir]);
+    expect(missing).toEqual([]);
+    expect(found).toEqual(['B.PDF', 'a.txt', 'c.Docx', 'deep/e.html', 'deep/er/d.md', 'deep/f.htm', 'g.xml', 'h.tex'].map((f) => `${dir}/${f}`));
+    // A file named on its own is taken as it is, hidden or not; a folder given with a trailing slash gives the same paths.
+    expect((await collectInputs([join(dir, '.hidden.txt')])).files).toEqual([join(dir, '.hidden.txt')]);
+    expect((await collectInputs([`${dir}/`])).files).toEqual(found);
   });
 });

@@ -1,0 +1,38 @@
+import { tallyOf, type DocumentTally } from '../report/build.js';
+import { documentBodyJson, documentJsonFromBody } from '../report/json.js';
+import type { DocumentOutput } from '../report/model.js';
+
+/**
+ * A document's audit as it travels through a batch: its JSON and the counts
+ * the summary needs. The JSON is made once, in the worker that audited the
+ * document, and is what the cache stores, the JSON Lines file gets and the
+ * JSON report holds; a cached audit is parsed only when a report format
+ * needs its fields (text, HTML, CSV, Markdown). On a re-audit of unchanged
+ * files, parsing and re-serialising every audit was most of the time left.
+ */
+export interface AuditEntry {
+  path: string;
+  /** The document's compact JSON without its path (json.ts, documentBodyJson). */
+  body: string;
+  tally: DocumentTally;
+}
+
+export function entryOf(document: DocumentOutput): AuditEntry {
+  return { path: document.path, body: documentBodyJson(document), tally: tallyOf(document) };
+}
+
+/** The entry as one line of compact JSON, path first. */
+export function entryJson(entry: AuditEntry): string {
+  return documentJsonFromBody(entry.path, entry.body);
+}
+
+export function documentOf(entry: AuditEntry): DocumentOutput {
+  return JSON.parse(entryJson(entry)) as DocumentOutput;
+}
+
+/** Keeps the last record per path and sorts by path, so shards merged equal the unsharded run. */
+export function mergeByPath<T extends { path: string }>(records: readonly T[]): T[] {
+  const byPath = new Map<string, T>();
+  for (const record of records) byPath.set(record.path, record);
+  return [...byPath.values()].sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0));
+}
