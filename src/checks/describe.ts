@@ -32,3 +32,17 @@ const effectSymbol: Record<ReportedEffect['kind'], string> = {
 export function describeEffect(effect: ReportedEffect): string {
   return `${effectSymbol[effect.kind]} ${effect.comparator} ${effect.value.text}`;
 }
+
+/**
+ * A sentence of the document quoted in a message: whitespace (line breaks
+ * from the page) collapsed to single spaces, and cut at a word boundary
+ * with an ellipsis when longer than maxLength, so a quote never ends
+ * mid-word.
+ */
+export function quoteFromDocument(text: string, maxLength: number): string {
+  const flat = text.replace(/\s+/g, ' ').trim();
+  if (flat.length <= maxLength) return flat;
+  const cut = flat.slice(0, maxLength);
+  const lastSpace = cut.lastIndexOf(' ');
+  return `${(lastSpace > maxLength / 2 ? cut.slice(0, lastSpace) : cut).replace(/[\s,;:]+$/, '')}…`;
+}

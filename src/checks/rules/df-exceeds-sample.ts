@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
-import { describeStatistic } from '../describe.js';
+import { describeStatistic, quoteFromDocument } from '../describe.js';
 
 const optionsSchema = z
   .object({
@@ -61,7 +61,7 @@ export const dfExceedsSample: CheckModule<z.infer<typeof optionsSchema>> = {
           statistic: describeStatistic(result),
           df: errorDf.text,
           sampleSize: largestStatement.value,
-          statement: largestStatement.text.trim().slice(0, 80),
+          statement: quoteFromDocument(largestStatement.text, 80),
           largest,
         },
       },

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
-import { describeP, describeStatistic } from '../describe.js';
+import { describeP, describeStatistic, quoteFromDocument } from '../describe.js';
 import { formatP, formatRange } from '../format.js';
 import { fitsOnlyWhenHalved } from '../pExplanations.js';
 import { crossesAlpha, printedSignificance, recomputedSignificance } from '../pAgreement.js';
@@ -51,7 +51,7 @@ export const halvedP: CheckModule<Options> = {
       return [
         {
           messageId: 'declared',
-          data: { ...data, statement: statement.text.trim().slice(0, 120) },
+          data: { ...data, statement: quoteFromDocument(statement.text, 120) },
           severity: context.options.declaredOneTailedSeverity,
           crossesAlpha: false,
         },

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
-import { describeP, describeStatistic } from '../describe.js';
+import { describeP, describeStatistic, quoteFromDocument } from '../describe.js';
 import { formatP } from '../format.js';
 import { fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
 import { crossesAlpha, printedSignificance, recomputedSignificance } from '../pAgreement.js';
@@ -29,7 +29,7 @@ export const sphericityCorrectedP: CheckModule<z.infer<typeof optionsSchema>> = 
           printedP: describeP(result),
           statistic: describeStatistic(result),
           recomputedP: formatP(recomputation.p ?? recomputation.pRange!.low),
-          statement: statement.text.trim().slice(0, 100),
+          statement: quoteFromDocument(statement.text, 100),
         },
       },
     ];
