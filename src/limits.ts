@@ -31,8 +31,8 @@ export interface Limits {
   /**
    * Longest time one document may take, in seconds: a document audited on a
    * worker thread is stopped (the thread is replaced) and pdftotext is killed
-   * when it runs longer. A document audited on the main thread (--jobs 1)
-   * with pdf-parse cannot be interrupted.
+   * when it runs longer. PDFs read with pdf-parse and DOCX files are always
+   * audited on a worker thread, even with --jobs 1, so they can be stopped.
    */
   maxSecondsPerDocument: number;
 }

@@ -1,11 +1,13 @@
 import { createHash } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
+import { extname } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { limitHint, resolveLimits } from '../limits.js';
 import { unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
 import { entryOf, type AuditEntry } from './entry.js';
+import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 
 export interface BatchOptions {
@@ -32,6 +34,19 @@ async function mapConcurrently<T, R>(items: readonly T[], limit: number, map: (i
   };
   await Promise.all(Array.from({ length: Math.min(limit, items.length) }, lane));
   return results;
+}
+
+/**
+ * Whether a file is read by a third-party parser that runs as JavaScript in
+ * the auditing thread (pdf-parse's pdf.js, mammoth for DOCX): the time
+ * budget can stop such a read only by ending its thread, so these documents
+ * go to a worker thread even with --jobs 1. pdftotext is a child process,
+ * killed on time wherever it runs; the other readers are plumbline's own and
+ * bounded by the limits.
+ */
+function needsStoppableThread(path: string, pdfEngine: PdfEngine): boolean {
+  const extension = extname(path).toLowerCase();
+  return extension === '.docx' || (extension === '.pdf' && pdfEngine === 'pdf-parse');
 }
 
 /** The compiled worker module, or null when running from TypeScript sources (tests), where threads cannot load it. */
@@ -107,7 +122,9 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   const { resolveConfig } = await import('../checks/config.js');
   const config = resolveConfig(options.task.userConfig, options.task.configSource); // bad settings fail here, before any thread starts
   const module = workerModule();
-  if (options.jobs <= 1 || pending.length === 1 || module === null) {
+  const pdfEngine = (await import('../documents/pdf.js')).resolvePdfEngine(options.task.readOptions.pdfEngine);
+  const onThisThread = module === null || ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)));
+  if (onThisThread) {
     const { auditFile } = await import('./auditFile.js');
     for (const item of pending) await finish(item, entryOf(await auditFile(item.path, config, options.task.readOptions)));
     return;

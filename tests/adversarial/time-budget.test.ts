@@ -8,7 +8,46 @@ import { reportSchema } from '../../src/report/model.js';
 // Runs the built command (`npm test` builds first) so documents go through the worker pool.
 const bin = join(process.cwd(), 'dist', 'src', 'cli', 'main.js');
 
+/**
+ * A valid one-page PDF whose content stream draws 400,000 single letters:
+ * pdf-parse takes seconds over it (about 2.7 s here), though it is not broken.
+ */
+function slowPdf(path: string): void {
+  const operators = Array.from({ length: 400_000 }, (_, i) => `BT /F1 9 Tf ${40 + (i % 500)} ${800 - (i % 700)} Td (F) Tj ET`).join('\n');
+  const objects = [
+    '<< /Type /Catalog /Pages 2 0 R >>',
+    '<< /Type /Pages /Kids [3 0 R] /Count 1 >>',
+    '<< /Type /Page /Parent 2 0 R /MediaBox [0 0 595 842] /Contents 4 0 R /Resources << /Font << /F1 5 0 R >> >> >>',
+    `<< /Length ${operators.length} >>\nstream\n${operators}\nendstream`,
+    '<< /Type /Font /Subtype /Type1 /BaseFont /Helvetica >>',
+  ];
+  let pdf = '%PDF-1.4\n';
+  const offsets: number[] = [];
+  objects.forEach((object, index) => {
+    offsets.push(pdf.length);
+    pdf += `${index + 1} 0 obj\n${object}\nendobj\n`;
+  });
+  const xref = pdf.length;
+  pdf += `xref\n0 ${objects.length + 1}\n0000000000 65535 f \n${offsets.map((o) => `${String(o).padStart(10, '0')} 00000 n \n`).join('')}`;
+  pdf += `trailer\n<< /Size ${objects.length + 1} /Root 1 0 R >>\nstartxref\n${xref}\n%%EOF\n`;
+  writeFileSync(path, pdf);
+}
+
 describe('time budget per document', () => {
+  it('stops pdf-parse past the budget even with --jobs 1 (the PDF is read on a thread of its own)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
+    slowPdf(join(dir, 'slow.pdf'));
+    writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
+    const run = (limit: string[]) =>
+      spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--pdf-engine', 'pdf-parse', ...limit, '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
+    const stopped = reportSchema.parse(JSON.parse(run(['--limit', 'maxSecondsPerDocument=1']).stdout));
+    expect(stopped.documents.find((d) => d.path.endsWith('slow.pdf'))?.error).toMatch(/took longer than 1 s .*maxSecondsPerDocument/);
+    expect(stopped.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
+    // Within the default budget the same file is read: it was the budget that stopped it.
+    const read = reportSchema.parse(JSON.parse(run([]).stdout));
+    expect(read.documents.find((d) => d.path.endsWith('slow.pdf'))?.status).toBe('checked');
+  }, 30_000);
+
   it('stops pdftotext when it runs past maxSecondsPerDocument, and the audit goes on', () => {
     const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
     // A stand-in pdftotext that never finishes, first on the PATH: the budget must stop it.
