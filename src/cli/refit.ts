@@ -19,6 +19,7 @@ export function registerRefitCommand(program: Command, io: CliIo, setExitCode: (
     .option('--reported <file>', 'what the manuscript reports: a table file (CSV, Markdown) or the manuscript (PDF, DOCX, HTML, XML, TXT, MD)')
     .option('--map <pair>', 'name a reported row for a model term: "Teaching method=method" (repeatable)', collect, [])
     .option('--spec <file>', 'analysis description (JSON); command-line options override it')
+    .option('--max-columns <n>', 'most design columns fitted (default 1000): stops a factor with thousands of levels, usually an identifier, from running for hours')
     .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'md', 'html', 'docx']).default('text'))
     .option('-o, --output <file>', 'write the output to a file (required for docx)')
     .action(async (dataFile: string, options: RefitOptions) => {

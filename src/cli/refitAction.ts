@@ -32,6 +32,7 @@ export interface RefitOptions {
   map: string[];
   reported?: string;
   spec?: string;
+  maxColumns?: string;
   format: Format;
   output?: string;
 }
@@ -73,7 +74,7 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 }
 
 /** The analysis description: the --spec file, overridden by the command line. */
-export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing'>): AnalysisSpecInput {
+export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns'>): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   if (options.model !== undefined) {
     raw.model = options.model;
@@ -84,6 +85,11 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   }
   if (options.type !== undefined) raw.type = Number(options.type);
   if (options.coding !== undefined) raw.coding = options.coding;
+  if (options.maxColumns !== undefined) {
+    const maxColumns = Number(options.maxColumns);
+    if (!Number.isInteger(maxColumns) || maxColumns < 2) throw new UsageError(`--max-columns must be a whole number of at least 2, got "${options.maxColumns}"`);
+    raw.maxColumns = maxColumns;
+  }
   const factors = { ...((raw.factors as Record<string, unknown> | undefined) ?? {}) };
   let covariates = [...((raw.covariates as string[] | undefined) ?? [])];
   for (const f of options.factor) {

@@ -18,6 +18,7 @@ export type RefitErrorCode =
   | 'EMPTY_CELL'
   | 'ALIASED_TERM'
   | 'RESIDUAL_DF'
+  | 'TOO_MANY_COLUMNS'
   | 'INVALID_CONTRAST'
   | 'UNSUPPORTED';
 

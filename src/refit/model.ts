@@ -134,6 +134,7 @@ export class FittedModel {
     this.checkData(cells);
     this.buildColumns();
     const p = this.columns.length;
+    if (p > spec.maxColumns) this.tooManyColumns(p);
     const q = acc.q;
 
     // Stack R_g A_g for every cell, then reduce with Householder QR.
@@ -229,6 +230,21 @@ export class FittedModel {
         if (k === idx.length) break;
       }
     }
+  }
+
+  /** Refuses a design too wide to fit in reasonable time, naming the factor with the most levels when it is the cause. */
+  private tooManyColumns(p: number): never {
+    const widest = [...this.factorVars].sort((a, b) => b.levels.length - a.levels.length)[0];
+    // A factor with hundreds of levels is the usual cause (an identifier read as a factor); otherwise it is the interactions.
+    const identifierLike = widest !== undefined && widest.levels.length > 100;
+    const cause = identifierLike
+      ? ` Factor '${widest.name}' has ${widest.levels.length} levels: a factor with that many is usually an identifier or a numeric measure read as a factor. Check the column (--covariate ${widest.name} if it is a measure), or`
+      : ' The interactions of the factors make the design this wide: drop some interaction terms, or';
+    throw new RefitError(
+      'TOO_MANY_COLUMNS',
+      `The model has ${p} design columns, more than maxColumns = ${this.spec.maxColumns}.${cause} raise the limit with --max-columns ${p} (the time to fit grows with the cube of the number of columns).`,
+      { field: 'maxColumns', ...(identifierLike ? { column: widest.name } : {}) },
+    );
   }
 
   private buildColumns(): void {

@@ -125,6 +125,13 @@ describe('plumbline refit input errors (exit 2, with file, row and column)', () 
     expect(missing.code).toBe(2);
     expect(missing.err).toContain('no such data file');
     expect(existsSync(join(tmp, 'nope.csv'))).toBe(false);
+    expect((await run(['refit', DATA, '--spec', SPEC, '--max-columns', 'many'])).err).toContain('--max-columns must be a whole number of at least 2, got "many"');
+  });
+
+  it('--max-columns below the model width stops with exit code 2 and says how to go on', async () => {
+    const { code, err } = await run(['refit', DATA, '--spec', SPEC, '--max-columns', '5']);
+    expect(code).toBe(2);
+    expect(err).toMatch(/The model has \d+ design columns, more than maxColumns = 5\. The interactions of the factors make the design this wide: drop some interaction terms, or raise the limit with --max-columns \d+/);
   });
 });
 

@@ -81,3 +81,23 @@ describe('structure', () => {
     expect(error.message).toMatch(/^wide\.csv: the model formula uses "c9998", but there is no such column/);
   });
 });
+
+describe('a model too wide to fit', () => {
+  // 3,000 participants measured twice, with the participant code in the model as a factor by mistake.
+  const wide = data('identifier.csv', ['participant,score', ...Array.from({ length: 6000 }, (_, i) => `p${i % 3000},${(i * 7919) % 101}`)].join('\n'));
+
+  it('is refused quickly, naming the factor with thousands of levels and how to go on', async () => {
+    const error = await refused(wide, 'score ~ participant');
+    expect(error.code).toBe('TOO_MANY_COLUMNS');
+    expect(error.details).toMatchObject({ column: 'participant', field: 'maxColumns' });
+    expect(error.message).toContain("The model has 3000 design columns, more than maxColumns = 1000. Factor 'participant' has 3000 levels");
+    expect(error.message).toContain('--max-columns 3000');
+  });
+
+  it('is fitted when the limit is raised above its width, and refused just below it', async () => {
+    const narrow = data('thirty.csv', ['participant,score', ...Array.from({ length: 120 }, (_, i) => `p${i % 30},${(i * 7919) % 101}`)].join('\n'));
+    // 30 levels: an intercept and 29 columns.
+    expect((await fitModel(narrow, { model: 'score ~ participant', maxColumns: 30 })).columns).toHaveLength(30);
+    await expect(fitModel(narrow, { model: 'score ~ participant', maxColumns: 29 })).rejects.toMatchObject({ code: 'TOO_MANY_COLUMNS' });
+  });
+});
