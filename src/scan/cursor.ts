@@ -102,12 +102,26 @@ export function plainNumber(written: string, decimals: number): ReportedNumber {
 }
 
 /**
- * Reads a plain decimal number: optional sign, digits, optional ".digits",
- * or a leading-dot decimal (".021"). A trailing "." that is not followed by a
- * digit is left alone: it ends the sentence, not the number. The number's
- * text drops a space PDF extraction may put after the sign ("- 2.1" -> "-2.1").
+ * How a comma right before a digit is read in a number:
+ * - 'no': it ends the number (df lists "F(1,44)", interval bounds "[.01,.25]");
+ * - 'yes': it is a decimal comma ("p = 0,046", "p = ,046"), for values that
+ *   cannot run into thousands;
+ * - 'unlessThousands': a decimal comma ("F = 4,21", "t = ,98"), except that
+ *   exactly three digits after a non-zero whole part are a thousands group
+ *   ("F = 1,234", "chi2 = 12,345.6"), as in English-language manuscripts.
  */
-export function readNumber(text: string, position: number, allowSign = true): ReadNumber | null {
+export type DecimalComma = 'no' | 'yes' | 'unlessThousands';
+
+/**
+ * Reads a plain decimal number: optional sign, digits, optional ".digits",
+ * or a leading-dot decimal (".021"); with `decimalComma`, a comma may stand
+ * for the point (see DecimalComma). A trailing "." that is not followed by a
+ * digit is left alone: it ends the sentence, not the number. The number's
+ * text is normalised: no space PDF extraction may put after the sign
+ * ("- 2.1" -> "-2.1"), a point for a decimal comma ("0,046" -> "0.046") and
+ * no thousands separators ("1,234" -> "1234").
+ */
+export function readNumber(text: string, position: number, allowSign = true, decimalComma: DecimalComma = 'no'): ReadNumber | null {
   let at = position;
   let sign = '';
   const first = text.charCodeAt(at);
@@ -115,28 +129,47 @@ export function readNumber(text: string, position: number, allowSign = true): Re
     // "-" or "+"
     sign = first === 45 ? '-' : '+';
     at++;
-    if (text.charCodeAt(at) === 32 && isNumberStart(text, at + 1)) at++;
+    if (text.charCodeAt(at) === 32 && isNumberStart(text, at + 1, decimalComma)) at++;
   }
   const digitsStart = at;
   if (isAsciiDigit(text.charCodeAt(at))) {
     at = readDigits(text, at);
     if (at === -1) return null;
   }
+  let whole = text.slice(digitsStart, at);
+  const separator = text.charCodeAt(at);
+  if (separator === 44 && decimalComma !== 'no' && isAsciiDigit(text.charCodeAt(at + 1))) {
+    const groupEnd = readDigits(text, at + 1);
+    if (groupEnd === -1) return null;
+    const isThousands = decimalComma === 'unlessThousands' && groupEnd - at - 1 === 3 && whole.length >= 1 && whole.length <= 3 && !/^0+$/.test(whole);
+    if (!isThousands) {
+      const fraction = text.slice(at + 1, groupEnd);
+      return { number: plainNumber(`${sign}${whole}.${fraction}`, fraction.length), start: position, end: groupEnd };
+    }
+    // Thousands groups ("12,345,678"), then an optional ".digits".
+    while (text.charCodeAt(at) === 44 && isAsciiDigit(text.charCodeAt(at + 1)) && readDigits(text, at + 1) === at + 4 && whole.length < MAX_DIGITS) {
+      whole += text.slice(at + 1, at + 4);
+      at += 4;
+    }
+  }
   let decimals = 0;
+  let fraction = '';
   if (text.charCodeAt(at) === 46 && isAsciiDigit(text.charCodeAt(at + 1))) {
     const fractionEnd = readDigits(text, at + 1);
     if (fractionEnd === -1) return null;
-    decimals = fractionEnd - at - 1;
+    fraction = text.slice(at + 1, fractionEnd);
+    decimals = fraction.length;
     at = fractionEnd;
   }
   if (at === digitsStart) return null;
-  const digits = text.slice(digitsStart, at);
+  const digits = decimals > 0 ? `${whole}.${fraction}` : whole;
   return { number: plainNumber(sign === '' ? digits : sign + digits, decimals), start: position, end: at };
 }
 
-function isNumberStart(text: string, position: number): boolean {
+function isNumberStart(text: string, position: number, decimalComma: DecimalComma = 'no'): boolean {
   const code = text.charCodeAt(position);
-  return isAsciiDigit(code) || (code === 46 && isAsciiDigit(text.charCodeAt(position + 1)));
+  const separatorStarts = code === 46 || (code === 44 && decimalComma !== 'no');
+  return isAsciiDigit(code) || (separatorStarts && isAsciiDigit(text.charCodeAt(position + 1)));
 }
 
 /**
@@ -144,8 +177,8 @@ function isNumberStart(text: string, position: number): boolean {
  * "1.2e-5", "1.2E-05", "1.2 x 10^-5", "1.2 x 10-5" (caret lost), "1.2*10^-5",
  * and a bare power "10^-4" / "10-4" (mantissa 1, no decimals).
  */
-export function readScientificNumber(text: string, position: number): ReadNumber | null {
-  const mantissa = readNumber(text, position);
+export function readScientificNumber(text: string, position: number, decimalComma: DecimalComma = 'no'): ReadNumber | null {
+  const mantissa = readNumber(text, position, true, decimalComma);
   if (mantissa === null) return null;
   const mantissaText = mantissa.number.text;
   if (mantissaText === '10') {

@@ -12,6 +12,7 @@ import {
   readNumber,
   skipSpaces,
   startsWord,
+  type ReadNumber,
 } from './cursor.js';
 import type { Comparator, EffectKind, ReportedInterval, ReportedNumber } from './types.js';
 
@@ -105,7 +106,7 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
   const comparator = readComparator(text, comparatorAt);
   if (comparator === null) return null;
   const valueAt = skipSpaces(text, comparatorAt + comparator.length);
-  const valueRead = readNumber(text, valueAt);
+  const valueRead = readNumber(text, valueAt, true, 'unlessThousands');
   if (valueRead === null || !endsWord(text, valueRead.end)) return null;
   const value = valueRead.number;
   const end = valueRead.end;
@@ -158,14 +159,10 @@ export function readInterval(text: string, position: number, allowBareBrackets: 
   if (!bracketed && !labelled) return null;
   if (bracketed) at = skipSpaces(text, at + 1);
 
-  const lowRead = readNumber(text, at);
-  if (lowRead === null) return null;
-  at = skipSpaces(text, lowRead.end);
-  const separatorEnd = readRangeSeparator(text, at);
-  if (separatorEnd === -1) return null;
-  at = skipSpaces(text, separatorEnd);
-  const highRead = readNumber(text, at);
-  if (highRead === null) return null;
+  // Decimal commas ("[0,01; 0,23]") only when the bounds are not separated by a comma; "[0,1]" is 0 to 1.
+  const bounds = readBounds(text, at, 'yes') ?? readBounds(text, at, 'no');
+  if (bounds === null) return null;
+  const { low: lowRead, high: highRead } = bounds;
   at = highRead.end;
   if (bracketed) {
     at = skipSpaces(text, at);
@@ -176,6 +173,18 @@ export function readInterval(text: string, position: number, allowBareBrackets: 
     return null;
   }
   return { interval: { level, low: lowRead.number, high: highRead.number }, start: position, end: at };
+}
+
+/** The two ends of an interval and what separates them; with decimal commas, the separator must not be a comma. */
+function readBounds(text: string, position: number, decimalComma: 'yes' | 'no'): { low: ReadNumber; high: ReadNumber } | null {
+  const low = readNumber(text, position, true, decimalComma);
+  if (low === null) return null;
+  const separatorAt = skipSpaces(text, low.end);
+  if (decimalComma === 'yes' && text.charCodeAt(separatorAt) === 44) return null;
+  const separatorEnd = readRangeSeparator(text, separatorAt);
+  if (separatorEnd === -1) return null;
+  const high = readNumber(text, skipSpaces(text, separatorEnd), true, decimalComma);
+  return high === null ? null : { low, high };
 }
 
 /** End of "CI" or "confidence interval" at `position`, or -1. */

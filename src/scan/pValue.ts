@@ -55,7 +55,8 @@ export function readPValue(text: string, position: number, asWritten = false): R
   const comparator = readComparator(text, at);
   if (comparator === null) return null;
   at = skipSpaces(text, at + comparator.length);
-  const read = readScientificNumber(text, at);
+  // A p is at most 1, so a comma before digits can only be a decimal comma ("p = 0,046", "p = ,046").
+  const read = readScientificNumber(text, at, 'yes');
   if (read === null || !endsWord(text, read.end)) return null;
   const value = read.number;
   // A probability above 1 is not a p-value ("p = 12" is a page or a count), unless it is read as written.

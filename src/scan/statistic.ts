@@ -258,7 +258,8 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   const comparator = readComparator(text, comparatorAt);
   if (comparator === null) return null;
   at = skipSpaces(text, comparatorAt + comparator.length);
-  const valueRead = readNumber(text, at);
+  // "F = 4,21": a decimal comma, as manuscripts from many countries write it.
+  const valueRead = readNumber(text, at, true, 'unlessThousands');
   if (valueRead === null) return null;
   // A value running into letters or digits is a unit or a label ("t = 5s"), not a statistic.
   if (!endsValue(text, valueRead.end)) return null;
