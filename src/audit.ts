@@ -29,6 +29,7 @@ function statisticOutput(
   const { line, column } = lineOf(result.start);
   return {
     kind: result.kind,
+    ...(result.symbol ? { symbol: result.symbol } : {}),
     text: result.text,
     location: { page: pageOf(result.start), line, column, start: result.start, end: result.end },
     surroundings: surroundingsOf(text, result.start, result.end),

@@ -6,7 +6,7 @@ const symbolByKind: Record<ReportedResult['kind'], string> = { F: 'F', t: 't', c
 export function describeStatistic(result: ReportedResult): string {
   const df = result.df.length > 0 ? `(${result.df.map((d) => d.text).join(', ')})` : '';
   const value = result.value ? ` ${result.valueComparator} ${result.value.text}` : '';
-  return `${symbolByKind[result.kind]}${df}${value}`;
+  return `${result.symbol ?? symbolByKind[result.kind]}${df}${value}`;
 }
 
 /** The printed p as a reader would write it: "p = .021". */

@@ -29,6 +29,7 @@ export const locationSchema = z.object({
 
 export const statisticSchema = z.object({
   kind: z.enum(['F', 't', 'chi2', 'r', 'z']),
+  symbol: z.literal('H').optional().describe('The symbol written, when it is not the kind\'s own: "H" for a Kruskal-Wallis result, tested as chi-square.'),
   text: z.string(),
   location: locationSchema,
   surroundings: z

@@ -108,9 +108,9 @@ class ComparatorFinder {
   }
 }
 
-/** Letters a statistic symbol can start with: F t r z Z c C x X. */
+/** Letters a statistic symbol can start with: F t r z Z c C x X H. */
 function canStartSymbol(code: number): boolean {
-  return code === 70 || code === 116 || code === 114 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88;
+  return code === 70 || code === 116 || code === 114 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72;
 }
 
 /**
@@ -122,7 +122,7 @@ function canStartSymbol(code: number): boolean {
  */
 const HEAD_CHARACTERS: Uint8Array = (() => {
   const table = new Uint8Array(128);
-  for (const character of '0123456789 \t\n\r()[]{},;._^-=FtrzZcChiquaredsSfNnxX') table[character.charCodeAt(0)] = 1;
+  for (const character of '0123456789 \t\n\r()[]{},;._^-=FtrzZcChiquaredsSfNnxXH') table[character.charCodeAt(0)] = 1;
   return table;
 })();
 
@@ -153,6 +153,7 @@ function toReportedResult(draft: ResultDraft, normalised: NormalisedText): Repor
   const end = normalised.toOriginalEnd(draft.end);
   return {
     kind: draft.head.kind,
+    ...(draft.head.symbol === null ? {} : { symbol: draft.head.symbol }),
     text: normalised.original.slice(start, end),
     start,
     end,

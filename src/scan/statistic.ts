@@ -20,6 +20,8 @@ import type { Comparator, ReportedNumber, StatisticKind } from './types.js';
 
 export interface StatisticHead {
   kind: StatisticKind;
+  /** The symbol written, when it is not the kind's own: "H" (Kruskal-Wallis), tested as chi-square. */
+  symbol: 'H' | null;
   /** Normalised offsets of the symbol's first character and the value's end. */
   start: number;
   end: number;
@@ -45,6 +47,7 @@ const MIN_BARE_SUBSCRIPT_DF = 5;
 
 interface SymbolRead {
   kind: StatisticKind;
+  symbol?: 'H';
   end: number;
   /** "X2": only trusted with degrees of freedom in brackets. */
   requiresBracketedDf: boolean;
@@ -69,6 +72,8 @@ function readSymbol(text: string, position: number): SymbolRead | null {
     case 120: // x
     case 88: // X
       return chiSquareLetterX(text, position);
+    case 72: // H
+      return kruskalWallisH(text, position);
     default:
       return null;
   }
@@ -99,6 +104,17 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
   if (text.charCodeAt(at) === 100) at++; // "d"
   if (isAsciiLetter(text.charCodeAt(at))) return null;
   return { kind: 'chi2', end: at, requiresBracketedDf: false };
+}
+
+/**
+ * Kruskal-Wallis "H(2) = 7.81" or "H(2, N = 60) = 7.81": tested against the
+ * chi-square distribution with k - 1 df, as statistical software reports it
+ * (Kruskal & Wallis, 1952; SciPy's scipy.stats.kruskal). Bracketed df are
+ * required: "H2 = .45" is a heritability, "H = 0.8" an entropy.
+ */
+function kruskalWallisH(text: string, position: number): SymbolRead | null {
+  if (isAsciiLetter(text.charCodeAt(position + 1)) || isAsciiDigit(text.charCodeAt(position + 1))) return null;
+  return { kind: 'chi2', symbol: 'H', end: position + 1, requiresBracketedDf: true };
 }
 
 /** "X2" / "X^2" / "x2": how χ² often survives PDF extraction; bracketed df required. */
@@ -265,11 +281,13 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   if (!endsValue(text, valueRead.end)) return null;
 
   const df = dfRead?.df ?? [];
-  const needsP = needsPValue(symbol.kind, dfRead, comparator.comparator);
+  // "H(5) = 0.32" may be a cumulative hazard: an H counts only with its p.
+  const needsP = symbol.symbol === 'H' || needsPValue(symbol.kind, dfRead, comparator.comparator);
   if (symbol.kind === 'z' && looksLikeCoordinate(text, position)) return null;
 
   return {
     kind: symbol.kind,
+    symbol: symbol.symbol ?? null,
     start: position,
     comparatorAt: comparatorAt,
     end: valueRead.end,

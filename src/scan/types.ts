@@ -82,6 +82,8 @@ export interface TableRowOrigin {
 
 export interface ReportedResult {
   kind: StatisticKind;
+  /** The symbol written, when it is not the kind's own: "H" for a Kruskal-Wallis result, tested as chi-square. */
+  symbol?: 'H';
   /** The original text of the whole result, from the statistic's symbol to its last part. */
   text: string;
   /** Offsets into the original text (end exclusive). */
