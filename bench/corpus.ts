@@ -151,6 +151,7 @@ async function main(): Promise<void> {
   const cachedRuns = [0, 1, 2].map(() => seconds(() => plumbline([root, '--jobs', String(cores), '--pdf-engine', engine, '--cache-dir', cacheDir('all')])));
   const allCached = [...cachedRuns].sort((a, b) => a - b)[1]!;
   rows.push([`all cached (unchanged files), median of 3`, allCached, 2 * perFormat]);
+  time(`all cached, 1 worker`, 2 * perFormat, [root, '--jobs', '1', '--pdf-engine', engine, '--cache-dir', cacheDir('all')]);
   time(`text cold, 1 worker`, perFormat, [textFolder, '--jobs', '1', '--no-cache']);
 
   for (const [label, elapsed, documents] of rows) {

@@ -32,12 +32,53 @@ export type CellValue =
 const EMPTY_CELL = /^[\s\u2014\u2013\u2012\u2212.\-]*$/;
 const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
 /**
- * An optional comparator, an optional sign, digits (with thousands
- * separators) and an optional exponent, then footnote marks (stars, daggers,
- * one superscript letter). Groups: 1 comparator, 2 sign, 3 digits, 4 exponent.
+ * An optional comparator, an optional sign, the digits with their
+ * separators (read by the table's decimal separator, below), an optional
+ * exponent, then footnote marks (stars, daggers, one superscript letter).
+ * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:p\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?(\d{1,3}(?:,\d{3})+(?:\.\d+)?|\d+(?:\.\d+)?|\.\d+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+  /^(?:p\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+
+/**
+ * How a table writes its decimals: '.' ("4.21", thousands "1,234.5") or ','
+ * ("4,21", thousands "1.234,5", as in manuscripts from many countries).
+ * 'either' only asks whether a cell is a number at all (finding tables).
+ */
+export type DecimalSeparator = '.' | ',' | 'either';
+
+const POINT_DIGITS = /^(?:[1-9]\d{0,2}(?:,\d{3})+(?:\.\d+)?|\d+(?:\.\d+)?|\.\d+)$/;
+const COMMA_DIGITS = /^(?:[1-9]\d{0,2}(?:\.\d{3})+(?:,\d+)?|\d+(?:,\d+)?|,\d+)$/;
+
+/** The digits as a plain decimal ("1,234.5" -> "1234.5"; with ',': "1.234,5" -> "1234.5"), or null. */
+function plainDigits(digits: string, separator: DecimalSeparator): string | null {
+  if (separator !== ',' && POINT_DIGITS.test(digits)) return digits.replace(/,/g, '');
+  if (separator !== '.' && COMMA_DIGITS.test(digits)) return digits.replace(/\./g, '').replace(',', '.');
+  return null;
+}
+
+/** Numbers that can only be written with a decimal point, or only with a decimal comma (a thousands group has exactly three digits after a non-zero whole part). */
+const ONLY_POINT = /^(?:\d*\.\d{1,2}|\d*\.\d{4,}|0\.\d+|[1-9]\d{0,2}(?:,\d{3})+\.\d+)$/;
+const ONLY_COMMA = /^(?:\d*,\d{1,2}|\d*,\d{4,}|0,\d+|[1-9]\d{0,2}(?:\.\d{3})+,\d+)$/;
+
+/**
+ * A table's decimal separator, from its cells: ',' when some number can only
+ * be a decimal comma ("4,21", "0,019") and none can only be a decimal point;
+ * '.' otherwise (so "1,234" alone stays a thousand and more, as in English).
+ */
+export function decimalSeparatorOf(rows: readonly (readonly string[])[]): '.' | ',' {
+  let comma = false;
+  for (const row of rows) {
+    for (const cell of row) {
+      if (cell.length > MAX_CELL_LENGTH) continue;
+      const digits = NUMBER_CELL.exec(cell.trim())?.[3];
+      if (digits === undefined) continue;
+      if (ONLY_POINT.test(digits)) return '.';
+      if (ONLY_COMMA.test(digits)) comma = true;
+    }
+  }
+  return comma ? ',' : '.';
+}
 
 const COMPARATORS: Record<string, Comparator> = {
   '<': '<',
@@ -49,8 +90,8 @@ const COMPARATORS: Record<string, Comparator> = {
   '\u2265': '>=',
 };
 
-/** Reads one cell as written. */
-export function readCell(cell: string): CellValue {
+/** Reads one cell as written, with the table's decimal separator. */
+export function readCell(cell: string, separator: DecimalSeparator = '.'): CellValue {
   if (cell.length > MAX_CELL_LENGTH) return { kind: 'text' };
   if (EMPTY_CELL.test(cell)) return { kind: 'empty' };
   const trimmed = cell.trim();
@@ -58,9 +99,11 @@ export function readCell(cell: string): CellValue {
   const match = NUMBER_CELL.exec(trimmed);
   if (!match) return { kind: 'text' };
   const [, comparatorText, signText = '', digits = '', exponentText] = match;
+  const plain = plainDigits(digits, separator);
+  if (plain === null) return { kind: 'text' };
   const sign = signText === '' || signText === '+' ? '' : '-';
   const exponent = exponentText === undefined ? '' : `e${exponentText.replace('\u2212', '-')}`;
-  const number = parseReportedNumber(`${sign}${digits.replace(/,/g, '')}${exponent}`);
+  const number = parseReportedNumber(`${sign}${plain}${exponent}`);
   if (!number) return { kind: 'text' };
   const leading = cell.length - cell.trimStart().length;
   // The number's span: from the comparator (or sign, or first digit) to the last digit.
@@ -75,9 +118,9 @@ export function readCell(cell: string): CellValue {
   };
 }
 
-/** True when the cell is a number (the only kind of cell that marks a data row). */
+/** True when the cell is a number (the only kind of cell that marks a data row), with either decimal separator. */
 export function isNumberCell(cell: string): boolean {
-  return readCell(cell).kind === 'number';
+  return readCell(cell, 'either').kind === 'number';
 }
 
 /** What a column holds, read from its header. */

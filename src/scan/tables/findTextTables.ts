@@ -165,7 +165,7 @@ function isSpace(code: number): boolean {
 
 /** A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". */
 function isValueToken(text: string): boolean {
-  const kind = readCell(text).kind;
+  const kind = readCell(text, 'either').kind;
   return kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '');
 }
 
@@ -303,7 +303,7 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   while (first > 0 && isValueToken(tokens[first - 1]!.text)) first--;
   if (first === 0 && tokens.length > 0) first = 1; // all numbers: the first is the label ("1", "2005")
   const values = tokens.slice(first);
-  if (values.length < minimumValues || values.every((token) => readCell(token.text).kind !== 'number')) return null;
+  if (values.length < minimumValues || values.every((token) => readCell(token.text, 'either').kind !== 'number')) return null;
   const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || /[=<>]/.test(label.text)) return null;
   return { label, values };

@@ -37,7 +37,7 @@ import type {
   TableRowOrigin,
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
-import { classifyHeader, headerKey, readCell, type ColumnRole } from './cells.js';
+import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -89,7 +89,7 @@ function distinctTables(tables: DocumentTable[]): DocumentTable[] {
 
 function readTable(text: string, table: DocumentTable, tableIndex: number): ReportedResult[] {
   const rows = table.rows;
-  const headerCount = rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell).kind === 'number'));
+  const headerCount = rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
   if (headerCount < 1) return [];
   const width = Math.max(...rows.map((row) => row.length));
   const headers: string[] = [];
@@ -111,7 +111,8 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Repo
   const noteDf = readNoteDf(noteText);
   const noteN = readNoteSampleSize(noteText);
   const located = locateRows(text, table, headerCount);
-  const errorRows = rows.map((row, index) => index >= headerCount && isErrorRow(row, segments));
+  const separator = decimalSeparatorOf(rows.slice(headerCount));
+  const errorRows = rows.map((row, index) => index >= headerCount && isErrorRow(row, segments, separator));
   const results: ReportedResult[] = [];
 
   for (let index = headerCount; index < rows.length; index++) {
@@ -138,6 +139,7 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Repo
         noteDf,
         noteN,
         rowSpan,
+        separator,
       });
       if (result !== null) results.push(result);
     }
@@ -199,13 +201,13 @@ function roleKey(role: ColumnRole, kind: StatisticKind): RoleKey | null {
   }
 }
 
-function isErrorRow(row: string[], segments: Segment[]): boolean {
+function isErrorRow(row: string[], segments: Segment[], separator: DecimalSeparator): boolean {
   if (!ERROR_LABEL.test(headerKey(row[0] ?? ''))) return false;
   const columns = segments[0]!.columns;
-  const hasStatistic = readCell(row[columns.get('statistic')!] ?? '').kind === 'number';
+  const hasStatistic = readCell(row[columns.get('statistic')!] ?? '', separator).kind === 'number';
   const hasTerms = (['df', 'df1', 'ss', 'ms'] as const).some((key) => {
     const column = columns.get(key);
-    return column !== undefined && readCell(row[column] ?? '').kind === 'number';
+    return column !== undefined && readCell(row[column] ?? '', separator).kind === 'number';
   });
   return hasTerms && !hasStatistic;
 }
@@ -232,6 +234,8 @@ interface RowInput {
   noteDf: NoteDf;
   noteN: ReportedNumber | null;
   rowSpan: LocatedCell;
+  /** The table's decimal separator (cells.ts, decimalSeparatorOf). */
+  separator: DecimalSeparator;
 }
 
 interface NumberCell {
@@ -239,10 +243,10 @@ interface NumberCell {
   record: CellRecord;
 }
 
-function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): NumberCell | null | 'ns' {
+function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): NumberCell | null | 'ns' {
   if (column === undefined) return null;
   const cell = row[column] ?? '';
-  const read = readCell(cell);
+  const read = readCell(cell, separator);
   if (read.kind === 'ns') return 'ns';
   if (read.kind !== 'number') return null;
   const at = cellsAt?.[column] ?? null;
@@ -251,15 +255,15 @@ function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column:
   return { comparator: read.comparator, record: { ...read.number, start, end } };
 }
 
-function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): NumberCell | null {
-  const found = numberAt(row, cellsAt, column);
+function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): NumberCell | null {
+  const found = numberAt(row, cellsAt, column, separator);
   return found === 'ns' ? null : found;
 }
 
 function readRow(input: RowInput): ReportedResult | null {
   const { row, cellsAt, segment, kind } = input;
   const columns = segment.columns;
-  const statistic = plainNumber(row, cellsAt, columns.get('statistic'));
+  const statistic = plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
   const record = (key: TableColumn, cell: NumberCell | null): void => {
@@ -267,21 +271,21 @@ function readRow(input: RowInput): ReportedResult | null {
   };
   record('statistic', statistic);
   const labelDf = readLabelDf(row[0] ?? '');
-  const dfCell = plainNumber(row, cellsAt, columns.get('df'));
-  const df1Cell = plainNumber(row, cellsAt, columns.get('df1'));
-  const df2Cell = plainNumber(row, cellsAt, columns.get('df2'));
+  const dfCell = plainNumber(row, cellsAt, columns.get('df'), input.separator);
+  const df1Cell = plainNumber(row, cellsAt, columns.get('df1'), input.separator);
+  const df2Cell = plainNumber(row, cellsAt, columns.get('df2'), input.separator);
   record('df', dfCell);
   record('df1', df1Cell);
   record('df2', df2Cell);
-  record('ss', plainNumber(row, cellsAt, columns.get('ss')));
-  record('ms', plainNumber(row, cellsAt, columns.get('ms')));
+  record('ss', plainNumber(row, cellsAt, columns.get('ss'), input.separator));
+  record('ms', plainNumber(row, cellsAt, columns.get('ms'), input.separator));
 
   let errorRow: TableRowOrigin['errorRow'] = null;
   let errorDf: ReportedNumber | null = null;
   if (input.errorRow !== null && kind === 'F') {
     const errorCells: Cells = {};
     for (const key of ['ss', 'df', 'df1', 'df2', 'ms'] as const) {
-      const cell = plainNumber(input.errorRow.row, input.errorRow.cellsAt, columns.get(key));
+      const cell = plainNumber(input.errorRow.row, input.errorRow.cellsAt, columns.get(key), input.separator);
       if (cell !== null) errorCells[key] = cell.record;
     }
     errorRow = { rowLabel: (input.errorRow.row[0] ?? '').trim(), cells: errorCells };
@@ -296,18 +300,18 @@ function readRow(input: RowInput): ReportedResult | null {
     labelDf,
     headerDf: segment.headerDf,
     noteDf: input.noteDf,
-    nCell: plainNumber(row, cellsAt, columns.get('n'))?.record ?? null,
+    nCell: plainNumber(row, cellsAt, columns.get('n'), input.separator)?.record ?? null,
     noteN: input.noteN,
   });
   if (df === null || df.some((value) => !(value.value > 0))) return null;
 
-  const pCell = numberAt(row, cellsAt, columns.get('p'));
+  const pCell = numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);
   const effects: ReportedEffect[] = [];
   for (const [key, column] of columns) {
     if (!key.startsWith('effect:')) continue;
     const effectKind = key.slice('effect:'.length) as EffectKind;
-    const cell = plainNumber(row, cellsAt, column);
+    const cell = plainNumber(row, cellsAt, column, input.separator);
     if (cell === null) continue;
     if (CELL_COLUMNS.has(effectKind)) cells[effectKind as TableColumn] = cell.record;
     effects.push({ kind: effectKind, comparator: cell.comparator, value: stripOffsets(cell.record), interval: null, start: cell.record.start, end: cell.record.end });
@@ -315,7 +319,7 @@ function readRow(input: RowInput): ReportedResult | null {
   effects.sort((a, b) => a.start - b.start);
 
   const label = (row[0] ?? '').trim();
-  const sampleSize = kind === 'chi2' ? (plainNumber(row, cellsAt, columns.get('n'))?.record ?? input.noteN) : null;
+  const sampleSize = kind === 'chi2' ? (plainNumber(row, cellsAt, columns.get('n'), input.separator)?.record ?? input.noteN) : null;
   const { start, end } = input.rowSpan;
   return {
     kind,
