@@ -89,6 +89,13 @@ FINDINGS = [
      "r = 1.12 is impossible (slip for .112; p = .439 belongs to r = .112)"),
     ("brannock-commute-survey.txt", "t(120) = 2.45, p = .008", "halved-p", "warn", False,
      "p = .008 is half the two-tailed p = .016; the report says all tests were two-tailed"),
+    # heathmoor-ferry-queues.txt (decimal commas; H = Kruskal-Wallis, tested as chi-square)
+    ("heathmoor-ferry-queues.txt", "H(3, N = 120) = 4,10; p = ,025", "p-value-mismatch", "fail", True,
+     "p written as ,025; chi-square(3) = 4.10 gives p = .251, so the gates did not differ, as the text says"),
+    ("heathmoor-ferry-queues.txt", "F(1, 116) = 23,20; p = 0,000", "p-reported-as-zero", "warn", False,
+     "p written as 0,000; true p < .001"),
+    ("heathmoor-ferry-queues.txt", "t(78) = 2,05; p = ,022", "halved-p", "warn", False,
+     "p = ,022 is half the two-tailed p = .044; no one-tailed test is declared"),
     # quiet-carrel-study-rooms.txt (group means, SDs and ns written beside each test)
     ("quiet-carrel-study-rooms.txt", "t(38) = 2.95, p = .005", "group-statistics-test-mismatch", "fail", True,
      "M = 9.12 (0.61) vs 9.05 (0.70), n = 20 each, give t(38) = 0.34, p = .74; 2.95 does not follow"),

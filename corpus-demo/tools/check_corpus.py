@@ -35,7 +35,8 @@ PATTERNS = [
     ("F", re.compile(r"\bF\s*\(\s*(\d*\.?\d+)\s*,\s*(\d*\.?\d+)\s*\)\s*=\s*" + NUM)),
     ("t", re.compile(r"\bt\s*\(\s*(\d*\.?\d+)\s*\)\s*=\s*" + NUM)),
     ("r", re.compile(r"\br\s*\(\s*(\d+)\s*\)\s*=\s*" + NUM)),
-    ("chi2", re.compile(r"χ2\s*\(\s*(\d+)\s*(?:,\s*N\s*=\s*(\d+))?\s*\)\s*=\s*" + NUM)),
+    # Kruskal-Wallis H is tested as chi-square with k - 1 df.
+    ("chi2", re.compile(r"(?:χ2|\bH)\s*\(\s*(\d+)\s*(?:,\s*N\s*=\s*(\d+))?\s*\)\s*=\s*" + NUM)),
     ("z", re.compile(r"\bz\s*=\s*" + NUM)),
 ]
 P_RE = re.compile(r"\b(ps?)\s*(=|<|≤|>)\s*" + NUM)
@@ -52,9 +53,17 @@ def half(text):
     return 0.5 * 10 ** (-decimals(text))
 
 
-def normalise(text):
+# Manuscripts that print numbers with decimal commas ("F(2, 117) = 5,12; p = ,007").
+DECIMAL_COMMA_DEMOS = ("heathmoor-ferry-queues.txt",)
+
+
+def normalise(text, decimal_comma=False):
     # same length, so offsets and lines are unchanged
-    return text.replace("−", "-").replace("²", "2")
+    text = text.replace("−", "-").replace("²", "2")
+    if decimal_comma:
+        # a comma between digits ("5,12") or right after a comparator and space ("p = ,007") is a decimal comma
+        text = re.sub(r"(?<=\d),(?=\d)|(?<=[=<>] ),(?=\d)", ".", text)
+    return text
 
 
 def built_from_sources(file):
@@ -149,7 +158,7 @@ def descriptive_demo_problems(findings):
 def parse(file):
     with open(os.path.join(CORPUS, file), encoding="utf-8") as fh:
         raw = fh.read()
-    text = normalise(raw)
+    text = normalise(raw, decimal_comma=file in DECIMAL_COMMA_DEMOS)
     hits = []
     for kind, rx in PATTERNS:
         for m in rx.finditer(text):
@@ -387,7 +396,7 @@ def rule_specific(f, res, ctx, text):
         assert re.search(rf"\b{n[0]} per group|n = {n[0]}", text), "group sizes not stated"
         notes.append(f"d {d:.3f} vs reported {rep} (n = {n})")
     elif rule == "p-reported-as-zero":
-        assert p["text"] == ".000" and hi < 0.0005
+        assert float(p["text"]) == 0 and hi < 0.0005
         notes.append(f"true p {hi:.2e}")
     elif rule == "impossible-value":
         notes.append(f"value {res['value']}, p {p['text'] if p else None}, effects {res['effects']}")

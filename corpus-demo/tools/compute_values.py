@@ -284,6 +284,22 @@ add(f, "mode x shift (V, 3x2)", "chi2", (11.40, 2, 212), v_k=2)
 add(f, "sex x mode 2x2", "chi2", (2.95, 1, None))
 add(f, "bus vs car stress", "t", (1.32, 150))
 
+# 9. heathmoor-ferry-queues.txt -- between subjects, N = 120 (40 per sign condition), decimal commas
+#    (H results are Kruskal-Wallis tests, tested as chi-square with k - 1 df)
+f = "heathmoor-ferry-queues.txt"
+add(f, "sign condition", "F", (5.12, 2, 117), eta=True)
+add(f, "countdown vs none", "t", (2.40, 78), n1=40, n2=40)
+add(f, "fixed vs none", "t", (1.12, 78))
+add(f, "waiting estimates, Kruskal-Wallis H", "chi2", (9.84, 2, None))
+add(f, "gates, Kruskal-Wallis H [PLANTED p = .025]", "chi2", (4.10, 3, 120),
+    planted="p written as ,025 (true .251)")
+add(f, "earlier use [PLANTED p = 0,000]", "F", (23.20, 1, 116), eta=True,
+    planted="p written as 0,000")
+add(f, "express lane 2x2", "chi2", (4.62, 1, 120))
+add(f, "earlier trips and satisfaction", "r", (0.24, 118))
+add(f, "luggage, countdown vs fixed [PLANTED halved p]", "t", (2.05, 78),
+    planted="p written as ,022 = half the two-tailed p")
+
 
 def describe(e):
     k, par, opt = e["kind"], e["params"], e["opt"]
