@@ -27,6 +27,8 @@ const effectSymbol: Record<ReportedEffect['kind'], string> = {
   r: 'r',
   phi: 'φ',
   'cramers-v': 'V',
+  'r-squared': 'R²',
+  'adjusted-r-squared': 'R²adj',
 };
 
 export function describeEffect(effect: ReportedEffect): string {

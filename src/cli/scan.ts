@@ -104,7 +104,8 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       const progress = await createProgress(inputs.length - done.size, Boolean(io.interactive) && !options.quiet);
       const totals = { results: 0, flags: 0 };
       const emit = (entry: AuditEntry): void => {
-        entries.push(entry);
+        // Streamed to standard output, an audit is not needed again: only its counts, for the exit code.
+        entries.push(streamToStdout ? { ...entry, body: '{}' } : entry);
         writer?.write(entry);
         if (streamToStdout) io.stdout(`${entryJson(entry)}\n`);
         const { statistics, findings } = entry.tally;

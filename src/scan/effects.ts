@@ -14,7 +14,7 @@ import {
   startsWord,
   type ReadNumber,
 } from './cursor.js';
-import type { Comparator, EffectKind, ReportedInterval, ReportedNumber } from './types.js';
+import type { Comparator, EffectKind, ReportedEffect, ReportedInterval, ReportedNumber } from './types.js';
 
 /**
  * Effect-size names after canonicalisation (lower case; spaces, hyphens,
@@ -37,6 +37,8 @@ const EFFECT_NAMES: ReadonlyMap<string, EffectKind> = new Map<string, EffectKind
   ...names('r', ['r']),
   ...names('phi', ['phi']),
   ...names('cramers-v', ['v', 'cramersv', 'cramerv', 'cramersphi']),
+  ...names('r-squared', ['r2', 'rsquared', 'rsq', 'multipler2']),
+  ...names('adjusted-r-squared', ['adjr2', 'adjustedr2', 'r2adj', 'r2adjusted', 'radj2', 'adjrsquared', 'adjustedrsquared']),
 ]);
 
 function names(kind: EffectKind, spellings: string[]): Array<[string, EffectKind]> {
@@ -121,6 +123,58 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
   const lastWordStart = wordStarts[words - 1]!;
   const name = canonicalName(text.slice(lastWordStart, nameEnd));
   return { name, kind: null, comparator: comparator.comparator, value, start: lastWordStart, end };
+}
+
+/** How far before a statistic's symbol a model fit may start: "adjusted R2 = .087, F(...)". */
+const FIT_BEFORE_WINDOW = 40;
+/** Most separator characters between a model fit and the statistic after it: ", (". */
+const FIT_BEFORE_GAP = 4;
+
+function isFitSeparator(code: number): boolean {
+  return code === 32 || code === 44 || code === 59 || code === 40 || code === 91; // space , ; ( [
+}
+
+/**
+ * R² and adjusted R² written just before a statistic, as APA style reports
+ * a regression model: "R2 = .12, F(3, 96) = 4.36" or "R2 = .12, adjusted R2 =
+ * .09, F(...)". At most two, each ending where the next begins (only
+ * separators between), none before `notBefore` (text an earlier result
+ * consumed). Anything else written before a statistic belongs to the
+ * sentence, not to the test.
+ */
+export function readFitBefore(text: string, statisticStart: number, notBefore: number): ReportedEffect[] {
+  const found: ReportedEffect[] = [];
+  let end = statisticStart;
+  for (let count = 0; count < 2; count++) {
+    let valueEnd = end;
+    while (valueEnd > notBefore && end - valueEnd < FIT_BEFORE_GAP && isFitSeparator(text.charCodeAt(valueEnd - 1))) valueEnd--;
+    if (valueEnd === end) break;
+    const fit = fitEndingAt(text, valueEnd, Math.max(notBefore, valueEnd - FIT_BEFORE_WINDOW));
+    if (fit === null) break;
+    found.unshift({ kind: fit.kind!, comparator: fit.comparator, value: fit.value, interval: null, start: fit.start, end: fit.end });
+    end = fit.start;
+  }
+  return found;
+}
+
+/** An R² or adjusted R² whose value ends exactly at `valueEnd`; the longest name wins ("adjusted R2", not "R2"). */
+function fitEndingAt(text: string, valueEnd: number, lowest: number): NameValueRead | null {
+  for (let start = lowest; start < valueEnd; start++) {
+    const code = text.charCodeAt(start);
+    if (code !== 82 && code !== 114 && code !== 65 && code !== 97) continue; // R r A a
+    const read = readNameAndValue(text, start);
+    if (read !== null && read.end === valueEnd && (read.kind === 'r-squared' || read.kind === 'adjusted-r-squared')) {
+      return isChangeMarked(text, read.start) ? null : read;
+    }
+  }
+  return null;
+}
+
+/** "ΔR2", "∆R2", "Delta R2": the change in R² between two models, which the F of the change does not determine alone. */
+function isChangeMarked(text: string, nameStart: number): boolean {
+  const before = text.charCodeAt(nameStart - 1);
+  if (before === 0x394 || before === 0x2206) return true;
+  return /delta ?$/i.test(text.slice(Math.max(0, nameStart - 6), nameStart));
 }
 
 export interface IntervalRead {

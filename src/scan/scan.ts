@@ -11,6 +11,7 @@
 import { readDocumentContext } from './context.js';
 import { normaliseText, type NormalisedText } from './normalise.js';
 import { startsWord } from './cursor.js';
+import { readFitBefore } from './effects.js';
 import { endsSentence, readResult, type ResultDraft } from './result.js';
 import type { ReportedEffect, ReportedP, ReportedResult, ScanOutput } from './types.js';
 
@@ -41,6 +42,8 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     if (at < consumedUpTo) continue;
     const draft = readResultEndingHeadAt(source, at, consumedUpTo);
     if (draft === null) continue;
+    // A regression model's fit is written before its F: "R2 = .12, F(3, 96) = 4.36".
+    if (draft.head.kind === 'F') draft.effects.unshift(...readFitBefore(source, draft.head.start, consumedUpTo));
     results.push(toReportedResult(draft, normalised));
     spans.push(draft.head.start, draft.end);
     if (draft.p?.plural === true) {

@@ -45,7 +45,9 @@ export type EffectKind =
   | 'cohens-f'
   | 'r'
   | 'phi'
-  | 'cramers-v';
+  | 'cramers-v'
+  | 'r-squared'
+  | 'adjusted-r-squared';
 
 export interface ReportedInterval {
   /** Confidence level as a proportion (0.90 for "90% CI"); null when unstated. */

@@ -13,7 +13,10 @@ function effectOutOfRange(effect: ReportedEffect): string | null {
     case 'eta-squared':
     case 'generalized-eta-squared':
     case 'cramers-v':
+    case 'r-squared':
       return value < 0 || value > 1 ? 'must lie between 0 and 1' : null;
+    case 'adjusted-r-squared':
+      return value > 1 ? 'cannot exceed 1' : null;
     case 'omega-squared':
     case 'partial-omega-squared':
       return value > 1 ? 'cannot exceed 1' : null;

@@ -13,6 +13,7 @@ import { tableArithmetic } from './table-arithmetic.js';
 import { groupStatisticsTestMismatch } from './group-statistics-test-mismatch.js';
 import { groupSizesDfMismatch } from './group-sizes-df-mismatch.js';
 import { integerDataGranularity } from './integer-data-granularity.js';
+import { rSquaredMismatch } from './r-squared-mismatch.js';
 
 /** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
 export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
@@ -23,6 +24,7 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     halvedP,
     sphericityCorrectedP,
     partialEtaSquaredMismatch,
+    rSquaredMismatch,
     etaSquaredLabelledPartial,
     effectSizeIntervalMismatch,
     cohensDMismatch,
