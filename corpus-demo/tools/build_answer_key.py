@@ -96,6 +96,8 @@ FINDINGS = [
      "p written as 0,000; true p < .001"),
     ("heathmoor-ferry-queues.txt", "t(78) = 2,05; p = ,022", "halved-p", "warn", False,
      "p = ,022 is half the two-tailed p = .044; no one-tailed test is declared"),
+    ("heathmoor-ferry-queues.txt", "F(2, 117) = 5,30; p = ,006; R² = ,07", "r-squared-mismatch", "warn", False,
+     "R² written as ,07, the adjusted R²; F(2, 117) = 5.30 gives R² = .083"),
     # quiet-carrel-study-rooms.txt (group means, SDs and ns written beside each test)
     ("quiet-carrel-study-rooms.txt", "t(38) = 2.95, p = .005", "group-statistics-test-mismatch", "fail", True,
      "M = 9.12 (0.61) vs 9.05 (0.70), n = 20 each, give t(38) = 0.34, p = .74; 2.95 does not follow"),

@@ -40,7 +40,7 @@ PATTERNS = [
     ("z", re.compile(r"\bz\s*=\s*" + NUM)),
 ]
 P_RE = re.compile(r"\b(ps?)\s*(=|<|≤|>)\s*" + NUM)
-EFFECT_RE = re.compile(r"(ηp2|partial η2|η2|\bd|Cramér's V|φ)\s*=\s*" + NUM)
+EFFECT_RE = re.compile(r"(ηp2|partial η2|η2|\bd|Cramér's V|φ|\bR2)\s*=\s*" + NUM)
 CI_RE = re.compile(r"(\d+)% CI \[" + NUM + r", " + NUM + r"\]")
 SENTENCE_END = re.compile(r"\.(?=\s|$)")
 
@@ -321,6 +321,10 @@ def issues(res, ctx, strict):
         elif label in ("Cramér's V", "φ"):
             if round(cv.cramers_v(v, res["N"]) + 1e-12, 2) != round(xv, 2):
                 out.add("v-mismatch")
+        elif label == "R2":
+            # R² of the whole model: F df1 / (F df1 + df2), the partial eta squared formula
+            if round(cv.partial_eta(v, *res["df"]) + 1e-12, 2) != round(xv, 2):
+                out.add("r-squared-mismatch")
     if res["ci"]:
         level, lo_t, hi_t = res["ci"]
         lo, hi = cv.eta_ci(v, res["df"][0], res["df"][1], level)
@@ -340,6 +344,7 @@ EXPECTED_TAGS = {
     "p-reported-as-zero": {"p-reported-as-zero"},
     "impossible-value": {"impossible-value"},
     "df-exceeds-sample": {"df-exceeds-sample"},
+    "r-squared-mismatch": {"r-squared-mismatch"},
 }
 
 
@@ -400,6 +405,13 @@ def rule_specific(f, res, ctx, text):
         notes.append(f"true p {hi:.2e}")
     elif rule == "impossible-value":
         notes.append(f"value {res['value']}, p {p['text'] if p else None}, effects {res['effects']}")
+    elif rule == "r-squared-mismatch":
+        (_, written), = [e for e in res["effects"] if e[0] == "R2"]
+        r2 = cv.partial_eta(float(res["value"]), *res["df"])
+        df1, df2 = res["df"]
+        adjusted = 1 - (1 - r2) * (df1 + df2) / df2
+        assert round(adjusted + 1e-12, 2) == float(written) != round(r2 + 1e-12, 2)
+        notes.append(f"R2 written {written}; F gives R2 {r2:.4f}, adjusted {adjusted:.4f}")
     elif rule == "df-exceeds-sample":
         assert df_exceeds_sample(res, ctx)
         notes.append(f"df {res['df']} vs N {ctx['N']}")

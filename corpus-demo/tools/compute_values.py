@@ -299,6 +299,9 @@ add(f, "express lane 2x2", "chi2", (4.62, 1, 120))
 add(f, "earlier trips and satisfaction", "r", (0.24, 118))
 add(f, "luggage, countdown vs fixed [PLANTED halved p]", "t", (2.05, 78),
     planted="p written as ,022 = half the two-tailed p")
+add(f, "regression of satisfaction (R2 = F df1 / (F df1 + df2))", "F", (6.12, 3, 116), eta=True)
+add(f, "regression of waiting estimates [PLANTED adjusted R2 as R2]", "F", (5.30, 2, 117), eta=True,
+    planted="R2 written as ,07 = adjusted R2 (R2 = .083)")
 
 
 def describe(e):
