@@ -34,6 +34,7 @@ function statisticOutput(
     location: { page: pageOf(result.start), line, column, start: result.start, end: result.end },
     surroundings: surroundingsOf(text, result.start, result.end),
     df: result.df.map((df) => df.value),
+    ...(result.dfFrom ? { dfFrom: result.dfFrom } : {}),
     value: result.value?.value ?? null,
     valueComparator: result.valueComparator,
     p: result.p ? { comparator: result.p.comparator, value: result.p.value.value, text: result.p.value.text } : null,

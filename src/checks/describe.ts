@@ -2,11 +2,15 @@ import type { ReportedEffect, ReportedResult } from '../scan/types.js';
 
 const symbolByKind: Record<ReportedResult['kind'], string> = { F: 'F', t: 't', chi2: 'χ²', r: 'r', z: 'z' };
 
-/** The statistic as a reader would write it: "F(1, 44) = 4.21". */
+/** The statistic as a reader would write it: "F(1, 44) = 4.21"; df worked out from a sample size are said to be so. */
 export function describeStatistic(result: ReportedResult): string {
-  const df = result.df.length > 0 ? `(${result.df.map((d) => d.text).join(', ')})` : '';
+  const symbol = result.symbol ?? symbolByKind[result.kind];
   const value = result.value ? ` ${result.valueComparator} ${result.value.text}` : '';
-  return `${result.symbol ?? symbolByKind[result.kind]}${df}${value}`;
+  if (result.dfFrom === 'sample-size' && result.sampleSize) {
+    return `${symbol}${value} (n = ${result.sampleSize.text}, so df = ${result.df.map((d) => d.text).join(', ')})`;
+  }
+  const df = result.df.length > 0 ? `(${result.df.map((d) => d.text).join(', ')})` : '';
+  return `${symbol}${df}${value}`;
 }
 
 /** The printed p as a reader would write it: "p = .021". */

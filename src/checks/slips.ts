@@ -201,12 +201,14 @@ export function findSlips(
 ): Slip[] {
   // Only an exact p can single out a slip: "p < .05" fits many alternatives equally well.
   if (result.p?.comparator !== '=') return [];
+  // df worked out from "n = 90" were not typed, so no slip of the df can explain the p.
+  const dfPrinted = result.dfFrom !== 'sample-size';
   return [
-    ...sampleSizeSlips(result, allowTruncation),
+    ...(dfPrinted ? sampleSizeSlips(result, allowTruncation) : []),
     ...neighbourSlips(result, neighbours, allowTruncation),
     ...squaredSlips(result, allowTruncation),
     ...transposedStatisticSlips(result, allowTruncation),
-    ...dfTypoSlips(result, allowTruncation),
+    ...(dfPrinted ? dfTypoSlips(result, allowTruncation) : []),
   ];
 }
 

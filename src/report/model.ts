@@ -36,6 +36,10 @@ export const statisticSchema = z.object({
     .object({ before: z.string(), after: z.string() })
     .describe('Up to about 160 characters of the document before and after the result, for showing it in context.'),
   df: z.array(z.number()),
+  dfFrom: z
+    .literal('sample-size')
+    .optional()
+    .describe('Set when the df were not printed but worked out from the sample size written after the result ("r = .30, p = .004, n = 90": df = 88).'),
   value: z.number().nullable(),
   valueComparator: comparatorSchema,
   p: z.object({ comparator: comparatorSchema, value: z.number(), text: z.string() }).nullable(),

@@ -6,8 +6,8 @@
  * Offsets here are normalised-text offsets; scan.ts maps them back.
  */
 
-import { MAX_GAP, isAsciiLetter, isSpaceCode, startsWord } from './cursor.js';
-import { isUnambiguousEffectName, readInterval, readNameAndValue } from './effects.js';
+import { MAX_GAP, isAsciiLetter, isSpaceCode, plainNumber, startsWord } from './cursor.js';
+import { isUnambiguousEffectName, readInterval, readNameAndValue, type NameValueRead } from './effects.js';
 import { readNotSignificant, readPValue } from './pValue.js';
 import { readStatisticHead, type StatisticHead } from './statistic.js';
 import type { ReportedEffect, ReportedInterval, ReportedNumber, ReportedP } from './types.js';
@@ -136,6 +136,12 @@ function readTail(text: string, draft: ResultDraft): boolean {
         });
         position = draft.end = named.end;
         last = 'effect';
+      } else if (isCorrelationSampleSize(draft, named)) {
+        // "r = .30, p = .004, n = 90": a correlation's df are N - 2.
+        const n = named.value.value;
+        draft.head = { ...draft.head, df: [plainNumber(String(n - 2), 0)], sampleSize: named.value, dfFromSampleSize: true };
+        position = draft.end = named.end;
+        last = 'other';
       } else {
         // "MSE = 12.4", "b = 0.3": reported alongside, not recorded, but the result continues.
         position = named.end;
@@ -191,6 +197,14 @@ export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: Re
   while (isSpaceCode(text.charCodeAt(position))) position++;
   const second = readDfNumber(text, position);
   return second === null ? null : { df: [first.number, second.number], end: second.end };
+}
+
+/** "n = 90" or "N = 90" after a correlation written without df: a whole number of at least 3. */
+function isCorrelationSampleSize(draft: ResultDraft, named: NameValueRead): boolean {
+  const { head } = draft;
+  if (head.kind !== 'r' || head.df.length > 0 || named.name !== 'n' || named.comparator !== '=') return false;
+  const { value, decimals, exponent } = named.value;
+  return decimals === 0 && exponent === 0 && Number.isInteger(value) && value >= 3;
 }
 
 function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): boolean {

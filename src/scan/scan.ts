@@ -157,6 +157,7 @@ function toReportedResult(draft: ResultDraft, normalised: NormalisedText): Repor
   return {
     kind: draft.head.kind,
     ...(draft.head.symbol === null ? {} : { symbol: draft.head.symbol }),
+    ...(draft.head.dfFromSampleSize ? { dfFrom: 'sample-size' as const } : {}),
     text: normalised.original.slice(start, end),
     start,
     end,

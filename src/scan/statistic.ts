@@ -22,6 +22,8 @@ export interface StatisticHead {
   kind: StatisticKind;
   /** The symbol written, when it is not the kind's own: "H" (Kruskal-Wallis), tested as chi-square. */
   symbol: 'H' | null;
+  /** True when the df were worked out from a sample size written after the result ("r = .30, p = .004, n = 90"). */
+  dfFromSampleSize?: boolean;
   /** Normalised offsets of the symbol's first character and the value's end. */
   start: number;
   end: number;

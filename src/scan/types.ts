@@ -93,8 +93,10 @@ export interface ReportedResult {
   end: number;
   /** F: [df1, df2]; t, chi2, r: [df]; z: []. */
   df: ReportedNumber[];
-  /** chi-square's "N = 120" inside the parentheses, when given. */
+  /** chi-square's "N = 120" inside the parentheses, or the "n = 90" after a correlation written without df. */
   sampleSize: ReportedNumber | null;
+  /** 'sample-size' when the df were not printed but worked out from the sample size ("r = .30, p = .004, n = 90": df = 88). */
+  dfFrom?: 'sample-size';
   /** The statistic; null only when not written as a number. */
   value: ReportedNumber | null;
   /** "=" normally; "<" for "F < 1". */
