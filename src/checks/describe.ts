@@ -13,6 +13,14 @@ export function describeStatistic(result: ReportedResult): string {
   return `${symbol}${df}${value}`;
 }
 
+/**
+ * The range of recomputed p as a message gives it, before "allowing for
+ * rounding": for Spearman's rs it spans the conventions in use too.
+ */
+export function describePRange(result: ReportedResult, range: string): string {
+  return result.symbol === 'rs' ? `${range}, over the usual conventions for the p of Spearman's rs and` : range;
+}
+
 /** The printed p as a reader would write it: "p = .021". */
 export function describeP(result: ReportedResult): string {
   if (!result.p) return result.notSignificant ? 'n.s.' : 'no p';

@@ -8,6 +8,7 @@ import {
   tTwoTailed,
   zTwoTailed,
 } from '../stats/index.js';
+import { SPEARMAN_SERIES_UP_TO, spearmanTwoTailed } from '../stats/spearman.js';
 
 export interface Interval {
   low: number;
@@ -91,6 +92,28 @@ export function pRangeOverBox(kind: ReportedResult['kind'], statistic: Interval,
   return { low, high };
 }
 
+/**
+ * p range of a Spearman rho (|rho| in `size`, df = n - 2) under every
+ * convention in use: the t approximation (SPSS, Stata, SciPy, and R with
+ * ties or n > 1290) and R's exact or AS 89 p for untied ranks, with either
+ * continuity step (stats/spearman.ts). A printed p that fits any of them
+ * is not flagged; the lenient union costs little sensitivity, while one
+ * convention alone would flag correct output of the others.
+ */
+function spearmanPRange(size: Interval, df: number): Interval {
+  let { low, high } = pRangeOverBox('r', size, [{ low: df, high: df }]);
+  const n = df + 2;
+  if (Number.isInteger(n) && n >= 3 && n <= SPEARMAN_SERIES_UP_TO) {
+    for (const rho of [size.low, size.high]) {
+      for (const p of [spearmanTwoTailed(rho, n), spearmanTwoTailed(-rho, n, 'midpoint'), spearmanTwoTailed(-rho, n, 'shifted')]) {
+        low = Math.min(low, p);
+        high = Math.max(high, p);
+      }
+    }
+  }
+  return { low, high };
+}
+
 const requiredDfCount: Record<ReportedResult['kind'], number> = { F: 2, t: 1, chi2: 1, r: 1, z: 0 };
 
 export function recompute(result: ReportedResult): Recomputation {
@@ -117,7 +140,7 @@ export function recompute(result: ReportedResult): Recomputation {
     return { ...empty, statisticRange, reason: `${result.kind} cannot be negative` };
   }
   const atPrinted = result.valueComparator === '=' ? pValueFor(result.kind, Math.abs(result.value.value), dfValues) : null;
-  const pRange = pRangeOverBox(result.kind, statisticRange, result.df.map(dfInterval));
+  const pRange = result.symbol === 'rs' ? spearmanPRange(statisticRange, dfValues[0]!) : pRangeOverBox(result.kind, statisticRange, result.df.map(dfInterval));
   let partialEtaSquared: number | null = null;
   let partialEtaSquaredRange: Interval | null = null;
   if (result.kind === 'F') {

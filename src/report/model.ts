@@ -29,7 +29,10 @@ export const locationSchema = z.object({
 
 export const statisticSchema = z.object({
   kind: z.enum(['F', 't', 'chi2', 'r', 'z']),
-  symbol: z.literal('H').optional().describe('The symbol written, when it is not the kind\'s own: "H" for a Kruskal-Wallis result, tested as chi-square.'),
+  symbol: z
+    .enum(['H', 'rs'])
+    .optional()
+    .describe('The symbol written, when it is not the kind\'s own: "H" for a Kruskal-Wallis result, tested as chi-square; "rs" for Spearman\'s rank correlation, whose p is accepted under the t approximation and under the exact or AS 89 distribution.'),
   text: z.string(),
   location: locationSchema,
   surroundings: z

@@ -97,6 +97,7 @@ function buildReplacementTable(): Map<number, string> {
   table.set(0x03d5, 'phi');
   table.set(0x03a6, 'phi');
   table.set(0x03c9, 'omega');
+  table.set(0x03c1, 'rho'); // Spearman's rho
   table.set(0x03a9, 'omega');
   // Accented letters that occur in effect-size names ("Cramér's V").
   put([0x00e9, 0x00e8, 0x00ea, 0x00eb], 'e');

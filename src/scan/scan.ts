@@ -44,6 +44,9 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     if (draft === null) continue;
     // A regression model's fit is written before its F: "R2 = .12, F(3, 96) = 4.36".
     if (draft.head.kind === 'F') draft.effects.unshift(...readFitBefore(source, draft.head.start, consumedUpTo));
+    if (draft.head.kind === 'r' && draft.head.symbol === null && introducedAsSpearman(source, draft.head.start, consumedUpTo)) {
+      draft.head = { ...draft.head, symbol: 'rs' };
+    }
     results.push(toReportedResult(draft, normalised));
     spans.push(draft.head.start, draft.end);
     if (draft.p?.plural === true) {
@@ -54,6 +57,16 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     consumedUpTo = draft.end;
   }
   return results;
+}
+
+/** How far before an r the word "Spearman" makes it a rank correlation ("Spearman's correlation was small, r(58) = .12"). */
+const SPEARMAN_WINDOW = 60;
+
+/** True when "Spearman" stands shortly before the r, in the same sentence. */
+function introducedAsSpearman(source: string, start: number, notBefore: number): boolean {
+  const before = source.slice(Math.max(notBefore, start - SPEARMAN_WINDOW), start);
+  const at = before.toLowerCase().lastIndexOf('spearman');
+  return at !== -1 && !/[.!?]\s/.test(before.slice(at));
 }
 
 /** Most earlier results a plural p is shared with ("A, B, C and D, ps < .001"). */
@@ -125,7 +138,7 @@ function canStartSymbol(code: number): boolean {
  */
 const HEAD_CHARACTERS: Uint8Array = (() => {
   const table = new Uint8Array(128);
-  for (const character of '0123456789 \t\n\r()[]{},;._^-=FtrzZcChiquaredsSfNnxXH') table[character.charCodeAt(0)] = 1;
+  for (const character of '0123456789 \t\n\r()[]{},;._^-=FtrzZcChiquaredsSfNnxXHo') table[character.charCodeAt(0)] = 1;
   return table;
 })();
 

@@ -16,12 +16,12 @@ import {
   skipSpaces,
   startsWord,
 } from './cursor.js';
-import type { Comparator, ReportedNumber, StatisticKind } from './types.js';
+import type { Comparator, ReportedNumber, StatisticKind, StatisticSymbol } from './types.js';
 
 export interface StatisticHead {
   kind: StatisticKind;
-  /** The symbol written, when it is not the kind's own: "H" (Kruskal-Wallis), tested as chi-square. */
-  symbol: 'H' | null;
+  /** The symbol written, when it is not the kind's own (types.ts, StatisticSymbol). */
+  symbol: StatisticSymbol | null;
   /** True when the df were worked out from a sample size written after the result ("r = .30, p = .004, n = 90"). */
   dfFromSampleSize?: boolean;
   /** Normalised offsets of the symbol's first character and the value's end. */
@@ -49,7 +49,7 @@ const MIN_BARE_SUBSCRIPT_DF = 5;
 
 interface SymbolRead {
   kind: StatisticKind;
-  symbol?: 'H';
+  symbol?: StatisticSymbol;
   end: number;
   /** "X2": only trusted with degrees of freedom in brackets. */
   requiresBracketedDf: boolean;
@@ -64,7 +64,7 @@ function readSymbol(text: string, position: number): SymbolRead | null {
     case 116: // t
       return singleLetterSymbol(text, position, code === 70 ? 'F' : 't', true);
     case 114: // r
-      return singleLetterSymbol(text, position, 'r', false);
+      return spearmanSymbol(text, position) ?? singleLetterSymbol(text, position, 'r', false);
     case 122: // z
     case 90: // Z
       return singleLetterSymbol(text, position, 'z', false);
@@ -117,6 +117,16 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
 function kruskalWallisH(text: string, position: number): SymbolRead | null {
   if (isAsciiLetter(text.charCodeAt(position + 1)) || isAsciiDigit(text.charCodeAt(position + 1))) return null;
   return { kind: 'chi2', symbol: 'H', end: position + 1, requiresBracketedDf: true };
+}
+
+/** Spearman's "rs", "r_s" (a flattened or marked subscript) and "rho" (ρ spelled out by normalisation). */
+function spearmanSymbol(text: string, position: number): SymbolRead | null {
+  for (const written of ['rs', 'r_s', 'rho']) {
+    if (text.startsWith(written, position) && !isAsciiLetter(text.charCodeAt(position + written.length))) {
+      return { kind: 'r', symbol: 'rs', end: position + written.length, requiresBracketedDf: false };
+    }
+  }
+  return null;
 }
 
 /** "X2" / "X^2" / "x2": how χ² often survives PDF extraction; bracketed df required. */

@@ -23,6 +23,14 @@ export interface ReportedNumber {
 
 export type StatisticKind = 'F' | 't' | 'chi2' | 'r' | 'z';
 
+/**
+ * A symbol tested as one of the kinds: "H", a Kruskal-Wallis result, as
+ * chi-square; "rs", Spearman's rank correlation ("rs", "r_s", "ρ", or an r
+ * introduced as Spearman's), as a correlation under each convention for its
+ * p (checks/recompute.ts).
+ */
+export type StatisticSymbol = 'H' | 'rs';
+
 export type Comparator = '=' | '<' | '>' | '<=' | '>=';
 
 export interface ReportedP {
@@ -84,8 +92,8 @@ export interface TableRowOrigin {
 
 export interface ReportedResult {
   kind: StatisticKind;
-  /** The symbol written, when it is not the kind's own: "H" for a Kruskal-Wallis result, tested as chi-square. */
-  symbol?: 'H';
+  /** The symbol written, when it is not the kind's own (see StatisticSymbol). */
+  symbol?: StatisticSymbol;
   /** The original text of the whole result, from the statistic's symbol to its last part. */
   text: string;
   /** Offsets into the original text (end exclusive). */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
-import { describeP, describeStatistic, quoteFromDocument } from '../describe.js';
+import { describeP, describeStatistic, quoteFromDocument, describePRange } from '../describe.js';
 import { formatP, formatRange } from '../format.js';
 import { fitsOnlyWhenHalved } from '../pExplanations.js';
 import { crossesAlpha, printedSignificance, recomputedSignificance } from '../pAgreement.js';
@@ -36,7 +36,7 @@ export const halvedP: CheckModule<Options> = {
       statistic: describeStatistic(result),
       printedP: describeP(result),
       recomputedP: formatP(recomputation.p ?? range.low),
-      recomputedRange: formatRange(range.low, range.high),
+      recomputedRange: describePRange(result, formatRange(range.low, range.high)),
       kind: result.kind === 'chi2' ? 'Chi-square' : result.kind,
     };
     const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(range, context.alpha));

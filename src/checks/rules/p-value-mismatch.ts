@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
-import { describeP, describeStatistic } from '../describe.js';
+import { describeP, describeStatistic, describePRange } from '../describe.js';
 import { formatP, formatRange } from '../format.js';
 import { crossesAlpha, pAgrees, printedSignificance, recomputedSignificance } from '../pAgreement.js';
 import { fitsOnlyWhenHalved, fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
@@ -34,7 +34,7 @@ export const pValueMismatch: CheckModule<Options> = {
     const base = {
       statistic: describeStatistic(result),
       recomputedP: formatP(recomputation.p ?? (range.low + range.high) / 2),
-      recomputedRange: formatRange(range.low, range.high),
+      recomputedRange: describePRange(result, formatRange(range.low, range.high)),
       alpha: context.alpha,
     };
     if (!result.p) {
