@@ -160,14 +160,24 @@ export function readFitBefore(text: string, statisticStart: number, notBefore: n
 /** An R² or adjusted R² whose value ends exactly at `valueEnd`; the longest name wins ("adjusted R2", not "R2"). */
 function fitEndingAt(text: string, valueEnd: number, lowest: number): NameValueRead | null {
   for (let start = lowest; start < valueEnd; start++) {
-    const code = text.charCodeAt(start);
-    if (code !== 82 && code !== 114 && code !== 65 && code !== 97) continue; // R r A a
+    if (!mayStartFitName(text, start)) continue;
     const read = readNameAndValue(text, start);
     if (read !== null && read.end === valueEnd && (read.kind === 'r-squared' || read.kind === 'adjusted-r-squared')) {
       return isChangeMarked(text, read.start) ? null : read;
     }
   }
   return null;
+}
+
+/** "R2", "R^2", "R squared", "r2" or "adj...": the only names readFitBefore reads, checked before reading one. */
+function mayStartFitName(text: string, at: number): boolean {
+  const code = text.charCodeAt(at);
+  if (code === 82 || code === 114) {
+    // R r
+    const next = text.charCodeAt(at + 1);
+    return next === 50 || next === 94 || next === 32 || next === 45 || next === 115; // 2 ^ space - s
+  }
+  return (code === 65 || code === 97) && text.startsWith('dj', at + 1); // A a
 }
 
 /** "ΔR2", "∆R2", "Delta R2": the change in R² between two models, which the F of the change does not determine alone. */
