@@ -132,7 +132,7 @@ async function scoreExcerpt(ex: Excerpt): Promise<FileScore> {
 const SYMBOLS: Record<Kind, RegExp> = {
   F: /F/,
   t: /t/,
-  chi2: /χ|X2|chi/i,
+  chi2: /χ|X2|chi|H\(/i, // H: Kruskal-Wallis, tested as chi-square
   r: /r/,
   z: /z/i,
 };

@@ -35,6 +35,8 @@ HEADER = KIND DF VALUE [options], e.g. `F 2,57 4.21`, `t 45.3 -2.05`,
               statistic: the text shows VALUE, the p belongs to calc)
     phalf     p placeholders show half the true p (a one-tailed p passed off)
     eff=KIND:VALUE   an effect size written literally in BODY
+    pre=KIND:VALUE   an effect size written literally just BEFORE the result
+              ("R² = .12, F(3, 96) = ..."), only separators in between
     bad       the result is meant to be inconsistent (checked below)
 
 BODY is the text, starting at the statistic's symbol. Placeholders, computed
@@ -187,9 +189,10 @@ TOKEN = re.compile("\u27e6([^|\u27e7]*)\\|(.*?)\u27e7", re.S)
 LOOK = re.compile("\u27ea(.*?)\u27eb", re.S)
 UESC = re.compile(r"\\u([0-9a-fA-F]{4})")
 PH = re.compile(r"\{(\w+)\}")
-EFFECT_SYMBOL = re.compile(r"(?:η|ω|φ|\bdz?\b|\bg\b|\bV\b|eta squared|\bf\b)[^=<>,;()]{0,6}[=<>]")
+EFFECT_SYMBOL = re.compile(r"(?:η|ω|φ|\bdz?\b|\bg\b|\bV\b|eta squared|\bf\b|\bR²|\bR2)[^=<>,;()]{0,6}[=<>]")
 KINDS = {"F", "t", "chi2", "r", "z"}
-SYMBOL_START = {"F": "F", "t": "t", "chi2": "χXxcC", "r": "r", "z": "zZ"}
+# H is Kruskal-Wallis (tested as chi-square); ρ is Spearman's rho (a correlation).
+SYMBOL_START = {"F": "F", "t": "t", "chi2": "χXxcCH", "r": "rρ", "z": "zZ"}
 CMP = {"eq": "=", "lt": "<", "le": "<=", "gt": ">", "ge": ">="}
 
 
@@ -213,6 +216,7 @@ class Spec:
         self.phalf = False
         self.bad = False
         self.lit_effects = []
+        self.pre_effects = []
         self.pshared = False
         for o in parts[3:]:
             if o == "bad":
@@ -240,6 +244,9 @@ class Spec:
             elif o.startswith("eff="):
                 k, num = o[4:].split(":")
                 self.lit_effects.append((k, num))
+            elif o.startswith("pre="):
+                k, num = o[4:].split(":")
+                self.pre_effects.append((k, num))
             else:
                 raise ValueError(f"{file}: unknown option {o}")
         self.effects = []  # (kind, text)
@@ -344,7 +351,7 @@ class Spec:
 
     def label(self, line):
         rp = self.reported_p()
-        effects = [(k, t) for k, t in self.effects] + self.lit_effects
+        effects = self.pre_effects + [(k, t) for k, t in self.effects] + self.lit_effects
         num = lambda s: int(float(s)) if float(s).is_integer() and "." not in s else float(s)
         return {
             "line": line,
@@ -403,12 +410,15 @@ class Spec:
             h = half_unit(self.value_text)
             elo = pes_of(max(self.value - h, 0), *self.df)
             ehi = pes_of(self.value + h, *self.df)
-            for k, t in self.effects + self.lit_effects:
-                if k in ("partial-eta-squared", "eta-squared"):
+            # R² of a whole model is the same function of F; adjusted R² = 1 - (1 - R²)(df1 + df2) / df2.
+            adjust = lambda r2: 1 - (1 - r2) * (self.df[0] + self.df[1]) / self.df[1]
+            for k, t in self.pre_effects + self.effects + self.lit_effects:
+                if k in ("partial-eta-squared", "eta-squared", "r-squared", "adjusted-r-squared"):
+                    lo_e, hi_e = (adjust(elo), adjust(ehi)) if k == "adjusted-r-squared" else (elo, ehi)
                     hu = half_unit(t)
                     v = float(t)
-                    if not (ehi >= v - hu - 1e-12 and elo <= v + hu + 1e-12):
-                        reasons.append(f"{k} {t} but F gives [{elo:.4f}, {ehi:.4f}]")
+                    if not (hi_e >= v - hu - 1e-12 and lo_e <= v + hu + 1e-12):
+                        reasons.append(f"{k} {t} but F gives [{lo_e:.4f}, {hi_e:.4f}]")
         return (not reasons, reasons)
 
 
@@ -451,6 +461,11 @@ def build(tpl_name):
                 assert spec.value_text in norm, (out_name, spec.header, body)
             for k, t in spec.lit_effects:
                 assert t.lstrip("0") in norm or t in norm, (out_name, spec.header, body, t)
+            before = "".join(out)
+            for k, t in reversed(spec.pre_effects):
+                # written just before the result, only separators (and the next pre effect) in between
+                m_pre = re.search(re.escape(t) + r"[,;(\s]*(?:adjusted R² = [-.\d]+[,;(\s]*)?$", before)
+                assert m_pre, (out_name, spec.header, t, before[-60:])
             if spec.p not in ("auto", None):
                 t = spec.p[1]
                 if "e" not in t and not spec.pshared:
