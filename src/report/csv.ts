@@ -28,6 +28,8 @@ export const CSV_COLUMNS = [
   { name: 'line', numeric: true },
   { name: 'column', numeric: true },
   { name: 'kind', numeric: false },
+  // "H" (Kruskal-Wallis, kind chi2) or "rs" (Spearman, kind r): the symbol written when it is not the kind's own.
+  { name: 'symbol', numeric: false },
   { name: 'result text', numeric: false },
   { name: 'df1', numeric: true },
   { name: 'df2', numeric: true },
@@ -130,6 +132,7 @@ function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
     line: statistic.location.line,
     column: statistic.location.column,
     kind: statistic.kind,
+    symbol: statistic.symbol ?? '',
     'result text': oneLine(statistic.text),
     df1: finite(statistic.df[0]),
     df2: finite(statistic.df[1]),
@@ -145,7 +148,7 @@ function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
     'effect sizes': effectsCell(statistic),
     checked: rec.evaluable ? 'true' : 'false',
     ...findingColumns(statistic.findings),
-    note: rec.evaluable ? '' : oneLine(rec.reason ?? ''),
+    note: rec.evaluable ? (statistic.dfFrom === 'sample-size' ? 'df worked out from the sample size written after the result' : '') : oneLine(rec.reason ?? ''),
   };
 }
 

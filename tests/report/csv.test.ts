@@ -175,3 +175,17 @@ describe('formatCsv: the corpus-demo manuscripts', () => {
     for (const row of rows) expect(row).toHaveLength(HEADER.length);
   });
 });
+
+describe('formatCsv: symbols tested as another kind, and df worked out from n', () => {
+  it('writes the symbol beside the kind, and says when df were worked out from the sample size', () => {
+    const text = 'Sites differed, H(2) = 9.84, p = .007. Ranks correlated, rs(58) = .32, p = .013. Scores correlated, r = .30, p = .004, n = 90.';
+    const rows = records(formatCsv(buildReport([auditText(text, resolveConfig({}), 'symbols.txt')])));
+    expect(rows.map((row) => [row.kind, row.symbol])).toEqual([
+      ['chi2', 'H'],
+      ['r', 'rs'],
+      ['r', ''],
+    ]);
+    expect(rows[2]).toMatchObject({ df1: '88', note: 'df worked out from the sample size written after the result' });
+    expect(rows[0]!.note).toBe('');
+  });
+});
