@@ -67,6 +67,11 @@ function canonicalName(written: string): string {
   return written.toLowerCase().replace(/[^a-z0-9]/g, '');
 }
 
+/** "adj" (any case) from `start` to `end`: the one abbreviation with a period read inside an effect-size name. */
+function isAbbreviatedAdjusted(text: string, start: number, end: number): boolean {
+  return end - start === 3 && text.slice(start, end).toLowerCase() === 'adj';
+}
+
 export interface NameValueRead {
   /** Canonical name ("etap2"). */
   name: string;
@@ -102,6 +107,7 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
     // where a narrow column wrapped the name ("partial eta\nsquared").
     if ((gap === 32 || gap === 45 || gap === 10) && isNameCode(text.charCodeAt(at + 1))) at++;
     else if (gap === 13 && text.charCodeAt(at + 1) === 10 && isNameCode(text.charCodeAt(at + 2))) at += 2;
+    else if (gap === 46 && text.charCodeAt(at + 1) === 32 && isAbbreviatedAdjusted(text, wordStarts[words - 1]!, at)) at += 2; // "adj. R2"
     else break;
   }
   const comparatorAt = skipSpaces(text, nameEnd);

@@ -81,3 +81,24 @@ describe(`${rule} against statsmodels`, () => {
     expect(swapped).toBeGreaterThan(10);
   });
 });
+
+describe('R² as the scanner reads it', () => {
+  it.each([
+    ['The model fitted, F(3, 96) = 4.36, p = .006, R² = .12, adj. R² = .09.'],
+    ['The model fitted, R² = .12, adj. R² = .09, F(3, 96) = 4.36, p = .006.'],
+    ['The model fitted, R2 = .12, adjusted R2 = .09, F(3, 96) = 4.36, p = .006.'],
+  ])('%s: both read, no flag', (text) => {
+    const [statistic] = auditText(text, config, 'fit.txt').statistics;
+    expect(statistic?.effects.map((e) => [e.kind, e.value])).toEqual([
+      ['r-squared', 0.12],
+      ['adjusted-r-squared', 0.09],
+    ]);
+    expect(statistic?.findings).toEqual([]);
+  });
+
+  it('a change in R² before the F is not R²', () => {
+    for (const text of ['ΔR² = .05, F(1, 95) = 5.40, p = .022.', '∆R2 = .05; F(1, 95) = 5.40, p = .022.', 'Delta R2 = .05, F(1, 95) = 5.40, p = .022.']) {
+      expect(auditText(text, config, 'step.txt').statistics[0]?.effects, text).toEqual([]);
+    }
+  });
+});
