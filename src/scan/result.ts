@@ -141,7 +141,8 @@ function readTail(text: string, draft: ResultDraft): boolean {
         const n = named.value.value;
         draft.head = { ...draft.head, df: [plainNumber(String(n - 2), 0)], sampleSize: named.value, dfFromSampleSize: true };
         position = draft.end = named.end;
-        last = 'other';
+        // Like df written after the value, it leaves a p that follows directly after the head ("r = .30, n = 90, p = .004").
+        if (last !== 'head') last = 'other';
       } else {
         // "MSE = 12.4", "b = 0.3": reported alongside, not recorded, but the result continues.
         position = named.end;

@@ -1,16 +1,21 @@
 import { describe, expect, it } from 'vitest';
 import { auditText } from '../../src/audit.js';
 import { resolveConfig } from '../../src/checks/config.js';
+import { scanText } from '../../src/scan/scan.js';
 import { onlyResult } from './helpers.js';
 
 // r = .30 with n = 90 (df = 88): t = .30 * sqrt(88 / (1 - .09)) = 2.950, two-tailed p = .00407
 // (SciPy 1.10.1 scipy.stats.t.sf(2.950, 88) * 2, computed when the test was written).
 describe('a correlation written without df, its sample size after it', () => {
-  it.each(['r = .30, p = .004, n = 90', 'r = .30, p = .004, N = 90', 'r = .30, p = .004 (n = 90)'])('%s has df = n - 2', (written) => {
+  it.each(['r = .30, p = .004, n = 90', 'r = .30, p = .004, N = 90', 'r = .30, p = .004 (n = 90)', 'r = .30, n = 90, p = .004', 'r = .30 (N = 90), p = .004'])('%s has df = n - 2', (written) => {
     const result = onlyResult(`Scores correlated, ${written}.`);
     expect(result.df.map((df) => df.value)).toEqual([88]);
     expect(result.sampleSize?.value).toBe(90);
     expect(result.dfFrom).toBe('sample-size');
+  });
+
+  it('still needs a p to count as a result', () => {
+    expect(scanText('The correlation was r = .30, n = 90, in the pilot.').results).toEqual([]);
   });
 
   it('keeps printed df as printed', () => {
