@@ -5,10 +5,11 @@ import {
   fUpperTail,
   partialEtaSquaredFromF,
   rTwoTailed,
+  SPEARMAN_SERIES_UP_TO,
+  spearmanTwoTailed,
   tTwoTailed,
   zTwoTailed,
 } from '../stats/index.js';
-import { SPEARMAN_SERIES_UP_TO, spearmanTwoTailed } from '../stats/spearman.js';
 
 export interface Interval {
   low: number;

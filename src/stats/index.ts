@@ -4,6 +4,7 @@ export { tUpperTail, tTwoTailed } from './tDistribution.js';
 export { chiSquareUpperTail } from './chiSquareDistribution.js';
 export { zUpperTail, zTwoTailed } from './normalDistribution.js';
 export { rToT, rTwoTailed } from './correlation.js';
+export { spearmanTwoTailed, SPEARMAN_SERIES_UP_TO, type SpearmanUpperStep } from './spearman.js';
 export { noncentralFCdf, noncentralFUpperTail } from './noncentralF.js';
 export { studentizedRangeCdf, studentizedRangeUpperTail } from './studentizedRange.js';
 export { partialEtaSquaredInterval, noncentralityInterval } from './partialEtaSquaredInterval.js';
