@@ -96,6 +96,20 @@ export interface ReadNumber {
   end: number;
 }
 
+/**
+ * A number written with a comma ("4,21", ",046", "1,234") as the plain text
+ * parseReportedNumber reads: a decimal comma, except that exactly three
+ * digits after a non-zero whole part are a thousands group, the rule of
+ * readNumber's 'unlessThousands'. Text without a comma is returned as it is.
+ */
+export function commaNumberAsPoint(written: string): string {
+  const match = /^(-?)(\d*),(\d+)$/.exec(written);
+  if (match === null) return written;
+  const [, sign, whole, after] = match as unknown as [string, string, string, string];
+  const isThousands = after.length === 3 && whole !== '' && !/^0+$/.test(whole);
+  return isThousands ? `${sign}${whole}${after}` : `${sign}${whole}.${after}`;
+}
+
 /** A ReportedNumber for a plain decimal already known to be well formed ("-.32", "4.20", "1024"). */
 export function plainNumber(written: string, decimals: number): ReportedNumber {
   return { value: Number(written), text: written, decimals, exponent: 0 };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { readNumber } from '../../src/scan/cursor.js';
+import { commaNumberAsPoint, readNumber } from '../../src/scan/cursor.js';
 import { auditText } from '../../src/audit.js';
 import { resolveConfig } from '../../src/checks/config.js';
 import { dfTexts, onlyResult } from './helpers.js';
@@ -61,5 +61,28 @@ describe('decimal commas', () => {
     expect(readNumber('1,234,567.5 ', 0, true, 'unlessThousands')?.number).toMatchObject({ value: 1234567.5, decimals: 1 });
     expect(readNumber('4,21,', 0, true, 'unlessThousands')).toMatchObject({ number: { value: 4.21 }, end: 4 });
     expect(readNumber('- 2,5', 0, true, 'yes')?.number.value).toBe(-2.5);
+  });
+});
+
+describe('decimal commas in group statistics', () => {
+  const config = resolveConfig({});
+  const rules = (text: string): string[] => auditText(text, config, 'groups.txt').statistics.flatMap((s) => s.findings.map((f) => f.rule));
+  // Student's t from M = 4.21 (1.05) and 3.62 (1.10), n = 30 each: (4.21 - 3.62) / sqrt(1.05²/30 + 1.10²/30) = 2.12
+  // (the formula of scipy.stats.ttest_ind_from_stats, as in tests/fixtures/stats/gen_summary.py; arithmetic by hand).
+  const groups = 'the trained group (M = 4,21; SD = 1,05; n = 30) scored higher than the control group (M = 3,62; SD = 1,10; n = 30)';
+
+  it('are read in text, and checked against the test', () => {
+    expect(rules(`The groups differed: ${groups}, t(58) = 2,12; p = ,038.`)).toEqual([]);
+    expect(rules(`The groups differed: ${groups}, t(58) = 3,50; p = ,001.`)).toEqual(['group-statistics-test-mismatch']);
+  });
+
+  it('are read in a table written with decimal commas', () => {
+    const table = 'Table 1\nScores by group\n\n| Group | M (SD) | n |\n|---|---|---|\n| Trained | 4,21 (1,05) | 30 |\n| Control | 3,62 (1,10) | 30 |\n\n';
+    expect(rules(`${table}The groups in Table 1 differed, t(58) = 2,12; p = ,038.`)).toEqual([]);
+    expect(rules(`${table}The groups in Table 1 differed, t(58) = 3,50; p = ,001.`)).toEqual(['group-statistics-test-mismatch']);
+  });
+
+  it('commaNumberAsPoint: a decimal comma, or a thousands group of exactly three digits after a non-zero whole part', () => {
+    expect(['4,21', ',046', '0,123', '-2,5', '1,234', '12,3456', '4.21'].map(commaNumberAsPoint)).toEqual(['4.21', '.046', '0.123', '-2.5', '1234', '12.3456', '4.21']);
   });
 });

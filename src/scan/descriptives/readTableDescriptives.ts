@@ -14,7 +14,8 @@
  */
 
 import type { DocumentTable } from '../../documents/types.js';
-import { headerKey, readCell } from '../tables/cells.js';
+import { decimalSeparatorOf, headerKey, readCell, type DecimalSeparator } from '../tables/cells.js';
+import { commaNumberAsPoint } from '../cursor.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import type { ReportedNumber } from '../types.js';
 
@@ -52,24 +53,25 @@ function roleOf(cell: string): Role {
 
 const PER_GROUP = /\bn\s?=\s?(\d{1,5})\s?(?:per|in each|for each|each)\s(?:group|condition|cell|arm)s?\b|\b(\d{1,5})\s(?:per|in each|in every)\s(?:group|condition|cell|arm)\b/i;
 
-function numberOf(cell: string | undefined): ReportedNumber | null {
+function numberOf(cell: string | undefined, separator: DecimalSeparator): ReportedNumber | null {
   if (cell === undefined) return null;
-  const read = readCell(cell);
+  const read = readCell(cell, separator);
   return read.kind === 'number' && read.comparator === '=' ? read.number : null;
 }
 
-function countOf(cell: string | undefined): number | null {
-  const value = numberOf(cell);
+function countOf(cell: string | undefined, separator: DecimalSeparator): number | null {
+  const value = numberOf(cell, separator);
   return value !== null && value.decimals === 0 && Number.isInteger(value.value) && value.value >= 1 ? value.value : null;
 }
 
-/** "3.47 (1.21)" -> mean and SD. */
-function pairOf(cell: string | undefined): { mean: ReportedNumber; sd: ReportedNumber } | null {
+/** "3.47 (1.21)" -> mean and SD; "3,47 (1,21)" in a table written with decimal commas. */
+function pairOf(cell: string | undefined, separator: DecimalSeparator): { mean: ReportedNumber; sd: ReportedNumber } | null {
   if (cell === undefined || cell.length > 40) return null;
-  const match = /^\s*(-?\d{0,7}\.?\d{1,7})\s?\(\s?(\d{0,7}\.?\d{1,7})\s?\)\s*$/.exec(cell.replace(/\u2212/g, '-'));
+  const match = /^\s*(-?\d{0,7}[.,]?\d{1,7})\s?\(\s?(\d{0,7}[.,]?\d{1,7})\s?\)\s*$/.exec(cell.replace(/\u2212/g, '-'));
   if (!match) return null;
-  const mean = parseReportedNumber(match[1]!);
-  const sd = parseReportedNumber(match[2]!);
+  const asPoint = (written: string): string => (separator === ',' ? written.replace(',', '.') : commaNumberAsPoint(written));
+  const mean = parseReportedNumber(asPoint(match[1]!));
+  const sd = parseReportedNumber(asPoint(match[2]!));
   return mean && sd ? { mean, sd } : null;
 }
 
@@ -81,13 +83,14 @@ export function readDescriptiveTable(table: DocumentTable): DescriptiveTable | n
   const perGroup = PER_GROUP.exec(context);
   const sharedN = perGroup ? Number(perGroup[1] ?? perGroup[2]) : null;
   const number = /\bTable\s+([A-Z]?\d{1,3}[A-Za-z]?)/.exec(table.caption ?? '')?.[1] ?? null;
-  const measures = readGroupsAsRows(rows, table.caption ?? '', sharedN) ?? readGroupsAsColumns(rows, table.caption ?? '', sharedN);
+  const separator = decimalSeparatorOf(rows);
+  const measures = readGroupsAsRows(rows, table.caption ?? '', sharedN, separator) ?? readGroupsAsColumns(rows, table.caption ?? '', sharedN, separator);
   if (measures === null || measures.length === 0) return null;
   return { table, number, measures };
 }
 
-function readGroupsAsRows(rows: string[][], caption: string, sharedN: number | null): TableMeasure[] | null {
-  const headerCount = rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell).kind === 'number' || pairOf(cell) !== null));
+function readGroupsAsRows(rows: string[][], caption: string, sharedN: number | null, separator: DecimalSeparator): TableMeasure[] | null {
+  const headerCount = rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || pairOf(cell, separator) !== null));
   if (headerCount < 1 || headerCount > 3) return null;
   const header = rows[headerCount - 1]!;
   const upper = headerCount >= 2 ? rows[headerCount - 2]! : null;
@@ -127,15 +130,15 @@ function readGroupsAsRows(rows: string[][], caption: string, sharedN: number | n
       let mean: ReportedNumber | null;
       let sd: ReportedNumber | null;
       if (measure.paired) {
-        const pair = pairOf(row[measure.meanColumn]);
+        const pair = pairOf(row[measure.meanColumn], separator);
         mean = pair?.mean ?? null;
         sd = pair?.sd ?? null;
       } else {
-        mean = numberOf(row[measure.meanColumn]);
-        sd = measure.sdColumn === null ? null : numberOf(row[measure.sdColumn]);
+        mean = numberOf(row[measure.meanColumn], separator);
+        sd = measure.sdColumn === null ? null : numberOf(row[measure.sdColumn], separator);
       }
       if (mean === null) continue;
-      const ownN = nColumn >= 0 ? countOf(row[nColumn]) : null;
+      const ownN = nColumn >= 0 ? countOf(row[nColumn], separator) : null;
       groups.push({
         label,
         mean,
@@ -149,7 +152,7 @@ function readGroupsAsRows(rows: string[][], caption: string, sharedN: number | n
   return out;
 }
 
-function readGroupsAsColumns(rows: string[][], caption: string, sharedN: number | null): TableMeasure[] | null {
+function readGroupsAsColumns(rows: string[][], caption: string, sharedN: number | null, separator: DecimalSeparator): TableMeasure[] | null {
   const labels = rows.map((row) => roleOf(row[0] ?? ''));
   const meanRow = labels.indexOf('mean');
   if (meanRow < 1 || labels.filter((role) => role === 'mean').length !== 1) return null;
@@ -158,13 +161,13 @@ function readGroupsAsColumns(rows: string[][], caption: string, sharedN: number 
   const header = rows[0]!;
   const groups: TableGroup[] = [];
   for (let column = 1; column < header.length; column++) {
-    const mean = numberOf(rows[meanRow]![column]);
+    const mean = numberOf(rows[meanRow]![column], separator);
     if (mean === null) continue;
-    const ownN = nRow >= 0 ? countOf(rows[nRow]![column]) : null;
+    const ownN = nRow >= 0 ? countOf(rows[nRow]![column], separator) : null;
     groups.push({
       label: (header[column] ?? '').trim(),
       mean,
-      sd: sdRow >= 0 ? numberOf(rows[sdRow]![column]) : null,
+      sd: sdRow >= 0 ? numberOf(rows[sdRow]![column], separator) : null,
       n: ownN ?? sharedN,
       nSource: ownN !== null ? 'group' : sharedN !== null ? 'paragraph' : null,
     });

@@ -15,6 +15,7 @@
 
 import { normaliseText } from '../normalise.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
+import { commaNumberAsPoint } from '../cursor.js';
 import type { ReportedNumber } from '../types.js';
 
 /** One group's numbers as found in the text, with offsets into the original text. */
@@ -27,9 +28,10 @@ export interface TextGroup {
 }
 
 // Unambiguous: digits with an optional fraction, or a bare fraction (".85"), so no digit can be
-// matched two ways (an ambiguous split made the patterns slow on long runs of digits).
-const NUMBER = String.raw`(-?(?:\d{1,7}(?:\.\d{1,7})?|\.\d{1,7}))`;
-const UNSIGNED = String.raw`((?:\d{1,7}(?:\.\d{1,7})?|\.\d{1,7}))`;
+// matched two ways (an ambiguous split made the patterns slow on long runs of digits). The
+// fraction may follow a decimal comma ("M = 4,21"; see commaNumberAsPoint for "1,234").
+const NUMBER = String.raw`(-?(?:\d{1,7}(?:[.,]\d{1,7})?|[.,]\d{1,7}))`;
+const UNSIGNED = String.raw`((?:\d{1,7}(?:[.,]\d{1,7})?|[.,]\d{1,7}))`;
 const LABELLED = new RegExp(
   String.raw`\b(?:n\s?=\s?(\d{1,6})\s?[,;]\s?)?(?:M|Mean|mean)\s?[=:]\s?${NUMBER}\s?(?:[,;]\s?|\(\s?)(?:SD|S\.D\.|sd|s\.d\.)\s?[=:]\s?${UNSIGNED}\s?\)?(?:\s?[,;]\s?n\s?=\s?(\d{1,6})\b)?`,
   'g',
@@ -37,13 +39,13 @@ const LABELLED = new RegExp(
 const DECLARED =
   /\b(?:M\s?\(\s?SD\s?\)|Ms\s?\(\s?SDs\s?\)|means?\s?\(\s?SDs?\s?\)|means?\s?\(\s?standard deviations?\s?\)|means? and (?:\(\s?)?standard deviations?)/gi;
 // A pair starts at the start of a number, never inside one (which also keeps the search linear).
-const PAIR = new RegExp(String.raw`(?<![\d.])${NUMBER}\s?\(\s?${UNSIGNED}\s?(?:[,;]\s?n\s?=\s?(\d{1,6})\s?)?\)`, 'g');
+const PAIR = new RegExp(String.raw`(?<![\d.]|\d,)${NUMBER}\s?\(\s?${UNSIGNED}\s?(?:[,;]\s?n\s?=\s?(\d{1,6})\s?)?\)`, 'g');
 
 /** Longest stretch after a declaration ("means (SDs) were") read for pairs. */
 const MAX_DECLARED_SPAN = 400;
 
 function parse(text: string | undefined): ReportedNumber | null {
-  return text === undefined ? null : parseReportedNumber(text);
+  return text === undefined ? null : parseReportedNumber(commaNumberAsPoint(text));
 }
 
 /** Offset of the end of the sentence that contains `from` (". " + capital, a blank line), at most `limit` on. */
