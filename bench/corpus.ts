@@ -22,21 +22,11 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
+import { seededRandom } from './seededRandom.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const cli = join(here, '..', 'src', 'cli', 'main.js');
 const perFormat = Number(process.argv[2] ?? 200);
-
-/** Deterministic pseudo-random numbers (mulberry32). */
-function seeded(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(state ^ (state >>> 15), 1 | state);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** About eight pages per PDF with fifteen results: the length of a short empirical article. */
 const FILLER_LINES_PER_RESULT = 12;
@@ -53,7 +43,7 @@ function printedP(p: number, random: () => number): string {
 
 /** About fifteen results per manuscript, ASCII only (the standard PDF fonts have no Greek); most consistent, as in real papers. */
 function manuscript(index: number): string[] {
-  const random = seeded(1000 + index);
+  const random = seededRandom(1000 + index);
   const lines = [`Study ${index}: an invented manuscript for the benchmark`, ''];
   for (let paragraph = 0; paragraph < 15; paragraph += 1) {
     const df2 = 40 + Math.floor(random() * 160);

@@ -13,20 +13,10 @@
  */
 
 import { scanText } from '../src/scan/scan.js';
+import { seededRandom } from './seededRandom.js';
 
 const DEFAULT_MEGABYTES = 10;
 const REPETITIONS = 5;
-
-/** Deterministic pseudo-random numbers (mulberry32), so every run scans the same text. */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let mixed = Math.imul(state ^ (state >>> 15), 1 | state);
-    mixed = (mixed + Math.imul(mixed ^ (mixed >>> 7), 61 | mixed)) ^ mixed;
-    return ((mixed ^ (mixed >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const WORDS = (
   'the participants were asked to rate each item on a scale and responses were averaged across trials ' +
