@@ -106,8 +106,12 @@ export function commaNumberAsPoint(written: string): string {
   const match = /^(-?)(\d*),(\d+)$/.exec(written);
   if (match === null) return written;
   const [, sign, whole, after] = match as unknown as [string, string, string, string];
-  const isThousands = after.length === 3 && whole !== '' && !/^0+$/.test(whole);
-  return isThousands ? `${sign}${whole}${after}` : `${sign}${whole}.${after}`;
+  return isThousandsGroup(whole, after.length) ? `${sign}${whole}${after}` : `${sign}${whole}.${after}`;
+}
+
+/** The thousands rule for a comma: exactly three digits after a whole part of one to three digits that is not zero ("1,234", not "0,123" or "4,21"). */
+function isThousandsGroup(whole: string, digitsAfterComma: number): boolean {
+  return digitsAfterComma === 3 && whole.length >= 1 && whole.length <= 3 && !/^0+$/.test(whole);
 }
 
 /** A ReportedNumber for a plain decimal already known to be well formed ("-.32", "4.20", "1024"). */
@@ -155,7 +159,7 @@ export function readNumber(text: string, position: number, allowSign = true, dec
   if (separator === 44 && decimalComma !== 'no' && isAsciiDigit(text.charCodeAt(at + 1))) {
     const groupEnd = readDigits(text, at + 1);
     if (groupEnd === -1) return null;
-    const isThousands = decimalComma === 'unlessThousands' && groupEnd - at - 1 === 3 && whole.length >= 1 && whole.length <= 3 && !/^0+$/.test(whole);
+    const isThousands = decimalComma === 'unlessThousands' && isThousandsGroup(whole, groupEnd - at - 1);
     if (!isThousands) {
       const fraction = text.slice(at + 1, groupEnd);
       return { number: plainNumber(`${sign}${whole}.${fraction}`, fraction.length), start: position, end: groupEnd };
