@@ -2,9 +2,9 @@ import { writeFileSync } from 'node:fs';
 import { Option, type Command } from 'commander';
 import type { ResolvedConfig } from '../checks/config.js';
 import type { UserConfig } from '../checks/userConfig.js';
-import { documentOf, entryJson, type AuditEntry } from '../batch/entry.js';
+import { documentOf, entryJson, entryOf, type AuditEntry } from '../batch/entry.js';
 import { buildReport, reportHead } from '../report/build.js';
-import { documentJson, formatJson, formatJsonParts } from '../report/json.js';
+import { formatJsonParts } from '../report/json.js';
 import type { Report, Summary } from '../report/model.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
@@ -82,11 +82,9 @@ export async function formatReport(input: ReportInput, format: ReportFormat, col
     return formatReport(buildReport(input.entries.map(documentOf)), format, color, showAll);
   }
   const report = input;
+  // The JSON formats are written one way, from each document's JSON.
+  if (format === 'json' || format === 'jsonl') return formatReport({ entries: report.documents.map(entryOf), summary: report.summary }, format, color, showAll);
   switch (format) {
-    case 'json':
-      return formatJson(report);
-    case 'jsonl':
-      return report.documents.map((d) => `${documentJson(d)}\n`).join('');
     case 'text':
       return (await import('../report/console.js')).formatConsole(report, { color, showAll });
     case 'html':
