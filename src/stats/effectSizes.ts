@@ -23,6 +23,10 @@
  *   Student's pooled-variance t for two independent groups.
  * - cohensDzFromTPaired: d_z = t / sqrt(n) (Lakens 2013, eq. 7), paired or
  *   one-sample t with n pairs.
+ * - adjustedRSquared: 1 - (1 - R^2)(N - 1) / (N - k - 1) for a model with an
+ *   intercept and k = df1 predictors, N - k - 1 = df2 (as statsmodels'
+ *   rsquared_adj computes it); R^2 itself is partialEtaSquaredFromF of the
+ *   model's F (Cohen, Cohen, West & Aiken 2003, quoted from memory).
  *
  * ## References
  * - Lakens, D. (2013). Calculating and reporting effect sizes to facilitate
@@ -41,6 +45,11 @@ export function partialEtaSquaredFromF(f: number, df1: number, df2: number): num
   if (!(f >= 0) || !(df1 > 0) || !(df2 > 0)) return NaN;
   if (f === Infinity) return 1;
   return (f * df1) / (f * df1 + df2);
+}
+
+/** Adjusted R² from R² and the model F's df (df1 = predictors, df2 = residual df); increasing in R². */
+export function adjustedRSquared(rSquared: number, df1: number, df2: number): number {
+  return 1 - ((1 - rSquared) * (df1 + df2)) / df2;
 }
 
 /** Partial omega squared for a between-subjects effect, F(df1, df2) with totalN observations. */

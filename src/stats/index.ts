@@ -10,6 +10,7 @@ export { studentizedRangeCdf, studentizedRangeUpperTail } from './studentizedRan
 export { partialEtaSquaredInterval, noncentralityInterval } from './partialEtaSquaredInterval.js';
 export {
   partialEtaSquaredFromF,
+  adjustedRSquared,
   partialOmegaSquaredFromF,
   cohensFFromPartialEtaSquared,
   rFromT,

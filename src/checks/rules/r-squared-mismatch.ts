@@ -5,21 +5,13 @@ import { describeEffect, describeStatistic } from '../describe.js';
 import { formatRange, formatValue } from '../format.js';
 import { effectAgrees } from '../effectAgreement.js';
 import type { Interval } from '../recompute.js';
+import { adjustedRSquared } from '../../stats/index.js';
 
 const optionsSchema = z.object({}).strict();
 
 /** effectAgrees for a value that may be negative (adjusted R² of a weak model): compared on the mirrored side. */
 function agrees(printed: ReportedNumber, range: Interval): boolean {
   return printed.value < 0 ? effectAgrees({ ...printed, value: -printed.value }, { low: -range.high, high: -range.low }) : effectAgrees(printed, range);
-}
-
-/**
- * Adjusted R² from R² and the model F's df: 1 - (1 - R²)(N - 1) / (N - k - 1)
- * with k = df1 and N - k - 1 = df2 (a model with an intercept), so N - 1 =
- * df1 + df2. Increasing in R².
- */
-export function adjustedRSquared(rSquared: number, df1: number, df2: number): number {
-  return 1 - ((1 - rSquared) * (df1 + df2)) / df2;
 }
 
 /**

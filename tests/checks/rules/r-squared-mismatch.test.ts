@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditText } from '../../../src/audit.js';
 import { resolveConfig } from '../../../src/checks/config.js';
-import { adjustedRSquared } from '../../../src/checks/rules/r-squared-mismatch.js';
-import { partialEtaSquaredFromF } from '../../../src/stats/index.js';
+import { adjustedRSquared, partialEtaSquaredFromF } from '../../../src/stats/index.js';
 import { loadFixture } from '../../stats/referenceFixtures.js';
 import { flagsOf } from '../helpers.js';
 
