@@ -31,6 +31,8 @@ export function pAgrees(printed: ReportedP, recomputed: Interval, allowTruncatio
     // An inequality is read leniently: "p < .05" also accepts a p that rounds to .05 at the printed precision.
     case '<':
     case '<=':
+      // "p < .0000" (output that printed a rounded zero with a "<") claims what "p = .0000" claims.
+      if (value === 0) return pAgrees({ ...printed, comparator: '=' }, recomputed, allowTruncation);
       return recomputed.low <= value + slack(value);
     case '>':
     case '>=':

@@ -12,6 +12,11 @@
  * Word-to-text) emphasis markers around short spans are dropped, so "*t*(46.8)",
  * "**F**(2, 57)", "_p_ = .03", "*p*s" and "*η*p2" read as "t(46.8)", "F(2, 57)",
  * "p = .03", "ps" and "etap2"; "F_{1,44}", "η_p^2" and "1.2*10^-5" are kept.
+ * LaTeX and MathJax left in web text are read as the formula they stand for:
+ * "$", "$$", "\(" and "\)" are dropped, Greek letters and relations are
+ * spelled as above ("$$\chi^2$$(2, N = 188)" -> "chi^2(2, N = 188)",
+ * "\(\eta_{p}^{2}\)" -> "eta_{p}^{2}", "\leq" -> "<="), and font commands
+ * keep their argument ("\textit{F}(1, 52)" -> "F(1, 52)").
  *
  * Linear time: one pass of a single regular expression finds the characters
  * that need work; the plain-ASCII stretches between them are copied as whole
@@ -32,10 +37,10 @@ export interface NormalisedText {
 /**
  * Characters needing work: anything outside ASCII, "*" and "_" (possible
  * emphasis markers; one class with the non-ASCII range, because a separate
- * alternative makes the search markedly slower), and an ASCII hyphen at a
- * line end.
+ * alternative makes the search markedly slower), "$" and "\\" (LaTeX left in
+ * web text), and an ASCII hyphen at a line end.
  */
-const NEEDS_WORK = /[^\x00-\x29\x2B-\x5E\x60-\x7F]|-[ \t]*\r?\n/g;
+const NEEDS_WORK = /[^\x00-\x23\x25-\x29\x2B-\x5B\x5D\x5E\x60-\x7F]|-[ \t]*\r?\n/g;
 
 /** Single-character replacements (the value may be empty, or longer than one character). */
 const REPLACEMENTS: ReadonlyMap<number, string> = buildReplacementTable();
@@ -279,7 +284,7 @@ function nextNeedingWorkNearby(text: string, from: number): number {
   const limit = Math.min(text.length, from + NEARBY_SEARCH);
   for (let at = from; at < limit; at++) {
     const code = text.charCodeAt(at);
-    if (code >= 128 || code === 42 || code === 95) return at;
+    if (code >= 128 || code === 42 || code === 95 || code === 36 || code === 92) return at;
     if (code === 45 && isLineEndHyphen(text, at)) return at;
   }
   return -1;
@@ -309,6 +314,14 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
       return at + 1;
     }
   }
+
+  if (code === 36) {
+    // "$" or "$$" around inline or display mathematics.
+    const length = original.charCodeAt(at + 1) === 36 ? 2 : 1;
+    builder.replace(at, length, '');
+    return at + length;
+  }
+  if (code === 92) return rewriteLatexCommand(original, at, builder);
 
   if (code === 0x00b7) {
     // Middle dot: a decimal point between digits ("0·05"), a multiplication sign elsewhere.
@@ -520,3 +533,87 @@ const MATH_GREEK: Readonly<Record<number, string>> = {
   52: 'epsilon',
   55: 'phi',
 };
+
+/** LaTeX commands spelled the way the scanner reads their glyphs (see REPLACEMENTS). */
+const LATEX_WORDS: ReadonlyMap<string, string> = new Map([
+  ['alpha', 'alpha'],
+  ['beta', 'beta'],
+  ['chi', 'chi'],
+  ['Chi', 'chi'],
+  ['eta', 'eta'],
+  ['omega', 'omega'],
+  ['Omega', 'omega'],
+  ['phi', 'phi'],
+  ['varphi', 'phi'],
+  ['Phi', 'phi'],
+  ['rho', 'rho'],
+  ['epsilon', 'epsilon'],
+  ['varepsilon', 'epsilon'],
+  ['le', '<='],
+  ['leq', '<='],
+  ['leqslant', '<='],
+  ['ge', '>='],
+  ['geq', '>='],
+  ['geqslant', '>='],
+  ['lt', '<'],
+  ['gt', '>'],
+  ['times', 'x'],
+  ['cdot', '*'],
+  ['left', ''],
+  ['right', ''],
+]);
+
+/** Font and text commands whose short argument is kept without its braces: "\textit{F}" -> "F". */
+const LATEX_FONT_COMMANDS = new Set(['text', 'textit', 'textrm', 'textbf', 'textsf', 'mathit', 'mathrm', 'mathbf', 'mathsf', 'mathcal', 'emph', 'boldsymbol', 'bm', 'operatorname', 'mbox']);
+/** Longest argument of a font command that is unwrapped. */
+const MAX_FONT_ARGUMENT = 24;
+/** Longest command name read. */
+const MAX_COMMAND_NAME = 14;
+
+/**
+ * A backslash at `at`: "\(" "\)" "\[" "\]" are dropped, "\," and the other
+ * spacing commands become a space, Greek letters and relations are spelled
+ * out, a font command keeps its argument. Anything else is copied as it is.
+ */
+function rewriteLatexCommand(original: string, at: number, builder: NormalisationBuilder): number {
+  const next = original.charCodeAt(at + 1);
+  if (next === 40 || next === 41 || next === 91 || next === 93) {
+    builder.replace(at, 2, '');
+    return at + 2;
+  }
+  if (next === 44 || next === 59 || next === 58 || next === 32) {
+    builder.replace(at, 2, ' ');
+    return at + 2;
+  }
+  if (next === 33) {
+    builder.replace(at, 2, '');
+    return at + 2;
+  }
+  let nameEnd = at + 1;
+  while (nameEnd < original.length && nameEnd - at <= MAX_COMMAND_NAME && isAsciiLetterAt(original, nameEnd)) nameEnd++;
+  const name = original.slice(at + 1, nameEnd);
+  const word = LATEX_WORDS.get(name);
+  if (word !== undefined && !isAsciiLetterAt(original, nameEnd)) {
+    builder.replace(at, nameEnd - at, word);
+    return nameEnd;
+  }
+  if (LATEX_FONT_COMMANDS.has(name) && original.charCodeAt(nameEnd) === 123) {
+    const close = original.indexOf('}', nameEnd + 1);
+    const argument = close === -1 ? '' : original.slice(nameEnd + 1, close);
+    if (close !== -1 && argument.length <= MAX_FONT_ARGUMENT && !/[{\n\\]/.test(argument)) {
+      builder.replace(at, nameEnd + 1 - at, '');
+      for (let cursor = nameEnd + 1; cursor < close; ) {
+        const code = original.charCodeAt(cursor);
+        if (code >= 128 || code === 36) cursor = rewriteAt(original, cursor, builder);
+        else {
+          builder.copy(cursor, cursor + 1);
+          cursor++;
+        }
+      }
+      builder.replace(close, 1, '');
+      return close + 1;
+    }
+  }
+  builder.copy(at, at + 1);
+  return at + 1;
+}

@@ -11,8 +11,9 @@ import {
   readScientificNumber,
   skipSpaces,
   startsWord,
+  type ReadNumber,
 } from './cursor.js';
-import type { ReportedP } from './types.js';
+import type { Comparator, ReportedP } from './types.js';
 
 /** Longest parenthesised or subscripted qualifier read after "p" ("(two-tailed)", "_Holm"). */
 const MAX_QUALIFIER = 28;
@@ -52,18 +53,76 @@ export function readPValue(text: string, position: number, asWritten = false): R
   at = skipQualifier(text, at);
 
   at = skipSpaces(text, at);
-  const comparator = readComparator(text, at);
-  if (comparator === null) return null;
-  at = skipSpaces(text, at + comparator.length);
+  const sign = readDamagedComparator(text, at, asWritten);
+  if (sign === null) return null;
+  at = skipSpaces(text, at + sign.length);
   // A p is at most 1, so a comma before digits can only be a decimal comma ("p = 0,046", "p = ,046").
-  const read = readScientificNumber(text, at, 'yes');
+  const read = readScientificNumber(text, at, 'yes') ?? readSpacedFraction(text, at);
   if (read === null || !endsWord(text, read.end)) return null;
   const value = read.number;
+  // A bare "p 0.05" (its sign lost): a conventional threshold had a "<"; any other value an "=".
+  // Damaged signs are read only before a probability: "p 12" is a page.
+  if (sign.damaged && !(value.value >= 0 && value.value <= 1)) return null;
+  const comparator = sign.comparator ?? (isConventionalThreshold(value.value) ? '<' : '=');
   // A probability above 1 is not a p-value ("p = 12" is a page or a count), unless it is read as written.
   if (value.value < 0 || value.value > 1) {
     if (!asWritten || Math.abs(value.value) >= MAX_OUT_OF_RANGE_P) return null;
   }
-  return { comparator: comparator.comparator, value, plural, start: position, end: read.end };
+  return { comparator, value, plural, start: position, end: read.end };
+}
+
+/** The comparator after "p", as written or as text extraction damaged it; `comparator` null when it was lost. */
+interface PComparator {
+  comparator: Comparator | null;
+  /** Characters from the comparator's start to just after it. */
+  length: number;
+  /** Read from damaged text ("p b 0.01", "p 0.05"). */
+  damaged: boolean;
+}
+
+/**
+ * Reads the comparator after "p", including what PDF text extraction makes
+ * of it: "p = < .05" and "p = <.001" (both signs kept: the inequality
+ * counts), "p b 0.01" and "p N 0.05" (a symbol font's "<" and ">" extracted
+ * as letters), and, right after a statistic (`afterStatistic`), no sign at
+ * all: "p 0.05", whose sign was lost.
+ */
+function readDamagedComparator(text: string, at: number, afterStatistic: boolean): PComparator | null {
+  const comparator = readComparator(text, at);
+  if (comparator !== null) {
+    if (comparator.comparator === '=') {
+      const inequalityAt = skipSpaces(text, at + comparator.length);
+      const inequality = readComparator(text, inequalityAt);
+      if (inequality !== null && inequality.comparator !== '=') return { comparator: inequality.comparator, length: inequalityAt + inequality.length - at, damaged: false };
+    }
+    return { comparator: comparator.comparator, length: comparator.length, damaged: false };
+  }
+  const code = text.charCodeAt(at);
+  if ((code === 98 || code === 78) && text.charCodeAt(at + 1) === 32 && startsNumber(text, at + 2)) {
+    return { comparator: code === 98 ? '<' : '>', length: 1, damaged: true };
+  }
+  if (afterStatistic && at > 0 && text.charCodeAt(at - 1) === 32 && startsNumber(text, at)) return { comparator: null, length: 0, damaged: true };
+  return null;
+}
+
+function startsNumber(text: string, at: number): boolean {
+  const code = text.charCodeAt(at);
+  return (code >= 48 && code <= 57) || (code === 46 && text.charCodeAt(at + 1) >= 48 && text.charCodeAt(at + 1) <= 57);
+}
+
+/** .05, .01, .001, .005, .0001 and .10: the thresholds a "<" is written with. */
+function isConventionalThreshold(value: number): boolean {
+  return [0.1, 0.05, 0.01, 0.005, 0.001, 0.0001].includes(value);
+}
+
+/** "p =. 318": a decimal point set apart from its digits by text extraction, read as ".318". */
+function readSpacedFraction(text: string, at: number): ReadNumber | null {
+  if (text.charCodeAt(at) !== 46 || text.charCodeAt(at + 1) !== 32) return null;
+  let end = at + 2;
+  while (end < text.length && end - at < 12 && text.charCodeAt(end) >= 48 && text.charCodeAt(end) <= 57) end++;
+  const digits = text.slice(at + 2, end);
+  if (digits === '') return null;
+  return { number: { value: Number(`0.${digits}`), text: `.${digits}`, decimals: digits.length, exponent: 0 }, start: at, end };
 }
 
 /** Skips "-value", " value", "value" (from a joined line break), with an optional plural "s". */

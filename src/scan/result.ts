@@ -47,6 +47,7 @@ export function readResult(text: string, position: number, comparatorAt = -1): R
   const draft: ResultDraft = { head, end: head.end, p: null, notSignificant: false, effects: [] };
   const directP = readTail(text, draft);
   if (head.needsP && !directP) return null;
+  if (head.needsTrailingDf === true && draft.head.df.length === 0) return null;
   return draft;
 }
 

@@ -138,7 +138,7 @@ function canStartSymbol(code: number): boolean {
  */
 const HEAD_CHARACTERS: Uint8Array = (() => {
   const table = new Uint8Array(128);
-  for (const character of '0123456789 \t\n\r()[]{},;._^-=FtrzZcChiquaredsSfNnxXHo') table[character.charCodeAt(0)] = 1;
+  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtrzZcChiquaredsSfNnxXHoglGlI') table[character.charCodeAt(0)] = 1;
   return table;
 })();
 

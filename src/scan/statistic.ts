@@ -39,6 +39,8 @@ export interface StatisticHead {
    * follows directly, because "r = 2.5 cm" or "t1 = 3.2" are not tests.
    */
   needsP: boolean;
+  /** A symbol trusted only with its df ("X2"), which must then follow the value ("X2 = 18.4, df = 4"). */
+  needsTrailingDf?: boolean;
 }
 
 /**
@@ -51,8 +53,10 @@ interface SymbolRead {
   kind: StatisticKind;
   symbol?: StatisticSymbol;
   end: number;
-  /** "X2": only trusted with degrees of freedom in brackets. */
+  /** "X2": only trusted with degrees of freedom in brackets... */
   requiresBracketedDf: boolean;
+  /** ...or written after the value ("X2 = 18.4, df = 4"). */
+  acceptsTrailingDf?: boolean;
 }
 
 /** Reads the statistic symbol at `position`, or null. */
@@ -98,6 +102,8 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
   if (text.charCodeAt(at) === 50 && !isAsciiDigit(text.charCodeAt(at + 1))) {
     return { kind: 'chi2', end: at + 1, requiresBracketedDf: false };
   }
+  // "chi^{2}", as LaTeX writes it.
+  if (text.startsWith('^{2}', position + 3)) return { kind: 'chi2', end: position + 7, requiresBracketedDf: false };
   at = position + 3;
   const joiner = text.charCodeAt(at);
   if (joiner === 45 || joiner === 32) at++;
@@ -126,6 +132,11 @@ function spearmanSymbol(text: string, position: number): SymbolRead | null {
       return { kind: 'r', symbol: 'rs', end: position + written.length, requiresBracketedDf: false };
     }
   }
+  // "r s (34)": the subscript set apart from its r, as web pages and PDFs flatten it; only with bracketed df.
+  if (text.startsWith('r s', position) && !isAsciiLetter(text.charCodeAt(position + 3))) {
+    const bracket = skipSpaces(text, position + 3);
+    if (OPENING_BRACKETS.has(text.charCodeAt(bracket))) return { kind: 'r', symbol: 'rs', end: position + 3, requiresBracketedDf: true };
+  }
   return null;
 }
 
@@ -133,10 +144,12 @@ function spearmanSymbol(text: string, position: number): SymbolRead | null {
 function chiSquareLetterX(text: string, position: number): SymbolRead | null {
   let at = position + 1;
   if (text.charCodeAt(at) === 94) at++;
+  // "X 2 (2, N = 188)": the superscript set apart, as PDF text gives it.
+  else if (text.charCodeAt(at) === 32 && text.charCodeAt(at + 1) === 50) at++;
   if (text.charCodeAt(at) !== 50 || isAsciiDigit(text.charCodeAt(at + 1)) || isAsciiLetter(text.charCodeAt(at + 1))) {
     return null;
   }
-  return { kind: 'chi2', end: at + 1, requiresBracketedDf: true };
+  return { kind: 'chi2', end: at + 1, requiresBracketedDf: true, acceptsTrailingDf: at === position + 1 };
 }
 
 const OPENING_BRACKETS = new Set([40, 91, 123]); // ( [ {
@@ -165,27 +178,46 @@ function readDf(text: string, position: number, allowThousands: boolean): { numb
   return read;
 }
 
-/** Skips an optional "df =" or "df:" label inside the brackets. */
+/** How df are labelled inside brackets: "df", "gl" (Spanish, Portuguese), "ddl" (French), "FG" (German). */
+const DF_LABELS = ['df', 'gl', 'ddl', 'dl', 'FG', 'fg'];
+
+/** Skips an optional "df =" or "df:" label (or its translation, DF_LABELS) inside the brackets. */
 function skipDfLabel(text: string, position: number): number {
-  if (text.charCodeAt(position) !== 100 || text.charCodeAt(position + 1) !== 102) return position; // "df"
-  let at = skipSpaces(text, position + 2);
+  const label = DF_LABELS.find((word) => text.startsWith(word, position) && !isAsciiLetter(text.charCodeAt(position + word.length)));
+  if (label === undefined) return position;
+  let at = skipSpaces(text, position + label.length);
   const code = text.charCodeAt(at);
   if (code !== 61 && code !== 58) return position;
   at = skipSpaces(text, at + 1);
   return at;
 }
 
+/**
+ * "l" or "I" standing alone where a df of 1 belongs ("F(l, 57)"): a slip of
+ * optical character recognition, read as 1 only when a separator or the
+ * closing bracket follows, so no word can be meant.
+ */
+function readOcrOne(text: string, position: number): { number: ReportedNumber; end: number } | null {
+  const code = text.charCodeAt(position);
+  if (code !== 108 && code !== 73) return null; // l, I
+  const after = text.charCodeAt(skipSpaces(text, position + 1));
+  if (after !== 44 && after !== 59 && !CLOSING_BRACKETS.has(after)) return null;
+  return { number: plainNumber('1', 0), end: position + 1 };
+}
+
 /** Reads the bracketed df of any statistic: "(2, 57)", "[1, 44]", "(45.3)", "(2, N = 120)". */
 function readBracketedDf(text: string, position: number, kind: StatisticKind): DfRead | null {
   if (!OPENING_BRACKETS.has(text.charCodeAt(position))) return null;
   let at = skipDfLabel(text, skipSpaces(text, position + 1));
-  const first = readDf(text, at, kind !== 'F');
+  const first = readDf(text, at, kind !== 'F') ?? readOcrOne(text, at);
   if (first === null) return null;
   const df = [first.number];
   let sampleSize: ReportedNumber | null = null;
   at = skipSpaces(text, first.end);
   const separator = text.charCodeAt(at);
-  if (separator === 44 || separator === 59) {
+  // F's two df may also stand apart by a dash ("F(3–112)", en dash normalised to "-") or a slash ("F(1/40)").
+  const fSeparator = kind === 'F' && (separator === 45 || separator === 47);
+  if (separator === 44 || separator === 59 || fSeparator) {
     at = skipSpaces(text, at + 1);
     if (kind === 'F') {
       const second = readDf(text, skipDfLabel(text, at), false);
@@ -276,10 +308,18 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   let dfRead: DfRead | null = null;
   if (symbol.kind !== 'z') {
     dfRead = readSubscriptDf(text, at, symbol.kind) ?? readBracketedDf(text, skipSpaces(text, at), symbol.kind);
+    // "F1(1, 31) = 6.02; F2(1, 46) = 3.95": by-participant and by-item analyses, each an F test with its own bracketed df.
+    if (dfRead === null && symbol.kind === 'F' && isByParticipantOrItem(text, at)) {
+      dfRead = readBracketedDf(text, skipSpaces(text, at + 1), 'F');
+    }
     // Digits glued to the symbol that are not a valid subscript ("F1 = 0.83", "F2 gas") end the matter.
     if (dfRead === null && isAsciiDigit(text.charCodeAt(at))) return null;
   }
-  if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) return null;
+  let needsTrailingDf = false;
+  if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) {
+    if (!(symbol.acceptsTrailingDf === true && dfRead === null)) return null;
+    needsTrailingDf = true;
+  }
   if (dfRead !== null) at = dfRead.end;
 
   const comparatorAt = skipSpaces(text, at);
@@ -307,8 +347,16 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     sampleSize: dfRead?.sampleSize ?? null,
     value: valueRead.number,
     valueComparator: comparator.comparator,
-    needsP,
+    needsP: needsP || needsTrailingDf,
+    ...(needsTrailingDf ? { needsTrailingDf } : {}),
   };
+}
+
+/** "1" or "2" right after an F, then its bracketed df: "F1(1, 31)", "F2 (1, 46)". */
+function isByParticipantOrItem(text: string, position: number): boolean {
+  const digit = text.charCodeAt(position);
+  if (digit !== 49 && digit !== 50) return false;
+  return OPENING_BRACKETS.has(text.charCodeAt(skipSpaces(text, position + 1)));
 }
 
 function endsValue(text: string, position: number): boolean {

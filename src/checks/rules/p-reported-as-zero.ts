@@ -13,7 +13,8 @@ export const pReportedAsZero: CheckModule<z.infer<typeof optionsSchema>> = {
     zero: '{printedP} is reported for {statistic}. A p-value is never zero (recomputed: p = {recomputedP}); report it as p < .001.',
   },
   run(result, context) {
-    if (!result.p || result.p.comparator !== '=' || result.p.value.value !== 0) return [];
+    // "p < .0000" says no more than "p = .0000".
+    if (!result.p || !['=', '<', '<='].includes(result.p.comparator) || result.p.value.value !== 0) return [];
     const recomputed = context.recomputations[context.index]?.p;
     return [
       {

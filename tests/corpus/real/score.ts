@@ -1,0 +1,291 @@
+/**
+ * Scores plumbline on the real corpus (tests/corpus/real/, see its README):
+ * each passage is read as a plain-text document, exactly as `plumbline scan`
+ * reads a .txt file, scanned and checked, and what was found is compared with
+ * the labels computed by compute.py.
+ *
+ * Run `npm run score:real` for the full print-out (misses and false alarms of
+ * the tuning split only: the held-out split is never looked at in detail).
+ * tests/corpus/real.test.ts runs the same scoring and holds its floors.
+ */
+import { readFileSync, readdirSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { plainTextDocument } from '../../../src/documents/text.js';
+import { scanDocument } from '../../../src/scan/scanDocument.js';
+import { checkResults } from '../../../src/checks/engine.js';
+import { resolveConfig } from '../../../src/checks/config.js';
+import type { ReportedResult, StatisticKind } from '../../../src/scan/types.js';
+
+/** The corpus folder, found from this file whether it runs from tests/ (vitest) or dist/tests/ (node). */
+export const REAL_CORPUS_DIRECTORY = (() => {
+  const here = dirname(fileURLToPath(import.meta.url));
+  return here.includes(`${join('dist', 'tests')}`) ? here.replace(join('dist', 'tests'), 'tests') : here;
+})();
+
+export type Split = 'tune' | 'holdout';
+
+export interface RealLabel {
+  kind: StatisticKind;
+  symbol: string | null;
+  span: string;
+  start: number;
+  end: number;
+  valueStart: number;
+  valueEnd: number;
+  line: number;
+  inTable: boolean;
+  df: number[];
+  dfSource: string;
+  value: number;
+  valueText: string;
+  valueComparator: string;
+  p: { comparator: string; value: number; text: string } | null;
+  notSignificant: boolean;
+  effects: { kind: string; value: number; text: string }[];
+  adjusted: string | null;
+  tails: string | null;
+  pRange: [number, number] | null;
+  consistent: boolean | null;
+}
+
+export interface RealPassage {
+  id: string;
+  split: Split;
+  language: string;
+  origin: string;
+  shapes: string[];
+  damage: string[];
+  text: string;
+  results: RealLabel[];
+}
+
+export function loadRealCorpus(directory = REAL_CORPUS_DIRECTORY): RealPassage[] {
+  const computed = join(directory, 'computed');
+  return readdirSync(computed)
+    .filter((name) => name.endsWith('.json'))
+    .sort()
+    .map((name) => {
+      const data = JSON.parse(readFileSync(join(computed, name), 'utf8')) as Omit<RealPassage, 'text'>;
+      const text = readFileSync(join(directory, 'passages', `${data.id}.txt`), 'utf8');
+      return { ...data, text };
+    });
+}
+
+const NEEDED_DF: Record<StatisticKind, number> = { F: 2, t: 1, chi2: 1, r: 0, z: 0 };
+
+/**
+ * A label plumbline can be asked to read: its df are all there (an r may come
+ * without df, a z has none). Labels without their df are counted apart: the
+ * table they sit in should be listed as not read.
+ */
+export function isReadable(label: RealLabel): boolean {
+  return label.df.length >= NEEDED_DF[label.kind];
+}
+
+const close = (a: number, b: number): boolean => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(b));
+
+function sameDf(found: ReportedResult, label: RealLabel): boolean {
+  return found.df.length === label.df.length && found.df.every((d, i) => close(d.value, label.df[i]!));
+}
+
+function overlaps(found: ReportedResult, label: RealLabel): boolean {
+  const statisticCell = found.tableRow?.cells.statistic;
+  if (statisticCell && statisticCell.start === label.valueStart) return true;
+  return found.start < label.end && label.start < found.end;
+}
+
+function matches(found: ReportedResult, label: RealLabel): boolean {
+  return found.kind === label.kind && found.value !== null && close(found.value.value, label.value) && sameDf(found, label) && overlaps(found, label);
+}
+
+function pRight(found: ReportedResult, label: RealLabel): boolean {
+  if (found.notSignificant !== label.notSignificant) return false;
+  if (label.p === null) return found.p === null;
+  if (found.p === null) return false;
+  return found.p.comparator === label.p.comparator && close(found.p.value.value, label.p.value);
+}
+
+function effectsRight(found: ReportedResult, label: RealLabel): boolean {
+  if (found.effects.length !== label.effects.length) return false;
+  const left = [...found.effects];
+  for (const want of label.effects) {
+    const index = left.findIndex((e) => e.kind === want.kind && close(e.value.value, want.value));
+    if (index < 0) return false;
+    left.splice(index, 1);
+  }
+  return true;
+}
+
+export interface Outcome {
+  passage: RealPassage;
+  label: RealLabel;
+  found: ReportedResult | null;
+  pRight: boolean;
+  effectsRight: boolean;
+  failed: boolean;
+}
+
+export interface FalseAlarm {
+  passage: RealPassage;
+  found: ReportedResult;
+  failed: boolean;
+}
+
+export interface PassageScore {
+  passage: RealPassage;
+  outcomes: Outcome[];
+  falseAlarms: FalseAlarm[];
+}
+
+const config = resolveConfig({});
+
+export function scorePassage(passage: RealPassage): PassageScore {
+  const document = plainTextDocument(`${passage.id}.txt`, 'text', passage.text);
+  const scan = scanDocument(document);
+  const checked = checkResults(passage.text, scan, config);
+  const taken = new Set<number>();
+  const outcomes: Outcome[] = passage.results.map((label) => ({ passage, label, found: null, pRight: false, effectsRight: false, failed: false }));
+  // Labels in order; each takes the first found result that matches it and is not taken yet.
+  outcomes.forEach((outcome) => {
+    const index = checked.findIndex((c, i) => !taken.has(i) && matches(c.result, outcome.label));
+    if (index < 0) return;
+    taken.add(index);
+    const { result, findings } = checked[index]!;
+    outcome.found = result;
+    outcome.pRight = pRight(result, outcome.label);
+    outcome.effectsRight = effectsRight(result, outcome.label);
+    outcome.failed = findings.some((f) => f.severity === 'fail');
+  });
+  const falseAlarms = checked
+    .filter((_, i) => !taken.has(i))
+    .map((c) => ({ passage, found: c.result, failed: c.findings.some((f) => f.severity === 'fail') }));
+  return { passage, outcomes, falseAlarms };
+}
+
+export interface Figures {
+  passages: number;
+  labels: number;
+  readable: number;
+  found: number;
+  recall: number;
+  precision: number;
+  /** Among matched results: p (and n.s.) read right. */
+  pAccuracy: number;
+  /** Among matched results: effect sizes read right. */
+  effectAccuracy: number;
+  consistent: number;
+  /** Consistent results (by the labels) that plumbline failed. */
+  failsOnConsistent: number;
+  failRateOnConsistent: number;
+  /** Labels without their df (an F with no df printed anywhere): found anyway, or not. */
+  withoutDf: number;
+  falseAlarms: number;
+}
+
+const ratio = (a: number, b: number): number => (b === 0 ? 1 : a / b);
+
+/** Figures for a set of outcomes; `where` picks labels (and false alarms) in tables or in text, or both. */
+export function figures(scores: PassageScore[], where: 'all' | 'table' | 'text'): Figures {
+  const pick = (inTable: boolean): boolean => where === 'all' || (where === 'table') === inTable;
+  const outcomes = scores.flatMap((s) => s.outcomes).filter((o) => pick(o.label.inTable));
+  const readable = outcomes.filter((o) => isReadable(o.label));
+  const hits = readable.filter((o) => o.found !== null);
+  const falseAlarms = scores.flatMap((s) => s.falseAlarms).filter((a) => pick(a.found.tableRow !== undefined));
+  const hitsAll = outcomes.filter((o) => o.found !== null);
+  const consistent = outcomes.filter((o) => o.label.consistent === true && o.found !== null);
+  const failsOnConsistent = consistent.filter((o) => o.failed).length;
+  return {
+    passages: scores.length,
+    labels: outcomes.length,
+    readable: readable.length,
+    found: hitsAll.length + falseAlarms.length,
+    recall: ratio(hits.length, readable.length),
+    precision: ratio(hitsAll.length, hitsAll.length + falseAlarms.length),
+    pAccuracy: ratio(hitsAll.filter((o) => o.pRight).length, hitsAll.length),
+    effectAccuracy: ratio(hitsAll.filter((o) => o.effectsRight).length, hitsAll.length),
+    consistent: outcomes.filter((o) => o.label.consistent === true).length,
+    failsOnConsistent,
+    failRateOnConsistent: ratio(failsOnConsistent, outcomes.filter((o) => o.label.consistent === true).length),
+    withoutDf: outcomes.length - readable.length,
+    falseAlarms: falseAlarms.length,
+  };
+}
+
+export function scoreCorpus(passages: RealPassage[] = loadRealCorpus()): Record<Split, PassageScore[]> {
+  const scores = passages.map(scorePassage);
+  return { tune: scores.filter((s) => s.passage.split === 'tune'), holdout: scores.filter((s) => s.passage.split === 'holdout') };
+}
+
+function describeLabel(label: RealLabel): string {
+  const df = label.df.length ? `(${label.df.join(', ')})` : '';
+  const p = label.p ? ` p ${label.p.comparator} ${label.p.text}` : label.notSignificant ? ' n.s.' : '';
+  return `${label.kind}${df} ${label.valueComparator} ${label.valueText}${p}`;
+}
+
+function describeFound(found: ReportedResult): string {
+  const df = found.df.length ? `(${found.df.map((d) => d.text).join(', ')})` : '';
+  const p = found.p ? ` p ${found.p.comparator} ${found.p.value.text}` : found.notSignificant ? ' n.s.' : '';
+  return `${found.kind}${df} ${found.valueComparator} ${found.value?.text ?? '?'}${p}`;
+}
+
+const percent = (x: number): string => `${(100 * x).toFixed(1)}%`;
+
+function figuresLine(name: string, f: Figures): string {
+  return (
+    `${name.padEnd(14)} labels ${String(f.labels).padStart(4)} (readable ${String(f.readable).padStart(4)})  ` +
+    `recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}  ` +
+    `p read ${percent(f.pAccuracy).padStart(6)}  effects read ${percent(f.effectAccuracy).padStart(6)}  ` +
+    `fails on consistent ${f.failsOnConsistent}/${f.consistent}  false alarms ${f.falseAlarms}`
+  );
+}
+
+/** The print-out of `npm run score:real`. */
+export function formatScores(scores: Record<Split, PassageScore[]>, detail: boolean): string {
+  const lines: string[] = [];
+  for (const split of ['tune', 'holdout'] as const) {
+    const s = scores[split];
+    lines.push(`== ${split} split: ${s.length} passages`);
+    for (const where of ['all', 'table', 'text'] as const) lines.push(figuresLine(`  ${where}`, figures(s, where)));
+  }
+  const tune = scores.tune;
+  const shapes = [...new Set(tune.flatMap((s) => s.passage.shapes))].sort();
+  lines.push('', '== tune split by shape (recall of readable labels in passages of that shape)');
+  for (const shape of shapes) {
+    const f = figures(tune.filter((s) => s.passage.shapes.includes(shape)), 'all');
+    lines.push(`  ${shape.padEnd(26)} ${String(f.readable).padStart(4)} readable  recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}`);
+  }
+  const languages = [...new Set(tune.map((s) => s.passage.language))].sort();
+  lines.push('', '== tune split by language');
+  for (const language of languages) {
+    const f = figures(tune.filter((s) => s.passage.language === language), 'all');
+    lines.push(`  ${language.padEnd(26)} ${String(f.readable).padStart(4)} readable  recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}`);
+  }
+  if (detail) {
+    lines.push('', '== tune split: per passage, misses, misread fields, false alarms and fails on consistent results');
+    for (const score of tune) {
+      const { passage } = score;
+      const readable = score.outcomes.filter((o) => isReadable(o.label));
+      const hits = readable.filter((o) => o.found).length;
+      lines.push(`-- ${passage.id} (${passage.shapes.join(', ')}): ${hits}/${readable.length} readable found, ${score.falseAlarms.length} false alarms`);
+      for (const o of score.outcomes) {
+        const where = `line ${o.label.line}${o.label.inTable ? ' table' : ''}`;
+        if (!o.found) {
+          lines.push(`   ${isReadable(o.label) ? 'miss' : 'miss (no df)'} ${where}: ${describeLabel(o.label)}  | ${o.label.span.replace(/\s+/g, ' ').slice(0, 90)}`);
+        } else {
+          if (!o.pRight || !o.effectsRight) {
+            lines.push(`   misread ${where}: label ${describeLabel(o.label)} [${o.label.effects.map((e) => `${e.kind} ${e.text}`).join(', ')}] found ${describeFound(o.found)} [${o.found.effects.map((e) => `${e.kind} ${e.value.text}`).join(', ')}]`);
+          }
+          if (o.failed && o.label.consistent === true) lines.push(`   fail on a consistent result ${where}: ${describeLabel(o.label)}`);
+        }
+      }
+      for (const a of score.falseAlarms) lines.push(`   false alarm${a.found.tableRow ? ' (table)' : ''}: ${describeFound(a.found)} | ${a.found.text.replace(/\s+/g, ' ').slice(0, 90)}`);
+    }
+  }
+  return lines.join('\n');
+}
+
+// Run as a script: node dist/tests/corpus/real/score.js [--brief]
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  console.log(formatScores(scoreCorpus(), !process.argv.includes('--brief')));
+}

@@ -1,0 +1,140 @@
+/**
+ * Notations real published text uses beyond the textbook forms: df
+ * separators, by-participant and by-item F tests, chi-square spellings, LaTeX
+ * left in web text, Spearman's subscript set apart, and the damage PDF text
+ * extraction does to comparators and numbers. Each form is one that occurs
+ * in the real corpus (tests/corpus/real/) or in the forms the issue on real
+ * prose lists; the expectations are what the text says, read by eye.
+ */
+import { describe, expect, it } from 'vitest';
+import { scanText } from '../../src/scan/scan.js';
+import { dfTexts, onlyResult } from './helpers.js';
+
+describe('df separators and labels', () => {
+  it.each([
+    ['F (3\u2013112) = 14.62, p < .001', ['3', '112']],
+    ['F(3-112) = 14.62, p < .001', ['3', '112']],
+    ['F(1/40) = 4.50, p = .040', ['1', '40']],
+    ['F(1; 40) = 4.50, p = .040', ['1', '40']],
+    ['F [2, 310] = 5.21, p = .006', ['2', '310']],
+    ['F (gl = 2, 57) = 4.21, p = .02', ['2', '57']],
+    ['F(ddl = 2, 57) = 4.21, p = .02', ['2', '57']],
+  ])('reads %s', (written, df) => {
+    const result = onlyResult(`The effect was reliable, ${written}.`);
+    expect(result.kind).toBe('F');
+    expect(dfTexts(result)).toEqual(df);
+  });
+
+  it('reads "t[44]" and a t with its df labelled "gl"', () => {
+    expect(dfTexts(onlyResult('The groups differed, t[44] = 2.31, p = .026.'))).toEqual(['44']);
+    expect(dfTexts(onlyResult('Los grupos difieren, t(gl = 44) = 2,31; p = 0,026.'))).toEqual(['44']);
+  });
+
+  it('does not read a dash between df for t or chi-square', () => {
+    expect(scanText('scores t(3-4) = 2.1, p = .04').results).toEqual([]);
+  });
+
+  it('reads an "l" where a df of 1 belongs, only before a separator', () => {
+    const result = onlyResult('An effect of group, F(l, 57) = 4.21, p = .044.');
+    expect(dfTexts(result)).toEqual(['1', '57']);
+    expect(scanText('An effect, F(lo, 57) = 4.21, p = .044.').results).toEqual([]);
+  });
+});
+
+describe('by-participant and by-item F tests', () => {
+  it('reads F1 and F2 with their own df', () => {
+    const [byParticipant, byItem] = scanText('The effect held, F1(1, 31) = 6.02, p = .02; F2(1, 46) = 3.95, p = .05.').results;
+    expect(byParticipant!.kind).toBe('F');
+    expect(dfTexts(byParticipant!)).toEqual(['1', '31']);
+    expect(byParticipant!.value?.text).toBe('6.02');
+    expect(dfTexts(byItem!)).toEqual(['1', '46']);
+    expect(byItem!.p?.value.text).toBe('.05');
+  });
+
+  it('leaves an F1 score alone', () => {
+    expect(scanText('The classifier reached F1 = 0.83 on the test set.').results).toEqual([]);
+  });
+});
+
+describe('chi-square spellings', () => {
+  it('reads "X2 = 18.4, df = 4" with df written after the value', () => {
+    const result = onlyResult('The distributions differed, X2 = 18.4, df = 4, p = .001.');
+    expect(result.kind).toBe('chi2');
+    expect(dfTexts(result)).toEqual(['4']);
+  });
+
+  it('reads "X 2 (2, N = 188)", the superscript set apart', () => {
+    const result = onlyResult('Groups differed, X 2 (2, N = 188) = 9.21, p = .010.');
+    expect(result.kind).toBe('chi2');
+    expect(result.sampleSize?.value).toBe(188);
+  });
+
+  it('still needs df for X2: "X2 = 4.1" alone is a variable', () => {
+    expect(scanText('The predictor X2 = 4.1, p = .04, was kept.').results).toEqual([]);
+  });
+});
+
+describe('LaTeX and MathJax left in web text', () => {
+  it('reads "$$\\chi^2$$(2, N = 188) = 9.21"', () => {
+    const text = 'The association was reliable, $$\\chi^2$$(2, N = 188) = 9.21, p = .010.';
+    const result = onlyResult(text);
+    expect(result.kind).toBe('chi2');
+    expect(dfTexts(result)).toEqual(['2']);
+    expect(text.slice(result.start, result.end)).toBe('\\chi^2$$(2, N = 188) = 9.21, p = .010');
+  });
+
+  it('reads "$F(1, 52) = 6.3$" with "\\(\\eta_{p}^{2}\\) = .07"', () => {
+    const result = onlyResult('There was an effect, $F(1, 52) = 6.3$, $p = .015$, \\(\\eta_{p}^{2}\\) = .11.');
+    expect(dfTexts(result)).toEqual(['1', '52']);
+    expect(result.p?.value.text).toBe('.015');
+    expect(result.effects.map((e) => [e.kind, e.value.text])).toEqual([['partial-eta-squared', '.11']]);
+  });
+
+  it('reads "\\textit{t}(30) = 2.10, \\textit{p} \\leq .05" and "\\chi^{2}(1) = 4.2"', () => {
+    const [t, chi] = scanText('A difference, \\textit{t}(30) = 2.10, \\textit{p} \\leq .05, and \\(\\chi^{2}(1) = 4.20, p = .040\\).').results;
+    expect(t!.kind).toBe('t');
+    expect(t!.p?.comparator).toBe('<=');
+    expect(chi!.kind).toBe('chi2');
+    expect(dfTexts(chi!)).toEqual(['1']);
+  });
+});
+
+describe("Spearman's subscript set apart", () => {
+  it('reads "r s (34) = .41"', () => {
+    const result = onlyResult('Ranks agreed, r s (34) = .41, p = .013.');
+    expect(result.kind).toBe('r');
+    expect(result.symbol).toBe('rs');
+    expect(dfTexts(result)).toEqual(['34']);
+  });
+
+  it('does not read "r s" without bracketed df', () => {
+    expect(scanText('the r s = .41 mentioned').results).toEqual([]);
+  });
+});
+
+describe('p-values damaged by text extraction', () => {
+  it.each([
+    ['p =. 318', '=', 0.318, '.318'],
+    ['p b 0.01', '<', 0.01, '0.01'],
+    ['p N 0.05', '>', 0.05, '0.05'],
+    ['p = < .05', '<', 0.05, '.05'],
+    ['p = <.001', '<', 0.001, '.001'],
+    ['p 0.05', '<', 0.05, '0.05'],
+    ['p 0.032', '=', 0.032, '0.032'],
+    ['p < .0000', '<', 0, '.0000'],
+  ])('reads "%s" after a statistic', (written, comparator, value, text) => {
+    const result = onlyResult(`The difference was t(28) = 2.47, ${written}.`);
+    expect(result.p?.comparator).toBe(comparator);
+    expect(result.p?.value.value).toBe(value);
+    expect(result.p?.value.text).toBe(text);
+  });
+
+  it('reads no p from "p 12" (a page) or from "p b" before a word', () => {
+    expect(onlyResult('The difference was t(28) = 2.47, see p 12.').p).toBeNull();
+    expect(onlyResult('The difference was t(28) = 2.47, p b elsewhere.').p).toBeNull();
+  });
+
+  it('reads a minus sign set apart from its number', () => {
+    expect(onlyResult('The difference was t(28) = \u2212 0.47, p = .64.').value?.value).toBe(-0.47);
+  });
+});
