@@ -10,7 +10,26 @@ export interface Region {
   end: number;
 }
 
-/** A table found by the reader in the document's own structure (DOCX, HTML, JATS, LaTeX). */
+/** Where one cell's text sits in the document text [start, end). */
+export interface CellSpan {
+  start: number;
+  end: number;
+}
+
+/** How a table reached the reader: its markup, or the layout of plain text the table finder rebuilt it from. */
+export type TableLayout = 'markup' | 'pipe' | 'aligned' | 'crushed' | 'cell-per-line' | 'glued' | 'positions';
+
+/**
+ * A table: the one model every reader and the text table finder hand the
+ * scanner (DOCX, HTML, JATS and LaTeX from their markup; PDF from word
+ * positions; plain text, Markdown and extracted text from its layout).
+ *
+ * `rows` holds every row's cells as written, header rows included, with
+ * spanning cells expanded: a cell that spans columns keeps its text in its
+ * first column and leaves '' in the others (`spans` says how far it
+ * reaches). Side-by-side blocks (two groups, two outcomes) are columns of
+ * the same rows; the scanner finds them from the headers.
+ */
 export interface DocumentTable {
   /** Offsets of the table's text in `text`. */
   start: number;
@@ -21,6 +40,14 @@ export interface DocumentTable {
   notes: string[];
   /** Cell texts, row by row, as written (header rows included). */
   rows: string[][];
+  /** Number of header rows, when the source says (a thead, th cells); otherwise the scanner decides. */
+  headerRows?: number;
+  /** Columns each cell spans (1 when absent), parallel to `rows`. */
+  spans?: number[][];
+  /** Where each cell's text is in the document text, parallel to `rows` (null for an empty or rebuilt cell); otherwise the scanner finds the cells in the table's lines. */
+  cells?: (CellSpan | null)[][];
+  /** How the table was rebuilt. */
+  layout?: TableLayout;
 }
 
 export interface DocumentText {
