@@ -19,7 +19,7 @@
  * each line is looked at a bounded number of times.
  */
 
-import type { DocumentTable } from '../../documents/types.js';
+import type { DocumentTable, TableLayout } from '../../documents/types.js';
 import { classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
 
 interface Line {
@@ -61,7 +61,7 @@ export function findTextTables(text: string): DocumentTable[] {
       index++;
       continue;
     }
-    const { rows, last } = found;
+    const { rows, last, layout } = found;
     const title = readTitle(lines, index);
     const notes = readNotes(lines, last + 1);
     const startLine = title?.firstLine ?? index;
@@ -72,6 +72,7 @@ export function findTextTables(text: string): DocumentTable[] {
       caption: title?.caption ?? null,
       notes: notes.notes,
       rows,
+      layout,
     });
     index = endLine + 1;
   }
@@ -116,7 +117,13 @@ function isSeparatorRow(cells: string[]): boolean {
   return cells.every((cell) => /^:?-{2,}:?$/.test(cell) || cell === '');
 }
 
-function readPipeTable(lines: Line[], first: number): { rows: string[][]; last: number } | null {
+interface FoundRows {
+  rows: string[][];
+  last: number;
+  layout: TableLayout;
+}
+
+function readPipeTable(lines: Line[], first: number): FoundRows | null {
   const rows: string[][] = [];
   let index = first;
   for (; index < lines.length; index++) {
@@ -125,7 +132,7 @@ function readPipeTable(lines: Line[], first: number): { rows: string[][]; last: 
     if (!isSeparatorRow(cells)) rows.push(cells);
   }
   if (rows.length < 2) return null;
-  return { rows, last: index - 1 };
+  return { rows, last: index - 1, layout: 'pipe' };
 }
 
 // ------------------------------------------------ aligned and crushed tables
@@ -167,6 +174,11 @@ function isSpace(code: number): boolean {
 function isValueToken(text: string): boolean {
   const kind = readCell(text, 'either').kind;
   return kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '');
+}
+
+/** Stars, daggers or one footnote letter standing as a token of their own. */
+function isMarkToken(text: string): boolean {
+  return /^(?:[*\u2020\u2021]{1,4}|[a-h])$/.test(text);
 }
 
 /**
@@ -300,7 +312,8 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   if (text.length > MAX_ROW_LENGTH) return null;
   const tokens = tokenize(text);
   let first = tokens.length;
-  while (first > 0 && isValueToken(tokens[first - 1]!.text)) first--;
+  // Footnote marks standing alone among the values ("<.001 c 1.21", "9.6 <0.0001 *") belong to the run of values.
+  while (first > 0 && (isValueToken(tokens[first - 1]!.text) || (isMarkToken(tokens[first - 1]!.text) && first >= 2 && isValueToken(tokens[first - 2]!.text)))) first--;
   if (first === 0 && tokens.length > 0) first = 1; // all numbers: the first is the label ("1", "2005")
   const values = tokens.slice(first);
   if (values.length < minimumValues || values.every((token) => readCell(token.text, 'either').kind !== 'number')) return null;
@@ -317,7 +330,7 @@ function isSectionLine(line: Line | undefined): boolean {
   return text.split(/\s+/).length <= 6;
 }
 
-function readSpacedTable(lines: Line[], first: number): { rows: string[][]; last: number } | null {
+function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const header = readHeader(lines[first]!);
   const titled = readTitle(lines, first) !== null;
   if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
@@ -327,14 +340,14 @@ function readSpacedTable(lines: Line[], first: number): { rows: string[][]; last
     attachContinuation(columns!, lines[index]!.text.trim().split(/\s+/));
     index++;
   }
-  const rows: string[][] = columns ? [columns] : [];
+  const rows: (string[] | { data: DataLine; line: Line })[] = columns ? [columns] : [];
   let dataRows = 0;
   let last = header === null ? first - 1 : index - 1;
   for (; index < lines.length; index++) {
     const line = lines[index]!;
     const data = readRowLine(line, dataRows === 0);
     if (data !== null) {
-      rows.push(placeRow(data, line, header));
+      rows.push({ data, line });
       dataRows++;
       last = index;
       continue;
@@ -352,7 +365,24 @@ function readSpacedTable(lines: Line[], first: number): { rows: string[][]; last
     break;
   }
   if (dataRows === 0) return null;
-  return { rows, last };
+  return placeRows(rows, header, last);
+}
+
+/**
+ * The rows of a table found in text, with their cells under the header's
+ * columns where the layout shows where they stand: by tabs, or by position
+ * under a header laid out with wide gaps. Otherwise (single spaces, or
+ * values that do not fall into distinct columns) every row is kept as its
+ * label and its values, and the table reader puts them under the columns
+ * by what they hold (align.ts).
+ */
+function placeRows(rows: (string[] | { data: DataLine; line: Line })[], header: HeaderLine | null, last: number): FoundRows {
+  const placed = rows.map((row) => (Array.isArray(row) ? row : placeRow(row.data, row.line, header)));
+  if (placed.every((row) => row !== null)) {
+    return { rows: placed as string[][], last, layout: header?.tabbed ? 'aligned' : header?.aligned ? 'aligned' : 'crushed' };
+  }
+  const raw = rows.map((row) => (Array.isArray(row) ? row : [row.data.label.text, ...row.data.values.map((value) => value.text)]));
+  return { rows: raw, last, layout: 'crushed' };
 }
 
 /** Labels of rows that may carry a single number (an error row with only its df). */
@@ -385,7 +415,7 @@ function attachContinuation(columns: string[], pieces: string[]): void {
  * ones, as in an error row that has no F or p). Values beyond the columns
  * belong to the label ("Block 2 12.40 2 ...").
  */
-function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string[] {
+function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string[] | null {
   if (header !== null && header.tabbed && line.text.includes('\t')) {
     // One tab per cell: empty cells are empty strings between tabs.
     const cells = line.text.split('\t').map((cell) => cell.trim());
@@ -394,6 +424,7 @@ function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string
   let label = data.label;
   let values = data.values;
   if (header === null) return [label.text, ...values.map((value) => value.text)];
+  if (!header.aligned) return null;
   const width = header.columns.length;
   if (values.length > width - 1) {
     const extra = values.length - (width - 1);
@@ -401,12 +432,9 @@ function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string
     values = values.slice(extra);
   }
   const row = [label.text, ...new Array<string>(width - 1).fill('')];
-  const byPosition = header.aligned ? placeByPosition(values, header.columns) : null;
-  if (byPosition !== null) {
-    byPosition.forEach((column, index) => (row[column] = values[index]!.text));
-  } else {
-    values.forEach((value, index) => (row[index + 1] = value.text));
-  }
+  const byPosition = placeByPosition(values, header.columns);
+  if (byPosition === null) return null;
+  byPosition.forEach((column, index) => (row[column] = values[index]!.text));
   return row;
 }
 

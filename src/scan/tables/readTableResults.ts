@@ -38,6 +38,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { bestHeaderShift, isValueRole, placeCells, shapeOf } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -89,36 +90,27 @@ function distinctTables(tables: DocumentTable[]): DocumentTable[] {
 
 function readTable(text: string, table: DocumentTable, tableIndex: number): ReportedResult[] {
   const rows = table.rows;
-  const headerCount = rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
-  if (headerCount < 1) return [];
-  const width = Math.max(...rows.map((row) => row.length));
-  const headers: string[] = [];
-  const upperHeaders: (string | null)[] = [];
-  for (let column = 0; column < width; column++) {
-    const texts = rows.slice(0, headerCount).map((row) => (row[column] ?? '').trim());
-    const filled = texts.filter((cell) => cell !== '');
-    headers.push(filled[filled.length - 1] ?? '');
-    upperHeaders.push(filled.length >= 2 ? filled[filled.length - 2]! : null);
-  }
-  const roles = headers.map((header, column) => (column === 0 ? ({ role: 'label' } as ColumnRole) : classifyHeader(header)));
+  const headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
+  if (headerCount < 1 || headerCount >= rows.length) return [];
+  const located = table.cells ?? locateRows(text, table, headerCount);
+  const schema = readSchema(rows, headerCount, table.layout);
+  const roles = schema.roles;
   const kind = STATISTIC_PRIORITY.find((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
   if (kind === undefined) return [];
   // A column of z without p may hold standard scores, not tests.
-  const segments = buildSegments(roles, kind, upperHeaders).filter((segment) => kind !== 'z' || segment.columns.has('p'));
+  const segments = buildSegments(roles, kind, schema.titles).filter((segment) => kind !== 'z' || segment.columns.has('p'));
   if (segments.length === 0) return [];
 
   const noteText = [...table.notes, table.caption ?? ''].join(' ');
   const noteDf = readNoteDf(noteText);
   const noteN = readNoteSampleSize(noteText);
-  const located = locateRows(text, table, headerCount);
-  const separator = decimalSeparatorOf(rows.slice(headerCount));
-  const errorRows = rows.map((row, index) => index >= headerCount && isErrorRow(row, segments, separator));
+  const virtualRows = rows.slice(headerCount).flatMap((row, offset) => virtualRowsOf(row, located[headerCount + offset] ?? null, schema));
+  const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
+  const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
   const results: ReportedResult[] = [];
 
-  for (let index = headerCount; index < rows.length; index++) {
-    const row = rows[index]!;
-    const cellsAt = located[index];
-    if (!cellsAt) continue;
+  for (let index = 0; index < virtualRows.length; index++) {
+    const { cells: row, at: cellsAt } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     if (errorRows[index] || TOTAL_LABEL.test(labelKey) || INTERCEPT_LABEL.test(labelKey)) continue;
     if (row.some((cell) => cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0)) continue;
@@ -135,7 +127,7 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Repo
         cellsAt,
         segment,
         multiple: segments.length > 1,
-        errorRow: errorIndex === null ? null : { row: rows[errorIndex]!, cellsAt: located[errorIndex] ?? null },
+        errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
         noteDf,
         noteN,
         rowSpan,
@@ -145,6 +137,166 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Repo
     }
   }
   return results;
+}
+
+/** The meaning of each column of a table, and the titles spanning headers put over them. */
+interface Schema {
+  /** Column roles; column 0 holds the row labels. */
+  roles: ColumnRole[];
+  /** Text of the header row above the bottom one, per column, for side-by-side blocks. */
+  titles: (string | null)[];
+  /** True when the body rows' cells stand where the header's columns are (markup, pipes, wide gaps). */
+  positional: boolean;
+}
+
+/** Body rows whose cells are not at the header's positions: rebuilt from crushed text. */
+const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line', 'glued']);
+
+/**
+ * Reads the header rows into column roles. The bottom header row names the
+ * columns; rows above it hold titles of blocks, or names of columns whose
+ * header cell spans the header rows. Each header row is laid over the body
+ * at the shift that best fits its known names to the body's cells (a table
+ * whose label column has no header, a spanning cell that pushes the names
+ * after it to the left).
+ */
+function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout']): Schema {
+  const positional = !UNPLACED_LAYOUTS.has(layout ?? '');
+  const body = rows.slice(headerCount);
+  const bodyShapes = body.map((row) => row.map(shapeOf));
+  const headerRows = rows.slice(0, headerCount).map(trimTrailingEmpty);
+  const width = positional
+    ? Math.max(typicalWidth(body), ...headerRows.map((row) => row.length))
+    : Math.max(...headerRows.map((row) => row.length));
+  const roles: ColumnRole[] = new Array<ColumnRole>(width).fill({ role: 'unknown' });
+  roles[0] = { role: 'label' };
+  const assigned = new Array<boolean>(width).fill(false);
+  const headerTexts: string[][] = headerRows.map(() => new Array<string>(width).fill(''));
+  for (let level = headerRows.length - 1; level >= 0; level--) {
+    const headerRow = headerRows[level]!;
+    const headerRoles = headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : classifyHeader(cell)));
+    const shift = positional ? bestHeaderShift(headerRoles, bodyShapes, width) : 0;
+    headerRow.forEach((cell, index) => {
+      const column = index + shift;
+      if (column < 0 || column >= width) return;
+      headerTexts[level]![column] = cell.trim();
+      const role = headerRoles[index];
+      if (role === null || role === undefined || role.role === 'unknown' || assigned[column]) return;
+      if (column === 0 && role.role !== 'label') return;
+      roles[column] = role;
+      assigned[column] = true;
+    });
+  }
+  // Columns before the first value column whose body cells are text hold the row label too.
+  const titles = roles.map((_, column) => {
+    for (let level = headerRows.length - 2; level >= 0; level--) {
+      const title = spanningTitle(headerTexts[level]!, column);
+      if (title !== null) return title;
+    }
+    return null;
+  });
+  return { roles, titles, positional };
+}
+
+/** The nearest non-empty header text at or left of `column` in a title row (a spanning cell keeps its text in its first column). */
+function spanningTitle(texts: string[], column: number): string | null {
+  for (let at = column; at >= 1; at--) if (texts[at] !== '') return texts[at]!;
+  return null;
+}
+
+function trimTrailingEmpty(row: string[]): string[] {
+  let end = row.length;
+  while (end > 1 && row[end - 1]!.trim() === '') end--;
+  return row.slice(0, end);
+}
+
+/** The number of cells most body rows have (trailing empty cells left out). */
+function typicalWidth(body: string[][]): number {
+  const counts = new Map<number, number>();
+  for (const row of body) {
+    const width = trimTrailingEmpty(row).length;
+    if (width < 2) continue;
+    counts.set(width, (counts.get(width) ?? 0) + 1);
+  }
+  let best = 0;
+  let bestCount = 0;
+  for (const [width, count] of counts) if (count > bestCount || (count === bestCount && width > best)) [best, bestCount] = [width, count];
+  return best;
+}
+
+/** A body row as the interpreter reads it: column 0 the label, the other cells under the schema's columns. */
+interface VirtualRow {
+  cells: string[];
+  at: (LocatedCell | null)[];
+}
+
+/**
+ * The rows a body row stands for. A row is cut where a text cell follows
+ * value cells ("Between groups | 6.77 | 4 | ... | Within groups | 22.64 |
+ * 30 | ..." printed on one line); each piece's label is its text cells, and
+ * its values are put under the columns by position when the layout keeps
+ * positions and the piece sits where the header says, otherwise by fit
+ * (align.ts).
+ */
+function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): VirtualRow[] {
+  const width = schema.roles.length;
+  const shapes = row.map(shapeOf);
+  const pieces: { first: number; valuesFrom: number; end: number }[] = [];
+  let first = 0;
+  let index = 0;
+  while (index < row.length) {
+    // Label cells: the first cell always, then text cells.
+    let valuesFrom = index === first ? index + 1 : index;
+    while (valuesFrom < row.length && shapes[valuesFrom]!.shape === 'text') valuesFrom++;
+    let end = valuesFrom;
+    while (end < row.length && shapes[end]!.shape !== 'text') end++;
+    pieces.push({ first, valuesFrom, end });
+    first = end;
+    index = end;
+  }
+  const valueColumns = schema.roles.map((role, column) => ({ role, column })).filter(({ role, column }) => column > 0 && isValueRole(role));
+  const out: VirtualRow[] = [];
+  for (const piece of pieces) {
+    const cells = new Array<string>(width).fill('');
+    const at = new Array<LocatedCell | null>(width).fill(null);
+    const labelCells = row.slice(piece.first, piece.valuesFrom).map((cell) => cell.trim()).filter((cell) => cell !== '');
+    cells[0] = labelCells.join(' ');
+    const labelAt = cellsAt ? spanOfCells(cellsAt.slice(piece.first, piece.valuesFrom)) : null;
+    at[0] = labelAt;
+    const values = row.slice(piece.valuesFrom, piece.end);
+    const positionsHold =
+      schema.positional && pieces.length === 1 && piece.end <= width && values.every((_, offset) => isValueRole(schema.roles[piece.valuesFrom + offset] ?? { role: 'unknown' }));
+    if (positionsHold) {
+      values.forEach((cell, offset) => {
+        cells[piece.valuesFrom + offset] = cell;
+        at[piece.valuesFrom + offset] = cellsAt?.[piece.valuesFrom + offset] ?? null;
+      });
+    } else {
+      const placed = placeCells(
+        values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! })),
+        valueColumns.map(({ role }) => role),
+      );
+      if (placed === null) continue;
+      placed.columns.forEach((slot, offset) => {
+        if (slot < 0) return;
+        const column = valueColumns[slot]!.column;
+        cells[column] = values[offset]!;
+        at[column] = cellsAt?.[piece.valuesFrom + offset] ?? null;
+      });
+      if (placed.absorbed > 0) {
+        cells[0] = [cells[0], ...values.slice(0, placed.absorbed)].filter((cell) => cell !== '').join(' ');
+        at[0] = cellsAt ? spanOfCells(cellsAt.slice(piece.first, piece.valuesFrom + placed.absorbed)) : null;
+      }
+    }
+    out.push({ cells, at });
+  }
+  return out;
+}
+
+function spanOfCells(cells: (LocatedCell | null)[]): LocatedCell | null {
+  const present = cells.filter((cell): cell is LocatedCell => cell !== null);
+  if (present.length === 0) return null;
+  return { start: present[0]!.start, end: present[present.length - 1]!.end };
 }
 
 /**
@@ -201,15 +353,25 @@ function roleKey(role: ColumnRole, kind: StatisticKind): RoleKey | null {
   }
 }
 
+/**
+ * An error term: a row with its df or sums of squares but no statistic,
+ * labelled Error, Residual or Within, or, in a table of F tests without a
+ * denominator df column, any such row with its df ("Subject/Age", "VES by
+ * Subject/Age": the error terms of a split-plot table).
+ */
 function isErrorRow(row: string[], segments: Segment[], separator: DecimalSeparator): boolean {
-  if (!ERROR_LABEL.test(headerKey(row[0] ?? ''))) return false;
+  const label = headerKey(row[0] ?? '');
+  if (TOTAL_LABEL.test(label) || INTERCEPT_LABEL.test(label)) return false;
   const columns = segments[0]!.columns;
   const hasStatistic = readCell(row[columns.get('statistic')!] ?? '', separator).kind === 'number';
-  const hasTerms = (['df', 'df1', 'ss', 'ms'] as const).some((key) => {
+  const numberIn = (key: 'df' | 'df1' | 'ss' | 'ms'): boolean => {
     const column = columns.get(key);
     return column !== undefined && readCell(row[column] ?? '', separator).kind === 'number';
-  });
-  return hasTerms && !hasStatistic;
+  };
+  const hasTerms = numberIn('df') || numberIn('df1') || numberIn('ss') || numberIn('ms');
+  if (!hasTerms || hasStatistic) return false;
+  if (ERROR_LABEL.test(label)) return true;
+  return !columns.has('df2') && (numberIn('df') || numberIn('df1')) && row.slice(1).every((cell) => !/[=<>]/.test(cell));
 }
 
 /** The nearest error row below the effect; above it only when the table has a single error row. */

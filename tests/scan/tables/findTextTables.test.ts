@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findTextTables } from '../../../src/scan/tables/index.js';
+import { findTextTables, readTableResults } from '../../../src/scan/tables/index.js';
 
 // Invented tables in the layouts that plain text, Markdown and text copied from PDF leave.
 
@@ -101,24 +101,30 @@ describe('findTextTables: crushed columns from PDF text', () => {
     expect(table!.rows.slice(1)).toEqual([
       ['Between subjects', '', '', '', '', '', ''],
       ['Group', '871.82', '1', '871.82', '4.83', '.031', '.06'],
-      ['Error (between)', '12815.50', '71', '180.50', '', '', ''],
+      ['Error (between)', '12815.50', '71', '180.50'],
       ['Within subjects', '', '', '', '', '', ''],
       ['Session', '566.27', '2', '283.14', '12.64', '< .001', '.15'],
       ['Session × Group', '152.77', '2', '76.38', '3.41', '.036', '.05'],
-      ['Error (within)', '3180.80', '142', '22.40', '', '', ''],
+      ['Error (within)', '3180.80', '142', '22.40'],
     ]);
+    // Single-spaced columns do not show where a short row's cells stand: the rows are kept as written.
+    expect(table!.layout).toBe('crushed');
     expect(table!.notes).toEqual(['Note. Sphericity held, so no correction was applied.']);
     expect(text.slice(table!.end - 12, table!.end)).toBe('was applied.');
   });
 
-  it('groups multi-word headers and keeps numbers in labels', () => {
+  it('groups multi-word headers, and the table reader keeps numbers in labels', () => {
     const crushed = ['Source of variation Sum of squares df Mean square F ratio p', 'Block 2 12.40 2 6.20 4.21 .018', 'Within groups 83.95 57 1.47'].join('\n');
     const [table] = findTextTables(crushed);
     expect(table!.rows).toEqual([
       ['Source of variation', 'Sum of squares', 'df', 'Mean square', 'F ratio', 'p'],
-      ['Block 2', '12.40', '2', '6.20', '4.21', '.018'],
-      ['Within groups', '83.95', '57', '1.47', '', ''],
+      ['Block', '2', '12.40', '2', '6.20', '4.21', '.018'],
+      ['Within groups', '83.95', '57', '1.47'],
     ]);
+    const [result] = readTableResults(crushed, [table!]);
+    expect(result!.tableRow!.rowLabel).toBe('Block 2');
+    expect(result!.df.map((df) => df.text)).toEqual(['2', '57']);
+    expect(result!.value?.text).toBe('4.21');
   });
 
   it('joins wrapped note lines', () => {

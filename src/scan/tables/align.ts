@@ -1,0 +1,260 @@
+/**
+ * Puts a table's value cells under the columns their headers name, when the
+ * layout alone does not say which cell is which: headers shifted against
+ * the body (a missing label header, spanning header cells), rows whose
+ * columns collapsed into single spaces, rows with cells left empty, and
+ * footnote marks standing as cells of their own.
+ *
+ * Both problems are solved the same way: an order-keeping assignment of
+ * cells to columns that maximises how well each cell fits its column's
+ * meaning (a df column takes whole numbers, a p column numbers up to 1 or
+ * "n.s.", a statistic column numbers, ...). Order is never changed and no
+ * value is invented: an assignment only decides which column each printed
+ * cell belongs to. Tables are small (a row has at most a few dozen cells),
+ * so the dynamic programmes here cost a few thousand steps per row.
+ */
+
+import { readCell, type ColumnRole } from './cells.js';
+
+/** What a body cell holds, as far as fitting it to a column goes. */
+export type CellShape =
+  | { shape: 'number'; value: number; decimals: number; comparator: string }
+  /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)". */
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number }
+  /** Two whole numbers with a comma: a df pair "2, 180". */
+  | { shape: 'pair'; first: number; second: number }
+  | { shape: 'ns' }
+  | { shape: 'empty' }
+  /** Stars, daggers or a lone footnote letter standing as a cell. */
+  | { shape: 'mark' }
+  | { shape: 'text' };
+
+const PAIR = /^(\d{1,5})\s*[,;]\s*(\d{1,6}(?:\.\d+)?)$/;
+const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+const MARK = /^(?:[*\u2020\u2021]{1,4}|[a-j])$/;
+
+/** The shape of one cell as written. */
+export function shapeOf(cell: string): CellShape {
+  const text = cell.trim();
+  if (MARK.test(text)) return { shape: 'mark' };
+  const read = readCell(text, 'either');
+  if (read.kind === 'empty') return { shape: 'empty' };
+  if (read.kind === 'ns') return { shape: 'ns' };
+  if (read.kind === 'number') {
+    return { shape: 'number', value: read.number.value, decimals: read.number.decimals, comparator: read.comparator };
+  }
+  const pair = PAIR.exec(text);
+  if (pair) return { shape: 'pair', first: Number(pair[1]), second: Number(pair[2]) };
+  const bracket = NUMBER_BRACKET.exec(text);
+  if (bracket) {
+    const outer = readCell(bracket[1]!, 'either');
+    const inner = readCell(bracket[2]!, 'either');
+    if (outer.kind === 'number' && inner.kind === 'number') {
+      return { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
+    }
+  }
+  return { shape: 'text' };
+}
+
+/** True for cells that are values of a row (not its label). */
+export function isValueShape(shape: CellShape): boolean {
+  return shape.shape !== 'text';
+}
+
+const NEVER = -1e6;
+
+/**
+ * How well a cell fits a column of the given meaning: positive when it fits
+ * (the more telling the fit, the higher), negative when it cannot be such a
+ * value, 0 for an empty cell (which fits anywhere and tells nothing).
+ */
+export function fit(role: ColumnRole, cell: CellShape): number {
+  if (cell.shape === 'empty') return 0;
+  if (cell.shape === 'mark') return NEVER;
+  if (cell.shape === 'text') return role.role === 'label' ? 1 : -2;
+  switch (role.role) {
+    case 'statistic': {
+      if (cell.shape === 'ns' || cell.shape === 'pair') return -3;
+      if (cell.shape === 'number-bracket') return role.kind === 'r' ? -1 : 1.5;
+      if (role.kind === 'F' || role.kind === 'chi2') return cell.value >= 0 ? 2 : -4;
+      if (role.kind === 'r') return Math.abs(cell.value) <= 1 ? 2 : -4;
+      return 2;
+    }
+    case 'df':
+      if (cell.shape === 'pair') return 3;
+      return dfFit(cell);
+    case 'df1':
+    case 'df2':
+      return dfFit(cell);
+    case 'p':
+      if (cell.shape === 'ns') return 2.5;
+      if (cell.shape !== 'number') return -3;
+      if (cell.value < 0 || cell.value > 1) return -5;
+      return cell.comparator !== '=' ? 2.5 : cell.decimals >= 2 ? 2 : 1;
+    case 'effect':
+      if (cell.shape !== 'number') return -2;
+      if (role.effect === 'cohens-d' || role.effect === 'hedges-g' || role.effect === 'cohens-f') return 1;
+      if (role.effect === 'r') return Math.abs(cell.value) <= 1 ? 1.5 : -4;
+      return cell.value >= 0 && cell.value <= 1 ? 1.5 : -4;
+    case 'ss':
+    case 'ms':
+      return cell.shape === 'number' && cell.value >= 0 ? 2 : -2;
+    case 'n':
+      return cell.shape === 'number' && cell.decimals === 0 && cell.value >= 1 ? 1.5 : -2;
+    case 'descriptive':
+      return cell.shape === 'number-bracket' ? 1 : cell.shape === 'number' ? 0.5 : -1;
+    case 'label':
+      return -1;
+    default:
+      return cell.shape === 'number' || cell.shape === 'number-bracket' ? 0.3 : -1;
+  }
+}
+
+function dfFit(cell: CellShape): number {
+  if (cell.shape !== 'number') return -3;
+  if (cell.comparator !== '=' || cell.value < 1) return -4;
+  return cell.decimals === 0 ? 2 : 1;
+}
+
+/** A cell to place, as written, with its shape. */
+export interface CellToPlace {
+  text: string;
+  shape: CellShape;
+}
+
+/**
+ * Places a row's value cells, in order, under `roles` (the value columns, in
+ * order). Marks may be dropped; leading cells beyond what the columns take
+ * go back to the row's label (`absorbed`); every other cell must land in a
+ * column. Ties go to the assignment that fills the earliest columns, since
+ * rows leave their trailing cells empty (an error row has no F or p).
+ * Returns, for each cell, its column index in `roles` (or -1: dropped or
+ * absorbed), or null when the cells cannot be placed sensibly.
+ */
+export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns: number[]; absorbed: number } | null {
+  const n = cells.length;
+  const m = roles.length;
+  if (m === 0) return null;
+  // Leading cells that can go back to the label: only when there are more cells than columns.
+  const valuesOnly = cells.filter((cell) => cell.shape.shape !== 'mark').length;
+  const maxAbsorbed = Math.max(0, valuesOnly - m);
+  let best: { score: number; columns: number[]; absorbed: number } | null = null;
+  for (let absorbed = 0; absorbed <= Math.min(maxAbsorbed, n); absorbed++) {
+    const placed = placeFrom(cells.slice(absorbed), roles);
+    if (placed === null) continue;
+    const score = placed.score - 0.5 * absorbed;
+    if (best === null || score > best.score + 1e-9) best = { score, columns: [...new Array<number>(absorbed).fill(-1), ...placed.columns], absorbed };
+  }
+  if (best === null || best.score <= 0) return null;
+  return { columns: best.columns, absorbed: best.absorbed };
+}
+
+/** Order-keeping assignment by dynamic programming over (cell, column). */
+function placeFrom(cells: CellToPlace[], roles: ColumnRole[]): { score: number; columns: number[] } | null {
+  const n = cells.length;
+  const m = roles.length;
+  // score[i][j]: best score placing cells[0..i) using columns [0..j); choice records the step taken.
+  const width = m + 1;
+  const score = new Float64Array((n + 1) * width).fill(-Infinity);
+  const choice = new Int8Array((n + 1) * width); // 0: skip column, 1: place cell i-1 in column j-1, 2: drop cell i-1
+  for (let j = 0; j <= m; j++) score[j] = -0.001 * j;
+  for (let i = 1; i <= n; i++) {
+    const cell = cells[i - 1]!;
+    for (let j = 0; j <= m; j++) {
+      let bestHere = -Infinity;
+      let how = 0;
+      if (j > 0) {
+        // Skipping a column costs a little more the further left it is, so earlier columns fill first.
+        const skip = score[i * width + j - 1]! - 0.001;
+        if (skip > bestHere) {
+          bestHere = skip;
+          how = 0;
+        }
+        const f = fit(roles[j - 1]!, cell.shape);
+        if (f > NEVER / 2) {
+          const place = score[(i - 1) * width + j - 1]! + f + 0.0005 * (m - j);
+          if (place > bestHere) {
+            bestHere = place;
+            how = 1;
+          }
+        }
+      }
+      if (cell.shape.shape === 'mark') {
+        const drop = score[(i - 1) * width + j]!;
+        if (drop > bestHere) {
+          bestHere = drop;
+          how = 2;
+        }
+      }
+      score[i * width + j] = bestHere;
+      choice[i * width + j] = how;
+    }
+  }
+  let j = m;
+  const total = score[n * width + m]!;
+  if (!Number.isFinite(total)) return null;
+  const columns = new Array<number>(n).fill(-1);
+  let i = n;
+  while (i > 0) {
+    const how = choice[i * width + j]!;
+    if (how === 0) j--;
+    else if (how === 1) {
+      columns[i - 1] = j - 1;
+      i--;
+      j--;
+    } else {
+      columns[i - 1] = -1;
+      i--;
+    }
+  }
+  return { score: total, columns };
+}
+
+/** Value roles: columns a cell of a result can stand in (not labels). */
+export function isValueRole(role: ColumnRole): boolean {
+  return role.role !== 'label';
+}
+
+/**
+ * The shift that best puts a header row's cells over the body's columns:
+ * header cell k goes over column k + shift. Only header cells whose meaning
+ * is known are scored, against the body cells of the column they would
+ * stand over; a shift that puts the statistic's header over anything but
+ * numbers scores badly. Returns 0 when no shift fits better.
+ */
+export function bestHeaderShift(headerRoles: (ColumnRole | null)[], bodyShapes: CellShape[][], width: number): number {
+  let bestShift = 0;
+  let bestScore = -Infinity;
+  const known = headerRoles.map((role, index) => ({ role, index })).filter((entry) => entry.role !== null && entry.role.role !== 'unknown');
+  if (known.length === 0) return 0;
+  for (let shift = -known[0]!.index; shift + known[known.length - 1]!.index < width; shift++) {
+    let total = 0;
+    for (const { role, index } of known) {
+      const column = index + shift;
+      if (column < 0 || column >= width) {
+        total -= 3;
+        continue;
+      }
+      if (role!.role === 'label') {
+        total += column === 0 ? 0.5 : 0;
+        continue;
+      }
+      let columnScore = 0;
+      let counted = 0;
+      for (const row of bodyShapes) {
+        const shape = row[column];
+        if (shape === undefined || shape.shape === 'empty') continue;
+        const f = fit(role!, shape);
+        columnScore += f <= NEVER / 2 ? -3 : Math.max(-3, f);
+        counted++;
+      }
+      total += counted === 0 ? -0.5 : columnScore / counted;
+    }
+    const preferred = total - 0.01 * Math.abs(shift);
+    if (preferred > bestScore + 1e-9) {
+      bestScore = preferred;
+      bestShift = shift;
+    }
+  }
+  return bestShift;
+}
