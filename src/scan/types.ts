@@ -23,6 +23,9 @@ export interface ReportedNumber {
 
 export type StatisticKind = 'F' | 't' | 'chi2' | 'r' | 'z';
 
+/** Where df that were not printed come from (ReportedResult.dfFrom). */
+export type DfSource = 'sample-size' | 'study-sample-size' | 'contingency-table';
+
 /**
  * A symbol tested as one of the kinds: "H", a Kruskal-Wallis result, as
  * chi-square; "rs", Spearman's rank correlation ("rs", "r_s", "ρ", or an r
@@ -103,8 +106,18 @@ export interface ReportedResult {
   df: ReportedNumber[];
   /** chi-square's "N = 120" inside the parentheses, or the "n = 90" after a correlation written without df. */
   sampleSize: ReportedNumber | null;
-  /** 'sample-size' when the df were not printed but worked out from the sample size ("r = .30, p = .004, n = 90": df = 88). */
-  dfFrom?: 'sample-size';
+  /**
+   * Set when the df were not printed but worked out: 'sample-size' from the
+   * sample size written with the result ("r = .30, p = .004, n = 90": df =
+   * 88); 'study-sample-size' from the one sample size the document states
+   * for the whole study ("N = 214": df = 212 for a correlation written
+   * without df); 'contingency-table' from a table's dimensions stated with a
+   * chi-square ("a 2 × 3 table": df = 2). The last two are set by the checks
+   * (checks/documentDf.ts), never by the scanner.
+   */
+  dfFrom?: DfSource;
+  /** The document's statement the df were worked out from (dfFrom 'study-sample-size' or 'contingency-table'). */
+  dfStatement?: ContextStatement;
   /** The statistic; null only when not written as a number. */
   value: ReportedNumber | null;
   /** "=" normally; "<" for "F < 1". */
@@ -177,8 +190,41 @@ export interface DeclaredAlpha extends ContextStatement {
   value: number;
 }
 
+/**
+ * What a stated sample size counts: the whole sample ('total': "N = 214",
+ * "214 participants"), a part of it ('subset': "17 men", "cortisol was
+ * available for 96 participants", "180 of the 214"), each group
+ * ('per-group': "20 in each condition", "n = 20 per group"), or the sample
+ * of one test ('test': the N inside "χ2(2, N = 120)" or after "r = .30,").
+ */
+export type SampleScope = 'total' | 'subset' | 'per-group' | 'test';
+
 export interface StatedSampleSize extends ContextStatement {
   value: number;
+  /** Absent when unknown (statements built by hand); the checks then judge by the statement's words. */
+  scope?: SampleScope;
+}
+
+/** Ways of adjusting p-values for multiple comparisons. */
+export type PAdjustmentMethod =
+  | 'bonferroni'
+  | 'sidak'
+  | 'holm'
+  | 'hochberg'
+  | 'fdr'
+  | 'tukey'
+  | 'scheffe'
+  | 'dunnett'
+  | 'games-howell'
+  | 'unspecified';
+
+/** A statement that p-values were adjusted for multiple comparisons ("All post hoc p values were Holm-adjusted"). */
+export interface PAdjustmentStatement extends ContextStatement {
+  method: PAdjustmentMethod;
+  /** The number of comparisons when stated ("for 3 comparisons", "alpha = .05/3"); null otherwise. */
+  comparisons: number | null;
+  /** 'all' for every p of the document; 'post-hoc' for follow-up, pairwise or post hoc comparisons. */
+  appliesTo: 'all' | 'post-hoc';
 }
 
 export interface SphericityStatement extends ContextStatement {
@@ -193,6 +239,12 @@ export interface DocumentContext {
   /** "N = 120", "120 participants", "a sample of 64 students". */
   sampleSizes: StatedSampleSize[];
   sphericity: SphericityStatement[];
+  /**
+   * Document-wide statements that p-values (all, or those of post hoc
+   * comparisons) were adjusted for multiple comparisons. Absent in contexts
+   * built by hand; statements next to a result are found by the checks.
+   */
+  pAdjustments?: PAdjustmentStatement[];
 }
 
 export interface ScanOutput {

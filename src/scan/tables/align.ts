@@ -136,7 +136,7 @@ export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns
   const m = roles.length;
   if (m === 0) return null;
   // Leading cells that can go back to the label: only when there are more cells than columns.
-  const valuesOnly = cells.filter((cell) => cell.shape.shape !== 'mark').length;
+  const valuesOnly = cells.filter((cell) => cell.shape.shape !== 'mark' && cell.shape.shape !== 'empty').length;
   const maxAbsorbed = Math.max(0, valuesOnly - m);
   let best: { score: number; columns: number[]; absorbed: number } | null = null;
   for (let absorbed = 0; absorbed <= Math.min(maxAbsorbed, n); absorbed++) {
@@ -149,8 +149,35 @@ export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns
   return { columns: best.columns, absorbed: best.absorbed };
 }
 
-/** Order-keeping assignment by dynamic programming over (cell, column). */
-function placeFrom(cells: CellToPlace[], roles: ColumnRole[]): { score: number; columns: number[] } | null {
+/**
+ * How much better a cell fits where it was placed than anywhere else it
+ * could go: below this, the placement rests on the tie-break alone.
+ */
+const CLEAR_MARGIN = 0.25;
+
+/**
+ * Whether a placement of a row with cells left out is clear for the columns
+ * that matter (`keyColumns`: the statistic, its df and its p): for each such
+ * column that received a cell, the best placement that keeps the cell out of
+ * that column must score clearly worse. "83.95 57 1.47" under SS, df, MS,
+ * F, p is clear (57 is the only whole number); "2.10 .04" under F, p,
+ * partial eta squared is not (.04 fits p and partial eta squared alike).
+ */
+export function placementIsClear(cells: CellToPlace[], roles: ColumnRole[], placed: { columns: number[]; absorbed: number }, keyColumns: number[]): boolean {
+  const rest = cells.slice(placed.absorbed);
+  const best = placeFrom(rest, roles);
+  if (best === null) return false;
+  for (const column of keyColumns) {
+    const cellIndex = placed.columns.indexOf(column);
+    if (cellIndex < placed.absorbed) continue;
+    const alternative = placeFrom(rest, roles, { cell: cellIndex - placed.absorbed, column });
+    if (alternative !== null && alternative.score > best.score - CLEAR_MARGIN) return false;
+  }
+  return true;
+}
+
+/** Order-keeping assignment by dynamic programming over (cell, column); `forbidden` keeps one cell out of one column. */
+function placeFrom(cells: CellToPlace[], roles: ColumnRole[], forbidden?: { cell: number; column: number }): { score: number; columns: number[] } | null {
   const n = cells.length;
   const m = roles.length;
   // score[i][j]: best score placing cells[0..i) using columns [0..j); choice records the step taken.
@@ -170,7 +197,7 @@ function placeFrom(cells: CellToPlace[], roles: ColumnRole[]): { score: number; 
           bestHere = skip;
           how = 0;
         }
-        const f = fit(roles[j - 1]!, cell.shape);
+        const f = forbidden !== undefined && forbidden.cell === i - 1 && forbidden.column === j - 1 ? NEVER : fit(roles[j - 1]!, cell.shape);
         if (f > NEVER / 2) {
           const place = score[(i - 1) * width + j - 1]! + f + 0.0005 * (m - j);
           if (place > bestHere) {
@@ -179,7 +206,8 @@ function placeFrom(cells: CellToPlace[], roles: ColumnRole[]): { score: number; 
           }
         }
       }
-      if (cell.shape.shape === 'mark') {
+      // Marks and surplus empty cells (extraction leaves extra ones) may be left out.
+      if (cell.shape.shape === 'mark' || cell.shape.shape === 'empty') {
         const drop = score[(i - 1) * width + j]!;
         if (drop > bestHere) {
           bestHere = drop;

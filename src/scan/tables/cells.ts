@@ -183,11 +183,28 @@ put(['m', 'mean', 'means', 'sd', 's.d.', 'se', 's.e.', 'sem', 'mean difference',
 /** Bracketed df after a statistic symbol in a header: "F(1, 170)", "F (2, 57)", "t(58)", "chi2(2)". */
 const HEADER_WITH_DF = /^(f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)$/;
 
+/**
+ * The key without what real headers add to a known name: a footnote letter
+ * glued on ("Cohen db", "P valueb", "F testc"), or "(df)" after a statistic
+ * whose cells hold their df in brackets ("t value (df)": "4.842 (15)").
+ */
+function knownKeyOf(key: string): string | null {
+  const bare = key.replace(/[.:]$/, '');
+  if (ROLE_BY_KEY.has(key)) return key;
+  if (ROLE_BY_KEY.has(bare)) return bare;
+  const withoutDf = bare.replace(/\s*\((?:df|d\.f\.|gl|ddl)\)$/, '');
+  if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
+  const withoutMark = bare.replace(/(?<=[a-z0-9)\]])[a-h]$/, '');
+  if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
+  return null;
+}
+
 /** The meaning of a column from its header text. */
 export function classifyHeader(header: string): ColumnRole {
   const key = headerKey(header);
   if (key === '') return { role: 'unknown' };
-  const known = ROLE_BY_KEY.get(key) ?? ROLE_BY_KEY.get(key.replace(/[.:]$/, ''));
+  const knownKey = knownKeyOf(key);
+  const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) return known.role === 'statistic' ? { ...known, df: [] } : known;
   const withDf = HEADER_WITH_DF.exec(key);
   if (withDf) {
@@ -202,7 +219,7 @@ export function classifyHeader(header: string): ColumnRole {
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
-  return ROLE_BY_KEY.has(key) || ROLE_BY_KEY.has(key.replace(/[.:]$/, '')) || HEADER_WITH_DF.test(key);
+  return knownKeyOf(key) !== null || HEADER_WITH_DF.test(key);
 }
 
 let firstWords: Set<string> | null = null;

@@ -21,6 +21,8 @@
 
 import type { DocumentTable, TableLayout } from '../../documents/types.js';
 import { classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
+import { shapeOf } from './align.js';
+import { readCellPerLineTable } from './cellPerLine.js';
 
 interface Line {
   start: number;
@@ -58,6 +60,12 @@ export function findTextTables(text: string): DocumentTable[] {
   while (index < lines.length) {
     const found = readPipeTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
+      const perLine = TITLE.test(lines[index]!.text) ? readCellPerLineTable(lines, index) : null;
+      if (perLine !== null) {
+        tables.push(perLine.table);
+        index = perLine.lastLine + 1;
+        continue;
+      }
       index++;
       continue;
     }
@@ -173,7 +181,9 @@ function isSpace(code: number): boolean {
 /** A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". */
 function isValueToken(text: string): boolean {
   const kind = readCell(text, 'either').kind;
-  return kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '');
+  if (kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '')) return true;
+  // A number with a bracketed one: "0.59 (0.5)" (M and SD), "4.842 (15)" (t and its df).
+  return shapeOf(text).shape === 'number-bracket';
 }
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
@@ -322,6 +332,17 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   return { label, values };
 }
 
+/** Most blank lines between two rows of one table. */
+const MAX_BLANK_LINES_IN_TABLE = 2;
+
+/** The index of the first non-blank line after `index`, skipping at most MAX_BLANK_LINES_IN_TABLE blank lines; -1 if none. */
+function nonBlankAfter(lines: Line[], index: number): number {
+  for (let at = index + 1; at < lines.length && at <= index + 1 + MAX_BLANK_LINES_IN_TABLE; at++) {
+    if (!isBlank(lines[at])) return at;
+  }
+  return -1;
+}
+
 /** A short line without digits inside a table: "Between subjects", "Within subjects". */
 function isSectionLine(line: Line | undefined): boolean {
   if (line === undefined) return false;
@@ -352,12 +373,13 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       last = index;
       continue;
     }
-    // A section line belongs to the table only when a data row follows it.
-    const next = lines[index + 1];
-    const afterNext = lines[index + 2];
+    // A section line, or a blank line (web pages put them between rows), belongs to the table only when a data row follows it.
+    const next = nonBlankAfter(lines, index);
+    const afterNext = next === -1 ? -1 : nonBlankAfter(lines, next);
     const followed =
-      (next !== undefined && readRowLine(next, false) !== null) ||
-      (isSectionLine(next) && afterNext !== undefined && readRowLine(afterNext, false) !== null);
+      (next !== -1 && readRowLine(lines[next]!, false) !== null) ||
+      (next !== -1 && isSectionLine(lines[next]) && afterNext !== -1 && readRowLine(lines[afterNext]!, false) !== null);
+    if (isBlank(line) && followed) continue;
     if (isSectionLine(line) && followed) {
       rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);
       continue;

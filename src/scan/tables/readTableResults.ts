@@ -38,7 +38,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
-import { bestHeaderShift, isValueRole, placeCells, shapeOf } from './align.js';
+import { bestHeaderShift, isValueRole, placeCells, placementIsClear, shapeOf } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -147,6 +147,8 @@ interface Schema {
   titles: (string | null)[];
   /** True when the body rows' cells stand where the header's columns are (markup, pipes, wide gaps). */
   positional: boolean;
+  /** Columns some header row names (a column without any header text takes no cell that needs placing). */
+  named: boolean[];
 }
 
 /** Body rows whose cells are not at the header's positions: rebuilt from crushed text. */
@@ -195,7 +197,8 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     }
     return null;
   });
-  return { roles, titles, positional };
+  const named = roles.map((_, column) => headerTexts.some((texts) => texts[column] !== ''));
+  return { roles, titles, positional, named };
 }
 
 /** The nearest non-empty header text at or left of `column` in a title row (a spanning cell keeps its text in its first column). */
@@ -254,7 +257,9 @@ function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sc
     first = end;
     index = end;
   }
-  const valueColumns = schema.roles.map((role, column) => ({ role, column })).filter(({ role, column }) => column > 0 && isValueRole(role));
+  const valueColumns = schema.roles
+    .map((role, column) => ({ role, column }))
+    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || schema.named[column]));
   const out: VirtualRow[] = [];
   for (const piece of pieces) {
     const cells = new Array<string>(width).fill('');
@@ -272,11 +277,16 @@ function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sc
         at[piece.valuesFrom + offset] = cellsAt?.[piece.valuesFrom + offset] ?? null;
       });
     } else {
-      const placed = placeCells(
-        values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! })),
-        valueColumns.map(({ role }) => role),
-      );
+      const toPlace = values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! }));
+      const valueRoles = valueColumns.map(({ role }) => role);
+      const placed = placeCells(toPlace, valueRoles);
       if (placed === null) continue;
+      // With cells left out, which cell is which must follow from what they hold, not from the tie-break.
+      const filled = toPlace.filter((cell) => cell.shape.shape !== 'mark' && cell.shape.shape !== 'empty').length;
+      // (A row without a statistic, an error term, keeps its leading columns: "Error 28" under df, F, p.)
+      const keyColumns = valueRoles.flatMap((role, slot) => (['statistic', 'df', 'df1', 'df2', 'p'].includes(role.role) ? [slot] : []));
+      const givesStatistic = placed.columns.some((slot, offset) => slot >= 0 && valueRoles[slot]!.role === 'statistic' && toPlace[offset]!.shape.shape !== 'empty');
+      if (givesStatistic && filled < valueRoles.length && !placementIsClear(toPlace, valueRoles, placed, keyColumns)) continue;
       placed.columns.forEach((slot, offset) => {
         if (slot < 0) return;
         const column = valueColumns[slot]!.column;
@@ -425,7 +435,9 @@ function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, colu
 function readRow(input: RowInput): ReportedResult | null {
   const { row, cellsAt, segment, kind } = input;
   const columns = segment.columns;
-  const statistic = plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
+  // "4.842 (15)": the statistic with its df in brackets, in one cell.
+  const withDf = statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator);
+  const statistic = withDf?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
   const record = (key: TableColumn, cell: NumberCell | null): void => {
@@ -433,9 +445,11 @@ function readRow(input: RowInput): ReportedResult | null {
   };
   record('statistic', statistic);
   const labelDf = readLabelDf(row[0] ?? '');
-  const dfCell = plainNumber(row, cellsAt, columns.get('df'), input.separator);
-  const df1Cell = plainNumber(row, cellsAt, columns.get('df1'), input.separator);
-  const df2Cell = plainNumber(row, cellsAt, columns.get('df2'), input.separator);
+  // "2, 180": both df of an F in the df column.
+  const dfPair = kind === 'F' ? numberPair(row, cellsAt, columns.get('df'), input.separator) : null;
+  const dfCell = dfPair === null ? (withDf?.df.length === 1 ? withDf.df[0]! : plainNumber(row, cellsAt, columns.get('df'), input.separator)) : null;
+  const df1Cell = dfPair?.[0] ?? (withDf?.df.length === 2 ? withDf.df[0]! : plainNumber(row, cellsAt, columns.get('df1'), input.separator));
+  const df2Cell = dfPair?.[1] ?? (withDf?.df.length === 2 ? withDf.df[1]! : plainNumber(row, cellsAt, columns.get('df2'), input.separator));
   record('df', dfCell);
   record('df1', df1Cell);
   record('df2', df2Cell);
@@ -506,6 +520,63 @@ function readRow(input: RowInput): ReportedResult | null {
       errorRow,
     },
   };
+}
+
+const PAIR_CELL = /^\s*(\d{1,5})\s*[,;]\s*(\d{1,6}(?:\.\d+)?)\s*$/;
+
+/** Two df in one cell, "2, 180", with the offsets of each. */
+function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): [NumberCell, NumberCell] | null {
+  if (column === undefined || separator === ',') return null;
+  const cell = row[column] ?? '';
+  const match = PAIR_CELL.exec(cell);
+  if (!match) return null;
+  const at = cellsAt?.[column] ?? null;
+  const firstAt = cell.indexOf(match[1]!);
+  const secondAt = cell.indexOf(match[2]!, firstAt + match[1]!.length);
+  const located = (written: string, offset: number): NumberCell => ({
+    comparator: '=',
+    record: { ...parseReportedNumber(written)!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length },
+  });
+  return [located(match[1]!, firstAt), located(match[2]!, secondAt)];
+}
+
+const STATISTIC_WITH_DF = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*(\d{1,6}(?:\.\d+)?)\s*(?:[,;]\s*(\d{1,6}(?:\.\d+)?)\s*)?[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?\s*$/;
+
+/**
+ * A statistic cell that holds the df too: "4.842 (15)" in a column headed
+ * "t value (df)", "7.16 (2, 42)" for an F. A bracketed number that cannot
+ * be df (a decimal below 1, as in "6.81 (0.078)") is not read as one.
+ */
+function statisticWithDf(
+  row: string[],
+  cellsAt: (LocatedCell | null)[] | null,
+  column: number | undefined,
+  kind: StatisticKind,
+  separator: DecimalSeparator,
+): { statistic: NumberCell; df: NumberCell[] } | null {
+  if (column === undefined || separator === ',') return null;
+  const cell = row[column] ?? '';
+  const match = STATISTIC_WITH_DF.exec(cell);
+  if (!match) return null;
+  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  if (dfTexts.length !== (kind === 'F' ? 2 : 1) || kind === 'z') return null;
+  if (dfTexts.some((text) => Number(text) < 1)) return null;
+  const at = cellsAt?.[column] ?? null;
+  const valueText = match[1]!;
+  const statisticRead = readCell(valueText, separator);
+  if (statisticRead.kind !== 'number') return null;
+  const valueAt = cell.indexOf(valueText);
+  const statistic: NumberCell = {
+    comparator: statisticRead.comparator,
+    record: { ...statisticRead.number, start: at === null ? -1 : at.start + valueAt + statisticRead.start, end: at === null ? -1 : at.start + valueAt + statisticRead.end },
+  };
+  let from = valueAt + valueText.length;
+  const df = dfTexts.map((text) => {
+    const offset = cell.indexOf(text, from);
+    from = offset + text.length;
+    return { comparator: '=' as Comparator, record: { ...parseReportedNumber(text)!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + text.length } };
+  });
+  return { statistic, df };
 }
 
 function stripOffsets(record: ReportedNumber & Partial<LocatedCell>): ReportedNumber {

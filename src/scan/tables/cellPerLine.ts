@@ -1,0 +1,225 @@
+/**
+ * Tables copied with one cell per line, as web pages and some PDF
+ * extractions give them:
+ *
+ *     Table 1 Contrasts run in Experiment 1
+ *     dV/hypothesis
+ *     Effect tested
+ *     F(1,367)
+ *     P
+ *     False-claim inference scores
+ *      H1FIS: NE < FCO
+ *     Familiarity backfire effect
+ *     5.31
+ *     .022a
+ *
+ * The columns are inferred from the header and the repeating pattern of
+ * the rows: the header is the run of cells up to the first value, its
+ * known column names (F(1,367), P) are the value columns, and each body row
+ * is a run of values after the label cells that precede it. How many label
+ * cells a row has is the number most rows have; text cells before them
+ * name a section ("False-claim inference scores") and become a row of
+ * their own. Cells may stand on lines between blank lines, and may carry
+ * the pipes of a table copied from a web page ("| Source |", "DF |").
+ *
+ * Linear in the table's lines; a table is looked for only after a "Table N"
+ * title line, and its search stops at a bounded distance.
+ */
+
+import type { CellSpan, DocumentTable } from '../../documents/types.js';
+import { classifyHeader, headerKey, isKnownHeader } from './cells.js';
+import { shapeOf } from './align.js';
+
+interface Line {
+  start: number;
+  end: number;
+  text: string;
+}
+
+interface Cell {
+  text: string;
+  start: number;
+  end: number;
+  /** Index of its line. */
+  line: number;
+  /** Spaces only: an empty cell. */
+  empty: boolean;
+}
+
+/** Longest cell; a longer line is prose and ends the table. */
+const MAX_CELL_LENGTH = 120;
+/** Most lines between the title and the header's first column name (caption lines, a "From:" line, label headers). */
+const MAX_LINES_TO_HEADER = 14;
+/** Most header cells. */
+const MAX_HEADER_CELLS = 40;
+/** Most body cells read for one table. */
+const MAX_BODY_CELLS = 4000;
+/** Most blank lines in a row between two cells. */
+const MAX_BLANK_RUN = 2;
+
+const TITLE = /^\s{0,8}(?:\*\*|_)?Table\s+[A-Z]?\d{1,3}[A-Za-z]?(?:\*\*|_)?(?=[.:\s]|$)/i;
+const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|[a-h]\s*p\s*[<\u2264=]|Abbreviations?\b)/;
+
+export interface CellPerLineTable {
+  table: DocumentTable;
+  /** Index of the table's last line. */
+  lastLine: number;
+}
+
+/** A one-cell-per-line table whose title is `lines[titleLine]`, or null. */
+export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerLineTable | null {
+  const title = lines[titleLine];
+  if (title === undefined || !TITLE.test(title.text)) return null;
+  const cells = collectCells(lines, titleLine + 1);
+  // The header: from the first known column name, the run of cells up to the first value.
+  let first = -1;
+  for (let index = 0; index < cells.length && cells[index]!.line <= titleLine + MAX_LINES_TO_HEADER; index++) {
+    const cell = cells[index]!;
+    if (isValueCell(cell)) return null;
+    if (isColumnName(cell.text)) {
+      first = index;
+      break;
+    }
+  }
+  if (first === -1) return null;
+  let firstValue = first;
+  while (firstValue < cells.length && firstValue - first < MAX_HEADER_CELLS && !isValueCell(cells[firstValue]!)) firstValue++;
+  if (firstValue >= cells.length || firstValue - first >= MAX_HEADER_CELLS) return null;
+  // The header ends with its last column name; text cells after it are the first row's label.
+  let bodyStart = firstValue;
+  while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
+  const names = cells.slice(first, bodyStart).filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
+  const roles = names.map((cell) => classifyHeader(cell.text));
+  if (names.length < 2 || !roles.some((role) => role.role === 'statistic' || role.role === 'p')) return null;
+  const body = cells.slice(bodyStart);
+  const labelCount = typicalLabelCount(body);
+  // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
+  const startsWithLabel = classifyHeader(cells[first]!.text).role === 'label';
+  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));
+  const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
+  const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
+  let pendingText: Cell[] = [];
+  let index = 0;
+  let lastLine = cells[bodyStart]!.line;
+  while (index < body.length) {
+    const cell = body[index]!;
+    if (!isValueCell(cell)) {
+      pendingText.push(cell);
+      index++;
+      continue;
+    }
+    let end = index;
+    while (end < body.length && isValueCell(body[end]!)) end++;
+    const values = body.slice(index, end);
+    const label = pendingText.slice(-labelCount);
+    const section = pendingText.slice(0, pendingText.length - label.length);
+    if (section.length > 0) {
+      rows.push([section.map((text) => text.text).join(' ')]);
+      spans.push([spanOf(section)]);
+    }
+    rows.push([label.map((text) => text.text).join(' '), ...values.map((value) => (value.empty ? '' : value.text))]);
+    spans.push([spanOf(label), ...values.map((value) => (value.empty ? null : spanOf1(value)))]);
+    lastLine = body[end - 1]!.line;
+    pendingText = [];
+    index = end;
+  }
+  if (rows.length < 2) return null;
+  const lastCell = body.filter((cell) => cell.line <= lastLine).pop()!;
+  return {
+    table: {
+      start: title.start + (title.text.length - title.text.trimStart().length),
+      end: lastCell.end,
+      caption: title.text.trim(),
+      notes: [],
+      rows,
+      headerRows: 1,
+      cells: spans,
+      layout: 'cell-per-line',
+    },
+    lastLine,
+  };
+}
+
+/** The cells after `from`: one per non-blank line, up to a note, a long line of prose, or a gap of blank lines. */
+function collectCells(lines: Line[], from: number): Cell[] {
+  const cells: Cell[] = [];
+  let blankRun = 0;
+  for (let index = from; index < lines.length && cells.length < MAX_BODY_CELLS; index++) {
+    const line = lines[index]!;
+    const inner = stripPipes(line.text);
+    if (inner === null) {
+      if (line.text.trim() === '' && ++blankRun > MAX_BLANK_RUN) break;
+      continue;
+    }
+    if (inner.text.trim() === '') {
+      // A line of spaces inside a table copied from a web page is an empty cell.
+      if (line.text.length > 0 && cells.length > 0) cells.push({ text: '', start: line.start, end: line.start, line: index, empty: true });
+      blankRun = 0;
+      continue;
+    }
+    blankRun = 0;
+    const text = inner.text.trim();
+    if (text.length > MAX_CELL_LENGTH || NOTE.test(text) || (cells.length > 0 && TITLE.test(text))) break;
+    const start = line.start + inner.offset + (inner.text.length - inner.text.trimStart().length);
+    cells.push({ text, start, end: start + text.length, line: index, empty: false });
+  }
+  return cells;
+}
+
+/** A line without the pipes a web page's table leaves around a cell ("| Source |", "DF |"); null for an empty line. */
+function stripPipes(text: string): { text: string; offset: number } | null {
+  if (text.length === 0) return null;
+  let start = 0;
+  let end = text.length;
+  while (start < end && (text[start] === ' ' || text[start] === '|')) start++;
+  while (end > start && (text[end - 1] === ' ' || text[end - 1] === '|')) end--;
+  if (start === end) {
+    // Only spaces or pipes: one pipe ends an empty cell ("|"), spaces are an empty cell, "| |" separates rows.
+    const pipes = text.split('|').length - 1;
+    if (pipes === 1 || pipes === 0) return { text: ' ', offset: 0 };
+    return null;
+  }
+  return { text: text.slice(start, end), offset: start };
+}
+
+function isValueCell(cell: Cell): boolean {
+  if (cell.empty) return true;
+  const shape = shapeOf(cell.text).shape;
+  return shape !== 'text';
+}
+
+/** A known column name other than a bare label ("Source" counts too: it starts the header). */
+function isColumnName(text: string): boolean {
+  return text.length <= 40 && isKnownHeader(headerKey(text));
+}
+
+/** The number of text cells most rows have before their values. */
+function typicalLabelCount(body: Cell[]): number {
+  const counts = new Map<number, number>();
+  let run = 0;
+  let index = 0;
+  while (index < body.length) {
+    if (!isValueCell(body[index]!)) {
+      run++;
+      index++;
+      continue;
+    }
+    if (run > 0) counts.set(run, (counts.get(run) ?? 0) + 1);
+    while (index < body.length && isValueCell(body[index]!)) index++;
+    run = 0;
+  }
+  let best = 1;
+  let bestCount = 0;
+  for (const [count, times] of counts) if (times > bestCount || (times === bestCount && count < best)) [best, bestCount] = [count, times];
+  return best;
+}
+
+function spanOf1(cell: Cell): CellSpan {
+  return { start: cell.start, end: cell.end };
+}
+
+function spanOf(cells: Cell[]): CellSpan | null {
+  const present = cells.filter((cell) => !cell.empty);
+  if (present.length === 0) return null;
+  return { start: present[0]!.start, end: present[present.length - 1]!.end };
+}
