@@ -21,6 +21,8 @@ export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)". */
   | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number }
+  /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]". */
+  | { shape: 'number-interval'; value: number }
   /** Two whole numbers with a comma: a df pair "2, 180". */
   | { shape: 'pair'; first: number; second: number }
   | { shape: 'ns' }
@@ -32,6 +34,7 @@ export type CellShape =
 const PAIR = /^(\d{1,5})\s*[,;]\s*(\d{1,6}(?:\.\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021]{1,4}|[a-j])$/;
+const NUMBER_INTERVAL = /^([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*(?:,|;|to|\u2013|-)\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {
@@ -53,6 +56,11 @@ export function shapeOf(cell: string): CellShape {
       return { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
     }
   }
+  const interval = NUMBER_INTERVAL.exec(text);
+  if (interval) {
+    const outer = readCell(interval[1]!, 'either');
+    if (outer.kind === 'number') return { shape: 'number-interval', value: outer.number.value };
+  }
   return { shape: 'text' };
 }
 
@@ -62,6 +70,8 @@ export function isValueShape(shape: CellShape): boolean {
 }
 
 const NEVER = -1e6;
+/** What leaving out an empty cell costs (see placeFrom). */
+const EMPTY_DROP_COST = 0.3;
 
 /**
  * How well a cell fits a column of the given meaning: positive when it fits
@@ -74,8 +84,12 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'text') return role.role === 'label' ? 1 : -2;
   switch (role.role) {
     case 'statistic': {
-      if (cell.shape === 'ns' || cell.shape === 'pair') return -3;
-      if (cell.shape === 'number-bracket') return role.kind === 'r' ? -1 : 1.5;
+      if (cell.shape === 'ns' || cell.shape === 'pair' || cell.shape === 'number-interval') return -3;
+      // A bracketed number in a statistic column is its df only where the header says so ("t (df)").
+      // Whole-number df only: "62.3 (9.64)" beside "1.48 (29)" is a mean and SD.
+      if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 ? 3 : -3;
+      // Under "t (df)" the cells carry their df; a bare number there is weak evidence.
+      if (role.dfInCell === true) return 0.5;
       if (role.kind === 'F' || role.kind === 'chi2') return cell.value >= 0 ? 2 : -4;
       if (role.kind === 'r') return Math.abs(cell.value) <= 1 ? 2 : -4;
       return 2;
@@ -92,6 +106,7 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       if (cell.value < 0 || cell.value > 1) return -5;
       return cell.comparator !== '=' ? 2.5 : cell.decimals >= 2 ? 2 : 1;
     case 'effect':
+      if (cell.shape === 'number-interval') return 1.5;
       if (cell.shape !== 'number') return -2;
       if (role.effect === 'cohens-d' || role.effect === 'hedges-g' || role.effect === 'cohens-f') return 1;
       if (role.effect === 'r') return Math.abs(cell.value) <= 1 ? 1.5 : -4;
@@ -102,7 +117,7 @@ export function fit(role: ColumnRole, cell: CellShape): number {
     case 'n':
       return cell.shape === 'number' && cell.decimals === 0 && cell.value >= 1 ? 1.5 : -2;
     case 'descriptive':
-      return cell.shape === 'number-bracket' ? 1 : cell.shape === 'number' ? 0.5 : -1;
+      return cell.shape === 'number-bracket' || cell.shape === 'number-interval' ? 1 : cell.shape === 'number' ? 0.5 : -1;
     case 'label':
       return -1;
     default:
@@ -135,9 +150,9 @@ export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns
   const n = cells.length;
   const m = roles.length;
   if (m === 0) return null;
-  // Leading cells that can go back to the label: only when there are more cells than columns.
-  const valuesOnly = cells.filter((cell) => cell.shape.shape !== 'mark' && cell.shape.shape !== 'empty').length;
-  const maxAbsorbed = Math.max(0, valuesOnly - m);
+  // Leading cells may go back to the label (at a cost, so only cells that fit no column do):
+  // "Treatment 7.85 (3.73) 5.06 (4.71) 0.60 3.48 (33) .001" under d, t (df), p.
+  const maxAbsorbed = cells.filter((cell) => cell.shape.shape !== 'mark' && cell.shape.shape !== 'empty').length;
   let best: { score: number; columns: number[]; absorbed: number } | null = null;
   for (let absorbed = 0; absorbed <= Math.min(maxAbsorbed, n); absorbed++) {
     const placed = placeFrom(cells.slice(absorbed), roles);
@@ -206,9 +221,10 @@ function placeFrom(cells: CellToPlace[], roles: ColumnRole[], forbidden?: { cell
           }
         }
       }
-      // Marks and surplus empty cells (extraction leaves extra ones) may be left out.
+      // Marks may be left out; so may surplus empty cells (extraction leaves extra ones), at a cost,
+      // since an empty cell usually holds its column's place ("0.27 1.48 (29) .15 N/A N/A N/A").
       if (cell.shape.shape === 'mark' || cell.shape.shape === 'empty') {
-        const drop = score[(i - 1) * width + j]!;
+        const drop = score[(i - 1) * width + j]! - (cell.shape.shape === 'empty' ? EMPTY_DROP_COST : 0);
         if (drop > bestHere) {
           bestHere = drop;
           how = 2;

@@ -29,7 +29,7 @@ export type CellValue =
     };
 
 /** "—", "–", "-", "--", "." and "" mark an empty cell. */
-const EMPTY_CELL = /^[\s\u2014\u2013\u2012\u2212.\-]*$/;
+const EMPTY_CELL = /^(?:[\s\u2014\u2013\u2012\u2212.\-]*|\s*(?:n\/a|na|n\.a\.|not applicable)[a-h]?\s*)$/i;
 const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
 /**
  * An optional comparator, an optional sign, the digits with their
@@ -38,7 +38,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:p\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+  /^(?:p\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h]{1,3})?$/;
 
 /**
  * How a table writes its decimals: '.' ("4.21", thousands "1,234.5") or ','
@@ -127,7 +127,8 @@ export function isNumberCell(cell: string): boolean {
 export type ColumnRole =
   | { role: 'label' }
   | { role: 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' }
-  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[] }
+  /** `dfInCell`: the header says the cells hold their df in brackets ("t (df)": "4.842 (15)"). */
+  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[]; dfInCell?: boolean }
   | { role: 'effect'; effect: EffectKind }
   | { role: 'descriptive' }
   | { role: 'unknown' };
@@ -196,6 +197,10 @@ function knownKeyOf(key: string): string | null {
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
   const withoutMark = bare.replace(/(?<=[a-z0-9)\]])[a-h]$/, '');
   if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
+  // A qualifier in brackets after a known name: "Cohen d (95% CI)", "t (two-tailed)", "p (adjusted)".
+  // (Not df: "F(1, 28)" is read with its df below.)
+  const withoutQualifier = HEADER_WITH_DF.test(bare) ? bare : bare.replace(/\s*\([^()]{1,30}\)$/, '');
+  if (withoutQualifier !== bare && withoutQualifier.length >= 1 && ROLE_BY_KEY.has(withoutQualifier)) return withoutQualifier;
   return null;
 }
 
@@ -205,7 +210,11 @@ export function classifyHeader(header: string): ColumnRole {
   if (key === '') return { role: 'unknown' };
   const knownKey = knownKeyOf(key);
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
-  if (known) return known.role === 'statistic' ? { ...known, df: [] } : known;
+  if (known) {
+    if (known.role !== 'statistic') return known;
+    const dfInCell = /\((?:df|d\.f\.|gl|ddl)\)\s*[.:]?$/.test(key);
+    return dfInCell ? { ...known, df: [], dfInCell } : { ...known, df: [] };
+  }
   const withDf = HEADER_WITH_DF.exec(key);
   if (withDf) {
     const [, symbol = '', first = '', second] = withDf;

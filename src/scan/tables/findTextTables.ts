@@ -182,8 +182,9 @@ function isSpace(code: number): boolean {
 function isValueToken(text: string): boolean {
   const kind = readCell(text, 'either').kind;
   if (kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '')) return true;
-  // A number with a bracketed one: "0.59 (0.5)" (M and SD), "4.842 (15)" (t and its df).
-  return shapeOf(text).shape === 'number-bracket';
+  // A number with a bracketed one ("0.59 (0.5)": M and SD; "4.842 (15)": t and its df), a df pair ("2, 180"), an estimate with its interval.
+  const shape = shapeOf(text).shape;
+  return shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair';
 }
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
@@ -347,7 +348,9 @@ function nonBlankAfter(lines: Line[], index: number): number {
 function isSectionLine(line: Line | undefined): boolean {
   if (line === undefined) return false;
   const text = line.text.trim();
-  if (text === '' || text.length > 60 || /\d/.test(text) || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
+  if (text === '' || text.length > 60 || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
+  // Digits may stand in a name ("GAD-7", "SF-36 PCS"), not as a value at the line's end.
+  if (/\d/.test(text) && isValueToken(text.split(/\s+/).pop()!)) return false;
   return text.split(/\s+/).length <= 6;
 }
 

@@ -29,6 +29,7 @@ import { scanText } from '../scan.js';
 import type {
   Comparator,
   EffectKind,
+  ReportedInterval,
   ReportedEffect,
   ReportedNumber,
   ReportedResult,
@@ -48,6 +49,8 @@ type RoleKey = 'statistic' | 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' | `e
 
 interface Segment {
   columns: Map<RoleKey, number>;
+  /** The statistic's header says its cells hold their df in brackets. */
+  dfInCell: boolean;
   /** Title over the statistic column in a spanning header row ("Recall"), when the table tests several outcomes. */
   title: string | null;
   /** df printed in the statistic's header: "F(1, 170)". */
@@ -317,17 +320,18 @@ function spanOfCells(cells: (LocatedCell | null)[]): LocatedCell | null {
  */
 function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (string | null)[]): Segment[] {
   const segments: Segment[] = [];
-  let current: Segment = { columns: new Map(), title: null, headerDf: [] };
+  let current: Segment = { columns: new Map(), title: null, headerDf: [], dfInCell: false };
   roles.forEach((role, column) => {
     const key = roleKey(role, kind);
     if (key === null) return;
     if (current.columns.has(key) && current.columns.has('statistic')) {
       segments.push(current);
-      current = { columns: new Map(), title: null, headerDf: [] };
+      current = { columns: new Map(), title: null, headerDf: [], dfInCell: false };
     }
     current.columns.set(key, column);
     if (key === 'statistic' && role.role === 'statistic') {
       current.headerDf = role.df;
+      current.dfInCell = role.dfInCell === true;
       current.title = upperHeaders[column] ?? null;
     }
   });
@@ -435,8 +439,8 @@ function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, colu
 function readRow(input: RowInput): ReportedResult | null {
   const { row, cellsAt, segment, kind } = input;
   const columns = segment.columns;
-  // "4.842 (15)": the statistic with its df in brackets, in one cell.
-  const withDf = statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator);
+  // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
+  const withDf = statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
   const statistic = withDf?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
@@ -487,10 +491,18 @@ function readRow(input: RowInput): ReportedResult | null {
   for (const [key, column] of columns) {
     if (!key.startsWith('effect:')) continue;
     const effectKind = key.slice('effect:'.length) as EffectKind;
-    const cell = plainNumber(row, cellsAt, column, input.separator);
+    const withInterval = plainNumber(row, cellsAt, column, input.separator) === null ? numberWithInterval(row, cellsAt, column, input.separator) : null;
+    const cell = withInterval?.cell ?? plainNumber(row, cellsAt, column, input.separator);
     if (cell === null) continue;
     if (CELL_COLUMNS.has(effectKind)) cells[effectKind as TableColumn] = cell.record;
-    effects.push({ kind: effectKind, comparator: cell.comparator, value: stripOffsets(cell.record), interval: null, start: cell.record.start, end: cell.record.end });
+    effects.push({
+      kind: effectKind,
+      comparator: cell.comparator,
+      value: stripOffsets(cell.record),
+      interval: withInterval?.interval ?? null,
+      start: cell.record.start,
+      end: withInterval?.end ?? cell.record.end,
+    });
   }
   effects.sort((a, b) => a.start - b.start);
 
@@ -519,6 +531,37 @@ function readRow(input: RowInput): ReportedResult | null {
       cells,
       errorRow,
     },
+  };
+}
+
+const INTERVAL_CELL = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*(?:,|;|to|\u2013|-)\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[)\]]/;
+
+/** An estimate with its interval in one cell: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; the level is not stated in the cell. */
+function numberWithInterval(
+  row: string[],
+  cellsAt: (LocatedCell | null)[] | null,
+  column: number | undefined,
+  separator: DecimalSeparator,
+): { cell: NumberCell; interval: ReportedInterval; end: number } | null {
+  if (column === undefined || separator === ',') return null;
+  const text = row[column] ?? '';
+  const match = INTERVAL_CELL.exec(text);
+  if (!match) return null;
+  const read = (written: string): ReportedNumber | null => {
+    const cell = readCell(written, separator);
+    return cell.kind === 'number' ? cell.number : null;
+  };
+  const value = read(match[1]!);
+  const low = read(match[2]!);
+  const high = read(match[3]!);
+  if (value === null || low === null || high === null) return null;
+  const at = cellsAt?.[column] ?? null;
+  const valueAt = text.indexOf(match[1]!);
+  const start = at === null ? -1 : at.start + valueAt;
+  return {
+    cell: { comparator: '=', record: { ...value, start, end: at === null ? -1 : start + match[1]!.length } },
+    interval: { level: null, low, high },
+    end: at === null ? -1 : at.start + match.index + match[0].length,
   };
 }
 
@@ -553,6 +596,7 @@ function statisticWithDf(
   column: number | undefined,
   kind: StatisticKind,
   separator: DecimalSeparator,
+  dfInCell: boolean,
 ): { statistic: NumberCell; df: NumberCell[] } | null {
   if (column === undefined || separator === ',') return null;
   const cell = row[column] ?? '';
@@ -560,7 +604,7 @@ function statisticWithDf(
   if (!match) return null;
   const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
   if (dfTexts.length !== (kind === 'F' ? 2 : 1) || kind === 'z') return null;
-  if (dfTexts.some((text) => Number(text) < 1)) return null;
+  if (dfTexts.some((text) => Number(text) < 1 || (!dfInCell && text.includes('.')))) return null;
   const at = cellsAt?.[column] ?? null;
   const valueText = match[1]!;
   const statisticRead = readCell(valueText, separator);
