@@ -256,3 +256,8 @@ export const LONGEST_HEADER_WORDS = 5;
 export function statisticKindOf(role: ColumnRole): StatisticKind | null {
   return role.role === 'statistic' ? role.kind : null;
 }
+
+/** Every header name the vocabulary knows (lower case), for reading headers whose names ran together. */
+export function knownHeaderNames(): readonly string[] {
+  return [...ROLE_BY_KEY.keys()];
+}

@@ -23,6 +23,7 @@ import type { DocumentTable, TableLayout } from '../../documents/types.js';
 import { classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
 import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
+import { readGluedTable } from './glued.js';
 
 interface Line {
   start: number;
@@ -60,10 +61,11 @@ export function findTextTables(text: string): DocumentTable[] {
   while (index < lines.length) {
     const found = readPipeTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
-      const perLine = TITLE.test(lines[index]!.text) ? readCellPerLineTable(lines, index) : null;
-      if (perLine !== null) {
-        tables.push(perLine.table);
-        index = perLine.lastLine + 1;
+      const rebuilt = (TITLE.test(lines[index]!.text) ? readCellPerLineTable(lines, index) : null) ?? readGluedTable(lines, index);
+      if (rebuilt !== null) {
+        const title = rebuilt.table.caption === null ? readTitle(lines, index) : null;
+        tables.push(title === null ? rebuilt.table : { ...rebuilt.table, caption: title.caption, start: lines[title.firstLine]!.start });
+        index = rebuilt.lastLine + 1;
         continue;
       }
       index++;
@@ -344,6 +346,21 @@ function nonBlankAfter(lines: Line[], index: number): number {
   return -1;
 }
 
+/** Most section lines in a row before a data row ("UQYBT" / "Composite score (%)" / rows). */
+const MAX_SECTION_LINES = 3;
+
+/** True when, after `index`, a data row follows within a few section lines (and blank lines between). */
+function leadsToDataRow(lines: Line[], index: number): boolean {
+  let at = index;
+  for (let step = 0; step < MAX_SECTION_LINES; step++) {
+    at = nonBlankAfter(lines, at);
+    if (at === -1) return false;
+    if (readRowLine(lines[at]!, false) !== null) return true;
+    if (!isSectionLine(lines[at])) return false;
+  }
+  return false;
+}
+
 /** A short line without digits inside a table: "Between subjects", "Within subjects". */
 function isSectionLine(line: Line | undefined): boolean {
   if (line === undefined) return false;
@@ -377,11 +394,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       continue;
     }
     // A section line, or a blank line (web pages put them between rows), belongs to the table only when a data row follows it.
-    const next = nonBlankAfter(lines, index);
-    const afterNext = next === -1 ? -1 : nonBlankAfter(lines, next);
-    const followed =
-      (next !== -1 && readRowLine(lines[next]!, false) !== null) ||
-      (next !== -1 && isSectionLine(lines[next]) && afterNext !== -1 && readRowLine(lines[afterNext]!, false) !== null);
+    const followed = leadsToDataRow(lines, index);
     if (isBlank(line) && followed) continue;
     if (isSectionLine(line) && followed) {
       rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);

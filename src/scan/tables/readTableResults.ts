@@ -155,7 +155,7 @@ interface Schema {
 }
 
 /** Body rows whose cells are not at the header's positions: rebuilt from crushed text. */
-const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line', 'glued']);
+const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line']);
 
 /**
  * Reads the header rows into column roles. The bottom header row names the
