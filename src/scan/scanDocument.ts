@@ -1,6 +1,6 @@
 import type { DocumentTable, Region } from '../documents/types.js';
 import { scanText } from './scan.js';
-import { findTextTables, readTableResults } from './tables/index.js';
+import { findTextTables, findUnrecognisedTables, readTables, type UnreadTable } from './tables/index.js';
 import { readDescriptives } from './descriptives/index.js';
 import type { ReportedResult, ScanOutput } from './types.js';
 
@@ -31,10 +31,14 @@ function distinctTables(tables: readonly DocumentTable[]): DocumentTable[] {
  * cited title such as "F(1, 20) = 4.2 is not enough" is not a result of
  * this document.
  */
-export function scanDocument(document: ScannableDocument): ScanOutput {
+/** A document's scan, with the results tables it could not read in full. */
+export type DocumentScan = ScanOutput & { tablesNotRead: UnreadTable[] };
+
+export function scanDocument(document: ScannableDocument): DocumentScan {
   const written = scanText(document.text);
   const allTables = [...document.tables, ...findTextTables(document.text)];
-  const tabled = readTableResults(document.text, allTables).filter(
+  const tables = readTables(document.text, allTables);
+  const tabled = tables.results.filter(
     // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
     (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
   );
@@ -50,5 +54,8 @@ export function scanDocument(document: ScannableDocument): ScanOutput {
     results,
     context: written.context,
     descriptives: descriptives.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
+    tablesNotRead: [...tables.unread, ...findUnrecognisedTables(document.text, allTables, written.results)]
+      .filter((table) => !inRegion(table.start, document.regions, 'references'))
+      .sort((a, b) => a.start - b.start),
   };
 }

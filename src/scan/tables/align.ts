@@ -71,7 +71,7 @@ export function isValueShape(shape: CellShape): boolean {
 
 const NEVER = -1e6;
 /** What leaving out an empty cell costs (see placeFrom). */
-const EMPTY_DROP_COST = 0.3;
+const EMPTY_DROP_COST = 0.5;
 
 /**
  * How well a cell fits a column of the given meaning: positive when it fits

@@ -13,11 +13,11 @@
  *
  * Rows that are not effects: error rows (Error, Residual(s), Within, Within
  * groups, Error (condition)) are read as the error term of the effects above
- * them; Total and Corrected total are skipped. Intercept rows are skipped
- * too: their test (grand mean = 0) is not a result of the design, its value
- * depends on where the scale starts, nobody discusses it, and in
- * repeated-measures output it is tested against an error term that the
- * layout does not show, so the nearest error row would often be wrong.
+ * them; Total and Corrected total are skipped. An Intercept row is read
+ * only when the table has a single error row: its test (grand mean = 0) is
+ * printed and can be checked like any other, but in repeated-measures
+ * output it is tested against an error term that the layout does not show,
+ * so the nearest error row would often be wrong there.
  *
  * A row whose cell already holds a complete written result ("t(58) = 2.10,
  * p = .04") is left to the text scanner, which finds it there.
@@ -71,11 +71,24 @@ const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
 
 /** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */
 export function readTableResults(text: string, tables: DocumentTable[]): ReportedResult[] {
+  return readTables(text, tables).results;
+}
+
+/**
+ * Every table's results, and the tables that look like results tables
+ * (their header names a test statistic or a p column) whose statistics
+ * could not all be tied to their df and p: an audit lists those, so that it
+ * never looks cleaner than it is.
+ */
+export function readTables(text: string, tables: DocumentTable[]): { results: ReportedResult[]; unread: UnreadTable[] } {
   const results: ReportedResult[] = [];
+  const unread: UnreadTable[] = [];
   distinctTables(tables).forEach((table, index) => {
-    for (const result of readTable(text, table, index)) results.push(result);
+    const reading = readTable(text, table, index);
+    for (const result of reading.results) results.push(result);
+    if (reading.unread !== null) unread.push(reading.unread);
   });
-  return results.sort((a, b) => a.start - b.start);
+  return { results: results.sort((a, b) => a.start - b.start), unread };
 }
 
 /**
@@ -91,35 +104,109 @@ function distinctTables(tables: DocumentTable[]): DocumentTable[] {
   return kept.sort((a, b) => a.start - b.start);
 }
 
-function readTable(text: string, table: DocumentTable, tableIndex: number): ReportedResult[] {
+/** A table that looks like a results table but whose statistics could not all be read, and why. */
+export interface UnreadTable {
+  /** 0-based index of the table in the document, in reading order; null for a titled block no reader recognised as a table. */
+  tableIndex: number | null;
+  caption: string | null;
+  start: number;
+  end: number;
+  /** Rows that print a statistic (or, for a table of p-values only, a p). */
+  rowsWithStatistic: number;
+  /** Of those, rows read as results. */
+  rowsRead: number;
+  reason: UnreadReason;
+}
+
+export type UnreadReason =
+  /** The header names p but no test statistic: nothing to recompute. */
+  | 'no-statistic-column'
+  /** The header mentions a test statistic or p in words the reader does not know. */
+  | 'columns-not-recognised'
+  /** A table title with statistics after it whose layout was not recognised as a table. */
+  | 'layout-not-recognised'
+  /** Statistics whose df are printed nowhere the table ties to them (df column, error row, header, label, note). */
+  | 'no-df'
+  /** Rows whose cells could not be put under the header's columns without guessing. */
+  | 'cells-not-placed'
+  /** A z column without p: it may hold standard scores, not tests. */
+  | 'z-without-p';
+
+/**
+ * A header cell that names a test statistic or a p-value in some spelling,
+ * known or not: a lone F, t, z, H, χ2, X2 or p, or the words chi, sig,
+ * p-value, statistic (common practice: how results tables label columns).
+ */
+export function mentionsStatistic(cell: string): boolean {
+  if (cell.length > 60) return false;
+  const key = normaliseText(cell).text.toLowerCase();
+  return /(?:^|[^a-z])(?:f|t|z|h|x2|chi2?|p|sig|p-?value|statistic|chi-?square[d]?)(?![a-z])/.test(key);
+}
+
+function unreadTable(table: DocumentTable, tableIndex: number, reason: UnreadReason, rowsWithStatistic: number, rowsRead: number): UnreadTable {
+  return { tableIndex, caption: table.caption, start: table.start, end: table.end, rowsWithStatistic, rowsRead, reason };
+}
+
+interface TableReading {
+  results: ReportedResult[];
+  unread: UnreadTable | null;
+}
+
+function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
+  const nothing: TableReading = { results: [], unread: null };
   const rows = table.rows;
   const headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
-  if (headerCount < 1 || headerCount >= rows.length) return [];
+  if (headerCount < 1 || headerCount >= rows.length) return nothing;
   const located = table.cells ?? locateRows(text, table, headerCount);
   const schema = readSchema(rows, headerCount, table.layout);
   const roles = schema.roles;
   const kind = STATISTIC_PRIORITY.find((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
-  if (kind === undefined) return [];
+  const bodyRows = rows.length - headerCount;
+  if (kind === undefined) {
+    // A table of p-values alone (group comparisons with only a p column) is a results table plumbline cannot check.
+    const pColumn = roles.findIndex((role) => role.role === 'p');
+    const withP = pColumn < 1 ? 0 : rows.slice(headerCount).filter((row) => readCell(row[pColumn] ?? '', 'either').kind === 'number').length;
+    if (withP > 0) return { results: [], unread: unreadTable(table, tableIndex, 'no-statistic-column', withP, 0) };
+    // A header that mentions a test statistic in words the vocabulary does not know ("F- value", "Chi value (x2)").
+    const withNumbers = rows.slice(headerCount).filter((row) => row.slice(1).some((cell) => shapeOf(cell).shape.startsWith('number'))).length;
+    const mentions = rows.slice(0, headerCount).some((row) => row.some((cell) => mentionsStatistic(cell)));
+    return mentions && withNumbers > 0 ? { results: [], unread: unreadTable(table, tableIndex, 'columns-not-recognised', withNumbers, 0) } : nothing;
+  }
   // A column of z without p may hold standard scores, not tests.
   const segments = buildSegments(roles, kind, schema.titles).filter((segment) => kind !== 'z' || segment.columns.has('p'));
-  if (segments.length === 0) return [];
+  if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0) };
 
   const noteText = [...table.notes, table.caption ?? ''].join(' ');
   const noteDf = readNoteDf(noteText);
   const noteN = readNoteSampleSize(noteText);
-  const virtualRows = rows.slice(headerCount).flatMap((row, offset) => virtualRowsOf(row, located[headerCount + offset] ?? null, schema));
+  let unplaced = 0;
+  const virtualRows = rows.slice(headerCount).flatMap((row, offset) => {
+    const pieces = virtualRowsOf(row, located[headerCount + offset] ?? null, schema);
+    unplaced += pieces.unplaced;
+    return pieces.rows;
+  });
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
   const results: ReportedResult[] = [];
+  let rowsWithStatistic = 0;
+  let rowsRead = 0;
+  let rowsWithoutDf = 0;
 
+  // The intercept's test is read only where one error row serves every effect (a between-subjects
+  // table): in repeated-measures output it is tested against an error term the layout does not show.
+  const singleErrorTerm = errorRows.filter(Boolean).length === 1;
   for (let index = 0; index < virtualRows.length; index++) {
     const { cells: row, at: cellsAt } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
-    if (errorRows[index] || TOTAL_LABEL.test(labelKey) || INTERCEPT_LABEL.test(labelKey)) continue;
+    if (errorRows[index] || TOTAL_LABEL.test(labelKey) || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
     if (row.some((cell) => cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0)) continue;
+    const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
+    if (hasStatistic) rowsWithStatistic++;
     const errorIndex = nearestErrorRow(errorRows, index);
     const rowSpan = spanOfRow(row, cellsAt);
     if (rowSpan === null) continue;
+    let read = false;
+    let missingDf = false;
     for (const segment of segments) {
       const result = readRow({
         text,
@@ -136,10 +223,19 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Repo
         rowSpan,
         separator,
       });
-      if (result !== null) results.push(result);
+      if (result === 'no-df') missingDf = true;
+      else if (result !== null) {
+        results.push(result);
+        read = true;
+      }
     }
+    if (read) rowsRead++;
+    else if (hasStatistic && missingDf) rowsWithoutDf++;
   }
-  return results;
+  const missed = rowsWithStatistic - rowsRead + unplaced;
+  if (missed <= 0) return { results, unread: null };
+  const reason: UnreadReason = rowsWithoutDf >= unplaced && rowsWithoutDf > 0 ? 'no-df' : 'cells-not-placed';
+  return { results, unread: unreadTable(table, tableIndex, reason, rowsWithStatistic + unplaced, rowsRead) };
 }
 
 /** The meaning of each column of a table, and the titles spanning headers put over them. */
@@ -244,7 +340,7 @@ interface VirtualRow {
  * positions and the piece sits where the header says, otherwise by fit
  * (align.ts).
  */
-function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): VirtualRow[] {
+function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
   const width = schema.roles.length;
   const shapes = row.map(shapeOf);
   const pieces: { first: number; valuesFrom: number; end: number }[] = [];
@@ -264,6 +360,7 @@ function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sc
     .map((role, column) => ({ role, column }))
     .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || schema.named[column]));
   const out: VirtualRow[] = [];
+  let unplaced = 0;
   for (const piece of pieces) {
     const cells = new Array<string>(width).fill('');
     const at = new Array<LocatedCell | null>(width).fill(null);
@@ -283,13 +380,20 @@ function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sc
       const toPlace = values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! }));
       const valueRoles = valueColumns.map(({ role }) => role);
       const placed = placeCells(toPlace, valueRoles);
-      if (placed === null) continue;
+      const hasNumbers = toPlace.some((cell) => cell.shape.shape.startsWith('number'));
+      if (placed === null) {
+        if (hasNumbers) unplaced++;
+        continue;
+      }
       // With cells left out, which cell is which must follow from what they hold, not from the tie-break.
       const filled = toPlace.filter((cell) => cell.shape.shape !== 'mark' && cell.shape.shape !== 'empty').length;
       // (A row without a statistic, an error term, keeps its leading columns: "Error 28" under df, F, p.)
       const keyColumns = valueRoles.flatMap((role, slot) => (['statistic', 'df', 'df1', 'df2', 'p'].includes(role.role) ? [slot] : []));
       const givesStatistic = placed.columns.some((slot, offset) => slot >= 0 && valueRoles[slot]!.role === 'statistic' && toPlace[offset]!.shape.shape !== 'empty');
-      if (givesStatistic && filled < valueRoles.length && !placementIsClear(toPlace, valueRoles, placed, keyColumns)) continue;
+      if (givesStatistic && filled < valueRoles.length && !placementIsClear(toPlace, valueRoles, placed, keyColumns)) {
+        unplaced++;
+        continue;
+      }
       placed.columns.forEach((slot, offset) => {
         if (slot < 0) return;
         const column = valueColumns[slot]!.column;
@@ -303,7 +407,7 @@ function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sc
     }
     out.push({ cells, at });
   }
-  return out;
+  return { rows: out, unplaced };
 }
 
 function spanOfCells(cells: (LocatedCell | null)[]): LocatedCell | null {
@@ -436,7 +540,8 @@ function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, colu
   return found === 'ns' ? null : found;
 }
 
-function readRow(input: RowInput): ReportedResult | null {
+/** A row's result, 'no-df' when it prints a statistic whose df the table does not give, or null. */
+function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   const { row, cellsAt, segment, kind } = input;
   const columns = segment.columns;
   // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
@@ -483,7 +588,8 @@ function readRow(input: RowInput): ReportedResult | null {
     nCell: plainNumber(row, cellsAt, columns.get('n'), input.separator)?.record ?? null,
     noteN: input.noteN,
   });
-  if (df === null || df.some((value) => !(value.value > 0))) return null;
+  if (df === null) return 'no-df';
+  if (df.some((value) => !(value.value > 0))) return null;
 
   const pCell = numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);

@@ -264,14 +264,17 @@ def compute_passage(pid):
             r["kind"], df, df_text, value, decimals, exponent, comparator, p, ns, effects, r.get("adjusted"), r.get("tails")
         )
         value_start = start + inner
+        # Offsets in UTF-16 code units, as JavaScript strings count them (a character outside the
+        # Basic Multilingual Plane, such as a mathematical italic letter, counts twice).
+        u16 = lambda offset: len(text[:offset].encode("utf-16-le")) // 2
         out_results.append({
             "kind": r["kind"],
             "symbol": r.get("symbol"),
             "span": r["span"],
-            "start": start,
-            "end": start + len(r["span"]),
-            "valueStart": value_start,
-            "valueEnd": value_start + len(r["valueText"]),
+            "start": u16(start),
+            "end": u16(start + len(r["span"])),
+            "valueStart": u16(value_start),
+            "valueEnd": u16(value_start + len(r["valueText"])),
             "line": text.count("\n", 0, value_start) + 1,
             "inTable": bool(r["inTable"]),
             "df": df,

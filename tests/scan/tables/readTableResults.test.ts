@@ -64,7 +64,7 @@ describe('readTableResults: ANOVA summary tables', () => {
     for (const result of results) expectOffsets(pipeAnova, result);
   });
 
-  it('reads SPSS spellings, skips Intercept, Error, Total and Corrected Total, keeps Corrected Model', () => {
+  it('reads SPSS spellings, skips Error, Total and Corrected Total, keeps Corrected Model and (one error term) Intercept', () => {
     const text = [
       'Tests of Between-Subjects Effects',
       'Source | Type III Sum of Squares | df | Mean Square | F | Sig. | Partial Eta Squared',
@@ -78,7 +78,7 @@ describe('readTableResults: ANOVA summary tables', () => {
       'Corrected Total | 220.000 | 98 |  |  |  | ',
     ].join('\n');
     const results = fromText(text);
-    expect(results.map((r) => r.tableRow!.rowLabel)).toEqual(['Corrected Model', 'Dose', 'Sex', 'Dose * Sex']);
+    expect(results.map((r) => r.tableRow!.rowLabel)).toEqual(['Corrected Model', 'Intercept', 'Dose', 'Sex', 'Dose * Sex']);
     expect(results.every((r) => r.df[1]!.text === '95')).toBe(true);
     for (const result of results) expectOffsets(text, result);
   });
@@ -152,9 +152,10 @@ describe('readTableResults: ANOVA summary tables', () => {
     for (const result of results) expectOffsets(text, result);
   });
 
-  it('gives each effect of a repeated-measures table its own error term', () => {
+  it('gives each effect of a repeated-measures table its own error term, and leaves its Intercept (error term not shown) unread', () => {
     const text = [
       'Source | SS | df | MS | F | p',
+      'Intercept | 4000.00 | 1 | 4000.00 | 20.00 | < .001',
       'Cue | 40.00 | 1 | 40.00 | 10.00 | .003',
       'Error (cue) | 160.00 | 40 | 4.00 | |',
       'Tone | 18.00 | 2 | 9.00 | 3.00 | .055',

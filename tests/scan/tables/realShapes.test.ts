@@ -1,0 +1,90 @@
+/**
+ * Table shapes as real documents give them, each read from a passage of the
+ * real corpus (tests/corpus/real/passages/<id>.txt; source, licence and
+ * attribution in tests/corpus/real/labels/<id>.json). The expected values
+ * are the passage's own printed numbers, read by eye.
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { plainTextDocument } from '../../../src/documents/text.js';
+import { scanDocument } from '../../../src/scan/scanDocument.js';
+import { findTextTables } from '../../../src/scan/tables/index.js';
+import type { ReportedResult } from '../../../src/scan/types.js';
+
+const passage = (id: string): string => readFileSync(join(__dirname, '..', '..', 'corpus', 'real', 'passages', `${id}.txt`), 'utf8');
+
+function scan(id: string) {
+  const text = passage(id);
+  return { text, ...scanDocument(plainTextDocument(`${id}.txt`, 'text', text)) };
+}
+
+function summary(result: ReportedResult): string {
+  const df = result.df.map((d) => d.text).join(', ');
+  const p = result.p ? ` p ${result.p.comparator} ${result.p.value.text}` : result.notSignificant ? ' ns' : '';
+  return `${result.kind}(${df}) ${result.valueComparator} ${result.value?.text}${p}`;
+}
+
+describe('real table shapes', () => {
+  it('one cell per line, df in the header "F(1,367)", footnote letters on p (prose-07)', () => {
+    const { results } = scan('prose-07');
+    const tabled = results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(14);
+    expect(summary(tabled[0]!)).toBe('F(1, 367) = 5.31 p = .022');
+    expect(summary(tabled[6]!)).toBe('F(1, 367) = 13.75 p < .001');
+    expect(tabled[4]!.valueComparator).toBe('<');
+  });
+
+  it('one cell per line with pipes, split-plot error rows (soft-07)', () => {
+    const { results } = scan('soft-07');
+    expect(results.map(summary)).toEqual([
+      'F(1, 18) = 0.33 p = 0.5714',
+      'F(3, 54) = 13.51 p < .0001',
+      'F(3, 54) = 1.40 p = 0.2518',
+      'F(2, 36) = 71.44 p < .0001',
+      'F(2, 36) = 0.37 p = 0.6916',
+      'F(6, 108) = 1.03 p = 0.4085',
+      'F(6, 108) = 1.05 p = 0.4002',
+    ]);
+  });
+
+  it('cells run together, cut by the printed decimals and MS = SS/df (soft-01)', () => {
+    const { text, results } = scan('soft-01');
+    const [table] = findTextTables(text);
+    expect(table!.layout).toBe('glued');
+    expect(table!.rows[1]).toEqual(['Corrected model', '3251.202a', '12', '270.933', '38.319', '0.000', '0.774']);
+    expect(results.map((result) => `${result.tableRow!.rowLabel}: ${summary(result)}`).slice(0, 3)).toEqual([
+      'Corrected model: F(12, 134) = 38.319 p = 0.000',
+      'Intercept: F(1, 134) = 60.554 p = 0.000',
+      'Pretest: F(1, 134) = 262.328 p = 0.000',
+    ]);
+    for (const result of results) expect(text.slice(result.tableRow!.cells.statistic!.start, result.tableRow!.cells.statistic!.end)).toBe(result.value!.text);
+  });
+
+  it('blank lines between rows, "t value (df)" cells, a footnote letter as a cell (tab-01)', () => {
+    const { results } = scan('tab-01');
+    expect(results).toHaveLength(14);
+    expect(summary(results[0]!)).toBe('t(15) = 4.842 p < .001');
+    expect(results[0]!.effects.map((effect) => [effect.kind, effect.value.text])).toEqual([['cohens-d', '1.21']]);
+  });
+
+  it('a pipe header without its label column, both df in one cell "2, 180" (tab-06)', () => {
+    const { results } = scan('tab-06');
+    expect(results).toHaveLength(19);
+    expect(summary(results[0]!)).toBe('F(2, 180) = 87.41 p < 0.001');
+    expect(results[0]!.effects[0]!.value.text).toBe('0.52');
+  });
+
+  it('side-by-side blocks with M (SD) cells before them and N/A cells after them (tab-02)', () => {
+    const { results } = scan('tab-02');
+    expect(results.slice(0, 3).map(summary)).toEqual(['t(33) = 3.48 p = .001', 't(62) = 0.17 p = .87', 't(29) = 1.48 p = .15']);
+    expect(results[1]!.effects[0]!.interval).not.toBeNull();
+  });
+
+  it('lists results tables it cannot read, with the reason (soft-04: df in spanning headers; web-02: a layout no reader knows)', () => {
+    expect(scan('soft-04').tablesNotRead.map((table) => table.reason)).toEqual(['no-df']);
+    const web02 = scan('web-02');
+    expect(web02.results).toEqual([]);
+    expect(web02.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
+  });
+});
