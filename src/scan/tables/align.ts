@@ -31,7 +31,8 @@ export type CellShape =
   | { shape: 'mark' }
   | { shape: 'text' };
 
-const PAIR = /^(\d{1,5})\s*[,;]\s*(\d{1,6}(?:\.\d+)?)$/;
+/** Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its point). */
+const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021]{1,4}|[a-j])$/;
 const NUMBER_INTERVAL = /^([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*(?:,|;|to|\u2013|-)\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
@@ -47,7 +48,7 @@ export function shapeOf(cell: string): CellShape {
     return { shape: 'number', value: read.number.value, decimals: read.number.decimals, comparator: read.comparator };
   }
   const pair = PAIR.exec(text);
-  if (pair) return { shape: 'pair', first: Number(pair[1]), second: Number(pair[2]) };
+  if (pair) return { shape: 'pair', first: Number(pair[1]), second: Number(pair[2]!.replace(',', '.')) };
   const bracket = NUMBER_BRACKET.exec(text);
   if (bracket) {
     const outer = readCell(bracket[1]!, 'either');

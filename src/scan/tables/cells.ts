@@ -159,8 +159,8 @@ function put(keys: string[], role: ColumnRole): void {
 put(['source', 'sources', 'effect', 'effects', 'predictor', 'predictors', 'variable', 'variables', 'term', 'factor', 'source of variation', 'source of variance', 'comparison', 'contrast', 'measure', 'model', 'parameter', 'outcome', 'test', 'variable pair', 'association', 'item'], { role: 'label' });
 put(['ss', 'sum of squares', 'sums of squares', 'type iii ss', 'type iii sum of squares', 'type ii ss', 'type ii sum of squares', 'type i ss', 'type i sum of squares', 'sum sq', 'sum sq.', 'sumsq', 'ss effect'], { role: 'ss' });
 put(['df', 'd.f.', 'd.f', 'dfs', 'degrees of freedom', 'dof'], { role: 'df' });
-put(['df1', 'df 1', 'df effect', 'effect df', 'df num', 'num df', 'numdf', 'numerator df', 'df numerator', 'dfn', 'df hyp', 'df hypothesis', 'hypothesis df', 'dfeffect', 'dfnum'], { role: 'df1' });
-put(['df2', 'df 2', 'df error', 'error df', 'df den', 'den df', 'dendf', 'denominator df', 'df denominator', 'dfd', 'dfe', 'df residual', 'residual df', 'dferror', 'dfden', 'df res'], { role: 'df2' });
+put(['df1', 'df 1', 'num. df', 'num.df', 'n. df', 'df effect', 'effect df', 'df num', 'num df', 'numdf', 'numerator df', 'df numerator', 'dfn', 'df hyp', 'df hypothesis', 'hypothesis df', 'dfeffect', 'dfnum'], { role: 'df1' });
+put(['df2', 'df 2', 'd. df', 'd.df', 'den. df', 'den.df', 'denom. df', 'df error', 'error df', 'df den', 'den df', 'dendf', 'denominator df', 'df denominator', 'dfd', 'dfe', 'df residual', 'residual df', 'dferror', 'dfden', 'df res'], { role: 'df2' });
 put(['ms', 'mean square', 'mean squares', 'mean sq', 'mean sq.', 'meansq', 'ms effect'], { role: 'ms' });
 put(['p', 'p value', 'p-value', 'p-values', 'p values', 'sig', 'sig.', 'significance', 'pr(>f)', 'pr(>|t|)', 'pr(>chisq)', 'pr(>chi)', 'prob', 'prob.', 'prob > f', 'prob>f', 'p (two-tailed)', 'two-tailed p', 'p two-tailed', 'sig. (2-tailed)', 'p(two-tailed)', 'pvalue'], { role: 'p' });
 put(['n', 'sample size', 'total n'], { role: 'n' });

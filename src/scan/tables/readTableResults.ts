@@ -53,8 +53,10 @@ interface Segment {
   dfInCell: boolean;
   /** Title over the statistic column in a spanning header row ("Recall"), when the table tests several outcomes. */
   title: string | null;
-  /** df printed in the statistic's header: "F(1, 170)". */
+  /** df printed in the statistic's header: "F(1, 170)", or in the title spanning the block ("Treatment (num. df = 1)"). */
   headerDf: ReportedNumber[];
+  /** A numerator df from the block's spanning title, when the header gives only the denominator ("(num. df = 7)" over "D. df"). */
+  titleDf1?: ReportedNumber;
 }
 
 interface LocatedCell {
@@ -155,7 +157,9 @@ interface TableReading {
 function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
   const nothing: TableReading = { results: [], unread: null };
   const rows = table.rows;
-  const headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
+  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
+  // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
+  while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
   const located = table.cells ?? locateRows(text, table, headerCount);
   const schema = readSchema(rows, headerCount, table.layout);
@@ -175,6 +179,7 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
   // A column of z without p may hold standard scores, not tests.
   const segments = buildSegments(roles, kind, schema.titles).filter((segment) => kind !== 'z' || segment.columns.has('p'));
   if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0) };
+  titleBlocks(segments, rows.slice(0, headerCount - 1));
 
   const noteText = [...table.notes, table.caption ?? ''].join(' ');
   const noteDf = readNoteDf(noteText);
@@ -340,25 +345,35 @@ interface VirtualRow {
  * positions and the piece sits where the header says, otherwise by fit
  * (align.ts).
  */
-function virtualRowsOf(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
+function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
+  let row = written;
   const width = schema.roles.length;
+  // The empty cells a row's trailing pipe or tab leaves stand for nothing.
+  let length = row.length;
+  while (length > 1 && row[length - 1]!.trim() === '') length--;
+  row = row.slice(0, length);
   const shapes = row.map(shapeOf);
   const pieces: { first: number; valuesFrom: number; end: number }[] = [];
   let first = 0;
   let index = 0;
+  // Where the layout keeps positions, every cell before the first value column is part of the label ("Chl c | — | N").
+  const labelEnd = schema.positional ? schema.roles.findIndex((role, column) => column > 0 && isValueRole(role) && role.role !== 'unknown') : 1;
   while (index < row.length) {
-    // Label cells: the first cell always, then text cells.
+    // Label cells: the first cell always (and the label columns' empty cells), then text cells.
     let valuesFrom = index === first ? index + 1 : index;
-    while (valuesFrom < row.length && shapes[valuesFrom]!.shape === 'text') valuesFrom++;
+    while (valuesFrom < row.length && (shapes[valuesFrom]!.shape === 'text' || (index === 0 && valuesFrom < labelEnd && shapes[valuesFrom]!.shape === 'empty'))) valuesFrom++;
     let end = valuesFrom;
     while (end < row.length && shapes[end]!.shape !== 'text') end++;
     pieces.push({ first, valuesFrom, end });
     first = end;
     index = end;
   }
+  // Columns that can take a value: known value columns, and named columns of unknown meaning after the first of those
+  // (before it, an unknown header names part of the row label, "Out. rem.").
+  const firstKnown = schema.roles.findIndex((role, column) => column > 0 && isValueRole(role) && role.role !== 'unknown');
   const valueColumns = schema.roles
     .map((role, column) => ({ role, column }))
-    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || schema.named[column]));
+    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || (schema.named[column] && column > firstKnown)));
   const out: VirtualRow[] = [];
   let unplaced = 0;
   for (const piece of pieces) {
@@ -450,6 +465,37 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
   }
   return withStatistic;
 }
+
+/**
+ * Side-by-side blocks under titles that span them ("Treatment (num. df =
+ * 1) | Temperature (num. df = 7)"): a text table does not say which columns
+ * a title spans, but titles stand in the blocks' order to the right of the
+ * label headers, so when a header row above the column names has at least
+ * as many cells as there are blocks, its last cells title the blocks in
+ * order. A df written in a title goes with its block.
+ */
+function titleBlocks(segments: Segment[], upperRows: string[][]): void {
+  for (let level = upperRows.length - 1; level >= 0; level--) {
+    const cells = upperRows[level]!.map((cell) => cell.trim()).filter((cell) => cell !== '' && /[a-z]/i.test(cell));
+    // A row of column names is not a row of titles.
+    if (cells.some((cell) => isValueRole(classifyHeader(cell)) && classifyHeader(cell).role !== 'unknown')) continue;
+    if (cells.length < segments.length || (segments.length === 1 && !TITLE_DF.test(cells.join(' ')))) continue;
+    const titles = cells.slice(cells.length - segments.length);
+    segments.forEach((segment, index) => {
+      const title = titles[index]!;
+      if (segments.length > 1) segment.title = title;
+      const df = TITLE_DF.exec(normaliseText(title).text);
+      if (df === null) return;
+      const first = parseReportedNumber(df[1]!)!;
+      if (df[2] !== undefined && segment.headerDf.length === 0) segment.headerDf = [first, parseReportedNumber(df[2])!];
+      else segment.titleDf1 = first;
+    });
+    return;
+  }
+}
+
+/** "num. df = 1", "df = 7", "df = 2, 57" in a block's title. */
+const TITLE_DF = /(?:^|[^a-z])(?:num(?:erator)?\.?\s*)?dfs?\s*=\s*(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?/i;
 
 function roleKey(role: ColumnRole, kind: StatisticKind): RoleKey | null {
   switch (role.role) {
@@ -584,6 +630,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
     errorDf,
     labelDf,
     headerDf: segment.headerDf,
+    titleDf1: segment.titleDf1 ?? null,
     noteDf: input.noteDf,
     nCell: plainNumber(row, cellsAt, columns.get('n'), input.separator)?.record ?? null,
     noteN: input.noteN,
@@ -671,7 +718,7 @@ function numberWithInterval(
   };
 }
 
-const PAIR_CELL = /^\s*(\d{1,5})\s*[,;]\s*(\d{1,6}(?:\.\d+)?)\s*$/;
+const PAIR_CELL = /^\s*(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)\s*$/;
 
 /** Two df in one cell, "2, 180", with the offsets of each. */
 function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): [NumberCell, NumberCell] | null {
@@ -684,7 +731,7 @@ function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
   const secondAt = cell.indexOf(match[2]!, firstAt + match[1]!.length);
   const located = (written: string, offset: number): NumberCell => ({
     comparator: '=',
-    record: { ...parseReportedNumber(written)!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length },
+    record: { ...parseReportedNumber(written.replace(',', '.'))!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length },
   });
   return [located(match[1]!, firstAt), located(match[2]!, secondAt)];
 }
@@ -742,6 +789,7 @@ interface DfSources {
   errorDf: ReportedNumber | null;
   labelDf: ReportedNumber[];
   headerDf: ReportedNumber[];
+  titleDf1: ReportedNumber | null;
   noteDf: NoteDf;
   nCell: ReportedNumber | null;
   noteN: ReportedNumber | null;
@@ -755,7 +803,7 @@ function degreesOfFreedom(kind: StatisticKind, sources: DfSources): ReportedNumb
   const [headerFirst, headerSecond] = pairFrom(sources.headerDf);
   const [noteFirst, noteSecond] = pairFrom(sources.noteDf.pair);
   if (kind === 'F') {
-    const df1 = sources.df1Cell ?? sources.dfCell ?? labelFirst ?? headerFirst ?? noteFirst;
+    const df1 = sources.df1Cell ?? sources.dfCell ?? labelFirst ?? headerFirst ?? sources.titleDf1 ?? noteFirst;
     const df2 = sources.df2Cell ?? sources.errorDf ?? labelSecond ?? headerSecond ?? noteSecond ?? sources.noteDf.error;
     return df1 !== null && df2 !== null ? [stripOffsets(df1), stripOffsets(df2)] : null;
   }

@@ -1,0 +1,88 @@
+/**
+ * The real corpus (tests/corpus/real/): excerpts of openly licensed
+ * published text, labelled as printed; see its README. This test holds the
+ * corpus to its own rules and plumbline to the scores it has reached on it,
+ * on both splits, so that no change of the scanner or the table reader
+ * lowers them unnoticed. `npm run score:real` prints the full scores.
+ */
+import { existsSync, readFileSync, readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { figures, loadRealCorpus, REAL_CORPUS_DIRECTORY, scoreCorpus, type Split } from './real/score.js';
+
+const corpus = loadRealCorpus();
+const scores = scoreCorpus(corpus);
+
+/**
+ * Scores reached when this floor was last raised (recall and precision of
+ * readable results; the highest share of consistent results failed). A
+ * change that lowers one fails here; a change that raises one should raise
+ * its floor too.
+ */
+const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
+  tune: {
+    table: { recall: 0.87, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.95, precision: 1, maxFailRate: 0.03 },
+  },
+  holdout: {
+    table: { recall: 0.32, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 1, precision: 1, maxFailRate: 0.01 },
+  },
+};
+
+describe('real corpus: the passages and their labels', () => {
+  it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {
+    const results = corpus.flatMap((passage) => passage.results);
+    expect(corpus.length).toBeGreaterThanOrEqual(60);
+    expect(results.length).toBeGreaterThanOrEqual(600);
+    expect(results.filter((result) => result.inTable).length).toBeGreaterThanOrEqual(300);
+    const heldOut = corpus.filter((passage) => passage.split === 'holdout').length / corpus.length;
+    expect(heldOut).toBeGreaterThan(0.12);
+    expect(heldOut).toBeLessThan(0.3);
+  });
+
+  it('keeps every passage short and openly licensed, with its source', () => {
+    const manifest = JSON.parse(readFileSync(join(REAL_CORPUS_DIRECTORY, 'manifest.json'), 'utf8')) as {
+      passages: { id: string; source: string; licence: string; characters: number }[];
+    };
+    expect(manifest.passages.map((entry) => entry.id).sort()).toEqual(corpus.map((passage) => passage.id).sort());
+    for (const entry of manifest.passages) {
+      expect(entry.source, entry.id).toMatch(/^https?:\/\//);
+      expect(entry.licence, entry.id).toMatch(/^(CC BY( \d\.\d)?|CC0( 1\.0)?|public domain)$/);
+      expect(entry.characters, entry.id).toBeLessThanOrEqual(2600);
+    }
+  });
+
+  it('has computed labels that match the hand-written ones (run compute.py after editing a label file)', () => {
+    const labelled = readdirSync(join(REAL_CORPUS_DIRECTORY, 'labels')).filter((name) => name.endsWith('.json'));
+    expect(labelled.length).toBe(corpus.length);
+    for (const passage of corpus) {
+      const path = join(REAL_CORPUS_DIRECTORY, 'labels', `${passage.id}.json`);
+      expect(existsSync(path), path).toBe(true);
+      const written = JSON.parse(readFileSync(path, 'utf8')) as { results: { span: string; valueText: string }[] };
+      expect(passage.results.map((result) => [result.span, result.valueText]), passage.id).toEqual(written.results.map((result) => [result.span, result.valueText]));
+      // Each label points at its span in the passage as it is now.
+      for (const result of passage.results) expect(passage.text.slice(result.start, result.end), passage.id).toBe(result.span);
+    }
+  });
+});
+
+describe('real corpus: plumbline reads what is printed', () => {
+  for (const split of ['tune', 'holdout'] as const) {
+    for (const where of ['table', 'text'] as const) {
+      it(`${split} split, results in ${where === 'table' ? 'tables' : 'running text'}: recall, precision and fails on consistent results hold their floors`, () => {
+        const measured = figures(scores[split], where);
+        const floor = FLOORS[split][where];
+        const summary = {
+          recall: Number(measured.recall.toFixed(4)),
+          precision: Number(measured.precision.toFixed(4)),
+          failRateOnConsistent: Number(measured.failRateOnConsistent.toFixed(4)),
+        };
+        expect(summary.recall, JSON.stringify(summary)).toBeGreaterThanOrEqual(floor.recall);
+        expect(summary.precision, JSON.stringify(summary)).toBeGreaterThanOrEqual(floor.precision);
+        expect(summary.failRateOnConsistent, JSON.stringify(summary)).toBeLessThanOrEqual(floor.maxFailRate);
+      });
+    }
+  }
+
+});
