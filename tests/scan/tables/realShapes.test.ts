@@ -81,10 +81,23 @@ describe('real table shapes', () => {
     expect(results[1]!.effects[0]!.interval).not.toBeNull();
   });
 
-  it('lists results tables it cannot read, with the reason (soft-04: df in spanning headers; web-02: a layout no reader knows)', () => {
-    expect(scan('soft-04').tablesNotRead.map((table) => table.reason)).toEqual(['no-df']);
+  it('lists results tables it cannot read, with the reason (soft-09: no df for the F column; web-02: a layout no reader knows)', () => {
+    expect(scan('soft-09').tablesNotRead.map((table) => table.reason)).toEqual(['no-df']);
     const web02 = scan('web-02');
     expect(web02.results).toEqual([]);
     expect(web02.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
+  });
+});
+
+describe('real table shapes: blocks side by side', () => {
+  it('titles spanning the blocks give each block its numerator df, "D. df" its denominator (soft-04)', () => {
+    const { results, tablesNotRead } = scan('soft-04');
+    expect(tablesNotRead).toEqual([]);
+    expect(results.slice(0, 3).map(summary)).toEqual(['F(1, 686.1) = 676.4 p < 0.01', 'F(7, 679.0) = 181.9 p < 0.01', 'F(7, 677.9) = 128.5 p < 0.01']);
+  });
+
+  it('df pairs with decimals, one with a decimal comma typed by mistake (more-04)', () => {
+    const { results } = scan('more-04');
+    expect(results.find((result) => result.value?.text === '10.72')!.df.map((df) => df.value)).toEqual([2.67, 58.83]);
   });
 });
