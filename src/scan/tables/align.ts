@@ -71,8 +71,9 @@ export function isValueShape(shape: CellShape): boolean {
 }
 
 const NEVER = -1e6;
-/** What leaving out an empty cell costs (see placeFrom). */
+/** What leaving out an empty cell costs (see placeFrom): a blank one, and a printed placeholder ("N/A", "—"), which surely holds a column's place. */
 const EMPTY_DROP_COST = 0.5;
+const PLACEHOLDER_DROP_COST = 1;
 
 /**
  * How well a cell fits a column of the given meaning: positive when it fits
@@ -118,7 +119,7 @@ export function fit(role: ColumnRole, cell: CellShape): number {
     case 'n':
       return cell.shape === 'number' && cell.decimals === 0 && cell.value >= 1 ? 1.5 : -2;
     case 'descriptive':
-      return cell.shape === 'number-bracket' || cell.shape === 'number-interval' ? 1 : cell.shape === 'number' ? 0.5 : -1;
+      return cell.shape === 'number-bracket' || cell.shape === 'number-interval' ? 1 : cell.shape === 'number' ? 1.5 : -1;
     case 'label':
       return -1;
     default:
@@ -169,7 +170,7 @@ export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns
  * How much better a cell fits where it was placed than anywhere else it
  * could go: below this, the placement rests on the tie-break alone.
  */
-const CLEAR_MARGIN = 0.25;
+const CLEAR_MARGIN = 0.75;
 
 /**
  * Whether a placement of a row with cells left out is clear for the columns
@@ -225,7 +226,7 @@ function placeFrom(cells: CellToPlace[], roles: ColumnRole[], forbidden?: { cell
       // Marks may be left out; so may surplus empty cells (extraction leaves extra ones), at a cost,
       // since an empty cell usually holds its column's place ("0.27 1.48 (29) .15 N/A N/A N/A").
       if (cell.shape.shape === 'mark' || cell.shape.shape === 'empty') {
-        const drop = score[(i - 1) * width + j]! - (cell.shape.shape === 'empty' ? EMPTY_DROP_COST : 0);
+        const drop = score[(i - 1) * width + j]! - (cell.shape.shape === 'empty' ? (cell.text.trim() === '' ? EMPTY_DROP_COST : PLACEHOLDER_DROP_COST) : 0);
         if (drop > bestHere) {
           bestHere = drop;
           how = 2;

@@ -54,6 +54,8 @@ const MAX_LINES_TO_HEADER = 14;
 const MAX_HEADER_CELLS = 40;
 /** Most body cells read for one table. */
 const MAX_BODY_CELLS = 4000;
+/** Most empty cells one line of spaces stands for. */
+const MAX_EMPTY_RUN = 8;
 /** Most blank lines in a row between two cells. */
 const MAX_BLANK_RUN = 2;
 
@@ -152,13 +154,20 @@ function collectCells(lines: Line[], from: number): Cell[] {
       continue;
     }
     if (inner.text.trim() === '') {
-      // A line of spaces inside a table copied from a web page is an empty cell.
-      if (line.text.length > 0 && cells.length > 0) cells.push({ text: '', start: line.start, end: line.start, line: index, empty: true });
+      // A line of spaces inside a table copied from a web page stands for empty cells, one per space
+      // (a row's empty cells, each a space, run onto one line: "   " for three).
+      const spaces = Math.min(MAX_EMPTY_RUN, Math.max(1, line.text.replace(/\|/g, '').length));
+      if (line.text.length > 0 && cells.length > 0) {
+        for (let count = 0; count < spaces; count++) cells.push({ text: '', start: line.start, end: line.start, line: index, empty: true });
+      }
       blankRun = 0;
       continue;
     }
     blankRun = 0;
     const text = inner.text.trim();
+    // Before the header, long lines are the caption ("From: <the article's title>"); after it, they end the table.
+    const headerSeen = cells.some((cell) => isColumnName(cell.text));
+    if (!headerSeen && text.length > MAX_CELL_LENGTH && index - from < MAX_LINES_TO_HEADER) continue;
     if (text.length > MAX_CELL_LENGTH || NOTE.test(text) || (cells.length > 0 && TITLE.test(text))) break;
     const start = line.start + inner.offset + (inner.text.length - inner.text.trimStart().length);
     cells.push({ text, start, end: start + text.length, line: index, empty: false });
@@ -184,6 +193,8 @@ function stripPipes(text: string): { text: string; offset: number } | null {
 
 function isValueCell(cell: Cell): boolean {
   if (cell.empty) return true;
+  // A lone letter that names a column ("d", "z", "p") is a header cell, not a footnote mark.
+  if (cell.text.length <= 2 && isColumnName(cell.text)) return false;
   const shape = shapeOf(cell.text).shape;
   return shape !== 'text';
 }

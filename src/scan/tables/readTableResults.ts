@@ -348,9 +348,9 @@ interface VirtualRow {
 function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
   let row = written;
   const width = schema.roles.length;
-  // The empty cells a row's trailing pipe or tab leaves stand for nothing.
+  // The empty cells a row's trailing pipe or tab leaves stand for nothing (in a rebuilt row they hold their columns' places).
   let length = row.length;
-  while (length > 1 && row[length - 1]!.trim() === '') length--;
+  while (schema.positional && length > 1 && row[length - 1]!.trim() === '') length--;
   row = row.slice(0, length);
   const shapes = row.map(shapeOf);
   const pieces: { first: number; valuesFrom: number; end: number }[] = [];
@@ -386,7 +386,15 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
     const values = row.slice(piece.valuesFrom, piece.end);
     const positionsHold =
       schema.positional && pieces.length === 1 && piece.end <= width && values.every((_, offset) => isValueRole(schema.roles[piece.valuesFrom + offset] ?? { role: 'unknown' }));
-    if (positionsHold) {
+    // A rebuilt row with exactly one cell (empty ones included) per column keeps its order one to one.
+    const oneToOne = !schema.positional && values.length === valueColumns.length && values.some((cell) => cell.trim() === '');
+    if (oneToOne) {
+      values.forEach((cell, offset) => {
+        const column = valueColumns[offset]!.column;
+        cells[column] = cell;
+        at[column] = cellsAt?.[piece.valuesFrom + offset] ?? null;
+      });
+    } else if (positionsHold) {
       values.forEach((cell, offset) => {
         cells[piece.valuesFrom + offset] = cell;
         at[piece.valuesFrom + offset] = cellsAt?.[piece.valuesFrom + offset] ?? null;
