@@ -166,14 +166,51 @@ function tokenize(text: string): Piece[] {
     raw.push({ text: text.slice(start, at), start, end: at });
   }
   const tokens: Piece[] = [];
-  for (const token of raw) {
+  for (let index = 0; index < raw.length; index++) {
+    const token = raw[index]!;
     const previous = tokens[tokens.length - 1];
+    // "5.88 × 10−5": a number in scientific notation written with spaces is one token.
+    const next = raw[index + 1];
+    if (previous !== undefined && next !== undefined && /^[x\u00d7*]$/.test(token.text) && /^[-\u2212\u2013]?[\d.,]+$/.test(previous.text) && /^10(?:\^?[-\u2212\u2013+]?\d{1,3})$/.test(next.text)) {
+      tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
+      index++;
+      continue;
+    }
     const joinsPrevious =
       previous !== undefined && (token.text.startsWith('(') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
     if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
     else tokens.push(token);
   }
   return tokens;
+}
+
+/** Longest line read as several rows run together. */
+const MAX_RUN_ON_LINE = 6000;
+
+/**
+ * A line holding several rows one after another ("Model 5.88 × 10−5 15 ...
+ * <0.0001 significant K′ −K′ 1.84 × 10−5 1 ..."), as PDF text gives a table
+ * whose line breaks were lost: cut where a label follows a row's values.
+ * Each piece with at least two values is a row.
+ */
+function splitRunOnRows(line: Line): DataLine[] {
+  if (line.text.length > MAX_RUN_ON_LINE) return [];
+  const tokens = tokenize(line.text);
+  const rows: DataLine[] = [];
+  let index = 0;
+  while (index < tokens.length) {
+    const labelStart = index;
+    while (index < tokens.length && !isValueToken(tokens[index]!.text)) index++;
+    const valuesStart = index;
+    while (index < tokens.length && (isValueToken(tokens[index]!.text) || (isMarkToken(tokens[index]!.text) && index > valuesStart))) index++;
+    const values = tokens.slice(valuesStart, index);
+    if (valuesStart === labelStart || values.length < 2) continue;
+    const label = join(line.text, tokens[labelStart]!, tokens[valuesStart - 1]!);
+    // A label of many words is a sentence, not a row.
+    if (valuesStart - labelStart > MAX_LABEL_WORDS) continue;
+    rows.push({ label, values });
+  }
+  return rows.length >= 2 ? rows : [];
 }
 
 function isSpace(code: number): boolean {
@@ -356,6 +393,7 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
     at = nonBlankAfter(lines, at);
     if (at === -1) return false;
     if (readRowLine(lines[at]!, false) !== null) return true;
+    if (lines[at]!.text.length > MAX_ROW_LENGTH && splitRunOnRows(lines[at]!).length > 0) return true;
     if (!isSectionLine(lines[at])) return false;
   }
   return false;
@@ -390,6 +428,14 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     if (data !== null) {
       rows.push({ data, line });
       dataRows++;
+      last = index;
+      continue;
+    }
+    // Under a header, a long line may be several rows run together.
+    const runOn = header !== null && line.text.length > MAX_ROW_LENGTH ? splitRunOnRows(line) : [];
+    if (runOn.length > 0) {
+      for (const piece of runOn) rows.push({ data: piece, line });
+      dataRows += runOn.length;
       last = index;
       continue;
     }

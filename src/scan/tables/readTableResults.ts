@@ -302,6 +302,23 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     return null;
   });
   const named = roles.map((_, column) => headerTexts.some((texts) => texts[column] !== ''));
+  if (!positional) {
+    // In a header read from single-spaced words, two names for p in one block are one column named
+    // twice ("p-Value Prob > F") or a column of words ("Significance"): only the first takes a cell.
+    // Likewise a second p column before any further statistic column ("p-Value", "Prob > F", "Significance").
+    let pSeen = false;
+    for (let column = 1; column < roles.length; column++) {
+      const role = roles[column]!;
+      if (role.role === 'statistic') pSeen = false;
+      else if (role.role === 'p') {
+        if (pSeen) {
+          roles[column] = { role: 'unknown' };
+          named[column] = false;
+        }
+        pSeen = true;
+      }
+    }
+  }
   return { roles, titles, positional, named };
 }
 
@@ -885,14 +902,19 @@ function locateRows(text: string, table: DocumentTable, headerCount: number): ((
     start = end + 1;
   }
   const located: ((LocatedCell | null)[] | null)[] = table.rows.map(() => null);
+  // Where the last row found ends: the next row may go on in the same line (several rows run onto one line).
   let nextLine = 0;
+  let nextFrom = 0;
   for (let index = headerCount; index < table.rows.length; index++) {
     const row = table.rows[index]!;
     for (let line = nextLine; line < lines.length && line < nextLine + 8; line++) {
-      const cells = matchRow(text, lines[line]!, row);
+      const from = line === nextLine ? nextFrom : 0;
+      const cells = matchRow(text, lines[line]!, row, from);
       if (cells !== null) {
         located[index] = cells;
-        nextLine = line + 1;
+        const last = cells.filter((cell): cell is LocatedCell => cell !== null).pop()!;
+        nextLine = line;
+        nextFrom = last.end - lines[line]!.start;
         break;
       }
     }
@@ -900,10 +922,10 @@ function locateRows(text: string, table: DocumentTable, headerCount: number): ((
   return located;
 }
 
-function matchRow(text: string, line: LocatedCell, row: string[]): (LocatedCell | null)[] | null {
+function matchRow(text: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {
   const lineText = text.slice(line.start, line.end);
   const cells: (LocatedCell | null)[] = [];
-  let from = 0;
+  let from = start;
   let any = false;
   for (const cell of row) {
     const wanted = cell.trim();
