@@ -58,7 +58,7 @@ export function readPValue(text: string, position: number, asWritten = false): R
   at = skipSpaces(text, at + sign.length);
   // A p is at most 1, so a comma before digits can only be a decimal comma ("p = 0,046", "p = ,046").
   const read = readScientificNumber(text, at, 'yes') ?? readSpacedFraction(text, at);
-  if (read === null || !endsWord(text, read.end)) return null;
+  if (read === null || !(endsWord(text, read.end) || isFootnoteLetterAt(text, read.end))) return null;
   const value = read.number;
   // A bare "p 0.05" (its sign lost): a conventional threshold had a "<"; any other value an "=".
   // Damaged signs are read only before a probability: "p 12" is a page.
@@ -69,6 +69,12 @@ export function readPValue(text: string, position: number, asWritten = false): R
     if (!asWritten || Math.abs(value.value) >= MAX_OUT_OF_RANGE_P) return null;
   }
   return { comparator, value, plural, start: position, end: read.end };
+}
+
+/** A footnote letter glued to a p-value ("p = .12e", "p<.001a" in a table cell): one letter a-h and then no more word. */
+function isFootnoteLetterAt(text: string, at: number): boolean {
+  const code = text.charCodeAt(at);
+  return code >= 97 && code <= 104 && endsWord(text, at + 1);
 }
 
 /** The comparator after "p", as written or as text extraction damaged it; `comparator` null when it was lost. */

@@ -323,6 +323,8 @@ function skipSeparators(text: string, position: number): number {
     if (code === 10) {
       // A blank line ends the paragraph, and parts of a result do not cross it.
       if (++lineBreaks === 2) break;
+      // Nor does the end of a table row: a line that ends in the pipe of its last cell.
+      if (endsTableRow(text, at)) break;
     } else if (!isSpaceCode(code)) {
       lineBreaks = 0;
     }
@@ -348,6 +350,13 @@ function skipSeparators(text: string, position: number): number {
     break;
   }
   return at;
+}
+
+/** True when the line break at `at` ends a row of a pipe table ("... | .041 |\n"). */
+function endsTableRow(text: string, at: number): boolean {
+  let cursor = at - 1;
+  while (cursor >= 0 && cursor > at - MAX_GAP && (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 13 || text.charCodeAt(cursor) === 9)) cursor--;
+  return cursor >= 0 && text.charCodeAt(cursor) === 124;
 }
 
 /** End of the run of spaces and tabs at `position`, read no further than MAX_COLUMN_GAP characters. */

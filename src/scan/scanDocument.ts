@@ -1,6 +1,6 @@
 import type { DocumentTable, Region } from '../documents/types.js';
 import { scanText } from './scan.js';
-import { findTextTables, findUnrecognisedTables, readTables, type UnreadTable } from './tables/index.js';
+import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion, type UnreadTable } from './tables/index.js';
 import { readDescriptives } from './descriptives/index.js';
 import type { ReportedResult, ScanOutput } from './types.js';
 
@@ -31,6 +31,26 @@ function distinctTables(tables: readonly DocumentTable[]): DocumentTable[] {
  * cited title such as "F(1, 20) = 4.2 is not enough" is not a result of
  * this document.
  */
+/**
+ * A result written in a table cell gets what its row's other cells print:
+ * the p of the p column when the cell itself has none, and effect sizes of
+ * kinds it lacks. Each completion serves the first result in its cell.
+ */
+function completeFromRows(results: ReportedResult[], completions: readonly RowCompletion[]): void {
+  for (const completion of completions) {
+    const result = results.find((candidate) => candidate.start >= completion.start && candidate.start < completion.end);
+    if (result === undefined) continue;
+    if (result.df.length === 0 && completion.df.length > 0) result.df = completion.df;
+    if (result.p === null && !result.notSignificant) {
+      result.p = completion.p;
+      result.notSignificant = completion.notSignificant;
+    }
+    for (const effect of completion.effects) {
+      if (!result.effects.some((existing) => existing.kind === effect.kind)) result.effects.push(effect);
+    }
+  }
+}
+
 /** A document's scan, with the results tables it could not read in full. */
 export type DocumentScan = ScanOutput & { tablesNotRead: UnreadTable[] };
 
@@ -42,6 +62,7 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
     (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
   );
+  completeFromRows(written.results, tables.completions);
   const results: ReportedResult[] = [...written.results, ...tabled]
     .filter((result) => !inRegion(result.start, document.regions, 'references'))
     .sort((a, b) => a.start - b.start || a.end - b.end);

@@ -15,6 +15,9 @@
  */
 
 import { readCell, type ColumnRole } from './cells.js';
+import { scanText } from '../scan.js';
+import { normaliseText } from '../normalise.js';
+import { readNameAndValue } from '../effects.js';
 
 /** What a body cell holds, as far as fitting it to a column goes. */
 export type CellShape =
@@ -26,6 +29,12 @@ export type CellShape =
   /** Two whole numbers with a comma: a df pair "2, 180". */
   | { shape: 'pair'; first: number; second: number }
   | { shape: 'ns' }
+  /** A range of two numbers, "81–152" (minimum to maximum). */
+  | { shape: 'range' }
+  /** A complete written result, "t(46) = 1.06" (the text scanner reads it). */
+  | { shape: 'written' }
+  /** A named effect size, "d = 0.31". */
+  | { shape: 'named' }
   | { shape: 'empty' }
   /** Stars, daggers or a lone footnote letter standing as a cell. */
   | { shape: 'mark' }
@@ -34,7 +43,8 @@ export type CellShape =
 /** Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its point). */
 const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
-const MARK = /^(?:[*\u2020\u2021]{1,4}|[a-j])$/;
+const MARK = /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
+const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
 const NUMBER_INTERVAL = /^([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*(?:,|;|to|\u2013|-)\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 
 /** The shape of one cell as written. */
@@ -57,6 +67,13 @@ export function shapeOf(cell: string): CellShape {
       return { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
     }
   }
+  if (/[=<>]/.test(text) && text.length <= 80) {
+    if (scanText(text).results.length > 0) return { shape: 'written' };
+    const normalised = normaliseText(text).text;
+    const named = readNameAndValue(normalised, 0);
+    if (named !== null && named.kind !== null && named.end === normalised.trimEnd().length) return { shape: 'named' };
+  }
+  if (RANGE.test(text)) return { shape: 'range' };
   const interval = NUMBER_INTERVAL.exec(text);
   if (interval) {
     const outer = readCell(interval[1]!, 'either');
@@ -84,6 +101,10 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'empty') return 0;
   if (cell.shape === 'mark') return NEVER;
   if (cell.shape === 'text') return role.role === 'label' ? 1 : -2;
+  if (cell.shape === 'written') return role.role === 'result' ? 2 : role.role === 'statistic' ? 1.5 : role.role === 'unknown' || role.role === 'descriptive' ? 0.5 : -2;
+  if (cell.shape === 'named') return role.role === 'effect' || role.role === 'result' ? 1.5 : role.role === 'unknown' ? 0.5 : -2;
+  if (role.role === 'result') return cell.shape === 'number' ? 0.3 : -1;
+  if (cell.shape === 'range') return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
   switch (role.role) {
     case 'statistic': {
       if (cell.shape === 'ns' || cell.shape === 'pair' || cell.shape === 'number-interval') return -3;

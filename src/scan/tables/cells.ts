@@ -38,7 +38,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:p\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021]{1,4}|[a-h]{1,3})?$/;
+  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]{1,3})?$/;
 
 /**
  * How a table writes its decimals: '.' ("4.21", thousands "1,234.5") or ','
@@ -131,6 +131,8 @@ export type ColumnRole =
   | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[]; dfInCell?: boolean }
   | { role: 'effect'; effect: EffectKind }
   | { role: 'descriptive' }
+  /** A column of written results or of test statistics of varying kinds ("Statistic", "Test", "Effect size"). */
+  | { role: 'result' }
   | { role: 'unknown' };
 
 /** Printable ASCII without markup characters (which normalisation would remove or rewrite). */
@@ -179,10 +181,13 @@ put(['g', "hedges' g", 'hedges g', "hedges's g"], { role: 'effect', effect: 'hed
 put(['cohen\'s f', 'cohens f', 'f2'], { role: 'effect', effect: 'cohens-f' });
 put(["cramer's v", 'cramers v', 'v'], { role: 'effect', effect: 'cramers-v' });
 put(['phi'], { role: 'effect', effect: 'phi' });
+put(['statistic', 'statistics', 'test statistic', 'test statistics', 'statistical test', 'test value', 'stat', 'stat.', 'effect size', 'effect sizes', 'eff. size', 'es'], { role: 'result' });
 put(['m', 'mean', 'means', 'sd', 's.d.', 'se', 's.e.', 'sem', 'mean difference', 'mdiff', 'difference', 'b', 'beta', 'se b', 'estimate', 'std. error', 'standard error', 'min', 'max', 'range', 'median', 'mdn', 'ci', '95% ci', 'lower', 'upper', 'll', 'ul', '%', 'percent', 'm (sd)', 'mean (sd)', 'skew', 'kurtosis', 'alpha', 'ms error', 'mse'], { role: 'descriptive' });
 
 /** Bracketed df after a statistic symbol in a header: "F(1, 170)", "F (2, 57)", "t(58)", "chi2(2)". */
 const HEADER_WITH_DF = /^(f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)$/;
+/** An F header whose df subscript was flattened: "F1,25", "F 2, 57" (the comma is required: "F1" alone is no df). */
+const HEADER_WITH_SUBSCRIPT_DF = /^f\s?(\d{1,3})\s?,\s?(\d{1,5})$/;
 
 /**
  * The key without what real headers add to a known name: a footnote letter
@@ -223,12 +228,14 @@ export function classifyHeader(header: string): ColumnRole {
     const expected = kind === 'F' ? 2 : 1;
     if (df.length === expected) return { role: 'statistic', kind, df };
   }
+  const subscript = HEADER_WITH_SUBSCRIPT_DF.exec(key);
+  if (subscript) return { role: 'statistic', kind: 'F', df: [parseReportedNumber(subscript[1]!)!, parseReportedNumber(subscript[2]!)!] };
   return { role: 'unknown' };
 }
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
-  return knownKeyOf(key) !== null || HEADER_WITH_DF.test(key);
+  return knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key);
 }
 
 let firstWords: Set<string> | null = null;

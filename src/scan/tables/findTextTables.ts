@@ -228,7 +228,7 @@ function isValueToken(text: string): boolean {
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
 function isMarkToken(text: string): boolean {
-  return /^(?:[*\u2020\u2021]{1,4}|[a-h])$/.test(text);
+  return /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h])$/.test(text);
 }
 
 /**
@@ -320,14 +320,47 @@ function readHeader(line: Line): HeaderLine | null {
   if (labelEnd > MAX_LABEL_WORDS) return null;
   columns.push(labelEnd > 0 ? join(text, tokens[0]!, tokens[labelEnd - 1]!) : { text: '', start: 0, end: 0 });
   let named = 0;
+  let unknown = 0;
+  let namesTest = false;
   while (index < tokens.length) {
     const length = knownPhraseLength(tokens, index);
-    if (length === 0) return null;
-    columns.push(join(text, tokens[index]!, tokens[index + length - 1]!));
+    if (length === 0) {
+      // Words the vocabulary does not know ("Baseline", "Difficulty accessing dental care,"): one column of
+      // unknown meaning, tolerated when the names around it clearly make a header.
+      let end = index + 1;
+      while (end < tokens.length && knownPhraseLength(tokens, end) === 0) end++;
+      columns.push(join(text, tokens[index]!, tokens[end - 1]!));
+      index = end;
+      unknown++;
+      continue;
+    }
+    const phrase = join(text, tokens[index]!, tokens[index + length - 1]!);
+    const role = classifyHeader(phrase.text).role;
+    if (role === 'statistic' || role === 'p') namesTest = true;
+    columns.push(phrase);
     index += length;
     named++;
   }
-  return named >= 2 ? { columns, aligned: false, tabbed: false } : null;
+  if (unknown === 0) return named >= 2 ? { columns, aligned: false, tabbed: false } : null;
+  return namesTest && named >= 3 && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
+}
+
+/**
+ * A header whose names wrapped onto a second line, as narrow PDF columns
+ * print them ("Source Type III Sum of" / "Squares df Mean Square F Sig."):
+ * read as one single-spaced header when neither line is one alone, neither
+ * is a row of values, and the second line is followed by one.
+ */
+function readWrappedHeader(lines: Line[], first: number): HeaderLine | null {
+  const line = lines[first]!;
+  const next = lines[first + 1];
+  if (next === undefined || isBlank(line) || isBlank(next) || line.text.length + next.text.length > MAX_ROW_LENGTH) return null;
+  if (readHeader(next) !== null || readRowLine(next, true) !== null || readRowLine(line, true) !== null) return null;
+  const after = lines[first + 2];
+  if (after === undefined || readRowLine(after, true) === null) return null;
+  const joined: Line = { start: line.start, end: next.end, text: `${line.text.trimEnd()} ${next.text.trimStart()}`, crushed: true };
+  const header = readHeader(joined);
+  return header === null ? null : { ...header, aligned: false };
 }
 
 function join(text: string, first: Piece, last: Piece): Piece {
@@ -366,7 +399,7 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   while (first > 0 && (isValueToken(tokens[first - 1]!.text) || (isMarkToken(tokens[first - 1]!.text) && first >= 2 && isValueToken(tokens[first - 2]!.text)))) first--;
   if (first === 0 && tokens.length > 0) first = 1; // all numbers: the first is the label ("1", "2005")
   const values = tokens.slice(first);
-  if (values.length < minimumValues || values.every((token) => readCell(token.text, 'either').kind !== 'number')) return null;
+  if (values.length < minimumValues || values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair')) return null;
   const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || /[=<>]/.test(label.text)) return null;
   return { label, values };
@@ -405,15 +438,16 @@ function isSectionLine(line: Line | undefined): boolean {
   const text = line.text.trim();
   if (text === '' || text.length > 60 || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
   // Digits may stand in a name ("GAD-7", "SF-36 PCS"), not as a value at the line's end.
-  if (/\d/.test(text) && isValueToken(text.split(/\s+/).pop()!)) return false;
+  if (/\d/.test(text) && (isValueToken(text.split(/\s+/).pop()!) || /\d\s*\)?$/.test(text))) return false;
   return text.split(/\s+/).length <= 6;
 }
 
 function readSpacedTable(lines: Line[], first: number): FoundRows | null {
-  const header = readHeader(lines[first]!);
+  const wrapped = readHeader(lines[first]!) === null ? readWrappedHeader(lines, first) : null;
+  const header = wrapped ?? readHeader(lines[first]!);
   const titled = readTitle(lines, first) !== null;
   if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
-  let index = header === null ? first : first + 1;
+  let index = header === null ? first : wrapped !== null ? first + 2 : first + 1;
   const columns = header?.columns.map((column) => column.text) ?? null;
   if (header !== null && lines[index] !== undefined && HEADER_CONTINUATION.test(lines[index]!.text)) {
     attachContinuation(columns!, lines[index]!.text.trim().split(/\s+/));

@@ -26,10 +26,12 @@
 import type { DocumentTable } from '../../documents/types.js';
 import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
+import { readNameAndValue } from '../effects.js';
 import type {
   Comparator,
   EffectKind,
   ReportedInterval,
+  ReportedP,
   ReportedEffect,
   ReportedNumber,
   ReportedResult,
@@ -39,7 +41,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
-import { bestHeaderShift, isValueRole, placeCells, placementIsClear, shapeOf } from './align.js';
+import { bestHeaderShift, fit, isValueRole, placeCells, placementIsClear, shapeOf, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -82,15 +84,17 @@ export function readTableResults(text: string, tables: DocumentTable[]): Reporte
  * could not all be tied to their df and p: an audit lists those, so that it
  * never looks cleaner than it is.
  */
-export function readTables(text: string, tables: DocumentTable[]): { results: ReportedResult[]; unread: UnreadTable[] } {
+export function readTables(text: string, tables: DocumentTable[]): { results: ReportedResult[]; unread: UnreadTable[]; completions: RowCompletion[] } {
   const results: ReportedResult[] = [];
   const unread: UnreadTable[] = [];
+  const completions: RowCompletion[] = [];
   distinctTables(tables).forEach((table, index) => {
     const reading = readTable(text, table, index);
     for (const result of reading.results) results.push(result);
     if (reading.unread !== null) unread.push(reading.unread);
+    for (const completion of reading.completions) completions.push(completion);
   });
-  return { results: results.sort((a, b) => a.start - b.start), unread };
+  return { results: results.sort((a, b) => a.start - b.start), unread, completions };
 }
 
 /**
@@ -152,10 +156,32 @@ function unreadTable(table: DocumentTable, tableIndex: number, reason: UnreadRea
 interface TableReading {
   results: ReportedResult[];
   unread: UnreadTable | null;
+  completions: RowCompletion[];
+}
+
+/**
+ * A row whose cell holds a written result ("t(46) = 1.06") that the text
+ * scanner reads, with what the row's other cells add to it: the p of the p
+ * column, the effect sizes of effect columns ("| t(28) = −.63 | .54 | 0.24 |").
+ */
+export interface RowCompletion {
+  /** Where the cell with the written result is. */
+  start: number;
+  end: number;
+  /** df of the row's df columns, for a result written without them ("F = 14.27" under a df column). */
+  df: ReportedNumber[];
+  p: ReportedP | null;
+  notSignificant: boolean;
+  effects: ReportedEffect[];
 }
 
 function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
-  const nothing: TableReading = { results: [], unread: null };
+  const reading = readTableRows(text, table, tableIndex);
+  return reading;
+}
+
+function readTableRows(text: string, table: DocumentTable, tableIndex: number): TableReading {
+  const nothing: TableReading = { results: [], unread: null, completions: [] };
   const rows = table.rows;
   let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
@@ -166,30 +192,38 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
   const roles = schema.roles;
   const kind = STATISTIC_PRIORITY.find((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
   const bodyRows = rows.length - headerCount;
-  if (kind === undefined) {
-    // A table of p-values alone (group comparisons with only a p column) is a results table plumbline cannot check.
-    const pColumn = roles.findIndex((role) => role.role === 'p');
-    const withP = pColumn < 1 ? 0 : rows.slice(headerCount).filter((row) => readCell(row[pColumn] ?? '', 'either').kind === 'number').length;
-    if (withP > 0) return { results: [], unread: unreadTable(table, tableIndex, 'no-statistic-column', withP, 0) };
-    // A header that mentions a test statistic in words the vocabulary does not know ("F- value", "Chi value (x2)").
-    const withNumbers = rows.slice(headerCount).filter((row) => row.slice(1).some((cell) => shapeOf(cell).shape.startsWith('number'))).length;
-    const mentions = rows.slice(0, headerCount).some((row) => row.some((cell) => mentionsStatistic(cell)));
-    return mentions && withNumbers > 0 ? { results: [], unread: unreadTable(table, tableIndex, 'columns-not-recognised', withNumbers, 0) } : nothing;
-  }
-  // A column of z without p may hold standard scores, not tests.
-  const segments = buildSegments(roles, kind, schema.titles).filter((segment) => kind !== 'z' || segment.columns.has('p'));
-  if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0) };
-  titleBlocks(segments, rows.slice(0, headerCount - 1));
-
-  const noteText = [...table.notes, table.caption ?? ''].join(' ');
-  const noteDf = readNoteDf(noteText);
-  const noteN = readNoteSampleSize(noteText);
   let unplaced = 0;
   const virtualRows = rows.slice(headerCount).flatMap((row, offset) => {
     const pieces = virtualRowsOf(row, located[headerCount + offset] ?? null, schema);
     unplaced += pieces.unplaced;
     return pieces.rows;
   });
+  const completions: RowCompletion[] = [];
+  const writtenRows = new Set<number>();
+  virtualRows.forEach((row, index) => {
+    const completion = completionOf(row.cells, row.at, schema);
+    if (completion === undefined) return;
+    writtenRows.add(index);
+    if (completion !== null) completions.push(completion);
+  });
+  if (kind === undefined) {
+    // A table of p-values alone (group comparisons with only a p column) is a results table plumbline cannot check.
+    const pColumn = roles.findIndex((role) => role.role === 'p');
+    const withP = pColumn < 1 ? 0 : virtualRows.filter((row, index) => !writtenRows.has(index) && readCell(row.cells[pColumn] ?? '', 'either').kind === 'number').length;
+    if (withP > 0) return { results: [], unread: unreadTable(table, tableIndex, 'no-statistic-column', withP, 0), completions };
+    // A header that mentions a test statistic in words the vocabulary does not know ("F- value", "Chi value (x2)").
+    const withNumbers = rows.filter((row, index) => index >= headerCount && row.slice(1).some((cell) => shapeOf(cell).shape.startsWith('number'))).length;
+    const mentions = rows.slice(0, headerCount).some((row) => row.some((cell) => mentionsStatistic(cell)));
+    return mentions && withNumbers > 0 ? { results: [], unread: unreadTable(table, tableIndex, 'columns-not-recognised', withNumbers, 0), completions } : { ...nothing, completions };
+  }
+  // A column of z without p may hold standard scores, not tests.
+  const segments = buildSegments(roles, kind, schema.titles).filter((segment) => kind !== 'z' || segment.columns.has('p'));
+  if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0), completions };
+  titleBlocks(segments, rows.slice(0, headerCount - 1));
+
+  const noteText = [...table.notes, table.caption ?? ''].join(' ');
+  const noteDf = readNoteDf(noteText);
+  const noteN = readNoteSampleSize(noteText);
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
   const results: ReportedResult[] = [];
@@ -204,7 +238,7 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
     const { cells: row, at: cellsAt } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     if (errorRows[index] || TOTAL_LABEL.test(labelKey) || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
-    if (row.some((cell) => cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0)) continue;
+    if (row.some((cell) => holdsWrittenResult(cell))) continue;
     const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
     const errorIndex = nearestErrorRow(errorRows, index);
@@ -238,9 +272,79 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
     else if (hasStatistic && missingDf) rowsWithoutDf++;
   }
   const missed = rowsWithStatistic - rowsRead + unplaced;
-  if (missed <= 0) return { results, unread: null };
+  if (missed <= 0) return { results, unread: null, completions };
   const reason: UnreadReason = rowsWithoutDf >= unplaced && rowsWithoutDf > 0 ? 'no-df' : 'cells-not-placed';
-  return { results, unread: unreadTable(table, tableIndex, reason, rowsWithStatistic + unplaced, rowsRead) };
+  return { results, unread: unreadTable(table, tableIndex, reason, rowsWithStatistic + unplaced, rowsRead), completions };
+}
+
+/** True when the cell holds a complete written result ("t(58) = 2.10, p = .04"), which the text scanner reads. */
+function holdsWrittenResult(cell: string): boolean {
+  return cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0;
+}
+
+/**
+ * What a row's other cells (placed under the schema's columns) add to the written result in one of its cells:
+ * the p column's p and the effect columns' sizes (a cell "d = 0.31" in a
+ * column of unknown meaning counts too). undefined when no cell holds a
+ * written result; null when one does but the row adds nothing.
+ */
+function completionOf(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): RowCompletion | null | undefined {
+  const written = row.findIndex((cell, column) => column > 0 && holdsWrittenResult(cell));
+  if (written < 0) return undefined;
+  const at = cellsAt?.[written] ?? null;
+  if (at === null) return null;
+  let p: ReportedP | null = null;
+  let notSignificant = false;
+  const effects: ReportedEffect[] = [];
+  const df: ReportedNumber[] = [];
+  row.forEach((cell, column) => {
+    if (column === written || column === 0) return;
+    const role = schema.roles[column];
+    const cellAt = cellsAt?.[column] ?? null;
+    if (role === undefined || cellAt === null) return;
+    if (role.role === 'df' || role.role === 'df1' || role.role === 'df2') {
+      const pair = PAIR_CELL.exec(cell);
+      const read = readCell(cell, '.');
+      if (pair) df.push(parseReportedNumber(pair[1]!)!, parseReportedNumber(pair[2]!.replace(',', '.'))!);
+      else if (read.kind === 'number' && read.comparator === '=') df.push(read.number);
+      return;
+    }
+    if (role.role === 'p' && p === null && !notSignificant) {
+      const read = readCell(cell, '.');
+      if (read.kind === 'ns') notSignificant = true;
+      else if (read.kind === 'number') {
+        const start = cellAt.start + read.start;
+        p = { comparator: read.comparator, value: read.number, plural: false, start, end: cellAt.start + read.end };
+      }
+      return;
+    }
+    if (role.role === 'effect') {
+      const read = readCell(cell, '.');
+      if (read.kind === 'number') effects.push({ kind: role.effect, comparator: read.comparator, value: read.number, interval: null, start: cellAt.start + read.start, end: cellAt.start + read.end });
+      return;
+    }
+    if (role.role === 'unknown' || role.role === 'descriptive' || role.role === 'result') {
+      // "d = 0.31" in a column headed "Eff. size".
+      const normalised = normaliseText(cell);
+      const named = readNameAndValue(normalised.text, skipLeadingSpace(normalised.text));
+      if (named !== null && named.kind !== null && named.end === normalised.text.trimEnd().length) {
+        effects.push({
+          kind: named.kind,
+          comparator: named.comparator,
+          value: named.value,
+          interval: null,
+          start: cellAt.start + normalised.toOriginal(named.start),
+          end: cellAt.start + normalised.toOriginalEnd(named.end),
+        });
+      }
+    }
+  });
+  if (p === null && !notSignificant && effects.length === 0 && df.length === 0) return null;
+  return { start: at.start, end: at.end, df, p, notSignificant, effects };
+}
+
+function skipLeadingSpace(text: string): number {
+  return text.length - text.trimStart().length;
 }
 
 /** The meaning of each column of a table, and the titles spanning headers put over them. */
@@ -283,10 +387,16 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     const headerRoles = headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : classifyHeader(cell)));
     const shift = positional ? bestHeaderShift(headerRoles, bodyShapes, width) : 0;
     headerRow.forEach((cell, index) => {
-      const column = index + shift;
+      let column = index + shift;
       if (column < 0 || column >= width) return;
-      headerTexts[level]![column] = cell.trim();
       const role = headerRoles[index];
+      // A name over a column whose cells cannot be of its kind, with an unnamed column after it that fits,
+      // names that column: a column without a header before it pushed the names left ("| M (SD) | Cohen's d |"
+      // over "| ... | t(28) = −.63, p = .54 | 0.24 |").
+      if (positional && role && isValueRole(role) && role.role !== 'unknown' && index === headerRow.length - 1 && column + 1 < width) {
+        if (columnFit(role, bodyShapes, column) < 0 && columnFit(role, bodyShapes, column + 1) > 0) column++;
+      }
+      headerTexts[level]![column] = cell.trim();
       if (role === null || role === undefined || role.role === 'unknown' || assigned[column]) return;
       if (column === 0 && role.role !== 'label') return;
       roles[column] = role;
@@ -320,6 +430,19 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     }
   }
   return { roles, titles, positional, named };
+}
+
+/** How well a column's body cells fit a role, on average (0 for a column of empty cells). */
+function columnFit(role: ColumnRole, bodyShapes: CellShape[][], column: number): number {
+  let total = 0;
+  let counted = 0;
+  for (const row of bodyShapes) {
+    const shape = row[column];
+    if (shape === undefined || shape.shape === 'empty') continue;
+    total += Math.max(-3, fit(role, shape));
+    counted++;
+  }
+  return counted === 0 ? 0 : total / counted;
 }
 
 /** The nearest non-empty header text at or left of `column` in a title row (a spanning cell keeps its text in its first column). */
