@@ -315,6 +315,14 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
     }
   }
 
+  if (code === 0x00e2 || code === 0x00c2 || code === 0x00c3 || code === 0x00ce || code === 0x00cf) {
+    const repaired = mojibakeAt(original, at);
+    if (repaired !== null) {
+      builder.replace(at, repaired.length, repaired.replacement);
+      return at + repaired.length;
+    }
+  }
+
   if (code === 36) {
     // "$" or "$$" around inline or display mathematics.
     const length = original.charCodeAt(at + 1) === 36 ? 2 : 1;
@@ -616,4 +624,42 @@ function rewriteLatexCommand(original: string, at: number, builder: Normalisatio
   }
   builder.copy(at, at + 1);
   return at + 1;
+}
+
+/**
+ * Characters whose UTF-8 bytes, read as Windows-1252 by a web page or a
+ * copy, become two or three characters ("âˆ’" for "−", "â€‰" for a thin
+ * space, "Î·" for "η", "Ï‡" for "χ"): the statistics-bearing glyphs the
+ * scanner reads, and common punctuation around them.
+ */
+const MOJIBAKE_TARGETS = [
+  0x2212, 0x2013, 0x2014, 0x2009, 0x202f, 0x2002, 0x2003, 0x00a0, 0x2264, 0x2265, 0x00d7, 0x00b7, 0x00b1, 0x00b2, 0x00b3, 0x00b9, 0x2070,
+  0x2074, 0x2075, 0x2076, 0x2077, 0x2078, 0x2079, 0x2080, 0x2081, 0x2082, 0x2083, 0x2084, 0x2085, 0x2086, 0x2087, 0x2088, 0x2089, 0x03b7, 0x03c7, 0x03c1, 0x03c9,
+  0x03c6, 0x03b1, 0x03b2, 0x03b5, 0x2018, 0x2019, 0x201c, 0x201d, 0x2032, 0x00e9,
+];
+
+/** Windows-1252 characters for the bytes 0x80-0x9f (other bytes read as Latin-1). */
+const CP1252_HIGH = [
+  0x20ac, 0x81, 0x201a, 0x192, 0x201e, 0x2026, 0x2020, 0x2021, 0x2c6, 0x2030, 0x160, 0x2039, 0x152, 0x8d, 0x17d, 0x8f, 0x90, 0x2018, 0x2019, 0x201c, 0x201d, 0x2022,
+  0x2013, 0x2014, 0x2dc, 0x2122, 0x161, 0x203a, 0x153, 0x9d, 0x17e, 0x178,
+];
+
+const MOJIBAKE: ReadonlyMap<string, string> = (() => {
+  const table = new Map<string, string>();
+  const encoder = new TextEncoder();
+  for (const target of MOJIBAKE_TARGETS) {
+    const character = String.fromCharCode(target);
+    const garbled = [...encoder.encode(character)].map((byte) => String.fromCharCode(byte >= 0x80 && byte <= 0x9f ? CP1252_HIGH[byte - 0x80]! : byte)).join('');
+    table.set(garbled, REPLACEMENTS.get(target) ?? character);
+  }
+  return table;
+})();
+
+/** The repair of a garbled character at `at` (see MOJIBAKE), or null. */
+function mojibakeAt(text: string, at: number): { length: number; replacement: string } | null {
+  for (const length of [3, 2]) {
+    const replacement = MOJIBAKE.get(text.slice(at, at + length));
+    if (replacement !== undefined) return { length, replacement };
+  }
+  return null;
 }

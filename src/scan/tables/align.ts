@@ -29,6 +29,8 @@ export type CellShape =
   /** Two whole numbers with a comma: a df pair "2, 180". */
   | { shape: 'pair'; first: number; second: number }
   | { shape: 'ns' }
+  /** A statistic with its p: "0.11, p > 0.05", "4.29, p = 0.04*". */
+  | { shape: 'statistic-p'; value: number }
   /** A range of two numbers, "81–152" (minimum to maximum). */
   | { shape: 'range' }
   /** A complete written result, "t(46) = 1.06" (the text scanner reads it). */
@@ -44,12 +46,15 @@ export type CellShape =
 const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
+/** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
+export const STATISTIC_WITH_P = /^\s*(-?\d*\.?\d+)\s*[,;]\s*p\s*(<=|>=|<|>|=)\s*(\d*\.?\d+)\s*(?:[*\u2020\u2021]{1,4}|[a-h])?\s*$/i;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
 const NUMBER_INTERVAL = /^([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*(?:,|;|to|\u2013|-)\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {
-  const text = cell.trim();
+  // Garbled glyphs and thin spaces ("âˆ’â€‰0.05") are read as what they stand for.
+  const text = (/[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f]/.test(cell) ? normaliseText(cell).text : cell).trim();
   if (MARK.test(text)) return { shape: 'mark' };
   const read = readCell(text, 'either');
   if (read.kind === 'empty') return { shape: 'empty' };
@@ -67,6 +72,8 @@ export function shapeOf(cell: string): CellShape {
       return { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
     }
   }
+  const withP = STATISTIC_WITH_P.exec(normaliseText(text).text);
+  if (withP) return { shape: 'statistic-p', value: Number(withP[1]) };
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (scanText(text).results.length > 0) return { shape: 'written' };
     const normalised = normaliseText(text).text;
@@ -101,6 +108,7 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'empty') return 0;
   if (cell.shape === 'mark') return NEVER;
   if (cell.shape === 'text') return role.role === 'label' ? 1 : -2;
+  if (cell.shape === 'statistic-p') return role.role === 'statistic' ? 2.5 : role.role === 'unknown' ? 0.3 : -2;
   if (cell.shape === 'written') return role.role === 'result' ? 2 : role.role === 'statistic' ? 1.5 : role.role === 'unknown' || role.role === 'descriptive' ? 0.5 : -2;
   if (cell.shape === 'named') return role.role === 'effect' || role.role === 'result' ? 1.5 : role.role === 'unknown' ? 0.5 : -2;
   if (role.role === 'result') return cell.shape === 'number' ? 0.3 : -1;

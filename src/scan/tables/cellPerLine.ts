@@ -27,7 +27,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, TABLE_TITLE } from './cells.js';
 import { shapeOf } from './align.js';
 
 interface Line {
@@ -59,7 +59,7 @@ const MAX_EMPTY_RUN = 8;
 /** Most blank lines in a row between two cells. */
 const MAX_BLANK_RUN = 2;
 
-const TITLE = /^\s{0,8}(?:\*\*|_)?Table\s+[A-Z]?\d{1,3}[A-Za-z]?(?:\*\*|_)?(?=[.:\s]|$)/i;
+const TITLE = TABLE_TITLE;
 const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|[a-h]\s*p\s*[<\u2264=]|Abbreviations?\b)/;
 
 export interface CellPerLineTable {
@@ -90,11 +90,17 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = firstValue;
   while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
-  const names = cells.slice(first, bodyStart).filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
-  const roles = names.map((cell) => classifyHeader(cell.text));
-  if (names.length < 2 || !roles.some((role) => role.role === 'statistic' || role.role === 'p')) return null;
   const body = cells.slice(bodyStart);
   const labelCount = typicalLabelCount(body);
+  // The value columns: when rows have as many values as the header has cells after its label headers, every one
+  // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
+  const headerRun = cells.slice(first, bodyStart);
+  const valueCount = typicalValueCount(body);
+  const everyCell = valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
+  const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
+  const roles = names.map((cell) => classifyHeader(cell.text));
+  const known = roles.filter((role) => role.role !== 'unknown' && role.role !== 'label').length;
+  if (known < (everyCell ? 1 : 2) || names.length < 2 || !roles.some((role) => role.role === 'statistic' || role.role === 'p')) return null;
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
   const startsWithLabel = classifyHeader(cells[first]!.text).role === 'label';
   const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));
@@ -202,6 +208,26 @@ function isValueCell(cell: Cell): boolean {
 /** A known column name other than a bare label ("Source" counts too: it starts the header). */
 function isColumnName(text: string): boolean {
   return text.length <= 40 && isKnownHeader(headerKey(text));
+}
+
+/** The number of values most rows have (0 when no row has two). */
+function typicalValueCount(body: Cell[]): number {
+  const counts = new Map<number, number>();
+  let index = 0;
+  while (index < body.length) {
+    if (!isValueCell(body[index]!)) {
+      index++;
+      continue;
+    }
+    let end = index;
+    while (end < body.length && isValueCell(body[end]!)) end++;
+    if (end - index >= 2) counts.set(end - index, (counts.get(end - index) ?? 0) + 1);
+    index = end;
+  }
+  let best = 0;
+  let bestCount = 0;
+  for (const [count, times] of counts) if (times > bestCount || (times === bestCount && count > best)) [best, bestCount] = [count, times];
+  return best;
 }
 
 /** The number of text cells most rows have before their values. */

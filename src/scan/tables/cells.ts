@@ -93,6 +93,19 @@ const COMPARATORS: Record<string, Comparator> = {
 /** Reads one cell as written, with the table's decimal separator. */
 export function readCell(cell: string, separator: DecimalSeparator = '.'): CellValue {
   if (cell.length > MAX_CELL_LENGTH) return { kind: 'text' };
+  // Garbled glyphs ("âˆ’â€‰0.05" for "− 0.05") and thin spaces: read the repaired cell, with offsets mapped back.
+  if (GARBLED.test(cell)) {
+    const normalised = normaliseText(cell);
+    const read = readPlainCell(normalised.text, separator);
+    return read.kind === 'number' ? { ...read, start: normalised.toOriginal(read.start), end: normalised.toOriginalEnd(read.end) } : read;
+  }
+  return readPlainCell(cell, separator);
+}
+
+/** Characters that start a garbled (mis-decoded) glyph, or spaces a number may hold. */
+const GARBLED = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f]/;
+
+function readPlainCell(cell: string, separator: DecimalSeparator): CellValue {
   if (EMPTY_CELL.test(cell)) return { kind: 'empty' };
   const trimmed = cell.trim();
   if (NOT_SIGNIFICANT.test(trimmed)) return { kind: 'ns' };
@@ -128,7 +141,7 @@ export type ColumnRole =
   | { role: 'label' }
   | { role: 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' }
   /** `dfInCell`: the header says the cells hold their df in brackets ("t (df)": "4.842 (15)"). */
-  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[]; dfInCell?: boolean }
+  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[]; dfInCell?: boolean; pInCell?: boolean }
   | { role: 'effect'; effect: EffectKind }
   | { role: 'descriptive' }
   /** A column of written results or of test statistics of varying kinds ("Statistic", "Test", "Effect size"). */
@@ -213,6 +226,12 @@ function knownKeyOf(key: string): string | null {
 export function classifyHeader(header: string): ColumnRole {
   const key = headerKey(header);
   if (key === '') return { role: 'unknown' };
+  // "F(1, 66), p" or "χ2 (p)": the statistic's cells hold their p too ("0.11, p > 0.05").
+  const withP = /^(.+?)(?:[a-h])?\s*(?:,\s*p|\(\s*p(?:-?value)?\s*\))$/.exec(key);
+  if (withP) {
+    const inner = classifyHeader(withP[1]!);
+    if (inner.role === 'statistic') return { ...inner, pInCell: true };
+  }
   const knownKey = knownKeyOf(key);
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) {
@@ -235,7 +254,8 @@ export function classifyHeader(header: string): ColumnRole {
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
-  return knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key);
+  if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key)) return true;
+  return /(?:,\s*p|\(\s*p(?:-?value)?\s*\))$/.test(key) && classifyHeader(key).role === 'statistic';
 }
 
 let firstWords: Set<string> | null = null;
@@ -268,3 +288,12 @@ export function statisticKindOf(role: ColumnRole): StatisticKind | null {
 export function knownHeaderNames(): readonly string[] {
   return [...ROLE_BY_KEY.keys()];
 }
+
+/**
+ * A table's title line: "Table 2", "TABLE 2.", "**Table 2**", "# Table 2" (a
+ * Markdown heading), "> **Table 4.**", and the word in the languages of the
+ * corpus (Tabla, Tabela, Tableau, Tabelle, Tab.).
+ */
+export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3})?(?:\*\*|_)?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
+/** A title line with nothing after the number: the title proper follows on the next line. */
+export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3})?(?:\*\*|_)?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?\s*$/;

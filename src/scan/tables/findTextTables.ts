@@ -20,7 +20,7 @@
  */
 
 import type { DocumentTable, TableLayout } from '../../documents/types.js';
-import { classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell } from './cells.js';
+import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE } from './cells.js';
 import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
 import { readGluedTable } from './glued.js';
@@ -46,8 +46,8 @@ const MAX_ROW_LENGTH = 400;
 const MAX_LABEL_LENGTH = 80;
 const MAX_LABEL_WORDS = 10;
 
-const TITLE = /^\s{0,8}(?:\*\*|_)?Table\s+[A-Z]?\d{1,3}[A-Za-z]?(?:\*\*|_)?(?=[.:\s]|$)/;
-const BARE_TITLE = /^\s{0,8}(?:\*\*|_)?Table\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?\s*$/;
+const TITLE = TABLE_TITLE;
+const BARE_TITLE = BARE_TABLE_TITLE;
 const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|[\u2020\u2021]\s*p\s*[<\u2264=])/;
 /** Header fragments that a PDF splits from their superscript ("ηp" over "2"). */
 const INCOMPLETE_HEADERS = new Set(['eta', 'etap', 'eta p', 'etag', 'partial eta', 'omega', 'omegap', 'chi', 'x', 'partial omega']);

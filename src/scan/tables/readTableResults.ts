@@ -41,7 +41,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
-import { bestHeaderShift, fit, isValueRole, placeCells, placementIsClear, shapeOf, type CellShape } from './align.js';
+import { bestHeaderShift, fit, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -740,7 +740,9 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   const columns = segment.columns;
   // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
   const withDf = statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
-  const statistic = withDf?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
+  // "0.11, p > 0.05": the statistic with its p.
+  const withP = withDf === null ? statisticWithP(row, cellsAt, columns.get('statistic')) : null;
+  const statistic = withDf?.statistic ?? withP?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
   const record = (key: TableColumn, cell: NumberCell | null): void => {
@@ -786,7 +788,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   if (df === null) return 'no-df';
   if (df.some((value) => !(value.value > 0))) return null;
 
-  const pCell = numberAt(row, cellsAt, columns.get('p'), input.separator);
+  const pCell = withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);
   const effects: ReportedEffect[] = [];
   for (const [key, column] of columns) {
@@ -864,6 +866,30 @@ function numberWithInterval(
     interval: { level: null, low, high },
     end: at === null ? -1 : at.start + match.index + match[0].length,
   };
+}
+
+/** A statistic cell that holds its p, "0.11, p > 0.05", with the offsets of both numbers. */
+function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): { statistic: NumberCell; p: NumberCell } | null {
+  if (column === undefined) return null;
+  const cell = row[column] ?? '';
+  const normalised = normaliseText(cell);
+  const match = STATISTIC_WITH_P.exec(normalised.text);
+  if (!match) return null;
+  const at = cellsAt?.[column] ?? null;
+  const located = (written: string, from: number, comparator: Comparator): NumberCell | null => {
+    const number = parseReportedNumber(written);
+    if (number === null) return null;
+    const offset = normalised.text.indexOf(written, from);
+    return {
+      comparator,
+      record: { ...number, start: at === null ? -1 : at.start + normalised.toOriginal(offset), end: at === null ? -1 : at.start + normalised.toOriginalEnd(offset + written.length) },
+    };
+  };
+  const statistic = located(match[1]!, 0, '=');
+  const comparatorText = match[2]!;
+  const comparator = (comparatorText === '<=' ? '<=' : comparatorText === '>=' ? '>=' : comparatorText) as Comparator;
+  const p = located(match[3]!, normalised.text.indexOf(comparatorText), comparator);
+  return statistic === null || p === null ? null : { statistic, p };
 }
 
 const PAIR_CELL = /^\s*(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)\s*$/;

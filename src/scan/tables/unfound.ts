@@ -9,8 +9,9 @@
 
 import type { DocumentTable } from '../../documents/types.js';
 import { mentionsStatistic, type UnreadTable } from './readTableResults.js';
+import { TABLE_TITLE } from './cells.js';
 
-const TITLE = /^\s{0,8}(?:\*\*|_|>\s*\*\*)?(?:Table|TABLE|Tabla|Tabela|Tableau|Tabelle|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?(?:\*\*|_)?(?=[.:\s|]|$)/;
+const TITLE = TABLE_TITLE;
 /** How far after its title a table's lines are looked at. */
 const MAX_LINES = 40;
 const MAX_CHARACTERS = 5000;
