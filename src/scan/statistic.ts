@@ -330,7 +330,8 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   const valueRead = readNumber(text, at, true, 'unlessThousands');
   if (valueRead === null) return null;
   // A value running into letters or digits is a unit or a label ("t = 5s"), not a statistic.
-  if (!endsValue(text, valueRead.end)) return null;
+  // With bracketed df, a footnote mark of one to three letters may follow ("t(37.5) =18.55ab" in a table cell).
+  if (!endsValue(text, valueRead.end) && !(dfRead?.bracketed === true && footnoteLettersEnd(text, valueRead.end) !== -1)) return null;
 
   const df = dfRead?.df ?? [];
   // "H(5) = 0.32" may be a cumulative hazard: an H counts only with its p.
@@ -357,6 +358,13 @@ function isByParticipantOrItem(text: string, position: number): boolean {
   const digit = text.charCodeAt(position);
   if (digit !== 49 && digit !== 50) return false;
   return OPENING_BRACKETS.has(text.charCodeAt(skipSpaces(text, position + 1)));
+}
+
+/** End of one to three footnote letters (a-h) at `position` that no other letter or digit follows, or -1. */
+function footnoteLettersEnd(text: string, position: number): number {
+  let at = position;
+  while (at < position + 3 && text.charCodeAt(at) >= 97 && text.charCodeAt(at) <= 104) at++;
+  return at > position && endsValue(text, at) ? at : -1;
 }
 
 function endsValue(text: string, position: number): boolean {

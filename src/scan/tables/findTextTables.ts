@@ -19,7 +19,7 @@
  * each line is looked at a bounded number of times.
  */
 
-import type { DocumentTable, TableLayout } from '../../documents/types.js';
+import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE } from './cells.js';
 import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
@@ -71,7 +71,7 @@ export function findTextTables(text: string): DocumentTable[] {
       index++;
       continue;
     }
-    const { rows, last, layout } = found;
+    const { rows, last, layout, cells } = found;
     const title = readTitle(lines, index);
     const notes = readNotes(lines, last + 1);
     const startLine = title?.firstLine ?? index;
@@ -83,6 +83,7 @@ export function findTextTables(text: string): DocumentTable[] {
       notes: notes.notes,
       rows,
       layout,
+      ...(cells ? { cells } : {}),
     });
     index = endLine + 1;
   }
@@ -131,18 +132,72 @@ interface FoundRows {
   rows: string[][];
   last: number;
   layout: TableLayout;
+  /** Each cell's offsets, when the finder knows them. */
+  cells?: (CellSpan | null)[][];
 }
 
 function readPipeTable(lines: Line[], first: number): FoundRows | null {
-  const rows: string[][] = [];
+  const rows: Piece[][] = [];
   let index = first;
   for (; index < lines.length; index++) {
     const cells = pipeCells(lines[index]!);
     if (cells === null) break;
-    if (!isSeparatorRow(cells)) rows.push(cells);
+    if (!isSeparatorRow(cells)) rows.push(pipeCellSpans(lines[index]!, cells.length));
   }
   if (rows.length < 2) return null;
-  return { rows, last: index - 1, layout: 'pipe' };
+  const merged = joinBrokenRows(rows);
+  return {
+    rows: merged.map((row) => row.map((cell) => cell.text)),
+    last: index - 1,
+    layout: 'pipe',
+    cells: merged.map((row) => row.map((cell) => (cell.text === '' ? null : { start: cell.start, end: cell.end }))),
+  };
+}
+
+/** The cells of a pipe row with their offsets in the text (the same cells pipeCells reads). */
+function pipeCellSpans(line: Line, count: number): Piece[] {
+  const pieces: Piece[] = [];
+  const text = line.text;
+  let at = text.trimStart().startsWith('|') ? text.indexOf('|') + 1 : 0;
+  while (pieces.length < count && at <= text.length) {
+    let end = text.indexOf('|', at);
+    if (end === -1) end = text.length;
+    const raw = text.slice(at, end);
+    const lead = raw.length - raw.trimStart().length;
+    const trimmed = raw.trim();
+    pieces.push({ text: trimmed, start: line.start + at + lead, end: line.start + at + lead + trimmed.length });
+    at = end + 1;
+  }
+  return pieces;
+}
+
+/**
+ * Rows that a web page broke over lines ("Contact 3 | 0.26 * (0.14, 0.43) |"
+ * / "0.50 (0.32, 0.74) |" / "- | 3.60 | 0.07 |"): consecutive rows with fewer
+ * cells than most rows have are joined while together they do not exceed
+ * that number (their trailing empty cells left out).
+ */
+function joinBrokenRows(rows: Piece[][]): Piece[][] {
+  const counts = new Map<number, number>();
+  for (const row of rows) counts.set(row.length, (counts.get(row.length) ?? 0) + 1);
+  let width = 0;
+  let most = 0;
+  for (const [count, times] of counts) if (times > most || (times === most && count > width)) [width, most] = [count, times];
+  const filled = (row: Piece[]): Piece[] => {
+    let end = row.length;
+    while (end > 1 && row[end - 1]!.text === '') end--;
+    return row.slice(0, end);
+  };
+  const joined: Piece[][] = [];
+  for (let index = 0; index < rows.length; index++) {
+    let row = rows[index]!;
+    while (row.length < width && index + 1 < rows.length && rows[index + 1]!.length < width && filled(row).length + filled(rows[index + 1]!).length <= width) {
+      row = [...filled(row), ...rows[index + 1]!];
+      index++;
+    }
+    joined.push(row);
+  }
+  return joined;
 }
 
 // ------------------------------------------------ aligned and crushed tables
