@@ -174,8 +174,8 @@ function pipeCellSpans(line: Line, count: number): Piece[] {
 /**
  * Rows that a web page broke over lines ("Contact 3 | 0.26 * (0.14, 0.43) |"
  * / "0.50 (0.32, 0.74) |" / "- | 3.60 | 0.07 |"): consecutive rows with fewer
- * cells than most rows have are joined while together they do not exceed
- * that number (their trailing empty cells left out).
+ * cells than the header (or most rows) are joined while together they do
+ * not exceed that number (their trailing empty cells left out).
  */
 function joinBrokenRows(rows: Piece[][]): Piece[][] {
   const counts = new Map<number, number>();
@@ -183,6 +183,8 @@ function joinBrokenRows(rows: Piece[][]): Piece[][] {
   let width = 0;
   let most = 0;
   for (const [count, times] of counts) if (times > most || (times === most && count > width)) [width, most] = [count, times];
+  // The header row shows how many cells a whole row has, even when most rows came out broken.
+  width = Math.max(width, rows[0]?.length ?? 0);
   const filled = (row: Piece[]): Piece[] => {
     let end = row.length;
     while (end > 1 && row[end - 1]!.text === '') end--;

@@ -206,6 +206,11 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     writtenRows.add(index);
     if (completion !== null) completions.push(completion);
   });
+  if (kind === undefined && roles.some((role) => role.role === 'result')) {
+    // A "Test" column naming each row's test and a "Statistic" column holding its value ("t-test | 4.95, df = 4254.7").
+    const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount));
+    if (perRow.length > 0) return { results: perRow, unread: null, completions };
+  }
   if (kind === undefined) {
     // A table of p-values alone (group comparisons with only a p column) is a results table plumbline cannot check.
     const pColumn = roles.findIndex((role) => role.role === 'p');
@@ -275,6 +280,89 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   if (missed <= 0) return { results, unread: null, completions };
   const reason: UnreadReason = rowsWithoutDf >= unplaced && rowsWithoutDf > 0 ? 'no-df' : 'cells-not-placed';
   return { results, unread: unreadTable(table, tableIndex, reason, rowsWithStatistic + unplaced, rowsRead), completions };
+}
+
+/** Names of tests in a table's cells, and the kind each is checked as. */
+const TEST_NAMES: [RegExp, StatisticKind][] = [
+  [/^(?:welch'?s? |student'?s? |independent[- ]samples? |paired[- ]samples? )?t[- ]?tests?$/i, 't'],
+  [/^(?:pearson'?s? )?correlations?$|^pearson'?s? r$/i, 'r'],
+  [/^(?:pearson'?s? )?(?:chi[- ]?squared?|χ2|χ²|x2)(?: tests?)?$/i, 'chi2'],
+  [/^(?:one[- ]way |two[- ]way )?(?:anova|f[- ]?tests?)$/i, 'F'],
+  [/^z[- ]?tests?$/i, 'z'],
+];
+
+function testKindOf(cell: string): StatisticKind | null {
+  const text = cell.trim();
+  if (text.length > 40) return null;
+  return TEST_NAMES.find(([pattern]) => pattern.test(text))?.[1] ?? null;
+}
+
+/** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
+const STATISTIC_CELL = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*(?:[,;]\s*df\s*=\s*(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?)?\s*$/i;
+
+/**
+ * Tables that name each row's test in a cell ("t-test", "correlation") and
+ * print its value in a "Statistic" column ("4.95, df = 4254.7"): the value
+ * is the cell after the test's name; its df are in that cell, or, for a
+ * correlation, follow from the row's n (n - 2); its p is the next cell that
+ * can be one. Read from the cells' contents, since such rows are often
+ * broken or shifted against the header.
+ */
+function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, body: string[][], located: ((LocatedCell | null)[] | null)[]): ReportedResult[] {
+  const results: ReportedResult[] = [];
+  body.forEach((row, index) => {
+    const cellsAt = located[index] ?? null;
+    const testAt = row.findIndex((cell) => testKindOf(cell) !== null);
+    if (testAt < 0 || cellsAt === null) return;
+    const kind = testKindOf(row[testAt]!)!;
+    const statisticText = row[testAt + 1] ?? '';
+    const match = STATISTIC_CELL.exec(normaliseText(statisticText).text);
+    const statisticAt = cellsAt[testAt + 1] ?? null;
+    if (!match || statisticAt === null) return;
+    const value = parseReportedNumber(match[1]!.replace(/\s/g, ''));
+    if (value === null) return;
+    const dfTexts = [match[2], match[3]].filter((written): written is string => written !== undefined);
+    let df = dfTexts.map((written) => parseReportedNumber(written)!);
+    let nCell: ReportedNumber | null = null;
+    let pRead: ReportedP | null = null;
+    let notSignificant = false;
+    for (let column = testAt + 2; column < row.length && pRead === null && !notSignificant; column++) {
+      const read = readCell(row[column] ?? '', '.');
+      const at = cellsAt[column] ?? null;
+      if (read.kind === 'ns') notSignificant = true;
+      if (read.kind !== 'number' || at === null) continue;
+      if (nCell === null && read.number.decimals === 0 && read.comparator === '=' && read.number.value >= 3 && pRead === null && read.number.value > 1) {
+        nCell = read.number;
+        continue;
+      }
+      if (read.number.value <= 1) pRead = { comparator: read.comparator, value: read.number, plural: false, start: at.start + read.start, end: at.start + read.end };
+    }
+    let dfFrom: 'sample-size' | undefined;
+    if (df.length === 0 && kind === 'r' && nCell !== null) {
+      df = [{ value: nCell.value - 2, text: String(nCell.value - 2), decimals: 0, exponent: 0 }];
+      dfFrom = 'sample-size';
+    }
+    const needed = kind === 'F' ? 2 : kind === 'z' ? 0 : 1;
+    if (df.length !== needed) return;
+    const start = statisticAt.start + statisticText.indexOf(match[1]!.trim().slice(0, 1));
+    const end = pRead?.end ?? statisticAt.end;
+    results.push({
+      kind,
+      text: text.slice(start, end),
+      start,
+      end,
+      df,
+      ...(dfFrom ? { dfFrom } : {}),
+      sampleSize: kind === 'r' ? nCell : null,
+      value,
+      valueComparator: '=',
+      p: pRead,
+      notSignificant,
+      effects: [],
+      tableRow: { tableIndex, caption: table.caption, rowLabel: (row[0] ?? '').trim(), cells: {}, errorRow: null },
+    });
+  });
+  return results;
 }
 
 /** True when the cell holds a complete written result ("t(58) = 2.10, p = .04"), which the text scanner reads. */
