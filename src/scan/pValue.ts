@@ -171,9 +171,32 @@ function skipQualifier(text: string, position: number): number {
   return position;
 }
 
-/** Reads "n.s.", "n.s", "ns", "NS", "n. s." at `position`; returns its end, or -1. */
+/**
+ * "Not significant" written out after a result, in English and in the
+ * languages of the real corpus's sources (normalised text: accents on e are
+ * already plain).
+ */
+const NOT_SIGNIFICANT_WORDS = [
+  'not significant',
+  'non-significant',
+  'nonsignificant',
+  'nicht signifikant',
+  'no significativo',
+  'no significativa',
+  'nao significativo',
+  'nao significativa',
+  'non significatif',
+  'non significative',
+  'niet significant',
+];
+
+/** Reads "n.s.", "n.s", "ns", "NS", "n. s." (or "not significant" and its translations) at `position`; returns its end, or -1. */
 export function readNotSignificant(text: string, position: number): number {
   if (!startsWord(text, position)) return -1;
+  const lower = text.slice(position, position + 20).toLowerCase().replace(/\u00e3/g, 'a');
+  for (const words of NOT_SIGNIFICANT_WORDS) {
+    if (lower.startsWith(words) && endsWord(text, position + words.length)) return position + words.length;
+  }
   const first = text.charCodeAt(position);
   if (first !== 110 && first !== 78) return -1; // n, N
   let at = position + 1;

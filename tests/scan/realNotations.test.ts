@@ -138,3 +138,27 @@ describe('p-values damaged by text extraction', () => {
     expect(onlyResult('The difference was t(28) = \u2212 0.47, p = .64.').value?.value).toBe(-0.47);
   });
 });
+
+describe('"not significant" written out, and other damage real pages carry', () => {
+  it.each(['not significant', 'nicht signifikant', 'no significativo', 'não significativo', 'non significatif', 'niet significant'])('reads "%s" after a result as n.s.', (words) => {
+    const result = onlyResult(`The interaction was F(1, 20) = 1.20, ${words}.`);
+    expect(result.notSignificant).toBe(true);
+    expect(result.p).toBeNull();
+  });
+
+  it('reads glyphs garbled by a wrong text encoding (âˆ’ for −, â€‰ for a thin space, Î· for η)', () => {
+    const result = onlyResult('The effect was t(30) = âˆ’2.10, pâ€‰=â€‰.044, and Î·p2 is not given.');
+    expect(result.value?.value).toBe(-2.1);
+    expect(result.p?.value.text).toBe('.044');
+  });
+
+  it('does not take the p of the next table row (a line that ends in a pipe ends the row)', () => {
+    const [first] = scanText('F = 14.272 |\np = 0.001* |').results;
+    expect(first?.p ?? null).toBeNull();
+  });
+
+  it('reads a p with a footnote letter, "p = .12e", and a value with footnote letters after bracketed df', () => {
+    expect(onlyResult('| t(24.22) = 1.64, p = .12e | 0.67 |').p?.value.text).toBe('.12');
+    expect(onlyResult('t(37.5) =18.55ab').value?.text).toBe('18.55');
+  });
+});
