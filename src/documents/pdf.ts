@@ -2,8 +2,12 @@ import { spawn } from 'node:child_process';
 import { accessSync, constants } from 'node:fs';
 import { delimiter, join } from 'node:path';
 import { findReferenceListRegions } from './plainRegions.js';
-import type { DocumentText } from './types.js';
+import { composePage, mayHoldTable, type ComposedPage } from './pdfCompose.js';
+import { locateWords, parseBboxPages, pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from './pdfWords.js';
+import type { DocumentTable, DocumentText, Region } from './types.js';
 import { defaultLimits, limitHint, type Limits } from '../limits.js';
+
+export { dehyphenate } from './pdfText.js';
 
 /**
  * PDF reader with two engines that give the same kind of text:
@@ -29,14 +33,25 @@ import { defaultLimits, limitHint, type Limits } from '../limits.js';
  * It does not otherwise rewrite the text: ligatures, odd minus signs and
  * flattened sub/superscripts ("F1,44", "ηp2") are left to the scanner, which
  * normalises Unicode itself and reads results split across lines.
- * Tables are not rebuilt from the page (`tables` stays empty): their rows
- * are in the text as the engine read them.
+ *
+ * Tables are rebuilt from the positions of the words (pdfLayout.ts): each
+ * engine also gives every word's box, tied to its letters in the page text
+ * (pdfWords.ts: `pdftotext -raw -bbox`, or pdf.js's text items), and the
+ * lines that held a table's words are replaced by the table written one row
+ * per line, cells joined by " | " (pdfCompose.ts), which the document's
+ * `tables` describe cell by cell, with a caption and a table region each.
+ * The rest of the page reads as before, and so does a page that names no
+ * table and holds fewer than six numbers standing alone (mayHoldTable), or
+ * whose words cannot be tied to its text: the word boxes are not looked at
+ * (with pdftotext, the second run is made only for a PDF with a page that
+ * may hold a table).
  */
 
 export type PdfEngine = 'pdf-parse' | 'pdftotext';
 export type PdfEngineChoice = 'auto' | PdfEngine;
 
-export type PdfPagesOutcome = { ok: true; pages: string[] } | { ok: false; error: string };
+/** Each page's text as the engine gives it and, when they could be tied to it, its words with their boxes. */
+export type PdfPagesOutcome = { ok: true; pages: string[]; words: (LocatedWord[] | null)[] } | { ok: false; error: string };
 
 const ENCRYPTED = 'encrypted PDF: it needs a password to open; save a copy without a password (or print it to a new PDF) and read that';
 const NO_TEXT_LAYER = 'no text layer: the PDF seems to be scanned images; run OCR first';
@@ -87,7 +102,33 @@ export async function readPdf(
   if (!extracted.ok) return extracted;
   if (extracted.pages.length === 0) return { ok: false, error: 'the PDF has no pages' };
   if (looksScanned(extracted.pages)) return { ok: false, error: NO_TEXT_LAYER };
-  return { ok: true, document: pdfDocument(path, withoutPageFurniture(extracted.pages).map(dehyphenate)) };
+  return { ok: true, document: pdfDocument(path, composePages(extracted.pages, extracted.words)) };
+}
+
+/**
+ * Each page without its furniture (see withoutPageFurniture), de-hyphenated,
+ * with its tables rebuilt from its words (the words inside the furniture
+ * are left out).
+ */
+export function composePages(pages: readonly string[], words: readonly (readonly LocatedWord[] | null)[]): ComposedPage[] {
+  return furnitureRanges(pages).map((range, index) => {
+    const pageWords = words[index] ?? null;
+    // Words are in text order: those inside the kept range are one slice of them.
+    const kept = pageWords === null ? null : pageWords.slice(firstEndingAfter(pageWords, range.start), firstEndingAfter(pageWords, range.end));
+    return composePage(pages[index]!.slice(range.start, range.end), kept, range.start);
+  });
+}
+
+/** Index of the first word (in text order) that ends after `offset` (binary search). */
+function firstEndingAfter(words: readonly LocatedWord[], offset: number): number {
+  let low = 0;
+  let high = words.length;
+  while (low < high) {
+    const middle = (low + high) >> 1;
+    if (words[middle]!.end <= offset) low = middle + 1;
+    else high = middle;
+  }
+  return low;
 }
 
 /** A PDF ends with "%%EOF" (possibly followed by a little whitespace or junk); a cut file does not. */
@@ -119,6 +160,11 @@ function furnitureKey(line: string): string {
  * are touched; body text is never removed.
  */
 export function withoutPageFurniture(pages: readonly string[]): string[] {
+  return furnitureRanges(pages).map((range, index) => pages[index]!.slice(range.start, range.end));
+}
+
+/** What withoutPageFurniture keeps of each page: [start, end) of its text. */
+export function furnitureRanges(pages: readonly string[]): { start: number; end: number }[] {
   const split = pages.map((page) => page.split('\n'));
   const edgeCounts = new Map<string, number>();
   for (const lines of split) {
@@ -148,19 +194,75 @@ export function withoutPageFurniture(pages: readonly string[]): string[] {
         removed += 1;
       } else break;
     }
-    return lines.slice(first, last + 1).join('\n');
+    if (first > last) return { start: 0, end: 0 };
+    let start = 0;
+    for (let index = 0; index < first; index++) start += lines[index]!.length + 1;
+    let end = start;
+    for (let index = first; index <= last; index++) end += lines[index]!.length + (index < last ? 1 : 0);
+    return { start, end };
   });
 }
 
-/** Joins the pages with a form feed after each (as pdftotext writes them) and records where each starts. */
-export function pdfDocument(path: string, pages: readonly string[]): DocumentText {
+/**
+ * Joins the pages with a form feed after each (as pdftotext writes them),
+ * records where each starts, and places the pages' tables in the whole text
+ * (a caption region and a table region each, taken out of the reference
+ * list when a table stands in it).
+ */
+export function pdfDocument(path: string, pages: readonly (string | ComposedPage)[]): DocumentText {
   const pageStarts: number[] = [];
+  const tables: DocumentTable[] = [];
+  const tableRegions: Region[] = [];
   let text = '';
   for (const page of pages) {
-    pageStarts.push(text.length);
-    text += `${page.trimEnd()}\n\f`; // not /\s+$/, which is quadratic on a long run of spaces
+    const composed = typeof page === 'string' ? { text: page, tables: [] } : page;
+    const base = text.length;
+    pageStarts.push(base);
+    text += `${composed.text.trimEnd()}\n\f`; // not /\s+$/, which is quadratic on a long run of spaces
+    for (const table of composed.tables) {
+      const shift = (span: { start: number; end: number }): { start: number; end: number } => ({ start: span.start + base, end: span.end + base });
+      tables.push({
+        start: table.start + base,
+        end: table.end + base,
+        caption: table.caption,
+        notes: table.notes,
+        rows: table.rows,
+        ...(table.headerRows > 0 ? { headerRows: table.headerRows } : {}),
+        spans: table.spans,
+        cells: table.cells.map((row) => row.map((cell) => (cell === null ? null : shift(cell)))),
+        layout: 'positions',
+      });
+      if (table.captionSpan !== null) tableRegions.push({ kind: 'caption', ...shift(table.captionSpan) });
+      tableRegions.push({ kind: 'table', ...shift(table.bodySpan) });
+    }
   }
-  return { path, format: 'pdf', text, pageOf: (offset) => pageAt(pageStarts, offset, text.length), regions: findReferenceListRegions(text), tables: [] };
+  const regions = withRegionsCutOut(text, findReferenceListRegions(text), tableRegions);
+  return { path, format: 'pdf', text, pageOf: (offset) => pageAt(pageStarts, offset, text.length), regions, tables };
+}
+
+/**
+ * `regions` without the spans of `cuts` (sorted, not overlapping), with
+ * `cuts` added; what is left of a region is trimmed of white space at its
+ * ends and dropped when nothing else is left. Sorted and not overlapping.
+ */
+function withRegionsCutOut(text: string, regions: readonly Region[], cuts: readonly Region[]): Region[] {
+  if (cuts.length === 0) return [...regions];
+  const out: Region[] = [...cuts];
+  const keep = (kind: Region['kind'], start: number, end: number): void => {
+    while (start < end && /\s/.test(text[start]!)) start++;
+    while (end > start && /\s/.test(text[end - 1]!)) end--;
+    if (end > start) out.push({ kind, start, end });
+  };
+  for (const region of regions) {
+    let start = region.start;
+    for (const cut of cuts) {
+      if (cut.end <= start || cut.start >= region.end) continue;
+      if (cut.start > start) keep(region.kind, start, cut.start);
+      start = Math.max(start, cut.end);
+    }
+    if (start < region.end) keep(region.kind, start, region.end);
+  }
+  return out.sort((a, b) => a.start - b.start);
 }
 
 /** 1-based page holding `offset` (binary search over page starts); null outside the text. */
@@ -176,27 +278,31 @@ export function pageAt(pageStarts: readonly number[], offset: number, textLength
   return low + 1;
 }
 
-/** First parts of compounds whose hyphen is real even at a line end ("chi-square", "within-subjects"). */
-const COMPOUND_FIRST_PARTS = new Set(['chi', 'self', 'non', 'one', 'two', 'three', 'four', 'within', 'between', 'cross', 'follow', 'well', 'long', 'short', 'high', 'low', 'mixed', 'open', 'post', 'pre', 'semi', 'multi', 'co', 'counter', 'right', 'left', 'time', 'age', 'sex', 'first', 'second', 'third', 'full', 'half', 'small', 'large', 'mid', 'over', 'under', 'test', 'inter', 'intra']);
-
-/**
- * Joins a word hyphenated at a line end when the next line goes on in lower
- * case: "recog-\nnition of" -> "recognition\nof" (the line break moves after
- * the joined word, so lines stay lines). A hyphen after a known first part
- * of a compound is kept ("chi-\nsquare" -> "chi-square"). A hyphen after a
- * digit or a single letter is never touched: "= -\n.32" stays a minus sign,
- * "p-\nvalue" stays as written.
- */
-export function dehyphenate(page: string): string {
-  // The look-behind starts a try only at the start of a word: without it, a long word with no hyphen is read again from each of its letters.
-  return page.replace(/(?<!\p{L})(\p{L}{2,})[-\u00AD\u2010]\n[ \t]*(\p{Ll}[\p{L}\p{M}'’]*)( ?)/gu, (_whole, first: string, rest: string, space: string) => {
-    const joiner = COMPOUND_FIRST_PARTS.has(first.toLowerCase()) ? '-' : '';
-    return `${first}${joiner}${rest}${space ? '\n' : ''}`;
-  });
-}
-
 function tooManyPages(pages: number | null, maxPages: number): string {
   return `the PDF has ${pages === null ? 'more than' : ''}${pages === null ? ` ${maxPages}` : pages} pages ${limitHint('maxPdfPages', maxPages)}`;
+}
+
+/** What is used of a pdf.js document and its pages. */
+interface PdfJsPage {
+  getViewport(options: { scale: number }): PdfJsViewport;
+  getTextContent(options: { includeMarkedContent: boolean; disableNormalization: boolean }): Promise<{ items: unknown[]; styles: PdfJsStyles }>;
+  cleanup(): unknown;
+}
+interface PdfJsDocument {
+  getPage(number: number): Promise<PdfJsPage>;
+}
+
+/**
+ * The pdf.js document inside a pdf-parse parser (loaded once by getInfo).
+ * pdf-parse 2 keeps it behind its `load` method, which its getText uses;
+ * the text items with their positions are not otherwise given out. Null
+ * when a version of pdf-parse has no such method (the PDF is then read with
+ * getText, without rebuilt tables; the tests compare both paths).
+ */
+async function pdfjsDocumentOf(parser: object): Promise<PdfJsDocument | null> {
+  const load = (parser as { load?: unknown }).load;
+  if (typeof load !== 'function') return null;
+  return (await (load as () => Promise<PdfJsDocument>).call(parser)) satisfies PdfJsDocument;
 }
 
 async function pagesWithPdfParse(bytes: Uint8Array, maxPages: number): Promise<PdfPagesOutcome> {
@@ -207,8 +313,23 @@ async function pagesWithPdfParse(bytes: Uint8Array, maxPages: number): Promise<P
     // The page count comes from the page tree, before any page's text is extracted.
     const { total } = await parser.getInfo();
     if (total > maxPages) return { ok: false, error: tooManyPages(total, maxPages) };
-    const result = await parser.getText({ pageJoiner: '' });
-    return { ok: true, pages: result.pages.map((page) => page.text) };
+    const document = await pdfjsDocumentOf(parser);
+    if (document === null) {
+      const result = await parser.getText({ pageJoiner: '' });
+      return { ok: true, pages: result.pages.map((page) => page.text), words: result.pages.map(() => null) };
+    }
+    const pages: string[] = [];
+    const words: LocatedWord[][] = [];
+    for (let number = 1; number <= total; number++) {
+      const page = await document.getPage(number);
+      // The same options and text as pdf-parse's getText, with the items' positions kept.
+      const content = await page.getTextContent({ includeMarkedContent: false, disableNormalization: false });
+      const built = pdfjsPageText(content.items, page.getViewport({ scale: 1 }), content.styles);
+      pages.push(built.text);
+      words.push(built.words);
+      page.cleanup();
+    }
+    return { ok: true, pages, words };
   } catch (error) {
     return { ok: false, error: describePdfParseError(error) };
   } finally {
@@ -224,12 +345,26 @@ function describePdfParseError(error: unknown): string {
   return `the PDF could not be read (${message})`;
 }
 
-/** Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form feeds. */
+/**
+ * Most bytes of `pdftotext -bbox` output read (about 150 bytes a word, ten
+ * times the text): above it the words are not used and the PDF is read
+ * without rebuilt tables, as before.
+ */
+const MAX_BBOX_BYTES = 256 * 1024 * 1024;
+
+/**
+ * Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form
+ * feeds; then, when a page may hold a table, `pdftotext -raw -bbox` for the
+ * words' boxes, which are tied to the text page by page (a page whose words
+ * cannot be tied is read without rebuilt tables).
+ */
 async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: number): Promise<PdfPagesOutcome> {
   const executable = findPdftotext();
   if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
   // One page past the limit is read, to tell a PDF at the limit from one over it.
-  const run = await runProcess(executable, ['-raw', '-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-'], maxSeconds * 1000);
+  const common = ['-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-'];
+  const started = Date.now();
+  const run = await runProcess(executable, ['-raw', ...common], maxSeconds * 1000);
   if (run.timedOut) return { ok: false, error: `pdftotext took longer than ${maxSeconds} s on this PDF and was stopped ${limitHint('maxSecondsPerDocument', maxSeconds)}` };
   if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
   if (run.code !== 0) return { ok: false, error: describePdftotextFailure(run.code, run.stderr, path) };
@@ -237,7 +372,13 @@ async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: nu
   // pdftotext ends every page with a form feed, so the last piece is what follows the last page.
   if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
   if (pages.length > maxPages) return { ok: false, error: tooManyPages(null, maxPages) };
-  return { ok: true, pages };
+  // The word boxes cost a second run: only for a PDF with a page that may hold a table, within the time left.
+  const timeLeft = maxSeconds * 1000 - (Date.now() - started);
+  if (!pages.some(mayHoldTable) || timeLeft <= 0) return { ok: true, pages, words: pages.map(() => null) };
+  const boxes = await runProcess(executable, ['-raw', '-bbox', ...common], timeLeft, MAX_BBOX_BYTES);
+  const boxPages = boxes.code === 0 && !boxes.timedOut && !boxes.overflow ? parseBboxPages(boxes.stdout) : [];
+  const words = pages.map((page, index) => (boxPages.length === pages.length ? locateWords(page, boxPages[index]!) : null));
+  return { ok: true, pages, words };
 }
 
 function describePdftotextFailure(code: number | null, stderr: string, path: string): string {
@@ -253,9 +394,11 @@ interface ProcessRun {
   stderr: string;
   spawnError: string | null;
   timedOut: boolean;
+  /** The output passed `maxOutputBytes` and the process was stopped. */
+  overflow: boolean;
 }
 
-function runProcess(executable: string, args: string[], timeoutMs: number): Promise<ProcessRun> {
+function runProcess(executable: string, args: string[], timeoutMs: number, maxOutputBytes = Infinity): Promise<ProcessRun> {
   return new Promise((resolve) => {
     const child = spawn(executable, args, { stdio: ['ignore', 'pipe', 'pipe'], timeout: timeoutMs, killSignal: 'SIGKILL' });
     let timedOut = false;
@@ -265,16 +408,28 @@ function runProcess(executable: string, args: string[], timeoutMs: number): Prom
     timer.unref();
     const out: Buffer[] = [];
     const err: Buffer[] = [];
-    child.stdout.on('data', (chunk: Buffer) => out.push(chunk));
+    let outBytes = 0;
+    let overflow = false;
+    child.stdout.on('data', (chunk: Buffer) => {
+      if (overflow) return;
+      outBytes += chunk.length;
+      if (outBytes > maxOutputBytes) {
+        overflow = true;
+        out.length = 0;
+        child.kill('SIGKILL');
+        return;
+      }
+      out.push(chunk);
+    });
     child.stderr.on('data', (chunk: Buffer) => err.push(chunk));
     child.on('error', (error) => {
       clearTimeout(timer);
-      resolve({ code: null, stdout: '', stderr: '', spawnError: error.message, timedOut: false });
+      resolve({ code: null, stdout: '', stderr: '', spawnError: error.message, timedOut: false, overflow: false });
     });
     child.on('close', (code, signal) => {
       clearTimeout(timer);
       const killedForTime = timedOut && signal === 'SIGKILL';
-      resolve({ code, stdout: Buffer.concat(out).toString('utf8'), stderr: Buffer.concat(err).toString('utf8'), spawnError: null, timedOut: killedForTime });
+      resolve({ code, stdout: Buffer.concat(out).toString('utf8'), stderr: Buffer.concat(err).toString('utf8'), spawnError: null, timedOut: killedForTime, overflow });
     });
   });
 }
