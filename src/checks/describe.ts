@@ -2,12 +2,23 @@ import type { ReportedEffect, ReportedResult } from '../scan/types.js';
 
 const symbolByKind: Record<ReportedResult['kind'], string> = { F: 'F', t: 't', chi2: 'χ²', r: 'r', z: 'z' };
 
-/** The statistic as a reader would write it: "F(1, 44) = 4.21"; df worked out from a sample size are said to be so. */
+/**
+ * The statistic as a reader would write it: "F(1, 44) = 4.21"; df worked
+ * out from a sample size or a table's dimensions are said to be so.
+ */
 export function describeStatistic(result: ReportedResult): string {
   const symbol = result.symbol ?? symbolByKind[result.kind];
   const value = result.value ? ` ${result.valueComparator} ${result.value.text}` : '';
+  const dfText = result.df.map((d) => d.text).join(', ');
   if (result.dfFrom === 'sample-size' && result.sampleSize) {
-    return `${symbol}${value} (n = ${result.sampleSize.text}, so df = ${result.df.map((d) => d.text).join(', ')})`;
+    return `${symbol}${value} (n = ${result.sampleSize.text}, so df = ${dfText})`;
+  }
+  if (result.dfFrom === 'study-sample-size' && result.sampleSize) {
+    return `${symbol}${value} (no df printed; df = ${dfText} from the N = ${result.sampleSize.text} the document states for the study, which may not be this test's sample)`;
+  }
+  if (result.dfFrom === 'contingency-table') {
+    const table = result.dfStatement ? `the ${quoteFromDocument(result.dfStatement.text, 40)} table` : 'the table';
+    return `${symbol}${value} (no df printed; df = ${dfText} from ${table} stated with it)`;
   }
   const df = result.df.length > 0 ? `(${result.df.map((d) => d.text).join(', ')})` : '';
   return `${symbol}${df}${value}`;

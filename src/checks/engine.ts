@@ -1,27 +1,41 @@
 import type { ReportedResult, ScanOutput } from '../scan/types.js';
 import type { ResolvedConfig } from './config.js';
+import { withDocumentDf } from './documentDf.js';
 import { fillTemplate } from './format.js';
 import { recompute, type Recomputation } from './recompute.js';
-import type { Finding } from './types.js';
+import type { Finding, Severity } from './types.js';
 
 export interface CheckedResult {
+  /** The result as checked: as scanned, with df the document gives filled in (dfFrom says so). */
   result: ReportedResult;
   recomputation: Recomputation;
   findings: Finding[];
 }
 
-/** Runs every active rule over every result of one document. Pure: text and scan in, findings out. */
+const weight: Record<Severity, number> = { note: 0, warn: 1, fail: 2 };
+
+/** The lighter of two severities; null leaves the other as it is. */
+function atMost(severity: Severity, limit: Severity | null | undefined): Severity {
+  return limit !== null && limit !== undefined && weight[limit] < weight[severity] ? limit : severity;
+}
+
+/**
+ * Runs every active rule over every result of one document. Pure: text and scan in, findings out.
+ * df that a result does not print but the document states (a study's N for a correlation) are
+ * filled in first, and findings that rest on them are at most warnings (checks/documentDf.ts).
+ */
 export function checkResults(text: string, scan: ScanOutput, config: ResolvedConfig): CheckedResult[] {
-  const recomputations = scan.results.map(recompute);
+  const { results, severityCaps } = withDocumentDf(scan.results, scan.context, text);
+  const recomputations = results.map(recompute);
   const alpha = scan.context.alpha?.value ?? config.defaultAlpha;
-  return scan.results.map((result, index) => {
+  return results.map((result, index) => {
     const findings: Finding[] = [];
     for (const rule of config.rules) {
       if (!rule.module.appliesTo.includes(result.kind)) continue;
       const drafts = rule.module.run(result, {
         text,
         document: scan.context,
-        results: scan.results,
+        results,
         recomputations,
         index,
         alpha,
@@ -32,7 +46,7 @@ export function checkResults(text: string, scan: ScanOutput, config: ResolvedCon
         if (template === undefined) throw new Error(`${rule.entry.id}: unknown message id ${draft.messageId}`);
         findings.push({
           rule: rule.entry.id,
-          severity: draft.severity ?? rule.severity,
+          severity: atMost(atMost(draft.severity ?? rule.severity, draft.severityAtMost), severityCaps[index]),
           crossesAlpha: draft.crossesAlpha ?? false,
           message: fillTemplate(template, draft.data),
           messageId: draft.messageId,

@@ -201,8 +201,8 @@ export function findSlips(
 ): Slip[] {
   // Only an exact p can single out a slip: "p < .05" fits many alternatives equally well.
   if (result.p?.comparator !== '=') return [];
-  // df worked out from "n = 90" were not typed, so no slip of the df can explain the p.
-  const dfPrinted = result.dfFrom !== 'sample-size';
+  // df worked out from "n = 90" (or from the study's N, or a table's dimensions) were not typed, so no slip of the df can explain the p.
+  const dfPrinted = result.dfFrom === undefined;
   return [
     ...(dfPrinted ? sampleSizeSlips(result, allowTruncation) : []),
     ...neighbourSlips(result, neighbours, allowTruncation),

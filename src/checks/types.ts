@@ -10,6 +10,13 @@ export interface FindingDraft {
   data: Record<string, string | number>;
   /** Overrides the configured severity (e.g. a halved p is a note when one-tailed testing was declared). */
   severity?: Severity;
+  /**
+   * The most the finding may weigh, whatever the settings say: set when it
+   * rests on context read elsewhere in the document that may not apply to
+   * this result (a sample size stated for the whole study, a group size
+   * stated elsewhere), so a guess is never a fail.
+   */
+  severityAtMost?: Severity;
   /** True when the discrepancy changes the conclusion at the document's alpha. */
   crossesAlpha?: boolean;
   /** A name for the simple slip that reproduces the reported numbers, when one does. */

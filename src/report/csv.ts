@@ -66,6 +66,13 @@ export function neutraliseCell(text: string): string {
   return FORMULA_START.test(text) ? `'${text}` : text;
 }
 
+/** The CSV note for df that were worked out rather than printed. */
+const DF_FROM_NOTES: Record<NonNullable<StatisticOutput['dfFrom']>, string> = {
+  'sample-size': 'df worked out from the sample size written after the result',
+  'study-sample-size': "df worked out from the study's stated sample size, which may not apply to this test",
+  'contingency-table': 'df worked out from the table dimensions stated with the chi-square',
+};
+
 type Comparator = StatisticOutput['valueComparator'];
 const COMPARATOR_WORDS: Record<Comparator, string> = { '=': 'equals', '<': 'below', '>': 'above', '<=': 'at most', '>=': 'at least' };
 
@@ -148,7 +155,7 @@ function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
     'effect sizes': effectsCell(statistic),
     checked: rec.evaluable ? 'true' : 'false',
     ...findingColumns(statistic.findings),
-    note: rec.evaluable ? (statistic.dfFrom === 'sample-size' ? 'df worked out from the sample size written after the result' : '') : oneLine(rec.reason ?? ''),
+    note: rec.evaluable ? (statistic.dfFrom ? DF_FROM_NOTES[statistic.dfFrom] : '') : oneLine(rec.reason ?? ''),
   };
 }
 

@@ -40,9 +40,11 @@ export const statisticSchema = z.object({
     .describe('Up to about 160 characters of the document before and after the result, for showing it in context.'),
   df: z.array(z.number()),
   dfFrom: z
-    .literal('sample-size')
+    .enum(['sample-size', 'study-sample-size', 'contingency-table'])
     .optional()
-    .describe('Set when the df were not printed but worked out from the sample size written after the result ("r = .30, p = .004, n = 90": df = 88).'),
+    .describe(
+      'Set when the df were not printed but worked out: "sample-size" from the sample size written with the result ("r = .30, p = .004, n = 90": df = 88); "study-sample-size" from the one sample size the document states for the whole study ("N = 214": df = 212 for a correlation), which may not be the sample of this test, so findings about the result are at most warnings; "contingency-table" from the dimensions of a table stated with a chi-square ("a 2 × 3 table": df = 2), findings at most warnings too.',
+    ),
   value: z.number().nullable(),
   valueComparator: comparatorSchema,
   p: z.object({ comparator: comparatorSchema, value: z.number(), text: z.string() }).nullable(),

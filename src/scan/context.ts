@@ -1,7 +1,9 @@
 /**
  * Document context, read once per manuscript: the declared alpha level,
- * statements of one-tailed testing, stated sample sizes, and statements that
- * a sphericity correction was applied.
+ * statements of one-tailed testing, stated sample sizes with what they count
+ * (the whole sample, a part of it, each group, one test), statements that a
+ * sphericity correction was applied, and statements that p-values were
+ * adjusted for multiple comparisons.
  *
  * One global regular expression of plain keywords finds candidates in a
  * single pass; each candidate is then examined with small anchored patterns
@@ -9,10 +11,13 @@
  */
 
 import type { NormalisedText } from './normalise.js';
+import { readAdjustment } from './pAdjustment.js';
 import type {
   ContextStatement,
   DeclaredAlpha,
   DocumentContext,
+  PAdjustmentStatement,
+  SampleScope,
   SphericityStatement,
   StatedSampleSize,
 } from './types.js';
@@ -22,9 +27,13 @@ import type {
  * starts with the least common letters of its keyword ("lpha" for alpha,
  * "gnifican" for significance), so the regular expression engine can skip
  * most of the text. The keyword's start is recovered afterwards.
- * "\d [a-z]" finds counts followed by a word ("120 participants").
+ * "\d [a-z]" finds counts followed by a word ("120 participants"); "n ="
+ * a group size that may be stated per group ("n = 20 per group"). The
+ * adjustment keywords ("onferroni", "djust", "orrect", ...) find statements
+ * that p-values were adjusted for multiple comparisons.
  */
-const CONTEXT_ANCHOR = /lpha|gnifican|ailed|ided|ctional|hericity|Greenh|Huynh|N\s{0,2}=|\d [A-Za-z]/g;
+const CONTEXT_ANCHOR =
+  /lpha|gnifican|ailed|ided|ctional|hericity|Greenh|Huynh|N\s{0,2}=|n\s{0,2}=|\d [A-Za-z]|onferroni|Tukey|Holm|idak|id\u00e1k|cheff|enjamini|ochberg|FDR|alse discovery|Dunnett|Games|djust|orrect/g;
 
 /** How far a statement's sentence is searched for around a keyword. */
 const SENTENCE_REACH = 300;
@@ -39,6 +48,7 @@ const SAMPLE_NOUNS: ReadonlySet<string> = new Set([
   'infants', 'patients', 'individuals', 'undergraduates', 'people', 'persons', 'workers', 'employees', 'pupils',
   'dyads', 'couples', 'families', 'observers', 'listeners', 'raters', 'athletes', 'teachers', 'parents', 'mothers',
   'fathers', 'women', 'men', 'participant', 'volunteers', 'toddlers', 'preschoolers', 'twins', 'clients', 'veterans',
+  'girls', 'boys', 'males', 'females',
 ]);
 
 /** Reads the document context from the normalised text; offsets are mapped to the original. */
@@ -84,9 +94,13 @@ function readCandidate(text: string, at: number, anchor: string, found: ContextC
     case 'Huynh':
       if (isWholeWordStart(text, at)) found.sphericity(readSphericity(text, at, 'Huynh'));
       return;
-    default:
-      if (anchor.charCodeAt(0) === 78) found.sampleSize(readCapitalN(text, at));
-      else found.sampleSize(readCountBeforeNoun(text, at));
+    default: {
+      const first = anchor.charCodeAt(0);
+      if (first === 78) found.sampleSize(readCapitalN(text, at));
+      else if (first === 110) found.sampleSize(readLowerNPerGroup(text, at));
+      else if (first >= 48 && first <= 57) found.sampleSize(readCountBeforeNoun(text, at) ?? readCountWithoutNoun(text, at));
+      else found.adjustment(text, at);
+    }
   }
 }
 
@@ -113,14 +127,30 @@ interface Span {
   end: number;
 }
 
+/** Document-wide adjustment statements kept; a real document has a handful, and reading stops there. */
+const MAX_ADJUSTMENT_STATEMENTS = 100;
+
 /** Keeps what was found, in normalised offsets, and maps it to the original text at the end. */
 class ContextCollector {
   private declaredAlpha: (Span & { value: number }) | null = null;
   private readonly oneTailedSpans: Span[] = [];
   private readonly sampleSizeSpans: Array<Span & { value: number }> = [];
   private readonly sphericitySpans: Array<Span & { method: SphericityStatement['method'] }> = [];
+  private readonly sampleScopes: SampleScope[] = [];
+  private readonly adjustmentSpans: Array<Span & Omit<PAdjustmentStatement, 'text' | 'start' | 'end'>> = [];
+  /** End of the last sentence examined for an adjustment: each sentence is read once, however many keywords it holds. */
+  private adjustmentExaminedUpTo = -1;
 
   constructor(private readonly normalised: NormalisedText) {}
+
+  /** A sentence holding an adjustment keyword at `at`: read once, kept when it states a document-wide adjustment. */
+  adjustment(text: string, at: number): void {
+    if (at < this.adjustmentExaminedUpTo || this.adjustmentSpans.length >= MAX_ADJUSTMENT_STATEMENTS) return;
+    const sentence = sentenceAround(text, at, at + 1);
+    this.adjustmentExaminedUpTo = sentence.end;
+    const found = readAdjustmentStatement(text, sentence);
+    if (found !== null) this.adjustmentSpans.push(found);
+  }
 
   /** The first declaration wins: later ones are usually corrected levels for follow-up tests. */
   alpha(found: (Span & { value: number }) | null): void {
@@ -134,11 +164,12 @@ class ContextCollector {
     this.oneTailedSpans.push(found);
   }
 
-  sampleSize(found: (Span & { value: number }) | null): void {
+  sampleSize(found: (Span & { value: number; scope: SampleScope }) | null): void {
     if (found === null) return;
     const last = this.sampleSizeSpans[this.sampleSizeSpans.length - 1];
     if (last !== undefined && found.start < last.end) return; // "a total of 86 adults": already read once
     this.sampleSizeSpans.push(found);
+    this.sampleScopes.push(found.scope);
   }
 
   sphericity(found: (Span & { method: SphericityStatement['method'] }) | null): void {
@@ -157,8 +188,16 @@ class ContextCollector {
     return {
       alpha: alpha === null ? null : ({ ...this.statement(alpha), value: alpha.value } satisfies DeclaredAlpha),
       oneTailed: this.oneTailedSpans.map((span) => this.statement(span)),
-      sampleSizes: this.sampleSizeSpans.map((span) => ({ ...this.statement(span), value: span.value }) satisfies StatedSampleSize),
+      sampleSizes: this.sampleSizeSpans.map(
+        (span, i) => ({ ...this.statement(span), value: span.value, scope: this.sampleScopes[i]! }) satisfies StatedSampleSize,
+      ),
       sphericity: this.sphericitySpans.map((span) => ({ ...this.statement(span), method: span.method })),
+      pAdjustments: this.adjustmentSpans.map((span) => ({
+        ...this.statement(span),
+        method: span.method,
+        comparisons: span.comparisons,
+        appliesTo: span.appliesTo,
+      })),
     };
   }
 
@@ -292,8 +331,13 @@ function readOneTailed(text: string, at: number, keyword: string): Span | null {
   const one = ONE_BEFORE.exec(before);
   if (one === null) return null;
   const start = at - before.length + one.index + (one[0].length > 0 && !/^[Oo1]/.test(one[0]) ? 1 : 0);
+  // "two-tailed rather than one-tailed", "no one-sided tests": not a statement of one-tailed testing.
+  if (NEGATED_ONE_TAILED.test(text.slice(Math.max(0, start - 40), start))) return null;
   return sentenceAround(text, start, at + keyword.length);
 }
+
+/** Words before "one-tailed" that deny it. */
+const NEGATED_ONE_TAILED = /(?:\bnot|\bno|\brather\s{1,3}than|\binstead\s{1,3}of|\bnever)\s{1,3}(?:(?:a|an|the|as|any|using|use)\s{1,3})?$/i;
 
 /** Prefixes that turn "directional" into its opposite. */
 const NEGATING_PREFIX = /(?:non|bi|two|omni)[- ]?$/i;
@@ -333,16 +377,76 @@ function readSphericity(text: string, at: number, keyword: string): (Span & { me
   return { ...sentence, method: 'unspecified' };
 }
 
+// ---------------------------------------------------------------- p-value adjustments
+
+/** A p-value or test statistic reported in a sentence: such a sentence reports results, it does not state a method for the document. */
+const REPORTED_VALUE = /\bp\s?[=<>]\s?0?[.,]\d|\b(?:F|t|r|z|chi\^?2)\s?(?:\([\d.,; N=]{1,20}\)\s?)?=\s?-?\d/;
+
+/**
+ * A document-wide statement that p-values were adjusted ("All post hoc
+ * comparisons were Bonferroni-corrected", "p values were adjusted with
+ * Holm's method"): a sentence naming an adjustment, not reporting results.
+ * Statements beside a result are found by the checks, which read the
+ * result's own sentence and the one before.
+ */
+function readAdjustmentStatement(text: string, sentence: Span): (Span & Omit<PAdjustmentStatement, 'text' | 'start' | 'end'>) | null {
+  const said = text.slice(sentence.start, sentence.end);
+  if (REPORTED_VALUE.test(said)) return null;
+  const reading = readAdjustment(said, true);
+  return reading === null ? null : { ...sentence, ...reading };
+}
+
 // ---------------------------------------------------------------- sample sizes
 
 /** "N = 120" / "N = 1,024" (capital N: the whole sample; a lower-case n is a group). */
 const CAPITAL_N = /^N\s{0,2}=\s{0,2}(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.])/;
 
-function readCapitalN(text: string, at: number): (Span & { value: number }) | null {
+/**
+ * Before an "N =" that belongs to one test: inside a statistic's brackets
+ * ("χ2(2, N = 120)") or after its value or p ("r = .30, N = 90").
+ */
+const TEST_BEFORE = /(?:[([]\s{0,2}\d{1,5}(?:\.\d{1,3})?\s{0,2}[,;]\s{0,2}|(?:=|<|>)\s{0,2}-?\d{0,5}\.?\d{1,6}\s{0,2}[,;]\s{0,2})$/;
+/** Before a count of part of the sample: "a subsample (N = 60)", "of these, 40 women", "only 96 participants". */
+const SUBSET_BEFORE =
+  /(?:\bof\s(?:these|them|whom|those)[,:]?|\bsub-?samples?(?:\sof)?|\bsubsets?(?:\sof)?|\bsub-?groups?(?:\sof)?|\bonly|\bavailable\s(?:for|from)|\b(?:measures?|scores?|ratings?|recordings?|samples?)\s(?:for|from))[\s(]{1,3}(?:the\s)?$/i;
+/** After a count and its noun, words that make it part of the sample: "17 men and 31 women", "96 participants completed the follow-up". */
+const SUBSET_AFTER =
+  /^\s?(?:and\s\d|(?:also\s)?(?:completed|attended|returned)\s(?:the\s)?(?:follow|second|retest|re-test|both|all|post|final|delayed|later)|provided\s[^.;]{0,40}?\b(?:samples?|data)\b|(?:had|with)\s(?:complete|valid|usable|available)|for\swhom)/i;
+/** Before the second count of "17 men and 31 women": a count and up to three words, then "and". */
+const SECOND_PART_BEFORE = /\d\s(?:[A-Za-z-]{1,20}\s){1,3}and\s$/;
+/** Nouns that name a part of a sample ("17 men"). */
+const PART_NOUNS: ReadonlySet<string> = new Set(['men', 'women', 'boys', 'girls', 'mothers', 'fathers', 'males', 'females']);
+/** After a count (and its noun), words that make it a group's size: "20 in each condition", "(N = 20 per group)". */
+const PER_GROUP_AFTER =
+  /^\s?(?:(?:(?:were|was)\s(?:randomly\s)?(?:assigned|allocated)\sto\s)?(?:per|in\seach|in\severy|for\seach|each)\s(?:of\s(?:the\s)?(?:[a-z]{1,20}\s)?)?(?:groups?|conditions?|cells?|arms?|treatments?|sites?|classes|schools?)\b|each(?=\s?[),;]))/i;
+
+function readCapitalN(text: string, at: number): (Span & { value: number; scope: SampleScope }) | null {
   if (!isWholeWordStart(text, at)) return null;
   const match = CAPITAL_N.exec(text.slice(at, at + 24));
   if (match === null) return null;
-  return { start: at, end: at + match[0].length, value: parseCount(match[1]!) };
+  const end = at + match[0].length;
+  const before = text.slice(Math.max(0, at - 30), at);
+  const scope: SampleScope = PER_GROUP_AFTER.test(text.slice(end, end + 50))
+    ? 'per-group'
+    : TEST_BEFORE.test(before)
+      ? 'test'
+      : SUBSET_BEFORE.test(before)
+        ? 'subset'
+        : 'total';
+  return { start: at, end, value: parseCount(match[1]!), scope };
+}
+
+/** "n = 20 per group", "n = 15 in each condition", "(n = 20 each)": a lower-case n is read only as a per-group statement. */
+const LOWER_N_PER_GROUP = /^n\s{0,2}=\s{0,2}(\d{1,5})(?![\d.])/;
+
+function readLowerNPerGroup(text: string, at: number): (Span & { value: number; scope: SampleScope }) | null {
+  if (!isWholeWordStart(text, at)) return null;
+  const match = LOWER_N_PER_GROUP.exec(text.slice(at, at + 16));
+  if (match === null) return null;
+  const end = at + match[0].length;
+  const after = PER_GROUP_AFTER.exec(text.slice(end, end + 50));
+  if (after === null || Number(match[1]) === 0) return null;
+  return { start: at, end: end + after[0].length, value: Number(match[1]), scope: 'per-group' };
 }
 
 /** Words after a count that mean it is not the sample ("3 participants were excluded"). */
@@ -355,32 +459,65 @@ const MAX_COUNT_LENGTH = 9;
 const MAX_WORDS_BEFORE_NOUN = 2;
 const MAX_WORD_LENGTH = 20;
 
-/**
- * A count followed by a sample noun: "86 adults", "120 undergraduate
- * psychology students", "1,024 respondents". `lastDigitAt` holds the count's
- * last digit, which a space and a letter follow.
- */
-function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value: number }) | null {
+/** The count whose last digit is at `lastDigitAt`: its start and written form, or null when it is part of something else. */
+function countEndingAt(text: string, lastDigitAt: number): { start: number; written: string } | null {
   let countStart = lastDigitAt;
   const lowest = Math.max(0, lastDigitAt - MAX_COUNT_LENGTH);
   while (countStart > lowest && isCountCode(text.charCodeAt(countStart - 1))) countStart--;
   while (text.charCodeAt(countStart) === 44) countStart++; // a comma is not part of the count's start
   const before = text.charCodeAt(countStart - 1);
   if (before === 46 || isLetterCode(before)) return null; // "4.120 ms", "A2 adults"
+  // "Year 9 students", "Study 2 participants": a label's number, not a count.
+  if (LABEL_BEFORE_NUMBER.test(text.slice(Math.max(0, countStart - 12), countStart))) return null;
   const written = text.slice(countStart, lastDigitAt + 1);
   if (!/^(?:\d{1,3}(?:,\d{3}){1,2}|\d{1,7})$/.test(written)) return null;
+  return { start: countStart, written };
+}
 
+/** Words whose number labels something ("Year 9", "Grade 3", "Study 2"); a describing word may be one with its number ("120 Year 9 students"). */
+const LABEL_BEFORE_NUMBER = /\b(?:year|grade|form|class|stage|study|experiment|wave|phase|session|time|level|table|figure)\s{1,3}$/i;
+const LABEL_WORDS: ReadonlySet<string> = new Set(['year', 'grade', 'form', 'class', 'stage']);
+
+/**
+ * A count followed by a sample noun: "86 adults", "120 undergraduate
+ * psychology students", "1,024 respondents". `lastDigitAt` holds the count's
+ * last digit, which a space and a letter follow. Its scope comes from the
+ * words around it: "20 participants in each condition" (per group), "17 men
+ * and 31 women", "only 96 participants", "96 participants completed the
+ * follow-up" (part of the sample); otherwise the whole sample.
+ */
+function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value: number; scope: SampleScope }) | null {
+  const count = countEndingAt(text, lastDigitAt);
+  if (count === null) return null;
+  const { start: countStart, written } = count;
   let at = lastDigitAt + 2;
   for (let word = 0; word <= MAX_WORDS_BEFORE_NOUN; word++) {
     const wordStart = at;
     const limit = Math.min(text.length, at + MAX_WORD_LENGTH + 1);
     while (at < limit && (isLetterCode(text.charCodeAt(at)) || text.charCodeAt(at) === 45)) at++;
     if (at === wordStart || isLetterCode(text.charCodeAt(at))) return null;
-    if (SAMPLE_NOUNS.has(text.slice(wordStart, at).toLowerCase())) {
-      if (EXCLUDED_AFTER.test(text.slice(at, at + 40))) return null;
-      if (EXCLUDED_BEFORE.test(text.slice(Math.max(0, countStart - 40), countStart))) return null;
+    const noun = text.slice(wordStart, at).toLowerCase();
+    // "120 Year 9 students": the label's number belongs to the describing word.
+    if (LABEL_WORDS.has(noun) && text.charCodeAt(at) === 32 && isDigitCode(text.charCodeAt(at + 1))) {
+      at++;
+      const digitsEnd = Math.min(text.length, at + 3);
+      while (at < digitsEnd && isDigitCode(text.charCodeAt(at))) at++;
+      if (text.charCodeAt(at) !== 32 || !isLetterCode(text.charCodeAt(at + 1))) return null;
+      at++;
+      continue;
+    }
+    if (SAMPLE_NOUNS.has(noun)) {
+      const after = text.slice(at, at + 60);
+      if (EXCLUDED_AFTER.test(after)) return null;
+      const before = text.slice(Math.max(0, countStart - 40), countStart);
+      if (EXCLUDED_BEFORE.test(before)) return null;
       const value = parseCount(written);
-      return value === 0 ? null : { start: countStart, end: at, value };
+      if (value === 0) return null;
+      // "20 participants in each condition": the statement runs to the end of its per-group phrase.
+      const perGroup = PER_GROUP_AFTER.exec(after);
+      if (perGroup !== null) return { start: countStart, end: at + perGroup[0].length, value, scope: 'per-group' };
+      const part = PART_NOUNS.has(noun) || SUBSET_BEFORE.test(before) || SUBSET_AFTER.test(after) || SECOND_PART_BEFORE.test(before);
+      return { start: countStart, end: at, value, scope: part ? 'subset' : 'total' };
     }
     if (text.charCodeAt(at) !== 32) return null;
     at++;
@@ -388,8 +525,35 @@ function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value
   return null;
 }
 
+/** "20 in each condition", "15 per group" (a count without a sample noun, then a per-group phrase). */
+const BARE_PER_GROUP = /^\s(?:[a-z]{1,20}\s){0,2}?(?:per|in\seach|in\severy|for\seach)\s(?:of\sthe\s(?:[a-z]{1,20}\s)?)?(?:groups?|conditions?|cells?|arms?)\b/i;
+/** "180 of the 214 participants", "96 out of 120": the first count is part of the second. */
+const PART_OF = /^\s(?:out\s)?of\s(?:the\s|all\s|our\s|these\s)?(?:\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.,])/i;
+
+/** A count that no sample noun follows, read when it is a per-group size or a part of a stated total. */
+function readCountWithoutNoun(text: string, lastDigitAt: number): (Span & { value: number; scope: SampleScope }) | null {
+  const count = countEndingAt(text, lastDigitAt);
+  if (count === null) return null;
+  const value = parseCount(count.written);
+  if (value === 0) return null;
+  const after = text.slice(lastDigitAt + 1, lastDigitAt + 80);
+  const perGroup = BARE_PER_GROUP.exec(after);
+  if (perGroup !== null) return { start: count.start, end: lastDigitAt + 1 + perGroup[0].length, value, scope: 'per-group' };
+  const part = PART_OF.exec(after);
+  if (part !== null) {
+    // End before the second count, which is read on its own as the total.
+    const ofEnd = lastDigitAt + 1 + part[0].search(/\d/);
+    return { start: count.start, end: ofEnd, value, scope: 'subset' };
+  }
+  return null;
+}
+
 function isCountCode(code: number): boolean {
   return (code >= 48 && code <= 57) || code === 44;
+}
+
+function isDigitCode(code: number): boolean {
+  return code >= 48 && code <= 57;
 }
 
 function isLetterCode(code: number): boolean {

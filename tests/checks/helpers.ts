@@ -70,6 +70,11 @@ export function findingsOf(
   return checkResults(text, { results, context }, config).map((checked) => checked.findings.filter((f) => f.rule === ruleId));
 }
 
+/** The checked results (with df the document gives filled in) and all their findings. */
+export function checkedOf(results: ReportedResult[], context: DocumentContext = emptyContext(), text = '') {
+  return checkResults(text, { results, context }, resolveConfig({}));
+}
+
 /** Findings of one rule for a single result. */
 export function flagsOf(ruleId: string, spec: ResultSpec, context?: DocumentContext, text?: string): Finding[] {
   return findingsOf(ruleId, [result(spec)], context, text)[0]!;

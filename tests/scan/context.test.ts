@@ -76,6 +76,14 @@ describe('one-tailed statements', () => {
   it('reports one statement per sentence', () => {
     expect(contextOf('One-tailed tests of the directional hypotheses were one-sided.').oneTailed).toHaveLength(1);
   });
+
+  it.each([
+    'All tests were two-tailed rather than one-tailed.',
+    'We did not use one-sided tests.',
+    'Tests were two-sided instead of one-sided.',
+  ])('reads no declaration where one-tailed testing is denied: %j', (text) => {
+    expect(contextOf(text).oneTailed).toEqual([]);
+  });
 });
 
 describe('stated sample sizes', () => {
@@ -103,10 +111,52 @@ describe('stated sample sizes', () => {
     expect(contextOf(text).sampleSizes).toEqual([]);
   });
 
-  it('reads the N inside a chi-square result as a stated sample size', () => {
+  it('reads the N inside a chi-square result as a stated sample size, of that test', () => {
     const text = 'Choices differed, \u03c72(2, N = 120) = 7.81, p = .02.';
-    expect(contextOf(text).sampleSizes.map((size) => size.value)).toEqual([120]);
+    expect(contextOf(text).sampleSizes.map((size) => [size.value, size.scope])).toEqual([[120, 'test']]);
   });
+
+  it.each([
+    ['The final sample (N = 214) was balanced.', 214, 'total', 'N = 214'],
+    ['We recruited 214 participants online.', 214, 'total', '214 participants'],
+    ['A total of 120 Year 9 students took part.', 120, 'total', '120 Year 9 students'],
+    ['There were 20 participants in each condition.', 20, 'per-group', '20 participants in each condition'],
+    ['Thirty were tested, 20 in each condition.', 20, 'per-group', '20 in each condition'],
+    ['Groups were equal (n = 15 per group).', 15, 'per-group', 'n = 15 per group'],
+    ['Cells were small (N = 12 per cell).', 12, 'per-group', 'N = 12'],
+    ['Cortisol was available for 96 participants.', 96, 'subset', '96 participants'],
+    ['Only 96 participants returned the diary.', 96, 'subset', '96 participants'],
+    ['Of these, 40 students completed the follow-up.', 40, 'subset', '40 students'],
+    ['Correlations used r = .30, N = 90 for the subsample.', 90, 'test', 'N = 90'],
+  ] as const)('reads %j with its scope', (text, value, scope, phrase) => {
+    const [size] = contextOf(text).sampleSizes;
+    expect(size).toMatchObject({ value, scope });
+    expect(slice(text, size!)).toBe(phrase);
+  });
+
+  it('reads the parts of "17 men and 31 women" as parts, and their total as the whole sample', () => {
+    const sizes = contextOf('We tested 48 adults (17 men and 31 women).').sampleSizes;
+    expect(sizes.map((size) => [size.value, size.scope])).toEqual([
+      [48, 'total'],
+      [17, 'subset'],
+      [31, 'subset'],
+    ]);
+  });
+
+  it('reads "180 of the 214 participants" as a part and a total', () => {
+    const sizes = contextOf('Data from the diary were complete for 180 of the 214 participants.').sampleSizes;
+    expect(sizes.map((size) => [size.value, size.scope])).toEqual([
+      [180, 'subset'],
+      [214, 'total'],
+    ]);
+  });
+
+  it.each(['40 participants each completed 20 trials.', 'We recruited 120 participants and assigned them to one of three conditions.'])(
+    'a per-group word without a group is not a per-group statement: %j',
+    (text) => {
+      expect(contextOf(text).sampleSizes.map((size) => size.scope)).toEqual(['total']);
+    },
+  );
 });
 
 describe('sphericity corrections', () => {
@@ -132,6 +182,40 @@ describe('sphericity corrections', () => {
   });
 });
 
+describe('statements that p-values were adjusted', () => {
+  it.each([
+    ['All post hoc comparisons were Bonferroni-corrected.', 'bonferroni', null, 'post-hoc'],
+    ['Pairwise comparisons used Tukey\u2019s HSD.', 'tukey', null, 'post-hoc'],
+    ['p values were adjusted for multiple comparisons with the Benjamini-Hochberg procedure.', 'fdr', null, 'all'],
+    ['All p values were Holm-corrected for six tests.', 'holm', 6, 'all'],
+    ['Follow-up tests used a \u0160id\u00e1k correction for 3 comparisons.', 'sidak', 3, 'post-hoc'],
+    ['We used a Bonferroni-adjusted \u03b1 = .05/4 for the simple effects.', 'bonferroni', 4, 'post-hoc'],
+    ['Post hoc Scheff\u00e9 tests followed each ANOVA.', 'scheffe', null, 'post-hoc'],
+    ['All tests were corrected for multiple comparisons.', 'unspecified', null, 'all'],
+  ] as const)('reads %j', (text, method, comparisons, appliesTo) => {
+    const [statement] = contextOf(text).pAdjustments!;
+    expect(statement).toMatchObject({ method, comparisons, appliesTo });
+    expect(slice(text, statement!)).toBe(statement!.text);
+  });
+
+  it.each([
+    'Greenhouse-Geisser corrected p values are reported.',
+    'Adjusted means are shown in Table 2.',
+    'Scores were adjusted for age and sex.',
+    'No correction for multiple comparisons was applied.',
+    'Uncorrected p values are reported throughout.',
+    'The corrected item-total correlations were high.',
+    'Responses were coded as correct or incorrect.',
+    'Post hoc tests (Bonferroni) showed A > B, p = .01.',
+  ])('finds none in %j', (text) => {
+    expect(contextOf(text).pAdjustments).toEqual([]);
+  });
+
+  it('reads each sentence once, however many keywords it holds', () => {
+    expect(contextOf('All pairwise comparisons were Bonferroni-corrected (adjusted p values are reported).').pAdjustments).toHaveLength(1);
+  });
+});
+
 describe('a document without context statements', () => {
   it('returns empty context', () => {
     expect(contextOf('The effect was reliable, F(1, 44) = 5.10, p = .03.')).toEqual({
@@ -139,6 +223,7 @@ describe('a document without context statements', () => {
       oneTailed: [],
       sampleSizes: [],
       sphericity: [],
+      pAdjustments: [],
     });
   });
 });

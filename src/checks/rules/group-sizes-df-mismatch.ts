@@ -3,6 +3,7 @@ import type { CheckModule } from '../types.js';
 import { describeStatistic } from '../describe.js';
 import { dfInterval } from '../recompute.js';
 import { describeGroups, saysWelch } from './group-statistics-test-mismatch.js';
+import { groupSizeProvenance, groupSizeSeverityCap } from '../groupSizes.js';
 
 const optionsSchema = z
   .object({
@@ -16,8 +17,8 @@ export const groupSizesDfMismatch: CheckModule<z.infer<typeof optionsSchema>> = 
   appliesTo: ['F', 't'],
   optionsSchema,
   messages: {
-    student: '{statistic} has error df = {df}, but the {k} groups reported with it ({groups}) total N = {total}, which gives df = {expected} ({rule}).',
-    welch: '{statistic} has error df = {df}, but for the {k} groups reported with it ({groups}) Welch-corrected df lie between {low} and {high}.',
+    student: '{statistic} has error df = {df}, but the {k} groups reported with it ({groups}) total N = {total}, which gives df = {expected} ({rule}).{provenance}',
+    welch: '{statistic} has error df = {df}, but for the {k} groups reported with it ({groups}) Welch-corrected df lie between {low} and {high}.{provenance}',
   },
   run(result, context) {
     const set = result.descriptives;
@@ -36,12 +37,16 @@ export const groupSizesDfMismatch: CheckModule<z.infer<typeof optionsSchema>> = 
     const inWelch = df.low <= student && df.high >= welchLow;
     const welch = saysWelch(result, context.text, context.options.welchWordDistance);
     if (inStudent || (welch && inWelch)) return [];
-    const common = { statistic: describeStatistic(result), df: errorDf.text, k, groups: describeGroups(set) };
-    if (welch) return [{ messageId: 'welch', data: { ...common, low: welchLow, high: student } }];
+    const common = { statistic: describeStatistic(result), df: errorDf.text, k, groups: describeGroups(set), provenance: groupSizeProvenance(set.groups) };
+    // Sizes from a per-group statement rather than printed with the groups are a guess: the severity says so.
+    const cap = groupSizeSeverityCap(set.groups);
+    const capped = cap ? { severityAtMost: cap } : {};
+    if (welch) return [{ messageId: 'welch', data: { ...common, low: welchLow, high: student }, ...capped }];
     return [
       {
         messageId: 'student',
         data: { ...common, total, expected: student, rule: result.kind === 't' ? 'n1 + n2 - 2' : `N - ${k} for a one-way ANOVA` },
+        ...capped,
       },
     ];
   },

@@ -5,6 +5,7 @@ import { describeStatistic } from '../describe.js';
 import { formatP, formatRange, formatValue } from '../format.js';
 import { roundingInterval } from '../../stats/reportedNumber.js';
 import type { NumberInterval } from '../../stats/monotoneImage.js';
+import { groupSizeProvenance, groupSizeSeverityCap } from '../groupSizes.js';
 import {
   independentTRange,
   oneWayAnovaFromSummary,
@@ -71,7 +72,7 @@ export const groupStatisticsTestMismatch: CheckModule<z.infer<typeof optionsSche
   optionsSchema,
   messages: {
     mismatch:
-      '{statistic} does not follow from the group statistics reported with it ({groups}): they give {variant} {symbol} = {recomputed} ({recomputedRange} allowing for the rounding of every mean and SD), p = {p}{otherVariant}.',
+      '{statistic} does not follow from the group statistics reported with it ({groups}): they give {variant} {symbol} = {recomputed} ({recomputedRange} allowing for the rounding of every mean and SD), p = {p}{otherVariant}.{provenance}',
   },
   run(result, context) {
     const set = result.descriptives;
@@ -103,11 +104,15 @@ export const groupStatisticsTestMismatch: CheckModule<z.infer<typeof optionsSche
     const reportedP = context.recomputations[context.index]?.p ?? null;
     const crossesAlpha =
       reportedP !== null && (primary.p.high < context.alpha ? reportedP >= context.alpha : primary.p.low >= context.alpha ? reportedP < context.alpha : false);
+    const cap = groupSizeSeverityCap(set.groups);
     return [
       {
         messageId: 'mismatch',
         crossesAlpha,
+        // Sizes from a per-group statement rather than printed with the groups are a guess: the severity says so.
+        ...(cap ? { severityAtMost: cap } : {}),
         data: {
+          provenance: groupSizeProvenance(set.groups),
           statistic: describeStatistic(result),
           groups: describeGroups(set),
           variant: primary.name,

@@ -44,15 +44,19 @@ export const halvedP: CheckModule<Options> = {
     if (recomputation.tails === 'upper') {
       return [{ messageId: 'upperTail', data: { ...data, alphaNote }, crossesAlpha: crosses }];
     }
-    const statement = context.document.oneTailed.find(
-      (s) => s.start < result.start || s.start - result.end <= context.options.statementDistance,
-    );
+    // The statement nearest before the result, else one shortly after it.
+    const statements = context.document.oneTailed;
+    const statement =
+      statements.filter((s) => s.start < result.start).pop() ??
+      statements.find((s) => s.start >= result.start && s.start - result.end <= context.options.statementDistance);
     if (statement) {
       return [
         {
           messageId: 'declared',
           data: { ...data, statement: quoteFromDocument(statement.text, 120) },
           severity: context.options.declaredOneTailedSeverity,
+          // Consistent with a declaration read elsewhere in the document: never more than a warning.
+          severityAtMost: 'warn',
           crossesAlpha: false,
         },
       ];

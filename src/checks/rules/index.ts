@@ -1,4 +1,5 @@
 import type { CheckModule } from '../types.js';
+import { adjustedP } from './adjusted-p.js';
 import { cohensDMismatch } from './cohens-d-mismatch.js';
 import { dfExceedsSample } from './df-exceeds-sample.js';
 import { effectSizeIntervalMismatch } from './effect-size-interval-mismatch.js';
@@ -23,6 +24,7 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     pValueMismatch,
     halvedP,
     sphericityCorrectedP,
+    adjustedP,
     partialEtaSquaredMismatch,
     rSquaredMismatch,
     etaSquaredLabelledPartial,

@@ -3,6 +3,7 @@ import type { CheckModule, FindingDraft } from '../types.js';
 import type { DescriptiveSet } from '../../scan/types.js';
 import { describeStatistic } from '../describe.js';
 import { grimmerTest, grimTest } from '../../stats/grim.js';
+import { groupSizeProvenance, groupSizeSeverityCap } from '../groupSizes.js';
 
 const optionsSchema = z
   .object({
@@ -39,8 +40,8 @@ export const integerDataGranularity: CheckModule<Options> = {
   optionsSchema,
   messages: {
     mean:
-      'The mean M = {mean} (n = {n}) reported with {statistic} cannot come from whole-number scores: with {items} item(s) per person, means of {n} people move in steps of 1/{steps}; the nearest possible means are {nearest} (GRIM; {reason}).',
-    sd: 'The SD = {sd} (M = {mean}, n = {n}) reported with {statistic} cannot come from whole-number scores with {items} item(s) per person; the nearest possible SDs are {nearest} (GRIMMER; {reason}).',
+      'The mean M = {mean} (n = {n}) reported with {statistic} cannot come from whole-number scores: with {items} item(s) per person, means of {n} people move in steps of 1/{steps}; the nearest possible means are {nearest} (GRIM; {reason}).{provenance}',
+    sd: 'The SD = {sd} (M = {mean}, n = {n}) reported with {statistic} cannot come from whole-number scores with {items} item(s) per person; the nearest possible SDs are {nearest} (GRIMMER; {reason}).{provenance}',
   },
   run(result, context) {
     const set = result.descriptives;
@@ -53,16 +54,19 @@ export const integerDataGranularity: CheckModule<Options> = {
     const drafts: FindingDraft[] = [];
     for (const group of set.groups) {
       if (group.n === null) continue;
-      const common = { statistic: describeStatistic(result), mean: group.mean.text, n: group.n, items, reason };
+      const common = { statistic: describeStatistic(result), mean: group.mean.text, n: group.n, items, reason, provenance: groupSizeProvenance([group]) };
+      // An n from a per-group statement rather than printed with the group is a guess: the severity says so.
+      const cap = groupSizeSeverityCap([group]);
+      const capped = cap ? { severityAtMost: cap } : {};
       const grim = grimTest(group.mean, group.n, items);
       if (grim.informative && !grim.possible) {
-        drafts.push({ messageId: 'mean', data: { ...common, steps: group.n * items, nearest: grim.nearest.join(' and ') } });
+        drafts.push({ messageId: 'mean', data: { ...common, steps: group.n * items, nearest: grim.nearest.join(' and ') }, ...capped });
         continue;
       }
       if (!context.options.checkSds || group.sd === null) continue;
       const grimmer = grimmerTest(group.mean, group.sd, group.n, items);
       if (grimmer.informative && !grimmer.possible) {
-        drafts.push({ messageId: 'sd', data: { ...common, sd: group.sd.text, nearest: grimmer.nearest.join(' and ') } });
+        drafts.push({ messageId: 'sd', data: { ...common, sd: group.sd.text, nearest: grimmer.nearest.join(' and ') }, ...capped });
       }
     }
     return drafts;

@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
-import { describeP, describeStatistic, describePRange } from '../describe.js';
+import { describeP, describeStatistic, describePRange, quoteFromDocument } from '../describe.js';
 import { formatP, formatRange } from '../format.js';
 import { crossesAlpha, pAgrees, printedSignificance, recomputedSignificance } from '../pAgreement.js';
 import { fitsOnlyWhenHalved, fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
+import { describeAdjustment, judgeAdjustment, type AdjustmentVerdict } from '../pAdjustment.js';
 import { findSlips } from '../slips.js';
 
 const optionsSchema = z
@@ -15,6 +16,18 @@ const optionsSchema = z
 
 type Options = z.infer<typeof optionsSchema>;
 
+/** The sentence a message adds when the text says the p-values were adjusted; '' otherwise. */
+function adjustmentNote(verdict: AdjustmentVerdict): string {
+  switch (verdict.kind) {
+    case 'smaller':
+      return ` The text says the p-values were adjusted (${describeAdjustment(verdict.adjustment)}: "${quoteFromDocument(verdict.adjustment.statement, 80)}"), but an adjusted p is never smaller than the unadjusted one.`;
+    case 'fits-neither':
+      return ` The text says the p-values were adjusted (${describeAdjustment(verdict.adjustment)}: "${quoteFromDocument(verdict.adjustment.statement, 80)}"), which gives an adjusted p of ${formatRange(verdict.range.low, verdict.range.high)}; the printed p fits neither.`;
+    default:
+      return '';
+  }
+}
+
 /** The reported p (or "n.s.") against the p recomputed from the statistic and df. */
 export const pValueMismatch: CheckModule<Options> = {
   id: 'p-value-mismatch',
@@ -22,9 +35,9 @@ export const pValueMismatch: CheckModule<Options> = {
   optionsSchema,
   messages: {
     mismatch:
-      '{statistic} gives p = {recomputedP} ({recomputedRange} allowing for rounding), but {printedP} is reported.{alphaNote}{slipNote}',
+      '{statistic} gives p = {recomputedP} ({recomputedRange} allowing for rounding), but {printedP} is reported.{adjustmentNote}{alphaNote}{slipNote}',
     notSignificantButIs:
-      '{statistic} is marked not significant, but it gives p = {recomputedP} ({recomputedRange} allowing for rounding), below alpha = {alpha}.',
+      '{statistic} is marked not significant, but it gives p = {recomputedP} ({recomputedRange} allowing for rounding), below alpha = {alpha}.{adjustmentNote}',
   },
   run(result, context) {
     const recomputation = context.recomputations[context.index];
@@ -37,9 +50,21 @@ export const pValueMismatch: CheckModule<Options> = {
       recomputedRange: describePRange(result, formatRange(range.low, range.high)),
       alpha: context.alpha,
     };
+    const adjustment = (): AdjustmentVerdict =>
+      judgeAdjustment(result, recomputation, context.text, context.document, context.alpha, allowTruncatedP);
     if (!result.p) {
       if (result.notSignificant && recomputedSignificance(range, context.alpha) === true) {
-        return [{ messageId: 'notSignificantButIs', data: base, crossesAlpha: true }];
+        const verdict = adjustment();
+        // An adjusted p can be above alpha: adjusted-p notes what cannot be recomputed.
+        if (verdict.kind === 'fits' || verdict.kind === 'unverifiable') return [];
+        return [
+          {
+            messageId: 'notSignificantButIs',
+            data: { ...base, adjustmentNote: adjustmentNote(verdict) },
+            crossesAlpha: true,
+            ...(verdict.kind === 'fits-neither' && verdict.adjustment.where === 'document' ? { severityAtMost: 'warn' as const } : {}),
+          },
+        ];
       }
       return [];
     }
@@ -48,8 +73,12 @@ export const pValueMismatch: CheckModule<Options> = {
     if (pAgrees(result.p, range, allowTruncatedP)) return [];
     if (fitsOnlyWhenHalved(result, recomputation, allowTruncatedP)) return []; // halved-p reports it
     if (fitsOnlyWithSphericityCorrection(result, recomputation, context.document.sphericity.length > 0, allowTruncatedP)) return [];
+    const verdict = adjustment();
+    if (verdict.kind === 'fits' || verdict.kind === 'unverifiable') return []; // consistent, or adjusted-p notes it
 
-    const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(range, context.alpha));
+    // Against the adjusted p when the text states an adjustment that can be recomputed.
+    const comparedRange = verdict.kind === 'fits-neither' ? verdict.range : range;
+    const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(comparedRange, context.alpha));
     const neighbours = [context.index - 1, context.index + 1]
       .filter((i) => i >= 0 && i < context.results.length)
       .map((i) => ({ result: context.results[i]!, recomputation: context.recomputations[i]! }));
@@ -61,10 +90,13 @@ export const pValueMismatch: CheckModule<Options> = {
         data: {
           ...base,
           printedP: describeP(result),
+          adjustmentNote: adjustmentNote(verdict),
           alphaNote: crosses ? ` This changes the conclusion at alpha = ${context.alpha}.` : '',
           slipNote: firstSlip ? ` Possible slip: ${firstSlip.explanation}.` : '',
         },
         crossesAlpha: crosses,
+        // An adjustment stated elsewhere in the document may not cover this result.
+        ...(verdict.kind === 'fits-neither' && verdict.adjustment.where === 'document' ? { severityAtMost: 'warn' as const } : {}),
         ...(firstSlip ? { slip: firstSlip.id } : {}),
       },
     ];

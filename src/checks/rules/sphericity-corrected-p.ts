@@ -17,7 +17,9 @@ export const sphericityCorrectedP: CheckModule<z.infer<typeof optionsSchema>> = 
   },
   run(result, context) {
     const recomputation = context.recomputations[context.index];
-    const statement = context.document.sphericity[0];
+    // Quote the statement nearest before the result (the one most likely to cover it), else the first.
+    const statements = context.document.sphericity;
+    const statement = statements.filter((s) => s.start < result.start).pop() ?? statements[0];
     if (!recomputation || !statement) return [];
     if (!fitsOnlyWithSphericityCorrection(result, recomputation, true, true)) return [];
     const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(recomputation.pRange!, context.alpha));
@@ -25,6 +27,8 @@ export const sphericityCorrectedP: CheckModule<z.infer<typeof optionsSchema>> = 
       {
         messageId: 'correctedPOnly',
         crossesAlpha: crosses,
+        // The correction is stated for the document, not for this F: never more than a warning.
+        severityAtMost: 'warn',
         data: {
           printedP: describeP(result),
           statistic: describeStatistic(result),

@@ -44,3 +44,18 @@ describe(`${rule}: must flag`, () => {
     expect(only!.findings[0]!.message).toContain('one-way ANOVA F = 5.97');
   });
 });
+
+// SciPy 1.10.1 scipy.stats.ttest_ind_from_stats(4.25, 1.11, 24, 3.52, 1.23, 24): t(46) = 2.159 (Welch: 2.159).
+describe(`${rule}: group sizes read elsewhere`, () => {
+  const text = (t: string) =>
+    `Participants were randomised, 24 per group.\n\nComfort was higher in the warm room (M = 4.25, SD = 1.11) than in the cool room (M = 3.52, SD = 1.23), ${t}.`;
+  it('must pass: the t that the stated sizes give', () => {
+    expect(ruleFindings(rule, text('t(46) = 2.16, p = .036'))[0]!.findings).toEqual([]);
+  });
+  it('must flag, only as a note: sizes taken from a per-group statement elsewhere in the document', () => {
+    const [finding] = ruleFindings(rule, text('t(46) = 3.90, p < .001'))[0]!.findings;
+    expect(finding).toMatchObject({ rule, severity: 'note' });
+    expect(finding!.message).toContain("Student's t = 2.16");
+    expect(finding!.message).toContain('elsewhere in the document');
+  });
+});

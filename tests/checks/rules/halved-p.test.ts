@@ -36,3 +36,21 @@ describe(`${rule}: must flag`, () => {
     expect(finding).toMatchObject({ rule, severity: 'warn', messageId: 'upperTail' });
   });
 });
+
+describe(`${rule}: which declaration covers a result`, () => {
+  it('must flag as a note, quoting the declaration nearest before the result', () => {
+    const context = emptyContext({
+      oneTailed: [
+        { text: 'In Study 1 we used one-tailed tests.', start: 0, end: 36 },
+        { text: 'In Study 2, one-tailed tests were preregistered.', start: 500, end: 548 },
+      ],
+    });
+    const [finding] = flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '= .018', start: 900 }, context);
+    expect(finding).toMatchObject({ rule, severity: 'note', messageId: 'declared' });
+    expect(finding!.message).toContain('In Study 2');
+  });
+  it('must flag as a warning when the only declaration comes long after the result', () => {
+    const context = emptyContext({ oneTailed: [{ text: 'One-tailed tests were used in Study 3.', start: 5000, end: 5038 }] });
+    expect(flagsOf(rule, { kind: 't', df: ['28'], value: '2.21', p: '= .018', start: 100 }, context)[0]).toMatchObject({ severity: 'warn' });
+  });
+});

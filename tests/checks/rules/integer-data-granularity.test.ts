@@ -39,3 +39,16 @@ describe(`${rule}: must flag`, () => {
     expect(() => ruleFindings(rule, '', { rules: { [rule]: { options: { integerMeasures: 'comfort' } } } })).toThrow(/integerMeasures/);
   });
 });
+
+describe(`${rule}: group sizes read elsewhere`, () => {
+  const text = (third: string) =>
+    `Participants were randomised, 21 per group.\n\nThe number of errors was (M = 5.43, SD = 1.08), (M = 4.71, SD = 1.19) and (M = ${third}, SD = 1.32), F(2, 60) = 4.29, p = .018.`;
+  it('must pass: a possible mean with the stated size (92/21 = 4.38)', () => {
+    expect(ruleFindings(rule, text('4.38'))[0]!.findings).toEqual([]);
+  });
+  it('must flag, only as a note: an impossible mean when n comes from a per-group statement elsewhere', () => {
+    const [finding] = ruleFindings(rule, text('4.37'))[0]!.findings;
+    expect(finding).toMatchObject({ rule, severity: 'note', messageId: 'mean' });
+    expect(finding!.message).toContain('The group size is not printed with the group');
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { emptyContext, findingsOf, flagsOf, result } from '../helpers.js';
+import { checkedOf, emptyContext, findingsOf, flagsOf, result } from '../helpers.js';
 
 // Exact p-values quoted in comments were computed with SciPy 1.10.1
 // (scipy.stats.f.sf, t.sf, chi2.sf, norm.sf) when these tests were written.
@@ -117,5 +117,118 @@ describe('p-value-mismatch: slips across a decimal point, and none for inequalit
     const [finding] = flagsOf(rule, { kind: 'chi2', df: ['2'], value: '5.10', p: '< .05' });
     expect(finding).toMatchObject({ crossesAlpha: true });
     expect(finding!.slip).toBeUndefined();
+  });
+});
+
+// r with df = N - 2: p from t = r * sqrt(df / (1 - r^2)), 2 * scipy.stats.t.sf (SciPy 1.10.1):
+// r = .20, df = 212 -> p = 0.0032996; r = .30, df = 212 -> p = 7.96e-6.
+describe('p-value-mismatch: df from the sample size the document states for the study', () => {
+  const study = (text = 'We recruited 214 participants.') =>
+    emptyContext({ sampleSizes: [{ value: 214, text: '214 participants', start: text.indexOf('214'), end: text.indexOf('214') + 16, scope: 'total' }] });
+  const r = (value: string, p: string) => ({ kind: 'r' as const, value, p, start: 40 });
+
+  it('must pass: r = .20, p = .003 with N = 214 (df = 212, p = .0033)', () => {
+    expect(flagsOf(rule, r('.20', '= .003'), study())).toEqual([]);
+  });
+  it('must pass: without a stated N the correlation stays unchecked', () => {
+    expect(flagsOf(rule, r('.30', '= .004'))).toEqual([]);
+  });
+  it('must pass: with two different totals stated, no N is taken as the study\'s', () => {
+    const context = emptyContext({
+      sampleSizes: [
+        { value: 214, text: 'N = 214', start: 0, end: 7, scope: 'total' },
+        { value: 98, text: 'N = 98', start: 10, end: 16, scope: 'total' },
+      ],
+    });
+    expect(flagsOf(rule, r('.30', '= .004'), context)).toEqual([]);
+  });
+  it('must flag, as a warning that names the N: r = .30, p = .004 with N = 214 (p = 7.96e-6)', () => {
+    const [finding] = flagsOf(rule, r('.30', '= .004'), study());
+    expect(finding).toMatchObject({ rule, severity: 'warn' });
+    expect(finding!.message).toContain('no df printed; df = 212 from the N = 214 the document states for the study');
+    expect(finding!.slip).toBeUndefined(); // the df were not typed, so no df slip
+  });
+  it('must flag, as a note, when the document also states a part of the sample', () => {
+    const context = study();
+    context.sampleSizes.push({ value: 96, text: '96 participants', start: 60, end: 75, scope: 'subset' });
+    const [finding] = flagsOf(rule, r('.30', '= .004'), context);
+    expect(finding).toMatchObject({ rule, severity: 'note' });
+  });
+  it('the df worked out are in the checked result, marked as such', () => {
+    const [checked] = checkedOf([result(r('.30', '= .004'))], study());
+    expect(checked!.result.df.map((df) => df.value)).toEqual([212]);
+    expect(checked!.result.dfFrom).toBe('study-sample-size');
+  });
+});
+
+// chi2.sf (SciPy 1.10.1): chi2(2) = 9.56 -> p = 0.008396; chi2(1) = 5.41 -> p = 0.020022.
+describe('p-value-mismatch: a chi-square without df, with the table dimensions stated', () => {
+  const chi = (text: string, value: string, p: string) => ({ kind: 'chi2' as const, value, p, start: text.indexOf('χ2') });
+  it('must pass: a 2 x 2 table, chi2 = 5.41, p = .020', () => {
+    const text = 'A 2 x 2 chi-square test showed that choice depended on condition, χ2 = 5.41, p = .020.';
+    expect(flagsOf(rule, chi(text, '5.41', '= .020'), emptyContext(), text)).toEqual([]);
+  });
+  it('must pass: no dimensions stated, so the chi-square stays unchecked whatever the N', () => {
+    const text = 'We recruited 214 participants. Choice depended on condition, χ2 = 9.56, p = .002.';
+    const context = emptyContext({ sampleSizes: [{ value: 214, text: '214 participants', start: 13, end: 29, scope: 'total' }] });
+    expect(flagsOf(rule, chi(text, '9.56', '= .002'), context, text)).toEqual([]);
+  });
+  it('must flag, as a warning: a 2 × 3 table gives df = 2, and chi2 = 9.56 gives p = .0084, not .002', () => {
+    const text = 'We cross-tabulated the 2 × 3 contingency table. Choice depended on condition, χ2 = 9.56, p = .002.';
+    const [finding] = flagsOf(rule, chi(text, '9.56', '= .002'), emptyContext(), text);
+    expect(finding).toMatchObject({ rule, severity: 'warn' });
+    expect(finding!.message).toContain('df = 2 from the 2 × 3 table');
+  });
+});
+
+// 2 * scipy.stats.t.sf(2.10, 28) = 0.044863 (SciPy 1.10.1); Bonferroni for 3 comparisons: 0.1346
+// (0.1332 to 0.1360 over t's rounding).
+describe('p-value-mismatch: adjusted p-values', () => {
+  const at = (before: string, p: string, after = '.') => {
+    const text = `${before}t(28) = 2.10, p ${p}${after}`;
+    return { text, spec: { kind: 't' as const, df: ['28'], value: '2.10', p, start: before.length } };
+  };
+  it('must pass: a Holm p larger than the unadjusted one (adjusted-p notes it instead)', () => {
+    const { text, spec } = at('Holm-corrected comparisons showed that A and B differed, ', '= .090');
+    expect(flagsOf(rule, spec, emptyContext(), text)).toEqual([]);
+  });
+  it('must pass: a Holm p for 3 comparisons lies between p and 3p (0.045 to 0.135)', () => {
+    const { text, spec } = at('Holm-corrected for 3 comparisons, A and B differed, ', '= .090');
+    expect(flagsOf(rule, spec, emptyContext(), text)).toEqual([]);
+  });
+  it('must flag: a p smaller than the unadjusted p, which no adjustment gives', () => {
+    const { text, spec } = at('Bonferroni-corrected comparisons showed that A and B differed, ', '= .009');
+    const [finding] = flagsOf(rule, spec, emptyContext(), text);
+    expect(finding).toMatchObject({ rule, severity: 'fail' });
+    expect(finding!.message).toContain('an adjusted p is never smaller than the unadjusted one');
+  });
+  it('must flag: "p < .01" with an adjustment stated (the unadjusted p is already .045)', () => {
+    const { text, spec } = at('Bonferroni-corrected comparisons showed that A and B differed, ', '< .01');
+    expect(flagsOf(rule, spec, emptyContext(), text)[0]).toMatchObject({ rule, severity: 'fail' });
+  });
+  it('must flag: a Bonferroni p for 3 comparisons that is neither p nor 3p', () => {
+    const { text, spec } = at('A and B differed (Bonferroni-corrected for 3 comparisons), ', '= .070');
+    const [finding] = flagsOf(rule, spec, emptyContext(), text);
+    expect(finding).toMatchObject({ rule, severity: 'fail', crossesAlpha: false });
+    expect(finding!.message).toContain('Bonferroni for 3 comparisons');
+    expect(finding!.message).toContain('adjusted p of 0.133 to 0.136');
+  });
+  it('must flag, as a warning, when the adjustment is stated only elsewhere in the document', () => {
+    const statement = 'All post hoc comparisons were Bonferroni-corrected for 3 comparisons.';
+    const { text, spec } = at(`${statement} Then came the task. It took ten minutes.\n\nA and B differed, `, '= .070');
+    const context = emptyContext({
+      pAdjustments: [{ text: statement, start: 0, end: statement.length, method: 'bonferroni', comparisons: 3, appliesTo: 'post-hoc' }],
+    });
+    expect(flagsOf(rule, spec, context, text)[0]).toMatchObject({ rule, severity: 'warn' });
+  });
+  it('a statement about post hoc comparisons does not cover an F with df1 = 2', () => {
+    const statement = 'All post hoc comparisons were Holm-corrected.';
+    const text = `${statement} Then came the task. It took ten minutes.\n\nDose mattered, F(2, 57) = 4.21, p = .060.`;
+    const context = emptyContext({
+      pAdjustments: [{ text: statement, start: 0, end: statement.length, method: 'holm', comparisons: null, appliesTo: 'post-hoc' }],
+    });
+    // F(2, 57) = 4.21 -> p = 0.0197 (scipy.stats.f.sf, SciPy 1.10.1)
+    const spec = { kind: 'F' as const, df: ['2', '57'], value: '4.21', p: '= .060', start: text.indexOf('F(2') };
+    expect(flagsOf(rule, spec, context, text)[0]).toMatchObject({ rule, severity: 'fail' });
   });
 });
