@@ -27,6 +27,7 @@ import type { DocumentTable } from '../../documents/types.js';
 import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
 import { readNameAndValue } from '../effects.js';
+import { readPValue } from '../pValue.js';
 import type {
   Comparator,
   EffectKind,
@@ -410,6 +411,16 @@ function completionOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sch
       const read = readCell(cell, '.');
       if (read.kind === 'number') effects.push({ kind: role.effect, comparator: read.comparator, value: read.number, interval: null, start: cellAt.start + read.start, end: cellAt.start + read.end });
       return;
+    }
+    // A cell of its own holding the p ("P = 0.064" after "χ2(2) = 5.496").
+    if (p === null && !notSignificant && column > written) {
+      const normalised = normaliseText(cell);
+      const start = skipLeadingSpace(normalised.text);
+      const read = readPValue(normalised.text, start);
+      if (read !== null && read.end >= normalised.text.trimEnd().length - 1) {
+        p = { ...read, start: cellAt.start + normalised.toOriginal(read.start), end: cellAt.start + normalised.toOriginalEnd(read.end) };
+        return;
+      }
     }
     if (role.role === 'unknown' || role.role === 'descriptive' || role.role === 'result') {
       // "d = 0.31" in a column headed "Eff. size".
