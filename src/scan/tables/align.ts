@@ -52,9 +52,9 @@ const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
-export const STATISTIC_WITH_P = /^\s*(-?\d*\.?\d+)\s*[,;]\s*p\s*(<=|>=|<|>|=)\s*(\d*\.?\d+)\s*(?:[*\u2020\u2021]{1,4}|[a-h])?\s*$/i;
+export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
-const NUMBER_INTERVAL = /^([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*(?:,|;|to|\u2013|-)\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+) *(?:,|;|to|\u2013|-) *(?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
 
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {

@@ -299,7 +299,7 @@ function testKindOf(cell: string): StatisticKind | null {
 }
 
 /** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
-const STATISTIC_CELL = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*(?:[,;]\s*df\s*=\s*(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?)?\s*$/i;
+const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[,;] *df *= *(\d+(?:\.\d+)?)(?: *, *(\d+(?:\.\d+)?))?)? *$/i;
 
 /**
  * Tables that name each row's test in a cell ("t-test", "correlation") and
@@ -936,7 +936,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   };
 }
 
-const INTERVAL_CELL = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*(?:,|;|to|\u2013|-)\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[)\]]/;
+const INTERVAL_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]]/;
 
 /** An estimate with its interval in one cell: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; the level is not stated in the cell. */
 function numberWithInterval(
@@ -1009,7 +1009,7 @@ function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
   return [located(match[1]!, firstAt), located(match[2]!, secondAt)];
 }
 
-const STATISTIC_WITH_DF = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*(\d{1,6}(?:\.\d+)?)\s*(?:[,;]\s*(\d{1,6}(?:\.\d+)?)\s*)?[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?\s*$/;
+const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
 
 /**
  * A statistic cell that holds the df too: "4.842 (15)" in a column headed
