@@ -3,7 +3,8 @@ import type { ResolvedConfig } from './checks/config.js';
 import { createLineIndex } from './scan/lines.js';
 import { scanDocument, type ScannableDocument } from './scan/scanDocument.js';
 import { plainTextDocument } from './documents/text.js';
-import type { DocumentOutput, StatisticOutput } from './report/model.js';
+import type { DocumentOutput, StatisticOutput, TableNotReadOutput } from './report/model.js';
+import type { UnreadTable } from './scan/tables/index.js';
 
 /** Maps a text offset to its page, when the document has pages. */
 export type PageOf = (offset: number) => number | null;
@@ -39,6 +40,7 @@ function statisticOutput(
     valueComparator: result.valueComparator,
     p: result.p ? { comparator: result.p.comparator, value: result.p.value.value, text: result.p.value.text } : null,
     notSignificant: result.notSignificant,
+    inTable: result.tableRow !== undefined,
     effects: result.effects.map((effect) => ({
       kind: effect.kind,
       comparator: effect.comparator,
@@ -60,6 +62,38 @@ function statisticOutput(
       partialEtaSquaredHigh: recomputation.partialEtaSquaredRange?.high ?? null,
     },
     findings,
+  };
+}
+
+/** Why a table was not read in full, in words a researcher understands. */
+function tableNotReadMessage(table: UnreadTable): string {
+  const name = table.caption === null ? 'A results table' : `"${table.caption.replace(/\s+/g, ' ').slice(0, 80)}"`;
+  const read = table.rowsRead > 0 ? ` ${table.rowsRead} of its ${table.rowsWithStatistic} rows with a statistic were read;` : '';
+  switch (table.reason) {
+    case 'no-statistic-column':
+      return `${name} prints p-values but no test statistic, so nothing in it can be recomputed.`;
+    case 'columns-not-recognised':
+      return `${name} names a test statistic in its header in words plumbline does not read; its rows were not checked.`;
+    case 'layout-not-recognised':
+      return `${name} looks like a table of results, but its layout was not recognised as a table; its results were not read.`;
+    case 'no-df':
+      return `${name}:${read} ${table.rowsWithStatistic - table.rowsRead} statistics were not read because the table does not give their degrees of freedom (no df column, error row, header or note ties df to them).`;
+    case 'cells-not-placed':
+      return `${name}:${read} the other rows could not be put under the table's columns without guessing, so they were not read.`;
+    case 'z-without-p':
+      return `${name} has a z column without p-values; such a column may hold standard scores, so it was not read.`;
+  }
+}
+
+function tableNotReadOutput(table: UnreadTable, lineOf: ReturnType<typeof createLineIndex>, pageOf: PageOf): TableNotReadOutput {
+  const { line, column } = lineOf(table.start);
+  return {
+    location: { page: pageOf(table.start), line, column, start: table.start, end: table.end },
+    caption: table.caption,
+    reason: table.reason,
+    rowsWithStatistic: table.rowsWithStatistic,
+    rowsRead: table.rowsRead,
+    message: tableNotReadMessage(table),
   };
 }
 
@@ -85,6 +119,7 @@ export function auditDocument(
     alpha: scan.context.alpha?.value ?? config.defaultAlpha,
     statistics: checked.map((c) => statisticOutput(c, text, lineOf, pageOf)),
     findings: [],
+    tablesNotRead: scan.tablesNotRead.map((table) => tableNotReadOutput(table, lineOf, pageOf)),
   };
 }
 

@@ -37,9 +37,17 @@ function statisticBlock(chalk: ChalkInstance, statistic: StatisticOutput, showAl
   return lines;
 }
 
+/** Tables that look like results tables but were not read in full: always shown, so an audit never looks cleaner than it is. */
+function tablesNotReadLines(chalk: ChalkInstance, document: DocumentOutput): string[] {
+  return document.tablesNotRead.flatMap((table) => {
+    const page = table.location.page === null ? '' : `page ${table.location.page}, `;
+    return [`  ${chalk.gray(`${page}line ${table.location.line}`)}  ${chalk.yellow('table not read')}`, `         ${table.message}`];
+  });
+}
+
 function documentBlock(chalk: ChalkInstance, document: DocumentOutput, showAll: boolean): string[] {
   if (document.status === 'unreadable') return [chalk.bold(document.path), `  ${chalk.red('unreadable')}: ${document.error}`, ''];
-  const body = document.statistics.flatMap((s) => statisticBlock(chalk, s, showAll));
+  const body = [...document.statistics.flatMap((s) => statisticBlock(chalk, s, showAll)), ...tablesNotReadLines(chalk, document)];
   const documentFindings = document.findings.flatMap((f) => [`  ${severityLabel(chalk, f.severity)} ${chalk.dim(f.rule)}`, `         ${f.message}`]);
   if (body.length === 0 && documentFindings.length === 0) {
     return showAll ? [chalk.bold(document.path), `  ${chalk.gray(`${document.statistics.length} results, none flagged`)}`, ''] : [];
@@ -55,9 +63,11 @@ export function formatConsole(report: Report, options: ConsoleOptions): string {
   const lines = report.documents.flatMap((d) => documentBlock(chalk, d, options.showAll));
   const counts = `${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`;
   const unreadable = summary.unreadable > 0 ? chalk.red(`, ${summary.unreadable} unreadable`) : '';
+  const notRead = summary.tablesNotRead > 0 ? chalk.yellow(`; ${summary.tablesNotRead} table(s) not read`) : '';
   lines.push(
-    `${summary.documents} document(s), ${summary.statistics} result(s), ${summary.flaggedStatistics} flagged: ${counts}` +
-      `${summary.crossesAlpha > 0 ? `; ${summary.crossesAlpha} change the conclusion at alpha` : ''}${unreadable}.`,
+    `${summary.documents} document(s), ${summary.statistics} result(s) (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ` +
+      `${summary.flaggedStatistics} flagged: ${counts}` +
+      `${summary.crossesAlpha > 0 ? `; ${summary.crossesAlpha} change the conclusion at alpha` : ''}${notRead}${unreadable}.`,
   );
   lines.push(chalk.gray(report.caution));
   return `${lines.join('\n')}\n`;

@@ -4,7 +4,8 @@ import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './m
 /**
  * The CSV report: one row per result (flagged or not) for spreadsheets and
  * statistics software, plus one row per finding about a document as a whole,
- * one row for a document in which no result was found, and one row per
+ * one row per results table that was not read in full (with the reason), one
+ * row for a document in which no result was found, and one row per
  * unreadable document. Numeric columns hold plain numbers (or nothing);
  * text cells that a spreadsheet would run as a formula are neutralised.
  * Comparators are written as words ("equals", "below", ...), since a cell
@@ -15,7 +16,7 @@ type Severity = FindingOutput['severity'];
 const SEVERITY_RANK: Record<Severity, number> = { fail: 3, warn: 2, note: 1 };
 
 /** What a row stands for (the `row` column). */
-export type CsvRowKind = 'result' | 'document finding' | 'no results' | 'unreadable';
+export type CsvRowKind = 'result' | 'document finding' | 'table not read' | 'no results' | 'unreadable';
 
 /** The columns, in order. Numeric columns are marked so that they are never neutralised. */
 export const CSV_COLUMNS = [
@@ -165,7 +166,19 @@ function documentRows(document: DocumentOutput): Row[] {
   }
   const rows = document.statistics.map((s) => resultRow(document, s));
   for (const finding of document.findings) rows.push({ row: 'document finding', ...documentColumns(document), ...findingColumns([finding]) });
-  if (rows.length === 0) rows.push({ row: 'no results', ...documentColumns(document) });
+  for (const table of document.tablesNotRead) {
+    rows.push({
+      row: 'table not read',
+      ...documentColumns(document),
+      page: table.location.page,
+      line: table.location.line,
+      column: table.location.column,
+      'result text': oneLine(table.caption ?? ''),
+      checked: 'false',
+      note: oneLine(table.message),
+    });
+  }
+  if (document.statistics.length === 0 && document.findings.length === 0) rows.push({ row: 'no results', ...documentColumns(document) });
   return rows;
 }
 

@@ -492,6 +492,18 @@ function documentMeta(document: DocumentOutput, counts: DocumentCounts): string 
   return `<p class="meta">${bits.join(' \u00B7 ')}</p>`;
 }
 
+/** Tables that look like results tables but were not read in full, with the reason. */
+function tablesNotReadBlock(document: DocumentOutput): string {
+  if (document.tablesNotRead.length === 0) return '';
+  const items = document.tablesNotRead
+    .map((table) => {
+      const page = table.location.page === null ? '' : `page ${table.location.page}, `;
+      return `<li><span class="badge warn">table not read</span> <span class="where">${page}line ${table.location.line}</span>: ${e(table.message)}</li>`;
+    })
+    .join('');
+  return `<div class="tables-not-read"><h4>Tables not read</h4><ul>${items}</ul></div>`;
+}
+
 function flaggedDocument(counts: DocumentCounts): string {
   const { document, index } = counts;
   const documentFindings =
@@ -503,7 +515,7 @@ function flaggedDocument(counts: DocumentCounts): string {
     .join('');
   return (
     `<section class="doc flagged" id="${documentAnchor(index)}">` +
-    `<h3>${e(document.path)}</h3>${documentMeta(document, counts)}${documentFindings}${results}${allResultsTable(document, index)}</section>`
+    `<h3>${e(document.path)}</h3>${documentMeta(document, counts)}${documentFindings}${results}${tablesNotReadBlock(document)}${allResultsTable(document, index)}</section>`
   );
 }
 
@@ -539,7 +551,8 @@ export function formatHtml(report: Report): string {
     `<li><strong>${summary.documents}</strong> document${summary.documents === 1 ? '' : 's'}` +
     (summary.unreadable > 0 ? ` (${summary.unreadable} unreadable)` : '') +
     `</li>` +
-    `<li><strong>${summary.statistics}</strong> result${summary.statistics === 1 ? '' : 's'} found</li>` +
+    `<li><strong>${summary.statistics}</strong> result${summary.statistics === 1 ? '' : 's'} found (${summary.resultsInText} in text, ${summary.resultsInTables} in tables)</li>` +
+    `<li><strong>${summary.tablesNotRead}</strong> results table${summary.tablesNotRead === 1 ? '' : 's'} not read</li>` +
     `<li><strong>${summary.flaggedStatistics}</strong> flagged</li>` +
     `<li><span class="badge fail">fail</span> ${summary.findings.fail} <span class="badge warn">warn</span> ${summary.findings.warn} <span class="badge note">note</span> ${summary.findings.note}</li>` +
     `<li><strong>${summary.crossesAlpha}</strong> change the conclusion at alpha</li></ul>`;
@@ -564,7 +577,7 @@ export function formatHtml(report: Report): string {
           .map(
             (c) =>
               `<li class="clean" id="${documentAnchor(c.index)}">${e(c.document.path)}: ${plural(c.document.statistics.length, 'result')}, none flagged` +
-              `${allResultsTable(c.document, c.index)}</li>`,
+              `${tablesNotReadBlock(c.document)}${allResultsTable(c.document, c.index)}</li>`,
           )
           .join('') +
         `</ul></section>`;

@@ -50,6 +50,13 @@ function findingLine(finding: FindingOutput, indent: string): string {
   return `${indent}- **${finding.severity}** ${codeSpan(finding.rule)}${crosses}: ${escapeMarkdown(finding.message)}`;
 }
 
+function tablesNotReadLines(document: DocumentOutput, indent: string): string[] {
+  return document.tablesNotRead.map((table) => {
+    const page = table.location.page === null ? '' : `page ${table.location.page}, `;
+    return `${indent}- **table not read** (${page}line ${table.location.line}): ${escapeMarkdown(table.message)}`;
+  });
+}
+
 function flaggedDocument(document: DocumentOutput): string[] {
   const flagged = document.statistics.filter((s) => s.findings.length > 0);
   const lines = [`### ${codeSpan(document.path)}`, '', `${plural(document.statistics.length, 'result')}, ${flagged.length} flagged.`, ''];
@@ -61,6 +68,7 @@ function flaggedDocument(document: DocumentOutput): string[] {
     lines.push(`- ${where(statistic)}: ${codeSpan(statistic.text)}`);
     for (const finding of statistic.findings) lines.push(findingLine(finding, '  '));
   }
+  lines.push(...tablesNotReadLines(document, ''));
   lines.push('');
   return lines;
 }
@@ -76,8 +84,10 @@ export function formatMarkdown(report: Report): string {
   const counts = `${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`;
   lines.push(
     `**Totals:** ${plural(summary.documents, 'document')} (${summary.checked} checked, ${summary.unreadable} unreadable), ` +
-      `${plural(summary.statistics, 'result')} found, ${summary.flaggedStatistics} flagged (${counts}); ` +
-      `${summary.crossesAlpha} ${summary.crossesAlpha === 1 ? 'flag changes' : 'flags change'} the conclusion at alpha.`,
+      `${plural(summary.statistics, 'result')} found (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ` +
+      `${summary.flaggedStatistics} flagged (${counts}); ` +
+      `${summary.crossesAlpha} ${summary.crossesAlpha === 1 ? 'flag changes' : 'flags change'} the conclusion at alpha; ` +
+      `${plural(summary.tablesNotRead, 'results table')} not read.`,
     '',
   );
 
@@ -89,7 +99,10 @@ export function formatMarkdown(report: Report): string {
 
   if (clean.length > 0) {
     lines.push('### Documents without flags', '');
-    for (const document of clean) lines.push(`- ${codeSpan(document.path)}: ${plural(document.statistics.length, 'result')}, none flagged.`);
+    for (const document of clean) {
+      lines.push(`- ${codeSpan(document.path)}: ${plural(document.statistics.length, 'result')}, none flagged.`);
+      lines.push(...tablesNotReadLines(document, '  '));
+    }
     lines.push('');
   }
   if (unreadable.length > 0) {

@@ -58,6 +58,7 @@ export const statisticSchema = z.object({
       interval: z.object({ level: z.number().nullable(), low: z.number(), high: z.number() }).nullable(),
     }),
   ),
+  inTable: z.boolean().default(false).describe('True when the result was read from a row of a table, false when from running text.'),
   recomputed: z.object({
     evaluable: z.boolean(),
     reason: z.string().nullable(),
@@ -72,6 +73,17 @@ export const statisticSchema = z.object({
   findings: z.array(findingSchema),
 });
 
+export const tableNotReadSchema = z
+  .object({
+    location: locationSchema,
+    caption: z.string().nullable(),
+    reason: z.enum(['no-statistic-column', 'columns-not-recognised', 'layout-not-recognised', 'no-df', 'cells-not-placed', 'z-without-p']),
+    rowsWithStatistic: z.number().int().describe('Rows of the table that print a statistic (or, for a table of p-values only, a p).'),
+    rowsRead: z.number().int().describe('Of those, rows read as results.'),
+    message: z.string(),
+  })
+  .describe('A table that looks like a results table (its header names a test statistic or p) whose results were not all read.');
+
 export const documentSchema = z.object({
   path: z.string(),
   status: z.enum(['checked', 'unreadable']),
@@ -80,6 +92,7 @@ export const documentSchema = z.object({
   alpha: z.number().optional().describe('Alpha used for this document (declared in it, or the default).'),
   statistics: z.array(statisticSchema),
   findings: z.array(findingSchema).describe('Findings about the document as a whole.'),
+  tablesNotRead: z.array(tableNotReadSchema).default([]).describe('Results tables plumbline could not read in full: an audit must not look cleaner than it is.'),
 });
 
 export const summarySchema = z.object({
@@ -87,6 +100,9 @@ export const summarySchema = z.object({
   checked: z.number().int(),
   unreadable: z.number().int(),
   statistics: z.number().int(),
+  resultsInText: z.number().int().default(0).describe('Results read from running text.'),
+  resultsInTables: z.number().int().default(0).describe('Results read from rows of tables.'),
+  tablesNotRead: z.number().int().default(0).describe('Results tables that could not be read in full (listed per document).'),
   flaggedStatistics: z.number().int(),
   findings: z.object({ fail: z.number().int(), warn: z.number().int(), note: z.number().int() }),
   crossesAlpha: z.number().int(),
@@ -103,6 +119,7 @@ export type FindingOutput = z.infer<typeof findingSchema>;
 export type StatisticOutput = z.infer<typeof statisticSchema>;
 export type DocumentOutput = z.infer<typeof documentSchema>;
 export type Summary = z.infer<typeof summarySchema>;
+export type TableNotReadOutput = z.infer<typeof tableNotReadSchema>;
 export type Report = z.infer<typeof reportSchema>;
 
 export { CAUTION } from './caution.js';

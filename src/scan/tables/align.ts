@@ -18,6 +18,7 @@ import { readCell, type ColumnRole } from './cells.js';
 import { scanText } from '../scan.js';
 import { normaliseText } from '../normalise.js';
 import { readNameAndValue } from '../effects.js';
+import { readPValue } from '../pValue.js';
 
 /** What a body cell holds, as far as fitting it to a column goes. */
 export type CellShape =
@@ -33,10 +34,14 @@ export type CellShape =
   | { shape: 'statistic-p'; value: number }
   /** A range of two numbers, "81–152" (minimum to maximum). */
   | { shape: 'range' }
+  /** Other numbers without words: "10/23 (41.9, 14.6)", "12:30" (descriptive). */
+  | { shape: 'numeric' }
   /** A complete written result, "t(46) = 1.06" (the text scanner reads it). */
   | { shape: 'written' }
   /** A named effect size, "d = 0.31". */
   | { shape: 'named' }
+  /** A p-value with its name, "P = 0.064", "p < .001". */
+  | { shape: 'p-cell' }
   | { shape: 'empty' }
   /** Stars, daggers or a lone footnote letter standing as a cell. */
   | { shape: 'mark' }
@@ -47,9 +52,9 @@ const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
-export const STATISTIC_WITH_P = /^\s*(-?\d*\.?\d+)\s*[,;]\s*p\s*(<=|>=|<|>|=)\s*(\d*\.?\d+)\s*(?:[*\u2020\u2021]{1,4}|[a-h])?\s*$/i;
+export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
-const NUMBER_INTERVAL = /^([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*(?:,|;|to|\u2013|-)\s*[-\u2212\u2013]?\s*\d*\.?\d+\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+) *(?:,|;|to|\u2013|-) *(?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
 
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {
@@ -77,6 +82,8 @@ export function shapeOf(cell: string): CellShape {
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (scanText(text).results.length > 0) return { shape: 'written' };
     const normalised = normaliseText(text).text;
+    const pRead = readPValue(normalised, 0);
+    if (pRead !== null && pRead.end >= normalised.trimEnd().length - 1) return { shape: 'p-cell' };
     const named = readNameAndValue(normalised, 0);
     if (named !== null && named.kind !== null && named.end === normalised.trimEnd().length) return { shape: 'named' };
   }
@@ -86,8 +93,12 @@ export function shapeOf(cell: string): CellShape {
     const outer = readCell(interval[1]!, 'either');
     if (outer.kind === 'number') return { shape: 'number-interval', value: outer.number.value };
   }
+  if (NUMERIC.test(text)) return { shape: 'numeric' };
   return { shape: 'text' };
 }
+
+/** Digits with punctuation and no words: counts, fractions, percentages and their brackets. */
+const NUMERIC = /^(?=.*\d)[\d\s.,:;/()[\]%±+\-\u2212\u2013]{1,60}$/;
 
 /** True for cells that are values of a row (not its label). */
 export function isValueShape(shape: CellShape): boolean {
@@ -110,9 +121,10 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'text') return role.role === 'label' ? 1 : -2;
   if (cell.shape === 'statistic-p') return role.role === 'statistic' ? 2.5 : role.role === 'unknown' ? 0.3 : -2;
   if (cell.shape === 'written') return role.role === 'result' ? 2 : role.role === 'statistic' ? 1.5 : role.role === 'unknown' || role.role === 'descriptive' ? 0.5 : -2;
+  if (cell.shape === 'p-cell') return role.role === 'p' ? 2.5 : role.role === 'result' || role.role === 'unknown' ? 0.5 : -2;
   if (cell.shape === 'named') return role.role === 'effect' || role.role === 'result' ? 1.5 : role.role === 'unknown' ? 0.5 : -2;
   if (role.role === 'result') return cell.shape === 'number' ? 0.3 : -1;
-  if (cell.shape === 'range') return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
+  if (cell.shape === 'range' || cell.shape === 'numeric') return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
   switch (role.role) {
     case 'statistic': {
       if (cell.shape === 'ns' || cell.shape === 'pair' || cell.shape === 'number-interval') return -3;

@@ -49,7 +49,9 @@ interface Cell {
 /** Longest cell; a longer line is prose and ends the table. */
 const MAX_CELL_LENGTH = 120;
 /** Most lines between the title and the header's first column name (caption lines, a "From:" line, label headers). */
-const MAX_LINES_TO_HEADER = 14;
+const MAX_LINES_TO_HEADER = 40;
+/** Most cells before the header's first column name (caption lines, group titles, label headers). */
+const MAX_CELLS_TO_HEADER = 16;
 /** Most header cells. */
 const MAX_HEADER_CELLS = 40;
 /** Most body cells read for one table. */
@@ -75,8 +77,9 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   const cells = collectCells(lines, titleLine + 1);
   // The header: from the first known column name, the run of cells up to the first value.
   let first = -1;
-  for (let index = 0; index < cells.length && cells[index]!.line <= titleLine + MAX_LINES_TO_HEADER; index++) {
+  for (let index = 0; index < cells.length && index < MAX_CELLS_TO_HEADER && cells[index]!.line <= titleLine + MAX_LINES_TO_HEADER; index++) {
     const cell = cells[index]!;
+    if (cell.empty) continue;
     if (isValueCell(cell)) return null;
     if (isColumnName(cell.text)) {
       first = index;
@@ -85,7 +88,8 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   }
   if (first === -1) return null;
   let firstValue = first;
-  while (firstValue < cells.length && firstValue - first < MAX_HEADER_CELLS && !isValueCell(cells[firstValue]!)) firstValue++;
+  // (Empty cells in the header are spanned or blank header cells, not values.)
+  while (firstValue < cells.length && firstValue - first < MAX_HEADER_CELLS && (!isValueCell(cells[firstValue]!) || cells[firstValue]!.empty)) firstValue++;
   if (firstValue >= cells.length || firstValue - first >= MAX_HEADER_CELLS) return null;
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = firstValue;
@@ -94,13 +98,16 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   const labelCount = typicalLabelCount(body);
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
-  const headerRun = cells.slice(first, bodyStart);
+  const headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
   const valueCount = typicalValueCount(body);
   const everyCell = valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
   const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
   const roles = names.map((cell) => classifyHeader(cell.text));
   const known = roles.filter((role) => role.role !== 'unknown' && role.role !== 'label').length;
-  if (known < (everyCell ? 1 : 2) || names.length < 2 || !roles.some((role) => role.role === 'statistic' || role.role === 'p')) return null;
+  // A results table: a column names a statistic or p, or its cells hold written results ("χ2(2) = 5.496").
+  const namesTest = roles.some((role) => role.role === 'statistic' || role.role === 'p' || role.role === 'result');
+  const holdsResults = body.some((cell) => !cell.empty && shapeOf(cell.text).shape === 'written');
+  if (known < (everyCell ? 1 : 2) || names.length < 2 || !(namesTest || holdsResults)) return null;
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
   const startsWithLabel = classifyHeader(cells[first]!.text).role === 'label';
   const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));

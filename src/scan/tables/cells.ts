@@ -211,14 +211,22 @@ function knownKeyOf(key: string): string | null {
   const bare = key.replace(/[.:]$/, '');
   if (ROLE_BY_KEY.has(key)) return key;
   if (ROLE_BY_KEY.has(bare)) return bare;
-  const withoutDf = bare.replace(/\s*\((?:df|d\.f\.|gl|ddl)\)$/, '');
+  const withoutDf = bare.replace(/ ?\((?:df|d\.f\.|gl|ddl)\)$/, '');
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
   const withoutMark = bare.replace(/(?<=[a-z0-9)\]])[a-h]$/, '');
   if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
   // A qualifier in brackets after a known name: "Cohen d (95% CI)", "t (two-tailed)", "p (adjusted)".
   // (Not df: "F(1, 28)" is read with its df below.)
-  const withoutQualifier = HEADER_WITH_DF.test(bare) ? bare : bare.replace(/\s*\([^()]{1,30}\)$/, '');
+  const withoutQualifier = HEADER_WITH_DF.test(bare) ? bare : bare.replace(/ ?\([^()]{1,30}\)$/, '');
   if (withoutQualifier !== bare && withoutQualifier.length >= 1 && ROLE_BY_KEY.has(withoutQualifier)) return withoutQualifier;
+  return null;
+}
+
+/** The header without a ", p" or "(p)" naming the p its cells hold too ("f(1, 66)d, p" -> "f(1, 66)"), or null. */
+function withoutPSuffix(key: string): string | null {
+  for (const suffix of [', p', ',p', ' (p)', '(p)', ' (p-value)', ' (p value)', '(p-value)']) {
+    if (key.endsWith(suffix) && key.length > suffix.length) return key.slice(0, key.length - suffix.length).replace(/[a-h]$/, '');
+  }
   return null;
 }
 
@@ -227,9 +235,9 @@ export function classifyHeader(header: string): ColumnRole {
   const key = headerKey(header);
   if (key === '') return { role: 'unknown' };
   // "F(1, 66), p" or "χ2 (p)": the statistic's cells hold their p too ("0.11, p > 0.05").
-  const withP = /^(.+?)(?:[a-h])?\s*(?:,\s*p|\(\s*p(?:-?value)?\s*\))$/.exec(key);
-  if (withP) {
-    const inner = classifyHeader(withP[1]!);
+  const beforeP = withoutPSuffix(key);
+  if (beforeP !== null) {
+    const inner = classifyHeader(beforeP);
     if (inner.role === 'statistic') return { ...inner, pInCell: true };
   }
   const knownKey = knownKeyOf(key);
@@ -255,7 +263,7 @@ export function classifyHeader(header: string): ColumnRole {
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
   if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key)) return true;
-  return /(?:,\s*p|\(\s*p(?:-?value)?\s*\))$/.test(key) && classifyHeader(key).role === 'statistic';
+  return withoutPSuffix(key) !== null && classifyHeader(key).role === 'statistic';
 }
 
 let firstWords: Set<string> | null = null;

@@ -129,7 +129,7 @@ function cutsOf(blob: string, formats: ColumnFormat[], decimals: number): string
   return results;
 }
 
-const numberOf = (text: string): number => Number(text.replace(/^<\s*/, '').replace(/[a-h*]+$/, ''));
+const numberOf = (text: string): number => Number(text.replace(/^< ?/, '').replace(/[a-h*]{1,4}$/, ''));
 
 /** True when the cut's SS, df and MS agree (MS = SS / df within the rounding of the printed numbers). */
 function arithmeticHolds(cut: string[], roles: ColumnRole[], decimals: number): boolean | null {

@@ -27,6 +27,7 @@ import type { DocumentTable } from '../../documents/types.js';
 import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
 import { readNameAndValue } from '../effects.js';
+import { readPValue } from '../pValue.js';
 import type {
   Comparator,
   EffectKind,
@@ -298,7 +299,7 @@ function testKindOf(cell: string): StatisticKind | null {
 }
 
 /** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
-const STATISTIC_CELL = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*(?:[,;]\s*df\s*=\s*(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?)?\s*$/i;
+const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[,;] *df *= *(\d+(?:\.\d+)?)(?: *, *(\d+(?:\.\d+)?))?)? *$/i;
 
 /**
  * Tables that name each row's test in a cell ("t-test", "correlation") and
@@ -410,6 +411,16 @@ function completionOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sch
       const read = readCell(cell, '.');
       if (read.kind === 'number') effects.push({ kind: role.effect, comparator: read.comparator, value: read.number, interval: null, start: cellAt.start + read.start, end: cellAt.start + read.end });
       return;
+    }
+    // A cell of its own holding the p ("P = 0.064" after "χ2(2) = 5.496").
+    if (p === null && !notSignificant && column > written) {
+      const normalised = normaliseText(cell);
+      const start = skipLeadingSpace(normalised.text);
+      const read = readPValue(normalised.text, start);
+      if (read !== null && read.end >= normalised.text.trimEnd().length - 1) {
+        p = { ...read, start: cellAt.start + normalised.toOriginal(read.start), end: cellAt.start + normalised.toOriginalEnd(read.end) };
+        return;
+      }
     }
     if (role.role === 'unknown' || role.role === 'descriptive' || role.role === 'result') {
       // "d = 0.31" in a column headed "Eff. size".
@@ -925,7 +936,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   };
 }
 
-const INTERVAL_CELL = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*(?:,|;|to|\u2013|-)\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[)\]]/;
+const INTERVAL_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]]/;
 
 /** An estimate with its interval in one cell: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; the level is not stated in the cell. */
 function numberWithInterval(
@@ -998,7 +1009,7 @@ function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
   return [located(match[1]!, firstAt), located(match[2]!, secondAt)];
 }
 
-const STATISTIC_WITH_DF = /^\s*([-\u2212\u2013]?\s*\d*\.?\d+)\s*[([]\s*(\d{1,6}(?:\.\d+)?)\s*(?:[,;]\s*(\d{1,6}(?:\.\d+)?)\s*)?[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?\s*$/;
+const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
 
 /**
  * A statistic cell that holds the df too: "4.842 (15)" in a column headed

@@ -84,7 +84,7 @@ function looksLikeResults(lines: string[]): boolean {
   let named = false;
   for (const line of lines) {
     numbers += (line.match(/\d*[.,]\d+|\d+/g) ?? []).length;
-    if (!named) named = line.split(/\s*\|\s*|\t| {2,}/).some((cell) => mentionsStatistic(cell.trim())) || line.split(/\s+/).some((word) => mentionsStatistic(word));
+    if (!named) named = line.split(/\||\t| {2,}/).some((cell) => mentionsStatistic(cell.trim())) || line.split(/\s+/).some((word) => mentionsStatistic(word));
   }
   return named && numbers >= MIN_NUMBERS;
 }
