@@ -41,6 +41,14 @@ function statisticOutput(
     p: result.p ? { comparator: result.p.comparator, value: result.p.value.value, text: result.p.value.text } : null,
     notSignificant: result.notSignificant,
     inTable: result.tableRow !== undefined,
+    ...(result.alsoAt
+      ? {
+          alsoAt: result.alsoAt.map((place) => {
+            const { line: alsoLine, column: alsoColumn } = lineOf(place.start);
+            return { page: pageOf(place.start), line: alsoLine, column: alsoColumn, start: place.start, end: place.end };
+          }),
+        }
+      : {}),
     effects: result.effects.map((effect) => ({
       kind: effect.kind,
       comparator: effect.comparator,

@@ -14,7 +14,8 @@ function severityLabel(chalk: ChalkInstance, severity: FindingOutput['severity']
 
 function where(statistic: StatisticOutput): string {
   const page = statistic.location.page === null ? '' : `page ${statistic.location.page}, `;
-  return `${page}line ${statistic.location.line}:${statistic.location.column}`;
+  const also = (statistic.alsoAt ?? []).map((place) => `, also line ${place.line}`).join('');
+  return `${page}line ${statistic.location.line}:${statistic.location.column}${also}`;
 }
 
 function oneLine(text: string): string {

@@ -59,6 +59,10 @@ export const statisticSchema = z.object({
     }),
   ),
   inTable: z.boolean().default(false).describe('True when the result was read from a row of a table, false when from running text.'),
+  alsoAt: z
+    .array(locationSchema)
+    .optional()
+    .describe('Other places the same result is printed (a table row restated in the text with the same numbers): one result, several places.'),
   recomputed: z.object({
     evaluable: z.boolean(),
     reason: z.string().nullable(),

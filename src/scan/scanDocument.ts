@@ -2,7 +2,7 @@ import type { DocumentTable, Region } from '../documents/types.js';
 import { scanText } from './scan.js';
 import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion, type UnreadTable } from './tables/index.js';
 import { readDescriptives } from './descriptives/index.js';
-import type { ReportedResult, ScanOutput } from './types.js';
+import type { ReportedNumber, ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
 export interface ScannableDocument {
@@ -51,6 +51,41 @@ function completeFromRows(results: ReportedResult[], completions: readonly RowCo
   }
 }
 
+/** The same number as printed: value and decimals. */
+function sameNumber(a: ReportedNumber | null, b: ReportedNumber | null): boolean {
+  return a !== null && b !== null && a.value === b.value && a.decimals === b.decimals;
+}
+
+/**
+ * A result of a table row that the text restates with the same statistic,
+ * df and p ("... as Table 2 shows, F(2, 57) = 4.21, p = .020") is one
+ * result: the table's, with the text's place in `alsoAt`. Returns the text
+ * results folded into a table result. Each table result takes at most one
+ * restatement, the first; a restatement that differs in any printed number
+ * is a result of its own (and will be checked on its own).
+ */
+function mergeRestatements(written: readonly ReportedResult[], tabled: readonly ReportedResult[]): Set<ReportedResult> {
+  const folded = new Set<ReportedResult>();
+  for (const row of tabled) {
+    const twin = written.find(
+      (result) =>
+        !folded.has(result) &&
+        result.kind === row.kind &&
+        sameNumber(result.value, row.value) &&
+        result.df.length === row.df.length &&
+        result.df.every((df, index) => sameNumber(df, row.df[index]!)) &&
+        result.p !== null &&
+        row.p !== null &&
+        result.p.comparator === row.p.comparator &&
+        sameNumber(result.p.value, row.p.value),
+    );
+    if (twin === undefined) continue;
+    folded.add(twin);
+    row.alsoAt = [...(row.alsoAt ?? []), { start: twin.start, end: twin.end }];
+  }
+  return folded;
+}
+
 /** A document's scan, with the results tables it could not read in full. */
 export type DocumentScan = ScanOutput & { tablesNotRead: UnreadTable[] };
 
@@ -63,7 +98,8 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
   );
   completeFromRows(written.results, tables.completions);
-  const results: ReportedResult[] = [...written.results, ...tabled]
+  const restated = mergeRestatements(written.results, tabled);
+  const results: ReportedResult[] = [...written.results.filter((result) => !restated.has(result)), ...tabled]
     .filter((result) => !inRegion(result.start, document.regions, 'references'))
     .sort((a, b) => a.start - b.start || a.end - b.end);
   // Group means, SDs and ns (in the text and in descriptive tables), linked to the tests computed from them.

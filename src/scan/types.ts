@@ -129,6 +129,12 @@ export interface ReportedResult {
   /** Set when the result was read from a table row rather than from running text. */
   tableRow?: TableRowOrigin;
   /**
+   * Where else the same result is printed: a table row's result restated in
+   * the text ("F(2, 57) = 4.21, p = .020" in both), reported once with both
+   * places.
+   */
+  alsoAt?: { start: number; end: number }[];
+  /**
    * The group means, SDs and sizes the result was computed from, when the
    * document reports them beside it (same paragraph, or a descriptive table
    * the paragraph refers to) for the groups the test compares.

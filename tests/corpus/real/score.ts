@@ -92,7 +92,9 @@ function sameDf(found: ReportedResult, label: RealLabel): boolean {
 function overlaps(found: ReportedResult, label: RealLabel): boolean {
   const statisticCell = found.tableRow?.cells.statistic;
   if (statisticCell && statisticCell.start === label.valueStart) return true;
-  return found.start < label.end && label.start < found.end;
+  if (found.start < label.end && label.start < found.end) return true;
+  // A table result restated in the text is one result printed in two places.
+  return (found.alsoAt ?? []).some((place) => place.start < label.end && label.start < place.end);
 }
 
 function matches(found: ReportedResult, label: RealLabel): boolean {
@@ -148,7 +150,8 @@ export function scorePassage(passage: RealPassage): PassageScore {
   const outcomes: Outcome[] = passage.results.map((label) => ({ passage, label, found: null, pRight: false, effectsRight: false, failed: false }));
   // Labels in order; each takes the first found result that matches it and is not taken yet.
   outcomes.forEach((outcome) => {
-    const index = checked.findIndex((c, i) => !taken.has(i) && matches(c.result, outcome.label));
+    // A result printed in two places (alsoAt) may answer the label of each place.
+    const index = checked.findIndex((c, i) => (!taken.has(i) || (c.result.alsoAt ?? []).length > 0) && matches(c.result, outcome.label));
     if (index < 0) return;
     taken.add(index);
     const { result, findings } = checked[index]!;

@@ -101,3 +101,20 @@ describe('real table shapes: blocks side by side', () => {
     expect(results.find((result) => result.value?.text === '10.72')!.df.map((df) => df.value)).toEqual([2.67, 58.83]);
   });
 });
+
+describe('a table result restated in the text', () => {
+  it('is one result with both places (tab-06 with its first row restated below it)', () => {
+    const text = `${passage('tab-06')}\nPerceived restoration differed by location, F(2, 180) = 87.41, p < 0.001.\n`;
+    const results = scanDocument(plainTextDocument('tab-06.txt', 'text', text)).results;
+    const restored = results.filter((result) => result.value?.text === '87.41');
+    expect(restored).toHaveLength(1);
+    expect(restored[0]!.tableRow).toBeDefined();
+    expect(restored[0]!.alsoAt).toHaveLength(1);
+    expect(text.slice(restored[0]!.alsoAt![0]!.start, restored[0]!.alsoAt![0]!.end)).toBe('F(2, 180) = 87.41, p < 0.001');
+  });
+
+  it('stays two results when the text prints other numbers', () => {
+    const text = `${passage('tab-06')}\nPerceived restoration differed by location, F(2, 180) = 87.41, p = .04.\n`;
+    expect(scanDocument(plainTextDocument('tab-06.txt', 'text', text)).results.filter((result) => result.value?.text === '87.41')).toHaveLength(2);
+  });
+});
