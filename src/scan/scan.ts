@@ -124,9 +124,9 @@ class ComparatorFinder {
   }
 }
 
-/** Letters a statistic symbol can start with: F t r z Z c C x X H. */
+/** Letters a statistic symbol can start with: F t r R (Rho) z Z c C x X H. */
 function canStartSymbol(code: number): boolean {
-  return code === 70 || code === 116 || code === 114 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72;
+  return code === 70 || code === 116 || code === 114 || code === 82 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72;
 }
 
 /**
@@ -138,7 +138,7 @@ function canStartSymbol(code: number): boolean {
  */
 const HEAD_CHARACTERS: Uint8Array = (() => {
   const table = new Uint8Array(128);
-  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtrzZcChiquaredsSfNnxXHoglGlI') table[character.charCodeAt(0)] = 1;
+  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtrRzZcChiquaredsSfNnxXHoglGlI') table[character.charCodeAt(0)] = 1;
   return table;
 })();
 

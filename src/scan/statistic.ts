@@ -69,6 +69,10 @@ function readSymbol(text: string, position: number): SymbolRead | null {
       return singleLetterSymbol(text, position, code === 70 ? 'F' : 't', true);
     case 114: // r
       return spearmanSymbol(text, position) ?? singleLetterSymbol(text, position, 'r', false);
+    case 82: // R: only "Rho", Spearman's rho at the start of a sentence or cell ("R" alone is a multiple correlation)
+      return text.startsWith('Rho', position) && !isAsciiLetter(text.charCodeAt(position + 3))
+        ? { kind: 'r', symbol: 'rs', end: position + 3, requiresBracketedDf: false }
+        : null;
     case 122: // z
     case 90: // Z
       return singleLetterSymbol(text, position, 'z', false);

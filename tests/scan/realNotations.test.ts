@@ -162,3 +162,12 @@ describe('"not significant" written out, and other damage real pages carry', () 
     expect(onlyResult('t(37.5) =18.55ab').value?.text).toBe('18.55');
   });
 });
+
+describe('Spearman written "Rho"', () => {
+  it('reads "Rho = 0.18, p = 0.008" as Spearman and leaves a multiple R alone', () => {
+    const [rho, ...rest] = scanText('Rho = 0.18, p = 0.008, while R = .45, p = .01 was the model fit.').results;
+    expect(rho!.kind).toBe('r');
+    expect(rho!.symbol).toBe('rs');
+    expect(rest).toEqual([]);
+  });
+});
