@@ -318,15 +318,25 @@ function skipSeparators(text: string, position: number): number {
   let at = position;
   let columnGapUsed = false;
   let lineBreaks = 0;
+  let lastMark = 0;
+  let blankCrossed = false;
   while (at < limit) {
     const code = text.charCodeAt(at);
     if (code === 10) {
-      // A blank line ends the paragraph, and parts of a result do not cross it.
-      if (++lineBreaks === 2) break;
+      // A blank line ends the paragraph, and parts of a result do not cross it,
+      // except once after a comma or semicolon: a table cell broken over two
+      // cells of a copy that puts each cell on its own line ("F1, 24 = 2.26,"
+      // then "P > 0.05") says by its comma that the result goes on.
+      if (++lineBreaks === 2) {
+        if (blankCrossed || (lastMark !== 44 && lastMark !== 59)) break;
+        blankCrossed = true;
+        lineBreaks = 1;
+      }
       // Nor does the end of a table row: a line that ends in the pipe of its last cell.
       if (endsTableRow(text, at)) break;
     } else if (!isSpaceCode(code)) {
       lineBreaks = 0;
+      lastMark = code;
     }
     if ((code === 32 || code === 9) && !columnGapUsed) {
       const runEnd = skipLineSpaces(text, at);

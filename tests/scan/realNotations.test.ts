@@ -171,3 +171,17 @@ describe('Spearman written "Rho"', () => {
     expect(rest).toEqual([]);
   });
 });
+
+describe('a result broken over two cells of a copy with one cell per line', () => {
+  // tests/corpus/real/passages/divd-01.txt: "F1, 24 = 2.26," and "P > 0.05" are one cell printed on two lines.
+  it('takes the p after a blank line when the result ends in a comma', () => {
+    const [result] = scanText('Interaction\n\nF2, 24 = 0.21,\n\nP > 0.05\n\nMale\n').results;
+    expect(result?.p?.comparator).toBe('>');
+    expect(result?.p?.value.text).toBe('0.05');
+  });
+
+  it('does not cross a blank line without the comma, nor two blank lines', () => {
+    expect(scanText('F(2, 24) = 0.21\n\nP > 0.05\n').results[0]?.p).toBeNull();
+    expect(scanText('F(2, 24) = 0.21,\n\n\n\nP > 0.05\n').results[0]?.p ?? null).toBeNull();
+  });
+});

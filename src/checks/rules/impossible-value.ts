@@ -5,8 +5,25 @@ import { describeEffect, describeStatistic } from '../describe.js';
 
 const optionsSchema = z.object({}).strict();
 
+/**
+ * The largest |φ| a chi-square with `df` can carry. φ = √(χ²/N) reaches at
+ * most √(min(r, c) − 1) in an r × c table (Cramér, 1946, Mathematical
+ * Methods of Statistics, §21.9; from memory); over every table with
+ * (r − 1)(c − 1) = df that is the square root of df's largest divisor not
+ * above √df: 1 for a 2 × 2 or 2 × k table. Null when the df are unknown or
+ * not whole (then only a table size would say).
+ */
+export function largestPhi(result: ReportedResult): number | null {
+  if (result.kind !== 'chi2') return 1;
+  const df = result.df[0]?.value;
+  if (result.df.length !== 1 || df === undefined || !Number.isInteger(df) || df < 1) return null;
+  let divisor = 1;
+  for (let a = 1; a * a <= df; a++) if (df % a === 0) divisor = a;
+  return Math.sqrt(divisor);
+}
+
 /** Effect sizes that are proportions of variance lie in [0, 1]; omega squared may dip below 0 but not above 1. */
-function effectOutOfRange(effect: ReportedEffect): string | null {
+function effectOutOfRange(effect: ReportedEffect, result: ReportedResult): string | null {
   const value = effect.value.value;
   switch (effect.kind) {
     case 'partial-eta-squared':
@@ -21,8 +38,12 @@ function effectOutOfRange(effect: ReportedEffect): string | null {
     case 'partial-omega-squared':
       return value > 1 ? 'cannot exceed 1' : null;
     case 'r':
-    case 'phi':
       return Math.abs(value) > 1 ? 'must lie between -1 and 1' : null;
+    case 'phi': {
+      const bound = largestPhi(result);
+      if (bound === null || Math.abs(value) <= bound) return null;
+      return bound === 1 ? 'must lie between -1 and 1' : `cannot exceed ${Number(bound.toFixed(3))} in a table with ${result.df[0]!.text} df`;
+    }
     default:
       return null;
   }
@@ -55,7 +76,7 @@ export const impossibleValue: CheckModule<z.infer<typeof optionsSchema>> = {
     return [
       ...statisticProblems(result).map((problem) => ({ messageId: 'statistic', data: { statistic, problem } })),
       ...result.effects.flatMap((effect) => {
-        const problem = effectOutOfRange(effect);
+        const problem = effectOutOfRange(effect, result);
         return problem ? [{ messageId: 'effect', data: { statistic, effect: describeEffect(effect), problem } }] : [];
       }),
     ];

@@ -193,6 +193,15 @@ def verdict(kind, df, df_text, value, decimals, exponent, comparator, p, ns, eff
                 ok = ehi >= e["value"] - hu - 1e-12 and elo <= e["value"] + hu + 1e-12
             if not ok:
                 reasons.append(f"partial eta squared {e['text']} but F gives [{elo:.4f}, {ehi:.4f}]")
+    if kind == "chi2" and len(df) == 1 and float(df[0]).is_integer():
+        # phi = sqrt(chi2 / N) reaches at most sqrt(min(r, c) - 1) (Cramer 1946,
+        # from memory); over every r x c table with (r - 1)(c - 1) = df that is
+        # the square root of df's largest divisor not above sqrt(df).
+        d = int(df[0])
+        bound = max(a for a in range(1, int(math.isqrt(d)) + 1) if d % a == 0) ** 0.5
+        for e in effects:
+            if e["kind"] == "phi" and abs(e["value"]) - half_unit(e["decimals"], e["exponent"]) > bound + 1e-12:
+                reasons.append(f"phi {e['text']} but a table with df = {d} allows at most {bound:.4g}")
     return not reasons, [lo, hi], reasons
 
 
