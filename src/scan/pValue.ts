@@ -30,8 +30,9 @@ const MAX_OUT_OF_RANGE_P = 10;
  * With `asWritten` (for a p standing among the parts of a result), a value
  * outside [0, 1] is kept, up to MAX_OUT_OF_RANGE_P, instead of being rejected.
  */
-export function readPValue(text: string, position: number, asWritten = false): ReportedP | null {
-  if (!startsWord(text, position)) return null;
+export function readPValue(text: string, position: number, asWritten = false, gluedToValue = false): ReportedP | null {
+  // (A p glued to the statistic's value, "0.41p= 0.53", does not start a word but is still a p.)
+  if (!gluedToValue && !startsWord(text, position)) return null;
   const letter = text.charCodeAt(position);
   if (letter !== 112 && letter !== 80) return null; // p, P
   let at = position + 1;

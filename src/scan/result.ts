@@ -89,7 +89,8 @@ function readTail(text: string, draft: ResultDraft): boolean {
         continue; // still right after the head: a p that follows counts as direct
       }
     }
-    const p = readTailPValue(text, next);
+    // "F1,18 = 0.41p= 0.53": the statistic's value ended only because a p follows glued to it (statistic.ts).
+    const p = readTailPValue(text, next, last === 'head' && next === draft.head.end);
     if (p !== null) {
       // A second p-value belongs to something else.
       if (draft.p !== null) break;
@@ -219,8 +220,8 @@ function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): bool
  * range ("p = 1.20"), and a plural one may be introduced by "all" or "both"
  * ("all ps < .001").
  */
-function readTailPValue(text: string, at: number): ReportedP | null {
-  const p = readPValue(text, at, true);
+function readTailPValue(text: string, at: number, gluedToValue = false): ReportedP | null {
+  const p = readPValue(text, at, true, gluedToValue);
   if (p !== null) return p;
   const quantifier = quantifierLength(text, at);
   if (quantifier === 0) return null;

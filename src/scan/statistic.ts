@@ -373,8 +373,22 @@ function footnoteLettersEnd(text: string, position: number): number {
 
 function endsValue(text: string, position: number): boolean {
   const code = text.charCodeAt(position);
-  if (isAsciiLetter(code) || isAsciiDigit(code) || code === 95) return false;
+  if (isAsciiLetter(code) || isAsciiDigit(code) || code === 95) return gluedPValue(text, position);
   return true;
+}
+
+/**
+ * A p-value glued to the value, where a copy lost the space or line break
+ * between them ("F1,18 = 0.41p= 0.53" from a table cell): a "p" and then,
+ * after at most one space, a comparator.
+ */
+function gluedPValue(text: string, position: number): boolean {
+  const code = text.charCodeAt(position);
+  if (code !== 112 && code !== 80) return false;
+  let at = position + 1;
+  if (text.charCodeAt(at) === 32) at++;
+  const next = text.charCodeAt(at);
+  return next === 61 || next === 60 || next === 62 || next === 0x2264 || next === 0x2265;
 }
 
 /** Whether the head needs a p-value right after it to count as a result (see StatisticHead.needsP). */

@@ -185,3 +185,17 @@ describe('a result broken over two cells of a copy with one cell per line', () =
     expect(scanText('F(2, 24) = 0.21,\n\n\n\nP > 0.05\n').results[0]?.p ?? null).toBeNull();
   });
 });
+
+describe('a p glued to the value', () => {
+  // tests/corpus/real/passages/divf-06.txt: cells "F1,18 = 0.41p= 0.53 ηG2 <0.01", the space before p lost.
+  it('reads "F1,18 = 0.41p= 0.53" with its p', () => {
+    const result = onlyResult('velocity F1,18 = 0.41p= 0.53 ηG2 <0.01');
+    expect(result.value?.text).toBe('0.41');
+    expect(result.p?.value.text).toBe('0.53');
+  });
+
+  it('still takes a value running into other letters for a unit or a label', () => {
+    expect(scanText('the delay was t = 5s, p = .04').results).toEqual([]);
+    expect(scanText('t(20) = 5pm').results).toEqual([]);
+  });
+});
