@@ -23,10 +23,10 @@ import { readPValue } from '../pValue.js';
 /** What a body cell holds, as far as fitting it to a column goes. */
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
-  /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number }
-  /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]". */
-  | { shape: 'number-interval'; value: number }
+  /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean }
+  /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
+  | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two whole numbers with a comma: a df pair "2, 180". */
   | { shape: 'pair'; first: number; second: number }
   | { shape: 'ns' }
@@ -54,7 +54,7 @@ const MARK = /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
-const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+) *(?:,|;|to|\u2013|-) *(?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
+const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
 
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {
@@ -91,7 +91,19 @@ export function shapeOf(cell: string): CellShape {
   const interval = NUMBER_INTERVAL.exec(text);
   if (interval) {
     const outer = readCell(interval[1]!, 'either');
-    if (outer.kind === 'number') return { shape: 'number-interval', value: outer.number.value };
+    const low = readCell(interval[2]!, 'either');
+    const high = readCell(interval[3]!, 'either');
+    if (outer.kind === 'number' && low.kind === 'number' && high.kind === 'number') {
+      const value = outer.number.value;
+      // An estimate lies inside its interval (with room for rounding). Two whole numbers around a value
+      // outside them are its df: "9.34 (2, 98)" under "F (dfM, dfR)".
+      const slack = 10 ** -Math.max(outer.number.decimals, low.number.decimals, high.number.decimals);
+      const inside = value >= Math.min(low.number.value, high.number.value) - slack && value <= Math.max(low.number.value, high.number.value) + slack;
+      const wholePair = /^\d+$/.test(low.number.text) && /^\d+(?:\.\d+)?$/.test(high.number.text) && /\d\s*[,;]\s*\d/.test(text);
+      if (inside) return wholePair ? { shape: 'number-interval', value, wholePair } : { shape: 'number-interval', value };
+      if (wholePair) return { shape: 'number-bracket', value, inner: low.number.value, innerDecimals: 0, innerPair: true };
+      return { shape: 'numeric' };
+    }
   }
   if (NUMERIC.test(text)) return { shape: 'numeric' };
   return { shape: 'text' };
@@ -127,12 +139,13 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'range' || cell.shape === 'numeric') return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
   switch (role.role) {
     case 'statistic': {
-      if (cell.shape === 'ns' || cell.shape === 'pair' || cell.shape === 'number-interval') return -3;
+      if (cell.shape === 'number-interval') return cell.wholePair === true && role.dfInCell === true && role.kind === 'F' ? 3 : -3;
+      if (cell.shape === 'ns' || cell.shape === 'pair') return -3;
       // A bracketed number in a statistic column is its df only where the header says so ("t (df)").
       // Whole-number df only: "62.3 (9.64)" beside "1.48 (29)" is a mean and SD.
-      if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 ? 3 : -3;
+      if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && (cell.innerPair === true) === (role.kind === 'F') ? 3 : -3;
       // Under "t (df)" the cells carry their df; a bare number there is weak evidence.
-      if (role.dfInCell === true) return 0.5;
+      if (role.dfInCell === true) return (role.kind === 'F' || role.kind === 'chi2') && cell.value < 0 ? -4 : 0.5;
       if (role.kind === 'F' || role.kind === 'chi2') return cell.value >= 0 ? 2 : -4;
       if (role.kind === 'r') return Math.abs(cell.value) <= 1 ? 2 : -4;
       return 2;
@@ -309,7 +322,7 @@ export function isValueRole(role: ColumnRole): boolean {
  * stand over; a shift that puts the statistic's header over anything but
  * numbers scores badly. Returns 0 when no shift fits better.
  */
-export function bestHeaderShift(headerRoles: (ColumnRole | null)[], bodyShapes: CellShape[][], width: number): number {
+export function bestHeaderShift(headerRoles: (ColumnRole | null)[], bodyShapes: CellShape[][], width: number, claimed: ReadonlySet<number> = new Set()): number {
   let bestShift = 0;
   let bestScore = -Infinity;
   const known = headerRoles.map((role, index) => ({ role, index })).filter((entry) => entry.role !== null && entry.role.role !== 'unknown');
@@ -324,6 +337,11 @@ export function bestHeaderShift(headerRoles: (ColumnRole | null)[], bodyShapes: 
       }
       if (role!.role === 'label') {
         total += column === 0 ? 0.5 : 0;
+        continue;
+      }
+      // A column an upper header row names (placeHeaderCells).
+      if (claimed.has(column)) {
+        total -= 3;
         continue;
       }
       let columnScore = 0;
@@ -344,4 +362,80 @@ export function bestHeaderShift(headerRoles: (ColumnRole | null)[], bodyShapes: 
     }
   }
   return bestShift;
+}
+
+/** Body rows looked at to place a header: enough to judge a column, few enough to stay cheap on huge tables. */
+const HEADER_SAMPLE_ROWS = 200;
+/** How much better a placement with gaps must fit than the best single shift to be taken. */
+const SPREAD_MARGIN = 1;
+
+/**
+ * Where each header cell goes, as a column per cell (-1: nowhere). Usually
+ * the best single shift (bestHeaderShift). But a header copied from markup
+ * loses its spanning cells' widths: "F (dfM, dfR) | p | η² | T0–1 | T0–2 |
+ * F (dfM, dfR) | p | η²" over a body where T0–1 and T0–2 each span two
+ * columns (d and its CI). Then the header cells are spread over the columns
+ * in order, with gaps, by a dynamic programme that maximises the same fit;
+ * the spread is taken only when it fits clearly better than any shift
+ * (SPREAD_MARGIN), so a header that a shift explains keeps that reading.
+ */
+export function placeHeaderCells(headerRoles: (ColumnRole | null)[], bodyShapes: CellShape[][], width: number, claimed: ReadonlySet<number> = new Set()): number[] {
+  const shift = bestHeaderShift(headerRoles, bodyShapes, width, claimed);
+  const shifted = headerRoles.map((_, index) => index + shift);
+  const count = headerRoles.length;
+  if (count === 0 || count >= width) return shifted;
+  const sample = bodyShapes.slice(0, HEADER_SAMPLE_ROWS);
+  const scoreCache = new Map<string, number>();
+  const score = (index: number, column: number): number => {
+    const role = headerRoles[index];
+    if (role === null || role === undefined || role.role === 'unknown') return 0;
+    if (role.role === 'label') return column === 0 ? 0.5 : 0;
+    if (claimed.has(column)) return -3;
+    const key = `${index}:${column}`;
+    const cached = scoreCache.get(key);
+    if (cached !== undefined) return cached;
+    let total = 0;
+    let counted = 0;
+    for (const row of sample) {
+      const shape = row[column];
+      if (shape === undefined || shape.shape === 'empty') continue;
+      const f = fit(role, shape);
+      total += f <= NEVER / 2 ? -3 : Math.max(-3, f);
+      counted++;
+    }
+    const value = counted === 0 ? -0.5 : total / counted;
+    scoreCache.set(key, value);
+    return value;
+  };
+  const shiftedScore = shifted.reduce((sum, column, index) => sum + (column >= 0 && column < width ? score(index, column) : -3), 0);
+  // best[i][j]: the best score of header cells 0..i with cell i over column j (columns strictly increase).
+  const best: number[][] = [];
+  const from: number[][] = [];
+  for (let index = 0; index < count; index++) {
+    best.push(new Array<number>(width).fill(-Infinity));
+    from.push(new Array<number>(width).fill(-1));
+    for (let column = index; column < width - (count - 1 - index); column++) {
+      const own = score(index, column);
+      if (index === 0) {
+        best[0]![column] = own - 0.01 * column;
+        continue;
+      }
+      for (let previous = index - 1; previous < column; previous++) {
+        const candidate = best[index - 1]![previous]! + own - 0.01 * (column - previous - 1);
+        if (candidate > best[index]![column]!) {
+          best[index]![column] = candidate;
+          from[index]![column] = previous;
+        }
+      }
+    }
+  }
+  let end = -1;
+  for (let column = 0; column < width; column++) if (end < 0 || best[count - 1]![column]! > best[count - 1]![end]!) end = column;
+  if (end < 0 || !(best[count - 1]![end]! > shiftedScore + SPREAD_MARGIN)) return shifted;
+  const spread = new Array<number>(count).fill(-1);
+  for (let index = count - 1, column = end; index >= 0; index--) {
+    spread[index] = column;
+    column = from[index]![column]!;
+  }
+  return spread;
 }

@@ -203,6 +203,13 @@ const HEADER_WITH_DF = /^(f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:
 const HEADER_WITH_SUBSCRIPT_DF = /^f\s?(\d{1,3})\s?,\s?(\d{1,5})$/;
 
 /**
+ * Names of df in brackets at the end of a statistic's header, saying its
+ * cells hold their df: "t (df)", "F (dfM, dfR)", "F(df1, df2)", "χ2 (gl)",
+ * "F (df effect, df error)".
+ */
+const DF_NAMES_IN_BRACKETS = / ?\((?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8}(?:[,;/] ?(?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8})?\)$/;
+
+/**
  * The key without what real headers add to a known name: a footnote letter
  * glued on ("Cohen db", "P valueb", "F testc"), or "(df)" after a statistic
  * whose cells hold their df in brackets ("t value (df)": "4.842 (15)").
@@ -211,7 +218,7 @@ function knownKeyOf(key: string): string | null {
   const bare = key.replace(/[.:]$/, '');
   if (ROLE_BY_KEY.has(key)) return key;
   if (ROLE_BY_KEY.has(bare)) return bare;
-  const withoutDf = bare.replace(/ ?\((?:df|d\.f\.|gl|ddl)\)$/, '');
+  const withoutDf = bare.replace(DF_NAMES_IN_BRACKETS, '');
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
   const withoutMark = bare.replace(/(?<=[a-z0-9)\]])[a-h]$/, '');
   if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
@@ -244,7 +251,7 @@ export function classifyHeader(header: string): ColumnRole {
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) {
     if (known.role !== 'statistic') return known;
-    const dfInCell = /\((?:df|d\.f\.|gl|ddl)\)\s*[.:]?$/.test(key);
+    const dfInCell = DF_NAMES_IN_BRACKETS.test(key.replace(/\s*[.:]$/, ''));
     return dfInCell ? { ...known, df: [], dfInCell } : { ...known, df: [] };
   }
   const withDf = HEADER_WITH_DF.exec(key);

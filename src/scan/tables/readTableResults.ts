@@ -42,7 +42,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
-import { bestHeaderShift, fit, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
+import { placeHeaderCells, fit, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -469,24 +469,43 @@ const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line']);
  * whose label column has no header, a spanning cell that pushes the names
  * after it to the left).
  */
-function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout']): Schema {
+export function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout']): Schema {
   const positional = !UNPLACED_LAYOUTS.has(layout ?? '');
   const body = rows.slice(headerCount);
-  const bodyShapes = body.map((row) => row.map(shapeOf));
   const headerRows = rows.slice(0, headerCount).map(trimTrailingEmpty);
-  const width = positional
-    ? Math.max(typicalWidth(body), ...headerRows.map((row) => row.length))
-    : Math.max(...headerRows.map((row) => row.length));
+  const bodyWidth = typicalWidth(body);
+  const width = positional ? Math.max(bodyWidth, ...headerRows.map((row) => row.length)) : Math.max(...headerRows.map((row) => row.length));
+  // Where columns are, only the full rows say: a row under a cell spanning several rows lost that cell
+  // in the copy, and its cells stand one or more places to the left.
+  const fullRows = positional ? body.filter((row) => trimTrailingEmpty(row).length >= bodyWidth) : [];
+  const bodyShapes = (fullRows.length >= 2 ? fullRows : body).map((row) => row.map(shapeOf));
   const roles: ColumnRole[] = new Array<ColumnRole>(width).fill({ role: 'unknown' });
   roles[0] = { role: 'label' };
   const assigned = new Array<boolean>(width).fill(false);
   const headerTexts: string[][] = headerRows.map(() => new Array<string>(width).fill(''));
+  const levelRoles = headerRows.map((headerRow) =>
+    headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : classifyHeader(cell))),
+  );
+  // A column name in an upper header row whose cells fit it is a name spanning the rows below (a copy
+  // keeps no row spans): the rows below name the columns under that row's titles, not that one.
+  const claimedAbove: Set<number>[] = headerRows.map(() => new Set<number>());
+  if (positional) {
+    for (let level = 0; level < headerRows.length - 1; level++) {
+      const placement = placeHeaderCells(levelRoles[level]!, bodyShapes, width, claimedAbove[level]!);
+      const claimed = new Set(claimedAbove[level]);
+      levelRoles[level]!.forEach((role, index) => {
+        const column = placement[index]!;
+        if (role && role.role !== 'unknown' && role.role !== 'label' && role.role !== 'result' && column > 0 && column < width && columnFit(role, bodyShapes, column) > 0) claimed.add(column);
+      });
+      claimedAbove[level + 1] = claimed;
+    }
+  }
   for (let level = headerRows.length - 1; level >= 0; level--) {
     const headerRow = headerRows[level]!;
-    const headerRoles = headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : classifyHeader(cell)));
-    const shift = positional ? bestHeaderShift(headerRoles, bodyShapes, width) : 0;
+    const headerRoles = levelRoles[level]!;
+    const placement = positional ? placeHeaderCells(headerRoles, bodyShapes, width, claimedAbove[level]!) : headerRow.map((_, index) => index);
     headerRow.forEach((cell, index) => {
-      let column = index + shift;
+      let column = placement[index]!;
       if (column < 0 || column >= width) return;
       const role = headerRoles[index];
       // A name over a column whose cells cannot be of its kind, with an unnamed column after it that fits,
@@ -556,14 +575,27 @@ function trimTrailingEmpty(row: string[]): string[] {
   return row.slice(0, end);
 }
 
-/** The number of cells most body rows have (trailing empty cells left out). */
+/**
+ * The number of cells the full body rows have (trailing empty cells left
+ * out): the widest row width that at least a fifth of the rows (and two)
+ * share, else the most common one. Not simply the most common: rows under a
+ * cell spanning several rows lose that cell in a copy ("MBI | − 0.48 | ..."
+ * under "TICS-SSCS | HRV-Bfb | 9.34 (2, 98) | ..."), and may outnumber the
+ * full rows; a lone wider row is two rows run together or a stray note.
+ */
 function typicalWidth(body: string[][]): number {
   const counts = new Map<number, number>();
+  let rowsCounted = 0;
   for (const row of body) {
     const width = trimTrailingEmpty(row).length;
     if (width < 2) continue;
     counts.set(width, (counts.get(width) ?? 0) + 1);
+    rowsCounted++;
   }
+  const shared = Math.max(2, Math.ceil(rowsCounted / 5));
+  let widest = 0;
+  for (const [width, count] of counts) if (count >= shared && width > widest) widest = width;
+  if (widest > 0) return widest;
   let best = 0;
   let bestCount = 0;
   for (const [width, count] of counts) if (count > bestCount || (count === bestCount && width > best)) [best, bestCount] = [width, count];
@@ -690,6 +722,10 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
   roles.forEach((role, column) => {
     const key = roleKey(role, kind);
     if (key === null) return;
+    // An effect size under a group title of its own ("T0–1" over "d | CI"), after a statistic whose column has
+    // no such title, belongs to that group (a within-group d), not to the test.
+    const statisticColumn = current.columns.get('statistic');
+    if (key.startsWith('effect:') && statisticColumn !== undefined && isGroupTitle(upperHeaders[column]) && upperHeaders[column] !== upperHeaders[statisticColumn]) return;
     if (current.columns.has(key) && current.columns.has('statistic')) {
       segments.push(current);
       current = { columns: new Map(), title: null, headerDf: [], dfInCell: false };
@@ -711,6 +747,11 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
     }
   }
   return withStatistic;
+}
+
+/** A title over columns that names a group of them, not a column itself ("T0–1", "Recall"; not "F (dfM, dfR)"). */
+function isGroupTitle(title: string | null | undefined): boolean {
+  return title !== null && title !== undefined && classifyHeader(title).role === 'unknown';
 }
 
 /**

@@ -118,3 +118,16 @@ describe('a table result restated in the text', () => {
     expect(scanDocument(plainTextDocument('tab-06.txt', 'text', text)).results.filter((result) => result.value?.text === '87.41')).toHaveLength(2);
   });
 });
+
+describe('real table shapes: headers whose spanning cells lost their widths in the copy', () => {
+  // divf-01: "F (dfM, dfR) | p | η² | T0–1 | T0–2 | F (dfM, dfR) | p | η²" over rows whose T0–1 and T0–2
+  // each hold two cells (d and its CI), and group rows that lost the two cells spanning them.
+  it('spreads the header over the columns, reads "9.34 (2, 98)" under "F (dfM, dfR)", and leaves the within-group d alone', () => {
+    const tabled = scan('divf-01').results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(12);
+    expect(summary(tabled[0]!)).toBe('F(2, 98) = 9.34 p < 0.001');
+    expect(summary(tabled[1]!)).toBe('F(4, 98) = 0.57 p = 0.687');
+    expect(tabled[1]!.effects.map((effect) => [effect.kind, effect.value.text])).toEqual([['eta-squared', '0.02']]);
+    expect(summary(tabled[8]!)).toBe('F(1.48, 72.71) = 1.19 p = 0.3');
+  });
+});
