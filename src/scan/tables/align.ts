@@ -24,7 +24,7 @@ import { readPValue } from '../pValue.js';
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean }
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two whole numbers with a comma: a df pair "2, 180". */
@@ -49,8 +49,8 @@ export type CellShape =
 
 /** Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its point). */
 const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
-const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
-const MARK = /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
+const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*(<=|>=|<|>|\u2264|\u2265)?\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
@@ -72,9 +72,10 @@ export function shapeOf(cell: string): CellShape {
   const bracket = NUMBER_BRACKET.exec(text);
   if (bracket) {
     const outer = readCell(bracket[1]!, 'either');
-    const inner = readCell(bracket[2]!, 'either');
+    const inner = readCell(bracket[3]!, 'either');
     if (outer.kind === 'number' && inner.kind === 'number') {
-      return { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
+      const shape: CellShape = { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
+      return bracket[2] === undefined ? shape : { ...shape, innerComparator: bracket[2] };
     }
   }
   const withP = STATISTIC_WITH_P.exec(normaliseText(text).text);
@@ -143,7 +144,9 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       if (cell.shape === 'ns' || cell.shape === 'pair') return -3;
       // A bracketed number in a statistic column is its df only where the header says so ("t (df)").
       // Whole-number df only: "62.3 (9.64)" beside "1.48 (29)" is a mean and SD.
-      if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && (cell.innerPair === true) === (role.kind === 'F') ? 3 : -3;
+      // Under "r (p value)" the bracket holds the p: "−0.06 (.60)", "−0.50 (<.001)".
+      if (cell.shape === 'number-bracket' && role.pInCell === true) return cell.inner >= 0 && cell.inner <= 1 && cell.innerPair !== true ? 3 : -3;
+      if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && (cell.innerPair === true) === (role.kind === 'F') ? 3 : -3;
       // Under "t (df)" the cells carry their df; a bare number there is weak evidence.
       if (role.dfInCell === true) return (role.kind === 'F' || role.kind === 'chi2') && cell.value < 0 ? -4 : 0.5;
       if (role.kind === 'F' || role.kind === 'chi2') return cell.value >= 0 ? 2 : -4;

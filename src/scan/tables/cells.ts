@@ -38,7 +38,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]{1,3})?$/;
+  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]{1,3})?$/;
 
 /**
  * How a table writes its decimals: '.' ("4.21", thousands "1,234.5") or ','
@@ -264,8 +264,20 @@ export function classifyHeader(header: string): ColumnRole {
   }
   const subscript = HEADER_WITH_SUBSCRIPT_DF.exec(key);
   if (subscript) return { role: 'statistic', kind: 'F', df: [parseReportedNumber(subscript[1]!)!, parseReportedNumber(subscript[2]!)!] };
+  const qualified = QUALIFIED_STATISTIC.exec(key);
+  // "Benefits r", "Pre-test t", "Time (F)": a statistic's symbol after the name of what it tests. F only as a
+  // capital, since a lower-case f after a word is a frequency.
+  // A capital R is a multiple correlation; a partial one has other df.
+  const rSpoilt = qualified?.[1] === 'r' && (/R\)?\s*[.:]?$/.test(header) || /(?:^|[ -])(?:partial|part|semi|multiple|model|adjusted|canonical)(?:[ -]|$)/.test(key));
+  if (qualified && !rSpoilt && (qualified[1] !== 'f' || /F\)?\s*[.:]?$/.test(header))) {
+    const kind: StatisticKind = qualified[1] === 'f' ? 'F' : qualified[1] === 't' ? 't' : qualified[1] === 'r' ? 'r' : 'chi2';
+    return { role: 'statistic', kind, df: [] };
+  }
   return { role: 'unknown' };
 }
+
+/** A symbol after one to three words naming what it tests: "benefits r", "time (f)", "pre-test t". */
+const QUALIFIED_STATISTIC = /^[a-z][a-z0-9'\u2019-]*(?: [a-z0-9'\u2019-]+){0,2} \(?(r|t|f|chi2|x2)\)?[.:]?$/;
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
@@ -288,7 +300,8 @@ export function couldStartHeader(word: string): boolean {
     for (const word of ['eta', 'etap', 'etag', 'partial', 'omega', 'omegap', 'chi', 'x']) firstWords.add(word);
   }
   const key = word.toLowerCase().replace(/[.:,;]$/, '');
-  return firstWords.has(key) || HEADER_WITH_DF.test(key) || /^[a-z]{1,3}\(/.test(key);
+  // A token may carry its bracket ("r (P value)", "F (1, 20)"): its first word decides.
+  return firstWords.has(key) || firstWords.has(key.split(' ')[0]!) || HEADER_WITH_DF.test(key) || /^[a-z]{1,3}\(/.test(key);
 }
 
 /** Longest header phrase, in words, in the vocabulary. */

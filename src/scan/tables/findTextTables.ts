@@ -72,7 +72,8 @@ export function findTextTables(text: string): DocumentTable[] {
       continue;
     }
     const { rows, last, layout, cells } = found;
-    const title = readTitle(lines, index);
+    // Lines between a bare title and a recognised header are the title's; without a header they may be an unread one.
+    const title = readTitle(lines, index, found.headed !== false);
     const notes = readNotes(lines, last + 1);
     const startLine = title?.firstLine ?? index;
     const endLine = notes.lastLine ?? last;
@@ -134,6 +135,8 @@ interface FoundRows {
   layout: TableLayout;
   /** Each cell's offsets, when the finder knows them. */
   cells?: (CellSpan | null)[][];
+  /** False when no header line was found (rows under a title only). */
+  headed?: boolean;
 }
 
 function readPipeTable(lines: Line[], first: number): FoundRows | null {
@@ -285,7 +288,7 @@ function isValueToken(text: string): boolean {
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
 function isMarkToken(text: string): boolean {
-  return /^(?:[*\u2020\u2021\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h])$/.test(text);
+  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h])$/.test(text);
 }
 
 /**
@@ -399,7 +402,10 @@ function readHeader(line: Line): HeaderLine | null {
     named++;
   }
   if (unknown === 0) return named >= 2 ? { columns, aligned: false, tabbed: false } : null;
-  return namesTest && named >= 3 && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
+  // Block titles between names ("SF-12 Physical ... r (P value) SF-12 Mental ... r (P value)"): two statistic
+  // names with their titles are a header too.
+  const statisticNames = columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;
+  return namesTest && (named >= 3 || statisticNames >= 2) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
 }
 
 /**
@@ -540,7 +546,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     break;
   }
   if (dataRows === 0) return null;
-  return placeRows(rows, header, last);
+  return { ...placeRows(rows, header, last), headed: header !== null };
 }
 
 /**
@@ -636,21 +642,30 @@ function placeByPosition(values: Piece[], columns: Piece[]): number[] | null {
 // ------------------------------------------------------------ titles, notes
 
 /** The "Table 2 ..." line(s) right before the line `first`, allowing one blank line. */
-function readTitle(lines: Line[], first: number): { caption: string; firstLine: number } | null {
+function readTitle(lines: Line[], first: number, linesBetween = false): { caption: string; firstLine: number } | null {
   let index = first - 1;
   if (isBlank(lines[index]) && index >= 0) index--;
   const line = lines[index];
   if (line === undefined || index < 0) return null;
   if (TITLE.test(line.text) && line.text.length <= 300) return { caption: line.text.trim(), firstLine: index };
-  // APA layout: "Table 2" on its own line, the title on the next.
+  // APA layout: "Table 2" on its own line, the title on the next; a web page's copy may add a line over
+  // the columns ("Measure Pearson Correlation") between the title and the header.
+  const between: string[] = [line.text.trim()];
   let above = index - 1;
-  if (isBlank(lines[above]) && above >= 0) above--;
-  const bare = lines[above];
-  if (bare !== undefined && above >= 0 && BARE_TITLE.test(bare.text) && line.text.trim().length <= 200) {
-    return { caption: `${bare.text.trim()} ${line.text.trim()}`, firstLine: above };
+  for (let extra = 0; extra <= (linesBetween ? MAX_LINES_UNDER_TITLE - 1 : 0); extra++) {
+    if (isBlank(lines[above]) && above >= 0) above--;
+    const candidate = lines[above];
+    if (candidate === undefined || above < 0 || isBlank(candidate)) return null;
+    if (BARE_TITLE.test(candidate.text) && between.join(' ').length <= 300) return { caption: `${candidate.text.trim()} ${between.join(' ')}`, firstLine: above };
+    if (candidate.text.trim().length > 300 || TITLE.test(candidate.text) || readRowLine(candidate, true) !== null) return null;
+    between.unshift(candidate.text.trim());
+    above--;
   }
   return null;
 }
+
+/** Lines that may stand between a bare "Table 2" and the table: its title, and a line over the columns. */
+const MAX_LINES_UNDER_TITLE = 2;
 
 /** Note lines right after the table (one blank line allowed), each with up to three wrapped continuation lines. */
 function readNotes(lines: Line[], first: number): { notes: string[]; lastLine: number | null } {

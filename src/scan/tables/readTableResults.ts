@@ -54,6 +54,8 @@ interface Segment {
   columns: Map<RoleKey, number>;
   /** The statistic's header says its cells hold their df in brackets. */
   dfInCell: boolean;
+  /** The statistic's header says its cells hold their p in brackets ("r (P value)": "−0.06 (.60)"). */
+  pInCell?: boolean;
   /** Title over the statistic column in a spanning header row ("Recall"), when the table tests several outcomes. */
   title: string | null;
   /** df printed in the statistic's header: "F(1, 170)", or in the title spanning the block ("Treatment (num. df = 1)"). */
@@ -184,7 +186,8 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
 function readTableRows(text: string, table: DocumentTable, tableIndex: number): TableReading {
   const nothing: TableReading = { results: [], unread: null, completions: [] };
   const rows = table.rows;
-  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
+  // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)").
+  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || shapeOf(cell).shape === 'number-bracket'));
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
@@ -734,6 +737,7 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
     if (key === 'statistic' && role.role === 'statistic') {
       current.headerDf = role.df;
       current.dfInCell = role.dfInCell === true;
+      current.pInCell = role.pInCell === true;
       current.title = upperHeaders[column] ?? null;
     }
   });
@@ -881,7 +885,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
   const withDf = statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
   // "0.11, p > 0.05": the statistic with its p.
-  const withP = withDf === null ? statisticWithP(row, cellsAt, columns.get('statistic')) : null;
+  const withP = withDf === null ? (statisticWithP(row, cellsAt, columns.get('statistic')) ?? (segment.pInCell ? statisticWithBracketP(row, cellsAt, columns.get('statistic'), input.separator) : null)) : null;
   const statistic = withDf?.statistic ?? withP?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
@@ -1030,6 +1034,33 @@ function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, c
   const comparator = (comparatorText === '<=' ? '<=' : comparatorText === '>=' ? '>=' : comparatorText) as Comparator;
   const p = located(match[3]!, normalised.text.indexOf(comparatorText), comparator);
   return statistic === null || p === null ? null : { statistic, p };
+}
+
+/** "−0.06 (.60)", "−0.50 (<.001)": a statistic with its p in brackets. Groups: value, comparator, p. */
+const STATISTIC_BRACKET_P = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:[.,]\d+)?|[.,]\d+)) *[([] *(<=|>=|<|>|=|\u2264|\u2265)? *((?:0|1)?[.,]\d+|0|1) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
+
+/** A statistic cell under a header that says it holds the p in brackets ("r (P value)"), with the offsets of both numbers. */
+function statisticWithBracketP(
+  row: string[],
+  cellsAt: (LocatedCell | null)[] | null,
+  column: number | undefined,
+  separator: DecimalSeparator,
+): { statistic: NumberCell; p: NumberCell } | null {
+  if (column === undefined) return null;
+  const cell = row[column] ?? '';
+  const match = STATISTIC_BRACKET_P.exec(cell);
+  if (!match) return null;
+  const at = cellsAt?.[column] ?? null;
+  const valueRead = readCell(match[1]!, separator);
+  const pRead = readCell(match[3]!, separator);
+  if (valueRead.kind !== 'number' || pRead.kind !== 'number') return null;
+  const valueAt = cell.indexOf(match[1]!);
+  const pAt = cell.indexOf(match[3]!, valueAt + match[1]!.length);
+  const comparatorText = match[2] === '\u2264' ? '<=' : match[2] === '\u2265' ? '>=' : (match[2] ?? '=');
+  return {
+    statistic: { comparator: '=', record: { ...valueRead.number, start: at === null ? -1 : at.start + valueAt + valueRead.start, end: at === null ? -1 : at.start + valueAt + valueRead.end } },
+    p: { comparator: comparatorText as Comparator, record: { ...pRead.number, start: at === null ? -1 : at.start + pAt + pRead.start, end: at === null ? -1 : at.start + pAt + pRead.end } },
+  };
 }
 
 const PAIR_CELL = /^\s*(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)\s*$/;

@@ -131,3 +131,27 @@ describe('real table shapes: headers whose spanning cells lost their widths in t
     expect(summary(tabled[8]!)).toBe('F(1.48, 72.71) = 1.19 p = 0.3');
   });
 });
+
+describe('real table shapes: correlation tables', () => {
+  it('reads "Benefits r" and "Barriers r" columns with df from the N column, stars left as stars (divf-02)', () => {
+    const tabled = scan('divf-02').results.filter((result) => result.tableRow);
+    const depression = tabled.filter((result) => result.tableRow!.rowLabel.startsWith('DASS-Depression'));
+    expect(depression.map(summary)).toEqual(['r(464) = 0.03', 'r(464) = 0.725']);
+    expect(tabled.every((result) => result.kind === 'r')).toBe(true);
+  });
+
+  it('reads crushed "r (P value)" blocks, "−0.50 (<.001)", with N from a caption three lines up (divf-03)', () => {
+    const tabled = scan('divf-03').results.filter((result) => result.tableRow);
+    expect(tabled.slice(0, 2).map(summary)).toEqual(['r(73) = -0.06 p = .60', 'r(73) = -0.50 p < .001']);
+  });
+});
+
+describe('a header named "Model R" or "Partial r" is not a Pearson r column', () => {
+  it('leaves both alone', async () => {
+    const { classifyHeader } = await import('../../../src/scan/tables/cells.js');
+    expect(classifyHeader('Model R').role).toBe('unknown');
+    expect(classifyHeader('Partial r').role).toBe('unknown');
+    expect(classifyHeader('Benefits r')).toMatchObject({ role: 'statistic', kind: 'r' });
+    expect(classifyHeader('Sex f').role).toBe('unknown');
+  });
+});
