@@ -49,7 +49,7 @@ export type CellShape =
 
 /** Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its point). */
 const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
-const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*[([]\s*(<=|>=|<|>|\u2264|\u2265)?\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([]\s*(<=|>=|<|>|\u2264|\u2265)?\s*([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
@@ -161,6 +161,8 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       return dfFit(cell);
     case 'p':
       if (cell.shape === 'ns') return 2.5;
+      // "0.048* (0.51)" under "p (d)": the p with an effect size in brackets.
+      if (cell.shape === 'number-bracket') return cell.value >= 0 && cell.value <= 1 && cell.innerComparator === undefined ? 1 : -3;
       if (cell.shape !== 'number') return -3;
       if (cell.value < 0 || cell.value > 1) return -5;
       return cell.comparator !== '=' ? 2.5 : cell.decimals >= 2 ? 2 : 1;
@@ -190,6 +192,27 @@ function dfFit(cell: CellShape): number {
   return cell.decimals === 0 ? 2 : 1;
 }
 
+/**
+ * The form a column's values take: plain numbers, or numbers with a bracket
+ * ("0.048* (0.51)", "4.842 (15)", "0.31 [0.12, 0.50]").
+ */
+export type ShapeFamily = 'plain' | 'bracketed';
+
+export function familyOf(shape: CellShape): ShapeFamily | null {
+  if (shape.shape === 'number') return 'plain';
+  if (shape.shape === 'number-bracket' || shape.shape === 'number-interval') return 'bracketed';
+  return null;
+}
+
+/** What a cell of the other family costs in a column whose full rows all hold one family (a column's cells share a form). */
+const OTHER_FAMILY_COST = 3;
+
+function familyFit(family: ShapeFamily | null, shape: CellShape): number {
+  if (family === null) return 0;
+  const own = familyOf(shape);
+  return own !== null && own !== family ? -OTHER_FAMILY_COST : 0;
+}
+
 /** A cell to place, as written, with its shape. */
 export interface CellToPlace {
   text: string;
@@ -205,7 +228,7 @@ export interface CellToPlace {
  * Returns, for each cell, its column index in `roles` (or -1: dropped or
  * absorbed), or null when the cells cannot be placed sensibly.
  */
-export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns: number[]; absorbed: number } | null {
+export function placeCells(cells: CellToPlace[], roles: ColumnRole[], families?: readonly (ShapeFamily | null)[]): { columns: number[]; absorbed: number } | null {
   const n = cells.length;
   const m = roles.length;
   if (m === 0) return null;
@@ -214,7 +237,7 @@ export function placeCells(cells: CellToPlace[], roles: ColumnRole[]): { columns
   const maxAbsorbed = cells.filter((cell) => cell.shape.shape !== 'mark' && cell.shape.shape !== 'empty').length;
   let best: { score: number; columns: number[]; absorbed: number } | null = null;
   for (let absorbed = 0; absorbed <= Math.min(maxAbsorbed, n); absorbed++) {
-    const placed = placeFrom(cells.slice(absorbed), roles);
+    const placed = placeFrom(cells.slice(absorbed), roles, undefined, families);
     if (placed === null) continue;
     const score = placed.score - 0.5 * absorbed;
     if (best === null || score > best.score + 1e-9) best = { score, columns: [...new Array<number>(absorbed).fill(-1), ...placed.columns], absorbed };
@@ -237,21 +260,32 @@ const CLEAR_MARGIN = 0.75;
  * F, p is clear (57 is the only whole number); "2.10 .04" under F, p,
  * partial eta squared is not (.04 fits p and partial eta squared alike).
  */
-export function placementIsClear(cells: CellToPlace[], roles: ColumnRole[], placed: { columns: number[]; absorbed: number }, keyColumns: number[]): boolean {
+export function placementIsClear(
+  cells: CellToPlace[],
+  roles: ColumnRole[],
+  placed: { columns: number[]; absorbed: number },
+  keyColumns: number[],
+  families?: readonly (ShapeFamily | null)[],
+): boolean {
   const rest = cells.slice(placed.absorbed);
-  const best = placeFrom(rest, roles);
+  const best = placeFrom(rest, roles, undefined, families);
   if (best === null) return false;
   for (const column of keyColumns) {
     const cellIndex = placed.columns.indexOf(column);
     if (cellIndex < placed.absorbed) continue;
-    const alternative = placeFrom(rest, roles, { cell: cellIndex - placed.absorbed, column });
+    const alternative = placeFrom(rest, roles, { cell: cellIndex - placed.absorbed, column }, families);
     if (alternative !== null && alternative.score > best.score - CLEAR_MARGIN) return false;
   }
   return true;
 }
 
 /** Order-keeping assignment by dynamic programming over (cell, column); `forbidden` keeps one cell out of one column. */
-function placeFrom(cells: CellToPlace[], roles: ColumnRole[], forbidden?: { cell: number; column: number }): { score: number; columns: number[] } | null {
+function placeFrom(
+  cells: CellToPlace[],
+  roles: ColumnRole[],
+  forbidden?: { cell: number; column: number },
+  families?: readonly (ShapeFamily | null)[],
+): { score: number; columns: number[] } | null {
   const n = cells.length;
   const m = roles.length;
   // score[i][j]: best score placing cells[0..i) using columns [0..j); choice records the step taken.
@@ -271,7 +305,7 @@ function placeFrom(cells: CellToPlace[], roles: ColumnRole[], forbidden?: { cell
           bestHere = skip;
           how = 0;
         }
-        const f = forbidden !== undefined && forbidden.cell === i - 1 && forbidden.column === j - 1 ? NEVER : fit(roles[j - 1]!, cell.shape);
+        const f = forbidden !== undefined && forbidden.cell === i - 1 && forbidden.column === j - 1 ? NEVER : fit(roles[j - 1]!, cell.shape) + familyFit(families?.[j - 1] ?? null, cell.shape);
         if (f > NEVER / 2) {
           const place = score[(i - 1) * width + j - 1]! + f + 0.0005 * (m - j);
           if (place > bestHere) {

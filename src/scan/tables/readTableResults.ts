@@ -42,7 +42,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
-import { placeHeaderCells, fit, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
+import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -192,7 +192,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
   const located = table.cells ?? locateRows(text, table, headerCount);
-  const schema = readSchema(rows, headerCount, table.layout);
+  const baseSchema = readSchema(rows, headerCount, table.layout);
+  const families = columnFamilies(rows.slice(headerCount), baseSchema);
+  const schema: Schema = families === undefined ? baseSchema : { ...baseSchema, families };
   const roles = schema.roles;
   const kind = STATISTIC_PRIORITY.find((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
   const bodyRows = rows.length - headerCount;
@@ -459,6 +461,8 @@ interface Schema {
   positional: boolean;
   /** Columns some header row names (a column without any header text takes no cell that needs placing). */
   named: boolean[];
+  /** For crushed tables: the form each value column's cells take in the full rows (columnFamilies). */
+  families?: (ShapeFamily | null)[];
 }
 
 /** Body rows whose cells are not at the header's positions: rebuilt from crushed text. */
@@ -537,16 +541,19 @@ export function readSchema(rows: string[][], headerCount: number, layout: Docume
     // In a header read from single-spaced words, two names for p in one block are one column named
     // twice ("p-Value Prob > F") or a column of words ("Significance"): only the first takes a cell.
     // Likewise a second p column before any further statistic column ("p-Value", "Prob > F", "Significance").
-    let pSeen = false;
+    // (Only right after the first: a p further on, past other columns, is the next block's: "p (d) 1-β r p 1-β n ... p (d)".)
+    let pSeenAt = -1;
     for (let column = 1; column < roles.length; column++) {
       const role = roles[column]!;
-      if (role.role === 'statistic') pSeen = false;
+      if (role.role === 'statistic') pSeenAt = -1;
       else if (role.role === 'p') {
-        if (pSeen) {
+        if (pSeenAt >= 0 && column === pSeenAt + 1) {
           roles[column] = { role: 'unknown' };
           named[column] = false;
+          pSeenAt = column;
+          continue;
         }
-        pSeen = true;
+        pSeenAt = column;
       }
     }
   }
@@ -644,10 +651,7 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
   }
   // Columns that can take a value: known value columns, and named columns of unknown meaning after the first of those
   // (before it, an unknown header names part of the row label, "Out. rem.").
-  const firstKnown = schema.roles.findIndex((role, column) => column > 0 && isValueRole(role) && role.role !== 'unknown');
-  const valueColumns = schema.roles
-    .map((role, column) => ({ role, column }))
-    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || (schema.named[column] && column > firstKnown)));
+  const valueColumns = valueColumnsOf(schema);
   const out: VirtualRow[] = [];
   let unplaced = 0;
   for (const piece of pieces) {
@@ -676,7 +680,7 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
     } else {
       const toPlace = values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! }));
       const valueRoles = valueColumns.map(({ role }) => role);
-      const placed = placeCells(toPlace, valueRoles);
+      const placed = placeCells(toPlace, valueRoles, schema.families);
       const hasNumbers = toPlace.some((cell) => cell.shape.shape.startsWith('number'));
       if (placed === null) {
         if (hasNumbers) unplaced++;
@@ -687,7 +691,7 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       // (A row without a statistic, an error term, keeps its leading columns: "Error 28" under df, F, p.)
       const keyColumns = valueRoles.flatMap((role, slot) => (['statistic', 'df', 'df1', 'df2', 'p'].includes(role.role) ? [slot] : []));
       const givesStatistic = placed.columns.some((slot, offset) => slot >= 0 && valueRoles[slot]!.role === 'statistic' && toPlace[offset]!.shape.shape !== 'empty');
-      if (givesStatistic && filled < valueRoles.length && !placementIsClear(toPlace, valueRoles, placed, keyColumns)) {
+      if (givesStatistic && filled < valueRoles.length && !placementIsClear(toPlace, valueRoles, placed, keyColumns, schema.families)) {
         unplaced++;
         continue;
       }
@@ -705,6 +709,48 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
     out.push({ cells, at });
   }
   return { rows: out, unplaced };
+}
+
+/**
+ * Columns that can take a value: known value columns, and named columns of unknown meaning after the first
+ * of those (before it, an unknown header names part of the row label, "Out. rem.").
+ */
+function valueColumnsOf(schema: Schema): { role: ColumnRole; column: number }[] {
+  const firstKnown = schema.roles.findIndex((role, column) => column > 0 && isValueRole(role) && role.role !== 'unknown');
+  return schema.roles
+    .map((role, column) => ({ role, column }))
+    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || (schema.named[column] && column > firstKnown)));
+}
+
+/**
+ * For a table rebuilt from crushed text, the form each value column's cells take in the rows that fill
+ * every column (at least two, all agreeing): "0.048* (0.51)" in every full row of "p (d)" says a plain
+ * 0.28 in a shorter row belongs elsewhere. Indexed like valueColumnsOf.
+ */
+function columnFamilies(body: string[][], schema: Schema): (ShapeFamily | null)[] | undefined {
+  if (schema.positional) return undefined;
+  const slotRoles = valueColumnsOf(schema).map(({ role }) => role);
+  const slots = slotRoles.length;
+  const seen: (ShapeFamily | null | 'mixed')[] = new Array<ShapeFamily | null | 'mixed'>(slots).fill(null);
+  let fullRows = 0;
+  for (const row of body) {
+    const shapes = row.map(shapeOf);
+    let first = 1;
+    while (first < shapes.length && shapes[first]!.shape === 'text') first++;
+    const values = shapes.slice(first);
+    // A full row counts only when each of its cells fits the column it would stand in one to one (a header
+    // read wrongly makes rows of the right length that do not).
+    if (values.length !== slots || values.some((shape, slot) => shape.shape === 'text' || shape.shape === 'empty' || shape.shape === 'mark' || fit(slotRoles[slot]!, shape) <= 0)) continue;
+    fullRows++;
+    values.forEach((shape, slot) => {
+      const family = familyOf(shape);
+      const before = seen[slot]!;
+      if (family === null || before === 'mixed') return;
+      seen[slot] = before === null || before === family ? family : 'mixed';
+    });
+  }
+  if (fullRows < 2) return undefined;
+  return seen.map((family) => (family === 'mixed' ? null : family));
 }
 
 function spanOfCells(cells: (LocatedCell | null)[]): LocatedCell | null {
@@ -729,6 +775,12 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
     // no such title, belongs to that group (a within-group d), not to the test.
     const statisticColumn = current.columns.get('statistic');
     if (key.startsWith('effect:') && statisticColumn !== undefined && isGroupTitle(upperHeaders[column]) && upperHeaders[column] !== upperHeaders[statisticColumn]) return;
+    // A p column before the statistic ("p (d)" of a t test printed only as p) gives way to the p right after it ("r | p").
+    const pBefore = key === 'p' && statisticColumn !== undefined && (current.columns.get('p') ?? Infinity) < statisticColumn;
+    if (pBefore) {
+      current.columns.set('p', column);
+      return;
+    }
     if (current.columns.has(key) && current.columns.has('statistic')) {
       segments.push(current);
       current = { columns: new Map(), title: null, headerDf: [], dfInCell: false };

@@ -155,3 +155,21 @@ describe('a header named "Model R" or "Partial r" is not a Pearson r column', ()
     expect(classifyHeader('Sex f').role).toBe('unknown');
   });
 });
+
+describe('real table shapes: crushed side-by-side blocks whose short rows leave cells out', () => {
+  // web-06: "n Mean SD p (d) 1-β r p 1-β" twice; the Low SOC rows fill every column, "0.048* (0.51)" under
+  // "p (d)"; the High SOC rows print neither "p (d)" nor the first 1-β, so which of "0.28 0.134 0.32" is r is
+  // not decided by the cells: those rows are left unread rather than guessed.
+  it('reads the full rows with df from each block\'s n and reads nothing wrong from the short rows', () => {
+    const { results, tablesNotRead } = scan('web-06');
+    expect(results.map(summary)).toEqual([
+      'r(30) = 0.47 p = 0.007',
+      'r(14) = 0.17 p = 0.525',
+      'r(30) = 0.39 p = 0.029',
+      'r(14) = 0.14 p = 0.602',
+      'r(30) = -0.44 p = 0.012',
+      'r(14) = -0.19 p = 0.474',
+    ]);
+    expect(tablesNotRead.map((table) => table.reason)).toEqual(['cells-not-placed']);
+  });
+});
