@@ -24,6 +24,7 @@ import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownH
 import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
 import { readGluedTable } from './glued.js';
+import { readTransposedTable } from './transposed.js';
 
 interface Line {
   start: number;
@@ -61,7 +62,7 @@ export function findTextTables(text: string): DocumentTable[] {
   while (index < lines.length) {
     const found = readPipeTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
-      const rebuilt = (TITLE.test(lines[index]!.text) ? readCellPerLineTable(lines, index) : null) ?? readGluedTable(lines, index);
+      const rebuilt = (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index)) : null) ?? readGluedTable(lines, index);
       if (rebuilt !== null) {
         const title = rebuilt.table.caption === null ? readTitle(lines, index) : null;
         tables.push(title === null ? rebuilt.table : { ...rebuilt.table, caption: title.caption, start: lines[title.firstLine]!.start });

@@ -173,3 +173,19 @@ describe('real table shapes: crushed side-by-side blocks whose short rows leave 
     expect(tablesNotRead.map((table) => table.reason)).toEqual(['cells-not-placed']);
   });
 });
+
+describe('real table shapes: tables printed on their side', () => {
+  // divc-04: columns are subtests, rows are "T (14)" and "P", one cell per line, a second block after an empty cell.
+  it('pairs the "T (14)" row with the "P" row value by value, df from the row name (divc-04)', () => {
+    const tabled = scan('divc-04').results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(15);
+    expect(tabled.slice(0, 5).map(summary)).toEqual(['t(14) = 10.07 p < 0.0001', 't(14) = 3.48 p = 0.004', 't(14) = -0.61 p = 0.55', 't(14) = 5.37 p < 0.0001', 't(14) = 1.51 p = 0.16']);
+  });
+
+  it('reads the same shape as pipe rows, and nothing from a statistic row without a p row', () => {
+    const piped = scanDocument(plainTextDocument('side.txt', 'text', 'Table 3. Tests against chance\n| | Rhythm | Chords |\n| t(20) | 2.10 | 0.45 |\n| p | .048 | .66 |\n')).results;
+    expect(piped.map(summary)).toEqual(['t(20) = 2.10 p = .048', 't(20) = 0.45 p = .66']);
+    const alone = scanDocument(plainTextDocument('side.txt', 'text', 'Table 3. Scores\n| | Rhythm | Chords |\n| t(20) | 2.10 | 0.45 |\n| M | 3.1 | 2.2 |\n')).results;
+    expect(alone).toEqual([]);
+  });
+});

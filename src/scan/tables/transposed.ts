@@ -1,0 +1,277 @@
+/**
+ * Tables printed on their side: the tests are columns and the statistics
+ * are rows, each row named by its statistic ("T (14)", "F (1, 28)", "t",
+ * "df", "P", "η2") and holding one value per column:
+ *
+ *     Subtest      Rhythm     Melodies   Chords
+ *     T (14)       10.07      3.48       −0.61
+ *     P            <0.0001*   0.004*     0.55
+ *
+ * Copies give such a table one cell per line, as pipe rows or as crushed
+ * lines; this reader does not need to know which: it reads the cells after
+ * a "Table N" title in order, and wherever a cell names a statistic it takes
+ * the run of values after it. A run under a p name (or df, or an effect
+ * size) is paired with the earlier statistic run of the same length that
+ * has none yet, value by value. The pairs become a table of one row per
+ * test ("statistic | df | p | effect"), with each cell pointing at where it
+ * is printed, for the table reader to read like any other.
+ *
+ * A statistic run is kept only when a p run of its length pairs with it:
+ * a lone row of numbers under a statistic's name says too little.
+ */
+
+import type { CellSpan, DocumentTable } from '../../documents/types.js';
+import { classifyHeader, readCell, TABLE_TITLE, type ColumnRole } from './cells.js';
+
+interface Line {
+  start: number;
+  end: number;
+  text: string;
+}
+
+interface Cell {
+  text: string;
+  start: number;
+  end: number;
+  line: number;
+}
+
+/** Most lines after the title looked at. */
+const MAX_LINES = 400;
+/** Most blank lines in a row inside the table. */
+const MAX_BLANK_RUN = 2;
+/** A longer line is prose and ends the table (once a statistic's row was seen). */
+const MAX_CELL_LENGTH = 120;
+/** Most values in one statistic's run (columns of one table). */
+const MAX_RUN = 60;
+
+const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|\d{1,2}\.\s+\*)/;
+
+type RunKind = 'statistic' | 'p' | 'df' | 'effect';
+
+interface Run {
+  kind: RunKind;
+  name: Cell;
+  role: ColumnRole;
+  values: Cell[];
+  /** Index of the statistic run this run was paired with (p, df and effect runs). */
+  pairedWith?: number;
+}
+
+/** A transposed table after the title at `lines[titleLine]`, or null. */
+export function readTransposedTable(lines: Line[], titleLine: number): { table: DocumentTable; lastLine: number } | null {
+  const title = lines[titleLine];
+  if (title === undefined || !TABLE_TITLE.test(title.text)) return null;
+  const cells = collectCells(lines, titleLine + 1);
+  const runs = readRuns(cells);
+  const statistics = runs.filter((run) => run.kind === 'statistic');
+  if (statistics.length === 0) return null;
+  pairRuns(runs);
+  const kindOf = (run: Run): string => (run.role.role === 'statistic' ? run.role.kind : '');
+  const paired = runs.filter((run, index) => run.kind === 'statistic' && runs.some((other) => other.kind === 'p' && other.pairedWith === index));
+  if (paired.length === 0) return null;
+  // One kind of statistic per table (the first paired one): the reader reads one kind per table.
+  const kind = kindOf(paired[0]!);
+  const header = kind === 'F' ? ['', 'F', 'df1', 'df2', 'p'] : ['', symbolHeader(kind), 'df', 'p'];
+  const effectNames: string[] = [];
+  for (const run of runs) {
+    if (run.kind === 'effect' && run.pairedWith !== undefined && kindOf(runs[run.pairedWith]!) === kind && !effectNames.includes(run.name.text)) effectNames.push(run.name.text);
+  }
+  const rows: string[][] = [[...header, ...effectNames]];
+  const spans: (CellSpan | null)[][] = [rows[0]!.map(() => null)];
+  let lastCell = paired[0]!.name;
+  runs.forEach((run, index) => {
+    if (run.kind !== 'statistic' || kindOf(run) !== kind) return;
+    const partners = runs.filter((other) => other.pairedWith === index);
+    const p = partners.find((other) => other.kind === 'p');
+    if (p === undefined) return;
+    const dfRun = partners.find((other) => other.kind === 'df');
+    const labelDf = dfInName(run.name);
+    run.values.forEach((value, at) => {
+      const row: string[] = [`${run.name.text} [${at + 1}]`, value.text];
+      // (The name is not the row's start: the result is read from its value to its p.)
+      const rowSpans: (CellSpan | null)[] = [null, spanOf(value)];
+      const dfCells: (Cell | null)[] = dfRun !== undefined ? [dfRun.values[at]!] : labelDf;
+      const dfWidth = kind === 'F' ? 2 : 1;
+      for (let slot = 0; slot < dfWidth; slot++) {
+        const dfCell = dfCells[slot] ?? null;
+        row.push(dfCell?.text ?? '');
+        rowSpans.push(dfCell === null ? null : spanOf(dfCell));
+      }
+      row.push(p.values[at]!.text);
+      rowSpans.push(spanOf(p.values[at]!));
+      for (const name of effectNames) {
+        const effect = partners.find((other) => other.kind === 'effect' && other.name.text === name);
+        row.push(effect?.values[at]?.text ?? '');
+        rowSpans.push(effect?.values[at] ? spanOf(effect.values[at]!) : null);
+      }
+      rows.push(row);
+      spans.push(rowSpans);
+      for (const partner of [p, ...partners]) {
+        const last = partner.values[partner.values.length - 1]!;
+        if (last.end > lastCell.end) lastCell = last;
+      }
+    });
+  });
+  if (rows.length < 2) return null;
+  return {
+    table: {
+      start: title.start + (title.text.length - title.text.trimStart().length),
+      end: lastCell.end,
+      caption: title.text.trim(),
+      notes: [],
+      rows,
+      headerRows: 1,
+      cells: spans,
+      layout: 'positions',
+    },
+    lastLine: lastCell.line,
+  };
+}
+
+function symbolHeader(kind: string): string {
+  return kind === 'chi2' ? 'chi2' : kind;
+}
+
+function spanOf(cell: Cell): CellSpan {
+  return { start: cell.start, end: cell.end };
+}
+
+/** The df printed in a statistic's name, "T (14)", "F (1, 28)", as cells pointing into the name. */
+function dfInName(name: Cell): (Cell | null)[] {
+  const match = /\(\s*(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)/.exec(name.text);
+  if (!match) return [];
+  const found: Cell[] = [];
+  let from = match.index;
+  for (const written of [match[1], match[2]]) {
+    if (written === undefined) continue;
+    const offset = name.text.indexOf(written, from);
+    from = offset + written.length;
+    found.push({ text: written, start: name.start + offset, end: name.start + offset + written.length, line: name.line });
+  }
+  return found;
+}
+
+/** What a name cell starts: a statistic's run, a p, df or effect-size run, or nothing. */
+function runKindOf(role: ColumnRole): RunKind | null {
+  if (role.role === 'statistic') return 'statistic';
+  if (role.role === 'p') return 'p';
+  if (role.role === 'df') return 'df';
+  if (role.role === 'effect') return 'effect';
+  return null;
+}
+
+function isValue(cell: Cell): boolean {
+  return readCell(cell.text, 'either').kind === 'number';
+}
+
+/** Every name cell with the run of values right after it (an empty cell or a text cell ends a run). */
+function readRuns(cells: (Cell | null)[]): Run[] {
+  const runs: Run[] = [];
+  for (let index = 0; index < cells.length; index++) {
+    const cell = cells[index];
+    if (cell === null || cell === undefined || cell.text.length > 40) continue;
+    const role = classifyHeader(cell.text);
+    const kind = runKindOf(role);
+    if (kind === null) continue;
+    const values: Cell[] = [];
+    let at = index + 1;
+    while (at < cells.length && values.length < MAX_RUN) {
+      const next = cells[at];
+      if (next === null || next === undefined || !isValue(next)) break;
+      values.push(next);
+      at++;
+    }
+    if (values.length === 0) continue;
+    runs.push({ kind, name: cell, role, values });
+    index = at - 1;
+  }
+  return runs;
+}
+
+/** Pairs each p, df and effect run with the earliest statistic run of its length that has no such partner yet. */
+function pairRuns(runs: Run[]): void {
+  runs.forEach((run, index) => {
+    if (run.kind === 'statistic') return;
+    for (let candidate = 0; candidate < runs.length; candidate++) {
+      const statistic = runs[candidate]!;
+      if (statistic.kind !== 'statistic' || statistic.values.length !== run.values.length) continue;
+      if (runs.some((other) => other.pairedWith === candidate && other.kind === run.kind && (run.kind !== 'effect' || other.name.text === run.name.text))) continue;
+      // The partner stands after its statistic, or (df) right before it.
+      if (candidate > index && !(run.kind === 'df' && candidate === index + 1)) continue;
+      run.pairedWith = candidate;
+      return;
+    }
+  });
+}
+
+/**
+ * The cells after the title, in reading order: a line with pipes gives its
+ * cells, a line with wide gaps its columns, a crushed line its name and its
+ * trailing values, any other line one cell; a line of spaces is an empty
+ * cell (null), which ends a run.
+ */
+function collectCells(lines: Line[], from: number): (Cell | null)[] {
+  const cells: (Cell | null)[] = [];
+  let blankRun = 0;
+  let statisticSeen = false;
+  for (let index = from; index < lines.length && index - from <= MAX_LINES; index++) {
+    const line = lines[index]!;
+    if (line.text.length === 0) {
+      if (++blankRun > MAX_BLANK_RUN) break;
+      continue;
+    }
+    blankRun = 0;
+    if (line.text.trim() === '' || /^[\s|]+$/.test(line.text)) {
+      cells.push(null);
+      continue;
+    }
+    const trimmed = line.text.trim();
+    if (NOTE.test(line.text) || (index > from && TABLE_TITLE.test(line.text))) break;
+    if (trimmed.length > MAX_CELL_LENGTH) {
+      if (statisticSeen) break;
+      continue;
+    }
+    for (const piece of piecesOf(line.text)) {
+      if (piece === null) {
+        cells.push(null);
+        continue;
+      }
+      const cell = { text: piece.text, start: line.start + piece.start, end: line.start + piece.end, line: index };
+      if (classifyHeader(cell.text).role === 'statistic') statisticSeen = true;
+      cells.push(cell);
+    }
+  }
+  return cells;
+}
+
+/** A line's cells with offsets in the line (null for an empty cell between pipes). */
+function piecesOf(text: string): ({ text: string; start: number; end: number } | null)[] {
+  if (text.includes('|')) {
+    const pieces: ({ text: string; start: number; end: number } | null)[] = [];
+    let start = 0;
+    for (const part of text.split('|')) {
+      const end = start + part.length;
+      const inner = part.trim();
+      if (inner !== '') pieces.push({ text: inner, start: start + part.indexOf(inner), end: start + part.indexOf(inner) + inner.length });
+      start = end + 1;
+    }
+    return pieces;
+  }
+  const gaps = [...text.matchAll(/\S+(?: \S+)*/g)];
+  if (/\t| {2,}/.test(text.trim())) return gaps.map((match) => ({ text: match[0], start: match.index!, end: match.index! + match[0].length }));
+  // A crushed line: a name, then values apart by single spaces ("T (14) 10.07 3.48 −0.61").
+  const words = [...text.matchAll(/\S+/g)];
+  let first = words.length;
+  while (first > 0 && readCell(words[first - 1]![0], 'either').kind === 'number') first--;
+  if (first === 0 || first === words.length) {
+    const inner = text.trim();
+    return [{ text: inner, start: text.indexOf(inner), end: text.indexOf(inner) + inner.length }];
+  }
+  const nameEnd = words[first - 1]!.index! + words[first - 1]![0].length;
+  const nameStart = words[0]!.index!;
+  return [
+    { text: text.slice(nameStart, nameEnd), start: nameStart, end: nameEnd },
+    ...words.slice(first).map((word) => ({ text: word[0], start: word.index!, end: word.index! + word[0].length })),
+  ];
+}
