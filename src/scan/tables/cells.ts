@@ -197,6 +197,18 @@ put(['phi'], { role: 'effect', effect: 'phi' });
 put(['statistic', 'statistics', 'test statistic', 'test statistics', 'statistical test', 'test value', 'stat', 'stat.', 'effect size', 'effect sizes', 'eff. size', 'es'], { role: 'result' });
 put(['m', 'mean', 'means', 'sd', 's.d.', 'se', 's.e.', 'sem', 'mean difference', 'mdiff', 'difference', 'b', 'beta', 'se b', 'estimate', 'std. error', 'standard error', 'min', 'max', 'range', 'median', 'mdn', 'ci', '95% ci', 'lower', 'upper', 'll', 'ul', '%', 'percent', 'm (sd)', 'mean (sd)', 'skew', 'kurtosis', 'alpha', 'ms error', 'mse'], { role: 'descriptive' });
 
+// The same names in the other languages of published papers (French, German, Spanish, Portuguese, Dutch;
+// common practice, from memory: how statistics programs and journals in those languages label the columns).
+put(['somme des carrés', 'somme des carres', 'sc', 'sc type iii', 'quadratsumme', 'quadratsummen', 'summe der quadrate', 'qs', 'quadratsumme vom typ iii', 'suma de cuadrados', 'suma de cuadrados tipo iii', 'soma dos quadrados', 'soma de quadrados', 'kwadratensom'], { role: 'ss' });
+put(['ddl', 'gl', 'fg', 'freiheitsgrade', 'degrés de liberté', 'degres de liberte', 'grados de libertad', 'graus de liberdade', 'vrijheidsgraden'], { role: 'df' });
+put(['ddl hypothèse', 'df hypothese', 'hypothese df', 'gl hipótesis', 'gl hipotesis', 'hipótesis gl'], { role: 'df1' });
+put(['ddl erreur', 'ddl de l\'erreur', 'df fehler', 'fehler df', 'fehler-df', 'gl error', 'error gl', 'gl del error', 'gl erro', 'gl do erro'], { role: 'df2' });
+put(['carré moyen', 'carre moyen', 'moyenne des carrés', 'mittlere quadratsumme', 'mittel der quadrate', 'mq', 'media cuadrática', 'media cuadratica', 'cuadrado medio', 'mc', 'quadrado médio', 'quadrado medio', 'qm', 'gemiddelde kwadraat', 'gemiddelde kwadratensom'], { role: 'ms' });
+put(['p-valor', 'valor p', 'valor-p', 'valor de p', 'valeur p', 'valeur-p', 'valeur de p', 'p-wert', 'p wert', 'signifikanz', 'sign.', 'significación', 'significacion', 'significância', 'significancia', 'signification', 'p-waarde', 'p waarde', 'significantie'], { role: 'p' });
+put(['partial eta sq', 'partial eta sq.', 'eta squared partial', 'eta cuadrado parcial', 'eta al cuadrado parcial', 'eta2 parcial', 'eta quadrado parcial', 'eta carré partiel', 'eta2 partiel', 'partielles eta-quadrat', 'partielles eta quadrat', 'partielles eta2', 'eta2 partiell'], { role: 'effect', effect: 'partial-eta-squared' });
+put(['chi 2', 'x 2', 'chi-quadrat', 'chi-quadrado', 'chi-cuadrado', 'chi cuadrado', 'khi2', 'khi-deux', 'khi 2'], { role: 'statistic', kind: 'chi2', df: [] });
+put(['moyenne', 'mittelwert', 'media', 'média', 'gemiddelde', 'écart type', 'ecart type', 'écart-type', 'standardabweichung', 'desviación típica', 'desviacion tipica', 'desviación estándar', 'desvio padrão', 'desvio padrao', 'dp', 'standaarddeviatie'], { role: 'descriptive' });
+
 /** Bracketed df after a statistic symbol in a header: "F(1, 170)", "F (2, 57)", "t(58)", "chi2(2)". */
 const HEADER_WITH_DF = /^(f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)$/;
 /** An F header whose df subscript was flattened: "F1,25", "F 2, 57" (the comma is required: "F1" alone is no df). */
@@ -251,7 +263,7 @@ export function classifyHeader(header: string): ColumnRole {
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) {
     if (known.role !== 'statistic') return known;
-    const dfInCell = DF_NAMES_IN_BRACKETS.test(key.replace(/\s*[.:]$/, ''));
+    const dfInCell = DF_NAMES_IN_BRACKETS.test(/[.:]$/.test(key) ? key.slice(0, -1).trimEnd() : key);
     return dfInCell ? { ...known, df: [], dfInCell } : { ...known, df: [] };
   }
   const withDf = HEADER_WITH_DF.exec(key);

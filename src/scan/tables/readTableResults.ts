@@ -1089,7 +1089,7 @@ function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, c
 }
 
 /** "−0.06 (.60)", "−0.50 (<.001)": a statistic with its p in brackets. Groups: value, comparator, p. */
-const STATISTIC_BRACKET_P = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:[.,]\d+)?|[.,]\d+)) *[([] *(<=|>=|<|>|=|\u2264|\u2265)? *((?:0|1)?[.,]\d+|0|1) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
+const STATISTIC_BRACKET_P = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:[.,]\d+)?|[.,]\d+)) *[([] *(?:(<=|>=|<|>|=|\u2264|\u2265) *)?((?:0|1)?[.,]\d+|0|1) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
 
 /** A statistic cell under a header that says it holds the p in brackets ("r (P value)"), with the offsets of both numbers. */
 function statisticWithBracketP(
