@@ -281,7 +281,10 @@ export function classifyHeader(header: string): ColumnRole {
   // capital, since a lower-case f after a word is a frequency.
   // A capital R is a multiple correlation; a partial one has other df.
   const rSpoilt = qualified?.[1] === 'r' && (/R\)?\s*[.:]?$/.test(header) || /(?:^|[ -])(?:partial|part|semi|multiple|model|adjusted|canonical)(?:[ -]|$)/.test(key));
-  if (qualified && !rSpoilt && (qualified[1] !== 'f' || /F\)?\s*[.:]?$/.test(header))) {
+  // The words before the symbol must not be a column name themselves ("Cohen d t" is two columns run together).
+  const prefix = qualified ? key.slice(0, key.lastIndexOf(' ')).trim() : '';
+  const prefixNamed = qualified !== null && (knownKeyOf(prefix) !== null || knownKeyOf(prefix.split(' ').pop()!) !== null);
+  if (qualified && !rSpoilt && !prefixNamed && (qualified[1] !== 'f' || /F\)?\s*[.:]?$/.test(header))) {
     const kind: StatisticKind = qualified[1] === 'f' ? 'F' : qualified[1] === 't' ? 't' : qualified[1] === 'r' ? 'r' : 'chi2';
     return { role: 'statistic', kind, df: [] };
   }
@@ -294,6 +297,8 @@ const QUALIFIED_STATISTIC = /^[a-z][a-z0-9'\u2019-]*(?: [a-z0-9'\u2019-]+){0,2} 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
   if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key)) return true;
+  // "Benefits r": a statistic after what it tests (only with its symbol as the phrase's last word).
+  if (QUALIFIED_STATISTIC.test(key) && key.includes(' ') && classifyHeader(key).role === 'statistic') return true;
   return withoutPSuffix(key) !== null && classifyHeader(key).role === 'statistic';
 }
 

@@ -60,7 +60,7 @@ export function findTextTables(text: string): DocumentTable[] {
   const tables: DocumentTable[] = [];
   let index = 0;
   while (index < lines.length) {
-    const found = readPipeTable(lines, index) ?? readSpacedTable(lines, index);
+    const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
       const rebuilt = (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index)) : null) ?? readGluedTable(lines, index);
       if (rebuilt !== null) {
@@ -158,6 +158,70 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
   };
 }
 
+// ---------------------------------------------------------------- tab tables
+
+/** The cells of a line whose cells are apart by tabs (a tab inside the line, not only indentation), with offsets. */
+function tabCells(line: Line): Piece[] | null {
+  const text = line.text;
+  if (line.crushed === true || text.length > MAX_ROW_LENGTH || !text.trimStart().includes('\t')) return null;
+  const pieces: Piece[] = [];
+  let at = text.length - text.trimStart().length;
+  while (at <= text.length) {
+    let end = text.indexOf('\t', at);
+    if (end === -1) end = text.length;
+    const raw = text.slice(at, end);
+    const lead = raw.length - raw.trimStart().length;
+    const trimmed = raw.trim();
+    pieces.push({ text: trimmed, start: line.start + at + lead, end: line.start + at + lead + trimmed.length });
+    at = end + 1;
+  }
+  return pieces.length >= 2 ? pieces : null;
+}
+
+/**
+ * Rows whose cells are apart by tabs, as a copy of a web page's table or a
+ * spreadsheet gives them: the tabs say where the cells are, as pipes do
+ * (one tab per cell, empty cells included; a blank line between rows is
+ * allowed). At least one row must hold numbers.
+ */
+function readTabTable(lines: Line[], first: number): FoundRows | null {
+  if (tabCells(lines[first]!) === null) return null;
+  const rows: Piece[][] = [];
+  let index = first;
+  let last = first;
+  for (; index < lines.length; index++) {
+    const cells = tabCells(lines[index]!);
+    if (cells === null) {
+      const nextIsRow = lines[index + 1] !== undefined && tabCells(lines[index + 1]!) !== null;
+      if (isBlank(lines[index]) && nextIsRow) continue;
+      // A section line ("Activity/ playfulness") between rows, written without tabs.
+      if (isSectionLine(lines[index]) && nextIsRow) {
+        const line = lines[index]!;
+        const lead = leadingSpace(line.text);
+        rows.push([{ text: line.text.trim(), start: line.start + lead, end: line.start + lead + line.text.trim().length }]);
+        continue;
+      }
+      break;
+    }
+    rows.push(cells);
+    last = index;
+  }
+  const rowsWithValues = rows.filter((row) => row.slice(1).some((cell) => isValueToken(cell.text))).length;
+  if (rows.length < 2 || rowsWithValues < 2) return null;
+  // Rows a web page broke over lines, as in pipe tables; a row with its label that ends in a tab ends
+  // with its empty cells and is whole (padded, so that it is not joined with the next). A piece that
+  // starts with a value ("1421 <0.0001") continues the row above.
+  const width = Math.max(...rows.map((row) => row.length));
+  const padded = rows.map((row) => (row.length > 1 && row[row.length - 1]!.text === '' && !isValueToken(row[0]!.text) ? [...row, ...new Array<Piece>(width - row.length).fill({ text: '', start: row[row.length - 1]!.end, end: row[row.length - 1]!.end })] : row));
+  const merged = joinBrokenRows(padded);
+  return {
+    rows: merged.map((row) => row.map((cell) => cell.text)),
+    last,
+    layout: 'aligned',
+    cells: merged.map((row) => row.map((cell) => (cell.text === '' ? null : { start: cell.start, end: cell.end }))),
+  };
+}
+
 /** The cells of a pipe row with their offsets in the text (the same cells pipeCells reads). */
 function pipeCellSpans(line: Line, count: number): Piece[] {
   const pieces: Piece[] = [];
@@ -237,8 +301,10 @@ function tokenize(text: string): Piece[] {
       index++;
       continue;
     }
+    // "2, 180": both df of an F in one cell, split at its space.
+    const dfPair = previous !== undefined && /^\d{1,4}(?:\.\d+)?,$/.test(previous.text) && /^\d{1,6}(?:[.,]\d+)?$/.test(token.text);
     const joinsPrevious =
-      previous !== undefined && (token.text.startsWith('(') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
+      previous !== undefined && (dfPair || token.text.startsWith('(') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
     if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
     else tokens.push(token);
   }
@@ -304,7 +370,9 @@ function withConsistentSeparators(line: Line): Line {
   const pieces = line.text.split('\t').map((piece) => piece.trim()).filter((piece) => piece !== '');
   const crowded = pieces.slice(1).some((piece) => {
     const words = piece.split(/ +/);
-    return words.length > 1 && words.every((word) => isValueToken(word) || isKnownHeader(headerKey(word)));
+    // (A piece that is one known name of several words, "D. df", is one cell.)
+    // (Nor is one value with a space inside, "− 0.44".)
+    return words.length > 1 && !isKnownHeader(headerKey(piece)) && !isValueToken(piece) && words.every((word) => isValueToken(word) || isKnownHeader(headerKey(word)));
   });
   return crowded ? { ...line, text: line.text.replace(/\t/g, ' '), crushed: true } : line;
 }
@@ -530,7 +598,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       continue;
     }
     // Under a header, a long line may be several rows run together.
-    const runOn = header !== null && line.text.length > MAX_ROW_LENGTH ? splitRunOnRows(line) : [];
+    const runOn = header !== null ? splitRunOnRows(line) : [];
     if (runOn.length > 0) {
       for (const piece of runOn) rows.push({ data: piece, line });
       dataRows += runOn.length;
