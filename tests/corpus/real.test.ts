@@ -8,7 +8,7 @@
 import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { figures, loadRealCorpus, REAL_CORPUS_DIRECTORY, scoreCorpus, type Split } from './real/score.js';
+import { figures, loadRealCorpus, REAL_CORPUS_DIRECTORY, renderingScores, scoreCorpus, type Rendering, type Split } from './real/score.js';
 
 const corpus = loadRealCorpus();
 const scores = scoreCorpus(corpus);
@@ -29,6 +29,9 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
     text: { recall: 1, precision: 1, maxFailRate: 0.01 },
   },
 };
+
+/** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.9, crushed: 0.35, 'cell-per-line': 0.27 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {
@@ -85,4 +88,13 @@ describe('real corpus: plumbline reads what is printed', () => {
     }
   }
 
+
+  it('reads the tune split\'s pipe tables in the other renderings copies give them, at their floors', () => {
+    const rendered = renderingScores(corpus);
+    for (const rendering of Object.keys(RENDERING_FLOORS) as Rendering[]) {
+      const { piped, kept } = rendered[rendering];
+      expect(piped).toBeGreaterThan(100);
+      expect(Number((kept / piped).toFixed(4)), rendering).toBeGreaterThanOrEqual(RENDERING_FLOORS[rendering]);
+    }
+  });
 });

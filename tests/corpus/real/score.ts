@@ -243,8 +243,50 @@ function figuresLine(name: string, f: Figures): string {
   );
 }
 
+/** How a copy can hand over a pipe table's rows: tab-separated, crushed into single spaces, or one cell per line. */
+export type Rendering = 'tabs' | 'crushed' | 'cell-per-line';
+
+/**
+ * A passage's pipe rows rendered another way, moving cells but never
+ * changing one (separator rows dropped; other lines kept): web pages and
+ * PDFs give the same table in each of these renderings.
+ */
+export function rerender(text: string, rendering: Rendering): string {
+  const lines = text.split('\n').filter((line) => !/^\s*\|?\s*-{3,}/.test(line));
+  const rows = lines.map((line) => (line.includes('|') ? line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/) : line));
+  if (rendering === 'tabs') return rows.map((row) => (Array.isArray(row) ? row.join('\t') : row)).join('\n');
+  if (rendering === 'crushed') return rows.map((row) => (Array.isArray(row) ? row.filter((cell) => cell !== '').join(' ') : row)).join('\n');
+  return rows.map((row) => (Array.isArray(row) ? row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n') : row)).join('\n\n');
+}
+
+function resultKey(result: ReportedResult): string {
+  return `${result.kind}|${result.df.map((d) => d.text).join(',')}|${result.value?.text}|${result.p?.comparator ?? ''}${result.p?.value.text ?? ''}`;
+}
+
+/**
+ * Of the table results read in the tune split's pipe-table passages, the
+ * share also read when the same rows come in another rendering.
+ */
+export function renderingScores(passages: RealPassage[]): Record<Rendering, { piped: number; kept: number }> {
+  const tableKeys = (text: string): string[] => scanDocument(plainTextDocument('table.txt', 'text', text)).results.filter((r) => r.tableRow).map(resultKey);
+  const scores = { tabs: { piped: 0, kept: 0 }, crushed: { piped: 0, kept: 0 }, 'cell-per-line': { piped: 0, kept: 0 } };
+  for (const passage of passages.filter((p) => p.split === 'tune' && p.shapes.includes('table:pipe'))) {
+    const piped = tableKeys(passage.text);
+    for (const rendering of ['tabs', 'crushed', 'cell-per-line'] as const) {
+      const other = tableKeys(rerender(passage.text, rendering));
+      scores[rendering].piped += piped.length;
+      scores[rendering].kept += piped.filter((key) => {
+        const at = other.indexOf(key);
+        if (at >= 0) other.splice(at, 1);
+        return at >= 0;
+      }).length;
+    }
+  }
+  return scores;
+}
+
 /** The print-out of `npm run score:real`. */
-export function formatScores(scores: Record<Split, PassageScore[]>, detail: boolean): string {
+export function formatScores(scores: Record<Split, PassageScore[]>, detail: boolean, rendered?: Record<Rendering, { piped: number; kept: number }>): string {
   const lines: string[] = [];
   for (const split of ['tune', 'holdout'] as const) {
     const s = scores[split];
@@ -263,6 +305,12 @@ export function formatScores(scores: Record<Split, PassageScore[]>, detail: bool
   for (const language of languages) {
     const f = figures(tune.filter((s) => s.passage.language === language), 'all');
     lines.push(`  ${language.padEnd(26)} ${String(f.readable).padStart(4)} readable  recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}`);
+  }
+  if (rendered !== undefined) {
+    lines.push('', '== tune pipe tables in other renderings (results read from the pipe rows also read from the same rows)');
+    for (const [rendering, score] of Object.entries(rendered)) {
+      lines.push(`  ${rendering.padEnd(26)} ${String(score.kept).padStart(4)} of ${score.piped}  ${percent(score.piped === 0 ? 1 : score.kept / score.piped).padStart(6)}`);
+    }
   }
   if (detail) {
     lines.push('', '== tune split: per passage, misses, misread fields, false alarms and fails on consistent results');
@@ -290,5 +338,6 @@ export function formatScores(scores: Record<Split, PassageScore[]>, detail: bool
 
 // Run as a script: node dist/tests/corpus/real/score.js [--brief]
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
-  console.log(formatScores(scoreCorpus(), !process.argv.includes('--brief')));
+  const corpus = loadRealCorpus();
+  console.log(formatScores(scoreCorpus(corpus), !process.argv.includes('--brief'), renderingScores(corpus)));
 }
