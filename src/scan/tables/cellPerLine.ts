@@ -77,9 +77,11 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   const cells = collectCells(lines, titleLine + 1);
   // The header: from the first known column name, the run of cells up to the first value.
   let first = -1;
-  for (let index = 0; index < cells.length && index < MAX_CELLS_TO_HEADER && cells[index]!.line <= titleLine + MAX_LINES_TO_HEADER; index++) {
+  let seen = 0;
+  for (let index = 0; index < cells.length && seen < MAX_CELLS_TO_HEADER && cells[index]!.line <= titleLine + MAX_LINES_TO_HEADER; index++) {
     const cell = cells[index]!;
     if (cell.empty) continue;
+    seen++;
     if (isValueCell(cell)) return null;
     if (isColumnName(cell.text)) {
       first = index;
@@ -88,9 +90,13 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   }
   if (first === -1) return null;
   let firstValue = first;
-  // (Empty cells in the header are spanned or blank header cells, not values.)
-  while (firstValue < cells.length && firstValue - first < MAX_HEADER_CELLS && (!isValueCell(cells[firstValue]!) || cells[firstValue]!.empty)) firstValue++;
-  if (firstValue >= cells.length || firstValue - first >= MAX_HEADER_CELLS) return null;
+  let headerCells = 0;
+  // (Empty cells in the header are spanned or blank header cells, not values; they do not count towards the limit.)
+  while (firstValue < cells.length && headerCells < MAX_HEADER_CELLS && (!isValueCell(cells[firstValue]!) || cells[firstValue]!.empty)) {
+    if (!cells[firstValue]!.empty) headerCells++;
+    firstValue++;
+  }
+  if (firstValue >= cells.length || headerCells >= MAX_HEADER_CELLS) return null;
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = firstValue;
   while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
