@@ -183,7 +183,7 @@ put(['f', 'f ratio', 'f-ratio', 'f value', 'f-value', 'f statistic', 'f-statisti
 put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test', 't ratio'], { role: 'statistic', kind: 't', df: [] });
 put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['r', "pearson's r", 'pearson r', 'pearson correlation', 'correlation'], { role: 'statistic', kind: 'r', df: [] });
-put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test'], { role: 'statistic', kind: 'z', df: [] });
+put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test', "fisher's z", 'fisher\u2019s z', 'fisher z', 'steiger z', "steiger's z"], { role: 'statistic', kind: 'z', df: [] });
 put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)', 'etap', 'eta p'], { role: 'effect', effect: 'partial-eta-squared' });
 put(['eta2', 'eta 2', 'eta squared', 'eta-squared'], { role: 'effect', effect: 'eta-squared' });
 put(['etag2', 'eta2g', 'eta g2', 'eta2 g', 'generalized eta squared', 'generalized eta2', 'generalised eta squared', 'generalised eta2', 'ges'], { role: 'effect', effect: 'generalized-eta-squared' });
@@ -283,7 +283,7 @@ export function classifyHeader(header: string): ColumnRole {
   const rSpoilt = qualified?.[1] === 'r' && (/R\)?\s*[.:]?$/.test(header) || /(?:^|[ -])(?:partial|part|semi|multiple|model|adjusted|canonical)(?:[ -]|$)/.test(key));
   // The words before the symbol must not be a column name themselves ("Cohen d t" is two columns run together).
   const prefix = qualified ? key.slice(0, key.lastIndexOf(' ')).trim() : '';
-  const prefixNamed = qualified !== null && (knownKeyOf(prefix) !== null || knownKeyOf(prefix.split(' ').pop()!) !== null);
+  const prefixNamed = qualified !== null && (knownKeyOf(prefix) !== null || prefix.split(' ').some((word) => knownKeyOf(word) !== null));
   if (qualified && !rSpoilt && !prefixNamed && (qualified[1] !== 'f' || /F\)?\s*[.:]?$/.test(header))) {
     const kind: StatisticKind = qualified[1] === 'f' ? 'F' : qualified[1] === 't' ? 't' : qualified[1] === 'r' ? 'r' : 'chi2';
     return { role: 'statistic', kind, df: [] };

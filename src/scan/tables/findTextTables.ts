@@ -569,8 +569,10 @@ function isSectionLine(line: Line | undefined): boolean {
   if (line === undefined) return false;
   const text = line.text.trim();
   if (text === '' || text.length > 60 || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
-  // Digits may stand in a name ("GAD-7", "SF-36 PCS"), not as a value at the line's end.
-  if (/\d/.test(text) && (isValueToken(text.split(/\s+/).pop()!) || /\d\s*\)?$/.test(text))) return false;
+  // Digits may stand in a name ("GAD-7", "SF-36 PCS"), not as a value at the line's end, except in a numbered
+  // group's name ("Sample 1", "Study 2", "Experiment 3b").
+  const numberedGroup = /^[A-Z][A-Za-z]+(?: [A-Za-z]+)? \d{1,2}(?:[a-z]|\/\d{1,2})?$/.test(text);
+  if (!numberedGroup && /\d/.test(text) && (isValueToken(text.split(/\s+/).pop()!) || /\d\s*\)?$/.test(text))) return false;
   return text.split(/\s+/).length <= 6;
 }
 
