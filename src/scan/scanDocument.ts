@@ -86,6 +86,57 @@ function mergeRestatements(written: readonly ReportedResult[], tabled: readonly 
   return folded;
 }
 
+/** Least number of rows two tables share before the later one counts as the earlier printed again. */
+const MIN_REPRINTED_ROWS = 2;
+
+/**
+ * A table printed twice (as an image's alternative text and as the table,
+ * or in the text and again in an appendix) is read once: when at least
+ * half the results of a later table (and MIN_REPRINTED_ROWS) repeat those
+ * of an earlier one with the same statistic, df and p, the repeats are
+ * folded into the earlier table's results as `alsoAt`. Returns the folded
+ * results. A single row that happens to match another table's is kept.
+ */
+function mergeReprintedTables(tabled: readonly ReportedResult[]): Set<ReportedResult> {
+  const folded = new Set<ReportedResult>();
+  const byTable = new Map<number, ReportedResult[]>();
+  for (const result of tabled) {
+    const index = result.tableRow?.tableIndex;
+    if (index === undefined) continue;
+    byTable.set(index, [...(byTable.get(index) ?? []), result]);
+  }
+  const sameResult = (a: ReportedResult, b: ReportedResult): boolean =>
+    a.kind === b.kind &&
+    sameNumber(a.value, b.value) &&
+    a.df.length === b.df.length &&
+    a.df.every((df, index) => sameNumber(df, b.df[index]!)) &&
+    (a.p === null) === (b.p === null) &&
+    (a.p === null || (a.p.comparator === b.p!.comparator && sameNumber(a.p.value, b.p!.value)));
+  const tables = [...byTable.keys()].sort((a, b) => a - b);
+  for (const later of tables) {
+    const rows = byTable.get(later)!;
+    for (const earlier of tables) {
+      if (earlier >= later) break;
+      const originals = byTable.get(earlier)!.filter((result) => !folded.has(result));
+      const pairs: [ReportedResult, ReportedResult][] = [];
+      const used = new Set<ReportedResult>();
+      for (const row of rows) {
+        const original = originals.find((candidate) => !used.has(candidate) && sameResult(candidate, row));
+        if (original === undefined) continue;
+        used.add(original);
+        pairs.push([original, row]);
+      }
+      if (pairs.length < MIN_REPRINTED_ROWS || pairs.length * 2 < rows.length) continue;
+      for (const [original, row] of pairs) {
+        folded.add(row);
+        original.alsoAt = [...(original.alsoAt ?? []), { start: row.start, end: row.end }];
+      }
+      break;
+    }
+  }
+  return folded;
+}
+
 /** A document's scan, with the results tables it could not read in full. */
 export type DocumentScan = ScanOutput & { tablesNotRead: UnreadTable[] };
 
@@ -98,8 +149,12 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
   );
   completeFromRows(written.results, tables.completions);
-  const restated = mergeRestatements(written.results, tabled);
-  const results: ReportedResult[] = [...written.results.filter((result) => !restated.has(result)), ...tabled]
+  const reprinted = mergeReprintedTables(tabled);
+  const restated = mergeRestatements(
+    written.results,
+    tabled.filter((row) => !reprinted.has(row)),
+  );
+  const results: ReportedResult[] = [...written.results.filter((result) => !restated.has(result)), ...tabled.filter((row) => !reprinted.has(row))]
     .filter((result) => !inRegion(result.start, document.regions, 'references'))
     .sort((a, b) => a.start - b.start || a.end - b.end);
   // Group means, SDs and ns (in the text and in descriptive tables), linked to the tests computed from them.

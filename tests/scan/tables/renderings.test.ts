@@ -47,3 +47,22 @@ describe('the same real table in other renderings', () => {
     expect(read(crushed(passage(id)))).toEqual(piped);
   });
 });
+
+describe('a real table printed twice', () => {
+  // As a PDF's or web page's text can give it: the table's rows crushed into an image's alternative text, then the table itself.
+  it('is read once, the second printing given as another place of each result (tab-06)', () => {
+    const text = passage('tab-06');
+    const once = read(text);
+    const twice = `${crushed(text)}\n\n${text}`;
+    const scan = scanDocument(plainTextDocument('table.txt', 'text', twice));
+    expect(read(twice)).toEqual(once);
+    const tabled = scan.results.filter((result) => result.tableRow);
+    expect(tabled.every((result) => result.alsoAt?.length === 1 && result.alsoAt[0]!.start > result.end)).toBe(true);
+  });
+
+  it('keeps two tables that share a single row apart', () => {
+    const first = 'Table 1. Study 1\n| Source | F | df | p |\n|---|---|---|---|\n| Dose | 4.21 | 2, 57 | .020 |\n| Sex | 1.10 | 1, 57 | .30 |\n';
+    const second = '\n\nTable 2. Study 2\n| Source | F | df | p |\n|---|---|---|---|\n| Dose | 4.21 | 2, 57 | .020 |\n| Age | 6.50 | 1, 57 | .014 |\n';
+    expect(read(first + second)).toHaveLength(4);
+  });
+});
