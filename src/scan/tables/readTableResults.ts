@@ -62,6 +62,8 @@ interface Segment {
   headerDf: ReportedNumber[];
   /** A numerator df from the block's spanning title, when the header gives only the denominator ("(num. df = 7)" over "D. df"). */
   titleDf1?: ReportedNumber;
+  /** The kind of statistic of this segment's column (a table may test with several). */
+  kind?: StatisticKind;
 }
 
 interface LocatedCell {
@@ -227,8 +229,15 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     const mentions = rows.slice(0, headerCount).some((row) => row.some((cell) => mentionsStatistic(cell)));
     return mentions && withNumbers > 0 ? { results: [], unread: unreadTable(table, tableIndex, 'columns-not-recognised', withNumbers, 0), completions } : { ...nothing, completions };
   }
+  // Every kind of statistic the header names is read, each with its own columns ("Levene's F | Sig. | t |
+  // df | Sig. (2-tailed)"); an r beside another statistic is its effect size, not a test of its own.
+  const kinds = STATISTIC_PRIORITY.filter((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate)).filter((candidate, _, all) => candidate !== 'r' || !all.some((other) => other === 'F' || other === 't' || other === 'chi2'));
   // A column of z without p may hold standard scores, not tests.
-  const segments = buildSegments(roles, kind, schema.titles).filter((segment) => kind !== 'z' || segment.columns.has('p'));
+  const segments = kinds.flatMap((segmentKind) =>
+    buildSegments(roles, segmentKind, schema.titles)
+      .filter((segment) => segmentKind !== 'z' || segment.columns.has('p'))
+      .map((segment) => ({ ...segment, kind: segmentKind })),
+  );
   if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0), completions };
   titleBlocks(segments, rows.slice(0, headerCount - 1));
 
@@ -257,12 +266,14 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     if (rowSpan === null) continue;
     let read = false;
     let missingDf = false;
+    // A row counts as read when every statistic it prints was read (a Levene's F without df beside a t that was read is not).
+    let statisticLeft = false;
     for (const segment of segments) {
       const result = readRow({
         text,
         table,
         tableIndex,
-        kind,
+        kind: segment.kind ?? kind,
         row,
         cellsAt,
         segment,
@@ -278,8 +289,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         results.push(result);
         read = true;
       }
+      if ((result === null || result === 'no-df') && shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
     }
-    if (read) rowsRead++;
+    if (read && !statisticLeft) rowsRead++;
     else if (hasStatistic && missingDf) rowsWithoutDf++;
   }
   const missed = rowsWithStatistic - rowsRead + unplaced;
@@ -768,9 +780,22 @@ function spanOfCells(cells: (LocatedCell | null)[]): LocatedCell | null {
 function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (string | null)[]): Segment[] {
   const segments: Segment[] = [];
   let current: Segment = { columns: new Map(), title: null, headerDf: [], dfInCell: false };
+  // After the column of a statistic of another kind, the columns are that statistic's until one of this kind
+  // comes ("F | Sig. | t | df | Sig. (2-tailed)": the df and the second Sig. are the t's).
+  let foreign = false;
   roles.forEach((role, column) => {
     const key = roleKey(role, kind);
+    if (role.role === 'statistic' && role.kind !== kind && key === null) {
+      if (current.columns.has('statistic')) {
+        segments.push(current);
+        current = { columns: new Map(), title: null, headerDf: [], dfInCell: false };
+      }
+      foreign = true;
+      return;
+    }
     if (key === null) return;
+    if (foreign && key !== 'statistic') return;
+    foreign = false;
     // An effect size under a group title of its own ("T0–1" over "d | CI"), after a statistic whose column has
     // no such title, belongs to that group (a within-group d), not to the test.
     const statisticColumn = current.columns.get('statistic');

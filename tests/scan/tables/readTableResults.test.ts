@@ -4,6 +4,8 @@ import { jatsToDocument } from '../../../src/documents/jats.js';
 import { latexToDocument } from '../../../src/documents/latex.js';
 import type { DocumentText } from '../../../src/documents/types.js';
 import { findTextTables, readTableResults } from '../../../src/scan/tables/index.js';
+import { scanDocument } from '../../../src/scan/scanDocument.js';
+import { plainTextDocument } from '../../../src/documents/text.js';
 import type { ReportedResult } from '../../../src/scan/types.js';
 import { demo, readOk } from '../../documents/helpers.js';
 
@@ -308,5 +310,27 @@ Error & 228.00 & 57 & 4.00 & & \\
     const results = fromText(text);
     expect(results.map((r) => r.tableRow!.tableIndex)).toEqual([0, 0, 1]);
     expect(results.map((r) => r.start)).toEqual([...results.map((r) => r.start)].sort((a, b) => a - b));
+  });
+});
+
+describe('a table with tests of two kinds', () => {
+  // The layout of a statistics program's independent-samples table (common practice): Levene's F and its Sig.,
+  // then t, df and Sig. (2-tailed). Numbers invented for the layout; the expectations are read by eye.
+  const table = [
+    'Table 4. Independent samples test',
+    '| | F | Sig. | t | df | Sig. (2-tailed) |',
+    '|---|---|---|---|---|---|',
+    '| Equal variances assumed | 0.84 | .363 | 2.10 | 58 | .040 |',
+    '| Equal variances not assumed | | | 2.10 | 55.31 | .041 |',
+  ].join('\n');
+
+  it('reads the t tests with their df and p, and lists the F without df as not read', () => {
+    const scan = scanDocument(plainTextDocument('t.txt', 'text', table));
+    const tabled = scan.results.filter((result) => result.tableRow);
+    expect(tabled.map((result) => [result.kind, result.df.map((df) => df.text).join(','), result.value?.text, result.p?.value.text])).toEqual([
+      ['t', '58', '2.10', '.040'],
+      ['t', '55.31', '2.10', '.041'],
+    ]);
+    expect(scan.tablesNotRead.map((unread) => unread.reason)).toEqual(['no-df']);
   });
 });
