@@ -69,7 +69,7 @@ export function readPValue(text: string, position: number, asWritten = false, gl
   if (value.value < 0 || value.value > 1) {
     if (!asWritten || Math.abs(value.value) >= MAX_OUT_OF_RANGE_P) return null;
   }
-  return { comparator, value, plural, start: position, end: read.end };
+  return sign.comparator === null ? { comparator, value, plural, start: position, end: read.end, signLost: true } : { comparator, value, plural, start: position, end: read.end };
 }
 
 /** A footnote letter glued to a p-value ("p = .12e", "p<.001a" in a table cell): one letter a-h and then no more word. */

@@ -32,7 +32,7 @@ export function scanText(text: string): ScanOutput {
 
 /** All results in document order, with offsets into the original text. */
 export function findResults(normalised: NormalisedText): ReportedResult[] {
-  const source = normalised.text;
+  const source = restoreLostEquals(normalised.text);
   const results: ReportedResult[] = [];
   const comparators = new ComparatorFinder(source);
   const spans: number[] = [];
@@ -57,6 +57,26 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     consumedUpTo = draft.end;
   }
   return results;
+}
+
+/**
+ * A statistic whose "=" a PDF font lost together with its p's comparator
+ * ("Rho 0.21, p 0.001"): where a symbol (with or without bracketed df), a
+ * space, a value, a comma and a p whose sign is lost follow one another,
+ * the space after the symbol is read as the "=" it stood for. Both signs
+ * lost in one result is what this damage looks like; a symbol and a number
+ * alone ("t 2.1") are left alone. The text keeps its length, so offsets do
+ * not move.
+ */
+const LOST_EQUALS = /(?<![\p{L}\d])(?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+(?:\.\d+)?(?:\s?,\s?\d+(?:\.\d+)?)?\s?\))?( )[-\u2212]?(?:\d+)?\.\d+, ?p (?:0?\.\d+)(?![\d.])/gu;
+
+function restoreLostEquals(text: string): string {
+  if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
+  return text.replace(LOST_EQUALS, (match, _space: string, offset: number) => {
+    const head = /^(?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\([^)]*\))?/u.exec(match)![0];
+    void offset;
+    return `${head}=${match.slice(head.length + 1)}`;
+  });
 }
 
 /** How far before an r the word "Spearman" makes it a rank correlation ("Spearman's correlation was small, r(58) = .12"). */

@@ -43,6 +43,8 @@ export interface ReportedP {
   plural: boolean;
   start: number;
   end: number;
+  /** Its sign was lost in the text ("p 0.001") and the comparator is a reading, not what was printed. */
+  signLost?: boolean;
 }
 
 export type EffectKind =

@@ -199,3 +199,18 @@ describe('a p glued to the value', () => {
     expect(scanText('t(20) = 5pm').results).toEqual([]);
   });
 });
+
+describe('a statistic whose "=" was lost with its p\'s sign', () => {
+  // tests/corpus/real/passages/prose-10.txt: "(Rho 0.21, p 0.001) and (Rho = 0.18, p = 0.008)".
+  it('reads "Rho 0.21, p 0.001" and marks the p\'s sign as lost', () => {
+    const result = onlyResult('Both correlated with sleep scores (Rho 0.21, p 0.001).');
+    expect(result.kind).toBe('r');
+    expect(result.value?.text).toBe('0.21');
+    expect(result.p?.value.text).toBe('0.001');
+    expect(result.p?.signLost).toBe(true);
+  });
+
+  it('leaves a symbol and a number alone when nothing else was lost', () => {
+    expect(scanText('The t 2.1 version and the F 3 key, p = .04, were used.').results).toEqual([]);
+  });
+});

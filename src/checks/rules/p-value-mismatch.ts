@@ -35,7 +35,7 @@ export const pValueMismatch: CheckModule<Options> = {
   optionsSchema,
   messages: {
     mismatch:
-      '{statistic} gives p = {recomputedP} ({recomputedRange} allowing for rounding), but {printedP} is reported.{adjustmentNote}{alphaNote}{slipNote}',
+      '{statistic} gives p = {recomputedP} ({recomputedRange} allowing for rounding), but {printedP} is reported.{signNote}{adjustmentNote}{alphaNote}{slipNote}',
     notSignificantButIs:
       '{statistic} is marked not significant, but it gives p = {recomputedP} ({recomputedRange} allowing for rounding), below alpha = {alpha}.{adjustmentNote}',
   },
@@ -90,13 +90,15 @@ export const pValueMismatch: CheckModule<Options> = {
         data: {
           ...base,
           printedP: describeP(result),
+          signNote: result.p.signLost ? ` The p's sign is missing in the text ("p ${result.p.value.text}") and was read as "${result.p.comparator}"; another sign may have been printed.` : '',
           adjustmentNote: adjustmentNote(verdict),
           alphaNote: crosses ? ` This changes the conclusion at alpha = ${context.alpha}.` : '',
           slipNote: firstSlip ? ` Possible slip: ${firstSlip.explanation}.` : '',
         },
         crossesAlpha: crosses,
-        // An adjustment stated elsewhere in the document may not cover this result.
-        ...(verdict.kind === 'fits-neither' && verdict.adjustment.where === 'document' ? { severityAtMost: 'warn' as const } : {}),
+        // An adjustment stated elsewhere in the document may not cover this result; a p whose sign was lost
+        // is compared under a sign that was read, not printed.
+        ...((verdict.kind === 'fits-neither' && verdict.adjustment.where === 'document') || result.p.signLost ? { severityAtMost: 'warn' as const } : {}),
         ...(firstSlip ? { slip: firstSlip.id } : {}),
       },
     ];

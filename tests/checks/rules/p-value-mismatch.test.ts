@@ -47,6 +47,15 @@ describe('p-value-mismatch: must flag', () => {
     expect(finding!.message).toContain('p = .031 is reported');
   });
 
+  it('a p whose sign was lost in the text at warn, saying the sign was read (common practice: the sign is not known)', () => {
+    // r(212) = 0.21 -> p = 0.0020; "p 0.001" read as "p < 0.001".
+    const lost = result({ kind: 'r', df: ['212'], value: '0.21', p: '< 0.001' });
+    lost.p!.signLost = true;
+    const [finding] = checkedOf([lost])[0]!.findings.filter((f) => f.rule === rule);
+    expect(finding).toMatchObject({ rule, severity: 'warn' });
+    expect(finding!.message).toContain('sign is missing in the text');
+  });
+
   it('a p that changes the conclusion at alpha', () => {
     // t(58) = 1.80 -> p = 0.077
     const [finding] = flagsOf(rule, { kind: 't', df: ['58'], value: '1.80', p: '< .05' });
