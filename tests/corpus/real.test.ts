@@ -21,7 +21,7 @@ const scores = scoreCorpus(corpus);
  */
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.89, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.9, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
@@ -31,7 +31,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 };
 
 /** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
-const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.9, crushed: 0.56, 'cell-per-line': 0.66 };
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.9, crushed: 0.55, 'cell-per-line': 0.66 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {

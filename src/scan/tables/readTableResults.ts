@@ -75,7 +75,8 @@ const STATISTIC_PRIORITY: StatisticKind[] = ['F', 't', 'chi2', 'r', 'z'];
 const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic', 'p', 'partial-eta-squared', 'eta-squared', 'generalized-eta-squared', 'omega-squared', 'cohens-d', 'r']);
 
 const ERROR_LABEL = /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term)(?![a-z])/;
-const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\))(?![a-z])/;
+/** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
+const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
 
 /** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */

@@ -189,3 +189,10 @@ describe('real table shapes: tables printed on their side', () => {
     expect(alone).toEqual([]);
   });
 });
+
+describe('a measure whose name starts with "Total" is not a Total row', () => {
+  it('reads the "Total phenolics" row (divd-02)', () => {
+    const tabled = scan('divd-02').results.filter((result) => result.tableRow);
+    expect(tabled.filter((result) => result.tableRow!.rowLabel.startsWith('Total phenolics')).map(summary)).toEqual(['F(1, 19) = 0.86 p = 0.365', 'F(1, 198) = 11.85 p = 0.001', 'F(1, 198) = 0.49 p = 0.483']);
+  });
+});
