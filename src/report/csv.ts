@@ -72,6 +72,7 @@ const DF_FROM_NOTES: Record<NonNullable<StatisticOutput['dfFrom']>, string> = {
   'sample-size': 'df worked out from the sample size written after the result',
   'study-sample-size': "df worked out from the study's stated sample size, which may not apply to this test",
   'contingency-table': 'df worked out from the table dimensions stated with the chi-square',
+  'levene-two-groups': "df of Levene's test for two groups: 1 and the pooled t test's df in the same row",
 };
 
 type Comparator = StatisticOutput['valueComparator'];

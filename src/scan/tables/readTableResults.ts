@@ -244,6 +244,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
 
   const noteText = [...table.notes, table.caption ?? ''].join(' ');
   const noteDf = readNoteDf(noteText);
+  // Levene's test beside an independent-samples t test ("Levene's Test for Equality of Variances | F | Sig. | t | df | ...").
+  const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' '));
   const noteN = readNoteSampleSize(noteText);
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
@@ -269,6 +271,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     let missingDf = false;
     // A row counts as read when every statistic it prints was read (a Levene's F without df beside a t that was read is not).
     let statisticLeft = false;
+    const resultsBefore = results.length;
+    const leveneWithoutDf: Segment[] = [];
     for (const segment of segments) {
       const result = readRow({
         text,
@@ -290,7 +294,35 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         results.push(result);
         read = true;
       }
-      if ((result === null || result === 'no-df') && shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
+      if (result === 'no-df' && mentionsLevene && (segment.kind ?? kind) === 'F') leveneWithoutDf.push(segment);
+      else if ((result === null || result === 'no-df') && shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
+    }
+    // Levene's test for two groups has df 1 and N − 2, the df of the pooled t test printed in the same row.
+    const pooledT = results.slice(resultsBefore).find((result) => result.kind === 't' && result.df.length === 1 && result.df[0]!.decimals === 0);
+    for (const segment of leveneWithoutDf) {
+      const levene =
+        pooledT === undefined
+          ? null
+          : readRow({
+              text,
+              table,
+              tableIndex,
+              kind: 'F',
+              row,
+              cellsAt,
+              segment,
+              multiple: segments.length > 1,
+              errorRow: null,
+              noteDf: { pair: [{ value: 1, text: '1', decimals: 0, exponent: 0 }, stripOffsets(pooledT.df[0]!)], single: null, error: null },
+              noteN,
+              rowSpan,
+              separator,
+            });
+      if (levene === null || levene === 'no-df') {
+        statisticLeft = true;
+        continue;
+      }
+      results.splice(resultsBefore, 0, { ...levene, dfFrom: 'levene-two-groups' });
     }
     if (read && !statisticLeft) rowsRead++;
     else if (hasStatistic && missingDf) rowsWithoutDf++;

@@ -324,7 +324,7 @@ describe('a table with tests of two kinds', () => {
     '| Equal variances not assumed | | | 2.10 | 55.31 | .041 |',
   ].join('\n');
 
-  it('reads the t tests with their df and p, and lists the F without df as not read', () => {
+  it('reads the t tests with their df and p, and lists an F without df as not read', () => {
     const scan = scanDocument(plainTextDocument('t.txt', 'text', table));
     const tabled = scan.results.filter((result) => result.tableRow);
     expect(tabled.map((result) => [result.kind, result.df.map((df) => df.text).join(','), result.value?.text, result.p?.value.text])).toEqual([
@@ -332,5 +332,17 @@ describe('a table with tests of two kinds', () => {
       ['t', '55.31', '2.10', '.041'],
     ]);
     expect(scan.tablesNotRead.map((unread) => unread.reason)).toEqual(['no-df']);
+  });
+
+  it("reads Levene's F with df 1 and the pooled t test's df when the table names Levene's test", () => {
+    const levene = table.replace('| | F | Sig. |', "| | Levene's F | Sig. |");
+    const scan = scanDocument(plainTextDocument('t.txt', 'text', levene.replace('Independent samples test', "Independent samples test with Levene's test")));
+    const tabled = scan.results.filter((result) => result.tableRow);
+    expect(tabled.map((result) => [result.kind, result.df.map((df) => df.text).join(','), result.value?.text, result.dfFrom ?? ''])).toEqual([
+      ['F', '1,58', '0.84', 'levene-two-groups'],
+      ['t', '58', '2.10', ''],
+      ['t', '55.31', '2.10', ''],
+    ]);
+    expect(scan.tablesNotRead).toEqual([]);
   });
 });
