@@ -75,6 +75,9 @@ const STATISTIC_PRIORITY: StatisticKind[] = ['F', 't', 'chi2', 'r', 'z'];
 const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic', 'p', 'partial-eta-squared', 'eta-squared', 'generalized-eta-squared', 'omega-squared', 'cohens-d', 'r']);
 
 const ERROR_LABEL = /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term)(?![a-z])/;
+/** The end of a row label that says the row holds means and SDs: "M SD", "M (SD)", "Mean (SD)", "Mean ± SD". */
+const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:m|mean|means)\s?(?:\(sd\)|sd|\u00b1 ?sd|\(se\)|se)$|(?:^|\s)(?:mean|means|sd)$/;
+
 /** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
 const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
@@ -258,9 +261,15 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // table): in repeated-measures output it is tested against an error term the layout does not show.
   const singleErrorTerm = errorRows.filter(Boolean).length === 1;
   for (let index = 0; index < virtualRows.length; index++) {
-    const { cells: row, at: cellsAt } = virtualRows[index]!;
+    const { cells: row, at: cellsAt, partial } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     if (errorRows[index] || TOTAL_LABEL.test(labelKey) || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
+    // A row its label calls means and SDs ("Self-paced control M SD 38.98 12.92 ...") holds descriptives, not
+    // tests; when it also shows a test's marks (stars, "n.s.", "η2 = .59") they are counted as not read.
+    if (DESCRIPTIVE_ROW_LABEL.test(labelKey)) {
+      if (row.slice(1).some((cell) => /\*|n\.s\.|=/.test(cell))) rowsWithStatistic++;
+      continue;
+    }
     if (row.some((cell) => holdsWrittenResult(cell))) continue;
     const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
@@ -289,11 +298,15 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         rowSpan,
         separator,
       });
+      // In a row placed by what its cells hold with cells left out, a statistic with nothing of its own beside
+      // it (no p, "n.s.", effect size or df cell) may be any number of the row: a mean under an F column.
+      const lone = result !== null && result !== 'no-df' && partial === true && result.p === null && !result.notSignificant && result.effects.length === 0 && !result.tableRow?.cells.df && !result.tableRow?.cells.df1 && !result.tableRow?.cells.df2;
       if (result === 'no-df') missingDf = true;
-      else if (result !== null) {
+      else if (result !== null && !lone) {
         results.push(result);
         read = true;
       }
+      if (lone) statisticLeft = true;
       if (result === 'no-df' && mentionsLevene && (segment.kind ?? kind) === 'F') leveneWithoutDf.push(segment);
       else if ((result === null || result === 'no-df') && shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
     }
@@ -661,6 +674,8 @@ function typicalWidth(body: string[][]): number {
 interface VirtualRow {
   cells: string[];
   at: (LocatedCell | null)[];
+  /** Placed by what its cells hold, with cells left out and a statistic column left empty (see readTableRows: a lone statistic of such a row is not read). */
+  partial?: boolean;
 }
 
 /**
@@ -749,6 +764,13 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       if (placed.absorbed > 0) {
         cells[0] = [cells[0], ...values.slice(0, placed.absorbed)].filter((cell) => cell !== '').join(' ');
         at[0] = cellsAt ? spanOfCells(cellsAt.slice(piece.first, piece.valuesFrom + placed.absorbed)) : null;
+      }
+      // Cells left out before a statistic column, so that some statistic column got nothing: the row's
+      // numbers may stand anywhere (a row of means under F columns).
+      const statisticLeftEmpty = valueRoles.some((role, slot) => role.role === 'statistic' && !placed.columns.includes(slot));
+      if (filled < valueRoles.length && statisticLeftEmpty) {
+        out.push({ cells, at, partial: true });
+        continue;
       }
     }
     out.push({ cells, at });

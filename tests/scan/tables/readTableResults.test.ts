@@ -346,3 +346,23 @@ describe('a table with tests of two kinds', () => {
     expect(scan.tablesNotRead).toEqual([]);
   });
 });
+
+describe('rows a crushed table holds that are not tests', () => {
+  // The layout of a results table copied from a journal's web page (telrp.springeropen.com, tables of
+  // doi:10.1186/s41039-019-0102-7, CC BY 4.0): rows of means and SDs, labelled "M SD", under a header whose
+  // Pretest and Posttest columns were taken into the label's header. Read by eye: the first row's F values stand among its means and SDs, the other rows hold no F.
+  const text = [
+    'Table 3 Effects for reading skills by reading level and training condition',
+    '',
+    'Measure Reading level Training condition Pretest Posttest Time effect, F(1,128) Reading level effect, F(1,128) Training condition effect, F(1,128) Time* reading level effect, F(1,128)',
+    'Word identification—reading rate (WPM) Typical readers Accelerated M SD 39.82 11.5 55.9 15.7 172.46*** η2 = .59 84.94*** η2 = .41 .10, n.s. 15.05*** η2 = .11',
+    'Self-paced control M SD 38.98 12.92 56.46 14.32',
+    'Struggling readers Accelerated M SD 23.59 7.22 30.78 8.71',
+  ].join('\n');
+
+  it('reads no mean or SD as an F, and lists the table as not read', () => {
+    const scan = scanDocument(plainTextDocument('t.txt', 'text', text));
+    expect(scan.results).toEqual([]);
+    expect(scan.tablesNotRead).toHaveLength(1);
+  });
+});
