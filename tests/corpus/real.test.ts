@@ -31,7 +31,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 };
 
 /** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
-const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.9, crushed: 0.55, 'cell-per-line': 0.66 };
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.92, crushed: 0.55, 'cell-per-line': 0.66 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {
@@ -92,8 +92,10 @@ describe('real corpus: plumbline reads what is printed', () => {
   it('reads the tune split\'s pipe tables in the other renderings copies give them, at their floors', () => {
     const rendered = renderingScores(corpus);
     for (const rendering of Object.keys(RENDERING_FLOORS) as Rendering[]) {
-      const { piped, kept } = rendered[rendering];
+      const { piped, kept, extra } = rendered[rendering];
       expect(piped).toBeGreaterThan(100);
+      // Nothing read from a rendering that the pipe rows do not give.
+      expect(extra, rendering).toBe(0);
       expect(Number((kept / piped).toFixed(4)), rendering).toBeGreaterThanOrEqual(RENDERING_FLOORS[rendering]);
     }
   });

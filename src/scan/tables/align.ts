@@ -364,8 +364,11 @@ export function bestHeaderShift(headerRoles: (ColumnRole | null)[], bodyShapes: 
   let bestScore = -Infinity;
   const known = headerRoles.map((role, index) => ({ role, index })).filter((entry) => entry.role !== null && entry.role.role !== 'unknown');
   if (known.length === 0) return 0;
+  // Header cells of unknown meaning still name columns that exist: a shift that pushes one off the table costs a little.
+  const named = headerRoles.flatMap((role, index) => (role !== null && role.role === 'unknown' ? [index] : []));
   for (let shift = -known[0]!.index; shift + known[known.length - 1]!.index < width; shift++) {
     let total = 0;
+    for (const index of named) if (index + shift < 0 || index + shift >= width) total -= 0.5;
     for (const { role, index } of known) {
       const column = index + shift;
       if (column < 0 || column >= width) {
@@ -445,6 +448,12 @@ export function placeHeaderCells(headerRoles: (ColumnRole | null)[], bodyShapes:
     return value;
   };
   const shiftedScore = shifted.reduce((sum, column, index) => sum + (column >= 0 && column < width ? score(index, column) : -3), 0);
+  // A shift that puts every known name over cells that fit it explains the header: no spreading.
+  const shiftMisfits = shifted.some((column, index) => {
+    const role = headerRoles[index];
+    return role !== null && role !== undefined && role.role !== 'unknown' && role.role !== 'label' && (column < 0 || column >= width || score(index, column) < 0);
+  });
+  if (!shiftMisfits) return shifted;
   // best[i][j]: the best score of header cells 0..i with cell i over column j (columns strictly increase).
   const best: number[][] = [];
   const from: number[][] = [];

@@ -267,9 +267,9 @@ function resultKey(result: ReportedResult): string {
  * Of the table results read in the tune split's pipe-table passages, the
  * share also read when the same rows come in another rendering.
  */
-export function renderingScores(passages: RealPassage[]): Record<Rendering, { piped: number; kept: number }> {
+export function renderingScores(passages: RealPassage[]): Record<Rendering, { piped: number; kept: number; extra: number }> {
   const tableKeys = (text: string): string[] => scanDocument(plainTextDocument('table.txt', 'text', text)).results.filter((r) => r.tableRow).map(resultKey);
-  const scores = { tabs: { piped: 0, kept: 0 }, crushed: { piped: 0, kept: 0 }, 'cell-per-line': { piped: 0, kept: 0 } };
+  const scores = { tabs: { piped: 0, kept: 0, extra: 0 }, crushed: { piped: 0, kept: 0, extra: 0 }, 'cell-per-line': { piped: 0, kept: 0, extra: 0 } };
   for (const passage of passages.filter((p) => p.split === 'tune' && p.shapes.includes('table:pipe'))) {
     const piped = tableKeys(passage.text);
     for (const rendering of ['tabs', 'crushed', 'cell-per-line'] as const) {
@@ -280,13 +280,15 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
         if (at >= 0) other.splice(at, 1);
         return at >= 0;
       }).length;
+      // What is left was read from the rendering but not from the pipe rows: a misreading.
+      scores[rendering].extra += other.length;
     }
   }
   return scores;
 }
 
 /** The print-out of `npm run score:real`. */
-export function formatScores(scores: Record<Split, PassageScore[]>, detail: boolean, rendered?: Record<Rendering, { piped: number; kept: number }>): string {
+export function formatScores(scores: Record<Split, PassageScore[]>, detail: boolean, rendered?: Record<Rendering, { piped: number; kept: number; extra: number }>): string {
   const lines: string[] = [];
   for (const split of ['tune', 'holdout'] as const) {
     const s = scores[split];
@@ -307,9 +309,9 @@ export function formatScores(scores: Record<Split, PassageScore[]>, detail: bool
     lines.push(`  ${language.padEnd(26)} ${String(f.readable).padStart(4)} readable  recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}`);
   }
   if (rendered !== undefined) {
-    lines.push('', '== tune pipe tables in other renderings (results read from the pipe rows also read from the same rows)');
+    lines.push('', '== tune pipe tables in other renderings (results read from the pipe rows also read from the same rows; results read otherwise are misreadings)');
     for (const [rendering, score] of Object.entries(rendered)) {
-      lines.push(`  ${rendering.padEnd(26)} ${String(score.kept).padStart(4)} of ${score.piped}  ${percent(score.piped === 0 ? 1 : score.kept / score.piped).padStart(6)}`);
+      lines.push(`  ${rendering.padEnd(26)} ${String(score.kept).padStart(4)} of ${score.piped}  ${percent(score.piped === 0 ? 1 : score.kept / score.piped).padStart(6)}  read otherwise ${score.extra}`);
     }
   }
   if (detail) {
