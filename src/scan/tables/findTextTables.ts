@@ -74,9 +74,10 @@ export function findTextTables(text: string): DocumentTable[] {
     }
     const { rows, last, layout, cells } = found;
     // Lines between a bare title and a recognised header are the title's; without a header they may be an unread one.
-    const title = readTitle(lines, index, found.headed !== false);
+    const firstLine = found.firstLine ?? index;
+    const title = readTitle(lines, firstLine, found.headed !== false);
     const notes = readNotes(lines, last + 1);
-    const startLine = title?.firstLine ?? index;
+    const startLine = title?.firstLine ?? firstLine;
     const endLine = notes.lastLine ?? last;
     tables.push({
       start: lines[startLine]!.start + leadingSpace(lines[startLine]!.text),
@@ -138,6 +139,8 @@ interface FoundRows {
   cells?: (CellSpan | null)[][];
   /** False when no header line was found (rows under a title only). */
   headed?: boolean;
+  /** The table's first line when it starts before the line it was looked for at (block titles over a crushed header). */
+  firstLine?: number;
 }
 
 function readPipeTable(lines: Line[], first: number): FoundRows | null {
@@ -588,6 +591,10 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     index++;
   }
   const rows: (string[] | { data: DataLine; line: Line })[] = columns ? [columns] : [];
+  // Titles of side-by-side blocks on the line over a crushed header, each closed by its df ("Treatment
+  // (num. df = 1) Temperature (num. df = 7)"): an upper header row, cut after each title's df.
+  const blockTitles = header !== null && !header.aligned && !header.tabbed ? dfTitlesOf(lines[first - 1]) : null;
+  if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
   let last = header === null ? first - 1 : index - 1;
   for (; index < lines.length; index++) {
@@ -617,7 +624,23 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     break;
   }
   if (dataRows === 0) return null;
-  return { ...placeRows(rows, header, last), headed: header !== null };
+  return { ...placeRows(rows, header, last), headed: header !== null, ...(blockTitles !== null ? { firstLine: first - 1 } : {}) };
+}
+
+/** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */
+const TITLE_DF_BRACKET = /\((?:num(?:erator)?\.?\s*)?dfs?\s*=\s*\d+(?:\.\d+)?(?:\s*,\s*\d+(?:\.\d+)?)?\)/gi;
+
+/** The block titles of a line that holds at least two titles each closed by its df, or null. */
+function dfTitlesOf(line: Line | undefined): string[] | null {
+  if (line === undefined || isBlank(line) || line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text)) return null;
+  const titles: string[] = [];
+  let from = 0;
+  for (const match of line.text.matchAll(TITLE_DF_BRACKET)) {
+    const end = match.index! + match[0].length;
+    titles.push(line.text.slice(from, end).trim());
+    from = end;
+  }
+  return titles.length >= 2 && line.text.slice(from).trim() === '' ? ['', ...titles] : null;
 }
 
 /**
