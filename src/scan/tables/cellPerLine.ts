@@ -100,12 +100,21 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = firstValue;
   while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
-  const body = cells.slice(bodyStart);
-  const labelCount = typicalLabelCount(body);
+  let body = cells.slice(bodyStart);
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
-  const headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
+  let headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
   const valueCount = typicalValueCount(body);
+  // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
+  // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
+  const window = valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
+  if (window >= 0 && window + valueCount < headerRun.length) {
+    const lastName = headerRun[window + valueCount - 1]!;
+    bodyStart = cells.indexOf(lastName) + 1;
+    body = cells.slice(bodyStart);
+    headerRun = headerRun.slice(0, window + valueCount);
+  }
+  const labelCount = typicalLabelCount(body);
   const everyCell = valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
   const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
   const roles = names.map((cell) => classifyHeader(cell.text));
@@ -119,6 +128,12 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
+  // Block titles that carry their df ("Treatment (num. df = 1)") before the column names: an upper header row.
+  const dfTitles = [...cells.slice(0, first), ...headerRun].filter((cell) => !cell.empty && !names.includes(cell) && TITLE_WITH_DF.test(cell.text));
+  if (dfTitles.length > 0) {
+    rows.unshift(['', ...dfTitles.map((cell) => cell.text)]);
+    spans.unshift([null, ...dfTitles.map(spanOf1)]);
+  }
   let pendingText: Cell[] = [];
   let index = 0;
   let lastLine = cells[bodyStart]!.line;
@@ -153,7 +168,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
       caption: title.text.trim(),
       notes: [],
       rows,
-      headerRows: 1,
+      headerRows: dfTitles.length > 0 ? 2 : 1,
       cells: spans,
       layout: 'cell-per-line',
     },
@@ -221,6 +236,22 @@ function isValueCell(cell: Cell): boolean {
 /** A known column name other than a bare label ("Source" counts too: it starts the header). */
 function isColumnName(text: string): boolean {
   return text.length <= 40 && isKnownHeader(headerKey(text));
+}
+
+/** A block title with its df: "Treatment (num. df = 1)", "Condition (df = 2, 57)". */
+const TITLE_WITH_DF = /\((?:num(?:erator)?\.?\s*)?dfs?\s*=\s*\d+(?:\.\d+)?(?:\s*,\s*\d+(?:\.\d+)?)?\)/i;
+
+/** Start of the run of `size` header cells with the most known column names (the last such run on a tie). */
+function bestNameWindow(run: Cell[], size: number): number {
+  const known = run.map((cell) => (isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label' ? 1 : 0));
+  let best = -1;
+  let bestCount = -1;
+  let count = known.slice(0, size).reduce((sum: number, value) => sum + value, 0);
+  for (let start = 0; start + size <= run.length; start++) {
+    if (start > 0) count += known[start + size - 1]! - known[start - 1]!;
+    if (count >= bestCount) [best, bestCount] = [start, count];
+  }
+  return best;
 }
 
 /** The number of values most rows have (0 when no row has two). */
