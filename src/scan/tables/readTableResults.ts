@@ -198,7 +198,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
   const located = table.cells ?? locateRows(text, table, headerCount);
-  const baseSchema = readSchema(rows, headerCount, table.layout);
+  const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '));
   const families = columnFamilies(rows.slice(headerCount), baseSchema);
   const schema: Schema = families === undefined ? baseSchema : { ...baseSchema, families };
   const roles = schema.roles;
@@ -534,7 +534,7 @@ const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line']);
  * whose label column has no header, a spanning cell that pushes the names
  * after it to the left).
  */
-export function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout']): Schema {
+export function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout'], notes = ''): Schema {
   const positional = !UNPLACED_LAYOUTS.has(layout ?? '');
   const body = rows.slice(headerCount);
   const headerRows = rows.slice(0, headerCount).map(trimTrailingEmpty);
@@ -595,6 +595,15 @@ export function readSchema(rows: string[][], headerCount: number, layout: Docume
     return null;
   });
   const named = roles.map((_, column) => headerTexts.some((texts) => texts[column] !== ''));
+  // A column named by an abbreviation the notes define ("ES effect size (Cohen's d)", "PES = partial eta squared").
+  if (notes !== '') {
+    roles.forEach((role, column) => {
+      if (column === 0 || (role.role !== 'unknown' && role.role !== 'result')) return;
+      const own = [...headerTexts].reverse().find((texts) => texts[column] !== '')?.[column];
+      const defined = own === undefined ? null : definedInNotes(own, notes);
+      if (defined !== null) roles[column] = defined;
+    });
+  }
   if (!positional) {
     // In a header read from single-spaced words, two names for p in one block are one column named
     // twice ("p-Value Prob > F") or a column of words ("Significance"): only the first takes a cell.
@@ -616,6 +625,40 @@ export function readSchema(rows: string[][], headerCount: number, layout: Docume
     }
   }
   return { roles, titles, positional, named };
+}
+
+/** Lines right after a table that are its notes ("Note.", "Abbreviations:", "1. Abbreviations: ...", "a ..."), at most a few. */
+function notesAfter(text: string, end: number): string {
+  const after = text.slice(end, end + 3000).split('\n');
+  const notes: string[] = [];
+  for (const line of after) {
+    if (line.trim() === '') continue;
+    if (!/^\s{0,8}(?:\d{1,2}\.\s+)?(?:Notes?\b|Abbreviations?\b|[a-h*\u2020\u2021]\s)/.test(line)) break;
+    notes.push(line.trim());
+    if (notes.length >= 4) break;
+  }
+  return notes.join(' ');
+}
+
+/**
+ * The effect size an abbreviation in a header stands for, when the table's notes define it: "ES effect
+ * size (Cohen's d)", "PES = partial eta squared", "ES: η2p". Only effect sizes are taken this way.
+ */
+function definedInNotes(header: string, notes: string): ColumnRole | null {
+  const abbreviation = header.trim();
+  if (abbreviation.length < 2 || abbreviation.length > 8 || !/^[A-Za-z][A-Za-z0-9.]*$/.test(abbreviation)) return null;
+  const escaped = abbreviation.replace(/\./g, '\\.');
+  const match = new RegExp(`(?:^|[\\s,;:(])${escaped}(?: ?[=:,] ?| )([^,;]{3,60})`).exec(notes);
+  if (!match) return null;
+  const definition = match[1]!;
+  const bracketed = /\(([^()]{1,30})\)/.exec(definition)?.[1];
+  const withoutBrackets = definition.replace(/\([^()]*\)/g, ' ').split(/\s+/).filter((word) => word !== '').join(' ');
+  for (const candidate of [bracketed, withoutBrackets, definition.trim()]) {
+    if (candidate === undefined) continue;
+    const role = classifyHeader(candidate);
+    if (role.role === 'effect') return role;
+  }
+  return null;
 }
 
 /** How well a column's body cells fit a role, on average (0 for a column of empty cells). */
@@ -751,7 +794,15 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       // (A row without a statistic, an error term, keeps its leading columns: "Error 28" under df, F, p.)
       const keyColumns = valueRoles.flatMap((role, slot) => (['statistic', 'df', 'df1', 'df2', 'p'].includes(role.role) ? [slot] : []));
       const givesStatistic = placed.columns.some((slot, offset) => slot >= 0 && valueRoles[slot]!.role === 'statistic' && toPlace[offset]!.shape.shape !== 'empty');
-      if (givesStatistic && filled < valueRoles.length && !placementIsClear(toPlace, valueRoles, placed, keyColumns, schema.families)) {
+      // Rows leave their trailing cells empty (an effect size printed only for significant rows): cells that
+      // fill the first columns in order, each fitting its column, every statistic column among them, are clear.
+      const slots = placed.columns.filter((slot) => slot >= 0);
+      const prefix =
+        placed.absorbed === 0 &&
+        slots.every((slot, order) => slot === order) &&
+        placed.columns.every((slot, offset) => slot < 0 || fit(valueRoles[slot]!, toPlace[offset]!.shape) > 0) &&
+        valueRoles.every((role, slot) => role.role !== 'statistic' || slot < slots.length);
+      if (givesStatistic && filled < valueRoles.length && !prefix && !placementIsClear(toPlace, valueRoles, placed, keyColumns, schema.families)) {
         unplaced++;
         continue;
       }

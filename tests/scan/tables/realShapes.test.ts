@@ -196,3 +196,14 @@ describe('a measure whose name starts with "Total" is not a Total row', () => {
     expect(tabled.filter((result) => result.tableRow!.rowLabel.startsWith('Total phenolics')).map(summary)).toEqual(['F(1, 19) = 0.86 p = 0.365', 'F(1, 198) = 11.85 p = 0.001', 'F(1, 198) = 0.49 p = 0.483']);
   });
 });
+
+describe('a column named by an abbreviation its notes define', () => {
+  // divc-03: "ES" over the effect sizes, and under the table "ES effect size (Cohen’s d)"; rows of non-significant
+  // tests leave ES empty.
+  it('reads ES as Cohen\'s d, and reads the rows that leave it empty', () => {
+    const tabled = scan('divc-03').results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(17);
+    expect(tabled[0]!.effects.map((effect) => [effect.kind, effect.value.text])).toEqual([['cohens-d', '0.69']]);
+    expect(tabled.find((result) => result.value?.text === '2.157')?.effects).toEqual([]);
+  });
+});
