@@ -49,7 +49,7 @@ export type CellShape =
 
 /** Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its point). */
 const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
-const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([]\s*(?:(<=|>=|<|>|\u2264|\u2265)\s*)?([-\u2212]?[\d.,]+)\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
+const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([]\s*(?:(<=|>=|<|>|\u2264|\u2265)\s*)?([-\u2212]?[\d.,]+)[a-h]?\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;

@@ -259,6 +259,14 @@ export function classifyHeader(header: string): ColumnRole {
     const inner = classifyHeader(beforeP);
     if (inner.role === 'statistic') return { ...inner, pInCell: true };
   }
+  // "Effect size (ηp2)", "ES (d)": a generic name with the effect size it holds in brackets.
+  const namedInBrackets = /^(?:effect sizes?|es|eff\. size)\s?\(([^()]{1,20})\)$/.exec(key);
+  if (namedInBrackets) {
+    const inner = classifyHeader(namedInBrackets[1]!);
+    if (inner.role === 'effect') return inner;
+  }
+  // "90% CI", "99% CI", "95 % CI": an interval's level with its name.
+  if (CI_WITH_LEVEL.test(key)) return { role: 'descriptive' };
   const knownKey = knownKeyOf(key);
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) {
@@ -291,12 +299,16 @@ export function classifyHeader(header: string): ColumnRole {
   return { role: 'unknown' };
 }
 
+/** "90% CI", "99% CI", "95 % confidence interval". */
+const CI_WITH_LEVEL = /^\d{2}(?:\.\d)? ?% ?(?:ci|confidence interval)$/;
+
 /** A symbol after one to three words naming what it tests: "benefits r", "time (f)", "pre-test t". */
 const QUALIFIED_STATISTIC = /^[a-z][a-z0-9'\u2019-]*(?: [a-z0-9'\u2019-]+){0,2} \(?(r|t|f|chi2|x2)\)?[.:]?$/;
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
   if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key)) return true;
+  if (CI_WITH_LEVEL.test(key)) return true;
   // "Benefits r": a statistic after what it tests (only with its symbol as the phrase's last word).
   if (QUALIFIED_STATISTIC.test(key) && key.includes(' ') && classifyHeader(key).role === 'statistic') return true;
   return withoutPSuffix(key) !== null && classifyHeader(key).role === 'statistic';

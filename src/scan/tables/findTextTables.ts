@@ -352,8 +352,9 @@ function isValueToken(text: string): boolean {
   const kind = readCell(text, 'either').kind;
   if (kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '')) return true;
   // A number with a bracketed one ("0.59 (0.5)": M and SD; "4.842 (15)": t and its df), a df pair ("2, 180"), an estimate with its interval.
+  // A range ("0.000-0.048", an interval's bounds), and a result written in a cell ("F(2,75)=0.31"), are values of the row too.
   const shape = shapeOf(text).shape;
-  return shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair';
+  return shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written';
 }
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */

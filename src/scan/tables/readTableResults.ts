@@ -429,6 +429,17 @@ function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, 
   return results;
 }
 
+/**
+ * A p column's cell: a p, or "n.s.", or a p followed by a second one in brackets (".74 (.99f)", the p of
+ * another analysis a footnote explains): the first is the row's p.
+ */
+function readPCell(cell: string): ReturnType<typeof readCell> {
+  const read = readCell(cell, '.');
+  if (read.kind !== 'text') return read;
+  const lead = /^(\s*(?:[<>=\u2264\u2265]\s?)?(?:0|1)?[.,]\d+[a-h]?)\s?[([][^()[\]]{1,12}[)\]]\s*$/.exec(cell);
+  return lead ? readCell(lead[1]!, '.') : read;
+}
+
 /** True when the cell holds a complete written result ("t(58) = 2.10, p = .04"), which the text scanner reads. */
 function holdsWrittenResult(cell: string): boolean {
   return cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0;
@@ -462,7 +473,7 @@ function completionOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sch
       return;
     }
     if (role.role === 'p' && p === null && !notSignificant) {
-      const read = readCell(cell, '.');
+      const read = readPCell(cell);
       if (read.kind === 'ns') notSignificant = true;
       else if (read.kind === 'number') {
         const start = cellAt.start + read.start;
