@@ -207,3 +207,14 @@ describe('a column named by an abbreviation its notes define', () => {
     expect(tabled.find((result) => result.value?.text === '2.157')?.effects).toEqual([]);
   });
 });
+
+describe('a crushed row with a written result, its effect size, an interval and a p with a second p in brackets', () => {
+  // divc-06: "PHQ-9e –0.53 –0.24 –0.53 F(2,75)=0.31 .008 0.000-0.048 .74 (.99f)" under
+  // "Statistic | Effect size (ηp2) | 90% CI | P value".
+  it('gives the written F the row\'s partial eta squared and its first p', () => {
+    const results = scan('divc-06').results;
+    const first = results.find((result) => result.value?.text === '0.31')!;
+    expect(summary(first)).toBe('F(2, 75) = 0.31 p = .74');
+    expect(first.effects.map((effect) => [effect.kind, effect.value.text])).toEqual([['partial-eta-squared', '.008']]);
+  });
+});
