@@ -63,16 +63,19 @@ const LESS: ReadComparator = { comparator: '<', length: 1 };
 const LESS_OR_EQUAL: ReadComparator = { comparator: '<=', length: 2 };
 const GREATER: ReadComparator = { comparator: '>', length: 1 };
 const GREATER_OR_EQUAL: ReadComparator = { comparator: '>=', length: 2 };
+const MUCH_LESS: ReadComparator = { comparator: '<', length: 2 };
+const MUCH_GREATER: ReadComparator = { comparator: '>', length: 2 };
 
-/** Reads "=", "<", ">", "<=", ">=", "=<", "=>" or "==" at `position` (already normalised from ≤ ≥ ＝). */
+/** Reads "=", "<", ">", "<=", ">=", "=<", "=>", "==", "<<" or ">>" at `position` (already normalised from ≤ ≥ ＝). */
 export function readComparator(text: string, position: number): ReadComparator | null {
   const first = text.charCodeAt(position);
   const second = text.charCodeAt(position + 1);
   const EQUALS = 61;
   const LESS_THAN = 60;
   const GREATER_THAN = 62;
-  if (first === LESS_THAN) return second === EQUALS ? LESS_OR_EQUAL : LESS;
-  if (first === GREATER_THAN) return second === EQUALS ? GREATER_OR_EQUAL : GREATER;
+  // "<<" and ">>" ("much less than", "p<<0.01"): an inequality all the same.
+  if (first === LESS_THAN) return second === EQUALS ? LESS_OR_EQUAL : second === LESS_THAN ? MUCH_LESS : LESS;
+  if (first === GREATER_THAN) return second === EQUALS ? GREATER_OR_EQUAL : second === GREATER_THAN ? MUCH_GREATER : GREATER;
   if (first === EQUALS) {
     if (second === LESS_THAN) return LESS_OR_EQUAL;
     if (second === GREATER_THAN) return GREATER_OR_EQUAL;

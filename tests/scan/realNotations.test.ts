@@ -214,3 +214,14 @@ describe('a statistic whose "=" was lost with its p\'s sign', () => {
     expect(scanText('The t 2.1 version and the F 3 key, p = .04, were used.').results).toEqual([]);
   });
 });
+
+describe('"much less than" written "<<"', () => {
+  // tests/corpus/real/passages/divf-06.txt: "F1,18 = 21.4p<<0.01 (*)ηG2=0.10", "ηG2 <<0.01".
+  it('reads "p<<0.01" and "ηG2 <<0.01" as "<"', () => {
+    const result = onlyResult('velocity F1,18 = 21.4p<<0.01 (*)ηG2=0.10 here');
+    expect(result.p?.comparator).toBe('<');
+    expect(result.p?.value.text).toBe('0.01');
+    expect(result.effects.map((effect) => effect.value.text)).toEqual(['0.10']);
+    expect(onlyResult('F1,18 = 0.10p= 0.76 ηG2 <<0.01').effects.map((effect) => effect.comparator)).toEqual(['<']);
+  });
+});
