@@ -105,34 +105,34 @@ function mergeReprintedTables(tabled: readonly ReportedResult[]): Set<ReportedRe
     if (index === undefined) continue;
     byTable.set(index, [...(byTable.get(index) ?? []), result]);
   }
-  const sameResult = (a: ReportedResult, b: ReportedResult): boolean =>
-    a.kind === b.kind &&
-    sameNumber(a.value, b.value) &&
-    a.df.length === b.df.length &&
-    a.df.every((df, index) => sameNumber(df, b.df[index]!)) &&
-    (a.p === null) === (b.p === null) &&
-    (a.p === null || (a.p.comparator === b.p!.comparator && sameNumber(a.p.value, b.p!.value)));
-  const tables = [...byTable.keys()].sort((a, b) => a - b);
-  for (const later of tables) {
+  // Results of the tables seen so far by what they print (statistic, df, p), so that each later table is
+  // compared with the earlier ones through its own rows only (linear in the results, not in table pairs).
+  const seen = new Map<string, ReportedResult[]>();
+  const keyOf = (result: ReportedResult): string =>
+    [result.kind, result.value?.value, result.value?.decimals, ...result.df.map((df) => `${df.value}/${df.decimals}`), result.p?.comparator ?? '', result.p?.value.value ?? '', result.p?.value.decimals ?? ''].join('|');
+  for (const later of [...byTable.keys()].sort((a, b) => a - b)) {
     const rows = byTable.get(later)!;
-    for (const earlier of tables) {
-      if (earlier >= later) break;
-      const originals = byTable.get(earlier)!.filter((result) => !folded.has(result));
-      const pairs: [ReportedResult, ReportedResult][] = [];
-      const used = new Set<ReportedResult>();
-      for (const row of rows) {
-        const original = originals.find((candidate) => !used.has(candidate) && sameResult(candidate, row));
-        if (original === undefined) continue;
+    const candidates = new Map<number, [ReportedResult, ReportedResult][]>();
+    const used = new Set<ReportedResult>();
+    for (const row of rows) {
+      for (const original of seen.get(keyOf(row)) ?? []) {
+        const table = original.tableRow!.tableIndex;
+        if (used.has(original) || folded.has(original)) continue;
         used.add(original);
-        pairs.push([original, row]);
+        candidates.set(table, [...(candidates.get(table) ?? []), [original, row]]);
+        break;
       }
-      if (pairs.length < MIN_REPRINTED_ROWS || pairs.length * 2 < rows.length) continue;
-      for (const [original, row] of pairs) {
+    }
+    // The earliest table that this one repeats in at least half its results.
+    const repeated = [...candidates.entries()].sort((a, b) => a[0] - b[0]).find(([, pairs]) => pairs.length >= MIN_REPRINTED_ROWS && pairs.length * 2 >= rows.length);
+    if (repeated !== undefined) {
+      for (const [original, row] of repeated[1]) {
         folded.add(row);
         original.alsoAt = [...(original.alsoAt ?? []), { start: row.start, end: row.end }];
       }
-      break;
+      continue;
     }
+    for (const row of rows) seen.set(keyOf(row), [...(seen.get(keyOf(row)) ?? []), row]);
   }
   return folded;
 }
