@@ -106,9 +106,15 @@ export function shapeOf(cell: string): CellShape {
       return { shape: 'numeric' };
     }
   }
+  // "2.71 (41) .010": a statistic with its df and its p (under "t (df) p").
+  const withDfAndP = STATISTIC_DF_AND_P.exec(text);
+  if (withDfAndP) return { shape: 'statistic-p', value: Number(withDfAndP[1]!.replace(/[\u2212\u2013]/, '-').replace(/\s/g, '')) };
   if (NUMERIC.test(text)) return { shape: 'numeric' };
   return { shape: 'text' };
 }
+
+/** A statistic, its df in brackets and a p: "2.71 (41) .010", "4.21 (2, 57) <.001". */
+const STATISTIC_DF_AND_P = /^((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?\d{1,6}(?:\.\d+)?(?: ?[,;] ?\d{1,6}(?:\.\d+)?)? ?[)\]][*\u2020\u2021]{0,3},? ?(?:p ?)?(?:<=|>=|<|>|=|\u2264|\u2265)? ?(?:0|1)?\.\d+[*\u2020\u2021]{0,3}[a-h]?$/;
 
 /** Digits with punctuation and no words: counts, fractions, percentages and their brackets. */
 const NUMERIC = /^(?=.*\d)[\d\s.,:;/()[\]%±+\-\u2212\u2013]{1,60}$/;

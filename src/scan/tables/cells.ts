@@ -246,6 +246,8 @@ function withoutPSuffix(key: string): string | null {
   for (const suffix of [', p', ',p', ' (p)', '(p)', ' (p-value)', ' (p value)', '(p-value)']) {
     if (key.endsWith(suffix) && key.length > suffix.length) return key.slice(0, key.length - suffix.length).replace(/[a-h]$/, '');
   }
+  // "t (df) p": the p after the df's brackets.
+  if (/\) ?p$/.test(key)) return key.slice(0, key.length - 1).trimEnd();
   return null;
 }
 
@@ -311,7 +313,9 @@ export function isKnownHeader(key: string): boolean {
   if (CI_WITH_LEVEL.test(key)) return true;
   // "Benefits r": a statistic after what it tests (only with its symbol as the phrase's last word).
   if (QUALIFIED_STATISTIC.test(key) && key.includes(' ') && classifyHeader(key).role === 'statistic') return true;
-  return withoutPSuffix(key) !== null && classifyHeader(key).role === 'statistic';
+  // (Not "t (df) p" from words run together: in a header read from single-spaced words, the "p" there
+  // begins the next column's name, "t value (df) P value".)
+  return withoutPSuffix(key) !== null && !/\) ?p$/.test(key) && classifyHeader(key).role === 'statistic';
 }
 
 let firstWords: Set<string> | null = null;

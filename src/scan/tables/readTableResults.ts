@@ -193,7 +193,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const nothing: TableReading = { results: [], unread: null, completions: [] };
   const rows = table.rows;
   // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)").
-  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || shapeOf(cell).shape === 'number-bracket'));
+  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || shapeOf(cell).shape === 'number-bracket' || shapeOf(cell).shape === 'statistic-p'));
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
@@ -1076,8 +1076,10 @@ function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, colu
 function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   const { row, cellsAt, segment, kind } = input;
   const columns = segment.columns;
+  // "2.71 (41) .010": the statistic, its df and its p in one cell, under "t (df) p".
+  const withDfAndP = segment.dfInCell && segment.pInCell ? statisticWithDfAndP(row, cellsAt, columns.get('statistic'), kind) : null;
   // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
-  const withDf = statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
+  const withDf = withDfAndP ?? statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
   // "0.11, p > 0.05": the statistic with its p.
   const withP = withDf === null ? (statisticWithP(row, cellsAt, columns.get('statistic')) ?? (segment.pInCell ? statisticWithBracketP(row, cellsAt, columns.get('statistic'), input.separator) : null)) : null;
   const statistic = withDf?.statistic ?? withP?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
@@ -1126,7 +1128,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   if (df === null) return 'no-df';
   if (df.some((value) => !(value.value > 0))) return null;
 
-  const pCell = withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
+  const pCell = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);
   const effects: ReportedEffect[] = [];
   for (const [key, column] of columns) {
@@ -1255,6 +1257,39 @@ function statisticWithBracketP(
     statistic: { comparator: '=', record: { ...valueRead.number, start: at === null ? -1 : at.start + valueAt + valueRead.start, end: at === null ? -1 : at.start + valueAt + valueRead.end } },
     p: { comparator: comparatorText as Comparator, record: { ...pRead.number, start: at === null ? -1 : at.start + pAt + pRead.start, end: at === null ? -1 : at.start + pAt + pRead.end } },
   };
+}
+
+/** "2.71 (41) .010", "4.21 (2, 57) <.001", "2.71 (41), p = .010". Groups: value, df1, df2, comparator, p. */
+const STATISTIC_DF_P = /^ *((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,6}(?:\.\d+)?) ?(?:[,;] ?(\d{1,6}(?:\.\d+)?) ?)?[)\]][*\u2020\u2021]{0,3},? ?(?:p ?)?(<=|>=|<|>|=|\u2264|\u2265)? ?((?:0|1)?\.\d+|0|1)[*\u2020\u2021]{0,3}[a-h]? *$/;
+
+/** A statistic cell that holds its df and its p (under a header "t (df) p"), with the offsets of each number. */
+function statisticWithDfAndP(
+  row: string[],
+  cellsAt: (LocatedCell | null)[] | null,
+  column: number | undefined,
+  kind: StatisticKind,
+): { statistic: NumberCell; df: NumberCell[]; p: NumberCell } | null {
+  if (column === undefined || kind === 'z') return null;
+  const cell = row[column] ?? '';
+  const match = STATISTIC_DF_P.exec(normaliseText(cell).text === cell ? cell : cell.replace(/\u2212/g, '-'));
+  if (!match) return null;
+  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  if (dfTexts.length !== (kind === 'F' ? 2 : 1)) return null;
+  const at = cellsAt?.[column] ?? null;
+  let from = 0;
+  const locate = (written: string, comparator: Comparator): NumberCell | null => {
+    const number = parseReportedNumber(written.replace(/\s/g, '').replace('\u2212', '-').replace('\u2013', '-'));
+    if (number === null) return null;
+    const offset = cell.indexOf(written, from);
+    from = offset + written.length;
+    return { comparator, record: { ...number, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length } };
+  };
+  const statistic = locate(match[1]!, '=');
+  const df = dfTexts.map((text) => locate(text, '='));
+  const comparatorText = match[4] === '\u2264' ? '<=' : match[4] === '\u2265' ? '>=' : (match[4] ?? '=');
+  const p = locate(match[5]!, comparatorText as Comparator);
+  if (statistic === null || p === null || df.some((cell) => cell === null)) return null;
+  return { statistic, df: df as NumberCell[], p };
 }
 
 const PAIR_CELL = /^\s*(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)\s*$/;

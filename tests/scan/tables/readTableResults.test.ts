@@ -366,3 +366,15 @@ describe('rows a crushed table holds that are not tests', () => {
     expect(scan.tablesNotRead).toHaveLength(1);
   });
 });
+
+describe('a statistic, its df and its p in one cell', () => {
+  // A cell form real tables use ("t (df) p" over "2.71 (41) .010"); numbers invented for the layout, read by eye.
+  it('reads "2.71 (41) .010" under "t (df) p" as t(41) = 2.71, p = .010', () => {
+    const text = 'Table 2. Group differences\n| Measure | t (df) p |\n|---|---|\n| Recall | 2.71 (41) .010 |\n| Speed | 1.20 (41) <.001 |\n';
+    const tabled = scanDocument(plainTextDocument('t.txt', 'text', text)).results.filter((result) => result.tableRow);
+    expect(tabled.map((result) => [result.kind, result.df.map((df) => df.text).join(','), result.value?.text, result.p?.comparator, result.p?.value.text])).toEqual([
+      ['t', '41', '2.71', '=', '.010'],
+      ['t', '41', '1.20', '<', '.001'],
+    ]);
+  });
+});
