@@ -167,17 +167,7 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
 function tabCells(line: Line): Piece[] | null {
   const text = line.text;
   if (line.crushed === true || text.length > MAX_ROW_LENGTH || !text.trimStart().includes('\t')) return null;
-  const pieces: Piece[] = [];
-  let at = text.length - text.trimStart().length;
-  while (at <= text.length) {
-    let end = text.indexOf('\t', at);
-    if (end === -1) end = text.length;
-    const raw = text.slice(at, end);
-    const lead = raw.length - raw.trimStart().length;
-    const trimmed = raw.trim();
-    pieces.push({ text: trimmed, start: line.start + at + lead, end: line.start + at + lead + trimmed.length });
-    at = end + 1;
-  }
+  const pieces = splitCells(line, text.length - text.trimStart().length, '\t');
   return pieces.length >= 2 ? pieces : null;
 }
 
@@ -227,11 +217,17 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
 
 /** The cells of a pipe row with their offsets in the text (the same cells pipeCells reads). */
 function pipeCellSpans(line: Line, count: number): Piece[] {
+  const text = line.text;
+  return splitCells(line, text.trimStart().startsWith('|') ? text.indexOf('|') + 1 : 0, '|', count);
+}
+
+/** A line cut at `separator` from `from` on, each cell trimmed, with its offsets in the text; at most `count` cells. */
+function splitCells(line: Line, from: number, separator: string, count = Infinity): Piece[] {
   const pieces: Piece[] = [];
   const text = line.text;
-  let at = text.trimStart().startsWith('|') ? text.indexOf('|') + 1 : 0;
+  let at = from;
   while (pieces.length < count && at <= text.length) {
-    let end = text.indexOf('|', at);
+    let end = text.indexOf(separator, at);
     if (end === -1) end = text.length;
     const raw = text.slice(at, end);
     const lead = raw.length - raw.trimStart().length;
