@@ -68,15 +68,11 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
  * alone ("t 2.1") are left alone. The text keeps its length, so offsets do
  * not move.
  */
-const LOST_EQUALS = /(?<![\p{L}\d])(?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+(?:\.\d+)?(?:\s?,\s?\d+(?:\.\d+)?)?\s?\))?( )[-\u2212]?(?:\d+)?\.\d+, ?p (?:0?\.\d+)(?![\d.])/gu;
+const LOST_EQUALS = /(?<![\p{L}\d])((?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+(?:\.\d+)?(?:\s?,\s?\d+(?:\.\d+)?)?\s?\))?) ([-\u2212]?\d*\.\d+, ?p 0?\.\d+)(?![\d.])/gu;
 
 function restoreLostEquals(text: string): string {
   if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
-  return text.replace(LOST_EQUALS, (match, _space: string, offset: number) => {
-    const head = /^(?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\([^)]*\))?/u.exec(match)![0];
-    void offset;
-    return `${head}=${match.slice(head.length + 1)}`;
-  });
+  return text.replace(LOST_EQUALS, '$1=$2');
 }
 
 /** How far before an r the word "Spearman" makes it a rank correlation ("Spearman's correlation was small, r(58) = .12"). */
