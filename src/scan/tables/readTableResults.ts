@@ -545,7 +545,7 @@ const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line']);
  * whose label column has no header, a spanning cell that pushes the names
  * after it to the left).
  */
-export function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout'], notes = ''): Schema {
+function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout'], notes = ''): Schema {
   const positional = !UNPLACED_LAYOUTS.has(layout ?? '');
   const body = rows.slice(headerCount);
   const headerRows = rows.slice(0, headerCount).map(trimTrailingEmpty);
