@@ -64,15 +64,13 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
   if (title === undefined || !TABLE_TITLE.test(title.text)) return null;
   const cells = collectCells(lines, titleLine + 1);
   const runs = readRuns(cells);
-  const statistics = runs.filter((run) => run.kind === 'statistic');
-  if (statistics.length === 0) return null;
   pairRuns(runs);
   const kindOf = (run: Run): string => (run.role.role === 'statistic' ? run.role.kind : '');
   const paired = runs.filter((run, index) => run.kind === 'statistic' && runs.some((other) => other.kind === 'p' && other.pairedWith === index));
   if (paired.length === 0) return null;
-  // One kind of statistic per table (the first paired one): the reader reads one kind per table.
+  // The rows of one kind of statistic (the first paired one), so that the rebuilt table has one set of df columns.
   const kind = kindOf(paired[0]!);
-  const header = kind === 'F' ? ['', 'F', 'df1', 'df2', 'p'] : ['', symbolHeader(kind), 'df', 'p'];
+  const header = kind === 'F' ? ['', 'F', 'df1', 'df2', 'p'] : ['', kind, 'df', 'p'];
   const effectNames: string[] = [];
   for (const run of runs) {
     if (run.kind === 'effect' && run.pairedWith !== undefined && kindOf(runs[run.pairedWith]!) === kind && !effectNames.includes(run.name.text)) effectNames.push(run.name.text);
@@ -107,11 +105,11 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
       }
       rows.push(row);
       spans.push(rowSpans);
-      for (const partner of [p, ...partners]) {
-        const last = partner.values[partner.values.length - 1]!;
-        if (last.end > lastCell.end) lastCell = last;
-      }
     });
+    for (const partner of partners) {
+      const last = partner.values[partner.values.length - 1]!;
+      if (last.end > lastCell.end) lastCell = last;
+    }
   });
   if (rows.length < 2) return null;
   return {
@@ -127,10 +125,6 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
     },
     lastLine: lastCell.line,
   };
-}
-
-function symbolHeader(kind: string): string {
-  return kind === 'chi2' ? 'chi2' : kind;
 }
 
 function spanOf(cell: Cell): CellSpan {
