@@ -310,7 +310,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
       if (result === 'no-df' && mentionsLevene && (segment.kind ?? kind) === 'F') leveneWithoutDf.push(segment);
       else if ((result === null || result === 'no-df') && shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
     }
-    // Levene's test for two groups has df 1 and N − 2, the df of the pooled t test printed in the same row.
+    // Levene's test for two groups has df 1 and N − 2 (k − 1 and N − k; Levene 1960, from memory), the df of the
+    // pooled t test printed in the same row.
     const pooledT = results.slice(resultsBefore).find((result) => result.kind === 't' && result.df.length === 1 && result.df[0]!.decimals === 0);
     for (const segment of leveneWithoutDf) {
       const levene =
