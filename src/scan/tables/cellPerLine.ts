@@ -27,14 +27,10 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, TABLE_TITLE } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
 
-interface Line {
-  start: number;
-  end: number;
-  text: string;
-}
+type Line = TextLine;
 
 interface Cell {
   text: string;

@@ -137,6 +137,13 @@ export function isNumberCell(cell: string): boolean {
 }
 
 /** What a column holds, read from its header. */
+/** A line of the text with its offsets, as the table finders cut it. */
+export interface TextLine {
+  start: number;
+  end: number;
+  text: string;
+}
+
 export type ColumnRole =
   | { role: 'label' }
   | { role: 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' }

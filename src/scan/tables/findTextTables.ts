@@ -20,16 +20,13 @@
  */
 
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
-import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE } from './cells.js';
+import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
 import { readGluedTable } from './glued.js';
 import { readTransposedTable } from './transposed.js';
 
-interface Line {
-  start: number;
-  end: number;
-  text: string;
+interface Line extends TextLine {
   /** Cells are separated by single spaces whatever the gaps look like (see withConsistentSeparators). */
   crushed?: boolean;
 }

@@ -17,13 +17,9 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, knownHeaderNames, type ColumnRole } from './cells.js';
+import { classifyHeader, knownHeaderNames, type ColumnRole, type TextLine } from './cells.js';
 
-interface Line {
-  start: number;
-  end: number;
-  text: string;
-}
+type Line = TextLine;
 
 /** Longest header line and row read. */
 const MAX_LINE = 300;

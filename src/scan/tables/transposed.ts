@@ -21,13 +21,9 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, readCell, TABLE_TITLE, type ColumnRole } from './cells.js';
+import { classifyHeader, readCell, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
 
-interface Line {
-  start: number;
-  end: number;
-  text: string;
-}
+type Line = TextLine;
 
 interface Cell {
   text: string;
