@@ -54,7 +54,7 @@ const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
-const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
+const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:[*\u2020\u2021]{1,4} *)?[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
 
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {
@@ -102,7 +102,9 @@ export function shapeOf(cell: string): CellShape {
       const inside = value >= Math.min(low.number.value, high.number.value) - slack && value <= Math.max(low.number.value, high.number.value) + slack;
       const wholePair = /^\d+$/.test(low.number.text) && /^\d+(?:\.\d+)?$/.test(high.number.text) && /\d\s*[,;]\s*\d/.test(text);
       if (inside) return wholePair ? { shape: 'number-interval', value, wholePair } : { shape: 'number-interval', value };
-      if (wholePair) return { shape: 'number-bracket', value, inner: low.number.value, innerDecimals: 0, innerPair: true };
+      // Outside its bracket, a value's two positive numbers are its df, corrected ones too: "1.19 (1.48, 72.71)".
+      const correctedPair = /^\d+\.\d+$/.test(low.number.text) && /^\d+(?:\.\d+)?$/.test(high.number.text) && low.number.value <= high.number.value && /\d\s*[,;]\s*\d/.test(text);
+      if (wholePair || correctedPair) return { shape: 'number-bracket', value, inner: low.number.value, innerDecimals: 0, innerPair: true };
       return { shape: 'numeric' };
     }
   }

@@ -51,6 +51,9 @@ const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[
 const INCOMPLETE_HEADERS = new Set(['eta', 'etap', 'eta p', 'etag', 'partial eta', 'omega', 'omegap', 'chi', 'x', 'partial omega']);
 const HEADER_CONTINUATION = /^\s*(?:2|p|g|p2|2p|g2|2g)(?:\s+(?:2|p|g|p2|2p|g2|2g)){0,3}\s*$/;
 
+/** A short code naming a column, letters then a digit: "T1", "T0\u20132", "W12", "Q3a" (not a bare number). */
+const COLUMN_CODE = /^[A-Za-z]{1,3}\d{1,3}(?:[\u2013\u2014-]\d{1,3})?[a-z]?$/;
+
 /** Finds the tables in a text that carries no table markup. */
 export function findTextTables(text: string): DocumentTable[] {
   const lines = splitLines(text).map(withConsistentSeparators);
@@ -185,7 +188,10 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
       const nextIsRow = lines[index + 1] !== undefined && tabCells(lines[index + 1]!) !== null;
       if (isBlank(lines[index]) && nextIsRow) continue;
       // A section line ("Activity/ playfulness") between rows, written without tabs.
-      if (isSectionLine(lines[index]) && nextIsRow) {
+      // A lone value between rows ("0.50 (0.32, 0.74)") is a piece of a row the page broke over lines; it is
+      // joined with the pieces around it below.
+      const loneValue = !isBlank(lines[index]) && isValueToken(lines[index]!.text.trim());
+      if ((isSectionLine(lines[index]) || loneValue) && nextIsRow) {
         const line = lines[index]!;
         const lead = leadingSpace(line.text);
         rows.push([{ text: line.text.trim(), start: line.start + lead, end: line.start + lead + line.text.trim().length }]);
@@ -279,8 +285,9 @@ function tokenize(text: string): Piece[] {
     let depth = 0;
     while (at < text.length) {
       const code = text.charCodeAt(at);
-      if (code === 40) depth++;
-      else if (code === 41) depth = Math.max(0, depth - 1);
+      // Round and square brackets both hold a cell's parts: "(2, 57)", "[-1.1, 0.22]".
+      if (code === 40 || code === 91) depth++;
+      else if (code === 41 || code === 93) depth = Math.max(0, depth - 1);
       else if (depth === 0 && isSpace(code)) break;
       at++;
     }
@@ -299,9 +306,20 @@ function tokenize(text: string): Piece[] {
     }
     // "2, 180": both df of an F in one cell, split at its space.
     const dfPair = previous !== undefined && /^\d{1,4}(?:\.\d+)?,$/.test(previous.text) && /^\d{1,6}(?:[.,]\d+)?$/.test(token.text);
+    // "\u2212 0.44": a minus sign set apart from its number (PDF and web copies do); the minus sign, unlike a
+    // dash, never stands for an empty cell.
+    const detachedMinus = previous !== undefined && previous.text === '\u2212' && /^\.?\d/.test(token.text);
     const joinsPrevious =
-      previous !== undefined && (dfPair || token.text.startsWith('(') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
-    if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
+      previous !== undefined &&
+      (dfPair || detachedMinus || token.text.startsWith('(') || token.text.startsWith('[') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
+    // "0.26 * (0.14, 0.43)": a value, its stars and its interval are one cell.
+    const beforeMark = tokens[tokens.length - 2];
+    const markedBracket =
+      previous !== undefined && beforeMark !== undefined && /^[([]/.test(token.text) && /^[*\u2020\u2021]{1,4}$/.test(previous.text) && /^[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(beforeMark.text);
+    if (markedBracket) {
+      tokens.pop();
+      tokens[tokens.length - 1] = { text: text.slice(beforeMark.start, token.end), start: beforeMark.start, end: token.end };
+    } else if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
     else tokens.push(token);
   }
   return tokens;
@@ -455,9 +473,17 @@ function readHeader(line: Line): HeaderLine | null {
       // unknown meaning, tolerated when the names around it clearly make a header.
       let end = index + 1;
       while (end < tokens.length && knownPhraseLength(tokens, end) === 0) end++;
-      columns.push(join(text, tokens[index]!, tokens[end - 1]!));
+      // Codes with a digit each ("T0\u20131 T0\u20132", "T1 T2 T3", "W0 W12") are a column each; words ("Time 1",
+      // "Baseline", "Difficulty accessing dental care,") are one name.
+      const codes = end - index >= 2 && tokens.slice(index, end).every((token) => COLUMN_CODE.test(token.text));
+      if (codes) {
+        for (let at = index; at < end; at++) columns.push(tokens[at]!);
+        unknown += end - index;
+      } else {
+        columns.push(join(text, tokens[index]!, tokens[end - 1]!));
+        unknown++;
+      }
       index = end;
-      unknown++;
       continue;
     }
     const phrase = join(text, tokens[index]!, tokens[index + length - 1]!);
@@ -568,7 +594,7 @@ function isSectionLine(line: Line | undefined): boolean {
   if (text === '' || text.length > 60 || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
   // Digits may stand in a name ("GAD-7", "SF-36 PCS"), not as a value at the line's end, except in a numbered
   // group's name ("Sample 1", "Study 2", "Experiment 3b").
-  const numberedGroup = /^[A-Z][A-Za-z]+(?: [A-Za-z]+)? \d{1,2}(?:[a-z]|\/\d{1,2})?$/.test(text);
+  const numberedGroup = /^[A-Z][A-Za-z]+(?: [A-Za-z]+)? \d{1,3}(?:[a-z]|\/\d{1,2})?$/.test(text);
   if (!numberedGroup && /\d/.test(text) && (isValueToken(text.split(/\s+/).pop()!) || /\d\s*\)?$/.test(text))) return false;
   return text.split(/\s+/).length <= 6;
 }
@@ -591,10 +617,24 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
   let last = header === null ? first - 1 : index - 1;
+  let widest = header === null ? 0 : header.columns.length - 1;
   for (; index < lines.length; index++) {
     const line = lines[index]!;
+    // A line of values only, under a row that came out short: the rest of that row, broken over lines
+    // by the copy ("Contact 0.26 * (0.14, 0.43)" / "0.50 (0.32, 0.74)" / "- 3.60 0.07").
+    const previous = rows[rows.length - 1];
+    // (Crushed rows only: their cells are placed by what they hold, not by where they stand on the line.)
+    if (header !== null && !header.aligned && !header.tabbed && previous !== undefined && !Array.isArray(previous)) {
+      const rest = continuationValues(line, widest - previous.data.values.length);
+      if (rest !== null) {
+        previous.data = { ...previous.data, values: [...previous.data.values, ...rest] };
+        last = index;
+        continue;
+      }
+    }
     const data = readRowLine(line, dataRows === 0);
     if (data !== null) {
+      widest = Math.max(widest, data.values.length);
       rows.push({ data, line });
       dataRows++;
       last = index;
@@ -619,6 +659,18 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   }
   if (dataRows === 0) return null;
   return { ...placeRows(rows, header, last), headed: header !== null, ...(blockTitles !== null ? { firstLine: first - 1 } : {}) };
+}
+
+/**
+ * The values of a line that holds nothing else (no label), when there are at
+ * most `room` of them; null otherwise. (Their offsets stay relative to their
+ * own line: a crushed row's cells are kept as text.)
+ */
+function continuationValues(line: Line, room: number): Piece[] | null {
+  if (room <= 0 || isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text)) return null;
+  const tokens = tokenize(line.text);
+  if (tokens.length === 0 || tokens.length > room || !tokens.every((token) => isValueToken(token.text) || isMarkToken(token.text))) return null;
+  return tokens;
 }
 
 /** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */

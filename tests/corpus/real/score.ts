@@ -126,6 +126,8 @@ export interface Outcome {
   pRight: boolean;
   effectsRight: boolean;
   failed: boolean;
+  /** Not found, but inside a table the scan lists as not (fully) read: the audit says it skipped something. */
+  listedUnread: boolean;
 }
 
 export interface FalseAlarm {
@@ -147,7 +149,15 @@ export function scorePassage(passage: RealPassage): PassageScore {
   const scan = scanDocument(document);
   const checked = checkResults(passage.text, scan, config);
   const taken = new Set<number>();
-  const outcomes: Outcome[] = passage.results.map((label) => ({ passage, label, found: null, pRight: false, effectsRight: false, failed: false }));
+  const outcomes: Outcome[] = passage.results.map((label) => ({
+    passage,
+    label,
+    found: null,
+    pRight: false,
+    effectsRight: false,
+    failed: false,
+    listedUnread: scan.tablesNotRead.some((table) => table.start < label.end && label.start < table.end),
+  }));
   // Labels in order; each takes the first found result that matches it and is not taken yet.
   outcomes.forEach((outcome) => {
     // A result printed in two places (alsoAt) may answer the label of each place.
@@ -184,6 +194,8 @@ export interface Figures {
   /** Labels without their df (an F with no df printed anywhere): found anyway, or not. */
   withoutDf: number;
   falseAlarms: number;
+  /** Readable labels not found and not inside a table the audit lists as not read: skipped without a word. */
+  silentMisses: number;
 }
 
 const ratio = (a: number, b: number): number => (b === 0 ? 1 : a / b);
@@ -212,6 +224,7 @@ export function figures(scores: PassageScore[], where: 'all' | 'table' | 'text')
     failRateOnConsistent: ratio(failsOnConsistent, outcomes.filter((o) => o.label.consistent === true).length),
     withoutDf: outcomes.length - readable.length,
     falseAlarms: falseAlarms.length,
+    silentMisses: readable.filter((o) => o.found === null && !o.listedUnread).length,
   };
 }
 
@@ -239,7 +252,8 @@ function figuresLine(name: string, f: Figures): string {
     `${name.padEnd(14)} labels ${String(f.labels).padStart(4)} (readable ${String(f.readable).padStart(4)})  ` +
     `recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}  ` +
     `p read ${percent(f.pAccuracy).padStart(6)}  effects read ${percent(f.effectAccuracy).padStart(6)}  ` +
-    `fails on consistent ${f.failsOnConsistent}/${f.consistent}  false alarms ${f.falseAlarms}`
+    `fails on consistent ${f.failsOnConsistent}/${f.consistent}  false alarms ${f.falseAlarms}  ` +
+    `missed silently ${f.silentMisses}/${f.readable - Math.round(f.recall * f.readable)}`
   );
 }
 
