@@ -51,14 +51,36 @@ const SAMPLE_NOUNS: ReadonlySet<string> = new Set([
   'girls', 'boys', 'males', 'females',
 ]);
 
+const TENS = ['twenty', 'thirty', 'forty', 'fifty', 'sixty', 'seventy', 'eighty', 'ninety'];
+const UNITS = ['one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine'];
+const TEENS = ['ten', 'eleven', 'twelve', 'thirteen', 'fourteen', 'fifteen', 'sixteen', 'seventeen', 'eighteen', 'nineteen'];
+/** A count from 10 to 99 in words, then a space and a letter: "Thirty-two healthy", "twelve children". */
+const SPELLED_COUNT = new RegExp(`(?:(${TENS.join('|')})(?:[-\\u2010\\u2011 ](${UNITS.join('|')}))?|(${TEENS.join('|')})) (?=[A-Za-z])`, 'gi');
+
+function spelledValue(match: RegExpExecArray): number {
+  if (match[3] !== undefined) return 10 + TEENS.indexOf(match[3].toLowerCase());
+  return 10 * (TENS.indexOf(match[1]!.toLowerCase()) + 2) + (match[2] === undefined ? 0 : UNITS.indexOf(match[2].toLowerCase()) + 1);
+}
+
 /** Reads the document context from the normalised text; offsets are mapped to the original. */
 export function readDocumentContext(normalised: NormalisedText): DocumentContext {
   const text = normalised.text;
   const found = new ContextCollector(normalised);
   const anchor = new RegExp(CONTEXT_ANCHOR.source, CONTEXT_ANCHOR.flags);
+  // Counts written in words, as a sentence must begin ("Thirty-two healthy subjects were enrolled"), read in
+  // their place among the other statements (the collector takes statements in the order of the text).
+  const spelled = new RegExp(SPELLED_COUNT.source, SPELLED_COUNT.flags);
+  let word = spelled.exec(text);
+  const readWordsBefore = (position: number): void => {
+    for (; word !== null && word.index < position; word = spelled.exec(text)) {
+      if (isWholeWordStart(text, word.index)) found.sampleSize(readSampleNoun(text, word.index + word[0].length, word.index, spelledValue(word)));
+    }
+  };
   for (let match = anchor.exec(text); match !== null; match = anchor.exec(text)) {
+    readWordsBefore(match.index);
     readCandidate(text, match.index, match[0], found);
   }
+  readWordsBefore(text.length);
   return found.finish();
 }
 
@@ -399,13 +421,15 @@ function readAdjustmentStatement(text: string, sentence: Span): (Span & Omit<PAd
 // ---------------------------------------------------------------- sample sizes
 
 /** "N = 120" / "N = 1,024" (capital N: the whole sample; a lower-case n is a group). */
-const CAPITAL_N = /^N\s{0,2}=\s{0,2}(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.])/;
+const CAPITAL_N = /^N\s{0,2}=\s{0,2}(\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?!\d|\.\d)/;
 
 /**
  * Before an "N =" that belongs to one test: inside a statistic's brackets
  * ("χ2(2, N = 120)") or after its value or p ("r = .30, N = 90").
  */
 const TEST_BEFORE = /(?:[([]\s{0,2}\d{1,5}(?:\.\d{1,3})?\s{0,2}[,;]\s{0,2}|(?:=|<|>)\s{0,2}-?\d{0,5}\.?\d{1,6}\s{0,2}[,;]\s{0,2})$/;
+/** After an "N =" that belongs to one test: a statistic follows in the same brackets, "(N = 18, r = −0.595, p = .009)". */
+const TEST_AFTER = /^\s{0,2}[,;]\s{0,2}(?:r|rs|\u03c1|rho|t|F|z|\u03c7\s?2|chi2|X2)\s{0,2}(?:\(\s{0,2}\d|=|<|>)/;
 /** Before a count of part of the sample: "a subsample (N = 60)", "of these, 40 women", "only 96 participants". */
 const SUBSET_BEFORE =
   /(?:\bof\s(?:these|them|whom|those)[,:]?|\bsub-?samples?(?:\sof)?|\bsubsets?(?:\sof)?|\bsub-?groups?(?:\sof)?|\bonly|\bavailable\s(?:for|from)|\b(?:measures?|scores?|ratings?|recordings?|samples?)\s(?:for|from))[\s(]{1,3}(?:the\s)?$/i;
@@ -428,7 +452,7 @@ function readCapitalN(text: string, at: number): (Span & { value: number; scope:
   const before = text.slice(Math.max(0, at - 30), at);
   const scope: SampleScope = PER_GROUP_AFTER.test(text.slice(end, end + 50))
     ? 'per-group'
-    : TEST_BEFORE.test(before)
+    : TEST_BEFORE.test(before) || TEST_AFTER.test(text.slice(end, end + 30))
       ? 'test'
       : SUBSET_BEFORE.test(before)
         ? 'subset'
@@ -437,7 +461,7 @@ function readCapitalN(text: string, at: number): (Span & { value: number; scope:
 }
 
 /** "n = 20 per group", "n = 15 in each condition", "(n = 20 each)": a lower-case n is read only as a per-group statement. */
-const LOWER_N_PER_GROUP = /^n\s{0,2}=\s{0,2}(\d{1,5})(?![\d.])/;
+const LOWER_N_PER_GROUP = /^n\s{0,2}=\s{0,2}(\d{1,5})(?!\d|\.\d)/;
 
 function readLowerNPerGroup(text: string, at: number): (Span & { value: number; scope: SampleScope }) | null {
   if (!isWholeWordStart(text, at)) return null;
@@ -489,8 +513,15 @@ const LABEL_WORDS: ReadonlySet<string> = new Set(['year', 'grade', 'form', 'clas
 function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value: number; scope: SampleScope }) | null {
   const count = countEndingAt(text, lastDigitAt);
   if (count === null) return null;
-  const { start: countStart, written } = count;
-  let at = lastDigitAt + 2;
+  return readSampleNoun(text, lastDigitAt + 2, count.start, parseCount(count.written));
+}
+
+/**
+ * The sample noun after a count whose value is `value` and which starts at
+ * `countStart`; `at` is the first letter after the count and its space.
+ */
+function readSampleNoun(text: string, wordsAt: number, countStart: number, value: number): (Span & { value: number; scope: SampleScope }) | null {
+  let at = wordsAt;
   for (let word = 0; word <= MAX_WORDS_BEFORE_NOUN; word++) {
     const wordStart = at;
     const limit = Math.min(text.length, at + MAX_WORD_LENGTH + 1);
@@ -511,7 +542,6 @@ function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value
       if (EXCLUDED_AFTER.test(after)) return null;
       const before = text.slice(Math.max(0, countStart - 40), countStart);
       if (EXCLUDED_BEFORE.test(before)) return null;
-      const value = parseCount(written);
       if (value === 0) return null;
       // "20 participants in each condition": the statement runs to the end of its per-group phrase.
       const perGroup = PER_GROUP_AFTER.exec(after);

@@ -45,6 +45,7 @@ export function readResult(text: string, position: number, comparatorAt = -1): R
   const head = readStatisticHead(text, position);
   if (head === null || (comparatorAt !== -1 && head.comparatorAt !== comparatorAt)) return null;
   const draft: ResultDraft = { head, end: head.end, p: null, notSignificant: false, effects: [] };
+  withSampleSizeBefore(text, position, draft);
   const directP = readTail(text, draft);
   if (head.needsP && !directP) return null;
   if (head.needsTrailingDf === true && draft.head.df.length === 0) return null;
@@ -208,6 +209,20 @@ function isCorrelationSampleSize(draft: ResultDraft, named: NameValueRead): bool
   if (head.kind !== 'r' || head.df.length > 0 || named.name !== 'n' || named.comparator !== '=') return false;
   const { value, decimals, exponent } = named.value;
   return decimals === 0 && exponent === 0 && Number.isInteger(value) && value >= 3;
+}
+
+/** "(N = 18, " right before a correlation, in its brackets: the correlation's sample size. */
+const SAMPLE_SIZE_BEFORE = /[([]\s{0,2}[Nn]\s{0,2}=\s{0,2}(\d{1,7})\s{0,2}[,;]\s{0,2}$/;
+
+/** "(N = 18, r = −0.595, p = .009)": a correlation's df are N - 2, from the N written before it in its brackets. */
+function withSampleSizeBefore(text: string, position: number, draft: ResultDraft): void {
+  const { head } = draft;
+  if (head.kind !== 'r' || head.df.length > 0) return;
+  const before = SAMPLE_SIZE_BEFORE.exec(text.slice(Math.max(0, position - 30), position));
+  if (before === null) return;
+  const n = Number(before[1]);
+  if (n < 3) return;
+  draft.head = { ...head, df: [plainNumber(String(n - 2), 0)], sampleSize: plainNumber(before[1]!, 0), dfFromSampleSize: true };
 }
 
 function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): boolean {

@@ -146,6 +146,10 @@ function spearmanSymbol(text: string, position: number): SymbolRead | null {
 
 /** "X2" / "X^2" / "x2": how χ² often survives PDF extraction; bracketed df required. */
 function chiSquareLetterX(text: string, position: number): SymbolRead | null {
+  // "X-squared (1) = 2.19", "X-squared = 2.19, df = 1": the name R's chisq.test prints (common practice to paste it).
+  if (text.slice(position + 1, position + 9).toLowerCase() === '-squared' && !isAsciiLetter(text.charCodeAt(position + 9))) {
+    return { kind: 'chi2', end: position + 9, requiresBracketedDf: false, acceptsTrailingDf: true };
+  }
   let at = position + 1;
   if (text.charCodeAt(at) === 94) at++;
   // "X 2 (2, N = 188)": the superscript set apart, as PDF text gives it.

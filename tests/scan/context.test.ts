@@ -95,6 +95,10 @@ describe('stated sample sizes', () => {
     ['We drew a sample of 64 students.', 64, '64 students'],
     ['We tested 120 undergraduate psychology students.', 120, '120 undergraduate psychology students'],
     ['Overall 1,024 respondents answered.', 1024, '1,024 respondents'],
+    // A count that begins a sentence is written in words (APA style; tests/corpus/real/passages/divl-03.txt).
+    ['Thirty-two healthy subjects were enrolled in the study.', 32, 'Thirty-two healthy subjects'],
+    ['Twelve children took part.', 12, 'Twelve children'],
+    ['We had N = 40. The rest was pilot work.', 40, 'N = 40'],
   ])('reads %j', (text, value, phrase) => {
     const sizes = contextOf(text).sampleSizes;
     expect(sizes.map((size) => size.value)).toEqual([value]);
@@ -128,6 +132,8 @@ describe('stated sample sizes', () => {
     ['Only 96 participants returned the diary.', 96, 'subset', '96 participants'],
     ['Of these, 40 students completed the follow-up.', 40, 'subset', '40 students'],
     ['Correlations used r = .30, N = 90 for the subsample.', 90, 'test', 'N = 90'],
+    // tests/corpus/real/passages/divl-06.txt: the N of one test, in its brackets before the statistic.
+    ['with an average ERD (N = 18, r = \u22120.595, p = 0.009)', 18, 'test', 'N = 18'],
   ] as const)('reads %j with its scope', (text, value, scope, phrase) => {
     const [size] = contextOf(text).sampleSizes;
     expect(size).toMatchObject({ value, scope });

@@ -225,3 +225,26 @@ describe('"much less than" written "<<"', () => {
     expect(onlyResult('F1,18 = 0.10p= 0.76 ηG2 <<0.01').effects.map((effect) => effect.comparator)).toEqual(['<']);
   });
 });
+
+describe('chi-square as R prints it', () => {
+  // tests/corpus/real/passages/divk-06.txt: "X-squared (1) = 2.1896, p = 0.1389".
+  it.each([
+    ['X-squared (1) = 2.1896, p = 0.1389', ['1'], '2.1896'],
+    ['X-squared = 2.19, df = 1, p-value = 0.1389', ['1'], '2.19'],
+  ])('reads %j', (written, df, value) => {
+    const result = onlyResult(`Groups differed: ${written}.`);
+    expect(result.kind).toBe('chi2');
+    expect(dfTexts(result)).toEqual(df);
+    expect(result.value?.text).toBe(value);
+  });
+});
+
+describe('a sample size before the correlation in its brackets', () => {
+  // tests/corpus/real/passages/divl-06.txt: "(N = 18, r = −0.595, p = 0.009)".
+  it('gives the correlation df N - 2', () => {
+    const result = onlyResult('with an average ERD (N = 18, r = \u22120.595, p = 0.009) and');
+    expect(result.kind).toBe('r');
+    expect(dfTexts(result)).toEqual(['16']);
+    expect(result.sampleSize?.text).toBe('18');
+  });
+});

@@ -27,7 +27,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
 
 type Line = TextLine;
@@ -200,9 +200,32 @@ function collectCells(lines: Line[], from: number): Cell[] {
     if (!headerSeen && text.length > MAX_CELL_LENGTH && index - from < MAX_LINES_TO_HEADER) continue;
     if (text.length > MAX_CELL_LENGTH || NOTE.test(text) || (cells.length > 0 && TITLE.test(text))) break;
     const start = line.start + inner.offset + (inner.text.length - inner.text.trimStart().length);
+    // A header row run together on one line among lines of one cell each ("t df p Effect size Cohen's d"):
+    // a cell per name.
+    // (Not when rows follow crushed onto lines of their own: that is a crushed table, read elsewhere.)
+    const names = isColumnName(text) || crushedRowFollows(lines, index) ? null : splitRunTogetherNames(text);
+    if (names !== null) {
+      for (const name of names) cells.push({ text: name.text, start: start + name.start, end: start + name.end, line: index, empty: false });
+      continue;
+    }
     cells.push({ text, start, end: start + text.length, line: index, empty: false });
   }
   return cells;
+}
+
+/** Lines looked at after a header line for a crushed row (a superscript line, "2", may come first). */
+const CRUSHED_ROW_LOOKAHEAD = 3;
+
+/** Whether one of the next non-blank lines after `index` holds two or more numbers apart by spaces: a crushed row. */
+function crushedRowFollows(lines: Line[], index: number): boolean {
+  let seen = 0;
+  for (let at = index + 1; at < lines.length && seen < CRUSHED_ROW_LOOKAHEAD; at++) {
+    const text = lines[at]!.text.trim();
+    if (text === '' || text === '|') continue;
+    seen++;
+    if (text.split(/\s+/).filter((word) => readCell(word).kind === 'number').length >= 2) return true;
+  }
+  return false;
 }
 
 /** A line without the pipes a web page's table leaves around a cell ("| Source |", "DF |"); null for an empty line. */

@@ -269,9 +269,10 @@ export function classifyHeader(header: string): ColumnRole {
     if (inner.role === 'statistic') return { ...inner, pInCell: true };
   }
   // "Effect size (ηp2)", "ES (d)": a generic name with the effect size it holds in brackets.
-  const namedInBrackets = /^(?:effect sizes?|es|eff\. size)\s?\(([^()]{1,20})\)$/.exec(key);
+  // Also without the brackets: "Effect size Cohen's d".
+  const namedInBrackets = GENERIC_EFFECT_WITH_NAME.exec(key);
   if (namedInBrackets) {
-    const inner = classifyHeader(namedInBrackets[1]!);
+    const inner = classifyHeader(namedInBrackets[1] ?? namedInBrackets[2]!);
     if (inner.role === 'effect') return inner;
   }
   // "90% CI", "99% CI", "95 % CI": an interval's level with its name.
@@ -308,6 +309,9 @@ export function classifyHeader(header: string): ColumnRole {
   return { role: 'unknown' };
 }
 
+/** A generic name for effect sizes with the one the column holds: "effect size (etap2)", "es (d)", "effect size cohen's d". */
+const GENERIC_EFFECT_WITH_NAME = /^(?:effect sizes?|es|eff\. size)(?:\s?\(([^()]{1,20})\)| ([^()]{1,20}))$/;
+
 /** "90% CI", "99% CI", "95 % confidence interval". */
 const CI_WITH_LEVEL = /^\d{2}(?:\.\d)? ?% ?(?:ci|confidence interval)$/;
 
@@ -318,6 +322,7 @@ const QUALIFIED_STATISTIC = /^[a-z][a-z0-9'\u2019-]*(?: [a-z0-9'\u2019-]+){0,2} 
 export function isKnownHeader(key: string): boolean {
   if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key)) return true;
   if (CI_WITH_LEVEL.test(key)) return true;
+  if (GENERIC_EFFECT_WITH_NAME.test(key) && classifyHeader(key).role === 'effect') return true;
   // "Benefits r": a statistic after what it tests (only with its symbol as the phrase's last word).
   if (QUALIFIED_STATISTIC.test(key) && key.includes(' ') && classifyHeader(key).role === 'statistic') return true;
   // (Not "t (df) p" from words run together: in a header read from single-spaced words, the "p" there
@@ -346,6 +351,46 @@ export function couldStartHeader(word: string): boolean {
 
 /** Longest header phrase, in words, in the vocabulary. */
 export const LONGEST_HEADER_WORDS = 5;
+
+/** A piece of a line: its text and its offsets in that line. */
+export interface NamePiece {
+  text: string;
+  start: number;
+  end: number;
+}
+
+/**
+ * A line of column names run together with single spaces ("t df p Effect
+ * size Cohen's d"), cut into its names: the longest known phrase at each
+ * word ("Effect size Cohen's d" is one). Null unless every word belongs to a
+ * known name and there are at least two names.
+ */
+export function splitRunTogetherNames(line: string): NamePiece[] | null {
+  const words: NamePiece[] = [];
+  // Words apart by spaces outside brackets: "Mean (SD)" and "F (1, 20)" stay whole.
+  let depth = 0;
+  let start = -1;
+  for (let at = 0; at <= line.length; at++) {
+    const char = line[at];
+    if (char === '(' || char === '[') depth++;
+    else if (char === ')' || char === ']') depth = Math.max(0, depth - 1);
+    const space = char === undefined || ((char === ' ' || char === '\t') && depth === 0);
+    if (space && start >= 0) {
+      words.push({ text: line.slice(start, at), start, end: at });
+      start = -1;
+    } else if (!space && start < 0) start = at;
+  }
+  const names: NamePiece[] = [];
+  for (let index = 0; index < words.length; ) {
+    let length = Math.min(LONGEST_HEADER_WORDS, words.length - index);
+    const phrase = (size: number): string => line.slice(words[index]!.start, words[index + size - 1]!.end);
+    while (length > 0 && !isKnownHeader(headerKey(phrase(length)))) length--;
+    if (length === 0) return null;
+    names.push({ text: phrase(length), start: words[index]!.start, end: words[index + length - 1]!.end });
+    index += length;
+  }
+  return names.length >= 2 ? names : null;
+}
 
 /** The kind of statistic a column header names, or null. */
 export function statisticKindOf(role: ColumnRole): StatisticKind | null {
