@@ -38,7 +38,9 @@ function statisticOutput(
     ...(result.dfFrom ? { dfFrom: result.dfFrom } : {}),
     value: result.value?.value ?? null,
     valueComparator: result.valueComparator,
-    p: result.p ? { comparator: result.p.comparator, value: result.p.value.value, text: result.p.value.text } : null,
+    p: result.p
+      ? { comparator: result.p.comparator, value: result.p.value.value, text: result.p.value.text, ...(result.p.fromMarks !== undefined ? { fromMarks: result.p.fromMarks } : {}) }
+      : null,
     notSignificant: result.notSignificant,
     inTable: result.tableRow !== undefined,
     ...(result.alsoAt

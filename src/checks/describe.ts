@@ -38,6 +38,7 @@ export function describePRange(result: ReportedResult, range: string): string {
 /** The printed p as a reader would write it: "p = .021". */
 export function describeP(result: ReportedResult): string {
   if (!result.p) return result.notSignificant ? 'n.s.' : 'no p';
+  if (result.p.fromMarks !== undefined) return `the mark "${result.p.fromMarks}" (p ${result.p.comparator} ${result.p.value.text} by the table's note)`;
   return `p ${result.p.comparator} ${result.p.value.text}`;
 }
 

@@ -47,7 +47,17 @@ export const statisticSchema = z.object({
     ),
   value: z.number().nullable(),
   valueComparator: comparatorSchema,
-  p: z.object({ comparator: comparatorSchema, value: z.number(), text: z.string() }).nullable(),
+  p: z
+    .object({
+      comparator: comparatorSchema,
+      value: z.number(),
+      text: z.string(),
+      fromMarks: z
+        .string()
+        .optional()
+        .describe('Set when no p was printed: the significance marks after the value ("***"), and the p above is the bound the table\'s note gives for them ("*** p < .001").'),
+    })
+    .nullable(),
   notSignificant: z.boolean(),
   effects: z.array(
     z.object({

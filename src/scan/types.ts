@@ -45,6 +45,11 @@ export interface ReportedP {
   end: number;
   /** Its sign was lost in the text ("p 0.001") and the comparator is a reading, not what was printed. */
   signLost?: boolean;
+  /**
+   * Not printed as a p: the bound the table's note gives for the marks after
+   * the value ("***" with "*** p < .001"); `start` and `end` are the marks'.
+   */
+  fromMarks?: string;
 }
 
 export type EffectKind =

@@ -143,12 +143,21 @@ interface FoundRows {
   firstLine?: number;
 }
 
+/** One cell between two pipes and nothing else. */
+const SPANNING_PIPE_ROW = /^\s*\|[^|]+\|\s*$/;
+
 function readPipeTable(lines: Line[], first: number): FoundRows | null {
   const rows: Piece[][] = [];
   let index = first;
   for (; index < lines.length; index++) {
     const cells = pipeCells(lines[index]!);
-    if (cells === null) break;
+    if (cells === null) {
+      // A section row spanning the table, one cell between two pipes ("| Outcome variable |"), inside it.
+      const spanning = rows.length > 0 && SPANNING_PIPE_ROW.test(lines[index]!.text) && lines[index + 1] !== undefined && pipeCells(lines[index + 1]!) !== null;
+      if (!spanning) break;
+      rows.push(pipeCellSpans(lines[index]!, 1));
+      continue;
+    }
     if (!isSeparatorRow(cells)) rows.push(pipeCellSpans(lines[index]!, cells.length));
   }
   if (rows.length < 2) return null;
@@ -263,13 +272,21 @@ function joinBrokenRows(rows: Piece[][]): Piece[][] {
   const joined: Piece[][] = [];
   for (let index = 0; index < rows.length; index++) {
     let row = rows[index]!;
-    while (row.length < width && index + 1 < rows.length && rows[index + 1]!.length < width && filled(row).length + filled(rows[index + 1]!).length <= width) {
+    // A piece that begins with a label ("2. Age", "Control variable") is a row of its own, not the rest of this one.
+    const continues = (next: Piece[]): boolean => next.length < width && !startsWithLabel(next) && filled(row).length + filled(next).length <= width;
+    while (row.length < width && index + 1 < rows.length && continues(rows[index + 1]!)) {
       row = [...filled(row), ...rows[index + 1]!];
       index++;
     }
     joined.push(row);
   }
   return joined;
+}
+
+/** Whether a row's first cell is a label: text that is not a value ("Age", "2. Age"; not "0.50 (0.32, 0.74)", "-", ""). */
+function startsWithLabel(row: Piece[]): boolean {
+  const first = row[0]?.text ?? '';
+  return /[A-Za-z\u00c0-\u024f\u0370-\u03ff]{2}/.test(first) && !isValueToken(first);
 }
 
 // ------------------------------------------------ aligned and crushed tables

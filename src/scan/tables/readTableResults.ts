@@ -42,6 +42,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { readCorrelationMatrix } from './matrix.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
@@ -192,6 +193,9 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
 function readTableRows(text: string, table: DocumentTable, tableIndex: number): TableReading {
   const nothing: TableReading = { results: [], unread: null, completions: [] };
   const rows = table.rows;
+  // A correlation matrix: numbered variables against numbered columns (its header is numbers, so it is read apart).
+  const matrix = readCorrelationMatrix({ text, table, tableIndex, located: table.cells ?? locateRows(text, table, 1), notes: [...table.notes, notesAfter(text, table.end)].join(' ') });
+  if (matrix !== null) return { results: matrix, unread: null, completions: [] };
   // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)").
   let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || shapeOf(cell).shape === 'number-bracket' || shapeOf(cell).shape === 'statistic-p'));
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.

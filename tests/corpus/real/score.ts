@@ -103,7 +103,8 @@ function matches(found: ReportedResult, label: RealLabel): boolean {
 
 function pRight(found: ReportedResult, label: RealLabel): boolean {
   if (found.notSignificant !== label.notSignificant) return false;
-  if (label.p === null) return found.p === null;
+  // Marks are not a printed p (the labels leave them out); a bound read from them is not a misreading.
+  if (label.p === null) return found.p === null || found.p.fromMarks !== undefined;
   if (found.p === null) return false;
   return found.p.comparator === label.p.comparator && close(found.p.value.value, label.p.value);
 }
@@ -170,8 +171,12 @@ export function scorePassage(passage: RealPassage): PassageScore {
     outcome.effectsRight = effectsRight(result, outcome.label);
     outcome.failed = findings.some((f) => f.severity === 'fail');
   });
+  // A result read as printed but without the df the label takes from elsewhere in the passage ("F = 0.38, P =
+  // .68" after a table that gives its df) is a miss of those df, not a misreading.
+  const readWithoutDf = (found: ReportedResult): boolean =>
+    found.df.length === 0 && passage.results.some((label) => label.kind === found.kind && found.value !== null && close(found.value.value, label.value) && overlaps(found, label));
   const falseAlarms = checked
-    .filter((_, i) => !taken.has(i))
+    .filter((c, i) => !taken.has(i) && !readWithoutDf(c.result))
     .map((c) => ({ passage, found: c.result, failed: c.findings.some((f) => f.severity === 'fail') }));
   return { passage, outcomes, falseAlarms };
 }

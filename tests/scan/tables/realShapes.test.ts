@@ -218,3 +218,54 @@ describe('a crushed row with a written result, its effect size, an interval and 
     expect(first.effects.map((effect) => [effect.kind, effect.value.text])).toEqual([['partial-eta-squared', '.008']]);
   });
 });
+
+describe('a correlation matrix (divl-08)', () => {
+  // Lower triangle after M and SD columns, stars as tokens of their own, "N = 60" and the stars' legend in the note,
+  // a footnote digit between a label and its M ("3. BDI 1 19.2 10.83").
+  it('reads every correlation with df N - 2, its row and column, and the p bound its stars give', () => {
+    const { text, results } = scan('divl-08');
+    const tabled = results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(36);
+    expect(tabled.every((result) => result.kind === 'r' && result.df[0]?.value === 58 && result.dfFrom === 'sample-size')).toBe(true);
+    const bdi = tabled.find((result) => result.tableRow!.rowLabel === 'BDI 1 \u00d7 GAD' || result.tableRow!.rowLabel === 'BDI \u00d7 GAD')!;
+    expect(bdi.value?.text).toBe('0.47');
+    expect(bdi.p).toMatchObject({ comparator: '<', fromMarks: '***' });
+    expect(bdi.p!.value.text).toBe('0.001');
+    expect(text.slice(bdi.start, bdi.end)).toBe('0.47 ***');
+    const unmarked = tabled.find((result) => result.value?.value === -0.14)!;
+    expect(unmarked.tableRow!.rowLabel).toBe('Age \u00d7 GAD');
+    expect(unmarked.p).toBeNull();
+    const last = tabled[tabled.length - 1]!;
+    expect(last.tableRow!.rowLabel).toBe('Sad face, other-shape RTs \u00d7 Neutral face, other-shape RTs');
+    expect(last.value?.text).toBe('0.81');
+  });
+
+  it('reads the same matrix from pipe rows with the marks glued to the values', () => {
+    const { text } = scan('divl-08');
+    // Each matrix line as pipe cells: the label (up to its first number after the variable's own), then one
+    // cell per number with its stars glued on, as a web page's table gives it.
+    const asPipes = (line: string): string => {
+      const words = line.split(' ');
+      const firstNumber = words.findIndex((word, index) => index > 0 && /^[\u2212-]?\d*\.?\d+$/.test(word));
+      const cells = [words.slice(0, firstNumber).join(' ')];
+      for (const word of words.slice(firstNumber)) {
+        if (/^\*{1,3}$/.test(word)) cells[cells.length - 1] += word;
+        else cells.push(word);
+      }
+      return `| ${cells.join(' | ')} |`;
+    };
+    const piped = text
+      .split('\n')
+      .map((line) => (/^\d\. /.test(line) || line.startsWith('Variables') ? asPipes(line) : /variables?$/.test(line) ? `| ${line} |` : line))
+      .join('\n');
+    const results = scanDocument(plainTextDocument('matrix.txt', 'text', piped)).results.filter((result) => result.tableRow);
+    expect(results).toHaveLength(36);
+    expect(results.filter((result) => result.p?.fromMarks === '***')).toHaveLength(scan('divl-08').results.filter((result) => result.p?.fromMarks === '***').length);
+  });
+
+  it('is not read as a correlation matrix when nothing says it holds correlations', () => {
+    const text = passage('divl-08').replace(/Correlations between/, 'Values of').replace(/correlat/gi, 'relat');
+    const results = scanDocument(plainTextDocument('matrix.txt', 'text', text)).results.filter((result) => result.tableRow);
+    expect(results).toEqual([]);
+  });
+});

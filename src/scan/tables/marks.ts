@@ -1,0 +1,53 @@
+/**
+ * Significance marks and the legend that defines them. Tables often print
+ * no p, only stars after a value, and say under the table what each mark
+ * means ("* p < .05, ** p < .01, *** p < .001"). A mark defined there is a
+ * bound on the p of the value it follows, which the checks can hold against
+ * the p recomputed from the value and its df.
+ */
+
+import { normaliseText } from '../normalise.js';
+import { parseReportedNumber } from '../../stats/reportedNumber.js';
+import type { Comparator, ReportedNumber } from '../types.js';
+
+/** What a legend says one mark means: p below (or at most) a level. */
+export interface MarkBound {
+  comparator: Extract<Comparator, '<' | '<='>;
+  value: ReportedNumber;
+}
+
+/** The marks a legend can define: one to four stars, daggers, double daggers, hash signs, section signs. */
+export const MARK = /^(?:\*{1,4}|\u2020{1,2}|\u2021{1,2}|#{1,2}|\u00a7)$/;
+
+/**
+ * "* p < .05", "**p<0.01", "***: p ≤ .001", "† p < .10"; and "* significant
+ * at the 0.05 level", "** significant at p < .01". The mark stands right
+ * before its definition (common practice in table notes).
+ */
+const LEGEND_ENTRY =
+  /(\*{1,4}|\u2020{1,2}|\u2021{1,2}|#{1,2}|\u00a7)\s{0,2}[:=]?\s{0,2}(?:(?:is\s)?(?:statistically\s)?significant\s(?:at\s)?(?:the\s)?(?:p\s{0,2})?(<=|<|\u2264)?\s{0,2}|p\s{0,2}(<=|<|\u2264)\s{0,2})(0?\.\d{1,4}|0?,\d{1,4})(?![\d])/gi;
+
+/** Most characters of a table's notes looked at for a legend. */
+const MAX_LEGEND_TEXT = 4000;
+
+/** The marks a table's notes define, each with its p bound; empty when the notes define none. */
+export function readMarkLegend(notes: string): Map<string, MarkBound> {
+  const legend = new Map<string, MarkBound>();
+  const text = normaliseText(notes.slice(0, MAX_LEGEND_TEXT)).text;
+  for (const match of text.matchAll(LEGEND_ENTRY)) {
+    const mark = match[1]!;
+    const written = match[4]!.replace(',', '.');
+    const value = parseReportedNumber(written);
+    if (value === null || value.value <= 0 || value.value >= 1) continue;
+    const sign = match[2] ?? match[3] ?? '<';
+    // The first definition of a mark counts; a second one is another table's.
+    if (!legend.has(mark)) legend.set(mark, { comparator: sign === '<' ? '<' : '<=', value });
+  }
+  return legend;
+}
+
+/** A value cell split into its number and the marks after it ("0.47***", "0.47 ***", "−0.27*"). */
+export function splitMarks(cell: string): { number: string; marks: string } {
+  const match = /^(.*?\d)\s{0,2}(\*{1,4}|\u2020{1,2}|\u2021{1,2}|#{1,2}|\u00a7)$/.exec(cell.trim());
+  return match ? { number: match[1]!, marks: match[2]! } : { number: cell.trim(), marks: '' };
+}

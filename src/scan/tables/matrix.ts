@@ -1,0 +1,233 @@
+/**
+ * Correlation matrices: the variables are numbered rows, the columns are
+ * numbered 1 to k after optional descriptive columns (M, SD), and each cell
+ * holds the correlation of its row's variable with its column's, in one
+ * triangle of the matrix, often with significance marks:
+ *
+ *     Variables                 M      SD     1         2        3
+ *     1. GAD                    11.1   4.49
+ *     2. Age                    20.9   2.55   −0.14
+ *     3. BDI                    19.2   10.83  0.47 ***  −0.15
+ *
+ * Which triangle (and whether the diagonal is printed, as "—" or "1") is
+ * read from the rows: the layout that the most rows fit. The correlations
+ * are each row's last cells, so numbers between the label and the
+ * descriptive columns (a footnote digit, "BDI 1") do not shift them. The
+ * df of each r are N − 2 with N from the table's note ("N = 60"); without
+ * one, the df are left to the study's stated sample size (checks/documentDf.ts).
+ * Marks defined in the note give each r a p bound (marks.ts).
+ *
+ * Read only when the caption, header or notes say the table holds
+ * correlations: other matrices (covariances, distances, loadings) have the
+ * same shape.
+ */
+
+import type { DocumentTable } from '../../documents/types.js';
+import type { ReportedNumber, ReportedP, ReportedResult } from '../types.js';
+import { readCell } from './cells.js';
+import { MARK, readMarkLegend, splitMarks, type MarkBound } from './marks.js';
+
+interface Located {
+  start: number;
+  end: number;
+}
+
+export interface MatrixInput {
+  text: string;
+  table: DocumentTable;
+  tableIndex: number;
+  /** Each row's cells' offsets in the text (null where not found). */
+  located: ((Located | null)[] | null)[];
+  /** The table's notes and the text right after it, where the note's N and the marks' legend stand. */
+  notes: string;
+}
+
+/** A column number in the header: "1", "2.", "(3)". */
+const COLUMN_NUMBER = /^\(?(\d{1,2})[.)]?$/;
+/** A row label that starts with the variable's number: "1. GAD", "(2) Age", "3 BDI". */
+const ROW_NUMBER = /^\(?(\d{1,2})[.)]?\s+(\S.*)$/;
+/** The diagonal as printed: a dash, a correlation of 1, or a reliability in brackets ("(.89)"). */
+const DIAGONAL = /^(?:[-\u2013\u2014\u2212]|1|1\.0{1,3}|\((?:0?\.\d{2,3})\))$/;
+const SAYS_CORRELATIONS = /correlat|\br\s*=|pearson|spearman/i;
+/** The N of the table's note: "N = 60", "n = 1,024". */
+const NOTE_N = /(?:^|[^A-Za-z])[Nn]\s*=\s*(\d{1,3}(?:,\d{3})+|\d{1,7})(?!\d|\.\d)/;
+
+/** Row layouts: which triangle, and whether the diagonal is printed. */
+type Layout = { triangle: 'lower' | 'upper'; diagonal: boolean };
+const LAYOUTS: Layout[] = [
+  { triangle: 'lower', diagonal: false },
+  { triangle: 'lower', diagonal: true },
+  { triangle: 'upper', diagonal: false },
+  { triangle: 'upper', diagonal: true },
+];
+
+/** Share of the numbered rows that must fit one layout. */
+const MIN_FITTING_SHARE = 0.7;
+/** Fewest correlations a matrix must give to be read as one. */
+const MIN_CORRELATIONS = 3;
+
+interface ValueCell {
+  number: string;
+  marks: string;
+  start: number;
+  end: number;
+  /** Offsets of the marks (the cell's end when none). */
+  marksStart: number;
+}
+
+interface MatrixRow {
+  variable: number;
+  name: string;
+  rowIndex: number;
+  values: ValueCell[];
+}
+
+/** The correlations of a table read as a correlation matrix, or null when the table is not one. */
+export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | null {
+  const { table } = input;
+  const headerIndex = table.rows.slice(0, 3).findIndex((row) => numberedColumns(row) >= 2);
+  if (headerIndex < 0) return null;
+  const columns = numberedColumns(table.rows[headerIndex]!);
+  const said = [table.caption ?? '', input.notes.slice(0, 2000), ...table.rows[headerIndex]!].join(' ');
+  if (!SAYS_CORRELATIONS.test(said)) return null;
+  const rows = matrixRows(input, headerIndex);
+  if (rows.length < 2) return null;
+  const layout = bestLayout(rows, columns);
+  if (layout === null) return null;
+  const names = new Map(rows.map((row) => [row.variable, row.name]));
+  const noteN = NOTE_N.exec(input.notes.slice(0, 2000));
+  const n = noteN ? Number(noteN[1]!.replace(/,/g, '')) : null;
+  const legend = readMarkLegend(input.notes);
+  const results: ReportedResult[] = [];
+  for (const row of rows) {
+    const cells = correlationCells(row, layout, columns);
+    if (cells === null) continue;
+    for (const { cell, column } of cells) {
+      const value = readCell(cell.number).kind === 'number' ? readCell(cell.number) : null;
+      if (value === null || value.kind !== 'number') continue;
+      const other = names.get(column);
+      results.push(correlationResult(input, row, other === undefined ? String(column) : other, cell, value.number, n, legend));
+    }
+  }
+  return results.length >= MIN_CORRELATIONS ? results : null;
+}
+
+/** How many numbered columns (1, 2, ..., k) end the row; 0 when they do not count up from 1. */
+function numberedColumns(row: readonly string[]): number {
+  let first = row.length;
+  while (first > 1 && COLUMN_NUMBER.test(row[first - 1]!.trim())) first--;
+  const numbers = row.slice(first).map((cell) => Number(COLUMN_NUMBER.exec(cell.trim())![1]));
+  return numbers.length >= 2 && numbers.every((number, index) => number === index + 1) ? numbers.length : 0;
+}
+
+/** The numbered body rows with their value cells (marks standing as cells of their own joined to their value). */
+function matrixRows(input: MatrixInput, headerIndex: number): MatrixRow[] {
+  const rows: MatrixRow[] = [];
+  input.table.rows.forEach((row, rowIndex) => {
+    if (rowIndex <= headerIndex) return;
+    const label = ROW_NUMBER.exec((row[0] ?? '').trim());
+    const at = input.located[rowIndex];
+    if (label === null || at === null || at === undefined) return;
+    const values: ValueCell[] = [];
+    for (let column = 1; column < row.length; column++) {
+      const written = (row[column] ?? '').trim();
+      const place = at[column] ?? null;
+      if (written === '' || place === null) continue;
+      const previous = values[values.length - 1];
+      if (MARK.test(written) && previous !== undefined && previous.marks === '') {
+        values[values.length - 1] = { ...previous, marks: written, marksStart: place.start, end: place.end };
+        continue;
+      }
+      const { number, marks } = splitMarks(written);
+      const marksStart = marks === '' ? place.end : place.start + written.lastIndexOf(marks);
+      values.push({ number, marks, start: place.start, end: place.end, marksStart });
+    }
+    rows.push({ variable: Number(label[1]), name: label[2]!.trim(), rowIndex, values });
+  });
+  return rows;
+}
+
+/** Cells a row of `variable` holds under the layout, counted from its end. */
+function expectedCells(variable: number, layout: Layout, columns: number): number {
+  const below = layout.triangle === 'lower' ? variable - 1 : columns - variable;
+  return Math.max(0, below) + (layout.diagonal ? 1 : 0);
+}
+
+function isCorrelation(cell: ValueCell): boolean {
+  const read = readCell(cell.number);
+  return read.kind === 'number' && read.comparator === '=' && Math.abs(read.number.value) <= 1 && read.number.decimals >= 1;
+}
+
+/** The row's correlation cells with the column each stands in, or null when the row does not fit the layout. */
+function correlationCells(row: MatrixRow, layout: Layout, columns: number): { cell: ValueCell; column: number }[] | null {
+  const count = expectedCells(row.variable, layout, columns);
+  if (count === 0 || row.values.length < count) return count === 0 ? [] : null;
+  const taken = row.values.slice(row.values.length - count);
+  const cells: { cell: ValueCell; column: number }[] = [];
+  for (let index = 0; index < taken.length; index++) {
+    const cell = taken[index]!;
+    const diagonalAt = layout.triangle === 'lower' ? taken.length - 1 : 0;
+    if (layout.diagonal && index === diagonalAt) {
+      if (!DIAGONAL.test(cell.number)) return null;
+      continue;
+    }
+    if (!isCorrelation(cell)) return null;
+    const column = layout.triangle === 'lower' ? index + 1 : row.variable + index + (layout.diagonal ? 0 : 1);
+    cells.push({ cell, column });
+  }
+  return cells;
+}
+
+/** The layout most numbered rows fit, or null when none fits enough of them. */
+function bestLayout(rows: MatrixRow[], columns: number): Layout | null {
+  let best: { layout: Layout; fitting: number; correlations: number } | null = null;
+  for (const layout of LAYOUTS) {
+    let fitting = 0;
+    let correlations = 0;
+    for (const row of rows) {
+      const cells = correlationCells(row, layout, columns);
+      if (cells === null) continue;
+      fitting++;
+      correlations += cells.length;
+    }
+    if (best === null || fitting > best.fitting || (fitting === best.fitting && correlations > best.correlations)) best = { layout, fitting, correlations };
+  }
+  if (best === null || best.fitting < Math.max(2, MIN_FITTING_SHARE * rows.length) || best.correlations < MIN_CORRELATIONS) return null;
+  return best.layout;
+}
+
+function correlationResult(
+  input: MatrixInput,
+  row: MatrixRow,
+  otherName: string,
+  cell: ValueCell,
+  value: ReportedNumber,
+  n: number | null,
+  legend: Map<string, MarkBound>,
+): ReportedResult {
+  const bound = cell.marks === '' ? undefined : legend.get(cell.marks);
+  const p: ReportedP | null =
+    bound === undefined ? null : { comparator: bound.comparator, value: bound.value, plural: false, start: cell.marksStart, end: cell.end, fromMarks: cell.marks };
+  const df: ReportedNumber[] = n !== null && n > 2 ? [{ value: n - 2, text: String(n - 2), decimals: 0, exponent: 0 }] : [];
+  return {
+    kind: 'r',
+    text: input.text.slice(cell.start, cell.end),
+    start: cell.start,
+    end: cell.end,
+    df,
+    ...(df.length > 0 ? { dfFrom: 'sample-size' as const } : {}),
+    sampleSize: n !== null && df.length > 0 ? { value: n, text: String(n), decimals: 0, exponent: 0 } : null,
+    value,
+    valueComparator: '=',
+    p,
+    notSignificant: false,
+    effects: [],
+    tableRow: {
+      tableIndex: input.tableIndex,
+      caption: input.table.caption,
+      rowLabel: `${row.name} \u00d7 ${otherName}`,
+      cells: { statistic: { ...value, start: cell.start, end: cell.start + cell.number.length } },
+      errorRow: null,
+    },
+  };
+}

@@ -1,0 +1,53 @@
+/**
+ * A correlation matrix through the built command line, on a real corpus
+ * passage (tests/corpus/real/passages/divl-08.txt; source and licence in
+ * tests/corpus/real/labels/divl-08.json): 36 correlations in a lower
+ * triangle, N = 60 and the stars' legend in the note. The recomputed p of
+ * each r (df = 58) is held against the bound its stars give.
+ */
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { reportSchema } from '../../src/report/model.js';
+
+const root = join(__dirname, '..', '..');
+const cli = join(root, 'dist', 'src', 'cli', 'main.js');
+const passage = join(root, 'tests', 'corpus', 'real', 'passages', 'divl-08.txt');
+
+function scanJson(path: string) {
+  let out: string;
+  try {
+    out = execFileSync('node', [cli, 'scan', path, '--no-cache', '--quiet', '--format', 'json'], { encoding: 'utf8' });
+  } catch (error) {
+    out = (error as { stdout: string }).stdout;
+  }
+  return reportSchema.parse(JSON.parse(out)).documents[0]!;
+}
+
+describe('a correlation matrix from the command line', () => {
+  it('reports every correlation with df N - 2 and the p bound of its stars, and flags none of the printed ones', () => {
+    const document = scanJson(passage);
+    const correlations = document.statistics.filter((statistic) => statistic.inTable && statistic.kind === 'r');
+    expect(correlations).toHaveLength(36);
+    expect(correlations.every((statistic) => statistic.df[0] === 58 && statistic.dfFrom === 'sample-size')).toBe(true);
+    const starred = correlations.filter((statistic) => statistic.p?.fromMarks !== undefined);
+    expect(starred.map((statistic) => statistic.p!.fromMarks)).toContain('***');
+    expect(starred.find((statistic) => statistic.text === '0.47 ***')!.p).toMatchObject({ comparator: '<', value: 0.001, fromMarks: '***' });
+    expect(correlations.flatMap((statistic) => statistic.findings).filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+  });
+
+  it('flags a star that the r and its df cannot give', () => {
+    // The first correlation (Age with GAD, r = −0.14, df = 58: p ≈ .29) given three stars.
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-matrix-'));
+    const changed = join(directory, 'matrix.txt');
+    writeFileSync(changed, readFileSync(passage, 'utf8').replace('2. Age 20.9 2.55 \u22120.14', '2. Age 20.9 2.55 \u22120.14 ***'));
+    const findings = scanJson(changed)
+      .statistics.flatMap((statistic) => statistic.findings)
+      .filter((finding) => finding.rule === 'p-value-mismatch');
+    expect(findings).toHaveLength(1);
+    expect(findings[0]!.message).toContain('r = -0.14 (n = 60, so df = 58) gives p = 0.286');
+    expect(findings[0]!.message).toContain('the mark "***" (p < 0.001 by the table\'s note)');
+  });
+});
