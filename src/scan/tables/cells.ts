@@ -148,7 +148,7 @@ export type ColumnRole =
   | { role: 'label' }
   | { role: 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'p' | 'n' }
   /** `dfInCell`: the header says the cells hold their df in brackets ("t (df)": "4.842 (15)"). */
-  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[]; dfInCell?: boolean; pInCell?: boolean }
+  | { role: 'statistic'; kind: StatisticKind; df: ReportedNumber[]; dfInCell?: boolean; pInCell?: boolean; symbol?: 'rs' }
   | { role: 'effect'; effect: EffectKind }
   | { role: 'descriptive' }
   /** A column of written results or of test statistics of varying kinds ("Statistic", "Test", "Effect size"). */
@@ -190,6 +190,8 @@ put(['f', 'f ratio', 'f-ratio', 'f value', 'f-value', 'f statistic', 'f-statisti
 put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test', 't ratio'], { role: 'statistic', kind: 't', df: [] });
 put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['r', "pearson's r", 'pearson r', 'pearson correlation', 'correlation'], { role: 'statistic', kind: 'r', df: [] });
+// Spearman's rank correlation, tested like r under the t approximation or the exact distribution (see types.ts, 'rs').
+put(['rho', 'rs', 'r s', 'r_s', 'spearman', "spearman's rho", 'spearman rho', "spearman's r", 'spearman r', 'spearman correlation', "spearman's correlation", 'spearman coefficient', "spearman's rank correlation", 'spearman rank correlation'], { role: 'statistic', kind: 'r', df: [], symbol: 'rs' });
 put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test', "fisher's z", 'fisher\u2019s z', 'fisher z', 'steiger z', "steiger's z"], { role: 'statistic', kind: 'z', df: [] });
 put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)', 'etap', 'eta p'], { role: 'effect', effect: 'partial-eta-squared' });
 put(['eta2', 'eta 2', 'eta squared', 'eta-squared'], { role: 'effect', effect: 'eta-squared' });
@@ -407,6 +409,6 @@ export function knownHeaderNames(): readonly string[] {
  * Markdown heading), "> **Table 4.**", and the word in the languages of the
  * corpus (Tabla, Tabela, Tableau, Tabelle, Tab.).
  */
-export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3})?(?:\*\*|_)?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
+export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
 /** A title line with nothing after the number: the title proper follows on the next line. */
-export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3})?(?:\*\*|_)?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?\s*$/;
+export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?\s*$/;

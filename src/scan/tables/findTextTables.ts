@@ -385,6 +385,10 @@ function isValueToken(text: string): boolean {
   return shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written';
 }
 
+function isNumberToken(text: string): boolean {
+  return readCell(text, 'either').kind === 'number';
+}
+
 /** Stars, daggers or one footnote letter standing as a token of their own. */
 function isMarkToken(text: string): boolean {
   return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h])$/.test(text);
@@ -573,6 +577,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const values = tokens.slice(first);
   if (values.length < minimumValues || values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair')) return null;
   const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
+  // Two numbers in a row inside the label are another row's values: rows run together on one line.
+  const labelNumbers = tokens.slice(0, first).some((token, index) => index > 0 && isNumberToken(token.text) && isNumberToken(tokens[index - 1]!.text));
+  if (labelNumbers) return null;
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || /[=<>]/.test(label.text)) return null;
   return { label, values };
 }
@@ -598,7 +605,8 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
     at = nonBlankAfter(lines, at);
     if (at === -1) return false;
     if (readRowLine(lines[at]!, false) !== null) return true;
-    if (lines[at]!.text.length > MAX_ROW_LENGTH && splitRunOnRows(lines[at]!).length > 0) return true;
+    // Rows run together on one line ("BI − −0.260 0.138 … FTRS Healthy −0.038 0.829 …"), whatever its length.
+    if (splitRunOnRows(lines[at]!).length > 0) return true;
     if (!isSectionLine(lines[at])) return false;
   }
   return false;

@@ -65,6 +65,8 @@ interface Segment {
   titleDf1?: ReportedNumber;
   /** The kind of statistic of this segment's column (a table may test with several). */
   kind?: StatisticKind;
+  /** The symbol its header names, when not the kind's own (Spearman's "ρ" for an r). */
+  symbol?: 'rs';
 }
 
 interface LocatedCell {
@@ -822,6 +824,14 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
         unplaced++;
         continue;
       }
+      // Cells given back to the label, or a df with decimals, make the placement a guess: where the row has SS, df
+      // and MS, the guess must keep MS = SS/df (rows of another table under this header do not: "Healthy 32 42.3
+      // 15.4 13 19" or "Cortical 5 57.6 27.3 4 1" under SS, df, MS, F, p). Corrected df (2.18 after a sphericity
+      // correction) keep it.
+      if ((placed.absorbed > 0 || fractionalDf(toPlace, valueRoles, placed.columns)) && !keepsMeanSquare(toPlace, valueRoles, placed.columns)) {
+        unplaced++;
+        continue;
+      }
       placed.columns.forEach((slot, offset) => {
         if (slot < 0) return;
         const column = valueColumns[slot]!.column;
@@ -843,6 +853,37 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
     out.push({ cells, at });
   }
   return { rows: out, unplaced };
+}
+
+/** Most a placed MS may differ from SS/df, relatively, beyond the rounding of the printed numbers. */
+const MEAN_SQUARE_SLACK = 0.05;
+
+type PlacedCells = { text: string; shape: CellShape }[];
+
+/** The number a placement puts under the first column of `role`, or null. */
+function placedValue(cells: PlacedCells, roles: ColumnRole[], columns: number[], role: ColumnRole['role']): CellShape | null {
+  const offset = columns.findIndex((slot) => slot >= 0 && roles[slot]!.role === role);
+  const shape = offset < 0 ? null : cells[offset]!.shape;
+  return shape !== null && shape.shape === 'number' ? shape : null;
+}
+
+/** Whether a placement puts a number with decimals under df (or df1). */
+function fractionalDf(cells: PlacedCells, roles: ColumnRole[], columns: number[]): boolean {
+  const df = placedValue(cells, roles, columns, 'df') ?? placedValue(cells, roles, columns, 'df1');
+  return df !== null && df.shape === 'number' && df.decimals > 0;
+}
+
+/** False when a placement puts numbers under SS, df and MS that do not keep MS = SS/df; true otherwise. */
+function keepsMeanSquare(cells: PlacedCells, roles: ColumnRole[], columns: number[]): boolean {
+  const valueIn = (role: ColumnRole['role']): number | null => {
+    const shape = placedValue(cells, roles, columns, role);
+    return shape !== null && shape.shape === 'number' ? shape.value : null;
+  };
+  const ss = valueIn('ss');
+  const df = valueIn('df') ?? valueIn('df1');
+  const ms = valueIn('ms');
+  if (ss === null || df === null || ms === null || df <= 0 || ms <= 0) return true;
+  return Math.abs(ss / df - ms) <= MEAN_SQUARE_SLACK * ms + 0.01;
 }
 
 /**
@@ -937,6 +978,7 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
       current.headerDf = role.df;
       current.dfInCell = role.dfInCell === true;
       current.pInCell = role.pInCell === true;
+      if (role.symbol !== undefined) current.symbol = role.symbol;
       current.title = upperHeaders[column] ?? null;
     }
   });
@@ -1130,8 +1172,11 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
     nCell: plainNumber(row, cellsAt, columns.get('n'), input.separator)?.record ?? null,
     noteN: input.noteN,
   });
-  if (df === null) return 'no-df';
-  if (df.some((value) => !(value.value > 0))) return null;
+  // A correlation needs no df to be read (as in running text): without an N in its row or the table's note it is
+  // checked with the study's stated N, at most as a warning, or left unchecked (checks/documentDf.ts).
+  const readDf = df ?? (kind === 'r' ? [] : null);
+  if (readDf === null) return 'no-df';
+  if (readDf.some((value) => !(value.value > 0))) return null;
 
   const pCell = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);
@@ -1159,10 +1204,11 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   const { start, end } = input.rowSpan;
   return {
     kind,
+    ...(segment.symbol !== undefined && kind === 'r' ? { symbol: segment.symbol } : {}),
     text: input.text.slice(start, end),
     start,
     end,
-    df,
+    df: readDf,
     sampleSize: sampleSize === null ? null : stripOffsets(sampleSize),
     value: stripOffsets(statistic.record),
     valueComparator: statistic.comparator,

@@ -269,3 +269,31 @@ describe('a correlation matrix (divl-08)', () => {
     expect(results).toEqual([]);
   });
 });
+
+describe('PDF text with rows run together and Spearman columns (divl-02)', () => {
+  // "- TABLE 5 |" title, a header "Name Side ρ P ρ P ρ P ρ P", two or three rows glued onto each line, no N printed.
+  it('reads every ρ with its P as a Spearman correlation without df, row by row', () => {
+    const { results } = scan('divl-02');
+    const tabled = results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(84);
+    expect(tabled.every((result) => result.kind === 'r' && result.symbol === 'rs' && result.df.length === 0)).toBe(true);
+    // (The "Side" cell of BI is a lone dash, which stays with the label.)
+    expect(tabled.slice(0, 5).map((result) => `${result.tableRow!.rowLabel}: ${result.value?.value} p ${result.p?.comparator} ${result.p?.value.text}`)).toEqual([
+      'BI \u2212: -0.26 p = 0.138',
+      'BI \u2212: 0.058 p = 0.743',
+      'BI \u2212: -0.154 p = 0.383',
+      'BI \u2212: 0.184 p = 0.296',
+      'FTRS Healthy: -0.038 p = 0.829',
+    ]);
+    expect(tabled.find((result) => result.tableRow!.rowLabel.startsWith('MOCA'))?.value?.value).toBe(0.005);
+  });
+});
+
+describe('rows of another table under an ANOVA header (divl-03)', () => {
+  // Two tables' captions and rows interleaved by the PDF's columns: the descriptive rows of Table 1 ("Healthy 32
+  // 42.3 15.4 13 19") stand under Table 2's header "One-way ANOVA SS Df MS F P".
+  it('reads none of them (placed under SS, df and MS they do not keep MS = SS/df), only the ANOVA row with its Error row', () => {
+    const tabled = scan('divl-03').results.filter((result) => result.tableRow);
+    expect(tabled.map(summary)).toEqual(['F(2, 29) = 0.3843 p = 0.6844']);
+  });
+});
