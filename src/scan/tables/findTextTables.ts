@@ -612,6 +612,25 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
   return false;
 }
 
+/** Most lines of single-value rows (and section lines) between two full rows of a table. */
+const MAX_SPARSE_RUN = 12;
+
+/**
+ * True when the line at `index` and those after it, up to a full data row, are
+ * rows with a single value, section lines or blank lines (at most
+ * MAX_SPARSE_RUN of them): "Sexo 0,939" / "Feminino 8,5 (1,5)" / … / "CCEB
+ * -0,136 0,080".
+ */
+function sparseRunLeadsToRow(lines: Line[], index: number): boolean {
+  for (let at = index; at < lines.length && at <= index + MAX_SPARSE_RUN; at++) {
+    const line = lines[at]!;
+    if (at > index && readRowLine(line, false) !== null) return true;
+    if (isBlank(line) || isSectionLine(line)) continue;
+    if (TITLE.test(line.text) || NOTE.test(line.text) || readDataLine(line, 1) === null) return false;
+  }
+  return false;
+}
+
 /** A short line without digits inside a table: "Between subjects", "Within subjects". */
 function isSectionLine(line: Line | undefined): boolean {
   if (line === undefined) return false;
@@ -678,6 +697,14 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     if (isBlank(line) && followed) continue;
     if (isSectionLine(line) && followed) {
       rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);
+      continue;
+    }
+    // Under a header, a row with a single value ("Sexo 0,939": a p alone, "Feminino 8,5 (1,5)": a group's M (SD))
+    // between rows of the table; the reader decides what its value is, or leaves it.
+    const sparse = header !== null && dataRows > 0 && sparseRunLeadsToRow(lines, index) ? readDataLine(line, 1) : null;
+    if (sparse !== null && !TITLE.test(line.text) && !NOTE.test(line.text)) {
+      rows.push({ data: sparse, line });
+      last = index;
       continue;
     }
     break;

@@ -845,7 +845,11 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       // Cells left out before a statistic column, so that some statistic column got nothing: the row's
       // numbers may stand anywhere (a row of means under F columns).
       const statisticLeftEmpty = valueRoles.some((role, slot) => role.role === 'statistic' && !placed.columns.includes(slot));
-      if (filled < valueRoles.length && statisticLeftEmpty) {
+      // A row with one number, of a table whose rows print more (a p alone, "Sexo 0,939", or a group's mean):
+      // the number may belong to any column.
+      const placedCells = placed.columns.filter((slot, offset) => slot >= 0 && toPlace[offset]!.shape.shape !== 'empty').length;
+      const lone = placedCells === 1 && valueRoles.length > 1;
+      if ((filled < valueRoles.length && statisticLeftEmpty) || lone) {
         out.push({ cells, at, partial: true });
         continue;
       }

@@ -297,3 +297,22 @@ describe('rows of another table under an ANOVA header (divl-03)', () => {
     expect(tabled.map(summary)).toEqual(['F(2, 29) = 0.3843 p = 0.6844']);
   });
 });
+
+describe('a Portuguese table with decimal commas and rows of one value between its rows (divm-01)', () => {
+  // "Coeficiente de correlação de Pearson | Valor de p" over rows "Idade -0,148 0,057 *", with rows that print a
+  // p alone ("Sexo 0,939", a t test's) and subgroup rows of M (DP) ("Feminino 8,5 (1,5)") in between.
+  it('reads each correlation with its p and nothing from the rows of one value', () => {
+    const tabled = scan('divm-01').results.filter((result) => result.tableRow);
+    expect(tabled.map((result) => `${result.tableRow!.rowLabel}: r = ${result.value?.value}, p ${result.p?.comparator} ${result.p?.value.value}`)).toEqual([
+      'Idade: r = -0.148, p = 0.057',
+      'CCEB (1 MD): r = -0.136, p = 0.08',
+      'Escolaridade, anos: r = -0.058, p = 0.455',
+      'Suporte social de acordo com o MOS: r = -0.063, p = 0.08',
+      'Duração da doença, anos: r = 0.081, p = 0.455',
+      'Conhecimento sobre o diabetes de acordo com o SKILLD: r = -0.09, p = 0.248',
+      'ICFT: r = 0.317, p < 0.001',
+      'IMC, kg/m2(6 MD): r = 0.192, p = 0.015',
+      'SAHLPA: r = -0.121, p = 0.12',
+    ]);
+  });
+});
