@@ -41,8 +41,9 @@ import type {
   TableRowOrigin,
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
-import { classifyHeader, decimalSeparatorOf, headerKey, readCell, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, decimalSeparatorOf, headerKey, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationMatrix } from './matrix.js';
+import { readMarkLegend, splitMarks, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
@@ -242,10 +243,12 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // Every kind of statistic the header names is read, each with its own columns ("Levene's F | Sig. | t |
   // df | Sig. (2-tailed)"); an r beside another statistic is its effect size, not a test of its own.
   const kinds = STATISTIC_PRIORITY.filter((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate)).filter((candidate, _, all) => candidate !== 'r' || !all.some((other) => other === 'F' || other === 't' || other === 'chi2'));
-  // A column of z without p may hold standard scores, not tests.
+  // Significance marks the notes define ("*** p < .001") give a marked value its p bound (marks.ts).
+  const legend = readMarkLegend([...table.notes, table.caption ?? '', linesAfter(text, table.end)].join(' '));
+  // A column of z without p may hold standard scores, not tests; with marks defined for it, it holds tests.
   const segments = kinds.flatMap((segmentKind) =>
     buildSegments(roles, segmentKind, schema.titles)
-      .filter((segment) => segmentKind !== 'z' || segment.columns.has('p'))
+      .filter((segment) => segmentKind !== 'z' || segment.columns.has('p') || marksInColumn(rows.slice(headerCount), segment.columns.get('statistic'), legend))
       .map((segment) => ({ ...segment, kind: segmentKind })),
   );
   if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0), completions };
@@ -301,6 +304,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
         noteDf,
         noteN,
+        legend,
         rowSpan,
         separator,
       });
@@ -335,6 +339,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
               errorRow: null,
               noteDf: { pair: [{ value: 1, text: '1', decimals: 0, exponent: 0 }, stripOffsets(pooledT.df[0]!)], single: null, error: null },
               noteN,
+              legend,
               rowSpan,
               separator,
             });
@@ -646,6 +651,20 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
 }
 
 /** Lines right after a table that are its notes ("Note.", "Abbreviations:", "1. Abbreviations: ...", "a ..."), at most a few. */
+/** Lines looked at after a table for the legend of its marks, which may follow other notes. */
+const MAX_LEGEND_LINES = 8;
+
+/** The lines after a table up to the next table's title (at most MAX_LEGEND_LINES non-blank ones): where its legend stands. */
+function linesAfter(text: string, end: number): string {
+  const lines: string[] = [];
+  for (const line of text.slice(end, end + 3000).split('\n')) {
+    if (line.trim() === '') continue;
+    if (TABLE_TITLE.test(line) || lines.length >= MAX_LEGEND_LINES) break;
+    lines.push(line.trim());
+  }
+  return lines.join(' ');
+}
+
 function notesAfter(text: string, end: number): string {
   const after = text.slice(end, end + 3000).split('\n');
   const notes: string[] = [];
@@ -1038,7 +1057,8 @@ function roleKey(role: ColumnRole, kind: StatisticKind): RoleKey | null {
   switch (role.role) {
     case 'statistic':
       if (role.kind === kind) return 'statistic';
-      return role.kind === 'r' ? 'effect:r' : null;
+      // An r beside an F, t or chi-square is its effect size; beside a z (Fisher's z comparing two r's) it is a test of its own.
+      return role.kind === 'r' && kind !== 'z' ? 'effect:r' : null;
     case 'effect':
       return `effect:${role.effect}`;
     case 'ss':
@@ -1096,6 +1116,8 @@ interface RowInput {
   errorRow: { row: string[]; cellsAt: (LocatedCell | null)[] | null } | null;
   noteDf: NoteDf;
   noteN: ReportedNumber | null;
+  /** The significance marks the table's notes define. */
+  legend: ReadonlyMap<string, MarkBound>;
   rowSpan: LocatedCell;
   /** The table's decimal separator (cells.ts, decimalSeparatorOf). */
   separator: DecimalSeparator;
@@ -1184,6 +1206,8 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
 
   const pCell = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);
+  // No p printed, but marks after the statistic that the notes define: the p bound they give.
+  const markedP = pCell === null ? pFromMarks(row, cellsAt, columns.get('statistic'), input.legend) : null;
   const effects: ReportedEffect[] = [];
   for (const [key, column] of columns) {
     if (!key.startsWith('effect:')) continue;
@@ -1218,7 +1242,7 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
     valueComparator: statistic.comparator,
     p:
       pCell === null || pCell === 'ns'
-        ? null
+        ? markedP
         : { comparator: pCell.comparator, value: stripOffsets(pCell.record), plural: false, start: pCell.record.start, end: pCell.record.end },
     notSignificant: pCell === 'ns',
     effects,
@@ -1230,6 +1254,25 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
       errorRow,
     },
   };
+}
+
+/** The p bound of the marks after a value in `column` ("12.314***"), when the legend defines them; null otherwise. */
+function pFromMarks(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, legend: ReadonlyMap<string, MarkBound>): ReportedP | null {
+  if (column === undefined || legend.size === 0) return null;
+  const written = (row[column] ?? '').trim();
+  const { marks } = splitMarks(written);
+  const bound = marks === '' ? undefined : legend.get(marks);
+  if (bound === undefined) return null;
+  const at = cellsAt?.[column] ?? null;
+  const cellStart = at === null ? -1 : at.start + (row[column] ?? '').indexOf(written);
+  const start = cellStart < 0 ? -1 : cellStart + written.lastIndexOf(marks);
+  return { comparator: bound.comparator, value: bound.value, plural: false, start, end: start < 0 ? -1 : start + marks.length, fromMarks: marks };
+}
+
+/** Whether some cell of `column` carries marks the legend defines. */
+function marksInColumn(rows: string[][], column: number | undefined, legend: ReadonlyMap<string, MarkBound>): boolean {
+  if (column === undefined || legend.size === 0) return false;
+  return rows.some((row) => legend.has(splitMarks(row[column] ?? '').marks));
 }
 
 const INTERVAL_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]]/;

@@ -133,11 +133,15 @@ describe('real table shapes: headers whose spanning cells lost their widths in t
 });
 
 describe('real table shapes: correlation tables', () => {
-  it('reads "Benefits r" and "Barriers r" columns with df from the N column, stars left as stars (divf-02)', () => {
+  it('reads "Benefits r" and "Barriers r" columns with df from the N column, and the Fisher\'s Z beside them, each with the p its stars give (divf-02)', () => {
+    // The legend "*p < .05, **p < .005, ***p < .001" stands three lines under the table, after other notes.
     const tabled = scan('divf-02').results.filter((result) => result.tableRow);
     const depression = tabled.filter((result) => result.tableRow!.rowLabel.startsWith('DASS-Depression'));
-    expect(depression.map(summary)).toEqual(['r(464) = 0.03', 'r(464) = 0.725']);
-    expect(tabled.every((result) => result.kind === 'r')).toBe(true);
+    expect(depression.map(summary)).toEqual(['r(464) = 0.03', 'r(464) = 0.725 p < .001', 'z() = 12.314 p < .001']);
+    expect(depression.map((result) => result.p?.fromMarks ?? null)).toEqual([null, '***', '***']);
+    expect(depression[2]!.effects).toEqual([]);
+    const swls = tabled.filter((result) => result.tableRow!.rowLabel.startsWith('SWLS'));
+    expect(swls.map(summary)).toEqual(['r(480) = 0.271 p < .001', 'r(480) = 0.092 p < .05', 'z() = 2.719 p < .005']);
   });
 
   it('reads crushed "r (P value)" blocks, "−0.50 (<.001)", with N from a caption three lines up (divf-03)', () => {
