@@ -220,11 +220,15 @@ describe('folder walk', () => {
       mkdirSync(join(dir, file, '..'), { recursive: true });
       writeFileSync(join(dir, file), 'text');
     }
-    const { files: found, missing } = await collectInputs([dir]);
+    // Named relative to the folder the user stands in (here the walked folder itself).
+    const { files: found, missing } = await collectInputs([dir], [dir]);
     expect(missing).toEqual([]);
-    expect(found).toEqual(['B.PDF', 'a.txt', 'c.Docx', 'deep/e.html', 'deep/er/d.md', 'deep/f.htm', 'g.xml', 'h.tex'].map((f) => `${dir}/${f}`));
-    // A file named on its own is taken as it is, hidden or not; a folder given with a trailing slash gives the same paths.
-    expect((await collectInputs([join(dir, '.hidden.txt')])).files).toEqual([join(dir, '.hidden.txt')]);
-    expect((await collectInputs([`${dir}/`])).files).toEqual(found);
+    expect(found).toEqual(['B.PDF', 'a.txt', 'c.Docx', 'deep/e.html', 'deep/er/d.md', 'deep/f.htm', 'g.xml', 'h.tex']);
+    // A file named on its own is taken as it is, hidden or not; a folder given with a trailing slash, or as ".", gives the same paths.
+    expect((await collectInputs([join(dir, '.hidden.txt')], [dir])).files).toEqual(['.hidden.txt']);
+    expect((await collectInputs([`${dir}/`], [dir])).files).toEqual(found);
+    expect((await collectInputs(['.'], [dir])).files).toEqual(found);
+    // From elsewhere, the names climb to the folder.
+    expect((await collectInputs([dir], [join(dir, 'deep')])).files).toEqual(found.map((f) => (f.startsWith('deep/') ? f.slice(5) : `../${f}`)).sort());
   });
 });
