@@ -15,6 +15,8 @@ export interface AuditEntry {
   /** The document's compact JSON without its path (json.ts, documentBodyJson). */
   body: string;
   tally: DocumentTally;
+  /** The audit already parsed (and checked against the schema), when a cached audit was checked before use. */
+  document?: DocumentOutput;
 }
 
 export function entryOf(document: DocumentOutput): AuditEntry {
@@ -27,7 +29,7 @@ export function entryJson(entry: AuditEntry): string {
 }
 
 export function documentOf(entry: AuditEntry): DocumentOutput {
-  return JSON.parse(entryJson(entry)) as DocumentOutput;
+  return entry.document ?? (JSON.parse(entryJson(entry)) as DocumentOutput);
 }
 
 /** Keeps the last record per path and sorts by path, so shards merged equal the unsharded run. */

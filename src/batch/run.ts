@@ -1,12 +1,12 @@
 import { createHash } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
-import { extname } from 'node:path';
+import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { limitHint, resolveLimits } from '../limits.js';
-import { unreadableDocument } from '../report/build.js';
+import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
-import { entryOf, type AuditEntry } from './entry.js';
+import { entryJson, entryOf, type AuditEntry } from './entry.js';
 import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 
@@ -15,7 +15,18 @@ export interface BatchOptions {
   task: Omit<WorkerTask, 'path'>;
   /** Worker threads; 1 audits in this thread. */
   jobs: number;
-  cache: { store: AuditCache; fingerprint: string } | null;
+  cache: {
+    store: AuditCache;
+    fingerprint: string;
+    /**
+     * Parse every cached audit and check it against the report schema
+     * before use; one that fails is a miss. Set when the report parses the
+     * audits anyway (text, HTML, CSV, Markdown), so the check costs little
+     * there, and a forged entry never reaches a formatter. The JSON formats
+     * copy cached audits unparsed, guarded by their hash (AuditCache).
+     */
+    validate?: boolean;
+  } | null;
   /** Called once per document, in completion order, as soon as it is done. */
   onDocument: (entry: AuditEntry, fromCache: boolean) => void;
 }
@@ -56,21 +67,47 @@ function workerModule(): string | null {
   return existsSync(path) ? url.href : null;
 }
 
+type SchemaCheck = (entry: AuditEntry) => AuditEntry | null;
+
+/**
+ * The check of runBatch's `validate`: the cached audit parsed and checked
+ * against the report schema (zod, loaded only here), its counts taken from
+ * the audit itself rather than the entry's header; null when it fails.
+ */
+async function schemaCheck(): Promise<SchemaCheck> {
+  const { documentSchema } = await import('../report/model.js');
+  return (entry) => {
+    try {
+      const checked = documentSchema.safeParse(JSON.parse(entryJson(entry)));
+      return checked.success ? { ...entry, document: checked.data, tally: tallyOf(checked.data) } : null;
+    } catch {
+      return null;
+    }
+  };
+}
+
+/**
+ * The cached audit of a file, when there is a good one, and the file's
+ * content key. Never throws: whatever goes wrong makes a miss (the document
+ * is audited, and the reader says why it cannot be read, if it cannot).
+ */
 async function cachedOrKey(
   path: string,
   cache: NonNullable<BatchOptions['cache']>,
   index: ContentKeyIndex,
+  check: SchemaCheck | null,
 ): Promise<{ entry: AuditEntry | null; key: string | null }> {
-  let key: string;
   try {
     // Synchronous stat: for an unchanged file this and the cache read below are all the work (see AuditCache.get).
     const info = statSync(path);
-    key = index.lookup(path, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, cache.fingerprint));
-    index.record(path, info.size, info.mtimeMs, key);
+    const absolute = resolve(path);
+    const key = index.lookup(absolute, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, cache.fingerprint));
+    index.record(absolute, info.size, info.mtimeMs, key);
+    const stored = cache.store.get(key, path);
+    return { entry: stored && check ? check(stored) : stored, key };
   } catch {
-    return { entry: null, key: null }; // the reader will report why
+    return { entry: null, key: null };
   }
-  return { entry: cache.store.get(key, path), key };
 }
 
 /** Files up to this size are hashed from one read; larger ones as a stream. */
@@ -99,9 +136,10 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   } else {
     // Look up many files at once: the lookups wait on the disk, not the processor.
     const cache = options.cache;
-    const index = new ContentKeyIndex(cache.store.directory, cache.fingerprint);
+    const check = cache.validate ? await schemaCheck() : null;
+    const index = new ContentKeyIndex(cache.store, cache.fingerprint);
     await index.load();
-    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache, index));
+    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache, index, check));
     await index.save();
     lookups.forEach(({ entry, key }, index) => {
       const path = options.files[index]!;
@@ -113,7 +151,7 @@ export async function runBatch(options: BatchOptions): Promise<void> {
 
   const finish = async ({ key }: { key: string | null }, entry: AuditEntry): Promise<void> => {
     // Only audits are kept: a document that could not be read (or ran out of time, which may be the
-    // machine's load) is tried again next time.
+    // machine's load) is tried again next time. The cache never throws (AuditCache.write).
     if (key && options.cache && !entry.tally.unreadable) await options.cache.store.set(key, entry);
     options.onDocument(entry, false);
   };

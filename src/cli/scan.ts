@@ -123,8 +123,10 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
           jobs,
           cache: options.cache
             ? {
-                store: new AuditCache(options.cacheDir),
+                store: new AuditCache(options.cacheDir, io.stderr),
                 fingerprint: settingsFingerprint({ build: buildFingerprint(), userConfig, readOptions }),
+                // The formats that parse the audits check each cached one against the schema as well.
+                validate: !streamToStdout && options.format !== 'json' && options.format !== 'jsonl',
               }
             : null,
           onDocument: emit,

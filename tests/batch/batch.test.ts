@@ -190,18 +190,22 @@ describe('cache fingerprint', () => {
 
 describe('content key index', () => {
   it('reuses a key only while size and modification time are unchanged', async () => {
-    const { ContentKeyIndex } = await import('../../src/batch/cache.js');
+    const { AuditCache, ContentKeyIndex } = await import('../../src/batch/cache.js');
     const dir = mkdtempSync(join(tmpdir(), 'plumbline-index-'));
-    const index = new ContentKeyIndex(dir, 'settings-a');
+    const store = new AuditCache(dir);
+    const key1 = 'a'.repeat(64);
+    const index = new ContentKeyIndex(store, 'settings-a');
     await index.load();
-    index.record('a.txt', 10, 1000, 'key-1');
+    index.record('a.txt', 10, 1000, key1);
+    index.record('b.txt', 10, 1000, '../../not-a-key'); // never kept: a key names a file in the cache folder
     await index.save();
-    const again = new ContentKeyIndex(dir, 'settings-a');
+    const again = new ContentKeyIndex(store, 'settings-a');
     await again.load();
-    expect(again.lookup('a.txt', 10, 1000)).toBe('key-1');
+    expect(again.lookup('a.txt', 10, 1000)).toBe(key1);
+    expect(again.lookup('b.txt', 10, 1000)).toBeNull();
     expect(again.lookup('a.txt', 11, 1000)).toBeNull();
     expect(again.lookup('a.txt', 10, 1001)).toBeNull();
-    const otherSettings = new ContentKeyIndex(dir, 'settings-b');
+    const otherSettings = new ContentKeyIndex(store, 'settings-b');
     await otherSettings.load();
     expect(otherSettings.lookup('a.txt', 10, 1000)).toBeNull();
   });
