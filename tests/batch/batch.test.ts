@@ -140,6 +140,9 @@ describe('scan at scale', () => {
     appendFileSync(jsonl, '{"path":"papers/paper-2');
     const resumed = scan(['papers', '--no-cache', '--jobs', '1', '--jsonl', jsonl, '--resume', '--format', 'json'], dir);
     expect(documentsOf(reportOf(resumed.stdout))).toEqual(documentsOf(whole));
+    // The fragment was dropped, not appended to: every line of the file is a whole record, one per document.
+    const records = readFileSync(jsonl, 'utf8').trimEnd().split('\n').map((line) => JSON.parse(line) as { path: string });
+    expect(records.map((record) => record.path).sort()).toEqual(whole.documents.map((d) => d.path));
   }, 60_000);
 
   it('--resume needs --jsonl, and a bad --shard is refused', () => {
