@@ -3,6 +3,7 @@ import { createReadStream, existsSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { MessageChannel } from 'node:worker_threads';
 import { limitHint, resolveLimits } from '../limits.js';
 import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
@@ -12,7 +13,7 @@ import type { WorkerTask } from './worker.js';
 
 export interface BatchOptions {
   files: readonly string[];
-  task: Omit<WorkerTask, 'path'>;
+  task: Omit<WorkerTask, 'path' | 'started'>;
   /** Worker threads; 1 audits in this thread. */
   jobs: number;
   cache: {
@@ -169,27 +170,49 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   }
 
   const { Piscina } = await import('piscina');
-  const pool = new Piscina<WorkerTask, AuditEntry>({
-    filename: module,
-    minThreads: Math.min(options.jobs, pending.length),
-    maxThreads: Math.min(options.jobs, pending.length),
-    idleTimeout: 1000,
-  });
+  const threads = Math.min(options.jobs, pending.length);
+  const pool = new Piscina<WorkerTask, AuditEntry>({ filename: module, minThreads: threads, maxThreads: threads, idleTimeout: 1000 });
   try {
     const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
-    const auditOnPool = async (path: string): Promise<AuditEntry> => {
-      try {
-        // Past the time budget piscina stops the thread (and starts a new one); the document is listed with the reason.
-        return await pool.run({ ...options.task, path }, { signal: AbortSignal.timeout(maxSecondsPerDocument * 1000) });
-      } catch (error) {
-        if ((error as Error).name === 'AbortError' || (error as Error).name === 'TimeoutError') {
-          return entryOf(unreadableDocument(path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
-        }
-        return entryOf(unreadableDocument(path, `internal error while auditing: ${(error as Error).message}`));
-      }
-    };
-    await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(item.path))));
+    await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(pool, { ...options.task, path: item.path }, maxSecondsPerDocument))));
   } finally {
     await pool.destroy();
+  }
+}
+
+/**
+ * One document audited on the pool, within its time budget. The budget is
+ * the document's own work: its clock starts when a worker takes the task up
+ * (the worker says so on a message port, worker.ts), not when it was queued,
+ * so a long queue (thousands of documents, --jobs 1) never uses it up. Past
+ * the budget, piscina ends the thread (and starts another) and the document
+ * is listed with the reason.
+ */
+async function auditOnPool(
+  pool: import('piscina').Piscina<WorkerTask, AuditEntry>,
+  task: Omit<WorkerTask, 'started'>,
+  maxSecondsPerDocument: number,
+): Promise<AuditEntry> {
+  const { port1: startedHere, port2: startedThere } = new MessageChannel();
+  const stop = new AbortController();
+  let timer: NodeJS.Timeout | undefined;
+  let timedOut = false;
+  startedHere.once('message', () => {
+    timer = setTimeout(() => {
+      timedOut = true;
+      stop.abort();
+    }, maxSecondsPerDocument * 1000);
+    startedHere.close();
+  });
+  try {
+    return await pool.run({ ...task, started: startedThere }, { signal: stop.signal, transferList: [startedThere] });
+  } catch (error) {
+    if (timedOut) {
+      return entryOf(unreadableDocument(task.path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
+    }
+    return entryOf(unreadableDocument(task.path, `internal error while auditing: ${(error as Error).message}`));
+  } finally {
+    clearTimeout(timer);
+    startedHere.close();
   }
 }
