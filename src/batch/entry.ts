@@ -23,6 +23,16 @@ export function entryOf(document: DocumentOutput): AuditEntry {
   return { path: document.path, body: documentBodyJson(document), tally: tallyOf(document) };
 }
 
+/**
+ * The reason listed for a document whose audit failed in a way plumbline did
+ * not foresee (a fault in plumbline, not in the document): the error, and a
+ * request to report it. The rest of the audit goes on.
+ */
+export function internalErrorReason(error: unknown): string {
+  const described = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+  return `internal error in plumbline while auditing this document (${described}); please report it, with the document if you can share it`;
+}
+
 /** The entry as one line of compact JSON, path first. */
 export function entryJson(entry: AuditEntry): string {
   return documentJsonFromBody(entry.path, entry.body);

@@ -4,10 +4,11 @@ import { readFile } from 'node:fs/promises';
 import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
+import type { ResolvedConfig } from '../checks/config.js';
 import { limitHint, resolveLimits } from '../limits.js';
 import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
-import { entryJson, entryOf, type AuditEntry } from './entry.js';
+import { entryJson, entryOf, internalErrorReason, type AuditEntry } from './entry.js';
 import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 
@@ -128,7 +129,9 @@ async function contentKey(path: string, size: number, fingerprint: string): Prom
 /**
  * Audits many documents: cache hits first (in this thread, cheap), then the
  * rest on a worker pool. Every document, readable or not, reaches onDocument
- * exactly once.
+ * exactly once; an error while auditing one document becomes that
+ * document's row (internalErrorReason), never the end of the audit. Only an
+ * error thrown by onDocument itself (writing the output) ends the batch.
  */
 export async function runBatch(options: BatchOptions): Promise<void> {
   const pending: { path: string; key: string | null }[] = [];
@@ -165,7 +168,7 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   const onThisThread = module === null || ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)));
   if (onThisThread) {
     const { auditFile } = await import('./auditFile.js');
-    for (const item of pending) await finish(item, entryOf(await auditFile(item.path, config, options.task.readOptions)));
+    for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions));
     return;
   }
 
@@ -177,6 +180,20 @@ export async function runBatch(options: BatchOptions): Promise<void> {
     await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(pool, { ...options.task, path: item.path }, maxSecondsPerDocument))));
   } finally {
     await pool.destroy();
+  }
+}
+
+/** One document audited in this thread; any error becomes its row. */
+async function auditHere(
+  auditFile: typeof import('./auditFile.js').auditFile,
+  path: string,
+  config: ResolvedConfig,
+  readOptions: WorkerTask['readOptions'],
+): Promise<AuditEntry> {
+  try {
+    return entryOf(await auditFile(path, config, readOptions));
+  } catch (error) {
+    return entryOf(unreadableDocument(path, internalErrorReason(error)));
   }
 }
 
@@ -210,7 +227,7 @@ async function auditOnPool(
     if (timedOut) {
       return entryOf(unreadableDocument(task.path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
     }
-    return entryOf(unreadableDocument(task.path, `internal error while auditing: ${(error as Error).message}`));
+    return entryOf(unreadableDocument(task.path, internalErrorReason(error)));
   } finally {
     clearTimeout(timer);
     startedHere.close();

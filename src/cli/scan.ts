@@ -13,7 +13,7 @@ import type { ReadOptions } from '../documents/read.js';
 import type { DocumentOutput } from '../report/model.js';
 import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
 import { buildFingerprint } from '../version.js';
-import { addCommonOptions, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
+import { addCommonOptions, checkOutputFolder, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 interface ScanOptions extends CommonOptions {
   all?: boolean;
@@ -117,6 +117,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       const shard = options.shard === undefined ? null : parseShard(options.shard);
       if (typeof shard === 'string') throw new UsageError(shard);
       const jobs = parseJobs(options.jobs);
+      if (options.output) checkOutputFolder(options.output);
 
       const { files, missing } = await collectInputs(paths);
       if (files.length === 0 && missing.length === 0) throw new UsageError(`no supported documents found in ${paths.join(', ')}`);
