@@ -7,9 +7,10 @@ import type { AuditEntry } from './entry.js';
 
 /**
  * A content-addressed cache of document audits. The key covers everything
- * the audit depends on: the file's bytes, the settings (rules, severities,
- * options, alpha), the reading options (PDF engine) and plumbline's version.
- * A cached audit is reused whatever the file is called now.
+ * the audit depends on: the file's bytes, the format its extension gives,
+ * the settings (rules, severities, options, alpha), the reading options (PDF
+ * engine) and plumbline's version. A cached audit is reused whatever the
+ * file is called now, as long as its extension gives the same format.
  *
  * The cache only ever saves work: an entry that is damaged is a miss (the
  * document is audited again and the entry rewritten), and a folder that

@@ -5,6 +5,7 @@ import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
 import type { ResolvedConfig } from '../checks/config.js';
+import { formatByExtension } from '../documents/formats.js';
 import { limitHint, resolveLimits } from '../limits.js';
 import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
@@ -89,6 +90,18 @@ async function schemaCheck(): Promise<SchemaCheck> {
 }
 
 /**
+ * What besides its bytes decides a file's audit: the settings (the batch's
+ * fingerprint) and the format its name gives. The same bytes are read one
+ * way as .html and another as .txt, and even a .md and a .txt of the same
+ * text differ in their reported format, so a copy under another extension
+ * never takes the other's audit.
+ */
+function fileFingerprint(path: string, fingerprint: string): string {
+  const extension = extname(path).toLowerCase();
+  return `${fingerprint}\0${formatByExtension[extension] ?? extension}`;
+}
+
+/**
  * The cached audit of a file, when there is a good one, and the file's
  * content key. Never throws: whatever goes wrong makes a miss (the document
  * is audited, and the reader says why it cannot be read, if it cannot).
@@ -103,7 +116,7 @@ async function cachedOrKey(
     // Synchronous stat: for an unchanged file this and the cache read below are all the work (see AuditCache.get).
     const info = statSync(path);
     const absolute = resolve(path);
-    const key = index.lookup(absolute, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, cache.fingerprint));
+    const key = index.lookup(absolute, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, fileFingerprint(path, cache.fingerprint)));
     index.record(absolute, info.size, info.mtimeMs, key);
     const stored = cache.store.get(key, path);
     return { entry: stored && check ? check(stored) : stored, key };

@@ -71,6 +71,22 @@ describe('the cache under concurrency', () => {
   });
 });
 
+describe('the cache key', () => {
+  it('includes the format: the same bytes as .txt, .md and .html are three audits', () => {
+    // Found by tests/property/batch.property.test.ts: a .txt copy of a .md file took its audit, format and all.
+    const dir = temporaryFolder('formats');
+    mkdirSync(join(dir, 'papers'));
+    const bytes = '<p>Groups differed, t(38) = 2.10, p = .042.</p>\n'; // p = .0423 (SciPy 1.10.1 scipy.stats.t.sf, two-sided)
+    for (const name of ['a.md', 'b.txt', 'c.html']) writeFileSync(join(dir, 'papers', name), bytes);
+    const uncached = plumbline(['scan', 'papers', '--no-cache', ...json], dir);
+    expect(reportOf(uncached).documents.map((d) => d.format)).toEqual(['markdown', 'text', 'html']);
+    for (const jobs of ['1', '3']) {
+      const run = plumbline(['scan', 'papers', '--jobs', jobs, '--cache-dir', 'cache', ...json], dir);
+      expect(reportOf(run).documents, `--jobs ${jobs}`).toEqual(reportOf(uncached).documents);
+    }
+  });
+});
+
 describe('cache entries are checked before use', () => {
   it('an entry changed in place (same length, other bytes) is a miss, and is rewritten', () => {
     const dir = duplicates(1);
