@@ -132,12 +132,15 @@ describe('cache entries are checked before use', () => {
 
   it('an index that names a key outside the cache folder is ignored, and nothing is written outside', () => {
     const dir = duplicates(1);
-    plumbline(['scan', 'papers', '--cache-dir', 'cache/inner', ...json], dir);
-    const [index] = filesUnder(join(dir, 'cache', 'inner')).filter((file) => file.includes('index-'));
+    // Deep enough that the key's climb ('<cache>/../../../escaped.json') still lands inside the test's folder.
+    const cache = 'cache/a/b/c';
+    plumbline(['scan', 'papers', '--cache-dir', cache, ...json], dir);
+    const [index] = filesUnder(join(dir, cache)).filter((file) => file.includes('index-'));
     const entries = JSON.parse(readFileSync(index!, 'utf8')) as Record<string, { key: string }>;
+    expect(Object.keys(entries)).toHaveLength(3);
     for (const path of Object.keys(entries)) entries[path]!.key = '../../escaped';
     writeFileSync(index!, JSON.stringify(entries));
-    const run = plumbline(['scan', 'papers', '--cache-dir', 'cache/inner', ...json], dir);
+    const run = plumbline(['scan', 'papers', '--cache-dir', cache, ...json], dir);
     expect(run.status).toBe(0);
     expect(pathsOf(run)).toHaveLength(3);
     expect(filesUnder(dir).filter((file) => file.includes('escaped'))).toEqual([]);

@@ -87,8 +87,9 @@ syncBuiltinESMExports();
       // Thrown from a timer once the command has started (its handlers are in place), as a reader's callback might.
       `import { isMainThread } from 'node:worker_threads';
 if (isMainThread) {
+  const begun = Date.now();
   const wait = setInterval(() => {
-    if (process.listenerCount('uncaughtException') === 0) return;
+    if (process.listenerCount('uncaughtException') === 0 && Date.now() - begun < 10_000) return;
     clearInterval(wait);
     throw new RangeError('thrown where nothing awaits it');
   }, 1);
