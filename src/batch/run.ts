@@ -35,6 +35,8 @@ export interface BatchOptions {
 }
 
 const CACHE_LOOKUPS_AT_ONCE = 32;
+/** Documents handed to the pool per thread at a time: enough that no thread waits for the next. */
+const TASKS_QUEUED_PER_THREAD = 4;
 
 /** Maps over items with at most `limit` promises in flight; results keep the input order. */
 async function mapConcurrently<T, R>(items: readonly T[], limit: number, map: (item: T) => Promise<R>): Promise<R[]> {
@@ -190,7 +192,10 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   const pool = new Piscina<WorkerTask, AuditEntry>({ filename: module, minThreads: threads, maxThreads: threads, idleTimeout: 1000 });
   try {
     const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
-    await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(pool, { ...options.task, path: item.path }, maxSecondsPerDocument))));
+    // A few tasks per thread in the pool's queue at a time, not thousands: each holds a message port until it starts.
+    await mapConcurrently(pending, threads * TASKS_QUEUED_PER_THREAD, async (item) =>
+      finish(item, await auditOnPool(pool, { ...options.task, path: item.path }, maxSecondsPerDocument)),
+    );
   } finally {
     await pool.destroy();
   }
