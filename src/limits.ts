@@ -29,9 +29,10 @@ export interface Limits {
   /** Most pages read from one PDF. */
   maxPdfPages: number;
   /**
-   * Longest time one document may take, in seconds: a document audited on a
-   * worker thread is stopped (the thread is replaced) and pdftotext is killed
-   * when it runs longer. PDFs read with pdf-parse and DOCX files are always
+   * Longest time one document may take, in seconds, counted from the moment
+   * a worker thread starts it (never its wait in the queue): a document
+   * audited on a worker thread is stopped (the thread is replaced) and
+   * pdftotext is killed when it runs longer. PDFs read with pdf-parse and DOCX files are always
    * audited on a worker thread, even with --jobs 1, so they can be stopped.
    */
   maxSecondsPerDocument: number;

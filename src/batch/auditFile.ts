@@ -9,6 +9,7 @@ import { readDocument, type ReadOptions } from '../documents/read.js';
 import type { Region } from '../documents/types.js';
 import { MB, resolveLimits } from '../limits.js';
 import type { DocumentOutput, StatisticOutput } from '../report/model.js';
+import { internalErrorReason } from './entry.js';
 import { decodeChunks, TextDecodingError, textWindows, type StreamOptions } from '../scan/stream.js';
 
 /** Reads and audits one file; an unreadable file becomes a row with its reason, never an exception. */
@@ -28,7 +29,7 @@ export async function auditFile(path: string, config: ResolvedConfig, readOption
     return { ...auditDocument(outcome.document, config, path), format: outcome.document.format };
   } catch (error) {
     // A reader bug must not stop an audit of thousands of files: record it against this file.
-    return unreadableDocument(path, `internal error while reading: ${(error as Error).message}`);
+    return unreadableDocument(path, internalErrorReason(error));
   }
 }
 
@@ -85,5 +86,5 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
 function describeStreamError(error: unknown): string {
   if (error instanceof TextDecodingError) return error.message;
   const code = (error as NodeJS.ErrnoException).code;
-  return code ? `cannot read the file (${code})` : `internal error while reading: ${(error as Error).message}`;
+  return code ? `cannot read the file (${code})` : internalErrorReason(error);
 }

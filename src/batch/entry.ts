@@ -15,10 +15,22 @@ export interface AuditEntry {
   /** The document's compact JSON without its path (json.ts, documentBodyJson). */
   body: string;
   tally: DocumentTally;
+  /** The audit already parsed (and checked against the schema), when a cached audit was checked before use. */
+  document?: DocumentOutput;
 }
 
 export function entryOf(document: DocumentOutput): AuditEntry {
   return { path: document.path, body: documentBodyJson(document), tally: tallyOf(document) };
+}
+
+/**
+ * The reason listed for a document whose audit failed in a way plumbline did
+ * not foresee (a fault in plumbline, not in the document): the error, and a
+ * request to report it. The rest of the audit goes on.
+ */
+export function internalErrorReason(error: unknown): string {
+  const described = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+  return `internal error in plumbline while auditing this document (${described}); please report it, with the document if you can share it`;
 }
 
 /** The entry as one line of compact JSON, path first. */
@@ -27,7 +39,7 @@ export function entryJson(entry: AuditEntry): string {
 }
 
 export function documentOf(entry: AuditEntry): DocumentOutput {
-  return JSON.parse(entryJson(entry)) as DocumentOutput;
+  return entry.document ?? (JSON.parse(entryJson(entry)) as DocumentOutput);
 }
 
 /** Keeps the last record per path and sorts by path, so shards merged equal the unsharded run. */

@@ -1,10 +1,11 @@
+import { realpathSync } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
-import { basename } from 'node:path';
+import { basename, isAbsolute, relative, resolve, sep } from 'node:path';
 import { fdir } from 'fdir';
 import { supportedExtensions } from '../documents/formats.js';
 
 export interface CollectedInputs {
-  /** Files to audit, in a stable order, without duplicates. */
+  /** Files to audit, each once, named relative to where the user stands (reportedPath), sorted. */
   files: string[];
   /** Arguments that named nothing on disk, with the reason. */
   missing: { path: string; reason: string }[];
@@ -37,15 +38,21 @@ function isSkippedName(name: string): boolean {
 }
 
 /**
- * Every supported document under a folder, sorted; hidden files and folders
- * and node_modules are skipped, and symbolic links to folders are not
- * followed (a link can loop back). A directory crawler (fdir) rather than a
- * glob library: the walk is the whole of what is needed, and a re-audit from
- * the cache spends a large part of its time here (DEVELOPERS.md, "Libraries").
+ * Every supported document under a folder, as absolute paths; hidden files
+ * and folders and node_modules are skipped, and symbolic links to folders
+ * are not followed (a link can loop back). A directory crawler (fdir) rather
+ * than a glob library: the walk is the whole of what is needed, and a
+ * re-audit from the cache spends a large part of its time here
+ * (DEVELOPERS.md, "Libraries").
+ *
+ * The folder is crawled by its absolute path and the paths come back whole:
+ * fdir 6.5's relative paths drop the subfolders when the root is "." or
+ * "./" (a/mid.txt came back as mid.txt), so paths are made relative here,
+ * by reportedPath, never by fdir.
  */
 async function documentsUnder(folder: string): Promise<string[]> {
   const found = await new fdir()
-    .withRelativePaths()
+    .withFullPaths()
     .exclude((name) => isSkippedName(name))
     .filter((path) => {
       const name = basename(path);
@@ -53,37 +60,128 @@ async function documentsUnder(folder: string): Promise<string[]> {
     })
     .crawl(folder)
     .withPromise();
-  const prefix = folder.endsWith('/') ? folder : `${folder}/`;
-  return found.sort().map((relative) => prefix + relative);
+  return found.sort(); // the order of the folder listing is the file system's; this one is the same on every run
+}
+
+/**
+ * The folders a path is reported relative to: the process's working folder
+ * and, when the shell stands in the same folder through a symbolic link, the
+ * shell's name for it ($PWD), so that an absolute path typed through the
+ * link is reported as the user sees it. Arguments themselves are resolved
+ * against the process's folder only, as the system resolves "..".
+ */
+export function workingFolders(): string[] {
+  const physical = process.cwd();
+  const logical = process.env.PWD;
+  if (!logical || logical === physical || !isAbsolute(logical)) return [physical];
+  try {
+    return realpathSync(logical) === realpathSync(physical) ? [physical, logical] : [physical];
+  } catch {
+    return [physical];
+  }
+}
+
+/**
+ * How a file is named in reports: relative to where the user stands,
+ * whatever form the argument took (".", "./", "..", absolute, a linked
+ * folder), so the same file always gets the same name in one place and two
+ * files never share one. Among several names for the working folder
+ * (workingFolders), the first under which the file lies wins; a file
+ * outside all of them is named from the first ("../papers/a.pdf"). A path
+ * that cannot be made relative (another drive) stays absolute.
+ */
+export function reportedPath(absolute: string, bases: readonly string[]): string {
+  let fallback: string | null = null;
+  for (const base of bases) {
+    const path = relative(base, absolute);
+    if (path === '' || isAbsolute(path)) continue;
+    if (path !== '..' && !path.startsWith(`..${sep}`)) return path;
+    fallback ??= path;
+  }
+  return fallback ?? absolute;
+}
+
+/** A file's identity: two paths name the same file when device and inode agree (links, "./a" and "a"). */
+async function identityOf(path: string): Promise<string | null> {
+  try {
+    const info = await stat(path, { bigint: true });
+    return info.isFile() ? `${info.dev}:${info.ino}` : null;
+  } catch {
+    return null; // gone since it was listed: the reader will say why
+  }
+}
+
+/** At most this many stat calls in flight while telling files apart. */
+const IDENTITY_CHECKS_AT_ONCE = 64;
+
+/**
+ * The files to audit, each once: paths that resolve to the same file
+ * (the same device and inode, reached through "." and an absolute path, a
+ * linked folder or a hard link) are one input, reported under the first
+ * name given; different files are always kept, whatever their names or
+ * contents. Sorted by the reported name.
+ */
+async function distinctFiles(candidates: readonly { absolute: string; explicit: boolean }[], bases: readonly string[]): Promise<string[]> {
+  const byPath = new Map<string, boolean>();
+  for (const { absolute, explicit } of candidates) if (!byPath.has(absolute)) byPath.set(absolute, explicit);
+  const paths = [...byPath.keys()];
+  const identities = new Array<string | null>(paths.length);
+  let next = 0;
+  const lane = async (): Promise<void> => {
+    while (next < paths.length) {
+      const index = next++;
+      identities[index] = await identityOf(paths[index]!);
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(IDENTITY_CHECKS_AT_ONCE, paths.length) }, lane));
+  const seen = new Set<string>();
+  const files: string[] = [];
+  paths.forEach((absolute, index) => {
+    const identity = identities[index] ?? null;
+    // A walked entry that is not a regular file (a link to a folder named like a document) is not a document.
+    if (identity === null && !byPath.get(absolute)) return;
+    if (identity !== null) {
+      if (seen.has(identity)) return;
+      seen.add(identity);
+    }
+    files.push(reportedPath(absolute, bases));
+  });
+  return files.sort();
 }
 
 /**
  * Expands the scan command's arguments: folders (walked for supported
  * documents), files (taken as they are, so an unsupported one is reported,
  * not dropped), and list files written as @list.txt (one path per line,
- * relative to the current folder).
+ * relative to the current folder). `bases` are the names of the folder the
+ * user stands in (workingFolders); the first resolves relative arguments.
  */
-export async function collectInputs(args: readonly string[]): Promise<CollectedInputs> {
-  const files: string[] = [];
+export async function collectInputs(args: readonly string[], bases: readonly string[] = workingFolders()): Promise<CollectedInputs> {
+  const here = bases[0]!;
+  const candidates: { absolute: string; explicit: boolean }[] = [];
   const missing: CollectedInputs['missing'] = [];
   const pending = [...args];
   while (pending.length > 0) {
     const arg = pending.shift()!;
     if (arg.startsWith('@')) {
-      const listed = await readListFile(arg.slice(1));
-      if (listed === null) missing.push({ path: arg.slice(1), reason: 'list file not found or not readable' });
+      const list = resolve(here, arg.slice(1));
+      const listed = await readListFile(list);
+      if (listed === null) missing.push({ path: reportedPath(list, bases), reason: 'list file not found or not readable' });
       else pending.unshift(...listed.filter((entry) => !entry.startsWith('@')));
       continue;
     }
+    const absolute = resolve(here, arg);
     let info;
     try {
-      info = await stat(arg);
-    } catch {
-      missing.push({ path: arg, reason: 'no such file or folder' });
+      info = await stat(absolute);
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      missing.push({ path: reportedPath(absolute, bases), reason: code === 'ENOENT' || code === 'ENOTDIR' || !code ? 'no such file or folder' : `cannot open (${code})` });
       continue;
     }
-    if (info.isDirectory()) files.push(...(await documentsUnder(arg)));
-    else files.push(arg);
+    if (info.isDirectory()) candidates.push(...(await documentsUnder(absolute)).map((path) => ({ absolute: path, explicit: false })));
+    else candidates.push({ absolute, explicit: true });
   }
-  return { files: [...new Set(files)], missing };
+  const missingOnce = [...new Map(missing.map((entry) => [entry.path, entry])).values()];
+  return { files: await distinctFiles(candidates, bases), missing: missingOnce };
 }

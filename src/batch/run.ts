@@ -1,26 +1,42 @@
 import { createHash } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
-import { extname } from 'node:path';
+import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { MessageChannel } from 'node:worker_threads';
+import type { ResolvedConfig } from '../checks/config.js';
+import { formatByExtension } from '../documents/formats.js';
 import { limitHint, resolveLimits } from '../limits.js';
-import { unreadableDocument } from '../report/build.js';
+import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
-import { entryOf, type AuditEntry } from './entry.js';
+import { entryJson, entryOf, internalErrorReason, type AuditEntry } from './entry.js';
 import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 
 export interface BatchOptions {
   files: readonly string[];
-  task: Omit<WorkerTask, 'path'>;
+  task: Omit<WorkerTask, 'path' | 'started'>;
   /** Worker threads; 1 audits in this thread. */
   jobs: number;
-  cache: { store: AuditCache; fingerprint: string } | null;
+  cache: {
+    store: AuditCache;
+    fingerprint: string;
+    /**
+     * Parse every cached audit and check it against the report schema
+     * before use; one that fails is a miss. Set when the report parses the
+     * audits anyway (text, HTML, CSV, Markdown), so the check costs little
+     * there, and a forged entry never reaches a formatter. The JSON formats
+     * copy cached audits unparsed, guarded by their hash (AuditCache).
+     */
+    validate?: boolean;
+  } | null;
   /** Called once per document, in completion order, as soon as it is done. */
   onDocument: (entry: AuditEntry, fromCache: boolean) => void;
 }
 
 const CACHE_LOOKUPS_AT_ONCE = 32;
+/** Documents handed to the pool per thread at a time: enough that no thread waits for the next. */
+const TASKS_QUEUED_PER_THREAD = 4;
 
 /** Maps over items with at most `limit` promises in flight; results keep the input order. */
 async function mapConcurrently<T, R>(items: readonly T[], limit: number, map: (item: T) => Promise<R>): Promise<R[]> {
@@ -56,21 +72,59 @@ function workerModule(): string | null {
   return existsSync(path) ? url.href : null;
 }
 
+type SchemaCheck = (entry: AuditEntry) => AuditEntry | null;
+
+/**
+ * The check of runBatch's `validate`: the cached audit parsed and checked
+ * against the report schema (zod, loaded only here), its counts taken from
+ * the audit itself rather than the entry's header; null when it fails.
+ */
+async function schemaCheck(): Promise<SchemaCheck> {
+  const { documentSchema } = await import('../report/model.js');
+  return (entry) => {
+    try {
+      const checked = documentSchema.safeParse(JSON.parse(entryJson(entry)));
+      return checked.success ? { ...entry, document: checked.data, tally: tallyOf(checked.data) } : null;
+    } catch {
+      return null;
+    }
+  };
+}
+
+/**
+ * What besides its bytes decides a file's audit: the settings (the batch's
+ * fingerprint) and the format its name gives. The same bytes are read one
+ * way as .html and another as .txt, and even a .md and a .txt of the same
+ * text differ in their reported format, so a copy under another extension
+ * never takes the other's audit.
+ */
+function fileFingerprint(path: string, fingerprint: string): string {
+  const extension = extname(path).toLowerCase();
+  return `${fingerprint}\0${formatByExtension[extension] ?? extension}`;
+}
+
+/**
+ * The cached audit of a file, when there is a good one, and the file's
+ * content key. Never throws: whatever goes wrong makes a miss (the document
+ * is audited, and the reader says why it cannot be read, if it cannot).
+ */
 async function cachedOrKey(
   path: string,
   cache: NonNullable<BatchOptions['cache']>,
   index: ContentKeyIndex,
+  check: SchemaCheck | null,
 ): Promise<{ entry: AuditEntry | null; key: string | null }> {
-  let key: string;
   try {
     // Synchronous stat: for an unchanged file this and the cache read below are all the work (see AuditCache.get).
     const info = statSync(path);
-    key = index.lookup(path, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, cache.fingerprint));
-    index.record(path, info.size, info.mtimeMs, key);
+    const absolute = resolve(path);
+    const key = index.lookup(absolute, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, fileFingerprint(path, cache.fingerprint)));
+    index.record(absolute, info.size, info.mtimeMs, key);
+    const stored = cache.store.get(key, path);
+    return { entry: stored && check ? check(stored) : stored, key };
   } catch {
-    return { entry: null, key: null }; // the reader will report why
+    return { entry: null, key: null };
   }
-  return { entry: cache.store.get(key, path), key };
 }
 
 /** Files up to this size are hashed from one read; larger ones as a stream. */
@@ -90,7 +144,9 @@ async function contentKey(path: string, size: number, fingerprint: string): Prom
 /**
  * Audits many documents: cache hits first (in this thread, cheap), then the
  * rest on a worker pool. Every document, readable or not, reaches onDocument
- * exactly once.
+ * exactly once; an error while auditing one document becomes that
+ * document's row (internalErrorReason), never the end of the audit. Only an
+ * error thrown by onDocument itself (writing the output) ends the batch.
  */
 export async function runBatch(options: BatchOptions): Promise<void> {
   const pending: { path: string; key: string | null }[] = [];
@@ -99,9 +155,10 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   } else {
     // Look up many files at once: the lookups wait on the disk, not the processor.
     const cache = options.cache;
-    const index = new ContentKeyIndex(cache.store.directory, cache.fingerprint);
+    const check = cache.validate ? await schemaCheck() : null;
+    const index = new ContentKeyIndex(cache.store, cache.fingerprint);
     await index.load();
-    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache, index));
+    const lookups = await mapConcurrently(options.files, CACHE_LOOKUPS_AT_ONCE, (path) => cachedOrKey(path, cache, index, check));
     await index.save();
     lookups.forEach(({ entry, key }, index) => {
       const path = options.files[index]!;
@@ -113,7 +170,7 @@ export async function runBatch(options: BatchOptions): Promise<void> {
 
   const finish = async ({ key }: { key: string | null }, entry: AuditEntry): Promise<void> => {
     // Only audits are kept: a document that could not be read (or ran out of time, which may be the
-    // machine's load) is tried again next time.
+    // machine's load) is tried again next time. The cache never throws (AuditCache.write).
     if (key && options.cache && !entry.tally.unreadable) await options.cache.store.set(key, entry);
     options.onDocument(entry, false);
   };
@@ -126,32 +183,71 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   const onThisThread = module === null || ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)));
   if (onThisThread) {
     const { auditFile } = await import('./auditFile.js');
-    for (const item of pending) await finish(item, entryOf(await auditFile(item.path, config, options.task.readOptions)));
+    for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions));
     return;
   }
 
   const { Piscina } = await import('piscina');
-  const pool = new Piscina<WorkerTask, AuditEntry>({
-    filename: module,
-    minThreads: Math.min(options.jobs, pending.length),
-    maxThreads: Math.min(options.jobs, pending.length),
-    idleTimeout: 1000,
-  });
+  const threads = Math.min(options.jobs, pending.length);
+  const pool = new Piscina<WorkerTask, AuditEntry>({ filename: module, minThreads: threads, maxThreads: threads, idleTimeout: 1000 });
   try {
     const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
-    const auditOnPool = async (path: string): Promise<AuditEntry> => {
-      try {
-        // Past the time budget piscina stops the thread (and starts a new one); the document is listed with the reason.
-        return await pool.run({ ...options.task, path }, { signal: AbortSignal.timeout(maxSecondsPerDocument * 1000) });
-      } catch (error) {
-        if ((error as Error).name === 'AbortError' || (error as Error).name === 'TimeoutError') {
-          return entryOf(unreadableDocument(path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
-        }
-        return entryOf(unreadableDocument(path, `internal error while auditing: ${(error as Error).message}`));
-      }
-    };
-    await Promise.all(pending.map(async (item) => finish(item, await auditOnPool(item.path))));
+    // A few tasks per thread in the pool's queue at a time, not thousands: each holds a message port until it starts.
+    await mapConcurrently(pending, threads * TASKS_QUEUED_PER_THREAD, async (item) =>
+      finish(item, await auditOnPool(pool, { ...options.task, path: item.path }, maxSecondsPerDocument)),
+    );
   } finally {
     await pool.destroy();
+  }
+}
+
+/** One document audited in this thread; any error becomes its row. */
+async function auditHere(
+  auditFile: typeof import('./auditFile.js').auditFile,
+  path: string,
+  config: ResolvedConfig,
+  readOptions: WorkerTask['readOptions'],
+): Promise<AuditEntry> {
+  try {
+    return entryOf(await auditFile(path, config, readOptions));
+  } catch (error) {
+    return entryOf(unreadableDocument(path, internalErrorReason(error)));
+  }
+}
+
+/**
+ * One document audited on the pool, within its time budget. The budget is
+ * the document's own work: its clock starts when a worker takes the task up
+ * (the worker says so on a message port, worker.ts), not when it was queued,
+ * so a long queue (thousands of documents, --jobs 1) never uses it up. Past
+ * the budget, piscina ends the thread (and starts another) and the document
+ * is listed with the reason.
+ */
+async function auditOnPool(
+  pool: import('piscina').Piscina<WorkerTask, AuditEntry>,
+  task: Omit<WorkerTask, 'started'>,
+  maxSecondsPerDocument: number,
+): Promise<AuditEntry> {
+  const { port1: startedHere, port2: startedThere } = new MessageChannel();
+  const stop = new AbortController();
+  let timer: NodeJS.Timeout | undefined;
+  let timedOut = false;
+  startedHere.once('message', () => {
+    timer = setTimeout(() => {
+      timedOut = true;
+      stop.abort();
+    }, maxSecondsPerDocument * 1000);
+    startedHere.close();
+  });
+  try {
+    return await pool.run({ ...task, started: startedThere }, { signal: stop.signal, transferList: [startedThere] });
+  } catch (error) {
+    if (timedOut) {
+      return entryOf(unreadableDocument(task.path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
+    }
+    return entryOf(unreadableDocument(task.path, internalErrorReason(error)));
+  } finally {
+    clearTimeout(timer);
+    startedHere.close();
   }
 }

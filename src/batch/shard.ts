@@ -18,8 +18,10 @@ export function parseShard(text: string): Shard | string {
 
 /**
  * Whether a document belongs to a shard. The choice depends only on the
- * path as given (hashed, so shards get similar shares of each folder), so
- * every job of a batch array, given the same inputs, splits them the same way.
+ * path as reported (relative to the working folder, src/batch/inputs.ts;
+ * hashed, so shards get similar shares of each folder), so every job of a
+ * batch array started in the same folder with the same inputs splits them
+ * the same way.
  */
 export function inShard(path: string, shard: Shard): boolean {
   if (shard.count === 1) return true;

@@ -1,4 +1,5 @@
-import { writeFileSync } from 'node:fs';
+import { statSync, writeFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
 import { Option, type Command } from 'commander';
 import type { ResolvedConfig } from '../checks/config.js';
 import type { UserConfig } from '../checks/userConfig.js';
@@ -21,6 +22,8 @@ export interface CliIo {
 export const EXIT_CLEAN = 0;
 export const EXIT_FLAGGED = 1;
 export const EXIT_INPUT_ERROR = 2;
+/** A fault in plumbline itself (the BSD sysexits code for an internal software error). */
+export const EXIT_INTERNAL_FAULT = 70;
 
 /** An error the user can fix (bad option, missing file): printed briefly, exit code 2. */
 export class UsageError extends Error {}
@@ -94,6 +97,21 @@ export async function formatReport(input: ReportInput, format: ReportFormat, col
     case 'md':
       return (await import('../report/markdown.js')).formatMarkdown(report);
   }
+}
+
+/**
+ * Stops before a long audit, rather than after it, when the report could
+ * not be written where --output says: its folder is missing or not a folder.
+ */
+export function checkOutputFolder(file: string): void {
+  const folder = dirname(resolve(file));
+  let isFolder: boolean;
+  try {
+    isFolder = statSync(folder).isDirectory();
+  } catch {
+    throw new UsageError(`--output ${file}: the folder ${folder} does not exist`);
+  }
+  if (!isFolder) throw new UsageError(`--output ${file}: ${folder} is not a folder`);
 }
 
 /** Writes the report to --output or stdout. Colour only on a terminal, never into a file. */

@@ -1,11 +1,20 @@
 #!/usr/bin/env node
-import { runCli } from './program.js';
+import { EXIT_INTERNAL_FAULT, internalFaultMessage, runCli } from './program.js';
 
 async function readStdin(): Promise<string> {
   const chunks: Buffer[] = [];
   for await (const chunk of process.stdin) chunks.push(chunk as Buffer);
   return Buffer.concat(chunks).toString('utf8');
 }
+
+// An error thrown where nothing awaits it (a callback of a reader, say) cannot be tied to a document:
+// it ends the run as a fault in plumbline, with the same request to report it.
+const fault = (error: unknown): void => {
+  process.stderr.write(internalFaultMessage(error));
+  process.exit(EXIT_INTERNAL_FAULT);
+};
+process.on('uncaughtException', fault);
+process.on('unhandledRejection', fault);
 
 const color = Boolean(process.stdout.isTTY) && !("NO_COLOR" in process.env);
 
@@ -19,8 +28,5 @@ runCli(process.argv.slice(2), {
   (code) => {
     process.exitCode = code;
   },
-  (error: unknown) => {
-    process.stderr.write(`plumbline: unexpected error: ${(error as Error).stack ?? String(error)}\n`);
-    process.exitCode = 70;
-  },
+  fault,
 );

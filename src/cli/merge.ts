@@ -1,7 +1,7 @@
 import type { Command } from 'commander';
 import { buildReport } from '../report/build.js';
 import { mergeByPath } from '../batch/entry.js';
-import { readJsonLines } from '../batch/jsonLines.js';
+import { JsonLinesError, readJsonLines } from '../batch/jsonLines.js';
 import { addCommonOptions, exitCodeFor, UsageError, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
@@ -15,10 +15,18 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
     .action(async (files: string[], options: CommonOptions & { all?: boolean }) => {
       const perFile = await Promise.all(files.map(async (file) => {
         try {
-          return await readJsonLines(file);
+          const { documents, cutOff } = await readJsonLines(file);
+          if (cutOff) {
+            // Not an error: the lines before it are whole. The document is missing from the merge, so say which line.
+            io.stderr(`plumbline: ${file}: line ${cutOff.line} was cut off mid-line (an interrupted write) and is left out; scan --resume audits its document again\n`);
+          }
+          return documents;
         } catch (error) {
           const code = (error as NodeJS.ErrnoException).code;
-          throw new UsageError(code === 'ENOENT' ? `${file}: file not found` : (error as Error).message);
+          if (code === 'ENOENT') throw new UsageError(`${file}: file not found`);
+          if (code) throw new UsageError(`${file}: cannot read the file (${code})`);
+          if (error instanceof JsonLinesError) throw new UsageError(error.message);
+          throw error;
         }
       }));
       const report = buildReport(mergeByPath(perFile.flat()));

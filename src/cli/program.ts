@@ -7,6 +7,7 @@ import {
   configFrom,
   EXIT_CLEAN,
   EXIT_INPUT_ERROR,
+  EXIT_INTERNAL_FAULT,
   exitCodeFor,
   UsageError,
   writeReport,
@@ -17,7 +18,7 @@ import { registerMergeCommand } from './merge.js';
 import { registerScanCommand } from './scan.js';
 import { registerRefitCommand } from './refit.js';
 
-export { EXIT_CLEAN, EXIT_FLAGGED, EXIT_INPUT_ERROR, UsageError, type CliIo } from './common.js';
+export { EXIT_CLEAN, EXIT_FLAGGED, EXIT_INPUT_ERROR, EXIT_INTERNAL_FAULT, UsageError, type CliIo } from './common.js';
 
 function registerCheckCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
   addCommonOptions(
@@ -74,6 +75,29 @@ export function buildProgram(io: CliIo, setExitCode: (code: number) => void): Co
   return program;
 }
 
+/**
+ * A failure of the system around plumbline (a file or folder missing, not
+ * writable, a full disk): Node's errors with a code and the call that failed.
+ * It is the user's to fix, like a usage error, not a fault to report.
+ */
+function isSystemError(error: unknown): error is NodeJS.ErrnoException {
+  return error instanceof Error && typeof (error as NodeJS.ErrnoException).code === 'string' && typeof (error as NodeJS.ErrnoException).syscall === 'string';
+}
+
+/**
+ * What the user reads when plumbline itself fails (exit code 70): that it is
+ * a fault in plumbline, what to report and where to find the details.
+ */
+export function internalFaultMessage(error: unknown): string {
+  const details = error instanceof Error ? (error.stack ?? `${error.name}: ${error.message}`) : String(error);
+  return (
+    `plumbline: internal error: ${error instanceof Error ? error.message : String(error)}\n` +
+    `This is a fault in plumbline ${toolVersion()}, not in your documents or settings. Please report it, with the command ` +
+    'you ran, the details below and, if you can share it, the document it stopped on (or its format, size and where it came from).\n' +
+    `${details}\n`
+  );
+}
+
 /** Runs the CLI; returns the exit code instead of exiting, so it can be tested in-process. */
 export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
   let exitCode = EXIT_CLEAN;
@@ -88,10 +112,11 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
       // --help and --version end here with exit code 0; commander has already printed the message.
       return error.exitCode === 0 ? EXIT_CLEAN : EXIT_INPUT_ERROR;
     }
-    if (error instanceof UsageError || error instanceof ConfigError || error instanceof CatalogueError) {
+    if (error instanceof UsageError || error instanceof ConfigError || error instanceof CatalogueError || isSystemError(error)) {
       io.stderr(`plumbline: ${error.message}\n`);
       return EXIT_INPUT_ERROR;
     }
-    throw error;
+    io.stderr(internalFaultMessage(error));
+    return EXIT_INTERNAL_FAULT;
   }
 }

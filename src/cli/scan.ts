@@ -1,18 +1,19 @@
-import { existsSync } from 'node:fs';
+import { existsSync, truncateSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
 import { summaryOfTallies, unreadableDocument } from '../report/build.js';
 import { AuditCache, settingsFingerprint } from '../batch/cache.js';
 import { collectInputs } from '../batch/inputs.js';
 import { entryJson, entryOf, mergeByPath, type AuditEntry } from '../batch/entry.js';
-import { JsonLinesWriter, readJsonLines } from '../batch/jsonLines.js';
+import { JsonLinesError, JsonLinesWriter, readJsonLines } from '../batch/jsonLines.js';
 import { createProgress } from '../batch/progress.js';
 import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
+import type { DocumentOutput } from '../report/model.js';
 import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
 import { buildFingerprint } from '../version.js';
-import { addCommonOptions, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
+import { addCommonOptions, checkOutputFolder, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 interface ScanOptions extends CommonOptions {
   all?: boolean;
@@ -53,6 +54,34 @@ function limitsFrom(fromSettings: Partial<Limits> | undefined, options: ScanOpti
   return Object.keys(limits).length > 0 ? limits : undefined;
 }
 
+/**
+ * The documents already in the --jsonl file that --resume continues. A last
+ * line cut off mid-line (a crash, a full disk) is dropped from the file,
+ * and said so, before anything is appended: the next record would otherwise
+ * be glued onto it, losing a document and spoiling the file for merge. A bad
+ * line anywhere else stops the scan with its line number, before the file is
+ * touched.
+ */
+async function resumedDocuments(file: string, io: CliIo): Promise<DocumentOutput[]> {
+  if (!existsSync(file)) return [];
+  let content;
+  try {
+    content = await readJsonLines(file);
+  } catch (error) {
+    if (error instanceof JsonLinesError) throw new UsageError(`--resume: ${error.message}`);
+    throw error;
+  }
+  const { cutOff } = content;
+  if (cutOff) {
+    truncateSync(file, cutOff.completeBytes);
+    io.stderr(
+      `plumbline: ${file}: line ${cutOff.line} was cut off mid-line (${cutOff.bytes} bytes, an interrupted write); ` +
+        'dropped it before appending, and its document is audited again\n',
+    );
+  }
+  return content.documents;
+}
+
 export function registerScanCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
   addCommonOptions(
     program
@@ -88,6 +117,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       const shard = options.shard === undefined ? null : parseShard(options.shard);
       if (typeof shard === 'string') throw new UsageError(shard);
       const jobs = parseJobs(options.jobs);
+      if (options.output) checkOutputFolder(options.output);
 
       const { files, missing } = await collectInputs(paths);
       if (files.length === 0 && missing.length === 0) throw new UsageError(`no supported documents found in ${paths.join(', ')}`);
@@ -96,7 +126,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         ...files.map((path) => ({ path, reason: null as string | null })),
       ].filter((input) => shard === null || inShard(input.path, shard));
 
-      const previous = options.resume && options.jsonl && existsSync(options.jsonl) ? await readJsonLines(options.jsonl) : [];
+      const previous = options.resume && options.jsonl ? await resumedDocuments(options.jsonl, io) : [];
       const done = new Set(previous.map((d) => d.path));
       const writer = options.jsonl ? new JsonLinesWriter(options.jsonl, Boolean(options.resume)) : null;
       const streamToStdout = options.format === 'jsonl' && !options.jsonl && !options.output;
@@ -123,8 +153,10 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
           jobs,
           cache: options.cache
             ? {
-                store: new AuditCache(options.cacheDir),
+                store: new AuditCache(options.cacheDir, io.stderr),
                 fingerprint: settingsFingerprint({ build: buildFingerprint(), userConfig, readOptions }),
+                // The formats that parse the audits check each cached one against the schema as well.
+                validate: !streamToStdout && options.format !== 'json' && options.format !== 'jsonl',
               }
             : null,
           onDocument: emit,

@@ -1,6 +1,6 @@
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, relative } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/program.js';
 
@@ -23,7 +23,7 @@ describe('limits from the command line and the settings file', () => {
     const { code, out } = await run(['scan', page, '--max-document-mb', '1', '--no-cache', '-j', '1', '-q', '--format', 'json']);
     expect(code).toBe(2);
     const document = JSON.parse(out).documents[0];
-    expect(document).toMatchObject({ path: page, status: 'unreadable' });
+    expect(document).toMatchObject({ path: relative(process.cwd(), page), status: 'unreadable' }); // named from where the command runs
     expect(document.error).toMatch(/^document too large: 1\.\d MB \(limit maxDocumentMb = 1 MB; raise it with --max-document-mb <n>/);
     expect((await run(['scan', page, '--max-document-mb', '2', '--no-cache', '-j', '1', '-q'])).code).toBe(0);
   });

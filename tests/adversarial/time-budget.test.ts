@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { chmodSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { chmodSync, copyFileSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -69,4 +69,28 @@ describe('time budget per document', () => {
     expect(report.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
     expect(result.status).toBe(2);
   }, 30_000);
+
+  it('counts a document\'s own work from the moment a worker starts it, not its wait in the queue', () => {
+    // 200 documents of about 10 ms each, a budget of 1 s: every one fits its budget many times over, but the
+    // queue takes longer than the budget. Before, the clock started when a document was queued, and most were
+    // listed as "took longer than 1 s and was stopped".
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-queue-'));
+    const sentence = 'Participants rated every item twice. '.repeat(5);
+    for (let i = 0; i < 200; i += 1) {
+      const results = Array.from({ length: 20 }, (_, k) => `${sentence}Dose affected recall, F(2, ${50 + k}) = 4.21, p = .020.`);
+      writeFileSync(join(dir, `paper-${i}.txt`), `${results.join('\n')}\n`);
+    }
+    // With --jobs 1 a PDF read by pdf-parse sends every document to one worker thread, one after another.
+    copyFileSync(join(process.cwd(), 'tests', 'fixtures', 'documents', 'two-pages.pdf'), join(dir, 'two-pages.pdf'));
+    for (const jobs of ['1', '2']) {
+      const result = spawnSync(
+        'node',
+        [bin, 'scan', dir, '--jobs', jobs, '--pdf-engine', 'pdf-parse', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json', '--fail-on', 'never'],
+        { encoding: 'utf8', timeout: 50_000, maxBuffer: 1 << 28 },
+      );
+      const report = reportSchema.parse(JSON.parse(result.stdout));
+      expect(report.documents, `--jobs ${jobs}`).toHaveLength(201);
+      expect(report.documents.filter((d) => d.status === 'unreadable').map((d) => d.error), `--jobs ${jobs}`).toEqual([]);
+    }
+  }, 60_000);
 });

@@ -140,6 +140,9 @@ describe('scan at scale', () => {
     appendFileSync(jsonl, '{"path":"papers/paper-2');
     const resumed = scan(['papers', '--no-cache', '--jobs', '1', '--jsonl', jsonl, '--resume', '--format', 'json'], dir);
     expect(documentsOf(reportOf(resumed.stdout))).toEqual(documentsOf(whole));
+    // The fragment was dropped, not appended to: every line of the file is a whole record, one per document.
+    const records = readFileSync(jsonl, 'utf8').trimEnd().split('\n').map((line) => JSON.parse(line) as { path: string });
+    expect(records.map((record) => record.path).sort()).toEqual(whole.documents.map((d) => d.path));
   }, 60_000);
 
   it('--resume needs --jsonl, and a bad --shard is refused', () => {
@@ -190,18 +193,22 @@ describe('cache fingerprint', () => {
 
 describe('content key index', () => {
   it('reuses a key only while size and modification time are unchanged', async () => {
-    const { ContentKeyIndex } = await import('../../src/batch/cache.js');
+    const { AuditCache, ContentKeyIndex } = await import('../../src/batch/cache.js');
     const dir = mkdtempSync(join(tmpdir(), 'plumbline-index-'));
-    const index = new ContentKeyIndex(dir, 'settings-a');
+    const store = new AuditCache(dir);
+    const key1 = 'a'.repeat(64);
+    const index = new ContentKeyIndex(store, 'settings-a');
     await index.load();
-    index.record('a.txt', 10, 1000, 'key-1');
+    index.record('a.txt', 10, 1000, key1);
+    index.record('b.txt', 10, 1000, '../../not-a-key'); // never kept: a key names a file in the cache folder
     await index.save();
-    const again = new ContentKeyIndex(dir, 'settings-a');
+    const again = new ContentKeyIndex(store, 'settings-a');
     await again.load();
-    expect(again.lookup('a.txt', 10, 1000)).toBe('key-1');
+    expect(again.lookup('a.txt', 10, 1000)).toBe(key1);
+    expect(again.lookup('b.txt', 10, 1000)).toBeNull();
     expect(again.lookup('a.txt', 11, 1000)).toBeNull();
     expect(again.lookup('a.txt', 10, 1001)).toBeNull();
-    const otherSettings = new ContentKeyIndex(dir, 'settings-b');
+    const otherSettings = new ContentKeyIndex(store, 'settings-b');
     await otherSettings.load();
     expect(otherSettings.lookup('a.txt', 10, 1000)).toBeNull();
   });
@@ -220,11 +227,15 @@ describe('folder walk', () => {
       mkdirSync(join(dir, file, '..'), { recursive: true });
       writeFileSync(join(dir, file), 'text');
     }
-    const { files: found, missing } = await collectInputs([dir]);
+    // Named relative to the folder the user stands in (here the walked folder itself).
+    const { files: found, missing } = await collectInputs([dir], [dir]);
     expect(missing).toEqual([]);
-    expect(found).toEqual(['B.PDF', 'a.txt', 'c.Docx', 'deep/e.html', 'deep/er/d.md', 'deep/f.htm', 'g.xml', 'h.tex'].map((f) => `${dir}/${f}`));
-    // A file named on its own is taken as it is, hidden or not; a folder given with a trailing slash gives the same paths.
-    expect((await collectInputs([join(dir, '.hidden.txt')])).files).toEqual([join(dir, '.hidden.txt')]);
-    expect((await collectInputs([`${dir}/`])).files).toEqual(found);
+    expect(found).toEqual(['B.PDF', 'a.txt', 'c.Docx', 'deep/e.html', 'deep/er/d.md', 'deep/f.htm', 'g.xml', 'h.tex']);
+    // A file named on its own is taken as it is, hidden or not; a folder given with a trailing slash, or as ".", gives the same paths.
+    expect((await collectInputs([join(dir, '.hidden.txt')], [dir])).files).toEqual(['.hidden.txt']);
+    expect((await collectInputs([`${dir}/`], [dir])).files).toEqual(found);
+    expect((await collectInputs(['.'], [dir])).files).toEqual(found);
+    // From elsewhere, the names climb to the folder.
+    expect((await collectInputs([dir], [join(dir, 'deep')])).files).toEqual(found.map((f) => (f.startsWith('deep/') ? f.slice(5) : `../${f}`)).sort());
   });
 });
