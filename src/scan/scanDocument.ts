@@ -137,6 +137,17 @@ function mergeReprintedTables(tabled: readonly ReportedResult[]): Set<ReportedRe
   return folded;
 }
 
+/**
+ * The tables the reader gave results from or listed as not read: a table found
+ * but neither read nor listed (its columns named nothing the reader knows) is
+ * left to the search for unrecognised results tables, so that it is not
+ * skipped without a word.
+ */
+function handledTables(tables: readonly DocumentTable[], reading: { results: readonly ReportedResult[]; unread: readonly UnreadTable[] }): DocumentTable[] {
+  const overlaps = (table: DocumentTable, span: { start: number; end: number }): boolean => span.start < table.end && table.start < span.end;
+  return tables.filter((table) => reading.results.some((result) => result.tableRow !== undefined && overlaps(table, result)) || reading.unread.some((unread) => overlaps(table, unread)));
+}
+
 /** A document's scan, with the results tables it could not read in full. */
 export type DocumentScan = ScanOutput & { tablesNotRead: UnreadTable[] };
 
@@ -166,7 +177,7 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     results,
     context: written.context,
     descriptives: descriptives.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
-    tablesNotRead: [...tables.unread, ...findUnrecognisedTables(document.text, allTables, written.results)]
+    tablesNotRead: [...tables.unread, ...findUnrecognisedTables(document.text, handledTables(allTables, tables), written.results)]
       .filter((table) => !inRegion(table.start, document.regions, 'references'))
       .sort((a, b) => a.start - b.start),
   };

@@ -21,7 +21,7 @@ const scores = scoreCorpus(corpus);
  */
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.86, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.94, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
@@ -31,7 +31,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 };
 
 /** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
-const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.95, crushed: 0.83, 'cell-per-line': 0.84 };
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.96, crushed: 0.72, 'cell-per-line': 0.73 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {
@@ -70,6 +70,8 @@ describe('real corpus: the passages and their labels', () => {
   });
 });
 
+const SPLITS = ['tune', 'holdout'] as const;
+
 describe('real corpus: plumbline reads what is printed', () => {
   for (const split of ['tune', 'holdout'] as const) {
     for (const where of ['table', 'text'] as const) {
@@ -88,6 +90,14 @@ describe('real corpus: plumbline reads what is printed', () => {
     }
   }
 
+
+  // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured).
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 5, holdout: 48 };
+  for (const split of SPLITS) {
+    it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
+      expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
+    });
+  }
 
   it('reads the tune split\'s pipe tables in the other renderings copies give them, at their floors', () => {
     const rendered = renderingScores(corpus);

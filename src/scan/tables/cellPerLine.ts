@@ -78,13 +78,17 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     const cell = cells[index]!;
     if (cell.empty) continue;
     seen++;
-    if (isValueCell(cell)) return null;
+    if (isValueCell(cell)) break;
     if (isColumnName(cell.text)) {
       first = index;
       break;
     }
   }
-  if (first === -1) return null;
+  // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
+  // vocabulary knows: its header is the cells right before the first row's label.
+  const grid = first === -1 && SAYS_CORRELATIONS.test(title.text) && !OTHER_CORRELATIONS.test(title.text) ? gridHeader(cells, titleLine) : null;
+  if (first === -1 && grid === null) return null;
+  if (grid !== null) first = grid.first;
   let firstValue = first;
   let headerCells = 0;
   // (Empty cells in the header are spanned or blank header cells, not values; they do not count towards the limit.)
@@ -94,8 +98,8 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   }
   if (firstValue >= cells.length || headerCells >= MAX_HEADER_CELLS) return null;
   // The header ends with its last column name; text cells after it are the first row's label.
-  let bodyStart = firstValue;
-  while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
+  let bodyStart = grid?.bodyStart ?? firstValue;
+  if (grid === null) while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
   let body = cells.slice(bodyStart);
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
@@ -103,7 +107,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   const valueCount = typicalValueCount(body);
   // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
   // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
-  const window = valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
+  const window = grid === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
   if (window >= 0 && window + valueCount < headerRun.length) {
     const lastName = headerRun[window + valueCount - 1]!;
     bodyStart = cells.indexOf(lastName) + 1;
@@ -111,16 +115,16 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     headerRun = headerRun.slice(0, window + valueCount);
   }
   const labelCount = typicalLabelCount(body);
-  const everyCell = valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
+  const everyCell = grid !== null ? headerRun : valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
   const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
   const roles = names.map((cell) => classifyHeader(cell.text));
   const known = roles.filter((role) => role.role !== 'unknown' && role.role !== 'label').length;
   // A results table: a column names a statistic or p, or its cells hold written results ("χ2(2) = 5.496").
   const namesTest = roles.some((role) => role.role === 'statistic' || role.role === 'p' || role.role === 'result');
   const holdsResults = body.some((cell) => !cell.empty && shapeOf(cell.text).shape === 'written');
-  if (known < (everyCell ? 1 : 2) || names.length < 2 || !(namesTest || holdsResults)) return null;
+  if (grid === null && (known < (everyCell ? 1 : 2) || names.length < 2 || !(namesTest || holdsResults))) return null;
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
-  const startsWithLabel = classifyHeader(cells[first]!.text).role === 'label';
+  const startsWithLabel = grid === null && classifyHeader(cells[first]!.text).role === 'label';
   const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
@@ -213,6 +217,32 @@ function collectCells(lines: Line[], from: number): Cell[] {
   return cells;
 }
 
+/** A title that says the table holds correlations; and one that says they are of another kind (their df are not N − 2). */
+const SAYS_CORRELATIONS = /correlat/i;
+const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric/i;
+/** A page's line naming the article a table comes from ("From: <title>"), part of the caption. */
+const FROM_LINE = /^From:\s/;
+
+/**
+ * The header of a correlation table whose column names no vocabulary knows:
+ * the cells right before the first row's label cells, as many as most rows
+ * have values; null when those are not all text after the title's lines.
+ */
+function gridHeader(cells: Cell[], titleLine: number): { first: number; bodyStart: number } | null {
+  const firstValue = cells.findIndex((cell) => !cell.empty && isValueCell(cell));
+  if (firstValue < 0) return null;
+  const body = cells.slice(firstValue);
+  const valueCount = typicalValueCount(body);
+  // Label cells before a row's values: most rows have this many (a section line adds one before some).
+  const labelCount = typicalLabelCount(body);
+  if (valueCount < 2) return null;
+  const bodyStart = firstValue - labelCount;
+  const header = cells.slice(0, bodyStart).filter((cell) => !cell.empty && !FROM_LINE.test(cell.text) && cell.line > titleLine);
+  const names = header.slice(header.length - valueCount);
+  if (names.length < valueCount || names.some((cell) => isValueCell(cell))) return null;
+  return { first: cells.indexOf(names[0]!), bodyStart };
+}
+
 /** Lines looked at after a header line for a crushed row (a superscript line, "2", may come first). */
 const CRUSHED_ROW_LOOKAHEAD = 3;
 
@@ -248,7 +278,8 @@ function isValueCell(cell: Cell): boolean {
   if (cell.empty) return true;
   // A lone letter that names a column ("d", "z", "p") is a header cell, not a footnote mark.
   if (cell.text.length <= 2 && isColumnName(cell.text)) return false;
-  const shape = shapeOf(cell.text).shape;
+  // A footnote letter set apart after the value and its stars ("-.51* a") belongs to the value.
+  const shape = shapeOf(cell.text.replace(/(?<=[\d*\u2020\u2021])\s[a-h]$/, '')).shape;
   return shape !== 'text';
 }
 

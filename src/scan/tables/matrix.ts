@@ -112,6 +112,130 @@ export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | nu
   return results.length >= MIN_CORRELATIONS ? results : null;
 }
 
+/** Correlations of another kind than Pearson's or Spearman's between two measures: their df are not N − 2. */
+const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric|auto-?correlat/i;
+/** Share of a grid's numbers that must be correlations (the rest: a diagonal of 1s, a stray mean). */
+const MIN_CORRELATION_SHARE = 0.8;
+
+/**
+ * A table of correlations whose columns are named by the variables they
+ * correlate with, not by a statistic ("BDQ Physical | BDQ Mental-health"
+ * over rows "HDRS | .72** | .70**"), and matrices whose rows and columns are
+ * named, several side by side ("STAI | – | 0.50 | 0.43 | Trait | – | 0.57"):
+ * read when the caption says the table holds correlations (of no other kind)
+ * and nearly every number in its body is one. Each cell is an r of its row's
+ * variable with its column's, df N − 2 from the note's N, p from its marks.
+ */
+export function readCorrelationGrid(input: MatrixInput, headerCount: number): ReportedResult[] | null {
+  const { table } = input;
+  const caption = table.caption ?? '';
+  if (!SAYS_CORRELATIONS.test(caption) || OTHER_CORRELATIONS.test(caption)) return null;
+  const header = table.rows[headerCount - 1] ?? [];
+  const noteN = NOTE_N.exec(input.notes.slice(0, 2000));
+  const n = noteN ? Number(noteN[1]!.replace(/,/g, '')) : null;
+  const legend = readMarkLegend(input.notes);
+  const segments: GridSegment[] = [];
+  let numbers = 0;
+  table.rows.forEach((row, rowIndex) => {
+    if (rowIndex < headerCount) return;
+    const read = gridSegments(row, input.located[rowIndex] ?? null, rowIndex);
+    numbers += read.numbers;
+    segments.push(...read.segments);
+  });
+  const correlations = segments.reduce((sum, segment) => sum + segment.cells.filter((cell) => cell !== 'diagonal' && isCorrelation(cell.cell)).length, 0);
+  if (correlations < MIN_CORRELATIONS || correlations < MIN_CORRELATION_SHARE * numbers) return null;
+  // Each block's variables in the order its rows name them (blocks: the segments at one place in their rows).
+  const order = new Map<number, string[]>();
+  for (const segment of segments) {
+    const names = order.get(segment.block) ?? [];
+    if (!names.includes(segment.label)) names.push(segment.label);
+    order.set(segment.block, names);
+  }
+  const results: ReportedResult[] = [];
+  for (const segment of segments) {
+    const names = order.get(segment.block)!;
+    const diagonalAt = segment.cells.indexOf('diagonal');
+    const values = segment.cells.filter((cell): cell is GridCell => cell !== 'diagonal');
+    values.forEach((value, index) => {
+      if (!isCorrelation(value.cell)) return;
+      results.push(correlationResult(input, { variable: 0, name: segment.label, rowIndex: segment.rowIndex, values: [] }, columnName(segment, value, index, values.length, diagonalAt, names, header), value.cell, value.value, n, legend));
+    });
+  }
+  return results;
+}
+
+interface GridCell {
+  cell: ValueCell;
+  value: ReportedNumber;
+  /** Index of the cell in its row. */
+  column: number;
+}
+
+/** A row's label and the cells after it up to the next label: one row of one block of a grid. */
+interface GridSegment {
+  label: string;
+  rowIndex: number;
+  /** Which block of the row (0 for the first label's). */
+  block: number;
+  /** Whether the row keeps one cell per column (its cells stand under their header names). */
+  whole: boolean;
+  cells: (GridCell | 'diagonal')[];
+}
+
+/** A grid row cut at its labels ("STAI | – | 0.50 | Trait | – | 0.57"), with how many numbers it holds. */
+function gridSegments(row: string[], at: (Located | null)[] | null, rowIndex: number): { segments: GridSegment[]; numbers: number } {
+  const segments: GridSegment[] = [];
+  if (at === null) return { segments, numbers: 0 };
+  let numbers = 0;
+  let current: GridSegment = { label: (row[0] ?? '').trim(), rowIndex, block: 0, whole: false, cells: [] };
+  let previous: ValueCell | null = null;
+  for (let column = 1; column < row.length; column++) {
+    const written = (row[column] ?? '').trim().replace(/\s[a-h]$/, '');
+    const place = at[column] ?? null;
+    if (written === '' || place === null) continue;
+    if (MARK.test(written) && previous !== null && previous.marks === '') {
+      previous.marks = written;
+      previous.marksStart = place.start;
+      previous.end = place.end;
+      continue;
+    }
+    previous = null;
+    const { number, marks } = splitMarks(written);
+    if (DIAGONAL.test(number)) {
+      current.cells.push('diagonal');
+      continue;
+    }
+    const read = readCell(number);
+    if (read.kind !== 'number') {
+      // A text cell starts the next block's row.
+      segments.push(current);
+      current = { label: written, rowIndex, block: current.block + 1, whole: false, cells: [] };
+      continue;
+    }
+    numbers++;
+    const cell: ValueCell = { number, marks, start: place.start, end: place.end, marksStart: marks === '' ? place.end : place.start + written.lastIndexOf(marks) };
+    previous = cell;
+    current.cells.push({ cell, value: read.number, column });
+  }
+  segments.push(current);
+  const whole = segments.length === 1;
+  return { segments: segments.filter((segment) => segment.label !== '').map((segment) => ({ ...segment, whole })), numbers };
+}
+
+/**
+ * The variable a grid cell correlates its row's with: after a diagonal, the
+ * variables after the row's own in its block (upper triangle); before one,
+ * those before it (lower triangle); without a diagonal, the header's name
+ * over the cell, when the row keeps one cell per column.
+ */
+function columnName(segment: GridSegment, value: GridCell, index: number, count: number, diagonalAt: number, names: string[], header: string[]): string {
+  const own = names.indexOf(segment.label);
+  if (diagonalAt === 0 && own >= 0) return names[own + 1 + index] ?? `column ${value.column}`;
+  if (diagonalAt === count && own >= 0) return names[own - count + index] ?? `column ${value.column}`;
+  const name = segment.whole ? (header[value.column] ?? '').trim() : '';
+  return name === '' ? `column ${value.column}` : name;
+}
+
 /** How many numbered columns (1, 2, ..., k) end the row; 0 when they do not count up from 1. */
 function numberedColumns(row: readonly string[]): number {
   let first = row.length;

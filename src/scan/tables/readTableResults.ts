@@ -42,7 +42,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
-import { readCorrelationMatrix } from './matrix.js';
+import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readMarkLegend, splitMarks, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
@@ -231,6 +231,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     if (perRow.length > 0) return { results: perRow, unread: null, completions };
   }
   if (kind === undefined) {
+    // A table of correlations with its columns named by the variables correlated.
+    const grid = readCorrelationGrid({ text, table, tableIndex, located, notes: [...table.notes, linesAfter(text, table.end)].join(' ') }, headerCount);
+    if (grid !== null) return { results: grid, unread: null, completions };
     // A table of p-values alone (group comparisons with only a p column) is a results table plumbline cannot check.
     const pColumn = roles.findIndex((role) => role.role === 'p');
     const withP = pColumn < 1 ? 0 : virtualRows.filter((row, index) => !writtenRows.has(index) && readCell(row.cells[pColumn] ?? '', 'either').kind === 'number').length;

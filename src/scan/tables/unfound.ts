@@ -13,8 +13,10 @@ import { TABLE_TITLE } from './cells.js';
 
 const TITLE = TABLE_TITLE;
 /** How far after its title a table's lines are looked at. */
-const MAX_LINES = 40;
-const MAX_CHARACTERS = 5000;
+const MAX_LINES = 150;
+const MAX_CHARACTERS = 8000;
+/** Longest caption line under a bare "Table N" title. */
+const MAX_CAPTION_LINE = 500;
 /** Lines longer than this are prose. */
 const MAX_TABLE_LINE = 200;
 /** Numbers a block needs to count as a table of results. */
@@ -36,7 +38,8 @@ export function findUnrecognisedTables(text: string, tables: readonly DocumentTa
     if (line.length <= 300 && TITLE.test(line)) {
       const block = blockAfter(text, lineStart, lineEnd);
       const overlaps = (span: Span): boolean => span.start < block.end && block.start < span.end;
-      if (!tables.some(overlaps) && !results.some(overlaps) && looksLikeResults(block.lines)) {
+      const caption = [line, ...block.lines.filter((row) => row.trim() !== '').slice(0, 1)].join(' ');
+      if (!tables.some(overlaps) && !results.some(overlaps) && looksLikeResults(block.lines, caption)) {
         unread.push({
           tableIndex: null,
           caption: line.trim(),
@@ -64,8 +67,10 @@ function blockAfter(text: string, titleStart: number, titleEnd: number): { start
     let next = text.indexOf('\n', at);
     if (next === -1) next = text.length;
     const line = text.slice(at, next);
+    // The first line under a bare title may be a long caption ("Results of the MANCOVAs, ANCOVAs, and ...").
+    const caption = lines.every((earlier) => earlier.trim() === '') && line.length <= MAX_CAPTION_LINE;
     // A long line is prose, unless it is mostly numbers (a whole table run onto one line).
-    if (TITLE.test(line) || (line.length > MAX_TABLE_LINE && !(line.length <= 4000 && digitShare(line) >= 0.25))) break;
+    if (TITLE.test(line) || (!caption && line.length > MAX_TABLE_LINE && !(line.length <= 4000 && digitShare(line) >= 0.25))) break;
     lines.push(line);
     if (line.trim() !== '') end = next;
     at = next + 1;
@@ -78,10 +83,13 @@ function digitShare(line: string): number {
   return visible === 0 ? 0 : (line.match(/\d/g) ?? []).length / visible;
 }
 
-/** A statistic or p named in the block, and enough numbers. */
-function looksLikeResults(lines: string[]): boolean {
+/** A title that names a test or correlations ("Table 2 Repeated-measures ANOVA ...", "Correlations between ..."). */
+const TITLE_NAMES_TESTS = /\b(?:AN(?:C|M)?OVAs?|MANC?OVAs?|t[- ]tests?|chi[- ]?squared?|\u03c7\s?2|correlat\w*|regressions?|Kruskal|Mann[- ]Whitney|Wilcoxon)\b/i;
+
+/** A statistic or p named in the block (or a test in its title), and enough numbers. */
+function looksLikeResults(lines: string[], title: string): boolean {
   let numbers = 0;
-  let named = false;
+  let named = TITLE_NAMES_TESTS.test(title);
   for (const line of lines) {
     numbers += (line.match(/\d*[.,]\d+|\d+/g) ?? []).length;
     if (!named) named = line.split(/\||\t| {2,}/).some((cell) => mentionsStatistic(cell.trim())) || line.split(/\s+/).some((word) => mentionsStatistic(word));

@@ -320,3 +320,40 @@ describe('a Portuguese table with decimal commas and rows of one value between i
     ]);
   });
 });
+
+describe('correlation tables whose columns are named by variables', () => {
+  it('reads a grid of r with stars, one cell per line, the columns named by the outcomes (divo-04)', () => {
+    // "Table 2 Correlations amongst ..." over "BDQ Physical / BDQ Mental-health / BDQ Functional / SF-12 Wellbeing",
+    // rows "HDRS / .72** / .70** / .77*** / -.49*", a footnote letter set apart after some stars ("-.51* a").
+    const tabled = scan('divo-04').results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(44);
+    const hdrs = tabled.filter((result) => result.tableRow!.rowLabel.startsWith('HDRS'));
+    expect(hdrs.map((result) => `${result.tableRow!.rowLabel}: ${result.value?.value} ${result.p?.fromMarks ?? ''}`)).toEqual([
+      'HDRS \u00d7 BDQ Physical: 0.72 **',
+      'HDRS \u00d7 BDQ Mental-health: 0.7 **',
+      'HDRS \u00d7 BDQ Functional: 0.77 ***',
+      'HDRS \u00d7 SF-12 Wellbeing: -0.49 *',
+    ]);
+    expect(tabled.every((result) => result.kind === 'r' && result.df.length === 0)).toBe(true);
+  });
+
+  it('reads three named matrices side by side, upper triangles with a dash on the diagonal, df from the note\'s N (divn-07)', () => {
+    const tabled = scan('divn-07').results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(30);
+    expect(tabled.every((result) => result.df[0]?.value === 278)).toBe(true);
+    expect(tabled.slice(0, 5).map((result) => `${result.tableRow!.rowLabel}: ${result.value?.value}`)).toEqual([
+      'STAI \u00d7 TAI: 0.5',
+      'STAI \u00d7 SAQ-S: 0.43',
+      'STAI \u00d7 MARS: 0.5',
+      'STAI \u00d7 WA*: -0.26', // (the row label prints a footnote star: "WA*")
+      'Trait \u00d7 Test: 0.57',
+    ]);
+  });
+
+  it('leaves a table alone when its caption does not say it holds correlations, or says they are partial', () => {
+    for (const caption of ['Table 2 Scores amongst', 'Table 2 Partial correlations amongst']) {
+      const text = passage('divo-04').replace('Table 2 Correlations amongst', caption);
+      expect(scanDocument(plainTextDocument('grid.txt', 'text', text)).results.filter((result) => result.tableRow)).toEqual([]);
+    }
+  });
+});
