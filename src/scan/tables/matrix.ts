@@ -24,7 +24,7 @@
 
 import type { DocumentTable } from '../../documents/types.js';
 import type { ReportedNumber, ReportedP, ReportedResult } from '../types.js';
-import { readCell } from './cells.js';
+import { classifyHeader, readCell } from './cells.js';
 import { MARK, readMarkLegend, splitMarks, type MarkBound } from './marks.js';
 
 interface Located {
@@ -114,6 +114,8 @@ export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | nu
 
 /** Correlations of another kind than Pearson's or Spearman's between two measures: their df are not N − 2. */
 const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric|auto-?correlat/i;
+/** Header roles of columns that are not variables of a correlation grid. */
+const NOT_A_VARIABLE: ReadonlySet<string> = new Set(['descriptive', 'n', 'p', 'df', 'df1', 'df2', 'ss', 'ms', 'effect', 'statistic']);
 /** Share of a grid's numbers that must be correlations (the rest: a diagonal of 1s, a stray mean). */
 const MIN_CORRELATION_SHARE = 0.8;
 
@@ -136,9 +138,13 @@ export function readCorrelationGrid(input: MatrixInput, headerCount: number): Re
   const legend = readMarkLegend(input.notes);
   const segments: GridSegment[] = [];
   let numbers = 0;
+  // Columns the header names as something else than a variable (M, SD, n, α, p) hold no correlations.
+  const otherColumns = new Set(header.flatMap((name, column) => (column > 0 && NOT_A_VARIABLE.has(classifyHeader(name).role) ? [column] : [])));
   table.rows.forEach((row, rowIndex) => {
     if (rowIndex < headerCount) return;
-    const read = gridSegments(row, input.located[rowIndex] ?? null, rowIndex);
+    const whole = row.length === header.length;
+    const kept = whole ? row.map((cell, column) => (otherColumns.has(column) ? '' : cell)) : row;
+    const read = gridSegments(kept, input.located[rowIndex] ?? null, rowIndex);
     numbers += read.numbers;
     segments.push(...read.segments);
   });

@@ -378,3 +378,27 @@ describe('a statistic, its df and its p in one cell', () => {
     ]);
   });
 });
+
+describe('a correlation table with M and SD columns', () => {
+  // Invented: columns named by the variables after M and SD, stars defined in the note.
+  const text = [
+    'Table 1. Means, standard deviations and correlations',
+    '',
+    '| Variable | M | SD | Anxiety | Mood |',
+    '|---|---|---|---|---|',
+    '| Anxiety | 2.10 | 0.85 | – | .32** |',
+    '| Mood | 3.40 | 0.91 | .32** | – |',
+    '| Sleep | 1.50 | 0.47 | -.21* | .40** |',
+    'Note. N = 120. * p < .05, ** p < .01.',
+  ].join('\n');
+
+  it('reads the correlations, never an SD of 0.85 as one, with df N - 2 and the p bound of the stars', () => {
+    const results = scanDocument(plainTextDocument('grid.txt', 'text', text)).results;
+    expect(results.map((result) => `${result.tableRow!.rowLabel}: r(${result.df[0]!.value}) = ${result.value!.text} ${result.p!.comparator} ${result.p!.value.text}`)).toEqual([
+      'Anxiety \u00d7 Mood: r(118) = .32 < .01',
+      'Mood \u00d7 Anxiety: r(118) = .32 < .01',
+      'Sleep \u00d7 Anxiety: r(118) = -.21 < .05',
+      'Sleep \u00d7 Mood: r(118) = .40 < .01',
+    ]);
+  });
+});
