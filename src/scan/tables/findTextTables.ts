@@ -62,7 +62,9 @@ export function findTextTables(text: string): DocumentTable[] {
   while (index < lines.length) {
     const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
-      const rebuilt = (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index)) : null) ?? readGluedTable(lines, index);
+      const rebuilt =
+        (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index)) : null) ??
+        readGluedTable(lines, index);
       if (rebuilt !== null) {
         const title = rebuilt.table.caption === null ? readTitle(lines, index) : null;
         tables.push(title === null ? rebuilt.table : { ...rebuilt.table, caption: title.caption, start: lines[title.firstLine]!.start });
@@ -610,6 +612,77 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
     if (!isSectionLine(lines[at])) return false;
   }
   return false;
+}
+
+/** A title (or the caption line under a bare one) that says the table holds correlations. */
+const CORRELATIONS_TITLE = /correlat/i;
+/** Most header lines between a correlation table's caption and its first row. */
+const MAX_CORRELATION_HEADER_LINES = 3;
+/** Share of a correlation block's rows whose label names a column too. */
+const MIN_MATRIX_ROW_SHARE = 0.7;
+/** Most rows read for one correlation block. */
+const MAX_CORRELATION_ROWS = 200;
+
+/**
+ * A correlation matrix whose header names its columns by the variables (no
+ * known column name), crushed into single spaces: "STAI TAI SAQ-S MARS WA"
+ * over "STAI – 0.50 0.43 0.50 −0.26". Under a title that says the table
+ * holds correlations, the lines of words are its header and each following
+ * line of a label and values one row (several blocks side by side stay on
+ * one row; the correlation reader cuts them at their labels). Read only when
+ * most rows' labels name columns too: a square matrix shows its structure,
+ * a crushed rectangle of unknown names does not.
+ */
+function readCorrelationBlock(lines: Line[], titleIndex: number): { table: DocumentTable; lastLine: number } | null {
+  const title = lines[titleIndex]!;
+  let index = titleIndex + 1;
+  while (index < lines.length && isBlank(lines[index])) index++;
+  const caption = BARE_TITLE.test(title.text) && lines[index] !== undefined ? lines[index]!.text.trim() : '';
+  if (!CORRELATIONS_TITLE.test(`${title.text} ${caption}`)) return null;
+  if (caption !== '') index++;
+  const headers: string[][] = [];
+  for (; index < lines.length && headers.length < MAX_CORRELATION_HEADER_LINES; index++) {
+    const line = lines[index]!;
+    if (isBlank(line)) continue;
+    // Rows with pipes or tabs are read by the pipe and tab readers.
+    if (/[|\t]/.test(line.text)) return null;
+    const tokens = tokenize(line.text);
+    if (line.text.length > MAX_ROW_LENGTH || tokens.some((token) => isValueToken(token.text) && /\d/.test(token.text))) break;
+    // A header with known column names ("r (P value)", "M SD r p") is read by the other readers.
+    if (readHeader(line) !== null) return null;
+    headers.push(tokens.map((token) => token.text));
+  }
+  const rows: string[][] = [];
+  let last = -1;
+  for (; index < lines.length && rows.length < MAX_CORRELATION_ROWS; index++) {
+    const line = lines[index]!;
+    if (isBlank(line)) continue;
+    if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
+    const tokens = tokenize(line.text);
+    const first = tokens.findIndex((token) => isValueToken(token.text));
+    if (first <= 0) break;
+    rows.push([tokens.slice(0, first).map((token) => token.text).join(' '), ...tokens.slice(first).map((token) => token.text)]);
+    last = index;
+  }
+  if (rows.length < 2) return null;
+  const header = headers.length > 0 ? headers[headers.length - 1]! : [''];
+  // Without known column names, the structure must show itself: the columns are named by the rows' own labels (a
+  // matrix), or the table is left to be listed as not read.
+  const named = new Set(header.map((name) => name.replace(/[*\u2020\u2021]+$/, '')));
+  const matrixRows = rows.filter((row) => named.has(row[0]!.split(' ')[0]!.replace(/[*\u2020\u2021]+$/, ''))).length;
+  if (matrixRows < MIN_MATRIX_ROW_SHARE * rows.length) return null;
+  return {
+    table: {
+      start: title.start + leadingSpace(title.text),
+      end: lines[last]!.start + lines[last]!.text.trimEnd().length,
+      caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
+      notes: readNotes(lines, last + 1).notes,
+      rows: [header, ...rows],
+      headerRows: 1,
+      layout: 'crushed',
+    },
+    lastLine: last,
+  };
 }
 
 /** Most lines of single-value rows (and section lines) between two full rows of a table. */

@@ -25,6 +25,7 @@
 import type { DocumentTable } from '../../documents/types.js';
 import type { ReportedNumber, ReportedP, ReportedResult } from '../types.js';
 import { classifyHeader, readCell } from './cells.js';
+import { shapeOf } from './align.js';
 import { MARK, readMarkLegend, splitMarks, type MarkBound } from './marks.js';
 
 interface Located {
@@ -157,17 +158,51 @@ export function readCorrelationGrid(input: MatrixInput, headerCount: number): Re
     if (!names.includes(segment.label)) names.push(segment.label);
     order.set(segment.block, names);
   }
-  const results: ReportedResult[] = [];
-  for (const segment of segments) {
+  // Which triangle holds the correlations, and which their p, where the notes say ("p values above the diagonal").
+  const triangles = trianglesOf(`${caption} ${input.notes.slice(0, 2000)}`);
+  const placed = segments.flatMap((segment) => {
     const names = order.get(segment.block)!;
     const diagonalAt = segment.cells.indexOf('diagonal');
     const values = segment.cells.filter((cell): cell is GridCell => cell !== 'diagonal');
-    values.forEach((value, index) => {
-      if (!isCorrelation(value.cell)) return;
-      results.push(correlationResult(input, { variable: 0, name: segment.label, rowIndex: segment.rowIndex, values: [] }, columnName(segment, value, index, values.length, diagonalAt, names, header), value.cell, value.value, n, legend));
-    });
+    // Cells before the row's diagonal lie in the lower triangle, cells after it in the upper one.
+    const triangleAt = (index: number): Triangle | null => (diagonalAt < 0 ? null : index < diagonalAt ? 'lower' : 'upper');
+    return values.map((value, index) => ({ segment, value, triangle: triangleAt(index), column: columnName(segment, value, index, values.length, diagonalAt, names, header) }));
+  });
+  // Where a triangle holds p values, the cells with no known triangle cannot be told apart: the grid is not read.
+  if (triangles.p !== null && placed.some((cell) => cell.triangle === null)) return null;
+  const pOf = new Map<string, GridCell>();
+  for (const cell of placed) if (triangles.p !== null && cell.triangle === triangles.p) pOf.set(`${cell.segment.block}|${cell.segment.label}|${cell.column}`, cell.value);
+  const results: ReportedResult[] = [];
+  for (const { segment, value, triangle, column } of placed) {
+    if (triangles.p !== null && triangle === triangles.p) continue;
+    if (triangles.r !== null && triangle !== null && triangle !== triangles.r) continue;
+    if (!isCorrelation(value.cell)) continue;
+    const result = correlationResult(input, { variable: 0, name: segment.label, rowIndex: segment.rowIndex, values: [] }, column, value.cell, value.value, n, legend);
+    // The p of r(i, j) stands at (j, i) in the other triangle.
+    const p = pOf.get(`${segment.block}|${column}|${segment.label}`);
+    results.push(p === undefined ? result : { ...result, p: { comparator: '=', value: p.value, plural: false, start: p.cell.start, end: p.cell.start + p.cell.number.length } });
   }
   return results;
+}
+
+type Triangle = 'upper' | 'lower';
+
+/**
+ * Statements of what stands above or below the diagonal: "correlations below
+ * the diagonal, p values above it", "above the diagonal are p values". The
+ * form that names what stands before its side is preferred ("p values above
+ * the diagonal"), since "below the diagonal, p values" reads across a comma.
+ */
+const R_NAMED_FIRST = /(?:correlations?|coefficients?|\br\b|pearson|spearman)[^.;,]{0,80}?\b(above|below|upper|lower)\b[^.;]{0,25}diagonal/i;
+const R_SIDE_FIRST = /\b(above|below)\s+the\s+diagonal[^.;,]{0,30}?(?:correlations?|coefficients?)/i;
+const P_NAMED_FIRST = /(?:p[- ]?values?|probabilit(?:y|ies)|significance levels?)[^.;,]{0,80}?\b(above|below|upper|lower)\b[^.;]{0,25}diagonal/i;
+const P_SIDE_FIRST = /\b(above|below)\s+the\s+diagonal[^.;,]{0,30}?(?:p[- ]?values?|probabilit)/i;
+
+function trianglesOf(text: string): { r: Triangle | null; p: Triangle | null } {
+  const side = (match: RegExpExecArray | null): Triangle | null => (match === null ? null : /^(?:above|upper)$/i.test(match[1]!) ? 'upper' : 'lower');
+  const r = side(R_NAMED_FIRST.exec(text) ?? R_SIDE_FIRST.exec(text));
+  const p = side(P_NAMED_FIRST.exec(text) ?? P_SIDE_FIRST.exec(text));
+  return { r, p: p === r ? null : p };
 }
 
 interface GridCell {
@@ -213,7 +248,12 @@ function gridSegments(row: string[], at: (Located | null)[] | null, rowIndex: nu
     }
     const read = readCell(number);
     if (read.kind !== 'number') {
-      // A text cell starts the next block's row.
+      // A value of another form ("0.32 (0.001)", "0.40 [0.21, 0.56]") is no correlation this reader can take
+      // alone: it counts against the grid. Only a text cell starts the next block's row.
+      if (shapeOf(number).shape !== 'text') {
+        numbers++;
+        continue;
+      }
       segments.push(current);
       current = { label: written, rowIndex, block: current.block + 1, whole: false, cells: [] };
       continue;

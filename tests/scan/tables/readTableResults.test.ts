@@ -402,3 +402,26 @@ describe('a correlation table with M and SD columns', () => {
     ]);
   });
 });
+
+describe('a correlation matrix with the p values in the other triangle', () => {
+  // Invented: the note says which triangle holds what; each r takes the p that mirrors it across the diagonal.
+  const text = [
+    'Table 2. Correlations among the measures',
+    '',
+    '| Measure | Anxiety | Mood | Sleep |',
+    '|---|---|---|---|',
+    '| Anxiety | – | .004 | .300 |',
+    '| Mood | .26 | – | .020 |',
+    '| Sleep | -.10 | .21 | – |',
+    'Note. N = 120. Correlations below the diagonal, p values above the diagonal.',
+  ].join('\n');
+
+  it('reads the lower triangle as r and gives each its p from the upper triangle', () => {
+    const results = scanDocument(plainTextDocument('grid.txt', 'text', text)).results;
+    expect(results.map((result) => `${result.tableRow!.rowLabel}: r(${result.df[0]!.value}) = ${result.value!.text}, p = ${result.p?.value.text}`)).toEqual([
+      'Mood \u00d7 Anxiety: r(118) = .26, p = .004',
+      'Sleep \u00d7 Anxiety: r(118) = -.10, p = .300',
+      'Sleep \u00d7 Mood: r(118) = .21, p = .020',
+    ]);
+  });
+});

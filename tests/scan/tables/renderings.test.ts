@@ -41,7 +41,7 @@ describe('the same real table in other renderings', () => {
     expect(read(asTabs(passage(id)))).toEqual(piped);
   });
 
-  it.each(['tab-06', 'more-04', 'soft-10', 'divf-02', 'soft-04', 'divf-01'])('%s: rows crushed into single spaces give what pipe rows give', (id) => {
+  it.each(['tab-06', 'more-04', 'soft-10', 'divf-02', 'soft-04', 'divf-01', 'divn-07'])('%s: rows crushed into single spaces give what pipe rows give', (id) => {
     const piped = read(passage(id));
     expect(piped.length).toBeGreaterThan(0);
     expect(read(crushed(passage(id)))).toEqual(piped);
