@@ -241,6 +241,8 @@ function readBracketedDf(text: string, position: number, kind: StatisticKind): D
       return null;
     }
   }
+  // A stray comma typed before the closing bracket ("F(18,1,) = 2.22") once the df are complete.
+  if (text.charCodeAt(at) === 44 && df.length === (kind === 'F' ? 2 : 1) && CLOSING_BRACKETS.has(text.charCodeAt(skipSpaces(text, at + 1)))) at = skipSpaces(text, at + 1);
   if (!CLOSING_BRACKETS.has(text.charCodeAt(at))) return null;
   if (kind === 'F' && df.length !== 2) return null;
   return { df, sampleSize, end: at + 1, bracketed: true, doubtful: false };

@@ -248,3 +248,11 @@ describe('a sample size before the correlation in its brackets', () => {
     expect(result.sampleSize?.text).toBe('18');
   });
 });
+
+describe('a stray comma before the closing bracket of the df', () => {
+  // tests/corpus/real/passages/divl-05.txt: "F(18,1,) = 2.22, p = 0.144".
+  it('reads "F(18,1,)" with both df, and leaves "F(18,) = 2.22" alone', () => {
+    expect(dfTexts(onlyResult('no effect, F(18,1,) = 2.22, p = 0.144.'))).toEqual(['18', '1']);
+    expect(scanText('no effect, F(18,) = 2.22, p = 0.144.').results).toEqual([]);
+  });
+});
