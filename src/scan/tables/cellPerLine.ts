@@ -86,7 +86,16 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   }
   // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
   // vocabulary knows: its header is the cells right before the first row's label.
-  const grid = first === -1 && SAYS_CORRELATIONS.test(title.text) && !OTHER_CORRELATIONS.test(title.text) ? gridHeader(cells, titleLine) : null;
+  // (The title may stand alone, "Table 3.", with its caption on the next line.)
+  const firstCell = cells.find((cell) => !cell.empty);
+  // The title and the caption lines under it, before the first cell.
+  const caption = lines
+    .slice(titleLine, firstCell === undefined ? titleLine + 1 : Math.max(titleLine + 1, firstCell.line))
+    .map((line) => line.text.trim())
+    .filter((text) => text !== '')
+    .join(' ');
+  const titleText = `${caption} ${firstCell?.text ?? ''}`;
+  const grid = first === -1 && SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText) ? gridHeader(cells, titleLine) : null;
   if (first === -1 && grid === null) return null;
   if (grid !== null) first = grid.first;
   let firstValue = first;
@@ -165,7 +174,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     table: {
       start: title.start + (title.text.length - title.text.trimStart().length),
       end: lastCell.end,
-      caption: title.text.trim(),
+      caption: grid !== null ? caption : title.text.trim(),
       notes: [],
       rows,
       headerRows: dfTitles.length > 0 ? 2 : 1,

@@ -113,6 +113,8 @@ export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | nu
   return results.length >= MIN_CORRELATIONS ? results : null;
 }
 
+/** A caption or note that says the correlations are Spearman's rank correlations. */
+const SAYS_SPEARMAN = /spearman|\brho\b|\u03c1|rank[- ]order correlation/i;
 /** Correlations of another kind than Pearson's or Spearman's between two measures: their df are not N − 2. */
 const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric|auto-?correlat/i;
 /** Header roles of columns that are not variables of a correlation grid. */
@@ -379,8 +381,10 @@ function correlationResult(
   const p: ReportedP | null =
     bound === undefined ? null : { comparator: bound.comparator, value: bound.value, plural: false, start: cell.marksStart, end: cell.end, fromMarks: cell.marks };
   const df: ReportedNumber[] = n !== null && n > 2 ? [{ value: n - 2, text: String(n - 2), decimals: 0, exponent: 0 }] : [];
+  const spearman = SAYS_SPEARMAN.test(`${input.table.caption ?? ''} ${input.notes.slice(0, 2000)}`);
   return {
     kind: 'r',
+    ...(spearman ? { symbol: 'rs' as const } : {}),
     text: input.text.slice(cell.start, cell.end),
     start: cell.start,
     end: cell.end,

@@ -357,3 +357,21 @@ describe('correlation tables whose columns are named by variables', () => {
     }
   });
 });
+
+describe('a Spearman grid in one cell per line, its caption on a long line of its own (divq-07)', () => {
+  // The pipe rows of divq-07 rendered one cell per line: cells moved, never changed.
+  it('reads the coefficients as Spearman correlations, each with the p bound of its daggers', () => {
+    const lines = passage('divq-07')
+      .split('\n')
+      .filter((line) => !/^\s*\|?\s*-{3,}/.test(line))
+      .map((line) => (line.includes('|') ? line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/).map((cell) => (cell === '' ? ' ' : cell)).join('\n\n') : line))
+      .join('\n\n');
+    const tabled = scanDocument(plainTextDocument('grid.txt', 'text', lines)).results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(18);
+    expect(tabled.every((result) => result.kind === 'r' && result.symbol === 'rs')).toBe(true);
+    expect(tabled.slice(0, 2).map((result) => `${result.tableRow!.rowLabel}: ${result.value?.value} p ${result.p?.comparator} ${result.p?.value.text}`)).toEqual([
+      'Gait speed \u00d7 MMSE: 0.449 p < 0.01',
+      'Gait speed \u00d7 ACE-R: 0.43 p < 0.01',
+    ]);
+  });
+});
