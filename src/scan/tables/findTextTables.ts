@@ -618,6 +618,13 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
 const CORRELATIONS_TITLE = /correlat/i;
 /** Most header lines between a correlation table's caption and its first row. */
 const MAX_CORRELATION_HEADER_LINES = 3;
+/** A name without the footnote marks glued after it ("WA*" -> "WA"); a loop, not a pattern, to stay linear. */
+function withoutTrailingMarks(name: string): string {
+  let end = name.length;
+  while (end > 0 && '*\u2020\u2021'.includes(name[end - 1]!)) end--;
+  return name.slice(0, end);
+}
+
 /** Share of a correlation block's rows whose label names a column too. */
 const MIN_MATRIX_ROW_SHARE = 0.7;
 /** Most rows read for one correlation block. */
@@ -668,8 +675,8 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   const header = headers.length > 0 ? headers[headers.length - 1]! : [''];
   // Without known column names, the structure must show itself: the columns are named by the rows' own labels (a
   // matrix), or the table is left to be listed as not read.
-  const named = new Set(header.map((name) => name.replace(/[*\u2020\u2021]+$/, '')));
-  const matrixRows = rows.filter((row) => named.has(row[0]!.split(' ')[0]!.replace(/[*\u2020\u2021]+$/, ''))).length;
+  const named = new Set(header.map(withoutTrailingMarks));
+  const matrixRows = rows.filter((row) => named.has(withoutTrailingMarks(row[0]!.split(' ')[0]!))).length;
   if (matrixRows < MIN_MATRIX_ROW_SHARE * rows.length) return null;
   return {
     table: {

@@ -24,8 +24,11 @@ export const MARK = /^(?:\*{1,4}|\u2020{1,2}|\u2021{1,2}|#{1,2}|\u00a7)$/;
  * at the 0.05 level", "** significant at p < .01". The mark stands right
  * before its definition (common practice in table notes).
  */
-const LEGEND_ENTRY =
-  /(\*{1,4}|\u2020{1,2}|\u2021{1,2}|#{1,2}|\u00a7)\s{0,2}[:=]?\s{0,2}(?:(?:is\s)?(?:statistically\s)?significant\s(?:at\s)?(?:the\s)?(?:p\s{0,2})?(<=|<|\u2264)?\s{0,2}|p\s{0,2}(<=|<|\u2264)\s{0,2})(0?\.\d{1,4}|0?,\d{1,4})(?![\d])/gi;
+const MARK_GROUP = '(\\*{1,4}|\\u2020{1,2}|\\u2021{1,2}|#{1,2}|\\u00a7)';
+/** "* p < .05", "**p<0.01", "***: p ≤ .001". (Two simple patterns rather than one with alternatives: quick to match and to prove safe.) */
+const LEGEND_P = new RegExp(`${MARK_GROUP}\\s?[:=]?\\s?p\\s?(<=|<|\\u2264)\\s?(0?[.,]\\d{1,4})(?!\\d)`, 'gi');
+/** "* significant at the 0.05 level", "** significant at p < .01". */
+const LEGEND_SIGNIFICANT = new RegExp(`${MARK_GROUP}\\s?(?:statistically\\s)?significant\\s(?:at\\s)?(?:the\\s)?(?:p\\s?(<=|<|\\u2264)\\s?)?(0?[.,]\\d{1,4})(?!\\d)`, 'gi');
 
 /** Most characters of a table's notes looked at for a legend. */
 const MAX_LEGEND_TEXT = 4000;
@@ -34,12 +37,13 @@ const MAX_LEGEND_TEXT = 4000;
 export function readMarkLegend(notes: string): Map<string, MarkBound> {
   const legend = new Map<string, MarkBound>();
   const text = normaliseText(notes.slice(0, MAX_LEGEND_TEXT)).text;
-  for (const match of text.matchAll(LEGEND_ENTRY)) {
+  const entries = [...text.matchAll(LEGEND_P), ...text.matchAll(LEGEND_SIGNIFICANT)].sort((a, b) => a.index! - b.index!);
+  for (const match of entries) {
     const mark = match[1]!;
-    const written = match[4]!.replace(',', '.');
+    const written = match[3]!.replace(',', '.');
     const value = parseReportedNumber(written);
     if (value === null || value.value <= 0 || value.value >= 1) continue;
-    const sign = match[2] ?? match[3] ?? '<';
+    const sign = match[2] ?? '<';
     // The first definition of a mark counts; a second one is another table's.
     if (!legend.has(mark)) legend.set(mark, { comparator: sign === '<' ? '<' : '<=', value });
   }

@@ -190,20 +190,26 @@ export function readCorrelationGrid(input: MatrixInput, headerCount: number): Re
 type Triangle = 'upper' | 'lower';
 
 /**
- * Statements of what stands above or below the diagonal: "correlations below
- * the diagonal, p values above it", "above the diagonal are p values". The
- * form that names what stands before its side is preferred ("p values above
- * the diagonal"), since "below the diagonal, p values" reads across a comma.
+ * Statements of what stands above or below the diagonal, clause by clause:
+ * "correlations below the diagonal, p values above it", "above the diagonal
+ * are p values". A clause that names p values gives the p triangle; one that
+ * names correlations, the r triangle. (Simple patterns per clause keep the
+ * matching linear.)
  */
-const R_NAMED_FIRST = /(?:correlations?|coefficients?|\br\b|pearson|spearman)[^.;,]{0,80}?\b(above|below|upper|lower)\b[^.;]{0,25}diagonal/i;
-const R_SIDE_FIRST = /\b(above|below)\s+the\s+diagonal[^.;,]{0,30}?(?:correlations?|coefficients?)/i;
-const P_NAMED_FIRST = /(?:p[- ]?values?|probabilit(?:y|ies)|significance levels?)[^.;,]{0,80}?\b(above|below|upper|lower)\b[^.;]{0,25}diagonal/i;
-const P_SIDE_FIRST = /\b(above|below)\s+the\s+diagonal[^.;,]{0,30}?(?:p[- ]?values?|probabilit)/i;
+const SIDE_OF_DIAGONAL = /\b(above|below|upper|lower)\s(?:the\s|its\s)?(?:main\s)?(?:diagonal|triangle)\b/i;
+const NAMES_P = /\bp[- ]?values?\b|\bprobabilit(?:y|ies)\b|\bsignificance levels?\b/i;
+const NAMES_R = /\bcorrelations?\b|\bcoefficients?\b|\br\b|\bpearson|\bspearman/i;
 
 function trianglesOf(text: string): { r: Triangle | null; p: Triangle | null } {
-  const side = (match: RegExpExecArray | null): Triangle | null => (match === null ? null : /^(?:above|upper)$/i.test(match[1]!) ? 'upper' : 'lower');
-  const r = side(R_NAMED_FIRST.exec(text) ?? R_SIDE_FIRST.exec(text));
-  const p = side(P_NAMED_FIRST.exec(text) ?? P_SIDE_FIRST.exec(text));
+  let r: Triangle | null = null;
+  let p: Triangle | null = null;
+  for (const clause of text.split(/[.;,]/)) {
+    const side = SIDE_OF_DIAGONAL.exec(clause);
+    if (side === null) continue;
+    const triangle: Triangle = /^(?:above|upper)$/i.test(side[1]!) ? 'upper' : 'lower';
+    if (NAMES_P.test(clause)) p ??= triangle;
+    else if (NAMES_R.test(clause)) r ??= triangle;
+  }
   return { r, p: p === r ? null : p };
 }
 
