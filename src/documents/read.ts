@@ -89,7 +89,7 @@ async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 
       case 'jats':
         return (await import('./jats.js')).jatsToDocument(decodeText(bytes), path, limits);
       case 'latex':
-        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path, limits)) };
+        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path, limits), limits) };
     }
   } catch (error) {
     if (error instanceof DocumentLimitError) return { ok: false, error: error.message };
