@@ -22,7 +22,11 @@ export interface Limits {
   streamTextAboveMb: number;
   /** Largest total uncompressed size of a DOCX's zip entries, in MB (a zip bomb is refused before it is inflated). */
   maxUnzippedMb: number;
-  /** Deepest nesting of elements in HTML, JATS XML and the HTML made from DOCX. */
+  /**
+   * Deepest nesting of elements in HTML, JATS XML and the HTML made from
+   * DOCX, and of environments and groups (\begin, braces, \( and \[) in
+   * LaTeX; the readers follow each level by recursion.
+   */
   maxNestingDepth: number;
   /** Most elements in one HTML or XML document. */
   maxElements: number;
@@ -53,7 +57,7 @@ export const limitDescriptions: Record<keyof Limits, { unit: string; what: strin
   maxDocumentMb: { unit: 'MB', what: 'document size' },
   streamTextAboveMb: { unit: 'MB', what: 'size above which text files are streamed' },
   maxUnzippedMb: { unit: 'MB', what: 'uncompressed size of a DOCX' },
-  maxNestingDepth: { unit: 'levels', what: 'element nesting depth' },
+  maxNestingDepth: { unit: 'levels', what: 'nesting depth of elements (HTML, XML, DOCX) or environments and groups (LaTeX)' },
   maxElements: { unit: 'elements', what: 'number of elements' },
   maxPdfPages: { unit: 'pages', what: 'number of PDF pages' },
   maxSecondsPerDocument: { unit: 'seconds', what: 'time for one document' },

@@ -1,4 +1,4 @@
-import { createReadStream } from 'node:fs';
+import type { ReadStream } from 'node:fs';
 import { stat } from 'node:fs/promises';
 import { extname } from 'node:path';
 import { auditDocument, unreadableDocument } from '../audit.js';
@@ -6,6 +6,7 @@ import type { ResolvedConfig } from '../checks/config.js';
 import { formatByExtension } from '../documents/formats.js';
 import { ReferenceListTracker } from '../documents/plainRegions.js';
 import { readDocument, type ReadOptions } from '../documents/read.js';
+import { openRegularFile } from '../documents/regularFile.js';
 import type { Region } from '../documents/types.js';
 import { MB, resolveLimits } from '../limits.js';
 import type { DocumentOutput, StatisticOutput } from '../report/model.js';
@@ -49,7 +50,9 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
   let regions: Region[];
   try {
     const tracker = new ReferenceListTracker();
-    for await (const piece of decodeChunks(createReadStream(path, { highWaterMark: 1 << 20 }))) tracker.add(piece);
+    const first = await regularFileStream(path);
+    if (!first.ok) return unreadableDocument(path, first.error, format);
+    for await (const piece of decodeChunks(first.stream)) tracker.add(piece);
     regions = tracker.finish();
   } catch (error) {
     return unreadableDocument(path, describeStreamError(error), format);
@@ -58,7 +61,9 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
   const statistics: StatisticOutput[] = [];
   let declaredAlpha: number | null = null;
   try {
-    for await (const window of textWindows(createReadStream(path, { highWaterMark: 1 << 20 }), options)) {
+    const second = await regularFileStream(path);
+    if (!second.ok) return unreadableDocument(path, second.error, format);
+    for await (const window of textWindows(second.stream, options)) {
       const windowEnd = window.start + window.text.length;
       const windowRegions = regions
         .filter((region) => region.end > window.start && region.start < windowEnd)
@@ -81,6 +86,17 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
   }
   // A file this large is read as a stream of windows, where tables are not rebuilt.
   return { path, status: 'checked', alpha: declaredAlpha ?? config.defaultAlpha, statistics, findings: [], tablesNotRead: [], format };
+}
+
+/**
+ * A stream of a file's bytes, opened only when it is a regular file
+ * (regularFile.ts): the file was a regular one when its size was taken, but
+ * may have been replaced by a FIFO before either pass opens it. The stream
+ * closes the file when it ends.
+ */
+async function regularFileStream(path: string): Promise<{ ok: true; stream: ReadStream } | { ok: false; error: string }> {
+  const opened = await openRegularFile(path);
+  return opened.ok ? { ok: true, stream: opened.handle.createReadStream({ highWaterMark: 1 << 20 }) } : opened;
 }
 
 function describeStreamError(error: unknown): string {

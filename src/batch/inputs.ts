@@ -1,4 +1,5 @@
-import { realpathSync } from 'node:fs';
+import * as fs from 'node:fs';
+import { realpathSync, type Dirent } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import { basename, isAbsolute, relative, resolve, sep } from 'node:path';
 import { fdir } from 'fdir';
@@ -38,9 +39,34 @@ function isSkippedName(name: string): boolean {
 }
 
 /**
+ * A directory entry that is a FIFO, a device or a socket, presented as a
+ * file; every other entry as it is. fdir lists only files, folders and
+ * links, and would pass over the others without a word.
+ */
+function specialAsFile(entry: Dirent): Dirent {
+  if (entry.isFile() || entry.isDirectory() || entry.isSymbolicLink()) return entry;
+  return Object.assign(Object.create(entry) as Dirent, { isFile: () => true });
+}
+
+/**
+ * The file system as the folder walk sees it: the real one, except that
+ * special entries are listed as files (specialAsFile). One named like a
+ * document then reaches the reader, which refuses it by name ("not a
+ * regular file", src/documents/regularFile.ts), so the user learns that a
+ * FIFO or a device sits among the papers instead of finding it missing.
+ */
+const specialEntriesAsFiles = {
+  ...fs,
+  readdir: ((path: string, options: { withFileTypes: true }, callback: (error: NodeJS.ErrnoException | null, entries: Dirent[]) => void) =>
+    fs.readdir(path, options, (error, entries) => callback(error, error ? entries : entries.map(specialAsFile)))) as unknown as typeof fs.readdir,
+  readdirSync: ((path: string, options: { withFileTypes: true }) => fs.readdirSync(path, options).map(specialAsFile)) as unknown as typeof fs.readdirSync,
+};
+
+/**
  * Every supported document under a folder, as absolute paths; hidden files
  * and folders and node_modules are skipped, and symbolic links to folders
- * are not followed (a link can loop back). A directory crawler (fdir) rather
+ * are not followed (a link can loop back). FIFOs, devices and links to them
+ * named like documents are listed, for the reader to refuse. A directory crawler (fdir) rather
  * than a glob library: the walk is the whole of what is needed, and a
  * re-audit from the cache spends a large part of its time here
  * (DEVELOPERS.md, "Libraries").
@@ -51,7 +77,7 @@ function isSkippedName(name: string): boolean {
  * by reportedPath, never by fdir.
  */
 async function documentsUnder(folder: string): Promise<string[]> {
-  const found = await new fdir()
+  const found = await new fdir({ fs: specialEntriesAsFiles })
     .withFullPaths()
     .exclude((name) => isSkippedName(name))
     .filter((path) => {
@@ -101,11 +127,16 @@ export function reportedPath(absolute: string, bases: readonly string[]): string
   return fallback ?? absolute;
 }
 
-/** A file's identity: two paths name the same file when device and inode agree (links, "./a" and "a"). */
-async function identityOf(path: string): Promise<string | null> {
+/**
+ * A file's identity: two paths name the same file when device and inode
+ * agree (links, "./a" and "a"); and whether it is a folder (a link to a
+ * folder named like a document). A FIFO or a device has an identity too: it
+ * is an input, which the reader refuses.
+ */
+async function identityOf(path: string): Promise<{ id: string; folder: boolean } | null> {
   try {
     const info = await stat(path, { bigint: true });
-    return info.isFile() ? `${info.dev}:${info.ino}` : null;
+    return { id: `${info.dev}:${info.ino}`, folder: info.isDirectory() };
   } catch {
     return null; // gone since it was listed: the reader will say why
   }
@@ -125,7 +156,7 @@ async function distinctFiles(candidates: readonly { absolute: string; explicit: 
   const byPath = new Map<string, boolean>();
   for (const { absolute, explicit } of candidates) if (!byPath.has(absolute)) byPath.set(absolute, explicit);
   const paths = [...byPath.keys()];
-  const identities = new Array<string | null>(paths.length);
+  const identities = new Array<{ id: string; folder: boolean } | null>(paths.length);
   let next = 0;
   const lane = async (): Promise<void> => {
     while (next < paths.length) {
@@ -138,11 +169,11 @@ async function distinctFiles(candidates: readonly { absolute: string; explicit: 
   const files: string[] = [];
   paths.forEach((absolute, index) => {
     const identity = identities[index] ?? null;
-    // A walked entry that is not a regular file (a link to a folder named like a document) is not a document.
-    if (identity === null && !byPath.get(absolute)) return;
+    // A walked entry that is gone, or is a folder (a link to one named like a document), is not a document.
+    if ((identity === null || identity.folder) && !byPath.get(absolute)) return;
     if (identity !== null) {
-      if (seen.has(identity)) return;
-      seen.add(identity);
+      if (seen.has(identity.id)) return;
+      seen.add(identity.id);
     }
     files.push(reportedPath(absolute, bases));
   });

@@ -1,11 +1,11 @@
 import { createHash } from 'node:crypto';
-import { createReadStream, existsSync, statSync } from 'node:fs';
-import { readFile } from 'node:fs/promises';
+import { existsSync, statSync } from 'node:fs';
 import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
 import type { ResolvedConfig } from '../checks/config.js';
 import { formatByExtension } from '../documents/formats.js';
+import { openRegularFile } from '../documents/regularFile.js';
 import { limitHint, resolveLimits } from '../limits.js';
 import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
@@ -117,6 +117,8 @@ async function cachedOrKey(
   try {
     // Synchronous stat: for an unchanged file this and the cache read below are all the work (see AuditCache.get).
     const info = statSync(path);
+    // Not a regular file (a FIFO, a device, a link to one): hashing it would block or never end; the reader refuses it by name.
+    if (!info.isFile()) return { entry: null, key: null };
     const absolute = resolve(path);
     const key = index.lookup(absolute, info.size, info.mtimeMs) ?? (await contentKey(path, info.size, fileFingerprint(path, cache.fingerprint)));
     index.record(absolute, info.size, info.mtimeMs, key);
@@ -135,9 +137,18 @@ const READ_WHOLE_BELOW = 16 << 20;
  * ones are hashed as they are read, so a 1 GB text file is never held in memory.
  */
 async function contentKey(path: string, size: number, fingerprint: string): Promise<string> {
-  if (size < READ_WHOLE_BELOW) return AuditCache.key(await readFile(path), fingerprint);
+  // Opened only as a regular file, should the path have been replaced by a FIFO since it was looked at (regularFile.ts).
+  const opened = await openRegularFile(path);
+  if (!opened.ok) throw new Error(opened.error); // a miss: the reader refuses the file with this reason
+  if (size < READ_WHOLE_BELOW) {
+    try {
+      return AuditCache.key(await opened.handle.readFile(), fingerprint);
+    } finally {
+      await opened.handle.close();
+    }
+  }
   const hash = createHash('sha256').update(fingerprint).update('\0');
-  for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) hash.update(chunk as Buffer);
+  for await (const chunk of opened.handle.createReadStream({ highWaterMark: 1 << 20 })) hash.update(chunk as Buffer);
   return hash.digest('hex'); // the same as AuditCache.key(content, fingerprint)
 }
 

@@ -2,6 +2,7 @@ import { Command, CommanderError, Option } from 'commander';
 import { CatalogueError, ConfigError } from '../checks/errors.js';
 import { buildReport } from '../report/build.js';
 import { toolVersion } from '../version.js';
+import { visibleControls } from '../report/visible.js';
 import {
   addCommonOptions,
   configFrom,
@@ -113,7 +114,8 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
       return error.exitCode === 0 ? EXIT_CLEAN : EXIT_INPUT_ERROR;
     }
     if (error instanceof UsageError || error instanceof ConfigError || error instanceof CatalogueError || isSystemError(error)) {
-      io.stderr(`plumbline: ${error.message}\n`);
+      // The message may name a file or quote a settings file: its control characters are shown, not obeyed (line breaks separate messages).
+      io.stderr(`plumbline: ${visibleControls(error.message, '\n')}\n`);
       return EXIT_INPUT_ERROR;
     }
     io.stderr(internalFaultMessage(error));

@@ -1,6 +1,8 @@
 import { REFERENCE_HEADING, TextBuilder } from './builder.js';
 import { collapseWhitespace, writeTable, type TableDraft } from './tables.js';
 import type { DocumentText } from './types.js';
+import { DocumentLimitError } from './markupLimits.js';
+import { defaultLimits, limitHint, type Limits } from '../limits.js';
 
 /**
  * LaTeX reader, hand-written on purpose: a real LaTeX "parser" has to run
@@ -24,17 +26,121 @@ import type { DocumentText } from './types.js';
  * markup. An unknown command is dropped and its braced arguments are read
  * as ordinary text, so nothing a reader can see is lost.
  */
-export function latexToDocument(source: string, path: string, bibliography: string | null = null): DocumentText {
+export function latexToDocument(source: string, path: string, bibliography: string | null = null, limits: Pick<Limits, 'maxNestingDepth'> = defaultLimits): DocumentText {
   const withoutComments = stripComments(source);
+  // The converter follows each nested environment and group by recursion: the depth is checked first, in one pass.
+  const depth = checkNesting(withoutComments, limits.maxNestingDepth);
+  if (bibliography !== null) checkNesting(stripComments(bibliography), limits.maxNestingDepth);
   const { preamble, body } = splitPreamble(withoutComments);
   const title = readCommandArgument(preamble, 'title');
   const converter = new LatexConverter(new TextBuilder(), bibliography);
-  if (title !== null && !/\\maketitle\b/.test(body)) converter.writeHeading(title, 0);
-  converter.title = title;
-  converter.run(body);
-  converter.finishDocument();
+  try {
+    if (title !== null && !/\\maketitle\b/.test(body)) converter.writeHeading(title, 0);
+    converter.title = title;
+    converter.run(body);
+    converter.finishDocument();
+  } catch (error) {
+    if (isStackOverflow(error)) throw new DocumentLimitError(stackExhaustedMessage(depth));
+    throw error;
+  }
   const builder = converter.builder;
   return { path, format: 'latex', text: builder.text(), pageOf: () => null, regions: builder.regions(), tables: builder.tables };
+}
+
+/** The deepest point of a LaTeX source's nesting: how deep, and what opened that level (for the message). */
+export interface LatexNesting {
+  depth: number;
+  /** The opener at the deepest point: "{", "\\(", "\\[" or "\\begin{name}". */
+  opener: string;
+}
+
+/**
+ * How deeply a LaTeX source nests, in one pass: every \begin, brace, \( and
+ * \[ opens a level and every \end, closing brace, \) and \] closes one (the
+ * braces around an environment's name belong to its \begin or \end). The
+ * converter reads each of these levels by a recursive call, so a source
+ * nested 100,000 deep would exhaust the stack, after minutes of scanning
+ * each level's body again. Escaped characters ("\{", "\%") open nothing.
+ * Stops as soon as the depth passes `stopAbove`, so a hostile source costs
+ * no more than the pass up to that point.
+ */
+export function latexNesting(source: string, stopAbove = Number.POSITIVE_INFINITY): LatexNesting {
+  let depth = 0;
+  let deepest: LatexNesting = { depth: 0, opener: '' };
+  const open = (opener: string): void => {
+    depth += 1;
+    if (depth > deepest.depth) deepest = { depth, opener };
+  };
+  for (let index = 0; index < source.length && deepest.depth <= stopAbove; index += 1) {
+    const code = source.charCodeAt(index);
+    if (code === 0x7b /* { */) open('{');
+    else if (code === 0x7d /* } */) depth = Math.max(0, depth - 1);
+    else if (code === 0x5c /* \ */) {
+      const next = source[index + 1];
+      if (next === '(' || next === '[') open(`\\${next}`);
+      else if (next === ')' || next === ']') depth = Math.max(0, depth - 1);
+      else if (source.startsWith('begin', index + 1) && !isLetter(source.charCodeAt(index + 6))) {
+        const after = afterEnvironmentName(source, index + 6);
+        open(source.slice(index, after));
+        index = after - 1;
+        continue;
+      } else if (source.startsWith('end', index + 1) && !isLetter(source.charCodeAt(index + 4))) {
+        depth = Math.max(0, depth - 1);
+        index = afterEnvironmentName(source, index + 4) - 1;
+        continue;
+      }
+      index += 1; // the escaped character, or the first letter of the command name
+    }
+  }
+  return deepest;
+}
+
+const ENVIRONMENT_NAME = /\{[^{}\\]{1,60}\}/y;
+
+/**
+ * Past the "{name}" right after \begin or \end: it is part of the opener,
+ * not a level of its own. Only a plain name is passed over (no braces or
+ * backslashes, at most 60 characters); anything else is counted as it
+ * comes, so a malformed name cannot hide the levels after it.
+ */
+function afterEnvironmentName(source: string, at: number): number {
+  ENVIRONMENT_NAME.lastIndex = at;
+  return ENVIRONMENT_NAME.test(source) ? ENVIRONMENT_NAME.lastIndex : at;
+}
+
+function isLetter(code: number): boolean {
+  return (code >= 0x41 && code <= 0x5a) || (code >= 0x61 && code <= 0x7a) || code === 0x40; // A-Z, a-z, @ (as in command names)
+}
+
+/**
+ * Refuses a source nested deeper than the limit (DocumentLimitError, which
+ * readDocument turns into the document's unreadable row); returns the depth
+ * otherwise.
+ */
+function checkNesting(source: string, maxNestingDepth: number): number {
+  const nesting = latexNesting(source, maxNestingDepth);
+  if (nesting.depth > maxNestingDepth) {
+    throw new DocumentLimitError(
+      `too deeply nested: LaTeX environments and groups nested more than ${maxNestingDepth.toLocaleString('en-US')} deep (at ${nesting.opener}) ${limitHint('maxNestingDepth', maxNestingDepth)}`,
+    );
+  }
+  return nesting.depth;
+}
+
+function isStackOverflow(error: unknown): boolean {
+  return error instanceof RangeError && /call stack/i.test(error.message);
+}
+
+/**
+ * Some constructs take many calls per level (a tabular inside a footnote
+ * inside a tabular ...), so a source within the nesting limit can still
+ * exhaust the stack, on the main thread above all, whose stack is the
+ * smallest. The depth check has already bounded the time this takes; the
+ * document is refused with the same words as one over the limit, and
+ * raising the limit would not help.
+ */
+function stackExhaustedMessage(depth: number): string {
+  return `too deeply nested: LaTeX environments and groups nested ${depth.toLocaleString('en-US')} deep, more than the reader can follow with this combination of environments`;
 }
 
 /** Removes "%..." comments (not "\%") together with the line break they hide, as TeX does. */
@@ -419,24 +525,28 @@ class LatexConverter {
   }
 }
 
-/** Where `\end{name}` closes the environment opened just before `from`, counting nested ones of the same name. */
+/**
+ * Where `\end{name}` closes the environment opened just before `from`,
+ * counting nested ones of the same name. Each search starts where the last
+ * found marker of its kind ended, so the body is read once: searching again
+ * from every nested \begin made the same-name nesting the limit allows
+ * (latexNesting) cost the cube of its depth.
+ */
 function findEnvironmentEnd(source: string, from: number, name: string): number {
   const begin = `\\begin{${name}}`;
   const end = `\\end{${name}}`;
   let depth = 1;
-  let index = from;
-  while (index < source.length) {
-    const nextEnd = source.indexOf(end, index);
-    if (nextEnd === -1) return source.length;
-    const nextBegin = source.indexOf(begin, index);
+  let nextBegin = source.indexOf(begin, from);
+  let nextEnd = source.indexOf(end, from);
+  while (nextEnd !== -1) {
     if (nextBegin !== -1 && nextBegin < nextEnd) {
       depth += 1;
-      index = nextBegin + begin.length;
+      nextBegin = source.indexOf(begin, nextBegin + begin.length);
       continue;
     }
     depth -= 1;
     if (depth === 0) return nextEnd;
-    index = nextEnd + end.length;
+    nextEnd = source.indexOf(end, nextEnd + end.length);
   }
   return source.length;
 }

@@ -1,5 +1,3 @@
-import { readFile, stat } from 'node:fs/promises';
-import { existsSync, readFileSync } from 'node:fs';
 import { extname } from 'node:path';
 import type { PdfEngineChoice } from './pdf.js';
 import { describeContent, sniffContent, type ContentKind } from './sniff.js';
@@ -8,6 +6,7 @@ import type { DocumentText, ReadOutcome } from './types.js';
 import { formatByExtension, supportedExtensions, type DocumentFormat } from './formats.js';
 import { formatMb, limitHint, MB, resolveLimits, type Limits } from '../limits.js';
 import { DocumentLimitError } from './markupLimits.js';
+import { openRegularFile, readSmallRegularFileSync } from './regularFile.js';
 
 export interface ReadOptions {
   /** Which PDF engine to use: `auto` (default) takes pdftotext when it is installed, pdf-parse otherwise. */
@@ -46,10 +45,15 @@ export async function readDocument(path: string, options: ReadOptions = {}): Pro
   if (format === 'text' || format === 'markdown') return readTextDocument(path, format, limits);
   let bytes: Buffer;
   try {
-    // The size is checked before a single byte is read: a huge file is refused, not loaded.
-    const size = (await stat(path)).size;
-    if (size > limits.maxDocumentMb * MB) return { ok: false, path, format, error: tooLargeMessage(size, limits) };
-    bytes = await readFile(path);
+    // Only a regular file is opened (regularFile.ts), and its size is checked before a single byte is read: a huge file is refused, not loaded.
+    const opened = await openRegularFile(path);
+    if (!opened.ok) return { ok: false, path, format, error: opened.error };
+    try {
+      if (opened.size > limits.maxDocumentMb * MB) return { ok: false, path, format, error: tooLargeMessage(opened.size, limits) };
+      bytes = await opened.handle.readFile();
+    } finally {
+      await opened.handle.close();
+    }
   } catch (error) {
     return { ok: false, path, format, error: `cannot read the file (${(error as NodeJS.ErrnoException).code ?? (error as Error).message})` };
   }
@@ -85,7 +89,7 @@ async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 
       case 'jats':
         return (await import('./jats.js')).jatsToDocument(decodeText(bytes), path, limits);
       case 'latex':
-        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path)) };
+        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path, limits), limits) };
     }
   } catch (error) {
     if (error instanceof DocumentLimitError) return { ok: false, error: error.message };
@@ -124,13 +128,13 @@ function decodeText(bytes: Buffer): string {
   return new TextDecoder('utf-8').decode(bytes);
 }
 
-/** For \bibliography{...}: the .bbl that BibTeX wrote next to the .tex, when present. */
-function readBblBeside(path: string): string | null {
+/**
+ * For \bibliography{...}: the .bbl that BibTeX wrote next to the .tex, when
+ * present. Only a regular file within the document size limit is read: a
+ * FIFO or a device under that name would block or never end (regularFile.ts).
+ */
+function readBblBeside(path: string, limits: Limits): string | null {
   const bbl = path.replace(/\.[^.]+$/, '.bbl');
-  if (bbl === path || !existsSync(bbl)) return null;
-  try {
-    return readFileSync(bbl, 'utf8');
-  } catch {
-    return null;
-  }
+  if (bbl === path) return null;
+  return readSmallRegularFileSync(bbl, limits.maxDocumentMb * MB);
 }

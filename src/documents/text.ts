@@ -1,6 +1,6 @@
-import { open } from 'node:fs/promises';
 import { isUtf8 } from 'node:buffer';
 import { findReferenceListRegions } from './plainRegions.js';
+import { openRegularFile } from './regularFile.js';
 import type { DocumentText, ReadOutcome } from './types.js';
 import { defaultLimits, formatMb, limitHint, MB, type Limits } from '../limits.js';
 
@@ -14,7 +14,8 @@ import { defaultLimits, formatMb, limitHint, MB, type Limits } from '../limits.j
  * (usually Latin-1 or Windows-1252), and reading it with replacement
  * characters could silently turn a minus sign or a "≤" into garbage; the
  * user is asked to save it as UTF-8. A file with NUL bytes (and no UTF-16
- * mark) is binary, not text, and is refused too.
+ * mark) is binary, not text, and is refused too. Only a regular file is
+ * read: a FIFO or a device named like a text file is refused (regularFile.ts).
  *
  * Files larger than `maxDocumentMb` are refused here; `plumbline scan`
  * streams text files above `streamTextAboveMb` instead (src/scan/stream.ts),
@@ -23,9 +24,11 @@ import { defaultLimits, formatMb, limitHint, MB, type Limits } from '../limits.j
 export async function readTextDocument(path: string, format: 'text' | 'markdown', limits: Limits = defaultLimits): Promise<ReadOutcome> {
   let bytes: Buffer;
   try {
-    const handle = await open(path, 'r');
+    // A FIFO or a device under a text file's name is refused before it is opened (regularFile.ts).
+    const opened = await openRegularFile(path);
+    if (!opened.ok) return { ok: false, path, format, error: opened.error };
+    const { handle, size } = opened;
     try {
-      const size = (await handle.stat()).size;
       if (size > limits.maxDocumentMb * MB) {
         return {
           ok: false,

@@ -1,5 +1,6 @@
 import { Chalk, type ChalkInstance } from 'chalk';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import { visibleControls, visibleLine } from './visible.js';
 
 export interface ConsoleOptions {
   color: boolean;
@@ -18,22 +19,18 @@ function where(statistic: StatisticOutput): string {
   return `${page}line ${statistic.location.line}:${statistic.location.column}${also}`;
 }
 
-function oneLine(text: string): string {
-  return text.replace(/\s+/g, ' ').trim();
-}
-
 function statisticBlock(chalk: ChalkInstance, statistic: StatisticOutput, showAll: boolean): string[] {
   if (statistic.findings.length === 0) {
     if (!showAll) return [];
     const verdict = statistic.recomputed.evaluable ? chalk.green('ok  ') : chalk.gray('skip');
-    const reason = statistic.recomputed.evaluable ? '' : chalk.gray(` (not checked: ${statistic.recomputed.reason})`);
-    return [`  ${chalk.gray(where(statistic))}  ${verdict}  ${oneLine(statistic.text)}${reason}`];
+    const reason = statistic.recomputed.evaluable ? '' : chalk.gray(` (not checked: ${visibleLine(statistic.recomputed.reason ?? '')})`);
+    return [`  ${chalk.gray(where(statistic))}  ${verdict}  ${visibleLine(statistic.text)}${reason}`];
   }
-  const lines = [`  ${chalk.gray(where(statistic))}  ${chalk.bold(oneLine(statistic.text))}`];
+  const lines = [`  ${chalk.gray(where(statistic))}  ${chalk.bold(visibleLine(statistic.text))}`];
   for (const finding of statistic.findings) {
     const alpha = finding.crossesAlpha ? chalk.red(' [changes the conclusion]') : '';
     lines.push(`    ${severityLabel(chalk, finding.severity)} ${chalk.dim(finding.rule)}${alpha}`);
-    lines.push(`         ${finding.message}`);
+    lines.push(`         ${visibleLine(finding.message)}`);
   }
   return lines;
 }
@@ -42,19 +39,21 @@ function statisticBlock(chalk: ChalkInstance, statistic: StatisticOutput, showAl
 function tablesNotReadLines(chalk: ChalkInstance, document: DocumentOutput): string[] {
   return document.tablesNotRead.flatMap((table) => {
     const page = table.location.page === null ? '' : `page ${table.location.page}, `;
-    return [`  ${chalk.gray(`${page}line ${table.location.line}`)}  ${chalk.yellow('table not read')}`, `         ${table.message}`];
+    return [`  ${chalk.gray(`${page}line ${table.location.line}`)}  ${chalk.yellow('table not read')}`, `         ${visibleLine(table.message)}`];
   });
 }
 
 function documentBlock(chalk: ChalkInstance, document: DocumentOutput, showAll: boolean): string[] {
-  if (document.status === 'unreadable') return [chalk.bold(document.path), `  ${chalk.red('unreadable')}: ${document.error}`, ''];
+  // A file name is shown exactly, but with its control characters made visible (src/report/visible.ts).
+  const path = visibleControls(document.path);
+  if (document.status === 'unreadable') return [chalk.bold(path), `  ${chalk.red('unreadable')}: ${visibleLine(document.error ?? '')}`, ''];
   const body = [...document.statistics.flatMap((s) => statisticBlock(chalk, s, showAll)), ...tablesNotReadLines(chalk, document)];
-  const documentFindings = document.findings.flatMap((f) => [`  ${severityLabel(chalk, f.severity)} ${chalk.dim(f.rule)}`, `         ${f.message}`]);
+  const documentFindings = document.findings.flatMap((f) => [`  ${severityLabel(chalk, f.severity)} ${chalk.dim(f.rule)}`, `         ${visibleLine(f.message)}`]);
   if (body.length === 0 && documentFindings.length === 0) {
-    return showAll ? [chalk.bold(document.path), `  ${chalk.gray(`${document.statistics.length} results, none flagged`)}`, ''] : [];
+    return showAll ? [chalk.bold(path), `  ${chalk.gray(`${document.statistics.length} results, none flagged`)}`, ''] : [];
   }
   const flagged = document.statistics.filter((s) => s.findings.length > 0).length;
-  return [chalk.bold(`${document.path}`) + chalk.gray(`  (${document.statistics.length} results, ${flagged} flagged)`), ...documentFindings, ...body, ''];
+  return [chalk.bold(path) + chalk.gray(`  (${document.statistics.length} results, ${flagged} flagged)`), ...documentFindings, ...body, ''];
 }
 
 /** Human-readable report: one block per document, a summary line, and the caution. */

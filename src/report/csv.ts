@@ -1,5 +1,6 @@
 import { stringify } from 'csv-stringify/sync';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import { visibleControls, visibleLine } from './visible.js';
 
 /**
  * The CSV report: one row per result (flagged or not) for spreadsheets and
@@ -7,7 +8,10 @@ import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './m
  * one row per results table that was not read in full (with the reason), one
  * row for a document in which no result was found, and one row per
  * unreadable document. Numeric columns hold plain numbers (or nothing);
- * text cells that a spreadsheet would run as a formula are neutralised.
+ * text cells that a spreadsheet would run as a formula are neutralised, and
+ * control characters in any text cell (a document's text, a file name) are
+ * written as visible escapes (src/report/visible.ts), since a CSV is also
+ * read in a terminal.
  * Comparators are written as words ("equals", "below", ...), since a cell
  * holding a bare "=" would itself be taken for the start of a formula.
  */
@@ -83,10 +87,6 @@ export function comparatorWord(comparator: Comparator): string {
   return COMPARATOR_WORDS[comparator];
 }
 
-function oneLine(text: string): string {
-  return text.replace(/\s+/g, ' ').trim();
-}
-
 function worstSeverity(findings: readonly FindingOutput[]): Severity | null {
   let worst: Severity | null = null;
   for (const finding of findings) if (worst === null || SEVERITY_RANK[finding.severity] > SEVERITY_RANK[worst]) worst = finding.severity;
@@ -119,7 +119,7 @@ function findingColumns(findings: readonly FindingOutput[]): Row {
     'worst severity': worstSeverity(findings) ?? '',
     rules: [...new Set(findings.map((f) => f.rule))].join('; '),
     'changes conclusion': findings.some((f) => f.crossesAlpha) ? 'true' : 'false',
-    messages: findings.map((f) => `${f.severity} ${f.rule}: ${oneLine(f.message)}`).join(' | '),
+    messages: findings.map((f) => `${f.severity} ${f.rule}: ${visibleLine(f.message)}`).join(' | '),
   };
 }
 
@@ -142,7 +142,7 @@ function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
     column: statistic.location.column,
     kind: statistic.kind,
     symbol: statistic.symbol ?? '',
-    'result text': oneLine(statistic.text),
+    'result text': visibleLine(statistic.text),
     df1: finite(statistic.df[0]),
     df2: finite(statistic.df[1]),
     'statistic comparator': comparatorWord(statistic.valueComparator),
@@ -157,13 +157,13 @@ function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
     'effect sizes': effectsCell(statistic),
     checked: rec.evaluable ? 'true' : 'false',
     ...findingColumns(statistic.findings),
-    note: rec.evaluable ? (statistic.dfFrom ? DF_FROM_NOTES[statistic.dfFrom] : '') : oneLine(rec.reason ?? ''),
+    note: rec.evaluable ? (statistic.dfFrom ? DF_FROM_NOTES[statistic.dfFrom] : '') : visibleLine(rec.reason ?? ''),
   };
 }
 
 function documentRows(document: DocumentOutput): Row[] {
   if (document.status === 'unreadable') {
-    return [{ row: 'unreadable', ...documentColumns(document), note: oneLine(document.error ?? '') }];
+    return [{ row: 'unreadable', ...documentColumns(document), note: visibleLine(document.error ?? '') }];
   }
   const rows = document.statistics.map((s) => resultRow(document, s));
   for (const finding of document.findings) rows.push({ row: 'document finding', ...documentColumns(document), ...findingColumns([finding]) });
@@ -174,9 +174,9 @@ function documentRows(document: DocumentOutput): Row[] {
       page: table.location.page,
       line: table.location.line,
       column: table.location.column,
-      'result text': oneLine(table.caption ?? ''),
+      'result text': visibleLine(table.caption ?? ''),
       checked: 'false',
-      note: oneLine(table.message),
+      note: visibleLine(table.message),
     });
   }
   if (document.statistics.length === 0 && document.findings.length === 0) rows.push({ row: 'no results', ...documentColumns(document) });
@@ -187,7 +187,8 @@ function cellValue(row: Row, column: (typeof CSV_COLUMNS)[number]): string | num
   const value = row[column.name];
   if (value === null || value === undefined) return '';
   if (typeof value === 'number') return column.numeric ? value : neutraliseCell(String(value));
-  return neutraliseCell(value);
+  // Made visible before the formula check: a cell that started with a tab or a carriage return now starts with a backslash.
+  return neutraliseCell(visibleControls(value));
 }
 
 /** The CSV report: a header row, then one row per result (see CsvRowKind for the other rows). */

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import { visibleControls } from './visible.js';
 
 /**
  * One self-contained HTML page for reading a report in a browser: no network
@@ -15,9 +16,15 @@ type Severity = FindingOutput['severity'];
 const SEVERITIES: readonly Severity[] = ['fail', 'warn', 'note'];
 const SEVERITY_RANK: Record<Severity, number> = { fail: 3, warn: 2, note: 1 };
 
-/** Escapes a string for HTML text and for double- or single-quoted attribute values. */
+/**
+ * Escapes a string for HTML text and for double- or single-quoted attribute
+ * values. Control characters are made visible too (src/report/visible.ts):
+ * a bidirectional override from a document would otherwise reorder the rest
+ * of its line on the page, and the other controls would be invisible. Tab,
+ * line feed and carriage return stay: the page shows them as white space.
+ */
 export function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+  return visibleControls(value, '\t\n\r').replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 }
 
 const e = escapeHtml;

@@ -1,4 +1,5 @@
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import { visibleLine } from './visible.js';
 
 /**
  * A Markdown summary to paste into a review: the totals, then, for each
@@ -6,16 +7,20 @@ import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './m
  * severity, rule and message); one line for each document without flags and
  * for each unreadable document; the caution last. Text from documents is
  * kept inert: results and paths go in code spans, messages are escaped so
- * that they cannot form links, emphasis or HTML.
+ * that they cannot form links, emphasis or HTML. Control characters in
+ * either are written as visible escapes (src/report/visible.ts), so a
+ * summary printed in a terminal or pasted into a review shows what the
+ * document holds and does nothing else.
  */
 
 /**
  * A code span that holds any text: the fence is one backtick longer than the
  * longest run of backticks inside, and a space pads text that starts or ends
  * with a backtick (CommonMark strips one such space on each side).
+ * Inside a code span a backslash is literal, so "\x1b" shows as written.
  */
 export function codeSpan(text: string): string {
-  const flat = text.replace(/\s+/g, ' ').trim();
+  const flat = visibleLine(text);
   const longest = Math.max(0, ...(flat.match(/`+/g) ?? []).map((run) => run.length));
   const fence = '`'.repeat(longest + 1);
   const pad = flat.startsWith('`') || flat.endsWith('`') ? ' ' : '';
@@ -25,12 +30,11 @@ export function codeSpan(text: string): string {
 /**
  * Escapes text for inline Markdown: backslashes, backticks, emphasis,
  * brackets, and the `<` and `&` that could open HTML or an entity. A plain
- * "p < .05" stays readable.
+ * "p < .05" stays readable. Controls are made visible first, so the
+ * backslash of their escape is itself escaped and "\x1b" shows as written.
  */
 export function escapeMarkdown(text: string): string {
-  return text
-    .replace(/\s+/g, ' ')
-    .trim()
+  return visibleLine(text)
     .replace(/[\\`*_[\]~|#]/g, (c) => `\\${c}`)
     .replace(/<(?=[A-Za-z/!?])/g, '\\<')
     .replace(/&(?=[#A-Za-z])/g, '\\&');
