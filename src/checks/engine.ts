@@ -1,6 +1,7 @@
 import type { ReportedResult, ScanOutput } from '../scan/types.js';
 import type { ResolvedConfig } from './config.js';
 import { withDocumentDf } from './documentDf.js';
+import { DocumentIndex } from './documentIndex.js';
 import { fillTemplate } from './format.js';
 import { recompute, type Recomputation } from './recompute.js';
 import type { Finding, Severity } from './types.js';
@@ -28,6 +29,8 @@ export function checkResults(text: string, scan: ScanOutput, config: ResolvedCon
   const { results, severityCaps } = withDocumentDf(scan.results, scan.context, text);
   const recomputations = results.map(recompute);
   const alpha = scan.context.alpha?.value ?? config.defaultAlpha;
+  // Built once: rules look up the other results here instead of walking them for every result.
+  const documentIndex = new DocumentIndex(text, scan.context, results);
   return results.map((result, index) => {
     const findings: Finding[] = [];
     for (const rule of config.rules) {
@@ -38,6 +41,7 @@ export function checkResults(text: string, scan: ScanOutput, config: ResolvedCon
         results,
         recomputations,
         index,
+        documentIndex,
         alpha,
         options: rule.options,
       });
