@@ -25,12 +25,18 @@ function atMost(severity: Severity, limit: Severity | null | undefined): Severit
  * df that a result does not print but the document states (a study's N for a correlation) are
  * filled in first, and findings that rest on them are at most warnings (checks/documentDf.ts).
  */
-export function checkResults(text: string, scan: ScanOutput, config: ResolvedConfig): CheckedResult[] {
+export function checkResults(
+  text: string,
+  scan: ScanOutput,
+  config: ResolvedConfig,
+  /** Builds the per-document index; replaced only by tests that compare it with a reference. */
+  indexDocument: (text: string, document: ScanOutput['context'], results: readonly ReportedResult[]) => DocumentIndex = (t, d, r) => new DocumentIndex(t, d, r),
+): CheckedResult[] {
   const { results, severityCaps } = withDocumentDf(scan.results, scan.context, text);
   const recomputations = results.map(recompute);
   const alpha = scan.context.alpha?.value ?? config.defaultAlpha;
   // Built once: rules look up the other results here instead of walking them for every result.
-  const documentIndex = new DocumentIndex(text, scan.context, results);
+  const documentIndex = indexDocument(text, scan.context, results);
   return results.map((result, index) => {
     const findings: Finding[] = [];
     for (const rule of config.rules) {
