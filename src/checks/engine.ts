@@ -1,6 +1,7 @@
 import type { ReportedResult, ScanOutput } from '../scan/types.js';
 import type { ResolvedConfig } from './config.js';
 import { withDocumentDf } from './documentDf.js';
+import { DocumentIndex } from './documentIndex.js';
 import { fillTemplate } from './format.js';
 import { recompute, type Recomputation } from './recompute.js';
 import type { Finding, Severity } from './types.js';
@@ -24,10 +25,18 @@ function atMost(severity: Severity, limit: Severity | null | undefined): Severit
  * df that a result does not print but the document states (a study's N for a correlation) are
  * filled in first, and findings that rest on them are at most warnings (checks/documentDf.ts).
  */
-export function checkResults(text: string, scan: ScanOutput, config: ResolvedConfig): CheckedResult[] {
+export function checkResults(
+  text: string,
+  scan: ScanOutput,
+  config: ResolvedConfig,
+  /** Builds the per-document index; replaced only by tests that compare it with a reference. */
+  indexDocument: (text: string, document: ScanOutput['context'], results: readonly ReportedResult[]) => DocumentIndex = (t, d, r) => new DocumentIndex(t, d, r),
+): CheckedResult[] {
   const { results, severityCaps } = withDocumentDf(scan.results, scan.context, text);
   const recomputations = results.map(recompute);
   const alpha = scan.context.alpha?.value ?? config.defaultAlpha;
+  // Built once: rules look up the other results here instead of walking them for every result.
+  const documentIndex = indexDocument(text, scan.context, results);
   return results.map((result, index) => {
     const findings: Finding[] = [];
     for (const rule of config.rules) {
@@ -38,6 +47,7 @@ export function checkResults(text: string, scan: ScanOutput, config: ResolvedCon
         results,
         recomputations,
         index,
+        documentIndex,
         alpha,
         options: rule.options,
       });

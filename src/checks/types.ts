@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import type { DocumentContext, ReportedResult, StatisticKind } from '../scan/types.js';
 import type { Recomputation } from './recompute.js';
+import type { DocumentIndex } from './documentIndex.js';
 
 export type Severity = 'fail' | 'warn' | 'note';
 
@@ -43,6 +44,12 @@ export interface CheckContext<Options> {
   recomputations: readonly Recomputation[];
   /** Index of the result being checked in `results`. */
   index: number;
+  /**
+   * What the document's other results and statements say, indexed once per
+   * document: ask it rather than walking `results` or the whole text for
+   * each result, so checking stays linear in the number of results.
+   */
+  documentIndex: DocumentIndex;
   /** Significance level in force: the document's declared alpha, else the configured default. */
   alpha: number;
   options: Options;

@@ -66,24 +66,68 @@ function sameNumber(a: ReportedNumber | null, b: ReportedNumber | null): boolean
  */
 function mergeRestatements(written: readonly ReportedResult[], tabled: readonly ReportedResult[]): Set<ReportedResult> {
   const folded = new Set<ReportedResult>();
+  // Written results by what they print, in document order: each row looks up its twins instead of walking every written result.
+  const byPrinted = new Map<string, ReportedResult[]>();
+  for (const result of written) {
+    const key = printedKey(result);
+    if (key !== null) byPrinted.set(key, [...(byPrinted.get(key) ?? []), result]);
+  }
   for (const row of tabled) {
-    const twin = written.find(
-      (result) =>
-        !folded.has(result) &&
-        result.kind === row.kind &&
-        sameNumber(result.value, row.value) &&
-        result.df.length === row.df.length &&
-        result.df.every((df, index) => sameNumber(df, row.df[index]!)) &&
-        result.p !== null &&
-        row.p !== null &&
-        result.p.comparator === row.p.comparator &&
-        sameNumber(result.p.value, row.p.value),
-    );
+    const key = printedKey(row);
+    const twin = key === null ? undefined : byPrinted.get(key)?.find((result) => !folded.has(result) && samePrinted(result, row));
     if (twin === undefined) continue;
     folded.add(twin);
     row.alsoAt = [...(row.alsoAt ?? []), { start: twin.start, end: twin.end }];
   }
   return folded;
+}
+
+/** True when two results print the same statistic, df and p (a restatement of one in the other). */
+function samePrinted(result: ReportedResult, row: ReportedResult): boolean {
+  return (
+    result.kind === row.kind &&
+    sameNumber(result.value, row.value) &&
+    result.df.length === row.df.length &&
+    result.df.every((df, index) => sameNumber(df, row.df[index]!)) &&
+    result.p !== null &&
+    row.p !== null &&
+    result.p.comparator === row.p.comparator &&
+    sameNumber(result.p.value, row.p.value)
+  );
+}
+
+/**
+ * A key equal for results that samePrinted pairs (and, rarely, for others,
+ * which samePrinted then tells apart); null for a result that can be no
+ * restatement (no statistic or no p).
+ */
+function printedKey(result: ReportedResult): string | null {
+  if (result.value === null || result.p === null) return null;
+  const number = (n: ReportedNumber): string => `${n.value}/${n.decimals}`;
+  return [result.kind, number(result.value), ...result.df.map(number), result.p.comparator, number(result.p.value)].join('|');
+}
+
+/**
+ * A test of whether a span overlaps any of `spans`: the spans sorted by
+ * start with the running largest end, so each test is a binary search
+ * rather than a walk over every span.
+ */
+export function spanOverlapFinder(spans: readonly { start: number; end: number }[]): (span: { start: number; end: number }) => boolean {
+  const sorted = [...spans].sort((a, b) => a.start - b.start);
+  const starts = sorted.map((span) => span.start);
+  const largestEnd: number[] = [];
+  for (const span of sorted) largestEnd.push(Math.max(span.end, largestEnd[largestEnd.length - 1] ?? -Infinity));
+  return (span) => {
+    // The spans that start before `span` ends; one of them overlaps it when the largest of their ends is past its start.
+    let low = 0;
+    let high = starts.length;
+    while (low < high) {
+      const mid = (low + high) >> 1;
+      if (starts[mid]! < span.end) low = mid + 1;
+      else high = mid;
+    }
+    return low > 0 && largestEnd[low - 1]! > span.start;
+  };
 }
 
 /** Least number of rows two tables share before the later one counts as the earlier printed again. */
@@ -155,10 +199,9 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
   const written = scanText(document.text);
   const allTables = [...document.tables, ...findTextTables(document.text)];
   const tables = readTables(document.text, allTables);
-  const tabled = tables.results.filter(
-    // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
-    (row) => !written.results.some((result) => result.start < row.end && row.start < result.end),
-  );
+  // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
+  const overlapsWritten = spanOverlapFinder(written.results);
+  const tabled = tables.results.filter((row) => !overlapsWritten(row));
   completeFromRows(written.results, tables.completions);
   const reprinted = mergeReprintedTables(tabled);
   const restated = mergeRestatements(

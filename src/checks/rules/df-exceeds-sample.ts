@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import type { CheckModule } from '../types.js';
 import { describeStatistic, quoteFromDocument } from '../describe.js';
-import { scopeOf } from '../documentDf.js';
 import { groupSizesPrintedWith } from '../groupSizes.js';
 
 const optionsSchema = z
@@ -52,16 +51,16 @@ export const dfExceedsSample: CheckModule<z.infer<typeof optionsSchema>> = {
     // df worked out from a sample size are N - 2 by construction.
     if (result.dfFrom !== undefined) return [];
     const errorDf = result.kind === 'F' ? result.df[1] : result.df[0];
-    const statements = context.document.sampleSizes;
-    const totals = statements.filter((s) => scopeOf(s) === 'total');
-    if (!errorDf || totals.length === 0) return [];
+    // The stated samples are sorted once per document, not for every result.
+    const samples = context.documentIndex.sampleStatements();
+    const largestStatement = samples.largestTotal;
+    if (!errorDf || largestStatement === null) return [];
     // Within-subject designs have error df that a between-subjects count cannot bound (r is the exception: N - 2 always).
     const withinSubjects =
       context.options.skipWithinSubjectDesigns &&
-      (context.document.sphericity.length > 0 || repeatedMeasuresWording.test(context.text));
+      (context.document.sphericity.length > 0 || context.documentIndex.textSays(repeatedMeasuresWording));
     if (result.kind !== 'r' && withinSubjects) return [];
     if (result.df.some((df) => df.decimals > 0)) return []; // corrected or Welch df
-    const largestStatement = totals.reduce((a, b) => (b.value > a.value ? b : a));
     const largest = largestPossibleDf(result.kind, largestStatement.value);
     if (errorDf.value <= largest) return [];
     if (result.kind === 'F' && couldBeWithinSubjectError(result.df[0]!.value, errorDf.value, largestStatement.value)) return [];
@@ -70,12 +69,12 @@ export const dfExceedsSample: CheckModule<z.infer<typeof optionsSchema>> = {
     if (printed.length >= 2 && errorDf.value <= largestPossibleDf(result.kind, printed.reduce((a, b) => a + b, 0))) return [];
 
     const reasons: string[] = [];
-    const otherTotal = totals.find((s) => s.value !== largestStatement.value);
+    const otherTotal = samples.otherTotal;
     if (otherTotal) reasons.push(`the document states more than one sample size ("${quoteFromDocument(otherTotal.text, 40)}" too)`);
     // A size per group that divides the stated total into whole groups describes the same sample.
-    const perGroup = statements.find((s) => scopeOf(s) === 'per-group' && largestStatement.value % s.value !== 0);
+    const perGroup = samples.unevenPerGroup;
     if (perGroup) reasons.push(`it also states a size per group ("${quoteFromDocument(perGroup.text, 40)}"), whose total depends on the number of groups`);
-    const largerPart = statements.find((s) => scopeOf(s) !== 'total' && scopeOf(s) !== 'per-group' && s.value > largestStatement.value);
+    const largerPart = samples.largerPart;
     if (largerPart) reasons.push(`it states a larger sample for a part of the study or a single test ("${quoteFromDocument(largerPart.text, 40)}")`);
     const data = {
       statistic: describeStatistic(result),

@@ -24,14 +24,9 @@ export const etaSquaredLabelledPartial: CheckModule<z.infer<typeof optionsSchema
     const range = recomputation?.partialEtaSquaredRange;
     const errorDf = result.df[1];
     if (!recomputation?.evaluable || !range || !errorDf) return [];
-    const others = context.results.filter(
-      (other, i) =>
-        i !== context.index &&
-        other.kind === 'F' &&
-        other.df[1]?.value === errorDf.value &&
-        Math.abs(other.start - result.start) <= context.options.neighbourhood,
-    );
-    if (others.length === 0) return [];
+    // Indexed per document: counting the neighbours stays a binary search, not a walk over every result.
+    const others = context.documentIndex.fTestsSharingErrorDf(result, errorDf.value, context.options.neighbourhood);
+    if (others === 0) return [];
     return result.effects
       .filter((effect) => effect.kind === 'eta-squared' && effect.comparator === '=' && effectAgrees(effect.value, range))
       .map((effect) => ({
@@ -40,7 +35,7 @@ export const etaSquaredLabelledPartial: CheckModule<z.infer<typeof optionsSchema
           effect: describeEffect(effect),
           statistic: describeStatistic(result),
           recomputed: formatValue(recomputation.partialEtaSquared ?? range.low, 3),
-          otherCount: others.length,
+          otherCount: others,
           errorDf: errorDf.text,
         },
       }));

@@ -20,10 +20,6 @@ const optionsSchema = z
 
 type Options = z.infer<typeof optionsSchema>;
 
-function sameSet(a: DescriptiveSet, b: DescriptiveSet): boolean {
-  return a.source === b.source && a.start === b.start && a.end === b.end && a.measure === b.measure;
-}
-
 /** Why the measure is taken as whole-number data, or null when nothing says so. */
 function integerReason(set: DescriptiveSet, options: Options): string | null {
   if (set.integerScale) return `the document says "${set.integerScale.text}"`;
@@ -47,7 +43,7 @@ export const integerDataGranularity: CheckModule<Options> = {
     const set = result.descriptives;
     if (!set) return [];
     // A set shared by several tests is checked once, at its first test.
-    if (context.results.slice(0, context.index).some((other) => other.descriptives && sameSet(other.descriptives, set))) return [];
+    if (context.documentIndex.descriptivesSeenBefore(set, context.index)) return [];
     const reason = integerReason(set, context.options);
     if (reason === null) return [];
     const items = context.options.items ?? set.integerScale?.items ?? 1;

@@ -38,7 +38,7 @@ export const tableArithmetic: CheckModule<z.infer<typeof optionsSchema>> = {
     if (effectMs) findings.push(effectMs);
     const error = origin.errorRow;
     // The error row is shared by several effects: its own arithmetic is reported once, with the first of them.
-    if (error && isFirstWithErrorRow(result, context.results)) {
+    if (error && context.documentIndex.firstWithErrorRow(result)) {
       const errorMs = checkMeanSquare(error.cells, table, error.rowLabel);
       if (errorMs) findings.push(errorMs);
     }
@@ -56,21 +56,6 @@ export const tableArithmetic: CheckModule<z.infer<typeof optionsSchema>> = {
 function tableName(origin: TableRowOrigin): string {
   const match = origin.caption === null ? null : /^\s*(Table\s+[A-Z]?\d+[A-Za-z]?)/i.exec(origin.caption);
   return match ? match[1]!.replace(/\s+/g, ' ') : `table ${origin.tableIndex + 1}`;
-}
-
-function isFirstWithErrorRow(result: ReportedResult, results: readonly ReportedResult[]): boolean {
-  const mine = result.tableRow!;
-  const first = results.find(
-    (other) =>
-      other.tableRow?.tableIndex === mine.tableIndex &&
-      other.tableRow.errorRow?.rowLabel === mine.errorRow?.rowLabel &&
-      sameCellStart(other.tableRow.errorRow?.cells ?? {}, mine.errorRow?.cells ?? {}),
-  );
-  return first === result;
-}
-
-function sameCellStart(a: Cells, b: Cells): boolean {
-  return (a.df?.start ?? a.ss?.start ?? a.ms?.start) === (b.df?.start ?? b.ss?.start ?? b.ms?.start);
 }
 
 const SLACK = 1e-9;

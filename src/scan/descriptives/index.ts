@@ -130,6 +130,43 @@ function perGroupStatements(text: string): PerGroupStatement[] {
   return found;
 }
 
+/** Index of the first group of `groups` (sorted by start) that starts at or after `offset`. */
+function firstGroupFrom(groups: readonly TextGroup[], offset: number): number {
+  let low = 0;
+  let high = groups.length;
+  while (low < high) {
+    const mid = (low + high) >> 1;
+    if (groups[mid]!.start < offset) low = mid + 1;
+    else high = mid;
+  }
+  return low;
+}
+
+/**
+ * The groups of `groups` (sorted by start) that lie wholly in [from, to].
+ * Found by binary search and a walk over that stretch only, so that a long
+ * "paragraph" (PDF text often has no blank lines) costs each result the
+ * groups near it, not every group of the document.
+ */
+export function groupsWithin(groups: readonly TextGroup[], from: number, to: number): TextGroup[] {
+  const within: TextGroup[] = [];
+  // A group that starts after `to` cannot end by `to`.
+  for (let at = firstGroupFrom(groups, from); at < groups.length && groups[at]!.start <= to; at++) {
+    if (groups[at]!.end <= to) within.push(groups[at]!);
+  }
+  return within;
+}
+
+/**
+ * The per-group statements whose n could give the test's error df with k
+ * equal groups (df = k n - k, so n = df / k + 1), in document order.
+ */
+function perGroupWithN(byN: ReadonlyMap<number, PerGroupStatement[]>, result: ReportedResult, k: number): PerGroupStatement[] {
+  const errorDf = result.kind === 'F' ? result.df[1] : result.df[0];
+  if (errorDf === undefined) return [];
+  return byN.get((errorDf.value + k) / k) ?? [];
+}
+
 function fromText(groups: TextGroup[]): GroupDescriptives[] {
   return groups.map((group) => ({
     label: null,
@@ -200,6 +237,8 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
     }
     return writtenStarts[low];
   };
+  const perGroupByN = new Map<number, PerGroupStatement[]>();
+  for (const statement of perGroup) perGroupByN.set(statement.n, [...(perGroupByN.get(statement.n) ?? []), statement]);
   const perGroupByParagraph = new Map<number, PerGroupStatement[]>();
   for (const statement of perGroup) {
     const index = paragraphIndex(paragraphs, statement.start);
@@ -220,10 +259,10 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
     const previous = previousEnd >= paragraphStart && previousEnd <= result.start ? previousEnd : paragraphStart;
     const next = nextWrittenStart(result.end) ?? paragraphEnd;
     const inParagraph = groupsByParagraph.get(paragraph) ?? [];
-    let chosen = inParagraph.filter((group) => group.start >= previous && group.end <= result.start);
+    let chosen = groupsWithin(inParagraph, previous, result.start);
     if (chosen.length === 0) {
       const sentenceStop = sentenceEnd(text, result.end, MAX_SENTENCE);
-      chosen = inParagraph.filter((group) => group.start >= result.end && group.end <= Math.min(next, sentenceStop));
+      chosen = groupsWithin(inParagraph, result.end, Math.min(next, sentenceStop));
     }
     let set: DescriptiveSet | null = null;
     if (chosen.length === required) {
@@ -252,7 +291,8 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
     if (set === null) return null;
     // Sizes from a per-group statement elsewhere, when the test's df agree with it.
     if (set.groups.some((group) => group.n === null)) {
-      const agreeing = perGroup.filter((statement) => dfAgreesWithEqualN(result, statement.n, required));
+      // Only a statement of n = df / k + 1 can agree with the df: looked up by that n, not by walking every statement.
+      const agreeing = perGroupWithN(perGroupByN, result, required).filter((statement) => dfAgreesWithEqualN(result, statement.n, required));
       const statement = agreeing.filter((s) => s.start < result.start).pop() ?? agreeing[0];
       if (statement !== undefined) {
         for (const group of set.groups) if (group.n === null) Object.assign(group, { n: statement.n, nSource: 'document' });
@@ -276,10 +316,14 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
       integerScale: null,
     });
   }
+  // Which table measures are already linked, looked up by table and measure rather than by walking every set.
+  const tableMeasureKey = (tableIndex: number, measure: string): string => `${tableIndex}|${measure}`;
+  const listed = new Set(sets.filter((set) => set.tableIndex !== null).map((set) => tableMeasureKey(set.tableIndex!, set.measure)));
   for (const { reading, index } of descriptiveTables) {
     for (const measure of reading.measures) {
-      if (sets.some((set) => set.tableIndex === index && set.measure === measure.measure)) continue;
+      if (listed.has(tableMeasureKey(index, measure.measure))) continue;
       sets.push(tableSet(text, reading, index, measure.measure, measure.groups));
+      listed.add(tableMeasureKey(index, measure.measure));
     }
   }
   sets.sort((a, b) => a.start - b.start);

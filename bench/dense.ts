@@ -1,0 +1,194 @@
+/**
+ * Documents dense with results (long results chapters, theses, supplements).
+ *
+ *   npx tsc -p tsconfig.json && node dist/bench/dense.js
+ *
+ * Generates result-dense manuscript text: every sentence reports a test, and
+ * an ANOVA table with an error row follows every few paragraphs. The text,
+ * its numbers and its tables are invented for this benchmark; most results
+ * are consistent (p recomputed with plumbline's statistics core, rounded as
+ * printed) and about one in ten carries a slip, so the checks do the work a
+ * real document asks of them, slip search included. Prints, each beside its
+ * goal and measured in this process after a warm-up:
+ *
+ *   (a) the time to scan and check a document of 1,000 results (goal <= 50 ms),
+ *       beside a named baseline: one trivial regular expression over the same text;
+ *   (b) scan throughput (scanDocument, one thread, so per core) on that text
+ *       (goal >= 5 MB/s);
+ *   (c) the ratio of checking time for 4,000 and 1,000 results (goal about 4:
+ *       linear), with the same ratio for scanning.
+ */
+
+import { auditText } from '../src/audit.js';
+import { resolveConfig } from '../src/checks/config.js';
+import { checkResults } from '../src/checks/engine.js';
+import { plainTextDocument } from '../src/documents/text.js';
+import { scanDocument } from '../src/scan/scanDocument.js';
+import { chiSquareUpperTail, fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
+import { seededRandom } from './seededRandom.js';
+
+const REPETITIONS = 7;
+/** Share of results printed with a slip (a p from another test). */
+const SLIP_SHARE = 0.1;
+
+/** p as a manuscript prints it: "< .001", or three decimals without the leading zero. */
+function printedP(p: number): string {
+  if (p < 0.001) return '< .001';
+  return `= ${p.toFixed(3).replace(/^0/, '')}`;
+}
+
+function between(random: () => number, low: number, high: number): number {
+  return low + random() * (high - low);
+}
+
+/** The p printed for a result: its own, or (a slip) another one. */
+function reportedP(p: number, random: () => number): string {
+  return printedP(random() < SLIP_SHARE ? between(random, 0.001, 0.9) : p);
+}
+
+/** One sentence with one result, in the styles a results section mixes. */
+function sentence(index: number, random: () => number): string {
+  const df2 = 40 + Math.floor(random() * 160);
+  switch (index % 6) {
+    case 0: {
+      // F tests of one design share their error df: eta-squared-labelled-partial looks for them.
+      const f = Number(between(random, 1, 12).toFixed(2));
+      const eta = (f * 2) / (f * 2 + 120);
+      return `The effect of block ${index} on accuracy was reliable, F(2, 120) = ${f.toFixed(2)}, p ${reportedP(fUpperTail(f, 2, 120), random)}, η2 = ${eta.toFixed(2).replace(/^0/, '')}.`;
+    }
+    case 1: {
+      const n = 20 + Math.floor(random() * 30);
+      const t = Number(between(random, 0.5, 4).toFixed(2));
+      const m1 = between(random, 3, 5);
+      return `Ratings were higher after the cue (M = ${(m1 + 0.6).toFixed(2)}, SD = ${between(random, 0.8, 1.4).toFixed(2)}, n = ${n}) than without it (M = ${m1.toFixed(2)}, SD = ${between(random, 0.8, 1.4).toFixed(2)}, n = ${n}), t(${2 * n - 2}) = ${t.toFixed(2)}, p ${reportedP(tTwoTailed(t, 2 * n - 2), random)}.`;
+    }
+    case 2: {
+      const chi = Number(between(random, 0.5, 14).toFixed(2));
+      return `Choices differed between the sites, χ²(1, N = ${df2 + 2}) = ${chi.toFixed(2)}, p ${reportedP(chiSquareUpperTail(chi, 1), random)}.`;
+    }
+    case 3: {
+      const r = Number(between(random, 0.05, 0.6).toFixed(2));
+      return `Reading time correlated with recall, r(${df2}) = ${r.toFixed(2).replace(/^0/, '')}, p ${reportedP(rTwoTailed(r, df2), random)}.`;
+    }
+    case 4: {
+      const f = Number(between(random, 1, 12).toFixed(2));
+      const partial = (f * 1) / (f * 1 + df2);
+      return `The interaction was examined, F(1, ${df2}) = ${f.toFixed(2)}, p ${reportedP(fUpperTail(f, 1, df2), random)}, ηp2 = ${partial.toFixed(2).replace(/^0/, '')}.`;
+    }
+    default: {
+      const t = Number(between(random, 0.5, 4).toFixed(2));
+      return `Accuracy exceeded chance in condition ${index}, t(${df2}) = ${t.toFixed(2)}, p ${reportedP(tTwoTailed(t, df2), random)}.`;
+    }
+  }
+}
+
+/** An ANOVA table of two effects and their error row: two results, with MS = SS / df and F = MS / MS error. */
+function anovaTable(number: number, random: () => number): string {
+  const errorDf = 60 + Math.floor(random() * 100);
+  const msError = Number(between(random, 0.5, 3).toFixed(2));
+  const rows = ['Condition', 'Order'].map((label) => {
+    const ms = Number((msError * between(random, 0.5, 8)).toFixed(2));
+    const f = ms / msError;
+    return `| ${label} | ${ms.toFixed(2)} | 1 | ${ms.toFixed(2)} | ${f.toFixed(2)} | ${printedP(fUpperTail(Number(f.toFixed(2)), 1, errorDf)).replace('= ', '')} |`;
+  });
+  return [
+    `Table ${number}. Analysis of variance of response times (invented for a benchmark)`,
+    '',
+    '| Source | SS | df | MS | F | p |',
+    '| --- | --- | --- | --- | --- | --- |',
+    ...rows,
+    `| Error | ${(msError * errorDf).toFixed(2)} | ${errorDf} | ${msError.toFixed(2)} | | |`,
+  ].join('\n');
+}
+
+/** About `results` results of invented, result-dense text: paragraphs of five sentences, a table after every tenth paragraph. */
+function denseDocument(results: number, seed = 16): string {
+  const random = seededRandom(seed);
+  const parts = ['Invented text, generated for a benchmark: no study, data or result in it is real.\n\nA total of N = 240 participants took part.\n'];
+  let written = 0;
+  let paragraph = 0;
+  while (written < results) {
+    const sentences: string[] = [];
+    for (let i = 0; i < 5 && written < results; i++) sentences.push(sentence(written++, random));
+    parts.push(sentences.join(' '));
+    paragraph += 1;
+    if (paragraph % 10 === 0 && written + 2 <= results) {
+      parts.push(anovaTable(paragraph / 10, random));
+      written += 2;
+    }
+  }
+  return parts.join('\n\n') + '\n';
+}
+
+/** Best-of-N wall time of `work` in milliseconds (best, because noise only ever adds time). */
+function bestTime(work: () => unknown): number {
+  let best = Number.POSITIVE_INFINITY;
+  for (let run = 0; run < REPETITIONS; run++) {
+    const started = process.hrtime.bigint();
+    work();
+    const elapsed = Number(process.hrtime.bigint() - started) / 1e6;
+    if (elapsed < best) best = elapsed;
+  }
+  return best;
+}
+
+/** The named baseline: one trivial regular expression over the same text. */
+function countBaseline(text: string): number {
+  const pattern = /p [=<] /g;
+  let count = 0;
+  while (pattern.exec(text) !== null) count++;
+  return count;
+}
+
+function megabytes(text: string): number {
+  return text.length / (1024 * 1024);
+}
+
+interface Measured {
+  text: string;
+  found: number;
+  scanMs: number;
+  checkMs: number;
+  auditMs: number;
+}
+
+function measure(results: number): Measured {
+  const config = resolveConfig({});
+  const text = denseDocument(results);
+  const document = plainTextDocument('<dense>', 'text', text);
+  const scan = scanDocument(document);
+  // Warm-up: the first audit pays for compiling the code it runs ("after start-up").
+  auditText(text, config);
+  return {
+    text,
+    found: scan.results.length,
+    scanMs: bestTime(() => scanDocument(document)),
+    checkMs: bestTime(() => checkResults(text, scan, config)),
+    auditMs: bestTime(() => auditText(text, config)),
+  };
+}
+
+function verdict(met: boolean): string {
+  return met ? 'meets goal' : 'MISSES goal';
+}
+
+function main(): void {
+  const small = measure(1000);
+  const large = measure(4000);
+  const baselineMs = bestTime(() => countBaseline(small.text));
+  const flagged = auditText(small.text, resolveConfig({})).statistics.filter((statistic) => statistic.findings.length > 0).length;
+
+  console.log(`invented result-dense text: ${small.found} results read in ${(small.text.length / 1024).toFixed(0)} KB (one per ${Math.round(small.text.length / small.found)} characters, ${flagged} flagged); ${large.found} in ${(large.text.length / 1024).toFixed(0)} KB`);
+  console.log(
+    `(a) scan and check, ${small.found} results   ${small.auditMs.toFixed(1).padStart(8)} ms   goal <= 50 ms: ${verdict(small.auditMs <= 50)}  (scan ${small.scanMs.toFixed(1)} ms, check ${small.checkMs.toFixed(1)} ms; ${(small.auditMs / baselineMs).toFixed(0)}x the baseline /p [=<] /g, ${baselineMs.toFixed(2)} ms)`,
+  );
+  const rate = megabytes(small.text) / (small.scanMs / 1000);
+  console.log(`(b) scan throughput, one core         ${rate.toFixed(2).padStart(8)} MB/s goal >= 5 MB/s: ${verdict(rate >= 5)}  (baseline ${(megabytes(small.text) / (baselineMs / 1000)).toFixed(0)} MB/s)`);
+  const checkRatio = large.checkMs / small.checkMs;
+  const resultRatio = large.found / small.found;
+  console.log(
+    `(c) check time, ${large.found} / ${small.found} results ${checkRatio.toFixed(2).padStart(8)}x    goal about ${resultRatio.toFixed(1)}x (linear): ${verdict(checkRatio <= resultRatio * 1.25)}  (${large.checkMs.toFixed(1)} ms / ${small.checkMs.toFixed(1)} ms; scan ${(large.scanMs / small.scanMs).toFixed(2)}x)`,
+  );
+}
+
+main();
