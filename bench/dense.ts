@@ -26,6 +26,7 @@ import { plainTextDocument } from '../src/documents/text.js';
 import { scanDocument } from '../src/scan/scanDocument.js';
 import { chiSquareUpperTail, fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
 import { seededRandom } from './seededRandom.js';
+import { bestTime } from './bestTime.js';
 
 const REPETITIONS = 7;
 /** Share of results printed with a slip (a p from another test). */
@@ -120,17 +121,6 @@ function denseDocument(results: number, seed = 16): string {
   return parts.join('\n\n') + '\n';
 }
 
-/** Best-of-N wall time of `work` in milliseconds (best, because noise only ever adds time). */
-function bestTime(work: () => unknown): number {
-  let best = Number.POSITIVE_INFINITY;
-  for (let run = 0; run < REPETITIONS; run++) {
-    const started = process.hrtime.bigint();
-    work();
-    const elapsed = Number(process.hrtime.bigint() - started) / 1e6;
-    if (elapsed < best) best = elapsed;
-  }
-  return best;
-}
 
 /** The named baseline: one trivial regular expression over the same text. */
 function countBaseline(text: string): number {
@@ -162,9 +152,9 @@ function measure(results: number): Measured {
   return {
     text,
     found: scan.results.length,
-    scanMs: bestTime(() => scanDocument(document)),
-    checkMs: bestTime(() => checkResults(text, scan, config)),
-    auditMs: bestTime(() => auditText(text, config)),
+    scanMs: bestTime(() => scanDocument(document), REPETITIONS),
+    checkMs: bestTime(() => checkResults(text, scan, config), REPETITIONS),
+    auditMs: bestTime(() => auditText(text, config), REPETITIONS),
   };
 }
 
@@ -175,7 +165,7 @@ function verdict(met: boolean): string {
 function main(): void {
   const small = measure(1000);
   const large = measure(4000);
-  const baselineMs = bestTime(() => countBaseline(small.text));
+  const baselineMs = bestTime(() => countBaseline(small.text), REPETITIONS);
   const flagged = auditText(small.text, resolveConfig({})).statistics.filter((statistic) => statistic.findings.length > 0).length;
 
   console.log(`invented result-dense text: ${small.found} results read in ${(small.text.length / 1024).toFixed(0)} KB (one per ${Math.round(small.text.length / small.found)} characters, ${flagged} flagged); ${large.found} in ${(large.text.length / 1024).toFixed(0)} KB`);

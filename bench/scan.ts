@@ -14,6 +14,7 @@
 
 import { scanText } from '../src/scan/scan.js';
 import { seededRandom } from './seededRandom.js';
+import { bestTime } from './bestTime.js';
 
 const DEFAULT_MEGABYTES = 10;
 const REPETITIONS = 5;
@@ -80,17 +81,6 @@ function repeatedLine(unit: string, megabytes: number): string {
   return unit.repeat(Math.ceil((megabytes * 1024 * 1024) / unit.length)).slice(0, megabytes * 1024 * 1024);
 }
 
-/** Best-of-N wall time of `work` in milliseconds (best, because noise only ever adds time). */
-function bestTime(work: () => unknown): number {
-  let best = Number.POSITIVE_INFINITY;
-  for (let run = 0; run < REPETITIONS; run++) {
-    const started = process.hrtime.bigint();
-    work();
-    const elapsed = Number(process.hrtime.bigint() - started) / 1e6;
-    if (elapsed < best) best = elapsed;
-  }
-  return best;
-}
 
 function countBaseline(text: string): number {
   const pattern = /F\(/g;
@@ -108,8 +98,8 @@ function main(): void {
   const prose = generateProse(megabytes);
   const found = scanText(prose).results.length;
 
-  const scanMs = bestTime(() => scanText(prose));
-  const baselineMs = bestTime(() => countBaseline(prose));
+  const scanMs = bestTime(() => scanText(prose), REPETITIONS);
+  const baselineMs = bestTime(() => countBaseline(prose), REPETITIONS);
   const scanRate = megabytesPerSecond(prose, scanMs);
   const baselineRate = megabytesPerSecond(prose, baselineMs);
   console.log(`prose: ${megabytes} MB, ${found} results found (one per ${Math.round(prose.length / found)} characters)`);
@@ -130,7 +120,7 @@ function main(): void {
   console.log(`hostile single lines of ${megabytes} MB (time relative to the same amount of prose):`);
   for (const [label, unit] of hostile) {
     const line = repeatedLine(unit, megabytes);
-    const lineMs = bestTime(() => scanText(line));
+    const lineMs = bestTime(() => scanText(line), REPETITIONS);
     console.log(
       `  ${label.padEnd(28)} ${megabytesPerSecond(line, lineMs).toFixed(1).padStart(8)} MB/s  ratio to prose ${(lineMs / scanMs).toFixed(2)}x`,
     );
