@@ -242,14 +242,10 @@ function gridSegments(row: string[], at: (Located | null)[] | null, rowIndex: nu
     const written = (row[column] ?? '').trim().replace(/\s[a-h]$/, '');
     const place = at[column] ?? null;
     if (written === '' || place === null) continue;
-    if (MARK.test(written) && previous !== null && previous.marks === '') {
-      previous.marks = written;
-      previous.marksStart = place.start;
-      previous.end = place.end;
-      continue;
-    }
+    if (attachMarks(previous ?? undefined, written, place)) continue;
     previous = null;
-    const { number, marks } = splitMarks(written);
+    const cell = valueCellOf(written, place);
+    const number = cell.number;
     if (DIAGONAL.test(number)) {
       current.cells.push('diagonal');
       continue;
@@ -267,7 +263,6 @@ function gridSegments(row: string[], at: (Located | null)[] | null, rowIndex: nu
       continue;
     }
     numbers++;
-    const cell: ValueCell = { number, marks, start: place.start, end: place.end, marksStart: marks === '' ? place.end : place.start + written.lastIndexOf(marks) };
     previous = cell;
     current.cells.push({ cell, value: read.number, column });
   }
@@ -312,17 +307,27 @@ function matrixRows(input: MatrixInput, headerIndex: number): MatrixRow[] {
       const place = at[column] ?? null;
       if (written === '' || place === null) continue;
       const previous = values[values.length - 1];
-      if (MARK.test(written) && previous !== undefined && previous.marks === '') {
-        values[values.length - 1] = { ...previous, marks: written, marksStart: place.start, end: place.end };
-        continue;
-      }
-      const { number, marks } = splitMarks(written);
-      const marksStart = marks === '' ? place.end : place.start + written.lastIndexOf(marks);
-      values.push({ number, marks, start: place.start, end: place.end, marksStart });
+      if (attachMarks(previous, written, place)) continue;
+      values.push(valueCellOf(written, place));
     }
     rows.push({ variable: Number(label[1]), name: label[2]!.trim(), rowIndex, values });
   });
   return rows;
+}
+
+/** A value cell as written, split into its number and the marks glued after it ("0.47***"). */
+function valueCellOf(written: string, place: Located): ValueCell {
+  const { number, marks } = splitMarks(written);
+  return { number, marks, start: place.start, end: place.end, marksStart: marks === '' ? place.end : place.start + written.lastIndexOf(marks) };
+}
+
+/** Marks standing as a cell of their own ("0.47 | ***" crushed to "0.47 ***") joined to the value before them; true when joined. */
+function attachMarks(previous: ValueCell | undefined, written: string, place: Located): boolean {
+  if (previous === undefined || previous.marks !== '' || !MARK.test(written)) return false;
+  previous.marks = written;
+  previous.marksStart = place.start;
+  previous.end = place.end;
+  return true;
 }
 
 /** Cells a row of `variable` holds under the layout, counted from its end. */
