@@ -4,6 +4,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { basename, isAbsolute, relative, resolve, sep } from 'node:path';
 import { fdir } from 'fdir';
 import { supportedExtensions } from '../documents/formats.js';
+import { mapConcurrently } from './concurrently.js';
 
 export interface CollectedInputs {
   /** Files to audit, each once, named relative to where the user stands (reportedPath), sorted. */
@@ -156,15 +157,7 @@ async function distinctFiles(candidates: readonly { absolute: string; explicit: 
   const byPath = new Map<string, boolean>();
   for (const { absolute, explicit } of candidates) if (!byPath.has(absolute)) byPath.set(absolute, explicit);
   const paths = [...byPath.keys()];
-  const identities = new Array<{ id: string; folder: boolean } | null>(paths.length);
-  let next = 0;
-  const lane = async (): Promise<void> => {
-    while (next < paths.length) {
-      const index = next++;
-      identities[index] = await identityOf(paths[index]!);
-    }
-  };
-  await Promise.all(Array.from({ length: Math.min(IDENTITY_CHECKS_AT_ONCE, paths.length) }, lane));
+  const identities = await mapConcurrently(paths, IDENTITY_CHECKS_AT_ONCE, identityOf);
   const seen = new Set<string>();
   const files: string[] = [];
   paths.forEach((absolute, index) => {

@@ -12,6 +12,7 @@ import { AuditCache, ContentKeyIndex } from './cache.js';
 import { entryJson, entryOf, internalErrorReason, type AuditEntry } from './entry.js';
 import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
+import { mapConcurrently } from './concurrently.js';
 
 export interface BatchOptions {
   files: readonly string[];
@@ -38,19 +39,6 @@ const CACHE_LOOKUPS_AT_ONCE = 32;
 /** Documents handed to the pool per thread at a time: enough that no thread waits for the next. */
 const TASKS_QUEUED_PER_THREAD = 4;
 
-/** Maps over items with at most `limit` promises in flight; results keep the input order. */
-async function mapConcurrently<T, R>(items: readonly T[], limit: number, map: (item: T) => Promise<R>): Promise<R[]> {
-  const results = new Array<R>(items.length);
-  let next = 0;
-  const lane = async (): Promise<void> => {
-    while (next < items.length) {
-      const index = next++;
-      results[index] = await map(items[index]!);
-    }
-  };
-  await Promise.all(Array.from({ length: Math.min(limit, items.length) }, lane));
-  return results;
-}
 
 /**
  * Whether a file is read by a third-party parser that runs as JavaScript in

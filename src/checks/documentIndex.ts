@@ -12,6 +12,7 @@
 
 import type { DescriptiveSet, DocumentContext, ReportedResult, StatedSampleSize } from '../scan/types.js';
 import { scopeOf } from './documentDf.js';
+import { partitionPoint } from '../sortedSearch.js';
 
 /** The stated sample sizes, sorted by what a sample-size rule asks of them. */
 export interface SampleStatements {
@@ -32,26 +33,12 @@ type StartsByErrorDf = Map<number, number[]>;
 
 /** Index of the first element of sorted `values` that is >= `bound`. */
 function lowerBound(values: readonly number[], bound: number): number {
-  let low = 0;
-  let high = values.length;
-  while (low < high) {
-    const mid = (low + high) >> 1;
-    if (values[mid]! < bound) low = mid + 1;
-    else high = mid;
-  }
-  return low;
+  return partitionPoint(values.length, (index) => values[index]! < bound);
 }
 
 /** Index of the first element of sorted `values` that is > `bound`. */
 function upperBound(values: readonly number[], bound: number): number {
-  let low = 0;
-  let high = values.length;
-  while (low < high) {
-    const mid = (low + high) >> 1;
-    if (values[mid]! <= bound) low = mid + 1;
-    else high = mid;
-  }
-  return low;
+  return partitionPoint(values.length, (index) => values[index]! <= bound);
 }
 
 /**

@@ -29,6 +29,7 @@ import type { DocumentTable } from '../../documents/types.js';
 import type { DescriptiveSet, GroupDescriptives, IntegerScaleStatement, ReportedResult } from '../types.js';
 import { readDescriptiveTable, type DescriptiveTable } from './readTableDescriptives.js';
 import { readTextGroups, sentenceEnd, type TextGroup } from './readTextDescriptives.js';
+import { partitionPoint } from '../../sortedSearch.js';
 
 export { readTextGroups } from './readTextDescriptives.js';
 export { readDescriptiveTable } from './readTableDescriptives.js';
@@ -132,14 +133,7 @@ function perGroupStatements(text: string): PerGroupStatement[] {
 
 /** Index of the first group of `groups` (sorted by start) that starts at or after `offset`. */
 function firstGroupFrom(groups: readonly TextGroup[], offset: number): number {
-  let low = 0;
-  let high = groups.length;
-  while (low < high) {
-    const mid = (low + high) >> 1;
-    if (groups[mid]!.start < offset) low = mid + 1;
-    else high = mid;
-  }
-  return low;
+  return partitionPoint(groups.length, (index) => groups[index]!.start < offset);
 }
 
 /**
