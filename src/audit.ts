@@ -88,6 +88,8 @@ function tableNotReadMessage(table: UnreadTable): string {
       return `${name} looks like a table of results, but its layout was not recognised as a table; its results were not read.`;
     case 'no-df':
       return `${name}:${read} ${table.rowsWithStatistic - table.rowsRead} statistics were not read because the table does not give their degrees of freedom (no df column, error row, header or note ties df to them).`;
+    case 'read-without-df':
+      return `${name}: ${table.rowsRead} statistics were read as printed but without degrees of freedom (no df column, error row, header or note ties df to them), so their p-values were not recomputed; only the checks that need no df were run.`;
     case 'cells-not-placed':
       return `${name}:${read} the other rows could not be put under the table's columns without guessing, so they were not read.`;
     case 'z-without-p':

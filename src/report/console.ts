@@ -1,6 +1,7 @@
 import { Chalk, type ChalkInstance } from 'chalk';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleControls, visibleLine } from './visible.js';
+import { tableNotReadTag } from './tableNotRead.js';
 
 export interface ConsoleOptions {
   color: boolean;
@@ -39,7 +40,7 @@ function statisticBlock(chalk: ChalkInstance, statistic: StatisticOutput, showAl
 function tablesNotReadLines(chalk: ChalkInstance, document: DocumentOutput): string[] {
   return document.tablesNotRead.flatMap((table) => {
     const page = table.location.page === null ? '' : `page ${table.location.page}, `;
-    return [`  ${chalk.gray(`${page}line ${table.location.line}`)}  ${chalk.yellow('table not read')}`, `         ${visibleLine(table.message)}`];
+    return [`  ${chalk.gray(`${page}line ${table.location.line}`)}  ${chalk.yellow(tableNotReadTag(table))}`, `         ${visibleLine(table.message)}`];
   });
 }
 

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleControls } from './visible.js';
+import { tableNotReadTag } from './tableNotRead.js';
 
 /**
  * One self-contained HTML page for reading a report in a browser: no network
@@ -505,7 +506,7 @@ function tablesNotReadBlock(document: DocumentOutput): string {
   const items = document.tablesNotRead
     .map((table) => {
       const page = table.location.page === null ? '' : `page ${table.location.page}, `;
-      return `<li><span class="badge warn">table not read</span> <span class="where">${page}line ${table.location.line}</span>: ${e(table.message)}</li>`;
+      return `<li><span class="badge warn">${tableNotReadTag(table)}</span> <span class="where">${page}line ${table.location.line}</span>: ${e(table.message)}</li>`;
     })
     .join('');
   return `<div class="tables-not-read"><h4>Tables not read</h4><ul>${items}</ul></div>`;

@@ -1,5 +1,6 @@
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleLine } from './visible.js';
+import { tableNotReadTag } from './tableNotRead.js';
 
 /**
  * A Markdown summary to paste into a review: the totals, then, for each
@@ -57,7 +58,7 @@ function findingLine(finding: FindingOutput, indent: string): string {
 function tablesNotReadLines(document: DocumentOutput, indent: string): string[] {
   return document.tablesNotRead.map((table) => {
     const page = table.location.page === null ? '' : `page ${table.location.page}, `;
-    return `${indent}- **table not read** (${page}line ${table.location.line}): ${escapeMarkdown(table.message)}`;
+    return `${indent}- **${tableNotReadTag(table)}** (${page}line ${table.location.line}): ${escapeMarkdown(table.message)}`;
   });
 }
 

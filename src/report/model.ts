@@ -91,7 +91,7 @@ export const tableNotReadSchema = z
   .object({
     location: locationSchema,
     caption: z.string().nullable(),
-    reason: z.enum(['no-statistic-column', 'columns-not-recognised', 'layout-not-recognised', 'no-df', 'cells-not-placed', 'z-without-p']),
+    reason: z.enum(['no-statistic-column', 'columns-not-recognised', 'layout-not-recognised', 'no-df', 'read-without-df', 'cells-not-placed', 'z-without-p']),
     rowsWithStatistic: z.number().int().describe('Rows of the table that print a statistic (or, for a table of p-values only, a p).'),
     rowsRead: z.number().int().describe('Of those, rows read as results.'),
     message: z.string(),

@@ -522,6 +522,8 @@ function readCountBeforeNoun(text: string, lastDigitAt: number): (Span & { value
  */
 function readSampleNoun(text: string, wordsAt: number, countStart: number, value: number): (Span & { value: number; scope: SampleScope }) | null {
   let at = wordsAt;
+  // "fifteen of the participants", "12 of our students": a part of the sample, not its size.
+  let partOf = false;
   for (let word = 0; word <= MAX_WORDS_BEFORE_NOUN; word++) {
     const wordStart = at;
     const limit = Math.min(text.length, at + MAX_WORD_LENGTH + 1);
@@ -546,9 +548,10 @@ function readSampleNoun(text: string, wordsAt: number, countStart: number, value
       // "20 participants in each condition": the statement runs to the end of its per-group phrase.
       const perGroup = PER_GROUP_AFTER.exec(after);
       if (perGroup !== null) return { start: countStart, end: at + perGroup[0].length, value, scope: 'per-group' };
-      const part = PART_NOUNS.has(noun) || SUBSET_BEFORE.test(before) || SUBSET_AFTER.test(after) || SECOND_PART_BEFORE.test(before);
+      const part = partOf || PART_NOUNS.has(noun) || SUBSET_BEFORE.test(before) || SUBSET_AFTER.test(after) || SECOND_PART_BEFORE.test(before);
       return { start: countStart, end: at, value, scope: part ? 'subset' : 'total' };
     }
+    if (noun === 'of' || noun === 'out') partOf = true;
     if (text.charCodeAt(at) !== 32) return null;
     at++;
   }

@@ -272,7 +272,7 @@ function attachInterval(draft: ResultDraft, interval: ReportedInterval, end: num
  * latter distinction keeps "t(28) = 2.21, p = .03, r = .38" reading r as the
  * t-test's effect size rather than as a new result.
  */
-function startsResult(text: string, at: number): boolean {
+export function startsResult(text: string, at: number): boolean {
   const head = readStatisticHead(text, at);
   if (head === null) return false;
   if (!head.needsP) return true;
@@ -329,7 +329,7 @@ function skipOnlySpaces(text: string, position: number): number {
  * run of spaces and tabs within a line may be longer (MAX_COLUMN_GAP), as
  * between the columns of a table. A blank line is not skipped.
  */
-function skipSeparators(text: string, position: number): number {
+export function skipSeparators(text: string, position: number): number {
   let limit = Math.min(text.length, position + MAX_SEPARATOR_RUN);
   let at = position;
   let columnGapUsed = false;

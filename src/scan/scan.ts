@@ -12,7 +12,8 @@ import { readDocumentContext } from './context.js';
 import { normaliseText, type NormalisedText } from './normalise.js';
 import { startsWord } from './cursor.js';
 import { readFitBefore } from './effects.js';
-import { endsSentence, readResult, type ResultDraft } from './result.js';
+import { endsSentence, readResult, skipSeparators, startsResult, type ResultDraft } from './result.js';
+import { readPValue } from './pValue.js';
 import type { ReportedEffect, ReportedP, ReportedResult, ScanOutput } from './types.js';
 
 /**
@@ -44,6 +45,7 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     if (draft === null) continue;
     // A regression model's fit is written before its F: "R2 = .12, F(3, 96) = 4.36".
     if (draft.head.kind === 'F') draft.effects.unshift(...readFitBefore(source, draft.head.start, consumedUpTo));
+    takePWrittenFirst(source, draft, consumedUpTo);
     if (draft.head.kind === 'r' && draft.head.symbol === null && introducedAsSpearman(source, draft.head.start, consumedUpTo)) {
       draft.head = { ...draft.head, symbol: 'rs' };
     }
@@ -73,6 +75,47 @@ const LOST_EQUALS = /(?<![\p{L}\d])((?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+
 function restoreLostEquals(text: string): string {
   if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
   return text.replace(LOST_EQUALS, '$1=$2');
+}
+
+/** Longest stretch before a statistic's separator searched for a p written first ("p < 0.001, F(1,22) = 25.98"). */
+const P_FIRST_WINDOW = 24;
+
+/**
+ * Some tables and texts write the p before its statistic: "Glucose p < 0.001, F(1,22) = 24.43 p = 0.010,
+ * F(1,20) = 7.98". A statistic directly after a p and a comma (a p no earlier result took) takes that p;
+ * the p it read after itself is given back when a statistic follows it the same way, since it is the
+ * next result's. A p after the statistic that nothing follows stays its own ("p < .05, F(1, 20) = 5.1,
+ * p = .03" keeps .03).
+ */
+function takePWrittenFirst(source: string, draft: ResultDraft, notBefore: number): void {
+  const written = pWrittenBefore(source, draft.head.start, notBefore);
+  if (written === null) return;
+  if (draft.p === null && draft.notSignificant) return;
+  if (draft.p !== null) {
+    if (!startsResult(source, skipSeparators(source, draft.p.end))) return;
+    const cut = draft.p.start;
+    draft.effects = draft.effects.filter((effect) => effect.start < cut);
+    draft.end = Math.max(draft.head.end, ...draft.effects.map((effect) => effect.end));
+  }
+  draft.p = written;
+}
+
+/** The p that ends, with a comma or semicolon and spaces, right where a statistic starts; null when there is none. */
+function pWrittenBefore(source: string, headStart: number, notBefore: number): ResultDraft['p'] {
+  let at = headStart;
+  while (at > notBefore && source.charCodeAt(at - 1) === 32) at--;
+  if (at <= notBefore) return null;
+  const separator = source.charCodeAt(at - 1);
+  if (separator !== 44 && separator !== 59) return null;
+  const separatorAt = at - 1;
+  for (let start = separatorAt - 1; start >= Math.max(notBefore, separatorAt - P_FIRST_WINDOW); start--) {
+    const letter = source.charCodeAt(start);
+    if (letter !== 112 && letter !== 80) continue;
+    const p = readPValue(source, start);
+    if (p === null) continue;
+    return source.slice(p.end, separatorAt).trim() === '' ? p : null;
+  }
+  return null;
 }
 
 /** How far before an r the word "Spearman" makes it a rank correlation ("Spearman's correlation was small, r(58) = .12"). */

@@ -4,10 +4,13 @@
  * text and in tables: an audit must never look cleaner than it is. Runs the
  * built command line on real corpus passages (tests/corpus/real/passages;
  * sources and licences in tests/corpus/real/labels): soft-09 prints F
- * without df, web-02 is a table whose layout no reader recognises, tab-06 is
+ * without df (read as printed, each beside its p, and listed as read
+ * without df), web-02 is a table whose layout no reader recognises, tab-06 is
  * read in full (19 results).
  */
 import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { reportSchema } from '../../src/report/model.js';
@@ -31,23 +34,50 @@ describe('tables not read, in every output format', () => {
     const report = reportSchema.parse(JSON.parse(scan('json')));
     const document = (id: string) => report.documents.find((candidate) => candidate.path.endsWith(`${id}.txt`))!;
     const [softTable] = document('soft-09').tablesNotRead;
-    expect(softTable!.reason).toBe('no-df');
+    expect(softTable!.reason).toBe('read-without-df');
     expect(softTable!.rowsWithStatistic).toBe(20);
-    expect(softTable!.message).toContain('degrees of freedom');
+    expect(softTable!.rowsRead).toBe(20);
+    expect(softTable!.message).toContain('without degrees of freedom');
+    const softTabled = document('soft-09').statistics.filter((statistic) => statistic.inTable);
+    expect(softTabled).toHaveLength(20);
+    expect(softTabled.every((statistic) => statistic.df.length === 0 && statistic.recomputed.evaluable === false)).toBe(true);
     expect(document('web-02').tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
     expect(document('tab-06').tablesNotRead).toEqual([]);
     expect(report.summary.tablesNotRead).toBe(2);
-    expect(report.summary.resultsInTables).toBe(19);
-    expect(report.summary.resultsInText).toBe(report.summary.statistics - 19);
+    expect(report.summary.resultsInTables).toBe(19 + 20);
+    expect(report.summary.resultsInText).toBe(report.summary.statistics - 19 - 20);
     expect(document('tab-06').statistics.every((statistic) => statistic.inTable)).toBe(true);
   });
 
   it('text, Markdown, CSV, HTML and JSON Lines say so too', () => {
-    expect(scan('text')).toMatch(/table not read[\s\S]*2 table\(s\) not read/);
+    expect(scan('text')).toMatch(/table read without df[\s\S]*table not read[\s\S]*2 table\(s\) not read/);
     expect(scan('md')).toContain('2 results tables not read');
     expect(scan('csv').split('\n').filter((line) => line.startsWith('table not read,'))).toHaveLength(2);
     expect(scan('html')).toContain('<h4>Tables not read</h4>');
     const lines = scan('jsonl').trim().split('\n').map((line) => JSON.parse(line) as { tablesNotRead?: unknown[] });
     expect(lines.filter((line) => (line.tablesNotRead ?? []).length > 0)).toHaveLength(2);
+  });
+});
+
+describe('a table that prints F and p without df', () => {
+  it('reads each F beside its p, checks what needs no df (p = .000), and says the table was read without df', () => {
+    const folder = mkdtempSync(join(tmpdir(), 'plumbline-nodf-'));
+    const file = join(folder, 'invented.md');
+    writeFileSync(file, ['Table 2. Reading speed by condition', '', 'Source | F | p | partial eta squared', '--- | --- | --- | ---', 'Condition | 12.60 | .000 | .18', 'Order | 1.30 | .26 | .02', ''].join('\n'));
+    let output = '';
+    try {
+      output = execFileSync('node', [cli, 'scan', file, '--no-cache', '--quiet', '--format', 'json'], { encoding: 'utf8' });
+    } catch (error) {
+      output = (error as { stdout: string }).stdout;
+    }
+    const report = reportSchema.parse(JSON.parse(output));
+    const [document] = report.documents;
+    expect(document!.statistics.map((statistic) => [statistic.value, statistic.df.length, statistic.inTable])).toEqual([
+      [12.6, 0, true],
+      [1.3, 0, true],
+    ]);
+    const zero = document!.statistics[0]!.findings.map((finding) => finding.rule);
+    expect(zero).toContain('p-reported-as-zero');
+    expect(document!.tablesNotRead.map((table) => table.reason)).toEqual(['read-without-df']);
   });
 });

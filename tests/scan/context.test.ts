@@ -157,6 +157,13 @@ describe('stated sample sizes', () => {
     ]);
   });
 
+  it('reads "fifteen of the participants" and "12 of our students" as parts of the sample, not its size', () => {
+    const text = 'For PD: although fifteen of the participants (38%) scored in the impaired range, 12 of our students did not.';
+    const sizes = contextOf(text).sampleSizes;
+    expect(sizes.map((size) => [size.value, size.scope])).toContainEqual([15, 'subset']);
+    expect(sizes.filter((size) => size.scope === 'total')).toEqual([]);
+  });
+
   it.each(['40 participants each completed 20 trials.', 'We recruited 120 participants and assigned them to one of three conditions.'])(
     'a per-group word without a group is not a per-group statement: %j',
     (text) => {

@@ -256,3 +256,24 @@ describe('a stray comma before the closing bracket of the df', () => {
     expect(scanText('no effect, F(18,) = 2.22, p = 0.144.').results).toEqual([]);
   });
 });
+
+describe('a p written before its statistic', () => {
+  // The layout of a real table (tests/corpus/real/passages/divr-03.txt, CC BY 4.0): each cell is
+  // "p < 0.001, F(1,22) = 25.98", two cells to a line.
+  it('gives each statistic the p written before it, not the next cell\'s', () => {
+    const results = scanText('Glucose p < 0.001, F(1,22) = 24.43 p = 0.010, F(1,20) = 7.98\nInsulin p = 0.015, F(1,22) = 6.97 p < 0.001, F(1,20) = 25.50\n').results;
+    expect(results.map((result) => [result.value?.text, result.p?.comparator, result.p?.value.text])).toEqual([
+      ['24.43', '<', '0.001'],
+      ['7.98', '=', '0.010'],
+      ['6.97', '=', '0.015'],
+      ['25.50', '<', '0.001'],
+    ]);
+  });
+
+  it('keeps a p written after the statistic as its own when no statistic follows it', () => {
+    const results = scanText('The effect was significant, p < .05, F(1, 20) = 5.10, p = .03.').results;
+    expect(results.map((result) => result.p?.value.text)).toEqual(['.03']);
+    const chain = scanText('Both were reliable, F(1, 20) = 5.10, p = .035, F(1, 20) = 9.20, p = .006.').results;
+    expect(chain.map((result) => result.p?.value.text)).toEqual(['.035', '.006']);
+  });
+});

@@ -40,7 +40,8 @@ import type {
   TableColumn,
   TableRowOrigin,
 } from '../types.js';
-import { parseReportedNumber } from '../../stats/reportedNumber.js';
+import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
+import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readMarkLegend, splitMarks, type MarkBound } from './marks.js';
@@ -146,6 +147,8 @@ export type UnreadReason =
   | 'layout-not-recognised'
   /** Statistics whose df are printed nowhere the table ties to them (df column, error row, header, label, note). */
   | 'no-df'
+  /** Statistics read as printed, but without df anywhere the table ties to them: their p-values were not recomputed. */
+  | 'read-without-df'
   /** Rows whose cells could not be put under the header's columns without guessing. */
   | 'cells-not-placed'
   /** A z column without p: it may hold standard scores, not tests. */
@@ -266,14 +269,15 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
   const results: ReportedResult[] = [];
   let rowsWithStatistic = 0;
-  let rowsRead = 0;
-  let rowsWithoutDf = 0;
+  const rowOutcomes: { read: boolean; statisticLeft: boolean; hasStatistic: boolean; missingDf: boolean; readWithoutDf: boolean }[] = [];
+  // A value without df is read only from a row placed one cell per column, with a p printed beside it that some df can give.
+  const acceptWithoutDf = (result: ReportedResult, guessed: boolean | undefined): boolean => guessed !== true && tiedWithoutDf(result) && pReachableWithoutDf(result);
 
   // The intercept's test is read only where one error row serves every effect (a between-subjects
   // table): in repeated-measures output it is tested against an error term the layout does not show.
   const singleErrorTerm = errorRows.filter(Boolean).length === 1;
   for (let index = 0; index < virtualRows.length; index++) {
-    const { cells: row, at: cellsAt, partial } = virtualRows[index]!;
+    const { cells: row, at: cellsAt, partial, guessed } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     if (errorRows[index] || TOTAL_LABEL.test(labelKey) || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
     // A row its label calls means and SDs ("Self-paced control M SD 38.98 12.92 ...") holds descriptives, not
@@ -293,7 +297,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     // A row counts as read when every statistic it prints was read (a Levene's F without df beside a t that was read is not).
     let statisticLeft = false;
     const resultsBefore = results.length;
-    const leveneWithoutDf: Segment[] = [];
+    let readWithoutDf = false;
+    const leveneWithoutDf: { segment: Segment; result: ReportedResult | null }[] = [];
     for (const segment of segments) {
       const result = readRow({
         text,
@@ -313,20 +318,21 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
       });
       // In a row placed by what its cells hold with cells left out, a statistic with nothing of its own beside
       // it (no p, "n.s.", effect size or df cell) may be any number of the row: a mean under an F column.
-      const lone = result !== null && result !== 'no-df' && partial === true && result.p === null && !result.notSignificant && result.effects.length === 0 && !result.tableRow?.cells.df && !result.tableRow?.cells.df1 && !result.tableRow?.cells.df2;
-      if (result === 'no-df') missingDf = true;
-      else if (result !== null && !lone) {
+      const lone = result !== null && partial === true && !tiedToTest(result) && !result.tableRow?.cells.df && !result.tableRow?.cells.df1 && !result.tableRow?.cells.df2;
+      const withoutDf = result !== null && lacksDf(result);
+      if (withoutDf) missingDf = true;
+      if (withoutDf && mentionsLevene && (segment.kind ?? kind) === 'F') leveneWithoutDf.push({ segment, result });
+      // A value without df is a test only when the row ties it to one: a p, "n.s." or an effect size beside it.
+      else if (result !== null && !lone && (!withoutDf || acceptWithoutDf(result, guessed))) {
         results.push(result);
         read = true;
-      }
-      if (lone) statisticLeft = true;
-      if (result === 'no-df' && mentionsLevene && (segment.kind ?? kind) === 'F') leveneWithoutDf.push(segment);
-      else if ((result === null || result === 'no-df') && shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
+        if (withoutDf) readWithoutDf = true;
+      } else if (shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
     }
     // Levene's test for two groups has df 1 and N − 2 (k − 1 and N − k; Levene 1960, from memory), the df of the
     // pooled t test printed in the same row.
     const pooledT = results.slice(resultsBefore).find((result) => result.kind === 't' && result.df.length === 1 && result.df[0]!.decimals === 0);
-    for (const segment of leveneWithoutDf) {
+    for (const { segment, result: withoutDfResult } of leveneWithoutDf) {
       const levene =
         pooledT === undefined
           ? null
@@ -346,16 +352,27 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
               rowSpan,
               separator,
             });
-      if (levene === null || levene === 'no-df') {
-        statisticLeft = true;
+      if (levene !== null && !lacksDf(levene)) {
+        results.splice(resultsBefore, 0, { ...levene, dfFrom: 'levene-two-groups' });
         continue;
       }
-      results.splice(resultsBefore, 0, { ...levene, dfFrom: 'levene-two-groups' });
+      if (withoutDfResult !== null && acceptWithoutDf(withoutDfResult, guessed)) {
+        results.splice(resultsBefore, 0, withoutDfResult);
+        readWithoutDf = true;
+      } else statisticLeft = true;
     }
-    if (read && !statisticLeft) rowsRead++;
-    else if (hasStatistic && missingDf) rowsWithoutDf++;
+    rowOutcomes.push({ read, statisticLeft, hasStatistic, missingDf, readWithoutDf });
+  }
+  let rowsRead = 0;
+  let rowsWithoutDf = 0;
+  let rowsReadWithoutDf = 0;
+  for (const outcome of rowOutcomes) {
+    if (outcome.read && !outcome.statisticLeft) rowsRead++;
+    else if (outcome.hasStatistic && outcome.missingDf) rowsWithoutDf++;
+    if (outcome.readWithoutDf) rowsReadWithoutDf++;
   }
   const missed = rowsWithStatistic - rowsRead + unplaced;
+  if (missed <= 0 && rowsReadWithoutDf > 0) return { results, unread: unreadTable(table, tableIndex, 'read-without-df', rowsWithStatistic, rowsReadWithoutDf), completions };
   if (missed <= 0) return { results, unread: null, completions };
   const reason: UnreadReason = rowsWithoutDf >= unplaced && rowsWithoutDf > 0 ? 'no-df' : 'cells-not-placed';
   return { results, unread: unreadTable(table, tableIndex, reason, rowsWithStatistic + unplaced, rowsRead), completions };
@@ -759,6 +776,8 @@ interface VirtualRow {
   at: (LocatedCell | null)[];
   /** Placed by what its cells hold, with cells left out and a statistic column left empty (see readTableRows: a lone statistic of such a row is not read). */
   partial?: boolean;
+  /** Placed by the best guess among several placements (numbers given to the label or left out). */
+  guessed?: boolean;
 }
 
 /**
@@ -873,6 +892,15 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       const lone = placedCells === 1 && valueRoles.length > 1;
       if ((filled < valueRoles.length && statisticLeftEmpty) || lone) {
         out.push({ cells, at, partial: true });
+        continue;
+      }
+      // Numbers given back to the label or left out of every column: the placement is the best guess, which a
+      // value with df can be checked against, but a value without df cannot.
+      // So is any placement other than one cell per column in order, as far as a value without df is concerned.
+      const inOrder = placed.absorbed === 0 && toPlace.length === valueRoles.length && placed.columns.every((slot, offset) => slot === offset);
+      const guessed = !inOrder || placed.absorbed > 0 || placed.columns.some((slot, offset) => slot < 0 && toPlace[offset]!.shape.shape.startsWith('number'));
+      if (guessed) {
+        out.push({ cells, at, guessed: true });
         continue;
       }
     }
@@ -1148,8 +1176,48 @@ function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, colu
   return found === 'ns' ? null : found;
 }
 
-/** A row's result, 'no-df' when it prints a statistic whose df the table does not give, or null. */
-function readRow(input: RowInput): ReportedResult | 'no-df' | null {
+/** df each kind needs for its p to be recomputed; a correlation is read without them (its df may come from the study's N). */
+const DF_NEEDED: Record<StatisticKind, number> = { F: 2, t: 1, chi2: 1, r: 0, z: 0 };
+
+/** Whether a result read from a row lacks the df its p needs. */
+function lacksDf(result: ReportedResult): boolean {
+  return result.df.length < DF_NEEDED[result.kind];
+}
+
+/** Whether the row ties a value to a test: a p (printed, or by marks the notes define), "n.s." or an effect size beside it. */
+function tiedToTest(result: ReportedResult): boolean {
+  return result.p !== null || result.notSignificant || result.effects.length > 0;
+}
+
+/**
+ * Whether a row ties a value without df to a test strongly enough to read it: a p printed beside it (its own
+ * cell, or in the value's cell) or "n.s.". Marks and effect sizes alone are not enough without df: means and
+ * other numbers carry marks too, and nothing else about the value can be checked.
+ */
+function tiedWithoutDf(result: ReportedResult): boolean {
+  return (result.p !== null && result.p.fromMarks === undefined) || result.notSignificant;
+}
+
+/**
+ * Whether a value read without df can go with the p read beside it under some df (stats/pOverDf.ts): an F of
+ * 0.91 with p = .000, or a p below 0, says the row's numbers were put under the wrong columns.
+ */
+function pReachableWithoutDf(result: ReportedResult): boolean {
+  if (result.p === null || result.value === null || result.kind === 'r' || result.kind === 'z') return true;
+  const p = result.p.value;
+  if (!(p.value >= 0 && p.value <= 1)) return false;
+  const rounded = roundingInterval(p);
+  // "p < .000" is printed for a p that rounds to .000.
+  const below = Math.max(p.value, rounded.high - p.value);
+  const printed = result.p.comparator === '<' || result.p.comparator === '<=' ? { low: 0, high: below } : result.p.comparator === '>' || result.p.comparator === '>=' ? { low: p.value, high: 1 } : rounded;
+  const value = roundingInterval(result.value);
+  const statistic = result.valueComparator === '<' || result.valueComparator === '<=' ? { low: 0, high: result.value.value } : value;
+  const reachable = pRangeOverDf(result.kind, statistic);
+  return printed.low <= reachable.high && printed.high >= reachable.low;
+}
+
+/** A row's result (with no df when the table gives none; see lacksDf), or null. */
+function readRow(input: RowInput): ReportedResult | null {
   const { row, cellsAt, segment, kind } = input;
   const columns = segment.columns;
   // "2.71 (41) .010": the statistic, its df and its p in one cell, under "t (df) p".
@@ -1203,9 +1271,13 @@ function readRow(input: RowInput): ReportedResult | 'no-df' | null {
   });
   // A correlation needs no df to be read (as in running text): without an N in its row or the table's note it is
   // checked with the study's stated N, at most as a warning, or left unchecked (checks/documentDf.ts).
-  const readDf = df ?? (kind === 'r' ? [] : null);
-  if (readDf === null) return 'no-df';
+  // Without df the statistic is still read as printed (as in running text: "F = 5.60, p = .000"); its p cannot be
+  // recomputed, but the checks that need no df still run. The caller keeps it only when the row ties it to a test.
+  const readDf = df ?? [];
   if (readDf.some((value) => !(value.value > 0))) return null;
+  // Corrections make df fractional either both together (Greenhouse-Geisser, Huynh-Feldt: both times epsilon) or
+  // the error df alone (Welch, Brown-Forsythe); a fractional effect df beside a whole error df is another column's number.
+  if (kind === 'F' && readDf.length === 2 && !Number.isInteger(readDf[0]!.value) && Number.isInteger(readDf[1]!.value)) return null;
 
   const pCell = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   if (pCell !== null && pCell !== 'ns') record('p', pCell);

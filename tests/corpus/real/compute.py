@@ -149,6 +149,9 @@ def verdict(kind, df, df_text, value, decimals, exponent, comparator, p, ns, eff
     """(consistent, pRange, reasons)."""
     if len(df) < needed_df(kind):
         return None, None, ["no df"]
+    if kind in ("F", "chi2") and value < 0:
+        # F and chi-square are sums of squares over positive df: never negative (common practice).
+        return False, None, [f"a negative {kind}"]
     lo, hi = p_range(kind, df, df_text, value, decimals, exponent)
     if comparator == "<":  # "F < 1": the p is large whatever the df
         if p is not None and p["comparator"] in ("<", "<=") and p["value"] <= 0.2:

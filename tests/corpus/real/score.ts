@@ -198,6 +198,10 @@ export interface Figures {
   failRateOnConsistent: number;
   /** Labels without their df (an F with no df printed anywhere): found anyway, or not. */
   withoutDf: number;
+  /** Labels without their df that plumbline read anyway (as printed, with no df: its p cannot be recomputed, other checks still run). */
+  withoutDfFound: number;
+  /** Every label, with df or without: the share read at its place with its kind, value and df as printed. */
+  recallAll: number;
   falseAlarms: number;
   /** Readable labels not found and not inside a table the audit lists as not read: skipped without a word. */
   silentMisses: number;
@@ -228,6 +232,8 @@ export function figures(scores: PassageScore[], where: 'all' | 'table' | 'text')
     failsOnConsistent,
     failRateOnConsistent: ratio(failsOnConsistent, outcomes.filter((o) => o.label.consistent === true).length),
     withoutDf: outcomes.length - readable.length,
+    withoutDfFound: outcomes.filter((o) => !isReadable(o.label) && o.found !== null).length,
+    recallAll: ratio(hitsAll.length, outcomes.length),
     falseAlarms: falseAlarms.length,
     silentMisses: readable.filter((o) => o.found === null && !o.listedUnread).length,
   };
@@ -258,7 +264,8 @@ function figuresLine(name: string, f: Figures): string {
     `recall ${percent(f.recall).padStart(6)}  precision ${percent(f.precision).padStart(6)}  ` +
     `p read ${percent(f.pAccuracy).padStart(6)}  effects read ${percent(f.effectAccuracy).padStart(6)}  ` +
     `fails on consistent ${f.failsOnConsistent}/${f.consistent}  false alarms ${f.falseAlarms}  ` +
-    `missed silently ${f.silentMisses}/${f.readable - Math.round(f.recall * f.readable)}`
+    `missed silently ${f.silentMisses}/${f.readable - Math.round(f.recall * f.readable)}  ` +
+    `without df read ${f.withoutDfFound}/${f.withoutDf}  all labels recall ${percent(f.recallAll)}`
   );
 }
 

@@ -224,11 +224,37 @@ describe('readTableResults: tables that give no results', () => {
     ['counts of men (M) and women (F)', ['Site | M | F', 'North | 12 | 15', 'South | 9 | 14']],
     ['a frequency table', ['Score | f | %', '1 | 4 | 10.0', '2 | 12 | 30.0']],
     ['a correlation matrix', ['Variable | 1 | 2 | 3', '1. Recall | — | .32 | .10', '2. Sleep | | — | .21']],
-    ['an F column without any df', ['Source | F | p', 'Group | 4.21 | .020']],
+    ['an F column without any df or p', ['Source | F | M', 'Group | 4.21 | 20.3']],
     ['regression weights', ['Predictor | B | SE | β', 'Age | 0.12 | 0.05 | .21', 'Sleep | 0.40 | 0.10 | .35']],
     ['standard scores (z without p)', ['Pupil | Score | z', 'A | 41 | 1.20', 'B | 30 | -0.40']],
   ])('%s', (_name, lines) => {
     expect(fromText(lines.join('\n'))).toEqual([]);
+  });
+});
+
+describe('readTableResults: statistics printed without df', () => {
+  // Common practice: many results tables print F or t with its p and no df anywhere. The value is read as
+  // printed (no df, so its p is not recomputed), as running text's "F = 5.60, p = .000" is.
+  it('reads a value beside its printed p, with no df', () => {
+    const [result, ...rest] = fromText(['Source | F | p | partial eta squared', 'Group | 4.21 | .020 | .12', 'Time | 1.30 | .26 | .02'].join('\n'));
+    expect(rest).toHaveLength(1);
+    expect(result!.df).toEqual([]);
+    expect(result!.value?.text).toBe('4.21');
+    expect(result!.p?.value.text).toBe('.020');
+    expect(result!.effects.map((effect) => effect.value.text)).toEqual(['.12']);
+  });
+
+  it('does not read a value whose p no df can give (an F of 0.91 with p = .001: the columns were misread)', () => {
+    expect(fromText(['Source | F | p', 'Group | 0.91 | .001'].join('\n'))).toEqual([]);
+  });
+
+  it('does not read a value without df tied only by marks or an effect size', () => {
+    expect(fromText(['Source | F | partial eta squared', 'Group | 4.21** | .12', '', 'Note. ** p < .01.'].join('\n'))).toEqual([]);
+  });
+
+  it('does not read a value without df from a crushed row whose numbers outnumber the columns', () => {
+    const crushed = ['Table 2. Group differences', 'Measure F p', 'Anxiety 12.1 3.2 4.21 .020', 'Stress 11.0 2.9 1.30 .260'].join('\n');
+    expect(fromText(crushed).filter((result) => result.df.length === 0)).toEqual([]);
   });
 });
 
@@ -324,14 +350,15 @@ describe('a table with tests of two kinds', () => {
     '| Equal variances not assumed | | | 2.10 | 55.31 | .041 |',
   ].join('\n');
 
-  it('reads the t tests with their df and p, and lists an F without df as not read', () => {
+  it('reads the t tests with their df and p, and an F without df as printed, and says the table was read without df', () => {
     const scan = scanDocument(plainTextDocument('t.txt', 'text', table));
     const tabled = scan.results.filter((result) => result.tableRow);
     expect(tabled.map((result) => [result.kind, result.df.map((df) => df.text).join(','), result.value?.text, result.p?.value.text])).toEqual([
+      ['F', '', '0.84', '.363'],
       ['t', '58', '2.10', '.040'],
       ['t', '55.31', '2.10', '.041'],
     ]);
-    expect(scan.tablesNotRead.map((unread) => unread.reason)).toEqual(['no-df']);
+    expect(scan.tablesNotRead.map((unread) => unread.reason)).toEqual(['read-without-df']);
   });
 
   it("reads Levene's F with df 1 and the pooled t test's df when the table names Levene's test", () => {

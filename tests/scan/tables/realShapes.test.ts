@@ -81,8 +81,8 @@ describe('real table shapes', () => {
     expect(results[1]!.effects[0]!.interval).not.toBeNull();
   });
 
-  it('lists results tables it cannot read, with the reason (soft-09: no df for the F column; web-02: a layout no reader knows)', () => {
-    expect(scan('soft-09').tablesNotRead.map((table) => table.reason)).toEqual(['no-df']);
+  it('lists results tables it cannot read in full, with the reason (soft-09: F read without df; web-02: a layout no reader knows)', () => {
+    expect(scan('soft-09').tablesNotRead.map((table) => table.reason)).toEqual(['read-without-df']);
     const web02 = scan('web-02');
     expect(web02.results).toEqual([]);
     expect(web02.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
