@@ -318,6 +318,10 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   let dfRead: DfRead | null = null;
   if (symbol.kind !== 'z') {
     dfRead = readSubscriptDf(text, at, symbol.kind) ?? readBracketedDf(text, skipSpaces(text, at), symbol.kind);
+    // "F 1, 22 = 1240.19": an F's subscript df set apart by a space (web pages flatten "F₁,₂₂" so); only a df pair.
+    if (dfRead === null && symbol.kind === 'F' && text.charCodeAt(at) === 32 && isAsciiDigit(text.charCodeAt(at + 1))) {
+      dfRead = readSubscriptDf(text, at + 1, 'F');
+    }
     // "F1(1, 31) = 6.02; F2(1, 46) = 3.95": by-participant and by-item analyses, each an F test with its own bracketed df.
     if (dfRead === null && symbol.kind === 'F' && isByParticipantOrItem(text, at)) {
       dfRead = readBracketedDf(text, skipSpaces(text, at + 1), 'F');

@@ -21,11 +21,11 @@ const scores = scoreCorpus(corpus);
  */
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.85, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.88, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.94, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.28, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.31, precision: 1, maxFailRate: 0.01 },
     text: { recall: 1, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -92,7 +92,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
 
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured).
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 56, holdout: 48 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 20, holdout: 48 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);

@@ -19,6 +19,8 @@ describe('df separators and labels', () => {
     ['F [2, 310] = 5.21, p = .006', ['2', '310']],
     ['F (gl = 2, 57) = 4.21, p = .02', ['2', '57']],
     ['F(ddl = 2, 57) = 4.21, p = .02', ['2', '57']],
+    // A subscript df pair set apart by a space, as a web page flattens it (tests/corpus/real/passages/divr-04.txt).
+    ['F 1, 22 = 1240.19, P < 0.001', ['1', '22']],
   ])('reads %s', (written, df) => {
     const result = onlyResult(`The effect was reliable, ${written}.`);
     expect(result.kind).toBe('F');
