@@ -91,6 +91,15 @@ describe('real corpus: plumbline reads what is printed', () => {
   }
 
 
+  // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
+  // the share read at its place (floors, as measured).
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.23 };
+  for (const split of SPLITS) {
+    it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
+      expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
+    });
+  }
+
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured).
   const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 20, holdout: 48 };
   for (const split of SPLITS) {

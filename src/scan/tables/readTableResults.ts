@@ -1273,7 +1273,9 @@ function readRow(input: RowInput): ReportedResult | null {
   // checked with the study's stated N, at most as a warning, or left unchecked (checks/documentDf.ts).
   // Without df the statistic is still read as printed (as in running text: "F = 5.60, p = .000"); its p cannot be
   // recomputed, but the checks that need no df still run. The caller keeps it only when the row ties it to a test.
-  const readDf = df ?? [];
+  // An F whose row prints the effect's df but whose table gives no error df keeps the df it prints ("| 3 | 8.798 |").
+  const printedEffectDf = kind === 'F' ? (dfCell ?? df1Cell) : null;
+  const readDf = df ?? (printedEffectDf !== null && printedEffectDf !== undefined ? [stripOffsets(printedEffectDf.record)] : []);
   if (readDf.some((value) => !(value.value > 0))) return null;
   // Corrections make df fractional either both together (Greenhouse-Geisser, Huynh-Feldt: both times epsilon) or
   // the error df alone (Welch, Brown-Forsythe); a fractional effect df beside a whole error df is another column's number.
