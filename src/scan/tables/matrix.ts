@@ -48,6 +48,8 @@ const COLUMN_NUMBER = /^\(?(\d{1,2})[.)]?$/;
 /** A row label that starts with the variable's number: "1. GAD", "(2) Age", "3 BDI". */
 const ROW_NUMBER = /^\(?(\d{1,2})[.)]?\s+(\S.*)$/;
 /** The diagonal as printed: a dash, a correlation of 1, or a reliability in brackets ("(.89)"). */
+/** A cell that stands for no value: a dash of any kind. */
+const PLACEHOLDER = /^[-\u2013\u2014\u2212]$/;
 const DIAGONAL = /^(?:[-\u2013\u2014\u2212]|1|1\.0{1,3}|\((?:0?\.\d{2,3})\))$/;
 const SAYS_CORRELATIONS = /correlat|\br\s*=|pearson|spearman/i;
 /** The N of the table's note: "N = 60", "n = 1,024". */
@@ -96,7 +98,7 @@ export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | nu
   const layout = bestLayout(rows, columns);
   if (layout === null) return null;
   const names = new Map(rows.map((row) => [row.variable, row.name]));
-  const noteN = NOTE_N.exec(input.notes.slice(0, 2000));
+  const noteN = NOTE_N.exec(input.notes.slice(0, 2000)) ?? NOTE_N.exec(table.caption ?? '');
   const n = noteN ? Number(noteN[1]!.replace(/,/g, '')) : null;
   const legend = readMarkLegend(input.notes);
   const results: ReportedResult[] = [];
@@ -136,7 +138,7 @@ export function readCorrelationGrid(input: MatrixInput, headerCount: number): Re
   const caption = table.caption ?? '';
   if (!SAYS_CORRELATIONS.test(caption) || OTHER_CORRELATIONS.test(caption)) return null;
   const header = table.rows[headerCount - 1] ?? [];
-  const noteN = NOTE_N.exec(input.notes.slice(0, 2000));
+  const noteN = NOTE_N.exec(input.notes.slice(0, 2000)) ?? NOTE_N.exec(table.caption ?? '');
   const n = noteN ? Number(noteN[1]!.replace(/,/g, '')) : null;
   const legend = readMarkLegend(input.notes);
   const segments: GridSegment[] = [];
@@ -287,9 +289,12 @@ function columnName(segment: GridSegment, value: GridCell, index: number, count:
 
 /** How many numbered columns (1, 2, ..., k) end the row; 0 when they do not count up from 1. */
 function numberedColumns(row: readonly string[]): number {
-  let first = row.length;
+  // A trailing pipe leaves an empty cell after the last number ("| 19 | 20 |").
+  let end = row.length;
+  while (end > 1 && row[end - 1]!.trim() === '') end--;
+  let first = end;
   while (first > 1 && COLUMN_NUMBER.test(row[first - 1]!.trim())) first--;
-  const numbers = row.slice(first).map((cell) => Number(COLUMN_NUMBER.exec(cell.trim())![1]));
+  const numbers = row.slice(first, end).map((cell) => Number(COLUMN_NUMBER.exec(cell.trim())![1]));
   return numbers.length >= 2 && numbers.every((number, index) => number === index + 1) ? numbers.length : 0;
 }
 
@@ -310,6 +315,8 @@ function matrixRows(input: MatrixInput, headerIndex: number): MatrixRow[] {
       if (attachMarks(previous, written, place)) continue;
       values.push(valueCellOf(written, place));
     }
+    // Dashes filling the other triangle ("0.58** | – | – | –") stand for no value; a row is read from its end.
+    while (values.length > 0 && PLACEHOLDER.test(values[values.length - 1]!.number) && values[values.length - 1]!.marks === '') values.pop();
     rows.push({ variable: Number(label[1]), name: label[2]!.trim(), rowIndex, values });
   });
   return rows;

@@ -375,3 +375,14 @@ describe('a Spearman grid in one cell per line, its caption on a long line of it
     ]);
   });
 });
+
+describe('a numbered correlation matrix with dashes in the other triangle and a trailing pipe (divt-02)', () => {
+  it('reads each r below the diagonal with df N − 2 from the caption (the excerpt ends before the note defining the marks: no p)', () => {
+    const { results } = scan('divt-02');
+    const tabled = results.filter((result) => result.tableRow);
+    expect(tabled).toHaveLength(66);
+    expect(tabled.every((result) => result.kind === 'r' && result.df.map((df) => df.text).join() === '75')).toBe(true);
+    const first = tabled[0]!;
+    expect([first.value?.text, first.p]).toEqual(['0.58', null]);
+  });
+});
