@@ -567,6 +567,9 @@ interface DataLine {
   values: Piece[];
 }
 
+/** A numbered variable's label ("1. SPAS Total Score"), as matrices number their rows. */
+const NUMBERED_LABEL = /^\d{1,2}\.\s/;
+
 /** A row: a label, then a run of values (numbers, dashes, "ns") to the end of the line. */
 function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const text = line.text;
@@ -577,8 +580,10 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   while (first > 0 && (isValueToken(tokens[first - 1]!.text) || (isMarkToken(tokens[first - 1]!.text) && first >= 2 && isValueToken(tokens[first - 2]!.text)))) first--;
   if (first === 0 && tokens.length > 0) first = 1; // all numbers: the first is the label ("1", "2005")
   const values = tokens.slice(first);
-  if (values.length < minimumValues || values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair')) return null;
   const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
+  // The first row of a numbered matrix's lower triangle holds only dashes ("1. Anxiety – – –"): still a row.
+  const numberedEmptyRow = NUMBERED_LABEL.test(label.text) && values.length >= 2 && values.every((token) => /^[-\u2013\u2014]$/.test(token.text));
+  if (values.length < minimumValues || (!numberedEmptyRow && values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair'))) return null;
   // Two numbers in a row inside the label are another row's values: rows run together on one line.
   const labelNumbers = tokens.slice(0, first).some((token, index) => index > 0 && isNumberToken(token.text) && isNumberToken(tokens[index - 1]!.text));
   if (labelNumbers) return null;

@@ -386,3 +386,15 @@ describe('a numbered correlation matrix with dashes in the other triangle and a 
     expect([first.value?.text, first.p]).toEqual(['0.58', null]);
   });
 });
+
+describe('the same numbered matrix crushed into single spaces (divt-02 re-rendered)', () => {
+  it('keeps the first row of dashes as a row and reads the correlations below the diagonal', () => {
+    const lines = passage('divt-02')
+      .split('\n')
+      .filter((line) => !/^\s*-{3}\|/.test(line))
+      .map((line) => (line.includes('|') ? line.split('|').map((cell) => cell.trim()).filter((cell) => cell !== '').join(' ') : line));
+    const results = scanDocument(plainTextDocument('crushed.txt', 'text', lines.join('\n'))).results.filter((result) => result.tableRow);
+    expect(results.length).toBeGreaterThanOrEqual(60);
+    expect(results.every((result) => result.kind === 'r' && Math.abs(result.value!.value) <= 1)).toBe(true);
+  });
+});
