@@ -179,13 +179,14 @@ function readDfNumber(text: string, at: number): { number: ReportedNumber; end: 
 }
 
 /**
- * "df = 28" or "df = 1, 44" ("dfs", ":" and "/" also read) after a statistic
+ * "df = 28" or "df = 1, 44" ("dfs", "d.f.", ":" and "/" also read) after a statistic
  * written without df. `count` numbers are needed: two for F, one otherwise;
  * a second number that is not there leaves the part unread.
  */
 export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
-  if (!(text.startsWith('df', at) || text.startsWith('dfs', at))) return null;
-  let position = at + (text.startsWith('dfs', at) ? 3 : 2);
+  const written = text.startsWith('dfs', at) ? 'dfs' : text.startsWith('df', at) ? 'df' : text.startsWith('d.f.', at) ? 'd.f.' : null;
+  if (written === null) return null;
+  let position = at + written.length;
   while (isSpaceCode(text.charCodeAt(position))) position++;
   const sign = text.charCodeAt(position);
   if (sign !== 61 && sign !== 58) return null; // "=" or ":"

@@ -214,11 +214,29 @@ function readResultEndingHeadAt(source: string, comparatorAt: number, notBefore:
   let attempts = 0;
   for (let at = comparatorAt - 1; at >= lowest; at--) {
     const code = source.charCodeAt(at);
-    if (code >= 128 || HEAD_CHARACTERS[code] === 0) return null;
+    if (code >= 128 || HEAD_CHARACTERS[code] === 0) return readFWithEffectName(source, comparatorAt, lowest);
     if (!canStartSymbol(code) || !startsWord(source, at)) continue;
     const draft = readResult(source, at, comparatorAt);
     if (draft !== null) return draft;
     if (++attempts === MAX_SYMBOL_ATTEMPTS) return null;
+  }
+  return null;
+}
+
+/** How far after a comparator "d.f." or "df" must start for an F named by its effect to be looked for. */
+const TRAILING_DF_WINDOW = 24;
+
+/**
+ * "F Region = 0.01, d.f. = 1,16, P = 0.912": an F whose flattened subscript is its effect's name. Looked for
+ * only where df are written after the value (a cheap test first, since most comparators after a word are not
+ * results): the nearest "F " before the comparator, then the whole result read from there.
+ */
+function readFWithEffectName(source: string, comparatorAt: number, lowest: number): ResultDraft | null {
+  const after = source.slice(comparatorAt, comparatorAt + TRAILING_DF_WINDOW);
+  if (!after.includes('d.f.') && !after.includes('df')) return null;
+  for (let at = comparatorAt - 2; at >= lowest; at--) {
+    if (source.charCodeAt(at) !== 70 || source.charCodeAt(at + 1) !== 32 || !startsWord(source, at)) continue;
+    return readResult(source, at, comparatorAt);
   }
   return null;
 }

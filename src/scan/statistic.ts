@@ -330,6 +330,12 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     if (dfRead === null && isAsciiDigit(text.charCodeAt(at))) return null;
   }
   let needsTrailingDf = false;
+  // "F Region = 0.01, d.f. = 1,16": an F subscripted by its effect's name, flattened; trusted only with its df after it.
+  const effectName = symbol.kind === 'F' && dfRead === null ? effectNameEnd(text, at) : -1;
+  if (effectName !== -1) {
+    at = effectName;
+    needsTrailingDf = true;
+  }
   if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) {
     if (!(symbol.acceptsTrailingDf === true && dfRead === null)) return null;
     needsTrailingDf = true;
@@ -365,6 +371,31 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     needsP: needsP || needsTrailingDf,
     ...(needsTrailingDf ? { needsTrailingDf } : {}),
   };
+}
+
+/** Longest effect name read as a flattened subscript of F. */
+const MAX_EFFECT_NAME = 40;
+
+/**
+ * End of an effect's name standing as an F's subscript ("F Region", "F Soil treatment", "F Region×soil
+ * treatment"): a space, a capital letter, then letters, spaces, hyphens and "×" up to the comparator; -1 otherwise.
+ */
+function effectNameEnd(text: string, position: number): number {
+  if (text.charCodeAt(position) !== 32) return -1;
+  const first = text.charCodeAt(position + 1);
+  if (!(first >= 65 && first <= 90)) return -1;
+  let at = position + 1;
+  const limit = Math.min(text.length, at + MAX_EFFECT_NAME);
+  while (at < limit) {
+    const code = text.charCodeAt(at);
+    if (code === 61 || code === 60 || code === 62) break;
+    if (!(isAsciiLetter(code) || code === 32 || code === 45 || code === 0xd7)) return -1;
+    at++;
+  }
+  if (at >= limit) return -1;
+  let end = at;
+  while (end > position && text.charCodeAt(end - 1) === 32) end--;
+  return end - position >= 3 ? end : -1;
 }
 
 /** "1" or "2" right after an F, then its bracketed df: "F1(1, 31)", "F2 (1, 46)". */

@@ -279,3 +279,19 @@ describe('a p written before its statistic', () => {
     expect(chain.map((result) => result.p?.value.text)).toEqual(['.035', '.006']);
   });
 });
+
+describe('an F subscripted by its effect name, with "d.f." after the value', () => {
+  // The form of tests/corpus/real/passages/divr-07.txt (CC BY): ecology writes F with the effect as subscript.
+  it('reads "F Region = 0.01, d.f. = 1,16, P = 0.912" and "F Region×soil treatment = 0.53, ..."', () => {
+    const results = scanText('Neither mattered (F Region = 0.01, d.f. = 1,16, P = 0.912; F Region\u00d7soil treatment = 0.53, d.f. = 1,16, P = 0.475).').results;
+    expect(results.map((result) => [result.kind, result.value?.text, dfTexts(result), result.p?.value.text])).toEqual([
+      ['F', '0.01', ['1', '16'], '0.912'],
+      ['F', '0.53', ['1', '16'], '0.475'],
+    ]);
+  });
+
+  it('does not read an F with a name but no df after it ("F Region = 0.01" alone), nor words before an "="', () => {
+    expect(scanText('We set F Region = 0.01 for the model, p = .02.').results).toEqual([]);
+    expect(scanText('The Fisher Region score = 4.1, df = 12, p = .03 was high.').results.filter((result) => result.kind === 'F')).toEqual([]);
+  });
+});
