@@ -95,7 +95,9 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     .filter((text) => text !== '')
     .join(' ');
   const titleText = `${caption} ${firstCell?.text ?? ''}`;
-  const grid = first === -1 && SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText) ? gridHeader(cells, titleLine) : null;
+  const correlations = SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText);
+  // (A numbered matrix's label header, "Variables", may read as a column name; its numbers decide.)
+  const grid = correlations ? (numberedHeader(cells) ?? (first === -1 ? gridHeader(cells, titleLine) : null)) : null;
   if (first === -1 && grid === null) return null;
   if (grid !== null) first = grid.first;
   let firstValue = first;
@@ -174,7 +176,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     table: {
       start: title.start + (title.text.length - title.text.trimStart().length),
       end: lastCell.end,
-      caption: grid !== null ? caption : title.text.trim(),
+      caption: grid !== null ? captionOfGrid(caption, cells.slice(0, first)) : title.text.trim(),
       notes: [],
       rows,
       headerRows: dfTitles.length > 0 ? 2 : 1,
@@ -250,6 +252,46 @@ function gridHeader(cells: Cell[], titleLine: number): { first: number; bodyStar
   const names = header.slice(header.length - valueCount);
   if (names.length < valueCount || names.some((cell) => isValueCell(cell))) return null;
   return { first: cells.indexOf(names[0]!), bodyStart };
+}
+
+/** Shortest cell before a grid's header taken as a caption line rather than a label header ("Variables"). */
+const MIN_CAPTION_CELL = 30;
+
+/** A grid's caption: the title's lines, and the caption lines that stand as cells of their own before the header. */
+function captionOfGrid(caption: string, beforeHeader: Cell[]): string {
+  const lines = beforeHeader.filter((cell) => !cell.empty && cell.text.length >= MIN_CAPTION_CELL && !caption.includes(cell.text)).map((cell) => cell.text);
+  return [caption, ...lines].join(' ');
+}
+
+/** Fewest numbers a numbered matrix's header is read from ("1 2 3"). */
+const MIN_NUMBERED_COLUMNS = 3;
+
+/**
+ * The header of a numbered correlation matrix, one cell per line: "1", "2", … "k" in order, then the first row's
+ * label, which starts with its number ("1. Anxiety"); null otherwise. Numbers are value cells to every other
+ * reading, so this header is looked for first.
+ */
+function numberedHeader(cells: Cell[]): { first: number; bodyStart: number } | null {
+  const start = cells.findIndex((cell) => !cell.empty && cell.text === '1');
+  if (start < 0 || start > MAX_CELLS_TO_HEADER * 2) return null;
+  let expected = 1;
+  let index = start;
+  let last = start;
+  while (index < cells.length && expected <= MAX_HEADER_CELLS) {
+    const cell = cells[index]!;
+    if (cell.empty) {
+      index++;
+      continue;
+    }
+    if (cell.text !== String(expected)) break;
+    last = index;
+    expected++;
+    index++;
+  }
+  if (expected - 1 < MIN_NUMBERED_COLUMNS) return null;
+  const next = cells.slice(last + 1).find((cell) => !cell.empty);
+  if (next === undefined || !/^1\.\s?\S/.test(next.text)) return null;
+  return { first: start, bodyStart: last + 1 };
 }
 
 /** Lines looked at after a header line for a crushed row (a superscript line, "2", may come first). */

@@ -398,3 +398,15 @@ describe('the same numbered matrix crushed into single spaces (divt-02 re-render
     expect(results.every((result) => result.kind === 'r' && Math.abs(result.value!.value) <= 1)).toBe(true);
   });
 });
+
+describe('the same numbered matrix one cell per line (divt-02 re-rendered)', () => {
+  it('reads the numbered header, the caption line under the title, and the correlations below the diagonal', () => {
+    const lines = passage('divt-02')
+      .split('\n')
+      .filter((line) => !/^\s*-{3}\|/.test(line))
+      .flatMap((line) => (line.includes('|') ? line.split('|').map((cell) => cell.trim()).filter((cell) => cell !== '') : [line]));
+    const results = scanDocument(plainTextDocument('lines.txt', 'text', lines.join('\n\n'))).results.filter((result) => result.tableRow);
+    expect(results).toHaveLength(66);
+    expect(results.every((result) => result.kind === 'r' && result.df.map((df) => df.text).join() === '75')).toBe(true);
+  });
+});
