@@ -31,7 +31,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 };
 
 /** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
-const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.98, crushed: 0.81, 'cell-per-line': 0.91 };
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.98, crushed: 0.8, 'cell-per-line': 0.9 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {
@@ -93,7 +93,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
   // the share read at its place (floors, as measured).
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.58, holdout: 0.25 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.26 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);

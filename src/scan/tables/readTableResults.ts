@@ -897,8 +897,13 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       // Numbers given back to the label or left out of every column: the placement is the best guess, which a
       // value with df can be checked against, but a value without df cannot.
       // So is any placement other than one cell per column in order, as far as a value without df is concerned.
-      const inOrder = placed.absorbed === 0 && toPlace.length === valueRoles.length && placed.columns.every((slot, offset) => slot === offset);
-      const guessed = !inOrder || placed.absorbed > 0 || placed.columns.some((slot, offset) => slot < 0 && toPlace[offset]!.shape.shape.startsWith('number'));
+      // Cells given back to the label that hold a number with a bracket ("0.032 (0.014)": a group's M (SD), under
+      // group columns the header names before its first known one) cannot be a statistic or a p: the rest, one cell
+      // per column in order, is placed as clearly as a row without them.
+      const descriptivesAbsorbed = placed.absorbed > 0 && toPlace.slice(0, placed.absorbed).every((cell) => cell.shape.shape === 'number-bracket');
+      const absorbedClearly = placed.absorbed === 0 || descriptivesAbsorbed;
+      const inOrder = absorbedClearly && toPlace.length - placed.absorbed === valueRoles.length && placed.columns.slice(placed.absorbed).every((slot, offset) => slot === offset);
+      const guessed = !inOrder || placed.columns.some((slot, offset) => slot < 0 && offset >= placed.absorbed && toPlace[offset]!.shape.shape.startsWith('number'));
       if (guessed) {
         out.push({ cells, at, guessed: true });
         continue;

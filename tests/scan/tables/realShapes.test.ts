@@ -410,3 +410,15 @@ describe('the same numbered matrix one cell per line (divt-02 re-rendered)', () 
     expect(results.every((result) => result.kind === 'r' && result.df.map((df) => df.text).join() === '75')).toBe(true);
   });
 });
+
+describe("group columns of M (SD) before F and p columns, crushed, no df anywhere (divb-07)", () => {
+  it('reads each F beside its p without df, after the M (SD) cells the row gives back to its label', () => {
+    const { results } = scan('divb-07');
+    const row = results.filter((result) => result.tableRow && result.text.startsWith('APA duration'));
+    expect(row.map((result) => [result.value?.text, result.df.length, result.p?.value.text])).toEqual([
+      ['0.628', 0, '0.537'],
+      ['0.393', 0, '0.532'],
+      ['0.086', 0, '0.918'],
+    ]);
+  });
+});
