@@ -93,7 +93,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
   // the share read at its place (floors, as measured).
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.26 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.6, holdout: 0.26 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);

@@ -491,6 +491,14 @@ function readHeader(line: Line): HeaderLine | null {
   let namesTest = false;
   while (index < tokens.length) {
     const length = knownPhraseLength(tokens, index);
+    // A footnote letter standing apart after a column's name ("X 2 a P b", the letters superscripts) names no column.
+    // (A "b" right after a statistic or p is such a letter too, not a column of regression weights.)
+    const previousRole = columns.length > 1 ? classifyHeader(columns[columns.length - 1]!.text).role : null;
+    const afterTest = previousRole === 'statistic' || previousRole === 'p';
+    if ((length === 0 || afterTest) && named > 0 && /^[a-h]$/.test(tokens[index]!.text) && (index + 1 === tokens.length || knownPhraseLength(tokens, index + 1) > 0)) {
+      index++;
+      continue;
+    }
     if (length === 0) {
       // Words the vocabulary does not know ("Baseline", "Difficulty accessing dental care,"): one column of
       // unknown meaning, tolerated when the names around it clearly make a header.

@@ -422,3 +422,13 @@ describe("group columns of M (SD) before F and p columns, crushed, no df anywher
     ]);
   });
 });
+
+describe('footnote letters standing apart in a crushed header (divq-06: "X 2 a P b")', () => {
+  it('names no column by the letters, so each chi-square is read beside its p (no df printed)', () => {
+    const { results } = scan('divq-06');
+    const tabled = results.filter((result) => result.tableRow);
+    expect(tabled.length).toBeGreaterThanOrEqual(9);
+    expect(tabled[0]!.kind).toBe('chi2');
+    expect([tabled[0]!.value?.text, tabled[0]!.df.length, tabled[0]!.p?.value.text]).toEqual(['7.658', 0, '.022']);
+  });
+});
