@@ -900,7 +900,7 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       // Cells given back to the label that hold a number with a bracket ("0.032 (0.014)": a group's M (SD), under
       // group columns the header names before its first known one) cannot be a statistic or a p: the rest, one cell
       // per column in order, is placed as clearly as a row without them.
-      const descriptivesAbsorbed = placed.absorbed > 0 && toPlace.slice(0, placed.absorbed).every((cell) => cell.shape.shape === 'number-bracket');
+      const descriptivesAbsorbed = placed.absorbed > 0 && toPlace.slice(0, placed.absorbed).every((cell) => cell.shape.shape === 'number-bracket' || MEAN_PLUS_MINUS_SD.test(cell.text));
       const absorbedClearly = placed.absorbed === 0 || descriptivesAbsorbed;
       const inOrder = absorbedClearly && toPlace.length - placed.absorbed === valueRoles.length && placed.columns.slice(placed.absorbed).every((slot, offset) => slot === offset);
       const guessed = !inOrder || placed.columns.some((slot, offset) => slot < 0 && offset >= placed.absorbed && toPlace[offset]!.shape.shape.startsWith('number'));
@@ -913,6 +913,9 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
   }
   return { rows: out, unplaced };
 }
+
+/** A group's mean and SD written "2.89 ± 0.75": a descriptive cell, never a statistic or a p. */
+const MEAN_PLUS_MINUS_SD = /^\s*[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)\s?\u00b1\s?(?:\d+(?:\.\d+)?|\.\d+)\s*$/;
 
 /** Most a placed MS may differ from SS/df, relatively, beyond the rounding of the printed numbers. */
 const MEAN_SQUARE_SLACK = 0.05;

@@ -432,3 +432,13 @@ describe('footnote letters standing apart in a crushed header (divq-06: "X 2 a P
     expect([tabled[0]!.value?.text, tabled[0]!.df.length, tabled[0]!.p?.value.text]).toEqual(['7.658', 0, '.022']);
   });
 });
+
+describe('groups\' "M ± SD" cells before t, p and d, one cell per line, no df (divt-01)', () => {
+  it('reads each t beside its printed p without df; a t whose p is only stars is not read without df', () => {
+    const { results } = scan('divt-01');
+    const tabled = results.filter((result) => result.tableRow);
+    expect(tabled.length).toBeGreaterThanOrEqual(8);
+    expect(tabled.every((result) => result.kind === 't' && result.df.length === 0 && result.p !== null && result.p.fromMarks === undefined)).toBe(true);
+    expect(tabled.map((result) => result.value?.text)).toContain('2.08');
+  });
+});
