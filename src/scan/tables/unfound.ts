@@ -86,6 +86,14 @@ function digitShare(line: string): number {
 /** A title that names a test or correlations ("Table 2 Repeated-measures ANOVA ...", "Correlations between ..."). */
 const TITLE_NAMES_TESTS = /\b(?:AN(?:C|M)?OVAs?|MANC?OVAs?|t[- ]tests?|chi[- ]?squared?|\u03c7\s?2|correlat\w*|regressions?|Kruskal|Mann[- ]Whitney|Wilcoxon)\b/i;
 
+/** Below this share of digits a line may be a header. */
+const HEADER_DIGIT_SHARE = 0.2;
+/**
+ * Names of results columns that a copy glued to their neighbours ("Variabledf1df2FpPartial eta-squared%"):
+ * found inside words, so only these unmistakable ones.
+ */
+const GLUED_HEADER_NAMES = /df[12]|[a-z]df[A-Z]|Df[A-Z]|Sig\.|[Ee]ta[- ]squared|Partial eta|\u03b7\s?[p2\u00b2]|p-?value|F-?value|t-?value/;
+
 /** A statistic or p named in the block (or a test in its title), and enough numbers. */
 function looksLikeResults(lines: string[], title: string): boolean {
   let numbers = 0;
@@ -93,6 +101,7 @@ function looksLikeResults(lines: string[], title: string): boolean {
   for (const line of lines) {
     numbers += (line.match(/\d*[.,]\d+|\d+/g) ?? []).length;
     if (!named) named = line.split(/\||\t| {2,}/).some((cell) => mentionsStatistic(cell.trim())) || line.split(/\s+/).some((word) => mentionsStatistic(word));
+    if (!named && digitShare(line) < HEADER_DIGIT_SHARE) named = GLUED_HEADER_NAMES.test(line);
   }
   return named && numbers >= MIN_NUMBERS;
 }

@@ -442,3 +442,11 @@ describe('groups\' "M ± SD" cells before t, p and d, one cell per line, no df (
     expect(tabled.map((result) => result.value?.text)).toContain('2.08');
   });
 });
+
+describe('a table whose header and rows a copy glued together (divx-02: "Variabledf1df2FpPartial eta-squared%")', () => {
+  it('is listed as not read, never skipped without a word', () => {
+    const { results, tablesNotRead } = scan('divx-02');
+    expect(results.filter((result) => result.tableRow)).toEqual([]);
+    expect(tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
+  });
+});
