@@ -5,6 +5,7 @@ import { scanDocument, type ScannableDocument } from './scan/scanDocument.js';
 import { plainTextDocument } from './documents/text.js';
 import type { DocumentOutput, StatisticOutput, TableNotReadOutput } from './report/model.js';
 import type { UnreadTable } from './scan/tables/index.js';
+import { noResultsOf } from './report/wording.js';
 
 /** Maps a text offset to its page, when the document has pages. */
 export type PageOf = (offset: number) => number | null;
@@ -134,6 +135,8 @@ export function auditDocument(
     statistics: checked.map((c) => statisticOutput(c, text, lineOf, pageOf)),
     findings: [],
     tablesNotRead: scan.tablesNotRead.map((table) => tableNotReadOutput(table, lineOf, pageOf)),
+    // A document without results says why: an empty one (a scanned PDF without text) must not pass for a clean one.
+    ...(checked.length === 0 ? { noResults: noResultsOf(/\S/.test(text)) } : {}),
   };
 }
 

@@ -98,6 +98,13 @@ export const tableNotReadSchema = z
   })
   .describe('A table that looks like a results table (its header names a test statistic or p) whose results were not all read.');
 
+export const noResultsSchema = z
+  .object({
+    reason: z.enum(['empty', 'none-found']).describe('"empty": the document holds no text (only white space, markup or, in a PDF, images); "none-found": it has text but no reported result.'),
+    message: z.string(),
+  })
+  .describe('Set on a document that was read and holds no result, so a report says so rather than showing it as clean.');
+
 export const documentSchema = z.object({
   path: z.string(),
   status: z.enum(['checked', 'unreadable']),
@@ -107,6 +114,7 @@ export const documentSchema = z.object({
   statistics: z.array(statisticSchema),
   findings: z.array(findingSchema).describe('Findings about the document as a whole.'),
   tablesNotRead: z.array(tableNotReadSchema).default([]).describe('Results tables plumbline could not read in full: an audit must not look cleaner than it is.'),
+  noResults: noResultsSchema.optional(),
 });
 
 export const summarySchema = z.object({
@@ -134,6 +142,7 @@ export type StatisticOutput = z.infer<typeof statisticSchema>;
 export type DocumentOutput = z.infer<typeof documentSchema>;
 export type Summary = z.infer<typeof summarySchema>;
 export type TableNotReadOutput = z.infer<typeof tableNotReadSchema>;
+export type NoResultsOutput = z.infer<typeof noResultsSchema>;
 export type Report = z.infer<typeof reportSchema>;
 
 export { CAUTION } from './caution.js';
