@@ -17,6 +17,18 @@ export const findingSchema = z.object({
   messageId: z.string(),
   data: z.record(z.string(), z.union([z.string(), z.number()])),
   slip: z.string().optional().describe('A simple slip that reproduces the printed numbers, when one was found.'),
+  pDiscrepancy: z
+    .object({
+      size: z
+        .enum(['last-digit', 'moderate', 'order-of-magnitude'])
+        .describe(
+          '"last-digit": the printed p is within one unit of its last printed digit of a p that would agree (a p truncated instead of rounded, rounded the wrong way, a digit off by one); "order-of-magnitude": the printed p and the nearest recomputed p are a factor of 10 or more apart; "moderate": between the two.',
+        ),
+      factor: z.number().nullable().describe('How many times larger the larger of the printed p and the nearest recomputed p is (at least 1); null when the recomputed p is 0.'),
+      truncated: z.boolean().describe('True when the printed p is the recomputed p truncated at its last printed digit instead of rounded.'),
+    })
+    .optional()
+    .describe('Set on a finding about a printed p that does not follow from the statistic and df (p-value-mismatch): how large the discrepancy is.'),
 });
 
 export const locationSchema = z.object({
