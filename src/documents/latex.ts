@@ -173,19 +173,36 @@ export function stripComments(source: string): string {
   return stripCommentsMapped(source).text;
 }
 
-/**
- * A comment: a "%" after an even number of backslashes (none, or escaped
- * backslashes), to the end of its line, with the line break and the next
- * line's indent. The look-behind, rather than matching the character before
- * the backslashes, lets a comment follow right after another one's line.
- */
-const COMMENT = /(?<!\\)((?:\\\\)*)%[^\n]*\n?[ \t]*/g;
-
 /** stripComments, with the map from the text without comments back to the source. */
 export function stripCommentsMapped(source: string): { text: string; map: OffsetMap } {
-  // The backslashes before the "%" stay; the comment, its line break and the next line's indent go.
-  const comments = [...source.matchAll(COMMENT)].map((match) => [match.index + match[1]!.length, match.index + match[0].length] as const);
-  return removeRanges(source, comments);
+  return removeRanges(source, commentRanges(source));
+}
+
+/**
+ * Where the comments are, in one pass, as TeX reads them: a "%" that is not
+ * escaped, to the end of its line, with the line break and the next line's
+ * indent. A backslash escapes the character after it, so "\%" is text and
+ * "\\%" an escaped backslash and then a comment. A comment may follow right
+ * after another one's line. A loop, like latexNesting: linear whatever the
+ * input, where a pattern for "a % after an even number of backslashes"
+ * needs a look-behind or backtracking.
+ */
+function commentRanges(source: string): [number, number][] {
+  const ranges: [number, number][] = [];
+  for (let index = 0; index < source.length; index += 1) {
+    const code = source.charCodeAt(index);
+    if (code === 0x5c /* \ */) {
+      index += 1; // the escaped character
+      continue;
+    }
+    if (code !== 0x25 /* % */) continue;
+    const lineEnd = source.indexOf('\n', index);
+    let end = lineEnd === -1 ? source.length : lineEnd + 1;
+    while (end < source.length && (source[end] === ' ' || source[end] === '\t')) end += 1;
+    ranges.push([index, end]);
+    index = end - 1;
+  }
+  return ranges;
 }
 
 function splitPreamble(source: string): { preamble: string; body: string; bodyStart: number } {
