@@ -418,6 +418,7 @@ class LatexConverter {
     this.run(content, this.within(index));
     this.math = wasMath;
   }
+
   private command(source: string, index: number): number {
     const next = source[index + 1];
     if (next === undefined) return index + 1;
