@@ -5,9 +5,13 @@ import { scanDocument, type ScannableDocument } from './scan/scanDocument.js';
 import { plainTextDocument } from './documents/text.js';
 import type { DocumentOutput, StatisticOutput, TableNotReadOutput } from './report/model.js';
 import type { UnreadTable } from './scan/tables/index.js';
+import { noResultsOf } from './report/wording.js';
 
 /** Maps a text offset to its page, when the document has pages. */
 export type PageOf = (offset: number) => number | null;
+
+/** Maps a text offset to the line and column reported for it. */
+type LineOf = (offset: number) => { line: number; column: number };
 
 const SURROUNDING_CHARACTERS = 160;
 
@@ -23,7 +27,7 @@ function surroundingsOf(text: string, start: number, end: number): { before: str
 function statisticOutput(
   checked: CheckedResult,
   text: string,
-  lineOf: ReturnType<typeof createLineIndex>,
+  lineOf: LineOf,
   pageOf: PageOf,
 ): StatisticOutput {
   const { result, recomputation, findings } = checked;
@@ -97,7 +101,7 @@ function tableNotReadMessage(table: UnreadTable): string {
   }
 }
 
-function tableNotReadOutput(table: UnreadTable, lineOf: ReturnType<typeof createLineIndex>, pageOf: PageOf): TableNotReadOutput {
+function tableNotReadOutput(table: UnreadTable, lineOf: LineOf, pageOf: PageOf): TableNotReadOutput {
   const { line, column } = lineOf(table.start);
   return {
     location: { page: pageOf(table.start), line, column, start: table.start, end: table.end },
@@ -116,7 +120,7 @@ export function auditText(text: string, config: ResolvedConfig, path = '<text>')
 
 /** Scans and checks one document read by a reader. Pure: the document and settings in, the audit out. */
 export function auditDocument(
-  document: ScannableDocument & { pageOf?: PageOf },
+  document: ScannableDocument & { pageOf?: PageOf; lineOf?: LineOf },
   config: ResolvedConfig,
   path = '<text>',
 ): DocumentOutput {
@@ -124,7 +128,8 @@ export function auditDocument(
   const pageOf = document.pageOf ?? (() => null);
   const scan = scanDocument(document);
   const checked = checkResults(text, scan, config);
-  const lineOf = createLineIndex(text);
+  // A reader that rewrites its file's text (LaTeX) gives the file's lines; otherwise the text's own are reported.
+  const lineOf = document.lineOf ?? createLineIndex(text);
   return {
     path,
     status: 'checked',
@@ -132,6 +137,8 @@ export function auditDocument(
     statistics: checked.map((c) => statisticOutput(c, text, lineOf, pageOf)),
     findings: [],
     tablesNotRead: scan.tablesNotRead.map((table) => tableNotReadOutput(table, lineOf, pageOf)),
+    // A document without results says why: an empty one (a scanned PDF without text) must not pass for a clean one.
+    ...(checked.length === 0 ? { noResults: noResultsOf(/\S/.test(text)) } : {}),
   };
 }
 

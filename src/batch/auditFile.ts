@@ -10,6 +10,7 @@ import { openRegularFile } from '../documents/regularFile.js';
 import type { Region } from '../documents/types.js';
 import { MB, resolveLimits } from '../limits.js';
 import type { DocumentOutput, StatisticOutput } from '../report/model.js';
+import { noResultsOf } from '../report/wording.js';
 import { internalErrorReason } from './entry.js';
 import { decodeChunks, TextDecodingError, textWindows, type StreamOptions } from '../scan/stream.js';
 
@@ -60,11 +61,13 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
 
   const statistics: StatisticOutput[] = [];
   let declaredAlpha: number | null = null;
+  let hasText = false;
   try {
     const second = await regularFileStream(path);
     if (!second.ok) return unreadableDocument(path, second.error, format);
     for await (const window of textWindows(second.stream, options)) {
       const windowEnd = window.start + window.text.length;
+      hasText ||= /\S/.test(window.text);
       const windowRegions = regions
         .filter((region) => region.end > window.start && region.start < windowEnd)
         .map((region) => ({ ...region, start: Math.max(0, region.start - window.start), end: Math.min(window.text.length, region.end - window.start) }));
@@ -85,7 +88,16 @@ export async function auditTextStream(path: string, format: 'text' | 'markdown',
     return unreadableDocument(path, describeStreamError(error), format);
   }
   // A file this large is read as a stream of windows, where tables are not rebuilt.
-  return { path, status: 'checked', alpha: declaredAlpha ?? config.defaultAlpha, statistics, findings: [], tablesNotRead: [], format };
+  return {
+    path,
+    status: 'checked',
+    alpha: declaredAlpha ?? config.defaultAlpha,
+    statistics,
+    findings: [],
+    tablesNotRead: [],
+    ...(statistics.length === 0 ? { noResults: noResultsOf(hasText) } : {}),
+    format,
+  };
 }
 
 /**

@@ -62,6 +62,7 @@ export function checkResults(
           messageId: draft.messageId,
           data: draft.data,
           ...(draft.slip ? { slip: draft.slip } : {}),
+          ...(draft.pDiscrepancy ? { pDiscrepancy: draft.pDiscrepancy } : {}),
         });
       }
     }

@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import type { DocumentContext, ReportedResult, StatisticKind } from '../scan/types.js';
 import type { Recomputation } from './recompute.js';
 import type { DocumentIndex } from './documentIndex.js';
+import type { PDiscrepancy } from './pDiscrepancy.js';
 
 export type Severity = 'fail' | 'warn' | 'note';
 
@@ -22,6 +23,8 @@ export interface FindingDraft {
   crossesAlpha?: boolean;
   /** A name for the simple slip that reproduces the reported numbers, when one does. */
   slip?: string;
+  /** For a printed p that does not follow from the statistic: how far off it is (checks/pDiscrepancy.ts). */
+  pDiscrepancy?: PDiscrepancy;
 }
 
 export interface Finding {
@@ -32,6 +35,7 @@ export interface Finding {
   messageId: string;
   data: Record<string, string | number>;
   slip?: string;
+  pDiscrepancy?: PDiscrepancy;
 }
 
 /** Everything a check may look at besides the result itself. */

@@ -1,3 +1,4 @@
+import { statSync } from 'node:fs';
 import { Command, CommanderError, Option } from 'commander';
 import { CatalogueError, ConfigError } from '../checks/errors.js';
 import { buildReport } from '../report/build.js';
@@ -21,6 +22,30 @@ import { registerRefitCommand } from './refit.js';
 
 export { EXIT_CLEAN, EXIT_FLAGGED, EXIT_INPUT_ERROR, EXIT_INTERNAL_FAULT, UsageError, type CliIo } from './common.js';
 
+/** A path as it would be typed into a POSIX shell: bare when that is safe, otherwise in single quotes. */
+function shellWord(path: string): string {
+  return /^[\w./@%+=:,-]+$/.test(path) ? path : `'${path.replace(/'/g, `'\\''`)}'`;
+}
+
+/**
+ * `check` reads the text it is given, so `check paper.pdf` would audit the
+ * nine characters "paper.pdf", find nothing and say so as if the paper were
+ * clean. When the argument names a file or folder that exists, the user
+ * meant `scan`: a usage error that says so. Text that cannot be a path
+ * (too long, a NUL character) is simply not one.
+ */
+export function checkArgumentIsPath(text: string): string | null {
+  let kind: string | null = null;
+  try {
+    const stats = statSync(text, { throwIfNoEntry: false });
+    kind = stats === undefined ? null : stats.isDirectory() ? 'a folder' : 'a file';
+  } catch {
+    return null;
+  }
+  if (kind === null) return null;
+  return `check reads the text of results given as its argument, but "${text}" is ${kind}; to audit it, use scan: plumbline scan ${shellWord(text)}`;
+}
+
 function registerCheckCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
   addCommonOptions(
     program
@@ -28,6 +53,8 @@ function registerCheckCommand(program: Command, io: CliIo, setExitCode: (code: n
       .description('check the results in a piece of text given as the argument, or "-" to read standard input')
       .argument('<text>', 'the text, or - for standard input'),
   ).action(async (text: string, options: CommonOptions) => {
+    const pathMessage = text === '-' ? null : checkArgumentIsPath(text);
+    if (pathMessage !== null) throw new UsageError(pathMessage);
     const config = await configFrom(options);
     const input = text === '-' ? await io.readStdin() : text;
     const { auditText } = await import('../audit.js');

@@ -1,3 +1,4 @@
+import { OffsetMap } from './sourceMap.js';
 import type { DocumentTable, Region, RegionKind } from './types.js';
 
 /**
@@ -9,6 +10,10 @@ import type { DocumentTable, Region, RegionKind } from './types.js';
  * text collapse to one space; only `lineBreak` and `blockBreak` put line
  * breaks into the text. That keeps the offsets stable (no clean-up pass
  * after writing).
+ *
+ * A builder made with `{ sourceMap: true }` also records where its text
+ * comes from in the file (`from`, `sourceOffsetOf`), for a reader whose
+ * text is not the file's own and whose report should name the file's lines.
  */
 export class TextBuilder {
   private parts: string[] = [];
@@ -21,13 +26,24 @@ export class TextBuilder {
   private readonly spans: Region[] = [];
   private readonly openSpans: { kind: RegionKind; start: number }[] = [];
   readonly tables: DocumentTable[] = [];
+  private readonly sourceMap: OffsetMap | null;
+  /** Where the next word or verbatim text comes from (see `from`), until it is written. */
+  private pendingSource: { offset: number; copied: number } | null = null;
+
+  constructor(options: { sourceMap?: boolean } = {}) {
+    this.sourceMap = options.sourceMap ? new OffsetMap() : null;
+  }
 
   get offset(): number {
     return this.length;
   }
 
-  /** Inline text: whitespace collapses to single spaces, none at line starts. */
-  inline(text: string): void {
+  /**
+   * Inline text: whitespace collapses to single spaces, none at line starts.
+   * `sources`, when given, holds where each word (each run of non-space
+   * characters) starts in the file, in order.
+   */
+  inline(text: string, sources?: readonly number[]): void {
     const pieces = text.split(/[ \t\n\r\f\v]+/);
     const startsWithSpace = /^[ \t\n\r\f\v]/.test(text);
     const endsWithSpace = /[ \t\n\r\f\v]$/.test(text);
@@ -35,6 +51,8 @@ export class TextBuilder {
     const words = pieces.filter((piece) => piece.length > 0);
     words.forEach((word, index) => {
       if (index > 0) this.spacePending = true;
+      const source = sources?.[index];
+      if (source !== undefined) this.from(source);
       this.writeWord(word);
     });
     if (endsWithSpace && words.length > 0) this.spacePending = true;
@@ -44,7 +62,23 @@ export class TextBuilder {
   verbatim(text: string): void {
     if (text.length === 0) return;
     this.flushSpace();
+    this.anchor();
     this.write(text);
+  }
+
+  /**
+   * Says where the next word or verbatim text comes from in the file: it
+   * starts at `sourceOffset`, and its first `copied` characters are the
+   * file's own, one for one. Spaces and line breaks written in between
+   * belong to the text before. Does nothing without a source map.
+   */
+  from(sourceOffset: number, copied = 0): void {
+    if (this.sourceMap !== null) this.pendingSource = { offset: sourceOffset, copied };
+  }
+
+  /** The file offset a text offset comes from (see `from`); null without a source map or before anything was mapped. */
+  sourceOffsetOf(offset: number): number | null {
+    return this.sourceMap?.sourceOffsetOf(offset) ?? null;
   }
 
   /** Asks for a space before the next word (not at a line start). */
@@ -90,7 +124,15 @@ export class TextBuilder {
 
   private writeWord(word: string): void {
     this.flushSpace();
+    this.anchor();
     this.write(word);
+  }
+
+  /** Records the pending source offset at the current end of the text, where the next characters go. */
+  private anchor(): void {
+    if (this.pendingSource === null) return;
+    this.sourceMap?.add(this.length, this.pendingSource.offset, this.pendingSource.copied);
+    this.pendingSource = null;
   }
 
   private flushSpace(): void {

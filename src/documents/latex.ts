@@ -1,8 +1,10 @@
 import { REFERENCE_HEADING, TextBuilder } from './builder.js';
+import { OffsetMap } from './sourceMap.js';
 import { collapseWhitespace, writeTable, type TableDraft } from './tables.js';
 import type { DocumentText } from './types.js';
 import { DocumentLimitError } from './markupLimits.js';
 import { defaultLimits, limitHint, type Limits } from '../limits.js';
+import { createLineIndex } from '../scan/lines.js';
 
 /**
  * LaTeX reader, hand-written on purpose: a real LaTeX "parser" has to run
@@ -25,27 +27,50 @@ import { defaultLimits, limitHint, type Limits } from '../limits.js';
  * size commands, \includegraphics, verbatim-like and comment environments'
  * markup. An unknown command is dropped and its braced arguments are read
  * as ordinary text, so nothing a reader can see is lost.
+ *
+ * Lines: the text is not the file's (comments, the preamble and markup go,
+ * footnotes move), so the converter tells the builder where each piece of
+ * text comes from, and `lineOf` gives a result's line and column in the
+ * .tex file: through that map, then through the map of the comments
+ * removed. A table cell, caption, note, or a word of a footnote or heading
+ * maps to where it starts; the bibliography read from the .bbl, another
+ * file, to the \bibliography command.
  */
 export function latexToDocument(source: string, path: string, bibliography: string | null = null, limits: Pick<Limits, 'maxNestingDepth'> = defaultLimits): DocumentText {
-  const withoutComments = stripComments(source);
+  const { text: withoutComments, map: commentMap } = stripCommentsMapped(source);
   // The converter follows each nested environment and group by recursion: the depth is checked first, in one pass.
   const depth = checkNesting(withoutComments, limits.maxNestingDepth);
   if (bibliography !== null) checkNesting(stripComments(bibliography), limits.maxNestingDepth);
-  const { preamble, body } = splitPreamble(withoutComments);
+  const { preamble, body, bodyStart } = splitPreamble(withoutComments);
   const title = readCommandArgument(preamble, 'title');
-  const converter = new LatexConverter(new TextBuilder(), bibliography);
+  const converter = new LatexConverter(new TextBuilder({ sourceMap: true }), bibliography);
   try {
-    if (title !== null && !/\\maketitle\b/.test(body)) converter.writeHeading(title, 0);
+    if (title !== null && !/\\maketitle\b/.test(body)) converter.writeHeading(title.content, 0, (index) => title.start + index);
     converter.title = title;
-    converter.run(body);
+    converter.run(body, { offset: bodyStart, pinned: false });
     converter.finishDocument();
   } catch (error) {
     if (isStackOverflow(error)) throw new DocumentLimitError(stackExhaustedMessage(depth));
     throw error;
   }
   const builder = converter.builder;
-  return { path, format: 'latex', text: builder.text(), pageOf: () => null, regions: builder.regions(), tables: builder.tables };
+  const fileLines = createLineIndex(source);
+  const lineOf = (offset: number): { line: number; column: number } => {
+    const withoutCommentsOffset = builder.sourceOffsetOf(offset) ?? 0;
+    return fileLines(commentMap.sourceOffsetOf(withoutCommentsOffset) ?? withoutCommentsOffset);
+  };
+  return { path, format: 'latex', text: builder.text(), pageOf: () => null, lineOf, regions: builder.regions(), tables: builder.tables };
 }
+
+/**
+ * Where the piece of source being converted sits in the text without
+ * comments: it starts at `offset`; or, `pinned`, all of it maps to
+ * `offset` (a .bbl, which is another file, maps to its \bibliography).
+ */
+type Origin = { offset: number; pinned: boolean } | null;
+
+/** Where each index of a piece of LaTeX sits in the text without comments (null: not known). */
+type Place = (index: number) => number | null;
 
 /** The deepest point of a LaTeX source's nesting: how deep, and what opened that level (for the message). */
 export interface LatexNesting {
@@ -145,21 +170,56 @@ function stackExhaustedMessage(depth: number): string {
 
 /** Removes "%..." comments (not "\%") together with the line break they hide, as TeX does. */
 export function stripComments(source: string): string {
-  return source.replace(/(^|[^\\])((?:\\\\)*)%[^\n]*\n?[ \t]*/g, '$1$2');
+  return stripCommentsMapped(source).text;
 }
 
-function splitPreamble(source: string): { preamble: string; body: string } {
+/** stripComments, with the map from the text without comments back to the source. */
+export function stripCommentsMapped(source: string): { text: string; map: OffsetMap } {
+  return removeRanges(source, commentRanges(source));
+}
+
+/**
+ * Where the comments are, in one pass, as TeX reads them: a "%" that is not
+ * escaped, to the end of its line, with the line break and the next line's
+ * indent. A backslash escapes the character after it, so "\%" is text and
+ * "\\%" an escaped backslash and then a comment. A comment may follow right
+ * after another one's line. A loop, like latexNesting: linear whatever the
+ * input, where a pattern for "a % after an even number of backslashes"
+ * needs a look-behind or backtracking.
+ */
+function commentRanges(source: string): [number, number][] {
+  const ranges: [number, number][] = [];
+  for (let index = 0; index < source.length; index += 1) {
+    const code = source.charCodeAt(index);
+    if (code === 0x5c /* \ */) {
+      index += 1; // the escaped character
+      continue;
+    }
+    if (code !== 0x25 /* % */) continue;
+    const lineEnd = source.indexOf('\n', index);
+    let end = lineEnd === -1 ? source.length : lineEnd + 1;
+    while (end < source.length && (source[end] === ' ' || source[end] === '\t')) end += 1;
+    ranges.push([index, end]);
+    index = end - 1;
+  }
+  return ranges;
+}
+
+function splitPreamble(source: string): { preamble: string; body: string; bodyStart: number } {
   const begin = source.indexOf('\\begin{document}');
-  if (begin === -1) return { preamble: '', body: source };
+  if (begin === -1) return { preamble: '', body: source, bodyStart: 0 };
   const end = source.indexOf('\\end{document}', begin);
-  return { preamble: source.slice(0, begin), body: source.slice(begin + '\\begin{document}'.length, end === -1 ? undefined : end) };
+  const bodyStart = begin + '\\begin{document}'.length;
+  return { preamble: source.slice(0, begin), body: source.slice(bodyStart, end === -1 ? undefined : end), bodyStart };
 }
 
-function readCommandArgument(source: string, command: string): string | null {
+/** The braced argument of the first \command in `source`, and where its content starts. */
+function readCommandArgument(source: string, command: string): { content: string; start: number } | null {
   const match = new RegExp(`\\\\${command}\\*?\\s*(?:\\[[^\\][]*\\]\\s*)?\\{`).exec(source);
   if (!match) return null;
-  const group = readBalanced(source, match.index + match[0].length - 1, '{', '}');
-  return group ? group.content : null;
+  const open = match.index + match[0].length - 1;
+  const group = readBalanced(source, open, '{', '}');
+  return group ? { content: group.content, start: open + 1 } : null;
 }
 
 /** The content of a balanced group starting at `open` (which must hold the opening character). */
@@ -210,21 +270,26 @@ const SKIPPED_ENVIRONMENTS = new Set(['comment', 'tikzpicture', 'picture']);
 const LIST_ENVIRONMENTS = new Set(['itemize', 'enumerate', 'description', 'tablenotes']);
 
 class LatexConverter {
-  title: string | null = null;
+  title: { content: string; start: number } | null = null;
   private math = false;
-  private pendingFootnotes: string[] = [];
+  private pendingFootnotes: InlineText[] = [];
   private tableCount = 0;
   private referencesByHeading: { start: number; level: number } | null = null;
+  /** Where the source being converted sits (see Origin); null when nothing is mapped (convertInline). */
+  private origin: Origin = null;
 
   constructor(
     readonly builder: TextBuilder,
     private readonly bibliography: string | null,
   ) {}
 
-  /** Converts a piece of LaTeX into the builder. */
-  run(source: string): void {
+  /** Converts a piece of LaTeX into the builder; `origin` says where the piece sits in the file. */
+  run(source: string, origin: Origin): void {
+    const outer = this.origin;
+    this.origin = origin;
     let index = 0;
     while (index < source.length) index = this.step(source, index);
+    this.origin = outer;
   }
 
   finishDocument(): void {
@@ -232,16 +297,17 @@ class LatexConverter {
     this.closeReferences();
   }
 
-  writeHeading(raw: string, level: number): void {
+  /** A heading from its LaTeX, placed in the file by `place` when known. */
+  writeHeading(raw: string, level: number, place: Place | null): void {
     this.flushFootnotes();
     if (this.referencesByHeading && level <= this.referencesByHeading.level) this.closeReferences();
-    const text = convertInline(raw);
+    const text = convertInlinePlaced(raw, place);
     this.builder.blockBreak(2);
     this.builder.open('heading');
-    this.builder.inline(text);
+    this.builder.inline(text.text, text.sources);
     this.builder.close();
     this.builder.blockBreak(2);
-    if (REFERENCE_HEADING.test(text)) this.referencesByHeading = { start: this.builder.offset, level };
+    if (REFERENCE_HEADING.test(text.text)) this.referencesByHeading = { start: this.builder.offset, level };
   }
 
   private closeReferences(): void {
@@ -250,9 +316,39 @@ class LatexConverter {
     this.referencesByHeading = null;
   }
 
+  /** Where `index` of the piece being converted sits in the text without comments; null when nothing is mapped. */
+  private sourceAt(index: number): number | null {
+    const origin = this.origin;
+    if (origin === null) return null;
+    return origin.pinned ? origin.offset : origin.offset + index;
+  }
+
+  /** Where each index of a part of the piece being converted, starting at `index`, sits; null when nothing is mapped. */
+  private placeAt(index: number): Place | null {
+    return this.origin === null ? null : (offset) => this.sourceAt(index + offset);
+  }
+
+  /** The origin of a part of the piece being converted that starts at `index`. */
+  private within(index: number): Origin {
+    const origin = this.origin;
+    return origin === null || origin.pinned ? origin : { offset: origin.offset + index, pinned: false };
+  }
+
+  /** Tells the builder that what is written next comes from `index`, its first `copied` characters as they stand. */
+  private mark(index: number, copied = 0): void {
+    const at = this.sourceAt(index);
+    if (at !== null) this.builder.from(at, this.origin!.pinned ? 0 : copied);
+  }
+
+  /** A part of the piece being converted (a caption, a footnote) that starts at `index`, as one line of text with its words placed. */
+  private inlineText(source: string, index: number): InlineText {
+    return convertInlinePlaced(source, this.placeAt(index));
+  }
+
   /** Reads one token at `index` and returns where the next one starts. */
   private step(source: string, index: number): number {
     const char = source[index]!;
+    this.mark(index);
     if (char === '\\') return this.command(source, index);
     if (char === '$') return this.inlineMath(source, index);
     if (char === '{' || char === '}') return index + 1;
@@ -281,6 +377,7 @@ class LatexConverter {
       return index + whitespace.length;
     }
     const run = /^[^\\${}~&`'\s^_]+/.exec(source.slice(index, index + 400))![0];
+    this.mark(index, run.length);
     this.builder.verbatim(run);
     return index + run.length;
   }
@@ -297,7 +394,7 @@ class LatexConverter {
     this.builder.blockBreak(2);
     for (const footnote of footnotes) {
       this.builder.open('footnote');
-      this.builder.inline(footnote);
+      this.builder.inline(footnote.text, footnote.sources);
       this.builder.close();
       this.builder.blockBreak(1);
     }
@@ -310,14 +407,15 @@ class LatexConverter {
     const start = index + delimiter.length;
     let end = start;
     while (end < source.length && !(source.startsWith(delimiter, end) && source[end - 1] !== '\\')) end += 1;
-    this.runMath(source.slice(start, end));
+    this.runMath(source.slice(start, end), start);
     return Math.min(source.length, end + delimiter.length);
   }
 
-  private runMath(content: string): void {
+  /** Converts `content`, which starts at `index` of the piece being converted, as math. */
+  private runMath(content: string, index: number): void {
     const wasMath = this.math;
     this.math = true;
-    this.run(content);
+    this.run(content, this.within(index));
     this.math = wasMath;
   }
 
@@ -344,7 +442,7 @@ class LatexConverter {
       const end = source.indexOf(closer, index + 2);
       const stop = end === -1 ? source.length : end;
       if (symbol === '[') this.builder.blockBreak(2);
-      this.runMath(source.slice(index + 2, stop));
+      this.runMath(source.slice(index + 2, stop), index + 2);
       if (symbol === '[') this.builder.blockBreak(2);
       return Math.min(source.length, stop + 2);
     }
@@ -365,23 +463,26 @@ class LatexConverter {
       const argumentStart = skipSpaces(source, skipOptional(source, skipSpaces(source, position)));
       const group = readBalanced(source, argumentStart, '{', '}');
       if (!group) return position;
-      this.writeHeading(group.content, SECTION_LEVEL[name]!);
+      this.writeHeading(group.content, SECTION_LEVEL[name]!, this.placeAt(argumentStart + 1));
       return group.end;
     }
     if (name === 'maketitle') {
-      if (this.title !== null) this.writeHeading(this.title, 0);
+      const title = this.title;
+      if (title !== null) this.writeHeading(title.content, 0, this.origin === null ? null : (offset) => title.start + offset);
       return position;
     }
     if (name === 'footnote' || name === 'footnotetext') {
-      const group = readBalanced(source, skipSpaces(source, skipOptional(source, position)), '{', '}');
+      const open = skipSpaces(source, skipOptional(source, position));
+      const group = readBalanced(source, open, '{', '}');
       if (!group) return position;
-      this.pendingFootnotes.push(convertInline(group.content));
+      this.pendingFootnotes.push(this.inlineText(group.content, open + 1));
       return group.end;
     }
     if (name === 'caption') {
-      const group = readBalanced(source, skipSpaces(source, skipOptional(source, position)), '{', '}');
+      const open = skipSpaces(source, skipOptional(source, position));
+      const group = readBalanced(source, open, '{', '}');
       if (!group) return position;
-      this.writeCaption(convertInline(group.content));
+      this.writeCaption(this.inlineText(group.content, open + 1));
       return group.end;
     }
     if (name === 'par') {
@@ -399,7 +500,9 @@ class LatexConverter {
     }
     if (name === 'bibliography') {
       const group = readBalanced(source, skipSpaces(source, position), '{', '}');
-      if (this.bibliography !== null) this.run(stripComments(this.bibliography));
+      // The .bbl is another file: all of it is placed at the \bibliography command.
+      const at = this.sourceAt(position);
+      if (this.bibliography !== null) this.run(stripComments(this.bibliography), at === null ? null : { offset: at, pinned: true });
       return group ? group.end : position;
     }
     if (CITATIONS.has(name)) return this.citation(source, position);
@@ -439,12 +542,14 @@ class LatexConverter {
   }
 
   private fraction(source: string, position: number): number {
-    const numerator = readBalanced(source, skipSpaces(source, position), '{', '}');
+    const numeratorOpen = skipSpaces(source, position);
+    const numerator = readBalanced(source, numeratorOpen, '{', '}');
     if (!numerator) return position;
-    const denominator = readBalanced(source, skipSpaces(source, numerator.end), '{', '}');
-    this.run(numerator.content);
+    const denominatorOpen = skipSpaces(source, numerator.end);
+    const denominator = readBalanced(source, denominatorOpen, '{', '}');
+    this.run(numerator.content, this.within(numeratorOpen + 1));
     this.builder.verbatim('/');
-    if (denominator) this.run(denominator.content);
+    if (denominator) this.run(denominator.content, this.within(denominatorOpen + 1));
     return denominator ? denominator.end : numerator.end;
   }
 
@@ -454,55 +559,68 @@ class LatexConverter {
     const name = nameGroup.content.trim();
     const endMarker = `\\end{${name}}`;
     const endIndex = findEnvironmentEnd(source, nameGroup.end, name);
-    const body = source.slice(nameGroup.end, endIndex);
+    const bodyStart = nameGroup.end;
+    const body = source.slice(bodyStart, endIndex);
     const after = Math.min(source.length, endIndex + endMarker.length);
     if (name === 'document' || name === 'center' || name === 'minipage' || name === 'flushleft' || name === 'threeparttable') {
       this.builder.blockBreak(1);
-      this.run(name === 'minipage' ? body.replace(/^\s*(?:\[[^\][]*\]\s*)?\{[^}]*\}/, '') : body);
+      const skipped = name === 'minipage' ? prefixLength(body, /^\s*(?:\[[^\][]*\]\s*)?\{[^}]*\}/) : 0;
+      this.run(body.slice(skipped), this.within(bodyStart + skipped));
       this.builder.blockBreak(1);
       return after;
     }
     if (SKIPPED_ENVIRONMENTS.has(name)) return after;
     if (RAW_ENVIRONMENTS.has(name)) {
       this.builder.blockBreak(2);
-      this.builder.verbatim(body.replace(/^\n/, ''));
+      const skipped = prefixLength(body, /^\n/);
+      this.mark(bodyStart + skipped, body.length - skipped);
+      this.builder.verbatim(body.slice(skipped));
       this.builder.blockBreak(2);
       return after;
     }
     if (name === 'table' || name === 'table*') {
-      const draft = readTableFloat(body.replace(/^\s*\[[^\]]*\]/, ''));
+      const skipped = prefixLength(body, /^\s*\[[^\]]*\]/);
+      const draft = readTableFloat(body.slice(skipped), this.placeAt(bodyStart + skipped));
       // LaTeX numbers captions itself; the reader writes the number a reader of the PDF would see.
-      if (draft.caption !== null) draft.caption = `Table ${++this.tableCount}. ${draft.caption}`;
+      if (draft.caption !== null) {
+        draft.caption = `Table ${++this.tableCount}. ${draft.caption}`;
+        // The two words added stand where the caption does.
+        const words = draft.sources?.caption;
+        if (draft.sources && words) draft.sources.caption = [words[0]!, words[0]!, ...words];
+      }
       writeTable(this.builder, draft);
       return after;
     }
     if (TABULARS.has(name) && !this.math) {
-      writeTable(this.builder, { caption: null, notes: [], rows: readTabularRows(tabularBody(body, name)) });
+      const start = tabularBodyStart(body, name);
+      const rows = readTabularCells(body.slice(start), this.placeAt(bodyStart + start));
+      writeTable(this.builder, { caption: null, notes: [], rows: rows.map((row) => row.map((cell) => cell.text)), sources: sourcesOf(null, rows, []) });
       return after;
     }
     if (MATH_ENVIRONMENTS.has(name)) {
       this.builder.blockBreak(2);
-      this.runMath(body);
+      this.runMath(body, bodyStart);
       this.builder.blockBreak(2);
       return after;
     }
     if (name === 'thebibliography') {
-      this.writeBibliography(body.replace(/^\s*\{[^}]*\}/, ''));
+      const skipped = prefixLength(body, /^\s*\{[^}]*\}/);
+      this.writeBibliography(body.slice(skipped), this.within(bodyStart + skipped));
       return after;
     }
     if (name === 'figure' || name === 'figure*') {
       const caption = readCommandArgument(body, 'caption');
-      if (caption !== null) this.writeCaption(convertInline(caption));
+      if (caption !== null) this.writeCaption(this.inlineText(caption.content, bodyStart + caption.start));
       return after;
     }
     const block = LIST_ENVIRONMENTS.has(name) || name === 'abstract' || name === 'quote' || name === 'quotation' ? 2 : 1;
     this.builder.blockBreak(block);
-    this.run(body);
+    this.run(body, this.within(bodyStart));
     this.builder.blockBreak(block);
     return after;
   }
 
-  private writeBibliography(body: string): void {
+  private writeBibliography(body: string, origin: Origin): void {
     this.closeReferences();
     this.flushFootnotes();
     this.builder.blockBreak(2);
@@ -511,15 +629,15 @@ class LatexConverter {
     this.builder.close();
     this.builder.blockBreak(2);
     this.builder.open('references');
-    this.run(body);
+    this.run(body, origin);
     this.builder.close();
     this.builder.blockBreak(2);
   }
 
-  private writeCaption(text: string): void {
+  private writeCaption(caption: InlineText): void {
     this.builder.blockBreak(2);
     this.builder.open('caption');
-    this.builder.inline(text);
+    this.builder.inline(caption.text, caption.sources);
     this.builder.close();
     this.builder.blockBreak(2);
   }
@@ -551,68 +669,107 @@ function findEnvironmentEnd(source: string, from: number, name: string): number 
   return source.length;
 }
 
-/** A table float: its \caption, its tabular rows, and whatever other text it holds as notes. */
-function readTableFloat(body: string): TableDraft {
+/** A table float: its \caption, its tabular rows, and whatever other text it holds as notes; `place` places `body` in the file. */
+function readTableFloat(body: string, place: Place | null): TableDraft {
   const captionMatch = /\\caption\*?\s*(?:\[[^\][]*\]\s*)?\{/.exec(body);
-  let caption: string | null = null;
-  let rest = body;
+  let caption: InlineText | null = null;
+  let rest = removeRanges(body, []);
   if (captionMatch) {
-    const group = readBalanced(body, captionMatch.index + captionMatch[0].length - 1, '{', '}');
+    const open = captionMatch.index + captionMatch[0].length - 1;
+    const group = readBalanced(body, open, '{', '}');
     if (group) {
-      caption = convertInline(group.content) || null;
-      rest = body.slice(0, captionMatch.index) + body.slice(group.end);
+      caption = convertInlinePlaced(group.content, shifted(place, open + 1));
+      rest = removeRanges(body, [[captionMatch.index, group.end]]);
     }
   }
-  const rows: string[][] = [];
+  const restPlace = through(place, rest.map);
+  const rows: TabularCell[][] = [];
+  const tabulars: [number, number][] = [];
   const tabularPattern = /\\begin\{(tabular\*?|tabularx|tabulary|longtable)\}/g;
-  let notesSource = '';
-  let cursor = 0;
-  for (let match = tabularPattern.exec(rest); match; match = tabularPattern.exec(rest)) {
+  for (let match = tabularPattern.exec(rest.text); match; match = tabularPattern.exec(rest.text)) {
     const name = match[1]!;
-    const end = findEnvironmentEnd(rest, match.index + match[0].length, name);
-    rows.push(...readTabularRows(tabularBody(rest.slice(match.index + match[0].length, end), name)));
-    notesSource += rest.slice(cursor, match.index);
-    cursor = Math.min(rest.length, end + `\\end{${name}}`.length);
-    tabularPattern.lastIndex = cursor;
+    const bodyStart = match.index + match[0].length;
+    const end = findEnvironmentEnd(rest.text, bodyStart, name);
+    const tabular = rest.text.slice(bodyStart, end);
+    const start = tabularBodyStart(tabular, name);
+    rows.push(...readTabularCells(tabular.slice(start), shifted(restPlace, bodyStart + start)));
+    const after = Math.min(rest.text.length, end + `\\end{${name}}`.length);
+    tabulars.push([match.index, after]);
+    tabularPattern.lastIndex = after;
   }
-  notesSource += rest.slice(cursor);
-  const notes = readNotes(notesSource);
-  return { caption, notes, rows };
+  const notesSource = removeRanges(rest.text, tabulars);
+  const notes = readNotes(notesSource.text, through(restPlace, notesSource.map));
+  return {
+    caption: caption?.text || null,
+    notes: notes.map((note) => note.text),
+    rows: rows.map((row) => row.map((cell) => cell.text)),
+    sources: sourcesOf(caption, rows, notes),
+  };
 }
 
 /** Text of a float outside its tabular: one note per tablenotes item or per paragraph. */
-function readNotes(source: string): string[] {
-  const items = source.includes('\\item') ? source.split(/\\item\b/).slice(1) : source.split(/\n\s*\n/);
-  return items.map((item) => convertInline(item.replace(/\\(?:begin|end)\{tablenotes\}/g, ''))).filter((note) => note.length > 0);
+function readNotes(source: string, place: Place | null): InlineText[] {
+  const byItem = source.includes('\\item');
+  const items: { text: string; start: number }[] = [];
+  let start = 0;
+  for (const match of source.matchAll(byItem ? /\\item\b/g : /\n\s*\n/g)) {
+    items.push({ text: source.slice(start, match.index), start });
+    start = match.index + match[0].length;
+  }
+  items.push({ text: source.slice(start), start });
+  // Before the first \item there is no note.
+  return (byItem ? items.slice(1) : items)
+    .map((item) => {
+      const markers = [...item.text.matchAll(/\\(?:begin|end)\{tablenotes\}/g)].map((match) => [match.index, match.index + match[0].length] as const);
+      const note = removeRanges(item.text, markers);
+      return convertInlinePlaced(note.text, through(shifted(place, item.start), note.map));
+    })
+    .filter((note) => note.text.length > 0);
 }
 
-/** The body of a tabular without its column specification (and width, for tabular* and tabularx). */
-function tabularBody(body: string, name: string): string {
+/** Where the body of a tabular starts, after its column specification (and width, for tabular* and tabularx). */
+function tabularBodyStart(body: string, name: string): number {
   let index = skipSpaces(body, 0);
   if (name === 'tabular*' || name === 'tabularx' || name === 'tabulary') index = skipSpaces(body, readBalanced(body, index, '{', '}')?.end ?? index);
   index = skipOptional(body, index);
   index = skipSpaces(body, index);
   const spec = readBalanced(body, index, '{', '}');
-  return spec ? body.slice(spec.end) : body.slice(index);
+  return spec ? spec.end : index;
 }
+
+/** A cell of a tabular as one line of text, with its words placed in the file when known. */
+type TabularCell = InlineText;
 
 /** Rows split on \\ and cells on & (at brace depth 0, not escaped); rule commands dropped; empty rows left out. */
 export function readTabularRows(body: string): string[][] {
-  const cleaned = body.replace(/\\(?:hline|toprule|midrule|bottomrule|addlinespace|endhead|endfirsthead|endfoot|endlastfoot|noalign\{[^{}]*\})\b/g, ' ').replace(/\\(?:cline|cmidrule)(?:\([^()]*\))?\{[^{}]*\}/g, ' ');
-  return splitAtDepthZero(cleaned, '\\\\')
-    .map((row) => row.replace(/^\s*\[[^\]]*\]/, ''))
-    .map((row) => splitAtDepthZero(row, '&').map((cell) => convertInline(cell)))
-    .filter((cells) => cells.some((cell) => cell.length > 0));
+  return readTabularCells(body, null).map((row) => row.map((cell) => cell.text));
 }
 
-function splitAtDepthZero(source: string, separator: string): string[] {
-  const parts: string[] = [];
+/** readTabularRows, with each cell's words placed in the file by `place`. */
+function readTabularCells(body: string, place: Place | null): TabularCell[][] {
+  // Rules become spaces of their own length, so every index of `cleaned` is still one of `body`.
+  const blank = (rule: string): string => ' '.repeat(rule.length);
+  const cleaned = body
+    .replace(/\\(?:hline|toprule|midrule|bottomrule|addlinespace|endhead|endfirsthead|endfoot|endlastfoot|noalign\{[^{}]*\})\b/g, blank)
+    .replace(/\\(?:cline|cmidrule)(?:\([^()]*\))?\{[^{}]*\}/g, blank);
+  return splitAtDepthZero(cleaned, '\\\\')
+    .map((row) => {
+      // A row's optional spacing ("\\[2pt]") is not a cell.
+      const skipped = prefixLength(row.text, /^\s*\[[^\]]*\]/);
+      return splitAtDepthZero(row.text.slice(skipped), '&').map((cell) => convertInlinePlaced(cell.text, shifted(place, row.start + skipped + cell.start)));
+    })
+    .filter((cells) => cells.some((cell) => cell.text.length > 0));
+}
+
+/** The parts of `source` between separators at brace depth 0 (not escaped), each with where it starts. */
+function splitAtDepthZero(source: string, separator: string): { text: string; start: number }[] {
+  const parts: { text: string; start: number }[] = [];
   let depth = 0;
   let start = 0;
   for (let index = 0; index < source.length; index += 1) {
     const char = source[index];
     if (source.startsWith(separator, index) && depth === 0) {
-      parts.push(source.slice(start, index));
+      parts.push({ text: source.slice(start, index), start });
       index += separator.length - 1;
       start = index + 1;
       continue;
@@ -624,14 +781,80 @@ function splitAtDepthZero(source: string, separator: string): string[] {
     if (char === '{') depth += 1;
     else if (char === '}') depth = Math.max(0, depth - 1);
   }
-  parts.push(source.slice(start));
+  parts.push({ text: source.slice(start), start });
   return parts;
+}
+
+/** A table's word sources for writeTable (TableDraft.sources). */
+function sourcesOf(caption: InlineText | null, rows: readonly TabularCell[][], notes: readonly InlineText[]): NonNullable<TableDraft['sources']> {
+  return { caption: caption?.sources ?? null, cells: rows.map((row) => row.map((cell) => cell.sources ?? null)), notes: notes.map((note) => note.sources ?? null) };
+}
+
+/** `place` for a part of its piece that starts at `by`. */
+function shifted(place: Place | null, by: number): Place | null {
+  return place === null ? null : (index) => place(by + index);
+}
+
+/** `place` for a text made from its piece by removing parts (removeRanges), through that text's map back to the piece. */
+function through(place: Place | null, map: OffsetMap): Place | null {
+  return place === null ? null : (index) => place(map.sourceOffsetOf(index) ?? index);
+}
+
+/** `source` without the given ranges ([start, end), sorted, not overlapping), and the map from the result back to `source`. */
+function removeRanges(source: string, ranges: readonly (readonly [number, number])[]): { text: string; map: OffsetMap } {
+  const map = new OffsetMap();
+  const kept: string[] = [];
+  let length = 0;
+  let from = 0;
+  const keep = (end: number): void => {
+    if (end <= from) return;
+    map.add(length, from, end - from);
+    kept.push(source.slice(from, end));
+    length += end - from;
+  };
+  for (const [start, end] of ranges) {
+    keep(start);
+    from = Math.max(from, end);
+  }
+  keep(source.length);
+  return { text: kept.join(''), map };
+}
+
+/** How many characters at the start of `text` the (anchored) pattern matches: 0 when it does not. */
+function prefixLength(text: string, pattern: RegExp): number {
+  return pattern.exec(text)?.[0].length ?? 0;
+}
+
+/** Converted text on one line, with where each of its words starts in the file when known (see TextBuilder.inline). */
+interface InlineText {
+  text: string;
+  sources?: number[];
+}
+
+/**
+ * A piece of LaTeX as one line of text, as convertInline gives it, with
+ * where each word (run of non-space characters) starts in the file when
+ * `place` places the piece: the piece is converted with a map of its own,
+ * and each word's place in the piece is placed by `place`.
+ */
+function convertInlinePlaced(source: string, place: Place | null): InlineText {
+  if (place === null) return { text: convertInline(source) };
+  const converter = new LatexConverter(new TextBuilder({ sourceMap: true }), null);
+  converter.run(source, { offset: 0, pinned: false });
+  const runs = [...converter.builder.text().matchAll(/\S+/g)];
+  const sources: number[] = [];
+  for (const run of runs) {
+    const at = place(converter.builder.sourceOffsetOf(run.index) ?? 0);
+    if (at === null) return { text: runs.map((r) => r[0]).join(' ') };
+    sources.push(at);
+  }
+  return { text: runs.map((run) => run[0]).join(' '), sources };
 }
 
 /** A piece of LaTeX (a caption, a cell, a footnote) as one line of text. */
 export function convertInline(source: string): string {
   const converter = new LatexConverter(new TextBuilder(), null);
-  converter.run(source);
+  converter.run(source, null);
   return collapseWhitespace(converter.builder.text());
 }
 

@@ -7,6 +7,13 @@ export interface TableDraft {
   caption: string | null;
   notes: string[];
   rows: string[][];
+  /**
+   * Where each word (run of non-space characters) of the caption, of each
+   * cell and of each note starts in the file, parallel to them (null where
+   * unknown), for a reader that maps its text back to the file's lines
+   * (LaTeX; see TextBuilder.from).
+   */
+  sources?: { caption: readonly number[] | null; cells: (readonly number[] | null)[][]; notes: (readonly number[] | null)[] };
 }
 
 /** Cell separator in the text: results inside cells stay on one line and cells stay apart. */
@@ -25,31 +32,66 @@ export function collapseWhitespace(text: string): string {
  * in that span can be said to sit in the table.
  */
 export function writeTable(builder: TextBuilder, draft: TableDraft): void {
-  const rows = draft.rows.map((row) => row.map(collapseWhitespace)).filter((row) => row.some((cell) => cell.length > 0));
-  const notes = draft.notes.map(collapseWhitespace).filter((note) => note.length > 0);
+  const { sources } = draft;
+  const rowsWithSources = draft.rows
+    .map((row, r) => ({ cells: row.map(collapseWhitespace), sources: sources?.cells[r] }))
+    .filter((row) => row.cells.some((cell) => cell.length > 0));
+  const rows = rowsWithSources.map((row) => row.cells);
+  const notesWithSources = draft.notes.map((note, n) => ({ text: collapseWhitespace(note), sources: sources?.notes[n] })).filter((note) => note.text.length > 0);
+  const notes = notesWithSources.map((note) => note.text);
   const caption = draft.caption === null ? null : collapseWhitespace(draft.caption) || null;
   if (rows.length === 0 && caption === null && notes.length === 0) return;
   builder.blockBreak(2);
   const start = builder.offset;
   if (caption !== null) {
     builder.open('caption');
-    builder.verbatim(caption);
+    writeWords(builder, caption, sources?.caption);
     builder.close();
     builder.lineBreak();
   }
   builder.open('table');
-  for (const row of rows) {
-    builder.verbatim(row.join(CELL_SEPARATOR));
+  for (const row of rowsWithSources) {
+    writeRow(builder, row.cells, row.sources);
     builder.lineBreak();
   }
-  for (const note of notes) {
-    builder.verbatim(note);
+  for (const note of notesWithSources) {
+    writeWords(builder, note.text, note.sources);
     builder.lineBreak();
   }
   builder.close();
   const end = trimmedEnd(builder);
   builder.tables.push({ start, end, caption, notes, rows });
   builder.blockBreak(2);
+}
+
+/** One row, its cells joined by CELL_SEPARATOR, each cell's words placed in the file when known. */
+function writeRow(builder: TextBuilder, cells: readonly string[], sources: readonly (readonly number[] | null)[] | undefined): void {
+  if (sources === undefined) {
+    builder.verbatim(cells.join(CELL_SEPARATOR));
+    return;
+  }
+  cells.forEach((cell, c) => {
+    if (c > 0) builder.verbatim(CELL_SEPARATOR);
+    writeWords(builder, cell, sources[c]);
+  });
+}
+
+/**
+ * Text on one line (whitespace collapsed), written as it stands; with
+ * `sources`, where each of its words starts in the file, each word says so
+ * (TextBuilder.from). Sources that do not match the words are not used.
+ */
+function writeWords(builder: TextBuilder, text: string, sources: readonly number[] | null | undefined): void {
+  const words = text.split(' ');
+  if (!sources || text.length === 0 || words.length !== sources.length) {
+    builder.verbatim(text);
+    return;
+  }
+  words.forEach((word, w) => {
+    if (w > 0) builder.verbatim(' ');
+    builder.from(sources[w]!);
+    builder.verbatim(word);
+  });
 }
 
 function trimmedEnd(builder: TextBuilder): number {

@@ -56,6 +56,13 @@ export interface DocumentText {
   text: string;
   /** Page of a text offset (1-based), or null for formats without pages. */
   pageOf: (offset: number) => number | null;
+  /**
+   * Line and column in the file (1-based) of a text offset, for a reader
+   * whose text is not the file's own line for line (LaTeX: comments, the
+   * preamble and markup are dropped). Absent: the lines of `text` are the
+   * ones reported.
+   */
+  lineOf?: (offset: number) => { line: number; column: number };
   /** Regions other than body text, sorted by start, not overlapping. */
   regions: Region[];
   /** Tables the format marks up as tables; for PDF and plain text they are found in the text instead. */

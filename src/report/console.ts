@@ -2,6 +2,7 @@ import { Chalk, type ChalkInstance } from 'chalk';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleControls, visibleLine } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
+import { countOf, crossesAlphaPhrase, documentResultsPhrase, documentsPhrase, findingsPhrase, noResultsMessage, resultsPhrase, tablesNotReadPhrase } from './wording.js';
 
 export interface ConsoleOptions {
   color: boolean;
@@ -50,11 +51,13 @@ function documentBlock(chalk: ChalkInstance, document: DocumentOutput, showAll: 
   if (document.status === 'unreadable') return [chalk.bold(path), `  ${chalk.red('unreadable')}: ${visibleLine(document.error ?? '')}`, ''];
   const body = [...document.statistics.flatMap((s) => statisticBlock(chalk, s, showAll)), ...tablesNotReadLines(chalk, document)];
   const documentFindings = document.findings.flatMap((f) => [`  ${severityLabel(chalk, f.severity)} ${chalk.dim(f.rule)}`, `         ${visibleLine(f.message)}`]);
-  if (body.length === 0 && documentFindings.length === 0) {
-    return showAll ? [chalk.bold(path), `  ${chalk.gray(`${document.statistics.length} results, none flagged`)}`, ''] : [];
+  // A document without results is always listed, with the reason: an empty one must not look like a clean one.
+  const noResults = noResultsMessage(document);
+  const noResultsLines = noResults === null ? [] : [`  ${chalk.yellow('no results')}: ${noResults}`];
+  if (body.length === 0 && documentFindings.length === 0 && noResults === null) {
+    return showAll ? [chalk.bold(path), `  ${chalk.gray(documentResultsPhrase(document))}`, ''] : [];
   }
-  const flagged = document.statistics.filter((s) => s.findings.length > 0).length;
-  return [chalk.bold(path) + chalk.gray(`  (${document.statistics.length} results, ${flagged} flagged)`), ...documentFindings, ...body, ''];
+  return [chalk.bold(path) + chalk.gray(`  (${documentResultsPhrase(document)})`), ...noResultsLines, ...documentFindings, ...body, ''];
 }
 
 /** Human-readable report: one block per document, a summary line, and the caution. */
@@ -62,13 +65,13 @@ export function formatConsole(report: Report, options: ConsoleOptions): string {
   const chalk = new Chalk({ level: options.color ? 1 : 0 });
   const { summary } = report;
   const lines = report.documents.flatMap((d) => documentBlock(chalk, d, options.showAll));
-  const counts = `${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`;
-  const unreadable = summary.unreadable > 0 ? chalk.red(`, ${summary.unreadable} unreadable`) : '';
-  const notRead = summary.tablesNotRead > 0 ? chalk.yellow(`; ${summary.tablesNotRead} table(s) not read`) : '';
+  const documents = summary.unreadable > 0 ? `${countOf(summary.documents, 'document')} (${summary.checked} checked, ${chalk.red(`${summary.unreadable} unreadable`)})` : documentsPhrase(summary);
+  const crosses = crossesAlphaPhrase(summary);
+  const notRead = tablesNotReadPhrase(summary);
   lines.push(
-    `${summary.documents} document(s), ${summary.statistics} result(s) (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ` +
-      `${summary.flaggedStatistics} flagged: ${counts}` +
-      `${summary.crossesAlpha > 0 ? `; ${summary.crossesAlpha} change the conclusion at alpha` : ''}${notRead}${unreadable}.`,
+    // Results (what was read) and findings (what the rules say of them) are counted apart.
+    `${documents}; ${resultsPhrase(summary)}; ${findingsPhrase(summary)}` +
+      `${crosses === null ? '' : `; ${crosses}`}${notRead === null ? '' : chalk.yellow(`; ${notRead}`)}.`,
   );
   lines.push(chalk.gray(report.caution));
   return `${lines.join('\n')}\n`;

@@ -1,6 +1,7 @@
 import { stringify } from 'csv-stringify/sync';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleControls, visibleLine } from './visible.js';
+import { noResultsMessage } from './wording.js';
 
 /**
  * The CSV report: one row per result (flagged or not) for spreadsheets and
@@ -179,7 +180,7 @@ function documentRows(document: DocumentOutput): Row[] {
       note: visibleLine(table.message),
     });
   }
-  if (document.statistics.length === 0 && document.findings.length === 0) rows.push({ row: 'no results', ...documentColumns(document) });
+  if (document.statistics.length === 0 && document.findings.length === 0) rows.push({ row: 'no results', ...documentColumns(document), note: noResultsMessage(document) ?? '' });
   return rows;
 }
 

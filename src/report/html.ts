@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleControls } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
+import { countOf, crossesAlphaPhrase, noResultsMessage, tablesNotReadPhrase } from './wording.js';
 
 /**
  * One self-contained HTML page for reading a report in a browser: no network
@@ -55,9 +56,6 @@ function where(statistic: StatisticOutput): string {
   return `${page}line ${statistic.location.line}, column ${statistic.location.column}`;
 }
 
-function plural(count: number, one: string, many = `${one}s`): string {
-  return `${count} ${count === 1 ? one : many}`;
-}
 
 // ---------------------------------------------------------------- style and script
 
@@ -411,7 +409,7 @@ function scatterPlot(documents: readonly DocumentOutput[]): string {
 
   const svg =
     `<svg class="chart" role="img" aria-labelledby="chart-title" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" xmlns="http://www.w3.org/2000/svg">` +
-    `<title id="chart-title">Reported p against recomputed p for ${plural(points.length, 'result')}, log scales, with the line where they agree</title>` +
+    `<title id="chart-title">Reported p against recomputed p for ${countOf(points.length, 'result')}, log scales, with the line where they agree</title>` +
     parts.join('') +
     `</svg>`;
   const legend =
@@ -423,7 +421,7 @@ function scatterPlot(documents: readonly DocumentOutput[]): string {
   const caption =
     `<figcaption>Each mark is one result: across, the p recomputed from its printed statistic and degrees of freedom; up, the p printed in the document. ` +
     `Marks on the diagonal agree. Dashed lines mark .05. Values below ${tickLabel(lowExponent)} (including a printed p of 0) are drawn on the chart\u2019s edge. ` +
-    `${plural(points.length, 'result')} drawn; ${plural(left, 'result')} not drawn (no p printed, or p could not be recomputed). ` +
+    `${countOf(points.length, 'result')} drawn; ${countOf(left, 'result')} not drawn (no p printed, or p could not be recomputed). ` +
     `Hover a mark for its text; click it to go to the result.</figcaption>`;
   return `${heading}<figure>${svg}${legend}${caption}</figure>`;
 }
@@ -487,17 +485,24 @@ function allResultsTable(document: DocumentOutput, documentIndex: number): strin
     );
   });
   return (
-    `<details><summary>All ${plural(document.statistics.length, 'result')} in this document</summary>` +
+    `<details><summary>All ${countOf(document.statistics.length, 'result')} in this document</summary>` +
     `<table class="all-results"><thead><tr><th>Where</th><th>Result</th><th>Reported p</th><th class="num">Recomputed p</th><th>Worst flag</th></tr></thead>` +
     `<tbody>${rows.join('')}</tbody></table></details>`
   );
 }
 
+/** What the list of documents without flags says of one: its results, or why it has none. */
+function cleanDocumentWords(document: DocumentOutput): string {
+  const noResults = noResultsMessage(document);
+  return noResults === null ? `${countOf(document.statistics.length, 'result')}, none flagged` : `0 results. ${e(noResults)}`;
+}
+
 function documentMeta(document: DocumentOutput, counts: DocumentCounts): string {
-  const bits = [`${plural(document.statistics.length, 'result')}`, `${counts.flagged} flagged`];
+  const bits = [`${countOf(document.statistics.length, 'result')}`, `${counts.flagged} flagged`];
   if (document.format) bits.push(`format ${e(document.format)}`);
   if (document.alpha !== undefined) bits.push(`alpha ${e(String(document.alpha))}`);
-  return `<p class="meta">${bits.join(' \u00B7 ')}</p>`;
+  const noResults = noResultsMessage(document);
+  return `<p class="meta">${bits.join(' \u00B7 ')}</p>${noResults === null ? '' : `<p class="no-results">${e(noResults)}</p>`}`;
 }
 
 /** Tables that look like results tables but were not read in full, with the reason. */
@@ -554,16 +559,19 @@ export function formatHtml(report: Report): string {
   const clean = counts.filter((c) => c.document.status === 'checked' && c.flags === 0);
   const unreadable = counts.filter((c) => c.document.status === 'unreadable');
 
+  // Results (what was read) and findings (what the rules say of them) are counted apart.
+  const findingCount = summary.findings.fail + summary.findings.warn + summary.findings.note;
+  const noun = (count: number, one: string, many = `${one}s`): string => (count === 1 ? one : many);
   const totals =
     `<ul class="totals">` +
-    `<li><strong>${summary.documents}</strong> document${summary.documents === 1 ? '' : 's'}` +
+    `<li><strong>${summary.documents}</strong> ${noun(summary.documents, 'document')}` +
     (summary.unreadable > 0 ? ` (${summary.unreadable} unreadable)` : '') +
     `</li>` +
-    `<li><strong>${summary.statistics}</strong> result${summary.statistics === 1 ? '' : 's'} found (${summary.resultsInText} in text, ${summary.resultsInTables} in tables)</li>` +
-    `<li><strong>${summary.tablesNotRead}</strong> results table${summary.tablesNotRead === 1 ? '' : 's'} not read</li>` +
-    `<li><strong>${summary.flaggedStatistics}</strong> flagged</li>` +
-    `<li><span class="badge fail">fail</span> ${summary.findings.fail} <span class="badge warn">warn</span> ${summary.findings.warn} <span class="badge note">note</span> ${summary.findings.note}</li>` +
-    `<li><strong>${summary.crossesAlpha}</strong> change the conclusion at alpha</li></ul>`;
+    `<li><strong>${summary.statistics}</strong> ${noun(summary.statistics, 'result')} found (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ` +
+    `<strong>${summary.flaggedStatistics}</strong> flagged</li>` +
+    `<li><strong>${findingCount}</strong> ${noun(findingCount, 'finding')}: <span class="badge fail">fail</span> ${summary.findings.fail} <span class="badge warn">warn</span> ${summary.findings.warn} <span class="badge note">note</span> ${summary.findings.note}</li>` +
+    `<li>${e(crossesAlphaPhrase(summary) ?? 'No finding changes the conclusion at alpha')}</li>` +
+    `<li>${e(tablesNotReadPhrase(summary) ?? 'Every results table was read')}</li></ul>`;
 
   const overview =
     `<section class="overview" id="overview"><h2>Overview</h2>` +
@@ -584,7 +592,7 @@ export function formatHtml(report: Report): string {
         clean
           .map(
             (c) =>
-              `<li class="clean" id="${documentAnchor(c.index)}">${e(c.document.path)}: ${plural(c.document.statistics.length, 'result')}, none flagged` +
+              `<li class="clean${noResultsMessage(c.document) === null ? '' : ' no-results'}" id="${documentAnchor(c.index)}">${e(c.document.path)}: ${cleanDocumentWords(c.document)}` +
               `${tablesNotReadBlock(c.document)}${allResultsTable(c.document, c.index)}</li>`,
           )
           .join('') +
@@ -603,7 +611,7 @@ export function formatHtml(report: Report): string {
           .join('') +
         `</ul></section>`;
 
-  const title = `plumbline report: ${summary.documents} document${summary.documents === 1 ? '' : 's'}, ${summary.flaggedStatistics} flagged`;
+  const title = `plumbline report: ${countOf(summary.documents, 'document')}, ${countOf(summary.flaggedStatistics, 'result')} flagged`;
   return (
     `<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n` +
     `<meta http-equiv="Content-Security-Policy" content="${e(contentSecurityPolicy())}">\n` +

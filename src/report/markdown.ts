@@ -1,6 +1,7 @@
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleLine } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
+import { countOf, crossesAlphaPhrase, documentResultsPhrase, documentsPhrase, findingsPhrase, noResultsMessage, resultsPhrase } from './wording.js';
 
 /**
  * A Markdown summary to paste into a review: the totals, then, for each
@@ -46,10 +47,6 @@ function where(statistic: StatisticOutput): string {
   return `${page}line ${statistic.location.line}, column ${statistic.location.column}`;
 }
 
-function plural(count: number, one: string, many = `${one}s`): string {
-  return `${count} ${count === 1 ? one : many}`;
-}
-
 function findingLine(finding: FindingOutput, indent: string): string {
   const crosses = finding.crossesAlpha ? ' (changes the conclusion at alpha)' : '';
   return `${indent}- **${finding.severity}** ${codeSpan(finding.rule)}${crosses}: ${escapeMarkdown(finding.message)}`;
@@ -64,7 +61,8 @@ function tablesNotReadLines(document: DocumentOutput, indent: string): string[] 
 
 function flaggedDocument(document: DocumentOutput): string[] {
   const flagged = document.statistics.filter((s) => s.findings.length > 0);
-  const lines = [`### ${codeSpan(document.path)}`, '', `${plural(document.statistics.length, 'result')}, ${flagged.length} flagged.`, ''];
+  const noResults = noResultsMessage(document);
+  const lines = [`### ${codeSpan(document.path)}`, '', `${documentResultsPhrase(document)}.${noResults === null ? '' : ` ${escapeMarkdown(noResults)}`}`, ''];
   if (document.findings.length > 0) {
     lines.push('- About the document as a whole:');
     for (const finding of document.findings) lines.push(findingLine(finding, '  '));
@@ -86,13 +84,11 @@ function hasFlags(document: DocumentOutput): boolean {
 export function formatMarkdown(report: Report): string {
   const { summary } = report;
   const lines: string[] = ['## plumbline audit summary', ''];
-  const counts = `${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`;
+  // Results (what was read) and findings (what the rules say of them) are counted apart.
   lines.push(
-    `**Totals:** ${plural(summary.documents, 'document')} (${summary.checked} checked, ${summary.unreadable} unreadable), ` +
-      `${plural(summary.statistics, 'result')} found (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ` +
-      `${summary.flaggedStatistics} flagged (${counts}); ` +
-      `${summary.crossesAlpha} ${summary.crossesAlpha === 1 ? 'flag changes' : 'flags change'} the conclusion at alpha; ` +
-      `${plural(summary.tablesNotRead, 'results table')} not read.`,
+    `**Totals:** ${documentsPhrase(summary)}; ${resultsPhrase(summary)}; ${findingsPhrase(summary)}; ` +
+      `${crossesAlphaPhrase(summary) ?? 'no finding changes the conclusion at alpha'}; ` +
+      `${countOf(summary.tablesNotRead, 'results table')} not read.`,
     '',
   );
 
@@ -105,7 +101,8 @@ export function formatMarkdown(report: Report): string {
   if (clean.length > 0) {
     lines.push('### Documents without flags', '');
     for (const document of clean) {
-      lines.push(`- ${codeSpan(document.path)}: ${plural(document.statistics.length, 'result')}, none flagged.`);
+      const noResults = noResultsMessage(document);
+      lines.push(`- ${codeSpan(document.path)}: ${noResults === null ? `${documentResultsPhrase(document)}.` : `0 results. ${escapeMarkdown(noResults)}`}`);
       lines.push(...tablesNotReadLines(document, '  '));
     }
     lines.push('');

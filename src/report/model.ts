@@ -17,6 +17,18 @@ export const findingSchema = z.object({
   messageId: z.string(),
   data: z.record(z.string(), z.union([z.string(), z.number()])),
   slip: z.string().optional().describe('A simple slip that reproduces the printed numbers, when one was found.'),
+  pDiscrepancy: z
+    .object({
+      size: z
+        .enum(['last-digit', 'moderate', 'order-of-magnitude'])
+        .describe(
+          '"last-digit": the printed p is within one unit of its last printed digit of a p that would agree (a p truncated instead of rounded, rounded the wrong way, a digit off by one); "order-of-magnitude": the printed p and the nearest recomputed p are a factor of 10 or more apart; "moderate": between the two.',
+        ),
+      factor: z.number().nullable().describe('How many times larger the larger of the printed p and the nearest recomputed p is (at least 1); null when the recomputed p is 0.'),
+      truncated: z.boolean().describe('True when the printed p is the recomputed p truncated at its last printed digit instead of rounded.'),
+    })
+    .optional()
+    .describe('Set on a finding about a printed p that does not follow from the statistic and df (p-value-mismatch): how large the discrepancy is.'),
 });
 
 export const locationSchema = z.object({
@@ -98,6 +110,13 @@ export const tableNotReadSchema = z
   })
   .describe('A table that looks like a results table (its header names a test statistic or p) whose results were not all read.');
 
+export const noResultsSchema = z
+  .object({
+    reason: z.enum(['empty', 'none-found']).describe('"empty": the document holds no text (only white space, markup or, in a PDF, images); "none-found": it has text but no reported result.'),
+    message: z.string(),
+  })
+  .describe('Set on a document that was read and holds no result, so a report says so rather than showing it as clean.');
+
 export const documentSchema = z.object({
   path: z.string(),
   status: z.enum(['checked', 'unreadable']),
@@ -107,6 +126,7 @@ export const documentSchema = z.object({
   statistics: z.array(statisticSchema),
   findings: z.array(findingSchema).describe('Findings about the document as a whole.'),
   tablesNotRead: z.array(tableNotReadSchema).default([]).describe('Results tables plumbline could not read in full: an audit must not look cleaner than it is.'),
+  noResults: noResultsSchema.optional(),
 });
 
 export const summarySchema = z.object({
@@ -134,6 +154,7 @@ export type StatisticOutput = z.infer<typeof statisticSchema>;
 export type DocumentOutput = z.infer<typeof documentSchema>;
 export type Summary = z.infer<typeof summarySchema>;
 export type TableNotReadOutput = z.infer<typeof tableNotReadSchema>;
+export type NoResultsOutput = z.infer<typeof noResultsSchema>;
 export type Report = z.infer<typeof reportSchema>;
 
 export { CAUTION } from './caution.js';

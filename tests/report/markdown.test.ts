@@ -62,9 +62,10 @@ describe('formatMarkdown', () => {
     const withFlags = report.documents.filter((d) => d.statistics.some((s) => s.findings.length > 0) || d.findings.length > 0);
     expect(headings).toEqual(withFlags.map((d) => d.path));
     const { summary } = report;
-    expect(md).toContain(`${summary.statistics} results found (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ${summary.flaggedStatistics} flagged`);
+    expect(md).toContain(`${summary.statistics} results (${summary.resultsInText} in text, ${summary.resultsInTables} in tables), ${summary.flaggedStatistics} of them flagged`);
     expect(md).toContain(`${summary.tablesNotRead} results tables not read`);
-    expect(md).toContain(`${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note`);
+    const findings = summary.findings.fail + summary.findings.warn + summary.findings.note;
+    expect(md).toContain(`; ${findings} findings (${summary.findings.fail} fail, ${summary.findings.warn} warn, ${summary.findings.note} note)`);
     expect(textOf(html.find((el) => el.name === 'blockquote')!).trim()).toBe(report.caution);
   });
 

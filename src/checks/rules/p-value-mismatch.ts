@@ -4,6 +4,7 @@ import { describeP, describeStatistic, describePRange, quoteFromDocument } from 
 import { formatP, formatRange } from '../format.js';
 import { crossesAlpha, pAgrees, printedSignificance, recomputedSignificance } from '../pAgreement.js';
 import { fitsOnlyWhenHalved, fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
+import { describeFactor, pDiscrepancy, type PDiscrepancy } from '../pDiscrepancy.js';
 import { describeAdjustment, judgeAdjustment, type AdjustmentVerdict } from '../pAdjustment.js';
 import { findSlips } from '../slips.js';
 
@@ -28,6 +29,20 @@ function adjustmentNote(verdict: AdjustmentVerdict): string {
   }
 }
 
+/** The sentence that says how large the discrepancy is: only the last digit, a factor, or an order of magnitude or more. */
+function sizeNote(discrepancy: PDiscrepancy): string {
+  switch (discrepancy.size) {
+    case 'last-digit':
+      return discrepancy.truncated
+        ? ' The printed p is off only in its last digit: it is the recomputed p truncated instead of rounded.'
+        : ' The printed p is off only in its last digit, by one.';
+    case 'moderate':
+      return ` The printed p is off by ${describeFactor(discrepancy.factor)}.`;
+    case 'order-of-magnitude':
+      return ` The printed p is off by an order of magnitude or more (${describeFactor(discrepancy.factor)}).`;
+  }
+}
+
 /** The reported p (or "n.s.") against the p recomputed from the statistic and df. */
 export const pValueMismatch: CheckModule<Options> = {
   id: 'p-value-mismatch',
@@ -35,7 +50,7 @@ export const pValueMismatch: CheckModule<Options> = {
   optionsSchema,
   messages: {
     mismatch:
-      '{statistic} gives p = {recomputedP} ({recomputedRange} allowing for rounding), but {printedP} is reported.{signNote}{adjustmentNote}{alphaNote}{slipNote}',
+      '{statistic} gives p = {recomputedP} ({recomputedRange} allowing for rounding), but {printedP} is reported.{sizeNote}{signNote}{adjustmentNote}{alphaNote}{slipNote}',
     notSignificantButIs:
       '{statistic} is marked not significant, but it gives p = {recomputedP} ({recomputedRange} allowing for rounding), below alpha = {alpha}.{adjustmentNote}',
   },
@@ -84,18 +99,21 @@ export const pValueMismatch: CheckModule<Options> = {
       .map((i) => ({ result: context.results[i]!, recomputation: context.recomputations[i]! }));
     const slips = searchSlips ? findSlips(result, neighbours, allowTruncatedP) : [];
     const firstSlip = slips[0];
+    const discrepancy = pDiscrepancy(result.p, comparedRange, allowTruncatedP);
     return [
       {
         messageId: 'mismatch',
         data: {
           ...base,
           printedP: describeP(result),
+          sizeNote: sizeNote(discrepancy),
           signNote: result.p.signLost ? ` The p's sign is missing in the text ("p ${result.p.value.text}") and was read as "${result.p.comparator}"; another sign may have been printed.` : '',
           adjustmentNote: adjustmentNote(verdict),
           alphaNote: crosses ? ` This changes the conclusion at alpha = ${context.alpha}.` : '',
           slipNote: firstSlip ? ` Possible slip: ${firstSlip.explanation}.` : '',
         },
         crossesAlpha: crosses,
+        pDiscrepancy: discrepancy,
         // An adjustment stated elsewhere in the document may not cover this result; a p whose sign was lost
         // is compared under a sign that was read, not printed.
         ...((verdict.kind === 'fits-neither' && verdict.adjustment.where === 'document') || result.p.signLost ? { severityAtMost: 'warn' as const } : {}),

@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { resolveConfig } from '../../../src/checks/config.js';
+import { checkResults } from '../../../src/checks/engine.js';
 import { checkedOf, emptyContext, findingsOf, flagsOf, result } from '../helpers.js';
 
 // Exact p-values quoted in comments were computed with SciPy 1.10.1
@@ -239,5 +241,35 @@ describe('p-value-mismatch: adjusted p-values', () => {
     // F(2, 57) = 4.21 -> p = 0.0197 (scipy.stats.f.sf, SciPy 1.10.1)
     const spec = { kind: 'F' as const, df: ['2', '57'], value: '4.21', p: '= .060', start: text.indexOf('F(2') };
     expect(flagsOf(rule, spec, context, text)[0]).toMatchObject({ rule, severity: 'fail' });
+  });
+});
+
+describe('p-value-mismatch: how large the discrepancy is', () => {
+  // F(2, 57) = 4.21 -> p = 0.0197, 0.0196 to 0.0198 over the rounding of F (scipy.stats.f.sf, SciPy 1.10.1).
+  it('a p off only in its last digit: said so, and pDiscrepancy "last-digit"', () => {
+    const [finding] = flagsOf(rule, { kind: 'F', df: ['2', '57'], value: '4.21', p: '= .018' });
+    expect(finding).toMatchObject({ severity: 'fail', pDiscrepancy: { size: 'last-digit', truncated: false } });
+    expect(finding!.message).toContain('The printed p is off only in its last digit, by one.');
+  });
+
+  it('a p off by a factor below ten: "moderate", with the factor', () => {
+    const [finding] = flagsOf(rule, { kind: 'F', df: ['2', '57'], value: '4.21', p: '= .012' });
+    expect(finding).toMatchObject({ pDiscrepancy: { size: 'moderate' } });
+    expect(finding!.message).toContain('The printed p is off by a factor of 1.6.');
+  });
+
+  it('a p off by an order of magnitude: "order-of-magnitude", with the factor', () => {
+    const [finding] = flagsOf(rule, { kind: 'F', df: ['2', '57'], value: '4.21', p: '= .001' });
+    expect(finding).toMatchObject({ pDiscrepancy: { size: 'order-of-magnitude', factor: expect.closeTo(19.6, 1) } });
+    expect(finding!.message).toContain('The printed p is off by an order of magnitude or more (a factor of 20).');
+  });
+
+  it('a p truncated instead of rounded, where the settings do not allow truncation, is said to be truncated', () => {
+    // t(28) = 2.21 -> two-tailed p = 0.0354 (0.0351 to 0.0358): ".03" is it truncated, ".04" rounded.
+    const config = resolveConfig({ rules: { 'p-value-mismatch': { options: { allowTruncatedP: false } } } });
+    const checked = checkResults('', { results: [result({ kind: 't', df: ['28'], value: '2.21', p: '= .03' })], context: emptyContext() }, config);
+    const [finding] = checked[0]!.findings.filter((f) => f.rule === rule);
+    expect(finding).toMatchObject({ pDiscrepancy: { size: 'last-digit', truncated: true } });
+    expect(finding!.message).toContain('it is the recomputed p truncated instead of rounded');
   });
 });
