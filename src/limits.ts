@@ -20,8 +20,23 @@ export interface Limits {
   maxDocumentMb: number;
   /** Plain-text (.txt, .md) files above this size, in MB, are scanned in chunks with bounded memory. */
   streamTextAboveMb: number;
-  /** Largest total uncompressed size of a DOCX's zip entries, in MB (a zip bomb is refused before it is inflated). */
+  /**
+   * Largest total uncompressed size of a DOCX's zip entries, in MB: the
+   * sizes the zip directory declares are added up before anything is
+   * inflated, and the bytes actually inflated are counted as they come out.
+   */
   maxUnzippedMb: number;
+  /** Largest uncompressed size of one zip entry of a DOCX, in MB, declared or inflated. */
+  maxUnzippedEntryMb: number;
+  /** Most entries in a DOCX's zip directory. */
+  maxZipEntries: number;
+  /**
+   * Most XML nodes (elements, attributes and runs of text) in the parts of a
+   * DOCX that are read (document, footnotes, styles...), counted while they
+   * are inflated: each costs the DOCX converter (mammoth) about 1 to 3 KB,
+   * and the default keeps its peak under 1 GB for every payload measured (bench/hostile.ts).
+   */
+  maxDocxXmlNodes: number;
   /**
    * Deepest nesting of elements in HTML, JATS XML and the HTML made from
    * DOCX, and of environments and groups (\begin, braces, \( and \[) in
@@ -32,6 +47,10 @@ export interface Limits {
   maxElements: number;
   /** Most pages read from one PDF. */
   maxPdfPages: number;
+  /** Largest decoded size of one stream of a PDF (a page's content, a font, an image), in MB, checked before the PDF is read. */
+  maxPdfStreamMb: number;
+  /** Largest decoded size of all the streams of a PDF together, in MB, checked before the PDF is read. */
+  maxPdfDecodedMb: number;
   /**
    * Longest time one document may take, in seconds, counted from the moment
    * a worker thread starts it (never its wait in the queue): a document
@@ -46,9 +65,14 @@ export const defaultLimits: Readonly<Limits> = Object.freeze({
   maxDocumentMb: 200,
   streamTextAboveMb: 64,
   maxUnzippedMb: 100,
+  maxUnzippedEntryMb: 50,
+  maxZipEntries: 10_000,
+  maxDocxXmlNodes: 250_000,
   maxNestingDepth: 1000,
   maxElements: 2_000_000,
   maxPdfPages: 5000,
+  maxPdfStreamMb: 128,
+  maxPdfDecodedMb: 2000,
   maxSecondsPerDocument: 120,
 });
 
@@ -57,9 +81,14 @@ export const limitDescriptions: Record<keyof Limits, { unit: string; what: strin
   maxDocumentMb: { unit: 'MB', what: 'document size' },
   streamTextAboveMb: { unit: 'MB', what: 'size above which text files are streamed' },
   maxUnzippedMb: { unit: 'MB', what: 'uncompressed size of a DOCX' },
+  maxUnzippedEntryMb: { unit: 'MB', what: 'uncompressed size of one part of a DOCX' },
+  maxZipEntries: { unit: 'entries', what: 'number of entries in a DOCX' },
+  maxDocxXmlNodes: { unit: 'nodes', what: 'XML nodes (elements, attributes, text) read from a DOCX' },
   maxNestingDepth: { unit: 'levels', what: 'nesting depth of elements (HTML, XML, DOCX) or environments and groups (LaTeX)' },
   maxElements: { unit: 'elements', what: 'number of elements' },
   maxPdfPages: { unit: 'pages', what: 'number of PDF pages' },
+  maxPdfStreamMb: { unit: 'MB', what: 'decoded size of one PDF stream' },
+  maxPdfDecodedMb: { unit: 'MB', what: 'decoded size of all the streams of a PDF' },
   maxSecondsPerDocument: { unit: 'seconds', what: 'time for one document' },
 };
 

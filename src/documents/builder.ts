@@ -41,9 +41,29 @@ export class TextBuilder {
   /**
    * Inline text: whitespace collapses to single spaces, none at line starts.
    * `sources`, when given, holds where each word (each run of non-space
-   * characters) starts in the file, in order.
+   * characters) starts in the file, in order: the words are then written one
+   * by one, each from its place. Without it, the words of one call are
+   * written as one part, joined by single spaces (what writing them one by
+   * one gives: a word never ends in a space or a newline), so a text node of
+   * millions of words costs one string, not two per word and an array of them.
    */
   inline(text: string, sources?: readonly number[]): void {
+    if (sources !== undefined) {
+      this.inlineFromSources(text, sources);
+      return;
+    }
+    const collapsed = collapseSpaces(text);
+    const startsWithSpace = collapsed.startsWith(' ');
+    const endsWithSpace = collapsed.length > 1 && collapsed.endsWith(' ');
+    if (startsWithSpace) this.spacePending = true;
+    const words = collapsed.slice(startsWithSpace ? 1 : 0, endsWithSpace ? -1 : collapsed.length);
+    if (words.length === 0) return;
+    this.writeWord(words);
+    if (endsWithSpace) this.spacePending = true;
+  }
+
+  /** Writes the words of `text` one by one, each from where `sources` says it starts in the file. */
+  private inlineFromSources(text: string, sources: readonly number[]): void {
     const pieces = text.split(/[ \t\n\r\f\v]+/);
     const startsWithSpace = /^[ \t\n\r\f\v]/.test(text);
     const endsWithSpace = /[ \t\n\r\f\v]$/.test(text);
@@ -51,7 +71,7 @@ export class TextBuilder {
     const words = pieces.filter((piece) => piece.length > 0);
     words.forEach((word, index) => {
       if (index > 0) this.spacePending = true;
-      const source = sources?.[index];
+      const source = sources[index];
       if (source !== undefined) this.from(source);
       this.writeWord(word);
     });
@@ -149,6 +169,41 @@ export class TextBuilder {
     while (trailing < text.length && text.charCodeAt(text.length - 1 - trailing) === 10) trailing++;
     this.trailingNewlines = trailing === text.length ? this.trailingNewlines + trailing : trailing;
   }
+}
+
+/** Whether a character code is one of the spaces HTML collapses: space, tab, newline, carriage return, form feed, vertical tab. */
+function isCollapsible(code: number): boolean {
+  return code === 32 || (code >= 9 && code <= 13);
+}
+
+/**
+ * `text` with every run of HTML's spaces ([ \t\n\r\f\v]+) written as one
+ * space: what text.replace(/[ \t\n\r\f\v]+/g, ' ') gives, without the
+ * memory that replace takes for millions of runs (gigabytes for 40 MB of
+ * "a a a ..."): pieces are joined in groups as they are cut.
+ */
+export function collapseSpaces(text: string): string {
+  if (!/[\t\n\r\f\v]| {2}/.test(text)) return text;
+  const groups: string[] = [];
+  let pieces: string[] = [];
+  let from = 0;
+  for (let index = 0; index < text.length; index++) {
+    if (!isCollapsible(text.charCodeAt(index))) continue;
+    let end = index + 1;
+    while (end < text.length && isCollapsible(text.charCodeAt(end))) end++;
+    if (end - index > 1 || text.charCodeAt(index) !== 32) {
+      pieces.push(text.slice(from, index), ' ');
+      from = end;
+      if (pieces.length >= 4096) {
+        groups.push(pieces.join(''));
+        pieces = [];
+      }
+    }
+    index = end - 1;
+  }
+  pieces.push(text.slice(from));
+  groups.push(pieces.join(''));
+  return groups.join('');
 }
 
 /**

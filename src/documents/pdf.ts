@@ -5,7 +5,8 @@ import { findReferenceListRegions } from './plainRegions.js';
 import { composePage, mayHoldTable, type ComposedPage } from './pdfCompose.js';
 import { locateWords, parseBboxPages, pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from './pdfWords.js';
 import type { DocumentTable, DocumentText, Region } from './types.js';
-import { defaultLimits, limitHint, type Limits } from '../limits.js';
+import { defaultLimits, formatMb, limitHint, MB, type Limits } from '../limits.js';
+import { checkPdfStreams, type PdfStreamLimits } from './pdfStreams.js';
 
 export { dehyphenate } from './pdfText.js';
 
@@ -91,13 +92,16 @@ export async function readPdf(
   path: string,
   bytes: Uint8Array,
   choice: PdfEngineChoice = 'auto',
-  limits: Pick<Limits, 'maxPdfPages' | 'maxSecondsPerDocument'> = defaultLimits,
+  limits: Pick<Limits, 'maxPdfPages' | 'maxSecondsPerDocument' | 'maxDocumentMb'> & PdfStreamLimits = defaultLimits,
 ): Promise<{ ok: true; document: DocumentText } | { ok: false; error: string }> {
   if (!hasEndOfFileMarker(bytes)) return { ok: false, error: 'truncated PDF: the end-of-file marker is missing, so the file was cut short (an interrupted download or copy?)' };
+  // Streams that would decode to gigabytes are refused before either engine decodes them (pdfStreams.ts).
+  const streams = await checkPdfStreams(bytes, limits);
+  if (streams !== null) return { ok: false, error: streams };
   const engine = resolvePdfEngine(choice);
   const extracted =
     engine === 'pdftotext'
-      ? await pagesWithPdftotext(path, limits.maxPdfPages, limits.maxSecondsPerDocument)
+      ? await pagesWithPdftotext(path, limits.maxPdfPages, limits.maxSecondsPerDocument, limits.maxDocumentMb)
       : await pagesWithPdfParse(bytes, limits.maxPdfPages);
   if (!extracted.ok) return extracted;
   if (extracted.pages.length === 0) return { ok: false, error: 'the PDF has no pages' };
@@ -352,21 +356,35 @@ function describePdfParseError(error: unknown): string {
  */
 const MAX_BBOX_BYTES = 256 * 1024 * 1024;
 
+/** The last bytes of pdftotext's standard error kept for a failure's message (it may write a warning for every object of a damaged PDF). */
+const STDERR_KEPT = 64 * 1024;
+
 /**
  * Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form
  * feeds; then, when a page may hold a table, `pdftotext -raw -bbox` for the
  * words' boxes, which are tied to the text page by page (a page whose words
  * cannot be tied is read without rebuilt tables).
+ *
+ * Both runs are bounded in time (the document's time budget: pdftotext is
+ * killed when it runs out) and in output: the text run is stopped once it
+ * has written more than `maxDocumentMb` MB (a text that long would be
+ * refused after reading anyway: it has at least as many bytes as
+ * characters), the word boxes past MAX_BBOX_BYTES (the PDF is then read
+ * without rebuilt tables). What pdftotext writes to its standard error is
+ * kept only as its last STDERR_KEPT bytes.
  */
-async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: number): Promise<PdfPagesOutcome> {
+async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: number, maxDocumentMb: number): Promise<PdfPagesOutcome> {
   const executable = findPdftotext();
   if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
   // One page past the limit is read, to tell a PDF at the limit from one over it.
   const common = ['-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-'];
   const started = Date.now();
-  const run = await runProcess(executable, ['-raw', ...common], maxSeconds * 1000);
+  const run = await runProcess(executable, ['-raw', ...common], maxSeconds * 1000, maxDocumentMb * MB);
   if (run.timedOut) return { ok: false, error: `pdftotext took longer than ${maxSeconds} s on this PDF and was stopped ${limitHint('maxSecondsPerDocument', maxSeconds)}` };
   if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
+  if (run.overflow) {
+    return { ok: false, error: `the extracted text is too long: pdftotext wrote more than ${formatMb(maxDocumentMb * MB)} of it and was stopped ${limitHint('maxDocumentMb', maxDocumentMb)}` };
+  }
   if (run.code !== 0) return { ok: false, error: describePdftotextFailure(run.code, run.stderr, path) };
   const pages = run.stdout.split('\f');
   // pdftotext ends every page with a form feed, so the last piece is what follows the last page.
@@ -421,7 +439,12 @@ function runProcess(executable: string, args: string[], timeoutMs: number, maxOu
       }
       out.push(chunk);
     });
-    child.stderr.on('data', (chunk: Buffer) => err.push(chunk));
+    let errBytes = 0;
+    child.stderr.on('data', (chunk: Buffer) => {
+      err.push(chunk);
+      errBytes += chunk.length;
+      while (errBytes - err[0]!.length >= STDERR_KEPT) errBytes -= err.shift()!.length;
+    });
     child.on('error', (error) => {
       clearTimeout(timer);
       resolve({ code: null, stdout: '', stderr: '', spawnError: error.message, timedOut: false, overflow: false });

@@ -1,73 +1,293 @@
-import { inflateRawSync } from 'node:zlib';
-import { formatMb, limitHint, MB } from '../limits.js';
+import { crc32, createInflateRaw } from 'node:zlib';
+import { formatMb, limitHint, MB, type Limits } from '../limits.js';
+import { DocumentLimitError } from './markupLimits.js';
 
 /**
- * Guards against zip bombs before a DOCX reaches mammoth, which inflates
- * whole parts in memory: a part of a few kilobytes may expand to gigabytes.
+ * The zip reader of DOCX files, bounded before it allocates. mammoth reads
+ * the parts of a DOCX through the archive this module opens (mammoth's
+ * `{ file }` input: `exists(name)` and `read(name, encoding)`), so what is
+ * checked here is exactly what mammoth reads; no other zip reader sees the
+ * file.
  *
- * Two steps, both bounded by the limit `maxUnzippedMb`:
- * 1. The central directory's declared uncompressed sizes are added up
- *    (zip64 sizes included); above the limit the file is refused without
- *    inflating anything.
- * 2. Each entry is inflated with zlib's output capped at its declared size
- *    (and at what is left of the limit), so an entry that lies about its size
- *    is caught after at most the limit's worth of output, not after it has
- *    filled memory.
+ * 1. The central directory is walked entry by entry from where it starts
+ *    until its entries end. The end record gives only the start: its entry
+ *    count is not trusted (a count of 0 or 1 must not hide the entries after
+ *    it), and when bytes were put before the first entry without shifting
+ *    the offsets (self-extracting archives do this) the start and every
+ *    entry are found by the shift the end record's position reveals, as zip
+ *    readers do. A directory that cannot be walked (no entry where the end
+ *    record places it, an entry whose data is not where it says, or that
+ *    runs past the file) is refused with the reason: it is not guessed at.
+ * 2. Before anything is inflated: at most `maxZipEntries` entries, each
+ *    declaring at most `maxUnzippedEntryMb`, all together at most
+ *    `maxUnzippedMb`.
+ * 3. A part is inflated only when mammoth reads it, as a stream whose bytes
+ *    are counted as they come out: inflating stops past the part's declared
+ *    size (a part that lies about its size), past `maxUnzippedEntryMb`, or
+ *    when all the parts read so far pass `maxUnzippedMb`.
+ * 4. While a part that is read as text (the XML parts) is inflated, its XML
+ *    nodes (elements, attributes, runs of text) are counted; past
+ *    `maxDocxXmlNodes` for all the parts read, inflating stops. mammoth
+ *    parses each part into a tree at 1 to 3 KB a node, so a few hundred
+ *    kilobytes of "<w:p/>" repeated would otherwise take gigabytes.
  *
- * Returns null when the archive is within the limit, or the reason it is not.
- * An archive this reader cannot parse is left to mammoth, which reports it.
+ * Every refusal is a DocumentLimitError (a limit, with its name and how to
+ * raise it) or a ZipFormatError (an archive that cannot be read as a zip).
  */
-export function checkZipExpansion(bytes: Uint8Array, maxUnzippedMb: number): string | null {
-  const buffer = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const limit = maxUnzippedMb * MB;
-  const entries = readCentralDirectory(buffer);
-  if (entries === null) return null;
-  let declared = 0;
-  for (const entry of entries) declared += entry.uncompressedSize;
-  if (declared > limit) {
-    return `the DOCX would expand to ${formatMb(declared)} when unzipped (a zip bomb?) ${limitHint('maxUnzippedMb', maxUnzippedMb)}`;
-  }
-  let inflated = 0;
-  for (const entry of entries) {
-    if (entry.method !== DEFLATE) continue; // stored entries are as large as they look
-    const data = entryData(buffer, entry);
-    if (data === null) continue;
-    const cap = Math.min(entry.uncompressedSize, limit - inflated);
-    let size: number;
-    try {
-      size = inflateRawSync(data, { maxOutputLength: Math.max(1, cap + 1) }).length;
-    } catch (error) {
-      if ((error as NodeJS.ErrnoException).code === 'ERR_BUFFER_TOO_LARGE' || error instanceof RangeError) {
-        return `the DOCX part "${entry.name}" expands beyond the ${formatMb(entry.uncompressedSize)} its zip directory declares (a zip bomb?) ${limitHint('maxUnzippedMb', maxUnzippedMb)}`;
-      }
-      continue; // damaged data: mammoth will say so
-    }
-    if (size > cap) {
-      return `the DOCX part "${entry.name}" expands beyond the ${formatMb(entry.uncompressedSize)} its zip directory declares (a zip bomb?) ${limitHint('maxUnzippedMb', maxUnzippedMb)}`;
-    }
-    inflated += size;
-  }
-  return null;
+
+export type ZipLimits = Pick<Limits, 'maxUnzippedMb' | 'maxUnzippedEntryMb' | 'maxZipEntries' | 'maxDocxXmlNodes'>;
+
+/** A zip archive that cannot be walked or read: damaged, cut short, or made to mislead. */
+export class ZipFormatError extends Error {}
+
+interface ZipEntry {
+  name: string;
+  method: number;
+  flags: number;
+  compressedSize: number;
+  uncompressedSize: number;
+  /** Where the entry's data starts in the file (after its local header). */
+  dataStart: number;
 }
 
 const DEFLATE = 8;
+const STORED = 0;
 const END_OF_CENTRAL_DIRECTORY = 0x06054b50;
 const ZIP64_LOCATOR = 0x07064b50;
 const ZIP64_END = 0x06064b50;
 const CENTRAL_HEADER = 0x02014b50;
 const LOCAL_HEADER = 0x04034b50;
+/** Output chunks of the inflater: the counts are checked after each. */
+const INFLATE_CHUNK = 64 * 1024;
 
-interface ZipEntry {
-  name: string;
-  method: number;
-  compressedSize: number;
-  uncompressedSize: number;
-  localHeaderOffset: number;
+/**
+ * Opens a DOCX's zip archive within the limits; the archive inflates each
+ * part only when it is read. Returns the reason when the archive cannot be
+ * walked or declares too much.
+ */
+export function openZip(bytes: Uint8Array, limits: ZipLimits): { ok: true; archive: BoundedZip } | { ok: false; error: string } {
+  const buffer = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  let entries: ZipEntry[];
+  try {
+    entries = walkCentralDirectory(buffer, limits.maxZipEntries);
+  } catch (error) {
+    if (error instanceof ZipFormatError || error instanceof DocumentLimitError) return { ok: false, error: error.message };
+    throw error;
+  }
+  let declared = 0;
+  for (const entry of entries) {
+    if (entry.uncompressedSize > limits.maxUnzippedEntryMb * MB) {
+      return { ok: false, error: `the DOCX part "${entry.name}" would expand to ${formatMb(entry.uncompressedSize)} when unzipped (a zip bomb?) ${limitHint('maxUnzippedEntryMb', limits.maxUnzippedEntryMb)}` };
+    }
+    declared += entry.uncompressedSize;
+  }
+  if (declared > limits.maxUnzippedMb * MB) {
+    return { ok: false, error: `the DOCX would expand to ${formatMb(declared)} when unzipped (a zip bomb?) ${limitHint('maxUnzippedMb', limits.maxUnzippedMb)}` };
+  }
+  return { ok: true, archive: new BoundedZip(buffer, entries, limits) };
 }
 
-/** The entries of the central directory, or null when the archive's end records cannot be found or read. */
-function readCentralDirectory(buffer: Buffer): ZipEntry[] | null {
-  // The end record is in the last 22 + 65535 bytes (its comment is at most 65535 bytes).
+/**
+ * A walked archive, read part by part within the limits. Its `exists` and
+ * `read` are what mammoth asks of a zip file (mammoth's lib/zipfile.js):
+ * `read(name, encoding)` gives the part decoded with that encoding, or its
+ * bytes without one.
+ */
+export class BoundedZip {
+  private readonly byName = new Map<string, ZipEntry>();
+  private inflatedTotal = 0;
+  private nodesTotal = 0;
+  /** The first refusal: once a limit is passed, every part still inflating stops. */
+  private refusal: Error | null = null;
+
+  constructor(
+    private readonly buffer: Buffer,
+    entries: readonly ZipEntry[],
+    private readonly limits: ZipLimits,
+  ) {
+    // A name given twice is the later entry, as zip readers take it.
+    for (const entry of entries) if (!entry.name.endsWith('/')) this.byName.set(entry.name, entry);
+  }
+
+  /** The names of the entries that are files. */
+  names(): string[] {
+    return [...this.byName.keys()];
+  }
+
+  exists(name: string): boolean {
+    return this.byName.has(name);
+  }
+
+  async read(name: string, encoding?: string): Promise<string | Uint8Array> {
+    const entry = this.byName.get(name);
+    if (entry === undefined) throw new ZipFormatError(`the DOCX has no part "${name}"`);
+    const bytes = await this.inflate(entry, encoding !== undefined && encoding !== 'base64');
+    if (encoding === 'base64') return bytes.toString('base64');
+    if (encoding) return new TextDecoder(encoding).decode(bytes);
+    return new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  }
+
+  /** Never used to convert a document; mammoth's interface has it (for embedding a style map). */
+  write(): void {
+    throw new Error('the DOCX is read only');
+  }
+
+  /** The bytes of a part, inflated within the limits (its XML nodes counted when `xml`). */
+  private inflate(entry: ZipEntry, xml: boolean): Promise<Buffer> {
+    if (this.refusal !== null) return Promise.reject(this.refusal);
+    if (entry.flags & 1) return Promise.reject(new ZipFormatError(`the DOCX part "${entry.name}" is encrypted; save the document without a password and read that`));
+    const data = this.buffer.subarray(entry.dataStart, entry.dataStart + entry.compressedSize);
+    const counter = xml ? new XmlNodeCounter() : null;
+    // An empty part written as deflated, with no data at all: zip readers give it as empty.
+    if (entry.method === STORED || (entry.method === DEFLATE && entry.compressedSize === 0)) {
+      const failure = this.count(entry, data.length, data.length) ?? (counter === null ? null : this.countNodes(entry, counter, data, true));
+      return failure === null ? Promise.resolve(data) : Promise.reject(this.refuse(failure));
+    }
+    if (entry.method !== DEFLATE) {
+      return Promise.reject(new ZipFormatError(`the DOCX part "${entry.name}" is compressed with method ${entry.method}, which a DOCX does not use (only stored and deflated parts are read)`));
+    }
+    return new Promise((resolve, reject) => {
+      const inflater = createInflateRaw({ chunkSize: INFLATE_CHUNK });
+      const chunks: Buffer[] = [];
+      let size = 0;
+      let settled = false;
+      const fail = (error: Error): void => {
+        if (settled) return;
+        settled = true;
+        chunks.length = 0;
+        inflater.destroy();
+        reject(error);
+      };
+      inflater.on('data', (chunk: Buffer) => {
+        if (settled) return;
+        const failure = this.refusal ?? this.count(entry, size + chunk.length, chunk.length) ?? (counter === null ? null : this.countNodes(entry, counter, chunk, false));
+        if (failure !== null) return fail(this.refuse(failure));
+        size += chunk.length;
+        chunks.push(chunk);
+      });
+      inflater.on('error', (error) => fail(new ZipFormatError(`damaged DOCX: the part "${entry.name}" cannot be inflated (${error.message})`)));
+      inflater.on('end', () => {
+        if (settled) return;
+        const failure = counter === null ? null : this.countNodes(entry, counter, Buffer.alloc(0), true);
+        if (failure !== null) return fail(this.refuse(failure));
+        settled = true;
+        resolve(Buffer.concat(chunks, size));
+      });
+      inflater.end(data);
+    });
+  }
+
+  /** Adds `added` inflated bytes (the part now at `partSize`); the refusal when a size limit is passed. */
+  private count(entry: ZipEntry, partSize: number, added: number): Error | null {
+    if (partSize > entry.uncompressedSize) {
+      return new DocumentLimitError(
+        `the DOCX part "${entry.name}" expands beyond the ${formatMb(entry.uncompressedSize)} its zip directory declares (a zip bomb?) ${limitHint('maxUnzippedMb', this.limits.maxUnzippedMb)}`,
+      );
+    }
+    // The declared sizes were checked against both limits; these hold for parts whose sizes were not declared honestly.
+    if (partSize > this.limits.maxUnzippedEntryMb * MB) {
+      return new DocumentLimitError(`the DOCX part "${entry.name}" expands beyond ${formatMb(this.limits.maxUnzippedEntryMb * MB)} (a zip bomb?) ${limitHint('maxUnzippedEntryMb', this.limits.maxUnzippedEntryMb)}`);
+    }
+    this.inflatedTotal += added;
+    if (this.inflatedTotal > this.limits.maxUnzippedMb * MB) {
+      return new DocumentLimitError(`the DOCX expands beyond ${formatMb(this.limits.maxUnzippedMb * MB)} when unzipped (a zip bomb?) ${limitHint('maxUnzippedMb', this.limits.maxUnzippedMb)}`);
+    }
+    return null;
+  }
+
+  private countNodes(entry: ZipEntry, counter: XmlNodeCounter, chunk: Buffer, last: boolean): Error | null {
+    const before = counter.count;
+    counter.feed(chunk);
+    if (last) counter.finish();
+    this.nodesTotal += counter.count - before;
+    if (this.nodesTotal <= this.limits.maxDocxXmlNodes) return null;
+    const limit = this.limits.maxDocxXmlNodes.toLocaleString('en-US');
+    return new DocumentLimitError(
+      `too many elements: the XML read from this DOCX passes ${limit} nodes (elements, attributes and runs of text) in the part "${entry.name}" (a payload of tiny elements?) ${limitHint('maxDocxXmlNodes', this.limits.maxDocxXmlNodes)}`,
+    );
+  }
+
+  private refuse(error: Error): Error {
+    this.refusal ??= error;
+    return this.refusal;
+  }
+}
+
+/**
+ * Counts the nodes of XML as its bytes go by, in constant memory: each
+ * start tag (an element), each attribute (an "=" inside a start tag, out of
+ * quotes) and each run of text between tags (whitespace included: a parser
+ * keeps it as a text node). End tags, comments, processing instructions and
+ * declarations are not counted. Markup split between chunks is followed
+ * across them. Not a parser: it only bounds what a parser would build.
+ */
+export class XmlNodeCounter {
+  count = 0;
+  private state: 'text' | 'open' | 'tag' | 'double' | 'single' | 'skip' = 'text';
+  private textPending = false;
+
+  feed(bytes: Uint8Array): void {
+    let { state, textPending, count } = this;
+    for (let index = 0; index < bytes.length; index++) {
+      const byte = bytes[index]!;
+      switch (state) {
+        case 'text':
+          if (byte === 0x3c /* < */) {
+            if (textPending) count++;
+            textPending = false;
+            state = 'open';
+          } else textPending = true;
+          break;
+        case 'open':
+          if (byte === 0x2f /* / */ || byte === 0x21 /* ! */ || byte === 0x3f /* ? */) state = 'skip';
+          else {
+            count++;
+            state = byte === 0x3e /* > */ ? 'text' : 'tag';
+          }
+          break;
+        case 'tag':
+          if (byte === 0x22 /* " */) state = 'double';
+          else if (byte === 0x27 /* ' */) state = 'single';
+          else if (byte === 0x3d /* = */) count++;
+          else if (byte === 0x3e /* > */) state = 'text';
+          break;
+        case 'double':
+          if (byte === 0x22) state = 'tag';
+          break;
+        case 'single':
+          if (byte === 0x27) state = 'tag';
+          break;
+        case 'skip':
+          if (byte === 0x3e) state = 'text';
+          break;
+      }
+    }
+    this.state = state;
+    this.textPending = textPending;
+    this.count = count;
+  }
+
+  /** Counts text after the last tag. */
+  finish(): void {
+    if (this.textPending) this.count++;
+    this.textPending = false;
+  }
+}
+
+// ---------------------------------------------------------------------------
+// The central directory
+// ---------------------------------------------------------------------------
+
+/** Where the directory ends (the zip64 end record or the end record) and where the end record places its start. */
+interface DirectoryBounds {
+  end: number;
+  declaredOffset: number;
+  declaredSize: number;
+}
+
+function findEndRecord(buffer: Buffer): DirectoryBounds {
+  if (buffer.length < 22) throw new ZipFormatError('damaged DOCX: the file is too short to be a zip archive');
+  // The end record is in the last 22 + 65535 bytes (its comment is at most 65535 bytes long); the last one found is taken.
   const lowest = Math.max(0, buffer.length - 22 - 0xffff);
   let end = -1;
   for (let at = buffer.length - 22; at >= lowest; at--) {
@@ -76,69 +296,117 @@ function readCentralDirectory(buffer: Buffer): ZipEntry[] | null {
       break;
     }
   }
-  if (end === -1) return null;
-  let count = buffer.readUInt16LE(end + 10);
-  let directorySize = buffer.readUInt32LE(end + 12);
-  let directoryOffset = buffer.readUInt32LE(end + 16);
-  if ((count === 0xffff || directoryOffset === 0xffffffff || directorySize === 0xffffffff) && end >= 20 && buffer.readUInt32LE(end - 20) === ZIP64_LOCATOR) {
-    const zip64End = Number(buffer.readBigUInt64LE(end - 20 + 8));
-    if (zip64End + 56 > buffer.length || buffer.readUInt32LE(zip64End) !== ZIP64_END) return null;
-    count = Number(buffer.readBigUInt64LE(zip64End + 32));
-    directorySize = Number(buffer.readBigUInt64LE(zip64End + 40));
-    directoryOffset = Number(buffer.readBigUInt64LE(zip64End + 48));
+  if (end === -1) throw new ZipFormatError('damaged DOCX: its zip archive has no end record (the file was cut short?), so its directory cannot be found');
+  const count = buffer.readUInt16LE(end + 10);
+  const size = buffer.readUInt32LE(end + 12);
+  const offset = buffer.readUInt32LE(end + 16);
+  if (count === 0xffff || size === 0xffffffff || offset === 0xffffffff) {
+    if (end >= 20 && buffer.readUInt32LE(end - 20) === ZIP64_LOCATOR) {
+      const zip64End = Number(buffer.readBigUInt64LE(end - 20 + 8));
+      // Bytes put before the archive shift the zip64 end record too; it sits right before its locator.
+      const candidates = [zip64End, end - 20 - 56];
+      for (const at of candidates) {
+        if (at >= 0 && at + 56 <= buffer.length && buffer.readUInt32LE(at) === ZIP64_END) {
+          return { end: at, declaredSize: Number(buffer.readBigUInt64LE(at + 40)), declaredOffset: Number(buffer.readBigUInt64LE(at + 48)) };
+        }
+      }
+      throw new ZipFormatError('damaged DOCX: its zip64 end record is missing, so its directory cannot be found');
+    }
   }
-  if (directoryOffset + directorySize > buffer.length) return null;
+  return { end, declaredSize: size, declaredOffset: offset };
+}
+
+/**
+ * Every entry of the central directory, found by walking it from its start
+ * until the entries end (the end record's entry count is not trusted), each
+ * with its local header checked. Throws ZipFormatError when the directory
+ * cannot be walked, DocumentLimitError past `maxEntries`.
+ */
+function walkCentralDirectory(buffer: Buffer, maxEntries: number): ZipEntry[] {
+  const bounds = findEndRecord(buffer);
+  // Bytes before the first entry (with offsets not counting them) shift the directory and every entry by as much.
+  const shifted = bounds.end - bounds.declaredSize;
+  const isHeader = (at: number): boolean => at >= 0 && at + 46 <= bounds.end && buffer.readUInt32LE(at) === CENTRAL_HEADER;
+  const start = isHeader(bounds.declaredOffset) ? bounds.declaredOffset : isHeader(shifted) ? shifted : -1;
+  if (start === -1) {
+    throw new ZipFormatError(
+      `damaged DOCX: its zip directory cannot be walked: the end record places it at byte ${bounds.declaredOffset.toLocaleString('en-US')}, where no directory entry starts`,
+    );
+  }
+  const shift = start - bounds.declaredOffset;
   const entries: ZipEntry[] = [];
-  let at = directoryOffset;
-  for (let index = 0; index < count; index++) {
-    if (at + 46 > buffer.length || buffer.readUInt32LE(at) !== CENTRAL_HEADER) return entries.length > 0 ? entries : null;
+  for (let at = start; at + 4 <= bounds.end && buffer.readUInt32LE(at) === CENTRAL_HEADER; ) {
+    if (at + 46 > bounds.end) throw new ZipFormatError(`damaged DOCX: the zip directory entry at byte ${at.toLocaleString('en-US')} runs past the directory's end`);
+    if (entries.length >= maxEntries) {
+      throw new DocumentLimitError(`the DOCX's zip directory holds more than ${maxEntries.toLocaleString('en-US')} entries ${limitHint('maxZipEntries', maxEntries)}`);
+    }
+    const flags = buffer.readUInt16LE(at + 8);
     const nameLength = buffer.readUInt16LE(at + 28);
     const extraLength = buffer.readUInt16LE(at + 30);
     const commentLength = buffer.readUInt16LE(at + 32);
-    const entry: ZipEntry = {
-      name: buffer.toString('utf8', at + 46, Math.min(buffer.length, at + 46 + nameLength)),
-      method: buffer.readUInt16LE(at + 10),
+    const next = at + 46 + nameLength + extraLength + commentLength;
+    if (next > bounds.end) throw new ZipFormatError(`damaged DOCX: the zip directory entry at byte ${at.toLocaleString('en-US')} runs past the directory's end`);
+    const rawName = buffer.subarray(at + 46, at + 46 + nameLength);
+    const sizes = {
       compressedSize: buffer.readUInt32LE(at + 20),
       uncompressedSize: buffer.readUInt32LE(at + 24),
       localHeaderOffset: buffer.readUInt32LE(at + 42),
     };
-    readZip64Extra(buffer, at + 46 + nameLength, extraLength, entry);
-    entries.push(entry);
-    at += 46 + nameLength + extraLength + commentLength;
+    const extra = buffer.subarray(at + 46 + nameLength, at + 46 + nameLength + extraLength);
+    readZip64Extra(extra, sizes);
+    const name = entryName(rawName, flags, extra);
+    const local = sizes.localHeaderOffset + shift;
+    if (local < 0 || local + 30 > buffer.length || buffer.readUInt32LE(local) !== LOCAL_HEADER) {
+      throw new ZipFormatError(`damaged DOCX: the zip entry "${name}" is not where its directory says (byte ${local.toLocaleString('en-US')})`);
+    }
+    const dataStart = local + 30 + buffer.readUInt16LE(local + 26) + buffer.readUInt16LE(local + 28);
+    if (dataStart + sizes.compressedSize > buffer.length) throw new ZipFormatError(`damaged DOCX: the zip entry "${name}" runs past the end of the file (cut short?)`);
+    entries.push({ name, method: buffer.readUInt16LE(at + 10), flags, compressedSize: sizes.compressedSize, uncompressedSize: sizes.uncompressedSize, dataStart });
+    at = next;
   }
+  if (entries.length === 0) throw new ZipFormatError('damaged DOCX: its zip directory holds no entries');
   return entries;
 }
 
 /** Sizes and offsets of 0xFFFFFFFF are in the zip64 extra field (id 1), in this order, each only when needed. */
-function readZip64Extra(buffer: Buffer, from: number, length: number, entry: ZipEntry): void {
-  const to = Math.min(buffer.length, from + length);
-  for (let at = from; at + 4 <= to; ) {
-    const id = buffer.readUInt16LE(at);
-    const size = buffer.readUInt16LE(at + 2);
+function readZip64Extra(extra: Buffer, sizes: { compressedSize: number; uncompressedSize: number; localHeaderOffset: number }): void {
+  for (let at = 0; at + 4 <= extra.length; ) {
+    const id = extra.readUInt16LE(at);
+    const size = extra.readUInt16LE(at + 2);
     if (id === 1) {
       let field = at + 4;
-      const next = (): number | null => {
-        if (field + 8 > Math.min(to, at + 4 + size)) return null;
-        const value = Number(buffer.readBigUInt64LE(field));
+      const next = (): number => {
+        if (field + 8 > Math.min(extra.length, at + 4 + size)) return Number.MAX_SAFE_INTEGER;
+        const value = Number(extra.readBigUInt64LE(field));
         field += 8;
         return value;
       };
-      if (entry.uncompressedSize === 0xffffffff) entry.uncompressedSize = next() ?? Number.MAX_SAFE_INTEGER;
-      if (entry.compressedSize === 0xffffffff) entry.compressedSize = next() ?? Number.MAX_SAFE_INTEGER;
-      if (entry.localHeaderOffset === 0xffffffff) entry.localHeaderOffset = next() ?? Number.MAX_SAFE_INTEGER;
+      if (sizes.uncompressedSize === 0xffffffff) sizes.uncompressedSize = next();
+      if (sizes.compressedSize === 0xffffffff) sizes.compressedSize = next();
+      if (sizes.localHeaderOffset === 0xffffffff) sizes.localHeaderOffset = next();
       return;
     }
     at += 4 + size;
   }
-  // A zip64 marker without its extra field: take the size as unknown and large.
-  if (entry.uncompressedSize === 0xffffffff) entry.uncompressedSize = Number.MAX_SAFE_INTEGER;
+  // A zip64 marker without its extra field: the size is unknown, so taken as large.
+  if (sizes.uncompressedSize === 0xffffffff) sizes.uncompressedSize = Number.MAX_SAFE_INTEGER;
+  if (sizes.compressedSize === 0xffffffff) sizes.compressedSize = Number.MAX_SAFE_INTEGER;
 }
 
-/** The compressed bytes of an entry, or null when its local header is not where the directory says. */
-function entryData(buffer: Buffer, entry: ZipEntry): Buffer | null {
-  const at = entry.localHeaderOffset;
-  if (at + 30 > buffer.length || buffer.readUInt32LE(at) !== LOCAL_HEADER) return null;
-  const start = at + 30 + buffer.readUInt16LE(at + 26) + buffer.readUInt16LE(at + 28);
-  if (start > buffer.length) return null;
-  return buffer.subarray(start, Math.min(buffer.length, start + entry.compressedSize));
+/**
+ * An entry's name as zip readers (JSZip, which mammoth used) give it: UTF-8
+ * when the entry says so (flag bit 11), else from a Unicode path extra field
+ * (0x7075) that matches the name, else one character per byte.
+ */
+function entryName(raw: Buffer, flags: number, extra: Buffer): string {
+  if (flags & 0x800) return raw.toString('utf8');
+  for (let at = 0; at + 4 <= extra.length; ) {
+    const id = extra.readUInt16LE(at);
+    const size = extra.readUInt16LE(at + 2);
+    if (id === 0x7075 && size >= 5 && at + 4 + size <= extra.length && extra[at + 4] === 1 && extra.readUInt32LE(at + 5) === crc32(raw)) {
+      return extra.toString('utf8', at + 9, at + 4 + size);
+    }
+    at += 4 + size;
+  }
+  return raw.toString('latin1');
 }

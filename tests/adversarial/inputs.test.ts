@@ -7,7 +7,8 @@ import { auditFile } from '../../src/batch/auditFile.js';
 import { resolveConfig } from '../../src/checks/config.js';
 import { readDocument } from '../../src/documents/read.js';
 import { findPdftotext } from '../../src/documents/pdf.js';
-import { checkZipExpansion } from '../../src/documents/zipGuard.js';
+import { openZip } from '../../src/documents/zipGuard.js';
+import { defaultLimits } from '../../src/limits.js';
 import { deflatedZeros, pdfWithTextRuns, zipArchive } from './build.js';
 
 /**
@@ -104,7 +105,16 @@ describe('zip bombs in DOCX files', () => {
     expect(bomb.length).toBeLessThan(5_000_000);
     const outcome = await readDocument(file('bomb.docx', bomb));
     expect(outcome.ok ? '' : outcome.error).toBe(
-      'the DOCX would expand to 2147.5 MB when unzipped (a zip bomb?) (limit maxUnzippedMb = 100 MB; raise it with --limit maxUnzippedMb=<n> or "limits": {"maxUnzippedMb": <n>} in the settings file)',
+      'the DOCX part "word/document.xml" would expand to 2147.5 MB when unzipped (a zip bomb?) (limit maxUnzippedEntryMb = 50 MB; raise it with --limit maxUnzippedEntryMb=<n> or "limits": {"maxUnzippedEntryMb": <n>} in the settings file)',
+    );
+  });
+
+  it('parts each within the limit of one part, together over the total, are refused from the directory', async () => {
+    const zeros = await deflatedZeros(40);
+    const parts = zipArchive(['a', 'b', 'c'].map((name) => ({ name: `word/${name}.xml`, method: 8 as const, ...zeros })));
+    const outcome = await readDocument(file('parts.docx', parts));
+    expect(outcome.ok ? '' : outcome.error).toBe(
+      'the DOCX would expand to 125.8 MB when unzipped (a zip bomb?) (limit maxUnzippedMb = 100 MB; raise it with --limit maxUnzippedMb=<n> or "limits": {"maxUnzippedMb": <n>} in the settings file)',
     );
   });
 
@@ -115,12 +125,14 @@ describe('zip bombs in DOCX files', () => {
     expect(outcome.ok ? '' : outcome.error).toMatch(/^the DOCX part "word\/document\.xml" expands beyond the 0\.0 MB its zip directory declares \(a zip bomb\?\) \(limit maxUnzippedMb = 100 MB;/);
   });
 
-  it('a normal archive passes, and the check follows a raised limit', async () => {
+  it('a normal archive passes, and the check follows a changed limit', async () => {
     const zeros = await deflatedZeros(3);
     expect(inflateRawSync(zeros.data).equals(Buffer.alloc(3 << 20))).toBe(true);
     const archive = zipArchive([{ name: 'word/document.xml', method: 8, ...zeros }]);
-    expect(checkZipExpansion(archive, 100)).toBeNull();
-    expect(checkZipExpansion(archive, 2)).toMatch(/^the DOCX would expand to 3\.1 MB when unzipped/);
+    const opened = openZip(archive, defaultLimits);
+    expect(opened.ok).toBe(true);
+    if (opened.ok) expect(((await opened.archive.read('word/document.xml')) as Uint8Array).length).toBe(3 << 20);
+    expect(openZip(archive, { ...defaultLimits, maxUnzippedMb: 2 })).toEqual({ ok: false, error: expect.stringMatching(/^the DOCX would expand to 3\.1 MB when unzipped/) });
   });
 });
 
