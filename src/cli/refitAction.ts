@@ -90,7 +90,8 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
     if (!Number.isInteger(maxColumns) || maxColumns < 2) throw new UsageError(`--max-columns must be a whole number of at least 2, got "${options.maxColumns}"`);
     raw.maxColumns = maxColumns;
   }
-  const factors = { ...((raw.factors as Record<string, unknown> | undefined) ?? {}) };
+  // Keyed by column names, which may be "constructor" or "__proto__": objects without a prototype, so every name is an own key.
+  const factors = namedCopy(raw.factors, 'factors', options.spec);
   let covariates = [...((raw.covariates as string[] | undefined) ?? [])];
   for (const f of options.factor) {
     factors[f] ??= {};
@@ -102,7 +103,7 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   }
   raw.factors = factors;
   raw.covariates = covariates;
-  const missing = { ...((raw.missing as Record<string, unknown> | undefined) ?? {}) };
+  const missing = namedCopy(raw.missing, 'missing', options.spec);
   for (const entry of options.missing) {
     const eq = entry.indexOf('=');
     if (eq <= 0 || eq === entry.length - 1) {
@@ -112,6 +113,20 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   }
   raw.missing = missing;
   return raw as unknown as AnalysisSpecInput;
+}
+
+/**
+ * A copy of the spec file's object keyed by names (`field`), without a
+ * prototype: nothing inherited is read as a name, and a key "__proto__" is
+ * stored like any other instead of setting the prototype.
+ */
+function namedCopy(value: unknown, field: string, specFile: string | undefined): Record<string, unknown> {
+  const copy = Object.create(null) as Record<string, unknown>;
+  if (value === undefined) return copy;
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new UsageError(`--spec ${specFile ?? ''}: "${field}" must be an object keyed by column names, e.g. {"group": {}}`);
+  }
+  return Object.assign(copy, value);
 }
 
 function codesText(codes: unknown): string {

@@ -3,6 +3,7 @@ import { open } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
 import Papa from 'papaparse';
 import { RefitError, closestNames } from './errors.js';
+import { LineEndingsToLf } from './lineEndings.js';
 import { ShiftedColumn, parseCellNumber } from './numeric.js';
 import { isMissingCode, type MissingRule, type ResolvedSpec } from './spec.js';
 
@@ -68,7 +69,7 @@ async function firstLine(path: string): Promise<string> {
     const buffer = Buffer.alloc(65536);
     const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
     const text = buffer.subarray(0, bytesRead).toString('utf8').replace(/^\uFEFF/, '');
-    const nl = text.search(/\r?\n/);
+    const nl = text.search(/[\r\n]/); // CRLF, LF or a lone CR (lineEndings.ts)
     return nl < 0 ? text : text.slice(0, nl);
   } finally {
     await handle.close();
@@ -78,6 +79,19 @@ async function firstLine(path: string): Promise<string> {
 function unreadable(file: string, err: unknown): RefitError {
   const reason = err instanceof Error ? err.message : String(err);
   return new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${reason}).`, { file });
+}
+
+/**
+ * A cell without the white space around it (spaces, tabs, a stray CR,
+ * no-break spaces), so " a", "a " and "a" are one level and " " is empty.
+ * Most cells have none: the ends are looked at before anything is copied.
+ */
+export function trimCell(text: string): string {
+  if (text.length === 0) return text;
+  const first = text.charCodeAt(0);
+  const last = text.charCodeAt(text.length - 1);
+  // Code units up to 32 are ASCII white space and controls; above 127 may be Unicode white space.
+  return first <= 32 || last <= 32 || first > 127 || last > 127 ? text.trim() : text;
 }
 
 function isBlank(row: readonly string[]): boolean {
@@ -100,8 +114,10 @@ async function streamDelimited(path: string, consumer: RowConsumer): Promise<voi
   await new Promise<void>((resolve, reject) => {
     const stream = createReadStream(path, { encoding: 'utf8', highWaterMark: 1 << 17 });
     stream.on('error', (err) => reject(unreadable(file, err)));
-    Papa.parse<string[]>(stream as unknown as File, {
+    const lines = stream.pipe(new LineEndingsToLf());
+    Papa.parse<string[]>(lines as unknown as File, {
       delimiter,
+      newline: '\n',
       quoteChar: '"',
       header: false,
       dynamicTyping: false,
@@ -211,7 +227,7 @@ export interface VariableInfo {
   /** Factor levels (text codes) in analysis order; empty for numeric variables. */
   levels: string[];
   /** Display labels by level code (from the analysis description). */
-  labels: Record<string, string>;
+  labels: ReadonlyMap<string, string>;
   /** Numeric variables: the origin their deltas are measured from. */
   origin: number;
 }
@@ -238,7 +254,7 @@ export class VariableReader {
     declared: VariableKind | undefined,
     readonly declaredLevels: string[] | undefined,
     readonly missing: MissingRule | undefined,
-    readonly labels: Record<string, string>,
+    readonly labels: ReadonlyMap<string, string>,
   ) {
     this.kind = declared;
     if (declaredLevels) {
@@ -320,7 +336,7 @@ export class ModelFrameReader implements RowConsumer {
     this.decimalComma = opts.decimalComma;
     const { spec } = this.options;
     const renamed = names.slice();
-    for (const [from, to] of Object.entries(spec.rename)) {
+    for (const [from, to] of spec.rename) {
       const idx = renamed.indexOf(from);
       if (idx < 0) {
         throw new RefitError(
@@ -340,15 +356,16 @@ export class ModelFrameReader implements RowConsumer {
       seen.add(name);
     }
     const missingFor = (name: string): MissingRule | undefined => {
-      const oldName = Object.entries(spec.rename).find(([, to]) => to === name)?.[0];
+      let oldName: string | undefined;
+      for (const [from, to] of spec.rename) if (to === name) oldName = from;
       return spec.missingRules.get(name) ?? (oldName !== undefined ? spec.missingRules.get(oldName) : undefined);
     };
     const needed: Array<{ name: string; field: string }> = [{ name: spec.outcome, field: 'model' }];
     for (const t of spec.formula.terms) for (const v of t.variables) needed.push({ name: v, field: 'model' });
-    for (const f of Object.keys(spec.factors)) needed.push({ name: f, field: `factors.${f}` });
+    for (const f of spec.factors.keys()) needed.push({ name: f, field: `factors.${f}` });
     for (const c of spec.covariates) needed.push({ name: c, field: 'covariates' });
-    for (const m of Object.keys(spec.missing)) {
-      if (!renamed.includes(m) && !(m in spec.rename)) needed.push({ name: m, field: `missing.${m}` });
+    for (const m of spec.missing.keys()) {
+      if (!renamed.includes(m) && !spec.rename.has(m)) needed.push({ name: m, field: `missing.${m}` });
     }
     for (const { name, field } of needed) {
       if (!renamed.includes(name)) {
@@ -362,7 +379,7 @@ export class ModelFrameReader implements RowConsumer {
     const modelVars = [spec.outcome];
     for (const t of spec.formula.terms) for (const v of t.variables) if (!modelVars.includes(v)) modelVars.push(v);
     for (const name of modelVars) {
-      const factor = spec.factors[name];
+      const factor = spec.factors.get(name);
       const declared: VariableKind | undefined =
         name === spec.outcome || spec.covariates.includes(name) ? 'numeric' : factor ? 'factor' : undefined;
       const reader = new VariableReader(
@@ -370,7 +387,7 @@ export class ModelFrameReader implements RowConsumer {
         declared,
         factor?.levels?.map((l) => String(l).trim()),
         missingFor(name),
-        factor?.labels ?? {},
+        factor?.labels ?? new Map(),
       );
       reader.column = renamed.indexOf(name);
       this.variables.push(reader);
@@ -409,9 +426,7 @@ export class ModelFrameReader implements RowConsumer {
       let missing = false;
       for (let j = 0; j < nv; j++) {
         const v = vars[j]!;
-        let text = row[v.column]!;
-        const c0 = text.charCodeAt(0);
-        if (c0 === 32 || c0 === 9 || text.charCodeAt(text.length - 1) === 32) text = text.trim();
+        const text = trimCell(row[v.column]!);
         if (text === '' || text === 'NA') {
           missing = true;
           continue;
@@ -448,7 +463,7 @@ export class ModelFrameReader implements RowConsumer {
         // First complete row: every variable now has a kind. Re-read this row into the buffers.
         this.start();
         for (const v of vars) {
-          const text = row[v.column]!.trim();
+          const text = trimCell(row[v.column]!);
           if (v.kind === 'numeric') this.deltaBuf[v.slot] = v.shifted.delta(text, parseCellNumber(text, decimalComma));
           else this.levelBuf[v.slot] = v.level(text, this.file, firstRow + r);
         }

@@ -94,7 +94,7 @@ export function codingValue(coding: Coding, levels: number, level: number, colum
 }
 
 function describeLevel(v: VariableInfo, code: string): string {
-  const label = v.labels[code];
+  const label = v.labels.get(code);
   return label !== undefined ? `${code} (${label})` : code;
 }
 
