@@ -8,7 +8,7 @@ import { formatRefitHtml, formatRefitMarkdown, formatRefitText } from '../refit/
 import { fitModel } from '../refit/model.js';
 import { buildRefitOutput, type RefitResult } from '../refit/output.js';
 import { parseTermMap, readReported } from '../refit/reportedTable.js';
-import { parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
+import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
 import { EXIT_CLEAN, EXIT_FLAGGED, UsageError, type CliIo } from './common.js';
 
 /**
@@ -86,8 +86,10 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   if (options.type !== undefined) raw.type = Number(options.type);
   if (options.coding !== undefined) raw.coding = options.coding;
   if (options.maxColumns !== undefined) {
-    const maxColumns = Number(options.maxColumns);
-    if (!Number.isInteger(maxColumns) || maxColumns < 2) throw new UsageError(`--max-columns must be a whole number of at least 2, got "${options.maxColumns}"`);
+    const maxColumns = /^\d+$/.test(options.maxColumns.trim()) ? Number(options.maxColumns) : NaN;
+    if (!(maxColumns >= 2 && maxColumns <= MAX_COLUMNS_CEILING)) {
+      throw new UsageError(`--max-columns must be a whole number from 2 to ${MAX_COLUMNS_CEILING.toLocaleString('en-US')}, got "${options.maxColumns}" (${MAX_COLUMNS_CEILING_REASON})`);
+    }
     raw.maxColumns = maxColumns;
   }
   // Keyed by column names, which may be "constructor" or "__proto__": objects without a prototype, so every name is an own key.

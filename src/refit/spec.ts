@@ -19,11 +19,22 @@ import { parseCellNumber } from './numeric.js';
 
 /**
  * Default for maxColumns. Fitting time grows about with the cube of the
- * column count: a one-way design on 20,000 rows took 1 s with 500 columns,
- * 12 s with 1,000 and 140 s with 2,000 (2 cores, 2026). A four-way
- * factorial of five-level factors has 625 columns.
+ * column count: a one-way design on 20,000 rows took 17 s with 1,000
+ * columns, 95 s with 2,000 and 11 minutes with 4,000 (2 cores, 2026). A
+ * four-way factorial of five-level factors has 625 columns.
  */
 export const DEFAULT_MAX_COLUMNS = 1000;
+
+/**
+ * The most maxColumns may be raised to. The fit holds the triangular
+ * factor and a batch of cell blocks in memory (a one-way design of 4,000
+ * levels: 0.5 GB at its peak) and its time grows with the cube of the
+ * column count (11 minutes at 4,000); 200,000 columns would need
+ * terabytes and years, so a larger value is refused rather than tried.
+ */
+export const MAX_COLUMNS_CEILING = 4000;
+export const MAX_COLUMNS_CEILING_REASON =
+  'a wider fit needs hours and gigabytes of memory: its time grows with the cube of the number of columns and its memory with the square';
 
 const levelCode = z.union([z.string(), z.number()]);
 
@@ -80,7 +91,7 @@ export const analysisSpecSchema = z
      * identifier read as a factor) would make the fit take hours; past this
      * the refit stops with an error naming the factor.
      */
-    maxColumns: z.number().int().min(2).default(DEFAULT_MAX_COLUMNS),
+    maxColumns: z.number().int().min(2).max(MAX_COLUMNS_CEILING).default(DEFAULT_MAX_COLUMNS),
   })
   .strict();
 

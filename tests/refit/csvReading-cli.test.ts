@@ -176,3 +176,20 @@ describe.skipIf(!builtCliExists())('numbers', () => {
     expect(table([name, '--model', 'score ~ group + age', '--missing', 'age=16'])).toMatchObject({ droppedRows: 1 });
   });
 });
+
+describe.skipIf(!builtCliExists())('--max-columns', () => {
+  it('200000, which no fit can use, is refused with the allowed range instead of crashing', () => {
+    const run = refit([file('small.csv', `${plainLines.join('\n')}\n`), '--model', 'score ~ group', '--max-columns', '200000']);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toMatch(/^plumbline: --max-columns must be a whole number from 2 to 4,000, got "200000" \(a wider fit needs hours and gigabytes of memory/);
+  });
+
+  it('a model wider than any fit names the factor and does not suggest raising the limit past what can be fitted', () => {
+    const ids = file('ids.csv', `${['id,score', ...Array.from({ length: 10_000 }, (_, index) => `p${index % 5000},${(index * 7919) % 101}`)].join('\n')}\n`);
+    const run = refit([ids, '--model', 'score ~ id']);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain("The model has 5000 design columns, more than maxColumns = 1000. Factor 'id' has 5000 levels");
+    expect(run.stderr).toContain('fit a smaller model: refit fits at most 4,000 columns');
+    expect(run.stderr).not.toContain('--max-columns 5000');
+  });
+});
