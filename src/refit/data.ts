@@ -2,10 +2,12 @@ import { createReadStream } from 'node:fs';
 import { open } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
 import Papa from 'papaparse';
+import { xlsxLimits } from '../limits.js';
 import { RefitError, closestNames } from './errors.js';
 import { LineEndingsToLf } from './lineEndings.js';
 import { ShiftedColumn, parseCellNumber } from './numeric.js';
 import { isMissingCode, type MissingRule, type ResolvedSpec } from './spec.js';
+import { readXlsxSheet } from './xlsx.js';
 
 /**
  * Reading raw data: CSV/TSV (papaparse, streamed in chunks; the delimiter is
@@ -153,14 +155,7 @@ async function streamDelimited(path: string, consumer: RowConsumer): Promise<voi
 
 async function streamXlsx(path: string, consumer: RowConsumer): Promise<void> {
   const file = basename(path);
-  let sheet: unknown[][];
-  try {
-    // Loaded on demand: CSV-only runs do not pay for the spreadsheet reader.
-    const { readSheet } = await import('read-excel-file/node');
-    sheet = (await readSheet(path, { parseNumber: (s: string) => s })) as unknown[][];
-  } catch (err) {
-    throw unreadable(file, err);
-  }
+  const sheet = await readXlsxSheet(path, file, xlsxLimits);
   const rows = sheet.map((r) => r.map((c) => cellText(c as CellInput)));
   // Trailing empty columns that only pad the sheet are not columns.
   const header = rows[0];
