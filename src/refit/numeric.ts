@@ -29,7 +29,7 @@
  * "0o17"), "Infinity", and "" or blanks as 0; a cell written that way is a
  * code or a typo, not a measurement, so it is text here.
  */
-const DECIMAL_NUMBER = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
+const DECIMAL_NUMBER = /^[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?$/;
 
 /**
  * Strict decimal parse (DECIMAL_NUMBER). Returns NaN for anything else:
