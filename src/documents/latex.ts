@@ -3,6 +3,7 @@ import { collapseWhitespace, writeTable, type TableDraft } from './tables.js';
 import type { DocumentText } from './types.js';
 import { DocumentLimitError } from './markupLimits.js';
 import { defaultLimits, limitHint, type Limits } from '../limits.js';
+import { appendAll } from '../arrays.js';
 
 /**
  * LaTeX reader, hand-written on purpose: a real LaTeX "parser" has to run
@@ -570,7 +571,7 @@ function readTableFloat(body: string): TableDraft {
   for (let match = tabularPattern.exec(rest); match; match = tabularPattern.exec(rest)) {
     const name = match[1]!;
     const end = findEnvironmentEnd(rest, match.index + match[0].length, name);
-    rows.push(...readTabularRows(tabularBody(rest.slice(match.index + match[0].length, end), name)));
+    appendAll(rows, readTabularRows(tabularBody(rest.slice(match.index + match[0].length, end), name)));
     notesSource += rest.slice(cursor, match.index);
     cursor = Math.min(rest.length, end + `\\end{${name}}`.length);
     tabularPattern.lastIndex = cursor;

@@ -1,5 +1,6 @@
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
 import { visibleLine } from './visible.js';
+import { appendAll, extremes } from '../arrays.js';
 
 /**
  * A Markdown summary to paste into a review: the totals, then, for each
@@ -21,7 +22,7 @@ import { visibleLine } from './visible.js';
  */
 export function codeSpan(text: string): string {
   const flat = visibleLine(text);
-  const longest = Math.max(0, ...(flat.match(/`+/g) ?? []).map((run) => run.length));
+  const longest = extremes((flat.match(/`+/g) ?? []).map((run) => run.length))?.max ?? 0;
   const fence = '`'.repeat(longest + 1);
   const pad = flat.startsWith('`') || flat.endsWith('`') ? ' ' : '';
   return `${fence}${pad}${flat}${pad}${fence}`;
@@ -72,7 +73,7 @@ function flaggedDocument(document: DocumentOutput): string[] {
     lines.push(`- ${where(statistic)}: ${codeSpan(statistic.text)}`);
     for (const finding of statistic.findings) lines.push(findingLine(finding, '  '));
   }
-  lines.push(...tablesNotReadLines(document, ''));
+  appendAll(lines, tablesNotReadLines(document, ''));
   lines.push('');
   return lines;
 }
@@ -99,13 +100,13 @@ export function formatMarkdown(report: Report): string {
   const clean = report.documents.filter((d) => d.status === 'checked' && !hasFlags(d));
   const unreadable = report.documents.filter((d) => d.status === 'unreadable');
 
-  for (const document of flagged) lines.push(...flaggedDocument(document));
+  for (const document of flagged) appendAll(lines, flaggedDocument(document));
 
   if (clean.length > 0) {
     lines.push('### Documents without flags', '');
     for (const document of clean) {
       lines.push(`- ${codeSpan(document.path)}: ${plural(document.statistics.length, 'result')}, none flagged.`);
-      lines.push(...tablesNotReadLines(document, '  '));
+      appendAll(lines, tablesNotReadLines(document, '  '));
     }
     lines.push('');
   }
