@@ -1,9 +1,10 @@
 import * as fs from 'node:fs';
 import { realpathSync, type Dirent } from 'node:fs';
-import { readFile, stat } from 'node:fs/promises';
+import { stat } from 'node:fs/promises';
 import { basename, isAbsolute, relative, resolve, sep } from 'node:path';
 import { fdir } from 'fdir';
 import { supportedExtensions } from '../documents/formats.js';
+import { openRegularFile } from '../documents/regularFile.js';
 import { mapConcurrently } from './concurrently.js';
 
 export interface CollectedInputs {
@@ -13,11 +14,22 @@ export interface CollectedInputs {
   missing: { path: string; reason: string }[];
 }
 
-/** Reads a list file: one path per line; blank lines and lines starting with # are ignored. */
+/**
+ * Reads a list file: one path per line; blank lines and lines starting with
+ * # are ignored. Only a regular file is read (src/documents/regularFile.ts):
+ * a list named /dev/zero would never end and a FIFO would wait for ever, so
+ * either is refused with what it is.
+ */
 async function readListFile(path: string): Promise<{ ok: true; entries: string[] } | { ok: false; reason: string }> {
   let text: string;
   try {
-    text = await readFile(path, 'utf8');
+    const opened = await openRegularFile(path);
+    if (!opened.ok) return { ok: false, reason: `list file ${opened.error}` };
+    try {
+      text = await opened.handle.readFile('utf8');
+    } finally {
+      await opened.handle.close();
+    }
   } catch {
     return { ok: false, reason: 'list file not found or not readable' };
   }

@@ -1,6 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { mkdir, writeFile } from 'node:fs/promises';
 import { basename, dirname } from 'node:path';
+import { notRegularFileReason } from '../documents/regularFile.js';
 import { RefitError } from '../refit/errors.js';
 import { compareTables } from '../refit/compare.js';
 import { explainMismatch, impliedSampleSize, loadTable } from '../refit/explain.js';
@@ -139,6 +140,11 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
   if (options.format === 'docx' && options.output === undefined) throw new UsageError('--format docx writes a Word file: give it with --output <file.docx>');
   if (!existsSync(dataFile)) throw new UsageError(`${dataFile}: no such data file`);
   if (options.reported !== undefined && !existsSync(options.reported)) throw new UsageError(`--reported ${options.reported}: no such file`);
+  // A FIFO or a device named as data, description or report would wait for ever or never end: only regular files are read.
+  for (const [label, path] of [['', dataFile], ['--spec ', options.spec], ['--reported ', options.reported]] as const) {
+    const reason = path === undefined ? null : await notRegularFileReason(path);
+    if (reason !== null) throw new UsageError(`${label}${path}: ${reason}`);
+  }
   const spec = buildSpec(options);
   const map = parseTermMap(options.map);
   parseAnalysisSpec(spec); // validate before reading data

@@ -1,7 +1,7 @@
-import { createReadStream } from 'node:fs';
-import { open } from 'node:fs/promises';
+import type { FileHandle } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
 import Papa from 'papaparse';
+import { openRegularFile } from '../documents/regularFile.js';
 import { xlsxLimits } from '../limits.js';
 import { RefitError, closestNames } from './errors.js';
 import { LineEndingsToLf } from './lineEndings.js';
@@ -65,17 +65,12 @@ function cellText(value: CellInput): string {
   return value.toISOString();
 }
 
-async function firstLine(path: string): Promise<string> {
-  const handle = await open(path, 'r');
-  try {
-    const buffer = Buffer.alloc(65536);
-    const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
-    const text = buffer.subarray(0, bytesRead).toString('utf8').replace(/^\uFEFF/, '');
-    const nl = text.search(/[\r\n]/); // CRLF, LF or a lone CR (lineEndings.ts)
-    return nl < 0 ? text : text.slice(0, nl);
-  } finally {
-    await handle.close();
-  }
+async function firstLine(handle: FileHandle): Promise<string> {
+  const buffer = Buffer.alloc(65536);
+  const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
+  const text = buffer.subarray(0, bytesRead).toString('utf8').replace(/^\uFEFF/, '');
+  const nl = text.search(/[\r\n]/); // CRLF, LF or a lone CR (lineEndings.ts)
+  return nl < 0 ? text : text.slice(0, nl);
 }
 
 function unreadable(file: string, err: unknown): RefitError {
@@ -102,52 +97,73 @@ function isBlank(row: readonly string[]): boolean {
 
 async function streamDelimited(path: string, consumer: RowConsumer): Promise<void> {
   const file = basename(path);
+  // Only a regular file: /dev/zero named as data would stream for ever, a FIFO would wait for ever (src/documents/regularFile.ts).
+  let handle: FileHandle;
+  try {
+    const opened = await openRegularFile(path);
+    if (!opened.ok) throw new RefitError('UNREADABLE_FILE', `${file}: ${opened.error}.`, { file });
+    handle = opened.handle;
+  } catch (err) {
+    throw err instanceof RefitError ? err : unreadable(file, err);
+  }
   let line: string;
   try {
-    line = await firstLine(path);
+    line = await firstLine(handle);
   } catch (err) {
+    await handle.close();
     throw unreadable(file, err);
   }
-  if (line.trim() === '') throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
+  if (line.trim() === '') {
+    await handle.close();
+    throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
+  }
   const delimiter = detectDelimiter(line);
   let nextRow = 1; // row number of the next record (header = 1)
   let sawHeader = false;
   let failure: unknown;
-  await new Promise<void>((resolve, reject) => {
-    const stream = createReadStream(path, { encoding: 'utf8', highWaterMark: 1 << 17 });
-    stream.on('error', (err) => reject(unreadable(file, err)));
-    const lines = stream.pipe(new LineEndingsToLf());
-    Papa.parse<string[]>(lines as unknown as File, {
-      delimiter,
-      newline: '\n',
-      quoteChar: '"',
-      header: false,
-      dynamicTyping: false,
-      chunk: (results, parser) => {
-        if (failure !== undefined) return;
-        try {
-          let data = results.data;
-          const first = nextRow;
-          nextRow += data.length;
-          if (!sawHeader) {
-            if (data.length === 0) return;
-            const names = data[0]!.map((n, i) => (i === 0 ? n.replace(/^\uFEFF/, '') : n).trim());
-            consumer.header(names, file, { decimalComma: delimiter === ';' });
-            sawHeader = true;
-            data = data.slice(1);
-            consumer.rows(data, first + 1);
-          } else {
-            consumer.rows(data, first);
+  let closeStream = (): void => {};
+  try {
+    await new Promise<void>((resolve, reject) => {
+      // The stream closes the handle when it ends, fails or is destroyed.
+      const stream = handle.createReadStream({ start: 0, encoding: 'utf8', highWaterMark: 1 << 17 });
+      closeStream = () => stream.destroy();
+      stream.on('error', (err) => reject(unreadable(file, err)));
+      const lines = stream.pipe(new LineEndingsToLf());
+      Papa.parse<string[]>(lines as unknown as File, {
+        delimiter,
+        newline: '\n',
+        quoteChar: '"',
+        header: false,
+        dynamicTyping: false,
+        chunk: (results, parser) => {
+          if (failure !== undefined) return;
+          try {
+            let data = results.data;
+            const first = nextRow;
+            nextRow += data.length;
+            if (!sawHeader) {
+              if (data.length === 0) return;
+              const names = data[0]!.map((n, i) => (i === 0 ? n.replace(/^\uFEFF/, '') : n).trim());
+              consumer.header(names, file, { decimalComma: delimiter === ';' });
+              sawHeader = true;
+              data = data.slice(1);
+              consumer.rows(data, first + 1);
+            } else {
+              consumer.rows(data, first);
+            }
+          } catch (err) {
+            failure = err;
+            parser.abort();
           }
-        } catch (err) {
-          failure = err;
-          parser.abort();
-        }
-      },
-      complete: () => resolve(),
-      error: (err) => reject(unreadable(file, err)),
+        },
+        complete: () => resolve(),
+        error: (err) => reject(unreadable(file, err)),
+      });
     });
-  });
+  } finally {
+    // Once parsing stopped (at the end, or aborted on a bad row), the file is closed, not left to the garbage collector.
+    closeStream();
+  }
   if (failure !== undefined) throw failure;
   if (!sawHeader) throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
   consumer.end();
