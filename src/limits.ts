@@ -133,3 +133,33 @@ export function checkLimitValue(name: string, value: number): string | null {
   if (!Number.isFinite(value) || value <= 0) return `limit ${name} must be a positive number, got ${value}`;
   return null;
 }
+
+/**
+ * Limits on an .xlsx data file read by `plumbline refit`, checked before the
+ * sheet is parsed (src/refit/xlsx.ts). The spreadsheet reader holds the
+ * whole sheet in memory as rows of cells, every row padded to the widest
+ * one, and takes time that grows faster than the rows (200,000 rows of 5
+ * cells: 15 s and 0.35 GB; 600,000: a stack overflow after 100 s and 1 GB).
+ * A CSV file has no such limits: refit streams it. So above a limit the
+ * refusal names the file and suggests saving the sheet as CSV.
+ */
+export interface XlsxLimits {
+  /** Rows the first sheet spans (the last row number its rows and cells give). */
+  maxRows: number;
+  /** Columns it spans (the last column any cell names). */
+  maxColumns: number;
+  /** Rows times columns: the cells the reader lays out, empty ones included. */
+  maxCells: number;
+  /** Distinct texts in the shared-strings part, all read into memory. */
+  maxSharedStrings: number;
+  /** Total size of the parts the reader unpacks (its XML), in MB, declared and as inflated. */
+  maxUnzippedMb: number;
+}
+
+export const xlsxLimits: Readonly<XlsxLimits> = Object.freeze({
+  maxRows: 200_000,
+  maxColumns: 1_000,
+  maxCells: 2_000_000,
+  maxSharedStrings: 1_000_000,
+  maxUnzippedMb: 100,
+});

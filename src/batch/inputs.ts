@@ -1,9 +1,10 @@
 import * as fs from 'node:fs';
 import { realpathSync, type Dirent } from 'node:fs';
-import { readFile, stat } from 'node:fs/promises';
+import { stat } from 'node:fs/promises';
 import { basename, isAbsolute, relative, resolve, sep } from 'node:path';
 import { fdir } from 'fdir';
 import { supportedExtensions } from '../documents/formats.js';
+import { openRegularFile } from '../documents/regularFile.js';
 import { mapConcurrently } from './concurrently.js';
 
 export interface CollectedInputs {
@@ -13,17 +14,31 @@ export interface CollectedInputs {
   missing: { path: string; reason: string }[];
 }
 
-/** Reads a list file: one path per line; blank lines and lines starting with # are ignored. */
-async function readListFile(path: string): Promise<string[] | null> {
+/**
+ * Reads a list file: one path per line; blank lines and lines starting with
+ * # are ignored. Only a regular file is read (src/documents/regularFile.ts):
+ * a list named /dev/zero would never end and a FIFO would wait for ever, so
+ * either is refused with what it is.
+ */
+async function readListFile(path: string): Promise<{ ok: true; entries: string[] } | { ok: false; reason: string }> {
+  let text: string;
   try {
-    const text = await readFile(path, 'utf8');
-    return text
-      .split(/\r?\n/)
-      .map((line) => line.trim())
-      .filter((line) => line !== '' && !line.startsWith('#'));
+    const opened = await openRegularFile(path);
+    if (!opened.ok) return { ok: false, reason: `list file ${opened.error}` };
+    try {
+      text = await opened.handle.readFile('utf8');
+    } finally {
+      await opened.handle.close();
+    }
   } catch {
-    return null;
+    return { ok: false, reason: 'list file not found or not readable' };
   }
+  const entries: string[] = [];
+  for (const line of text.split(/\r?\n/)) {
+    const entry = line.trim();
+    if (entry !== '' && !entry.startsWith('#')) entries.push(entry);
+  }
+  return { ok: true, entries };
 }
 
 const supported = new Set(supportedExtensions);
@@ -143,7 +158,17 @@ async function identityOf(path: string): Promise<{ id: string; folder: boolean }
   }
 }
 
-/** At most this many stat calls in flight while telling files apart. */
+/** Whether a named path is a folder, something else, or nothing that can be read (with the reason). */
+async function kindOf(absolute: string): Promise<{ folder: boolean; reason: null } | { folder: null; reason: string }> {
+  try {
+    return { folder: (await stat(absolute)).isDirectory(), reason: null };
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    return { folder: null, reason: code === 'ENOENT' || code === 'ENOTDIR' || !code ? 'no such file or folder' : `cannot open (${code})` };
+  }
+}
+
+/** At most this many stat calls in flight while telling what paths are and which are the same file. */
 const IDENTITY_CHECKS_AT_ONCE = 64;
 
 /**
@@ -184,27 +209,34 @@ export async function collectInputs(args: readonly string[], bases: readonly str
   const here = bases[0]!;
   const candidates: { absolute: string; explicit: boolean }[] = [];
   const missing: CollectedInputs['missing'] = [];
-  const pending = [...args];
-  while (pending.length > 0) {
-    const arg = pending.shift()!;
-    if (arg.startsWith('@')) {
-      const list = resolve(here, arg.slice(1));
-      const listed = await readListFile(list);
-      if (listed === null) missing.push({ path: reportedPath(list, bases), reason: 'list file not found or not readable' });
-      else pending.unshift(...listed.filter((entry) => !entry.startsWith('@')));
+  // Every array here may hold hundreds of thousands of paths (a folder or a list of a whole corpus):
+  // they are walked one by one, never spread into a call, which overflows the stack near 120,000.
+  // What each named path is, is asked of the file system many paths at a time.
+  const kinds = (paths: readonly string[]) => mapConcurrently(paths, IDENTITY_CHECKS_AT_ONCE, (path) => kindOf(resolve(here, path)));
+  // Then taken in the order given: a folder's documents take its place.
+  const add = async (paths: readonly string[]): Promise<void> => {
+    const found = await kinds(paths);
+    for (let index = 0; index < paths.length; index++) {
+      const absolute = resolve(here, paths[index]!);
+      const kind = found[index]!;
+      if (kind.folder === null) missing.push({ path: reportedPath(absolute, bases), reason: kind.reason });
+      else if (kind.folder) for (const path of await documentsUnder(absolute)) candidates.push({ absolute: path, explicit: false });
+      else candidates.push({ absolute, explicit: true });
+    }
+  };
+  for (const arg of args) {
+    if (!arg.startsWith('@')) {
+      await add([arg]);
       continue;
     }
-    const absolute = resolve(here, arg);
-    let info;
-    try {
-      info = await stat(absolute);
-    } catch (error) {
-      const code = (error as NodeJS.ErrnoException).code;
-      missing.push({ path: reportedPath(absolute, bases), reason: code === 'ENOENT' || code === 'ENOTDIR' || !code ? 'no such file or folder' : `cannot open (${code})` });
+    // A list's entries take its place in the order of the arguments; a list does not name other lists.
+    const list = resolve(here, arg.slice(1));
+    const listed = await readListFile(list);
+    if (!listed.ok) {
+      missing.push({ path: reportedPath(list, bases), reason: listed.reason });
       continue;
     }
-    if (info.isDirectory()) candidates.push(...(await documentsUnder(absolute)).map((path) => ({ absolute: path, explicit: false })));
-    else candidates.push({ absolute, explicit: true });
+    await add(listed.entries.filter((entry) => !entry.startsWith('@')));
   }
   const missingOnce = [...new Map(missing.map((entry) => [entry.path, entry])).values()];
   return { files: await distinctFiles(candidates, bases), missing: missingOnce };

@@ -13,6 +13,7 @@ import { entryJson, entryOf, internalErrorReason, type AuditEntry } from './entr
 import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 import { mapConcurrently } from './concurrently.js';
+import { appendAll } from '../arrays.js';
 
 export interface BatchOptions {
   files: readonly string[];
@@ -150,7 +151,7 @@ async function contentKey(path: string, size: number, fingerprint: string): Prom
 export async function runBatch(options: BatchOptions): Promise<void> {
   const pending: { path: string; key: string | null }[] = [];
   if (!options.cache) {
-    pending.push(...options.files.map((path) => ({ path, key: null })));
+    appendAll(pending, options.files.map((path) => ({ path, key: null })));
   } else {
     // Look up many files at once: the lookups wait on the disk, not the processor.
     const cache = options.cache;

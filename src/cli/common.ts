@@ -4,6 +4,7 @@ import { Option, type Command } from 'commander';
 import type { ResolvedConfig } from '../checks/config.js';
 import type { UserConfig } from '../checks/userConfig.js';
 import { documentOf, entryJson, entryOf, type AuditEntry } from '../batch/entry.js';
+import { notRegularFileReason } from '../documents/regularFile.js';
 import { buildReport, reportHead } from '../report/build.js';
 import { formatJsonParts } from '../report/json.js';
 import type { Report, Summary } from '../report/model.js';
@@ -42,6 +43,11 @@ export interface CommonOptions {
 
 /** The settings as plain data (they cross into worker threads) and where they came from. */
 export async function userConfigFrom(options: CommonOptions): Promise<{ userConfig: UserConfig; source: string }> {
+  if (options.config) {
+    // A settings file named /dev/zero would be read for ever, a FIFO would wait for ever: only a regular file is read.
+    const reason = await notRegularFileReason(options.config);
+    if (reason !== null) throw new UsageError(`--config ${options.config}: ${reason}`);
+  }
   // The validator (zod) loads only when there is a settings file to validate.
   const userConfig = options.config ? (await import('../checks/userConfig.js')).readUserConfigFile(options.config) : {};
   if (options.alpha === undefined) return { userConfig, source: options.config ?? 'defaults' };

@@ -1,6 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { mkdir, writeFile } from 'node:fs/promises';
 import { basename, dirname } from 'node:path';
+import { notRegularFileReason } from '../documents/regularFile.js';
 import { RefitError } from '../refit/errors.js';
 import { compareTables } from '../refit/compare.js';
 import { explainMismatch, impliedSampleSize, loadTable } from '../refit/explain.js';
@@ -8,7 +9,7 @@ import { formatRefitHtml, formatRefitMarkdown, formatRefitText } from '../refit/
 import { fitModel } from '../refit/model.js';
 import { buildRefitOutput, type RefitResult } from '../refit/output.js';
 import { parseTermMap, readReported } from '../refit/reportedTable.js';
-import { parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
+import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
 import { EXIT_CLEAN, EXIT_FLAGGED, UsageError, type CliIo } from './common.js';
 
 /**
@@ -86,11 +87,14 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   if (options.type !== undefined) raw.type = Number(options.type);
   if (options.coding !== undefined) raw.coding = options.coding;
   if (options.maxColumns !== undefined) {
-    const maxColumns = Number(options.maxColumns);
-    if (!Number.isInteger(maxColumns) || maxColumns < 2) throw new UsageError(`--max-columns must be a whole number of at least 2, got "${options.maxColumns}"`);
+    const maxColumns = /^\d+$/.test(options.maxColumns.trim()) ? Number(options.maxColumns) : NaN;
+    if (!(maxColumns >= 2 && maxColumns <= MAX_COLUMNS_CEILING)) {
+      throw new UsageError(`--max-columns must be a whole number from 2 to ${MAX_COLUMNS_CEILING.toLocaleString('en-US')}, got "${options.maxColumns}" (${MAX_COLUMNS_CEILING_REASON})`);
+    }
     raw.maxColumns = maxColumns;
   }
-  const factors = { ...((raw.factors as Record<string, unknown> | undefined) ?? {}) };
+  // Keyed by column names, which may be "constructor" or "__proto__": objects without a prototype, so every name is an own key.
+  const factors = namedCopy(raw.factors, 'factors', options.spec);
   let covariates = [...((raw.covariates as string[] | undefined) ?? [])];
   for (const f of options.factor) {
     factors[f] ??= {};
@@ -102,7 +106,7 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   }
   raw.factors = factors;
   raw.covariates = covariates;
-  const missing = { ...((raw.missing as Record<string, unknown> | undefined) ?? {}) };
+  const missing = namedCopy(raw.missing, 'missing', options.spec);
   for (const entry of options.missing) {
     const eq = entry.indexOf('=');
     if (eq <= 0 || eq === entry.length - 1) {
@@ -114,6 +118,20 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
   return raw as unknown as AnalysisSpecInput;
 }
 
+/**
+ * A copy of the spec file's object keyed by names (`field`), without a
+ * prototype: nothing inherited is read as a name, and a key "__proto__" is
+ * stored like any other instead of setting the prototype.
+ */
+function namedCopy(value: unknown, field: string, specFile: string | undefined): Record<string, unknown> {
+  const copy = Object.create(null) as Record<string, unknown>;
+  if (value === undefined) return copy;
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new UsageError(`--spec ${specFile ?? ''}: "${field}" must be an object keyed by column names, e.g. {"group": {}}`);
+  }
+  return Object.assign(copy, value);
+}
+
 function codesText(codes: unknown): string {
   return Array.isArray(codes) ? codes.join(',') : String(codes);
 }
@@ -122,6 +140,11 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
   if (options.format === 'docx' && options.output === undefined) throw new UsageError('--format docx writes a Word file: give it with --output <file.docx>');
   if (!existsSync(dataFile)) throw new UsageError(`${dataFile}: no such data file`);
   if (options.reported !== undefined && !existsSync(options.reported)) throw new UsageError(`--reported ${options.reported}: no such file`);
+  // A FIFO or a device named as data, description or report would wait for ever or never end: only regular files are read.
+  for (const [label, path] of [['', dataFile], ['--spec ', options.spec], ['--reported ', options.reported]] as const) {
+    const reason = path === undefined ? null : await notRegularFileReason(path);
+    if (reason !== null) throw new UsageError(`${label}${path}: ${reason}`);
+  }
   const spec = buildSpec(options);
   const map = parseTermMap(options.map);
   parseAnalysisSpec(spec); // validate before reading data

@@ -1,4 +1,5 @@
 import { isTag, isText, type ChildNode, type Element } from 'domhandler';
+import { appendAll } from '../arrays.js';
 
 /** Small helpers over the htmlparser2 DOM shared by the HTML and JATS readers. */
 
@@ -23,7 +24,7 @@ export function descendantsByName(element: Element, name: string): Element[] {
   const found: Element[] = [];
   for (const child of elementChildren(element)) {
     if (child.name.toLowerCase() === name) found.push(child);
-    else found.push(...descendantsByName(child, name));
+    else appendAll(found, descendantsByName(child, name));
   }
   return found;
 }

@@ -5,6 +5,7 @@ import { collapseWhitespace, readTableElement, writeTable } from './tables.js';
 import type { DocumentText } from './types.js';
 import { defaultLimits, type Limits } from '../limits.js';
 import { parseLimitedDocument } from './markupLimits.js';
+import { appendAll } from '../arrays.js';
 
 /** Why a JATS file could not be read (not a thrown error: the caller turns it into a ReadOutcome). */
 export type JatsOutcome = { ok: true; document: DocumentText } | { ok: false; error: string };
@@ -172,7 +173,7 @@ class JatsWalker {
     for (const foot of childrenByName(wrap, 'table-wrap-foot')) {
       const parts = elementChildren(foot);
       const notes = parts.length > 0 ? parts.map((part) => jatsInlineText(part)) : [jatsInlineText(foot)];
-      draft.notes.push(...notes.map(collapseWhitespace).filter((note) => note.length > 0));
+      appendAll(draft.notes, notes.map(collapseWhitespace).filter((note) => note.length > 0));
     }
     writeTable(this.builder, draft);
   }

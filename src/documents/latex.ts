@@ -5,6 +5,7 @@ import type { DocumentText } from './types.js';
 import { DocumentLimitError } from './markupLimits.js';
 import { defaultLimits, limitHint, type Limits } from '../limits.js';
 import { createLineIndex } from '../scan/lines.js';
+import { appendAll } from '../arrays.js';
 
 /**
  * LaTeX reader, hand-written on purpose: a real LaTeX "parser" has to run
@@ -692,7 +693,7 @@ function readTableFloat(body: string, place: Place | null): TableDraft {
     const end = findEnvironmentEnd(rest.text, bodyStart, name);
     const tabular = rest.text.slice(bodyStart, end);
     const start = tabularBodyStart(tabular, name);
-    rows.push(...readTabularCells(tabular.slice(start), shifted(restPlace, bodyStart + start)));
+    appendAll(rows, readTabularCells(tabular.slice(start), shifted(restPlace, bodyStart + start)));
     const after = Math.min(rest.text.length, end + `\\end{${name}}`.length);
     tabulars.push([match.index, after]);
     tabularPattern.lastIndex = after;

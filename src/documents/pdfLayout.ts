@@ -56,6 +56,7 @@
  */
 
 import { dehyphenate } from './pdfText.js';
+import { appendAll } from '../arrays.js';
 
 /** One word on a page (points, y downwards), in drawing order. */
 export interface PageWord {
@@ -218,7 +219,7 @@ export function splitLine(line: Line, words: readonly PageWord[]): Piece[] {
   let start = 0;
   for (let index = 1; index <= byOrder.length; index++) {
     if (index < byOrder.length && byOrder[index]! - byOrder[index - 1]! <= MAX_ORDER_JUMP) continue;
-    pieces.push(...splitAtGaps(byOrder.slice(start, index), words));
+    appendAll(pieces, splitAtGaps(byOrder.slice(start, index), words));
     start = index;
   }
   return pieces;
@@ -441,7 +442,7 @@ function growRegion(pieces: readonly Piece[], seedIndex: number, floor: number, 
     if (!overlapsX(piece, x0, x1) || piece.x0 < x0 - 2 * piece.height) break;
     if (isCaption(piece) || isNoteStart(piece, words)) break;
     if (isValueLine(piece)) {
-      body.push(...pending, piece);
+      appendAll(body, pending).push(piece);
       pending = [];
       last = index;
       x0 = Math.min(x0, piece.x0);

@@ -97,3 +97,20 @@ export function readSmallRegularFileSync(path: string, maxBytes: number): string
   }
 }
 
+
+/**
+ * Why a path named by the user (a settings file, a list of documents)
+ * cannot be read, when it is not a regular file ("not a regular file: a
+ * FIFO (named pipe); ..."); null when it is one, or when it does not exist
+ * (the reader then says so in its own words). Checked by stat, without
+ * opening: opening a FIFO waits for a writer.
+ */
+export async function notRegularFileReason(path: string): Promise<string | null> {
+  let kind: string | null;
+  try {
+    kind = specialFileKind(await stat(path));
+  } catch {
+    return null;
+  }
+  return kind === null ? null : notRegularFileMessage(kind, await linkTargetOf(path));
+}

@@ -1,10 +1,13 @@
-import { createReadStream } from 'node:fs';
-import { open } from 'node:fs/promises';
+import type { FileHandle } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
 import Papa from 'papaparse';
+import { openRegularFile } from '../documents/regularFile.js';
+import { xlsxLimits } from '../limits.js';
 import { RefitError, closestNames } from './errors.js';
+import { LineEndingsToLf } from './lineEndings.js';
 import { ShiftedColumn, parseCellNumber } from './numeric.js';
 import { isMissingCode, type MissingRule, type ResolvedSpec } from './spec.js';
+import { readXlsxSheet } from './xlsx.js';
 
 /**
  * Reading raw data: CSV/TSV (papaparse, streamed in chunks; the delimiter is
@@ -62,22 +65,30 @@ function cellText(value: CellInput): string {
   return value.toISOString();
 }
 
-async function firstLine(path: string): Promise<string> {
-  const handle = await open(path, 'r');
-  try {
-    const buffer = Buffer.alloc(65536);
-    const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
-    const text = buffer.subarray(0, bytesRead).toString('utf8').replace(/^\uFEFF/, '');
-    const nl = text.search(/\r?\n/);
-    return nl < 0 ? text : text.slice(0, nl);
-  } finally {
-    await handle.close();
-  }
+async function firstLine(handle: FileHandle): Promise<string> {
+  const buffer = Buffer.alloc(65536);
+  const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
+  const text = buffer.subarray(0, bytesRead).toString('utf8').replace(/^\uFEFF/, '');
+  const nl = text.search(/[\r\n]/); // CRLF, LF or a lone CR (lineEndings.ts)
+  return nl < 0 ? text : text.slice(0, nl);
 }
 
 function unreadable(file: string, err: unknown): RefitError {
   const reason = err instanceof Error ? err.message : String(err);
   return new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${reason}).`, { file });
+}
+
+/**
+ * A cell without the white space around it (spaces, tabs, a stray CR,
+ * no-break spaces), so " a", "a " and "a" are one level and " " is empty.
+ * Most cells have none: the ends are looked at before anything is copied.
+ */
+export function trimCell(text: string): string {
+  if (text.length === 0) return text;
+  const first = text.charCodeAt(0);
+  const last = text.charCodeAt(text.length - 1);
+  // Code units up to 32 are ASCII white space and controls; above 127 may be Unicode white space.
+  return first <= 32 || last <= 32 || first > 127 || last > 127 ? text.trim() : text;
 }
 
 function isBlank(row: readonly string[]): boolean {
@@ -86,50 +97,73 @@ function isBlank(row: readonly string[]): boolean {
 
 async function streamDelimited(path: string, consumer: RowConsumer): Promise<void> {
   const file = basename(path);
+  // Only a regular file: /dev/zero named as data would stream for ever, a FIFO would wait for ever (src/documents/regularFile.ts).
+  let handle: FileHandle;
+  try {
+    const opened = await openRegularFile(path);
+    if (!opened.ok) throw new RefitError('UNREADABLE_FILE', `${file}: ${opened.error}.`, { file });
+    handle = opened.handle;
+  } catch (err) {
+    throw err instanceof RefitError ? err : unreadable(file, err);
+  }
   let line: string;
   try {
-    line = await firstLine(path);
+    line = await firstLine(handle);
   } catch (err) {
+    await handle.close();
     throw unreadable(file, err);
   }
-  if (line.trim() === '') throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
+  if (line.trim() === '') {
+    await handle.close();
+    throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
+  }
   const delimiter = detectDelimiter(line);
   let nextRow = 1; // row number of the next record (header = 1)
   let sawHeader = false;
   let failure: unknown;
-  await new Promise<void>((resolve, reject) => {
-    const stream = createReadStream(path, { encoding: 'utf8', highWaterMark: 1 << 17 });
-    stream.on('error', (err) => reject(unreadable(file, err)));
-    Papa.parse<string[]>(stream as unknown as File, {
-      delimiter,
-      quoteChar: '"',
-      header: false,
-      dynamicTyping: false,
-      chunk: (results, parser) => {
-        if (failure !== undefined) return;
-        try {
-          let data = results.data;
-          const first = nextRow;
-          nextRow += data.length;
-          if (!sawHeader) {
-            if (data.length === 0) return;
-            const names = data[0]!.map((n, i) => (i === 0 ? n.replace(/^\uFEFF/, '') : n).trim());
-            consumer.header(names, file, { decimalComma: delimiter === ';' });
-            sawHeader = true;
-            data = data.slice(1);
-            consumer.rows(data, first + 1);
-          } else {
-            consumer.rows(data, first);
+  let closeStream = (): void => {};
+  try {
+    await new Promise<void>((resolve, reject) => {
+      // The stream closes the handle when it ends, fails or is destroyed.
+      const stream = handle.createReadStream({ start: 0, encoding: 'utf8', highWaterMark: 1 << 17 });
+      closeStream = () => stream.destroy();
+      stream.on('error', (err) => reject(unreadable(file, err)));
+      const lines = stream.pipe(new LineEndingsToLf());
+      Papa.parse<string[]>(lines as unknown as File, {
+        delimiter,
+        newline: '\n',
+        quoteChar: '"',
+        header: false,
+        dynamicTyping: false,
+        chunk: (results, parser) => {
+          if (failure !== undefined) return;
+          try {
+            let data = results.data;
+            const first = nextRow;
+            nextRow += data.length;
+            if (!sawHeader) {
+              if (data.length === 0) return;
+              const names = data[0]!.map((n, i) => (i === 0 ? n.replace(/^\uFEFF/, '') : n).trim());
+              consumer.header(names, file, { decimalComma: delimiter === ';' });
+              sawHeader = true;
+              data = data.slice(1);
+              consumer.rows(data, first + 1);
+            } else {
+              consumer.rows(data, first);
+            }
+          } catch (err) {
+            failure = err;
+            parser.abort();
           }
-        } catch (err) {
-          failure = err;
-          parser.abort();
-        }
-      },
-      complete: () => resolve(),
-      error: (err) => reject(unreadable(file, err)),
+        },
+        complete: () => resolve(),
+        error: (err) => reject(unreadable(file, err)),
+      });
     });
-  });
+  } finally {
+    // Once parsing stopped (at the end, or aborted on a bad row), the file is closed, not left to the garbage collector.
+    closeStream();
+  }
   if (failure !== undefined) throw failure;
   if (!sawHeader) throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
   consumer.end();
@@ -137,14 +171,7 @@ async function streamDelimited(path: string, consumer: RowConsumer): Promise<voi
 
 async function streamXlsx(path: string, consumer: RowConsumer): Promise<void> {
   const file = basename(path);
-  let sheet: unknown[][];
-  try {
-    // Loaded on demand: CSV-only runs do not pay for the spreadsheet reader.
-    const { readSheet } = await import('read-excel-file/node');
-    sheet = (await readSheet(path, { parseNumber: (s: string) => s })) as unknown[][];
-  } catch (err) {
-    throw unreadable(file, err);
-  }
+  const sheet = await readXlsxSheet(path, file, xlsxLimits);
   const rows = sheet.map((r) => r.map((c) => cellText(c as CellInput)));
   // Trailing empty columns that only pad the sheet are not columns.
   const header = rows[0];
@@ -211,7 +238,7 @@ export interface VariableInfo {
   /** Factor levels (text codes) in analysis order; empty for numeric variables. */
   levels: string[];
   /** Display labels by level code (from the analysis description). */
-  labels: Record<string, string>;
+  labels: ReadonlyMap<string, string>;
   /** Numeric variables: the origin their deltas are measured from. */
   origin: number;
 }
@@ -238,7 +265,7 @@ export class VariableReader {
     declared: VariableKind | undefined,
     readonly declaredLevels: string[] | undefined,
     readonly missing: MissingRule | undefined,
-    readonly labels: Record<string, string>,
+    readonly labels: ReadonlyMap<string, string>,
   ) {
     this.kind = declared;
     if (declaredLevels) {
@@ -320,7 +347,7 @@ export class ModelFrameReader implements RowConsumer {
     this.decimalComma = opts.decimalComma;
     const { spec } = this.options;
     const renamed = names.slice();
-    for (const [from, to] of Object.entries(spec.rename)) {
+    for (const [from, to] of spec.rename) {
       const idx = renamed.indexOf(from);
       if (idx < 0) {
         throw new RefitError(
@@ -340,15 +367,16 @@ export class ModelFrameReader implements RowConsumer {
       seen.add(name);
     }
     const missingFor = (name: string): MissingRule | undefined => {
-      const oldName = Object.entries(spec.rename).find(([, to]) => to === name)?.[0];
+      let oldName: string | undefined;
+      for (const [from, to] of spec.rename) if (to === name) oldName = from;
       return spec.missingRules.get(name) ?? (oldName !== undefined ? spec.missingRules.get(oldName) : undefined);
     };
     const needed: Array<{ name: string; field: string }> = [{ name: spec.outcome, field: 'model' }];
     for (const t of spec.formula.terms) for (const v of t.variables) needed.push({ name: v, field: 'model' });
-    for (const f of Object.keys(spec.factors)) needed.push({ name: f, field: `factors.${f}` });
+    for (const f of spec.factors.keys()) needed.push({ name: f, field: `factors.${f}` });
     for (const c of spec.covariates) needed.push({ name: c, field: 'covariates' });
-    for (const m of Object.keys(spec.missing)) {
-      if (!renamed.includes(m) && !(m in spec.rename)) needed.push({ name: m, field: `missing.${m}` });
+    for (const m of spec.missing.keys()) {
+      if (!renamed.includes(m) && !spec.rename.has(m)) needed.push({ name: m, field: `missing.${m}` });
     }
     for (const { name, field } of needed) {
       if (!renamed.includes(name)) {
@@ -362,7 +390,7 @@ export class ModelFrameReader implements RowConsumer {
     const modelVars = [spec.outcome];
     for (const t of spec.formula.terms) for (const v of t.variables) if (!modelVars.includes(v)) modelVars.push(v);
     for (const name of modelVars) {
-      const factor = spec.factors[name];
+      const factor = spec.factors.get(name);
       const declared: VariableKind | undefined =
         name === spec.outcome || spec.covariates.includes(name) ? 'numeric' : factor ? 'factor' : undefined;
       const reader = new VariableReader(
@@ -370,7 +398,7 @@ export class ModelFrameReader implements RowConsumer {
         declared,
         factor?.levels?.map((l) => String(l).trim()),
         missingFor(name),
-        factor?.labels ?? {},
+        factor?.labels ?? new Map(),
       );
       reader.column = renamed.indexOf(name);
       this.variables.push(reader);
@@ -409,9 +437,7 @@ export class ModelFrameReader implements RowConsumer {
       let missing = false;
       for (let j = 0; j < nv; j++) {
         const v = vars[j]!;
-        let text = row[v.column]!;
-        const c0 = text.charCodeAt(0);
-        if (c0 === 32 || c0 === 9 || text.charCodeAt(text.length - 1) === 32) text = text.trim();
+        const text = trimCell(row[v.column]!);
         if (text === '' || text === 'NA') {
           missing = true;
           continue;
@@ -448,7 +474,7 @@ export class ModelFrameReader implements RowConsumer {
         // First complete row: every variable now has a kind. Re-read this row into the buffers.
         this.start();
         for (const v of vars) {
-          const text = row[v.column]!.trim();
+          const text = trimCell(row[v.column]!);
           if (v.kind === 'numeric') this.deltaBuf[v.slot] = v.shifted.delta(text, parseCellNumber(text, decimalComma));
           else this.levelBuf[v.slot] = v.level(text, this.file, firstRow + r);
         }

@@ -10,6 +10,7 @@ export type RefitErrorCode =
   | 'UNKNOWN_LEVEL'
   | 'UNKNOWN_COLUMN'
   | 'UNREADABLE_FILE'
+  | 'DATA_TOO_LARGE'
   | 'INVALID_SPEC'
   | 'FORMULA_SYNTAX'
   | 'NO_USABLE_ROWS'

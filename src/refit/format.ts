@@ -1,6 +1,7 @@
 import { Chalk, type ChalkInstance } from 'chalk';
 import type { ComparedNumber } from './compare.js';
 import type { RefitOutput } from './output.js';
+import { extremes } from '../arrays.js';
 
 /**
  * Pure formatters of a refit result: console text (chalk; plain when not a
@@ -87,7 +88,7 @@ function residualCells(o: Pick<RefitOutput, 'residual'>, label = 'Residual'): st
 const TABLE_HEAD = ['Source', 'SS', 'df', 'MS', 'F', 'p', 'ηp²'];
 
 function pad(cells: string[][], rightAlignFrom = 1): string[] {
-  const widths = cells[0]!.map((_, c) => Math.max(...cells.map((r) => [...(r[c] ?? '')].length)));
+  const widths = cells[0]!.map((_, c) => extremes(cells.map((r) => [...(r[c] ?? '')].length))?.max ?? 0);
   return cells.map((r) =>
     r
       .map((cell, c) => {

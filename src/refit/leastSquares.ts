@@ -66,6 +66,7 @@ export function householderR(a: Matrix): Matrix {
   const n = a.cols;
   const x = Float64Array.from(a.data);
   const v = new Float64Array(m);
+  const dots = new Float64Array(n);
   const steps = Math.min(m, n);
   for (let k = 0; k < steps; k++) {
     // Norm of column k below the diagonal, scaled to avoid overflow.
@@ -86,11 +87,22 @@ export function householderR(a: Matrix): Matrix {
     let vnorm2 = 0;
     for (let i = k; i < m; i++) vnorm2 += v[i]! * v[i]!;
     if (vnorm2 === 0) continue;
-    for (let j = k; j < n; j++) {
-      let dot = 0;
-      for (let i = k; i < m; i++) dot += v[i]! * x[i * n + j]!;
-      const f = (2 * dot) / vnorm2;
-      for (let i = k; i < m; i++) x[i * n + j] = x[i * n + j]! - f * v[i]!;
+    // x_j -= (2 v'x_j / v'v) v for every column j >= k. The dot products are
+    // summed row by row, each in the same order as a column-by-column loop
+    // would (so the result is the same to the last bit), but the matrix is
+    // read along its rows, as it lies in memory: column by column, every
+    // read of a wide matrix missed the cache.
+    dots.fill(0, k, n);
+    for (let i = k; i < m; i++) {
+      const vi = v[i]!;
+      const row = i * n;
+      for (let j = k; j < n; j++) dots[j] = dots[j]! + vi * x[row + j]!;
+    }
+    for (let j = k; j < n; j++) dots[j] = (2 * dots[j]!) / vnorm2;
+    for (let i = k; i < m; i++) {
+      const vi = v[i]!;
+      const row = i * n;
+      for (let j = k; j < n; j++) x[row + j] = x[row + j]! - dots[j]! * vi;
     }
     x[k * n + k] = alpha;
     for (let i = k + 1; i < m; i++) x[i * n + k] = 0;
@@ -100,6 +112,101 @@ export function householderR(a: Matrix): Matrix {
     for (let j = i; j < n; j++) r.data[i * n + j] = x[i * n + j]!;
   }
   return r;
+}
+
+/**
+ * Most values (rows times columns) of stacked blocks held at once by
+ * factorOfBlocks: 2^24 doubles, 128 MB (householderR copies them once more).
+ */
+export const STACKED_VALUES = 1 << 24;
+
+/**
+ * Folds `count` rows (row-major, `width` columns, overwritten) into the
+ * upper-triangular factor `r` (width x width, row-major), so that afterwards
+ * R'R = (R'R before) + rows' rows. One Householder reflection per column k
+ * acts on R's diagonal entry and the rows' entries of column k only: R's
+ * zeros below the diagonal stay zero, so a fold costs O(count x width^2),
+ * whatever the size of R (Golub & Van Loan 2013, section 6.5.3, adding rows
+ * to a QR factorization). Scaled and signed as in householderR.
+ */
+export function foldRowsIntoFactor(r: Float64Array, rows: Float64Array, count: number, width: number): void {
+  const dots = new Float64Array(width);
+  for (let k = 0; k < width; k++) {
+    const kk = k * width + k;
+    let scale = Math.abs(r[kk]!);
+    for (let i = 0; i < count; i++) scale = Math.max(scale, Math.abs(rows[i * width + k]!));
+    if (scale === 0) continue;
+    const alpha0 = r[kk]!;
+    let norm2 = (alpha0 / scale) ** 2;
+    for (let i = 0; i < count; i++) norm2 += (rows[i * width + k]! / scale) ** 2;
+    const norm = scale * Math.sqrt(norm2);
+    const alpha = alpha0 > 0 ? -norm : norm;
+    // The reflector is (alpha0 - alpha, rows' column k); no cancellation, as alpha has the opposite sign of alpha0.
+    const head = alpha0 - alpha;
+    let vnorm2 = head * head;
+    for (let i = 0; i < count; i++) vnorm2 += rows[i * width + k]! ** 2;
+    if (vnorm2 === 0) continue;
+    // As in householderR: the rows are read along their length, not down the columns.
+    for (let j = k + 1; j < width; j++) dots[j] = head * r[k * width + j]!;
+    for (let i = 0; i < count; i++) {
+      const vi = rows[i * width + k]!;
+      const row = i * width;
+      for (let j = k + 1; j < width; j++) dots[j] = dots[j]! + vi * rows[row + j]!;
+    }
+    for (let j = k + 1; j < width; j++) {
+      dots[j] = (2 * dots[j]!) / vnorm2;
+      r[k * width + j] = r[k * width + j]! - dots[j]! * head;
+    }
+    for (let i = 0; i < count; i++) {
+      const vi = rows[i * width + k]!;
+      const row = i * width;
+      for (let j = k + 1; j < width; j++) rows[row + j] = rows[row + j]! - dots[j]! * vi;
+    }
+    r[kk] = alpha;
+    for (let i = 0; i < count; i++) rows[i * width + k] = 0;
+  }
+}
+
+/**
+ * The triangular factor R of `blocks` blocks of `blockRows` rows each
+ * (`width` columns), which `write(index, into)` writes row-major into
+ * `into`, and the Euclidean norm of each column over all those rows.
+ *
+ * A stack within `budget` values is reduced at once with householderR.
+ * A larger one (many design cells times many columns) is written in
+ * batches of at most `budget` values, each folded into R as it fills
+ * (foldRowsIntoFactor): the same R'R in the same time, and memory bounded
+ * by R and one batch instead of the whole stack.
+ */
+export function factorOfBlocks(
+  blocks: number,
+  blockRows: number,
+  width: number,
+  write: (index: number, into: Float64Array) => void,
+  budget = STACKED_VALUES,
+): { r: Matrix; columnNorms: Float64Array } {
+  const totalRows = blocks * blockRows;
+  const oneStep = totalRows * width <= budget;
+  const batchBlocks = oneStep ? blocks : Math.max(1, Math.floor(budget / (blockRows * width)));
+  const stacked = new Float64Array(batchBlocks * blockRows * width);
+  const columnNorms = new Float64Array(width);
+  const r = oneStep ? null : matrix(width, width);
+  let row = 0;
+  for (let index = 0; index < blocks; index++) {
+    if (r !== null && row + blockRows > batchBlocks * blockRows) {
+      foldRowsIntoFactor(r.data, stacked, row, width);
+      row = 0;
+    }
+    const into = stacked.subarray(row * width, (row + blockRows) * width);
+    write(index, into);
+    for (let i = 0; i < blockRows; i++) {
+      for (let j = 0; j < width; j++) columnNorms[j] = Math.hypot(columnNorms[j]!, into[i * width + j]!);
+    }
+    row += blockRows;
+  }
+  if (r === null) return { r: householderR({ rows: row, cols: width, data: stacked.subarray(0, row * width) }), columnNorms };
+  foldRowsIntoFactor(r.data, stacked, row, width);
+  return { r, columnNorms };
 }
 
 /** Columns `cols` of `a`, in that order. */

@@ -33,7 +33,10 @@ import { studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
  */
 
 export interface MarginalMean {
-  /** Level code of each requested factor, by factor name. */
+  /**
+   * Level code of each requested factor, by factor name; an object without a
+   * prototype, so a factor named "constructor" or "__proto__" is a key like any other.
+   */
   levels: Record<string, string>;
   /** e.g. "group=hi, dose=2" (labels from the description when given). */
   label: string;
@@ -77,7 +80,10 @@ interface GridMean {
   levels: number[];
   l: Float64Array;
   label: string;
-  codes: Record<string, string>;
+  /** The level code of each factor of the grid, in the order the factors were named. */
+  codes: string[];
+  /** The factors' names, in the same order. */
+  names: string[];
 }
 
 function factorSlots(model: FittedModel, factors: string | readonly string[]): number[] {
@@ -128,14 +134,12 @@ function gridMeans(model: FittedModel, slots: number[]): GridMean[] {
         },
       );
       for (let j = 0; j < p; j++) l[j] = l[j]! / count;
-      const codes: Record<string, string> = {};
+      const codes = slots.map((s, i) => model.factorVars[s]!.levels[target[i]!]!);
       const parts = slots.map((s, i) => {
         const v = model.factorVars[s]!;
-        const code = v.levels[target[i]!]!;
-        codes[v.name] = code;
-        return `${v.name}=${v.labels[code] ?? code}`;
+        return `${v.name}=${v.labels.get(codes[i]!) ?? codes[i]!}`;
       });
-      out.push({ levels: target, l, label: parts.join(', '), codes });
+      out.push({ levels: target, l, label: parts.join(', '), codes, names: slots.map((s) => model.factorVars[s]!.name) });
     },
   );
   return out;
@@ -157,7 +161,9 @@ export function marginalMeans(model: FittedModel, factors: string | readonly str
   return gridMeans(model, factorSlots(model, factors)).map((g) => {
     const { estimate, se } = linear(model, beta, g.l);
     const emmean = estimate + model.outcomeOrigin;
-    return { levels: g.codes, label: g.label, emmean, se, df, lower: emmean - tCrit * se, upper: emmean + tCrit * se };
+    const levels: Record<string, string> = Object.create(null) as Record<string, string>;
+    g.names.forEach((name, i) => (levels[name] = g.codes[i]!));
+    return { levels, label: g.label, emmean, se, df, lower: emmean - tCrit * se, upper: emmean + tCrit * se };
   });
 }
 
@@ -234,15 +240,16 @@ export function plannedContrast(
   if (Array.isArray(weights)) {
     w = [...(weights as readonly number[])];
   } else {
-    const byKey = weights as Record<string, number>;
-    const keyOf = (g: GridMean) => Object.values(g.codes).join(':');
+    // Keys are level codes or labels, which may be any text ("constructor"): only the object's own keys count.
+    const byKey = new Map(Object.entries(weights as Record<string, number>));
+    const keyOf = (g: GridMean) => g.codes.join(':');
     const labelOf = (g: GridMean) => g.label.replace(/^[^=]+=/, '');
-    for (const key of Object.keys(byKey)) {
+    for (const key of byKey.keys()) {
       if (!means.some((g) => keyOf(g) === key || labelOf(g) === key || g.label === key)) {
         throw new RefitError('INVALID_CONTRAST', `Contrast weight for "${key}": no such level (levels: ${means.map(keyOf).join(', ')}).`);
       }
     }
-    w = means.map((g) => byKey[keyOf(g)] ?? byKey[labelOf(g)] ?? byKey[g.label] ?? 0);
+    w = means.map((g) => byKey.get(keyOf(g)) ?? byKey.get(labelOf(g)) ?? byKey.get(g.label) ?? 0);
   }
   if (w.length !== means.length) {
     throw new RefitError('INVALID_CONTRAST', `The contrast has ${w.length} weights, but there are ${means.length} means (${means.map((g) => g.label).join('; ')}).`);

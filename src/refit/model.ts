@@ -2,8 +2,8 @@ import { fUpperTail } from '../stats/fDistribution.js';
 import { CellAccumulator, type NumericProduct } from './accumulate.js';
 import { ModelFrameReader, streamRows, type DataSource, type VariableInfo, type VariableReader } from './data.js';
 import { RefitError } from './errors.js';
-import { householderR, matrix, sequentialSS, solveUpper, solveUpperTransposed, type Matrix } from './leastSquares.js';
-import { parseAnalysisSpec, type ResolvedSpec } from './spec.js';
+import { factorOfBlocks, sequentialSS, solveUpper, solveUpperTransposed, type Matrix } from './leastSquares.js';
+import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type ResolvedSpec } from './spec.js';
 
 /**
  * The linear model and its ANOVA/ANCOVA table with type I, II or III sums of
@@ -94,7 +94,7 @@ export function codingValue(coding: Coding, levels: number, level: number, colum
 }
 
 function describeLevel(v: VariableInfo, code: string): string {
-  const label = v.labels[code];
+  const label = v.labels.get(code);
   return label !== undefined ? `${code} (${label})` : code;
 }
 
@@ -137,26 +137,21 @@ export class FittedModel {
     if (p > spec.maxColumns) this.tooManyColumns(p);
     const q = acc.q;
 
-    // Stack R_g A_g for every cell, then reduce with Householder QR.
-    const stacked = matrix(cells.length * q, p + 1);
-    const a = new Float64Array(q * (p + 1));
-    let row = 0;
-    for (const cell of cells) {
+    // Stack R_g A_g for every cell, then reduce with Householder QR (in batches when the stack is large).
+    const width = p + 1;
+    const a = new Float64Array(q * width);
+    const { r: rAug, columnNorms: colNorm } = factorOfBlocks(cells.length, q, width, (index, into) => {
+      const cell = cells[index]!;
       this.cellMap(cell.levels, a);
       for (let i = 0; i < q; i++) {
         for (let j = 0; j <= p; j++) {
           let s = 0;
-          for (let k = i; k < q; k++) s += cell.r[i * q + k]! * a[k * (p + 1) + j]!;
-          stacked.data[(row + i) * (p + 1) + j] = s;
+          for (let k = i; k < q; k++) s += cell.r[i * q + k]! * a[k * width + j]!;
+          into[i * width + j] = s;
         }
       }
-      row += q;
-    }
-    const colNorm = new Float64Array(p + 1);
-    for (let i = 0; i < stacked.rows; i++) {
-      for (let j = 0; j <= p; j++) colNorm[j] = Math.hypot(colNorm[j]!, stacked.data[i * (p + 1) + j]!);
-    }
-    this.rAug = householderR(stacked);
+    });
+    this.rAug = rAug;
     for (let j = 0; j < p; j++) {
       const d = Math.abs(this.rAug.data[j * (p + 1) + j]!);
       if (!(d > 1e-9 * colNorm[j]!)) this.aliased(j, colNorm[j]!);
@@ -240,9 +235,14 @@ export class FittedModel {
     const cause = identifierLike
       ? ` Factor '${widest.name}' has ${widest.levels.length} levels: a factor with that many is usually an identifier or a numeric measure read as a factor. Check the column (--covariate ${widest.name} if it is a measure), or`
       : ' The interactions of the factors make the design this wide: drop some interaction terms, or';
+    // Raising the limit is advice only where a fit of that width can be done at all.
+    const way =
+      p <= MAX_COLUMNS_CEILING
+        ? ` raise the limit with --max-columns ${p} (the time to fit grows with the cube of the number of columns).`
+        : ` fit a smaller model: refit fits at most ${MAX_COLUMNS_CEILING.toLocaleString('en-US')} columns (${MAX_COLUMNS_CEILING_REASON}).`;
     throw new RefitError(
       'TOO_MANY_COLUMNS',
-      `The model has ${p} design columns, more than maxColumns = ${this.spec.maxColumns}.${cause} raise the limit with --max-columns ${p} (the time to fit grows with the cube of the number of columns).`,
+      `The model has ${p} design columns, more than maxColumns = ${this.spec.maxColumns}.${cause}${way}`,
       { field: 'maxColumns', ...(identifierLike ? { column: widest.name } : {}) },
     );
   }

@@ -23,20 +23,25 @@
  */
 
 /**
- * Strict decimal parse: plain or scientific notation only ("1.5", "-2e3",
- * ".5"). Returns NaN for anything else (hex, "Infinity", "1,5", blanks).
- * With `decimalComma`, a single comma is read as the decimal mark ("1,5").
+ * A number as a CSV user writes one: decimal digits with an optional sign,
+ * decimal point and exponent ("1.5", "-2e3", ".5", "+4."). JavaScript's
+ * Number() reads much more: hexadecimal, binary and octal ("0x1F", "0b101",
+ * "0o17"), "Infinity", and "" or blanks as 0; a cell written that way is a
+ * code or a typo, not a measurement, so it is text here.
+ */
+const DECIMAL_NUMBER = /^[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?$/;
+
+/**
+ * Strict decimal parse (DECIMAL_NUMBER). Returns NaN for anything else:
+ * other bases, "Infinity", "NaN", "1,5", blanks, surrounding white space,
+ * and numbers too large for a double ("1e999"). With `decimalComma`, a
+ * single comma is read as the decimal mark ("1,5").
  */
 export function parseCellNumber(text: string, decimalComma = false): number {
-  const c = text.charCodeAt(0);
-  // digits, '+', '-', '.'
-  if (!((c >= 48 && c <= 57) || c === 43 || c === 45 || c === 46)) return NaN;
-  let s = text;
-  if (decimalComma && s.includes(',')) s = s.replace(',', '.');
-  if (s.length > 1 && (s.charCodeAt(1) === 120 || s.charCodeAt(1) === 88)) return NaN; // 0x..
+  const s = decimalComma && text.includes(',') ? text.replace(',', '.') : text;
+  if (!DECIMAL_NUMBER.test(s)) return NaN;
   const v = Number(s);
-  if (!Number.isFinite(v)) return NaN;
-  return v;
+  return Number.isFinite(v) ? v : NaN;
 }
 
 interface Decimal {

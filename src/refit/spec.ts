@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { RefitError } from './errors.js';
 import { parseFormula, type ParsedFormula } from './formula.js';
+import { parseCellNumber } from './numeric.js';
 
 /**
  * The analysis description: our own JSON format, validated with zod.
@@ -18,11 +19,22 @@ import { parseFormula, type ParsedFormula } from './formula.js';
 
 /**
  * Default for maxColumns. Fitting time grows about with the cube of the
- * column count: a one-way design on 20,000 rows took 1 s with 500 columns,
- * 12 s with 1,000 and 140 s with 2,000 (2 cores, 2026). A four-way
- * factorial of five-level factors has 625 columns.
+ * column count: a one-way design on 20,000 rows took 17 s with 1,000
+ * columns, 95 s with 2,000 and 11 minutes with 4,000 (2 cores, 2026). A
+ * four-way factorial of five-level factors has 625 columns.
  */
 export const DEFAULT_MAX_COLUMNS = 1000;
+
+/**
+ * The most maxColumns may be raised to. The fit holds the triangular
+ * factor and a batch of cell blocks in memory (a one-way design of 4,000
+ * levels: 0.5 GB at its peak) and its time grows with the cube of the
+ * column count (11 minutes at 4,000); 200,000 columns would need
+ * terabytes and years, so a larger value is refused rather than tried.
+ */
+export const MAX_COLUMNS_CEILING = 4000;
+export const MAX_COLUMNS_CEILING_REASON =
+  'a wider fit needs hours and gigabytes of memory: its time grows with the cube of the number of columns and its memory with the square';
 
 const levelCode = z.union([z.string(), z.number()]);
 
@@ -32,23 +44,45 @@ const missingCodes = z.union([
   z.array(z.union([z.number(), z.string()])).min(1),
 ]);
 
+/**
+ * An object whose keys are names the user chose (columns, level codes),
+ * read into a Map. Column names such as "constructor", "toString" or
+ * "__proto__" are ordinary names here: looked up in a plain object they
+ * would find Object.prototype's members (a factor "toString" would seem
+ * declared), and zod's own record drops a "__proto__" key without a word.
+ * Every own key is kept, and each value is checked with `value`, its
+ * problems reported under the key's path.
+ */
+function namedEntries<T extends z.ZodType>(value: T) {
+  return z
+    .custom<Record<string, z.input<T>>>((input) => typeof input === 'object' && input !== null && !Array.isArray(input), {
+      message: 'expected an object of names',
+    })
+    .transform((input, context) => {
+      const entries = new Map<string, z.output<T>>();
+      for (const [key, item] of Object.entries(input)) {
+        const checked = value.safeParse(item);
+        if (checked.success) entries.set(key, checked.data);
+        else for (const issue of checked.error.issues) context.issues.push({ ...issue, path: [key, ...issue.path] } as never);
+      }
+      return entries;
+    });
+}
+
+const factorSchema = z
+  .object({
+    levels: z.array(levelCode).min(1).optional(),
+    labels: namedEntries(z.string()).optional(),
+  })
+  .strict();
+
 export const analysisSpecSchema = z
   .object({
     outcome: z.string().min(1).optional(),
-    factors: z
-      .record(
-        z.string(),
-        z
-          .object({
-            levels: z.array(levelCode).min(1).optional(),
-            labels: z.record(z.string(), z.string()).optional(),
-          })
-          .strict(),
-      )
-      .default({}),
+    factors: namedEntries(factorSchema).default(() => new Map()),
     covariates: z.array(z.string().min(1)).default([]),
-    missing: z.record(z.string(), missingCodes).default({}),
-    rename: z.record(z.string(), z.string().min(1)).default({}),
+    missing: namedEntries(missingCodes).default(() => new Map()),
+    rename: namedEntries(z.string().min(1)).default(() => new Map()),
     model: z.string().min(1),
     type: z.union([z.literal(1), z.literal(2), z.literal(3)]).default(3),
     coding: z.enum(['sum', 'treatment']).default('sum'),
@@ -57,7 +91,7 @@ export const analysisSpecSchema = z
      * identifier read as a factor) would make the fit take hours; past this
      * the refit stops with an error naming the factor.
      */
-    maxColumns: z.number().int().min(2).default(DEFAULT_MAX_COLUMNS),
+    maxColumns: z.number().int().min(2).max(MAX_COLUMNS_CEILING).default(DEFAULT_MAX_COLUMNS),
   })
   .strict();
 
@@ -105,8 +139,9 @@ export function parseMissingRule(codes: string | number | Array<string | number>
       rule.ranges.push([lo, hi]);
     } else if (s.length > 0) {
       rule.text.add(s);
-      const n = Number(s);
-      if (Number.isFinite(n)) rule.numbers.push(n);
+      // The same reading of numbers as the data's cells: "0x10" is a text code, not 16.
+      const n = parseCellNumber(s);
+      if (!Number.isNaN(n)) rule.numbers.push(n);
     }
   }
   return rule;
@@ -149,7 +184,7 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
       { field: 'outcome' },
     );
   }
-  for (const name of Object.keys(spec.factors)) {
+  for (const name of spec.factors.keys()) {
     if (spec.covariates.includes(name)) {
       throw new RefitError('INVALID_SPEC', `Analysis description: "${name}" is listed both under "factors" and "covariates"; keep one.`, {
         field: `factors.${name}`,
@@ -160,7 +195,7 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
     }
   }
   const missingRules = new Map<string, MissingRule>();
-  for (const [column, codes] of Object.entries(spec.missing)) {
+  for (const [column, codes] of spec.missing) {
     missingRules.set(column, parseMissingRule(codes, `missing.${column}`));
   }
   return { ...spec, outcome: formula.outcome, formula, missingRules };

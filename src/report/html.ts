@@ -3,6 +3,7 @@ import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './m
 import { visibleControls } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
 import { countOf, crossesAlphaPhrase, noResultsMessage, tablesNotReadPhrase } from './wording.js';
+import { extremes } from '../arrays.js';
 
 /**
  * One self-contained HTML page for reading a report in a browser: no network
@@ -335,8 +336,9 @@ function scatterPlot(documents: readonly DocumentOutput[]): string {
   }
   const FLOOR_EXPONENT = -8;
   const positives = points.flatMap((p) => [p.reported, p.recomputed]).filter((v) => v > 0);
-  const smallest = positives.length > 0 ? Math.min(...positives) : 0.001;
-  const largest = Math.max(1, ...positives);
+  const range = extremes(positives);
+  const smallest = range?.min ?? 0.001;
+  const largest = Math.max(1, range?.max ?? 1);
   const lowExponent = Math.max(FLOOR_EXPONENT, Math.min(-1, Math.floor(Math.log10(smallest))));
   const highExponent = Math.max(0, Math.ceil(Math.log10(largest)));
   const low = 10 ** lowExponent;

@@ -2,6 +2,7 @@ import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './m
 import { visibleLine } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
 import { countOf, crossesAlphaPhrase, documentResultsPhrase, documentsPhrase, findingsPhrase, noResultsMessage, resultsPhrase } from './wording.js';
+import { appendAll, extremes } from '../arrays.js';
 
 /**
  * A Markdown summary to paste into a review: the totals, then, for each
@@ -23,7 +24,7 @@ import { countOf, crossesAlphaPhrase, documentResultsPhrase, documentsPhrase, fi
  */
 export function codeSpan(text: string): string {
   const flat = visibleLine(text);
-  const longest = Math.max(0, ...(flat.match(/`+/g) ?? []).map((run) => run.length));
+  const longest = extremes((flat.match(/`+/g) ?? []).map((run) => run.length))?.max ?? 0;
   const fence = '`'.repeat(longest + 1);
   const pad = flat.startsWith('`') || flat.endsWith('`') ? ' ' : '';
   return `${fence}${pad}${flat}${pad}${fence}`;
@@ -71,7 +72,7 @@ function flaggedDocument(document: DocumentOutput): string[] {
     lines.push(`- ${where(statistic)}: ${codeSpan(statistic.text)}`);
     for (const finding of statistic.findings) lines.push(findingLine(finding, '  '));
   }
-  lines.push(...tablesNotReadLines(document, ''));
+  appendAll(lines, tablesNotReadLines(document, ''));
   lines.push('');
   return lines;
 }
@@ -96,14 +97,14 @@ export function formatMarkdown(report: Report): string {
   const clean = report.documents.filter((d) => d.status === 'checked' && !hasFlags(d));
   const unreadable = report.documents.filter((d) => d.status === 'unreadable');
 
-  for (const document of flagged) lines.push(...flaggedDocument(document));
+  for (const document of flagged) appendAll(lines, flaggedDocument(document));
 
   if (clean.length > 0) {
     lines.push('### Documents without flags', '');
     for (const document of clean) {
       const noResults = noResultsMessage(document);
       lines.push(`- ${codeSpan(document.path)}: ${noResults === null ? `${documentResultsPhrase(document)}.` : `0 results. ${escapeMarkdown(noResults)}`}`);
-      lines.push(...tablesNotReadLines(document, '  '));
+      appendAll(lines, tablesNotReadLines(document, '  '));
     }
     lines.push('');
   }

@@ -125,7 +125,7 @@ describe('plumbline refit input errors (exit 2, with file, row and column)', () 
     expect(missing.code).toBe(2);
     expect(missing.err).toContain('no such data file');
     expect(existsSync(join(tmp, 'nope.csv'))).toBe(false);
-    expect((await run(['refit', DATA, '--spec', SPEC, '--max-columns', 'many'])).err).toContain('--max-columns must be a whole number of at least 2, got "many"');
+    expect((await run(['refit', DATA, '--spec', SPEC, '--max-columns', 'many'])).err).toContain('--max-columns must be a whole number from 2 to 4,000, got "many"');
   });
 
   it('--max-columns below the model width stops with exit code 2 and says how to go on', async () => {

@@ -131,6 +131,18 @@ describe('contrast input checks', () => {
     expect(byName.estimate).toBe(byOrder.estimate);
   });
 
+  it('levels and factors named like members of Object.prototype are keys like any other', async () => {
+    const levels = ['constructor', 'toString', 'valueOf'];
+    const rows = Array.from({ length: 18 }, (_, index) => [String((index * 7) % 11), levels[index % 3]!]);
+    const model = await fitModel({ name: 'names.csv', header: ['score', '__proto__'], rows }, { model: 'score ~ __proto__' });
+    const means = marginalMeans(model, '__proto__');
+    expect(means.map((m) => m.levels.__proto__)).toEqual(levels);
+    expect(Object.getPrototypeOf(means[0]!.levels)).toBeNull();
+    const byName = plannedContrast(model, '__proto__', { constructor: 1, toString: -1 });
+    expect(byName.estimate).toBe(plannedContrast(model, '__proto__', [1, -1, 0]).estimate);
+    expect(() => plannedContrast(model, '__proto__', { hasOwnProperty: 1, valueOf: -1 })).toThrow(/"hasOwnProperty": no such level/);
+  });
+
   it('Holm adjustment is monotone and capped at 1 (Holm 1979, step-down)', () => {
     expect(holmAdjust([0.01, 0.04, 0.03, 0.5])).toEqual([0.04, 0.09, 0.09, 0.5]);
     expect(holmAdjust([0.6, 0.7])).toEqual([1, 1]);

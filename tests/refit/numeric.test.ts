@@ -15,6 +15,16 @@ describe('cell numbers', () => {
     expect(parseCellNumber('1,5', true)).toBe(1.5);
   });
 
+  it('reads decimal numbers with an optional sign and exponent, and nothing else that Number() reads', () => {
+    expect(parseCellNumber('+4.')).toBe(4);
+    expect(parseCellNumber('-.5e-1')).toBe(-0.05);
+    expect(parseCellNumber('1E3')).toBe(1000);
+    // Other bases, special values, overflow, blanks and white space around a number (cells are trimmed before they are parsed).
+    for (const text of ['0b101', '0o17', '0x1F', '0X1f', '-0x1', 'Infinity', '-Infinity', 'NaN', '1e999', '-1e999', '', ' ', '\t', ' 1', '1 ', '1\r', '1_000', '1.2.3', '.', '+', 'e5', '1e', '1e+']) {
+      expect(parseCellNumber(text), JSON.stringify(text)).toBeNaN();
+    }
+  });
+
   it('measures values from the first one exactly in decimal when they share many digits', () => {
     const col = new ShiftedColumn();
     expect(col.delta('1000000000000.4', 1000000000000.4)).toBe(0);

@@ -56,3 +56,26 @@ describe('missing-value codes', () => {
     expect(() => parseMissingRule('8-6', 'missing.x')).toThrow(/missing\.x/);
   });
 });
+
+describe('names that are members of Object.prototype', () => {
+  it('are read as own keys of factors, labels, missing and rename, "__proto__" included, into Maps', () => {
+    // JSON.parse makes "__proto__" an own key, as in a description file a user wrote.
+    const spec = parseAnalysisSpec(
+      JSON.parse(
+        '{"model": "valueOf ~ toString + __proto__", "factors": {"__proto__": {"labels": {"constructor": "c"}}, "toString": {}},' +
+          ' "missing": {"__proto__": 9}, "rename": {"hasOwnProperty": "toString"}}',
+      ),
+    );
+    expect([...spec.factors.keys()]).toEqual(['__proto__', 'toString']);
+    expect(spec.factors.get('__proto__')!.labels).toEqual(new Map([['constructor', 'c']]));
+    expect(spec.factors.get('constructor')).toBeUndefined();
+    expect([...spec.missingRules.keys()]).toEqual(['__proto__']);
+    expect(spec.rename).toEqual(new Map([['hasOwnProperty', 'toString']]));
+  });
+
+  it('a bad value under such a key is reported with the key in its field', () => {
+    expect(() => parseAnalysisSpec(JSON.parse('{"model": "y ~ __proto__", "factors": {"__proto__": {"levels": []}}}'))).toThrow(
+      /field "factors\.__proto__\.levels": Too small/,
+    );
+  });
+});

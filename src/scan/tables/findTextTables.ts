@@ -23,6 +23,7 @@ import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
+import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
 import { readTransposedTable } from './transposed.js';
 
@@ -218,7 +219,8 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
   // Rows a web page broke over lines, as in pipe tables; a row with its label that ends in a tab ends
   // with its empty cells and is whole (padded, so that it is not joined with the next). A piece that
   // starts with a value ("1421 <0.0001") continues the row above.
-  const width = Math.max(...rows.map((row) => row.length));
+  // (Walked, not spread into a call: a table of very many rows would overflow the stack; src/arrays.ts.)
+  const width = extremes(rows.map((row) => row.length))?.max ?? 0;
   const padded = rows.map((row) => (row.length > 1 && row[row.length - 1]!.text === '' && !isValueToken(row[0]!.text) ? [...row, ...new Array<Piece>(width - row.length).fill({ text: '', start: row[row.length - 1]!.end, end: row[row.length - 1]!.end })] : row));
   const merged = joinBrokenRows(padded);
   return {

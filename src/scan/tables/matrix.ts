@@ -27,6 +27,7 @@ import type { ReportedNumber, ReportedP, ReportedResult } from '../types.js';
 import { classifyHeader, readCell } from './cells.js';
 import { shapeOf } from './align.js';
 import { MARK, readMarkLegend, splitMarks, type MarkBound } from './marks.js';
+import { appendAll } from '../../arrays.js';
 
 interface Located {
   start: number;
@@ -151,7 +152,7 @@ export function readCorrelationGrid(input: MatrixInput, headerCount: number): Re
     const kept = whole ? row.map((cell, column) => (otherColumns.has(column) ? '' : cell)) : row;
     const read = gridSegments(kept, input.located[rowIndex] ?? null, rowIndex);
     numbers += read.numbers;
-    segments.push(...read.segments);
+    appendAll(segments, read.segments);
   });
   const correlations = segments.reduce((sum, segment) => sum + segment.cells.filter((cell) => cell !== 'diagonal' && isCorrelation(cell.cell)).length, 0);
   if (correlations < MIN_CORRELATIONS || correlations < MIN_CORRELATION_SHARE * numbers) return null;
