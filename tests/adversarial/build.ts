@@ -20,6 +20,11 @@ export function pdfWithTextRuns(runs: number, pages = 1): Buffer {
   for (let page = 0; page < pages; page++) {
     objects.push(Buffer.from('<< /Type /Page /Parent 2 0 R /MediaBox [0 0 612 792] /Resources << /Font << /F1 3 0 R >> >> /Contents 4 0 R >>'));
   }
+  return pdfOfObjects(objects);
+}
+
+/** A PDF file of the given object bodies, numbered from 1 (object 1 the catalogue), with its cross-reference table. */
+export function pdfOfObjects(objects: readonly Buffer[]): Buffer {
   const chunks: Buffer[] = [Buffer.from('%PDF-1.4\n%\xE2\xE3\xCF\xD3\n', 'latin1')];
   let length = chunks[0]!.length;
   const offsets: number[] = [];
@@ -44,8 +49,19 @@ export interface ZipEntryInput {
   size: number;
 }
 
-/** A zip archive of the given entries (no zip64: sizes below 4 GiB). */
-export function zipArchive(entries: ZipEntryInput[]): Buffer {
+export interface ZipOptions {
+  /** The entry count written in the end record (the true count when not given). */
+  count?: number;
+  /** Bytes written before the first entry; the offsets in the directory do not count them. */
+  prepend?: Buffer;
+  /** The directory offset written in the end record (the true one when not given). */
+  directoryOffset?: number;
+  /** The directory size written in the end record (the true one when not given). */
+  directorySize?: number;
+}
+
+/** A zip archive of the given entries (no zip64: sizes below 4 GiB), with an end record that may lie (`options`). */
+export function zipArchive(entries: readonly ZipEntryInput[], options: ZipOptions = {}): Buffer {
   const locals: Buffer[] = [];
   const centrals: Buffer[] = [];
   let offset = 0;
@@ -76,11 +92,12 @@ export function zipArchive(entries: ZipEntryInput[]): Buffer {
   const directory = Buffer.concat(centrals);
   const end = Buffer.alloc(22);
   end.writeUInt32LE(0x06054b50, 0);
-  end.writeUInt16LE(entries.length, 8);
-  end.writeUInt16LE(entries.length, 10);
-  end.writeUInt32LE(directory.length, 12);
-  end.writeUInt32LE(offset, 16);
-  return Buffer.concat([...locals, directory, end]);
+  const count = options.count ?? entries.length;
+  end.writeUInt16LE(count, 8);
+  end.writeUInt16LE(count, 10);
+  end.writeUInt32LE(options.directorySize ?? directory.length, 12);
+  end.writeUInt32LE(options.directoryOffset ?? offset, 16);
+  return Buffer.concat([options.prepend ?? Buffer.alloc(0), ...locals, directory, end]);
 }
 
 /**

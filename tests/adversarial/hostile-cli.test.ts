@@ -1,8 +1,8 @@
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { findPdftotext } from '../../src/documents/pdf.js';
-import { builtCliExists, plumbline, reportOf, temporaryFolder, type Run } from '../batch/cli.js';
+import { builtCliExists, peakMemoryRunner, plumbline, reportOf, temporaryFolder } from '../batch/cli.js';
 import { deflateRepeated, hostileCases, onePagePdf, writeHostileFiles, zlibWrapped } from '../fixtures/hostile/makeHostile.js';
 
 /**
@@ -32,25 +32,15 @@ const reasons: Record<string, RegExp> = {
 };
 
 /** A module loaded before the command (node --import) that writes the process's peak memory (maxRSS, in KiB) to a file at exit. */
-const peakMemoryFile = join(folder, 'peak-rss.txt');
-const preload = join(folder, 'peak-rss.mjs');
 
 beforeAll(async () => {
   const written = await writeHostileFiles(papers);
   expect(written.map((file) => file.name).sort()).toEqual(Object.keys(reasons).sort());
   writeFileSync(join(papers, 'good.txt'), 'Dose affected recall, F(2, 57) = 4.21, p = .020.\n'); // p = .0197 (SciPy 1.10.1 f.sf)
-  writeFileSync(preload, `import { writeFileSync } from 'node:fs';\nprocess.on('exit', () => writeFileSync(${JSON.stringify(peakMemoryFile)}, String(process.resourceUsage().maxRSS)));\n`);
 });
 
-/** Runs the command with the peak-memory preload; how long it took, and its peak memory in MB (the command's process and its worker threads). */
-function timed(args: string[]): Run & { seconds: number; peakMb: number } {
-  rmSync(peakMemoryFile, { force: true });
-  const started = Date.now();
-  const run = plumbline(args, folder, { nodeOptions: ['--import', `file://${preload}`] });
-  const seconds = (Date.now() - started) / 1000;
-  const peakMb = (Number(readFileSync(peakMemoryFile, 'utf8')) * 1024) / 1e6;
-  return { ...run, seconds, peakMb };
-}
+/** Runs the command and measures its time and peak memory (tests/batch/cli.ts). */
+const timed = peakMemoryRunner(folder);
 
 const engines = ['pdf-parse', ...(findPdftotext() === null ? [] : ['pdftotext'])];
 

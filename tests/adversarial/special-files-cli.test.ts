@@ -1,8 +1,8 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { builtCliExists, plumbline, reportOf, temporaryFolder, type Run } from '../batch/cli.js';
+import { builtCliExists, peakMemoryRunner, plumbline, reportOf, temporaryFolder, type Run } from '../batch/cli.js';
 
 /**
  * Only regular files are read (src/documents/regularFile.ts). The built
@@ -43,20 +43,8 @@ const fifoDirect = made('mkfifo', [join(folder, 'direct.txt')]);
 writeFileSync(join(folder, 'paper.tex'), '\\begin{document}Dose affected recall, F(2, 57) = 4.21, p = .020. \\bibliography{refs}\\end{document}\n');
 const fifoBbl = made('mkfifo', [join(folder, 'paper.bbl')]);
 
-/** A module loaded before the command (node --import) that writes the process's peak memory (maxRSS, in KiB) to a file at exit. */
-const peakMemoryFile = join(folder, 'peak-rss.txt');
-const preload = join(folder, 'peak-rss.mjs');
-writeFileSync(preload, `import { writeFileSync } from 'node:fs';\nprocess.on('exit', () => writeFileSync(${JSON.stringify(peakMemoryFile)}, String(process.resourceUsage().maxRSS)));\n`);
-
-/** Runs the command with the peak-memory preload; how long it took, and its peak memory in MB. */
-function timed(args: string[]): Run & { seconds: number; peakMb: number } {
-  rmSync(peakMemoryFile, { force: true });
-  const started = Date.now();
-  const run = plumbline(args, folder, { nodeOptions: ['--import', `file://${preload}`] });
-  const seconds = (Date.now() - started) / 1000;
-  const peakMb = Number(readFileSync(peakMemoryFile, 'utf8')) / 1024;
-  return { ...run, seconds, peakMb };
-}
+/** Runs the command and measures its time and peak memory (tests/batch/cli.ts). */
+const timed = peakMemoryRunner(folder);
 
 function skipNote(possible: boolean, what: string): string {
   return possible ? '' : ` (skipped: this platform could not create ${what})`;

@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { reportSchema, type Report } from '../../src/report/model.js';
@@ -43,4 +43,22 @@ export function reportOf(run: Run): Report {
 /** The documents' paths and statuses, in report order. */
 export function pathsOf(run: Run): [string, string][] {
   return reportOf(run).documents.map((document) => [document.path, document.status]);
+}
+
+/**
+ * A runner of the command that also measures it: how long each run took and its peak memory in MB (the
+ * process's maxRSS, worker threads included, written at exit by a module loaded first with node --import).
+ */
+export function peakMemoryRunner(folder: string): (args: string[]) => Run & { seconds: number; peakMb: number } {
+  const peakMemoryFile = join(folder, 'peak-rss.txt');
+  const preload = join(folder, 'peak-rss.mjs');
+  writeFileSync(preload, `import { writeFileSync } from 'node:fs';\nprocess.on('exit', () => writeFileSync(${JSON.stringify(peakMemoryFile)}, String(process.resourceUsage().maxRSS)));\n`);
+  return (args) => {
+    rmSync(peakMemoryFile, { force: true });
+    const started = Date.now();
+    const run = plumbline(args, folder, { nodeOptions: ['--import', `file://${preload}`] });
+    const seconds = (Date.now() - started) / 1000;
+    const peakMb = Number(readFileSync(peakMemoryFile, 'utf8')) / 1024;
+    return { ...run, seconds, peakMb };
+  };
 }

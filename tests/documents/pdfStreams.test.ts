@@ -9,6 +9,7 @@ import { readDocument } from '../../src/documents/read.js';
 import { defaultLimits } from '../../src/limits.js';
 import { deflateRepeated, zlibWrapped } from '../fixtures/hostile/makeHostile.js';
 import { demo, DEMO_MANUSCRIPTS, fixture } from './helpers.js';
+import { pdfOfObjects } from '../adversarial/build.js';
 
 /**
  * The decoded size of a PDF's streams, checked before either engine reads
@@ -34,18 +35,7 @@ function pdfWith(streams: { dict: string; data: Buffer }[], extraObjects: string
     ...streams.map(({ dict, data }) => Buffer.concat([Buffer.from(`<< ${dict.replace('{length}', String(data.length))} >>\nstream\n`), data, Buffer.from('\nendstream')])),
     ...extraObjects.map((object) => Buffer.from(object)),
   ];
-  const chunks: Buffer[] = [Buffer.from('%PDF-1.4\n%\xE2\xE3\xCF\xD3\n', 'latin1')];
-  let length = chunks[0]!.length;
-  const offsets: number[] = [];
-  objects.forEach((body, index) => {
-    offsets.push(length);
-    const object = Buffer.concat([Buffer.from(`${index + 1} 0 obj\n`), body, Buffer.from('\nendobj\n')]);
-    chunks.push(object);
-    length += object.length;
-  });
-  const xref = [`xref\n0 ${objects.length + 1}\n`, '0000000000 65535 f \n', ...offsets.map((offset) => `${String(offset).padStart(10, '0')} 00000 n \n`)].join('');
-  chunks.push(Buffer.from(`${xref}trailer\n<< /Size ${objects.length + 1} /Root 1 0 R >>\nstartxref\n${length}\n%%EOF\n`));
-  return Buffer.concat(chunks);
+  return pdfOfObjects(objects);
 }
 
 function write(name: string, bytes: Buffer): string {

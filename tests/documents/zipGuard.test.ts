@@ -7,7 +7,7 @@ import { readDocxBytes } from '../../src/documents/docx.js';
 import { htmlToDocument } from '../../src/documents/html.js';
 import { openZip, XmlNodeCounter } from '../../src/documents/zipGuard.js';
 import { defaultLimits, type Limits } from '../../src/limits.js';
-import { zipArchive } from '../fixtures/hostile/makeHostile.js';
+import { zipArchive } from '../adversarial/build.js';
 import { demo, DEMO_MANUSCRIPTS } from './helpers.js';
 
 /**
