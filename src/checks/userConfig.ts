@@ -1,4 +1,5 @@
-import { readFileSync, statSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readFileSync } from 'node:fs';
+import { notRegularFileMessage, READ_WITHOUT_WAITING, specialFileKind } from '../documents/regularFile.js';
 import { z } from 'zod';
 import { severitySchema } from './catalogue.js';
 import { limitNames, type Limits } from '../limits.js';
@@ -58,10 +59,19 @@ const MAX_SETTINGS_BYTES = 1_000_000;
 export function readUserConfigFile(path: string): UserConfig {
   let raw: unknown;
   try {
-    // A settings file is a few hundred bytes; a huge one is a mistake (or hostile), and is not read whole.
-    const size = statSync(path).size;
-    if (size > MAX_SETTINGS_BYTES) throw new ConfigError(`${path}: ${size} bytes is too large for a settings file (at most ${MAX_SETTINGS_BYTES} bytes)`);
-    raw = JSON.parse(readFileSync(path, 'utf8'));
+    // Opened without waiting and checked on what was opened: a FIFO or a device put in its place after an
+    // earlier check is refused here, never read. A settings file is a few hundred bytes; a huge one is a
+    // mistake (or hostile), and is not read whole.
+    const descriptor = openSync(path, READ_WITHOUT_WAITING);
+    try {
+      const opened = fstatSync(descriptor);
+      const kind = specialFileKind(opened);
+      if (kind !== null) throw new ConfigError(`${path}: ${notRegularFileMessage(kind, null)}`);
+      if (opened.size > MAX_SETTINGS_BYTES) throw new ConfigError(`${path}: ${opened.size} bytes is too large for a settings file (at most ${MAX_SETTINGS_BYTES} bytes)`);
+      raw = JSON.parse(readFileSync(descriptor, 'utf8'));
+    } finally {
+      closeSync(descriptor);
+    }
   } catch (error) {
     if (error instanceof ConfigError) throw error;
     const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'file not found' : `not valid JSON (${(error as Error).message})`;

@@ -42,7 +42,7 @@ export function notRegularFileMessage(kind: string, linkTarget: string | null): 
 }
 
 /** O_NONBLOCK where the platform has it (not on Windows, which has no FIFOs in the file system). */
-const READ_WITHOUT_WAITING = constants.O_RDONLY | (constants.O_NONBLOCK ?? 0);
+export const READ_WITHOUT_WAITING = constants.O_RDONLY | (constants.O_NONBLOCK ?? 0);
 
 export type RegularFileOutcome = { ok: true; handle: FileHandle; size: number } | { ok: false; error: string };
 
