@@ -119,7 +119,7 @@ function readCandidate(text: string, at: number, anchor: string, found: ContextC
     default: {
       const first = anchor.charCodeAt(0);
       if (first === 78) found.sampleSize(readCapitalN(text, at));
-      else if (first === 110) found.sampleSize(readLowerNPerGroup(text, at));
+      else if (first === 110) found.sampleSize(readLowerNPerGroup(text, at) ?? readLowerNAfterSampleNoun(text, at));
       else if (first >= 48 && first <= 57) found.sampleSize(readCountBeforeNoun(text, at) ?? readCountWithoutNoun(text, at));
       else found.adjustment(text, at);
     }
@@ -473,6 +473,29 @@ function readLowerNPerGroup(text: string, at: number): (Span & { value: number; 
   return { start: at, end: end + after[0].length, value: Number(match[1]), scope: 'per-group' };
 }
 
+/** A noun for the whole sample right before a bracketed lower-case n: "Questionnaires (n=125)", "participants (n = 86)". */
+const WHOLE_SAMPLE_NOUN_BEFORE = /\b(?:participants|respondents|subjects|questionnaires|responses|surveys|sample|students|individuals|volunteers)\s?\(\s?$/i;
+/** "of the students (", "20% of participants (": the noun names a part of the sample. */
+const PART_OF_NOUN_BEFORE = /(?:\bof|%)\s(?:the\s|these\s|our\s|all\s)?(?:[A-Za-z-]{1,20}\s)?[A-Za-z]{1,20}\s?\(\s?$/i;
+/** After the bracket, another group's count: "patients (n = 40) and controls (n = 38)" names parts of the sample. */
+const ANOTHER_GROUP_AFTER = /^\s?\)\s?(?:,|;|and\b|vs\.?|versus\b|or\b)/i;
+
+/**
+ * "Questionnaires (n=125) were collected": a lower-case n in brackets right after a noun for the whole sample is
+ * the study's size, unless another group's count follows ("participants (n = 40) and controls (n = 38)").
+ */
+function readLowerNAfterSampleNoun(text: string, at: number): (Span & { value: number; scope: SampleScope }) | null {
+  if (!isWholeWordStart(text, at)) return null;
+  if (!WHOLE_SAMPLE_NOUN_BEFORE.test(text.slice(Math.max(0, at - 20), at))) return null;
+  const match = LOWER_N_PER_GROUP.exec(text.slice(at, at + 16));
+  if (match === null || Number(match[1]) === 0) return null;
+  const end = at + match[0].length;
+  if (ANOTHER_GROUP_AFTER.test(text.slice(end, end + 12))) return null;
+  // "20% of the students (n = 43)": a part of the sample.
+  const part = PART_OF_NOUN_BEFORE.test(text.slice(Math.max(0, at - 60), at));
+  return { start: at, end, value: Number(match[1]), scope: part ? 'subset' : 'total' };
+}
+
 /** Words after a count that mean it is not the sample ("3 participants were excluded"). */
 const EXCLUDED_AFTER = /^\s{0,3}(?:(?:were|was|had been|had to be)\s{1,3})?(?:excluded|removed|dropped|omitted|discarded|lost|withdrew|did not|failed|declined)/i;
 const EXCLUDED_BEFORE = /(?:exclud\w{0,4}|remov\w{0,4}|dropp\w{0,4}|omitt\w{0,4}|discard\w{0,4}|(?:data|responses) (?:of|from))\s{1,3}(?:the\s{1,3})?(?:data\s{1,3}(?:of|from)\s{1,3})?$/i;
@@ -560,6 +583,9 @@ function readSampleNoun(text: string, wordsAt: number, countStart: number, value
 
 /** "20 in each condition", "15 per group" (a count without a sample noun, then a per-group phrase). */
 const BARE_PER_GROUP = /^\s(?:[a-z]{1,20}\s){0,2}?(?:per|in\seach|in\severy|for\seach)\s(?:of\sthe\s(?:[a-z]{1,20}\s)?)?(?:groups?|conditions?|cells?|arms?)\b/i;
+/** Words that name the count after them the sample's size: "a sample of", "a total sample of", "sample size was". */
+const SAMPLE_OF_BEFORE = /\b(?:a|the|our|total|final)\s(?:total\s|final\s|study\s|convenience\s|random\s|representative\s)?sample\s(?:size\s)?(?:of|was|is|comprised|included|consisted\sof)\s$/i;
+
 /** "180 of the 214 participants", "96 out of 120": the first count is part of the second. */
 const PART_OF = /^\s(?:out\s)?of\s(?:the\s|all\s|our\s|these\s)?(?:\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.,])/i;
 
@@ -570,6 +596,11 @@ function readCountWithoutNoun(text: string, lastDigitAt: number): (Span & { valu
   const value = parseCount(count.written);
   if (value === 0) return null;
   const after = text.slice(lastDigitAt + 1, lastDigitAt + 80);
+  // "a sample of 251 first-cycle Peruvian undergraduate mathematics students", "a total sample of 1,024": the
+  // sample's size, whatever words describe it.
+  if (SAMPLE_OF_BEFORE.test(text.slice(Math.max(0, count.start - 40), count.start)) && !PER_GROUP_AFTER.test(after)) {
+    return { start: count.start, end: lastDigitAt + 1, value, scope: 'total' };
+  }
   const perGroup = BARE_PER_GROUP.exec(after);
   if (perGroup !== null) return { start: count.start, end: lastDigitAt + 1 + perGroup[0].length, value, scope: 'per-group' };
   const part = PART_OF.exec(after);

@@ -99,6 +99,9 @@ describe('stated sample sizes', () => {
     ['Thirty-two healthy subjects were enrolled in the study.', 32, 'Thirty-two healthy subjects'],
     ['Twelve children took part.', 12, 'Twelve children'],
     ['We had N = 40. The rest was pilot work.', 40, 'N = 40'],
+    // Real phrasings (tests/corpus/real/passages/dvyb-06.txt, dvyb-10.txt).
+    ['It was carried out in a sample of 251 first-cycle Peruvian undergraduate mathematics students.', 251, '251'],
+    ['Questionnaires (n=125) were collected from sixteen schools.', 125, 'n=125'],
   ])('reads %j', (text, value, phrase) => {
     const sizes = contextOf(text).sampleSizes;
     expect(sizes.map((size) => size.value)).toEqual([value]);
@@ -111,8 +114,15 @@ describe('stated sample sizes', () => {
     'Each of the 12 items was rated.',
     'Responses took 120 ms on average.',
     'Group A (n = 24) was smaller.',
+    'Participants (n = 40) and controls (n = 38) were matched.',
   ])('finds none in %j', (text) => {
     expect(contextOf(text).sampleSizes).toEqual([]);
+  });
+
+  it('reads a lower-case n after "of the students" as a part of the sample', () => {
+    // tests/corpus/real/passages/prose-10.txt: "20% of the students (n = 43) slept less than five hours".
+    const text = 'It was seen that 20% of the students (n = 43) slept less than five hours a day.';
+    expect(contextOf(text).sampleSizes.map((size) => [size.value, size.scope])).toEqual([[43, 'subset']]);
   });
 
   it('reads the N inside a chi-square result as a stated sample size, of that test', () => {

@@ -78,7 +78,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     const cell = cells[index]!;
     if (cell.empty) continue;
     seen++;
-    if (isValueCell(cell)) break;
+    if (isValueCell(cell) && !YEAR_NAME.test(cell.text)) break;
     if (isColumnName(cell.text)) {
       first = index;
       break;
@@ -125,8 +125,19 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     body = cells.slice(bodyStart);
     headerRun = headerRun.slice(0, window + valueCount);
   }
+  // Fewer header cells than values: the columns before the first known name are named by cells no vocabulary
+  // knows ("2011", "2012", "Intervention"): as many of the short cells right before it as are missing.
+  // (Only after a run of at least two known names of value columns, "χ2 (1)", "P": one known name alone may be
+  // a row's label, "Correlation", with the header further back.)
+  const knownRun = headerRun.length >= 2 && headerRun.every((cell) => isColumnName(cell.text) && !['label', 'unknown'].includes(classifyHeader(cell.text).role));
+  const unnamed = grid === null && knownRun && valueCount > headerRun.length ? unnamedColumnsBefore(cells, first, valueCount - headerRun.length, titleLine) : null;
+  if (unnamed !== null) {
+    headerRun = [...unnamed, ...headerRun];
+    first = cells.indexOf(unnamed[0]!);
+  }
   const labelCount = typicalLabelCount(body);
-  const everyCell = grid !== null ? headerRun : valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
+  const everyCell =
+    grid !== null ? headerRun : unnamed !== null ? headerRun : valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
   const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
   const roles = names.map((cell) => classifyHeader(cell.text));
   const known = roles.filter((role) => role.role !== 'unknown' && role.role !== 'label').length;
@@ -213,7 +224,7 @@ function collectCells(lines: Line[], from: number): Cell[] {
     // Before the header, long lines are the caption ("From: <the article's title>"); after it, they end the table.
     const headerSeen = cells.some((cell) => isColumnName(cell.text));
     if (!headerSeen && text.length > MAX_CELL_LENGTH && index - from < MAX_LINES_TO_HEADER) continue;
-    if (text.length > MAX_CELL_LENGTH || NOTE.test(text) || (cells.length > 0 && TITLE.test(text))) break;
+    if ((text.length > MAX_CELL_LENGTH && !isLongRowLabel(text, lines, index)) || NOTE.test(text) || (cells.length > 0 && TITLE.test(text))) break;
     const start = line.start + inner.offset + (inner.text.length - inner.text.trimStart().length);
     // A header row run together on one line among lines of one cell each ("t df p Effect size Cohen's d"):
     // a cell per name.
@@ -231,6 +242,48 @@ function collectCells(lines: Line[], from: number): Cell[] {
 /** A title that says the table holds correlations; and one that says they are of another kind (their df are not N − 2). */
 const SAYS_CORRELATIONS = /correlat/i;
 const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric/i;
+/** Longest cell taken as the name of a column no vocabulary knows. */
+const MAX_UNNAMED_COLUMN = 40;
+
+/**
+ * The `missing` cells right before the header's first known name, when each is a short cell on a line of its
+ * own after the title that names a column (a year, a group: "2011", "Intervention"), not a label header
+ * ("Question", "Variable") and not a caption line; null when there are not that many.
+ */
+function unnamedColumnsBefore(cells: Cell[], first: number, missing: number, titleLine: number): Cell[] | null {
+  const names: Cell[] = [];
+  for (let index = first - 1; index >= 0 && names.length < missing; index--) {
+    const cell = cells[index]!;
+    if (cell.empty) continue;
+    if (cell.line <= titleLine || cell.text.length > MAX_UNNAMED_COLUMN || FROM_LINE.test(cell.text)) return null;
+    if (isValueCell(cell) && !YEAR_NAME.test(cell.text)) return null;
+    if (classifyHeader(cell.text).role === 'label') return null;
+    names.unshift(cell);
+  }
+  return names.length === missing ? names : null;
+}
+
+/** A year naming a column ("2011", "2012"): a header cell, though it reads as a number. */
+const YEAR_NAME = /^(?:19|20)\d{2}$/;
+
+/** Longest row label read as one (a survey question as a table's row label). */
+const MAX_ROW_LABEL_LENGTH = 300;
+
+/**
+ * Whether a line longer than a cell is a long row label rather than prose after the table: one sentence (a
+ * survey question, "(3) Did you have opportunity to …?"), not longer than MAX_ROW_LABEL_LENGTH, and followed
+ * by a short line (the row's next cell).
+ */
+function isLongRowLabel(text: string, lines: Line[], index: number): boolean {
+  if (text.length > MAX_ROW_LABEL_LENGTH || /[.!?;]\s+\p{Lu}/u.test(text)) return false;
+  for (let at = index + 1; at < lines.length && at <= index + MAX_BLANK_RUN + 1; at++) {
+    const next = lines[at]!.text.trim();
+    if (next === '') continue;
+    return next.length <= MAX_CELL_LENGTH / 2;
+  }
+  return false;
+}
+
 /** A page's line naming the article a table comes from ("From: <title>"), part of the caption. */
 const FROM_LINE = /^From:\s/;
 

@@ -26,6 +26,8 @@ export type CellValue =
       /** Offsets of the number (comparator included) inside the cell string. */
       start: number;
       end: number;
+      /** The cell marks the number "n.s." too ("0.07, n.s."). */
+      notSignificant?: true;
     };
 
 /** "—", "–", "-", "--", "." and "" mark an empty cell. */
@@ -39,6 +41,9 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  */
 const NUMBER_CELL =
   /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]{1,3})?$/;
+
+/** "n.s." after a number ("0.07, n.s.", "0.45 NS", "0.30 (ns)"): a mark that the value is not significant. */
+const NS_AFTER_NUMBER = /(?<=\d[*a-h]{0,3}),?\s*\(?(?:[nN]\.\s?[sS]\.?|ns|NS)\)?$/;
 
 /**
  * How a table writes its decimals: '.' ("4.21", thousands "1,234.5") or ','
@@ -109,7 +114,8 @@ function readPlainCell(cell: string, separator: DecimalSeparator): CellValue {
   if (EMPTY_CELL.test(cell)) return { kind: 'empty' };
   const trimmed = cell.trim();
   if (NOT_SIGNIFICANT.test(trimmed)) return { kind: 'ns' };
-  const match = NUMBER_CELL.exec(trimmed);
+  const withoutNs = trimmed.replace(NS_AFTER_NUMBER, '');
+  const match = NUMBER_CELL.exec(withoutNs);
   if (!match) return { kind: 'text' };
   const [, comparatorText, signText = '', digits = '', exponentText] = match;
   const plain = plainDigits(digits, separator);
@@ -128,6 +134,7 @@ function readPlainCell(cell: string, separator: DecimalSeparator): CellValue {
     number,
     start: leading + Math.max(0, firstAt),
     end: leading + lastDigitEnd,
+    ...(withoutNs.length < trimmed.length ? { notSignificant: true as const } : {}),
   };
 }
 
@@ -285,6 +292,11 @@ export function classifyHeader(header: string): ColumnRole {
   }
   // "90% CI", "99% CI", "95 % CI": an interval's level with its name.
   if (CI_WITH_LEVEL.test(key)) return { role: 'descriptive' };
+  // "χ2 or t", "t/χ2", "F/χ2 value": statistics of more than one kind in one column; a cell's kind is
+  // known only from a symbol written in it.
+  if (MIXED_STATISTICS.test(key)) return { role: 'result' };
+  const named = statisticWithDf(key);
+  if (named !== null) return named;
   const knownKey = knownKeyOf(key);
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) {
@@ -309,13 +321,47 @@ export function classifyHeader(header: string): ColumnRole {
   const rSpoilt = qualified?.[1] === 'r' && (/R\)?\s*[.:]?$/.test(header) || /(?:^|[ -])(?:partial|part|semi|multiple|model|adjusted|canonical)(?:[ -]|$)/.test(key));
   // The words before the symbol must not be a column name themselves ("Cohen d t" is two columns run together).
   const prefix = qualified ? key.slice(0, key.lastIndexOf(' ')).trim() : '';
-  const prefixNamed = qualified !== null && (knownKeyOf(prefix) !== null || prefix.split(' ').some((word) => knownKeyOf(word) !== null));
+  // (Nor a conjunction, the rest of a header cut in two: "or t" from "χ2 or t".)
+  const prefixNamed = qualified !== null && (knownKeyOf(prefix) !== null || prefix.split(' ').some((word) => knownKeyOf(word) !== null || CONJUNCTION.test(word)));
   if (qualified && !rSpoilt && !prefixNamed && (qualified[1] !== 'f' || /F\)?\s*[.:]?$/.test(header))) {
     const kind: StatisticKind = qualified[1] === 'f' ? 'F' : qualified[1] === 't' ? 't' : qualified[1] === 'r' ? 'r' : 'chi2';
     return { role: 'statistic', kind, df: [] };
   }
   return { role: 'unknown' };
 }
+
+/**
+ * A statistic's name with its df, in the spellings real headers use: "F-value (1, 52)", "F value (2,57)",
+ * "F(1;44)", "F (2/57)", "Pearson χ2 (1)", "χ2 [1]", "χ2(1 df)", "χ2 value (df = 2)", "t-test (df = 28)",
+ * "χ2, df = 1". Null unless the name is a known statistic and the brackets hold exactly its number of df
+ * (two for F, one otherwise).
+ */
+function statisticWithDf(key: string): ColumnRole | null {
+  const parts = NAME_WITH_DF_BRACKETS.exec(key) ?? NAME_WITH_DF_AFTER_COMMA.exec(key);
+  if (parts === null) return null;
+  const name = parts[1]!.replace(/[- ](?:value|test|ratio|statistic|stat)$/, '');
+  const knownName = ROLE_BY_KEY.get(name);
+  if (knownName?.role !== 'statistic') return null;
+  const df = [parts[2], parts[3]].filter((text): text is string => text !== undefined).map((text) => parseReportedNumber(text)!);
+  if (df.length !== (knownName.kind === 'F' ? 2 : 1)) return null;
+  return { ...knownName, df };
+}
+
+/** Words that join two names: a header they start or join is more than one column's name. */
+const CONJUNCTION = /^(?:or|and|vs\.?|versus|\/)$/;
+
+/** Two or more statistics' symbols in one header, apart by "/", "or", "and" or a comma. */
+const MIXED_STATISTICS =
+  /^(?:(?:test|statistics?|value)\s*\(\s*)?(?:chi2|chi 2|chi-square|x2|t|f|z|h|u)(?:\s*(?:\/|\bor\b|\band\b|,)\s*(?:chi2|chi 2|chi-square|x2|t|f|z|h|u|fisher(?:'s)?(?: exact)?))+\s*\)?(?:[- ](?:values?|tests?|statistics?))?$/;
+
+/** A df value in a header: a whole number or a corrected decimal one. */
+const HEADER_DF_NUMBER = String.raw`(\d{1,5}(?:\.\d{1,3})?)`;
+/** "<name> (1, 52)", "<name> [1]", "<name> (df = 1)", "<name> (1 df)", "<name> (2/57)", "<name>(1;44)". */
+const NAME_WITH_DF_BRACKETS = new RegExp(
+  String.raw`^([a-z][a-z0-9' -]{0,30}?)\s*[(\[]\s*(?:d\.?f\.?\s*[=:]?\s*)?${HEADER_DF_NUMBER}(?:\s*[,;/]\s*${HEADER_DF_NUMBER})?\s*(?:d\.?f\.?)?\s*[)\]]$`,
+);
+/** "<name>, df = 1", "<name>, df 1". */
+const NAME_WITH_DF_AFTER_COMMA = new RegExp(String.raw`^([a-z][a-z0-9' -]{0,30}?)\s*,\s*d\.?f\.?\s*[=:]?\s*${HEADER_DF_NUMBER}(?:\s*[,;/]\s*${HEADER_DF_NUMBER})?$`);
 
 /** A generic name for effect sizes with the one the column holds: "effect size (etap2)", "es (d)", "effect size cohen's d". */
 const GENERIC_EFFECT_WITH_NAME = /^(?:effect sizes?|es|eff\. size)(?:\s?\(([^()]{1,20})\)| ([^()]{1,20}))$/;
@@ -328,8 +374,8 @@ const QUALIFIED_STATISTIC = /^[a-z][a-z0-9'\u2019-]*(?: [a-z0-9'\u2019-]+){0,2} 
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
 export function isKnownHeader(key: string): boolean {
-  if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key)) return true;
-  if (CI_WITH_LEVEL.test(key)) return true;
+  if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key) || statisticWithDf(key) !== null) return true;
+  if (CI_WITH_LEVEL.test(key) || MIXED_STATISTICS.test(key)) return true;
   if (GENERIC_EFFECT_WITH_NAME.test(key) && classifyHeader(key).role === 'effect') return true;
   // "Benefits r": a statistic after what it tests (only with its symbol as the phrase's last word).
   if (QUALIFIED_STATISTIC.test(key) && key.includes(' ') && classifyHeader(key).role === 'statistic') return true;

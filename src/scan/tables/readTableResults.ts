@@ -1165,6 +1165,8 @@ interface RowInput {
 interface NumberCell {
   comparator: Comparator;
   record: CellRecord;
+  /** The cell marks its number "n.s." too. */
+  notSignificant?: true;
 }
 
 function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): NumberCell | null | 'ns' {
@@ -1176,7 +1178,12 @@ function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column:
   const at = cellsAt?.[column] ?? null;
   const start = at === null ? -1 : at.start + read.start;
   const end = at === null ? -1 : at.start + read.end;
-  return { comparator: read.comparator, record: { ...read.number, start, end } };
+  return { comparator: read.comparator, record: { ...read.number, start, end }, ...(read.notSignificant ? { notSignificant: true as const } : {}) };
+}
+
+/** A plain whole number without comparator or exponent ("0", "1", "12"). */
+function isWholeNumberCell(cell: NumberCell): boolean {
+  return cell.comparator === '=' && cell.record.decimals === 0 && cell.record.exponent === 0;
 }
 
 function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): NumberCell | null {
@@ -1289,7 +1296,10 @@ function readRow(input: RowInput): ReportedResult | null {
   // the error df alone (Welch, Brown-Forsythe); a fractional effect df beside a whole error df is another column's number.
   if (kind === 'F' && readDf.length === 2 && !Number.isInteger(readDf[0]!.value) && Number.isInteger(readDf[1]!.value)) return null;
 
-  const pCell = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
+  const printedP = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
+  // A whole number under p ("0", "1") is not a p as tables print one (with decimals, or "< .001"): it is a count
+  // placed in the p column of a row that prints fewer cells than the header names (common practice).
+  const pCell = printedP !== null && printedP !== 'ns' && isWholeNumberCell(printedP) ? null : printedP;
   if (pCell !== null && pCell !== 'ns') record('p', pCell);
   // No p printed, but marks after the statistic that the notes define: the p bound they give.
   const markedP = pCell === null ? pFromMarks(row, cellsAt, columns.get('statistic'), input.legend) : null;
@@ -1329,7 +1339,7 @@ function readRow(input: RowInput): ReportedResult | null {
       pCell === null || pCell === 'ns'
         ? markedP
         : { comparator: pCell.comparator, value: stripOffsets(pCell.record), plural: false, start: pCell.record.start, end: pCell.record.end },
-    notSignificant: pCell === 'ns',
+    notSignificant: pCell === 'ns' || pCell?.notSignificant === true,
     effects,
     tableRow: {
       tableIndex: input.tableIndex,

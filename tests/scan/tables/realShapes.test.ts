@@ -450,3 +450,70 @@ describe('a table whose header and rows a copy glued together (divx-02: "Variabl
     expect(tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
   });
 });
+
+describe('a statistic header carries its df in the spellings real tables use', () => {
+  // Common practice: tables name the df beside the statistic in many spellings; each is the column's df.
+  it.each([
+    ['F-value (1, 52)', 'F', [1, 52]],
+    ['F value (2,57)', 'F', [2, 57]],
+    ['F(1;44)', 'F', [1, 44]],
+    ['F (2/57)', 'F', [2, 57]],
+    ['t-test (df = 28)', 't', [28]],
+    ['χ 2 (1)', 'chi2', [1]],
+    ['χ2 [1]', 'chi2', [1]],
+    ['Pearson χ2 (1)', 'chi2', [1]],
+    ['χ2(1 df)', 'chi2', [1]],
+    ['χ2 test (df=1)', 'chi2', [1]],
+    ['χ2 value (1 df)', 'chi2', [1]],
+    ['χ2, df = 2', 'chi2', [2]],
+  ])('%s', async (header, kind, df) => {
+    const { classifyHeader } = await import('../../../src/scan/tables/cells.js');
+    const role = classifyHeader(header);
+    expect(role).toMatchObject({ role: 'statistic', kind });
+    expect(role.role === 'statistic' ? role.df.map((number) => number.value) : null).toEqual(df);
+  });
+
+  it('takes no df from brackets that hold something else, or from too few numbers for F', async () => {
+    const { classifyHeader } = await import('../../../src/scan/tables/cells.js');
+    for (const header of ['F (p)', 't (two-tailed)', 'r (n = 120)', 'F value (3)']) {
+      const role = classifyHeader(header);
+      expect(role.role === 'statistic' ? role.df : []).toEqual([]);
+    }
+  });
+});
+
+describe('real table shapes: survey questions as row labels, years as column names (divt-06)', () => {
+  // One cell per line: "Question | 2011 | 2012 | χ2 (1) | P"; each question's "Yes" row prints the χ2 and p,
+  // its "No" row only counts; five questions are longer than a cell usually is; "0.07, n.s." under P.
+  it('reads each question\'s chi-square with df 1 from the header, its p and the "n.s." beside it', () => {
+    const { results } = scan('divt-06');
+    expect(results.map(summary)).toEqual([
+      'chi2(1) = 13.612 p < 0.01',
+      'chi2(1) = 24.198 p < 0.01',
+      'chi2(1) = 3.362 p = 0.07',
+      'chi2(1) = 0.565 p = 0.45',
+      'chi2(1) = 1.087 p = 0.30',
+      'chi2(1) = 7.071 p < 0.01',
+      'chi2(1) = 21.275 p < 0.01',
+      'chi2(1) = 10.285 p < 0.01',
+      'chi2(1) = 3.288 p = 0.07',
+    ]);
+    expect(results.filter((result) => result.notSignificant)).toHaveLength(4);
+  });
+});
+
+describe('real table shapes: one column for two kinds of statistic (dvya-10)', () => {
+  // "χ2 or t" heads a column of chi-squares and t values, with Fisher's exact statistics marked "a"; a row of
+  // counts "0 | 0" under the χ2 and p columns. Which kind a bare value is cannot be read, and a count is no p.
+  it('reads no statistic of a guessed kind, and no count as a p', () => {
+    const { results } = scan('dvya-10');
+    expect(results.filter((result) => result.tableRow !== undefined && result.value?.text === '0.86')).toEqual([]);
+    expect(results.filter((result) => result.p?.value.text === '0')).toEqual([]);
+  });
+
+  it('keeps the mixed header whole and reads a cell that writes its symbol', async () => {
+    const { classifyHeader } = await import('../../../src/scan/tables/cells.js');
+    for (const header of ['χ2 or t', 't/χ2', 'F/χ2 value', 'Test (χ2/t)']) expect(classifyHeader(header).role).toBe('result');
+    expect(classifyHeader('or t').role).toBe('unknown');
+  });
+});
