@@ -386,8 +386,13 @@ function isValueToken(text: string): boolean {
   // A number with a bracketed one ("0.59 (0.5)": M and SD; "4.842 (15)": t and its df), a df pair ("2, 180"), an estimate with its interval.
   // A range ("0.000-0.048", an interval's bounds), and a result written in a cell ("F(2,75)=0.31"), are values of the row too.
   const shape = shapeOf(text).shape;
-  return shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written';
+  if (shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written') return true;
+  // "<0.001 (1, 6)": a p with the next F's df run onto it (the table reader takes the df for that F).
+  return P_WITH_DF_AFTER.test(text);
 }
+
+/** A bound p followed by a df pair in brackets. */
+const P_WITH_DF_AFTER = /^(?:<=|>=|<|>|\u2264|\u2265)\s?0?\.\d+\s+\(\d{1,4}(?:\.\d{1,2})?,\s?\d{1,5}(?:\.\d{1,2})?\)$/;
 
 function isNumberToken(text: string): boolean {
   return readCell(text, 'either').kind === 'number';

@@ -1172,7 +1172,9 @@ interface NumberCell {
 function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): NumberCell | null | 'ns' {
   if (column === undefined) return null;
   const cell = row[column] ?? '';
-  const read = readCell(cell, separator);
+  // "0.001 (1, 6)": a number with the next column's df run onto it by a crushed copy (see dfPairBefore).
+  const trailing = TRAILING_DF_PAIR.exec(cell.trim());
+  const read = readCell(trailing === null ? cell : cell.slice(0, cell.indexOf(trailing[1]!) + trailing[1]!.length), separator);
   if (read.kind === 'ns') return 'ns';
   if (read.kind !== 'number') return null;
   const at = cellsAt?.[column] ?? null;
@@ -1184,6 +1186,29 @@ function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column:
 /** A plain whole number without comparator or exponent ("0", "1", "12"). */
 function isWholeNumberCell(cell: NumberCell): boolean {
   return cell.comparator === '=' && cell.record.decimals === 0 && cell.record.exponent === 0;
+}
+
+/** A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)". */
+const TRAILING_DF_PAIR = /^([-\u2212<>=]?\s?\d*\.?\d+[*a-h]{0,3})\s+\((\d{1,4}(?:\.\d{1,2})?),\s?(\d{1,5}(?:\.\d{1,2})?)\)$/;
+
+/**
+ * The df pair printed before an F when a crushed copy ran it onto the cell before ("Treatment F P" over
+ * "18.66 47.43 (1, 6) 43.7 0.001"): read only when the cell before is another column's number followed by two
+ * df in brackets, the first smaller than the second (a decimal pair around the number is its interval).
+ */
+function dfPairBefore(row: string[], columns: Map<string, number>): [ReportedNumber, ReportedNumber] | null {
+  const at = columns.get('statistic');
+  if (at === undefined || at < 2) return null;
+  const match = TRAILING_DF_PAIR.exec((row[at - 1] ?? '').trim());
+  if (match === null) return null;
+  const first = parseReportedNumber(match[2]!);
+  const second = parseReportedNumber(match[3]!);
+  const before = Number(match[1]!.replace(/[^\d.-]/g, ''));
+  if (first === null || second === null || !(first.value >= 1 && first.value < second.value)) return null;
+  // (Corrected df are decimal, "(1.6, 9.9)"; a decimal pair around the number is its interval.)
+  const whole = first.decimals === 0 && second.decimals === 0;
+  if (!whole && before >= first.value && before <= second.value) return null;
+  return [first, second];
 }
 
 function plainNumber(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): NumberCell | null {
@@ -1272,10 +1297,12 @@ function readRow(input: RowInput): ReportedResult | null {
     errorDf = errorCells.df ?? errorCells.df1 ?? null;
   }
 
+  // "47.43 (1, 6) 43.7": an F's df printed in front of it, run onto the cell before by a crushed copy.
+  const dfBefore = kind === 'F' && dfCell === null && df1Cell === null && df2Cell === null ? dfPairBefore(row, columns) : null;
   const df = degreesOfFreedom(kind, {
     dfCell: dfCell?.record ?? null,
-    df1Cell: df1Cell?.record ?? null,
-    df2Cell: df2Cell?.record ?? null,
+    df1Cell: dfBefore?.[0] ?? df1Cell?.record ?? null,
+    df2Cell: dfBefore?.[1] ?? df2Cell?.record ?? null,
     errorDf,
     labelDf,
     headerDf: segment.headerDf,
@@ -1603,7 +1630,11 @@ interface NoteDf {
 }
 
 const NOTE_ERROR_DF = /(?:error|residual)\s+dfs?\s*=\s*(\d+(?:\.\d+)?)|\bdfs?\s*(?:\(\s*error\s*\)|error|residual)\s*=\s*(\d+(?:\.\d+)?)/i;
-const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*=\s*(?:\(\s*)?(\d+(?:\.\d+)?)(?:\s*,\s*(\d+(?:\.\d+)?))?\s*\)?/i;
+const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*(?:[=:]\s*|(?=\())(?:\(\s*)?(\d+(?:\.\d+)?)(?:\s*[,;/]\s*(\d+(?:\.\d+)?))?\s*\)?/i;
+/** "df1 = 2, df2 = 57", "df1 = 2 and df2 = 57". */
+const NOTE_DF_NUMBERED = /(?:^|[^a-z])df\s?1\s*=\s*(\d+(?:\.\d+)?)\s*[,;]?\s*(?:and\s+)?df\s?2\s*=\s*(\d+(?:\.\d+)?)/i;
+/** "2 and 57 degrees of freedom", "with 2 and 57 df". */
+const NOTE_DF_AND = /(?:^|[^\d.])(\d+(?:\.\d+)?)\s+and\s+(\d+(?:\.\d+)?)\s+(?:degrees of freedom|dfs?\b|d\.f\.)/i;
 const NOTE_F_DF = /(?:^|[^a-z])F\s*\(\s*(\d+(?:\.\d+)?)\s*,\s*(\d+(?:\.\d+)?)\s*\)/;
 
 function readNoteDf(note: string): NoteDf {
@@ -1612,6 +1643,8 @@ function readNoteDf(note: string): NoteDf {
   const errorMatch = NOTE_ERROR_DF.exec(text);
   const error = errorMatch ? parseReportedNumber(errorMatch[1] ?? errorMatch[2]!) : null;
   const withoutError = errorMatch ? text.slice(0, errorMatch.index) + text.slice(errorMatch.index + errorMatch[0].length) : text;
+  const numbered = NOTE_DF_NUMBERED.exec(withoutError) ?? NOTE_DF_AND.exec(withoutError);
+  if (numbered) return { ...none, pair: [parseReportedNumber(numbered[1]!)!, parseReportedNumber(numbered[2]!)!], error };
   const dfMatch = NOTE_DF.exec(withoutError);
   if (dfMatch) {
     const first = parseReportedNumber(dfMatch[1]!)!;

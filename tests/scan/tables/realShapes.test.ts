@@ -517,3 +517,24 @@ describe('real table shapes: one column for two kinds of statistic (dvya-10)', (
     expect(classifyHeader('or t').role).toBe('unknown');
   });
 });
+
+describe('real table shapes: df printed in front of each F, run onto the cell before (dvyc-01)', () => {
+  // Crushed: "Treatment Time Interaction / mean mean F P F P F P" over "Corg … 18.66 47.43 (1, 6) 43.7 0.001 (1, 6)
+  // 0.0 0.951 2.5 0.165": each effect's df stand before its F; the interaction prints none.
+  it('gives each F the df printed before it and reads the p the df were run onto', () => {
+    const { results } = scan('dvyc-01');
+    const corg = results.filter((result) => result.tableRow?.rowLabel.startsWith('Corg'));
+    expect(corg.map(summary)).toEqual(['F(1, 6) = 43.7 p = 0.001', 'F(1, 6) = 0.0 p = 0.951', 'F() = 2.5 p = 0.165']);
+    const doc = results.filter((result) => result.tableRow?.rowLabel === 'DOC:DON');
+    expect(doc.map(summary)).toEqual(['F(1, 6) = 0.0 p = 0.909', 'F(1.6, 9.9) = 14.4 p = 0.002', 'F() = 0.8 p = 0.454']);
+  });
+});
+
+describe('df stated in a table caption in the ways captions state them', () => {
+  // Common practice: a caption may give the df every F of the table shares.
+  it.each(['One-way ANOVA (degrees of freedom: 2, 57)', 'ANOVA results; all F tests have 2 and 57 degrees of freedom', 'Results of ANOVA (df1 = 2, df2 = 57)', 'ANOVA (df = 2/57)', 'ANOVA, degrees of freedom (2, 57)'])('%s', (caption) => {
+    const text = `Table 2. ${caption}\n\nMeasure | F | p\nAnxiety | 4.21 | .020\nDepression | 0.52 | .597\n`;
+    const { results } = scanDocument(plainTextDocument('caption.txt', 'text', text));
+    expect(results.map(summary)).toEqual(['F(2, 57) = 4.21 p = .020', 'F(2, 57) = 0.52 p = .597']);
+  });
+});
