@@ -1,0 +1,64 @@
+/**
+ * Real table and prose shapes through the built command line, on real corpus
+ * passages (tests/corpus/real/passages/<id>.txt; source and licence in
+ * tests/corpus/real/labels/<id>.json):
+ * - dvyc-01: a crushed two-way ANOVA table whose df stand before each F and
+ *   were run onto the cell before ("47.43 (1, 6) 43.7 0.001 (1, 6) 0.0");
+ * - divt-06: one cell per line, years as column names, survey questions as
+ *   row labels, "χ2 (1)" in the header and "0.07, n.s." under P;
+ * - dvyb-10: correlations in an abstract without df, the sample stated once
+ *   as "Questionnaires (n=125)".
+ */
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { reportSchema } from '../../src/report/model.js';
+
+const root = join(__dirname, '..', '..');
+const cli = join(root, 'dist', 'src', 'cli', 'main.js');
+const passage = (id: string): string => join(root, 'tests', 'corpus', 'real', 'passages', `${id}.txt`);
+
+function scanJson(path: string) {
+  let out: string;
+  try {
+    out = execFileSync('node', [cli, 'scan', path, '--no-cache', '--quiet', '--format', 'json'], { encoding: 'utf8' });
+  } catch (error) {
+    out = (error as { stdout: string }).stdout;
+  }
+  return reportSchema.parse(JSON.parse(out)).documents[0]!;
+}
+
+describe('real table shapes from the command line', () => {
+  it('reads the F tests of a crushed table with the df printed before each F, and flags none of them', () => {
+    const document = scanJson(passage('dvyc-01'));
+    const tests = document.statistics.filter((statistic) => statistic.inTable && statistic.kind === 'F' && statistic.df.length === 2);
+    expect(tests.length).toBeGreaterThanOrEqual(25);
+    expect(tests[0]).toMatchObject({ df: [1, 6], value: 43.7 });
+    expect(tests.flatMap((statistic) => statistic.findings).filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+  });
+
+  it('flags a p that the F and its df, printed before it, cannot give', () => {
+    // F(1, 6) = 43.7 gives p = 0.00058 (SciPy 1.10.1 scipy.stats.f.sf(43.7, 1, 6), computed when the test was written).
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-real-shapes-'));
+    const changed = join(directory, 'anova.txt');
+    writeFileSync(changed, readFileSync(passage('dvyc-01'), 'utf8').replace('47.43 (1, 6) 43.7 0.001', '47.43 (1, 6) 43.7 0.061'));
+    const flagged = scanJson(changed).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    expect(flagged.map((statistic) => [statistic.value, statistic.df])).toEqual([[43.7, [1, 6]]]);
+  });
+
+  it('reads each survey question\'s chi-square with the df of its header', () => {
+    const document = scanJson(passage('divt-06'));
+    const tests = document.statistics.filter((statistic) => statistic.kind === 'chi2');
+    expect(tests).toHaveLength(9);
+    expect(tests.every((statistic) => statistic.df[0] === 1)).toBe(true);
+  });
+
+  it('checks correlations without df against the sample the abstract states once', () => {
+    const document = scanJson(passage('dvyb-10'));
+    const correlations = document.statistics.filter((statistic) => statistic.kind === 'r');
+    expect(correlations.length).toBeGreaterThanOrEqual(4);
+    expect(correlations.every((statistic) => statistic.df[0] === 123 && statistic.dfFrom === 'study-sample-size')).toBe(true);
+  });
+});
