@@ -51,3 +51,17 @@ describe('a correlation matrix from the command line', () => {
     expect(findings[0]!.message).toContain('the mark "***" (p < 0.001 by the table\'s note)');
   });
 });
+
+describe('a correlation matrix whose cells ran together, from the command line', () => {
+  // tests/corpus/real/passages/dvyb-09.txt (source and licence in its label): 15 numbered variables, a lower
+  // triangle cut from runs such as "-.23-.27-.26-.34", no N in the note.
+  it('reports all 105 correlations, each at its place in the text', () => {
+    const gluedPassage = join(root, 'tests', 'corpus', 'real', 'passages', 'dvyb-09.txt');
+    const text = readFileSync(gluedPassage, 'utf8');
+    const correlations = scanJson(gluedPassage).statistics.filter((statistic) => statistic.inTable && statistic.kind === 'r');
+    expect(correlations).toHaveLength(105);
+    expect(correlations[0]!.text).toBe('.61');
+    expect(text.includes('relations.61')).toBe(true);
+    expect(correlations.flatMap((statistic) => statistic.findings).filter((finding) => finding.severity === 'fail')).toEqual([]);
+  });
+});

@@ -25,6 +25,7 @@ import { shapeOf } from './align.js';
 import { readCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
+import { readGluedMatrix } from './gluedMatrix.js';
 import { readTransposedTable } from './transposed.js';
 
 interface Line extends TextLine {
@@ -64,7 +65,7 @@ export function findTextTables(text: string): DocumentTable[] {
     const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
       const rebuilt =
-        (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index)) : null) ??
+        (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index) ?? readGluedMatrix(lines, index)) : null) ??
         readGluedTable(lines, index);
       if (rebuilt !== null) {
         const title = rebuilt.table.caption === null ? readTitle(lines, index) : null;

@@ -538,3 +538,35 @@ describe('df stated in a table caption in the ways captions state them', () => {
     expect(results.map(summary)).toEqual(['F(2, 57) = 4.21 p = .020', 'F(2, 57) = 0.52 p = .597']);
   });
 });
+
+describe('real table shapes: correlation matrices whose cells ran together (dvyb-09, dvya-08, dvyb-05)', () => {
+  it('cuts a numbered lower triangle with hyphen minus signs and a run-together header "1234567891011121314"', () => {
+    const { results } = scan('dvyb-09');
+    const correlations = results.filter((result) => result.kind === 'r');
+    // 15 variables, lower triangle without diagonal: 15 × 14 / 2.
+    expect(correlations).toHaveLength(105);
+    expect(summary(correlations[0]!)).toBe('r() = .61');
+    expect(correlations.filter((result) => result.value!.value < 0)).toHaveLength(44);
+  });
+
+  it('cuts rows with stars and the diagonal "1" run onto the last value ("0.49**1")', () => {
+    const { results } = scan('dvya-08');
+    const correlations = results.filter((result) => result.kind === 'r');
+    expect(correlations).toHaveLength(45);
+    expect(correlations.map((result) => result.value!.text).slice(0, 3)).toEqual(['0.49', '0.59', '0.43']);
+    expect(correlations.some((result) => result.value!.value === 1)).toBe(false);
+  });
+
+  it('cuts a grid named by variables, the header names run together ("MotivationRehearsalOrganization…")', () => {
+    const { results } = scan('dvyb-05');
+    const correlations = results.filter((result) => result.kind === 'r');
+    expect(correlations).toHaveLength(42);
+    expect(correlations[0]!.tableRow?.rowLabel).toBe('Intrinsic × Rehearsal');
+  });
+
+  it('reads no run-together numbers as correlations under a title that does not say so', () => {
+    const text = passage('dvyb-09').replace('Correlation matrix.', 'Matrix of distances.');
+    const { results } = scanDocument(plainTextDocument('distances.txt', 'text', text));
+    expect(results.filter((result) => result.kind === 'r')).toEqual([]);
+  });
+});
