@@ -62,3 +62,35 @@ describe('real table shapes from the command line', () => {
     expect(correlations.every((statistic) => statistic.df[0] === 123 && statistic.dfFrom === 'study-sample-size')).toBe(true);
   });
 });
+
+describe('an HTML table left as markup in a Markdown file, from the command line', () => {
+  // Invented example (common practice: Markdown converted from XML keeps tables with spanning cells as HTML).
+  const markdown = [
+    'Table 2. Effects of training on each outcome.',
+    '',
+    '<table><thead><tr><th rowspan="2">Measure</th><th colspan="2">Session 1</th><th colspan="2">Session 2</th></tr>',
+    '<tr><th>F(1, 40)</th><th>p</th><th>F(1, 38)</th><th>p</th></tr></thead>',
+    '<tbody><tr><td>Recall</td><td>5.21</td><td>.028</td><td>0.44</td><td>.511</td></tr>',
+    '<tr><td>Recognition</td><td>7.90</td><td>.008</td><td>1.02</td><td>.019</td></tr></tbody></table>',
+    '',
+  ].join('\n');
+
+  it('reads each cell under its spanning header with the df of its block, and flags the p its F cannot give', () => {
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-html-in-md-'));
+    const path = join(directory, 'results.md');
+    writeFileSync(path, markdown);
+    const statistics = scanJson(path).statistics;
+    expect(statistics.map((statistic) => [statistic.value, statistic.df, statistic.p?.value])).toEqual([
+      [5.21, [1, 40], 0.028],
+      [0.44, [1, 38], 0.511],
+      [7.9, [1, 40], 0.008],
+      [1.02, [1, 38], 0.019],
+    ]);
+    // F(1, 38) = 1.02 gives p = 0.319 (SciPy 1.10.1 scipy.stats.f.sf(1.02, 1, 38), computed when the test was written).
+    const flagged = statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    expect(flagged.map((statistic) => statistic.value)).toEqual([1.02]);
+    // Each result points at its own cell inside the markup.
+    const text = readFileSync(path, 'utf8');
+    expect(text.slice(flagged[0]!.start, flagged[0]!.end)).toContain('1.02');
+  });
+});

@@ -26,6 +26,7 @@ import { readCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
 import { readGluedMatrix } from './gluedMatrix.js';
+import { readHtmlTableInText } from './htmlInText.js';
 import { readTransposedTable } from './transposed.js';
 
 interface Line extends TextLine {
@@ -62,6 +63,14 @@ export function findTextTables(text: string): DocumentTable[] {
   const tables: DocumentTable[] = [];
   let index = 0;
   while (index < lines.length) {
+    // An HTML table left as markup ("<table> … </table>", as Markdown converted from XML keeps complex tables).
+    const markup = lines[index]!.text.includes('<') ? readHtmlTableInText(text, lines, index) : null;
+    if (markup !== null) {
+      const title = markup.table.caption === null ? readTitle(lines, index, true) : null;
+      tables.push(title === null ? markup.table : { ...markup.table, caption: title.caption, start: lines[title.firstLine]!.start });
+      index = markup.lastLine + 1;
+      continue;
+    }
     const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
     if (found === null) {
       const rebuilt =

@@ -148,3 +148,25 @@ describe('findTextTables: not tables', () => {
     expect(() => findTextTables(hostile)).not.toThrow();
   });
 });
+
+describe('HTML tables left as markup in text', () => {
+  it('lays spanning cells out as empty cells and points each cell at its text', () => {
+    const text = '<table><tr><th rowspan="2">Measure</th><th colspan="2">Pre</th></tr><tr><th>t</th><th>p</th></tr>\n<tr><td>Recall</td><td> 2.10 </td><td>.041</td></tr></table>';
+    const [table] = findTextTables(text);
+    expect(table!.rows).toEqual([['Measure', 'Pre', ''], ['', 't', 'p'], ['Recall', '2.10', '.041']]);
+    expect(table!.headerRows).toBe(2);
+    const cell = table!.cells![2]![1]!;
+    expect(text.slice(cell.start, cell.end)).toBe('2.10');
+  });
+
+  it('reads a table cut off before its end tag up to its last complete row', () => {
+    const text = 'Table 1. Cut.\n\n<table>\n<tr><th>Measure</th><th>t</th><th>p</th></tr>\n<tr><td>A</td><td>2.10</td><td>.041</td></tr>\n<tr><td>B</td><td>1.';
+    const [table] = findTextTables(text);
+    expect(table!.rows).toEqual([['Measure', 't', 'p'], ['A', '2.10', '.041']]);
+  });
+
+  it('leaves markup nested past the element limits alone instead of failing', () => {
+    const text = `<table><tr><td>${'<div>'.repeat(5000)}x${'</div>'.repeat(5000)}</td></tr><tr><td>1</td></tr></table>`;
+    expect(() => findTextTables(text)).not.toThrow();
+  });
+});
