@@ -26,7 +26,7 @@ import { readCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
 import { readGluedMatrix } from './gluedMatrix.js';
-import { readHtmlTableInText } from './htmlInText.js';
+import { EndTags, readHtmlTableInText } from './htmlInText.js';
 import { readTransposedTable } from './transposed.js';
 
 interface Line extends TextLine {
@@ -61,13 +61,16 @@ const COLUMN_CODE = /^[A-Za-z]{1,3}\d{1,3}(?:[\u2013\u2014-]\d{1,3})?[a-z]?$/;
 export function findTextTables(text: string): DocumentTable[] {
   const lines = splitLines(text).map(withConsistentSeparators);
   const tables: DocumentTable[] = [];
+  let endTags: EndTags | undefined;
   let index = 0;
   while (index < lines.length) {
     // An HTML table left as markup ("<table> … </table>", as Markdown converted from XML keeps complex tables).
-    const markup = lines[index]!.text.includes('<') ? readHtmlTableInText(text, lines, index) : null;
+    const markup = lines[index]!.text.includes('<') ? readHtmlTableInText(text, lines, index, (endTags ??= new EndTags(text))) : null;
     if (markup !== null) {
-      const title = markup.table.caption === null ? readTitle(lines, index, true) : null;
-      tables.push(title === null ? markup.table : { ...markup.table, caption: title.caption, start: lines[title.firstLine]!.start });
+      if (markup.table !== null) {
+        const title = markup.table.caption === null ? readTitle(lines, index, true) : null;
+        tables.push(title === null ? markup.table : { ...markup.table, caption: title.caption, start: lines[title.firstLine]!.start });
+      }
       index = markup.lastLine + 1;
       continue;
     }

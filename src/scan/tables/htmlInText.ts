@@ -33,33 +33,82 @@ const MAX_SPAN = 50;
 
 const TABLE_START = /<table\b/i;
 
-/** An HTML table whose start tag stands on `lines[index]`, with the index of the line of its end tag; or null. */
-export function readHtmlTableInText(text: string, lines: Line[], index: number): { table: DocumentTable; lastLine: number } | null {
+/** Where the end tags of tables and rows stand in a text, found once per text (so that many start tags cost one pass). */
+export class EndTags {
+  private tableEnds: number[] | null = null;
+  private rowEnds: number[] | null = null;
+
+  constructor(private readonly text: string) {}
+
+  /** The first "</table>" at or after `from` and before `limit` (its end offset), or -1. */
+  tableEndAfter(from: number, limit: number): number {
+    this.tableEnds ??= endsOf(this.text, /<\/table\s*>/gi);
+    return firstIn(this.tableEnds, from, limit);
+  }
+
+  /** The last "</tr>" at or after `from` and before `limit` (its end offset), or -1. */
+  lastRowEndBefore(from: number, limit: number): number {
+    this.rowEnds ??= endsOf(this.text, /<\/tr\s*>/gi);
+    let found = -1;
+    let low = 0;
+    let high = this.rowEnds.length;
+    while (low < high) {
+      const middle = (low + high) >> 1;
+      if (this.rowEnds[middle]! <= limit) low = middle + 1;
+      else high = middle;
+    }
+    if (low > 0 && this.rowEnds[low - 1]! > from) found = this.rowEnds[low - 1]!;
+    return found;
+  }
+}
+
+function endsOf(text: string, pattern: RegExp): number[] {
+  const ends: number[] = [];
+  for (let match = pattern.exec(text); match !== null; match = pattern.exec(text)) ends.push(match.index + match[0].length);
+  return ends;
+}
+
+function firstIn(sorted: number[], from: number, limit: number): number {
+  let low = 0;
+  let high = sorted.length;
+  while (low < high) {
+    const middle = (low + high) >> 1;
+    if (sorted[middle]! <= from) low = middle + 1;
+    else high = middle;
+  }
+  const found = sorted[low];
+  return found !== undefined && found <= limit ? found : -1;
+}
+
+/**
+ * An HTML table whose start tag stands on `lines[index]`: the table (null when the markup holds no table of two
+ * rows or more) and the index of the line of its end, so that the markup is read once; null when no table starts
+ * on that line or no row ends after it.
+ */
+export function readHtmlTableInText(text: string, lines: Line[], index: number, ends: EndTags): { table: DocumentTable | null; lastLine: number } | null {
   const line = lines[index];
   if (line === undefined) return null;
   const startInLine = line.text.search(TABLE_START);
   if (startInLine < 0) return null;
   const start = line.start + startInLine;
-  const window = text.slice(start, start + MAX_TABLE_MARKUP);
-  const lower = window.toLowerCase();
+  const limit = start + MAX_TABLE_MARKUP;
   // A table cut off before its end tag (an excerpt, a truncated file) is read up to its last complete row.
-  const endAt = lower.indexOf('</table>');
-  const lastRowEnd = lower.lastIndexOf('</tr>');
-  if (endAt < 0 && lastRowEnd < 0) return null;
-  const markup = endAt >= 0 ? window.slice(0, endAt + '</table>'.length) : window.slice(0, lastRowEnd + '</tr>'.length);
+  const tableEnd = ends.tableEndAfter(start, limit);
+  const end = tableEnd >= 0 ? tableEnd : ends.lastRowEndBefore(start, limit);
+  if (end < 0) return null;
+  const markup = text.slice(start, end);
+  let lastLine = index;
+  while (lastLine + 1 < lines.length && lines[lastLine + 1]!.start < end) lastLine++;
   let root;
   try {
     root = parseLimitedDocument(markup, { decodeEntities: true, lowerCaseTags: true, lowerCaseAttributeNames: true, withStartIndices: true, withEndIndices: true }, defaultLimits);
   } catch {
-    return null;
+    return { table: null, lastLine };
   }
   const table = root.children.find((node): node is Element => isTag(node) && node.name === 'table');
-  if (table === undefined) return null;
+  if (table === undefined) return { table: null, lastLine };
   const read = readRows(table, start);
-  if (read.rows.length < 2) return null;
-  const end = start + markup.length;
-  let lastLine = index;
-  while (lastLine + 1 < lines.length && lines[lastLine + 1]!.start < end) lastLine++;
+  if (read.rows.length < 2) return { table: null, lastLine };
   return {
     table: {
       start,
