@@ -106,7 +106,7 @@ function trimmedEnd(builder: TextBuilder): number {
  */
 export function readTableElement(table: Element, cellText: (node: ChildNode) => string): TableDraft {
   const captionElement = childByName(table, 'caption');
-  const rows: string[][] = [];
+  const rows: SpanningCell<string>[][] = [];
   const notes: string[] = [];
   for (const child of elementChildren(table)) {
     const section = child.name.toLowerCase();
@@ -115,9 +115,53 @@ export function readTableElement(table: Element, cellText: (node: ChildNode) => 
       const cells = elementChildren(row).filter((cell) => ['td', 'th'].includes(cell.name.toLowerCase()));
       const texts = cells.map((cell) => collapseWhitespace(cellText(cell)));
       if (section === 'tfoot' && cells.length === 1) notes.push(texts[0]!);
-      else rows.push(texts);
+      else rows.push(cells.map((cell, index) => ({ value: texts[index]!, colspan: spanAttribute(cell, 'colspan'), rowspan: spanAttribute(cell, 'rowspan') })));
     }
   }
   const caption = captionElement ? collapseWhitespace(cellText(captionElement)) || null : null;
-  return { caption, notes, rows };
+  return { caption, notes, rows: layOutSpans(rows, '') };
+}
+
+/** Most columns or rows one cell is taken to span (a larger span in the markup is cut to this). */
+const MAX_SPAN = 50;
+
+/** A cell's colspan or rowspan (1 when absent or not a positive number; at most MAX_SPAN). */
+export function spanAttribute(cell: Element, name: 'colspan' | 'rowspan'): number {
+  const value = Number.parseInt(cell.attribs[name] ?? '1', 10);
+  return Number.isFinite(value) && value >= 1 ? Math.min(value, MAX_SPAN) : 1;
+}
+
+/** A cell of a markup table with the columns and rows it spans. */
+export interface SpanningCell<T> {
+  value: T;
+  colspan: number;
+  rowspan: number;
+}
+
+/**
+ * Rows of cells laid out on the table's grid: a cell spanning columns is followed by `empty` cells, a cell
+ * spanning rows leaves `empty` cells in the rows below, so every cell stands in its column (a spanning title
+ * over side-by-side blocks over the first of its columns, the row-label column's header over an empty cell).
+ */
+export function layOutSpans<T>(rows: readonly SpanningCell<T>[][], empty: T): T[][] {
+  // Columns still covered by a cell spanning rows from above: column -> rows left.
+  const carried = new Map<number, number>();
+  return rows.map((row) => {
+    const out: T[] = [];
+    const fillCarried = (): void => {
+      while ((carried.get(out.length) ?? 0) > 0) {
+        carried.set(out.length, carried.get(out.length)! - 1);
+        out.push(empty);
+      }
+    };
+    for (const cell of row) {
+      fillCarried();
+      const column = out.length;
+      out.push(cell.value);
+      for (let extra = 1; extra < cell.colspan; extra++) out.push(empty);
+      if (cell.rowspan > 1) for (let extra = 0; extra < cell.colspan; extra++) carried.set(column + extra, cell.rowspan - 1);
+    }
+    fillCarried();
+    return out;
+  });
 }

@@ -22,14 +22,13 @@ import { isTag, isText, type ChildNode, type Element } from 'domhandler';
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { parseLimitedDocument } from '../../documents/markupLimits.js';
 import { defaultLimits } from '../../limits.js';
+import { layOutSpans, spanAttribute, type SpanningCell } from '../../documents/tables.js';
 import type { TextLine } from './cells.js';
 
 type Line = TextLine;
 
 /** Longest stretch of text searched for the table's end tag. */
 const MAX_TABLE_MARKUP = 500_000;
-/** Most columns one cell may span (a larger colspan is taken as this). */
-const MAX_SPAN = 50;
 
 const TABLE_START = /<table\b/i;
 
@@ -134,14 +133,11 @@ interface ReadRows {
 
 /** The table's rows in order (thead, tbody, tfoot, bare rows), spans laid out as empty cells. */
 function readRows(table: Element, offset: number): ReadRows {
-  const rows: string[][] = [];
-  const cells: (CellSpan | null)[][] = [];
+  const rows: SpanningCell<{ text: string; span: CellSpan | null }>[][] = [];
   const notes: string[] = [];
   let headerRows = 0;
   let inHeader = true;
   let caption: string | null = null;
-  // Columns still covered by a cell spanning rows from above: column -> rows left.
-  const carried = new Map<number, number>();
   for (const child of table.children) {
     if (!isTag(child)) continue;
     if (child.name === 'caption') {
@@ -156,46 +152,14 @@ function readRows(table: Element, offset: number): ReadRows {
         notes.push(textOf(cellElements[0]!));
         continue;
       }
-      const texts: string[] = [];
-      const spans: (CellSpan | null)[] = [];
-      let column = 0;
-      const fillCarried = (): void => {
-        while ((carried.get(column) ?? 0) > 0) {
-          carried.set(column, carried.get(column)! - 1);
-          texts.push('');
-          spans.push(null);
-          column++;
-        }
-      };
-      for (const cell of cellElements) {
-        fillCarried();
-        const colspan = spanOf(cell, 'colspan');
-        const rowspan = spanOf(cell, 'rowspan');
-        texts.push(textOf(cell));
-        spans.push(innerSpan(cell, offset));
-        for (let extra = 0; extra < colspan; extra++) {
-          if (rowspan > 1) carried.set(column + extra, rowspan - 1);
-          if (extra > 0) {
-            texts.push('');
-            spans.push(null);
-          }
-        }
-        column += colspan;
-      }
-      fillCarried();
       const allHeaderCells = cellElements.length > 0 && cellElements.every((cell) => cell.name === 'th');
       if (inHeader && (section === 'thead' || allHeaderCells)) headerRows++;
       else inHeader = false;
-      rows.push(texts);
-      cells.push(spans);
+      rows.push(cellElements.map((cell) => ({ value: { text: textOf(cell), span: innerSpan(cell, offset) }, colspan: spanAttribute(cell, 'colspan'), rowspan: spanAttribute(cell, 'rowspan') })));
     }
   }
-  return { rows, cells, headerRows, caption, notes };
-}
-
-function spanOf(cell: Element, name: 'colspan' | 'rowspan'): number {
-  const value = Number.parseInt(cell.attribs[name] ?? '1', 10);
-  return Number.isFinite(value) && value >= 1 ? Math.min(value, MAX_SPAN) : 1;
+  const laidOut = layOutSpans(rows, { text: '', span: null });
+  return { rows: laidOut.map((row) => row.map((cell) => cell.text)), cells: laidOut.map((row) => row.map((cell) => cell.span)), headerRows, caption, notes };
 }
 
 /** The cell's text: its text nodes in order, markup (<sup>, <i>) flattened in place, white space collapsed. */
