@@ -103,6 +103,8 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
   if (word !== 'chi') return null;
   let at = position + 3;
   if (text.charCodeAt(at) === 94) at++; // "^"
+  // "χ 2(2) = 5.9": the superscript set apart from its χ, as web pages and PDFs give it.
+  else if (text.charCodeAt(at) === 32 && text.charCodeAt(at + 1) === 50 && !isAsciiDigit(text.charCodeAt(at + 2)) && !isAsciiLetter(text.charCodeAt(at + 2))) at++;
   if (text.charCodeAt(at) === 50 && !isAsciiDigit(text.charCodeAt(at + 1))) {
     return { kind: 'chi2', end: at + 1, requiresBracketedDf: false };
   }

@@ -71,6 +71,13 @@ describe('chi-square spellings', () => {
     expect(result.sampleSize?.value).toBe(188);
   });
 
+  it('reads "χ 2(2) = 5.9", the superscript set apart from the χ (tests/corpus/real/passages/dvzb-01.txt)', () => {
+    const result = onlyResult('Tooth cleaning medium differed, \u03c7 2(2) = 5.9, p = 0.52.');
+    expect(result.kind).toBe('chi2');
+    expect(dfTexts(result)).toEqual(['2']);
+    expect(scanText('Its \u03c7 22 = 4 is no chi-square.').results).toEqual([]);
+  });
+
   it('still needs df for X2: "X2 = 4.1" alone is a variable', () => {
     expect(scanText('The predictor X2 = 4.1, p = .04, was kept.').results).toEqual([]);
   });
