@@ -65,3 +65,26 @@ describe('a correlation matrix whose cells ran together, from the command line',
     expect(correlations.flatMap((statistic) => statistic.findings).filter((finding) => finding.severity === 'fail')).toEqual([]);
   });
 });
+
+describe('correlations as statistics software prints them, from the command line', () => {
+  // tests/corpus/real/passages/dvzb-04.txt (source and licence in its label): per variable a "Pearson
+  // Correlation", a "Sig. (2-tailed)" and an "n" row, crushed into single spaces.
+  const softwarePassage = join(root, 'tests', 'corpus', 'real', 'passages', 'dvzb-04.txt');
+
+  it('reads each correlation with df N - 2 and its printed p, and flags none of them', () => {
+    const correlations = scanJson(softwarePassage).statistics.filter((statistic) => statistic.inTable && statistic.kind === 'r');
+    expect(correlations).toHaveLength(20);
+    expect(correlations.every((statistic) => statistic.df[0] === 26 && statistic.p !== null)).toBe(true);
+    expect(correlations.flatMap((statistic) => statistic.findings).filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+  });
+
+  it('flags a Sig. that the r and its N cannot give', () => {
+    // r = 0.461 with N = 28 (df = 26) gives p = 0.0136 (SciPy 1.10.1: 2 * scipy.stats.t.sf(r * sqrt(26 / (1 - r²)), 26), computed when the
+    // test was written); its Sig. changed from 0.014 to 0.140 in the DMFT block.
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-software-r-'));
+    const changed = join(directory, 'correlations.txt');
+    writeFileSync(changed, readFileSync(softwarePassage, 'utf8').replace('Sig. (2-tailed) 0.927 - 0.076 0.855 0.014', 'Sig. (2-tailed) 0.927 - 0.076 0.855 0.140'));
+    const flagged = scanJson(changed).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    expect(flagged.map((statistic) => [statistic.value, statistic.p?.value])).toEqual([[0.461, 0.14]]);
+  });
+});

@@ -27,6 +27,7 @@ import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
 import { readGluedMatrix } from './gluedMatrix.js';
 import { EndTags, readHtmlTableInText } from './htmlInText.js';
+import { readSpssCorrelations } from './spssCorrelations.js';
 import { readTransposedTable } from './transposed.js';
 
 interface Line extends TextLine {
@@ -72,6 +73,15 @@ export function findTextTables(text: string): DocumentTable[] {
         tables.push(title === null ? markup.table : { ...markup.table, caption: title.caption, start: lines[title.firstLine]!.start });
       }
       index = markup.lastLine + 1;
+      continue;
+    }
+    // Correlations as statistics software prints them (a "Pearson Correlation", a "Sig. (2-tailed)" and an "N" row
+    // per variable), from their first block, or from the header line right above it.
+    const software = lines[index]!.text.includes('orrelation') ? readSoftwareCorrelations(lines, index) : null;
+    if (software !== null) {
+      const title = readTitle(lines, index, true);
+      tables.push(title === null ? software.table : { ...software.table, caption: title.caption, start: lines[title.firstLine]!.start });
+      index = software.lastLine + 1;
       continue;
     }
     const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
@@ -307,6 +317,16 @@ function startsWithLabel(row: Piece[]): boolean {
 }
 
 // ------------------------------------------------ aligned and crushed tables
+
+/** Software-printed correlation blocks starting on this line, or on the next one under this header line. */
+function readSoftwareCorrelations(lines: Line[], index: number): { table: DocumentTable; lastLine: number } | null {
+  const here = readSpssCorrelations(lines, index);
+  if (here !== null) return here;
+  const next = lines[index + 1];
+  if (next === undefined || !/\d/.test(next.text) || /\d/.test(lines[index]!.text.replace(/\b\d+\b/g, ''))) return null;
+  const below = readSpssCorrelations(lines, index + 1);
+  return below === null ? null : { table: { ...below.table, start: lines[index]!.start + leadingSpace(lines[index]!.text) }, lastLine: below.lastLine };
+}
 
 /** Splits at whitespace outside brackets; "F (2, 57)" and "Error (between)" stay whole, "< .001" is joined. */
 function tokenize(text: string): Piece[] {

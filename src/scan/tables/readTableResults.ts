@@ -637,6 +637,19 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     }
     return null;
   });
+  // A statistic's df in a header row of their own above or below its name ("χ2" over "(df = 1)"): under its
+  // column, or, where a copy shifted that row's cells (it lost the empty cell over the labels), the only such
+  // cell of the header for the only statistic column without df.
+  const withoutDf = roles.flatMap((role, column) => (role.role === 'statistic' && role.df.length === 0 && !role.dfInCell ? [column] : []));
+  const dfCells = headerRows.flatMap((row) => row.map((cell) => cell.trim()).filter((cell) => DF_ALONE.test(cell) || DF_PAIR_ALONE.test(cell)));
+  for (const column of withoutDf) {
+    const role = roles[column] as Extract<ColumnRole, { role: 'statistic' }>;
+    const needed = role.kind === 'F' ? 2 : 1;
+    const own = headerTexts.map((texts) => dfAlone(texts[column] ?? '', needed)).find((df) => df !== null) ?? null;
+    const only = withoutDf.length === 1 && dfCells.length === 1 ? dfAlone(dfCells[0]!, needed) : null;
+    const df = own ?? only;
+    if (df !== null) roles[column] = { ...role, df };
+  }
   const named = roles.map((_, column) => headerTexts.some((texts) => texts[column] !== ''));
   // A column named by an abbreviation the notes define ("ES effect size (Cohen's d)", "PES = partial eta squared").
   if (notes !== '') {
@@ -668,6 +681,18 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     }
   }
   return { roles, titles, positional, named };
+}
+
+/** A header cell that holds only df, named as df: "(df = 1)", "df = 2, 57", "(df 1)"; with two numbers in brackets for F, "(1, 52)". */
+const DF_ALONE = /^\(?\s*d\.?f\.?\s*[=:]?\s*(\d{1,5}(?:\.\d{1,2})?)(?:\s*[,;/]\s*(\d{1,5}(?:\.\d{1,2})?))?\s*\)?$/i;
+const DF_PAIR_ALONE = /^\(\s*(\d{1,4}(?:\.\d{1,2})?)\s*[,;]\s*(\d{1,5}(?:\.\d{1,2})?)\s*\)$/;
+
+function dfAlone(cell: string, needed: number): ReportedNumber[] | null {
+  const text = cell.trim();
+  const match = DF_ALONE.exec(text) ?? (needed === 2 ? DF_PAIR_ALONE.exec(text) : null);
+  if (match === null) return null;
+  const df = [match[1], match[2]].filter((value): value is string => value !== undefined).map((value) => parseReportedNumber(value)!);
+  return df.length === needed ? df : null;
 }
 
 /** Lines right after a table that are its notes ("Note.", "Abbreviations:", "1. Abbreviations: ...", "a ..."), at most a few. */

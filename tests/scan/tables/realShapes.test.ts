@@ -570,3 +570,45 @@ describe('real table shapes: correlation matrices whose cells ran together (dvyb
     expect(results.filter((result) => result.kind === 'r')).toEqual([]);
   });
 });
+
+describe('real table shapes: correlations as statistics software prints them (dvzb-04)', () => {
+  // Crushed: per variable a "Pearson Correlation" row, a "Sig. (2-tailed)" row with "-" on the diagonal and an
+  // "n" row; the header's several-word names ("Buffering Capacity") cannot be cut, the blocks name the columns.
+  it('reads every correlation off the diagonal with its p and df N - 2 from its N row', () => {
+    const { results } = scan('dvzb-04');
+    const correlations = results.filter((result) => result.kind === 'r');
+    expect(correlations).toHaveLength(20);
+    expect(correlations.every((result) => result.df[0]?.value === 26)).toBe(true);
+    expect(correlations.map(summary).slice(0, 2)).toEqual(['r(26) = 0.018 p = 0.927', 'r(26) = -0.217 p = 0.266']);
+    expect(correlations[0]!.tableRow?.rowLabel).toBe('Dental Caries dft × DMFT');
+  });
+
+  it("reads no Kendall's tau as a Pearson r", () => {
+    const text = [
+      "Kendall's tau_b",
+      'Anxiety Correlation Coefficient 1.000 .310 .120',
+      'Sig. (2-tailed) . .010 .300',
+      'N 60 60 60',
+      'Mood Correlation Coefficient .310 1.000 .200',
+      'Sig. (2-tailed) .010 . .090',
+      'N 60 60 60',
+    ].join('\n');
+    const { results } = scanDocument(plainTextDocument('kendall.txt', 'text', text));
+    expect(results.filter((result) => result.kind === 'r')).toEqual([]);
+  });
+});
+
+describe('a statistic\'s df in a header row of their own', () => {
+  // Common practice: "χ2" over "(df = 1)" in a two-row header; a web copy drops the empty cell over the labels.
+  it('gives the chi-square column the df named under it, also when the copy shifted that row', () => {
+    const text = 'Table 2. Association of sex with outcomes\n\nVariable | Male | Female | χ2 | p\n | n (%) | n (%) | (df = 1) | \nSmoking | 40 (20) | 30 (15) | 4.21 | .040\nDrinking | 50 (25) | 45 (22) | 0.52 | .471\n';
+    const { results } = scanDocument(plainTextDocument('df-row.txt', 'text', text));
+    expect(results.map(summary)).toEqual(['chi2(1) = 4.21 p = .040', 'chi2(1) = 0.52 p = .471']);
+  });
+
+  it('takes no bare "(1)" under a statistic as its df (a model\'s number)', () => {
+    const text = 'Table 2. Models\n\nPredictor | t | p\n | (1) | \nAge | 2.10 | .040\nSex | 0.52 | .610\n';
+    const { results } = scanDocument(plainTextDocument('models.txt', 'text', text));
+    expect(results.every((result) => result.df.length === 0)).toBe(true);
+  });
+});

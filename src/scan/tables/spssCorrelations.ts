@@ -1,0 +1,157 @@
+/**
+ * Correlation tables as statistics software prints them and papers and
+ * theses paste them: for each variable three rows, its correlations, their
+ * p and the N of each, with the variables named once more as the columns:
+ *
+ *     Variable Correlation dft DMFT pH
+ *     dft Pearson Correlation 1 0.018 −0.217
+ *     Sig. (2-tailed) - 0.927 0.266
+ *     n 28 28 28
+ *     DMFT Pearson Correlation 0.018 1 0.341
+ *     Sig. (2-tailed) 0.927 - 0.076
+ *     N 28 28 28
+ *
+ * The rows may come crushed into single spaces, with pipes or with tabs;
+ * the column names need not be read (a crushed header of several-word names
+ * cannot be cut): the columns are the variables in the order the blocks name
+ * them when there are as many blocks as columns, otherwise they are numbered.
+ * Each correlation off the diagonal becomes a row "variable × variable | r |
+ * p | N" for the table reader, each cell pointing at its place in the text.
+ * A one-tailed Sig. row gives no p (plumbline tests r two-tailed); a block
+ * whose rows do not hold the same number of cells is left out.
+ */
+
+import type { CellSpan, DocumentTable } from '../../documents/types.js';
+import type { TextLine } from './cells.js';
+
+type Line = TextLine;
+
+/** The name of a block's correlation row, after the variable's name. */
+const R_ROW = /^(.*?)\s*\|?\s*(?:Pearson(?:'s)? Correlation|Pearson(?:'s)? r|Correlation Coefficient)\s*\|?\s*(?=[-\u2212\u2013.\d|])/i;
+/** A block's p row: "Sig. (2-tailed)", "Significance (2-tailed)", "p (2-tailed)". */
+const P_ROW = /^\s*\|?\s*(?:Sig\.?|Significance|p)\s*\((1|2)[- ]tailed\)\s*\|?\s*(?=[-\u2212\u2013.\d|])/i;
+/** A block's N row. */
+const N_ROW = /^\s*\|?\s*N\s*\|?\s*(?=\d)/i;
+/** A cell among a block's values: a number (stars or a footnote letter glued on), the diagonal's dash, or "." for none. */
+const VALUE = /^(?:[-\u2212\u2013]\s?)?(?:\d+(?:[.,]\d+)?|[.,]\d+)(?:\*{1,3}|[a-h])?$|^[-\u2212\u2013\u2014.]$/;
+/** Most lines of one table. */
+const MAX_LINES = 600;
+/** Most blank lines between a block's rows and between blocks. */
+const MAX_BLANKS = 2;
+
+interface Cell {
+  text: string;
+  start: number;
+  end: number;
+}
+
+interface Block {
+  name: string;
+  nameSpan: CellSpan | null;
+  r: Cell[];
+  p: Cell[] | null;
+  oneTailed: boolean;
+  n: Cell[] | null;
+}
+
+/** The cells of a line's run of values from `from` (split at pipes, tabs or spaces); null unless every piece is a value. */
+function valuesOf(line: Line, from: number): Cell[] | null {
+  const cells: Cell[] = [];
+  const text = line.text;
+  // (A minus sign set apart from its number, "− 0.004", is one cell; a hyphen set apart, "- 0.927", is the
+  // diagonal's dash and the next cell.)
+  const pattern = text.includes('|') ? /[^|]+/g : text.includes('\t') ? /[^\t]+/g : /(?:\u2212\s(?=[.\d]))?\S+/g;
+  pattern.lastIndex = from;
+  for (let match = pattern.exec(text); match !== null; match = pattern.exec(text)) {
+    const raw = match[0];
+    const inner = raw.trim();
+    if (inner === '') continue;
+    if (!VALUE.test(inner)) return null;
+    const start = line.start + match.index + raw.indexOf(inner);
+    cells.push({ text: inner, start, end: start + inner.length });
+  }
+  return cells.length > 0 ? cells : null;
+}
+
+function nextNonBlank(lines: Line[], from: number): number {
+  let blanks = 0;
+  for (let index = from; index < lines.length; index++) {
+    if (lines[index]!.text.trim() !== '') return index;
+    if (++blanks > MAX_BLANKS) return -1;
+  }
+  return -1;
+}
+
+/** Software-printed correlation blocks starting at `lines[first]` (its first correlation row), or null. */
+export function readSpssCorrelations(lines: Line[], first: number): { table: DocumentTable; lastLine: number } | null {
+  if (!R_ROW.test(lines[first]?.text ?? '')) return null;
+  const blocks: Block[] = [];
+  let index = first;
+  let lastLine = first;
+  while (index >= 0 && index < lines.length && index < first + MAX_LINES) {
+    const line = lines[index]!;
+    const rMatch = R_ROW.exec(line.text);
+    if (rMatch === null) break;
+    const r = valuesOf(line, rMatch[0].length);
+    if (r === null) break;
+    const name = rMatch[1]!.replace(/\|/g, ' ').trim();
+    const nameAt = name === '' ? -1 : line.text.indexOf(name);
+    const block: Block = { name, nameSpan: nameAt < 0 ? null : { start: line.start + nameAt, end: line.start + nameAt + name.length }, r, p: null, oneTailed: false, n: null };
+    lastLine = index;
+    let next = nextNonBlank(lines, index + 1);
+    const pMatch = next < 0 ? null : P_ROW.exec(lines[next]!.text);
+    if (pMatch !== null) {
+      block.p = valuesOf(lines[next]!, pMatch[0].length);
+      block.oneTailed = pMatch[1] === '1';
+      lastLine = next;
+      next = nextNonBlank(lines, next + 1);
+    }
+    const nMatch = next < 0 ? null : N_ROW.exec(lines[next]!.text);
+    if (nMatch !== null) {
+      block.n = valuesOf(lines[next]!, nMatch[0].length);
+      lastLine = next;
+      next = nextNonBlank(lines, next + 1);
+    }
+    blocks.push(block);
+    index = next;
+  }
+  // Kendall's tau (printed as a "Correlation Coefficient" too) has another distribution than r.
+  if (blocks.some((block) => /kendall|\btau/i.test(block.name)) || /kendall|\btau/i.test(lines[first - 1]?.text ?? '')) return null;
+  const width = blocks[0]?.r.length ?? 0;
+  const whole = blocks.filter((block) => block.r.length === width && block.p?.length === width && (block.n === null || block.n.length === width));
+  if (whole.length < 2 || width < 2) return null;
+  const columnNames = blocks.length === width ? blocks.map((block, column) => block.name || String(column + 1)) : null;
+  const rows: string[][] = [['Variables', 'r', 'p', 'N']];
+  const cells: (CellSpan | null)[][] = [[null, null, null, null]];
+  for (const block of whole) {
+    block.r.forEach((r, column) => {
+      const p = block.p![column]!;
+      // The diagonal: a correlation of 1 with no p.
+      if (/^[-\u2212\u2013\u2014.]$/.test(r.text) || /^[-\u2212\u2013\u2014.]$/.test(p.text)) return;
+      const n = block.n?.[column] ?? null;
+      const other = columnNames?.[column] ?? String(column + 1);
+      rows.push([`${block.name} \u00d7 ${other}`, r.text, block.oneTailed ? '' : p.text, n?.text ?? '']);
+      cells.push([block.nameSpan, span(r), block.oneTailed ? null : span(p), n === null ? null : span(n)]);
+    });
+  }
+  if (rows.length < 2) return null;
+  const firstLine = lines[first]!;
+  const last = lines[lastLine]!;
+  return {
+    table: {
+      start: firstLine.start + (firstLine.text.length - firstLine.text.trimStart().length),
+      end: last.start + last.text.trimEnd().length,
+      caption: null,
+      notes: [],
+      rows,
+      headerRows: 1,
+      cells,
+      layout: 'positions',
+    },
+    lastLine,
+  };
+}
+
+function span(cell: Cell): CellSpan {
+  return { start: cell.start, end: cell.end };
+}
