@@ -458,9 +458,10 @@ export function knownHeaderNames(): readonly string[] {
 
 /**
  * A table's title line: "Table 2", "TABLE 2.", "**Table 2**", "# Table 2" (a
- * Markdown heading), "> **Table 4.**", and the word in the languages of the
+ * Markdown heading), "> **Table 4.**", "TABLE IV" (Roman numerals, as
+ * engineering journals number tables), and the word in the languages of the
  * corpus (Tabla, Tabela, Tableau, Tabelle, Tab.).
  */
-export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
+export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
 /** A title line with nothing after the number: the title proper follows on the next line. */
-export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+[A-Z]?\d{1,3}[A-Za-z]?\.?(?:\*\*|_)?\s*$/;
+export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?\s*$/;

@@ -898,6 +898,13 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
         unplaced++;
         continue;
       }
+      // A number of 1 or more with significance marks ("9.69**") is a test's value: left without a column, it says
+      // the header names fewer tests than the row prints, and which value is which cannot be told. (A marked number
+      // below 1 may be a group's mean or ratio marked as different from a reference: "0.64 *".)
+      if (placed.columns.some((slot, offset) => slot < 0 && isMarkedStatistic(toPlace[offset]!.text))) {
+        unplaced++;
+        continue;
+      }
       placed.columns.forEach((slot, offset) => {
         if (slot < 0) return;
         const column = valueColumns[slot]!.column;
@@ -1213,6 +1220,14 @@ function isWholeNumberCell(cell: NumberCell): boolean {
   return cell.comparator === '=' && cell.record.decimals === 0 && cell.record.exponent === 0;
 }
 
+/** A number with significance marks after it: "9.69**", "−2.21†". */
+const MARKED_NUMBER = /^[-\u2212\u2013]?\s?(\d*\.?\d+)\s?(?:\*{1,3}|[\u2020\u2021])$/;
+
+function isMarkedStatistic(cell: string): boolean {
+  const match = MARKED_NUMBER.exec(cell.trim());
+  return match !== null && Number(match[1]) >= 1;
+}
+
 /** A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)". */
 const TRAILING_DF_PAIR = /^([-\u2212<>=]?\s?\d*\.?\d+[*a-h]{0,3})\s+\((\d{1,4}(?:\.\d{1,2})?),\s?(\d{1,5}(?:\.\d{1,2})?)\)$/;
 
@@ -1391,7 +1406,8 @@ function readRow(input: RowInput): ReportedResult | null {
       pCell === null || pCell === 'ns'
         ? markedP
         : { comparator: pCell.comparator, value: stripOffsets(pCell.record), plural: false, start: pCell.record.start, end: pCell.record.end },
-    notSignificant: pCell === 'ns' || pCell?.notSignificant === true,
+    // "n.s." after the p, or after the statistic when no p is printed (".14, n.s." under F).
+    notSignificant: pCell === 'ns' || pCell?.notSignificant === true || (pCell === null && statistic.notSignificant === true),
     effects,
     tableRow: {
       tableIndex: input.tableIndex,

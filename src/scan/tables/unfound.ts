@@ -1,7 +1,8 @@
 /**
  * Results tables that no table reader recognised: a "Table N" title with a
  * block of short lines after it that name a test statistic or p and hold
- * numbers, where no table was found and the text scanner read no result.
+ * numbers, where no table was found and the text scanner read at most one
+ * result (a test written out in a cell or in the caption).
  * Such a table is listed as not read, so that an audit of a paper whose
  * tables came out of extraction in an unknown shape does not look cleaner
  * than it is.
@@ -19,6 +20,8 @@ const MAX_CHARACTERS = 8000;
 const MAX_CAPTION_LINE = 500;
 /** Lines longer than this are prose. */
 const MAX_TABLE_LINE = 200;
+/** Results read in a block that still leave it listed as not read (written out in a cell or in the caption). */
+const MAX_STRAY_RESULTS = 1;
 /** Numbers a block needs to count as a table of results. */
 const MIN_NUMBERS = 6;
 
@@ -39,14 +42,17 @@ export function findUnrecognisedTables(text: string, tables: readonly DocumentTa
       const block = blockAfter(text, lineStart, lineEnd);
       const overlaps = (span: Span): boolean => span.start < block.end && block.start < span.end;
       const caption = [line, ...block.lines.filter((row) => row.trim() !== '').slice(0, 1)].join(' ');
-      if (!tables.some(overlaps) && !results.some(overlaps) && looksLikeResults(block.lines, caption)) {
+      // (One result read in the block, a test written out in a cell or the caption, does not make the table read.)
+      const readInside = results.filter(overlaps).length;
+      const numericRows = block.lines.filter((row) => (row.match(/\d/g) ?? []).length >= 2).length;
+      if (!tables.some(overlaps) && readInside <= MAX_STRAY_RESULTS && numericRows > 2 * readInside && looksLikeResults(block.lines, caption)) {
         unread.push({
           tableIndex: null,
           caption: line.trim(),
           start: lineStart,
           end: block.end,
-          rowsWithStatistic: block.lines.filter((row) => (row.match(/\d/g) ?? []).length >= 2).length,
-          rowsRead: 0,
+          rowsWithStatistic: numericRows,
+          rowsRead: readInside,
           reason: 'layout-not-recognised',
         });
         lineStart = block.end + 1;

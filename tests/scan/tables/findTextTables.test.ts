@@ -170,3 +170,17 @@ describe('HTML tables left as markup in text', () => {
     expect(() => findTextTables(text)).not.toThrow();
   });
 });
+
+describe('table titles numbered in Roman numerals', () => {
+  // Common practice in engineering journals: "TABLE III" over a caption in capitals.
+  it('takes "TABLE III" as a title, one cell per line too', () => {
+    const text = ['TABLE III', 'ANOVA RESULTS FOR ACCURACY', '', 'Source', 'df', 'F', 'p', 'Group', '2', '5.21', '.008', 'Error', '57'].join('\n');
+    const [table] = findTextTables(text);
+    expect(table!.caption).toContain('TABLE III');
+    expect(table!.rows[1]).toEqual(['Group', '2', '5.21', '.008']);
+  });
+
+  it('does not take a word after "Table" for a numeral', () => {
+    expect(findTextTables('Table Vitamins by group\n\nSource | df | F | p\nGroup | 2 | 5.21 | .008\n')[0]!.caption).toBeNull();
+  });
+});

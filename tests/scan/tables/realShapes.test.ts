@@ -612,3 +612,19 @@ describe('a statistic\'s df in a header row of their own', () => {
     expect(results.every((result) => result.df.length === 0)).toBe(true);
   });
 });
+
+describe('real table shapes: a row prints more tests than its header names (divg-01)', () => {
+  // One cell per line: two "F (1,128)" columns, the first lost from the header by the copy; rows print
+  // "9.69**", "η2 = .18" and ".14, n.s.". A marked test value without a column makes the row unplaceable.
+  it('lists the table as not fully read instead of dropping the marked F values silently', () => {
+    const { results, tablesNotRead } = scan('divg-01');
+    expect(results.some((result) => result.value?.text === '9.69')).toBe(false);
+    expect(tablesNotRead.map((table) => table.reason)).toEqual(['cells-not-placed']);
+  });
+
+  it('keeps the "n.s." printed after a statistic without a p', () => {
+    const { results } = scan('divg-01');
+    expect(results.length).toBeGreaterThan(0);
+    expect(results.every((result) => result.notSignificant && result.p === null)).toBe(true);
+  });
+});
