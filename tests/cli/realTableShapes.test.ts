@@ -94,3 +94,38 @@ describe('an HTML table left as markup in a Markdown file, from the command line
     expect(text.slice(flagged[0]!.start, flagged[0]!.end)).toContain('1.02');
   });
 });
+
+describe('a t test as a spreadsheet prints it, from the command line', () => {
+  // Invented numbers in the layout a spreadsheet's analysis add-in prints (common practice in theses).
+  // t(38) = 1.90 gives a two-tailed p of 0.0650 (SciPy 1.10.1: 2 * scipy.stats.t.sf(1.90, 38), computed when the
+  // test was written).
+  const output = (twoTailed: string): string =>
+    [
+      't-Test: Two-Sample Assuming Equal Variances',
+      '',
+      '\tVariable 1\tVariable 2',
+      'Mean\t4.2\t3.6',
+      'Observations\t20\t20',
+      'Hypothesized Mean Difference\t0',
+      'df\t38',
+      't Stat\t1.90',
+      'P(T<=t) one-tail\t0.0326',
+      't Critical one-tail\t1.686',
+      `P(T<=t) two-tail\t${twoTailed}`,
+      't Critical two-tail\t2.024',
+      '',
+    ].join('\n');
+
+  it('reads t with its df row and the two-tailed p, and flags a two-tailed p that is the one-tailed one', () => {
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-spreadsheet-'));
+    const right = join(directory, 'right.txt');
+    const wrong = join(directory, 'wrong.txt');
+    writeFileSync(right, output('0.0651'));
+    writeFileSync(wrong, output('0.0326'));
+    const read = scanJson(right).statistics;
+    expect(read.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value])).toEqual([['t', 1.9, [38], 0.0651]]);
+    expect(read[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+    const flagged = scanJson(wrong).statistics.flatMap((statistic) => statistic.findings);
+    expect(flagged.map((finding) => finding.rule)).toEqual(['halved-p']);
+  });
+});

@@ -28,6 +28,7 @@ import { readGluedTable } from './glued.js';
 import { readGluedMatrix } from './gluedMatrix.js';
 import { EndTags, readHtmlTableInText } from './htmlInText.js';
 import { readSpssCorrelations } from './spssCorrelations.js';
+import { readSpreadsheetTest } from './spreadsheetTests.js';
 import { readTransposedTable } from './transposed.js';
 
 interface Line extends TextLine {
@@ -63,8 +64,26 @@ export function findTextTables(text: string): DocumentTable[] {
   const lines = splitLines(text).map(withConsistentSeparators);
   const tables: DocumentTable[] = [];
   let endTags: EndTags | undefined;
+  // t and z tests as a spreadsheet prints them ("t Stat", "P(T<=t) two-tail" rows), found first: a reader of the
+  // rows around them would take them for an ordinary table.
+  const spreadsheet = findSpreadsheetTests(lines);
+  let nextSpreadsheet = 0;
+  /** The spreadsheet tests on lines up to `lastLine` not yet taken, pushed as tables; the last line they reach. */
+  const takeSpreadsheetTests = (lastLine: number): number => {
+    let reach = -1;
+    while (nextSpreadsheet < spreadsheet.length && spreadsheet[nextSpreadsheet]!.firstLine <= lastLine) {
+      const test = spreadsheet[nextSpreadsheet++]!;
+      tables.push(test.table);
+      reach = Math.max(reach, test.lastLine);
+    }
+    return reach;
+  };
   let index = 0;
   while (index < lines.length) {
+    if (nextSpreadsheet < spreadsheet.length && spreadsheet[nextSpreadsheet]!.firstLine === index) {
+      index = takeSpreadsheetTests(index) + 1;
+      continue;
+    }
     // An HTML table left as markup ("<table> … </table>", as Markdown converted from XML keeps complex tables).
     const markup = lines[index]!.text.includes('<') ? readHtmlTableInText(text, lines, index, (endTags ??= new EndTags(text))) : null;
     if (markup !== null) {
@@ -105,6 +124,12 @@ export function findTextTables(text: string): DocumentTable[] {
     const notes = readNotes(lines, last + 1);
     const startLine = title?.firstLine ?? firstLine;
     const endLine = notes.lastLine ?? last;
+    // A table that holds a spreadsheet's test output is read as that output.
+    const spreadsheetReach = takeSpreadsheetTests(endLine);
+    if (spreadsheetReach >= 0) {
+      index = Math.max(endLine, spreadsheetReach) + 1;
+      continue;
+    }
     tables.push({
       start: lines[startLine]!.start + leadingSpace(lines[startLine]!.text),
       end: lines[endLine]!.start + lines[endLine]!.text.trimEnd().length,
@@ -317,6 +342,21 @@ function startsWithLabel(row: Piece[]): boolean {
 }
 
 // ------------------------------------------------ aligned and crushed tables
+
+/** The spreadsheet t and z tests of the text, in order, each with the lines it spans (no two overlapping). */
+function findSpreadsheetTests(lines: Line[]): { table: DocumentTable; firstLine: number; lastLine: number }[] {
+  const found: { table: DocumentTable; firstLine: number; lastLine: number }[] = [];
+  for (let index = 0; index < lines.length; index++) {
+    const text = lines[index]!.text;
+    // (Cheap test first: the row starts with its statistic's letter.)
+    if (!/^[\s|]*[tTzZ]\b/.test(text)) continue;
+    const test = readSpreadsheetTest(lines, index);
+    if (test === null || (found.length > 0 && test.firstLine <= found[found.length - 1]!.lastLine)) continue;
+    const title = readTitle(lines, test.firstLine, true);
+    found.push(title === null ? test : { ...test, table: { ...test.table, caption: title.caption } });
+  }
+  return found;
+}
 
 /** Software-printed correlation blocks starting on this line, or on the next one under this header line. */
 function readSoftwareCorrelations(lines: Line[], index: number): { table: DocumentTable; lastLine: number } | null {

@@ -628,3 +628,12 @@ describe('real table shapes: a row prints more tests than its header names (divg
     expect(results.every((result) => result.notSignificant && result.p === null)).toBe(true);
   });
 });
+
+describe('real table shapes: z tests as a spreadsheet prints them (divt-09)', () => {
+  // Pipe rows of a spreadsheet's "z-Test: Two Sample for Means" in a translated version: "z" and
+  // "P(Z⇐z) Double tail" rows, two comparisons side by side in the first output.
+  it('reads each z with its two-tailed p, one test per value column', () => {
+    const { results } = scan('divt-09');
+    expect(results.map(summary)).toEqual(['z() = 0.37569033 p = 0.82665995', 'z() = 3.68211902 p = 0.00280069', 'z() = 3.36602499 p = 0.03578167', 'z() = 1.99365115 p = 0.04172116']);
+  });
+});
