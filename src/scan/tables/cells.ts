@@ -198,7 +198,8 @@ put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test'
 put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['r', "pearson's r", 'pearson r', 'pearson correlation', 'correlation'], { role: 'statistic', kind: 'r', df: [] });
 // Spearman's rank correlation, tested like r under the t approximation or the exact distribution (see types.ts, 'rs').
-put(['rho', 'rs', 'r s', 'r_s', 'spearman', "spearman's rho", 'spearman rho', "spearman's r", 'spearman r', 'spearman correlation', "spearman's correlation", 'spearman coefficient', "spearman's rank correlation", 'spearman rank correlation'], { role: 'statistic', kind: 'r', df: [], symbol: 'rs' });
+put(['r value', 'r-value', 'r values', 'r-values'], { role: 'statistic', kind: 'r', df: [] });
+put(['rs value', 'rs-value', 'rho value', 'rho-value', 'rho', 'rs', 'r s', 'r_s', 'spearman', "spearman's rho", 'spearman rho', "spearman's r", 'spearman r', 'spearman correlation', "spearman's correlation", 'spearman coefficient', "spearman's rank correlation", 'spearman rank correlation'], { role: 'statistic', kind: 'r', df: [], symbol: 'rs' });
 put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test', "fisher's z", 'fisher\u2019s z', 'fisher z', 'steiger z', "steiger's z"], { role: 'statistic', kind: 'z', df: [] });
 put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)', 'etap', 'eta p'], { role: 'effect', effect: 'partial-eta-squared' });
 put(['eta2', 'eta 2', 'eta squared', 'eta-squared'], { role: 'effect', effect: 'eta-squared' });

@@ -1035,6 +1035,8 @@ function spanOfCells(cells: (LocatedCell | null)[]): LocatedCell | null {
  * first group's df columns ("Source | df | F (Recall) | p | F (Recognition) | p").
  */
 function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (string | null)[]): Segment[] {
+  const pFirst = pFirstPairs(roles, kind);
+  if (pFirst !== null) return pFirst;
   const segments: Segment[] = [];
   let current: Segment = { columns: new Map(), title: null, headerDf: [], dfInCell: false };
   // After the column of a statistic of another kind, the columns are that statistic's until one of this kind
@@ -1086,6 +1088,38 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
     }
   }
   return withStatistic;
+}
+
+/**
+ * Blocks that each print the p before its statistic ("p-value | rs-value" under each outcome): the table's
+ * columns of this kind are p and statistic in turn, starting with a p, at least twice, with no other column
+ * of a test among them. Each p goes with the statistic right after it; null for any other layout.
+ */
+function pFirstPairs(roles: ColumnRole[], kind: StatisticKind): Segment[] | null {
+  const keyed = roles.flatMap((role, column) => {
+    const key = roleKey(role, kind);
+    return key === null ? [] : [{ key, column, role }];
+  });
+  if (keyed.length < 4 || keyed.length % 2 !== 0) return null;
+  const alternates = keyed.every((entry, index) => entry.key === (index % 2 === 0 ? 'p' : 'statistic'));
+  if (!alternates) return null;
+  const segments: Segment[] = [];
+  for (let index = 0; index < keyed.length; index += 2) {
+    const p = keyed[index]!;
+    const statistic = keyed[index + 1]!;
+    const role = statistic.role as Extract<ColumnRole, { role: 'statistic' }>;
+    segments.push({
+      columns: new Map([
+        ['p', p.column],
+        ['statistic', statistic.column],
+      ]),
+      title: null,
+      headerDf: role.df,
+      dfInCell: role.dfInCell === true,
+      ...(role.symbol !== undefined ? { symbol: role.symbol } : {}),
+    });
+  }
+  return segments;
 }
 
 /** A title over columns that names a group of them, not a column itself ("T0–1", "Recall"; not "F (dfM, dfR)"). */

@@ -637,3 +637,13 @@ describe('real table shapes: z tests as a spreadsheet prints them (divt-09)', ()
     expect(results.map(summary)).toEqual(['z() = 0.37569033 p = 0.82665995', 'z() = 3.68211902 p = 0.00280069', 'z() = 3.36602499 p = 0.03578167', 'z() = 1.99365115 p = 0.04172116']);
   });
 });
+
+describe('real table shapes: each block prints its p before its statistic (dvzb-08)', () => {
+  // Crushed: "p-value rs-value" under each of four outcomes; "< 0.001*" in one p cell.
+  it('pairs each rs with the p printed before it', () => {
+    const { results } = scan('dvzb-08');
+    expect(results).toHaveLength(36);
+    expect(results.slice(0, 2).map(summary)).toEqual(['r() = 0.12 p = 0.31', 'r() = 0.02 p = 0.42']);
+    expect(results[0]!.symbol).toBe('rs');
+  });
+});
