@@ -41,13 +41,14 @@ const MAX_COLUMN_GAP = 200;
  * starts there (or, when `comparatorAt` is given, when the statistic's
  * comparator is not the one at that offset).
  */
-export function readResult(text: string, position: number, comparatorAt = -1): ResultDraft | null {
+export function readResult(text: string, position: number, comparatorAt = -1, withoutP = false): ResultDraft | null {
   const head = readStatisticHead(text, position);
   if (head === null || (comparatorAt !== -1 && head.comparatorAt !== comparatorAt)) return null;
   const draft: ResultDraft = { head, end: head.end, p: null, notSignificant: false, effects: [] };
   withSampleSizeBefore(text, position, draft);
   const directP = readTail(text, draft);
-  if (head.needsP && !directP) return null;
+  // (`withoutP`: the caller keeps such a head aside, for a plural p later in the sentence to complete it.)
+  if (head.needsP && !directP && !(withoutP && draft.p === null && !draft.notSignificant)) return null;
   if (head.needsTrailingDf === true && draft.head.df.length === 0) return null;
   return draft;
 }

@@ -39,10 +39,27 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
   const spans: number[] = [];
   let sharedFloor = 0;
   let consumedUpTo = 0;
+  // Statistics without df and p since the last result ("r = 0.48; ER: r = 0.86, both ps < .003"): a plural p
+  // later in their sentence makes them results; anything else drops them.
+  let waiting: ResultDraft[] = [];
   for (let at = comparators.next(0); at !== -1; at = comparators.next(at + 1)) {
     if (at < consumedUpTo) continue;
     const draft = readResultEndingHeadAt(source, at, consumedUpTo);
-    if (draft === null) continue;
+    if (draft === null) {
+      // (Only where a plural p follows within reach: most comparators that start no result are not retried.)
+      if (!PLURAL_P_AHEAD.test(source.slice(at, at + PLURAL_P_REACH))) continue;
+      const bare = readResultEndingHeadAt(source, at, consumedUpTo, true);
+      if (bare !== null && bare.head.df.length === 0 && waiting.length < MAX_SHARING_A_P) waiting.push(bare);
+      continue;
+    }
+    if (draft.p?.plural === true) {
+      for (const earlier of waiting) {
+        if (earlier.end > draft.head.start || containsSentenceEnd(source, earlier.end, draft.head.start)) continue;
+        results.push(toReportedResult(earlier, normalised));
+        spans.push(earlier.head.start, earlier.end);
+      }
+    }
+    waiting = [];
     // A regression model's fit is written before its F: "R2 = .12, F(3, 96) = 4.36".
     if (draft.head.kind === 'F') draft.effects.unshift(...readFitBefore(source, draft.head.start, consumedUpTo));
     takePWrittenFirst(source, draft, consumedUpTo);
@@ -128,6 +145,11 @@ function introducedAsSpearman(source: string, start: number, notBefore: number):
   return at !== -1 && !/[.!?]\s/.test(before.slice(at));
 }
 
+/** How far after a statistic without p a plural p is looked for. */
+const PLURAL_P_REACH = 240;
+/** A plural p: "ps", "p's", "p-values", "p values" followed by a comparator. */
+const PLURAL_P_AHEAD = /(?<![A-Za-z])[pP](?:s|'s|[- ]?values)\s?(?:[<>=\u2264\u2265])/;
+
 /** Most earlier results a plural p is shared with ("A, B, C and D, ps < .001"). */
 const MAX_SHARING_A_P = 12;
 
@@ -209,14 +231,14 @@ const MAX_SYMBOL_ATTEMPTS = 3;
  * `notBefore`) for the statistic whose head it completes, nearest symbol
  * first, and reads the whole result from there.
  */
-function readResultEndingHeadAt(source: string, comparatorAt: number, notBefore: number): ResultDraft | null {
+function readResultEndingHeadAt(source: string, comparatorAt: number, notBefore: number, withoutP = false): ResultDraft | null {
   const lowest = Math.max(notBefore, comparatorAt - MAX_HEAD_BEFORE_COMPARATOR);
   let attempts = 0;
   for (let at = comparatorAt - 1; at >= lowest; at--) {
     const code = source.charCodeAt(at);
-    if (code >= 128 || HEAD_CHARACTERS[code] === 0) return readFWithEffectName(source, comparatorAt, lowest);
+    if (code >= 128 || HEAD_CHARACTERS[code] === 0) return withoutP ? null : readFWithEffectName(source, comparatorAt, lowest);
     if (!canStartSymbol(code) || !startsWord(source, at)) continue;
-    const draft = readResult(source, at, comparatorAt);
+    const draft = readResult(source, at, comparatorAt, withoutP);
     if (draft !== null) return draft;
     if (++attempts === MAX_SYMBOL_ATTEMPTS) return null;
   }

@@ -117,3 +117,16 @@ describe('a second effect size of the same kind', () => {
     expect(result!.effects.map((effect) => effect.kind)).toEqual(['partial-eta-squared', 'eta-squared', 'omega-squared']);
   });
 });
+
+describe('a plural p after statistics printed without df or p of their own', () => {
+  // tests/corpus/real/passages/divu-09.txt: "(RT: r = 0.48; ER: r = 0.86, both ps<0.003, one-tailed)".
+  it('makes each of them a result with the shared p', () => {
+    expect(ps('Effects correlated between the approaches (RT: r = 0.48; ER: r = 0.86, both ps<0.003, one-tailed).')).toEqual(['<0.003 plural', '<0.003 plural']);
+    expect(ps('Both rose, t = 2.1 and t = 3.3 (both ps < .05).')).toEqual(['<.05 plural', '<.05 plural']);
+  });
+
+  it('leaves a statistic without p alone when the plural p stands in another sentence, or no p follows', () => {
+    expect(ps('Its r = .48 was small. Others held, r = .86, ps < .003.')).toEqual(['<.003 plural']);
+    expect(scanText('The r = .48 and the r = .30 were descriptive.').results).toEqual([]);
+  });
+});

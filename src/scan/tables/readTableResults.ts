@@ -684,8 +684,8 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
 }
 
 /** A header cell that holds only df, named as df: "(df = 1)", "df = 2, 57", "(df 1)"; with two numbers in brackets for F, "(1, 52)". */
-const DF_ALONE = /^\(?\s*d\.?f\.?\s*[=:]?\s*(\d{1,5}(?:\.\d{1,2})?)(?:\s*[,;/]\s*(\d{1,5}(?:\.\d{1,2})?))?\s*\)?$/i;
-const DF_PAIR_ALONE = /^\(\s*(\d{1,4}(?:\.\d{1,2})?)\s*[,;]\s*(\d{1,5}(?:\.\d{1,2})?)\s*\)$/;
+const DF_ALONE = /^\(? ?d\.?f\.? ?[=:]? ?(\d{1,5}(?:\.\d{1,2})?)(?: ?[,;/] ?(\d{1,5}(?:\.\d{1,2})?))? ?\)?$/i;
+const DF_PAIR_ALONE = /^\( ?(\d{1,4}(?:\.\d{1,2})?) ?[,;] ?(\d{1,5}(?:\.\d{1,2})?) ?\)$/;
 
 function dfAlone(cell: string, needed: number): ReportedNumber[] | null {
   const text = cell.trim();
@@ -1255,7 +1255,7 @@ function isWholeNumberCell(cell: NumberCell): boolean {
 }
 
 /** A number with significance marks after it: "9.69**", "−2.21†". */
-const MARKED_NUMBER = /^[-\u2212\u2013]?\s?(\d*\.?\d+)\s?(?:\*{1,3}|[\u2020\u2021])$/;
+const MARKED_NUMBER = /^[-\u2212\u2013]? ?(\d{1,6}(?:\.\d{1,6})?|\.\d{1,6}) ?(?:\*{1,3}|[\u2020\u2021])$/;
 
 function isMarkedStatistic(cell: string): boolean {
   const match = MARKED_NUMBER.exec(cell.trim());
@@ -1263,7 +1263,7 @@ function isMarkedStatistic(cell: string): boolean {
 }
 
 /** A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)". */
-const TRAILING_DF_PAIR = /^([-\u2212<>=]?\s?\d*\.?\d+[*a-h]{0,3})\s+\((\d{1,4}(?:\.\d{1,2})?),\s?(\d{1,5}(?:\.\d{1,2})?)\)$/;
+const TRAILING_DF_PAIR = /^([-\u2212<>=]? ?(?:\d{1,6}(?:\.\d{1,6})?|\.\d{1,6})[*a-h]{0,3}) {1,3}\((\d{1,4}(?:\.\d{1,2})?), ?(\d{1,5}(?:\.\d{1,2})?)\)$/;
 
 /**
  * The df pair printed before an F when a crushed copy ran it onto the cell before ("Treatment F P" over
@@ -1707,9 +1707,9 @@ interface NoteDf {
 const NOTE_ERROR_DF = /(?:error|residual)\s+dfs?\s*=\s*(\d+(?:\.\d+)?)|\bdfs?\s*(?:\(\s*error\s*\)|error|residual)\s*=\s*(\d+(?:\.\d+)?)/i;
 const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*(?:[=:]\s*|(?=\())(?:\(\s*)?(\d+(?:\.\d+)?)(?:\s*[,;/]\s*(\d+(?:\.\d+)?))?\s*\)?/i;
 /** "df1 = 2, df2 = 57", "df1 = 2 and df2 = 57". */
-const NOTE_DF_NUMBERED = /(?:^|[^a-z])df\s?1\s*=\s*(\d+(?:\.\d+)?)\s*[,;]?\s*(?:and\s+)?df\s?2\s*=\s*(\d+(?:\.\d+)?)/i;
+const NOTE_DF_NUMBERED = /(?:^|[^a-z])df ?1 {0,3}= {0,3}(\d{1,6}(?:\.\d{1,3})?) {0,3}[,;]? {0,3}(?:and {1,3})?df ?2 {0,3}= {0,3}(\d{1,6}(?:\.\d{1,3})?)/i;
 /** "2 and 57 degrees of freedom", "with 2 and 57 df". */
-const NOTE_DF_AND = /(?:^|[^\d.])(\d+(?:\.\d+)?)\s+and\s+(\d+(?:\.\d+)?)\s+(?:degrees of freedom|dfs?\b|d\.f\.)/i;
+const NOTE_DF_AND = /(?:^|[^\d.])(\d{1,6}(?:\.\d{1,3})?) {1,3}and {1,3}(\d{1,6}(?:\.\d{1,3})?) {1,3}(?:degrees of freedom|dfs?\b|d\.f\.)/i;
 const NOTE_F_DF = /(?:^|[^a-z])F\s*\(\s*(\d+(?:\.\d+)?)\s*,\s*(\d+(?:\.\d+)?)\s*\)/;
 
 function readNoteDf(note: string): NoteDf {

@@ -24,11 +24,11 @@ import type { TextLine } from './cells.js';
 type Line = TextLine;
 
 /** The statistic's row: "t Stat", "t stat", "z", "z Stat". */
-const STATISTIC_ROW = /^\s*\|?\s*(t|z)(?:\s+stat(?:istic)?)?\s*(?:\||\t|\s)\s*(?=[-\u2212.\d])/i;
+const STATISTIC_ROW = /^[ \t|]{0,12}(t|z)(?: {1,3}stat(?:istic)?)?[ \t|]{1,40}(?=[-\u2212.\d])/i;
 /** The two-tailed p row: "P(T<=t) two-tail", "P(Z<=z) two-tail", "P(Z⇐z) Double tail". */
-const TWO_TAILED_P_ROW = /^\s*\|?\s*P\s*\(\s*([TZ])\s*(?:<=|\u21d0|\u2264|<)\s*[tz]\s*\)\s*(?:two[- ]tail(?:ed)?|double[- ]tail(?:ed)?|2[- ]tail(?:ed)?)\s*(?:\||\t|\s)\s*(?=[.\d])/i;
+const TWO_TAILED_P_ROW = /^[ \t|]{0,12}P ?\( ?([TZ]) ?(?:<=|\u21d0|\u2264|<) ?[tz] ?\) ?(?:two[- ]tail(?:ed)?|double[- ]tail(?:ed)?|2[- ]tail(?:ed)?)[ \t|]{1,40}(?=[.\d])/i;
 /** The df row. */
-const DF_ROW = /^\s*\|?\s*df\s*(?:\||\t|\s)\s*(?=\d)/i;
+const DF_ROW = /^[ \t|]{0,12}df[ \t|]{1,40}(?=\d)/i;
 /** A value cell. */
 const VALUE = /^[-\u2212\u2013]?(?:\d+(?:\.\d+)?|\.\d+)(?:[eE][-+]?\d{1,3})?$/;
 /** Lines around the statistic's row searched for its p and df rows. */

@@ -27,11 +27,11 @@ import type { TextLine } from './cells.js';
 type Line = TextLine;
 
 /** The name of a block's correlation row, after the variable's name. */
-const R_ROW = /^(.*?)\s*\|?\s*(?:Pearson(?:'s)? Correlation|Pearson(?:'s)? r|Correlation Coefficient)\s*\|?\s*(?=[-\u2212\u2013.\d|])/i;
+const R_ROW = /(?:Pearson(?:'s)? Correlation|Pearson(?:'s)? r|Correlation Coefficient)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
 /** A block's p row: "Sig. (2-tailed)", "Significance (2-tailed)", "p (2-tailed)". */
-const P_ROW = /^\s*\|?\s*(?:Sig\.?|Significance|p)\s*\((1|2)[- ]tailed\)\s*\|?\s*(?=[-\u2212\u2013.\d|])/i;
+const P_ROW = /^[ \t|]{0,12}(?:Sig\.?|Significance|p) ?\((1|2)[- ]tailed\)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
 /** A block's N row. */
-const N_ROW = /^\s*\|?\s*N\s*\|?\s*(?=\d)/i;
+const N_ROW = /^[ \t|]{0,12}N[ \t|]{0,12}(?=\d)/i;
 /** A cell among a block's values: a number (stars or a footnote letter glued on), the diagonal's dash, or "." for none. */
 const VALUE = /^(?:[-\u2212\u2013]\s?)?(?:\d+(?:[.,]\d+)?|[.,]\d+)(?:\*{1,3}|[a-h])?$|^[-\u2212\u2013\u2014.]$/;
 /** Most lines of one table. */
@@ -92,9 +92,9 @@ export function readSpssCorrelations(lines: Line[], first: number): { table: Doc
     const line = lines[index]!;
     const rMatch = R_ROW.exec(line.text);
     if (rMatch === null) break;
-    const r = valuesOf(line, rMatch[0].length);
+    const r = valuesOf(line, rMatch.index + rMatch[0].length);
     if (r === null) break;
-    const name = rMatch[1]!.replace(/\|/g, ' ').trim();
+    const name = line.text.slice(0, rMatch.index).replace(/\|/g, ' ').trim();
     const nameAt = name === '' ? -1 : line.text.indexOf(name);
     const block: Block = { name, nameSpan: nameAt < 0 ? null : { start: line.start + nameAt, end: line.start + nameAt + name.length }, r, p: null, oneTailed: false, n: null };
     lastLine = index;
