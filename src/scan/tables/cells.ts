@@ -40,7 +40,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]{1,3})?$/;
+  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|[a-h]{1,3})?$/;
 
 /** "n.s." after a number ("0.07, n.s.", "0.45 NS", "0.30 (ns)"): a mark that the value is not significant. */
 const NS_AFTER_NUMBER = /(?<=\d[*a-h]{0,3}),?\s*\(?(?:[nN]\.\s?[sS]\.?|ns|NS)\)?$/;
@@ -188,8 +188,10 @@ function put(keys: string[], role: ColumnRole): void {
 put(['source', 'sources', 'effect', 'effects', 'predictor', 'predictors', 'variable', 'variables', 'term', 'factor', 'source of variation', 'source of variance', 'comparison', 'contrast', 'measure', 'model', 'parameter', 'outcome', 'test', 'variable pair', 'association', 'item'], { role: 'label' });
 put(['ss', 'sum of squares', 'sums of squares', 'type iii ss', 'type iii sum of squares', 'type ii ss', 'type ii sum of squares', 'type i ss', 'type i sum of squares', 'sum sq', 'sum sq.', 'sumsq', 'ss effect'], { role: 'ss' });
 put(['df', 'd.f.', 'd.f', 'dfs', 'degrees of freedom', 'dof'], { role: 'df' });
-put(['df1', 'df 1', 'num. df', 'num.df', 'n. df', 'df effect', 'effect df', 'df num', 'num df', 'numdf', 'numerator df', 'df numerator', 'dfn', 'df hyp', 'df hypothesis', 'hypothesis df', 'dfeffect', 'dfnum'], { role: 'df1' });
-put(['df2', 'df 2', 'd. df', 'd.df', 'den. df', 'den.df', 'denom. df', 'df error', 'error df', 'df den', 'den df', 'dendf', 'denominator df', 'df denominator', 'dfd', 'dfe', 'df residual', 'residual df', 'dferror', 'dfden', 'df res'], { role: 'df2' });
+// Both df of an F named in one column, whose cells hold them as a pair ("1, 10").
+put(['df, ddf', 'df,ddf', 'ndf, ddf', 'ndf,ddf', 'df1, df2', 'df1,df2', 'num df, den df', 'df (num, den)'], { role: 'df' });
+put(['ndf', 'n.d.f.', 'df1', 'df 1', 'num. df', 'num.df', 'n. df', 'df effect', 'effect df', 'df num', 'num df', 'numdf', 'numerator df', 'df numerator', 'dfn', 'df hyp', 'df hypothesis', 'hypothesis df', 'dfeffect', 'dfnum'], { role: 'df1' });
+put(['ddf', 'd.d.f.', 'df2', 'df 2', 'd. df', 'd.df', 'den. df', 'den.df', 'denom. df', 'df error', 'error df', 'df den', 'den df', 'dendf', 'denominator df', 'df denominator', 'dfd', 'dfe', 'df residual', 'residual df', 'dferror', 'dfden', 'df res'], { role: 'df2' });
 put(['ms', 'mean square', 'mean squares', 'mean sq', 'mean sq.', 'meansq', 'ms effect'], { role: 'ms' });
 put(['p', 'p value', 'p-value', 'p-values', 'p values', 'sig', 'sig.', 'significance', 'pr(>f)', 'pr(>|t|)', 'pr(>chisq)', 'pr(>chi)', 'prob', 'prob.', 'prob > f', 'prob>f', 'p (two-tailed)', 'two-tailed p', 'p two-tailed', 'sig. (2-tailed)', 'p(two-tailed)', 'pvalue'], { role: 'p' });
 put(['n', 'sample size', 'total n'], { role: 'n' });
@@ -257,6 +259,10 @@ function knownKeyOf(key: string): string | null {
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
   const withoutMark = bare.replace(/(?<=[a-z0-9)\]])[a-h]$/, '');
   if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
+  // A footnote digit glued on ("ndf3", "P-value2"): only after a name of three letters or more, since a
+  // symbol with a digit is a name of its own ("T2", a second time point; "F1", a score).
+  const withoutDigit = bare.replace(/(?<=[a-z.)\]])\d$/, '');
+  if (withoutDigit !== bare && withoutDigit.length >= 3 && ROLE_BY_KEY.has(withoutDigit)) return withoutDigit;
   // A qualifier in brackets after a known name: "Cohen d (95% CI)", "t (two-tailed)", "p (adjusted)".
   // (Not df: "F(1, 28)" is read with its df below.)
   const withoutQualifier = HEADER_WITH_DF.test(bare) ? bare : bare.replace(/ ?\([^()]{1,30}\)$/, '');

@@ -15,7 +15,9 @@
  * into correlations with nothing left over; a row that does not cut cleanly
  * is left out rather than guessed. The header of run-together column numbers
  * ("1234567891011121314", "Number 12345678910") is cut into 1, 2, … k in
- * order. Read only under a title that says the table holds correlations;
+ * order, maybe with one more column named after them ("1 2 … 9 PHQ-9 Total"); a row's variable is the number
+ * before or after its name ("1. Anxiety", "Item 3") or that last column's name. Read only under a title that
+ * says the table holds correlations;
  * the table reader then reads it as any numbered matrix (matrix.ts), each
  * cell pointing at its place in the text.
  */
@@ -48,7 +50,7 @@ interface GluedCell {
 
 /** A correlation (or the diagonal, or a dash) at the start of `text`, with `decimals` decimals; its length or 0. */
 function valueLength(text: string, at: number, decimals: number): number {
-  const correlation = new RegExp(`^(?:[-\\u2212\\u2013] ?)?0?\\.\\d{${decimals}}(?![\\d])(?:\\*{1,3}|[\\u2020\\u2021])?|^1(?:\\.0{1,3})?(?![\\d.])|^[\\u2014\\u2013-](?![\\d.])`);
+  const correlation = new RegExp(`^(?:[-\\u2212\\u2013] ?)?0?\\.\\d{${decimals}}(?![\\d])(?:\\*{1,3}|[\\u2020\\u2021])?|^1(?:\\.0{1,3})?(?![\\d.])|^(?:--|[\\u2014\\u2013-])(?![\\d.])`);
   const match = correlation.exec(text.slice(at, at + 16));
   return match === null ? 0 : match[0].length;
 }
@@ -76,14 +78,16 @@ function labelEnd(text: string): number {
   return -1;
 }
 
-/** The column numbers 1..k run together ("1234567891011", after an optional word): their spans, or null. */
-function numberedHeader(line: Line): CellSpan[] | null {
+/**
+ * The column numbers 1..k, run together ("1234567891011") or apart by spaces ("1 2 3"), after an optional
+ * word, and maybe one more column named after them ("1 2 … 9 PHQ-9 Total"): their spans and that name; or null.
+ */
+function numberedHeader(line: Line): { spans: CellSpan[]; extra: GluedCell | null } | null {
   const text = line.text.trimEnd();
-  const match = /^\s*(?:[A-Za-z][A-Za-z ]{0,20}\s)?(\d[\d ]*)$/.exec(text);
-  if (match === null) return null;
-  const digitsAt = text.length - match[1]!.length;
+  const firstDigit = text.search(/\d/);
+  if (firstDigit < 0 || firstDigit > 24 || !/^[A-Za-z ]*$/.test(text.slice(0, firstDigit))) return null;
   const spans: CellSpan[] = [];
-  let at = digitsAt;
+  let at = firstDigit;
   let expected = 1;
   while (at < text.length && expected <= MAX_COLUMNS) {
     if (text[at] === ' ') {
@@ -91,12 +95,44 @@ function numberedHeader(line: Line): CellSpan[] | null {
       continue;
     }
     const written = String(expected);
-    if (!text.startsWith(written, at)) return null;
+    if (!text.startsWith(written, at)) break;
     spans.push({ start: line.start + at, end: line.start + at + written.length });
     at += written.length;
     expected++;
   }
-  return at >= text.length && spans.length >= MIN_ROWS ? spans : null;
+  if (spans.length < MIN_ROWS) return null;
+  if (at >= text.length) return { spans, extra: null };
+  // One more column named after the numbers, set apart by a space.
+  const rest = text.slice(at);
+  const name = rest.trim();
+  if (text[at - 1] !== ' ' && rest[0] !== ' ') return null;
+  if (name.length > 30 || !/[A-Za-z]/.test(name)) return null;
+  const nameAt = at + rest.indexOf(name);
+  return { spans, extra: { text: name, start: line.start + nameAt, end: line.start + nameAt + name.length } };
+}
+
+/**
+ * A row's variable and where its label ends: a number before the name ("1. Anxiety", "2Employment"), a number
+ * after it ("Item 3"), or the name of the column after the numbered ones ("PHQ-9 Total"); null otherwise.
+ */
+function rowLabel(text: string, extra: GluedCell | null, columns: number): { number: number; name: string; nameStart: number; nameEnd: number } | null {
+  const leading = /^(\s*)\(?(\d{1,2})[.)]?\s?(?=[A-Za-z\u00c0-\u024f])/.exec(text);
+  if (leading !== null) {
+    const end = labelEnd(text);
+    if (end < 0) return null;
+    return { number: Number(leading[2]), name: text.slice(leading[0].length, end).trim(), nameStart: leading[1]!.length, nameEnd: end };
+  }
+  const nameStart = text.length - text.trimStart().length;
+  if (extra !== null && text.startsWith(extra.text, nameStart) && !/[A-Za-z\d]/.test(text[nameStart + extra.text.length] ?? '')) {
+    return { number: columns + 1, name: extra.text, nameStart, nameEnd: nameStart + extra.text.length };
+  }
+  // "Item 3 0.476** 0.484** --": a word, a space and the variable's number.
+  const firstDigit = text.search(/\d/);
+  if (firstDigit < 2 || text[firstDigit - 1] !== ' ' || !/[A-Za-z]/.test(text.slice(nameStart, firstDigit))) return null;
+  const number = /^\d{1,2}(?=\s|$)/.exec(text.slice(firstDigit));
+  if (number === null) return null;
+  const nameEnd = firstDigit + number[0].length;
+  return { number: Number(number[0]), name: text.slice(nameStart, nameEnd), nameStart, nameEnd };
 }
 
 /** A numbered matrix of run-together cells after the title at `lines[titleLine]`, or null. */
@@ -111,11 +147,12 @@ export function readGluedMatrix(lines: Line[], titleLine: number): { table: Docu
   if (!SAYS_CORRELATIONS.test(caption) || OTHER_CORRELATIONS.test(caption)) return null;
   if (captionLine !== undefined) index++;
   // The header: the first line of run-together column numbers.
-  let header: CellSpan[] | null = null;
+  let numbered: { spans: CellSpan[]; extra: GluedCell | null } | null = null;
   const limit = Math.min(lines.length, titleLine + MAX_LINES);
   const afterCaption = index;
-  for (; index < limit && header === null; index++) header = numberedHeader(lines[index]!);
-  if (header === null) return readNamedGrid(lines, afterCaption, limit, title, caption);
+  for (; index < limit && numbered === null; index++) numbered = numberedHeader(lines[index]!);
+  if (numbered === null) return readNamedGrid(lines, afterCaption, limit, title, caption);
+  const header = numbered.extra === null ? numbered.spans : [...numbered.spans, { start: numbered.extra.start, end: numbered.extra.end }];
   const columns = header.length;
   // The rows: numbered labels and their runs; section lines between them are skipped.
   const candidates: { line: Line; number: number; name: string; nameStart: number; nameEnd: number; runAt: number }[] = [];
@@ -131,11 +168,9 @@ export function readGluedMatrix(lines: Line[], titleLine: number): { table: Docu
     }
     blanks = 0;
     if (text.length > MAX_ROW_LENGTH || NOTE_LINE.test(text) || TABLE_TITLE.test(text)) break;
-    const numbered = /^(\s*)\(?(\d{1,2})[.)]?\s?(?=[A-Za-z\u00c0-\u024f])/.exec(text);
-    if (numbered === null) continue;
-    const end = labelEnd(text);
-    if (end < 0) continue;
-    candidates.push({ line, number: Number(numbered[2]), name: text.slice(numbered[0].length, end).trim(), nameStart: numbered[1]!.length, nameEnd: end, runAt: end });
+    const label = rowLabel(text, numbered.extra, numbered.spans.length);
+    if (label === null) continue;
+    candidates.push({ line, ...label, runAt: label.nameEnd });
     lastLine = index;
   }
   // The number of decimals with which the most rows cut cleanly.

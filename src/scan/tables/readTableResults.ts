@@ -42,7 +42,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, decimalSeparatorOf, headerKey, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readMarkLegend, splitMarks, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
@@ -192,8 +192,77 @@ export interface RowCompletion {
 }
 
 function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
-  const reading = readTableRows(text, table, tableIndex);
-  return reading;
+  const parts = splitAtInnerHeaders(table);
+  if (parts === null) return readTableRows(text, table, tableIndex);
+  // A table whose header is printed again, renamed, partway down ("χ2 | p" over the categorical rows, then
+  // "(x̄ ± s) | t | p" over the continuous ones): each part is read under its own header.
+  const readings = parts.map((part) => readTableRows(text, part, tableIndex));
+  const results = readings.flatMap((reading) => reading.results);
+  const completions = readings.flatMap((reading) => reading.completions);
+  const unreadParts = readings.flatMap((reading) => (reading.unread === null ? [] : [reading.unread]));
+  const unread =
+    unreadParts.length === 0
+      ? null
+      : unreadTable(
+          table,
+          tableIndex,
+          unreadParts[0]!.reason,
+          readings.reduce((sum, reading) => sum + (reading.unread?.rowsWithStatistic ?? 0), 0),
+          readings.reduce((sum, reading) => sum + (reading.unread?.rowsRead ?? 0), 0),
+        );
+  return { results, unread, completions };
+}
+
+/** Fewest rows a part of a table split at an inner header must hold. */
+const MIN_PART_ROWS = 2;
+
+/**
+ * The parts of a table whose header is printed again partway down with other statistic names: a row after the
+ * first rows of numbers that holds no number and names a statistic (or p) in the columns where the header above
+ * names one, under another name. Null when there is no such row.
+ */
+function splitAtInnerHeaders(table: DocumentTable): DocumentTable[] | null {
+  const rows = table.rows;
+  const firstData = rows.findIndex((row) => row.slice(1).some((cell) => isNumberCell(cell)));
+  if (firstData < 1) return null;
+  const topKinds = statisticNames(rows.slice(0, firstData));
+  if (topKinds.size === 0) return null;
+  const cuts: number[] = [];
+  for (let index = firstData + 1; index < rows.length; index++) {
+    const row = rows[index]!;
+    if (row.some((cell) => isNumberCell(cell) || shapeOf(cell).shape.startsWith('number'))) continue;
+    const kinds = statisticNames([row]);
+    if (kinds.size === 0 || [...kinds].every((kind) => topKinds.has(kind))) continue;
+    if (!row.some((cell) => classifyHeader(cell).role === 'p')) continue;
+    cuts.push(index);
+  }
+  if (cuts.length === 0) return null;
+  const bounds = [0, ...cuts, rows.length];
+  const parts: DocumentTable[] = [];
+  for (let part = 0; part + 1 < bounds.length; part++) {
+    const from = bounds[part]!;
+    const to = bounds[part + 1]!;
+    if (to - from < MIN_PART_ROWS) continue;
+    parts.push({
+      ...table,
+      rows: rows.slice(from, to),
+      headerRows: part === 0 ? table.headerRows : 1,
+      ...(table.cells ? { cells: table.cells.slice(from, to) } : {}),
+    });
+  }
+  return parts.length > 1 ? parts : null;
+}
+
+/** The kinds of statistic the rows' cells name as column names ("χ2", "t", "z"). */
+function statisticNames(rows: string[][]): Set<string> {
+  const kinds = new Set<string>();
+  for (const row of rows) {
+    for (const cell of row) {
+      const role = classifyHeader(cell);
+      if (role.role === 'statistic') kinds.add(role.kind);
+    }
+  }
+  return kinds;
 }
 
 function readTableRows(text: string, table: DocumentTable, tableIndex: number): TableReading {

@@ -647,3 +647,32 @@ describe('real table shapes: each block prints its p before its statistic (dvzb-
     expect(results[0]!.symbol).toBe('rs');
   });
 });
+
+describe('real table shapes from the last batches (dvzd, dvze)', () => {
+  it('reads separate "ndf3" and "ddf3" columns, a footnote digit glued on (dvzd-02)', () => {
+    const { results } = scan('dvzd-02');
+    expect(summary(results[0]!)).toBe('F(1, 55) = 0.23 p = 0.6371');
+    // "179–186" in the ddf column is a range, not a df: those F keep their numerator df only.
+    expect(results.find((result) => result.value?.text === '65.09')!.df.map((df) => df.value)).toEqual([3]);
+  });
+
+  it('reads a "df, ddf" column of pairs and a "n.s." or "*" set apart after each F (dvzd-01)', () => {
+    const { results } = scan('dvzd-01');
+    const shoots = results.filter((result) => result.tableRow?.rowLabel === 'Shoots').slice(0, 3);
+    expect(shoots.map(summary)).toEqual(['F(1, 1) = 4.13 ns', 'F(1, 10) = 3.44', 'F(1, 10) = 0.22 ns']);
+  });
+
+  it('reads the part of a table under a header printed again with other statistics (dvze-05)', () => {
+    const kinds = scan('dvze-05').results.map((result) => result.kind);
+    expect(kinds.filter((kind) => kind === 'chi2').length).toBeGreaterThanOrEqual(8);
+    expect(kinds.filter((kind) => kind === 't')).toHaveLength(3);
+    expect(kinds.filter((kind) => kind === 'z')).toHaveLength(1);
+  });
+
+  it('reads a correlation matrix whose rows are "Item 1" … and whose last column is named (dvze-07)', () => {
+    const correlations = scan('dvze-07').results.filter((result) => result.kind === 'r');
+    expect(correlations).toHaveLength(45);
+    // N = 768 from the caption: df 766; "**" gives p < .010 by the note.
+    expect(correlations.every((result) => result.df[0]?.value === 766 && result.p?.comparator === '<')).toBe(true);
+  });
+});
