@@ -348,7 +348,10 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   for (let index = 0; index < virtualRows.length; index++) {
     const { cells: row, at: cellsAt, partial, guessed } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
-    if (errorRows[index] || TOTAL_LABEL.test(labelKey) || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
+    // A Total row of an ANOVA table prints no statistic; a row named "Total" that does is a measure's ("Total
+    // biomass" shortened to "Total" under a section line).
+    const totalRow = TOTAL_LABEL.test(labelKey) && !segments.some((segment) => readCell(row[segment.columns.get('statistic')!] ?? '', separator).kind === 'number');
+    if (errorRows[index] || totalRow || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
     // A row its label calls means and SDs ("Self-paced control M SD 38.98 12.92 ...") holds descriptives, not
     // tests; when it also shows a test's marks (stars, "n.s.", "η2 = .59") they are counted as not read.
     if (DESCRIPTIVE_ROW_LABEL.test(labelKey)) {
