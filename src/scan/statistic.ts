@@ -318,11 +318,14 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   if (text.charCodeAt(at) === 95) at++;
 
   let dfRead: DfRead | null = null;
+  let brokenOverLines = false;
   if (symbol.kind !== 'z') {
     dfRead = readSubscriptDf(text, at, symbol.kind) ?? readBracketedDf(text, skipSpaces(text, at), symbol.kind);
     // "F 1, 22 = 1240.19": an F's subscript df set apart by a space (web pages flatten "F₁,₂₂" so); only a df pair.
-    if (dfRead === null && symbol.kind === 'F' && text.charCodeAt(at) === 32 && isAsciiDigit(text.charCodeAt(at + 1))) {
+    // A table cell broken over lines sets them apart by line breaks: "F" / "1,175" / "= 10.8".
+    if (dfRead === null && symbol.kind === 'F' && (text.charCodeAt(at) === 32 || text.charCodeAt(at) === 10) && isAsciiDigit(text.charCodeAt(at + 1))) {
       dfRead = readSubscriptDf(text, at + 1, 'F');
+      brokenOverLines = dfRead !== null && text.charCodeAt(at) === 10;
     }
     // "F1(1, 31) = 6.02; F2(1, 46) = 3.95": by-participant and by-item analyses, each an F test with its own bracketed df.
     if (dfRead === null && symbol.kind === 'F' && isByParticipantOrItem(text, at)) {
@@ -344,7 +347,8 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   }
   if (dfRead !== null) at = dfRead.end;
 
-  const comparatorAt = skipSpaces(text, at);
+  let comparatorAt = skipSpaces(text, at);
+  if (brokenOverLines && text.charCodeAt(comparatorAt) === 10) comparatorAt = skipSpaces(text, comparatorAt + 1);
   const comparator = readComparator(text, comparatorAt);
   if (comparator === null) return null;
   at = skipSpaces(text, comparatorAt + comparator.length);

@@ -302,3 +302,13 @@ describe('an F subscripted by its effect name, with "d.f." after the value', () 
     expect(scanText('The Fisher Region score = 4.1, df = 12, p = .03 was high.').results.filter((result) => result.kind === 'F')).toEqual([]);
   });
 });
+
+describe('an F whose cell a table broke over lines', () => {
+  // tests/corpus/real/passages/dvzd-05.txt: one cell per line, "F" / "1,175" / "= 10.8" on lines of their own.
+  it('reads "F", its subscript df and its value from three lines', () => {
+    const result = onlyResult('Caudate\nF\n1,175\n= 10.8\n|\n0.0012');
+    expect(result.kind).toBe('F');
+    expect(dfTexts(result)).toEqual(['1', '175']);
+    expect(result.value?.text).toBe('10.8');
+  });
+});
