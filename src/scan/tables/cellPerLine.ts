@@ -115,7 +115,12 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
   let headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
-  const valueCount = typicalValueCount(body);
+  // Side-by-side blocks named alike ("D.f. | F ratio | D.f. | F ratio"), where many rows print one block only:
+  // the full rows hold every column the header names.
+  const typical = typicalValueCount(body);
+  const widest = widestValueCount(body);
+  const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
+  const valueCount = blocksAlike ? widest : typical;
   // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
   // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
   const window = grid === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
@@ -426,6 +431,23 @@ function typicalValueCount(body: Cell[]): number {
   let bestCount = 0;
   for (const [count, times] of counts) if (times > bestCount || (times === bestCount && count > best)) [best, bestCount] = [count, times];
   return best;
+}
+
+/** The largest number of values a row has. */
+function widestValueCount(body: Cell[]): number {
+  let widest = 0;
+  let run = 0;
+  for (const cell of body) {
+    run = isValueCell(cell) ? run + 1 : 0;
+    widest = Math.max(widest, run);
+  }
+  return widest;
+}
+
+/** Whether the names are one block of `size` names printed again and again ("df", "F", "df", "F"). */
+function repeatsBlock(names: string[], size: number): boolean {
+  if (size < 1 || names.length % size !== 0 || names.length === size) return false;
+  return names.every((name, index) => name === names[index % size]);
 }
 
 /** The number of text cells most rows have before their values. */

@@ -40,7 +40,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|[a-h]{1,3})?$/;
+  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|\+|[a-h]{1,3})?$/;
 
 /** "n.s." after a number ("0.07, n.s.", "0.45 NS", "0.30 (ns)"): a mark that the value is not significant. */
 const NS_AFTER_NUMBER = /(?<=\d[*a-h]{0,3}),?\s*\(?(?:[nN]\.\s?[sS]\.?|ns|NS)\)?$/;

@@ -678,3 +678,14 @@ describe('real table shapes from the last batches (dvzd, dvze)', () => {
     expect(correlations.every((result) => result.df[0]?.value === 766 && result.p?.comparator === '<')).toBe(true);
   });
 });
+
+describe('real table shapes: side-by-side blocks named alike, many rows printing one block only (dvzd-13)', () => {
+  // One cell per line: "D.f. | F ratio | D.f. | F ratio" for two outcomes; "Functional group (FG) | 2, 28 | 2.81+"
+  // prints one pair, for an outcome the copy does not say; "+" marks p < .10.
+  it('reads both blocks of the full rows and lists the one-block rows as not placed', () => {
+    const { results, tablesNotRead } = scan('dvzd-13');
+    expect(results.filter((result) => result.tableRow?.rowLabel === 'Rodent (ROD)').map(summary)).toEqual(['F(1, 4) = 1.58', 'F(1, 4) = 0.82']);
+    expect(results.some((result) => result.value?.text === '3.91')).toBe(true);
+    expect(tablesNotRead.map((table) => table.reason)).toEqual(['cells-not-placed']);
+  });
+});
