@@ -21,7 +21,7 @@ const scores = scoreCorpus(corpus);
  */
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.88, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.885, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.92, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {

@@ -317,7 +317,12 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   }
   // Every kind of statistic the header names is read, each with its own columns ("Levene's F | Sig. | t |
   // df | Sig. (2-tailed)"); an r beside another statistic is its effect size, not a test of its own.
-  const kinds = STATISTIC_PRIORITY.filter((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate)).filter((candidate, _, all) => candidate !== 'r' || !all.some((other) => other === 'F' || other === 't' || other === 'chi2'));
+  // (Unless the r has a p column of its own, one no other statistic's block takes: "t | p | r | p" under
+  // criteria side by side.)
+  const named = STATISTIC_PRIORITY.filter((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
+  const othersP = new Set(named.filter((kind) => kind !== 'r').flatMap((kind) => buildSegments(roles, kind, schema.titles).flatMap((segment) => (segment.columns.has('p') ? [segment.columns.get('p')!] : []))));
+  const rHasOwnP = buildSegments(roles, 'r', schema.titles).some((segment) => segment.columns.has('p') && !othersP.has(segment.columns.get('p')!));
+  const kinds = named.filter((candidate, _, all) => candidate !== 'r' || rHasOwnP || !all.some((other) => other === 'F' || other === 't' || other === 'chi2'));
   // Significance marks the notes define ("*** p < .001") give a marked value its p bound (marks.ts).
   const legend = readMarkLegend([...table.notes, table.caption ?? '', linesAfter(text, table.end)].join(' '));
   // A column of z without p may hold standard scores, not tests; with marks defined for it, it holds tests.

@@ -689,3 +689,12 @@ describe('real table shapes: side-by-side blocks named alike, many rows printing
     expect(tablesNotRead.map((table) => table.reason)).toEqual(['cells-not-placed']);
   });
 });
+
+describe('real table shapes: an r block with its own p beside t blocks (divu-10)', () => {
+  // Raw HTML table in Markdown: "Criterion 1: t | β ± SD | p", "Criterion 2: t | p", "Criterion 3: r | p".
+  it('reads the r column as correlations, not as an effect size of the t tests', () => {
+    const correlations = scan('divu-10').results.filter((result) => result.kind === 'r');
+    expect(correlations.map((result) => result.value?.text)).toEqual(['0.35', '-0.15', '-0.04', '0.04', '-0.01', '-0.11']);
+    expect(correlations[0]!.p?.value.text).toBe('0.021');
+  });
+});
