@@ -169,13 +169,24 @@ function isBlank(line: Line | undefined): boolean {
 
 function pipeCells(line: Line): string[] | null {
   const text = line.text;
-  if (text.length > MAX_ROW_LENGTH || !text.includes('|')) return null;
+  if (!text.includes('|')) return null;
+  // A longer line is prose, unless it is a line of many cells (rows run together, cut by splitRunOnPipeRow).
+  if (text.length > MAX_ROW_LENGTH && (text.length > MAX_RUN_ON_LINE || countPipes(text) < MIN_RUN_ON_PIPES)) return null;
   let cells = text.split('|').map((cell) => cell.trim());
   const trimmed = text.trim();
   if (trimmed.startsWith('|')) cells = cells.slice(1);
   // Outer pipes come in pairs in Markdown; a lone trailing pipe ends an empty last cell.
   if (trimmed.startsWith('|') && trimmed.endsWith('|') && cells.length > 0) cells = cells.slice(0, -1);
   return cells.length >= 2 ? cells : null;
+}
+
+/** Fewest pipes a line longer than a row must hold to be read as rows run together. */
+const MIN_RUN_ON_PIPES = 16;
+
+function countPipes(text: string): number {
+  let count = 0;
+  for (let at = text.indexOf('|'); at !== -1; at = text.indexOf('|', at + 1)) count++;
+  return count;
 }
 
 function isSeparatorRow(cells: string[]): boolean {
@@ -209,7 +220,18 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
       rows.push(pipeCellSpans(lines[index]!, 1));
       continue;
     }
-    if (!isSeparatorRow(cells)) rows.push(pipeCellSpans(lines[index]!, cells.length));
+    if (isSeparatorRow(cells)) continue;
+    const row = pipeCellSpans(lines[index]!, cells.length);
+    // A line longer than a row is rows run together, cut apart only under a header of as many cells as each such
+    // row has (under another header which cell is which is not known); otherwise it ends the table.
+    const long = lines[index]!.text.length > MAX_ROW_LENGTH;
+    const pieces = rows.length > 0 && row.length >= MIN_RUN_ON_ROWS * rows[0]!.length ? splitRunOnPipeRow(row, rows[0]!.length) : null;
+    if (pieces !== null) {
+      for (const piece of pieces) rows.push(piece);
+      continue;
+    }
+    if (long) break;
+    rows.push(row);
   }
   if (rows.length < 2) return null;
   const merged = joinBrokenRows(rows);
@@ -308,6 +330,27 @@ function splitCells(line: Line, from: number, separator: string, count = Infinit
  * cells than the header (or most rows) are joined while together they do
  * not exceed that number (their trailing empty cells left out).
  */
+/** Fewest rows a line must hold to be cut into rows. */
+const MIN_RUN_ON_ROWS = 3;
+
+/**
+ * A line of pipe cells that holds several rows one after another ("| Minimum time to collision | 12.4 | 0.002 |
+ * … | Max. rightward acceleration | 2.3 | …", as a web page's table copied without its row breaks): cut before
+ * each label cell, when the line starts with a label and every piece but the last has the same number of
+ * cells as the header, at least a label and two values. Null for any other line.
+ */
+function splitRunOnPipeRow(row: Piece[], headerWidth: number): Piece[][] | null {
+  const labels = row.flatMap((cell, index) => (cell.text !== '' && startsWithLabel([cell]) ? [index] : []));
+  if (labels.length < MIN_RUN_ON_ROWS || labels[0] !== 0) return null;
+  const size = labels[1]! - labels[0]!;
+  if (size < 3 || size !== headerWidth) return null;
+  for (let index = 1; index < labels.length; index++) {
+    if (labels[index]! - labels[index - 1]! !== size) return null;
+  }
+  if (row.length - labels[labels.length - 1]! > size) return null;
+  return labels.map((start, index) => row.slice(start, labels[index + 1] ?? row.length));
+}
+
 function joinBrokenRows(rows: Piece[][]): Piece[][] {
   const counts = new Map<number, number>();
   for (const row of rows) counts.set(row.length, (counts.get(row.length) ?? 0) + 1);

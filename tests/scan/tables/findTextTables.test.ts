@@ -184,3 +184,19 @@ describe('table titles numbered in Roman numerals', () => {
     expect(findTextTables('Table Vitamins by group\n\nSource | df | F | p\nGroup | 2 | 5.21 | .008\n')[0]!.caption).toBeNull();
   });
 });
+
+describe('pipe rows run together on one line', () => {
+  // Common practice of web copies that lose a table's row breaks (invented numbers).
+  const header = '| Measure | F | p | ηp2 |';
+  const runOn = '| Minimum gap | 12.4 | 0.002 | 0.34 | Lane changes | 2.3 | 0.141 | 0.09 | Braking time | 23.6 | <0.001 | 0.49 | Steering reversals | 17.8 | <0.001 | 0.42 | Mirror glances | 5.2 | 0.031 | 0.18 | Speed variance | 0.3 | 0.595 | 0.01 |';
+
+  it('cuts the line before each label under a header of as many cells', () => {
+    const [table] = findTextTables(`${header}\n${runOn}\n`);
+    expect(table!.rows.map((row) => row[0])).toEqual(['Measure', 'Minimum gap', 'Lane changes', 'Braking time', 'Steering reversals', 'Mirror glances', 'Speed variance']);
+  });
+
+  it('leaves the line alone under a header of another width', () => {
+    const tables = findTextTables(`| Measure | F | p |\n${runOn}\n`);
+    expect(tables.every((table) => table.rows.length < 3)).toBe(true);
+  });
+});
