@@ -978,7 +978,18 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       // A number of 1 or more with significance marks ("9.69**") is a test's value: left without a column, it says
       // the header names fewer tests than the row prints, and which value is which cannot be told. (A marked number
       // below 1 may be a group's mean or ratio marked as different from a reference: "0.64 *".)
-      if (placed.columns.some((slot, offset) => slot < 0 && isMarkedStatistic(toPlace[offset]!.text))) {
+      // Numbers given back to the label (three or more) among which a bound p stands ("<0.001") say the header
+      // names fewer tests than the row prints (descriptives given back hold no such p): which is which cannot be told.
+      const absorbed = toPlace.slice(0, placed.absorbed).filter((cell) => cell.shape.shape === 'number');
+      // So does a header of statistic columns side by side with no p column ("F (1, 24) | F (2, 48) | F (2, 48)")
+      // over rows that print more numbers: each statistic's p and effect size lost their names in the copy.
+      // (Not statistics whose cells hold their p, "F(1, 66), p"; and only plain numbers given back, not "M (SD)" cells.)
+      const unnamedBlocks =
+        absorbed.length >= 2 &&
+        !valueRoles.some((role) => role.role === 'p' || (role.role === 'statistic' && role.pInCell === true)) &&
+        valueRoles.filter((role) => role.role === 'statistic').length >= 2;
+      const testsAbsorbed = unnamedBlocks || (absorbed.length >= MAX_NUMBERS_ABSORBED && absorbed.some((cell) => cell.shape.shape === 'number' && cell.shape.comparator !== '='));
+      if (testsAbsorbed || placed.columns.some((slot, offset) => slot < 0 && isMarkedStatistic(toPlace[offset]!.text))) {
         unplaced++;
         continue;
       }
@@ -1330,6 +1341,9 @@ function numberAt(row: string[], cellsAt: (LocatedCell | null)[] | null, column:
 function isWholeNumberCell(cell: NumberCell): boolean {
   return cell.comparator === '=' && cell.record.decimals === 0 && cell.record.exponent === 0;
 }
+
+/** Plain numbers given back to a row's label beyond which its placement is not trusted. */
+const MAX_NUMBERS_ABSORBED = 3;
 
 /** A number with significance marks after it: "9.69**", "−2.21†". */
 const MARKED_NUMBER = /^[-\u2212\u2013]? ?(\d{1,6}(?:\.\d{1,6})?|\.\d{1,6}) ?(?:\*{1,3}|[\u2020\u2021])$/;

@@ -698,3 +698,15 @@ describe('real table shapes: an r block with its own p beside t blocks (divu-10)
     expect(correlations[0]!.p?.value.text).toBe('0.021');
   });
 });
+
+describe('real table shapes: statistic columns side by side whose p and effect sizes lost their names (dvzf-03)', () => {
+  // "F (1, 24) | | | F (2, 48) | | | F (2, 48)a | | |" over rows of nine numbers (F, p, ηp2 per effect), the rows
+  // run together on one line and the block titles run onto the names. Copied tab-separated, the three named
+  // columns would take the last three numbers (an F, its p and its ηp2) as three F values.
+  it('reads no F from the tab-separated copy where the names do not say which number is which', async () => {
+    const { rerender } = await import('../../corpus/real/score.js');
+    const copied = rerender(passage('dvzf-03'), 'tabs');
+    const { results } = scanDocument(plainTextDocument('tabs.txt', 'text', copied));
+    expect(results.filter((result) => result.kind === 'F')).toEqual([]);
+  });
+});
