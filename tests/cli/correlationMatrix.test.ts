@@ -5,26 +5,16 @@
  * triangle, N = 60 and the stars' legend in the note. The recomputed p of
  * each r (df = 58) is held against the bound its stars give.
  */
-import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { reportSchema } from '../../src/report/model.js';
+import { scanDocumentJson } from './scanDocumentJson.js';
 
 const root = join(__dirname, '..', '..');
-const cli = join(root, 'dist', 'src', 'cli', 'main.js');
 const passage = join(root, 'tests', 'corpus', 'real', 'passages', 'divl-08.txt');
 
-function scanJson(path: string) {
-  let out: string;
-  try {
-    out = execFileSync('node', [cli, 'scan', path, '--no-cache', '--quiet', '--format', 'json'], { encoding: 'utf8' });
-  } catch (error) {
-    out = (error as { stdout: string }).stdout;
-  }
-  return reportSchema.parse(JSON.parse(out)).documents[0]!;
-}
+const scanJson = scanDocumentJson;
 
 describe('a correlation matrix from the command line', () => {
   it('reports every correlation with df N - 2 and the p bound of its stars, and flags none of the printed ones', () => {

@@ -9,26 +9,16 @@
  * - dvyb-10: correlations in an abstract without df, the sample stated once
  *   as "Questionnaires (n=125)".
  */
-import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { reportSchema } from '../../src/report/model.js';
+import { scanDocumentJson } from './scanDocumentJson.js';
 
 const root = join(__dirname, '..', '..');
-const cli = join(root, 'dist', 'src', 'cli', 'main.js');
 const passage = (id: string): string => join(root, 'tests', 'corpus', 'real', 'passages', `${id}.txt`);
 
-function scanJson(path: string) {
-  let out: string;
-  try {
-    out = execFileSync('node', [cli, 'scan', path, '--no-cache', '--quiet', '--format', 'json'], { encoding: 'utf8' });
-  } catch (error) {
-    out = (error as { stdout: string }).stdout;
-  }
-  return reportSchema.parse(JSON.parse(out)).documents[0]!;
-}
+const scanJson = scanDocumentJson;
 
 describe('real table shapes from the command line', () => {
   it('reads the F tests of a crushed table with the df printed before each F, and flags none of them', () => {

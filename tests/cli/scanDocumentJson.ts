@@ -1,0 +1,20 @@
+/**
+ * Runs the built command line's `scan` on one file and returns its document
+ * from the JSON report, parsed with the report's schema (the command exits
+ * non-zero when it flags something; its report is read all the same).
+ */
+import { execFileSync } from 'node:child_process';
+import { join } from 'node:path';
+import { reportSchema } from '../../src/report/model.js';
+
+const cli = join(__dirname, '..', '..', 'dist', 'src', 'cli', 'main.js');
+
+export function scanDocumentJson(path: string) {
+  let out: string;
+  try {
+    out = execFileSync('node', [cli, 'scan', path, '--no-cache', '--quiet', '--format', 'json'], { encoding: 'utf8' });
+  } catch (error) {
+    out = (error as { stdout: string }).stdout;
+  }
+  return reportSchema.parse(JSON.parse(out)).documents[0]!;
+}
