@@ -190,7 +190,11 @@ export function readGluedMatrix(lines: Line[], titleLine: number): { table: Docu
     rows.push([`${candidate.number}. ${candidate.name}`, ...cut.map((cell) => cell.text)]);
     cells.push([{ start: start + candidate.nameStart, end: start + candidate.nameEnd }, ...cut.map((cell) => ({ start: start + cell.start, end: start + cell.end }))]);
   });
-  const last = lines[lastLine]!;
+  return matrixTable(title, lines[lastLine]!, lastLine, caption, rows, cells);
+}
+
+/** The rebuilt table from its title's line to its last row's line, one header row. */
+function matrixTable(title: Line, last: Line, lastLine: number, caption: string, rows: string[][], cells: (CellSpan | null)[][]): { table: DocumentTable; lastLine: number } {
   return {
     table: {
       start: title.start + (title.text.length - title.text.trimStart().length),
@@ -278,18 +282,6 @@ function readNamedGrid(lines: Line[], from: number, limit: number, title: Line, 
     if (names !== null && (names.length === width || names.length === width + 1)) header = names.length === width ? names : names.slice(1);
   }
   if (header === null) return null;
-  const last = lines[lastLine]!;
-  return {
-    table: {
-      start: title.start + (title.text.length - title.text.trimStart().length),
-      end: last.start + last.text.trimEnd().length,
-      caption,
-      notes: [],
-      rows: [['', ...header.map((name) => name.text)], ...rows],
-      headerRows: 1,
-      cells: [[null, ...header.map((name) => ({ start: name.start, end: name.end }))], ...cells],
-      layout: 'crushed',
-    },
-    lastLine,
-  };
+  const headerCells = header.map((name): CellSpan => ({ start: name.start, end: name.end }));
+  return matrixTable(title, lines[lastLine]!, lastLine, caption, [['', ...header.map((name) => name.text)], ...rows], [[null, ...headerCells], ...cells]);
 }
