@@ -24,6 +24,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { TABLE_TITLE, BARE_TABLE_TITLE, type TextLine } from './cells.js';
+import { tableOverLines } from './rebuilt.js';
 
 type Line = TextLine;
 
@@ -195,19 +196,7 @@ export function readGluedMatrix(lines: Line[], titleLine: number): { table: Docu
 
 /** The rebuilt table from its title's line to its last row's line, one header row. */
 function matrixTable(title: Line, last: Line, lastLine: number, caption: string, rows: string[][], cells: (CellSpan | null)[][]): { table: DocumentTable; lastLine: number } {
-  return {
-    table: {
-      start: title.start + (title.text.length - title.text.trimStart().length),
-      end: last.start + last.text.trimEnd().length,
-      caption,
-      notes: [],
-      rows,
-      headerRows: 1,
-      cells,
-      layout: 'crushed',
-    },
-    lastLine,
-  };
+  return { table: tableOverLines(title, last, caption, rows, cells, 'crushed'), lastLine };
 }
 
 /**

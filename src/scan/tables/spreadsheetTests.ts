@@ -20,6 +20,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import type { TextLine } from './cells.js';
+import { spanOfCell as span, tableOverLines } from './rebuilt.js';
 
 type Line = TextLine;
 
@@ -91,22 +92,5 @@ export function readSpreadsheetTest(lines: Line[], index: number): { table: Docu
   const used = [index, p.line, ...(df === null ? [] : [df.line])];
   const firstLine = Math.min(...used);
   const lastLine = Math.max(...used);
-  return {
-    table: {
-      start: lines[firstLine]!.start,
-      end: lines[lastLine]!.start + lines[lastLine]!.text.trimEnd().length,
-      caption: null,
-      notes: [],
-      rows,
-      headerRows: 1,
-      cells,
-      layout: 'positions',
-    },
-    firstLine,
-    lastLine,
-  };
-}
-
-function span(cell: Cell): CellSpan {
-  return { start: cell.start, end: cell.end };
+  return { table: tableOverLines(lines[firstLine]!, lines[lastLine]!, null, rows, cells, 'positions'), firstLine, lastLine };
 }

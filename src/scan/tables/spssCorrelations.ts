@@ -23,6 +23,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import type { TextLine } from './cells.js';
+import { spanOfCell as span, tableOverLines } from './rebuilt.js';
 
 type Line = TextLine;
 
@@ -135,23 +136,5 @@ export function readSpssCorrelations(lines: Line[], first: number): { table: Doc
     });
   }
   if (rows.length < 2) return null;
-  const firstLine = lines[first]!;
-  const last = lines[lastLine]!;
-  return {
-    table: {
-      start: firstLine.start + (firstLine.text.length - firstLine.text.trimStart().length),
-      end: last.start + last.text.trimEnd().length,
-      caption: null,
-      notes: [],
-      rows,
-      headerRows: 1,
-      cells,
-      layout: 'positions',
-    },
-    lastLine,
-  };
-}
-
-function span(cell: Cell): CellSpan {
-  return { start: cell.start, end: cell.end };
+  return { table: tableOverLines(lines[first]!, lines[lastLine]!, null, rows, cells, 'positions'), lastLine };
 }
