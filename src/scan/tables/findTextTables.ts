@@ -446,8 +446,8 @@ function tokenize(text: string): Piece[] {
     // "\u2212 0.44": a minus sign set apart from its number (PDF and web copies do); the minus sign, unlike a
     // dash, never stands for an empty cell.
     const detachedMinus = previous !== undefined && previous.text === '\u2212' && /^\.?\d/.test(token.text);
-    // "6.84 n.s.", "7.67 *", "3.44 (*)": a number's "not significant" or its marks set apart by a space belong to it.
-    const markOfNumber = previous !== undefined && /^(?:n\.s\.?|N\.S\.?|ns|NS|\*{1,3}|\(\*{1,3}\))$/.test(token.text) && /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
+    // "6.84 n.s.", "7.67 *", "3.44 (*)", "0.449 ††": a number's "not significant" or its marks set apart by a space belong to it.
+    const markOfNumber = previous !== undefined && /^(?:n\.s\.?|N\.S\.?|ns|NS|[*\u2020\u2021\u00a7]{1,3}|\(\*{1,3}\))$/.test(token.text) && /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
     const joinsPrevious =
       previous !== undefined &&
       (dfPair || detachedMinus || markOfNumber || token.text.startsWith('(') || token.text.startsWith('[') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));

@@ -28,6 +28,7 @@ import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
 import { readNameAndValue } from '../effects.js';
 import { readPValue } from '../pValue.js';
+import { readNoteDf, type NoteDf } from './noteDf.js';
 import type {
   Comparator,
   EffectKind,
@@ -1285,7 +1286,17 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
   const hasTerms = numberIn('df') || numberIn('df1') || numberIn('ss') || numberIn('ms');
   if (!hasTerms || hasStatistic) return false;
   if (ERROR_LABEL.test(label)) return true;
-  return !columns.has('df2') && (numberIn('df') || numberIn('df1')) && row.slice(1).every((cell) => !/[=<>]/.test(cell));
+  // A row its label does not name as an error term is one only when its df is a whole number and its statistic
+  // cell is empty: a dash there ("New vs. Given | 1.23 | − | −") marks a test not reported, not an error term.
+  const df = readCell(row[columns.get('df') ?? columns.get('df1') ?? -1] ?? '', separator);
+  const statisticCell = (row[columns.get('statistic')!] ?? '').trim();
+  return (
+    !columns.has('df2') &&
+    df.kind === 'number' &&
+    df.number.decimals === 0 &&
+    statisticCell === '' &&
+    row.slice(1).every((cell) => !/[=<>]/.test(cell))
+  );
 }
 
 /** The nearest error row below the effect; above it only when the table has a single error row. */
@@ -1784,42 +1795,6 @@ function readLabelDf(label: string): ReportedNumber[] {
   const match = LABEL_DF.exec(normaliseText(label).text);
   if (!match) return [];
   return [match[1], match[2]].filter((text): text is string => text !== undefined).map((text) => parseReportedNumber(text)!);
-}
-
-interface NoteDf {
-  /** "df = 1, 170", "dfs = (2, 57)", "F(1, 170)". */
-  pair: ReportedNumber[];
-  /** "df = 58". */
-  single: ReportedNumber | null;
-  /** "error df = 57", "df error = 57". */
-  error: ReportedNumber | null;
-}
-
-const NOTE_ERROR_DF = /(?:error|residual)\s+dfs?\s*=\s*(\d+(?:\.\d+)?)|\bdfs?\s*(?:\(\s*error\s*\)|error|residual)\s*=\s*(\d+(?:\.\d+)?)/i;
-const NOTE_DF = /(?:^|[^a-z])(?:dfs?|d\.f\.|degrees of freedom)\s*(?:[=:]\s*|(?=\())(?:\(\s*)?(\d+(?:\.\d+)?)(?:\s*[,;/]\s*(\d+(?:\.\d+)?))?\s*\)?/i;
-/** "df1 = 2, df2 = 57", "df1 = 2 and df2 = 57". */
-const NOTE_DF_NUMBERED = /(?:^|[^a-z])df ?1 {0,3}= {0,3}(\d{1,6}(?:\.\d{1,3})?) {0,3}[,;]? {0,3}(?:and {1,3})?df ?2 {0,3}= {0,3}(\d{1,6}(?:\.\d{1,3})?)/i;
-/** "2 and 57 degrees of freedom", "with 2 and 57 df". */
-const NOTE_DF_AND = /(?:^|[^\d.])(\d{1,6}(?:\.\d{1,3})?) {1,3}and {1,3}(\d{1,6}(?:\.\d{1,3})?) {1,3}(?:degrees of freedom|dfs?\b|d\.f\.)/i;
-const NOTE_F_DF = /(?:^|[^a-z])F\s*\(\s*(\d+(?:\.\d+)?)\s*,\s*(\d+(?:\.\d+)?)\s*\)/;
-
-function readNoteDf(note: string): NoteDf {
-  const text = normaliseText(note.slice(0, 2000)).text;
-  const none: NoteDf = { pair: [], single: null, error: null };
-  const errorMatch = NOTE_ERROR_DF.exec(text);
-  const error = errorMatch ? parseReportedNumber(errorMatch[1] ?? errorMatch[2]!) : null;
-  const withoutError = errorMatch ? text.slice(0, errorMatch.index) + text.slice(errorMatch.index + errorMatch[0].length) : text;
-  const numbered = NOTE_DF_NUMBERED.exec(withoutError) ?? NOTE_DF_AND.exec(withoutError);
-  if (numbered) return { ...none, pair: [parseReportedNumber(numbered[1]!)!, parseReportedNumber(numbered[2]!)!], error };
-  const dfMatch = NOTE_DF.exec(withoutError);
-  if (dfMatch) {
-    const first = parseReportedNumber(dfMatch[1]!)!;
-    if (dfMatch[2] !== undefined) return { ...none, pair: [first, parseReportedNumber(dfMatch[2])!], error };
-    return { ...none, single: first, error };
-  }
-  const fMatch = NOTE_F_DF.exec(withoutError);
-  if (fMatch) return { ...none, pair: [parseReportedNumber(fMatch[1]!)!, parseReportedNumber(fMatch[2]!)!], error };
-  return { ...none, error };
 }
 
 function readNoteSampleSize(note: string): ReportedNumber | null {

@@ -532,7 +532,32 @@ describe('real table shapes: df printed in front of each F, run onto the cell be
 
 describe('df stated in a table caption in the ways captions state them', () => {
   // Common practice: a caption may give the df every F of the table shares.
-  it.each(['One-way ANOVA (degrees of freedom: 2, 57)', 'ANOVA results; all F tests have 2 and 57 degrees of freedom', 'Results of ANOVA (df1 = 2, df2 = 57)', 'ANOVA (df = 2/57)', 'ANOVA, degrees of freedom (2, 57)'])('%s', (caption) => {
+  it.each([
+    'One-way ANOVA (degrees of freedom: 2, 57)',
+    'ANOVA results; all F tests have 2 and 57 degrees of freedom',
+    'Results of ANOVA (df1 = 2, df2 = 57)',
+    'ANOVA (df = 2/57)',
+    'ANOVA, degrees of freedom (2, 57)',
+    'ANOVA (df 2, 57)',
+    'ANOVA; degrees of freedom (df) = 2, 57',
+    'Numerator df = 2, denominator df = 57',
+    'Between-groups df = 2; within-groups df = 57',
+    'ANOVA (df effect = 2, df error = 57)',
+    'ANOVA (df_between = 2, df_within = 57)',
+    'ANOVA (hypothesis df = 2, error df = 57)',
+    'ANOVA; df = 2 (between groups) and 57 (within groups)',
+    'The degrees of freedom were 2 and 57',
+    'ANOVA (d.f. = 2 and 57)',
+    'ANOVA F-values (2, 57 df)',
+    'Results of ANOVA. For all F tests, df = 2, 57.',
+    'ANOVA, F[2, 57]',
+    'F values (F2,57)',
+    // Spanish "gl" (grados de libertad), French "ddl", German "FG", Portuguese "graus de liberdade".
+    'Análisis de varianza (gl = 2, 57)',
+    'Analyse de variance (ddl = 2; 57)',
+    'Varianzanalyse (FG = 2, 57)',
+    'Análise de variância (graus de liberdade = 2 e 57)',
+  ])('%s', (caption) => {
     const text = `Table 2. ${caption}\n\nMeasure | F | p\nAnxiety | 4.21 | .020\nDepression | 0.52 | .597\n`;
     const { results } = scanDocument(plainTextDocument('caption.txt', 'text', text));
     expect(results.map(summary)).toEqual(['F(2, 57) = 4.21 p = .020', 'F(2, 57) = 0.52 p = .597']);
@@ -708,5 +733,20 @@ describe('real table shapes: statistic columns side by side whose p and effect s
     const copied = rerender(passage('dvzf-03'), 'tabs');
     const { results } = scanDocument(plainTextDocument('tabs.txt', 'text', copied));
     expect(results.filter((result) => result.kind === 'F')).toEqual([]);
+  });
+});
+
+describe('real table shapes: a test not reported is not an error row (dvzi-01)', () => {
+  // "New vs. Given | 1.23 | − | −": the row prints df but a dash for F and p (no test reported); it names no
+  // error term, so its df are not the denominator of the F tests above it.
+  it('takes no denominator df from a row whose F is a dash', () => {
+    const { results } = scan('dvzi-01');
+    expect(results.filter((result) => result.kind === 'F' && result.df.length === 2)).toEqual([]);
+  });
+
+  it('still takes the df of an unnamed row whose F cell is empty', () => {
+    const text = 'Table 1. ANOVA\n\nSource | df | MS | F | p\nGroup | 2 | 40.2 | 5.10 | .009\nS/A | 57 | 7.88 |  | \n';
+    const { results } = scanDocument(plainTextDocument('rows.txt', 'text', text));
+    expect(results.map(summary)).toEqual(['F(2, 57) = 5.10 p = .009']);
   });
 });

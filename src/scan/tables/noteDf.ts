@@ -1,0 +1,78 @@
+/**
+ * Degrees of freedom a table's caption or note states for every test of the
+ * table: "df = 2, 57", "all F tests have 2 and 57 degrees of freedom",
+ * "numerator df = 2, denominator df = 57", "F(2, 57)", "gl = 2; 57".
+ *
+ * Common practice (no single source): when every test of a table shares its
+ * df, journals print them once above or below the table instead of in a
+ * column. The words are those of the languages of the real corpus (English,
+ * Spanish "gl", Portuguese "graus de liberdade", French "ddl", German "FG").
+ */
+import { normaliseText } from '../normalise.js';
+import type { ReportedNumber } from '../types.js';
+import { parseReportedNumber } from '../../stats/reportedNumber.js';
+
+export interface NoteDf {
+  /** "df = 1, 170", "dfs = (2, 57)", "F(1, 170)". */
+  pair: ReportedNumber[];
+  /** "df = 58". */
+  single: ReportedNumber | null;
+  /** "error df = 57", "df error = 57". */
+  error: ReportedNumber | null;
+}
+
+const NUMBER = String.raw`(\d{1,6}(?:\.\d{1,3})?)`;
+/** The word for degrees of freedom, standing apart from the letters around it. */
+const DF_WORD = String.raw`(?<![A-Za-z])(?:dfs?|d\.f\.|DF|gl|g\.l\.|ddl|d\.d\.l\.|FG|degrees of freedom|grados de libertad|graus de liberdade|degr[ée]s de libert[ée]|Freiheitsgrade)(?: {0,2}\(df\))?(?![A-Za-z])`;
+/** Between the two numbers of a pair: a comma, semicolon, slash or "and" (English, Spanish, Portuguese, French, German). */
+const PAIR_SEPARATOR = String.raw` {0,3}(?:[,;/]|(?:and|y|e|et|und)(?![A-Za-z])) {0,3}`;
+/** A few words in brackets after a number: "2 (between groups) and 57 (within groups)". */
+const ASIDE = String.raw`(?: {0,2}\([A-Za-z -]{1,30}\))?`;
+
+/** "df = 2, 57", "df: 2 and 57", "degrees of freedom (2, 57)", "df 2, 57", "gl = 2; 57", "df were 2 and 57". */
+const DF_PAIR = new RegExp(`${DF_WORD} {0,3}(?:[=:] {0,3}|(?:were|are|of) {1,3}|(?=\\()| {1,3}(?=\\d))\\(? {0,2}${NUMBER}${ASIDE}${PAIR_SEPARATOR}${NUMBER}(?!\\.?\\d)`, 'i');
+/** "df = 58", "df: 58". */
+const DF_SINGLE = new RegExp(`${DF_WORD} {0,3}[=:] {0,3}\\(? {0,2}${NUMBER}(?!\\.?\\d)`, 'i');
+/** "2 and 57 degrees of freedom", "(2, 57 df)". */
+const PAIR_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER}${PAIR_SEPARATOR}${NUMBER} {1,3}${DF_WORD}`, 'i');
+/** "F(2, 57)", "F[2, 57]", "F (2, 57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
+const F_WITH_DF = new RegExp(`(?<![A-Za-z])F(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
+
+/** Sides of an F test named beside df: the effect's side and the error's side. */
+const EFFECT_SIDE = String.raw`(?:numerator|effect|hypothesis|between(?:[ -]groups?)?|treatment|model)`;
+const ERROR_SIDE = String.raw`(?:denominator|error|residuals?|within(?:[ -]groups?)?)`;
+/** "numerator df = 2", "df effect = 2", "df(between) = 2", "df_between = 2", "dfeffect = 2", "df1 = 2" (digit: 1 or 2). */
+function namedDfPattern(side: string, digit: string): RegExp {
+  const sideFirst = `(?<![A-Za-z])${side}(?: {0,2}|-)(?:dfs?|d\\.f\\.|degrees of freedom)`;
+  const dfFirst = `(?<![A-Za-z])(?:dfs?|d\\.f\\.) {0,2}(?:\\( {0,2}${side} {0,2}\\)|_{0,1}${side}|${digit})`;
+  return new RegExp(`(?:${sideFirst}|${dfFirst})(?![A-Za-z]) {0,3}[=:] {0,3}${NUMBER}(?!\\.?\\d)`, 'i');
+}
+const EFFECT_DF = namedDfPattern(EFFECT_SIDE, '1');
+const ERROR_DF = namedDfPattern(ERROR_SIDE, '2');
+
+const number = (text: string): ReportedNumber => parseReportedNumber(text)!;
+
+/** Reads the df a caption or note states for the whole table; empty when it states none. */
+export function readNoteDf(note: string): NoteDf {
+  const text = normaliseText(note.slice(0, 2000)).text;
+  const none: NoteDf = { pair: [], single: null, error: null };
+  const effectMatch = EFFECT_DF.exec(text);
+  const errorMatch = ERROR_DF.exec(text);
+  const error = errorMatch ? number(errorMatch[1]!) : null;
+  if (effectMatch && error) return { ...none, pair: [number(effectMatch[1]!), error], error };
+  // What is left once the named error df is taken out: "df = 2, error df = 57" leaves "df = 2".
+  const rest = errorMatch ? text.slice(0, errorMatch.index) + text.slice(errorMatch.index + errorMatch[0].length) : text;
+  const pair = DF_PAIR.exec(rest) ?? PAIR_THEN_DF.exec(rest);
+  if (pair) return { ...none, pair: [number(pair[1]!), number(pair[2]!)], error };
+  const single = DF_SINGLE.exec(rest);
+  if (single) {
+    const first = number(single[1]!);
+    return error ? { pair: [first, error], single: first, error } : { ...none, single: first };
+  }
+  const fMatch = F_WITH_DF.exec(rest);
+  if (fMatch) {
+    const [first, second] = fMatch[1] !== undefined ? [fMatch[1], fMatch[2]!] : [fMatch[3]!, fMatch[4]!];
+    return { ...none, pair: [number(first), number(second)], error };
+  }
+  return { ...none, error };
+}
