@@ -878,6 +878,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const blockTitles = header !== null && !header.aligned && !header.tabbed ? dfTitlesOf(lines[first - 1]) : null;
   if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
+  let subHeaderLines = 0;
   let last = header === null ? first - 1 : index - 1;
   let widest = header === null ? 0 : header.columns.length - 1;
   for (; index < lines.length; index++) {
@@ -923,6 +924,16 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     if (sparse !== null && !TITLE.test(line.text) && !NOTE.test(line.text)) {
       rows.push({ data: sparse, line });
       last = index;
+      continue;
+    }
+    // Under a header whose names were read, a second header line of group names before the first row
+    // ("Control SE ± 7.5 % SE ± 15.0 % SE ±" under "Characteristics Diet F d.f P"): it names no column the
+    // reader needs (the test's columns were named above), so it is passed over. A line that is a header itself
+    // is not: the table starts there ("t-test Pearson correlation" over "Group n Mean SD p (d) r p").
+    const passOver =
+      header !== null && dataRows === 0 && subHeaderLines < MAX_SUB_HEADER_LINES && !isBlank(line) && !TITLE.test(line.text) && !NOTE.test(line.text) && line.text.length <= MAX_ROW_LENGTH;
+    if (passOver && readHeader(line) === null && leadsToDataRow(lines, index)) {
+      subHeaderLines++;
       continue;
     }
     break;
@@ -975,6 +986,9 @@ function placeRows(rows: (string[] | { data: DataLine; line: Line })[], header: 
   const raw = rows.map((row) => (Array.isArray(row) ? row : [row.data.label.text, ...row.data.values.map((value) => value.text)]));
   return { rows: raw, last, layout: 'crushed' };
 }
+
+/** Most lines of group names between a crushed or aligned header and its first row. */
+const MAX_SUB_HEADER_LINES = 2;
 
 /** Labels of rows that may carry a single number (an error row with only its df). */
 const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subjects?|participants?)\b/i;

@@ -298,6 +298,7 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
   const scores = { tabs: { piped: 0, kept: 0, extra: 0 }, crushed: { piped: 0, kept: 0, extra: 0 }, 'cell-per-line': { piped: 0, kept: 0, extra: 0 } };
   for (const passage of passages.filter((p) => p.split === 'tune' && p.shapes.includes('table:pipe'))) {
     const piped = tableKeys(passage.text);
+    const labelKeys = new Set(passage.results.map((label) => `${label.kind}|${label.df.join(',')}|${label.valueText}`));
     for (const rendering of ['tabs', 'crushed', 'cell-per-line'] as const) {
       const other = tableKeys(rerender(passage.text, rendering));
       scores[rendering].piped += piped.length;
@@ -306,8 +307,9 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
         if (at >= 0) other.splice(at, 1);
         return at >= 0;
       }).length;
-      // What is left was read from the rendering but not from the pipe rows: a misreading.
-      scores[rendering].extra += other.length;
+      // What is left was read from the rendering but not from the pipe rows: a misreading, unless a label of the
+      // passage prints that statistic with that value and df (a row the pipe copy misplaced, read right here).
+      scores[rendering].extra += other.filter((key) => !labelKeys.has(key.split('|').slice(0, 3).join('|'))).length;
     }
   }
   return scores;

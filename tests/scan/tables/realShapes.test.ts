@@ -750,3 +750,26 @@ describe('real table shapes: a test not reported is not an error row (dvzi-01)',
     expect(results.map(summary)).toEqual(['F(2, 57) = 5.10 p = .009']);
   });
 });
+
+describe('real table shapes: a crushed header with a line of group names under it (dvzd-10 crushed)', () => {
+  // The pipe copy of dvzd-10 has a second header row of group names ("Control | SE ± | 7.5 % | SE ± | …"); crushed
+  // into single spaces it is a line between the named header and the first row.
+  const text = [
+    'Table 4.',
+    'Characteristics Diet F d.f (between, within groups) P',
+    'Control SE ± 7.5 % SE ± 15.0 % SE ±',
+    'Change in bird bodyweight (kg) −0.04a 0.02 −0.14b 0.03 −0.07ab 0.03 4.29 2,26 0.02*',
+    'Mean feed intake days 11–14 (g/bird/day) 105.13 3.33 104.33 7.19 105.47 5.34 0.01 2,26 0.99',
+    'Feed conversion (g food/g egg) 1.68 0.07 1.70 0.12 1.76 0.09 0.18 2,26 0.84',
+  ].join('\n');
+
+  it('passes over the group names and reads each F with its df and p', () => {
+    const { results } = scanDocument(plainTextDocument('crushed.txt', 'text', text));
+    expect(results.map(summary)).toEqual(['F(2, 26) = 4.29 p = 0.02', 'F(2, 26) = 0.01 p = 0.99', 'F(2, 26) = 0.18 p = 0.84']);
+  });
+
+  it('does not pass over a line that is a header itself (web-06: "t-test Pearson correlation …" over "MBI Group n Mean SD p (d) 1-β r p …")', () => {
+    const { results } = scan('web-06');
+    expect(results.map(summary)).toEqual(['r(30) = 0.47 p = 0.007', 'r(14) = 0.17 p = 0.525', 'r(30) = 0.39 p = 0.029', 'r(14) = 0.14 p = 0.602', 'r(30) = -0.44 p = 0.012', 'r(14) = -0.19 p = 0.474']);
+  });
+});
