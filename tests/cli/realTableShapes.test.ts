@@ -119,3 +119,21 @@ describe('a t test as a spreadsheet prints it, from the command line', () => {
     expect(flagged.map((finding) => finding.rule)).toEqual(['halved-p']);
   });
 });
+
+describe('table vocabulary and caption df from the command line', () => {
+  // Invented numbers: F(2, 57) = 5.10 gives p = .0091 (SciPy 1.10.1 scipy.stats.f.sf(5.10, 2, 57), computed when
+  // the test was written), so ".009" is consistent and ".09" is not.
+  const table = (p: string): string =>
+    ['Tabela 2. Análise de variância (graus de liberdade = 2 e 57)', '', 'FV\tSQ\tQM\tF calculado\tValor-p', `Tratamento\t40.20\t20.10\t5.10\t${p}`, ''].join('\n');
+
+  it('reads an F whose df the caption states, under Portuguese column names, and flags a p it cannot give', () => {
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-vocabulary-'));
+    writeFileSync(join(directory, 'right.txt'), table('.009'));
+    writeFileSync(join(directory, 'wrong.txt'), table('.09'));
+    const right = scanJson(join(directory, 'right.txt')).statistics.filter((statistic) => statistic.inTable);
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['F', [2, 57], 5.1]]);
+    expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+    const wrong = scanJson(join(directory, 'wrong.txt')).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    expect(wrong.map((statistic) => [statistic.value, statistic.df])).toEqual([[5.1, [2, 57]]]);
+  });
+});

@@ -374,6 +374,8 @@ function stripPipes(text: string): { text: string; offset: number } | null {
   let end = text.length;
   while (start < end && (text[start] === ' ' || text[start] === '|')) start++;
   while (end > start && (text[end - 1] === ' ' || text[end - 1] === '|')) end--;
+  // The closing bar of an absolute value ends the cell's text, not a pipe around it ("Pr > |t|").
+  if (text[end] === '|' && /(?:^|[\s>=<(])\|[^\s|]{1,3}$/.test(text.slice(start, end))) end++;
   if (start === end) {
     // Only spaces or pipes: one pipe ends an empty cell ("|"), spaces are an empty cell, "| |" separates rows.
     const pipes = text.split('|').length - 1;

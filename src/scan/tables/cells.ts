@@ -231,6 +231,22 @@ put(['valor t', 'valor de t', 'valeur t', 'valeur de t', 't-wert', 't wert', 't-
 put(['valor f', 'valor de f', 'razão f', 'razon f', 'valeur f', 'valeur de f', 'f-wert', 'f wert', 'f-waarde'], { role: 'statistic', kind: 'F', df: [] });
 put(['qui-quadrado', 'qui quadrado', 'qui2', 'chi-carré', 'chi carré', 'chi-kwadraat'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['média±dp', 'média ± dp', 'media±de', 'media ± de', 'media (de)', 'média (dp)', 'mw (sd)', 'mw ± sd', 'moyenne (é.-t.)', 'moyenne ± é.-t.'], { role: 'descriptive' });
+// Source, F and p columns as statistics programs and journals print them (common practice, from memory):
+// abbreviations of "source of variation" in English, Spanish and Portuguese ("SOV", "S.V.", "F.V.", "FV"),
+// "Sum Sq" in Portuguese ("SQ"), the calculated F ("F cal", "Fcalc", "F calculado"), and p written as the
+// probability of a larger statistic ("Pr > F", "Prob > |t|", "Pr > ChiSq").
+put(['sov', 's.o.v.', 's.o.v', 'sv', 's.v.', 's.v', 'fv', 'f.v.', 'f.v', 'sources of variation', 'variation source', 'source of variance', 'fonte de variação', 'fonte de variacao', 'fontes de variação', 'fuente de variación', 'fuente de variacion', 'fuentes de variación', 'causas de variación', 'causa de variação', 'source de variation', 'sources de variation', 'variationsursache', 'variationsquelle', 'quelle'], { role: 'label' });
+put(['sq', 'sum of square', 'sum of sq.', 'sum of sq', 'partial ss'], { role: 'ss' });
+put(['cm', 'mean of squares', 'mean sum of squares', 'msq'], { role: 'ms' });
+put(['f cal', 'f cal.', 'fcal', 'fcal.', 'f-cal', 'f calc', 'f calc.', 'fcalc', 'f-calc', 'f calculated', 'f-calculated', 'calculated f', 'f calculado', 'f calculada', 'f-calculado', 'f obs', 'f obs.', 'f-obs', 'fobs', 'f observed', 'f computed', 'computed f'], { role: 'statistic', kind: 'F', df: [] });
+put(['pr > f', 'pr>f', 'pr. > f', 'p > f', 'p>f', 'prob.>f', 'prob. > f', 'pr > fc', 'pr>fc', 'pr > |t|', 'pr>|t|', 'prob > |t|', 'prob>|t|', 'p > |t|', 'p>|t|', 'pr > chisq', 'pr>chisq', 'pr > chi2', 'pr>chi2', 'prob > chi2', 'prob>chi2', 'prob > chisq', 'prob>chisq', 'p > chi2', 'p>chi2', 'significance level', 'level of significance', 'sig. level', 'sig level', 'p level', 'p-level', 'p valor', 'p-valeur', 'probability', 'prob. level', 'probabilidad', 'probabilidade'], { role: 'p' });
+put(['chi2 value', 'chi-square value', 'chi square value', 'x2 value', 'chi-square statistic', 'chi-square test', 'chi square test', 'chi2 test'], { role: 'statistic', kind: 'chi2', df: [] });
+put(['t stat', 't-stat', 't values', 't-values', 't calculated', 't calc', 'tcalc', 't cal'], { role: 'statistic', kind: 't', df: [] });
+put(['g.l.', 'g.l', 'gl.', 'degree of freedom', 'deg. of freedom', 'd.o.f.'], { role: 'df' });
+// The p of statistics software's chi-square and nonparametric output, and correlation coefficients named in full.
+put(['asymp. sig. (2-sided)', 'asymp. sig. (2-tailed)', 'asymp. sig.', 'asymptotic sig. (2-sided)', 'asymptotic significance (2-sided)', 'asymptotic significance', 'exact sig. (2-sided)', 'exact sig. (2-tailed)', 'exact sig.', 'exact significance (2-sided)', 'sig. asintótica (bilateral)', 'sig. asintotica (bilateral)', 'sig. exacta (bilateral)', 'sig. assintótica (bilateral)', 'asymptotische signifikanz (2-seitig)', 'two-sided p', 'two-tailed p-value', 'p (two-sided)', 'p two-sided'], { role: 'p' });
+put(['correlation coefficient', 'correlation coefficients', 'coefficient of correlation', 'correlation coefficient (r)', 'pearson correlation coefficient', "pearson's correlation coefficient", "pearson's correlation", 'pearson coefficient', 'r coefficient'], { role: 'statistic', kind: 'r', df: [] });
+put(["spearman's correlation coefficient", 'spearman correlation coefficient', "spearman's rank correlation coefficient", 'spearman rank correlation coefficient', "spearman's rho coefficient"], { role: 'statistic', kind: 'r', df: [], symbol: 'rs' });
 put(['chi 2', 'x 2', 'chi-quadrat', 'chi-quadrado', 'chi-cuadrado', 'chi cuadrado', 'khi2', 'khi-deux', 'khi 2'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['moyenne', 'mittelwert', 'media', 'média', 'gemiddelde', 'écart type', 'ecart type', 'écart-type', 'standardabweichung', 'desviación típica', 'desviacion tipica', 'desviación estándar', 'desvio padrão', 'desvio padrao', 'dp', 'standaarddeviatie'], { role: 'descriptive' });
 
@@ -257,8 +273,12 @@ function knownKeyOf(key: string): string | null {
   if (ROLE_BY_KEY.has(bare)) return bare;
   const withoutDf = bare.replace(DF_NAMES_IN_BRACKETS, '');
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
-  const withoutMark = bare.replace(/(?<=[a-z0-9)\]])[a-h]$/, '');
+  const withoutMark = bare.replace(/(?<=[a-z0-9.)\]])[a-h]$/, '');
   if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
+  // A footnote dagger or section mark ("p†", "p-value‡"), and "P" with a footnote letter ("Pa", "Pb").
+  const withoutDagger = bare.replace(/[†‡§¶#]{1,3}$/, '').replace(/[.:]$/, '');
+  if (withoutDagger !== bare && withoutDagger.length >= 1 && ROLE_BY_KEY.has(withoutDagger)) return withoutDagger;
+  if (/^p[a-e]$/.test(bare)) return 'p';
   // A footnote digit glued on ("ndf3", "P-value2"): only after a name of three letters or more, since a
   // symbol with a digit is a name of its own ("T2", a second time point; "F1", a score).
   const withoutDigit = bare.replace(/(?<=[a-z.)\]])\d$/, '');

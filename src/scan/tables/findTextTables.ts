@@ -167,12 +167,45 @@ function isBlank(line: Line | undefined): boolean {
 
 // ---------------------------------------------------------------- pipe tables
 
+/**
+ * Offsets of the pipes that separate cells: not one escaped as Markdown
+ * escapes it ("\\|"), nor the bars of an absolute value written inside a
+ * cell ("Pr > |t|", "|z|"): a bar with a short symbol right against it and
+ * its partner, no space between.
+ */
+function separatorPipes(text: string): number[] {
+  const pipes: number[] = [];
+  for (let at = text.indexOf('|'); at !== -1; at = text.indexOf('|', at + 1)) {
+    if (at > 0 && text[at - 1] === '\\') continue;
+    const absolute = /^\|[^\s|]{1,3}\|/.exec(text.slice(at, at + 5));
+    if (absolute && at > 0 && /[\s>=<(]/.test(text[at - 1]!) && !/[^\s|,;)]/.test(text[at + absolute[0].length] ?? ' ')) {
+      at += absolute[0].length - 1;
+      continue;
+    }
+    pipes.push(at);
+  }
+  return pipes;
+}
+
+/** The line cut at its separating pipes, each cell trimmed. */
+function cutAtPipes(text: string): string[] {
+  const cells: string[] = [];
+  let from = 0;
+  for (const at of separatorPipes(text)) {
+    cells.push(text.slice(from, at).trim());
+    from = at + 1;
+  }
+  cells.push(text.slice(from).trim());
+  return cells;
+}
+
 function pipeCells(line: Line): string[] | null {
   const text = line.text;
   if (!text.includes('|')) return null;
   // A longer line is prose, unless it is a line of many cells (rows run together, cut by splitRunOnPipeRow).
   if (text.length > MAX_ROW_LENGTH && (text.length > MAX_RUN_ON_LINE || countPipes(text) < MIN_RUN_ON_PIPES)) return null;
-  let cells = text.split('|').map((cell) => cell.trim());
+  let cells = cutAtPipes(text);
+  if (cells.length < 2) return null;
   const trimmed = text.trim();
   if (trimmed.startsWith('|')) cells = cells.slice(1);
   // Outer pipes come in pairs in Markdown; a lone trailing pipe ends an empty last cell.
@@ -304,7 +337,19 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
 /** The cells of a pipe row with their offsets in the text (the same cells pipeCells reads). */
 function pipeCellSpans(line: Line, count: number): Piece[] {
   const text = line.text;
-  return splitCells(line, text.trimStart().startsWith('|') ? text.indexOf('|') + 1 : 0, '|', count);
+  const from = text.trimStart().startsWith('|') ? text.indexOf('|') + 1 : 0;
+  const pieces: Piece[] = [];
+  const ends = [...separatorPipes(text).filter((at) => at >= from), text.length];
+  let at = from;
+  for (const end of ends) {
+    if (pieces.length >= count) break;
+    const raw = text.slice(at, end);
+    const lead = raw.length - raw.trimStart().length;
+    const trimmed = raw.trim();
+    pieces.push({ text: trimmed, start: line.start + at + lead, end: line.start + at + lead + trimmed.length });
+    at = end + 1;
+  }
+  return pieces;
 }
 
 /** A line cut at `separator` from `from` on, each cell trimmed, with its offsets in the text; at most `count` cells. */

@@ -80,12 +80,16 @@ interface LocatedCell {
 const STATISTIC_PRIORITY: StatisticKind[] = ['F', 't', 'chi2', 'r', 'z'];
 const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic', 'p', 'partial-eta-squared', 'eta-squared', 'generalized-eta-squared', 'omega-squared', 'cohens-d', 'r']);
 
-const ERROR_LABEL = /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term)(?![a-z])/;
+// With the words of the other languages of the corpus (common practice, from memory): Spanish and Portuguese
+// "error", "erro", "residuo", "resíduo", "dentro de grupos", "intragrupos"; French "erreur", "résidu",
+// "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
+const ERROR_LABEL =
+  /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen)(?![a-zà-ÿ])/;
 /** The end of a row label that says the row holds means and SDs: "M SD", "M (SD)", "Mean (SD)", "Mean ± SD". */
 const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:m|mean|means)\s?(?:\(sd\)|sd|\u00b1 ?sd|\(se\)|se)$|(?:^|\s)(?:mean|means|sd)$/;
 
 /** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
-const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
+const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
 
 /** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */
