@@ -137,3 +137,20 @@ describe('table vocabulary and caption df from the command line', () => {
     expect(wrong.map((statistic) => [statistic.value, statistic.df])).toEqual([[5.1, [2, 57]]]);
   });
 });
+
+describe('a table one cell per line without a title, from the command line', () => {
+  // Invented numbers: t(58) = 2.41 gives p = .019 (SciPy 1.10.1 scipy.stats.t.sf(2.41, 58) * 2, computed when the
+  // test was written), so ".19" is a p the t cannot give.
+  const cells = (p: string): string =>
+    ['The comparison is shown below.', '', 'Variable', 'Control M (SD)', 'Training M (SD)', 't', 'df', 'p', 'Recall', '12.1 (3.2)', '14.3 (3.9)', '2.41', '58', p, ''].join('\n\n');
+
+  it('reads the t test with its df and flags a p it cannot give', () => {
+    const directory = mkdtempSync(join(tmpdir(), 'plumbline-untitled-'));
+    writeFileSync(join(directory, 'right.txt'), cells('.019'));
+    writeFileSync(join(directory, 'wrong.txt'), cells('.19'));
+    const right = scanJson(join(directory, 'right.txt')).statistics.filter((statistic) => statistic.inTable);
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['t', [58], 2.41]]);
+    const wrong = scanJson(join(directory, 'wrong.txt')).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    expect(wrong.map((statistic) => [statistic.value, statistic.df])).toEqual([[2.41, [58]]]);
+  });
+});

@@ -70,6 +70,45 @@ export interface CellPerLineTable {
 export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerLineTable | null {
   const title = lines[titleLine];
   if (title === undefined || !TITLE.test(title.text)) return null;
+  return readCells(lines, titleLine, title, true);
+}
+
+/** Fewest known column names, one per line, that start a table one cell per line without a title above it. */
+const MIN_UNTITLED_NAMES = 3;
+/** Most header cells of a table one cell per line without a title. */
+const MAX_UNTITLED_HEADER_CELLS = 16;
+/** Longest header cell of such a table (longer lines are prose). */
+const MAX_UNTITLED_HEADER_CELL = 40;
+
+/**
+ * A table one cell per line without a "Table 2" title above it (a web page
+ * that kept the title elsewhere), read from its header: short lines up to
+ * the first value, starting at `first`, at least three of them known column
+ * names and one naming a test or p ("Variable" / "Control M (SD)" / "t" /
+ * "df" / "p"). The header's names must then match the rows' values one to one.
+ */
+export function readUntitledCellPerLineTable(lines: Line[], first: number): CellPerLineTable | null {
+  const opening = stripPipes(lines[first]!.text);
+  if (opening === null || opening.text.trim() === '' || opening.text.length > MAX_UNTITLED_HEADER_CELL) return null;
+  const names: string[] = [];
+  let cellsSeen = 0;
+  for (let index = first; index < lines.length && cellsSeen < MAX_UNTITLED_HEADER_CELLS; index++) {
+    const inner = stripPipes(lines[index]!.text);
+    const text = inner?.text.trim() ?? '';
+    if (text === '') continue;
+    if (text.length > MAX_UNTITLED_HEADER_CELL) return null;
+    if (shapeOf(text).shape !== 'text') break;
+    cellsSeen++;
+    if (isColumnName(text)) names.push(text);
+  }
+  const roles = names.map((name) => classifyHeader(name).role);
+  // Three known names, one of a test or p; or a statistic and a p ("Characteristic" / "Control n (%)" / "χ2 (df)" / "p").
+  const enough = names.length >= MIN_UNTITLED_NAMES ? roles.some((role) => role === 'statistic' || role === 'p') : roles.includes('statistic') && roles.includes('p');
+  if (!enough) return null;
+  return readCells(lines, first - 1, lines[first]!, false);
+}
+
+function readCells(lines: Line[], titleLine: number, title: Line, titled: boolean): CellPerLineTable | null {
   const cells = collectCells(lines, titleLine + 1);
   // The header: from the first known column name, the run of cells up to the first value.
   let first = -1;
@@ -89,11 +128,13 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   // (The title may stand alone, "Table 3.", with its caption on the next line.)
   const firstCell = cells.find((cell) => !cell.empty);
   // The title and the caption lines under it, before the first cell.
-  const caption = lines
-    .slice(titleLine, firstCell === undefined ? titleLine + 1 : Math.max(titleLine + 1, firstCell.line))
-    .map((line) => line.text.trim())
-    .filter((text) => text !== '')
-    .join(' ');
+  const caption = titled
+    ? lines
+        .slice(titleLine, firstCell === undefined ? titleLine + 1 : Math.max(titleLine + 1, firstCell.line))
+        .map((line) => line.text.trim())
+        .filter((text) => text !== '')
+        .join(' ')
+    : '';
   const titleText = `${caption} ${firstCell?.text ?? ''}`;
   const correlations = SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText);
   // (A numbered matrix's label header, "Variables", may read as a column name; its numbers decide.)
@@ -121,6 +162,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
   const widest = widestValueCount(body);
   const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
   const valueCount = blocksAlike ? widest : typical;
+
   // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
   // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
   const window = grid === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
@@ -140,6 +182,9 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     headerRun = [...unnamed, ...headerRun];
     first = cells.indexOf(unnamed[0]!);
   }
+  // Without a title, nothing but the header says where the table starts: its names must match the rows' values
+  // one to one (a header cut off above, "MD" / "t (df=29)" / "Sig." over seven values, is not read).
+  if (!titled && headerRun.filter((cell) => classifyHeader(cell.text).role !== 'label').length !== valueCount) return null;
   const labelCount = typicalLabelCount(body);
   const everyCell =
     grid !== null ? headerRun : unnamed !== null ? headerRun : valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
@@ -192,7 +237,7 @@ export function readCellPerLineTable(lines: Line[], titleLine: number): CellPerL
     table: {
       start: title.start + (title.text.length - title.text.trimStart().length),
       end: lastCell.end,
-      caption: grid !== null ? captionOfGrid(caption, cells.slice(0, first)) : title.text.trim(),
+      caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first)) : title.text.trim(),
       notes: [],
       rows,
       headerRows: dfTitles.length > 0 ? 2 : 1,

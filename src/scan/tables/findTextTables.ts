@@ -22,7 +22,7 @@
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
-import { readCellPerLineTable } from './cellPerLine.js';
+import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
 import { readGluedMatrix } from './gluedMatrix.js';
@@ -107,7 +107,8 @@ export function findTextTables(text: string): DocumentTable[] {
     if (found === null) {
       const rebuilt =
         (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index) ?? readGluedMatrix(lines, index)) : null) ??
-        readGluedTable(lines, index);
+        readGluedTable(lines, index) ??
+        readUntitledCellPerLineTable(lines, index);
       if (rebuilt !== null) {
         const title = rebuilt.table.caption === null ? readTitle(lines, index) : null;
         tables.push(title === null ? rebuilt.table : { ...rebuilt.table, caption: title.caption, start: lines[title.firstLine]!.start });
@@ -650,9 +651,11 @@ function readHeader(line: Line): HeaderLine | null {
   if (index >= tokens.length || index > MAX_LABEL_WORDS) return null;
   if (index > 0) labelEnd = index;
   else if (classifyHeader(tokens[0]!.text).role === 'label') {
+    // The label's name, unless the longest phrase is a column's name ("Effect df" is an effect's df, after "Effect").
     const length = knownPhraseLength(tokens, 0);
-    labelEnd = length;
-    index = length;
+    const phrase = join(text, tokens[0]!, tokens[length - 1]!).text;
+    labelEnd = classifyHeader(phrase).role === 'label' ? length : 1;
+    index = labelEnd;
   }
   if (labelEnd > MAX_LABEL_WORDS) return null;
   columns.push(labelEnd > 0 ? join(text, tokens[0]!, tokens[labelEnd - 1]!) : { text: '', start: 0, end: 0 });
@@ -665,7 +668,9 @@ function readHeader(line: Line): HeaderLine | null {
     // (A "b" right after a statistic or p is such a letter too, not a column of regression weights.)
     const previousRole = columns.length > 1 ? classifyHeader(columns[columns.length - 1]!.text).role : null;
     const afterTest = previousRole === 'statistic' || previousRole === 'p';
-    if ((length === 0 || afterTest) && named > 0 && /^[a-h]$/.test(tokens[index]!.text) && (index + 1 === tokens.length || knownPhraseLength(tokens, index + 1) > 0)) {
+    // (Not "d" or "g" after a p, which name effect sizes: "t df p d".)
+    const effectLetter = classifyHeader(tokens[index]!.text).role === 'effect';
+    if ((length === 0 || (afterTest && !effectLetter)) && named > 0 && /^[a-h]$/.test(tokens[index]!.text) && (index + 1 === tokens.length || knownPhraseLength(tokens, index + 1) > 0)) {
       index++;
       continue;
     }

@@ -948,7 +948,11 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       });
     } else {
       const toPlace = values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! }));
-      const valueRoles = valueColumns.map(({ role }) => role);
+      // An error term's row prints no test: its numbers go under the SS, df and MS columns only ("Error(Time)
+      // 143.20 46.98 3.05", where 3.05 could otherwise be an F).
+      const errorTerm = ERROR_LABEL.test(headerKey(cells[0]));
+      const rowColumns = errorTerm ? valueColumns.filter(({ role }) => role.role !== 'statistic' && role.role !== 'p' && role.role !== 'effect' && role.role !== 'result') : valueColumns;
+      const valueRoles = rowColumns.map(({ role }) => role);
       const placed = placeCells(toPlace, valueRoles, schema.families);
       const hasNumbers = toPlace.some((cell) => cell.shape.shape.startsWith('number'));
       if (placed === null) {
@@ -1000,7 +1004,7 @@ function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null
       }
       placed.columns.forEach((slot, offset) => {
         if (slot < 0) return;
-        const column = valueColumns[slot]!.column;
+        const column = rowColumns[slot]!.column;
         cells[column] = values[offset]!;
         at[column] = cellsAt?.[piece.valuesFrom + offset] ?? null;
       });

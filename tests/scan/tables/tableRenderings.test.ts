@@ -1,0 +1,125 @@
+/**
+ * Common results-table shapes (common practice: how journals and statistics
+ * programs lay out ANOVA, t-test, chi-square and correlation tables), each
+ * rendered the five ways copies hand a table over (pipes, tabs, single
+ * spaces, aligned columns, one cell per line), with and without a
+ * "Table 3" title above it. Every table must give exactly the tests it
+ * prints, with their df, and nothing else.
+ *
+ * The numbers are invented and consistent (SciPy 1.10.1, scipy.stats f.sf,
+ * t.sf and chi2.sf, computed when the test was written): F(2, 57) = 5.10
+ * gives p = .0091, F(1, 57) = 3.05 gives .086, F(2, 57) = 3.81 gives .028,
+ * F(1.62, 46.98) = 6.02 gives .0075, t(58) = 2.41 gives .019, t(58) = 0.73
+ * gives .468, χ²(1) = 2.40 gives .121, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
+ * gives .465, r(58) = .30 gives .020, r(58) = −.12 gives .361.
+ */
+import { describe, expect, it } from 'vitest';
+import { plainTextDocument } from '../../../src/documents/text.js';
+import { scanDocument } from '../../../src/scan/scanDocument.js';
+
+type Rendering = 'pipe' | 'tab' | 'crushed' | 'aligned' | 'cell-per-line';
+const RENDERINGS: Rendering[] = ['pipe', 'tab', 'crushed', 'aligned', 'cell-per-line'];
+
+function renderRow(cells: string[], rendering: Rendering): string {
+  if (rendering === 'pipe') return `| ${cells.join(' | ')} |`;
+  if (rendering === 'tab') return cells.join('\t');
+  if (rendering === 'crushed') return cells.filter((cell) => cell !== '').join(' ');
+  if (rendering === 'aligned') return cells.map((cell, index) => cell.padEnd(index === 0 ? 44 : 16)).join('').trimEnd();
+  return cells.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n');
+}
+
+function renderTable(header: string[], rows: string[][], rendering: Rendering): string {
+  const separator = rendering === 'pipe' ? [`|${header.map(() => '---').join('|')}|`] : [];
+  const lines = [renderRow(header, rendering), ...separator, ...rows.map((row) => renderRow(row, rendering))];
+  return lines.join(rendering === 'cell-per-line' ? '\n\n' : '\n');
+}
+
+function testsRead(text: string): string[] {
+  return scanDocument(plainTextDocument('table.txt', 'text', text)).results.map((result) => `${result.kind}(${result.df.map((df) => df.text).join(', ')}) = ${result.value?.text}`);
+}
+
+interface Shape {
+  header: string[];
+  rows: string[][];
+  tests: string[];
+}
+
+const SHAPES: Record<string, Shape> = {
+  'one-way ANOVA as a program prints it (Between Groups, Within Groups, Total)': {
+    header: ['', 'Sum of Squares', 'df', 'Mean Square', 'F', 'Sig.'],
+    rows: [
+      ['Between Groups', '40.20', '2', '20.10', '5.10', '.009'],
+      ['Within Groups', '224.58', '57', '3.94', '', ''],
+      ['Total', '264.78', '59', '', '', ''],
+    ],
+    tests: ['F(2, 57) = 5.10'],
+  },
+  'two-way ANOVA with an effect df column named "df" after "Effect"': {
+    header: ['Effect', 'df', 'F', 'p', 'ηp2'],
+    rows: [
+      ['Group', '2', '5.10', '.009', '.15'],
+      ['Time', '1', '3.05', '.086', '.05'],
+      ['Group × Time', '2', '3.81', '.028', '.12'],
+      ['Error', '57', '', '', ''],
+    ],
+    tests: ['F(2, 57) = 5.10', 'F(1, 57) = 3.05', 'F(2, 57) = 3.81'],
+  },
+  'sphericity-corrected rows, the error row named after the effect': {
+    header: ['Source', 'SS', 'df', 'MS', 'F', 'p'],
+    rows: [
+      ['Time (Greenhouse-Geisser)', '30.00', '1.62', '18.52', '6.02', '.007'],
+      ['Error(Time) (Greenhouse-Geisser)', '143.20', '46.98', '3.05', '', ''],
+    ],
+    tests: ['F(1.62, 46.98) = 6.02'],
+  },
+  't tests with "M (SD)" per group and Cohen\'s d after p': {
+    header: ['Variable', 'Control M (SD)', 'Training M (SD)', 't', 'df', 'p', 'd'],
+    rows: [
+      ['Recall', '12.1 (3.2)', '14.3 (3.9)', '2.41', '58', '.019', '0.62'],
+      ['Recognition', '20.2 (4.1)', '21.0 (4.4)', '0.73', '58', '.468', '0.19'],
+    ],
+    tests: ['t(58) = 2.41', 't(58) = 0.73'],
+  },
+  'chi-square tests with counts per group and a df column': {
+    header: ['Characteristic', 'Control', 'Training', 'χ2', 'df', 'p'],
+    rows: [
+      ['Female', '18 (60.0)', '12 (40.0)', '2.40', '1', '.121'],
+      ['Education', '10/12/8', '6/14/10', '1.53', '2', '.465'],
+    ],
+    tests: ['chi2(1) = 2.40', 'chi2(2) = 1.53'],
+  },
+  'chi-square with its df in the cell, under "χ2 (df)"': {
+    header: ['Characteristic', 'Control n (%)', 'Training n (%)', 'χ2 (df)', 'p'],
+    rows: [
+      ['Female', '18 (60.0)', '12 (40.0)', '2.40 (1)', '.121'],
+      ['Smoker', '8 (26.7)', '3 (10.0)', '2.78 (1)', '.096'],
+    ],
+    tests: ['chi2(1) = 2.40', 'chi2(1) = 2.78'],
+  },
+  'correlations with p and n columns': {
+    header: ['Variable', 'r', 'p', 'n'],
+    rows: [
+      ['Age', '.30', '.020', '60'],
+      ['BMI', '−.12', '.361', '60'],
+    ],
+    tests: ['r(58) = .30', 'r(58) = -.12'],
+  },
+};
+
+describe('common results-table shapes in five renderings, with and without a title', () => {
+  for (const [name, shape] of Object.entries(SHAPES)) {
+    for (const titled of [true, false]) {
+      it.each(RENDERINGS)(`${name}, ${titled ? 'titled' : 'untitled'}, %s`, (rendering) => {
+        const lead = titled ? 'Table 3. Results' : 'The results are shown below.';
+        const text = `${lead}\n\n${renderTable(shape.header, shape.rows, rendering)}\n\nNote. Values rounded.\n`;
+        expect(testsRead(text)).toEqual(shape.tests);
+      });
+    }
+  }
+
+  it('does not read a table one cell per line without a title whose header names fewer columns than its rows print', () => {
+    // A header cut off above ("MD" / "t (df=29)" / "Sig.") over rows of seven values: which value is t cannot be told.
+    const text = ['MD', 't ( df=29 )', 'Sig.', 'SD', 'SD', 'LSPT', '57.23', '7.35', '61.43', '6.69', '10.34', '3.99', '0.000'].join('\n');
+    expect(testsRead(text)).toEqual([]);
+  });
+});
