@@ -60,6 +60,8 @@ export function readPValue(text: string, position: number, asWritten = false, gl
   // A p is at most 1, so a comma before digits can only be a decimal comma ("p = 0,046", "p = ,046").
   const read = readScientificNumber(text, at, 'yes') ?? readSpacedFraction(text, at);
   if (read === null || !(endsWord(text, read.end) || isFootnoteLetterAt(text, read.end))) return null;
+  // A number broken by a hyphen at a line end (".0-" / "15"): what it was cannot be told, so no p is read.
+  if (brokenAtLineEnd(text, read.end)) return null;
   const value = read.number;
   // A bare "p 0.05" (its sign lost): a conventional threshold had a "<"; any other value an "=".
   // Damaged signs are read only before a probability: "p 12" is a page.
@@ -213,4 +215,16 @@ export function readNotSignificant(text: string, position: number): number {
   at++;
   if (!endsWord(text, at)) return -1;
   return text.charCodeAt(at) === 46 ? at + 1 : at;
+}
+
+/** A hyphen right after a number, then only spaces to the line's end, then a digit: a number broken over lines. */
+function brokenAtLineEnd(text: string, at: number): boolean {
+  if (text.charCodeAt(at) !== 45) return false;
+  let cursor = at + 1;
+  while (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 13) cursor++;
+  if (text.charCodeAt(cursor) !== 10) return false;
+  cursor++;
+  while (text.charCodeAt(cursor) === 32) cursor++;
+  const next = text.charCodeAt(cursor);
+  return next >= 48 && next <= 57;
 }

@@ -185,7 +185,9 @@ function readDfNumber(text: string, at: number): { number: ReportedNumber; end: 
  * a second number that is not there leaves the part unread.
  */
 export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
-  const written = text.startsWith('dfs', at) ? 'dfs' : text.startsWith('df', at) ? 'df' : text.startsWith('d.f.', at) ? 'd.f.' : null;
+  const inWords = readDfInWords(text, at, count);
+  if (inWords !== null) return inWords;
+  const written = text.startsWith('dfs', at) ? 'dfs' : text.startsWith('df', at) ? 'df' : text.startsWith('d.f.', at) ? 'd.f.' : text.startsWith('gl', at) ? 'gl' : text.startsWith('ddl', at) ? 'ddl' : null;
   if (written === null) return null;
   let position = at + written.length;
   while (isSpaceCode(text.charCodeAt(position))) position++;
@@ -203,6 +205,19 @@ export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: Re
   while (isSpaceCode(text.charCodeAt(position))) position++;
   const second = readDfNumber(text, position);
   return second === null ? null : { df: [first.number, second.number], end: second.end };
+}
+
+/** "with 2 and 57 degrees of freedom", "with 58 df", "on 1 and 44 d.f.", "58 df" after a statistic's value. */
+const DF_IN_WORDS = /^(?:(?:with|on) )?(\d{1,6}(?:\.\d{1,3})?)(?: and (\d{1,6}(?:\.\d{1,3})?))? (?:degrees of freedom|dfs?|d\.f\.)(?![A-Za-z])/;
+
+function readDfInWords(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
+  // ("with" itself is skipped as a connecting word, so the df may start right at `at`.)
+  const first = text.charCodeAt(at);
+  if (first !== 119 && first !== 111 && !(first >= 48 && first <= 57)) return null; // "w", "o", a digit
+  const match = DF_IN_WORDS.exec(text.slice(at, at + 60));
+  if (match === null || (match[2] === undefined) !== (count === 1)) return null;
+  const df = [match[1], match[2]].filter((part): part is string => part !== undefined).map((part) => parseReportedNumber(part)!);
+  return { df, end: at + match[0].length };
 }
 
 /** "n = 90" or "N = 90" after a correlation written without df: a whole number of at least 3. */

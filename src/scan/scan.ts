@@ -33,7 +33,7 @@ export function scanText(text: string): ScanOutput {
 
 /** All results in document order, with offsets into the original text. */
 export function findResults(normalised: NormalisedText): ReportedResult[] {
-  const source = restoreLostEquals(normalised.text);
+  const source = restoreWordComparators(restoreLostEquals(normalised.text));
   const results: ReportedResult[] = [];
   const comparators = new ComparatorFinder(source);
   const spans: number[] = [];
@@ -92,6 +92,19 @@ const LOST_EQUALS = /(?<![\p{L}\d])((?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+
 function restoreLostEquals(text: string): string {
   if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
   return text.replace(LOST_EQUALS, '$1=$2');
+}
+
+/**
+ * A statistic named with a word and given its value with another word: "the
+ * F-value was 5.10", "a t value of 2.41", "the chi-square value is 12.3". The
+ * word that stands for "=" is replaced by "=" and spaces, so the text keeps
+ * its length and offsets do not move.
+ */
+const WORD_COMPARATOR = /(?<![\p{L}\d])((?:F|t|z|Z|\u03c72|chi2|chi-squared?|chi squared?|X2)[- ](?:values?|ratio|statistic|score)) (was|were|is|of|equals|equalled|equal to) (?=[-\u2212]?\.?\d)/gu;
+
+function restoreWordComparators(text: string): string {
+  if (!text.includes('value') && !text.includes('ratio') && !text.includes('statistic') && !text.includes('score')) return text;
+  return text.replace(WORD_COMPARATOR, (_, named: string, word: string) => `${named} =${' '.repeat(word.length)}`);
 }
 
 /** Longest stretch before a statistic's separator searched for a p written first ("p < 0.001, F(1,22) = 25.98"). */
@@ -219,7 +232,7 @@ function canStartSymbol(code: number): boolean {
  */
 const HEAD_CHARACTERS: Uint8Array = (() => {
   const table = new Uint8Array(128);
-  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtrRzZcChiquaredsSfNnxXHoglGlI') table[character.charCodeAt(0)] = 1;
+  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtrRzZcChiquaredsSfNnxXHoglGlIv') table[character.charCodeAt(0)] = 1;
   return table;
 })();
 

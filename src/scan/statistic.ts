@@ -128,7 +128,8 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
  */
 function kruskalWallisH(text: string, position: number): SymbolRead | null {
   if (isAsciiLetter(text.charCodeAt(position + 1)) || isAsciiDigit(text.charCodeAt(position + 1))) return null;
-  return { kind: 'chi2', symbol: 'H', end: position + 1, requiresBracketedDf: true };
+  // ("H = 9.35, df = 2": df written after the value are read too.)
+  return { kind: 'chi2', symbol: 'H', end: position + 1, requiresBracketedDf: true, acceptsTrailingDf: true };
 }
 
 /** Spearman's "rs", "r_s" (a flattened or marked subscript) and "rho" (ρ spelled out by normalisation). */
@@ -314,6 +315,10 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   const symbol = readSymbol(text, position);
   if (symbol === null) return null;
   let at = symbol.end;
+  // "F-value", "t value", "F ratio", "z-score", "chi-square statistic": the statistic named with a word after its
+  // symbol ("was", "of" or "is" after it stand for "=", scan.ts).
+  const named = symbol.symbol === undefined ? statisticWordEnd(text, at, symbol.kind) : -1;
+  if (named !== -1) at = named;
   // "F_(1,44)" / "F_{1,44}": a LaTeX-style subscript marker.
   if (text.charCodeAt(at) === 95) at++;
 
@@ -361,7 +366,8 @@ export function readStatisticHead(text: string, position: number): StatisticHead
 
   const df = dfRead?.df ?? [];
   // "H(5) = 0.32" may be a cumulative hazard: an H counts only with its p.
-  const needsP = symbol.symbol === 'H' || needsPValue(symbol.kind, dfRead, comparator.comparator);
+  // (A "z-score" is a test only with its p: it may be a standard score.)
+  const needsP = symbol.symbol === 'H' || (named !== -1 && symbol.kind === 'z') || needsPValue(symbol.kind, dfRead, comparator.comparator);
   if (symbol.kind === 'z' && looksLikeCoordinate(text, position)) return null;
 
   return {
@@ -377,6 +383,28 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     needsP: needsP || needsTrailingDf,
     ...(needsTrailingDf ? { needsTrailingDf } : {}),
   };
+}
+
+/** Words that name a statistic after its symbol, by kind ("F-value", "t ratio", "z-score", "chi-square statistic"). */
+const STATISTIC_WORDS: Record<StatisticKind, readonly string[]> = {
+  F: ['value', 'ratio', 'statistic'],
+  t: ['value', 'ratio', 'statistic'],
+  z: ['value', 'score', 'statistic'],
+  chi2: ['value', 'statistic'],
+  r: [],
+};
+
+/** The end of "-value", " value", "-ratio" … after a statistic's symbol (a hyphen or one space before the word), or -1. */
+function statisticWordEnd(text: string, at: number, kind: StatisticKind): number {
+  const joiner = text.charCodeAt(at);
+  if (joiner !== 45 && joiner !== 32) return -1;
+  for (const word of STATISTIC_WORDS[kind]) {
+    if (text.slice(at + 1, at + 1 + word.length).toLowerCase() !== word) continue;
+    let end = at + 1 + word.length;
+    if (text.charCodeAt(end) === 115) end++; // "values"
+    return isAsciiLetter(text.charCodeAt(end)) ? -1 : end;
+  }
+  return -1;
 }
 
 /** Longest effect name read as a flattened subscript of F. */
