@@ -36,10 +36,11 @@ function distinctTables(tables: readonly DocumentTable[]): DocumentTable[] {
  * the p of the p column when the cell itself has none, and effect sizes of
  * kinds it lacks. Each completion serves the first result in its cell.
  */
-function completeFromRows(results: ReportedResult[], completions: readonly RowCompletion[]): void {
+function completeFromRows(text: string, results: ReportedResult[], completions: readonly RowCompletion[]): void {
   for (const completion of completions) {
-    const result = results.find((candidate) => candidate.start >= completion.start && candidate.start < completion.end);
+    const result = results.find((candidate) => candidate.start >= completion.start && candidate.start < completion.end) ?? readWithRowP(text, completion);
     if (result === undefined) continue;
+    if (!results.includes(result)) results.push(result);
     if (result.df.length === 0 && completion.df.length > 0) result.df = completion.df;
     if (result.p === null && !result.notSignificant) {
       result.p = completion.p;
@@ -49,6 +50,36 @@ function completeFromRows(results: ReportedResult[], completions: readonly RowCo
       if (!result.effects.some((existing) => existing.kind === effect.kind)) result.effects.push(effect);
     }
   }
+}
+
+/** How a comparator is written, to put a row's p after a cell's text. */
+const WRITTEN_COMPARATOR: Record<string, string> = { '=': '=', '<': '<', '>': '>', '<=': '\u2264', '>=': '\u2265' };
+
+/**
+ * A result written in a cell without the p that the scanner needs to read a statistic without df ("rs = 0.572",
+ * "t = 0.73", "χ2 = 2.40, df = 1"), whose row prints the p in a column of its own: the cell is read as if the p
+ * followed it, and the result takes the row's p (its place in the document included). Undefined when the cell
+ * holds no such result or the row no p.
+ */
+function readWithRowP(text: string, completion: RowCompletion): ReportedResult | undefined {
+  const p = completion.p;
+  if (p === null && !completion.notSignificant) return undefined;
+  const cell = text.slice(completion.start, completion.end);
+  const comparator = p === null ? null : WRITTEN_COMPARATOR[p.comparator];
+  if (p !== null && comparator === undefined) return undefined;
+  const tail = p === null ? ', n.s.' : `, p ${comparator} ${p.value.text}`;
+  const read = scanText(`${cell}${tail}`).results.find((result) => result.start < cell.length && result.value !== null);
+  // An r beside another test of the row ("U = 349c | .211 | r = 0.18") is that test's effect size, not a correlation.
+  if (read === undefined || (read.kind === 'r' && completion.besideOtherTest)) return undefined;
+  const shift = completion.start;
+  return {
+    ...read,
+    start: read.start + shift,
+    end: Math.min(read.end, cell.length) + shift,
+    p: p === null ? null : { ...p, value: { ...p.value } },
+    notSignificant: completion.notSignificant,
+    effects: read.effects.filter((effect) => effect.end <= cell.length).map((effect) => ({ ...effect, start: effect.start + shift, end: effect.end + shift })),
+  };
 }
 
 /** The same number as printed: value and decimals. */
@@ -202,7 +233,8 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
   // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
   const overlapsWritten = spanOverlapFinder(written.results);
   const tabled = tables.results.filter((row) => !overlapsWritten(row));
-  completeFromRows(written.results, tables.completions);
+  completeFromRows(document.text, written.results, tables.completions);
+  written.results.sort((a, b) => a.start - b.start);
   const reprinted = mergeReprintedTables(tabled);
   const restated = mergeRestatements(
     written.results,

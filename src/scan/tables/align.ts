@@ -81,7 +81,7 @@ export function shapeOf(cell: string): CellShape {
   const withP = STATISTIC_WITH_P.exec(normaliseText(text).text);
   if (withP) return { shape: 'statistic-p', value: Number(withP[1]) };
   if (/[=<>]/.test(text) && text.length <= 80) {
-    if (scanText(text).results.length > 0) return { shape: 'written' };
+    if (readsAsWrittenResult(text)) return { shape: 'written' };
     const normalised = normaliseText(text).text;
     const pRead = readPValue(normalised, 0);
     if (pRead !== null && pRead.end >= normalised.trimEnd().length - 1) return { shape: 'p-cell' };
@@ -117,6 +117,19 @@ export function shapeOf(cell: string): CellShape {
 
 /** A statistic, its df in brackets and a p: "2.71 (41) .010", "4.21 (2, 57) <.001". */
 const STATISTIC_DF_AND_P = /^((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?\d{1,6}(?:\.\d+)?(?: ?[,;] ?\d{1,6}(?:\.\d+)?)? ?[)\]][*\u2020\u2021]{0,3},? ?(?:p ?)?(?:<=|>=|<|>|=|\u2264|\u2265)? ?(?:0|1)?\.\d+[*\u2020\u2021]{0,3}[a-h]?$/;
+
+/**
+ * Whether a cell holds a written result: one the text scanner reads ("t(46) = 1.06"), or a statistic without df
+ * that it reads only with a p after it ("rs = 0.572", "t = 0.73"), which the row's p column may hold.
+ */
+export function readsAsWrittenResult(cell: string): boolean {
+  if (cell.length <= 3 || !/[=<>]/.test(cell)) return false;
+  if (scanText(cell).results.length > 0) return true;
+  return cell.length <= MAX_WRITTEN_CELL && scanText(`${cell}, p = .5`).results.some((result) => result.start < cell.length);
+}
+
+/** Longest cell read as a written result waiting for its row's p. */
+const MAX_WRITTEN_CELL = 80;
 
 /** Digits with punctuation and no words: counts, fractions, percentages and their brackets. */
 const NUMERIC = /^(?=.*\d)[\d\s.,:;/()[\]%±+\-\u2212\u2013]{1,60}$/;

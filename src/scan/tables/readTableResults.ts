@@ -46,7 +46,7 @@ import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readMarkLegend, splitMarks, type MarkBound } from './marks.js';
-import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
+import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -194,6 +194,8 @@ export interface RowCompletion {
   p: ReportedP | null;
   notSignificant: boolean;
   effects: ReportedEffect[];
+  /** Another cell of the row prints a test statistic ("U = 349"): an r in the cell is that test's effect size. */
+  besideOtherTest: boolean;
 }
 
 function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
@@ -556,7 +558,7 @@ function readPCell(cell: string): ReturnType<typeof readCell> {
 
 /** True when the cell holds a complete written result ("t(58) = 2.10, p = .04"), which the text scanner reads. */
 function holdsWrittenResult(cell: string): boolean {
-  return cell.length > 3 && /[=<>]/.test(cell) && scanText(cell).results.length > 0;
+  return readsAsWrittenResult(cell);
 }
 
 /**
@@ -627,8 +629,13 @@ function completionOf(row: string[], cellsAt: (LocatedCell | null)[] | null, sch
     }
   });
   if (p === null && !notSignificant && effects.length === 0 && df.length === 0) return null;
-  return { start: at.start, end: at.end, df, p, notSignificant, effects };
+  // (The label cell counts: a row cut into pieces at its text cells starts a piece with "U = 349c".)
+  const besideOtherTest = row.some((cell, column) => column !== written && OTHER_TEST_CELL.test(cell));
+  return { start: at.start, end: at.end, df, p, notSignificant, effects, besideOtherTest };
 }
+
+/** A cell printing a test statistic by its symbol: "U = 349", "Z = −2.1", "W = 12", "H = 3.2", "t = 2.1". */
+const OTHER_TEST_CELL = /(?:^|[\s(])(?:U|W|H|Z|z|T|t|F|\u03c72|X2)\s{0,2}=\s{0,2}[-\u2212]?\d/;
 
 function skipLeadingSpace(text: string): number {
   return text.length - text.trimStart().length;
@@ -760,6 +767,15 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
         }
         pSeenAt = column;
       }
+    }
+  }
+  // A column after the first whose cells hold written results ("Test" over "t(58) = 2.41", "χ2 = 2.40, df = 1") is a
+  // column of results, whatever its name says: its cells are not part of the row's label.
+  if (positional) {
+    for (let column = 1; column < roles.length; column++) {
+      if (roles[column]!.role !== 'label' && roles[column]!.role !== 'unknown') continue;
+      const cells = body.map((row) => (row[column] ?? '').trim()).filter((cell) => cell !== '');
+      if (cells.length > 0 && cells.filter((cell) => shapeOf(cell).shape === 'written').length * 2 > cells.length) roles[column] = { role: 'result' };
     }
   }
   return { roles, titles, positional, named };

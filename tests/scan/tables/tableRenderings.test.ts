@@ -42,6 +42,8 @@ interface Shape {
   header: string[];
   rows: string[][];
   tests: string[];
+  /** Renderings in which the shape is read; all five when not given. */
+  renderings?: Rendering[];
 }
 
 const SHAPES: Record<string, Shape> = {
@@ -96,6 +98,25 @@ const SHAPES: Record<string, Shape> = {
     ],
     tests: ['chi2(1) = 2.40', 'chi2(1) = 2.78'],
   },
+  'results written in a cell, their p in a column of its own': {
+    header: ['Outcome', 'Test', 'p'],
+    rows: [
+      ['Recall', 't = 2.41, df = 58', '.019'],
+      ['Mood', 'χ2 = 2.40, df = 1', '.121'],
+    ],
+    tests: ['t(58) = 2.41', 'chi2(1) = 2.40'],
+    // Crushed, aligned or one cell per line, a header that names only p ("Outcome Test p") is not told from prose.
+    renderings: ['pipe', 'tab'],
+  },
+  'correlations written in a cell after their p': {
+    header: ['Factor', 'p', 'Effect size'],
+    rows: [
+      ['Age', '.020', 'r = .30'],
+      ['BMI', '.361', 'rs = −.12'],
+    ],
+    tests: ['r() = .30', 'r() = -.12'],
+    renderings: ['pipe', 'tab', 'cell-per-line'],
+  },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
@@ -109,13 +130,19 @@ const SHAPES: Record<string, Shape> = {
 describe('common results-table shapes in five renderings, with and without a title', () => {
   for (const [name, shape] of Object.entries(SHAPES)) {
     for (const titled of [true, false]) {
-      it.each(RENDERINGS)(`${name}, ${titled ? 'titled' : 'untitled'}, %s`, (rendering) => {
+      it.each(shape.renderings ?? RENDERINGS)(`${name}, ${titled ? 'titled' : 'untitled'}, %s`, (rendering) => {
         const lead = titled ? 'Table 3. Results' : 'The results are shown below.';
         const text = `${lead}\n\n${renderTable(shape.header, shape.rows, rendering)}\n\nNote. Values rounded.\n`;
         expect(testsRead(text)).toEqual(shape.tests);
       });
     }
   }
+
+  it('reads no correlation from an r written beside another test of its row (its effect size, diva-01)', () => {
+    // "U = 349c | .211 | r = 0.18": r = z/√N is the Mann-Whitney test's effect size, not a correlation test.
+    const text = ['Table 2. Group differences', '', '| Measure | Test | p | Effect size |', '|---|---|---|---|', '| Recall | U = 349 | .211 | r = 0.18 |', ''].join('\n');
+    expect(testsRead(text).filter((test) => test.startsWith('r'))).toEqual([]);
+  });
 
   it('does not read a table one cell per line without a title whose header names fewer columns than its rows print', () => {
     // A header cut off above ("MD" / "t (df=29)" / "Sig.") over rows of seven values: which value is t cannot be told.
