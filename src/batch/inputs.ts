@@ -1,7 +1,7 @@
 import * as fs from 'node:fs';
 import { realpathSync, type Dirent } from 'node:fs';
-import { stat } from 'node:fs/promises';
-import { basename, isAbsolute, relative, resolve, sep } from 'node:path';
+import { realpath, stat } from 'node:fs/promises';
+import { basename, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { fdir } from 'fdir';
 import { supportedExtensions } from '../documents/formats.js';
 import { openRegularFile } from '../documents/regularFile.js';
@@ -71,12 +71,43 @@ function specialAsFile(entry: Dirent): Dirent {
  * regular file", src/documents/regularFile.ts), so the user learns that a
  * FIFO or a device sits among the papers instead of finding it missing.
  */
-const specialEntriesAsFiles = {
-  ...fs,
-  readdir: ((path: string, options: { withFileTypes: true }, callback: (error: NodeJS.ErrnoException | null, entries: Dirent[]) => void) =>
-    fs.readdir(path, options, (error, entries) => callback(error, error ? entries : entries.map(specialAsFile)))) as unknown as typeof fs.readdir,
-  readdirSync: ((path: string, options: { withFileTypes: true }) => fs.readdirSync(path, options).map(specialAsFile)) as unknown as typeof fs.readdirSync,
-};
+function specialEntriesAsFiles(links: Set<string>): typeof fs {
+  const seen = (folder: string, entries: Dirent[]): Dirent[] => {
+    for (const entry of entries) if (entry.isSymbolicLink()) links.add(join(folder, entry.name));
+    return entries.map(specialAsFile);
+  };
+  return {
+    ...fs,
+    readdir: ((path: string, options: { withFileTypes: true }, callback: (error: NodeJS.ErrnoException | null, entries: Dirent[]) => void) =>
+      fs.readdir(path, options, (error, entries) => callback(error, error ? entries : seen(path, entries)))) as unknown as typeof fs.readdir,
+    readdirSync: ((path: string, options: { withFileTypes: true }) => seen(path, fs.readdirSync(path, options))) as unknown as typeof fs.readdirSync,
+  };
+}
+
+/** What a folder walk found: the documents, and the links it did not follow out of the folder. */
+interface Walked {
+  documents: string[];
+  linksOut: string[];
+}
+
+/** Whether `path` lies inside `folder` (both real paths). */
+function isInside(path: string, folder: string): boolean {
+  const rest = relative(folder, path);
+  return rest !== '' && !isAbsolute(rest) && rest !== '..' && !rest.startsWith(`..${sep}`);
+}
+
+/**
+ * The real path of a link's target when it is a regular file; null when it resolves to nothing or to something
+ * else (a device, a FIFO: the reader refuses those and says what they are).
+ */
+async function targetOf(link: string): Promise<string | null> {
+  try {
+    const target = await realpath(link);
+    return (await stat(target)).isFile() ? target : null;
+  } catch {
+    return null;
+  }
+}
 
 /**
  * Every supported document under a folder, as absolute paths; hidden files
@@ -92,8 +123,9 @@ const specialEntriesAsFiles = {
  * "./" (a/mid.txt came back as mid.txt), so paths are made relative here,
  * by reportedPath, never by fdir.
  */
-async function documentsUnder(folder: string): Promise<string[]> {
-  const found = await new fdir({ fs: specialEntriesAsFiles })
+async function documentsUnder(folder: string, followLinks: boolean): Promise<Walked> {
+  const links = new Set<string>();
+  const found = await new fdir({ fs: specialEntriesAsFiles(links) })
     .withFullPaths()
     .exclude((name) => isSkippedName(name))
     .filter((path) => {
@@ -102,8 +134,20 @@ async function documentsUnder(folder: string): Promise<string[]> {
     })
     .crawl(folder)
     .withPromise();
-  return found.sort(); // the order of the folder listing is the file system's; this one is the same on every run
+  found.sort(); // the order of the folder listing is the file system's; this one is the same on every run
+  if (followLinks) return { documents: found, linksOut: [] };
+  // A link to a file outside the folder is not followed unless asked (--follow-links): auditing a folder reads
+  // what is in it, not what a link in it points to elsewhere on the machine. A dangling link, or one to a device
+  // or a FIFO, is left to the reader, which says what it is.
+  const inside = await realpath(folder).catch(() => folder);
+  const linked = found.filter((path) => links.has(path));
+  const targets = await mapConcurrently(linked, IDENTITY_CHECKS_AT_ONCE, targetOf);
+  const out = new Set(linked.filter((_, index) => targets[index] !== null && !isInside(targets[index]!, inside)));
+  return { documents: found.filter((path) => !out.has(path)), linksOut: [...out] };
 }
+
+/** Why a link out of a scanned folder was not read. */
+export const LINK_OUT_REASON = 'a link to a file outside the scanned folder, not followed (--follow-links follows it)';
 
 /**
  * The folders a path is reported relative to: the process's working folder
@@ -205,7 +249,7 @@ async function distinctFiles(candidates: readonly { absolute: string; explicit: 
  * relative to the current folder). `bases` are the names of the folder the
  * user stands in (workingFolders); the first resolves relative arguments.
  */
-export async function collectInputs(args: readonly string[], bases: readonly string[] = workingFolders()): Promise<CollectedInputs> {
+export async function collectInputs(args: readonly string[], bases: readonly string[] = workingFolders(), options: { followLinks?: boolean } = {}): Promise<CollectedInputs> {
   const here = bases[0]!;
   const candidates: { absolute: string; explicit: boolean }[] = [];
   const missing: CollectedInputs['missing'] = [];
@@ -220,7 +264,11 @@ export async function collectInputs(args: readonly string[], bases: readonly str
       const absolute = resolve(here, paths[index]!);
       const kind = found[index]!;
       if (kind.folder === null) missing.push({ path: reportedPath(absolute, bases), reason: kind.reason });
-      else if (kind.folder) for (const path of await documentsUnder(absolute)) candidates.push({ absolute: path, explicit: false });
+      else if (kind.folder) {
+        const walked = await documentsUnder(absolute, options.followLinks === true);
+        for (const path of walked.documents) candidates.push({ absolute: path, explicit: false });
+        for (const path of walked.linksOut) missing.push({ path: reportedPath(path, bases), reason: LINK_OUT_REASON });
+      }
       else candidates.push({ absolute, explicit: true });
     }
   };

@@ -3,7 +3,7 @@ import { availableParallelism } from 'node:os';
 import { Option, type Command } from 'commander';
 import { summaryOfTallies, unreadableDocument } from '../report/build.js';
 import { AuditCache, settingsFingerprint } from '../batch/cache.js';
-import { collectInputs } from '../batch/inputs.js';
+import { collectInputs, workingFolders } from '../batch/inputs.js';
 import { entryJson, entryOf, mergeByPath, type AuditEntry } from '../batch/entry.js';
 import { JsonLinesError, JsonLinesWriter, readJsonLines } from '../batch/jsonLines.js';
 import { createProgress } from '../batch/progress.js';
@@ -27,6 +27,7 @@ interface ScanOptions extends CommonOptions {
   quiet?: boolean;
   maxDocumentMb?: string;
   limit?: string[];
+  followLinks?: boolean;
 }
 
 function parseJobs(text: string | undefined): number {
@@ -103,6 +104,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         .choices(['auto', 'pdf-parse', 'pdftotext'])
         .default('auto'),
     )
+    .option('--follow-links', 'also audit files that links in a scanned folder point to outside it')
     .option('-q, --quiet', 'no progress bar')
     .option('--max-document-mb <n>', `largest document read whole, in MB (default ${defaultLimits.maxDocumentMb}; larger text files are streamed)`)
     .option(
@@ -119,7 +121,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
       const jobs = parseJobs(options.jobs);
       if (options.output) checkOutputFolder(options.output);
 
-      const { files, missing } = await collectInputs(paths);
+      const { files, missing } = await collectInputs(paths, workingFolders(), { followLinks: options.followLinks === true });
       if (files.length === 0 && missing.length === 0) throw new UsageError(`no supported documents found in ${paths.join(', ')}`);
       const inputs = [
         ...missing.map((m) => ({ path: m.path, reason: m.reason })),
