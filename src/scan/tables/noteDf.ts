@@ -23,24 +23,27 @@ export interface NoteDf {
 
 const NUMBER = String.raw`(\d{1,6}(?:\.\d{1,3})?)`;
 /** The word for degrees of freedom, standing apart from the letters around it. */
-const DF_WORD = String.raw`(?<![A-Za-z])(?:dfs?|d\.f\.|DF|gl|g\.l\.|ddl|d\.d\.l\.|FG|degrees of freedom|grados de libertad|graus de liberdade|degr[ée]s de libert[ée]|Freiheitsgrade)(?: {0,2}\(df\))?(?![A-Za-z])`;
+const DF_WORD = String.raw`(?<![A-Za-z])(?:dfs?|d\.f\.|DF|gl|g\.l\.|ddl|d\.d\.l\.|FG|degrees of freedom|grados de libertad|graus de liberdade|degr[ée]s de libert[ée]|Freiheitsgrade)(?: {0,2}\([A-Za-z ,]{1,30}\))?(?![A-Za-z])`;
+/** "for all tests", "for every effect": what the df are stated for. */
+const FOR_ALL = String.raw`(?: {1,3}for {1,3}(?:all|every|each|the) {1,3}(?:[A-Za-z-]{1,12} {1,3}){0,2}?(?:tests?|effects?|analyses|comparisons|F(?:-| )?(?:tests|values|ratios)))?`;
 /** Between the two numbers of a pair: a comma, semicolon, slash or "and" (English, Spanish, Portuguese, French, German). */
 const PAIR_SEPARATOR = String.raw` {0,3}(?:[,;/]|(?:and|y|e|et|und)(?![A-Za-z])) {0,3}`;
 /** A few words in brackets after a number: "2 (between groups) and 57 (within groups)". */
 const ASIDE = String.raw`(?: {0,2}\([A-Za-z -]{1,30}\))?`;
 
 /** "df = 2, 57", "df: 2 and 57", "degrees of freedom (2, 57)", "df 2, 57", "gl = 2; 57", "df were 2 and 57". */
-const DF_PAIR = new RegExp(`${DF_WORD} {0,3}(?:[=:] {0,3}|(?:were|are|of) {1,3}|(?=\\()| {1,3}(?=\\d))\\(? {0,2}${NUMBER}${ASIDE}${PAIR_SEPARATOR}${NUMBER}(?!\\.?\\d)`, 'i');
+const DF_PAIR = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}(?:[=:] {0,3}|(?:were|are|of) {1,3}|(?=\\()| {1,3}(?=\\d))\\(? {0,2}${NUMBER}${ASIDE}${PAIR_SEPARATOR}${NUMBER}(?!\\.?\\d)`, 'i');
 /** "df = 58", "df: 58". */
-const DF_SINGLE = new RegExp(`${DF_WORD} {0,3}[=:] {0,3}\\(? {0,2}${NUMBER}(?!\\.?\\d)`, 'i');
+const DF_SINGLE = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}[=:] {0,3}\\(? {0,2}${NUMBER}(?!\\.?\\d)`, 'i');
 /** "2 and 57 degrees of freedom", "(2, 57 df)". */
 const PAIR_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER}${PAIR_SEPARATOR}${NUMBER} {1,3}${DF_WORD}`, 'i');
 /** "F(2, 57)", "F[2, 57]", "F (2, 57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
 const F_WITH_DF = new RegExp(`(?<![A-Za-z])F(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
 
 /** Sides of an F test named beside df: the effect's side and the error's side. */
-const EFFECT_SIDE = String.raw`(?:numerator|effect|hypothesis|between(?:[ -]groups?)?|treatment|model)`;
-const ERROR_SIDE = String.raw`(?:denominator|error|residuals?|within(?:[ -]groups?)?)`;
+// (With their abbreviations: "num df", "ndf", "dfn"; "den df", "ddf", "dfd", "dfe".)
+const EFFECT_SIDE = String.raw`(?:numerator|num\.?|n|effect|hypothesis|between(?:[ -]groups?)?|treatments?|model)`;
+const ERROR_SIDE = String.raw`(?:denominator|denom\.?|den\.?|d|e|error|residuals?|within(?:[ -]groups?)?)`;
 /** "numerator df = 2", "df effect = 2", "df(between) = 2", "df_between = 2", "dfeffect = 2", "df1 = 2" (digit: 1 or 2). */
 function namedDfPattern(side: string, digit: string): RegExp {
   const sideFirst = `(?<![A-Za-z])${side}(?: {0,2}|-)(?:dfs?|d\\.f\\.|degrees of freedom)`;
@@ -49,6 +52,11 @@ function namedDfPattern(side: string, digit: string): RegExp {
 }
 const EFFECT_DF = namedDfPattern(EFFECT_SIDE, '1');
 const ERROR_DF = namedDfPattern(ERROR_SIDE, '2');
+/** "df: treatment = 2, error = 57": both sides named after one word for df. */
+const SIDES_AFTER_DF = new RegExp(
+  `${DF_WORD} {0,3}[=:]? {0,3}\\(? {0,2}(?:treatments?|effects?|between(?: groups)?|model|hypothesis|numerator) {0,2}[=:] {0,2}${NUMBER} {0,2}[,;] {0,2}(?:and {1,3})?(?:error|residuals?|within(?: groups)?|denominator) {0,2}[=:] {0,2}${NUMBER}(?!\\.?\\d)`,
+  'i',
+);
 
 const number = (text: string): ReportedNumber => parseReportedNumber(text)!;
 
@@ -56,6 +64,8 @@ const number = (text: string): ReportedNumber => parseReportedNumber(text)!;
 export function readNoteDf(note: string): NoteDf {
   const text = normaliseText(note.slice(0, 2000)).text;
   const none: NoteDf = { pair: [], single: null, error: null };
+  const sides = SIDES_AFTER_DF.exec(text);
+  if (sides) return { ...none, pair: [number(sides[1]!), number(sides[2]!)], error: number(sides[2]!) };
   const effectMatch = EFFECT_DF.exec(text);
   const errorMatch = ERROR_DF.exec(text);
   const error = errorMatch ? number(errorMatch[1]!) : null;
@@ -65,6 +75,9 @@ export function readNoteDf(note: string): NoteDf {
   const pair = DF_PAIR.exec(rest) ?? PAIR_THEN_DF.exec(rest);
   if (pair) return { ...none, pair: [number(pair[1]!), number(pair[2]!)], error };
   const single = DF_SINGLE.exec(rest);
+  // Several different df stated one by one ("df = 1 for sex, df = 2 for education") belong to different rows:
+  // which row takes which cannot be told from the note, so none is taken.
+  if (single && statesOtherDf(rest, single)) return { ...none, error };
   if (single) {
     const first = number(single[1]!);
     return error ? { pair: [first, error], single: first, error } : { ...none, single: first };
@@ -75,4 +88,11 @@ export function readNoteDf(note: string): NoteDf {
     return { ...none, pair: [number(first), number(second)], error };
   }
   return { ...none, error };
+}
+
+/** Whether the note states another single df besides the one read ("df = 1 … df = 2"). */
+function statesOtherDf(text: string, first: RegExpExecArray): boolean {
+  const every = new RegExp(DF_SINGLE.source, 'gi');
+  for (let match = every.exec(text); match !== null; match = every.exec(text)) if (Number(match[1]) !== Number(first[1])) return true;
+  return false;
 }

@@ -531,6 +531,12 @@ describe('real table shapes: df printed in front of each F, run onto the cell be
 });
 
 describe('df stated in a table caption in the ways captions state them', () => {
+  it('takes no df from a note that states different df one by one (which row takes which cannot be told)', () => {
+    const text = 'Table 2. Chi-square tests (df = 1 for sex; df = 2 for education)\n\nVariable | χ2 | p\nSex | 2.40 | .121\nEducation | 1.53 | .465\n';
+    const { results } = scanDocument(plainTextDocument('caption.txt', 'text', text));
+    expect(results.every((result) => result.df.length === 0)).toBe(true);
+  });
+
   // Common practice: a caption may give the df every F of the table shares.
   it.each([
     'One-way ANOVA (degrees of freedom: 2, 57)',
@@ -557,6 +563,13 @@ describe('df stated in a table caption in the ways captions state them', () => {
     'Analyse de variance (ddl = 2; 57)',
     'Varianzanalyse (FG = 2, 57)',
     'Análise de variância (graus de liberdade = 2 e 57)',
+    'ANOVA (ndf = 2, ddf = 57)',
+    'F statistics (num df = 2, den df = 57)',
+    'ANOVA (dfn = 2, dfd = 57)',
+    'ANOVA; df for all tests: 2, 57',
+    'The degrees of freedom for all tests were 2 and 57.',
+    'ANOVA. Degrees of freedom (numerator, denominator) = 2, 57',
+    'ANOVA (df: treatment = 2, error = 57)',
   ])('%s', (caption) => {
     const text = `Table 2. ${caption}\n\nMeasure | F | p\nAnxiety | 4.21 | .020\nDepression | 0.52 | .597\n`;
     const { results } = scanDocument(plainTextDocument('caption.txt', 'text', text));
