@@ -339,28 +339,23 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
 function pipeCellSpans(line: Line, count: number): Piece[] {
   const text = line.text;
   const from = text.trimStart().startsWith('|') ? text.indexOf('|') + 1 : 0;
-  const pieces: Piece[] = [];
-  const ends = [...separatorPipes(text).filter((at) => at >= from), text.length];
-  let at = from;
-  for (const end of ends) {
-    if (pieces.length >= count) break;
-    const raw = text.slice(at, end);
-    const lead = raw.length - raw.trimStart().length;
-    const trimmed = raw.trim();
-    pieces.push({ text: trimmed, start: line.start + at + lead, end: line.start + at + lead + trimmed.length });
-    at = end + 1;
-  }
-  return pieces;
+  return piecesBetween(line, from, separatorPipes(text).filter((at) => at >= from), count);
 }
 
 /** A line cut at `separator` from `from` on, each cell trimmed, with its offsets in the text; at most `count` cells. */
 function splitCells(line: Line, from: number, separator: string, count = Infinity): Piece[] {
-  const pieces: Piece[] = [];
+  const separators: number[] = [];
+  for (let at = line.text.indexOf(separator, from); at !== -1; at = line.text.indexOf(separator, at + 1)) separators.push(at);
+  return piecesBetween(line, from, separators, count);
+}
+
+/** The cells of a line from `from` on, cut at the separators' offsets (in order), each trimmed; at most `count`. */
+function piecesBetween(line: Line, from: number, separators: readonly number[], count: number): Piece[] {
   const text = line.text;
+  const pieces: Piece[] = [];
   let at = from;
-  while (pieces.length < count && at <= text.length) {
-    let end = text.indexOf(separator, at);
-    if (end === -1) end = text.length;
+  for (const end of [...separators, text.length]) {
+    if (pieces.length >= count) break;
     const raw = text.slice(at, end);
     const lead = raw.length - raw.trimStart().length;
     const trimmed = raw.trim();
