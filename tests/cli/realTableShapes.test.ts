@@ -13,7 +13,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { scanDocumentJson } from './scanDocumentJson.js';
+import { scanDocumentJson, scanTextJson } from './scanDocumentJson.js';
 
 const root = join(__dirname, '..', '..');
 const passage = (id: string): string => join(root, 'tests', 'corpus', 'real', 'passages', `${id}.txt`);
@@ -127,13 +127,10 @@ describe('table vocabulary and caption df from the command line', () => {
     ['Tabela 2. Análise de variância (graus de liberdade = 2 e 57)', '', 'FV\tSQ\tQM\tF calculado\tValor-p', `Tratamento\t40.20\t20.10\t5.10\t${p}`, ''].join('\n');
 
   it('reads an F whose df the caption states, under Portuguese column names, and flags a p it cannot give', () => {
-    const directory = mkdtempSync(join(tmpdir(), 'plumbline-vocabulary-'));
-    writeFileSync(join(directory, 'right.txt'), table('.009'));
-    writeFileSync(join(directory, 'wrong.txt'), table('.09'));
-    const right = scanJson(join(directory, 'right.txt')).statistics.filter((statistic) => statistic.inTable);
+    const right = scanTextJson(table('.009')).statistics.filter((statistic) => statistic.inTable);
     expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['F', [2, 57], 5.1]]);
     expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
-    const wrong = scanJson(join(directory, 'wrong.txt')).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    const wrong = scanTextJson(table('.09')).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
     expect(wrong.map((statistic) => [statistic.value, statistic.df])).toEqual([[5.1, [2, 57]]]);
   });
 });
@@ -145,12 +142,9 @@ describe('a table one cell per line without a title, from the command line', () 
     ['The comparison is shown below.', '', 'Variable', 'Control M (SD)', 'Training M (SD)', 't', 'df', 'p', 'Recall', '12.1 (3.2)', '14.3 (3.9)', '2.41', '58', p, ''].join('\n\n');
 
   it('reads the t test with its df and flags a p it cannot give', () => {
-    const directory = mkdtempSync(join(tmpdir(), 'plumbline-untitled-'));
-    writeFileSync(join(directory, 'right.txt'), cells('.019'));
-    writeFileSync(join(directory, 'wrong.txt'), cells('.19'));
-    const right = scanJson(join(directory, 'right.txt')).statistics.filter((statistic) => statistic.inTable);
+    const right = scanTextJson(cells('.019')).statistics.filter((statistic) => statistic.inTable);
     expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['t', [58], 2.41]]);
-    const wrong = scanJson(join(directory, 'wrong.txt')).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    const wrong = scanTextJson(cells('.19')).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
     expect(wrong.map((statistic) => [statistic.value, statistic.df])).toEqual([[2.41, [58]]]);
   });
 });

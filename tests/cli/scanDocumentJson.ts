@@ -4,6 +4,8 @@
  * non-zero when it flags something; its report is read all the same).
  */
 import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { reportSchema } from '../../src/report/model.js';
 
@@ -17,4 +19,11 @@ export function scanDocumentJson(path: string) {
     out = (error as { stdout: string }).stdout;
   }
   return reportSchema.parse(JSON.parse(out)).documents[0]!;
+}
+
+/** Writes `text` to a file of its own (named `name`, in a new temporary folder) and scans it as above. */
+export function scanTextJson(text: string, name = 'document.txt') {
+  const path = join(mkdtempSync(join(tmpdir(), 'plumbline-cli-')), name);
+  writeFileSync(path, text);
+  return scanDocumentJson(path);
 }

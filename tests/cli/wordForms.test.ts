@@ -4,22 +4,16 @@
  * Invented numbers: F(2, 57) = 5.10 gives p = .0091 (SciPy 1.10.1
  * scipy.stats.f.sf(5.10, 2, 57), computed when the test was written).
  */
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { scanDocumentJson } from './scanDocumentJson.js';
+import { scanTextJson } from './scanDocumentJson.js';
 
 describe('results written in words, from the command line', () => {
   it('reads "the F-value was 5.10 with 2 and 57 degrees of freedom" and flags a p it cannot give', () => {
-    const directory = mkdtempSync(join(tmpdir(), 'plumbline-words-'));
     const text = (p: string): string => `The F-value was 5.10 with 2 and 57 degrees of freedom (p = ${p}).\n`;
-    writeFileSync(join(directory, 'right.txt'), text('.009'));
-    writeFileSync(join(directory, 'wrong.txt'), text('.09'));
-    const right = scanDocumentJson(join(directory, 'right.txt')).statistics;
+    const right = scanTextJson(text('.009')).statistics;
     expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['F', [2, 57], 5.1]]);
     expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
-    const wrong = scanDocumentJson(join(directory, 'wrong.txt')).statistics;
+    const wrong = scanTextJson(text('.09')).statistics;
     expect(wrong.flatMap((statistic) => statistic.findings.map((finding) => finding.rule))).toContain('p-value-mismatch');
   });
 });
