@@ -38,9 +38,13 @@ export interface NormalisedText {
  * Characters needing work: anything outside ASCII, "*" and "_" (possible
  * emphasis markers; one class with the non-ASCII range, because a separate
  * alternative makes the search markedly slower), "$" and "\\" (LaTeX left in
- * web text), and an ASCII hyphen at a line end.
+ * web text), "<" (inline markup left in text: "<i>F</i>", "χ<sup>2</sup>"),
+ * and an ASCII hyphen at a line end.
  */
-const NEEDS_WORK = /[^\x00-\x23\x25-\x29\x2B-\x5B\x5D\x5E\x60-\x7F]|-[ \t]*\r?\n/g;
+const NEEDS_WORK = /[^\x00-\x23\x25-\x29\x2B-\x3B\x3D-\x5B\x5D\x5E\x60-\x7F]|-[ \t]*\r?\n/g;
+
+/** An inline tag that only styles its content (HTML, JATS and MathML names), opening or closing, at `lastIndex`. */
+const INLINE_TAG = /<\/?(?:i|b|u|em|strong|italic|bold|sup|sub|span|font|small|sc|mml:[a-z]{1,12}|math|mi|mn|mo|mrow|msup|msub|msubsup|mtext|inline-formula)(?:\s[^<>]{0,200})?\/?>/iy;
 
 /** Single-character replacements (the value may be empty, or longer than one character). */
 const REPLACEMENTS: ReadonlyMap<number, string> = buildReplacementTable();
@@ -330,6 +334,19 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
     return at + length;
   }
   if (code === 92) return rewriteLatexCommand(original, at, builder);
+
+  if (code === 60) {
+    // Inline markup left in text (Markdown converted from publishers' XML, text copied from web pages):
+    // "<i>F</i>(2, 57)", "χ<sup>2</sup>", "η<sub>p</sub><sup>2</sup>". The tags go, their content stays.
+    INLINE_TAG.lastIndex = at;
+    const tag = INLINE_TAG.exec(original);
+    if (tag !== null) {
+      builder.replace(at, tag[0].length, '');
+      return at + tag[0].length;
+    }
+    builder.copy(at, at + 1);
+    return at + 1;
+  }
 
   if (code === 0x00b7) {
     // Middle dot: a decimal point between digits ("0·05"), a multiplication sign elsewhere.

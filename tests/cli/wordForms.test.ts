@@ -17,3 +17,17 @@ describe('results written in words, from the command line', () => {
     expect(wrong.flatMap((statistic) => statistic.findings.map((finding) => finding.rule))).toContain('p-value-mismatch');
   });
 });
+
+describe('inline markup left in a Markdown file, from the command line', () => {
+  it('reads "<italic>F</italic>(2, 57)" and "χ<sup>2</sup>(1)" and flags a p the F cannot give', () => {
+    // χ²(1) = 2.40 gives p = .121 (SciPy 1.10.1 scipy.stats.chi2.sf(2.40, 1), computed when the test was written).
+    const text = 'The association was weak, χ<sup>2</sup>(1) = 2.40, <italic>p</italic> = .121. The effect was significant, <italic>F</italic>(2, 57) = 5.10, <italic>p</italic> = .09.\n';
+    const statistics = scanTextJson(text, 'results.md').statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([
+      ['chi2', [1], 2.4],
+      ['F', [2, 57], 5.1],
+    ]);
+    const flagged = statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
+    expect(flagged.map((statistic) => statistic.kind)).toEqual(['F']);
+  });
+});

@@ -60,3 +60,18 @@ describe('a p broken over lines by a hyphen', () => {
     expect(read('F(1, 52) = 6.30, p = .0-\n15')).toEqual(['F(1, 52) = 6.30 p']);
   });
 });
+
+describe('inline markup left in text (Markdown converted from publishers\' XML, text copied from web pages)', () => {
+  it.each([
+    ['The effect was significant, <italic>F</italic>(2, 57) = 5.10, <italic>p</italic> = .009.', 'F(2, 57) = 5.10 p = .009'],
+    ['Groups differed, <em>t</em>(58) = 2.41, <em>p</em> = .019.', 't(58) = 2.41 p = .019'],
+    ['Proportions did not differ, χ<sup>2</sup>(1) = 2.40, <i>p</i> = .121.', 'chi2(1) = 2.40 p = .121'],
+    ['The effect was significant, F<sub>2,57</sub> = 5.10, p = .009.', 'F(2, 57) = 5.10 p = .009'],
+  ])('%s', (text, expected) => {
+    expect(read(text)).toEqual([expected]);
+  });
+
+  it('keeps a "<" that is a comparator', () => {
+    expect(read('The effect was significant, F(2, 57) = 15.10, p <.001.')).toEqual(['F(2, 57) = 15.10 p < .001']);
+  });
+});
