@@ -48,6 +48,11 @@ const INTEGER_SCALE =
 const ITEM_COUNT = /\b(\d{1,2}|two|three|four|five|six|seven|eight|nine|ten|eleven|twelve)(?:[- ]items?\b|\sitems\b)/i;
 const TABLE_REFERENCE = /\bTables?\s([A-Z]?\d{1,3}[A-Za-z]?)\b/g;
 
+/** The table numbers a stretch of text refers to ("Table 2", "Tables 3a"). */
+function tableReferences(scope: string): string[] {
+  return [...scope.matchAll(TABLE_REFERENCE)].map((match) => match[1]!);
+}
+
 /** Most characters looked back from a result for its sentence's start. */
 const MAX_SENTENCE = 600;
 
@@ -214,6 +219,12 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
     if (guarded === undefined) guardedParagraphs.set(index, (guarded = PARAGRAPH_GUARD.test(text.slice(start, end))));
     return guarded;
   };
+  const referencesOfParagraph = new Map<number, string[]>();
+  const paragraphReferences = (index: number, start: number, end: number): string[] => {
+    let references = referencesOfParagraph.get(index);
+    if (references === undefined) referencesOfParagraph.set(index, (references = tableReferences(text.slice(start, end))));
+    return references;
+  };
   const paragraphStatements = (index: number, start: number, end: number): IntegerScaleStatement[] => {
     let statements = statementsOfParagraph.get(index);
     if (statements === undefined) statementsOfParagraph.set(index, (statements = integerStatements(text, start, end)));
@@ -280,7 +291,7 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
         for (const group of set.groups) if (group.n === null) Object.assign(group, { n, nSource: 'paragraph' });
       }
     } else {
-      set = linkTable(text, result, required, descriptiveTables, paragraphStart, paragraphEnd);
+      set = linkTable(text, result, required, descriptiveTables, paragraphStart, paragraphReferences(paragraph, paragraphStart, paragraphEnd));
     }
     if (set === null) return null;
     // Sizes from a per-group statement elsewhere, when the test's df agree with it.
@@ -353,13 +364,12 @@ function linkTable(
   required: number,
   tables: { reading: DescriptiveTable; index: number }[],
   paragraphStart: number,
-  paragraphEnd: number,
+  paragraphReferences: readonly string[],
 ): DescriptiveSet | null {
   const sentenceFrom = sentenceStart(text, result.start, paragraphStart);
   const sentence = text.slice(sentenceFrom, sentenceEnd(text, result.end, MAX_SENTENCE));
-  const paragraph = text.slice(paragraphStart, paragraphEnd);
-  const referenced = (scope: string): string[] => [...scope.matchAll(TABLE_REFERENCE)].map((match) => match[1]!);
-  const numbers = referenced(sentence).length > 0 ? referenced(sentence) : referenced(paragraph);
+  const inSentence = tableReferences(sentence);
+  const numbers = inSentence.length > 0 ? inSentence : paragraphReferences;
   const candidates = tables.filter(({ reading }) => reading.number !== null && numbers.includes(reading.number));
   const fitting = candidates.flatMap(({ reading, index }) =>
     reading.measures.filter((measure) => measure.groups.length === required).map((measure) => ({ reading, index, measure })),
