@@ -55,8 +55,8 @@ export interface Limits {
    * Longest time one document may take, in seconds, counted from the moment
    * a worker thread starts it (never its wait in the queue): a document
    * audited on a worker thread is stopped (the thread is replaced) and
-   * pdftotext is killed when it runs longer. PDFs read with pdf-parse and DOCX files are always
-   * audited on a worker thread, even with --jobs 1, so they can be stopped.
+   * pdftotext is killed when it runs longer. PDFs read with pdf-parse, DOCX files and any file over
+   * 2 MB are always audited on a worker thread, even with --jobs 1, so they can be stopped.
    */
   maxSecondsPerDocument: number;
 }

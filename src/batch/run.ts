@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { existsSync, statSync } from 'node:fs';
+import { stat } from 'node:fs/promises';
 import { extname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
@@ -52,6 +53,26 @@ const TASKS_QUEUED_PER_THREAD = 4;
 function needsStoppableThread(path: string, pdfEngine: PdfEngine): boolean {
   const extension = extname(path).toLowerCase();
   return extension === '.docx' || (extension === '.pdf' && pdfEngine === 'pdf-parse');
+}
+
+/**
+ * Files larger than this are audited on a worker thread even with --jobs 1, whatever their format: a document
+ * this large may hold tens of thousands of results, and only a thread can be stopped when its audit runs past
+ * the time budget. Papers are far smaller (a long thesis as text is well under 1 MB), so they keep the
+ * quicker path on the main thread.
+ */
+const STOPPABLE_ABOVE_BYTES = 2 * 1024 * 1024;
+
+/** Whether some file is larger than STOPPABLE_ABOVE_BYTES (a file that cannot be looked at counts as small: the reader says why). */
+async function anyLarge(paths: readonly string[]): Promise<boolean> {
+  const sizes = await mapConcurrently(paths, CACHE_LOOKUPS_AT_ONCE, async (path) => {
+    try {
+      return (await stat(path)).size;
+    } catch {
+      return 0;
+    }
+  });
+  return sizes.some((size) => size > STOPPABLE_ABOVE_BYTES);
 }
 
 /** The compiled worker module, or null when running from TypeScript sources (tests), where threads cannot load it. */
@@ -180,7 +201,9 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   const config = resolveConfig(options.task.userConfig, options.task.configSource); // bad settings fail here, before any thread starts
   const module = workerModule();
   const pdfEngine = (await import('../documents/pdf.js')).resolvePdfEngine(options.task.readOptions.pdfEngine);
-  const onThisThread = module === null || ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)));
+  const onThisThread =
+    module === null ||
+    ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)) && !(await anyLarge(pending.map((item) => item.path))));
   if (onThisThread) {
     const { auditFile } = await import('./auditFile.js');
     for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions));

@@ -48,6 +48,18 @@ describe('time budget per document', () => {
     expect(read.documents.find((d) => d.path.endsWith('slow.pdf'))?.status).toBe('checked');
   }, 30_000);
 
+  it('stops a large text file past the budget even with --jobs 1 (a file over 2 MB is audited on a thread of its own)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
+    // About 2.2 MB of results on one line: tens of seconds of checking, far past a budget of 1 s.
+    const results = Array.from({ length: 90_000 }, (_, i) => `F(1, 20) = ${(1 + (i % 50)) / 10}, p = .0${(i % 9) + 1}; `).join('');
+    writeFileSync(join(dir, 'dense.txt'), results);
+    writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
+    const run = spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
+    const report = reportSchema.parse(JSON.parse(run.stdout));
+    expect(report.documents.find((d) => d.path.endsWith('dense.txt'))?.error).toMatch(/took longer than 1 s .*maxSecondsPerDocument/);
+    expect(report.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
+  }, 30_000);
+
   it('stops pdftotext when it runs past maxSecondsPerDocument, and the audit goes on', () => {
     const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
     // A stand-in pdftotext that never finishes, first on the PATH: the budget must stop it.
