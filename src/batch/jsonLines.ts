@@ -1,4 +1,4 @@
-import { closeSync, openSync, readFileSync, writeSync } from 'node:fs';
+import { closeSync, createReadStream, openSync, writeSync } from 'node:fs';
 import type { DocumentOutput } from '../report/model.js';
 import { entryJson, type AuditEntry } from './entry.js';
 
@@ -26,26 +26,44 @@ const NEWLINE = 0x0a;
  * the file and line (JsonLinesError), and the file is not changed.
  */
 export async function readJsonLines(path: string): Promise<JsonLinesContent> {
-  const bytes = readFileSync(path);
-  const completeBytes = bytes.lastIndexOf(NEWLINE) + 1;
-  const lines = bytes.subarray(0, completeBytes).toString('utf8').split('\n');
-  lines.pop(); // the empty text after the last newline
-  const cutOff = completeBytes < bytes.length ? { line: lines.length + 1, bytes: bytes.length - completeBytes, completeBytes } : null;
   // The record schema (zod) loads only when there is a file to check.
   const { documentSchema } = await import('../report/model.js');
   const documents: DocumentOutput[] = [];
-  lines.forEach((line, index) => {
+  const readLine = (line: string, number: number): void => {
     if (line.trim() === '') return;
     let parsed: unknown;
     try {
       parsed = JSON.parse(line);
     } catch {
-      throw new JsonLinesError(`${path}: line ${index + 1} is not valid JSON (the file was left as it is)`);
+      throw new JsonLinesError(`${path}: line ${number} is not valid JSON (the file was left as it is)`);
     }
     const checked = documentSchema.safeParse(parsed);
-    if (!checked.success) throw new JsonLinesError(`${path}: line ${index + 1} is not a plumbline document record (the file was left as it is)`);
+    if (!checked.success) throw new JsonLinesError(`${path}: line ${number} is not a plumbline document record (the file was left as it is)`);
     documents.push(checked.data);
-  });
+  };
+  // Read in chunks and cut at newlines, a line at a time: a file of hundreds of megabytes is more than one
+  // string may hold, and only one line needs to be text at once.
+  let partial: Buffer[] = [];
+  let partialBytes = 0;
+  let lineNumber = 0;
+  let bytesRead = 0;
+  for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 }) as AsyncIterable<Buffer>) {
+    bytesRead += chunk.length;
+    let from = 0;
+    for (let at = chunk.indexOf(NEWLINE, from); at !== -1; at = chunk.indexOf(NEWLINE, from)) {
+      const piece = chunk.subarray(from, at);
+      const line = partialBytes === 0 ? piece : Buffer.concat([...partial, piece], partialBytes + piece.length);
+      partial = [];
+      partialBytes = 0;
+      readLine(line.toString('utf8'), ++lineNumber);
+      from = at + 1;
+    }
+    if (from < chunk.length) {
+      partial.push(chunk.subarray(from));
+      partialBytes += chunk.length - from;
+    }
+  }
+  const cutOff = partialBytes > 0 ? { line: lineNumber + 1, bytes: partialBytes, completeBytes: bytesRead - partialBytes } : null;
   return { documents, cutOff };
 }
 

@@ -1,7 +1,7 @@
 import { appendFileSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { documentSchema } from '../../src/report/model.js';
+import { documentSchema, reportSchema } from '../../src/report/model.js';
 import { builtCliExists, plumbline, reportOf, temporaryFolder } from './cli.js';
 
 /** Ten small manuscripts; every third has an inconsistent p (F(2, 57) = 4.21 gives p = .0197, SciPy 1.10.1 scipy.stats.f.sf). */
@@ -93,5 +93,28 @@ describe('--resume after a JSON Lines file cut off mid-line', () => {
     expect(merged.status).toBe(0);
     expect(merged.stderr).toMatch(/audit\.jsonl: line 11 was cut off mid-line/);
     expect(reportOf(merged).documents).toHaveLength(10);
+  });
+});
+
+/** The documents of a JSON report. */
+function documentsOf(json: string) {
+  return reportSchema.parse(JSON.parse(json)).documents;
+}
+
+describe('merge of a JSON Lines file larger than one read', () => {
+  it('reads every record, lines that straddle the 1 MB reads included, and a cut-off last line is still left out', () => {
+    const dir = papers();
+    plumbline([...scanArgs, '--jsonl', 'audit.jsonl'], dir);
+    const lines = readFileSync(join(dir, 'audit.jsonl'), 'utf8').slice(0, -1).split('\n');
+    // 3,000 records (10 documents under 300 names each): several megabytes, read in 1 MB pieces.
+    const copies = Array.from({ length: 300 }, (_, copy) => lines.map((line) => line.replace('"path":"papers/', `"path":"copy-${copy}/papers/`))).flat();
+    writeFileSync(join(dir, 'big.jsonl'), `${copies.join('\n')}\n{"path":"cut`);
+    expect(readFileSync(join(dir, 'big.jsonl')).length).toBeGreaterThan(2 * 1024 * 1024);
+    // (The report goes to a file: several megabytes are more than a child's standard output is buffered for here.)
+    const merged = plumbline(['merge', 'big.jsonl', '--format', 'json', '--fail-on', 'never', '--output', 'merged.json'], dir);
+    expect(merged.status).toBe(0);
+    expect(merged.stderr).toMatch(/big\.jsonl: line 3001 was cut off mid-line/);
+    const report = documentsOf(readFileSync(join(dir, 'merged.json'), 'utf8'));
+    expect(report).toHaveLength(3000);
   });
 });
