@@ -1,4 +1,4 @@
-import { statSync, writeFileSync } from 'node:fs';
+import { closeSync, openSync, statSync, writeFileSync, writeSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { Option, type Command } from 'commander';
 import type { ResolvedConfig } from '../checks/config.js';
@@ -6,7 +6,7 @@ import type { UserConfig } from '../checks/userConfig.js';
 import { documentOf, entryJson, entryOf, type AuditEntry } from '../batch/entry.js';
 import { notRegularFileReason } from '../documents/regularFile.js';
 import { buildReport, reportHead } from '../report/build.js';
-import { formatJsonParts } from '../report/json.js';
+import { formatJsonParts, jsonReportPieces } from '../report/json.js';
 import type { Report, Summary } from '../report/model.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
@@ -120,8 +120,54 @@ export function checkOutputFolder(file: string): void {
   if (!isFolder) throw new UsageError(`--output ${file}: ${folder} is not a folder`);
 }
 
+/** The JSON and JSON Lines reports as pieces in order (one per document); null for the other formats. */
+function jsonPieces(input: ReportInput, format: ReportFormat): Iterable<string> | null {
+  if (format !== 'json' && format !== 'jsonl') return null;
+  const entries = 'entries' in input ? input.entries : input.documents.map(entryOf);
+  const documents = (function* () {
+    for (const entry of entries) yield entryJson(entry);
+  })();
+  if (format === 'json') return jsonReportPieces({ ...reportHead(), summary: input.summary }, documents);
+  return (function* () {
+    for (const text of documents) yield `${text}\n`;
+  })();
+}
+
+/** Most characters gathered before a write: few writes, and never one string as long as the whole report. */
+const WRITE_BATCH = 1 << 20;
+
+/** Writes pieces to the file, or to standard output, a batch at a time. */
+function writePieces(pieces: Iterable<string>, output: string | undefined, io: CliIo): void {
+  const descriptor = output ? openSync(output, 'w') : null;
+  try {
+    let batch: string[] = [];
+    let length = 0;
+    const flush = (): void => {
+      if (batch.length === 0) return;
+      const text = batch.join('');
+      if (descriptor === null) io.stdout(text);
+      else writeSync(descriptor, text);
+      batch = [];
+      length = 0;
+    };
+    for (const piece of pieces) {
+      batch.push(piece);
+      length += piece.length;
+      if (length >= WRITE_BATCH) flush();
+    }
+    flush();
+  } finally {
+    if (descriptor !== null) closeSync(descriptor);
+  }
+}
+
 /** Writes the report to --output or stdout. Colour only on a terminal, never into a file. */
 export async function writeReport(input: ReportInput, options: CommonOptions, io: CliIo, showAll: boolean): Promise<void> {
+  const pieces = jsonPieces(input, options.format);
+  if (pieces !== null) {
+    writePieces(pieces, options.output, io);
+    return;
+  }
   if (options.output) {
     writeFileSync(options.output, await formatReport(input, options.format, false, showAll));
     return;

@@ -14,12 +14,22 @@ export function formatJson(report: Report): string {
 
 /** The JSON report from its parts, the documents given as their compact JSON (documentJson). */
 export function formatJsonParts(head: Pick<Report, 'tool' | 'caution' | 'summary'>, documentTexts: readonly string[]): string {
+  return [...jsonReportPieces(head, documentTexts)].join('');
+}
+
+/**
+ * The same report as pieces in order, for writing one after another: a report of hundreds of thousands of
+ * results is more text than one string may hold.
+ */
+export function* jsonReportPieces(head: Pick<Report, 'tool' | 'caution' | 'summary'>, documentTexts: Iterable<string>): Generator<string> {
   const nested = (value: unknown): string => JSON.stringify(value, null, 2).replace(/\n/g, '\n  ');
-  const documents = documentTexts.length === 0 ? '[]' : `[\n    ${documentTexts.join(',\n    ')}\n  ]`;
-  return (
-    `{\n  "tool": ${nested(head.tool)},\n  "caution": ${JSON.stringify(head.caution)},\n` +
-    `  "documents": ${documents},\n  "summary": ${nested(head.summary)}\n}\n`
-  );
+  yield `{\n  "tool": ${nested(head.tool)},\n  "caution": ${JSON.stringify(head.caution)},\n  "documents": [`;
+  let first = true;
+  for (const text of documentTexts) {
+    yield `${first ? '\n    ' : ',\n    '}${text}`;
+    first = false;
+  }
+  yield `${first ? ']' : '\n  ]'},\n  "summary": ${nested(head.summary)}\n}\n`;
 }
 
 /** A document's JSON without its path: what the cache keeps, since the same content may be audited under another name. */
