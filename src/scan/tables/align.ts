@@ -125,8 +125,12 @@ const STATISTIC_DF_AND_P = /^((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[(
 export function readsAsWrittenResult(cell: string): boolean {
   if (cell.length <= 3 || !/[=<>]/.test(cell)) return false;
   if (scanText(cell).results.length > 0) return true;
-  return cell.length <= MAX_WRITTEN_CELL && scanText(`${cell}, p = .5`).results.some((result) => result.start < cell.length);
+  // (Only a cell with a statistic's symbol before "=" is read again: most cells with "<" are p values.)
+  return cell.length <= MAX_WRITTEN_CELL && SYMBOL_BEFORE_EQUALS.test(cell) && scanText(`${cell}, p = .5`).results.some((result) => result.start < cell.length);
 }
+
+/** A statistic's symbol, its df perhaps, then "=": "rs = ", "t = ", "χ2 = ", "F(2, 57) =". */
+const SYMBOL_BEFORE_EQUALS = /(?:^|[^A-Za-z])(?:r|rs|r_s|rho|Rho|\u03c1|t|F|z|Z|H|[\u03c7\u03a7xX]\s?[2\u00b2]|[Cc]hi[-\s^]?(?:2|square[d]?))\s{0,2}(?:\([^()]{0,20}\)\s{0,2})?=/;
 
 /** Longest cell read as a written result waiting for its row's p. */
 const MAX_WRITTEN_CELL = 80;
