@@ -173,6 +173,8 @@ interface DfRead {
   bracketed: boolean;
   /** True for a flattened subscript that is not trusted without a p ("t3", any "r18"). */
   doubtful: boolean;
+  /** The df are N − 2 from a sample size in the brackets ("r(N = 60)"). */
+  fromSampleSize?: boolean;
 }
 
 /** An unsigned df, allowing a thousands separator when `allowThousands` ("t(1,024)"). */
@@ -219,6 +221,16 @@ function readOcrOne(text: string, position: number): { number: ReportedNumber; e
 /** Reads the bracketed df of any statistic: "(2, 57)", "[1, 44]", "(45.3)", "(2, N = 120)". */
 function readBracketedDf(text: string, position: number, kind: StatisticKind): DfRead | null {
   if (!OPENING_BRACKETS.has(text.charCodeAt(position))) return null;
+  // A correlation with its sample size in the brackets ("r(N = 60) = .30"): its df are N − 2 (common practice).
+  if (kind === 'r') {
+    const sample = readSampleSizeLabel(text, skipSpaces(text, position + 1));
+    if (sample !== null && sample.number.decimals === 0 && sample.number.value >= 4) {
+      const close = skipSpaces(text, sample.end);
+      if (!CLOSING_BRACKETS.has(text.charCodeAt(close))) return null;
+      const df = sample.number.value - 2;
+      return { df: [{ value: df, text: String(df), decimals: 0, exponent: 0 }], sampleSize: sample.number, end: close + 1, bracketed: true, doubtful: false, fromSampleSize: true };
+    }
+  }
   let at = skipDfLabel(text, skipSpaces(text, position + 1));
   const first = readDf(text, at, kind !== 'F') ?? readOcrOne(text, at);
   if (first === null) return null;
@@ -382,6 +394,7 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     valueComparator: comparator.comparator,
     needsP: needsP || needsTrailingDf,
     ...(needsTrailingDf ? { needsTrailingDf } : {}),
+    ...(dfRead?.fromSampleSize === true ? { dfFromSampleSize: true } : {}),
   };
 }
 

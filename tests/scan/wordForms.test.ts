@@ -75,3 +75,10 @@ describe('inline markup left in text (Markdown converted from publishers\' XML, 
     expect(read('The effect was significant, F(2, 57) = 15.10, p <.001.')).toEqual(['F(2, 57) = 15.10 p < .001']);
   });
 });
+
+describe('a correlation with its sample size in the brackets', () => {
+  // r(58) = .30 gives p = .0199 (SciPy 1.10.1, scipy.stats.pearsonr's t with 58 df, computed when the test was written).
+  it('reads "r(N = 60) = .30" with df N − 2', () => {
+    expect(read('Recall correlated with age, r(N = 60) = .30, p = .020.')).toEqual(['r(58) = .30 p = .020']);
+  });
+});
