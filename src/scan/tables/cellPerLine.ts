@@ -252,6 +252,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
 function collectCells(lines: Line[], from: number): Cell[] {
   const cells: Cell[] = [];
   let blankRun = 0;
+  // Whether a cell so far names a column: kept as cells come, not looked for again at every line.
+  let headerSeen = false;
   for (let index = from; index < lines.length && cells.length < MAX_BODY_CELLS; index++) {
     const line = lines[index]!;
     const inner = stripPipes(line.text);
@@ -272,7 +274,6 @@ function collectCells(lines: Line[], from: number): Cell[] {
     blankRun = 0;
     const text = inner.text.trim();
     // Before the header, long lines are the caption ("From: <the article's title>"); after it, they end the table.
-    const headerSeen = cells.some((cell) => isColumnName(cell.text));
     if (!headerSeen && text.length > MAX_CELL_LENGTH && index - from < MAX_LINES_TO_HEADER) continue;
     if ((text.length > MAX_CELL_LENGTH && !isLongRowLabel(text, lines, index)) || NOTE.test(text) || (cells.length > 0 && TITLE.test(text))) break;
     const start = line.start + inner.offset + (inner.text.length - inner.text.trimStart().length);
@@ -282,9 +283,11 @@ function collectCells(lines: Line[], from: number): Cell[] {
     const names = isColumnName(text) || crushedRowFollows(lines, index) ? null : splitRunTogetherNames(text);
     if (names !== null) {
       for (const name of names) cells.push({ text: name.text, start: start + name.start, end: start + name.end, line: index, empty: false });
+      headerSeen ||= names.some((name) => isColumnName(name.text));
       continue;
     }
     cells.push({ text, start, end: start + text.length, line: index, empty: false });
+    headerSeen ||= isColumnName(text);
   }
   return cells;
 }

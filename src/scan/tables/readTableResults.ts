@@ -348,6 +348,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const noteN = readNoteSampleSize(noteText);
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
+  const nearestErrorRow = nearestErrorRows(errorRows);
   const results: ReportedResult[] = [];
   let rowsWithStatistic = 0;
   const rowOutcomes: { read: boolean; statisticLeft: boolean; hasStatistic: boolean; missingDf: boolean; readWithoutDf: boolean }[] = [];
@@ -373,7 +374,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     if (row.some((cell) => holdsWrittenResult(cell))) continue;
     const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
-    const errorIndex = nearestErrorRow(errorRows, index);
+    const errorIndex = nearestErrorRow[index] ?? null;
     const rowSpan = spanOfRow(row, cellsAt);
     if (rowSpan === null) continue;
     let read = false;
@@ -1323,11 +1324,18 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
   );
 }
 
-/** The nearest error row below the effect; above it only when the table has a single error row. */
-function nearestErrorRow(errorRows: boolean[], index: number): number | null {
-  for (let below = index + 1; below < errorRows.length; below++) if (errorRows[below]) return below;
+/** For each row, the nearest error row below it; above it only when the table has a single error row. */
+function nearestErrorRows(errorRows: readonly boolean[]): (number | null)[] {
+  // Worked out for every row in one pass from the bottom: a table of many rows stays linear.
   const all = errorRows.flatMap((isError, at) => (isError ? [at] : []));
-  return all.length === 1 ? all[0]! : null;
+  const onlyOne = all.length === 1 ? all[0]! : null;
+  const nearest = new Array<number | null>(errorRows.length).fill(onlyOne);
+  let below: number | null = null;
+  for (let index = errorRows.length - 1; index >= 0; index--) {
+    nearest[index] = below ?? onlyOne;
+    if (errorRows[index]) below = index;
+  }
+  return nearest;
 }
 
 // ------------------------------------------------------------ row reading
