@@ -371,7 +371,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
       if (row.slice(1).some((cell) => /\*|n\.s\.|=/.test(cell))) rowsWithStatistic++;
       continue;
     }
-    if (row.some((cell) => holdsWrittenResult(cell))) continue;
+    if (row.some((cell) => readsAsWrittenResult(cell))) continue;
     const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
     const errorIndex = nearestErrorRow[index] ?? null;
@@ -557,11 +557,6 @@ function readPCell(cell: string): ReturnType<typeof readCell> {
   return lead ? readCell(lead[1]!, '.') : read;
 }
 
-/** True when the cell holds a complete written result ("t(58) = 2.10, p = .04"), which the text scanner reads. */
-function holdsWrittenResult(cell: string): boolean {
-  return readsAsWrittenResult(cell);
-}
-
 /**
  * What a row's other cells (placed under the schema's columns) add to the written result in one of its cells:
  * the p column's p and the effect columns' sizes (a cell "d = 0.31" in a
@@ -569,7 +564,7 @@ function holdsWrittenResult(cell: string): boolean {
  * written result; null when one does but the row adds nothing.
  */
 function completionOf(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): RowCompletion | null | undefined {
-  const written = row.findIndex((cell, column) => column > 0 && holdsWrittenResult(cell));
+  const written = row.findIndex((cell, column) => column > 0 && readsAsWrittenResult(cell));
   if (written < 0) return undefined;
   const at = cellsAt?.[written] ?? null;
   if (at === null) return null;
