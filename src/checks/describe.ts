@@ -20,6 +20,9 @@ export function describeStatistic(result: ReportedResult): string {
     const table = result.dfStatement ? `the ${quoteFromDocument(result.dfStatement.text, 40)} table` : 'the table';
     return `${symbol}${value} (no df printed; df = ${dfText} from ${table} stated with it)`;
   }
+  if (result.dfFrom === 'text-beside-table') {
+    return `${symbol}(${dfText})${value} (no df in the table; df = ${dfText} from the text beside it)`;
+  }
   if (result.dfFrom === 'levene-two-groups') {
     return `${symbol}(${dfText})${value} (Levene's test, no df printed; df = 1 and the pooled t test's ${result.df[1]!.text} from the same row)`;
   }

@@ -101,7 +101,8 @@ export function withDocumentDf(results: readonly ReportedResult[], context: Docu
   let study: StudySample | null | undefined;
   const severityCaps: (Severity | null)[] = [];
   const filled = results.map((result): ReportedResult => {
-    severityCaps.push(null);
+    // df read from the text beside a table may be another analysis's: findings are at most warnings.
+    severityCaps.push(result.dfFrom === 'text-beside-table' ? 'warn' : null);
     if (result.df.length > 0 || result.value === null || result.dfFrom !== undefined) return result;
     if (result.kind === 'r' && result.sampleSize === null) {
       study ??= studySampleSize(context);

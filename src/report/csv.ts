@@ -78,6 +78,7 @@ const DF_FROM_NOTES: Record<NonNullable<StatisticOutput['dfFrom']>, string> = {
   'study-sample-size': "df worked out from the study's stated sample size, which may not apply to this test",
   'contingency-table': 'df worked out from the table dimensions stated with the chi-square',
   'levene-two-groups': "df of Levene's test for two groups: 1 and the pooled t test's df in the same row",
+  'text-beside-table': 'df stated in the text beside the table, not in the table, its caption or its notes',
 };
 
 type Comparator = StatisticOutput['valueComparator'];

@@ -52,10 +52,10 @@ export const statisticSchema = z.object({
     .describe('Up to about 160 characters of the document before and after the result, for showing it in context.'),
   df: z.array(z.number()),
   dfFrom: z
-    .enum(['sample-size', 'study-sample-size', 'contingency-table', 'levene-two-groups'])
+    .enum(['sample-size', 'study-sample-size', 'contingency-table', 'levene-two-groups', 'text-beside-table'])
     .optional()
     .describe(
-      'Set when the df were not printed but worked out: "sample-size" from the sample size written with the result ("r = .30, p = .004, n = 90": df = 88); "study-sample-size" from the one sample size the document states for the whole study ("N = 214": df = 212 for a correlation), which may not be the sample of this test, so findings about the result are at most warnings; "contingency-table" from the dimensions of a table stated with a chi-square ("a 2 × 3 table": df = 2), findings at most warnings too; "levene-two-groups" for Levene\'s F beside an independent-samples t test in a table row: df = 1 and the pooled t test\'s df (two groups, N − 2).',
+      'Set when the df were not printed but worked out: "sample-size" from the sample size written with the result ("r = .30, p = .004, n = 90": df = 88); "study-sample-size" from the one sample size the document states for the whole study ("N = 214": df = 212 for a correlation), which may not be the sample of this test, so findings about the result are at most warnings; "contingency-table" from the dimensions of a table stated with a chi-square ("a 2 × 3 table": df = 2), findings at most warnings too; "levene-two-groups" for Levene\'s F beside an independent-samples t test in a table row: df = 1 and the pooled t test\'s df (two groups, N − 2); "text-beside-table" for a table value whose df the table, its caption and its notes do not give but a line just above or below the table states ("df = 2, 57"), findings at most warnings.',
     ),
   value: z.number().nullable(),
   valueComparator: comparatorSchema,

@@ -24,7 +24,7 @@ export interface ReportedNumber {
 export type StatisticKind = 'F' | 't' | 'chi2' | 'r' | 'z';
 
 /** Where df that were not printed come from (ReportedResult.dfFrom). */
-export type DfSource = 'sample-size' | 'study-sample-size' | 'contingency-table' | 'levene-two-groups';
+export type DfSource = 'sample-size' | 'study-sample-size' | 'contingency-table' | 'levene-two-groups' | 'text-beside-table';
 
 /**
  * A symbol tested as one of the kinds: "H", a Kruskal-Wallis result, as

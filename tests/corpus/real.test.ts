@@ -25,7 +25,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
     text: { recall: 0.92, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.38, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -93,7 +93,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
   // the share read at its place (floors, as measured).
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.56, holdout: 0.36 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.56, holdout: 0.42 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);

@@ -482,16 +482,24 @@ function tokenize(text: string): Piece[] {
       index++;
       continue;
     }
-    // "2, 180": both df of an F in one cell, split at its space.
-    const dfPair = previous !== undefined && /^\d{1,4}(?:\.\d+)?,$/.test(previous.text) && /^\d{1,6}(?:[.,]\d+)?$/.test(token.text);
+    // "2 / 180": both df of an F with a slash set apart by spaces.
+    if (previous !== undefined && next !== undefined && token.text === '/' && /^\d{1,4}$/.test(previous.text) && /^\d{1,6}(?:\.\d+)?$/.test(next.text)) {
+      tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
+      index++;
+      continue;
+    }
+    // "2, 180", "2; 180": both df of an F in one cell, split at its space.
+    const dfPair = previous !== undefined && /^\d{1,4}(?:\.\d+)?[,;]$/.test(previous.text) && /^\d{1,6}(?:[.,]\d+)?$/.test(token.text);
     // "\u2212 0.44": a minus sign set apart from its number (PDF and web copies do); the minus sign, unlike a
     // dash, never stands for an empty cell.
     const detachedMinus = previous !== undefined && previous.text === '\u2212' && /^\.?\d/.test(token.text);
     // "6.84 n.s.", "7.67 *", "3.44 (*)", "0.449 ††": a number's "not significant" or its marks set apart by a space belong to it.
     const markOfNumber = previous !== undefined && /^(?:n\.s\.?|N\.S\.?|ns|NS|[*\u2020\u2021\u00a7]{1,3}|\(\*{1,3}\))$/.test(token.text) && /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
+    // "Group (2, 57) 4.21": a bracketed df pair after a label's word is a cell of its own, not part of the label.
+    const pairAfterWord = BRACKETED_DF_PAIR.test(token.text) && previous !== undefined && !isValueToken(previous.text);
     const joinsPrevious =
       previous !== undefined &&
-      (dfPair || detachedMinus || markOfNumber || token.text.startsWith('(') || token.text.startsWith('[') || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
+      (dfPair || detachedMinus || markOfNumber || ((token.text.startsWith('(') || token.text.startsWith('[')) && !pairAfterWord) || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
     // "0.26 * (0.14, 0.43)": a value, its stars and its interval are one cell.
     const beforeMark = tokens[tokens.length - 2];
     const markedBracket =
@@ -549,6 +557,9 @@ function isValueToken(text: string): boolean {
   // "<0.001 (1, 6)": a p with the next F's df run onto it (the table reader takes the df for that F).
   return P_WITH_DF_AFTER.test(text);
 }
+
+/** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)". */
+const BRACKETED_DF_PAIR = /^[([]\s?\d{1,4}(?:\.\d{1,2})?\s?[,;/]\s?\d{1,5}(?:\.\d{1,2})?\s?[)\]]$/;
 
 /** A bound p followed by a df pair in brackets. */
 const P_WITH_DF_AFTER = /^(?:<=|>=|<|>|\u2264|\u2265)\s?0?\.\d+\s+\(\d{1,4}(?:\.\d{1,2})?,\s?\d{1,5}(?:\.\d{1,2})?\)$/;

@@ -19,13 +19,15 @@ export interface NoteDf {
   single: ReportedNumber | null;
   /** "error df = 57", "df error = 57". */
   error: ReportedNumber | null;
+  /** Read from the lines beside the table, not its caption or notes: findings resting on them are at most warnings. */
+  besideTable?: boolean;
 }
 
 const NUMBER = String.raw`(\d{1,6}(?:\.\d{1,3})?)`;
 /** The word for degrees of freedom, standing apart from the letters around it. */
 const DF_WORD = String.raw`(?<![A-Za-z])(?:dfs?|d\.f\.|DF|gl|g\.l\.|ddl|d\.d\.l\.|FG|degrees of freedom|grados de libertad|graus de liberdade|degr[ée]s de libert[ée]|Freiheitsgrade)(?: {0,2}\([A-Za-z ,]{1,30}\))?(?![A-Za-z])`;
 /** "for all tests", "for every effect": what the df are stated for. */
-const FOR_ALL = String.raw`(?: {1,3}for {1,3}(?:all|every|each|the) {1,3}(?:[A-Za-z-]{1,12} {1,3}){0,2}?(?:tests?|effects?|analyses|comparisons|F(?:-| )?(?:tests|values|ratios)))?`;
+const FOR_ALL = String.raw`(?: {1,3}for {1,3}(?:(?:all|every|each|the) {1,3}(?:[A-Za-z-]{1,12} {1,3}){0,2}?(?:tests?|effects?|analyses|comparisons|F(?:-| )?(?:tests|values|ratios))|(?:the {1,3})?F(?:(?:-| )(?:tests?|values?|ratios?))?(?![A-Za-z])))?`;
 /** Between the two numbers of a pair: a comma, semicolon, slash or "and" (English, Spanish, Portuguese, French, German). */
 const PAIR_SEPARATOR = String.raw` {0,3}(?:[,;/]|(?:and|y|e|et|und)(?![A-Za-z])) {0,3}`;
 /** A few words in brackets after a number: "2 (between groups) and 57 (within groups)". */
@@ -36,9 +38,11 @@ const DF_PAIR = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}(?:[=:] {0,3}|(?:were|are|
 /** "df = 58", "df: 58". */
 const DF_SINGLE = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}[=:] {0,3}\\(? {0,2}${NUMBER}(?!\\.?\\d)`, 'i');
 /** "2 and 57 degrees of freedom", "(2, 57 df)". */
+/** "2 numerator and 57 denominator degrees of freedom". */
+const SIDES_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER} {1,3}(?:numerator|effect|hypothesis) {1,3}(?:and {1,3})?${NUMBER} {1,3}(?:denominator|error) {1,3}(?:degrees of freedom|dfs?|d\\.f\\.)(?![A-Za-z])`, 'i');
 const PAIR_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER}${PAIR_SEPARATOR}${NUMBER} {1,3}${DF_WORD}`, 'i');
-/** "F(2, 57)", "F[2, 57]", "F (2, 57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
-const F_WITH_DF = new RegExp(`(?<![A-Za-z])F(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
+/** "F(2, 57)", "F[2, 57]", "F (2, 57)", "F(2/57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
+const F_WITH_DF = new RegExp(`(?<![A-Za-z])F(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;/] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
 
 /** Sides of an F test named beside df: the effect's side and the error's side. */
 // (With their abbreviations: "num df", "ndf", "dfn"; "den df", "ddf", "dfd", "dfe".)
@@ -60,11 +64,21 @@ const SIDES_AFTER_DF = new RegExp(
 
 const number = (text: string): ReportedNumber => parseReportedNumber(text)!;
 
-/** Reads the df a caption or note states for the whole table; empty when it states none. */
-export function readNoteDf(note: string): NoteDf {
+/** Whether a note states no df at all. */
+export function statesNoDf(noteDf: NoteDf): boolean {
+  return noteDf.pair.length === 0 && noteDf.single === null && noteDf.error === null;
+}
+
+/**
+ * Reads the df a caption or note states for the whole table; empty when it
+ * states none. With `statementsOnly`, for the running text beside a table, a
+ * result's own df ("F(1, 40) = 5.2" in a sentence) are not taken: only words
+ * that state df ("df = 2, 57", "2 and 57 degrees of freedom").
+ */
+export function readNoteDf(note: string, statementsOnly = false): NoteDf {
   const text = normaliseText(note.slice(0, 2000)).text;
   const none: NoteDf = { pair: [], single: null, error: null };
-  const sides = SIDES_AFTER_DF.exec(text);
+  const sides = SIDES_AFTER_DF.exec(text) ?? SIDES_THEN_DF.exec(text);
   if (sides) return { ...none, pair: [number(sides[1]!), number(sides[2]!)], error: number(sides[2]!) };
   const effectMatch = EFFECT_DF.exec(text);
   const errorMatch = ERROR_DF.exec(text);
@@ -82,7 +96,7 @@ export function readNoteDf(note: string): NoteDf {
     const first = number(single[1]!);
     return error ? { pair: [first, error], single: first, error } : { ...none, single: first };
   }
-  const fMatch = F_WITH_DF.exec(rest);
+  const fMatch = statementsOnly ? null : F_WITH_DF.exec(rest);
   if (fMatch) {
     const [first, second] = fMatch[1] !== undefined ? [fMatch[1], fMatch[2]!] : [fMatch[3]!, fMatch[4]!];
     return { ...none, pair: [number(first), number(second)], error };

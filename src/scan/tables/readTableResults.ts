@@ -28,7 +28,7 @@ import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
 import { readNameAndValue } from '../effects.js';
 import { readPValue } from '../pValue.js';
-import { readNoteDf, type NoteDf } from './noteDf.js';
+import { readNoteDf, statesNoDf, type NoteDf } from './noteDf.js';
 import type {
   Comparator,
   EffectKind,
@@ -342,7 +342,10 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   titleBlocks(segments, rows.slice(0, headerCount - 1));
 
   const noteText = [...table.notes, table.caption ?? ''].join(' ');
-  const noteDf = readNoteDf(noteText);
+  const statedDf = readNoteDf(noteText);
+  // No df in the caption or notes: the lines just above and below the table may state them (a caption the
+  // layout did not tie to the table, a note without "Note.", a sentence under it).
+  const noteDf = statesNoDf(statedDf) ? { ...readNoteDf(linesBeside(text, table.start, table.end), true), besideTable: true } : statedDf;
   // Levene's test beside an independent-samples t test ("Levene's Test for Equality of Variances | F | Sig. | t | df | ...").
   const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' '));
   const noteN = readNoteSampleSize(noteText);
@@ -802,6 +805,41 @@ function linesAfter(text: string, end: number): string {
     lines.push(line.trim());
   }
   return lines.join(' ');
+}
+
+/** Non-blank lines (at most this many each side) read for df beside a table whose caption and notes state none. */
+const MAX_LINES_BESIDE = 3;
+
+/**
+ * The lines just above a table (back to its title line, if it has one the
+ * layout did not tie to it) and just below it, up to MAX_LINES_BESIDE
+ * non-blank lines each side, across at most two blank lines in a row, never
+ * into another table's title.
+ */
+function linesBeside(text: string, start: number, end: number): string {
+  const above: string[] = [];
+  let blanks = 0;
+  for (const line of text.slice(Math.max(0, start - 2000), start).split('\n').reverse().slice(1)) {
+    if (line.trim() === '') {
+      if (++blanks > 2) break;
+      continue;
+    }
+    blanks = 0;
+    above.unshift(line.trim());
+    if (TABLE_TITLE.test(line) || above.length >= MAX_LINES_BESIDE) break;
+  }
+  const below: string[] = [];
+  blanks = 0;
+  for (const line of text.slice(end, end + 2000).split('\n').slice(1)) {
+    if (line.trim() === '') {
+      if (++blanks > 2) break;
+      continue;
+    }
+    blanks = 0;
+    if (TABLE_TITLE.test(line) || below.length >= MAX_LINES_BESIDE) break;
+    below.push(line.trim());
+  }
+  return [...above, ...below].join(' ');
 }
 
 function notesAfter(text: string, end: number): string {
@@ -1502,7 +1540,7 @@ function readRow(input: RowInput): ReportedResult | null {
 
   // "47.43 (1, 6) 43.7": an F's df printed in front of it, run onto the cell before by a crushed copy.
   const dfBefore = kind === 'F' && dfCell === null && df1Cell === null && df2Cell === null ? dfPairBefore(row, columns) : null;
-  const df = degreesOfFreedom(kind, {
+  const dfSources: DfSources = {
     dfCell: dfCell?.record ?? null,
     df1Cell: dfBefore?.[0] ?? df1Cell?.record ?? null,
     df2Cell: dfBefore?.[1] ?? df2Cell?.record ?? null,
@@ -1513,7 +1551,10 @@ function readRow(input: RowInput): ReportedResult | null {
     noteDf: input.noteDf,
     nCell: plainNumber(row, cellsAt, columns.get('n'), input.separator)?.record ?? null,
     noteN: input.noteN,
-  });
+  };
+  const df = degreesOfFreedom(kind, dfSources);
+  // df that only the text beside the table gives are said to come from there (and weigh at most a warning).
+  const dfBesideTable = input.noteDf.besideTable === true && df !== null && !sameNumbers(df, degreesOfFreedom(kind, { ...dfSources, noteDf: NO_NOTE_DF }));
   // A correlation needs no df to be read (as in running text): without an N in its row or the table's note it is
   // checked with the study's stated N, at most as a warning, or left unchecked (checks/documentDf.ts).
   // Without df the statistic is still read as printed (as in running text: "F = 5.60, p = .000"); its p cannot be
@@ -1562,6 +1603,7 @@ function readRow(input: RowInput): ReportedResult | null {
     start,
     end,
     df: readDf,
+    ...(dfBesideTable ? { dfFrom: 'text-beside-table' as const } : {}),
     sampleSize: sampleSize === null ? null : stripOffsets(sampleSize),
     value: stripOffsets(statistic.record),
     valueComparator: statistic.comparator,
@@ -1716,22 +1758,24 @@ function statisticWithDfAndP(
   return { statistic, df: df as NumberCell[], p };
 }
 
-const PAIR_CELL = /^\s*(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)\s*$/;
+const PAIR_CELL = /^([([])? {0,3}(\d{1,5}(?:\.\d+)?) {0,3}[,;/] {0,3}(\d{1,6}(?:[.,]\d+)?) {0,3}([)\]])?$/;
 
-/** Two df in one cell, "2, 180", with the offsets of each. */
+/** Two df in one cell, "2, 180", "2/180", "(2, 180)", with the offsets of each. */
 function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): [NumberCell, NumberCell] | null {
   if (column === undefined || separator === ',') return null;
   const cell = row[column] ?? '';
-  const match = PAIR_CELL.exec(cell);
-  if (!match) return null;
+  const match = PAIR_CELL.exec(cell.trim());
+  // A bracket opened is closed: "(2, 180" is a cut cell.
+  if (!match || (match[1] === undefined) !== (match[4] === undefined)) return null;
+  const [first, second] = [match[2]!, match[3]!];
   const at = cellsAt?.[column] ?? null;
-  const firstAt = cell.indexOf(match[1]!);
-  const secondAt = cell.indexOf(match[2]!, firstAt + match[1]!.length);
+  const firstAt = cell.indexOf(first);
+  const secondAt = cell.indexOf(second, firstAt + first.length);
   const located = (written: string, offset: number): NumberCell => ({
     comparator: '=',
     record: { ...parseReportedNumber(written.replace(',', '.'))!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length },
   });
-  return [located(match[1]!, firstAt), located(match[2]!, secondAt)];
+  return [located(first, firstAt), located(second, secondAt)];
 }
 
 const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
@@ -1791,6 +1835,12 @@ interface DfSources {
   noteDf: NoteDf;
   nCell: ReportedNumber | null;
   noteN: ReportedNumber | null;
+}
+
+const NO_NOTE_DF: NoteDf = { pair: [], single: null, error: null };
+
+function sameNumbers(a: readonly ReportedNumber[], b: readonly ReportedNumber[] | null): boolean {
+  return b !== null && a.length === b.length && a.every((number, index) => number.value === b[index]!.value);
 }
 
 /** df in order of closeness to the row: its own cells, the error row, its label, the column header, the table note. */

@@ -570,10 +570,45 @@ describe('df stated in a table caption in the ways captions state them', () => {
     'The degrees of freedom for all tests were 2 and 57.',
     'ANOVA. Degrees of freedom (numerator, denominator) = 2, 57',
     'ANOVA (df: treatment = 2, error = 57)',
+    'Degrees of freedom for F are 2 and 57',
+    'The F tests had 2 numerator and 57 denominator degrees of freedom',
+    'Results of ANOVA, F(2/57)',
   ])('%s', (caption) => {
     const text = `Table 2. ${caption}\n\nMeasure | F | p\nAnxiety | 4.21 | .020\nDepression | 0.52 | .597\n`;
     const { results } = scanDocument(plainTextDocument('caption.txt', 'text', text));
     expect(results.map(summary)).toEqual(['F(2, 57) = 4.21 p = .020', 'F(2, 57) = 0.52 p = .597']);
+  });
+});
+
+describe('df stated in the lines beside a table, not in its caption or notes', () => {
+  // Common practice: a web or PDF copy loses what ties a caption or a note to its table (two blank lines, a
+  // wrapped caption, a note without "Note.", a sentence under the table); the df it states are still the table's.
+  const body = 'Variable F p\nAnxiety 4.21 .020\nDepression 1.05 .357';
+  it.each([
+    ['a caption two blank lines above', `Text.\n\nTable 2. Group differences (df = 2, 57)\n\n\n${body}\n\nMore.`],
+    ['a caption wrapped over two lines', `Text.\n\nTable 2 Group differences on the three scales between the\nthree groups of participants (df = 2, 57)\n${body}\n\nMore.`],
+    ['a line above without "Table"', `Text.\n\nGroup differences on three scales (df = 2, 57)\n${body}\n\nMore.`],
+    ['a Spanish note', `Text.\n\nTable 2. Group differences\n${body}\nNota. gl = 2, 57.\n\nMore.`],
+    ['a note in capitals', `Text.\n\nTable 2. Group differences\n${body}\nNOTE: df = 2, 57.\n\nMore.`],
+    ['a footnote letter', `Text.\n\nTable 2. Group differences\n${body}\nᵃ df = 2, 57.\n\nMore.`],
+    ['a sentence under the table', `Text.\n\nTable 2. Group differences\n${body}\nF-values have 2 and 57 degrees of freedom.\n\nMore.`],
+  ])('%s', (_, text) => {
+    const { results } = scanDocument(plainTextDocument('beside.txt', 'text', text));
+    expect(results.map(summary)).toEqual(['F(2, 57) = 4.21 p = .020', 'F(2, 57) = 1.05 p = .357']);
+    expect(results.every((result) => result.dfFrom === 'text-beside-table')).toBe(true);
+  });
+
+  it("takes no result's own df from a sentence beside the table", () => {
+    const text = `The interaction was significant, F(1, 40) = 5.20, p = .028.\n\nTable 2. Group differences\n${body}\n\nMore.`;
+    const table = scanDocument(plainTextDocument('beside.txt', 'text', text)).results.filter((result) => result.tableRow);
+    expect(table.map(summary)).toEqual(['F() = 4.21 p = .020', 'F() = 1.05 p = .357']);
+  });
+
+  it('takes no df from beside a table whose caption states them', () => {
+    const text = `Text (df = 3, 96).\nTable 2. Group differences (df = 2, 57)\n${body}\n\nMore.`;
+    const { results } = scanDocument(plainTextDocument('beside.txt', 'text', text));
+    expect(results.map(summary)).toEqual(['F(2, 57) = 4.21 p = .020', 'F(2, 57) = 1.05 p = .357']);
+    expect(results.some((result) => result.dfFrom !== undefined)).toBe(false);
   });
 });
 

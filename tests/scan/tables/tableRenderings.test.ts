@@ -117,6 +117,20 @@ const SHAPES: Record<string, Shape> = {
     tests: ['r() = .30', 'r() = -.12'],
     renderings: ['pipe', 'tab', 'cell-per-line'],
   },
+  // Common practice: a df column holding both df of each F, written with a comma, semicolon or slash, or in brackets.
+  ...Object.fromEntries(
+    ['2, 57', '2; 57', '2/57', '2 / 57', '(2, 57)', '[2, 57]', '(2/57)'].map((written) => [
+      `F tests with both df in one cell, "${written}"`,
+      {
+        header: ['Measure', 'df', 'F', 'p'],
+        rows: [
+          ['Anxiety', written, '5.10', '.009'],
+          ['Mood', written.replace('2', '1'), '3.05', '.086'],
+        ],
+        tests: ['F(2, 57) = 5.10', 'F(1, 57) = 3.05'],
+      } satisfies Shape,
+    ]),
+  ),
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
