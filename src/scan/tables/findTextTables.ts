@@ -61,7 +61,7 @@ const COLUMN_CODE = /^[A-Za-z]{1,3}\d{1,3}(?:[\u2013\u2014-]\d{1,3})?[a-z]?$/;
 
 /** Finds the tables in a text that carries no table markup. */
 export function findTextTables(text: string): DocumentTable[] {
-  const lines = splitLines(text).map(withConsistentSeparators);
+  const lines = splitLines(text).flatMap(splitEmbeddedTable).map(withConsistentSeparators);
   const tables: DocumentTable[] = [];
   let endTags: EndTags | undefined;
   // t and z tests as a spreadsheet prints them ("t Stat", "P(T<=t) two-tail" rows), found first: a reader of the
@@ -156,6 +156,54 @@ function splitLines(text: string): Line[] {
     start = end + 1;
   }
   return lines;
+}
+
+/** A line that may hold a whole table: a test statistic's name and a number somewhere in it. */
+const NAMES_TEST = /(?:^|\s)(?:F|p|P|t|df|DF|Sig\.|\u03c72|F-value|p-value|P-value)(?=\s|$)/;
+
+/** Known header names in a row that make a header run inside a line: enough that prose does not hold them. */
+const MIN_EMBEDDED_HEADER_NAMES = 3;
+
+/**
+ * A table that a copy put on one line with what stands around it, as page
+ * viewers give a whole page of a PDF as one line ("… Table 4. Two-way ANOVA
+ * Source SS df MS F p Group 12.40 2 6.20 4.21 .020 Time … Error 83.90 57
+ * 1.47 The next …"): cut into lines before its title, before its header (a
+ * run of at least three known column names, one naming a test statistic and
+ * one a p or df) and after the header, when at least two rows of values
+ * follow. Lines that hold no such run come back whole.
+ */
+function splitEmbeddedTable(line: Line): Line[] {
+  if (line.text.length < 30 || line.text.length > MAX_RUN_ON_LINE || !/\d/.test(line.text) || !NAMES_TEST.test(line.text)) return [line];
+  const tokens = tokenize(line.text);
+  for (let index = 0, end = 0; index < tokens.length; index = Math.max(end, index + 1)) {
+    const roles: string[] = [];
+    end = index;
+    for (let length = knownPhraseLength(tokens, end); length > 0; length = knownPhraseLength(tokens, end)) {
+      roles.push(classifyHeader(join(line.text, tokens[end]!, tokens[end + length - 1]!).text).role);
+      end += length;
+    }
+    const namesTest = roles.includes('statistic') && (roles.includes('p') || roles.includes('df'));
+    if (roles.length < MIN_EMBEDDED_HEADER_NAMES || !namesTest || end >= tokens.length || isValueToken(tokens[end]!.text)) continue;
+    // The label column's name ("Source", "Variable") is the word before the names, when it is one.
+    const headerStart = index > 0 && classifyHeader(tokens[index - 1]!.text).role === 'label' ? index - 1 : index;
+    const piece = (from: number, to: number): Line => ({ start: line.start + from, end: line.start + to, text: line.text.slice(from, to) });
+    const header = piece(tokens[headerStart]!.start, tokens[end - 1]!.end);
+    const rest = piece(tokens[end]!.start, line.text.length);
+    if (readHeader(header) === null || splitRunOnRows(rest).length < 2) continue;
+    const before = line.text.slice(0, tokens[headerStart]!.start);
+    const title = lastTitleStart(before);
+    const lead = title > 0 ? [piece(0, title), piece(title, before.length)] : before.trim() === '' ? [] : [piece(0, before.length)];
+    return [...lead.map((part) => ({ ...part, text: part.text.trimEnd(), end: part.start + part.text.trimEnd().length })), header, rest];
+  }
+  return [line];
+}
+
+/** Where the last "Table 4" of a text begins (0 when none, or at its start). */
+function lastTitleStart(text: string): number {
+  let last = 0;
+  for (const match of text.matchAll(/(?<=\s)(?:Table|TABLE|Tabla|Tabela|Tableau|Tabelle) \d{1,3}\b/g)) last = match.index!;
+  return last;
 }
 
 function leadingSpace(text: string): number {
@@ -950,6 +998,17 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
         last = index;
         continue;
       }
+    }
+    // A line of values only under a line that was taken for a section: that line is the row's label, set on a
+    // line of its own by the copy ("Group × Time" / "9.80 2 4.90 3.33 .043").
+    const sectionAbove = Array.isArray(previous) && previous.slice(1).every((cell) => cell === '') ? previous[0]! : null;
+    const labelAbove = columns !== null && sectionAbove !== null ? continuationValues(line, columns.length - 1) : null;
+    if (sectionAbove !== null && labelAbove !== null && (labelAbove.length >= 2 || SPARSE_ROW_LABEL.test(sectionAbove))) {
+      rows[rows.length - 1] = { data: { label: { text: sectionAbove, start: 0, end: 0 }, values: labelAbove }, line };
+      widest = Math.max(widest, labelAbove.length);
+      dataRows++;
+      last = index;
+      continue;
     }
     const data = readRowLine(line, dataRows === 0);
     if (data !== null) {

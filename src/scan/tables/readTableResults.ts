@@ -1902,7 +1902,7 @@ function locateRows(text: string, table: DocumentTable, headerCount: number): ((
     const row = table.rows[index]!;
     for (let line = nextLine; line < lines.length && line < nextLine + 8; line++) {
       const from = line === nextLine ? nextFrom : 0;
-      const cells = matchRow(text, lines[line]!, row, from);
+      const cells = matchRow(text, lines[line]!, row, from) ?? matchWithLabelAbove(text, lines, line, row);
       if (cells !== null) {
         located[index] = cells;
         const last = cells.filter((cell): cell is LocatedCell => cell !== null).pop()!;
@@ -1913,6 +1913,21 @@ function locateRows(text: string, table: DocumentTable, headerCount: number): ((
     }
   }
   return located;
+}
+
+/** A row whose label stands alone on the line above its values (a non-blank line, one blank line between allowed). */
+function matchWithLabelAbove(text: string, lines: LocatedCell[], line: number, row: string[]): (LocatedCell | null)[] | null {
+  const label = (row[0] ?? '').trim();
+  if (label === '') return null;
+  let above = line - 1;
+  if (above >= 0 && text.slice(lines[above]!.start, lines[above]!.end).trim() === '') above--;
+  if (above < 0) return null;
+  const aboveText = text.slice(lines[above]!.start, lines[above]!.end);
+  if (aboveText.trim() !== label) return null;
+  const values = matchRow(text, lines[line]!, ['', ...row.slice(1)]);
+  if (values === null) return null;
+  const labelStart = lines[above]!.start + aboveText.indexOf(label);
+  return [{ start: labelStart, end: labelStart + label.length }, ...values.slice(1)];
 }
 
 function matchRow(text: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {

@@ -1,0 +1,70 @@
+/**
+ * An ANOVA table as copies damage its layout (common practice: what PDF text
+ * extraction and publishers' page viewers do to a table), in single spaces,
+ * aligned columns and tabs, with and without a "Table 4" title: a row label
+ * on a line of its own above its values, a header wrapped over two lines,
+ * labels wrapped, rows numbered, a whole table run onto one line with the
+ * prose around it. Every copy must give the same three F tests with the
+ * error row's df, and nothing else.
+ *
+ * The numbers are invented and consistent (SciPy 1.10.1, scipy.stats.f.sf,
+ * computed when the test was written): F(2, 57) = 4.21 gives p = .020,
+ * F(1, 57) = 2.11 gives .152, F(2, 57) = 3.33 gives .043.
+ */
+import { describe, expect, it } from 'vitest';
+import { plainTextDocument } from '../../../src/documents/text.js';
+import { scanDocument } from '../../../src/scan/scanDocument.js';
+
+type Rendering = 'crushed' | 'aligned' | 'tabs';
+const RENDERINGS: Rendering[] = ['crushed', 'aligned', 'tabs'];
+const HEADER = ['Source', 'SS', 'df', 'MS', 'F', 'p'];
+const ROWS = [
+  ['Group', '12.40', '2', '6.20', '4.21', '.020'],
+  ['Time', '3.10', '1', '3.10', '2.11', '.152'],
+  ['Group × Time', '9.80', '2', '4.90', '3.33', '.043'],
+  ['Error', '83.90', '57', '1.47', '', ''],
+];
+const EXPECTED = ['F(2, 57) = 4.21 p = .020', 'F(1, 57) = 2.11 p = .152', 'F(2, 57) = 3.33 p = .043'];
+
+function line(cells: string[], rendering: Rendering): string {
+  if (rendering === 'crushed') return cells.filter((cell) => cell !== '').join(' ');
+  return cells.join(rendering === 'tabs' ? '\t' : '    ').trimEnd();
+}
+
+const COPIES: Record<string, (rendering: Rendering) => string> = {
+  'row labels on a line of their own above the values': (r) => [line(HEADER, r), ...ROWS.flatMap((row) => [row[0]!, line(['', ...row.slice(1)], r).trim()])].join('\n'),
+  'a header wrapped over two lines': (r) => [line(['Source', 'Sum of', 'df', 'Mean', 'F', 'p'], r), line(['', 'squares', '', 'square', '', ''], r), ...ROWS.map((row) => line(row, r))].join('\n'),
+  'a label wrapped after its values': (r) => [line(HEADER, r), ...ROWS.flatMap((row) => (row[0] === 'Group' ? [line(['Training group', ...row.slice(1)], r), 'condition'] : [line(row, r)]))].join('\n'),
+  'a label wrapped before its values': (r) => [line(HEADER, r), ...ROWS.flatMap((row) => (row[0] === 'Group' ? ['Training group', line(['condition', ...row.slice(1)], r)] : [line(row, r)]))].join('\n'),
+  'numbered rows': (r) => [line(HEADER, r), ...ROWS.map((row, index) => line([`${index + 1}. ${row[0]}`, ...row.slice(1)], r))].join('\n'),
+  'blank lines between rows': (r) => [line(HEADER, r), ...ROWS.map((row) => line(row, r))].join('\n\n'),
+  'rules of dashes above and below the rows': (r) => [line(HEADER, r), '-'.repeat(40), ...ROWS.map((row) => line(row, r)), '-'.repeat(40)].join('\n'),
+};
+
+function testsRead(text: string): string[] {
+  return scanDocument(plainTextDocument('table.txt', 'text', text)).results.map(
+    (result) => `${result.kind}(${result.df.map((df) => df.text).join(', ')}) = ${result.value?.text}${result.p ? ` p ${result.p.comparator} ${result.p.value.text}` : ''}`,
+  );
+}
+
+describe('an ANOVA table whose layout a copy damaged', () => {
+  for (const [name, copy] of Object.entries(COPIES)) {
+    for (const titled of [true, false]) {
+      it.each(RENDERINGS)(`${name}, ${titled ? 'titled' : 'untitled'}, %s`, (rendering) => {
+        const lead = titled ? 'Table 4. Two-way ANOVA of recall scores' : 'The ANOVA is shown below.';
+        expect(testsRead(`${lead}\n${copy(rendering)}\n\nThe next section.\n`)).toEqual(EXPECTED);
+      });
+    }
+  }
+
+  it.each(['crushed', 'aligned'] as const)('a whole table on one line with the prose around it, as a page viewer gives a page, %s', (rendering) => {
+    const table = [line(HEADER, rendering), ...ROWS.map((row) => line(row, rendering))].join(' ');
+    const page = `Page 25 The participants improved as expected. Table 4. Two-way ANOVA of recall scores ${table} The interaction shows that the groups differed, which we discuss next.\n`;
+    expect(testsRead(page)).toEqual(EXPECTED);
+  });
+
+  it('reads no table from prose that names F, p and df beside numbers', () => {
+    const text = 'For every model we report the F p df values of 12 groups and 3 conditions measured in 2019 and 2020 across 4 sites and 2 waves.\n';
+    expect(testsRead(text)).toEqual([]);
+  });
+});
