@@ -28,7 +28,7 @@ export type CellShape =
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
-  | { shape: 'pair'; first: number; second: number; slash?: boolean }
+  | { shape: 'pair'; first: number; second: number; slash?: boolean; bracketed?: boolean }
   | { shape: 'ns' }
   /** A statistic with its p: "0.11, p > 0.05", "4.29, p = 0.04*". */
   | { shape: 'statistic-p'; value: number }
@@ -49,10 +49,11 @@ export type CellShape =
 
 /**
  * Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its
- * point), in brackets, "(2, 180)", or with a slash, "2/180" (whole first df).
+ * point), in brackets, "(2, 180)" (each at least 1: "(0.05, 0.52)" is an interval), or with a slash, "2/180"
+ * (whole first df).
  */
 const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
-const BRACKETED_PAIR = /^[([]\s*(\d{1,5}(?:\.\d+)?)\s*[,;/]\s*(\d{1,6}(?:\.\d+)?)\s*[)\]]$/;
+const BRACKETED_PAIR = /^[([]\s*([1-9]\d{0,4}(?:\.\d+)?)\s*[,;/]\s*([1-9]\d{0,5}(?:\.\d+)?)\s*[)\]]$/;
 const SLASH_PAIR = /^(\d{1,5}) ?\/ ?(\d{1,6}(?:\.\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([]\s*(?:(<=|>=|<|>|\u2264|\u2265)\s*)?([-\u2212]?[\d.,]+)[a-h]?\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
@@ -72,8 +73,10 @@ export function shapeOf(cell: string): CellShape {
   if (read.kind === 'number') {
     return { shape: 'number', value: read.number.value, decimals: read.number.decimals, comparator: read.comparator };
   }
-  const pair = PAIR.exec(text) ?? BRACKETED_PAIR.exec(text);
+  const pair = PAIR.exec(text);
   if (pair) return { shape: 'pair', first: Number(pair[1]), second: Number(pair[2]!.replace(',', '.')) };
+  const bracketedPair = BRACKETED_PAIR.exec(text);
+  if (bracketedPair) return { shape: 'pair', first: Number(bracketedPair[1]), second: Number(bracketedPair[2]), bracketed: true };
   const slashPair = SLASH_PAIR.exec(text);
   if (slashPair) return { shape: 'pair', first: Number(slashPair[1]), second: Number(slashPair[2]), slash: true };
   const bracket = NUMBER_BRACKET.exec(text);
@@ -169,8 +172,8 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'p-cell') return role.role === 'p' ? 2.5 : role.role === 'result' || role.role === 'unknown' ? 0.5 : -2;
   if (cell.shape === 'named') return role.role === 'effect' || role.role === 'result' ? 1.5 : role.role === 'unknown' ? 0.5 : -2;
   if (role.role === 'result') return cell.shape === 'number' ? 0.3 : -1;
-  // "12/30" under a descriptive column is a count of a total, as other numbers without words.
-  if (cell.shape === 'range' || cell.shape === 'numeric' || (cell.shape === 'pair' && cell.slash === true && role.role !== 'df')) return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
+  // "12/30" under a descriptive column is a count of a total, "(1.20, 3.40)" an interval, as other numbers without words.
+  if (cell.shape === 'range' || cell.shape === 'numeric' || (cell.shape === 'pair' && (cell.slash === true || cell.bracketed === true) && role.role !== 'df')) return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
   switch (role.role) {
     case 'statistic': {
       if (cell.shape === 'number-interval') return cell.wholePair === true && role.dfInCell === true && role.kind === 'F' ? 3 : -3;

@@ -387,8 +387,8 @@ const HEADER_DF_NUMBER = String.raw`(\d{1,5}(?:\.\d{1,3})?)`;
 const NAME_WITH_DF_BRACKETS = new RegExp(
   String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3}) ?[(\[] ?(?:d\.?f\.? ?[=:]? ?)?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})? ?(?:d\.?f\.?)? ?[)\]]$`,
 );
-/** "<name>, df = 1", "<name>, df 1". */
-const NAME_WITH_DF_AFTER_COMMA = new RegExp(String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3}) ?, ?d\.?f\.? ?[=:]? ?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})?$`);
+/** "<name>, df = 1", "<name>, df 1", "<name> df=1". */
+const NAME_WITH_DF_AFTER_COMMA = new RegExp(String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3})(?: ?, ?| )d\.?f\.? ?[=:]? ?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})?$`);
 
 /** A generic name for effect sizes with the one the column holds: "effect size (etap2)", "es (d)", "effect size cohen's d". */
 const GENERIC_EFFECT_WITH_NAME = /^(?:effect sizes?|es|eff\. size)(?:\s?\(([^()]{1,20})\)| ([^()]{1,20}))$/;

@@ -530,6 +530,12 @@ function tokenize(text: string): Piece[] {
       index++;
       continue;
     }
+    // "12.3 ± 4.1": a mean and its SD (or SE) set apart by spaces are one cell.
+    if (previous !== undefined && next !== undefined && token.text === '\u00b1' && /^[-\u2212]?\d+(?:[.,]\d+)?[a-h*]{0,3}$/.test(previous.text) && /^\d+(?:[.,]\d+)?[a-h*]{0,3}$/.test(next.text)) {
+      tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
+      index++;
+      continue;
+    }
     // "2 / 180": both df of an F with a slash set apart by spaces.
     if (previous !== undefined && next !== undefined && token.text === '/' && /^\d{1,4}$/.test(previous.text) && /^\d{1,6}(?:\.\d+)?$/.test(next.text)) {
       tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
@@ -607,7 +613,7 @@ function isValueToken(text: string): boolean {
 }
 
 /** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)". */
-const BRACKETED_DF_PAIR = /^[([]\s?\d{1,4}(?:\.\d{1,2})?\s?[,;/]\s?\d{1,5}(?:\.\d{1,2})?\s?[)\]]$/;
+const BRACKETED_DF_PAIR = /^[([]\s?[1-9]\d{0,3}(?:\.\d{1,2})?\s?[,;/]\s?[1-9]\d{0,4}(?:\.\d{1,2})?\s?[)\]]$/;
 
 /** A bound p followed by a df pair in brackets. */
 const P_WITH_DF_AFTER = /^(?:<=|>=|<|>|\u2264|\u2265)\s?0?\.\d+\s+\(\d{1,4}(?:\.\d{1,2})?,\s?\d{1,5}(?:\.\d{1,2})?\)$/;
@@ -757,7 +763,11 @@ function readHeader(line: Line): HeaderLine | null {
   // Block titles between names ("SF-12 Physical ... r (P value) SF-12 Mental ... r (P value)"): two statistic
   // names with their titles are a header too.
   const statisticNames = columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;
-  return namesTest && (named >= 3 || statisticNames >= 2) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
+  // Group names between the label and a test's columns ("Variable Men Women t(58) p"): one run of unknown words
+  // before a statistic and its p.
+  const pNames = columns.filter((column) => classifyHeader(column.text).role === 'p').length;
+  const groupsThenTest = unknown === 1 && statisticNames >= 1 && pNames >= 1;
+  return namesTest && (named >= 3 || statisticNames >= 2 || groupsThenTest) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
 }
 
 /**
@@ -824,7 +834,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   // Two numbers in a row inside the label are another row's values: rows run together on one line.
   const labelNumbers = tokens.slice(0, first).some((token, index) => index > 0 && isNumberToken(token.text) && isNumberToken(tokens[index - 1]!.text));
   if (labelNumbers) return null;
-  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || /[=<>]/.test(label.text)) return null;
+  // (A band of a variable as its label, ">70" or "<1000", is not a comparison.)
+  const band = /^[<>\u2264\u2265] ?\d{1,6}$/.test(label.text);
+  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || (/[=<>]/.test(label.text) && !band)) return null;
   return { label, values };
 }
 

@@ -652,6 +652,8 @@ interface Schema {
   named: boolean[];
   /** For crushed tables: the form each value column's cells take in the full rows (columnFamilies). */
   families?: (ShapeFamily | null)[];
+  /** Columns whose header names an interval ("95% CI"), when any does. */
+  intervals?: boolean[];
 }
 
 /** Body rows whose cells are not at the header's positions: rebuilt from crushed text. */
@@ -777,7 +779,41 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
       if (cells.length > 0 && cells.filter((cell) => shapeOf(cell).shape === 'written').length * 2 > cells.length) roles[column] = { role: 'result' };
     }
   }
-  return { roles, titles, positional, named };
+  // (A column of its own: "ηp2 [95% CI]" names an effect size printed with its interval in one cell.)
+  const intervals = (headerRows[headerRows.length - 1] ?? []).map((cell) => INTERVAL_HEADER.test(cell) && classifyHeader(cell).role === 'descriptive');
+  return { roles, titles, positional, named, ...(intervals.some(Boolean) ? { intervals } : {}) };
+}
+
+/** A header naming a column of intervals: "95% CI", "CI", "confidence interval", "[95% CI]". */
+const INTERVAL_HEADER = /(?:^|[^A-Za-z])CI(?:$|[^A-Za-z])|confidence interval/i;
+
+/**
+ * A crushed copy joins a value and the interval printed in the next column
+ * (".30 [.05, .52]" under "r | 95% CI"): where the header names an interval
+ * column and the row is short of cells, each value with its interval is cut
+ * back into two cells.
+ */
+function splitValueAndInterval(row: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): { row: string[]; cellsAt: (LocatedCell | null)[] | null } {
+  if (schema.positional || schema.intervals === undefined) return { row, cellsAt };
+  let missing = schema.roles.length - row.length;
+  if (missing <= 0) return { row, cellsAt };
+  const cells: string[] = [];
+  const at: (LocatedCell | null)[] = [];
+  row.forEach((cell, index) => {
+    const located = cellsAt?.[index] ?? null;
+    const bracket = cell.search(/\s[([]/);
+    if (index > 0 && missing > 0 && bracket > 0 && shapeOf(cell).shape === 'number-interval') {
+      const value = cell.slice(0, bracket).trimEnd();
+      const intervalAt = cell.indexOf(cell.slice(bracket).trimStart(), bracket);
+      cells.push(value, cell.slice(intervalAt));
+      at.push(located === null ? null : { start: located.start, end: located.start + value.length }, located === null ? null : { start: located.start + intervalAt, end: located.end });
+      missing--;
+      return;
+    }
+    cells.push(cell);
+    at.push(located);
+  });
+  return { row: cells, cellsAt: cellsAt === null ? null : at };
 }
 
 /** A header cell that holds only df, named as df: "(df = 1)", "df = 2, 57", "(df 1)"; with two numbers in brackets for F, "(1, 52)". */
@@ -945,8 +981,10 @@ interface VirtualRow {
  * positions and the piece sits where the header says, otherwise by fit
  * (align.ts).
  */
-function virtualRowsOf(written: string[], cellsAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
-  let row = written;
+function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
+  const split = splitValueAndInterval(written, writtenAt, schema);
+  const cellsAt = split.cellsAt;
+  let row = split.row;
   const width = schema.roles.length;
   // The empty cells a row's trailing pipe or tab leaves stand for nothing (in a rebuilt row they hold their columns' places).
   let length = row.length;

@@ -58,10 +58,38 @@ export function findUnrecognisedTables(text: string, tables: readonly DocumentTa
         lineStart = block.end + 1;
         continue;
       }
+      // A table found in the block but ended early (a row no reader took, "≤50 62 (29.4%) …"): rows of numbers
+      // after it, left unread, are listed as a table not read.
+      const rest = restAfterTables(text, block, tables.filter(overlaps));
+      if (rest !== null && results.filter((span) => span.start < rest.end && rest.start < span.end).length <= MAX_STRAY_RESULTS && looksLikeResults(block.lines, caption)) {
+        unread.push({ tableIndex: null, caption: line.trim(), start: rest.start, end: rest.end, rowsWithStatistic: rest.rows, rowsRead: 0, reason: 'layout-not-recognised' });
+        lineStart = block.end + 1;
+        continue;
+      }
     }
     lineStart = lineEnd + 1;
   }
   return unread;
+}
+
+/** Rows of at least this many numbers after a found table's end that make the rest of its block a table of its own. */
+const MIN_NUMBERS_PER_ROW = 3;
+const MIN_ROWS_AFTER = 3;
+
+/** The part of a block after the tables found in it, when it holds rows of numbers; null otherwise. */
+function restAfterTables(text: string, block: { start: number; end: number }, found: readonly Span[]): { start: number; end: number; rows: number } | null {
+  if (found.length === 0) return null;
+  const coveredEnd = Math.max(...found.map((table) => table.end));
+  if (coveredEnd >= block.end) return null;
+  const lineAfter = text.indexOf('\n', coveredEnd);
+  if (lineAfter === -1 || lineAfter >= block.end) return null;
+  const start = lineAfter + 1;
+  const rows = text
+    .slice(start, block.end)
+    .split('\n')
+    // (With a decimal among them: notes under a table give ranges and dates, "range, 0–18", "2021; 12(2)".)
+    .filter((row) => (row.match(/\d*[.,]\d+|\d+/g) ?? []).length >= MIN_NUMBERS_PER_ROW && /\d[.,]\d/.test(row)).length;
+  return rows >= MIN_ROWS_AFTER ? { start, end: block.end, rows } : null;
 }
 
 /** The lines after a title up to the next title, a long line of prose, or the bounds. */

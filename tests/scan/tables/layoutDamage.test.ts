@@ -63,6 +63,13 @@ describe('an ANOVA table whose layout a copy damaged', () => {
     expect(testsRead(page)).toEqual(EXPECTED);
   });
 
+  it.each(RENDERINGS)('rows named by bands of a variable (">50", "≤30"), %s', (rendering) => {
+    // t(58) = 2.25 gives p = .028, 0.59 gives .557, 1.10 gives .276 (SciPy 1.10.1 scipy.stats.t.sf, two-tailed).
+    const rows = [['Age group', 't', 'df', 'p'], ['≤30', '2.25', '58', '.028'], ['31–50', '0.59', '58', '.557'], ['>50', '1.10', '58', '.276']];
+    const text = `Table 5. Differences by age group\n${rows.map((row) => line(row, rendering)).join('\n')}\n\nNext.\n`;
+    expect(testsRead(text)).toEqual(['t(58) = 2.25 p = .028', 't(58) = 0.59 p = .557', 't(58) = 1.10 p = .276']);
+  });
+
   it('reads no table from prose that names F, p and df beside numbers', () => {
     const text = 'For every model we report the F p df values of 12 groups and 3 conditions measured in 2019 and 2020 across 4 sites and 2 waves.\n';
     expect(testsRead(text)).toEqual([]);

@@ -81,11 +81,14 @@ describe('real table shapes', () => {
     expect(results[1]!.effects[0]!.interval).not.toBeNull();
   });
 
-  it('lists results tables it cannot read in full, with the reason (soft-09: F read without df; web-02: a layout no reader knows)', () => {
+  it('lists results tables it cannot read in full, with the reason (soft-09: F read without df; web-02: read up to a row no reader takes)', () => {
     expect(scan('soft-09').tablesNotRead.map((table) => table.reason)).toEqual(['read-without-df']);
     const web02 = scan('web-02');
-    expect(web02.results).toEqual([]);
-    expect(web02.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
+    // Its first chi-square is read (no df printed); the rows of counts after it ("≤50 62 (29.4%) …") end the table,
+    // and the rest of the block, with seven more chi-squares, is listed as not read.
+    expect(web02.results.map(summary)).toEqual(['chi2() = 5.343 p = 0.254']);
+    expect(web02.tablesNotRead.map((table) => table.reason)).toEqual(['read-without-df', 'layout-not-recognised']);
+    expect(web02.tablesNotRead[1]!.end).toBe(web02.text.trimEnd().length);
   });
 });
 

@@ -10,7 +10,8 @@
  * t.sf and chi2.sf, computed when the test was written): F(2, 57) = 5.10
  * gives p = .0091, F(1, 57) = 3.05 gives .086, F(2, 57) = 3.81 gives .028,
  * F(1.62, 46.98) = 6.02 gives .0075, t(58) = 2.41 gives .019, t(58) = 0.73
- * gives .468, χ²(1) = 2.40 gives .121, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
+ * gives .468, t(58) = 2.25 gives .028, t(58) = 0.59 gives .557, χ²(1) = 2.40 gives .121, χ²(1) = 2.22
+ * gives .136, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
  * gives .465, r(58) = .30 gives .020, r(58) = −.12 gives .361.
  */
 import { describe, expect, it } from 'vitest';
@@ -131,6 +132,32 @@ const SHAPES: Record<string, Shape> = {
       } satisfies Shape,
     ]),
   ),
+  't tests with "M ± SD" cells and the df in the t header': {
+    header: ['Variable', 'Men', 'Women', 't(58)', 'p'],
+    rows: [
+      ['Anxiety', '12.3 ± 4.1', '14.8 ± 4.5', '2.25', '.028'],
+      ['Stress', '20.1 ± 6.0', '21.0 ± 5.8', '0.59', '.557'],
+    ],
+    tests: ['t(58) = 2.25', 't(58) = 0.59'],
+  },
+  'correlations with a column of their 95% CI': {
+    header: ['Predictor', 'r', '95% CI', 'p', 'n'],
+    rows: [
+      ['Age', '.30', '[.05, .52]', '.020', '60'],
+      ['BMI', '−.12', '[−.36, .14]', '.361', '60'],
+    ],
+    tests: ['r(58) = .30', 'r(58) = -.12'],
+    // Aligned columns: a bracket after a wide gap is still joined to the value before it (not read, reported unread).
+    renderings: ['pipe', 'tab', 'crushed', 'cell-per-line'],
+  },
+  'chi-square tests with "df=1" after the symbol in the header': {
+    header: ['Variable', 'Intervention n (%)', 'Control n (%)', 'χ2 df=1', 'p'],
+    rows: [
+      ['Female', '18 (60.0)', '12 (40.0)', '2.40', '.121'],
+      ['Smoker', '5 (16.7)', '10 (33.3)', '2.22', '.136'],
+    ],
+    tests: ['chi2(1) = 2.40', 'chi2(1) = 2.22'],
+  },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
