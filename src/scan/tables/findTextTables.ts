@@ -331,7 +331,9 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
 function tabCells(line: Line): Piece[] | null {
   const text = line.text;
   if (line.crushed === true || text.length > MAX_ROW_LENGTH || !text.trimStart().includes('\t')) return null;
-  const pieces = splitCells(line, text.length - text.trimStart().length, '\t');
+  // Leading spaces indent the line; a leading tab is an empty first cell (a program's output leaves the effect's
+  // name out on the rows of its other statistics: "\tWilks' Lambda\t.851\t…").
+  const pieces = splitCells(line, text.length - text.replace(/^ +/, '').length, '\t');
   return pieces.length >= 2 ? pieces : null;
 }
 
@@ -723,7 +725,7 @@ function readHeader(line: Line): HeaderLine | null {
   let unknown = 0;
   let namesTest = false;
   while (index < tokens.length) {
-    const length = knownPhraseLength(tokens, index);
+    const length = headerPhraseLength(tokens, index);
     // A footnote letter standing apart after a column's name ("X 2 a P b", the letters superscripts) names no column.
     // (A "b" right after a statistic or p is such a letter too, not a column of regression weights.)
     const previousRole = columns.length > 1 ? classifyHeader(columns[columns.length - 1]!.text).role : null;
@@ -794,6 +796,16 @@ function join(text: string, first: Piece, last: Piece): Piece {
 
 function startsKnownPhrase(tokens: Piece[], index: number): boolean {
   return knownPhraseLength(tokens, index) > 0;
+}
+
+/**
+ * The words of the header name starting at `index`: the longest known phrase, except that "df Error df" is
+ * "df" and "Error df" (a name ends with its noun: "Hypothesis df", "Error df"), not "df Error" and "df".
+ */
+function headerPhraseLength(tokens: Piece[], index: number): number {
+  const length = knownPhraseLength(tokens, index);
+  const dfFirst = length === 2 && /^d\.?f\.?$/i.test(tokens[index]!.text) && /^d\.?f\.?$/i.test(tokens[index + 2]?.text ?? '');
+  return dfFirst && knownPhraseLength(tokens, index + 1) === 2 ? 1 : length;
 }
 
 /** Words in the longest known header phrase starting at `index` (0 if none). */

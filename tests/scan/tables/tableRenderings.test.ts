@@ -11,7 +11,7 @@
  * gives p = .0091, F(1, 57) = 3.05 gives .086, F(2, 57) = 3.81 gives .028,
  * F(1.62, 46.98) = 6.02 gives .0075, t(58) = 2.41 gives .019, t(58) = 0.73
  * gives .468, t(58) = 2.25 gives .028, t(58) = 0.59 gives .557, χ²(1) = 2.40 gives .121, χ²(1) = 2.22
- * gives .136, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
+ * gives .136, F(2, 40) = 3.50 gives .040, F(2, 40) = 8.57 gives .0008, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
  * gives .465, r(58) = .30 gives .020, r(58) = −.12 gives .361.
  */
 import { describe, expect, it } from 'vitest';
@@ -157,6 +157,27 @@ const SHAPES: Record<string, Shape> = {
       ['Smoker', '5 (16.7)', '10 (33.3)', '2.22', '.136'],
     ],
     tests: ['chi2(1) = 2.40', 'chi2(1) = 2.22'],
+  },
+  // Common practice: a statistics program's multivariate tests name the effect once, on the first of its four rows.
+  'multivariate tests as a program prints them, the effect named on its first row only': {
+    header: ['Effect', '', 'Value', 'F', 'Hypothesis df', 'Error df', 'Sig.', 'Partial Eta Squared'],
+    rows: [
+      ['Group', "Pillai's Trace", '.149', '3.500b', '2.000', '40.000', '.040', '.149'],
+      ['', "Wilks' Lambda", '.851', '3.500b', '2.000', '40.000', '.040', '.149'],
+      ['', "Hotelling's Trace", '.175', '3.500b', '2.000', '40.000', '.040', '.149'],
+      ['', "Roy's Largest Root", '.175', '3.500b', '2.000', '40.000', '.040', '.149'],
+    ],
+    tests: ['F(2.000, 40.000) = 3.500', 'F(2.000, 40.000) = 3.500', 'F(2.000, 40.000) = 3.500', 'F(2.000, 40.000) = 3.500'],
+    // One cell per line, its empty cells as blank lines: read under a title, not yet without one (nothing is read then).
+    renderings: ['pipe', 'tab', 'crushed', 'aligned'],
+  },
+  'multivariate tests with "df" and "Error df" columns': {
+    header: ['Source', 'Wilks lambda', 'F', 'df', 'Error df', 'p'],
+    rows: [
+      ['Group', '0.85', '3.50', '2', '40', '.040'],
+      ['Time', '0.70', '8.57', '2', '40', '.001'],
+    ],
+    tests: ['F(2, 40) = 3.50', 'F(2, 40) = 8.57'],
   },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
