@@ -174,7 +174,8 @@ export function headerKey(header: string): string {
   // Plain ASCII words need no normalisation; most candidate phrases in running text are such words,
   // and this is called for every word of every line while looking for table headers.
   if (PLAIN_HEADER.test(header)) return header.toLowerCase().replace(/\s+/g, ' ').trim();
-  return normaliseText(header)
+  // (Lower case first: a header in capitals writes its Greek in capitals too, "Η2P", spelled out only in lower case.)
+  return normaliseText(header.toLowerCase())
     .text.toLowerCase()
     .replace(/[_^{}$\\*`]/g, '')
     .replace(/\s+/g, ' ')

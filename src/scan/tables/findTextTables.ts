@@ -293,16 +293,23 @@ const SPANNING_PIPE_ROW = /^\s*\|[^|]+\|\s*$/;
 function readPipeTable(lines: Line[], first: number): FoundRows | null {
   const rows: Piece[][] = [];
   let index = first;
+  let lastLine = first - 1;
   for (; index < lines.length; index++) {
     const cells = pipeCells(lines[index]!);
     if (cells === null) {
+      // A blank line between rows, as web pages' copies put them (one, between two rows of pipes).
+      if (rows.length > 0 && isBlank(lines[index]) && lines[index + 1] !== undefined && pipeCells(lines[index + 1]!) !== null) continue;
       // A section row spanning the table, one cell between two pipes ("| Outcome variable |"), inside it.
       const spanning = rows.length > 0 && SPANNING_PIPE_ROW.test(lines[index]!.text) && lines[index + 1] !== undefined && pipeCells(lines[index + 1]!) !== null;
       if (!spanning) break;
       rows.push(pipeCellSpans(lines[index]!, 1));
+      lastLine = index;
       continue;
     }
-    if (isSeparatorRow(cells)) continue;
+    if (isSeparatorRow(cells)) {
+      lastLine = index;
+      continue;
+    }
     const row = pipeCellSpans(lines[index]!, cells.length);
     // A line longer than a row is rows run together, cut apart only under a header of as many cells as each such
     // row has (under another header which cell is which is not known); otherwise it ends the table.
@@ -310,16 +317,18 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
     const pieces = rows.length > 0 && row.length >= MIN_RUN_ON_ROWS * rows[0]!.length ? splitRunOnPipeRow(row, rows[0]!.length) : null;
     if (pieces !== null) {
       for (const piece of pieces) rows.push(piece);
+      lastLine = index;
       continue;
     }
     if (long) break;
     rows.push(row);
+    lastLine = index;
   }
   if (rows.length < 2) return null;
   const merged = joinBrokenRows(rows);
   return {
     rows: merged.map((row) => row.map((cell) => cell.text)),
-    last: index - 1,
+    last: lastLine,
     layout: 'pipe',
     cells: merged.map((row) => row.map((cell) => (cell.text === '' ? null : { start: cell.start, end: cell.end }))),
   };

@@ -963,6 +963,14 @@ function typicalWidth(body: string[][]): number {
   return best;
 }
 
+/** The offset of the only filled cell when it is a whole number (a df), else -1. */
+function loneWholeNumber(cells: { shape: CellShape }[]): number {
+  const filled = cells.flatMap((cell, offset) => (cell.shape.shape === 'empty' || cell.shape.shape === 'mark' ? [] : [offset]));
+  if (filled.length !== 1) return -1;
+  const shape = cells[filled[0]!]!.shape;
+  return shape.shape === 'number' && shape.decimals === 0 && shape.comparator === '=' && shape.value >= 1 ? filled[0]! : -1;
+}
+
 /** A body row as the interpreter reads it: column 0 the label, the other cells under the schema's columns. */
 interface VirtualRow {
   cells: string[];
@@ -1041,7 +1049,11 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
       const errorTerm = ERROR_LABEL.test(headerKey(cells[0]));
       const rowColumns = errorTerm ? valueColumns.filter(({ role }) => role.role !== 'statistic' && role.role !== 'p' && role.role !== 'effect' && role.role !== 'result') : valueColumns;
       const valueRoles = rowColumns.map(({ role }) => role);
-      const placed = placeCells(toPlace, valueRoles, schema.families);
+      // An error term's row that prints only its df ("Within groups 77" under SS, df, MS, F, p): a lone whole number
+      // there is the df (sums of squares are printed with decimals; common practice).
+      const loneDf = errorTerm ? loneWholeNumber(toPlace) : -1;
+      const dfSlot = valueRoles.findIndex((role) => role.role === 'df' || role.role === 'df2');
+      const placed = loneDf >= 0 && dfSlot >= 0 ? { columns: toPlace.map((_, offset) => (offset === loneDf ? dfSlot : -1)), absorbed: 0 } : placeCells(toPlace, valueRoles, schema.families);
       const hasNumbers = toPlace.some((cell) => cell.shape.shape.startsWith('number'));
       if (placed === null) {
         if (hasNumbers) unplaced++;
