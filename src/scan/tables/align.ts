@@ -24,7 +24,7 @@ import { readPValue } from '../pValue.js';
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string }
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string; plusMinus?: boolean }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
@@ -59,6 +59,7 @@ const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\
 const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
+const PLUS_MINUS = /^([-\u2212]?\d+(?:[.,]\d+)?)[a-h*]{0,3} ?\u00b1 ?(\d+(?:[.,]\d+)?)[a-h*]{0,3}$/;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
 const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:[*\u2020\u2021]{1,4} *)?[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
 
@@ -79,6 +80,13 @@ export function shapeOf(cell: string): CellShape {
   if (bracketedPair) return { shape: 'pair', first: Number(bracketedPair[1]), second: Number(bracketedPair[2]), bracketed: true };
   const slashPair = SLASH_PAIR.exec(text);
   if (slashPair) return { shape: 'pair', first: Number(slashPair[1]), second: Number(slashPair[2]), slash: true };
+  // "12.3 ± 4.1": a mean and its SD, as "12.3 (4.1)" is.
+  const plusMinus = PLUS_MINUS.exec(text);
+  if (plusMinus) {
+    const outer = readCell(plusMinus[1]!, 'either');
+    const inner = readCell(plusMinus[2]!, 'either');
+    if (outer.kind === 'number' && inner.kind === 'number') return { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals, plusMinus: true };
+  }
   const bracket = NUMBER_BRACKET.exec(text);
   if (bracket) {
     const outer = readCell(bracket[1]!, 'either');
@@ -181,6 +189,7 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       // A bracketed number in a statistic column is its df only where the header says so ("t (df)").
       // Whole-number df only: "62.3 (9.64)" beside "1.48 (29)" is a mean and SD.
       // Under "r (p value)" the bracket holds the p: "−0.06 (.60)", "−0.50 (<.001)".
+      if (cell.shape === 'number-bracket' && cell.plusMinus === true) return -3;
       if (cell.shape === 'number-bracket' && role.pInCell === true) return cell.inner >= 0 && cell.inner <= 1 && cell.innerPair !== true ? 3 : -3;
       if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && (cell.innerPair === true) === (role.kind === 'F') ? 3 : -3;
       // Under "t (df)" the cells carry their df; a bare number there is weak evidence.
@@ -198,7 +207,7 @@ export function fit(role: ColumnRole, cell: CellShape): number {
     case 'p':
       if (cell.shape === 'ns') return 2.5;
       // "0.048* (0.51)" under "p (d)": the p with an effect size in brackets.
-      if (cell.shape === 'number-bracket') return cell.value >= 0 && cell.value <= 1 && cell.innerComparator === undefined ? 1 : -3;
+      if (cell.shape === 'number-bracket') return cell.value >= 0 && cell.value <= 1 && cell.innerComparator === undefined && cell.plusMinus !== true ? 1 : -3;
       if (cell.shape !== 'number') return -3;
       if (cell.value < 0 || cell.value > 1) return -5;
       return cell.comparator !== '=' ? 2.5 : cell.decimals >= 2 ? 2 : 1;

@@ -703,7 +703,13 @@ function readHeader(line: Line): HeaderLine | null {
   const cells = line.crushed ? [] : alignedCells(text);
   if (cells.length >= 3) {
     const known = cells.filter((cell) => isKnownHeader(headerKey(cell.text)) || INCOMPLETE_HEADERS.has(headerKey(cell.text))).length;
-    if (known >= 2 && known >= cells.length - 1) {
+    // Wide gaps also set apart names no vocabulary knows, groups' names before a test's columns ("Group A M (SD)
+    // Group B M (SD)   t (58)   p"): a header when it names a test statistic and its p, and knows most names.
+    const roles = cells.map((cell) => classifyHeader(cell.text).role);
+    const namesTest = roles.includes('statistic') && roles.includes('p');
+    // (The first cell names the label column in any words: "Characteristic".)
+    const unknownAfterFirst = cells.slice(1).filter((cell) => !isKnownHeader(headerKey(cell.text)) && !INCOMPLETE_HEADERS.has(headerKey(cell.text))).length;
+    if (known >= 2 && (known >= cells.length - 1 || (namesTest && unknownAfterFirst <= known))) {
       const first = cells[0]!;
       const labelKnown = classifyHeader(first.text).role === 'label' || !isKnownHeader(headerKey(first.text));
       const columns = labelKnown ? cells : [{ text: '', start: 0, end: 0 }, ...cells];
@@ -732,6 +738,8 @@ function readHeader(line: Line): HeaderLine | null {
   columns.push(labelEnd > 0 ? join(text, tokens[0]!, tokens[labelEnd - 1]!) : { text: '', start: 0, end: 0 });
   let named = 0;
   let unknown = 0;
+  /** The column an unknown run of words was pushed as, while it is the last one. */
+  let unknownRun = -1;
   let namesTest = false;
   while (index < tokens.length) {
     const length = headerPhraseLength(tokens, index);
@@ -758,6 +766,7 @@ function readHeader(line: Line): HeaderLine | null {
         unknown += end - index;
       } else {
         columns.push(join(text, tokens[index]!, tokens[end - 1]!));
+        unknownRun = columns.length - 1;
         unknown++;
       }
       index = end;
@@ -766,8 +775,17 @@ function readHeader(line: Line): HeaderLine | null {
     const phrase = join(text, tokens[index]!, tokens[index + length - 1]!);
     const role = classifyHeader(phrase.text).role;
     if (role === 'statistic' || role === 'p') namesTest = true;
-    columns.push(phrase);
     index += length;
+    // A group's name before what its column holds ("Group A M (SD)", "Men n (%)") is one column's name.
+    const previous = columns[columns.length - 1];
+    if (role === 'descriptive' && columns.length > 1 && previous !== undefined && unknownRun === columns.length - 1) {
+      columns[columns.length - 1] = { text: text.slice(previous.start, phrase.end), start: previous.start, end: phrase.end };
+      unknownRun = -1;
+      unknown--;
+      named++;
+      continue;
+    }
+    columns.push(phrase);
     named++;
   }
   if (unknown === 0) return named >= 2 ? { columns, aligned: false, tabbed: false } : null;
