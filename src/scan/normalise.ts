@@ -302,6 +302,19 @@ function isLineEndHyphen(text: string, at: number): boolean {
   return text.charCodeAt(cursor) === 10;
 }
 
+/** Whether the "¼" at `at` stands where an "=" would: after a word or bracket (and a space), before a number. */
+function symbolFontEquals(text: string, at: number): boolean {
+  let after = at + 1;
+  if (text.charCodeAt(after) === 32) after++;
+  const next = text.charCodeAt(after);
+  const number = isDigitAt(text, after) || ((next === 46 || next === 45 || next === 0x2212) && isDigitAt(text, after + 1));
+  let before = at - 1;
+  if (text.charCodeAt(before) === 32) before--;
+  const previous = text.charCodeAt(before);
+  const word = (previous >= 65 && previous <= 90) || (previous >= 97 && previous <= 122) || previous === 41 || previous === 93 || (previous >= 48 && previous <= 57) || previous > 0x036f;
+  return number && word && before >= 0;
+}
+
 /** Rewrites the character(s) found at `at`; returns the original offset up to which input is consumed. */
 function rewriteAt(original: string, at: number, builder: NormalisationBuilder): number {
   const code = original.charCodeAt(at);
@@ -345,6 +358,13 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
       return at + tag[0].length;
     }
     builder.copy(at, at + 1);
+    return at + 1;
+  }
+
+  if (code === 0x00bc && symbolFontEquals(original, at)) {
+    // "p ¼ 0.03", "F(1, 40) ¼ 5.20": a symbol font's "=" that PDF text extraction gives as "¼" (as it gives "<"
+    // as "b"), read as "=" only between a statistic, a p or a bracket and a number.
+    builder.replace(at, 1, '=');
     return at + 1;
   }
 

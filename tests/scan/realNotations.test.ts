@@ -143,6 +143,12 @@ describe('p-values damaged by text extraction', () => {
     expect(onlyResult('The difference was t(28) = 2.47, p b elsewhere.').p).toBeNull();
   });
 
+  it('reads the "=" a symbol font gives as "¼" ("F(1, 40) ¼ 5.20, p ¼ 0.028"), and no "¼" that is a quarter', () => {
+    const result = onlyResult('The effect was F(1, 40) \u00bc 5.20, p \u00bc 0.028, as expected.');
+    expect([result.value?.value, result.df.map((df) => df.value), result.p?.comparator, result.p?.value.value]).toEqual([5.2, [1, 40], '=', 0.028]);
+    expect(onlyResult('About \u00bc of them said so; t(28) = 2.47, p = .020.').value?.value).toBe(2.47);
+  });
+
   it('reads a minus sign set apart from its number', () => {
     expect(onlyResult('The difference was t(28) = \u2212 0.47, p = .64.').value?.value).toBe(-0.47);
   });
