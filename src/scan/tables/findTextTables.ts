@@ -716,7 +716,7 @@ function readHeader(line: Line): HeaderLine | null {
       return { columns, aligned: true, tabbed: false };
     }
   }
-  const tokens = tokenize(text);
+  const tokens = withGroupSizes(text, tokenize(text));
   if (tokens.length < 2) return null;
   // A crushed header names at least two columns; prose rarely has two words that could begin a name.
   if (tokens.filter((token) => couldStartHeader(token.text)).length < 2) return null;
@@ -833,6 +833,22 @@ function headerPhraseLength(tokens: Piece[], index: number): number {
   const length = knownPhraseLength(tokens, index);
   const dfFirst = length === 2 && /^d\.?f\.?$/i.test(tokens[index]!.text) && /^d\.?f\.?$/i.test(tokens[index + 2]?.text ?? '');
   return dfFirst && knownPhraseLength(tokens, index + 1) === 2 ? 1 : length;
+}
+
+/** "n = 30" after a group's name in a header ("Group A n = 30"): one token, part of the name, not an "n" column. */
+function withGroupSizes(text: string, tokens: Piece[]): Piece[] {
+  const merged: Piece[] = [];
+  for (let index = 0; index < tokens.length; index++) {
+    const token = tokens[index]!;
+    const next = tokens[index + 1];
+    if (/^[nN]$/.test(token.text) && next !== undefined && /^= ?\d{1,6}$/.test(next.text) && merged.length > 0) {
+      merged.push({ text: text.slice(token.start, next.end), start: token.start, end: next.end });
+      index++;
+      continue;
+    }
+    merged.push(token);
+  }
+  return merged;
 }
 
 /** Words in the longest known header phrase starting at `index` (0 if none). */

@@ -179,6 +179,14 @@ const SHAPES: Record<string, Shape> = {
     ],
     tests: ['F(2, 40) = 3.50', 'F(2, 40) = 8.57'],
   },
+  'chi-square tests under groups whose sizes the header gives as "n = 30"': {
+    header: ['Variable', 'Group A n = 30', 'Group B n = 30', 'χ2 (1)', 'p'],
+    rows: [
+      ['Female', '18 (60.0)', '12 (40.0)', '2.40', '.121'],
+      ['Smoker', '5 (16.7)', '10 (33.3)', '2.22', '.136'],
+    ],
+    tests: ['chi2(1) = 2.40', 'chi2(1) = 2.22'],
+  },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
