@@ -963,7 +963,9 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     // Rows with pipes or tabs are read by the pipe and tab readers.
     if (/[|\t]/.test(line.text)) return null;
     const tokens = tokenize(line.text);
-    if (line.text.length > MAX_ROW_LENGTH || tokens.some((token) => isValueToken(token.text) && /\d/.test(token.text))) break;
+    // (A label and a dash alone is the matrix's first row, its diagonal: "Anxiety —".)
+    const diagonalOnly = tokens.length >= 2 && /^[-\u2013\u2014\u2212]$/.test(tokens[tokens.length - 1]!.text);
+    if (line.text.length > MAX_ROW_LENGTH || diagonalOnly || tokens.some((token) => isValueToken(token.text) && /\d/.test(token.text))) break;
     // A header with known column names ("r (P value)", "M SD r p") is read by the other readers.
     if (readHeader(line) !== null) return null;
     headers.push(tokens.map((token) => token.text));

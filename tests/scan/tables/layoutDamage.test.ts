@@ -75,3 +75,22 @@ describe('an ANOVA table whose layout a copy damaged', () => {
     expect(testsRead(text)).toEqual([]);
   });
 });
+
+describe('a correlation matrix named by its variables, a dash on its diagonal', () => {
+  // Common practice: "—" on the diagonal, the lower triangle filled, stars defined in the note; df = N − 2 from the title's N.
+  const variables = ['Anxiety', 'Depression', 'Stress', 'Sleep quality'];
+  const lower = [[], ['.45**'], ['.38**', '.52**'], ['−.21*', '−.30**', '−.12']];
+  const rows = [['', ...variables], ...variables.map((name, index) => [name, ...lower[index]!, '—', ...new Array<string>(3 - index).fill('')])];
+  it.each(RENDERINGS)('%s', (rendering) => {
+    const body = rendering === 'aligned' ? padded(rows) : rows.map((row) => line(row, rendering)).join('\n');
+    const text = `Table 2. Correlations among the study variables (N = 120)\n${body}\nNote. *p < .05. **p < .01.\n\nNext.\n`;
+    const read = scanDocument(plainTextDocument('matrix.txt', 'text', text)).results.map((result) => `r(${result.df.map((df) => df.text).join(', ')}) = ${result.value?.text}`);
+    expect(read).toEqual(['r(118) = .45', 'r(118) = .38', 'r(118) = .52', 'r(118) = -.21', 'r(118) = -.30', 'r(118) = -.12']);
+  });
+});
+
+/** Columns padded to their widest cell and three spaces, as a PDF's layout copy sets them. */
+function padded(rows: string[][]): string {
+  const widths = rows[0]!.map((_, column) => Math.max(...rows.map((row) => (row[column] ?? '').length)) + 3);
+  return rows.map((row) => row.map((cell, column) => cell.padEnd(widths[column]!)).join('').trimEnd()).join('\n');
+}
