@@ -891,7 +891,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   if (labelNumbers) return null;
   // (A band of a variable as its label, ">70" or "<1000", is not a comparison.)
   const band = /^[<>\u2264\u2265] ?\d{1,6}$/.test(label.text);
-  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || (/[=<>]/.test(label.text) && !band)) return null;
+  // (A label may state its df or size in brackets: "Group (df = 2, 57)", "Women (n = 30)".)
+  const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, ''));
+  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || (comparison && !band)) return null;
   return { label, values };
 }
 

@@ -1914,8 +1914,11 @@ function degreesOfFreedom(kind: StatisticKind, sources: DfSources): ReportedNumb
   return df === null ? null : [stripOffsets(df)];
 }
 
-/** A bracketed df written after a statistic symbol in a row label: "effect on recall, F(1, 170)". */
-const LABEL_DF = /(?:^|[^a-z])(?:f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)/i;
+/**
+ * A bracketed df written after a statistic symbol in a row label: "effect on recall, F(1, 170)", or named as df:
+ * "Group (df = 2, 57)".
+ */
+const LABEL_DF = /(?:(?:^|[^a-z])(?:f|t|r|chi2|chi-square|x2)\s*\(\s*(?:df\s*=\s*)?|\(\s*(?:df|d\.f\.)\s*=\s*)(\d+(?:\.\d+)?)\s*(?:[,;/]\s*(\d+(?:\.\d+)?)\s*)?\)/i;
 
 function readLabelDf(label: string): ReportedNumber[] {
   if (label.length > 200) return [];

@@ -94,3 +94,28 @@ function padded(rows: string[][]): string {
   const widths = rows[0]!.map((_, column) => Math.max(...rows.map((row) => (row[column] ?? '').length)) + 3);
   return rows.map((row) => row.map((cell, column) => cell.padEnd(widths[column]!)).join('').trimEnd()).join('\n');
 }
+
+describe('two outcomes side by side, each row stating its df in its label', () => {
+  // Common practice: "Group (df = 2, 57)" as the row label, an outcome's name over each block of F, p and ηp².
+  const rows = [
+    ['', 'Anxiety', '', '', 'Depression', '', ''],
+    ['Effect', 'F', 'p', 'ηp2', 'F', 'p', 'ηp2'],
+    ['Group (df = 2, 57)', '4.21', '.020', '.13', '1.05', '.357', '.04'],
+    ['Time (df = 1, 57)', '6.80', '.012', '.11', '0.40', '.530', '.01'],
+  ];
+  it.each([...RENDERINGS, 'pipe' as const])('%s', (rendering) => {
+    const body =
+      rendering === 'pipe'
+        ? [`| ${rows[0]!.join(' | ')} |`, '|---|---|---|---|---|---|---|', ...rows.slice(1).map((row) => `| ${row.join(' | ')} |`)].join('\n')
+        : rendering === 'aligned'
+          ? padded(rows)
+          : rows.map((row) => line(row, rendering)).join('\n');
+    // F(2, 57) = 4.21 gives p = .020, 1.05 gives .357; F(1, 57) = 6.80 gives .012, 0.40 gives .530 (SciPy 1.10.1 scipy.stats.f.sf).
+    expect(testsRead(`Table 3. ANOVA results for both outcomes\n${body}\n\nNext.\n`)).toEqual([
+      'F(2, 57) = 4.21 p = .020',
+      'F(2, 57) = 1.05 p = .357',
+      'F(1, 57) = 6.80 p = .012',
+      'F(1, 57) = 0.40 p = .530',
+    ]);
+  });
+});
