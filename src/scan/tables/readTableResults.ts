@@ -291,9 +291,13 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const kind = STATISTIC_PRIORITY.find((candidate) => roles.some((role) => role.role === 'statistic' && role.kind === candidate));
   const bodyRows = rows.length - headerCount;
   let unplaced = 0;
+  // Whether the row before was an error term's: a row named only by a correction after it is one too.
+  let afterErrorTerm = false;
   const virtualRows = rows.slice(headerCount).flatMap((row, offset) => {
-    const pieces = virtualRowsOf(row, located[headerCount + offset] ?? null, schema);
+    const pieces = virtualRowsOf(row, located[headerCount + offset] ?? null, schema, afterErrorTerm);
     unplaced += pieces.unplaced;
+    const lastLabel = pieces.rows[pieces.rows.length - 1]?.cells[0] ?? '';
+    afterErrorTerm = ERROR_LABEL.test(headerKey(lastLabel)) || (afterErrorTerm && correctionOnly(lastLabel));
     return pieces.rows;
   });
   const completions: RowCompletion[] = [];
@@ -351,7 +355,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const noteN = readNoteSampleSize(noteText);
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
-  const nearestErrorRow = nearestErrorRows(errorRows);
+  continueCorrectedErrorRows(virtualRows, errorRows, segments, separator);
+  const nearestErrorRow = pairCorrections(virtualRows, errorRows, nearestErrorRows(errorRows));
   const results: ReportedResult[] = [];
   let rowsWithStatistic = 0;
   const rowOutcomes: { read: boolean; statisticLeft: boolean; hasStatistic: boolean; missingDf: boolean; readWithoutDf: boolean }[] = [];
@@ -989,7 +994,7 @@ interface VirtualRow {
  * positions and the piece sits where the header says, otherwise by fit
  * (align.ts).
  */
-function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | null, schema: Schema): { rows: VirtualRow[]; unplaced: number } {
+function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | null, schema: Schema, afterErrorTerm = false): { rows: VirtualRow[]; unplaced: number } {
   const split = splitValueAndInterval(written, writtenAt, schema);
   const cellsAt = split.cellsAt;
   let row = split.row;
@@ -1046,7 +1051,7 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
       const toPlace = values.map((cell, offset) => ({ text: cell, shape: shapes[piece.valuesFrom + offset]! }));
       // An error term's row prints no test: its numbers go under the SS, df and MS columns only ("Error(Time)
       // 143.20 46.98 3.05", where 3.05 could otherwise be an F).
-      const errorTerm = ERROR_LABEL.test(headerKey(cells[0]));
+      const errorTerm = ERROR_LABEL.test(headerKey(cells[0])) || (afterErrorTerm && correctionOnly(cells[0]));
       const rowColumns = errorTerm ? valueColumns.filter(({ role }) => role.role !== 'statistic' && role.role !== 'p' && role.role !== 'effect' && role.role !== 'result') : valueColumns;
       const valueRoles = rowColumns.map(({ role }) => role);
       // An error term's row that prints only its df ("Within groups 77" under SS, df, MS, F, p): a lone whole number
@@ -1408,6 +1413,51 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
 }
 
 /** For each row, the nearest error row below it; above it only when the table has a single error row. */
+/** A sphericity correction's name in a row label, as statistics programs print each effect's and error's rows. */
+const CORRECTION_LABEL = /sphericity assumed|greenhouse[- ]?geisser|huynh[- ]?feldt|lower[- ]?bound/i;
+
+/** A label that names only a correction ("Greenhouse-Geisser"), as the rows after an effect's or error's first do. */
+function correctionOnly(label: string): boolean {
+  return correctionOf(label) !== null && label.replace(CORRECTION_LABEL, '').trim() === '';
+}
+
+function correctionOf(label: string): string | null {
+  const match = CORRECTION_LABEL.exec(label);
+  return match === null ? null : match[0].toLowerCase().replace(/[- ]/g, '');
+}
+
+/**
+ * An error term printed once per correction ("Error(Time) | Sphericity Assumed | …" then rows named only
+ * "Greenhouse-Geisser", "Huynh-Feldt", "Lower-bound"): the rows after the first, named by their correction
+ * alone and printing no test, are error rows too, whatever their df (46.980 after Greenhouse-Geisser).
+ */
+function continueCorrectedErrorRows(rows: readonly VirtualRow[], errorRows: boolean[], segments: Segment[], separator: DecimalSeparator): void {
+  const columns = segments[0]!.columns;
+  for (let index = 1; index < rows.length; index++) {
+    if (!errorRows[index - 1] || errorRows[index]) continue;
+    const label = (rows[index]!.cells[0] ?? '').trim();
+    const correction = correctionOf(label);
+    if (correction === null || !correctionOnly(label) || correctionOf(rows[index - 1]!.cells[0] ?? '') === null) continue;
+    const hasStatistic = readCell(rows[index]!.cells[columns.get('statistic')!] ?? '', separator).kind === 'number';
+    if (!hasStatistic) errorRows[index] = true;
+  }
+}
+
+/**
+ * Each corrected row of an effect is tested against the error row of the same correction below it
+ * ("Time Greenhouse-Geisser" against "Error(Time) Greenhouse-Geisser"), not the nearest error row.
+ */
+function pairCorrections(rows: readonly VirtualRow[], errorRows: readonly boolean[], nearest: (number | null)[]): (number | null)[] {
+  return nearest.map((errorIndex, index) => {
+    const correction = correctionOf(rows[index]!.cells[0] ?? '');
+    if (correction === null || errorRows[index] || errorIndex === null) return errorIndex;
+    for (let below = errorIndex; below < rows.length && errorRows[below]; below++) {
+      if (correctionOf(rows[below]!.cells[0] ?? '') === correction) return below;
+    }
+    return errorIndex;
+  });
+}
+
 function nearestErrorRows(errorRows: readonly boolean[]): (number | null)[] {
   // Worked out for every row in one pass from the bottom: a table of many rows stays linear.
   const all = errorRows.flatMap((isError, at) => (isError ? [at] : []));

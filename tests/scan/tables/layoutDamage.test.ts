@@ -119,3 +119,27 @@ describe('two outcomes side by side, each row stating its df in its label', () =
     ]);
   });
 });
+
+describe("a program's within-subjects table in padded columns", () => {
+  it('pairs each correction row of the effect with the same correction row of its error term', () => {
+    // F(2, 58) = 6.02 gives p = .0042, F(1.62, 46.98) = 6.02 gives .0076, F(1.70, 49.30) = 6.02 gives .0067,
+    // F(1, 29) = 6.02 gives .020 (SciPy 1.10.1 scipy.stats.f.sf).
+    const rows = [
+      ['Source', '', 'Type III Sum of Squares', 'df', 'Mean Square', 'F', 'Sig.', 'Partial Eta Squared'],
+      ['Time', 'Sphericity Assumed', '24.300', '2', '12.150', '6.020', '.004', '.172'],
+      ['', 'Greenhouse-Geisser', '24.300', '1.620', '15.000', '6.020', '.008', '.172'],
+      ['', 'Huynh-Feldt', '24.300', '1.700', '14.294', '6.020', '.007', '.172'],
+      ['', 'Lower-bound', '24.300', '1.000', '24.300', '6.020', '.020', '.172'],
+      ['Error(Time)', 'Sphericity Assumed', '117.060', '58', '2.018', '', '', ''],
+      ['', 'Greenhouse-Geisser', '117.060', '46.980', '2.492', '', '', ''],
+      ['', 'Huynh-Feldt', '117.060', '49.300', '2.374', '', '', ''],
+      ['', 'Lower-bound', '117.060', '29.000', '4.037', '', '', ''],
+    ];
+    expect(testsRead(`Table 4. Tests of Within-Subjects Effects\n${padded(rows)}\n\nNext.\n`)).toEqual([
+      'F(2, 58) = 6.020 p = .004',
+      'F(1.620, 46.980) = 6.020 p = .008',
+      'F(1.700, 49.300) = 6.020 p = .007',
+      'F(1.000, 29.000) = 6.020 p = .020',
+    ]);
+  });
+});

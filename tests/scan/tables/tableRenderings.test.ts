@@ -11,7 +11,8 @@
  * gives p = .0091, F(1, 57) = 3.05 gives .086, F(2, 57) = 3.81 gives .028,
  * F(1.62, 46.98) = 6.02 gives .0075, t(58) = 2.41 gives .019, t(58) = 0.73
  * gives .468, t(58) = 2.25 gives .028, t(58) = 0.59 gives .557, χ²(1) = 2.40 gives .121, χ²(1) = 2.22
- * gives .136, F(2, 40) = 3.50 gives .040, F(2, 40) = 8.57 gives .0008, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
+ * gives .136, F(2, 58) = 6.02 gives .0042, F(1.62, 46.98) = 6.02 gives .0076, F(1.70,
+ * 49.30) = 6.02 gives .0067, F(1, 29) = 6.02 gives .020, F(2, 40) = 3.50 gives .040, F(2, 40) = 8.57 gives .0008, χ²(1) = 2.78 gives .096, χ²(2) = 1.53
  * gives .465, r(58) = .30 gives .020, r(58) = −.12 gives .361.
  */
 import { describe, expect, it } from 'vitest';
@@ -186,6 +187,24 @@ const SHAPES: Record<string, Shape> = {
       ['Smoker', '5 (16.7)', '10 (33.3)', '2.22', '.136'],
     ],
     tests: ['chi2(1) = 2.40', 'chi2(1) = 2.22'],
+  },
+  // Common practice: a program's within-subjects table prints each effect and its error term once per correction.
+  'within-subjects effects as a program prints them, four correction rows for the effect and for its error': {
+    header: ['Source', '', 'Type III Sum of Squares', 'df', 'Mean Square', 'F', 'Sig.', 'Partial Eta Squared'],
+    rows: [
+      ['Time', 'Sphericity Assumed', '24.300', '2', '12.150', '6.020', '.004', '.172'],
+      ['', 'Greenhouse-Geisser', '24.300', '1.620', '15.000', '6.020', '.008', '.172'],
+      ['', 'Huynh-Feldt', '24.300', '1.700', '14.294', '6.020', '.007', '.172'],
+      ['', 'Lower-bound', '24.300', '1.000', '24.300', '6.020', '.020', '.172'],
+      ['Error(Time)', 'Sphericity Assumed', '117.060', '58', '2.018', '', '', ''],
+      ['', 'Greenhouse-Geisser', '117.060', '46.980', '2.492', '', '', ''],
+      ['', 'Huynh-Feldt', '117.060', '49.300', '2.374', '', '', ''],
+      ['', 'Lower-bound', '117.060', '29.000', '4.037', '', '', ''],
+    ],
+    tests: ['F(2, 58) = 6.020', 'F(1.620, 46.980) = 6.020', 'F(1.700, 49.300) = 6.020', 'F(1.000, 29.000) = 6.020'],
+    // One cell per line, its empty cells as blank lines: only some rows are placed (none misread). Aligned: names
+    // longer than this file's 16-character columns run into the next; padded copies are read in layoutDamage.test.ts.
+    renderings: ['pipe', 'tab', 'crushed'],
   },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
