@@ -101,7 +101,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   }
 
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured).
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 11, holdout: 77 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 11, holdout: 74 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);

@@ -32,6 +32,66 @@ interface Span {
 
 /** Titled blocks that look like results tables but overlap no table found and no result read. */
 export function findUnrecognisedTables(text: string, tables: readonly DocumentTable[], results: readonly Span[]): UnreadTable[] {
+  const titled = findTitledTables(text, tables, results);
+  return [...titled, ...findUntitledTables(text, [...tables, ...titled], results)].sort((a, b) => a.start - b.start);
+}
+
+/** Cells of a header line: apart by pipes, tabs or spaces. */
+const HEADER_CELL_SPLIT = /[|\t ]+/;
+/** Names of a test statistic as a header cell gives them (after normalisation, in lower case). */
+const STATISTIC_HEADER = /^(?:f|t|z|h|r|rs|x2|chi2|\u03c72|chi-square|f-?value|t-?value|f-?ratio)$/;
+const SENTENCE_END = /[a-z]{3}[.!?]$/;
+const MAX_HEADER_CELLS = 16;
+const P_HEADER = /^(?:p|p-?value|sig\.?|pr\(>f\)|p\s?value)$/;
+
+/**
+ * Blocks without a "Table N" title that look like results tables: a short
+ * header line naming a test statistic and p, then at least MIN_ROWS_AFTER
+ * rows of numbers (with decimals), overlapping no table found or listed and
+ * at most one result read. Listed as not read, so that a table no reader
+ * recognised is never skipped without a word.
+ */
+function findUntitledTables(text: string, covered: readonly Span[], results: readonly Span[]): UnreadTable[] {
+  const unread: UnreadTable[] = [];
+  const lines: Span[] = [];
+  for (let start = 0; start <= text.length; ) {
+    let end = text.indexOf('\n', start);
+    if (end === -1) end = text.length;
+    lines.push({ start, end });
+    start = end + 1;
+  }
+  for (let index = 0; index < lines.length; index++) {
+    const header = text.slice(lines[index]!.start, lines[index]!.end);
+    if (header.length > MAX_TABLE_LINE || digitShare(header) >= HEADER_DIGIT_SHARE || !/\S/.test(header)) continue;
+    // (A sentence is not a header: "We report F and p for each test.")
+    if (SENTENCE_END.test(header.trimEnd())) continue;
+    const cells = header.trim().split(HEADER_CELL_SPLIT).map((cell) => cell.toLowerCase());
+    if (cells.length > MAX_HEADER_CELLS) continue;
+    if (!cells.some((cell) => STATISTIC_HEADER.test(cell)) || !cells.some((cell) => P_HEADER.test(cell))) continue;
+    let rows = 0;
+    let last = index;
+    for (let at = index + 1, blanks = 0; at < lines.length; at++) {
+      const row = text.slice(lines[at]!.start, lines[at]!.end);
+      if (row.trim() === '') {
+        if (++blanks > 1) break;
+        continue;
+      }
+      blanks = 0;
+      if ((row.match(/\d*[.,]\d+|\d+/g) ?? []).length < MIN_NUMBERS_PER_ROW || !/\d[.,]\d/.test(row)) break;
+      rows++;
+      last = at;
+    }
+    const block = { start: lines[index]!.start, end: lines[last]!.end };
+    const overlaps = (span: Span): boolean => span.start < block.end && block.start < span.end;
+    if (rows >= MIN_ROWS_AFTER && !covered.some(overlaps) && results.filter(overlaps).length <= MAX_STRAY_RESULTS) {
+      unread.push({ tableIndex: null, caption: null, start: block.start, end: block.end, rowsWithStatistic: rows, rowsRead: 0, reason: 'layout-not-recognised' });
+      index = last;
+    }
+  }
+  return unread;
+}
+
+function findTitledTables(text: string, tables: readonly DocumentTable[], results: readonly Span[]): UnreadTable[] {
   const unread: UnreadTable[] = [];
   let lineStart = 0;
   while (lineStart < text.length) {

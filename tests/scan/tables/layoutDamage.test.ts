@@ -143,3 +143,29 @@ describe("a program's within-subjects table in padded columns", () => {
     ]);
   });
 });
+
+describe('a results table no reader recognises, without a "Table" title', () => {
+  it('is listed as not read when a header line names a test statistic and p over rows of numbers', () => {
+    // Rows whose values ran together in an order no header explains: nothing is read, and the report says so.
+    const text = [
+      'The results were as follows.',
+      '',
+      'Outcome F p',
+      'Anxiety 12.3/4.1 14.8/4.5 2.25; 0.028; 0.13',
+      'Stress 20.1/6.0 21.0/5.8 0.59; 0.557; 0.02',
+      'Sleep 7.1/1.2 6.8/1.1 1.10; 0.276; 0.04',
+      '',
+      'The next section.',
+    ].join('\n');
+    const scan = scanDocument(plainTextDocument('untitled.txt', 'text', text));
+    expect(scan.results).toEqual([]);
+    expect(scan.tablesNotRead.map((table) => [table.reason, text.slice(table.start, table.end).split('\n')[0]])).toEqual([['layout-not-recognised', 'Outcome F p']]);
+  });
+
+  it('is not listed for prose that names F and p, nor for rows of numbers under no such header', () => {
+    const prose = 'We report F and p for each test.\nGroup sizes were 12.5 13.5 and 14.5 in 2019.\nAges were 20.1 21.3 and 22.8.\nScores were 1.5 2.5 and 3.5.\n';
+    expect(scanDocument(plainTextDocument('prose.txt', 'text', prose)).tablesNotRead).toEqual([]);
+    const numbers = 'Values by site\nSite A 12.3 4.1 14.8\nSite B 20.1 6.0 21.0\nSite C 7.1 1.2 6.8\n';
+    expect(scanDocument(plainTextDocument('numbers.txt', 'text', numbers)).tablesNotRead).toEqual([]);
+  });
+});
