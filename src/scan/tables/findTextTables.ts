@@ -159,7 +159,12 @@ function splitLines(text: string): Line[] {
 }
 
 /** A line that may hold a whole table: a test statistic's name and a number somewhere in it. */
-const NAMES_TEST = /(?:^|\s)(?:F|p|P|t|df|DF|Sig\.|\u03c72|F-value|p-value|P-value)(?=\s|$)/;
+/**
+ * Two short column names side by side ("SS df", "F p", "t df", "M SD"): what a header run holds and running text
+ * almost never does (a quick look before a line is tokenised).
+ */
+const ADJACENT_NAMES =
+  /(?:^|\s)(?:F|t|p|P|df|DF|Df|d\.f\.|SS|MS|Sig\.?|\u03c72|\u03c7\u00b2|X2|r|z|Z|M|SD|n|N|F-value|F-ratio|p-value|P-value|t-value)\s+(?:F|t|p|P|df|DF|Df|d\.f\.|SS|MS|Sig\.?|\u03c72|\u03c7\u00b2|X2|r|z|Z|M|SD|n|N|d|F-value|F-ratio|p-value|P-value|t-value|\u03b7\S{0,3}|Pr\(>F\))(?=\s|$)/;
 
 /** Known header names in a row that make a header run inside a line: enough that prose does not hold them. */
 const MIN_EMBEDDED_HEADER_NAMES = 3;
@@ -174,11 +179,16 @@ const MIN_EMBEDDED_HEADER_NAMES = 3;
  * follow. Lines that hold no such run come back whole.
  */
 function splitEmbeddedTable(line: Line): Line[] {
-  if (line.text.length < 30 || line.text.length > MAX_RUN_ON_LINE || !/\d/.test(line.text) || !NAMES_TEST.test(line.text)) return [line];
+  if (line.text.length < 30 || line.text.length > MAX_RUN_ON_LINE || !ADJACENT_NAMES.test(line.text) || !/\d/.test(line.text)) return [line];
+  // (Words apart by spaces first, a cheap look that passes over most lines of prose before they are tokenised.)
+  if (!holdsHeaderStretch(line.text.split(/[ \t]+/))) return [line];
   const tokens = tokenize(line.text);
+  const mayHoldHeader = headerStretches(tokens);
   for (let index = 0, end = 0; index < tokens.length; index = Math.max(end, index + 1)) {
     const roles: string[] = [];
     end = index;
+    // (Most words of a line of prose cannot begin a column's name: passed over without looking up phrases.)
+    if (!mayHoldHeader[index] || !couldStartHeader(tokens[index]!.text)) continue;
     for (let length = knownPhraseLength(tokens, end); length > 0; length = knownPhraseLength(tokens, end)) {
       roles.push(classifyHeader(join(line.text, tokens[end]!, tokens[end + length - 1]!).text).role);
       end += length;
@@ -197,6 +207,38 @@ function splitEmbeddedTable(line: Line): Line[] {
     return [...lead.map((part) => ({ ...part, text: part.text.trimEnd(), end: part.start + part.text.trimEnd().length })), header, rest];
   }
   return [line];
+}
+
+/** Whether some stretch of these words free of numbers and comparisons holds MIN_EMBEDDED_HEADER_NAMES words that could begin a column's name. */
+function holdsHeaderStretch(words: string[]): boolean {
+  let starts = 0;
+  for (const word of words) {
+    if (BREAKS_HEADER.test(word)) starts = 0;
+    else if (couldStartHeader(word) && ++starts >= MIN_EMBEDDED_HEADER_NAMES) return true;
+  }
+  return false;
+}
+
+/** A word no header holds: a number or a comparison. */
+const BREAKS_HEADER = /^[-\u2212]?\.?\d|[=<>\u2264\u2265]/;
+
+/**
+ * For each token, whether it lies in a stretch of the line free of numbers and comparisons that holds at least
+ * MIN_EMBEDDED_HEADER_NAMES words that could begin a column's name: a header's names stand together, where the
+ * results of running text ("F(1, 88) = 5.21, p = .025") do not. Checked before any phrase is looked up.
+ */
+function headerStretches(tokens: Piece[]): boolean[] {
+  const marks = new Array<boolean>(tokens.length).fill(false);
+  let from = 0;
+  for (let index = 0; index <= tokens.length; index++) {
+    const token = tokens[index];
+    if (token !== undefined && !BREAKS_HEADER.test(token.text)) continue;
+    let starts = 0;
+    for (let at = from; at < index && starts < MIN_EMBEDDED_HEADER_NAMES; at++) if (couldStartHeader(tokens[at]!.text)) starts++;
+    if (starts >= MIN_EMBEDDED_HEADER_NAMES) marks.fill(true, from, index);
+    from = index + 1;
+  }
+  return marks;
 }
 
 /** Where the last "Table 4" of a text begins (0 when none, or at its start). */

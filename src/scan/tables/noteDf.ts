@@ -64,6 +64,9 @@ const SIDES_AFTER_DF = new RegExp(
 
 const number = (text: string): ReportedNumber => parseReportedNumber(text)!;
 
+/** Words without which a note states no df (DF_WORD's, loosely). */
+const MAY_STATE_DF = /df|d\.\s?f|degree|freedom|\bgl\b|g\.l\.|\bddl\b|d\.d\.l|\bfg\b|grados|graus|degr|freiheit/i;
+
 /** Whether a note states no df at all. */
 export function statesNoDf(noteDf: NoteDf): boolean {
   return noteDf.pair.length === 0 && noteDf.single === null && noteDf.error === null;
@@ -76,8 +79,10 @@ export function statesNoDf(noteDf: NoteDf): boolean {
  * that state df ("df = 2, 57", "2 and 57 degrees of freedom").
  */
 export function readNoteDf(note: string, statementsOnly = false): NoteDf {
-  const text = normaliseText(note.slice(0, 2000)).text;
   const none: NoteDf = { pair: [], single: null, error: null };
+  // (Most notes and the lines around most tables state no df: passed over before the patterns are tried.)
+  if (!MAY_STATE_DF.test(note) && (statementsOnly || !note.includes('F'))) return none;
+  const text = normaliseText(note.slice(0, 2000)).text;
   const sides = SIDES_AFTER_DF.exec(text) ?? SIDES_THEN_DF.exec(text);
   if (sides) return { ...none, pair: [number(sides[1]!), number(sides[2]!)], error: number(sides[2]!) };
   const effectMatch = EFFECT_DF.exec(text);

@@ -40,6 +40,8 @@ export function findUnrecognisedTables(text: string, tables: readonly DocumentTa
 const HEADER_CELL_SPLIT = /[|\t ]+/;
 /** Names of a test statistic as a header cell gives them (after normalisation, in lower case). */
 const STATISTIC_HEADER = /^(?:f|t|z|h|r|rs|x2|chi2|\u03c72|chi-square|f-?value|t-?value|f-?ratio)$/;
+/** A p's name standing as a word: the quick look before a line is split into cells. */
+const NAMES_P = /(?:^|[\s|])(?:p|P|[Ss]ig|SIG|p-value|P-value|Pr)(?=[\s|.(]|$)/;
 const SENTENCE_END = /[a-z]{3}[.!?]$/;
 const MAX_HEADER_CELLS = 16;
 const P_HEADER = /^(?:p|p-?value|sig\.?|pr\(>f\)|p\s?value)$/;
@@ -61,8 +63,10 @@ function findUntitledTables(text: string, covered: readonly Span[], results: rea
     start = end + 1;
   }
   for (let index = 0; index < lines.length; index++) {
+    const length = lines[index]!.end - lines[index]!.start;
+    if (length === 0 || length > MAX_TABLE_LINE) continue;
     const header = text.slice(lines[index]!.start, lines[index]!.end);
-    if (header.length > MAX_TABLE_LINE || digitShare(header) >= HEADER_DIGIT_SHARE || !/\S/.test(header)) continue;
+    if (!NAMES_P.test(header) || digitShare(header) >= HEADER_DIGIT_SHARE) continue;
     // (A sentence is not a header: "We report F and p for each test.")
     if (SENTENCE_END.test(header.trimEnd())) continue;
     const cells = header.trim().split(HEADER_CELL_SPLIT).map((cell) => cell.toLowerCase());
