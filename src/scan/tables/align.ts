@@ -48,11 +48,11 @@ export type CellShape =
   | { shape: 'text' };
 
 /**
- * Two df: "2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second, "2.67, 58,83", is read as its
- * point), in brackets, "(2, 180)" (each at least 1: "(0.05, 0.52)" is an interval), or with a slash, "2/180"
+ * Two df: "2, 180", "2 and 180", "df = 2, 180", corrected ones "2.18, 47.92" (a decimal comma in the second,
+ * "2.67, 58,83", is read as its point), in brackets, "(2, 180)" (each at least 1: "(0.05, 0.52)" is an interval), or with a slash, "2/180"
  * (whole first df).
  */
-const PAIR = /^(\d{1,5}(?:\.\d+)?)\s*[,;]\s*(\d{1,6}(?:[.,]\d+)?)$/;
+const PAIR = /^(?:df ?= ?)?(\d{1,5}(?:\.\d+)?)(?:\s*[,;]\s*| and )(\d{1,6}(?:[.,]\d+)?)$/;
 const BRACKETED_PAIR = /^[([]\s*([1-9]\d{0,4}(?:\.\d+)?)\s*[,;/]\s*([1-9]\d{0,5}(?:\.\d+)?)\s*[)\]]$/;
 const SLASH_PAIR = /^(\d{1,5}) ?\/ ?(\d{1,6}(?:\.\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([]\s*(?:(<=|>=|<|>|\u2264|\u2265)\s*)?([-\u2212]?[\d.,]+)[a-h]?\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;

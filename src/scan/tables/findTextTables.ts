@@ -923,6 +923,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   // Footnote marks standing alone among the values ("<.001 c 1.21", "9.6 <0.0001 *") belong to the run of values.
   while (first > 0 && (isValueToken(tokens[first - 1]!.text) || (isMarkToken(tokens[first - 1]!.text) && first >= 2 && isValueToken(tokens[first - 2]!.text)))) first--;
   if (first === 0 && tokens.length > 0) first = 1; // all numbers: the first is the label ("1", "2005")
+  // A label that ends with a number and a conjunction goes on into the first value ("Grades 1 and 2", "Group 2
+  // and 57"): that value is the label's, not the row's first cell.
+  while (first > 1 && first < tokens.length && LABEL_CONJUNCTION.test(tokens[first - 1]!.text) && /^\d{1,6}$/.test(tokens[first - 2]!.text)) first++;
   const values = tokens.slice(first);
   const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
   // The first row of a numbered matrix's lower triangle holds only dashes ("1. Anxiety – – –"): still a row.
@@ -938,6 +941,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || (comparison && !band)) return null;
   return { label, values };
 }
+
+/** Between two whole numbers in a label: "Grades 1 and 2", "Group 2 and 57", "Ages 18 to 25". */
+const LABEL_CONJUNCTION = /^(?:and|or|to|&|vs\.?|versus)$/;
 
 /** Most blank lines between two rows of one table. */
 const MAX_BLANK_LINES_IN_TABLE = 2;

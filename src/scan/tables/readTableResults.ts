@@ -785,8 +785,27 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
     }
   }
   // (A column of its own: "ηp2 [95% CI]" names an effect size printed with its interval in one cell.)
+  if (positional) splitSpanningDf(roles, named, body);
   const intervals = (headerRows[headerRows.length - 1] ?? []).map((cell) => INTERVAL_HEADER.test(cell) && classifyHeader(cell).role === 'descriptive');
   return { roles, titles, positional, named, ...(intervals.some(Boolean) ? { intervals } : {}) };
+}
+
+/**
+ * A "df" header spanning two columns (a web page's colspan lost in the copy: "df |  | F" over "2 | 57 | 4.21"):
+ * when the column after the df column has no name and holds whole numbers at least as large as the df column's in
+ * every row, the two are the numerator and denominator df.
+ */
+function splitSpanningDf(roles: ColumnRole[], named: boolean[], body: string[][]): void {
+  for (let column = 1; column + 1 < roles.length; column++) {
+    if (roles[column]!.role !== 'df' || roles[column + 1]!.role !== 'unknown' || named[column + 1]) continue;
+    const pairs = body.map((row) => [(row[column] ?? '').trim(), (row[column + 1] ?? '').trim()] as const).filter(([first, second]) => first !== '' || second !== '');
+    const whole = (cell: string): number | null => (/^\d{1,6}$/.test(cell) ? Number(cell) : null);
+    const fits = pairs.length >= 2 && pairs.every(([first, second]) => whole(first) !== null && whole(second) !== null && whole(second)! >= whole(first)!);
+    if (!fits) continue;
+    roles[column] = { role: 'df1' };
+    roles[column + 1] = { role: 'df2' };
+    named[column + 1] = true;
+  }
 }
 
 /** A header naming a column of intervals: "95% CI", "CI", "confidence interval", "[95% CI]". */
@@ -1858,9 +1877,9 @@ function statisticWithDfAndP(
   return { statistic, df: df as NumberCell[], p };
 }
 
-const PAIR_CELL = /^([([])? {0,3}(\d{1,5}(?:\.\d+)?) {0,3}[,;/] {0,3}(\d{1,6}(?:[.,]\d+)?) {0,3}([)\]])?$/;
+const PAIR_CELL = /^(?:df ?= ?)?([([])? {0,3}(\d{1,5}(?:\.\d+)?)(?: {0,3}[,;/] {0,3}| and )(\d{1,6}(?:[.,]\d+)?) {0,3}([)\]])?$/;
 
-/** Two df in one cell, "2, 180", "2/180", "(2, 180)", with the offsets of each. */
+/** Two df in one cell, "2, 180", "2/180", "(2, 180)", "2 and 180", "df = 2, 180", with the offsets of each. */
 function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): [NumberCell, NumberCell] | null {
   if (column === undefined || separator === ',') return null;
   const cell = row[column] ?? '';

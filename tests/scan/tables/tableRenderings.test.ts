@@ -206,6 +206,30 @@ const SHAPES: Record<string, Shape> = {
     // longer than this file's 16-character columns run into the next; padded copies are read in layoutDamage.test.ts.
     renderings: ['pipe', 'tab', 'crushed'],
   },
+  ...Object.fromEntries(
+    ['2 and 57', 'df = 2, 57'].map((written) => [
+      `F tests with both df in one cell, "${written}"`,
+      {
+        header: ['Measure', 'df', 'F', 'p'],
+        rows: [
+          ['Anxiety', written, '5.10', '.009'],
+          ['Mood', written.replace('2', '1'), '3.05', '.086'],
+        ],
+        tests: ['F(2, 57) = 5.10', 'F(1, 57) = 3.05'],
+        // Single spaces or padding leave the pair's words among the row's values (read without df, never misread).
+        renderings: ['pipe', 'tab', 'cell-per-line'],
+      } satisfies Shape,
+    ]),
+  ),
+  'a "df" header over two columns, numerator and denominator (a spanning cell lost in the copy)': {
+    header: ['Effect', 'df', '', 'F', 'p'],
+    rows: [
+      ['Group', '2', '57', '5.10', '.009'],
+      ['Time', '1', '57', '3.05', '.086'],
+    ],
+    tests: ['F(2, 57) = 5.10', 'F(1, 57) = 3.05'],
+    renderings: ['pipe', 'tab'],
+  },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
@@ -226,6 +250,11 @@ describe('common results-table shapes in five renderings, with and without a tit
       });
     }
   }
+
+  it('reads no F with the second df of "2 and 57" taken for its only df (single spaces)', () => {
+    const text = ['Table 3. Results', '', 'Effect df F p', 'Group 2 and 57 5.10 .009', 'Time 1 and 57 3.05 .086', ''].join('\n');
+    expect(testsRead(text).filter((test) => /^F\(\d+\)/.test(test))).toEqual([]);
+  });
 
   it('reads no correlation from an r written beside another test of its row (its effect size, diva-01)', () => {
     // "U = 349c | .211 | r = 0.18": r = z/√N is the Mann-Whitney test's effect size, not a correlation test.
