@@ -24,6 +24,8 @@ import type { Comparator, EffectKind, ReportedEffect, ReportedInterval, Reported
 const EFFECT_NAMES: ReadonlyMap<string, EffectKind> = new Map<string, EffectKind>([
   ...names('partial-eta-squared', [
     'etap2', 'eta2p', 'etap', 'partialeta2', 'partialetasquared', 'partialeta', 'partialetasq', 'etasquaredp', 'etapsquared',
+    // A symbol font's η as some PDFs give it ("g2 p", "gp2"), and η typed as an n ("np2").
+    'gp2', 'g2p', 'np2',
   ]),
   ...names('eta-squared', ['eta2', 'etasquared', 'etasq']),
   ...names('generalized-eta-squared', [

@@ -302,12 +302,24 @@ function isLineEndHyphen(text: string, at: number): boolean {
   return text.charCodeAt(cursor) === 10;
 }
 
+/**
+ * Whether the "À" at `at` stands where a minus sign would: right before a number ("À2.28", "À.34"; the letter
+ * never touches a digit in words), after "=", "¼", a bracket, a separator or the start of a cell or line.
+ */
+function symbolFontMinus(text: string, at: number): boolean {
+  const next = text.charCodeAt(at + 1);
+  if (!isDigitAt(text, at + 1) && !(next === 46 && isDigitAt(text, at + 2))) return false;
+  const previous = at === 0 ? 10 : text.charCodeAt(at - 1);
+  return previous === 32 || previous === 9 || previous === 10 || previous === 13 || previous === 124 || previous === 61 || previous === 0x00bc || previous === 40 || previous === 91 || previous === 59 || previous === 44;
+}
+
 /** Whether the "¼" at `at` stands where an "=" would: after a word or bracket (and a space), before a number. */
 function symbolFontEquals(text: string, at: number): boolean {
   let after = at + 1;
   if (text.charCodeAt(after) === 32) after++;
   const next = text.charCodeAt(after);
-  const number = isDigitAt(text, after) || ((next === 46 || next === 45 || next === 0x2212) && isDigitAt(text, after + 1));
+  // (A number after it may start with a minus sign, or with the "À" the same fonts give for one.)
+  const number = isDigitAt(text, after) || ((next === 46 || next === 45 || next === 0x2212 || next === 0x00c0) && isDigitAt(text, after + 1));
   let before = at - 1;
   if (text.charCodeAt(before) === 32) before--;
   const previous = text.charCodeAt(before);
@@ -358,6 +370,13 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
       return at + tag[0].length;
     }
     builder.copy(at, at + 1);
+    return at + 1;
+  }
+
+  if (code === 0x00c0 && symbolFontMinus(original, at)) {
+    // "t(40) = À2.28": a symbol font's minus sign that PDF text extraction gives as "À", read as a minus only
+    // right after an "=" (or its "¼") or a bracket and before a number.
+    builder.replace(at, 1, '-');
     return at + 1;
   }
 

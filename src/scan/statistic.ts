@@ -84,6 +84,8 @@ function readSymbol(text: string, position: number): SymbolRead | null {
       return chiSquareLetterX(text, position);
     case 72: // H
       return kruskalWallisH(text, position);
+    case 118: // v
+      return symbolFontChi(text, position);
     default:
       return null;
   }
@@ -145,6 +147,15 @@ function spearmanSymbol(text: string, position: number): SymbolRead | null {
     if (OPENING_BRACKETS.has(text.charCodeAt(bracket))) return { kind: 'r', symbol: 'rs', end: position + 3, requiresBracketedDf: true };
   }
   return null;
+}
+
+/**
+ * "v2(1) = 4.80": χ² as a symbol font's χ comes out of some PDFs (as its "<" comes out as "b" and its "=" as
+ * "¼"); trusted only with bracketed df right after it.
+ */
+function symbolFontChi(text: string, position: number): SymbolRead | null {
+  if (text.charCodeAt(position + 1) !== 50 || text.charCodeAt(position + 2) !== 40) return null;
+  return { kind: 'chi2', end: position + 2, requiresBracketedDf: true, acceptsTrailingDf: false };
 }
 
 /** "X2" / "X^2" / "x2": how χ² often survives PDF extraction; bracketed df required. */

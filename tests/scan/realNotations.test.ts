@@ -8,6 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { scanText } from '../../src/scan/scan.js';
+import { normaliseText } from '../../src/scan/normalise.js';
 import { dfTexts, onlyResult } from './helpers.js';
 
 describe('df separators and labels', () => {
@@ -147,6 +148,18 @@ describe('p-values damaged by text extraction', () => {
     const result = onlyResult('The effect was F(1, 40) \u00bc 5.20, p \u00bc 0.028, as expected.');
     expect([result.value?.value, result.df.map((df) => df.value), result.p?.comparator, result.p?.value.value]).toEqual([5.2, [1, 40], '=', 0.028]);
     expect(onlyResult('About \u00bc of them said so; t(28) = 2.47, p = .020.').value?.value).toBe(2.47);
+  });
+
+  it('reads what a symbol font gives for "χ", "−" and "η" ("v2(1, N = 42) ¼ 4.80", "t(40) ¼ À2.28", "g2 p ¼ .12")', () => {
+    const chi = onlyResult('The groups differed, v2(1, N = 42) \u00bc 4.80, p \u00bc .028.');
+    expect([chi.kind, chi.df.map((df) => df.value), chi.value?.value]).toEqual(['chi2', [1], 4.8]);
+    expect(onlyResult('They differed, t(40) \u00bc \u00c02.28, p \u00bc .028.').value?.value).toBe(-2.28);
+    expect(onlyResult('It was F(1, 40) = 5.20, p = .028, g2 p = .12.').effects.map((effect) => [effect.kind, effect.value.value])).toEqual([['partial-eta-squared', 0.12]]);
+  });
+
+  it('reads no chi-square from "v2" without bracketed df, and leaves a capital À before a word alone', () => {
+    expect(scanText('The version v2 = 3.1 was used.').results).toEqual([]);
+    expect(normaliseText('\u00c0 20 ans, t(20) = 2.10').text.startsWith('\u00c0 20')).toBe(true);
   });
 
   it('reads a minus sign set apart from its number', () => {
