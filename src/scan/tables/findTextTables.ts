@@ -1225,7 +1225,7 @@ function placeRows(rows: (string[] | { data: DataLine; line: Line })[], header: 
 const MAX_SUB_HEADER_LINES = 2;
 
 /** Labels of rows that may carry a single number (an error row with only its df). */
-const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subjects?|participants?)\b/i;
+const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subjects?|participants?|fehler|erro|erreur|r\u00e9sidus?|res\u00edduos?|residuos?|fout|errore|intra[- ]?grupos?|dentro de (?:los )?grupos)(?![\p{L}])/iu;
 
 /** A data line of a table: two or more values, or one after an error or total label. */
 function readRowLine(line: Line, first: boolean): DataLine | null {

@@ -84,7 +84,7 @@ const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic
 // "error", "erro", "residuo", "resíduo", "dentro de grupos", "intragrupos"; French "erreur", "résidu",
 // "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
 const ERROR_LABEL =
-  /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen)(?![a-zà-ÿ])/;
+  /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
 /** The end of a row label that says the row holds means and SDs: "M SD", "M (SD)", "Mean (SD)", "Mean ± SD". */
 const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:m|mean|means)\s?(?:\(sd\)|sd|\u00b1 ?sd|\(se\)|se)$|(?:^|\s)(?:mean|means|sd)$/;
 
@@ -786,6 +786,7 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
   }
   // (A column of its own: "ηp2 [95% CI]" names an effect size printed with its interval in one cell.)
   if (positional) splitSpanningDf(roles, named, body);
+  calculatedF(roles, headerTexts[headerTexts.length - 1] ?? []);
   const intervals = (headerRows[headerRows.length - 1] ?? []).map((cell) => INTERVAL_HEADER.test(cell) && classifyHeader(cell).role === 'descriptive');
   return { roles, titles, positional, named, ...(intervals.some(Boolean) ? { intervals } : {}) };
 }
@@ -806,6 +807,17 @@ function splitSpanningDf(roles: ColumnRole[], named: boolean[], body: string[][]
     roles[column + 1] = { role: 'df2' };
     named[column + 1] = true;
   }
+}
+
+/**
+ * "Fc" (F calculado) is the F only beside "Pr>Fc", its p, as a Brazilian statistics program prints them ("FV | GL |
+ * SQ | QM | Fc | Pr>Fc"): on its own "FC" is as often a fold change.
+ */
+function calculatedF(roles: ColumnRole[], headers: readonly string[]): void {
+  if (!headers.some((header) => /^pr ?> ?fc$/.test(headerKey(header)))) return;
+  headers.forEach((header, column) => {
+    if (headerKey(header) === 'fc' && roles[column]?.role === 'unknown') roles[column] = { role: 'statistic', kind: 'F', df: [] };
+  });
 }
 
 /** A header naming a column of intervals: "95% CI", "CI", "confidence interval", "[95% CI]". */

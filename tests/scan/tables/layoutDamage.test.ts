@@ -169,3 +169,39 @@ describe('a results table no reader recognises, without a "Table" title', () => 
     expect(scanDocument(plainTextDocument('numbers.txt', 'text', numbers)).tablesNotRead).toEqual([]);
   });
 });
+
+describe('ANOVA tables in the languages of the real corpus, with decimal commas or points', () => {
+  // Column names as Spanish, Portuguese, French, German, Dutch and Italian papers and programs print them (common
+  // practice, from memory; "FV GL SQ QM Fc Pr>Fc" is a Brazilian statistics program's layout).
+  const languages: Record<string, { title: string; header: string[]; effects: [string, string]; error: string }> = {
+    es: { title: 'Tabla 2. Análisis de varianza', header: ['Fuente de variación', 'SC', 'gl', 'CM', 'F', 'Sig.'], effects: ['Grupo', 'Tiempo'], error: 'Error' },
+    pt: { title: 'Tabela 2. Análise de variância', header: ['Fonte de variação', 'SQ', 'GL', 'QM', 'F', 'p-valor'], effects: ['Tratamento', 'Bloco'], error: 'Resíduo' },
+    'pt (program)': { title: 'Tabela 2. ANOVA', header: ['FV', 'GL', 'SQ', 'QM', 'Fc', 'Pr>Fc'], effects: ['Tratamento', 'Bloco'], error: 'Erro' },
+    fr: { title: 'Tableau 2. Analyse de variance', header: ['Source', 'SC', 'ddl', 'CM', 'F', 'p'], effects: ['Groupe', 'Temps'], error: 'Résidus' },
+    de: { title: 'Tabelle 2. Varianzanalyse', header: ['Effekt', 'FG', 'F', 'p', 'η2'], effects: ['Gruppe', 'Zeit'], error: 'Fehler' },
+    nl: { title: 'Tabel 2. Variantieanalyse', header: ['Bron', 'SS', 'df', 'MS', 'F', 'p'], effects: ['Groep', 'Tijd'], error: 'Fout' },
+    it: { title: 'Tabella 2. Analisi della varianza', header: ['Fonte', 'SS', 'gdl', 'MS', 'F', 'p'], effects: ['Gruppo', 'Tempo'], error: 'Errore' },
+  };
+  const role = (name: string): string =>
+    /^(SC|SQ|SS)$/.test(name) ? 'ss' : /^(gl|GL|ddl|df|FG|gdl)$/.test(name) ? 'df' : /^(CM|QM|MS)$/.test(name) ? 'ms' : /^(F|Fc)$/.test(name) ? 'F' : /^(Sig\.|p|p-valor|Pr>Fc)$/.test(name) ? 'p' : /η/.test(name) ? 'eta' : 'label';
+  const cases = Object.entries(languages).flatMap(([language, spec]) => (['pipe', 'crushed', 'aligned'] as const).flatMap((rendering) => (['comma', 'point'] as const).map((decimal) => ({ language, spec, rendering, decimal }))));
+  it.each(cases)('$language, $rendering, decimal $decimal', ({ spec, rendering, decimal }) => {
+    const values = (label: string, ss: string, df: string, ms: string, f: string, p: string, eta: string): string[] =>
+      spec.header.map((name) => ({ label, ss, df, ms, F: f, p, eta })[role(name)]!).map((cell, index) => (index === 0 || decimal === 'point' ? cell : cell.replace('.', ',')));
+    const rows = [
+      spec.header,
+      values(spec.effects[0], '12.40', '2', '6.20', '4.21', '0.020', '0.13'),
+      values(spec.effects[1], '3.10', '1', '3.10', '2.11', '0.152', '0.04'),
+      values(spec.error, '83.90', '57', '1.47', '', '', ''),
+    ];
+    const body =
+      rendering === 'pipe'
+        ? [`| ${rows[0]!.join(' | ')} |`, `|${rows[0]!.map(() => '---').join('|')}|`, ...rows.slice(1).map((row) => `| ${row.join(' | ')} |`)].join('\n')
+        : rendering === 'aligned'
+          ? padded(rows)
+          : rows.map((row) => line(row, 'crushed')).join('\n');
+    // F(2, 57) = 4.21 gives p = .020; F(1, 57) = 2.11 gives .152 (SciPy 1.10.1 scipy.stats.f.sf).
+    const read = scanDocument(plainTextDocument('table.txt', 'text', `${spec.title}\n${body}\n\nNext.\n`)).results.map((result) => `F(${result.df.map((df) => df.value).join(', ')}) = ${result.value?.value}`);
+    expect(read).toEqual(['F(2, 57) = 4.21', 'F(1, 57) = 2.11']);
+  });
+});
