@@ -945,6 +945,35 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
 /** Between two whole numbers in a label: "Grades 1 and 2", "Group 2 and 57", "Ages 18 to 25". */
 const LABEL_CONJUNCTION = /^(?:and|or|to|&|vs\.?|versus)$/;
 
+/** A count with its percentage: "62 (29.4%)", "0 (0.0%)". */
+const COUNT_PERCENT = /^\d{1,7} ?\(\d{1,3}(?:[.,]\d{1,2})? ?%\)$/;
+
+/** A line of a label and two or more counts with their percentages, nothing else. */
+function isCountRow(line: Line): boolean {
+  if (line.text.length > MAX_ROW_LENGTH || isBlank(line)) return false;
+  const tokens = tokenize(line.text);
+  let first = tokens.length;
+  while (first > 0 && COUNT_PERCENT.test(tokens[first - 1]!.text)) first--;
+  return first > 0 && tokens.length - first >= 2;
+}
+
+/** Most rows of counts in a run (a variable's categories). */
+const MAX_COUNT_ROWS = 12;
+
+/** Whether the rows of counts from `index` on end at a row of values (blank lines between allowed). */
+function countRowsLeadToRow(lines: Line[], index: number): boolean {
+  for (let at = index + 1, seen = 0; at < lines.length && seen <= MAX_COUNT_ROWS; at++) {
+    const line = lines[at]!;
+    if (isBlank(line)) continue;
+    if (isCountRow(line)) {
+      seen++;
+      continue;
+    }
+    return readRowLine(line, false) !== null;
+  }
+  return false;
+}
+
 /** Most blank lines between two rows of one table. */
 const MAX_BLANK_LINES_IN_TABLE = 2;
 
@@ -1149,6 +1178,13 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     const followed = leadsToDataRow(lines, index);
     if (isBlank(line) && followed) continue;
     if (isSectionLine(line) && followed) {
+      rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);
+      continue;
+    }
+    // Under a header, a row of counts with their percentages only ("≤50 62 (29.4%) 22 (30.1%) …" under "Age 5.343
+    // 0.254"), the categories of the variable above it: kept as a line of the table that holds no test, when a
+    // row of values follows the run of such rows.
+    if (header !== null && dataRows > 0 && isCountRow(line) && countRowsLeadToRow(lines, index)) {
       rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);
       continue;
     }

@@ -205,3 +205,29 @@ describe('ANOVA tables in the languages of the real corpus, with decimal commas 
     expect(read).toEqual(['F(2, 57) = 4.21', 'F(1, 57) = 2.11']);
   });
 });
+
+describe('a chi-square on each variable\'s row above the counts of its categories', () => {
+  it.each(['crushed', 'aligned'] as const)('reads every chi-square and no count, %s', (rendering) => {
+    // Common practice: "Variable | groups' n (%) | χ2 | p", the test on the variable's row, its categories' counts below.
+    // χ2(2) = 5.34 gives p = .069, χ2(3) = 5.83 gives .120, χ2(1) = 2.49 gives .115 (SciPy 1.10.1 scipy.stats.chi2.sf);
+    // the table prints no df. Four categories under one variable are more than lines read as a table's sections.
+    const rows = [
+      ['Variables', 'Likely (N = 73)', 'Not likely (N = 54)', 'χ2', 'P'],
+      ['Age', '', '', '5.34', '0.069'],
+      ['≤50', '22 (30.1%)', '20 (37.1%)', '', ''],
+      ['51-70', '34 (46.6%)', '28 (51.9%)', '', ''],
+      ['>70', '17 (23.3%)', '6 (11.1%)', '', ''],
+      ['Education', '', '', '5.83', '0.120'],
+      ['Uneducated', '18 (24.7%)', '12 (22.2%)', '', ''],
+      ['Primary school', '40 (54.8%)', '34 (63.0%)', '', ''],
+      ['High school', '13 (17.8%)', '7 (13.0%)', '', ''],
+      ['University', '2 (2.7%)', '1 (1.9%)', '', ''],
+      ['Gender', '', '', '2.49', '0.115'],
+      ['Male', '41 (56.2%)', '23 (42.6%)', '', ''],
+      ['Female', '32 (43.8%)', '31 (57.4%)', '', ''],
+    ];
+    const body = rendering === 'aligned' ? padded(rows) : rows.map((row) => line(row, 'crushed')).join('\n');
+    const read = scanDocument(plainTextDocument('chi.txt', 'text', `Table 1. Sample characteristics\n${body}\n\nNext.\n`)).results.map((result) => `${result.kind}(${result.df.map((df) => df.value).join(', ')}) = ${result.value?.text}`);
+    expect(read).toEqual(['chi2() = 5.34', 'chi2() = 5.83', 'chi2() = 2.49']);
+  });
+});
