@@ -830,7 +830,10 @@ function readHeader(line: Line): HeaderLine | null {
     columns.push(phrase);
     named++;
   }
-  if (unknown === 0) return named >= 2 ? { columns, aligned: false, tabbed: false } : null;
+  // (One column's name is a header after a known label column's name, when it names a statistic: "Variable r (p)".)
+  const labelNamed = columns[0]!.text !== '' && classifyHeader(columns[0]!.text).role === 'label';
+  const oneStatistic = named === 1 && labelNamed && classifyHeader(columns[columns.length - 1]!.text).role === 'statistic';
+  if (unknown === 0) return named >= 2 || oneStatistic ? { columns, aligned: false, tabbed: false } : null;
   // Block titles between names ("SF-12 Physical ... r (P value) SF-12 Mental ... r (P value)"): two statistic
   // names with their titles are a header too.
   const statisticNames = columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;
@@ -944,6 +947,13 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
 
 /** Between two whole numbers in a label: "Grades 1 and 2", "Group 2 and 57", "Ages 18 to 25". */
 const LABEL_CONJUNCTION = /^(?:and|or|to|&|vs\.?|versus)$/;
+
+/** A label and one value that holds a number ("Age .30 (.020)", "BMI −.12"), for a header of one value column. */
+function singleValueRow(line: Line): DataLine | null {
+  if (TITLE.test(line.text) || NOTE.test(line.text)) return null;
+  const data = readDataLine(line, 1);
+  return data !== null && data.values.length === 1 && data.label.text !== '' && /\d/.test(data.values[0]!.text) ? data : null;
+}
 
 /** A count with its percentage: "62 (29.4%)", "0 (0.0%)". */
 const COUNT_PERCENT = /^\d{1,7} ?\(\d{1,3}(?:[.,]\d{1,2})? ?%\)$/;
@@ -1158,7 +1168,8 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       last = index;
       continue;
     }
-    const data = readRowLine(line, dataRows === 0);
+    // Under a header of one value column ("Variable r (p)"), a row holds one value ("Age .30 (.020)").
+    const data = readRowLine(line, dataRows === 0) ?? (columns !== null && columns.length === 2 ? singleValueRow(line) : null);
     if (data !== null) {
       widest = Math.max(widest, data.values.length);
       rows.push({ data, line });

@@ -230,6 +230,25 @@ const SHAPES: Record<string, Shape> = {
     tests: ['F(2, 57) = 5.10', 'F(1, 57) = 3.05'],
     renderings: ['pipe', 'tab'],
   },
+  'correlations and their p in one column, "r (p)", the only value column': {
+    header: ['Variable', 'r (p)'],
+    rows: [
+      ['Age', '.30 (.020)'],
+      ['BMI', '−.12 (.361)'],
+    ],
+    tests: ['r() = .30', 'r() = -.12'],
+    // One cell per line: a header of two names over rows of two cells is not told from prose (nothing is read).
+    renderings: ['pipe', 'tab', 'crushed', 'aligned'],
+  },
+  'F tests and their p in one column, the df in the header, "F(2, 57) (p)"': {
+    header: ['Effect', 'F(2, 57) (p)'],
+    rows: [
+      ['Group', '5.10 (.009)'],
+      ['Time', '3.81 (.028)'],
+    ],
+    tests: ['F(2, 57) = 5.10', 'F(2, 57) = 3.81'],
+    renderings: ['pipe', 'tab', 'crushed', 'aligned'],
+  },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
