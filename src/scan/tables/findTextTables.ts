@@ -955,6 +955,40 @@ function singleValueRow(line: Line): DataLine | null {
   return data !== null && data.values.length === 1 && data.label.text !== '' && /\d/.test(data.values[0]!.text) ? data : null;
 }
 
+/** Most lines of names a layout copy stacks over a header line. */
+const MAX_STACKED_HEADER_LINES = 2;
+
+/**
+ * The header's names with the words stacked over them, as a PDF's layout copy sets a header of several lines
+ * ("Type III" / "Sum of" / "Squares"): each line above (up to MAX_STACKED_HEADER_LINES, no digits, no title)
+ * whose pieces all stand over value columns, each over one, gives its words to the names below. Null when none.
+ */
+function stackedHeaderAbove(lines: Line[], first: number, header: HeaderLine): { names: string[]; firstLine: number } | null {
+  const names = header.columns.map((column) => column.text);
+  const valuesFrom = header.columns[1]?.start ?? Infinity;
+  let above = first - 1;
+  for (; above >= 0 && first - above <= MAX_STACKED_HEADER_LINES; above--) {
+    const line = lines[above]!;
+    if (isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text) || /\d/.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
+    const pieces = alignedCells(line.text);
+    const targets = pieces.map((piece) => columnUnder(piece, header.columns));
+    if (pieces.length === 0 || pieces.some((piece, index) => piece.start < valuesFrom - 1 || targets[index]! < 1)) break;
+    pieces.forEach((piece, index) => (names[targets[index]!] = `${piece.text} ${names[targets[index]!]}`));
+  }
+  return above === first - 1 ? null : { names, firstLine: above + 1 };
+}
+
+/** The column a piece of a line above stands over: the one it overlaps most (-1 if none). */
+function columnUnder(piece: Piece, columns: Piece[]): number {
+  let best = -1;
+  let bestOverlap = 0;
+  columns.forEach((column, index) => {
+    const overlap = Math.min(piece.end, column.end) - Math.max(piece.start, column.start);
+    if (overlap > bestOverlap) [best, bestOverlap] = [index, overlap];
+  });
+  return best;
+}
+
 /** A count with its percentage: "62 (29.4%)", "0 (0.0%)". */
 const COUNT_PERCENT = /^\d{1,7} ?\(\d{1,3}(?:[.,]\d{1,2})? ?%\)$/;
 
@@ -1129,7 +1163,9 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const titled = readTitle(lines, first) !== null;
   if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
   let index = header === null ? first : wrapped !== null ? first + 2 : first + 1;
-  const columns = header?.columns.map((column) => column.text) ?? null;
+  // Names a PDF's layout copy stacked over the header line ("Sum of" over "Squares", "Partial Eta" over "Squared").
+  const stacked = header !== null && header.aligned && wrapped === null ? stackedHeaderAbove(lines, first, header) : null;
+  const columns = stacked?.names ?? header?.columns.map((column) => column.text) ?? null;
   if (header !== null && lines[index] !== undefined && HEADER_CONTINUATION.test(lines[index]!.text)) {
     attachContinuation(columns!, lines[index]!.text.trim().split(/\s+/));
     index++;
@@ -1220,7 +1256,8 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     break;
   }
   if (dataRows === 0) return null;
-  return { ...placeRows(rows, header, last), headed: header !== null, ...(blockTitles !== null ? { firstLine: first - 1 } : {}) };
+  const firstLine = blockTitles !== null ? first - 1 : stacked !== null ? stacked.firstLine : null;
+  return { ...placeRows(rows, header, last), headed: header !== null, ...(firstLine !== null ? { firstLine } : {}) };
 }
 
 /**

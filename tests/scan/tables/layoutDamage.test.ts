@@ -231,3 +231,34 @@ describe('a chi-square on each variable\'s row above the counts of its categorie
     expect(read).toEqual(['chi2() = 5.34', 'chi2() = 5.83', 'chi2() = 2.49']);
   });
 });
+
+describe('a header whose names a PDF layout copy stacked over two or three lines', () => {
+  it('joins the words above each name ("Type III / Sum of / Squares", "Partial Eta / Squared") and reads the effect sizes', () => {
+    // F(2, 56) = 5.109 gives p = .009 and F(1, 56) = 2.567 gives .115 (SciPy 1.10.1 scipy.stats.f.sf).
+    const text = [
+      'Table 3. Tests of Between-Subjects Effects',
+      '',
+      '                  Type III',
+      '                  Sum of                Mean                        Partial Eta',
+      'Source            Squares      df       Square     F       Sig.     Squared',
+      'Group             40.200       2        20.100     5.109   .009     .154',
+      'Age               10.100       1        10.100     2.567   .115     .044',
+      'Error             220.300      56       3.934',
+      '',
+      'Next paragraph.',
+    ].join('\n');
+    const scan = scanDocument(plainTextDocument('stacked.txt', 'text', text));
+    expect(scan.results.map((result) => [result.value?.text, result.df.map((df) => df.text), result.effects.map((effect) => [effect.kind, effect.value.text])])).toEqual([
+      ['5.109', ['2', '56'], [['partial-eta-squared', '.154']]],
+      ['2.567', ['1', '56'], [['partial-eta-squared', '.044']]],
+    ]);
+    expect(scan.results[0]!.tableRow?.caption).toBe('Table 3. Tests of Between-Subjects Effects');
+  });
+
+  it('takes no sentence above a header for its names', () => {
+    const text = ['The results are shown below.', 'Source            SS        df     MS       F       p', 'Group             40.20     2      20.10    5.11    .009', 'Error             220.30    56     3.93', ''].join('\n');
+    const scan = scanDocument(plainTextDocument('sentence.txt', 'text', text));
+    expect(scan.results.map((result) => result.value?.text)).toEqual(['5.11']);
+    expect(scan.results[0]!.tableRow?.caption).toBeNull();
+  });
+});
