@@ -261,7 +261,7 @@ const HEADER_WITH_SUBSCRIPT_DF = /^f\s?(\d{1,3})\s?,\s?(\d{1,5})$/;
  * cells hold their df: "t (df)", "F (dfM, dfR)", "F(df1, df2)", "χ2 (gl)",
  * "F (df effect, df error)".
  */
-const DF_NAMES_IN_BRACKETS = / ?\((?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8}(?:[,;/] ?(?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8})?\)$/;
+const DF_NAMES_IN_BRACKETS = / ?[([](?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8}(?:[,;/] ?(?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8})?[)\]]$/;
 
 /**
  * The key without what real headers add to a known name: a footnote letter

@@ -1909,7 +1909,7 @@ function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
   return [located(first, firstAt), located(second, secondAt)];
 }
 
-const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
+const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(?:df ?= ?)?(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
 
 /**
  * A statistic cell that holds the df too: "4.842 (15)" in a column headed

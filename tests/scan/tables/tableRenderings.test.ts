@@ -249,6 +249,24 @@ const SHAPES: Record<string, Shape> = {
     tests: ['F(2, 57) = 5.10', 'F(2, 57) = 3.81'],
     renderings: ['pipe', 'tab', 'crushed', 'aligned'],
   },
+  't tests with their df in the cell, "t [df]" over "2.41 [58]"': {
+    header: ['Measure', 't [df]', 'p'],
+    rows: [
+      ['Anxiety', '2.41 [58]', '.019'],
+      ['Stress', '0.73 [58]', '.468'],
+    ],
+    tests: ['t(58) = 2.41', 't(58) = 0.73'],
+  },
+  't tests with their df named in the cell, "2.41 (df = 58)"': {
+    header: ['Measure', 't (df)', 'p'],
+    rows: [
+      ['Anxiety', '2.41 (df = 58)', '.019'],
+      ['Stress', '0.73 (df = 58)', '.468'],
+    ],
+    tests: ['t(58) = 2.41', 't(58) = 0.73'],
+    // Single spaces or padding cut "(df = 58)" at its spaces: the row is not laid out (nothing is read).
+    renderings: ['pipe', 'tab', 'cell-per-line'],
+  },
   'correlations with p and n columns': {
     header: ['Variable', 'r', 'p', 'n'],
     rows: [
