@@ -60,6 +60,12 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
       }
     }
     waiting = [];
+    // A critical value looked up for a test ("the critical F(1, 46) = 4.05", "critical value of t(58) = 2.00") is
+    // not a result: passed over, and not read again.
+    if (CRITICAL_BEFORE.test(source.slice(Math.max(0, draft.head.start - CRITICAL_REACH), draft.head.start))) {
+      consumedUpTo = draft.end;
+      continue;
+    }
     // A regression model's fit is written before its F: "R2 = .12, F(3, 96) = 4.36".
     if (draft.head.kind === 'F') draft.effects.unshift(...readFitBefore(source, draft.head.start, consumedUpTo));
     takePWrittenFirst(source, draft, consumedUpTo);
@@ -77,6 +83,10 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
   }
   return results;
 }
+
+/** "critical", "critical value (of)", "tabulated", "table value of" right before a statistic: a looked-up value. */
+const CRITICAL_BEFORE = /(?:(?:critical|tabulated)(?: values?)?|table values?)(?: of| for)?(?: the)? ?$/i;
+const CRITICAL_REACH = 32;
 
 /**
  * A statistic whose "=" a PDF font lost together with its p's comparator

@@ -31,3 +31,12 @@ describe('inline markup left in a Markdown file, from the command line', () => {
     expect(flagged.map((statistic) => statistic.kind)).toEqual(['F']);
   });
 });
+
+describe('critical values looked up for a test, from the command line', () => {
+  it('reads the test and not "the critical F(1, 46) = 4.05" beside it (a table value, no p to check)', () => {
+    // F(1, 46) = 12.30 gives p = .0010 (SciPy 1.10.1 scipy.stats.f.sf(12.30, 1, 46), computed when the test was written).
+    const text = 'The observed F(1, 46) = 12.30, p = .001, exceeds the critical F(1, 46) = 4.05; the tabulated value of t(58) = 2.00 is not a result either.\n';
+    const statistics = scanTextJson(text).statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['F', [1, 46], 12.3]]);
+  });
+});
