@@ -14,6 +14,7 @@
 import { describe, expect, it } from 'vitest';
 import { plainTextDocument } from '../../../src/documents/text.js';
 import { scanDocument } from '../../../src/scan/scanDocument.js';
+import { WITHIN_SUBJECTS_HEADER, WITHIN_SUBJECTS_ROWS, WITHIN_SUBJECTS_TESTS } from './programOutput.js';
 
 type Rendering = 'crushed' | 'aligned' | 'tabs';
 const RENDERINGS: Rendering[] = ['crushed', 'aligned', 'tabs'];
@@ -89,6 +90,12 @@ describe('a correlation matrix named by its variables, a dash on its diagonal', 
   });
 });
 
+/** Rows as pipes (the first row the header), padded columns, or another rendering of `line`. */
+function renderAs(rows: string[][], rendering: Rendering | 'pipe'): string {
+  if (rendering === 'pipe') return [`| ${rows[0]!.join(' | ')} |`, `|${rows[0]!.map(() => '---').join('|')}|`, ...rows.slice(1).map((row) => `| ${row.join(' | ')} |`)].join('\n');
+  return rendering === 'aligned' ? padded(rows) : rows.map((row) => line(row, rendering)).join('\n');
+}
+
 /** Columns padded to their widest cell and three spaces, as a PDF's layout copy sets them. */
 function padded(rows: string[][]): string {
   const widths = rows[0]!.map((_, column) => Math.max(...rows.map((row) => (row[column] ?? '').length)) + 3);
@@ -104,12 +111,7 @@ describe('two outcomes side by side, each row stating its df in its label', () =
     ['Time (df = 1, 57)', '6.80', '.012', '.11', '0.40', '.530', '.01'],
   ];
   it.each([...RENDERINGS, 'pipe' as const])('%s', (rendering) => {
-    const body =
-      rendering === 'pipe'
-        ? [`| ${rows[0]!.join(' | ')} |`, '|---|---|---|---|---|---|---|', ...rows.slice(1).map((row) => `| ${row.join(' | ')} |`)].join('\n')
-        : rendering === 'aligned'
-          ? padded(rows)
-          : rows.map((row) => line(row, rendering)).join('\n');
+    const body = renderAs(rows, rendering);
     // F(2, 57) = 4.21 gives p = .020, 1.05 gives .357; F(1, 57) = 6.80 gives .012, 0.40 gives .530 (SciPy 1.10.1 scipy.stats.f.sf).
     expect(testsRead(`Table 3. ANOVA results for both outcomes\n${body}\n\nNext.\n`)).toEqual([
       'F(2, 57) = 4.21 p = .020',
@@ -122,25 +124,9 @@ describe('two outcomes side by side, each row stating its df in its label', () =
 
 describe("a program's within-subjects table in padded columns", () => {
   it('pairs each correction row of the effect with the same correction row of its error term', () => {
-    // F(2, 58) = 6.02 gives p = .0042, F(1.62, 46.98) = 6.02 gives .0076, F(1.70, 49.30) = 6.02 gives .0067,
-    // F(1, 29) = 6.02 gives .020 (SciPy 1.10.1 scipy.stats.f.sf).
-    const rows = [
-      ['Source', '', 'Type III Sum of Squares', 'df', 'Mean Square', 'F', 'Sig.', 'Partial Eta Squared'],
-      ['Time', 'Sphericity Assumed', '24.300', '2', '12.150', '6.020', '.004', '.172'],
-      ['', 'Greenhouse-Geisser', '24.300', '1.620', '15.000', '6.020', '.008', '.172'],
-      ['', 'Huynh-Feldt', '24.300', '1.700', '14.294', '6.020', '.007', '.172'],
-      ['', 'Lower-bound', '24.300', '1.000', '24.300', '6.020', '.020', '.172'],
-      ['Error(Time)', 'Sphericity Assumed', '117.060', '58', '2.018', '', '', ''],
-      ['', 'Greenhouse-Geisser', '117.060', '46.980', '2.492', '', '', ''],
-      ['', 'Huynh-Feldt', '117.060', '49.300', '2.374', '', '', ''],
-      ['', 'Lower-bound', '117.060', '29.000', '4.037', '', '', ''],
-    ];
-    expect(testsRead(`Table 4. Tests of Within-Subjects Effects\n${padded(rows)}\n\nNext.\n`)).toEqual([
-      'F(2, 58) = 6.020 p = .004',
-      'F(1.620, 46.980) = 6.020 p = .008',
-      'F(1.700, 49.300) = 6.020 p = .007',
-      'F(1.000, 29.000) = 6.020 p = .020',
-    ]);
+    const text = `Table 4. Tests of Within-Subjects Effects\n${padded([WITHIN_SUBJECTS_HEADER, ...WITHIN_SUBJECTS_ROWS])}\n\nNext.\n`;
+    const ps = ['.004', '.008', '.007', '.020'];
+    expect(testsRead(text)).toEqual(WITHIN_SUBJECTS_TESTS.map((test, index) => `${test} p = ${ps[index]}`));
   });
 });
 
@@ -194,12 +180,7 @@ describe('ANOVA tables in the languages of the real corpus, with decimal commas 
       values(spec.effects[1], '3.10', '1', '3.10', '2.11', '0.152', '0.04'),
       values(spec.error, '83.90', '57', '1.47', '', '', ''),
     ];
-    const body =
-      rendering === 'pipe'
-        ? [`| ${rows[0]!.join(' | ')} |`, `|${rows[0]!.map(() => '---').join('|')}|`, ...rows.slice(1).map((row) => `| ${row.join(' | ')} |`)].join('\n')
-        : rendering === 'aligned'
-          ? padded(rows)
-          : rows.map((row) => line(row, 'crushed')).join('\n');
+    const body = renderAs(rows, rendering);
     // F(2, 57) = 4.21 gives p = .020; F(1, 57) = 2.11 gives .152 (SciPy 1.10.1 scipy.stats.f.sf).
     const read = scanDocument(plainTextDocument('table.txt', 'text', `${spec.title}\n${body}\n\nNext.\n`)).results.map((result) => `F(${result.df.map((df) => df.value).join(', ')}) = ${result.value?.value}`);
     expect(read).toEqual(['F(2, 57) = 4.21', 'F(1, 57) = 2.11']);

@@ -18,6 +18,7 @@
 import { describe, expect, it } from 'vitest';
 import { plainTextDocument } from '../../../src/documents/text.js';
 import { scanDocument } from '../../../src/scan/scanDocument.js';
+import { WITHIN_SUBJECTS_HEADER, WITHIN_SUBJECTS_ROWS, WITHIN_SUBJECTS_TESTS } from './programOutput.js';
 
 type Rendering = 'pipe' | 'tab' | 'crushed' | 'aligned' | 'cell-per-line';
 const RENDERINGS: Rendering[] = ['pipe', 'tab', 'crushed', 'aligned', 'cell-per-line'];
@@ -190,18 +191,9 @@ const SHAPES: Record<string, Shape> = {
   },
   // Common practice: a program's within-subjects table prints each effect and its error term once per correction.
   'within-subjects effects as a program prints them, four correction rows for the effect and for its error': {
-    header: ['Source', '', 'Type III Sum of Squares', 'df', 'Mean Square', 'F', 'Sig.', 'Partial Eta Squared'],
-    rows: [
-      ['Time', 'Sphericity Assumed', '24.300', '2', '12.150', '6.020', '.004', '.172'],
-      ['', 'Greenhouse-Geisser', '24.300', '1.620', '15.000', '6.020', '.008', '.172'],
-      ['', 'Huynh-Feldt', '24.300', '1.700', '14.294', '6.020', '.007', '.172'],
-      ['', 'Lower-bound', '24.300', '1.000', '24.300', '6.020', '.020', '.172'],
-      ['Error(Time)', 'Sphericity Assumed', '117.060', '58', '2.018', '', '', ''],
-      ['', 'Greenhouse-Geisser', '117.060', '46.980', '2.492', '', '', ''],
-      ['', 'Huynh-Feldt', '117.060', '49.300', '2.374', '', '', ''],
-      ['', 'Lower-bound', '117.060', '29.000', '4.037', '', '', ''],
-    ],
-    tests: ['F(2, 58) = 6.020', 'F(1.620, 46.980) = 6.020', 'F(1.700, 49.300) = 6.020', 'F(1.000, 29.000) = 6.020'],
+    header: WITHIN_SUBJECTS_HEADER,
+    rows: WITHIN_SUBJECTS_ROWS,
+    tests: WITHIN_SUBJECTS_TESTS,
     // One cell per line, its empty cells as blank lines: only some rows are placed (none misread). Aligned: names
     // longer than this file's 16-character columns run into the next; padded copies are read in layoutDamage.test.ts.
     renderings: ['pipe', 'tab', 'crushed'],
