@@ -28,6 +28,7 @@ import { classifyHeader, readCell } from './cells.js';
 import { shapeOf } from './align.js';
 import { MARK, readMarkLegend, splitMarks, type MarkBound } from './marks.js';
 import { appendAll } from '../../arrays.js';
+import { parseReportedNumber } from '../../stats/reportedNumber.js';
 
 interface Located {
   start: number;
@@ -77,6 +78,31 @@ interface ValueCell {
   end: number;
   /** Offsets of the marks (the cell's end when none). */
   marksStart: number;
+  /** The p printed in brackets after the value ("0.45 (<.001)"), where the table says it prints one so. */
+  p?: ReportedP;
+}
+
+/** A caption, note or header that says each correlation's p stands in brackets after it. */
+const SAYS_P_IN_BRACKETS = /\bp[- ]?values?\b[^.]{0,30}\b(?:in |within )?(?:parenthes[ie]s|brackets)|\br\s?\(\s?p\s?\)/i;
+/** A correlation with its p in brackets: "0.45 (<.001)", ".38** (.003)". */
+const VALUE_WITH_P = /^([-\u2212\u2013]?\d?\.\d+)([*\u2020\u2021]{0,3}) ?\( ?(<|>|=|\u2264|\u2265)? ?(0?\.\d+|1(?:\.0+)?)\)$/;
+
+/** A value cell that holds a correlation and its p in brackets, or null. */
+function valueWithPOf(written: string, place: Located): ValueCell | null {
+  const match = VALUE_WITH_P.exec(written);
+  if (match === null) return null;
+  const p = parseReportedNumber(match[4]!);
+  if (p === null) return null;
+  const pStart = place.start + written.lastIndexOf(match[4]!);
+  const comparator = (match[3] === '\u2264' ? '<=' : match[3] === '\u2265' ? '>=' : (match[3] ?? '=')) as ReportedP['comparator'];
+  return {
+    number: match[1]!,
+    marks: match[2]!,
+    start: place.start,
+    end: place.end,
+    marksStart: match[2] === '' ? place.end : place.start + match[1]!.length,
+    p: { comparator, value: p, plural: false, start: pStart, end: pStart + match[4]!.length },
+  };
 }
 
 interface MatrixRow {
@@ -94,7 +120,9 @@ export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | nu
   const columns = numberedColumns(table.rows[headerIndex]!);
   const said = [table.caption ?? '', input.notes.slice(0, 2000), ...table.rows[headerIndex]!].join(' ');
   if (!SAYS_CORRELATIONS.test(said)) return null;
-  const rows = matrixRows(input, headerIndex);
+  // Each correlation's p in brackets after it, as the note says ("p-values in parentheses", "r (p)").
+  const pInBrackets = SAYS_P_IN_BRACKETS.test(said);
+  const rows = matrixRows(input, headerIndex, pInBrackets);
   if (rows.length < 2) return null;
   const layout = bestLayout(rows, columns);
   if (layout === null) return null;
@@ -300,7 +328,7 @@ function numberedColumns(row: readonly string[]): number {
 }
 
 /** The numbered body rows with their value cells (marks standing as cells of their own joined to their value). */
-function matrixRows(input: MatrixInput, headerIndex: number): MatrixRow[] {
+function matrixRows(input: MatrixInput, headerIndex: number, pInBrackets = false): MatrixRow[] {
   const rows: MatrixRow[] = [];
   input.table.rows.forEach((row, rowIndex) => {
     if (rowIndex <= headerIndex) return;
@@ -314,7 +342,7 @@ function matrixRows(input: MatrixInput, headerIndex: number): MatrixRow[] {
       if (written === '' || place === null) continue;
       const previous = values[values.length - 1];
       if (attachMarks(previous, written, place)) continue;
-      values.push(valueCellOf(written, place));
+      values.push(pInBrackets ? (valueWithPOf(written, place) ?? valueCellOf(written, place)) : valueCellOf(written, place));
     }
     // Dashes filling the other triangle ("0.58** | – | – | –") stand for no value; a row is read from its end.
     while (values.length > 0 && PLACEHOLDER.test(values[values.length - 1]!.number) && values[values.length - 1]!.marks === '') values.pop();
@@ -398,7 +426,7 @@ function correlationResult(
 ): ReportedResult {
   const bound = cell.marks === '' ? undefined : legend.get(cell.marks);
   const p: ReportedP | null =
-    bound === undefined ? null : { comparator: bound.comparator, value: bound.value, plural: false, start: cell.marksStart, end: cell.end, fromMarks: cell.marks };
+    cell.p ?? (bound === undefined ? null : { comparator: bound.comparator, value: bound.value, plural: false, start: cell.marksStart, end: cell.end, fromMarks: cell.marks });
   const df: ReportedNumber[] = n !== null && n > 2 ? [{ value: n - 2, text: String(n - 2), decimals: 0, exponent: 0 }] : [];
   const spearman = SAYS_SPEARMAN.test(`${input.table.caption ?? ''} ${input.notes.slice(0, 2000)}`);
   return {

@@ -243,3 +243,25 @@ describe('a header whose names a PDF layout copy stacked over two or three lines
     expect(scan.results[0]!.tableRow?.caption).toBeNull();
   });
 });
+
+describe('a numbered correlation matrix with each p in brackets after its correlation', () => {
+  // Common practice: "r (p)" cells, the note saying the p-values stand in parentheses. With df 58, r = .45 gives
+  // p = .0003, .38 gives .0027, .52 gives .00002 (SciPy 1.10.1 scipy.stats.t.sf of r√(df/(1 − r²)), two-sided).
+  const rows = [
+    ['Variable', '1', '2', '3'],
+    ['1. Anxiety', '—', '', ''],
+    ['2. Depression', '.45 (<.001)', '—', ''],
+    ['3. Stress', '.38 (.003)', '.52 (<.001)', '—'],
+  ];
+  it.each(['pipe', 'tabs'] as const)('reads each correlation with its own p, %s', (rendering) => {
+    const body = rendering === 'pipe' ? renderAs(rows, 'pipe') : rows.map((row) => line(row, 'tabs')).join('\n');
+    const text = `Table 2. Correlations among the study variables (N = 60)\n${body}\nNote. p-values in parentheses.\n\nNext.\n`;
+    const read = scanDocument(plainTextDocument('matrix.txt', 'text', text)).results.map((result) => `r(${result.df.map((df) => df.text).join(', ')}) = ${result.value?.text}, p ${result.p?.comparator} ${result.p?.value.text}`);
+    expect(read).toEqual(['r(58) = .45, p < .001', 'r(58) = .38, p = .003', 'r(58) = .52, p < .001']);
+  });
+
+  it('reads none of them when nothing says the brackets hold p-values', () => {
+    const text = `Table 2. Correlations among the study variables (N = 60)\n${renderAs(rows, 'pipe')}\n\nNext.\n`;
+    expect(scanDocument(plainTextDocument('matrix.txt', 'text', text)).results).toEqual([]);
+  });
+});
