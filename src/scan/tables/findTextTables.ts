@@ -1111,19 +1111,39 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   // matrix), or the table is left to be listed as not read.
   const named = new Set(header.map(withoutTrailingMarks));
   const matrixRows = rows.filter((row) => named.has(withoutTrailingMarks(row[0]!.split(' ')[0]!))).length;
-  if (matrixRows < MIN_MATRIX_ROW_SHARE * rows.length) return null;
+  // Or a rectangle: every row gives the same number k of correlations (marks apart), and the header's last k
+  // words name the k columns ("Gait Variables MMSE ACE-R" over "Gait speed 0.449 †† 0.430 ††").
+  const rectangle = matrixRows < MIN_MATRIX_ROW_SHARE * rows.length ? rectangleHeader(header, rows) : null;
+  if (matrixRows < MIN_MATRIX_ROW_SHARE * rows.length && rectangle === null) return null;
   return {
     table: {
       start: title.start + leadingSpace(title.text),
       end: lines[last]!.start + lines[last]!.text.trimEnd().length,
       caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
       notes: readNotes(lines, last + 1).notes,
-      rows: [header, ...rows],
+      rows: [rectangle ?? header, ...rows],
       headerRows: 1,
       layout: 'crushed',
     },
     lastLine: last,
   };
+}
+
+/**
+ * The header of a crushed table of correlations whose every row holds the same number k of correlations (marks
+ * standing apart not counted) and whose header line ends with k single-word names: the label column's words, then
+ * those k names. Null when the rows differ or a value is not a correlation.
+ */
+function rectangleHeader(header: string[], rows: string[][]): string[] | null {
+  const values = rows.map((row) => row.slice(1).filter((cell) => !isMarkToken(cell)));
+  const count = values[0]?.length ?? 0;
+  if (count < 1 || header.length < count + 1 || rows.length < 2) return null;
+  const correlation = (cell: string): boolean => {
+    const read = readCell(withoutTrailingMarks(cell), 'either');
+    return read.kind === 'number' && read.number.decimals >= 2 && Math.abs(read.number.value) <= 1;
+  };
+  if (!values.every((cells) => cells.length === count && cells.every(correlation))) return null;
+  return [header.slice(0, header.length - count).join(' '), ...header.slice(header.length - count)];
 }
 
 /** Most lines of single-value rows (and section lines) between two full rows of a table. */

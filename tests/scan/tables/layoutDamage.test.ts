@@ -265,3 +265,25 @@ describe('a numbered correlation matrix with each p in brackets after its correl
     expect(scanDocument(plainTextDocument('matrix.txt', 'text', text)).results).toEqual([]);
   });
 });
+
+describe('a crushed table of correlations named by short column names, not a matrix', () => {
+  // Common practice: outcomes as rows, two scales as columns ("Gait Variables MMSE ACE-R"), daggers defined in the note.
+  const rows = [
+    'Gait Variables MMSE ACE-R',
+    'Gait speed 0.449 †† 0.430 ††',
+    'Stride length 0.446 †† 0.422 ††',
+    'Cadence 0.199 0.191',
+    'Stance phase −0.156 −0.143',
+  ];
+  it('reads every correlation under its column, with the p its marks give', () => {
+    const text = `Table 3. Spearman's correlations between gait and cognition\n${rows.join('\n')}\n†p < 0.05; †† p < 0.01.\n\nNext.\n`;
+    const read = scanDocument(plainTextDocument('rectangle.txt', 'text', text)).results.map((result) => `${result.value?.text}${result.p ? ` p ${result.p.comparator} ${result.p.value.text}` : ''}`);
+    expect(read).toEqual(['0.449 p < 0.01', '0.430 p < 0.01', '0.446 p < 0.01', '0.422 p < 0.01', '0.199', '0.191', '-0.156', '-0.143']);
+  });
+
+  it('reads none when the rows hold different numbers of values (which value is under which name cannot be told)', () => {
+    const ragged = [...rows.slice(0, 3), 'Cadence 0.199', 'Stance phase −0.156 −0.143 0.120'];
+    const text = `Table 3. Spearman's correlations between gait and cognition\n${ragged.join('\n')}\n\nNext.\n`;
+    expect(scanDocument(plainTextDocument('ragged.txt', 'text', text)).results).toEqual([]);
+  });
+});
