@@ -31,7 +31,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 };
 
 /** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
-const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.98, crushed: 0.90, 'cell-per-line': 0.79 };
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.98, crushed: 0.93, 'cell-per-line': 0.79 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {

@@ -28,11 +28,15 @@ import { spanOfCell as span, tableOverLines } from './rebuilt.js';
 type Line = TextLine;
 
 /** The name of a block's correlation row, after the variable's name. */
-const R_ROW = /(?:Pearson(?:'s)? Correlation|Pearson(?:'s)? r|Correlation Coefficient)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
+const R_ROW = /(?:Pearson(?:'s)? Correlation|Pearson(?:'s)? r|Correlation Coefficient|\bCorrelation)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
 /** A block's p row: "Sig. (2-tailed)", "Significance (2-tailed)", "p (2-tailed)". */
 const P_ROW = /^[ \t|]{0,12}(?:Sig\.?|Significance|p) ?\((1|2)[- ]tailed\)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
 /** A block's N row. */
 const N_ROW = /^[ \t|]{0,12}N[ \t|]{0,12}(?=\d)/i;
+/** A block's df row, as partial correlations print it instead of N ("Correlation / Significance (2-tailed) / df"). */
+const DF_ROW = /^[ \t|]{0,12}df[ \t|]{0,12}(?=\d)/i;
+/** Stars standing apart after a p ("0.001 *"): the printed p says it all. */
+const STARS_APART = /^\*{1,3}$/;
 /** A cell among a block's values: a number (stars or a footnote letter glued on), the diagonal's dash, or "." for none. */
 const VALUE = /^(?:[-\u2212\u2013]\s?)?(?:\d+(?:[.,]\d+)?|[.,]\d+)(?:\*{1,3}|[a-h])?$|^[-\u2212\u2013\u2014.]$/;
 /** Most lines of one table. */
@@ -53,6 +57,8 @@ interface Block {
   p: Cell[] | null;
   oneTailed: boolean;
   n: Cell[] | null;
+  /** Partial correlations print each one's df instead of N. */
+  df: Cell[] | null;
 }
 
 /** The cells of a line's run of values from `from` (split at pipes, tabs or spaces); null unless every piece is a value. */
@@ -66,7 +72,7 @@ function valuesOf(line: Line, from: number): Cell[] | null {
   for (let match = pattern.exec(text); match !== null; match = pattern.exec(text)) {
     const raw = match[0];
     const inner = raw.trim();
-    if (inner === '') continue;
+    if (inner === '' || (STARS_APART.test(inner) && cells.length > 0)) continue;
     if (!VALUE.test(inner)) return null;
     const start = line.start + match.index + raw.indexOf(inner);
     cells.push({ text: inner, start, end: start + inner.length });
@@ -97,7 +103,7 @@ export function readSpssCorrelations(lines: Line[], first: number): { table: Doc
     if (r === null) break;
     const name = line.text.slice(0, rMatch.index).replace(/\|/g, ' ').trim();
     const nameAt = name === '' ? -1 : line.text.indexOf(name);
-    const block: Block = { name, nameSpan: nameAt < 0 ? null : { start: line.start + nameAt, end: line.start + nameAt + name.length }, r, p: null, oneTailed: false, n: null };
+    const block: Block = { name, nameSpan: nameAt < 0 ? null : { start: line.start + nameAt, end: line.start + nameAt + name.length }, r, p: null, oneTailed: false, n: null, df: null };
     lastLine = index;
     let next = nextNonBlank(lines, index + 1);
     const pMatch = next < 0 ? null : P_ROW.exec(lines[next]!.text);
@@ -113,26 +119,33 @@ export function readSpssCorrelations(lines: Line[], first: number): { table: Doc
       lastLine = next;
       next = nextNonBlank(lines, next + 1);
     }
+    const dfMatch = next < 0 ? null : DF_ROW.exec(lines[next]!.text);
+    if (dfMatch !== null) {
+      block.df = valuesOf(lines[next]!, dfMatch[0].length);
+      lastLine = next;
+      next = nextNonBlank(lines, next + 1);
+    }
     blocks.push(block);
     index = next;
   }
   // Kendall's tau (printed as a "Correlation Coefficient" too) has another distribution than r.
   if (blocks.some((block) => /kendall|\btau/i.test(block.name)) || /kendall|\btau/i.test(lines[first - 1]?.text ?? '')) return null;
   const width = blocks[0]?.r.length ?? 0;
-  const whole = blocks.filter((block) => block.r.length === width && block.p?.length === width && (block.n === null || block.n.length === width));
+  const whole = blocks.filter((block) => block.r.length === width && block.p?.length === width && (block.n === null || block.n.length === width) && (block.df === null || block.df.length === width));
   if (whole.length < 2 || width < 2) return null;
   const columnNames = blocks.length === width ? blocks.map((block, column) => block.name || String(column + 1)) : null;
-  const rows: string[][] = [['Variables', 'r', 'p', 'N']];
-  const cells: (CellSpan | null)[][] = [[null, null, null, null]];
+  const rows: string[][] = [['Variables', 'r', 'p', 'N', 'df']];
+  const cells: (CellSpan | null)[][] = [[null, null, null, null, null]];
   for (const block of whole) {
     block.r.forEach((r, column) => {
       const p = block.p![column]!;
       // The diagonal: a correlation of 1 with no p.
       if (/^[-\u2212\u2013\u2014.]$/.test(r.text) || /^[-\u2212\u2013\u2014.]$/.test(p.text)) return;
       const n = block.n?.[column] ?? null;
+      const df = block.df?.[column] ?? null;
       const other = columnNames?.[column] ?? String(column + 1);
-      rows.push([`${block.name} \u00d7 ${other}`, r.text, block.oneTailed ? '' : p.text, n?.text ?? '']);
-      cells.push([block.nameSpan, span(r), block.oneTailed ? null : span(p), n === null ? null : span(n)]);
+      rows.push([`${block.name} \u00d7 ${other}`, r.text, block.oneTailed ? '' : p.text, n?.text ?? '', df?.text ?? '']);
+      cells.push([block.nameSpan, span(r), block.oneTailed ? null : span(p), n === null ? null : span(n), df === null ? null : span(df)]);
     });
   }
   if (rows.length < 2) return null;

@@ -287,3 +287,24 @@ describe('a crushed table of correlations named by short column names, not a mat
     expect(scanDocument(plainTextDocument('ragged.txt', 'text', text)).results).toEqual([]);
   });
 });
+
+describe("a program's partial correlations crushed into single spaces", () => {
+  it('reads each correlation with the p and the df printed under it (stars standing apart)', () => {
+    // Common practice: "Correlation", "Significance (2-tailed)" and "df" rows per variable. r(52) = −.448 gives
+    // p = .0007 and −.143 gives .30 (SciPy 1.10.1 scipy.stats.t.sf of r√(df/(1 − r²)), two-sided).
+    const text = [
+      'Table 3. Partial correlations (controlling for age) between sleep and heart rate variability',
+      'Control Variables: Age Sleep Latency Daytime Dysfunction',
+      'Stress VLF Correlation −0.143 −0.448',
+      'Significance (2-tailed) 0.303 0.001 *',
+      'df 52 52',
+      'Stress HF Correlation −0.334 −0.166',
+      'Significance (2-tailed) 0.013 * 0.231',
+      'df 52 52',
+      '',
+      'Next.',
+    ].join('\n');
+    const read = scanDocument(plainTextDocument('partial.txt', 'text', text)).results.map((result) => `r(${result.df.map((df) => df.text).join(', ')}) = ${result.value?.text}, p = ${result.p?.value.text}`);
+    expect(read).toEqual(['r(52) = -0.143, p = 0.303', 'r(52) = -0.448, p = 0.001', 'r(52) = -0.334, p = 0.013', 'r(52) = -0.166, p = 0.231']);
+  });
+});
