@@ -183,12 +183,11 @@ function splitEmbeddedTable(line: Line): Line[] {
   // (Words apart by spaces first, a cheap look that passes over most lines of prose before they are tokenised.)
   if (!holdsHeaderStretch(line.text.split(/[ \t]+/))) return [line];
   const tokens = tokenize(line.text);
-  const mayHoldHeader = headerStretches(tokens);
   for (let index = 0, end = 0; index < tokens.length; index = Math.max(end, index + 1)) {
     const roles: string[] = [];
     end = index;
     // (Most words of a line of prose cannot begin a column's name: passed over without looking up phrases.)
-    if (!mayHoldHeader[index] || !couldStartHeader(tokens[index]!.text)) continue;
+    if (!couldStartHeader(tokens[index]!.text)) continue;
     for (let length = knownPhraseLength(tokens, end); length > 0; length = knownPhraseLength(tokens, end)) {
       roles.push(classifyHeader(join(line.text, tokens[end]!, tokens[end + length - 1]!).text).role);
       end += length;
@@ -221,25 +220,6 @@ function holdsHeaderStretch(words: string[]): boolean {
 
 /** A word no header holds: a number or a comparison. */
 const BREAKS_HEADER = /^[-\u2212]?\.?\d|[=<>\u2264\u2265]/;
-
-/**
- * For each token, whether it lies in a stretch of the line free of numbers and comparisons that holds at least
- * MIN_EMBEDDED_HEADER_NAMES words that could begin a column's name: a header's names stand together, where the
- * results of running text ("F(1, 88) = 5.21, p = .025") do not. Checked before any phrase is looked up.
- */
-function headerStretches(tokens: Piece[]): boolean[] {
-  const marks = new Array<boolean>(tokens.length).fill(false);
-  let from = 0;
-  for (let index = 0; index <= tokens.length; index++) {
-    const token = tokens[index];
-    if (token !== undefined && !BREAKS_HEADER.test(token.text)) continue;
-    let starts = 0;
-    for (let at = from; at < index && starts < MIN_EMBEDDED_HEADER_NAMES; at++) if (couldStartHeader(tokens[at]!.text)) starts++;
-    if (starts >= MIN_EMBEDDED_HEADER_NAMES) marks.fill(true, from, index);
-    from = index + 1;
-  }
-  return marks;
-}
 
 /** Where the last "Table 4" of a text begins (0 when none, or at its start). */
 function lastTitleStart(text: string): number {
@@ -603,7 +583,7 @@ function tokenize(text: string): Piece[] {
     // "6.84 n.s.", "7.67 *", "3.44 (*)", "0.449 ††": a number's "not significant" or its marks set apart by a space belong to it.
     const markOfNumber = previous !== undefined && /^(?:n\.s\.?|N\.S\.?|ns|NS|[*\u2020\u2021\u00a7]{1,3}|\(\*{1,3}\))$/.test(token.text) && /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
     // "Group (2, 57) 4.21": a bracketed df pair after a label's word is a cell of its own, not part of the label.
-    const pairAfterWord = BRACKETED_DF_PAIR.test(token.text) && previous !== undefined && !isValueToken(previous.text);
+    const pairAfterWord = (token.text.startsWith('(') || token.text.startsWith('[')) && isBracketedPair(token.text) && previous !== undefined && !isValueToken(previous.text);
     const joinsPrevious =
       previous !== undefined &&
       (dfPair || detachedMinus || markOfNumber || ((token.text.startsWith('(') || token.text.startsWith('[')) && !pairAfterWord) || /^(?:<=|>=|<|>|=|\u2264|\u2265)$/.test(previous.text));
@@ -665,8 +645,11 @@ function isValueToken(text: string): boolean {
   return P_WITH_DF_AFTER.test(text);
 }
 
-/** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)". */
-const BRACKETED_DF_PAIR = /^[([]\s?[1-9]\d{0,3}(?:\.\d{1,2})?\s?[,;/]\s?[1-9]\d{0,4}(?:\.\d{1,2})?\s?[)\]]$/;
+/** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)" (align.ts reads its shape). */
+function isBracketedPair(text: string): boolean {
+  const shape = shapeOf(text);
+  return shape.shape === 'pair' && shape.bracketed === true;
+}
 
 /** A bound p followed by a df pair in brackets. */
 const P_WITH_DF_AFTER = /^(?:<=|>=|<|>|\u2264|\u2265)\s?0?\.\d+\s+\(\d{1,4}(?:\.\d{1,2})?,\s?\d{1,5}(?:\.\d{1,2})?\)$/;
