@@ -9,7 +9,7 @@ import { scanDocument } from '../../src/scan/scanDocument.js';
  * practice), an error row or numerator and denominator df columns, rendered
  * with pipes, tabs, single spaces, padded columns or one cell per line, with
  * or without a title, and one kind of damage a copy does (stars or footnote
- * letters on values, "< .001" and "0.000" for p, decimal commas, blank lines
+ * letters on values, "< .001", "0.000", "n.s." or stars for p, decimal commas, blank lines
  * between rows, headers in capitals, an error row that prints only its df).
  *
  * Every F read must be one the table prints, with the df the table gives it
@@ -21,7 +21,7 @@ const seed = 20261204;
 
 type Column = 'label' | 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'F' | 'p' | 'eta';
 type Rendering = 'pipe' | 'tab' | 'crushed' | 'padded' | 'cell-per-line';
-type Damage = 'none' | 'stars' | 'p-bound' | 'p-letter' | 'p-zero' | 'decimal-comma' | 'blank-lines' | 'capitals' | 'error-df-only';
+type Damage = 'none' | 'stars' | 'p-bound' | 'p-letter' | 'p-zero' | 'decimal-comma' | 'blank-lines' | 'capitals' | 'error-df-only' | 'ns' | 'p-stars';
 
 const SPELLINGS: Record<Column, string[]> = {
   label: ['Source', 'Effect', 'Variable', 'Factor', 'Source of variation', ''],
@@ -69,7 +69,7 @@ const tableCase = fc.record({
   errorDf: fc.integer({ min: 10, max: 240 }),
   errorLabel: fc.constantFrom(...ERROR_LABELS),
   rendering: fc.constantFrom<Rendering>('pipe', 'tab', 'crushed', 'padded', 'cell-per-line'),
-  damage: fc.constantFrom<Damage>('none', 'stars', 'p-bound', 'p-letter', 'p-zero', 'decimal-comma', 'blank-lines', 'capitals', 'error-df-only'),
+  damage: fc.constantFrom<Damage>('none', 'stars', 'p-bound', 'p-letter', 'p-zero', 'decimal-comma', 'blank-lines', 'capitals', 'error-df-only', 'ns', 'p-stars'),
   mark: fc.constantFrom('*', '**', '***', '†', 'a', 'b'),
   titled: fc.boolean(),
 });
@@ -110,6 +110,8 @@ function printed(input: TableCase): { header: string[]; rows: string[][] } {
     if (damage === 'p-bound') row[pColumn] = '<.001';
     if (damage === 'p-letter') row[pColumn] += input.mark.replace(/[*†]+/, 'a');
     if (damage === 'p-zero') row[pColumn] = '0.000';
+    if (damage === 'ns') row[pColumn] = 'n.s.';
+    if (damage === 'p-stars') row[pColumn] = `${row[pColumn]}**`;
   }
   // An error row where the table has one: a df column for the effects, or sums of squares.
   if (layout.includes('df') || layout.includes('ss')) {

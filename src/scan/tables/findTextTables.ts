@@ -581,7 +581,12 @@ function tokenize(text: string): Piece[] {
     // dash, never stands for an empty cell.
     const detachedMinus = previous !== undefined && previous.text === '\u2212' && /^\.?\d/.test(token.text);
     // "6.84 n.s.", "7.67 *", "3.44 (*)", "0.449 ††": a number's "not significant" or its marks set apart by a space belong to it.
-    const markOfNumber = previous !== undefined && /^(?:n\.s\.?|N\.S\.?|ns|NS|[*\u2020\u2021\u00a7]{1,3}|\(\*{1,3}\))$/.test(token.text) && /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
+    // (Not across a wide gap: there the marks, or "n.s.", stand in a column of their own, a p column.)
+    const markOfNumber =
+      previous !== undefined &&
+      token.start - previous.end < 2 &&
+      /^(?:n\.s\.?|N\.S\.?|ns|NS|[*\u2020\u2021\u00a7]{1,3}|\(\*{1,3}\))$/.test(token.text) &&
+      /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
     // "Group (2, 57) 4.21": a bracketed df pair after a label's word is a cell of its own, not part of the label.
     const pairAfterWord = (token.text.startsWith('(') || token.text.startsWith('[')) && isBracketedPair(token.text) && previous !== undefined && !isValueToken(previous.text);
     const joinsPrevious =
