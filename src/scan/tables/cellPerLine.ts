@@ -187,7 +187,7 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (!titled && headerRun.filter((cell) => classifyHeader(cell.text).role !== 'label').length !== valueCount) return null;
   const labelCount = typicalLabelCount(body);
   const everyCell =
-    grid !== null ? headerRun : unnamed !== null ? headerRun : valueCount >= 2 && headerRun.length > valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
+    grid !== null ? headerRun : unnamed !== null ? headerRun : valueCount >= 2 && headerRun.length >= valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
   const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
   const roles = names.map((cell) => classifyHeader(cell.text));
   const known = roles.filter((role) => role.role !== 'unknown' && role.role !== 'label').length;

@@ -291,10 +291,13 @@ function knownKeyOf(key: string): string | null {
   return null;
 }
 
-/** The header without a ", p" or "(p)" naming the p its cells hold too ("f(1, 66)d, p" -> "f(1, 66)"), or null. */
+/**
+ * The header without a ", p" or "(p)" naming the p its cells hold too ("f(1, 66)d, p" -> "f(1, 66)"), or
+ * null. A footnote letter is dropped only after a bracket or digit: "f" and "f value" end in letters too.
+ */
 function withoutPSuffix(key: string): string | null {
   for (const suffix of [', p', ',p', ' (p)', '(p)', ' (p-value)', ' (p value)', '(p-value)']) {
-    if (key.endsWith(suffix) && key.length > suffix.length) return key.slice(0, key.length - suffix.length).replace(/[a-h]$/, '');
+    if (key.endsWith(suffix) && key.length > suffix.length) return key.slice(0, key.length - suffix.length).replace(/(?<=[0-9)\]])[a-h]$/, '');
   }
   // "t (df) p": the p after the df's brackets.
   if (/\) ?p$/.test(key)) return key.slice(0, key.length - 1).trimEnd();

@@ -827,7 +827,11 @@ function readHeader(line: Line): HeaderLine | null {
   const statisticNames = columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;
   // Group names between the label and a test's columns ("Variable Men Women t(58) p"): one run of unknown words
   // before a statistic and its p.
-  const pNames = columns.filter((column) => classifyHeader(column.text).role === 'p').length;
+  // (A statistic whose cells hold their p too, "χ2 (p)", names the p.)
+  const pNames = columns.filter((column) => {
+    const role = classifyHeader(column.text);
+    return role.role === 'p' || (role.role === 'statistic' && role.pInCell === true);
+  }).length;
   const groupsThenTest = unknown === 1 && statisticNames >= 1 && pNames >= 1;
   return namesTest && (named >= 3 || statisticNames >= 2 || groupsThenTest) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
 }

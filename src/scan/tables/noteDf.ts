@@ -92,6 +92,8 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
   // What is left once the named error df is taken out: "df = 2, error df = 57" leaves "df = 2".
   const rest = errorMatch ? text.slice(0, errorMatch.index) + text.slice(errorMatch.index + errorMatch[0].length) : text;
   const pair = DF_PAIR.exec(rest) ?? PAIR_THEN_DF.exec(rest);
+  // df stated for one effect ("df = 2, 57 for Group and 1, 57 for Time") are that row's, not every row's.
+  if (pair && statedForOneEffect(rest.slice(pair.index + pair[0].length))) return { ...none, error };
   if (pair) return { ...none, pair: [number(pair[1]!), number(pair[2]!)], error };
   const single = DF_SINGLE.exec(rest);
   // Several different df stated one by one ("df = 1 for sex, df = 2 for education") belong to different rows:
@@ -107,6 +109,13 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
     return { ...none, pair: [number(first), number(second)], error };
   }
   return { ...none, error };
+}
+
+/** After df: "for" and a name other than all the tests ("for Group", not "for all tests", "for the F tests"). */
+const FOR_ONE_EFFECT = /^ {0,3}(?:for|in) {1,3}(?!(?:all|every|each|both)(?![A-Za-z])|the {1,3}(?:F|tests?|effects?|analys[ie]s|models?|comparisons)(?![A-Za-z])|F(?:-| )?(?:tests?|values?|ratios?)(?![A-Za-z]))[A-Za-z]/i;
+
+function statedForOneEffect(after: string): boolean {
+  return FOR_ONE_EFFECT.test(after);
 }
 
 /** Whether the note states another single df besides the one read ("df = 1 … df = 2"). */

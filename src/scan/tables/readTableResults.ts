@@ -85,8 +85,11 @@ const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic
 // "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
 const ERROR_LABEL =
   /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
-/** The end of a row label that says the row holds means and SDs: "M SD", "M (SD)", "Mean (SD)", "Mean ± SD". */
-const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:m|mean|means)\s?(?:\(sd\)|sd|\u00b1 ?sd|\(se\)|se)$|(?:^|\s)(?:mean|means|sd)$/;
+/**
+ * The end of a row label that says the row holds means and SDs: "M SD", "M (SD)", "Mean (SD)", "Mean ± SD".
+ * ("MSE", a mean square error, is not "M SE": a lone "m" needs a space or bracket before "sd" or "se".)
+ */
+const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:(?:m|mean|means)\s?(?:\(sd\)|\u00b1 ?sd|\(se\))|(?:m|mean|means)\s(?:sd|se)|(?:mean|means)(?:sd|se))$|(?:^|\s)(?:mean|means|sd)$/;
 
 /** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
 const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;

@@ -81,12 +81,18 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
     if (p === undefined) return;
     const dfRun = partners.find((other) => other.kind === 'df');
     const labelDf = dfInName(run.name);
-    run.values.forEach((value, at) => {
+    run.values.forEach((printed, at) => {
+      // A value printed with its df ("4.21 (2, 57)") gives the value and the df apart.
+      const withDf = isValue(printed) ? null : partsOf(printed, VALUE_WITH_DF_CELL);
+      const value = withDf?.[0] ?? printed;
       const row: string[] = [`${run.name.text} [${at + 1}]`, value.text];
       // (The name is not the row's start: the result is read from its value to its p.)
       const rowSpans: (CellSpan | null)[] = [null, spanOf(value)];
-      const dfCells: (Cell | null)[] = dfRun !== undefined ? [dfRun.values[at]!] : labelDf;
+      const dfCell = dfRun?.values[at];
       const dfWidth = kind === 'F' ? 2 : 1;
+      const printedDf: (Cell | null)[] = withDf !== null ? withDf.slice(1) : dfCell !== undefined ? (partsOf(dfCell, DF_PAIR_CELL) ?? [dfCell]) : labelDf;
+      // (Two df printed for a t, or one for an F, say something else: the row is read without them.)
+      const dfCells = printedDf.length === 0 || printedDf.length === dfWidth || (kind === 'F' && printedDf.length === 1 && dfCell !== undefined) ? printedDf : [];
       for (let slot = 0; slot < dfWidth; slot++) {
         const dfCell = dfCells[slot] ?? null;
         row.push(dfCell?.text ?? '');
@@ -155,6 +161,34 @@ function isValue(cell: Cell): boolean {
   return readCell(cell.text, 'either').kind === 'number';
 }
 
+/** A df pair as one cell of a df row: "2, 57", "(2, 57)", "2/57", "1.87; 108.2" (a point for decimals only). */
+const DF_PAIR_CELL = /^\(? ?(\d{1,4}(?:\.\d{1,2})?) ?[,;/] ?(\d{1,5}(?:\.\d{1,2})?) ?\)?$/;
+/** A statistic with its df in brackets as one cell of a statistic's row: "4.21 (2, 57)", "−2.10 [58]", "3.4(1,40)**". */
+const VALUE_WITH_DF_CELL = /^([-\u2212]?(?:\d{1,4}(?:\.\d{1,4})?|\.\d{1,4})\*{0,3}) ?[([] ?(\d{1,4}(?:\.\d{1,2})?)(?: ?[,;] ?(\d{1,5}(?:\.\d{1,2})?))? ?[)\]]\*{0,3}$/;
+
+/** Whether a cell can stand in a run of this kind: a number, or a df pair (df rows), or a value with its df (statistic rows). */
+function isRunValue(cell: Cell, kind: RunKind): boolean {
+  if (isValue(cell)) return true;
+  if (kind === 'df') return DF_PAIR_CELL.test(cell.text);
+  if (kind === 'statistic') return VALUE_WITH_DF_CELL.test(cell.text);
+  return false;
+}
+
+/** The parts of a cell matched by `pattern`'s groups, as cells pointing into it. */
+function partsOf(cell: Cell, pattern: RegExp): Cell[] | null {
+  const match = pattern.exec(cell.text);
+  if (!match) return null;
+  const parts: Cell[] = [];
+  let from = 0;
+  for (const written of match.slice(1)) {
+    if (written === undefined) continue;
+    const offset = cell.text.indexOf(written, from);
+    from = offset + written.length;
+    parts.push({ text: written, start: cell.start + offset, end: cell.start + offset + written.length, line: cell.line });
+  }
+  return parts;
+}
+
 /** Every name cell with the run of values right after it (an empty cell or a text cell ends a run). */
 function readRuns(cells: (Cell | null)[]): Run[] {
   const runs: Run[] = [];
@@ -168,7 +202,7 @@ function readRuns(cells: (Cell | null)[]): Run[] {
     let at = index + 1;
     while (at < cells.length && values.length < MAX_RUN) {
       const next = cells[at];
-      if (next === null || next === undefined || !isValue(next)) break;
+      if (next === null || next === undefined || !isRunValue(next, kind)) break;
       values.push(next);
       at++;
     }
@@ -250,6 +284,9 @@ function piecesOf(text: string): ({ text: string; start: number; end: number } |
   }
   const gaps = [...text.matchAll(/\S+(?: \S+)*/g)];
   if (/\t| {2,}/.test(text.trim())) return gaps.map((match) => ({ text: match[0], start: match.index!, end: match.index! + match[0].length }));
+  // A crushed df row of pairs ("df 2, 57 1, 57") or statistic row of values with df ("F 4.21 (2, 57) 2.11 (1, 57)").
+  const withPairs = crushedPairPieces(text);
+  if (withPairs !== null) return withPairs;
   // A crushed line: a name, then values apart by single spaces ("T (14) 10.07 3.48 −0.61").
   const words = [...text.matchAll(/\S+/g)];
   let first = words.length;
@@ -264,4 +301,35 @@ function piecesOf(text: string): ({ text: string; start: number; end: number } |
     { text: text.slice(nameStart, nameEnd), start: nameStart, end: nameEnd },
     ...words.slice(first).map((word) => ({ text: word[0], start: word.index!, end: word.index! + word[0].length })),
   ];
+}
+
+/** One value of a crushed df row or statistic row (see crushedPairPieces), standing between spaces. */
+const CRUSHED_DF_PAIR = /(?<=\s)\(? ?\d{1,4}(?:\.\d{1,2})? ?[,;/] ?\d{1,5}(?:\.\d{1,2})? ?\)?(?=\s|$)/g;
+const CRUSHED_VALUE_WITH_DF = /(?<=\s)[-\u2212]?(?:\d{1,4}(?:\.\d{1,4})?|\.\d{1,4})\*{0,3} ?[([] ?\d{1,4}(?:\.\d{1,2})?(?: ?[,;] ?\d{1,5}(?:\.\d{1,2})?)? ?[)\]]\*{0,3}(?=\s|$)/g;
+
+/**
+ * A crushed line whose values are df pairs under a df name ("df 2, 57 1, 57 2, 57") or values with
+ * their df under a statistic's name ("F 4.21 (2, 57) 2.11 (1, 57)"): the name, then one piece per
+ * value, or null. The pieces must run from after the name to the end of the line with only spaces
+ * between them. (Pairs only under a df name: under any other, "4,21" is a number with a decimal comma.)
+ */
+function crushedPairPieces(text: string): { text: string; start: number; end: number }[] | null {
+  const trimmedEnd = text.trimEnd().length;
+  for (const pattern of [CRUSHED_DF_PAIR, CRUSHED_VALUE_WITH_DF]) {
+    const units = [...text.matchAll(pattern)];
+    if (units.length === 0 || units[units.length - 1]!.index! + units[units.length - 1]![0].length !== trimmedEnd) continue;
+    // The run of units that reaches the end of the line, with nothing but spaces between them.
+    let first = units.length - 1;
+    while (first > 0 && text.slice(units[first - 1]!.index! + units[first - 1]![0].length, units[first]!.index!).trim() === '') first--;
+    const nameText = text.slice(0, units[first]!.index!).trim();
+    if (!/\p{L}/u.test(nameText)) continue;
+    const role = classifyHeader(nameText).role;
+    if (role !== (pattern === CRUSHED_DF_PAIR ? 'df' : 'statistic')) continue;
+    const nameStart = text.indexOf(nameText);
+    return [
+      { text: nameText, start: nameStart, end: nameStart + nameText.length },
+      ...units.slice(first).map((unit) => ({ text: unit[0], start: unit.index!, end: unit.index! + unit[0].length })),
+    ];
+  }
+  return null;
 }

@@ -1,0 +1,86 @@
+/**
+ * Table shapes through the built command line, each a common way of
+ * printing results tables (common practice, no single source): a table on
+ * its side whose df row holds pairs or whose F row holds "F (df)" cells; a
+ * statistic column whose cells hold their p ("F (p)", "χ2 (1) (p)") next
+ * to group columns; a note that states df for one effect only; a header
+ * name no vocabulary knows between known ones, one cell per line; a row
+ * labelled with a mean square error ("MSE"). The numbers are made up for
+ * the layouts; what is asserted is what is read (value and df), and that
+ * nothing is read with df that belong to another row.
+ */
+import { describe, expect, it } from 'vitest';
+import { scanTextJson } from './scanDocumentJson.js';
+
+type Statistic = ReturnType<typeof scanTextJson>['statistics'][number];
+const readAs = (statistics: Statistic[]) => statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]);
+
+describe('results tables in the shapes papers print them', () => {
+  it('reads a table on its side whose df row holds one pair per test, with tabs or crushed into single spaces', () => {
+    const rows = [['', 'Group', 'Time', 'Group × Time'], ['F', '4.21', '2.11', '6.66'], ['df', '2, 57', '1, 57', '2, 57'], ['p', '.020', '.152', '.002']];
+    for (const separator of ['\t', ' ']) {
+      const table = rows.map((row) => row.filter((cell) => separator === '\t' || cell !== '').join(separator)).join('\n');
+      const document = scanTextJson(`Results follow.\n\nTable 2\nMixed ANOVA of the scores\n${table}\n\nThe next section.\n`);
+      expect(readAs(document.statistics), JSON.stringify(separator)).toEqual([
+        ['F', 4.21, [2, 57]],
+        ['F', 2.11, [1, 57]],
+        ['F', 6.66, [2, 57]],
+      ]);
+    }
+  });
+
+  it('reads a table on its side whose F row prints each F with its df in brackets', () => {
+    const document = scanTextJson('Table 2\nMixed ANOVA of the scores\n\tGroup\tTime\nF(df)\t4.21 (2, 57)\t2.11 (1, 57)\np\t.020\t.152\n\nThe next section.\n');
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 2.11, [1, 57]],
+    ]);
+  });
+
+  it('reads "F (p)" and "χ2 (1) (p)" columns whose cells hold the p in brackets, after columns named by answers', () => {
+    const chi = scanTextJson('Table 2. Answers\nItem Agree Disagree χ2 (1) (p)\nQ1 34 26 2.40 (.121)\nQ2 41 19 2.22 (.136)\n\nNext.\n');
+    expect(readAs(chi.statistics)).toEqual([
+      ['chi2', 2.4, [1]],
+      ['chi2', 2.22, [1]],
+    ]);
+    expect(chi.statistics.map((statistic) => statistic.p?.value)).toEqual([0.121, 0.136]);
+    const f = scanTextJson('Table 2. Answers\nItem Agree Disagree F (p)\nQ1 34 26 2.40 (.121)\nQ2 41 19 2.22 (.136)\nNote. df = 1, 58.\n\nNext.\n');
+    expect(readAs(f.statistics)).toEqual([
+      ['F', 2.4, [1, 58]],
+      ['F', 2.22, [1, 58]],
+    ]);
+  });
+
+  it('does not give every column the df a note states for one effect', () => {
+    const document = scanTextJson(
+      'Table 3\nANOVA results for each outcome\n\tGroup\t\tTime\t\nOutcome\tF\tp\tF\tp\nAnxiety\t4.21\t.020\t2.11\t.152\nDepression\t6.66\t.002\t1.02\t.317\nNote. df = 2, 57 for Group and 1, 57 for Time.\n\nNext.\n',
+    );
+    // (The df of Time's F tests are not 2 and 57: read without df, each is listed, never checked with those.)
+    expect(document.statistics.filter((statistic) => statistic.df.length > 0)).toEqual([]);
+    // A note that states df for all tests still gives them to every row.
+    const all = scanTextJson('Table 3\nANOVA results\nOutcome\tF\tp\nAnxiety\t4.21\t.020\nDepression\t6.66\t.002\nNote. df = 2, 57 for all tests.\n\nNext.\n');
+    expect(readAs(all.statistics)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 6.66, [2, 57]],
+    ]);
+  });
+
+  it('keeps an unknown header name between known ones as a column, one cell per line (a Dutch ANOVA table)', () => {
+    const cells = ['Bron', 'Kwadratensom', 'df', 'Gemiddelde kwadraten', 'F', 'Sig.', 'Groep', '12.40', '2', '6.20', '4.21', '.020', 'Tijd', '9.80', '1', '9.80', '6.66', '.012', 'Fout', '83.90', '57', '1.47'];
+    const document = scanTextJson(`Tabel 3. Variantieanalyse\n${cells.join('\n')}\n\n\nVolgende sectie.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 6.66, [1, 57]],
+    ]);
+  });
+
+  it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
+    const document = scanTextJson(
+      'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',
+    );
+    expect(readAs(document.statistics)).toEqual([
+      ['t', 25.04, [524]],
+      ['t', 20.57, [360]],
+    ]);
+  });
+});
