@@ -5,7 +5,8 @@
  * statistic column whose cells hold their p ("F (p)", "χ2 (1) (p)") next
  * to group columns; a note that states df for one effect only; a header
  * name no vocabulary knows between known ones, one cell per line; a row
- * labelled with a mean square error ("MSE"). The numbers are made up for
+ * labelled with a mean square error ("MSE"); a program's univariate ANOVA
+ * output with its Portuguese, French and Italian column names. The numbers are made up for
  * the layouts; what is asserted is what is read (value and df), and that
  * nothing is read with df that belong to another row.
  */
@@ -72,6 +73,26 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 4.21, [2, 57]],
       ['F', 6.66, [1, 57]],
     ]);
+  });
+
+  it('reads the univariate ANOVA output of statistics programs in Portuguese, French and Italian, one cell per line and crushed', () => {
+    const headers = [
+      ['Fonte', 'Soma dos Quadrados Tipo III', 'gl', 'Quadrado Médio', 'F', 'Sig.', 'Eta parcial ao quadrado', 'Erro'],
+      ['Source', 'Somme des carrés de type III', 'ddl', 'Carré moyen', 'F', 'Signification', 'Eta-carré partiel', 'Erreur'],
+      ['Origine', 'Somma dei quadrati di tipo III', 'gdl', 'Media dei quadrati', 'F', 'Sig.', 'Eta quadrato parziale', 'Errore'],
+    ];
+    for (const names of headers) {
+      const header = names.slice(0, 7);
+      const rows = [['A', '12.40', '2', '6.20', '4.21', '.020', '.13'], ['B', '9.80', '1', '9.80', '6.66', '.012', '.10'], [names[7]!, '83.90', '57', '1.47']];
+      for (const layout of ['cell per line', 'crushed']) {
+        const table = layout === 'crushed' ? [header, ...rows].map((row) => row.join(' ')).join('\n') : [...header, ...rows.flat()].join('\n');
+        const document = scanTextJson(`Tabela 3. ANOVA\n${table}\n\n\nNext.\n`);
+        expect(readAs(document.statistics), `${names[0]} ${layout}`).toEqual([
+          ['F', 4.21, [2, 57]],
+          ['F', 6.66, [1, 57]],
+        ]);
+      }
+    }
   });
 
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
