@@ -95,6 +95,20 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads shortened and named spellings of F, chi-square and their df in headers, crushed into single spaces', () => {
+    const tables = [
+      { header: 'Outcome F-Stat df1/df2 p', rows: ['Anxiety 4.21 2/57 .020'], expected: ['F', 4.21, [2, 57]] },
+      { header: "Outcome Welch's F df1 df2 p", rows: ['Anxiety 4.21 2 31.4 .024'], expected: ['F', 4.21, [2, 31.4]] },
+      { header: 'Predictor LR Chisq Df Pr(>Chisq)', rows: ['Group 8.12 2 .017'], expected: ['chi2', 8.12, [2]] },
+      { header: 'Variable Wald Chi-Square df Sig.', rows: ['Group 8.12 2 .017'], expected: ['chi2', 8.12, [2]] },
+      { header: 'Variable Chi-sq df p', rows: ['Sex 3.36 1 .067'], expected: ['chi2', 3.36, [1]] },
+    ];
+    for (const { header, rows, expected } of tables) {
+      const document = scanTextJson(`Table 4. Tests\n${header}\n${rows.join('\n')}\n\nNext.\n`);
+      expect(readAs(document.statistics), header).toEqual([expected]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

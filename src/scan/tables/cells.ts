@@ -250,6 +250,11 @@ put(['soma dos quadrados tipo iii', 'soma dos quadrados do tipo iii', 'somme des
 put(['media dei quadrati', 'media quadratica', 'quadrato medio', 'gemiddelde kwadraten', 'gemiddeld kwadraat'], { role: 'ms' });
 put(['eta parcial ao quadrado', 'eta ao quadrado parcial', 'eta-carré partiel', 'eta carre partiel', 'eta-carre partiel', 'eta quadrato parziale', 'eta al quadrato parziale', 'partiële eta-kwadraat', 'partiele eta-kwadraat', 'partiële eta kwadraat', 'eta kwadraat partieel'], { role: 'effect', effect: 'partial-eta-squared' });
 put(['fonte', 'fuente', 'bron', 'origine', 'fonte di variazione', 'fonte di variabilità'], { role: 'label' });
+// Shortened and run-together spellings, and named variants of F and chi-square (common practice, from tables of
+// journals and statistics programs' output).
+put(['f stat', 'f-stat', 'f stat.', 'fvalue', 'fratio', 'f-test value', 'f test value', 'welch f', "welch's f", 'f welch', 'welch-f', 'brown-forsythe f'], { role: 'statistic', kind: 'F', df: [] });
+put(['chi-sq', 'chi sq', 'chi-sq.', 'chi.sq', 'chisq.', 'lr chisq', 'lr chi-square', 'lr chi-sq', 'wald chi-square', 'wald chi square', 'wald chisq', 'wald chi-sq', 'likelihood ratio chi-square', 'likelihood-ratio chi-square'], { role: 'statistic', kind: 'chi2', df: [] });
+put(['df1/df2', 'df1 / df2', 'df1; df2'], { role: 'df' });
 put(['g.l.', 'g.l', 'gl.', 'degree of freedom', 'deg. of freedom', 'd.o.f.', 'gdl', 'g.d.l.', 'gradi di libertà'], { role: 'df' });
 // The p of statistics software's chi-square and nonparametric output, and correlation coefficients named in full.
 put(['asymp. sig. (2-sided)', 'asymp. sig. (2-tailed)', 'asymp. sig.', 'asymptotic sig. (2-sided)', 'asymptotic significance (2-sided)', 'asymptotic significance', 'exact sig. (2-sided)', 'exact sig. (2-tailed)', 'exact sig.', 'exact significance (2-sided)', 'sig. asintótica (bilateral)', 'sig. asintotica (bilateral)', 'sig. exacta (bilateral)', 'sig. assintótica (bilateral)', 'asymptotische signifikanz (2-seitig)', 'two-sided p', 'two-tailed p-value', 'p (two-sided)', 'p two-sided'], { role: 'p' });
