@@ -109,6 +109,39 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads "F (df)" cells with significance marks and no p column, the marks after the brackets or before them', () => {
+    for (const [anxiety, mood] of [
+      ['4.21 (2, 57)*', '6.66 (2, 57)**'],
+      ['4.21* (2, 57)', '6.66** (2, 57)'],
+    ]) {
+      const document = scanTextJson(`Table 4. Tests\nMeasure\tF (df)\nAnxiety\t${anxiety}\nMood\t${mood}\nNote. *p < .05. **p < .01.\n\nNext.\n`);
+      expect(readAs(document.statistics), anxiety).toEqual([
+        ['F', 4.21, [2, 57]],
+        ['F', 6.66, [2, 57]],
+      ]);
+      expect(document.statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value])).toEqual([
+        ['<', 0.05],
+        ['<', 0.01],
+      ]);
+    }
+  });
+
+  it('reads "4.21(2,57)" glued under "F(df)" as F and its df pair (not 2.57), crushed into single spaces', () => {
+    const document = scanTextJson('Table 4. Tests\nMeasure F(df) p\nAnxiety 4.21(2,57) .020\nMood 6.66(2,57) .002\n\nNext.\n');
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 6.66, [2, 57]],
+    ]);
+  });
+
+  it('reads a df column headed "(df)"', () => {
+    const document = scanTextJson('Table 4. Tests\nEffect\tF\t(df)\tp\nGroup\t4.21\t(2, 57)\t.020\nTime\t2.11\t(1, 57)\t.152\n\nNext.\n');
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 2.11, [1, 57]],
+    ]);
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

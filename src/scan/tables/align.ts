@@ -92,6 +92,11 @@ export function shapeOf(cell: string): CellShape {
     const outer = readCell(bracket[1]!, 'either');
     const inner = readCell(bracket[3]!, 'either');
     if (outer.kind === 'number' && inner.kind === 'number') {
+      // "4.21(2,57)": beside a value written with a decimal point, a comma between whole numbers parts a df
+      // pair (a decimal comma would be the cell's separator for both numbers).
+      if (/\./.test(bracket[1]!) && /^\d{1,4},\d{1,5}$/.test(bracket[3]!.trim())) {
+        return { shape: 'number-bracket', value: outer.number.value, inner: Number(bracket[3]!.split(',')[0]), innerDecimals: 0, innerPair: true };
+      }
       const shape: CellShape = { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
       return bracket[2] === undefined ? shape : { ...shape, innerComparator: bracket[2] };
     }

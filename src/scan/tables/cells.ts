@@ -254,7 +254,7 @@ put(['fonte', 'fuente', 'bron', 'origine', 'fonte di variazione', 'fonte di vari
 // journals and statistics programs' output).
 put(['f stat', 'f-stat', 'f stat.', 'fvalue', 'fratio', 'f-test value', 'f test value', 'welch f', "welch's f", 'f welch', 'welch-f', 'brown-forsythe f'], { role: 'statistic', kind: 'F', df: [] });
 put(['chi-sq', 'chi sq', 'chi-sq.', 'chi.sq', 'chisq.', 'lr chisq', 'lr chi-square', 'lr chi-sq', 'wald chi-square', 'wald chi square', 'wald chisq', 'wald chi-sq', 'likelihood ratio chi-square', 'likelihood-ratio chi-square'], { role: 'statistic', kind: 'chi2', df: [] });
-put(['df1/df2', 'df1 / df2', 'df1; df2'], { role: 'df' });
+put(['df1/df2', 'df1 / df2', 'df1; df2', '(df)', '[df]', '(d.f.)', '(dfs)'], { role: 'df' });
 put(['g.l.', 'g.l', 'gl.', 'degree of freedom', 'deg. of freedom', 'd.o.f.', 'gdl', 'g.d.l.', 'gradi di libertà'], { role: 'df' });
 // The p of statistics software's chi-square and nonparametric output, and correlation coefficients named in full.
 put(['asymp. sig. (2-sided)', 'asymp. sig. (2-tailed)', 'asymp. sig.', 'asymptotic sig. (2-sided)', 'asymptotic significance (2-sided)', 'asymptotic significance', 'exact sig. (2-sided)', 'exact sig. (2-tailed)', 'exact sig.', 'exact significance (2-sided)', 'sig. asintótica (bilateral)', 'sig. asintotica (bilateral)', 'sig. exacta (bilateral)', 'sig. assintótica (bilateral)', 'asymptotische signifikanz (2-seitig)', 'two-sided p', 'two-tailed p-value', 'p (two-sided)', 'p two-sided'], { role: 'p' });

@@ -55,3 +55,18 @@ export function splitMarks(cell: string): { number: string; marks: string } {
   const match = /^(.*?\d)\s{0,2}(\*{1,4}|\u2020{1,2}|\u2021{1,2}|#{1,2}|\u00a7)$/.exec(cell.trim());
   return match ? { number: match[1]!, marks: match[2]! } : { number: cell.trim(), marks: '' };
 }
+
+/** Marks after a statistic's bracketed df: "4.21 (2, 57)*" and "4.21* (2, 57)". */
+const MARKS_AROUND_DF = /^[^()[\]]{0,20}?\d(?:\s{0,2}(\*{1,4}|\u2020{1,2}|\u2021{1,2}))?\s{0,2}[([][^()[\]]{1,20}[)\]]\s{0,2}(\*{1,4}|\u2020{1,2}|\u2021{1,2})?$/;
+
+/**
+ * The significance marks of a cell, also where it holds a statistic with its df in brackets and the marks
+ * stand after the brackets or between the value and them ("4.21 (2, 57)**", "4.21** (2, 57)").
+ */
+export function marksOf(cell: string): string {
+  const plain = splitMarks(cell).marks;
+  if (plain !== '') return plain;
+  const match = MARKS_AROUND_DF.exec(cell.trim());
+  if (match === null || (match[1] !== undefined && match[2] !== undefined)) return '';
+  return match[1] ?? match[2] ?? '';
+}

@@ -45,7 +45,7 @@ import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumbe
 import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
-import { readMarkLegend, splitMarks, type MarkBound } from './marks.js';
+import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
@@ -275,14 +275,18 @@ function statisticNames(rows: string[][]): Set<string> {
   return kinds;
 }
 
+/** Cell shapes that hold a value with more beside it: a row with one is a row of the body, not of the header. */
+const VALUE_SHAPES = new Set(['number-bracket', 'number-interval', 'statistic-p']);
+
 function readTableRows(text: string, table: DocumentTable, tableIndex: number): TableReading {
   const nothing: TableReading = { results: [], unread: null, completions: [] };
   const rows = table.rows;
   // A correlation matrix: numbered variables against numbered columns (its header is numbers, so it is read apart).
   const matrix = readCorrelationMatrix({ text, table, tableIndex, located: table.cells ?? locateRows(text, table, 1), notes: [...table.notes, notesAfter(text, table.end)].join(' ') });
   if (matrix !== null) return { results: matrix, unread: null, completions: [] };
-  // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)").
-  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || shapeOf(cell).shape === 'number-bracket' || shapeOf(cell).shape === 'statistic-p'));
+  // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)",
+  // "4.21 (2, 57)", "0.04 (−0.45, 0.54)").
+  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || VALUE_SHAPES.has(shapeOf(cell).shape)));
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
@@ -1762,7 +1766,7 @@ function readRow(input: RowInput): ReportedResult | null {
 function pFromMarks(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, legend: ReadonlyMap<string, MarkBound>): ReportedP | null {
   if (column === undefined || legend.size === 0) return null;
   const written = (row[column] ?? '').trim();
-  const { marks } = splitMarks(written);
+  const marks = marksOf(written);
   const bound = marks === '' ? undefined : legend.get(marks);
   if (bound === undefined) return null;
   const at = cellsAt?.[column] ?? null;
@@ -1774,7 +1778,7 @@ function pFromMarks(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
 /** Whether some cell of `column` carries marks the legend defines. */
 function marksInColumn(rows: string[][], column: number | undefined, legend: ReadonlyMap<string, MarkBound>): boolean {
   if (column === undefined || legend.size === 0) return false;
-  return rows.some((row) => legend.has(splitMarks(row[column] ?? '').marks));
+  return rows.some((row) => legend.has(marksOf(row[column] ?? '')));
 }
 
 const INTERVAL_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]]/;
@@ -1912,7 +1916,7 @@ function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
   return [located(first, firstAt), located(second, secondAt)];
 }
 
-const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[([] *(?:df ?= ?)?(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
+const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: ?(?:[*\u2020\u2021]{1,4}))? *[([] *(?:df ?= ?)?(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;
 
 /**
  * A statistic cell that holds the df too: "4.842 (15)" in a column headed
