@@ -82,8 +82,9 @@ function readTail(text: string, draft: ResultDraft): boolean {
     const next = skipSeparators(text, position);
     if (next >= text.length || startsResult(text, next)) break;
 
-    if (last === 'head' && draft.head.df.length === 0) {
-      // Older styles give the df after the value: "t = 2.21, df = 28, p = .035", "F = 4.21, df = 1, 44".
+    if ((last === 'head' || last === 'p') && draft.head.df.length === 0) {
+      // Older styles give the df after the value: "t = 2.21, df = 28, p = .035", "F = 4.21, df = 1, 44"; some
+      // after the p: "χ2 = 7.80, p = 0.020, df = 2".
       const trailing = readTrailingDf(text, next, draft.head.kind === 'F' ? 2 : 1);
       if (trailing !== null) {
         draft.head = { ...draft.head, df: trailing.df };

@@ -46,6 +46,16 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     if (at < consumedUpTo) continue;
     const draft = readResultEndingHeadAt(source, at, consumedUpTo);
     if (draft === null) {
+      // A statistic whose p a copy lost, leaving its slot empty ("(r = 0.222, )", where a formula was): the
+      // author reported a test there, read without its p.
+      const lostP = lostPAfter(source, at, consumedUpTo);
+      if (lostP !== null) {
+        results.push(toReportedResult(lostP, normalised));
+        spans.push(lostP.head.start, lostP.end);
+        consumedUpTo = lostP.end;
+        waiting = [];
+        continue;
+      }
       // (Only where a plural p follows within reach: most comparators that start no result are not retried.)
       if (!PLURAL_P_AHEAD.test(source.slice(at, at + PLURAL_P_REACH))) continue;
       const bare = readResultEndingHeadAt(source, at, consumedUpTo, true);
@@ -82,6 +92,19 @@ export function findResults(normalised: NormalisedText): ReportedResult[] {
     consumedUpTo = draft.end;
   }
   return results;
+}
+
+/** An empty slot after a value, where a copy dropped the p: "0.222, )", "0.222; )". */
+const EMPTY_P_SLOT = /^ {0,2}[,;] {0,2}\)/;
+const LOST_P_REACH = 40;
+
+/** The statistic at `at` without df or p, when an empty slot follows its value (see EMPTY_P_SLOT); else null. */
+function lostPAfter(source: string, at: number, notBefore: number): ResultDraft | null {
+  const ahead = source.slice(at, at + LOST_P_REACH);
+  if (!ahead.includes(')') || !/[,;] {0,2}\)/.test(ahead)) return null;
+  const bare = readResultEndingHeadAt(source, at, notBefore, true);
+  if (bare === null || bare.p !== null || !EMPTY_P_SLOT.test(source.slice(bare.end, bare.end + 6))) return null;
+  return bare;
 }
 
 /** "critical", "critical value (of)", "tabulated", "table value of" right before a statistic: a looked-up value. */

@@ -40,3 +40,28 @@ describe('critical values looked up for a test, from the command line', () => {
     expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['F', [1, 46], 12.3]]);
   });
 });
+
+describe('a df written after the p, from the command line', () => {
+  it('reads "χ2 = 7.80, p = 0.020, df = 2" with its df and flags a p the statistic cannot give', () => {
+    // χ²(2) = 7.80 gives p = .0202 (SciPy scipy.stats.chi2.sf(7.80, 2) = 0.020242, computed when the test was written).
+    const text = (p: string): string => `The groups differed in their choices (chi-square test, χ2 = 7.80, p = ${p}, df = 2).\n`;
+    const right = scanTextJson(text('0.020')).statistics;
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['chi2', [2], 7.8]]);
+    expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+    const wrong = scanTextJson(text('0.20')).statistics;
+    expect(wrong.flatMap((statistic) => statistic.findings.map((finding) => finding.rule))).toContain('p-value-mismatch');
+  });
+});
+
+describe('a statistic whose p a copy lost, from the command line', () => {
+  it('reads "(r = 0.222, )", an empty slot where a formula stood, as a correlation without its p', () => {
+    const text = 'In a sample of 251 students there was a weak correlation between performance and motivation (r = 0.222, ), and with intrinsic motivation (r = 0.242, ).\n';
+    const statistics = scanTextJson(text).statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p])).toEqual([
+      ['r', 0.222, null],
+      ['r', 0.242, null],
+    ]);
+    // Without the empty slot a bare "r = 0.222" is not a reported test (a reliability, a description).
+    expect(scanTextJson('The retest reliability was high (r = 0.85).\n').statistics).toEqual([]);
+  });
+});
