@@ -142,6 +142,23 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('reads a "df" header over both df of each F in every copy: crushed, padded, tabs without the empty cell, one cell per line', () => {
+    const rows = [['Group', '2', '57', '4.21', '.020', '.13'], ['Time', '1', '57', '2.11', 'n.s.', '.04']];
+    const copies = {
+      crushed: ['Effect df F p ηp2', ...rows.map((row) => row.join(' '))].join('\n'),
+      padded: ['Effect          df         F       p       ηp2', ...rows.map((row) => row[0]!.padEnd(16) + row[1]!.padEnd(4) + row[2]!.padEnd(7) + row[3]!.padEnd(8) + row[4]!.padEnd(8) + row[5])].join('\n'),
+      tabs: ['Effect\tdf\tF\tp\tηp2', ...rows.map((row) => row.join('\t'))].join('\n'),
+      'one cell per line': ['Effect', 'df', 'F', 'p', 'ηp2', ...rows.flat()].join('\n'),
+    };
+    for (const [copy, table] of Object.entries(copies)) {
+      const document = scanTextJson(`Table 2. Mixed ANOVA\n${table}\n\nNext.\n`);
+      expect(readAs(document.statistics), copy).toEqual([
+        ['F', 4.21, [2, 57]],
+        ['F', 2.11, [1, 57]],
+      ]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

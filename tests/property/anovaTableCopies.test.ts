@@ -6,7 +6,8 @@ import { scanDocument } from '../../src/scan/scanDocument.js';
 /**
  * ANOVA tables as copies give them, generated at random: columns in the
  * orders and spellings journals and statistics programs use (common
- * practice), an error row or numerator and denominator df columns, rendered
+ * practice), an error row or numerator and denominator df columns (also
+ * under one "df" header whose span the copy lost), rendered
  * with pipes, tabs, single spaces, padded columns or one cell per line, with
  * or without a title, and one kind of damage a copy does (stars or footnote
  * letters on values, "< .001", "0.000", "n.s." or stars for p, decimal commas, blank lines
@@ -19,7 +20,7 @@ import { scanDocument } from '../../src/scan/scanDocument.js';
  */
 const seed = 20261204;
 
-type Column = 'label' | 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'F' | 'p' | 'eta';
+type Column = 'label' | 'ss' | 'df' | 'df1' | 'df2' | 'ms' | 'F' | 'p' | 'eta' | 'dfSpanned' | 'df2Unnamed';
 type Rendering = 'pipe' | 'tab' | 'crushed' | 'padded' | 'cell-per-line';
 type Damage = 'none' | 'stars' | 'p-bound' | 'p-letter' | 'p-zero' | 'decimal-comma' | 'blank-lines' | 'capitals' | 'error-df-only' | 'ns' | 'p-stars';
 
@@ -33,6 +34,9 @@ const SPELLINGS: Record<Column, string[]> = {
   F: ['F', 'F value', 'F-ratio', 'F-value'],
   p: ['p', 'Sig.', 'p-value', 'P', 'Pr(>F)'],
   eta: ['ηp2', 'Partial η2', 'η2p', 'partial eta squared'],
+  // One "df" header over both df columns (a spanning cell whose span the copy lost): the second is unnamed.
+  dfSpanned: ['df', 'DF', 'd.f.', 'Df'],
+  df2Unnamed: [''],
 };
 const LAYOUTS: Column[][] = [
   ['label', 'ss', 'df', 'ms', 'F', 'p'],
@@ -42,6 +46,8 @@ const LAYOUTS: Column[][] = [
   ['label', 'F', 'df1', 'df2', 'p', 'eta'],
   ['label', 'ss', 'df', 'ms', 'F', 'p', 'eta'],
   ['label', 'df', 'F', 'p'],
+  ['label', 'dfSpanned', 'df2Unnamed', 'F', 'p', 'eta'],
+  ['label', 'F', 'dfSpanned', 'df2Unnamed', 'p'],
 ];
 const ROW_LABELS = ['Group', 'Time', 'Group × Time', 'Condition'];
 const ERROR_LABELS = ['Error', 'Residuals', 'Within groups', 'Error (within)'];
@@ -84,8 +90,10 @@ function cellOf(column: Column, row: EffectRow, index: number, errorDf: number):
       return (Number(row.ms) * row.df1).toFixed(2);
     case 'df':
     case 'df1':
+    case 'dfSpanned':
       return String(row.df1);
     case 'df2':
+    case 'df2Unnamed':
       return String(errorDf);
     case 'ms':
       return row.ms;
@@ -145,6 +153,14 @@ function printedTests(input: TableCase): { value: number; df: [number, number] }
   return input.rows.map((row) => ({ value: Number(row.f), df: [row.df1, input.errorDf] }));
 }
 
+/**
+ * Cases the reader leaves alone on purpose: without a title, a table one cell per line is read only when its
+ * header names every value column (cellPerLine.ts), which a "df" header over two columns does not.
+ */
+function readable(input: TableCase): boolean {
+  return input.titled || input.rendering !== 'cell-per-line' || !input.layout.includes('df2Unnamed');
+}
+
 function readTests(input: TableCase) {
   const { header, rows } = printed(input);
   const body = render(header, rows, input.rendering, input.damage === 'blank-lines');
@@ -155,7 +171,7 @@ function readTests(input: TableCase) {
 describe('ANOVA tables as copies give them, at random', () => {
   it('reads every F the table prints with its df, and nothing else', () => {
     fc.assert(
-      fc.property(tableCase, (input) => {
+      fc.property(tableCase.filter(readable), (input) => {
         const { results } = readTests(input);
         const wanted = printedTests(input);
         const read = results.map((result) => ({ value: result.value?.value, df: result.df.map((df) => df.value) }));

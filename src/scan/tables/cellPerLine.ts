@@ -186,8 +186,18 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // one to one (a header cut off above, "MD" / "t (df=29)" / "Sig." over seven values, is not read).
   if (!titled && headerRun.filter((cell) => classifyHeader(cell.text).role !== 'label').length !== valueCount) return null;
   const labelCount = typicalLabelCount(body);
+  // (The names after a label column's name, "Source": those are the value columns'.)
+  const valueNames = headerRun.length > 0 && classifyHeader(headerRun[0]!.text).role === 'label' ? headerRun.slice(1) : headerRun;
   const everyCell =
-    grid !== null ? headerRun : unnamed !== null ? headerRun : valueCount >= 2 && headerRun.length >= valueCount ? headerRun.slice(headerRun.length - valueCount) : null;
+    grid !== null
+      ? headerRun
+      : unnamed !== null
+        ? headerRun
+        : valueCount >= 2 && headerRun.length > valueCount
+          ? headerRun.slice(headerRun.length - valueCount)
+          : valueCount >= 2 && valueNames.length === valueCount
+            ? valueNames
+            : null;
   const names = everyCell ?? headerRun.filter((cell) => isColumnName(cell.text) && classifyHeader(cell.text).role !== 'label');
   const roles = names.map((cell) => classifyHeader(cell.text));
   const known = roles.filter((role) => role.role !== 'unknown' && role.role !== 'label').length;

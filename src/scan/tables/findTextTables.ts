@@ -582,11 +582,15 @@ function tokenize(text: string): Piece[] {
     const detachedMinus = previous !== undefined && previous.text === '\u2212' && /^\.?\d/.test(token.text);
     // "6.84 n.s.", "7.67 *", "3.44 (*)", "0.449 ††": a number's "not significant" or its marks set apart by a space belong to it.
     // (Not across a wide gap: there the marks, or "n.s.", stand in a column of their own, a p column.)
+    // ("n.s." only after a value with decimals: after a whole number, "1 10 n.s.", it is the p of a row whose last
+    // number is a df.)
+    const notSignificantWord = /^(?:n\.s\.?|N\.S\.?|ns|NS)$/.test(token.text);
     const markOfNumber =
       previous !== undefined &&
       token.start - previous.end < 2 &&
       /^(?:n\.s\.?|N\.S\.?|ns|NS|[*\u2020\u2021\u00a7]{1,3}|\(\*{1,3}\))$/.test(token.text) &&
-      /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text);
+      /^(?:[<>=]\s?)?[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(previous.text) &&
+      (!notSignificantWord || previous.text.includes('.'));
     // "Group (2, 57) 4.21": a bracketed df pair after a label's word is a cell of its own, not part of the label.
     const pairAfterWord = (token.text.startsWith('(') || token.text.startsWith('[')) && isBracketedPair(token.text) && previous !== undefined && !isValueToken(previous.text);
     const joinsPrevious =
@@ -1361,6 +1365,9 @@ function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string
   if (header === null) return [label.text, ...values.map((value) => value.text)];
   if (!header.aligned) return null;
   const width = header.columns.length;
+  // One value more than the columns, where the header's one df column has two whole numbers under it ("df"
+  // centred over "2   57"): the row is left to the table reader, which splits that df column in two.
+  if (values.length === width && dfPairUnderHeader(values, header.columns)) return null;
   if (values.length > width - 1) {
     const extra = values.length - (width - 1);
     label = label.text === '' ? join(line.text, values[0]!, values[extra - 1]!) : join(line.text, label, values[extra - 1]!);
@@ -1371,6 +1378,14 @@ function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string
   if (byPosition === null) return null;
   byPosition.forEach((column, index) => (row[column] = values[index]!.text));
   return row;
+}
+
+/** Whether the header names one df column and the values at its place and the next are a whole-number df pair. */
+function dfPairUnderHeader(values: Piece[], columns: Piece[]): boolean {
+  const dfColumns = columns.flatMap((column, index) => (classifyHeader(column.text).role === 'df' ? [index] : []));
+  if (dfColumns.length !== 1 || dfColumns[0]! < 1) return false;
+  const [first, second] = [values[dfColumns[0]! - 1]?.text ?? '', values[dfColumns[0]!]?.text ?? ''];
+  return /^\d{1,6}$/.test(first) && /^\d{1,6}$/.test(second) && Number(first) >= 1 && Number(second) >= Number(first);
 }
 
 /** Column of each value by the zones between header cells, or null when they collide or go backwards. */

@@ -280,7 +280,7 @@ const VALUE_SHAPES = new Set(['number-bracket', 'number-interval', 'statistic-p'
 
 function readTableRows(text: string, table: DocumentTable, tableIndex: number): TableReading {
   const nothing: TableReading = { results: [], unread: null, completions: [] };
-  const rows = table.rows;
+  let rows = table.rows;
   // A correlation matrix: numbered variables against numbered columns (its header is numbers, so it is read apart).
   const matrix = readCorrelationMatrix({ text, table, tableIndex, located: table.cells ?? locateRows(text, table, 1), notes: [...table.notes, notesAfter(text, table.end)].join(' ') });
   if (matrix !== null) return { results: matrix, unread: null, completions: [] };
@@ -290,7 +290,12 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
-  const located = table.cells ?? locateRows(text, table, headerCount);
+  let located = table.cells ?? locateRows(text, table, headerCount);
+  const dfSplit = splitDfHeaderOverPairs(rows, headerCount, located);
+  if (dfSplit !== null) {
+    rows = dfSplit.rows;
+    located = dfSplit.located;
+  }
   const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '));
   const families = columnFamilies(rows.slice(headerCount), baseSchema);
   const schema: Schema = families === undefined ? baseSchema : { ...baseSchema, families };
@@ -797,6 +802,62 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
   const intervals = (headerRows[headerRows.length - 1] ?? []).map((cell) => INTERVAL_HEADER.test(cell) && classifyHeader(cell).role === 'descriptive');
   return { roles, titles, positional, named, ...(intervals.some(Boolean) ? { intervals } : {}) };
 }
+
+/** The name given to the second of two df columns under one "df" header (see splitDfHeaderOverPairs). */
+const DF2_NAME = 'df2';
+
+/**
+ * A "df" header over both df of an F, where a copy (crushed, one cell per line, tabs without the empty
+ * header cell) gives each row one value more than the header names ("Effect df F p" over "Group 2 57 4.21
+ * .020"): the header with "df" named "df1" and a "df2" after it, when every row with the extra value holds
+ * two whole numbers there, the second at least the first; null otherwise. Rows one value short of that (an
+ * error row) are left as they are. A crushed cell that joined a value and "n.s." ("4.21 n.s.") is cut back
+ * in two first where the header names a p column for the "n.s.".
+ */
+function splitDfHeaderOverPairs(
+  rows: string[][],
+  headerCount: number,
+  located: ((LocatedCell | null)[] | null)[],
+): { rows: string[][]; located: ((LocatedCell | null)[] | null)[] } | null {
+  const header = rows[headerCount - 1]!;
+  const roles = header.map((cell) => classifyHeader(cell));
+  const dfColumns = roles.flatMap((role, column) => (role.role === 'df' ? [column] : []));
+  if (dfColumns.length !== 1 || roles.some((role) => role.role === 'df1' || role.role === 'df2')) return null;
+  if (!roles.some((role) => role.role === 'statistic' && role.kind === 'F' && role.df.length === 0 && role.dfInCell !== true)) return null;
+  const column = dfColumns[0]!;
+  const pNamed = roles.some((role) => role.role === 'p');
+  const cut = rows.map((row, index) => (index < headerCount || !pNamed ? { cells: row, at: located[index] ?? null } : cutNotSignificant(row, located[index] ?? null)));
+  const body = cut.slice(headerCount).filter(({ cells }) => cells.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
+  const wider = body.filter(({ cells }) => cells.length === header.length + 1);
+  if (wider.length < 2 || wider.length * 2 < body.length || body.some(({ cells }) => cells.length > header.length + 1)) return null;
+  const whole = (cell: string | undefined): number | null => (cell !== undefined && /^\d{1,6}$/.test(cell.trim()) ? Number(cell) : null);
+  const pairs = wider.every(({ cells }) => {
+    const [first, second] = [whole(cells[column]), whole(cells[column + 1])];
+    return first !== null && second !== null && first >= 1 && second >= first;
+  });
+  if (!pairs) return null;
+  const widened = [...header.slice(0, column), 'df1', DF2_NAME, ...header.slice(column + 1)];
+  const headerAt = located[headerCount - 1];
+  return {
+    rows: cut.map(({ cells }, index) => (index === headerCount - 1 ? widened : cells)),
+    located: cut.map(({ at }, index) => (index === headerCount - 1 && headerAt ? [...headerAt.slice(0, column + 1), null, ...headerAt.slice(column + 1)] : at)),
+  };
+}
+
+/** "4.21 n.s." as two cells, "4.21" and "n.s.", with their places in the text where the cell's is known. */
+function cutNotSignificant(row: string[], at: (LocatedCell | null)[] | null): { cells: string[]; at: (LocatedCell | null)[] | null } {
+  const index = row.findIndex((cell, column) => column > 0 && NUMBER_THEN_NS.test(cell.trim()));
+  if (index < 0) return { cells: row, at };
+  const [, value = '', ns = ''] = NUMBER_THEN_NS.exec(row[index]!.trim())!;
+  const span = at?.[index] ?? null;
+  const pieces: (LocatedCell | null)[] = span === null ? [null, null] : [{ start: span.start, end: span.start + value.length }, { start: span.end - ns.length, end: span.end }];
+  return {
+    cells: [...row.slice(0, index), value, ns, ...row.slice(index + 1)],
+    at: at === null ? null : [...at.slice(0, index), ...pieces, ...at.slice(index + 1)],
+  };
+}
+
+const NUMBER_THEN_NS = /^([-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)) (n\.s\.?|N\.S\.?|ns|NS)$/;
 
 /**
  * A "df" header spanning two columns (a web page's colspan lost in the copy: "df |  | F" over "2 | 57 | 4.21"):
