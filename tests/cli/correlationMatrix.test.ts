@@ -9,7 +9,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { scanDocumentJson } from './scanDocumentJson.js';
+import { scanDocumentJson, scanTextJson } from './scanDocumentJson.js';
 
 const root = join(__dirname, '..', '..');
 const passage = join(root, 'tests', 'corpus', 'real', 'passages', 'divl-08.txt');
@@ -76,5 +76,44 @@ describe('correlations as statistics software prints them, from the command line
     writeFileSync(changed, readFileSync(softwarePassage, 'utf8').replace('Sig. (2-tailed) 0.927 - 0.076 0.855 0.014', 'Sig. (2-tailed) 0.927 - 0.076 0.855 0.140'));
     const flagged = scanJson(changed).statistics.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'));
     expect(flagged.map((statistic) => [statistic.value, statistic.p?.value])).toEqual([[0.461, 0.14]]);
+  });
+});
+
+describe('correlation matrices in other common layouts, from the command line', () => {
+  // Common practice (no single source): APA-style matrices number the variables in the rows and the columns,
+  // print the diagonal as a dash or 1.00, and may leave out the first variables' columns.
+  const variables = ['Anxiety', 'Depression', 'Stress', 'Sleep quality'];
+  const lower = [[], ['.45**'], ['.38**', '.52**'], ['−.21*', '−.30**', '−.12']];
+  const expected = [0.45, 0.38, 0.52, -0.21, -0.3, -0.12];
+  const read = (text: string) =>
+    scanTextJson(`Table 2. Intercorrelations of the study variables\n\n${text}\n\nNote. *p < .05. **p < .01.\n\nNext.\n`).statistics.filter((statistic) => statistic.kind === 'r');
+
+  it('takes a diagonal of 1.000 for the diagonal, never for correlations', () => {
+    const rows = variables.map((name, index) => `| ${index + 1}. ${name} | ${[...lower[index]!, '1.000', '', '', ''].slice(0, 4).join(' | ')} |`);
+    const correlations = read(['| Variable | 1 | 2 | 3 | 4 |', '|---|---|---|---|---|', ...rows].join('\n'));
+    expect(correlations.map((statistic) => statistic.value)).toEqual(expected);
+  });
+
+  it('reads rows whose number stands in a cell of its own, with tabs, padded, and one cell per line', () => {
+    const cells = variables.map((name, index) => [String(index + 1), name, ...lower[index]!, '—', ...new Array<string>(3 - index).fill('')]);
+    const header = ['', 'Variable', '1', '2', '3', '4'];
+    const widths = header.map((_, column) => Math.max(...[header, ...cells].map((row) => (row[column] ?? '').length)) + 3);
+    const copies = {
+      tabs: [header, ...cells].map((row) => row.join('\t')).join('\n'),
+      padded: [header, ...cells].map((row) => row.map((cell, column) => cell.padEnd(widths[column]!)).join('').trimEnd()).join('\n'),
+      'one cell per line': [...header, ...cells.flat()].map((cell) => (cell === '' ? ' ' : cell)).join('\n\n'),
+    };
+    for (const [copy, text] of Object.entries(copies)) expect(read(text).map((statistic) => statistic.value), copy).toEqual(expected);
+  });
+
+  it('reads a matrix whose columns start at a later variable (demographics against the measures 3 and 4)', () => {
+    const text = [
+      'Variable\t3\t4',
+      '1. Age\t.12\t−.08',
+      '2. Income\t.25**\t.31**',
+      '3. Stress\t—\t.52**',
+      '4. Sleep quality\t\t—',
+    ].join('\n');
+    expect(read(text).map((statistic) => statistic.value)).toEqual([0.12, -0.08, 0.25, 0.31, 0.52]);
   });
 });

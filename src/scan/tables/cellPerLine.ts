@@ -152,7 +152,7 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = grid?.bodyStart ?? firstValue;
   if (grid === null) while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
-  let body = cells.slice(bodyStart);
+  let body = grid !== null && 'numberApart' in grid && grid.numberApart === true ? joinRowNumbers(cells.slice(bodyStart)) : cells.slice(bodyStart);
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
   let headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
@@ -387,10 +387,17 @@ const MIN_NUMBERED_COLUMNS = 3;
  * label, which starts with its number ("1. Anxiety"); null otherwise. Numbers are value cells to every other
  * reading, so this header is looked for first.
  */
-function numberedHeader(cells: Cell[]): { first: number; bodyStart: number } | null {
-  const start = cells.findIndex((cell) => !cell.empty && cell.text === '1');
+function numberedHeader(cells: Cell[]): { first: number; bodyStart: number; numberApart?: boolean } | null {
+  // The columns count up from 1, or from a later variable's number when the first variables' columns are left
+  // out ("4 5 6 7 8 9"): the first number followed by the next.
+  const start = cells.findIndex((cell, index) => {
+    if (cell.empty || !/^\d{1,2}$/.test(cell.text) || index > MAX_CELLS_TO_HEADER * 2) return false;
+    const next = cells.slice(index + 1).find((other) => !other.empty);
+    return cell.text === '1' || next?.text === String(Number(cell.text) + 1);
+  });
   if (start < 0 || start > MAX_CELLS_TO_HEADER * 2) return null;
-  let expected = 1;
+  let expected = Number(cells[start]!.text);
+  const firstNumber = expected;
   let index = start;
   let last = start;
   while (index < cells.length && expected <= MAX_HEADER_CELLS) {
@@ -404,10 +411,36 @@ function numberedHeader(cells: Cell[]): { first: number; bodyStart: number } | n
     expected++;
     index++;
   }
-  if (expected - 1 < MIN_NUMBERED_COLUMNS) return null;
+  if (expected - firstNumber < MIN_NUMBERED_COLUMNS) return null;
   const next = cells.slice(last + 1).find((cell) => !cell.empty);
-  if (next === undefined || !/^1\.\s?\S/.test(next.text)) return null;
-  return { first: start, bodyStart: last + 1 };
+  if (next === undefined) return null;
+  if (/^1\.\s?\S/.test(next.text)) return { first: start, bodyStart: last + 1 };
+  // The variable's number in a cell of its own before its name ("1" / "Anxiety").
+  const afterNext = cells.slice(cells.indexOf(next) + 1).find((cell) => !cell.empty);
+  if (/^1\.?$/.test(next.text) && afterNext !== undefined && !isValueCell(afterNext)) return { first: start, bodyStart: last + 1, numberApart: true };
+  return null;
+}
+
+/**
+ * The body of a numbered grid whose rows print the variable's number in a cell of its own before its name
+ * ("2" / "Depression"): each number joined to the name after it ("2. Depression"), as the matrix reader reads
+ * its rows. Only the numbers that come in order (1, 2, 3, ...) are joined.
+ */
+function joinRowNumbers(body: Cell[]): Cell[] {
+  const joined: Cell[] = [];
+  let expected = 1;
+  for (let index = 0; index < body.length; index++) {
+    const cell = body[index]!;
+    const name = body[index + 1];
+    if (!cell.empty && cell.text.replace(/\.$/, '') === String(expected) && name !== undefined && !name.empty && !isValueCell(name)) {
+      joined.push({ text: `${expected}. ${name.text}`, start: cell.start, end: name.end, line: name.line, empty: false });
+      expected++;
+      index++;
+      continue;
+    }
+    joined.push(cell);
+  }
+  return joined;
 }
 
 /** Lines looked at after a header line for a crushed row (a superscript line, "2", may come first). */

@@ -910,8 +910,10 @@ interface DataLine {
   values: Piece[];
 }
 
-/** A numbered variable's label ("1. SPAS Total Score"), as matrices number their rows. */
-const NUMBERED_LABEL = /^\d{1,2}\.\s/;
+/** A numbered variable's label ("1. SPAS Total Score", "1 Anxiety"), as matrices number their rows. */
+const NUMBERED_LABEL = /^\d{1,2}\.?\s{1,4}\p{L}/u;
+/** The diagonal of a correlation matrix as printed: a dash, or a correlation of 1. */
+const DIAGONAL_CELL = /^(?:[-\u2013\u2014\u2212]|1|1\.0{1,3})$/;
 
 /** A row: a label, then a run of values (numbers, dashes, "ns") to the end of the line. */
 function readDataLine(line: Line, minimumValues: number): DataLine | null {
@@ -928,7 +930,10 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const values = tokens.slice(first);
   const label = first > 0 ? join(text, tokens[0]!, tokens[first - 1]!) : { text: '', start: 0, end: 0 };
   // The first row of a numbered matrix's lower triangle holds only dashes ("1. Anxiety – – –"): still a row.
-  const numberedEmptyRow = NUMBERED_LABEL.test(label.text) && values.length >= 2 && values.every((token) => /^[-\u2013\u2014]$/.test(token.text));
+  // (Or the diagonal alone: "1 Anxiety —".)
+  const numberedEmptyRow =
+    NUMBERED_LABEL.test(label.text) &&
+    ((values.length >= 2 && values.every((token) => /^[-\u2013\u2014]$/.test(token.text))) || (values.length === 1 && DIAGONAL_CELL.test(values[0]!.text)));
   if (values.length < minimumValues || (!numberedEmptyRow && values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair'))) return null;
   // Two numbers in a row inside the label are another row's values: rows run together on one line.
   const labelNumbers = tokens.slice(0, first).some((token, index) => index > 0 && isNumberToken(token.text) && isNumberToken(tokens[index - 1]!.text));
@@ -1333,6 +1338,8 @@ function readRowLine(line: Line, first: boolean): DataLine | null {
   const data = readDataLine(line, 1);
   if (data === null) return null;
   if (data.values.length >= 2 || (!first && SPARSE_ROW_LABEL.test(data.label.text))) return data;
+  // A matrix's first row, its diagonal alone ("1. Anxiety —", "1 Anxiety 1.00").
+  if (data.values.length === 1 && NUMBERED_LABEL.test(data.label.text) && DIAGONAL_CELL.test(data.values[0]!.text)) return data;
   return null;
 }
 

@@ -115,9 +115,9 @@ interface MatrixRow {
 /** The correlations of a table read as a correlation matrix, or null when the table is not one. */
 export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | null {
   const { table } = input;
-  const headerIndex = table.rows.slice(0, 3).findIndex((row) => numberedColumns(row) >= 2);
+  const headerIndex = table.rows.slice(0, 3).findIndex((row) => numberedColumns(row) !== null);
   if (headerIndex < 0) return null;
-  const columns = numberedColumns(table.rows[headerIndex]!);
+  const columns = numberedColumns(table.rows[headerIndex]!)!;
   const said = [table.caption ?? '', input.notes.slice(0, 2000), ...table.rows[headerIndex]!].join(' ');
   if (!SAYS_CORRELATIONS.test(said)) return null;
   // Each correlation's p in brackets after it, as the note says ("p-values in parentheses", "r (p)").
@@ -316,15 +316,26 @@ function columnName(segment: GridSegment, value: GridCell, index: number, count:
   return name === '' ? `column ${value.column}` : name;
 }
 
-/** How many numbered columns (1, 2, ..., k) end the row; 0 when they do not count up from 1. */
-function numberedColumns(row: readonly string[]): number {
+/** The numbers of a matrix's columns: first to last, one apart. */
+interface ColumnRange {
+  first: number;
+  last: number;
+}
+
+/**
+ * The numbered columns that end the row (1, 2, ..., k; or k to m, when the first variables' columns are left
+ * out: "4 5 6 7 8 9" over demographics correlated with the constructs 4 to 9), or null when the row does not
+ * end in two or more numbers counting up one at a time.
+ */
+function numberedColumns(row: readonly string[]): ColumnRange | null {
   // A trailing pipe leaves an empty cell after the last number ("| 19 | 20 |").
   let end = row.length;
   while (end > 1 && row[end - 1]!.trim() === '') end--;
   let first = end;
   while (first > 1 && COLUMN_NUMBER.test(row[first - 1]!.trim())) first--;
   const numbers = row.slice(first, end).map((cell) => Number(COLUMN_NUMBER.exec(cell.trim())![1]));
-  return numbers.length >= 2 && numbers.every((number, index) => number === index + 1) ? numbers.length : 0;
+  if (numbers.length < 2 || numbers[0]! < 1 || !numbers.every((number, index) => number === numbers[0]! + index)) return null;
+  return { first: numbers[0]!, last: numbers[numbers.length - 1]! };
 }
 
 /** The numbered body rows with their value cells (marks standing as cells of their own joined to their value). */
@@ -332,11 +343,13 @@ function matrixRows(input: MatrixInput, headerIndex: number, pInBrackets = false
   const rows: MatrixRow[] = [];
   input.table.rows.forEach((row, rowIndex) => {
     if (rowIndex <= headerIndex) return;
-    const label = ROW_NUMBER.exec((row[0] ?? '').trim());
+    // The variable's number and its name in one cell ("1. Anxiety") or in two ("1 | Anxiety").
+    const numberApart = COLUMN_NUMBER.test((row[0] ?? '').trim()) && shapeOf((row[1] ?? '').trim()).shape === 'text';
+    const label = ROW_NUMBER.exec(numberApart ? `${(row[0] ?? '').trim()} ${(row[1] ?? '').trim()}` : (row[0] ?? '').trim());
     const at = input.located[rowIndex];
     if (label === null || at === null || at === undefined) return;
     const values: ValueCell[] = [];
-    for (let column = 1; column < row.length; column++) {
+    for (let column = numberApart ? 2 : 1; column < row.length; column++) {
       const written = (row[column] ?? '').trim();
       const place = at[column] ?? null;
       if (written === '' || place === null) continue;
@@ -366,39 +379,51 @@ function attachMarks(previous: ValueCell | undefined, written: string, place: Lo
   return true;
 }
 
+/** Whether the variable has a column of its own, where its diagonal cell stands. */
+function hasColumn(variable: number, columns: ColumnRange): boolean {
+  return variable >= columns.first && variable <= columns.last;
+}
+
 /** Cells a row of `variable` holds under the layout, counted from its end. */
-function expectedCells(variable: number, layout: Layout, columns: number): number {
-  const below = layout.triangle === 'lower' ? variable - 1 : columns - variable;
-  return Math.max(0, below) + (layout.diagonal ? 1 : 0);
+function expectedCells(variable: number, layout: Layout, columns: ColumnRange): number {
+  const others =
+    layout.triangle === 'lower'
+      ? Math.min(variable - 1, columns.last) - columns.first + 1
+      : columns.last - Math.max(variable + 1, columns.first) + 1;
+  return Math.max(0, others) + (layout.diagonal && hasColumn(variable, columns) ? 1 : 0);
 }
 
 function isCorrelation(cell: ValueCell): boolean {
   const read = readCell(cell.number);
-  return read.kind === 'number' && read.comparator === '=' && Math.abs(read.number.value) <= 1 && read.number.decimals >= 1;
+  // (A printed 1.00 or 1.000 is the diagonal, a variable with itself: two measures of a matrix never correlate
+  // perfectly. Counted as a correlation, it let a layout without a diagonal fit as well as the one with it.)
+  return read.kind === 'number' && read.comparator === '=' && Math.abs(read.number.value) < 1 && read.number.decimals >= 1;
 }
 
 /** The row's correlation cells with the column each stands in, or null when the row does not fit the layout. */
-function correlationCells(row: MatrixRow, layout: Layout, columns: number): { cell: ValueCell; column: number }[] | null {
+function correlationCells(row: MatrixRow, layout: Layout, columns: ColumnRange): { cell: ValueCell; column: number }[] | null {
   const count = expectedCells(row.variable, layout, columns);
   if (count === 0 || row.values.length < count) return count === 0 ? [] : null;
   const taken = row.values.slice(row.values.length - count);
   const cells: { cell: ValueCell; column: number }[] = [];
+  const diagonal = layout.diagonal && hasColumn(row.variable, columns);
+  // The column of the row's first cell: the first column (lower triangle), or the variable's own (upper).
+  const firstColumn = layout.triangle === 'lower' ? columns.first : Math.max(row.variable + (diagonal ? 0 : 1), columns.first);
   for (let index = 0; index < taken.length; index++) {
     const cell = taken[index]!;
     const diagonalAt = layout.triangle === 'lower' ? taken.length - 1 : 0;
-    if (layout.diagonal && index === diagonalAt) {
+    if (diagonal && index === diagonalAt) {
       if (!DIAGONAL.test(cell.number)) return null;
       continue;
     }
     if (!isCorrelation(cell)) return null;
-    const column = layout.triangle === 'lower' ? index + 1 : row.variable + index + (layout.diagonal ? 0 : 1);
-    cells.push({ cell, column });
+    cells.push({ cell, column: firstColumn + index });
   }
   return cells;
 }
 
 /** The layout most numbered rows fit, or null when none fits enough of them. */
-function bestLayout(rows: MatrixRow[], columns: number): Layout | null {
+function bestLayout(rows: MatrixRow[], columns: ColumnRange): Layout | null {
   let best: { layout: Layout; fitting: number; correlations: number } | null = null;
   for (const layout of LAYOUTS) {
     let fitting = 0;
