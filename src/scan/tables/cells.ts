@@ -438,8 +438,10 @@ let firstWords: Set<string> | null = null;
 export function couldStartHeader(word: string): boolean {
   if (!PLAIN_HEADER.test(word)) return true;
   if (firstWords === null) {
-    firstWords = new Set([...ROLE_BY_KEY.keys()].map((key) => key.split(' ')[0]!));
-    for (const word of ['eta', 'etap', 'etag', 'partial', 'omega', 'omegap', 'chi', 'x']) firstWords.add(word);
+    // Filled before it is kept: an audit stopped by its time budget mid-fill must not leave half a set behind.
+    const words = new Set([...ROLE_BY_KEY.keys()].map((key) => key.split(' ')[0]!));
+    for (const word of ['eta', 'etap', 'etag', 'partial', 'omega', 'omegap', 'chi', 'x']) words.add(word);
+    firstWords = words;
   }
   const key = word.toLowerCase().replace(/[.:,;]$/, '');
   // A token may carry its bracket ("r (P value)", "F (1, 20)"): its first word decides.
