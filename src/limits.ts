@@ -118,6 +118,28 @@ export function limitHint(name: keyof Limits, value: number): string {
   return `(limit ${name} = ${formatLimit(value)} ${unit}; raise it with ${option} or "limits": {"${name}": <n>} in the settings file)`;
 }
 
+/**
+ * A reader's message with each limit's hint reworded for a command that
+ * takes limits only as --limit name=value and has no settings file (refit):
+ * the readers word their hints for scan (limitHint).
+ */
+export function hintsForLimitOptionOnly(message: string): string {
+  let reworded = message;
+  for (const name of limitNames) {
+    const option = name === 'maxDocumentMb' ? '--max-document-mb <n>' : `--limit ${name}=<n>`;
+    reworded = reworded.replaceAll(`raise it with ${option} or "limits": {"${name}": <n>} in the settings file)`, `raise it with --limit ${name}=<n>)`);
+  }
+  return reworded;
+}
+
+/**
+ * Why a document (or a record, or a reported manuscript) was stopped by the
+ * time budget: "took longer than 120 s and was stopped (limit ...)".
+ */
+export function timeBudgetReason(seconds: number): string {
+  return `took longer than ${formatLimit(seconds)} s and was stopped ${limitHint('maxSecondsPerDocument', seconds)}`;
+}
+
 function formatLimit(value: number): string {
   return Number.isInteger(value) ? value.toLocaleString('en-US') : String(value);
 }

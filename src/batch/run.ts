@@ -1,13 +1,11 @@
 import { createHash } from 'node:crypto';
-import { existsSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { stat } from 'node:fs/promises';
 import { extname, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { MessageChannel } from 'node:worker_threads';
 import type { ResolvedConfig } from '../checks/config.js';
 import { formatByExtension } from '../documents/formats.js';
 import { openRegularFile } from '../documents/regularFile.js';
-import { limitHint, resolveLimits } from '../limits.js';
+import { resolveLimits, timeBudgetReason } from '../limits.js';
 import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
 import { entryJson, entryOf, internalErrorReason, type AuditEntry } from './entry.js';
@@ -15,6 +13,7 @@ import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 import { mapConcurrently } from './concurrently.js';
 import { appendAll } from '../arrays.js';
+import { compiledModule, runWithinBudget } from './withinBudget.js';
 
 export interface BatchOptions {
   files: readonly string[];
@@ -75,12 +74,6 @@ async function anyLarge(paths: readonly string[]): Promise<boolean> {
   return sizes.some((size) => size > STOPPABLE_ABOVE_BYTES);
 }
 
-/** The compiled worker module, or null when running from TypeScript sources (tests), where threads cannot load it. */
-function workerModule(): string | null {
-  const url = new URL('./worker.js', import.meta.url);
-  const path = fileURLToPath(url);
-  return existsSync(path) ? url.href : null;
-}
 
 type SchemaCheck = (entry: AuditEntry) => AuditEntry | null;
 
@@ -199,7 +192,7 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   // Everything that checks documents is loaded only now, when some document is not in the cache.
   const { resolveConfig } = await import('../checks/config.js');
   const config = resolveConfig(options.task.userConfig, options.task.configSource); // bad settings fail here, before any thread starts
-  const module = workerModule();
+  const module = compiledModule('./worker.js', import.meta.url);
   const pdfEngine = (await import('../documents/pdf.js')).resolvePdfEngine(options.task.readOptions.pdfEngine);
   const onThisThread =
     module === null ||
@@ -251,26 +244,10 @@ async function auditOnPool(
   task: Omit<WorkerTask, 'started'>,
   maxSecondsPerDocument: number,
 ): Promise<AuditEntry> {
-  const { port1: startedHere, port2: startedThere } = new MessageChannel();
-  const stop = new AbortController();
-  let timer: NodeJS.Timeout | undefined;
-  let timedOut = false;
-  startedHere.once('message', () => {
-    timer = setTimeout(() => {
-      timedOut = true;
-      stop.abort();
-    }, maxSecondsPerDocument * 1000);
-    startedHere.close();
-  });
   try {
-    return await pool.run({ ...task, started: startedThere }, { signal: stop.signal, transferList: [startedThere] });
+    const outcome = await runWithinBudget(pool, task, maxSecondsPerDocument);
+    return outcome.done ? outcome.value : entryOf(unreadableDocument(task.path, timeBudgetReason(maxSecondsPerDocument)));
   } catch (error) {
-    if (timedOut) {
-      return entryOf(unreadableDocument(task.path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
-    }
     return entryOf(unreadableDocument(task.path, internalErrorReason(error)));
-  } finally {
-    clearTimeout(timer);
-    startedHere.close();
   }
 }

@@ -11,9 +11,9 @@ import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
 import type { DocumentOutput } from '../report/model.js';
-import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
+import { defaultLimits } from '../limits.js';
 import { buildFingerprint } from '../version.js';
-import { addCommonOptions, checkOutputFolder, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
+import { addCommonOptions, checkOutputFolder, exitCodeFor, limitOption, limitsFrom, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 interface ScanOptions extends CommonOptions {
   all?: boolean;
@@ -35,24 +35,6 @@ function parseJobs(text: string | undefined): number {
   const jobs = Number(text);
   if (!Number.isInteger(jobs) || jobs < 1) throw new UsageError(`--jobs must be a whole number of at least 1, got "${text}"`);
   return jobs;
-}
-
-/** The settings file's limits with the command line's on top; undefined when neither changes any. */
-function limitsFrom(fromSettings: Partial<Limits> | undefined, options: ScanOptions): Partial<Limits> | undefined {
-  const limits: Partial<Limits> = { ...fromSettings };
-  const set = (name: string, text: string, option: string): void => {
-    const value = Number(text);
-    const problem = text.trim() === '' ? `limit ${name} needs a value` : checkLimitValue(name, value);
-    if (problem !== null) throw new UsageError(`${option}: ${problem}`);
-    limits[name as keyof Limits] = value;
-  };
-  for (const item of options.limit ?? []) {
-    const equals = item.indexOf('=');
-    if (equals === -1) throw new UsageError(`--limit takes name=value, got "${item}"`);
-    set(item.slice(0, equals).trim(), item.slice(equals + 1), '--limit');
-  }
-  if (options.maxDocumentMb !== undefined) set('maxDocumentMb', options.maxDocumentMb, '--max-document-mb');
-  return Object.keys(limits).length > 0 ? limits : undefined;
 }
 
 /**
@@ -107,11 +89,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
     .option('--follow-links', 'also audit files that links in a scanned folder point to outside it')
     .option('-q, --quiet', 'no progress bar')
     .option('--max-document-mb <n>', `largest document read whole, in MB (default ${defaultLimits.maxDocumentMb}; larger text files are streamed)`)
-    .option(
-      '--limit <name=value>',
-      `change another limit, repeatable (${limitNames.join(', ')}); see DEVELOPERS.md, "Limits"`,
-      (item: string, earlier: string[] = []) => [...earlier, item],
-    )
+    .addOption(limitOption('change another limit'))
     .action(async (paths: string[], options: ScanOptions) => {
       const { userConfig, source } = await userConfigFrom(options);
       const limits = limitsFrom(userConfig.limits, options);
