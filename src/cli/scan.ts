@@ -11,7 +11,7 @@ import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
 import type { DocumentOutput } from '../report/model.js';
-import { defaultLimits } from '../limits.js';
+import { defaultLimits, resolveLimits } from '../limits.js';
 import { buildFingerprint } from '../version.js';
 import { addCommonOptions, checkOutputFolder, exitCodeFor, limitOption, limitsFrom, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
@@ -45,11 +45,11 @@ function parseJobs(text: string | undefined): number {
  * line anywhere else stops the scan with its line number, before the file is
  * touched.
  */
-async function resumedDocuments(file: string, io: CliIo): Promise<DocumentOutput[]> {
+async function resumedDocuments(file: string, io: CliIo, maxSecondsPerRecord: number): Promise<DocumentOutput[]> {
   if (!existsSync(file)) return [];
   let content;
   try {
-    content = await readJsonLines(file);
+    content = await readJsonLines(file, { maxSecondsPerRecord });
   } catch (error) {
     if (error instanceof JsonLinesError) throw new UsageError(`--resume: ${error.message}`);
     throw error;
@@ -106,7 +106,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         ...files.map((path) => ({ path, reason: null as string | null })),
       ].filter((input) => shard === null || inShard(input.path, shard));
 
-      const previous = options.resume && options.jsonl ? await resumedDocuments(options.jsonl, io) : [];
+      const previous = options.resume && options.jsonl ? await resumedDocuments(options.jsonl, io, resolveLimits(limits).maxSecondsPerDocument) : [];
       const done = new Set(previous.map((d) => d.path));
       const writer = options.jsonl ? new JsonLinesWriter(options.jsonl, Boolean(options.resume)) : null;
       const streamToStdout = options.format === 'jsonl' && !options.jsonl && !options.output;
