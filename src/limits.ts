@@ -56,7 +56,10 @@ export interface Limits {
    * a worker thread starts it (never its wait in the queue): a document
    * audited on a worker thread is stopped (the thread is replaced) and
    * pdftotext is killed when it runs longer. PDFs read with pdf-parse, DOCX files and any file over
-   * 2 MB are always audited on a worker thread, even with --jobs 1, so they can be stopped.
+   * 2 MB are always audited on a worker thread, even with --jobs 1, so they can be stopped; the
+   * other documents audited on the main thread are interrupted in their scan and check
+   * (auditFile, syncBudget.ts). Also the budget of refit --reported's manuscript and of one
+   * record read by merge.
    */
   maxSecondsPerDocument: number;
 }

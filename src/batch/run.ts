@@ -56,9 +56,9 @@ function needsStoppableThread(path: string, pdfEngine: PdfEngine): boolean {
 
 /**
  * Files larger than this are audited on a worker thread even with --jobs 1, whatever their format: a document
- * this large may hold tens of thousands of results, and only a thread can be stopped when its audit runs past
- * the time budget. Papers are far smaller (a long thesis as text is well under 1 MB), so they keep the
- * quicker path on the main thread.
+ * this large may hold tens of thousands of results, and its reading (not only its scan and check, which the
+ * main thread interrupts too: auditFile) is stopped only by ending a thread. Papers are far smaller (a long
+ * thesis as text is well under 1 MB), so they keep the quicker path on the main thread.
  */
 const STOPPABLE_ABOVE_BYTES = 2 * 1024 * 1024;
 
@@ -199,7 +199,8 @@ export async function runBatch(options: BatchOptions): Promise<void> {
     ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)) && !(await anyLarge(pending.map((item) => item.path))));
   if (onThisThread) {
     const { auditFile } = await import('./auditFile.js');
-    for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions));
+    const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
+    for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions, maxSecondsPerDocument));
     return;
   }
 
@@ -217,15 +218,16 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   }
 }
 
-/** One document audited in this thread; any error becomes its row. */
+/** One document audited in this thread, within its time budget (auditFile); any error becomes its row. */
 async function auditHere(
   auditFile: typeof import('./auditFile.js').auditFile,
   path: string,
   config: ResolvedConfig,
   readOptions: WorkerTask['readOptions'],
+  timeBudgetSeconds: number,
 ): Promise<AuditEntry> {
   try {
-    return entryOf(await auditFile(path, config, readOptions));
+    return entryOf(await auditFile(path, config, readOptions, { timeBudgetSeconds }));
   } catch (error) {
     return entryOf(unreadableDocument(path, internalErrorReason(error)));
   }

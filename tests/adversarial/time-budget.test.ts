@@ -60,6 +60,27 @@ describe('time budget per document', () => {
     expect(report.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
   }, 30_000);
 
+  it('stops a document under 2 MB audited on the main thread (--jobs 1) past the budget, and the audit goes on', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
+    // About 1.7 MB of results (under the 2 MB above which a file goes to a worker thread): 18 s of checking on
+    // the main thread here, far past a budget of 1 s. Before, nothing stopped it.
+    const results = Array.from({ length: 70_000 }, (_, i) => `F(1, 20) = ${(1 + (i % 50)) / 10}, p = .0${(i % 9) + 1}; `).join('');
+    expect(Buffer.byteLength(results)).toBeLessThan(2 * 1024 * 1024);
+    writeFileSync(join(dir, 'dense.txt'), results);
+    writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
+    const run = spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
+    expect(run.status).toBe(2);
+    const report = reportSchema.parse(JSON.parse(run.stdout));
+    const dense = report.documents.find((d) => d.path.endsWith('dense.txt'))!;
+    expect(dense.status).toBe('unreadable');
+    expect(dense.error).toBe(
+      'took longer than 1 s and was stopped (limit maxSecondsPerDocument = 1 seconds; raise it with --limit maxSecondsPerDocument=<n> or "limits": {"maxSecondsPerDocument": <n>} in the settings file)',
+    );
+    const fine = report.documents.find((d) => d.path.endsWith('fine.txt'))!;
+    expect(fine.status).toBe('checked');
+    expect(fine.statistics).toHaveLength(1);
+  }, 30_000);
+
   it('stops pdftotext when it runs past maxSecondsPerDocument, and the audit goes on', () => {
     const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
     // A stand-in pdftotext that never finishes, first on the PATH: the budget must stop it.
