@@ -124,14 +124,27 @@ export function checkOutputFolder(file: string): void {
 /** The JSON and JSON Lines reports as pieces in order (one per document); null for the other formats. */
 function jsonPieces(input: ReportInput, format: ReportFormat): Iterable<string> | null {
   if (format !== 'json' && format !== 'jsonl') return null;
-  const entries = 'entries' in input ? input.entries : input.documents.map(entryOf);
+  return jsonPiecesOf(format, input.summary, 'entries' in input ? input.entries : input.documents.map(entryOf));
+}
+
+/** The JSON or JSON Lines report of audits given one at a time (an array, or made as they are written). */
+function jsonPiecesOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<AuditEntry>): Iterable<string> {
   const documents = (function* () {
     for (const entry of entries) yield entryJson(entry);
   })();
-  if (format === 'json') return jsonReportPieces({ ...reportHead(), summary: input.summary }, documents);
+  if (format === 'json') return jsonReportPieces({ ...reportHead(), summary }, documents);
   return (function* () {
     for (const text of documents) yield `${text}\n`;
   })();
+}
+
+/**
+ * Writes a JSON or JSON Lines report whose audits are made as they are
+ * written (merge reads each back from its file): only one audit, and one
+ * batch of text, is held at a time.
+ */
+export function writeJsonReportOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<AuditEntry>, output: string | undefined, io: CliIo): void {
+  writePieces(jsonPiecesOf(format, summary, entries), output, io);
 }
 
 /** Most characters gathered before a write: few writes, and never one string as long as the whole report. */
