@@ -123,7 +123,8 @@ export async function forEachJsonLinesRecord(
     let from = 0;
     for (let at = chunk.indexOf(NEWLINE, from); at !== -1; at = chunk.indexOf(NEWLINE, from)) {
       const piece = chunk.subarray(from, at);
-      const startedAt = partialBytes === 0 ? arrived : partialSince;
+      // A line's clock starts when its first bytes are there and the lines before it are done with.
+      const startedAt = partialBytes === 0 ? performance.now() : partialSince;
       const offset = bytesRead + from - partialBytes;
       if (partialBytes + piece.length > LONGEST_LINE_BYTES) throw tooLong(path, lineNumber + 1);
       const line = partialBytes === 0 ? piece : Buffer.concat([...partial, piece], partialBytes + piece.length);
@@ -133,7 +134,7 @@ export async function forEachJsonLinesRecord(
       from = at + 1;
     }
     if (from < chunk.length) {
-      if (partialBytes === 0) partialSince = arrived;
+      if (partialBytes === 0) partialSince = performance.now();
       partial.push(chunk.subarray(from));
       partialBytes += chunk.length - from;
       if (partialBytes > LONGEST_LINE_BYTES) throw tooLong(path, lineNumber + 1);

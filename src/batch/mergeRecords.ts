@@ -40,8 +40,7 @@ export async function indexRecords(files: readonly string[], options: JsonLinesR
     const { cutOff } = await forEachJsonLinesRecord(
       files[file]!,
       ({ document, line, offset, bytes }) => {
-        byPath.delete(document.path); // a later record of a path takes its place
-        byPath.set(document.path, { file, line, offset, bytes, tally: tallyOf(document) });
+        byPath.set(document.path, { file, line, offset, bytes, tally: tallyOf(document) }); // a later record of a path replaces it
       },
       options,
     );
