@@ -56,7 +56,10 @@ export interface Limits {
    * a worker thread starts it (never its wait in the queue): a document
    * audited on a worker thread is stopped (the thread is replaced) and
    * pdftotext is killed when it runs longer. PDFs read with pdf-parse, DOCX files and any file over
-   * 2 MB are always audited on a worker thread, even with --jobs 1, so they can be stopped.
+   * 2 MB are always audited on a worker thread, even with --jobs 1, so they can be stopped; the
+   * other documents audited on the main thread are interrupted in their scan and check
+   * (auditFile, syncBudget.ts). Also the budget of refit --reported's manuscript and of one
+   * record read by merge.
    */
   maxSecondsPerDocument: number;
 }
@@ -116,6 +119,28 @@ export function limitHint(name: keyof Limits, value: number): string {
   const { unit } = limitDescriptions[name];
   const option = name === 'maxDocumentMb' ? '--max-document-mb <n>' : `--limit ${name}=<n>`;
   return `(limit ${name} = ${formatLimit(value)} ${unit}; raise it with ${option} or "limits": {"${name}": <n>} in the settings file)`;
+}
+
+/**
+ * A reader's message with each limit's hint reworded for a command that
+ * takes limits only as --limit name=value and has no settings file (refit):
+ * the readers word their hints for scan (limitHint).
+ */
+export function hintsForLimitOptionOnly(message: string): string {
+  let reworded = message;
+  for (const name of limitNames) {
+    const option = name === 'maxDocumentMb' ? '--max-document-mb <n>' : `--limit ${name}=<n>`;
+    reworded = reworded.replaceAll(`raise it with ${option} or "limits": {"${name}": <n>} in the settings file)`, `raise it with --limit ${name}=<n>)`);
+  }
+  return reworded;
+}
+
+/**
+ * Why a document (or a record, or a reported manuscript) was stopped by the
+ * time budget: "took longer than 120 s and was stopped (limit ...)".
+ */
+export function timeBudgetReason(seconds: number): string {
+  return `took longer than ${formatLimit(seconds)} s and was stopped ${limitHint('maxSecondsPerDocument', seconds)}`;
 }
 
 function formatLimit(value: number): string {

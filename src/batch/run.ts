@@ -1,13 +1,11 @@
 import { createHash } from 'node:crypto';
-import { existsSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { stat } from 'node:fs/promises';
 import { extname, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { MessageChannel } from 'node:worker_threads';
 import type { ResolvedConfig } from '../checks/config.js';
 import { formatByExtension } from '../documents/formats.js';
 import { openRegularFile } from '../documents/regularFile.js';
-import { limitHint, resolveLimits } from '../limits.js';
+import { resolveLimits, timeBudgetReason } from '../limits.js';
 import { tallyOf, unreadableDocument } from '../report/build.js';
 import { AuditCache, ContentKeyIndex } from './cache.js';
 import { entryJson, entryOf, internalErrorReason, type AuditEntry } from './entry.js';
@@ -15,6 +13,7 @@ import type { PdfEngine } from '../documents/pdf.js';
 import type { WorkerTask } from './worker.js';
 import { mapConcurrently } from './concurrently.js';
 import { appendAll } from '../arrays.js';
+import { compiledModule, runWithinBudget } from './withinBudget.js';
 
 export interface BatchOptions {
   files: readonly string[];
@@ -57,9 +56,9 @@ function needsStoppableThread(path: string, pdfEngine: PdfEngine): boolean {
 
 /**
  * Files larger than this are audited on a worker thread even with --jobs 1, whatever their format: a document
- * this large may hold tens of thousands of results, and only a thread can be stopped when its audit runs past
- * the time budget. Papers are far smaller (a long thesis as text is well under 1 MB), so they keep the
- * quicker path on the main thread.
+ * this large may hold tens of thousands of results, and its reading (not only its scan and check, which the
+ * main thread interrupts too: auditFile) is stopped only by ending a thread. Papers are far smaller (a long
+ * thesis as text is well under 1 MB), so they keep the quicker path on the main thread.
  */
 const STOPPABLE_ABOVE_BYTES = 2 * 1024 * 1024;
 
@@ -75,12 +74,6 @@ async function anyLarge(paths: readonly string[]): Promise<boolean> {
   return sizes.some((size) => size > STOPPABLE_ABOVE_BYTES);
 }
 
-/** The compiled worker module, or null when running from TypeScript sources (tests), where threads cannot load it. */
-function workerModule(): string | null {
-  const url = new URL('./worker.js', import.meta.url);
-  const path = fileURLToPath(url);
-  return existsSync(path) ? url.href : null;
-}
 
 type SchemaCheck = (entry: AuditEntry) => AuditEntry | null;
 
@@ -199,14 +192,15 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   // Everything that checks documents is loaded only now, when some document is not in the cache.
   const { resolveConfig } = await import('../checks/config.js');
   const config = resolveConfig(options.task.userConfig, options.task.configSource); // bad settings fail here, before any thread starts
-  const module = workerModule();
+  const module = compiledModule('./worker.js', import.meta.url);
   const pdfEngine = (await import('../documents/pdf.js')).resolvePdfEngine(options.task.readOptions.pdfEngine);
   const onThisThread =
     module === null ||
     ((options.jobs <= 1 || pending.length === 1) && !pending.some((item) => needsStoppableThread(item.path, pdfEngine)) && !(await anyLarge(pending.map((item) => item.path))));
   if (onThisThread) {
     const { auditFile } = await import('./auditFile.js');
-    for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions));
+    const { maxSecondsPerDocument } = resolveLimits(options.task.readOptions.limits);
+    for (const item of pending) await finish(item, await auditHere(auditFile, item.path, config, options.task.readOptions, maxSecondsPerDocument));
     return;
   }
 
@@ -224,15 +218,16 @@ export async function runBatch(options: BatchOptions): Promise<void> {
   }
 }
 
-/** One document audited in this thread; any error becomes its row. */
+/** One document audited in this thread, within its time budget (auditFile); any error becomes its row. */
 async function auditHere(
   auditFile: typeof import('./auditFile.js').auditFile,
   path: string,
   config: ResolvedConfig,
   readOptions: WorkerTask['readOptions'],
+  timeBudgetSeconds: number,
 ): Promise<AuditEntry> {
   try {
-    return entryOf(await auditFile(path, config, readOptions));
+    return entryOf(await auditFile(path, config, readOptions, { timeBudgetSeconds }));
   } catch (error) {
     return entryOf(unreadableDocument(path, internalErrorReason(error)));
   }
@@ -251,26 +246,10 @@ async function auditOnPool(
   task: Omit<WorkerTask, 'started'>,
   maxSecondsPerDocument: number,
 ): Promise<AuditEntry> {
-  const { port1: startedHere, port2: startedThere } = new MessageChannel();
-  const stop = new AbortController();
-  let timer: NodeJS.Timeout | undefined;
-  let timedOut = false;
-  startedHere.once('message', () => {
-    timer = setTimeout(() => {
-      timedOut = true;
-      stop.abort();
-    }, maxSecondsPerDocument * 1000);
-    startedHere.close();
-  });
   try {
-    return await pool.run({ ...task, started: startedThere }, { signal: stop.signal, transferList: [startedThere] });
+    const outcome = await runWithinBudget(pool, task, maxSecondsPerDocument);
+    return outcome.done ? outcome.value : entryOf(unreadableDocument(task.path, timeBudgetReason(maxSecondsPerDocument)));
   } catch (error) {
-    if (timedOut) {
-      return entryOf(unreadableDocument(task.path, `took longer than ${maxSecondsPerDocument} s and was stopped ${limitHint('maxSecondsPerDocument', maxSecondsPerDocument)}`));
-    }
     return entryOf(unreadableDocument(task.path, internalErrorReason(error)));
-  } finally {
-    clearTimeout(timer);
-    startedHere.close();
   }
 }

@@ -8,6 +8,7 @@ import { notRegularFileReason } from '../documents/regularFile.js';
 import { buildReport, reportHead } from '../report/build.js';
 import { formatJsonParts, jsonReportPieces } from '../report/json.js';
 import type { Report, Summary } from '../report/model.js';
+import { checkLimitValue, limitNames, type Limits } from '../limits.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
 export interface CliIo {
@@ -123,14 +124,27 @@ export function checkOutputFolder(file: string): void {
 /** The JSON and JSON Lines reports as pieces in order (one per document); null for the other formats. */
 function jsonPieces(input: ReportInput, format: ReportFormat): Iterable<string> | null {
   if (format !== 'json' && format !== 'jsonl') return null;
-  const entries = 'entries' in input ? input.entries : input.documents.map(entryOf);
+  return jsonPiecesOf(format, input.summary, 'entries' in input ? input.entries : input.documents.map(entryOf));
+}
+
+/** The JSON or JSON Lines report of audits given one at a time (an array, or made as they are written). */
+function jsonPiecesOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<AuditEntry>): Iterable<string> {
   const documents = (function* () {
     for (const entry of entries) yield entryJson(entry);
   })();
-  if (format === 'json') return jsonReportPieces({ ...reportHead(), summary: input.summary }, documents);
+  if (format === 'json') return jsonReportPieces({ ...reportHead(), summary }, documents);
   return (function* () {
     for (const text of documents) yield `${text}\n`;
   })();
+}
+
+/**
+ * Writes a JSON or JSON Lines report whose audits are made as they are
+ * written (merge reads each back from its file): only one audit, and one
+ * batch of text, is held at a time.
+ */
+export function writeJsonReportOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<AuditEntry>, output: string | undefined, io: CliIo): void {
+  writePieces(jsonPiecesOf(format, summary, entries), output, io);
 }
 
 /** Most characters gathered before a write: few writes, and never one string as long as the whole report. */
@@ -182,4 +196,33 @@ export function addCommonOptions(command: Command): Command {
     .option('-c, --config <file>', 'settings file (JSON) that switches rules off or changes their severity and options')
     .addOption(new Option('--fail-on <severity>', 'lowest severity that makes the exit code 1').choices(['fail', 'warn', 'never']).default('fail'))
     .option('--alpha <level>', 'significance level when a document declares none (default .05)');
+}
+
+/** The option that changes any limit of src/limits.ts: "--limit name=value", repeatable. */
+export function limitOption(what: string): Option {
+  return new Option('--limit <name=value>', `${what}, repeatable (${limitNames.join(', ')}); see DEVELOPERS.md, "Limits"`).argParser(
+    (item: string, earlier: string[] | undefined) => [...(earlier ?? []), item],
+  );
+}
+
+/**
+ * The settings file's limits with the command line's on top (--limit, and
+ * --max-document-mb where the command has it); undefined when neither
+ * changes any. A bad name or value is a usage error naming the option.
+ */
+export function limitsFrom(fromSettings: Partial<Limits> | undefined, options: { limit?: string[]; maxDocumentMb?: string }): Partial<Limits> | undefined {
+  const limits: Partial<Limits> = { ...fromSettings };
+  const set = (name: string, text: string, option: string): void => {
+    const value = Number(text);
+    const problem = text.trim() === '' ? `limit ${name} needs a value` : checkLimitValue(name, value);
+    if (problem !== null) throw new UsageError(`${option}: ${problem}`);
+    limits[name as keyof Limits] = value;
+  };
+  for (const item of options.limit ?? []) {
+    const equals = item.indexOf('=');
+    if (equals === -1) throw new UsageError(`--limit takes name=value, got "${item}"`);
+    set(item.slice(0, equals).trim(), item.slice(equals + 1), '--limit');
+  }
+  if (options.maxDocumentMb !== undefined) set('maxDocumentMb', options.maxDocumentMb, '--max-document-mb');
+  return Object.keys(limits).length > 0 ? limits : undefined;
 }

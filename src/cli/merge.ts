@@ -1,8 +1,32 @@
 import type { Command } from 'commander';
+import { entryOf } from '../batch/entry.js';
+import { JsonLinesError } from '../batch/jsonLines.js';
+import { indexRecords, mergedDocuments, type MergeIndex } from '../batch/mergeRecords.js';
+import { resolveLimits } from '../limits.js';
 import { buildReport } from '../report/build.js';
-import { mergeByPath } from '../batch/entry.js';
-import { JsonLinesError, readJsonLines } from '../batch/jsonLines.js';
-import { addCommonOptions, exitCodeFor, UsageError, writeReport, type CliIo, type CommonOptions } from './common.js';
+import type { DocumentOutput } from '../report/model.js';
+import {
+  addCommonOptions,
+  exitCodeFor,
+  limitOption,
+  limitsFrom,
+  UsageError,
+  userConfigFrom,
+  writeJsonReportOf,
+  writeReport,
+  type CliIo,
+  type CommonOptions,
+} from './common.js';
+
+/** An error reading the JSON Lines files as the user's error it is (exit code 2), naming the file; other errors pass. */
+function usageErrorOf(error: unknown): unknown {
+  if (error instanceof JsonLinesError) return new UsageError(error.message);
+  const code = (error as NodeJS.ErrnoException).code;
+  const where = (error as NodeJS.ErrnoException).path ?? 'a JSON Lines file';
+  if (code === 'ENOENT') return new UsageError(`${where}: file not found`);
+  if (code) return new UsageError(`${where}: cannot read the file (${code})`);
+  return error;
+}
 
 export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (code: number) => void): void {
   addCommonOptions(
@@ -12,25 +36,48 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
       .argument('<files...>', 'JSON Lines files written by scan --jsonl'),
   )
     .option('--all', 'list results without findings too (text format)')
-    .action(async (files: string[], options: CommonOptions & { all?: boolean }) => {
-      const perFile = await Promise.all(files.map(async (file) => {
-        try {
-          const { documents, cutOff } = await readJsonLines(file);
-          if (cutOff) {
+    .addOption(limitOption('change a limit (maxSecondsPerDocument: the time budget of reading and checking one record)'))
+    .action(async (files: string[], options: CommonOptions & { all?: boolean; limit?: string[] }) => {
+      const { userConfig } = await userConfigFrom(options);
+      const { maxSecondsPerDocument } = resolveLimits(limitsFrom(userConfig.limits, options));
+      let index: MergeIndex;
+      try {
+        index = await indexRecords(
+          files,
+          { maxSecondsPerRecord: maxSecondsPerDocument },
+          (file, line) =>
             // Not an error: the lines before it are whole. The document is missing from the merge, so say which line.
-            io.stderr(`plumbline: ${file}: line ${cutOff.line} was cut off mid-line (an interrupted write) and is left out; scan --resume audits its document again\n`);
-          }
-          return documents;
-        } catch (error) {
-          const code = (error as NodeJS.ErrnoException).code;
-          if (code === 'ENOENT') throw new UsageError(`${file}: file not found`);
-          if (code) throw new UsageError(`${file}: cannot read the file (${code})`);
-          if (error instanceof JsonLinesError) throw new UsageError(error.message);
-          throw error;
+            io.stderr(`plumbline: ${file}: line ${line} was cut off mid-line (an interrupted write) and is left out; scan --resume audits its document again\n`),
+        );
+      } catch (error) {
+        throw usageErrorOf(error);
+      }
+      const { documentSchema } = await import('../report/model.js');
+      const parseRecord = (text: string): DocumentOutput | null => {
+        try {
+          const checked = documentSchema.safeParse(JSON.parse(text));
+          return checked.success ? checked.data : null;
+        } catch {
+          return null;
         }
-      }));
-      const report = buildReport(mergeByPath(perFile.flat()));
-      await writeReport(report, options, io, options.all ?? false);
-      setExitCode(exitCodeFor(report.summary, options.failOn));
+      };
+      try {
+        if (options.format === 'json' || options.format === 'jsonl') {
+          // Streamed: each document is read back, written and let go (the summary came from the first pass).
+          const entries = (function* () {
+            for (const document of mergedDocuments(index, parseRecord)) yield entryOf(document);
+          })();
+          writeJsonReportOf(options.format, index.summary, entries, options.output, io);
+        } else {
+          // The console, Markdown, CSV and HTML reports are built whole (the HTML page's overview, filters
+          // and chart, the summaries' lists of flags), so here every document is held; JSON and JSON Lines
+          // are the formats for merges too large for that.
+          await writeReport(buildReport([...mergedDocuments(index, parseRecord)]), options, io, options.all ?? false);
+        }
+      } catch (error) {
+        // A record no longer where the first pass found it; errors writing the report pass as they are.
+        throw error instanceof JsonLinesError ? new UsageError(error.message) : error;
+      }
+      setExitCode(exitCodeFor(index.summary, options.failOn));
     });
 }

@@ -1,5 +1,5 @@
 import { Option, type Command } from 'commander';
-import type { CliIo } from './common.js';
+import { limitOption, type CliIo } from './common.js';
 import type { RefitOptions } from './refitAction.js';
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
@@ -19,6 +19,7 @@ export function registerRefitCommand(program: Command, io: CliIo, setExitCode: (
     .option('--reported <file>', 'what the manuscript reports: a table file (CSV, Markdown) or the manuscript (PDF, DOCX, HTML, XML, TXT, MD)')
     .option('--map <pair>', 'name a reported row for a model term: "Teaching method=method" (repeatable)', collect, [])
     .option('--spec <file>', 'analysis description (JSON); command-line options override it')
+    .addOption(limitOption('change a limit on reading the --reported manuscript (maxSecondsPerDocument: its time budget, 120 s)'))
     .option('--max-columns <n>', 'most design columns fitted (default 1000): stops a factor with thousands of levels, usually an identifier, from running for hours')
     .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'md', 'html', 'docx']).default('text'))
     .option('-o, --output <file>', 'write the output to a file (required for docx)')

@@ -8,9 +8,10 @@ import { explainMismatch, impliedSampleSize, loadTable } from '../refit/explain.
 import { formatRefitHtml, formatRefitMarkdown, formatRefitText } from '../refit/format.js';
 import { fitModel } from '../refit/model.js';
 import { buildRefitOutput, type RefitResult } from '../refit/output.js';
-import { parseTermMap, readReported } from '../refit/reportedTable.js';
+import { parseTermMap } from '../refit/reportedTable.js';
+import { readReportedWithinBudget } from '../refit/readReportedWithinBudget.js';
 import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
-import { EXIT_CLEAN, EXIT_FLAGGED, UsageError, type CliIo } from './common.js';
+import { EXIT_CLEAN, EXIT_FLAGGED, limitsFrom, UsageError, type CliIo } from './common.js';
 
 /**
  * `plumbline refit <data> --model "<formula>"`: rebuilds the ANOVA/ANCOVA
@@ -34,6 +35,7 @@ export interface RefitOptions {
   reported?: string;
   spec?: string;
   maxColumns?: string;
+  limit?: string[];
   format: Format;
   output?: string;
 }
@@ -147,6 +149,8 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
   }
   const spec = buildSpec(options);
   const map = parseTermMap(options.map);
+  // Limits on reading the reported manuscript (its size, DOCX and PDF bounds, its time budget); refit takes no settings file.
+  const limits = limitsFrom(undefined, options);
   parseAnalysisSpec(spec); // validate before reading data
 
   const model = await fitModel(dataFile, spec);
@@ -158,7 +162,7 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
     missing: Object.entries(spec.missing ?? {}).map(([column, codes]) => ({ column, codes: codesText(codes) })),
   };
   if (options.reported !== undefined) {
-    const reported = await readReported(options.reported, model.spec.formula.terms, map);
+    const reported = await readReportedWithinBudget(options.reported, model.spec.formula.terms, map, limits ? { limits } : {});
     const comparison = compareTables(table, reported, map);
     result.reported = reported;
     result.comparison = comparison;

@@ -11,9 +11,9 @@ import { runBatch } from '../batch/run.js';
 import { inShard, parseShard } from '../batch/shard.js';
 import type { ReadOptions } from '../documents/read.js';
 import type { DocumentOutput } from '../report/model.js';
-import { checkLimitValue, defaultLimits, limitNames, type Limits } from '../limits.js';
+import { defaultLimits, resolveLimits } from '../limits.js';
 import { buildFingerprint } from '../version.js';
-import { addCommonOptions, checkOutputFolder, exitCodeFor, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
+import { addCommonOptions, checkOutputFolder, exitCodeFor, limitOption, limitsFrom, UsageError, userConfigFrom, writeReport, type CliIo, type CommonOptions } from './common.js';
 
 interface ScanOptions extends CommonOptions {
   all?: boolean;
@@ -37,24 +37,6 @@ function parseJobs(text: string | undefined): number {
   return jobs;
 }
 
-/** The settings file's limits with the command line's on top; undefined when neither changes any. */
-function limitsFrom(fromSettings: Partial<Limits> | undefined, options: ScanOptions): Partial<Limits> | undefined {
-  const limits: Partial<Limits> = { ...fromSettings };
-  const set = (name: string, text: string, option: string): void => {
-    const value = Number(text);
-    const problem = text.trim() === '' ? `limit ${name} needs a value` : checkLimitValue(name, value);
-    if (problem !== null) throw new UsageError(`${option}: ${problem}`);
-    limits[name as keyof Limits] = value;
-  };
-  for (const item of options.limit ?? []) {
-    const equals = item.indexOf('=');
-    if (equals === -1) throw new UsageError(`--limit takes name=value, got "${item}"`);
-    set(item.slice(0, equals).trim(), item.slice(equals + 1), '--limit');
-  }
-  if (options.maxDocumentMb !== undefined) set('maxDocumentMb', options.maxDocumentMb, '--max-document-mb');
-  return Object.keys(limits).length > 0 ? limits : undefined;
-}
-
 /**
  * The documents already in the --jsonl file that --resume continues. A last
  * line cut off mid-line (a crash, a full disk) is dropped from the file,
@@ -63,11 +45,11 @@ function limitsFrom(fromSettings: Partial<Limits> | undefined, options: ScanOpti
  * line anywhere else stops the scan with its line number, before the file is
  * touched.
  */
-async function resumedDocuments(file: string, io: CliIo): Promise<DocumentOutput[]> {
+async function resumedDocuments(file: string, io: CliIo, maxSecondsPerRecord: number): Promise<DocumentOutput[]> {
   if (!existsSync(file)) return [];
   let content;
   try {
-    content = await readJsonLines(file);
+    content = await readJsonLines(file, { maxSecondsPerRecord });
   } catch (error) {
     if (error instanceof JsonLinesError) throw new UsageError(`--resume: ${error.message}`);
     throw error;
@@ -107,11 +89,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
     .option('--follow-links', 'also audit files that links in a scanned folder point to outside it')
     .option('-q, --quiet', 'no progress bar')
     .option('--max-document-mb <n>', `largest document read whole, in MB (default ${defaultLimits.maxDocumentMb}; larger text files are streamed)`)
-    .option(
-      '--limit <name=value>',
-      `change another limit, repeatable (${limitNames.join(', ')}); see DEVELOPERS.md, "Limits"`,
-      (item: string, earlier: string[] = []) => [...earlier, item],
-    )
+    .addOption(limitOption('change another limit'))
     .action(async (paths: string[], options: ScanOptions) => {
       const { userConfig, source } = await userConfigFrom(options);
       const limits = limitsFrom(userConfig.limits, options);
@@ -128,7 +106,7 @@ export function registerScanCommand(program: Command, io: CliIo, setExitCode: (c
         ...files.map((path) => ({ path, reason: null as string | null })),
       ].filter((input) => shard === null || inShard(input.path, shard));
 
-      const previous = options.resume && options.jsonl ? await resumedDocuments(options.jsonl, io) : [];
+      const previous = options.resume && options.jsonl ? await resumedDocuments(options.jsonl, io, resolveLimits(limits).maxSecondsPerDocument) : [];
       const done = new Set(previous.map((d) => d.path));
       const writer = options.jsonl ? new JsonLinesWriter(options.jsonl, Boolean(options.resume)) : null;
       const streamToStdout = options.format === 'jsonl' && !options.jsonl && !options.output;

@@ -1,7 +1,8 @@
-import { readFile } from 'node:fs/promises';
+import { readFile, stat } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
 import Papa from 'papaparse';
-import { readDocument } from '../documents/read.js';
+import { readDocument, tooLargeMessage, type ReadOptions } from '../documents/read.js';
+import { MB, resolveLimits } from '../limits.js';
 import { scanText } from '../scan/scan.js';
 import type { Comparator, ReportedNumber } from '../scan/types.js';
 import { parseReportedNumber } from '../stats/reportedNumber.js';
@@ -374,14 +375,24 @@ function readDelimited(path: string, text: string): string[][] {
  * the text for Markdown, plain text and PDF), the one that names the most
  * model terms taken, then written F results for terms the table lacks.
  */
-export async function readReported(path: string, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string> = new Map()): Promise<ReportedSet> {
+export async function readReported(
+  path: string,
+  terms: readonly FormulaTerm[],
+  map: ReadonlyMap<string, string> = new Map(),
+  readOptions: ReadOptions = {},
+): Promise<ReportedSet> {
   const file = basename(path);
   const ext = extname(path).toLowerCase();
   if (TABLE_FILE_EXTENSIONS.has(ext)) {
     let text: string;
     try {
+      // A table file is read whole: one larger than a document may be is refused before it is read.
+      const { size } = await stat(path);
+      const { maxDocumentMb } = resolveLimits(readOptions.limits);
+      if (size > maxDocumentMb * MB) throw new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${tooLargeMessage(size, resolveLimits(readOptions.limits))}).`, { file });
       text = await readFile(path, 'utf8');
     } catch (error) {
+      if (error instanceof RefitError) throw error;
       throw new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${(error as NodeJS.ErrnoException).code ?? (error as Error).message}).`, { file });
     }
     const table = readAnovaRows(readDelimited(path, text), 'table file');
@@ -395,7 +406,7 @@ export async function readReported(path: string, terms: readonly FormulaTerm[], 
     return { file: path, rows: table.rows, residual: table.residual, sources: ['table file'] };
   }
 
-  const outcome = await readDocument(path);
+  const outcome = await readDocument(path, readOptions);
   if (!outcome.ok) throw new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${outcome.error}).`, { file });
   const document = outcome.document;
   const candidates: Array<{ table: ReadTable; name: string }> = [];

@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { chmodSync, copyFileSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { chmodSync, copyFileSync, mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -60,6 +60,27 @@ describe('time budget per document', () => {
     expect(report.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
   }, 30_000);
 
+  it('stops a document under 2 MB audited on the main thread (--jobs 1) past the budget, and the audit goes on', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
+    // About 1.7 MB of results (under the 2 MB above which a file goes to a worker thread): 18 s of checking on
+    // the main thread here, far past a budget of 1 s. Before, nothing stopped it.
+    const results = Array.from({ length: 70_000 }, (_, i) => `F(1, 20) = ${(1 + (i % 50)) / 10}, p = .0${(i % 9) + 1}; `).join('');
+    expect(Buffer.byteLength(results)).toBeLessThan(2 * 1024 * 1024);
+    writeFileSync(join(dir, 'dense.txt'), results);
+    writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
+    const run = spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
+    expect(run.status).toBe(2);
+    const report = reportSchema.parse(JSON.parse(run.stdout));
+    const dense = report.documents.find((d) => d.path.endsWith('dense.txt'))!;
+    expect(dense.status).toBe('unreadable');
+    expect(dense.error).toBe(
+      'took longer than 1 s and was stopped (limit maxSecondsPerDocument = 1 seconds; raise it with --limit maxSecondsPerDocument=<n> or "limits": {"maxSecondsPerDocument": <n>} in the settings file)',
+    );
+    const fine = report.documents.find((d) => d.path.endsWith('fine.txt'))!;
+    expect(fine.status).toBe('checked');
+    expect(fine.statistics).toHaveLength(1);
+  }, 30_000);
+
   it('stops pdftotext when it runs past maxSecondsPerDocument, and the audit goes on', () => {
     const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
     // A stand-in pdftotext that never finishes, first on the PATH: the budget must stop it.
@@ -105,4 +126,48 @@ describe('time budget per document', () => {
       expect(report.documents.filter((d) => d.status === 'unreadable').map((d) => d.error), `--jobs ${jobs}`).toEqual([]);
     }
   }, 60_000);
+
+  it('stops reading a refit --reported manuscript past the budget (it is read on a thread of its own)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
+    slowPdf(join(dir, 'slow.pdf'));
+    // No pdftotext on the PATH, so the PDF is read by pdf-parse (JavaScript, stopped only by ending its thread).
+    const emptyBin = join(dir, 'bin');
+    mkdirSync(emptyBin);
+    const demo = (name: string) => join(process.cwd(), 'corpus-demo', 'refit', name);
+    const run = (limit: string[]) =>
+      spawnSync(process.execPath, [bin, 'refit', demo('harbour-walks.csv'), '--spec', demo('harbour-walks.analysis.json'), '--reported', join(dir, 'slow.pdf'), ...limit], {
+        encoding: 'utf8',
+        env: { ...process.env, PATH: emptyBin, NO_COLOR: '1' },
+        timeout: 25_000,
+      });
+    const stopped = run(['--limit', 'maxSecondsPerDocument=1']);
+    expect(stopped.status).toBe(2);
+    expect(stopped.stderr).toBe(
+      'plumbline: slow.pdf: reading it as the reported manuscript took longer than 1 s and was stopped (limit maxSecondsPerDocument = 1 seconds; raise it with --limit maxSecondsPerDocument=<n>)\n',
+    );
+    // Within the default budget the same PDF is read to its end (it reports no table): it was the budget that stopped it.
+    const read = run([]);
+    expect(read.status).toBe(2);
+    expect(read.stderr).toMatch(/^plumbline: slow\.pdf: found no ANOVA table and no written F results/);
+  }, 30_000);
+
+  it('refit --limit passes the document limits to the reported manuscript, and refuses a bad one by name', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-time-'));
+    const demo = (name: string) => join(process.cwd(), 'corpus-demo', 'refit', name);
+    const refit = (limit: string[]) =>
+      spawnSync(process.execPath, [bin, 'refit', demo('harbour-walks.csv'), '--spec', demo('harbour-walks.analysis.json'), '--reported', demo('harbour-walks-manuscript.md'), ...limit], {
+        encoding: 'utf8',
+        env: { ...process.env, NO_COLOR: '1' },
+        timeout: 25_000,
+        cwd: dir,
+      });
+    const tooSmall = refit(['--limit', 'maxDocumentMb=0.000001']);
+    expect(tooSmall.status).toBe(2);
+    expect(tooSmall.stderr).toMatch(/^plumbline: harbour-walks-manuscript\.md: cannot be read \(text file too large to read whole: .*\(limit maxDocumentMb = 0\.000001 MB; raise it with --limit maxDocumentMb=<n>\)/);
+    const bad = refit(['--limit', 'maxSecondsPerDocument=soon']);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toBe('plumbline: --limit: limit maxSecondsPerDocument must be a positive number, got NaN\n');
+    // The demo within its limits: the planted slip is found as before (exit 1).
+    expect(refit([]).status).toBe(1);
+  }, 30_000);
 });
