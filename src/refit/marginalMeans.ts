@@ -1,8 +1,9 @@
+import { fUpperTail } from '../stats/fDistribution.js';
 import { studentizedRangeUpperTail } from '../stats/studentizedRange.js';
 import { tTwoTailed, tUpperTail } from '../stats/tDistribution.js';
 import { RefitError } from './errors.js';
 import type { FittedModel } from './model.js';
-import { studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
+import { fQuantileUpper, studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
 
 /**
  * Estimated marginal means, pairwise comparisons and planned contrasts.
@@ -20,7 +21,11 @@ import { studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
  * replaced by differences or weighted sums of the means' L vectors.
  * Adjustments: Bonferroni (p m, capped at 1), Holm (step-down, monotone),
  * Tukey (studentized range with k = number of means, Tukey-Kramer for
- * unequal precision: p = P(Q > |t| sqrt 2)).
+ * unequal precision: p = P(Q > |t| sqrt 2)), Šidák (p = 1 - (1 - p)^m,
+ * computed as -expm1(m log1p(-p)); intervals at the per-comparison level
+ * 1 - level^(1/m)) and Scheffé (p = P(F(k - 1, df) > t^2 / (k - 1)), the
+ * family being every contrast of the k means; intervals with the critical
+ * value sqrt((k - 1) F(level; k - 1, df))).
  *
  * ## References
  * - Searle, S. R., Speed, F. M. & Milliken, G. A. (1980). Population
@@ -30,6 +35,11 @@ import { studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
  *   procedure. Scandinavian Journal of Statistics 6(2), 65-70.
  * - Kramer, C. Y. (1956). Extension of multiple range tests to group means
  *   with unequal numbers of replications. Biometrics 12(3), 307-310.
+ * - Šidák, Z. (1967). Rectangular confidence regions for the means of
+ *   multivariate normal distributions. Journal of the American Statistical
+ *   Association 62(318), 626-633.
+ * - Scheffé, H. (1953). A method for judging all contrasts in the analysis
+ *   of variance. Biometrika 40(1-2), 87-104.
  */
 
 export interface MarginalMean {
@@ -47,7 +57,16 @@ export interface MarginalMean {
   upper: number;
 }
 
-export type Adjustment = 'none' | 'bonferroni' | 'holm' | 'tukey';
+export type Adjustment = 'none' | 'bonferroni' | 'holm' | 'tukey' | 'sidak' | 'scheffe';
+
+/** Every adjustment, in the order the help lists them. */
+export const ADJUSTMENTS: readonly Adjustment[] = ['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none'];
+
+/** Šidák's adjustment of m p-values: 1 - (1 - p)^m, without cancellation for small p. */
+export function sidakAdjust(p: readonly number[]): number[] {
+  const m = p.length;
+  return p.map((v) => Math.min(1, -Math.expm1(m * Math.log1p(-v))));
+}
 
 export interface PairwiseComparison {
   contrast: string;
@@ -91,6 +110,13 @@ function factorSlots(model: FittedModel, factors: string | readonly string[]): n
   if (names.length === 0) throw new RefitError('INVALID_CONTRAST', 'Name at least one factor for marginal means.');
   return names.map((name) => {
     const slot = model.factorVars.findIndex((v) => v.name === name);
+    if (slot < 0 && model.numericVars.slice(0, -1).some((v) => v.name === name)) {
+      throw new RefitError(
+        'INVALID_CONTRAST',
+        `Marginal means: '${name}' is a covariate, not a factor; means are given per level of a factor, with covariates held at their means (factors: ${model.factorVars.map((v) => v.name).join(', ') || 'none'}).`,
+        { column: name },
+      );
+    }
     if (slot < 0) {
       throw new RefitError(
         'INVALID_CONTRAST',
@@ -215,9 +241,17 @@ export function pairwiseComparisons(
     adjusted = holmAdjust(raw);
     // Holm has no simultaneous intervals of its own; Bonferroni intervals are its usual companion.
     crit = tQuantileUpper((1 - level) / (2 * m), df);
-  } else {
+  } else if (adjust === 'sidak') {
+    adjusted = sidakAdjust(raw);
+    crit = tQuantileUpper(-Math.expm1(Math.log(level) / m) / 2, df);
+  } else if (adjust === 'scheffe') {
+    adjusted = rows.map((r) => fUpperTail((r.t * r.t) / (k - 1), k - 1, df));
+    crit = Math.sqrt((k - 1) * fQuantileUpper(1 - level, k - 1, df));
+  } else if (adjust === 'tukey') {
     adjusted = rows.map((r) => studentizedRangeUpperTail(Math.abs(r.t) * Math.SQRT2, k, df));
     crit = studentizedRangeQuantileUpper(1 - level, k, df) / Math.SQRT2;
+  } else {
+    throw new RefitError('INVALID_CONTRAST', `Unknown adjustment "${String(adjust)}"; use one of ${ADJUSTMENTS.join(', ')}.`);
   }
   return rows.map((r, i) => ({ ...r, p: adjusted[i]!, lower: r.estimate - crit * r.se, upper: r.estimate + crit * r.se }));
 }
@@ -252,7 +286,7 @@ export function plannedContrast(
     w = means.map((g) => byKey.get(keyOf(g)) ?? byKey.get(labelOf(g)) ?? byKey.get(g.label) ?? 0);
   }
   if (w.length !== means.length) {
-    throw new RefitError('INVALID_CONTRAST', `The contrast has ${w.length} weights, but there are ${means.length} means (${means.map((g) => g.label).join('; ')}).`);
+    throw new RefitError('INVALID_CONTRAST', `The contrast on ${means[0]!.names.join(':')} has ${w.length} weight${w.length === 1 ? '' : 's'}, but there are ${means.length} means, one weight for each in this order: ${means.map((g) => g.label).join('; ')}.`);
   }
   if (w.some((x) => !Number.isFinite(x)) || w.every((x) => x === 0)) {
     throw new RefitError('INVALID_CONTRAST', 'Contrast weights must be finite numbers, not all zero.');
@@ -260,7 +294,7 @@ export function plannedContrast(
   const sum = w.reduce((a, b) => a + b, 0);
   const scale = w.reduce((a, b) => a + Math.abs(b), 0);
   if (Math.abs(sum) > 1e-10 * scale) {
-    throw new RefitError('INVALID_CONTRAST', `Contrast weights must sum to zero (they sum to ${sum}); adjust them, e.g. [1, -0.5, -0.5].`);
+    throw new RefitError('INVALID_CONTRAST', `The contrast weights on ${means[0]!.names.join(':')} must sum to zero (they sum to ${sum}); adjust them, e.g. [1, -0.5, -0.5].`);
   }
   const p = model.columns.length;
   const l = new Float64Array(p);
