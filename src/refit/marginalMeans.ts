@@ -128,7 +128,7 @@ function factorSlots(model: FittedModel, factors: string | readonly string[]): n
   });
 }
 
-/** Iterates over all level combinations of the given factor slots, first slot fastest. */
+/** Iterates over all level combinations of the given factor slots, first slot fastest (callers reverse it for reading order). */
 function combinations(sizes: number[], visit: (idx: number[]) => void): void {
   const idx = new Array<number>(sizes.length).fill(0);
   for (;;) {
@@ -143,9 +143,11 @@ function gridMeans(model: FittedModel, slots: number[]): GridMean[] {
   const others = model.factorVars.map((_, i) => i).filter((i) => !slots.includes(i));
   const out: GridMean[] = [];
   const p = model.columns.length;
+  // The grid in reading order: the first named factor varies slowest ("lo, 1", "lo, 2", "mid, 1", ...).
   combinations(
-    slots.map((s) => model.factorVars[s]!.levels.length),
-    (target) => {
+    slots.map((s) => model.factorVars[s]!.levels.length).reverse(),
+    (reversed) => {
+      const target = reversed.reverse();
       const l = new Float64Array(p);
       let count = 0;
       combinations(
@@ -258,7 +260,7 @@ export function pairwiseComparisons(
 
 /**
  * A planned contrast of the marginal means of `factors`: weights in grid
- * order (an array) or by level code / label (an object). Weights must sum to
+ * order (an array; the first factor's levels vary slowest, as marginalMeans lists them) or by level code / label (an object). Weights must sum to
  * zero. One-sided tests: "greater" tests estimate > 0, "less" estimate < 0.
  */
 export function plannedContrast(
