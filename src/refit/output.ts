@@ -303,7 +303,8 @@ function contrastsOutput(model: FittedModel): Array<z.infer<typeof contrastOutpu
     const means = marginalMeans(model, names, { level: CONFIDENCE });
     const labels = means.map((m) => names.map((n) => { const code = m.levels[n]!; return model.factorVars.find((v) => v.name === n)?.labels.get(code) ?? code; }).join(', '));
     const weighted = labels.map((label, i) => ({ label, weight: result.weights[i]! }));
-    const name = c.name ?? `${names.join(' × ')} (${result.weights.join(', ')})`;
+    const side = (sign: number) => weighted.filter((w) => Math.sign(w.weight) === sign).map((w) => w.label).join(' + ');
+    const name = c.name ?? `${side(1)} vs ${side(-1)}`;
     return {
       name,
       term: names.join(':'),

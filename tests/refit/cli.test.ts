@@ -71,7 +71,7 @@ describe('plumbline refit on the demo study', () => {
 
   it('writes Markdown, a self-contained HTML table and a Word table', async () => {
     const md = await run(['refit', DATA, '--spec', SPEC, '--reported', PAPER, '--format', 'md']);
-    expect(md.out).toContain('| Source | SS | df | MS | F | p | ηp² |');
+    expect(md.out).toContain('| Source | *SS* | *df* | *MS* | *F* | *p* | *η*p² |');
     expect(md.out).toContain('## What reproduces the reported numbers');
 
     const htmlFile = join(tmp, 'table.html');
