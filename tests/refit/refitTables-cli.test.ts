@@ -1,3 +1,7 @@
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import mammoth from 'mammoth';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/program.js';
 import { refitOutputSchema, type RefitOutput } from '../../src/refit/output.js';
@@ -181,3 +185,147 @@ for (const c of ref.cases) {
     }
   });
 }
+
+const ancova = ref.cases.find((c) => c.name === 'ancova_3x2')!;
+const balanced = ref.cases.find((c) => c.name === 'oneway_balanced')!;
+const ANCOVA = [fixturePath(`refit/${ancova.file}`), ...ancova.argv];
+const tmp = mkdtempSync(join(tmpdir(), 'plumbline-refit-tables-'));
+/** A number as the reports print it (two decimals), from the reference value. */
+const two = (x: number) => x.toFixed(2);
+/** A p as the reports print it (APA), from the reference value. */
+const apaP = (p: number) => (p < 0.001 ? '< \\.001' : p.toFixed(3).replace(/^0\./, '\\.'));
+
+describe('refit reports: the tables beside the ANOVA table in every format', () => {
+  const args = [...ANCOVA, '--means', 'group', '--adjust', 'holm', '--contrast', 'group=-0.5,1,-0.5', '--levene', 'median'];
+  const groupMeans = ancova.means.group!;
+  const holm = ancova.pairwise.group!.holm!;
+  const contrast = ancova.contrasts[0]!;
+
+  it('text: R², descriptives, adjusted means with CI, Holm comparisons, the contrast and Levene (median-centred)', async () => {
+    const { code, out } = await run(['refit', ...args]);
+    expect(code).toBe(0);
+    expect(out).toContain(`R² = ${ancova.fit.rSquared.toFixed(3).replace(/^0/, '')}, adjusted R² = ${ancova.fit.adjustedRSquared.toFixed(3).replace(/^0/, '')}`);
+    expect(out).toContain('Unadjusted descriptives of wellbeing by group × site');
+    const cell = ancova.descriptives[0]!;
+    expect(out).toMatch(new RegExp(`control\\s+north\\s+${cell.n}\\s+${two(cell.mean)}\\s+${two(cell.sd)}`));
+    expect(out).toContain('Estimated marginal means of wellbeing by group');
+    for (const m of groupMeans) expect(out).toMatch(new RegExp(`${m.label}\\s+${two(m.estimate)}\\s+${two(m.se)}\\s+\\[${two(m.lower)}, ${two(m.upper)}\\]`));
+    expect(out).toContain(`Covariates held at baseline = ${two(ancova.covariatesAt[0]!.value)} (its mean over the ${ancova.n} analysed rows)`);
+    expect(out).toContain('Pairwise comparisons of wellbeing by group, Holm adjustment');
+    expect(out).toContain('p and intervals adjusted: Holm (step-down, 3 comparisons; intervals Bonferroni)');
+    expect(out).toMatch(new RegExp(`control - training\\s+${two(holm[0]!.estimate)}\\s+${two(holm[0]!.se)}\\s+46\\s+${two(holm[0]!.t)}\\s+${apaP(holm[0]!.p)}\\s+\\[${two(holm[0]!.lower)}, ${two(holm[0]!.upper)}\\]`));
+    expect(out).toMatch(new RegExp(`training vs control \\+ waitlist\\s+control -0\\.5; training 1; waitlist -0\\.5\\s+${two(contrast.estimate)}\\s+${two(contrast.se)}\\s+46`));
+    const lev = ancova.levene.median;
+    expect(out).toContain(`Levene's test of equal variances across the 6 cells, centred on each cell's median (Brown-Forsythe): F(5, ${lev.df2}) = ${two(lev.F)}, p = ${lev.p.toFixed(3).replace(/^0/, '')}`);
+  });
+
+  it('Markdown: italic symbols in the headers and a note naming N, exclusions, type, coding and the covariate', async () => {
+    const { out } = await run(['refit', ...args, '--format', 'md']);
+    expect(out).toContain('| group | *M* | *SE* | 95% CI |');
+    expect(out).toContain('| Comparison | Difference | *SE* | *df* | *t* | *p* | 95% CI |');
+    expect(out).toContain(`| control | ${two(groupMeans[0]!.estimate)} | ${two(groupMeans[0]!.se)} | [${two(groupMeans[0]!.lower)}, ${two(groupMeans[0]!.upper)}] |`);
+    expect(out).toMatch(/\*Note\.\* Means adjusted by the model \(least-squares means\)\. Covariates held at baseline = [\d.]+ \(its mean over the 53 analysed rows\); levels of factors not in the table weighted equally\. df = 46\. N = 53; 3 of 56 rows excluded for missing values \(codes wellbeing = -9; baseline = 999\)\. Type III sums of squares, sum-to-zero \(deviation\) coding\./);
+    expect(out).toContain("Levene's test of equal variances across the 6 cells, centred on each cell's median (Brown-Forsythe): *F*(5, 47)");
+  });
+
+  it('HTML and DOCX: numbered tables with italic symbols and notes', async () => {
+    const htmlFile = join(tmp, 'tables.html');
+    expect((await run(['refit', ...args, '--format', 'html', '--output', htmlFile])).code).toBe(0);
+    const html = readFileSync(htmlFile, 'utf8');
+    expect(html).toContain('<p class="caption">Estimated marginal means of wellbeing by group</p>');
+    expect(html).toContain('<th class="src">group</th><th><i>M</i></th><th><i>SE</i></th><th>95% CI</th>');
+    expect(html).toContain(`<td class="src">training</td><td>${two(groupMeans[1]!.estimate)}</td>`);
+    expect(html).toMatch(/<b>Table 5<\/b>[\s\S]*Planned contrasts/);
+    expect(html).toContain('<i>R</i>² = ');
+    expect(html).not.toMatch(/<(link|script|img)\b|src=|href=/);
+
+    const docxFile = join(tmp, 'tables.docx');
+    expect((await run(['refit', ...args, '--format', 'docx', '--output', docxFile])).code).toBe(0);
+    const { value } = await mammoth.convertToHtml({ path: docxFile });
+    expect(value).toContain('<p><em>Estimated marginal means of wellbeing by group</em></p>');
+    expect(value).toContain('<th><p><em>M</em></p></th><th><p><em>SE</em></p></th><th><p>95% CI</p></th>');
+    expect(value).toContain(`[${two(groupMeans[0]!.lower)}, ${two(groupMeans[0]!.upper)}]`);
+    expect(value).toContain('Pairwise comparisons of wellbeing by group, Holm adjustment');
+    expect(value).toContain('Covariates held at baseline = ');
+    expect(value).toContain('<em>F</em>(5, 47)');
+  });
+
+  it('names Tukey-Kramer for unequal cells and Tukey for a balanced design', async () => {
+    const unequal = await run(['refit', ...ANCOVA, '--means', 'group', '--pairwise']);
+    expect(unequal.out).toContain('Pairwise comparisons of wellbeing by group, Tukey-Kramer adjustment');
+    const equal = await run(['refit', fixturePath(`refit/${balanced.file}`), ...balanced.argv, '--means', 'cond', '--pairwise']);
+    expect(equal.out).toContain('Pairwise comparisons of score by cond, Tukey adjustment');
+    expect(equal.out).toContain('No covariates');
+  });
+});
+
+describe('refit: the same analysis from the description file', () => {
+  it('means, adjust, contrasts (by level name) and levene in --spec give the numbers of the command line', async () => {
+    const spec = join(tmp, 'analysis.json');
+    writeFileSync(
+      spec,
+      JSON.stringify({
+        model: 'wellbeing ~ group * site + baseline',
+        missing: { wellbeing: '-9', baseline: '999' },
+        means: ['group:site'],
+        adjust: 'scheffe',
+        contrasts: [{ term: 'group', weights: { control: -0.5, training: 1, waitlist: -0.5 }, name: 'training against the rest' }],
+        levene: 'mean',
+      }),
+    );
+    const { code, out } = await run(['refit', fixturePath(`refit/${ancova.file}`), '--spec', spec, '--format', 'json']);
+    expect(code).toBe(0);
+    const o = refitOutputSchema.parse(JSON.parse(out));
+    const failures: string[] = [];
+    const cells = o.marginalMeans![0]!;
+    expect(cells.term).toBe('group:site');
+    ancova.means['group:site']!.forEach((r, i) => check(failures, SM, `${r.label} mean`, cells.means[i]!.mean, r.estimate));
+    ancova.pairwise['group:site']!.scheffe!.forEach((r, i) => check(failures, SP, `${r.first} - ${r.second} Scheffé p`, cells.pairwise!.comparisons[i]!.p, r.p));
+    expect(o.contrasts![0]!.name).toBe('training against the rest');
+    check(failures, SM, 'contrast estimate', o.contrasts![0]!.estimate, contrast0().estimate);
+    check(failures, SP, 'Levene F (mean)', o.levene!.F, ancova.levene.mean.F);
+    expect(failures).toEqual([]);
+  });
+
+  it('rejects an unknown adjustment in the file, naming the field', async () => {
+    const spec = join(tmp, 'bad-adjust.json');
+    writeFileSync(spec, JSON.stringify({ model: 'wellbeing ~ group * site + baseline', means: ['group'], adjust: 'tukee' }));
+    const { code, err } = await run(['refit', fixturePath(`refit/${ancova.file}`), '--spec', spec]);
+    expect(code).toBe(2);
+    expect(err).toMatch(/field "adjust"/);
+    expect(err).toContain('tukey');
+  });
+});
+
+function contrast0(): Lin {
+  return ancova.contrasts[0]!;
+}
+
+describe('refit: bad requests for means, comparisons and contrasts (exit 2, naming what is wrong)', () => {
+  const cases: Array<[string, string[], RegExp]> = [
+    ['a --means term not in the model', ['--means', 'grp'], /Marginal means "grp": 'grp' is not in the model .* \(its factors and covariates: group, site, baseline\)/],
+    ['a --means term that is a covariate', ['--means', 'baseline'], /'baseline' is a covariate, not a factor/],
+    ['a factor named twice', ['--means', 'group:group'], /"group:group" names a factor twice/],
+    ['contrast weights of the wrong length', ['--contrast', 'group=1,-1'], /The contrast on group has 2 weights, but there are 3 means, one weight for each in this order: group=control; group=training; group=waitlist/],
+    ['contrast weights that do not sum to zero', ['--contrast', 'group=1,1,1'], /The contrast weights on group must sum to zero \(they sum to 3\)/],
+    ['a contrast weight that is not a number', ['--contrast', 'group=1,x,-1'], /--contrast "group=1,x,-1": weight 2 \("x"\) is not a number/],
+    ['a contrast without weights', ['--contrast', 'group'], /--contrast "group": write it as "<factor>=<weights>"/],
+    ['a contrast on a term not in the model', ['--contrast', 'arm=1,-1'], /Contrast "arm": 'arm' is not in the model/],
+    ['an unknown adjustment', ['--means', 'group', '--adjust', 'tukee'], /'--adjust <method>' argument 'tukee' is invalid\. Allowed choices are tukey, bonferroni, holm, sidak, scheffe, none/],
+    ['comparisons without means', ['--pairwise'], /Pairwise comparisons compare marginal means: name the factor whose means to compare \(--means <factor>/],
+    ['an unknown Levene centre', ['--levene', 'trimmed'], /'--levene <center>' argument 'trimmed' is invalid/],
+  ];
+  for (const [what, extra, message] of cases) {
+    it(what, async () => {
+      const { code, err } = await run(['refit', ...ANCOVA, ...extra]);
+      expect(err).toMatch(message);
+      expect(code).toBe(2);
+    });
+  }
+
+  it("Levene's test on a model without factors says why it cannot run", async () => {
+    const { code, err } = await run(['refit', fixturePath(`refit/${ancova.file}`), '--model', 'wellbeing ~ baseline', '--missing', 'wellbeing=-9', '--missing', 'baseline=999', '--levene', 'median']);
+    expect(err).toContain("Levene's test compares the cells of the model's factors, and this model has none");
+    expect(code).toBe(2);
+  });
+});
