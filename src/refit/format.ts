@@ -180,6 +180,16 @@ export function formatInterval(lower: number | null, upper: number | null): stri
 /** Header cells that are statistic symbols, printed in italics where the format allows. */
 export const ITALIC_SYMBOLS = new Set(['SS', 'df', 'MS', 'F', 'p', 'M', 'SD', 'SE', 'n', 't', 'N']);
 
+/** More cells than this and the reports leave the descriptives table to the JSON output (and say so). */
+export const MAX_DESCRIPTIVE_CELLS = 60;
+
+/** What the reports say instead of a descriptives table too long to read. */
+export function descriptivesOmitted(o: RefitOutput): string | null {
+  return o.descriptives.length > MAX_DESCRIPTIVE_CELLS
+    ? `Cell descriptives (n, M, SD) of the ${o.descriptives.length} cells are in the JSON output (--format json).`
+    : null;
+}
+
 /** One of the tables printed beside the ANOVA table. */
 export interface ExtraTable {
   title: string;
@@ -229,7 +239,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   const where = o.covariatesAt.length > 0 ? `Covariates held at ${covariatesAtText(o)}` : 'No covariates';
   const analysis = `N = ${o.n}; ${exclusionsText(o)}. ${method}. Model: ${o.model}.`;
   const factorNames = o.factors.map((f) => f.name);
-  if (o.descriptives.length > 0) {
+  if (o.descriptives.length > 0 && o.descriptives.length <= MAX_DESCRIPTIVE_CELLS) {
     tables.push({
       title: `Unadjusted descriptives of ${o.outcome}${factorNames.length > 0 ? ` by ${factorNames.map(termLabel).join(' × ')}` : ''}`,
       head: [...(factorNames.length > 0 ? factorNames : ['Rows']), 'n', 'M', 'SD'],
@@ -251,11 +261,11 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
     if (m.pairwise) {
       tables.push({
-        title: `Pairwise comparisons of ${o.outcome} by ${termLabel(m.term)}, ${m.pairwise.method.replace(/ \(.*$/, '')} adjustment`,
+        title: `Pairwise comparisons of ${o.outcome} by ${termLabel(m.term)}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
         head: ['Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
         rows: m.pairwise.comparisons.map((c) => [`${c.first} - ${c.second}`, formatNumber(c.estimate), formatNumber(c.se), formatDf(c.df), formatF(c.t), formatP(c.p), formatInterval(c.lower, c.upper)]),
         numbersFrom: 1,
-        note: `Note. p and intervals adjusted: ${m.pairwise.method}. Differences of the estimated marginal means (first minus second); ${where.charAt(0).toLowerCase()}${where.slice(1)}.`,
+        note: `Note. ${m.pairwise.adjust === 'none' ? 'p and intervals not adjusted for multiple comparisons' : `p and intervals adjusted: ${m.pairwise.method}`}. Differences of the estimated marginal means (first minus second); ${where.charAt(0).toLowerCase()}${where.slice(1)}.`,
       analysis,
       });
     }
@@ -285,6 +295,8 @@ export function formatRefitText(o: RefitOutput, options: { color: boolean }): st
   const table = pad([TABLE_HEAD, ...o.terms.map(tableCells), residualCells(o)]);
   lines.push(`  ${chalk.bold(table[0]!)}`, ...table.slice(1).map((l) => `  ${l}`));
   lines.push(`  ${fitLine(o)}`);
+  const omitted = descriptivesOmitted(o);
+  if (omitted) lines.push('', omitted);
   for (const t of extraTables(o)) {
     lines.push('', chalk.bold(t.title));
     const padded = pad([t.head, ...t.rows], t.numbersFrom);
@@ -349,6 +361,8 @@ export function formatRefitMarkdown(o: RefitOutput): string {
   lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`, '');
   lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map(tableCells), residualCells(o)]));
   lines.push('', `${tableNote(o)} ${fitLine(o)}.`);
+  const omitted = descriptivesOmitted(o);
+  if (omitted) lines.push('', omitted);
   for (const t of extraTables(o)) {
     lines.push('', `## ${t.title}`, '', ...mdTable(t.head.map(mdSymbol), t.rows, t.numbersFrom), '', `*Note.* ${mdEscape(`${t.note.replace(/^Note\.\s*/, '')} ${t.analysis}`)}`);
   }

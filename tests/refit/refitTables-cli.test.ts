@@ -259,6 +259,25 @@ describe('refit reports: the tables beside the ANOVA table in every format', () 
   });
 });
 
+describe('refit reports: long and unadjusted', () => {
+  it('leaves a descriptives table of more than 60 cells to the JSON output, and says so', async () => {
+    const data = join(tmp, 'many-cells.csv');
+    const rows = Array.from({ length: 186 }, (_, i) => `${(i * 37) % 23},p${i % 62}`);
+    writeFileSync(data, ['y,person', ...rows].join('\n'));
+    const text = await run(['refit', data, '--model', 'y ~ person']);
+    expect(text.out).toContain('Cell descriptives (n, M, SD) of the 62 cells are in the JSON output (--format json).');
+    expect(text.out).not.toContain('Unadjusted descriptives');
+    const json = refitOutputSchema.parse(JSON.parse((await run(['refit', data, '--model', 'y ~ person', '--format', 'json'])).out));
+    expect(json.descriptives.length).toBe(62);
+  });
+
+  it('--adjust none prints unadjusted comparisons and says so', async () => {
+    const { out } = await run(['refit', ...ANCOVA, '--means', 'site', '--adjust', 'none']);
+    expect(out).toContain('Pairwise comparisons of wellbeing by site, unadjusted');
+    expect(out).toContain('Note. p and intervals not adjusted for multiple comparisons.');
+  });
+});
+
 describe('refit: the same analysis from the description file', () => {
   it('means, adjust, contrasts (by level name) and levene in --spec give the numbers of the command line', async () => {
     const spec = join(tmp, 'analysis.json');
