@@ -23,6 +23,7 @@ export function registerRefitCommand(program: Command, io: CliIo, setExitCode: (
     .option('--pairwise', 'pairwise comparisons of the --means (adjusted as --adjust says, Tukey by default)')
     .addOption(new Option('--adjust <method>', 'adjustment of the pairwise comparisons (implies --pairwise; default tukey, Tukey-Kramer when cells are unequal)').choices(['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none']))
     .option('--contrast <weights>', 'a planned contrast of marginal means, weights in level order: "group=-0.5,-0.5,1" (repeatable)', collect, [])
+    .option('--at <value>', 'hold a covariate at this value for --means and --contrast instead of its mean: "baseline=30" (repeatable)', collect, [])
     .addOption(new Option('--levene <center>', "Levene's test of equal variances across the cells, centred on each cell's median (Brown-Forsythe) or mean").choices(['median', 'mean']))
     .option('--max-columns <n>', 'most design columns fitted (default 1000): stops a factor with thousands of levels, usually an identifier, from running for hours')
     .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'md', 'html', 'docx']).default('text'))

@@ -39,6 +39,7 @@ export interface RefitOptions {
   pairwise?: boolean;
   adjust?: string;
   contrast?: string[];
+  at?: string[];
   levene?: 'median' | 'mean';
   format: Format;
   output?: string;
@@ -82,7 +83,7 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 
 /** The analysis description: the --spec file, overridden by the command line. */
 export function buildSpec(
-  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'levene'>,
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'levene'>,
 ): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   if (options.model !== undefined) {
@@ -129,6 +130,16 @@ export function buildSpec(
   if (options.adjust !== undefined) raw.adjust = options.adjust;
   if (options.contrast !== undefined && options.contrast.length > 0) raw.contrasts = options.contrast.map(parseContrastOption);
   if (options.levene !== undefined) raw.levene = options.levene;
+  if (options.at !== undefined && options.at.length > 0) {
+    const at = namedCopy(raw.at, 'at', options.spec);
+    for (const entry of options.at) {
+      const eq = entry.indexOf('=');
+      const value = eq > 0 ? parseCellNumber(entry.slice(eq + 1).trim()) : NaN;
+      if (!Number.isFinite(value)) throw new UsageError(`--at "${entry}": write it as "<covariate>=<number>", e.g. "baseline=30"`);
+      at[entry.slice(0, eq).trim()] = value;
+    }
+    raw.at = at;
+  }
   return raw as unknown as AnalysisSpecInput;
 }
 

@@ -210,7 +210,13 @@ function percent(level: number): string {
 /** Where the covariates were held, in words. */
 export function covariatesAtText(o: RefitOutput): string {
   if (o.covariatesAt.length === 0) return '';
-  return `${o.covariatesAt.map((c) => `${c.name} = ${formatNumber(c.value)}`).join(', ')} (${o.covariatesAt.length === 1 ? 'its mean' : 'their means'} over the ${o.n} analysed rows)`;
+  const means = o.covariatesAt.filter((c) => c.from === 'mean');
+  const given = o.covariatesAt.filter((c) => c.from === 'given');
+  const list = (cs: typeof means) => cs.map((c) => `${c.name} = ${formatNumber(c.value)}`).join(', ');
+  const parts: string[] = [];
+  if (means.length > 0) parts.push(`${list(means)} (${means.length === 1 ? 'its mean' : 'their means'} over the ${o.n} analysed rows)`);
+  if (given.length > 0) parts.push(`${list(given)} (${given.length === 1 ? 'the value' : 'the values'} given)`);
+  return parts.join('; ');
 }
 
 function exclusionsText(o: RefitOutput): string {

@@ -12,7 +12,8 @@ import { fQuantileUpper, studentizedRangeQuantileUpper, tQuantileUpper } from '.
  * Reference grid: every combination of the levels of the requested factors;
  * the other factors in the model are averaged with equal weights over their
  * levels, and covariates are held at their overall means (products of
- * covariates at the product of the means). A marginal mean is L'b, where L
+ * covariates at the product of the means), or at values the caller gives
+ * (`at`). A marginal mean is L'b, where L
  * is the average design row over the grid points that share the requested
  * levels and b the least-squares coefficients, with standard error
  * sqrt(MSE L'(X'X)^{-1}L) computed as ||R^{-T} L|| from the triangular
@@ -139,10 +140,31 @@ function combinations(sizes: number[], visit: (idx: number[]) => void): void {
   }
 }
 
-function gridMeans(model: FittedModel, slots: number[]): GridMean[] {
+/** Where covariates are held, by name; those not named stay at their means. */
+export type CovariateValues = Readonly<Record<string, number>> | ReadonlyMap<string, number>;
+
+/** The numeric predictors' values of the reference grid: each covariate's mean unless `at` gives it a value. */
+export function covariateValues(model: FittedModel, at: CovariateValues | undefined): number[] {
+  const given = at instanceof Map ? at : new Map(Object.entries((at ?? {}) as Record<string, number>));
+  const covariates = model.numericVars.slice(0, -1).map((v) => v.name);
+  for (const [name, value] of given) {
+    if (!covariates.includes(name)) {
+      throw new RefitError(
+        'INVALID_CONTRAST',
+        `Covariate value "${name}=${value}": '${name}' is not a covariate of the model (covariates: ${covariates.join(', ') || 'none'}).`,
+        { column: name, field: 'at' },
+      );
+    }
+    if (!Number.isFinite(value)) throw new RefitError('INVALID_CONTRAST', `Covariate value for '${name}' must be a finite number.`, { column: name, field: 'at' });
+  }
+  return model.numericMeans.map((mean, slot) => given.get(model.numericVars[slot]!.name) ?? mean);
+}
+
+function gridMeans(model: FittedModel, slots: number[], at?: CovariateValues): GridMean[] {
   const others = model.factorVars.map((_, i) => i).filter((i) => !slots.includes(i));
   const out: GridMean[] = [];
   const p = model.columns.length;
+  const numericValues = covariateValues(model, at);
   // The grid in reading order: the first named factor varies slowest ("lo, 1", "lo, 2", "mid, 1", ...).
   combinations(
     slots.map((s) => model.factorVars[s]!.levels.length).reverse(),
@@ -156,7 +178,7 @@ function gridMeans(model: FittedModel, slots: number[]): GridMean[] {
           const levels = new Array<number>(model.factorVars.length).fill(0);
           slots.forEach((s, i) => (levels[s] = target[i]!));
           others.forEach((s, i) => (levels[s] = rest[i]!));
-          const x = model.designRow(levels, model.numericMeans);
+          const x = model.designRow(levels, numericValues);
           for (let j = 0; j < p; j++) l[j] = l[j]! + x[j]!;
           count++;
         },
@@ -181,12 +203,12 @@ function linear(model: FittedModel, beta: Float64Array, l: Float64Array): { esti
 }
 
 /** Estimated marginal means of one factor or a combination ("a:b" or ["a", "b"]). */
-export function marginalMeans(model: FittedModel, factors: string | readonly string[], options: { level?: number } = {}): MarginalMean[] {
+export function marginalMeans(model: FittedModel, factors: string | readonly string[], options: { level?: number; at?: CovariateValues } = {}): MarginalMean[] {
   const level = options.level ?? 0.95;
   const beta = model.coefficients();
   const df = model.residualDf;
   const tCrit = tQuantileUpper((1 - level) / 2, df);
-  return gridMeans(model, factorSlots(model, factors)).map((g) => {
+  return gridMeans(model, factorSlots(model, factors), options.at).map((g) => {
     const { estimate, se } = linear(model, beta, g.l);
     const emmean = estimate + model.outcomeOrigin;
     const levels: Record<string, string> = Object.create(null) as Record<string, string>;
@@ -212,13 +234,13 @@ export function holmAdjust(p: readonly number[]): number[] {
 export function pairwiseComparisons(
   model: FittedModel,
   factors: string | readonly string[],
-  options: { adjust?: Adjustment; level?: number } = {},
+  options: { adjust?: Adjustment; level?: number; at?: CovariateValues } = {},
 ): PairwiseComparison[] {
   const adjust = options.adjust ?? 'holm';
   const level = options.level ?? 0.95;
   const beta = model.coefficients();
   const df = model.residualDf;
-  const means = gridMeans(model, factorSlots(model, factors));
+  const means = gridMeans(model, factorSlots(model, factors), options.at);
   const k = means.length;
   const rows: Array<Omit<PairwiseComparison, 'p' | 'lower' | 'upper'>> = [];
   for (let i = 0; i < k; i++) {
@@ -267,11 +289,11 @@ export function plannedContrast(
   model: FittedModel,
   factors: string | readonly string[],
   weights: readonly number[] | Record<string, number>,
-  options: { alternative?: Alternative; level?: number } = {},
+  options: { alternative?: Alternative; level?: number; at?: CovariateValues } = {},
 ): ContrastResult {
   const alternative = options.alternative ?? 'two-sided';
   const level = options.level ?? 0.95;
-  const means = gridMeans(model, factorSlots(model, factors));
+  const means = gridMeans(model, factorSlots(model, factors), options.at);
   let w: number[];
   if (Array.isArray(weights)) {
     w = [...(weights as readonly number[])];

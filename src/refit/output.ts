@@ -149,7 +149,9 @@ export const refitOutputSchema = z.object({
   residual: z.object({ ss: num, df: z.number(), ms: num }),
   fit: z.object({ rSquared: num, adjustedRSquared: num }),
   confidenceLevel: z.number().describe('Level of every interval (0.95)'),
-  covariatesAt: z.array(z.object({ name: z.string(), value: z.number() })).describe('Where the covariates are held for marginal means and contrasts: their means over the analysed rows'),
+  covariatesAt: z
+    .array(z.object({ name: z.string(), value: z.number(), from: z.enum(['mean', 'given']).describe('Its mean over the analysed rows, or the value given (--at)') }))
+    .describe('Where the covariates are held for marginal means and contrasts'),
   descriptives: z
     .array(z.object({ levels: z.array(levelSchema), label: z.string(), n: z.number().int(), mean: num, sd: num }))
     .describe('Unadjusted n, mean and SD (n - 1) of the outcome in every cell of the factors'),
@@ -253,7 +255,7 @@ export function adjustmentMethod(adjust: Adjustment, comparisons: number, means:
 
 function meansOutput(model: FittedModel, term: string): z.infer<typeof marginalMeansSchema> {
   const spec = model.spec;
-  const means = marginalMeans(model, term, { level: CONFIDENCE });
+  const means = marginalMeans(model, term, { level: CONFIDENCE, at: spec.at });
   const names = term.split(':').map((n) => n.trim());
   const rows = means.map((m) => {
     const levels = levelsOf(model, term, names.map((n) => m.levels[n]!));
@@ -262,7 +264,7 @@ function meansOutput(model: FittedModel, term: string): z.infer<typeof marginalM
   const out: z.infer<typeof marginalMeansSchema> = { term: names.join(':'), means: rows };
   if (spec.pairwise || spec.adjust !== undefined) {
     const adjust = spec.adjust ?? 'tukey';
-    const pairs = pairwiseComparisons(model, names, { adjust, level: CONFIDENCE });
+    const pairs = pairwiseComparisons(model, names, { adjust, level: CONFIDENCE, at: spec.at });
     const comparisons: NonNullable<z.infer<typeof marginalMeansSchema>['pairwise']>['comparisons'] = [];
     let index = 0;
     for (let i = 0; i < rows.length; i++) {
@@ -299,8 +301,8 @@ function contrastsOutput(model: FittedModel): Array<z.infer<typeof contrastOutpu
       weights = Object.create(null) as Record<string, number>;
       for (const [key, w] of c.weights) weights[key] = w;
     }
-    const result = plannedContrast(model, names, weights, { level: CONFIDENCE });
-    const means = marginalMeans(model, names, { level: CONFIDENCE });
+    const result = plannedContrast(model, names, weights, { level: CONFIDENCE, at: model.spec.at });
+    const means = marginalMeans(model, names, { level: CONFIDENCE, at: model.spec.at });
     const labels = means.map((m) => names.map((n) => { const code = m.levels[n]!; return model.factorVars.find((v) => v.name === n)?.labels.get(code) ?? code; }).join(', '));
     const weighted = labels.map((label, i) => ({ label, weight: result.weights[i]! }));
     const side = (sign: number) => weighted.filter((w) => Math.sign(w.weight) === sign).map((w) => w.label).join(' + ');
@@ -344,7 +346,10 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
       return { rSquared: finite(f.rSquared), adjustedRSquared: finite(f.adjustedRSquared) };
     })(),
     confidenceLevel: CONFIDENCE,
-    covariatesAt: model.numericVars.slice(0, -1).map((v, slot) => ({ name: v.name, value: model.numericMeans[slot]! })),
+    covariatesAt: model.numericVars.slice(0, -1).map((v, slot) => {
+      const given = model.spec.at.get(v.name);
+      return given === undefined ? { name: v.name, value: model.numericMeans[slot]!, from: 'mean' as const } : { name: v.name, value: given, from: 'given' as const };
+    }),
     descriptives: cellDescriptives(model).map((d) => {
       const levels = model.factorVars.map((v, i) => ({ factor: v.name, level: d.levels[i]!, label: v.labels.get(d.levels[i]!) ?? d.levels[i]! }));
       return { levels, label: d.label, n: d.n, mean: finite(d.mean), sd: finite(d.sd) };

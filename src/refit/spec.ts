@@ -113,6 +113,8 @@ export const analysisSpecSchema = z
           .strict(),
       )
       .default([]),
+    /** Values at which covariates are held for marginal means and contrasts (default: their means). */
+    at: namedEntries(z.number()).default(() => new Map()),
     /** Levene's test of equal variances across the cells of the factors, centred on the cells' medians or means. */
     levene: z.enum(['median', 'mean']).optional(),
   })
@@ -234,6 +236,13 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
     }
   };
   spec.means.forEach((term, i) => checkTerm(term, `means.${i}`, 'Marginal means'));
+  for (const name of spec.at.keys()) {
+    if (!variables.has(name)) {
+      throw new RefitError('INVALID_SPEC', `Covariate value "${name}": '${name}' is not in the model ${spec.model} (its factors and covariates: ${[...variables].join(', ')}).`, {
+        field: `at.${name}`,
+      });
+    }
+  }
   spec.contrasts.forEach((c, i) => checkTerm(c.term, `contrasts.${i}.term`, 'Contrast'));
   if ((spec.pairwise || spec.adjust !== undefined) && spec.means.length === 0) {
     throw new RefitError('INVALID_SPEC', 'Pairwise comparisons compare marginal means: name the factor whose means to compare (--means <factor>, or "means" in the description).', {

@@ -37,6 +37,13 @@ interface Case {
   contrasts: Array<Lin & { term: string; weights: number[] }>;
   descriptives: Array<{ label: string; n: number; mean: number; sd: number }>;
   levene: Record<'median' | 'mean', { F: number; p: number; df1: number; df2: number }>;
+  at?: {
+    values: Record<string, number>;
+    argv: string[];
+    means: Record<string, Array<Lin & { label: string }>>;
+    pairwise: Record<string, Pair[]>;
+    contrasts: Array<Lin & { term: string; weights: number[] }>;
+  };
 }
 const ref = loadJson<{ statsmodels: string; scipy: string; cases: Case[] }>('refit/refit_tables.json');
 
@@ -171,6 +178,43 @@ for (const c of ref.cases) {
       });
       expect(failures).toEqual([]);
     });
+
+    const at = c.at;
+    if (at) {
+      it(`--at ${at.argv.join(' ')}: means, comparisons and contrasts with the covariate held there, against ${SM} t_test`, async () => {
+        const o = await refitJson(c, [
+          ...Object.keys(at.means).flatMap((t) => ['--means', t]),
+          '--adjust', 'none',
+          ...c.contrasts.flatMap((x) => ['--contrast', `${x.term}=${x.weights.join(',')}`]),
+          ...at.argv.flatMap((a) => ['--at', a]),
+        ]);
+        const failures: string[] = [];
+        expect(o.covariatesAt).toEqual(Object.entries(at.values).map(([name, value]) => ({ name, value, from: 'given' })));
+        for (const [term, rows] of Object.entries(at.means)) {
+          const ours = o.marginalMeans!.find((m) => m.term === term)!;
+          rows.forEach((r, i) => {
+            const m = ours.means[i]!;
+            check(failures, SM, `${term} ${r.label} mean at ${at.argv}`, m.mean, r.estimate);
+            check(failures, SM, `${term} ${r.label} SE at ${at.argv}`, m.se, r.se);
+            check(failures, SM, `${term} ${r.label} lower at ${at.argv}`, m.lower, r.lower);
+            check(failures, SM, `${term} ${r.label} upper at ${at.argv}`, m.upper, r.upper);
+          });
+          at.pairwise[term]!.forEach((r, i) => {
+            const p = ours.pairwise!.comparisons[i]!;
+            check(failures, SM, `${term} ${r.first} - ${r.second} estimate at ${at.argv}`, p.estimate, r.estimate, TOL, meanScale);
+            check(failures, SM, `${term} ${r.first} - ${r.second} p at ${at.argv}`, p.p, r.p);
+          });
+        }
+        at.contrasts.forEach((r, i) => {
+          check(failures, SM, `contrast ${i + 1} estimate at ${at.argv}`, o.contrasts![i]!.estimate, r.estimate, TOL, meanScale);
+          check(failures, SM, `contrast ${i + 1} SE at ${at.argv}`, o.contrasts![i]!.se, r.se);
+          check(failures, SM, `contrast ${i + 1} p at ${at.argv}`, o.contrasts![i]!.p, r.p);
+        });
+        expect(failures).toEqual([]);
+        const text = await run(['refit', fixturePath(`refit/${c.file}`), ...c.argv, '--means', 'group', ...at.argv.flatMap((a) => ['--at', a])]);
+        expect(text.out).toContain('Covariates held at baseline = 35.00 (the value given)');
+      });
+    }
 
     for (const center of ['median', 'mean'] as const) {
       it(`--levene ${center} against ${SP} stats.levene(center='${center}')`, async () => {
@@ -333,6 +377,9 @@ describe('refit: bad requests for means, comparisons and contrasts (exit 2, nami
     ['an unknown adjustment', ['--means', 'group', '--adjust', 'tukee'], /'--adjust <method>' argument 'tukee' is invalid\. Allowed choices are tukey, bonferroni, holm, sidak, scheffe, none/],
     ['comparisons without means', ['--pairwise'], /Pairwise comparisons compare marginal means: name the factor whose means to compare \(--means <factor>/],
     ['an unknown Levene centre', ['--levene', 'trimmed'], /'--levene <center>' argument 'trimmed' is invalid/],
+    ['--at for a variable not in the model', ['--means', 'group', '--at', 'age=30'], /Covariate value "age": 'age' is not in the model/],
+    ['--at for a factor', ['--means', 'group', '--at', 'site=1'], /Covariate value "site=1": 'site' is not a covariate of the model \(covariates: baseline\)/],
+    ['--at without a number', ['--means', 'group', '--at', 'baseline=high'], /--at "baseline=high": write it as "<covariate>=<number>"/],
   ];
   for (const [what, extra, message] of cases) {
     it(what, async () => {
