@@ -117,7 +117,7 @@ function verdictWord(chalk: ChalkInstance, v: ComparedNumber['verdict']): string
 }
 
 /** Comparison rows as cell arrays: term, printed as, quantity, reported, recomputed, difference, verdict. */
-function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> {
+export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> {
   const out: Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> = [];
   for (const row of o.comparison?.rows ?? []) {
     const reportedAny = row.numbers.some((n) => n.verdict !== 'not reported');
@@ -146,7 +146,7 @@ function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ ce
   return out;
 }
 
-function summaryLine(o: RefitOutput): string {
+export function summaryLine(o: RefitOutput): string {
   const c = o.comparison!;
   const unmatched = c.unmatched.length > 0 ? ` ${c.unmatched.length} reported row(s) name no model term: ${c.unmatched.map((u) => `"${u.label}"`).join(', ')} (use --map).` : '';
   if (c.compared === 0) return `No reported number could be compared.${unmatched}`;
@@ -155,7 +155,7 @@ function summaryLine(o: RefitOutput): string {
     : `${c.differs} of ${c.compared} reported numbers differ from the refit.${unmatched}`;
 }
 
-function explanationLines(o: RefitOutput): string[] {
+export function explanationLines(o: RefitOutput): string[] {
   const list = o.explanations ?? [];
   if (!o.comparison || o.comparison.allMatch) return [];
   if (list.length === 0) return ['None of the usual slips reproduces the reported numbers.'];

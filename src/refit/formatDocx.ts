@@ -11,13 +11,16 @@ import {
   WidthType,
   type IBorderOptions,
 } from 'docx';
-import { extraTables, fitLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
+import { comparisonCells, explanationLines, extraTables, fitLine, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
 import type { RefitOutput } from './output.js';
 
 /**
  * The recomputed ANOVA table as a Word document: a real Word table in the
  * usual journal style (rules above and below the header and at the bottom,
- * no vertical lines), a caption and a note, ready for a response to reviewers.
+ * no vertical lines), a caption and a note, ready for a response to reviewers;
+ * then the tables printed beside it (format.ts, extraTables) and, when a
+ * reported table was given, the comparison with it and the slips that
+ * reproduce it.
  */
 
 const FONT = 'Times New Roman';
@@ -84,6 +87,22 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
     new Paragraph({ children: [run('Note. ', { italics: true }), run(`${t.note.replace(/^Note\.\s*/, '')} ${t.analysis}`)], spacing: { before: 120 } }),
   ]);
   const levene = leveneLine(o);
+  const compared: Array<Paragraph | Table> = [];
+  if (o.comparison) {
+    const c = o.comparison;
+    compared.push(
+      new Paragraph({ children: [run(`Compared with ${c.reportedFile}`, { bold: true })], spacing: { before: 360, after: 120 } }),
+      new Paragraph({ children: [run(`Read from: ${c.sources.join(', ')}.`)], spacing: { after: 120 } }),
+      journalTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells), 3),
+      new Paragraph({ children: [run(summaryLine(o))], spacing: { before: 120 } }),
+    );
+    const explanations = explanationLines(o);
+    if (explanations.length > 0) {
+      compared.push(new Paragraph({ children: [run('What reproduces the reported numbers', { bold: true })], spacing: { before: 240, after: 120 } }));
+      for (const e of explanations) compared.push(new Paragraph({ children: [run(e)], spacing: { after: 60 } }));
+    }
+    if (o.impliedN) compared.push(new Paragraph({ children: [run(o.impliedN.note)], spacing: { before: 120 } }));
+  }
   const kind = o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance';
   const document = new Document({
     creator: 'plumbline refit',
@@ -97,6 +116,7 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
           new Paragraph({ children: [run('Note. ', { italics: true }), run(tableNote(o).replace(/^Note\.\s*/, '')), run(' '), ...symbolRuns(`${fitLine(o)}.`)], spacing: { before: 120 } }),
           ...extra,
           ...(levene ? [new Paragraph({ children: symbolRuns(levene), spacing: { before: 240 } })] : []),
+          ...compared,
         ],
       },
     ],

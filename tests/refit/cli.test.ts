@@ -93,6 +93,20 @@ describe('plumbline refit on the demo study', () => {
   });
 });
 
+describe('plumbline refit --format docx with a reported table', () => {
+  it('carries the comparison, the slip that reproduces the reported numbers and the implied N', async () => {
+    const docxFile = join(tmp, 'compared.docx');
+    const { code } = await run(['refit', DATA, '--spec', SPEC, '--reported', PAPER, '--format', 'docx', '--output', docxFile]);
+    expect(code).toBe(1);
+    const { value } = await mammoth.convertToHtml({ path: docxFile });
+    expect(value).toContain('<strong>Compared with corpus-demo/refit/harbour-walks-manuscript.md</strong>');
+    expect(value).toMatch(/<td><p>route<\/p><\/td><td><p>Route<\/p><\/td><td><p>SS<\/p><\/td><td><p>1144\.25<\/p><\/td><td><p>230\.0230<\/p><\/td><td><p>\+914\.2270<\/p><\/td><td><p>differs<\/p><\/td>/);
+    expect(value).toContain('<strong>What reproduces the reported numbers</strong>');
+    expect(value).toContain('1. Missing-value codes left in the data as numbers (mood=99; loneliness=6-8 not removed): all 27 reported numbers match');
+    expect(value).toContain('The reported error df 143 implies N = 150');
+  });
+});
+
 describe('plumbline refit input errors (exit 2, with file, row and column)', () => {
   const cases: Array<[string, string[], RegExp]> = [
     ['a ragged row', [fixturePath('refit/ragged.csv'), '--model', 'score ~ group + age'], /ragged\.csv, row 4, column 4: 4 fields, but the header has 3 columns/],
