@@ -40,6 +40,7 @@ export interface RefitOptions {
   adjust?: string;
   contrast?: string[];
   at?: string[];
+  within?: string;
   levene?: 'median' | 'mean';
   format: Format;
   output?: string;
@@ -83,7 +84,7 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 
 /** The analysis description: the --spec file, overridden by the command line. */
 export function buildSpec(
-  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'levene'>,
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'levene'>,
 ): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   if (options.model !== undefined) {
@@ -130,6 +131,7 @@ export function buildSpec(
   if (options.adjust !== undefined) raw.adjust = options.adjust;
   if (options.contrast !== undefined && options.contrast.length > 0) raw.contrasts = options.contrast.map(parseContrastOption);
   if (options.levene !== undefined) raw.levene = options.levene;
+  if (options.within !== undefined) raw.within = options.within.trim();
   if (options.at !== undefined && options.at.length > 0) {
     const at = namedCopy(raw.at, 'at', options.spec);
     for (const entry of options.at) {

@@ -256,9 +256,10 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
   }
   for (const m of o.marginalMeans ?? []) {
-    const names = m.term.split(':');
+    const names = m.within === undefined ? m.term.split(':') : [m.within, ...m.term.split(':')];
+    const by = `${termLabel(m.term)}${m.within === undefined ? '' : ` within ${m.within}`}`;
     tables.push({
-      title: `Estimated marginal means of ${o.outcome} by ${termLabel(m.term)}`,
+      title: `Estimated marginal means of ${o.outcome} by ${by}`,
       head: [...names, 'M', 'SE', ci],
       rows: m.means.map((r) => [...r.levels.map((l) => l.label), formatNumber(r.mean), formatNumber(r.se), formatInterval(r.lower, r.upper)]),
       numbersFrom: names.length,
@@ -267,10 +268,19 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
     if (m.pairwise) {
       tables.push({
-        title: `Pairwise comparisons of ${o.outcome} by ${termLabel(m.term)}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
-        head: ['Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
-        rows: m.pairwise.comparisons.map((c) => [`${c.first} - ${c.second}`, formatNumber(c.estimate), formatNumber(c.se), formatDf(c.df), formatF(c.t), formatP(c.p), formatInterval(c.lower, c.upper)]),
-        numbersFrom: 1,
+        title: `Pairwise comparisons of ${o.outcome} by ${by}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
+        head: [...(m.within === undefined ? [] : [m.within]), 'Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
+        rows: m.pairwise.comparisons.map((c) => [
+          ...(m.within === undefined ? [] : [c.within ?? '']),
+          `${c.first} - ${c.second}`,
+          formatNumber(c.estimate),
+          formatNumber(c.se),
+          formatDf(c.df),
+          formatF(c.t),
+          formatP(c.p),
+          formatInterval(c.lower, c.upper),
+        ]),
+        numbersFrom: m.within === undefined ? 1 : 2,
         note: `Note. ${m.pairwise.adjust === 'none' ? 'p and intervals not adjusted for multiple comparisons' : `p and intervals adjusted: ${m.pairwise.method}`}. Differences of the estimated marginal means (first minus second); ${where.charAt(0).toLowerCase()}${where.slice(1)}.`,
       analysis,
       });

@@ -236,11 +236,69 @@ export function pairwiseComparisons(
   factors: string | readonly string[],
   options: { adjust?: Adjustment; level?: number; at?: CovariateValues } = {},
 ): PairwiseComparison[] {
-  const adjust = options.adjust ?? 'holm';
+  return comparePairs(model, gridMeans(model, factorSlots(model, factors), options.at), options.adjust ?? 'holm', options.level ?? 0.95);
+}
+
+export interface SimpleComparisons {
+  /** The factor within whose level the comparisons are made, the level's code and its label. */
+  within: { factor: string; level: string; label: string };
+  /** Marginal means of `factors` at this level of the within factor. */
+  means: MarginalMean[];
+  /** Their pairwise comparisons, adjusted within this family (one per level of the within factor). */
+  comparisons: PairwiseComparison[];
+}
+
+/**
+ * Simple effects: pairwise comparisons of the means of `factors` within
+ * each level of the factor `within` (the cell means of factors x within,
+ * other factors averaged with equal weights). Each level of `within` is a
+ * family of its own: the adjustment counts its comparisons (Bonferroni,
+ * Holm, Šidák) or its means (Tukey, Scheffé) only.
+ */
+export function simpleComparisons(
+  model: FittedModel,
+  factors: string | readonly string[],
+  within: string,
+  options: { adjust?: Adjustment; level?: number; at?: CovariateValues } = {},
+): SimpleComparisons[] {
   const level = options.level ?? 0.95;
+  const slots = factorSlots(model, factors);
+  const [withinSlot] = factorSlots(model, [within]);
+  if (slots.includes(withinSlot!)) {
+    throw new RefitError('INVALID_CONTRAST', `Simple comparisons within '${within}': the means compared must not include '${within}' itself.`, { column: within });
+  }
+  // The within factor first, so it varies slowest: each of its levels is one consecutive block.
+  const grid = gridMeans(model, [withinSlot!, ...slots], options.at);
+  const v = model.factorVars[withinSlot!]!;
+  const size = grid.length / v.levels.length;
+  const beta = model.coefficients();
+  const tCrit = tQuantileUpper((1 - level) / 2, model.residualDf);
+  return v.levels.map((code, index) => {
+    const labelOf = (g: GridMean) =>
+      g.names
+        .slice(1)
+        .map((name, i) => `${name}=${model.factorVars[slots[i]!]!.labels.get(g.codes[i + 1]!) ?? g.codes[i + 1]!}`)
+        .join(', ');
+    const block = grid.slice(index * size, (index + 1) * size).map((g) => ({ ...g, label: labelOf(g) }));
+    const means = block.map((g) => {
+      const { estimate, se } = linear(model, beta, g.l);
+      const emmean = estimate + model.outcomeOrigin;
+      const levels: Record<string, string> = Object.create(null) as Record<string, string>;
+      g.names.forEach((name, i) => (levels[name] = g.codes[i]!));
+      return { levels, label: g.label, emmean, se, df: model.residualDf, lower: emmean - tCrit * se, upper: emmean + tCrit * se };
+    });
+    return {
+      within: { factor: v.name, level: code, label: v.labels.get(code) ?? code },
+      means,
+      comparisons: comparePairs(model, block, options.adjust ?? 'holm', level),
+    };
+  });
+}
+
+/** Every pairwise difference of the given means (first minus second, in their order), adjusted as one family. */
+function comparePairs(model: FittedModel, means: readonly GridMean[], adjust: Adjustment, level: number): PairwiseComparison[] {
   const beta = model.coefficients();
   const df = model.residualDf;
-  const means = gridMeans(model, factorSlots(model, factors), options.at);
   const k = means.length;
   const rows: Array<Omit<PairwiseComparison, 'p' | 'lower' | 'upper'>> = [];
   for (let i = 0; i < k; i++) {

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Comparison } from './compare.js';
 import type { ExplainResult, ImpliedN } from './explain.js';
 import type { AnovaTable, Coding, FittedModel } from './model.js';
-import { marginalMeans, pairwiseComparisons, plannedContrast, type Adjustment } from './marginalMeans.js';
+import { marginalMeans, pairwiseComparisons, plannedContrast, simpleComparisons, type Adjustment, type PairwiseComparison } from './marginalMeans.js';
 import type { ReportedSet } from './reportedTable.js';
 import { ADJUSTMENT_NAMES } from './spec.js';
 import { cellDescriptives, leveneTest, modelFit } from './summaries.js';
@@ -94,6 +94,7 @@ const levelSchema = z.object({
 
 export const marginalMeansSchema = z.object({
   term: z.string().describe('The factor, or factors joined by ":", whose means these are'),
+  within: z.string().optional().describe('Simple comparisons: the factor within each of whose levels the means are compared (the means are then cells, this factor first)'),
   means: z.array(
     z.object({ levels: z.array(levelSchema), label: z.string(), mean: num, se: num, df: z.number(), lower: num, upper: num }),
   ),
@@ -103,6 +104,7 @@ export const marginalMeansSchema = z.object({
       method: z.string().describe('The adjustment in words, as the reports print it'),
       comparisons: z.array(
         z.object({
+          within: z.string().optional().describe('Label of the level of the within factor this comparison belongs to'),
           first: z.string(),
           second: z.string(),
           estimate: num.describe('first - second'),
@@ -253,40 +255,62 @@ export function adjustmentMethod(adjust: Adjustment, comparisons: number, means:
   }
 }
 
+type ComparisonOut = NonNullable<z.infer<typeof marginalMeansSchema>['pairwise']>['comparisons'][number];
+
+function comparisonOut(c: PairwiseComparison, first: string, second: string, within?: string): ComparisonOut {
+  return {
+    ...(within === undefined ? {} : { within }),
+    first,
+    second,
+    estimate: finite(c.estimate),
+    se: finite(c.se),
+    df: c.df,
+    t: finite(c.t),
+    p: finite(c.p),
+    pUnadjusted: finite(c.pUnadjusted),
+    lower: finite(c.lower),
+    upper: finite(c.upper),
+  };
+}
+
+/** True when the comparisons' standard errors differ (unequal cells: Tukey-Kramer rather than Tukey). */
+function unequalErrors(pairs: readonly PairwiseComparison[]): boolean {
+  const ses = pairs.map((c) => c.se);
+  return ses.some((se) => Math.abs(se - ses[0]!) > 1e-9 * ses[0]!);
+}
+
 function meansOutput(model: FittedModel, term: string): z.infer<typeof marginalMeansSchema> {
   const spec = model.spec;
-  const means = marginalMeans(model, term, { level: CONFIDENCE, at: spec.at });
   const names = term.split(':').map((n) => n.trim());
-  const rows = means.map((m) => {
-    const levels = levelsOf(model, term, names.map((n) => m.levels[n]!));
+  const adjust = spec.adjust ?? 'tukey';
+  const meanRow = (codes: string[], allNames: string[], m: { emmean: number; se: number; df: number; lower: number; upper: number }) => {
+    const levels = levelsOf(model, allNames.join(':'), codes);
     return { levels, label: levels.map((l) => l.label).join(', '), mean: finite(m.emmean), se: finite(m.se), df: m.df, lower: finite(m.lower), upper: finite(m.upper) };
-  });
+  };
+  if (spec.within !== undefined) {
+    const within = spec.within;
+    const families = simpleComparisons(model, names, within, { adjust, level: CONFIDENCE, at: spec.at });
+    const rows = families.flatMap((f) => f.means.map((m) => meanRow([f.within.level, ...names.map((n) => m.levels[n]!)], [within, ...names], m)));
+    const comparisons: ComparisonOut[] = [];
+    for (const f of families) {
+      const labels = f.means.map((m) => levelsOf(model, names.join(':'), names.map((n) => m.levels[n]!)).map((l) => l.label).join(', '));
+      let index = 0;
+      for (let i = 0; i < labels.length; i++) for (let j = i + 1; j < labels.length; j++) comparisons.push(comparisonOut(f.comparisons[index++]!, labels[i]!, labels[j]!, f.within.label));
+    }
+    const all = families.flatMap((f) => f.comparisons);
+    const k = families[0]?.means.length ?? 0;
+    const method = `${adjustmentMethod(adjust, families[0]?.comparisons.length ?? 0, k, unequalErrors(all))}, within each level of ${within}`;
+    return { term: names.join(':'), within, means: rows, pairwise: { adjust, method, comparisons } };
+  }
+  const means = marginalMeans(model, term, { level: CONFIDENCE, at: spec.at });
+  const rows = means.map((m) => meanRow(names.map((n) => m.levels[n]!), names, m));
   const out: z.infer<typeof marginalMeansSchema> = { term: names.join(':'), means: rows };
   if (spec.pairwise || spec.adjust !== undefined) {
-    const adjust = spec.adjust ?? 'tukey';
     const pairs = pairwiseComparisons(model, names, { adjust, level: CONFIDENCE, at: spec.at });
-    const comparisons: NonNullable<z.infer<typeof marginalMeansSchema>['pairwise']>['comparisons'] = [];
+    const comparisons: ComparisonOut[] = [];
     let index = 0;
-    for (let i = 0; i < rows.length; i++) {
-      for (let j = i + 1; j < rows.length; j++) {
-        const c = pairs[index++]!;
-        comparisons.push({
-          first: rows[i]!.label,
-          second: rows[j]!.label,
-          estimate: finite(c.estimate),
-          se: finite(c.se),
-          df: c.df,
-          t: finite(c.t),
-          p: finite(c.p),
-          pUnadjusted: finite(c.pUnadjusted),
-          lower: finite(c.lower),
-          upper: finite(c.upper),
-        });
-      }
-    }
-    const ses = pairs.map((c) => c.se);
-    const unequal = ses.some((se) => Math.abs(se - ses[0]!) > 1e-9 * ses[0]!);
-    out.pairwise = { adjust, method: adjustmentMethod(adjust, pairs.length, rows.length, unequal), comparisons };
+    for (let i = 0; i < rows.length; i++) for (let j = i + 1; j < rows.length; j++) comparisons.push(comparisonOut(pairs[index++]!, rows[i]!.label, rows[j]!.label));
+    out.pairwise = { adjust, method: adjustmentMethod(adjust, pairs.length, rows.length, unequalErrors(pairs)), comparisons };
   }
   return out;
 }

@@ -113,6 +113,8 @@ export const analysisSpecSchema = z
           .strict(),
       )
       .default([]),
+    /** Simple comparisons: the means of each `means` term compared within each level of this factor. */
+    within: z.string().min(1).optional(),
     /** Values at which covariates are held for marginal means and contrasts (default: their means). */
     at: namedEntries(z.number()).default(() => new Map()),
     /** Levene's test of equal variances across the cells of the factors, centred on the cells' medians or means. */
@@ -244,7 +246,22 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
     }
   }
   spec.contrasts.forEach((c, i) => checkTerm(c.term, `contrasts.${i}.term`, 'Contrast'));
-  if ((spec.pairwise || spec.adjust !== undefined) && spec.means.length === 0) {
+  if (spec.within !== undefined) {
+    checkTerm(spec.within, 'within', 'Comparisons within');
+    if (spec.within.includes(':')) {
+      throw new RefitError('INVALID_SPEC', `Comparisons within "${spec.within}": name one factor, whose levels each get their own comparisons.`, { field: 'within' });
+    }
+    spec.means.forEach((term, i) => {
+      if (term.split(':').map((n) => n.trim()).includes(spec.within!)) {
+        throw new RefitError(
+          'INVALID_SPEC',
+          `Marginal means "${term}" are to be compared within each level of '${spec.within}', so they cannot include '${spec.within}' itself; name the other factor(s), e.g. "${term.split(':').map((n) => n.trim()).filter((n) => n !== spec.within).join(':') || 'group'}".`,
+          { field: `means.${i}` },
+        );
+      }
+    });
+  }
+  if ((spec.pairwise || spec.adjust !== undefined || spec.within !== undefined) && spec.means.length === 0) {
     throw new RefitError('INVALID_SPEC', 'Pairwise comparisons compare marginal means: name the factor whose means to compare (--means <factor>, or "means" in the description).', {
       field: 'pairwise',
     });

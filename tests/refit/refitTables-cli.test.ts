@@ -37,6 +37,11 @@ interface Case {
   contrasts: Array<Lin & { term: string; weights: number[] }>;
   descriptives: Array<{ label: string; n: number; mean: number; sd: number }>;
   levene: Record<'median' | 'mean', { F: number; p: number; df1: number; df2: number }>;
+  within?: {
+    by: string;
+    means: string;
+    families: Array<{ level: string; means: Array<Lin & { label: string }>; pairwise: Record<string, Pair[]> }>;
+  };
   at?: {
     values: Record<string, number>;
     argv: string[];
@@ -179,6 +184,38 @@ for (const c of ref.cases) {
       expect(failures).toEqual([]);
     });
 
+    const within = c.within;
+    if (within) {
+      for (const adjust of ['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none']) {
+        it(`--means ${within.means} --within ${within.by} --adjust ${adjust}: simple comparisons, one family per level, against ${ADJUST_SOURCE[adjust]}`, async () => {
+          const o = await refitJson(c, ['--means', within.means, '--within', within.by, '--adjust', adjust]);
+          const failures: string[] = [];
+          const ours = o.marginalMeans![0]!;
+          expect(ours.within).toBe(within.by);
+          const theirMeans = within.families.flatMap((f) => f.means.map((m) => ({ ...m, label: `${f.level}, ${m.label}` })));
+          expect(ours.means.map((m) => m.label)).toEqual(theirMeans.map((m) => m.label));
+          theirMeans.forEach((r, i) => {
+            check(failures, SM, `${r.label} mean`, ours.means[i]!.mean, r.estimate);
+            check(failures, SM, `${r.label} SE`, ours.means[i]!.se, r.se);
+          });
+          const theirs = within.families.flatMap((f) => f.pairwise[adjust]!.map((p) => ({ ...p, within: f.level })));
+          expect(ours.pairwise!.comparisons.map((p) => `${p.within}: ${p.first} - ${p.second}`)).toEqual(theirs.map((p) => `${p.within}: ${p.first} - ${p.second}`));
+          theirs.forEach((r, i) => {
+            const p = ours.pairwise!.comparisons[i]!;
+            const label = `${r.within}: ${r.first} - ${r.second} (${adjust})`;
+            const halfWidth = r.upper - r.estimate;
+            check(failures, SM, `${label} estimate`, p.estimate, r.estimate, TOL, meanScale);
+            check(failures, SM, `${label} SE`, p.se, r.se);
+            check(failures, ADJUST_SOURCE[adjust]!, `${label} p`, p.p, r.p);
+            check(failures, ADJUST_SOURCE[adjust]!, `${label} lower`, p.lower, r.lower, TOL, meanScale + halfWidth);
+            check(failures, ADJUST_SOURCE[adjust]!, `${label} upper`, p.upper, r.upper, TOL, meanScale + halfWidth);
+          });
+          expect(ours.pairwise!.method).toMatch(/, within each level of site$/);
+          expect(failures).toEqual([]);
+        });
+      }
+    }
+
     const at = c.at;
     if (at) {
       it(`--at ${at.argv.join(' ')}: means, comparisons and contrasts with the covariate held there, against ${SM} t_test`, async () => {
@@ -315,6 +352,16 @@ describe('refit reports: long and unadjusted', () => {
     expect(json.descriptives.length).toBe(62);
   });
 
+  it('--within prints the cell means and the comparisons grouped by the level they are made within', async () => {
+    const family = ancova.within!.families[0]!;
+    const first = family.pairwise.tukey![0]!;
+    const { out } = await run(['refit', ...ANCOVA, '--means', 'group', '--within', 'site']);
+    expect(out).toContain('Estimated marginal means of wellbeing by group within site');
+    expect(out).toMatch(new RegExp(`site\\s+Comparison\\s+Difference`));
+    expect(out).toMatch(new RegExp(`north\\s+control - training\\s+${two(first.estimate)}\\s+${two(first.se)}\\s+46\\s+${two(first.t)}\\s+${apaP(first.p)}`));
+    expect(out).toContain('Tukey-Kramer (studentized range, 3 means), within each level of site');
+  });
+
   it('--adjust none prints unadjusted comparisons and says so', async () => {
     const { out } = await run(['refit', ...ANCOVA, '--means', 'site', '--adjust', 'none']);
     expect(out).toContain('Pairwise comparisons of wellbeing by site, unadjusted');
@@ -377,6 +424,10 @@ describe('refit: bad requests for means, comparisons and contrasts (exit 2, nami
     ['an unknown adjustment', ['--means', 'group', '--adjust', 'tukee'], /'--adjust <method>' argument 'tukee' is invalid\. Allowed choices are tukey, bonferroni, holm, sidak, scheffe, none/],
     ['comparisons without means', ['--pairwise'], /Pairwise comparisons compare marginal means: name the factor whose means to compare \(--means <factor>/],
     ['an unknown Levene centre', ['--levene', 'trimmed'], /'--levene <center>' argument 'trimmed' is invalid/],
+    ['--within a factor that the means include', ['--means', 'group:site', '--within', 'site'], /Marginal means "group:site" are to be compared within each level of 'site', so they cannot include 'site' itself; name the other factor\(s\), e\.g\. "group"/],
+    ['--within a variable not in the model', ['--means', 'group', '--within', 'clinic'], /Comparisons within "clinic": 'clinic' is not in the model/],
+    ['--within without --means', ['--within', 'site'], /Pairwise comparisons compare marginal means: name the factor/],
+    ['--within a covariate', ['--means', 'group', '--within', 'baseline'], /'baseline' is a covariate, not a factor/],
     ['--at for a variable not in the model', ['--means', 'group', '--at', 'age=30'], /Covariate value "age": 'age' is not in the model/],
     ['--at for a factor', ['--means', 'group', '--at', 'site=1'], /Covariate value "site=1": 'site' is not a covariate of the model \(covariates: baseline\)/],
     ['--at without a number', ['--means', 'group', '--at', 'baseline=high'], /--at "baseline=high": write it as "<covariate>=<number>"/],
