@@ -19,6 +19,7 @@ export function registerRefitCommand(program: Command, io: CliIo, setExitCode: (
     .option('--reported <file>', 'what the manuscript reports: a table file (CSV, Markdown) or the manuscript (PDF, DOCX, HTML, XML, TXT, MD)')
     .option('--map <pair>', 'name a reported row for a model term: "Teaching method=method" (repeatable)', collect, [])
     .option('--spec <file>', 'analysis description (JSON); command-line options override it')
+    .option('--coefficients', 'also print the regression coefficients of the design columns, with SE, t, p and CI')
     .option('--means <term>', 'estimated marginal (covariate-adjusted) means of a factor or a combination: "group", "group:time" (repeatable)', collect, [])
     .option('--pairwise', 'pairwise comparisons of the --means (adjusted as --adjust says, Tukey by default)')
     .addOption(new Option('--adjust <method>', 'adjustment of the pairwise comparisons (implies --pairwise; default tukey, Tukey-Kramer when cells are unequal)').choices(['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none']))

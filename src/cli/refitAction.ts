@@ -41,6 +41,7 @@ export interface RefitOptions {
   contrast?: string[];
   at?: string[];
   within?: string;
+  coefficients?: boolean;
   levene?: 'median' | 'mean';
   format: Format;
   output?: string;
@@ -84,7 +85,7 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 
 /** The analysis description: the --spec file, overridden by the command line. */
 export function buildSpec(
-  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'levene'>,
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'levene'>,
 ): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   if (options.model !== undefined) {
@@ -132,6 +133,7 @@ export function buildSpec(
   if (options.contrast !== undefined && options.contrast.length > 0) raw.contrasts = options.contrast.map(parseContrastOption);
   if (options.levene !== undefined) raw.levene = options.levene;
   if (options.within !== undefined) raw.within = options.within.trim();
+  if (options.coefficients) raw.coefficients = true;
   if (options.at !== undefined && options.at.length > 0) {
     const at = namedCopy(raw.at, 'at', options.spec);
     for (const entry of options.at) {

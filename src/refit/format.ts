@@ -178,7 +178,7 @@ export function formatInterval(lower: number | null, upper: number | null): stri
 }
 
 /** Header cells that are statistic symbols, printed in italics where the format allows. */
-export const ITALIC_SYMBOLS = new Set(['SS', 'df', 'MS', 'F', 'p', 'M', 'SD', 'SE', 'n', 't', 'N']);
+export const ITALIC_SYMBOLS = new Set(['SS', 'df', 'MS', 'F', 'p', 'M', 'SD', 'SE', 'n', 't', 'N', 'b']);
 
 /** More cells than this and the reports leave the descriptives table to the JSON output (and say so). */
 export const MAX_DESCRIPTIVE_CELLS = 60;
@@ -252,6 +252,16 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
       rows: o.descriptives.map((d) => [...(d.levels.length > 0 ? d.levels.map((l) => l.label) : [d.label]), String(d.n), formatNumber(d.mean), formatNumber(d.sd)]),
       numbersFrom: Math.max(1, factorNames.length),
       note: 'Note. Observed cell means and standard deviations (n - 1), not adjusted for covariates.',
+      analysis,
+    });
+  }
+  if (o.coefficients) {
+    tables.push({
+      title: `Regression coefficients of the model for ${o.outcome}`,
+      head: ['Term', 'b', 'SE', 't', 'p', ci],
+      rows: o.coefficients.map((c) => [c.name, formatNumber(c.estimate, 3), formatNumber(c.se, 3), formatF(c.t), formatP(c.p), `[${formatNumber(c.lower, 3)}, ${formatNumber(c.upper, 3)}]`]),
+      numbersFrom: 1,
+      note: `Note. One coefficient per design column, in ${o.codingDescription}: ${o.coding === 'sum' ? '"[S.level]" is the column of that level (the last level is -1 in every column), its coefficient the level\'s deviation from the unweighted mean of the levels' : '"[T.level]" is that level against the first'}. Intercept at covariates = 0. df = ${formatDf(o.residual.df)}.`,
       analysis,
     });
   }

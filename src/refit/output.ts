@@ -5,7 +5,7 @@ import type { AnovaTable, Coding, FittedModel } from './model.js';
 import { marginalMeans, pairwiseComparisons, plannedContrast, simpleComparisons, type Adjustment, type PairwiseComparison } from './marginalMeans.js';
 import type { ReportedSet } from './reportedTable.js';
 import { ADJUSTMENT_NAMES } from './spec.js';
-import { cellDescriptives, leveneTest, modelFit } from './summaries.js';
+import { cellDescriptives, coefficientTable, leveneTest, modelFit } from './summaries.js';
 
 /**
  * The refit command's JSON output, defined with zod; schema/refit.schema.json
@@ -157,6 +157,10 @@ export const refitOutputSchema = z.object({
   descriptives: z
     .array(z.object({ levels: z.array(levelSchema), label: z.string(), n: z.number().int(), mean: num, sd: num }))
     .describe('Unadjusted n, mean and SD (n - 1) of the outcome in every cell of the factors'),
+  coefficients: z
+    .array(z.object({ name: z.string(), estimate: num, se: num, t: num, df: z.number(), p: num, lower: num, upper: num }))
+    .optional()
+    .describe('Regression coefficients of the design columns in the coding fitted (intercept at raw covariate values), when asked for'),
   marginalMeans: z.array(marginalMeansSchema).optional().describe('Estimated marginal (covariate-adjusted) means, when asked for'),
   contrasts: z.array(contrastOutputSchema).optional().describe('Planned contrasts of marginal means, when asked for'),
   levene: z
@@ -380,6 +384,18 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
     }),
     verdict: result.comparison === undefined ? 'nothing reported' : result.comparison.allMatch ? 'matches' : 'differs',
   };
+  if (model.spec.coefficients) {
+    out.coefficients = coefficientTable(model, CONFIDENCE).map((c) => ({
+      name: c.name,
+      estimate: finite(c.estimate),
+      se: finite(c.se),
+      t: finite(c.t),
+      df: c.df,
+      p: finite(c.p),
+      lower: finite(c.lower),
+      upper: finite(c.upper),
+    }));
+  }
   if (model.spec.means.length > 0) out.marginalMeans = model.spec.means.map((term) => meansOutput(model, term));
   if (model.spec.contrasts.length > 0) out.contrasts = contrastsOutput(model);
   if (model.spec.levene !== undefined) {

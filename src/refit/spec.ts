@@ -113,6 +113,8 @@ export const analysisSpecSchema = z
           .strict(),
       )
       .default([]),
+    /** Print the regression coefficients of the design columns. */
+    coefficients: z.boolean().default(false),
     /** Simple comparisons: the means of each `means` term compared within each level of this factor. */
     within: z.string().min(1).optional(),
     /** Values at which covariates are held for marginal means and contrasts (default: their means). */

@@ -1,4 +1,6 @@
 import { fUpperTail } from '../stats/fDistribution.js';
+import { tTwoTailed } from '../stats/tDistribution.js';
+import { tQuantileUpper } from './quantiles.js';
 import { RefitError } from './errors.js';
 import type { FittedModel } from './model.js';
 
@@ -25,6 +27,12 @@ import type { FittedModel } from './model.js';
  * F = ((N - k) / (k - 1)) sum n_i (zbar_i - zbar)^2 / sum sum (z_ij - zbar_i)^2,
  * on k - 1 and N - k degrees of freedom. It needs the outcome values, kept
  * when the model is fitted with keepOutcome.
+ *
+ * Coefficients: b = R^{-1} (Q'y) from the same factor, SE = sqrt(MSE
+ * e_j'(X'X)^{-1}e_j), t on the residual df. Covariate main-effect columns
+ * are fitted measured from an origin (model.ts); the intercept printed is
+ * the one of the covariates' raw values, b_0 + origin_y - sum_j b_j o_j,
+ * with its SE from the same linear function.
  *
  * ## References
  * - Levene, H. (1960). Robust tests for equality of variances. In I. Olkin
@@ -130,4 +138,42 @@ export function leveneTest(model: FittedModel, center: LeveneCenter = 'median'):
   const df2 = n - k;
   const F = (df2 / df1) * (between / within);
   return { center, groups: k, F, df1, df2, p: fUpperTail(F, df1, df2) };
+}
+
+export interface Coefficient {
+  /** The design column: "(Intercept)", "group[S.lo]", "group[T.hi]:dose[T.2]", "age". */
+  name: string;
+  estimate: number;
+  se: number;
+  t: number;
+  df: number;
+  p: number;
+  lower: number;
+  upper: number;
+}
+
+/** The regression coefficients of the design columns (the coding as fitted), with SE, t, two-sided p and interval. */
+export function coefficientTable(model: FittedModel, level = 0.95): Coefficient[] {
+  const p = model.columns.length;
+  const beta = model.coefficients();
+  const mse = model.residualSS / model.residualDf;
+  const df = model.residualDf;
+  const crit = tQuantileUpper((1 - level) / 2, df);
+  return model.columns.map((column, j) => {
+    const l = new Float64Array(p);
+    l[j] = 1;
+    let shift = 0;
+    if (j === 0) {
+      // The intercept at raw covariate values: undo the origins the covariates' main effects were measured from.
+      shift = model.outcomeOrigin;
+      model.columns.forEach((c, k) => {
+        if (c.numeric.kind === 'delta') l[k] = -model.numericVars[c.numeric.slot]!.origin;
+      });
+    }
+    let estimate = shift;
+    for (let k = 0; k < p; k++) estimate += l[k]! * beta[k]!;
+    const se = Math.sqrt(mse * model.unscaledVariance(l));
+    const t = estimate / se;
+    return { name: column.name, estimate, se, t, df, p: tTwoTailed(t, df), lower: estimate - crit * se, upper: estimate + crit * se };
+  });
 }

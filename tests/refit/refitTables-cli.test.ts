@@ -37,6 +37,7 @@ interface Case {
   contrasts: Array<Lin & { term: string; weights: number[] }>;
   descriptives: Array<{ label: string; n: number; mean: number; sd: number }>;
   levene: Record<'median' | 'mean', { F: number; p: number; df1: number; df2: number }>;
+  coefficients: Record<'sum' | 'treatment', Array<{ name: string; estimate: number; se: number; t: number; p: number; lower: number; upper: number }> | undefined>;
   within?: {
     by: string;
     means: string;
@@ -183,6 +184,27 @@ for (const c of ref.cases) {
       });
       expect(failures).toEqual([]);
     });
+
+    for (const coding of ['sum', 'treatment'] as const) {
+      const theirs = c.coefficients[coding];
+      if (!theirs) continue;
+      it(`--coefficients in ${coding} coding against ${SM} params, bse, tvalues, pvalues, conf_int`, async () => {
+        const o = await refitJson(c, ['--coefficients', '--coding', coding]);
+        const failures: string[] = [];
+        expect(o.coefficients!.map((x) => x.name)).toEqual(theirs.map((x) => x.name));
+        theirs.forEach((r, i) => {
+          const x = o.coefficients![i]!;
+          const scale = Math.abs(r.upper - r.lower);
+          check(failures, SM, `${r.name} b`, x.estimate, r.estimate, TOL, scale);
+          check(failures, SM, `${r.name} SE`, x.se, r.se);
+          check(failures, SM, `${r.name} t`, x.t, r.t, TOL, scale / r.se);
+          check(failures, SM, `${r.name} p`, x.p, r.p);
+          check(failures, SM, `${r.name} lower`, x.lower, r.lower, TOL, scale + Math.abs(r.estimate));
+          check(failures, SM, `${r.name} upper`, x.upper, r.upper, TOL, scale + Math.abs(r.estimate));
+        });
+        expect(failures).toEqual([]);
+      });
+    }
 
     const within = c.within;
     if (within) {
