@@ -23,6 +23,7 @@ export function registerRefitCommand(program: Command, io: CliIo, setExitCode: (
     .option('--means <term>', 'estimated marginal (covariate-adjusted) means of a factor or a combination: "group", "group:time" (repeatable)', collect, [])
     .option('--pairwise', 'pairwise comparisons of the --means (adjusted as --adjust says, Tukey by default)')
     .addOption(new Option('--adjust <method>', 'adjustment of the pairwise comparisons (implies --pairwise; default tukey, Tukey-Kramer when cells are unequal)').choices(['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none']))
+    .addOption(new Option('--weights <weights>', 'how marginal means weight the levels of the factors they average over: equally (default) or in proportion to the analysed rows').choices(['equal', 'proportional']))
     .option('--within <factor>', 'simple comparisons: compare the --means within each level of this factor, e.g. --means group --within site (implies --pairwise)')
     .option('--contrast <weights>', 'a planned contrast of marginal means, weights in level order: "group=-0.5,-0.5,1" (repeatable)', collect, [])
     .option('--at <value>', 'hold a covariate at this value for --means and --contrast instead of its mean: "baseline=30" (repeatable)', collect, [])

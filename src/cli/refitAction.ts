@@ -42,6 +42,7 @@ export interface RefitOptions {
   at?: string[];
   within?: string;
   coefficients?: boolean;
+  weights?: 'equal' | 'proportional';
   levene?: 'median' | 'mean';
   format: Format;
   output?: string;
@@ -85,7 +86,7 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 
 /** The analysis description: the --spec file, overridden by the command line. */
 export function buildSpec(
-  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'levene'>,
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'weights' | 'levene'>,
 ): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   if (options.model !== undefined) {
@@ -134,6 +135,7 @@ export function buildSpec(
   if (options.levene !== undefined) raw.levene = options.levene;
   if (options.within !== undefined) raw.within = options.within.trim();
   if (options.coefficients) raw.coefficients = true;
+  if (options.weights !== undefined) raw.weights = options.weights;
   if (options.at !== undefined && options.at.length > 0) {
     const at = namedCopy(raw.at, 'at', options.spec);
     for (const entry of options.at) {

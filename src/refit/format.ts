@@ -243,6 +243,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   const ci = `${percent(o.confidenceLevel)} CI`;
   const method = `${methodLine(o)[0]!.toUpperCase()}${methodLine(o).slice(1)}`;
   const where = o.covariatesAt.length > 0 ? `Covariates held at ${covariatesAtText(o)}` : 'No covariates';
+  const weighting = o.cellWeights === 'proportional' ? 'weighted by their share of the analysed rows' : 'weighted equally';
   const analysis = `N = ${o.n}; ${exclusionsText(o)}. ${method}. Model: ${o.model}.`;
   const factorNames = o.factors.map((f) => f.name);
   if (o.descriptives.length > 0 && o.descriptives.length <= MAX_DESCRIPTIVE_CELLS) {
@@ -273,7 +274,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
       head: [...names, 'M', 'SE', ci],
       rows: m.means.map((r) => [...r.levels.map((l) => l.label), formatNumber(r.mean), formatNumber(r.se), formatInterval(r.lower, r.upper)]),
       numbersFrom: names.length,
-      note: `Note. Means adjusted by the model (least-squares means). ${where}; levels of factors not in the table weighted equally. df = ${formatDf(m.means[0]?.df ?? o.residual.df)}.`,
+      note: `Note. Means adjusted by the model (least-squares means). ${where}; levels of factors not in the table ${weighting}. df = ${formatDf(m.means[0]?.df ?? o.residual.df)}.`,
       analysis,
     });
     if (m.pairwise) {
@@ -302,7 +303,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
       head: ['Contrast', 'Weights', 'Estimate', 'SE', 'df', 't', 'p', ci],
       rows: o.contrasts.map((c) => [c.name, c.weights.map((w) => `${w.label} ${w.weight}`).join('; '), formatNumber(c.estimate), formatNumber(c.se), formatDf(c.df), formatF(c.t), formatP(c.p), formatInterval(c.lower, c.upper)]),
       numbersFrom: 2,
-      note: `Note. Two-sided, not adjusted for multiplicity. ${where}; levels of factors not in the contrast weighted equally.`,
+      note: `Note. Two-sided, not adjusted for multiplicity. ${where}; levels of factors not in the contrast ${weighting}.`,
       analysis,
     });
   }

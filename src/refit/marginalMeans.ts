@@ -10,8 +10,9 @@ import { fQuantileUpper, studentizedRangeQuantileUpper, tQuantileUpper } from '.
  *
  * ## Method
  * Reference grid: every combination of the levels of the requested factors;
- * the other factors in the model are averaged with equal weights over their
- * levels, and covariates are held at their overall means (products of
+ * the other factors in the model are averaged over their levels with equal
+ * weights, or (weights: 'proportional') with weights proportional to the
+ * analysed rows of each combination of their levels, and covariates are held at their overall means (products of
  * covariates at the product of the means), or at values the caller gives
  * (`at`). A marginal mean is L'b, where L
  * is the average design row over the grid points that share the requested
@@ -160,11 +161,35 @@ export function covariateValues(model: FittedModel, at: CovariateValues | undefi
   return model.numericMeans.map((mean, slot) => given.get(model.numericVars[slot]!.name) ?? mean);
 }
 
-function gridMeans(model: FittedModel, slots: number[], at?: CovariateValues): GridMean[] {
+/**
+ * How the levels of the factors a mean averages over are weighted: equally
+ * (each combination of their levels counts the same), or in proportion to
+ * the analysed rows that have each combination.
+ */
+export type CellWeights = 'equal' | 'proportional';
+
+/** Where the reference grid is set: covariate values and the weights of the factors averaged over. */
+export interface GridOptions {
+  at?: CovariateValues;
+  weights?: CellWeights;
+}
+
+/** Analysed rows per combination of the levels of the factor slots `others` (key: their level indices joined by ","). */
+function rowsByCombination(model: FittedModel, others: readonly number[]): Map<string, number> {
+  const counts = new Map<string, number>();
+  for (const cell of model.cells) {
+    const key = others.map((s) => cell.levels[s]).join(',');
+    counts.set(key, (counts.get(key) ?? 0) + cell.n);
+  }
+  return counts;
+}
+
+function gridMeans(model: FittedModel, slots: number[], grid: GridOptions = {}): GridMean[] {
   const others = model.factorVars.map((_, i) => i).filter((i) => !slots.includes(i));
   const out: GridMean[] = [];
   const p = model.columns.length;
-  const numericValues = covariateValues(model, at);
+  const numericValues = covariateValues(model, grid.at);
+  const counts = grid.weights === 'proportional' ? rowsByCombination(model, others) : null;
   // The grid in reading order: the first named factor varies slowest ("lo, 1", "lo, 2", "mid, 1", ...).
   combinations(
     slots.map((s) => model.factorVars[s]!.levels.length).reverse(),
@@ -178,9 +203,11 @@ function gridMeans(model: FittedModel, slots: number[], at?: CovariateValues): G
           const levels = new Array<number>(model.factorVars.length).fill(0);
           slots.forEach((s, i) => (levels[s] = target[i]!));
           others.forEach((s, i) => (levels[s] = rest[i]!));
+          const w = counts === null ? 1 : (counts.get(rest.join(',')) ?? 0);
+          if (w === 0) return;
           const x = model.designRow(levels, numericValues);
-          for (let j = 0; j < p; j++) l[j] = l[j]! + x[j]!;
-          count++;
+          for (let j = 0; j < p; j++) l[j] = l[j]! + w * x[j]!;
+          count += w;
         },
       );
       for (let j = 0; j < p; j++) l[j] = l[j]! / count;
@@ -203,12 +230,12 @@ function linear(model: FittedModel, beta: Float64Array, l: Float64Array): { esti
 }
 
 /** Estimated marginal means of one factor or a combination ("a:b" or ["a", "b"]). */
-export function marginalMeans(model: FittedModel, factors: string | readonly string[], options: { level?: number; at?: CovariateValues } = {}): MarginalMean[] {
+export function marginalMeans(model: FittedModel, factors: string | readonly string[], options: { level?: number } & GridOptions = {}): MarginalMean[] {
   const level = options.level ?? 0.95;
   const beta = model.coefficients();
   const df = model.residualDf;
   const tCrit = tQuantileUpper((1 - level) / 2, df);
-  return gridMeans(model, factorSlots(model, factors), options.at).map((g) => {
+  return gridMeans(model, factorSlots(model, factors), options).map((g) => {
     const { estimate, se } = linear(model, beta, g.l);
     const emmean = estimate + model.outcomeOrigin;
     const levels: Record<string, string> = Object.create(null) as Record<string, string>;
@@ -234,9 +261,9 @@ export function holmAdjust(p: readonly number[]): number[] {
 export function pairwiseComparisons(
   model: FittedModel,
   factors: string | readonly string[],
-  options: { adjust?: Adjustment; level?: number; at?: CovariateValues } = {},
+  options: { adjust?: Adjustment; level?: number } & GridOptions = {},
 ): PairwiseComparison[] {
-  return comparePairs(model, gridMeans(model, factorSlots(model, factors), options.at), options.adjust ?? 'holm', options.level ?? 0.95);
+  return comparePairs(model, gridMeans(model, factorSlots(model, factors), options), options.adjust ?? 'holm', options.level ?? 0.95);
 }
 
 export interface SimpleComparisons {
@@ -259,7 +286,7 @@ export function simpleComparisons(
   model: FittedModel,
   factors: string | readonly string[],
   within: string,
-  options: { adjust?: Adjustment; level?: number; at?: CovariateValues } = {},
+  options: { adjust?: Adjustment; level?: number } & GridOptions = {},
 ): SimpleComparisons[] {
   const level = options.level ?? 0.95;
   const slots = factorSlots(model, factors);
@@ -268,7 +295,7 @@ export function simpleComparisons(
     throw new RefitError('INVALID_CONTRAST', `Simple comparisons within '${within}': the means compared must not include '${within}' itself.`, { column: within });
   }
   // The within factor first, so it varies slowest: each of its levels is one consecutive block.
-  const grid = gridMeans(model, [withinSlot!, ...slots], options.at);
+  const grid = gridMeans(model, [withinSlot!, ...slots], options);
   const v = model.factorVars[withinSlot!]!;
   const size = grid.length / v.levels.length;
   const beta = model.coefficients();
@@ -347,11 +374,11 @@ export function plannedContrast(
   model: FittedModel,
   factors: string | readonly string[],
   weights: readonly number[] | Record<string, number>,
-  options: { alternative?: Alternative; level?: number; at?: CovariateValues } = {},
+  options: { alternative?: Alternative; level?: number } & GridOptions = {},
 ): ContrastResult {
   const alternative = options.alternative ?? 'two-sided';
   const level = options.level ?? 0.95;
-  const means = gridMeans(model, factorSlots(model, factors), options.at);
+  const means = gridMeans(model, factorSlots(model, factors), options);
   let w: number[];
   if (Array.isArray(weights)) {
     w = [...(weights as readonly number[])];

@@ -151,6 +151,9 @@ export const refitOutputSchema = z.object({
   residual: z.object({ ss: num, df: z.number(), ms: num }),
   fit: z.object({ rSquared: num, adjustedRSquared: num }),
   confidenceLevel: z.number().describe('Level of every interval (0.95)'),
+  cellWeights: z
+    .enum(['equal', 'proportional'])
+    .describe('How marginal means and contrasts weight the levels of the factors they average over: equally, or by their share of the analysed rows'),
   covariatesAt: z
     .array(z.object({ name: z.string(), value: z.number(), from: z.enum(['mean', 'given']).describe('Its mean over the analysed rows, or the value given (--at)') }))
     .describe('Where the covariates are held for marginal means and contrasts'),
@@ -293,7 +296,7 @@ function meansOutput(model: FittedModel, term: string): z.infer<typeof marginalM
   };
   if (spec.within !== undefined) {
     const within = spec.within;
-    const families = simpleComparisons(model, names, within, { adjust, level: CONFIDENCE, at: spec.at });
+    const families = simpleComparisons(model, names, within, { adjust, level: CONFIDENCE, at: spec.at, weights: spec.weights });
     const rows = families.flatMap((f) => f.means.map((m) => meanRow([f.within.level, ...names.map((n) => m.levels[n]!)], [within, ...names], m)));
     const comparisons: ComparisonOut[] = [];
     for (const f of families) {
@@ -306,11 +309,11 @@ function meansOutput(model: FittedModel, term: string): z.infer<typeof marginalM
     const method = `${adjustmentMethod(adjust, families[0]?.comparisons.length ?? 0, k, unequalErrors(all))}, within each level of ${within}`;
     return { term: names.join(':'), within, means: rows, pairwise: { adjust, method, comparisons } };
   }
-  const means = marginalMeans(model, term, { level: CONFIDENCE, at: spec.at });
+  const means = marginalMeans(model, term, { level: CONFIDENCE, at: spec.at, weights: spec.weights });
   const rows = means.map((m) => meanRow(names.map((n) => m.levels[n]!), names, m));
   const out: z.infer<typeof marginalMeansSchema> = { term: names.join(':'), means: rows };
   if (spec.pairwise || spec.adjust !== undefined) {
-    const pairs = pairwiseComparisons(model, names, { adjust, level: CONFIDENCE, at: spec.at });
+    const pairs = pairwiseComparisons(model, names, { adjust, level: CONFIDENCE, at: spec.at, weights: spec.weights });
     const comparisons: ComparisonOut[] = [];
     let index = 0;
     for (let i = 0; i < rows.length; i++) for (let j = i + 1; j < rows.length; j++) comparisons.push(comparisonOut(pairs[index++]!, rows[i]!.label, rows[j]!.label));
@@ -329,8 +332,8 @@ function contrastsOutput(model: FittedModel): Array<z.infer<typeof contrastOutpu
       weights = Object.create(null) as Record<string, number>;
       for (const [key, w] of c.weights) weights[key] = w;
     }
-    const result = plannedContrast(model, names, weights, { level: CONFIDENCE, at: model.spec.at });
-    const means = marginalMeans(model, names, { level: CONFIDENCE, at: model.spec.at });
+    const result = plannedContrast(model, names, weights, { level: CONFIDENCE, at: model.spec.at, weights: model.spec.weights });
+    const means = marginalMeans(model, names, { level: CONFIDENCE, at: model.spec.at, weights: model.spec.weights });
     const labels = means.map((m) => names.map((n) => { const code = m.levels[n]!; return model.factorVars.find((v) => v.name === n)?.labels.get(code) ?? code; }).join(', '));
     const weighted = labels.map((label, i) => ({ label, weight: result.weights[i]! }));
     const side = (sign: number) => weighted.filter((w) => Math.sign(w.weight) === sign).map((w) => w.label).join(' + ');
@@ -374,6 +377,7 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
       return { rSquared: finite(f.rSquared), adjustedRSquared: finite(f.adjustedRSquared) };
     })(),
     confidenceLevel: CONFIDENCE,
+    cellWeights: model.spec.weights,
     covariatesAt: model.numericVars.slice(0, -1).map((v, slot) => {
       const given = model.spec.at.get(v.name);
       return given === undefined ? { name: v.name, value: model.numericMeans[slot]!, from: 'mean' as const } : { name: v.name, value: given, from: 'given' as const };

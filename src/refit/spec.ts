@@ -113,6 +113,8 @@ export const analysisSpecSchema = z
           .strict(),
       )
       .default([]),
+    /** How marginal means weight the levels of the factors they average over: equally, or by their share of the analysed rows. */
+    weights: z.enum(['equal', 'proportional']).default('equal'),
     /** Print the regression coefficients of the design columns. */
     coefficients: z.boolean().default(false),
     /** Simple comparisons: the means of each `means` term compared within each level of this factor. */

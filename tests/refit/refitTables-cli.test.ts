@@ -38,6 +38,11 @@ interface Case {
   descriptives: Array<{ label: string; n: number; mean: number; sd: number }>;
   levene: Record<'median' | 'mean', { F: number; p: number; df1: number; df2: number }>;
   coefficients: Record<'sum' | 'treatment', Array<{ name: string; estimate: number; se: number; t: number; p: number; lower: number; upper: number }> | undefined>;
+  proportional?: {
+    means: Record<string, Array<Lin & { label: string }>>;
+    pairwise: Record<string, Pair[]>;
+    contrasts: Array<Lin & { term: string; weights: number[] }>;
+  };
   within?: {
     by: string;
     means: string;
@@ -203,6 +208,40 @@ for (const c of ref.cases) {
           check(failures, SM, `${r.name} upper`, x.upper, r.upper, TOL, scale + Math.abs(r.estimate));
         });
         expect(failures).toEqual([]);
+      });
+    }
+
+    const prop = c.proportional;
+    if (prop) {
+      it(`--weights proportional: means, Tukey comparisons and a contrast with the other factors weighted by their rows, against ${SM} t_test and ${SP}`, async () => {
+        const first = c.contrasts[0]!;
+        const o = await refitJson(c, [
+          ...Object.keys(prop.means).flatMap((t) => ['--means', t]),
+          '--adjust', 'tukey', '--weights', 'proportional',
+          '--contrast', `${first.term}=${first.weights.join(',')}`,
+        ]);
+        expect(o.cellWeights).toBe('proportional');
+        const failures: string[] = [];
+        for (const [term, rows] of Object.entries(prop.means)) {
+          const ours = o.marginalMeans!.find((m) => m.term === term)!;
+          rows.forEach((r, i) => {
+            check(failures, SM, `${term} ${r.label} mean (proportional)`, ours.means[i]!.mean, r.estimate);
+            check(failures, SM, `${term} ${r.label} SE (proportional)`, ours.means[i]!.se, r.se);
+          });
+          prop.pairwise[term]!.forEach((r, i) => {
+            const p = ours.pairwise!.comparisons[i]!;
+            check(failures, SM, `${term} ${r.first} - ${r.second} estimate (proportional)`, p.estimate, r.estimate, TOL, meanScale);
+            check(failures, SP, `${term} ${r.first} - ${r.second} Tukey p (proportional)`, p.p, r.p);
+          });
+        }
+        check(failures, SM, 'contrast estimate (proportional)', o.contrasts![0]!.estimate, prop.contrasts[0]!.estimate, TOL, meanScale);
+        check(failures, SM, 'contrast SE (proportional)', o.contrasts![0]!.se, prop.contrasts[0]!.se);
+        expect(failures).toEqual([]);
+        // The weighting changes the numbers: equal weights give the other reference values.
+        const equal = await refitJson(c, ['--means', 'group']);
+        expect(Math.abs(equal.marginalMeans![0]!.means[0]!.mean! - prop.means.group![0]!.estimate)).toBeGreaterThan(1e-3);
+        const text = await run(['refit', fixturePath(`refit/${c.file}`), ...c.argv, '--means', 'group', '--weights', 'proportional']);
+        expect(text.out).toContain('levels of factors not in the table weighted by their share of the analysed rows');
       });
     }
 
@@ -450,6 +489,7 @@ describe('refit: bad requests for means, comparisons and contrasts (exit 2, nami
     ['--within a variable not in the model', ['--means', 'group', '--within', 'clinic'], /Comparisons within "clinic": 'clinic' is not in the model/],
     ['--within without --means', ['--within', 'site'], /Pairwise comparisons compare marginal means: name the factor/],
     ['--within a covariate', ['--means', 'group', '--within', 'baseline'], /'baseline' is a covariate, not a factor/],
+    ['an unknown --weights', ['--means', 'group', '--weights', 'cells'], /'--weights <weights>' argument 'cells' is invalid\. Allowed choices are equal, proportional/],
     ['--at for a variable not in the model', ['--means', 'group', '--at', 'age=30'], /Covariate value "age": 'age' is not in the model/],
     ['--at for a factor', ['--means', 'group', '--at', 'site=1'], /Covariate value "site=1": 'site' is not a covariate of the model \(covariates: baseline\)/],
     ['--at without a number', ['--means', 'group', '--at', 'baseline=high'], /--at "baseline=high": write it as "<covariate>=<number>"/],
