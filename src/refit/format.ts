@@ -14,15 +14,15 @@ type Quantity = ComparedNumber['quantity'];
 
 export const QUANTITY_LABEL: Record<Quantity, string> = { ss: 'SS', df: 'df', ms: 'MS', F: 'F', p: 'p', partialEtaSquared: 'ηp²' };
 
-/** "12.35"; small values keep three significant digits. */
+/** "12.35", "1,661.00" (thousands separated); small values keep three significant digits. */
 export function formatSS(x: number | null): string {
   if (x === null) return '—';
   if (x !== 0 && Math.abs(x) < 0.1) return x.toPrecision(3);
-  return x.toFixed(2);
+  return formatNumber(x, 2);
 }
 
 export function formatF(x: number | null): string {
-  return x === null ? '—' : x.toFixed(2);
+  return formatNumber(x, 2);
 }
 
 /** ".007", "< .001", "> .999" (APA style, no leading zero). */

@@ -30,6 +30,7 @@ describe('plumbline refit on the demo study', () => {
     expect(out).toMatch(/route\s+Route\s+SS\s+1144\.25\s+230\.0230\s+\+914\.2270\s+differs/);
     expect(out).toMatch(/1\. Missing-value codes left in the data as numbers \(mood=99; loneliness=6-8 not removed\): all 27 reported numbers match/);
     expect(out).toContain('The reported error df 143 implies N = 150');
+    expect(out).toMatch(/Residual\s+1,661\.00\s+125\s+13\.29/); // thousands separated (APA)
   });
 
   it('gives the same result with the model and codes on the command line', async () => {
