@@ -11,6 +11,7 @@ import { buildRefitOutput, type RefitResult } from '../refit/output.js';
 import { parseTermMap } from '../refit/reportedTable.js';
 import { readReportedWithinBudget } from '../refit/readReportedWithinBudget.js';
 import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type AnalysisSpecInput } from '../refit/spec.js';
+import { parseCellNumber } from '../refit/numeric.js';
 import { EXIT_CLEAN, EXIT_FLAGGED, limitsFrom, UsageError, type CliIo } from './common.js';
 
 /**
@@ -36,6 +37,15 @@ export interface RefitOptions {
   spec?: string;
   maxColumns?: string;
   limit?: string[];
+  means?: string[];
+  pairwise?: boolean;
+  adjust?: string;
+  contrast?: string[];
+  at?: string[];
+  within?: string;
+  coefficients?: boolean;
+  weights?: 'equal' | 'proportional';
+  levene?: 'median' | 'mean';
   format: Format;
   output?: string;
 }
@@ -77,7 +87,9 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 }
 
 /** The analysis description: the --spec file, overridden by the command line. */
-export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns'>): AnalysisSpecInput {
+export function buildSpec(
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'weights' | 'levene'>,
+): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   if (options.model !== undefined) {
     raw.model = options.model;
@@ -117,7 +129,48 @@ export function buildSpec(options: Pick<RefitOptions, 'spec' | 'model' | 'type' 
     missing[entry.slice(0, eq).trim()] = entry.slice(eq + 1).trim();
   }
   raw.missing = missing;
+  // Lists given on the command line replace the file's.
+  if (options.means !== undefined && options.means.length > 0) raw.means = options.means.map((m) => m.trim());
+  if (options.pairwise) raw.pairwise = true;
+  if (options.adjust !== undefined) raw.adjust = options.adjust;
+  if (options.contrast !== undefined && options.contrast.length > 0) raw.contrasts = options.contrast.map(parseContrastOption);
+  if (options.levene !== undefined) raw.levene = options.levene;
+  if (options.within !== undefined) raw.within = options.within.trim();
+  if (options.coefficients) raw.coefficients = true;
+  if (options.weights !== undefined) raw.weights = options.weights;
+  if (options.at !== undefined && options.at.length > 0) {
+    const at = namedCopy(raw.at, 'at', options.spec);
+    for (const entry of options.at) {
+      const eq = entry.indexOf('=');
+      const value = eq > 0 ? parseCellNumber(entry.slice(eq + 1).trim()) : NaN;
+      if (!Number.isFinite(value)) throw new UsageError(`--at "${entry}": write it as "<covariate>=<number>", e.g. "baseline=30"`);
+      at[entry.slice(0, eq).trim()] = value;
+    }
+    raw.at = at;
+  }
   return raw as unknown as AnalysisSpecInput;
+}
+
+/** One weight: a decimal number or a fraction of two ("1/3", "-2/3"). */
+function parseWeight(text: string): number {
+  const parts = text.split('/');
+  if (parts.length > 2) return NaN;
+  const values = parts.map((part) => parseCellNumber(part.trim()));
+  return values.length === 2 ? values[0]! / values[1]! : values[0]!;
+}
+
+/** "--contrast group=-0.5,-0.5,1" -> { term, weights }. */
+export function parseContrastOption(entry: string): { term: string; weights: number[] } {
+  const eq = entry.indexOf('=');
+  const usage = 'write it as "<factor>=<weights>", one weight per level in level order, e.g. "group=-0.5,-0.5,1" (or "group:time=1,-1,-1,1" for cells)';
+  if (eq <= 0 || eq === entry.length - 1) throw new UsageError(`--contrast "${entry}": ${usage}`);
+  const term = entry.slice(0, eq).trim();
+  const pieces = entry.slice(eq + 1).split(',').map((w) => w.trim());
+  const weights = pieces.map(parseWeight);
+  const bad = pieces.findIndex((_, i) => !Number.isFinite(weights[i]!));
+  if (bad >= 0) throw new UsageError(`--contrast "${entry}": weight ${bad + 1} ("${pieces[bad]}") is not a number; ${usage}`);
+  if (weights.length < 2) throw new UsageError(`--contrast "${entry}": a contrast needs a weight for each of at least two levels; ${usage}`);
+  return { term, weights };
 }
 
 /**
@@ -153,7 +206,7 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
   const limits = limitsFrom(undefined, options);
   parseAnalysisSpec(spec); // validate before reading data
 
-  const model = await fitModel(dataFile, spec);
+  const model = await fitModel(dataFile, spec, { keepOutcome: spec.levene !== undefined });
   const table = model.anova();
   const result: RefitResult = {
     dataFile,

@@ -235,7 +235,9 @@ export async function explainMismatch(
   const baselineShare = baseline.compared === 0 ? 0 : baseline.matches / (baseline.compared + unmatchedNumbers(baseline, reported));
   const explanations: Explanation[] = [];
   const notFitted: Array<{ description: string; reason: string }> = [];
-  const list = variants(spec, model);
+  // The slips change the ANOVA table only: what is reported beside it (means, contrasts, Levene) is left out of their refits.
+  const { means: _means, pairwise: _pairwise, adjust: _adjust, contrasts: _contrasts, levene: _levene, at: _at, within: _within, coefficients: _coefficients, weights: _weights, ...tableSpec } = spec;
+  const list = variants(tableSpec, model);
   for (const variant of list) {
     let table: AnovaTable;
     try {

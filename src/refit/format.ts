@@ -14,21 +14,22 @@ type Quantity = ComparedNumber['quantity'];
 
 export const QUANTITY_LABEL: Record<Quantity, string> = { ss: 'SS', df: 'df', ms: 'MS', F: 'F', p: 'p', partialEtaSquared: 'ηp²' };
 
-/** "12.35"; small values keep three significant digits. */
+/** "12.35", "1,661.00" (thousands separated); small values keep three significant digits. */
 export function formatSS(x: number | null): string {
   if (x === null) return '—';
   if (x !== 0 && Math.abs(x) < 0.1) return x.toPrecision(3);
-  return x.toFixed(2);
+  return formatNumber(x, 2);
 }
 
 export function formatF(x: number | null): string {
-  return x === null ? '—' : x.toFixed(2);
+  return formatNumber(x, 2);
 }
 
-/** ".007", "< .001" (APA style, no leading zero). */
+/** ".007", "< .001", "> .999" (APA style, no leading zero). */
 export function formatP(p: number | null): string {
   if (p === null) return '—';
   if (p < 0.001) return '< .001';
+  if (p >= 0.9995) return '> .999';
   return p.toFixed(3).replace(/^0\./, '.');
 }
 
@@ -116,7 +117,7 @@ function verdictWord(chalk: ChalkInstance, v: ComparedNumber['verdict']): string
 }
 
 /** Comparison rows as cell arrays: term, printed as, quantity, reported, recomputed, difference, verdict. */
-function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> {
+export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> {
   const out: Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> = [];
   for (const row of o.comparison?.rows ?? []) {
     const reportedAny = row.numbers.some((n) => n.verdict !== 'not reported');
@@ -145,7 +146,7 @@ function comparisonCells(o: RefitOutput, includeUnreported: boolean): Array<{ ce
   return out;
 }
 
-function summaryLine(o: RefitOutput): string {
+export function summaryLine(o: RefitOutput): string {
   const c = o.comparison!;
   const unmatched = c.unmatched.length > 0 ? ` ${c.unmatched.length} reported row(s) name no model term: ${c.unmatched.map((u) => `"${u.label}"`).join(', ')} (use --map).` : '';
   if (c.compared === 0) return `No reported number could be compared.${unmatched}`;
@@ -154,7 +155,7 @@ function summaryLine(o: RefitOutput): string {
     : `${c.differs} of ${c.compared} reported numbers differ from the refit.${unmatched}`;
 }
 
-function explanationLines(o: RefitOutput): string[] {
+export function explanationLines(o: RefitOutput): string[] {
   const list = o.explanations ?? [];
   if (!o.comparison || o.comparison.allMatch) return [];
   if (list.length === 0) return ['None of the usual slips reproduces the reported numbers.'];
@@ -162,6 +163,151 @@ function explanationLines(o: RefitOutput): string[] {
     (e, i) =>
       `${i + 1}. ${e.description[0]!.toUpperCase()}${e.description.slice(1)}: ${e.reproduces === 'all' ? `all ${e.compared}` : `${e.matches} of ${e.compared}`} reported numbers match (refit: ${e.model}, ${typeLabel(e.type)}${e.type === 3 ? `, ${e.coding === 'sum' ? 'sum-to-zero' : 'treatment'} coding` : ''}, N = ${e.table.n}).`,
   );
+}
+
+/** A number with `decimals` decimals and thousands separators ("1,234.57"); "—" for none. */
+export function formatNumber(x: number | null, decimals = 2): string {
+  if (x === null || !Number.isFinite(x)) return '—';
+  const s = x.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+  return s === `-${(0).toFixed(decimals)}` ? (0).toFixed(decimals) : s;
+}
+
+/** "[21.92, 24.12]" (APA style interval). */
+export function formatInterval(lower: number | null, upper: number | null): string {
+  return `[${formatNumber(lower)}, ${formatNumber(upper)}]`;
+}
+
+/** Header cells that are statistic symbols, printed in italics where the format allows. */
+export const ITALIC_SYMBOLS = new Set(['SS', 'df', 'MS', 'F', 'p', 'M', 'SD', 'SE', 'n', 't', 'N', 'b']);
+
+/** More cells than this and the reports leave the descriptives table to the JSON output (and say so). */
+export const MAX_DESCRIPTIVE_CELLS = 60;
+
+/** What the reports say instead of a descriptives table too long to read. */
+export function descriptivesOmitted(o: RefitOutput): string | null {
+  return o.descriptives.length > MAX_DESCRIPTIVE_CELLS
+    ? `Cell descriptives (n, M, SD) of the ${o.descriptives.length} cells are in the JSON output (--format json).`
+    : null;
+}
+
+/** One of the tables printed beside the ANOVA table. */
+export interface ExtraTable {
+  title: string;
+  head: string[];
+  rows: string[][];
+  /** Columns from this index on are right-aligned numbers. */
+  numbersFrom: number;
+  /** What this table needs said (starts "Note."). */
+  note: string;
+  /** The analysis: N, exclusions, type of sums of squares, coding, model (for formats whose tables stand alone). */
+  analysis: string;
+}
+
+function percent(level: number): string {
+  return `${Math.round(level * 1000) / 10}%`;
+}
+
+/** Where the covariates were held, in words. */
+export function covariatesAtText(o: RefitOutput): string {
+  if (o.covariatesAt.length === 0) return '';
+  const means = o.covariatesAt.filter((c) => c.from === 'mean');
+  const given = o.covariatesAt.filter((c) => c.from === 'given');
+  const list = (cs: typeof means) => cs.map((c) => `${c.name} = ${formatNumber(c.value)}`).join(', ');
+  const parts: string[] = [];
+  if (means.length > 0) parts.push(`${list(means)} (${means.length === 1 ? 'its mean' : 'their means'} over the ${o.n} analysed rows)`);
+  if (given.length > 0) parts.push(`${list(given)} (${given.length === 1 ? 'the value' : 'the values'} given)`);
+  return parts.join('; ');
+}
+
+function exclusionsText(o: RefitOutput): string {
+  const codes = o.missing.map((m) => `${m.column} = ${m.codes}`).join('; ');
+  return o.droppedRows > 0 ? `${o.droppedRows} of ${o.rowsInFile} rows excluded for missing values${codes ? ` (codes ${codes})` : ''}` : 'no rows excluded';
+}
+
+/** R² and adjusted R² in one line. */
+export function fitLine(o: RefitOutput): string {
+  return `R² = ${formatProportion(o.fit.rSquared)}, adjusted R² = ${formatProportion(o.fit.adjustedRSquared)}`;
+}
+
+/** Levene's test in one line, saying how it was centred. */
+export function leveneLine(o: RefitOutput): string | null {
+  const l = o.levene;
+  if (!l) return null;
+  const how = l.center === 'median' ? "centred on each cell's median (Brown-Forsythe)" : "centred on each cell's mean";
+  return `Levene's test of equal variances across the ${l.groups} cells, ${how}: F(${formatDf(l.df1)}, ${formatDf(l.df2)}) = ${formatF(l.F)}, p ${l.p !== null && l.p < 0.001 ? '< .001' : `= ${formatP(l.p)}`}`;
+}
+
+/** The descriptives, marginal means, pairwise comparisons and contrasts as tables with captions and notes. */
+export function extraTables(o: RefitOutput): ExtraTable[] {
+  const tables: ExtraTable[] = [];
+  const ci = `${percent(o.confidenceLevel)} CI`;
+  const method = `${methodLine(o)[0]!.toUpperCase()}${methodLine(o).slice(1)}`;
+  const where = o.covariatesAt.length > 0 ? `Covariates held at ${covariatesAtText(o)}` : 'No covariates';
+  const weighting = o.cellWeights === 'proportional' ? 'weighted by their share of the analysed rows' : 'weighted equally';
+  const analysis = `N = ${o.n}; ${exclusionsText(o)}. ${method}. Model: ${o.model}.`;
+  const factorNames = o.factors.map((f) => f.name);
+  if (o.descriptives.length > 0 && o.descriptives.length <= MAX_DESCRIPTIVE_CELLS) {
+    tables.push({
+      title: `Unadjusted descriptives of ${o.outcome}${factorNames.length > 0 ? ` by ${factorNames.map(termLabel).join(' × ')}` : ''}`,
+      head: [...(factorNames.length > 0 ? factorNames : ['Rows']), 'n', 'M', 'SD'],
+      rows: o.descriptives.map((d) => [...(d.levels.length > 0 ? d.levels.map((l) => l.label) : [d.label]), String(d.n), formatNumber(d.mean), formatNumber(d.sd)]),
+      numbersFrom: Math.max(1, factorNames.length),
+      note: 'Note. Observed cell means and standard deviations (n - 1), not adjusted for covariates.',
+      analysis,
+    });
+  }
+  if (o.coefficients) {
+    tables.push({
+      title: `Regression coefficients of the model for ${o.outcome}`,
+      head: ['Term', 'b', 'SE', 't', 'p', ci],
+      rows: o.coefficients.map((c) => [c.name, formatNumber(c.estimate, 3), formatNumber(c.se, 3), formatF(c.t), formatP(c.p), `[${formatNumber(c.lower, 3)}, ${formatNumber(c.upper, 3)}]`]),
+      numbersFrom: 1,
+      note: `Note. One coefficient per design column, in ${o.codingDescription}: ${o.coding === 'sum' ? '"[S.level]" is the column of that level (the last level is -1 in every column), its coefficient the level\'s deviation from the unweighted mean of the levels' : '"[T.level]" is that level against the first'}. Intercept at covariates = 0. df = ${formatDf(o.residual.df)}.`,
+      analysis,
+    });
+  }
+  for (const m of o.marginalMeans ?? []) {
+    const names = m.within === undefined ? m.term.split(':') : [m.within, ...m.term.split(':')];
+    const by = `${termLabel(m.term)}${m.within === undefined ? '' : ` within ${m.within}`}`;
+    tables.push({
+      title: `Estimated marginal means of ${o.outcome} by ${by}`,
+      head: [...names, 'M', 'SE', ci],
+      rows: m.means.map((r) => [...r.levels.map((l) => l.label), formatNumber(r.mean), formatNumber(r.se), formatInterval(r.lower, r.upper)]),
+      numbersFrom: names.length,
+      note: `Note. Means adjusted by the model (least-squares means). ${where}; levels of factors not in the table ${weighting}. df = ${formatDf(m.means[0]?.df ?? o.residual.df)}.`,
+      analysis,
+    });
+    if (m.pairwise) {
+      tables.push({
+        title: `Pairwise comparisons of ${o.outcome} by ${by}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
+        head: [...(m.within === undefined ? [] : [m.within]), 'Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
+        rows: m.pairwise.comparisons.map((c) => [
+          ...(m.within === undefined ? [] : [c.within ?? '']),
+          `${c.first} - ${c.second}`,
+          formatNumber(c.estimate),
+          formatNumber(c.se),
+          formatDf(c.df),
+          formatF(c.t),
+          formatP(c.p),
+          formatInterval(c.lower, c.upper),
+        ]),
+        numbersFrom: m.within === undefined ? 1 : 2,
+        note: `Note. ${m.pairwise.adjust === 'none' ? 'p and intervals not adjusted for multiple comparisons' : `p and intervals adjusted: ${m.pairwise.method}`}. Differences of the estimated marginal means (first minus second); ${where.charAt(0).toLowerCase()}${where.slice(1)}.`,
+      analysis,
+      });
+    }
+  }
+  if (o.contrasts && o.contrasts.length > 0) {
+    tables.push({
+      title: `Planned contrasts of the estimated marginal means of ${o.outcome}`,
+      head: ['Contrast', 'Weights', 'Estimate', 'SE', 'df', 't', 'p', ci],
+      rows: o.contrasts.map((c) => [c.name, c.weights.map((w) => `${w.label} ${w.weight}`).join('; '), formatNumber(c.estimate), formatNumber(c.se), formatDf(c.df), formatF(c.t), formatP(c.p), formatInterval(c.lower, c.upper)]),
+      numbersFrom: 2,
+      note: `Note. Two-sided, not adjusted for multiplicity. ${where}; levels of factors not in the contrast ${weighting}.`,
+      analysis,
+    });
+  }
+  return tables;
 }
 
 /** Console report. */
@@ -175,6 +321,17 @@ export function formatRefitText(o: RefitOutput, options: { color: boolean }): st
   lines.push('');
   const table = pad([TABLE_HEAD, ...o.terms.map(tableCells), residualCells(o)]);
   lines.push(`  ${chalk.bold(table[0]!)}`, ...table.slice(1).map((l) => `  ${l}`));
+  lines.push(`  ${fitLine(o)}`);
+  const omitted = descriptivesOmitted(o);
+  if (omitted) lines.push('', omitted);
+  for (const t of extraTables(o)) {
+    lines.push('', chalk.bold(t.title));
+    const padded = pad([t.head, ...t.rows], t.numbersFrom);
+    lines.push(`  ${chalk.bold(padded[0]!)}`, ...padded.slice(1).map((l) => `  ${l}`));
+    lines.push(`  ${t.note}`);
+  }
+  const levene = leveneLine(o);
+  if (levene) lines.push('', levene);
   if (o.comparison) {
     const c = o.comparison;
     lines.push('');
@@ -206,8 +363,20 @@ function mdEscape(s: string): string {
   return s.replace(/\|/g, '\\|');
 }
 
-function mdTable(head: string[], rows: string[][]): string[] {
-  return [`| ${head.map(mdEscape).join(' | ')} |`, `|${head.map((_, i) => (i === 0 ? ' --- ' : ' ---: ')).join('|')}|`, ...rows.map((r) => `| ${r.map(mdEscape).join(' | ')} |`)];
+function mdTable(head: string[], rows: string[][], numbersFrom = 1): string[] {
+  return [`| ${head.join(' | ')} |`, `|${head.map((_, i) => (i < numbersFrom ? ' --- ' : ' ---: ')).join('|')}|`, ...rows.map((r) => `| ${r.map(mdEscape).join(' | ')} |`)];
+}
+
+/** A header cell for Markdown: statistic symbols in italics, the rest escaped. */
+function mdSymbol(h: string): string {
+  if (ITALIC_SYMBOLS.has(h)) return `*${h}*`;
+  if (h === 'ηp²') return '*η*p²';
+  return mdEscape(h).replace(/[*_]/g, '\\$&');
+}
+
+/** "F(5, 47) = 1.31, p = .277" with its symbols in italics (Markdown). */
+function mdItalicLine(text: string): string {
+  return text.replace(/\b([Fp])(?=[( ])/g, '*$1*');
 }
 
 /** Markdown report. */
@@ -217,7 +386,15 @@ export function formatRefitMarkdown(o: RefitOutput): string {
   lines.push(`- Model: \`${o.model}\``);
   lines.push(`- Method: ${methodLine(o)}`);
   lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`, '');
-  lines.push(...mdTable(TABLE_HEAD, [...o.terms.map(tableCells), residualCells(o)]));
+  lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map(tableCells), residualCells(o)]));
+  lines.push('', `${tableNote(o)} ${fitLine(o)}.`);
+  const omitted = descriptivesOmitted(o);
+  if (omitted) lines.push('', omitted);
+  for (const t of extraTables(o)) {
+    lines.push('', `## ${t.title}`, '', ...mdTable(t.head.map(mdSymbol), t.rows, t.numbersFrom), '', `*Note.* ${mdEscape(`${t.note.replace(/^Note\.\s*/, '')} ${t.analysis}`)}`);
+  }
+  const levene = leveneLine(o);
+  if (levene) lines.push('', mdItalicLine(levene));
   if (o.comparison) {
     lines.push('', `## Compared with ${o.comparison.reportedFile}`, '', `Read from: ${o.comparison.sources.join(', ')}.`, '');
     lines.push(...mdTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells)));
@@ -231,6 +408,11 @@ export function formatRefitMarkdown(o: RefitOutput): string {
 
 function esc(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+}
+
+/** Escapes text and sets the statistic symbols of a result line in italics ("F(5, 47)", "p = ", "R²"). */
+function htmlSymbols(text: string): string {
+  return esc(text).replace(/\b([FpR])(?=[( ²])/g, '<i>$1</i>');
 }
 
 /** The note printed under the formatted table. */
@@ -268,7 +450,15 @@ export function formatRefitHtml(o: RefitOutput): string {
   parts.push('<table class="anova">', `<thead>${italicHead}</thead>`, '<tbody>');
   for (const r of o.terms) parts.push(row(tableCells(r)));
   parts.push(row(residualCells(o)));
-  parts.push('</tbody>', '</table>', `<p class="note">${esc(tableNote(o))}</p>`);
+  parts.push('</tbody>', '</table>', `<p class="note">${esc(tableNote(o))} ${htmlSymbols(fitLine(o))}.</p>`);
+  extraTables(o).forEach((t, i) => {
+    const head = `<tr>${t.head.map((h, c) => `<th${c < t.numbersFrom ? ' class="src"' : ''}>${ITALIC_SYMBOLS.has(h) ? `<i>${esc(h)}</i>` : esc(h)}</th>`).join('')}</tr>`;
+    parts.push(`<p><b>Table ${i + 2}</b></p>`, `<p class="caption">${esc(t.title)}</p>`, '<table class="anova">', `<thead>${head}</thead>`, '<tbody>');
+    for (const r of t.rows) parts.push(`<tr>${r.map((c, ci) => `<td${ci < t.numbersFrom ? ' class="src"' : ''}>${esc(c)}</td>`).join('')}</tr>`);
+    parts.push('</tbody>', '</table>', `<p class="note"><i>Note.</i> ${esc(`${t.note.replace(/^Note\.\s*/, '')} ${t.analysis}`)}</p>`);
+  });
+  const levene = leveneLine(o);
+  if (levene) parts.push(`<p>${htmlSymbols(levene)}</p>`);
   if (o.comparison) {
     parts.push(`<h2>Compared with ${esc(o.comparison.reportedFile)}</h2>`, `<p>Read from: ${esc(o.comparison.sources.join(', '))}.</p>`);
     parts.push('<table class="cmp"><thead>', row(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], 'th'), '</thead><tbody>');

@@ -11,13 +11,16 @@ import {
   WidthType,
   type IBorderOptions,
 } from 'docx';
-import { formatDf, formatF, formatP, formatProportion, formatSS, tableNote, termLabel } from './format.js';
+import { comparisonCells, explanationLines, extraTables, fitLine, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
 import type { RefitOutput } from './output.js';
 
 /**
  * The recomputed ANOVA table as a Word document: a real Word table in the
  * usual journal style (rules above and below the header and at the bottom,
- * no vertical lines), a caption and a note, ready for a response to reviewers.
+ * no vertical lines), a caption and a note, ready for a response to reviewers;
+ * then the tables printed beside it (format.ts, extraTables) and, when a
+ * reported table was given, the comparison with it and the slips that
+ * reproduce it.
  */
 
 const FONT = 'Times New Roman';
@@ -39,8 +42,34 @@ function cell(children: TextRun[], options: { left: boolean; top?: boolean; bott
 
 function headerRuns(h: string): TextRun[] {
   if (h === 'ηp²') return [run('η', { italics: true }), run('p', { italics: true, subScript: true }), run('2', { superScript: true })];
-  if (h === 'Source') return [run(h)];
-  return [run(h, { italics: true })];
+  if (ITALIC_SYMBOLS.has(h)) return [run(h, { italics: true })];
+  return [run(h)];
+}
+
+/** A result line with its statistic symbols (F, p, R) in italics. */
+function symbolRuns(text: string): TextRun[] {
+  const runs: TextRun[] = [];
+  let last = 0;
+  for (const m of text.matchAll(/\b[FpR](?=[( ²])/g)) {
+    if (m.index > last) runs.push(run(text.slice(last, m.index)));
+    runs.push(run(m[0], { italics: true }));
+    last = m.index + m[0].length;
+  }
+  if (last < text.length) runs.push(run(text.slice(last)));
+  return runs;
+}
+
+/** A journal-style table: rules above and below the header and under the last row. */
+function journalTable(head: string[], body: string[][], numbersFrom: number): Table {
+  const rows = [
+    new TableRow({ tableHeader: true, children: head.map((h, i) => cell(headerRuns(h), { left: i < numbersFrom, top: true, bottom: true })) }),
+    ...body.map((r, ri) => new TableRow({ children: r.map((c, i) => cell([run(c)], { left: i < numbersFrom, bottom: ri === body.length - 1 })) })),
+  ];
+  return new Table({
+    rows,
+    width: { size: 100, type: WidthType.PERCENTAGE },
+    borders: { top: NONE, bottom: NONE, left: NONE, right: NONE, insideHorizontal: NONE, insideVertical: NONE },
+  });
 }
 
 /** A .docx file (bytes) with the recomputed table. */
@@ -50,17 +79,30 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
     ...o.terms.map((r) => [termLabel(r.term), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)]),
     ['Residual', formatSS(o.residual.ss), formatDf(o.residual.df), formatSS(o.residual.ms), '', '', ''],
   ];
-  const rows = [
-    new TableRow({ tableHeader: true, children: head.map((h, i) => cell(headerRuns(h), { left: i === 0, top: true, bottom: true })) }),
-    ...body.map(
-      (r, ri) => new TableRow({ children: r.map((c, i) => cell([run(c)], { left: i === 0, bottom: ri === body.length - 1 })) }),
-    ),
-  ];
-  const table = new Table({
-    rows,
-    width: { size: 100, type: WidthType.PERCENTAGE },
-    borders: { top: NONE, bottom: NONE, left: NONE, right: NONE, insideHorizontal: NONE, insideVertical: NONE },
-  });
+  const table = journalTable(head, body, 1);
+  const extra = extraTables(o).flatMap((t, i) => [
+    new Paragraph({ children: [run(`Table ${i + 2}`, { bold: true })], spacing: { before: 360, after: 120 } }),
+    new Paragraph({ children: [run(t.title, { italics: true })], spacing: { after: 120 } }),
+    journalTable(t.head, t.rows, t.numbersFrom),
+    new Paragraph({ children: [run('Note. ', { italics: true }), run(`${t.note.replace(/^Note\.\s*/, '')} ${t.analysis}`)], spacing: { before: 120 } }),
+  ]);
+  const levene = leveneLine(o);
+  const compared: Array<Paragraph | Table> = [];
+  if (o.comparison) {
+    const c = o.comparison;
+    compared.push(
+      new Paragraph({ children: [run(`Compared with ${c.reportedFile}`, { bold: true })], spacing: { before: 360, after: 120 } }),
+      new Paragraph({ children: [run(`Read from: ${c.sources.join(', ')}.`)], spacing: { after: 120 } }),
+      journalTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells), 3),
+      new Paragraph({ children: [run(summaryLine(o))], spacing: { before: 120 } }),
+    );
+    const explanations = explanationLines(o);
+    if (explanations.length > 0) {
+      compared.push(new Paragraph({ children: [run('What reproduces the reported numbers', { bold: true })], spacing: { before: 240, after: 120 } }));
+      for (const e of explanations) compared.push(new Paragraph({ children: [run(e)], spacing: { after: 60 } }));
+    }
+    if (o.impliedN) compared.push(new Paragraph({ children: [run(o.impliedN.note)], spacing: { before: 120 } }));
+  }
   const kind = o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance';
   const document = new Document({
     creator: 'plumbline refit',
@@ -71,7 +113,10 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
           new Paragraph({ children: [run('Table 1', { bold: true })], spacing: { after: 120 } }),
           new Paragraph({ children: [run(`${kind} of ${o.outcome}`, { italics: true })], spacing: { after: 120 } }),
           table,
-          new Paragraph({ children: [run('Note. ', { italics: true }), run(tableNote(o).replace(/^Note\.\s*/, ''))], spacing: { before: 120 } }),
+          new Paragraph({ children: [run('Note. ', { italics: true }), run(tableNote(o).replace(/^Note\.\s*/, '')), run(' '), ...symbolRuns(`${fitLine(o)}.`)], spacing: { before: 120 } }),
+          ...extra,
+          ...(levene ? [new Paragraph({ children: symbolRuns(levene), spacing: { before: 240 } })] : []),
+          ...compared,
         ],
       },
     ],

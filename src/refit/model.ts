@@ -1,6 +1,6 @@
 import { fUpperTail } from '../stats/fDistribution.js';
 import { CellAccumulator, type NumericProduct } from './accumulate.js';
-import { ModelFrameReader, streamRows, type DataSource, type VariableInfo, type VariableReader } from './data.js';
+import { ModelFrameReader, streamRows, type CompleteRowSink, type DataSource, type VariableInfo, type VariableReader } from './data.js';
 import { RefitError } from './errors.js';
 import { factorOfBlocks, sequentialSS, solveUpper, solveUpperTransposed, type Matrix } from './leastSquares.js';
 import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type ResolvedSpec } from './spec.js';
@@ -111,6 +111,14 @@ export class FittedModel {
   readonly residualDf: number;
   /** Overall means of the numeric predictors (raw values), by numeric slot. */
   readonly numericMeans: number[];
+  /**
+   * Every combination of factor levels with data: final level indices (by
+   * factor slot), rows, and the cell's triangular factor of [1, numeric
+   * basis, outcome delta] (accumulate.ts).
+   */
+  readonly cells: ReadonlyArray<{ levels: Int32Array; n: number; r: Float64Array }>;
+  /** The outcome's values (deltas from its origin) of each cell, in the order of `cells`, when the fit was asked to keep them. */
+  readonly outcomeByCell: ReadonlyArray<readonly number[]> | undefined;
 
   constructor(
     readonly spec: ResolvedSpec,
@@ -118,6 +126,7 @@ export class FittedModel {
     readonly droppedRows: number,
     private readonly acc: CellAccumulator,
     readers: readonly VariableReader[],
+    keptOutcome?: ReadonlyMap<string, number[]>,
   ) {
     const factorReaders = readers.filter((r) => r.kind === 'factor').sort((a, b) => a.slot - b.slot);
     const numericReaders = readers.filter((r) => r.kind === 'numeric').sort((a, b) => a.slot - b.slot);
@@ -129,7 +138,16 @@ export class FittedModel {
       n: c.n,
       r: c.r,
       levels: Int32Array.from(c.levels, (l, i) => remaps[i]![l]!),
+      kept: keptOutcome?.get(Array.prototype.join.call(c.levels, ',')),
     }));
+    // In level order, the first factor varying slowest: the order a table of cells is read in.
+    // (A sorted copy: the fit below stacks the cells in the order they were met, as before.)
+    const ordered = [...cells].sort((x, y) => {
+      for (let i = 0; i < x.levels.length; i++) if (x.levels[i] !== y.levels[i]) return x.levels[i]! - y.levels[i]!;
+      return 0;
+    });
+    this.cells = ordered.map(({ levels, n, r }) => ({ levels, n, r }));
+    this.outcomeByCell = keptOutcome === undefined ? undefined : ordered.map((c) => c.kept ?? []);
     this.n = acc.n;
     this.checkData(cells);
     this.buildColumns();
@@ -426,13 +444,36 @@ function productSets(spec: ResolvedSpec): (variables: readonly VariableReader[])
   };
 }
 
-/** Reads the data (streaming) and fits the model described by `specInput` (validated here). */
-export async function fitModel(source: DataSource, specInput: unknown): Promise<FittedModel> {
+/** Passes rows on to the accumulator and keeps each row's outcome by cell (for Levene's test, which needs the values). */
+class OutcomeKeeper implements CompleteRowSink {
+  readonly values = new Map<string, number[]>();
+  private outcome = 0;
+  constructor(private readonly inner: CellAccumulator) {}
+  start(variables: readonly VariableReader[]): void {
+    this.inner.start(variables);
+    this.outcome = variables.filter((v) => v.kind === 'numeric').length - 1;
+  }
+  add(levelIndex: Int32Array, deltas: Float64Array): void {
+    this.inner.add(levelIndex, deltas);
+    const key = Array.prototype.join.call(levelIndex, ',');
+    let list = this.values.get(key);
+    if (list === undefined) this.values.set(key, (list = []));
+    list.push(deltas[this.outcome]!);
+  }
+}
+
+/**
+ * Reads the data (streaming) and fits the model described by `specInput`
+ * (validated here). `keepOutcome` also keeps every analysed outcome value
+ * (memory grows with the rows), as Levene's test needs.
+ */
+export async function fitModel(source: DataSource, specInput: unknown, options: { keepOutcome?: boolean } = {}): Promise<FittedModel> {
   const spec = parseAnalysisSpec(specInput);
   const acc = new CellAccumulator(productSets(spec));
-  const frame = new ModelFrameReader({ spec, sink: acc });
+  const keeper = options.keepOutcome ? new OutcomeKeeper(acc) : undefined;
+  const frame = new ModelFrameReader({ spec, sink: keeper ?? acc });
   await streamRows(source, frame);
-  return new FittedModel(spec, frame.describe(), frame.droppedRows, acc, frame.variables);
+  return new FittedModel(spec, frame.describe(), frame.droppedRows, acc, frame.variables, keeper?.values);
 }
 
 /** Reads the data and returns the ANOVA/ANCOVA table of the type in the description (default 3). */

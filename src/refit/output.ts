@@ -2,7 +2,10 @@ import { z } from 'zod';
 import type { Comparison } from './compare.js';
 import type { ExplainResult, ImpliedN } from './explain.js';
 import type { AnovaTable, Coding, FittedModel } from './model.js';
+import { marginalMeans, pairwiseComparisons, plannedContrast, simpleComparisons, type Adjustment, type PairwiseComparison } from './marginalMeans.js';
 import type { ReportedSet } from './reportedTable.js';
+import { ADJUSTMENT_NAMES } from './spec.js';
+import { cellDescriptives, coefficientTable, leveneTest, modelFit } from './summaries.js';
 
 /**
  * The refit command's JSON output, defined with zod; schema/refit.schema.json
@@ -83,6 +86,54 @@ export const impliedNSchema = z.object({
   note: z.string(),
 });
 
+const levelSchema = z.object({
+  factor: z.string(),
+  level: z.string().describe('Level code as in the data'),
+  label: z.string().describe('Label from the analysis description, else the code'),
+});
+
+export const marginalMeansSchema = z.object({
+  term: z.string().describe('The factor, or factors joined by ":", whose means these are'),
+  within: z.string().optional().describe('Simple comparisons: the factor within each of whose levels the means are compared (the means are then cells, this factor first)'),
+  means: z.array(
+    z.object({ levels: z.array(levelSchema), label: z.string(), mean: num, se: num, df: z.number(), lower: num, upper: num }),
+  ),
+  pairwise: z
+    .object({
+      adjust: z.enum(ADJUSTMENT_NAMES),
+      method: z.string().describe('The adjustment in words, as the reports print it'),
+      comparisons: z.array(
+        z.object({
+          within: z.string().optional().describe('Label of the level of the within factor this comparison belongs to'),
+          first: z.string(),
+          second: z.string(),
+          estimate: num.describe('first - second'),
+          se: num,
+          df: z.number(),
+          t: num,
+          p: num.describe('Adjusted p (unadjusted when adjust is "none")'),
+          pUnadjusted: num,
+          lower: num.describe('Lower bound of the interval at confidenceLevel, adjusted like p (Bonferroni intervals for Holm)'),
+          upper: num,
+        }),
+      ),
+    })
+    .optional(),
+});
+
+export const contrastOutputSchema = z.object({
+  name: z.string(),
+  term: z.string(),
+  weights: z.array(z.object({ label: z.string(), weight: z.number() })),
+  estimate: num,
+  se: num,
+  df: z.number(),
+  t: num,
+  p: num.describe('Two-sided, unadjusted'),
+  lower: num,
+  upper: num,
+});
+
 export const refitOutputSchema = z.object({
   data: z.string().describe('The data file as given'),
   model: z.string(),
@@ -98,6 +149,33 @@ export const refitOutputSchema = z.object({
   covariates: z.array(z.string()),
   terms: z.array(anovaRowSchema),
   residual: z.object({ ss: num, df: z.number(), ms: num }),
+  fit: z.object({ rSquared: num, adjustedRSquared: num }),
+  confidenceLevel: z.number().describe('Level of every interval (0.95)'),
+  cellWeights: z
+    .enum(['equal', 'proportional'])
+    .describe('How marginal means and contrasts weight the levels of the factors they average over: equally, or by their share of the analysed rows'),
+  covariatesAt: z
+    .array(z.object({ name: z.string(), value: z.number(), from: z.enum(['mean', 'given']).describe('Its mean over the analysed rows, or the value given (--at)') }))
+    .describe('Where the covariates are held for marginal means and contrasts'),
+  descriptives: z
+    .array(z.object({ levels: z.array(levelSchema), label: z.string(), n: z.number().int(), mean: num, sd: num }))
+    .describe('Unadjusted n, mean and SD (n - 1) of the outcome in every cell of the factors'),
+  coefficients: z
+    .array(z.object({ name: z.string(), estimate: num, se: num, t: num, df: z.number(), p: num, lower: num, upper: num }))
+    .optional()
+    .describe('Regression coefficients of the design columns in the coding fitted (intercept at raw covariate values), when asked for'),
+  marginalMeans: z.array(marginalMeansSchema).optional().describe('Estimated marginal (covariate-adjusted) means, when asked for'),
+  contrasts: z.array(contrastOutputSchema).optional().describe('Planned contrasts of marginal means, when asked for'),
+  levene: z
+    .object({
+      center: z.enum(['median', 'mean']).describe('Absolute deviations from each cell\'s median (Brown-Forsythe) or mean (Levene)'),
+      groups: z.number().int(),
+      F: num,
+      df1: z.number(),
+      df2: z.number(),
+      p: num,
+    })
+    .optional(),
   verdict: z.enum(['matches', 'differs', 'nothing reported']),
   comparison: comparisonSchema.optional(),
   explanations: z.array(explanationSchema).optional(),
@@ -156,6 +234,125 @@ export interface RefitResult {
   impliedN?: ImpliedN | null;
 }
 
+const CONFIDENCE = 0.95;
+
+function levelsOf(model: FittedModel, term: string, codes: readonly string[]): Array<z.infer<typeof levelSchema>> {
+  return term.split(':').map((factor, i) => {
+    const v = model.factorVars.find((f) => f.name === factor.trim());
+    const level = codes[i]!;
+    return { factor: factor.trim(), level, label: v?.labels.get(level) ?? level };
+  });
+}
+
+/** The adjustment in words; Tukey is named Tukey-Kramer when the comparisons' standard errors differ (unequal cells). */
+export function adjustmentMethod(adjust: Adjustment, comparisons: number, means: number, unequal: boolean): string {
+  switch (adjust) {
+    case 'tukey':
+      return `${unequal ? 'Tukey-Kramer' : 'Tukey'} (studentized range, ${means} means)`;
+    case 'bonferroni':
+      return `Bonferroni (${comparisons} comparisons)`;
+    case 'holm':
+      return `Holm (step-down, ${comparisons} comparisons; intervals Bonferroni)`;
+    case 'sidak':
+      return `Šidák (${comparisons} comparisons)`;
+    case 'scheffe':
+      return `Scheffé (all contrasts of ${means} means)`;
+    default:
+      return 'none (unadjusted p and intervals)';
+  }
+}
+
+type ComparisonOut = NonNullable<z.infer<typeof marginalMeansSchema>['pairwise']>['comparisons'][number];
+
+function comparisonOut(c: PairwiseComparison, first: string, second: string, within?: string): ComparisonOut {
+  return {
+    ...(within === undefined ? {} : { within }),
+    first,
+    second,
+    estimate: finite(c.estimate),
+    se: finite(c.se),
+    df: c.df,
+    t: finite(c.t),
+    p: finite(c.p),
+    pUnadjusted: finite(c.pUnadjusted),
+    lower: finite(c.lower),
+    upper: finite(c.upper),
+  };
+}
+
+/** True when the comparisons' standard errors differ (unequal cells: Tukey-Kramer rather than Tukey). */
+function unequalErrors(pairs: readonly PairwiseComparison[]): boolean {
+  const ses = pairs.map((c) => c.se);
+  return ses.some((se) => Math.abs(se - ses[0]!) > 1e-9 * ses[0]!);
+}
+
+function meansOutput(model: FittedModel, term: string): z.infer<typeof marginalMeansSchema> {
+  const spec = model.spec;
+  const names = term.split(':').map((n) => n.trim());
+  const adjust = spec.adjust ?? 'tukey';
+  const meanRow = (codes: string[], allNames: string[], m: { emmean: number; se: number; df: number; lower: number; upper: number }) => {
+    const levels = levelsOf(model, allNames.join(':'), codes);
+    return { levels, label: levels.map((l) => l.label).join(', '), mean: finite(m.emmean), se: finite(m.se), df: m.df, lower: finite(m.lower), upper: finite(m.upper) };
+  };
+  if (spec.within !== undefined) {
+    const within = spec.within;
+    const families = simpleComparisons(model, names, within, { adjust, level: CONFIDENCE, at: spec.at, weights: spec.weights });
+    const rows = families.flatMap((f) => f.means.map((m) => meanRow([f.within.level, ...names.map((n) => m.levels[n]!)], [within, ...names], m)));
+    const comparisons: ComparisonOut[] = [];
+    for (const f of families) {
+      const labels = f.means.map((m) => levelsOf(model, names.join(':'), names.map((n) => m.levels[n]!)).map((l) => l.label).join(', '));
+      let index = 0;
+      for (let i = 0; i < labels.length; i++) for (let j = i + 1; j < labels.length; j++) comparisons.push(comparisonOut(f.comparisons[index++]!, labels[i]!, labels[j]!, f.within.label));
+    }
+    const all = families.flatMap((f) => f.comparisons);
+    const k = families[0]?.means.length ?? 0;
+    const method = `${adjustmentMethod(adjust, families[0]?.comparisons.length ?? 0, k, unequalErrors(all))}, within each level of ${within}`;
+    return { term: names.join(':'), within, means: rows, pairwise: { adjust, method, comparisons } };
+  }
+  const means = marginalMeans(model, term, { level: CONFIDENCE, at: spec.at, weights: spec.weights });
+  const rows = means.map((m) => meanRow(names.map((n) => m.levels[n]!), names, m));
+  const out: z.infer<typeof marginalMeansSchema> = { term: names.join(':'), means: rows };
+  if (spec.pairwise || spec.adjust !== undefined) {
+    const pairs = pairwiseComparisons(model, names, { adjust, level: CONFIDENCE, at: spec.at, weights: spec.weights });
+    const comparisons: ComparisonOut[] = [];
+    let index = 0;
+    for (let i = 0; i < rows.length; i++) for (let j = i + 1; j < rows.length; j++) comparisons.push(comparisonOut(pairs[index++]!, rows[i]!.label, rows[j]!.label));
+    out.pairwise = { adjust, method: adjustmentMethod(adjust, pairs.length, rows.length, unequalErrors(pairs)), comparisons };
+  }
+  return out;
+}
+
+function contrastsOutput(model: FittedModel): Array<z.infer<typeof contrastOutputSchema>> {
+  return model.spec.contrasts.map((c) => {
+    const names = c.term.split(':').map((n) => n.trim());
+    let weights: number[] | Record<string, number>;
+    if (Array.isArray(c.weights)) weights = c.weights;
+    else {
+      // Keys are level codes or labels: an object without a prototype, so every key is a level.
+      weights = Object.create(null) as Record<string, number>;
+      for (const [key, w] of c.weights) weights[key] = w;
+    }
+    const result = plannedContrast(model, names, weights, { level: CONFIDENCE, at: model.spec.at, weights: model.spec.weights });
+    const means = marginalMeans(model, names, { level: CONFIDENCE, at: model.spec.at, weights: model.spec.weights });
+    const labels = means.map((m) => names.map((n) => { const code = m.levels[n]!; return model.factorVars.find((v) => v.name === n)?.labels.get(code) ?? code; }).join(', '));
+    const weighted = labels.map((label, i) => ({ label, weight: result.weights[i]! }));
+    const side = (sign: number) => weighted.filter((w) => Math.sign(w.weight) === sign).map((w) => w.label).join(' + ');
+    const name = c.name ?? `${side(1)} vs ${side(-1)}`;
+    return {
+      name,
+      term: names.join(':'),
+      weights: weighted,
+      estimate: finite(result.estimate),
+      se: finite(result.se),
+      df: result.df,
+      t: finite(result.t),
+      p: finite(result.p),
+      lower: finite(result.lower),
+      upper: finite(result.upper),
+    };
+  });
+}
+
 /** Builds the JSON output object (validated against the schema). */
 export function buildRefitOutput(result: RefitResult): RefitOutput {
   const { model, table } = result;
@@ -175,8 +372,40 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
     covariates: model.numericVars.slice(0, -1).map((v) => v.name),
     terms: t.terms,
     residual: t.residual,
+    fit: (() => {
+      const f = modelFit(model);
+      return { rSquared: finite(f.rSquared), adjustedRSquared: finite(f.adjustedRSquared) };
+    })(),
+    confidenceLevel: CONFIDENCE,
+    cellWeights: model.spec.weights,
+    covariatesAt: model.numericVars.slice(0, -1).map((v, slot) => {
+      const given = model.spec.at.get(v.name);
+      return given === undefined ? { name: v.name, value: model.numericMeans[slot]!, from: 'mean' as const } : { name: v.name, value: given, from: 'given' as const };
+    }),
+    descriptives: cellDescriptives(model).map((d) => {
+      const levels = model.factorVars.map((v, i) => ({ factor: v.name, level: d.levels[i]!, label: v.labels.get(d.levels[i]!) ?? d.levels[i]! }));
+      return { levels, label: d.label, n: d.n, mean: finite(d.mean), sd: finite(d.sd) };
+    }),
     verdict: result.comparison === undefined ? 'nothing reported' : result.comparison.allMatch ? 'matches' : 'differs',
   };
+  if (model.spec.coefficients) {
+    out.coefficients = coefficientTable(model, CONFIDENCE).map((c) => ({
+      name: c.name,
+      estimate: finite(c.estimate),
+      se: finite(c.se),
+      t: finite(c.t),
+      df: c.df,
+      p: finite(c.p),
+      lower: finite(c.lower),
+      upper: finite(c.upper),
+    }));
+  }
+  if (model.spec.means.length > 0) out.marginalMeans = model.spec.means.map((term) => meansOutput(model, term));
+  if (model.spec.contrasts.length > 0) out.contrasts = contrastsOutput(model);
+  if (model.spec.levene !== undefined) {
+    const l = leveneTest(model, model.spec.levene);
+    out.levene = { center: l.center, groups: l.groups, F: finite(l.F), df1: l.df1, df2: l.df2, p: finite(l.p) };
+  }
   if (result.comparison && result.reported) {
     out.comparison = comparisonOutput(result.comparison, result.reported);
     out.explanations = (result.explained?.explanations ?? []).map((e) => ({

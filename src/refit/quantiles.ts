@@ -1,5 +1,6 @@
 import { studentizedRangeUpperTail } from '../stats/studentizedRange.js';
 import { tUpperTail } from '../stats/tDistribution.js';
+import { fUpperTail } from '../stats/fDistribution.js';
 
 /**
  * Quantiles needed for confidence intervals (src/stats has the tails only).
@@ -40,4 +41,10 @@ export function tQuantileUpper(upperTail: number, df: number): number {
 export function studentizedRangeQuantileUpper(upperTail: number, k: number, df: number): number {
   if (!(upperTail > 0 && upperTail < 1)) return NaN;
   return invertUpperTail((x) => studentizedRangeUpperTail(x, k, df), upperTail);
+}
+
+/** f such that P(F(df1, df2) > f) = upperTail. */
+export function fQuantileUpper(upperTail: number, df1: number, df2: number): number {
+  if (!(upperTail > 0 && upperTail < 1)) return NaN;
+  return invertUpperTail((x) => fUpperTail(x, df1, df2), upperTail);
 }

@@ -38,6 +38,9 @@ export const MAX_COLUMNS_CEILING_REASON =
 
 const levelCode = z.union([z.string(), z.number()]);
 
+/** The adjustments of pairwise comparisons (marginalMeans.ts). */
+export const ADJUSTMENT_NAMES = ['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none'] as const;
+
 const missingCodes = z.union([
   z.string().min(1),
   z.number(),
@@ -92,6 +95,34 @@ export const analysisSpecSchema = z
      * the refit stops with an error naming the factor.
      */
     maxColumns: z.number().int().min(2).max(MAX_COLUMNS_CEILING).default(DEFAULT_MAX_COLUMNS),
+    /** Estimated marginal means to report: a factor ("group") or a combination of factors ("group:time"). */
+    means: z.array(z.string().min(1)).default([]),
+    /** Pairwise comparisons of every set of means in `means`. */
+    pairwise: z.boolean().default(false),
+    /** Adjustment of the pairwise comparisons' p-values and intervals (default tukey); giving it asks for the comparisons. */
+    adjust: z.enum(ADJUSTMENT_NAMES).optional(),
+    /** Planned contrasts of the marginal means of a factor or combination, weights in the levels' order or by level. */
+    contrasts: z
+      .array(
+        z
+          .object({
+            term: z.string().min(1),
+            weights: z.union([z.array(z.number()).min(2), namedEntries(z.number())]),
+            name: z.string().min(1).optional(),
+          })
+          .strict(),
+      )
+      .default([]),
+    /** How marginal means weight the levels of the factors they average over: equally, or by their share of the analysed rows. */
+    weights: z.enum(['equal', 'proportional']).default('equal'),
+    /** Print the regression coefficients of the design columns. */
+    coefficients: z.boolean().default(false),
+    /** Simple comparisons: the means of each `means` term compared within each level of this factor. */
+    within: z.string().min(1).optional(),
+    /** Values at which covariates are held for marginal means and contrasts (default: their means). */
+    at: namedEntries(z.number()).default(() => new Map()),
+    /** Levene's test of equal variances across the cells of the factors, centred on the cells' medians or means. */
+    levene: z.enum(['median', 'mean']).optional(),
   })
   .strict();
 
@@ -193,6 +224,51 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
     if (name === formula.outcome) {
       throw new RefitError('INVALID_SPEC', `Analysis description: the outcome "${name}" cannot also be a factor.`, { field: `factors.${name}` });
     }
+  }
+  const variables = new Set(formula.terms.flatMap((t) => t.variables));
+  const checkTerm = (term: string, field: string, what: string) => {
+    const names = term.split(':').map((n) => n.trim());
+    for (const name of names) {
+      if (name === '' || !variables.has(name)) {
+        throw new RefitError(
+          'INVALID_SPEC',
+          `${what} "${term}": ${name === '' ? 'an empty factor name' : `'${name}' is not in the model ${spec.model}`} (its factors and covariates: ${[...variables].join(', ')}); name factors of the model, one or several joined by ":", e.g. "${[...variables][0] ?? 'group'}".`,
+          { field },
+        );
+      }
+    }
+    if (new Set(names).size !== names.length) {
+      throw new RefitError('INVALID_SPEC', `${what} "${term}" names a factor twice; name each factor once.`, { field });
+    }
+  };
+  spec.means.forEach((term, i) => checkTerm(term, `means.${i}`, 'Marginal means'));
+  for (const name of spec.at.keys()) {
+    if (!variables.has(name)) {
+      throw new RefitError('INVALID_SPEC', `Covariate value "${name}": '${name}' is not in the model ${spec.model} (its factors and covariates: ${[...variables].join(', ')}).`, {
+        field: `at.${name}`,
+      });
+    }
+  }
+  spec.contrasts.forEach((c, i) => checkTerm(c.term, `contrasts.${i}.term`, 'Contrast'));
+  if (spec.within !== undefined) {
+    checkTerm(spec.within, 'within', 'Comparisons within');
+    if (spec.within.includes(':')) {
+      throw new RefitError('INVALID_SPEC', `Comparisons within "${spec.within}": name one factor, whose levels each get their own comparisons.`, { field: 'within' });
+    }
+    spec.means.forEach((term, i) => {
+      if (term.split(':').map((n) => n.trim()).includes(spec.within!)) {
+        throw new RefitError(
+          'INVALID_SPEC',
+          `Marginal means "${term}" are to be compared within each level of '${spec.within}', so they cannot include '${spec.within}' itself; name the other factor(s), e.g. "${term.split(':').map((n) => n.trim()).filter((n) => n !== spec.within).join(':') || 'group'}".`,
+          { field: `means.${i}` },
+        );
+      }
+    });
+  }
+  if ((spec.pairwise || spec.adjust !== undefined || spec.within !== undefined) && spec.means.length === 0) {
+    throw new RefitError('INVALID_SPEC', 'Pairwise comparisons compare marginal means: name the factor whose means to compare (--means <factor>, or "means" in the description).', {
+      field: 'pairwise',
+    });
   }
   const missingRules = new Map<string, MissingRule>();
   for (const [column, codes] of spec.missing) {

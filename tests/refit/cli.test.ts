@@ -30,6 +30,7 @@ describe('plumbline refit on the demo study', () => {
     expect(out).toMatch(/route\s+Route\s+SS\s+1144\.25\s+230\.0230\s+\+914\.2270\s+differs/);
     expect(out).toMatch(/1\. Missing-value codes left in the data as numbers \(mood=99; loneliness=6-8 not removed\): all 27 reported numbers match/);
     expect(out).toContain('The reported error df 143 implies N = 150');
+    expect(out).toMatch(/Residual\s+1,661\.00\s+125\s+13\.29/); // thousands separated (APA)
   });
 
   it('gives the same result with the model and codes on the command line', async () => {
@@ -71,7 +72,7 @@ describe('plumbline refit on the demo study', () => {
 
   it('writes Markdown, a self-contained HTML table and a Word table', async () => {
     const md = await run(['refit', DATA, '--spec', SPEC, '--reported', PAPER, '--format', 'md']);
-    expect(md.out).toContain('| Source | SS | df | MS | F | p | ηp² |');
+    expect(md.out).toContain('| Source | *SS* | *df* | *MS* | *F* | *p* | *η*p² |');
     expect(md.out).toContain('## What reproduces the reported numbers');
 
     const htmlFile = join(tmp, 'table.html');
@@ -90,6 +91,20 @@ describe('plumbline refit on the demo study', () => {
     expect(value).toContain('route × pace');
     expect(value).toContain('540.07');
     expect(value).toContain('sum-to-zero (deviation) coding');
+  });
+});
+
+describe('plumbline refit --format docx with a reported table', () => {
+  it('carries the comparison, the slip that reproduces the reported numbers and the implied N', async () => {
+    const docxFile = join(tmp, 'compared.docx');
+    const { code } = await run(['refit', DATA, '--spec', SPEC, '--reported', PAPER, '--format', 'docx', '--output', docxFile]);
+    expect(code).toBe(1);
+    const { value } = await mammoth.convertToHtml({ path: docxFile });
+    expect(value).toContain('<strong>Compared with corpus-demo/refit/harbour-walks-manuscript.md</strong>');
+    expect(value).toMatch(/<td><p>route<\/p><\/td><td><p>Route<\/p><\/td><td><p>SS<\/p><\/td><td><p>1144\.25<\/p><\/td><td><p>230\.0230<\/p><\/td><td><p>\+914\.2270<\/p><\/td><td><p>differs<\/p><\/td>/);
+    expect(value).toContain('<strong>What reproduces the reported numbers</strong>');
+    expect(value).toContain('1. Missing-value codes left in the data as numbers (mood=99; loneliness=6-8 not removed): all 27 reported numbers match');
+    expect(value).toContain('The reported error df 143 implies N = 150');
   });
 });
 
