@@ -159,6 +159,25 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads a chi-square column with its df in the header and stars for p after group columns, crushed and padded', () => {
+    const header = ['Item', 'Women', 'Men', 'χ2(1)'];
+    const rows = [['Q1 agree', '30 (50.0)', '31 (51.7)', '2.40'], ['Q2 agree', '41 (68.3)', '42 (70.0)', '8.31**'], ['Q3 agree', '22 (36.7)', '23 (38.3)', '4.12*']];
+    const widths = header.map((_, column) => Math.max(...[header, ...rows].map((row) => row[column]!.length)) + 3);
+    const copies = {
+      crushed: [header, ...rows].map((row) => row.join(' ')).join('\n'),
+      padded: [header, ...rows].map((row) => row.map((cell, column) => cell.padEnd(widths[column]!)).join('').trimEnd()).join('\n'),
+    };
+    for (const [copy, table] of Object.entries(copies)) {
+      const document = scanTextJson(`Table 3. Answers by group\n${table}\nNote. *p < .05. **p < .01.\n\nNext.\n`);
+      expect(readAs(document.statistics), copy).toEqual([
+        ['chi2', 2.4, [1]],
+        ['chi2', 8.31, [1]],
+        ['chi2', 4.12, [1]],
+      ]);
+      expect(document.statistics.map((statistic) => statistic.p?.value ?? null), copy).toEqual([null, 0.01, 0.05]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

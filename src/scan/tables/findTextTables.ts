@@ -836,7 +836,9 @@ function readHeader(line: Line): HeaderLine | null {
     const role = classifyHeader(column.text);
     return role.role === 'p' || (role.role === 'statistic' && role.pInCell === true);
   }).length;
-  const groupsThenTest = unknown === 1 && statisticNames >= 1 && pNames >= 1;
+  // (Or a test's statistic alone as the last column, its p given by marks: "Item Women Men χ2(1)".)
+  const lastNamesStatistic = classifyHeader(columns[columns.length - 1]!.text).role === 'statistic';
+  const groupsThenTest = unknown === 1 && statisticNames >= 1 && (pNames >= 1 || lastNamesStatistic);
   return namesTest && (named >= 3 || statisticNames >= 2 || groupsThenTest) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
 }
 
