@@ -178,6 +178,28 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads a "t/χ2" row under groups\' means ± SD as t tests, and under counts with percentages as chi-square tests, each paired with the P row', () => {
+    // (Values whose p some df can give: t(118) = 2.31 gives about .023; χ2(1) = 5.17 gives about .023.)
+    const table = (cells: [string, string][], statistic: string, values = '2.31 0.92') =>
+      [
+        'Group Anxiety Mood',
+        `Control group (n = 54) ${cells.map(([control]) => control).join(' ')}`,
+        `Training group (n = 66) ${cells.map(([, training]) => training).join(' ')}`,
+        `${statistic} ${values}`,
+        'P 0.023 0.360',
+      ].join('\n');
+    const means = scanTextJson(`Table 3. Comparison between the two groups\n${table([['2.45 ± 0.19', '2.31 ± 0.41'], ['1.52 ± 0.09', '1.49 ± 0.22']], 't/χ2')}\n\nNext.\n`);
+    expect(means.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([
+      ['t', 2.31, 0.023],
+      ['t', 0.92, 0.36],
+    ]);
+    const counts = scanTextJson(`Table 3. Comparison between the two groups\n${table([['30 (55.6)', '25 (37.9)'], ['12 (22.2)', '10 (15.2)']], 'χ 2/t', '5.17 0.84')}\n\nNext.\n`);
+    expect(counts.statistics.map((statistic) => statistic.kind)).toEqual(['chi2', 'chi2']);
+    // Means and counts under one such row: which test each value is cannot be told, and none is read.
+    const both = scanTextJson(`Table 3. Comparison between the two groups\n${table([['2.45 ± 0.19', '2.31 ± 0.41'], ['30 (55.6)', '25 (37.9)']], 't/χ2')}\n\nNext.\n`);
+    expect(both.statistics).toEqual([]);
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

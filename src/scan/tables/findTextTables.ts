@@ -556,6 +556,11 @@ function tokenize(text: string): Piece[] {
   for (let index = 0; index < raw.length; index++) {
     const token = raw[index]!;
     const previous = tokens[tokens.length - 1];
+    // "χ 2": the chi-square symbol with its 2 set apart (a superscript copied as a word) is one token.
+    if (previous !== undefined && /^[\u03c7\u03a7]$/.test(previous.text) && /^[2\u00b2]$/.test(token.text) && token.start - previous.end <= 2) {
+      tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
+      continue;
+    }
     // "5.88 × 10−5": a number in scientific notation written with spaces is one token.
     const next = raw[index + 1];
     if (previous !== undefined && next !== undefined && /^[x\u00d7*]$/.test(token.text) && /^[-\u2212\u2013]?[\d.,]+$/.test(previous.text) && /^10(?:\^?[-\u2212\u2013+]?\d{1,3})$/.test(next.text)) {

@@ -21,7 +21,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, readCell, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, readCell, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
@@ -59,7 +59,7 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
   const title = lines[titleLine];
   if (title === undefined || !TABLE_TITLE.test(title.text)) return null;
   const cells = collectCells(lines, titleLine + 1);
-  const runs = readRuns(cells);
+  const runs = readRuns(cells, (nameLine) => lines.slice(titleLine + 1, nameLine).map((line) => line.text).join('\n'));
   pairRuns(runs);
   const kindOf = (run: Run): string => (run.role.role === 'statistic' ? run.role.kind : '');
   const paired = runs.filter((run, index) => run.kind === 'statistic' && runs.some((other) => other.kind === 'p' && other.pairedWith === index));
@@ -190,12 +190,35 @@ function partsOf(cell: Cell, pattern: RegExp): Cell[] | null {
 }
 
 /** Every name cell with the run of values right after it (an empty cell or a text cell ends a run). */
-function readRuns(cells: (Cell | null)[]): Run[] {
+/**
+ * "t/χ2", "χ2/t", "F/χ2": a row naming two statistics, the chi-square for categorical variables and the other
+ * for continuous ones (common practice in tables comparing groups). Which one the row holds is told by the
+ * cells above it: means with SDs ("2.45 ± 0.19") and no percentages give the other statistic, counts with
+ * percentages and no "±" give the chi-square; anything else leaves the row unread.
+ */
+const TWO_STATISTICS = /^(?:(chi2|x2|chi 2|x 2) ?\/ ?(t|f|z)|(t|f|z) ?\/ ?(chi2|x2|chi 2|x 2))(?: ?(?:values?|tests?))?$/;
+const MEAN_WITH_SD = /\d ?\u00b1 ?\d/;
+/** A count with its share: "30 (55.6)", "30 (55.6%)", "12 (9 %)"; a mean with its SD ("12.3 (4.5)") starts with decimals. */
+const COUNT_WITH_SHARE = /(?:^|\s)\d{1,5} ?\(\d{1,3}(?:\.\d{1,2})? ?%?\)|\d ?%/;
+
+function statisticOfTwo(name: string, above: string): ColumnRole | null {
+  const match = TWO_STATISTICS.exec(headerKey(name));
+  if (match === null) return null;
+  const continuous = (match[2] ?? match[3])!;
+  const means = MEAN_WITH_SD.test(above);
+  const counts = COUNT_WITH_SHARE.test(above);
+  if (means === counts) return null;
+  const kind = counts ? 'chi2' : continuous === 't' ? 't' : continuous === 'f' ? 'F' : 'z';
+  return { role: 'statistic', kind, df: [] };
+}
+
+function readRuns(cells: (Cell | null)[], textAbove: (line: number) => string = () => ''): Run[] {
   const runs: Run[] = [];
   for (let index = 0; index < cells.length; index++) {
     const cell = cells[index];
     if (cell === null || cell === undefined || cell.text.length > 40) continue;
-    const role = classifyHeader(cell.text);
+    const named = classifyHeader(cell.text);
+    const role = named.role === 'result' ? (statisticOfTwo(cell.text, textAbove(cell.line)) ?? named) : named;
     const kind = runKindOf(role);
     if (kind === null) continue;
     const values: Cell[] = [];
@@ -287,8 +310,10 @@ function piecesOf(text: string): ({ text: string; start: number; end: number } |
   // A crushed df row of pairs ("df 2, 57 1, 57") or statistic row of values with df ("F 4.21 (2, 57) 2.11 (1, 57)").
   const withPairs = crushedPairPieces(text);
   if (withPairs !== null) return withPairs;
-  // A crushed line: a name, then values apart by single spaces ("T (14) 10.07 3.48 −0.61").
+  // A crushed line: a name, then values apart by single spaces ("T (14) 10.07 3.48 −0.61"); the chi-square
+  // symbol's 2 set apart ("χ 2 0.918 30.810") belongs to the name.
   const words = [...text.matchAll(/\S+/g)];
+  if (words.length >= 2 && /^[\u03c7\u03a7]$/.test(words[0]![0]) && /^[2\u00b2]$/.test(words[1]![0])) words.splice(0, 2, Object.assign([`${words[0]![0]} ${words[1]![0]}`], { index: words[0]!.index!, input: text }) as RegExpExecArray);
   let first = words.length;
   while (first > 0 && readCell(words[first - 1]![0], 'either').kind === 'number') first--;
   if (first === 0 || first === words.length) {
