@@ -200,6 +200,21 @@ describe('results tables in the shapes papers print them', () => {
     expect(both.statistics).toEqual([]);
   });
 
+  it('reads statistics programs\' ANOVA output with numerator and denominator df columns and a column of marks for p < .05', () => {
+    const tables = [
+      'Effect DFn DFd F p p<.05 ges\ngroup 2 57 4.21 0.0196 * 0.129\ntime 1 57 2.11 0.1518  0.036',
+      'Effect\tdf (num)\tdf (den)\tF\tp\ngroup\t2\t57\t4.21\t.020\ntime\t1\t57\t2.11\t.152',
+      'Effect Num DF Den DF F Value Pr > F\ngroup 2 57 4.21 0.0196\ntime 1 57 2.11 0.1518',
+    ];
+    for (const table of tables) {
+      const document = scanTextJson(`Table 2. Mixed model ANOVA\n${table}\n\nNext.\n`);
+      expect(readAs(document.statistics), table.split('\n')[0]).toEqual([
+        ['F', 4.21, [2, 57]],
+        ['F', 2.11, [1, 57]],
+      ]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

@@ -255,6 +255,12 @@ put(['fonte', 'fuente', 'bron', 'origine', 'fonte di variazione', 'fonte di vari
 put(['f stat', 'f-stat', 'f stat.', 'fvalue', 'fratio', 'f-test value', 'f test value', 'welch f', "welch's f", 'f welch', 'welch-f', 'brown-forsythe f'], { role: 'statistic', kind: 'F', df: [] });
 put(['chi-sq', 'chi sq', 'chi-sq.', 'chi.sq', 'chisq.', 'lr chisq', 'lr chi-square', 'lr chi-sq', 'wald chi-square', 'wald chi square', 'wald chisq', 'wald chi-sq', 'likelihood ratio chi-square', 'likelihood-ratio chi-square'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['df1/df2', 'df1 / df2', 'df1; df2', '(df)', '[df]', '(d.f.)', '(dfs)'], { role: 'df' });
+// The side named in brackets after "df" ("df (num)", "df (error)"): the qualifier says which df, unlike one after a
+// statistic's name, which knownKeyOf drops.
+put(['df (num)', 'df (num.)', 'df (numerator)', 'df (effect)', 'df (hypothesis)', 'df (between)', 'df(num)', 'df (n)'], { role: 'df1' });
+put(['df (den)', 'df (den.)', 'df (denominator)', 'df (error)', 'df (residual)', 'df (within)', 'df(den)', 'df (d)'], { role: 'df2' });
+// A column of marks saying whether each p is under .05 ("p<.05" over "*"), as some programs print beside p.
+put(['p<.05', 'p < .05', 'p<0.05', 'p < 0.05', 'p<.01', 'p < .01'], { role: 'descriptive' });
 put(['g.l.', 'g.l', 'gl.', 'degree of freedom', 'deg. of freedom', 'd.o.f.', 'gdl', 'g.d.l.', 'gradi di libertà'], { role: 'df' });
 // The p of statistics software's chi-square and nonparametric output, and correlation coefficients named in full.
 put(['asymp. sig. (2-sided)', 'asymp. sig. (2-tailed)', 'asymp. sig.', 'asymptotic sig. (2-sided)', 'asymptotic significance (2-sided)', 'asymptotic significance', 'exact sig. (2-sided)', 'exact sig. (2-tailed)', 'exact sig.', 'exact significance (2-sided)', 'sig. asintótica (bilateral)', 'sig. asintotica (bilateral)', 'sig. exacta (bilateral)', 'sig. assintótica (bilateral)', 'asymptotische signifikanz (2-seitig)', 'two-sided p', 'two-tailed p-value', 'p (two-sided)', 'p two-sided'], { role: 'p' });

@@ -286,7 +286,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   if (matrix !== null) return { results: matrix, unread: null, completions: [] };
   // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)",
   // "4.21 (2, 57)", "0.04 (−0.45, 0.54)").
-  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number' || VALUE_SHAPES.has(shapeOf(cell).shape)));
+  // (A header name that reads as a bound, "p<.05" over a column of marks, is a name.)
+  const isValue = (cell: string): boolean => (readCell(cell, 'either').kind === 'number' || VALUE_SHAPES.has(shapeOf(cell).shape)) && classifyHeader(cell).role === 'unknown';
+  let headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some(isValue));
   // A section row right above the first data row ("Photosynthesis") belongs to the body, not the header.
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
