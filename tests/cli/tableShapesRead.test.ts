@@ -215,6 +215,25 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads headers that name an effect beside its statistic and df ("Time effect, F(1,128)", "Sex χ2(1)", "t(58) Post"), crushed and one cell per line', () => {
+    const header = ['Measure', 'Time effect, F(1,128)', 'p', 'Group effect, F(1,128)', 'p'];
+    const rows = [['Anxiety', '4.21', '.042', '6.66', '.011'], ['Mood', '2.11', '.149', '9.02', '.003']];
+    for (const table of [[header, ...rows].map((row) => row.join(' ')).join('\n'), [header, ...rows].flat().join('\n')]) {
+      const document = scanTextJson(`Table 2. Results of the analyses\n${table}\n\nNext.\n`);
+      expect(readAs(document.statistics)).toEqual([
+        ['F', 4.21, [1, 128]],
+        ['F', 6.66, [1, 128]],
+        ['F', 2.11, [1, 128]],
+        ['F', 9.02, [1, 128]],
+      ]);
+    }
+    const chi = scanTextJson('Table 2. Results\nOutcome\tSex χ2(1)\tp\tt(58) Post\tp\nAnxiety\t4.21\t.040\t2.10\t.040\n\nNext.\n');
+    expect(readAs(chi.statistics).sort()).toEqual([
+      ['chi2', 4.21, [1]],
+      ['t', 2.1, [58]],
+    ]);
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

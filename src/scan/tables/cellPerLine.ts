@@ -27,7 +27,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
 
 type Line = TextLine;
@@ -487,7 +487,7 @@ function isValueCell(cell: Cell): boolean {
 
 /** A known column name other than a bare label ("Source" counts too: it starts the header). */
 function isColumnName(text: string): boolean {
-  return text.length <= 40 && isKnownHeader(headerKey(text));
+  return text.length <= 40 && (isKnownHeader(headerKey(text)) || namesEffectWithTest(text));
 }
 
 /** A block title with its df: "Treatment (num. df = 1)", "Condition (df = 2, 57)". */

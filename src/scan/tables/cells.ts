@@ -346,6 +346,10 @@ export function classifyHeader(header: string): ColumnRole {
   if (MIXED_STATISTICS.test(key)) return { role: 'result' };
   const named = statisticWithDf(key);
   if (named !== null) return named;
+  // An effect's name with its test's statistic and df: "Time effect, F(1,128)", "Group: F(2, 57)", "Sex χ2(1)",
+  // "t(58) Time", "F(1, 38)a" (a footnote letter after the brackets).
+  const effectWithTest = statisticOfNamedEffect(key);
+  if (effectWithTest !== null) return effectWithTest;
   const knownKey = knownKeyOf(key);
   const known = knownKey === null ? undefined : ROLE_BY_KEY.get(knownKey);
   if (known) {
@@ -394,6 +398,43 @@ function statisticWithDf(key: string): ColumnRole | null {
   const df = [parts[2], parts[3]].filter((text): text is string => text !== undefined).map((text) => parseReportedNumber(text)!);
   if (df.length !== (knownName.kind === 'F' ? 2 : 1)) return null;
   return { ...knownName, df };
+}
+
+/** A statistic's symbol with its df in brackets, as a header writes it after or before an effect's name. */
+const SYMBOL_WITH_DF = String.raw`(?:f|t|r|chi2|x2) ?[(\[] ?\d{1,5}(?:\.\d{1,3})?(?: ?[,;/] ?\d{1,6}(?:\.\d{1,3})?)? ?[)\]]`;
+const EFFECT_THEN_TEST = new RegExp(String.raw`^([a-z][a-z0-9'×*/ -]{0,40}?)[,:]? (${SYMBOL_WITH_DF})[a-h]?$`);
+const TEST_THEN_EFFECT = new RegExp(String.raw`^(${SYMBOL_WITH_DF})[a-h]?[,:]? ([a-z][a-z0-9'×*/ -]{0,40})$`);
+const TEST_WITH_MARK = new RegExp(String.raw`^(${SYMBOL_WITH_DF})[a-h]$`);
+
+/**
+ * The statistic and df of a header that names an effect beside them (see classifyHeader), or null. The
+ * effect's name must not be a column's name itself ("Cohen d t(58)" is two columns run together), nor hold
+ * another statistic.
+ */
+function statisticOfNamedEffect(key: string): ColumnRole | null {
+  const marked = TEST_WITH_MARK.exec(key);
+  if (marked) return testWithDf(marked[1]!);
+  const match = EFFECT_THEN_TEST.exec(key) ?? TEST_THEN_EFFECT.exec(key);
+  if (match === null) return null;
+  const [name, test] = EFFECT_THEN_TEST.test(key) ? [match[1]!, match[2]!] : [match[2]!, match[1]!];
+  const words = name.trim().split(' ');
+  if (knownKeyOf(name.trim()) !== null || words.some((word) => { const role = ROLE_BY_KEY.get(word)?.role; return role !== undefined && role !== 'label'; })) return null;
+  return testWithDf(test);
+}
+
+/**
+ * Whether a header cell names an effect beside its test's statistic and df ("Time F(1, 128)"). Not part of
+ * isKnownHeader: in a header of single-spaced words, the words before the symbol may be other columns' names
+ * ("Pretest Posttest Time effect, F(1,128)"); where each cell stands alone (one cell per line) it is a name.
+ */
+export function namesEffectWithTest(cell: string): boolean {
+  return statisticOfNamedEffect(headerKey(cell)) !== null;
+}
+
+/** The statistic with df a "symbol(df)" key names, with as many df as its kind takes; null otherwise. */
+function testWithDf(test: string): ColumnRole | null {
+  const role = classifyHeader(test);
+  return role.role === 'statistic' && role.df.length === (role.kind === 'F' ? 2 : 1) ? role : null;
 }
 
 /** Words that join two names: a header they start or join is more than one column's name. */
