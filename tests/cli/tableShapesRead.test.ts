@@ -234,6 +234,18 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('reads a row that prints one block of a table whose side-by-side blocks are alike, naming no block', () => {
+    const cells = ['Effect', 'Growth', '', 'Survival', '', '', 'df', 'F', 'df', 'F', 'Site', '1, 28', '4.21', '1, 28', '6.66', 'Season', '2, 56', '3.40', 'Site × Season', '2, 56', '1.10', '2, 56', '0.52'];
+    const document = scanTextJson(`Table 2. Mixed models for growth and survival\n${cells.map((cell) => (cell === '' ? ' ' : cell)).join('\n')}\n\nNext.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [1, 28]],
+      ['F', 6.66, [1, 28]],
+      ['F', 3.4, [2, 56]],
+      ['F', 1.1, [2, 56]],
+      ['F', 0.52, [2, 56]],
+    ]);
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

@@ -316,6 +316,8 @@ export function placementIsClear(
   placed: { columns: number[]; absorbed: number },
   keyColumns: number[],
   families?: readonly (ShapeFamily | null)[],
+  /** Set when the placement is clear only because its rivals read the same under another, alike block. */
+  found: { blockUnknown: boolean } = { blockUnknown: false },
 ): boolean {
   const rest = cells.slice(placed.absorbed);
   const best = placeFrom(rest, roles, undefined, families);
@@ -324,8 +326,32 @@ export function placementIsClear(
     const cellIndex = placed.columns.indexOf(column);
     if (cellIndex < placed.absorbed) continue;
     const alternative = placeFrom(rest, roles, { cell: cellIndex - placed.absorbed, column }, families);
-    if (alternative !== null && alternative.score > best.score - CLEAR_MARGIN) return false;
+    // (An alternative that reads the same, the cells under columns of the same meanings in another block of a
+    // side-by-side table whose blocks are alike, "D.f. | F ratio | D.f. | F ratio" over a row that prints one
+    // block, leaves the reading clear: the statistic, its df and its p are the same either way.)
+    if (alternative !== null && alternative.score > best.score - CLEAR_MARGIN) {
+      if (!readsTheSame(best.columns, alternative.columns, roles)) return false;
+      found.blockUnknown = true;
+    }
   }
+  return true;
+}
+
+/** Whether two placements put every cell under columns of the same meaning (role, statistic and its df). */
+function readsTheSame(first: number[], second: number[], roles: ColumnRole[]): boolean {
+  return first.every((column, index) => {
+    const other = second[index]!;
+    if (column < 0 || other < 0) return column === other;
+    return sameMeaning(roles[column]!, roles[other]!);
+  });
+}
+
+function sameMeaning(a: ColumnRole, b: ColumnRole): boolean {
+  if (a.role !== b.role) return false;
+  if (a.role === 'statistic' && b.role === 'statistic') {
+    return a.kind === b.kind && a.dfInCell === b.dfInCell && a.pInCell === b.pInCell && a.df.map((df) => df.value).join() === b.df.map((df) => df.value).join();
+  }
+  if (a.role === 'effect' && b.role === 'effect') return a.effect === b.effect;
   return true;
 }
 

@@ -381,7 +381,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // table): in repeated-measures output it is tested against an error term the layout does not show.
   const singleErrorTerm = errorRows.filter(Boolean).length === 1;
   for (let index = 0; index < virtualRows.length; index++) {
-    const { cells: row, at: cellsAt, partial, guessed } = virtualRows[index]!;
+    const { cells: row, at: cellsAt, partial, guessed, blockUnknown } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     // A Total row of an ANOVA table prints no statistic; a row named "Total" that does is a measure's ("Total
     // biomass" shortened to "Total" under a section line).
@@ -415,7 +415,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         row,
         cellsAt,
         segment,
-        multiple: segments.length > 1,
+        multiple: segments.length > 1 && blockUnknown !== true,
         errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
         noteDf,
         noteN,
@@ -1085,6 +1085,8 @@ interface VirtualRow {
   partial?: boolean;
   /** Placed by the best guess among several placements (numbers given to the label or left out). */
   guessed?: boolean;
+  /** Placed in one of several blocks named alike, which one the row does not say: its results name no block. */
+  blockUnknown?: boolean;
 }
 
 /**
@@ -1178,7 +1180,8 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
         slots.every((slot, order) => slot === order) &&
         placed.columns.every((slot, offset) => slot < 0 || fit(valueRoles[slot]!, toPlace[offset]!.shape) > 0) &&
         valueRoles.every((role, slot) => role.role !== 'statistic' || slot < slots.length);
-      if (givesStatistic && filled < valueRoles.length && !prefix && !placementIsClear(toPlace, valueRoles, placed, keyColumns, schema.families)) {
+      const clarity = { blockUnknown: false };
+      if (givesStatistic && filled < valueRoles.length && !prefix && !placementIsClear(toPlace, valueRoles, placed, keyColumns, schema.families, clarity)) {
         unplaced++;
         continue;
       }
@@ -1240,7 +1243,11 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
       const inOrder = absorbedClearly && toPlace.length - placed.absorbed === valueRoles.length && placed.columns.slice(placed.absorbed).every((slot, offset) => slot === offset);
       const guessed = !inOrder || placed.columns.some((slot, offset) => slot < 0 && offset >= placed.absorbed && toPlace[offset]!.shape.shape.startsWith('number'));
       if (guessed) {
-        out.push({ cells, at, guessed: true });
+        out.push({ cells, at, guessed: true, ...(clarity.blockUnknown ? { blockUnknown: true } : {}) });
+        continue;
+      }
+      if (clarity.blockUnknown) {
+        out.push({ cells, at, blockUnknown: true });
         continue;
       }
     }
