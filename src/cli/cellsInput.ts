@@ -207,6 +207,23 @@ const F_PART = new RegExp(String.raw`^F\s*\(\s*(\d+)\s*,\s*(\d+)\s*\)\s*=\s*${NU
 const P_PART = new RegExp(String.raw`^p\s*(=|<|>)\s*${NUMBER}$`, 'i');
 const ETA_PART = new RegExp(String.raw`^(?:pes|ηp2|ηp²|η²p|ηp\^2|partial eta squared|partial eta2)\s*=\s*${NUMBER}$`, 'i');
 
+/** "dose x time", "dose × time", "dose*time", "dose:time" -> ["dose", "time"] (a name may hold spaces). */
+function factorNamesOf(effect: string): string[] {
+  const names: string[] = [];
+  for (const piece of effect.split(/[×*:]/)) {
+    // Words split once on white space; the word "x" between two names joins them.
+    let current: string[] = [];
+    for (const word of piece.trim().split(/\s+/)) {
+      if (word.toLowerCase() === 'x' && current.length > 0) {
+        names.push(current.join(' '));
+        current = [];
+      } else if (word !== '') current.push(word);
+    }
+    if (current.length > 0) names.push(current.join(' '));
+  }
+  return names;
+}
+
 /**
  * One reported effect: "<effect>: F(df1, df2) = value[, p = value][, pes = value]",
  * the effect named by its factors joined by " x ", "×", "*" or ":"
@@ -218,11 +235,7 @@ export function parseReportedEffect(text: string, where: string): ReportedEffect
   // The effect's name ends at the colon before "F(", so "dose:time: F(...)" keeps its own colon.
   const nameEnd = firstF < 0 ? colon : text.lastIndexOf(':', firstF);
   if (nameEnd <= 0) throw new CellsInputError(`${where}: "${text}" does not start with the effect's name and a colon ("dose x time: F(1, 84) = 5.23")`);
-  const factors = text
-    .slice(0, nameEnd)
-    .split(/\s+x\s+|[×*:]/)
-    .map((name) => name.trim())
-    .filter((name) => name !== '');
+  const factors = factorNamesOf(text.slice(0, nameEnd));
   const parts = text.slice(nameEnd + 1).replace(/\(\s*(\d+)\s*,\s*(\d+)\s*\)/, '($1;$2)').split(',').map((part) => part.trim().replace(';', ','));
   const fMatch = F_PART.exec(parts[0] ?? '');
   if (fMatch === null || factors.length === 0) throw new CellsInputError(`${where}: "${text}" has no "F(df1, df2) = value" after the effect's name`);
