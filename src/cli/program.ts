@@ -19,6 +19,7 @@ import {
 import { registerMergeCommand } from './merge.js';
 import { registerScanCommand } from './scan.js';
 import { registerRefitCommand } from './refit.js';
+import { registerCellsCommand } from './cells.js';
 
 export { EXIT_CLEAN, EXIT_FLAGGED, EXIT_INPUT_ERROR, EXIT_INTERNAL_FAULT, UsageError, type CliIo } from './common.js';
 
@@ -100,6 +101,7 @@ export function buildProgram(io: CliIo, setExitCode: (code: number) => void): Co
   registerMergeCommand(program, io, setExitCode);
   registerRulesCommand(program, io);
   registerRefitCommand(program, io, setExitCode);
+  registerCellsCommand(program, io, setExitCode);
   return program;
 }
 
