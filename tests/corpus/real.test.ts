@@ -21,11 +21,11 @@ const scores = scoreCorpus(corpus);
  */
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.83, precision: 1, maxFailRate: 0.01 },
-    text: { recall: 0.92, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.86, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.49, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -93,7 +93,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
   // the share read at its place (floors, as measured).
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.42 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.43 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -101,7 +101,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   }
 
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured).
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 11, holdout: 74 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 7, holdout: 74 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
