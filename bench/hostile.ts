@@ -22,8 +22,13 @@
  * (`/usr/bin/time -f %M`, which also covers a pdftotext child) when it is
  * installed, else from the command's own process.resourceUsage().maxRSS at
  * exit (a preload, node --import; worker threads included, child processes
- * not). The PDF is audited with each engine; the last row audits every
- * hostile file at once with --jobs 2.
+ * not). The PDF is audited with each engine; a row audits every hostile
+ * file at once with --jobs 2.
+ *
+ * Then the hostile inputs that are not payloads (`writeHostileInputs`: a
+ * FIFO and a link to /dev/zero named like papers, a paper whose name and
+ * text carry escape sequences, a list file of 150,000 entries, named as
+ * @list), each alone with --jobs 1 and all at once with --jobs 2.
  */
 
 import { spawnSync } from 'node:child_process';
@@ -31,7 +36,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'no
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { writeAtLimitFiles, writeHostileFiles } from '../tests/fixtures/hostile/makeHostile.js';
+import { ESCAPES_NAME, LIST_NAME, writeAtLimitFiles, writeHostileFiles, writeHostileInputs } from '../tests/fixtures/hostile/makeHostile.js';
 
 const GOAL_MB = 1000;
 const GNU_TIME = '/usr/bin/time';
@@ -121,6 +126,19 @@ try {
   );
   if (all.peakMb >= GOAL_MB) failures += 1;
   console.log(row('all of them, --jobs 2', all, base.peakMb));
+  const inputs = writeHostileInputs(join(folder, 'inputs'));
+  for (const name of inputs.notMade) console.log(`${name.padEnd(38)} not made on this platform: not measured`);
+  // The escapes paper's name would act on this terminal: it is shown by what it is.
+  const label = (name: string) => (name === ESCAPES_NAME ? 'paper named with escape sequences' : name === LIST_NAME ? `@${LIST_NAME}` : name);
+  const argument = (input: { name: string; path: string }) => (input.name === LIST_NAME ? `@${input.path}` : input.path);
+  for (const input of inputs.written) {
+    const measured = audit([argument(input)]);
+    if (measured.peakMb >= GOAL_MB) failures += 1;
+    console.log(row(label(input.name), measured, base.peakMb));
+  }
+  const allInputs = audit(inputs.written.map(argument), ['--jobs', '2']);
+  if (allInputs.peakMb >= GOAL_MB) failures += 1;
+  console.log(row('all the inputs, --jobs 2', allInputs, base.peakMb));
   console.log(`\n${failures === 0 ? 'every case' : `${failures} case(s) NOT`} under the goal of ${GOAL_MB} MB`);
 } finally {
   rmSync(folder, { recursive: true, force: true });

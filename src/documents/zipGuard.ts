@@ -1,6 +1,7 @@
-import { crc32, createInflateRaw } from 'node:zlib';
+import { createInflateRaw } from 'node:zlib';
 import { formatMb, limitHint, MB, type Limits } from '../limits.js';
 import { DocumentLimitError } from './markupLimits.js';
+import { bytesInMemory, walkZipDirectory, type ZipEntry } from './zipDirectory.js';
 
 /**
  * The zip reader of DOCX files, bounded before it allocates. mammoth reads
@@ -10,14 +11,15 @@ import { DocumentLimitError } from './markupLimits.js';
  * file.
  *
  * 1. The central directory is walked entry by entry from where it starts
- *    until its entries end. The end record gives only the start: its entry
- *    count is not trusted (a count of 0 or 1 must not hide the entries after
- *    it), and when bytes were put before the first entry without shifting
- *    the offsets (self-extracting archives do this) the start and every
- *    entry are found by the shift the end record's position reveals, as zip
- *    readers do. A directory that cannot be walked (no entry where the end
- *    record places it, an entry whose data is not where it says, or that
- *    runs past the file) is refused with the reason: it is not guessed at.
+ *    until its entries end, by zipDirectory.ts (the walker the XLSX reader
+ *    uses too): the end record's entry count is not trusted (a count of 0
+ *    or 1 must not hide the entries after it), bytes put before the first
+ *    entry without shifting the offsets (self-extracting archives do this)
+ *    are followed by the shift the end record's position reveals, as zip
+ *    readers do, and a directory that cannot be walked (no entry where the
+ *    end record places it, an entry whose data is not where it says, or
+ *    that runs past the file) is refused with the reason ("damaged DOCX:
+ *    ..."): it is not guessed at.
  * 2. Before anything is inflated: at most `maxZipEntries` entries, each
  *    declaring at most `maxUnzippedEntryMb`, all together at most
  *    `maxUnzippedMb`.
@@ -40,23 +42,8 @@ export type ZipLimits = Pick<Limits, 'maxUnzippedMb' | 'maxUnzippedEntryMb' | 'm
 /** A zip archive that cannot be walked or read: damaged, cut short, or made to mislead. */
 export class ZipFormatError extends Error {}
 
-interface ZipEntry {
-  name: string;
-  method: number;
-  flags: number;
-  compressedSize: number;
-  uncompressedSize: number;
-  /** Where the entry's data starts in the file (after its local header). */
-  dataStart: number;
-}
-
 const DEFLATE = 8;
 const STORED = 0;
-const END_OF_CENTRAL_DIRECTORY = 0x06054b50;
-const ZIP64_LOCATOR = 0x07064b50;
-const ZIP64_END = 0x06064b50;
-const CENTRAL_HEADER = 0x02014b50;
-const LOCAL_HEADER = 0x04034b50;
 /** Output chunks of the inflater: the counts are checked after each. */
 const INFLATE_CHUNK = 64 * 1024;
 
@@ -67,13 +54,13 @@ const INFLATE_CHUNK = 64 * 1024;
  */
 export function openZip(bytes: Uint8Array, limits: ZipLimits): { ok: true; archive: BoundedZip } | { ok: false; error: string } {
   const buffer = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  let entries: ZipEntry[];
-  try {
-    entries = walkCentralDirectory(buffer, limits.maxZipEntries);
-  } catch (error) {
-    if (error instanceof ZipFormatError || error instanceof DocumentLimitError) return { ok: false, error: error.message };
-    throw error;
+  // In memory already: the directory is a view of these bytes, so only the entry count bounds the walk.
+  const walked = walkZipDirectory(bytesInMemory(buffer), { maxEntries: limits.maxZipEntries, maxDirectoryBytes: Infinity, followPrependedBytes: true });
+  if (!walked.ok && walked.problem === 'damaged') return { ok: false, error: `damaged DOCX: ${walked.reason}` };
+  if (!walked.ok) {
+    return { ok: false, error: `the DOCX's zip directory holds more than ${walked.maxEntries.toLocaleString('en-US')} entries ${limitHint('maxZipEntries', walked.maxEntries)}` };
   }
+  const entries = walked.entries;
   let declared = 0;
   for (const entry of entries) {
     if (entry.uncompressedSize > limits.maxUnzippedEntryMb * MB) {
@@ -272,141 +259,4 @@ export class XmlNodeCounter {
     if (this.textPending) this.count++;
     this.textPending = false;
   }
-}
-
-// ---------------------------------------------------------------------------
-// The central directory
-// ---------------------------------------------------------------------------
-
-/** Where the directory ends (the zip64 end record or the end record) and where the end record places its start. */
-interface DirectoryBounds {
-  end: number;
-  declaredOffset: number;
-  declaredSize: number;
-}
-
-function findEndRecord(buffer: Buffer): DirectoryBounds {
-  if (buffer.length < 22) throw new ZipFormatError('damaged DOCX: the file is too short to be a zip archive');
-  // The end record is in the last 22 + 65535 bytes (its comment is at most 65535 bytes long); the last one found is taken.
-  const lowest = Math.max(0, buffer.length - 22 - 0xffff);
-  let end = -1;
-  for (let at = buffer.length - 22; at >= lowest; at--) {
-    if (buffer.readUInt32LE(at) === END_OF_CENTRAL_DIRECTORY) {
-      end = at;
-      break;
-    }
-  }
-  if (end === -1) throw new ZipFormatError('damaged DOCX: its zip archive has no end record (the file was cut short?), so its directory cannot be found');
-  const count = buffer.readUInt16LE(end + 10);
-  const size = buffer.readUInt32LE(end + 12);
-  const offset = buffer.readUInt32LE(end + 16);
-  if (count === 0xffff || size === 0xffffffff || offset === 0xffffffff) {
-    if (end >= 20 && buffer.readUInt32LE(end - 20) === ZIP64_LOCATOR) {
-      const zip64End = Number(buffer.readBigUInt64LE(end - 20 + 8));
-      // Bytes put before the archive shift the zip64 end record too; it sits right before its locator.
-      const candidates = [zip64End, end - 20 - 56];
-      for (const at of candidates) {
-        if (at >= 0 && at + 56 <= buffer.length && buffer.readUInt32LE(at) === ZIP64_END) {
-          return { end: at, declaredSize: Number(buffer.readBigUInt64LE(at + 40)), declaredOffset: Number(buffer.readBigUInt64LE(at + 48)) };
-        }
-      }
-      throw new ZipFormatError('damaged DOCX: its zip64 end record is missing, so its directory cannot be found');
-    }
-  }
-  return { end, declaredSize: size, declaredOffset: offset };
-}
-
-/**
- * Every entry of the central directory, found by walking it from its start
- * until the entries end (the end record's entry count is not trusted), each
- * with its local header checked. Throws ZipFormatError when the directory
- * cannot be walked, DocumentLimitError past `maxEntries`.
- */
-function walkCentralDirectory(buffer: Buffer, maxEntries: number): ZipEntry[] {
-  const bounds = findEndRecord(buffer);
-  // Bytes before the first entry (with offsets not counting them) shift the directory and every entry by as much.
-  const shifted = bounds.end - bounds.declaredSize;
-  const isHeader = (at: number): boolean => at >= 0 && at + 46 <= bounds.end && buffer.readUInt32LE(at) === CENTRAL_HEADER;
-  const start = isHeader(bounds.declaredOffset) ? bounds.declaredOffset : isHeader(shifted) ? shifted : -1;
-  if (start === -1) {
-    throw new ZipFormatError(
-      `damaged DOCX: its zip directory cannot be walked: the end record places it at byte ${bounds.declaredOffset.toLocaleString('en-US')}, where no directory entry starts`,
-    );
-  }
-  const shift = start - bounds.declaredOffset;
-  const entries: ZipEntry[] = [];
-  for (let at = start; at + 4 <= bounds.end && buffer.readUInt32LE(at) === CENTRAL_HEADER; ) {
-    if (at + 46 > bounds.end) throw new ZipFormatError(`damaged DOCX: the zip directory entry at byte ${at.toLocaleString('en-US')} runs past the directory's end`);
-    if (entries.length >= maxEntries) {
-      throw new DocumentLimitError(`the DOCX's zip directory holds more than ${maxEntries.toLocaleString('en-US')} entries ${limitHint('maxZipEntries', maxEntries)}`);
-    }
-    const flags = buffer.readUInt16LE(at + 8);
-    const nameLength = buffer.readUInt16LE(at + 28);
-    const extraLength = buffer.readUInt16LE(at + 30);
-    const commentLength = buffer.readUInt16LE(at + 32);
-    const next = at + 46 + nameLength + extraLength + commentLength;
-    if (next > bounds.end) throw new ZipFormatError(`damaged DOCX: the zip directory entry at byte ${at.toLocaleString('en-US')} runs past the directory's end`);
-    const rawName = buffer.subarray(at + 46, at + 46 + nameLength);
-    const sizes = {
-      compressedSize: buffer.readUInt32LE(at + 20),
-      uncompressedSize: buffer.readUInt32LE(at + 24),
-      localHeaderOffset: buffer.readUInt32LE(at + 42),
-    };
-    const extra = buffer.subarray(at + 46 + nameLength, at + 46 + nameLength + extraLength);
-    readZip64Extra(extra, sizes);
-    const name = entryName(rawName, flags, extra);
-    const local = sizes.localHeaderOffset + shift;
-    if (local < 0 || local + 30 > buffer.length || buffer.readUInt32LE(local) !== LOCAL_HEADER) {
-      throw new ZipFormatError(`damaged DOCX: the zip entry "${name}" is not where its directory says (byte ${local.toLocaleString('en-US')})`);
-    }
-    const dataStart = local + 30 + buffer.readUInt16LE(local + 26) + buffer.readUInt16LE(local + 28);
-    if (dataStart + sizes.compressedSize > buffer.length) throw new ZipFormatError(`damaged DOCX: the zip entry "${name}" runs past the end of the file (cut short?)`);
-    entries.push({ name, method: buffer.readUInt16LE(at + 10), flags, compressedSize: sizes.compressedSize, uncompressedSize: sizes.uncompressedSize, dataStart });
-    at = next;
-  }
-  if (entries.length === 0) throw new ZipFormatError('damaged DOCX: its zip directory holds no entries');
-  return entries;
-}
-
-/** Sizes and offsets of 0xFFFFFFFF are in the zip64 extra field (id 1), in this order, each only when needed. */
-function readZip64Extra(extra: Buffer, sizes: { compressedSize: number; uncompressedSize: number; localHeaderOffset: number }): void {
-  for (let at = 0; at + 4 <= extra.length; ) {
-    const id = extra.readUInt16LE(at);
-    const size = extra.readUInt16LE(at + 2);
-    if (id === 1) {
-      let field = at + 4;
-      const next = (): number => {
-        if (field + 8 > Math.min(extra.length, at + 4 + size)) return Number.MAX_SAFE_INTEGER;
-        const value = Number(extra.readBigUInt64LE(field));
-        field += 8;
-        return value;
-      };
-      if (sizes.uncompressedSize === 0xffffffff) sizes.uncompressedSize = next();
-      if (sizes.compressedSize === 0xffffffff) sizes.compressedSize = next();
-      if (sizes.localHeaderOffset === 0xffffffff) sizes.localHeaderOffset = next();
-      return;
-    }
-    at += 4 + size;
-  }
-  // A zip64 marker without its extra field: the size is unknown, so taken as large.
-  if (sizes.uncompressedSize === 0xffffffff) sizes.uncompressedSize = Number.MAX_SAFE_INTEGER;
-  if (sizes.compressedSize === 0xffffffff) sizes.compressedSize = Number.MAX_SAFE_INTEGER;
-}
-
-/**
- * An entry's name as zip readers (JSZip, which mammoth used) give it: UTF-8
- * when the entry says so (flag bit 11), else from a Unicode path extra field
- * (0x7075) that matches the name, else one character per byte.
- */
-function entryName(raw: Buffer, flags: number, extra: Buffer): string {
-  if (flags & 0x800) return raw.toString('utf8');
-  for (let at = 0; at + 4 <= extra.length; ) {
-    const id = extra.readUInt16LE(at);
-    const size = extra.readUInt16LE(at + 2);
-    if (id === 0x7075 && size >= 5 && at + 4 + size <= extra.length && extra[at + 4] === 1 && extra.readUInt32LE(at + 5) === crc32(raw)) {
-      return extra.toString('utf8', at + 9, at + 4 + size);
-    }
-    at += 4 + size;
-  }
-  return raw.toString('latin1');
 }

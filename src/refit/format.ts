@@ -2,6 +2,7 @@ import { Chalk, type ChalkInstance } from 'chalk';
 import type { ComparedNumber } from './compare.js';
 import type { RefitOutput } from './output.js';
 import { extremes } from '../arrays.js';
+import { visibleStrings } from '../report/visible.js';
 
 /**
  * Pure formatters of a refit result: console text (chalk; plain when not a
@@ -310,8 +311,9 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   return tables;
 }
 
-/** Console report. */
-export function formatRefitText(o: RefitOutput, options: { color: boolean }): string {
+/** Console report. Controls from the files and the manuscript are shown as escapes (src/report/visible.ts), as in scan's reports. */
+export function formatRefitText(output: RefitOutput, options: { color: boolean }): string {
+  const o = visibleStrings(output);
   const chalk = new Chalk({ level: options.color ? 1 : 0 });
   const lines: string[] = [];
   lines.push(chalk.bold(`Refit of ${o.data}`));
@@ -379,8 +381,9 @@ function mdItalicLine(text: string): string {
   return text.replace(/\b([Fp])(?=[( ])/g, '*$1*');
 }
 
-/** Markdown report. */
-export function formatRefitMarkdown(o: RefitOutput): string {
+/** Markdown report, controls shown as escapes. */
+export function formatRefitMarkdown(output: RefitOutput): string {
+  const o = visibleStrings(output);
   const lines: string[] = [];
   lines.push(`# Refit of ${o.data}`, '');
   lines.push(`- Model: \`${o.model}\``);
@@ -426,7 +429,9 @@ export function tableNote(o: RefitOutput): string {
 }
 
 /** Self-contained HTML page: the recomputed ANOVA table (APA-like), and the comparison when numbers were reported. */
-export function formatRefitHtml(o: RefitOutput): string {
+export function formatRefitHtml(output: RefitOutput): string {
+  // Tabs and line breaks are white space to a browser; the other controls and the bidi overrides are shown as escapes.
+  const o = visibleStrings(output, '\t\n\r');
   const title = `Refit of ${o.outcome}: ${o.type === 3 ? 'type III' : typeLabel(o.type)} ANOVA table`;
   const row = (cells: string[], tag = 'td') => `<tr>${cells.map((c, i) => `<${tag}${i === 0 ? ' class="src"' : ''}>${esc(c)}</${tag}>`).join('')}</tr>`;
   const italicHead = `<tr>${TABLE_HEAD.map((h, i) => `<th${i === 0 ? ' class="src"' : ''}>${['SS', 'df', 'MS', 'F', 'p'].includes(h) ? `<i>${esc(h)}</i>` : h === 'ηp²' ? '<i>η</i><sub>p</sub><sup>2</sup>' : esc(h)}</th>`).join('')}</tr>`;

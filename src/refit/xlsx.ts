@@ -10,9 +10,10 @@ import { readZipDirectory, readZipEntry, storedZipChunks, type ZipEntry } from '
  * xlsxLimits), checked before the spreadsheet reader (read-excel-file)
  * parses anything:
  *
- * 1. The zip's central directory is walked (zipEntries.ts), and the sizes
- *    it declares for the parts the reader unpacks (its .xml parts) are
- *    added up: above maxUnzippedMb nothing is inflated.
+ * 1. The zip's central directory is walked (zipEntries.ts, with the
+ *    walker the DOCX reader uses, src/documents/zipDirectory.ts), and the
+ *    sizes it declares for the parts the reader unpacks (its .xml parts)
+ *    are added up: above maxUnzippedMb nothing is inflated.
  * 2. Those parts are inflated with the output capped at their declared
  *    sizes, so a part that lies about its size is caught.
  * 3. The first sheet's XML is scanned for the rows and columns its cells
@@ -237,7 +238,7 @@ async function unpackWithinLimit(path: string, file: string, limits: XlsxLimits)
   if (!opened.ok) throw new RefitError('UNREADABLE_FILE', `${file}: ${opened.error}.`, { file });
   const { handle, size } = opened;
   try {
-    const directory = await readZipDirectory(handle, size);
+    const directory = readZipDirectory(handle, size);
     if (!directory.ok) throw unreadableXlsx(file, directory.error);
     const wanted: ZipEntry[] = directory.value.filter((entry) => isReaderPart(entry.name));
     const budget = limits.maxUnzippedMb * MB;
@@ -248,7 +249,7 @@ async function unpackWithinLimit(path: string, file: string, limits: XlsxLimits)
     // Each part is inflated no further than its declared size, so the declared total just checked bounds the memory.
     const parts = new Map<string, Buffer>();
     for (const entry of wanted) {
-      const part = await readZipEntry(handle, size, entry);
+      const part = await readZipEntry(handle, entry);
       if (!part.ok) throw unreadableXlsx(file, part.error);
       parts.set(entry.name, part.value);
     }

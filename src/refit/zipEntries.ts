@@ -1,46 +1,29 @@
 import type { FileHandle } from 'node:fs/promises';
 import { inflateRaw } from 'node:zlib';
 import { promisify } from 'node:util';
+import { bytesOfFile, CENTRAL_HEADER, END_OF_CENTRAL_DIRECTORY, LOCAL_HEADER, walkZipDirectory, type ZipEntry } from '../documents/zipDirectory.js';
+
+export type { ZipEntry } from '../documents/zipDirectory.js';
 
 /**
- * A bounded reader of zip archives (an .xlsx file is one): the central
- * directory is found from the end record and walked entry by entry, and
- * each entry is read from its own offset and inflated with its output
- * capped. Nothing is read whole: at most the end of the file (the end
- * record and its comment), the directory (capped), and the entries asked
- * for.
+ * A bounded reader of zip archives (an .xlsx file is one), through a file
+ * handle: nothing is read whole. The directory is walked by the walker the
+ * DOCX reader uses (src/documents/zipDirectory.ts: by its records, never by
+ * the count the end record claims, and refused when it cannot be walked to
+ * its end), reading at most the end of the file, the directory (capped) and
+ * each entry's local header; each entry asked for is then read from its own
+ * place and inflated with its output capped.
  *
- * The directory is walked by its records, never by the count the end record
- * claims (a bomb may set it to 0 or 1 and hide its entries), and an archive
- * whose directory cannot be walked to its end is refused, not guessed at.
- *
- * ## References
- * - PKWARE, APPNOTE.TXT: .ZIP File Format Specification, version 6.3.10
- *   (2022): sections 4.3.7 (local file header), 4.3.12 (central directory
- *   header), 4.3.14-4.3.16 (zip64 end records, end of central directory),
- *   4.5.3 (zip64 extended information extra field).
+ * Bytes put before the archive are refused here, not followed as the DOCX
+ * reader follows them: spreadsheet programs never write them, and such a
+ * file has always been refused with the advice to save it again.
  */
-
-export interface ZipEntry {
-  name: string;
-  /** 0 stored, 8 deflated; anything else is refused when the entry is read. */
-  method: number;
-  compressedSize: number;
-  /** As the directory declares it; the inflated size is checked against it. */
-  uncompressedSize: number;
-  localHeaderOffset: number;
-}
 
 export type ZipOutcome<T> = { ok: true; value: T } | { ok: false; error: string };
 
 /** The largest central directory read: about 200,000 entries of 80-byte names; a spreadsheet has a few dozen. */
 const MAX_DIRECTORY_BYTES = 16 * 1024 * 1024;
 
-const END_OF_CENTRAL_DIRECTORY = 0x06054b50;
-const ZIP64_LOCATOR = 0x07064b50;
-const ZIP64_END = 0x06064b50;
-const CENTRAL_HEADER = 0x02014b50;
-const LOCAL_HEADER = 0x04034b50;
 const STORED = 0;
 const DEFLATED = 8;
 
@@ -55,101 +38,24 @@ async function readAt(handle: FileHandle, position: number, length: number): Pro
   return done === length ? buffer : buffer.subarray(0, done);
 }
 
-/** Where the central directory is: from the end record (and the zip64 end record when a field overflows). */
-async function directoryPlace(handle: FileHandle, fileSize: number): Promise<ZipOutcome<{ offset: number; size: number }>> {
-  // The end record is in the last 22 + 65,535 bytes (its comment is at most 65,535 bytes).
-  const tailStart = Math.max(0, fileSize - 22 - 0xffff);
-  const tail = await readAt(handle, tailStart, fileSize - tailStart);
-  let end = -1;
-  for (let at = tail.length - 22; at >= 0; at--) {
-    if (tail.readUInt32LE(at) === END_OF_CENTRAL_DIRECTORY) {
-      end = at;
-      break;
-    }
-  }
-  if (end === -1) return { ok: false, error: 'it is not a zip archive (no end of central directory record)' };
-  let size = tail.readUInt32LE(end + 12);
-  let offset = tail.readUInt32LE(end + 16);
-  if (size === 0xffffffff || offset === 0xffffffff || tail.readUInt16LE(end + 10) === 0xffff) {
-    if (end < 20 || tail.readUInt32LE(end - 20) !== ZIP64_LOCATOR) return { ok: false, error: 'its zip64 end record is missing' };
-    const zip64End = Number(tail.readBigUInt64LE(end - 20 + 8));
-    const record = zip64End + 56 <= fileSize ? await readAt(handle, zip64End, 56) : Buffer.alloc(0);
-    if (record.length < 56 || record.readUInt32LE(0) !== ZIP64_END) return { ok: false, error: 'its zip64 end record cannot be read' };
-    size = Number(record.readBigUInt64LE(40));
-    offset = Number(record.readBigUInt64LE(48));
-  }
-  if (offset + size > fileSize) return { ok: false, error: 'its central directory lies beyond the end of the file (a damaged or truncated file)' };
-  if (size > MAX_DIRECTORY_BYTES) return { ok: false, error: `its central directory is ${size.toLocaleString('en-US')} bytes, more than a spreadsheet has` };
-  return { ok: true, value: { offset, size } };
-}
-
-/** Sizes and offsets of 0xFFFFFFFF are in the zip64 extra field (id 1), in this order, each only when needed. */
-function readZip64Extra(directory: Buffer, from: number, length: number, entry: ZipEntry): boolean {
-  const to = from + length;
-  for (let at = from; at + 4 <= to; ) {
-    const id = directory.readUInt16LE(at);
-    const size = directory.readUInt16LE(at + 2);
-    if (id === 1) {
-      let field = at + 4;
-      const fieldEnd = Math.min(to, at + 4 + size);
-      const next = (): number | null => {
-        if (field + 8 > fieldEnd) return null;
-        const value = Number(directory.readBigUInt64LE(field));
-        field += 8;
-        return value;
-      };
-      if (entry.uncompressedSize === 0xffffffff) entry.uncompressedSize = next() ?? -1;
-      if (entry.compressedSize === 0xffffffff) entry.compressedSize = next() ?? -1;
-      if (entry.localHeaderOffset === 0xffffffff) entry.localHeaderOffset = next() ?? -1;
-      return entry.uncompressedSize >= 0 && entry.compressedSize >= 0 && entry.localHeaderOffset >= 0;
-    }
-    at += 4 + size;
-  }
-  return entry.uncompressedSize !== 0xffffffff && entry.compressedSize !== 0xffffffff && entry.localHeaderOffset !== 0xffffffff;
-}
-
 /** Every entry of the central directory, walked record by record to its end; or why it cannot be. */
-export async function readZipDirectory(handle: FileHandle, fileSize: number): Promise<ZipOutcome<ZipEntry[]>> {
-  const place = await directoryPlace(handle, fileSize);
-  if (!place.ok) return place;
-  const directory = await readAt(handle, place.value.offset, place.value.size);
-  const entries: ZipEntry[] = [];
-  let at = 0;
-  while (at < directory.length) {
-    if (at + 46 > directory.length || directory.readUInt32LE(at) !== CENTRAL_HEADER) {
-      return { ok: false, error: `its central directory cannot be walked (no entry record at byte ${(place.value.offset + at).toLocaleString('en-US')})` };
-    }
-    const nameLength = directory.readUInt16LE(at + 28);
-    const extraLength = directory.readUInt16LE(at + 30);
-    const commentLength = directory.readUInt16LE(at + 32);
-    const next = at + 46 + nameLength + extraLength + commentLength;
-    if (next > directory.length) return { ok: false, error: 'its central directory ends in the middle of an entry record' };
-    const entry: ZipEntry = {
-      name: directory.toString('utf8', at + 46, at + 46 + nameLength),
-      method: directory.readUInt16LE(at + 10),
-      compressedSize: directory.readUInt32LE(at + 20),
-      uncompressedSize: directory.readUInt32LE(at + 24),
-      localHeaderOffset: directory.readUInt32LE(at + 42),
-    };
-    if (!readZip64Extra(directory, at + 46 + nameLength, extraLength, entry)) {
-      return { ok: false, error: `the zip64 sizes of its part "${entry.name}" are missing` };
-    }
-    entries.push(entry);
-    at = next;
-  }
-  return { ok: true, value: entries };
+export function readZipDirectory(handle: FileHandle, fileSize: number): ZipOutcome<ZipEntry[]> {
+  // The directory's size caps its entries (46 bytes each at least), so no entry count is needed besides.
+  const walked = walkZipDirectory(bytesOfFile(handle.fd, fileSize), { maxEntries: Infinity, maxDirectoryBytes: MAX_DIRECTORY_BYTES, followPrependedBytes: false });
+  if (walked.ok) return { ok: true, value: walked.entries };
+  return { ok: false, error: walked.problem === 'damaged' ? walked.reason : `its zip directory holds more than ${walked.maxEntries} entries` };
 }
 
 const inflateRawAsync = promisify(inflateRaw);
 
 /**
- * The bytes of one entry, read from its local header's place and inflated
+ * The bytes of one entry, read from where its walked local header puts it and inflated
  * with the output capped at the size the directory declares: an entry that
  * inflates beyond it is refused after at most that much output, whatever
  * its headers claim. A caller that has checked the declared sizes against
  * a limit is thereby held to the limit.
  */
-export async function readZipEntry(handle: FileHandle, fileSize: number, entry: ZipEntry): Promise<ZipOutcome<Buffer>> {
+export async function readZipEntry(handle: FileHandle, entry: ZipEntry): Promise<ZipOutcome<Buffer>> {
   if (entry.method !== STORED && entry.method !== DEFLATED) return { ok: false, error: `its part "${entry.name}" uses compression method ${entry.method}, which is not read` };
   const cap = entry.uncompressedSize;
   const beyond = `its part "${entry.name}" inflates beyond the ${cap.toLocaleString('en-US')} bytes its zip directory declares (a damaged file or a zip bomb)`;
@@ -157,13 +63,8 @@ export async function readZipEntry(handle: FileHandle, fileSize: number, entry: 
   if (entry.compressedSize > cap + Math.ceil(cap / 16_384) + 1024) {
     return { ok: false, error: beyond };
   }
-  const header = entry.localHeaderOffset + 30 <= fileSize ? await readAt(handle, entry.localHeaderOffset, 30) : Buffer.alloc(0);
-  if (header.length < 30 || header.readUInt32LE(0) !== LOCAL_HEADER) {
-    return { ok: false, error: `its part "${entry.name}" is not where the central directory says (bytes added before the archive, or a damaged file)` };
-  }
-  const start = entry.localHeaderOffset + 30 + header.readUInt16LE(26) + header.readUInt16LE(28);
-  if (start + entry.compressedSize > fileSize) return { ok: false, error: `its part "${entry.name}" runs past the end of the file` };
-  const data = await readAt(handle, start, entry.compressedSize);
+  // The walk checked the local header and that the data ends inside the file.
+  const data = await readAt(handle, entry.dataStart, entry.compressedSize);
   if (entry.method === STORED) return { ok: true, value: data };
   let inflated: Buffer;
   try {

@@ -52,3 +52,19 @@ export function visibleControls(text: string, keep = ''): string {
 export function visibleLine(text: string): string {
   return visibleControls(text.replace(/\s+/g, ' ').trim());
 }
+
+/**
+ * A copy of a report's data (plain objects, arrays, strings, numbers) with
+ * every string's controls made visible, for a formatter that writes its
+ * strings in many places (refit's reports: the file names, the reported
+ * table's row labels and the manuscript's words quoted in its notes). Made
+ * before formatting, so the formatter's own colour sequences are kept.
+ */
+export function visibleStrings<T>(value: T, keep = ''): T {
+  if (typeof value === 'string') return visibleControls(value, keep) as T;
+  if (Array.isArray(value)) return value.map((item: unknown) => visibleStrings(item, keep)) as T;
+  if (value !== null && typeof value === 'object') {
+    return Object.fromEntries(Object.entries(value).map(([key, item]) => [key, visibleStrings(item as unknown, keep)])) as T;
+  }
+  return value;
+}

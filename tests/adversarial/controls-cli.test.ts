@@ -8,7 +8,8 @@ import { bin, builtCliExists, plumbline, temporaryFolder } from '../batch/cli.js
  * No control character from a document or a file name reaches a report a
  * person reads (src/report/visible.ts): the built command is run on a text
  * file whose name and content carry the escape sequences a terminal obeys,
- * and every text format is searched for them.
+ * and every text format is searched for them; so are refit's reports of
+ * a data file and a reported table whose name and label carry them.
  */
 
 const ESC = '\u001b';
@@ -120,5 +121,32 @@ describe('control characters from documents and file names, in the built command
     expect(run.status).toBe(2);
     expect(firstForbidden(run.stderr)).toBeNull();
     expect(run.stderr).toContain('nowhere\\x1b[2J');
+  });
+});
+
+describe('control characters in refit\'s reports, in the built command', () => {
+  // A data file and a reported table whose row label (a manuscript's words) clears the screen and reverses its line.
+  const refitName = `refit${CLEAR_SCREEN}${RLO}.csv`;
+  const reportedLabel = `Group${CLEAR_SCREEN}${WINDOW_TITLE}${RLO}`;
+  beforeAll(() => {
+    const rows = Array.from({ length: 30 }, (_, index) => `${((index * 37) % 23) / 2},${['a', 'b', 'c'][index % 3]}`);
+    writeFileSync(join(folder, refitName), `score,group\n${rows.join('\n')}\n`);
+    writeFileSync(join(folder, 'reported.csv'), `Source,df,F,p\n${reportedLabel},2,0.27,.763\nResidual,27,,\n`);
+  });
+
+  for (const format of ['text', 'md', 'html']) {
+    it(`refit --format ${format}: the file name and the reported label are shown as escapes`, () => {
+      const run = plumbline(['refit', refitName, '--model', 'score ~ group', '--reported', 'reported.csv', '--format', format], folder);
+      expect(run.status, run.stderr).toBe(1); // the reported df match, but the label names no model term
+      expect(firstForbidden(run.stdout.replace(/\r/g, ''))).toBeNull();
+      expect(firstForbidden(run.stderr)).toBeNull();
+      if (format !== 'html') expect(run.stdout).toContain('refit\\x1b[2J\\u202e.csv'); // the HTML page names the outcome, not the file
+      expect(run.stdout).toContain('Group\\x1b[2J\\x1b]0;pwned\\x07\\u202e');
+    });
+  }
+
+  it('refit --format json keeps the label as it is', () => {
+    const run = plumbline(['refit', refitName, '--model', 'score ~ group', '--reported', 'reported.csv', '--format', 'json'], folder);
+    expect(run.stdout).toContain(JSON.stringify(reportedLabel).slice(1, -1));
   });
 });

@@ -3,7 +3,18 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { findPdftotext } from '../../src/documents/pdf.js';
 import { builtCliExists, peakMemoryRunner, plumbline, reportOf, temporaryFolder } from '../batch/cli.js';
-import { deflateRepeated, hostileCases, onePagePdf, writeHostileFiles, zlibWrapped } from '../fixtures/hostile/makeHostile.js';
+import {
+  deflateRepeated,
+  ESCAPES_NAME,
+  hostileCases,
+  hostileInputCases,
+  LIST_NAME,
+  LIST_PAPERS,
+  onePagePdf,
+  writeHostileFiles,
+  writeHostileInputs,
+  zlibWrapped,
+} from '../fixtures/hostile/makeHostile.js';
 
 /**
  * The hostile documents of tests/fixtures/hostile/makeHostile.ts (zips whose
@@ -15,7 +26,11 @@ import { deflateRepeated, hostileCases, onePagePdf, writeHostileFiles, zlibWrapp
  * good paper is audited, the audit ends with its report, quickly and in
  * little memory. The same files through `refit --reported` end with the
  * same reason. (Before the bounded readers they took 1.7 to 6.3 GB, and
- * `refit --reported` ran V8 out of memory.)
+ * `refit --reported` ran V8 out of memory.) The generator's other hostile
+ * inputs (a FIFO and a link to /dev/zero named like papers, a paper whose
+ * name and text carry escape sequences, a list of 150,000 entries) are
+ * audited together the same way, and their text reports searched for
+ * control characters.
  */
 
 const folder = temporaryFolder('hostile');
@@ -107,4 +122,52 @@ describe('a folder of hostile documents, audited by the built command', () => {
       expect(run.stderr, hostile.name).toMatch(new RegExp(`^plumbline: ${hostile.name.replace('.', '\\.')}: cannot be read \\(${reason}`));
     }
   });
+});
+
+/** The characters no text report may hold: C0 controls other than tab and line feed, DEL, C1 controls, bidi overrides and isolates. */
+const FORBIDDEN = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/;
+
+describe('the other hostile inputs: special files, escape sequences, a list of 150,000 entries', () => {
+  const inputs = join(folder, 'inputs');
+  const made = writeHostileInputs(inputs);
+  const scanArgs = (jobs: string) => ['scan', 'inputs', `@inputs/${LIST_NAME}`, '-q', '--no-cache', '--jobs', jobs];
+
+  it('every input was made (a FIFO and a link to /dev/zero need a Unix-like system)', () => {
+    expect(made.notMade).toEqual([]);
+    expect(made.written.map((input) => input.name)).toEqual(hostileInputCases.map((input) => input.name));
+  });
+
+  for (const jobs of ['1', '2']) {
+    it(`--jobs ${jobs}: the special files are unreadable with what they are, the papers are audited once each, and the audit ends with its report`, () => {
+      const run = plumbline([...scanArgs(jobs), '--format', 'json'], folder);
+      expect(run.status, run.stderr).toBe(2); // the special files; null would mean it was killed at the 60 s timeout
+      const report = reportOf(run);
+      const row = (path: string) => report.documents.find((document) => document.path === path);
+      expect(row('inputs/pipe.txt')?.error).toMatch(/^not a regular file: a FIFO \(named pipe\); plumbline reads only regular files/);
+      expect(row('inputs/zero.txt')?.error).toBe(
+        'not a regular file: a symbolic link to /dev/zero, a character device; plumbline reads only regular files (a FIFO or a device can block or never end)',
+      );
+      // The JSON keeps the text as it is: the paper really carries the escapes.
+      const escapes = row(`inputs/${ESCAPES_NAME}`);
+      expect(escapes).toMatchObject({ status: 'checked', statistics: [expect.objectContaining({ kind: 'F' })] });
+      expect(escapes?.statistics[0]?.text).toContain('\u001b[2J');
+      const papers = report.documents.filter((document) => document.path.startsWith('inputs/list/'));
+      expect(papers).toHaveLength(LIST_PAPERS);
+      expect(papers.every((document) => document.status === 'checked' && document.statistics.length === 1)).toBe(true);
+      expect(report.summary).toMatchObject({ documents: LIST_PAPERS + 3, checked: LIST_PAPERS + 1, unreadable: 2 });
+    });
+
+    for (const format of ['text', 'md', 'csv']) {
+      it(`--jobs ${jobs}, --format ${format}: no control character from a document or a file name reaches the report`, () => {
+        const run = plumbline([...scanArgs(jobs), '--format', format, '--all'], folder);
+        expect(run.status, run.stderr).toBe(2);
+        const at = (run.stdout + run.stderr).search(FORBIDDEN);
+        expect(at === -1 ? null : JSON.stringify((run.stdout + run.stderr).slice(Math.max(0, at - 30), at + 30))).toBeNull();
+        // Shown as escapes, not dropped: the name, and the result's text where the format lists consistent results (the Markdown summary lists flags only).
+        expect(run.stdout).toContain('paper\\x1b[2J\\x1b]0;pwned\\x07\\u202eexe.txt');
+        if (format !== 'md') expect(run.stdout).toContain('4.21,\\x1b[2A\\x1b[2J p = .020');
+        expect(run.stdout).toMatch(/pipe\.txt/);
+      });
+    }
+  }
 });

@@ -120,7 +120,7 @@ describe('what cannot be walked is refused, with the reason', () => {
   const good = zipArchive(minimalParts('<w:p/>'));
 
   it('an archive cut before its end record', async () => {
-    expect(await readDocx(good.subarray(0, good.length - 30))).toEqual({ ok: false, error: 'damaged DOCX: its zip archive has no end record (the file was cut short?), so its directory cannot be found' });
+    expect(await readDocx(good.subarray(0, good.length - 30))).toEqual({ ok: false, error: 'damaged DOCX: it is not a zip archive, or it was cut short: it has no end of central directory record, so its directory cannot be found' });
   });
 
   it('an end record that places the directory where none is', async () => {

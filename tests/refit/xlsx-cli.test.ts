@@ -140,14 +140,14 @@ describe.skipIf(!builtCliExists())('XLSX files that lie about themselves: unread
   it('bytes before the archive', () => {
     const bytes = Buffer.concat([Buffer.alloc(4096, 0x20), xlsxFile(header, rows(10), 10)]);
     expect(refused([file('prepended.xlsx', bytes), '--model', 'score ~ group'])).toMatch(
-      // The offsets in the end record and the directory no longer point at records: the walk stops at the first one.
-      /^plumbline: prepended\.xlsx: cannot be read as an XLSX file: its central directory cannot be walked \(no entry record at byte 1,\d{3}\)\. Open it/,
+      // The offsets in the end record and the directory no longer point at records, and an XLSX is not followed past such bytes (a DOCX is).
+      /^plumbline: prepended\.xlsx: cannot be read as an XLSX file: its zip directory cannot be walked: the end record places it at byte 1,\d{3}, where no directory entry starts\. Open it/,
     );
   });
 
   it('not a zip archive at all', () => {
     expect(refused([file('text.xlsx', 'score,group\n1,a\n'), '--model', 'score ~ group'])).toBe(
-      'plumbline: text.xlsx: cannot be read as an XLSX file: it is not a zip archive (no end of central directory record). Open it in a spreadsheet program and save it again, or save the sheet as CSV.',
+      'plumbline: text.xlsx: cannot be read as an XLSX file: it is not a zip archive, or it was cut short: it has no end of central directory record, so its directory cannot be found. Open it in a spreadsheet program and save it again, or save the sheet as CSV.',
     );
   });
 });
