@@ -79,6 +79,15 @@ function readTail(text: string, draft: ResultDraft): boolean {
         continue;
       }
     }
+    if (last === 'head' && draft.head.df.length === 0) {
+      // df in brackets right after the value: "F = 4.21 (1, 38)" (before the separators, which skip brackets).
+      const bracketed = readBracketedDf(text, skipOnlySpaces(text, position), draft.head.kind === 'F' ? 2 : 1);
+      if (bracketed !== null && (draft.head.kind === 'F' || draft.head.kind === 't' || draft.head.kind === 'chi2')) {
+        draft.head = { ...draft.head, df: bracketed.df };
+        position = draft.end = bracketed.end;
+        continue;
+      }
+    }
     const next = skipSeparators(text, position);
     if (next >= text.length || startsResult(text, next)) break;
 
@@ -208,8 +217,24 @@ export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: Re
   return second === null ? null : { df: [first.number, second.number], end: second.end };
 }
 
+/**
+ * df in brackets right after a statistic's value: "F = 4.21 (1, 38)", "t = 2.05 (38)". Only the df alone in the
+ * brackets (whole numbers, or corrected ones with decimals; two for F with the first not above the second,
+ * one otherwise), and only where the brackets stand right after the value: "t = 2.05 (SE = 0.4)" is not df.
+ */
+const BRACKETED_DF = /^\( ?(\d{1,6}(?:\.\d{1,3})?)(?: ?[,;] ?(\d{1,6}(?:\.\d{1,3})?))? ?\)/;
+
+function readBracketedDf(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
+  if (text.charCodeAt(at) !== 40) return null; // "("
+  const match = BRACKETED_DF.exec(text.slice(at, at + 30));
+  if (match === null || (match[2] === undefined) !== (count === 1)) return null;
+  const df = [match[1], match[2]].filter((part): part is string => part !== undefined).map((part) => parseReportedNumber(part)!);
+  if (df.some((number) => number.value < 1) || (df.length === 2 && df[0]!.value > df[1]!.value)) return null;
+  return { df, end: at + match[0].length };
+}
+
 /** "with 2 and 57 degrees of freedom", "with 58 df", "on 1 and 44 d.f.", "58 df" after a statistic's value. */
-const DF_IN_WORDS = /^(?:(?:with|on) )?(\d{1,6}(?:\.\d{1,3})?)(?: and (\d{1,6}(?:\.\d{1,3})?))? (?:degrees of freedom|dfs?|d\.f\.)(?![A-Za-z])/;
+const DF_IN_WORDS = /^(?:(?:with|on) )?(\d{1,6}(?:\.\d{1,3})?)(?: and (\d{1,6}(?:\.\d{1,3})?))? (?:degrees of freedom|dfs?|d\.f\.|DF)(?![A-Za-z])/;
 
 function readDfInWords(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
   // ("with" itself is skipped as a connecting word, so the df may start right at `at`.)

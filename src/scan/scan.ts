@@ -137,8 +137,16 @@ const WORD_COMPARATOR = /(?<![\p{L}\d])((?:F|t|z|Z|\u03c72|chi2|chi-squared?|chi
 
 function restoreWordComparators(text: string): string {
   if (!text.includes('value') && !text.includes('ratio') && !text.includes('statistic') && !text.includes('score')) return text;
-  return text.replace(WORD_COMPARATOR, (_, named: string, word: string) => `${named} =${' '.repeat(word.length)}`);
+  return text
+    .replace(WORD_COMPARATOR, (_, named: string, word: string) => `${named} =${' '.repeat(word.length)}`)
+    .replace(NAME_COLON_VALUE, '$1=');
 }
+
+/**
+ * "F-statistic: 4.21 on 1 and 38 DF,  p-value: 0.047", as statistics programs print a model's test: the colon
+ * stands for "=" (for the p only after "p-value", where it cannot be a bound's sign).
+ */
+const NAME_COLON_VALUE = /(?<![\p{L}\d])((?:F|t|z|Z|\u03c72|chi2|X2|p|P)[- ](?:statistic|value|ratio)):(?= {1,2}[-\u2212]?\.?\d)/gu;
 
 /** Longest stretch before a statistic's separator searched for a p written first ("p < 0.001, F(1,22) = 25.98"). */
 const P_FIRST_WINDOW = 24;

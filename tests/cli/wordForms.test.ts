@@ -65,3 +65,19 @@ describe('a statistic whose p a copy lost, from the command line', () => {
     expect(scanTextJson('The retest reliability was high (r = 0.85).\n').statistics).toEqual([]);
   });
 });
+
+describe('df in brackets after the value, and a program\'s model summary line, from the command line', () => {
+  it('reads "F = 4.21 (1, 38), p = .047" with its df and flags a p the F cannot give', () => {
+    // F(1, 38) = 4.21 gives p = .0471 (SciPy scipy.stats.f.sf(4.21, 1, 38) = 0.04712, computed when the test was written).
+    const right = scanTextJson('The groups differed, F = 4.21 (1, 38), p = .047.\n').statistics;
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['F', [1, 38], 4.21]]);
+    expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+    const wrong = scanTextJson('The groups differed, F = 4.21 (1, 38), p = .47.\n').statistics;
+    expect(wrong.flatMap((statistic) => statistic.findings.map((finding) => finding.rule))).toContain('p-value-mismatch');
+  });
+
+  it('reads "F-statistic: 4.21 on 1 and 38 DF,  p-value: 0.047" as F(1, 38) = 4.21, p = .047', () => {
+    const statistics = scanTextJson('Multiple R-squared: 0.1, F-statistic: 4.21 on 1 and 38 DF,  p-value: 0.047\n').statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value, statistic.p?.value])).toEqual([['F', [1, 38], 4.21, 0.047]]);
+  });
+});
