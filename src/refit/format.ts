@@ -106,10 +106,40 @@ function missingText(o: RefitOutput): string {
   return `${o.droppedRows} row${o.droppedRows === 1 ? '' : 's'} dropped for missing values (empty, NA${codes ? `, codes ${codes}` : ''})`;
 }
 
-/** One line on the type and coding used. */
-export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'>): string {
-  if (o.type === 3) return `type III sums of squares, ${o.codingDescription}`;
-  return `${typeLabel(o.type)} sums of squares (${o.codingDescription}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
+/** One line on the type and coding used (and, for type I, the order of the terms). */
+export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'> & Partial<Pick<RefitOutput, 'terms' | 'termOrder' | 'factors'>>): string {
+  const reference =
+    o.coding === 'treatment' && o.factors !== undefined && o.factors.length > 0
+      ? ` (reference ${o.factors.map((f) => `${f.name} = ${f.reference ?? f.levels[0]}`).join(', ')})`
+      : '';
+  if (o.type === 3) return `type III sums of squares, ${o.codingDescription}${reference}`;
+  const order =
+    o.type === 1 && o.terms !== undefined
+      ? `, terms ${o.termOrder === 'written' ? 'in the order written' : 'in order of degree (main effects and covariates, then interactions)'}: ${o.terms.map((t) => termLabel(t.term)).join(', ')}`
+      : '';
+  return `${typeLabel(o.type)} sums of squares${order} (${o.codingDescription}${reference}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
+}
+
+/** "group: 1 control, 2 training, 3 waitlist" for factors with labels (levels in analysis order). */
+export function factorsLine(o: RefitOutput): string | null {
+  if (o.factors.length === 0) return null;
+  return o.factors
+    .map((f) => `${f.name}: ${f.levels.map((l, i) => (f.labels[i] !== undefined && f.labels[i] !== l ? `${l} = ${f.labels[i]}` : l)).join(', ')}`)
+    .join('; ');
+}
+
+/** Sentences printed after the tables: notes on the model, values outside declared ranges, the homogeneity-of-slopes test. */
+export function reportNotes(o: RefitOutput): string[] {
+  const out = [...o.notes];
+  for (const r of o.outOfRange) {
+    const values = r.values.map((v) => `${v.value}${v.count > 1 ? ` ×${v.count}` : ''}`).join(', ');
+    const codes = [...new Set(r.values.map((v) => v.value))].join(',');
+    out.push(
+      `${r.count} value${r.count === 1 ? '' : 's'} of ${r.column} outside its range ${r.low}..${r.high} (${values}), row${r.rows.length === 1 ? '' : 's'} ${r.rows.join(', ')}${r.count > r.rows.length ? ', ...' : ''}: ${r.count === 1 ? 'it is' : 'they are'} in the analysis. If ${r.count === 1 ? 'it is a missing-value code' : 'they are missing-value codes'}, declare ${r.count === 1 ? 'it' : 'them'}: --missing "${r.column}=${codes}".`,
+    );
+  }
+  if (o.slopes) out.push('error' in o.slopes ? `Homogeneity of regression slopes could not be tested: ${o.slopes.error}` : o.slopes.sentence);
+  return out;
 }
 
 function verdictWord(chalk: ChalkInstance, v: ComparedNumber['verdict']): string {
@@ -318,6 +348,8 @@ export function formatRefitText(o: RefitOutput, options: { color: boolean }): st
   lines.push(`  Model    ${o.model}`);
   lines.push(`  Method   ${methodLine(o)}`);
   lines.push(`  Rows     ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`);
+  const factors = factorsLine(o);
+  if (factors) lines.push(`  Levels   ${factors}`);
   lines.push('');
   const table = pad([TABLE_HEAD, ...o.terms.map(tableCells), residualCells(o)]);
   lines.push(`  ${chalk.bold(table[0]!)}`, ...table.slice(1).map((l) => `  ${l}`));
@@ -332,6 +364,8 @@ export function formatRefitText(o: RefitOutput, options: { color: boolean }): st
   }
   const levene = leveneLine(o);
   if (levene) lines.push('', levene);
+  const notes = reportNotes(o);
+  if (notes.length > 0) lines.push('', chalk.bold('Notes'), ...notes.map((n) => `  - ${n}`));
   if (o.comparison) {
     const c = o.comparison;
     lines.push('');
@@ -385,7 +419,10 @@ export function formatRefitMarkdown(o: RefitOutput): string {
   lines.push(`# Refit of ${o.data}`, '');
   lines.push(`- Model: \`${o.model}\``);
   lines.push(`- Method: ${methodLine(o)}`);
-  lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`, '');
+  lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`);
+  const factors = factorsLine(o);
+  if (factors) lines.push(`- Levels: ${mdEscape(factors)}`);
+  lines.push('');
   lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map(tableCells), residualCells(o)]));
   lines.push('', `${tableNote(o)} ${fitLine(o)}.`);
   const omitted = descriptivesOmitted(o);
@@ -395,6 +432,8 @@ export function formatRefitMarkdown(o: RefitOutput): string {
   }
   const levene = leveneLine(o);
   if (levene) lines.push('', mdItalicLine(levene));
+  const notes = reportNotes(o);
+  if (notes.length > 0) lines.push('', '## Notes', '', ...notes.map((n) => `- ${mdItalicLine(mdEscape(n).replace(/[*_]/g, '\\$&'))}`));
   if (o.comparison) {
     lines.push('', `## Compared with ${o.comparison.reportedFile}`, '', `Read from: ${o.comparison.sources.join(', ')}.`, '');
     lines.push(...mdTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells)));
@@ -459,6 +498,14 @@ export function formatRefitHtml(o: RefitOutput): string {
   });
   const levene = leveneLine(o);
   if (levene) parts.push(`<p>${htmlSymbols(levene)}</p>`);
+  const factors = factorsLine(o);
+  const notes = reportNotes(o);
+  if (factors || notes.length > 0) {
+    parts.push('<h2>Notes</h2>', '<ul>');
+    if (factors) parts.push(`<li>Levels: ${esc(factors)}</li>`);
+    for (const n of notes) parts.push(`<li>${htmlSymbols(n)}</li>`);
+    parts.push('</ul>');
+  }
   if (o.comparison) {
     parts.push(`<h2>Compared with ${esc(o.comparison.reportedFile)}</h2>`, `<p>Read from: ${esc(o.comparison.sources.join(', '))}.</p>`);
     parts.push('<table class="cmp"><thead>', row(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], 'th'), '</thead><tbody>');

@@ -11,7 +11,7 @@ import {
   WidthType,
   type IBorderOptions,
 } from 'docx';
-import { comparisonCells, explanationLines, extraTables, fitLine, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
+import { comparisonCells, explanationLines, extraTables, factorsLine, fitLine, reportNotes, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
 import type { RefitOutput } from './output.js';
 
 /**
@@ -116,6 +116,7 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
           new Paragraph({ children: [run('Note. ', { italics: true }), run(tableNote(o).replace(/^Note\.\s*/, '')), run(' '), ...symbolRuns(`${fitLine(o)}.`)], spacing: { before: 120 } }),
           ...extra,
           ...(levene ? [new Paragraph({ children: symbolRuns(levene), spacing: { before: 240 } })] : []),
+          ...[...(factorsLine(o) ? [`Levels: ${factorsLine(o)}`] : []), ...reportNotes(o)].map((n, i) => new Paragraph({ children: symbolRuns(n), spacing: { before: i === 0 ? 240 : 60 } })),
           ...compared,
         ],
       },

@@ -40,7 +40,7 @@ describe('plumbline refit on the demo study', () => {
     expect(code).toBe(1);
     const json = refitOutputSchema.parse(JSON.parse(out));
     expect(json).toMatchObject({ n: 132, droppedRows: 18, type: 3, coding: 'sum', verdict: 'differs' });
-    expect(json.terms.map((t) => t.term)).toEqual(['route', 'pace', 'route:pace', 'loneliness']);
+    expect(json.terms.map((t) => t.term)).toEqual(['route', 'pace', 'loneliness', 'route:pace']); // by degree
     expect(Object.keys(json.terms[0]!)).toEqual(['term', 'ss', 'df', 'ms', 'F', 'p', 'partialEtaSquared']);
     expect(json.residual.df).toBe(125);
     expect(json.explanations![0]).toMatchObject({ slip: 'missing-codes-kept', reproduces: 'all', matches: 27, compared: 27 });
@@ -129,7 +129,10 @@ describe('plumbline refit input errors (exit 2, with file, row and column)', () 
     writeFileSync(spec, JSON.stringify({ model: 'score ~ group + age', factors: { group: { levels: ['lo', 'mid'] } } }));
     const { code, err } = await run(['refit', fixturePath('refit/unbalanced_3x2_cov.csv'), '--spec', spec]);
     expect(code).toBe(2);
-    expect(err).toMatch(/unbalanced_3x2_cov\.csv, row \d+, column 'group': value "hi" is not one of the declared levels/);
+    // Every such cell in one run, then the advice in the description file's terms (the analysis came from --spec).
+    expect(err).toMatch(/unbalanced_3x2_cov\.csv: 19 cells cannot be read; nothing was fitted:\n  row \d+, column 'group': value "hi" is not one of the declared levels \(lo, mid\)\n/);
+    expect(err.match(/value "hi" is not one of the declared levels/g)).toHaveLength(19);
+    expect(err).toContain("'group': add the values to the levels (factors.group.levels), or declare them missing (missing.group).");
   });
 
   it('usage: no model, docx without --output, a bad --missing, a missing file', async () => {
