@@ -4,7 +4,7 @@ import { parseFormula, type FormulaTerm } from './formula.js';
 import { fitModel, type AnovaTable, type Coding, type FittedModel, type SsType } from './model.js';
 import { compareTables, type Comparison } from './compare.js';
 import type { ReportedSet } from './reportedTable.js';
-import type { AnalysisSpecInput } from './spec.js';
+import { orderTerms, type AnalysisSpecInput } from './spec.js';
 
 /**
  * When the reported table does not match the recomputed one, refit the
@@ -157,7 +157,9 @@ function describeCodes(codes: unknown): string {
 }
 
 function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
-  const { outcome, terms } = parseFormula(spec.model);
+  const written = parseFormula(spec.model);
+  const outcome = written.outcome;
+  const terms = orderTerms(written.terms, spec.termOrder ?? 'degree');
   const type = (spec.type ?? 3) as SsType;
   const coding: Coding = spec.coding ?? 'sum';
   const list: Variant[] = [];
@@ -165,9 +167,10 @@ function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
   const add = (slip: SlipKind, description: string, changes: Partial<AnalysisSpecInput>, t: SsType = type) =>
     list.push({ slip, description, spec: { ...spec, ...changes, type: t }, type: t });
 
-  if (type !== 1) add('type-1', `type I (sequential) sums of squares in the formula's order (${termNames(terms)})`, {}, 1);
+  if (type !== 1) add('type-1', `type I (sequential) sums of squares with the terms in the order ${termNames(terms)}`, {}, 1);
+  // Other orders, the written one among them when it differs (software that keeps the written order).
   for (const order of hierarchicalOrders(terms)) {
-    add('type-1-order', `type I (sequential) sums of squares with the terms in the order ${termNames(order)}`, { model: formulaOf(outcome, order) }, 1);
+    add('type-1-order', `type I (sequential) sums of squares with the terms in the order ${termNames(order)}`, { model: formulaOf(outcome, order), termOrder: 'written' }, 1);
   }
   if (type !== 2) add('type-2', 'type II sums of squares', {}, 2);
   if (type !== 3) add('type-3', 'type III sums of squares (sum-to-zero coding)', { coding: 'sum' }, 3);
