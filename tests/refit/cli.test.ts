@@ -159,3 +159,35 @@ describe('refit JSON schema', () => {
     expect(committed).toEqual(JSON.parse(JSON.stringify(refitJsonSchema())));
   });
 });
+
+describe('the workflow in corpus-demo/refit/README.md', () => {
+  const readme = readFileSync(demo('README.md'), 'utf8');
+  const workflow = ['--labels', 'pace=self:self-paced,guided:guided', '--means', 'route', '--adjust', 'tukey', '--contrast', 'route=0.5,0.5,-1'];
+
+  it('prints what the README shows: the comparison, then the ANCOVA with adjusted means, Tukey, the contrast and the slopes test', async () => {
+    const compared = await run(['refit', DATA, '--spec', SPEC, '--reported', PAPER]);
+    expect(compared.code).toBe(1);
+    expect(readme).toContain(compared.out);
+    const { code, out } = await run(['refit', DATA, '--spec', SPEC, ...workflow]);
+    expect(code).toBe(0);
+    expect(readme).toContain(out);
+    expect(out).toMatch(/harbour - indoor\s+3\.32\s+0\.80\s+125\s+4\.15\s+< \.001/);
+    expect(out).toMatch(/harbour \+ park vs indoor\s+harbour 0\.5; park 0\.5; indoor -1\s+2\.55\s+0\.68\s+125\s+3\.74\s+< \.001/);
+    expect(out).toContain('Homogeneity of regression slopes (loneliness × route, loneliness × pace, loneliness × route × pace added to the model and tested together): F(5, 120) = 0.25');
+    expect(out).toContain('harbour  self-paced  22  24.14');
+  });
+
+  it('exports the tables as a Word file', async () => {
+    const docxFile = join(tmp, 'harbour-walks-tables.docx');
+    const { code, err } = await run(['refit', DATA, '--spec', SPEC, ...workflow, '--slopes', '--format', 'docx', '--output', docxFile]);
+    expect(code).toBe(0);
+    expect(err).toContain(`wrote ${docxFile}`);
+    const { value } = await mammoth.convertToHtml({ path: docxFile });
+    for (const title of ['Estimated marginal means of mood by route', 'Pairwise comparisons of mood by route, Tukey-Kramer adjustment', 'Planned contrasts of the estimated marginal means of mood']) {
+      expect(value).toContain(title);
+    }
+    expect(value).toContain('harbour + park vs indoor');
+    expect(value).toContain('self-paced');
+    expect(value).toContain('Homogeneity of regression slopes');
+  });
+});
