@@ -656,7 +656,7 @@ function problemText(p: CellProblem): string {
     case 'RAGGED_ROW':
       return `row ${p.row}: ${p.fields} fields, but the header has ${p.width} columns`;
     case 'TEXT_IN_NUMERIC_COLUMN':
-      return `row ${p.row}, column '${p.column}': "${p.text}" is not a number, but the column is numeric (${p.outcome ? 'it is the outcome' : 'a covariate'})${p.hint.replace(/^ \(/, ' (').replace(/\.\)$/, ')')}`;
+      return `row ${p.row}, column '${p.column}': "${p.text}" is not a number, but the column is numeric (${p.outcome ? 'it is the outcome' : 'a covariate'})${p.hint.replace(/\.\)$/, ')')}`;
     case 'UNKNOWN_LEVEL':
       return `row ${p.row}, column '${p.column}': value "${p.text}" is not one of the declared levels (${p.levels.join(', ')})`;
   }

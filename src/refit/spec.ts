@@ -13,7 +13,8 @@ import { parseCellNumber } from './numeric.js';
  *   "missing": { "score": "-99", "age": ">=200", "group": [9] },
  *   "rename": { "GRP": "group" },
  *   "model": "score ~ group + age",
- *   "type": 3, "coding": "sum" }
+ *   "type": 3, "coding": "sum",
+ *   "ranges": { "score": "0..100" }, "termOrder": "degree", "center": false, "slopes": true }
  * ```
  */
 

@@ -362,3 +362,21 @@ describe('unreadable cells and identifier columns', () => {
     expect(declared.err).toContain('Leave it out of the model and drop --factor participant; if it is a measure, make it a covariate (--covariate participant).');
   });
 });
+
+describe('the description file takes the same', () => {
+  it('"termOrder", "center", "slopes", "ranges" and "labels" in --spec give what the options give', async () => {
+    const c = ref.centred;
+    const data = fixturePath(`refit/${c.file}`);
+    const spec = file('centred.json', JSON.stringify({ model: 'resp ~ arm * baseline', center: true, termOrder: 'written', factors: { arm: { labels: { ctl: 'control' } } } }));
+    const o = await json([data, '--spec', spec]);
+    expect(o.termOrder).toBe('written');
+    expect(o.factors[0]!.labels[o.factors[0]!.levels.indexOf('ctl')]).toBe('control');
+    expect(sameTable('centred from the file', o, c.terms, c.residual)).toEqual([]);
+    const s = ref.slopes;
+    const slopesSpec = file('slopes.json', JSON.stringify({ model: 'wellbeing ~ group * site + baseline', missing: { wellbeing: '-9', baseline: '999' }, slopes: true }));
+    const withSlopes = await json([fixturePath(`refit/${s.file}`), '--spec', slopesSpec]);
+    expect(withSlopes.slopes && 'F' in withSlopes.slopes ? relErr(withSlopes.slopes.F!, s.F) : 1, `F vs ${SM}`).toBeLessThan(TOL);
+    const off = await run(['refit', fixturePath(`refit/${s.file}`), '--spec', file('no-slopes.json', JSON.stringify({ model: 'wellbeing ~ group * site + baseline', missing: { wellbeing: '-9', baseline: '999' }, slopes: false }))]);
+    expect(off.out).not.toContain('Homogeneity of regression slopes');
+  });
+});
