@@ -18,7 +18,9 @@ import { orderTerms, type AnalysisSpecInput } from './spec.js';
  * - missing-value codes left in the data as numbers (all codes, and each
  *   column's codes alone);
  * - a covariate left out; an interaction left out (with the terms that
- *   contain it), and all interactions left out.
+ *   contain it), and all interactions left out;
+ * - values outside a declared range (usually undeclared missing-value codes)
+ *   removed as missing.
  *
  * A slip reproduces the report when every reported number matches its table
  * ("all"), or at least three quarters of them and more than the model as
@@ -35,7 +37,8 @@ export type SlipKind =
   | 'missing-codes-kept'
   | 'covariate-omitted'
   | 'interaction-omitted'
-  | 'interactions-omitted';
+  | 'interactions-omitted'
+  | 'out-of-range-missing';
 
 const SLIP_RANK: Record<SlipKind, number> = {
   'type-3-other-coding': 0,
@@ -47,6 +50,7 @@ const SLIP_RANK: Record<SlipKind, number> = {
   'interaction-omitted': 6,
   'interactions-omitted': 7,
   'type-1-order': 8,
+  'out-of-range-missing': 9,
 };
 
 export interface Explanation {
@@ -196,6 +200,18 @@ function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
         add('missing-codes-kept', `missing-value codes of ${c} left in the data as numbers (${c}=${describeCodes(missing[c])} not removed)`, { missing: rest });
       }
     }
+  }
+
+  // Cells outside the declared ranges are kept in the refit; the report may come from data without them.
+  if (model.outOfRange.length > 0) {
+    const withRanges: Record<string, unknown> = Object.assign(Object.create(null) as Record<string, unknown>, missing);
+    for (const r of model.outOfRange) {
+      const before = withRanges[r.column];
+      const codes: Array<string | number> = before === undefined ? [] : Array.isArray(before) ? [...(before as Array<string | number>)] : typeof before === 'number' ? [before] : String(before).split(',');
+      withRanges[r.column] = [...codes, `<${r.low}`, `>${r.high}`];
+    }
+    const what = model.outOfRange.map((r) => `${r.column} outside ${r.low}..${r.high}: ${r.count} value${r.count === 1 ? '' : 's'}`).join('; ');
+    add('out-of-range-missing', `values outside the declared ranges removed as missing (${what}), as undeclared missing-value codes would be`, { missing: withRanges as AnalysisSpecInput['missing'] });
   }
 
   const numeric = new Set(model.numericVars.map((v) => v.name));

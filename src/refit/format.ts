@@ -117,7 +117,7 @@ export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescr
     o.type === 1 && o.terms !== undefined
       ? `, terms ${o.termOrder === 'written' ? 'in the order written' : 'in order of degree (main effects and covariates, then interactions)'}: ${o.terms.map((t) => termLabel(t.term)).join(', ')}`
       : '';
-  return `${typeLabel(o.type)} sums of squares${order} (${o.codingDescription}${reference}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
+  return `${typeLabel(o.type)} sums of squares${order} (${o.codingDescription}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
 }
 
 /** "group: 1 control, 2 training, 3 waitlist" for factors with labels (levels in analysis order). */

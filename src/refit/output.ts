@@ -66,7 +66,7 @@ export const comparisonSchema = z.object({
 });
 
 export const explanationSchema = z.object({
-  slip: z.enum(['type-1', 'type-1-order', 'type-2', 'type-3', 'type-3-other-coding', 'missing-codes-kept', 'covariate-omitted', 'interaction-omitted', 'interactions-omitted']),
+  slip: z.enum(['type-1', 'type-1-order', 'type-2', 'type-3', 'type-3-other-coding', 'missing-codes-kept', 'covariate-omitted', 'interaction-omitted', 'interactions-omitted', 'out-of-range-missing']),
   description: z.string(),
   model: z.string(),
   type: z.union([z.literal(1), z.literal(2), z.literal(3)]),
@@ -425,7 +425,8 @@ export function modelNotes(model: FittedModel): string[] {
       `Level${dropped.length > 1 ? 's' : ''} ${list} of ${v.name} ${dropped.length > 1 ? 'have' : 'has'} no analysed rows once rows with missing values are removed, so ${dropped.length > 1 ? 'they are' : 'it is'} left out of the model (levels analysed: ${v.levels.join(', ')}).`,
     );
   }
-  if (spec.coding === 'treatment' && model.factorVars.length > 0) {
+  // The reference levels matter where the coding does: type III tests and the coefficients.
+  if (spec.coding === 'treatment' && model.factorVars.length > 0 && (spec.type === 3 || spec.coefficients)) {
     const change = cli ? 'list the levels with the reference first (--levels "<factor>=<reference>,...")' : 'list the levels with the reference first in factors.<factor>.levels';
     notes.push(`Treatment coding: each factor's first level is its reference (${model.factorVars.map((v) => `${v.name} = ${levelText(model, v.name, v.levels[0]!)}`).join(', ')}); to change it, ${change}.`);
     if (spec.type === 3) {

@@ -230,6 +230,20 @@ describe('levels: order, labels, reference, levels left out, declared ranges (cl
     expect(badRange.err).toContain('--range "score=...": the range has its lower end above its upper end');
   });
 
+  it(`the slip search tries the values outside --range as missing: a table printed from ${SM} without the 99s is reproduced`, async () => {
+    const p = (x: number) => (x < 0.001 ? '< .001' : x.toFixed(3).replace(/^0/, ''));
+    const rows = c.terms.map((t) => `${t.term},${t.ss.toFixed(2)},${t.df},${t.F.toFixed(2)},${p(t.p)}`);
+    const table = file('clinics-reported.csv', `Source,SS,df,F,p\n${rows.join('\n')}\nError,${c.residual.ss.toFixed(2)},${c.residual.df},,\n`);
+    const argv = [data, '--model', 'score ~ clinic + visits', '--coding', 'treatment', '--range', 'score=1..40', '--reported', table];
+    const { code, out } = await run(['refit', ...argv, '--format', 'json']);
+    expect(code).toBe(1); // the refit keeps the 99s, so the numbers differ
+    const o = refitOutputSchema.parse(JSON.parse(out));
+    expect(o.explanations![0]).toMatchObject({ slip: 'out-of-range-missing', reproduces: 'all' });
+    expect(o.explanations![0]!.description).toBe('values outside the declared ranges removed as missing (score outside 1..40: 2 values), as undeclared missing-value codes would be');
+    const text = (await run(['refit', ...argv])).out;
+    expect(text).toMatch(/1\. Values outside the declared ranges removed as missing \(score outside 1\.\.40: 2 values\), as undeclared missing-value codes would be: all \d+ reported numbers match/);
+  });
+
   it('a covariate with few whole-number values: said to be numeric, with how to make it a factor', async () => {
     const o = await json([data, ...c.argv]);
     expect(o.notes).toContain(
