@@ -31,6 +31,7 @@ export function registerRefitCommand(program: Command, io: CliIo, setExitCode: (
     .addOption(new Option('--levene <center>', "Levene's test of equal variances across the cells, centred on each cell's median (Brown-Forsythe) or mean").choices(['median', 'mean']))
     .option('--levels <levels>', 'declare a factor\'s levels in the order wanted: "group=control,training,waitlist" (repeatable; other values are then errors)', collect, [])
     .option('--labels <labels>', 'labels for a factor\'s level codes, shown in every output: "group=1:control,2:training,3:waitlist" (repeatable)', collect, [])
+    .option('--name <name>', 'a name shown for a variable in the tables, which reported rows may use too: "route=Walking route" (repeatable)', collect, [])
     .option('--range <range>', 'values a numeric column may take; cells outside are reported with their rows: "mood=1..5" (repeatable)', collect, [])
     .addOption(new Option('--term-order <order>', 'order of the terms, which type I sums of squares follow: by degree (main effects and covariates, then two-way interactions, ...; default) or as written').choices(['degree', 'written']))
     .option('--center', 'centre covariates at their means where they interact with a factor, so type III tests of the factor are at the mean, not at 0')

@@ -52,6 +52,7 @@ export interface RefitOptions {
   termOrder?: 'degree' | 'written';
   center?: boolean;
   slopes?: boolean;
+  name?: string[];
   format: Format;
   output?: string;
 }
@@ -94,7 +95,7 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 
 /** The analysis description: the --spec file, overridden by the command line. */
 export function buildSpec(
-  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'weights' | 'levene' | 'labels' | 'levels' | 'range' | 'termOrder' | 'center' | 'slopes'>,
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'weights' | 'levene' | 'labels' | 'levels' | 'range' | 'termOrder' | 'center' | 'slopes' | 'name'>,
 ): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
   // Advice in messages is written in the syntax the user used: options when there is no description file.
@@ -157,6 +158,14 @@ export function buildSpec(
       ranges[column] = rest;
     }
     raw.ranges = ranges;
+  }
+  if ((options.name ?? []).length > 0) {
+    const names = namedCopy(raw.names, 'names', options.spec);
+    for (const entry of options.name ?? []) {
+      const { column, rest } = splitNamed(entry, '--name', 'write it as "<variable>=<name shown>", e.g. "route=Walking route"');
+      names[column] = rest;
+    }
+    raw.names = names;
   }
   if (options.termOrder !== undefined) raw.termOrder = options.termOrder;
   if (options.center) raw.center = true;
@@ -249,7 +258,9 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
     if (reason !== null) throw new UsageError(`${label}${path}: ${reason}`);
   }
   const spec = buildSpec(options);
-  const map = parseTermMap(options.map);
+  // Reported rows printed with a display name (--name) match their terms; --map entries come first.
+  const displayed = Object.entries((spec.names ?? {}) as Record<string, string>).map(([variable, name]) => `${name}=${variable}`);
+  const map = parseTermMap([...displayed, ...options.map]);
   // Limits on reading the reported manuscript (its size, DOCX and PDF bounds, its time budget); refit takes no settings file.
   const limits = limitsFrom(undefined, options);
   const resolved = parseAnalysisSpec(spec); // validate before reading data

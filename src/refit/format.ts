@@ -41,9 +41,13 @@ export function formatDf(x: number): string {
   return Number.isInteger(x) ? String(x) : x.toFixed(2);
 }
 
-/** "route:pace" -> "route × pace". */
-export function termLabel(term: string): string {
-  return term.split(':').join(' × ');
+/** "route:pace" -> "route × pace", each variable by its display name when it has one (--name). */
+export function termLabel(term: string, names?: Pick<RefitOutput, 'displayNames'>): string {
+  const display = new Map((names?.displayNames ?? []).map((d) => [d.variable, d.name]));
+  return term
+    .split(':')
+    .map((v) => display.get(v) ?? v)
+    .join(' × ');
 }
 
 export function typeLabel(type: 1 | 2 | 3): string {
@@ -78,8 +82,8 @@ function showDifference(n: { quantity: Quantity; reported: string | null; differ
   return `${n.difference > 0 ? '+' : ''}${s}`;
 }
 
-function tableCells(r: Row): string[] {
-  return [termLabel(r.term), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)];
+function tableCells(r: Row, o?: Pick<RefitOutput, 'displayNames'>): string[] {
+  return [termLabel(r.term, o), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)];
 }
 
 function residualCells(o: Pick<RefitOutput, 'residual'>, label = 'Residual'): string[] {
@@ -107,7 +111,7 @@ function missingText(o: RefitOutput): string {
 }
 
 /** One line on the type and coding used (and, for type I, the order of the terms). */
-export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'> & Partial<Pick<RefitOutput, 'terms' | 'termOrder' | 'factors'>>): string {
+export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'> & Partial<Pick<RefitOutput, 'terms' | 'termOrder' | 'factors' | 'displayNames'>>): string {
   const reference =
     o.coding === 'treatment' && o.factors !== undefined && o.factors.length > 0
       ? ` (reference ${o.factors.map((f) => `${f.name} = ${f.reference ?? f.levels[0]}`).join(', ')})`
@@ -115,7 +119,7 @@ export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescr
   if (o.type === 3) return `type III sums of squares, ${o.codingDescription}${reference}`;
   const order =
     o.type === 1 && o.terms !== undefined
-      ? `, terms ${o.termOrder === 'written' ? 'in the order written' : 'in order of degree (main effects and covariates, then interactions)'}: ${o.terms.map((t) => termLabel(t.term)).join(', ')}`
+      ? `, terms ${o.termOrder === 'written' ? 'in the order written' : 'in order of degree (main effects and covariates, then interactions)'}: ${o.terms.map((t) => termLabel(t.term, o as Pick<RefitOutput, 'displayNames'>)).join(', ')}`
       : '';
   return `${typeLabel(o.type)} sums of squares${order} (${o.codingDescription}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
 }
@@ -152,7 +156,7 @@ export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Arr
   for (const row of o.comparison?.rows ?? []) {
     const reportedAny = row.numbers.some((n) => n.verdict !== 'not reported');
     if (!reportedAny) {
-      out.push({ cells: [termLabel(row.term), '', '', '', '', '', 'not reported'], verdict: 'not reported' });
+      out.push({ cells: [termLabel(row.term, o), '', '', '', '', '', 'not reported'], verdict: 'not reported' });
       continue;
     }
     let first = true;
@@ -160,7 +164,7 @@ export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Arr
       if (n.verdict === 'not reported' && !includeUnreported) continue;
       out.push({
         cells: [
-          first ? termLabel(row.term) : '',
+          first ? termLabel(row.term, o) : '',
           first ? (row.reportedLabel ?? '') : '',
           QUANTITY_LABEL[n.quantity],
           n.reported ?? '',
@@ -275,10 +279,11 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   const where = o.covariatesAt.length > 0 ? `Covariates held at ${covariatesAtText(o)}` : 'No covariates';
   const weighting = o.cellWeights === 'proportional' ? 'weighted by their share of the analysed rows' : 'weighted equally';
   const analysis = `N = ${o.n}; ${exclusionsText(o)}. ${method}. Model: ${o.model}.`;
-  const factorNames = o.factors.map((f) => f.name);
+  const factorNames = o.factors.map((f) => termLabel(f.name, o));
+  const outcome = termLabel(o.outcome, o);
   if (o.descriptives.length > 0 && o.descriptives.length <= MAX_DESCRIPTIVE_CELLS) {
     tables.push({
-      title: `Unadjusted descriptives of ${o.outcome}${factorNames.length > 0 ? ` by ${factorNames.map(termLabel).join(' × ')}` : ''}`,
+      title: `Unadjusted descriptives of ${outcome}${factorNames.length > 0 ? ` by ${factorNames.join(' × ')}` : ''}`,
       head: [...(factorNames.length > 0 ? factorNames : ['Rows']), 'n', 'M', 'SD'],
       rows: o.descriptives.map((d) => [...(d.levels.length > 0 ? d.levels.map((l) => l.label) : [d.label]), String(d.n), formatNumber(d.mean), formatNumber(d.sd)]),
       numbersFrom: Math.max(1, factorNames.length),
@@ -288,7 +293,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   }
   if (o.coefficients) {
     tables.push({
-      title: `Regression coefficients of the model for ${o.outcome}`,
+      title: `Regression coefficients of the model for ${outcome}`,
       head: ['Term', 'b', 'SE', 't', 'p', ci],
       rows: o.coefficients.map((c) => [c.name, formatNumber(c.estimate, 3), formatNumber(c.se, 3), formatF(c.t), formatP(c.p), `[${formatNumber(c.lower, 3)}, ${formatNumber(c.upper, 3)}]`]),
       numbersFrom: 1,
@@ -297,10 +302,10 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
   }
   for (const m of o.marginalMeans ?? []) {
-    const names = m.within === undefined ? m.term.split(':') : [m.within, ...m.term.split(':')];
-    const by = `${termLabel(m.term)}${m.within === undefined ? '' : ` within ${m.within}`}`;
+    const names = (m.within === undefined ? m.term.split(':') : [m.within, ...m.term.split(':')]).map((n) => termLabel(n, o));
+    const by = `${termLabel(m.term, o)}${m.within === undefined ? '' : ` within ${termLabel(m.within, o)}`}`;
     tables.push({
-      title: `Estimated marginal means of ${o.outcome} by ${by}`,
+      title: `Estimated marginal means of ${outcome} by ${by}`,
       head: [...names, 'M', 'SE', ci],
       rows: m.means.map((r) => [...r.levels.map((l) => l.label), formatNumber(r.mean), formatNumber(r.se), formatInterval(r.lower, r.upper)]),
       numbersFrom: names.length,
@@ -309,8 +314,8 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
     if (m.pairwise) {
       tables.push({
-        title: `Pairwise comparisons of ${o.outcome} by ${by}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
-        head: [...(m.within === undefined ? [] : [m.within]), 'Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
+        title: `Pairwise comparisons of ${outcome} by ${by}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
+        head: [...(m.within === undefined ? [] : [termLabel(m.within, o)]), 'Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
         rows: m.pairwise.comparisons.map((c) => [
           ...(m.within === undefined ? [] : [c.within ?? '']),
           `${c.first} - ${c.second}`,
@@ -329,7 +334,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   }
   if (o.contrasts && o.contrasts.length > 0) {
     tables.push({
-      title: `Planned contrasts of the estimated marginal means of ${o.outcome}`,
+      title: `Planned contrasts of the estimated marginal means of ${outcome}`,
       head: ['Contrast', 'Weights', 'Estimate', 'SE', 'df', 't', 'p', ci],
       rows: o.contrasts.map((c) => [c.name, c.weights.map((w) => `${w.label} ${w.weight}`).join('; '), formatNumber(c.estimate), formatNumber(c.se), formatDf(c.df), formatF(c.t), formatP(c.p), formatInterval(c.lower, c.upper)]),
       numbersFrom: 2,
@@ -351,7 +356,7 @@ export function formatRefitText(o: RefitOutput, options: { color: boolean }): st
   const factors = factorsLine(o);
   if (factors) lines.push(`  Levels   ${factors}`);
   lines.push('');
-  const table = pad([TABLE_HEAD, ...o.terms.map(tableCells), residualCells(o)]);
+  const table = pad([TABLE_HEAD, ...o.terms.map((r) => tableCells(r, o)), residualCells(o)]);
   lines.push(`  ${chalk.bold(table[0]!)}`, ...table.slice(1).map((l) => `  ${l}`));
   lines.push(`  ${fitLine(o)}`);
   const omitted = descriptivesOmitted(o);
@@ -423,7 +428,7 @@ export function formatRefitMarkdown(o: RefitOutput): string {
   const factors = factorsLine(o);
   if (factors) lines.push(`- Levels: ${mdEscape(factors)}`);
   lines.push('');
-  lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map(tableCells), residualCells(o)]));
+  lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map((r) => tableCells(r, o)), residualCells(o)]));
   lines.push('', `${tableNote(o)} ${fitLine(o)}.`);
   const omitted = descriptivesOmitted(o);
   if (omitted) lines.push('', omitted);
@@ -466,7 +471,7 @@ export function tableNote(o: RefitOutput): string {
 
 /** Self-contained HTML page: the recomputed ANOVA table (APA-like), and the comparison when numbers were reported. */
 export function formatRefitHtml(o: RefitOutput): string {
-  const title = `Refit of ${o.outcome}: ${o.type === 3 ? 'type III' : typeLabel(o.type)} ANOVA table`;
+  const title = `Refit of ${termLabel(o.outcome, o)}: ${o.type === 3 ? 'type III' : typeLabel(o.type)} ANOVA table`;
   const row = (cells: string[], tag = 'td') => `<tr>${cells.map((c, i) => `<${tag}${i === 0 ? ' class="src"' : ''}>${esc(c)}</${tag}>`).join('')}</tr>`;
   const italicHead = `<tr>${TABLE_HEAD.map((h, i) => `<th${i === 0 ? ' class="src"' : ''}>${['SS', 'df', 'MS', 'F', 'p'].includes(h) ? `<i>${esc(h)}</i>` : h === 'ηp²' ? '<i>η</i><sub>p</sub><sup>2</sup>' : esc(h)}</th>`).join('')}</tr>`;
   const parts: string[] = [];
@@ -485,9 +490,9 @@ export function formatRefitHtml(o: RefitOutput): string {
     '</head>',
     '<body>',
   );
-  parts.push('<p><b>Table 1</b></p>', `<p class="caption">${esc(`${o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance'} of ${o.outcome}`)}</p>`);
+  parts.push('<p><b>Table 1</b></p>', `<p class="caption">${esc(`${o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance'} of ${termLabel(o.outcome, o)}`)}</p>`);
   parts.push('<table class="anova">', `<thead>${italicHead}</thead>`, '<tbody>');
-  for (const r of o.terms) parts.push(row(tableCells(r)));
+  for (const r of o.terms) parts.push(row(tableCells(r, o)));
   parts.push(row(residualCells(o)));
   parts.push('</tbody>', '</table>', `<p class="note">${esc(tableNote(o))} ${htmlSymbols(fitLine(o))}.</p>`);
   extraTables(o).forEach((t, i) => {

@@ -155,6 +155,7 @@ export const refitOutputSchema = z.object({
       reference: z.string().optional().describe('Treatment coding: the reference level (its code)'),
     }),
   ),
+  displayNames: z.array(z.object({ variable: z.string(), name: z.string() })).describe('Names shown for variables in the tables (--name), in place of the column names'),
   centered: z.array(z.object({ name: z.string(), at: z.number() })).describe('Covariates centred (--center) where they interact with a factor, and the value subtracted (their mean)'),
   notes: z.array(z.string()).describe('What the reader of the table needs to know: levels left out, what type III tests mean here, covariates that could be factors'),
   outOfRange: z
@@ -491,6 +492,7 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
       labels: v.levels.map((l) => v.labels.get(l) ?? l),
       ...(table.coding === 'treatment' ? { reference: v.levels[0]! } : {}),
     })),
+    displayNames: [...model.spec.names].map(([variable, name]) => ({ variable, name })),
     centered: model.spec.center ? model.numericVars.slice(0, -1).map((v, slot) => ({ name: v.name, at: model.centers[slot]! })) : [],
     notes: modelNotes(model),
     outOfRange: model.outOfRange,

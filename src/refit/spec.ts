@@ -135,6 +135,8 @@ export const analysisSpecSchema = z
     center: z.boolean().default(false),
     /** Test the homogeneity of regression slopes (covariate × factor interactions added to the model). */
     slopes: z.boolean().optional(),
+    /** Names shown for variables in the tables ("route": "Walking route"); reported rows printed with them match their terms. */
+    names: namedEntries(z.string().min(1)).default(() => new Map()),
     /** How advice in messages is written: options of the command line, or fields of the description file. */
     advice: z.enum(['command-line', 'description']).default('description'),
   })
@@ -319,6 +321,15 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
   const missingRules = new Map<string, MissingRule>();
   for (const [column, codes] of spec.missing) {
     missingRules.set(column, parseMissingRule(codes, `missing.${column}`));
+  }
+  for (const name of spec.names.keys()) {
+    if (!variables.has(name) && name !== formula.outcome) {
+      throw new RefitError(
+        'INVALID_SPEC',
+        `${spec.advice === 'command-line' ? `--name "${name}=..."` : `names.${name}`}: '${name}' is not in the model ${spec.model} (its variables: ${[formula.outcome, ...variables].join(', ')}); name a variable of the model.`,
+        { field: `names.${name}` },
+      );
+    }
   }
   const rangeBounds = new Map<string, [number, number]>();
   for (const [column, range] of spec.ranges) rangeBounds.set(column, parseRange(range, spec.advice === 'command-line' ? `--range "${column}=..."` : `ranges.${column}`));

@@ -394,3 +394,41 @@ describe('the description file takes the same', () => {
     expect(off.out).not.toContain('Homogeneity of regression slopes');
   });
 });
+
+describe('display names for variables (--name)', () => {
+  const data = fixturePath('refit/ancova_3x2.csv');
+  const argv = ['--model', 'wellbeing ~ group * site + baseline', '--missing', 'wellbeing=-9', '--missing', 'baseline=999', '--no-slopes'];
+  const names = ['--name', 'group=Training group', '--name', 'baseline=Baseline score', '--means', 'group'];
+
+  it('are shown in every format, and reported rows printed with them match their terms', async () => {
+    const text = (await run(['refit', data, ...argv, ...names])).out;
+    expect(text).toMatch(/\n  Training group × site\s+[\d.]+\s+2\s/);
+    expect(text).toMatch(/\n  Baseline score\s+[\d.]+\s+1\s/);
+    expect(text).toContain('Estimated marginal means of wellbeing by Training group');
+    const md = (await run(['refit', data, ...argv, ...names, '--format', 'md'])).out;
+    expect(md).toMatch(/\| Training group × site \| [\d.]+ \| 2 \|/);
+    const htmlFile = join(tmp, 'names.html');
+    await run(['refit', data, ...argv, ...names, '--format', 'html', '--output', htmlFile]);
+    expect(readFileSync(htmlFile, 'utf8')).toContain('<td class="src">Training group × site</td>');
+    const docxFile = join(tmp, 'names.docx');
+    await run(['refit', data, ...argv, ...names, '--format', 'docx', '--output', docxFile]);
+    expect((await mammoth.convertToHtml({ path: docxFile })).value).toContain('<td><p>Baseline score</p></td>');
+    const o = await json([data, ...argv, ...names]);
+    expect(o.displayNames).toEqual([{ variable: 'group', name: 'Training group' }, { variable: 'baseline', name: 'Baseline score' }]);
+    expect(o.terms.map((t) => t.term)).toEqual(['group', 'site', 'baseline', 'group:site']);
+
+    const f = (term: string) => o.terms.find((t) => t.term === term)!.F!.toFixed(2);
+    const table = file('names-reported.csv', `Source,F,df\nTraining group,${f('group')},2\nSite,${f('site')},1\nBaseline score,${f('baseline')},1\nTraining group x Site,${f('group:site')},2\n`);
+    const compared = await json([data, ...argv, ...names, '--reported', table]);
+    expect(compared.comparison!.unmatched).toEqual([]);
+    const label = (term: string) => compared.comparison!.rows.find((r) => r.term === term)!.reportedLabel;
+    expect(['group', 'site', 'baseline', 'group:site'].map(label)).toEqual(['Training group', 'Site', 'Baseline score', 'Training group x Site']);
+    expect(compared.verdict).toBe('matches');
+  });
+
+  it('a name for a variable not in the model is an error naming it', async () => {
+    const { code, err } = await run(['refit', data, ...argv, '--name', 'grup=Training group']);
+    expect(code).toBe(2);
+    expect(err).toContain(`--name "grup=...": 'grup' is not in the model wellbeing ~ group * site + baseline (its variables: wellbeing, group, site, baseline); name a variable of the model.`);
+  });
+});
