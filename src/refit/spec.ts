@@ -322,6 +322,15 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
   for (const [column, codes] of spec.missing) {
     missingRules.set(column, parseMissingRule(codes, `missing.${column}`));
   }
+  for (const [name, factor] of spec.factors) {
+    if ((factor.labels?.size ?? 0) > 0 && !variables.has(name)) {
+      throw new RefitError(
+        'INVALID_SPEC',
+        `${spec.advice === 'command-line' ? `--labels "${name}=..."` : `factors.${name}.labels`}: '${name}' is not in the model ${spec.model} (its variables: ${[...variables].join(', ')}); give labels for a factor of the model.`,
+        { field: `factors.${name}.labels` },
+      );
+    }
+  }
   for (const name of spec.names.keys()) {
     if (!variables.has(name) && name !== formula.outcome) {
       throw new RefitError(

@@ -210,6 +210,8 @@ describe('levels: order, labels, reference, levels left out, declared ranges (cl
     expect(bad.err).toContain(
       'clinics.csv: Factor \'clinic\': a label is given for level "site5" ("Inland"), but \'clinic\' has no such level in the data (its levels: site1, Site2, Site3, site10). Fix or remove it in --labels "clinic=...".',
     );
+    const elsewhere = await run(['refit', data, ...c.argv, '--labels', 'clinik=site1:North']);
+    expect(elsewhere.err).toContain(`--labels "clinik=...": 'clinik' is not in the model score ~ clinic + visits (its variables: clinic, visits); give labels for a factor of the model.`);
     const malformed = await run(['refit', data, ...c.argv, '--labels', 'clinic=North']);
     expect(malformed.err).toContain('--labels "clinic=North": "North" is not "<level>:<label>"');
   });
