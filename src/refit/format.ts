@@ -127,9 +127,12 @@ export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescr
 /** "group: 1 control, 2 training, 3 waitlist" for factors with labels (levels in analysis order). */
 export function factorsLine(o: RefitOutput): string | null {
   if (o.factors.length === 0) return null;
-  return o.factors
-    .map((f) => `${f.name}: ${f.levels.map((l, i) => (f.labels[i] !== undefined && f.labels[i] !== l ? `${l} = ${f.labels[i]}` : l)).join(', ')}`)
-    .join('; ');
+  // A factor with many levels shows its first 12 and the count (the JSON output lists them all).
+  const shown = (f: RefitOutput['factors'][number]) => {
+    const list = f.levels.slice(0, 12).map((l, i) => (f.labels[i] !== undefined && f.labels[i] !== l ? `${l} = ${f.labels[i]}` : l));
+    return f.levels.length > 12 ? `${list.join(', ')}, ... (${f.levels.length} levels)` : list.join(', ');
+  };
+  return o.factors.map((f) => `${termLabel(f.name, o)}: ${shown(f)}`).join('; ');
 }
 
 /** Sentences printed after the tables: notes on the model, values outside declared ranges, the homogeneity-of-slopes test. */

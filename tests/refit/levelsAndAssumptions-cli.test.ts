@@ -181,6 +181,14 @@ describe('levels: order, labels, reference, levels left out, declared ranges (cl
     expect(relErr(reordered.terms[0]!.F!, o.terms[0]!.F!)).toBeLessThan(1e-12); // the order changes no test
   });
 
+  it('levels numbered past 9 come in numeric order; a factor with many levels shows its first 12 and the count', async () => {
+    const rows = ['y,g', ...Array.from({ length: 120 }, (_, i) => `${((i * 37) % 11) + (i % 7) / 10},L${i % 40}`)];
+    const many = file('many-levels.csv', `${rows.join('\n')}\n`);
+    const { out } = await run(['refit', many, '--model', 'y ~ g']);
+    expect(out).toContain('  Levels   g: L0, L1, L2, L3, L4, L5, L6, L7, L8, L9, L10, L11, ... (40 levels)\n');
+    expect((await json([many, '--model', 'y ~ g'])).factors[0]!.levels.slice(8, 12)).toEqual(['L8', 'L9', 'L10', 'L11']);
+  });
+
   it('a declared level without analysed rows is an error naming it and the fix', async () => {
     const { code, err } = await run(['refit', data, ...c.argv, '--levels', 'clinic=site1,Site2,Site3,site10,site4']);
     expect(code).toBe(2);
