@@ -46,6 +46,13 @@ export interface RefitOptions {
   coefficients?: boolean;
   weights?: 'equal' | 'proportional';
   levene?: 'median' | 'mean';
+  labels?: string[];
+  levels?: string[];
+  range?: string[];
+  termOrder?: 'degree' | 'written';
+  center?: boolean;
+  slopes?: boolean;
+  name?: string[];
   format: Format;
   output?: string;
 }
@@ -88,9 +95,11 @@ function readSpecFile(path: string): AnalysisSpecInput & Record<string, unknown>
 
 /** The analysis description: the --spec file, overridden by the command line. */
 export function buildSpec(
-  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'weights' | 'levene'>,
+  options: Pick<RefitOptions, 'spec' | 'model' | 'type' | 'coding' | 'factor' | 'covariate' | 'missing' | 'maxColumns' | 'means' | 'pairwise' | 'adjust' | 'contrast' | 'at' | 'within' | 'coefficients' | 'weights' | 'levene' | 'labels' | 'levels' | 'range' | 'termOrder' | 'center' | 'slopes' | 'name'>,
 ): AnalysisSpecInput {
   const raw: Record<string, unknown> = options.spec ? { ...readSpecFile(options.spec) } : {};
+  // Advice in messages is written in the syntax the user used: options when there is no description file.
+  raw.advice = options.spec === undefined ? 'command-line' : 'description';
   if (options.model !== undefined) {
     raw.model = options.model;
     delete raw.outcome; // the command line's formula names the outcome
@@ -118,8 +127,49 @@ export function buildSpec(
     if (!covariates.includes(c)) covariates.push(c);
     delete factors[c];
   }
+  for (const entry of options.levels ?? []) {
+    const { column, rest } = splitNamed(entry, '--levels', 'write it as "<factor>=<level>,<level>,...", in the order wanted, e.g. "group=control,training,waitlist"');
+    const levels = rest.split(',').map((l) => l.trim());
+    if (levels.some((l) => l === '')) throw new UsageError(`--levels "${entry}": an empty level; write it as "<factor>=<level>,<level>,...", e.g. "group=control,training,waitlist"`);
+    factors[column] = { ...(factors[column] as object | undefined), levels };
+    covariates = covariates.filter((c) => c !== column);
+  }
+  for (const entry of options.labels ?? []) {
+    const usage = 'write it as "<factor>=<level>:<label>,<level>:<label>,...", e.g. "group=1:control,2:training,3:waitlist"';
+    const { column, rest } = splitNamed(entry, '--labels', usage);
+    const labels = Object.create(null) as Record<string, string>;
+    for (const piece of rest.split(',')) {
+      const colon = piece.indexOf(':');
+      const level = piece.slice(0, colon).trim();
+      const label = piece.slice(colon + 1).trim();
+      if (colon <= 0 || level === '' || label === '') throw new UsageError(`--labels "${entry}": "${piece.trim()}" is not "<level>:<label>"; ${usage}`);
+      labels[level] = label;
+    }
+    const existing = factors[column] as { labels?: Record<string, string> } | undefined;
+    factors[column] = { ...existing, labels: Object.assign(Object.create(null) as Record<string, string>, existing?.labels, labels) };
+    covariates = covariates.filter((c) => c !== column);
+  }
   raw.factors = factors;
   raw.covariates = covariates;
+  if ((options.range ?? []).length > 0) {
+    const ranges = namedCopy(raw.ranges, 'ranges', options.spec);
+    for (const entry of options.range ?? []) {
+      const { column, rest } = splitNamed(entry, '--range', 'write it as "<column>=<low>..<high>", e.g. "mood=1..5"');
+      ranges[column] = rest;
+    }
+    raw.ranges = ranges;
+  }
+  if ((options.name ?? []).length > 0) {
+    const names = namedCopy(raw.names, 'names', options.spec);
+    for (const entry of options.name ?? []) {
+      const { column, rest } = splitNamed(entry, '--name', 'write it as "<variable>=<name shown>", e.g. "route=Walking route"');
+      names[column] = rest;
+    }
+    raw.names = names;
+  }
+  if (options.termOrder !== undefined) raw.termOrder = options.termOrder;
+  if (options.center) raw.center = true;
+  if (options.slopes !== undefined) raw.slopes = options.slopes;
   const missing = namedCopy(raw.missing, 'missing', options.spec);
   for (const entry of options.missing) {
     const eq = entry.indexOf('=');
@@ -149,6 +199,13 @@ export function buildSpec(
     raw.at = at;
   }
   return raw as unknown as AnalysisSpecInput;
+}
+
+/** "<column>=<rest>" of an option, or a usage error naming the option and the syntax. */
+function splitNamed(entry: string, option: string, usage: string): { column: string; rest: string } {
+  const eq = entry.indexOf('=');
+  if (eq <= 0 || entry.slice(eq + 1).trim() === '') throw new UsageError(`${option} "${entry}": ${usage}`);
+  return { column: entry.slice(0, eq).trim(), rest: entry.slice(eq + 1).trim() };
 }
 
 /** One weight: a decimal number or a fraction of two ("1/3", "-2/3"). */
@@ -201,10 +258,12 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
     if (reason !== null) throw new UsageError(`${label}${path}: ${reason}`);
   }
   const spec = buildSpec(options);
-  const map = parseTermMap(options.map);
+  // Reported rows printed with a display name (--name) match their terms; --map entries come first.
+  const displayed = Object.entries((spec.names ?? {}) as Record<string, string>).map(([variable, name]) => `${name}=${variable}`);
+  const map = parseTermMap([...displayed, ...options.map]);
   // Limits on reading the reported manuscript (its size, DOCX and PDF bounds, its time budget); refit takes no settings file.
   const limits = limitsFrom(undefined, options);
-  parseAnalysisSpec(spec); // validate before reading data
+  const resolved = parseAnalysisSpec(spec); // validate before reading data
 
   const model = await fitModel(dataFile, spec, { keepOutcome: spec.levene !== undefined });
   const table = model.anova();
@@ -214,6 +273,11 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
     table,
     missing: Object.entries(spec.missing ?? {}).map(([column, codes]) => ({ column, codes: codesText(codes) })),
   };
+  // Homogeneity of regression slopes: asked for, or by default in the text report of an ANCOVA.
+  if (resolved.slopes === true || (resolved.slopes === undefined && options.format === 'text')) {
+    const { testSlopes } = await import('../refit/assumptions.js');
+    result.slopes = await testSlopes(dataFile, spec, model);
+  }
   if (options.reported !== undefined) {
     const reported = await readReportedWithinBudget(options.reported, model.spec.formula.terms, map, limits ? { limits } : {});
     const comparison = compareTables(table, reported, map);

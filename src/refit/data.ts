@@ -241,6 +241,57 @@ export interface VariableInfo {
   labels: ReadonlyMap<string, string>;
   /** Numeric variables: the origin their deltas are measured from. */
   origin: number;
+  /** Factors: true when the user declared the levels (an empty declared level is then an error, not dropped). */
+  declaredLevels: boolean;
+  /** Numeric variables: up to 11 distinct values seen (analysed or not), and whether all were whole numbers. */
+  distinct: readonly number[];
+  wholeNumbers: boolean;
+  /** Declared by the user as a covariate (or the outcome): no note that it could be a factor. */
+  declaredNumeric: boolean;
+}
+
+/** Cells of a numeric column outside its declared range. */
+export interface OutOfRange {
+  column: string;
+  low: number;
+  high: number;
+  count: number;
+  /** Up to 10 row numbers (the header is row 1). */
+  rows: number[];
+  /** The values outside, each with its count (the most frequent first). */
+  values: Array<{ value: string; count: number }>;
+}
+
+/** Natural, case-insensitive order of level codes: "item2" before "item10", "apple" before "Banana" (code points break ties). */
+export function naturalCompare(a: string, b: string): number {
+  const x = a.toLowerCase();
+  const y = b.toLowerCase();
+  let i = 0;
+  let j = 0;
+  while (i < x.length && j < y.length) {
+    const cx = x.charCodeAt(i);
+    const cy = y.charCodeAt(j);
+    const dx = cx >= 48 && cx <= 57;
+    const dy = cy >= 48 && cy <= 57;
+    if (dx && dy) {
+      let ei = i;
+      while (ei < x.length && x.charCodeAt(ei) >= 48 && x.charCodeAt(ei) <= 57) ei++;
+      let ej = j;
+      while (ej < y.length && y.charCodeAt(ej) >= 48 && y.charCodeAt(ej) <= 57) ej++;
+      const nx = x.slice(i, ei).replace(/^0+(?=\d)/, '');
+      const ny = y.slice(j, ej).replace(/^0+(?=\d)/, '');
+      if (nx.length !== ny.length) return nx.length - ny.length;
+      if (nx !== ny) return nx < ny ? -1 : 1;
+      i = ei;
+      j = ej;
+      continue;
+    }
+    if (cx !== cy) return cx - cy;
+    i++;
+    j++;
+  }
+  if (x.length - i !== y.length - j) return x.length - i - (y.length - j);
+  return a < b ? -1 : a > b ? 1 : 0;
 }
 
 /** Receives complete rows: factor level indices (order of first appearance) and numeric deltas. */
@@ -259,6 +310,11 @@ export class VariableReader {
   private readonly numericLevel = new Map<number, number>();
   /** Index of this variable among factors or among numerics, set when the sink starts. */
   slot = -1;
+  /** Numeric variables: distinct values seen (up to 11) and whether all were whole numbers. */
+  readonly distinct = new Set<number>();
+  wholeNumbers = true;
+  /** Cells outside the declared range: count, first rows and values. */
+  outside: { count: number; rows: number[]; values: Map<string, number> } = { count: 0, rows: [], values: new Map() };
 
   constructor(
     readonly name: string,
@@ -266,6 +322,7 @@ export class VariableReader {
     readonly declaredLevels: string[] | undefined,
     readonly missing: MissingRule | undefined,
     readonly labels: ReadonlyMap<string, string>,
+    readonly range?: readonly [number, number],
   ) {
     this.kind = declared;
     if (declaredLevels) {
@@ -282,8 +339,8 @@ export class VariableReader {
     return idx;
   }
 
-  /** Level index for a factor cell, adding new levels unless levels were declared. */
-  level(text: string, file: string, row: number): number {
+  /** Level index for a factor cell, adding new levels unless levels were declared (-1: not a declared level). */
+  level(text: string): number {
     const hit = this.levelIndex.get(text);
     if (hit !== undefined) return hit;
     const n = parseCellNumber(text);
@@ -294,25 +351,30 @@ export class VariableReader {
         return byNumber;
       }
     }
-    if (this.declaredLevels) {
-      throw new RefitError(
-        'UNKNOWN_LEVEL',
-        `${file}, row ${row}, column '${this.name}': value "${text}" is not one of the declared levels ` +
-          `(${this.declaredLevels.join(', ')}). Add it to factors.${this.name}.levels, or declare it missing under missing.${this.name}.`,
-        { file, row, column: this.name, field: `factors.${this.name}.levels` },
-      );
-    }
+    if (this.declaredLevels) return -1;
     return this.addLevel(text);
   }
 
-  /** Final level order: declared order, else numeric order when every level is a number, else code-point order. */
+  /** Counts a numeric cell's value: distinct values, whole numbers, and cells outside the declared range. */
+  noteValue(value: number, text: string, row: number): void {
+    if (this.distinct.size <= 10) this.distinct.add(value);
+    if (!Number.isInteger(value)) this.wholeNumbers = false;
+    if (this.range !== undefined && (value < this.range[0] || value > this.range[1])) {
+      const o = this.outside;
+      o.count++;
+      if (o.rows.length < 10) o.rows.push(row);
+      if (o.values.size < 50 || o.values.has(text)) o.values.set(text, (o.values.get(text) ?? 0) + 1);
+    }
+  }
+
+  /** Final level order: declared order, else numeric order when every level is a number, else natural case-insensitive order. */
   orderedLevels(): { levels: string[]; remap: Int32Array } {
     const texts = this.levelTexts;
     let order = texts.map((_, i) => i);
     if (!this.declaredLevels) {
       const nums = texts.map((t) => parseCellNumber(t));
       const allNumeric = nums.every((v) => !Number.isNaN(v));
-      order.sort((a, b) => (allNumeric ? nums[a]! - nums[b]! : texts[a]! < texts[b]! ? -1 : texts[a]! > texts[b]! ? 1 : 0));
+      order.sort((a, b) => (allNumeric ? nums[a]! - nums[b]! : naturalCompare(texts[a]!, texts[b]!)));
     }
     const remap = new Int32Array(texts.length);
     order.forEach((oldIdx, newIdx) => (remap[oldIdx] = newIdx));
@@ -399,10 +461,28 @@ export class ModelFrameReader implements RowConsumer {
         factor?.levels?.map((l) => String(l).trim()),
         missingFor(name),
         factor?.labels ?? new Map(),
+        spec.rangeBounds.get(name),
       );
       reader.column = renamed.indexOf(name);
       this.variables.push(reader);
     }
+    for (const column of spec.rangeBounds.keys()) {
+      if (modelVars.includes(column)) continue;
+      const where = spec.advice === 'command-line' ? `--range "${column}=..."` : `ranges.${column}`;
+      throw new RefitError(
+        'INVALID_SPEC',
+        `${file}: ${where}: '${column}' is not a variable of the model ${spec.model}; give ranges for its outcome and covariates (${modelVars.join(', ')}).`,
+        { file, column, field: `ranges.${column}` },
+      );
+    }
+  }
+
+  /** Cells that cannot be read: kept until the end (or MAX_BAD_CELLS) so one run reports them all. */
+  readonly problems: CellProblem[] = [];
+
+  private problem(p: CellProblem): void {
+    this.problems.push(p);
+    if (this.problems.length >= MAX_BAD_CELLS) throw badCellsError(this.file, this.problems, this.options.spec, true);
   }
 
   private start(): void {
@@ -426,15 +506,11 @@ export class ModelFrameReader implements RowConsumer {
       const row = batch[r]!;
       if (row.length !== width) {
         if (isBlank(row)) continue;
-        const rowNumber = firstRow + r;
-        throw new RefitError(
-          'RAGGED_ROW',
-          `${this.file}, row ${rowNumber}: ${row.length} fields, but the header has ${width} columns. ` +
-            'Check for a stray delimiter or an unquoted text cell containing one.',
-          { file: this.file, row: rowNumber },
-        );
+        this.problem({ code: 'RAGGED_ROW', row: firstRow + r, fields: row.length, width });
+        continue;
       }
       let missing = false;
+      let bad = false;
       for (let j = 0; j < nv; j++) {
         const v = vars[j]!;
         const text = trimCell(row[v.column]!);
@@ -450,22 +526,24 @@ export class ModelFrameReader implements RowConsumer {
         if (v.kind === undefined) v.kind = Number.isNaN(value) ? 'factor' : 'numeric';
         if (v.kind === 'numeric') {
           if (Number.isNaN(value)) {
-            const rowNumber = firstRow + r;
-            throw new RefitError(
-              'TEXT_IN_NUMERIC_COLUMN',
-              `${this.file}, row ${rowNumber}, column '${v.name}': "${text}" is not a number, but the column is numeric ` +
-                `(${v === vars[0] ? 'it is the outcome' : 'a covariate'}). Fix the cell, declare the code missing under missing.${v.name}` +
-                `${v === vars[0] ? '' : `, or declare the column under factors`}.${thousandsHint(text, decimalComma)}`,
-              { file: this.file, row: rowNumber, column: v.name },
-            );
+            this.problem({ code: 'TEXT_IN_NUMERIC_COLUMN', row: firstRow + r, column: v.name, text, outcome: v === vars[0], hint: thousandsHint(text, decimalComma) });
+            bad = true;
+            continue;
           }
+          v.noteValue(value, text, firstRow + r);
           if (this.started) this.deltaBuf[v.slot] = v.shifted.delta(text, value);
           else v.shifted.delta(text, value);
         } else {
-          const idx = v.level(text, this.file, firstRow + r);
+          const idx = v.level(text);
+          if (idx < 0) {
+            this.problem({ code: 'UNKNOWN_LEVEL', row: firstRow + r, column: v.name, text, levels: v.declaredLevels ?? [] });
+            bad = true;
+            continue;
+          }
           if (this.started) this.levelBuf[v.slot] = idx;
         }
       }
+      if (bad) continue;
       if (missing) {
         this.droppedRows++;
         continue;
@@ -476,7 +554,7 @@ export class ModelFrameReader implements RowConsumer {
         for (const v of vars) {
           const text = trimCell(row[v.column]!);
           if (v.kind === 'numeric') this.deltaBuf[v.slot] = v.shifted.delta(text, parseCellNumber(text, decimalComma));
-          else this.levelBuf[v.slot] = v.level(text, this.file, firstRow + r);
+          else this.levelBuf[v.slot] = v.level(text);
         }
       }
       this.usedRows++;
@@ -486,6 +564,7 @@ export class ModelFrameReader implements RowConsumer {
 
   end(): void {
     if (this.header_.length === 0) throw new RefitError('EMPTY_FILE', `${this.file}: the file is empty (no header line).`, { file: this.file });
+    if (this.problems.length > 0) throw badCellsError(this.file, this.problems, this.options.spec, false);
     if (this.usedRows + this.droppedRows === 0) {
       throw new RefitError('EMPTY_FILE', `${this.file}: the file has a header but no data rows.`, { file: this.file });
     }
@@ -500,14 +579,128 @@ export class ModelFrameReader implements RowConsumer {
 
   /** Variables with their final kinds, levels and origins. */
   describe(): VariableInfo[] {
+    const { spec } = this.options;
     return this.variables.map((v) => ({
       name: v.name,
       kind: v.kind ?? 'numeric',
       levels: v.kind === 'factor' ? v.orderedLevels().levels : [],
       labels: v.labels,
       origin: v.shifted.origin,
+      declaredLevels: v.declaredLevels !== undefined,
+      distinct: [...v.distinct].sort((a, b) => a - b),
+      wholeNumbers: v.wholeNumbers,
+      declaredNumeric: v.name === spec.outcome || spec.covariates.includes(v.name),
     }));
   }
+
+  /** Cells outside their columns' declared ranges, column by column. */
+  outOfRange(): OutOfRange[] {
+    return this.variables
+      .filter((v) => v.range !== undefined && v.outside.count > 0)
+      .map((v) => ({
+        column: v.name,
+        low: v.range![0],
+        high: v.range![1],
+        count: v.outside.count,
+        rows: v.outside.rows.slice(),
+        values: [...v.outside.values].map(([value, count]) => ({ value, count })).sort((a, b) => b.count - a.count),
+      }));
+  }
+}
+
+/** The most unreadable cells collected before reading stops. */
+export const MAX_BAD_CELLS = 20;
+
+/** A cell (or row) that cannot be read. */
+export type CellProblem =
+  | { code: 'RAGGED_ROW'; row: number; fields: number; width: number }
+  | { code: 'TEXT_IN_NUMERIC_COLUMN'; row: number; column: string; text: string; outcome: boolean; hint: string }
+  | { code: 'UNKNOWN_LEVEL'; row: number; column: string; text: string; levels: readonly string[] };
+
+/** A code list for --missing or "missing": the distinct texts, comma-separated. */
+function codeList(texts: readonly string[]): string {
+  return [...new Set(texts)].join(',');
+}
+
+/** The advice for one column's unreadable cells, in the syntax the user used (command line or description file). */
+function columnAdvice(problems: readonly CellProblem[], spec: ResolvedSpec): string[] {
+  const cli = spec.advice === 'command-line';
+  const out: string[] = [];
+  const byColumn = new Map<string, CellProblem[]>();
+  for (const p of problems) {
+    if (p.code === 'RAGGED_ROW') continue;
+    const list = byColumn.get(p.column) ?? [];
+    list.push(p);
+    byColumn.set(p.column, list);
+  }
+  for (const [column, list] of byColumn) {
+    const codes = codeList(list.map((p) => (p.code === 'RAGGED_ROW' ? '' : p.text)));
+    const first = list[0]!;
+    if (first.code === 'TEXT_IN_NUMERIC_COLUMN') {
+      const missing = cli ? `--missing "${column}=${codes}"` : `"missing": {"${column}": "${codes}"} in the description file`;
+      const factor = first.outcome ? '' : cli ? `, or --factor ${column} if the column holds groups` : `, or declare the column under "factors" if it holds groups`;
+      out.push(`'${column}': fix the cells, or declare the codes missing with ${missing}${factor}.`);
+    } else if (first.code === 'UNKNOWN_LEVEL') {
+      const all = [...first.levels, ...new Set(list.map((p) => (p.code === 'UNKNOWN_LEVEL' ? p.text : '')))].join(',');
+      const levels = cli ? `--levels "${column}=${all}"` : `factors.${column}.levels`;
+      const missing = cli ? `--missing "${column}=${codes}"` : `missing.${column}`;
+      out.push(`'${column}': add the values to the levels (${levels}), or declare them missing (${missing}).`);
+    }
+  }
+  if (problems.some((p) => p.code === 'RAGGED_ROW')) out.push('Rows with the wrong number of fields: check for a stray delimiter or an unquoted text cell containing one.');
+  return out;
+}
+
+function problemText(p: CellProblem): string {
+  switch (p.code) {
+    case 'RAGGED_ROW':
+      return `row ${p.row}: ${p.fields} fields, but the header has ${p.width} columns`;
+    case 'TEXT_IN_NUMERIC_COLUMN':
+      return `row ${p.row}, column '${p.column}': "${p.text}" is not a number, but the column is numeric (${p.outcome ? 'it is the outcome' : 'a covariate'})${p.hint.replace(/\.\)$/, ')')}`;
+    case 'UNKNOWN_LEVEL':
+      return `row ${p.row}, column '${p.column}': value "${p.text}" is not one of the declared levels (${p.levels.join(', ')})`;
+  }
+}
+
+/** One error for every unreadable cell found (one alone keeps the message it always had). */
+function badCellsError(file: string, problems: readonly CellProblem[], spec: ResolvedSpec, stopped: boolean): RefitError {
+  const first = problems[0]!;
+  const cli = spec.advice === 'command-line';
+  const details = { file, row: first.row, ...(first.code === 'RAGGED_ROW' ? {} : { column: first.column }) };
+  if (problems.length === 1) {
+    if (first.code === 'RAGGED_ROW') {
+      return new RefitError(
+        'RAGGED_ROW',
+        `${file}, row ${first.row}: ${first.fields} fields, but the header has ${first.width} columns. Check for a stray delimiter or an unquoted text cell containing one.`,
+        details,
+      );
+    }
+    if (first.code === 'TEXT_IN_NUMERIC_COLUMN') {
+      const c = first.column;
+      const missing = cli ? `with --missing "${c}=${first.text}"` : `under missing.${c}`;
+      const factor = first.outcome ? '' : cli ? `, or make the column a factor with --factor ${c}` : ', or declare the column under factors';
+      return new RefitError(
+        'TEXT_IN_NUMERIC_COLUMN',
+        `${file}, row ${first.row}, column '${c}': "${first.text}" is not a number, but the column is numeric (${first.outcome ? 'it is the outcome' : 'a covariate'}). ` +
+          `Fix the cell, declare the code missing ${missing}${factor}.${first.hint}`,
+        details,
+      );
+    }
+    const c = first.column;
+    const how = cli
+      ? `Add it to the levels (--levels "${c}=${[...first.levels, first.text].join(',')}"), or declare it missing with --missing "${c}=${first.text}".`
+      : `Add it to factors.${c}.levels, or declare it missing under missing.${c}.`;
+    return new RefitError(
+      'UNKNOWN_LEVEL',
+      `${file}, row ${first.row}, column '${c}': value "${first.text}" is not one of the declared levels (${first.levels.join(', ')}). ${how}`,
+      { ...details, field: `factors.${c}.levels` },
+    );
+  }
+  const lines = problems.map((p) => `  ${problemText(p)}`);
+  const head = stopped
+    ? `${file}: reading stopped at the first ${problems.length} cells that cannot be read (there may be more); nothing was fitted:`
+    : `${file}: ${problems.length} cells cannot be read; nothing was fitted:`;
+  return new RefitError(first.code, [head, ...lines, 'To fix:', ...columnAdvice(problems, spec).map((a) => `  ${a}`)].join('\n'), details);
 }
 
 /** For "1,234.5" (or "1.234,5" where the decimal mark is a comma): a hint that thousands separators are not read. */

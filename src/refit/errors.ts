@@ -21,6 +21,8 @@ export type RefitErrorCode =
   | 'RESIDUAL_DF'
   | 'TOO_MANY_COLUMNS'
   | 'INVALID_CONTRAST'
+  | 'IDENTIFIER_FACTOR'
+  | 'UNKNOWN_LABEL'
   | 'UNSUPPORTED';
 
 export interface RefitErrorDetails {

@@ -4,7 +4,7 @@ import { parseFormula, type FormulaTerm } from './formula.js';
 import { fitModel, type AnovaTable, type Coding, type FittedModel, type SsType } from './model.js';
 import { compareTables, type Comparison } from './compare.js';
 import type { ReportedSet } from './reportedTable.js';
-import type { AnalysisSpecInput } from './spec.js';
+import { orderTerms, type AnalysisSpecInput } from './spec.js';
 
 /**
  * When the reported table does not match the recomputed one, refit the
@@ -18,7 +18,9 @@ import type { AnalysisSpecInput } from './spec.js';
  * - missing-value codes left in the data as numbers (all codes, and each
  *   column's codes alone);
  * - a covariate left out; an interaction left out (with the terms that
- *   contain it), and all interactions left out.
+ *   contain it), and all interactions left out;
+ * - values outside a declared range (usually undeclared missing-value codes)
+ *   removed as missing.
  *
  * A slip reproduces the report when every reported number matches its table
  * ("all"), or at least three quarters of them and more than the model as
@@ -35,7 +37,8 @@ export type SlipKind =
   | 'missing-codes-kept'
   | 'covariate-omitted'
   | 'interaction-omitted'
-  | 'interactions-omitted';
+  | 'interactions-omitted'
+  | 'out-of-range-missing';
 
 const SLIP_RANK: Record<SlipKind, number> = {
   'type-3-other-coding': 0,
@@ -47,6 +50,7 @@ const SLIP_RANK: Record<SlipKind, number> = {
   'interaction-omitted': 6,
   'interactions-omitted': 7,
   'type-1-order': 8,
+  'out-of-range-missing': 9,
 };
 
 export interface Explanation {
@@ -157,7 +161,9 @@ function describeCodes(codes: unknown): string {
 }
 
 function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
-  const { outcome, terms } = parseFormula(spec.model);
+  const written = parseFormula(spec.model);
+  const outcome = written.outcome;
+  const terms = orderTerms(written.terms, spec.termOrder ?? 'degree');
   const type = (spec.type ?? 3) as SsType;
   const coding: Coding = spec.coding ?? 'sum';
   const list: Variant[] = [];
@@ -165,9 +171,10 @@ function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
   const add = (slip: SlipKind, description: string, changes: Partial<AnalysisSpecInput>, t: SsType = type) =>
     list.push({ slip, description, spec: { ...spec, ...changes, type: t }, type: t });
 
-  if (type !== 1) add('type-1', `type I (sequential) sums of squares in the formula's order (${termNames(terms)})`, {}, 1);
+  if (type !== 1) add('type-1', `type I (sequential) sums of squares with the terms in the order ${termNames(terms)}`, {}, 1);
+  // Other orders, the written one among them when it differs (software that keeps the written order).
   for (const order of hierarchicalOrders(terms)) {
-    add('type-1-order', `type I (sequential) sums of squares with the terms in the order ${termNames(order)}`, { model: formulaOf(outcome, order) }, 1);
+    add('type-1-order', `type I (sequential) sums of squares with the terms in the order ${termNames(order)}`, { model: formulaOf(outcome, order), termOrder: 'written' }, 1);
   }
   if (type !== 2) add('type-2', 'type II sums of squares', {}, 2);
   if (type !== 3) add('type-3', 'type III sums of squares (sum-to-zero coding)', { coding: 'sum' }, 3);
@@ -193,6 +200,18 @@ function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
         add('missing-codes-kept', `missing-value codes of ${c} left in the data as numbers (${c}=${describeCodes(missing[c])} not removed)`, { missing: rest });
       }
     }
+  }
+
+  // Cells outside the declared ranges are kept in the refit; the report may come from data without them.
+  if (model.outOfRange.length > 0) {
+    const withRanges: Record<string, unknown> = Object.assign(Object.create(null) as Record<string, unknown>, missing);
+    for (const r of model.outOfRange) {
+      const before = withRanges[r.column];
+      const codes: Array<string | number> = before === undefined ? [] : Array.isArray(before) ? [...(before as Array<string | number>)] : typeof before === 'number' ? [before] : String(before).split(',');
+      withRanges[r.column] = [...codes, `<${r.low}`, `>${r.high}`];
+    }
+    const what = model.outOfRange.map((r) => `${r.column} outside ${r.low}..${r.high}: ${r.count} value${r.count === 1 ? '' : 's'}`).join('; ');
+    add('out-of-range-missing', `values outside the declared ranges removed as missing (${what}), as undeclared missing-value codes would be`, { missing: withRanges as AnalysisSpecInput['missing'] });
   }
 
   const numeric = new Set(model.numericVars.map((v) => v.name));

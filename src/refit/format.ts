@@ -42,9 +42,13 @@ export function formatDf(x: number): string {
   return Number.isInteger(x) ? String(x) : x.toFixed(2);
 }
 
-/** "route:pace" -> "route × pace". */
-export function termLabel(term: string): string {
-  return term.split(':').join(' × ');
+/** "route:pace" -> "route × pace", each variable by its display name when it has one (--name). */
+export function termLabel(term: string, names?: Pick<RefitOutput, 'displayNames'>): string {
+  const display = new Map((names?.displayNames ?? []).map((d) => [d.variable, d.name]));
+  return term
+    .split(':')
+    .map((v) => display.get(v) ?? v)
+    .join(' × ');
 }
 
 export function typeLabel(type: 1 | 2 | 3): string {
@@ -79,8 +83,8 @@ function showDifference(n: { quantity: Quantity; reported: string | null; differ
   return `${n.difference > 0 ? '+' : ''}${s}`;
 }
 
-function tableCells(r: Row): string[] {
-  return [termLabel(r.term), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)];
+function tableCells(r: Row, o?: Pick<RefitOutput, 'displayNames'>): string[] {
+  return [termLabel(r.term, o), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)];
 }
 
 function residualCells(o: Pick<RefitOutput, 'residual'>, label = 'Residual'): string[] {
@@ -107,10 +111,43 @@ function missingText(o: RefitOutput): string {
   return `${o.droppedRows} row${o.droppedRows === 1 ? '' : 's'} dropped for missing values (empty, NA${codes ? `, codes ${codes}` : ''})`;
 }
 
-/** One line on the type and coding used. */
-export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'>): string {
-  if (o.type === 3) return `type III sums of squares, ${o.codingDescription}`;
-  return `${typeLabel(o.type)} sums of squares (${o.codingDescription}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
+/** One line on the type and coding used (and, for type I, the order of the terms). */
+export function methodLine(o: Pick<RefitOutput, 'type' | 'coding' | 'codingDescription'> & Partial<Pick<RefitOutput, 'terms' | 'termOrder' | 'factors' | 'displayNames'>>): string {
+  const reference =
+    o.coding === 'treatment' && o.factors !== undefined && o.factors.length > 0
+      ? ` (reference ${o.factors.map((f) => `${f.name} = ${f.reference ?? f.levels[0]}`).join(', ')})`
+      : '';
+  if (o.type === 3) return `type III sums of squares, ${o.codingDescription}${reference}`;
+  const order =
+    o.type === 1 && o.terms !== undefined
+      ? `, terms ${o.termOrder === 'written' ? 'in the order written' : 'in order of degree (main effects and covariates, then interactions)'}: ${o.terms.map((t) => termLabel(t.term, o as Pick<RefitOutput, 'displayNames'>)).join(', ')}`
+      : '';
+  return `${typeLabel(o.type)} sums of squares${order} (${o.codingDescription}; type ${o.type === 1 ? 'I' : 'II'} sums of squares do not depend on the coding)`;
+}
+
+/** "group: 1 control, 2 training, 3 waitlist" for factors with labels (levels in analysis order). */
+export function factorsLine(o: RefitOutput): string | null {
+  if (o.factors.length === 0) return null;
+  // A factor with many levels shows its first 12 and the count (the JSON output lists them all).
+  const shown = (f: RefitOutput['factors'][number]) => {
+    const list = f.levels.slice(0, 12).map((l, i) => (f.labels[i] !== undefined && f.labels[i] !== l ? `${l} = ${f.labels[i]}` : l));
+    return f.levels.length > 12 ? `${list.join(', ')}, ... (${f.levels.length} levels)` : list.join(', ');
+  };
+  return o.factors.map((f) => `${termLabel(f.name, o)}: ${shown(f)}`).join('; ');
+}
+
+/** Sentences printed after the tables: notes on the model, values outside declared ranges, the homogeneity-of-slopes test. */
+export function reportNotes(o: RefitOutput): string[] {
+  const out = [...o.notes];
+  for (const r of o.outOfRange) {
+    const values = r.values.map((v) => `${v.value}${v.count > 1 ? ` ×${v.count}` : ''}`).join(', ');
+    const codes = [...new Set(r.values.map((v) => v.value))].join(',');
+    out.push(
+      `${r.count} value${r.count === 1 ? '' : 's'} of ${r.column} outside its range ${r.low}..${r.high} (${values}), row${r.rows.length === 1 ? '' : 's'} ${r.rows.join(', ')}${r.count > r.rows.length ? ', ...' : ''}: ${r.count === 1 ? 'it is' : 'they are'} in the analysis. If ${r.count === 1 ? 'it is a missing-value code' : 'they are missing-value codes'}, declare ${r.count === 1 ? 'it' : 'them'}: --missing "${r.column}=${codes}".`,
+    );
+  }
+  if (o.slopes) out.push('error' in o.slopes ? `Homogeneity of regression slopes could not be tested: ${o.slopes.error}` : o.slopes.sentence);
+  return out;
 }
 
 function verdictWord(chalk: ChalkInstance, v: ComparedNumber['verdict']): string {
@@ -123,7 +160,7 @@ export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Arr
   for (const row of o.comparison?.rows ?? []) {
     const reportedAny = row.numbers.some((n) => n.verdict !== 'not reported');
     if (!reportedAny) {
-      out.push({ cells: [termLabel(row.term), '', '', '', '', '', 'not reported'], verdict: 'not reported' });
+      out.push({ cells: [termLabel(row.term, o), '', '', '', '', '', 'not reported'], verdict: 'not reported' });
       continue;
     }
     let first = true;
@@ -131,7 +168,7 @@ export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Arr
       if (n.verdict === 'not reported' && !includeUnreported) continue;
       out.push({
         cells: [
-          first ? termLabel(row.term) : '',
+          first ? termLabel(row.term, o) : '',
           first ? (row.reportedLabel ?? '') : '',
           QUANTITY_LABEL[n.quantity],
           n.reported ?? '',
@@ -246,10 +283,11 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   const where = o.covariatesAt.length > 0 ? `Covariates held at ${covariatesAtText(o)}` : 'No covariates';
   const weighting = o.cellWeights === 'proportional' ? 'weighted by their share of the analysed rows' : 'weighted equally';
   const analysis = `N = ${o.n}; ${exclusionsText(o)}. ${method}. Model: ${o.model}.`;
-  const factorNames = o.factors.map((f) => f.name);
+  const factorNames = o.factors.map((f) => termLabel(f.name, o));
+  const outcome = termLabel(o.outcome, o);
   if (o.descriptives.length > 0 && o.descriptives.length <= MAX_DESCRIPTIVE_CELLS) {
     tables.push({
-      title: `Unadjusted descriptives of ${o.outcome}${factorNames.length > 0 ? ` by ${factorNames.map(termLabel).join(' × ')}` : ''}`,
+      title: `Unadjusted descriptives of ${outcome}${factorNames.length > 0 ? ` by ${factorNames.join(' × ')}` : ''}`,
       head: [...(factorNames.length > 0 ? factorNames : ['Rows']), 'n', 'M', 'SD'],
       rows: o.descriptives.map((d) => [...(d.levels.length > 0 ? d.levels.map((l) => l.label) : [d.label]), String(d.n), formatNumber(d.mean), formatNumber(d.sd)]),
       numbersFrom: Math.max(1, factorNames.length),
@@ -259,7 +297,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   }
   if (o.coefficients) {
     tables.push({
-      title: `Regression coefficients of the model for ${o.outcome}`,
+      title: `Regression coefficients of the model for ${outcome}`,
       head: ['Term', 'b', 'SE', 't', 'p', ci],
       rows: o.coefficients.map((c) => [c.name, formatNumber(c.estimate, 3), formatNumber(c.se, 3), formatF(c.t), formatP(c.p), `[${formatNumber(c.lower, 3)}, ${formatNumber(c.upper, 3)}]`]),
       numbersFrom: 1,
@@ -268,10 +306,10 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
   }
   for (const m of o.marginalMeans ?? []) {
-    const names = m.within === undefined ? m.term.split(':') : [m.within, ...m.term.split(':')];
-    const by = `${termLabel(m.term)}${m.within === undefined ? '' : ` within ${m.within}`}`;
+    const names = (m.within === undefined ? m.term.split(':') : [m.within, ...m.term.split(':')]).map((n) => termLabel(n, o));
+    const by = `${termLabel(m.term, o)}${m.within === undefined ? '' : ` within ${termLabel(m.within, o)}`}`;
     tables.push({
-      title: `Estimated marginal means of ${o.outcome} by ${by}`,
+      title: `Estimated marginal means of ${outcome} by ${by}`,
       head: [...names, 'M', 'SE', ci],
       rows: m.means.map((r) => [...r.levels.map((l) => l.label), formatNumber(r.mean), formatNumber(r.se), formatInterval(r.lower, r.upper)]),
       numbersFrom: names.length,
@@ -280,8 +318,8 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
     });
     if (m.pairwise) {
       tables.push({
-        title: `Pairwise comparisons of ${o.outcome} by ${by}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
-        head: [...(m.within === undefined ? [] : [m.within]), 'Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
+        title: `Pairwise comparisons of ${outcome} by ${by}, ${m.pairwise.adjust === 'none' ? 'unadjusted' : `${m.pairwise.method.split(' (')[0]} adjustment`}`,
+        head: [...(m.within === undefined ? [] : [termLabel(m.within, o)]), 'Comparison', 'Difference', 'SE', 'df', 't', 'p', ci],
         rows: m.pairwise.comparisons.map((c) => [
           ...(m.within === undefined ? [] : [c.within ?? '']),
           `${c.first} - ${c.second}`,
@@ -300,7 +338,7 @@ export function extraTables(o: RefitOutput): ExtraTable[] {
   }
   if (o.contrasts && o.contrasts.length > 0) {
     tables.push({
-      title: `Planned contrasts of the estimated marginal means of ${o.outcome}`,
+      title: `Planned contrasts of the estimated marginal means of ${outcome}`,
       head: ['Contrast', 'Weights', 'Estimate', 'SE', 'df', 't', 'p', ci],
       rows: o.contrasts.map((c) => [c.name, c.weights.map((w) => `${w.label} ${w.weight}`).join('; '), formatNumber(c.estimate), formatNumber(c.se), formatDf(c.df), formatF(c.t), formatP(c.p), formatInterval(c.lower, c.upper)]),
       numbersFrom: 2,
@@ -320,8 +358,10 @@ export function formatRefitText(output: RefitOutput, options: { color: boolean }
   lines.push(`  Model    ${o.model}`);
   lines.push(`  Method   ${methodLine(o)}`);
   lines.push(`  Rows     ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`);
+  const factors = factorsLine(o);
+  if (factors) lines.push(`  Levels   ${factors}`);
   lines.push('');
-  const table = pad([TABLE_HEAD, ...o.terms.map(tableCells), residualCells(o)]);
+  const table = pad([TABLE_HEAD, ...o.terms.map((r) => tableCells(r, o)), residualCells(o)]);
   lines.push(`  ${chalk.bold(table[0]!)}`, ...table.slice(1).map((l) => `  ${l}`));
   lines.push(`  ${fitLine(o)}`);
   const omitted = descriptivesOmitted(o);
@@ -334,6 +374,8 @@ export function formatRefitText(output: RefitOutput, options: { color: boolean }
   }
   const levene = leveneLine(o);
   if (levene) lines.push('', levene);
+  const notes = reportNotes(o);
+  if (notes.length > 0) lines.push('', chalk.bold('Notes'), ...notes.map((n) => `  - ${n}`));
   if (o.comparison) {
     const c = o.comparison;
     lines.push('');
@@ -388,8 +430,11 @@ export function formatRefitMarkdown(output: RefitOutput): string {
   lines.push(`# Refit of ${o.data}`, '');
   lines.push(`- Model: \`${o.model}\``);
   lines.push(`- Method: ${methodLine(o)}`);
-  lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`, '');
-  lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map(tableCells), residualCells(o)]));
+  lines.push(`- Rows: ${o.rowsInFile} in the file, N = ${o.n} analysed; ${missingText(o)}`);
+  const factors = factorsLine(o);
+  if (factors) lines.push(`- Levels: ${mdEscape(factors)}`);
+  lines.push('');
+  lines.push(...mdTable(TABLE_HEAD.map(mdSymbol), [...o.terms.map((r) => tableCells(r, o)), residualCells(o)]));
   lines.push('', `${tableNote(o)} ${fitLine(o)}.`);
   const omitted = descriptivesOmitted(o);
   if (omitted) lines.push('', omitted);
@@ -398,6 +443,8 @@ export function formatRefitMarkdown(output: RefitOutput): string {
   }
   const levene = leveneLine(o);
   if (levene) lines.push('', mdItalicLine(levene));
+  const notes = reportNotes(o);
+  if (notes.length > 0) lines.push('', '## Notes', '', ...notes.map((n) => `- ${mdItalicLine(mdEscape(n).replace(/[*_]/g, '\\$&'))}`));
   if (o.comparison) {
     lines.push('', `## Compared with ${o.comparison.reportedFile}`, '', `Read from: ${o.comparison.sources.join(', ')}.`, '');
     lines.push(...mdTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells)));
@@ -432,7 +479,7 @@ export function tableNote(o: RefitOutput): string {
 export function formatRefitHtml(output: RefitOutput): string {
   // Tabs and line breaks are white space to a browser; the other controls and the bidi overrides are shown as escapes.
   const o = visibleStrings(output, '\t\n\r');
-  const title = `Refit of ${o.outcome}: ${o.type === 3 ? 'type III' : typeLabel(o.type)} ANOVA table`;
+  const title = `Refit of ${termLabel(o.outcome, o)}: ${o.type === 3 ? 'type III' : typeLabel(o.type)} ANOVA table`;
   const row = (cells: string[], tag = 'td') => `<tr>${cells.map((c, i) => `<${tag}${i === 0 ? ' class="src"' : ''}>${esc(c)}</${tag}>`).join('')}</tr>`;
   const italicHead = `<tr>${TABLE_HEAD.map((h, i) => `<th${i === 0 ? ' class="src"' : ''}>${['SS', 'df', 'MS', 'F', 'p'].includes(h) ? `<i>${esc(h)}</i>` : h === 'ηp²' ? '<i>η</i><sub>p</sub><sup>2</sup>' : esc(h)}</th>`).join('')}</tr>`;
   const parts: string[] = [];
@@ -451,9 +498,9 @@ export function formatRefitHtml(output: RefitOutput): string {
     '</head>',
     '<body>',
   );
-  parts.push('<p><b>Table 1</b></p>', `<p class="caption">${esc(`${o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance'} of ${o.outcome}`)}</p>`);
+  parts.push('<p><b>Table 1</b></p>', `<p class="caption">${esc(`${o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance'} of ${termLabel(o.outcome, o)}`)}</p>`);
   parts.push('<table class="anova">', `<thead>${italicHead}</thead>`, '<tbody>');
-  for (const r of o.terms) parts.push(row(tableCells(r)));
+  for (const r of o.terms) parts.push(row(tableCells(r, o)));
   parts.push(row(residualCells(o)));
   parts.push('</tbody>', '</table>', `<p class="note">${esc(tableNote(o))} ${htmlSymbols(fitLine(o))}.</p>`);
   extraTables(o).forEach((t, i) => {
@@ -464,6 +511,14 @@ export function formatRefitHtml(output: RefitOutput): string {
   });
   const levene = leveneLine(o);
   if (levene) parts.push(`<p>${htmlSymbols(levene)}</p>`);
+  const factors = factorsLine(o);
+  const notes = reportNotes(o);
+  if (factors || notes.length > 0) {
+    parts.push('<h2>Notes</h2>', '<ul>');
+    if (factors) parts.push(`<li>Levels: ${esc(factors)}</li>`);
+    for (const n of notes) parts.push(`<li>${htmlSymbols(n)}</li>`);
+    parts.push('</ul>');
+  }
   if (o.comparison) {
     parts.push(`<h2>Compared with ${esc(o.comparison.reportedFile)}</h2>`, `<p>Read from: ${esc(o.comparison.sources.join(', '))}.</p>`);
     parts.push('<table class="cmp"><thead>', row(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], 'th'), '</thead><tbody>');

@@ -11,7 +11,7 @@ import {
   WidthType,
   type IBorderOptions,
 } from 'docx';
-import { comparisonCells, explanationLines, extraTables, fitLine, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
+import { comparisonCells, explanationLines, extraTables, factorsLine, fitLine, reportNotes, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
 import type { RefitOutput } from './output.js';
 
 /**
@@ -76,7 +76,7 @@ function journalTable(head: string[], body: string[][], numbersFrom: number): Ta
 export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
   const head = ['Source', 'SS', 'df', 'MS', 'F', 'p', 'ηp²'];
   const body: string[][] = [
-    ...o.terms.map((r) => [termLabel(r.term), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)]),
+    ...o.terms.map((r) => [termLabel(r.term, o), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)]),
     ['Residual', formatSS(o.residual.ss), formatDf(o.residual.df), formatSS(o.residual.ms), '', '', ''],
   ];
   const table = journalTable(head, body, 1);
@@ -106,16 +106,17 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
   const kind = o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance';
   const document = new Document({
     creator: 'plumbline refit',
-    title: `${kind} of ${o.outcome}`,
+    title: `${kind} of ${termLabel(o.outcome, o)}`,
     sections: [
       {
         children: [
           new Paragraph({ children: [run('Table 1', { bold: true })], spacing: { after: 120 } }),
-          new Paragraph({ children: [run(`${kind} of ${o.outcome}`, { italics: true })], spacing: { after: 120 } }),
+          new Paragraph({ children: [run(`${kind} of ${termLabel(o.outcome, o)}`, { italics: true })], spacing: { after: 120 } }),
           table,
           new Paragraph({ children: [run('Note. ', { italics: true }), run(tableNote(o).replace(/^Note\.\s*/, '')), run(' '), ...symbolRuns(`${fitLine(o)}.`)], spacing: { before: 120 } }),
           ...extra,
           ...(levene ? [new Paragraph({ children: symbolRuns(levene), spacing: { before: 240 } })] : []),
+          ...[...(factorsLine(o) ? [`Levels: ${factorsLine(o)}`] : []), ...reportNotes(o)].map((n, i) => new Paragraph({ children: symbolRuns(n), spacing: { before: i === 0 ? 240 : 60 } })),
           ...compared,
         ],
       },

@@ -1,8 +1,9 @@
 import { fUpperTail } from '../stats/fDistribution.js';
 import { CellAccumulator, type NumericProduct } from './accumulate.js';
-import { ModelFrameReader, streamRows, type CompleteRowSink, type DataSource, type VariableInfo, type VariableReader } from './data.js';
+import { ModelFrameReader, streamRows, type OutOfRange, type CompleteRowSink, type DataSource, type VariableInfo, type VariableReader } from './data.js';
 import { RefitError } from './errors.js';
 import { factorOfBlocks, sequentialSS, solveUpper, solveUpperTransposed, type Matrix } from './leastSquares.js';
+import { parseCellNumber } from './numeric.js';
 import { MAX_COLUMNS_CEILING, MAX_COLUMNS_CEILING_REASON, parseAnalysisSpec, type ResolvedSpec } from './spec.js';
 
 /**
@@ -93,6 +94,21 @@ export function codingValue(coding: Coding, levels: number, level: number, colum
   return level === column + 1 ? 1 : 0;
 }
 
+/**
+ * The factor's labels keyed by its level codes as they are in the data: a label given for "1" labels the level
+ * written "1.0" too. A label for no level in the data is kept under its own key (checkData reports it).
+ */
+function labelsByLevel(v: VariableInfo): ReadonlyMap<string, string> {
+  const out = new Map<string, string>();
+  for (const [key, label] of v.labels) {
+    const k = key.trim();
+    const n = parseCellNumber(k);
+    const level = v.levels.find((l) => l === k) ?? (Number.isNaN(n) ? undefined : v.levels.find((l) => parseCellNumber(l) === n));
+    out.set(level ?? k, label);
+  }
+  return out;
+}
+
 function describeLevel(v: VariableInfo, code: string): string {
   const label = v.labels.get(code);
   return label !== undefined ? `${code} (${label})` : code;
@@ -119,6 +135,12 @@ export class FittedModel {
   readonly cells: ReadonlyArray<{ levels: Int32Array; n: number; r: Float64Array }>;
   /** The outcome's values (deltas from its origin) of each cell, in the order of `cells`, when the fit was asked to keep them. */
   readonly outcomeByCell: ReadonlyArray<readonly number[]> | undefined;
+  /** Levels found in the data that have no analysed rows once rows with missing values are removed: left out of the model. */
+  readonly droppedLevels: Array<{ factor: string; level: string; label: string }> = [];
+  /** Cells of numeric columns outside their declared ranges (kept in the analysis). */
+  outOfRange: OutOfRange[] = [];
+  /** By numeric slot: what each covariate is measured from where it enters an interaction (its mean with --center, else 0). */
+  readonly centers: number[];
 
   constructor(
     readonly spec: ResolvedSpec,
@@ -131,9 +153,27 @@ export class FittedModel {
     const factorReaders = readers.filter((r) => r.kind === 'factor').sort((a, b) => a.slot - b.slot);
     const numericReaders = readers.filter((r) => r.kind === 'numeric').sort((a, b) => a.slot - b.slot);
     const info = (r: VariableReader): VariableInfo => variables.find((v) => v.name === r.name)!;
-    this.factorVars = factorReaders.map(info);
     this.numericVars = numericReaders.map(info);
     const remaps = factorReaders.map((r) => r.orderedLevels().remap);
+    // Levels met in the data but with no analysed row (their rows all had a missing value elsewhere) leave the model, with a note;
+    // a declared level without rows stays, and is reported as an error by checkData.
+    const withRows = factorReaders.map(() => new Set<number>());
+    for (const c of acc.cells.values()) c.levels.forEach((l, i) => withRows[i]!.add(remaps[i]![l]!));
+    this.factorVars = factorReaders.map((r, i) => {
+      const v = info(r);
+      const labels = labelsByLevel(v);
+      if (v.declaredLevels || withRows[i]!.size === v.levels.length) return { ...v, labels };
+      const keep = v.levels.map((_, l) => withRows[i]!.has(l));
+      const shift = new Int32Array(v.levels.length);
+      let next = 0;
+      v.levels.forEach((level, l) => {
+        if (keep[l]) shift[l] = next++;
+        else this.droppedLevels.push({ factor: v.name, level, label: labels.get(level) ?? level });
+      });
+      const remap = remaps[i]!;
+      for (let k = 0; k < remap.length; k++) remap[k] = shift[remap[k]!]!;
+      return { ...v, labels, levels: v.levels.filter((_, l) => keep[l]) };
+    });
     const cells = [...acc.cells.values()].map((c) => ({
       n: c.n,
       r: c.r,
@@ -150,6 +190,14 @@ export class FittedModel {
     this.outcomeByCell = keptOutcome === undefined ? undefined : ordered.map((c) => c.kept ?? []);
     this.n = acc.n;
     this.checkData(cells);
+    // Means of the numeric predictors (raw), weighted by cell size.
+    this.numericMeans = this.numericVars.map((v, slot) => {
+      if (slot === this.numericVars.length - 1) return NaN;
+      let sum = 0;
+      for (const c of cells) sum += c.r[0]! * c.r[this.acc.basisOfNumeric(slot)]!;
+      return v.origin + sum / this.n;
+    });
+    this.centers = this.numericMeans.map((mean, slot) => (spec.center && slot < this.numericVars.length - 1 ? mean : 0));
     this.buildColumns();
     const p = this.columns.length;
     if (p > spec.maxColumns) this.tooManyColumns(p);
@@ -183,17 +231,35 @@ export class FittedModel {
         `The model has ${p} parameters for ${this.n} rows, leaving no residual degrees of freedom; simplify the model (drop interactions) or use more data.`,
       );
     }
-    // Means of the numeric predictors (raw), weighted by cell size.
-    this.numericMeans = this.numericVars.map((v, slot) => {
-      if (slot === this.numericVars.length - 1) return NaN;
-      let sum = 0;
-      for (const c of cells) sum += c.r[0]! * c.r[this.acc.basisOfNumeric(slot)]!;
-      return v.origin + sum / this.n;
-    });
   }
 
   private checkData(cells: Array<{ n: number; levels: Int32Array }>): void {
     const { spec } = this;
+    const cli = spec.advice === 'command-line';
+    // A column with one analysed row per level is an identifier (or a measure), not a grouping.
+    this.factorVars.forEach((v, slot) => {
+      const rows = new Map<number, number>();
+      for (const c of cells) rows.set(c.levels[slot]!, (rows.get(c.levels[slot]!) ?? 0) + c.n);
+      if (rows.size >= 5 && [...rows.values()].every((n) => n === 1)) {
+        throw new RefitError(
+          'IDENTIFIER_FACTOR',
+          `Factor '${v.name}' has one analysed row per level (${rows.size} levels for ${this.n} rows): it looks like an identifier (a participant number or a name), not a grouping. ` +
+            `Leave it out of the model${spec.factors.has(v.name) ? (cli ? ` and drop --factor ${v.name}` : ` and remove it from "factors"`) : ''}; if it is a measure, make it a covariate (${cli ? `--covariate ${v.name}` : `"covariates": ["${v.name}"]`}).`,
+          { column: v.name },
+        );
+      }
+    });
+    for (const v of this.factorVars) {
+      for (const key of v.labels.keys()) {
+        if (v.levels.includes(key) || this.droppedLevels.some((d) => d.factor === v.name && d.level === key)) continue;
+        throw new RefitError(
+          'UNKNOWN_LABEL',
+          `Factor '${v.name}': a label is given for level "${key}" ("${v.labels.get(key)}"), but '${v.name}' has no such level in the data (its levels: ${v.levels.join(', ')}). ` +
+            `Fix or remove it in ${cli ? `--labels "${v.name}=..."` : `factors.${v.name}.labels`}.`,
+          { column: v.name, field: `factors.${v.name}.labels` },
+        );
+      }
+    }
     this.factorVars.forEach((v, slot) => {
       const present = new Set(cells.map((c) => c.levels[slot]!));
       if (v.levels.length < 2 || present.size < 2) {
@@ -208,7 +274,7 @@ export class FittedModel {
         if (!present.has(l)) {
           throw new RefitError(
             'EMPTY_CELL',
-            `Factor '${v.name}': declared level "${describeLevel(v, v.levels[l]!)}" has no analysed rows; remove it from factors.${v.name}.levels or merge it with another level.`,
+            `Factor '${v.name}': declared level "${describeLevel(v, v.levels[l]!)}" has no analysed rows; remove it from ${cli ? `--levels "${v.name}=..."` : `factors.${v.name}.levels`} or merge it with another level.`,
             { column: v.name, field: `factors.${v.name}.levels` },
           );
         }
@@ -276,6 +342,13 @@ export class FittedModel {
       let numeric: NumericPart = { kind: 'none' };
       if (numerics.length === 1) numeric = factors.length === 0 ? { kind: 'delta', slot: numerics[0]! } : { kind: 'raw', slot: numerics[0]! };
       if (numerics.length > 1) {
+        if (this.spec.center) {
+          throw new RefitError(
+            'INVALID_SPEC',
+            `The term ${t.name} multiplies covariates, which centring (${this.spec.advice === 'command-line' ? '--center' : '"center": true'}) does not handle; leave centring out, or centre the columns in the data file.`,
+            { term: t.name, field: 'center' },
+          );
+        }
         const key = numerics.slice().sort((x, y) => x - y).join(',');
         const index = this.acc.products.findIndex((p) => p.slots.slice().sort((x, y) => x - y).join(',') === key);
         numeric = { kind: 'product', index };
@@ -320,7 +393,7 @@ export class FittedModel {
       if (num.kind === 'none') a[j] = f;
       else if (num.kind === 'delta') a[this.acc.basisOfNumeric(num.slot) * (p + 1) + j] = f;
       else if (num.kind === 'raw') {
-        a[j] = f * this.numericVars[num.slot]!.origin;
+        a[j] = f * (this.numericVars[num.slot]!.origin - this.centers[num.slot]!);
         a[this.acc.basisOfNumeric(num.slot) * (p + 1) + j] = f;
       } else a[this.acc.basisOfProduct(num.index) * (p + 1) + j] = f;
     });
@@ -340,7 +413,7 @@ export class FittedModel {
       }
       const num = col.numeric;
       if (num.kind === 'delta') f *= numericValues[num.slot]! - this.numericVars[num.slot]!.origin;
-      else if (num.kind === 'raw') f *= numericValues[num.slot]!;
+      else if (num.kind === 'raw') f *= numericValues[num.slot]! - this.centers[num.slot]!;
       else if (num.kind === 'product') for (const s of this.acc.products[num.index]!.slots) f *= numericValues[s]!;
       x[j] = f;
     });
@@ -473,7 +546,17 @@ export async function fitModel(source: DataSource, specInput: unknown, options: 
   const keeper = options.keepOutcome ? new OutcomeKeeper(acc) : undefined;
   const frame = new ModelFrameReader({ spec, sink: keeper ?? acc });
   await streamRows(source, frame);
-  return new FittedModel(spec, frame.describe(), frame.droppedRows, acc, frame.variables, keeper?.values);
+  try {
+    const model = new FittedModel(spec, frame.describe(), frame.droppedRows, acc, frame.variables, keeper?.values);
+    model.outOfRange = frame.outOfRange();
+    return model;
+  } catch (error) {
+    // Errors found in the fitted data name the file they came from.
+    if (error instanceof RefitError && error.details.file === undefined && frame.file !== '') {
+      throw new RefitError(error.code, `${frame.file}: ${error.message}`, { ...error.details, file: frame.file });
+    }
+    throw error;
+  }
 }
 
 /** Reads the data and returns the ANOVA/ANCOVA table of the type in the description (default 3). */

@@ -6,6 +6,7 @@ import { marginalMeans, pairwiseComparisons, plannedContrast, simpleComparisons,
 import type { ReportedSet } from './reportedTable.js';
 import { ADJUSTMENT_NAMES } from './spec.js';
 import { cellDescriptives, coefficientTable, leveneTest, modelFit } from './summaries.js';
+import { hasCovariateByFactor, type SlopesTest } from './assumptions.js';
 
 /**
  * The refit command's JSON output, defined with zod; schema/refit.schema.json
@@ -65,7 +66,7 @@ export const comparisonSchema = z.object({
 });
 
 export const explanationSchema = z.object({
-  slip: z.enum(['type-1', 'type-1-order', 'type-2', 'type-3', 'type-3-other-coding', 'missing-codes-kept', 'covariate-omitted', 'interaction-omitted', 'interactions-omitted']),
+  slip: z.enum(['type-1', 'type-1-order', 'type-2', 'type-3', 'type-3-other-coding', 'missing-codes-kept', 'covariate-omitted', 'interaction-omitted', 'interactions-omitted', 'out-of-range-missing']),
   description: z.string(),
   model: z.string(),
   type: z.union([z.literal(1), z.literal(2), z.literal(3)]),
@@ -145,7 +146,44 @@ export const refitOutputSchema = z.object({
   coding: z.enum(['sum', 'treatment']),
   codingDescription: z.string(),
   missing: z.array(z.object({ column: z.string(), codes: z.string() })),
-  factors: z.array(z.object({ name: z.string(), levels: z.array(z.string()) })),
+  termOrder: z.enum(['degree', 'written']).describe('Order of the terms (type I sums of squares follow it): by degree, main effects and covariates first, or as written'),
+  factors: z.array(
+    z.object({
+      name: z.string(),
+      levels: z.array(z.string()).describe('Level codes in analysis order'),
+      labels: z.array(z.string()).describe('Label of each level (the code when none was given), in the order of levels'),
+      reference: z.string().optional().describe('Treatment coding: the reference level (its code)'),
+    }),
+  ),
+  displayNames: z.array(z.object({ variable: z.string(), name: z.string() })).describe('Names shown for variables in the tables (--name), in place of the column names'),
+  centered: z.array(z.object({ name: z.string(), at: z.number() })).describe('Covariates centred (--center) where they interact with a factor, and the value subtracted (their mean)'),
+  notes: z.array(z.string()).describe('What the reader of the table needs to know: levels left out, what type III tests mean here, covariates that could be factors'),
+  outOfRange: z
+    .array(
+      z.object({
+        column: z.string(),
+        low: z.number(),
+        high: z.number(),
+        count: z.number().int(),
+        rows: z.array(z.number().int()).describe('Up to 10 row numbers (the header is row 1)'),
+        values: z.array(z.object({ value: z.string(), count: z.number().int() })),
+      }),
+    )
+    .describe('Cells of numeric columns outside their declared ranges (kept in the analysis)'),
+  slopes: z
+    .object({
+      covariates: z.array(z.string()),
+      added: z.array(z.string()).describe('The covariate × factor interactions added to the model and tested together'),
+      model: z.string(),
+      F: num,
+      df1: z.number(),
+      df2: z.number(),
+      p: num,
+      sentence: z.string(),
+    })
+    .or(z.object({ error: z.string() }))
+    .optional()
+    .describe('Homogeneity of regression slopes, when tested'),
   covariates: z.array(z.string()),
   terms: z.array(anovaRowSchema),
   residual: z.object({ ss: num, df: z.number(), ms: num }),
@@ -232,6 +270,7 @@ export interface RefitResult {
   comparison?: Comparison;
   explained?: ExplainResult;
   impliedN?: ImpliedN | null;
+  slopes?: SlopesTest | { error: string } | null;
 }
 
 const CONFIDENCE = 0.95;
@@ -353,6 +392,84 @@ function contrastsOutput(model: FittedModel): Array<z.infer<typeof contrastOutpu
   });
 }
 
+function levelText(model: FittedModel, factor: string, code: string): string {
+  const label = model.factorVars.find((v) => v.name === factor)?.labels.get(code);
+  return label === undefined || label === code ? code : `${code} (${label})`;
+}
+
+function round2(x: number): string {
+  return x.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+}
+
+/** The homogeneity-of-slopes test in a plain sentence. */
+export function slopesSentence(t: SlopesTest): string {
+  const p = t.p < 0.001 ? '< .001' : t.p >= 0.9995 ? '> .999' : `= ${t.p.toFixed(3).replace(/^0\./, '.')}`;
+  const stat = `F(${t.df1}, ${t.df2}) = ${round2(t.F)}, p ${p}`;
+  const covs = t.covariates.join(' and ');
+  const added = t.added.map((a) => a.split(':').join(' × ')).join(', ');
+  const head = `Homogeneity of regression slopes (${added} added to the model and tested together): ${stat}.`;
+  return t.p < 0.05
+    ? `${head} The slope of ${covs} differs between the groups, so the ANCOVA's assumption of one common slope does not hold: the adjusted means and the tests of the factors depend on the value ${covs} is held at. Report the model with the interaction${t.added.length > 1 ? 's' : ''}, or the slopes group by group.`
+    : `${head} No evidence that the slope of ${covs} differs between the groups: the ANCOVA's assumption of one common slope is not contradicted by these data (a test that is not significant does not prove the slopes equal).`;
+}
+
+/** What the reader of the table needs to know, in sentences. */
+export function modelNotes(model: FittedModel): string[] {
+  const notes: string[] = [];
+  const spec = model.spec;
+  const cli = spec.advice === 'command-line';
+  for (const v of model.factorVars) {
+    const dropped = model.droppedLevels.filter((d) => d.factor === v.name);
+    if (dropped.length === 0) continue;
+    const list = dropped.map((d) => `"${d.label === d.level ? d.level : `${d.level} (${d.label})`}"`).join(', ');
+    notes.push(
+      `Level${dropped.length > 1 ? 's' : ''} ${list} of ${v.name} ${dropped.length > 1 ? 'have' : 'has'} no analysed rows once rows with missing values are removed, so ${dropped.length > 1 ? 'they are' : 'it is'} left out of the model (levels analysed: ${v.levels.join(', ')}).`,
+    );
+  }
+  // The reference levels matter where the coding does: type III tests and the coefficients.
+  if (spec.coding === 'treatment' && model.factorVars.length > 0 && (spec.type === 3 || spec.coefficients)) {
+    const change = cli ? 'list the levels with the reference first (--levels "<factor>=<reference>,...")' : 'list the levels with the reference first in factors.<factor>.levels';
+    notes.push(`Treatment coding: each factor's first level is its reference (${model.factorVars.map((v) => `${v.name} = ${levelText(model, v.name, v.levels[0]!)}`).join(', ')}); to change it, ${change}.`);
+    if (spec.type === 3) {
+      const factorNames = new Set(model.factorVars.map((v) => v.name));
+      const simple: string[] = [];
+      for (const t of spec.formula.terms) {
+        if (!t.variables.every((v) => factorNames.has(v))) continue;
+        const others = new Set<string>();
+        for (const u of spec.formula.terms) {
+          if (u === t || !t.variables.every((v) => u.variables.includes(v))) continue;
+          for (const v of u.variables) if (!t.variables.includes(v) && factorNames.has(v)) others.add(v);
+        }
+        if (others.size > 0) simple.push(`${t.name.split(':').join(' × ')} at ${[...others].map((o) => `${o} = ${levelText(model, o, model.factorVars.find((f) => f.name === o)!.levels[0]!)}`).join(', ')}`);
+      }
+      if (simple.length > 0) {
+        notes.push(
+          `With treatment coding, the type III tests of effects inside an interaction are simple effects at the reference levels of the other factors (${simple.join('; ')}), not main effects averaged over them. For main effects use sum-to-zero coding (${cli ? 'leave out --coding treatment' : '"coding": "sum"'}).`,
+        );
+      }
+    }
+  }
+  if (hasCovariateByFactor(model)) {
+    const covs = model.numericVars.slice(0, -1).map((v, slot) => ({ name: v.name, mean: model.numericMeans[slot]!, center: model.centers[slot]! }));
+    const inInteraction = covs.filter((c) => spec.formula.terms.some((t) => t.variables.includes(c.name) && t.variables.length > 1));
+    if (spec.center) {
+      notes.push(`Covariates centred at their means in their interactions with factors (${inInteraction.map((c) => `${c.name} = ${round2(c.center)}`).join(', ')}): the type III tests of the factors are at these values.`);
+    } else if (spec.type === 3) {
+      notes.push(
+        `The model has a covariate × factor interaction, so the type III tests of the factors compare the groups where ${inInteraction.map((c) => `${c.name} = 0`).join(' and ')} (${inInteraction.map((c) => `${c.name}'s mean is ${round2(c.mean)}`).join(', ')}), which may lie outside the data. ${cli ? '--center' : '"center": true'} tests them at the covariates' means instead.`,
+      );
+    }
+  }
+  const termVars = new Set(spec.formula.terms.flatMap((t) => t.variables));
+  for (const v of model.numericVars.slice(0, -1)) {
+    if (v.declaredNumeric || !termVars.has(v.name) || !v.wholeNumbers || v.distinct.length > 6) continue;
+    notes.push(
+      `'${v.name}' has only ${v.distinct.length} distinct values (${v.distinct.join(', ')}), all whole numbers: it is treated as a numeric covariate (one slope, 1 df). If its values are groups, make it a factor (${cli ? `--factor ${v.name}` : `"factors": {"${v.name}": {}}`}); ${cli ? `--covariate ${v.name}` : `"covariates": ["${v.name}"]`} keeps it numeric without this note.`,
+    );
+  }
+  return notes;
+}
+
 /** Builds the JSON output object (validated against the schema). */
 export function buildRefitOutput(result: RefitResult): RefitOutput {
   const { model, table } = result;
@@ -368,7 +485,17 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
     coding: table.coding,
     codingDescription: codingDescription(table.coding),
     missing: result.missing,
-    factors: model.factorVars.map((v) => ({ name: v.name, levels: v.levels })),
+    termOrder: model.spec.termOrder,
+    factors: model.factorVars.map((v) => ({
+      name: v.name,
+      levels: v.levels,
+      labels: v.levels.map((l) => v.labels.get(l) ?? l),
+      ...(table.coding === 'treatment' ? { reference: v.levels[0]! } : {}),
+    })),
+    displayNames: [...model.spec.names].map(([variable, name]) => ({ variable, name })),
+    centered: model.spec.center ? model.numericVars.slice(0, -1).map((v, slot) => ({ name: v.name, at: model.centers[slot]! })) : [],
+    notes: modelNotes(model),
+    outOfRange: model.outOfRange,
     covariates: model.numericVars.slice(0, -1).map((v) => v.name),
     terms: t.terms,
     residual: t.residual,
@@ -402,6 +529,7 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
   }
   if (model.spec.means.length > 0) out.marginalMeans = model.spec.means.map((term) => meansOutput(model, term));
   if (model.spec.contrasts.length > 0) out.contrasts = contrastsOutput(model);
+  if (result.slopes) out.slopes = 'error' in result.slopes ? { error: result.slopes.error } : { ...result.slopes, F: finite(result.slopes.F), p: finite(result.slopes.p), sentence: slopesSentence(result.slopes) };
   if (model.spec.levene !== undefined) {
     const l = leveneTest(model, model.spec.levene);
     out.levene = { center: l.center, groups: l.groups, F: finite(l.F), df1: l.df1, df2: l.df2, p: finite(l.p) };

@@ -135,11 +135,16 @@ function labelParts(label: string): string[] {
  */
 export function matchTerm(label: string, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string> = new Map()): FormulaTerm | null {
   const cleaned = cleanLabel(label);
+  // Both sides are compared squashed ("start_height", "start.height" and "Start height" are one name once "_", "." and case
+  // and spaces are set aside), so a variable named with "_" or "." matches its printed row and a --map naming it.
   const byName = (name: string): FormulaTerm | null => {
-    const wanted = new Set(labelParts(name).map((p) => map.get(p) ?? p).map((p) => p.toLowerCase()));
+    const exact = terms.find((t) => t.name.toLowerCase() === name.trim().toLowerCase());
+    if (exact !== undefined) return exact;
+    const key = (text: string) => squash(text).replace(/\s+/g, '');
+    const wanted = new Set(labelParts(name).map((p) => key(map.get(p) ?? p)));
     return (
-      terms.find((t) => t.variables.length === wanted.size && t.variables.every((v) => wanted.has(v.toLowerCase()))) ??
-      terms.find((t) => t.name.toLowerCase() === squash(name)) ??
+      terms.find((t) => t.variables.length === wanted.size && t.variables.every((v) => wanted.has(key(v)))) ??
+      terms.find((t) => key(t.name) === key(name)) ??
       null
     );
   };

@@ -13,7 +13,8 @@ import { parseCellNumber } from './numeric.js';
  *   "missing": { "score": "-99", "age": ">=200", "group": [9] },
  *   "rename": { "GRP": "group" },
  *   "model": "score ~ group + age",
- *   "type": 3, "coding": "sum" }
+ *   "type": 3, "coding": "sum",
+ *   "ranges": { "score": "0..100" }, "termOrder": "degree", "center": false, "slopes": true }
  * ```
  */
 
@@ -123,6 +124,21 @@ export const analysisSpecSchema = z
     at: namedEntries(z.number()).default(() => new Map()),
     /** Levene's test of equal variances across the cells of the factors, centred on the cells' medians or means. */
     levene: z.enum(['median', 'mean']).optional(),
+    /**
+     * Order of the terms (type I sums of squares follow it): by degree, main effects and covariates first, then
+     * two-way interactions and so on (the written order within a degree), or as written.
+     */
+    termOrder: z.enum(['degree', 'written']).default('degree'),
+    /** Values each numeric column may take, "1..5" or [1, 5]: cells outside are reported (usually undeclared missing-value codes). */
+    ranges: namedEntries(z.union([z.string().min(1), z.tuple([z.number(), z.number()])])).default(() => new Map()),
+    /** Centre every covariate at its mean over the analysed rows where it enters an interaction with a factor. */
+    center: z.boolean().default(false),
+    /** Test the homogeneity of regression slopes (covariate × factor interactions added to the model). */
+    slopes: z.boolean().optional(),
+    /** Names shown for variables in the tables ("route": "Walking route"); reported rows printed with them match their terms. */
+    names: namedEntries(z.string().min(1)).default(() => new Map()),
+    /** How advice in messages is written: options of the command line, or fields of the description file. */
+    advice: z.enum(['command-line', 'description']).default('description'),
   })
   .strict();
 
@@ -195,6 +211,37 @@ export interface ResolvedSpec extends AnalysisSpec {
   outcome: string;
   formula: ParsedFormula;
   missingRules: Map<string, MissingRule>;
+  /** Declared ranges of numeric columns, [low, high] inclusive. */
+  rangeBounds: Map<string, [number, number]>;
+}
+
+/** Terms ordered by degree (number of variables), the written order kept within a degree. */
+export function orderTerms<T extends { variables: readonly string[] }>(terms: readonly T[], order: 'degree' | 'written'): T[] {
+  if (order === 'written') return terms.slice();
+  return terms
+    .map((t, i) => ({ t, i }))
+    .sort((a, b) => a.t.variables.length - b.t.variables.length || a.i - b.i)
+    .map(({ t }) => t);
+}
+
+const RANGE_TEXT = new RegExp(`^\\s*(${NUM})\\s*(?:\\.\\.|to)\\s*(${NUM})\\s*$`);
+
+/** "1..5", "1 to 5" or [1, 5] -> [1, 5]; `field` names the place in errors. */
+export function parseRange(value: string | readonly [number, number], field: string): [number, number] {
+  let lo: number;
+  let hi: number;
+  if (typeof value === 'string') {
+    const m = RANGE_TEXT.exec(value);
+    if (!m) {
+      throw new RefitError('INVALID_SPEC', `${field}: "${value}" is not a range; write it as "low..high", e.g. "1..5".`, { field });
+    }
+    lo = Number(m[1]);
+    hi = Number(m[2]);
+  } else {
+    [lo, hi] = value;
+  }
+  if (!(lo <= hi)) throw new RefitError('INVALID_SPEC', `${field}: the range has its lower end above its upper end; write it as "low..high", e.g. "1..5".`, { field });
+  return [lo, hi];
 }
 
 /** Validates a parsed JSON value; errors name the offending field. */
@@ -207,7 +254,8 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
     throw new RefitError('INVALID_SPEC', `Analysis description, field "${field}": ${issue.message}${extra}.`, { field });
   }
   const spec = result.data;
-  const formula = parseFormula(spec.model);
+  const written = parseFormula(spec.model);
+  const formula = { ...written, terms: orderTerms(written.terms, spec.termOrder) };
   if (spec.outcome !== undefined && spec.outcome !== formula.outcome) {
     throw new RefitError(
       'INVALID_SPEC',
@@ -274,5 +322,25 @@ export function parseAnalysisSpec(input: unknown): ResolvedSpec {
   for (const [column, codes] of spec.missing) {
     missingRules.set(column, parseMissingRule(codes, `missing.${column}`));
   }
-  return { ...spec, outcome: formula.outcome, formula, missingRules };
+  for (const [name, factor] of spec.factors) {
+    if ((factor.labels?.size ?? 0) > 0 && !variables.has(name)) {
+      throw new RefitError(
+        'INVALID_SPEC',
+        `${spec.advice === 'command-line' ? `--labels "${name}=..."` : `factors.${name}.labels`}: '${name}' is not in the model ${spec.model} (its variables: ${[...variables].join(', ')}); give labels for a factor of the model.`,
+        { field: `factors.${name}.labels` },
+      );
+    }
+  }
+  for (const name of spec.names.keys()) {
+    if (!variables.has(name) && name !== formula.outcome) {
+      throw new RefitError(
+        'INVALID_SPEC',
+        `${spec.advice === 'command-line' ? `--name "${name}=..."` : `names.${name}`}: '${name}' is not in the model ${spec.model} (its variables: ${[formula.outcome, ...variables].join(', ')}); name a variable of the model.`,
+        { field: `names.${name}` },
+      );
+    }
+  }
+  const rangeBounds = new Map<string, [number, number]>();
+  for (const [column, range] of spec.ranges) rangeBounds.set(column, parseRange(range, spec.advice === 'command-line' ? `--range "${column}=..."` : `ranges.${column}`));
+  return { ...spec, outcome: formula.outcome, formula, missingRules, rangeBounds };
 }

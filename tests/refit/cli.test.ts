@@ -40,7 +40,7 @@ describe('plumbline refit on the demo study', () => {
     expect(code).toBe(1);
     const json = refitOutputSchema.parse(JSON.parse(out));
     expect(json).toMatchObject({ n: 132, droppedRows: 18, type: 3, coding: 'sum', verdict: 'differs' });
-    expect(json.terms.map((t) => t.term)).toEqual(['route', 'pace', 'route:pace', 'loneliness']);
+    expect(json.terms.map((t) => t.term)).toEqual(['route', 'pace', 'loneliness', 'route:pace']); // by degree
     expect(Object.keys(json.terms[0]!)).toEqual(['term', 'ss', 'df', 'ms', 'F', 'p', 'partialEtaSquared']);
     expect(json.residual.df).toBe(125);
     expect(json.explanations![0]).toMatchObject({ slip: 'missing-codes-kept', reproduces: 'all', matches: 27, compared: 27 });
@@ -129,7 +129,10 @@ describe('plumbline refit input errors (exit 2, with file, row and column)', () 
     writeFileSync(spec, JSON.stringify({ model: 'score ~ group + age', factors: { group: { levels: ['lo', 'mid'] } } }));
     const { code, err } = await run(['refit', fixturePath('refit/unbalanced_3x2_cov.csv'), '--spec', spec]);
     expect(code).toBe(2);
-    expect(err).toMatch(/unbalanced_3x2_cov\.csv, row \d+, column 'group': value "hi" is not one of the declared levels/);
+    // Every such cell in one run, then the advice in the description file's terms (the analysis came from --spec).
+    expect(err).toMatch(/unbalanced_3x2_cov\.csv: 19 cells cannot be read; nothing was fitted:\n  row \d+, column 'group': value "hi" is not one of the declared levels \(lo, mid\)\n/);
+    expect(err.match(/value "hi" is not one of the declared levels/g)).toHaveLength(19);
+    expect(err).toContain("'group': add the values to the levels (factors.group.levels), or declare them missing (missing.group).");
   });
 
   it('usage: no model, docx without --output, a bad --missing, a missing file', async () => {
@@ -154,5 +157,37 @@ describe('refit JSON schema', () => {
   it('schema/refit.schema.json is the one generated from the zod model (npm run schema:refit)', () => {
     const committed = JSON.parse(readFileSync('schema/refit.schema.json', 'utf8')) as unknown;
     expect(committed).toEqual(JSON.parse(JSON.stringify(refitJsonSchema())));
+  });
+});
+
+describe('the workflow in corpus-demo/refit/README.md', () => {
+  const readme = readFileSync(demo('README.md'), 'utf8');
+  const workflow = ['--labels', 'pace=self:self-paced,guided:guided', '--means', 'route', '--adjust', 'tukey', '--contrast', 'route=0.5,0.5,-1'];
+
+  it('prints what the README shows: the comparison, then the ANCOVA with adjusted means, Tukey, the contrast and the slopes test', async () => {
+    const compared = await run(['refit', DATA, '--spec', SPEC, '--reported', PAPER]);
+    expect(compared.code).toBe(1);
+    expect(readme).toContain(compared.out);
+    const { code, out } = await run(['refit', DATA, '--spec', SPEC, ...workflow]);
+    expect(code).toBe(0);
+    expect(readme).toContain(out);
+    expect(out).toMatch(/harbour - indoor\s+3\.32\s+0\.80\s+125\s+4\.15\s+< \.001/);
+    expect(out).toMatch(/harbour \+ park vs indoor\s+harbour 0\.5; park 0\.5; indoor -1\s+2\.55\s+0\.68\s+125\s+3\.74\s+< \.001/);
+    expect(out).toContain('Homogeneity of regression slopes (loneliness × route, loneliness × pace, loneliness × route × pace added to the model and tested together): F(5, 120) = 0.25');
+    expect(out).toContain('harbour  self-paced  22  24.14');
+  });
+
+  it('exports the tables as a Word file', async () => {
+    const docxFile = join(tmp, 'harbour-walks-tables.docx');
+    const { code, err } = await run(['refit', DATA, '--spec', SPEC, ...workflow, '--slopes', '--format', 'docx', '--output', docxFile]);
+    expect(code).toBe(0);
+    expect(err).toContain(`wrote ${docxFile}`);
+    const { value } = await mammoth.convertToHtml({ path: docxFile });
+    for (const title of ['Estimated marginal means of mood by route', 'Pairwise comparisons of mood by route, Tukey-Kramer adjustment', 'Planned contrasts of the estimated marginal means of mood']) {
+      expect(value).toContain(title);
+    }
+    expect(value).toContain('harbour + park vs indoor');
+    expect(value).toContain('self-paced');
+    expect(value).toContain('Homogeneity of regression slopes');
   });
 });
