@@ -246,6 +246,16 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('reads the df a note states as "All Fs(2, 57)" or "df = [2, 57]"', () => {
+    for (const note of ['Note. All Fs(2, 57).', 'Note. df = [2, 57].']) {
+      const document = scanTextJson(`Table 2. ANOVA results\nOutcome\tF\tp\nAnxiety\t4.21\t.020\nMood\t6.66\t.002\n${note}\n\nNext.\n`);
+      expect(readAs(document.statistics), note).toEqual([
+        ['F', 4.21, [2, 57]],
+        ['F', 6.66, [2, 57]],
+      ]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

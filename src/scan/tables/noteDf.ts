@@ -34,15 +34,15 @@ const PAIR_SEPARATOR = String.raw` {0,3}(?:[,;/]|(?:and|y|e|et|und)(?![A-Za-z]))
 const ASIDE = String.raw`(?: {0,2}\([A-Za-z -]{1,30}\))?`;
 
 /** "df = 2, 57", "df: 2 and 57", "degrees of freedom (2, 57)", "df 2, 57", "gl = 2; 57", "df were 2 and 57". */
-const DF_PAIR = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}(?:[=:] {0,3}|(?:were|are|of) {1,3}|(?=\\()| {1,3}(?=\\d))\\(? {0,2}${NUMBER}${ASIDE}${PAIR_SEPARATOR}${NUMBER}(?!\\.?\\d)`, 'i');
+const DF_PAIR = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}(?:[=:] {0,3}|(?:were|are|of) {1,3}|(?=[([])| {1,3}(?=\\d))[([]? {0,2}${NUMBER}${ASIDE}${PAIR_SEPARATOR}${NUMBER}(?!\\.?\\d)`, 'i');
 /** "df = 58", "df: 58". */
 const DF_SINGLE = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}[=:] {0,3}\\(? {0,2}${NUMBER}(?!\\.?\\d)`, 'i');
 /** "2 and 57 degrees of freedom", "(2, 57 df)". */
 /** "2 numerator and 57 denominator degrees of freedom". */
 const SIDES_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER} {1,3}(?:numerator|effect|hypothesis) {1,3}(?:and {1,3})?${NUMBER} {1,3}(?:denominator|error) {1,3}(?:degrees of freedom|dfs?|d\\.f\\.)(?![A-Za-z])`, 'i');
 const PAIR_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER}${PAIR_SEPARATOR}${NUMBER} {1,3}${DF_WORD}`, 'i');
-/** "F(2, 57)", "F[2, 57]", "F (2, 57)", "F(2/57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
-const F_WITH_DF = new RegExp(`(?<![A-Za-z])F(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;/] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
+/** "F(2, 57)", "F[2, 57]", "F (2, 57)", "F(2/57)", "Fs(2, 57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
+const F_WITH_DF = new RegExp(`(?<![A-Za-z])Fs?(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;/] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
 
 /** Sides of an F test named beside df: the effect's side and the error's side. */
 // (With their abbreviations: "num df", "ndf", "dfn"; "den df", "ddf", "dfd", "dfe".)
