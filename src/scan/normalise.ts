@@ -89,6 +89,8 @@ function buildReplacementTable(): Map<number, string> {
   // Multiplication signs (the middle dot is handled by context: between digits it is a decimal point).
   put([0x00d7, 0x2715, 0x2a2f], 'x');
   put([0x22c5, 0x2219], '*');
+  // Asterisks of math and wide fonts, as PDF copies give a table's significance marks ("4.21∗∗").
+  put([0x2217, 0xfe61, 0xff0a], '*');
   table.set(0x2024, '.');
   table.set(0x210e, 'h'); // the italic h that math fonts take from the letterlike block
   // Quotes and primes.

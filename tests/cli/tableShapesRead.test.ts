@@ -256,6 +256,22 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('takes the p bound of stars from legends worded as lists or as a program\'s output notes, and from math-font asterisks', () => {
+    const legends = [
+      '*, ** and *** indicate p < 0.05, p < 0.01 and p < 0.001.',
+      '*, ** denote significance at the 5% and 1% levels, respectively.',
+      '*Correlation is significant at the 0.05 level (2-tailed). **Correlation is significant at the 0.01 level (2-tailed).',
+      'Note: ∗p < .05, ∗∗p < .01.',
+    ];
+    for (const legend of legends) {
+      const document = scanTextJson(`Table 2. ANOVA results\nOutcome\tdf\tF\nAnxiety\t2, 57\t4.21*\nMood\t2, 57\t6.66∗∗\n${legend}\n\nNext.\n`);
+      expect(document.statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value]), legend).toEqual([
+        ['<', 0.05],
+        ['<', 0.01],
+      ]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

@@ -107,8 +107,8 @@ export function readCell(cell: string, separator: DecimalSeparator = '.'): CellV
   return readPlainCell(cell, separator);
 }
 
-/** Characters that start a garbled (mis-decoded) glyph, or spaces a number may hold. */
-const GARBLED = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f]/;
+/** Characters that start a garbled (mis-decoded) glyph, spaces a number may hold, or a math font's asterisk ("4.21∗∗"). */
+const GARBLED = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f\u2217\ufe61\uff0a]/;
 
 function readPlainCell(cell: string, separator: DecimalSeparator): CellValue {
   if (EMPTY_CELL.test(cell)) return { kind: 'empty' };
