@@ -272,6 +272,19 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads a "t/χ2" column row by row: t where the groups print means ± SD, chi-square where they print counts with percentages', () => {
+    const header = ['Variable', 'Intervention (n = 60)', 'Control (n = 60)', 't/χ2', 'P'];
+    const rows = [['Age (years)', '45.2 ± 8.1', '44.1 ± 7.9', '0.75', '0.454'], ['Female, n (%)', '30 (50.0)', '24 (40.0)', '1.21', '0.271'], ['Smokers, n (%)', '12 (20.0)', '10 (16.7)', '0.22', '0.639']];
+    for (const table of [[header, ...rows].map((row) => row.join('\t')).join('\n'), [header, ...rows].map((row) => row.join(' ')).join('\n')]) {
+      const document = scanTextJson(`Table 1. Baseline characteristics of the two groups\n${table}\n\nNext.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([
+        ['t', 0.75, 0.454],
+        ['chi2', 1.21, 0.271],
+        ['chi2', 0.22, 0.639],
+      ]);
+    }
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

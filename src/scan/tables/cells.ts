@@ -557,3 +557,31 @@ export function knownHeaderNames(): readonly string[] {
 export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
 /** A title line with nothing after the number: the title proper follows on the next line. */
 export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?\s*$/;
+
+/**
+ * "t/χ2", "χ2/t", "F/χ2": a row or column naming two statistics, the chi-square for categorical variables and
+ * the other for continuous ones (common practice in tables comparing groups). Which one a value is, is told by
+ * the cells that go with it (`cells`: the rows above it in a table on its side, or its own row): means with
+ * SDs ("2.45 ± 0.19", "12.1 (3.2)") and no counts give the other statistic, counts with percentages and no
+ * means give the chi-square; anything else leaves it unread.
+ */
+const TWO_STATISTICS = /^(?:(chi2|x2|chi 2|x 2) ?\/ ?(t|f|z)|(t|f|z) ?\/ ?(chi2|x2|chi 2|x 2))(?: ?(?:values?|tests?))?$/;
+const MEAN_WITH_SD = /\d ?\u00b1 ?\d|\d\.\d{1,3} ?\(\d{1,4}\.\d{1,3}\)/;
+/** A count with its share: "30 (55.6)", "30 (55.6%)", "12 (9 %)"; a mean with its SD ("12.3 (4.5)") starts with decimals. */
+const COUNT_WITH_SHARE = /(?:^|\s)\d{1,5} ?\(\d{1,3}(?:\.\d{1,2})? ?%?\)|\d ?%/;
+
+/** Whether a header names two statistics, one for categorical and one for continuous variables ("t/χ2"). */
+export function namesTwoStatistics(name: string): boolean {
+  return TWO_STATISTICS.test(headerKey(name));
+}
+
+export function statisticOfTwo(name: string, cells: string): ColumnRole | null {
+  const match = TWO_STATISTICS.exec(headerKey(name));
+  if (match === null) return null;
+  const continuous = (match[2] ?? match[3])!;
+  const means = MEAN_WITH_SD.test(cells);
+  const counts = COUNT_WITH_SHARE.test(cells);
+  if (means === counts) return null;
+  const kind = counts ? 'chi2' : continuous === 't' ? 't' : continuous === 'f' ? 'F' : 'z';
+  return { role: 'statistic', kind, df: [] };
+}

@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, namesTwoStatistics, statisticOfTwo, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
@@ -202,7 +202,7 @@ export interface RowCompletion {
 }
 
 function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
-  const parts = splitAtInnerHeaders(table);
+  const parts = splitAtInnerHeaders(table) ?? splitByTwoStatistics(table);
   if (parts === null) return readTableRows(text, table, tableIndex);
   // A table whose header is printed again, renamed, partway down ("χ2 | p" over the categorical rows, then
   // "(x̄ ± s) | t | p" over the continuous ones): each part is read under its own header.
@@ -261,6 +261,39 @@ function splitAtInnerHeaders(table: DocumentTable): DocumentTable[] | null {
     });
   }
   return parts.length > 1 ? parts : null;
+}
+
+/**
+ * A table comparing groups whose test column is named for two statistics ("Variable | Group A | Group B | t/χ2 |
+ * P"): the rows whose cells hold means and SDs take the continuous variables' statistic (t, F or z), the rows
+ * whose cells hold counts with percentages the chi-square (statisticOfTwo). Each kind of row is read as a table
+ * of its own under the header with that statistic's symbol; rows of neither kind keep the two-statistic name,
+ * under which only cells that write their symbol are read. Null when no header cell names two statistics.
+ */
+function splitByTwoStatistics(table: DocumentTable): DocumentTable[] | null {
+  const rows = table.rows;
+  const headerCount = table.headerRows ?? rows.findIndex((row) => row.slice(1).some((cell) => isNumberCell(cell)));
+  if (headerCount < 1) return null;
+  const named = rows.slice(0, headerCount).flatMap((row, at) => row.flatMap((cell, column) => (column > 0 && namesTwoStatistics(cell) ? [{ at, column, cell }] : [])));
+  if (named.length !== 1) return null;
+  const { at: headerRow, column, cell: name } = named[0]!;
+  const kindOf = (row: string[]): string | null => {
+    const role = statisticOfTwo(name, row.filter((_, index) => index !== column).join('  '));
+    return role?.role === 'statistic' ? role.kind : null;
+  };
+  const groups = new Map<string | null, number[]>();
+  rows.slice(headerCount).forEach((row, offset) => {
+    const kind = kindOf(row);
+    groups.set(kind, [...(groups.get(kind) ?? []), headerCount + offset]);
+  });
+  if (![...groups.keys()].some((kind) => kind !== null)) return null;
+  const symbol: Record<string, string> = { t: 't', F: 'F', z: 'z', chi2: 'χ2' };
+  return [...groups.entries()].map(([kind, indices]) => ({
+    ...table,
+    rows: [...rows.slice(0, headerCount).map((row, at) => (at === headerRow && kind !== null ? row.map((cell, index) => (index === column ? symbol[kind]! : cell)) : row)), ...indices.map((index) => rows[index]!)],
+    headerRows: headerCount,
+    ...(table.cells ? { cells: [...table.cells.slice(0, headerCount), ...indices.map((index) => table.cells![index]!)] } : {}),
+  }));
 }
 
 /** The kinds of statistic the rows' cells name as column names ("χ2", "t", "z"). */

@@ -21,7 +21,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, readCell, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
+import { classifyHeader, readCell, statisticOfTwo, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
@@ -190,28 +190,6 @@ function partsOf(cell: Cell, pattern: RegExp): Cell[] | null {
 }
 
 /** Every name cell with the run of values right after it (an empty cell or a text cell ends a run). */
-/**
- * "t/χ2", "χ2/t", "F/χ2": a row naming two statistics, the chi-square for categorical variables and the other
- * for continuous ones (common practice in tables comparing groups). Which one the row holds is told by the
- * cells above it: means with SDs ("2.45 ± 0.19") and no percentages give the other statistic, counts with
- * percentages and no "±" give the chi-square; anything else leaves the row unread.
- */
-const TWO_STATISTICS = /^(?:(chi2|x2|chi 2|x 2) ?\/ ?(t|f|z)|(t|f|z) ?\/ ?(chi2|x2|chi 2|x 2))(?: ?(?:values?|tests?))?$/;
-const MEAN_WITH_SD = /\d ?\u00b1 ?\d/;
-/** A count with its share: "30 (55.6)", "30 (55.6%)", "12 (9 %)"; a mean with its SD ("12.3 (4.5)") starts with decimals. */
-const COUNT_WITH_SHARE = /(?:^|\s)\d{1,5} ?\(\d{1,3}(?:\.\d{1,2})? ?%?\)|\d ?%/;
-
-function statisticOfTwo(name: string, above: string): ColumnRole | null {
-  const match = TWO_STATISTICS.exec(headerKey(name));
-  if (match === null) return null;
-  const continuous = (match[2] ?? match[3])!;
-  const means = MEAN_WITH_SD.test(above);
-  const counts = COUNT_WITH_SHARE.test(above);
-  if (means === counts) return null;
-  const kind = counts ? 'chi2' : continuous === 't' ? 't' : continuous === 'f' ? 'F' : 'z';
-  return { role: 'statistic', kind, df: [] };
-}
-
 function readRuns(cells: (Cell | null)[], textAbove: (line: number) => string = () => ''): Run[] {
   const runs: Run[] = [];
   for (let index = 0; index < cells.length; index++) {
