@@ -67,6 +67,7 @@ const STYLE = `
 * { box-sizing: border-box; }
 [hidden] { display: none !important; }
 body:not(.scripted) .needs-script { display: none !important; }
+html.booting [data-item]:not([data-first]) { display: none !important; }
 body { margin: 0; font: 15px/1.5 system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif; color: #1d2330; background: #fff; }
 main { max-width: 76rem; margin: 0 auto; padding: 1.5rem 1.25rem 4rem; }
 h1 { font-size: 1.6rem; margin: 0 0 .25rem; }
@@ -131,7 +132,16 @@ svg.map a:focus-visible { outline: 2px solid var(--focus); }
 `;
 
 /**
- * The page's only script. Fixed text (no data in it), allowed by its hash.
+ * The first of the page's two scripts, in its head: while the page loads
+ * (and until SCRIPT has paged the lists), only the first page of each list
+ * is laid out, so a report of thousands of documents is not laid out whole
+ * first. Where scripts do not run, neither does this one, and everything
+ * shows.
+ */
+const BOOT_SCRIPT = `document.documentElement.classList.add('booting');`;
+
+/**
+ * The page's main script. Fixed text (no data in it), allowed by its hash.
  * Without it the page shows everything at once (no paging, no sorting);
  * with it: the document table is sorted, searched and paged, the flag cards
  * and the long lists are paged, the filters hide and show flags, a flag can
@@ -142,6 +152,8 @@ svg.map a:focus-visible { outline: 2px solid var(--focus); }
 const SCRIPT = `
 (function () {
   'use strict';
+  try { run(); } finally { document.documentElement.classList.remove('booting'); }
+  function run() {
   var body = document.body;
   body.classList.add('scripted');
   var slice = Array.prototype.slice;
@@ -408,7 +420,8 @@ const SCRIPT = `
   if (location.hash.length > 1) {
     reveal(decodeURIComponent(location.hash.slice(1)));
     var target = document.getElementById(decodeURIComponent(location.hash.slice(1)));
-    if (target) target.scrollIntoView();
+    if (target) setTimeout(function () { target.scrollIntoView(); }, 0);
+  }
   }
 })();
 `;
@@ -421,7 +434,7 @@ function sha256Base64(text: string): string {
 export function contentSecurityPolicy(): string {
   return [
     "default-src 'none'",
-    `script-src 'sha256-${sha256Base64(SCRIPT)}'`,
+    `script-src 'sha256-${sha256Base64(BOOT_SCRIPT)}' 'sha256-${sha256Base64(SCRIPT)}'`,
     `style-src 'sha256-${sha256Base64(STYLE)}'`,
     "img-src 'none'",
     "base-uri 'none'",
@@ -569,6 +582,14 @@ function mapLegend(): string {
   );
 }
 
+/** Items on a list's first page, so the page can show them alone while it loads (BOOT_SCRIPT). */
+const PAGE_SIZES = { documents: 25, cards: 10, lists: 100 } as const;
+
+/** The attributes of an item of a paged list: data-first on those of its first page. */
+function itemAttributes(position: number, pageSize: number): string {
+  return position < pageSize ? 'data-item data-first' : 'data-item';
+}
+
 function pagerNav(listId: string, noun: string, sizes: readonly number[]): string {
   const options = sizes.map((size) => `<option value="${size}">${size === 0 ? 'all' : size}</option>`).join('');
   return (
@@ -584,7 +605,7 @@ function documentRow(c: DocumentCounts, rank: number): string {
   const d = c.document;
   const name = `<a href="#${documentAnchor(c.index)}">${e(d.path)}</a>`;
   const data =
-    `data-item data-rank="${rank}" data-name="${e(d.path)}" data-worst="${c.worst}" data-fail="${c.bySeverity.fail}" data-warn="${c.bySeverity.warn}" ` +
+    `${itemAttributes(rank - 1, PAGE_SIZES.documents)} data-rank="${rank}" data-name="${e(d.path)}" data-worst="${c.worst}" data-fail="${c.bySeverity.fail}" data-warn="${c.bySeverity.warn}" ` +
     `data-note="${c.bySeverity.note}" data-crosses="${c.crossesAlpha}" data-results="${d.statistics.length}" data-flagged="${c.flagged}"`;
   if (d.status === 'unreadable') {
     return `<tr ${data}><td class="num">${rank}</td><td class="name">${name}</td><td class="map">unreadable</td><td>unreadable</td><td class="num"></td><td class="num"></td><td class="num"></td><td class="num"></td><td class="num"></td></tr>`;
@@ -629,7 +650,7 @@ function documentsTable(ranked: readonly DocumentCounts[]): string {
     header('note', 'note', true) +
     header('crosses', 'Change the conclusion', true) +
     header('flagged', 'Flagged results', true) +
-    `</tr></thead><tbody id="documents-body" data-paged data-page-size="25">${ranked.map((c, i) => documentRow(c, i + 1)).join('')}</tbody></table>`
+    `</tr></thead><tbody id="documents-body" data-paged data-page-size="${PAGE_SIZES.documents}">${ranked.map((c, i) => documentRow(c, i + 1)).join('')}</tbody></table>`
   );
 }
 
@@ -790,7 +811,7 @@ function tablesNotReadBlock(document: DocumentOutput): string {
   return `<div class="tables-not-read"><h4>Tables not read</h4><ul>${items}</ul></div>`;
 }
 
-function flaggedDocument(counts: DocumentCounts): string {
+function flaggedDocument(counts: DocumentCounts, position: number): string {
   const { document, index } = counts;
   const documentFindings =
     document.findings.length > 0
@@ -800,7 +821,7 @@ function flaggedDocument(counts: DocumentCounts): string {
     .map((s, i) => (s.findings.length > 0 ? resultBlock(document, s, index, i) : ''))
     .join('');
   return (
-    `<section class="doc flagged" id="${documentAnchor(index)}" data-item tabindex="-1">` +
+    `<section class="doc flagged" id="${documentAnchor(index)}" ${itemAttributes(position, PAGE_SIZES.cards)} tabindex="-1">` +
     `<h3>${e(document.path)}</h3>${documentMeta(document, counts)}${documentFindings}${results}${tablesNotReadBlock(document)}${allResultsTable(document, index)}</section>`
   );
 }
@@ -866,7 +887,7 @@ export function formatHtml(report: Report): string {
       ? `<p>No result was flagged.</p>`
       : filtersPanel(report, rules) +
         pagerNav('flag-cards', 'document', [10, 25, 100, 0]) +
-        `<div id="flag-cards" data-paged data-page-size="10">${flaggedRanked.map(flaggedDocument).join('')}</div>`) +
+        `<div id="flag-cards" data-paged data-page-size="${PAGE_SIZES.cards}">${flaggedRanked.map((c, i) => flaggedDocument(c, i)).join('')}</div>`) +
     `</section>`;
 
   const cleanSection =
@@ -874,11 +895,11 @@ export function formatHtml(report: Report): string {
       ? ''
       : `<section id="clean"><h2>Documents without flags (${clean.length})</h2>` +
         pagerNav('clean-list', 'document', [100, 500, 0]) +
-        `<ul class="clean-list" id="clean-list" data-paged data-page-size="100">` +
+        `<ul class="clean-list" id="clean-list" data-paged data-page-size="${PAGE_SIZES.lists}">` +
         clean
           .map(
-            (c) =>
-              `<li class="clean${noResultsMessage(c.document) === null ? '' : ' no-results'}" id="${documentAnchor(c.index)}" data-item tabindex="-1">${e(c.document.path)}: ${cleanDocumentWords(c.document)}` +
+            (c, i) =>
+              `<li class="clean${noResultsMessage(c.document) === null ? '' : ' no-results'}" id="${documentAnchor(c.index)}" ${itemAttributes(i, PAGE_SIZES.lists)} tabindex="-1">${e(c.document.path)}: ${cleanDocumentWords(c.document)}` +
               `${tablesNotReadBlock(c.document)}${allResultsTable(c.document, c.index)}</li>`,
           )
           .join('') +
@@ -889,11 +910,11 @@ export function formatHtml(report: Report): string {
       ? ''
       : `<section id="unreadable"><h2>Unreadable documents (${unreadable.length})</h2>` +
         pagerNav('unreadable-list', 'document', [100, 500, 0]) +
-        `<ul id="unreadable-list" data-paged data-page-size="100">` +
+        `<ul id="unreadable-list" data-paged data-page-size="${PAGE_SIZES.lists}">` +
         unreadable
           .map(
-            (c) =>
-              `<li class="unreadable" id="${documentAnchor(c.index)}" data-item tabindex="-1"><span class="path">${e(c.document.path)}</span>: ` +
+            (c, i) =>
+              `<li class="unreadable" id="${documentAnchor(c.index)}" ${itemAttributes(i, PAGE_SIZES.lists)} tabindex="-1"><span class="path">${e(c.document.path)}</span>: ` +
               `<span class="reason">${e(c.document.error ?? 'unreadable (no reason given)')}</span></li>`,
           )
           .join('') +
@@ -906,7 +927,7 @@ export function formatHtml(report: Report): string {
     `<meta name="referrer" content="no-referrer">\n` +
     `<meta name="viewport" content="width=device-width, initial-scale=1">\n` +
     `<meta name="generator" content="${e(`${report.tool.name} ${report.tool.version}`)}">\n` +
-    `<title>${e(title)}</title>\n<style>${STYLE}</style>\n</head>\n<body>\n<main>\n` +
+    `<title>${e(title)}</title>\n<style>${STYLE}</style>\n<script>${BOOT_SCRIPT}</script>\n</head>\n<body>\n<main>\n` +
     `<header><h1>plumbline report</h1><p class="meta">${e(report.tool.name)} ${e(report.tool.version)}</p>` +
     `<p class="caution" role="note">${e(report.caution)}</p>${totals}</header>\n` +
     `${overview}\n${flaggedSection}\n${cleanSection}\n${unreadableSection}\n` +

@@ -326,6 +326,33 @@ describe.skipIf(!available)('HTML report in Chromium', () => {
     }
   });
 
+  it('without its scripts shows every document, card and list in full; with them, leaves no list half-loaded', async () => {
+    const report = manyDocuments(60);
+    const file = join(folder, 'noscript.html');
+    writeFileSync(file, formatHtml(report));
+    const context = await browser.newContext({ javaScriptEnabled: false });
+    const page = await context.newPage();
+    try {
+      await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
+      expect((await visibility(page, '#documents-body tr')).every(Boolean)).toBe(true);
+      expect(await visibility(page, '#documents-body tr')).toHaveLength(60);
+      const cards = await visibility(page, '#flag-cards > .doc');
+      expect(cards.length).toBeGreaterThan(10);
+      expect(cards.every(Boolean)).toBe(true);
+      expect((await visibility(page, 'nav.pager, .controls, .seen-box')).some(Boolean)).toBe(false);
+    } finally {
+      await context.close();
+    }
+    const { page: scripted, errors } = await open('scripted.html', formatHtml(report));
+    try {
+      expect(await scripted.evaluate(() => document.documentElement.classList.contains('booting'))).toBe(false);
+      expect((await visibility(scripted, '#flag-cards > .doc')).filter(Boolean)).toHaveLength(10);
+      expect(errors).toEqual([]);
+    } finally {
+      await scripted.close();
+    }
+  });
+
   it('runs no script from a hostile manuscript, opens no dialog and makes no network request', async () => {
     const { page, errors, requests, dialogs, url } = await open('hostile.html', formatHtml(hostileReport()));
     try {

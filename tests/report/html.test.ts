@@ -60,9 +60,12 @@ describe('formatHtml: structure', () => {
     expect(html).not.toMatch(/@import|url\(|https?:\/\/(?!www\.w3\.org\/2000\/svg)/);
   });
 
-  it('allows its one inline script and its one style by their sha256 hashes, and nothing else', () => {
+  it('allows its two inline scripts and its one style by their sha256 hashes, and nothing else', () => {
     const scripts = all.filter((el) => el.name === 'script');
-    expect(scripts).toHaveLength(1);
+    expect(scripts).toHaveLength(2);
+    // The first, in the head, only marks the page as loading; the second, at the end of the body, is the page's script.
+    expect(scripts[0]!.parent).toMatchObject({ name: 'head' });
+    expect(textOf(scripts[0]!)).toBe("document.documentElement.classList.add('booting');");
     const styles = all.filter((el) => el.name === 'style');
     expect(styles).toHaveLength(1);
     const csp = all.find((el) => el.name === 'meta' && el.attribs['http-equiv'] === 'Content-Security-Policy')?.attribs.content;
@@ -75,10 +78,24 @@ describe('formatHtml: structure', () => {
       }),
     );
     expect(directives['default-src']).toEqual(["'none'"]);
-    expect(directives['script-src']).toEqual([`'sha256-${hash(scripts[0]!)}'`]);
+    expect(directives['script-src']).toEqual(scripts.map((script) => `'sha256-${hash(script)}'`));
     expect(directives['style-src']).toEqual([`'sha256-${hash(styles[0]!)}'`]);
-    // The policy comes before the style and the script.
+    // The policy comes before the style and the scripts.
     expect(html.indexOf('Content-Security-Policy')).toBeLessThan(html.indexOf('<style>'));
+  });
+
+  it('marks the first page of each paged list, which alone is laid out while the page loads', () => {
+    // 440 documents (a quarter of them without flags): more than a page of each list.
+    const documents = Array.from({ length: 440 }, (_, i) => ({ ...structuredClone(report.documents[i % report.documents.length]!), path: `copy-${i}.txt` }));
+    const many = parse(formatHtml(buildReport(documents)));
+    for (const id of ['documents-body', 'flag-cards', 'clean-list']) {
+      const list = many.find((el) => el.attribs.id === id)!;
+      const items = list.children.filter((c): c is Element => c instanceof Element && c.attribs['data-item'] !== undefined);
+      expect(items.length, id).toBeGreaterThan(0);
+      const size = Number(list.attribs['data-page-size']);
+      expect(items.length, id).toBeGreaterThan(size);
+      items.forEach((item, i) => expect(item.attribs['data-first'] !== undefined, `${id} item ${i}`).toBe(i < size));
+    }
   });
 
   it('shows the caution, the totals, and each flagged result marked inside its surrounding text', () => {
@@ -261,7 +278,7 @@ describe('formatHtml: escaping', () => {
       expect(allowed.has(element.name), `unexpected <${element.name}>`).toBe(true);
       for (const name of Object.keys(element.attribs)) expect(name.startsWith('on'), `attribute ${name} on <${element.name}>`).toBe(false);
     }
-    expect(all.filter((el) => el.name === 'script')).toHaveLength(1);
+    expect(all.filter((el) => el.name === 'script')).toHaveLength(2);
   });
 
   it('keeps the text itself: paths, surroundings and errors read back exactly once decoded', () => {
@@ -311,7 +328,7 @@ describe('formatHtml: the corpus-demo manuscripts', () => {
     const all = parse(formatHtml(report));
     expect(all.filter((el) => el.name === 'mark')).toHaveLength(report.summary.flaggedStatistics);
     expect(all.filter((el) => hasClass(el, 'finding'))).toHaveLength(countFindings(report));
-    expect(all.filter((el) => el.name === 'script')).toHaveLength(1);
+    expect(all.filter((el) => el.name === 'script')).toHaveLength(2);
   });
 });
 
