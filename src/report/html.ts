@@ -358,7 +358,7 @@ const SCRIPT = `
         textIn(section, 'h3'),
         textIn(result, '.where'),
         textIn(result, 'mark'),
-        textIn(result, '.numbers'),
+        (textIn(result, '.numbers') + ' ' + textIn(item, '.implied')).trim(),
         item.getAttribute('data-severity'),
         item.getAttribute('data-rule'),
         item.getAttribute('data-crosses') === 'true' ? 'yes' : 'no',
