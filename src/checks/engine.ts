@@ -63,6 +63,7 @@ export function checkResults(
           data: draft.data,
           ...(draft.slip ? { slip: draft.slip } : {}),
           ...(draft.pDiscrepancy ? { pDiscrepancy: draft.pDiscrepancy } : {}),
+          ...(draft.rowImplies ? { rowImplies: draft.rowImplies } : {}),
         });
       }
     }

@@ -25,6 +25,21 @@ export interface FindingDraft {
   slip?: string;
   /** For a printed p that does not follow from the statistic: how far off it is (checks/pDiscrepancy.ts). */
   pDiscrepancy?: PDiscrepancy;
+  /** For a table row that does not add up: the F and p its own numbers imply (rules/table-arithmetic.ts). */
+  rowImplies?: RowImplies;
+}
+
+/** The F (and its p) that a row of an ANOVA table implies by its own SS, MS and df, over its error row. */
+export interface RowImplies {
+  /** What the F is made of: "SS / df over SS / df of 'Error'", "MS over MS of 'Error'". */
+  from: string;
+  statistic: number;
+  statisticLow: number;
+  statisticHigh: number;
+  /** p at that F and the result's df; null when the df are not known. */
+  p: number | null;
+  pLow: number | null;
+  pHigh: number | null;
 }
 
 export interface Finding {
@@ -36,6 +51,7 @@ export interface Finding {
   data: Record<string, string | number>;
   slip?: string;
   pDiscrepancy?: PDiscrepancy;
+  rowImplies?: RowImplies;
 }
 
 /** Everything a check may look at besides the result itself. */

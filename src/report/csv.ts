@@ -5,7 +5,10 @@ import { noResultsMessage } from './wording.js';
 
 /**
  * The CSV report: one row per result (flagged or not) for spreadsheets and
- * statistics software, plus one row per finding about a document as a whole,
+ * statistics software, its columns in the order a reviewer reads a result
+ * (CSV_COLUMNS: where, what was printed, what plumbline recomputed, the
+ * verdict, why; their JSON Schema is schema/report-csv.schema.json),
+ * plus one row per finding about a document as a whole,
  * one row per results table that was not read in full (with the reason), one
  * row for a document in which no result was found, and one row per
  * unreadable document. Numeric columns hold plain numbers (or nothing);
@@ -13,8 +16,8 @@ import { noResultsMessage } from './wording.js';
  * control characters in any text cell (a document's text, a file name) are
  * written as visible escapes (src/report/visible.ts), since a CSV is also
  * read in a terminal.
- * Comparators are written as words ("equals", "below", ...), since a cell
- * holding a bare "=" would itself be taken for the start of a formula.
+ * A printed p is written with its letter ("p = .021", "p < .001"), so no
+ * cell starts with a bare "=" that a spreadsheet would take for a formula.
  */
 
 type Severity = FindingOutput['severity'];
@@ -22,40 +25,58 @@ const SEVERITY_RANK: Record<Severity, number> = { fail: 3, warn: 2, note: 1 };
 
 /** What a row stands for (the `row` column). */
 export type CsvRowKind = 'result' | 'document finding' | 'table not read' | 'no results' | 'unreadable';
+export const CSV_ROW_KINDS: readonly CsvRowKind[] = ['result', 'document finding', 'table not read', 'no results', 'unreadable'];
 
-/** The columns, in order. Numeric columns are marked so that they are never neutralised. */
+/** The verdict on a result (the `verdict` column): its worst finding's severity, or why it has none. */
+export const CSV_VERDICTS = ['fail', 'warn', 'note', 'no flag', 'not checked'] as const;
+
+interface CsvColumnDefinition {
+  name: string;
+  /** The part of a reviewer's reading the column belongs to. */
+  group: 'where' | 'printed' | 'recomputed' | 'verdict' | 'why' | 'document';
+  /** Numeric columns hold a plain number or nothing, and are never neutralised. */
+  numeric: boolean;
+  /** The words a text column may hold, when it is one of a few. */
+  values?: readonly string[];
+  description: string;
+}
+
+/**
+ * The columns, in the order a reviewer reads a result: where it is, what was
+ * printed, what plumbline recomputed (with the interval over the values that
+ * round to the printed ones), the verdict, and why. The document's own
+ * details (its format, its alpha) close the row.
+ */
 export const CSV_COLUMNS = [
-  { name: 'row', numeric: false },
-  { name: 'document', numeric: false },
-  { name: 'status', numeric: false },
-  { name: 'format', numeric: false },
-  { name: 'alpha', numeric: true },
-  { name: 'page', numeric: true },
-  { name: 'line', numeric: true },
-  { name: 'column', numeric: true },
-  { name: 'kind', numeric: false },
-  // "H" (Kruskal-Wallis, kind chi2) or "rs" (Spearman, kind r): the symbol written when it is not the kind's own.
-  { name: 'symbol', numeric: false },
-  { name: 'result text', numeric: false },
-  { name: 'df1', numeric: true },
-  { name: 'df2', numeric: true },
-  { name: 'statistic comparator', numeric: false },
-  { name: 'statistic', numeric: true },
-  { name: 'reported p comparator', numeric: false },
-  { name: 'reported p', numeric: true },
-  { name: 'reported p as printed', numeric: false },
-  { name: 'recomputed p', numeric: true },
-  { name: 'recomputed p low', numeric: true },
-  { name: 'recomputed p high', numeric: true },
-  { name: 'tails', numeric: false },
-  { name: 'effect sizes', numeric: false },
-  { name: 'checked', numeric: false },
-  { name: 'worst severity', numeric: false },
-  { name: 'rules', numeric: false },
-  { name: 'changes conclusion', numeric: false },
-  { name: 'messages', numeric: false },
-  { name: 'note', numeric: false },
-] as const;
+  { name: 'row', group: 'where', numeric: false, values: CSV_ROW_KINDS, description: 'What the row stands for: a result, a finding about the document as a whole, a results table not read in full, a document in which no result was found, or an unreadable document.' },
+  { name: 'document', group: 'where', numeric: false, description: 'The document, named relative to the folder the audit was run from.' },
+  { name: 'page', group: 'where', numeric: true, description: '1-based page, for formats with pages.' },
+  { name: 'line', group: 'where', numeric: true, description: '1-based line of the result (of the text plumbline extracted, for PDF, DOCX, HTML and JATS).' },
+  { name: 'column', group: 'where', numeric: true, description: '1-based column of the result.' },
+  { name: 'in', group: 'where', numeric: false, values: ['text', 'table', ''], description: '"text" for a result read from running text, "table" for one read from a row of a table.' },
+  { name: 'printed', group: 'printed', numeric: false, description: 'The result as printed (for a table not read: its caption).' },
+  { name: 'test', group: 'printed', numeric: false, description: 'F, t, chi2, r or z; "H (chi2)" for a Kruskal-Wallis H tested as chi-square, "rs (r)" for Spearman\'s rank correlation.' },
+  { name: 'df', group: 'printed', numeric: false, description: 'The degrees of freedom, "2, 57"; "88 (from n)" and the like when they were worked out rather than printed (see note).' },
+  { name: 'statistic', group: 'printed', numeric: true, description: 'The printed statistic\'s value (a bound when it was printed with < or >, see printed).' },
+  { name: 'p as printed', group: 'printed', numeric: false, description: 'The printed p with its comparator, "p = .021", "p < .001"; empty when no p was printed.' },
+  { name: 'p', group: 'printed', numeric: true, description: 'The printed p as a number (the bound for "p < .001").' },
+  { name: 'effect sizes', group: 'printed', numeric: false, description: 'Printed effect sizes, "kind=value [95% CI low, high]; ...".' },
+  { name: 'recomputed p', group: 'recomputed', numeric: true, description: 'p recomputed from the printed statistic and df.' },
+  { name: 'recomputed p low', group: 'recomputed', numeric: true, description: 'Smallest p over the values that round to the printed statistic and df.' },
+  { name: 'recomputed p high', group: 'recomputed', numeric: true, description: 'Largest p over the values that round to the printed statistic and df.' },
+  { name: 'tails', group: 'recomputed', numeric: false, values: ['upper', 'two', ''], description: 'The tails of the recomputed p.' },
+  { name: 'row implies F', group: 'recomputed', numeric: true, description: 'For a table row that does not add up: the F its own SS and df (or MS) imply over its error row.' },
+  { name: 'row implies p', group: 'recomputed', numeric: true, description: 'The p of that F at the result\'s df.' },
+  { name: 'verdict', group: 'verdict', numeric: false, values: [...CSV_VERDICTS, ''], description: 'The worst severity among the row\'s findings; "no flag" for a result checked without findings, "not checked" for one that could not be recomputed.' },
+  { name: 'changes the conclusion', group: 'verdict', numeric: false, values: ['yes', 'no', ''], description: '"yes" when a finding\'s discrepancy puts the p on the other side of the document\'s alpha.' },
+  { name: 'p off by', group: 'verdict', numeric: false, values: ['last-digit', 'moderate', 'order-of-magnitude', ''], description: 'How large a p discrepancy is (see pDiscrepancy in the JSON report).' },
+  { name: 'rules', group: 'verdict', numeric: false, description: 'The rules that flagged the row, "; " between them.' },
+  { name: 'why', group: 'why', numeric: false, description: 'Each finding as "severity rule: message", " | " between them.' },
+  { name: 'slip', group: 'why', numeric: false, description: 'A simple slip that reproduces the printed numbers, when one was found.' },
+  { name: 'note', group: 'why', numeric: false, description: 'How the df were worked out, why a result was not checked, why a table was not read, why a document has no result, or why it could not be read.' },
+  { name: 'format', group: 'document', numeric: false, description: 'The document\'s format (txt, pdf, docx, ...).' },
+  { name: 'alpha', group: 'document', numeric: true, description: 'The alpha used for the document (declared in it, or the default).' },
+] as const satisfies readonly CsvColumnDefinition[];
 
 export type CsvColumn = (typeof CSV_COLUMNS)[number]['name'];
 type Cell = string | number | null;
@@ -80,14 +101,6 @@ const DF_FROM_NOTES: Record<NonNullable<StatisticOutput['dfFrom']>, string> = {
   'levene-two-groups': "df of Levene's test for two groups: 1 and the pooled t test's df in the same row",
   'text-beside-table': 'df stated in the text beside the table, not in the table, its caption or its notes',
 };
-
-type Comparator = StatisticOutput['valueComparator'];
-const COMPARATOR_WORDS: Record<Comparator, string> = { '=': 'equals', '<': 'below', '>': 'above', '<=': 'at most', '>=': 'at least' };
-
-/** The word written in the comparator columns for each comparator. */
-export function comparatorWord(comparator: Comparator): string {
-  return COMPARATOR_WORDS[comparator];
-}
 
 function worstSeverity(findings: readonly FindingOutput[]): Severity | null {
   let worst: Severity | null = null;
@@ -115,50 +128,69 @@ function effectsCell(statistic: StatisticOutput): string {
     .join('; ');
 }
 
+const DF_FROM_SHORT: Record<NonNullable<StatisticOutput['dfFrom']>, string> = {
+  'sample-size': 'from n',
+  'study-sample-size': "from the study's N",
+  'contingency-table': 'from the table',
+  'levene-two-groups': "Levene's, two groups",
+  'text-beside-table': 'from the text beside the table',
+};
+
 function findingColumns(findings: readonly FindingOutput[]): Row {
-  if (findings.length === 0) return { 'worst severity': '', rules: '', 'changes conclusion': 'false', messages: '' };
+  const discrepancy = findings.find((f) => f.pDiscrepancy)?.pDiscrepancy;
+  const slips = [...new Set(findings.map((f) => f.slip).filter((slip): slip is string => slip !== undefined))];
   return {
-    'worst severity': worstSeverity(findings) ?? '',
+    verdict: worstSeverity(findings) ?? '',
+    'changes the conclusion': findings.some((f) => f.crossesAlpha) ? 'yes' : 'no',
+    'p off by': discrepancy?.size ?? '',
     rules: [...new Set(findings.map((f) => f.rule))].join('; '),
-    'changes conclusion': findings.some((f) => f.crossesAlpha) ? 'true' : 'false',
-    messages: findings.map((f) => `${f.severity} ${f.rule}: ${visibleLine(f.message)}`).join(' | '),
+    why: findings.map((f) => `${f.severity} ${f.rule}: ${visibleLine(f.message)}`).join(' | '),
+    slip: slips.map(visibleLine).join('; '),
   };
 }
 
 function documentColumns(document: DocumentOutput): Row {
   return {
     document: document.path,
-    status: document.status,
     format: document.format ?? '',
     alpha: finite(document.alpha),
   };
 }
 
+function testName(statistic: StatisticOutput): string {
+  return statistic.symbol ? `${statistic.symbol} (${statistic.kind})` : statistic.kind;
+}
+
+function dfCell(statistic: StatisticOutput): string {
+  const df = statistic.df.map((value) => String(value)).join(', ');
+  return df !== '' && statistic.dfFrom ? `${df} (${DF_FROM_SHORT[statistic.dfFrom]})` : df;
+}
+
 function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
   const rec = statistic.recomputed;
+  const implied = statistic.findings.find((f) => f.rowImplies)?.rowImplies;
+  const verdict = statistic.findings.length > 0 ? findingColumns(statistic.findings) : { verdict: rec.evaluable ? 'no flag' : 'not checked', 'changes the conclusion': 'no' };
   return {
     row: 'result',
     ...documentColumns(document),
     page: statistic.location.page,
     line: statistic.location.line,
     column: statistic.location.column,
-    kind: statistic.kind,
-    symbol: statistic.symbol ?? '',
-    'result text': visibleLine(statistic.text),
-    df1: finite(statistic.df[0]),
-    df2: finite(statistic.df[1]),
-    'statistic comparator': comparatorWord(statistic.valueComparator),
+    in: statistic.inTable ? 'table' : 'text',
+    printed: visibleLine(statistic.text),
+    test: testName(statistic),
+    df: dfCell(statistic),
     statistic: finite(statistic.value),
-    'reported p comparator': statistic.p ? comparatorWord(statistic.p.comparator) : '',
-    'reported p': finite(statistic.p?.value),
-    'reported p as printed': statistic.p?.text ?? '',
+    'p as printed': statistic.p ? `p ${statistic.p.comparator} ${visibleLine(statistic.p.text)}` : '',
+    p: finite(statistic.p?.value),
+    'effect sizes': effectsCell(statistic),
     'recomputed p': finite(rec.p),
     'recomputed p low': finite(rec.pLow),
     'recomputed p high': finite(rec.pHigh),
     tails: rec.evaluable ? rec.tails : '',
-    'effect sizes': effectsCell(statistic),
-    checked: rec.evaluable ? 'true' : 'false',
-    ...findingColumns(statistic.findings),
+    'row implies F': finite(implied?.statistic),
+    'row implies p': finite(implied?.p),
+    ...verdict,
     note: rec.evaluable ? (statistic.dfFrom ? DF_FROM_NOTES[statistic.dfFrom] : '') : visibleLine(rec.reason ?? ''),
   };
 }
@@ -176,8 +208,9 @@ function documentRows(document: DocumentOutput): Row[] {
       page: table.location.page,
       line: table.location.line,
       column: table.location.column,
-      'result text': visibleLine(table.caption ?? ''),
-      checked: 'false',
+      in: 'table',
+      printed: visibleLine(table.caption ?? ''),
+      verdict: 'not checked',
       note: visibleLine(table.message),
     });
   }

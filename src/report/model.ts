@@ -29,6 +29,18 @@ export const findingSchema = z.object({
     })
     .optional()
     .describe('Set on a finding about a printed p that does not follow from the statistic and df (p-value-mismatch): how large the discrepancy is.'),
+  rowImplies: z
+    .object({
+      from: z.string().describe('What the F is made of: "SS / df over SS / df of \'Error\'" (each mean square from the row\'s own SS and df), or "MS" where a row prints no SS.'),
+      statistic: z.number().describe('F at the printed cells.'),
+      statisticLow: z.number().describe('Smallest F over the values that round to the printed cells.'),
+      statisticHigh: z.number(),
+      p: z.number().nullable().describe('p at that F and the result\'s df; null when the df are not known.'),
+      pLow: z.number().nullable().describe('Smallest p over the same values (at statisticHigh).'),
+      pHigh: z.number().nullable(),
+    })
+    .optional()
+    .describe('Set on a finding about a row of an ANOVA table that does not add up (table-arithmetic): the F and p the row\'s own numbers imply over its error row, beside the printed F and its p.'),
 });
 
 export const locationSchema = z.object({

@@ -1,21 +1,37 @@
 /**
  * Opens the HTML report in headless Chromium (Debian's chromium package,
  * driven by playwright-core) and checks it as a reader would meet it: the
- * flagged results are visible, the filters hide and show them, text from a
- * hostile manuscript runs no script, and the page asks for nothing over the
- * network.
+ * flagged results are visible, the filters hide and show them, the document
+ * table sorts, searches and pages, the map's marks lead to their cards (on
+ * any page, past any filter), seen marks last across a reload and the flags
+ * shown are saved as CSV, text from a hostile manuscript runs no script, and
+ * the page asks for nothing over the network.
  *
  * CI must have Debian's chromium installed (apt-get install -y chromium).
  * Elsewhere, without it, these tests are skipped with a warning that says why.
  */
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
+import { buildReport } from '../../src/report/build.js';
 import { formatHtml } from '../../src/report/html.js';
+import type { Report } from '../../src/report/model.js';
 import { corpusReport, hostileReport } from '../fixtures/report/reports.js';
+
+/** `count` documents: the fixture corpus's documents again and again under new names, so the lists need paging. */
+function manyDocuments(count: number): Report {
+  const base = corpusReport().documents;
+  const documents = Array.from({ length: count }, (_, i) => {
+    const document = structuredClone(base[i % base.length]!);
+    document.path = `batch/paper-${String(i).padStart(3, '0')}-${document.path.replace(/^.*\//, '')}`;
+    return document;
+  });
+  return buildReport(documents);
+}
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = [
@@ -143,6 +159,197 @@ describe.skipIf(!available)('HTML report in Chromium', () => {
       expect(requests).toEqual([url]);
     } finally {
       await page.close();
+    }
+  });
+
+  /** The names of the document table's rows that are shown, in order. */
+  function shownRows(page: Page): Promise<string[]> {
+    return page.$$eval('#documents-body tr', (rows) => rows.filter((row) => row.checkVisibility()).map((row) => row.getAttribute('data-name') ?? ''));
+  }
+
+  it('sorts, searches and pages the document table, with the mouse and with the keyboard', async () => {
+    const report = manyDocuments(60);
+    const { page, errors } = await open('many.html', formatHtml(report));
+    try {
+      const status = page.locator('nav[data-for="documents-body"] .page-status');
+      // Ranked worst first, 25 to a page.
+      let shown = await shownRows(page);
+      expect(shown).toHaveLength(25);
+      expect(await status.textContent()).toBe('Page 1 of 3: 1 to 25 of 60 documents');
+      const ranks = await page.$$eval('#documents-body tr', (rows) => rows.filter((row) => row.checkVisibility()).map((row) => Number(row.getAttribute('data-rank'))));
+      expect(ranks).toEqual(Array.from({ length: 25 }, (_, i) => i + 1));
+      const worst = await page.$$eval('#documents-body tr', (rows) => rows.map((row) => Number(row.getAttribute('data-worst'))));
+      expect(worst).toEqual([...worst].sort((a, b) => b - a));
+
+      // Paging: next, last, first.
+      const nav = page.locator('nav[data-for="documents-body"]');
+      await nav.locator('[data-go="next"]').click();
+      expect(await status.textContent()).toBe('Page 2 of 3: 26 to 50 of 60 documents');
+      const second = await shownRows(page);
+      expect(second).toHaveLength(25);
+      expect(second.some((name) => shown.includes(name))).toBe(false);
+      await nav.locator('[data-go="last"]').click();
+      expect(await shownRows(page)).toHaveLength(10);
+      expect(await nav.locator('[data-go="next"]').isDisabled()).toBe(true);
+      await nav.locator('[data-go="first"]').click();
+      expect(await shownRows(page)).toEqual(shown);
+
+      // Sorting by name, A to Z and back, from the keyboard.
+      const names = report.documents.map((d) => d.path).sort();
+      await page.locator('th[data-sort="name"] button').focus();
+      await page.keyboard.press('Enter');
+      expect(await page.locator('th[data-sort="name"]').getAttribute('aria-sort')).toBe('ascending');
+      expect(await page.locator('th[data-sort="rank"]').getAttribute('aria-sort')).toBeNull();
+      expect(await shownRows(page)).toEqual(names.slice(0, 25));
+      await page.keyboard.press('Enter');
+      expect(await page.locator('th[data-sort="name"]').getAttribute('aria-sort')).toBe('descending');
+      expect(await shownRows(page)).toEqual([...names].reverse().slice(0, 25));
+
+      // Sorting by the number of warn flags: the most first, on every page.
+      await page.locator('th[data-sort="warn"] button').click();
+      const warns = await page.$$eval('#documents-body tr', (rows) => rows.map((row) => Number(row.getAttribute('data-warn'))));
+      expect(warns).toEqual([...warns].sort((a, b) => b - a));
+      expect(warns[0]).toBeGreaterThan(warns.at(-1)!);
+
+      // Search by name: the pager counts what is left.
+      await page.locator('#doc-search').fill('paper-01');
+      shown = await shownRows(page);
+      expect(shown).toHaveLength(10);
+      expect(shown.every((name) => name.includes('paper-01'))).toBe(true);
+      expect(await status.textContent()).toBe('Page 1 of 1: 1 to 10 of 10 documents');
+      expect(await page.locator('#doc-count').textContent()).toBe('10 documents of 60 match.');
+      await page.locator('#doc-search').fill('no such paper');
+      expect(await shownRows(page)).toEqual([]);
+      await page.locator('#doc-search').fill('');
+
+      // Only the documents where a flag changes the conclusion.
+      await page.locator('#doc-crosses').check();
+      const crossing = report.documents.filter((d) => d.statistics.some((s) => s.findings.some((f) => f.crossesAlpha)) || d.findings.some((f) => f.crossesAlpha));
+      expect(crossing.length).toBeGreaterThan(0);
+      expect(crossing.length).toBeLessThan(60);
+      await nav.locator('select[data-size]').selectOption('0');
+      expect(new Set(await shownRows(page))).toEqual(new Set(crossing.map((d) => d.path)));
+      await page.locator('#doc-crosses').uncheck();
+      expect(await shownRows(page)).toHaveLength(60);
+      expect(errors).toEqual([]);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it('pages the flag cards, and a mark on the map leads to its card on any page, past any filter', async () => {
+    const report = manyDocuments(60);
+    const { page, errors } = await open('map.html', formatHtml(report));
+    try {
+      const visibleCards = (): Promise<number> => visibility(page, '#flag-cards > .doc').then((v) => v.filter(Boolean).length);
+      const flaggedDocuments = report.documents.filter((d) => d.statistics.some((s) => s.findings.length > 0)).length;
+      expect(flaggedDocuments).toBeGreaterThan(10);
+      expect(await visibleCards()).toBe(10);
+      expect(await page.locator('nav[data-for="flag-cards"] .page-status').textContent()).toBe(
+        `Page 1 of ${Math.ceil(flaggedDocuments / 10)}: 1 to 10 of ${flaggedDocuments} documents`,
+      );
+
+      // The last card's first flagged result is on the last page; its mark is in the table's last row of that document.
+      const lastCard = await page.$$eval('#flag-cards > .doc', (sections) => sections.at(-1)!.id);
+      const target = await page.$eval(`#${lastCard} .result`, (article) => article.id);
+      expect(await page.locator(`#${target}`).isVisible()).toBe(false);
+      await page.locator('nav[data-for="documents-body"] select[data-size]').selectOption('0');
+      const mark = page.locator(`a.map-mark[href="#${target}"]`);
+      expect(await mark.count()).toBe(1);
+      await mark.click();
+      await expect.poll(() => page.locator(`#${target}`).isVisible()).toBe(true);
+      await expect.poll(() => page.evaluate((id) => {
+        const box = document.getElementById(id)!.getBoundingClientRect();
+        // Scrolled to the top of the window (to within a pixel's rounding).
+        return box.top > -1 && box.top < window.innerHeight;
+      }, target)).toBe(true);
+      expect(page.url().endsWith(`#${target}`)).toBe(true);
+
+      // Hidden by a filter: the filters are reset so the result can be read. With the keyboard this time.
+      const failTarget = await page.$$eval('#flag-cards .result', (articles) =>
+        articles.find((article) => [...article.querySelectorAll('.finding')].every((item) => item.getAttribute('data-severity') === 'fail'))!.id,
+      );
+      await page.locator('input[data-group="severity"][value="fail"]').uncheck();
+      expect(await page.locator(`#${failTarget}`).isVisible()).toBe(false);
+      await page.locator(`a.map-mark[href="#${failTarget}"]`).focus();
+      await page.keyboard.press('Enter');
+      await expect.poll(() => page.locator(`#${failTarget}`).isVisible()).toBe(true);
+      expect(await page.locator('input[data-group="severity"][value="fail"]').isChecked()).toBe(true);
+      expect(page.url().endsWith(`#${failTarget}`)).toBe(true);
+      // Only flagged results are marks that link; every link on the page has its target.
+      const missing = await page.$$eval('a[href]', (links) => links.map((link) => link.getAttribute('href')!).filter((href) => !document.getElementById(href.slice(1))));
+      expect(missing).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it('keeps only the flags that change the conclusion, keeps seen marks across a reload, and saves the flags shown as CSV', async () => {
+    const report = corpusReport();
+    const { page, errors } = await open('seen.html', formatHtml(report));
+    try {
+      await page.locator('#only-crosses').check();
+      const crossing = await page.$$eval('.finding', (items) => items.filter((item) => item.checkVisibility()).map((item) => item.getAttribute('data-crosses')));
+      expect(crossing).toHaveLength(report.summary.crossesAlpha);
+      expect(crossing.every((value) => value === 'true')).toBe(true);
+      await page.locator('#only-crosses').uncheck();
+
+      const first = page.locator('#flag-cards .finding').first();
+      const key = await first.getAttribute('data-key');
+      await first.locator('input.seen').check();
+      await page.reload();
+      expect(await page.locator('#flag-cards .finding').first().locator('input.seen').isChecked()).toBe(true);
+      expect(await page.locator('#flag-cards .finding input.seen:checked').count()).toBe(1);
+      expect(await page.evaluate(() => localStorage.getItem('plumbline.seen.v1'))).toContain(JSON.stringify(key).slice(1, -1));
+
+      await page.locator('#seen-filter').selectOption('seen');
+      expect((await visibility(page, '.finding')).filter(Boolean)).toHaveLength(1);
+      const [download] = await Promise.all([page.waitForEvent('download'), page.locator('#export-csv').click()]);
+      expect(download.suggestedFilename()).toBe('plumbline-flags.csv');
+      const csv = readFileSync((await download.path())!, 'utf8');
+      const rows = Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true }).data;
+      expect(rows).toHaveLength(1);
+      expect(rows[0]).toMatchObject({ seen: 'yes', severity: await first.getAttribute('data-severity'), rule: await first.getAttribute('data-rule'), caution: report.caution });
+      expect(rows[0]!.document).toBe(await page.locator('#flag-cards .doc h3').first().textContent());
+
+      await page.locator('#seen-filter').selectOption('unseen');
+      const total = report.summary.findings.fail + report.summary.findings.warn + report.summary.findings.note;
+      expect((await visibility(page, '.finding')).filter(Boolean)).toHaveLength(total - 1);
+      const [all] = await Promise.all([page.waitForEvent('download'), page.locator('#export-csv').click()]);
+      const unseen = Papa.parse<Record<string, string>>(readFileSync((await all.path())!, 'utf8'), { header: true, skipEmptyLines: true }).data;
+      expect(unseen).toHaveLength(total - 1);
+      expect(unseen.every((row) => row.seen === 'no')).toBe(true);
+      expect(errors).toEqual([]);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it('without its scripts shows every document, card and list in full; with them, leaves no list half-loaded', async () => {
+    const report = manyDocuments(60);
+    const file = join(folder, 'noscript.html');
+    writeFileSync(file, formatHtml(report));
+    const context = await browser.newContext({ javaScriptEnabled: false });
+    const page = await context.newPage();
+    try {
+      await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
+      expect((await visibility(page, '#documents-body tr')).every(Boolean)).toBe(true);
+      expect(await visibility(page, '#documents-body tr')).toHaveLength(60);
+      const cards = await visibility(page, '#flag-cards > .doc');
+      expect(cards.length).toBeGreaterThan(10);
+      expect(cards.every(Boolean)).toBe(true);
+      expect((await visibility(page, 'nav.pager, .controls, .seen-box')).some(Boolean)).toBe(false);
+    } finally {
+      await context.close();
+    }
+    const { page: scripted, errors } = await open('scripted.html', formatHtml(report));
+    try {
+      expect(await scripted.evaluate(() => document.documentElement.classList.contains('booting'))).toBe(false);
+      expect((await visibility(scripted, '#flag-cards > .doc')).filter(Boolean)).toHaveLength(10);
+      expect(errors).toEqual([]);
+    } finally {
+      await scripted.close();
     }
   });
 

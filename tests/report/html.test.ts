@@ -2,6 +2,8 @@ import { createHash } from 'node:crypto';
 import { parseDocument } from 'htmlparser2';
 import { Element, Text, type ChildNode } from 'domhandler';
 import { describe, expect, it } from 'vitest';
+import { auditText, buildReport } from '../../src/audit.js';
+import { resolveConfig } from '../../src/checks/config.js';
 import { formatHtml } from '../../src/report/html.js';
 import type { Report } from '../../src/report/model.js';
 import { corpusReport, demoReport, hostileReport, HOSTILE_PATH, singleFailReport, UNREADABLE_ERROR } from '../fixtures/report/reports.js';
@@ -42,6 +44,10 @@ describe('formatHtml: structure', () => {
   const report = corpusReport();
   const html = formatHtml(report);
   const all = parse(html);
+  /** The flagged results in the order of their cards: the documents worst first (the ranking). */
+  const cardOrder = all
+    .filter((el) => el.name === 'section' && hasClass(el, 'flagged'))
+    .flatMap((section) => report.documents.find((d) => d.path === textOf(elements(section.children).find((el) => el.name === 'h3')!))!.statistics.filter((s) => s.findings.length > 0));
 
   it('is one self-contained page: no external script, style, font, image or link', () => {
     expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
@@ -54,9 +60,12 @@ describe('formatHtml: structure', () => {
     expect(html).not.toMatch(/@import|url\(|https?:\/\/(?!www\.w3\.org\/2000\/svg)/);
   });
 
-  it('allows its one inline script and its one style by their sha256 hashes, and nothing else', () => {
+  it('allows its two inline scripts and its one style by their sha256 hashes, and nothing else', () => {
     const scripts = all.filter((el) => el.name === 'script');
-    expect(scripts).toHaveLength(1);
+    expect(scripts).toHaveLength(2);
+    // The first, in the head, only marks the page as loading; the second, at the end of the body, is the page's script.
+    expect(scripts[0]!.parent).toMatchObject({ name: 'head' });
+    expect(textOf(scripts[0]!)).toBe("document.documentElement.classList.add('booting');");
     const styles = all.filter((el) => el.name === 'style');
     expect(styles).toHaveLength(1);
     const csp = all.find((el) => el.name === 'meta' && el.attribs['http-equiv'] === 'Content-Security-Policy')?.attribs.content;
@@ -69,16 +78,31 @@ describe('formatHtml: structure', () => {
       }),
     );
     expect(directives['default-src']).toEqual(["'none'"]);
-    expect(directives['script-src']).toEqual([`'sha256-${hash(scripts[0]!)}'`]);
+    expect(directives['script-src']).toEqual(scripts.map((script) => `'sha256-${hash(script)}'`));
     expect(directives['style-src']).toEqual([`'sha256-${hash(styles[0]!)}'`]);
-    // The policy comes before the style and the script.
+    // The policy comes before the style and the scripts.
     expect(html.indexOf('Content-Security-Policy')).toBeLessThan(html.indexOf('<style>'));
+  });
+
+  it('marks the first page of each paged list, which alone is laid out while the page loads', () => {
+    // 440 documents (a quarter of them without flags): more than a page of each list.
+    const documents = Array.from({ length: 440 }, (_, i) => ({ ...structuredClone(report.documents[i % report.documents.length]!), path: `copy-${i}.txt` }));
+    const many = parse(formatHtml(buildReport(documents)));
+    for (const id of ['documents-body', 'flag-cards', 'clean-list']) {
+      const list = many.find((el) => el.attribs.id === id)!;
+      const items = list.children.filter((c): c is Element => c instanceof Element && c.attribs['data-item'] !== undefined);
+      expect(items.length, id).toBeGreaterThan(0);
+      const size = Number(list.attribs['data-page-size']);
+      expect(items.length, id).toBeGreaterThan(size);
+      items.forEach((item, i) => expect(item.attribs['data-first'] !== undefined, `${id} item ${i}`).toBe(i < size));
+    }
   });
 
   it('shows the caution, the totals, and each flagged result marked inside its surrounding text', () => {
     expect(html).toContain(report.caution);
     const marks = all.filter((el) => el.name === 'mark');
-    const flagged = report.documents.flatMap((d) => d.statistics.filter((s) => s.findings.length > 0));
+    const flagged = cardOrder;
+    expect(cardOrder).toHaveLength(report.summary.flaggedStatistics);
     expect(marks).toHaveLength(report.summary.flaggedStatistics);
     expect(marks.map(textOf)).toEqual(flagged.map((s) => s.text));
     const contexts = all.filter((el) => hasClass(el, 'context')).map(textOf);
@@ -87,7 +111,7 @@ describe('formatHtml: structure', () => {
     });
     const findings = all.filter((el) => hasClass(el, 'finding'));
     expect(findings).toHaveLength(countFindings(report));
-    const first = report.documents.flatMap((d) => d.statistics).find((s) => s.findings.length > 0)!;
+    const first = cardOrder[0]!;
     const firstFinding = findings[0]!;
     expect(firstFinding.attribs['data-severity']).toBe(first.findings[0]!.severity);
     expect(firstFinding.attribs['data-rule']).toBe(first.findings[0]!.rule);
@@ -96,28 +120,34 @@ describe('formatHtml: structure', () => {
 
   it('gives each flagged result its location', () => {
     const wheres = all.filter((el) => el.name === 'div' && hasClass(el, 'where')).map(textOf);
-    const flagged = report.documents.flatMap((d) => d.statistics.filter((s) => s.findings.length > 0));
+    const flagged = cardOrder;
     expect(wheres).toEqual(flagged.map((s) => `line ${s.location.line}, column ${s.location.column}`));
   });
 
   it('has a filter checkbox per severity and per rule, each with the matching count', () => {
-    const boxes = all.filter((el) => el.name === 'input' && el.attribs.type === 'checkbox');
+    const boxes = all.filter((el) => el.name === 'input' && el.attribs.type === 'checkbox' && el.attribs['data-group'] !== undefined);
     expect(boxes.filter((b) => b.attribs['data-group'] === 'severity').map((b) => b.attribs.value)).toEqual(['fail', 'warn', 'note']);
     const rules = new Set(report.documents.flatMap((d) => d.statistics.flatMap((s) => s.findings.map((f) => f.rule))));
     expect(new Set(boxes.filter((b) => b.attribs['data-group'] === 'rule').map((b) => b.attribs.value))).toEqual(rules);
     expect(boxes.every((b) => b.attribs.checked !== undefined)).toBe(true);
   });
 
-  it('ranks documents by number of flags', () => {
-    const table = all.find((el) => el.name === 'table' && hasClass(el, 'ranking'))!;
-    const rows = elements(table.children).filter((el) => el.name === 'tr').slice(1);
+  it('ranks documents by their worst flag, then by their numbers of fail, warn and note flags', () => {
+    const table = all.find((el) => el.name === 'table' && hasClass(el, 'documents'))!;
+    const rows = elements(table.children).filter((el) => el.name === 'tr' && el.attribs['data-item'] !== undefined);
     expect(rows).toHaveLength(report.documents.length);
-    const flags = rows.map((row) => Number(textOf(row.children.filter((c): c is Element => c instanceof Element)[2]!)));
-    expect(flags).toEqual([...flags].sort((a, b) => b - a));
-    const expected = report.documents
-      .map((d) => d.findings.length + d.statistics.reduce((n, s) => n + s.findings.length, 0))
-      .sort((a, b) => b - a);
-    expect(flags).toEqual(expected);
+    const key = (row: Element): number[] => ['worst', 'fail', 'warn', 'note'].map((k) => Number(row.attribs[`data-${k}`]));
+    for (let i = 1; i < rows.length; i++) {
+      const [a, b] = [key(rows[i - 1]!), key(rows[i]!)];
+      const firstDifference = a.findIndex((value, k) => value !== b[k]);
+      if (firstDifference >= 0) expect(a[firstDifference]!, `row ${i}`).toBeGreaterThan(b[firstDifference]!);
+    }
+    expect(rows.map((row) => Number(row.attribs['data-rank']))).toEqual(rows.map((_, i) => i + 1));
+    // The worst document of the fixture: reading-tutoring.txt has only fail flags.
+    expect(rows[0]!.attribs['data-name']).toBe('corpus/reading-tutoring.txt');
+    expect(rows.at(-1)!.attribs['data-worst']).toBe('0');
+    const counted = rows.map((row) => Number(row.attribs['data-fail']) + Number(row.attribs['data-warn']) + Number(row.attribs['data-note']));
+    expect(counted.reduce((a, b) => a + b, 0)).toBe(countFindings(report));
   });
 
   it('counts flags by rule', () => {
@@ -136,46 +166,79 @@ describe('formatHtml: structure', () => {
     expect(counted).toEqual(expected);
   });
 
-  it('draws one chart mark per result with a reported and a recomputed p, "<" values as triangles, and the diagonal', () => {
-    const svg = all.find((el) => el.name === 'svg' && hasClass(el, 'chart'))!;
-    const inChart = elements(svg.children);
-    const points = inChart.filter((el) => el.name === 'a' && hasClass(el, 'point'));
-    const drawable = report.documents.flatMap((d) => d.statistics).filter((s) => s.p !== null && s.recomputed.p !== null);
-    expect(points).toHaveLength(drawable.length);
-    const below = drawable.filter((s) => s.p!.comparator === '<' || s.p!.comparator === '<=').length;
-    expect(below).toBeGreaterThan(0);
-    expect(points.filter((p) => p.attribs['data-comparator'] === 'below')).toHaveLength(below);
-    for (const point of points.filter((p) => p.attribs['data-comparator'] === 'below')) {
-      expect(elements(point.children).some((el) => el.name === 'path')).toBe(true);
+  it('maps each document: one mark per result, flagged ones as links by severity in colour and shape, the others as ticks', () => {
+    const table = all.find((el) => el.name === 'table' && hasClass(el, 'documents'))!;
+    const rows = elements(table.children).filter((el) => el.name === 'tr' && el.attribs['data-item'] !== undefined);
+    const shapes = { fail: 'rect', warn: 'path', note: 'circle' } as const;
+    const colours = new Map<string, Set<string>>();
+    for (const row of rows) {
+      const documentIndex = report.documents.findIndex((d) => d.path === row.attribs['data-name']);
+      const document = report.documents[documentIndex]!;
+      const map = elements(row.children).find((el) => el.name === 'svg' && hasClass(el, 'map'));
+      expect(map, document.path).toBeDefined();
+      const marks = elements(map!.children).filter((el) => el.name === 'a' && hasClass(el, 'map-mark'));
+      const flagged = document.statistics.map((s, i) => ({ s, i })).filter(({ s }) => s.findings.length > 0);
+      expect(marks).toHaveLength(flagged.length);
+      // Every flagged result has its mark, linking to its own card, with the worst severity's shape.
+      const hrefs = marks.map((m) => m.attribs.href);
+      for (const { s, i } of flagged) {
+        const mark = marks[hrefs.indexOf(`#doc-${documentIndex + 1}-result-${i + 1}`)];
+        expect(mark, `${document.path} result ${i + 1}`).toBeDefined();
+        const worst = s.findings.some((f) => f.severity === 'fail') ? 'fail' : s.findings.some((f) => f.severity === 'warn') ? 'warn' : 'note';
+        expect(mark!.attribs['data-severity']).toBe(worst);
+        const shape = elements(mark!.children).find((el) => ['rect', 'path', 'circle'].includes(el.name))!;
+        expect(shape.name).toBe(shapes[worst]);
+        const set = colours.get(worst) ?? new Set<string>();
+        set.add(shape.attribs.fill!);
+        colours.set(worst, set);
+        expect(textOf(mark!)).toContain(s.text.replace(/\s+/g, ' '));
+      }
+      // The results without a flag are ticks in one path, one "M ... v" each, and no link.
+      const ticks = elements(map!.children).find((el) => hasClass(el, 'map-ticks'));
+      const unflagged = document.statistics.length - flagged.length;
+      expect(ticks === undefined ? 0 : (ticks.attribs.d!.match(/M/g) ?? []).length).toBe(unflagged);
+      expect(ticks === undefined ? 0 : Number(ticks.attribs['data-count'])).toBe(unflagged);
     }
-    for (const point of points.filter((p) => p.attribs['data-comparator'] === 'equal')) {
-      expect(elements(point.children).some((el) => el.name === 'circle')).toBe(true);
-    }
-    expect(inChart.filter((el) => el.name === 'line' && hasClass(el, 'diagonal'))).toHaveLength(1);
-    const severities = new Set(points.map((p) => p.attribs['data-severity']));
-    expect(severities.has('fail')).toBe(true);
-    expect(severities.has('none')).toBe(true);
+    // One colour per severity, a different one for each.
+    expect([...colours.values()].every((set) => set.size === 1)).toBe(true);
+    expect(new Set([...colours.values()].map((set) => [...set][0])).size).toBe(colours.size);
+    expect(colours.has('fail') && colours.has('warn') && colours.has('note')).toBe(true);
   });
-});
 
-describe('formatHtml: the chart puts each mark on the right side of the diagonal', () => {
-  it('a reported p larger than the recomputed one lies above the diagonal, a smaller one below', () => {
-    const html = formatHtml(hostileReport());
-    const all = parse(html);
-    const svg = all.find((el) => el.name === 'svg' && hasClass(el, 'chart'))!;
-    const diagonal = elements(svg.children).find((el) => hasClass(el, 'diagonal'))!;
-    const [x1, y1, x2, y2] = ['x1', 'y1', 'x2', 'y2'].map((k) => Number(diagonal.attribs[k]));
-    const side = (point: Element): number => {
-      const circle = elements(point.children).find((el) => el.name === 'circle')!;
-      const cx = Number(circle.attribs.cx);
-      const cy = Number(circle.attribs.cy);
-      // Screen y grows downwards: a positive cross product is above the line.
-      return (x2! - x1!) * (y1! - cy) - (y2! - y1!) * (x1! - cx) > 0 ? 1 : -1;
-    };
-    const points = elements(svg.children).filter((el) => el.name === 'a' && hasClass(el, 'point'));
-    const byText = (fragment: string) => points.find((p) => textOf(p).includes(fragment))!;
-    expect(side(byText('t(40) = 2.10, p = .21'))).toBe(1); // printed .21, recomputed .042
-    expect(side(byText('F(2, 57) = 4.21, p = .002'))).toBe(-1); // printed .002, recomputed .0197
+  it('places each mark by where its result is in the document, in order along the map', () => {
+    const table = all.find((el) => el.name === 'table' && hasClass(el, 'documents'))!;
+    for (const row of elements(table.children).filter((el) => el.name === 'tr' && el.attribs['data-item'] !== undefined)) {
+      const documentIndex = report.documents.findIndex((d) => d.path === row.attribs['data-name']);
+      const document = report.documents[documentIndex]!;
+      const marks = elements(row.children).filter((el) => el.name === 'a' && hasClass(el, 'map-mark'));
+      const xOf = (mark: Element): number => {
+        const shape = elements(mark.children).find((el) => ['rect', 'path', 'circle'].includes(el.name))!;
+        if (shape.name === 'circle') return Number(shape.attribs.cx);
+        if (shape.name === 'rect') return Number(shape.attribs.x) + Number(shape.attribs.width) / 2;
+        return Number(/^M([\d.]+)/.exec(shape.attribs.d!)![1]);
+      };
+      const byStart = marks
+        .map((mark) => ({ x: xOf(mark), start: document.statistics[Number(/result-(\d+)$/.exec(mark.attribs.href!)![1]) - 1]!.location.start }))
+        .sort((a, b) => a.start - b.start);
+      for (let i = 1; i < byStart.length; i++) expect(byStart[i]!.x).toBeGreaterThanOrEqual(byStart[i - 1]!.x);
+      if (byStart.length > 1) expect(byStart.at(-1)!.x).toBeGreaterThan(byStart[0]!.x);
+    }
+  });
+
+  it('links only to anchors on the page: every href="#..." has its id, and only flagged results have anchors', () => {
+    for (const fixture of [report, hostileReport(), demoReport()]) {
+      const elementsOf = fixture === report ? all : parse(formatHtml(fixture));
+      const ids = new Set(elementsOf.map((el) => el.attribs.id).filter((id): id is string => id !== undefined));
+      const hrefs = elementsOf.map((el) => el.attribs.href).filter((href): href is string => href !== undefined);
+      expect(hrefs.length).toBeGreaterThan(0);
+      for (const href of hrefs) {
+        expect(href.startsWith('#'), href).toBe(true);
+        expect(ids.has(href.slice(1)), `${href} has no element with its id`).toBe(true);
+      }
+      const resultIds = [...ids].filter((id) => /^doc-\d+-result-\d+$/.test(id));
+      const flaggedCount = fixture.documents.reduce((n, d) => n + d.statistics.filter((s) => s.findings.length > 0).length, 0);
+      expect(resultIds).toHaveLength(flaggedCount);
+    }
   });
 });
 
@@ -209,13 +272,13 @@ describe('formatHtml: escaping', () => {
     const allowed = new Set([
       'html', 'head', 'meta', 'title', 'style', 'body', 'main', 'header', 'footer', 'section', 'article', 'h1', 'h2', 'h3', 'h4', 'p', 'div', 'span',
       'strong', 'code', 'mark', 'ul', 'li', 'a', 'table', 'thead', 'tbody', 'tr', 'th', 'td', 'details', 'summary', 'figure', 'figcaption',
-      'form', 'fieldset', 'legend', 'label', 'input', 'button', 'script', 'svg', 'rect', 'line', 'text', 'path', 'circle',
+      'form', 'fieldset', 'legend', 'label', 'input', 'button', 'script', 'svg', 'rect', 'line', 'text', 'path', 'circle', 'nav', 'select', 'option',
     ]);
     for (const element of all) {
       expect(allowed.has(element.name), `unexpected <${element.name}>`).toBe(true);
       for (const name of Object.keys(element.attribs)) expect(name.startsWith('on'), `attribute ${name} on <${element.name}>`).toBe(false);
     }
-    expect(all.filter((el) => el.name === 'script')).toHaveLength(1);
+    expect(all.filter((el) => el.name === 'script')).toHaveLength(2);
   });
 
   it('keeps the text itself: paths, surroundings and errors read back exactly once decoded', () => {
@@ -239,21 +302,22 @@ describe('formatHtml: escaping', () => {
 });
 
 describe('formatHtml: small reports', () => {
-  it('renders a single-document report without a ranking table', () => {
+  it('renders a single-document report with its one row and map', () => {
     const report = singleFailReport();
     const html = formatHtml(report);
     const all = parse(html);
-    expect(all.some((el) => el.name === 'table' && hasClass(el, 'ranking'))).toBe(false);
+    const table = all.find((el) => el.name === 'table' && hasClass(el, 'documents'))!;
+    expect(elements(table.children).filter((el) => el.name === 'tr' && el.attribs['data-item'] !== undefined)).toHaveLength(1);
+    expect(elements(table.children).filter((el) => hasClass(el, 'map-mark'))).toHaveLength(1);
     expect(all.filter((el) => hasClass(el, 'finding'))).toHaveLength(1);
     expect(all.find((el) => hasClass(el, 'finding'))!.attribs['data-severity']).toBe('fail');
   });
 
-  it('says so when nothing was flagged or nothing could be drawn', () => {
+  it('says so when nothing was flagged', () => {
     const report = singleFailReport();
     const empty: Report = { ...report, documents: [], summary: { ...report.summary, documents: 0, checked: 0, statistics: 0, flaggedStatistics: 0, findings: { fail: 0, warn: 0, note: 0 }, crossesAlpha: 0 } };
     const html = formatHtml(empty);
     expect(html).toContain('No result was flagged.');
-    expect(html).toContain('nothing to draw');
     expect(html).toContain(report.caution);
   });
 });
@@ -264,6 +328,28 @@ describe('formatHtml: the corpus-demo manuscripts', () => {
     const all = parse(formatHtml(report));
     expect(all.filter((el) => el.name === 'mark')).toHaveLength(report.summary.flaggedStatistics);
     expect(all.filter((el) => hasClass(el, 'finding'))).toHaveLength(countFindings(report));
-    expect(all.filter((el) => el.name === 'script')).toHaveLength(1);
+    expect(all.filter((el) => el.name === 'script')).toHaveLength(2);
+  });
+});
+
+describe('formatHtml: a table row that does not add up', () => {
+  it("shows on the card the F and p the row's own SS and df imply, beside the printed F's p", () => {
+    const text = [
+      'Table 2. Analysis of variance for recall',
+      'Source | SS | df | MS | F | p',
+      'Condition | 12.40 | 2 | 6.20 | 2.41 | .099',
+      'Error | 83.95 | 57 | 1.47 | |',
+    ].join('\n');
+    const report = buildReport([auditText(text, resolveConfig({}), 'table.txt')]);
+    const finding = report.documents[0]!.statistics[0]!.findings.find((f) => f.rule === 'table-arithmetic')!;
+    expect(finding.rowImplies).toBeDefined();
+    const all = parse(formatHtml(report));
+    const card = all.find((el) => el.name === 'article' && hasClass(el, 'result'))!;
+    const implied = elements(card.children).find((el) => hasClass(el, 'implied'));
+    // (12.40 / 2) / (83.95 / 57) = 4.21, p = .0197 at df 2 and 57; the printed F = 2.41 gives p = .099.
+    expect(textOf(implied!)).toBe(
+      "The row\u2019s own numbers imply F = 4.21 (4.208 to 4.212), p = 0.01972 (0.01968 to 0.01975): SS / df over SS / df of 'Error'; in brackets, the range over the values that round to the printed cells.",
+    );
+    expect(textOf(elements(card.children).find((el) => hasClass(el, 'numbers'))!)).toContain('reported p = .099; recomputed p from the printed F = 0.0989');
   });
 });

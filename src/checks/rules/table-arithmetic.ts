@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { CheckModule, FindingDraft } from '../types.js';
+import type { CheckModule, FindingDraft, RowImplies } from '../types.js';
 import type { ReportedNumber, ReportedResult, TableRowOrigin } from '../../scan/types.js';
 import { roundingInterval } from '../../stats/reportedNumber.js';
 import { fUpperTail } from '../../stats/index.js';
@@ -35,7 +35,10 @@ export const tableArithmetic: CheckModule<z.infer<typeof optionsSchema>> = {
     const table = tableName(origin);
     const findings: FindingDraft[] = [];
     const effectMs = checkMeanSquare(origin.cells, table, origin.rowLabel);
-    if (effectMs) findings.push(effectMs);
+    if (effectMs) {
+      const implied = origin.errorRow ? rowImplies(result, origin, origin.errorRow) : null;
+      findings.push(implied ? { ...effectMs, rowImplies: implied } : effectMs);
+    }
     const error = origin.errorRow;
     // The error row is shared by several effects: its own arithmetic is reported once, with the first of them.
     if (error && context.documentIndex.firstWithErrorRow(result)) {
@@ -44,7 +47,10 @@ export const tableArithmetic: CheckModule<z.infer<typeof optionsSchema>> = {
     }
     if (error) {
       const f = checkF(result, origin, table, error, context.alpha);
-      if (f) findings.push(f);
+      if (f) {
+        const implied = rowImplies(result, origin, error);
+        findings.push(implied ? { ...f, rowImplies: implied } : f);
+      }
       const eta = checkPartialEta(origin, table, error);
       if (eta) findings.push(eta);
     }
@@ -174,6 +180,44 @@ function checkF(
       range: formatRange(recomputed.low, recomputed.high, (v) => formatValue(v)),
     },
   };
+}
+
+/**
+ * The F a row's own numbers imply over its error row, and its p at the result's df: each mean square from
+ * SS / df where the row prints both (what the row's sums of squares say), else its printed MS. The interval
+ * covers every value that rounds to the printed cells.
+ */
+function rowImplies(result: ReportedResult, origin: TableRowOrigin, error: NonNullable<TableRowOrigin['errorRow']>): RowImplies | null {
+  const effect = ownMeanSquare(origin.cells);
+  const err = ownMeanSquare(error.cells);
+  if (!effect || !err || !(err.value > 0)) return null;
+  const interval = divide(effect.interval, err.interval);
+  const statistic = effect.value / err.value;
+  if (!interval || !Number.isFinite(statistic)) return null;
+  const [df1, df2] = result.df;
+  const known = df1 !== undefined && df2 !== undefined && df1.value > 0 && df2.value > 0;
+  return {
+    from: `${effect.from} over ${err.from} of '${error.rowLabel}'`,
+    statistic,
+    statisticLow: interval.low,
+    statisticHigh: interval.high,
+    p: known ? fUpperTail(statistic, df1.value, df2.value) : null,
+    pLow: known ? fUpperTail(interval.high, df1.value, df2.value) : null,
+    pHigh: known ? fUpperTail(interval.low, df1.value, df2.value) : null,
+  };
+}
+
+function ownMeanSquare(cells: Cells): { value: number; interval: Interval; from: string } | null {
+  const df = rowDf(cells);
+  if (cells.ss && df && df.value > 0) {
+    const interval = divideSs(cells.ss, df);
+    if (interval) return { value: cells.ss.value / df.value, interval, from: 'SS / df' };
+  }
+  if (cells.ms) {
+    const interval = nonNegative(cells.ms);
+    if (interval) return { value: cells.ms.value, interval, from: 'MS' };
+  }
+  return null;
 }
 
 function checkPartialEta(origin: TableRowOrigin, table: string, error: NonNullable<TableRowOrigin['errorRow']>): FindingDraft | null {

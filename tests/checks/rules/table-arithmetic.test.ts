@@ -91,3 +91,38 @@ describe(`${rule}: must flag`, () => {
     expect(findings.Cue![0]!.message).toMatch(/^In table 1, row 'Cue': MS = 20\.00 but SS \/ df = 40\.00 \/ 1 = 40\.00/);
   });
 });
+
+describe(`${rule}: what the row's own numbers imply`, () => {
+  // F from the row's SS and df: (12.40 / 2) / (83.95 / 57) = 6.2 / 1.472807 = 4.20965; its p with df 2 and 57
+  // from jStat's F distribution, an implementation independent of plumbline's.
+  const ownF = 12.4 / 2 / (83.95 / 57);
+
+  it('an F that is not MS / MS error carries the F and p its SS and df imply, with their rounding intervals', async () => {
+    const { default: jStat } = (await import('jstat')) as unknown as { default: { centralF: { cdf: (x: number, a: number, b: number) => number } } };
+    const { Condition } = tableFindings([header, 'Condition | 12.40 | 2 | 6.20 | 2.41 | .099 | .13', 'Error | 83.95 | 57 | 1.47 | | |']);
+    const implied = Condition![0]!.rowImplies!;
+    expect(implied.from).toBe("SS / df over SS / df of 'Error'");
+    expect(implied.statistic).toBeCloseTo(ownF, 10);
+    // Every SS between 12.395 and 12.405 and every error SS between 83.945 and 83.955.
+    expect(implied.statisticLow).toBeCloseTo(12.395 / 2 / (83.955 / 57), 10);
+    expect(implied.statisticHigh).toBeCloseTo(12.405 / 2 / (83.945 / 57), 10);
+    expect(implied.p).toBeCloseTo(1 - jStat.centralF.cdf(ownF, 2, 57), 8);
+    expect(implied.pLow!).toBeLessThan(implied.p!);
+    expect(implied.pHigh!).toBeGreaterThan(implied.p!);
+    expect(implied.p!).toBeLessThan(0.05); // while the printed F's p is about .099
+  });
+
+  it('an effect MS that is not SS / df carries the F its SS and df imply; a row that adds up carries nothing', () => {
+    const { Condition } = tableFindings([header, 'Condition | 12.40 | 2 | 6.80 | 4.21 | .020 | .13', 'Error | 83.95 | 57 | 1.47 | | |']);
+    expect(Condition![0]!.rowImplies!.statistic).toBeCloseTo(ownF, 10);
+    const consistent = tableFindings([header, 'Condition | 12.40 | 2 | 6.20 | 4.21 | .020 | .13', 'Error | 83.95 | 57 | 1.47 | | |']);
+    expect(consistent.Condition).toEqual([]);
+  });
+
+  it('uses the printed MS where a row prints no SS', () => {
+    const { Condition } = tableFindings(['Table 3. ANOVA\nSource | df | MS | F | p', 'Condition | 2 | 6.20 | 2.41 | .099', 'Error | 57 | 1.47 | |']);
+    expect(Condition!.map((f) => f.messageId)).toEqual(['fMismatch']);
+    expect(Condition![0]!.rowImplies).toMatchObject({ from: "MS over MS of 'Error'" });
+    expect(Condition![0]!.rowImplies!.statistic).toBeCloseTo(6.2 / 1.47, 10);
+  });
+});
