@@ -16,6 +16,14 @@ const fault = (error: unknown): void => {
 process.on('uncaughtException', fault);
 process.on('unhandledRejection', fault);
 
+// A reader that stops reading ("plumbline scan . | head") closes the pipe: that ends the run quietly, as it
+// ends other command-line programs, and is no fault in plumbline. (Exit code 141, 128 + SIGPIPE, as a shell reports it.)
+const EXIT_BROKEN_PIPE = 141;
+process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+  if (error.code === 'EPIPE') process.exit(EXIT_BROKEN_PIPE);
+  fault(error);
+});
+
 const color = Boolean(process.stdout.isTTY) && !("NO_COLOR" in process.env);
 
 runCli(process.argv.slice(2), {
