@@ -285,6 +285,22 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads a program\'s independent-samples test crushed into single spaces: Levene\'s F, the pooled t and the t for unequal variances', () => {
+    const table = [
+      'Table 3. Independent Samples Test',
+      "Levene's Test for Equality of Variances t-test for Equality of Means",
+      'F Sig. t df Sig. (2-tailed) Mean Difference Std. Error Difference',
+      'Score Equal variances assumed 1.234 .271 2.410 58 .019 3.100 1.286',
+      'Equal variances not assumed 2.410 55.312 .019 3.100 1.286',
+    ].join('\n');
+    const document = scanTextJson(`${table}\n\nNext.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 1.234, [1, 58]],
+      ['t', 2.41, [58]],
+      ['t', 2.41, [55.312]],
+    ]);
+  });
+
   it('reads a row labelled with a mean square error ("Total MSE"), which is no row of means and SEs', () => {
     const document = scanTextJson(
       'Table 3. Paired t tests\nDomain\tN\tBefore M (SD)\tAfter M (SD)\tt\tdf\tp\nTotal MSE\t525\t35.92 (10.42)\t42.06 (10.44)\t25.04\t524\t< 0.001\nMothers\t361\t35.55 (10.29)\t41.41 (10.47)\t20.57\t360\t< 0.001\n\nNext.\n',

@@ -398,7 +398,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // layout did not tie to the table, a note without "Note.", a sentence under it).
   const noteDf = statesNoDf(statedDf) ? { ...readNoteDf(linesBeside(text, table.start, table.end), true), besideTable: true } : statedDf;
   // Levene's test beside an independent-samples t test ("Levene's Test for Equality of Variances | F | Sig. | t | df | ...").
-  const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' '));
+  // (Or the lines right above the table: a copy may leave the block titles "Levene's Test for Equality of
+  // Variances | t-test for Equality of Means" out of the table, over its header.)
+  const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' ')) || /levene/i.test(text.slice(Math.max(0, table.start - 300), table.start + 300));
   const noteN = readNoteSampleSize(noteText);
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
@@ -1188,7 +1190,14 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
       // An error term's row prints no test: its numbers go under the SS, df and MS columns only ("Error(Time)
       // 143.20 46.98 3.05", where 3.05 could otherwise be an F).
       const errorTerm = ERROR_LABEL.test(headerKey(cells[0])) || (afterErrorTerm && correctionOnly(cells[0]));
-      const rowColumns = errorTerm ? valueColumns.filter(({ role }) => role.role !== 'statistic' && role.role !== 'p' && role.role !== 'effect' && role.role !== 'result') : valueColumns;
+      // A statistics program's row for unequal variances ("Equal variances not assumed") prints no Levene's test:
+      // its numbers go under the t test's columns only (they would fit Levene's F and Sig. as well).
+      const tColumn = UNEQUAL_VARIANCES_ROW.test(cells[0]) ? valueColumns.findIndex(({ role }) => role.role === 'statistic' && role.kind === 't') : -1;
+      const rowColumns = errorTerm
+        ? valueColumns.filter(({ role }) => role.role !== 'statistic' && role.role !== 'p' && role.role !== 'effect' && role.role !== 'result')
+        : tColumn > 0
+          ? valueColumns.slice(tColumn)
+          : valueColumns;
       const valueRoles = rowColumns.map(({ role }) => role);
       // An error term's row that prints only its df ("Within groups 77" under SS, df, MS, F, p): a lone whole number
       // there is the df (sums of squares are printed with decimals; common practice).
@@ -1288,6 +1297,9 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
   }
   return { rows: out, unplaced };
 }
+
+/** The row label a statistics program gives the t test for unequal variances, under the one for equal variances. */
+const UNEQUAL_VARIANCES_ROW = /(?:^|\s)(?:equal variances not assumed|variances not assumed|unequal variances)$/i;
 
 /** A group's mean and SD written "2.89 ± 0.75": a descriptive cell, never a statistic or a p. */
 const MEAN_PLUS_MINUS_SD = /^\s*[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)\s?\u00b1\s?(?:\d+(?:\.\d+)?|\.\d+)\s*$/;
