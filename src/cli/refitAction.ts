@@ -284,7 +284,12 @@ async function runRefit(dataFile: string, options: RefitOptions, io: CliIo): Pro
     result.reported = reported;
     result.comparison = comparison;
     result.impliedN = impliedSampleSize(table, reported);
-    if (!comparison.allMatch) {
+    if (reported.means) {
+      const { compareMeans } = await import('../refit/compareMeans.js');
+      result.meansComparison = compareMeans(model, reported.means, map);
+    }
+    // A report with no ANOVA rows (means or comparisons only) has no table slip to search.
+    if (!comparison.allMatch && comparison.compared + comparison.unmatched.length + comparison.ambiguous.length > 0) {
       const data = await loadTable(dataFile);
       result.explained = await explainMismatch(data, spec, model, comparison, reported, map);
     }

@@ -1,7 +1,7 @@
 import { roundsTo } from '../stats/reportedNumber.js';
 import type { FormulaTerm } from './formula.js';
 import type { AnovaTable } from './model.js';
-import { matchTerm, QUANTITIES, type Quantity, type ReportedRow, type ReportedSet, type ReportedValue } from './reportedTable.js';
+import { matchTermDetailed, QUANTITIES, type MatchedBy, type Quantity, type ReportedRow, type ReportedSet, type ReportedValue } from './reportedTable.js';
 
 /**
  * Side-by-side comparison of reported and recomputed ANOVA numbers.
@@ -31,6 +31,8 @@ export interface ComparedRow {
   /** The label printed in the manuscript, or null when the term is not reported. */
   reportedLabel: string | null;
   where: string | null;
+  /** How the printed label was matched: by name, through --map or a display name, or as an abbreviation; null when not reported. */
+  matchedBy: MatchedBy | null;
   numbers: ComparedNumber[];
 }
 
@@ -38,10 +40,14 @@ export interface Comparison {
   rows: ComparedRow[];
   /** Reported rows that name no term of the model. */
   unmatched: Array<{ label: string; where: string }>;
+  /** Reported rows whose label could name several terms: not guessed, listed with the terms they could be. */
+  ambiguous: Array<{ label: string; where: string; candidates: string[] }>;
+  /** Terms of the model no reported row names. */
+  termsNotReported: string[];
   compared: number;
   matches: number;
   differs: number;
-  /** Every reported number matches (and no reported row is left unmatched). */
+  /** Every reported number matches (and no reported row is left unmatched or ambiguous). */
   allMatch: boolean;
 }
 
@@ -86,21 +92,25 @@ export function compareTables(
   reported: ReportedSet,
   map: ReadonlyMap<string, string> = new Map(),
 ): Comparison {
-  const byTerm = new Map<string, ReportedRow>();
+  const byTerm = new Map<string, { row: ReportedRow; by: MatchedBy }>();
   const unmatched: Array<{ label: string; where: string }> = [];
+  const ambiguous: Comparison['ambiguous'] = [];
   // Terms of the model the table was computed with (interaction names join their variables with ":").
   const present: FormulaTerm[] = table.terms.map((t) => ({ name: t.term, variables: t.term.split(':') }));
   for (const row of reported.rows) {
-    const term = matchTerm(row.label, present, map);
-    if (term === null || byTerm.has(term.name)) unmatched.push({ label: row.label, where: row.where });
-    else byTerm.set(term.name, row);
+    const hit = matchTermDetailed(row.label, present, map);
+    if (hit.kind === 'ambiguous') ambiguous.push({ label: row.label, where: row.where, candidates: hit.candidates.map((c) => c.name) });
+    else if (hit.kind === 'none' || byTerm.has(hit.term.name)) unmatched.push({ label: row.label, where: row.where });
+    else byTerm.set(hit.term.name, { row, by: hit.by });
   }
   const rows: ComparedRow[] = table.terms.map((t) => {
-    const row = byTerm.get(t.term);
+    const matched = byTerm.get(t.term);
+    const row = matched?.row;
     return {
       term: t.term,
       reportedLabel: row?.label ?? null,
       where: row?.where ?? null,
+      matchedBy: matched?.by ?? null,
       numbers: QUANTITIES.map((q) => compareNumber(q, t[q], row?.values[q])),
     };
   });
@@ -109,6 +119,7 @@ export function compareTables(
     term: 'Residual',
     reportedLabel: res?.label ?? null,
     where: res?.where ?? null,
+    matchedBy: res ? 'name' : null,
     numbers: (['ss', 'df', 'ms'] as const).map((q) => compareNumber(q, table.residual[q], res?.values[q])),
   });
   let compared = 0;
@@ -120,5 +131,15 @@ export function compareTables(
       if (n.verdict === 'matches') matches++;
     }
   }
-  return { rows, unmatched, compared, matches, differs: compared - matches, allMatch: matches === compared && unmatched.length === 0 };
+  const termsNotReported = table.terms.filter((t) => !byTerm.has(t.term)).map((t) => t.term);
+  return {
+    rows,
+    unmatched,
+    ambiguous,
+    termsNotReported,
+    compared,
+    matches,
+    differs: compared - matches,
+    allMatch: matches === compared && unmatched.length === 0 && ambiguous.length === 0,
+  };
 }

@@ -235,7 +235,7 @@ function variants(spec: AnalysisSpecInput, model: FittedModel): Variant[] {
 /** Numbers in reported rows that no term of the table takes (they count as not reproduced). */
 function unmatchedNumbers(comparison: Comparison, reported: ReportedSet): number {
   let count = 0;
-  for (const u of comparison.unmatched) {
+  for (const u of [...comparison.unmatched, ...comparison.ambiguous]) {
     const row = reported.rows.find((r) => r.label === u.label && r.where === u.where);
     if (row) count += Object.keys(row.values).length;
   }

@@ -186,11 +186,79 @@ export function comparisonCells(o: RefitOutput, includeUnreported: boolean): Arr
 
 export function summaryLine(o: RefitOutput): string {
   const c = o.comparison!;
-  const unmatched = c.unmatched.length > 0 ? ` ${c.unmatched.length} reported row(s) name no model term: ${c.unmatched.map((u) => `"${u.label}"`).join(', ')} (use --map).` : '';
-  if (c.compared === 0) return `No reported number could be compared.${unmatched}`;
+  const extra: string[] = [];
+  if (c.unmatched.length > 0) extra.push(`${c.unmatched.length} reported row(s) name no model term: ${c.unmatched.map((u) => `"${u.label}"`).join(', ')} (use --map "<reported name>=<term>").`);
+  if (c.ambiguous.length > 0) {
+    extra.push(
+      `${c.ambiguous.length} reported row(s) could name more than one term and are left unmatched: ${c.ambiguous.map((a) => `"${a.label}" (${a.candidates.map((t) => termLabel(t, o)).join(' or ')})`).join(', ')}; say which with --map "<reported name>=<term>".`,
+    );
+  }
+  const unreported = c.termsNotReported ?? [];
+  if (unreported.length > 0 && (c.unmatched.length > 0 || c.ambiguous.length > 0)) extra.push(`Terms no reported row names: ${unreported.map((t) => termLabel(t, o)).join(', ')}.`);
+  const abbreviated = c.rows.filter((r) => r.matchedBy === 'abbreviation');
+  if (abbreviated.length > 0) extra.push(`Matched as abbreviations: ${abbreviated.map((r) => `"${r.reportedLabel}" = ${termLabel(r.term, o)}`).join(', ')}.`);
+  const tail = extra.length > 0 ? ` ${extra.join(' ')}` : '';
+  if (c.compared === 0) return `No reported number could be compared.${tail}`;
   return c.differs === 0
-    ? `All ${c.compared} reported numbers match the refit.${unmatched}`
-    : `${c.differs} of ${c.compared} reported numbers differ from the refit.${unmatched}`;
+    ? `All ${c.compared} reported numbers match the refit.${tail}`
+    : `${c.differs} of ${c.compared} reported numbers differ from the refit.${tail}`;
+}
+
+const MEAN_QUANTITY_LABEL: Record<string, string> = { mean: 'M', estimate: 'Difference', se: 'SE', t: 't', df: 'df', p: 'p', lower: 'CI lower', upper: 'CI upper' };
+
+function showMeanNumber(quantity: string, reported: string | null, x: number | null): string {
+  if (x === null || !Number.isFinite(x)) return '—';
+  if (quantity === 'df') return formatDf(x);
+  const d = (reported === null ? 2 : decimalsOf(reported)) + 2;
+  if (quantity === 'p' && x < 10 ** -d) return x.toExponential(2);
+  const s = x.toFixed(d);
+  return quantity === 'p' ? s.replace(/^0\./, '.') : s;
+}
+
+/** The reported means, comparisons and contrasts against the recomputed ones: one row per reported number. */
+export function meansComparisonCells(o: RefitOutput): Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> {
+  const out: Array<{ cells: string[]; verdict: ComparedNumber['verdict'] }> = [];
+  for (const row of o.meansComparison?.rows ?? []) {
+    const what = row.kind === 'mean' ? `M ${row.label} (${termLabel(row.term, o)})` : row.kind === 'comparison' ? `${row.label}${row.adjust ? ` (${row.adjust})` : ''}` : `contrast ${row.label}`;
+    row.numbers.forEach((n, i) => {
+      const diff = n.difference === null ? '' : n.quantity === 'df' ? (n.difference === 0 ? '0' : `${n.difference > 0 ? '+' : ''}${formatDf(n.difference)}`) : `${n.difference > 0 ? '+' : ''}${showMeanNumber(n.quantity === 'p' ? 'p' : 'x', n.reported, n.difference)}`;
+      out.push({
+        cells: [i === 0 ? what : '', i === 0 ? row.printedAs : '', MEAN_QUANTITY_LABEL[n.quantity] ?? n.quantity, n.reported ?? '', showMeanNumber(n.quantity, n.reported, n.recomputed), diff, n.verdict],
+        verdict: n.verdict,
+      });
+    });
+  }
+  return out;
+}
+
+/** The ANOVA comparison is shown unless the report gave no ANOVA row at all (a file of means or comparisons only). */
+export function showsAnovaComparison(o: RefitOutput): boolean {
+  const c = o.comparison;
+  if (!c) return false;
+  return !(o.meansComparison && c.compared === 0 && c.unmatched.length === 0 && c.ambiguous.length === 0);
+}
+
+export const MEANS_COMPARISON_HEAD = ['Mean or comparison', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'];
+
+/** The summary of the means comparison, the adjustment used and what could not be tied to the model. */
+export function meansSummaryLines(o: RefitOutput): string[] {
+  const m = o.meansComparison;
+  if (!m) return [];
+  const lines: string[] = [];
+  const from = m.adjust.from === 'reported' ? 'as the report states' : m.adjust.from === 'analysis' ? 'as the analysis asks' : 'the default; the report states none';
+  const hasComparisons = m.rows.some((r) => r.kind === 'comparison');
+  lines.push(
+    `${m.compared === 0 ? 'No reported mean, comparison or contrast number could be compared.' : m.differs === 0 ? `All ${m.compared} reported numbers of the means, comparisons and contrasts match.` : `${m.differs} of ${m.compared} reported numbers of the means, comparisons and contrasts differ.`}${hasComparisons ? ` Comparisons recomputed with the ${m.adjust.method} adjustment (${from}).` : ''} Means held at: ${o.covariatesAt.length > 0 ? covariatesAtText(o) : 'no covariates'}.`,
+  );
+  for (const u of m.unmatched) lines.push(`Not compared: ${u.kind} "${u.label}" (${u.where}): ${u.reason}.`);
+  return lines;
+}
+
+export function meansExplanationLines(o: RefitOutput): string[] {
+  const m = o.meansComparison;
+  if (!m || m.differs === 0) return [];
+  if (m.explanations.length === 0) return ['None of the usual slips reproduces the reported means, comparisons or contrasts.'];
+  return m.explanations.map((e, i) => `${i + 1}. ${e.description[0]!.toUpperCase()}${e.description.slice(1)}: ${e.reproduces === 'all' ? `all ${e.compared}` : `${e.matches} of ${e.compared}`} reported numbers it changes match.`);
 }
 
 export function explanationLines(o: RefitOutput): string[] {
@@ -376,7 +444,7 @@ export function formatRefitText(output: RefitOutput, options: { color: boolean }
   if (levene) lines.push('', levene);
   const notes = reportNotes(o);
   if (notes.length > 0) lines.push('', chalk.bold('Notes'), ...notes.map((n) => `  - ${n}`));
-  if (o.comparison) {
+  if (o.comparison && showsAnovaComparison(o)) {
     const c = o.comparison;
     lines.push('');
     lines.push(chalk.bold(`Compared with ${c.reportedFile} (${c.sources.join(', ')})`));
@@ -388,7 +456,7 @@ export function formatRefitText(output: RefitOutput, options: { color: boolean }
       lines.push(`  ${line.slice(0, line.length - verdict.length)}${verdictWord(chalk, verdict)}`);
     });
     lines.push('');
-    lines.push(c.differs === 0 && c.unmatched.length === 0 ? chalk.green(summaryLine(o)) : chalk.red(summaryLine(o)));
+    lines.push(c.differs === 0 && c.unmatched.length === 0 && c.ambiguous.length === 0 ? chalk.green(summaryLine(o)) : chalk.red(summaryLine(o)));
     const explanations = explanationLines(o);
     if (explanations.length > 0) {
       lines.push('');
@@ -399,6 +467,21 @@ export function formatRefitText(output: RefitOutput, options: { color: boolean }
       lines.push('');
       lines.push(o.impliedN.note);
     }
+  }
+  if (o.meansComparison) {
+    const rows = meansComparisonCells(o);
+    lines.push('', chalk.bold('Reported means, comparisons and contrasts against the refit'));
+    if (rows.length > 0) {
+      const padded = pad([MEANS_COMPARISON_HEAD, ...rows.map((r) => r.cells)], 3);
+      lines.push(`  ${chalk.bold(padded[0]!)}`);
+      padded.slice(1).forEach((line, i) => {
+        const verdict = rows[i]!.verdict;
+        lines.push(`  ${line.slice(0, line.length - verdict.length)}${verdictWord(chalk, verdict)}`);
+      });
+    }
+    for (const l of meansSummaryLines(o)) lines.push(`  ${l}`);
+    const why = meansExplanationLines(o);
+    if (why.length > 0) lines.push('', chalk.bold('What reproduces the reported means and comparisons'), ...why.map((e) => `  ${e}`));
   }
   return `${lines.join('\n')}\n`;
 }
@@ -445,13 +528,21 @@ export function formatRefitMarkdown(output: RefitOutput): string {
   if (levene) lines.push('', mdItalicLine(levene));
   const notes = reportNotes(o);
   if (notes.length > 0) lines.push('', '## Notes', '', ...notes.map((n) => `- ${mdItalicLine(mdEscape(n).replace(/[*_]/g, '\\$&'))}`));
-  if (o.comparison) {
+  if (o.comparison && showsAnovaComparison(o)) {
     lines.push('', `## Compared with ${o.comparison.reportedFile}`, '', `Read from: ${o.comparison.sources.join(', ')}.`, '');
     lines.push(...mdTable(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], comparisonCells(o, false).map((r) => r.cells)));
     lines.push('', summaryLine(o));
     const explanations = explanationLines(o);
     if (explanations.length > 0) lines.push('', '## What reproduces the reported numbers', '', ...explanations);
     if (o.impliedN) lines.push('', o.impliedN.note);
+  }
+  if (o.meansComparison) {
+    lines.push('', '## Reported means, comparisons and contrasts against the refit', '');
+    const rows = meansComparisonCells(o);
+    if (rows.length > 0) lines.push(...mdTable(MEANS_COMPARISON_HEAD, rows.map((r) => r.cells)), '');
+    lines.push(...meansSummaryLines(o).map(mdEscape));
+    const why = meansExplanationLines(o);
+    if (why.length > 0) lines.push('', '## What reproduces the reported means and comparisons', '', ...why.map(mdEscape));
   }
   return `${lines.join('\n')}\n`;
 }
@@ -519,7 +610,7 @@ export function formatRefitHtml(output: RefitOutput): string {
     for (const n of notes) parts.push(`<li>${htmlSymbols(n)}</li>`);
     parts.push('</ul>');
   }
-  if (o.comparison) {
+  if (o.comparison && showsAnovaComparison(o)) {
     parts.push(`<h2>Compared with ${esc(o.comparison.reportedFile)}</h2>`, `<p>Read from: ${esc(o.comparison.sources.join(', '))}.</p>`);
     parts.push('<table class="cmp"><thead>', row(['Term', 'Printed as', 'Quantity', 'Reported', 'Recomputed', 'Difference', 'Verdict'], 'th'), '</thead><tbody>');
     for (const r of comparisonCells(o, false)) {
@@ -532,6 +623,21 @@ export function formatRefitHtml(output: RefitOutput): string {
       parts.push('<h2>What reproduces the reported numbers</h2>', '<ul>', ...explanations.map((e) => `<li>${esc(e.replace(/^\d+\.\s*/, ''))}</li>`), '</ul>');
     }
     if (o.impliedN) parts.push(`<p>${esc(o.impliedN.note)}</p>`);
+  }
+  if (o.meansComparison) {
+    parts.push('<h2>Reported means, comparisons and contrasts against the refit</h2>');
+    const rows = meansComparisonCells(o);
+    if (rows.length > 0) {
+      parts.push('<table class="cmp"><thead>', row(MEANS_COMPARISON_HEAD, 'th'), '</thead><tbody>');
+      for (const r of rows) {
+        const cls = r.verdict === 'not reported' ? 'not' : r.verdict;
+        parts.push(`<tr>${r.cells.map((c, i) => `<td${i === 0 || i === 1 ? ' class="src"' : i === 6 ? ` class="${cls}"` : ''}>${esc(c)}</td>`).join('')}</tr>`);
+      }
+      parts.push('</tbody></table>');
+    }
+    for (const l of meansSummaryLines(o)) parts.push(`<p>${esc(l)}</p>`);
+    const why = meansExplanationLines(o);
+    if (why.length > 0) parts.push('<h2>What reproduces the reported means and comparisons</h2>', '<ul>', ...why.map((e) => `<li>${esc(e.replace(/^\d+\.\s*/, ''))}</li>`), '</ul>');
   }
   parts.push('</body>', '</html>');
   return `${parts.join('\n')}\n`;

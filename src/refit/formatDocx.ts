@@ -11,7 +11,7 @@ import {
   WidthType,
   type IBorderOptions,
 } from 'docx';
-import { comparisonCells, explanationLines, extraTables, factorsLine, fitLine, reportNotes, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
+import { showsAnovaComparison, MEANS_COMPARISON_HEAD, meansComparisonCells, meansExplanationLines, meansSummaryLines, comparisonCells, explanationLines, extraTables, factorsLine, fitLine, reportNotes, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
 import type { RefitOutput } from './output.js';
 
 /**
@@ -88,7 +88,7 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
   ]);
   const levene = leveneLine(o);
   const compared: Array<Paragraph | Table> = [];
-  if (o.comparison) {
+  if (o.comparison && showsAnovaComparison(o)) {
     const c = o.comparison;
     compared.push(
       new Paragraph({ children: [run(`Compared with ${c.reportedFile}`, { bold: true })], spacing: { before: 360, after: 120 } }),
@@ -102,6 +102,17 @@ export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
       for (const e of explanations) compared.push(new Paragraph({ children: [run(e)], spacing: { after: 60 } }));
     }
     if (o.impliedN) compared.push(new Paragraph({ children: [run(o.impliedN.note)], spacing: { before: 120 } }));
+  }
+  if (o.meansComparison) {
+    compared.push(new Paragraph({ children: [run('Reported means, comparisons and contrasts against the refit', { bold: true })], spacing: { before: 360, after: 120 } }));
+    const rows = meansComparisonCells(o);
+    if (rows.length > 0) compared.push(journalTable(MEANS_COMPARISON_HEAD, rows.map((r) => r.cells), 3));
+    for (const l of meansSummaryLines(o)) compared.push(new Paragraph({ children: [run(l)], spacing: { before: 120 } }));
+    const why = meansExplanationLines(o);
+    if (why.length > 0) {
+      compared.push(new Paragraph({ children: [run('What reproduces the reported means and comparisons', { bold: true })], spacing: { before: 240, after: 120 } }));
+      for (const e of why) compared.push(new Paragraph({ children: [run(e)], spacing: { after: 60 } }));
+    }
   }
   const kind = o.covariates.length > 0 ? 'Analysis of covariance' : 'Analysis of variance';
   const document = new Document({

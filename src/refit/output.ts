@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { Comparison } from './compare.js';
+import type { MeansComparison } from './compareMeans.js';
 import type { ExplainResult, ImpliedN } from './explain.js';
 import type { AnovaTable, Coding, FittedModel } from './model.js';
 import { marginalMeans, pairwiseComparisons, plannedContrast, simpleComparisons, type Adjustment, type PairwiseComparison } from './marginalMeans.js';
@@ -46,6 +47,7 @@ export const comparisonSchema = z.object({
       term: z.string(),
       reportedLabel: z.string().nullable(),
       where: z.string().nullable(),
+      matchedBy: z.enum(['name', 'map', 'abbreviation']).nullable().describe('How the printed label was matched to the term: by its name, through --map or a display name, or as an abbreviation ("Grp" for group); null when not reported'),
       numbers: z.array(
         z.object({
           quantity: quantitySchema,
@@ -59,10 +61,54 @@ export const comparisonSchema = z.object({
     }),
   ),
   unmatched: z.array(z.object({ label: z.string(), where: z.string() })).describe('Reported rows that name no model term'),
+  ambiguous: z
+    .array(z.object({ label: z.string(), where: z.string(), candidates: z.array(z.string()) }))
+    .describe('Reported rows whose label could name several terms: not guessed; --map says which'),
+  termsNotReported: z.array(z.string()).describe('Terms of the model that no reported row names'),
   compared: z.number().int(),
   matches: z.number().int(),
   differs: z.number().int(),
   allMatch: z.boolean(),
+});
+
+const meanQuantitySchema = z.enum(['mean', 'estimate', 'se', 't', 'df', 'p', 'lower', 'upper']);
+
+export const meansComparisonSchema = z.object({
+  rows: z.array(
+    z.object({
+      kind: z.enum(['mean', 'comparison', 'contrast']),
+      term: z.string().describe('The factor, or factors joined by ":", of the means'),
+      label: z.string().describe('The level labels, "first - second", or the contrast\'s name'),
+      printedAs: z.string(),
+      where: z.string(),
+      adjust: z.enum(ADJUSTMENT_NAMES).optional().describe('Comparisons: the adjustment of the recomputed p and interval'),
+      numbers: z.array(
+        z.object({
+          quantity: meanQuantitySchema,
+          reported: z.string().nullable(),
+          reportedValue: num,
+          recomputed: num,
+          difference: num.describe('reported - recomputed'),
+          verdict: verdictSchema,
+        }),
+      ),
+    }),
+  ),
+  unmatched: z.array(z.object({ kind: z.enum(['mean', 'comparison', 'contrast']), label: z.string(), where: z.string(), reason: z.string() })).describe('Reported means, comparisons or contrasts that could not be tied to the model, with the reason'),
+  compared: z.number().int(),
+  matches: z.number().int(),
+  differs: z.number().int(),
+  allMatch: z.boolean(),
+  adjust: z.object({ method: z.enum(ADJUSTMENT_NAMES), from: z.enum(['reported', 'analysis', 'default']).describe('Stated by the report, asked for in the analysis, or Tukey by default') }),
+  explanations: z.array(
+    z.object({
+      slip: z.enum(['unadjusted-means', 'covariate-value', 'other-weights', 'other-adjustment']),
+      description: z.string(),
+      reproduces: z.enum(['all', 'most']),
+      matches: z.number().int(),
+      compared: z.number().int(),
+    }),
+  ),
 });
 
 export const explanationSchema = z.object({
@@ -216,6 +262,7 @@ export const refitOutputSchema = z.object({
     .optional(),
   verdict: z.enum(['matches', 'differs', 'nothing reported']),
   comparison: comparisonSchema.optional(),
+  meansComparison: meansComparisonSchema.optional().describe('Reported adjusted means, pairwise comparisons and contrasts against the recomputed ones, with the slips that reproduce them'),
   explanations: z.array(explanationSchema).optional(),
   impliedN: impliedNSchema.nullable().optional(),
   notFitted: z.array(z.object({ description: z.string(), reason: z.string() })).optional(),
@@ -254,6 +301,8 @@ export function comparisonOutput(comparison: Comparison, reported: ReportedSet):
       numbers: r.numbers.map((n) => ({ ...n, reportedValue: n.reportedValue, recomputed: finite(n.recomputed), difference: n.difference === null ? null : finite(n.difference) })),
     })),
     unmatched: comparison.unmatched,
+    ambiguous: comparison.ambiguous,
+    termsNotReported: comparison.termsNotReported,
     compared: comparison.compared,
     matches: comparison.matches,
     differs: comparison.differs,
@@ -268,6 +317,7 @@ export interface RefitResult {
   missing: Array<{ column: string; codes: string }>;
   reported?: ReportedSet;
   comparison?: Comparison;
+  meansComparison?: MeansComparison | null;
   explained?: ExplainResult;
   impliedN?: ImpliedN | null;
   slopes?: SlopesTest | { error: string } | null;
@@ -513,7 +563,14 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
       const levels = model.factorVars.map((v, i) => ({ factor: v.name, level: d.levels[i]!, label: v.labels.get(d.levels[i]!) ?? d.levels[i]! }));
       return { levels, label: d.label, n: d.n, mean: finite(d.mean), sd: finite(d.sd) };
     }),
-    verdict: result.comparison === undefined ? 'nothing reported' : result.comparison.allMatch ? 'matches' : 'differs',
+    verdict:
+      result.comparison === undefined
+        ? 'nothing reported'
+        : result.comparison.allMatch && (result.meansComparison ?? null) === null
+          ? 'matches'
+          : result.comparison.allMatch && result.meansComparison?.allMatch
+            ? 'matches'
+            : 'differs',
   };
   if (model.spec.coefficients) {
     out.coefficients = coefficientTable(model, CONFIDENCE).map((c) => ({
@@ -536,6 +593,13 @@ export function buildRefitOutput(result: RefitResult): RefitOutput {
   }
   if (result.comparison && result.reported) {
     out.comparison = comparisonOutput(result.comparison, result.reported);
+    if (result.meansComparison) {
+      const m = result.meansComparison;
+      out.meansComparison = {
+        ...m,
+        rows: m.rows.map((r) => ({ ...r, numbers: r.numbers.map((n) => ({ ...n, recomputed: finite(n.recomputed), difference: n.difference === null ? null : finite(n.difference) })) })),
+      };
+    }
     out.explanations = (result.explained?.explanations ?? []).map((e) => ({
       slip: e.slip,
       description: e.description,

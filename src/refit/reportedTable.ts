@@ -8,6 +8,7 @@ import type { Comparator, ReportedNumber } from '../scan/types.js';
 import { parseReportedNumber } from '../stats/reportedNumber.js';
 import { RefitError } from './errors.js';
 import type { FormulaTerm } from './formula.js';
+import { emptyMeansSet, isMeansHeader, readMeansRows, textComparisons, type ReportedMeansSet } from './reportedMeans.js';
 
 /**
  * The numbers a manuscript reports for an ANOVA/ANCOVA, read from a table
@@ -41,6 +42,8 @@ export interface ReportedSet {
   residual: ReportedRow | null;
   /** What was read: "table file", "manuscript table 2", "manuscript text". */
   sources: string[];
+  /** Reported adjusted means, pairwise comparisons and contrasts (reportedMeans.ts). */
+  means: ReportedMeansSet;
 }
 
 // ---------------------------------------------------------------------------
@@ -128,29 +131,104 @@ function labelParts(label: string): string[] {
     .filter((s) => s.length > 0);
 }
 
+/** How a reported row label was matched to its term. */
+export type MatchedBy = 'name' | 'map' | 'abbreviation';
+
+/** What a printed row label names: one term, several (ambiguous: never guessed), or nothing. */
+export type TermMatch =
+  | { kind: 'term'; term: FormulaTerm; by: MatchedBy }
+  | { kind: 'ambiguous'; candidates: FormulaTerm[] }
+  | { kind: 'none' };
+
+/** A name squashed to letters and digits ("Start height", "start_height" -> "startheight"). */
+function nameKey(text: string): string {
+  return squash(text).replace(/\s+/g, '');
+}
+
 /**
- * The model term a printed row label names, or null: case-insensitive, with
- * "x", "×", "*" and "by" read as ":" for interactions (in any order), and the
- * --map names (whole labels or parts of interactions) taken first.
+ * True when the printed name abbreviates the variable's: it is shorter,
+ * starts with the same character and its characters appear in the
+ * variable's in order ("g" and "grp" for "group", "dos" for "dosage"; a
+ * longer printed name such as "Age group" never matches "age"). A linear
+ * walk, no regular expression.
  */
-export function matchTerm(label: string, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string> = new Map()): FormulaTerm | null {
+export function abbreviates(short: string, long: string): boolean {
+  if (short.length >= long.length) return false;
+  if (short.length === 0 || short === long || short[0] !== long[0]) return false;
+  let at = 0;
+  for (const ch of long) if (ch === short[at]) at++;
+  return at >= short.length;
+}
+
+/**
+ * The model term a printed row label names: case-insensitive, with "x",
+ * "×", "*", ":" and "by" read as ":" for interactions (in any order), the
+ * --map names (whole labels or parts of interactions, display names among
+ * them) taken first, then exact names, then abbreviations ("Grp", "G" for
+ * "group"). A label whose parts could name several terms is ambiguous and
+ * is not matched.
+ */
+export function matchTermDetailed(label: string, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string> = new Map()): TermMatch {
   const cleaned = cleanLabel(label);
+  const whole = map.get(squash(cleaned));
+  if (whole !== undefined) {
+    const hit = byNames(whole, terms, map, false);
+    return hit.kind === 'term' ? { ...hit, by: 'map' } : hit;
+  }
+  return byNames(cleaned, terms, map, true);
+}
+
+function byNames(name: string, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string>, abbreviations: boolean): TermMatch {
+  const exact = terms.find((t) => t.name.toLowerCase() === name.trim().toLowerCase());
+  if (exact !== undefined) return { kind: 'term', term: exact, by: 'name' };
   // Both sides are compared squashed ("start_height", "start.height" and "Start height" are one name once "_", "." and case
   // and spaces are set aside), so a variable named with "_" or "." matches its printed row and a --map naming it.
-  const byName = (name: string): FormulaTerm | null => {
-    const exact = terms.find((t) => t.name.toLowerCase() === name.trim().toLowerCase());
-    if (exact !== undefined) return exact;
-    const key = (text: string) => squash(text).replace(/\s+/g, '');
-    const wanted = new Set(labelParts(name).map((p) => key(map.get(p) ?? p)));
-    return (
-      terms.find((t) => t.variables.length === wanted.size && t.variables.every((v) => wanted.has(key(v)))) ??
-      terms.find((t) => key(t.name) === key(name)) ??
-      null
-    );
+  const whole = terms.find((t) => nameKey(t.name) === nameKey(name));
+  if (whole !== undefined) return { kind: 'term', term: whole, by: 'name' };
+  const parts = labelParts(name);
+  if (parts.length === 0) return { kind: 'none' };
+  const variables = [...new Set(terms.flatMap((t) => t.variables))];
+  let by: MatchedBy = 'name';
+  // The variables each printed part may name: through --map, by its name, else (when allowed) as an abbreviation.
+  const options = parts.map((part) => {
+    const mapped = map.get(part);
+    if (mapped !== undefined) {
+      by = by === 'name' ? 'map' : by;
+      return variables.filter((v) => nameKey(v) === nameKey(mapped));
+    }
+    const named = variables.filter((v) => nameKey(v) === nameKey(part));
+    if (named.length > 0 || !abbreviations) return named;
+    const short = variables.filter((v) => abbreviates(nameKey(part), nameKey(v)));
+    if (short.length > 0) by = 'abbreviation';
+    return short;
+  });
+  if (options.some((o) => o.length === 0)) return { kind: 'none' };
+  const candidates = terms.filter(
+    (t) => t.variables.length === parts.length && assignable(options, t.variables),
+  );
+  if (candidates.length === 1) return { kind: 'term', term: candidates[0]!, by };
+  return candidates.length === 0 ? { kind: 'none' } : { kind: 'ambiguous', candidates };
+}
+
+/** True when each part can be given a different one of `variables` from its options (a small matching, parts are few). */
+function assignable(options: readonly string[][], variables: readonly string[]): boolean {
+  const walk = (i: number, used: Set<string>): boolean => {
+    if (i === options.length) return true;
+    for (const v of options[i]!) {
+      if (!variables.includes(v) || used.has(v)) continue;
+      used.add(v);
+      if (walk(i + 1, used)) return true;
+      used.delete(v);
+    }
+    return false;
   };
-  const whole = map.get(squash(cleaned));
-  if (whole !== undefined) return byName(whole);
-  return byName(cleaned);
+  return options.length <= 8 && walk(0, new Set());
+}
+
+/** The model term a printed row label names, or null (none, or ambiguous: see matchTermDetailed). */
+export function matchTerm(label: string, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string> = new Map()): FormulaTerm | null {
+  const hit = matchTermDetailed(label, terms, map);
+  return hit.kind === 'term' ? hit.term : null;
 }
 
 // ---------------------------------------------------------------------------
@@ -224,8 +302,13 @@ export function readAnovaRows(cells: readonly (readonly string[])[], where: stri
   return null;
 }
 
+/** A header naming at least two ANOVA quantities. */
+function anovaHeader(cells: string[]): boolean {
+  return new Set(cells.map(columnMeaning).filter((m) => m !== null && m !== 'label')).size >= 2;
+}
+
 /** Tables written in plain text or Markdown: pipe tables, or columns separated by tabs or 2+ spaces. */
-export function tablesInText(text: string): Array<{ cells: string[][]; line: number }> {
+export function tablesInText(text: string, isHeader: (cells: string[]) => boolean = anovaHeader): Array<{ cells: string[][]; line: number }> {
   const lines = text.split(/\r?\n/);
   const found: Array<{ cells: string[][]; line: number }> = [];
   const split = (line: string): string[] | null => {
@@ -239,9 +322,7 @@ export function tablesInText(text: string): Array<{ cells: string[][]; line: num
   const isRule = (line: string) => /^\s*(?:\|\s*)?:?-{2,}:?(?:\s*\|\s*:?-{2,}:?)*\s*(?:\|\s*)?$/.test(line) || /^\s*[-=─━_]{5,}\s*$/.test(line);
   for (let i = 0; i < lines.length; i++) {
     const header = split(lines[i]!);
-    if (!header) continue;
-    const quantities = header.map(columnMeaning).filter((m) => m !== null && m !== 'label');
-    if (new Set(quantities).size < 2) continue;
+    if (!header || !isHeader(header)) continue;
     const cells = [header];
     let j = i + 1;
     for (; j < lines.length; j++) {
@@ -400,27 +481,39 @@ export async function readReported(
       if (error instanceof RefitError) throw error;
       throw new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${(error as NodeJS.ErrnoException).code ?? (error as Error).message}).`, { file });
     }
-    const table = readAnovaRows(readDelimited(path, text), 'table file');
-    if (table === null) {
+    // Tables are separated by blank lines: an ANOVA table, and tables of means, comparisons or contrasts.
+    const means = emptyMeansSet();
+    let table: ReadTable | null = null;
+    const blocks = tableFileBlocks(text);
+    for (const block of blocks) {
+      const cells = readDelimited(path, block.text);
+      const where = blocks.length > 1 ? `table file, line ${block.line}` : 'table file';
+      if (readMeansRows(cells, where, means)) continue;
+      table ??= readAnovaRows(cells, where);
+    }
+    if (table === null && means.means.length + means.comparisons.length + means.contrasts.length === 0) {
       throw new RefitError(
         'INVALID_SPEC',
-        `${file}, row 1: no ANOVA table header found; name the columns like Source, SS, df, MS, F, p, partial eta squared.`,
+        `${file}, row 1: no table header found; name the columns of an ANOVA table like Source, SS, df, MS, F, p, partial eta squared, of adjusted means like <factor>, M, SE, 95% CI, of comparisons like Comparison, Difference, SE, t, p, or of contrasts like Contrast, Weights, Estimate, SE, t, p (tables separated by a blank line).`,
         { file, row: 1 },
       );
     }
-    return { file: path, rows: table.rows, residual: table.residual, sources: ['table file'] };
+    return { file: path, rows: table?.rows ?? [], residual: table?.residual ?? null, sources: ['table file'], means };
   }
 
   const outcome = await readDocument(path, readOptions);
   if (!outcome.ok) throw new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${outcome.error}).`, { file });
   const document = outcome.document;
   const candidates: Array<{ table: ReadTable; name: string }> = [];
+  const means = emptyMeansSet();
   document.tables.forEach((t, i) => {
+    if (readMeansRows(t.rows, `table ${i + 1}`, means)) return;
     const read = readAnovaRows(t.rows, `table ${i + 1}`);
     if (read) candidates.push({ table: read, name: `table ${i + 1}${t.caption ? ` (${t.caption.slice(0, 60)})` : ''}` });
   });
   if (candidates.length === 0) {
     for (const t of tablesInText(document.text)) {
+      if (readMeansRows(t.cells, `table at line ${t.line}`, means)) continue;
       const read = readAnovaRows(t.cells, `table at line ${t.line}`);
       if (read) candidates.push({ table: read, name: `table at line ${t.line}` });
     }
@@ -441,12 +534,35 @@ export async function readReported(
     usedText = true;
   }
   if (usedText) sources.push('manuscript text');
-  if (rows.length === 0) {
+  if (document.tables.length === 0) {
+    for (const t of tablesInText(document.text, isMeansHeader)) readMeansRows(t.cells, `table at line ${t.line}`, means);
+  }
+  textComparisons(document.text, means);
+  const meansRead = means.means.length + means.contrasts.length + means.comparisons.filter((c) => c.first !== null).length;
+  if (meansRead > 0 && !sources.includes('manuscript table of means or comparisons')) sources.push('manuscript table of means or comparisons');
+  if (rows.length === 0 && meansRead === 0) {
     throw new RefitError(
       'INVALID_SPEC',
       `${file}: found no ANOVA table and no written F results naming a model term (${terms.map((t) => t.name).join(', ')}); use --map "<reported name>=<term>" when the manuscript names them differently.`,
       { file },
     );
   }
-  return { file: path, rows, residual, sources };
+  return { file: path, rows, residual, sources, means };
+}
+
+/** The blocks of a table file separated by blank lines, with the line each starts on. */
+function tableFileBlocks(text: string): Array<{ text: string; line: number }> {
+  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/);
+  const blocks: Array<{ text: string; line: number }> = [];
+  let current: string[] = [];
+  let start = 1;
+  lines.forEach((line, i) => {
+    if (line.trim() === '' || /^[,;\t ]+$/.test(line)) {
+      if (current.length > 0) blocks.push({ text: current.join('\n'), line: start });
+      current = [];
+      start = i + 2;
+    } else current.push(line);
+  });
+  if (current.length > 0) blocks.push({ text: current.join('\n'), line: start });
+  return blocks;
 }

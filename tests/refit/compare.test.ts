@@ -107,7 +107,7 @@ describe('reading reported numbers', () => {
   it('refuses a table file without a recognisable header', async () => {
     const csv = join(tmp, 'nothing.csv');
     writeFileSync(csv, 'a,b\n1,2\n');
-    await expect(readReported(csv, terms)).rejects.toThrow(/nothing\.csv, row 1: no ANOVA table header/);
+    await expect(readReported(csv, terms)).rejects.toThrow(/nothing\.csv, row 1: no table header found; name the columns of an ANOVA table like Source, SS/);
   });
 });
 
