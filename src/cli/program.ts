@@ -4,10 +4,14 @@ import { CatalogueError, ConfigError } from '../checks/errors.js';
 import { buildReport } from '../report/build.js';
 import { toolVersion } from '../version.js';
 import { visibleControls } from '../report/visible.js';
+import { resolveLimits } from '../limits.js';
 import {
   addCommonOptions,
   configFrom,
   EXIT_CLEAN,
+  limitOption,
+  limitsFrom,
+  userConfigFrom,
   EXIT_INPUT_ERROR,
   EXIT_INTERNAL_FAULT,
   exitCodeFor,
@@ -52,14 +56,24 @@ function registerCheckCommand(program: Command, io: CliIo, setExitCode: (code: n
     program
       .command('check')
       .description('check the results in a piece of text given as the argument, or "-" to read standard input')
-      .argument('<text>', 'the text, or - for standard input'),
-  ).action(async (text: string, options: CommonOptions) => {
+      .argument('<text>', 'the text, or - for standard input')
+      .addOption(limitOption('change a limit (maxSecondsPerDocument: the time budget of checking the text, 120 s)')),
+  ).action(async (text: string, options: CommonOptions & { limit?: string[] }) => {
     const pathMessage = text === '-' ? null : checkArgumentIsPath(text);
     if (pathMessage !== null) throw new UsageError(pathMessage);
     const config = await configFrom(options);
+    const { userConfig } = await userConfigFrom(options);
+    const { maxSecondsPerDocument } = resolveLimits(limitsFrom(userConfig.limits, options));
     const input = text === '-' ? await io.readStdin() : text;
+    const name = text === '-' ? '<stdin>' : '<text>';
     const { auditText } = await import('../audit.js');
-    const report = buildReport([auditText(input, config, text === '-' ? '<stdin>' : '<text>')]);
+    // Checking runs on this thread: the time budget stops it wherever it is (as for a document audited on the main thread).
+    const { runSyncWithinBudget } = await import('../batch/syncBudget.js');
+    const audited = runSyncWithinBudget(() => auditText(input, config, name), maxSecondsPerDocument);
+    if (!audited.done) {
+      throw new UsageError(`${name}: checking it took longer than ${maxSecondsPerDocument} s and was stopped (limit maxSecondsPerDocument; raise it with --limit maxSecondsPerDocument=<n>)`);
+    }
+    const report = buildReport([audited.value]);
     await writeReport(report, options, io, true);
     setExitCode(exitCodeFor(report.summary, options.failOn));
   });

@@ -171,3 +171,16 @@ describe('time budget per document', () => {
     expect(refit([]).status).toBe(1);
   }, 30_000);
 });
+
+describe('the time budget of check', () => {
+  it('stops checking a pasted text past the budget, with exit code 2 and the limit named', () => {
+    // About 1.7 MB of results given on standard input: many seconds of checking, far past a budget of 1 s.
+    const results = Array.from({ length: 70_000 }, (_, i) => `F(1, 20) = ${(1 + (i % 50)) / 10}, p = .0${(i % 9) + 1}; `).join('');
+    const run = spawnSync('node', [bin, 'check', '-', '--limit', 'maxSecondsPerDocument=1'], { input: results, encoding: 'utf8', timeout: 25_000 });
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain('<stdin>: checking it took longer than 1 s and was stopped (limit maxSecondsPerDocument');
+    // A short text is checked as before.
+    const fine = spawnSync('node', [bin, 'check', 'F(2, 57) = 4.21, p = .020.', '--limit', 'maxSecondsPerDocument=1'], { encoding: 'utf8', timeout: 25_000 });
+    expect(fine.status).toBe(0);
+  }, 30_000);
+});
