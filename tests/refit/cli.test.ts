@@ -3,17 +3,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import mammoth from 'mammoth';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliIo } from '../../src/cli/program.js';
 import { refitJsonSchema, refitOutputSchema } from '../../src/refit/output.js';
-import { fixturePath } from './helpers.js';
+import { fixturePath, runRefitInProcess as run } from './helpers.js';
 
-async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), readStdin: async () => '', color: false };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 const demo = (name: string) => join('corpus-demo', 'refit', name);
 const DATA = demo('harbour-walks.csv');

@@ -3,9 +3,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import mammoth from 'mammoth';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliIo } from '../../src/cli/program.js';
 import { refitOutputSchema, type RefitOutput } from '../../src/refit/output.js';
-import { fixturePath, loadJson, relErr } from './helpers.js';
+import { fixturePath, loadJson, relErr, runRefitInProcess as run } from './helpers.js';
 
 /**
  * `plumbline refit` run as a command on what a new user meets: reported row
@@ -42,13 +41,6 @@ const ref = loadJson<Checks>('refit/refit_checks.json');
 const SM = `statsmodels ${ref.statsmodels}`;
 const TOL = 1e-9;
 
-async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), readStdin: async () => '', color: false };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 async function json(argv: string[]): Promise<RefitOutput> {
   const { code, out, err } = await run(['refit', ...argv, '--format', 'json']);

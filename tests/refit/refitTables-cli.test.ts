@@ -3,9 +3,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import mammoth from 'mammoth';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliIo } from '../../src/cli/program.js';
 import { refitOutputSchema, type RefitOutput } from '../../src/refit/output.js';
-import { fixturePath, loadJson } from './helpers.js';
+import { fixturePath, loadJson, runRefitInProcess as run } from './helpers.js';
 
 /**
  * What `plumbline refit` prints beside the ANOVA table, run as a command
@@ -68,13 +67,6 @@ const TOL = 1e-9;
 /** Interval bounds: SciPy's t.ppf and studentized_range.ppf in this build agree to about 2e-9 relative (see above). */
 const TOL_CI = 1e-8;
 
-async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), readStdin: async () => '', color: false };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 async function refitJson(c: Case, extra: string[]): Promise<RefitOutput> {
   const { code, out, err } = await run(['refit', fixturePath(`refit/${c.file}`), ...c.argv, ...extra, '--format', 'json']);

@@ -3,9 +3,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import mammoth from 'mammoth';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliIo } from '../../src/cli/program.js';
 import { refitOutputSchema } from '../../src/refit/output.js';
-import { fixturePath } from './helpers.js';
+import { fixturePath, runRefitInProcess as run } from './helpers.js';
 
 /**
  * Section 4 of the refit workflow through the command: reported rows matched
@@ -17,13 +16,6 @@ import { fixturePath } from './helpers.js';
  * were written from them (rounded as a manuscript prints them).
  */
 
-async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), readStdin: async () => '', color: false };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 const DATA = join('corpus-demo', 'refit', 'harbour-walks.csv');
 const SPEC = join('corpus-demo', 'refit', 'harbour-walks.analysis.json');
