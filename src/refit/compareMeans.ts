@@ -167,6 +167,18 @@ function resolveAll(model: FittedModel, reported: ReportedMeansSet, map: Readonl
   const resolved: Resolved[] = [];
   const unmatched: MeansComparison['unmatched'] = [];
   for (const row of reported.means) {
+    if (row.clause !== undefined) {
+      // A mean written in the text: the level its words name last before it, when they name levels of one factor only.
+      const mentioned = [...levelsMentioned(model, row.clause)];
+      if (mentioned.length !== 1) {
+        unmatched.push({ kind: 'mean', label: row.clause.slice(-80), where: row.where, reason: mentioned.length === 0 ? 'its sentence names no level of a factor' : 'its sentence names levels of several factors' });
+        continue;
+      }
+      const [factor, codes] = mentioned[0]!;
+      const code = codes[codes.length - 1]!;
+      resolved.push({ kind: 'mean', factors: [factor], codes: [code], adjust: null, printedAs: row.clause.slice(-80), where: row.where, values: row.values });
+      continue;
+    }
     const factors: string[] = [];
     const codes: string[] = [];
     let failed: string | null = null;

@@ -33,6 +33,8 @@ export interface ReportedMeanRow {
   factors: string[];
   /** The level printed in each of those columns. */
   levels: string[];
+  /** A mean written in the text: the words before it, in which compareMeans.ts looks for the level it is of. */
+  clause?: string;
   values: Partial<Record<MeanQuantity, ReportedValue>>;
   where: string;
 }
@@ -216,6 +218,7 @@ function lineOf(text: string, offset: number): number {
  * manuscript's statement of how post hoc p were adjusted.
  */
 export function textComparisons(text: string, into: ReportedMeansSet): void {
+  textMeans(text, into);
   const { results, context } = scanText(text);
   const stated = (context.pAdjustments ?? []).find((a) => a.method !== 'unspecified');
   if (stated) into.statedAdjustment = { method: stated.method, where: `text, line ${lineOf(text, stated.start)}` };
@@ -240,4 +243,38 @@ export function textComparisons(text: string, into: ReportedMeansSet): void {
       where: `text, line ${lineOf(text, result.start)}`,
     });
   }
+}
+
+/**
+ * A mean written with its standard error ("the harbour route (M = 25.84, SE = 0.57)", "adjusted M = 25.84, SE =
+ * 0.57"): an adjusted (model-based) mean as papers report them; means with an SD are the groups' descriptives,
+ * not read here. Each is kept with the words before it back to the sentence's start or the mean before it, in
+ * which compareMeans.ts looks for the level it is of.
+ */
+const MEAN_WITH_SE = /(?<![\p{L}\d])(?:M|Mean|mean|EMM|Madj|M_adj)\s?[=:]\s?(-?\d{1,7}(?:\.\d{1,6})?)\s?(?:[,;]\s?|\(\s?)(?:SE|S\.E\.|se)\s?[=:]\s?(\d{1,7}(?:\.\d{1,6})?)(?!\d)/gu;
+
+function textMeans(text: string, into: ReportedMeansSet): void {
+  let previousEnd = 0;
+  for (const match of text.matchAll(MEAN_WITH_SE)) {
+    const start = match.index!;
+    let clause = text.slice(Math.max(previousEnd, start - 200), start);
+    previousEnd = start + match[0].length;
+    const cut = Math.max(clause.lastIndexOf('. '), clause.lastIndexOf('\n\n'));
+    if (cut >= 0) clause = clause.slice(cut + 1);
+    const mean = parseCell(match[1]!);
+    const se = parseCell(match[2]!);
+    if (mean === null || se === null) continue;
+    // (Without the bracket the mean stands in, and the one closing the mean before: "), lower on the park route (".)
+    const words = trimmed(clause, ' \t\n\r),;]', ' \t\n\r([');
+    into.means.push({ factors: [], levels: [], clause: words, values: { mean, se }, where: `text, line ${lineOf(text, start)}` });
+  }
+}
+
+/** The text without the characters of `before` at its start and of `after` at its end (a loop: linear whatever the text). */
+function trimmed(text: string, before: string, after: string): string {
+  let start = 0;
+  let end = text.length;
+  while (start < end && before.includes(text[start]!)) start++;
+  while (end > start && after.includes(text[end - 1]!)) end--;
+  return text.slice(start, end);
 }

@@ -147,3 +147,33 @@ describe('refit: reported adjusted means, comparisons and contrasts', () => {
     expect(err).toMatch(/nothing\.csv, row 1: no table header found; .*Comparison, Difference, SE, t, p/);
   });
 });
+
+describe('refit: adjusted means written in the manuscript\'s text', () => {
+  // The recomputed means of the demo's routes (25.84, 24.30, 22.52 with SE 0.57, 0.53, 0.56) are checked against
+  // statsmodels in refitTables-cli.test.ts; this text was written from them, as a manuscript prints them.
+  const text = (park: string) =>
+    `Results\n\nAdjusted for loneliness, mood was highest on the harbour route (M = 25.84, SE = 0.57), lower on the park route (M = ${park}, SE = 0.53) and lowest on the indoor route (M = 22.52, SE = 0.56).\n`;
+
+  it('reads "M = 25.84, SE = 0.57" after the words naming the level, and compares each with the recomputed mean', async () => {
+    const file = join(tmp, 'means-in-text.txt');
+    writeFileSync(file, text('24.30'));
+    const { code, out } = await run(['refit', DATA, '--spec', SPEC, '--means', 'route', '--reported', file, '--format', 'json']);
+    expect(code).toBe(0);
+    const m = refitOutputSchema.parse(JSON.parse(out)).meansComparison!;
+    expect(m.rows.map((r) => [r.label, r.printedAs])).toEqual([
+      ['harbour', 'Adjusted for loneliness, mood was highest on the harbour route'],
+      ['park', 'lower on the park route'],
+      ['indoor', 'and lowest on the indoor route'],
+    ]);
+    expect(m).toMatchObject({ compared: 6, matches: 6, allMatch: true });
+  });
+
+  it('flags a mean written in the text that the model does not give', async () => {
+    const file = join(tmp, 'means-in-text-slip.txt');
+    writeFileSync(file, text('24.90'));
+    const { code, out } = await run(['refit', DATA, '--spec', SPEC, '--means', 'route', '--reported', file, '--format', 'json']);
+    expect(code).toBe(1);
+    const park = refitOutputSchema.parse(JSON.parse(out)).meansComparison!.rows.find((r) => r.label === 'park')!;
+    expect(park.numbers.find((n) => n.quantity === 'mean')).toMatchObject({ reported: '24.90', verdict: 'differs' });
+  });
+});
