@@ -1,6 +1,6 @@
 import { agrees } from './compare.js';
 import type { FittedModel } from './model.js';
-import { ADJUSTMENTS, marginalMeans, pairwiseComparisons, plannedContrast, type Adjustment, type CellWeights, type MarginalMean } from './marginalMeans.js';
+import { ADJUSTMENTS, marginalMeans, pairwiseComparisons, plannedContrast, simpleComparisons, type Adjustment, type CellWeights, type MarginalMean, type SimpleComparisons } from './marginalMeans.js';
 import type { MeanQuantity, ReportedComparisonRow, ReportedMeansSet } from './reportedMeans.js';
 import type { ReportedValue } from './reportedTable.js';
 import { matchTermDetailed } from './reportedTable.js';
@@ -80,6 +80,8 @@ interface Resolved {
   /** Level codes of the mean (kind mean) or of both sides (comparison). */
   codes: string[];
   second?: string[];
+  /** A simple comparison: the other factor and the level it is made within. */
+  within?: { factor: string; code: string };
   contrast?: { weights: number[]; name: string };
   adjust: Adjustment | null;
   printedAs: string;
@@ -210,13 +212,26 @@ function resolveAll(model: FittedModel, reported: ReportedMeansSet, map: Readonl
       if (row.first !== null) unmatched.push({ kind: 'comparison', label: row.label, where: row.where, reason: hit });
       continue;
     }
+    // A simple comparison: the level of another factor it is made within.
+    let within: { factor: string; code: string } | undefined;
+    if (row.within !== undefined) {
+      const named = factorOfHeader(model, row.within.header, map);
+      const candidates = named !== null && levelCode(model, named, row.within.level) !== null ? [named] : factorsWithLevel(model, row.within.level);
+      const factor = candidates.length === 1 && !hit.factors.includes(candidates[0]!) ? candidates[0]! : null;
+      if (factor === null) {
+        unmatched.push({ kind: 'comparison', label: `${row.label} (${row.within.level})`, where: row.where, reason: `"${row.within.level}" is not a level of one other factor` });
+        continue;
+      }
+      within = { factor, code: levelCode(model, factor, row.within.level)! };
+    }
     resolved.push({
       kind: 'comparison',
       factors: hit.factors,
       codes: hit.first,
       second: hit.second,
+      ...(within ? { within } : {}),
       adjust: row.adjust === null ? null : (ADJUST_OF[row.adjust] ?? null),
-      printedAs: row.label,
+      printedAs: within ? `${row.label} (${row.within!.level})` : row.label,
       where: row.where,
       values: row.values,
     });
@@ -270,6 +285,27 @@ function recompute(model: FittedModel, r: Resolved, s: Settings, cache: Map<stri
     const m = meansOf()[indexOf(r.codes)];
     if (!m) return 'no such mean';
     return { label: labelOf(model, r.factors, r.codes), values: { mean: m.emmean, se: m.se, df: m.df, lower: m.lower, upper: m.upper } };
+  }
+  if (r.kind === 'comparison' && r.within !== undefined) {
+    const adjust = r.adjust ?? s.adjust;
+    const k = key(`simple ${adjust} ${r.within.factor}`);
+    if (!cache.has(k)) cache.set(k, simpleComparisons(model, r.factors, r.within.factor, { ...grid, adjust }));
+    const family = (cache.get(k) as SimpleComparisons[]).find((block) => block.within.level === r.within!.code);
+    if (!family) return 'no such level';
+    const at = (codes: readonly string[]) => family.means.findIndex((m) => r.factors.every((f, i) => m.levels[f] === codes[i]));
+    let i = at(r.codes);
+    let j = at(r.second!);
+    if (i < 0 || j < 0 || i === j) return 'no such pair';
+    const flip = i > j;
+    if (flip) [i, j] = [j, i];
+    const n = family.means.length;
+    const c = family.comparisons[(i * (2 * n - i - 1)) / 2 + (j - i - 1)]!;
+    const sign = flip ? -1 : 1;
+    const withinLabel = model.factorVars.find((v) => v.name === r.within!.factor)?.labels.get(r.within.code) ?? r.within.code;
+    return {
+      label: `${labelOf(model, r.factors, r.codes)} - ${labelOf(model, r.factors, r.second!)} (${r.within.factor} = ${withinLabel})`,
+      values: { estimate: sign * c.estimate, se: c.se, t: sign * c.t, df: c.df, p: c.p, lower: flip ? -c.upper : c.lower, upper: flip ? -c.lower : c.upper },
+    };
   }
   if (r.kind === 'comparison') {
     const adjust = r.adjust ?? s.adjust;

@@ -48,6 +48,8 @@ export interface ReportedComparisonRow {
   values: Partial<Record<MeanQuantity, ReportedValue>>;
   /** The adjustment stated with this row or its table, null when none is. */
   adjust: PAdjustmentMethod | null;
+  /** A simple comparison: the level of another factor within which it is made, from a text column ("Pace | self"). */
+  within?: { header: string; level: string };
   where: string;
 }
 
@@ -193,7 +195,10 @@ export function readMeansRows(cells: readonly (readonly string[])[], where: stri
       } else if (kind === 'comparison') {
         const sides = splitComparison(label);
         if (sides === null) continue;
-        into.comparisons.push({ label, first: sides[0], second: sides[1], values, adjust, where });
+        // A text column beside the comparison names the level of another factor it is made within.
+        const withinAt = texts.findIndex((text) => text !== '');
+        const within = withinAt >= 0 ? { header: textHeads[withinAt]!, level: texts[withinAt]! } : null;
+        into.comparisons.push({ label, first: sides[0], second: sides[1], values, adjust, where, ...(within ? { within } : {}) });
       } else {
         if (label === '' && weights === null) continue;
         const parsed = weights === null ? parseWeights(label) : parseWeights(weights);

@@ -177,3 +177,29 @@ describe('refit: adjusted means written in the manuscript\'s text', () => {
     expect(park.numbers.find((n) => n.quantity === 'mean')).toMatchObject({ reported: '24.90', verdict: 'differs' });
   });
 });
+
+describe('refit: reported simple comparisons, within the levels of another factor', () => {
+  // The recomputed simple comparisons (--within) are checked against statsmodels in refitTables-cli.test.ts; these
+  // rows were written from them, rounded as a manuscript prints them.
+  const table = (guided: string) =>
+    `Pace,Comparison,Difference,SE,t,df,p\nself,harbour - park,0.27,1.09,0.25,125,.967\nguided,harbour - park,${guided},1.11,2.53,125,.033\nguided,harbour - indoor,4.55,1.15,3.97,125,<.001\n`;
+
+  it('compares each row with the comparison within the level its "Pace" column names', async () => {
+    const file = join(tmp, 'within.csv');
+    writeFileSync(file, table('2.82'));
+    const { code, out } = await run(['refit', DATA, '--spec', SPEC, '--means', 'route', '--within', 'pace', '--reported', file, '--format', 'json']);
+    expect(code).toBe(0);
+    const m = refitOutputSchema.parse(JSON.parse(out)).meansComparison!;
+    expect(m.rows.map((r) => r.label)).toEqual(['harbour - park (pace = self)', 'harbour - park (pace = guided)', 'harbour - indoor (pace = guided)']);
+    expect(m).toMatchObject({ compared: 15, matches: 15, allMatch: true });
+  });
+
+  it('flags a difference the comparison within that level does not give', async () => {
+    const file = join(tmp, 'within-slip.csv');
+    writeFileSync(file, table('3.82'));
+    const { code, out } = await run(['refit', DATA, '--spec', SPEC, '--means', 'route', '--within', 'pace', '--reported', file, '--format', 'json']);
+    expect(code).toBe(1);
+    const guided = refitOutputSchema.parse(JSON.parse(out)).meansComparison!.rows.find((r) => r.label === 'harbour - park (pace = guided)')!;
+    expect(guided.numbers.find((n) => n.quantity === 'estimate')).toMatchObject({ reported: '3.82', verdict: 'differs' });
+  });
+});
