@@ -22,7 +22,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
-import { seededRandom } from './seededRandom.js';
+import { printedP, seededRandom } from './seededRandom.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const cli = join(here, '..', 'src', 'cli', 'main.js');
@@ -34,12 +34,6 @@ const FILLER_LINES_PER_RESULT = 12;
 const filler =
   'Participants completed the questionnaire in a quiet room and were debriefed afterwards. ' +
   'Responses were screened for straight-lining before the analyses reported below. ';
-
-/** A p as authors print it: three decimals, "< .001" below that; one in ten deliberately wrong. */
-function printedP(p: number, random: () => number): string {
-  if (random() < 0.1) return `= ${(random() * 0.2).toFixed(3).replace(/^0/, '')}`;
-  return p < 0.001 ? '< .001' : `= ${p.toFixed(3).replace(/^0/, '')}`;
-}
 
 /** About fifteen results per manuscript, ASCII only (the standard PDF fonts have no Greek); most consistent, as in real papers. */
 function manuscript(index: number): string[] {

@@ -32,7 +32,7 @@ import { formatJson } from '../src/report/json.js';
 import type { Report } from '../src/report/model.js';
 import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
 import { bestTime } from './bestTime.js';
-import { seededRandom } from './seededRandom.js';
+import { printedP, seededRandom } from './seededRandom.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const cli = join(here, '..', 'src', 'cli', 'main.js');
@@ -40,12 +40,6 @@ const documents = Number(process.argv[2] ?? 10000);
 if (!Number.isInteger(documents) || documents < 8) throw new Error(`documents: a whole number of at least 8, not ${process.argv[2]}`);
 
 const filler = 'Participants completed the questionnaire in a quiet room and were debriefed afterwards.';
-
-/** A p as authors print it; one in ten deliberately wrong. */
-function printedP(p: number, random: () => number): string {
-  if (random() < 0.1) return `= ${(random() * 0.2).toFixed(3).replace(/^0/, '')}`;
-  return p < 0.001 ? '< .001' : `= ${p.toFixed(3).replace(/^0/, '')}`;
-}
 
 function manuscript(index: number): string {
   const random = seededRandom(7000 + index);

@@ -8,3 +8,9 @@ export function seededRandom(seed: number): () => number {
     return ((mixed ^ (mixed >>> 14)) >>> 0) / 4294967296;
   };
 }
+
+/** A p as authors print it, for invented manuscripts: three decimals, "< .001" below that; one in ten deliberately wrong. */
+export function printedP(p: number, random: () => number): string {
+  if (random() < 0.1) return `= ${(random() * 0.2).toFixed(3).replace(/^0/, '')}`;
+  return p < 0.001 ? '< .001' : `= ${p.toFixed(3).replace(/^0/, '')}`;
+}
