@@ -310,4 +310,26 @@ describe('results tables in the shapes papers print them', () => {
       ['t', 20.57, [360]],
     ]);
   });
+
+  it('reads a table a PDF gave column by column, the error df printed at the error term\'s place in the df column', () => {
+    const columns = [['Source', 'Group', 'Time', 'Group × Time', 'Error', 'Total'], ['df', '1', '2', '2', '114', '119'], ['F', '4.21', '3.15', '0.88'], ['p', '.044', '.047', '.418']];
+    const document = scanTextJson(`Table 2\nResults of the two-way ANOVA\n${columns.flat().join('\n')}\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [1, 114]],
+      ['F', 3.15, [2, 114]],
+      ['F', 0.88, [2, 114]],
+    ]);
+    // Without an error term among the labels, the df column's extra value says nothing about the denominator.
+    const noError = columns.map((column) => column.filter((cell) => cell !== 'Error' && cell !== '114'));
+    const unread = scanTextJson(`Table 2\nResults of the two-way ANOVA\n${noError.flat().join('\n')}\n\nThe next section.\n`);
+    expect(unread.statistics.filter((statistic) => statistic.df.length === 2)).toEqual([]);
+  });
+
+  it('reads a chi-square column whose header gives the sample size after the df ("χ2 (1, N = 82)")', () => {
+    const document = scanTextJson('Table 1. Participants by group\nCharacteristic Control Intervention χ2 (1, N = 82) p\nFemale 22 (55.0) 25 (59.5) 0.17 .680\nSmoker 10 (25.0) 6 (14.3) 1.45 .228\n\nNext.\n');
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 0.17, [1]],
+      ['chi2', 1.45, [1]],
+    ]);
+  });
 });

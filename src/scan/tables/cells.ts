@@ -446,9 +446,9 @@ const MIXED_STATISTICS =
 
 /** A df value in a header: a whole number or a corrected decimal one. */
 const HEADER_DF_NUMBER = String.raw`(\d{1,5}(?:\.\d{1,3})?)`;
-/** "<name> (1, 52)", "<name> [1]", "<name> (df = 1)", "<name> (1 df)", "<name> (2/57)", "<name>(1;44)". */
+/** "<name> (1, 52)", "<name> [1]", "<name> (df = 1)", "<name> (1 df)", "<name> (2/57)", "<name>(1;44)", "<name> (1, N = 82)" (the sample size after the df, as APA writes a chi-square). */
 const NAME_WITH_DF_BRACKETS = new RegExp(
-  String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3}) ?[(\[] ?(?:d\.?f\.? ?[=:]? ?)?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})? ?(?:d\.?f\.?)? ?[)\]]$`,
+  String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3}) ?[(\[] ?(?:d\.?f\.? ?[=:]? ?)?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})? ?(?:d\.?f\.?)?(?: ?[,;] ?n ?= ?\d{1,6})? ?[)\]]$`,
 );
 /** "<name>, df = 1", "<name>, df 1", "<name> df=1". */
 const NAME_WITH_DF_AFTER_COMMA = new RegExp(String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3})(?: ?, ?| )d\.?f\.? ?[=:]? ?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})?$`);
@@ -554,6 +554,14 @@ export function knownHeaderNames(): readonly string[] {
  * engineering journals number tables), and the word in the languages of the
  * corpus (Tabla, Tabela, Tableau, Tabelle, Tab.).
  */
+// With the words of the other languages of the corpus (common practice, from memory): Spanish and Portuguese
+// "error", "erro", "residuo", "resíduo", "dentro de grupos", "intragrupos"; French "erreur", "résidu",
+// "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
+export const ERROR_LABEL =
+  /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
+/** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
+export const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
+
 export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
 /** A title line with nothing after the number: the title proper follows on the next line. */
 export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?\s*$/;

@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, namesTwoStatistics, statisticOfTwo, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
@@ -80,19 +80,12 @@ interface LocatedCell {
 const STATISTIC_PRIORITY: StatisticKind[] = ['F', 't', 'chi2', 'r', 'z'];
 const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic', 'p', 'partial-eta-squared', 'eta-squared', 'generalized-eta-squared', 'omega-squared', 'cohens-d', 'r']);
 
-// With the words of the other languages of the corpus (common practice, from memory): Spanish and Portuguese
-// "error", "erro", "residuo", "resíduo", "dentro de grupos", "intragrupos"; French "erreur", "résidu",
-// "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
-const ERROR_LABEL =
-  /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
 /**
  * The end of a row label that says the row holds means and SDs: "M SD", "M (SD)", "Mean (SD)", "Mean ± SD".
  * ("MSE", a mean square error, is not "M SE": a lone "m" needs a space or bracket before "sd" or "se".)
  */
 const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:(?:m|mean|means)\s?(?:\(sd\)|\u00b1 ?sd|\(se\))|(?:m|mean|means)\s(?:sd|se)|(?:mean|means)(?:sd|se))$|(?:^|\s)(?:mean|means|sd)$/;
 
-/** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
-const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
 
 /** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */

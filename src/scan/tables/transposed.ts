@@ -21,7 +21,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, readCell, statisticOfTwo, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
+import { classifyHeader, ERROR_LABEL, headerKey, readCell, statisticOfTwo, TABLE_TITLE, TOTAL_LABEL, type ColumnRole, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
@@ -71,6 +71,7 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
   for (const run of runs) {
     if (run.kind === 'effect' && run.pairedWith !== undefined && kindOf(runs[run.pairedWith]!) === kind && !effectNames.includes(run.name.text)) effectNames.push(run.name.text);
   }
+  const labels = readLabelRun(cells);
   const rows: string[][] = [[...header, ...effectNames]];
   const spans: (CellSpan | null)[][] = [rows[0]!.map(() => null)];
   let lastCell = paired[0]!.name;
@@ -79,18 +80,22 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
     const partners = runs.filter((other) => other.pairedWith === index);
     const p = partners.find((other) => other.kind === 'p');
     if (p === undefined) return;
-    const dfRun = partners.find((other) => other.kind === 'df');
+    const errorDf = kind === 'F' ? errorDfOf(runs, run, labels) : null;
+    const dfRun = errorDf?.run ?? partners.find((other) => other.kind === 'df');
     const labelDf = dfInName(run.name);
+    // Row names from the label column printed before the values (column by column), when it names each test.
+    const rowNames = labels !== null && labels.length >= run.values.length && labels.slice(run.values.length).every(isErrorOrTotal) ? labels : null;
     run.values.forEach((printed, at) => {
       // A value printed with its df ("4.21 (2, 57)") gives the value and the df apart.
       const withDf = isValue(printed) ? null : partsOf(printed, VALUE_WITH_DF_CELL);
       const value = withDf?.[0] ?? printed;
-      const row: string[] = [`${run.name.text} [${at + 1}]`, value.text];
+      const row: string[] = [rowNames?.[at]?.text ?? `${run.name.text} [${at + 1}]`, value.text];
       // (The name is not the row's start: the result is read from its value to its p.)
       const rowSpans: (CellSpan | null)[] = [null, spanOf(value)];
       const dfCell = dfRun?.values[at];
       const dfWidth = kind === 'F' ? 2 : 1;
-      const printedDf: (Cell | null)[] = withDf !== null ? withDf.slice(1) : dfCell !== undefined ? (partsOf(dfCell, DF_PAIR_CELL) ?? [dfCell]) : labelDf;
+      const printedDf: (Cell | null)[] =
+        withDf !== null ? withDf.slice(1) : errorDf !== null && dfCell !== undefined ? [dfCell, errorDf.cell] : dfCell !== undefined ? (partsOf(dfCell, DF_PAIR_CELL) ?? [dfCell]) : labelDf;
       // (Two df printed for a t, or one for an F, say something else: the row is read without them.)
       const dfCells = printedDf.length === 0 || printedDf.length === dfWidth || (kind === 'F' && printedDf.length === 1 && dfCell !== undefined) ? printedDf : [];
       for (let slot = 0; slot < dfWidth; slot++) {
@@ -127,6 +132,51 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
     },
     lastLine: lastCell.line,
   };
+}
+
+/**
+ * The row labels of a table copied column by column: the cells after a label column's name ("Source",
+ * "Effect") up to the next column's name or value, or null. (A PDF's text often gives a table so, one
+ * column after another: "Source / Group / Time / Error / df / 1 / 2 / 114 / F / 4.21 / 3.15 / p / ...".)
+ */
+function readLabelRun(cells: (Cell | null)[]): Cell[] | null {
+  const first = cells.findIndex((cell) => cell !== null && cell.text.length <= 40 && classifyHeader(cell.text).role === 'label');
+  if (first < 0) return null;
+  const labels: Cell[] = [];
+  for (let at = first + 1; at < cells.length && labels.length < MAX_RUN; at++) {
+    const cell = cells[at];
+    if (cell === null || cell === undefined || isValue(cell) || cell.text.length > 80) break;
+    if (classifyHeader(cell.text).role !== 'unknown') break;
+    labels.push(cell);
+  }
+  return labels.length > 0 ? labels : null;
+}
+
+function isErrorOrTotal(label: Cell): boolean {
+  const key = headerKey(label.text);
+  return ERROR_LABEL.test(key) || TOTAL_LABEL.test(key);
+}
+
+/**
+ * The error df of an F run in a table copied column by column: a df run one value longer than the F run
+ * (or two, with a Total), where the labels after the tests' own name the error term (and the total). The
+ * error df is the df printed at the error term's place; the run's first values are the tests' own df.
+ */
+function errorDfOf(runs: Run[], statistic: Run, labels: Cell[] | null): { run: Run; cell: Cell } | null {
+  if (labels === null) return null;
+  const count = statistic.values.length;
+  if (runs.some((run) => run.kind === 'df' && run.pairedWith !== undefined && runs[run.pairedWith] === statistic)) return null;
+  for (const run of runs) {
+    if (run.kind !== 'df' || run.pairedWith !== undefined || run.values.length !== labels.length) continue;
+    const extra = run.values.length - count;
+    if (extra < 1 || extra > 2) continue;
+    const after = labels.slice(count);
+    if (!ERROR_LABEL.test(headerKey(after[0]!.text)) || !after.slice(1).every((label) => TOTAL_LABEL.test(headerKey(label.text)))) continue;
+    // Whole numbers only: the test's df and the error's.
+    if (!run.values.every((cell) => /^\d{1,6}$/.test(cell.text))) continue;
+    return { run, cell: run.values[count]! };
+  }
+  return null;
 }
 
 function spanOf(cell: Cell): CellSpan {
