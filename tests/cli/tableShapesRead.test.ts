@@ -332,4 +332,15 @@ describe('results tables in the shapes papers print them', () => {
       ['chi2', 1.45, [1]],
     ]);
   });
+
+  it('takes a group\'s letter in a crushed header ("Group A Group B Group C") for the group\'s name, not a column of regression weights', () => {
+    const document = scanTextJson('Table 1. Characteristics by group\nCharacteristic Group A Group B Group C χ2(2) p\nFemale 22 (55.0%) 25 (59.5%) 20 (52.6%) 0.17 .680\nSmoker 10 (25.0%) 6 (14.3%) 12 (31.6%) 1.45 .228\n\nNext.\n');
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 0.17, [2]],
+      ['chi2', 1.45, [2]],
+    ]);
+    // (A letter that begins a longer name still names its column: "X 2" after "High level" is a chi-square.)
+    const chi = scanTextJson('Table 1. Levels\nItems Low level High level X 2 P\nNo 94 (29.3) 13 (17.1) 7.658 .022\nYes 227 (70.7) 63 (82.9)\nNote. df = 1.\n\nNext.\n');
+    expect(chi.statistics.map((statistic) => [statistic.kind, statistic.value])).toEqual([['chi2', 7.658]]);
+  });
 });

@@ -899,15 +899,24 @@ function withGroupSizes(text: string, tokens: Piece[]): Piece[] {
   return merged;
 }
 
+/**
+ * A word that names groups, before the letter or number that names one of them ("Group B", "Arm C",
+ * "Condition 2"): the letter is the group's name, not a column of its own (a "B" column of regression
+ * weights). Common practice in tables comparing groups; with the words of the corpus's other languages.
+ */
+const GROUP_NOUN = /^(?:groups?|conditions?|arms?|class(?:es)?|clusters?|types?|sites?|waves?|cohorts?|profiles?|samples?|studys?|studies|phases?|levels?|subgroups?|grupos?|groupes?|gruppen?|groep(?:en)?|gruppo|gruppi)$/i;
+
 /** Words in the longest known header phrase starting at `index` (0 if none). */
 function knownPhraseLength(tokens: Piece[], index: number): number {
+  const groupLetter = index > 0 && index < tokens.length && /^[A-Z]$/.test(tokens[index]!.text) && GROUP_NOUN.test(tokens[index - 1]!.text);
   for (let length = Math.min(LONGEST_HEADER_WORDS, tokens.length - index); length >= 1; length--) {
     const phrase = tokens
       .slice(index, index + length)
       .map((token) => token.text)
       .join(' ');
     const key = headerKey(phrase);
-    if (isKnownHeader(key) || INCOMPLETE_HEADERS.has(key)) return length;
+    // (A group's letter is no column's name alone; it may begin a longer one, "X 2" for chi-square.)
+    if ((isKnownHeader(key) || INCOMPLETE_HEADERS.has(key)) && !(groupLetter && length === 1)) return length;
   }
   return 0;
 }
