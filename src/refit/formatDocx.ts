@@ -13,6 +13,7 @@ import {
 } from 'docx';
 import { showsAnovaComparison, MEANS_COMPARISON_HEAD, meansComparisonCells, meansExplanationLines, meansSummaryLines, comparisonCells, explanationLines, extraTables, factorsLine, fitLine, reportNotes, summaryLine, formatDf, formatF, formatP, formatProportion, formatSS, ITALIC_SYMBOLS, leveneLine, tableNote, termLabel } from './format.js';
 import type { RefitOutput } from './output.js';
+import { visibleStrings } from '../report/visible.js';
 
 /**
  * The recomputed ANOVA table as a Word document: a real Word table in the
@@ -73,7 +74,10 @@ function journalTable(head: string[], body: string[][], numbersFrom: number): Ta
 }
 
 /** A .docx file (bytes) with the recomputed table. */
-export async function formatRefitDocx(o: RefitOutput): Promise<Buffer> {
+export async function formatRefitDocx(output: RefitOutput): Promise<Buffer> {
+  // Controls from the files and the manuscript are shown as escapes, as in the other formats; a C0 control is
+  // not even allowed in a Word document's XML, where it would leave a file Word refuses to open.
+  const o = visibleStrings(output);
   const head = ['Source', 'SS', 'df', 'MS', 'F', 'p', 'ηp²'];
   const body: string[][] = [
     ...o.terms.map((r) => [termLabel(r.term, o), formatSS(r.ss), formatDf(r.df), formatSS(r.ms), formatF(r.F), formatP(r.p), formatProportion(r.partialEtaSquared)]),

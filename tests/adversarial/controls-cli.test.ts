@@ -1,3 +1,4 @@
+import mammoth from 'mammoth';
 import { spawnSync } from 'node:child_process';
 import { rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -144,6 +145,15 @@ describe('control characters in refit\'s reports, in the built command', () => {
       expect(run.stdout).toContain('Group\\x1b[2J\\x1b]0;pwned\\x07\\u202e');
     });
   }
+
+  it('refit --format docx: the reported label is shown as escapes in the Word document, which stays readable', async () => {
+    const output = join(folder, 'refit.docx');
+    const run = plumbline(['refit', refitName, '--model', 'score ~ group', '--reported', 'reported.csv', '--format', 'docx', '--output', output], folder);
+    expect(run.status, run.stderr).toBe(1);
+    const { value } = await mammoth.extractRawText({ path: output });
+    expect(firstForbidden(value.replace(/[\r\n\t]/g, ' '))).toBeNull();
+    expect(value).toContain('Group\\x1b[2J\\x1b]0;pwned\\x07\\u202e');
+  });
 
   it('refit --format json keeps the label as it is', () => {
     const run = plumbline(['refit', refitName, '--model', 'score ~ group', '--reported', 'reported.csv', '--format', 'json'], folder);
