@@ -151,7 +151,7 @@ export function writeJsonReportOf(format: 'json' | 'jsonl', summary: Summary, en
 const WRITE_BATCH = 1 << 20;
 
 /** Writes pieces to the file, or to standard output, a batch at a time. */
-function writePieces(pieces: Iterable<string>, output: string | undefined, io: CliIo): void {
+export function writePieces(pieces: Iterable<string>, output: string | undefined, io: CliIo): void {
   const descriptor = output ? openSync(output, 'w') : null;
   try {
     let batch: string[] = [];

@@ -3,8 +3,8 @@ import { entryOf } from '../batch/entry.js';
 import { JsonLinesError } from '../batch/jsonLines.js';
 import { indexRecords, mergedDocuments, type MergeIndex } from '../batch/mergeRecords.js';
 import { resolveLimits } from '../limits.js';
-import { buildReport } from '../report/build.js';
-import type { DocumentOutput } from '../report/model.js';
+import { buildReport, reportHead } from '../report/build.js';
+import type { DocumentOutput, StreamedReport } from '../report/model.js';
 import {
   addCommonOptions,
   exitCodeFor,
@@ -13,6 +13,7 @@ import {
   UsageError,
   userConfigFrom,
   writeJsonReportOf,
+  writePieces,
   writeReport,
   type CliIo,
   type CommonOptions,
@@ -68,11 +69,22 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
             for (const document of mergedDocuments(index, parseRecord)) yield entryOf(document);
           })();
           writeJsonReportOf(options.format, index.summary, entries, options.output, io);
-        } else {
-          // The console, Markdown, CSV and HTML reports are built whole (the HTML page's overview, filters
-          // and chart, the summaries' lists of flags), so here every document is held; JSON and JSON Lines
-          // are the formats for merges too large for that.
+        } else if (options.format === 'html') {
+          // The HTML page is built whole (its overview, filters and chart come from every document), so here
+          // every document is held; the other formats are written a document at a time.
           await writeReport(buildReport([...mergedDocuments(index, parseRecord)]), options, io, options.all ?? false);
+        } else {
+          // Streamed like JSON: the summary came from the first pass, and each document is read back from its
+          // file when its piece is written (the Markdown summary reads them three times, once per section).
+          const report: StreamedReport = { caution: reportHead().caution, summary: index.summary, documents: () => mergedDocuments(index, parseRecord) };
+          const color = options.output === undefined && io.color;
+          const pieces =
+            options.format === 'csv'
+              ? (await import('../report/csv.js')).csvPieces(report)
+              : options.format === 'md'
+                ? (await import('../report/markdown.js')).markdownPieces(report)
+                : (await import('../report/console.js')).consolePieces(report, { color, showAll: options.all ?? false });
+          writePieces(pieces, options.output, io);
         }
       } catch (error) {
         // A record no longer where the first pass found it; errors writing the report pass as they are.

@@ -1,5 +1,5 @@
 import { Chalk, type ChalkInstance } from 'chalk';
-import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import type { DocumentOutput, FindingOutput, Report, StatisticOutput, StreamedReport } from './model.js';
 import { visibleControls, visibleLine } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
 import { countOf, crossesAlphaPhrase, documentResultsPhrase, documentsPhrase, findingsPhrase, noResultsMessage, resultsPhrase, tablesNotReadPhrase } from './wording.js';
@@ -62,17 +62,21 @@ function documentBlock(chalk: ChalkInstance, document: DocumentOutput, showAll: 
 
 /** Human-readable report: one block per document, a summary line, and the caution. */
 export function formatConsole(report: Report, options: ConsoleOptions): string {
+  return [...consolePieces({ caution: report.caution, summary: report.summary, documents: () => report.documents }, options)].join('');
+}
+
+/** The console report a piece at a time (one per document, then the summary), for reports too large to hold. */
+export function* consolePieces(report: StreamedReport, options: ConsoleOptions): Iterable<string> {
   const chalk = new Chalk({ level: options.color ? 1 : 0 });
   const { summary } = report;
-  const lines = report.documents.flatMap((d) => documentBlock(chalk, d, options.showAll));
+  for (const document of report.documents()) {
+    const block = documentBlock(chalk, document, options.showAll);
+    if (block.length > 0) yield block.map((line) => `${line}\n`).join('');
+  }
   const documents = summary.unreadable > 0 ? `${countOf(summary.documents, 'document')} (${summary.checked} checked, ${chalk.red(`${summary.unreadable} unreadable`)})` : documentsPhrase(summary);
   const crosses = crossesAlphaPhrase(summary);
   const notRead = tablesNotReadPhrase(summary);
-  lines.push(
-    // Results (what was read) and findings (what the rules say of them) are counted apart.
-    `${documents}; ${resultsPhrase(summary)}; ${findingsPhrase(summary)}` +
-      `${crosses === null ? '' : `; ${crosses}`}${notRead === null ? '' : chalk.yellow(`; ${notRead}`)}.`,
-  );
-  lines.push(chalk.gray(report.caution));
-  return `${lines.join('\n')}\n`;
+  // Results (what was read) and findings (what the rules say of them) are counted apart.
+  yield `${documents}; ${resultsPhrase(summary)}; ${findingsPhrase(summary)}` + `${crosses === null ? '' : `; ${crosses}`}${notRead === null ? '' : chalk.yellow(`; ${notRead}`)}.\n`;
+  yield `${chalk.gray(report.caution)}\n`;
 }

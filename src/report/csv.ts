@@ -1,5 +1,5 @@
 import { stringify } from 'csv-stringify/sync';
-import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import type { DocumentOutput, FindingOutput, Report, StatisticOutput, StreamedReport } from './model.js';
 import { visibleControls, visibleLine } from './visible.js';
 import { noResultsMessage } from './wording.js';
 
@@ -228,9 +228,16 @@ function cellValue(row: Row, column: (typeof CSV_COLUMNS)[number]): string | num
 
 /** The CSV report: a header row, then one row per result (see CsvRowKind for the other rows). */
 export function formatCsv(report: Report): string {
-  const records = report.documents.flatMap(documentRows).map((row) => CSV_COLUMNS.map((column) => cellValue(row, column)));
-  return stringify([CSV_COLUMNS.map((c) => c.name), ...records], {
-    cast: { number: (value) => String(value) },
-    record_delimiter: 'unix',
-  });
+  return [...csvPieces({ caution: report.caution, summary: report.summary, documents: () => report.documents })].join('');
+}
+
+const CSV_OPTIONS = { cast: { number: (value: number) => String(value) }, record_delimiter: 'unix' } as const;
+
+/** The CSV report a piece at a time: the header row, then each document's rows. */
+export function* csvPieces(report: StreamedReport): Iterable<string> {
+  yield stringify([CSV_COLUMNS.map((c) => c.name)], CSV_OPTIONS);
+  for (const document of report.documents()) {
+    const records = documentRows(document).map((row) => CSV_COLUMNS.map((column) => cellValue(row, column)));
+    if (records.length > 0) yield stringify(records, CSV_OPTIONS);
+  }
 }

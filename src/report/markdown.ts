@@ -1,4 +1,4 @@
-import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
+import type { DocumentOutput, FindingOutput, Report, StatisticOutput, StreamedReport } from './model.js';
 import { visibleLine } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
 import { countOf, crossesAlphaPhrase, documentResultsPhrase, documentsPhrase, findingsPhrase, noResultsMessage, resultsPhrase } from './wording.js';
@@ -83,36 +83,49 @@ function hasFlags(document: DocumentOutput): boolean {
 
 /** The Markdown summary of a report. */
 export function formatMarkdown(report: Report): string {
+  return [...markdownPieces({ caution: report.caution, summary: report.summary, documents: () => report.documents })].join('');
+}
+
+/**
+ * The Markdown summary a piece at a time: the totals, the flagged documents, the documents without flags and
+ * the unreadable ones (three passes over the documents, each read again), the caution last.
+ */
+export function* markdownPieces(report: StreamedReport): Iterable<string> {
   const { summary } = report;
-  const lines: string[] = ['## plumbline audit summary', ''];
   // Results (what was read) and findings (what the rules say of them) are counted apart.
-  lines.push(
+  yield lines([
+    '## plumbline audit summary',
+    '',
     `**Totals:** ${documentsPhrase(summary)}; ${resultsPhrase(summary)}; ${findingsPhrase(summary)}; ` +
       `${crossesAlphaPhrase(summary) ?? 'no finding changes the conclusion at alpha'}; ` +
       `${countOf(summary.tablesNotRead, 'results table')} not read.`,
     '',
-  );
-
-  const flagged = report.documents.filter((d) => d.status === 'checked' && hasFlags(d));
-  const clean = report.documents.filter((d) => d.status === 'checked' && !hasFlags(d));
-  const unreadable = report.documents.filter((d) => d.status === 'unreadable');
-
-  for (const document of flagged) appendAll(lines, flaggedDocument(document));
-
-  if (clean.length > 0) {
-    lines.push('### Documents without flags', '');
-    for (const document of clean) {
-      const noResults = noResultsMessage(document);
-      lines.push(`- ${codeSpan(document.path)}: ${noResults === null ? `${documentResultsPhrase(document)}.` : `0 results. ${escapeMarkdown(noResults)}`}`);
-      appendAll(lines, tablesNotReadLines(document, '  '));
-    }
-    lines.push('');
+  ]);
+  for (const document of report.documents()) if (document.status === 'checked' && hasFlags(document)) yield lines(flaggedDocument(document));
+  let cleanSeen = false;
+  for (const document of report.documents()) {
+    if (document.status !== 'checked' || hasFlags(document)) continue;
+    const block: string[] = cleanSeen ? [] : ['### Documents without flags', ''];
+    cleanSeen = true;
+    const noResults = noResultsMessage(document);
+    block.push(`- ${codeSpan(document.path)}: ${noResults === null ? `${documentResultsPhrase(document)}.` : `0 results. ${escapeMarkdown(noResults)}`}`);
+    appendAll(block, tablesNotReadLines(document, '  '));
+    yield lines(block);
   }
-  if (unreadable.length > 0) {
-    lines.push('### Unreadable documents', '');
-    for (const document of unreadable) lines.push(`- ${codeSpan(document.path)}: ${escapeMarkdown(document.error ?? 'no reason given')}`);
-    lines.push('');
+  if (cleanSeen) yield lines(['']);
+  let unreadableSeen = false;
+  for (const document of report.documents()) {
+    if (document.status !== 'unreadable') continue;
+    const block: string[] = unreadableSeen ? [] : ['### Unreadable documents', ''];
+    unreadableSeen = true;
+    block.push(`- ${codeSpan(document.path)}: ${escapeMarkdown(document.error ?? 'no reason given')}`);
+    yield lines(block);
   }
-  lines.push(`> ${escapeMarkdown(report.caution)}`, '');
-  return lines.join('\n');
+  if (unreadableSeen) yield lines(['']);
+  yield `> ${escapeMarkdown(report.caution)}\n`;
+}
+
+/** Lines each ended by a line break. */
+function lines(texts: string[]): string {
+  return texts.map((text) => `${text}\n`).join('');
 }

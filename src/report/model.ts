@@ -169,4 +169,14 @@ export type TableNotReadOutput = z.infer<typeof tableNotReadSchema>;
 export type NoResultsOutput = z.infer<typeof noResultsSchema>;
 export type Report = z.infer<typeof reportSchema>;
 
+/**
+ * A report whose documents are read as they are written (a merge of JSON Lines files too large to hold):
+ * the summary is known first, and `documents` gives the documents in order each time it is called.
+ */
+export interface StreamedReport {
+  caution: string;
+  summary: Report['summary'];
+  documents: () => Iterable<DocumentOutput>;
+}
+
 export { CAUTION } from './caution.js';

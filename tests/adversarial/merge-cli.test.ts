@@ -79,7 +79,8 @@ describe('merge of hostile JSON Lines inputs', () => {
     closeSync(descriptor);
     writeFileSync(join(folder, 'newer.jsonl'), `${JSON.stringify({ ...demo[0]!, path: name(7), alpha: 0.01 })}\n`);
     const measured = peakMemoryRunner(folder);
-    for (const format of ['jsonl', 'json']) {
+    // (Text, CSV and Markdown are streamed too; the HTML page is built whole.)
+    for (const format of ['jsonl', 'json', 'csv', 'md', 'text']) {
       const run = measured(['merge', 'many.jsonl', 'newer.jsonl', '--format', format, '--output', `merged.${format}`, '--fail-on', 'never']);
       expect(run.status, run.stderr).toBe(0);
       // Held whole, the parsed records took 846 MB at 150 MB of them.
@@ -94,5 +95,13 @@ describe('merge of hostile JSON Lines inputs', () => {
     expect(report.documents).toHaveLength(count);
     expect(report.documents[7]!.alpha).toBe(0.01);
     expect(report.summary.documents).toBe(count);
-  }, 120_000);
+    // Every document is in the streamed formats, in path order, with the totals of the whole merge.
+    const csvPaths = new Set(readFileSync(join(folder, 'merged.csv'), 'utf8').split('\n').slice(1).filter((line) => line !== '').map((line) => line.split(',')[1]));
+    expect(csvPaths.size).toBe(count);
+    const text = readFileSync(join(folder, 'merged.text'), 'utf8');
+    expect(text).toContain(`${count} documents`);
+    expect(text.indexOf('paper-00007')).toBeLessThan(text.indexOf('paper-00008'));
+    const markdown = readFileSync(join(folder, 'merged.md'), 'utf8');
+    expect(markdown).toContain(`**Totals:** ${count} documents`);
+  }, 300_000);
 });
