@@ -343,4 +343,33 @@ describe('results tables in the shapes papers print them', () => {
     const chi = scanTextJson('Table 1. Levels\nItems Low level High level X 2 P\nNo 94 (29.3) 13 (17.1) 7.658 .022\nYes 227 (70.7) 63 (82.9)\nNote. df = 1.\n\nNext.\n');
     expect(chi.statistics.map((statistic) => [statistic.kind, statistic.value])).toEqual([['chi2', 7.658]]);
   });
+
+  it('reads a "Value (df)" or "Statistic (df)" column whose test is named by a section row, a row labelled with the test, or a footnote letter', () => {
+    const bySection = scanTextJson(
+      'Table 1. Baseline characteristics\nVariable | Control | Intervention | Value (df) | p\nChi-square test | | | |\nFemale, n (%) | 22 (55.0) | 25 (59.5) | 0.17 (1) | .680\nSmoker, n (%) | 10 (25.0) | 6 (14.3) | 1.45 (1) | .228\nt test | | | |\nAge, M (SD) | 45.2 (10.1) | 44.0 (9.8) | 0.54 (80) | .590\n\nNext.\n',
+    );
+    expect(readAs(bySection.statistics)).toEqual([
+      ['chi2', 0.17, [1]],
+      ['chi2', 1.45, [1]],
+      ['t', 0.54, [80]],
+    ]);
+    const byLetter = scanTextJson(
+      'Table 1. Baseline characteristics\nVariable | Control | Intervention | Statistic (df) | p\nAge, M (SD) | 45.2 (10.1) | 44.0 (9.8) | 0.54 (80)a | .590\nFemale, n (%) | 22 (55.0) | 25 (59.5) | 0.17 (1)b | .680\nNote. a Independent-samples t test. b Chi-square test.\n\nNext.\n',
+    );
+    expect(readAs(byLetter.statistics)).toEqual([
+      ['t', 0.54, [80]],
+      ['chi2', 0.17, [1]],
+    ]);
+    // A row whose test nothing names, or one named as a test plumbline does not check, is not read.
+    const unnamed = scanTextJson('Table 1. Baseline characteristics\nVariable | Control | Intervention | Value (df) | p\nFemale, n (%) | 22 (55.0) | 25 (59.5) | 0.17 (1) | .680\nMann-Whitney U test | | | |\nIncome | 12 (3) | 14 (4) | 3.10 (1) | .078\n\nNext.\n');
+    expect(unnamed.statistics).toEqual([]);
+  });
+
+  it('keeps a pipe table whole across the lines of lone pipes a web page leaves between its rows, where no new header follows', () => {
+    const document = scanTextJson('Table 1. Groups\n| Variable | Value (df) | P value |\n| Chi-square test | 41.64 (4) | <.01 |\n|\n|\n|\nGender, n (%) | 2.96 (4) | .57 |\n|\n|\nMale | 121 (40.1) | 140 (40.9) |\n\nNext.\n');
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 41.64, [4]],
+      ['chi2', 2.96, [4]],
+    ]);
+  });
 });

@@ -33,7 +33,10 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 };
 
 /** Shares of the tune split's pipe-table results also read when the same rows come in another rendering (floors, as above). */
-const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.98, crushed: 0.93, 'cell-per-line': 0.79 };
+// (2026-12-04: crushed 0.93 -> 0.92 and cell-per-line 0.79 -> 0.77: the pipe rows of divf-08 and dwaa-01, broken by
+// lines of lone pipes, are now read, 13 results more; their crushed and one-cell-per-line renderings lose the rows'
+// labels and breaks, and 8 and 13 of them are not read there. No result read before is lost in any rendering.)
+const RENDERING_FLOORS: Record<Rendering, number> = { tabs: 0.98, crushed: 0.92, 'cell-per-line': 0.77 };
 
 describe('real corpus: the passages and their labels', () => {
   it('holds at least 60 passages and 600 labelled results, 300 of them in tables, a fifth held out', () => {
@@ -104,7 +107,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured;
   // the corpus grew by 6 passages on 2026-12-04: tune 7 -> 40, holdout 74 -> 79).
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 40, holdout: 79 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 40, holdout: 79 }; // (measured 2026-12-04: tune 40, holdout 79)
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);

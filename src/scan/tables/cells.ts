@@ -215,6 +215,8 @@ put(['cohen\'s f', 'cohens f', 'f2'], { role: 'effect', effect: 'cohens-f' });
 put(["cramer's v", 'cramers v', 'v'], { role: 'effect', effect: 'cramers-v' });
 put(['phi'], { role: 'effect', effect: 'phi' });
 put(['statistic', 'statistics', 'test statistic', 'test statistics', 'statistical test', 'test value', 'stat', 'stat.', 'effect size', 'effect sizes', 'eff. size', 'es'], { role: 'result' });
+// A value with its df: the value of the test the row names (by a section or a footnote), common in tables of a sample's characteristics.
+put(['value (df)', 'value(df)', 'values (df)'], { role: 'result' });
 put(['m', 'mean', 'means', 'sd', 's.d.', 'se', 's.e.', 'sem', 'mean difference', 'mdiff', 'difference', 'b', 'beta', 'se b', 'estimate', 'std. error', 'standard error', 'min', 'max', 'range', 'median', 'mdn', 'ci', '95% ci', 'lower', 'upper', 'll', 'ul', '%', 'percent', 'm (sd)', 'mean (sd)', 'skew', 'kurtosis', 'alpha', 'ms error', 'mse'], { role: 'descriptive' });
 
 // The same names in the other languages of published papers (French, German, Spanish, Portuguese, Dutch;

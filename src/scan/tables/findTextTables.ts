@@ -309,6 +309,11 @@ interface FoundRows {
   firstLine?: number;
 }
 
+/** A line of pipes and spaces only: an empty row. */
+const EMPTY_PIPE_ROW = /^[ \t]*\|[ \t|]*$/;
+/** Most empty rows in a row inside a pipe table. */
+const MAX_EMPTY_PIPE_ROWS = 8;
+
 /** One cell between two pipes and nothing else. */
 const SPANNING_PIPE_ROW = /^\s*\|[^|]+\|\s*$/;
 
@@ -321,6 +326,17 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
     if (cells === null) {
       // A blank line between rows, as web pages' copies put them (one, between two rows of pipes).
       if (rows.length > 0 && isBlank(lines[index]) && lines[index + 1] !== undefined && pipeCells(lines[index + 1]!) !== null) continue;
+      // Lines of pipes alone ("|"), the empty rows a web page's copy leaves for spacing, when a row of cells follows them.
+      if (rows.length > 0 && EMPTY_PIPE_ROW.test(lines[index]!.text)) {
+        let next = index + 1;
+        while (next < lines.length && next - index < MAX_EMPTY_PIPE_ROWS && EMPTY_PIPE_ROW.test(lines[next]!.text)) next++;
+        // (Not when that row is a header: a new table starts there.)
+        const nextCells = lines[next] === undefined ? null : pipeCells(lines[next]!);
+        if (nextCells !== null && !nextCells.some((cell) => cell !== '' && isKnownHeader(headerKey(cell)))) {
+          index = next - 1;
+          continue;
+        }
+      }
       // A section row spanning the table, one cell between two pipes ("| Outcome variable |"), inside it.
       const spanning = rows.length > 0 && SPANNING_PIPE_ROW.test(lines[index]!.text) && lines[index + 1] !== undefined && pipeCells(lines[index + 1]!) !== null;
       if (!spanning) break;
@@ -384,6 +400,16 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
     if (cells === null) {
       const nextIsRow = lines[index + 1] !== undefined && tabCells(lines[index + 1]!) !== null;
       if (isBlank(lines[index]) && nextIsRow) continue;
+      // Several blank lines, the empty rows a web page's copy leaves for spacing, when a row that is no header follows.
+      if (isBlank(lines[index]) && rows.length > 0) {
+        let next = index + 1;
+        while (next < lines.length && next - index < MAX_EMPTY_PIPE_ROWS && isBlank(lines[next])) next++;
+        const nextCells = lines[next] === undefined ? null : tabCells(lines[next]!);
+        if (nextCells !== null && !nextCells.some((cell) => cell.text !== '' && isKnownHeader(headerKey(cell.text)))) {
+          index = next - 1;
+          continue;
+        }
+      }
       // A section line ("Activity/ playfulness") between rows, written without tabs.
       // A lone value between rows ("0.50 (0.32, 0.74)") is a piece of a row the page broke over lines; it is
       // joined with the pieces around it below.

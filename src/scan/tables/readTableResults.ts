@@ -352,6 +352,17 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     // A "Test" column naming each row's test and a "Statistic" column holding its value ("t-test | 4.95, df = 4254.7").
     const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount));
     if (perRow.length > 0) return { results: perRow, unread: null, completions };
+    // A "Statistic (df)" or "Value (df)" column whose test each row's section ("Chi-square test") or footnote
+    // letter ("0.54 (80)a" over "a Independent-samples t test") names.
+    const resultColumn = roles.findIndex((role) => role.role === 'result');
+    const legend = testLegend([...table.notes, linesAfter(text, table.end)].join(' '));
+    const bySection = readResultColumnPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount), resultColumn, legend);
+    if (bySection.length > 0) {
+      // Rows with a value and its df in some cell that were not read (their test unnamed, or the row shifted) are said.
+      const withValue = rows.slice(headerCount).filter((row) => row.slice(1).some((cell) => VALUE_WITH_DF.test(cell) && parseReportedNumber(VALUE_WITH_DF.exec(cell)![1]!.replace(/\s/g, ''))?.decimals !== 0)).length;
+      const rowsRead = new Set(bySection.map((result) => result.tableRow?.rowLabel)).size;
+      return { results: bySection, unread: withValue > rowsRead ? unreadTable(table, tableIndex, 'cells-not-placed', withValue, rowsRead) : null, completions };
+    }
   }
   if (kind === undefined) {
     // A table of correlations with its columns named by the variables correlated.
@@ -585,6 +596,120 @@ function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, 
       df,
       ...(dfFrom ? { dfFrom } : {}),
       sampleSize: kind === 'r' ? nCell : null,
+      value,
+      valueComparator: '=',
+      p: pRead,
+      notSignificant,
+      effects: [],
+      tableRow: { tableIndex, caption: table.caption, rowLabel: (row[0] ?? '').trim(), cells: {}, errorRow: null },
+    });
+  });
+  return results;
+}
+
+/** A section row's words that name the test of the rows under it: "Chi-square test", "t test", "ANOVA Test, (F test)". */
+const SECTION_TEST_NAMES: [RegExp, StatisticKind][] = [
+  [/(?:^|[^\p{L}])(?:(?:welch'?s?|student'?s?|independent[- ]samples?|paired[- ]samples?) )?t[- ]?tests?(?![\p{L}])/iu, 't'],
+  [/(?:^|[^\p{L}])(?:pearson'?s? )?(?:chi[- ]?squared?|χ2|χ²|x2)(?: tests?)?(?![\p{L}\d])/iu, 'chi2'],
+  [/(?:^|[^\p{L}])(?:anova|f[- ]?tests?)(?![\p{L}])/iu, 'F'],
+];
+/** Tests no kind of ours checks: a section or footnote naming one of them names no kind. */
+const OTHER_TEST = /mann[- ]?whitney|wilcoxon|kruskal|fisher|friedman|welch'?s? anova|brown[- ]forsythe|mcnemar|median test|u[- ]test|log[- ]?rank|cochran/i;
+
+/** The one kind of test a short text names, or null (none, several, or a test we do not check). */
+function testNamedIn(words: string): StatisticKind | null {
+  if (words.length > 60 || OTHER_TEST.test(words)) return null;
+  const kinds = new Set(SECTION_TEST_NAMES.filter(([pattern]) => pattern.test(words)).map(([, kind]) => kind));
+  return kinds.size === 1 ? [...kinds][0]! : null;
+}
+
+/**
+ * Footnote letters a table's notes define as tests: "a Independent-samples t test. b Chi-square test." ->
+ * a: t, b: chi2. A letter defined twice, or as a test we do not check, names none.
+ */
+function testLegend(notes: string): Map<string, StatisticKind | null> {
+  const legend = new Map<string, StatisticKind | null>();
+  for (const match of notes.matchAll(/(?:^|[\s.;,])([a-f])(?:\s?[.:)=]\s?|\s)([^.;]{3,60})/g)) {
+    const letter = match[1]!;
+    const kind = testNamedIn(match[2]!);
+    if (kind === null && !OTHER_TEST.test(match[2]!)) continue;
+    legend.set(letter, legend.has(letter) && legend.get(letter) !== kind ? null : kind);
+  }
+  return legend;
+}
+
+/** A value with its df in brackets and perhaps a footnote letter: "0.17 (1)", "18.53 (2,1067)", "0.54 (80)a". */
+const VALUE_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,5}(?:\.\d{1,2})?)(?: ?[,;] ?(\d{1,6}(?:\.\d{1,2})?))? ?[)\]] ?([a-f])? *$/;
+
+/**
+ * Rows of a "Statistic (df)" column (or "Value (df)"), each value printed with its df, whose kind of test is
+ * named row by row: by a footnote letter on the value or the row's label that the notes define as a test, or
+ * by the nearest section row above that names one ("Chi-square test", "ANOVA Test, (F test)"). A row whose
+ * test is named neither way, or as a test we do not check, is not read. Where a copy left a row short (its
+ * label, the value and the p only, as web tables with spanning cells come out), the value is the cell after
+ * the label.
+ */
+function readResultColumnPerRow(
+  text: string,
+  table: DocumentTable,
+  tableIndex: number,
+  body: string[][],
+  located: ((LocatedCell | null)[] | null)[],
+  resultColumn: number,
+  legend: Map<string, StatisticKind | null>,
+): ReportedResult[] {
+  if (resultColumn < 1) return [];
+  const results: ReportedResult[] = [];
+  let sectionKind: StatisticKind | null = null;
+  body.forEach((row, index) => {
+    const cellsAt = located[index] ?? null;
+    const filled = row.map((cell, column) => ({ cell: cell.trim(), column })).filter(({ cell }) => cell !== '');
+    // A section row: its label alone (or its label and a dash).
+    // (One that names no test, a variable's heading over its levels, leaves the test named before in force.)
+    if (filled.length === 1 && filled[0]!.column === 0) {
+      sectionKind = testNamedIn(filled[0]!.cell) ?? (OTHER_TEST.test(filled[0]!.cell) ? null : sectionKind);
+      return;
+    }
+    if (cellsAt === null) return;
+    const short = filled.length <= 3 && filled[0]?.column === 0 && filled[1] !== undefined && filled[1].column < resultColumn && VALUE_WITH_DF.test(filled[1].cell);
+    const statisticColumn = short ? filled[1]!.column : resultColumn;
+    const statisticText = row[statisticColumn] ?? '';
+    const match = VALUE_WITH_DF.exec(normaliseText(statisticText).text);
+    const statisticAt = cellsAt[statisticColumn] ?? null;
+    if (match === null || statisticAt === null) return;
+    // (A letter on the label only after a bracket, a percent sign or a digit: "Age, M (SD)a", not the last letter of a word.)
+    const letter = match[4] ?? /[)\]%\d]([a-f])$/.exec((row[0] ?? '').trim())?.[1];
+    // (Or the row's label is the test's name, "Chi-square test | 41.64 (4) | <.01", which names the test of the
+    // rows after it too, as a section does.)
+    const labelTest = testKindOf(row[0] ?? '');
+    if (labelTest !== null) sectionKind = labelTest;
+    const kind = letter !== undefined && legend.has(letter) ? legend.get(letter)! : sectionKind;
+    if (kind === null) return;
+    const value = parseReportedNumber(match[1]!.replace(/\s/g, ''));
+    // A test's value has decimals and its df are whole numbers (a t's may have decimals): a count with its
+    // percentage, "169 (49.4)", is a group's cell that a copy moved under the column.
+    if (value === null || value.decimals === 0) return;
+    const df = [match[2], match[3]].filter((written): written is string => written !== undefined).map((written) => parseReportedNumber(written)!);
+    // (In a short row, a t's df must be whole too: "45.2 (10.1)" there is a mean and its SD.)
+    if (df.length !== (kind === 'F' ? 2 : 1) || ((kind !== 't' || short) && df.some((number) => number.decimals > 0))) return;
+    let pRead: ReportedP | null = null;
+    let notSignificant = false;
+    for (let column = statisticColumn + 1; column < row.length && pRead === null && !notSignificant; column++) {
+      const read = readPCell(row[column] ?? '');
+      const at = cellsAt[column] ?? null;
+      if (read.kind === 'ns') notSignificant = true;
+      if (read.kind === 'number' && at !== null && read.number.value <= 1) pRead = { comparator: read.comparator, value: read.number, plural: false, start: at.start + read.start, end: at.start + read.end };
+      if ((row[column] ?? '').trim() !== '') break;
+    }
+    const start = statisticAt.start + statisticText.indexOf(match[1]!.trim().slice(0, 1));
+    const end = pRead?.end ?? statisticAt.end;
+    results.push({
+      kind,
+      text: text.slice(start, end),
+      start,
+      end,
+      df,
+      sampleSize: null,
       value,
       valueComparator: '=',
       p: pRead,
