@@ -209,10 +209,12 @@ export function readScientificNumber(text: string, position: number, decimalComm
       return { number: { value: Number(`1e${bare.power}`), text: written, decimals: 0, exponent: bare.power }, start: position, end: bare.end };
     }
   }
-  const after = text.charCodeAt(mantissa.end);
+  // "9.4.E-07": a spreadsheet's scientific notation with a point before its "E" (as some tables print it).
+  const dottedExponent = text.charCodeAt(mantissa.end) === 46 && (text.charCodeAt(mantissa.end + 1) === 69 || text.charCodeAt(mantissa.end + 1) === 101) ? 1 : 0;
+  const after = text.charCodeAt(mantissa.end + dottedExponent);
   if (after === 101 || after === 69) {
     // "e" / "E"
-    const exponent = readNumber(text, mantissa.end + 1);
+    const exponent = readNumber(text, mantissa.end + dottedExponent + 1);
     if (exponent !== null && exponent.number.decimals === 0 && exponent.number.text.length <= 4 && endsWord(text, exponent.end)) {
       return scientific(`${mantissaText}e${exponent.number.text}`, position, exponent.end) ?? mantissa;
     }

@@ -57,6 +57,8 @@ interface SymbolRead {
   requiresBracketedDf: boolean;
   /** ...or written after the value ("X2 = 18.4, df = 4"). */
   acceptsTrailingDf?: boolean;
+  /** The symbol's superscript 2 comes after its bracketed df ("χ(1)2 = 4.21"). */
+  superscriptAfterDf?: boolean;
 }
 
 /** Reads the statistic symbol at `position`, or null. */
@@ -112,6 +114,8 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
   }
   // "chi^{2}", as LaTeX writes it.
   if (text.startsWith('^{2}', position + 3)) return { kind: 'chi2', end: position + 7, requiresBracketedDf: false };
+  // "χ(1)2 = 4.21", "χ (1) 2": the superscript 2 set after the df, as a typeset χ²₁ can come out of a PDF or a web page.
+  if (superscriptFollowsDf(text, skipOnlySpace(text, position + 3))) return { kind: 'chi2', end: position + 3, requiresBracketedDf: true, superscriptAfterDf: true };
   at = position + 3;
   const joiner = text.charCodeAt(at);
   if (joiner === 45 || joiner === 32) at++;
@@ -147,6 +151,26 @@ function spearmanSymbol(text: string, position: number): SymbolRead | null {
     if (OPENING_BRACKETS.has(text.charCodeAt(bracket))) return { kind: 'r', symbol: 'rs', end: position + 3, requiresBracketedDf: true };
   }
   return null;
+}
+
+/** One space at most. */
+function skipOnlySpace(text: string, at: number): number {
+  return text.charCodeAt(at) === 32 ? at + 1 : at;
+}
+
+/** Whether a bracket at `at` closes within a few characters and is followed by a lone "2" (after one space at most). */
+function superscriptFollowsDf(text: string, at: number): boolean {
+  if (text.charCodeAt(at) !== 40 && text.charCodeAt(at) !== 91) return false;
+  for (let close = at + 1; close < text.length && close - at <= 24; close++) {
+    const code = text.charCodeAt(close);
+    if (code === 41 || code === 93) {
+      const two = skipOnlySpace(text, close + 1);
+      const next = text.charCodeAt(two + 1);
+      return text.charCodeAt(two) === 50 && !isAsciiDigit(next) && !isAsciiLetter(next) && next !== 46 && next !== 44;
+    }
+    if (code === 40 || code === 91 || code === 10) return false;
+  }
+  return false;
 }
 
 /**
@@ -374,6 +398,11 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     needsTrailingDf = true;
   }
   if (dfRead !== null) at = dfRead.end;
+  if (symbol.superscriptAfterDf === true) {
+    at = skipOnlySpace(text, at);
+    if (text.charCodeAt(at) !== 50) return null;
+    at++;
+  }
 
   let comparatorAt = skipSpaces(text, at);
   if (brokenOverLines && text.charCodeAt(comparatorAt) === 10) comparatorAt = skipSpaces(text, comparatorAt + 1);

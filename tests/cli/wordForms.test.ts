@@ -81,3 +81,21 @@ describe('df in brackets after the value, and a program\'s model summary line, f
     expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value, statistic.p?.value])).toEqual([['F', [1, 38], 4.21, 0.047]]);
   });
 });
+
+describe('a chi-square whose superscript follows its df, and a p in a spreadsheet\'s scientific notation, from the command line', () => {
+  it('reads "χ(1)2 = 1.72" and "p = 9.4.E-07" without flagging consistent results, and flags an exponent that does not fit', () => {
+    // χ²(1) = 1.72 gives p = .190; F(1, 468) = 24.7 gives p = 9.41e-7; t(334.7) = 3.62 gives p = .00034 (SciPy 1.10.1
+    // scipy.stats.chi2.sf(1.72, 1), f.sf(24.7, 1, 468), 2 * t.sf(3.62, 334.7), computed when the test was written).
+    const text = (exponent: string): string =>
+      `Groups differed in smoking, χ(1)2 = 1.72, p = 0.19. Income differed, F(1, 468) = 24.7, p = 9.4.E-${exponent}, and so did age, t(334.7) = 3.62, p = 3.4.E-04.\n`;
+    const statistics = scanTextJson(text('07')).statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value, statistic.p?.value])).toEqual([
+      ['chi2', [1], 1.72, 0.19],
+      ['F', [1, 468], 24.7, 9.4e-7],
+      ['t', [334.7], 3.62, 3.4e-4],
+    ]);
+    expect(statistics.flatMap((statistic) => statistic.findings.filter((finding) => finding.severity === 'fail'))).toEqual([]);
+    const wrong = scanTextJson(text('03')).statistics;
+    expect(wrong[1]!.findings.map((finding) => finding.rule)).toContain('p-value-mismatch');
+  });
+});

@@ -20,14 +20,15 @@ const scores = scoreCorpus(corpus);
  * its floor too.
  */
 // The corpus grew by 6 passages on 2026-12-04 (dwaa-01..06): tune table recall 0.86 -> 0.85, holdout
-// table recall 0.49 -> 0.50 and its ceiling of fails on consistent results 0.01 -> 0.03 (9 of 323), as measured.
+// table recall 0.49 -> 0.50 and its ceiling of fails on consistent results 0.01 -> 0.03 (9 of 323), as measured;
+// then, with "χ(1)2" and "p = 9.4.E-07" read, holdout table recall 0.51 and fails on consistent back to 0 (ceiling 0.01).
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
     table: { recall: 0.85, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.5, precision: 1, maxFailRate: 0.03 },
+    table: { recall: 0.51, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -98,7 +99,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
   // the share read at its place (floors, as measured).
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.43 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.45 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -107,7 +108,7 @@ describe('real corpus: plumbline reads what is printed', () => {
 
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured;
   // the corpus grew by 6 passages on 2026-12-04: tune 7 -> 40, holdout 74 -> 79).
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 40, holdout: 79 }; // (measured 2026-12-04: tune 40, holdout 79)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 40, holdout: 74 }; // (measured 2026-12-04: tune 40, holdout 74)
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
