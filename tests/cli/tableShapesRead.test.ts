@@ -372,4 +372,16 @@ describe('results tables in the shapes papers print them', () => {
       ['chi2', 2.96, [4]],
     ]);
   });
+
+  it('reads the rows of a second model under its formula line ("Anxiety score = Group × Sampling season × Location"), which heads a block like a section', () => {
+    const document = scanTextJson(
+      'Table 3. Linear models\nTerm F df p\nAnxiety score = Group × Sampling season × Location\nGroup 12.47 2, 90 <0.001\nSeason 3.41 2, 90 0.038\nAnxiety score = Group × Sampling season × Site\nGroup 12.09 2, 90 <0.001\nSite 0.12 1, 90 0.735\n\nThe first model includes all groups.\n',
+    );
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 12.47, [2, 90]],
+      ['F', 3.41, [2, 90]],
+      ['F', 12.09, [2, 90]],
+      ['F', 0.12, [1, 90]],
+    ]);
+  });
 });

@@ -1212,12 +1212,26 @@ function sparseRunLeadsToRow(lines: Line[], index: number): boolean {
 function isSectionLine(line: Line | undefined): boolean {
   if (line === undefined) return false;
   const text = line.text.trim();
+  // A model's formula heading its block of rows ("eDNA copies/µl = Species × Sampling season × Location").
+  if (isModelFormula(text)) return true;
   if (text === '' || text.length > 60 || /[.:;,]$/.test(text) || TITLE.test(text) || NOTE.test(text)) return false;
   // Digits may stand in a name ("GAD-7", "SF-36 PCS"), not as a value at the line's end, except in a numbered
   // group's name ("Sample 1", "Study 2", "Experiment 3b").
   const numberedGroup = /^[A-Z][A-Za-z]+(?: [A-Za-z]+)? \d{1,3}(?:[a-z]|\/\d{1,2})?$/.test(text);
   if (!numberedGroup && /\d/.test(text) && (isValueToken(text.split(/\s+/).pop()!) || /\d\s*\)?$/.test(text))) return false;
   return text.split(/\s+/).length <= 6;
+}
+
+/**
+ * An outcome and its terms, "Y = A × B", "score ~ group * time": at most 120 characters, one "=" or "~" with
+ * words on both sides, terms joined by "×", "*", "+" or ":", and no number among them.
+ */
+function isModelFormula(text: string): boolean {
+  if (text.length > 120 || /\d\s*$/.test(text)) return false;
+  const match = /^([^=~<>]{1,50}?) [=~] ([^=~<>]{1,100})$/.exec(text);
+  if (match === null || !/\p{L}/u.test(match[1]!)) return false;
+  const terms = match[2]!.split(/ [\u00d7*+:x] /);
+  return terms.length >= 2 && terms.every((term) => /^\p{L}[\p{L}\p{M}/' ()-]{0,40}$/u.test(term.trim()));
 }
 
 function readSpacedTable(lines: Line[], first: number): FoundRows | null {
