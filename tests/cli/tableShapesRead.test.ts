@@ -384,4 +384,15 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 0.12, [1, 90]],
     ]);
   });
+
+  it('takes the error df a df column\'s name states ("df (error = 57)") for every F of the table', () => {
+    for (const separator of ['\t', ' ']) {
+      const rows = [['Effect', 'df (error = 57)', 'F', 'p'], ['Group', '2', '4.21', '.020'], ['Time', '1', '6.66', '.012']];
+      const document = scanTextJson(`Table 3. ANOVA\n${rows.map((row) => row.join(separator)).join('\n')}\n\nNext.\n`);
+      expect(readAs(document.statistics), JSON.stringify(separator)).toEqual([
+        ['F', 4.21, [2, 57]],
+        ['F', 6.66, [1, 57]],
+      ]);
+    }
+  });
 });

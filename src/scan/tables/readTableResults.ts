@@ -396,7 +396,13 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0), completions };
   titleBlocks(segments, rows.slice(0, headerCount - 1));
 
-  const noteText = [...table.notes, table.caption ?? ''].join(' ');
+  // A header that states the error's df ("df (error = 57)", "df (error df = 57)") states it as a note would.
+  const headerErrorDf = rows
+    .slice(0, headerCount)
+    .flat()
+    .map((cell) => HEADER_ERROR_DF.exec(cell)?.[1])
+    .filter((written): written is string => written !== undefined);
+  const noteText = [...table.notes, table.caption ?? '', ...(new Set(headerErrorDf).size === 1 ? [`Error df = ${headerErrorDf[0]}.`] : [])].join(' ');
   const statedDf = readNoteDf(noteText);
   // No df in the caption or notes: the lines just above and below the table may state them (a caption the
   // layout did not tie to the table, a note without "Note.", a sentence under it).
@@ -523,6 +529,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const reason: UnreadReason = rowsWithoutDf >= unplaced && rowsWithoutDf > 0 ? 'no-df' : 'cells-not-placed';
   return { results, unread: unreadTable(table, tableIndex, reason, rowsWithStatistic + unplaced, rowsRead), completions };
 }
+
+/** A df column's name that states the error's df: "df (error = 57)", "df (error df: 57)", "df (residual = 57)". */
+const HEADER_ERROR_DF = /^\s{0,3}d\.?f\.?\s{0,2}[([]\s{0,2}(?:error|residual|within)(?:\s{1,2}d\.?f\.?)?\s{0,2}[=:]\s{0,2}(\d{1,6})\s{0,2}[)\]]\s{0,3}$/i;
 
 /** Names of tests in a table's cells, and the kind each is checked as. */
 const TEST_NAMES: [RegExp, StatisticKind][] = [
