@@ -1,0 +1,54 @@
+/**
+ * Factorial designs' cell statistics (tables and text) and their link to
+ * the F tests of the same design: readCellTable.ts reads tables,
+ * readCellText.ts running text with a design statement, linkCells.ts
+ * decides which F tests which effect of which set.
+ */
+
+import type { DocumentTable } from '../../documents/types.js';
+import type { FactorialCellSet, FactorialLink, ReportedResult } from '../types.js';
+import { readTextGroups } from '../descriptives/readTextDescriptives.js';
+import { readCellTable } from './readCellTable.js';
+import { readCellText } from './readCellText.js';
+import { linkCellSets, type Paragraph } from './linkCells.js';
+
+export { readCellTable } from './readCellTable.js';
+export { readCellText, readDesignStatements } from './readCellText.js';
+export { linkCellSets, termOfRowLabel, termOfWrittenLabel } from './linkCells.js';
+
+/** The paragraphs of a text: stretches between blank lines. */
+export function paragraphsOf(text: string): Paragraph[] {
+  const paragraphs: Paragraph[] = [];
+  const blank = /\n[ \t]*\n/g;
+  let start = 0;
+  for (let match = blank.exec(text); match !== null; match = blank.exec(text)) {
+    paragraphs.push({ start, end: match.index });
+    start = match.index + match[0].length;
+  }
+  paragraphs.push({ start, end: text.length });
+  return paragraphs;
+}
+
+export interface FactorialReading {
+  /** Every set of cell statistics found, in document order. */
+  sets: FactorialCellSet[];
+  /** The link of each result (same order as given), or null. */
+  links: (FactorialLink | null)[];
+}
+
+/**
+ * Reads the cell statistics of factorial designs in `tables` (the
+ * document's tables, distinct, in reading order) and `text`, and links
+ * `results` to them.
+ */
+export function readFactorialCells(text: string, tables: readonly DocumentTable[], results: readonly ReportedResult[]): FactorialReading {
+  const paragraphs = paragraphsOf(text);
+  const sets: FactorialCellSet[] = [];
+  tables.forEach((table, index) => {
+    const set = readCellTable(table, index);
+    if (set !== null) sets.push(set);
+  });
+  sets.push(...readCellText(text, readTextGroups(text), paragraphs));
+  sets.sort((a, b) => a.start - b.start);
+  return { sets, links: linkCellSets(text, sets, results, paragraphs) };
+}
