@@ -18,7 +18,7 @@
  *
  * Which set: cell statistics in a table the result's sentence (else
  * paragraph) refers to ("Table 2"), or written in the result's paragraph
- * before it, or in the paragraph before; failing those, the only set in the
+ * before it, or written in or referred to by the paragraph before; failing those, the only set in the
  * document that fits, when its caption or sentence shares a word of what
  * was measured with the result's paragraph. Ties link nothing.
  *
@@ -234,6 +234,10 @@ export function linkCellSets(text: string, sets: readonly FactorialCellSet[], re
     const paragraphText = `${result.tableRow?.caption ?? ''}\n${text.slice(paragraph.start, paragraph.end)}`;
     const inSentence = tableReferences(sentence);
     const inParagraph = tableReferences(paragraphText);
+    // Tables the paragraph before refers to (a test continuing the previous paragraph's analysis); read only when needed.
+    let before: string[] | undefined;
+    const referencesBefore = (): string[] =>
+      (before ??= p > 0 && result.tableRow === undefined ? tableReferences(text.slice(paragraphs[p - 1]!.start, paragraphs[p - 1]!.end)) : []);
     const candidates: Candidate[] = [];
     for (const set of usable) {
       if (set.start >= result.start && set.source === 'text') continue;
@@ -246,6 +250,7 @@ export function linkCellSets(text: string, sets: readonly FactorialCellSet[], re
       else if (set.tableNumber !== null && inParagraph.includes(set.tableNumber)) score = 2;
       else if (set.source === 'text' && set.start >= paragraph.start) score = 2;
       else if (set.source === 'text' && p > 0 && set.start >= paragraphs[p - 1]!.start) score = 1;
+      else if (set.tableNumber !== null && referencesBefore().includes(set.tableNumber)) score = 1;
       else {
         // Anywhere else: only when the paragraph speaks of what the set measured.
         const lower = paragraphText.toLowerCase();

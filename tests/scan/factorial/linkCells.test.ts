@@ -56,6 +56,11 @@ describe('F tests linked to the cells of their design', () => {
     expect(links(text)).toEqual(['F(1, 76) = 0.70, p = .404 -> 0,1']);
   });
 
+  it('tests in the paragraph after the one that refers to the table', () => {
+    const text = `${cellTable}\n\nRecall (Table 1) showed a main effect of age, F(1, 76) = 3.35, p = .071.\n\nThere was also a main effect of load, F(1, 76) = 5.77, p = .019.\n`;
+    expect(links(text)).toEqual(['F(1, 76) = 3.35, p = .071 -> 0', 'F(1, 76) = 5.77, p = .019 -> 1']);
+  });
+
   it('two tables of the same design and no reference: the one whose outcome the paragraph names, or none', () => {
     const second = cellTable.replace('Table 1', 'Table 2').replace('Recall by', 'Reading speed by');
     const naming = `${cellTable}\n\n${second}\n\nFor reading speed, the age × load interaction was not significant, F(1, 76) = 0.70, p = .404.\n`;
