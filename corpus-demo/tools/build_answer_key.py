@@ -119,6 +119,8 @@ FINDINGS = [
      "correct, and only type III gives it (types I and II: 11.87), as the text says: the note names the type"),
     ("harbour-choir-warmups.md", "F(2, 114) = 3.14, p = .047", "cell-statistics-test-mismatch", "fail", True,
      "the interaction F and p agree with each other but not with the cells: every type gives F(2, 114) = 0.74, p = .481"),
+    ("harbour-choir-warmups.md", "t(114) = 2.93, p = .004", "post-hoc-comparison-mismatch", "fail", False,
+     "the unadjusted p printed under the Bonferroni heading: t(114) = 2.93 gives p = .004, Bonferroni (3 comparisons) .012"),
 ]
 
 DESCRIPTION = (

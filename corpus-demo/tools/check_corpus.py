@@ -156,9 +156,24 @@ def check_factorial_demo(file):
         cells[(outer, m.group(2).strip())] = (int(m.group(3)), m.group(4), m.group(5))
     assert cells == fv.CELLS, f"{file}: the table's cells differ from factorial_values.CELLS"
     tables, _, _ = fv.anova(cells)
+    comparisons, marginal = fv.warmup_comparisons(cells)
     out = []
     for res in results:
         label = text[text.rfind(".", 0, res["start"]) + 1:res["start"]]
+        if res["kind"] == "t":
+            # A Bonferroni comparison of two warm-up levels, named by their printed marginal means.
+            printed = re.findall(r"M = (\d+\.\d+)", text[text.rfind("\n", 0, res["start"]):res["start"]])[-2:]
+            levels = [next(level for level, mean in marginal.items() if f"{mean:.2f}" == m) for m in printed]
+            pair = tuple(levels) if tuple(levels) in comparisons else tuple(reversed(levels))
+            t, df, p_unadjusted, p_bonferroni = comparisons[pair]
+            assert res["df"] == [df], f"{file}:{res['line']}: df"
+            assert abs(abs(t) - abs(float(res["value"]))) <= half(res["value"]) + 0.01, f"{file}:{res['line']}: t"
+            p_text = res["p"]["text"]
+            fits = (lambda p: p < float(p_text)) if res["p"]["cmp"] == "<" else (lambda p: abs(p - float(p_text)) <= half(p_text))
+            tags = set() if fits(p_bonferroni) else {"post-hoc-comparison-mismatch"}
+            assert fits(p_bonferroni) or fits(p_unadjusted), f"{file}:{res['line']}: p fits neither"
+            out.append((res, tags))
+            continue
         effect = "Format x Warm-up" if "interaction" in label else "Format" if "of format" in label else "Warm-up"
         printed = float(res["value"])
         fs = [tables[typ][effect][2] for typ in (1, 2, 3)]

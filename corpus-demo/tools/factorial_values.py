@@ -10,8 +10,9 @@ normal draws, rescaled); statsmodels' ols and anova_lm (typ = 1, 2, 3, with
 sum-to-zero coding for type III) then give the ANOVA of those scores, which
 is the ANOVA the printed cells imply. The script prints each effect's F, p
 and partial eta squared under each type, and the Bonferroni-adjusted
-pairwise comparisons of the warm-up marginal means (Welch-free: t on the
-model's error mean square) that the manuscript reports.
+pairwise comparisons of the warm-up levels' observed (n-weighted) marginal
+means, t on the full model's error mean square and df (scipy.stats.t.sf),
+that the manuscript reports.
 
 Used by check_corpus.py (factorial_tables) to verify the manuscript.
 """
@@ -68,6 +69,22 @@ def anova(cells):
     return out, float(model.mse_resid), int(model.df_resid)
 
 
+def warmup_comparisons(cells):
+    """Bonferroni-adjusted pairwise comparisons of the warm-up levels' observed (n-weighted) marginal means, on the
+    full model's error mean square: {(level, level): (t, df, unadjusted p, Bonferroni p)} and the marginal means."""
+    _, mse, df = anova(cells)
+    levels = ["None", "Breathing", "Vocal"]
+    sizes = {level: sum(n for (f, w), (n, _, _) in cells.items() if w == level) for level in levels}
+    means = {level: sum(n * float(m) for (f, w), (n, m, _) in cells.items() if w == level) / sizes[level] for level in levels}
+    pairs = list(itertools.combinations(levels, 2))
+    out = {}
+    for a, b in pairs:
+        t = (means[a] - means[b]) / (mse * (1 / sizes[a] + 1 / sizes[b])) ** 0.5
+        p = 2 * stats.t.sf(abs(t), df)
+        out[(a, b)] = (t, df, p, min(1.0, len(pairs) * p))
+    return out, means
+
+
 def main():
     tables, mse, df = anova(CELLS)
     for typ, effects in tables.items():
@@ -75,6 +92,10 @@ def main():
         for name, (df1, df2, f, p, eta) in effects.items():
             print(f"  {name:<18} F({df1}, {df2}) = {f:.3f}  p = {p:.4f}  partial eta squared = {eta:.3f}")
     print(f"MSE = {mse:.4f} on {df} df")
+    comparisons, means = warmup_comparisons(CELLS)
+    print("warm-up marginal means (n-weighted): " + ", ".join(f"{level} {mean:.2f}" for level, mean in means.items()))
+    for (a, b), (t, df, p, bonferroni) in comparisons.items():
+        print(f"  {a} vs {b}: t({df}) = {t:.3f}, unadjusted p = {p:.4f}, Bonferroni p = {bonferroni:.4f}")
 
 
 if __name__ == "__main__":

@@ -2,7 +2,8 @@ import type { DocumentTable, Region } from '../documents/types.js';
 import { scanText } from './scan.js';
 import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion, type UnreadTable } from './tables/index.js';
 import { readDescriptives } from './descriptives/index.js';
-import { readFactorialCells } from './factorial/index.js';
+import { paragraphsOf, readFactorialCells } from './factorial/index.js';
+import { readComparisons } from './comparisons/readComparisons.js';
 import type { ReportedNumber, ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
@@ -256,6 +257,10 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     if (link === null) return;
     results[index]!.factorial = link;
     delete results[index]!.descriptives;
+  });
+  // Pairwise comparisons after an ANOVA, linked to its groups and error term (needs the links above).
+  readComparisons(document.text, results, paragraphsOf(document.text)).forEach((link, index) => {
+    if (link !== null) results[index]!.postHoc = link;
   });
   return {
     results,

@@ -153,6 +153,33 @@ export interface ReportedResult {
    * document prints them (scan/factorial).
    */
   factorial?: FactorialLink;
+  /**
+   * For a t written as a pairwise comparison after an ANOVA ("Bonferroni:
+   * vocal (M = 78.92) vs none (M = 70.21), t(114) = 4.28"), the ANOVA's
+   * groups and error mean square it is computed from (scan/comparisons).
+   */
+  postHoc?: PostHocLink;
+}
+
+/** A pairwise comparison's family: the groups of the ANOVA before it, its error term, and the adjustment stated. */
+export interface PostHocLink {
+  method: 'tukey' | 'bonferroni' | 'holm' | 'sidak' | 'scheffe' | 'lsd';
+  /** The words that state it ("Tukey's HSD", "Bonferroni-corrected"). */
+  methodText: string;
+  /** Every group of the family: a label, the range of its mean over the rounding of what is printed, and its n. */
+  groups: { label: string; mean: { low: number; high: number }; n: number }[];
+  /** Indices into `groups` of the two groups compared, in the order the text names them. */
+  first: number;
+  second: number;
+  /** The means as the comparison prints them. */
+  printedMeans: [ReportedNumber, ReportedNumber];
+  /** Range of the error mean square, pooled from the groups' (or cells') SDs, and its df. */
+  errorMeanSquare: { low: number; high: number };
+  errorDf: number;
+  /** The ANOVA whose groups these are, as printed ("F(2, 57) = 4.21"). */
+  family: string;
+  /** Sizes not printed but taken from elsewhere: how sure they are (caps the finding). */
+  sizesAssumed: boolean;
 }
 
 /** One cell of a factorial design as printed: its level of each factor, and its mean, SD and n. */

@@ -82,3 +82,44 @@ describe('plumbline scan: F tests against the factorial cell statistics printed 
     expect(interaction![0]!.message).toContain('types I, II and III give F(2, 99) = 6.');
   });
 });
+
+interface PostHocCase {
+  label: string;
+  means: number[];
+  sds: number[];
+  ns: number[];
+  errorMeanSquare: number;
+  errorDf: number;
+  pairs: Array<{ first: number; second: number; t: number; pTukey: number }>;
+}
+
+// SciPy 1.10.1 scipy.stats.tukey_hsd on simulated raw data, with the groups' means, SDs and ns
+// (tests/fixtures/stats/gen_post_hoc.py); the manuscript prints the groups to 2 decimals.
+describe('plumbline scan: pairwise comparisons after an ANOVA against its groups (post-hoc-comparison-mismatch)', () => {
+  const postHoc = loadFixture<{ cases: PostHocCase[] }>('stats/post_hoc.json').cases.find((c) => c.label === '3 groups, unequal n (Tukey-Kramer)')!;
+  const groupsText = postHoc.means.map((mean, g) => `group ${g + 1} (M = ${mean.toFixed(2)}, SD = ${postHoc.sds[g]!.toFixed(2)}, n = ${postHoc.ns[g]})`).join(', ');
+  const comparisons = (tOf: (t: number) => number): string =>
+    postHoc.pairs
+      .map((pair) => `Tukey's HSD: group ${pair.first + 1} (M = ${postHoc.means[pair.first]!.toFixed(2)}) against group ${pair.second + 1} (M = ${postHoc.means[pair.second]!.toFixed(2)}), t(${postHoc.errorDf}) = ${tOf(pair.t).toFixed(2)}, ${printedP(pair.pTukey)}.`)
+      .join('\n');
+  const document = (tOf: (t: number) => number): string => `Scores of ${groupsText} differed, F(2, ${postHoc.errorDf}) = 6.00, p = .004.\n\n${comparisons(tOf)}\n`;
+  const findingsOf = (report: ScanJson): Finding[][] => report.documents[0]!.statistics.slice(1).map((s) => s.findings.filter((f) => f.rule === 'post-hoc-comparison-mismatch'));
+
+  it('clean: every Tukey-Kramer comparison follows from the groups', () => {
+    const { report } = scan(write('post-hoc-clean.txt', document((t) => t)));
+    expect(findingsOf(report)).toEqual([[], [], []]);
+  });
+
+  it('a t typed 20% too large is flagged as a fail, exit 1', () => {
+    const { status, report } = scan(write('post-hoc-slip.txt', document((t) => t * 1.2)));
+    expect(status).toBe(1);
+    const findings = findingsOf(report);
+    // Pairs with |t| of 1 or more (below it the rounding of the means hides 20%).
+    postHoc.pairs.forEach((pair, index) => {
+      if (Math.abs(pair.t) < 1) return;
+      expect(findings[index]).toHaveLength(1);
+      expect(findings[index]![0]).toMatchObject({ severity: 'fail', messageId: 'mismatch' });
+      expect(findings[index]![0]!.message).toContain('a Tukey (Tukey-Kramer) comparison of group');
+    });
+  });
+});
