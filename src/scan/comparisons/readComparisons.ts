@@ -8,12 +8,12 @@
  *
  * A written t is such a comparison when the words since the previous
  * result (within its sentence) print exactly two means ("M = 78.87"), an
- * adjustment method is named in its sentence, earlier in its paragraph or
- * in the paragraph before (Tukey's HSD or Tukey-Kramer, Bonferroni, Holm,
- * Šidák, Scheffé, Fisher's LSD), and the F test before it (in its
- * paragraph or the one or two before) is linked to its groups: a one-way
- * set of means, SDs and ns (scan/descriptives), or the main effect of a
- * factor of a factorial design (scan/factorial), whose groups are then the
+ * adjustment method is named between the ANOVA and the comparison (Tukey's
+ * HSD or Tukey-Kramer, Bonferroni, Holm, Šidák, Scheffé, Fisher's LSD),
+ * and the last F test before it (within LOOK_BACK characters) whose groups
+ * the document prints is its ANOVA: a one-way set of means, SDs and ns
+ * (scan/descriptives), or the main effect of a factor of a factorial
+ * design (scan/factorial), whose groups are then the
  * factor's levels with their n-weighted (observed) marginal means. Each
  * printed mean must fall within the rounding of exactly one group's, and
  * the t's df must be the family's error df (N - k, or N - cells): a t on
@@ -147,7 +147,7 @@ function describeF(result: ReportedResult): string {
 
 /** For each result (same order), its link as a pairwise comparison, or null. */
 export function readComparisons(text: string, results: readonly ReportedResult[], paragraphs: readonly Paragraph[]): (PostHocLink | null)[] {
-  let family: { result: ReportedResult; family: Family; paragraph: number } | null = null;
+  let family: { result: ReportedResult; family: Family } | null = null;
   let previousEnd = -1;
   return results.map((result): PostHocLink | null => {
     const before = previousEnd;
@@ -155,11 +155,12 @@ export function readComparisons(text: string, results: readonly ReportedResult[]
     const paragraph = paragraphOf(paragraphs, result.start);
     if (result.kind === 'F') {
       const found = result.descriptives ? oneWayFamily(result.descriptives) : result.factorial ? marginalFamily(result.factorial) : null;
-      if (found !== null) family = { result, family: found, paragraph };
+      if (found !== null) family = { result, family: found };
       return null;
     }
     if (result.kind !== 't' || result.tableRow !== undefined || result.value === null || result.valueComparator !== '=' || result.df.length !== 1) return null;
-    if (family === null || paragraph - family.paragraph > 2) return null;
+    // The ANOVA within LOOK_BACK characters before (however many paragraphs a reader made of the lines between).
+    if (family === null || result.start - family.result.end > LOOK_BACK) return null;
     const df = result.df[0]!;
     if (df.decimals !== 0 || df.value !== family.family.errorDf) return null;
     const paragraphStart = paragraphs[paragraph]!.start;
@@ -172,8 +173,8 @@ export function readComparisons(text: string, results: readonly ReportedResult[]
       if (parsed !== null) means.push(parsed);
     }
     if (means.length !== 2) return null;
-    // The method: in the sentence, else earlier in the paragraph or in the one before (bounded).
-    const lookFrom = Math.max(paragraph > 0 ? paragraphs[paragraph - 1]!.start : 0, result.start - LOOK_BACK, family.result.start);
+    // The method: named last between the ANOVA and the comparison (bounded).
+    const lookFrom = Math.max(result.start - LOOK_BACK, family.result.start);
     const method = lastMethod(text.slice(lookFrom, result.start));
     if (method === null) return null;
     const first = groupOfMean(family.family, means[0]!);

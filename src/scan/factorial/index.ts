@@ -29,6 +29,25 @@ export function paragraphsOf(text: string): Paragraph[] {
   return paragraphs;
 }
 
+/** Characters looked back from a table without a caption for the caption line a reader left in the text. */
+const CAPTION_LOOK_BACK = 300;
+
+/**
+ * The caption of a marked-up table whose reader kept none ("Table 1
+ * Seedling height ..." left in the text just above it): the last two
+ * non-blank lines before the table, when one starts with "Table N".
+ */
+function captionAbove(text: string, start: number): string | null {
+  const lines = text
+    .slice(Math.max(0, start - CAPTION_LOOK_BACK), start)
+    .split('\n')
+    .map((line) => line.trim())
+    .filter((line) => line !== '')
+    .slice(-2);
+  const first = lines.findIndex((line) => /^Table\s[A-Z]?\d{1,3}[A-Za-z]?\b/.test(line));
+  return first < 0 ? null : lines.slice(first).join(' ');
+}
+
 export interface FactorialReading {
   /** Every set of cell statistics found, in document order. */
   sets: FactorialCellSet[];
@@ -45,7 +64,8 @@ export function readFactorialCells(text: string, tables: readonly DocumentTable[
   const paragraphs = paragraphsOf(text);
   const sets: FactorialCellSet[] = [];
   tables.forEach((table, index) => {
-    const set = readCellTable(table, index);
+    const caption = table.caption ?? captionAbove(text, table.start);
+    const set = readCellTable(caption === table.caption ? table : { ...table, caption }, index);
     if (set !== null) sets.push(set);
   });
   sets.push(...readCellText(text, readTextGroups(text), paragraphs));

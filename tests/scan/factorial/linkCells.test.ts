@@ -69,4 +69,16 @@ describe('F tests linked to the cells of their design', () => {
     const silent = `${cellTable}\n\n${second}\n\nThe age × load interaction was not significant, F(1, 76) = 0.70, p = .404.\n`;
     expect(links(silent)).toEqual(['F(1, 76) = 0.70, p = .404 -> -']);
   });
+
+  it('a marked-up table without a caption takes the "Table 1" line a reader left just above it in the text', () => {
+    const tableText = 'Age group | Low load | High load\nYounger | 4.21 (1.10) | 3.80 (1.25)\nOlder | 3.95 (1.02) | 3.10 (1.30)';
+    const before = 'Table 1 Recall, M (SD); n = 20 per cell\n\n';
+    const after = '\n\nIn Table 1, the age × load interaction was not significant, F(1, 76) = 0.70, p = .404.\n';
+    const text = before + tableText + after;
+    const rows = tableText.split('\n').map((line) => line.split(' | '));
+    const table = { start: before.length, end: before.length + tableText.length, caption: null, notes: ['n = 20 per cell'], rows, headerRows: 1, layout: 'markup' as const };
+    const [result] = scanDocument({ text, tables: [table], regions: [] }).results;
+    expect(result!.factorial?.set.tableNumber).toBe('1');
+    expect(result!.factorial?.term).toEqual([0, 1]);
+  });
 });
