@@ -269,6 +269,8 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     cellSets: factorial.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
     tablesNotRead: [...tables.unread, ...findUnrecognisedTables(document.text, handledTables(allTables, tables), written.results)]
       .filter((table) => !inRegion(table.start, document.regions, 'references'))
+      // A table read as a factorial design's cell statistics was read.
+      .filter((table) => !factorial.sets.some((set) => set.source === 'table' && set.start < table.end && table.start < set.end))
       .sort((a, b) => a.start - b.start),
   };
 }

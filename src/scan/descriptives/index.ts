@@ -115,7 +115,8 @@ function sentenceStart(text: string, offset: number, floor: number): number {
   return lowest;
 }
 
-function integerStatements(text: string, from: number, to: number): IntegerScaleStatement[] {
+/** Statements in [from, to) that a measure is whole-number ("on a single 7-point item", "number of errors"). */
+export function integerStatements(text: string, from: number, to: number): IntegerScaleStatement[] {
   const scope = text.slice(from, to);
   const statements: IntegerScaleStatement[] = [];
   const items = ITEM_COUNT.exec(scope);
@@ -362,18 +363,25 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
   });
 
   // Unlinked descriptive statistics are reported too (one set per paragraph, one per table measure).
-  for (const [, groups] of groupsByParagraph) {
+  for (const [index, groups] of groupsByParagraph) {
     const unused = groups.filter((group) => !usedGroups.has(group));
     if (unused.length === 0) continue;
-    sets.push({
+    const start = paragraphs.starts[index]!;
+    const end = paragraphs.ends[index] ?? text.length;
+    const set: DescriptiveSet = {
       source: 'text',
       groups: fromText(unused),
       measure: '',
       tableIndex: null,
       start: unused[0]!.start,
       end: unused[unused.length - 1]!.end,
-      integerScale: null,
-    });
+      // What the paragraph says of the measure (GRIM on statistics no test is linked to needs it).
+      integerScale: paragraphStatements(index, start, end)[0] ?? null,
+    };
+    // Sizes from a per-group statement of the paragraph, as for linked groups.
+    const local = perGroupByParagraph.get(index) ?? [];
+    if (local.length > 0) for (const group of set.groups) if (group.n === null) Object.assign(group, { n: local[local.length - 1]!.n, nSource: 'paragraph' });
+    sets.push(set);
   }
   // Which table measures are already linked, looked up by table and measure rather than by walking every set.
   const tableMeasureKey = (tableIndex: number, measure: string): string => `${tableIndex}|${measure}`;

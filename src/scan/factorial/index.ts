@@ -8,6 +8,7 @@
 import type { DocumentTable } from '../../documents/types.js';
 import type { FactorialCellSet, FactorialLink, ReportedResult } from '../types.js';
 import { readTextGroups } from '../descriptives/readTextDescriptives.js';
+import { integerStatements } from '../descriptives/index.js';
 import { readCellTable } from './readCellTable.js';
 import { readCellText } from './readCellText.js';
 import { linkCellSets, type Paragraph } from './linkCells.js';
@@ -66,9 +67,16 @@ export function readFactorialCells(text: string, tables: readonly DocumentTable[
   tables.forEach((table, index) => {
     const caption = table.caption ?? captionAbove(text, table.start);
     const set = readCellTable(caption === table.caption ? table : { ...table, caption }, index);
-    if (set !== null) sets.push(set);
+    if (set === null) return;
+    // A whole-number outcome stated in the caption, notes or header rows (offsets: the table's).
+    const scope = [caption ?? '', ...table.notes, ...table.rows.slice(0, 3).flat()].join('\n');
+    const statement = integerStatements(scope, 0, scope.length)[0];
+    sets.push(statement === undefined ? set : { ...set, integerScale: { ...statement, start: table.start, end: table.end } });
   });
-  sets.push(...readCellText(text, readTextGroups(text), paragraphs));
+  for (const set of readCellText(text, readTextGroups(text), paragraphs)) {
+    const paragraph = paragraphs.find((candidate) => candidate.start <= set.start && set.start <= candidate.end)!;
+    sets.push({ ...set, integerScale: integerStatements(text, paragraph.start, paragraph.end)[0] ?? null });
+  }
   sets.sort((a, b) => a.start - b.start);
   return { sets, links: linkCellSets(text, sets, results, paragraphs) };
 }
