@@ -214,6 +214,22 @@ export function linkCellSets(text: string, sets: readonly FactorialCellSet[], re
   const usable = sets.filter((set) => !GUARD.test(set.measure));
   const wordsOfSet = new Map(usable.map((set) => [set, measureWords(set)]));
   const guardOfParagraph = new Map<number, boolean>();
+  const referencesOfParagraph = new Map<number, string[]>();
+  const paragraphReferences = (index: number): string[] => {
+    let references = referencesOfParagraph.get(index);
+    if (references === undefined) referencesOfParagraph.set(index, (references = tableReferences(text.slice(paragraphs[index]!.start, paragraphs[index]!.end))));
+    return references;
+  };
+  const speaking = new Map<string, boolean>();
+  const paragraphSpeaksOf = (index: number, set: FactorialCellSet): boolean => {
+    const key = `${index}|${usable.indexOf(set)}`;
+    let speaks = speaking.get(key);
+    if (speaks === undefined) {
+      const lower = text.slice(paragraphs[index]!.start, paragraphs[index]!.end).toLowerCase();
+      speaking.set(key, (speaks = (wordsOfSet.get(set) ?? []).some((word) => new RegExp(`\\b${word}`).test(lower))));
+    }
+    return speaks;
+  };
   let previousWrittenEnd = -1;
   const covered = new Map<FactorialCellSet, Set<number>>();
   const links = results.map((result): FactorialLink | null => {
@@ -231,13 +247,16 @@ export function linkCellSets(text: string, sets: readonly FactorialCellSet[], re
       result.tableRow !== undefined ? result.tableRow.rowLabel : text.slice(Math.max(sentenceFrom, previousEnd >= paragraph.start ? previousEnd : -1), result.start);
     const sentence = text.slice(sentenceFrom, result.end);
     // A table row's paragraph is its table's; the caption (often apart from the rows) says what was measured.
-    const paragraphText = `${result.tableRow?.caption ?? ''}\n${text.slice(paragraph.start, paragraph.end)}`;
+    // What a paragraph holds is read once per paragraph (PDF text may be one long paragraph): the work stays linear.
+    const caption = result.tableRow?.caption ?? '';
     const inSentence = tableReferences(sentence);
-    const inParagraph = tableReferences(paragraphText);
-    // Tables the paragraph before refers to (a test continuing the previous paragraph's analysis); read only when needed.
-    let before: string[] | undefined;
-    const referencesBefore = (): string[] =>
-      (before ??= p > 0 && result.tableRow === undefined ? tableReferences(text.slice(paragraphs[p - 1]!.start, paragraphs[p - 1]!.end)) : []);
+    const inParagraph = [...tableReferences(caption), ...paragraphReferences(p)];
+    const referencesBefore = (): string[] => (p > 0 && result.tableRow === undefined ? paragraphReferences(p - 1) : []);
+    const speaksOf = (set: FactorialCellSet): boolean => {
+      const words = wordsOfSet.get(set) ?? [];
+      const lowerCaption = caption.toLowerCase();
+      return words.some((word) => new RegExp(`\\b${word}`).test(lowerCaption)) || paragraphSpeaksOf(p, set);
+    };
     const candidates: Candidate[] = [];
     for (const set of usable) {
       if (set.start >= result.start && set.source === 'text') continue;
@@ -251,11 +270,8 @@ export function linkCellSets(text: string, sets: readonly FactorialCellSet[], re
       else if (set.source === 'text' && set.start >= paragraph.start) score = 2;
       else if (set.source === 'text' && p > 0 && set.start >= paragraphs[p - 1]!.start) score = 1;
       else if (set.tableNumber !== null && referencesBefore().includes(set.tableNumber)) score = 1;
-      else {
-        // Anywhere else: only when the paragraph speaks of what the set measured.
-        const lower = paragraphText.toLowerCase();
-        if (!(wordsOfSet.get(set) ?? []).some((word) => new RegExp(`\\b${word}`).test(lower))) continue;
-      }
+      // Anywhere else: only when the paragraph (or a row's caption) speaks of what the set measured.
+      else if (!speaksOf(set)) continue;
       const covers = result.tableRow !== undefined ? term : term.filter((f) => namedByName(label, set, f) || namedByLevel(label, set, f));
       candidates.push({ set, term, covers, assumedN: sizes.assumedN, score });
     }
