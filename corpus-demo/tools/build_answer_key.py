@@ -110,6 +110,17 @@ FINDINGS = [
      "17 hikers in each of two groups give df = 32, not 36 (t = 2.20 itself follows from the groups)"),
     ("lichen-trail-signage.md", "F(2, 42) = 2.10, p = .135", "group-statistics-test-mismatch", "fail", True,
      "means 6.8, 7.9, 9.6 (SDs 2.1, 2.4, 2.2), n = 15 each, give F(2, 42) = 5.97, p = .005; 2.10 does not follow"),
+    # harbour-choir-warmups.md (a 2 x 3 between-subjects design, cell n, M, SD in Table 1; tools/factorial_values.py)
+    ("harbour-choir-warmups.md", "F(1, 114) = 6.86, p = .010, ηp² = .57", "partial-eta-squared-mismatch", "fail", False,
+     "partial eta squared written as .57 for .057 (decimal slip); F(1, 114) = 6.86 gives .057"),
+    ("harbour-choir-warmups.md", "F(1, 114) = 6.86, p = .010, ηp² = .57", "cell-statistics-test-mismatch", "fail", False,
+     "the same slip seen from the cells: type III gives F = 6.86 and partial eta squared .057; no type gives .57"),
+    ("harbour-choir-warmups.md", "F(2, 114) = 11.50, p < .001", "cell-statistics-test-mismatch", "note", False,
+     "correct, and only type III gives it (types I and II: 11.87), as the text says: the note names the type"),
+    ("harbour-choir-warmups.md", "F(2, 114) = 3.14, p = .047", "cell-statistics-test-mismatch", "fail", True,
+     "the interaction F and p agree with each other but not with the cells: every type gives F(2, 114) = 0.74, p = .481"),
+    ("harbour-choir-warmups.md", "t(114) = 2.93, p = .004", "post-hoc-comparison-mismatch", "fail", False,
+     "the unadjusted p printed under the Bonferroni heading: t(114) = 2.93 gives p = .004, Bonferroni (3 comparisons) .012"),
 ]
 
 DESCRIPTION = (

@@ -75,12 +75,15 @@ def built_from_sources(file):
 # Manuscripts whose planted findings concern group descriptive statistics (means, SDs, ns);
 # the parser above does not read those, so they are checked by check_descriptive_demo() below.
 DESCRIPTIVE_DEMOS = ("quiet-carrel-study-rooms.txt", "lichen-trail-signage.md")
+# Manuscripts whose F tests are checked against the factorial cell statistics printed with them
+# (check_factorial_demo() below, with statsmodels through factorial_values.py).
+FACTORIAL_DEMOS = ("harbour-choir-warmups.md",)
 
 
 def manuscripts():
     return sorted(f for f in os.listdir(CORPUS)
                   if f.endswith((".md", ".txt")) and f != "README.md" and not built_from_sources(f)
-                  and f not in DESCRIPTIVE_DEMOS)
+                  and f not in DESCRIPTIVE_DEMOS and f not in FACTORIAL_DEMOS)
 
 
 LABELLED_GROUP = re.compile(r"M = (-?\d*\.?\d+),\s+SD = (\d*\.?\d+),\s+n = (\d+)")
@@ -137,6 +140,62 @@ def check_descriptive_demo(file):
     return out
 
 
+CELL_ROW = re.compile(r"^\| ([A-Za-z][A-Za-z ]*)? ?\| ([A-Za-z][A-Za-z ]*) \| (\d+) \| (\d+\.\d+) \| (\d+\.\d+) \|$", re.M)
+
+
+def check_factorial_demo(file):
+    """Problems of each F of a factorial demo: its printed F, p and partial eta squared against the
+    ANOVA of the printed cells under types I-III (statsmodels, factorial_values.py); tags named like
+    the plumbline rules ('cell-statistics-test-mismatch' for a slip, 'cell-statistics-single-type'
+    for the note naming the one type that gives the F)."""
+    import factorial_values as fv
+    raw, text, results = parse(file)
+    cells, outer = {}, None
+    for m in CELL_ROW.finditer(text):
+        outer = m.group(1).strip() if m.group(1) else outer
+        cells[(outer, m.group(2).strip())] = (int(m.group(3)), m.group(4), m.group(5))
+    assert cells == fv.CELLS, f"{file}: the table's cells differ from factorial_values.CELLS"
+    tables, _, _ = fv.anova(cells)
+    comparisons, marginal = fv.warmup_comparisons(cells)
+    out = []
+    for res in results:
+        label = text[text.rfind(".", 0, res["start"]) + 1:res["start"]]
+        if res["kind"] == "t":
+            # A Bonferroni comparison of two warm-up levels, named by their printed marginal means.
+            printed = re.findall(r"M = (\d+\.\d+)", text[text.rfind("\n", 0, res["start"]):res["start"]])[-2:]
+            levels = [next(level for level, mean in marginal.items() if f"{mean:.2f}" == m) for m in printed]
+            pair = tuple(levels) if tuple(levels) in comparisons else tuple(reversed(levels))
+            t, df, p_unadjusted, p_bonferroni = comparisons[pair]
+            assert res["df"] == [df], f"{file}:{res['line']}: df"
+            assert abs(abs(t) - abs(float(res["value"]))) <= half(res["value"]) + 0.01, f"{file}:{res['line']}: t"
+            p_text = res["p"]["text"]
+            fits = (lambda p: p < float(p_text)) if res["p"]["cmp"] == "<" else (lambda p: abs(p - float(p_text)) <= half(p_text))
+            tags = set() if fits(p_bonferroni) else {"post-hoc-comparison-mismatch"}
+            assert fits(p_bonferroni) or fits(p_unadjusted), f"{file}:{res['line']}: p fits neither"
+            out.append((res, tags))
+            continue
+        effect = "Format x Warm-up" if "interaction" in label else "Format" if "of format" in label else "Warm-up"
+        printed = float(res["value"])
+        fs = [tables[typ][effect][2] for typ in (1, 2, 3)]
+        tags = set(issues(res, file_context(text), strict=True))
+        # A type gives the printed F when its F rounds to it; the types' Fs are either equal or clearly apart.
+        for a in fs:
+            for b in fs:
+                gap = abs(a - b) / a
+                assert gap < 0.002 or gap > 0.01, f"{file}:{res['line']}: the types' F too close to call"
+        fitting = [typ for typ, f in zip((1, 2, 3), fs) if abs(f - printed) <= half(res["value"]) + 0.002 * f]
+        off = min(abs(f - printed) / f for f in fs)
+        assert off < 0.01 or off > 0.2, f"{file}:{res['line']}: F {printed} too close to call"
+        etas = [e for name, e in res["effects"] if name == "ηp2"]
+        eta_fits = [typ for typ in fitting if not etas or abs(tables[typ][effect][4] - float(etas[0])) <= half(etas[0]) + 0.001]
+        if not eta_fits:
+            tags.add("cell-statistics-test-mismatch")
+        elif len(eta_fits) == 1 and len({round(f, 2) for f in fs}) > 1:
+            tags.add("cell-statistics-single-type")
+        out.append((res, tags))
+    return out
+
+
 def descriptive_demo_problems(findings):
     """Confirms the planted findings of the descriptive demos and counts their correct results."""
     planted = {}
@@ -144,13 +203,18 @@ def descriptive_demo_problems(findings):
         if f["file"] in DESCRIPTIVE_DEMOS:
             planted.setdefault((f["file"], f["line"]), set()).add(f["rule"])
     correct, bad = 0, []
-    for file in DESCRIPTIVE_DEMOS:
-        for res, tags in check_descriptive_demo(file):
-            expected = planted.pop((file, res["line"]), set())
-            if tags != expected:
-                bad.append(f"{file}:{res['line']}: found {sorted(tags)}, expected {sorted(expected)}")
-            elif not tags:
-                correct += 1
+    for f in findings:
+        if f["file"] in FACTORIAL_DEMOS:
+            rule = "cell-statistics-single-type" if f["rule"] == "cell-statistics-test-mismatch" and f["severity"] == "note" else f["rule"]
+            planted.setdefault((f["file"], f["line"]), set()).add(rule)
+    checked = [(file, entry) for file in DESCRIPTIVE_DEMOS for entry in check_descriptive_demo(file)]
+    checked += [(file, entry) for file in FACTORIAL_DEMOS for entry in check_factorial_demo(file)]
+    for file, (res, tags) in checked:
+        expected = planted.pop((file, res["line"]), set())
+        if tags != expected:
+            bad.append(f"{file}:{res['line']}: found {sorted(tags)}, expected {sorted(expected)}")
+        elif not tags:
+            correct += 1
     bad += [f"{file}:{line}: planted finding on a line without a result" for file, line in planted]
     return correct, bad
 
@@ -481,8 +545,8 @@ def main():
     for f in key["findings"]:
         if built_from_sources(f["file"]):
             continue  # verified by sources/values.py
-        if f["file"] in DESCRIPTIVE_DEMOS:
-            continue  # verified by check_descriptive_demo()
+        if f["file"] in DESCRIPTIVE_DEMOS or f["file"] in FACTORIAL_DEMOS:
+            continue  # verified by check_descriptive_demo() and check_factorial_demo()
         on_line = [r for r in PARSED[f["file"]] if r["line"] == f["line"]]
         try:
             assert len(on_line) == 1, f"{len(on_line)} results start on this line"

@@ -4,7 +4,8 @@ import { withDocumentDf } from './documentDf.js';
 import { DocumentIndex } from './documentIndex.js';
 import { fillTemplate } from './format.js';
 import { recompute, type Recomputation } from './recompute.js';
-import type { Finding, Severity } from './types.js';
+import type { Finding, HostedSets, Severity } from './types.js';
+import { partitionPoint } from '../sortedSearch.js';
 
 export interface CheckedResult {
   /** The result as checked: as scanned, with df the document gives filled in (dfFrom says so). */
@@ -37,6 +38,7 @@ export function checkResults(
   const alpha = scan.context.alpha?.value ?? config.defaultAlpha;
   // Built once: rules look up the other results here instead of walking them for every result.
   const documentIndex = indexDocument(text, scan.context, results);
+  const hosted = hostSets(scan, results);
   return results.map((result, index) => {
     const findings: Finding[] = [];
     for (const rule of config.rules) {
@@ -48,6 +50,7 @@ export function checkResults(
         recomputations,
         index,
         documentIndex,
+        ...(hosted.has(index) ? { hostedSets: hosted.get(index)! } : {}),
         alpha,
         options: rule.options,
       });
@@ -69,4 +72,33 @@ export function checkResults(
     }
     return { result, recomputation: recomputations[index]!, findings };
   });
+}
+
+/**
+ * Which result hosts each set of printed statistics that no result's own
+ * link brings to the checks (see CheckContext.hostedSets): group
+ * statistics linked to no test, at the first result after them (else the
+ * last); factorial cell sets, at their first linked F (else as above).
+ * Results are in document order, so each set is placed by binary search.
+ */
+function hostSets(scan: ScanOutput, results: readonly ReportedResult[]): Map<number, HostedSets> {
+  const hosted = new Map<number, HostedSets>();
+  if (results.length === 0) return hosted;
+  const after = (offset: number): number => {
+    const index = partitionPoint(results.length, (i) => results[i]!.start < offset);
+    return index < results.length ? index : results.length - 1;
+  };
+  const entry = (index: number): HostedSets => {
+    let sets = hosted.get(index);
+    if (sets === undefined) hosted.set(index, (sets = { descriptives: [], cells: [] }));
+    return sets;
+  };
+  const linkedDescriptives = new Set(results.map((result) => result.descriptives).filter((set) => set !== undefined));
+  for (const set of scan.descriptives ?? []) if (!linkedDescriptives.has(set)) entry(after(set.end)).descriptives.push(set);
+  const firstLinked = new Map<unknown, number>();
+  results.forEach((result, index) => {
+    if (result.factorial && !firstLinked.has(result.factorial.set)) firstLinked.set(result.factorial.set, index);
+  });
+  for (const set of scan.cellSets ?? []) entry(firstLinked.get(set) ?? after(set.end)).cells.push(set);
+  return hosted;
 }

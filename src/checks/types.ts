@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { DocumentContext, ReportedResult, StatisticKind } from '../scan/types.js';
+import type { DescriptiveSet, DocumentContext, FactorialCellSet, ReportedResult, StatisticKind } from '../scan/types.js';
 import type { Recomputation } from './recompute.js';
 import type { DocumentIndex } from './documentIndex.js';
 import type { PDiscrepancy } from './pDiscrepancy.js';
@@ -70,9 +70,23 @@ export interface CheckContext<Options> {
    * each result, so checking stays linear in the number of results.
    */
   documentIndex: DocumentIndex;
+  /**
+   * Sets of printed statistics that no check meets through a result's own
+   * link, handed to one result each so that checks of the numbers
+   * themselves (GRIM) see them once: group statistics linked to no test,
+   * and every factorial cell set (at its first linked F, else at the first
+   * result after it, else the last result). Absent when there are none.
+   */
+  hostedSets?: HostedSets;
   /** Significance level in force: the document's declared alpha, else the configured default. */
   alpha: number;
   options: Options;
+}
+
+/** The sets of printed statistics a result hosts (CheckContext.hostedSets). */
+export interface HostedSets {
+  descriptives: DescriptiveSet[];
+  cells: FactorialCellSet[];
 }
 
 /**

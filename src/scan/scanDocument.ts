@@ -2,6 +2,8 @@ import type { DocumentTable, Region } from '../documents/types.js';
 import { scanText } from './scan.js';
 import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion, type UnreadTable } from './tables/index.js';
 import { readDescriptives } from './descriptives/index.js';
+import { paragraphsOf, readFactorialCells } from './factorial/index.js';
+import { readComparisons } from './comparisons/readComparisons.js';
 import type { ReportedNumber, ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
@@ -248,12 +250,27 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
   descriptives.links.forEach((set, index) => {
     if (set !== null) results[index]!.descriptives = set;
   });
+  // Cell statistics of factorial designs, linked to the F tests of their effects; such an F is no one-way test of groups.
+  const distinct = distinctTables(allTables);
+  const factorial = readFactorialCells(document.text, distinct, results);
+  factorial.links.forEach((link, index) => {
+    if (link === null) return;
+    results[index]!.factorial = link;
+    delete results[index]!.descriptives;
+  });
+  // Pairwise comparisons after an ANOVA, linked to its groups and error term (needs the links above).
+  readComparisons(document.text, results, paragraphsOf(document.text)).forEach((link, index) => {
+    if (link !== null) results[index]!.postHoc = link;
+  });
   return {
     results,
     context: written.context,
     descriptives: descriptives.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
+    cellSets: factorial.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
     tablesNotRead: [...tables.unread, ...findUnrecognisedTables(document.text, handledTables(allTables, tables), written.results)]
       .filter((table) => !inRegion(table.start, document.regions, 'references'))
+      // A table read as a factorial design's cell statistics was read.
+      .filter((table) => !factorial.sets.some((set) => set.source === 'table' && set.start < table.end && table.start < set.end))
       .sort((a, b) => a.start - b.start),
   };
 }

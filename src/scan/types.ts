@@ -147,6 +147,84 @@ export interface ReportedResult {
    * the paragraph refers to) for the groups the test compares.
    */
   descriptives?: DescriptiveSet;
+  /**
+   * The cell statistics of a factorial between-subjects design that this F
+   * tests an effect of (its factors named in the result's label), when the
+   * document prints them (scan/factorial).
+   */
+  factorial?: FactorialLink;
+  /**
+   * For a t written as a pairwise comparison after an ANOVA ("Bonferroni:
+   * vocal (M = 78.92) vs none (M = 70.21), t(114) = 4.28"), the ANOVA's
+   * groups and error mean square it is computed from (scan/comparisons).
+   */
+  postHoc?: PostHocLink;
+}
+
+/** A pairwise comparison's family: the groups of the ANOVA before it, its error term, and the adjustment stated. */
+export interface PostHocLink {
+  method: 'tukey' | 'bonferroni' | 'holm' | 'sidak' | 'scheffe' | 'lsd';
+  /** The words that state it ("Tukey's HSD", "Bonferroni-corrected"). */
+  methodText: string;
+  /** Every group of the family: a label, the range of its mean over the rounding of what is printed, and its n. */
+  groups: { label: string; mean: { low: number; high: number }; n: number }[];
+  /** Indices into `groups` of the two groups compared, in the order the text names them. */
+  first: number;
+  second: number;
+  /** The means as the comparison prints them. */
+  printedMeans: [ReportedNumber, ReportedNumber];
+  /** Range of the error mean square, pooled from the groups' (or cells') SDs, and its df. */
+  errorMeanSquare: { low: number; high: number };
+  errorDf: number;
+  /** The ANOVA whose groups these are, as printed ("F(2, 57) = 4.21"). */
+  family: string;
+  /** Sizes not printed but taken from elsewhere: how sure they are (caps the finding). */
+  sizesAssumed: boolean;
+}
+
+/** One cell of a factorial design as printed: its level of each factor, and its mean, SD and n. */
+export interface CellDescriptives {
+  /** The cell's level of each factor, in the set's factor order, as written. */
+  levels: string[];
+  mean: ReportedNumber;
+  sd: ReportedNumber;
+  /** null when the document prints no n for the cell. */
+  n: number | null;
+  start: number;
+  end: number;
+}
+
+/** The printed cell statistics of a two- or three-factor between-subjects design (one outcome). */
+export interface FactorialCellSet {
+  source: 'table' | 'text';
+  /** Each factor's name as printed (a header, a design statement, a word all its levels share), or null. */
+  factors: (string | null)[];
+  /** Each factor's levels, in order of first appearance. */
+  levels: string[][];
+  cells: CellDescriptives[];
+  /** Where the ns come from: printed with each cell, a per-cell statement in the table's note or caption, or nowhere. */
+  nSource: 'cell' | 'statement' | null;
+  /** Words naming what was measured: the table's caption, or the sentence before the values. */
+  measure: string;
+  /** 0-based index of the table among the document's tables (source 'table'). */
+  tableIndex: number | null;
+  /** The table's number as its caption gives it ("Table 2" -> "2"). */
+  tableNumber: string | null;
+  start: number;
+  end: number;
+  /** The document's statement that the outcome is whole-number, when the table's caption or notes or the paragraph make one. */
+  integerScale: IntegerScaleStatement | null;
+}
+
+/** An F test linked to the cell statistics of the design it tests. */
+export interface FactorialLink {
+  set: FactorialCellSet;
+  /** The effect's factors, as indices into set.factors, ascending (one for a main effect). */
+  term: number[];
+  /** The words that named the effect ("Age × Load", "the interaction of age and load"). */
+  label: string;
+  /** Equal ns per cell worked out from the test's error df, when the set prints none. */
+  assumedN: number | null;
 }
 
 /** One group's descriptive statistics as reported. */
@@ -265,4 +343,6 @@ export interface ScanOutput {
   context: DocumentContext;
   /** Every set of group descriptive statistics found (linked or not to a result). */
   descriptives?: DescriptiveSet[];
+  /** Every set of factorial cell statistics found (linked or not to an F test). */
+  cellSets?: FactorialCellSet[];
 }

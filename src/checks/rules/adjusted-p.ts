@@ -30,6 +30,8 @@ export const adjustedP: CheckModule<z.infer<typeof optionsSchema>> = {
       '{printedP} is larger than the unadjusted p of {statistic} (p = {recomputedP}, {recomputedRange} allowing for rounding). The text says the p-values were adjusted ({method}: "{statement}"), and {why}, so it was not checked. {advice}',
   },
   run(result, context) {
+    // A comparison linked to its ANOVA's groups is recomputed, adjustment included, by post-hoc-comparison-mismatch.
+    if (result.postHoc) return [];
     const recomputation = context.recomputations[context.index];
     const range = recomputation?.pRange;
     if (!recomputation?.evaluable || !range) return [];

@@ -15,6 +15,8 @@ import { groupStatisticsTestMismatch } from './group-statistics-test-mismatch.js
 import { groupSizesDfMismatch } from './group-sizes-df-mismatch.js';
 import { integerDataGranularity } from './integer-data-granularity.js';
 import { rSquaredMismatch } from './r-squared-mismatch.js';
+import { cellStatisticsTestMismatch } from './cell-statistics-test-mismatch.js';
+import { postHocComparisonMismatch } from './post-hoc-comparison-mismatch.js';
 
 /** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
 export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
@@ -35,5 +37,7 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     groupStatisticsTestMismatch,
     groupSizesDfMismatch,
     integerDataGranularity,
+    cellStatisticsTestMismatch,
+    postHocComparisonMismatch,
   ].map((module) => [module.id, module]),
 );

@@ -6,7 +6,10 @@
  * previous test of the paragraph (or the paragraph's start) and the test
  * itself (or, when there are none, right after the test in the same
  * sentence), or to a descriptive table that its sentence or paragraph
- * names ("Table 1"). The number of groups must fit the test: two for an
+ * names ("Table 1"), or, for the first test of a paragraph, to the groups
+ * at the end of the paragraph before (after its last test) when the
+ * sentence leading to them and the test's sentence share a word naming
+ * the outcome. The number of groups must fit the test: two for an
  * independent t, k for an F(k - 1, df2). Tests whose paragraph speaks of
  * covariates, adjustment, paired, repeated or within-subject measures,
  * interactions or main effects, and every test of a document that declares
@@ -53,6 +56,25 @@ function tableReferences(scope: string): string[] {
   return [...scope.matchAll(TABLE_REFERENCE)].map((match) => match[1]!);
 }
 
+/** Words that say nothing of what was measured (a shared one does not make two sentences speak of one outcome). */
+const NOT_AN_OUTCOME = new Set([
+  'than', 'that', 'this', 'with', 'were', 'was', 'those', 'their', 'there', 'which', 'while', 'whereas', 'both', 'each', 'from',
+  'higher', 'lower', 'greater', 'smaller', 'more', 'less', 'fewer', 'group', 'groups', 'condition', 'conditions', 'participants',
+  'scores', 'score', 'mean', 'means', 'significant', 'significantly', 'difference', 'differences', 'differed', 'test', 'tests',
+  'confirmed', 'showed', 'found', 'between', 'compared', 'comparison', 'also', 'results', 'analysis', 'anova',
+]);
+
+/** Content words (four letters or more) of a stretch of text, lower case. */
+function contentWords(stretch: string): Set<string> {
+  return new Set((stretch.toLowerCase().match(/[a-z]{4,}/g) ?? []).filter((word) => !NOT_AN_OUTCOME.has(word)));
+}
+
+/** True when the words before the groups and the words before the test share a word naming what was measured. */
+function sameOutcome(measure: string, testSentence: string): boolean {
+  const test = contentWords(testSentence);
+  return [...contentWords(measure)].some((word) => test.has(word));
+}
+
 /** Most characters looked back from a result for its sentence's start. */
 const MAX_SENTENCE = 600;
 
@@ -93,7 +115,8 @@ function sentenceStart(text: string, offset: number, floor: number): number {
   return lowest;
 }
 
-function integerStatements(text: string, from: number, to: number): IntegerScaleStatement[] {
+/** Statements in [from, to) that a measure is whole-number ("on a single 7-point item", "number of errors"). */
+export function integerStatements(text: string, from: number, to: number): IntegerScaleStatement[] {
   const scope = text.slice(from, to);
   const statements: IntegerScaleStatement[] = [];
   const items = ITEM_COUNT.exec(scope);
@@ -293,6 +316,38 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
     } else {
       set = linkTable(text, result, required, descriptiveTables, paragraphStart, paragraphReferences(paragraph, paragraphStart, paragraphEnd));
     }
+    // The first test of a paragraph may test the groups of the paragraph before ("... (M = 4.25) ... (M = 3.52).\n\nA t test on
+    // comfort confirmed this, t(47) = 2.18"): those after that paragraph's last test, when as many as the test compares and
+    // the sentence before them and the test's sentence name the same outcome.
+    if (set === null && chosen.length === 0 && previousEnd < paragraphStart && paragraph > 0) {
+      const before = paragraph - 1;
+      const beforeStart = paragraphs.starts[before]!;
+      const beforeEnd = paragraphs.ends[before] ?? paragraphStart;
+      if (!paragraphGuarded(before, beforeStart, beforeEnd)) {
+        const groups = groupsWithin(groupsByParagraph.get(before) ?? [], Math.max(beforeStart, previousEnd), beforeEnd).filter((group) => !usedGroups.has(group));
+        const measureStart = groups.length > 0 ? sentenceStart(text, groups[0]!.start, beforeStart) : 0;
+        const measure = groups.length > 0 ? text.slice(measureStart, groups[0]!.start) : '';
+        const testSentence = text.slice(sentenceStart(text, result.start, paragraphStart), result.start);
+        if (groups.length === required && sameOutcome(measure, testSentence)) {
+          groups.forEach((group) => usedGroups.add(group));
+          const statements = paragraphStatements(before, beforeStart, beforeEnd);
+          set = {
+            source: 'text',
+            groups: fromText(groups),
+            measure: measure.trim().slice(0, 200),
+            tableIndex: null,
+            start: groups[0]!.start,
+            end: groups[groups.length - 1]!.end,
+            integerScale: statements[0] ?? null,
+          };
+          const local = perGroupByParagraph.get(before) ?? [];
+          if (local.length > 0) {
+            const n = local[local.length - 1]!.n;
+            for (const group of set.groups) if (group.n === null) Object.assign(group, { n, nSource: 'paragraph' });
+          }
+        }
+      }
+    }
     if (set === null) return null;
     // Sizes from a per-group statement elsewhere, when the test's df agree with it.
     if (set.groups.some((group) => group.n === null)) {
@@ -308,18 +363,25 @@ export function readDescriptives(text: string, tables: readonly DocumentTable[],
   });
 
   // Unlinked descriptive statistics are reported too (one set per paragraph, one per table measure).
-  for (const [, groups] of groupsByParagraph) {
+  for (const [index, groups] of groupsByParagraph) {
     const unused = groups.filter((group) => !usedGroups.has(group));
     if (unused.length === 0) continue;
-    sets.push({
+    const start = paragraphs.starts[index]!;
+    const end = paragraphs.ends[index] ?? text.length;
+    const set: DescriptiveSet = {
       source: 'text',
       groups: fromText(unused),
       measure: '',
       tableIndex: null,
       start: unused[0]!.start,
       end: unused[unused.length - 1]!.end,
-      integerScale: null,
-    });
+      // What the paragraph says of the measure (GRIM on statistics no test is linked to needs it).
+      integerScale: paragraphStatements(index, start, end)[0] ?? null,
+    };
+    // Sizes from a per-group statement of the paragraph, as for linked groups.
+    const local = perGroupByParagraph.get(index) ?? [];
+    if (local.length > 0) for (const group of set.groups) if (group.n === null) Object.assign(group, { n: local[local.length - 1]!.n, nSource: 'paragraph' });
+    sets.push(set);
   }
   // Which table measures are already linked, looked up by table and measure rather than by walking every set.
   const tableMeasureKey = (tableIndex: number, measure: string): string => `${tableIndex}|${measure}`;

@@ -59,3 +59,23 @@ describe(`${rule}: group sizes read elsewhere`, () => {
     expect(finding!.message).toContain('elsewhere in the document');
   });
 });
+
+// SciPy 1.10.1 scipy.stats.ttest_ind_from_stats(4.25, 1.11, 24, 3.52, 1.23, 25): Student's t(47) = 2.178 (first case above).
+describe(`${rule}: group statistics in the paragraph before the test`, () => {
+  const groups = 'Comfort ratings were higher in the warm room (M = 4.25, SD = 1.11, n = 24) than in the cool room (M = 3.52, SD = 1.23, n = 25).';
+  it('must pass: the t the groups give, in the next paragraph on the same outcome', () => {
+    const [only] = ruleFindings(rule, `${groups}\n\nAn independent-samples t test on the comfort ratings confirmed the difference, t(47) = 2.18, p = .034.`);
+    expect(only!.findings).toEqual([]);
+  });
+  it('must flag: a t the groups do not give, in the next paragraph on the same outcome', () => {
+    const [only] = ruleFindings(rule, `${groups}\n\nAn independent-samples t test on the comfort ratings confirmed the difference, t(47) = 3.18, p = .003.`);
+    expect(only!.findings).toHaveLength(1);
+    expect(only!.findings[0]!.message).toContain("Student's t = 2.18");
+  });
+  it('must pass: a test of another outcome, or after a test of its own in that paragraph, is not linked', () => {
+    const other = `${groups}\n\nReading speed did not differ between the rooms, t(47) = 3.18, p = .003.`;
+    expect(ruleFindings(rule, other)[0]!.findings).toEqual([]);
+    const owned = `${groups.slice(0, -1)}, t(47) = 2.18, p = .034.\n\nA second t test on the comfort ratings gave t(47) = 3.18, p = .003.`;
+    expect(ruleFindings(rule, owned).map((entry) => entry.findings)).toEqual([[], []]);
+  });
+});
