@@ -31,8 +31,7 @@ export function registerWebCommand(program: Command, io: CliIo): void {
         if ((error as NodeJS.ErrnoException).code === 'EACCES') throw new UsageError(`port ${port} may not be used by this user; choose one above 1023 with --port, or leave --port out`);
         throw error;
       }
-      io.stdout(`plumbline web: ${server.url}\n`);
-      io.stdout('The page checks manuscripts in your browser; nothing is sent anywhere. Stop with Ctrl+C.\n');
+      io.stdout(`plumbline web: ${server.url}\nThe page checks manuscripts in your browser; nothing is sent anywhere. Stop with Ctrl+C.\n`);
       if (options.open) openBrowser(server.url, io);
     });
 }

@@ -78,8 +78,9 @@ function verdictOf(statistic: StatisticOutput): Verdict {
   return best;
 }
 
+/** As the command line audits a file read by a reader (src/batch/auditFile.ts): the audit, with the format. */
 function audit(name: string, source: DocumentText): DocumentOutput {
-  return auditDocument(source, state.config, name);
+  return { ...auditDocument(source, state.config, name), format: source.format };
 }
 
 function setStatus(text: string): void {
