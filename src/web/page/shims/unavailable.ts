@@ -35,7 +35,8 @@ export const inflateRaw = unavailable('inflateRaw');
 export const crc32 = unavailable('crc32');
 export const createCipheriv = unavailable('createCipheriv');
 export const createDecipheriv = unavailable('createDecipheriv');
-export const fileURLToPath = unavailable('fileURLToPath');
+/** A path that names no file: the modules that find their files from it (the version, the catalogue) then fall back or are given what they need. */
+export const fileURLToPath = (): string => '/plumbline-page/module.js';
 export const promisify = unavailable('promisify');
 export const isUtf8 = (bytes: Uint8Array): boolean => {
   try {
