@@ -553,6 +553,7 @@ function start(): void {
   setUpRefitTab();
   renderAll();
   setStatus('Ready. Nothing you paste or drop leaves this page.');
+  document.body.dataset.readyAt = String(performance.now());
   document.body.dataset.ready = 'true';
 }
 

@@ -16,9 +16,7 @@
  * - Text and Markdown: UTF-8 (or UTF-16 with its byte-order mark), refused
  *   with the place of the first bad byte otherwise, as the command line does.
  */
-import * as pdfjs from 'pdfjs-dist';
-import { WorkerMessageHandler } from 'pdfjs-dist/build/pdf.worker.mjs';
-import mammoth from 'mammoth';
+import type { PDFDocumentProxy } from 'pdfjs-dist';
 import { formatByExtension, supportedExtensions, type DocumentFormat } from '../../documents/formats.js';
 import { htmlToDocument } from '../../documents/html.js';
 import { jatsToDocument } from '../../documents/jats.js';
@@ -32,8 +30,16 @@ import { defaultLimits, formatMb, MB } from '../../limits.js';
 
 export type PageReadOutcome = { ok: true; document: DocumentText } | { ok: false; path: string; format: string; error: string };
 
-// pdf.js runs on this thread: the page's policy allows no worker script, and a ~30-page PDF reads in about a second.
-(globalThis as unknown as { pdfjsWorker: unknown }).pdfjsWorker = { WorkerMessageHandler };
+/**
+ * pdf.js, set up on first use (its code is in the page, but run only when a PDF is read, so the page starts
+ * sooner). It runs on this thread: the page's policy allows no worker script, and a 30-page PDF reads in
+ * about a second (npm run bench -- web).
+ */
+async function loadPdfjs(): Promise<typeof import('pdfjs-dist')> {
+  const [pdfjs, worker] = await Promise.all([import('pdfjs-dist'), import('pdfjs-dist/build/pdf.worker.mjs')]);
+  (globalThis as unknown as { pdfjsWorker: unknown }).pdfjsWorker = { WorkerMessageHandler: worker.WorkerMessageHandler };
+  return pdfjs;
+}
 
 const NO_TEXT_LAYER = 'no text layer: the PDF seems to be scanned images; run OCR first';
 const ENCRYPTED = 'encrypted PDF: it needs a password to open; save a copy without a password (or print it to a new PDF) and read that';
@@ -128,8 +134,9 @@ async function readPdfInPage(name: string, bytes: Uint8Array): Promise<{ ok: tru
   if (!startsWithPdf(bytes)) return { ok: false, error: 'not a PDF: the file does not start like one' };
   if (!endsWithEofMarker(bytes)) return { ok: false, error: 'truncated PDF: the end-of-file marker is missing, so the file was cut short (an interrupted download or copy?)' };
   // No eval (the page's policy forbids it), no font loading, nothing fetched: only the text and its positions are wanted.
+  const pdfjs = await loadPdfjs();
   const task = pdfjs.getDocument({ data: new Uint8Array(bytes), isEvalSupported: false, disableFontFace: true, useSystemFonts: false, stopAtErrors: false, verbosity: 0 });
-  let document: pdfjs.PDFDocumentProxy;
+  let document: PDFDocumentProxy;
   try {
     document = await task.promise;
   } catch (error) {
@@ -162,6 +169,7 @@ async function readDocxInPage(name: string, bytes: Uint8Array): Promise<{ ok: tr
   const buffer = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;
   try {
     // Images are dropped by the HTML reader anyway: never inline them.
+    const mammoth = (await import('mammoth')).default;
     const convertImage = mammoth.images.imgElement(async () => ({ src: '' }));
     const converted = await mammoth.convertToHtml({ arrayBuffer: buffer }, { convertImage });
     return { ok: true, document: htmlToDocument(converted.value, name, 'docx') };
