@@ -269,8 +269,12 @@ describe.skipIf(!available)('web page in Chromium', () => {
       });
       expect(rows(csv).some((row) => row.verdict === 'fail')).toBe(true);
 
+      // The HTML report's policy hashes its fixed script and style: the page's SHA-256 must give Node's.
+      const cliHtml = plumbline(['scan', PDF, '--pdf-engine', 'pdf-parse', '--format', 'html', '--no-cache', '--fail-on', 'never'], demo);
+      const policyOf = (html: string) => /<meta http-equiv="Content-Security-Policy" content="([^"]+)">/.exec(html)?.[1];
+      expect(policyOf(cliHtml.stdout)).toMatch(/sha256-/);
       for (const [format, name, check] of [
-        ['html', 'plumbline-report.html', (text: string) => text.startsWith('<!DOCTYPE html>') && text.includes(PDF)],
+        ['html', 'plumbline-report.html', (text: string) => text.startsWith('<!DOCTYPE html>') && text.includes(PDF) && policyOf(text) === policyOf(cliHtml.stdout)],
         ['json', 'plumbline-report.json', (text: string) => (JSON.parse(text) as { documents: unknown[] }).documents.length === 2],
         ['md', 'plumbline-report.md', (text: string) => text.includes(DOCX)],
       ] as const) {
