@@ -75,6 +75,37 @@ describe('plumbline web (the server)', () => {
   });
 });
 
+describe('plumbline web without --no-open', () => {
+  it('where no browser opener is installed, prints the address and goes on serving', async () => {
+    const { spawn } = await import('node:child_process');
+    const { mkdtempSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    // A PATH with no xdg-open (nor anything else) on it.
+    const empty = mkdtempSync(join(tmpdir(), 'plumbline-no-opener-'));
+    const child = spawn(process.execPath, [join(process.cwd(), 'dist', 'src', 'cli', 'main.js'), 'web'], { env: { ...process.env, PATH: empty }, stdio: ['ignore', 'pipe', 'pipe'] });
+    try {
+      let out = '';
+      child.stdout.on('data', (chunk: Buffer) => (out += chunk.toString('utf8')));
+      await new Promise<void>((resolve, reject) => {
+        const timer = setTimeout(() => reject(new Error(`no message in 15 s: ${out}`)), 15_000);
+        child.stdout.on('data', () => {
+          if (out.includes('Could not open a browser')) {
+            clearTimeout(timer);
+            resolve();
+          }
+        });
+      });
+      if (process.platform === 'linux') expect(out).toContain('Could not open a browser (xdg-open is not installed)');
+      const url = /plumbline web: (\S+)/.exec(out)![1]!;
+      expect(out).toContain(`open ${url} yourself`);
+      expect(child.exitCode).toBeNull();
+      expect((await get(url)).status).toBe(200);
+    } finally {
+      child.kill('SIGTERM');
+    }
+  }, 30_000);
+});
+
 describe('plumbline web: bad options', () => {
   it('refuses a --port that is not a port, with exit code 2', () => {
     const run = plumbline(['web', '--no-open', '--port', '70000'], process.cwd());
