@@ -30,6 +30,7 @@ import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { plumbline, temporaryFolder } from '../batch/cli.js';
 import { startWeb, type RunningWeb } from '../web/startWeb.js';
+import { NO_RESULTS_MESSAGE } from '../../src/report/wording.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -475,6 +476,11 @@ describe.skipIf(!available)('web page in Chromium', () => {
     try {
       await drop(page, [PDF]);
       expect(await page.locator('#manuscript button.result.v-fail').count()).toBeGreaterThan(0);
+      // A text without results says so above it, as every report does.
+      await page.locator('#paste').fill('A paragraph that reports no test at all.');
+      await page.locator('#check-text').click();
+      expect(await page.locator('#manuscript-notes').textContent()).toBe(NO_RESULTS_MESSAGE);
+      expect(await page.locator('#manuscript-notes').isVisible()).toBe(true);
       await page.locator('#tab-refit').click();
       expect(await page.locator('#refit-unavailable').isVisible()).toBe(true);
       expect(await page.locator('#refit-run').isDisabled()).toBe(true);

@@ -145,11 +145,20 @@ function renderManuscript(): void {
   const current = state.documents[state.selectedDocument];
   const heading = byId('manuscript-heading');
   if (current === undefined) {
+    byId('manuscript-notes').hidden = true;
     heading.textContent = 'Manuscript';
     view.append(element('p', { class: 'empty' }, 'Paste text or choose files above; the manuscript appears here with every result marked.'));
     return;
   }
   heading.textContent = `Manuscript: ${current.name}`;
+  // What the audit could not do is said before the text: a document must not look cleaner than it was checked.
+  const notes = byId('manuscript-notes');
+  notes.replaceChildren(
+    ...(current.output.noResults ? [element('li', {}, current.output.noResults.message)] : []),
+    ...current.output.tablesNotRead.map((table) => element('li', {}, `Table not read in full (line ${table.location.line}): ${table.message}`)),
+    ...current.output.findings.map((finding) => element('li', {}, element('span', { class: `badge v-${finding.severity}` }, finding.severity), ` ${finding.rule}: ${finding.message}`)),
+  );
+  notes.hidden = notes.childElementCount === 0;
   if (current.source === null) {
     view.append(element('p', { class: 'unreadable' }, `${current.name} could not be read: ${current.output.error ?? 'no reason given'}`));
     return;
