@@ -24,6 +24,7 @@ import { registerMergeCommand } from './merge.js';
 import { registerScanCommand } from './scan.js';
 import { registerRefitCommand } from './refit.js';
 import { registerCellsCommand } from './cells.js';
+import { registerWebCommand } from './web.js';
 
 export { EXIT_CLEAN, EXIT_FLAGGED, EXIT_INPUT_ERROR, EXIT_INTERNAL_FAULT, UsageError, type CliIo } from './common.js';
 
@@ -116,6 +117,7 @@ export function buildProgram(io: CliIo, setExitCode: (code: number) => void): Co
   registerRulesCommand(program, io);
   registerRefitCommand(program, io, setExitCode);
   registerCellsCommand(program, io, setExitCode);
+  registerWebCommand(program, io);
   return program;
 }
 

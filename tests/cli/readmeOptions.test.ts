@@ -116,7 +116,7 @@ describe('the README and the commands\' --help agree on the options', () => {
   })();
 
   it('reads the lists it compares: every command, and options from each kind of list', () => {
-    expect(commands).toEqual(['check', 'scan', 'merge', 'rules', 'refit', 'cells']);
+    expect(commands).toEqual(['check', 'scan', 'merge', 'rules', 'refit', 'cells', 'web']);
     expect([...listed.keys()].sort()).toEqual([...commands].sort());
     expect(listed.get('check')).toContain('--fail-on'); // the table of check, scan and merge
     expect(listed.get('scan')).toContain('--pdf-engine'); // the table of scan alone
@@ -124,6 +124,7 @@ describe('the README and the commands\' --help agree on the options', () => {
     expect(listed.get('rules')).toContain('--format'); // the commands table
     expect(listed.get('refit')).toContain('--max-columns'); // the Refit section
     expect(listed.get('cells')).toContain('--cell-n'); // the table of cells alone
+    expect(listed.get('web')).toContain('--no-open'); // the commands table
   });
 
   it('parses a --help: its options, not the words of their descriptions', () => {
@@ -134,7 +135,7 @@ describe('the README and the commands\' --help agree on the options', () => {
     expect(new Set(options).size).toBe(options.length);
   });
 
-  for (const command of ['check', 'scan', 'merge', 'rules', 'refit', 'cells']) {
+  for (const command of ['check', 'scan', 'merge', 'rules', 'refit', 'cells', 'web']) {
     it(`${command}: every option the README lists exists, and every option it takes is in the README`, () => {
       const taken = new Set(helpOptions(helpOf([command])));
       const promised = listed.get(command) ?? new Set<string>();

@@ -10,6 +10,8 @@ const optionsSchema = z
   .object({
     declaredOneTailedSeverity: severitySchema.default('note'),
     statementDistance: z.number().int().nonnegative().default(2000),
+    /** The user's settings say t, z and r tests are one-tailed unless the text says otherwise (the web page's tails setting). */
+    oneTailedByDefault: z.boolean().default(false),
   })
   .strict();
 
@@ -25,6 +27,8 @@ export const halvedP: CheckModule<Options> = {
       '{printedP} is half the two-tailed p of {statistic} (p = {recomputedP}, {recomputedRange} allowing for rounding). One-tailed testing is not declared for this result; if it was intended, say so, otherwise report the two-tailed p.{alphaNote}',
     declared:
       '{printedP} is the one-tailed p of {statistic} (two-tailed p = {recomputedP}). The document declares one-tailed testing ("{statement}"), so this is consistent; make sure the direction was set in advance.',
+    byDefault:
+      '{printedP} is the one-tailed p of {statistic} (two-tailed p = {recomputedP}). The document does not declare one-tailed testing, but the settings take t, z and r tests as one-tailed by default, so this is consistent; make sure the manuscript says the tests were one-tailed and that the direction was set in advance.',
     upperTail:
       '{printedP} is half the p of {statistic} (p = {recomputedP}, {recomputedRange} allowing for rounding). {kind} tests have only an upper tail, so their p cannot be halved.{alphaNote}',
   },
@@ -60,6 +64,9 @@ export const halvedP: CheckModule<Options> = {
           crossesAlpha: false,
         },
       ];
+    }
+    if (context.options.oneTailedByDefault) {
+      return [{ messageId: 'byDefault', data, severity: context.options.declaredOneTailedSeverity, severityAtMost: 'warn', crossesAlpha: false }];
     }
     return [{ messageId: 'undeclared', data: { ...data, alphaNote }, crossesAlpha: crosses }];
   },
