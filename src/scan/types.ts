@@ -244,6 +244,12 @@ export interface SphericityStatement extends ContextStatement {
   method: 'greenhouse-geisser' | 'huynh-feldt' | 'unspecified';
 }
 
+/** A sphericity epsilon printed in the text ("Greenhouse-Geisser epsilon = .72"), read by src/scan/epsilon.ts. */
+export interface PrintedEpsilon extends ContextStatement {
+  value: ReportedNumber;
+  method: 'greenhouse-geisser' | 'huynh-feldt' | 'lower-bound' | 'unspecified';
+}
+
 /** What the document says once, read before the results are checked. */
 export interface DocumentContext {
   alpha: DeclaredAlpha | null;
@@ -258,6 +264,8 @@ export interface DocumentContext {
    * built by hand; statements next to a result are found by the checks.
    */
   pAdjustments?: PAdjustmentStatement[];
+  /** Sphericity epsilons printed in the text. Absent in contexts built by hand. */
+  epsilons?: PrintedEpsilon[];
 }
 
 export interface ScanOutput {
