@@ -11,6 +11,7 @@ import { pReportedAsZero } from './p-reported-as-zero.js';
 import { pValueMismatch } from './p-value-mismatch.js';
 import { sphericityCorrectedP } from './sphericity-corrected-p.js';
 import { epsilonDfMismatch } from './epsilon-df-mismatch.js';
+import { mseMismatch } from './mse-mismatch.js';
 import { tableArithmetic } from './table-arithmetic.js';
 import { groupStatisticsTestMismatch } from './group-statistics-test-mismatch.js';
 import { groupSizesDfMismatch } from './group-sizes-df-mismatch.js';
@@ -35,6 +36,7 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     dfExceedsSample,
     tableArithmetic,
     groupStatisticsTestMismatch,
+    mseMismatch,
     groupSizesDfMismatch,
     integerDataGranularity,
   ].map((module) => [module.id, module]),
