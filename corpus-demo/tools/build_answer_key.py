@@ -37,8 +37,10 @@ FINDINGS = [
     ("classroom-feedback.txt", "t(78) = 1.57, p = 1.20", "impossible-value", "fail", False,
      "p = 1.20 is impossible (decimal point slip for .120)"),
     # cueing-alerting-tones.md (Greenhouse-Geisser stated)
-    ("cueing-alerting-tones.md", "F(2, 58) = 3.40, p = .059", "sphericity-corrected-p", "note", True,
-     "Greenhouse-Geisser-corrected p (epsilon = .70, df 1.40, 40.60 give p = .059) reported with uncorrected df; p for df (2, 58) is .040"),
+    # The epsilon is printed beside the test, so epsilon-df-mismatch checks the p against it (sphericity-corrected-p
+    # would report it without an epsilon).
+    ("cueing-alerting-tones.md", "F(2, 58) = 3.40, p = .059", "epsilon-df-mismatch", "note", True,
+     "Greenhouse-Geisser-corrected p (epsilon = .70 printed beside it; df 1.40, 40.60 give p = .059) reported with uncorrected df; p for df (2, 58) is .040"),
     ("cueing-alerting-tones.md", "F(1, 29) = 5.60, p = .025, ηp² = .31", "partial-eta-squared-mismatch", "fail", False,
      "partial eta squared written as .31; F*df1/(F*df1+df2) = .16"),
     ("cueing-alerting-tones.md", "t(29) = 1.48, p = .015", "p-value-mismatch", "fail", True,

@@ -401,6 +401,7 @@ EXPECTED_TAGS = {
     "p-value-mismatch": {"p-value-mismatch"},
     "halved-p": {"p-value-mismatch"},
     "sphericity-corrected-p": {"p-value-mismatch"},
+    "epsilon-df-mismatch": {"p-value-mismatch"},
     "partial-eta-squared-mismatch": {"partial-eta-squared-mismatch"},
     "eta-squared-labelled-partial": {"eta-squared-labelled-partial"},
     "effect-size-interval-mismatch": {"effect-size-interval-mismatch"},
@@ -442,6 +443,17 @@ def rule_specific(f, res, ctx, text):
                   if val - h <= cv.p_F(v, df1 * e / 100, df2 * e / 100) <= val + h]
         assert eps_ok, "no epsilon gives the reported p"
         notes.append(f"uncorrected p {hi:.4f}; epsilon {min(eps_ok):.2f}-{max(eps_ok):.2f} gives {p['text']}")
+    elif rule == "epsilon-df-mismatch":
+        val, h = float(p["text"]), half(p["text"])
+        assert val > hi, "reported p should exceed the uncorrected p"
+        df1, df2 = res["df"]
+        line = text.splitlines()[f["line"] - 1]
+        eps = re.search(r"\u03b5 = (\.\d+)", line)
+        assert eps, "no epsilon printed on the line"
+        e = float(eps.group(1))
+        corrected = [cv.p_F(v, df1 * x, df2 * x) for x in (e - 0.005, e + 0.005)]
+        assert min(corrected) - 1e-9 <= val + h and val - h <= max(corrected) + 1e-9, "the printed epsilon does not give the reported p"
+        notes.append(f"uncorrected p {hi:.4f}; epsilon {e} gives {min(corrected):.4f}-{max(corrected):.4f}, reported {p['text']}")
     elif rule == "partial-eta-squared-mismatch":
         eta = cv.partial_eta(v, *res["df"])
         rep = [float(x) for lbl, x in res["effects"] if lbl in ("ηp2", "partial η2")][0]

@@ -1,9 +1,8 @@
-import { fUpperTail } from '../stats/fDistribution.js';
-import { studentizedRangeUpperTail } from '../stats/studentizedRange.js';
 import { tTwoTailed, tUpperTail } from '../stats/tDistribution.js';
 import { RefitError } from './errors.js';
 import type { FittedModel } from './model.js';
-import { fQuantileUpper, studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
+import { tQuantileUpper } from '../stats/quantiles.js';
+import { adjustedPValues, criticalMultiplier, holmAdjusted, type PostHocMethod } from '../stats/postHoc.js';
 
 /**
  * Estimated marginal means, pairwise comparisons and planned contrasts.
@@ -63,12 +62,6 @@ export type Adjustment = 'none' | 'bonferroni' | 'holm' | 'tukey' | 'sidak' | 's
 
 /** Every adjustment, in the order the help lists them. */
 export const ADJUSTMENTS: readonly Adjustment[] = ['tukey', 'bonferroni', 'holm', 'sidak', 'scheffe', 'none'];
-
-/** Šidák's adjustment of m p-values: 1 - (1 - p)^m, without cancellation for small p. */
-export function sidakAdjust(p: readonly number[]): number[] {
-  const m = p.length;
-  return p.map((v) => Math.min(1, -Math.expm1(m * Math.log1p(-v))));
-}
 
 export interface PairwiseComparison {
   contrast: string;
@@ -244,18 +237,8 @@ export function marginalMeans(model: FittedModel, factors: string | readonly str
   });
 }
 
-/** Holm's step-down adjustment (monotone, capped at 1). */
-export function holmAdjust(p: readonly number[]): number[] {
-  const m = p.length;
-  const order = p.map((v, i) => ({ v, i })).sort((a, b) => a.v - b.v);
-  const out = new Array<number>(m);
-  let running = 0;
-  order.forEach(({ v, i }, rank) => {
-    running = Math.max(running, Math.min(1, (m - rank) * v));
-    out[i] = running;
-  });
-  return out;
-}
+/** Holm's step-down adjustment (monotone, capped at 1): src/stats/postHoc.ts' holmAdjusted, kept under refit's name. */
+export const holmAdjust = holmAdjusted;
 
 /** All pairwise differences of the marginal means (first minus second, in grid order). */
 export function pairwiseComparisons(
@@ -336,32 +319,13 @@ function comparePairs(model: FittedModel, means: readonly GridMean[], adjust: Ad
       rows.push({ contrast: `${means[i]!.label} - ${means[j]!.label}`, estimate, se, df, t, pUnadjusted: tTwoTailed(t, df) });
     }
   }
-  const m = rows.length;
-  const raw = rows.map((r) => r.pUnadjusted);
-  let adjusted: number[];
-  let crit: number;
-  if (adjust === 'none') {
-    adjusted = raw;
-    crit = tQuantileUpper((1 - level) / 2, df);
-  } else if (adjust === 'bonferroni') {
-    adjusted = raw.map((p) => Math.min(1, p * m));
-    crit = tQuantileUpper((1 - level) / (2 * m), df);
-  } else if (adjust === 'holm') {
-    adjusted = holmAdjust(raw);
-    // Holm has no simultaneous intervals of its own; Bonferroni intervals are its usual companion.
-    crit = tQuantileUpper((1 - level) / (2 * m), df);
-  } else if (adjust === 'sidak') {
-    adjusted = sidakAdjust(raw);
-    crit = tQuantileUpper(-Math.expm1(Math.log(level) / m) / 2, df);
-  } else if (adjust === 'scheffe') {
-    adjusted = rows.map((r) => fUpperTail((r.t * r.t) / (k - 1), k - 1, df));
-    crit = Math.sqrt((k - 1) * fQuantileUpper(1 - level, k - 1, df));
-  } else if (adjust === 'tukey') {
-    adjusted = rows.map((r) => studentizedRangeUpperTail(Math.abs(r.t) * Math.SQRT2, k, df));
-    crit = studentizedRangeQuantileUpper(1 - level, k, df) / Math.SQRT2;
-  } else {
+  if (!ADJUSTMENTS.includes(adjust)) {
     throw new RefitError('INVALID_CONTRAST', `Unknown adjustment "${String(adjust)}"; use one of ${ADJUSTMENTS.join(', ')}.`);
   }
+  // One implementation with the post-hoc tests from group means (src/stats/postHoc.ts): "none" is Fisher's LSD there.
+  const method: PostHocMethod = adjust === 'none' ? 'lsd' : adjust;
+  const adjusted = adjustedPValues(method, rows, k, df);
+  const crit = criticalMultiplier(method, level, k, rows.length, df);
   return rows.map((r, i) => ({ ...r, p: adjusted[i]!, lower: r.estimate - crit * r.se, upper: r.estimate + crit * r.se }));
 }
 

@@ -1,6 +1,6 @@
 import { fUpperTail } from '../stats/fDistribution.js';
 import { tTwoTailed } from '../stats/tDistribution.js';
-import { tQuantileUpper } from './quantiles.js';
+import { tQuantileUpper } from '../stats/quantiles.js';
 import { RefitError } from './errors.js';
 import type { FittedModel } from './model.js';
 

@@ -9,6 +9,8 @@
  */
 
 import { readDocumentContext } from './context.js';
+import { readEpsilons } from './epsilon.js';
+import { readMeanSquareErrors } from './meanSquareError.js';
 import { normaliseText, type NormalisedText } from './normalise.js';
 import { startsWord } from './cursor.js';
 import { readFitBefore } from './effects.js';
@@ -27,7 +29,7 @@ export function scanText(text: string): ScanOutput {
   const normalised = normaliseText(text);
   return {
     results: findResults(normalised),
-    context: readDocumentContext(normalised),
+    context: { ...readDocumentContext(normalised), epsilons: readEpsilons(normalised), meanSquareErrors: readMeanSquareErrors(normalised) },
   };
 }
 

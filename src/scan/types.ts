@@ -322,6 +322,17 @@ export interface SphericityStatement extends ContextStatement {
   method: 'greenhouse-geisser' | 'huynh-feldt' | 'unspecified';
 }
 
+/** A mean squared error printed in the text ("MSE = 0.87"), read by src/scan/meanSquareError.ts. */
+export interface PrintedMeanSquareError extends ContextStatement {
+  value: ReportedNumber;
+}
+
+/** A sphericity epsilon printed in the text ("Greenhouse-Geisser epsilon = .72"), read by src/scan/epsilon.ts. */
+export interface PrintedEpsilon extends ContextStatement {
+  value: ReportedNumber;
+  method: 'greenhouse-geisser' | 'huynh-feldt' | 'lower-bound' | 'unspecified';
+}
+
 /** What the document says once, read before the results are checked. */
 export interface DocumentContext {
   alpha: DeclaredAlpha | null;
@@ -336,6 +347,10 @@ export interface DocumentContext {
    * built by hand; statements next to a result are found by the checks.
    */
   pAdjustments?: PAdjustmentStatement[];
+  /** Sphericity epsilons printed in the text. Absent in contexts built by hand. */
+  epsilons?: PrintedEpsilon[];
+  /** Mean squared errors printed in the text. Absent in contexts built by hand. */
+  meanSquareErrors?: PrintedMeanSquareError[];
 }
 
 export interface ScanOutput {

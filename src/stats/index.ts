@@ -25,6 +25,8 @@ export {
   oneWayAnovaRange,
   welchAnovaFromSummary,
   welchAnovaRange,
+  brownForsytheAnovaFromSummary,
+  brownForsytheAnovaRange,
   studentTFromSummary,
   welchTFromSummary,
   welchDf,

@@ -1,7 +1,7 @@
 import { fUpperTail } from './fDistribution.js';
-import { bracketDecreasingRoot, findRootBrent } from './rootFinding.js';
+import { fQuantileUpper, studentizedRangeQuantileUpper, tQuantileUpper } from './quantiles.js';
 import { studentizedRangeUpperTail } from './studentizedRange.js';
-import { tTwoTailed, tUpperTail } from './tDistribution.js';
+import { tTwoTailed } from './tDistribution.js';
 
 /**
  * Pairwise comparisons of group means after an ANOVA, from the groups'
@@ -27,8 +27,8 @@ import { tTwoTailed, tUpperTail } from './tDistribution.js';
  *   upper tail, computed directly); interval d +- q(alpha; k, df) / sqrt(2) SE.
  * - Scheffe: F = t^2 / (k - 1), p = P(F(k - 1, df) > F); interval
  *   d +- sqrt((k - 1) F(alpha; k - 1, df)) SE.
- * Critical values invert the upper tails (bracketing and Brent's method)
- * to about 1e-14 relative.
+ * Critical values come from quantiles.ts (the upper tails inverted by
+ * Brent's method to about 1e-14 relative), which refit's intervals use too.
  *
  * ## References
  * - Tukey, J. W. (1953). The problem of multiple comparisons. Unpublished
@@ -77,29 +77,6 @@ export interface PairwiseComparison {
   intervalIsBonferroni: boolean;
 }
 
-/** x with upperTail(x) = target, for upperTail decreasing from above target at 0. */
-function invertDecreasingTail(upperTail: (x: number) => number, target: number): number {
-  const difference = (x: number) => upperTail(x) - target;
-  const bracket = bracketDecreasingRoot(difference, 0, 1);
-  if (bracket === null) return NaN;
-  return findRootBrent(difference, bracket.lower, bracket.upper, { relativeTolerance: 1e-14 });
-}
-
-/** Two-sided t critical value for a tail area of `alpha` in all (alpha / 2 each side). */
-export function tCritical(alpha: number, df: number): number {
-  return invertDecreasingTail((x) => tUpperTail(x, df), alpha / 2);
-}
-
-/** Upper-alpha point of the studentized range Q(k, df). */
-export function studentizedRangeCritical(alpha: number, k: number, df: number): number {
-  return invertDecreasingTail((x) => studentizedRangeUpperTail(x, k, df), alpha);
-}
-
-/** Upper-alpha point of F(df1, df2). */
-export function fCritical(alpha: number, df1: number, df2: number): number {
-  return invertDecreasingTail((x) => fUpperTail(x, df1, df2), alpha);
-}
-
 /** Holm's step-down adjusted p-values, in the input order. */
 export function holmAdjusted(pValues: readonly number[]): number[] {
   const m = pValues.length;
@@ -119,6 +96,31 @@ export function sidakAdjusted(p: number, m: number): number {
 }
 
 /**
+ * The method's adjusted p of each comparison of a family of pairwise
+ * comparisons among k means (t and its unadjusted two-tailed p on df; m =
+ * the family's size), in the input order. Refit's comparisons of marginal
+ * means use it too.
+ */
+export function adjustedPValues(method: PostHocMethod, comparisons: ReadonlyArray<{ t: number; pUnadjusted: number }>, k: number, df: number): number[] {
+  const m = comparisons.length;
+  const unadjusted = comparisons.map((c) => c.pUnadjusted);
+  switch (method) {
+    case 'lsd':
+      return unadjusted;
+    case 'bonferroni':
+      return unadjusted.map((p) => Math.min(1, m * p));
+    case 'sidak':
+      return unadjusted.map((p) => sidakAdjusted(p, m));
+    case 'holm':
+      return holmAdjusted(unadjusted);
+    case 'tukey':
+      return comparisons.map((c) => studentizedRangeUpperTail(Math.SQRT2 * Math.abs(c.t), k, df));
+    case 'scheffe':
+      return comparisons.map((c) => fUpperTail((c.t * c.t) / (k - 1), k - 1, df));
+  }
+}
+
+/**
  * Every pairwise comparison (first group before second, in input order)
  * with the method's p and a two-sided interval at `level`. Null for fewer
  * than two groups, an n below 1, a nonpositive error mean square or df.
@@ -133,7 +135,6 @@ export function pairwiseComparisons(
   const k = groups.length;
   if (k < 2 || !(errorMeanSquare > 0) || !(errorDf > 0) || !(level > 0 && level < 1)) return null;
   if (groups.some((g) => !(g.n >= 1) || !Number.isFinite(g.mean))) return null;
-  const alpha = 1 - level;
   const pairs: Array<Omit<PairwiseComparison, 'p' | 'lower' | 'upper' | 'statistic' | 'statisticName' | 'intervalIsBonferroni'> & { t: number }> = [];
   for (let i = 0; i < k; i++) {
     for (let j = i + 1; j < k; j++) {
@@ -143,27 +144,14 @@ export function pairwiseComparisons(
       pairs.push({ first: groups[i]!.label, second: groups[j]!.label, difference, se, t, df: errorDf, pUnadjusted: tTwoTailed(t, errorDf) });
     }
   }
-  const m = pairs.length;
-  const holm = method === 'holm' ? holmAdjusted(pairs.map((pair) => pair.pUnadjusted)) : [];
-  const critical = criticalMultiplier(method, alpha, k, m, errorDf);
+  const adjusted = adjustedPValues(method, pairs, k, errorDf);
+  const critical = criticalMultiplier(method, level, k, pairs.length, errorDf);
   return pairs.map(({ t, ...pair }, index) => {
-    const p =
-      method === 'lsd'
-        ? pair.pUnadjusted
-        : method === 'bonferroni'
-          ? Math.min(1, m * pair.pUnadjusted)
-          : method === 'sidak'
-            ? sidakAdjusted(pair.pUnadjusted, m)
-            : method === 'holm'
-              ? holm[index]!
-              : method === 'tukey'
-                ? studentizedRangeUpperTail(Math.SQRT2 * Math.abs(t), k, errorDf)
-                : fUpperTail((t * t) / (k - 1), k - 1, errorDf);
     return {
       ...pair,
       statistic: method === 'tukey' ? Math.SQRT2 * Math.abs(t) : t,
       statisticName: method === 'tukey' ? 'q' : 't',
-      p,
+      p: adjusted[index]!,
       lower: pair.difference - critical * pair.se,
       upper: pair.difference + critical * pair.se,
       intervalIsBonferroni: method === 'holm',
@@ -171,19 +159,24 @@ export function pairwiseComparisons(
   });
 }
 
-/** The multiple of the SE that gives the method's simultaneous interval. */
-function criticalMultiplier(method: PostHocMethod, alpha: number, k: number, m: number, df: number): number {
+/**
+ * The multiple of the SE that gives the method's simultaneous interval at
+ * `level` for a family of m comparisons among k means on df (Holm's is
+ * Bonferroni's). Refit's comparisons of marginal means use it too.
+ */
+export function criticalMultiplier(method: PostHocMethod, level: number, k: number, m: number, df: number): number {
+  const alpha = 1 - level;
   switch (method) {
     case 'lsd':
-      return tCritical(alpha, df);
+      return tQuantileUpper(alpha / 2, df);
     case 'bonferroni':
     case 'holm':
-      return tCritical(alpha / m, df);
+      return tQuantileUpper(alpha / (2 * m), df);
     case 'sidak':
-      return tCritical(-Math.expm1(Math.log1p(-alpha) / m), df);
+      return tQuantileUpper(-Math.expm1(Math.log1p(-alpha) / m) / 2, df);
     case 'tukey':
-      return studentizedRangeCritical(alpha, k, df) / Math.SQRT2;
+      return studentizedRangeQuantileUpper(alpha, k, df) / Math.SQRT2;
     case 'scheffe':
-      return Math.sqrt((k - 1) * fCritical(alpha, k - 1, df));
+      return Math.sqrt((k - 1) * fQuantileUpper(alpha, k - 1, df));
   }
 }

@@ -17,6 +17,11 @@ import type { NumberInterval } from './monotoneImage.js';
  *   m~ = sum w_i m_i / W, A = sum w_i (m_i - m~)^2 / (k - 1),
  *   L = sum (1 - w_i / W)^2 / (n_i - 1),
  *   F_W = A / (1 + 2 (k - 2) L / (k^2 - 1)), df = (k - 1, (k^2 - 1) / (3 L)).
+ * Brown-Forsythe's one-way ANOVA for unequal variances: with
+ *   c_i = (1 - n_i / N) s_i^2 and D = sum c_i,
+ *   F* = SS_between / D, df = (k - 1, D^2 / sum c_i^2 / (n_i - 1))
+ *   (Satterthwaite's df; Mehrotra's 1997 df1 = D^2 / (sum s_i^4 +
+ *   (sum n_i s_i^2 / N)^2 - 2 sum n_i s_i^4 / N) is given beside it).
  * Independent-samples t: Student's with the pooled variance
  *   s_p^2 = ((n1 - 1) s1^2 + (n2 - 1) s2^2) / (n1 + n2 - 2),
  *   t = (m1 - m2) / sqrt(s_p^2 (1/n1 + 1/n2)), df = n1 + n2 - 2;
@@ -39,7 +44,14 @@ import type { NumberInterval } from './monotoneImage.js';
  * weight (a minimum of nondecreasing functions) and convex in the means, so
  * it is bounded exactly in the same way at the extreme weights; L is
  * bounded by interval arithmetic on w_i / W (increasing in w_i, decreasing
- * in the others), which gives an outer bound of the range of F_W. Welch's t
+ * in the others), which gives an outer bound of the range of F_W.
+ * Brown-Forsythe's F* has SS_between (exact range as above) over D, which
+ * rises with every s_i, so its range is exact too; its df2 g(c) =
+ * (sum c_i)^2 / sum c_i^2 / (n_i - 1) is quasi-concave in c >= 0 (its
+ * upper level sets {sum c >= sqrt(t) ||c||} are convex), so its minimum
+ * over the box of c lies at a vertex (all are tried), and its maximum is
+ * bounded by (sum c_high)^2 / sum c_low^2 / (n_i - 1) and by N - k
+ * (Cauchy-Schwarz), an outer bound. Welch's t
  * df depends only on the ratio a/b, rises up to a/b = (n1 - 1)/(n2 - 1) and
  * falls after it, so its range over the box is exact.
  *
@@ -49,6 +61,12 @@ import type { NumberInterval } from './monotoneImage.js';
  * - Welch, B. L. (1947). The generalization of "Student's" problem when
  *   several different population variances are involved. Biometrika 34,
  *   28-35. Satterthwaite, F. E. (1946). Biometrics Bulletin 2, 110-114.
+ * - Brown, M. B. & Forsythe, A. B. (1974). The small sample behavior of
+ *   some statistics which test the equality of several means.
+ *   Technometrics 16(1), 129-132. Mehrotra, D. V. (1997). Improving the
+ *   Brown-Forsythe solution to the generalized Behrens-Fisher problem.
+ *   Communications in Statistics - Simulation and Computation 26(3),
+ *   1139-1145.
  * - Boyd, S. & Vandenberghe, L. (2004). Convex Optimization. Cambridge
  *   University Press, sections 3.1.4 (maxima of convex functions lie at
  *   vertices of a polytope) and 5.5.3 (KKT conditions).
@@ -234,6 +252,65 @@ export function welchAnovaRange(groups: readonly GroupSummaryBox[]): { f: Number
     high: numeratorHigh / (k - 1) / (1 + factor * lambdaLow),
   };
   const df2 = { low: (k * k - 1) / (3 * lambdaHigh), high: lambdaLow === 0 ? Infinity : (k * k - 1) / (3 * lambdaLow) };
+  const ps = [f.low, f.high].flatMap((value) => [df2.low, df2.high].map((d) => fUpperTail(value, k - 1, d))).filter((p) => !Number.isNaN(p));
+  return { f, df2, p: { low: Math.min(...ps), high: Math.max(...ps) }, df1: k - 1 };
+}
+
+export interface BrownForsytheAnovaFromSummary extends WelchAnovaFromSummary {
+  /** Mehrotra's (1997) df1, fractional; df1 is Brown and Forsythe's k - 1. */
+  mehrotraDf1: number;
+}
+
+/** Brown-Forsythe's one-way ANOVA for unequal variances from group means, SDs and sizes (some SD positive). */
+export function brownForsytheAnovaFromSummary(groups: readonly GroupSummary[]): BrownForsytheAnovaFromSummary | null {
+  if (!validGroups(groups) || groups.some((g) => !(g.sd >= 0)) || groups.every((g) => g.sd === 0)) return null;
+  const k = groups.length;
+  const total = groups.reduce((sum, g) => sum + g.n, 0);
+  const ssBetween = weightedSpread(
+    groups.map((g) => g.mean),
+    groups.map((g) => g.n),
+  );
+  const parts = groups.map((g) => (1 - g.n / total) * g.sd ** 2);
+  const denominator = parts.reduce((a, b) => a + b, 0);
+  const f = ssBetween / denominator;
+  const df2 = brownForsytheDf2(parts, groups);
+  const sumFourth = groups.reduce((sum, g) => sum + g.sd ** 4, 0);
+  const weightedSquares = groups.reduce((sum, g) => sum + (g.n / total) * g.sd ** 2, 0);
+  const weightedFourth = groups.reduce((sum, g) => sum + (g.n / total) * g.sd ** 4, 0);
+  const mehrotraDf1 = denominator ** 2 / (sumFourth + weightedSquares ** 2 - 2 * weightedFourth);
+  return { f, df1: k - 1, df2, p: fUpperTail(f, k - 1, df2), mehrotraDf1 };
+}
+
+/** Satterthwaite's df of D = sum c_i, c_i = (1 - n_i / N) s_i^2. */
+function brownForsytheDf2(parts: readonly number[], groups: readonly { n: number }[]): number {
+  const sum = parts.reduce((a, b) => a + b, 0);
+  const squares = parts.reduce((acc, c, i) => acc + (c * c) / (groups[i]!.n - 1), 0);
+  return (sum * sum) / squares;
+}
+
+/** Range of Brown-Forsythe's F* (exact) and an outer bound of its df2 and p over the rounding box. */
+export function brownForsytheAnovaRange(groups: readonly GroupSummaryBox[]): { f: NumberInterval; df2: NumberInterval; p: NumberInterval; df1: number } | null {
+  if (!validGroups(groups) || groups.every((g) => !(g.sd.high > 0))) return null;
+  const k = groups.length;
+  const total = groups.reduce((sum, g) => sum + g.n, 0);
+  const between = weightedSpreadRange(
+    groups.map((g) => g.mean),
+    groups.map((g) => g.n),
+  );
+  const partsLow = groups.map((g) => (1 - g.n / total) * Math.max(0, g.sd.low) ** 2);
+  const partsHigh = groups.map((g) => (1 - g.n / total) * g.sd.high ** 2);
+  const denominatorLow = partsLow.reduce((a, b) => a + b, 0);
+  const denominatorHigh = partsHigh.reduce((a, b) => a + b, 0);
+  const f = { low: between.low / denominatorHigh, high: denominatorLow === 0 ? (between.high === 0 ? 0 : Infinity) : between.high / denominatorLow };
+  let df2Low = Infinity;
+  const vertex = new Array<number>(k);
+  for (let mask = 0; mask < 1 << k; mask++) {
+    for (let i = 0; i < k; i++) vertex[i] = (mask >> i) & 1 ? partsHigh[i]! : partsLow[i]!;
+    if (vertex.some((c) => c > 0)) df2Low = Math.min(df2Low, brownForsytheDf2(vertex, groups));
+  }
+  const squaresLow = partsLow.reduce((acc, c, i) => acc + (c * c) / (groups[i]!.n - 1), 0);
+  const df2High = Math.min(total - k, squaresLow === 0 ? Infinity : denominatorHigh ** 2 / squaresLow);
+  const df2 = { low: df2Low, high: Math.max(df2Low, df2High) };
   const ps = [f.low, f.high].flatMap((value) => [df2.low, df2.high].map((d) => fUpperTail(value, k - 1, d))).filter((p) => !Number.isNaN(p));
   return { f, df2, p: { low: Math.min(...ps), high: Math.max(...ps) }, df1: k - 1 };
 }

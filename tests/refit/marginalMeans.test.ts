@@ -2,12 +2,15 @@ import { describe, expect, it } from 'vitest';
 import { marginalMeans, pairwiseComparisons, plannedContrast, holmAdjust } from '../../src/refit/marginalMeans.js';
 import { fitModel, RefitError } from '../../src/refit/index.js';
 import { fixturePath, loadJson, relErr } from './helpers.js';
+import { familyCritical, referenceBounds, tCritical, tukeyReferenceP } from './precisionReference.js';
 
 /**
  * Reference: tests/fixtures/refit/statsmodels_emmeans.json, written by
  * gen_statsmodels.py (statsmodels OLSResults.t_test on averaged patsy
  * reference-grid rows; multipletests for Bonferroni/Holm; scipy
- * studentized_range for Tukey).
+ * studentized_range for Tukey). Interval bounds and Tukey p are held to the
+ * mpmath reference of precisionReference.ts instead of SciPy's quantiles and
+ * studentized_range.sf (see there why).
  */
 interface Lin { estimate: number; se: number; t: number; p: number; df: number; lower: number; upper: number }
 interface Pair extends Lin { contrast: string; p_bonferroni: number; p_holm: number; p_tukey: number; tukey_lower: number; tukey_upper: number }
@@ -22,13 +25,14 @@ interface Case {
 const ref = loadJson<{ statsmodels: string; cases: Case[] }>('refit/statsmodels_emmeans.json');
 const TOL = 1e-9;
 /**
- * Interval bounds: statsmodels takes its t quantile from scipy.stats.t.ppf,
- * which in this SciPy build is off by about 2e-9 relative (t.ppf(0.975, 45)
- * = 2.0141033848 where mpmath's root of the regularized incomplete beta gives
- * 2.01410338888085, and plumbline 2.01410338888087), so bounds are compared
- * to 1e-8.
+ * Interval bounds: statsmodels' estimate +- the mpmath critical value times
+ * its SE (statsmodels takes its t quantile from scipy.stats.t.ppf, off by
+ * about 2e-9 relative in this build: t.ppf(0.975, 45) = 2.0141033848 where
+ * mpmath's root of the regularized incomplete beta gives 2.01410338888085).
  */
-const TOL_BOUND = 1e-8;
+function bounds(r: { estimate: number; se: number }, critical: number) {
+  return referenceBounds(r.estimate, r.se, critical);
+}
 
 /**
  * |ours - theirs| <= tol * max(|theirs|, scale). `scale` is the size of the
@@ -55,8 +59,8 @@ describe(`estimated marginal means against statsmodels ${ref.statsmodels}`, () =
           const label = `${c.dataset} ${target} ${JSON.stringify(r.levels)}`;
           check(failures, `${label} mean`, m!.emmean, r.estimate);
           check(failures, `${label} SE`, m!.se, r.se);
-          check(failures, `${label} lower`, m!.lower, r.lower, TOL_BOUND);
-          check(failures, `${label} upper`, m!.upper, r.upper, TOL_BOUND);
+          check(failures, `${label} lower`, m!.lower, bounds(r, tCritical(r.df)).lower);
+          check(failures, `${label} upper`, m!.upper, bounds(r, tCritical(r.df)).upper);
           expect(m!.df).toBe(r.df);
         }
       }
@@ -73,6 +77,7 @@ describe(`estimated marginal means against statsmodels ${ref.statsmodels}`, () =
         const tukey = pairwiseComparisons(model, factor, { adjust: 'tukey' });
         expect(none.map((p) => p.contrast)).toEqual(pairs.map((p) => p.contrast));
         const meanScale = Math.max(...marginalMeans(model, factor).map((m) => Math.abs(m.emmean)));
+        const k = marginalMeans(model, factor).length;
         pairs.forEach((r, i) => {
           const label = `${c.dataset} ${r.contrast}`;
           const halfWidth = r.upper - r.estimate;
@@ -80,17 +85,17 @@ describe(`estimated marginal means against statsmodels ${ref.statsmodels}`, () =
           check(failures, `${label} SE`, none[i]!.se, r.se);
           check(failures, `${label} t`, none[i]!.t, r.t, TOL, meanScale / r.se);
           check(failures, `${label} p`, none[i]!.p, r.p);
-          check(failures, `${label} lower`, none[i]!.lower, r.lower, TOL_BOUND, meanScale + halfWidth);
-          check(failures, `${label} upper`, none[i]!.upper, r.upper, TOL_BOUND, meanScale + halfWidth);
+          check(failures, `${label} lower`, none[i]!.lower, bounds(r, tCritical(r.df)).lower, TOL, meanScale + halfWidth);
+          check(failures, `${label} upper`, none[i]!.upper, bounds(r, tCritical(r.df)).upper, TOL, meanScale + halfWidth);
           check(failures, `${label} p Bonferroni`, bonf[i]!.p, r.p_bonferroni);
           check(failures, `${label} p Holm`, holm[i]!.p, r.p_holm);
-          // Studentized range: src/stats documents 1e-8 relative accuracy (against mpmath); SciPy's
-          // studentized_range.sf carries an absolute error near 1e-15 (seen at p = 1.4e-10), hence
-          // 1e-7 relative with a 1e-13 absolute floor.
-          const tukeyOk = Math.abs(tukey[i]!.p - r.p_tukey) <= 1e-7 * r.p_tukey + 1e-13;
-          if (!tukeyOk) failures.push(`${label} p Tukey: plumbline ${tukey[i]!.p} vs SciPy ${r.p_tukey}`);
-          check(failures, `${label} Tukey lower`, tukey[i]!.lower, r.tukey_lower, 1e-7, meanScale + halfWidth);
-          check(failures, `${label} Tukey upper`, tukey[i]!.upper, r.tukey_upper, 1e-7, meanScale + halfWidth);
+          // Tukey p against mpmath where SciPy's is below 1e-3 (precisionReference.ts), at 1e-9 relative however small.
+          // With two means the Tukey p is the t-test p exactly (statsmodels').
+          const tukeyP = k === 2 ? { p: r.p, source: `statsmodels ${ref.statsmodels} t-test p (two means)` } : tukeyReferenceP(k, r.df, r.t, r.p_tukey);
+          if (!(relErr(tukey[i]!.p, tukeyP.p) <= TOL)) failures.push(`${label} p Tukey: plumbline ${tukey[i]!.p} vs ${tukeyP.source} ${tukeyP.p}`);
+          const tukeyBounds = bounds(r, familyCritical('tukey', k, pairs.length, r.df));
+          check(failures, `${label} Tukey lower`, tukey[i]!.lower, tukeyBounds.lower, TOL, meanScale + halfWidth);
+          check(failures, `${label} Tukey upper`, tukey[i]!.upper, tukeyBounds.upper, TOL, meanScale + halfWidth);
         });
       }
       expect(failures).toEqual([]);
@@ -106,8 +111,8 @@ describe(`estimated marginal means against statsmodels ${ref.statsmodels}`, () =
         check(failures, 'SE', two.se, con.se);
         check(failures, 't', two.t, con.t);
         check(failures, 'p two-sided', two.p, con.p);
-        check(failures, 'lower', two.lower, con.lower, TOL_BOUND);
-        check(failures, 'upper', two.upper, con.upper, TOL_BOUND);
+        check(failures, 'lower', two.lower, bounds(con, tCritical(con.df)).lower);
+        check(failures, 'upper', two.upper, bounds(con, tCritical(con.df)).upper);
         expect(two.df).toBe(con.df);
         const towardSign = plannedContrast(model, con.factor, con.weights, { alternative: con.t < 0 ? 'less' : 'greater' });
         check(failures, 'p one-sided (direction of t)', towardSign.p, con.p / 2);

@@ -5,6 +5,7 @@ import mammoth from 'mammoth';
 import { describe, expect, it } from 'vitest';
 import { refitOutputSchema, type RefitOutput } from '../../src/refit/output.js';
 import { fixturePath, loadJson, runRefitInProcess as run } from './helpers.js';
+import { familyCritical, MPMATH, referenceBounds, tCritical, tukeyReferenceP } from './precisionReference.js';
 
 /**
  * What `plumbline refit` prints beside the ANOVA table, run as a command
@@ -13,8 +14,12 @@ import { fixturePath, loadJson, runRefitInProcess as run } from './helpers.js';
  * - marginal means, comparisons and contrasts: statsmodels OLSResults.t_test
  *   (estimate, SE, t, unadjusted p, df, intervals);
  * - adjusted p: statsmodels multipletests (Bonferroni, Holm, Šidák), SciPy
- *   studentized_range.sf (Tukey-Kramer), SciPy f.sf (Scheffé); interval
- *   critical values from SciPy t.ppf, studentized_range.ppf and f.ppf;
+ *   f.sf (Scheffé), and for Tukey-Kramer mpmath's studentized range integral
+ *   where SciPy's studentized_range.sf is below 1e-3 (SciPy's above);
+ * - interval bounds: statsmodels' estimate +- an mpmath critical value times
+ *   statsmodels' SE (t, F and studentized range points from
+ *   refit_precision.json, see precisionReference.ts: SciPy's t.ppf, which
+ *   statsmodels uses, is off by about 2e-9 relative);
  * - R² and adjusted R²: statsmodels OLSResults.rsquared, rsquared_adj;
  * - cell n, mean and SD: pandas (ddof = 1);
  * - Levene's test: SciPy stats.levene (center 'median' and 'mean').
@@ -58,14 +63,13 @@ interface Case {
 const ref = loadJson<{ statsmodels: string; scipy: string; cases: Case[] }>('refit/refit_tables.json');
 
 /**
- * Relative tolerance for every number, Tukey's included. Measured when the
- * test was written: means, SE, t, p (Tukey's too) and R² agree to better
- * than 1e-11 and are checked at 1e-9; interval bounds to about 1e-9, because SciPy's t.ppf in this
- * build is off by about 2e-9 relative (see marginalMeans.test.ts), so they are checked at TOL_CI = 1e-8.
+ * Relative tolerance for every number, interval bounds and Tukey p
+ * included. Measured when the test was written: means, SE, t, p and R²
+ * agree with statsmodels to better than 1e-11; interval bounds with the
+ * mpmath-based reference to better than 1e-12; Tukey p with mpmath to better
+ * than 1e-12 down to p = 4e-17 (with SciPy's, above 1e-3, to about 5e-12).
  */
 const TOL = 1e-9;
-/** Interval bounds: SciPy's t.ppf and studentized_range.ppf in this build agree to about 2e-9 relative (see above). */
-const TOL_CI = 1e-8;
 
 
 async function refitJson(c: Case, extra: string[]): Promise<RefitOutput> {
@@ -87,26 +91,29 @@ function check(failures: string[], source: string, label: string, ours: number |
 }
 
 /**
- * SciPy's studentized_range.sf carries an absolute error of about 1.2e-14
- * (measured on three_factor_two_covariates: ours minus SciPy's is +1.07e-14
- * to +1.27e-14 at every Tukey p from 3e-10 to 5e-7, so the relative
- * agreement is 2e-8 at p = 5e-7, 9e-8 at 1.3e-7 and 4e-5 at 3e-10; below
- * about 1e-14 SciPy returns 0). An mpmath evaluation of the same integral at
- * 20 digits agrees with ours to 6e-14 relative at p = 3.1e-9 and 1.0e-6,
- * so the difference is SciPy's. Tukey p are therefore compared at 1e-9
- * relative or 2e-14 absolute, whichever is larger; for two means
- * (k = 2) the Tukey p equals the unadjusted t-test p exactly, which is
- * checked at 1e-9 relative however small it is.
+ * Adjusted p against its reference at 1e-9 relative. Tukey's against mpmath
+ * wherever SciPy's is below 1e-3 (SciPy's studentized_range.sf is off by
+ * about 1.2e-14 absolute: 4e-5 relative at p = 3e-10, and 0 below 1e-14), so
+ * it is held to 1e-9 relative however small it is; for two means (k = 2) the
+ * Tukey p also equals the unadjusted t-test p exactly.
  */
-const TUKEY_ABS = 2e-14;
-
-function checkP(failures: string[], adjust: string, label: string, ours: { p: number | null; pUnadjusted: number | null }, theirs: { p: number }, k?: number): void {
+function checkP(failures: string[], adjust: string, label: string, ours: { p: number | null; pUnadjusted: number | null }, theirs: { p: number; t: number; df: number; pUnadjusted: number }, k: number): void {
   if (adjust !== 'tukey') {
     check(failures, ADJUST_SOURCE[adjust]!, `${label} p`, ours.p, theirs.p);
     return;
   }
-  if (ours.p === null || !(Math.abs(ours.p - theirs.p) <= Math.max(TOL * theirs.p, TUKEY_ABS))) failures.push(`${label} p: plumbline ${ours.p} vs ${ADJUST_SOURCE[adjust]} ${theirs.p}`);
+  // With two means the Tukey p is the t-test p exactly: statsmodels' (SciPy's studentized_range.sf gives 0 below 1e-14).
+  const reference = k === 2 ? { p: theirs.pUnadjusted, source: `${SM} t-test p (Tukey with two means)` } : tukeyReferenceP(k, theirs.df, theirs.t, theirs.p);
+  check(failures, reference.source, `${label} p`, ours.p, reference.p);
   if (k === 2) check(failures, 'the unadjusted t-test p (Tukey with two means)', `${label} p`, ours.p, ours.pUnadjusted ?? NaN);
+}
+
+/** Both interval bounds against estimate +- critical SE (mpmath critical values); `scale` as in check(). */
+function checkBounds(failures: string[], label: string, ours: { lower: number | null; upper: number | null }, theirs: { estimate: number; se: number }, critical: number, scale = 0): void {
+  const reference = referenceBounds(theirs.estimate, theirs.se, critical);
+  const source = `${SM} estimate and SE with the ${MPMATH} critical value ${critical}`;
+  check(failures, source, `${label} lower`, ours.lower, reference.lower, TOL, scale);
+  check(failures, source, `${label} upper`, ours.upper, reference.upper, TOL, scale);
 }
 
 const SM = `statsmodels ${ref.statsmodels}`;
@@ -150,8 +157,7 @@ for (const c of ref.cases) {
           const label = `${term} ${r.label}`;
           check(failures, SM, `${label} mean`, m.mean, r.estimate);
           check(failures, SM, `${label} SE`, m.se, r.se);
-          check(failures, SM, `${label} lower`, m.lower, r.lower, TOL_CI);
-          check(failures, SM, `${label} upper`, m.upper, r.upper, TOL_CI);
+          checkBounds(failures, label, m, r, tCritical(r.df));
           expect(m.df).toBe(r.df);
         });
         expect(ours.pairwise).toBeUndefined();
@@ -178,8 +184,7 @@ for (const c of ref.cases) {
             check(failures, SM, `${label} t`, p.t, r.t, TOL, meanScale / r.se);
             check(failures, SM, `${label} unadjusted p`, p.pUnadjusted, r.pUnadjusted);
             checkP(failures, adjust, label, p, r, c.means[term]!.length);
-            check(failures, ADJUST_SOURCE[adjust]!, `${label} lower`, p.lower, r.lower, TOL_CI, meanScale + halfWidth);
-            check(failures, ADJUST_SOURCE[adjust]!, `${label} upper`, p.upper, r.upper, TOL_CI, meanScale + halfWidth);
+            checkBounds(failures, label, p, r, familyCritical(adjust, c.means[term]!.length, theirs.length, r.df), meanScale + halfWidth);
             expect(p.df).toBe(r.df);
           });
         }
@@ -200,8 +205,7 @@ for (const c of ref.cases) {
         check(failures, SM, `${label} SE`, x.se, r.se);
         check(failures, SM, `${label} t`, x.t, r.t, TOL, meanScale / r.se);
         check(failures, SM, `${label} p`, x.p, r.p);
-        check(failures, SM, `${label} lower`, x.lower, r.lower, TOL_CI, meanScale);
-        check(failures, SM, `${label} upper`, x.upper, r.upper, TOL_CI, meanScale);
+        checkBounds(failures, label, x, r, tCritical(r.df), meanScale);
         expect(x.df).toBe(r.df);
       });
       expect(failures).toEqual([]);
@@ -222,8 +226,7 @@ for (const c of ref.cases) {
           check(failures, SM, `${r.name} SE`, x.se, r.se);
           check(failures, SM, `${r.name} t`, x.t, r.t, TOL, scale / r.se);
           check(failures, SM, `${r.name} p`, x.p, r.p);
-          check(failures, SM, `${r.name} lower`, x.lower, r.lower, TOL_CI, scale + Math.abs(r.estimate));
-          check(failures, SM, `${r.name} upper`, x.upper, r.upper, TOL_CI, scale + Math.abs(r.estimate));
+          checkBounds(failures, r.name, x, r, tCritical(c.means[terms[0]!]![0]!.df), scale + Math.abs(r.estimate));
         });
         expect(failures).toEqual([]);
       });
@@ -250,6 +253,7 @@ for (const c of ref.cases) {
             const p = ours.pairwise!.comparisons[i]!;
             check(failures, SM, `${term} ${r.first} - ${r.second} estimate (proportional)`, p.estimate, r.estimate, TOL, meanScale);
             checkP(failures, 'tukey', `${term} ${r.first} - ${r.second} Tukey p (proportional)`, p, r, c.proportional!.means[term]!.length);
+            checkBounds(failures, `${term} ${r.first} - ${r.second} Tukey (proportional)`, p, r, familyCritical('tukey', c.proportional!.means[term]!.length, prop.pairwise[term]!.length, r.df), meanScale + r.upper - r.estimate);
           });
         }
         check(failures, SM, 'contrast estimate (proportional)', o.contrasts![0]!.estimate, prop.contrasts[0]!.estimate, TOL, meanScale);
@@ -278,7 +282,7 @@ for (const c of ref.cases) {
             check(failures, SM, `${r.label} mean`, ours.means[i]!.mean, r.estimate);
             check(failures, SM, `${r.label} SE`, ours.means[i]!.se, r.se);
           });
-          const theirs = within.families.flatMap((f) => f.pairwise[adjust]!.map((p) => ({ ...p, within: f.level })));
+          const theirs = within.families.flatMap((f) => f.pairwise[adjust]!.map((p) => ({ ...p, within: f.level, k: f.means.length, m: f.pairwise[adjust]!.length })));
           expect(ours.pairwise!.comparisons.map((p) => `${p.within}: ${p.first} - ${p.second}`)).toEqual(theirs.map((p) => `${p.within}: ${p.first} - ${p.second}`));
           theirs.forEach((r, i) => {
             const p = ours.pairwise!.comparisons[i]!;
@@ -286,9 +290,8 @@ for (const c of ref.cases) {
             const halfWidth = r.upper - r.estimate;
             check(failures, SM, `${label} estimate`, p.estimate, r.estimate, TOL, meanScale);
             check(failures, SM, `${label} SE`, p.se, r.se);
-            checkP(failures, adjust, label, p, r);
-            check(failures, ADJUST_SOURCE[adjust]!, `${label} lower`, p.lower, r.lower, TOL_CI, meanScale + halfWidth);
-            check(failures, ADJUST_SOURCE[adjust]!, `${label} upper`, p.upper, r.upper, TOL_CI, meanScale + halfWidth);
+            checkP(failures, adjust, label, p, r, r.k);
+            checkBounds(failures, label, p, r, familyCritical(adjust, r.k, r.m, r.df), meanScale + halfWidth);
           });
           expect(ours.pairwise!.method).toMatch(new RegExp(`, within each level of ${within.by}$`));
           expect(failures).toEqual([]);
@@ -313,8 +316,7 @@ for (const c of ref.cases) {
             const m = ours.means[i]!;
             check(failures, SM, `${term} ${r.label} mean at ${at.argv}`, m.mean, r.estimate);
             check(failures, SM, `${term} ${r.label} SE at ${at.argv}`, m.se, r.se);
-            check(failures, SM, `${term} ${r.label} lower at ${at.argv}`, m.lower, r.lower, TOL_CI);
-            check(failures, SM, `${term} ${r.label} upper at ${at.argv}`, m.upper, r.upper, TOL_CI);
+            checkBounds(failures, `${term} ${r.label} at ${at.argv}`, m, r, tCritical(r.df));
           });
           at.pairwise[term]!.forEach((r, i) => {
             const p = ours.pairwise!.comparisons[i]!;

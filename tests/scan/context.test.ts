@@ -247,6 +247,8 @@ describe('a document without context statements', () => {
       sampleSizes: [],
       sphericity: [],
       pAdjustments: [],
+      epsilons: [],
+      meanSquareErrors: [],
     });
   });
 });

@@ -29,19 +29,20 @@ describe('studentized range against the reference fixture', () => {
     expect(Math.min(...points.map((point) => point.upper))).toBeLessThan(1e-20);
   });
 
-  // Tolerance 1e-8 relative (the goal for this family) on both tails at every point.
-  it('studentizedRangeCdf matches to 1e-8 relative', () => {
+  // Tolerance 1e-10 relative on both tails at every point (measured: 7e-14 for the cdf, 4e-14 for the upper tail;
+  // refit's Tukey p are held to 1e-9 against mpmath in tests/stats/quantiles.test.ts and tests/refit).
+  it('studentizedRangeCdf matches to 1e-10 relative', () => {
     const comparisons = points.map((point) => ({
       label: label(point), computed: studentizedRangeCdf(point.q, point.k, dfOf(point)), reference: point.cdf,
     }));
-    expect(relativeFailures(comparisons, 1e-8)).toEqual([]);
+    expect(relativeFailures(comparisons, 1e-10)).toEqual([]);
   });
 
-  it('studentizedRangeUpperTail matches to 1e-8 relative', () => {
+  it('studentizedRangeUpperTail matches to 1e-10 relative', () => {
     const comparisons = points.map((point) => ({
       label: label(point), computed: studentizedRangeUpperTail(point.q, point.k, dfOf(point)), reference: point.upper,
     }));
-    expect(relativeFailures(comparisons, 1e-8)).toEqual([]);
+    expect(relativeFailures(comparisons, 1e-10)).toEqual([]);
   });
 
   it('matches SciPy 1.10.1 studentized_range.cdf to 1e-8 where SciPy agrees with the reference to 1e-10', () => {

@@ -4,6 +4,7 @@ import { describeP, describeStatistic, quoteFromDocument } from '../describe.js'
 import { formatP, formatRange } from '../format.js';
 import { pAgrees } from '../pAgreement.js';
 import { fitsOnlyWhenHalved, fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
+import { fitsOnlyWithPrintedEpsilon, linkedEpsilon } from '../epsilon.js';
 import { describeAdjustment, judgeAdjustment } from '../pAdjustment.js';
 
 const optionsSchema = z
@@ -41,6 +42,7 @@ export const adjustedP: CheckModule<z.infer<typeof optionsSchema>> = {
       // Explained otherwise: halved-p and sphericity-corrected-p report these.
       if (fitsOnlyWhenHalved(result, recomputation, allowTruncation)) return [];
       if (fitsOnlyWithSphericityCorrection(result, recomputation, context.document.sphericity.length > 0, allowTruncation)) return [];
+      if (fitsOnlyWithPrintedEpsilon(result, recomputation, linkedEpsilon(result, context), allowTruncation)) return [];
     } else if (!result.notSignificant || range.high >= context.alpha) {
       return [];
     }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { CheckModule } from '../types.js';
+import type { CheckModule, FindingDraft } from '../types.js';
 import type { DescriptiveSet, ReportedResult } from '../../scan/types.js';
 import { describeStatistic } from '../describe.js';
 import { formatP, formatRange, formatValue } from '../format.js';
@@ -7,6 +7,8 @@ import { roundingInterval } from '../../stats/reportedNumber.js';
 import type { NumberInterval } from '../../stats/monotoneImage.js';
 import { groupSizeProvenance, groupSizeSeverityCap } from '../groupSizes.js';
 import {
+  brownForsytheAnovaFromSummary,
+  brownForsytheAnovaRange,
   independentTRange,
   oneWayAnovaFromSummary,
   oneWayAnovaRange,
@@ -47,6 +49,11 @@ export function groupBoxes(set: DescriptiveSet): GroupSummaryBox[] | null {
   return boxes;
 }
 
+/** True when the words before the test (or just after it) name Brown and Forsythe's test of means. */
+export function saysBrownForsythe(result: ReportedResult, text: string, distance: number): boolean {
+  return /\bBrown[- ]{1,3}Forsythe/i.test(text.slice(Math.max(0, result.start - distance), result.end + 40));
+}
+
 /** True when the test is said to be Welch's (decimal df, or the word "Welch" near it). */
 export function saysWelch(result: ReportedResult, text: string, distance: number): boolean {
   if (result.df.some((df) => df.decimals > 0)) return true;
@@ -63,6 +70,41 @@ interface Variant {
   statistic: number | null;
   range: NumberInterval;
   p: NumberInterval;
+  /** The error df of a test for unequal variances (Welch, Brown-Forsythe): fractional, from the SDs and sizes. */
+  df2?: { value: number | null; range: NumberInterval };
+}
+
+/**
+ * A fractional error df printed with a test that the group statistics
+ * reproduce only as a test for unequal variances (Welch, Brown-Forsythe):
+ * that df follows from the SDs and sizes too, and is flagged when no
+ * matching variant's df range (over the rounding of the SDs) holds it.
+ */
+function dfFindings(result: ReportedResult, set: DescriptiveSet, matching: readonly Variant[]): FindingDraft[] {
+  const printed = result.df[result.df.length - 1];
+  if (printed === undefined || printed.decimals === 0) return [];
+  const unequal = matching.filter((variant) => variant.df2 !== undefined);
+  if (unequal.length === 0) return [];
+  const written = roundingInterval(printed);
+  if (unequal.some((variant) => overlaps(written, variant.df2!.range))) return [];
+  const first = unequal[0]!;
+  const cap = groupSizeSeverityCap(set.groups);
+  return [
+    {
+      messageId: 'dfMismatch',
+      // The statistic is right; a miscopied df changes the p only a little: a warning at most.
+      severityAtMost: cap ?? 'warn',
+      data: {
+        provenance: groupSizeProvenance(set.groups),
+        statistic: describeStatistic(result),
+        groups: describeGroups(set),
+        variant: first.name,
+        printedDf: printed.text,
+        recomputedDf: formatValue(first.df2!.value ?? first.df2!.range.low, 2),
+        dfRange: formatRange(first.df2!.range.low, first.df2!.range.high, (v) => formatValue(v, 2)),
+      },
+    },
+  ];
 }
 
 /** Reported F or t against the same test recomputed from the group means, SDs and sizes. */
@@ -73,6 +115,8 @@ export const groupStatisticsTestMismatch: CheckModule<z.infer<typeof optionsSche
   messages: {
     mismatch:
       '{statistic} does not follow from the group statistics reported with it ({groups}): they give {variant} {symbol} = {recomputed} ({recomputedRange} allowing for the rounding of every mean and SD), p = {p}{otherVariant}.{provenance}',
+    dfMismatch:
+      '{statistic} follows from the group statistics reported with it ({groups}) as {variant} test, but its error df {printedDf} does not: the SDs and sizes give df = {recomputedDf} ({dfRange} allowing for the rounding of every SD). The df was miscopied, or comes from another test.{provenance}',
   },
   run(result, context) {
     const set = result.descriptives;
@@ -87,18 +131,36 @@ export const groupStatisticsTestMismatch: CheckModule<z.infer<typeof optionsSche
       const student = independentTRange(boxes[0]!, boxes[1]!, 'student');
       const welch = independentTRange(boxes[0]!, boxes[1]!, 'welch');
       if (student) variants.push({ name: "Student's", statistic: studentTFromSummary(exact[0]!, exact[1]!)?.statistic ?? null, range: student.t, p: student.p });
-      if (welch) variants.push({ name: "Welch's", statistic: welchTFromSummary(exact[0]!, exact[1]!)?.statistic ?? null, range: welch.t, p: welch.p });
+      if (welch) {
+        const exactWelch = welchTFromSummary(exact[0]!, exact[1]!);
+        variants.push({ name: "Welch's", statistic: exactWelch?.statistic ?? null, range: welch.t, p: welch.p, df2: { value: exactWelch?.df ?? null, range: welch.df } });
+      }
     } else {
       const classic = oneWayAnovaRange(boxes);
       const welch = welchAnovaRange(boxes);
+      const brownForsythe = brownForsytheAnovaRange(boxes);
       if (classic) variants.push({ name: 'one-way ANOVA', statistic: oneWayAnovaFromSummary(exact)?.f ?? null, range: classic.f, p: classic.p });
-      if (welch) variants.push({ name: "Welch's", statistic: welchAnovaFromSummary(exact)?.f ?? null, range: welch.f, p: welch.p });
+      if (welch) {
+        const exactWelch = welchAnovaFromSummary(exact);
+        variants.push({ name: "Welch's", statistic: exactWelch?.f ?? null, range: welch.f, p: welch.p, df2: { value: exactWelch?.df2 ?? null, range: welch.df2 } });
+      }
+      if (brownForsythe) {
+        const exactBrownForsythe = brownForsytheAnovaFromSummary(exact);
+        const variant = { name: "Brown-Forsythe's", statistic: exactBrownForsythe?.f ?? null, range: brownForsythe.f, p: brownForsythe.p, df2: { value: exactBrownForsythe?.df2 ?? null, range: brownForsythe.df2 } };
+        // Named in the text: checked first; otherwise last, after Welch's, the usual test for unequal variances.
+        if (saysBrownForsythe(result, context.text, context.options.welchWordDistance)) variants.unshift(variant);
+        else variants.push(variant);
+      }
     }
-    if (welchFirst) variants.reverse();
+    if (welchFirst && variants[0]?.name !== "Brown-Forsythe's") {
+      const welchAt = variants.findIndex((variant) => variant.name === "Welch's");
+      if (welchAt > 0) variants.unshift(...variants.splice(welchAt, 1));
+    }
     const primary = variants[0];
     if (primary === undefined) return [];
     const written = roundingInterval({ ...result.value, value: Math.abs(result.value.value) });
-    if (variants.some((variant) => overlaps(written, variant.range))) return [];
+    const matching = variants.filter((variant) => overlaps(written, variant.range));
+    if (matching.length > 0) return dfFindings(result, set, matching);
     const secondary = variants[1];
     const statisticValue = (variant: Variant): string => formatValue(Math.abs(variant.statistic ?? variant.range.low), 2);
     const reportedP = context.recomputations[context.index]?.p ?? null;

@@ -10,6 +10,8 @@ import { partialEtaSquaredMismatch } from './partial-eta-squared-mismatch.js';
 import { pReportedAsZero } from './p-reported-as-zero.js';
 import { pValueMismatch } from './p-value-mismatch.js';
 import { sphericityCorrectedP } from './sphericity-corrected-p.js';
+import { epsilonDfMismatch } from './epsilon-df-mismatch.js';
+import { mseMismatch } from './mse-mismatch.js';
 import { tableArithmetic } from './table-arithmetic.js';
 import { groupStatisticsTestMismatch } from './group-statistics-test-mismatch.js';
 import { groupSizesDfMismatch } from './group-sizes-df-mismatch.js';
@@ -26,6 +28,7 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     pValueMismatch,
     halvedP,
     sphericityCorrectedP,
+    epsilonDfMismatch,
     adjustedP,
     partialEtaSquaredMismatch,
     rSquaredMismatch,
@@ -35,6 +38,7 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     dfExceedsSample,
     tableArithmetic,
     groupStatisticsTestMismatch,
+    mseMismatch,
     groupSizesDfMismatch,
     integerDataGranularity,
     cellStatisticsTestMismatch,

@@ -4,6 +4,7 @@ import { describeP, describeStatistic, describePRange, quoteFromDocument } from 
 import { formatP, formatRange } from '../format.js';
 import { crossesAlpha, pAgrees, printedSignificance, recomputedSignificance } from '../pAgreement.js';
 import { fitsOnlyWhenHalved, fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
+import { fitsOnlyWithPrintedEpsilon, linkedEpsilon } from '../epsilon.js';
 import { describeFactor, pDiscrepancy, type PDiscrepancy } from '../pDiscrepancy.js';
 import { describeAdjustment, judgeAdjustment, type AdjustmentVerdict } from '../pAdjustment.js';
 import { findSlips } from '../slips.js';
@@ -88,6 +89,7 @@ export const pValueMismatch: CheckModule<Options> = {
     if (pAgrees(result.p, range, allowTruncatedP)) return [];
     if (fitsOnlyWhenHalved(result, recomputation, allowTruncatedP)) return []; // halved-p reports it
     if (fitsOnlyWithSphericityCorrection(result, recomputation, context.document.sphericity.length > 0, allowTruncatedP)) return [];
+    if (fitsOnlyWithPrintedEpsilon(result, recomputation, linkedEpsilon(result, context), allowTruncatedP)) return []; // epsilon-df-mismatch reports it
     const verdict = adjustment();
     if (verdict.kind === 'fits' || verdict.kind === 'unverifiable') return []; // consistent, or adjusted-p notes it
 

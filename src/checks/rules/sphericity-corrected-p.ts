@@ -3,6 +3,7 @@ import type { CheckModule } from '../types.js';
 import { describeP, describeStatistic, quoteFromDocument } from '../describe.js';
 import { formatP } from '../format.js';
 import { fitsOnlyWithSphericityCorrection } from '../pExplanations.js';
+import { linkedEpsilon } from '../epsilon.js';
 import { crossesAlpha, printedSignificance, recomputedSignificance } from '../pAgreement.js';
 
 const optionsSchema = z.object({}).strict();
@@ -22,6 +23,8 @@ export const sphericityCorrectedP: CheckModule<z.infer<typeof optionsSchema>> = 
     const statement = statements.filter((s) => s.start < result.start).pop() ?? statements[0];
     if (!recomputation || !statement) return [];
     if (!fitsOnlyWithSphericityCorrection(result, recomputation, true, true)) return [];
+    // With an epsilon printed beside the F, epsilon-df-mismatch checks the p against that epsilon and reports it.
+    if (linkedEpsilon(result, context) !== null) return [];
     const crosses = crossesAlpha(printedSignificance(result.p, false, context.alpha), recomputedSignificance(recomputation.pRange!, context.alpha));
     return [
       {

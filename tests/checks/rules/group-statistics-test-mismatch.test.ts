@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ruleFindings } from './descriptivesHelper.js';
+import { loadFixture } from '../../stats/referenceFixtures.js';
 
 const rule = 'group-statistics-test-mismatch';
 // Reference values: SciPy 1.10.1 (scipy.stats.ttest_ind_from_stats, and f_oneway on data with these
@@ -77,5 +78,46 @@ describe(`${rule}: group statistics in the paragraph before the test`, () => {
     expect(ruleFindings(rule, other)[0]!.findings).toEqual([]);
     const owned = `${groups.slice(0, -1)}, t(47) = 2.18, p = .034.\n\nA second t test on the comfort ratings gave t(47) = 3.18, p = .003.`;
     expect(ruleFindings(rule, owned).map((entry) => entry.findings)).toEqual([[], []]);
+  });
+});
+
+// Welch's and Brown-Forsythe's F with their fractional df, from the groups' printed means, SDs and sizes. The
+// groups and the true F and df come from tests/fixtures/stats/welch_brown_forsythe.json (statsmodels 0.13.5
+// anova_oneway, use_var "unequal" and "bf", on simulated data; gen_welch_brown_forsythe.py), case "4 groups,
+// one wide group": Welch F(3, 30.76) = 5.99, Brown-Forsythe F*(3, 23.32) = 9.63.
+describe(`${rule}: tests for unequal variances (Welch, Brown-Forsythe) and their df`, () => {
+  const unequal = loadFixture<{ cases: Array<{ label: string; groups: Array<{ printedMean: number; printedSd: number; n: number }>; welch: { f: number; df2: number }; brownForsythe: { f: number; df2: number } }> }>(
+    'stats/welch_brown_forsythe.json',
+  ).cases.find((c) => c.label === '4 groups, one wide group')!;
+  const groups = unequal.groups.map((g) => `(M = ${g.printedMean.toFixed(2)}, SD = ${g.printedSd.toFixed(2)}, n = ${g.n})`).join(', ');
+  const text = (test: string) => `Scores differed across the four sites ${groups}, ${test}.`;
+  const welchF = unequal.welch.f.toFixed(2);
+  const welchDf = unequal.welch.df2.toFixed(2);
+  const bfF = unequal.brownForsythe.f.toFixed(2);
+  const bfDf = unequal.brownForsythe.df2.toFixed(2);
+
+  it('must pass: Welch F with its df, and Brown-Forsythe F* with its df', () => {
+    expect(ruleFindings(rule, text(`Welch's F(3, ${welchDf}) = ${welchF}, p = .002`))[0]!.findings).toEqual([]);
+    expect(ruleFindings(rule, text(`Brown-Forsythe F(3, ${bfDf}) = ${bfF}, p < .001`))[0]!.findings).toEqual([]);
+  });
+  it('must pass: the Brown-Forsythe F is recognised without its name (no finding for an F the groups give)', () => {
+    expect(ruleFindings(rule, text(`F(3, ${bfDf}) = ${bfF}, p < .001`))[0]!.findings).toEqual([]);
+  });
+  it("must flag (warn): Brown-Forsythe's F* printed with Welch's df", () => {
+    const [finding] = ruleFindings(rule, text(`Brown-Forsythe F(3, ${welchDf}) = ${bfF}, p < .001`))[0]!.findings;
+    expect(finding).toMatchObject({ rule, messageId: 'dfMismatch', severity: 'warn' });
+    expect(finding!.message).toContain(`as Brown-Forsythe's test, but its error df ${welchDf} does not: the SDs and sizes give df = ${bfDf}`);
+  });
+  it("must flag (warn): Welch's F printed with a df off by three", () => {
+    const wrong = (unequal.welch.df2 - 3).toFixed(2);
+    const [finding] = ruleFindings(rule, text(`Welch's F(3, ${wrong}) = ${welchF}, p = .002`))[0]!.findings;
+    expect(finding).toMatchObject({ rule, messageId: 'dfMismatch' });
+    // Recomputed at the printed (rounded) SDs: within a unit in the last place of the true df.
+    expect(finding!.message).toMatch(new RegExp(`as Welch's test, but its error df ${wrong} does not: the SDs and sizes give df = ${welchDf.slice(0, -1).replace('.', '\\.')}\\d`));
+  });
+  it('must flag (fail): a Brown-Forsythe F that no form of the test reproduces, naming it first', () => {
+    const [finding] = ruleFindings(rule, text(`Brown-Forsythe F(3, ${bfDf}) = 7.50, p < .001`))[0]!.findings;
+    expect(finding).toMatchObject({ rule, messageId: 'mismatch', severity: 'fail' });
+    expect(finding!.message).toContain(`they give Brown-Forsythe's F = ${bfF}`);
   });
 });
