@@ -1,12 +1,12 @@
 /**
  * Where the time of a result-dense audit goes.
  *
- *   npx tsc -p tsconfig.json && node dist/bench/profile.js [results] [seconds]
+ *   npx tsc -p tsconfig.json && node dist/bench/profile.js [results] [seconds] [audit|scan|check]
  *
  * Audits the invented result-dense text of bench/denseText.ts (1,000 results
  * unless told otherwise) over and over for a few seconds under V8's sampling
  * profiler (node:inspector, the profiler `node --cpu-prof` writes), after a
- * warm-up, and prints the functions with the most self time, each with its
+ * warm-up (or only its scan, or only its checks), and prints the functions with the most self time, each with its
  * share of all samples. Goal (issue 16): no single function above 10%.
  * Garbage collection and the profiler's own idle samples are listed apart,
  * because no function of plumbline's can be made faster to cut them.
@@ -18,6 +18,9 @@ import { relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { auditText } from '../src/audit.js';
 import { resolveConfig } from '../src/checks/config.js';
+import { checkResults } from '../src/checks/engine.js';
+import { plainTextDocument } from '../src/documents/text.js';
+import { scanDocument } from '../src/scan/scanDocument.js';
 import { denseDocument } from './denseText.js';
 
 interface ProfileNode {
@@ -78,9 +81,13 @@ function inclusiveTimes(profile: Profile): { name: string; samples: number }[] {
 async function main(): Promise<void> {
   const results = Number(process.argv[2] ?? 1000);
   const seconds = Number(process.argv[3] ?? 4);
+  const part = process.argv[4] ?? 'audit';
   const config = resolveConfig({});
   const text = denseDocument(results);
-  for (let i = 0; i < 10; i++) auditText(text, config);
+  const document = plainTextDocument('<dense>', 'text', text);
+  const scan = scanDocument(document);
+  const work = part === 'scan' ? () => scanDocument(document) : part === 'check' ? () => checkResults(text, scan, config) : () => auditText(text, config);
+  for (let i = 0; i < 10; i++) work();
 
   const session = new Session();
   session.connect();
@@ -90,7 +97,7 @@ async function main(): Promise<void> {
   let audits = 0;
   const until = Date.now() + seconds * 1000;
   while (Date.now() < until) {
-    auditText(text, config);
+    work();
     audits += 1;
   }
   const { profile } = (await session.post('Profiler.stop')) as { profile: Profile };
@@ -98,11 +105,11 @@ async function main(): Promise<void> {
 
   const times = selfTimes(profile);
   const total = times.reduce((sum, entry) => sum + entry.samples, 0);
-  const inFunctions = times.filter((entry) => !NOT_A_FUNCTION.has(entry.name.split(' ')[0]!));
-  const outside = times.filter((entry) => NOT_A_FUNCTION.has(entry.name.split(' ')[0]!));
-  console.log(`${audits} audits of ${results} results in ${seconds} s (${((seconds * 1000) / audits).toFixed(1)} ms each), ${total} samples`);
+  const inFunctions = times.filter((entry) => !NOT_A_FUNCTION.has(entry.name));
+  const outside = times.filter((entry) => NOT_A_FUNCTION.has(entry.name));
+  console.log(`${audits} runs (${part}) of ${results} results in ${seconds} s (${((seconds * 1000) / audits).toFixed(1)} ms each), ${total} samples`);
   console.log('self time by function, largest first:');
-  for (const entry of inFunctions.slice(0, 15)) {
+  for (const entry of inFunctions.slice(0, Number(process.env.PLUMBLINE_PROFILE_TOP ?? 15))) {
     console.log(`  ${((100 * entry.samples) / total).toFixed(1).padStart(5)}%  ${entry.name}`);
   }
   console.log(`  outside functions: ${outside.map((entry) => `${entry.name} ${((100 * entry.samples) / total).toFixed(1)}%`).join(', ')}`);

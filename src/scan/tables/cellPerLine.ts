@@ -450,12 +450,30 @@ const CRUSHED_ROW_LOOKAHEAD = 3;
 function crushedRowFollows(lines: Line[], index: number): boolean {
   let seen = 0;
   for (let at = index + 1; at < lines.length && seen < CRUSHED_ROW_LOOKAHEAD; at++) {
-    const text = lines[at]!.text.trim();
+    const line = lines[at]!;
+    const text = line.text.trim();
     if (text === '' || text === '|') continue;
     seen++;
-    if (text.split(/\s+/).filter((word) => readCell(word).kind === 'number').length >= 2) return true;
+    if (holdsTwoNumbers(line, text)) return true;
   }
   return false;
+}
+
+/**
+ * Whether a line's words include two or more numbers, kept per line: each line is asked again by the
+ * lines before it (the lookahead above) and by every table search that passes it.
+ */
+const twoNumbersOnLine = new WeakMap<Line, boolean>();
+
+function holdsTwoNumbers(line: Line, trimmed: string): boolean {
+  const known = twoNumbersOnLine.get(line);
+  if (known !== undefined) return known;
+  let numbers = 0;
+  for (const word of trimmed.split(/\s+/)) {
+    if (readCell(word).kind === 'number' && ++numbers >= 2) break;
+  }
+  twoNumbersOnLine.set(line, numbers >= 2);
+  return numbers >= 2;
 }
 
 /** A line without the pipes a web page's table leaves around a cell ("| Source |", "DF |"); null for an empty line. */
