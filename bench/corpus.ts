@@ -20,9 +20,9 @@ import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node
 import { availableParallelism, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
 import { printedP, seededRandom } from './seededRandom.js';
+import { writePdf } from './pdfWriter.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const cli = join(here, '..', 'src', 'cli', 'main.js');
@@ -56,25 +56,6 @@ function manuscript(index: number): string[] {
     );
   }
   return lines;
-}
-
-async function writePdf(path: string, lines: string[]): Promise<void> {
-  const pdf = await PDFDocument.create();
-  const font = await pdf.embedFont(StandardFonts.Helvetica);
-  let page = pdf.addPage([595, 842]);
-  let y = 800;
-  for (const line of lines) {
-    // Wrap at about 95 characters, as a narrow column would.
-    for (let start = 0; start < Math.max(1, line.length); start += 95) {
-      if (y < 50) {
-        page = pdf.addPage([595, 842]);
-        y = 800;
-      }
-      page.drawText(line.slice(start, start + 95), { x: 40, y, size: 9, font });
-      y -= 13;
-    }
-  }
-  writeFileSync(path, await pdf.save());
 }
 
 function seconds(run: () => void): number {

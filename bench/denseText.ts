@@ -99,3 +99,48 @@ export function denseDocument(results: number, seed = 16): string {
   }
   return parts.join('\n\n') + '\n';
 }
+
+/** Prose between the results of a paragraph, as a results chapter has around its tests. */
+const FILLER =
+  'Responses were screened before the analyses, and the assumptions of each test were checked against the residuals. ' +
+  'The comparisons below follow the order of the preregistered hypotheses, and the exploratory analyses are marked as such in the text. ' +
+  'Participants who failed the attention checks were excluded from every analysis reported in this section.';
+
+/**
+ * The same text in ASCII, for PDFs written with the standard fonts (which
+ * have no Greek): "eta squared", "partial eta squared" and "chi2" for the
+ * symbols, with three sentences of prose after each paragraph of results
+ * (about 170 characters per result, as a thesis's results chapter).
+ */
+export function asciiDenseDocument(results: number, seed = 16): string {
+  const ascii = denseDocument(results, seed).replaceAll('ηp2', 'partial eta squared').replaceAll('η2', 'eta squared').replaceAll('χ²', 'chi2');
+  return ascii
+    .split('\n\n')
+    .map((part) => (part.startsWith('Table ') || part.startsWith('|') ? part : `${part} ${FILLER}`))
+    .join('\n\n');
+}
+
+/** Most characters on a line of a page, in the PDFs the benchmarks write and in the text as a PDF gives it back. */
+export const LINE_WIDTH = 95;
+
+/** A paragraph broken between words into lines of at most LINE_WIDTH characters, as a typesetter does (a longer word stands alone). */
+export function wrapWords(line: string, width = LINE_WIDTH): string[] {
+  const pieces: string[] = [];
+  let current = '';
+  for (const word of line.split(' ')) {
+    if (current !== '' && current.length + 1 + word.length > width) {
+      pieces.push(current);
+      current = word;
+    } else current = current === '' ? word : `${current} ${word}`;
+  }
+  pieces.push(current);
+  return pieces;
+}
+
+/** The dense text with its paragraphs wrapped into lines, as text taken from a PDF comes (pdftotext -raw). */
+export function wrappedDenseDocument(results: number, seed = 16): string {
+  return denseDocument(results, seed)
+    .split('\n')
+    .flatMap((line) => wrapWords(line))
+    .join('\n');
+}

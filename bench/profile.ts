@@ -1,12 +1,13 @@
 /**
  * Where the time of a result-dense audit goes.
  *
- *   npx tsc -p tsconfig.json && node dist/bench/profile.js [results] [seconds] [audit|scan|check]
+ *   npx tsc -p tsconfig.json && node dist/bench/profile.js [results] [seconds] [audit|scan|check] [lines|wrapped]
  *
  * Audits the invented result-dense text of bench/denseText.ts (1,000 results
  * unless told otherwise) over and over for a few seconds under V8's sampling
  * profiler (node:inspector, the profiler `node --cpu-prof` writes), after a
- * warm-up (or only its scan, or only its checks), and prints the functions with the most self time, each with its
+ * warm-up (or only its scan, or only its checks; with `wrapped`, the text
+ * with its paragraphs wrapped into lines as a PDF gives it), and prints the functions with the most self time, each with its
  * share of all samples. Goal (issue 16): no single function above 10%.
  * Garbage collection and the profiler's own idle samples are listed apart,
  * because no function of plumbline's can be made faster to cut them.
@@ -21,7 +22,7 @@ import { resolveConfig } from '../src/checks/config.js';
 import { checkResults } from '../src/checks/engine.js';
 import { plainTextDocument } from '../src/documents/text.js';
 import { scanDocument } from '../src/scan/scanDocument.js';
-import { denseDocument } from './denseText.js';
+import { denseDocument, wrappedDenseDocument } from './denseText.js';
 
 interface ProfileNode {
   id: number;
@@ -83,7 +84,7 @@ async function main(): Promise<void> {
   const seconds = Number(process.argv[3] ?? 4);
   const part = process.argv[4] ?? 'audit';
   const config = resolveConfig({});
-  const text = denseDocument(results);
+  const text = process.argv[5] === 'wrapped' ? wrappedDenseDocument(results) : denseDocument(results);
   const document = plainTextDocument('<dense>', 'text', text);
   const scan = scanDocument(document);
   const work = part === 'scan' ? () => scanDocument(document) : part === 'check' ? () => checkResults(text, scan, config) : () => auditText(text, config);

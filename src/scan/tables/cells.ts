@@ -180,10 +180,14 @@ const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
  * A header as a comparable key: normalised (Greek spelled out, super- and
  * subscripts as digits), lower case, without markup characters, single spaces.
  */
-export const headerKey = keepAnswers(headerKeyOf);
+export function headerKey(header: string): string {
+  // (Long texts are no header: answered before the store, which they would only fill.)
+  return header.length > MAX_CELL_LENGTH ? '' : keptHeaderKey(header);
+}
+
+const keptHeaderKey = keepAnswers(headerKeyOf);
 
 function headerKeyOf(header: string): string {
-  if (header.length > MAX_CELL_LENGTH) return '';
   // Plain ASCII words need no normalisation; most candidate phrases in running text are such words,
   // and this is called for every word of every line while looking for table headers.
   if (PLAIN_HEADER.test(header)) return header.toLowerCase().replace(/\s+/g, ' ').trim();

@@ -22,6 +22,7 @@
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
+import { keepAnswers } from '../memo.js';
 import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
@@ -38,9 +39,9 @@ interface Line extends TextLine {
 
 /** A piece of a line with offsets relative to the line. */
 interface Piece {
-  text: string;
-  start: number;
-  end: number;
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
 }
 
 /** Lines longer than this are prose (or a whole paragraph on one line), not table rows. */
@@ -533,8 +534,14 @@ function readSoftwareCorrelations(lines: Line[], index: number): { table: Docume
   return below === null ? null : { table: { ...below.table, start: lines[index]!.start + leadingSpace(lines[index]!.text) }, lastLine: below.lastLine };
 }
 
-/** Splits at whitespace outside brackets; "F (2, 57)" and "Error (between)" stay whole, "< .001" is joined. */
-function tokenize(text: string): Piece[] {
+/**
+ * Splits at whitespace outside brackets; "F (2, 57)" and "Error (between)" stay whole, "< .001" is joined.
+ * Kept per line text: the readers of aligned, crushed and wrapped tables each tokenize a line, and a line
+ * again as the line after the one looked at (readWrappedHeader), so prose lines were split five times over.
+ */
+const tokenize = keepAnswers(splitTokens);
+
+function splitTokens(text: string): readonly Piece[] {
   const raw: Piece[] = [];
   let at = 0;
   while (at < text.length) {
@@ -869,7 +876,7 @@ function join(text: string, first: Piece, last: Piece): Piece {
   return { text: text.slice(first.start, last.end), start: first.start, end: last.end };
 }
 
-function startsKnownPhrase(tokens: Piece[], index: number): boolean {
+function startsKnownPhrase(tokens: readonly Piece[], index: number): boolean {
   return knownPhraseLength(tokens, index) > 0;
 }
 
@@ -877,14 +884,14 @@ function startsKnownPhrase(tokens: Piece[], index: number): boolean {
  * The words of the header name starting at `index`: the longest known phrase, except that "df Error df" is
  * "df" and "Error df" (a name ends with its noun: "Hypothesis df", "Error df"), not "df Error" and "df".
  */
-function headerPhraseLength(tokens: Piece[], index: number): number {
+function headerPhraseLength(tokens: readonly Piece[], index: number): number {
   const length = knownPhraseLength(tokens, index);
   const dfFirst = length === 2 && /^d\.?f\.?$/i.test(tokens[index]!.text) && /^d\.?f\.?$/i.test(tokens[index + 2]?.text ?? '');
   return dfFirst && knownPhraseLength(tokens, index + 1) === 2 ? 1 : length;
 }
 
 /** "n = 30" after a group's name in a header ("Group A n = 30"): one token, part of the name, not an "n" column. */
-function withGroupSizes(text: string, tokens: Piece[]): Piece[] {
+function withGroupSizes(text: string, tokens: readonly Piece[]): Piece[] {
   const merged: Piece[] = [];
   for (let index = 0; index < tokens.length; index++) {
     const token = tokens[index]!;
@@ -900,7 +907,7 @@ function withGroupSizes(text: string, tokens: Piece[]): Piece[] {
 }
 
 /** Words in the longest known header phrase starting at `index` (0 if none). */
-function knownPhraseLength(tokens: Piece[], index: number): number {
+function knownPhraseLength(tokens: readonly Piece[], index: number): number {
   for (let length = Math.min(LONGEST_HEADER_WORDS, tokens.length - index); length >= 1; length--) {
     const phrase = tokens
       .slice(index, index + length)
@@ -1297,7 +1304,7 @@ function continuationValues(line: Line, room: number): Piece[] | null {
   if (room <= 0 || isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text)) return null;
   const tokens = tokenize(line.text);
   if (tokens.length === 0 || tokens.length > room || !tokens.every((token) => isValueToken(token.text) || isMarkToken(token.text))) return null;
-  return tokens;
+  return [...tokens];
 }
 
 /** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */
