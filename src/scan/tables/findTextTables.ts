@@ -719,11 +719,11 @@ function alignedCells(text: string): Piece[] {
 }
 
 interface HeaderLine {
-  columns: Piece[];
+  readonly columns: readonly Piece[];
   /** True when the columns stand apart by wide gaps, so positions can place data cells. */
-  aligned: boolean;
+  readonly aligned: boolean;
   /** True when the header's cells are separated by single tabs, as rows copied from a word processor are. */
-  tabbed: boolean;
+  readonly tabbed: boolean;
 }
 
 /**
@@ -732,7 +732,25 @@ interface HeaderLine {
  * headers are read cell by cell; crushed ones are grouped into the longest
  * known phrases ("Sum of squares", "Partial eta squared").
  */
-function readHeader(line: Line): HeaderLine | null {
+/**
+ * Answers about one line, kept per line: readSpacedTable asks them of a line, of the line after it and of the
+ * one after that (readWrappedHeader) as it moves down the text, three times over for every line of prose.
+ * (The answers are read-only: HeaderLine and DataLine.)
+ */
+function keptPerLine<Answer>(answer: (line: Line) => Answer): (line: Line) => Answer {
+  const kept = new WeakMap<Line, { answer: Answer }>();
+  return (line) => {
+    const known = kept.get(line);
+    if (known !== undefined) return known.answer;
+    const fresh = answer(line);
+    kept.set(line, { answer: fresh });
+    return fresh;
+  };
+}
+
+const readHeader = keptPerLine(readHeaderOf);
+
+function readHeaderOf(line: Line): HeaderLine | null {
   const text = line.text;
   if (text.length > MAX_ROW_LENGTH || text.trim() === '' || /\d\.\d/.test(text)) return null;
   if (!line.crushed && text.includes('\t')) {
@@ -920,8 +938,8 @@ function knownPhraseLength(tokens: readonly Piece[], index: number): number {
 }
 
 interface DataLine {
-  label: Piece;
-  values: Piece[];
+  readonly label: Piece;
+  readonly values: readonly Piece[];
 }
 
 /** A numbered variable's label ("1. SPAS Total Score", "1 Anxiety"), as matrices number their rows. */
@@ -994,7 +1012,7 @@ function stackedHeaderAbove(lines: Line[], first: number, header: HeaderLine): {
 }
 
 /** The column a piece of a line above stands over: the one it overlaps most (-1 if none). */
-function columnUnder(piece: Piece, columns: Piece[]): number {
+function columnUnder(piece: Piece, columns: readonly Piece[]): number {
   let best = -1;
   let bestOverlap = 0;
   columns.forEach((column, index) => {
@@ -1347,7 +1365,14 @@ const MAX_SUB_HEADER_LINES = 2;
 const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subjects?|participants?|fehler|erro|erreur|r\u00e9sidus?|res\u00edduos?|residuos?|fout|errore|intra[- ]?grupos?|dentro de (?:los )?grupos)(?![\p{L}])/iu;
 
 /** A data line of a table: two or more values, or one after an error or total label. */
+const readFirstRowLine = keptPerLine((line) => readRowLineOf(line, true));
+const readLaterRowLine = keptPerLine((line) => readRowLineOf(line, false));
+
 function readRowLine(line: Line, first: boolean): DataLine | null {
+  return first ? readFirstRowLine(line) : readLaterRowLine(line);
+}
+
+function readRowLineOf(line: Line, first: boolean): DataLine | null {
   if (TITLE.test(line.text) || NOTE.test(line.text)) return null;
   const data = readDataLine(line, 1);
   if (data === null) return null;
@@ -1402,7 +1427,7 @@ function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string
 }
 
 /** Whether the header names one df column and the values at its place and the next are a whole-number df pair. */
-function dfPairUnderHeader(values: Piece[], columns: Piece[]): boolean {
+function dfPairUnderHeader(values: readonly Piece[], columns: readonly Piece[]): boolean {
   const dfColumns = columns.flatMap((column, index) => (classifyHeader(column.text).role === 'df' ? [index] : []));
   if (dfColumns.length !== 1 || dfColumns[0]! < 1) return false;
   const [first, second] = [values[dfColumns[0]! - 1]?.text ?? '', values[dfColumns[0]!]?.text ?? ''];
@@ -1410,7 +1435,7 @@ function dfPairUnderHeader(values: Piece[], columns: Piece[]): boolean {
 }
 
 /** Column of each value by the zones between header cells, or null when they collide or go backwards. */
-function placeByPosition(values: Piece[], columns: Piece[]): number[] | null {
+function placeByPosition(values: readonly Piece[], columns: readonly Piece[]): number[] | null {
   const zones = columns.map((column, index) => {
     const previous = columns[index - 1];
     const next = columns[index + 1];
