@@ -22,7 +22,13 @@
  *       src/batch/syncBudget.ts): the audit of the 1,000-result document and
  *       of a one-paragraph document under the watchdog, beside the same
  *       audits called plainly (goal: within 2% for 1,000 results, a few
- *       hundredths of a millisecond for one paragraph).
+ *       hundredths of a millisecond for one paragraph);
+ *   (e) scan and check of the same 1,000 results with the paragraphs wrapped
+ *       into lines of at most 95 characters, as pdftotext gives a PDF's text
+ *       (every line of prose is then looked at by the table finders), and
+ *       its scan throughput (goals as (a) and (b));
+ *   (f) the JSON report's bytes per result for the 1,000-result document,
+ *       with the fields that take most (a measure to watch; no goal yet).
  */
 
 import { auditText } from '../src/audit.js';
@@ -30,7 +36,8 @@ import { resolveConfig } from '../src/checks/config.js';
 import { checkResults } from '../src/checks/engine.js';
 import { plainTextDocument } from '../src/documents/text.js';
 import { scanDocument } from '../src/scan/scanDocument.js';
-import { denseDocument } from './denseText.js';
+import { denseDocument, wrappedDenseDocument } from './denseText.js';
+import { documentJson } from '../src/report/json.js';
 import { bestTime } from './bestTime.js';
 import { runSyncWithinBudget } from '../src/batch/syncBudget.js';
 
@@ -56,9 +63,9 @@ interface Measured {
   auditMs: number;
 }
 
-function measure(results: number): Measured {
+function measure(results: number, wrapped = false): Measured {
   const config = resolveConfig({});
-  const text = denseDocument(results);
+  const text = wrapped ? wrappedDenseDocument(results) : denseDocument(results);
   const document = plainTextDocument('<dense>', 'text', text);
   const scan = scanDocument(document);
   // Warm-up: the first audit pays for compiling the code it runs ("after start-up").
@@ -131,6 +138,21 @@ function main(): void {
   console.log(
     `(d) time budget's watchdog, ${small.found} results ${guardRatio.toFixed(3).padStart(7)}x    goal <= 1.02x: ${verdict(guardRatio <= 1.02)}  (${guardedSmall.toFixed(2)} ms against ${plainSmall.toFixed(2)} ms called plainly; one paragraph: ${(guardedParagraph * 1000).toFixed(0)} µs against ${(plainParagraph * 1000).toFixed(0)} µs, +${((guardedParagraph - plainParagraph) * 1000).toFixed(0)} µs)`,
   );
+  const wrapped = measure(1000, true);
+  const wrappedRate = megabytes(wrapped.text) / (wrapped.scanMs / 1000);
+  console.log(
+    `(e) wrapped as a PDF's text, ${wrapped.found} results ${wrapped.auditMs.toFixed(1).padStart(6)} ms   goal <= 50 ms: ${verdict(wrapped.auditMs <= 50)}  (scan ${wrapped.scanMs.toFixed(1)} ms, check ${wrapped.checkMs.toFixed(1)} ms; ${(wrapped.text.length / 1024).toFixed(0)} KB in ${wrapped.text.split('\n').length} lines)`,
+  );
+  console.log(`    scan throughput, wrapped, one core  ${wrappedRate.toFixed(2).padStart(8)} MB/s goal >= 5 MB/s: ${verdict(wrappedRate >= 5)}`);
+  const audit = auditText(small.text, resolveConfig({}), 'dense.txt');
+  const json = documentJson(audit);
+  const byField = new Map<string, number>();
+  for (const statistic of audit.statistics) {
+    for (const [field, value] of Object.entries(statistic)) byField.set(field, (byField.get(field) ?? 0) + JSON.stringify(value).length + field.length + 4);
+  }
+  const perResult = json.length / audit.statistics.length;
+  const largest = [...byField].sort((a, b) => b[1] - a[1]).slice(0, 4).map(([field, bytes]) => `${field} ${(bytes / audit.statistics.length).toFixed(0)}`);
+  console.log(`(f) JSON report, bytes per result    ${perResult.toFixed(0).padStart(8)}       (${(json.length / 1024).toFixed(0)} KB for ${audit.statistics.length} results; largest fields per result: ${largest.join(', ')})`);
 }
 
 main();
