@@ -14,7 +14,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const here = dirname(fileURLToPath(import.meta.url));
-const benchmarks = ['scan', 'dense', 'stats', 'documents', 'corpus', 'refit', 'stream', 'hostile', 'inputs', 'reports', 'web'];
+const benchmarks = ['scan', 'dense', 'profile', 'workers', 'stats', 'documents', 'corpus', 'refit', 'stream', 'hostile', 'inputs', 'reports', 'web'];
 const wanted = process.argv.slice(2);
 
 let failures = 0;

@@ -68,24 +68,48 @@ export function statisticInterval(result: ReportedResult): Interval | null {
   return { low: Math.max(0, low), high: Math.min(upperLimit, high) };
 }
 
-/** Every combination of interval ends (the corners of the rounding box). */
-function corners(intervals: readonly Interval[]): number[][] {
-  return intervals.reduce<number[][]>(
-    (combos, interval) => combos.flatMap((combo) => [...new Set([interval.low, interval.high])].map((end) => [...combo, end])),
-    [[]],
-  );
+/** Set semantics (SameValueZero): the two ends are one corner when equal (NaN included). */
+function sameEnd(low: number, high: number): boolean {
+  return low === high || (Number.isNaN(low) && Number.isNaN(high));
 }
 
 /**
  * Range of p over the rounding box. p is monotone in the statistic and, for
  * the distributions used here, in each df over the small widths that rounding
- * allows, so the extremes sit at the corners.
+ * allows, so the extremes sit at the corners. The corners are visited one by
+ * one without building their list: this runs for every result and for every
+ * slip tried, and the list cost more than the p-values.
  */
 export function pRangeOverBox(kind: ReportedResult['kind'], statistic: Interval, dfs: readonly Interval[]): Interval {
   let low = Infinity;
   let high = -Infinity;
-  for (const [value, ...df] of corners([statistic, ...dfs])) {
-    const p = pValueFor(kind, value ?? NaN, df);
+  const dimensions = dfs.length + 1;
+  let corners = 1;
+  // Bit d of a corner's number picks the high end of dimension d (the statistic is dimension 0); an interval whose ends are equal has one corner.
+  let twoEnded = 0;
+  for (let d = 0; d < dimensions; d++) {
+    const interval = d === 0 ? statistic : dfs[d - 1]!;
+    if (!sameEnd(interval.low, interval.high)) {
+      twoEnded |= 1 << d;
+      corners *= 2;
+    }
+  }
+  const df: number[] = new Array<number>(dfs.length);
+  for (let corner = 0; corner < corners; corner++) {
+    // The corner's bits are spread over the two-ended dimensions only.
+    let bits = corner;
+    let value = NaN;
+    for (let d = 0; d < dimensions; d++) {
+      const interval = d === 0 ? statistic : dfs[d - 1]!;
+      let end = interval.low;
+      if ((twoEnded >> d) & 1) {
+        if (bits & 1) end = interval.high;
+        bits >>= 1;
+      }
+      if (d === 0) value = end;
+      else df[d - 1] = end;
+    }
+    const p = pValueFor(kind, value, df);
     if (Number.isNaN(p)) continue;
     low = Math.min(low, p);
     high = Math.max(high, p);
@@ -117,6 +141,31 @@ function spearmanPRange(size: Interval, df: number): Interval {
 
 const requiredDfCount: Record<ReportedResult['kind'], number> = { F: 2, t: 1, chi2: 1, r: 1, z: 0 };
 
+/** Why p cannot be recomputed for a result (null when it can); the result's statistic interval is given. */
+function notEvaluableBecause(result: ReportedResult, statisticRange: Interval | null): string | null {
+  if (!result.value || !statisticRange) return 'the statistic is not written as a number';
+  if (result.df.length !== requiredDfCount[result.kind]) return `${result.kind} needs ${requiredDfCount[result.kind]} df, found ${result.df.length}`;
+  for (const df of result.df) if (!(df.value > 0)) return 'df must be positive';
+  if (result.kind === 'r' && Math.abs(result.value.value) > 1) return '|r| > 1';
+  if ((result.kind === 'F' || result.kind === 'chi2') && result.value.value < 0) return `${result.kind} cannot be negative`;
+  return null;
+}
+
+/** The p range over the rounding box, as recompute gives it, or null when p cannot be recomputed. */
+function pRangeOfEvaluable(result: ReportedResult, statisticRange: Interval): Interval {
+  return result.symbol === 'rs' ? spearmanPRange(statisticRange, result.df[0]!.value) : pRangeOverBox(result.kind, statisticRange, result.df.map(dfInterval));
+}
+
+/**
+ * recompute(result).pRange when the result is evaluable, null otherwise, without the p at the
+ * printed numbers and the effect size: the slip search asks this of dozens of variants per result.
+ */
+export function recomputedPRange(result: ReportedResult): Interval | null {
+  const statisticRange = statisticInterval(result);
+  if (notEvaluableBecause(result, statisticRange) !== null) return null;
+  return pRangeOfEvaluable(result, statisticRange!);
+}
+
 export function recompute(result: ReportedResult): Recomputation {
   const tails = result.kind === 'F' || result.kind === 'chi2' ? 'upper' : 'two';
   const empty: Recomputation = {
@@ -130,27 +179,21 @@ export function recompute(result: ReportedResult): Recomputation {
     partialEtaSquaredRange: null,
   };
   const statisticRange = statisticInterval(result);
-  if (!result.value || !statisticRange) return { ...empty, reason: 'the statistic is not written as a number' };
-  if (result.df.length !== requiredDfCount[result.kind]) {
-    return { ...empty, statisticRange, reason: `${result.kind} needs ${requiredDfCount[result.kind]} df, found ${result.df.length}` };
-  }
+  const reason = notEvaluableBecause(result, statisticRange);
+  if (reason !== null) return { ...empty, statisticRange, reason };
+  const value = result.value!;
   const dfValues = result.df.map((df) => df.value);
-  if (dfValues.some((df) => !(df > 0))) return { ...empty, statisticRange, reason: 'df must be positive' };
-  if (result.kind === 'r' && Math.abs(result.value.value) > 1) return { ...empty, statisticRange, reason: '|r| > 1' };
-  if ((result.kind === 'F' || result.kind === 'chi2') && result.value.value < 0) {
-    return { ...empty, statisticRange, reason: `${result.kind} cannot be negative` };
-  }
-  const atPrinted = result.valueComparator === '=' ? pValueFor(result.kind, Math.abs(result.value.value), dfValues) : null;
-  const pRange = result.symbol === 'rs' ? spearmanPRange(statisticRange, dfValues[0]!) : pRangeOverBox(result.kind, statisticRange, result.df.map(dfInterval));
+  const atPrinted = result.valueComparator === '=' ? pValueFor(result.kind, Math.abs(value.value), dfValues) : null;
+  const pRange = pRangeOfEvaluable(result, statisticRange!);
   let partialEtaSquared: number | null = null;
   let partialEtaSquaredRange: Interval | null = null;
   if (result.kind === 'F') {
     const [df1, df2] = result.df.map(dfInterval) as [Interval, Interval];
-    partialEtaSquared = result.valueComparator === '=' ? partialEtaSquaredFromF(result.value.value, dfValues[0]!, dfValues[1]!) : null;
+    partialEtaSquared = result.valueComparator === '=' ? partialEtaSquaredFromF(value.value, dfValues[0]!, dfValues[1]!) : null;
     // Increasing in F and df1, decreasing in df2.
     partialEtaSquaredRange = {
-      low: partialEtaSquaredFromF(statisticRange.low, df1.low, df2.high),
-      high: partialEtaSquaredFromF(statisticRange.high, df1.high, df2.low),
+      low: partialEtaSquaredFromF(statisticRange!.low, df1.low, df2.high),
+      high: partialEtaSquaredFromF(statisticRange!.high, df1.high, df2.low),
     };
   }
   return {

@@ -2,7 +2,7 @@ import type { ReportedNumber, ReportedResult } from '../scan/types.js';
 import { parseReportedNumber } from '../stats/reportedNumber.js';
 import { fUpperTail } from '../stats/index.js';
 import { pAgrees } from './pAgreement.js';
-import { dfInterval, pRangeOverBox, recompute, statisticInterval, type Interval, type Recomputation } from './recompute.js';
+import { dfInterval, pRangeOverBox, recomputedPRange, statisticInterval, type Interval, type Recomputation } from './recompute.js';
 import { describeStatistic } from './describe.js';
 
 /** A simple slip that, if it happened, reproduces the printed p. */
@@ -57,8 +57,8 @@ export function singleDigitVariants(text: string): string[] {
 
 function fitsPrinted(result: ReportedResult, variant: ReportedResult, allowTruncation: boolean): boolean {
   if (!result.p) return false;
-  const alternative = recompute(variant);
-  return alternative.evaluable && alternative.pRange !== null && pAgrees(result.p, alternative.pRange, allowTruncation);
+  const alternative = recomputedPRange(variant);
+  return alternative !== null && pAgrees(result.p, alternative, allowTruncation);
 }
 
 function withDf(result: ReportedResult, index: number, value: number): ReportedResult | null {

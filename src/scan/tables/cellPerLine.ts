@@ -108,26 +108,21 @@ export function readUntitledCellPerLineTable(lines: Line[], first: number): Cell
   return readCells(lines, first - 1, lines[first]!, false);
 }
 
-function readCells(lines: Line[], titleLine: number, title: Line, titled: boolean): CellPerLineTable | null {
-  const cells = collectCells(lines, titleLine + 1);
-  // The header: from the first known column name, the run of cells up to the first value.
-  let first = -1;
+/** The header's first known column name among the cells (within the first cells and lines under the title), or -1. */
+function headerStart(cells: readonly Cell[], titleLine: number): number {
   let seen = 0;
   for (let index = 0; index < cells.length && seen < MAX_CELLS_TO_HEADER && cells[index]!.line <= titleLine + MAX_LINES_TO_HEADER; index++) {
     const cell = cells[index]!;
     if (cell.empty) continue;
     seen++;
     if (isValueCell(cell) && !YEAR_NAME.test(cell.text)) break;
-    if (isColumnName(cell.text)) {
-      first = index;
-      break;
-    }
+    if (isColumnName(cell.text)) return index;
   }
-  // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
-  // vocabulary knows: its header is the cells right before the first row's label.
-  // (The title may stand alone, "Table 3.", with its caption on the next line.)
-  const firstCell = cells.find((cell) => !cell.empty);
-  // The title and the caption lines under it, before the first cell.
+  return -1;
+}
+
+/** The title and the caption lines under it, before the first cell ('' without a title), and whether they (with that cell) say correlations. */
+function captionOf(lines: Line[], titleLine: number, titled: boolean, firstCell: Cell | undefined): { caption: string; correlations: boolean } {
   const caption = titled
     ? lines
         .slice(titleLine, firstCell === undefined ? titleLine + 1 : Math.max(titleLine + 1, firstCell.line))
@@ -136,7 +131,25 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
         .join(' ')
     : '';
   const titleText = `${caption} ${firstCell?.text ?? ''}`;
-  const correlations = SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText);
+  return { caption, correlations: SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText) };
+}
+
+function readCells(lines: Line[], titleLine: number, title: Line, titled: boolean): CellPerLineTable | null {
+  // Whether a table starts here is decided by the cells of the lines the header may start on: without a column
+  // name there, and without a title that says correlations, there is none, and the cells after (up to
+  // MAX_BODY_CELLS of prose, to the next title) are not collected. (Their first cells are the same either way:
+  // collectCells reads line by line.)
+  const head = collectCells(lines, titleLine + 1, titleLine + MAX_LINES_TO_HEADER);
+  const headFirstCell = head.find((cell) => !cell.empty);
+  if (headerStart(head, titleLine) === -1 && headFirstCell !== undefined && !captionOf(lines, titleLine, titled, headFirstCell).correlations) return null;
+  const cells = collectCells(lines, titleLine + 1);
+  // The header: from the first known column name, the run of cells up to the first value.
+  let first = headerStart(cells, titleLine);
+  // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
+  // vocabulary knows: its header is the cells right before the first row's label.
+  // (The title may stand alone, "Table 3.", with its caption on the next line.)
+  const firstCell = cells.find((cell) => !cell.empty);
+  const { caption, correlations } = captionOf(lines, titleLine, titled, firstCell);
   // (A numbered matrix's label header, "Variables", may read as a column name; its numbers decide.)
   const grid = correlations ? (numberedHeader(cells) ?? (first === -1 ? gridHeader(cells, titleLine) : null)) : null;
   if (first === -1 && grid === null) return null;
@@ -258,13 +271,16 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   };
 }
 
-/** The cells after `from`: one per non-blank line, up to a note, a long line of prose, or a gap of blank lines. */
-function collectCells(lines: Line[], from: number): Cell[] {
+/**
+ * The cells after `from`: one per non-blank line, up to a note, a long line of prose, or a gap of blank lines
+ * (and, when given, no further than line `lastLine`: the first cells of the same collection).
+ */
+function collectCells(lines: Line[], from: number, lastLine = Infinity): Cell[] {
   const cells: Cell[] = [];
   let blankRun = 0;
   // Whether a cell so far names a column: kept as cells come, not looked for again at every line.
   let headerSeen = false;
-  for (let index = from; index < lines.length && cells.length < MAX_BODY_CELLS; index++) {
+  for (let index = from; index < lines.length && index <= lastLine && cells.length < MAX_BODY_CELLS; index++) {
     const line = lines[index]!;
     const inner = stripPipes(line.text);
     if (inner === null) {
@@ -450,12 +466,30 @@ const CRUSHED_ROW_LOOKAHEAD = 3;
 function crushedRowFollows(lines: Line[], index: number): boolean {
   let seen = 0;
   for (let at = index + 1; at < lines.length && seen < CRUSHED_ROW_LOOKAHEAD; at++) {
-    const text = lines[at]!.text.trim();
+    const line = lines[at]!;
+    const text = line.text.trim();
     if (text === '' || text === '|') continue;
     seen++;
-    if (text.split(/\s+/).filter((word) => readCell(word).kind === 'number').length >= 2) return true;
+    if (holdsTwoNumbers(line, text)) return true;
   }
   return false;
+}
+
+/**
+ * Whether a line's words include two or more numbers, kept per line: each line is asked again by the
+ * lines before it (the lookahead above) and by every table search that passes it.
+ */
+const twoNumbersOnLine = new WeakMap<Line, boolean>();
+
+function holdsTwoNumbers(line: Line, trimmed: string): boolean {
+  const known = twoNumbersOnLine.get(line);
+  if (known !== undefined) return known;
+  let numbers = 0;
+  for (const word of trimmed.split(/\s+/)) {
+    if (readCell(word).kind === 'number' && ++numbers >= 2) break;
+  }
+  twoNumbersOnLine.set(line, numbers >= 2);
+  return numbers >= 2;
 }
 
 /** A line without the pipes a web page's table leaves around a cell ("| Source |", "DF |"); null for an empty line. */

@@ -10,6 +10,7 @@
 
 import { normaliseText } from '../normalise.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
+import { keepAnswers } from '../memo.js';
 import type { Comparator, EffectKind, ReportedNumber, StatisticKind } from '../types.js';
 
 /** Cells longer than this are text, not numbers or headers. */
@@ -110,10 +111,20 @@ export function readCell(cell: string, separator: DecimalSeparator = '.'): CellV
 /** Characters that start a garbled (mis-decoded) glyph, spaces a number may hold, or a math font's asterisk ("4.21∗∗"). */
 const GARBLED = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f\u2217\ufe61\uff0a]/;
 
+function hasDigit(text: string): boolean {
+  for (let index = 0; index < text.length; index++) {
+    const code = text.charCodeAt(index);
+    if (code >= 48 && code <= 57) return true;
+  }
+  return false;
+}
+
 function readPlainCell(cell: string, separator: DecimalSeparator): CellValue {
   if (EMPTY_CELL.test(cell)) return { kind: 'empty' };
   const trimmed = cell.trim();
   if (NOT_SIGNIFICANT.test(trimmed)) return { kind: 'ns' };
+  // A number has a digit (plainDigits below asks for one): most words of prose are told apart here, without the patterns.
+  if (!hasDigit(trimmed)) return { kind: 'text' };
   const withoutNs = trimmed.replace(NS_AFTER_NUMBER, '');
   const match = NUMBER_CELL.exec(withoutNs);
   if (!match) return { kind: 'text' };
@@ -170,7 +181,13 @@ const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
  * subscripts as digits), lower case, without markup characters, single spaces.
  */
 export function headerKey(header: string): string {
-  if (header.length > MAX_CELL_LENGTH) return '';
+  // (Long texts are no header: answered before the store, which they would only fill.)
+  return header.length > MAX_CELL_LENGTH ? '' : keptHeaderKey(header);
+}
+
+const keptHeaderKey = keepAnswers(headerKeyOf);
+
+function headerKeyOf(header: string): string {
   // Plain ASCII words need no normalisation; most candidate phrases in running text are such words,
   // and this is called for every word of every line while looking for table headers.
   if (PLAIN_HEADER.test(header)) return header.toLowerCase().replace(/\s+/g, ' ').trim();
@@ -288,7 +305,9 @@ const DF_NAMES_IN_BRACKETS = / ?[([](?:df|d\.f\.|gl|ddl)[a-z0-9. ]{0,8}(?:[,;/] 
  * glued on ("Cohen db", "P valueb", "F testc"), or "(df)" after a statistic
  * whose cells hold their df in brackets ("t value (df)": "4.842 (15)").
  */
-function knownKeyOf(key: string): string | null {
+const knownKeyOf = keepAnswers(findKnownKey);
+
+function findKnownKey(key: string): string | null {
   const bare = key.replace(/[.:]$/, '');
   if (ROLE_BY_KEY.has(key)) return key;
   if (ROLE_BY_KEY.has(bare)) return bare;
@@ -465,7 +484,9 @@ const CI_WITH_LEVEL = /^\d{2}(?:\.\d)? ?% ?(?:ci|confidence interval)$/;
 const QUALIFIED_STATISTIC = /^[a-z][a-z0-9'\u2019-]*(?: [a-z0-9'\u2019-]+){0,2} \(?(r|t|f|chi2|x2)\)?[.:]?$/;
 
 /** Words that begin a multi-word header; used to group the single-spaced tokens of a header line copied from a PDF. */
-export function isKnownHeader(key: string): boolean {
+export const isKnownHeader = keepAnswers(namesKnownHeader);
+
+function namesKnownHeader(key: string): boolean {
   if (knownKeyOf(key) !== null || HEADER_WITH_DF.test(key) || HEADER_WITH_SUBSCRIPT_DF.test(key) || statisticWithDf(key) !== null) return true;
   if (CI_WITH_LEVEL.test(key) || MIXED_STATISTICS.test(key)) return true;
   if (GENERIC_EFFECT_WITH_NAME.test(key) && classifyHeader(key).role === 'effect') return true;

@@ -22,6 +22,7 @@
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
 import { shapeOf } from './align.js';
+import { keepAnswers } from '../memo.js';
 import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
@@ -38,9 +39,9 @@ interface Line extends TextLine {
 
 /** A piece of a line with offsets relative to the line. */
 interface Piece {
-  text: string;
-  start: number;
-  end: number;
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
 }
 
 /** Lines longer than this are prose (or a whole paragraph on one line), not table rows. */
@@ -559,8 +560,14 @@ function readSoftwareCorrelations(lines: Line[], index: number): { table: Docume
   return below === null ? null : { table: { ...below.table, start: lines[index]!.start + leadingSpace(lines[index]!.text) }, lastLine: below.lastLine };
 }
 
-/** Splits at whitespace outside brackets; "F (2, 57)" and "Error (between)" stay whole, "< .001" is joined. */
-function tokenize(text: string): Piece[] {
+/**
+ * Splits at whitespace outside brackets; "F (2, 57)" and "Error (between)" stay whole, "< .001" is joined.
+ * Kept per line text: the readers of aligned, crushed and wrapped tables each tokenize a line, and a line
+ * again as the line after the one looked at (readWrappedHeader), so prose lines were split five times over.
+ */
+const tokenize = keepAnswers(splitTokens);
+
+function splitTokens(text: string): readonly Piece[] {
   const raw: Piece[] = [];
   let at = 0;
   while (at < text.length) {
@@ -738,11 +745,11 @@ function alignedCells(text: string): Piece[] {
 }
 
 interface HeaderLine {
-  columns: Piece[];
+  readonly columns: readonly Piece[];
   /** True when the columns stand apart by wide gaps, so positions can place data cells. */
-  aligned: boolean;
+  readonly aligned: boolean;
   /** True when the header's cells are separated by single tabs, as rows copied from a word processor are. */
-  tabbed: boolean;
+  readonly tabbed: boolean;
 }
 
 /**
@@ -751,7 +758,25 @@ interface HeaderLine {
  * headers are read cell by cell; crushed ones are grouped into the longest
  * known phrases ("Sum of squares", "Partial eta squared").
  */
-function readHeader(line: Line): HeaderLine | null {
+/**
+ * Answers about one line, kept per line: readSpacedTable asks them of a line, of the line after it and of the
+ * one after that (readWrappedHeader) as it moves down the text, three times over for every line of prose.
+ * (The answers are read-only: HeaderLine and DataLine.)
+ */
+function keptPerLine<Answer>(answer: (line: Line) => Answer): (line: Line) => Answer {
+  const kept = new WeakMap<Line, { answer: Answer }>();
+  return (line) => {
+    const known = kept.get(line);
+    if (known !== undefined) return known.answer;
+    const fresh = answer(line);
+    kept.set(line, { answer: fresh });
+    return fresh;
+  };
+}
+
+const readHeader = keptPerLine(readHeaderOf);
+
+function readHeaderOf(line: Line): HeaderLine | null {
   const text = line.text;
   if (text.length > MAX_ROW_LENGTH || text.trim() === '' || /\d\.\d/.test(text)) return null;
   if (!line.crushed && text.includes('\t')) {
@@ -895,7 +920,7 @@ function join(text: string, first: Piece, last: Piece): Piece {
   return { text: text.slice(first.start, last.end), start: first.start, end: last.end };
 }
 
-function startsKnownPhrase(tokens: Piece[], index: number): boolean {
+function startsKnownPhrase(tokens: readonly Piece[], index: number): boolean {
   return knownPhraseLength(tokens, index) > 0;
 }
 
@@ -903,14 +928,14 @@ function startsKnownPhrase(tokens: Piece[], index: number): boolean {
  * The words of the header name starting at `index`: the longest known phrase, except that "df Error df" is
  * "df" and "Error df" (a name ends with its noun: "Hypothesis df", "Error df"), not "df Error" and "df".
  */
-function headerPhraseLength(tokens: Piece[], index: number): number {
+function headerPhraseLength(tokens: readonly Piece[], index: number): number {
   const length = knownPhraseLength(tokens, index);
   const dfFirst = length === 2 && /^d\.?f\.?$/i.test(tokens[index]!.text) && /^d\.?f\.?$/i.test(tokens[index + 2]?.text ?? '');
   return dfFirst && knownPhraseLength(tokens, index + 1) === 2 ? 1 : length;
 }
 
 /** "n = 30" after a group's name in a header ("Group A n = 30"): one token, part of the name, not an "n" column. */
-function withGroupSizes(text: string, tokens: Piece[]): Piece[] {
+function withGroupSizes(text: string, tokens: readonly Piece[]): Piece[] {
   const merged: Piece[] = [];
   for (let index = 0; index < tokens.length; index++) {
     const token = tokens[index]!;
@@ -933,7 +958,7 @@ function withGroupSizes(text: string, tokens: Piece[]): Piece[] {
 const GROUP_NOUN = /^(?:groups?|conditions?|arms?|class(?:es)?|clusters?|types?|sites?|waves?|cohorts?|profiles?|samples?|studys?|studies|phases?|levels?|subgroups?|grupos?|groupes?|gruppen?|groep(?:en)?|gruppo|gruppi)$/i;
 
 /** Words in the longest known header phrase starting at `index` (0 if none). */
-function knownPhraseLength(tokens: Piece[], index: number): number {
+function knownPhraseLength(tokens: readonly Piece[], index: number): number {
   const groupLetter = index > 0 && index < tokens.length && /^[A-Z]$/.test(tokens[index]!.text) && GROUP_NOUN.test(tokens[index - 1]!.text);
   for (let length = Math.min(LONGEST_HEADER_WORDS, tokens.length - index); length >= 1; length--) {
     const phrase = tokens
@@ -948,8 +973,8 @@ function knownPhraseLength(tokens: Piece[], index: number): number {
 }
 
 interface DataLine {
-  label: Piece;
-  values: Piece[];
+  readonly label: Piece;
+  readonly values: readonly Piece[];
 }
 
 /** A numbered variable's label ("1. SPAS Total Score", "1 Anxiety"), as matrices number their rows. */
@@ -1022,7 +1047,7 @@ function stackedHeaderAbove(lines: Line[], first: number, header: HeaderLine): {
 }
 
 /** The column a piece of a line above stands over: the one it overlaps most (-1 if none). */
-function columnUnder(piece: Piece, columns: Piece[]): number {
+function columnUnder(piece: Piece, columns: readonly Piece[]): number {
   let best = -1;
   let bestOverlap = 0;
   columns.forEach((column, index) => {
@@ -1346,7 +1371,7 @@ function continuationValues(line: Line, room: number): Piece[] | null {
   if (room <= 0 || isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text)) return null;
   const tokens = tokenize(line.text);
   if (tokens.length === 0 || tokens.length > room || !tokens.every((token) => isValueToken(token.text) || isMarkToken(token.text))) return null;
-  return tokens;
+  return [...tokens];
 }
 
 /** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */
@@ -1389,7 +1414,14 @@ const MAX_SUB_HEADER_LINES = 2;
 const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subjects?|participants?|fehler|erro|erreur|r\u00e9sidus?|res\u00edduos?|residuos?|fout|errore|intra[- ]?grupos?|dentro de (?:los )?grupos)(?![\p{L}])/iu;
 
 /** A data line of a table: two or more values, or one after an error or total label. */
+const readFirstRowLine = keptPerLine((line) => readRowLineOf(line, true));
+const readLaterRowLine = keptPerLine((line) => readRowLineOf(line, false));
+
 function readRowLine(line: Line, first: boolean): DataLine | null {
+  return first ? readFirstRowLine(line) : readLaterRowLine(line);
+}
+
+function readRowLineOf(line: Line, first: boolean): DataLine | null {
   if (TITLE.test(line.text) || NOTE.test(line.text)) return null;
   const data = readDataLine(line, 1);
   if (data === null) return null;
@@ -1444,7 +1476,7 @@ function placeRow(data: DataLine, line: Line, header: HeaderLine | null): string
 }
 
 /** Whether the header names one df column and the values at its place and the next are a whole-number df pair. */
-function dfPairUnderHeader(values: Piece[], columns: Piece[]): boolean {
+function dfPairUnderHeader(values: readonly Piece[], columns: readonly Piece[]): boolean {
   const dfColumns = columns.flatMap((column, index) => (classifyHeader(column.text).role === 'df' ? [index] : []));
   if (dfColumns.length !== 1 || dfColumns[0]! < 1) return false;
   const [first, second] = [values[dfColumns[0]! - 1]?.text ?? '', values[dfColumns[0]!]?.text ?? ''];
@@ -1452,7 +1484,7 @@ function dfPairUnderHeader(values: Piece[], columns: Piece[]): boolean {
 }
 
 /** Column of each value by the zones between header cells, or null when they collide or go backwards. */
-function placeByPosition(values: Piece[], columns: Piece[]): number[] | null {
+function placeByPosition(values: readonly Piece[], columns: readonly Piece[]): number[] | null {
   const zones = columns.map((column, index) => {
     const previous = columns[index - 1];
     const next = columns[index + 1];

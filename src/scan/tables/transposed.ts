@@ -333,8 +333,8 @@ function piecesOf(text: string): ({ text: string; start: number; end: number } |
     }
     return pieces;
   }
-  const gaps = [...text.matchAll(/\S+(?: \S+)*/g)];
-  if (/\t| {2,}/.test(text.trim())) return gaps.map((match) => ({ text: match[0], start: match.index!, end: match.index! + match[0].length }));
+  // (Words apart by wide gaps: found only for such a line, not for every line of prose.)
+  if (/\t| {2,}/.test(text.trim())) return [...text.matchAll(/\S+(?: \S+)*/g)].map((match) => ({ text: match[0], start: match.index!, end: match.index! + match[0].length }));
   // A crushed df row of pairs ("df 2, 57 1, 57") or statistic row of values with df ("F 4.21 (2, 57) 2.11 (1, 57)").
   const withPairs = crushedPairPieces(text);
   if (withPairs !== null) return withPairs;
