@@ -596,24 +596,44 @@ function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, 
     const needed = kind === 'F' ? 2 : kind === 'z' ? 0 : 1;
     if (df.length !== needed) return;
     const start = statisticAt.start + statisticText.indexOf(match[1]!.trim().slice(0, 1));
-    const end = pRead?.end ?? statisticAt.end;
     results.push({
-      kind,
-      text: text.slice(start, end),
-      start,
-      end,
-      df,
+      ...rowResult({ text, table, tableIndex, row, kind, value, df, pRead, notSignificant, start, end: pRead?.end ?? statisticAt.end }),
       ...(dfFrom ? { dfFrom } : {}),
       sampleSize: kind === 'r' ? nCell : null,
-      value,
-      valueComparator: '=',
-      p: pRead,
-      notSignificant,
-      effects: [],
-      tableRow: { tableIndex, caption: table.caption, rowLabel: (row[0] ?? '').trim(), cells: {}, errorRow: null },
     });
   });
   return results;
+}
+
+/** A result read from one cell of a row (its value, df and p found by the caller), with the row it stands in. */
+function rowResult(read: {
+  text: string;
+  table: DocumentTable;
+  tableIndex: number;
+  row: string[];
+  kind: StatisticKind;
+  value: ReportedNumber;
+  df: ReportedNumber[];
+  pRead: ReportedP | null;
+  notSignificant: boolean;
+  start: number;
+  end: number;
+}): ReportedResult {
+  const { text, table, tableIndex, row, start, end } = read;
+  return {
+    kind: read.kind,
+    text: text.slice(start, end),
+    start,
+    end,
+    df: read.df,
+    sampleSize: null,
+    value: read.value,
+    valueComparator: '=',
+    p: read.pRead,
+    notSignificant: read.notSignificant,
+    effects: [],
+    tableRow: { tableIndex, caption: table.caption, rowLabel: (row[0] ?? '').trim(), cells: {}, errorRow: null },
+  };
 }
 
 /** A section row's words that name the test of the rows under it: "Chi-square test", "t test", "ANOVA Test, (F test)". */
@@ -711,21 +731,7 @@ function readResultColumnPerRow(
       if ((row[column] ?? '').trim() !== '') break;
     }
     const start = statisticAt.start + statisticText.indexOf(match[1]!.trim().slice(0, 1));
-    const end = pRead?.end ?? statisticAt.end;
-    results.push({
-      kind,
-      text: text.slice(start, end),
-      start,
-      end,
-      df,
-      sampleSize: null,
-      value,
-      valueComparator: '=',
-      p: pRead,
-      notSignificant,
-      effects: [],
-      tableRow: { tableIndex, caption: table.caption, rowLabel: (row[0] ?? '').trim(), cells: {}, errorRow: null },
-    });
+    results.push(rowResult({ text, table, tableIndex, row, kind, value, df, pRead, notSignificant, start, end: pRead?.end ?? statisticAt.end }));
   });
   return results;
 }
