@@ -22,7 +22,7 @@
  * CI must have Debian's chromium installed (apt-get install -y chromium).
  * Elsewhere, without it, these tests are skipped with a warning that says why.
  */
-import { copyFileSync, existsSync, readFileSync, rmSync } from 'node:fs';
+import { copyFileSync, existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -30,6 +30,7 @@ import Papa from 'papaparse';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { plumbline, temporaryFolder } from '../batch/cli.js';
+import { xlsxFile } from '../refit/xlsx.js';
 import { startWeb, type RunningWeb } from '../web/startWeb.js';
 import { NO_RESULTS_MESSAGE } from '../../src/report/wording.js';
 
@@ -313,6 +314,30 @@ describe.skipIf(!available)('web page in Chromium', () => {
       expectOnlyOwnOrigin(requests, web.url.replace(/\/$/, ''));
       // A CSV is refitted in the page itself: the server is not asked.
       expect(requests.filter((url) => url.includes('/api/refit'))).toEqual([]);
+    } finally {
+      await page.context().close();
+    }
+  }, 90_000);
+
+  it('refit tab, served: an XLSX sheet goes to the local server and gives the command line\'s refit of the same sheet', async () => {
+    const { page, requests } = await open();
+    try {
+      const parsed = Papa.parse<string[]>(readFileSync(join(demo, 'refit', 'harbour-walks.csv'), 'utf8').trim(), { skipEmptyLines: true });
+      const [header, ...rows] = parsed.data;
+      const cells = rows.map((row) => row.map((cell) => (cell.trim() !== '' && Number.isFinite(Number(cell)) ? Number(cell) : cell)));
+      writeFileSync(join(folder, 'harbour-walks.xlsx'), xlsxFile(header!, cells, cells.length));
+      await page.locator('#tab-refit').click();
+      await page.locator('#refit-data').setInputFiles(join(folder, 'harbour-walks.xlsx'));
+      await page.locator('#refit-model').fill('mood ~ route * pace + loneliness');
+      await page.locator('#refit-missing').fill('mood=99; loneliness=6-8');
+      await page.locator('#refit-reported').fill('');
+      await page.locator('#refit-run').click();
+      await page.waitForFunction(() => (document.getElementById('refit-output')?.textContent ?? '').length > 0, null, { timeout: 60_000 });
+      const cli = plumbline(['refit', 'harbour-walks.xlsx', '--model', 'mood ~ route * pace + loneliness', '--type', '3', '--missing', 'mood=99', '--missing', 'loneliness=6-8', '--format', 'text'], folder);
+      expect(cli.status).toBe(0);
+      expect((await page.locator('#refit-output').textContent())!.trimEnd()).toBe(`${cli.stdout}${cli.stderr ? `\n${cli.stderr}` : ''}`.trimEnd());
+      expect(requests.filter((url) => url.endsWith('/api/refit'))).toHaveLength(1);
+      expectOnlyOwnOrigin(requests, web.url.replace(/\/$/, ''));
     } finally {
       await page.context().close();
     }
