@@ -74,16 +74,38 @@ export async function refitOutputOf(source: DataSource, spec: AnalysisSpecInput,
   return buildRefitOutput(result);
 }
 
+function isDigit(code: number): boolean {
+  return code >= 48 && code <= 57;
+}
+
+/**
+ * The counts of a ragged-row message, "<n> fields, but the header has <m>
+ * columns", read by walking the digits: a regular expression with an
+ * unanchored run of digits backtracks quadratically on a long one (the
+ * message holds the file's name).
+ */
+function raggedCounts(message: string): { fields: number; width: number } | null {
+  const middle = ' fields, but the header has ';
+  const at = message.indexOf(middle);
+  if (at < 0) return null;
+  let start = at;
+  while (start > 0 && isDigit(message.charCodeAt(start - 1))) start--;
+  const widthStart = at + middle.length;
+  let end = widthStart;
+  while (end < message.length && isDigit(message.charCodeAt(end))) end++;
+  if (start === at || end === widthStart || !message.startsWith(' columns', end)) return null;
+  return { fields: Number(message.slice(start, at)), width: Number(message.slice(widthStart, end)) };
+}
+
 /** Adds row and column to data-file errors that name only part of the place. */
 export function refitErrorMessage(error: RefitError): string {
   const { file, row, column } = error.details;
   if (file === undefined) return error.message;
   const rest = (prefix: RegExp) => error.message.replace(prefix, '').trim();
   if (error.code === 'RAGGED_ROW' && row !== undefined && column === undefined) {
-    const m = /(\d+) fields, but the header has (\d+) columns/.exec(error.message);
-    if (m) {
-      const fields = Number(m[1]);
-      const width = Number(m[2]);
+    const counts = raggedCounts(error.message);
+    if (counts) {
+      const { fields, width } = counts;
       const where = fields > width ? `column ${width + 1}` : `column ${fields + 1}`;
       return `${file}, row ${row}, ${where}: ${rest(/^[^:]*:\s*/)}`;
     }
