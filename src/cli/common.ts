@@ -8,6 +8,7 @@ import { notRegularFileReason } from '../documents/regularFile.js';
 import { buildReport, reportHead } from '../report/build.js';
 import { formatJsonParts, jsonReportPieces } from '../report/json.js';
 import type { Report, Summary } from '../report/model.js';
+import { UsageError } from './usageError.js';
 import { checkLimitValue, limitNames, type Limits } from '../limits.js';
 
 /** Where the CLI reads and writes; tests pass their own. */
@@ -28,7 +29,7 @@ export const EXIT_INPUT_ERROR = 2;
 export const EXIT_INTERNAL_FAULT = 70;
 
 /** An error the user can fix (bad option, missing file): printed briefly, exit code 2. */
-export class UsageError extends Error {}
+export { UsageError };
 
 export type FailOn = 'fail' | 'warn' | 'never';
 export const reportFormats = ['text', 'json', 'jsonl', 'html', 'csv', 'md'] as const;

@@ -4,7 +4,7 @@ import Papa from 'papaparse';
 import { openRegularFile } from '../documents/regularFile.js';
 import { xlsxLimits } from '../limits.js';
 import { RefitError, closestNames } from './errors.js';
-import { LineEndingsToLf } from './lineEndings.js';
+import { LineEndingsToLf, lineEndingsToLf } from './lineEndings.js';
 import { ShiftedColumn, parseCellNumber } from './numeric.js';
 import { isMissingCode, type MissingRule, type ResolvedSpec } from './spec.js';
 import { readXlsxSheet } from './xlsx.js';
@@ -32,8 +32,23 @@ export interface InMemoryTable {
   rows: Iterable<readonly CellInput[]>;
 }
 
-/** A path to a .csv, .tsv, .txt or .xlsx file, or a table in memory. */
-export type DataSource = string | InMemoryTable;
+/**
+ * The text of a CSV/TSV file already read (the web page, which has the
+ * user's chosen file but no path): read exactly as the file would be.
+ */
+export interface DelimitedText {
+  /** The file's name, shown in messages and the report. */
+  name: string;
+  text: string;
+}
+
+/** A path to a .csv, .tsv, .txt or .xlsx file, the text of a CSV/TSV file, or a table in memory. */
+export type DataSource = string | DelimitedText | InMemoryTable;
+
+/** Whether a source is the text of a delimited file rather than a path or a table. */
+export function isDelimitedText(source: DataSource): source is DelimitedText {
+  return typeof source !== 'string' && 'text' in source;
+}
 
 export interface RowConsumer {
   header(names: string[], file: string, options: { decimalComma: boolean }): void;
@@ -117,52 +132,82 @@ async function streamDelimited(path: string, consumer: RowConsumer): Promise<voi
     await handle.close();
     throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
   }
-  const delimiter = detectDelimiter(line);
+  await parseDelimited(file, line, consumer, (parse, fail) => {
+    // The stream closes the handle when it ends, fails or is destroyed.
+    const stream = handle.createReadStream({ start: 0, encoding: 'utf8', highWaterMark: 1 << 17 });
+    stream.on('error', (err) => fail(unreadable(file, err)));
+    parse(stream.pipe(new LineEndingsToLf()) as unknown as File);
+    // Once parsing stopped (at the end, or aborted on a bad row), the file is closed, not left to the garbage collector.
+    return () => stream.destroy();
+  });
+}
+
+/** The text of a CSV/TSV file read as streamDelimited reads the file: same delimiter, line endings, rows and messages. */
+async function streamDelimitedText(source: DelimitedText, consumer: RowConsumer): Promise<void> {
+  const file = basename(source.name);
+  const text = source.text.replace(/^\uFEFF/, '');
+  const nl = text.search(/[\r\n]/);
+  const line = nl < 0 ? text : text.slice(0, nl);
+  if (line.trim() === '') throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
+  await parseDelimited(file, line, consumer, (parse) => {
+    parse(lineEndingsToLf(text, false).text + (text.endsWith('\r') ? '\n' : ''));
+    return () => {};
+  });
+}
+
+/**
+ * Parses delimited text with papaparse, handing the consumer the header and
+ * batches of rows. `start` gives papaparse its input (a stream or a string)
+ * and returns how to stop reading once parsing has stopped.
+ */
+async function parseDelimited(
+  file: string,
+  headerLine: string,
+  consumer: RowConsumer,
+  start: (parse: (input: string | File) => void, fail: (error: unknown) => void) => () => void,
+): Promise<void> {
+  const delimiter = detectDelimiter(headerLine);
   let nextRow = 1; // row number of the next record (header = 1)
   let sawHeader = false;
   let failure: unknown;
-  let closeStream = (): void => {};
+  let closeInput = (): void => {};
   try {
     await new Promise<void>((resolve, reject) => {
-      // The stream closes the handle when it ends, fails or is destroyed.
-      const stream = handle.createReadStream({ start: 0, encoding: 'utf8', highWaterMark: 1 << 17 });
-      closeStream = () => stream.destroy();
-      stream.on('error', (err) => reject(unreadable(file, err)));
-      const lines = stream.pipe(new LineEndingsToLf());
-      Papa.parse<string[]>(lines as unknown as File, {
-        delimiter,
-        newline: '\n',
-        quoteChar: '"',
-        header: false,
-        dynamicTyping: false,
-        chunk: (results, parser) => {
-          if (failure !== undefined) return;
-          try {
-            let data = results.data;
-            const first = nextRow;
-            nextRow += data.length;
-            if (!sawHeader) {
-              if (data.length === 0) return;
-              const names = data[0]!.map((n, i) => (i === 0 ? n.replace(/^\uFEFF/, '') : n).trim());
-              consumer.header(names, file, { decimalComma: delimiter === ';' });
-              sawHeader = true;
-              data = data.slice(1);
-              consumer.rows(data, first + 1);
-            } else {
-              consumer.rows(data, first);
+      closeInput = start((input) => {
+        Papa.parse<string[]>(input as File, {
+          delimiter,
+          newline: '\n',
+          quoteChar: '"',
+          header: false,
+          dynamicTyping: false,
+          chunk: (results, parser) => {
+            if (failure !== undefined) return;
+            try {
+              let data = results.data;
+              const first = nextRow;
+              nextRow += data.length;
+              if (!sawHeader) {
+                if (data.length === 0) return;
+                const names = data[0]!.map((n, i) => (i === 0 ? n.replace(/^\uFEFF/, '') : n).trim());
+                consumer.header(names, file, { decimalComma: delimiter === ';' });
+                sawHeader = true;
+                data = data.slice(1);
+                consumer.rows(data, first + 1);
+              } else {
+                consumer.rows(data, first);
+              }
+            } catch (err) {
+              failure = err;
+              parser.abort();
             }
-          } catch (err) {
-            failure = err;
-            parser.abort();
-          }
-        },
-        complete: () => resolve(),
-        error: (err) => reject(unreadable(file, err)),
-      });
+          },
+          complete: () => resolve(),
+          error: (err) => reject(unreadable(file, err)),
+        });
+      }, reject);
     });
   } finally {
-    // Once parsing stopped (at the end, or aborted on a bad row), the file is closed, not left to the garbage collector.
-    closeStream();
+    closeInput();
   }
   if (failure !== undefined) throw failure;
   if (!sawHeader) throw new RefitError('EMPTY_FILE', `${file}: the file is empty (no header line).`, { file });
@@ -211,6 +256,7 @@ function streamMemory(table: InMemoryTable, consumer: RowConsumer): void {
 
 /** Streams the rows of a data source to a consumer. */
 export async function streamRows(source: DataSource, consumer: RowConsumer): Promise<void> {
+  if (isDelimitedText(source)) return streamDelimitedText(source, consumer);
   if (typeof source !== 'string') {
     streamMemory(source, consumer);
     return;

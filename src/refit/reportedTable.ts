@@ -5,6 +5,7 @@ import { readDocument, tooLargeMessage, type ReadOptions } from '../documents/re
 import { MB, resolveLimits } from '../limits.js';
 import { scanText } from '../scan/scan.js';
 import type { Comparator, ReportedNumber } from '../scan/types.js';
+import type { DocumentText } from '../documents/types.js';
 import { parseReportedNumber } from '../stats/reportedNumber.js';
 import { RefitError } from './errors.js';
 import type { FormulaTerm } from './formula.js';
@@ -503,7 +504,16 @@ export async function readReported(
 
   const outcome = await readDocument(path, readOptions);
   if (!outcome.ok) throw new RefitError('UNREADABLE_FILE', `${file}: cannot be read (${outcome.error}).`, { file });
-  const document = outcome.document;
+  return reportedInDocument(path, outcome.document, terms, map);
+}
+
+/**
+ * What a manuscript already read reports (the web page reads the pasted
+ * table itself): its ANOVA table that names the most model terms, written F
+ * results for the terms that table lacks, and its means and comparisons.
+ */
+export function reportedInDocument(path: string, document: DocumentText, terms: readonly FormulaTerm[], map: ReadonlyMap<string, string> = new Map()): ReportedSet {
+  const file = basename(path);
   const candidates: Array<{ table: ReadTable; name: string }> = [];
   const means = emptyMeansSet();
   document.tables.forEach((t, i) => {

@@ -16,12 +16,13 @@
  *   critical violation; everything works from the keyboard;
  * - a hostile manuscript (script tags, event attributes, javascript: links)
  *   runs nothing;
- * - the built file opened from disk works offline.
+ * - the built file opened from disk works offline, the refit of a CSV
+ *   included (the same output as `plumbline refit`, no request made).
  *
  * CI must have Debian's chromium installed (apt-get install -y chromium).
  * Elsewhere, without it, these tests are skipped with a warning that says why.
  */
-import { copyFileSync, existsSync, readFileSync, rmSync } from 'node:fs';
+import { copyFileSync, existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -29,6 +30,7 @@ import Papa from 'papaparse';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { plumbline, temporaryFolder } from '../batch/cli.js';
+import { xlsxFile } from '../refit/xlsx.js';
 import { startWeb, type RunningWeb } from '../web/startWeb.js';
 import { NO_RESULTS_MESSAGE } from '../../src/report/wording.js';
 
@@ -310,6 +312,32 @@ describe.skipIf(!available)('web page in Chromium', () => {
       expect(shown).toContain('Missing-value codes left in the data as numbers');
       expect(await page.locator('#refit-status').textContent()).toContain('some reported numbers differ');
       expectOnlyOwnOrigin(requests, web.url.replace(/\/$/, ''));
+      // A CSV is refitted in the page itself: the server is not asked.
+      expect(requests.filter((url) => url.includes('/api/refit'))).toEqual([]);
+    } finally {
+      await page.context().close();
+    }
+  }, 90_000);
+
+  it('refit tab, served: an XLSX sheet goes to the local server and gives the command line\'s refit of the same sheet', async () => {
+    const { page, requests } = await open();
+    try {
+      const parsed = Papa.parse<string[]>(readFileSync(join(demo, 'refit', 'harbour-walks.csv'), 'utf8').trim(), { skipEmptyLines: true });
+      const [header, ...rows] = parsed.data;
+      const cells = rows.map((row) => row.map((cell) => (cell.trim() !== '' && Number.isFinite(Number(cell)) ? Number(cell) : cell)));
+      writeFileSync(join(folder, 'harbour-walks.xlsx'), xlsxFile(header!, cells, cells.length));
+      await page.locator('#tab-refit').click();
+      await page.locator('#refit-data').setInputFiles(join(folder, 'harbour-walks.xlsx'));
+      await page.locator('#refit-model').fill('mood ~ route * pace + loneliness');
+      await page.locator('#refit-missing').fill('mood=99; loneliness=6-8');
+      await page.locator('#refit-reported').fill('');
+      await page.locator('#refit-run').click();
+      await page.waitForFunction(() => (document.getElementById('refit-output')?.textContent ?? '').length > 0, null, { timeout: 60_000 });
+      const cli = plumbline(['refit', 'harbour-walks.xlsx', '--model', 'mood ~ route * pace + loneliness', '--type', '3', '--missing', 'mood=99', '--missing', 'loneliness=6-8', '--format', 'text'], folder);
+      expect(cli.status).toBe(0);
+      expect((await page.locator('#refit-output').textContent())!.trimEnd()).toBe(`${cli.stdout}${cli.stderr ? `\n${cli.stderr}` : ''}`.trimEnd());
+      expect(requests.filter((url) => url.endsWith('/api/refit'))).toHaveLength(1);
+      expectOnlyOwnOrigin(requests, web.url.replace(/\/$/, ''));
     } finally {
       await page.context().close();
     }
@@ -469,7 +497,56 @@ describe.skipIf(!available)('web page in Chromium', () => {
     }
   }, 60_000);
 
-  it('the built file opened from disk works offline: it audits, asks for nothing, and says the refit needs plumbline web', async () => {
+  it('the built file opened from disk refits the demo CSV as the command line does, asking for nothing', async () => {
+    const url = pathToFileURL(join(process.cwd(), 'dist', 'web', 'plumbline.html')).href;
+    const { page, requests, errors } = await open(url);
+    try {
+      await page.locator('#tab-refit').click();
+      expect(await page.locator('#refit-run').isDisabled()).toBe(false);
+      await page.locator('#refit-data').setInputFiles(join(demo, 'refit', 'harbour-walks.csv'));
+      await page.locator('#refit-model').fill('mood ~ route * pace + loneliness');
+      await page.locator('#refit-missing').fill('mood=99; loneliness=6-8');
+      await page.locator('#refit-reported').fill(readFileSync(join(demo, 'refit', 'harbour-walks-manuscript.md'), 'utf8'));
+      await page.locator('#refit-run').click();
+      await page.waitForFunction(() => (document.getElementById('refit-output')?.textContent ?? '').length > 0, null, { timeout: 60_000 });
+      const shown = (await page.locator('#refit-output').textContent())!;
+      copyFileSync(join(demo, 'refit', 'harbour-walks.csv'), join(folder, 'harbour-walks.csv'));
+      copyFileSync(join(demo, 'refit', 'harbour-walks-manuscript.md'), join(folder, 'reported-table.md'));
+      const cli = plumbline(['refit', 'harbour-walks.csv', '--model', 'mood ~ route * pace + loneliness', '--type', '3', '--missing', 'mood=99', '--missing', 'loneliness=6-8', '--reported', 'reported-table.md', '--format', 'text'], folder);
+      expect(cli.status).toBe(1);
+      expect(shown.trimEnd()).toBe(`${cli.stdout}${cli.stderr ? `\n${cli.stderr}` : ''}`.trimEnd());
+      expect(shown).toContain('Missing-value codes left in the data as numbers');
+      expect(await page.locator('#refit-status').textContent()).toContain('some reported numbers differ');
+
+      // Without the codes and the pasted table: the refit alone, as the command prints it.
+      await page.locator('#refit-missing').fill('');
+      await page.locator('#refit-reported').fill('');
+      await page.locator('#refit-run').click();
+      const bare = plumbline(['refit', 'harbour-walks.csv', '--model', 'mood ~ route * pace + loneliness', '--type', '3', '--format', 'text'], folder);
+      await page.waitForFunction((before) => (document.getElementById('refit-output')?.textContent ?? '') !== before, shown, { timeout: 60_000 });
+      expect((await page.locator('#refit-output').textContent())!.trimEnd()).toBe(`${bare.stdout}${bare.stderr ? `\n${bare.stderr}` : ''}`.trimEnd());
+
+      // A column the data lacks: the command's message, as it prints it.
+      await page.locator('#refit-model').fill('mood ~ rout * pace');
+      await page.locator('#refit-run').click();
+      const wrong = plumbline(['refit', 'harbour-walks.csv', '--model', 'mood ~ rout * pace', '--type', '3', '--format', 'text'], folder);
+      expect(wrong.status).toBe(2);
+      await page.waitForFunction(() => (document.getElementById('refit-output')?.textContent ?? '').includes('plumbline:'), null, { timeout: 60_000 });
+      expect((await page.locator('#refit-output').textContent())!.trim()).toBe(wrong.stderr.trim());
+      expect(await page.locator('#refit-status').textContent()).toContain('could not be run');
+
+      // An XLSX sheet needs the server's reader: the page says so and asks nothing.
+      await page.locator('#refit-data').setInputFiles({ name: 'sheet.xlsx', mimeType: 'application/octet-stream', buffer: Buffer.from('PK') });
+      await page.locator('#refit-run').click();
+      expect(await page.locator('#refit-status').textContent()).toContain('save the sheet as CSV');
+      expect(requests).toEqual([url]);
+      expect(errors).toEqual([]);
+    } finally {
+      await page.context().close();
+    }
+  }, 120_000);
+
+  it('the built file opened from disk works offline: it audits, asks for nothing, and says an XLSX refit needs plumbline web', async () => {
     const file = join(process.cwd(), 'dist', 'web', 'plumbline.html');
     const url = pathToFileURL(file).href;
     const { page, requests, errors } = await open(url);
@@ -483,7 +560,7 @@ describe.skipIf(!available)('web page in Chromium', () => {
       expect(await page.locator('#manuscript-notes').isVisible()).toBe(true);
       await page.locator('#tab-refit').click();
       expect(await page.locator('#refit-unavailable').isVisible()).toBe(true);
-      expect(await page.locator('#refit-run').isDisabled()).toBe(true);
+      expect(await page.locator('#refit-unavailable').textContent()).toContain('XLSX');
       expect(requests).toEqual([url]);
       expect(errors).toEqual([]);
     } finally {
