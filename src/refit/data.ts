@@ -8,6 +8,7 @@ import { LineEndingsToLf, lineEndingsToLf } from './lineEndings.js';
 import { ShiftedColumn, parseCellNumber } from './numeric.js';
 import { isMissingCode, type MissingRule, type ResolvedSpec } from './spec.js';
 import { readXlsxSheet } from './xlsx.js';
+import { readXlsxBytes } from './xlsxBytes.js';
 
 /**
  * Reading raw data: CSV/TSV (papaparse, streamed in chunks; the delimiter is
@@ -42,8 +43,18 @@ export interface DelimitedText {
   text: string;
 }
 
-/** A path to a .csv, .tsv, .txt or .xlsx file, the text of a CSV/TSV file, or a table in memory. */
-export type DataSource = string | DelimitedText | InMemoryTable;
+/**
+ * The bytes of an .xlsx file already read (the web page): its first sheet
+ * is read within the same limits as a file on disk (xlsxBytes.ts).
+ */
+export interface XlsxBytes {
+  /** The file's name, shown in messages and the report. */
+  name: string;
+  xlsx: Uint8Array;
+}
+
+/** A path to a .csv, .tsv, .txt or .xlsx file, the text of a CSV/TSV file, the bytes of an .xlsx file, or a table in memory. */
+export type DataSource = string | DelimitedText | XlsxBytes | InMemoryTable;
 
 /** Whether a source is the text of a delimited file rather than a path or a table. */
 export function isDelimitedText(source: DataSource): source is DelimitedText {
@@ -214,9 +225,22 @@ async function parseDelimited(
   consumer.end();
 }
 
+/** Whether a source is the bytes of an .xlsx file. */
+export function isXlsxBytes(source: DataSource): source is XlsxBytes {
+  return typeof source !== 'string' && 'xlsx' in source;
+}
+
 async function streamXlsx(path: string, consumer: RowConsumer): Promise<void> {
   const file = basename(path);
-  const sheet = await readXlsxSheet(path, file, xlsxLimits);
+  streamSheet(file, await readXlsxSheet(path, file, xlsxLimits), consumer);
+}
+
+async function streamXlsxBytes(source: XlsxBytes, consumer: RowConsumer): Promise<void> {
+  streamSheet(source.name, await readXlsxBytes(source.xlsx, source.name, xlsxLimits), consumer);
+}
+
+/** A sheet's rows to a consumer: the header row, then the body from row 2. */
+function streamSheet(file: string, sheet: readonly unknown[][], consumer: RowConsumer): void {
   const rows = sheet.map((r) => r.map((c) => cellText(c as CellInput)));
   // Trailing empty columns that only pad the sheet are not columns.
   const header = rows[0];
@@ -257,6 +281,7 @@ function streamMemory(table: InMemoryTable, consumer: RowConsumer): void {
 /** Streams the rows of a data source to a consumer. */
 export async function streamRows(source: DataSource, consumer: RowConsumer): Promise<void> {
   if (isDelimitedText(source)) return streamDelimitedText(source, consumer);
+  if (isXlsxBytes(source)) return streamXlsxBytes(source, consumer);
   if (typeof source !== 'string') {
     streamMemory(source, consumer);
     return;

@@ -1,4 +1,4 @@
-import { isDelimitedText, streamRows, type DataSource, type InMemoryTable } from './data.js';
+import { isDelimitedText, isXlsxBytes, streamRows, type DataSource, type InMemoryTable } from './data.js';
 import { RefitError } from './errors.js';
 import { parseFormula, type FormulaTerm } from './formula.js';
 import { fitModel, type AnovaTable, type Coding, type FittedModel, type SsType } from './model.js';
@@ -100,7 +100,7 @@ interface Variant {
 
 /** Reads a data source once into memory, so the slips can be refitted without reading the file again. */
 export async function loadTable(source: DataSource): Promise<InMemoryTable> {
-  if (typeof source !== 'string' && !isDelimitedText(source)) return { name: source.name, header: source.header, rows: [...source.rows] };
+  if (typeof source !== 'string' && !isDelimitedText(source) && !isXlsxBytes(source)) return { name: source.name, header: source.header, rows: [...source.rows] };
   let header: string[] = [];
   let name = typeof source === 'string' ? source : source.name;
   let decimalComma = false;

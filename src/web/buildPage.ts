@@ -8,15 +8,16 @@
  * The Node modules that the bundled code imports for paths the page never
  * takes (files, pdftotext, worker threads) are replaced by
  * src/web/page/shims/unavailable.ts; node:crypto by shims/crypto.ts (the
- * HTML report's policy hashes); the refit's XLSX reader by shims/xlsx.ts
- * (the page refits CSV/TSV data itself, src/web/page/refitInPage.ts). The rules catalogue is read and validated
+ * HTML report's policy hashes); the refit's XLSX reader of a path by
+ * shims/xlsx.ts (the page reads the chosen XLSX file's bytes with
+ * src/refit/xlsxBytes.ts, within the same limits). The rules catalogue is read and validated
  * here, as the command line loads it, and written into the bundle.
  *
  * Policy: default-src 'none'; the one inline script and the one inline style
  * are allowed by their SHA-256 hashes (no 'unsafe-inline', no eval);
- * connect-src 'self' lets the page served by `plumbline web` ask its own
- * server for the refit of an XLSX sheet (opened from disk there is no server
- * to ask; CSV/TSV data is refitted in the page).
+ * connect-src 'self' is left from when the page served by `plumbline web`
+ * asked its own server to refit an XLSX sheet; every refit now runs in the
+ * page, and the server's /api/refit stays only for callers of its own.
  */
 import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -91,7 +92,7 @@ async function bundleScript(root: string): Promise<string> {
       {
         name: 'plumbline-page',
         resolveId(source, importer) {
-          // The refit's XLSX reader needs a file on disk; the page refits CSV/TSV itself and sends XLSX to the server.
+          // The refit's XLSX reader of a path needs a file on disk; the page reads XLSX bytes (src/refit/xlsxBytes.ts).
           if (source === './xlsx.js' && importer === join(root, 'src', 'refit', 'data.ts')) return join(shims, 'xlsx.ts');
           // csv-stringify's Node build leans on Buffer; its browser build is the same code without it.
           if (source === 'csv-stringify/sync') return join(root, 'node_modules', 'csv-stringify', 'dist', 'esm', 'sync.js');

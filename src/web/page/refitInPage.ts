@@ -4,7 +4,9 @@
  * through the same code as `plumbline refit <file> --model ... --format
  * text --reported <pasted table saved as reported-table.md>` (buildSpec,
  * refitOutputOf, formatRefitText), so the page shows what the command would
- * print. XLSX files are not read here: their reader takes a file on disk.
+ * print. An XLSX file's bytes are read here too, within the command's
+ * limits and with its messages (src/refit/xlsxBytes.ts), so neither kind of
+ * file is sent anywhere, served or opened from disk.
  */
 import { buildSpec, type RefitOptions } from '../../cli/refitSpec.js';
 import { UsageError } from '../../cli/usageError.js';
@@ -16,10 +18,12 @@ import { reportedInDocument } from '../../refit/reportedTable.js';
 import { refitErrorMessage, refitOutputOf, termMapOf } from '../../refit/run.js';
 
 export interface PageRefitRequest {
-  /** The chosen file's name (.csv, .tsv or .txt). */
+  /** The chosen file's name (.csv, .tsv, .txt or .xlsx). */
   name: string;
-  /** The file's text. */
-  text: string;
+  /** The file's text (CSV, TSV, TXT). */
+  text?: string;
+  /** The file's bytes (XLSX). */
+  xlsx?: Uint8Array;
   model: string;
   /** Sums-of-squares type: "1", "2" or "3". */
   type: string;
@@ -42,9 +46,21 @@ export interface PageRefitAnswer {
 export const PASTED_TABLE_NAME = 'reported-table.md';
 
 const TEXT_DATA = /\.(?:csv|tsv|txt)$/i;
+const XLSX_DATA = /\.xlsx$/i;
 
 export function isTextDataName(name: string): boolean {
   return TEXT_DATA.test(name);
+}
+
+export function isXlsxDataName(name: string): boolean {
+  return XLSX_DATA.test(name);
+}
+
+/** The data source of a request: the text of a delimited file, or the bytes of an .xlsx file. */
+function dataOf(request: PageRefitRequest): { name: string; text: string } | { name: string; xlsx: Uint8Array } {
+  if (isXlsxDataName(request.name) && request.xlsx !== undefined) return { name: request.name, xlsx: request.xlsx };
+  if (isTextDataName(request.name) && request.text !== undefined) return { name: request.name, text: request.text };
+  throw new UsageError(`${request.name}: the page reads CSV, TSV, TXT or XLSX data; save the sheet as .xlsx or .csv`);
 }
 
 function splitList(text: string, separators: RegExp): string[] {
@@ -70,12 +86,12 @@ export function refitOptionsOf(request: PageRefitRequest): RefitOptions {
 /** Runs the refit in the page; errors are shown as the command shows them (exit code 2). */
 export async function refitInPage(request: PageRefitRequest): Promise<PageRefitAnswer> {
   try {
-    if (!isTextDataName(request.name)) throw new UsageError(`${request.name}: the page reads CSV, TSV or TXT data itself; for XLSX use plumbline web or plumbline refit`);
+    const data = dataOf(request);
     if (!['1', '2', '3'].includes(request.type)) throw new UsageError(`the sums-of-squares type must be 1, 2 or 3, not "${request.type}"`);
     const spec = buildSpec(refitOptionsOf(request));
     const map = termMapOf(spec, []);
     const pasted = request.reported;
-    const output = await refitOutputOf({ name: request.name, text: request.text }, spec, {
+    const output = await refitOutputOf(data, spec, {
       dataName: request.name,
       slopesByDefault: true,
       map,

@@ -32,7 +32,8 @@ export const spawn = unavailable('spawn');
 export const createInflateRaw = unavailable('createInflateRaw');
 export const inflateRawSync = unavailable('inflateRawSync');
 export const inflateRaw = unavailable('inflateRaw');
-export const crc32 = unavailable('crc32');
+// The zip walker checks Info-ZIP Unicode names with zlib's crc32; the page's XLSX reader walks zips too (src/refit/xlsxBytes.ts).
+export { crc32 } from '../../../refit/zipParts.js';
 export const createCipheriv = unavailable('createCipheriv');
 export const createDecipheriv = unavailable('createDecipheriv');
 /** A path that names no file: the modules that find their files from it (the version, the catalogue) then fall back or are given what they need. */
