@@ -1,12 +1,10 @@
 import { rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { crc32, deflateRawSync, inflateRawSync } from 'node:zlib';
 import { afterAll, describe, expect, it } from 'vitest';
 import { xlsxLimits } from '../../src/limits.js';
 import { refitOutputSchema } from '../../src/refit/output.js';
-import { zipArchive } from '../adversarial/build.js';
 import { builtCliExists, plumbline, temporaryFolder, type Run } from '../batch/cli.js';
-import { xlsxFile } from './xlsx.js';
+import { withPart, xlsxFile } from './xlsx.js';
 
 /**
  * XLSX data files through the built command: a sheet within the limits
@@ -151,36 +149,3 @@ describe.skipIf(!builtCliExists())('XLSX files that lie about themselves: unread
     );
   });
 });
-
-/**
- * The archive with one part replaced (`data`, or the part's own bytes when
- * null) and its declared size set to `declaredSize` (the real size when
- * omitted): re-zipped from the parts, read back with the test builder's
- * layout (local headers in order, then the directory).
- */
-function withPart(archive: Buffer, name: string, data: Buffer | null, declaredSize?: number): Buffer {
-  const entries = readParts(archive);
-  return zipArchive(
-    entries.map((entry) => {
-      if (entry.name !== name) return { name: entry.name, data: deflateRawSync(entry.bytes), method: 8 as const, crc: crc32(entry.bytes), size: entry.bytes.length };
-      const bytes = data ?? entry.bytes;
-      return { name, data: deflateRawSync(bytes), method: 8 as const, crc: crc32(bytes), size: declaredSize ?? bytes.length };
-    }),
-  );
-}
-
-/** The parts of an archive made by zipArchive (deflated, sizes in the local headers). */
-function readParts(archive: Buffer): { name: string; bytes: Buffer }[] {
-  const parts: { name: string; bytes: Buffer }[] = [];
-  let at = 0;
-  while (archive.readUInt32LE(at) === 0x04034b50) {
-    const compressed = archive.readUInt32LE(at + 18);
-    const nameLength = archive.readUInt16LE(at + 26);
-    const extraLength = archive.readUInt16LE(at + 28);
-    const name = archive.toString('utf8', at + 30, at + 30 + nameLength);
-    const start = at + 30 + nameLength + extraLength;
-    parts.push({ name, bytes: inflateRawSync(archive.subarray(start, start + compressed)) });
-    at = start + compressed;
-  }
-  return parts;
-}
