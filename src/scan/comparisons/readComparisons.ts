@@ -26,11 +26,17 @@
 import type { DescriptiveSet, FactorialLink, PostHocLink, ReportedNumber, ReportedResult } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { commaNumberAsPoint } from '../cursor.js';
+import { paragraphOf, sentenceStart as sentenceStartWithin, type Paragraph } from '../paragraphs.js';
 
-export interface Paragraph {
-  start: number;
-  end: number;
+export type { Paragraph };
+
+/** Most characters looked back from a comparison for the start of its sentence. */
+const SENTENCE_LOOK_BACK = 600;
+
+function sentenceStart(text: string, offset: number, floor: number): number {
+  return sentenceStartWithin(text, offset, floor, SENTENCE_LOOK_BACK);
 }
+
 
 /** Most characters looked back from a comparison for its method and its ANOVA. */
 const LOOK_BACK = 2000;
@@ -57,25 +63,7 @@ function lastMethod(stretch: string): { method: PostHocLink['method']; text: str
   return found;
 }
 
-function paragraphOf(paragraphs: readonly Paragraph[], offset: number): number {
-  let low = 0;
-  let high = paragraphs.length - 1;
-  while (low < high) {
-    const mid = (low + high + 1) >> 1;
-    if (paragraphs[mid]!.start <= offset) low = mid;
-    else high = mid - 1;
-  }
-  return low;
-}
 
-/** Start of the sentence holding `offset`, no earlier than `floor`. */
-function sentenceStart(text: string, offset: number, floor: number): number {
-  const lowest = Math.max(floor, offset - 600);
-  for (let at = offset - 1; at > lowest; at--) {
-    if (/[.!?]/.test(text[at - 1]!) && /\s/.test(text[at]!) && /[A-Z(]/.test(text[at + 1] ?? '')) return at + 1;
-  }
-  return lowest;
-}
 
 type Family = Pick<PostHocLink, 'groups' | 'errorMeanSquare' | 'errorDf' | 'sizesAssumed'>;
 

@@ -16,19 +16,8 @@ import { linkCellSets, type Paragraph } from './linkCells.js';
 export { readCellTable } from './readCellTable.js';
 export { readCellText, readDesignStatements } from './readCellText.js';
 export { linkCellSets, termOfRowLabel, termOfWrittenLabel } from './linkCells.js';
-
-/** The paragraphs of a text: stretches between blank lines. */
-export function paragraphsOf(text: string): Paragraph[] {
-  const paragraphs: Paragraph[] = [];
-  const blank = /\n[ \t]*\n/g;
-  let start = 0;
-  for (let match = blank.exec(text); match !== null; match = blank.exec(text)) {
-    paragraphs.push({ start, end: match.index });
-    start = match.index + match[0].length;
-  }
-  paragraphs.push({ start, end: text.length });
-  return paragraphs;
-}
+import { paragraphsOf } from '../paragraphs.js';
+export { paragraphsOf };
 
 /** Characters looked back from a table without a caption for the caption line a reader left in the text. */
 const CAPTION_LOOK_BACK = 300;

@@ -30,14 +30,17 @@
  */
 
 import type { FactorialCellSet, FactorialLink, ReportedResult } from '../types.js';
+import { paragraphOf, sentenceStart as sentenceStartWithin, type Paragraph } from '../paragraphs.js';
 
-export interface Paragraph {
-  start: number;
-  end: number;
-}
+export type { Paragraph };
+
 
 /** Most characters looked back from a result for the words that name it. */
 const MAX_LABEL = 400;
+
+function sentenceStart(text: string, offset: number, floor: number): number {
+  return sentenceStartWithin(text, offset, floor, MAX_LABEL);
+}
 
 const GUARD =
   /\b(?:covariates?|ANCOVA|MANCOVA|adjusted (?:means?|for)|estimated marginal|controlling for|repeated[- ]measures?|within[- ](?:subjects?|participants?)|mixed[- ](?:design|model|ANOVA|effects?)|split[- ]plot|multilevel)\b/i;
@@ -163,25 +166,7 @@ function integerDf(result: ReportedResult): [number, number] | null {
   return [df1!.value, df2!.value];
 }
 
-function paragraphOf(paragraphs: readonly Paragraph[], offset: number): number {
-  let low = 0;
-  let high = paragraphs.length - 1;
-  while (low < high) {
-    const mid = (low + high + 1) >> 1;
-    if (paragraphs[mid]!.start <= offset) low = mid;
-    else high = mid - 1;
-  }
-  return low;
-}
 
-/** Start of the sentence holding `offset`, no earlier than `floor` and at most MAX_LABEL back. */
-function sentenceStart(text: string, offset: number, floor: number): number {
-  const lowest = Math.max(floor, offset - MAX_LABEL);
-  for (let at = offset - 1; at > lowest; at--) {
-    if (/[.!?]/.test(text[at - 1]!) && /\s/.test(text[at]!) && /[A-Z(]/.test(text[at + 1] ?? '')) return at + 1;
-  }
-  return lowest;
-}
 
 const TABLE_REFERENCE = /\bTables?\s([A-Z]?\d{1,3}[A-Za-z]?)\b/g;
 
