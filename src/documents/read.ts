@@ -2,6 +2,7 @@ import { extname } from 'node:path';
 import type { PdfEngineChoice } from './pdf.js';
 import { describeContent, sniffContent, type ContentKind } from './sniff.js';
 import { readTextDocument } from './text.js';
+import { decodeMarkup } from './decodeMarkup.js';
 import type { DocumentText, ReadOutcome } from './types.js';
 import { formatByExtension, supportedExtensions, type DocumentFormat } from './formats.js';
 import { formatMb, limitHint, MB, resolveLimits, type Limits } from '../limits.js';
@@ -85,11 +86,11 @@ async function readBytes(path: string, format: Exclude<DocumentFormat, 'text' | 
       case 'docx':
         return await (await import('./docx.js')).readDocxBytes(path, bytes, limits);
       case 'html':
-        return { ok: true, document: (await import('./html.js')).htmlToDocument(decodeText(bytes), path, 'html', limits) };
+        return { ok: true, document: (await import('./html.js')).htmlToDocument(decodeMarkup(bytes), path, 'html', limits) };
       case 'jats':
-        return (await import('./jats.js')).jatsToDocument(decodeText(bytes), path, limits);
+        return (await import('./jats.js')).jatsToDocument(decodeMarkup(bytes), path, limits);
       case 'latex':
-        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeText(bytes), path, readBblBeside(path, limits), limits) };
+        return { ok: true, document: (await import('./latex.js')).latexToDocument(decodeMarkup(bytes), path, readBblBeside(path, limits), limits) };
     }
   } catch (error) {
     if (error instanceof DocumentLimitError) return { ok: false, error: error.message };
@@ -114,19 +115,6 @@ function mislabelledMessage(format: DocumentFormat, content: ContentKind): strin
   return `${expected[format]}: the file is really ${describeContent(content)}${oleHint}${rename}`;
 }
 
-/** UTF-8 unless an HTML/XML declaration near the top names another charset that the platform decodes. */
-function decodeText(bytes: Buffer): string {
-  const head = bytes.subarray(0, 1024).toString('latin1');
-  const declared = /(?:charset|encoding)\s*=\s*["']?([A-Za-z0-9_-]+)/i.exec(head)?.[1];
-  if (declared && !/^utf-?8$/i.test(declared)) {
-    try {
-      return new TextDecoder(declared).decode(bytes);
-    } catch {
-      // an unknown label: fall back to UTF-8
-    }
-  }
-  return new TextDecoder('utf-8').decode(bytes);
-}
 
 /**
  * For \bibliography{...}: the .bbl that BibTeX wrote next to the .tex, when

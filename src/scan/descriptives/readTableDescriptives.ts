@@ -53,13 +53,15 @@ function roleOf(cell: string): Role {
 
 const PER_GROUP = /\bn\s?=\s?(\d{1,5})\s?(?:per|in each|for each|each)\s(?:group|condition|cell|arm)s?\b|\b(\d{1,5})\s(?:per|in each|in every)\s(?:group|condition|cell|arm)\b/i;
 
-function numberOf(cell: string | undefined, separator: DecimalSeparator): ReportedNumber | null {
+/** A cell's number as printed (an equality, not a bound), or null. */
+export function numberOf(cell: string | undefined, separator: DecimalSeparator): ReportedNumber | null {
   if (cell === undefined) return null;
   const read = readCell(cell, separator);
   return read.kind === 'number' && read.comparator === '=' ? read.number : null;
 }
 
-function countOf(cell: string | undefined, separator: DecimalSeparator): number | null {
+/** A cell's whole number of at least 1 (a group's n), or null. */
+export function countOf(cell: string | undefined, separator: DecimalSeparator): number | null {
   const value = numberOf(cell, separator);
   return value !== null && value.decimals === 0 && Number.isInteger(value.value) && value.value >= 1 ? value.value : null;
 }

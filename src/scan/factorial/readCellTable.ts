@@ -33,6 +33,7 @@ import type { DocumentTable } from '../../documents/types.js';
 import type { CellDescriptives, FactorialCellSet, ReportedNumber } from '../types.js';
 import { decimalSeparatorOf, headerKey, readCell, type DecimalSeparator } from '../tables/cells.js';
 import { commaNumberAsPoint } from '../cursor.js';
+import { countOf, numberOf } from '../descriptives/readTableDescriptives.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 
 /** Largest table considered (rows); a cell table of a three-factor design is a few dozen rows. */
@@ -61,17 +62,6 @@ export function isMarginLabel(label: string): boolean {
 const PAIRS_DECLARED = /\bM\s?\(\s?SD\s?\)|\bmeans?\s?\(\s?(?:SDs?|standard deviations?)\s?\)|\bmeans? and (?:\(\s?)?standard deviations?|\bstandard deviations? in (?:brackets|parenthes[ei]s)/i;
 
 const PER_CELL = /\bn\s?=\s?(\d{1,5})\s?(?:per|in each|for each|each)\s(?:group|condition|cell)s?\b|\b(\d{1,5})\s(?:participants\s|people\s|adults\s|children\s|students\s)?(?:per|in each|in every)\s(?:cell|group|condition)\b/i;
-
-function numberOf(cell: string | undefined, separator: DecimalSeparator): ReportedNumber | null {
-  if (cell === undefined) return null;
-  const read = readCell(cell, separator);
-  return read.kind === 'number' && read.comparator === '=' ? read.number : null;
-}
-
-function countOf(cell: string | undefined, separator: DecimalSeparator): number | null {
-  const value = numberOf(cell, separator);
-  return value !== null && value.decimals === 0 && Number.isInteger(value.value) && value.value >= 1 ? value.value : null;
-}
 
 /** "3.47 (1.21)" -> mean and SD (decimal commas in a table written with them). */
 export function meanSdPair(cell: string | undefined, separator: DecimalSeparator): { mean: ReportedNumber; sd: ReportedNumber } | null {

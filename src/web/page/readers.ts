@@ -25,6 +25,7 @@ import { composePages, looksScanned, pdfDocument } from '../../documents/pdfPage
 import { pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from '../../documents/pdfWords.js';
 import { plainTextDocument, detectTextEncoding, invalidUtf8Message, nulBytesMessage } from '../../documents/text.js';
 import { DocumentLimitError } from '../../documents/markupLimits.js';
+import { decodeMarkup } from '../../documents/decodeMarkup.js';
 import type { DocumentText } from '../../documents/types.js';
 import { defaultLimits, formatMb, MB } from '../../limits.js';
 
@@ -104,20 +105,6 @@ export function decodeText(bytes: Uint8Array): { ok: true; text: string } | { ok
   return { ok: true, text: new TextDecoder(detected.encoding, { ignoreBOM: true }).decode(body) };
 }
 
-/** Markup: UTF-8 unless a declaration near the top names another charset the browser decodes (as src/documents/read.ts). */
-function decodeMarkup(bytes: Uint8Array): string {
-  let head = '';
-  for (const byte of bytes.subarray(0, 1024)) head += String.fromCharCode(byte);
-  const declared = /(?:charset|encoding)\s*=\s*["']?([A-Za-z0-9_-]+)/i.exec(head)?.[1];
-  if (declared && !/^utf-?8$/i.test(declared)) {
-    try {
-      return new TextDecoder(declared).decode(bytes);
-    } catch {
-      // an unknown label: UTF-8
-    }
-  }
-  return new TextDecoder('utf-8').decode(bytes);
-}
 
 function startsWithPdf(bytes: Uint8Array): boolean {
   const head = String.fromCharCode(...bytes.subarray(0, 1024));
