@@ -395,4 +395,74 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it('reads rows under a spanned first column copied one cell per line, each row but the first ending with an empty cell', () => {
+    const header = ['Factor', 'Variable', 'Type III sum of squares', 'df', 'Mean square', 'F', 'Sig.'];
+    const rows = [
+      ['Depth', 'Clay', '10.926', '5', '2.185', '4.312', '0.002'],
+      ['Silt', '15.309', '5', '3.062', '0.410', '0.840 ns', ' '],
+      ['Sand', '12.100', '5', '2.420', '2.910', '0.019', ' '],
+      ['Site', 'Clay', '29.077', '2', '14.539', '2.077', '0.133 ns'],
+      ['Silt', '23.003', '2', '11.501', '1.539', '0.222 ns', ' '],
+      ['Error', '501.120', '100', '5.011', ' ', ' ', ' '],
+    ];
+    const table = [header, ...rows].map((row) => row.join('\n\n')).join('\n\n');
+    const document = scanTextJson(`Table 2. Effects of depth and site\n\n${table}\n\nNote. ns, not significant.\n`);
+    // (Without the span, "Variable" would name the sums of squares and every value would shift one column.)
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.312, [5, 100]],
+      ['F', 0.41, [5, 100]],
+      ['F', 2.91, [5, 100]],
+      ['F', 2.077, [2, 100]],
+      ['F', 1.539, [2, 100]],
+    ]);
+  });
+
+  it('reads a table copied one cell per line on consecutive lines, its empty cells empty lines', () => {
+    const lines = [
+      'Table 3. Repeated measures analysis of the scores',
+      'Main effect of group',
+      'Main effect of time',
+      'Interaction',
+      '',
+      '',
+      '',
+      'F (1, 58)',
+      'p',
+      'F (2, 116)',
+      'p',
+      'F (2, 116)',
+      'p',
+      'Primary outcome',
+      '',
+      '',
+      '',
+      '',
+      '',
+      '',
+      'Global score',
+      '7.171',
+      '.009',
+      '34.382',
+      '< .001',
+      '10.811',
+      '< .001',
+      'Memory',
+      '0.256',
+      '.614',
+      '7.069',
+      '.001',
+      '',
+      '',
+      'Note. Scores are sums.',
+    ];
+    const document = scanTextJson(`${lines.join('\n')}\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 7.171, [1, 58]],
+      ['F', 34.382, [2, 116]],
+      ['F', 10.811, [2, 116]],
+      ['F', 0.256, [1, 58]],
+      ['F', 7.069, [2, 116]],
+    ]);
+  });
 });

@@ -56,6 +56,10 @@ const MAX_BODY_CELLS = 4000;
 const MAX_EMPTY_RUN = 8;
 /** Most blank lines in a row between two cells. */
 const MAX_BLANK_RUN = 2;
+/** Cells on consecutive lines that show a copy giving its empty cells as empty lines. */
+const MIN_ADJACENT_CELLS = 2;
+/** Most empty lines in a row read as empty cells in such a copy. */
+const MAX_EMPTY_LINES = 24;
 
 const TITLE = TABLE_TITLE;
 const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|[a-h]\s*p\s*[<\u2264=]|Abbreviations?\b)/;
@@ -171,6 +175,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   let headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
   // Side-by-side blocks named alike ("D.f. | F ratio | D.f. | F ratio"), where many rows print one block only:
   // the full rows hold every column the header names.
+  // Rows under a spanned first column ("Soil depth" over "WSMacA", "MWD", ...) copied with an empty cell at the
+  // end of each row but the first: those empty cells are the spanned column's, shifted, not a value column's.
+  if (grid === null) body = withoutSpanShiftedEmpties(body, headerRun);
   const typical = typicalValueCount(body);
   const widest = widestValueCount(body);
   const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
@@ -280,10 +287,28 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity): Cell[] 
   let blankRun = 0;
   // Whether a cell so far names a column: kept as cells come, not looked for again at every line.
   let headerSeen = false;
+  // Cells on the line right after the cell before, and cells one blank line after it: a copy that puts its cells
+  // on consecutive lines gives an empty cell as an empty line, one that separates cells by blank lines does not.
+  let adjacentCells = 0;
+  let separatedCells = 0;
+  let lastCellLine = -1;
+  // The last run of empty lines taken as empty cells, until a value comes after it.
+  let tailEmpties: { at: number; run: number } | null = null;
   for (let index = from; index < lines.length && index <= lastLine && cells.length < MAX_BODY_CELLS; index++) {
     const line = lines[index]!;
     const inner = stripPipes(line.text);
     if (inner === null) {
+      if (blankRun === 0 && adjacentCells >= MIN_ADJACENT_CELLS && adjacentCells > 3 * separatedCells) {
+        const run = emptyCellLines(lines, index);
+        // (Only in the header's rows and after them: a caption's blank lines are not cells.)
+        if (run > 0 && (headerSeen || isColumnName(lines[index + run]!.text.trim()))) {
+          for (let offset = 0; offset < run; offset++) cells.push({ text: '', start: lines[index + offset]!.start, end: lines[index + offset]!.start, line: index + offset, empty: true });
+          tailEmpties = { at: cells.length - run, run };
+          index += run - 1;
+          lastCellLine = index;
+          continue;
+        }
+      }
       if (line.text.trim() === '' && ++blankRun > MAX_BLANK_RUN) break;
       continue;
     }
@@ -314,7 +339,13 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity): Cell[] 
     }
     cells.push({ text, start, end: start + text.length, line: index, empty: false });
     headerSeen ||= isColumnName(text);
+    if (tailEmpties !== null && isValueCell(cells[cells.length - 1]!)) tailEmpties = null;
+    if (index - lastCellLine === 1) adjacentCells++;
+    else if (index - lastCellLine - blankRunBefore(lines, index) === 1) separatedCells++;
+    lastCellLine = index;
   }
+  // Empty lines followed only by text (a heading, a line of prose) end the table: they are not its cells.
+  if (tailEmpties !== null && tailEmpties.at + tailEmpties.run < cells.length) cells.splice(tailEmpties.at, tailEmpties.run);
   return cells;
 }
 
@@ -577,6 +608,33 @@ function repeatsBlock(names: string[], size: number): boolean {
   return names.every((name, index) => name === names[index % size]);
 }
 
+/**
+ * The body without the empty cells that end most rows' values when the header's label names ("Factor",
+ * "Variable") leave fewer value columns than those rows have values and every extra cell is empty; the body
+ * unchanged otherwise.
+ */
+function withoutSpanShiftedEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
+  let labelNames = 0;
+  while (labelNames < headerRun.length && classifyHeader(headerRun[labelNames]!.text).role === 'label') labelNames++;
+  const valueNames = headerRun.length - labelNames;
+  if (labelNames < 2 || valueNames < 2 || typicalValueCount(body) <= valueNames) return body;
+  const kept: Cell[] = [];
+  let index = 0;
+  while (index < body.length) {
+    if (!isValueCell(body[index]!)) {
+      kept.push(body[index++]!);
+      continue;
+    }
+    let end = index;
+    while (end < body.length && isValueCell(body[end]!)) end++;
+    let last = end;
+    while (last - index > valueNames && body[last - 1]!.empty) last--;
+    kept.push(...body.slice(index, last));
+    index = end;
+  }
+  return typicalValueCount(kept) === valueNames ? kept : body;
+}
+
 /** The number of text cells most rows have before their values. */
 function typicalLabelCount(body: Cell[]): number {
   const counts = new Map<number, number>();
@@ -606,4 +664,23 @@ function spanOf(cells: Cell[]): CellSpan | null {
   const present = cells.filter((cell) => !cell.empty);
   if (present.length === 0) return null;
   return { start: present[0]!.start, end: present[present.length - 1]!.end };
+}
+
+/**
+ * The number of empty lines from `index` when they stand for empty cells: a run of at most MAX_EMPTY_LINES empty
+ * lines followed by a line that can be a cell; 0 otherwise.
+ */
+function emptyCellLines(lines: Line[], index: number): number {
+  let run = 0;
+  while (index + run < lines.length && lines[index + run]!.text.length === 0 && run <= MAX_EMPTY_LINES) run++;
+  if (run > MAX_EMPTY_LINES) return 0;
+  const next = lines[index + run];
+  return next !== undefined && next.text.trim() !== '' && next.text.trim().length <= MAX_CELL_LENGTH ? run : 0;
+}
+
+/** The number of blank lines right before line `index`. */
+function blankRunBefore(lines: Line[], index: number): number {
+  let run = 0;
+  while (index - run - 1 >= 0 && lines[index - run - 1]!.text.trim() === '') run++;
+  return run;
 }

@@ -269,8 +269,13 @@ function figuresLine(name: string, f: Figures): string {
   );
 }
 
-/** How a copy can hand over a pipe table's rows: tab-separated, crushed into single spaces, or one cell per line. */
-export type Rendering = 'tabs' | 'crushed' | 'cell-per-line';
+/**
+ * How a copy can hand over a pipe table's rows: tab-separated, crushed into single spaces, one cell per line
+ * with blank lines between cells, one cell per line on consecutive lines (an empty cell an empty line), or
+ * aligned by runs of spaces (as a PDF's text laid out by position).
+ */
+export type Rendering = 'tabs' | 'crushed' | 'cell-per-line' | 'consecutive-lines' | 'aligned';
+const RENDERINGS: readonly Rendering[] = ['tabs', 'crushed', 'cell-per-line', 'consecutive-lines', 'aligned'];
 
 /**
  * A passage's pipe rows rendered another way, moving cells but never
@@ -282,6 +287,8 @@ export function rerender(text: string, rendering: Rendering): string {
   const rows = lines.map((line) => (line.includes('|') ? line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/) : line));
   if (rendering === 'tabs') return rows.map((row) => (Array.isArray(row) ? row.join('\t') : row)).join('\n');
   if (rendering === 'crushed') return rows.map((row) => (Array.isArray(row) ? row.filter((cell) => cell !== '').join(' ') : row)).join('\n');
+  if (rendering === 'consecutive-lines') return rows.map((row) => (Array.isArray(row) ? row.join('\n') : row)).join('\n');
+  if (rendering === 'aligned') return rows.map((row) => (Array.isArray(row) ? row.map((cell) => (cell === '' ? ' ' : cell)).join('   ') : row)).join('\n');
   return rows.map((row) => (Array.isArray(row) ? row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n') : row)).join('\n\n');
 }
 
@@ -295,11 +302,11 @@ function resultKey(result: ReportedResult): string {
  */
 export function renderingScores(passages: RealPassage[]): Record<Rendering, { piped: number; kept: number; extra: number }> {
   const tableKeys = (text: string): string[] => scanDocument(plainTextDocument('table.txt', 'text', text)).results.filter((r) => r.tableRow).map(resultKey);
-  const scores = { tabs: { piped: 0, kept: 0, extra: 0 }, crushed: { piped: 0, kept: 0, extra: 0 }, 'cell-per-line': { piped: 0, kept: 0, extra: 0 } };
+  const scores = Object.fromEntries(RENDERINGS.map((rendering) => [rendering, { piped: 0, kept: 0, extra: 0 }])) as Record<Rendering, { piped: number; kept: number; extra: number }>;
   for (const passage of passages.filter((p) => p.split === 'tune' && p.shapes.includes('table:pipe'))) {
     const piped = tableKeys(passage.text);
     const labelKeys = new Set(passage.results.map((label) => `${label.kind}|${label.df.join(',')}|${label.valueText}`));
-    for (const rendering of ['tabs', 'crushed', 'cell-per-line'] as const) {
+    for (const rendering of RENDERINGS) {
       const other = tableKeys(rerender(passage.text, rendering));
       scores[rendering].piped += piped.length;
       scores[rendering].kept += piped.filter((key) => {
@@ -308,8 +315,13 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
         return at >= 0;
       }).length;
       // What is left was read from the rendering but not from the pipe rows: a misreading, unless a label of the
-      // passage prints that statistic with that value and df (a row the pipe copy misplaced, read right here).
-      scores[rendering].extra += other.filter((key) => !labelKeys.has(key.split('|').slice(0, 3).join('|'))).length;
+      // passage prints that statistic with that value and df (a row the pipe copy misplaced, read right here), or
+      // with that value when none were read (a result read with less, its df lost with the layout, not misread).
+      const labelValues = new Set(passage.results.map((label) => `${label.kind}||${label.valueText}`));
+      scores[rendering].extra += other.filter((key) => {
+        const [kind, df, value] = key.split('|');
+        return !labelKeys.has(`${kind}|${df}|${value}`) && !(df === '' && labelValues.has(`${kind}||${value}`));
+      }).length;
     }
   }
   return scores;
