@@ -1,4 +1,5 @@
 import type { DocumentTable, Region } from '../documents/types.js';
+import { layoutTable, layoutText } from './layoutText.js';
 import { scanText } from './scan.js';
 import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion, type UnreadTable } from './tables/index.js';
 import { readDescriptives } from './descriptives/index.js';
@@ -230,12 +231,15 @@ export type DocumentScan = ScanOutput & { tablesNotRead: UnreadTable[] };
 
 export function scanDocument(document: ScannableDocument): DocumentScan {
   const written = scanText(document.text);
-  const allTables = [...document.tables, ...findTextTables(document.text)];
-  const tables = readTables(document.text, allTables);
+  // (The table and descriptive readers get the text with no-break spaces, full-width signs and lone carriage
+  // returns written plainly, at the same offsets.)
+  const text = layoutText(document.text);
+  const allTables = [...document.tables.map(layoutTable), ...findTextTables(text)];
+  const tables = readTables(text, allTables);
   // A row the text scanner already read as a written result ("Dose  F < 1  n.s.") is reported once.
   const overlapsWritten = spanOverlapFinder(written.results);
   const tabled = tables.results.filter((row) => !overlapsWritten(row));
-  completeFromRows(document.text, written.results, tables.completions);
+  completeFromRows(text, written.results, tables.completions);
   written.results.sort((a, b) => a.start - b.start);
   const reprinted = mergeReprintedTables(tabled);
   const restated = mergeRestatements(
@@ -246,20 +250,20 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     .filter((result) => !inRegion(result.start, document.regions, 'references'))
     .sort((a, b) => a.start - b.start || a.end - b.end);
   // Group means, SDs and ns (in the text and in descriptive tables), linked to the tests computed from them.
-  const descriptives = readDescriptives(document.text, distinctTables(allTables), results);
+  const descriptives = readDescriptives(text, distinctTables(allTables), results);
   descriptives.links.forEach((set, index) => {
     if (set !== null) results[index]!.descriptives = set;
   });
   // Cell statistics of factorial designs, linked to the F tests of their effects; such an F is no one-way test of groups.
   const distinct = distinctTables(allTables);
-  const factorial = readFactorialCells(document.text, distinct, results);
+  const factorial = readFactorialCells(text, distinct, results);
   factorial.links.forEach((link, index) => {
     if (link === null) return;
     results[index]!.factorial = link;
     delete results[index]!.descriptives;
   });
   // Pairwise comparisons after an ANOVA, linked to its groups and error term (needs the links above).
-  readComparisons(document.text, results, paragraphsOf(document.text)).forEach((link, index) => {
+  readComparisons(text, results, paragraphsOf(text)).forEach((link, index) => {
     if (link !== null) results[index]!.postHoc = link;
   });
   return {
@@ -267,7 +271,7 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     context: written.context,
     descriptives: descriptives.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
     cellSets: factorial.sets.filter((set) => !inRegion(set.start, document.regions, 'references')),
-    tablesNotRead: [...tables.unread, ...findUnrecognisedTables(document.text, handledTables(allTables, tables), written.results)]
+    tablesNotRead: [...tables.unread, ...findUnrecognisedTables(text, handledTables(allTables, tables), written.results)]
       .filter((table) => !inRegion(table.start, document.regions, 'references'))
       // A table read as a factorial design's cell statistics was read.
       .filter((table) => !factorial.sets.some((set) => set.source === 'table' && set.start < table.end && table.start < set.end))

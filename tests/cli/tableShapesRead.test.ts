@@ -465,4 +465,15 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 7.069, [2, 116]],
     ]);
   });
+
+  it('reads a table copied with no-break spaces, thin spaces and full-width brackets as it reads the plain copy', () => {
+    const plain = 'Table 2. ANOVA of the scores\nSource\tdf\tF\tp\nGroup\t2, 57\t4.21\t< .001\nTime\t1, 57\t2.11\t.152\n\nNext.\n';
+    const damaged = plain.replace(/ (?=[<=>.\d])/g, '\u00a0').replace(/< /g, '<\u2009').replace(/Source/, '\uff08Source\uff09');
+    const expected = [
+      ['F', 4.21, [2, 57]],
+      ['F', 2.11, [1, 57]],
+    ];
+    expect(readAs(scanTextJson(plain).statistics)).toEqual(expected);
+    expect(readAs(scanTextJson(damaged).statistics)).toEqual(expected);
+  });
 });

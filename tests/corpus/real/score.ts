@@ -327,8 +327,35 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
   return scores;
 }
 
+/**
+ * Ways web pages and other programs change characters without changing what
+ * is printed, one character for one (so every label keeps its place):
+ * no-break spaces for every space; thin spaces around "<", "=" and ">";
+ * full-width brackets; lone carriage returns ending lines.
+ */
+export type CharacterDamage = 'no-break-spaces' | 'thin-spaces' | 'full-width-brackets' | 'carriage-returns';
+const CHARACTER_DAMAGE: Record<CharacterDamage, (text: string) => string> = {
+  'no-break-spaces': (text) => text.replace(/ /g, '\u00a0'),
+  'thin-spaces': (text) => text.replace(/ (?=[<=>])|(?<=[<=>]) /g, '\u2009'),
+  'full-width-brackets': (text) => text.replace(/\(/g, '\uff08').replace(/\)/g, '\uff09'),
+  'carriage-returns': (text) => text.replace(/\n/g, '\r'),
+};
+
+/** The tune split's recall and false alarms with its passages' characters changed each way. */
+export function damageScores(passages: RealPassage[]): Record<CharacterDamage, Figures> {
+  const tune = passages.filter((passage) => passage.split === 'tune');
+  return Object.fromEntries(
+    Object.entries(CHARACTER_DAMAGE).map(([damage, change]) => [damage, figures(tune.map((passage) => scorePassage({ ...passage, text: change(passage.text) })), 'all')]),
+  ) as Record<CharacterDamage, Figures>;
+}
+
 /** The print-out of `npm run score:real`. */
-export function formatScores(scores: Record<Split, PassageScore[]>, detail: boolean, rendered?: Record<Rendering, { piped: number; kept: number; extra: number }>): string {
+export function formatScores(
+  scores: Record<Split, PassageScore[]>,
+  detail: boolean,
+  rendered?: Record<Rendering, { piped: number; kept: number; extra: number }>,
+  damaged?: Record<CharacterDamage, Figures>,
+): string {
   const lines: string[] = [];
   for (const split of ['tune', 'holdout'] as const) {
     const s = scores[split];
@@ -352,6 +379,12 @@ export function formatScores(scores: Record<Split, PassageScore[]>, detail: bool
     lines.push('', '== tune pipe tables in other renderings (results read from the pipe rows also read from the same rows; results read otherwise are misreadings)');
     for (const [rendering, score] of Object.entries(rendered)) {
       lines.push(`  ${rendering.padEnd(26)} ${String(score.kept).padStart(4)} of ${score.piped}  ${percent(score.piped === 0 ? 1 : score.kept / score.piped).padStart(6)}  read otherwise ${score.extra}`);
+    }
+  }
+  if (damaged !== undefined) {
+    lines.push('', '== tune split with characters changed, one for one (recall of readable labels; false alarms)');
+    for (const [damage, f] of Object.entries(damaged)) {
+      lines.push(`  ${damage.padEnd(26)} ${String(f.readable).padStart(4)} readable  recall ${percent(f.recall).padStart(6)}  false alarms ${f.falseAlarms}`);
     }
   }
   if (detail) {
@@ -381,5 +414,5 @@ export function formatScores(scores: Record<Split, PassageScore[]>, detail: bool
 // Run as a script: node dist/tests/corpus/real/score.js [--brief]
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
   const corpus = loadRealCorpus();
-  console.log(formatScores(scoreCorpus(corpus), !process.argv.includes('--brief'), renderingScores(corpus)));
+  console.log(formatScores(scoreCorpus(corpus), !process.argv.includes('--brief'), renderingScores(corpus), damageScores(corpus)));
 }
