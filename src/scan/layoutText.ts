@@ -15,9 +15,9 @@
  */
 
 /** Characters rewritten, at least one of which must be present for any work to be done. */
-const LAYOUT_CHARACTERS = /[\u00a0\u1680\u2000-\u200a\u202f\u205f\u3000\uff01-\uff5e\r]/;
+const LAYOUT_CHARACTERS = /[\u00a0\u1680\u2000-\u200b\u202f\u205f\u2060\u3000\ufeff\uff01-\uff5e\r]/;
 
-/** `text` with Unicode spaces as " ", full-width ASCII forms as ASCII and lone carriage returns as "\n". */
+/** `text` with Unicode and zero-width spaces as " ", full-width ASCII forms as ASCII and lone carriage returns as "\n". */
 export function layoutText(text: string): string {
   if (!LAYOUT_CHARACTERS.test(text)) return text;
   let folded = '';
@@ -35,6 +35,9 @@ function replacementAt(text: string, index: number): string | null {
   const code = text.charCodeAt(index);
   if (code < 0x80) return code === 0x0d && text.charCodeAt(index + 1) !== 0x0a ? '\n' : null;
   if (code === 0x00a0 || code === 0x1680 || (code >= 0x2000 && code <= 0x200a) || code === 0x202f || code === 0x205f || code === 0x3000) return ' ';
+  // A zero-width space, word joiner or byte-order mark stands where a program put a break, not inside a number
+  // (one character for one: a space, which the readers skip like any other).
+  if (code === 0x200b || code === 0x2060 || code === 0xfeff) return ' ';
   // Full-width forms of "!" to "~" sit 0xfee0 above the ASCII ones.
   if (code >= 0xff01 && code <= 0xff5e) return String.fromCharCode(code - 0xfee0);
   return null;

@@ -476,4 +476,21 @@ describe('results tables in the shapes papers print them', () => {
     expect(readAs(scanTextJson(plain).statistics)).toEqual(expected);
     expect(readAs(scanTextJson(damaged).statistics)).toEqual(expected);
   });
+
+  it('reads a crushed row whose p is glued to the value before it ("241.34<0.0001", "4.842 (15)<.001")', () => {
+    const f = scanTextJson('Table 4. Analysis of variance\nSource SS df MS F p\nModel 5.88 15 0.392 241.34<0.0001\nVoltage 1.84 1 1.84 113.12<0.0001\nResidual 0.04 24 0.0016\n\nNext.\n');
+    expect(readAs(f.statistics)).toEqual([
+      ['F', 241.34, [15, 24]],
+      ['F', 113.12, [1, 24]],
+    ]);
+    expect(f.statistics.map((statistic) => statistic.p?.value)).toEqual([0.0001, 0.0001]);
+    const t = scanTextJson(
+      'Table 2. Change in each group\nVariable Mean (SD) t value (df) P value Cohen d\nMood 0.59 (0.5) 4.842 (15)<.001 1.21\nAttention 0.63 (0.5) 2.953 (15) .01 0.74\nActivity 0.25 (0.4) 2.449 (15) .03 0.61\n\nNext.\n',
+    );
+    expect(readAs(t.statistics)).toEqual([
+      ['t', 4.842, [15]],
+      ['t', 2.953, [15]],
+      ['t', 2.449, [15]],
+    ]);
+  });
 });

@@ -118,7 +118,7 @@ describe('real corpus: plumbline reads what is printed', () => {
     });
   }
 
-  it('reads the tune split as well with no-break or thin spaces, full-width brackets or lone carriage returns, and misreads nothing more', () => {
+  it('reads the tune split as well with no-break or thin spaces, full-width brackets, lone carriage returns or no spaces around signs, and misreads nothing more', () => {
     const undamaged = figures(scores.tune, 'all');
     for (const [damage, damaged] of Object.entries(damageScores(corpus))) {
       expect(damaged.falseAlarms, damage).toBe(0);

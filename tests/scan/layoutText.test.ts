@@ -16,6 +16,10 @@ describe('layoutText', () => {
     expect(folded.length).toBe(text.length);
   });
 
+  it('writes zero-width spaces, word joiners and byte-order marks as spaces', () => {
+    expect(layoutText('\ufeffF(\u200b1, 44) =\u20604.2')).toBe(' F( 1, 44) = 4.2');
+  });
+
   it('writes full-width brackets, signs and digits as ASCII', () => {
     expect(layoutText('\uff08n\uff1d58\uff09 \uff10.05')).toBe('(n=58) 0.05');
   });

@@ -583,7 +583,7 @@ function splitTokens(text: string): readonly Piece[] {
       else if (depth === 0 && isSpace(code)) break;
       at++;
     }
-    raw.push({ text: text.slice(start, at), start, end: at });
+    raw.push(...splitGluedP({ text: text.slice(start, at), start, end: at }));
   }
   const tokens: Piece[] = [];
   for (let index = 0; index < raw.length; index++) {
@@ -645,6 +645,20 @@ function splitTokens(text: string): readonly Piece[] {
     else tokens.push(token);
   }
   return tokens;
+}
+
+/** A value (its stars after it) or a bracketed df, and a p below 1 after "<" glued to it: "241.34<0.0001", "(15)<.001". */
+const GLUED_P = /^([-\u2212]?(?:\d{1,7}(?:\.\d{1,6})?|\.\d{1,6})[*\u2020\u2021]{0,3}|\(\d{1,5}(?:\.\d{1,3})?(?:,\s?\d{1,6}(?:\.\d{1,3})?)?\))((?:<|\u2264|<=)0?\.\d{1,6}[*\u2020\u2021a-h]{0,3})$/;
+
+/** A cell with the p after it glued on (a copy that lost the space before "<") as two cells; others as they are. */
+function splitGluedP(piece: Piece): Piece[] {
+  const glued = GLUED_P.exec(piece.text);
+  if (glued === null) return [piece];
+  const cut = piece.start + glued[1]!.length;
+  return [
+    { text: glued[1]!, start: piece.start, end: cut },
+    { text: glued[2]!, start: cut, end: piece.end },
+  ];
 }
 
 /** Longest line read as several rows run together. */

@@ -329,23 +329,64 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
 
 /**
  * Ways web pages and other programs change characters without changing what
- * is printed, one character for one (so every label keeps its place):
- * no-break spaces for every space; thin spaces around "<", "=" and ">";
- * full-width brackets; lone carriage returns ending lines.
+ * is printed: no-break spaces for every space; thin spaces around "<", "="
+ * and ">"; full-width brackets; lone carriage returns ending lines; no
+ * spaces around "<", "=", ">" ("p<.001", "241.34<0.0001").
  */
-export type CharacterDamage = 'no-break-spaces' | 'thin-spaces' | 'full-width-brackets' | 'carriage-returns';
-const CHARACTER_DAMAGE: Record<CharacterDamage, (text: string) => string> = {
-  'no-break-spaces': (text) => text.replace(/ /g, '\u00a0'),
-  'thin-spaces': (text) => text.replace(/ (?=[<=>])|(?<=[<=>]) /g, '\u2009'),
-  'full-width-brackets': (text) => text.replace(/\(/g, '\uff08').replace(/\)/g, '\uff09'),
-  'carriage-returns': (text) => text.replace(/\n/g, '\r'),
+export type CharacterDamage = 'no-break-spaces' | 'thin-spaces' | 'full-width-brackets' | 'carriage-returns' | 'no-spaces-around-signs';
+const CHARACTER_DAMAGE: Record<CharacterDamage, [RegExp, string]> = {
+  'no-break-spaces': [/ /g, '\u00a0'],
+  'thin-spaces': [/ (?=[<=>])|(?<=[<=>]) /g, '\u2009'],
+  'full-width-brackets': [/[()]/g, '\uff08'],
+  'carriage-returns': [/\n/g, '\r'],
+  // Not one for one: labels are moved with the characters.
+  'no-spaces-around-signs': [/ ?[<=>\u2264\u2265] ?/g, ''],
 };
+
+/**
+ * `text` with each match of `pattern` changed (full-width brackets: each bracket its own full-width form;
+ * signs: kept, their spaces dropped), and the place in the new text of every offset of the old one.
+ */
+function changeCharacters(text: string, damage: CharacterDamage): { text: string; placeOf: (offset: number) => number } {
+  const [pattern, replacement] = CHARACTER_DAMAGE[damage];
+  const shifts: { at: number; end: number; shift: number }[] = [];
+  let shift = 0;
+  const changed = text.replace(pattern, (match: string, at: number) => {
+    const written =
+      damage === 'full-width-brackets' ? String.fromCharCode(match.charCodeAt(0) + 0xfee0) : damage === 'no-spaces-around-signs' ? match.trim() : replacement;
+    shift += written.length - match.length;
+    shifts.push({ at, end: at + match.length, shift });
+    return written;
+  });
+  const placeOf = (offset: number): number => {
+    // The shift of the last change that ends at or before the offset (an offset inside a change goes to its end).
+    let low = 0;
+    let high = shifts.length;
+    while (low < high) {
+      const middle = (low + high) >> 1;
+      if (shifts[middle]!.end <= offset) low = middle + 1;
+      else high = middle;
+    }
+    return offset + (low === 0 ? 0 : shifts[low - 1]!.shift);
+  };
+  return { text: changed, placeOf };
+}
+
+/** A passage with its characters changed, its labels moved with them. */
+function damaged(passage: RealPassage, damage: CharacterDamage): RealPassage {
+  const { text, placeOf } = changeCharacters(passage.text, damage);
+  const results = passage.results.map((label) => {
+    const [start, end, valueStart, valueEnd] = [placeOf(label.start), placeOf(label.end), placeOf(label.valueStart), placeOf(label.valueEnd)];
+    return { ...label, start, end, valueStart, valueEnd, span: text.slice(start, end) };
+  });
+  return { ...passage, text, results };
+}
 
 /** The tune split's recall and false alarms with its passages' characters changed each way. */
 export function damageScores(passages: RealPassage[]): Record<CharacterDamage, Figures> {
   const tune = passages.filter((passage) => passage.split === 'tune');
   return Object.fromEntries(
-    Object.entries(CHARACTER_DAMAGE).map(([damage, change]) => [damage, figures(tune.map((passage) => scorePassage({ ...passage, text: change(passage.text) })), 'all')]),
+    (Object.keys(CHARACTER_DAMAGE) as CharacterDamage[]).map((damage) => [damage, figures(tune.map((passage) => scorePassage(damaged(passage, damage))), 'all')]),
   ) as Record<CharacterDamage, Figures>;
 }
 
@@ -382,7 +423,7 @@ export function formatScores(
     }
   }
   if (damaged !== undefined) {
-    lines.push('', '== tune split with characters changed, one for one (recall of readable labels; false alarms)');
+    lines.push('', '== tune split with characters changed (recall of readable labels; false alarms; labels move with their characters)');
     for (const [damage, f] of Object.entries(damaged)) {
       lines.push(`  ${damage.padEnd(26)} ${String(f.readable).padStart(4)} readable  recall ${percent(f.recall).padStart(6)}  false alarms ${f.falseAlarms}`);
     }
