@@ -444,13 +444,27 @@ const PART_NOUNS: ReadonlySet<string> = new Set(['men', 'women', 'boys', 'girls'
 const PER_GROUP_AFTER =
   /^\s?(?:(?:(?:were|was)\s(?:randomly\s)?(?:assigned|allocated)\sto\s)?(?:per|in\seach|in\severy|for\seach|each)\s(?:of\s(?:the\s)?(?:[a-z]{1,20}\s)?)?(?:groups?|conditions?|cells?|arms?|treatments?|sites?|classes|schools?)\b|each(?=\s?[),;]))/i;
 
+/**
+ * After "N = 12": a group's name and, after a comma, the next group's count and name ("N = 12 control + vehicle,
+ * 13 control + Aβ, 12 0.01% EHT + vehicle"): the sizes of the groups one by one, none of them the total.
+ */
+const GROUP_SIZE_LIST = /^\s(?:[A-Za-z][^\d,;()]{0,40})[,;]\s?(?:and\s)?\d{1,5}\s[^\s,;()]/;
+
+function isGroupSizeList(after: string): boolean {
+  const list = GROUP_SIZE_LIST.exec(after);
+  if (list === null) return false;
+  // ("N = 120 participants, 60 women": a sample noun names the total.)
+  const firstWord = /^\s([A-Za-z]+)/.exec(after)![1]!.toLowerCase();
+  return !SAMPLE_NOUNS.has(firstWord);
+}
+
 function readCapitalN(text: string, at: number): (Span & { value: number; scope: SampleScope }) | null {
   if (!isWholeWordStart(text, at)) return null;
   const match = CAPITAL_N.exec(text.slice(at, at + 24));
   if (match === null) return null;
   const end = at + match[0].length;
   const before = text.slice(Math.max(0, at - 30), at);
-  const scope: SampleScope = PER_GROUP_AFTER.test(text.slice(end, end + 50))
+  const scope: SampleScope = PER_GROUP_AFTER.test(text.slice(end, end + 50)) || isGroupSizeList(text.slice(end, end + 160))
     ? 'per-group'
     : TEST_BEFORE.test(before) || TEST_AFTER.test(text.slice(end, end + 30))
       ? 'test'

@@ -15,6 +15,7 @@ import {
   readNumber,
   skipSpaces,
   startsWord,
+  type ReadNumber,
 } from './cursor.js';
 import type { Comparator, ReportedNumber, StatisticKind, StatisticSymbol } from './types.js';
 
@@ -410,7 +411,7 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   if (comparator === null) return null;
   at = skipSpaces(text, comparatorAt + comparator.length);
   // "F = 4,21": a decimal comma, as manuscripts from many countries write it.
-  const valueRead = readNumber(text, at, true, 'unlessThousands');
+  const valueRead = withSpaceAfterPoint(text, readNumber(text, at, true, 'unlessThousands'));
   if (valueRead === null) return null;
   // A value running into letters or digits is a unit or a label ("t = 5s"), not a statistic.
   // With bracketed df, a footnote mark of one to three letters may follow ("t(37.5) =18.55ab" in a table cell).
@@ -535,4 +536,20 @@ const COORDINATE_BEFORE = /(?:\by\s{0,3}=\s{0,3}[-+]?\d{1,6}(?:\.\d{1,6})?|\by)\
 function looksLikeCoordinate(text: string, zPosition: number): boolean {
   const before = text.slice(Math.max(0, zPosition - 40), zPosition);
   return COORDINATE_BEFORE.test(before);
+}
+
+/**
+ * A statistic's whole-number value followed by a point, a space and digits that end the value ("F1,155 = 4. 54,
+ * p = ..."): the space a PDF's text put after the decimal point. Read as "4.54" only where a comma, semicolon,
+ * closing bracket or the line's end follows: a sentence that ends after the value goes on with a word.
+ */
+function withSpaceAfterPoint(text: string, read: ReadNumber | null): ReadNumber | null {
+  if (read === null || read.number.decimals !== 0 || text.charCodeAt(read.end) !== 46 || text.charCodeAt(read.end + 1) !== 32) return read;
+  let end = read.end + 2;
+  while (end < text.length && end - read.end < 9 && isAsciiDigit(text.charCodeAt(end))) end++;
+  if (end === read.end + 2 || isAsciiDigit(text.charCodeAt(end))) return read;
+  const after = text.charCodeAt(end);
+  if (!(after === 44 || after === 59 || after === 41 || after === 10 || Number.isNaN(after))) return read;
+  const fraction = text.slice(read.end + 2, end);
+  return { number: plainNumber(`${read.number.text}.${fraction}`, fraction.length), start: read.start, end };
 }

@@ -57,4 +57,15 @@ describe('plumbline check --format json: context from the rest of the document',
     expect(sure.statistics[0]!.findings).toMatchObject([{ rule: 'df-exceeds-sample', severity: 'fail' }]);
     expect(sure.status).toBe(1);
   });
+
+  it('5. "N = 12 control, 13 drug, ..." lists the groups\' sizes one by one: none of them is the total the df are held to', () => {
+    // F(2, 34) = 4.42: p = .0196 (SciPy 1.10.1, scipy.stats.f.sf), so only df-exceeds-sample could speak.
+    const listed = check('Errors differed between groups, F(2, 34) = 4.42, p = .020 (N = 12 control + vehicle, 13 control + drug, 12 drug + vehicle).');
+    expect(listed.statistics[0]!.findings).toEqual([]);
+    expect(listed.status).toBe(0);
+    // ("N = 12 participants, 6 women": a sample noun makes it the total, and F(2, 34) cannot come from 12.)
+    const total = check('Errors differed between groups, F(2, 34) = 4.42, p = .020 (N = 12 participants, 6 women, 6 men).');
+    expect(total.statistics[0]!.findings).toMatchObject([{ rule: 'df-exceeds-sample', severity: 'fail' }]);
+  });
 });
+

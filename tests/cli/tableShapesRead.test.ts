@@ -493,4 +493,24 @@ describe('results tables in the shapes papers print them', () => {
       ['t', 2.449, [15]],
     ]);
   });
+
+  it('takes neither df pair of a note that states one for most columns and another for one of them', () => {
+    const document = scanTextJson(
+      'Table 2. ANOVA of each measure\nTerm Mass Count Output\n F P F P F P\nSC 5.81 0.02 8.48 0.007 5.22 0.03\nMR 0.06 0.81 0.12 0.73 0.09 0.76\nNote. d.f. = 1,28 except for output, where one subject was excluded and so d.f. = 1,27.\n\nNext.\n',
+    );
+    // (Which column takes 1,27 the note says only in words: every F is read, none with df it may not have.)
+    expect(document.statistics.map((statistic) => statistic.value)).toEqual([5.81, 8.48, 5.22, 0.06, 0.12, 0.09]);
+    expect(document.statistics.filter((statistic) => statistic.df.length > 0)).toEqual([]);
+  });
+
+  it('does not place counts with their percentages ("7 (24)") under a "Chi-square (df)" column of a crushed table', () => {
+    const document = scanTextJson(
+      'Table 1. Characteristics by group\nCharacteristic Experimental (n=29) Control (n=29) Chi-square (df) t test (df) P value\nSex: female, n (%) 24 (83) 22 (76) 0.10 (1) .75\nAge (y), mean (SD) 84.03 (7.36) 84.38 (7.48) −0.177 (56) .86\nElementary 7 (24) 6 (21)\nSecondary 19 (66) 11 (38)\n\nNext.\n',
+    );
+    // (Nor the groups' counts or means under the chi-square or t column, nor a negative t as a chi-square.)
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 0.1, [1]],
+      ['t', -0.177, [56]],
+    ]);
+  });
 });

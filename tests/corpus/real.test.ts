@@ -24,11 +24,13 @@ const scores = scoreCorpus(corpus);
 // then, with "χ(1)2" and "p = 9.4.E-07" read, holdout table recall 0.51 and fails on consistent back to 0 (ceiling 0.01).
 // The corpus grew by 26 passages on 2026-12-05 (dwba-01..dwbv-01), as measured: tune table precision 1 -> 0.99
 // (5 false alarms), tune text recall 0.97 -> 0.96, precision 1 -> 0.99 and its ceiling of fails on consistent
-// results 0.01 -> 0.07 (9 of 148, all in dwba-02), holdout table recall 0.51 -> 0.52.
+// results 0.01 -> 0.07 (9 of 148, all in dwba-02), holdout table recall 0.51 -> 0.52; then, with "N = 12 control,
+// 13 drug, ..." read as group sizes, "4. 54" as 4.54, a note stating two df pairs taken for neither, and "7 (24)"
+// no longer placed under "Chi-square (df)", precision back to 1 and fails on consistent to 0 (ceiling 0.01).
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.96, precision: 0.99, maxFailRate: 0.07 },
+    table: { recall: 0.85, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
     table: { recall: 0.52, precision: 1, maxFailRate: 0.01 },

@@ -24,7 +24,7 @@ import { readPValue } from '../pValue.js';
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string; plusMinus?: boolean }
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
@@ -97,7 +97,13 @@ export function shapeOf(cell: string): CellShape {
       if (/\./.test(bracket[1]!) && /^\d{1,4},\d{1,5}$/.test(bracket[3]!.trim())) {
         return { shape: 'number-bracket', value: outer.number.value, inner: Number(bracket[3]!.split(',')[0]), innerDecimals: 0, innerPair: true };
       }
-      const shape: CellShape = { shape: 'number-bracket', value: outer.number.value, inner: inner.number.value, innerDecimals: inner.number.decimals };
+      const shape: CellShape = {
+        shape: 'number-bracket',
+        value: outer.number.value,
+        inner: inner.number.value,
+        innerDecimals: inner.number.decimals,
+        ...(outer.number.decimals === 0 ? { wholeValue: true } : {}),
+      };
       return bracket[2] === undefined ? shape : { ...shape, innerComparator: bracket[2] };
     }
   }
@@ -196,7 +202,14 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       // Under "r (p value)" the bracket holds the p: "−0.06 (.60)", "−0.50 (<.001)".
       if (cell.shape === 'number-bracket' && cell.plusMinus === true) return -3;
       if (cell.shape === 'number-bracket' && role.pInCell === true) return cell.inner >= 0 && cell.inner <= 1 && cell.innerPair !== true ? 3 : -3;
-      if (cell.shape === 'number-bracket') return role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && (cell.innerPair === true) === (role.kind === 'F') ? 3 : -3;
+      // (A whole number with a whole number in brackets, "7 (24)", is a count and its percentage rather than a test
+      // statistic, which tables print with decimals; an F or chi-square is never negative.)
+      if (cell.shape === 'number-bracket') {
+        const withDf = role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && (cell.innerPair === true) === (role.kind === 'F');
+        if (!withDf) return -3;
+        if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
+        return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;
+      }
       // Under "t (df)" the cells carry their df; a bare number there is weak evidence.
       if (role.dfInCell === true) return (role.kind === 'F' || role.kind === 'chi2') && cell.value < 0 ? -4 : 0.5;
       if (role.kind === 'F' || role.kind === 'chi2') return cell.value >= 0 ? 2 : -4;

@@ -94,6 +94,9 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
   const pair = DF_PAIR.exec(rest) ?? PAIR_THEN_DF.exec(rest);
   // df stated for one effect ("df = 2, 57 for Group and 1, 57 for Time") are that row's, not every row's.
   if (pair && statedForOneEffect(rest.slice(pair.index + pair[0].length))) return { ...none, error };
+  // Another pair stated besides ("d.f. = 1,28 except for daily sperm production where ... d.f. = 1,27"): which
+  // column takes which cannot be told from the note, so none is taken.
+  if (pair && statesOtherPair(rest, pair)) return { ...none, error };
   if (pair) return { ...none, pair: [number(pair[1]!), number(pair[2]!)], error };
   const single = DF_SINGLE.exec(rest);
   // Several different df stated one by one ("df = 1 for sex, df = 2 for education") belong to different rows:
@@ -122,5 +125,14 @@ function statedForOneEffect(after: string): boolean {
 function statesOtherDf(text: string, first: RegExpExecArray): boolean {
   const every = new RegExp(DF_SINGLE.source, 'gi');
   for (let match = every.exec(text); match !== null; match = every.exec(text)) if (Number(match[1]) !== Number(first[1])) return true;
+  return false;
+}
+
+/** Whether the note states another pair of df besides the one read ("df = 1, 28 ... df = 1, 27"). */
+function statesOtherPair(text: string, first: RegExpExecArray): boolean {
+  const every = new RegExp(DF_PAIR.source, 'gi');
+  for (let match = every.exec(text); match !== null; match = every.exec(text)) {
+    if (Number(match[1]) !== Number(first[1]) || Number(match[2]) !== Number(first[2])) return true;
+  }
   return false;
 }
