@@ -261,10 +261,10 @@ class ComparatorFinder {
   }
 }
 
-/** Letters a statistic symbol can start with: F t r R (Rho) z Z c C x X H. */
+/** Letters a statistic symbol can start with: F t T r R (Rho) z Z c C x X H. */
 function canStartSymbol(code: number): boolean {
-  // F, t, r, R, z, Z, c, C, x, X, H, and v ("v2(1)": a symbol font's χ², statistic.ts).
-  return code === 70 || code === 116 || code === 114 || code === 82 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72 || code === 118;
+  // F, t, T (a t with its df), r, R, z, Z, c, C, x, X, H, and v ("v2(1)": a symbol font's χ², statistic.ts).
+  return code === 70 || code === 116 || code === 84 || code === 114 || code === 82 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72 || code === 118;
 }
 
 /**
@@ -276,7 +276,7 @@ function canStartSymbol(code: number): boolean {
  */
 const HEAD_CHARACTERS: Uint8Array = (() => {
   const table = new Uint8Array(128);
-  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtrRzZcChiquaredsSfNnxXHoglGlIv') table[character.charCodeAt(0)] = 1;
+  for (const character of '0123456789 \t\n\r()[]{},;._^-/=FtTrRzZcChiquaredsSfNnxXHoglGlIv') table[character.charCodeAt(0)] = 1;
   return table;
 })();
 

@@ -60,6 +60,8 @@ interface SymbolRead {
   acceptsTrailingDf?: boolean;
   /** The symbol's superscript 2 comes after its bracketed df ("χ(1)2 = 4.21"). */
   superscriptAfterDf?: boolean;
+  /** "T": only with df in brackets or a subscript of two digits or more. */
+  requiresDf?: boolean;
 }
 
 /** Reads the statistic symbol at `position`, or null. */
@@ -70,6 +72,12 @@ function readSymbol(text: string, position: number): SymbolRead | null {
     case 70: // F
     case 116: // t
       return singleLetterSymbol(text, position, code === 70 ? 'F' : 't', true);
+    case 84: {
+      // "T(28) = 2.2", "T28 = 2.2": a t test typed with a capital, trusted only with its df (and its p, as any t).
+      // (Not "T2 = 12.3": a one-digit subscript may be Hotelling's T², a time point "T1" has no df.)
+      const capital = singleLetterSymbol(text, position, 't', false);
+      return capital === null ? null : { ...capital, requiresDf: true };
+    }
     case 114: // r
       return spearmanSymbol(text, position) ?? singleLetterSymbol(text, position, 'r', false);
     case 82: // R: only "Rho", Spearman's rho at the start of a sentence or cell ("R" alone is a multiple correlation)
@@ -394,6 +402,7 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     at = effectName;
     needsTrailingDf = true;
   }
+  if (symbol.requiresDf === true && (dfRead === null || (!dfRead.bracketed && (dfRead.df[0]?.value ?? 0) < 10))) return null;
   if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) {
     if (!(symbol.acceptsTrailingDf === true && dfRead === null)) return null;
     needsTrailingDf = true;

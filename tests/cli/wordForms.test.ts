@@ -98,4 +98,17 @@ describe('a chi-square whose superscript follows its df, and a p in a spreadshee
     const wrong = scanTextJson(text('03')).statistics;
     expect(wrong[1]!.findings.map((finding) => finding.rule)).toContain('p-value-mismatch');
   });
+
+  it('reads a t typed with a capital and its df ("T28 = 2.2", "T(28) = 2.2"), and not "T2 = 12.3", "T1 = 3.4" or "T = 45"', () => {
+    // t(28) = 2.2 gives p = .036 (SciPy 1.10.1, 2 * scipy.stats.t.sf(2.2, 28)).
+    const statistics = scanTextJson(
+      'Groups differed (T28 = 2.2, P = 0.036) and again (T(28) = 2.2, P = 0.036). Hotelling T2 = 12.3, p = .01. At T1 = 3.4 s and T2 = 5.1, p = .02; Wilcoxon T = 45, p = .03.\n',
+    ).statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([
+      ['t', [28], 2.2],
+      ['t', [28], 2.2],
+    ]);
+    expect(statistics.flatMap((statistic) => statistic.findings)).toEqual([]);
+  });
 });
+
