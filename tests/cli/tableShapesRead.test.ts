@@ -513,4 +513,16 @@ describe('results tables in the shapes papers print them', () => {
       ['t', -0.177, [56]],
     ]);
   });
+
+  it('reads a row whose label ends with an abbreviation\'s point ("Anger: FLD vs.") and whose label goes on below its values', () => {
+    const document = scanTextJson(
+      'Table 3. Results of the ANOVA\nEffect   F   p   ηp2\nStimulus type   13.26   <0.01   0.18\nStimulus type   53.41   <0.01   0.47\n× Emotion\nAnger: FLD vs.   43.48   <0.01   0.42\nPLD vs. Static\nFear   9.04   <0.01   0.13\n\nNote. df = 2, 58 for all tests.\n',
+    );
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 13.26, [2, 58]],
+      ['F', 53.41, [2, 58]],
+      ['F', 43.48, [2, 58]],
+      ['F', 9.04, [2, 58]],
+    ]);
+  });
 });

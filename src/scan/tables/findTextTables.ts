@@ -1023,9 +1023,12 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const band = /^[<>\u2264\u2265] ?\d{1,6}$/.test(label.text);
   // (A label may state its df or size in brackets: "Group (df = 2, 57)", "Women (n = 30)".)
   const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, ''));
-  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || /[.;:,]$/.test(label.text) || (comparison && !band)) return null;
+  if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || (/[.;:,]$/.test(label.text) && !ABBREVIATION_END.test(label.text)) || (comparison && !band)) return null;
   return { label, values };
 }
+
+/** A label that ends with an abbreviation's point, not a sentence's: "Anger: FLD vs.", "Age (yrs.)", "Dose (approx.". */
+const ABBREVIATION_END = /(?:^|[\s(])(?:vs|etc|incl|approx|resp|min|max|yrs?|mo|wk|no|No)\.$/;
 
 /** Between two whole numbers in a label: "Grades 1 and 2", "Group 2 and 57", "Ages 18 to 25". */
 const LABEL_CONJUNCTION = /^(?:and|or|to|&|vs\.?|versus)$/;
