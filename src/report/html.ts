@@ -84,6 +84,7 @@ table.documents td.name { word-break: break-all; }
 .filters { position: sticky; top: 0; z-index: 2; box-shadow: 0 2px 6px rgba(0,0,0,.06); }
 .controls { display: flex; flex-wrap: wrap; gap: .35rem 1.25rem; align-items: center; }
 .filters fieldset { border: 0; margin: 0; padding: .15rem 0; display: flex; flex-wrap: wrap; gap: .25rem 1rem; align-items: center; }
+#rule-boxes { display: contents; }
 .filters legend { float: left; font-weight: 600; margin-right: .75rem; padding: 0; }
 .filters label, .controls label { white-space: nowrap; }
 .filters button, .controls button, .pager button, .pager select, .controls input, .filters select { font: inherit; font-size: .85rem; padding: 0 .5rem; }
