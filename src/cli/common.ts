@@ -7,7 +7,7 @@ import { documentOf, entryJson, entryOf, type AuditEntry } from '../batch/entry.
 import { notRegularFileReason } from '../documents/regularFile.js';
 import { buildReport, reportHead } from '../report/build.js';
 import { formatJsonParts, jsonReportPieces } from '../report/json.js';
-import type { Report, Summary } from '../report/model.js';
+import type { Report, StreamedReport, Summary } from '../report/model.js';
 import { UsageError } from './usageError.js';
 import { checkLimitValue, limitNames, type Limits } from '../limits.js';
 
@@ -176,9 +176,30 @@ export function writePieces(pieces: Iterable<string>, output: string | undefined
   }
 }
 
+/**
+ * A report whose documents are given one at a time: a scan's audits are parsed each in turn (the JSON of all of
+ * them is held, their parsed form one at a time).
+ */
+function streamedReportOf(input: ReportInput): StreamedReport {
+  if (!('entries' in input)) return { caution: input.caution, summary: input.summary, documents: () => input.documents };
+  const { entries } = input;
+  return {
+    caution: reportHead().caution,
+    summary: input.summary,
+    documents: function* () {
+      for (const entry of entries) yield documentOf(entry);
+    },
+  };
+}
+
+/** The HTML report of a streamed report, as pieces (the formatter loaded only when asked for). */
+export async function htmlPiecesOf(report: StreamedReport): Promise<Iterable<string>> {
+  return (await import('../report/html.js')).htmlPieces(report, reportHead().tool);
+}
+
 /** Writes the report to --output or stdout. Colour only on a terminal, never into a file. */
 export async function writeReport(input: ReportInput, options: CommonOptions, io: CliIo, showAll: boolean): Promise<void> {
-  const pieces = jsonPieces(input, options.format);
+  const pieces = jsonPieces(input, options.format) ?? (options.format === 'html' ? await htmlPiecesOf(streamedReportOf(input)) : null);
   if (pieces !== null) {
     writePieces(pieces, options.output, io);
     return;

@@ -3,18 +3,18 @@ import { entryOf } from '../batch/entry.js';
 import { JsonLinesError } from '../batch/jsonLines.js';
 import { indexRecords, mergedDocuments, type MergeIndex } from '../batch/mergeRecords.js';
 import { resolveLimits } from '../limits.js';
-import { buildReport, reportHead } from '../report/build.js';
+import { reportHead } from '../report/build.js';
 import type { DocumentOutput, StreamedReport } from '../report/model.js';
 import {
   addCommonOptions,
   exitCodeFor,
+  htmlPiecesOf,
   limitOption,
   limitsFrom,
   UsageError,
   userConfigFrom,
   writeJsonReportOf,
   writePieces,
-  writeReport,
   type CliIo,
   type CommonOptions,
 } from './common.js';
@@ -69,17 +69,16 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
             for (const document of mergedDocuments(index, parseRecord)) yield entryOf(document);
           })();
           writeJsonReportOf(options.format, index.summary, entries, options.output, io);
-        } else if (options.format === 'html') {
-          // The HTML page is built whole (its overview, filters and chart come from every document), so here
-          // every document is held; the other formats are written a document at a time.
-          await writeReport(buildReport([...mergedDocuments(index, parseRecord)]), options, io, options.all ?? false);
         } else {
           // Streamed like JSON: the summary came from the first pass, and each document is read back from its
-          // file when its piece is written (the Markdown summary reads them three times, once per section).
+          // file when its piece is written (the Markdown summary reads them three times, once per section; the
+          // HTML page once, its script ranking and counting them in the browser).
           const report: StreamedReport = { caution: reportHead().caution, summary: index.summary, documents: () => mergedDocuments(index, parseRecord) };
           const color = options.output === undefined && io.color;
           const pieces =
-            options.format === 'csv'
+            options.format === 'html'
+              ? await htmlPiecesOf(report)
+              : options.format === 'csv'
               ? (await import('../report/csv.js')).csvPieces(report)
               : options.format === 'md'
                 ? (await import('../report/markdown.js')).markdownPieces(report)

@@ -1,25 +1,39 @@
 import { createHash } from 'node:crypto';
-import type { DocumentOutput, FindingOutput, Report, StatisticOutput } from './model.js';
-import { visibleControls, visibleLine } from './visible.js';
+import type { DocumentOutput, FindingOutput, Report, StatisticOutput, StreamedReport } from './model.js';
+import { visibleControls } from './visible.js';
 import { tableNotReadTag } from './tableNotRead.js';
 import { countOf, crossesAlphaPhrase, noResultsMessage, tablesNotReadPhrase } from './wording.js';
 
 /**
  * One self-contained HTML page for reading a report in a browser: no network
- * access, no external fonts or scripts. Everything that comes from a document
- * (text, paths, messages, rule data) is escaped for HTML; the page's own
- * script is fixed text, allowed by its sha256 hash in a Content-Security-
- * Policy that allows no other script. The script reads nothing but the DOM
- * (data-* attributes holding escaped values) and the reviewer's seen marks in
- * localStorage; it toggles `hidden`, reorders the rows of the document table
- * and saves a CSV the reviewer asks for. The page is written in one pass,
- * in time linear in the results (the ranking sorts the documents once).
+ * access, no external fonts or scripts.
+ *
+ * The page is written as a stream, a document at a time: a fixed head (the
+ * totals come from the summary, known before the documents), then each
+ * document's details as compact data (JSON in `<script type="application/
+ * json">` blocks, which a browser never runs), then the page's own script.
+ * Memory does not grow with the documents, and a page of 10,000 documents is
+ * a third of the size it was as markup: what was repeated markup per result
+ * (a table row, a map mark, a card) is drawn by the script, only for the
+ * page of a list being shown. The script ranks the documents, counts the
+ * flags by rule, sorts, searches and pages the document table, pages the
+ * cards and the lists, filters the flags, keeps the reviewer's seen marks in
+ * localStorage and saves the flags shown as CSV.
+ *
+ * Safety: the data is JSON with every `<` written as `\u003c`, so no text
+ * from a document can end its block or open markup; the script sets it only
+ * as text (text nodes and attribute values, never markup). The script is
+ * fixed text, allowed by its sha256 hash in a Content-Security-Policy that
+ * allows no other script (a data block is not a script to the policy: it is
+ * never run). Control characters in document text are made visible before
+ * they are written (src/report/visible.ts).
  */
 
 type Severity = FindingOutput['severity'];
 
 const SEVERITIES: readonly Severity[] = ['fail', 'warn', 'note'];
-const SEVERITY_RANK: Record<Severity, number> = { fail: 3, warn: 2, note: 1 };
+/** How the data writes a severity: the rank the script sorts by (3 fail, 2 warn, 1 note). */
+const SEVERITY_CODE: Record<Severity, number> = { fail: 3, warn: 2, note: 1 };
 
 /**
  * Escapes a string for HTML text and for double- or single-quoted attribute
@@ -34,31 +48,10 @@ export function escapeHtml(value: string): string {
 
 const e = escapeHtml;
 
-function worstSeverity(findings: readonly FindingOutput[]): Severity | null {
-  let worst: Severity | null = null;
-  for (const finding of findings) if (worst === null || SEVERITY_RANK[finding.severity] > SEVERITY_RANK[worst]) worst = finding.severity;
-  return worst;
+/** Document text as the page shows it: controls made visible, tab and line breaks kept as white space. */
+function shown(value: string): string {
+  return visibleControls(value, '\t\n\r');
 }
-
-function allFindings(document: DocumentOutput): FindingOutput[] {
-  return [...document.findings, ...document.statistics.flatMap((s) => s.findings)];
-}
-
-/** p and other small numbers, readable and short: 0.0123, 1.33e-8. */
-function formatNumber(value: number | null): string {
-  if (value === null) return '';
-  if (value === 0) return '0';
-  if (!Number.isFinite(value)) return String(value);
-  const magnitude = Math.abs(value);
-  if (magnitude < 0.001 || magnitude >= 1e6) return value.toExponential(2).replace('e+', 'e');
-  return String(Number(value.toPrecision(3)));
-}
-
-function where(statistic: StatisticOutput): string {
-  const page = statistic.location.page === null ? '' : `page ${statistic.location.page}, `;
-  return `${page}line ${statistic.location.line}, column ${statistic.location.column}`;
-}
-
 
 // ---------------------------------------------------------------- style and script
 
@@ -67,7 +60,6 @@ const STYLE = `
 * { box-sizing: border-box; }
 [hidden] { display: none !important; }
 body:not(.scripted) .needs-script { display: none !important; }
-html.booting [data-item]:not([data-first]) { display: none !important; }
 body { margin: 0; font: 15px/1.5 system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif; color: #1d2330; background: #fff; }
 main { max-width: 76rem; margin: 0 auto; padding: 1.5rem 1.25rem 4rem; }
 h1 { font-size: 1.6rem; margin: 0 0 .25rem; }
@@ -92,6 +84,7 @@ table.documents td.name { word-break: break-all; }
 .filters { position: sticky; top: 0; z-index: 2; box-shadow: 0 2px 6px rgba(0,0,0,.06); }
 .controls { display: flex; flex-wrap: wrap; gap: .35rem 1.25rem; align-items: center; }
 .filters fieldset { border: 0; margin: 0; padding: .15rem 0; display: flex; flex-wrap: wrap; gap: .25rem 1rem; align-items: center; }
+#rule-boxes { display: contents; }
 .filters legend { float: left; font-weight: 600; margin-right: .75rem; padding: 0; }
 .filters label, .controls label { white-space: nowrap; }
 .filters button, .controls button, .pager button, .pager select, .controls input, .filters select { font: inherit; font-size: .85rem; padding: 0 .5rem; }
@@ -128,37 +121,107 @@ svg.map { display: block; font: 11px system-ui, sans-serif; }
 svg.map a:focus-visible { outline: 2px solid var(--focus); }
 .legend { display: flex; flex-wrap: wrap; gap: .25rem 1.25rem; font-size: .88rem; margin: .25rem 0; padding: 0; list-style: none; align-items: center; }
 .legend svg { vertical-align: -2px; margin-right: .3rem; }
+.noscript { border: 2px solid var(--line); padding: .75rem 1rem; border-radius: 6px; }
 @media print { .filters, .controls, .pager, .seen-box { display: none !important; } .doc { break-inside: avoid-page; } }
 `;
-
 /**
- * The first of the page's two scripts, in its head: while the page loads
- * (and until SCRIPT has paged the lists), only the first page of each list
- * is laid out, so a report of thousands of documents is not laid out whole
- * first. Where scripts do not run, neither does this one, and everything
- * shows.
- */
-const BOOT_SCRIPT = `document.documentElement.classList.add('booting');`;
-
-/**
- * The page's main script. Fixed text (no data in it), allowed by its hash.
- * Without it the page shows everything at once (no paging, no sorting);
- * with it: the document table is sorted, searched and paged, the flag cards
- * and the long lists are paged, the filters hide and show flags, a flag can
- * be marked as seen (kept in the browser's localStorage) and the flags the
- * filters show can be saved as CSV. A link to a result on another page, or
- * one the filters hide, brings it into view first.
+ * The page's script. Fixed text (no data in it), allowed by its hash. It
+ * reads the documents' data blocks once, ranks the documents and counts the
+ * flags by rule, then draws only what is shown: the page of the document
+ * table (each row with its map), the page of flag cards, the page of each
+ * list, a document's table of all results when it is opened. Sorting,
+ * searching, filtering and paging work on the data and draw the new page.
+ * Text from documents is set only as text. A link to a result on another
+ * page, or one the filters hide, brings it into view first.
  */
 const SCRIPT = `
 (function () {
   'use strict';
-  try { run(); } finally { document.documentElement.classList.remove('booting'); }
-  function run() {
   var body = document.body;
   body.classList.add('scripted');
   var slice = Array.prototype.slice;
+  var SVG = 'http://www.w3.org/2000/svg';
+  var SEVERITY = ['', 'note', 'warn', 'fail'];
+  var WORST_WORDS = { '3': 'fail', '2': 'warn', '1': 'note', '0': 'no flag', '-1': 'unreadable' };
+  var COLOUR = { fail: '#b71c1c', warn: '#a35200', note: '#1555a0', none: '#6b7280' };
   function all(selector, root) { return slice.call((root || document).querySelectorAll(selector)); }
   function plural(n, one, many) { return n + ' ' + (n === 1 ? one : (many || one + 's')); }
+  function make(tag, className, text) {
+    var element = document.createElement(tag);
+    if (className) element.className = className;
+    if (text !== undefined && text !== null) element.textContent = text;
+    return element;
+  }
+  function add(parent) {
+    for (var i = 1; i < arguments.length; i += 1) {
+      var child = arguments[i];
+      if (child === null || child === undefined) continue;
+      parent.appendChild(typeof child === 'string' ? document.createTextNode(child) : child);
+    }
+    return parent;
+  }
+  function shape(tag, attributes) {
+    var element = document.createElementNS(SVG, tag);
+    for (var name in attributes) element.setAttribute(name, attributes[name]);
+    return element;
+  }
+  function clear(element) { while (element.firstChild) element.removeChild(element.firstChild); }
+
+  // ---- the data: each document once, with its counts
+  var docs = [];
+  all('script.report-data').forEach(function (block) {
+    var list = JSON.parse(block.textContent);
+    for (var i = 0; i < list.length; i += 1) docs.push(list[i]);
+  });
+  docs.forEach(function (d, index) {
+    d.index = index;
+    d.r = d.r || []; d.c = d.c || []; d.g = d.g || []; d.t = d.t || [];
+    d.fail = 0; d.warn = 0; d.note = 0; d.crosses = 0; d.flags = 0;
+    d.flagged = d.c.length;
+    function count(f) { d[SEVERITY[f[0]]] += 1; d.flags += 1; if (f[2]) d.crosses += 1; }
+    d.g.forEach(count);
+    d.c.forEach(function (card) { card[4].forEach(count); });
+    d.worst = d.x !== undefined ? -1 : d.fail ? 3 : d.warn ? 2 : d.note ? 1 : 0;
+  });
+  function byPath(a, b) { return a.p < b.p ? -1 : a.p > b.p ? 1 : a.index - b.index; }
+  // Worst severity first, then the most fail, warn and note flags, then the most that change the conclusion; unreadable last; ties by name.
+  var ranked = docs.slice().sort(function (a, b) {
+    return b.worst - a.worst || b.fail - a.fail || b.warn - a.warn || b.note - a.note || b.crosses - a.crosses || byPath(a, b);
+  });
+  ranked.forEach(function (d, i) { d.rank = i + 1; });
+  var flaggedDocs = ranked.filter(function (d) { return d.worst > 0; });
+  var cleanDocs = docs.filter(function (d) { return d.worst === 0; });
+  var unreadableDocs = docs.filter(function (d) { return d.worst === -1; });
+
+  /** p and other small numbers, readable and short: 0.0123, 1.33e-8 (the data holds them to three significant digits). */
+  function formatNumber(value) {
+    if (value === null || value === undefined) return '';
+    if (value === 0) return '0';
+    var magnitude = Math.abs(value);
+    if (magnitude < 0.001 || magnitude >= 1e6) return value.toExponential(2).replace('e+', 'e');
+    return String(value);
+  }
+  function numbersText(n) {
+    var parts = [];
+    if (n[0]) parts.push('reported p ' + n[0]);
+    if (n[1] !== null) {
+      var p = formatNumber(n[1]);
+      var range = n[2] !== null && n[3] !== null && (formatNumber(n[2]) !== p || formatNumber(n[3]) !== p)
+        ? ' (' + formatNumber(n[2]) + ' to ' + formatNumber(n[3]) + ' for values that round to the printed ones)' : '';
+      parts.push('recomputed p' + (n[5] ? ' from the printed F' : '') + ' = ' + p + range + ', ' + (n[4] === 2 ? 'two-tailed' : 'upper tail'));
+    } else if (n[6]) parts.push('not recomputed: ' + n[6]);
+    return parts.join('; ');
+  }
+  function where(page, line, column) { return (page ? 'page ' + page + ', ' : '') + 'line ' + line + ', column ' + column; }
+  function documentId(d) { return 'doc-' + (d.index + 1); }
+  function resultId(d, resultIndex) { return 'doc-' + (d.index + 1) + '-result-' + (resultIndex + 1); }
+  /** The key a seen mark is kept under: the document, the place and the rule, so it survives a new report of the same audit. */
+  function keyOf(d, card, f) {
+    var place = 'document';
+    if (card) { var r = d.r[card[0]]; place = (r[0] ? r[0] : '') + ':' + r[1] + ':' + r[2]; }
+    // The separator is written as the four characters \\x00, as the report has always kept it.
+    return d.p + '\\\\x00' + place + '\\\\x00' + f[1] + '\\\\x00' + f[4];
+  }
 
   // ---- marks kept in the browser
   var SEEN_KEY = 'plumbline.seen.v1';
@@ -168,48 +231,40 @@ const SCRIPT = `
   if (store) { try { seen = JSON.parse(store.getItem(SEEN_KEY) || '{}') || {}; } catch (error) { seen = {}; } }
   function saveSeen() { if (store) { try { store.setItem(SEEN_KEY, JSON.stringify(seen)); } catch (error) { /* full or refused: the marks last for this visit */ } } }
 
-  // ---- pagers: a list whose items carry data-item; data-out="1" is an item the filters leave out
+  // ---- pagers: a list drawn a page at a time from the items it is given
   var pagers = {};
-  function makePager(list) {
-    var nav = document.querySelector('nav.pager[data-for="' + list.id + '"]');
+  function makePager(id, count, draw) {
+    var list = document.getElementById(id);
+    if (!list) return null;
+    var nav = document.querySelector('nav.pager[data-for="' + id + '"]');
     var pager = { size: Number(list.getAttribute('data-page-size')) || 25, page: 0 };
-    function items() { return slice.call(list.children).filter(function (item) { return item.hasAttribute('data-item'); }); }
     pager.render = function () {
-      var kept = 0;
-      var every = items();
-      every.forEach(function (item) { if (item.getAttribute('data-out') !== '1') kept += 1; });
+      var kept = count();
       var size = pager.size > 0 ? pager.size : Math.max(1, kept);
       var pages = Math.max(1, Math.ceil(kept / size));
       if (pager.page >= pages) pager.page = pages - 1;
       if (pager.page < 0) pager.page = 0;
       var from = pager.page * size;
-      var index = 0;
-      every.forEach(function (item) {
-        if (item.getAttribute('data-out') === '1') { item.hidden = true; return; }
-        item.hidden = index < from || index >= from + size;
-        index += 1;
-      });
+      var to = Math.min(kept, from + size);
+      var fragment = document.createDocumentFragment();
+      for (var i = from; i < to; i += 1) fragment.appendChild(draw(i));
+      clear(list);
+      list.appendChild(fragment);
+      pager.drawn = true;
       if (nav) {
-        var status = nav.querySelector('.page-status');
         var noun = nav.getAttribute('data-noun') || 'item';
-        var first = kept === 0 ? 0 : from + 1;
-        var last = Math.min(kept, from + size);
-        status.textContent = 'Page ' + (pager.page + 1) + ' of ' + pages + ': ' + first + ' to ' + last + ' of ' + plural(kept, noun);
+        nav.querySelector('.page-status').textContent = 'Page ' + (pager.page + 1) + ' of ' + pages + ': ' + (kept === 0 ? 0 : from + 1) + ' to ' + to + ' of ' + plural(kept, noun);
         nav.querySelector('[data-go="first"]').disabled = pager.page === 0;
         nav.querySelector('[data-go="prev"]').disabled = pager.page === 0;
         nav.querySelector('[data-go="next"]').disabled = pager.page >= pages - 1;
         nav.querySelector('[data-go="last"]').disabled = pager.page >= pages - 1;
       }
     };
-    pager.show = function (item) {
-      var index = 0;
-      var size = pager.size > 0 ? pager.size : 1e9;
-      items().some(function (candidate) {
-        if (candidate === item) return true;
-        if (candidate.getAttribute('data-out') !== '1') index += 1;
-        return false;
-      });
-      pager.page = Math.floor(index / size);
+    pager.show = function (position) {
+      var page = Math.floor(position / (pager.size > 0 ? pager.size : 1e9));
+      // Drawn again only for another page: the browser may be scrolling to an element of this one.
+      if (page === pager.page && pager.drawn) return;
+      pager.page = page;
       pager.render();
     };
     if (nav) {
@@ -229,56 +284,137 @@ const SCRIPT = `
         select.addEventListener('change', function () { pager.size = Number(select.value); pager.page = 0; pager.render(); });
       }
     }
-    pagers[list.id] = pager;
+    pagers[id] = pager;
     return pager;
   }
-  all('[data-paged]').forEach(makePager);
+
+  // ---- flags by rule
+  var ruleCounts = {};
+  var ruleList = [];
+  docs.forEach(function (d) {
+    function tally(f) {
+      var entry = ruleCounts[f[1]];
+      if (!entry) { entry = ruleCounts[f[1]] = { rule: f[1], fail: 0, warn: 0, note: 0, total: 0, documents: 0, last: -1, crosses: 0 }; ruleList.push(entry); }
+      entry[SEVERITY[f[0]]] += 1;
+      entry.total += 1;
+      if (entry.last !== d.index) { entry.documents += 1; entry.last = d.index; }
+      if (f[2]) entry.crosses += 1;
+    }
+    d.g.forEach(tally);
+    d.c.forEach(function (card) { card[4].forEach(tally); });
+  });
+  ruleList.sort(function (a, b) { return b.total - a.total || (a.rule < b.rule ? -1 : a.rule > b.rule ? 1 : 0); });
+  (function drawRules() {
+    var holder = document.getElementById('by-rule');
+    if (!holder) return;
+    if (ruleList.length === 0) { add(holder, make('p', null, 'No flags.')); return; }
+    var table = make('table', 'by-rule');
+    var head = add(make('tr'), make('th', null, 'Rule'));
+    ['Flags', 'fail', 'warn', 'note', 'Documents', 'Change the conclusion'].forEach(function (label) { head.appendChild(make('th', 'num', label)); });
+    add(table, add(make('thead'), head));
+    var tbody = make('tbody');
+    ruleList.forEach(function (r) {
+      var row = add(make('tr'), make('td', 'rule', r.rule));
+      [r.total, r.fail, r.warn, r.note, r.documents, r.crosses].forEach(function (n) { row.appendChild(make('td', 'num', String(n))); });
+      tbody.appendChild(row);
+    });
+    add(holder, add(table, tbody));
+  })();
+
+  // ---- the document map: a strip per document, a mark where each result is
+  function markShape(severity, x, y) {
+    var colour = COLOUR[severity];
+    var common = { fill: colour, stroke: '#fff', 'stroke-width': '0.8' };
+    var element;
+    if (severity === 'fail') element = shape('rect', { x: (x - 4).toFixed(1), y: (y - 4).toFixed(1), width: '8', height: '8' });
+    else if (severity === 'warn') element = shape('path', { d: 'M' + x.toFixed(1) + ' ' + (y - 5).toFixed(1) + 'L' + (x + 5).toFixed(1) + ' ' + (y + 4).toFixed(1) + 'L' + (x - 5).toFixed(1) + ' ' + (y + 4).toFixed(1) + 'Z' });
+    else element = shape('circle', { cx: x.toFixed(1), cy: y.toFixed(1), r: '4' });
+    for (var name in common) element.setAttribute(name, common[name]);
+    return element;
+  }
+  function documentMap(d) {
+    var svg = shape('svg', { 'class': 'map', viewBox: '0 0 240 20', width: '240', height: '20', role: 'group', 'aria-label': 'Map of ' + plural(d.r.length, 'result') + ' in order of place in the document' });
+    svg.appendChild(shape('line', { x1: '6', y1: '10', x2: '234', y2: '10', stroke: '#d9dce1', 'stroke-width': '2' }));
+    var ticks = '';
+    var unflagged = 0;
+    var marks = { fail: [], warn: [], note: [] };
+    var cardOf = {};
+    d.c.forEach(function (card) { cardOf[card[0]] = card; });
+    d.r.forEach(function (r, i) {
+      var x = r[3] / 10;
+      if (r[7] <= 0) { ticks += 'M' + x.toFixed(1) + ' 6v8'; unflagged += 1; return; }
+      var worst = SEVERITY[r[7]];
+      var crosses = cardOf[i] && cardOf[i][4].some(function (f) { return f[2] === 1; }) ? '; changes the conclusion' : '';
+      var label = where(r[0], r[1], r[2]) + ': ' + r[4] + ': ' + worst + crosses;
+      var link = shape('a', { href: '#' + resultId(d, i), 'class': 'map-mark', 'data-severity': worst, 'aria-label': label });
+      link.appendChild(shape('title', {})).textContent = label;
+      link.appendChild(markShape(worst, x, 10));
+      marks[worst].push(link);
+    });
+    if (unflagged > 0) svg.appendChild(shape('path', { 'class': 'map-ticks', 'data-count': String(unflagged), d: ticks, stroke: COLOUR.none, 'stroke-width': '1.5', fill: 'none' }));
+    // The worst drawn last, on top.
+    marks.note.concat(marks.warn, marks.fail).forEach(function (mark) { svg.appendChild(mark); });
+    return svg;
+  }
 
   // ---- the document table: sort, search, changes the conclusion only
   var table = document.getElementById('documents');
-  var tbody = document.getElementById('documents-body');
   var search = document.getElementById('doc-search');
   var docCrosses = document.getElementById('doc-crosses');
   var docCount = document.getElementById('doc-count');
   var sortKey = 'rank';
   var sortDirection = 1;
+  var sorted = ranked.slice();
+  var shownDocs = sorted;
+  function numberCell(value) { return make('td', 'num', String(value)); }
+  function documentRow(i) {
+    var d = shownDocs[i];
+    var row = make('tr');
+    var data = { rank: d.rank, name: d.p, worst: d.worst, fail: d.fail, warn: d.warn, note: d.note, crosses: d.crosses, results: d.r.length, flagged: d.flagged };
+    for (var name in data) row.setAttribute('data-' + name, String(data[name]));
+    var link = make('a', null, d.p);
+    link.setAttribute('href', '#' + documentId(d));
+    var nameCell = add(make('td', 'name'), link);
+    var map = make('td', 'map');
+    if (d.worst === -1) map.textContent = 'unreadable';
+    else if (d.r.length === 0) map.textContent = 'no results';
+    else map.appendChild(documentMap(d));
+    add(row, numberCell(d.rank), nameCell, map);
+    if (d.worst === -1) {
+      add(row, make('td', null, 'unreadable'));
+      for (var k = 0; k < 5; k += 1) row.appendChild(make('td', 'num'));
+      return row;
+    }
+    return add(row, make('td', null, WORST_WORDS[String(d.worst)]), numberCell(d.fail), numberCell(d.warn), numberCell(d.note), numberCell(d.crosses), numberCell(d.flagged + ' of ' + d.r.length));
+  }
+  var documentsPager = makePager('documents-body', function () { return shownDocs.length; }, documentRow);
   function applyDocuments() {
-    if (!tbody) return;
     var query = search ? search.value.trim().toLowerCase() : '';
     var crossesOnly = docCrosses ? docCrosses.checked : false;
-    var shown = 0;
-    slice.call(tbody.rows).forEach(function (row) {
-      var keep = (query === '' || (row.getAttribute('data-name') || '').toLowerCase().indexOf(query) >= 0) &&
-        (!crossesOnly || Number(row.getAttribute('data-crosses')) > 0);
-      row.setAttribute('data-out', keep ? '0' : '1');
-      if (keep) shown += 1;
-    });
-    if (docCount) docCount.textContent = plural(shown, 'document') + ' of ' + tbody.rows.length + ' match.';
-    pagers['documents-body'].page = 0;
-    pagers['documents-body'].render();
+    shownDocs = sorted.filter(function (d) { return (query === '' || d.p.toLowerCase().indexOf(query) >= 0) && (!crossesOnly || d.crosses > 0); });
+    if (docCount) docCount.textContent = plural(shownDocs.length, 'document') + ' of ' + docs.length + ' match.';
+    documentsPager.page = 0;
+    documentsPager.render();
   }
   function sortDocuments(key, direction) {
-    var numeric = key !== 'name';
-    var rows = slice.call(tbody.rows);
-    rows.sort(function (a, b) {
-      var x = a.getAttribute('data-' + key) || '';
-      var y = b.getAttribute('data-' + key) || '';
-      var order = numeric ? Number(x) - Number(y) : (x.toLowerCase() < y.toLowerCase() ? -1 : x.toLowerCase() > y.toLowerCase() ? 1 : 0);
-      return order * direction || Number(a.getAttribute('data-rank')) - Number(b.getAttribute('data-rank'));
-    });
-    var fragment = document.createDocumentFragment();
-    rows.forEach(function (row) { fragment.appendChild(row); });
-    tbody.appendChild(fragment);
+    sorted = ranked.slice();
+    if (key !== 'rank' || direction !== 1) {
+      sorted.sort(function (a, b) {
+        var order;
+        if (key === 'name') { var x = a.p.toLowerCase(); var y = b.p.toLowerCase(); order = x < y ? -1 : x > y ? 1 : 0; }
+        else order = a[key] - b[key];
+        return order * direction || a.rank - b.rank;
+      });
+    }
     all('th[data-sort]', table).forEach(function (th) {
       if (th.getAttribute('data-sort') === key) th.setAttribute('aria-sort', direction > 0 ? 'ascending' : 'descending');
       else th.removeAttribute('aria-sort');
     });
     sortKey = key;
     sortDirection = direction;
-    pagers['documents-body'].page = 0;
-    pagers['documents-body'].render();
+    applyDocuments();
   }
-  if (table && tbody) {
+  if (table && documentsPager) {
     table.addEventListener('click', function (event) {
       var button = event.target.closest('button.sort');
       if (!button) return;
@@ -292,45 +428,144 @@ const SCRIPT = `
     applyDocuments();
   }
 
-  // ---- flag filters, seen marks and the CSV of the flags shown
-  var panel = document.getElementById('filters');
-  var count = document.getElementById('filter-count');
-  var findings = all('#flag-cards .finding');
-  var boxes = panel ? all('input[type="checkbox"][data-group]', panel) : [];
-  function chosen(group) {
-    var set = Object.create(null);
-    boxes.forEach(function (box) { if (box.getAttribute('data-group') === group && box.checked) set[box.value] = true; });
-    return set;
+  // ---- what a document shows: its line of counts, its tables not read, its table of all results
+  function metaOf(d) {
+    var bits = [plural(d.r.length, 'result'), d.flagged + ' flagged'];
+    if (d.f) bits.push('format ' + d.f);
+    if (d.a !== undefined) bits.push('alpha ' + d.a);
+    var fragment = document.createDocumentFragment();
+    add(fragment, make('p', 'meta', bits.join(' \\u00B7 ')), d.n !== undefined ? make('p', 'no-results', d.n) : null);
+    return fragment;
   }
+  function tablesNotRead(d) {
+    if (d.t.length === 0) return null;
+    var list = make('ul');
+    d.t.forEach(function (t) {
+      add(list, add(make('li'), make('span', 'badge warn', t[0]), ' ', make('span', 'where', (t[1] ? 'page ' + t[1] + ', ' : '') + 'line ' + t[2]), ': ' + t[3]));
+    });
+    return add(make('div', 'tables-not-read'), make('h4', null, 'Tables not read'), list);
+  }
+  function allResults(d) {
+    if (d.r.length === 0) return null;
+    var details = make('details');
+    details.appendChild(make('summary', null, 'All ' + plural(d.r.length, 'result') + ' in this document'));
+    // Drawn when opened: a large document's rows are not made until they are read.
+    details.addEventListener('toggle', function () {
+      if (!details.open || details.querySelector('table')) return;
+      var tableOfAll = make('table', 'all-results');
+      var head = make('tr');
+      ['Where', 'Result', 'Reported p'].forEach(function (label) { head.appendChild(make('th', null, label)); });
+      add(head, make('th', 'num', 'Recomputed p'), make('th', null, 'Worst flag'));
+      add(tableOfAll, add(make('thead'), head));
+      var tbody = make('tbody');
+      d.r.forEach(function (r, i) {
+        var label;
+        if (r[7] > 0) { label = make('a', null, SEVERITY[r[7]]); label.setAttribute('href', '#' + resultId(d, i)); }
+        else label = r[7] === 0 ? 'no flag' : 'not checked';
+        add(tbody, add(make('tr'), make('td', null, where(r[0], r[1], r[2])), add(make('td'), make('code', null, r[4])), make('td', null, typeof r[5] === 'number' ? r[4].slice(r[4].length - r[5]) : r[5]), make('td', 'num', formatNumber(r[6])), add(make('td'), label)));
+      });
+      details.appendChild(add(tableOfAll, tbody));
+    });
+    return details;
+  }
+
+  // ---- flag cards, filters, seen marks and the CSV of the flags shown
+  var panel = document.getElementById('filters');
+  var cards = document.getElementById('flag-cards');
+  var count = document.getElementById('filter-count');
+  var ruleBoxes = document.getElementById('rule-boxes');
+  if (ruleBoxes) {
+    ruleList.forEach(function (r) {
+      var box = make('input');
+      box.type = 'checkbox';
+      box.defaultChecked = true;
+      box.checked = true;
+      box.value = r.rule;
+      box.setAttribute('data-group', 'rule');
+      add(ruleBoxes, add(make('label'), box, ' ', make('span', 'rule', r.rule), ' (' + r.total + ')'));
+    });
+  }
+  var boxes = panel ? all('input[type="checkbox"][data-group]', panel) : [];
+  var filter = null;
+  function readFilters() {
+    var chosen = { severity: {}, rule: {} };
+    boxes.forEach(function (box) { if (box.checked) chosen[box.getAttribute('data-group')][box.value] = true; });
+    return { severities: chosen.severity, rules: chosen.rule, crossesOnly: document.getElementById('only-crosses').checked, seenMode: document.getElementById('seen-filter').value };
+  }
+  function shows(d, card, f) {
+    if (filter.severities[SEVERITY[f[0]]] !== true || filter.rules[f[1]] !== true) return false;
+    if (filter.crossesOnly && f[2] !== 1) return false;
+    return filter.seenMode === 'all' || (filter.seenMode === 'seen') === (seen[keyOf(d, card, f)] === 1);
+  }
+  function anyShown(d) {
+    if (d.g.some(function (f) { return shows(d, null, f); })) return true;
+    return d.c.some(function (card) { return card[4].some(function (f) { return shows(d, card, f); }); });
+  }
+  var cardDocs = flaggedDocs;
+  function findingItem(d, card, f) {
+    var key = keyOf(d, card, f);
+    var severity = SEVERITY[f[0]];
+    var item = make('li', 'finding');
+    item.setAttribute('data-severity', severity);
+    item.setAttribute('data-rule', f[1]);
+    item.setAttribute('data-crosses', f[2] === 1 ? 'true' : 'false');
+    item.setAttribute('data-key', key);
+    var isSeen = seen[key] === 1;
+    item.classList.toggle('is-seen', isSeen);
+    var box = make('input', 'seen');
+    box.type = 'checkbox';
+    box.checked = isSeen;
+    add(item, make('span', 'badge ' + severity, severity), ' ', make('span', 'rule', f[1]));
+    if (f[2] === 1) add(item, ' ', make('span', 'alpha', 'changes the conclusion' + (d.a === undefined ? '' : ' at alpha ' + d.a)));
+    add(item, add(make('label', 'seen-box needs-script'), box, ' seen'), make('p', 'message', f[3]), f[5] ? make('p', 'implied', f[5]) : null);
+    item.hidden = !shows(d, card, f);
+    return item;
+  }
+  function findingList(d, card, findings) {
+    var list = make('ul', 'findings');
+    findings.forEach(function (f) { list.appendChild(findingItem(d, card, f)); });
+    return list;
+  }
+  function drawCard(i) {
+    var d = cardDocs[i];
+    var section = make('section', 'doc flagged');
+    section.id = documentId(d);
+    section.tabIndex = -1;
+    add(section, make('h3', null, d.p), metaOf(d));
+    if (d.g.length > 0) {
+      var whole = add(make('div', 'doc-findings'), make('h4', null, 'About the document as a whole'), findingList(d, null, d.g));
+      whole.hidden = !d.g.some(function (f) { return shows(d, null, f); });
+      section.appendChild(whole);
+    }
+    d.c.forEach(function (card) {
+      var r = d.r[card[0]];
+      var article = make('article', 'result sev-' + SEVERITY[r[7]]);
+      article.id = resultId(d, card[0]);
+      article.tabIndex = -1;
+      add(article, make('div', 'where', where(r[0], r[1], r[2])), add(make('p', 'context'), card[1], make('mark', null, card[5] || r[4]), card[2]));
+      var numbers = numbersText(card[3]);
+      if (numbers) article.appendChild(make('p', 'numbers', numbers));
+      article.appendChild(findingList(d, card, card[4]));
+      article.hidden = !card[4].some(function (f) { return shows(d, card, f); });
+      section.appendChild(article);
+    });
+    add(section, tablesNotRead(d), allResults(d));
+    return section;
+  }
+  var cardsPager = cards ? makePager('flag-cards', function () { return cardDocs.length; }, drawCard) : null;
   function applyFilters() {
     if (!panel) return;
-    var severities = chosen('severity');
-    var rules = chosen('rule');
-    var crossesOnly = document.getElementById('only-crosses').checked;
-    var seenMode = document.getElementById('seen-filter').value;
+    filter = readFilters();
     var shown = 0;
-    findings.forEach(function (item) {
-      var isSeen = seen[item.getAttribute('data-key')] === 1;
-      var box = item.querySelector('input.seen');
-      if (box) box.checked = isSeen;
-      item.classList.toggle('is-seen', isSeen);
-      var visible = severities[item.getAttribute('data-severity')] === true && rules[item.getAttribute('data-rule')] === true &&
-        (!crossesOnly || item.getAttribute('data-crosses') === 'true') &&
-        (seenMode === 'all' || (seenMode === 'seen') === isSeen);
-      item.hidden = !visible;
-      if (visible) shown += 1;
+    var total = 0;
+    cardDocs = flaggedDocs.filter(function (d) {
+      var before = shown;
+      d.g.forEach(function (f) { total += 1; if (shows(d, null, f)) shown += 1; });
+      d.c.forEach(function (card) { card[4].forEach(function (f) { total += 1; if (shows(d, card, f)) shown += 1; }); });
+      return shown > before;
     });
-    all('#flag-cards .result, #flag-cards .doc-findings').forEach(function (block) {
-      block.hidden = block.querySelector('.finding:not([hidden])') === null;
-    });
-    var documents = 0;
-    all('#flag-cards > .doc').forEach(function (section) {
-      var keep = section.querySelector('.finding:not([hidden])') !== null;
-      section.setAttribute('data-out', keep ? '0' : '1');
-      if (keep) documents += 1;
-    });
-    if (pagers['flag-cards']) pagers['flag-cards'].render();
-    if (count) count.textContent = 'Showing ' + shown + ' of ' + findings.length + ' flags, in ' + plural(documents, 'document') + '.';
+    cardsPager.render();
+    if (count) count.textContent = 'Showing ' + shown + ' of ' + total + ' flags, in ' + plural(cardDocs.length, 'document') + '.';
   }
   function resetFilters() {
     boxes.forEach(function (box) { box.checked = true; });
@@ -343,29 +578,28 @@ const SCRIPT = `
     if (/^[=+\\-@]/.test(value)) value = "'" + value;
     return '"' + value.replace(/"/g, '""') + '"';
   }
-  function textIn(root, selector) {
-    var element = root ? root.querySelector(selector) : null;
-    return element ? element.textContent : '';
-  }
   function exportCsv() {
-    var caution = textIn(document, 'header .caution');
+    var caution = document.querySelector('header .caution').textContent;
     var lines = [['document', 'where', 'result as printed', 'reported and recomputed', 'severity', 'rule', 'changes the conclusion', 'seen', 'why', 'caution'].map(csvCell).join(',')];
-    findings.forEach(function (item) {
-      if (item.hidden) return;
-      var section = item.closest('.doc');
-      var result = item.closest('.result');
+    function line(d, card, f) {
+      if (!shows(d, card, f)) return;
+      var r = card ? d.r[card[0]] : null;
       lines.push([
-        textIn(section, 'h3'),
-        textIn(result, '.where'),
-        textIn(result, 'mark'),
-        (textIn(result, '.numbers') + ' ' + textIn(item, '.implied')).trim(),
-        item.getAttribute('data-severity'),
-        item.getAttribute('data-rule'),
-        item.getAttribute('data-crosses') === 'true' ? 'yes' : 'no',
-        seen[item.getAttribute('data-key')] === 1 ? 'yes' : 'no',
-        textIn(item, '.message'),
+        d.p,
+        r ? where(r[0], r[1], r[2]) : '',
+        card ? card[5] || r[4] : '',
+        ((card ? numbersText(card[3]) : '') + ' ' + f[5]).trim(),
+        SEVERITY[f[0]],
+        f[1],
+        f[2] === 1 ? 'yes' : 'no',
+        seen[keyOf(d, card, f)] === 1 ? 'yes' : 'no',
+        f[3],
         caution
       ].map(csvCell).join(','));
+    }
+    flaggedDocs.forEach(function (d) {
+      d.g.forEach(function (f) { line(d, null, f); });
+      d.c.forEach(function (card) { card[4].forEach(function (f) { line(d, card, f); }); });
     });
     var blob = new Blob([lines.join('\\r\\n') + '\\r\\n'], { type: 'text/csv;charset=utf-8' });
     var link = document.createElement('a');
@@ -375,7 +609,7 @@ const SCRIPT = `
     link.click();
     setTimeout(function () { URL.revokeObjectURL(link.href); link.remove(); }, 1000);
   }
-  if (panel) {
+  if (panel && cardsPager) {
     panel.addEventListener('change', function (event) {
       if (event.target.id === 'seen-filter' || event.target.hasAttribute('data-group') || event.target.id === 'only-crosses') applyFilters();
     });
@@ -389,7 +623,6 @@ const SCRIPT = `
       boxes.forEach(function (box) { if (box.getAttribute('data-group') === group) box.checked = on; });
       applyFilters();
     });
-    var cards = document.getElementById('flag-cards');
     cards.addEventListener('change', function (event) {
       var box = event.target;
       if (!box.classList || !box.classList.contains('seen')) return;
@@ -403,13 +636,47 @@ const SCRIPT = `
     applyFilters();
   }
 
-  // ---- links: bring the target into view (its page, past the filters) before the browser scrolls to it
+  // ---- the lists of documents without flags and of unreadable documents
+  function drawClean(i) {
+    var d = cleanDocs[i];
+    var item = make('li', d.n === undefined ? 'clean' : 'clean no-results');
+    item.id = documentId(d);
+    item.tabIndex = -1;
+    add(item, d.p + ': ' + (d.n === undefined ? plural(d.r.length, 'result') + ', none flagged' : '0 results. ' + d.n), tablesNotRead(d), allResults(d));
+    return item;
+  }
+  function drawUnreadable(i) {
+    var d = unreadableDocs[i];
+    var item = make('li', 'unreadable');
+    item.id = documentId(d);
+    item.tabIndex = -1;
+    return add(item, make('span', 'path', d.p), ': ', make('span', 'reason', d.x));
+  }
+  var cleanPager = null;
+  if (cleanDocs.length > 0) {
+    document.getElementById('clean-count').textContent = String(cleanDocs.length);
+    document.getElementById('clean').hidden = false;
+    cleanPager = makePager('clean-list', function () { return cleanDocs.length; }, drawClean);
+    cleanPager.render();
+  }
+  var unreadablePager = makePager('unreadable-list', function () { return unreadableDocs.length; }, drawUnreadable);
+  if (unreadablePager) unreadablePager.render();
+
+  // ---- links: draw the target (its page, past the filters) before the browser scrolls to it
   function reveal(id) {
-    var target = id ? document.getElementById(id) : null;
-    if (!target) return;
-    var item = target.closest('[data-item]');
-    if (target.closest('#flag-cards') && (target.closest('.result[hidden], .doc-findings[hidden]') || (item && item.getAttribute('data-out') === '1'))) resetFilters();
-    if (item && pagers[item.parentNode.id]) pagers[item.parentNode.id].show(item);
+    var match = /^doc-(\\d+)(?:-result-(\\d+))?$/.exec(id || '');
+    var d = match ? docs[Number(match[1]) - 1] : undefined;
+    if (!d) return;
+    if (d.worst > 0 && cardsPager) {
+      var resultIndex = match[2] ? Number(match[2]) - 1 : -1;
+      var hidden = cardDocs.indexOf(d) < 0;
+      if (!hidden && resultIndex >= 0) {
+        hidden = !d.c.some(function (card) { return card[0] === resultIndex && card[4].some(function (f) { return shows(d, card, f); }); });
+      }
+      if (hidden) resetFilters();
+      cardsPager.show(cardDocs.indexOf(d));
+    } else if (d.worst === 0 && cleanPager) cleanPager.show(cleanDocs.indexOf(d));
+    else if (d.worst === -1 && unreadablePager) unreadablePager.show(unreadableDocs.indexOf(d));
   }
   document.addEventListener('click', function (event) {
     var link = event.target.closest ? event.target.closest('a') : null;
@@ -422,7 +689,7 @@ const SCRIPT = `
     var target = document.getElementById(decodeURIComponent(location.hash.slice(1)));
     if (target) setTimeout(function () { target.scrollIntoView(); }, 0);
   }
-  }
+  document.documentElement.setAttribute('data-ready', '');
 })();
 `;
 
@@ -434,7 +701,7 @@ function sha256Base64(text: string): string {
 export function contentSecurityPolicy(): string {
   return [
     "default-src 'none'",
-    `script-src 'sha256-${sha256Base64(BOOT_SCRIPT)}' 'sha256-${sha256Base64(SCRIPT)}'`,
+    `script-src 'sha256-${sha256Base64(SCRIPT)}'`,
     `style-src 'sha256-${sha256Base64(STYLE)}'`,
     "img-src 'none'",
     "base-uri 'none'",
@@ -442,133 +709,185 @@ export function contentSecurityPolicy(): string {
   ].join('; ');
 }
 
-// ---------------------------------------------------------------- overview
+// ---------------------------------------------------------------- the data of one document
 
-interface DocumentCounts {
-  index: number;
-  document: DocumentOutput;
-  flags: number;
-  flagged: number;
-  bySeverity: Record<Severity, number>;
-  crossesAlpha: number;
-  /** 3 fail, 2 warn, 1 note, 0 no flag, -1 unreadable: what the ranking puts first. */
-  worst: number;
+/**
+ * A finding as data: [severity (3 fail, 2 warn, 1 note), rule, changes the conclusion (1 or 0), message,
+ * message id (part of the key a seen mark is kept under), the F and p a table row's own numbers imply, or ''].
+ */
+export type FindingData = [number, string, number, string, string, string];
+/**
+ * A result as data, for its row in the table of all results and its mark on the map: [page (0 for none),
+ * line, column, place on the map (tenths of a unit of the map's 240), the result as printed on one line,
+ * reported p (or, when the result as printed ends with it, its length), recomputed p (three significant digits, or null), worst flag (3 fail, 2 warn, 1 note, 0 none,
+ * -1 not checked)].
+ */
+export type ResultData = [number, number, number, number, string, string | number, number | null, number];
+/**
+ * A flagged result's p values: [reported p ('' when none), recomputed p, its lowest and highest over the values
+ * that round to the printed ones (three significant digits, or null), 2 two-tailed or 1 upper tail, 1 when
+ * recomputed from the printed F of a table row that does not add up, why it was not recomputed ('' when it was)].
+ */
+export type NumbersData = [string, number | null, number | null, number | null, number, number, string];
+/**
+ * A flagged result's card: [index of the result, text before it (with "…" where it was cut), text after it,
+ * its p values, its findings, and the result as printed when it spans lines (else '')].
+ */
+export type CardData = [number, string, string, NumbersData, FindingData[], string];
+/** A table not read in full: [tag, page (0 for none), line, message]. */
+export type TableData = [string, number, number, string];
+
+/** One document as the page's script reads it; short keys, as they repeat 10,000 times in a large report. */
+export interface DocumentData {
+  /** Path. */
+  p: string;
+  /** Set on an unreadable document: why. */
+  x?: string;
+  /** Format, alpha. */
+  f?: string;
+  a?: number;
+  /** Set on a document read without results: why it has none. */
+  n?: string;
+  r?: ResultData[];
+  c?: CardData[];
+  /** Findings about the document as a whole. */
+  g?: FindingData[];
+  t?: TableData[];
 }
 
-function countDocument(document: DocumentOutput, index: number): DocumentCounts {
-  const bySeverity: Record<Severity, number> = { fail: 0, warn: 0, note: 0 };
-  let flags = 0;
-  let crossesAlpha = 0;
-  let flagged = 0;
-  const count = (finding: FindingOutput): void => {
-    bySeverity[finding.severity] += 1;
-    flags += 1;
-    if (finding.crossesAlpha) crossesAlpha += 1;
-  };
-  document.findings.forEach(count);
-  for (const statistic of document.statistics) {
-    if (statistic.findings.length > 0) flagged += 1;
-    statistic.findings.forEach(count);
-  }
-  const worst = document.status === 'unreadable' ? -1 : bySeverity.fail > 0 ? 3 : bySeverity.warn > 0 ? 2 : bySeverity.note > 0 ? 1 : 0;
-  return { index, document, flags, flagged, bySeverity, crossesAlpha, worst };
+/** For a table row that does not add up: the F and p its own numbers imply, beside the printed F's p (numbersText). */
+function impliedText(finding: FindingOutput): string {
+  const implied = finding.rowImplies;
+  if (!implied) return '';
+  // Four significant digits: the interval of a row printed to two decimals is narrow.
+  const number = (value: number): string => (value !== 0 && Math.abs(value) < 0.001 ? value.toExponential(3).replace('e+', 'e') : String(Number(value.toPrecision(4))));
+  const range = (low: number | null, high: number | null): string => (low !== null && high !== null && number(low) !== number(high) ? ` (${number(low)} to ${number(high)})` : '');
+  const f = `F = ${number(implied.statistic)}${range(implied.statisticLow, implied.statisticHigh)}`;
+  const p = implied.p === null ? '' : `, p = ${number(implied.p)}${range(implied.pLow, implied.pHigh)}`;
+  return `The row\u2019s own numbers imply ${f}${p}: ${shown(implied.from)}; in brackets, the range over the values that round to the printed cells.`;
 }
 
-function documentAnchor(index: number): string {
-  return `doc-${index + 1}`;
+function findingData(finding: FindingOutput): FindingData {
+  return [SEVERITY_CODE[finding.severity], shown(finding.rule), finding.crossesAlpha ? 1 : 0, shown(finding.message), shown(finding.messageId), impliedText(finding)];
 }
 
-function resultAnchor(documentIndex: number, statisticIndex: number): string {
-  return `doc-${documentIndex + 1}-result-${statisticIndex + 1}`;
+/** A p to three significant digits, as the page shows it (its script's formatNumber: 0.0123, 1.33e-8); null stays null. */
+function threeDigits(value: number | null): number | null {
+  return value === null || !Number.isFinite(value) ? value : Number(value.toPrecision(3));
 }
 
 /**
- * The documents in the order a reviewer should read them: the worst severity first, then the most fail,
- * warn and note flags, then the most that change the conclusion; unreadable documents last; ties by name.
+ * The reported p and the p recomputed from the printed numbers, as data the script puts in words ("reported p
+ * = .152; recomputed p = 5.53e-4 (5.43e-4 to 5.62e-4 for values that round to the printed ones), two-tailed").
  */
-function rankDocuments(counts: readonly DocumentCounts[]): DocumentCounts[] {
-  return [...counts].sort(
-    (a, b) =>
-      b.worst - a.worst ||
-      b.bySeverity.fail - a.bySeverity.fail ||
-      b.bySeverity.warn - a.bySeverity.warn ||
-      b.bySeverity.note - a.bySeverity.note ||
-      b.crossesAlpha - a.crossesAlpha ||
-      (a.document.path < b.document.path ? -1 : a.document.path > b.document.path ? 1 : a.index - b.index),
-  );
-}
-
-const WORST_WORDS: Record<string, string> = { '3': 'fail', '2': 'warn', '1': 'note', '0': 'no flag', '-1': 'unreadable' };
-
-// ---------------------------------------------------------------- the document map
-
-/**
- * The marks of the map and its legend: severity by colour and by shape, so
- * the map reads in grey too. fail a square, warn a triangle, note a circle,
- * a result without a flag a short grey tick.
- */
-const SEVERITY_COLOUR: Record<Severity | 'none', string> = { fail: '#b71c1c', warn: '#a35200', note: '#1555a0', none: '#6b7280' };
-const SHAPE_WORDS: Record<Severity | 'none', string> = { fail: 'square', warn: 'triangle', note: 'circle', none: 'tick' };
-
-function r1(n: number): string {
-  return n.toFixed(1);
-}
-
-function markShape(severity: Severity, x: number, y: number): string {
-  const colour = SEVERITY_COLOUR[severity];
-  if (severity === 'fail') return `<rect x="${r1(x - 4)}" y="${r1(y - 4)}" width="8" height="8" fill="${colour}" stroke="#fff" stroke-width="0.8"/>`;
-  if (severity === 'warn') return `<path d="M${r1(x)} ${r1(y - 5)}L${r1(x + 5)} ${r1(y + 4)}L${r1(x - 5)} ${r1(y + 4)}Z" fill="${colour}" stroke="#fff" stroke-width="0.8"/>`;
-  return `<circle cx="${r1(x)}" cy="${r1(y)}" r="4" fill="${colour}" stroke="#fff" stroke-width="0.8"/>`;
+function numbersData(statistic: StatisticOutput): NumbersData {
+  const rec = statistic.recomputed;
+  return [
+    statistic.p ? `${statistic.p.comparator} ${shown(statistic.p.text)}` : '',
+    threeDigits(rec.p),
+    threeDigits(rec.pLow),
+    threeDigits(rec.pHigh),
+    rec.tails === 'two' ? 2 : 1,
+    statistic.findings.some((f) => f.rowImplies) ? 1 : 0,
+    !rec.evaluable && rec.reason ? shown(rec.reason) : '',
+  ];
 }
 
 const MAP_WIDTH = 240;
-const MAP_HEIGHT = 20;
 const MAP_PAD = 6;
 
-/**
- * One document as a strip: its text runs from the left edge to its last
- * result on the right, and each result is a mark where it starts. Flagged
- * results are links to their card; results without a flag are ticks, not
- * links (there is nothing more to read about them than the table below).
- */
-function documentMap(document: DocumentOutput, documentIndex: number): string {
-  if (document.statistics.length === 0) return '';
-  let extent = 1;
-  for (const statistic of document.statistics) extent = Math.max(extent, statistic.location.start + 1);
-  const x = (start: number): number => MAP_PAD + (start / extent) * (MAP_WIDTH - 2 * MAP_PAD);
-  const middle = MAP_HEIGHT / 2;
-  const ticks: string[] = [];
-  const marks: Record<Severity, string[]> = { fail: [], warn: [], note: [] };
-  document.statistics.forEach((statistic, statisticIndex) => {
-    const worst = worstSeverity(statistic.findings);
-    const px = x(statistic.location.start);
-    if (worst === null) {
-      ticks.push(`M${r1(px)} ${middle - 4}v8`);
-      return;
-    }
-    const crosses = statistic.findings.some((f) => f.crossesAlpha) ? '; changes the conclusion' : '';
-    const label = `${where(statistic)}: ${visibleLine(statistic.text)}: ${worst}${crosses}`;
-    marks[worst].push(
-      `<a href="#${resultAnchor(documentIndex, statisticIndex)}" class="map-mark" data-severity="${worst}" aria-label="${e(label)}">` +
-        `<title>${e(label)}</title>${markShape(worst, px, middle)}</a>`,
-    );
-  });
-  const unflagged = ticks.length;
-  return (
-    `<svg class="map" viewBox="0 0 ${MAP_WIDTH} ${MAP_HEIGHT}" width="${MAP_WIDTH}" height="${MAP_HEIGHT}" xmlns="http://www.w3.org/2000/svg" role="group" ` +
-    `aria-label="${e(`Map of ${countOf(document.statistics.length, 'result')} in order of place in the document`)}">` +
-    `<line x1="${MAP_PAD}" y1="${middle}" x2="${MAP_WIDTH - MAP_PAD}" y2="${middle}" stroke="#d9dce1" stroke-width="2"/>` +
-    (unflagged > 0 ? `<path class="map-ticks" data-count="${unflagged}" d="${ticks.join('')}" stroke="${SEVERITY_COLOUR.none}" stroke-width="1.5" fill="none"/>` : '') +
-    // The worst drawn last, on top.
-    marks.note.join('') +
-    marks.warn.join('') +
-    marks.fail.join('') +
-    `</svg>`
-  );
+/** The worst severity of a result's findings as the data writes it; 0 for none, -1 when the result was not checked. */
+function worstCode(statistic: StatisticOutput): number {
+  let worst = 0;
+  for (const finding of statistic.findings) worst = Math.max(worst, SEVERITY_CODE[finding.severity]);
+  return worst === 0 && !statistic.recomputed.evaluable ? -1 : worst;
 }
 
+/** One document as data: what its row, map, card and list entry need, nothing drawn. */
+export function documentData(document: DocumentOutput): DocumentData {
+  const data: DocumentData = { p: shown(document.path) };
+  if (document.status === 'unreadable') {
+    data.x = shown(document.error ?? 'unreadable (no reason given)');
+    return data;
+  }
+  if (document.format) data.f = shown(document.format);
+  if (document.alpha !== undefined) data.a = document.alpha;
+  const noResults = noResultsMessage(document);
+  if (noResults !== null) data.n = shown(noResults);
+  // The map runs from the start of the text to the last result.
+  let extent = 1;
+  for (const statistic of document.statistics) extent = Math.max(extent, statistic.location.start + 1);
+  const results: ResultData[] = [];
+  const cards: CardData[] = [];
+  document.statistics.forEach((statistic, index) => {
+    const { page, line, column, start } = statistic.location;
+    const x = MAP_PAD + (start / extent) * (MAP_WIDTH - 2 * MAP_PAD);
+    const oneLine = shown(statistic.text.replace(/\s+/g, ' '));
+    const reported = statistic.p ? `${statistic.p.comparator} ${shown(statistic.p.text)}` : '';
+    // Most results end with their p as the column shows it ("..., p = .001"): then the length of that end is enough.
+    const reportedData = reported !== '' && oneLine.endsWith(` ${reported}`) ? reported.length : reported;
+    results.push([page ?? 0, line, column, Math.round(x * 10), oneLine, reportedData, threeDigits(statistic.recomputed.p), worstCode(statistic)]);
+    if (statistic.findings.length === 0) return;
+    const { before, after } = statistic.surroundings;
+    const cut = start > before.length ? '\u2026' : '';
+    const asPrinted = shown(statistic.text);
+    cards.push([index, cut + shown(before), shown(after), numbersData(statistic), statistic.findings.map(findingData), asPrinted === oneLine ? '' : asPrinted]);
+  });
+  if (results.length > 0) data.r = results;
+  if (cards.length > 0) data.c = cards;
+  if (document.findings.length > 0) data.g = document.findings.map(findingData);
+  if (document.tablesNotRead.length > 0) {
+    data.t = document.tablesNotRead.map((table) => [tableNotReadTag(table), table.location.page ?? 0, table.location.line, shown(table.message)]);
+  }
+  return data;
+}
+
+/** JSON that cannot end the script element it sits in, nor open a comment there: every `<` escaped. */
+export function inertJson(value: unknown): string {
+  return JSON.stringify(value).replace(/</g, '\\u003c');
+}
+
+/** Documents a data block holds at most, and characters after which it is closed: the browser parses one block at a time. */
+const BLOCK_DOCUMENTS = 200;
+const BLOCK_CHARACTERS = 1 << 19;
+
+function dataBlock(parts: readonly string[]): string {
+  return `<script type="application/json" class="report-data">[${parts.join(',')}]</script>\n`;
+}
+
+/** The documents' data blocks, made a document at a time. */
+function* dataBlocks(documents: Iterable<DocumentOutput>): Iterable<string> {
+  let parts: string[] = [];
+  let length = 0;
+  for (const document of documents) {
+    const json = inertJson(documentData(document));
+    parts.push(json);
+    length += json.length;
+    if (parts.length >= BLOCK_DOCUMENTS || length >= BLOCK_CHARACTERS) {
+      yield dataBlock(parts);
+      parts = [];
+      length = 0;
+    }
+  }
+  if (parts.length > 0) yield dataBlock(parts);
+}
+
+// ---------------------------------------------------------------- the fixed parts of the page
+
+/** The shapes of the map's legend: severity by colour and by shape, so the map reads in grey too (the script draws the same). */
+const SEVERITY_COLOUR: Record<Severity | 'none', string> = { fail: '#b71c1c', warn: '#a35200', note: '#1555a0', none: '#6b7280' };
+const SHAPE_WORDS: Record<Severity | 'none', string> = { fail: 'square', warn: 'triangle', note: 'circle', none: 'tick' };
+
 function legendShape(severity: Severity | 'none'): string {
-  const inner = severity === 'none' ? `<path d="M7 2v10" stroke="${SEVERITY_COLOUR.none}" stroke-width="1.5"/>` : markShape(severity, 7, 7);
+  const colour = SEVERITY_COLOUR[severity];
+  const inner =
+    severity === 'none'
+      ? `<path d="M7 2v10" stroke="${colour}" stroke-width="1.5"/>`
+      : severity === 'fail'
+        ? `<rect x="3.0" y="3.0" width="8" height="8" fill="${colour}" stroke="#fff" stroke-width="0.8"/>`
+        : severity === 'warn'
+          ? `<path d="M7.0 2.0L12.0 11.0L2.0 11.0Z" fill="${colour}" stroke="#fff" stroke-width="0.8"/>`
+          : `<circle cx="7.0" cy="7.0" r="4" fill="${colour}" stroke="#fff" stroke-width="0.8"/>`;
   return `<svg width="14" height="14" viewBox="0 0 14 14" xmlns="http://www.w3.org/2000/svg" aria-hidden="true">${inner}</svg>`;
 }
 
@@ -582,13 +901,8 @@ function mapLegend(): string {
   );
 }
 
-/** Items on a list's first page, so the page can show them alone while it loads (BOOT_SCRIPT). */
+/** Items a list shows on a page at first (the reader can choose the other sizes). */
 const PAGE_SIZES = { documents: 25, cards: 10, lists: 100 } as const;
-
-/** The attributes of an item of a paged list: data-first on those of its first page. */
-function itemAttributes(position: number, pageSize: number): string {
-  return position < pageSize ? 'data-item data-first' : 'data-item';
-}
 
 function pagerNav(listId: string, noun: string, sizes: readonly number[]): string {
   const options = sizes.map((size) => `<option value="${size}">${size === 0 ? 'all' : size}</option>`).join('');
@@ -601,29 +915,12 @@ function pagerNav(listId: string, noun: string, sizes: readonly number[]): strin
   );
 }
 
-function documentRow(c: DocumentCounts, rank: number): string {
-  const d = c.document;
-  const name = `<a href="#${documentAnchor(c.index)}">${e(d.path)}</a>`;
-  const data =
-    `${itemAttributes(rank - 1, PAGE_SIZES.documents)} data-rank="${rank}" data-name="${e(d.path)}" data-worst="${c.worst}" data-fail="${c.bySeverity.fail}" data-warn="${c.bySeverity.warn}" ` +
-    `data-note="${c.bySeverity.note}" data-crosses="${c.crossesAlpha}" data-results="${d.statistics.length}" data-flagged="${c.flagged}"`;
-  if (d.status === 'unreadable') {
-    return `<tr ${data}><td class="num">${rank}</td><td class="name">${name}</td><td class="map">unreadable</td><td>unreadable</td><td class="num"></td><td class="num"></td><td class="num"></td><td class="num"></td><td class="num"></td></tr>`;
-  }
-  const map = d.statistics.length === 0 ? (noResultsMessage(d) === null ? '' : 'no results') : documentMap(d, c.index);
-  return (
-    `<tr ${data}><td class="num">${rank}</td><td class="name">${name}</td><td class="map">${map}</td><td>${WORST_WORDS[String(c.worst)]}</td>` +
-    `<td class="num">${c.bySeverity.fail}</td><td class="num">${c.bySeverity.warn}</td><td class="num">${c.bySeverity.note}</td>` +
-    `<td class="num">${c.crossesAlpha}</td><td class="num">${c.flagged} of ${d.statistics.length}</td></tr>`
-  );
-}
-
 /**
- * The documents table: every document, ranked by its worst flag, with its
- * map. The script sorts it by any column, searches it by name, keeps only
- * the documents where a flag changes the conclusion, and pages it.
+ * The documents table, empty: the script ranks the documents and draws the rows of the page shown, each with
+ * its map. It sorts by any column, searches by name, keeps only the documents where a flag changes the
+ * conclusion, and pages.
  */
-function documentsTable(ranked: readonly DocumentCounts[]): string {
+function documentsTable(): string {
   const header = (key: string, label: string, numeric: boolean, sorted = false): string =>
     `<th${numeric ? ' class="num"' : ''} data-sort="${key}"${sorted ? ' aria-sort="ascending"' : ''} scope="col"><button type="button" class="sort">${label}</button></th>`;
   const controls =
@@ -650,198 +947,22 @@ function documentsTable(ranked: readonly DocumentCounts[]): string {
     header('note', 'note', true) +
     header('crosses', 'Change the conclusion', true) +
     header('flagged', 'Flagged results', true) +
-    `</tr></thead><tbody id="documents-body" data-paged data-page-size="${PAGE_SIZES.documents}">${ranked.map((c, i) => documentRow(c, i + 1)).join('')}</tbody></table>`
+    `</tr></thead><tbody id="documents-body" data-page-size="${PAGE_SIZES.documents}"></tbody></table>`
   );
 }
 
-interface RuleCounts {
-  rule: string;
-  bySeverity: Record<Severity, number>;
-  total: number;
-  documents: Set<number>;
-  crossesAlpha: number;
-}
-
-function countRules(documents: readonly DocumentOutput[]): RuleCounts[] {
-  const byRule = new Map<string, RuleCounts>();
-  const add = (finding: FindingOutput, index: number): void => {
-    let entry = byRule.get(finding.rule);
-    if (!entry) {
-      entry = { rule: finding.rule, bySeverity: { fail: 0, warn: 0, note: 0 }, total: 0, documents: new Set(), crossesAlpha: 0 };
-      byRule.set(finding.rule, entry);
-    }
-    entry.bySeverity[finding.severity] += 1;
-    entry.total += 1;
-    entry.documents.add(index);
-    if (finding.crossesAlpha) entry.crossesAlpha += 1;
-  };
-  documents.forEach((document, index) => {
-    for (const finding of document.findings) add(finding, index);
-    for (const statistic of document.statistics) for (const finding of statistic.findings) add(finding, index);
-  });
-  return [...byRule.values()].sort((a, b) => b.total - a.total || (a.rule < b.rule ? -1 : a.rule > b.rule ? 1 : 0));
-}
-
-function rulesTable(rules: readonly RuleCounts[]): string {
-  if (rules.length === 0) return `<h3>Flags by rule</h3><p>No flags.</p>`;
-  const rows = rules.map(
-    (r) =>
-      `<tr><td class="rule">${e(r.rule)}</td><td class="num">${r.total}</td><td class="num">${r.bySeverity.fail}</td>` +
-      `<td class="num">${r.bySeverity.warn}</td><td class="num">${r.bySeverity.note}</td><td class="num">${r.documents.size}</td>` +
-      `<td class="num">${r.crossesAlpha}</td></tr>`,
-  );
-  return (
-    `<h3>Flags by rule</h3>` +
-    `<table class="by-rule"><thead><tr><th>Rule</th><th class="num">Flags</th><th class="num">fail</th><th class="num">warn</th>` +
-    `<th class="num">note</th><th class="num">Documents</th><th class="num">Change the conclusion</th></tr></thead>` +
-    `<tbody>${rows.join('')}</tbody></table>`
-  );
-}
-
-// ---------------------------------------------------------------- documents
-
-/** The key a seen mark is kept under in the browser: the document, the place and the rule, so it survives a new report of the same audit. */
-function seenKey(path: string, statistic: StatisticOutput | null, finding: FindingOutput): string {
-  const place = statistic === null ? 'document' : `${statistic.location.page ?? ''}:${statistic.location.line}:${statistic.location.column}`;
-  return `${path}\u0000${place}\u0000${finding.rule}\u0000${finding.messageId}`;
-}
-
-function findingItem(finding: FindingOutput, alpha: number | undefined, key: string): string {
-  const crosses = finding.crossesAlpha
-    ? ` <span class="alpha">changes the conclusion${alpha === undefined ? '' : ` at alpha ${e(String(alpha))}`}</span>`
-    : '';
-  return (
-    `<li class="finding" data-severity="${e(finding.severity)}" data-rule="${e(finding.rule)}" data-crosses="${finding.crossesAlpha}" data-key="${e(key)}">` +
-    `<span class="badge ${e(finding.severity)}">${e(finding.severity)}</span> <span class="rule">${e(finding.rule)}</span>${crosses}` +
-    `<label class="seen-box needs-script"><input type="checkbox" class="seen"> seen</label>` +
-    `<p class="message">${e(finding.message)}</p>${impliedLine(finding)}</li>`
-  );
-}
-
-/** For a table row that does not add up: the F and p its own numbers imply, beside the printed F's p (numbersLine). */
-function impliedLine(finding: FindingOutput): string {
-  const implied = finding.rowImplies;
-  if (!implied) return '';
-  // Four significant digits: the interval of a row printed to two decimals is narrow.
-  const number = (value: number): string => (value !== 0 && Math.abs(value) < 0.001 ? value.toExponential(3).replace('e+', 'e') : String(Number(value.toPrecision(4))));
-  const range = (low: number | null, high: number | null): string => (low !== null && high !== null && number(low) !== number(high) ? ` (${number(low)} to ${number(high)})` : '');
-  const f = `F = ${number(implied.statistic)}${range(implied.statisticLow, implied.statisticHigh)}`;
-  const p = implied.p === null ? '' : `, p = ${number(implied.p)}${range(implied.pLow, implied.pHigh)}`;
-  return (
-    `<p class="implied">The row\u2019s own numbers imply ${f}${p}: ${e(implied.from)}; in brackets, the range over the values that round to the printed cells.</p>`
-  );
-}
-
-function numbersLine(statistic: StatisticOutput): string {
-  const parts: string[] = [];
-  if (statistic.p) parts.push(`reported p ${e(statistic.p.comparator)} ${e(statistic.p.text)}`);
-  const rec = statistic.recomputed;
-  if (rec.p !== null) {
-    const range =
-      rec.pLow !== null && rec.pHigh !== null && (formatNumber(rec.pLow) !== formatNumber(rec.p) || formatNumber(rec.pHigh) !== formatNumber(rec.p))
-        ? ` (${formatNumber(rec.pLow)} to ${formatNumber(rec.pHigh)} for values that round to the printed ones)`
-        : '';
-    const printedF = statistic.findings.some((f) => f.rowImplies) ? ' from the printed F' : '';
-    parts.push(`recomputed p${printedF} = ${formatNumber(rec.p)}${range}, ${rec.tails === 'two' ? 'two-tailed' : 'upper tail'}`);
-  } else if (!rec.evaluable && rec.reason) {
-    parts.push(`not recomputed: ${e(rec.reason)}`);
-  }
-  return parts.length > 0 ? `<p class="numbers">${parts.join('; ')}</p>` : '';
-}
-
-function contextBlock(statistic: StatisticOutput): string {
-  const { before, after } = statistic.surroundings;
-  const cut = statistic.location.start > before.length ? '\u2026' : '';
-  return `<p class="context">${cut}${e(before)}<mark>${e(statistic.text)}</mark>${e(after)}</p>`;
-}
-
-function resultBlock(document: DocumentOutput, statistic: StatisticOutput, documentIndex: number, statisticIndex: number): string {
-  const worst = worstSeverity(statistic.findings);
-  return (
-    `<article class="result sev-${worst ?? 'none'}" id="${resultAnchor(documentIndex, statisticIndex)}" tabindex="-1">` +
-    `<div class="where">${e(where(statistic))}</div>` +
-    contextBlock(statistic) +
-    numbersLine(statistic) +
-    `<ul class="findings">${statistic.findings.map((f) => findingItem(f, document.alpha, seenKey(document.path, statistic, f))).join('')}</ul>` +
-    `</article>`
-  );
-}
-
-function allResultsTable(document: DocumentOutput, documentIndex: number): string {
-  if (document.statistics.length === 0) return '';
-  const rows = document.statistics.map((s, i) => {
-    const worst = worstSeverity(s.findings);
-    const text = e(s.text.replace(/\s+/g, ' '));
-    const label = worst === null ? (s.recomputed.evaluable ? 'no flag' : 'not checked') : `<a href="#${resultAnchor(documentIndex, i)}">${worst}</a>`;
-    return (
-      `<tr><td>${e(where(s))}</td><td><code>${text}</code></td><td>${s.p ? `${e(s.p.comparator)} ${e(s.p.text)}` : ''}</td>` +
-      `<td class="num">${formatNumber(s.recomputed.p)}</td><td>${label}</td></tr>`
-    );
-  });
-  return (
-    `<details><summary>All ${countOf(document.statistics.length, 'result')} in this document</summary>` +
-    `<table class="all-results"><thead><tr><th>Where</th><th>Result</th><th>Reported p</th><th class="num">Recomputed p</th><th>Worst flag</th></tr></thead>` +
-    `<tbody>${rows.join('')}</tbody></table></details>`
-  );
-}
-
-/** What the list of documents without flags says of one: its results, or why it has none. */
-function cleanDocumentWords(document: DocumentOutput): string {
-  const noResults = noResultsMessage(document);
-  return noResults === null ? `${countOf(document.statistics.length, 'result')}, none flagged` : `0 results. ${e(noResults)}`;
-}
-
-function documentMeta(document: DocumentOutput, counts: DocumentCounts): string {
-  const bits = [`${countOf(document.statistics.length, 'result')}`, `${counts.flagged} flagged`];
-  if (document.format) bits.push(`format ${e(document.format)}`);
-  if (document.alpha !== undefined) bits.push(`alpha ${e(String(document.alpha))}`);
-  const noResults = noResultsMessage(document);
-  return `<p class="meta">${bits.join(' \u00B7 ')}</p>${noResults === null ? '' : `<p class="no-results">${e(noResults)}</p>`}`;
-}
-
-/** Tables that look like results tables but were not read in full, with the reason. */
-function tablesNotReadBlock(document: DocumentOutput): string {
-  if (document.tablesNotRead.length === 0) return '';
-  const items = document.tablesNotRead
-    .map((table) => {
-      const page = table.location.page === null ? '' : `page ${table.location.page}, `;
-      return `<li><span class="badge warn">${tableNotReadTag(table)}</span> <span class="where">${page}line ${table.location.line}</span>: ${e(table.message)}</li>`;
-    })
-    .join('');
-  return `<div class="tables-not-read"><h4>Tables not read</h4><ul>${items}</ul></div>`;
-}
-
-function flaggedDocument(counts: DocumentCounts, position: number): string {
-  const { document, index } = counts;
-  const documentFindings =
-    document.findings.length > 0
-      ? `<div class="doc-findings"><h4>About the document as a whole</h4><ul class="findings">${document.findings.map((f) => findingItem(f, document.alpha, seenKey(document.path, null, f))).join('')}</ul></div>`
-      : '';
-  const results = document.statistics
-    .map((s, i) => (s.findings.length > 0 ? resultBlock(document, s, index, i) : ''))
-    .join('');
-  return (
-    `<section class="doc flagged" id="${documentAnchor(index)}" ${itemAttributes(position, PAGE_SIZES.cards)} tabindex="-1">` +
-    `<h3>${e(document.path)}</h3>${documentMeta(document, counts)}${documentFindings}${results}${tablesNotReadBlock(document)}${allResultsTable(document, index)}</section>`
-  );
-}
-
-function filtersPanel(report: Report, rules: readonly RuleCounts[]): string {
-  const severityCounts = report.summary.findings;
+/** The filters of the flag cards; the script adds a box per rule (the rules are known once the documents are read). */
+function filtersPanel(summary: Report['summary']): string {
   const severityBoxes = SEVERITIES.map(
-    (s) =>
-      `<label><input type="checkbox" data-group="severity" value="${s}" checked> <span class="badge ${s}">${s}</span> (${severityCounts[s]})</label>`,
+    (s) => `<label><input type="checkbox" data-group="severity" value="${s}" checked> <span class="badge ${s}">${s}</span> (${summary.findings[s]})</label>`,
   ).join('');
-  const ruleBoxes = rules
-    .map((r) => `<label><input type="checkbox" data-group="rule" value="${e(r.rule)}" checked> <span class="rule">${e(r.rule)}</span> (${r.total})</label>`)
-    .join('');
   return (
     `<form class="filters" id="filters" hidden>` +
     `<fieldset><legend>Severity</legend>${severityBoxes}</fieldset>` +
-    `<fieldset><legend>Rule</legend>${ruleBoxes}` +
+    `<fieldset><legend>Rule</legend><span id="rule-boxes"></span>` +
     `<button type="button" data-set="rule" data-value="on">all</button><button type="button" data-set="rule" data-value="off">none</button></fieldset>` +
     `<fieldset><legend>Show</legend>` +
-    `<label><input type="checkbox" id="only-crosses"> changes the conclusion only (${report.summary.crossesAlpha})</label>` +
+    `<label><input type="checkbox" id="only-crosses"> changes the conclusion only (${summary.crossesAlpha})</label>` +
     `<label>marked <select id="seen-filter"><option value="all">seen or not</option><option value="unseen">not yet seen</option><option value="seen">seen</option></select></label>` +
     `<button type="button" id="export-csv">Save the flags shown as CSV</button></fieldset>` +
     `<p class="filter-count" id="filter-count" aria-live="polite"></p>` +
@@ -849,19 +970,11 @@ function filtersPanel(report: Report, rules: readonly RuleCounts[]): string {
   );
 }
 
-/** The HTML report: a single file with inline style and script, safe to open whatever the documents contain. */
-export function formatHtml(report: Report): string {
-  const { summary } = report;
-  const counts = report.documents.map(countDocument);
-  const rules = countRules(report.documents);
-  const flagged = counts.filter((c) => c.document.status === 'checked' && c.flags > 0);
-  const clean = counts.filter((c) => c.document.status === 'checked' && c.flags === 0);
-  const unreadable = counts.filter((c) => c.document.status === 'unreadable');
-
+function totalsList(summary: Report['summary']): string {
   // Results (what was read) and findings (what the rules say of them) are counted apart.
   const findingCount = summary.findings.fail + summary.findings.warn + summary.findings.note;
   const noun = (count: number, one: string, many = `${one}s`): string => (count === 1 ? one : many);
-  const totals =
+  return (
     `<ul class="totals">` +
     `<li><strong>${summary.documents}</strong> ${noun(summary.documents, 'document')}` +
     (summary.unreadable > 0 ? ` (${summary.unreadable} unreadable)` : '') +
@@ -870,68 +983,65 @@ export function formatHtml(report: Report): string {
     `<strong>${summary.flaggedStatistics}</strong> flagged</li>` +
     `<li><strong>${findingCount}</strong> ${noun(findingCount, 'finding')}: <span class="badge fail">fail</span> ${summary.findings.fail} <span class="badge warn">warn</span> ${summary.findings.warn} <span class="badge note">note</span> ${summary.findings.note}</li>` +
     `<li>${e(crossesAlphaPhrase(summary) ?? 'No finding changes the conclusion at alpha')}</li>` +
-    `<li>${e(tablesNotReadPhrase(summary) ?? 'Every results table was read')}</li></ul>`;
+    `<li>${e(tablesNotReadPhrase(summary) ?? 'Every results table was read')}</li></ul>`
+  );
+}
 
-  const ranked = rankDocuments(counts);
+/** The page from its start to the documents' data: everything it holds that the summary alone decides. */
+function pageHead(report: StreamedReport, tool: Report['tool']): string {
+  const { summary } = report;
+  const findingCount = summary.findings.fail + summary.findings.warn + summary.findings.note;
   const overview =
     `<section class="overview" id="overview"><h2>Overview</h2>` +
-    rulesTable(rules) +
-    documentsTable(ranked) +
+    `<div id="by-rule"><h3>Flags by rule</h3></div>` +
+    documentsTable() +
     `</section>`;
-
-  // The cards follow the ranking: the worst documents first.
-  const flaggedRanked = ranked.filter((c) => c.document.status === 'checked' && c.flags > 0);
   const flaggedSection =
     `<section id="flagged"><h2>Flagged results</h2>` +
-    (flagged.length === 0
+    (findingCount === 0
       ? `<p>No result was flagged.</p>`
-      : filtersPanel(report, rules) +
-        pagerNav('flag-cards', 'document', [10, 25, 100, 0]) +
-        `<div id="flag-cards" data-paged data-page-size="${PAGE_SIZES.cards}">${flaggedRanked.map((c, i) => flaggedDocument(c, i)).join('')}</div>`) +
+      : filtersPanel(summary) + pagerNav('flag-cards', 'document', [10, 25, 100, 0]) + `<div id="flag-cards" data-page-size="${PAGE_SIZES.cards}"></div>`) +
     `</section>`;
-
+  // Which documents have no flag the script finds out; the section shows when there is one.
   const cleanSection =
-    clean.length === 0
-      ? ''
-      : `<section id="clean"><h2>Documents without flags (${clean.length})</h2>` +
-        pagerNav('clean-list', 'document', [100, 500, 0]) +
-        `<ul class="clean-list" id="clean-list" data-paged data-page-size="${PAGE_SIZES.lists}">` +
-        clean
-          .map(
-            (c, i) =>
-              `<li class="clean${noResultsMessage(c.document) === null ? '' : ' no-results'}" id="${documentAnchor(c.index)}" ${itemAttributes(i, PAGE_SIZES.lists)} tabindex="-1">${e(c.document.path)}: ${cleanDocumentWords(c.document)}` +
-              `${tablesNotReadBlock(c.document)}${allResultsTable(c.document, c.index)}</li>`,
-          )
-          .join('') +
-        `</ul></section>`;
-
+    `<section id="clean" hidden><h2>Documents without flags (<span id="clean-count"></span>)</h2>` +
+    pagerNav('clean-list', 'document', [100, 500, 0]) +
+    `<ul class="clean-list" id="clean-list" data-page-size="${PAGE_SIZES.lists}"></ul></section>`;
   const unreadableSection =
-    unreadable.length === 0
+    summary.unreadable === 0
       ? ''
-      : `<section id="unreadable"><h2>Unreadable documents (${unreadable.length})</h2>` +
+      : `<section id="unreadable"><h2>Unreadable documents (${summary.unreadable})</h2>` +
         pagerNav('unreadable-list', 'document', [100, 500, 0]) +
-        `<ul id="unreadable-list" data-paged data-page-size="${PAGE_SIZES.lists}">` +
-        unreadable
-          .map(
-            (c, i) =>
-              `<li class="unreadable" id="${documentAnchor(c.index)}" ${itemAttributes(i, PAGE_SIZES.lists)} tabindex="-1"><span class="path">${e(c.document.path)}</span>: ` +
-              `<span class="reason">${e(c.document.error ?? 'unreadable (no reason given)')}</span></li>`,
-          )
-          .join('') +
-        `</ul></section>`;
-
+        `<ul id="unreadable-list" data-page-size="${PAGE_SIZES.lists}"></ul></section>`;
+  const noScript =
+    `<noscript><p class="noscript">This page draws its documents, results and flags with its own script, which this browser did not run. ` +
+    `The same audit without a script: <code>--format md</code> (a summary to read) or <code>--format csv</code> (a table).</p></noscript>`;
   const title = `plumbline report: ${countOf(summary.documents, 'document')}, ${countOf(summary.flaggedStatistics, 'result')} flagged`;
   return (
     `<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n` +
     `<meta http-equiv="Content-Security-Policy" content="${e(contentSecurityPolicy())}">\n` +
     `<meta name="referrer" content="no-referrer">\n` +
     `<meta name="viewport" content="width=device-width, initial-scale=1">\n` +
-    `<meta name="generator" content="${e(`${report.tool.name} ${report.tool.version}`)}">\n` +
-    `<title>${e(title)}</title>\n<style>${STYLE}</style>\n<script>${BOOT_SCRIPT}</script>\n</head>\n<body>\n<main>\n` +
-    `<header><h1>plumbline report</h1><p class="meta">${e(report.tool.name)} ${e(report.tool.version)}</p>` +
-    `<p class="caution" role="note">${e(report.caution)}</p>${totals}</header>\n` +
+    `<meta name="generator" content="${e(`${tool.name} ${tool.version}`)}">\n` +
+    `<title>${e(title)}</title>\n<style>${STYLE}</style>\n</head>\n<body>\n<main>\n` +
+    `<header><h1>plumbline report</h1><p class="meta">${e(tool.name)} ${e(tool.version)}</p>` +
+    `<p class="caution" role="note">${e(report.caution)}</p>${totalsList(summary)}${noScript}</header>\n` +
     `${overview}\n${flaggedSection}\n${cleanSection}\n${unreadableSection}\n` +
-    `<footer><p class="caution">${e(report.caution)}</p></footer>\n` +
-    `</main>\n<script>${SCRIPT}</script>\n</body>\n</html>\n`
+    `<footer><p class="caution">${e(report.caution)}</p></footer>\n</main>\n`
   );
+}
+
+/**
+ * The HTML report a piece at a time: the head, one data block per few hundred documents (each document read,
+ * written and let go), the script. One pass over the documents.
+ */
+export function* htmlPieces(report: StreamedReport, tool: Report['tool']): Iterable<string> {
+  yield pageHead(report, tool);
+  yield* dataBlocks(report.documents());
+  yield `<script>${SCRIPT}</script>\n</body>\n</html>\n`;
+}
+
+/** The HTML report: a single file with inline style, data and script, safe to open whatever the documents contain. */
+export function formatHtml(report: Report): string {
+  return [...htmlPieces({ caution: report.caution, summary: report.summary, documents: () => report.documents }, report.tool)].join('');
 }

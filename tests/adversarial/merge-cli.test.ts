@@ -3,6 +3,7 @@ import { closeSync, openSync, readFileSync, rmSync, symlinkSync, truncateSync, w
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { peakMemoryRunner, plumbline, reportOf, temporaryFolder } from '../batch/cli.js';
+import { htmlDocumentsData } from '../report/htmlData.js';
 
 /**
  * `plumbline merge` on inputs that could make it run without end: a FIFO
@@ -66,7 +67,7 @@ describe('merge of hostile JSON Lines inputs', () => {
     expect(reportOf({ ...merged, stdout: readFileSync(join(folder, 'merged.json'), 'utf8') }).documents[0]!.statistics).toHaveLength(40_000);
   }, 60_000);
 
-  it('streams a merge to JSON and JSON Lines: memory stays far below the records\' size, and the last record of each path is kept, in path order', () => {
+  it('streams a merge to JSON, JSON Lines and the other formats (HTML too): memory stays far below the records\' size, and the last record of each path is kept, in path order', () => {
     // Records of the demo manuscripts under 16,000 paths in reverse order, about 135 MB, then a second file
     // that gives one path a newer record.
     const scan = plumbline(['scan', join(process.cwd(), 'corpus-demo'), '--no-cache', '--jsonl', 'demo.jsonl', '--format', 'json', '--fail-on', 'never', '-q'], folder);
@@ -79,8 +80,8 @@ describe('merge of hostile JSON Lines inputs', () => {
     closeSync(descriptor);
     writeFileSync(join(folder, 'newer.jsonl'), `${JSON.stringify({ ...demo[0]!, path: name(7), alpha: 0.01 })}\n`);
     const measured = peakMemoryRunner(folder);
-    // (Text, CSV and Markdown are streamed too; the HTML page is built whole.)
-    for (const format of ['jsonl', 'json', 'csv', 'md', 'text']) {
+    // (Text, CSV, Markdown and the HTML page are streamed too.)
+    for (const format of ['jsonl', 'json', 'csv', 'md', 'text', 'html']) {
       const run = measured(['merge', 'many.jsonl', 'newer.jsonl', '--format', format, '--output', `merged.${format}`, '--fail-on', 'never']);
       expect(run.status, run.stderr).toBe(0);
       // Held whole, the parsed records took 846 MB at 150 MB of them.
@@ -103,5 +104,11 @@ describe('merge of hostile JSON Lines inputs', () => {
     expect(text.indexOf('paper-00007')).toBeLessThan(text.indexOf('paper-00008'));
     const markdown = readFileSync(join(folder, 'merged.md'), 'utf8');
     expect(markdown).toContain(`**Totals:** ${count} documents`);
+    // The HTML page carries every document's data, in path order, with the newer record of paper-00007.
+    const html = readFileSync(join(folder, 'merged.html'), 'utf8');
+    expect(html).toContain(`<li><strong>${count}</strong> documents`);
+    const data = htmlDocumentsData(html);
+    expect(data.map((d) => d.p)).toEqual(Array.from({ length: count }, (_, index) => name(index)));
+    expect(data[7]!.a).toBe(0.01);
   }, 300_000);
 });
