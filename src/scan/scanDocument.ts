@@ -4,6 +4,7 @@ import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion,
 import { readDescriptives } from './descriptives/index.js';
 import { paragraphsOf, readFactorialCells } from './factorial/index.js';
 import { readComparisons } from './comparisons/readComparisons.js';
+import { familiesOf, readContrasts, readPrintedComparisons } from './contrasts/index.js';
 import type { ReportedNumber, ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
@@ -259,8 +260,17 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     delete results[index]!.descriptives;
   });
   // Pairwise comparisons after an ANOVA, linked to its groups and error term (needs the links above).
-  readComparisons(document.text, results, paragraphsOf(document.text)).forEach((link, index) => {
+  const paragraphs = paragraphsOf(document.text);
+  readComparisons(document.text, results, paragraphs).forEach((link, index) => {
     if (link !== null) results[index]!.postHoc = link;
+  });
+  // Planned contrasts, and comparisons printed without a t, after an ANOVA whose groups are printed (needs the links above).
+  const families = familiesOf(document.text, results, written.context.meanSquareErrors ?? []);
+  readContrasts(document.text, results, paragraphs, families).forEach((link, index) => {
+    if (link !== null) results[index]!.contrast = link;
+  });
+  readPrintedComparisons(document.text, results, families).forEach((found, index) => {
+    if (found !== null) results[index]!.printedComparisons = { family: families[index]!, items: found };
   });
   return {
     results,
