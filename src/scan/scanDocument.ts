@@ -4,7 +4,7 @@ import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion,
 import { readDescriptives } from './descriptives/index.js';
 import { paragraphsOf, readFactorialCells } from './factorial/index.js';
 import { readComparisons } from './comparisons/readComparisons.js';
-import { familiesOf, readContrasts, readPrintedComparisons } from './contrasts/index.js';
+import { familiesOf, readAncova, readContrasts, readPrintedComparisons } from './contrasts/index.js';
 import type { ReportedNumber, ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
@@ -271,6 +271,9 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
   });
   readPrintedComparisons(document.text, results, families).forEach((found, index) => {
     if (found !== null) results[index]!.printedComparisons = { family: families[index]!, items: found };
+  });
+  readAncova(document.text, results, paragraphs).forEach((link, index) => {
+    if (link !== null) results[index]!.ancova = link;
   });
   return {
     results,

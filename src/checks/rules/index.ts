@@ -21,6 +21,7 @@ import { cellStatisticsTestMismatch } from './cell-statistics-test-mismatch.js';
 import { postHocComparisonMismatch } from './post-hoc-comparison-mismatch.js';
 import { contrastMismatch } from './contrast-mismatch.js';
 import { postHocDifferenceMismatch } from './post-hoc-difference-mismatch.js';
+import { ancovaDfMismatch } from './ancova-df-mismatch.js';
 
 /** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
 export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
@@ -47,5 +48,6 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     postHocComparisonMismatch,
     contrastMismatch,
     postHocDifferenceMismatch,
+    ancovaDfMismatch,
   ].map((module) => [module.id, module]),
 );
