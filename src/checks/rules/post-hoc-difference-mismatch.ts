@@ -39,6 +39,18 @@ function pairRanges(family: Family, i: number, j: number, reading: ErrorReading)
   };
 }
 
+/** Critical multipliers by method, level, k, m and df: the studentized range quantile is costly, and every pair and reading asks for the same few. */
+const criticalCache = new Map<string, number>();
+function critical(method: PostHocMethod, level: number, k: number, m: number, df: number): number {
+  const key = `${method}|${level}|${k}|${m}|${df}`;
+  let value = criticalCache.get(key);
+  if (value === undefined) {
+    if (criticalCache.size > 1000) criticalCache.clear();
+    criticalCache.set(key, (value = criticalMultiplier(method, level, k, m, df)));
+  }
+  return value;
+}
+
 /** Does some orientation of the pair, under the given method, reproduce everything the item prints? */
 function reproduces(item: PrintedComparison, family: Family, ranges: PairRanges, methods: readonly PostHocMethod[], allowTruncatedP: boolean): boolean {
   const k = family.groups.length;
@@ -58,7 +70,7 @@ function reproduces(item: PrintedComparison, family: Family, ranges: PairRanges,
     const { level, low, high } = item.interval;
     const m = (k * (k - 1)) / 2;
     for (const method of methods) {
-      const c = criticalMultiplier(method, level, k, m, df);
+      const c = critical(method, level, k, m, df);
       const lower = { low: d.low - c * ranges.se.high, high: d.high - c * ranges.se.low };
       const upper = { low: d.low + c * ranges.se.low, high: d.high + c * ranges.se.high };
       if (meets(lower, roundingInterval(low)) && meets(upper, roundingInterval(high))) return true;
