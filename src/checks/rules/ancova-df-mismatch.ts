@@ -30,7 +30,8 @@ export const ancovaDfMismatch: CheckModule<z.infer<typeof optionsSchema>> = {
     const drafts: FindingDraft[] = [];
     const c = link.covariates?.count ?? 1;
     const expected = link.totalN - link.groups - c;
-    if (df2 > expected) {
+    // Only the groups' F (df1 = k - 1) ties the printed groups to the test; a covariate's F is compared with it below.
+    if (link.role === 'groups' && df2 > expected) {
       drafts.push({
         messageId: 'tooMany',
         severityAtMost: 'warn',

@@ -16,6 +16,7 @@ import type { ComparisonFamily, ErrorReading, FamilyGroup, PrintedMeanSquareErro
 import { roundingInterval } from '../../stats/reportedNumber.js';
 import { weightedSpreadRange } from '../../stats/summaryStatistics.js';
 import { marginalFamily } from '../comparisons/readComparisons.js';
+import { partitionPoint } from '../../sortedSearch.js';
 
 /** How far after the F its MSE may be printed (characters), with no sentence end between. */
 const MSE_REACH = 80;
@@ -33,8 +34,8 @@ function describeF(result: ReportedResult): string {
 
 /** The MSE printed inside the F's span or just after it in the same sentence, before the next result. */
 export function meanSquareErrorOf(result: ReportedResult, next: ReportedResult | undefined, errors: readonly PrintedMeanSquareError[], text: string): PrintedMeanSquareError | null {
-  for (const error of errors) {
-    if (error.start < result.start) continue;
+  for (let i = partitionPoint(errors.length, (j) => errors[j]!.start < result.start); i < errors.length; i++) {
+    const error = errors[i]!;
     if (error.start > result.end + MSE_REACH || (next !== undefined && next.tableRow === undefined && error.start >= next.start)) return null;
     if (error.start >= result.end && /[.!?]\s+[A-Z(]/.test(text.slice(result.end, error.start))) return null;
     return error;
