@@ -140,3 +140,14 @@ describe('plumbline scan: an ANCOVA (ancova-df-mismatch, adjusted means)', () =>
     expect(asRaw.statistics.flatMap((s) => s.findings).filter((f) => f.rule === 'integer-data-granularity').length).toBeGreaterThan(0);
   });
 });
+
+describe('plumbline scan: what follows another analysis is not a contrast of these groups', () => {
+  it('leaves alone a trend printed after the F of another outcome whose groups are not printed', () => {
+    const c = contrastsFixture.oneWay[0]!;
+    const text = [
+      anovaSentence(c, ['spaced', 'massed', 'interleaved']),
+      `Confidence differed too, F(2, ${c.anova.dfError}) = 3.90, p = .026, with a linear trend, t(${c.anova.dfError}) = 2.70, p = .009.`,
+    ].join(' ');
+    expect(rulesOf(scanTextJson(text), 'contrast-mismatch').flat()).toEqual([]);
+  });
+});

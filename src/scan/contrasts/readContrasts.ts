@@ -46,6 +46,8 @@ export function readContrasts(text: string, results: readonly ReportedResult[], 
       open = { result, family };
       return null;
     }
+    // Another omnibus F (of another outcome, say, whose groups are not printed) closes the family: what follows is its.
+    if (result.kind === 'F' && result.tableRow === undefined && !(result.df.length === 2 && result.df[0]!.value === 1)) open = null;
     if (open === null || result.tableRow !== undefined || result.postHoc || result.value === null || result.valueComparator !== '=') return null;
     if (result.start - open.result.end > LOOK_BACK) return null;
     const { family: groups } = open;

@@ -104,13 +104,13 @@ export function readPrintedComparisons(text: string, results: readonly ReportedR
   return results.map((result, index): PrintedComparison[] | null => {
     const family = families[index];
     if (!family) return null;
-    // The stretch ends at the next F of another analysis (one opening a family, or on other error df; an F(1, df) on
-    // these df is a contrast of these groups) or LOOK_BACK characters on.
+    // The stretch ends at the next F of another analysis (one opening a family, on other error df, or another omnibus
+    // test; an F(1, df) on these df is a contrast of these groups) or LOOK_BACK characters on.
     let nextF = text.length;
     for (let j = index + 1; j < results.length && results[j]!.start < result.end + LOOK_BACK; j++) {
       const other = results[j]!;
       if (other.kind !== 'F' || other.tableRow !== undefined) continue;
-      if (families[j] || other.df[1]?.value !== family.errorDf) {
+      if (families[j] || other.df[1]?.value !== family.errorDf || other.df[0]?.value !== 1) {
         nextF = other.start;
         break;
       }
