@@ -1,6 +1,7 @@
 import type { FactorialCellSet, FactorialLink } from '../scan/types.js';
 import { factorialAnovaRange, type FactorialEffectRange, type SumOfSquaresType } from '../stats/factorialFromCells.js';
 import { roundingInterval } from '../stats/reportedNumber.js';
+import type { NumberInterval } from '../stats/monotoneImage.js';
 
 /**
  * The ranges of a linked effect's F, p and partial eta squared under sums
@@ -64,4 +65,63 @@ export function describeSizes(set: FactorialCellSet, assumedN: number | null): s
   if (assumedN !== null) return ` No n is printed with the cells: equal ns of ${assumedN} per cell are assumed from the error df, so this is at most a warning.`;
   const total = set.cells.reduce((sum, cell) => sum + (cell.n ?? 0), 0);
   return set.nSource === 'statement' ? ` (ns from the statement of n per cell; N = ${total})` : ` (N = ${total})`;
+}
+
+/** What a printed F test states, for comparison with each type's ranges: predicates say whether a range fits the printed number. */
+export interface PrintedEffectTest {
+  /** The printed df; absent when the link already matched them to the design. */
+  df?: { df1: number; df2: number };
+  f: NumberInterval;
+  /** null when no p is printed. */
+  pFits: ((range: NumberInterval) => boolean) | null;
+  /** null when no partial eta squared is printed. */
+  partialEtaSquaredFits: ((range: NumberInterval) => boolean) | null;
+}
+
+/** One type's verdict on each printed number (null: not printed). */
+export interface TypeVerdict<Effect> {
+  type: SumOfSquaresType;
+  effect: Effect;
+  df: boolean;
+  f: boolean;
+  p: boolean | null;
+  partialEtaSquared: boolean | null;
+}
+
+export type UnmatchedPart = 'df' | 'F' | 'p' | 'partial eta squared';
+
+/**
+ * Which types of sums of squares reproduce a printed F test: every printed
+ * number within the type's range. The `cells` command and
+ * cell-statistics-test-mismatch both decide with this, so they cannot
+ * disagree. `unmatched` names what no type fits (empty when some type
+ * reproduces the test, or when only the combination fails).
+ */
+export function compareWithTypes<Effect extends { df1: number; df2: number; f: NumberInterval; p: NumberInterval; partialEtaSquared: NumberInterval }>(
+  ranges: ReadonlyArray<{ type: SumOfSquaresType; effect: Effect }>,
+  printed: PrintedEffectTest,
+): { byType: TypeVerdict<Effect>[]; reproducedBy: TypeVerdict<Effect>[]; unmatched: UnmatchedPart[] } {
+  const byType = ranges.map(({ type, effect }): TypeVerdict<Effect> => ({
+    type,
+    effect,
+    df: printed.df === undefined || (printed.df.df1 === effect.df1 && printed.df.df2 === effect.df2),
+    f: overlapsWithSlack(effect.f, printed.f),
+    p: printed.pFits === null ? null : printed.pFits(effect.p),
+    partialEtaSquared: printed.partialEtaSquaredFits === null ? null : printed.partialEtaSquaredFits(effect.partialEtaSquared),
+  }));
+  const reproducedBy = byType.filter((check) => check.df && check.f && check.p !== false && check.partialEtaSquared !== false);
+  const unmatched: UnmatchedPart[] = [];
+  if (reproducedBy.length === 0) {
+    if (!byType.some((check) => check.df)) unmatched.push('df');
+    if (!byType.some((check) => check.f)) unmatched.push('F');
+    if (byType.every((check) => check.p === false)) unmatched.push('p');
+    if (byType.every((check) => check.partialEtaSquared === false)) unmatched.push('partial eta squared');
+  }
+  return { byType, reproducedBy, unmatched };
+}
+
+/** A range meets a printed number's rounding interval (with a relative slack of 1e-9 for floating point). */
+export function overlapsWithSlack(range: NumberInterval, printed: NumberInterval): boolean {
+  const slack = 1e-9 * Math.max(1, Math.abs(printed.high));
+  return range.low <= printed.high + slack && range.high >= printed.low - slack;
 }

@@ -9,6 +9,7 @@ import {
   type Term,
 } from '../stats/factorialFromCells.js';
 import type { NumberInterval } from '../stats/monotoneImage.js';
+import { compareWithTypes, overlapsWithSlack } from '../checks/factorialCells.js';
 import { CellsInputError, type CellsInput, type PrintedValue, type ReportedEffect } from './cellsInput.js';
 
 /**
@@ -92,15 +93,10 @@ function sameFactors(written: readonly string[], term: Term, factorNames: readon
   return wanted.length === given.length && wanted.every((name, i) => name === given[i]);
 }
 
-function overlaps(range: NumberInterval, printed: NumberInterval): boolean {
-  const slack = 1e-9 * Math.max(1, Math.abs(printed.high));
-  return range.low <= printed.high + slack && range.high >= printed.low - slack;
-}
-
 function pAgrees(range: NumberInterval, reported: NonNullable<ReportedEffect['p']>): boolean {
   if (reported.relation === '<') return range.low < reported.value.value;
   if (reported.relation === '>') return range.high > reported.value.value;
-  return overlaps(range, reported.value.interval);
+  return overlapsWithSlack(range, reported.value.interval);
 }
 
 function box(value: PrintedValue): NumberInterval {
@@ -142,24 +138,19 @@ export function analyseCells(input: CellsInput, file: string, options: { cellN?:
     if (t < 0) {
       throw new CellsInputError(`${file}, reported effect ${index + 1} ("${effect.text}"): "${effect.factors.join(' x ')}" is not an effect of the design (factors: ${input.factors.join(', ')})`);
     }
-    const byType = tables.map(({ type, effects }): CellsTypeCheck => {
-      const row = effects[t]!;
-      return {
-        type,
-        df: effect.df1 === row.df1 && effect.df2 === row.df2,
-        f: overlaps(row.range.f, effect.f.interval),
-        p: effect.p === null ? null : pAgrees(row.range.p, effect.p),
-        partialEtaSquared: effect.partialEtaSquared === null ? null : overlaps(row.range.partialEtaSquared, effect.partialEtaSquared.interval),
-      };
-    });
-    const reproducedBy = byType.filter((check) => check.df && check.f && check.p !== false && check.partialEtaSquared !== false).map((check) => check.type);
-    const unmatched: CellsReportedCheck['unmatched'] = [];
-    if (reproducedBy.length === 0) {
-      if (!byType.some((check) => check.df)) unmatched.push('df');
-      if (!byType.some((check) => check.f)) unmatched.push('F');
-      if (byType.every((check) => check.p === false)) unmatched.push('p');
-      if (byType.every((check) => check.partialEtaSquared === false)) unmatched.push('partial eta squared');
-    }
+    // The one comparison cell-statistics-test-mismatch makes too (checks/factorialCells.ts).
+    const compared = compareWithTypes(
+      tables.map(({ type, effects }) => ({ type, effect: { df1: effects[t]!.df1, df2: effects[t]!.df2, ...effects[t]!.range } })),
+      {
+        df: { df1: effect.df1, df2: effect.df2 },
+        f: effect.f.interval,
+        pFits: effect.p === null ? null : (range) => pAgrees(range, effect.p!),
+        partialEtaSquaredFits: effect.partialEtaSquared === null ? null : (range) => overlapsWithSlack(range, effect.partialEtaSquared!.interval),
+      },
+    );
+    const byType = compared.byType.map(({ type, df, f, p, partialEtaSquared }): CellsTypeCheck => ({ type, df, f, p, partialEtaSquared }));
+    const reproducedBy = compared.reproducedBy.map((check) => check.type);
+    const unmatched: CellsReportedCheck['unmatched'] = compared.unmatched;
     const verdict = reproducedBy.length > 0 ? 'reproduced' : 'not reproduced';
     return {
       text: effect.text,

@@ -5,6 +5,7 @@ import { findTextTables, findUnrecognisedTables, readTables, type RowCompletion,
 import { readDescriptives } from './descriptives/index.js';
 import { paragraphsOf, readFactorialCells } from './factorial/index.js';
 import { readComparisons } from './comparisons/readComparisons.js';
+import { familiesOf, readAncova, readContrasts, readPrintedComparisons } from './contrasts/index.js';
 import type { ReportedNumber, ReportedResult, ScanOutput } from './types.js';
 
 /** What the scanner needs of a document: its text, the tables its format marks up, and its regions. */
@@ -263,8 +264,20 @@ export function scanDocument(document: ScannableDocument): DocumentScan {
     delete results[index]!.descriptives;
   });
   // Pairwise comparisons after an ANOVA, linked to its groups and error term (needs the links above).
-  readComparisons(text, results, paragraphsOf(text)).forEach((link, index) => {
+  const paragraphs = paragraphsOf(text);
+  readComparisons(text, results, paragraphs).forEach((link, index) => {
     if (link !== null) results[index]!.postHoc = link;
+  });
+  // Planned contrasts, and comparisons printed without a t, after an ANOVA whose groups are printed (needs the links above).
+  const families = familiesOf(text, results, written.context.meanSquareErrors ?? []);
+  readContrasts(text, results, paragraphs, families).forEach((link, index) => {
+    if (link !== null) results[index]!.contrast = link;
+  });
+  readPrintedComparisons(text, results, families).forEach((found, index) => {
+    if (found !== null) results[index]!.printedComparisons = { family: families[index]!, items: found };
+  });
+  readAncova(text, results, paragraphs).forEach((link, index) => {
+    if (link !== null) results[index]!.ancova = link;
   });
   return {
     results,

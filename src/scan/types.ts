@@ -159,6 +159,85 @@ export interface ReportedResult {
    * groups and error mean square it is computed from (scan/comparisons).
    */
   postHoc?: PostHocLink;
+  /**
+   * For a t (or an F on one df) written as a planned contrast of an ANOVA's
+   * groups ("contrast (-1, -1, 2)", "a linear trend", "the two training
+   * groups against control"), its weights and the ANOVA's groups and error
+   * terms (scan/contrasts).
+   */
+  contrast?: ContrastLink;
+  /**
+   * For an ANOVA's F: the pairwise comparisons printed after it without a t
+   * (Tukey's "q = 4.12", a mean difference with only its SE or CI), with the
+   * groups and error terms they follow from (scan/contrasts).
+   */
+  printedComparisons?: { family: ComparisonFamily; items: PrintedComparison[] };
+  /** For an F of an analysis of covariance: the groups' sample and the covariates stated (scan/contrasts). */
+  ancova?: AncovaLink;
+}
+
+/** A group of an ANOVA as the contrast and comparison readers use it: its mean's range over rounding, and its n. */
+export interface FamilyGroup {
+  label: string;
+  mean: { low: number; high: number };
+  n: number;
+}
+
+/** One way of knowing the error mean square of an ANOVA: pooled from the SDs, printed ("MSE = 0.87"), or MS_between / F. */
+export interface ErrorReading {
+  source: 'sds' | 'printed' | 'anova';
+  meanSquare: { low: number; high: number };
+}
+
+/** The groups and error term of the ANOVA a contrast or comparison belongs to. */
+export interface ComparisonFamily {
+  groups: FamilyGroup[];
+  /** Every reading of the error mean square the document allows (at least one). */
+  errorReadings: ErrorReading[];
+  errorDf: number;
+  /** The ANOVA as printed ("F(2, 57) = 4.21"). */
+  family: string;
+  /** Sizes not printed with the groups but taken from elsewhere. */
+  sizesAssumed: boolean;
+}
+
+/** A planned contrast linked to its ANOVA's groups. */
+export interface ContrastLink extends ComparisonFamily {
+  /** One weight per group, in the groups' order. */
+  weights: number[];
+  /** How the weights were given: printed numbers, a named polynomial trend, or words naming the groups. */
+  reading: 'weights' | 'trend' | 'words';
+  /** The words that give them ("(-1, -1, 2)", "linear trend", "the two training groups against control"). */
+  weightsText: string;
+}
+
+/** A pairwise comparison printed without a t: Tukey's q, or a mean difference with its SE or CI. */
+export interface PrintedComparison {
+  text: string;
+  start: number;
+  end: number;
+  /** The pair (indices into the family's groups), when the means or names printed tell it; null: any pair may be meant. */
+  pair: [number, number] | null;
+  q: ReportedNumber | null;
+  /** q's printed (k, df), when printed ("q(3, 57) = 4.12"). */
+  qDf: [number, number] | null;
+  difference: ReportedNumber | null;
+  se: ReportedNumber | null;
+  interval: { level: number; low: ReportedNumber; high: ReportedNumber } | null;
+  p: ReportedP | null;
+  /** The adjustment named between the ANOVA and the comparison, or null. */
+  method: PostHocLink['method'] | null;
+}
+
+/** An F of an analysis of covariance, with what the document says of its sample and covariates. */
+export interface AncovaLink {
+  /** The group effect (df1 = k - 1) or a covariate's own F (df1 = 1). */
+  role: 'groups' | 'covariate';
+  /** The number of groups and their total size, from the group statistics printed in the paragraph. */
+  groups: number;
+  totalN: number;
+  /** The covariates as the text names them, and how many; null when not countable. */
+  covariates: { text: string; count: number } | null;
 }
 
 /** A pairwise comparison's family: the groups of the ANOVA before it, its error term, and the adjustment stated. */

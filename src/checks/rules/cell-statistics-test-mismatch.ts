@@ -4,9 +4,8 @@ import { describeStatistic } from '../describe.js';
 import { effectAgrees } from '../effectAgreement.js';
 import { formatP, formatRange, formatValue } from '../format.js';
 import { crossesAlpha, pAgrees, printedSignificance, recomputedSignificance } from '../pAgreement.js';
-import { describeCellSet, describeSizes, effectName, linkedEffectRanges, TYPE_NAMES } from '../factorialCells.js';
+import { compareWithTypes, describeCellSet, describeSizes, effectName, linkedEffectRanges, TYPE_NAMES } from '../factorialCells.js';
 import { roundingInterval } from '../../stats/reportedNumber.js';
-import type { NumberInterval } from '../../stats/monotoneImage.js';
 
 const optionsSchema = z
   .object({
@@ -18,11 +17,6 @@ const optionsSchema = z
   .strict();
 
 type Options = z.infer<typeof optionsSchema>;
-
-function overlaps(range: NumberInterval, printed: NumberInterval): boolean {
-  const slack = 1e-9 * Math.max(1, Math.abs(printed.high));
-  return range.low <= printed.high + slack && range.high >= printed.low - slack;
-}
 
 const F_DIGITS = 2;
 
@@ -52,14 +46,11 @@ export const cellStatisticsTestMismatch: CheckModule<Options> = {
     if (ranges.length === 0) return [];
     const printedF = roundingInterval(result.value);
     const pes = result.effects.find((effect) => effect.kind === 'partial-eta-squared' && effect.comparator === '=');
-    const checks = ranges.map(({ type, effect }) => ({
-      type,
-      effect,
-      f: overlaps(effect.f, printedF),
-      p: result.p === null ? null : pAgrees(result.p, effect.p, context.options.allowTruncatedP),
-      pes: pes === undefined ? null : effectAgrees(pes.value, effect.partialEtaSquared),
-    }));
-    const reproducedBy = checks.filter((check) => check.f && check.p !== false && check.pes !== false);
+    const { byType: checks, reproducedBy, unmatched } = compareWithTypes(ranges, {
+      f: printedF,
+      pFits: result.p === null ? null : (range) => pAgrees(result.p!, range, context.options.allowTruncatedP),
+      partialEtaSquaredFits: pes === undefined ? null : (range) => effectAgrees(pes.value, range),
+    });
     const describeRanges = (list: typeof checks): string => {
       // Types that give the same ranges (a balanced design, or an effect the types agree on) are named together.
       const byText = new Map<string, string[]>();
@@ -85,10 +76,6 @@ export const cellStatisticsTestMismatch: CheckModule<Options> = {
       return [{ messageId: 'single-type', severity: 'note', data: { ...common, type: TYPE_NAMES[reproducedBy[0]!.type], ranges: describeRanges(reproducedBy) } }];
     }
     if (reproducedBy.length > 0) return [];
-    const unmatched: string[] = [];
-    if (!checks.some((check) => check.f)) unmatched.push('F');
-    if (checks.every((check) => check.p === false)) unmatched.push('p');
-    if (checks.every((check) => check.pes === false)) unmatched.push('partial eta squared');
     const pUnion = { low: Math.min(...checks.map((check) => check.effect.p.low)), high: Math.max(...checks.map((check) => check.effect.p.high)) };
     const draft: FindingDraft = {
       messageId: 'mismatch',

@@ -19,6 +19,9 @@ import { integerDataGranularity } from './integer-data-granularity.js';
 import { rSquaredMismatch } from './r-squared-mismatch.js';
 import { cellStatisticsTestMismatch } from './cell-statistics-test-mismatch.js';
 import { postHocComparisonMismatch } from './post-hoc-comparison-mismatch.js';
+import { contrastMismatch } from './contrast-mismatch.js';
+import { postHocDifferenceMismatch } from './post-hoc-difference-mismatch.js';
+import { ancovaDfMismatch } from './ancova-df-mismatch.js';
 
 /** Every check module by id; the id is also the file name and the rules/<id>.json entry. */
 export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries(
@@ -43,5 +46,8 @@ export const checkModules: Record<string, CheckModule<any>> = Object.fromEntries
     integerDataGranularity,
     cellStatisticsTestMismatch,
     postHocComparisonMismatch,
+    contrastMismatch,
+    postHocDifferenceMismatch,
+    ancovaDfMismatch,
   ].map((module) => [module.id, module]),
 );

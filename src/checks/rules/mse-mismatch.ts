@@ -27,12 +27,74 @@ export function linkedMeanSquareError(result: ReportedResult, errors: readonly P
   return null;
 }
 
+/**
+ * The MSE printed inside a restatement of a table's result ("... as Table 2 shows, F(2, 57) = 8.40, MSE = 0.87, p =
+ * .001"), or just after it in the same sentence with no other test between.
+ */
+function meanSquareErrorAt(span: { start: number; end: number }, errors: readonly PrintedMeanSquareError[], text: string): PrintedMeanSquareError | null {
+  const i = partitionPoint(errors.length, (j) => errors[j]!.start < span.start);
+  const error = errors[i];
+  if (error === undefined || error.start > span.end + LINK_REACH) return null;
+  if (error.start >= span.end) {
+    const between = text.slice(span.end, error.start);
+    if (SENTENCE_END.test(between) || OTHER_TEST.test(between)) return null;
+  }
+  return error;
+}
+
+/** A test written between a result and an MSE: the MSE is that test's. */
+const OTHER_TEST = /\b(?:F|t|χ2|chi2)\s?\(/;
+
+/** The error mean square a table row's error row prints: SS / df where it prints the SS, else its MS; null without either. */
+function errorRowMeanSquare(result: ReportedResult): { range: NumberInterval; from: string; atPrinted: number } | null {
+  const row = result.tableRow?.errorRow;
+  if (!row || result.df.length !== 2) return null;
+  const df = row.cells.df ?? row.cells.df2;
+  // The error row must be this F's error term: its df the F's second df.
+  if (df === undefined || df.decimals !== 0 || df.value !== result.df[1]!.value || !(df.value > 0)) return null;
+  const ss = row.cells.ss;
+  if (ss !== undefined && ss.value > 0) {
+    const box = roundingInterval(ss);
+    return { range: { low: box.low / df.value, high: box.high / df.value }, from: `SS = ${ss.text} on ${df.text} df in its "${row.rowLabel}" row`, atPrinted: ss.value / df.value };
+  }
+  const ms = row.cells.ms;
+  if (ms !== undefined && ms.value > 0) return { range: roundingInterval(ms), from: `MS = ${ms.text} in its "${row.rowLabel}" row`, atPrinted: ms.value };
+  return null;
+}
+
 function overlaps(a: NumberInterval, b: NumberInterval): boolean {
   const slack = 1e-9 * Math.max(1, Math.abs(a.high), Math.abs(b.high));
   return a.low <= b.high + slack && b.low <= a.high + slack;
 }
 
 const two = (v: number) => formatValue(v, 2);
+
+/**
+ * A table's F restated in the text with an MSE: the MSE against the table's error row (SS / df, or its MS). Null when
+ * the result is no such restatement (the one-way reading below then applies); [] when the MSE fits.
+ */
+function tableDrafts(result: ReportedResult, errors: readonly PrintedMeanSquareError[], text: string): ReturnType<CheckModule['run']> | null {
+  if (result.tableRow === undefined || !result.alsoAt) return null;
+  const expected = errorRowMeanSquare(result);
+  if (expected === null) return null;
+  const error = result.alsoAt.map((span) => meanSquareErrorAt(span, errors, text)).find((found) => found !== null) ?? null;
+  if (error === null) return null;
+  if (overlaps(roundingInterval(error.value), expected.range)) return [];
+  const caption = result.tableRow.caption;
+  return [
+    {
+      messageId: 'mseFromTable',
+      data: {
+        statistic: describeStatistic(result),
+        mse: error.text,
+        table: caption ? ` (${caption})` : '',
+        from: expected.from,
+        recomputed: formatValue(expected.atPrinted, 3),
+        recomputedRange: formatRange(expected.range.low, expected.range.high, (v) => formatValue(v, 3)),
+      },
+    },
+  ];
+}
 
 /**
  * A one-way F printed with its mean squared error and the groups' means,
@@ -44,12 +106,16 @@ export const mseMismatch: CheckModule<z.infer<typeof optionsSchema>> = {
   appliesTo: ['F'],
   optionsSchema,
   messages: {
+    mseFromTable:
+      'The MSE printed with {statistic} ({mse}) is not the error mean square of the ANOVA table the test is restated from{table}: {from} gives {recomputed} ({recomputedRange} allowing for its rounding).',
     mseFromSds:
       'The MSE printed with {statistic} ({mse}) does not follow from the group SDs and sizes reported with it ({groups}): their pooled variance, the one-way MSE, is {pooled} ({pooledRange} allowing for the rounding of every SD).{provenance}',
     fFromMse:
       '{statistic} does not follow from its printed MSE ({mse}) and the group means and sizes reported with it ({groups}): the means give MS_between = {between} ({betweenRange} allowing for their rounding), so F = {recomputed} ({recomputedRange} allowing for the rounding of the MSE too).{provenance}',
   },
   run(result, context) {
+    const fromTable = tableDrafts(result, context.document.meanSquareErrors ?? [], context.text);
+    if (fromTable !== null) return fromTable;
     const set = result.descriptives;
     if (!set || !result.value || result.valueComparator !== '=' || result.df.length !== 2) return [];
     const error = linkedMeanSquareError(result, context.document.meanSquareErrors ?? [], context.results[context.index + 1], context.text);

@@ -56,7 +56,7 @@ function methodOf(word: string): PostHocLink['method'] {
 }
 
 /** The method named last in `stretch`, or null. */
-function lastMethod(stretch: string): { method: PostHocLink['method']; text: string } | null {
+export function lastMethod(stretch: string): { method: PostHocLink['method']; text: string } | null {
   let found: { method: PostHocLink['method']; text: string } | null = null;
   METHOD.lastIndex = 0;
   for (let match = METHOD.exec(stretch); match !== null; match = METHOD.exec(stretch)) found = { method: methodOf(match[0]), text: match[0] };
@@ -65,7 +65,7 @@ function lastMethod(stretch: string): { method: PostHocLink['method']; text: str
 
 
 
-type Family = Pick<PostHocLink, 'groups' | 'errorMeanSquare' | 'errorDf' | 'sizesAssumed'>;
+export type Family = Pick<PostHocLink, 'groups' | 'errorMeanSquare' | 'errorDf' | 'sizesAssumed'>;
 
 /** The groups of a one-way set, with their mean ranges and the pooled error; null without every n and SD. */
 function oneWayFamily(set: DescriptiveSet): Family | null {
@@ -90,7 +90,7 @@ function oneWayFamily(set: DescriptiveSet): Family | null {
 }
 
 /** A factor's levels with their n-weighted marginal means, and the cells' pooled error; null unless a main effect. */
-function marginalFamily(link: FactorialLink): Family | null {
+export function marginalFamily(link: FactorialLink): Family | null {
   if (link.term.length !== 1) return null;
   const factor = link.term[0]!;
   const { set } = link;

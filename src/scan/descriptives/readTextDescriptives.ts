@@ -17,6 +17,7 @@ import { normaliseText } from '../normalise.js';
 import { parseReportedNumber } from '../../stats/reportedNumber.js';
 import { commaNumberAsPoint } from '../cursor.js';
 import type { ReportedNumber } from '../types.js';
+import { namesAdjustedMeans } from '../contrasts/adjustedMeans.js';
 
 /** One group's numbers as found in the text, with offsets into the original text. */
 export interface TextGroup {
@@ -80,12 +81,15 @@ export function readTextGroups(original: string): TextGroup[] {
   LABELLED.lastIndex = 0;
   for (let match = LABELLED.exec(text); match !== null; match = LABELLED.exec(text)) {
     const [whole, nBefore, mean, sd, nAfter] = match;
+    // An adjusted mean (ANCOVA) is no raw mean of the group.
+    if (namesAdjustedMeans(text, match.index + (whole.search(/M|mean/i) > 0 ? whole.search(/M|mean/i) : 0))) continue;
     add(parse(mean), parse(sd), nBefore ?? nAfter, match.index, match.index + whole.length);
   }
 
   DECLARED.lastIndex = 0;
   let readUpTo = 0;
   for (let match = DECLARED.exec(text); match !== null; match = DECLARED.exec(text)) {
+    if (namesAdjustedMeans(text, match.index)) continue;
     const from = Math.max(readUpTo, match.index + match[0].length);
     const to = sentenceEnd(text, from, MAX_DECLARED_SPAN);
     readUpTo = to;
