@@ -525,4 +525,20 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 9.04, [2, 58]],
     ]);
   });
+
+  it('reads on past a page\'s running head, page number or link that a page break put between two rows', () => {
+    const furniture = ['Page 12 of 30', '12 of 30', 'https://doi.org/10.1234/abc.2021.522', 'Table 2 (continued)', 'Smith et al.', 'BMC Psychiatry (2021) 21:522'];
+    for (const line of furniture) {
+      const document = scanTextJson(
+        `Table 2. ANOVA of the outcome measures\nOutcome   F   df   p   ηp2\nDepression   4.21   1, 58   .045   .07\nAnxiety   2.11   1, 58   .152   .04\n${line}\nQuality of life   6.66   1, 58   .012   .10\nSleep   8.30   1, 58   .006   .13\n\nNote. ηp2 = partial eta squared.\n`,
+      );
+      expect(readAs(document.statistics), line).toEqual([
+        ['F', 4.21, [1, 58]],
+        ['F', 2.11, [1, 58]],
+        ['F', 6.66, [1, 58]],
+        ['F', 8.3, [1, 58]],
+      ]);
+      expect(document.tablesNotRead, line).toEqual([]);
+    }
+  });
 });

@@ -1340,6 +1340,17 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       last = index;
       continue;
     }
+    // A page's running head, footer or page number where the table runs over a page break ("Page 12 of 30",
+    // "BMC Psychiatry (2021) 21:522", "Table 2 (continued)"), with the header printed again after it: passed over
+    // when the table's rows go on after it.
+    if (header !== null && dataRows > 0 && isPageFurniture(line.text)) {
+      let resume = index + 1;
+      while (resume < lines.length && resume - index <= MAX_PAGE_BREAK_LINES && (isBlank(lines[resume]!) || isPageFurniture(lines[resume]!.text) || readHeader(lines[resume]!) !== null)) resume++;
+      if (resume < lines.length && readRowLine(lines[resume]!, false) !== null) {
+        index = resume - 1;
+        continue;
+      }
+    }
     // A section line, or a blank line (web pages put them between rows), belongs to the table only when a data row follows it.
     const followed = leadsToDataRow(lines, index);
     if (isBlank(line) && followed) continue;
@@ -1433,6 +1444,28 @@ const SPARSE_ROW_LABEL = /^(?:error|residuals?|within|total|corrected total|subj
 /** A data line of a table: two or more values, or one after an error or total label. */
 const readFirstRowLine = keptPerLine((line) => readRowLineOf(line, true));
 const readLaterRowLine = keptPerLine((line) => readRowLineOf(line, false));
+
+/** Most lines a page break puts between two rows of a table (head, footer, page number, the header again). */
+const MAX_PAGE_BREAK_LINES = 6;
+
+/**
+ * A line a page puts around its text rather than the table's: a page number ("12", "Page 12 of 30", "12 of 30"),
+ * a link or DOI, a download or copyright line, a running head citing the journal ("Micromachines 2018, 9, 522",
+ * "BMC Psychiatry (2021) 21:522") or the authors ("Smith et al."), or "Table 2 (continued)".
+ */
+function isPageFurniture(text: string): boolean {
+  const trimmed = text.trim();
+  if (trimmed.length === 0 || trimmed.length > 160) return false;
+  return (
+    /^(?:page\s{1,3})?\d{1,4}(?:\s{1,3}(?:of|\/)\s{1,3}\d{1,4})?$/i.test(trimmed) ||
+    /\b\d{1,4}\s(?:of)\s\d{1,4}$/.test(trimmed) ||
+    /https?:\/\/|\bdoi\.org\/|\bdoi:\s?10\.|^downloaded from\b|\u00a9|\bcopyright\b/i.test(trimmed) ||
+    /\b(?:19|20)\d{2},\s\d{1,3},\s\d{1,6}\b/.test(trimmed) ||
+    /\((?:19|20)\d{2}\)\s\d{1,4}:\d{1,6}\b/.test(trimmed) ||
+    /^[A-Z][A-Za-z'\u2019-]{1,30}(?:\s(?:and|&)\s[A-Z][A-Za-z'\u2019-]{1,30})?\set\sal\.?$/.test(trimmed) ||
+    /^(?:table|tabla|tabela|tableau|tabelle)\s[A-Z]?\d{1,3}[a-z]?\.?\s\(?(?:continued|cont(?:'|\u2019)?d|cont\.|continuaci[oó]n|suite|fortsetzung)\)?\.?$/i.test(trimmed)
+  );
+}
 
 function readRowLine(line: Line, first: boolean): DataLine | null {
   return first ? readFirstRowLine(line) : readLaterRowLine(line);
