@@ -512,6 +512,14 @@ describe('results tables in the shapes papers print them', () => {
       ['chi2', 0.1, [1]],
       ['t', -0.177, [56]],
     ]);
+    // The groups named with their sizes are columns of their own, the label's name is "Characteristic".
+    const groups = scanTextJson(
+      'Table 1. Characteristics by group\nCharacteristic Experimental (n=29) Control (n=29) Chi-square (df) P value\nSex: female, n (%) 24 (83) 22 (76) 0.10 (1) .75\nSmoker, n (%) 7 (24) 6 (21) 0.11 (1) .74\n\nNext.\n',
+    );
+    expect(groups.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value])).toEqual([
+      ['chi2', 0.1, [1], 0.75],
+      ['chi2', 0.11, [1], 0.74],
+    ]);
   });
 
   it('reads a row whose label ends with an abbreviation\'s point ("Anger: FLD vs.") and whose label goes on below its values', () => {

@@ -839,9 +839,15 @@ function readHeaderOf(line: Line): HeaderLine | null {
     index = labelEnd;
   }
   if (labelEnd > MAX_LABEL_WORDS) return null;
+  // Groups named with their sizes between the label's name and the test's columns ("Characteristic
+  // Experimental (n=29) Control (n=29) Chi-square (df) ..."): a column each, not words of the label's name.
+  const grouped = labelEnd > 1 && ['label', 'unknown'].includes(classifyHeader(tokens[0]!.text).role) ? groupsWithSizes(text, tokens.slice(0, labelEnd)) : null;
+  if (grouped !== null) labelEnd = grouped.labelEnd;
   columns.push(labelEnd > 0 ? join(text, tokens[0]!, tokens[labelEnd - 1]!) : { text: '', start: 0, end: 0 });
   let named = 0;
+  // (Groups named with their sizes are columns the header names clearly: they count as neither known nor unknown.)
   let unknown = 0;
+  if (grouped !== null) columns.push(...grouped.groups);
   /** The column an unknown run of words was pushed as, while it is the last one. */
   let unknownRun = -1;
   let namesTest = false;
@@ -949,6 +955,29 @@ function headerPhraseLength(tokens: readonly Piece[], index: number): number {
 }
 
 /** "n = 30" after a group's name in a header ("Group A n = 30"): one token, part of the name, not an "n" column. */
+/** A name that ends with its group's size: "Experimental (n=29)", "Control (N = 30)", "n = 29". */
+const GROUP_SIZE_END = /(?:\(\s?[nN]\s?=\s?\d{1,6}\s?\)|^[nN] ?= ?\d{1,6})$/;
+
+/**
+ * The label's name and two or more groups' names after it, each group's ending with its size ("Characteristic
+ * Experimental (n=29) Control (n=29)", "Knowledge characteristics Rural (n = 300) Urban (n = 329)"): the first
+ * group's name runs back from its size over capitalised words only ("Usual care (n=31)"), never over the first
+ * word. Null when the words do not end with a group's size, or name one group only.
+ */
+function groupsWithSizes(text: string, tokens: readonly Piece[]): { labelEnd: number; groups: Piece[] } | null {
+  const sized = tokens.map((token, index) => (index > 0 && GROUP_SIZE_END.test(token.text) ? index : -1)).filter((index) => index >= 0);
+  if (sized.length < 2 || sized[sized.length - 1] !== tokens.length - 1) return null;
+  let firstStart = sized[0]!;
+  while (firstStart > 1 && /^\p{Lu}/u.test(tokens[firstStart - 1]!.text) && !GROUP_SIZE_END.test(tokens[firstStart - 1]!.text)) firstStart--;
+  const groups: Piece[] = [];
+  let start = firstStart;
+  for (const end of sized) {
+    groups.push(join(text, tokens[start]!, tokens[end]!));
+    start = end + 1;
+  }
+  return { labelEnd: firstStart, groups };
+}
+
 function withGroupSizes(text: string, tokens: readonly Piece[]): Piece[] {
   const merged: Piece[] = [];
   for (let index = 0; index < tokens.length; index++) {
