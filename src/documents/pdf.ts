@@ -3,7 +3,7 @@ import { accessSync, constants } from 'node:fs';
 import { delimiter, join } from 'node:path';
 import { mayHoldTable } from './pdfCompose.js';
 import { composePages, looksScanned, pdfDocument } from './pdfPages.js';
-import { locateWords, parseBboxPages, pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from './pdfWords.js';
+import { BboxWordLocator, pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from './pdfWords.js';
 import type { DocumentText } from './types.js';
 import { defaultLimits, formatMb, limitHint, MB, type Limits } from '../limits.js';
 import { checkPdfStreams, type PdfStreamLimits } from './pdfStreams.js';
@@ -224,10 +224,11 @@ async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: nu
   // The word boxes cost a second run: only for a PDF with a page that may hold a table, within the time left.
   const timeLeft = maxSeconds * 1000 - (Date.now() - started);
   if (!pages.some(mayHoldTable) || timeLeft <= 0) return { ok: true, pages, words: pages.map(() => null) };
-  const boxes = await runProcess(executable, ['-raw', '-bbox', ...common], timeLeft, MAX_BBOX_BYTES);
-  const boxPages = boxes.code === 0 && !boxes.timedOut && !boxes.overflow ? parseBboxPages(boxes.stdout) : [];
-  const words = pages.map((page, index) => (boxPages.length === pages.length ? locateWords(page, boxPages[index]!) : null));
-  return { ok: true, pages, words };
+  // The words are tied to the text as pdftotext writes them, not from its whole output afterwards (pdfWords.ts).
+  const locator = new BboxWordLocator(pages);
+  const boxes = await runProcess(executable, ['-raw', '-bbox', ...common], timeLeft, MAX_BBOX_BYTES, (chunk) => locator.push(chunk));
+  const read = boxes.code === 0 && !boxes.timedOut && !boxes.overflow && boxes.spawnError === null;
+  return { ok: true, pages, words: read ? locator.finish() : pages.map(() => null) };
 }
 
 function describePdftotextFailure(code: number | null, stderr: string, path: string): string {
@@ -247,7 +248,11 @@ interface ProcessRun {
   overflow: boolean;
 }
 
-function runProcess(executable: string, args: string[], timeoutMs: number, maxOutputBytes = Infinity): Promise<ProcessRun> {
+/**
+ * Runs a program to its end within `timeoutMs` and `maxOutputBytes` of standard output. With `consume`, each
+ * chunk of standard output goes to it as it comes instead of being kept (`stdout` is then empty).
+ */
+function runProcess(executable: string, args: string[], timeoutMs: number, maxOutputBytes = Infinity, consume?: (chunk: Buffer) => void): Promise<ProcessRun> {
   return new Promise((resolve) => {
     const child = spawn(executable, args, { stdio: ['ignore', 'pipe', 'pipe'], timeout: timeoutMs, killSignal: 'SIGKILL' });
     let timedOut = false;
@@ -268,7 +273,8 @@ function runProcess(executable: string, args: string[], timeoutMs: number, maxOu
         child.kill('SIGKILL');
         return;
       }
-      out.push(chunk);
+      if (consume !== undefined) consume(chunk);
+      else out.push(chunk);
     });
     let errBytes = 0;
     child.stderr.on('data', (chunk: Buffer) => {

@@ -8,12 +8,13 @@
  * (wrapped-labels.pdf), soft-06 with prose from soft-07 and soft-08
  * (two-column.pdf).
  */
+import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { findPageTables, groupLines, isNumberish, type PageWord } from '../../src/documents/pdfLayout.js';
-import { pdfjsPageText, locateWords, parseBboxPages, type PdfJsStyles, type PdfJsViewport } from '../../src/documents/pdfWords.js';
+import { BboxWordLocator, pdfjsPageText, locateWords, parseBboxPages, type PdfJsStyles, type PdfJsViewport } from '../../src/documents/pdfWords.js';
 import { composePage, writeTable } from '../../src/documents/pdfCompose.js';
 import { pdfDocument } from '../../src/documents/pdf.js';
 import type { DocumentTable, DocumentText } from '../../src/documents/types.js';
@@ -220,6 +221,54 @@ describe('composePage', () => {
   it('parses poppler word boxes, entities included', () => {
     const xhtml = '<doc><page width="595" height="842">\n<word xMin="1" yMin="2" xMax="3" yMax="4">R&amp;D</word>\n<word xMin="5" yMin="2" xMax="9" yMax="4">&lt;.001</word>\n</page>\n<page width="595" height="842">\n</page></doc>';
     expect(parseBboxPages(xhtml)).toEqual([[{ text: 'R&D', x0: 1, top: 2, x1: 3, bottom: 4 }, { text: '<.001', x0: 5, top: 2, x1: 9, bottom: 4 }], []]);
+  });
+});
+
+/** The words of poppler's output tied while it comes, in chunks of `size` bytes. */
+function locateInChunks(xhtml: string, pages: string[], size: number): ReturnType<BboxWordLocator['finish']> {
+  const bytes = new TextEncoder().encode(xhtml);
+  const locator = new BboxWordLocator(pages);
+  for (let at = 0; at < bytes.length; at += size) locator.push(bytes.subarray(at, at + size));
+  return locator.finish();
+}
+
+/** What the reader did before it read poppler's output as it came: the whole output parsed, then each page's words tied. */
+function locateWhole(xhtml: string, pages: string[]): (ReturnType<typeof locateWords>)[] {
+  const boxPages = parseBboxPages(xhtml);
+  return pages.map((page, index) => (boxPages.length === pages.length ? locateWords(page, boxPages[index]!) : null));
+}
+
+describe('BboxWordLocator (poppler word boxes tied while pdftotext writes them)', () => {
+  const wordLine = (text: string, x: number): string => `    <word xMin="${x}" yMin="2" xMax="${x + 4}" yMax="4">${text}</word>\n`;
+  const xhtml = `<doc>\n  <page width="595" height="842">\n${wordLine('R&amp;D', 1)}${wordLine('ηp2', 9)}${wordLine('&lt;.001', 20)}  </page>\n  <page width="595" height="842">\n${wordLine('Next', 1)}${wordLine('page', 9)}  </page>\n</doc>\n`;
+
+  it('gives the words and offsets of parsing the whole output, however it is cut into chunks (multi-byte letters cut too)', () => {
+    const pages = ['R&D ηp2\n<.001\n', 'Next page\n'];
+    const whole = locateWhole(xhtml, pages);
+    expect(whole[0]!.map((word) => [word.text, word.start, word.end])).toEqual([['R&D', 0, 3], ['ηp2', 4, 7], ['<.001', 8, 13]]);
+    for (const size of [1, 2, 3, 7, 64, 1 << 16]) expect(locateInChunks(xhtml, pages, size)).toEqual(whole);
+  });
+
+  it('gives null for a page whose words part from its text, and for every page when the page counts differ', () => {
+    const parted = ['R&D ηp2 <.002', 'Next page'];
+    expect(locateInChunks(xhtml, parted, 5)).toEqual(locateWhole(xhtml, parted));
+    expect(locateInChunks(xhtml, parted, 5)[0]).toBeNull();
+    expect(locateInChunks(xhtml, parted, 5)[1]).not.toBeNull();
+    expect(locateInChunks(xhtml, ['R&D ηp2 <.001'], 5)).toEqual([null]);
+    expect(locateInChunks(xhtml, ['a', 'b', 'c'], 5)).toEqual([null, null, null]);
+  });
+
+  it.skipIf(pdftotextMissing)('gives the same words as parsing the whole output on the PDF fixtures and the demo PDFs (pdftotext)', () => {
+    const files = [...['anova-blocks.pdf', 'two-level-header.pdf', 'wrapped-labels.pdf', 'two-column.pdf'].map(tablesFixture), ...DEMO_MANUSCRIPTS.map((name) => demo(`${name}.pdf`))];
+    for (const file of files) {
+      const run = (extra: string[]): string => execFileSync('pdftotext', [...extra, '-enc', 'UTF-8', '-eol', 'unix', file, '-'], { encoding: 'utf8', maxBuffer: 1 << 28 });
+      const pages = run(['-raw']).split('\f');
+      if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
+      const bbox = run(['-raw', '-bbox']);
+      const whole = locateWhole(bbox, pages);
+      expect(whole.some((words) => words !== null && words.length > 0), file).toBe(true);
+      for (const size of [997, 1 << 16]) expect(locateInChunks(bbox, pages, size), file).toEqual(whole);
+    }
   });
 });
 
