@@ -193,8 +193,11 @@ const STDERR_KEPT = 64 * 1024;
 /**
  * Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form
  * feeds; then, when a page may hold a table, `pdftotext -raw -bbox` for the
- * words' boxes, which are tied to the text page by page (a page whose words
- * cannot be tied is read without rebuilt tables).
+ * words' boxes of the pages from the first to the last such page, which are
+ * tied to the text page by page while pdftotext writes them (a page whose
+ * words cannot be tied is read without rebuilt tables). The text cannot be
+ * had from the word boxes alone (pdfWords.ts), hence two runs; their cost is
+ * poppler's, page by page, so the second covers only the pages it must.
  *
  * Both runs are bounded in time (the document's time budget: pdftotext is
  * killed when it runs out) and in output: the text run is stopped once it
@@ -208,9 +211,9 @@ async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: nu
   const executable = findPdftotext();
   if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
   // One page past the limit is read, to tell a PDF at the limit from one over it.
-  const common = ['-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-'];
+  const encoding = ['-enc', 'UTF-8', '-eol', 'unix'];
   const started = Date.now();
-  const run = await runProcess(executable, ['-raw', ...common], maxSeconds * 1000, maxDocumentMb * MB);
+  const run = await runProcess(executable, ['-raw', ...encoding, '-l', String(maxPages + 1), path, '-'], maxSeconds * 1000, maxDocumentMb * MB);
   if (run.timedOut) return { ok: false, error: `pdftotext took longer than ${maxSeconds} s on this PDF and was stopped ${limitHint('maxSecondsPerDocument', maxSeconds)}` };
   if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
   if (run.overflow) {
@@ -221,14 +224,21 @@ async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: nu
   // pdftotext ends every page with a form feed, so the last piece is what follows the last page.
   if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
   if (pages.length > maxPages) return { ok: false, error: tooManyPages(null, maxPages) };
-  // The word boxes cost a second run: only for a PDF with a page that may hold a table, within the time left.
+  // The word boxes cost a second run: only for a PDF with a page that may hold a table, within the time left,
+  // and only over the pages from the first to the last such page (poppler's work is page by page; the words of
+  // the other pages would not be looked at: composePage reads a page that may hold no table as text).
   const timeLeft = maxSeconds * 1000 - (Date.now() - started);
-  if (!pages.some(mayHoldTable) || timeLeft <= 0) return { ok: true, pages, words: pages.map(() => null) };
+  const mayHold = pages.map(mayHoldTable);
+  const first = mayHold.indexOf(true);
+  const last = mayHold.lastIndexOf(true);
+  if (first === -1 || timeLeft <= 0) return { ok: true, pages, words: pages.map(() => null) };
   // The words are tied to the text as pdftotext writes them, not from its whole output afterwards (pdfWords.ts).
-  const locator = new BboxWordLocator(pages);
-  const boxes = await runProcess(executable, ['-raw', '-bbox', ...common], timeLeft, MAX_BBOX_BYTES, (chunk) => locator.push(chunk));
+  const locator = new BboxWordLocator(pages.slice(first, last + 1));
+  const range = ['-f', String(first + 1), '-l', String(last + 1)];
+  const boxes = await runProcess(executable, ['-raw', '-bbox', ...encoding, ...range, path, '-'], timeLeft, MAX_BBOX_BYTES, (chunk) => locator.push(chunk));
   const read = boxes.code === 0 && !boxes.timedOut && !boxes.overflow && boxes.spawnError === null;
-  return { ok: true, pages, words: read ? locator.finish() : pages.map(() => null) };
+  const located = read ? locator.finish() : [];
+  return { ok: true, pages, words: pages.map((_, index) => located[index - first] ?? null) };
 }
 
 function describePdftotextFailure(code: number | null, stderr: string, path: string): string {

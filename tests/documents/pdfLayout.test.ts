@@ -427,6 +427,52 @@ describe.each(ENGINES)('PDF tables read with %s', (engine) => {
   });
 });
 
+/**
+ * A four-page PDF written here with pdf-lib (standard Helvetica): prose, a table, a table, prose. With
+ * pdftotext the word boxes are read only for the pages from the first to the last that may hold a table
+ * (pages 2 and 3 here), and tied to those pages' text.
+ */
+async function tablesInTheMiddlePdf(): Promise<string> {
+  const { PDFDocument, StandardFonts } = await import('pdf-lib');
+  const pdf = await PDFDocument.create();
+  const font = await pdf.embedFont(StandardFonts.Helvetica);
+  const prose = (text: string): void => {
+    const page = pdf.addPage([595, 842]);
+    page.drawText(text, { x: 40, y: 780, size: 10, font });
+  };
+  // (Each page's lines differ: lines repeated at the top or bottom of pages would be taken for running heads.)
+  const table = (before: string, caption: string, rows: string[][], after: string): void => {
+    const page = pdf.addPage([595, 842]);
+    page.drawText(before, { x: 40, y: 780, size: 10, font });
+    page.drawText(caption, { x: 40, y: 740, size: 10, font });
+    rows.forEach((row, r) => row.forEach((cell, c) => page.drawText(cell, { x: 40 + (c === 0 ? 0 : 100 + 60 * c), y: 715 - 15 * r, size: 10, font })));
+    page.drawText(after, { x: 40, y: 640, size: 10, font });
+  };
+  prose('An invented study of reading speed; the tables follow on the next pages.');
+  table('Reading speed was compared across the three conditions.', 'Table 1. Analysis of variance of reading speed', [['Source', 'SS', 'df', 'MS', 'F', 'p'], ['Condition', '12.40', '2', '6.20', '4.21', '.018'], ['Error', '130.22', '88', '1.48', '', '']], 'Speed differed between the conditions.');
+  table('Recall was compared between the two groups.', 'Table 2. Analysis of variance of recall', [['Term', 'Sum of squares', 'df', 'Mean square', 'F', 'p'], ['Group', '8.10', '1', '8.10', '5.02', '.028'], ['Residual', '96.80', '60', '1.61', '', '']], 'Recall differed between the groups.');
+  prose('The discussion of these invented results ends the manuscript.');
+  const { mkdtempSync, writeFileSync } = await import('node:fs');
+  const { tmpdir } = await import('node:os');
+  const { join } = await import('node:path');
+  const path = join(mkdtempSync(join(tmpdir(), 'plumbline-pdf-range-')), 'tables-in-the-middle.pdf');
+  writeFileSync(path, await pdf.save());
+  return path;
+}
+
+describe.skipIf(pdftotextMissing)('pdftotext word boxes for the pages that may hold tables', () => {
+  it('rebuilds the tables of pages 2 and 3 of four as pdf-parse does, each on its page', async () => {
+    const path = await tablesInTheMiddlePdf();
+    const [parsed, poppler] = await Promise.all(ENGINES.map((engine) => readOk(path, { pdfEngine: engine })));
+    const shape = (document: DocumentText): unknown => document.tables.map(({ caption, rows }) => ({ caption, rows }));
+    expect(poppler!.tables).toHaveLength(2);
+    expect(shape(poppler!)).toEqual(shape(parsed!));
+    expect(poppler!.tables.map((table) => poppler!.pageOf(table.start))).toEqual([2, 3]);
+    expect(poppler!.tables[1]!.rows[1]).toEqual(['Group', '8.10', '1', '8.10', '5.02', '.028']);
+    for (const table of poppler!.tables) expectCellsInText(poppler!, table);
+  });
+});
+
 describe.skipIf(pdftotextMissing)('both engines', () => {
   it.each(['anova-blocks.pdf', 'two-level-header.pdf', 'wrapped-labels.pdf', 'two-column.pdf'])('give the same tables for %s', async (name) => {
     const [parsed, poppler] = await Promise.all(ENGINES.map((engine) => readOk(tablesFixture(name), { pdfEngine: engine })));
