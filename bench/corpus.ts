@@ -20,6 +20,7 @@
  * paragraphs of results, about eight pages), against the same baseline,
  * pdftotext alone over them one after another; medians of three runs each.
  * Goal: the cold audit with all workers at most 1.5 times the baseline.
+ * Then where a dense PDF's time goes, stage by stage (bench/pdfStages.ts).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
@@ -30,6 +31,7 @@ import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
 import { printedP, seededRandom } from './seededRandom.js';
 import { writePdf } from './pdfWriter.js';
 import { asciiDenseDocument } from './denseText.js';
+import { printPdfStages } from './pdfStages.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const cli = join(here, '..', 'src', 'cli', 'main.js');
@@ -174,6 +176,7 @@ async function denseCorpus(root: string, caches: string, cores: number): Promise
   console.log(`cold, ${cores} workers, pdftotext: ${cold.toFixed(2)} s (runs ${colds.map((t) => t.toFixed(2)).join(', ')}; ${((DENSE_PDFS * DENSE_RESULTS) / cold).toFixed(0)} results/s)`);
   const ratio = cold / baseline;
   console.log(`ratio  result-dense PDFs cold / pdftotext alone: ${ratio.toFixed(2)}   goal <= 1.5: ${ratio <= 1.5 ? 'meets goal' : 'MISSES goal'}`);
+  printPdfStages(pdfs);
 }
 
 await main();

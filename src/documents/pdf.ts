@@ -3,7 +3,7 @@ import { accessSync, constants } from 'node:fs';
 import { delimiter, join } from 'node:path';
 import { mayHoldTable } from './pdfCompose.js';
 import { composePages, looksScanned, pdfDocument } from './pdfPages.js';
-import { locateWords, parseBboxPages, pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from './pdfWords.js';
+import { BboxWordLocator, pdfjsPageText, type LocatedWord, type PdfJsStyles, type PdfJsViewport } from './pdfWords.js';
 import type { DocumentText } from './types.js';
 import { defaultLimits, formatMb, limitHint, MB, type Limits } from '../limits.js';
 import { checkPdfStreams, type PdfStreamLimits } from './pdfStreams.js';
@@ -193,8 +193,11 @@ const STDERR_KEPT = 64 * 1024;
 /**
  * Runs `pdftotext -raw -enc UTF-8 <file> -` and splits its output at form
  * feeds; then, when a page may hold a table, `pdftotext -raw -bbox` for the
- * words' boxes, which are tied to the text page by page (a page whose words
- * cannot be tied is read without rebuilt tables).
+ * words' boxes of the pages from the first to the last such page, which are
+ * tied to the text page by page while pdftotext writes them (a page whose
+ * words cannot be tied is read without rebuilt tables). The text cannot be
+ * had from the word boxes alone (pdfWords.ts), hence two runs; their cost is
+ * poppler's, page by page, so the second covers only the pages it must.
  *
  * Both runs are bounded in time (the document's time budget: pdftotext is
  * killed when it runs out) and in output: the text run is stopped once it
@@ -208,9 +211,9 @@ async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: nu
   const executable = findPdftotext();
   if (executable === null) return { ok: false, error: 'pdftotext is not installed (it comes with poppler-utils); install it or use --pdf-engine pdf-parse' };
   // One page past the limit is read, to tell a PDF at the limit from one over it.
-  const common = ['-enc', 'UTF-8', '-eol', 'unix', '-l', String(maxPages + 1), path, '-'];
+  const encoding = ['-enc', 'UTF-8', '-eol', 'unix'];
   const started = Date.now();
-  const run = await runProcess(executable, ['-raw', ...common], maxSeconds * 1000, maxDocumentMb * MB);
+  const run = await runProcess(executable, ['-raw', ...encoding, '-l', String(maxPages + 1), path, '-'], maxSeconds * 1000, maxDocumentMb * MB);
   if (run.timedOut) return { ok: false, error: `pdftotext took longer than ${maxSeconds} s on this PDF and was stopped ${limitHint('maxSecondsPerDocument', maxSeconds)}` };
   if (run.spawnError) return { ok: false, error: `pdftotext could not be started (${run.spawnError})` };
   if (run.overflow) {
@@ -221,13 +224,21 @@ async function pagesWithPdftotext(path: string, maxPages: number, maxSeconds: nu
   // pdftotext ends every page with a form feed, so the last piece is what follows the last page.
   if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
   if (pages.length > maxPages) return { ok: false, error: tooManyPages(null, maxPages) };
-  // The word boxes cost a second run: only for a PDF with a page that may hold a table, within the time left.
+  // The word boxes cost a second run: only for a PDF with a page that may hold a table, within the time left,
+  // and only over the pages from the first to the last such page (poppler's work is page by page; the words of
+  // the other pages would not be looked at: composePage reads a page that may hold no table as text).
   const timeLeft = maxSeconds * 1000 - (Date.now() - started);
-  if (!pages.some(mayHoldTable) || timeLeft <= 0) return { ok: true, pages, words: pages.map(() => null) };
-  const boxes = await runProcess(executable, ['-raw', '-bbox', ...common], timeLeft, MAX_BBOX_BYTES);
-  const boxPages = boxes.code === 0 && !boxes.timedOut && !boxes.overflow ? parseBboxPages(boxes.stdout) : [];
-  const words = pages.map((page, index) => (boxPages.length === pages.length ? locateWords(page, boxPages[index]!) : null));
-  return { ok: true, pages, words };
+  const mayHold = pages.map(mayHoldTable);
+  const first = mayHold.indexOf(true);
+  const last = mayHold.lastIndexOf(true);
+  if (first === -1 || timeLeft <= 0) return { ok: true, pages, words: pages.map(() => null) };
+  // The words are tied to the text as pdftotext writes them, not from its whole output afterwards (pdfWords.ts).
+  const locator = new BboxWordLocator(pages.slice(first, last + 1));
+  const range = ['-f', String(first + 1), '-l', String(last + 1)];
+  const boxes = await runProcess(executable, ['-raw', '-bbox', ...encoding, ...range, path, '-'], timeLeft, MAX_BBOX_BYTES, (chunk) => locator.push(chunk));
+  const read = boxes.code === 0 && !boxes.timedOut && !boxes.overflow && boxes.spawnError === null;
+  const located = read ? locator.finish() : [];
+  return { ok: true, pages, words: pages.map((_, index) => located[index - first] ?? null) };
 }
 
 function describePdftotextFailure(code: number | null, stderr: string, path: string): string {
@@ -247,7 +258,11 @@ interface ProcessRun {
   overflow: boolean;
 }
 
-function runProcess(executable: string, args: string[], timeoutMs: number, maxOutputBytes = Infinity): Promise<ProcessRun> {
+/**
+ * Runs a program to its end within `timeoutMs` and `maxOutputBytes` of standard output. With `consume`, each
+ * chunk of standard output goes to it as it comes instead of being kept (`stdout` is then empty).
+ */
+function runProcess(executable: string, args: string[], timeoutMs: number, maxOutputBytes = Infinity, consume?: (chunk: Buffer) => void): Promise<ProcessRun> {
   return new Promise((resolve) => {
     const child = spawn(executable, args, { stdio: ['ignore', 'pipe', 'pipe'], timeout: timeoutMs, killSignal: 'SIGKILL' });
     let timedOut = false;
@@ -268,7 +283,8 @@ function runProcess(executable: string, args: string[], timeoutMs: number, maxOu
         child.kill('SIGKILL');
         return;
       }
-      out.push(chunk);
+      if (consume !== undefined) consume(chunk);
+      else out.push(chunk);
     });
     let errBytes = 0;
     child.stderr.on('data', (chunk: Buffer) => {

@@ -10,8 +10,9 @@
 export function keepAnswers<Answer extends string | number | boolean | null | readonly Readonly<object>[]>(answer: (text: string) => Answer, limit = 8192): (text: string) => Answer {
   const kept = new Map<string, Answer>();
   return (text) => {
+    // (No answer is undefined, so a miss needs no second look-up.)
     const known = kept.get(text);
-    if (known !== undefined || kept.has(text)) return known as Answer;
+    if (known !== undefined) return known;
     const fresh = answer(text);
     if (kept.size >= limit) kept.clear();
     kept.set(text, fresh);

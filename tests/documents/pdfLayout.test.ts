@@ -8,12 +8,13 @@
  * (wrapped-labels.pdf), soft-06 with prose from soft-07 and soft-08
  * (two-column.pdf).
  */
+import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { findPageTables, groupLines, isNumberish, type PageWord } from '../../src/documents/pdfLayout.js';
-import { pdfjsPageText, locateWords, parseBboxPages, type PdfJsStyles, type PdfJsViewport } from '../../src/documents/pdfWords.js';
+import { BboxWordLocator, pdfjsPageText, locateWords, parseBboxPages, type PdfJsStyles, type PdfJsViewport } from '../../src/documents/pdfWords.js';
 import { composePage, writeTable } from '../../src/documents/pdfCompose.js';
 import { pdfDocument } from '../../src/documents/pdf.js';
 import type { DocumentTable, DocumentText } from '../../src/documents/types.js';
@@ -223,6 +224,54 @@ describe('composePage', () => {
   });
 });
 
+/** The words of poppler's output tied while it comes, in chunks of `size` bytes. */
+function locateInChunks(xhtml: string, pages: string[], size: number): ReturnType<BboxWordLocator['finish']> {
+  const bytes = new TextEncoder().encode(xhtml);
+  const locator = new BboxWordLocator(pages);
+  for (let at = 0; at < bytes.length; at += size) locator.push(bytes.subarray(at, at + size));
+  return locator.finish();
+}
+
+/** What the reader did before it read poppler's output as it came: the whole output parsed, then each page's words tied. */
+function locateWhole(xhtml: string, pages: string[]): (ReturnType<typeof locateWords>)[] {
+  const boxPages = parseBboxPages(xhtml);
+  return pages.map((page, index) => (boxPages.length === pages.length ? locateWords(page, boxPages[index]!) : null));
+}
+
+describe('BboxWordLocator (poppler word boxes tied while pdftotext writes them)', () => {
+  const wordLine = (text: string, x: number): string => `    <word xMin="${x}" yMin="2" xMax="${x + 4}" yMax="4">${text}</word>\n`;
+  const xhtml = `<doc>\n  <page width="595" height="842">\n${wordLine('R&amp;D', 1)}${wordLine('ηp2', 9)}${wordLine('&lt;.001', 20)}  </page>\n  <page width="595" height="842">\n${wordLine('Next', 1)}${wordLine('page', 9)}  </page>\n</doc>\n`;
+
+  it('gives the words and offsets of parsing the whole output, however it is cut into chunks (multi-byte letters cut too)', () => {
+    const pages = ['R&D ηp2\n<.001\n', 'Next page\n'];
+    const whole = locateWhole(xhtml, pages);
+    expect(whole[0]!.map((word) => [word.text, word.start, word.end])).toEqual([['R&D', 0, 3], ['ηp2', 4, 7], ['<.001', 8, 13]]);
+    for (const size of [1, 2, 3, 7, 64, 1 << 16]) expect(locateInChunks(xhtml, pages, size)).toEqual(whole);
+  });
+
+  it('gives null for a page whose words part from its text, and for every page when the page counts differ', () => {
+    const parted = ['R&D ηp2 <.002', 'Next page'];
+    expect(locateInChunks(xhtml, parted, 5)).toEqual(locateWhole(xhtml, parted));
+    expect(locateInChunks(xhtml, parted, 5)[0]).toBeNull();
+    expect(locateInChunks(xhtml, parted, 5)[1]).not.toBeNull();
+    expect(locateInChunks(xhtml, ['R&D ηp2 <.001'], 5)).toEqual([null]);
+    expect(locateInChunks(xhtml, ['a', 'b', 'c'], 5)).toEqual([null, null, null]);
+  });
+
+  it.skipIf(pdftotextMissing)('gives the same words as parsing the whole output on the PDF fixtures and the demo PDFs (pdftotext)', () => {
+    const files = [...['anova-blocks.pdf', 'two-level-header.pdf', 'wrapped-labels.pdf', 'two-column.pdf'].map(tablesFixture), ...DEMO_MANUSCRIPTS.map((name) => demo(`${name}.pdf`))];
+    for (const file of files) {
+      const run = (extra: string[]): string => execFileSync('pdftotext', [...extra, '-enc', 'UTF-8', '-eol', 'unix', file, '-'], { encoding: 'utf8', maxBuffer: 1 << 28 });
+      const pages = run(['-raw']).split('\f');
+      if (pages.length > 1 && pages[pages.length - 1]!.trim() === '') pages.pop();
+      const bbox = run(['-raw', '-bbox']);
+      const whole = locateWhole(bbox, pages);
+      expect(whole.some((words) => words !== null && words.length > 0), file).toBe(true);
+      for (const size of [997, 1 << 16]) expect(locateInChunks(bbox, pages, size), file).toEqual(whole);
+    }
+  });
+});
+
 // ------------------------------------------------------------ fixtures
 
 const ENGINES = ['pdf-parse', 'pdftotext'] as const;
@@ -375,6 +424,52 @@ describe.each(ENGINES)('PDF tables read with %s', (engine) => {
       { kind: 'F', df: [5, 75], value: 6.3, p: '< 0.0001', row: 'VES' },
       { kind: 'F', df: [10, 75], value: 0.77, p: '= 0.6559', row: 'VES by Age' },
     ]);
+  });
+});
+
+/**
+ * A four-page PDF written here with pdf-lib (standard Helvetica): prose, a table, a table, prose. With
+ * pdftotext the word boxes are read only for the pages from the first to the last that may hold a table
+ * (pages 2 and 3 here), and tied to those pages' text.
+ */
+async function tablesInTheMiddlePdf(): Promise<string> {
+  const { PDFDocument, StandardFonts } = await import('pdf-lib');
+  const pdf = await PDFDocument.create();
+  const font = await pdf.embedFont(StandardFonts.Helvetica);
+  const prose = (text: string): void => {
+    const page = pdf.addPage([595, 842]);
+    page.drawText(text, { x: 40, y: 780, size: 10, font });
+  };
+  // (Each page's lines differ: lines repeated at the top or bottom of pages would be taken for running heads.)
+  const table = (before: string, caption: string, rows: string[][], after: string): void => {
+    const page = pdf.addPage([595, 842]);
+    page.drawText(before, { x: 40, y: 780, size: 10, font });
+    page.drawText(caption, { x: 40, y: 740, size: 10, font });
+    rows.forEach((row, r) => row.forEach((cell, c) => page.drawText(cell, { x: 40 + (c === 0 ? 0 : 100 + 60 * c), y: 715 - 15 * r, size: 10, font })));
+    page.drawText(after, { x: 40, y: 640, size: 10, font });
+  };
+  prose('An invented study of reading speed; the tables follow on the next pages.');
+  table('Reading speed was compared across the three conditions.', 'Table 1. Analysis of variance of reading speed', [['Source', 'SS', 'df', 'MS', 'F', 'p'], ['Condition', '12.40', '2', '6.20', '4.21', '.018'], ['Error', '130.22', '88', '1.48', '', '']], 'Speed differed between the conditions.');
+  table('Recall was compared between the two groups.', 'Table 2. Analysis of variance of recall', [['Term', 'Sum of squares', 'df', 'Mean square', 'F', 'p'], ['Group', '8.10', '1', '8.10', '5.02', '.028'], ['Residual', '96.80', '60', '1.61', '', '']], 'Recall differed between the groups.');
+  prose('The discussion of these invented results ends the manuscript.');
+  const { mkdtempSync, writeFileSync } = await import('node:fs');
+  const { tmpdir } = await import('node:os');
+  const { join } = await import('node:path');
+  const path = join(mkdtempSync(join(tmpdir(), 'plumbline-pdf-range-')), 'tables-in-the-middle.pdf');
+  writeFileSync(path, await pdf.save());
+  return path;
+}
+
+describe.skipIf(pdftotextMissing)('pdftotext word boxes for the pages that may hold tables', () => {
+  it('rebuilds the tables of pages 2 and 3 of four as pdf-parse does, each on its page', async () => {
+    const path = await tablesInTheMiddlePdf();
+    const [parsed, poppler] = await Promise.all(ENGINES.map((engine) => readOk(path, { pdfEngine: engine })));
+    const shape = (document: DocumentText): unknown => document.tables.map(({ caption, rows }) => ({ caption, rows }));
+    expect(poppler!.tables).toHaveLength(2);
+    expect(shape(poppler!)).toEqual(shape(parsed!));
+    expect(poppler!.tables.map((table) => poppler!.pageOf(table.start))).toEqual([2, 3]);
+    expect(poppler!.tables[1]!.rows[1]).toEqual(['Group', '8.10', '1', '8.10', '5.02', '.028']);
+    for (const table of poppler!.tables) expectCellsInText(poppler!, table);
   });
 });
 

@@ -28,12 +28,27 @@ const MAX_ROWS = 200;
 /** Most blank lines between rows. */
 const MAX_BLANKS = 2;
 
-let vocabulary: string[] | null = null;
+/**
+ * The known names, longest first, filed under their first character: at each place of a line only the names
+ * that start with its character can match, so the search tries a handful instead of the whole vocabulary (it
+ * ran for every line of prose). Within a first character the names keep their order, so ties fall as before.
+ */
+let vocabulary: Map<string, string[]> | null = null;
+
+function vocabularyByFirstCharacter(): Map<string, string[]> {
+  const byFirst = new Map<string, string[]>();
+  for (const name of knownHeaderNames().filter((name) => name.length >= 1).sort((a, b) => b.length - a.length)) {
+    const bucket = byFirst.get(name[0]!);
+    if (bucket === undefined) byFirst.set(name[0]!, [name]);
+    else bucket.push(name);
+  }
+  return byFirst;
+}
 
 /** The header's column names, if the line is made only of known names run together (at least two joined without a space). */
 export function splitGluedHeader(text: string): string[] | null {
   if (text.length > MAX_LINE || /\d\.\d/.test(text)) return null;
-  vocabulary ??= knownHeaderNames().filter((name) => name.length >= 1).sort((a, b) => b.length - a.length);
+  vocabulary ??= vocabularyByFirstCharacter();
   const lower = text.toLowerCase();
   const n = lower.length;
   // best[i]: fewest names covering lower[0, i); from[i]: where the last name starts.
@@ -44,7 +59,7 @@ export function splitGluedHeader(text: string): string[] | null {
     if (best[i] === Infinity) continue;
     let at = i;
     while (lower[at] === ' ') at++;
-    for (const name of vocabulary) {
+    for (const name of vocabulary.get(lower[at] ?? '') ?? []) {
       if (!lower.startsWith(name, at)) continue;
       const end = at + name.length;
       if (best[i]! + 1 < best[end]!) {

@@ -335,6 +335,10 @@ function piecesOf(text: string): ({ text: string; start: number; end: number } |
   }
   // (Words apart by wide gaps: found only for such a line, not for every line of prose.)
   if (/\t| {2,}/.test(text.trim())) return [...text.matchAll(/\S+(?: \S+)*/g)].map((match) => ({ text: match[0], start: match.index!, end: match.index! + match[0].length }));
+  // A line of prose after the title that does not end in a number or a bracket is one cell: neither a crushed
+  // row's values nor a df pair can end it. (Said before the pieces below are looked for; they come out as one
+  // cell for such a line too.)
+  if (!endsLikeValue(text)) return [onePiece(text)];
   // A crushed df row of pairs ("df 2, 57 1, 57") or statistic row of values with df ("F 4.21 (2, 57) 2.11 (1, 57)").
   const withPairs = crushedPairPieces(text);
   if (withPairs !== null) return withPairs;
@@ -344,16 +348,35 @@ function piecesOf(text: string): ({ text: string; start: number; end: number } |
   if (words.length >= 2 && /^[\u03c7\u03a7]$/.test(words[0]![0]) && /^[2\u00b2]$/.test(words[1]![0])) words.splice(0, 2, Object.assign([`${words[0]![0]} ${words[1]![0]}`], { index: words[0]!.index!, input: text }) as RegExpExecArray);
   let first = words.length;
   while (first > 0 && readCell(words[first - 1]![0], 'either').kind === 'number') first--;
-  if (first === 0 || first === words.length) {
-    const inner = text.trim();
-    return [{ text: inner, start: text.indexOf(inner), end: text.indexOf(inner) + inner.length }];
-  }
+  if (first === 0 || first === words.length) return [onePiece(text)];
   const nameEnd = words[first - 1]!.index! + words[first - 1]![0].length;
   const nameStart = words[0]!.index!;
   return [
     { text: text.slice(nameStart, nameEnd), start: nameStart, end: nameEnd },
     ...words.slice(first).map((word) => ({ text: word[0], start: word.index!, end: word.index! + word[0].length })),
   ];
+}
+
+/** The whole line, trimmed, as one cell. */
+function onePiece(text: string): { text: string; start: number; end: number } {
+  const inner = text.trim();
+  return { text: inner, start: text.indexOf(inner), end: text.indexOf(inner) + inner.length };
+}
+
+/**
+ * Whether the line's last word could be a value: it ends in a digit, a closing bracket or a star (the ends of
+ * CRUSHED_DF_PAIR and CRUSHED_VALUE_WITH_DF), or it reads as a number (readCell, which also takes "n.s."-like
+ * marks). Otherwise piecesOf gives the line as one cell.
+ */
+function endsLikeValue(text: string): boolean {
+  let end = text.length;
+  while (end > 0 && /\s/.test(text[end - 1]!)) end--;
+  if (end === 0) return false;
+  const last = text.charCodeAt(end - 1);
+  if ((last >= 48 && last <= 57) || last === 41 || last === 93 || last === 42) return true;
+  let start = end;
+  while (start > 0 && !/\s/.test(text[start - 1]!)) start--;
+  return readCell(text.slice(start, end), 'either').kind === 'number';
 }
 
 /** One value of a crushed df row or statistic row (see crushedPairPieces), standing between spaces. */
