@@ -53,11 +53,11 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
       } catch (error) {
         throw usageErrorOf(error);
       }
-      const { documentSchema } = await import('../report/model.js');
+      const { documentFromJson } = await import('../report/jsonLayoutSchema.js');
       const parseRecord = (text: string): DocumentOutput | null => {
         try {
-          const checked = documentSchema.safeParse(JSON.parse(text));
-          return checked.success ? checked.data : null;
+          const read = documentFromJson(JSON.parse(text));
+          return read.ok ? read.document : null;
         } catch {
           return null;
         }
