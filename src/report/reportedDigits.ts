@@ -26,7 +26,8 @@ export function reportedDown(value: number): number {
   const rounded = reported(value);
   if (!(rounded > value)) return rounded;
   // Stepping down from the nearest value and rounding again gives the short decimal, not 0.07883079999999999.
-  return Number((rounded - lastDigitUnit(rounded)).toPrecision(REPORTED_DIGITS));
+  // The step is a unit of the value's own last digit: 999999.5 rounds up to 1000000, whose unit is ten.
+  return Number((rounded - lastDigitUnit(value)).toPrecision(REPORTED_DIGITS));
 }
 
 /** The smallest value at REPORTED_DIGITS significant digits that is at least `value` (for an interval's high end). */
