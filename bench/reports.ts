@@ -29,7 +29,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { buildReport } from '../src/report/build.js';
 import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
-import type { Report } from '../src/report/model.js';
+import { readJsonReport } from '../src/report/jsonLayoutSchema.js';
 import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
 import { bestTime } from './bestTime.js';
 import { printedP, seededRandom } from './seededRandom.js';
@@ -133,7 +133,7 @@ async function main(): Promise<void> {
   const mergeJson = seconds(() => plumbline(['merge', jsonl, '--format', 'json', '--output', mergeJsonFile], root));
   const mergeHtml = seconds(() => plumbline(['merge', jsonl, '--format', 'html', '--output', mergeHtmlFile], root));
 
-  const report = JSON.parse(readFileSync(scanJson, 'utf8')) as Report;
+  const report = readJsonReport(readFileSync(scanJson, 'utf8'));
   const quarter = buildReport(report.documents.slice(0, Math.floor(report.documents.length / 4)));
   const results = report.summary.statistics;
   const jsonAll = bestTime(() => formatJson(report), 3);

@@ -1,5 +1,6 @@
 import type { DocumentOutput, FindingOutput, StatisticOutput, Summary, TableNotReadOutput } from './model.js';
-import type { DocumentRecord, FindingRecord, ResultRecord, SummaryRecord, TableNotReadRecord, Verdict, Where } from './jsonLayoutSchema.js';
+import type { DocumentRecord, FindingRecord, ResultRecord, SummaryRecord, TableNotReadRecord, Where } from './jsonLayoutSchema.js';
+import { verdictOf } from './verdict.js';
 
 /**
  * The layout of the JSON report and of each JSON Lines record (layout 2).
@@ -12,8 +13,9 @@ import type { DocumentRecord, FindingRecord, ResultRecord, SummaryRecord, TableN
  * text around its results) is written once per document: each result names
  * the span of its context window, and the window's text is in the
  * document's `passages`, the stretches of text around results, each written
- * once however many results it surrounds. A result-dense document used to
- * repeat most of its text twice per result this way (see bench/dense.ts).
+ * once however many results it surrounds. (Layout 1 wrote the text around
+ * each result with it, so a result-dense document repeated most of its text
+ * twice per result: bench/dense.ts, line (f).)
  *
  * `documentRecordOf` writes a document in this layout and `documentFromRecord`
  * reads it back into the model, field for field (tests/report/jsonLayout.test.ts
@@ -46,15 +48,6 @@ function findingRecordOf(finding: FindingOutput): FindingRecord {
     ...(finding.pDiscrepancy ? { pDiscrepancy: finding.pDiscrepancy } : {}),
     ...(finding.rowImplies ? { rowImplies: finding.rowImplies } : {}),
   };
-}
-
-const SEVERITY_RANK = { fail: 3, warn: 2, note: 1 } as const;
-
-/** The worst severity among a result's findings, or why it has none (the CSV report's `verdict` words). */
-export function verdictOf(statistic: Pick<StatisticOutput, 'findings' | 'recomputed'>): Verdict {
-  let worst: FindingOutput['severity'] | null = null;
-  for (const finding of statistic.findings) if (worst === null || SEVERITY_RANK[finding.severity] > SEVERITY_RANK[worst]) worst = finding.severity;
-  return worst ?? (statistic.recomputed.evaluable ? 'no flag' : 'not checked');
 }
 
 function printedOf(statistic: StatisticOutput): ResultRecord['printed'] {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { documentFromRecord, JSON_LAYOUT, summaryFromRecord } from './jsonLayout.js';
 import { documentSchema, reportSchema, type DocumentOutput, type Report } from './model.js';
+import { VERDICTS } from './verdict.js';
 
 /**
  * The zod schemas of the JSON report's layout (layout 2, written by
@@ -11,8 +12,8 @@ import { documentSchema, reportSchema, type DocumentOutput, type Report } from '
 
 const comparatorSchema = z.enum(['=', '<', '>', '<=', '>=']);
 const severitySchema = z.enum(['fail', 'warn', 'note']);
-/** The verdict words are the CSV report's (csv.ts, CSV_VERDICTS): the worst severity, or why there is none. */
-const verdictSchema = z.enum(['fail', 'warn', 'note', 'no flag', 'not checked']);
+/** The verdict words are the CSV report's (verdict.ts): the worst severity, or why there is none. */
+const verdictSchema = z.enum(VERDICTS);
 const spanSchema = z.tuple([z.number().int(), z.number().int()]);
 const intervalSchema = z.tuple([z.number(), z.number()]);
 
@@ -191,7 +192,6 @@ export type Where = z.input<typeof whereSchema>;
 export type SummaryRecord = z.output<typeof summaryRecordSchema>;
 
 export type TableNotReadRecord = z.input<typeof tableNotReadRecordSchema>;
-export type Verdict = z.infer<typeof verdictSchema>;
 
 // ---------------------------------------------------------------- reading files
 
