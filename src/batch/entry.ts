@@ -36,7 +36,7 @@ export function internalErrorReason(error: unknown): string {
 }
 
 /** The entry as one line of compact JSON, path first. */
-export function entryJson(entry: AuditEntry): string {
+export function entryJson(entry: Pick<AuditEntry, 'path' | 'body'>): string {
   return documentJsonFromBody(entry.path, entry.body);
 }
 

@@ -1,9 +1,10 @@
 import type { Command } from 'commander';
-import { entryOf } from '../batch/entry.js';
+import { entryOf, type AuditEntry } from '../batch/entry.js';
 import { JsonLinesError } from '../batch/jsonLines.js';
 import { indexRecords, mergedDocuments, type MergeIndex } from '../batch/mergeRecords.js';
 import { resolveLimits } from '../limits.js';
 import { buildReport, reportHead } from '../report/build.js';
+import { JSON_LAYOUT } from '../report/jsonLayout.js';
 import type { DocumentOutput, StreamedReport } from '../report/model.js';
 import {
   addCommonOptions,
@@ -53,7 +54,7 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
       } catch (error) {
         throw usageErrorOf(error);
       }
-      const { documentFromJson } = await import('../report/jsonLayoutSchema.js');
+      const { documentFromJson, documentRecordSchema } = await import('../report/jsonLayoutSchema.js');
       const parseRecord = (text: string): DocumentOutput | null => {
         try {
           const read = documentFromJson(JSON.parse(text));
@@ -62,13 +63,27 @@ export function registerMergeCommand(program: Command, io: CliIo, setExitCode: (
           return null;
         }
       };
+      /**
+       * A record as its JSON for the JSON formats: one of the layout written (layout 2) is checked and passed
+       * on as it is, without reading it into the model and writing it again (a third of a merge's time); one of
+       * layout 1 is read into the model and written in layout 2.
+       */
+      const recordJson = (text: string): Pick<AuditEntry, 'path' | 'body'> | null => {
+        try {
+          const value = JSON.parse(text) as { layout?: unknown; path?: unknown };
+          if (value.layout !== JSON_LAYOUT) {
+            const read = documentFromJson(value);
+            return read.ok ? entryOf(read.document) : null;
+          }
+          return documentRecordSchema.safeParse(value).success ? { path: value.path as string, body: JSON.stringify({ ...value, path: undefined }) } : null;
+        } catch {
+          return null;
+        }
+      };
       try {
         if (options.format === 'json' || options.format === 'jsonl') {
           // Streamed: each document is read back, written and let go (the summary came from the first pass).
-          const entries = (function* () {
-            for (const document of mergedDocuments(index, parseRecord)) yield entryOf(document);
-          })();
-          writeJsonReportOf(options.format, index.summary, entries, options.output, io);
+          writeJsonReportOf(options.format, index.summary, mergedDocuments(index, recordJson), options.output, io);
         } else if (options.format === 'html') {
           // The HTML page is built whole (its overview, filters and chart come from every document), so here
           // every document is held; the other formats are written a document at a time.
