@@ -144,7 +144,7 @@ const passageSchema = z.object({
 
 export const documentRecordSchema = z.object({
   path: z.string().describe('The document, named relative to the folder the audit was run from.'),
-  layout: z.literal(JSON_LAYOUT).describe('The layout of this record (2). Records without the field are layout 1, written by plumbline before 2026-12.'),
+  layout: z.literal(JSON_LAYOUT).describe('The layout of this record (2). Records without the field are layout 1, the layout before this one.'),
   status: z.enum(['checked', 'unreadable']),
   error: z.string().optional().describe('Why an unreadable document could not be read.'),
   format: z.string().optional().describe('The document\'s format (txt, pdf, docx, ...).'),
@@ -178,7 +178,7 @@ export const summaryRecordSchema = z.object({
 });
 
 export const reportRecordSchema = z.object({
-  layout: z.literal(JSON_LAYOUT).describe('The layout of this report (2). Reports without the field are layout 1, written by plumbline before 2026-12.'),
+  layout: z.literal(JSON_LAYOUT).describe('The layout of this report (2). Reports without the field are layout 1, the layout before this one.'),
   tool: z.object({ name: z.literal('plumbline'), version: z.string() }),
   caution: z.string(),
   documents: z.array(documentRecordSchema).describe('One record per document; in a JSON Lines report each line is one of these.'),
