@@ -36,7 +36,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { buildReport } from '../src/report/build.js';
 import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
-import type { Report } from '../src/report/model.js';
+import { readJsonReport } from '../src/report/jsonLayoutSchema.js';
 import { fUpperTail, rTwoTailed, tTwoTailed } from '../src/stats/index.js';
 import { bestTime } from './bestTime.js';
 import { printedP, seededRandom } from './seededRandom.js';
@@ -175,7 +175,7 @@ async function main(): Promise<void> {
   const beforeHtmlFile = join(root, 'merged-before.html');
   const mergeBefore = before ? measured(['merge', jsonl, '--format', 'html', '--output', beforeHtmlFile], root, before) : null;
 
-  const report = JSON.parse(readFileSync(scanJson, 'utf8')) as Report;
+  const report = readJsonReport(readFileSync(scanJson, 'utf8'));
   const quarter = buildReport(report.documents.slice(0, Math.floor(report.documents.length / 4)));
   const results = report.summary.statistics;
   const jsonAll = bestTime(() => formatJson(report), 3);

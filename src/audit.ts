@@ -3,7 +3,8 @@ import type { ResolvedConfig } from './checks/config.js';
 import { createLineIndex } from './scan/lines.js';
 import { scanDocument, type ScannableDocument } from './scan/scanDocument.js';
 import { plainTextDocument } from './documents/text.js';
-import type { DocumentOutput, StatisticOutput, TableNotReadOutput } from './report/model.js';
+import type { DocumentOutput, FindingOutput, StatisticOutput, TableNotReadOutput } from './report/model.js';
+import { reported, reportedDown, reportedOrNull, reportedUp } from './report/reportedDigits.js';
 import type { UnreadTable } from './scan/tables/index.js';
 import { noResultsOf } from './report/wording.js';
 
@@ -64,18 +65,45 @@ function statisticOutput(
         ? { level: effect.interval.level, low: effect.interval.low.value, high: effect.interval.high.value }
         : null,
     })),
+    // At the report's digits (reportedDigits.ts): the checks above ran on the full values.
     recomputed: {
       evaluable: recomputation.evaluable,
       reason: recomputation.reason,
       tails: recomputation.tails,
-      p: recomputation.p,
-      pLow: recomputation.pRange?.low ?? null,
-      pHigh: recomputation.pRange?.high ?? null,
-      partialEtaSquared: recomputation.partialEtaSquared,
-      partialEtaSquaredLow: recomputation.partialEtaSquaredRange?.low ?? null,
-      partialEtaSquaredHigh: recomputation.partialEtaSquaredRange?.high ?? null,
+      p: reportedOrNull(recomputation.p),
+      pLow: recomputation.pRange ? reportedDown(recomputation.pRange.low) : null,
+      pHigh: recomputation.pRange ? reportedUp(recomputation.pRange.high) : null,
+      partialEtaSquared: reportedOrNull(recomputation.partialEtaSquared),
+      partialEtaSquaredLow: recomputation.partialEtaSquaredRange ? reportedDown(recomputation.partialEtaSquaredRange.low) : null,
+      partialEtaSquaredHigh: recomputation.partialEtaSquaredRange ? reportedUp(recomputation.partialEtaSquaredRange.high) : null,
     },
-    findings,
+    findings: findings.map(findingOutput),
+  };
+}
+
+/**
+ * A finding as the report holds it: the values its message was filled from
+ * (`data`) are in its words already, and the numbers it carries are at the
+ * report's digits.
+ */
+function findingOutput({ data: _filledFrom, ...finding }: CheckedResult['findings'][number]): FindingOutput {
+  const { pDiscrepancy, rowImplies } = finding;
+  return {
+    ...finding,
+    ...(pDiscrepancy ? { pDiscrepancy: { ...pDiscrepancy, factor: reportedOrNull(pDiscrepancy.factor) } } : {}),
+    ...(rowImplies
+      ? {
+          rowImplies: {
+            ...rowImplies,
+            statistic: reported(rowImplies.statistic),
+            statisticLow: reportedDown(rowImplies.statisticLow),
+            statisticHigh: reportedUp(rowImplies.statisticHigh),
+            p: reportedOrNull(rowImplies.p),
+            pLow: rowImplies.pLow === null ? null : reportedDown(rowImplies.pLow),
+            pHigh: rowImplies.pHigh === null ? null : reportedUp(rowImplies.pHigh),
+          },
+        }
+      : {}),
   };
 }
 

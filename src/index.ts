@@ -21,5 +21,7 @@ export { formatCsv, CSV_COLUMNS } from './report/csv.js';
 export { reportJsonSchema, csvRowJsonSchema } from './report/jsonSchema.js';
 export { formatMarkdown } from './report/markdown.js';
 export { reportSchema, type Report } from './report/model.js';
+export { documentFromJson, documentRecordSchema, readJsonReport, reportRecordSchema } from './report/jsonLayoutSchema.js';
+export { documentRecordOf, JSON_LAYOUT } from './report/jsonLayout.js';
 export * as statistics from './stats/index.js';
 export * as refit from './refit/index.js';

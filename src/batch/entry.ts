@@ -1,5 +1,7 @@
 import { tallyOf, type DocumentTally } from '../report/build.js';
 import { documentBodyJson, documentJsonFromBody } from '../report/json.js';
+import { documentFromRecord } from '../report/jsonLayout.js';
+import type { DocumentRecord } from '../report/jsonLayoutSchema.js';
 import type { DocumentOutput } from '../report/model.js';
 
 /**
@@ -34,12 +36,16 @@ export function internalErrorReason(error: unknown): string {
 }
 
 /** The entry as one line of compact JSON, path first. */
-export function entryJson(entry: AuditEntry): string {
+export function entryJson(entry: Pick<AuditEntry, 'path' | 'body'>): string {
   return documentJsonFromBody(entry.path, entry.body);
 }
 
+/** The entry's audit in the model: the body is a record this build wrote (or one checked when it came from the cache). */
 export function documentOf(entry: AuditEntry): DocumentOutput {
-  return entry.document ?? (JSON.parse(entryJson(entry)) as DocumentOutput);
+  if (entry.document) return entry.document;
+  const document = documentFromRecord(JSON.parse(entryJson(entry)) as DocumentRecord);
+  if (document === null) throw new Error(`${entry.path}: the audit's record does not give back its results' context`);
+  return document;
 }
 
 /** Keeps the last record per path and sorts by path, so shards merged equal the unsharded run. */

@@ -77,8 +77,8 @@ export async function forEachJsonLinesRecord(
   onRecord: (record: JsonLinesRecord) => void,
   options: JsonLinesReadOptions = {},
 ): Promise<Pick<JsonLinesContent, 'cutOff'>> {
-  // The record schema (zod) loads only when there is a file to check.
-  const { documentSchema } = await import('../report/model.js');
+  // The record schemas (zod) load only when there is a file to check.
+  const { documentFromJson } = await import('../report/jsonLayoutSchema.js');
   const budget = options.maxSecondsPerRecord ?? Infinity;
   const stopped = (number: number): JsonLinesError =>
     new JsonLinesError(`${path}: reading and checking line ${number} ${timeBudgetReason(budget)}; the file was left as it is`);
@@ -89,9 +89,9 @@ export async function forEachJsonLinesRecord(
     } catch {
       throw new JsonLinesError(`${path}: line ${number} is not valid JSON (the file was left as it is)`);
     }
-    const checked = documentSchema.safeParse(parsed);
-    if (!checked.success) throw new JsonLinesError(`${path}: line ${number} is not a plumbline document record (the file was left as it is)`);
-    return checked.data;
+    const read = documentFromJson(parsed);
+    if (!read.ok) throw new JsonLinesError(`${path}: line ${number} is ${read.reason} (the file was left as it is)`);
+    return read.document;
   };
   const readLine = (line: Buffer, number: number, offset: number, startedAt: number): void => {
     const left = budget - (performance.now() - startedAt) / 1000;

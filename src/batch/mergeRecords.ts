@@ -55,7 +55,7 @@ export async function indexRecords(files: readonly string[], options: JsonLinesR
  * again (the file may have changed since the first pass; a record that is
  * no longer there is an error naming the file and line), one at a time.
  */
-export function* mergedDocuments(index: MergeIndex, parseRecord: (text: string) => DocumentOutput | null): Generator<DocumentOutput> {
+export function* mergedDocuments<Read extends { path: string } = DocumentOutput>(index: MergeIndex, parseRecord: (text: string) => Read | null): Generator<Read> {
   const descriptors = new Map<number, number>();
   const descriptorOf = (file: number): number => {
     let descriptor = descriptors.get(file);

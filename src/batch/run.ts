@@ -83,11 +83,14 @@ type SchemaCheck = (entry: AuditEntry) => AuditEntry | null;
  * the audit itself rather than the entry's header; null when it fails.
  */
 async function schemaCheck(): Promise<SchemaCheck> {
-  const { documentSchema } = await import('../report/model.js');
+  const { documentRecordSchema } = await import('../report/jsonLayoutSchema.js');
+  const { documentFromRecord } = await import('../report/jsonLayout.js');
   return (entry) => {
     try {
-      const checked = documentSchema.safeParse(JSON.parse(entryJson(entry)));
-      return checked.success ? { ...entry, document: checked.data, tally: tallyOf(checked.data) } : null;
+      // Only the layout this build writes: an entry of another layout is a miss, audited again.
+      const checked = documentRecordSchema.safeParse(JSON.parse(entryJson(entry)));
+      const document = checked.success ? documentFromRecord(checked.data) : null;
+      return document === null ? null : { ...entry, document, tally: tallyOf(document) };
     } catch {
       return null;
     }

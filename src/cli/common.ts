@@ -129,7 +129,7 @@ function jsonPieces(input: ReportInput, format: ReportFormat): Iterable<string> 
 }
 
 /** The JSON or JSON Lines report of audits given one at a time (an array, or made as they are written). */
-function jsonPiecesOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<AuditEntry>): Iterable<string> {
+function jsonPiecesOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<Pick<AuditEntry, 'path' | 'body'>>): Iterable<string> {
   const documents = (function* () {
     for (const entry of entries) yield entryJson(entry);
   })();
@@ -144,7 +144,7 @@ function jsonPiecesOf(format: 'json' | 'jsonl', summary: Summary, entries: Itera
  * written (merge reads each back from its file): only one audit, and one
  * batch of text, is held at a time.
  */
-export function writeJsonReportOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<AuditEntry>, output: string | undefined, io: CliIo): void {
+export function writeJsonReportOf(format: 'json' | 'jsonl', summary: Summary, entries: Iterable<Pick<AuditEntry, 'path' | 'body'>>, output: string | undefined, io: CliIo): void {
   writePieces(jsonPiecesOf(format, summary, entries), output, io);
 }
 

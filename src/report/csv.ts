@@ -2,6 +2,7 @@ import { stringify } from 'csv-stringify/sync';
 import type { DocumentOutput, FindingOutput, Report, StatisticOutput, StreamedReport } from './model.js';
 import { visibleControls, visibleLine } from './visible.js';
 import { noResultsMessage } from './wording.js';
+import { verdictOf, VERDICTS, worstSeverity } from './verdict.js';
 
 /**
  * The CSV report: one row per result (flagged or not) for spreadsheets and
@@ -20,15 +21,12 @@ import { noResultsMessage } from './wording.js';
  * cell starts with a bare "=" that a spreadsheet would take for a formula.
  */
 
-type Severity = FindingOutput['severity'];
-const SEVERITY_RANK: Record<Severity, number> = { fail: 3, warn: 2, note: 1 };
-
 /** What a row stands for (the `row` column). */
 export type CsvRowKind = 'result' | 'document finding' | 'table not read' | 'no results' | 'unreadable';
 export const CSV_ROW_KINDS: readonly CsvRowKind[] = ['result', 'document finding', 'table not read', 'no results', 'unreadable'];
 
-/** The verdict on a result (the `verdict` column): its worst finding's severity, or why it has none. */
-export const CSV_VERDICTS = ['fail', 'warn', 'note', 'no flag', 'not checked'] as const;
+/** The verdict on a result (the `verdict` column): its worst finding's severity, or why it has none (verdict.ts). */
+export const CSV_VERDICTS = VERDICTS;
 
 interface CsvColumnDefinition {
   name: string;
@@ -102,12 +100,6 @@ const DF_FROM_NOTES: Record<NonNullable<StatisticOutput['dfFrom']>, string> = {
   'text-beside-table': 'df stated in the text beside the table, not in the table, its caption or its notes',
 };
 
-function worstSeverity(findings: readonly FindingOutput[]): Severity | null {
-  let worst: Severity | null = null;
-  for (const finding of findings) if (worst === null || SEVERITY_RANK[finding.severity] > SEVERITY_RANK[worst]) worst = finding.severity;
-  return worst;
-}
-
 function finite(value: number | null | undefined): number | null {
   return value === null || value === undefined || !Number.isFinite(value) ? null : value;
 }
@@ -169,7 +161,7 @@ function dfCell(statistic: StatisticOutput): string {
 function resultRow(document: DocumentOutput, statistic: StatisticOutput): Row {
   const rec = statistic.recomputed;
   const implied = statistic.findings.find((f) => f.rowImplies)?.rowImplies;
-  const verdict = statistic.findings.length > 0 ? findingColumns(statistic.findings) : { verdict: rec.evaluable ? 'no flag' : 'not checked', 'changes the conclusion': 'no' };
+  const verdict = statistic.findings.length > 0 ? findingColumns(statistic.findings) : { verdict: verdictOf(statistic), 'changes the conclusion': 'no' };
   return {
     row: 'result',
     ...documentColumns(document),

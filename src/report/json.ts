@@ -1,7 +1,8 @@
+import { documentRecordOf, JSON_LAYOUT, summaryRecordOf } from './jsonLayout.js';
 import type { DocumentOutput, Report } from './model.js';
 
 /**
- * The JSON report (shape: src/report/model.ts, published as
+ * The JSON report (layout: src/report/jsonLayout.ts, published as
  * schema/report.schema.json). The header and summary are indented; each
  * document is one line of compact JSON, so a report of thousands of
  * documents stays small, reads line by line with grep, and a re-audit can
@@ -23,18 +24,21 @@ export function formatJsonParts(head: Pick<Report, 'tool' | 'caution' | 'summary
  */
 export function* jsonReportPieces(head: Pick<Report, 'tool' | 'caution' | 'summary'>, documentTexts: Iterable<string>): Generator<string> {
   const nested = (value: unknown): string => JSON.stringify(value, null, 2).replace(/\n/g, '\n  ');
-  yield `{\n  "tool": ${nested(head.tool)},\n  "caution": ${JSON.stringify(head.caution)},\n  "documents": [`;
+  yield `{\n  "layout": ${JSON_LAYOUT},\n  "tool": ${nested(head.tool)},\n  "caution": ${JSON.stringify(head.caution)},\n  "documents": [`;
   let first = true;
   for (const text of documentTexts) {
     yield `${first ? '\n    ' : ',\n    '}${text}`;
     first = false;
   }
-  yield `${first ? ']' : '\n  ]'},\n  "summary": ${nested(head.summary)}\n}\n`;
+  yield `${first ? ']' : '\n  ]'},\n  "summary": ${nested(summaryRecordOf(head.summary))}\n}\n`;
 }
 
-/** A document's JSON without its path: what the cache keeps, since the same content may be audited under another name. */
+/**
+ * A document's JSON record (jsonLayout.ts) without its path: what the cache keeps, since the same content may be
+ * audited under another name.
+ */
 export function documentBodyJson(document: DocumentOutput): string {
-  return JSON.stringify({ ...document, path: undefined });
+  return JSON.stringify({ ...documentRecordOf(document), path: undefined });
 }
 
 /** A document's compact JSON from its path and body: the path always first, whichever way the document was made. */

@@ -1,12 +1,25 @@
 import { z } from 'zod';
-import { reportSchema } from './model.js';
+import { documentRecordSchema, reportRecordSchema } from './jsonLayoutSchema.js';
 import { CSV_COLUMNS } from './csv.js';
 
-/** The JSON Schema of the JSON report, generated from the zod model (never edited by hand). */
+/** The document record under its own name in the schema's $defs (registered once: ids are global in zod). */
+const document = documentRecordSchema.meta({ id: 'document' });
+
+/**
+ * The JSON Schema of the JSON report (layout 2), generated from the zod layout (never edited by hand). Fields
+ * with a default may be left out of a file ("=" comparators, an empty list of effects), so the schema is the
+ * one of the input side. A JSON Lines report's line is `$defs.document`.
+ */
 export function reportJsonSchema(): Record<string, unknown> {
+  const schema = z.toJSONSchema(reportRecordSchema.extend({ documents: z.array(document).describe(reportRecordSchema.shape.documents.description ?? '') }), {
+    target: 'draft-2020-12',
+    io: 'input',
+  });
   return {
-    ...z.toJSONSchema(reportSchema, { target: 'draft-2020-12' }),
-    title: 'plumbline audit report',
+    ...schema,
+    title: 'plumbline audit report (layout 2)',
+    description:
+      'The JSON report of plumbline scan --format json and merge --format json. Each line of a JSON Lines report (--format jsonl, --jsonl) is one document record, $defs.document. Results are grouped as a reviewer reads them: where, printed, recomputed, verdict, why; the text around them is written once per document, in passages.',
   };
 }
 

@@ -15,7 +15,6 @@ export const findingSchema = z.object({
   crossesAlpha: z.boolean().describe('True when the discrepancy changes the conclusion at the alpha in force.'),
   message: z.string(),
   messageId: z.string(),
-  data: z.record(z.string(), z.union([z.string(), z.number()])),
   slip: z.string().optional().describe('A simple slip that reproduces the printed numbers, when one was found.'),
   pDiscrepancy: z
     .object({

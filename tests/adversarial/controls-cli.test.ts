@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bin, builtCliExists, plumbline, temporaryFolder } from '../batch/cli.js';
 import { htmlDataStrings } from '../report/htmlData.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 /**
  * No control character from a document or a file name reaches a report a
@@ -72,7 +73,7 @@ describe('control characters from documents and file names, in the built command
   it('the document really carries them: the JSON report keeps the text as it is', () => {
     const run = scan('json');
     expect(run.status).toBe(2); // unreadable documents
-    const report = JSON.parse(run.stdout) as { documents: { path: string; statistics: { text: string }[]; tablesNotRead: { message: string }[] }[] };
+    const report = readJsonReport(run.stdout);
     const paths = report.documents.map((document) => document.path);
     expect(paths).toEqual(expect.arrayContaining([hostileName, unreadableName, missingName]));
     const audited = report.documents.find((document) => document.path === hostileName)!;

@@ -22,8 +22,8 @@ function bigRecord(copies: number): string {
   writeFileSync(join(folder, 'one.txt'), 'Dose affected recall, F(2, 57) = 4.21, p = .020, ηp2 = .13.\n');
   const scan = plumbline(['scan', 'one.txt', '--no-cache', '--jsonl', 'one.jsonl', '--format', 'json', '--fail-on', 'never'], folder);
   expect(scan.status, scan.stderr).toBe(0);
-  const record = JSON.parse(readFileSync(join(folder, 'one.jsonl'), 'utf8')) as { statistics: unknown[] };
-  record.statistics = Array.from({ length: copies }, () => record.statistics[0]);
+  const record = JSON.parse(readFileSync(join(folder, 'one.jsonl'), 'utf8')) as { results: unknown[] };
+  record.results = Array.from({ length: copies }, () => record.results[0]);
   return `${JSON.stringify(record)}\n`;
 }
 

@@ -3,7 +3,7 @@ import { chmodSync, copyFileSync, mkdirSync, mkdtempSync, writeFileSync } from '
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { reportSchema } from '../../src/report/model.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 // Runs the built command (`npm test` builds first) so documents go through the worker pool.
 const bin = join(process.cwd(), 'dist', 'src', 'cli', 'main.js');
@@ -40,11 +40,11 @@ describe('time budget per document', () => {
     writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
     const run = (limit: string[]) =>
       spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--pdf-engine', 'pdf-parse', ...limit, '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
-    const stopped = reportSchema.parse(JSON.parse(run(['--limit', 'maxSecondsPerDocument=1']).stdout));
+    const stopped = readJsonReport(run(['--limit', 'maxSecondsPerDocument=1']).stdout);
     expect(stopped.documents.find((d) => d.path.endsWith('slow.pdf'))?.error).toMatch(/took longer than 1 s .*maxSecondsPerDocument/);
     expect(stopped.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
     // Within the default budget the same file is read: it was the budget that stopped it.
-    const read = reportSchema.parse(JSON.parse(run([]).stdout));
+    const read = readJsonReport(run([]).stdout);
     expect(read.documents.find((d) => d.path.endsWith('slow.pdf'))?.status).toBe('checked');
   }, 30_000);
 
@@ -55,7 +55,7 @@ describe('time budget per document', () => {
     writeFileSync(join(dir, 'dense.txt'), results);
     writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
     const run = spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
-    const report = reportSchema.parse(JSON.parse(run.stdout));
+    const report = readJsonReport(run.stdout);
     expect(report.documents.find((d) => d.path.endsWith('dense.txt'))?.error).toMatch(/took longer than 1 s .*maxSecondsPerDocument/);
     expect(report.documents.find((d) => d.path.endsWith('fine.txt'))?.status).toBe('checked');
   }, 30_000);
@@ -70,7 +70,7 @@ describe('time budget per document', () => {
     writeFileSync(join(dir, 'fine.txt'), 'F(2, 57) = 4.21, p = .020.\n');
     const run = spawnSync('node', [bin, 'scan', dir, '--jobs', '1', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json'], { encoding: 'utf8', timeout: 25_000 });
     expect(run.status).toBe(2);
-    const report = reportSchema.parse(JSON.parse(run.stdout));
+    const report = readJsonReport(run.stdout);
     const dense = report.documents.find((d) => d.path.endsWith('dense.txt'))!;
     expect(dense.status).toBe('unreadable');
     expect(dense.error).toBe(
@@ -95,7 +95,7 @@ describe('time budget per document', () => {
       env: { ...process.env, PATH: `${fakeBin}:${process.env.PATH}` },
       timeout: 25_000,
     });
-    const report = reportSchema.parse(JSON.parse(result.stdout));
+    const report = readJsonReport(result.stdout);
     const slow = report.documents.find((d) => d.path.endsWith('slow.pdf'))!;
     expect(slow.status).toBe('unreadable');
     expect(slow.error).toMatch(/took longer than 1 s .*maxSecondsPerDocument/);
@@ -121,7 +121,7 @@ describe('time budget per document', () => {
         [bin, 'scan', dir, '--jobs', jobs, '--pdf-engine', 'pdf-parse', '--limit', 'maxSecondsPerDocument=1', '--no-cache', '--format', 'json', '--fail-on', 'never'],
         { encoding: 'utf8', timeout: 50_000, maxBuffer: 1 << 28 },
       );
-      const report = reportSchema.parse(JSON.parse(result.stdout));
+      const report = readJsonReport(result.stdout);
       expect(report.documents, `--jobs ${jobs}`).toHaveLength(201);
       expect(report.documents.filter((d) => d.status === 'unreadable').map((d) => d.error), `--jobs ${jobs}`).toEqual([]);
     }

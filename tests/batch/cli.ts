@@ -2,7 +2,8 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { reportSchema, type Report } from '../../src/report/model.js';
+import type { Report } from '../../src/report/model.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 /**
  * Runs the built command (`npm test` builds first) in its own process, as a
@@ -37,7 +38,7 @@ export function temporaryFolder(prefix: string): string {
 }
 
 export function reportOf(run: Run): Report {
-  return reportSchema.parse(JSON.parse(run.stdout));
+  return readJsonReport(run.stdout);
 }
 
 /** The documents' paths and statuses, in report order. */

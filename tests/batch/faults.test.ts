@@ -22,7 +22,7 @@ function preload(dir: string, name: string, source: string): string[] {
 const faultInOneDocument = `
 const original = JSON.stringify;
 JSON.stringify = function (value, ...rest) {
-  if (value && typeof value === 'object' && Array.isArray(value.statistics) && value.statistics.some((s) => String(s.text).includes('F(9, 99)'))) {
+  if (value && typeof value === 'object' && Array.isArray(value.results) && value.results.some((r) => String(r.printed.text).includes('F(9, 99)'))) {
     throw new TypeError('fault injected by the test');
   }
   return original.call(this, value, ...rest);

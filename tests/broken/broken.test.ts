@@ -1,6 +1,7 @@
 import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/program.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 /**
  * A corpus of broken and awkward files, audited together through
@@ -55,7 +56,7 @@ describe('plumbline scan over a corpus of broken files', async () => {
   let err = '';
   const io: CliIo = { stdout: (text) => (out += text), stderr: (text) => (err += text), readStdin: async () => '', color: false };
   const code = await runCli(['scan', folder, '--format', 'json', '--no-cache', '--jobs', '1', '--quiet', '--pdf-engine', pdfEngine], io);
-  const documents = (JSON.parse(out) as { documents: JsonDocument[] }).documents;
+  const documents: JsonDocument[] = readJsonReport(out).documents;
   const byName = new Map(documents.map((document) => [relative(folder, document.path), document]));
 
   it('audits every file and exits 2 (some could not be read)', () => {

@@ -35,6 +35,7 @@ import { plumbline, temporaryFolder } from '../batch/cli.js';
 import { withPart, xlsxFile } from '../refit/xlsx.js';
 import { startWeb, type RunningWeb } from '../web/startWeb.js';
 import { NO_RESULTS_MESSAGE } from '../../src/report/wording.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -205,7 +206,7 @@ describe.skipIf(!available)('web page in Chromium', () => {
       // The PDF and DOCX: every result and finding the command line finds (same pdf.js as pdf-parse), and the planted ones among them.
       const cli = plumbline(['scan', PDF, DOCX, '--pdf-engine', 'pdf-parse', '--format', 'json', '--no-cache', '--fail-on', 'never'], demo);
       expect(cli.status, cli.stderr).toBe(0);
-      const report = JSON.parse(cli.stdout) as { documents: { path: string; statistics: { text: string; location: { line: number }; findings: { rule: string; severity: string }[] }[] }[] };
+      const report = readJsonReport(cli.stdout);
       for (const name of [PDF, DOCX]) {
         const expected = report.documents
           .find((document) => document.path === name)!

@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { builtCliExists, plumbline, temporaryFolder } from '../batch/cli.js';
 import { loadFixture } from '../stats/referenceFixtures.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 /**
  * `plumbline scan` on a manuscript that prints a factorial design's cell statistics and its F tests, run as a
@@ -52,7 +53,7 @@ const write = (name: string, text: string): string => {
 function scan(file: string): { status: number | null; report: ScanJson } {
   const run = plumbline(['scan', file, '--format', 'json'], folder);
   expect(run.stderr).toBe('');
-  return { status: run.status, report: JSON.parse(run.stdout) as ScanJson };
+  return { status: run.status, report: readJsonReport(run.stdout) as unknown as ScanJson };
 }
 
 const ruleFindings = (report: ScanJson): Finding[][] => report.documents[0]!.statistics.map((s) => s.findings.filter((f) => f.rule === 'cell-statistics-test-mismatch'));

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/program.js';
-import { reportSchema } from '../../src/report/model.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 async function run(argv: string[], stdin = ''): Promise<{ code: number; out: string; err: string }> {
   let out = '';
@@ -49,7 +49,7 @@ describe('plumbline check', () => {
 
   it('writes JSON that satisfies the published schema', async () => {
     const { out } = await run(['check', inconsistent, '--format', 'json']);
-    const report = reportSchema.parse(JSON.parse(out));
+    const report = readJsonReport(out);
     const statistic = report.documents[0]!.statistics[0]!;
     expect(statistic).toMatchObject({ kind: 'F', df: [2, 57], value: 4.21, p: { comparator: '=', value: 0.002 } });
     expect(statistic.location).toMatchObject({ page: null, line: 1 });
@@ -80,7 +80,7 @@ describe('plumbline scan', () => {
     writeFileSync(join(dir, 'b.md'), `# Results\n\n${consistent}\n`);
     writeFileSync(join(dir, 'c.txt'), Buffer.from([0x46, 0x00, 0x01]));
     const { code, out } = await run(['scan', dir, '--format', 'json']);
-    const report = reportSchema.parse(JSON.parse(out));
+    const report = readJsonReport(out);
     // Named relative to where the command runs, whatever form the argument took.
     expect(report.documents.map((d) => [relative(dir, d.path), d.status])).toEqual([
       ['a.txt', 'checked'],

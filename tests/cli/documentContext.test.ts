@@ -8,14 +8,15 @@ import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { reportSchema, type StatisticOutput } from '../../src/report/model.js';
+import type { StatisticOutput } from '../../src/report/model.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 const bin = join('dist', 'src', 'cli', 'main.js');
 
 function check(text: string): { status: number | null; statistics: StatisticOutput[] } {
   expect(existsSync(bin), `${bin} missing: run npm run build`).toBe(true);
   const run = spawnSync('node', [bin, 'check', text, '--format', 'json'], { encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' } });
-  const report = reportSchema.parse(JSON.parse(run.stdout));
+  const report = readJsonReport(run.stdout);
   return { status: run.status, statistics: report.documents[0]!.statistics };
 }
 

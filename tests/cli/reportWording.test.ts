@@ -2,7 +2,7 @@ import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildReport } from '../../src/report/build.js';
-import { documentSchema } from '../../src/report/model.js';
+import { documentRecordSchema } from '../../src/report/jsonLayoutSchema.js';
 import { countOf, findingsPhrase, resultsPhrase } from '../../src/report/wording.js';
 import { builtCliExists, plumbline, reportOf, temporaryFolder } from '../batch/cli.js';
 import { htmlDocumentsData } from '../report/htmlData.js';
@@ -89,12 +89,13 @@ describe('report wording in the built command', () => {
   }
 
   it('JSON: each document without results says why, empty or none found; a document with results says nothing', () => {
-    const report = reportOf(scan(['.', '--format', 'json']));
+    const run = scan(['.', '--format', 'json']);
+    const report = reportOf(run);
     const byPath = new Map(report.documents.map((document) => [document.path, document]));
     for (const path of ['blank.md', 'empty.txt', 'hollow.tex']) expect(byPath.get(path)!.noResults, path).toMatchObject({ reason: 'empty', message: expect.stringContaining('no text') });
     expect(byPath.get('prose.txt')!.noResults).toMatchObject({ reason: 'none-found', message: expect.stringContaining('No reported F, t, chi-square, r or z result') });
     expect(byPath.get('consistent.txt')!.noResults).toBeUndefined();
-    for (const document of report.documents) expect(documentSchema.safeParse(document).success).toBe(true);
+    for (const document of (JSON.parse(run.stdout) as { documents: unknown[] }).documents) expect(documentRecordSchema.safeParse(document).success).toBe(true);
   });
 
   it('text lists each document without results with the reason, even without --all, and Markdown, HTML and CSV say so', () => {

@@ -7,7 +7,7 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { reportSchema } from '../../src/report/model.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 const cli = join(__dirname, '..', '..', 'dist', 'src', 'cli', 'main.js');
 
@@ -18,7 +18,7 @@ export function scanDocumentJson(path: string) {
   } catch (error) {
     out = (error as { stdout: string }).stdout;
   }
-  return reportSchema.parse(JSON.parse(out)).documents[0]!;
+  return readJsonReport(out).documents[0]!;
 }
 
 /** Writes `text` to a file of its own (named `name`, in a new temporary folder) and scans it as above. */

@@ -14,8 +14,8 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { reportSchema } from '../../src/report/model.js';
 import { htmlDocumentsData } from '../report/htmlData.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 const root = join(__dirname, '..', '..');
 const cli = join(root, 'dist', 'src', 'cli', 'main.js');
@@ -33,7 +33,7 @@ function scan(format: string): string {
 
 describe('tables not read, in every output format', () => {
   it('JSON: each such table with its location, reason and message; totals of results in text and in tables', () => {
-    const report = reportSchema.parse(JSON.parse(scan('json')));
+    const report = readJsonReport(scan('json'));
     const document = (id: string) => report.documents.find((candidate) => candidate.path.endsWith(`${id}.txt`))!;
     const [softTable] = document('soft-09').tablesNotRead;
     expect(softTable!.reason).toBe('read-without-df');
@@ -74,7 +74,7 @@ describe('a table that prints F and p without df', () => {
     } catch (error) {
       output = (error as { stdout: string }).stdout;
     }
-    const report = reportSchema.parse(JSON.parse(output));
+    const report = readJsonReport(output);
     const [document] = report.documents;
     expect(document!.statistics.map((statistic) => [statistic.value, statistic.df.length, statistic.inTable])).toEqual([
       [12.6, 0, true],

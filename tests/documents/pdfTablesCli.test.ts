@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { pdftotextMissing } from './helpers.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
 const bin = join('dist', 'src', 'cli', 'main.js');
 const pdf = fileURLToPath(new URL('../fixtures/pdf-tables/wrapped-labels.pdf', import.meta.url));
@@ -29,7 +30,7 @@ describe.each(['pdf-parse', 'pdftotext'] as const)('plumbline scan <pdf> --forma
     const run = spawnSync('node', [bin, 'scan', pdf, '--format', 'json', '--no-cache', '--pdf-engine', engine, '--fail-on', 'never'], { encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' } });
     expect(run.stderr).not.toMatch(/error/i);
     expect(run.status).toBe(0);
-    const report = JSON.parse(run.stdout) as { documents: { status: string; statistics: Statistic[] }[] };
+    const report = readJsonReport(run.stdout) as unknown as { documents: { status: string; statistics: Statistic[] }[] };
     const [document] = report.documents;
     expect(document!.status).not.toBe('unreadable');
     const rows = document!.statistics.map((statistic) => ({

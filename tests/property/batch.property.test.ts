@@ -2,7 +2,8 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { reportSchema, type Report } from '../../src/report/model.js';
+import type { Report } from '../../src/report/model.js';
+import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 import { bin, builtCliExists, temporaryFolder } from '../batch/cli.js';
 import type { CliIo } from '../../src/cli/common.js';
 
@@ -57,7 +58,7 @@ async function scanJson(runCli: RunCli, args: string[]): Promise<Report> {
   const status = await runCli(['scan', ...args, '--format', 'json', '--fail-on', 'never', '--quiet'], io);
   if (status !== 0 && status !== 2) throw new Error(`exit ${status}: ${stderr}`);
   if (stderr !== '') throw new Error(`unexpected stderr: ${stderr}`);
-  return reportSchema.parse(JSON.parse(stdout));
+  return readJsonReport(stdout);
 }
 
 describe('scan of any multiset of files', () => {

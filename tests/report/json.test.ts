@@ -2,15 +2,15 @@ import { describe, expect, it } from 'vitest';
 import { documentOf, entryJson, entryOf } from '../../src/batch/entry.js';
 import { summarise, tallyOf, summaryOfTallies } from '../../src/report/build.js';
 import { documentJson, documentJsonFromBody, formatJson, formatJsonParts } from '../../src/report/json.js';
-import { reportSchema } from '../../src/report/model.js';
+import { documentFromJson, readJsonReport, reportRecordSchema } from '../../src/report/jsonLayoutSchema.js';
 import { corpusReport, hostileReport } from '../fixtures/report/reports.js';
 
 describe('JSON report', () => {
-  it('holds exactly the report: parsing it gives back every field', () => {
+  it('holds exactly the report: reading it back gives every field, and it is of the published layout', () => {
     for (const report of [corpusReport(), hostileReport()]) {
-      const parsed = JSON.parse(formatJson(report));
-      expect(parsed).toEqual(JSON.parse(JSON.stringify(report)));
-      expect(reportSchema.safeParse(parsed).success).toBe(true);
+      const text = formatJson(report);
+      expect(readJsonReport(text)).toEqual(JSON.parse(JSON.stringify(report)));
+      expect(reportRecordSchema.safeParse(JSON.parse(text)).success).toBe(true);
     }
   });
 
@@ -19,7 +19,7 @@ describe('JSON report', () => {
     const lines = formatJson(report).split('\n');
     const documentLines = lines.filter((line) => line.startsWith('    {"path":'));
     expect(documentLines).toHaveLength(report.documents.length);
-    documentLines.forEach((line, index) => expect(JSON.parse(line.replace(/,$/, ''))).toEqual(JSON.parse(JSON.stringify(report.documents[index]))));
+    documentLines.forEach((line, index) => expect(documentFromJson(JSON.parse(line.replace(/,$/, '')))).toEqual({ ok: true, document: JSON.parse(JSON.stringify(report.documents[index])) }));
     expect(lines).toContain('  "summary": {');
     expect(lines.at(-1)).toBe('');
   });
@@ -34,7 +34,7 @@ describe('JSON report', () => {
     const { path, ...rest } = document!;
     const pathLast = { ...rest, path };
     expect(documentJson(pathLast)).toBe(documentJson(document!));
-    expect(documentJson(document!).startsWith(`{"path":${JSON.stringify(path)},"status":`)).toBe(true);
+    expect(documentJson(document!).startsWith(`{"path":${JSON.stringify(path)},"layout":2,"status":`)).toBe(true);
     expect(documentJsonFromBody('a "quoted" name.txt', '{}')).toBe('{"path":"a \\"quoted\\" name.txt"}');
   });
 });
