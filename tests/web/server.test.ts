@@ -17,9 +17,10 @@ import { startWeb, type RunningWeb } from './startWeb.js';
 function get(url: string, headers: Record<string, string> = {}, method = 'GET', body?: string): Promise<{ status: number; headers: Record<string, string | string[] | undefined>; body: string }> {
   return new Promise((resolve, reject) => {
     const sent = request(url, { method, headers }, (response) => {
-      let text = '';
-      response.on('data', (chunk: Buffer) => (text += chunk.toString('utf8')));
-      response.on('end', () => resolve({ status: response.statusCode ?? 0, headers: response.headers, body: text }));
+      // (Bytes joined before decoding: a chunk may end inside a character of several bytes.)
+      const chunks: Buffer[] = [];
+      response.on('data', (chunk: Buffer) => chunks.push(chunk));
+      response.on('end', () => resolve({ status: response.statusCode ?? 0, headers: response.headers, body: Buffer.concat(chunks).toString('utf8') }));
     });
     sent.on('error', reject);
     sent.end(body);
