@@ -549,4 +549,27 @@ describe('results tables in the shapes papers print them', () => {
       expect(document.tablesNotRead, line).toEqual([]);
     }
   });
+
+  it('reads a table comparing groups whose "χ2 (df)" and "t (df)" columns share one p column, its rows named "Age, mean (SD)"', () => {
+    const rows = [
+      ['Characteristic', 'Intervention (n = 60)', 'Control (n = 58)', 'χ2 (df)', 't (df)', 'p'],
+      ['Female, n (%)', '30 (50.0)', '25 (43.1)', '0.56 (1)', '', '.454'],
+      ['Age (years), mean (SD)', '44.2 (10.1)', '46.0 (11.3)', '', '−0.91 (116)', '.365'],
+      ['Smoker, n (%)', '12 (20.0)', '20 (34.5)', '3.13 (1)', '', '.077'],
+      ['BMI, mean ± SD', '27.1 ± 4.2', '28.3 ± 4.9', '', '−1.43 (116)', '.155'],
+    ];
+    for (const [copy, table] of [
+      ['pipes', rows.map((row) => row.join(' | ')).join('\n')],
+      ['tabs', rows.map((row) => row.join('\t')).join('\n')],
+      ['spaced', rows.map((row) => row.filter((cell) => cell !== '').join('   ')).join('\n')],
+    ]) {
+      const document = scanTextJson(`Table 1. Baseline characteristics\n${table}\n\nNote. χ2, chi-square test.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value]), copy).toEqual([
+        ['chi2', 0.56, [1], 0.454],
+        ['t', -0.91, [116], 0.365],
+        ['chi2', 3.13, [1], 0.077],
+        ['t', -1.43, [116], 0.155],
+      ]);
+    }
+  });
 });

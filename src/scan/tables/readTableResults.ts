@@ -86,6 +86,9 @@ const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic
  */
 const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:(?:m|mean|means)\s?(?:\(sd\)|\u00b1 ?sd|\(se\))|(?:m|mean|means)\s(?:sd|se)|(?:mean|means)(?:sd|se))$|(?:^|\s)(?:mean|means|sd)$/;
 
+/** A variable's name, a comma, then its summary's words: "Age (y), mean (SD)", "BMI, M ± SD", "Score, means". */
+const VARIABLE_THEN_SUMMARY = /^\p{L}[^,]{0,80}, ?(?:M|m|[Mm]eans?)(?: ?\(S[DE]\)| ?\u00b1 ?S[DE]| S[DE])?$/u;
+
 const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
 
 /** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */
@@ -434,7 +437,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     if (errorRows[index] || totalRow || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
     // A row its label calls means and SDs ("Self-paced control M SD 38.98 12.92 ...") holds descriptives, not
     // tests; when it also shows a test's marks (stars, "n.s.", "η2 = .59") they are counted as not read.
-    if (DESCRIPTIVE_ROW_LABEL.test(labelKey)) {
+    // (A variable's name, a comma, then how it is summarised, "Age (y), mean (SD)", "BMI, M ± SD", names the
+    // row of a table comparing groups: its test stands in the test's columns.)
+    if (DESCRIPTIVE_ROW_LABEL.test(labelKey) && !VARIABLE_THEN_SUMMARY.test((row[0] ?? '').trim())) {
       if (row.slice(1).some((cell) => /\*|n\.s\.|=/.test(cell))) rowsWithStatistic++;
       continue;
     }
@@ -1568,6 +1573,14 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
   });
   segments.push(current);
   const withStatistic = segments.filter((segment) => segment.columns.has('statistic'));
+  // Statistics of different kinds side by side before one p column ("χ2 (df) | t (df) | p", a row filling one of
+  // them, as tables comparing groups print categorical and continuous variables): the p is each one's.
+  for (const segment of withStatistic) {
+    if (segment.columns.has('p')) continue;
+    let column = segment.columns.get('statistic')! + 1;
+    while (column < roles.length && roles[column]!.role === 'statistic') column++;
+    if (column > segment.columns.get('statistic')! + 1 && roles[column]?.role === 'p') segment.columns.set('p', column);
+  }
   const first = withStatistic[0];
   for (const segment of withStatistic.slice(1)) {
     for (const key of ['df', 'df1', 'df2', 'n'] as const) {
