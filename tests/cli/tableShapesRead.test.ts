@@ -572,4 +572,26 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it('reads one "χ2/t (df)" or "t or χ2 (df)" column, each row\'s statistic told by its cells (counts or means) and its df in the cell', () => {
+    for (const name of ['χ2/t (df)', 't/χ2 (df)', 't or χ2 (df)']) {
+      const rows = [
+        ['Characteristic', 'Intervention (n = 60)', 'Control (n = 58)', name, 'p'],
+        ['Female, n (%)', '30 (50.0)', '25 (43.1)', '0.56 (1)', '.454'],
+        ['Age (years), mean (SD)', '44.2 (10.1)', '46.0 (11.3)', '−0.91 (116)', '.365'],
+        ['Smoker, n (%)', '12 (20.0)', '20 (34.5)', '3.13 (1)', '.077'],
+      ];
+      for (const [copy, table] of [
+        ['pipes', rows.map((row) => row.join(' | ')).join('\n')],
+        ['tabs', rows.map((row) => row.join('\t')).join('\n')],
+      ]) {
+        const document = scanTextJson(`Table 1. Baseline characteristics\n${table}\n\nNext.\n`);
+        expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value]), `${name} ${copy}`).toEqual([
+          ['chi2', 0.56, [1], 0.454],
+          ['t', -0.91, [116], 0.365],
+          ['chi2', 3.13, [1], 0.077],
+        ]);
+      }
+    }
+  });
 });

@@ -463,7 +463,7 @@ const CONJUNCTION = /^(?:or|and|vs\.?|versus|\/)$/;
 
 /** Two or more statistics' symbols in one header, apart by "/", "or", "and" or a comma. */
 const MIXED_STATISTICS =
-  /^(?:(?:test|statistics?|value)\s*\(\s*)?(?:chi2|chi 2|chi-square|x2|t|f|z|h|u)(?:\s*(?:\/|\bor\b|\band\b|,)\s*(?:chi2|chi 2|chi-square|x2|t|f|z|h|u|fisher(?:'s)?(?: exact)?))+\s*\)?(?:[- ](?:values?|tests?|statistics?))?$/;
+  /^(?:(?:test|statistics?|value)\s*\(\s*)?(?:chi2|chi 2|chi-square|x2|t|f|z|h|u)(?:\s*(?:\/|\bor\b|\band\b|,)\s*(?:chi2|chi 2|chi-square|x2|t|f|z|h|u|fisher(?:'s)?(?: exact)?))+\s*\)?(?:[- ](?:values?|tests?|statistics?))?(?: ?\(df\))?$/;
 
 /** A df value in a header: a whole number or a corrected decimal one. */
 const HEADER_DF_NUMBER = String.raw`(\d{1,5}(?:\.\d{1,3})?)`;
@@ -596,7 +596,7 @@ export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{
  * SDs ("2.45 ± 0.19", "12.1 (3.2)") and no counts give the other statistic, counts with percentages and no
  * means give the chi-square; anything else leaves it unread.
  */
-const TWO_STATISTICS = /^(?:(chi2|x2|chi 2|x 2) ?\/ ?(t|f|z)|(t|f|z) ?\/ ?(chi2|x2|chi 2|x 2))(?: ?(?:values?|tests?))?$/;
+const TWO_STATISTICS = /^(?:(chi2|x2|chi 2|x 2)(?: ?\/ ?| or |, ?)(t|f|z)|(t|f|z)(?: ?\/ ?| or |, ?)(chi2|x2|chi 2|x 2))(?: ?(?:values?|tests?))?( ?\(df\))?$/;
 const MEAN_WITH_SD = /\d ?\u00b1 ?\d|\d\.\d{1,3} ?\(\d{1,4}\.\d{1,3}\)/;
 /** A count with its share: "30 (55.6)", "30 (55.6%)", "12 (9 %)"; a mean with its SD ("12.3 (4.5)") starts with decimals. */
 const COUNT_WITH_SHARE = /(?:^|\s)\d{1,5} ?\(\d{1,3}(?:\.\d{1,2})? ?%?\)|\d ?%/;
@@ -604,6 +604,11 @@ const COUNT_WITH_SHARE = /(?:^|\s)\d{1,5} ?\(\d{1,3}(?:\.\d{1,2})? ?%?\)|\d ?%/;
 /** Whether a header names two statistics, one for categorical and one for continuous variables ("t/χ2"). */
 export function namesTwoStatistics(name: string): boolean {
   return TWO_STATISTICS.test(headerKey(name));
+}
+
+/** Whether such a header says its cells hold their df too ("χ2/t (df)", "t or χ2 (df)"). */
+export function twoStatisticsWithDf(name: string): boolean {
+  return TWO_STATISTICS.exec(headerKey(name))?.[5] !== undefined;
 }
 
 export function statisticOfTwo(name: string, cells: string): ColumnRole | null {
@@ -614,5 +619,6 @@ export function statisticOfTwo(name: string, cells: string): ColumnRole | null {
   const counts = COUNT_WITH_SHARE.test(cells);
   if (means === counts) return null;
   const kind = counts ? 'chi2' : continuous === 't' ? 't' : continuous === 'f' ? 'F' : 'z';
-  return { role: 'statistic', kind, df: [] };
+  // ("χ2/t (df)": each cell holds its value and df, "0.56 (1)".)
+  return match[5] !== undefined ? { role: 'statistic', kind, df: [], dfInCell: true } : { role: 'statistic', kind, df: [] };
 }

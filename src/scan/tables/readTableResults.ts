@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
 import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
@@ -284,9 +284,10 @@ function splitByTwoStatistics(table: DocumentTable): DocumentTable[] | null {
   });
   if (![...groups.keys()].some((kind) => kind !== null)) return null;
   const symbol: Record<string, string> = { t: 't', F: 'F', z: 'z', chi2: 'χ2' };
+  const dfSuffix = twoStatisticsWithDf(name) ? ' (df)' : '';
   return [...groups.entries()].map(([kind, indices]) => ({
     ...table,
-    rows: [...rows.slice(0, headerCount).map((row, at) => (at === headerRow && kind !== null ? row.map((cell, index) => (index === column ? symbol[kind]! : cell)) : row)), ...indices.map((index) => rows[index]!)],
+    rows: [...rows.slice(0, headerCount).map((row, at) => (at === headerRow && kind !== null ? row.map((cell, index) => (index === column ? `${symbol[kind]!}${dfSuffix}` : cell)) : row)), ...indices.map((index) => rows[index]!)],
     headerRows: headerCount,
     ...(table.cells ? { cells: [...table.cells.slice(0, headerCount), ...indices.map((index) => table.cells![index]!)] } : {}),
   }));
