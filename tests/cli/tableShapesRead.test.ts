@@ -594,4 +594,15 @@ describe('results tables in the shapes papers print them', () => {
       }
     }
   });
+
+  it('does not take "Control χ2" for a column when "χ2 or t (df)" follows in a crushed header (the chi-squares are not read as t)', () => {
+    const document = scanTextJson(
+      'Table 1. Baseline characteristics\nCharacteristic Intervention Control χ2 or t (df) p\nFemale, n (%) 30 (50.0) 25 (43.1) 0.56 (1) .454\nAge (years), mean (SD) 44.2 (10.1) 46.0 (11.3) −0.91 (116) .365\nSmoker, n (%) 12 (20.0) 20 (34.5) 3.13 (1) .077\n\nNext.\n',
+    );
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value])).toEqual([
+      ['chi2', 0.56, [1], 0.454],
+      ['t', -0.91, [116], 0.365],
+      ['chi2', 3.13, [1], 0.077],
+    ]);
+  });
 });

@@ -1002,8 +1002,25 @@ const GROUP_NOUN = /^(?:groups?|conditions?|arms?|class(?:es)?|clusters?|types?|
 
 /** Words in the longest known header phrase starting at `index` (0 if none). */
 function knownPhraseLength(tokens: readonly Piece[], index: number): number {
+  const longest = longestKnownPhrase(tokens, index, LONGEST_HEADER_WORDS);
+  // A phrase that ends with a statistic's symbol beginning a name for two statistics ("Control χ2" before
+  // "χ2 or t (df)": words taken for the symbol's qualifier) ends before that symbol: the longer name is the column's.
+  if (longest >= 2) {
+    const last = index + longest - 1;
+    const fromLast = longestKnownPhrase(tokens, last, LONGEST_HEADER_WORDS);
+    const name = tokens
+      .slice(last, last + fromLast)
+      .map((token) => token.text)
+      .join(' ');
+    if (fromLast >= 2 && classifyHeader(tokens[last]!.text).role === 'statistic' && classifyHeader(name).role === 'result') return longestKnownPhrase(tokens, index, longest - 1);
+  }
+  return longest;
+}
+
+/** Words in the longest known header phrase of at most `most` words starting at `index` (0 if none). */
+function longestKnownPhrase(tokens: readonly Piece[], index: number, most: number): number {
   const groupLetter = index > 0 && index < tokens.length && /^[A-Z]$/.test(tokens[index]!.text) && GROUP_NOUN.test(tokens[index - 1]!.text);
-  for (let length = Math.min(LONGEST_HEADER_WORDS, tokens.length - index); length >= 1; length--) {
+  for (let length = Math.min(most, tokens.length - index); length >= 1; length--) {
     const phrase = tokens
       .slice(index, index + length)
       .map((token) => token.text)
