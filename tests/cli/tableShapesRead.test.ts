@@ -605,4 +605,33 @@ describe('results tables in the shapes papers print them', () => {
       ['chi2', 3.13, [1], 0.077],
     ]);
   });
+
+  it('reads a categorical variable\'s test on its own row above its categories, under "χ2/t (df)" or under "χ2 | t | df | p"', () => {
+    const oneColumn = [
+      'Variable | Intervention (n = 60) | Control (n = 58) | χ2/t (df) | p',
+      'Education, n (%) |  |  | 5.91 (2) | .052',
+      'Primary | 10 (16.7) | 15 (25.9) |  | ',
+      'Secondary | 30 (50.0) | 28 (48.3) |  | ',
+      'Tertiary | 20 (33.3) | 15 (25.9) |  | ',
+      'Age (years), mean (SD) | 44.2 (10.1) | 46.0 (11.3) | −0.91 (116) | .365',
+    ];
+    const sharedDf = [
+      'Variable | Intervention (n = 60) | Control (n = 58) | χ2 | t | df | p',
+      'Education, n (%) |  |  |  |  |  | ',
+      'Primary | 10 (16.7) | 15 (25.9) | 5.91 |  | 2 | .052',
+      'Secondary | 30 (50.0) | 28 (48.3) |  |  |  | ',
+      'Age (years), mean (SD) | 44.2 (10.1) | 46.0 (11.3) |  | −0.91 | 116 | .365',
+    ];
+    for (const [layout, lines] of [
+      ['one column', oneColumn],
+      ['shared df', sharedDf],
+    ] as const) {
+      const document = scanTextJson(`Table 1. Baseline characteristics\n${lines.join('\n')}\n\nNext.\n`);
+      // (χ2(2) = 5.91 gives p = .052: SciPy 1.10.1, scipy.stats.chi2.sf(5.91, 2).)
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value]), layout).toEqual([
+        ['chi2', 5.91, [2], 0.052],
+        ['t', -0.91, [116], 0.365],
+      ]);
+    }
+  });
 });

@@ -277,9 +277,16 @@ function splitByTwoStatistics(table: DocumentTable): DocumentTable[] | null {
     const role = statisticOfTwo(name, row.filter((_, index) => index !== column).join('  '));
     return role?.role === 'statistic' ? role.kind : null;
   };
+  // A variable's row that prints only its test, its categories' counts in the rows under it ("Education, n (%)
+  // |  |  | 5.91 (2) | .052" over "Primary | 10 (16.7) | ..."): told by those rows, up to the next test.
+  const kindFromBelow = (at: number): string | null => {
+    const below: string[][] = [];
+    for (let next = at + 1; next < rows.length && below.length < MAX_CATEGORY_ROWS && (rows[next]![column] ?? '').trim() === ''; next++) below.push(rows[next]!);
+    return below.length === 0 ? null : kindOf(below.flat());
+  };
   const groups = new Map<string | null, number[]>();
   rows.slice(headerCount).forEach((row, offset) => {
-    const kind = kindOf(row);
+    const kind = kindOf(row) ?? ((row[column] ?? '').trim() !== '' ? kindFromBelow(headerCount + offset) : null);
     groups.set(kind, [...(groups.get(kind) ?? []), headerCount + offset]);
   });
   if (![...groups.keys()].some((kind) => kind !== null)) return null;
@@ -292,6 +299,9 @@ function splitByTwoStatistics(table: DocumentTable): DocumentTable[] | null {
     ...(table.cells ? { cells: [...table.cells.slice(0, headerCount), ...indices.map((index) => table.cells![index]!)] } : {}),
   }));
 }
+
+/** Most rows of a variable's categories looked at under its row. */
+const MAX_CATEGORY_ROWS = 12;
 
 /** The kinds of statistic the rows' cells name as column names ("χ2", "t", "z"). */
 function statisticNames(rows: string[][]): Set<string> {
@@ -1574,13 +1584,18 @@ function buildSegments(roles: ColumnRole[], kind: StatisticKind, upperHeaders: (
   });
   segments.push(current);
   const withStatistic = segments.filter((segment) => segment.columns.has('statistic'));
-  // Statistics of different kinds side by side before one p column ("χ2 (df) | t (df) | p", a row filling one of
-  // them, as tables comparing groups print categorical and continuous variables): the p is each one's.
+  // Statistics of different kinds side by side before one df and one p column ("χ2 (df) | t (df) | p", "χ2 | t |
+  // df | p", a row filling one of them, as tables comparing groups print categorical and continuous variables):
+  // the df and the p are each one's.
   for (const segment of withStatistic) {
-    if (segment.columns.has('p')) continue;
-    let column = segment.columns.get('statistic')! + 1;
+    const statistic = segment.columns.get('statistic')!;
+    let column = statistic + 1;
     while (column < roles.length && roles[column]!.role === 'statistic') column++;
-    if (column > segment.columns.get('statistic')! + 1 && roles[column]?.role === 'p') segment.columns.set('p', column);
+    if (column === statistic + 1) continue;
+    for (; column < roles.length && (roles[column]!.role === 'df' || roles[column]!.role === 'p'); column++) {
+      const key = roles[column]!.role as 'df' | 'p';
+      if (!segment.columns.has(key)) segment.columns.set(key, column);
+    }
   }
   const first = withStatistic[0];
   for (const segment of withStatistic.slice(1)) {
@@ -1691,7 +1706,8 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
   const label = headerKey(row[0] ?? '');
   if (TOTAL_LABEL.test(label) || INTERCEPT_LABEL.test(label)) return false;
   const columns = segments[0]!.columns;
-  const hasStatistic = readCell(row[columns.get('statistic')!] ?? '', separator).kind === 'number';
+  // (A statistic in any block's column makes the row a test's: "5.91 |  | 2 | .052" under "χ2 | t | df | p".)
+  const hasStatistic = segments.some((segment) => readCell(row[segment.columns.get('statistic')!] ?? '', separator).kind === 'number');
   const numberIn = (key: 'df' | 'df1' | 'ss' | 'ms'): boolean => {
     const column = columns.get(key);
     return column !== undefined && readCell(row[column] ?? '', separator).kind === 'number';
