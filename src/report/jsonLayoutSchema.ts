@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { documentFromRecord, JSON_LAYOUT, summaryFromRecord } from './jsonLayout.js';
-import { documentSchema, reportSchema, type DocumentOutput, type Report } from './model.js';
+import { documentSchema, pDiscrepancySchema, reportSchema, rowImpliesSchema, type DocumentOutput, type Report } from './model.js';
 import { VERDICTS } from './verdict.js';
 
 /**
@@ -92,30 +92,8 @@ export const findingRecordSchema = z.object({
   messageId: z.string().describe('Which of the rule\'s messages this is (stable across versions; the message\'s words may change).'),
   changesConclusion: z.literal(true).optional().describe('Set when the discrepancy puts the p on the other side of the alpha in force; left out otherwise.'),
   slip: z.string().optional().describe('A simple slip that reproduces the printed numbers, when one was found.'),
-  pDiscrepancy: z
-    .object({
-      size: z
-        .enum(['last-digit', 'moderate', 'order-of-magnitude'])
-        .describe(
-          '"last-digit": the printed p is within one unit of its last printed digit of a p that would agree (a p truncated instead of rounded, rounded the wrong way, a digit off by one); "order-of-magnitude": the printed p and the nearest recomputed p are a factor of 10 or more apart; "moderate": between the two.',
-        ),
-      factor: z.number().nullable().describe('How many times larger the larger of the printed p and the nearest recomputed p is (at least 1); null when the recomputed p is 0.'),
-      truncated: z.boolean().describe('True when the printed p is the recomputed p truncated at its last printed digit instead of rounded.'),
-    })
-    .optional()
-    .describe('Set on a finding about a printed p that does not follow from the statistic and df (p-value-mismatch): how large the discrepancy is.'),
-  rowImplies: z
-    .object({
-      from: z.string().describe('What the F is made of: "SS / df over SS / df of \'Error\'" (each mean square from the row\'s own SS and df), or "MS" where a row prints no SS.'),
-      statistic: z.number().describe('F at the printed cells.'),
-      statisticLow: z.number().describe('Smallest F over the values that round to the printed cells.'),
-      statisticHigh: z.number(),
-      p: z.number().nullable().describe('p at that F and the result\'s df; null when the df are not known.'),
-      pLow: z.number().nullable().describe('Smallest p over the same values (at statisticHigh).'),
-      pHigh: z.number().nullable(),
-    })
-    .optional()
-    .describe('Set on a finding about a row of an ANOVA table that does not add up (table-arithmetic): the F and p the row\'s own numbers imply over its error row, beside the printed F and its p.'),
+  pDiscrepancy: pDiscrepancySchema,
+  rowImplies: rowImpliesSchema,
 });
 
 export const resultRecordSchema = z.object({

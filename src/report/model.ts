@@ -9,6 +9,34 @@ import { z } from 'zod';
 const comparatorSchema = z.enum(['=', '<', '>', '<=', '>=']);
 const severitySchema = z.enum(['fail', 'warn', 'note']);
 
+/** How far a printed p is from one that would agree (on a finding of p-value-mismatch). */
+export const pDiscrepancySchema = z
+  .object({
+    size: z
+      .enum(['last-digit', 'moderate', 'order-of-magnitude'])
+      .describe(
+        '"last-digit": the printed p is within one unit of its last printed digit of a p that would agree (a p truncated instead of rounded, rounded the wrong way, a digit off by one); "order-of-magnitude": the printed p and the nearest recomputed p are a factor of 10 or more apart; "moderate": between the two.',
+      ),
+    factor: z.number().nullable().describe('How many times larger the larger of the printed p and the nearest recomputed p is (at least 1); null when the recomputed p is 0.'),
+    truncated: z.boolean().describe('True when the printed p is the recomputed p truncated at its last printed digit instead of rounded.'),
+  })
+  .optional()
+  .describe('Set on a finding about a printed p that does not follow from the statistic and df (p-value-mismatch): how large the discrepancy is.');
+
+/** The F and p a table row's own numbers imply (on a finding of table-arithmetic). */
+export const rowImpliesSchema = z
+  .object({
+    from: z.string().describe('What the F is made of: "SS / df over SS / df of \'Error\'" (each mean square from the row\'s own SS and df), or "MS" where a row prints no SS.'),
+    statistic: z.number().describe('F at the printed cells.'),
+    statisticLow: z.number().describe('Smallest F over the values that round to the printed cells.'),
+    statisticHigh: z.number(),
+    p: z.number().nullable().describe('p at that F and the result\'s df; null when the df are not known.'),
+    pLow: z.number().nullable().describe('Smallest p over the same values (at statisticHigh).'),
+    pHigh: z.number().nullable(),
+  })
+  .optional()
+  .describe('Set on a finding about a row of an ANOVA table that does not add up (table-arithmetic): the F and p the row\'s own numbers imply over its error row, beside the printed F and its p.');
+
 export const findingSchema = z.object({
   rule: z.string().describe('Id of the rule in the catalogue (plumbline rules).'),
   severity: severitySchema,
@@ -16,30 +44,8 @@ export const findingSchema = z.object({
   message: z.string(),
   messageId: z.string(),
   slip: z.string().optional().describe('A simple slip that reproduces the printed numbers, when one was found.'),
-  pDiscrepancy: z
-    .object({
-      size: z
-        .enum(['last-digit', 'moderate', 'order-of-magnitude'])
-        .describe(
-          '"last-digit": the printed p is within one unit of its last printed digit of a p that would agree (a p truncated instead of rounded, rounded the wrong way, a digit off by one); "order-of-magnitude": the printed p and the nearest recomputed p are a factor of 10 or more apart; "moderate": between the two.',
-        ),
-      factor: z.number().nullable().describe('How many times larger the larger of the printed p and the nearest recomputed p is (at least 1); null when the recomputed p is 0.'),
-      truncated: z.boolean().describe('True when the printed p is the recomputed p truncated at its last printed digit instead of rounded.'),
-    })
-    .optional()
-    .describe('Set on a finding about a printed p that does not follow from the statistic and df (p-value-mismatch): how large the discrepancy is.'),
-  rowImplies: z
-    .object({
-      from: z.string().describe('What the F is made of: "SS / df over SS / df of \'Error\'" (each mean square from the row\'s own SS and df), or "MS" where a row prints no SS.'),
-      statistic: z.number().describe('F at the printed cells.'),
-      statisticLow: z.number().describe('Smallest F over the values that round to the printed cells.'),
-      statisticHigh: z.number(),
-      p: z.number().nullable().describe('p at that F and the result\'s df; null when the df are not known.'),
-      pLow: z.number().nullable().describe('Smallest p over the same values (at statisticHigh).'),
-      pHigh: z.number().nullable(),
-    })
-    .optional()
-    .describe('Set on a finding about a row of an ANOVA table that does not add up (table-arithmetic): the F and p the row\'s own numbers imply over its error row, beside the printed F and its p.'),
+  pDiscrepancy: pDiscrepancySchema,
+  rowImplies: rowImpliesSchema,
 });
 
 export const locationSchema = z.object({
