@@ -871,7 +871,13 @@ function readHeaderOf(line: Line): HeaderLine | null {
       // Codes with a digit each ("T0\u20131 T0\u20132", "T1 T2 T3", "W0 W12") are a column each; words ("Time 1",
       // "Baseline", "Difficulty accessing dental care,") are one name.
       const codes = end - index >= 2 && tokens.slice(index, end).every((token) => COLUMN_CODE.test(token.text));
-      if (codes) {
+      // Groups named with their sizes ("Intervention (n = 60) Control (n = 58)"): a column each, counted as
+      // neither known nor unknown (their names say clearly what they are).
+      const sized = codes ? null : namesEndingWithSizes(text, tokens.slice(index, end));
+      if (sized !== null) {
+        columns.push(...sized);
+        unknownRun = -1;
+      } else if (codes) {
         for (let at = index; at < end; at++) columns.push(tokens[at]!);
         unknown += end - index;
       } else {
@@ -976,6 +982,18 @@ function groupsWithSizes(text: string, tokens: readonly Piece[]): { labelEnd: nu
     start = end + 1;
   }
   return { labelEnd: firstStart, groups };
+}
+
+/** Two or more names each ending with its group's size, covering all of `tokens`: a piece per name; null otherwise. */
+function namesEndingWithSizes(text: string, tokens: readonly Piece[]): Piece[] | null {
+  const names: Piece[] = [];
+  let start = 0;
+  tokens.forEach((token, index) => {
+    if (!GROUP_SIZE_END.test(token.text)) return;
+    names.push(join(text, tokens[start]!, token));
+    start = index + 1;
+  });
+  return names.length >= 2 && start === tokens.length ? names : null;
 }
 
 function withGroupSizes(text: string, tokens: readonly Piece[]): Piece[] {
