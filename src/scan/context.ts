@@ -62,6 +62,16 @@ function spelledValue(match: RegExpExecArray): number {
   return 10 * (TENS.indexOf(match[1]!.toLowerCase()) + 2) + (match[2] === undefined ? 0 : UNITS.indexOf(match[2].toLowerCase()) + 1);
 }
 
+/**
+ * Whether a count in words is the tail of a larger one ("One hundred and twenty participants"): read alone it
+ * would be a wrong sample size, and a wrong N is worse than none.
+ */
+function endsLargerNumberWord(text: string, at: number): boolean {
+  const before = text.slice(Math.max(0, at - 14), at).toLowerCase().replace(/[\s\u2010\u2011-]+/g, ' ').trimEnd();
+  const withoutAnd = before.endsWith(' and') ? before.slice(0, -4) : before;
+  return withoutAnd.endsWith('hundred') || withoutAnd.endsWith('thousand');
+}
+
 /** Reads the document context from the normalised text; offsets are mapped to the original. */
 export function readDocumentContext(normalised: NormalisedText): DocumentContext {
   const text = normalised.text;
@@ -73,7 +83,7 @@ export function readDocumentContext(normalised: NormalisedText): DocumentContext
   let word = spelled.exec(text);
   const readWordsBefore = (position: number): void => {
     for (; word !== null && word.index < position; word = spelled.exec(text)) {
-      if (isWholeWordStart(text, word.index)) found.sampleSize(readSampleNoun(text, word.index + word[0].length, word.index, spelledValue(word)));
+      if (isWholeWordStart(text, word.index) && !endsLargerNumberWord(text, word.index)) found.sampleSize(readSampleNoun(text, word.index + word[0].length, word.index, spelledValue(word)));
     }
   };
   for (let match = anchor.exec(text); match !== null; match = anchor.exec(text)) {

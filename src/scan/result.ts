@@ -210,7 +210,8 @@ export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: Re
   if (count === 1) return { df: [first.number], end: first.end };
   position = first.end;
   const separator = text.charCodeAt(position);
-  if (separator !== 44 && separator !== 47 && separator !== 59) return null; // "," "/" ";"
+  if (text.startsWith(' and ', position)) position += 4; // "d.f. = 1 and 23"
+  else if (separator !== 44 && separator !== 47 && separator !== 59) return null; // "," "/" ";"
   position++;
   while (isSpaceCode(text.charCodeAt(position))) position++;
   const second = readDfNumber(text, position);
@@ -223,10 +224,13 @@ export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: Re
  * one otherwise), and only where the brackets stand right after the value: "t = 2.05 (SE = 0.4)" is not df.
  */
 const BRACKETED_DF = /^\( ?(\d{1,6}(?:\.\d{1,3})?)(?: ?[,;] ?(\d{1,6}(?:\.\d{1,3})?))? ?\)/;
+/** The same in square brackets, whole numbers only ("F = 4.50 [1, 23]"): square brackets with decimals are an interval. */
+const SQUARE_BRACKETED_DF = /^\[ ?(\d{1,6})(?: ?[,;] ?(\d{1,6}))? ?\]/;
 
 function readBracketedDf(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
-  if (text.charCodeAt(at) !== 40) return null; // "("
-  const match = BRACKETED_DF.exec(text.slice(at, at + 30));
+  const opening = text.charCodeAt(at);
+  if (opening !== 40 && opening !== 91) return null; // "(" or "["
+  const match = (opening === 40 ? BRACKETED_DF : SQUARE_BRACKETED_DF).exec(text.slice(at, at + 30));
   if (match === null || (match[2] === undefined) !== (count === 1)) return null;
   const df = [match[1], match[2]].filter((part): part is string => part !== undefined).map((part) => parseReportedNumber(part)!);
   if (df.some((number) => number.value < 1) || (df.length === 2 && df[0]!.value > df[1]!.value)) return null;
@@ -281,12 +285,53 @@ function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): bool
 function readTailPValue(text: string, at: number, gluedToValue = false): ReportedP | null {
   const p = readPValue(text, at, true, gluedToValue);
   if (p !== null) return p;
+  const described = describedPValue(text, at);
+  if (described !== null) return described;
   const quantifier = quantifierLength(text, at);
   if (quantifier === 0) return null;
   const shared = readPValue(text, at + quantifier, true);
   // "all p < .05" is as plural as "all ps < .05".
   if (shared !== null) shared.plural = true;
   return shared;
+}
+
+/**
+ * Words that say how a p was worked out, written before it: "two-tailed p = .02", "exact p = .031",
+ * "Bonferroni-corrected p = .04". The p is the result's all the same; the tails and the adjustment are read
+ * from the same words by the document context and the adjustment reader.
+ */
+const P_DESCRIPTIONS: ReadonlySet<string> = new Set([
+  'two-tailed', 'two-sided', 'one-tailed', 'one-sided', 'exact', 'uncorrected', 'unadjusted', 'corrected', 'adjusted',
+  'bonferroni-corrected', 'bonferroni-adjusted', 'holm-corrected', 'holm-adjusted', 'fdr-corrected', 'fdr-adjusted',
+  'tukey-adjusted', 'asymptotic', 'permutation', 'bootstrapped',
+]);
+/** Longest such word read. */
+const MAX_P_DESCRIPTION = 22;
+
+/** A p after a describing word ("two-tailed p = .02"), or SPSS's "Sig. = .020" after a statistic; null otherwise. */
+function describedPValue(text: string, at: number): ReportedP | null {
+  if (!startsWord(text, at) || !isAsciiLetter(text.charCodeAt(at))) return null;
+  if (text.startsWith('Sig.', at) || text.startsWith('sig.', at)) {
+    const signAt = skipSpaceRun(text, at + 4);
+    const sign = text.charCodeAt(signAt);
+    if (sign !== 61 && sign !== 60 && sign !== 62) return null; // "=", "<", ">"
+    // Read as "p " and what follows the word (the comparator and the value); offset i there is signAt - 2 + i here.
+    const read = readPValue(`p ${text.slice(signAt, signAt + 24)}`, 0, true);
+    if (read === null) return null;
+    return { ...read, start: at, end: signAt - 2 + read.end };
+  }
+  let end = at;
+  const limit = Math.min(text.length, at + MAX_P_DESCRIPTION + 1);
+  while (end < limit && (isAsciiLetter(text.charCodeAt(end)) || text.charCodeAt(end) === 45)) end++;
+  if (end === limit || text.charCodeAt(end) !== 32) return null;
+  if (!P_DESCRIPTIONS.has(text.slice(at, end).toLowerCase())) return null;
+  return readPValue(text, end + 1, true);
+}
+
+function skipSpaceRun(text: string, at: number): number {
+  let position = at;
+  while (text.charCodeAt(position) === 32) position++;
+  return position;
 }
 
 /** Length of "all " or "both " (with its space) at `at`; 0 otherwise. */

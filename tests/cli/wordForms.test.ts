@@ -112,3 +112,38 @@ describe('a chi-square whose superscript follows its df, and a p in a spreadshee
   });
 });
 
+
+describe('p and df written in further ways after a statistic, from the command line', () => {
+  // F(2, 57) = 4.21 gives p = .0197; F(1, 23) = 4.50 gives p = .0449; t(38) = 2.45 gives p = .0190 (SciPy 1.10.1
+  // scipy.stats.f.sf and 2 * scipy.stats.t.sf, computed when the test was written).
+  const readAll = (text: string): unknown[][] =>
+    scanTextJson(text).statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value, statistic.p === null ? null : `${statistic.p.comparator} ${statistic.p.text}`]);
+
+  it('reads a p after a word that says how it was worked out ("two-tailed p", "two-sided p") and SPSS\'s "Sig."', () => {
+    const text = 'Group differed, F(2, 57) = 4.21, two-tailed p = .020. Scores differed (t(38) = 2.45, two-sided p = .019). Time mattered, F(2, 57) = 4.21, Sig. = .020.\n';
+    expect(readAll(text)).toEqual([
+      ['F', [2, 57], 4.21, '= .020'],
+      ['t', [38], 2.45, '= .019'],
+      ['F', [2, 57], 4.21, '= .020'],
+    ]);
+  });
+
+  it('flags a p after "two-tailed" that the statistic cannot give', () => {
+    const statistics = scanTextJson('Group differed, F(2, 57) = 4.21, two-tailed p = .20.\n').statistics;
+    expect(statistics.flatMap((statistic) => statistic.findings.map((finding) => finding.rule))).toContain('p-value-mismatch');
+  });
+
+  it('reads df in square brackets after the value and df joined by "and" ("F = 4.50 [1, 23]", "d.f. = 1 and 23")', () => {
+    const text = 'The effect was significant (F = 4.50 [1, 23], p = .045). So was the other (F = 4.50, d.f. = 1 and 23, P = 0.045).\n';
+    expect(readAll(text)).toEqual([
+      ['F', [1, 23], 4.5, '= .045'],
+      ['F', [1, 23], 4.5, '= 0.045'],
+    ]);
+  });
+
+  it('does not take square brackets with decimals after an F for its df (they are an interval)', () => {
+    const statistics = scanTextJson('The effect was significant (F = 4.50 [1.2, 9.8], p = .045).\n').statistics;
+    // (An F in running text without its df is not read at all, so nothing is left.)
+    expect(statistics).toEqual([]);
+  });
+});
