@@ -32,6 +32,15 @@ describe('plumbline check --format json: context from the rest of the document',
     expect(status).toBe(0); // nothing at fail
   });
 
+  it('1b. a count in words that is the tail of a larger one ("One hundred and twenty participants") is not taken for the study N', () => {
+    const { statistics } = check('One hundred and twenty participants took part. Liking correlated with age, r = .30, p = .004.');
+    expect(statistics).toHaveLength(1);
+    expect(statistics[0]!.df).toEqual([]);
+    expect(statistics[0]!.dfFrom).toBeUndefined();
+    // The same sentence with the count alone ("Twenty participants") gives df = 18.
+    expect(check('Twenty participants took part. Liking correlated with age, r = .30, p = .004.').statistics[0]).toMatchObject({ df: [18], dfFrom: 'study-sample-size' });
+  });
+
   it('2. an adjusted p larger than the unadjusted one is a note saying why, not a mismatch', () => {
     // t(28) = 2.10: p = .0449 (SciPy 1.10.1, 2 * scipy.stats.t.sf); the printed Tukey p is .135.
     const { status, statistics } = check('Pairwise comparisons were Tukey-corrected. Group A scored higher than group B, t(28) = 2.10, p = .135.');
