@@ -550,6 +550,25 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads on past a running head in a table copied with tabs, and one in a crushed table of correlations', () => {
+    const tabbed = scanTextJson(
+      'Table 2. ANOVA of the outcome measures\nOutcome\tF\tdf\tp\nDepression\t4.21\t1, 58\t.045\nAnxiety\t2.11\t1, 58\t.152\nJournal of Invented Studies 2021, 9, 522 11 of 16\nOutcome\tF\tdf\tp\nQuality of life\t6.66\t1, 58\t.012\nSleep\t8.30\t1, 58\t.006\n\nThe next section.\n',
+    );
+    expect(readAs(tabbed.statistics)).toEqual([
+      ['F', 4.21, [1, 58]],
+      ['F', 2.11, [1, 58]],
+      ['F', 6.66, [1, 58]],
+      ['F', 8.3, [1, 58]],
+    ]);
+    // A crushed table of correlations (N = 60 in the caption): the rows after the page's running head keep their columns.
+    const crushed = scanTextJson(
+      'Table 3.\nSpearman correlations between gait and test scores (N = 60).\nGait Variables Memory Attention\nGait speed 0.449 †† 0.430 ††\nStride length 0.446 †† 0.422 ††\nCadence 0.199 0.191\nPage 12 of 30\nDouble support −0.153 −0.149\nSwing phase 0.192 0.182\n†p < 0.05; †† p < 0.01.\n',
+    );
+    const read = crushed.statistics.map((statistic) => statistic.value);
+    expect(read).toEqual(expect.arrayContaining([0.449, 0.43, -0.153, -0.149, 0.192, 0.182]));
+    expect(crushed.tablesNotRead).toEqual([]);
+  });
+
   it('reads a table comparing groups whose "χ2 (df)" and "t (df)" columns share one p column, its rows named "Age, mean (SD)"', () => {
     const rows = [
       ['Characteristic', 'Intervention (n = 60)', 'Control (n = 58)', 'χ2 (df)', 't (df)', 'p'],

@@ -421,6 +421,17 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
         rows.push([{ text: line.text.trim(), start: line.start + lead, end: line.start + lead + line.text.trim().length }]);
         continue;
       }
+      // (A lone number right before a row is taken as a piece of a row above.)
+      // A page's running head, footer or page number where the table runs over a page break, with the header
+      // printed again after it: passed over when the table's rows go on after it (as in spaced tables).
+      if (rows.length > 1 && isPageFurniture(lines[index]!.text)) {
+        let resume = index + 1;
+        while (resume < lines.length && resume - index <= MAX_PAGE_BREAK_LINES && (isBlank(lines[resume]) || isPageFurniture(lines[resume]!.text) || repeatsRow(lines[resume]!, rows[0]!))) resume++;
+        if (resume < lines.length && tabCells(lines[resume]!) !== null) {
+          index = resume - 1;
+          continue;
+        }
+      }
       break;
     }
     rows.push(cells);
@@ -441,6 +452,12 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
     layout: 'aligned',
     cells: merged.map((row) => row.map((cell) => (cell.text === '' ? null : { start: cell.start, end: cell.end }))),
   };
+}
+
+/** Whether a line's tab cells say what `row`'s cells say (a header printed again after a page break). */
+function repeatsRow(line: Line, row: readonly Piece[]): boolean {
+  const cells = tabCells(line);
+  return cells !== null && cells.length === row.length && cells.every((cell, index) => cell.text.trim() === row[index]!.text.trim());
 }
 
 /** The cells of a pipe row with their offsets in the text (the same cells pipeCells reads). */
@@ -1190,7 +1207,8 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
     if (readRowLine(lines[at]!, false) !== null) return true;
     // Rows run together on one line ("BI − −0.260 0.138 … FTRS Healthy −0.038 0.829 …"), whatever its length.
     if (splitRunOnRows(lines[at]!).length > 0) return true;
-    if (!isSectionLine(lines[at])) return false;
+    // (A page's running head between a section line and its rows is passed over by the reader.)
+    if (!isSectionLine(lines[at]) && !isPageFurniture(lines[at]!.text)) return false;
   }
   return false;
 }
@@ -1247,6 +1265,8 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   for (; index < lines.length && rows.length < MAX_CORRELATION_ROWS; index++) {
     const line = lines[index]!;
     if (isBlank(line)) continue;
+    // A page's running head or number between two rows of the matrix (the rows go on after it with as many values).
+    if (rows.length > 0 && isPageFurniture(line.text) && rowOfWidthFollows(lines, index, valuesWithoutMarks(rows[rows.length - 1]!.slice(1)))) continue;
     if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
     const tokens = tokenize(line.text);
     const first = tokens.findIndex((token) => isValueToken(token.text));
@@ -1276,6 +1296,20 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     },
     lastLine: last,
   };
+}
+
+function valuesWithoutMarks(cells: readonly string[]): number {
+  return cells.filter((cell) => !isMarkToken(cell)).length;
+}
+
+/** Whether, past blank lines and page furniture, the next line is a labelled row of `width` values (marks apart). */
+function rowOfWidthFollows(lines: Line[], index: number, width: number): boolean {
+  let next = index + 1;
+  while (next < lines.length && next - index <= MAX_PAGE_BREAK_LINES && (isBlank(lines[next]) || isPageFurniture(lines[next]!.text))) next++;
+  if (next >= lines.length || next - index > MAX_PAGE_BREAK_LINES) return false;
+  const tokens = tokenize(lines[next]!.text);
+  const first = tokens.findIndex((token) => isValueToken(token.text));
+  return first > 0 && valuesWithoutMarks(tokens.slice(first).map((token) => token.text)) === width;
 }
 
 /**
@@ -1407,7 +1441,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     // A page's running head, footer or page number where the table runs over a page break ("Page 12 of 30",
     // "BMC Psychiatry (2021) 21:522", "Table 2 (continued)"), with the header printed again after it: passed over
     // when the table's rows go on after it.
-    if (header !== null && dataRows > 0 && isPageFurniture(line.text)) {
+    if (dataRows > 0 && isPageFurniture(line.text)) {
       let resume = index + 1;
       while (resume < lines.length && resume - index <= MAX_PAGE_BREAK_LINES && (isBlank(lines[resume]!) || isPageFurniture(lines[resume]!.text) || readHeader(lines[resume]!) !== null)) resume++;
       if (resume < lines.length && readRowLine(lines[resume]!, false) !== null) {

@@ -272,10 +272,49 @@ function figuresLine(name: string, f: Figures): string {
 /**
  * How a copy can hand over a pipe table's rows: tab-separated, crushed into single spaces, one cell per line
  * with blank lines between cells, one cell per line on consecutive lines (an empty cell an empty line), or
- * aligned by runs of spaces (as a PDF's text laid out by position).
+ * aligned by runs of spaces (as a PDF's text laid out by position); and tabs, crushed or aligned with a page's
+ * running head in the middle of the table (a table that runs over a page break in a PDF).
  */
-export type Rendering = 'tabs' | 'crushed' | 'cell-per-line' | 'consecutive-lines' | 'aligned';
-const RENDERINGS: readonly Rendering[] = ['tabs', 'crushed', 'cell-per-line', 'consecutive-lines', 'aligned'];
+export type Rendering =
+  | 'tabs'
+  | 'crushed'
+  | 'cell-per-line'
+  | 'consecutive-lines'
+  | 'aligned'
+  | 'tabs-page-break'
+  | 'crushed-page-break'
+  | 'aligned-page-break';
+const RENDERINGS: readonly Rendering[] = ['tabs', 'crushed', 'cell-per-line', 'consecutive-lines', 'aligned', 'tabs-page-break', 'crushed-page-break', 'aligned-page-break'];
+
+/** An invented running head and page number, as a PDF's text puts them where a table runs over a page break. */
+const RUNNING_HEAD = 'Journal of Invented Studies 2021, 9, 522 11 of 16';
+
+/**
+ * Each block of at least four table rows with a page's running head after its middle row (`render` writes a row
+ * as one line); the other lines as they are.
+ */
+function withPageBreaks(rows: readonly (string | string[])[], render: (row: string[]) => string): string {
+  const out: string[] = [];
+  let block: string[] = [];
+  const flush = (): void => {
+    const middle = Math.floor(block.length / 2);
+    block.forEach((line, index) => {
+      out.push(line);
+      if (index === middle && block.length >= 4) out.push(RUNNING_HEAD);
+    });
+    block = [];
+  };
+  for (const row of rows) {
+    if (Array.isArray(row)) {
+      block.push(render(row));
+      continue;
+    }
+    flush();
+    out.push(row);
+  }
+  flush();
+  return out.join('\n');
+}
 
 /**
  * A passage's pipe rows rendered another way, moving cells but never
@@ -285,6 +324,12 @@ const RENDERINGS: readonly Rendering[] = ['tabs', 'crushed', 'cell-per-line', 'c
 export function rerender(text: string, rendering: Rendering): string {
   const lines = text.split('\n').filter((line) => !/^\s*\|?\s*-{3,}/.test(line));
   const rows = lines.map((line) => (line.includes('|') ? line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/) : line));
+  const tabbed = (row: string[]): string => row.join('\t');
+  const crushed = (row: string[]): string => row.filter((cell) => cell !== '').join(' ');
+  const aligned = (row: string[]): string => row.map((cell) => (cell === '' ? ' ' : cell)).join('   ');
+  if (rendering === 'tabs-page-break') return withPageBreaks(rows, tabbed);
+  if (rendering === 'crushed-page-break') return withPageBreaks(rows, crushed);
+  if (rendering === 'aligned-page-break') return withPageBreaks(rows, aligned);
   if (rendering === 'tabs') return rows.map((row) => (Array.isArray(row) ? row.join('\t') : row)).join('\n');
   if (rendering === 'crushed') return rows.map((row) => (Array.isArray(row) ? row.filter((cell) => cell !== '').join(' ') : row)).join('\n');
   if (rendering === 'consecutive-lines') return rows.map((row) => (Array.isArray(row) ? row.join('\n') : row)).join('\n');
