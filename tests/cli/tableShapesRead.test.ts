@@ -569,6 +569,33 @@ describe('results tables in the shapes papers print them', () => {
     expect(crushed.tablesNotRead).toEqual([]);
   });
 
+  it('reads rows whose long labels the page wrapped over two lines, copied with tabs, crushed or aligned', () => {
+    const rows = [
+      ['Effect', 'F', 'df', 'p'],
+      ['Stimulus type', '13.26', '2, 58', '<.001'],
+      ['Stimulus type', '× Emotion', '53.41', '6, 174', '<.001'],
+      ['Anger: FLD vs.', 'PLD vs. Static', '43.48', '1, 29', '<.001'],
+      ['Participants living in shared', 'households', '4.81', '1, 29', '.036'],
+    ];
+    const copies: [string, (cells: string[]) => string][] = [
+      ['tabs', (cells) => cells.join('\t')],
+      ['crushed', (cells) => cells.join(' ')],
+      ['aligned', (cells) => cells.join('   ')],
+    ];
+    for (const [copy, join] of copies) {
+      // A wrapped label's first words stand alone on a line; the rest opens the row's line.
+      const lines = rows.flatMap((row, index) => (index === 0 || row.length === 4 ? [join(row)] : [row[0]!, join(row.slice(1))]));
+      const document = scanTextJson(`Table 3. Repeated-measures ANOVA of accuracy\n${lines.join('\n')}\n\nThe next section.\n`);
+      expect(readAs(document.statistics), copy).toEqual([
+        ['F', 13.26, [2, 58]],
+        ['F', 53.41, [6, 174]],
+        ['F', 43.48, [1, 29]],
+        ['F', 4.81, [1, 29]],
+      ]);
+      expect(document.tablesNotRead, copy).toEqual([]);
+    }
+  });
+
   it('reads a table comparing groups whose "χ2 (df)" and "t (df)" columns share one p column, its rows named "Age, mean (SD)"', () => {
     const rows = [
       ['Characteristic', 'Intervention (n = 60)', 'Control (n = 58)', 'χ2 (df)', 't (df)', 'p'],

@@ -415,7 +415,19 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
       // A lone value between rows ("0.50 (0.32, 0.74)") is a piece of a row the page broke over lines; it is
       // joined with the pieces around it below.
       const loneValue = !isBlank(lines[index]) && isValueToken(lines[index]!.text.trim());
-      if ((isSectionLine(lines[index]) || loneValue) && nextIsRow) {
+      // A row label the page wrapped: its first words alone on a line, the rest in the row's first cell below
+      // ("Cats living in multicat" / "households less aggressive<tab>t-test<tab>…"): one label.
+      const wrappedLabel = rows.length > 0 && nextIsRow ? wrappedLabelHead(lines[index]!, tabCells(lines[index + 1]!)![0]!) : null;
+      if (wrappedLabel !== null) {
+        const nextCells = tabCells(lines[index + 1]!)!;
+        rows.push([{ text: `${wrappedLabel.text} ${nextCells[0]!.text}`, start: wrappedLabel.start, end: nextCells[0]!.end }, ...nextCells.slice(1)]);
+        last = ++index;
+        continue;
+      }
+      // (A section line may stand over a row whose label is wrapped.)
+      const afterNext = lines[index + 2] === undefined ? null : tabCells(lines[index + 2]!);
+      const nextIsWrappedRow = !nextIsRow && afterNext !== null && lines[index + 1] !== undefined && wrappedLabelHead(lines[index + 1]!, afterNext[0]!) !== null;
+      if ((isSectionLine(lines[index]) && (nextIsRow || nextIsWrappedRow)) || (loneValue && nextIsRow)) {
         const line = lines[index]!;
         const lead = leadingSpace(line.text);
         rows.push([{ text: line.text.trim(), start: line.start + lead, end: line.start + lead + line.text.trim().length }]);
@@ -452,6 +464,36 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
     layout: 'aligned',
     cells: merged.map((row) => row.map((cell) => (cell.text === '' ? null : { start: cell.start, end: cell.end }))),
   };
+}
+
+/**
+ * The first words of a row label that a page wrapped, on a line of their own over the row's first cell: a line of
+ * words only (no tab, no value) whose label goes on in that cell, told by the cell starting in small letters or by
+ * the line ending where a label cannot (a comma, a hyphen, "and", "of"...). Null otherwise (a section line stays one).
+ */
+function wrappedLabelHead(line: Line, firstCell: Piece): Piece | null {
+  const text = line.text.trim();
+  if (text === '' || text.length > MAX_ROW_LENGTH || text.includes('\t') || TITLE.test(text) || NOTE.test(text) || isPageFurniture(text)) return null;
+  if (firstCell.text === '' || !/^[\p{L}(\u00d7*&]/u.test(firstCell.text) || isValueToken(text.split(/\s+/).pop()!)) return null;
+  if (!labelGoesOn(text, firstCell.text, true)) return null;
+  const lead = leadingSpace(line.text);
+  return { text, start: line.start + lead, end: line.start + lead + text.length };
+}
+
+/**
+ * Whether a label's first words (`head`, a line of their own) go on in the label below (`rest`): the head ends
+ * where a label cannot (a comma, a hyphen, "and", "of", "vs."), the rest starts in brackets or with an
+ * interaction's sign ("× Emotion"), or (`orLowerCase`: where rows are not categories under a variable) in small
+ * letters; or the head is a numbered matrix label ("1. SPAS a" over "Total Score") and the rest is not numbered.
+ */
+function labelGoesOn(head: string, rest: string, orLowerCase: boolean): boolean {
+  return (
+    /^[(\u00d7*&]/u.test(rest) ||
+    (orLowerCase && /^\p{Ll}/u.test(rest)) ||
+    /[,\-\u2013/]$/.test(head) ||
+    /\s(?:and|or|of|in|to|with|for|the|than|from|on|at|by|vs\.?|versus)$/i.test(head) ||
+    (NUMBERED_LABEL.test(head) && !/^\d/.test(rest))
+  );
 }
 
 /** Whether a line's tab cells say what `row`'s cells say (a header printed again after a page break). */
@@ -1258,6 +1300,8 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     if (line.text.length > MAX_ROW_LENGTH || diagonalOnly || tokens.some((token) => isValueToken(token.text) && /\d/.test(token.text))) break;
     // A header with known column names ("r (P value)", "M SD r p") is read by the other readers.
     if (readHeader(line) !== null) return null;
+    // The first row, its label wrapped by the page, ends the header.
+    if (headers.length > 0 && wrappedNumberedRow(line, lines[index + 1], true) !== null) break;
     headers.push(tokens.map((token) => token.text));
   }
   const rows: string[][] = [];
@@ -1270,6 +1314,14 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
     const tokens = tokenize(line.text);
     const first = tokens.findIndex((token) => isValueToken(token.text));
+    // A label the page wrapped over two lines, numbered ("1. SPAS a" / "Total Score - - -") or going on in small
+    // letters ("Spatial-temporal parameters Gait" / "speed 0.449 †† 0.430 ††"): one row.
+    const wrapped = first === -1 ? wrappedNumberedRow(line, lines[index + 1], true) : null;
+    if (wrapped !== null) {
+      rows.push(wrapped);
+      last = ++index;
+      continue;
+    }
     if (first <= 0) break;
     rows.push([tokens.slice(0, first).map((token) => token.text).join(' '), ...tokens.slice(first).map((token) => token.text)]);
     last = index;
@@ -1297,6 +1349,42 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     lastLine: last,
   };
 }
+
+/**
+ * A matrix row whose numbered label a page wrapped: a line with the number and the label's first words and no
+ * value, then a line with the rest of the label (not numbered itself) and the values. Null otherwise.
+ */
+function wrappedNumberedRow(line: Line, next: Line | undefined, orLowerCase = false): string[] | null {
+  const head = line.text.trim();
+  if (next === undefined || head.length > MAX_WRAPPED_LABEL || TITLE.test(next.text) || NOTE.test(next.text) || TITLE.test(head) || NOTE.test(head)) return null;
+  if (!NUMBERED_LABEL.test(head) && !(orLowerCase && /^\p{Ll}/u.test(next.text.trim()))) return null;
+  const tokens = tokenize(next.text);
+  const first = tokens.findIndex((token) => isValueToken(token.text));
+  if (first <= 0 || NUMBERED_LABEL.test(next.text.trim()) || /^\d/.test(tokens[0]!.text)) return null;
+  return [`${head} ${tokens.slice(0, first).map((token) => token.text).join(' ')}`, ...tokens.slice(first).map((token) => token.text)];
+}
+
+/**
+ * A row whose label the page wrapped (see labelGoesOn; rows starting in small letters may be categories here, so
+ * they do not tell), for the spaced reader: the row as a data line whose label runs from the first line into the second.
+ */
+function wrappedLabelDataLine(line: Line, next: Line | undefined): DataLine | null {
+  const head = line.text.trim();
+  if (next === undefined || head === '' || head.length > MAX_WRAPPED_LABEL || TITLE.test(head) || NOTE.test(head) || isPageFurniture(head) || readDataLine(line, 1) !== null) return null;
+  const rest = next.text.trim();
+  if (rest === '' || /^\d/.test(rest) || TITLE.test(rest) || NOTE.test(rest) || !labelGoesOn(head, rest, false)) return null;
+  // Read as one line (so that a numbered row of dashes alone is a row, as it is unwrapped); the values are then
+  // taken from the second line, where they stand (their offsets relative to it, as every row's are).
+  const joined = readDataLine({ ...next, text: `${head} ${rest}` }, 1);
+  if (joined === null || joined.label.text.length <= head.length) return null;
+  const tokens = tokenize(next.text);
+  const values = tokens.slice(tokens.length - joined.values.length);
+  if (values.length === 0 || values.length === tokens.length) return null;
+  return { label: { text: joined.label.text, start: 0, end: 0 }, values };
+}
+
+/** Longest first line of a wrapped label ("1. Post-traumatic"). */
+const MAX_WRAPPED_LABEL = 40;
 
 function valuesWithoutMarks(cells: readonly string[]): number {
   return cells.filter((cell) => !isMarkToken(cell)).length;
@@ -1419,6 +1507,16 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       widest = Math.max(widest, labelAbove.length);
       dataRows++;
       last = index;
+      continue;
+    }
+    // A label the page wrapped over two lines ("1. SPAS a" / "Total Score - - -", "Anger: FLD vs." / "PLD vs. Static
+    // 43.48 …"): one row.
+    const wrappedRow = wrappedLabelDataLine(line, lines[index + 1]);
+    if (wrappedRow !== null) {
+      widest = Math.max(widest, wrappedRow.values.length);
+      rows.push({ data: wrappedRow, line: lines[index + 1]! });
+      dataRows++;
+      last = ++index;
       continue;
     }
     // Under a header of one value column ("Variable r (p)"), a row holds one value ("Age .30 (.020)").

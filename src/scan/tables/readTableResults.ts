@@ -2342,11 +2342,27 @@ function matchWithLabelAbove(text: string, lines: LocatedCell[], line: number, r
   if (above >= 0 && text.slice(lines[above]!.start, lines[above]!.end).trim() === '') above--;
   if (above < 0) return null;
   const aboveText = text.slice(lines[above]!.start, lines[above]!.end);
+  // A label the page wrapped: its first words on the line above, the rest before the values ("1. SPAS a" / "Total
+  // Score - - -"); the label's cell runs from the line above into this one.
+  const wrappedHead = aboveText.trim();
+  if (wrappedHead !== '' && label.length > wrappedHead.length + 1 && label.startsWith(`${wrappedHead} `)) {
+    const rest = matchRow(text, lines[line]!, [label.slice(wrappedHead.length + 1), ...row.slice(1)]);
+    if (rest === null || rest[0] === null || rest[0]!.start !== lines[line]!.start + leadingSpaces(text, lines[line]!)) return null;
+    const headStart = lines[above]!.start + aboveText.indexOf(wrappedHead);
+    return [{ start: headStart, end: rest[0]!.end }, ...rest.slice(1)];
+  }
   if (aboveText.trim() !== label) return null;
   const values = matchRow(text, lines[line]!, ['', ...row.slice(1)]);
   if (values === null) return null;
   const labelStart = lines[above]!.start + aboveText.indexOf(label);
   return [{ start: labelStart, end: labelStart + label.length }, ...values.slice(1)];
+}
+
+/** How many spaces and tabs open a line. */
+function leadingSpaces(text: string, line: LocatedCell): number {
+  let at = line.start;
+  while (at < line.end && (text.charCodeAt(at) === 32 || text.charCodeAt(at) === 9)) at++;
+  return at - line.start;
 }
 
 function matchRow(text: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {

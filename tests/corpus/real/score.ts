@@ -272,8 +272,9 @@ function figuresLine(name: string, f: Figures): string {
 /**
  * How a copy can hand over a pipe table's rows: tab-separated, crushed into single spaces, one cell per line
  * with blank lines between cells, one cell per line on consecutive lines (an empty cell an empty line), or
- * aligned by runs of spaces (as a PDF's text laid out by position); and tabs, crushed or aligned with a page's
- * running head in the middle of the table (a table that runs over a page break in a PDF).
+ * aligned by runs of spaces (as a PDF's text laid out by position); tabs, crushed or aligned with a page's
+ * running head in the middle of the table (a table that runs over a page break in a PDF); and tabs, crushed or
+ * aligned with long row labels wrapped over two lines (a PDF's narrow label column).
  */
 export type Rendering =
   | 'tabs'
@@ -283,8 +284,62 @@ export type Rendering =
   | 'aligned'
   | 'tabs-page-break'
   | 'crushed-page-break'
-  | 'aligned-page-break';
-const RENDERINGS: readonly Rendering[] = ['tabs', 'crushed', 'cell-per-line', 'consecutive-lines', 'aligned', 'tabs-page-break', 'crushed-page-break', 'aligned-page-break'];
+  | 'aligned-page-break'
+  | 'tabs-wrapped-labels'
+  | 'crushed-wrapped-labels'
+  | 'aligned-wrapped-labels';
+const RENDERINGS: readonly Rendering[] = [
+  'tabs',
+  'crushed',
+  'cell-per-line',
+  'consecutive-lines',
+  'aligned',
+  'tabs-page-break',
+  'crushed-page-break',
+  'aligned-page-break',
+  'tabs-wrapped-labels',
+  'crushed-wrapped-labels',
+  'aligned-wrapped-labels',
+];
+
+/** Longest row label kept on one line in the wrapped renderings. */
+const WRAP_LABELS_OVER = 18;
+
+/**
+ * The body rows (not the header rows above a pipe table's separator) whose label is longer than
+ * WRAP_LABELS_OVER characters and has two words or more, with the label's first half alone on a line and the
+ * rest on the row's line, as a PDF's text gives a label its cell wrapped (values level with the label's last line).
+ */
+function withWrappedLabels(text: string, render: (row: string[]) => string): string {
+  const out: string[] = [];
+  let inBlock = false;
+  let separatorSeen = false;
+  for (const line of text.split('\n')) {
+    if (/^\s*\|?\s*-{3,}/.test(line)) {
+      separatorSeen = true;
+      continue;
+    }
+    if (!line.includes('|')) {
+      inBlock = false;
+      out.push(line);
+      continue;
+    }
+    if (!inBlock) {
+      inBlock = true;
+      separatorSeen = false;
+    }
+    const row = line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/);
+    const words = row[0]!.split(' ');
+    if (!separatorSeen || row.length < 3 || row[0]!.length <= WRAP_LABELS_OVER || words.length < 2) {
+      out.push(render(row));
+      continue;
+    }
+    const half = Math.ceil(words.length / 2);
+    out.push(words.slice(0, half).join(' '));
+    out.push(render([words.slice(half).join(' '), ...row.slice(1)]));
+  }
+  return out.join('\n');
+}
 
 /** An invented running head and page number, as a PDF's text puts them where a table runs over a page break. */
 const RUNNING_HEAD = 'Journal of Invented Studies 2021, 9, 522 11 of 16';
@@ -330,6 +385,9 @@ export function rerender(text: string, rendering: Rendering): string {
   if (rendering === 'tabs-page-break') return withPageBreaks(rows, tabbed);
   if (rendering === 'crushed-page-break') return withPageBreaks(rows, crushed);
   if (rendering === 'aligned-page-break') return withPageBreaks(rows, aligned);
+  if (rendering === 'tabs-wrapped-labels') return withWrappedLabels(text, tabbed);
+  if (rendering === 'crushed-wrapped-labels') return withWrappedLabels(text, crushed);
+  if (rendering === 'aligned-wrapped-labels') return withWrappedLabels(text, aligned);
   if (rendering === 'tabs') return rows.map((row) => (Array.isArray(row) ? row.join('\t') : row)).join('\n');
   if (rendering === 'crushed') return rows.map((row) => (Array.isArray(row) ? row.filter((cell) => cell !== '').join(' ') : row)).join('\n');
   if (rendering === 'consecutive-lines') return rows.map((row) => (Array.isArray(row) ? row.join('\n') : row)).join('\n');
