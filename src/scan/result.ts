@@ -379,6 +379,8 @@ function findNearby(text: string, from: number, wantP: boolean): number {
   for (let at = from; at < limit; at++) {
     const code = text.charCodeAt(at);
     if (endsSentence(text, at)) return -1;
+    // Nor past the end of a table row: a p on the next line is the next row's.
+    if (code === 10 && endsTableRow(text, at)) return -1;
     if (!isAsciiLetter(code) || !startsWord(text, at)) continue;
     if (startsResult(text, at)) return -1;
     if (wantP && readTailPValue(text, at) !== null) return at;
@@ -470,7 +472,36 @@ export function skipSeparators(text: string, position: number): number {
 function endsTableRow(text: string, at: number): boolean {
   let cursor = at - 1;
   while (cursor >= 0 && cursor > at - MAX_GAP && (text.charCodeAt(cursor) === 32 || text.charCodeAt(cursor) === 13 || text.charCodeAt(cursor) === 9)) cursor--;
-  return cursor >= 0 && text.charCodeAt(cursor) === 124;
+  if (cursor >= 0 && text.charCodeAt(cursor) === 124) return true;
+  return holdsTabbedCells(text, at);
+}
+
+/** Longest line looked back over for a tab between cells. */
+const MAX_ROW_LOOKBACK = 400;
+
+/**
+ * Whether the line that ends at `at` is a row of cells apart by tabs (a tab after some text: indentation does not
+ * count). Its next line is the next row, and a p there is another row's.
+ */
+function holdsTabbedCells(text: string, at: number): boolean {
+  let textSeen = false;
+  for (let cursor = at - 1; cursor >= 0 && cursor >= at - MAX_ROW_LOOKBACK; cursor--) {
+    const code = text.charCodeAt(cursor);
+    if (code === 10) return false;
+    if (code === 9) {
+      if (textSeen && lineHasTextBefore(text, cursor)) return true;
+    } else if (code !== 32 && code !== 13) textSeen = true;
+  }
+  return false;
+}
+
+function lineHasTextBefore(text: string, at: number): boolean {
+  for (let cursor = at - 1; cursor >= 0 && cursor >= at - MAX_ROW_LOOKBACK; cursor--) {
+    const code = text.charCodeAt(cursor);
+    if (code === 10) return false;
+    if (code !== 32 && code !== 9 && code !== 13) return true;
+  }
+  return false;
 }
 
 /** End of the run of spaces and tabs at `position`, read no further than MAX_COLUMN_GAP characters. */

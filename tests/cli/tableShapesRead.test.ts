@@ -596,6 +596,41 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads a pipe row broken after its label cell whose values end with the row\'s closing pipe, and means with thousands apart by commas', () => {
+    const table = [
+      '| Variable | Group A | Group B | Group C | df | χ² | P value |',
+      '|---|---|---|---|---|---|---|',
+      '| Duration of the series (s) | 8.0 ± 3.1 | 23.4 ± 6.7 | 4.7 ± 2.7 | 2 | 10.5 | <0.05 |',
+      '| Number of notes |',
+      '11.0 ± 4.5 | 48.8 ± 14.4 | 7.4 ± 2.7 | 2 | 10.2 | <0.05 |',
+      '| Song duration (s) | 789.4 ± 294.8 | 2,396.4 ± 775.8 | 1,006.8 ± 122.3 | 2 | 9.8 | <0.05 |',
+    ];
+    const expected = [
+      ['chi2', 10.5, [2]],
+      ['chi2', 10.2, [2]],
+      ['chi2', 9.8, [2]],
+    ];
+    const piped = scanTextJson(`Table 3. Kruskal-Wallis tests of the song measures\n${table.join('\n')}\n\nThe next section.\n`);
+    expect(readAs(piped.statistics)).toEqual(expected);
+    // The same rows crushed into single spaces: "2,396.4 ± 775.8" is one cell, not a new row labelled "±".
+    const crushedRows = table.filter((line) => !line.startsWith('|---')).map((line) => line.replace(/^\| /, '').replace(/ \|$/, '').split(' | ').join(' '));
+    const crushed = scanTextJson(`Table 3. Kruskal-Wallis tests of the song measures\n${crushedRows.join('\n')}\n\nThe next section.\n`);
+    expect(readAs(crushed.statistics).filter((statistic) => statistic[1] !== 10.2)).toEqual([expected[0], expected[2]]);
+  });
+
+  it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
+    for (const [copy, rows] of [
+      ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],
+      ['pipes', ['| Effect | Test | p |', '| Group | F2,73 = 2.20 (ns) | |', '| | | P = 0.117 |', '| Time | F1,73 = 5.10 (sig.) | |', '| | | P = 0.027 |']],
+    ] as const) {
+      const document = scanTextJson(`Table 2. Tests of the effects\n${rows.join('\n')}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p]), copy).toEqual([
+        ['F', 2.2, [2, 73], null],
+        ['F', 5.1, [1, 73], null],
+      ]);
+    }
+  });
+
   it('reads a table comparing groups whose "χ2 (df)" and "t (df)" columns share one p column, its rows named "Age, mean (SD)"', () => {
     const rows = [
       ['Characteristic', 'Intervention (n = 60)', 'Control (n = 58)', 'χ2 (df)', 't (df)', 'p'],

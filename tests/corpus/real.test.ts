@@ -27,13 +27,17 @@ const scores = scoreCorpus(corpus);
 // results 0.01 -> 0.07 (9 of 148, all in dwba-02), holdout table recall 0.51 -> 0.52; then, with "N = 12 control,
 // 13 drug, ..." read as group sizes, "4. 54" as 4.54, a note stating two df pairs taken for neither, and "7 (24)"
 // no longer placed under "Chi-square (df)", precision back to 1 and fails on consistent to 0 (ceiling 0.01).
+// The corpus grew by 7 passages on 2026-12-05 (second batch, dwca-01..dwcg-01): tune table recall 0.85 -> 0.84
+// (0.848), holdout table recall 0.52 -> 0.56 (0.5667). They showed one misreading (a pipe row broken after its
+// label cell, its values closed by the row's last pipe) and 7 fails on consistent results in the holdout (a p taken
+// from the next row of a table); with both mended, precision stays 1 and fails on consistent results 0.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.85, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.84, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.52, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.56, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -124,7 +128,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // Every label in tables, with df or without (a statistic printed with its p and no df is read as printed):
   // the share read at its place (floors, as measured).
   // (the corpus grew by 26 passages on 2026-12-05: tune 0.59 -> 0.58, as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.58, holdout: 0.45 };
+  // (the corpus grew by 7 passages on 2026-12-05, second batch: tune 0.58 -> 0.57 (0.5796), holdout 0.45 -> 0.49 (0.4907), as measured)
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.49 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -134,7 +139,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // Misses inside no table the report lists as not read: the audit skipped them without a word (ceilings, as measured;
   // the corpus grew by 6 passages on 2026-12-04: tune 7 -> 40, holdout 74 -> 79; it grew by 26 passages on 2026-12-05:
   // tune 40 -> 48).
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 48, holdout: 74 }; // (measured 2026-12-05: tune 48, holdout 74)
+  // (the corpus grew by 7 passages on 2026-12-05, second batch: tune 48 -> 44, holdout 74, as measured)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 44, holdout: 74 }; // (measured 2026-12-05: tune 44, holdout 74)
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);

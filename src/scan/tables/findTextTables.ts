@@ -576,7 +576,10 @@ function joinBrokenRows(rows: Piece[][]): Piece[][] {
   for (let index = 0; index < rows.length; index++) {
     let row = rows[index]!;
     // A piece that begins with a label ("2. Age", "Control variable") is a row of its own, not the rest of this one.
-    const continues = (next: Piece[]): boolean => next.length < width && !startsWithLabel(next) && filled(row).length + filled(next).length <= width;
+    // (A label alone, "| N introductory notes |", then its values closed by the row's last pipe, "11.0 ± 4.5 | … |
+    // <0.05 |": that pipe left an empty cell at the piece's end, which does not count.)
+    const labelThenClosedValues = (next: Piece[]): boolean => row.length === 1 && next.length === width && next[0]!.text !== '' && next[width - 1]!.text === '';
+    const continues = (next: Piece[]): boolean => (next.length < width || labelThenClosedValues(next)) && !startsWithLabel(next) && filled(row).length + filled(next).length <= width;
     while (row.length < width && index + 1 < rows.length && continues(rows[index + 1]!)) {
       row = [...filled(row), ...rows[index + 1]!];
       index++;
@@ -661,7 +664,8 @@ function splitTokens(text: string): readonly Piece[] {
       continue;
     }
     // "12.3 ± 4.1": a mean and its SD (or SE) set apart by spaces are one cell.
-    if (previous !== undefined && next !== undefined && token.text === '\u00b1' && /^[-\u2212]?\d+(?:[.,]\d+)?[a-h*]{0,3}$/.test(previous.text) && /^\d+(?:[.,]\d+)?[a-h*]{0,3}$/.test(next.text)) {
+    // (Either may have thousands set apart by commas: "2,396.4 ± 775.8".)
+    if (previous !== undefined && next !== undefined && token.text === '\u00b1' && /^[-\u2212]?(?:\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?)[a-h*]{0,3}$/.test(previous.text) && /^(?:\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?)[a-h*]{0,3}$/.test(next.text)) {
       tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
       index++;
       continue;
