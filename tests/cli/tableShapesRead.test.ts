@@ -618,6 +618,26 @@ describe('results tables in the shapes papers print them', () => {
     expect(readAs(crushed.statistics).filter((statistic) => statistic[1] !== 10.2)).toEqual([expected[0], expected[2]]);
   });
 
+  it('reads a model\'s coefficients whose header names only the value columns ("Estimate | Std. Error | z value | Pr(>|z|)"), the intercept too', () => {
+    const rows = [
+      ['Estimate', 'Std. Error', 'z value', 'Pr(>|z|)'],
+      ['(Intercept)', '-0.69956', '0.13511', '-5.17778', '< 0.00001'],
+      ['FREQ', '0.06766', '0.01676', '4.03729', '0.00005'],
+      ['FREQ:LAUNCH', '-0.00768', '0.01026', '-0.74814', '0.45438'],
+    ];
+    for (const [copy, join] of [
+      ['pipes', (cells: string[]) => `| ${cells.join(' | ')} |`],
+      ['tabs', (cells: string[]) => cells.join('\t')],
+    ] as const) {
+      const document = scanTextJson(`Table 5. Fixed effects of the model for word skipping.\n${rows.map(join).join('\n')}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value]), copy).toEqual([
+        ['z', -5.17778, 0.00001],
+        ['z', 4.03729, 0.00005],
+        ['z', -0.74814, 0.45438],
+      ]);
+    }
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],

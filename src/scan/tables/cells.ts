@@ -211,7 +211,7 @@ put(['df, ddf', 'df,ddf', 'ndf, ddf', 'ndf,ddf', 'df1, df2', 'df1,df2', 'num df,
 put(['ndf', 'n.d.f.', 'df1', 'df 1', 'num. df', 'num.df', 'n. df', 'df effect', 'effect df', 'df num', 'num df', 'numdf', 'numerator df', 'df numerator', 'dfn', 'df hyp', 'df hypothesis', 'hypothesis df', 'dfeffect', 'dfnum'], { role: 'df1' });
 put(['ddf', 'd.d.f.', 'df2', 'df 2', 'd. df', 'd.df', 'den. df', 'den.df', 'denom. df', 'df error', 'error df', 'df den', 'den df', 'dendf', 'denominator df', 'df denominator', 'dfd', 'dfe', 'df residual', 'residual df', 'dferror', 'dfden', 'df res'], { role: 'df2' });
 put(['ms', 'mean square', 'mean squares', 'mean sq', 'mean sq.', 'meansq', 'ms effect'], { role: 'ms' });
-put(['p', 'p value', 'p-value', 'p-values', 'p values', 'sig', 'sig.', 'significance', 'pr(>f)', 'pr(>|t|)', 'pr(>chisq)', 'pr(>chi)', 'prob', 'prob.', 'prob > f', 'prob>f', 'p (two-tailed)', 'two-tailed p', 'p two-tailed', 'sig. (2-tailed)', 'p(two-tailed)', 'pvalue'], { role: 'p' });
+put(['p', 'p value', 'p-value', 'p-values', 'p values', 'sig', 'sig.', 'significance', 'pr(>f)', 'pr(>|t|)', 'pr(>|z|)', 'pr(>z)', 'pr(>t)', 'pr(>chisq)', 'pr(>chi)', 'prob', 'prob.', 'prob > f', 'prob>f', 'p (two-tailed)', 'two-tailed p', 'p two-tailed', 'sig. (2-tailed)', 'p(two-tailed)', 'pvalue'], { role: 'p' });
 put(['n', 'sample size', 'total n'], { role: 'n' });
 put(['f', 'f ratio', 'f-ratio', 'f value', 'f-value', 'f statistic', 'f-statistic', 'f change', 'f-test', 'f test'], { role: 'statistic', kind: 'F', df: [] });
 put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test', 't ratio'], { role: 'statistic', kind: 't', df: [] });

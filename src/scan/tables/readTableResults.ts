@@ -197,7 +197,8 @@ export interface RowCompletion {
   besideOtherTest: boolean;
 }
 
-function readTable(text: string, table: DocumentTable, tableIndex: number): TableReading {
+function readTable(text: string, original: DocumentTable, tableIndex: number): TableReading {
+  const table = withHeaderOverValues(original);
   const parts = splitAtInnerHeaders(table) ?? splitByTwoStatistics(table);
   if (parts === null) return readTableRows(text, table, tableIndex);
   // A table whose header is printed again, renamed, partway down ("χ2 | p" over the categorical rows, then
@@ -217,6 +218,33 @@ function readTable(text: string, table: DocumentTable, tableIndex: number): Tabl
           readings.reduce((sum, reading) => sum + (reading.unread?.rowsRead ?? 0), 0),
         );
   return { results, unread, completions };
+}
+
+/**
+ * A one-line header that names only the value columns, as a program prints a model's coefficients ("Estimate |
+ * Std. Error | z value | Pr(>|z|)" over "LENGTH | -0.69301 | 0.04295 | -16.13351 | < 0.00001"): the rows' labels
+ * stand under no name, and the header is moved one column right, over the values. Only when the header's first
+ * name is a column of values (not a label column's name), every body row has one more filled cell than the
+ * header and opens with a label, and the header names a test statistic or a p. The table as it is otherwise.
+ */
+function withHeaderOverValues(table: DocumentTable): DocumentTable {
+  const rows = table.rows;
+  if ((table.headerRows ?? 1) !== 1 || rows.length < 3) return table;
+  const header = trimTrailingEmpty(rows[0]!);
+  if (header.length < 2 || header.some((cell) => cell.trim() === '')) return table;
+  const firstRole = classifyHeader(header[0]!).role;
+  if (firstRole === 'label' || firstRole === 'unknown') return table;
+  const roles = header.map((cell) => classifyHeader(cell).role);
+  if (!roles.includes('statistic') && !roles.includes('p')) return table;
+  const body = rows.slice(1).filter((row) => row.some((cell) => cell.trim() !== ''));
+  const opensWithLabel = (row: string[]): boolean => row[0]!.trim() !== '' && !isNumberCell(row[0]!) && !shapeOf(row[0]!).shape.startsWith('number');
+  const oneMore = (row: string[]): boolean => trimTrailingEmpty(row).length === header.length + 1 && row.slice(1, header.length + 1).every((cell) => cell.trim() !== '');
+  if (body.length < 2 || !body.every((row) => opensWithLabel(row) && oneMore(row))) return table;
+  return {
+    ...table,
+    rows: [['', ...rows[0]!], ...rows.slice(1)],
+    ...(table.cells ? { cells: [[null, ...table.cells[0]!], ...table.cells.slice(1)] } : {}),
+  };
 }
 
 /** Fewest rows a part of a table split at an inner header must hold. */
@@ -439,13 +467,15 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // The intercept's test is read only where one error row serves every effect (a between-subjects
   // table): in repeated-measures output it is tested against an error term the layout does not show.
   const singleErrorTerm = errorRows.filter(Boolean).length === 1;
+  // (A table of a model's coefficients, tested by z or t with no error rows, tests its intercept like any term.)
+  const coefficientTests = errorRows.every((isError) => !isError) && segments.length > 0 && segments.every((segment) => segment.kind === 'z' || segment.kind === 't');
   for (let index = 0; index < virtualRows.length; index++) {
     const { cells: row, at: cellsAt, partial, guessed, blockUnknown } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     // A Total row of an ANOVA table prints no statistic; a row named "Total" that does is a measure's ("Total
     // biomass" shortened to "Total" under a section line).
     const totalRow = TOTAL_LABEL.test(labelKey) && !segments.some((segment) => readCell(row[segment.columns.get('statistic')!] ?? '', separator).kind === 'number');
-    if (errorRows[index] || totalRow || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm)) continue;
+    if (errorRows[index] || totalRow || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm && !coefficientTests)) continue;
     // A row its label calls means and SDs ("Self-paced control M SD 38.98 12.92 ...") holds descriptives, not
     // tests; when it also shows a test's marks (stars, "n.s.", "η2 = .59") they are counted as not read.
     // (A variable's name, a comma, then how it is summarised, "Age (y), mean (SD)", "BMI, M ± SD", names the
