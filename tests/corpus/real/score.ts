@@ -302,6 +302,25 @@ const RENDERINGS: readonly Rendering[] = [
   'aligned-wrapped-labels',
 ];
 
+/** A pipe row's cells, trimmed; a pipe inside brackets is a cell's own ("Pr(>|z|)"), not a border. */
+function pipeRowCells(line: string): string[] {
+  const inner = line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '');
+  const cells: string[] = [];
+  let depth = 0;
+  let from = 0;
+  for (let at = 0; at < inner.length; at++) {
+    const code = inner.charCodeAt(at);
+    if (code === 40) depth++;
+    else if (code === 41 && depth > 0) depth--;
+    else if (code === 124 && depth === 0) {
+      cells.push(inner.slice(from, at).trim());
+      from = at + 1;
+    }
+  }
+  cells.push(inner.slice(from).trim());
+  return cells;
+}
+
 /** Longest row label kept on one line in the wrapped renderings. */
 const WRAP_LABELS_OVER = 18;
 
@@ -328,7 +347,7 @@ function withWrappedLabels(text: string, render: (row: string[]) => string): str
       inBlock = true;
       separatorSeen = false;
     }
-    const row = line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/);
+    const row = pipeRowCells(line);
     const words = row[0]!.split(' ');
     if (!separatorSeen || row.length < 3 || row[0]!.length <= WRAP_LABELS_OVER || words.length < 2) {
       out.push(render(row));
@@ -378,7 +397,7 @@ function withPageBreaks(rows: readonly (string | string[])[], render: (row: stri
  */
 export function rerender(text: string, rendering: Rendering): string {
   const lines = text.split('\n').filter((line) => !/^\s*\|?\s*-{3,}/.test(line));
-  const rows = lines.map((line) => (line.includes('|') ? line.replace(/^\s*\|\s*/, '').replace(/\s*\|\s*$/, '').split(/\s*\|\s*/) : line));
+  const rows = lines.map((line) => (line.includes('|') ? pipeRowCells(line) : line));
   const tabbed = (row: string[]): string => row.join('\t');
   const crushed = (row: string[]): string => row.filter((cell) => cell !== '').join(' ');
   const aligned = (row: string[]): string => row.map((cell) => (cell === '' ? ' ' : cell)).join('   ');
