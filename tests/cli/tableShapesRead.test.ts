@@ -638,6 +638,24 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('gives a block the df its note states for it as an exception ("d.f. = 1,28 except for daily sperm production … d.f. = 1,27")', () => {
+    const note = 'Note. In all cases d.f. = 1,28 except for daily sperm production where one subject was excluded and so d.f. = 1,27.';
+    const rows = ['Term\tTestes mass\t\tSperm count\t\tDaily sperm production\t', '\tF\tP\tF\tP\tF\tP', 'SC\t5.81\t0.02\t8.48\t0.007\t5.22\t0.03', 'MR\t0.06\t0.81\t0.12\t0.73\t0.09\t0.76'];
+    const document = scanTextJson(`Table 2. ANOVAs of the ejaculate measures\n${rows.join('\n')}\n${note}\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 5.81, [1, 28]],
+      ['F', 8.48, [1, 28]],
+      ['F', 5.22, [1, 27]],
+      ['F', 0.06, [1, 28]],
+      ['F', 0.12, [1, 28]],
+      ['F', 0.09, [1, 27]],
+    ]);
+    // When no block is named as the exception says, no test takes either pair.
+    const renamed = scanTextJson(`Table 2. ANOVAs of the ejaculate measures\n${rows.join('\n').replace('Daily sperm production', 'Sperm output')}\n${note}\n`);
+    expect(renamed.statistics.every((statistic) => statistic.df.length === 0)).toBe(true);
+    expect(renamed.statistics.length).toBeGreaterThan(0);
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],

@@ -21,6 +21,18 @@ export interface NoteDf {
   error: ReportedNumber | null;
   /** Read from the lines beside the table, not its caption or notes: findings resting on them are at most warnings. */
   besideTable?: boolean;
+  /**
+   * Columns or rows the note names as taking other df ("d.f. = 1,28 except for daily sperm production where …
+   * d.f. = 1,27"): the words that name them and their pair. The table reader gives that pair to the block or row
+   * so named, `pair` to the others, and no pair at all when it finds no block or row so named.
+   */
+  exceptions?: NoteDfException[];
+}
+
+export interface NoteDfException {
+  /** The words after "except (for)", lower case: "daily sperm production". */
+  name: string;
+  pair: ReportedNumber[];
 }
 
 const NUMBER = String.raw`(\d{1,6}(?:\.\d{1,3})?)`;
@@ -96,7 +108,10 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
   if (pair && statedForOneEffect(rest.slice(pair.index + pair[0].length))) return { ...none, error };
   // Another pair stated besides ("d.f. = 1,28 except for daily sperm production where ... d.f. = 1,27"): which
   // column takes which cannot be told from the note, so none is taken.
-  if (pair && statesOtherPair(rest, pair)) return { ...none, error };
+  if (pair && statesOtherPair(rest, pair)) {
+    const exception = exceptionAfter(rest, pair);
+    return exception === null ? { ...none, error } : { ...none, pair: [number(pair[1]!), number(pair[2]!)], error, exceptions: [exception] };
+  }
   if (pair) return { ...none, pair: [number(pair[1]!), number(pair[2]!)], error };
   const single = DF_SINGLE.exec(rest);
   // Several different df stated one by one ("df = 1 for sex, df = 2 for education") belong to different rows:
@@ -126,6 +141,29 @@ function statesOtherDf(text: string, first: RegExpExecArray): boolean {
   const every = new RegExp(DF_SINGLE.source, 'gi');
   for (let match = every.exec(text); match !== null; match = every.exec(text)) if (Number(match[1]) !== Number(first[1])) return true;
   return false;
+}
+
+/** "except for daily sperm production where", "except in the recall task (", "apart from Group,": the name between. */
+const EXCEPT_NAME = /(?<![A-Za-z])(?:except|apart from|other than|but)(?: {1,3}(?:for|in|when|with))?(?: {1,3}the)? {1,3}([A-Za-z][A-Za-z0-9 '-]{2,60}?)(?= {0,3}(?:[,;:(]|where|which|whose|as|because|with|for which|in which|\.|$))/i;
+
+/**
+ * The one exception a note states after its pair: "except for <name> … <other pair>", the other pair after the
+ * name, and no third pair. Null otherwise.
+ */
+function exceptionAfter(text: string, first: RegExpExecArray): NoteDfException | null {
+  const after = text.slice(first.index + first[0].length);
+  const named = EXCEPT_NAME.exec(after.slice(0, 400));
+  if (named === null) return null;
+  const every = new RegExp(DF_PAIR.source, 'gi');
+  const others: RegExpExecArray[] = [];
+  for (let match = every.exec(after); match !== null; match = every.exec(after)) {
+    if (Number(match[1]) !== Number(first[1]) || Number(match[2]) !== Number(first[2])) others.push(match);
+  }
+  if (others.length !== 1 || others[0]!.index < named.index + named[0].length) return null;
+  // Nor a pair stated before the first one (the exception would then be ambiguous).
+  if (statesOtherPair(text.slice(0, first.index), first)) return null;
+  const other = others[0]!;
+  return { name: named[1]!.trim().toLowerCase(), pair: [number(other[1]!), number(other[2]!)] };
 }
 
 /** Whether the note states another pair of df besides the one read ("df = 1, 28 ... df = 1, 27"). */

@@ -28,7 +28,7 @@ import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
 import { readNameAndValue } from '../effects.js';
 import { readPValue } from '../pValue.js';
-import { readNoteDf, statesNoDf, type NoteDf } from './noteDf.js';
+import { readNoteDf, statesNoDf, type NoteDf, type NoteDfException } from './noteDf.js';
 import type {
   Comparator,
   EffectKind,
@@ -454,6 +454,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // Variances | t-test for Equality of Means" out of the table, over its header.)
   const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' ')) || /levene/i.test(text.slice(Math.max(0, table.start - 300), table.start + 300));
   const noteN = readNoteSampleSize(noteText);
+  const tableNoteDf = withNamedExceptions(noteDf, [...segments.map((segment) => segment.title ?? ''), ...virtualRows.map((row) => row.cells[0] ?? '')]);
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
   continueCorrectedErrorRows(virtualRows, errorRows, segments, separator);
@@ -508,7 +509,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         segment,
         multiple: segments.length > 1 && blockUnknown !== true,
         errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
-        noteDf,
+        noteDf: noteDfFor(tableNoteDf, [segment.title ?? '', row[0] ?? '']),
         noteN,
         legend,
         rowSpan,
@@ -2326,6 +2327,33 @@ function readLabelDf(label: string): ReportedNumber[] {
 function readNoteSampleSize(note: string): ReportedNumber | null {
   const match = /(?:^|[^A-Za-z])N\s*=\s*(\d{1,3}(?:,\d{3})+|\d+)(?![\d.])/.exec(note.slice(0, 2000));
   return match ? parseReportedNumber(match[1]!.replace(/,/g, '')) : null;
+}
+
+// ------------------------------------------------------ df a note states with an exception
+
+/** Whether `name` (a block's title or a row's label) is the one a note's exception names. */
+function namesException(name: string, exception: NoteDfException): boolean {
+  const written = name.trim().toLowerCase();
+  return written.length >= 3 && (written.includes(exception.name) || exception.name.includes(written));
+}
+
+/**
+ * A note's df with exceptions ("d.f. = 1,28 except for daily sperm production … d.f. = 1,27") kept only when
+ * every exception names a block or a row of the table (`names`); otherwise which tests take which pair cannot be
+ * told, and the note gives no pair at all.
+ */
+function withNamedExceptions(noteDf: NoteDf, names: readonly string[]): NoteDf {
+  if (noteDf.exceptions === undefined) return noteDf;
+  const named = noteDf.exceptions.every((exception) => names.some((name) => namesException(name, exception)));
+  return named ? noteDf : { pair: [], single: null, error: noteDf.error, ...(noteDf.besideTable ? { besideTable: true } : {}) };
+}
+
+/** The note's df for a test in the block titled, or the row labelled, as `names` say: an exception's pair where one names it. */
+function noteDfFor(noteDf: NoteDf, names: readonly string[]): NoteDf {
+  if (noteDf.exceptions === undefined) return noteDf;
+  const exception = noteDf.exceptions.find((candidate) => names.some((name) => namesException(name, candidate)));
+  const { exceptions: _, ...rest } = noteDf;
+  return exception === undefined ? rest : { ...rest, pair: exception.pair };
 }
 
 // ------------------------------------------------------ locating the cells
