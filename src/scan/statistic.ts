@@ -359,7 +359,8 @@ function readSubscriptDf(text: string, position: number, kind: StatisticKind): D
   if (text.charCodeAt(at) === 32) at++;
   if (text.charCodeAt(at) !== 44) return null;
   at++;
-  if (text.charCodeAt(at) === 32) at++;
+  // (A line may end after the comma: "F22," / "233 = 1.06" in text wrapped as a PDF's is.)
+  if (text.charCodeAt(at) === 32 || text.charCodeAt(at) === 10) at++;
   if (text.charCodeAt(at) === 32) at++;
   const second = readDf(text, at, false);
   if (second === null) return null;

@@ -656,6 +656,44 @@ describe('results tables in the shapes papers print them', () => {
     expect(renamed.statistics.length).toBeGreaterThan(0);
   });
 
+  it('reads correlation matrices the same when their caption is wrapped over two lines, as a PDF\'s text gives it', () => {
+    const glued = (caption: string): string =>
+      `Table 3\n\n${caption}\n\n1234\n\n1. Exhaustion\n2. Cynicism.61\n3. Inefficacy.58.55\n4. Satisfaction-.42-.36-.41\n\nNote. N = 220. p<.001\n`;
+    const crushed = (caption: string): string =>
+      `Table 2.\n\n${caption}\n\nVariables M SD 1 2 3\n1. GAD 11.1 4.49\n2. Age 20.9 2.55 −0.14\n3. BDI 19.2 10.83 0.47 *** −0.15\n4. Happy face RTs 694.5 86.5 −0.10 0.07 −0.16\n\nNote. *** p < .001.\n`;
+    const cases: [(caption: string) => string, string, string, number][] = [
+      [glued, 'Burnout, perception of the school, efficacy, commitment, and job satisfaction. Correlation matrix.', 'commitment,\nand', 218],
+      [crushed, 'Correlations between age, depression, anxiety, and reaction times to emotional stimuli in the anxious group (n = 60).', 'to\nemotional', 58],
+    ];
+    for (const [table, caption, wrappedAt, df] of cases) {
+      const [before, after] = wrappedAt.split('\n') as [string, string];
+      const wrapped = caption.replace(`${before} ${after}`, `${before}\n${after}`);
+      const one = scanTextJson(table(caption)).statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]);
+      const two = scanTextJson(table(wrapped)).statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]);
+      expect(one.length).toBeGreaterThanOrEqual(3);
+      expect(one.every((statistic) => statistic[0] === 'r' && (statistic[2] as number[])[0] === df)).toBe(true);
+      expect(two, wrappedAt).toEqual(one);
+    }
+  });
+
+  it('does not read the means of rows labelled "M SD" as the test a wrapped header names over them', () => {
+    const lines = [
+      'Table 3 Effects for reading skills by reading level and training condition',
+      '',
+      'Measure Reading level Training condition Pretest Posttest Time effect,',
+      'F(1,128) Reading level effect, F(1,128) Training condition effect, F(1,128)',
+      'Time* reading level effect, F(1,128)',
+      'Word identification rate (WPM) Typical readers Accelerated M',
+      'SD', '39.82', '11.5', '55.9', '15.7', '172.46***', 'η2 = .59', '84.94***', 'η2 = .41', '.10, n.s. 15.05***', 'η2 = .11',
+      'Self-paced control M', 'SD', '38.98', '12.92', '56.46', '14.32', '    ',
+      'Struggling readers Accelerated M', 'SD', '23.59', '7.22', '30.78', '8.71', '    ',
+      '  Total M', 'SD', '33.09', '12.97', '46.52', '17.64', '    ',
+    ];
+    const document = scanTextJson(`${lines.join('\n')}\n`);
+    const means = [56.46, 30.78, 46.52, 38.98, 23.59, 33.09];
+    expect(document.statistics.filter((statistic) => means.includes(statistic.value ?? NaN))).toEqual([]);
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],

@@ -146,4 +146,9 @@ describe('p and df written in further ways after a statistic, from the command l
     // (An F in running text without its df is not read at all, so nothing is left.)
     expect(statistics).toEqual([]);
   });
+
+  it('reads an F whose flattened subscript df a wrapped line breaks after the comma ("F22," / "233 = 1.06")', () => {
+    // F(22, 233) = 1.06 gives p = .393 (SciPy 1.10.1 scipy.stats.f.sf(1.06, 22, 233), computed when the test was written).
+    expect(readAll('The interaction was not significant, F22,\n233 = 1.06, p = 0.393, in either group.\n')).toEqual([['F', [22, 233], 1.06, '= 0.393']]);
+  });
 });

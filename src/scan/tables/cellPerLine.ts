@@ -173,6 +173,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
   let headerRun = cells.slice(first, bodyStart).filter((cell) => !cell.empty);
+  // A header cell that holds a run of numbers is a crushed row of another layout, not a column's name: the lines
+  // are not one cell each.
+  if (headerRun.some((cell) => numbersIn(cell.text) > MAX_NUMBERS_IN_NAME)) return null;
   // Side-by-side blocks named alike ("D.f. | F ratio | D.f. | F ratio"), where many rows print one block only:
   // the full rows hold every column the header names.
   // Rows under a spanned first column ("Soil depth" over "WSMacA", "MWD", ...) copied with an empty cell at the
@@ -392,6 +395,16 @@ function isLongRowLabel(text: string, lines: Line[], index: number): boolean {
     return next.length <= MAX_CELL_LENGTH / 2;
   }
   return false;
+}
+
+/** Most numbers a column's name holds ("F(2, 48)", "95% CI 2.5–97.5": three at most). */
+const MAX_NUMBERS_IN_NAME = 3;
+
+/** How many numbers stand as words of their own in a cell's text. */
+function numbersIn(text: string): number {
+  let count = 0;
+  for (const word of text.split(/\s+/)) if (/^[-\u2212\u2013]?(?:\d+(?:[.,]\d+)?|[.,]\d+)$/.test(word)) count++;
+  return count;
 }
 
 /** A page's line naming the article a table comes from ("From: <title>"), part of the caption. */

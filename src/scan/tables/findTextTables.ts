@@ -1259,6 +1259,17 @@ function leadsToDataRow(lines: Line[], index: number): boolean {
   return false;
 }
 
+/** Most lines a wrapped caption runs on over. */
+const MAX_CAPTION_LINES = 3;
+
+/** A line that goes on with a caption: words, ending a sentence or not, no run of values, no header of known names. */
+function continuesCaption(line: Line): boolean {
+  const text = line.text.trim();
+  if (text === '' || text.length > MAX_ROW_LENGTH || TITLE.test(text) || NOTE.test(text) || readHeader(line) !== null) return false;
+  const tokens = tokenize(text);
+  return tokens.filter((token) => isValueToken(token.text)).length <= 1 && /^[\p{Ll}(]/u.test(text);
+}
+
 /** A title (or the caption line under a bare one) that says the table holds correlations. */
 const CORRELATIONS_TITLE = /correlat/i;
 /** Most header lines between a correlation table's caption and its first row. */
@@ -1289,9 +1300,14 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   const title = lines[titleIndex]!;
   let index = titleIndex + 1;
   while (index < lines.length && isBlank(lines[index])) index++;
-  const caption = BARE_TITLE.test(title.text) && lines[index] !== undefined ? lines[index]!.text.trim() : '';
-  if (!CORRELATIONS_TITLE.test(`${title.text} ${caption}`)) return null;
+  let caption = BARE_TITLE.test(title.text) && lines[index] !== undefined ? lines[index]!.text.trim() : '';
   if (caption !== '') index++;
+  // A caption a page wrapped over lines goes on until a line ends it with a full stop (a few lines at most).
+  for (let more = 0; caption !== '' && !/\.$/.test(caption) && more < MAX_CAPTION_LINES && lines[index] !== undefined && continuesCaption(lines[index]!); more++) {
+    caption = `${caption} ${lines[index]!.text.trim()}`;
+    index++;
+  }
+  if (!CORRELATIONS_TITLE.test(`${title.text} ${caption}`)) return null;
   const headers: string[][] = [];
   for (; index < lines.length && headers.length < MAX_CORRELATION_HEADER_LINES; index++) {
     const line = lines[index]!;
@@ -1766,12 +1782,17 @@ function readTitle(lines: Line[], first: number, linesBetween = false): { captio
   // the columns ("Measure Pearson Correlation") between the title and the header.
   const between: string[] = [line.text.trim()];
   let above = index - 1;
-  for (let extra = 0; extra <= (linesBetween ? MAX_LINES_UNDER_TITLE - 1 : 0); extra++) {
+  let wrapped = 0;
+  for (let extra = 0; extra <= (linesBetween ? MAX_LINES_UNDER_TITLE - 1 : 0) + wrapped; extra++) {
     if (isBlank(lines[above]) && above >= 0) above--;
     const candidate = lines[above];
     if (candidate === undefined || above < 0 || isBlank(candidate)) return null;
     if (BARE_TITLE.test(candidate.text) && between.join(' ').length <= 300) return { caption: `${candidate.text.trim()} ${between.join(' ')}`, firstLine: above };
     if (candidate.text.trim().length > 300 || TITLE.test(candidate.text) || readRowLine(candidate, true) !== null) return null;
+    // A caption a page wrapped: this line goes on in the one below it, which starts in small letters ("… reaction
+    // times to" / "emotional self- and other-related stimuli."); it does not count as a line of its own.
+    const wrapsOn = wrapped < MAX_CAPTION_LINES - 1 && !/[.:]$/.test(candidate.text.trim()) && /^\p{Ll}/u.test(between[0]!) && !isBlank(lines[above + 1]);
+    if (wrapsOn) wrapped++;
     between.unshift(candidate.text.trim());
     above--;
   }

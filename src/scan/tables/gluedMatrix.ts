@@ -136,6 +136,9 @@ function rowLabel(text: string, extra: GluedCell | null, columns: number): { num
   return { number: Number(number[0]), name: text.slice(nameStart, nameEnd), nameStart, nameEnd };
 }
 
+/** Most lines a wrapped caption goes on over after its first. */
+const MAX_WRAPPED_CAPTION_LINES = 2;
+
 /** A numbered matrix of run-together cells after the title at `lines[titleLine]`, or null. */
 export function readGluedMatrix(lines: Line[], titleLine: number): { table: DocumentTable; lastLine: number } | null {
   const title = lines[titleLine];
@@ -144,9 +147,15 @@ export function readGluedMatrix(lines: Line[], titleLine: number): { table: Docu
   let index = titleLine + 1;
   while (index < lines.length && lines[index]!.text.trim() === '') index++;
   const captionLine = BARE_TABLE_TITLE.test(title.text) ? lines[index] : undefined;
-  const caption = [title.text.trim(), captionLine?.text.trim() ?? ''].filter((part) => part !== '').join(' ');
-  if (!SAYS_CORRELATIONS.test(caption) || OTHER_CORRELATIONS.test(caption)) return null;
+  const captionParts = [title.text.trim(), captionLine?.text.trim() ?? ''].filter((part) => part !== '');
   if (captionLine !== undefined) index++;
+  // (A caption a page wrapped goes on in the lines right under it that start in small letters.)
+  for (let more = 0; captionLine !== undefined && more < MAX_WRAPPED_CAPTION_LINES && index < lines.length && /^\p{Ll}/u.test(lines[index]!.text.trim()); more++) {
+    captionParts.push(lines[index]!.text.trim());
+    index++;
+  }
+  const caption = captionParts.join(' ');
+  if (!SAYS_CORRELATIONS.test(caption) || OTHER_CORRELATIONS.test(caption)) return null;
   // The header: the first line of run-together column numbers.
   let numbered: { spans: CellSpan[]; extra: GluedCell | null } | null = null;
   const limit = Math.min(lines.length, titleLine + MAX_LINES);

@@ -86,6 +86,13 @@ const CELL_COLUMNS = new Set<string>(['ss', 'df', 'df1', 'df2', 'ms', 'statistic
  */
 const DESCRIPTIVE_ROW_LABEL = /(?:^|\s)(?:(?:m|mean|means)\s?(?:\(sd\)|\u00b1 ?sd|\(se\))|(?:m|mean|means)\s(?:sd|se)|(?:mean|means)(?:sd|se))$|(?:^|\s)(?:mean|means|sd)$/;
 
+/** Whether a row's label names its cells means and SDs and then holds two of them ("… M SD 38.98 12.92"). */
+function swallowedValues(label: string): boolean {
+  return SUMMARY_THEN_VALUES.test(label);
+}
+
+const SUMMARY_THEN_VALUES = /(?:^|\s)(?:M|Mean|Means|mean|means)\s?(?:\(S[DE]\)|S[DE]|\u00b1\s?S[DE])\s[-\u2212]?\d{1,6}[.,]\d{1,4}\s[-\u2212]?\d{1,6}[.,]\d{1,4}(?:\s|$)/;
+
 /** A variable's name, a comma, then its summary's words: "Age (y), mean (SD)", "BMI, M ± SD", "Score, means". */
 const VARIABLE_THEN_SUMMARY = /^\p{L}[^,]{0,80}, ?(?:M|m|[Mm]eans?)(?: ?\(S[DE]\)| ?\u00b1 ?S[DE]| S[DE])?$/u;
 
@@ -486,6 +493,12 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
       continue;
     }
     if (row.some((cell) => readsAsWrittenResult(cell))) continue;
+    // A label that took in a row's values ("Self-paced control M SD 38.98 12.92", when a header cut short by a
+    // wrapped line left too few names over the values): the columns under the names are not the values' own.
+    if (swallowedValues(row[0] ?? '')) {
+      rowsWithStatistic++;
+      continue;
+    }
     const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
     const errorIndex = nearestErrorRow[index] ?? null;

@@ -453,10 +453,43 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
  * Ways web pages and other programs change characters without changing what
  * is printed: no-break spaces for every space; thin spaces around "<", "="
  * and ">"; full-width brackets; lone carriage returns ending lines; no
- * spaces around "<", "=", ">" ("p<.001", "241.34<0.0001").
+ * spaces around "<", "=", ">" ("p<.001", "241.34<0.0001"); and lines of running text wrapped as a PDF's text is
+ * (the first space after every WRAP_WIDTH characters of a line of running text of 100 or more, made a line break).
  */
-export type CharacterDamage = 'no-break-spaces' | 'thin-spaces' | 'full-width-brackets' | 'carriage-returns' | 'no-spaces-around-signs';
-const CHARACTER_DAMAGE: Record<CharacterDamage, [RegExp, string]> = {
+export type CharacterDamage = 'no-break-spaces' | 'thin-spaces' | 'full-width-brackets' | 'carriage-returns' | 'no-spaces-around-signs' | 'wrapped-lines';
+
+/** Width of the lines of running text in the wrapped-lines damage. */
+const WRAP_WIDTH = 70;
+
+/** A line of sentences, not a table's row: most of its words are words, not numbers. */
+function isRunningText(line: string): boolean {
+  const words = line.split(/\s+/).filter((word) => word !== '');
+  const numbers = words.filter((word) => /\d/.test(word) && !/[A-Za-z]{2}/.test(word)).length;
+  // (Sentences: a full stop closes the line or stands inside it.)
+  return words.length >= 12 && numbers <= words.length * 0.25 && /\.(?:\s|$)/.test(line.trimEnd());
+}
+
+/** Long lines of running text wrapped at WRAP_WIDTH, each break in place of a space (offsets unchanged). */
+function wrapLongLines(text: string): string {
+  return text
+    .split('\n')
+    .map((line) => {
+      if (line.length < 100 || line.includes('|') || line.includes('\t') || !isRunningText(line)) return line;
+      const characters = [...line];
+      let run = 0;
+      for (let index = 0; index < characters.length; index++) {
+        run++;
+        if (run >= WRAP_WIDTH && characters[index] === ' ') {
+          characters[index] = '\n';
+          run = 0;
+        }
+      }
+      return characters.join('');
+    })
+    .join('\n');
+}
+
+const CHARACTER_DAMAGE: Record<Exclude<CharacterDamage, 'wrapped-lines'>, [RegExp, string]> = {
   'no-break-spaces': [/ /g, '\u00a0'],
   'thin-spaces': [/ (?=[<=>])|(?<=[<=>]) /g, '\u2009'],
   'full-width-brackets': [/[()]/g, '\uff08'],
@@ -470,6 +503,8 @@ const CHARACTER_DAMAGE: Record<CharacterDamage, [RegExp, string]> = {
  * signs: kept, their spaces dropped), and the place in the new text of every offset of the old one.
  */
 function changeCharacters(text: string, damage: CharacterDamage): { text: string; placeOf: (offset: number) => number } {
+  // (One character for one: offsets stay.)
+  if (damage === 'wrapped-lines') return { text: wrapLongLines(text), placeOf: (offset) => offset };
   const [pattern, replacement] = CHARACTER_DAMAGE[damage];
   const shifts: { at: number; end: number; shift: number }[] = [];
   let shift = 0;
@@ -508,7 +543,7 @@ function damaged(passage: RealPassage, damage: CharacterDamage): RealPassage {
 export function damageScores(passages: RealPassage[]): Record<CharacterDamage, Figures> {
   const tune = passages.filter((passage) => passage.split === 'tune');
   return Object.fromEntries(
-    (Object.keys(CHARACTER_DAMAGE) as CharacterDamage[]).map((damage) => [damage, figures(tune.map((passage) => scorePassage(damaged(passage, damage))), 'all')]),
+    ([...Object.keys(CHARACTER_DAMAGE), 'wrapped-lines'] as CharacterDamage[]).map((damage) => [damage, figures(tune.map((passage) => scorePassage(damaged(passage, damage))), 'all')]),
   ) as Record<CharacterDamage, Figures>;
 }
 
