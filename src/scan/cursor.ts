@@ -230,6 +230,10 @@ export function readScientificNumber(text: string, position: number, decimalComm
   return scientific(`${mantissaText} x 10^${power.power}`, position, power.end) ?? mantissa;
 }
 
+function isAsciiDigitCode(code: number): boolean {
+  return code >= 48 && code <= 57;
+}
+
 function scientific(written: string, start: number, end: number): ReadNumber | null {
   const number = parseReportedNumber(written);
   return number === null ? null : { number, start, end };
@@ -246,6 +250,13 @@ function readPowerOfTen(text: string, tenAt: number): { power: number; end: numb
   let at = tenAt + 2;
   const hasCaret = text.charCodeAt(at) === 94;
   if (hasCaret) at = skipSpacesUpTo(text, at + 1, 1);
+  // A superscript a copy set apart by a space, its minus too: "10 −4", "10 − 4" (as "10-4").
+  if (!hasCaret && text.charCodeAt(at) === 32 && text.charCodeAt(at + 1) === 45) at++;
+  if (!hasCaret && text.charCodeAt(at) === 45 && text.charCodeAt(at + 1) === 32 && isAsciiDigitCode(text.charCodeAt(at + 2))) {
+    const magnitude = readNumber(text, at + 2);
+    if (magnitude === null || magnitude.number.decimals > 0 || magnitude.number.text.length > 3 || !endsWord(text, magnitude.end)) return null;
+    return { power: -magnitude.number.value, end: magnitude.end };
+  }
   // Without a caret only a minus marks an exponent ("10-4"); "10 4" or "10+4" stay ordinary text.
   if (!hasCaret && text.charCodeAt(at) !== 45) return null;
   const exponent = readNumber(text, at);

@@ -151,4 +151,22 @@ describe('p and df written in further ways after a statistic, from the command l
     // F(22, 233) = 1.06 gives p = .393 (SciPy 1.10.1 scipy.stats.f.sf(1.06, 22, 233), computed when the test was written).
     expect(readAll('The interaction was not significant, F22,\n233 = 1.06, p = 0.393, in either group.\n')).toEqual([['F', [22, 233], 1.06, '= 0.393']]);
   });
+
+  it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
+    // F(2, 57) = 12.10 gives p = 4.17e-5 (SciPy 1.10.1 scipy.stats.f.sf(12.10, 2, 57), computed when the test was written).
+    const text = 'Groups differed, F(2, 57) = 12.10, p = 4.2 × 10 −5. They did again, F(2, 57) = 12.10, p = 4.2 × 10 − 5. And again, F(2, 57) = 12.10, p < 10 −4.\n';
+    const statistics = scanTextJson(text).statistics;
+    expect(statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value])).toEqual([
+      ['=', 0.000042],
+      ['=', 0.000042],
+      ['<', 0.0001],
+    ]);
+    expect(statistics.flatMap((statistic) => statistic.findings.filter((finding) => finding.severity === 'fail'))).toEqual([]);
+    // The same in a table's p cells.
+    const table = scanTextJson('Table 2. ANOVA of the scores\nEffect\tF\tdf\tp\nGroup\t12.10\t2, 57\t4.2 × 10 −5\nTime\t12.10\t2, 57\t4.2 × 10 − 5\n\nThe next section.\n').statistics;
+    expect(table.map((statistic) => [statistic.df, statistic.p?.value])).toEqual([
+      [[2, 57], 0.000042],
+      [[2, 57], 0.000042],
+    ]);
+  });
 });
