@@ -694,6 +694,25 @@ describe('results tables in the shapes papers print them', () => {
     expect(document.statistics.filter((statistic) => means.includes(statistic.value ?? NaN))).toEqual([]);
   });
 
+  it('reads df pairs whose comma a copy turned into a point ("1.23" for "1, 23") only where the pairs keep a design\'s pattern', () => {
+    const table = (dfs: string[]): string =>
+      `Table 2. ANOVA of the N400 amplitudes\n| Effect | df | F | p |\n|---|---|---|---|\n${['NP', 'CO', 'ROI × NP × CO'].map((effect, index) => `| ${effect} | ${dfs[index]} | ${['16.91', '18.02', '4.58'][index]} | <.001 |`).join('\n')}\n`;
+    // df2 = df1 × 23 on every row (a repeated-measures design with 24 participants): pairs.
+    expect(readAs(scanTextJson(table(['1.23', '2.46', '6.138'])).statistics)).toEqual([
+      ['F', 16.91, [1, 23]],
+      ['F', 18.02, [2, 46]],
+      ['F', 4.58, [6, 138]],
+    ]);
+    // The same error df on every row with the first varying (a between-subjects design): pairs.
+    expect(readAs(scanTextJson(table(['1.56', '2.56', '3.56'])).statistics)).toEqual([
+      ['F', 16.91, [1, 56]],
+      ['F', 18.02, [2, 56]],
+      ['F', 4.58, [3, 56]],
+    ]);
+    // Corrected df with decimals keep no such pattern: no pair is made of them.
+    expect(scanTextJson(table(['1.46', '1.87', '2.31'])).statistics.every((statistic) => statistic.df.length !== 2)).toBe(true);
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],

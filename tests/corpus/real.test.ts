@@ -31,9 +31,11 @@ const scores = scoreCorpus(corpus);
 // (0.848), holdout table recall 0.52 -> 0.56 (0.5667). They showed one misreading (a pipe row broken after its
 // label cell, its values closed by the row's last pipe) and 7 fails on consistent results in the holdout (a p taken
 // from the next row of a table); with both mended, precision stays 1 and fails on consistent results 0.
+// Later the same day, with model-coefficient tables and df pairs that lost their comma read: tune table recall 0.86
+// (0.869).
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.84, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.86, precision: 1, maxFailRate: 0.01 },
     text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
@@ -53,18 +55,22 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 // crushed one: crushed 0.93 -> 0.90.)
 // (2026-12-05, later: six renderings added, a page's running head in the middle of each table and long row labels
 // wrapped over two lines, each copied with tabs, crushed or aligned.)
+// (2026-12-05, later still: df pairs whose comma a copy turned into a point, "1.23" for "1, 23", are read where the
+// pairs keep a design's pattern; 38 results of dvzi-01 more in its pipe rows, read in the tab-separated copy but not
+// where the cells are placed by what they hold (crushed, aligned, one cell per line: "1.23" is no whole number
+// there), so those shares fall by the added denominator; no result read before is lost in any rendering.)
 const RENDERING_FLOORS: Record<Rendering, number> = {
   tabs: 0.99,
-  crushed: 0.9,
-  'cell-per-line': 0.81,
-  'consecutive-lines': 0.76,
-  aligned: 0.86,
+  crushed: 0.86,
+  'cell-per-line': 0.78,
+  'consecutive-lines': 0.73,
+  aligned: 0.82,
   'tabs-page-break': 0.99,
-  'crushed-page-break': 0.89,
-  'aligned-page-break': 0.85,
+  'crushed-page-break': 0.85,
+  'aligned-page-break': 0.81,
   'tabs-wrapped-labels': 0.96,
-  'crushed-wrapped-labels': 0.88,
-  'aligned-wrapped-labels': 0.84,
+  'crushed-wrapped-labels': 0.84,
+  'aligned-wrapped-labels': 0.8,
 };
 
 describe('real corpus: the passages and their labels', () => {

@@ -462,6 +462,18 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' ')) || /levene/i.test(text.slice(Math.max(0, table.start - 300), table.start + 300));
   const noteN = readNoteSampleSize(noteText);
   const tableNoteDf = withNamedExceptions(noteDf, [...segments.map((segment) => segment.title ?? ''), ...virtualRows.map((row) => row.cells[0] ?? '')]);
+  // F columns whose df column lost its pairs' commas ("1.23" for "1, 23"), with no other df for their second number.
+  const lostComma = new Set(
+    segments.filter(
+      (segment) =>
+        (segment.kind ?? kind) === 'F' &&
+        !segment.columns.has('df2') &&
+        !segment.columns.has('df1') &&
+        segment.headerDf.length === 0 &&
+        tableNoteDf.pair.length === 0 &&
+        lostCommaColumn(virtualRows.map((row) => row.cells), segment.columns.get('df')),
+    ),
+  );
   const separator = decimalSeparatorOf(virtualRows.map((row) => row.cells));
   const errorRows = virtualRows.map((row) => isErrorRow(row.cells, segments, separator));
   continueCorrectedErrorRows(virtualRows, errorRows, segments, separator);
@@ -523,6 +535,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         multiple: segments.length > 1 && blockUnknown !== true,
         errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
         noteDf: noteDfFor(tableNoteDf, [segment.title ?? '', row[0] ?? '']),
+        lostCommaDf: lostComma.has(segment),
         noteN,
         legend,
         rowSpan,
@@ -1844,6 +1857,8 @@ interface RowInput {
   multiple: boolean;
   errorRow: { row: string[]; cellsAt: (LocatedCell | null)[] | null } | null;
   noteDf: NoteDf;
+  /** The segment's df column holds pairs whose comma a copy turned into a point (lostCommaColumn). */
+  lostCommaDf?: boolean;
   noteN: ReportedNumber | null;
   /** The significance marks the table's notes define. */
   legend: ReadonlyMap<string, MarkBound>;
@@ -1976,7 +1991,7 @@ function readRow(input: RowInput): ReportedResult | null {
   record('statistic', statistic);
   const labelDf = readLabelDf(row[0] ?? '');
   // "2, 180": both df of an F in the df column.
-  const dfPair = kind === 'F' ? numberPair(row, cellsAt, columns.get('df'), input.separator) : null;
+  const dfPair = kind === 'F' ? (numberPair(row, cellsAt, columns.get('df'), input.separator) ?? (input.lostCommaDf === true ? lostCommaPair(row, cellsAt, columns.get('df')) : null)) : null;
   const dfCell = dfPair === null ? (withDf?.df.length === 1 ? withDf.df[0]! : plainNumber(row, cellsAt, columns.get('df'), input.separator)) : null;
   const df1Cell = dfPair?.[0] ?? (withDf?.df.length === 2 ? withDf.df[0]! : plainNumber(row, cellsAt, columns.get('df1'), input.separator));
   const df2Cell = dfPair?.[1] ?? (withDf?.df.length === 2 ? withDf.df[1]! : plainNumber(row, cellsAt, columns.get('df2'), input.separator));
@@ -2236,6 +2251,52 @@ function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, colum
     record: { ...parseReportedNumber(written.replace(',', '.'))!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length },
   });
   return [located(first, firstAt), located(second, secondAt)];
+}
+
+/** A df cell whose pair lost its comma to a copy: "1.23" for "1, 23" (see lostCommaColumn). */
+const LOST_COMMA_DF = /^(\d{1,2})\.(\d{2,4})$/;
+
+/**
+ * Whether an F's df column holds pairs whose comma a copy turned into a point ("1.23", "2.46", "6.138",
+ * "10.230" for "1, 23", "2, 46", …): every filled cell is a whole number, a point and two to four digits, at least
+ * three of them, and the second numbers follow from the first as a repeated-measures or a between-subjects table
+ * gives them (all the same multiple of the first: df2 = df1 × (n − 1); or all the same with the first varying).
+ * The point cannot be a decimal point then: a column of corrected df does not keep such a ratio.
+ */
+function lostCommaColumn(rows: readonly string[][], column: number | undefined): boolean {
+  if (column === undefined) return false;
+  const pairs: [number, number][] = [];
+  for (const row of rows) {
+    const cell = (row[column] ?? '').trim();
+    if (cell === '') continue;
+    const match = LOST_COMMA_DF.exec(cell);
+    if (match === null) return false;
+    const [first, second] = [Number(match[1]), Number(match[2])];
+    if (first < 1 || second <= first || match[2]!.startsWith('0')) return false;
+    pairs.push([first, second]);
+  }
+  if (pairs.length < MIN_LOST_COMMA_ROWS) return false;
+  const sameMultiple = pairs.every(([first, second]) => second % first === 0 && second / first === pairs[0]![1] / pairs[0]![0]);
+  const sameError = pairs.every(([, second]) => second === pairs[0]![1]) && new Set(pairs.map(([first]) => first)).size > 1;
+  return sameMultiple || sameError;
+}
+
+/** Fewest df cells that show the lost comma's pattern. */
+const MIN_LOST_COMMA_ROWS = 3;
+
+function lostCommaPair(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): [NumberCell, NumberCell] | null {
+  if (column === undefined) return null;
+  const cell = row[column] ?? '';
+  const match = LOST_COMMA_DF.exec(cell.trim());
+  if (match === null) return null;
+  const at = cellsAt?.[column] ?? null;
+  const firstAt = cell.indexOf(match[1]!);
+  const secondAt = firstAt + match[1]!.length + 1;
+  const located = (written: string, offset: number): NumberCell => ({
+    comparator: '=',
+    record: { ...parseReportedNumber(written)!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + written.length },
+  });
+  return [located(match[1]!, firstAt), located(match[2]!, secondAt)];
 }
 
 const STATISTIC_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: ?(?:[*\u2020\u2021]{1,4}))? *[([] *(?:df ?= ?)?(\d{1,6}(?:\.\d+)?) *(?:[,;] *(\d{1,6}(?:\.\d+)?) *)?[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/;

@@ -795,7 +795,11 @@ describe('real table shapes: a test not reported is not an error row (dvzi-01)',
   // error term, so its df are not the denominator of the F tests above it.
   it('takes no denominator df from a row whose F is a dash', () => {
     const { results } = scan('dvzi-01');
-    expect(results.filter((result) => result.kind === 'F' && result.df.length === 2)).toEqual([]);
+    // Each F's df are its own row's cell, whose comma the copy turned into a point ("1.23" for "1, 23"; the pairs
+    // keep df2 = 23 × df1), never a df taken from another row.
+    const withDf = results.filter((result) => result.kind === 'F' && result.df.length === 2);
+    expect(withDf.length).toBeGreaterThan(30);
+    for (const result of withDf) expect(result.text, result.text).toContain(`| ${result.df[0]!.text}.${result.df[1]!.text} |`);
   });
 
   it('still takes the df of an unnamed row whose F cell is empty', () => {
