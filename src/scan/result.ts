@@ -102,7 +102,8 @@ function readTail(text: string, draft: ResultDraft): boolean {
       }
     }
     // "F1,18 = 0.41p= 0.53": the statistic's value ended only because a p follows glued to it (statistic.ts).
-    const p = readTailPValue(text, next, last === 'head' && next === draft.head.end);
+    // "F6,89 = 10.10 <0.001" closing a crushed table's row: the p column's bound, its "p" left in the header.
+    const p = readTailPValue(text, next, last === 'head' && next === draft.head.end) ?? (last === 'head' && draft.p === null && draft.head.df.length > 0 ? boundClosingRow(text, draft.head.end) : null);
     if (p !== null) {
       // A second p-value belongs to something else.
       if (draft.p !== null) break;
@@ -333,6 +334,31 @@ function skipSpaceRun(text: string, at: number): number {
   while (text.charCodeAt(position) === 32) position++;
   return position;
 }
+
+/** Words a p column's cell may carry after its bound ("<0.001 FDR", "< .05 a", "<0.001 ***"). */
+const AFTER_ROW_BOUND = /^(?:[ \t]{1,3}(?:FDR|[*\u2020\u2021]{1,4}|[a-h]))?[ \t]*(?:\r?\n|$)/;
+
+/**
+ * A bound that closes a table row right after a statistic written with its df ("F6,89 = 10.10 <0.001", one
+ * space apart, then the line's end): the p column's cell, its "p" left in the header. Only "<" and "≤" (a bare
+ * number there could be an effect size or a count); only at a line's end.
+ */
+function boundClosingRow(text: string, valueEnd: number): ReportedP | null {
+  if (text.charCodeAt(valueEnd) !== 32) return null;
+  let at = valueEnd + 1;
+  const sign = text.charCodeAt(at);
+  if (sign !== 60 && sign !== 8804) return null; // "<", "≤"
+  at++;
+  if (text.charCodeAt(at) === 32) at++;
+  const read = readPValue(`p < ${text.slice(at, at + 12)}`, 0, false);
+  if (read === null || read.value.value <= 0 || read.value.value > MAX_ROW_BOUND) return null;
+  const end = at + read.end - 4;
+  if (!AFTER_ROW_BOUND.test(text.slice(end, end + 12))) return null;
+  return { ...read, comparator: sign === 60 ? '<' : '<=', start: valueEnd + 1, end };
+}
+
+/** Largest bound read as a row's p ("<0.10"). */
+const MAX_ROW_BOUND = 0.1;
 
 /** Length of "all " or "both " (with its space) at `at`; 0 otherwise. */
 function quantifierLength(text: string, at: number): number {

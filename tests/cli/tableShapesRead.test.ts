@@ -713,6 +713,22 @@ describe('results tables in the shapes papers print them', () => {
     expect(scanTextJson(table(['1.46', '1.87', '2.31'])).statistics.every((statistic) => statistic.df.length !== 2)).toBe(true);
   });
 
+  it('reads the bound that closes a crushed row after a result written with its df ("F6,89 = 10.10 <0.001") as its p, and no bare number', () => {
+    const lines = [
+      'Table 3. Effects of the marking methods on behaviour',
+      'Behaviour Comparison Effect Size p-Value *',
+      'Ear grooming Overall Treatment F6,89 = 10.10 <0.001',
+      'Facial grimacing Overall Treatment F6,89 = 2.22 0.048 FDR',
+      'Digging Overall Treatment F6,89 = 4.74 <0.001 FDR',
+    ];
+    const document = scanTextJson(`${lines.join('\n')}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.value, statistic.df, statistic.p === null ? null : `${statistic.p.comparator} ${statistic.p.value}`])).toEqual([
+      [10.1, [6, 89], '< 0.001'],
+      [2.22, [6, 89], null],
+      [4.74, [6, 89], '< 0.001'],
+    ]);
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],
