@@ -694,8 +694,14 @@ function isSpace(code: number): boolean {
   return code === 32 || code === 9 || code === 0xa0;
 }
 
-/** A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". */
-function isValueToken(text: string): boolean {
+/**
+ * A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". Kept per token text:
+ * every line's last tokens are asked by the row readers, and a token of prose with a sign or a number in it ("=
+ * .032,", "F(1,") is read by the text scanner each time (shapeOf's written results); such tokens recur.
+ */
+const isValueToken = keepAnswers(readsAsValueToken);
+
+function readsAsValueToken(text: string): boolean {
   const kind = readCell(text, 'either').kind;
   if (kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '')) return true;
   // A number with a bracketed one ("0.59 (0.5)": M and SD; "4.842 (15)": t and its df), a df pair ("2, 180"), an estimate with its interval.
