@@ -21,7 +21,7 @@
 
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
-import { shapeOf } from './align.js';
+import { isBracketedPairCell, shapeOf } from './align.js';
 import { keepAnswers } from '../memo.js';
 import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
@@ -714,8 +714,7 @@ function readsAsValueToken(text: string): boolean {
 
 /** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)" (align.ts reads its shape). */
 function isBracketedPair(text: string): boolean {
-  const shape = shapeOf(text);
-  return shape.shape === 'pair' && shape.bracketed === true;
+  return isBracketedPairCell(text);
 }
 
 /** A bound p followed by a df pair in brackets. */
