@@ -60,8 +60,21 @@ export function sentenceEnd(text: string, from: number, limit: number): number {
   return last;
 }
 
+/**
+ * The last text read and its groups: the descriptives and the factorial cells both read the whole document's
+ * groups, one after the other (the second reading cost as much as the first). Callers never change a group.
+ */
+let lastReading: { text: string; groups: readonly TextGroup[] } | null = null;
+
 /** Every group tuple written in the text, in order. */
 export function readTextGroups(original: string): TextGroup[] {
+  if (lastReading !== null && lastReading.text === original) return [...lastReading.groups];
+  const groups = readGroupsOf(original);
+  lastReading = { text: original, groups };
+  return [...groups];
+}
+
+function readGroupsOf(original: string): TextGroup[] {
   const normalised = normaliseText(original);
   const text = normalised.text;
   const groups: TextGroup[] = [];

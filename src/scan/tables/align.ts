@@ -64,10 +64,24 @@ const PLUS_MINUS = /^([-\u2212]?(?:\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?))[a-h
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
 const NUMBER_INTERVAL = /^((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:[*\u2020\u2021]{1,4} *)?[([] *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *(?:,|;|to|\u2013|-) *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) *[)\]](?: *(?:[*\u2020\u2021]{1,4}|[a-h]))?$/;
 
+/** Garbled glyphs and thin spaces, which shapeOf reads in the cell's normalised copy. */
+const NEEDS_REPAIR = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f]/;
+
+/**
+ * Whether a cell is read as a df pair in brackets ("(2, 57)", "[1; 38]"), as shapeOf reads it. A cell read as is
+ * (nothing to repair) that the pattern does not fit is not one, and is not read whole: the tokenizer asks this of
+ * every bracket in a line, and a bracket of prose, "(M = 4.32, SD = 1.10, n = 30)", went to the text scanner.
+ */
+export function isBracketedPairCell(cell: string): boolean {
+  if (!NEEDS_REPAIR.test(cell) && !BRACKETED_PAIR.test(cell.trim())) return false;
+  const shape = shapeOf(cell);
+  return shape.shape === 'pair' && shape.bracketed === true;
+}
+
 /** The shape of one cell as written. */
 export function shapeOf(cell: string): CellShape {
   // Garbled glyphs and thin spaces ("âˆ’â€‰0.05") are read as what they stand for.
-  const text = (/[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f]/.test(cell) ? normaliseText(cell).text : cell).trim();
+  const text = (NEEDS_REPAIR.test(cell) ? normaliseText(cell).text : cell).trim();
   if (MARK.test(text)) return { shape: 'mark' };
   const read = readCell(text, 'either');
   if (read.kind === 'empty') return { shape: 'empty' };

@@ -143,7 +143,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // name there, and without a title that says correlations, there is none, and the cells after (up to
   // MAX_BODY_CELLS of prose, to the next title) are not collected. (Their first cells are the same either way:
   // collectCells reads line by line.)
-  const head = collectCells(lines, titleLine + 1, titleLine + MAX_LINES_TO_HEADER);
+  // (headerStart looks at no more than MAX_CELLS_TO_HEADER cells with text, so no more are collected for it: the
+  // lines of prose after a table's title were all collected, up to MAX_LINES_TO_HEADER, at every title.)
+  const head = collectCells(lines, titleLine + 1, titleLine + MAX_LINES_TO_HEADER, MAX_CELLS_TO_HEADER);
   const headFirstCell = head.find((cell) => !cell.empty);
   if (headerStart(head, titleLine) === -1 && headFirstCell !== undefined && !captionOf(lines, titleLine, titled, headFirstCell).correlations) return null;
   const cells = collectCells(lines, titleLine + 1);
@@ -283,10 +285,12 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
 
 /**
  * The cells after `from`: one per non-blank line, up to a note, a long line of prose, or a gap of blank lines
- * (and, when given, no further than line `lastLine`: the first cells of the same collection).
+ * (and, when given, no further than line `lastLine`, and no further than the line that brings the cells with
+ * text to `mostTextCells`: the first cells of the same collection, apart from empty cells at its end).
  */
-function collectCells(lines: Line[], from: number, lastLine = Infinity): Cell[] {
+function collectCells(lines: Line[], from: number, lastLine = Infinity, mostTextCells = Infinity): Cell[] {
   const cells: Cell[] = [];
+  let textCells = 0;
   let blankRun = 0;
   // Whether a cell so far names a column: kept as cells come, not looked for again at every line.
   let headerSeen = false;
@@ -297,7 +301,7 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity): Cell[] 
   let lastCellLine = -1;
   // The last run of empty lines taken as empty cells, until a value comes after it.
   let tailEmpties: { at: number; run: number } | null = null;
-  for (let index = from; index < lines.length && index <= lastLine && cells.length < MAX_BODY_CELLS; index++) {
+  for (let index = from; index < lines.length && index <= lastLine && cells.length < MAX_BODY_CELLS && textCells < mostTextCells; index++) {
     const line = lines[index]!;
     const inner = stripPipes(line.text);
     if (inner === null) {
@@ -337,10 +341,12 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity): Cell[] 
     const names = isColumnName(text) || crushedRowFollows(lines, index) ? null : splitRunTogetherNames(text);
     if (names !== null) {
       for (const name of names) cells.push({ text: name.text, start: start + name.start, end: start + name.end, line: index, empty: false });
+      textCells += names.length;
       headerSeen ||= names.some((name) => isColumnName(name.text));
       continue;
     }
     cells.push({ text, start, end: start + text.length, line: index, empty: false });
+    textCells++;
     headerSeen ||= isColumnName(text);
     if (tailEmpties !== null && isValueCell(cells[cells.length - 1]!)) tailEmpties = null;
     if (index - lastCellLine === 1) adjacentCells++;

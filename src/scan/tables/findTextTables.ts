@@ -21,7 +21,7 @@
 
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
 import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
-import { shapeOf } from './align.js';
+import { isBracketedPairCell, shapeOf } from './align.js';
 import { keepAnswers } from '../memo.js';
 import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
 import { extremes } from '../../arrays.js';
@@ -757,8 +757,14 @@ function isSpace(code: number): boolean {
   return code === 32 || code === 9 || code === 0xa0;
 }
 
-/** A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". */
-function isValueToken(text: string): boolean {
+/**
+ * A cell that may stand in a row's run of values: a number, a dash for an empty cell, "ns". Kept per token text:
+ * every line's last tokens are asked by the row readers, and a token of prose with a sign or a number in it ("=
+ * .032,", "F(1,") is read by the text scanner each time (shapeOf's written results); such tokens recur.
+ */
+const isValueToken = keepAnswers(readsAsValueToken);
+
+function readsAsValueToken(text: string): boolean {
   const kind = readCell(text, 'either').kind;
   if (kind === 'number' || kind === 'ns' || (kind === 'empty' && text.trim() !== '')) return true;
   // A number with a bracketed one ("0.59 (0.5)": M and SD; "4.842 (15)": t and its df), a df pair ("2, 180"), an estimate with its interval.
@@ -771,8 +777,7 @@ function isValueToken(text: string): boolean {
 
 /** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)" (align.ts reads its shape). */
 function isBracketedPair(text: string): boolean {
-  const shape = shapeOf(text);
-  return shape.shape === 'pair' && shape.bracketed === true;
+  return isBracketedPairCell(text);
 }
 
 /** A bound p followed by a df pair in brackets. */
