@@ -729,6 +729,25 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('reads side-by-side blocks whose titles carry their numerator df ("Treatment (num. df = 1)") over an aligned or crushed header', () => {
+    const rows = [
+      ['Parameter', 'Treatment (num. df = 1)', 'Temperature (num. df = 7)'],
+      ['', 'SS', 'MS', 'D. df', 'F', 'p', 'SS', 'MS', 'D. df', 'F', 'p'],
+      ['Fv/Fm', '18.9', '18.9', '686.1', '676.4', '<0.01', '35.5', '5.1', '679.0', '181.9', '<0.01'],
+      ['Gross P:R', '14.3', '14.3', '119.9', '41.3', '<0.01', '25.3', '3.6', '10.5', '126.2', '<0.01'],
+    ];
+    for (const [copy, gap] of [['aligned', '   '], ['crushed', ' ']] as const) {
+      const table = rows.map((row) => row.filter((cell) => cell !== '').join(gap)).join('\n');
+      const document = scanTextJson(`Table 3. Results of the laboratory experiment.\n${table}\n\nThe next section.\n`);
+      expect(readAs(document.statistics), copy).toEqual([
+        ['F', 676.4, [1, 686.1]],
+        ['F', 181.9, [7, 679]],
+        ['F', 41.3, [1, 119.9]],
+        ['F', 126.2, [7, 10.5]],
+      ]);
+    }
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],

@@ -58,19 +58,20 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 // (2026-12-05, later still: df pairs whose comma a copy turned into a point, "1.23" for "1, 23", are read where the
 // pairs keep a design's pattern; 38 results of dvzi-01 more in its pipe rows, read in the tab-separated copy but not
 // where the cells are placed by what they hold (crushed, aligned, one cell per line: "1.23" is no whole number
-// there), so those shares fall by the added denominator; no result read before is lost in any rendering.)
+// there), so those shares fall by the added denominator; no result read before is lost in any rendering. Then block
+// titles that carry their numerator df are read over an aligned header too: aligned 0.82 -> 0.86.)
 const RENDERING_FLOORS: Record<Rendering, number> = {
   tabs: 0.99,
   crushed: 0.86,
   'cell-per-line': 0.78,
   'consecutive-lines': 0.73,
-  aligned: 0.82,
+  aligned: 0.86,
   'tabs-page-break': 0.99,
   'crushed-page-break': 0.85,
-  'aligned-page-break': 0.81,
+  'aligned-page-break': 0.85,
   'tabs-wrapped-labels': 0.96,
   'crushed-wrapped-labels': 0.84,
-  'aligned-wrapped-labels': 0.8,
+  'aligned-wrapped-labels': 0.84,
 };
 
 describe('real corpus: the passages and their labels', () => {

@@ -1503,7 +1503,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const rows: (string[] | { data: DataLine; line: Line })[] = columns ? [columns] : [];
   // Titles of side-by-side blocks on the line over a crushed header, each closed by its df ("Treatment
   // (num. df = 1) Temperature (num. df = 7)"): an upper header row, cut after each title's df.
-  const blockTitles = header !== null && !header.aligned && !header.tabbed ? dfTitlesOf(lines[first - 1]) : null;
+  const blockTitles = header !== null && !header.tabbed ? dfTitlesOf(lines[first - 1]) : null;
   if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
   let subHeaderLines = 0;
