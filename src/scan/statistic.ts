@@ -487,6 +487,8 @@ function effectNameEnd(text: string, position: number): number {
   while (at < limit) {
     const code = text.charCodeAt(at);
     if (code === 61 || code === 60 || code === 62) break;
+    // (A line a PDF's text wrapped may end after the name: "F Region" / "= 0.01"; the name ends there.)
+    if (code === 10 && comparatorFollows(text, at + 1)) break;
     if (!(isAsciiLetter(code) || code === 32 || code === 45 || code === 0xd7)) return -1;
     at++;
   }
@@ -494,6 +496,14 @@ function effectNameEnd(text: string, position: number): number {
   let end = at;
   while (end > position && text.charCodeAt(end - 1) === 32) end--;
   return end - position >= 3 ? end : -1;
+}
+
+/** Whether "=", "<" or ">" stands at `position`, after spaces. */
+function comparatorFollows(text: string, position: number): boolean {
+  let at = position;
+  while (at < position + 3 && text.charCodeAt(at) === 32) at++;
+  const code = text.charCodeAt(at);
+  return code === 61 || code === 60 || code === 62;
 }
 
 /** "1" or "2" right after an F, then its bracketed df: "F1(1, 31)", "F2 (1, 46)". */

@@ -150,6 +150,9 @@ describe('p and df written in further ways after a statistic, from the command l
   it('reads an F whose flattened subscript df a wrapped line breaks after the comma ("F22," / "233 = 1.06")', () => {
     // F(22, 233) = 1.06 gives p = .393 (SciPy 1.10.1 scipy.stats.f.sf(1.06, 22, 233), computed when the test was written).
     expect(readAll('The interaction was not significant, F22,\n233 = 1.06, p = 0.393, in either group.\n')).toEqual([['F', [22, 233], 1.06, '= 0.393']]);
+    // And an F subscripted by its effect's name, the line ending after the name (F(1, 16) = 0.01 gives p = .922;
+    // SciPy 1.10.1 scipy.stats.f.sf(0.01, 1, 16), computed when the test was written).
+    expect(readAll('The effect of region was small (F Region\n= 0.01, d.f. = 1,16, P = 0.922).\n')).toEqual([['F', [1, 16], 0.01, '= 0.922']]);
   });
 
   it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
