@@ -748,6 +748,20 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('tests a regression ANOVA\'s lack of fit against pure error, not the residual, and no lack of fit against a residual alone', () => {
+    // F(4, 5) = 34.5 gives p = .0008, F(2, 3) = 6.00 gives p = .089 (SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written).
+    const rows = ['Source SS df MS F p', 'Model 89.70 4 22.43 34.5 0.0008', 'Residual 3.25 5 0.65', 'Lack of fit 2.60 2 1.30 6.00 0.0894', 'Pure error 0.65 3 0.217', 'Corr. Total 92.95 9'];
+    const document = scanTextJson(`Table 4. ANOVA for the mixture design\n${rows.join('\n')}\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 34.5, [4, 5]],
+      ['F', 6, [2, 3]],
+    ]);
+    expect(document.statistics.flatMap((statistic) => statistic.findings.filter((finding) => finding.severity === 'fail'))).toEqual([]);
+    // Without a pure-error row the lack of fit's error df are not the residual's.
+    const withoutPureError = scanTextJson(`Table 4. ANOVA for the mixture design\n${rows.filter((row) => !row.startsWith('Pure')).join('\n')}\n\nThe next section.\n`);
+    expect(readAs(withoutPureError.statistics).filter((statistic) => statistic[1] === 6)).not.toContainEqual(['F', 6, [2, 5]]);
+  });
+
   it('never gives a statistic at the end of a table row the p that stands on the next row', () => {
     for (const [copy, rows] of [
       ['tabs', ['Effect\tTest\tp', 'Group\tF2,73 = 2.20 (ns)\t', '\tP = 0.117\t', 'Time\tF1,73 = 5.10 (sig.)\t', '\tP = 0.027\t']],

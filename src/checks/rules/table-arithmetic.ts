@@ -91,6 +91,12 @@ function likePrinted(value: number, printed: ReportedNumber): string {
   return printed.text.startsWith('.') || printed.text.startsWith('-.') ? text.replace(/^(-?)0\./, '$1.') : text;
 }
 
+/** The interval of a number whose last printed decimal is 0, read at one decimal fewer; null otherwise. */
+function withoutPaddingZero(number: ReportedNumber): Interval | null {
+  if (number.decimals < 2 || number.exponent !== 0 || !number.text.endsWith('0')) return null;
+  return nonNegative({ ...number, text: number.text.slice(0, -1), decimals: number.decimals - 1 });
+}
+
 function rowDf(cells: Cells): ReportedNumber | undefined {
   return cells.df ?? cells.df1;
 }
@@ -124,6 +130,10 @@ function checkMeanSquare(cells: Cells, table: string, row: string): FindingDraft
   const ms = nonNegative(cells.ms);
   const recomputed = divideSs(cells.ss, df);
   if (!ms || !recomputed || overlaps(ms, recomputed)) return null;
+  // A last decimal of 0 may be padding ("0.260" for a mean square rounded to 0.26, the column printed to three
+  // places): the cell is also taken at one place fewer before it is flagged.
+  const padded = withoutPaddingZero(cells.ms);
+  if (padded !== null && overlaps(padded, recomputed)) return null;
   return {
     messageId: 'msMismatch',
     data: {

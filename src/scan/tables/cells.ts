@@ -582,7 +582,7 @@ export function knownHeaderNames(): readonly string[] {
 // "error", "erro", "residuo", "resíduo", "dentro de grupos", "intragrupos"; French "erreur", "résidu",
 // "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
 export const ERROR_LABEL =
-  /^(?:error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
+  /^(?:error|pure[- ]error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
 /** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
 export const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 

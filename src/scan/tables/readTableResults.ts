@@ -96,6 +96,19 @@ const SUMMARY_THEN_VALUES = /(?:^|\s)(?:M|Mean|Means|mean|means)\s?(?:\(S[DE]\)|
 /** A variable's name, a comma, then its summary's words: "Age (y), mean (SD)", "BMI, M ± SD", "Score, means". */
 const VARIABLE_THEN_SUMMARY = /^\p{L}[^,]{0,80}, ?(?:M|m|[Mm]eans?)(?: ?\(S[DE]\)| ?\u00b1 ?S[DE]| S[DE])?$/u;
 
+/** A regression ANOVA's lack-of-fit row and the pure-error row it is tested against. */
+const LACK_OF_FIT_LABEL = /^lack[- ]of[- ]fit(?![a-z])/;
+const RESIDUAL_LABEL = /^residuals?(?![a-z])/;
+
+/** The first error row after `index`, unless it is the residual (the lack of fit's own parent); null otherwise. */
+function pureErrorBelow(rows: readonly VirtualRow[], errorRows: readonly boolean[], index: number): number | null {
+  for (let below = index + 1; below < rows.length; below++) {
+    if (!errorRows[below]) continue;
+    return RESIDUAL_LABEL.test(headerKey(rows[below]!.cells[0] ?? '')) ? null : below;
+  }
+  return null;
+}
+
 const INTERCEPT_LABEL = /^(?:\(?intercept\)?|constant|grand mean)(?![a-z])/;
 
 /** Reads every table's effect rows as results; tables may come from the document's markup and from findTextTables. */
@@ -513,7 +526,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     }
     const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
-    const errorIndex = nearestErrorRow[index] ?? null;
+    // A lack-of-fit test is against pure error, not the residual (common practice in regression ANOVA tables):
+    // the error row below it (pure error), or none when that is the residual or there is none.
+    const errorIndex = LACK_OF_FIT_LABEL.test(labelKey) ? pureErrorBelow(virtualRows, errorRows, index) : (nearestErrorRow[index] ?? null);
     const rowSpan = spanOfRow(row, cellsAt);
     if (rowSpan === null) continue;
     let read = false;

@@ -46,6 +46,11 @@ describe(`${rule}: must pass`, () => {
     expect(findings).toEqual([[]]);
   });
 
+  it('an MS whose last decimal 0 is padding (1.85 / 7 = 0.264 printed 0.260, as 0.26 to three places)', () => {
+    const findings = tableFindings([header, 'Condition | 14.6 | 2 | 7.29 | 27.6 | .0005 | .89', 'Error | 1.85 | 7 | 0.260 | | |']);
+    expect(findings).toEqual({ Condition: [] });
+  });
+
   it('a table without SS or MS has nothing to check', () => {
     expect(tableFindings(['Source | df | F | p', 'Dose | 1 | 10.0 | .002', 'Error | 95 | |'])).toEqual({ Dose: [] });
   });
