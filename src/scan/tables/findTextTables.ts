@@ -1326,7 +1326,7 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     // A header with known column names ("r (P value)", "M SD r p") is read by the other readers.
     if (readHeader(line) !== null) return null;
     // The first row, its label wrapped by the page, ends the header.
-    if (headers.length > 0 && wrappedNumberedRow(line, lines[index + 1], true) !== null) break;
+    if (headers.length > 0 && wrappedLabelRow(line, lines[index + 1], true) !== null) break;
     headers.push(tokens.map((token) => token.text));
   }
   const rows: string[][] = [];
@@ -1341,7 +1341,7 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     const first = tokens.findIndex((token) => isValueToken(token.text));
     // A label the page wrapped over two lines, numbered ("1. SPAS a" / "Total Score - - -") or going on in small
     // letters ("Spatial-temporal parameters Gait" / "speed 0.449 †† 0.430 ††"): one row.
-    const wrapped = first === -1 ? wrappedNumberedRow(line, lines[index + 1], true) : null;
+    const wrapped = first === -1 ? wrappedLabelRow(line, lines[index + 1], true) : null;
     if (wrapped !== null) {
       rows.push(wrapped);
       last = ++index;
@@ -1376,10 +1376,11 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
 }
 
 /**
- * A matrix row whose numbered label a page wrapped: a line with the number and the label's first words and no
- * value, then a line with the rest of the label (not numbered itself) and the values. Null otherwise.
+ * A correlation table's row whose label a page wrapped: a line with the label's first words and no value, then a
+ * line with the rest of the label and the values; the first line numbered ("1. SPAS a"), or (`orLowerCase`) the
+ * second going on in small letters ("parameters Gait speed 0.449"). The second is not numbered itself. Null otherwise.
  */
-function wrappedNumberedRow(line: Line, next: Line | undefined, orLowerCase = false): string[] | null {
+function wrappedLabelRow(line: Line, next: Line | undefined, orLowerCase = false): string[] | null {
   const head = line.text.trim();
   if (next === undefined || head.length > MAX_WRAPPED_LABEL || TITLE.test(next.text) || NOTE.test(next.text) || TITLE.test(head) || NOTE.test(head)) return null;
   if (!NUMBERED_LABEL.test(head) && !(orLowerCase && /^\p{Ll}/u.test(next.text.trim()))) return null;
