@@ -356,6 +356,11 @@ function readSubscriptDf(text: string, position: number, kind: StatisticKind): D
     return { df: [first.number], sampleSize: null, end: first.end, bracketed: false, doubtful };
   }
   let at = first.end;
+  // "F2/87 = 4.10": a slash between subscript df, set close (a spaced slash may be a ratio of two numbers).
+  if (text.charCodeAt(at) === 47 && isAsciiDigit(text.charCodeAt(at + 1))) {
+    const afterSlash = readDf(text, at + 1, false);
+    return afterSlash === null ? null : { df: [first.number, afterSlash.number], sampleSize: null, end: afterSlash.end, bracketed: false, doubtful: false };
+  }
   if (text.charCodeAt(at) === 32) at++;
   if (text.charCodeAt(at) !== 44) return null;
   at++;

@@ -52,12 +52,25 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
-  it('does not give every column the df a note states for one effect', () => {
+  it('does not give every column the df a note states for one effect, but gives each block the df stated for it by name', () => {
     const document = scanTextJson(
       'Table 3\nANOVA results for each outcome\n\tGroup\t\tTime\t\nOutcome\tF\tp\tF\tp\nAnxiety\t4.21\t.020\t2.11\t.152\nDepression\t6.66\t.002\t1.02\t.317\nNote. df = 2, 57 for Group and 1, 57 for Time.\n\nNext.\n',
     );
-    // (The df of Time's F tests are not 2 and 57: read without df, each is listed, never checked with those.)
-    expect(document.statistics.filter((statistic) => statistic.df.length > 0)).toEqual([]);
+    // (The df of Time's F tests are not 2 and 57: each block takes the pair stated for its title.)
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 2.11, [1, 57]],
+      ['F', 6.66, [2, 57]],
+      ['F', 1.02, [1, 57]],
+    ]);
+    // df stated for one effect only: no block takes them (the other's df are not stated).
+    const one = scanTextJson(
+      'Table 3\nANOVA results for each outcome\n\tGroup\t\tTime\t\nOutcome\tF\tp\tF\tp\nAnxiety\t4.21\t.020\t2.11\t.152\nDepression\t6.66\t.002\t1.02\t.317\nNote. df = 2, 57 for Group.\n\nNext.\n',
+    );
+    expect(readAs(one.statistics).filter((statistic) => (statistic[2] as number[]).length > 0)).toEqual([
+      ['F', 4.21, [2, 57]],
+      ['F', 6.66, [2, 57]],
+    ]);
     // A note that states df for all tests still gives them to every row.
     const all = scanTextJson('Table 3\nANOVA results\nOutcome\tF\tp\nAnxiety\t4.21\t.020\nDepression\t6.66\t.002\nNote. df = 2, 57 for all tests.\n\nNext.\n');
     expect(readAs(all.statistics)).toEqual([
@@ -494,13 +507,23 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
-  it('takes neither df pair of a note that states one for most columns and another for one of them', () => {
-    const document = scanTextJson(
-      'Table 2. ANOVA of each measure\nTerm Mass Count Output\n F P F P F P\nSC 5.81 0.02 8.48 0.007 5.22 0.03\nMR 0.06 0.81 0.12 0.73 0.09 0.76\nNote. d.f. = 1,28 except for output, where one subject was excluded and so d.f. = 1,27.\n\nNext.\n',
-    );
-    // (Which column takes 1,27 the note says only in words: every F is read, none with df it may not have.)
-    expect(document.statistics.map((statistic) => statistic.value)).toEqual([5.81, 8.48, 5.22, 0.06, 0.12, 0.09]);
-    expect(document.statistics.filter((statistic) => statistic.df.length > 0)).toEqual([]);
+  it('takes neither df pair of a note that states one for most columns and another for one of them, unless a block is so named', () => {
+    const table = (titles: string): string =>
+      `Table 2. ANOVA of each measure\n${titles}\n F P F P F P\nSC 5.81 0.02 8.48 0.007 5.22 0.03\nMR 0.06 0.81 0.12 0.73 0.09 0.76\nNote. d.f. = 1,28 except for output, where one subject was excluded and so d.f. = 1,27.\n\nNext.\n`;
+    // (Titles in small letters cannot be cut into blocks: which column takes 1,27 the note says only in words, and
+    // every F is read, none with df it may not have.)
+    const uncut = scanTextJson(table('term mass count output'));
+    expect(uncut.statistics.map((statistic) => statistic.value)).toEqual([5.81, 8.48, 5.22, 0.06, 0.12, 0.09]);
+    expect(uncut.statistics.filter((statistic) => statistic.df.length > 0)).toEqual([]);
+    // Titles cut at their capitals, one per block: the block titled "Output" takes the exception's pair.
+    expect(readAs(scanTextJson(table('Term Mass Count Output')).statistics)).toEqual([
+      ['F', 5.81, [1, 28]],
+      ['F', 8.48, [1, 28]],
+      ['F', 5.22, [1, 27]],
+      ['F', 0.06, [1, 28]],
+      ['F', 0.12, [1, 28]],
+      ['F', 0.09, [1, 27]],
+    ]);
   });
 
   it('does not place counts with their percentages ("7 (24)") under a "Chi-square (df)" column of a crushed table', () => {
@@ -654,6 +677,53 @@ describe('results tables in the shapes papers print them', () => {
     const renamed = scanTextJson(`Table 2. ANOVAs of the ejaculate measures\n${rows.join('\n').replace('Daily sperm production', 'Sperm output')}\n${note}\n`);
     expect(renamed.statistics.every((statistic) => statistic.df.length === 0)).toBe(true);
     expect(renamed.statistics.length).toBeGreaterThan(0);
+  });
+
+  it('gives each row the df its note states for it by name ("Degrees of freedom: Group 2, 57; Time 1, 57"), and none to a row the note does not name', () => {
+    const table = (note: string): string => `Table 2. Effects on recall\nEffect\tF\tp\tηp2\nGroup\t4.10\t.022\t.13\nTime\t6.20\t.016\t.10\nGroup × Time\t0.40\t.672\t.01\n${note}\n\nNext.\n`;
+    for (const note of ['Note. Degrees of freedom: Group 2, 57; Time 1, 57; Group × Time 2, 57.', 'Note. df = 2, 57 for Group, 1, 57 for Time and 2, 57 for Group × Time.']) {
+      expect(readAs(scanTextJson(table(note)).statistics), note).toEqual([
+        ['F', 4.1, [2, 57]],
+        ['F', 6.2, [1, 57]],
+        ['F', 0.4, [2, 57]],
+      ]);
+    }
+    // The interaction is not "Group": a row the note does not name takes no df.
+    expect(readAs(scanTextJson(table('Note. Degrees of freedom: Group 2, 57; Time 1, 57.')).statistics)).toEqual([
+      ['F', 4.1, [2, 57]],
+      ['F', 6.2, [1, 57]],
+      ['F', 0.4, []],
+    ]);
+    // A name that is no row's ("interaction" beside "Group × Time"): no row takes any pair.
+    const unnamed = scanTextJson(table('Note. Degrees of freedom: Group 2, 57; Time 1, 57; interaction 2, 57.')).statistics;
+    expect(unnamed.every((statistic) => statistic.df.length === 0)).toBe(true);
+  });
+
+  it('reads the titles of side-by-side blocks over a crushed header from their capitals, for a note that names one of them', () => {
+    // Rows and note as a journal's table page gives them (tests/corpus/real/passages/dwbe-01.txt, CC BY 4.0).
+    const text = [
+      'Table 2 Sperm competition risk but not potential mating rate impacts on ejaculate production',
+      '',
+      'Term Paired testes mass Epididymal sperm count Daily sperm production Seminal vesicles mass',
+      '  F P F P F P F P',
+      'SC 5.81 0.02 8.48 0.007 5.22 0.03 4.37 0.046',
+      'MR 0.06 0.81 0.12 0.73 0.09 0.76 0.21 0.65',
+      '  1. In all cases, the degrees of freedom for each F test, d.f. = 1,28 except for daily sperm production where one subject was excluded and so d.f. = 1,27.',
+      '',
+    ].join('\n');
+    expect(readAs(scanTextJson(text).statistics)).toEqual([
+      ['F', 5.81, [1, 28]],
+      ['F', 8.48, [1, 28]],
+      ['F', 5.22, [1, 27]],
+      ['F', 4.37, [1, 28]],
+      ['F', 0.06, [1, 28]],
+      ['F', 0.12, [1, 28]],
+      ['F', 0.09, [1, 27]],
+      ['F', 0.21, [1, 28]],
+    ]);
+    // Titles the capitals cut into one too many ("Sperm count DSP") are not taken, and the exception then names no block.
+    const tooMany = scanTextJson(text.replace('Epididymal sperm count', 'Epididymal sperm count DSP')).statistics;
+    expect(tooMany.every((statistic) => statistic.df.length === 0)).toBe(true);
   });
 
   it('reads correlation matrices the same when their caption is wrapped over two lines, as a PDF\'s text gives it', () => {

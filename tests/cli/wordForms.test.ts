@@ -155,6 +155,11 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('The effect of region was small (F Region\n= 0.01, d.f. = 1,16, P = 0.922).\n')).toEqual([['F', [1, 16], 0.01, '= 0.922']]);
   });
 
+  it('reads an F whose subscript df are set apart by a slash ("F2/87 = 4.10"), as a flattened subscript prints them', () => {
+    // F(2, 87) = 4.10 gives p = .020 (SciPy 1.10.1 scipy.stats.f.sf(4.10, 2, 87) = 0.0199, computed when the test was written).
+    expect(readAll('Growth differed between the diets (F2/87 = 4.10, P = 0.020).\n')).toEqual([['F', [2, 87], 4.1, '= 0.020']]);
+  });
+
   it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
     // F(2, 57) = 12.10 gives p = 4.17e-5 (SciPy 1.10.1 scipy.stats.f.sf(12.10, 2, 57), computed when the test was written).
     const text = 'Groups differed, F(2, 57) = 12.10, p = 4.2 × 10 −5. They did again, F(2, 57) = 12.10, p = 4.2 × 10 − 5. And again, F(2, 57) = 12.10, p < 10 −4.\n';

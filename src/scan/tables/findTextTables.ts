@@ -1504,7 +1504,7 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const rows: (string[] | { data: DataLine; line: Line })[] = columns ? [columns] : [];
   // Titles of side-by-side blocks on the line over a crushed header, each closed by its df ("Treatment
   // (num. df = 1) Temperature (num. df = 7)"): an upper header row, cut after each title's df.
-  const blockTitles = header !== null && !header.tabbed ? dfTitlesOf(lines[first - 1]) : null;
+  const blockTitles = header !== null && !header.tabbed ? (dfTitlesOf(lines[first - 1]) ?? capitalisedTitlesOf(lines[first - 1], header)) : null;
   if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
   let subHeaderLines = 0;
@@ -1622,6 +1622,26 @@ function continuationValues(line: Line, room: number): Piece[] | null {
   const tokens = tokenize(line.text);
   if (tokens.length === 0 || tokens.length > room || !tokens.every((token) => isValueToken(token.text) || isMarkToken(token.text))) return null;
   return [...tokens];
+}
+
+/**
+ * The block titles of the line over a crushed header that repeats a test's columns ("F P F P F P F P" under "Term
+ * Paired testes mass Epididymal sperm count Daily sperm production Seminal vesicles mass"), cut where a word
+ * begins with a capital: kept only when that gives one title per statistic column, after the label column's name
+ * or none. (A title with a capital inside, "Sperm count DSP", gives one title too many, and the line is not cut.)
+ */
+function capitalisedTitlesOf(line: Line | undefined, header: HeaderLine): string[] | null {
+  if (line === undefined || isBlank(line) || line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text) || NOTE.test(line.text) || /\d/.test(line.text)) return null;
+  const blocks = header.columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;
+  if (blocks < 2 || readHeader(line) !== null) return null;
+  const titles: string[] = [];
+  for (const word of line.text.trim().split(/\s+/)) {
+    if (/^\p{Lu}/u.test(word) || titles.length === 0) titles.push(word);
+    else titles[titles.length - 1] += ` ${word}`;
+  }
+  if (titles.length === blocks + 1) return titles;
+  if (titles.length === blocks && /^\s/.test(line.text)) return ['', ...titles];
+  return null;
 }
 
 /** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */

@@ -33,6 +33,12 @@ export interface NoteDfException {
   /** The words after "except (for)", lower case: "daily sperm production". */
   name: string;
   pair: ReportedNumber[];
+  /**
+   * Set for df stated name by name ("df: Group 2, 57; Time 1, 57"): the name must be the row's or block's whole
+   * name (words "effect" and "interaction" aside), since "Group x Time" is not "Group". An exception's name may be
+   * part of a longer title ("daily sperm production (x 10^6)").
+   */
+  wholeName?: true;
 }
 
 const NUMBER = String.raw`(\d{1,6}(?:\.\d{1,3})?)`;
@@ -81,7 +87,7 @@ const MAY_STATE_DF = /df|d\.\s?f|degree|freedom|\bgl\b|g\.l\.|\bddl\b|d\.d\.l|\b
 
 /** Whether a note states no df at all. */
 export function statesNoDf(noteDf: NoteDf): boolean {
-  return noteDf.pair.length === 0 && noteDf.single === null && noteDf.error === null;
+  return noteDf.pair.length === 0 && noteDf.single === null && noteDf.error === null && (noteDf.exceptions ?? []).length === 0;
 }
 
 /**
@@ -103,6 +109,10 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
   if (effectMatch && error) return { ...none, pair: [number(effectMatch[1]!), error], error };
   // What is left once the named error df is taken out: "df = 2, error df = 57" leaves "df = 2".
   const rest = errorMatch ? text.slice(0, errorMatch.index) + text.slice(errorMatch.index + errorMatch[0].length) : text;
+  // df stated name by name ("df: Group 2, 57; Time 1, 57", "df = 2, 57 for Group and 1, 57 for Time"): each
+  // named row's or block's own pair, kept by the table reader only when every name is one of its rows or blocks.
+  const named = readNamedPairs(rest);
+  if (named.length > 0) return { ...none, error, exceptions: named };
   const pair = DF_PAIR.exec(rest) ?? PAIR_THEN_DF.exec(rest);
   // df stated for one effect ("df = 2, 57 for Group and 1, 57 for Time") are that row's, not every row's.
   if (pair && statedForOneEffect(rest.slice(pair.index + pair[0].length))) return { ...none, error };
@@ -173,4 +183,78 @@ function statesOtherPair(text: string, first: RegExpExecArray): boolean {
     if (Number(match[1]) !== Number(first[1]) || Number(match[2]) !== Number(first[2])) return true;
   }
   return false;
+}
+
+// ------------------------------------------------------------ df stated name by name
+
+/** An effect's name as a note writes it: a letter, then letters, spaces, apostrophes, hyphens and "*" (an interaction "Group x Time"). */
+const EFFECT_NAME = String.raw`(\p{L}[\p{L}\p{M} '*-]{0,40}?)`;
+/** "Group 2, 57", "Group x Time: 2, 57", "Group (2, 57)", "Group: df = 2, 57". */
+const NAME_THEN_PAIR = new RegExp(
+  String.raw`${EFFECT_NAME} {0,2}(?:[:=] {0,2})?(?:(?:dfs?|d\.f\.) {0,2}[=:]? {0,2})?\(? {0,2}${NUMBER}${PAIR_SEPARATOR}${NUMBER}(?!\.?\d) {0,2}\)?`,
+  'iuy',
+);
+/** "2, 57 for Group", "(2, 57) for the Group x Time interaction". */
+const PAIR_THEN_NAME = new RegExp(
+  String.raw`\(? {0,2}${NUMBER}${PAIR_SEPARATOR}${NUMBER}(?!\.?\d) {0,2}\)? {1,3}(?:for|in) {1,3}(?:the {1,3})?${EFFECT_NAME}(?= {0,3}(?:[;,.)]|and |$))`,
+  'iuy',
+);
+/** Between two named pairs: ";", "," or "and". */
+const LIST_SEPARATOR = / {0,3}(?:[;,]|,? and(?= )) {0,3}/y;
+/** After the word for df, before the list: "df: ", "degrees of freedom were ". */
+const LIST_START = / {0,3}(?:[=:]|were|are)? {0,3}/y;
+/** Words that open what is not an effect's name ("for all tests", "in each model", "of the F tests"). */
+const NOT_A_NAME = /^(?:for|in|of|with|all|each|every|both|the|these|those|were|are|and|error|residuals?|within|between|numerator|denominator|effects?|tests?|f)(?![\p{L}])/iu;
+
+/** A name a row label or block title can be compared with: lower case, interactions written one way. */
+export function effectNameKey(name: string): string {
+  return name.toLowerCase().replace(/\s+/g, ' ').replace(/ ?[*\u00d7] ?| x /g, ' x ').replace(/ {2,}/g, ' ').trim();
+}
+
+/** An effect's name without the words that only say it is one ("main effect of", "interaction", "effect"). */
+export function bareEffectName(key: string): string {
+  return key.replace(/(?:^| )(?:main )?(?:effects?|interactions?)(?: of)?(?= |$)/g, ' ').replace(/\s+/g, ' ').trim();
+}
+
+function namedPair(name: string, first: string, second: string): NoteDfException | null {
+  const key = effectNameKey(name);
+  if (key.length < 3 || NOT_A_NAME.test(key)) return null;
+  return { name: key, pair: [number(first), number(second)], wholeName: true };
+}
+
+/**
+ * The pairs a note states name by name after its word for df: "df: Group 2, 57; Time 1, 57; Group x Time 2, 57"
+ * (two names at least: one name before one pair may be a phrase, "for all tests: 1, 48") or "df = 2, 57 for
+ * Group and 1, 57 for Time" (one or more). Empty when the note states none, or a name twice with two pairs.
+ */
+function readNamedPairs(text: string): NoteDfException[] {
+  const word = new RegExp(DF_WORD, 'gi');
+  for (let match = word.exec(text); match !== null; match = word.exec(text)) {
+    LIST_START.lastIndex = match.index + match[0].length;
+    const start = LIST_START.exec(text) === null ? match.index + match[0].length : LIST_START.lastIndex;
+    for (const [pattern, least, nameFirst] of [
+      [NAME_THEN_PAIR, 2, true],
+      [PAIR_THEN_NAME, 1, false],
+    ] as const) {
+      const found = namedPairList(text, start, pattern, nameFirst);
+      if (found.length >= least && new Set(found.map((entry) => entry.name)).size === found.length) return found;
+    }
+  }
+  return [];
+}
+
+function namedPairList(text: string, start: number, pattern: RegExp, nameFirst: boolean): NoteDfException[] {
+  const found: NoteDfException[] = [];
+  for (let at = start; ; ) {
+    pattern.lastIndex = at;
+    const match = pattern.exec(text);
+    if (match === null) break;
+    const entry = nameFirst ? namedPair(match[1]!, match[2]!, match[3]!) : namedPair(match[3]!, match[1]!, match[2]!);
+    if (entry === null) break;
+    found.push(entry);
+    LIST_SEPARATOR.lastIndex = pattern.lastIndex;
+    if (LIST_SEPARATOR.exec(text) === null) break;
+    at = LIST_SEPARATOR.lastIndex;
+  }
+  return found;
 }

@@ -28,7 +28,7 @@ import { normaliseText } from '../normalise.js';
 import { scanText } from '../scan.js';
 import { readNameAndValue } from '../effects.js';
 import { readPValue } from '../pValue.js';
-import { readNoteDf, statesNoDf, type NoteDf, type NoteDfException } from './noteDf.js';
+import { bareEffectName, effectNameKey, readNoteDf, statesNoDf, type NoteDf, type NoteDfException } from './noteDf.js';
 import type {
   Comparator,
   EffectKind,
@@ -2422,7 +2422,8 @@ function readNoteSampleSize(note: string): ReportedNumber | null {
 
 /** Whether `name` (a block's title or a row's label) is the one a note's exception names. */
 function namesException(name: string, exception: NoteDfException): boolean {
-  const written = name.trim().toLowerCase();
+  const written = effectNameKey(name);
+  if (exception.wholeName) return written.length >= 3 && bareEffectName(written) === bareEffectName(exception.name);
   return written.length >= 3 && (written.includes(exception.name) || exception.name.includes(written));
 }
 
@@ -2440,7 +2441,11 @@ function withNamedExceptions(noteDf: NoteDf, names: readonly string[]): NoteDf {
 /** The note's df for a test in the block titled, or the row labelled, as `names` say: an exception's pair where one names it. */
 function noteDfFor(noteDf: NoteDf, names: readonly string[]): NoteDf {
   if (noteDf.exceptions === undefined) return noteDf;
-  const exception = noteDf.exceptions.find((candidate) => names.some((name) => namesException(name, candidate)));
+  // (The name written the same first, then the longest one within: "Group x Time" is not "Group".)
+  const keys = names.map(effectNameKey);
+  const exception =
+    noteDf.exceptions.find((candidate) => keys.includes(candidate.name)) ??
+    [...noteDf.exceptions].sort((a, b) => b.name.length - a.name.length).find((candidate) => names.some((name) => namesException(name, candidate)));
   const { exceptions: _, ...rest } = noteDf;
   return exception === undefined ? rest : { ...rest, pair: exception.pair };
 }
