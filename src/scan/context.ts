@@ -609,6 +609,8 @@ function readSampleNoun(text: string, wordsAt: number, countStart: number, value
 const BARE_PER_GROUP = /^\s(?:[a-z]{1,20}\s){0,2}?(?:per|in\seach|in\severy|for\seach)\s(?:of\sthe\s(?:[a-z]{1,20}\s)?)?(?:groups?|conditions?|cells?|arms?)\b/i;
 /** Words that name the count after them the sample's size: "a sample of", "a total sample of", "sample size was". */
 const SAMPLE_OF_BEFORE = /\b(?:a|the|our|total|final)\s(?:total\s|final\s|study\s|convenience\s|random\s|representative\s)?sample\s(?:size\s)?(?:of|was|is|comprised|included|consisted\sof)\s$/i;
+/** "(the study) was conducted online among 387 …": a study carried out among a count of people names its sample. */
+const CONDUCTED_AMONG_BEFORE = /\b(?:conducted|carried\sout|performed)\s(?:[a-z]{1,12}\s){0,2}?among\s$/i;
 
 /** "180 of the 214 participants", "96 out of 120": the first count is part of the second. */
 const PART_OF = /^\s(?:out\s)?of\s(?:the\s|all\s|our\s|these\s)?(?:\d{1,3}(?:,\d{3}){1,2}|\d{1,7})(?![\d.,])/i;
@@ -622,7 +624,8 @@ function readCountWithoutNoun(text: string, lastDigitAt: number): (Span & { valu
   const after = text.slice(lastDigitAt + 1, lastDigitAt + 80);
   // "a sample of 251 first-cycle Peruvian undergraduate mathematics students", "a total sample of 1,024": the
   // sample's size, whatever words describe it.
-  if (SAMPLE_OF_BEFORE.test(text.slice(Math.max(0, count.start - 40), count.start)) && !PER_GROUP_AFTER.test(after)) {
+  const before = text.slice(Math.max(0, count.start - 40), count.start);
+  if ((SAMPLE_OF_BEFORE.test(before) || CONDUCTED_AMONG_BEFORE.test(before)) && !PER_GROUP_AFTER.test(after)) {
     return { start: count.start, end: lastDigitAt + 1, value, scope: 'total' };
   }
   const perGroup = BARE_PER_GROUP.exec(after);

@@ -32,6 +32,15 @@ describe('plumbline check --format json: context from the rest of the document',
     expect(status).toBe(0); // nothing at fail
   });
 
+  it('1a. a study "conducted online among 387 cyberspace users" states its N, whatever words name the people', () => {
+    // r = .23 with df = 385: p = 4.8e-6 (SciPy 1.10.1, 2 * scipy.stats.t.sf(r * sqrt(df / (1 - r^2)), df)), under .001 as printed.
+    const { statistics } = check('This descriptive study was conducted online among 387 Iranian cyberspace users. Attitude correlated with practice (r = 0.23, p <0.001).');
+    expect(statistics[0]).toMatchObject({ kind: 'r', df: [385], dfFrom: 'study-sample-size' });
+    expect(statistics[0]!.findings).toEqual([]);
+    // A study conducted in a year or on a number of days names no sample.
+    expect(check('The study was conducted in 2019 over 30 days. Attitude correlated with practice (r = 0.23, p <0.001).').statistics[0]!.df).toEqual([]);
+  });
+
   it('1b. a count in words that is the tail of a larger one ("One hundred and twenty participants") is not taken for the study N', () => {
     const { statistics } = check('One hundred and twenty participants took part. Liking correlated with age, r = .30, p = .004.');
     expect(statistics).toHaveLength(1);
