@@ -459,8 +459,8 @@ class EmphasisClosers {
  * opened earlier, or when it opens one: it follows neither a letter nor a
  * digit, a non-space follows it, and a run of the same marker and length
  * closes it on the same line within MAX_EMPHASIS_SPAN characters, with no
- * space before it (and, for "_", no letter or digit after it, so snake_case
- * and "η_p^2" stay). "*" may close inside a word ("*p*s", "*η*p2"), as in
+ * space before it (and, for "_", no letter, digit or "{" after it, so snake_case,
+ * "η_p^2" and "\chi_{2}^{2}" stay). "*" may close inside a word ("*p*s", "*η*p2"), as in
  * Markdown. Anything else (multiplication "2*3", "F_{1,44}", footnote stars
  * "p < .05*", list bullets "* item") is copied unchanged.
  */
@@ -475,7 +475,8 @@ function rewriteMarkerRun(original: string, at: number, builder: NormalisationBu
     builder.replace(at, closing, '');
     return at + closing;
   }
-  if (length <= MAX_MARKER_RUN && !isWordCharacterBefore(original, at)) {
+  // ("_{" opens a LaTeX subscript, "\chi^{2}_{1}", never emphasis.)
+  if (length <= MAX_MARKER_RUN && !isWordCharacterBefore(original, at) && !(marker === 95 && original.charCodeAt(runEnd) === 123)) {
     const closer = findEmphasisCloser(original, runEnd, marker, length);
     if (closer !== -1 && !closers.has(closer) && closers.add(closer, length)) {
       builder.replace(at, length, '');
@@ -505,7 +506,7 @@ function findEmphasisCloser(text: string, from: number, marker: number, length: 
       // A run of the same length after a space cannot close this span but may open the next
       // ("*a *b*"): leave it to that one, which also keeps this search short.
       if (isSpaceOrBreak(text.charCodeAt(at - 1))) return -1;
-      if (marker === 42 || !isWordCharacterAt(text, runEnd)) return at;
+      if (marker === 42 || (!isWordCharacterAt(text, runEnd) && text.charCodeAt(runEnd) !== 123)) return at;
     }
     at = runEnd;
   }

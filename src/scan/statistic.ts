@@ -18,6 +18,7 @@ import {
   type ReadNumber,
 } from './cursor.js';
 import type { Comparator, ReportedNumber, StatisticKind, StatisticSymbol } from './types.js';
+import { parseReportedNumber } from '../stats/reportedNumber.js';
 
 export interface StatisticHead {
   kind: StatisticKind;
@@ -62,6 +63,8 @@ interface SymbolRead {
   superscriptAfterDf?: boolean;
   /** "T": only with df in brackets or a subscript of two digits or more. */
   requiresDf?: boolean;
+  /** The df a LaTeX subscript gives the symbol ("\chi _2^2", "\chi^{2}_{1}"). */
+  subscriptDf?: ReportedNumber;
 }
 
 /** Reads the statistic symbol at `position`, or null. */
@@ -114,6 +117,11 @@ function singleLetterSymbol(text: string, position: number, kind: StatisticKind,
 function chiSquareWord(text: string, position: number): SymbolRead | null {
   const word = text.slice(position, position + 3).toLowerCase();
   if (word !== 'chi') return null;
+  const latex = LATEX_CHI_WITH_DF.exec(text.slice(position + 3, position + 3 + MAX_LATEX_CHI));
+  if (latex !== null) {
+    const df = parseReportedNumber(latex[1] ?? latex[2]!);
+    if (df !== null) return { kind: 'chi2', end: position + 3 + latex[0].length, requiresBracketedDf: false, subscriptDf: df };
+  }
   let at = position + 3;
   if (text.charCodeAt(at) === 94) at++; // "^"
   // "χ 2(2) = 5.9": the superscript set apart from its χ, as web pages and PDFs give it.
@@ -134,6 +142,13 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
   if (isAsciiLetter(text.charCodeAt(at))) return null;
   return { kind: 'chi2', end: at, requiresBracketedDf: false };
 }
+
+/**
+ * A chi-square's df as a LaTeX subscript beside its superscript 2, after "\chi" (normalised to "chi"): "_2^2",
+ * " _2^2" (MathJax's source keeps a space), "_{2}^{2}", "^2_1", "^{2}_{(1)}".
+ */
+const LATEX_CHI_WITH_DF = /^ ?(?:_\{?\(?(\d{1,3})\)?\}?\^\{?2\}?|\^\{?2\}?_\{?\(?(\d{1,3})\)?\}?)(?![\d.])/;
+const MAX_LATEX_CHI = 24;
 
 /**
  * Kruskal-Wallis "H(2) = 7.81" or "H(2, N = 60) = 7.81": tested against the
@@ -384,9 +399,9 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   // "F_(1,44)" / "F_{1,44}": a LaTeX-style subscript marker.
   if (text.charCodeAt(at) === 95) at++;
 
-  let dfRead: DfRead | null = null;
+  let dfRead: DfRead | null = symbol.subscriptDf === undefined ? null : { df: [symbol.subscriptDf], sampleSize: null, end: at, bracketed: false, doubtful: false };
   let brokenOverLines = false;
-  if (symbol.kind !== 'z') {
+  if (symbol.kind !== 'z' && dfRead === null) {
     dfRead = readSubscriptDf(text, at, symbol.kind) ?? readBracketedDf(text, skipSpaces(text, at), symbol.kind);
     // "F 1, 22 = 1240.19": an F's subscript df set apart by a space (web pages flatten "F₁,₂₂" so); only a df pair.
     // A table cell broken over lines sets them apart by line breaks: "F" / "1,175" / "= 10.8".

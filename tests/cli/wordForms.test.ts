@@ -160,6 +160,19 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Growth differed between the diets (F2/87 = 4.10, P = 0.020).\n')).toEqual([['F', [2, 87], 4.1, '= 0.020']]);
   });
 
+  it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
+    // chi2(2) = 7.2 gives p = .027 and chi2(1) = 4.10 gives p = .043 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
+    // (The first sentence as a journal's figure page gives it: tests/corpus/real/passages/dwfk-01.txt.)
+    const text =
+      'Strikes differed (significant interaction between location and treatment (zero-inflated GLMM): \\(\\chi _2^2\\) = 7.2, P = 0.028). ' +
+      'Bags differed (\\(\\chi^{2}_{1}\\) = 4.10, p = .043) and so did farms, $\\chi_{(2)}^2 = 7.2$, $p = .027$.\n';
+    expect(readAll(text)).toEqual([
+      ['chi2', [2], 7.2, '= 0.028'],
+      ['chi2', [1], 4.1, '= .043'],
+      ['chi2', [2], 7.2, '= .027'],
+    ]);
+  });
+
   it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
     // F(2, 57) = 12.10 gives p = 4.17e-5 (SciPy 1.10.1 scipy.stats.f.sf(12.10, 2, 57), computed when the test was written).
     const text = 'Groups differed, F(2, 57) = 12.10, p = 4.2 × 10 −5. They did again, F(2, 57) = 12.10, p = 4.2 × 10 − 5. And again, F(2, 57) = 12.10, p < 10 −4.\n';
