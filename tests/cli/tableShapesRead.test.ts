@@ -726,6 +726,32 @@ describe('results tables in the shapes papers print them', () => {
     expect(tooMany.every((statistic) => statistic.df.length === 0)).toBe(true);
   });
 
+  it('gives each unknown word of a crushed header its own column when the rows hold one value per word', () => {
+    // Rows as a journal's table page gives them (tests/corpus/real/passages/dwfb-01.txt, CC BY 4.0): "Bray Jaccard
+    // Uni-U Uni-W" name four columns of p, and each block's F follows its "D.F." cell.
+    const text = [
+      'Table 3.',
+      '',
+      'Significance of tests to detect differences in zooplankton community and whale scat samples.',
+      '',
+      'Zooplankton Season Region',
+      'D.F. F-value p-value Bray Jaccard Uni-U Uni-W D.F. F-value p-value Bray Jaccard Uni-U Uni-W',
+      'COI 1, 21 5.249 0.042 <0.001 0.001 <0.001 0.025 2, 20 3.716 0.039 0.004 0.003 0.003 0.270',
+      '18S 1, 22 0.353 0.559 0.032 0.047 0.032 0.005 2, 21 0.813 0.457 0.005 0.006 0.014 0.008',
+      '',
+    ].join('\n');
+    expect(readAs(scanTextJson(text).statistics)).toEqual([
+      ['F', 5.249, [1, 21]],
+      ['F', 3.716, [2, 20]],
+      ['F', 0.353, [1, 22]],
+      ['F', 0.813, [2, 21]],
+    ]);
+    // With one value fewer per block than the words ask for, the header is not cut, and no F takes another's df.
+    const ownDf = new Map([[5.249, '1,21'], [3.716, '2,20'], [0.353, '1,22'], [0.813, '2,21']]);
+    const short = scanTextJson(text.replace(/ 0\.025 /, ' ').replace(/ 0\.005 2, 21/, ' 2, 21')).statistics;
+    expect(short.filter((statistic) => statistic.df.length > 0 && ownDf.get(statistic.value) !== statistic.df.join(','))).toEqual([]);
+  });
+
   it('reads correlation matrices the same when their caption is wrapped over two lines, as a PDF\'s text gives it', () => {
     const glued = (caption: string): string =>
       `Table 3\n\n${caption}\n\n1234\n\n1. Exhaustion\n2. Cynicism.61\n3. Inefficacy.58.55\n4. Satisfaction-.42-.36-.41\n\nNote. N = 220. p<.001\n`;

@@ -1608,8 +1608,25 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     break;
   }
   if (dataRows === 0) return null;
+  const headerAt = columns === null ? -1 : rows.indexOf(columns);
+  const widened = headerAt !== -1 && header !== null && !header.aligned && !header.tabbed ? wordPerColumn(columns!, rows) : null;
+  if (widened !== null) rows[headerAt] = widened;
   const firstLine = blockTitles !== null ? first - 1 : stacked !== null ? stacked.firstLine : null;
   return { ...placeRows(rows, header, last), headed: header !== null, ...(firstLine !== null ? { firstLine } : {}) };
+}
+
+/**
+ * A crushed header whose run of words no vocabulary knows came out as one column ("D.F. F-value p-value Bray
+ * Jaccard Uni-U Uni-W", the last four the names of four columns of p), over rows that hold one value per word: the
+ * header with each such word a column of its own, when that gives exactly the rows' width (the widest, which two
+ * rows at least have). Null otherwise.
+ */
+function wordPerColumn(columns: readonly string[], rows: readonly (string[] | { data: DataLine; line: Line })[]): string[] | null {
+  const widths = rows.flatMap((row) => (Array.isArray(row) ? [] : [row.data.values.length + 1]));
+  const width = Math.max(0, ...widths);
+  if (width <= columns.length || widths.filter((candidate) => candidate === width).length < 2) return null;
+  const cells = columns.flatMap((cell, index) => (index > 0 && /\s/.test(cell) && !isKnownHeader(headerKey(cell)) ? cell.split(/\s+/) : [cell]));
+  return cells.length === width ? cells : null;
 }
 
 /**
