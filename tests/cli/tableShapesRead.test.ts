@@ -726,6 +726,27 @@ describe('results tables in the shapes papers print them', () => {
     expect(tooMany.every((statistic) => statistic.df.length === 0)).toBe(true);
   });
 
+  it('reads df and p columns under the names programs print ("df_M", "df_R", "p.value", "p adj", "P>|z|") and df pairs joined by a dash ("1–28")', () => {
+    const table = (header: string[], rows: string[][]): string => `Table 2. Results\n${[header, ...rows].map((row) => row.join('\t')).join('\n')}\n\nNext.\n`;
+    const split = scanTextJson(table(['Effect', 'df_M', 'df_R', 'F', 'p.value', 'pes'], [['Group', '1', '28', '4.52', '.042', '.14'], ['Time', '2', '56', '3.20', '.048', '.10']]));
+    expect(split.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value, statistic.effects.map((effect) => effect.kind)])).toEqual([
+      ['F', 4.52, [1, 28], 0.042, ['partial-eta-squared']],
+      ['F', 3.2, [2, 56], 0.048, ['partial-eta-squared']],
+    ]);
+    for (const dash of ['\u2013', '-']) {
+      const paired = scanTextJson(table(['Effect', 'df', 'F', 'p adj'], [['Group', `1${dash}28`, '4.52', '.042'], ['Time', `2${dash}56`, '3.20', '.048']]));
+      expect(paired.statistics.map((statistic) => [statistic.value, statistic.df, statistic.p?.value]), dash).toEqual([
+        [4.52, [1, 28], 0.042],
+        [3.2, [2, 56], 0.048],
+      ]);
+    }
+    const wald = scanTextJson(table(['Predictor', 'z', 'P>|z|'], [['Age', '2.10', '0.036'], ['Sex', '-1.20', '0.230']]));
+    expect(wald.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([
+      ['z', 2.1, 0.036],
+      ['z', -1.2, 0.23],
+    ]);
+  });
+
   it('gives each unknown word of a crushed header its own column when the rows hold one value per word', () => {
     // Rows as a journal's table page gives them (tests/corpus/real/passages/dwfb-01.txt, CC BY 4.0): "Bray Jaccard
     // Uni-U Uni-W" name four columns of p, and each block's F follows its "D.F." cell.

@@ -281,6 +281,13 @@ put(['df (num)', 'df (num.)', 'df (numerator)', 'df (effect)', 'df (hypothesis)'
 put(['df (den)', 'df (den.)', 'df (denominator)', 'df (error)', 'df (residual)', 'df (within)', 'df(den)', 'df (d)'], { role: 'df2' });
 // A column of marks saying whether each p is under .05 ("p<.05" over "*"), as some programs print beside p.
 put(['p<.05', 'p < .05', 'p<0.05', 'p < 0.05', 'p<.01', 'p < .01'], { role: 'descriptive' });
+// The df of the model and of the residuals as some programs and authors name them ("df_M", "df_R", "df b", "df w"),
+// p as R prints it ("p.value", Tukey's "p adj") and Stata ("P>|z|"), partial eta squared as R's afex prints it
+// ("pes"); common practice, from memory of those programs' output.
+put(['df b', 'dfb', 'df between', 'df m', 'dfm', 'df model'], { role: 'df1' });
+put(['df w', 'dfw', 'df within', 'df r', 'dfr', 'df.res'], { role: 'df2' });
+put(['p.value', 'p adj', 'p-adj', 'p.adj', 'padj', 'adjusted p', 'adj. p', 'p adjusted', 'p>|z|', 'p > |z|', 'pr > |z|', 'pr>|z|', 'prob > |z|'], { role: 'p' });
+put(['pes'], { role: 'effect', effect: 'partial-eta-squared' });
 put(['g.l.', 'g.l', 'gl.', 'degree of freedom', 'deg. of freedom', 'd.o.f.', 'gdl', 'g.d.l.', 'gradi di libertà'], { role: 'df' });
 // The p of statistics software's chi-square and nonparametric output, and correlation coefficients named in full.
 put(['asymp. sig. (2-sided)', 'asymp. sig. (2-tailed)', 'asymp. sig.', 'asymptotic sig. (2-sided)', 'asymptotic significance (2-sided)', 'asymptotic significance', 'exact sig. (2-sided)', 'exact sig. (2-tailed)', 'exact sig.', 'exact significance (2-sided)', 'sig. asintótica (bilateral)', 'sig. asintotica (bilateral)', 'sig. exacta (bilateral)', 'sig. assintótica (bilateral)', 'asymptotische signifikanz (2-seitig)', 'two-sided p', 'two-tailed p-value', 'p (two-sided)', 'p two-sided'], { role: 'p' });

@@ -2248,7 +2248,8 @@ function statisticWithDfAndP(
   return { statistic, df: df as NumberCell[], p };
 }
 
-const PAIR_CELL = /^(?:df ?= ?)?([([])? {0,3}(\d{1,5}(?:\.\d+)?)(?: {0,3}[,;/] {0,3}| and )(\d{1,6}(?:[.,]\d+)?) {0,3}([)\]])?$/;
+/** A df column's pair: "1, 28", "(1, 28)", "1/28", "1; 28", "1 and 28", "1 & 28", and with a dash, "1–28" (in a df column a dash joins the two df, as in "F(3–112)"). */
+const PAIR_CELL = /^(?:df ?= ?)?([([])? {0,3}(\d{1,5}(?:\.\d+)?)(?: {0,3}[,;/\u2013-] {0,3}| and | & )(\d{1,6}(?:[.,]\d+)?) {0,3}([)\]])?$/;
 
 /** Two df in one cell, "2, 180", "2/180", "(2, 180)", "2 and 180", "df = 2, 180", with the offsets of each. */
 function numberPair(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined, separator: DecimalSeparator): [NumberCell, NumberCell] | null {
