@@ -726,6 +726,32 @@ describe('results tables in the shapes papers print them', () => {
     expect(tooMany.every((statistic) => statistic.df.length === 0)).toBe(true);
   });
 
+  it('gives a footnote\'s df ("a df = 1.") only to the values carrying its marker, never to the other rows', () => {
+    const text = [
+      'Table 1. Characteristics of the participants by group',
+      'Characteristic Intervention (n = 40) Control (n = 40) χ2 P',
+      'Gender 0.80a 0.371',
+      'Female 22 (55.0) 18 (45.0)',
+      'Male 18 (45.0) 22 (55.0)',
+      'Age group 1.20 0.549',
+      '<30 10 (25.0) 12 (30.0)',
+      '30–50 20 (50.0) 16 (40.0)',
+      '>50 10 (25.0) 12 (30.0)',
+      'a df = 1.',
+      '',
+    ].join('\n');
+    // (The age groups' chi-square has 2 df, which the table does not print: it is read without df, never with the footnote's.)
+    expect(readAs(scanTextJson(text).statistics)).toEqual([
+      ['chi2', 0.8, [1]],
+      ['chi2', 1.2, []],
+    ]);
+    // A note that is no footnote gives its df to every test.
+    expect(readAs(scanTextJson(text.replace('0.80a', '0.80').replace('a df = 1.', 'Note. df = 1 for all tests.')).statistics)).toEqual([
+      ['chi2', 0.8, [1]],
+      ['chi2', 1.2, [1]],
+    ]);
+  });
+
   it('reads df and p columns under the names programs print ("df_M", "df_R", "p.value", "p adj", "P>|z|") and df pairs joined by a dash ("1–28")', () => {
     const table = (header: string[], rows: string[][]): string => `Table 2. Results\n${[header, ...rows].map((row) => row.join('\t')).join('\n')}\n\nNext.\n`;
     const split = scanTextJson(table(['Effect', 'df_M', 'df_R', 'F', 'p.value', 'pes'], [['Group', '1', '28', '4.52', '.042', '.14'], ['Time', '2', '56', '3.20', '.048', '.10']]));

@@ -22,6 +22,11 @@ export interface NoteDf {
   /** Read from the lines beside the table, not its caption or notes: findings resting on them are at most warnings. */
   besideTable?: boolean;
   /**
+   * The footnote marker the statement of `pair` or `single` opens with ("a df = 1."): they are the df of the cells
+   * carrying that marker ("0.80a"), not of every test of the table.
+   */
+  mark?: string;
+  /**
    * Columns or rows the note names as taking other df ("d.f. = 1,28 except for daily sperm production where …
    * d.f. = 1,27"): the words that name them and their pair. The table reader gives that pair to the block or row
    * so named, `pair` to the others, and no pair at all when it finds no block or row so named.
@@ -40,6 +45,15 @@ export interface NoteDfException {
    */
   wholeName?: true;
 }
+
+/** The footnote marker a df statement's sentence opens with ("a df = 1.", "† df = 2"): the statement is that footnote's. */
+function footnoteMarkBefore(text: string, index: number): string | undefined {
+  const before = text.slice(Math.max(0, index - 400), index);
+  const sentenceStart = Math.max(before.lastIndexOf('. '), before.lastIndexOf('; '), before.lastIndexOf('\n'));
+  const opening = FOOTNOTE_OPENING.exec(before.slice(sentenceStart + 1));
+  return opening?.[1];
+}
+const FOOTNOTE_OPENING = /^\s{0,3}([a-h]|[\u2020\u2021\u00a7\u00b6*])\s{0,2}[:.)]?\s{0,2}$/;
 
 const NUMBER = String.raw`(\d{1,6}(?:\.\d{1,3})?)`;
 /** The word for degrees of freedom, standing apart from the letters around it. */
@@ -122,21 +136,25 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
     const exception = exceptionAfter(rest, pair);
     return exception === null ? { ...none, error } : { ...none, pair: [number(pair[1]!), number(pair[2]!)], error, exceptions: [exception] };
   }
-  if (pair) return { ...none, pair: [number(pair[1]!), number(pair[2]!)], error };
+  if (pair) return withMark({ ...none, pair: [number(pair[1]!), number(pair[2]!)], error }, footnoteMarkBefore(rest, pair.index));
   const single = DF_SINGLE.exec(rest);
   // Several different df stated one by one ("df = 1 for sex, df = 2 for education") belong to different rows:
   // which row takes which cannot be told from the note, so none is taken.
   if (single && statesOtherDf(rest, single)) return { ...none, error };
   if (single) {
     const first = number(single[1]!);
-    return error ? { pair: [first, error], single: first, error } : { ...none, single: first };
+    return withMark(error ? { pair: [first, error], single: first, error } : { ...none, single: first }, footnoteMarkBefore(rest, single.index));
   }
   const fMatch = statementsOnly ? null : F_WITH_DF.exec(rest);
   if (fMatch) {
     const [first, second] = fMatch[1] !== undefined ? [fMatch[1], fMatch[2]!] : [fMatch[3]!, fMatch[4]!];
-    return { ...none, pair: [number(first), number(second)], error };
+    return withMark({ ...none, pair: [number(first), number(second)], error }, footnoteMarkBefore(rest, fMatch.index));
   }
   return { ...none, error };
+}
+
+function withMark(noteDf: NoteDf, mark: string | undefined): NoteDf {
+  return mark === undefined ? noteDf : { ...noteDf, mark };
 }
 
 /** After df: "for" and a name other than all the tests ("for Group", not "for all tests", "for the F tests"). */

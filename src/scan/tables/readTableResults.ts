@@ -475,6 +475,15 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' ')) || /levene/i.test(text.slice(Math.max(0, table.start - 300), table.start + 300));
   const noteN = readNoteSampleSize(noteText);
   const tableNoteDf = withNamedExceptions(noteDf, [...segments.map((segment) => segment.title ?? ''), ...virtualRows.map((row) => row.cells[0] ?? '')]);
+  // A footnote's df ("a df = 1.") are the df of the statistics carrying its marker ("0.80a"), when some do and the
+  // column's header does not; the other rows take none of the note's df.
+  const statisticColumns = segments.flatMap((segment) => (segment.columns.has('statistic') ? [segment.columns.get('statistic')!] : []));
+  const footnoteMark = tableNoteDf.mark;
+  const carriesMark = (cell: string | undefined): boolean => footnoteMark !== undefined && cell !== undefined && endsWithMark(cell, footnoteMark);
+  const markScoped =
+    footnoteMark !== undefined &&
+    !rows.slice(0, headerCount).some((row) => statisticColumns.some((column) => carriesMark(row[column]))) &&
+    virtualRows.some((row) => statisticColumns.some((column) => carriesMark(row.cells[column])));
   // F columns whose df column lost its pairs' commas ("1.23" for "1, 23"), with no other df for their second number.
   const lostComma = new Set(
     segments.filter(
@@ -549,7 +558,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         segment,
         multiple: segments.length > 1 && blockUnknown !== true,
         errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
-        noteDf: noteDfFor(tableNoteDf, [segment.title ?? '', row[0] ?? '']),
+        noteDf: markScoped && !carriesMark(row[segment.columns.get('statistic') ?? -1]) ? withoutNotePairs(tableNoteDf) : noteDfFor(tableNoteDf, [segment.title ?? '', row[0] ?? '']),
         lostCommaDf: lostComma.has(segment),
         noteN,
         legend,
@@ -2437,6 +2446,19 @@ function withNamedExceptions(noteDf: NoteDf, names: readonly string[]): NoteDf {
   if (noteDf.exceptions === undefined) return noteDf;
   const named = noteDf.exceptions.every((exception) => names.some((name) => namesException(name, exception)));
   return named ? noteDf : { pair: [], single: null, error: noteDf.error, ...(noteDf.besideTable ? { besideTable: true } : {}) };
+}
+
+/** "0.80a", "0.80 a", "χ2a": a cell or header ending in the footnote marker `mark` after a digit. */
+function endsWithMark(cell: string, mark: string): boolean {
+  const trimmed = cell.trim();
+  if (!trimmed.endsWith(mark)) return false;
+  const before = trimmed.slice(0, trimmed.length - mark.length).trimEnd();
+  return /\d$/.test(before);
+}
+
+/** A note's df without the pair and single df it states (a footnote's, for a cell without its marker). */
+function withoutNotePairs(noteDf: NoteDf): NoteDf {
+  return { pair: [], single: null, error: noteDf.error, ...(noteDf.besideTable ? { besideTable: true } : {}) };
 }
 
 /** The note's df for a test in the block titled, or the row labelled, as `names` say: an exception's pair where one names it. */
