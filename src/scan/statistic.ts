@@ -65,6 +65,8 @@ interface SymbolRead {
   requiresDf?: boolean;
   /** The df a LaTeX subscript gives the symbol ("\chi _2^2", "\chi^{2}_{1}"). */
   subscriptDf?: ReportedNumber;
+  /** A symbol that lost a glyph ("X(1)" for "χ²(1)"): a test only with its p after it. */
+  requiresP?: boolean;
 }
 
 /** Reads the statistic symbol at `position`, or null. */
@@ -206,11 +208,27 @@ function symbolFontChi(text: string, position: number): SymbolRead | null {
   return { kind: 'chi2', end: position + 2, requiresBracketedDf: true, acceptsTrailingDf: false };
 }
 
+/** "(1) = ", "(12) =": whole-number df in brackets right after the X, then "=". */
+const LOST_SQUARE_DF = /^\(\d{1,3}\) ?=/;
+
+/** The last document asked about and whether it names the chi-square ("chi-square", "chi2", "χ²" normalised to "chi2"). */
+let chiSquareNamed: { text: string; named: boolean } | null = null;
+
+function mentionsChiSquare(text: string): boolean {
+  if (chiSquareNamed?.text !== text) chiSquareNamed = { text, named: /chi(?:2|\^|[- ]?squ)/i.test(text) };
+  return chiSquareNamed.named;
+}
+
 /** "X2" / "X^2" / "x2": how χ² often survives PDF extraction; bracketed df required. */
 function chiSquareLetterX(text: string, position: number): SymbolRead | null {
   // "X-squared (1) = 2.19", "X-squared = 2.19, df = 1": the name R's chisq.test prints (common practice to paste it).
   if (text.slice(position + 1, position + 9).toLowerCase() === '-squared' && !isAsciiLetter(text.charCodeAt(position + 9))) {
     return { kind: 'chi2', end: position + 9, requiresBracketedDf: false, acceptsTrailingDf: true };
+  }
+  // "X(1) = 4.28, p = 0.039": a χ² whose superscript a copy lost, in a document that names the chi-square
+  // elsewhere; only a capital X with whole-number df in brackets and a p after its value.
+  if (text.charCodeAt(position) === 88 && LOST_SQUARE_DF.test(text.slice(position + 1, position + 12)) && mentionsChiSquare(text)) {
+    return { kind: 'chi2', end: position + 1, requiresBracketedDf: true, acceptsTrailingDf: false, requiresP: true };
   }
   let at = position + 1;
   if (text.charCodeAt(at) === 94) at++;
@@ -463,7 +481,7 @@ export function readStatisticHead(text: string, position: number): StatisticHead
     sampleSize: dfRead?.sampleSize ?? null,
     value: valueRead.number,
     valueComparator: comparator.comparator,
-    needsP: needsP || needsTrailingDf,
+    needsP: needsP || needsTrailingDf || symbol.requiresP === true,
     ...(needsTrailingDf ? { needsTrailingDf } : {}),
     ...(dfRead?.fromSampleSize === true ? { dfFromSampleSize: true } : {}),
   };

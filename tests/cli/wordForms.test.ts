@@ -173,6 +173,16 @@ describe('p and df written in further ways after a statistic, from the command l
     ]);
   });
 
+  it('reads "X(1) = 4.28, p = 0.039", a chi-square that lost its superscript, only in a document that names the chi-square and with its p', () => {
+    // Row text as a journal's table page gives it (tests/corpus/real/passages/dwbf-01.txt, CC BY 4.0); chi2(1) = 4.28
+    // gives p = .0386 (SciPy 1.10.1 scipy.stats.chi2.sf(4.28, 1), computed when the test was written).
+    const row = 'Younger children—otitis media with effusion 40 (64.5%) 24 (45.3%) OR = 2.20 (1.04, 4.65), X(1) = 4.28, p = 0.039a\n';
+    expect(readAll(`${row}Comparisons were made with chi-squared tests.\n`)).toEqual([['chi2', [1], 4.28, '= 0.039']]);
+    // Without a word for the chi-square in the document, or without a p after it, an X is a variable.
+    expect(readAll(row)).toEqual([]);
+    expect(readAll('Chi-squared tests were used. At baseline X(1) = 4.28 and later X(2) = 5.10.\n')).toEqual([]);
+  });
+
   it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
     // F(2, 57) = 12.10 gives p = 4.17e-5 (SciPy 1.10.1 scipy.stats.f.sf(12.10, 2, 57), computed when the test was written).
     const text = 'Groups differed, F(2, 57) = 12.10, p = 4.2 × 10 −5. They did again, F(2, 57) = 12.10, p = 4.2 × 10 − 5. And again, F(2, 57) = 12.10, p < 10 −4.\n';
