@@ -726,6 +726,24 @@ describe('results tables in the shapes papers print them', () => {
     expect(tooMany.every((statistic) => statistic.df.length === 0)).toBe(true);
   });
 
+  it('reads a program\'s ANOVA table whose two last column names a narrow gap sets apart ("ges p.value"), rows numbered', () => {
+    const text = [
+      'Anova Table (Type 3 tests)',
+      '',
+      'Response: score',
+      '     Effect    df  MSE         F   ges p.value',
+      '1     group 1, 38 5.12    4.52 *  .062    .040',
+      '2      time 2, 76 1.08 12.31 ***  .104   <.001',
+      '3 group:time 2, 76 1.08      0.87  .007    .424',
+      '',
+    ].join('\n');
+    expect(scanTextJson(text).statistics.map((statistic) => [statistic.value, statistic.df, statistic.p?.comparator, statistic.p?.value])).toEqual([
+      [4.52, [1, 38], '=', 0.04],
+      [12.31, [2, 76], '<', 0.001],
+      [0.87, [2, 76], '=', 0.424],
+    ]);
+  });
+
   it('gives a footnote\'s df ("a df = 1.") only to the values carrying its marker, never to the other rows', () => {
     const text = [
       'Table 1. Characteristics of the participants by group',

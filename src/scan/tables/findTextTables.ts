@@ -826,6 +826,20 @@ function alignedCells(text: string): Piece[] {
   return cells;
 }
 
+/**
+ * Aligned header cells with a cell that no vocabulary knows but whose words, apart by single spaces, are each a known
+ * name of a test's column ("ges p.value", two columns a narrow gap set apart in a program's output): each word a cell.
+ */
+function splitKnownNames(cells: Piece[]): Piece[] {
+  return cells.flatMap((cell, index) => {
+    if (index === 0 || !cell.text.includes(' ') || isKnownHeader(headerKey(cell.text))) return [cell];
+    const words: Piece[] = [];
+    for (const match of cell.text.matchAll(/\S+/g)) words.push({ text: match[0], start: cell.start + match.index!, end: cell.start + match.index! + match[0].length });
+    // (Not names of descriptive columns: "M SD" over "12.3 (4.5)" is one column of means and their SDs.)
+    return words.length >= 2 && words.every((word) => isKnownHeader(headerKey(word.text)) && !['label', 'descriptive', 'unknown'].includes(classifyHeader(word.text).role)) ? words : [cell];
+  });
+}
+
 interface HeaderLine {
   readonly columns: readonly Piece[];
   /** True when the columns stand apart by wide gaps, so positions can place data cells. */
@@ -872,7 +886,7 @@ function readHeaderOf(line: Line): HeaderLine | null {
       return { columns: cells.map((cell) => ({ text: cell, start: 0, end: 0 })), aligned: false, tabbed: true };
     }
   }
-  const cells = line.crushed ? [] : alignedCells(text);
+  const cells = line.crushed ? [] : splitKnownNames(alignedCells(text));
   if (cells.length >= 3) {
     const known = cells.filter((cell) => isKnownHeader(headerKey(cell.text)) || INCOMPLETE_HEADERS.has(headerKey(cell.text))).length;
     // Wide gaps also set apart names no vocabulary knows, groups' names before a test's columns ("Group A M (SD)
