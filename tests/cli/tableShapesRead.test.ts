@@ -726,6 +726,21 @@ describe('results tables in the shapes papers print them', () => {
     expect(tooMany.every((statistic) => statistic.df.length === 0)).toBe(true);
   });
 
+  it('reads a within-subjects table with a column naming each row\'s sphericity correction (JASP\'s and jamovi\'s layout), each corrected row with its own df', () => {
+    const rows = [
+      ['Cases', 'Sphericity Correction', 'Sum of Squares', 'df', 'Mean Square', 'F', 'p', 'η²p'],
+      ['time', 'None', '17.55', '2', '8.78', '3.20', '0.048', '0.100'],
+      ['', 'Greenhouse-Geisser', '17.55', '1.62', '10.83', '3.20', '0.060', '0.100'],
+      ['Residuals', 'None', '158.90', '58', '2.74', '', '', ''],
+      ['', 'Greenhouse-Geisser', '158.90', '46.98', '3.38', '', '', ''],
+    ];
+    const text = `Within Subjects Effects\n${rows.map((row) => row.join('\t')).join('\n')}\n\nNext.\n`;
+    expect(scanTextJson(text).statistics.map((statistic) => [statistic.value, statistic.df, statistic.p?.value])).toEqual([
+      [3.2, [2, 58], 0.048],
+      [3.2, [1.62, 46.98], 0.06],
+    ]);
+  });
+
   it('reads a program\'s ANOVA table whose two last column names a narrow gap sets apart ("ges p.value"), rows numbered', () => {
     const text = [
       'Anova Table (Type 3 tests)',

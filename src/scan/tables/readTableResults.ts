@@ -381,6 +381,11 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   while (table.headerRows === undefined && headerCount > 1 && rows[headerCount - 1]!.slice(1).every((cell) => cell.trim() === '')) headerCount--;
   if (headerCount < 1 || headerCount >= rows.length) return nothing;
   let located = table.cells ?? locateRows(text, table, headerCount);
+  const merged = withCorrectionInLabel(rows, located, headerCount);
+  if (merged !== null) {
+    rows = merged.rows;
+    located = merged.located;
+  }
   const dfSplit = splitDfHeaderOverPairs(rows, headerCount, located);
   if (dfSplit !== null) {
     rows = dfSplit.rows;
@@ -1816,6 +1821,36 @@ const CORRECTION_LABEL = /sphericity assumed|greenhouse[- ]?geisser|huynh[- ]?fe
 /** A label that names only a correction ("Greenhouse-Geisser"), as the rows after an effect's or error's first do. */
 function correctionOnly(label: string): boolean {
   return correctionOf(label) !== null && label.replace(CORRECTION_LABEL, '').trim() === '';
+}
+
+/** A column naming each row's sphericity correction, as JASP and jamovi print it beside the effect's name. */
+const CORRECTION_COLUMN = /^(?:sphericity )?correction$/i;
+
+/**
+ * A table whose second column names the sphericity correction of each row ("Cases | Sphericity Correction | Sum of
+ * Squares | df | …" over "time | None | …", " | Greenhouse-Geisser | …", "Residuals | None | …"): the correction
+ * joined to the row's label, and a row without a label of its own named after the row above ("time
+ * Greenhouse-Geisser", "Residuals Greenhouse-Geisser"), as when the correction is part of the label. Null when the
+ * table has no such column.
+ */
+function withCorrectionInLabel(rows: readonly string[][], located: readonly ((LocatedCell | null)[] | null)[], headerCount: number): { rows: string[][]; located: ((LocatedCell | null)[] | null)[] } | null {
+  if (!rows.slice(0, headerCount).some((row) => CORRECTION_COLUMN.test((row[1] ?? '').trim()))) return null;
+  let effect = '';
+  const joined = rows.map((row, index) => {
+    if (index < headerCount) return [row[0] ?? '', ...row.slice(2)];
+    const own = (row[0] ?? '').trim();
+    if (own !== '') effect = own;
+    const correction = (row[1] ?? '').trim();
+    const label = [own === '' ? effect : own, correction === 'None' || correction === '' ? '' : correction].filter((part) => part !== '').join(' ');
+    return [label, ...row.slice(2)];
+  });
+  const joinedAt = located.map((cells) => {
+    if (cells === null) return null;
+    const [first, second] = [cells[0] ?? null, cells[1] ?? null];
+    const label = first === null ? second : second === null ? first : { ...first, end: second.end };
+    return [label, ...cells.slice(2)];
+  });
+  return { rows: joined, located: joinedAt };
 }
 
 function correctionOf(label: string): string | null {
