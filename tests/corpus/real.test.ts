@@ -44,10 +44,14 @@ const scores = scoreCorpus(corpus);
 // 2 holdout whose labels all lack df), as measured after the scanner's changes of the day: tune table recall 0.863,
 // tune text recall 0.95 -> 0.94 (0.948: dwfk-01's chi-squares left as LaTeX not read), holdout unchanged; all-labels
 // holdout floor 0.44 -> 0.43 (0.437: the new holdout labels have no df), tune silent-miss ceiling 48 -> 56.
+// The corpus grew by 11 prose passages on 2026-12-05 (second prose batch, dwga-01..dwgf-01, all tune; 62 results in running
+// text, from CC BY papers' PDF text with math-italic glyphs, lost glyphs and numerator-only df), as measured: tune text
+// recall 0.94 -> 0.95 (0.957: 245 of 256 readable; the Spearman rho and Kruskal-Wallis H in math italics not read);
+// tune silent-miss ceiling 56 kept (56); tables and holdout unchanged.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
     table: { recall: 0.86, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.94, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
     table: { recall: 0.56, precision: 1, maxFailRate: 0.01 },

@@ -61,13 +61,15 @@ MINUS = "\u2212\u2013\u2012\u2010\u002d\ufe63\uff0d"
 
 
 def parse_printed(text):
-    """(value, decimals, exponent) of a number as printed: '−0.47', '- 0.47', '4,21', '.013', '1.2e-5'."""
+    """(value, decimals, exponent) of a number as printed: '−0.47', '- 0.47', '4,21', '.013', '1:95', '1.2e-5'."""
     s = text.strip()
     s = re.sub(r"\s+", "", s)
     for m in MINUS:
         s = s.replace(m, "-")
     if "," in s and "." not in s:
         s = s.replace(",", ".")  # a decimal comma
+    if re.fullmatch(r"-?\d*:\d+", s):
+        s = s.replace(":", ".")  # a decimal point a PDF font extracted as ':' ('t~1:95', 'p~0:07')
     m = re.fullmatch(r"(-?)(\d*)(?:\.(\d+))?(?:e(-?\d+))?", s, re.I)
     if not m or (m.group(2) == "" and m.group(3) is None):
         raise LabelError(f"cannot read the number {text!r}")
