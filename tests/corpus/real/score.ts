@@ -427,7 +427,9 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
   const scores = Object.fromEntries(RENDERINGS.map((rendering) => [rendering, { piped: 0, kept: 0, extra: 0 }])) as Record<Rendering, { piped: number; kept: number; extra: number }>;
   for (const passage of passages.filter((p) => p.split === 'tune' && p.shapes.includes('table:pipe'))) {
     const piped = tableKeys(passage.text);
-    const labelKeys = new Set(passage.results.map((label) => `${label.kind}|${label.df.join(',')}|${label.valueText}`));
+    // The scanner gives a value's minus sign as '-'; labels keep the printed sign ('−', U+2212): compare them alike.
+    const printedValue = (label: RealLabel): string => label.valueText.replace(/\u2212/g, '-');
+    const labelKeys = new Set(passage.results.map((label) => `${label.kind}|${label.df.join(',')}|${printedValue(label)}`));
     for (const rendering of RENDERINGS) {
       const other = tableKeys(rerender(passage.text, rendering));
       scores[rendering].piped += piped.length;
@@ -439,7 +441,7 @@ export function renderingScores(passages: RealPassage[]): Record<Rendering, { pi
       // What is left was read from the rendering but not from the pipe rows: a misreading, unless a label of the
       // passage prints that statistic with that value and df (a row the pipe copy misplaced, read right here), or
       // with that value when none were read (a result read with less, its df lost with the layout, not misread).
-      const labelValues = new Set(passage.results.map((label) => `${label.kind}||${label.valueText}`));
+      const labelValues = new Set(passage.results.map((label) => `${label.kind}||${printedValue(label)}`));
       scores[rendering].extra += other.filter((key) => {
         const [kind, df, value] = key.split('|');
         return !labelKeys.has(`${kind}|${df}|${value}`) && !(df === '' && labelValues.has(`${kind}||${value}`));
