@@ -17,6 +17,18 @@ const passage = join(root, 'tests', 'corpus', 'real', 'passages', 'divl-08.txt')
 const scanJson = scanDocumentJson;
 
 describe('a correlation matrix from the command line', () => {
+  it('cuts a lower triangle whose cells ran together, diagonal printed and decimals varying, into k − 1 correlations and the diagonal per row', () => {
+    // A journal's table page as text (tests/corpus/real/passages/dwhd-01.txt, CC BY): "(3) Depression0.670.641" is
+    // 0.67, 0.64 and the diagonal 1, not 0.670 and .641; "-0.2" and "0.8" print fewer decimals than the others.
+    const document = scanDocumentJson(join(root, 'tests', 'corpus', 'real', 'passages', 'dwhd-01.txt'));
+    const values = document.statistics.filter((statistic) => statistic.kind === 'r').map((statistic) => statistic.value);
+    expect(values).toHaveLength(36);
+    expect(values.slice(0, 6)).toEqual([0.72, 0.67, 0.64, -0.36, -0.32, -0.39]);
+    expect(values).toContain(-0.2);
+    expect(values).not.toContain(0.721);
+    expect(values).not.toContain(0.641);
+  });
+
   it('reports every correlation with df N - 2 and the p bound of its stars, and flags none of the printed ones', () => {
     const document = scanJson(passage);
     const correlations = document.statistics.filter((statistic) => statistic.inTable && statistic.kind === 'r');

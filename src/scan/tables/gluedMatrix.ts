@@ -71,6 +71,43 @@ function cutRow(text: string, from: number, decimals: number): GluedCell[] | nul
   return cells;
 }
 
+/** A row's run that is the diagonal alone: "1", "1.00", a dash. */
+const DIAGONAL_RUN = /^\s*(?:1(?:\.0{1,3})?|--|[\u2014\u2013-])\s*$/;
+/** A correlation of a lower triangle whose decimals vary ("-0.2", "0.53"), its leading zero printed: at the start of the text. */
+const TRIANGLE_VALUE = /^(?:[-\u2212\u2013] ?)?0\.\d{1,3}(?:\*{1,3}|[\u2020\u2021])?/;
+
+/**
+ * Row `number` of a lower triangle whose diagonal is printed, its cells run together: `number` − 1 correlations,
+ * each with its leading zero and one to three decimals, then the diagonal ("1", "1.00" or a dash); rows below the
+ * last column hold `columns` correlations and no diagonal. The cut must be the only one: "0.670.641" is 0.67,
+ * 0.64 and the diagonal 1, never 0.670 and .641. Null when no cut or more than one fits.
+ */
+function cutTriangleRow(text: string, from: number, number: number, columns: number): GluedCell[] | null {
+  const values = Math.min(number - 1, columns);
+  const withDiagonal = number <= columns;
+  const cuts: GluedCell[][] = [];
+  const walk = (at: number, cells: GluedCell[]): void => {
+    if (cuts.length > 1) return;
+    while (text[at] === ' ') at++;
+    if (cells.length === values) {
+      const rest = text.slice(at).trimEnd();
+      if (!withDiagonal ? rest === '' : DIAGONAL_RUN.test(rest)) {
+        cuts.push(withDiagonal ? [...cells, { text: rest.trim(), start: at, end: at + rest.length }] : cells);
+      }
+      return;
+    }
+    const head = text.slice(at, at + 12);
+    for (let length = head.length; length > 0; length--) {
+      const candidate = head.slice(0, length);
+      const match = TRIANGLE_VALUE.exec(candidate);
+      if (match === null || match[0].length !== length) continue;
+      walk(at + length, [...cells, { text: candidate, start: at, end: at + length }]);
+    }
+  };
+  walk(from, []);
+  return cuts.length === 1 ? cuts[0]! : null;
+}
+
 /** Where a row's label ends: after its last letter (or closing bracket); -1 when it has no letter. */
 function labelEnd(text: string): number {
   for (let at = text.length - 1; at >= 0; at--) {
@@ -183,12 +220,19 @@ export function readGluedMatrix(lines: Line[], titleLine: number): { table: Docu
     candidates.push({ line, ...label, runAt: label.nameEnd });
     lastLine = index;
   }
-  // The number of decimals with which the most rows cut cleanly.
+  // The number of decimals with which the most rows cut cleanly; or, where the first row prints the diagonal,
+  // each row k cut into k − 1 correlations and the diagonal (whatever their decimals).
   let best: { decimals: number; rows: (GluedCell[] | null)[]; clean: number } | null = null;
-  for (const decimals of [2, 3]) {
-    const rows = candidates.map((candidate) => cutRow(candidate.line.text, candidate.runAt, decimals));
-    const clean = rows.filter((row) => row !== null && row.length > 0).length;
-    if (best === null || clean > best.clean) best = { decimals, rows, clean };
+  const diagonalPrinted = candidates.length > 0 && candidates[0]!.number === 1 && DIAGONAL_RUN.test(candidates[0]!.line.text.slice(candidates[0]!.runAt));
+  if (diagonalPrinted) {
+    const rows = candidates.map((candidate) => cutTriangleRow(candidate.line.text, candidate.runAt, candidate.number, columns));
+    best = { decimals: 0, rows, clean: rows.filter((row) => row !== null && row.length > 0).length };
+  } else {
+    for (const decimals of [2, 3]) {
+      const rows = candidates.map((candidate) => cutRow(candidate.line.text, candidate.runAt, decimals));
+      const clean = rows.filter((row) => row !== null && row.length > 0).length;
+      if (best === null || clean > best.clean) best = { decimals, rows, clean };
+    }
   }
   if (best === null || best.clean < MIN_ROWS) return null;
   const rows: string[][] = [['', ...header.map((_, column) => String(column + 1))]];
