@@ -108,7 +108,7 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
     // Words are joined by one space or hyphen ("partial eta-squared"), or by a line break
     // where a narrow column wrapped the name ("partial eta\nsquared").
     if ((gap === 32 || gap === 45 || gap === 10) && isNameCode(text.charCodeAt(at + 1))) at++;
-    else if (gap === 13 && text.charCodeAt(at + 1) === 10 && isNameCode(text.charCodeAt(at + 2))) at += 2;
+    else if ((gap === 13 || gap === 32) && text.charCodeAt(at + 1) === 10 && isNameCode(text.charCodeAt(at + 2))) at += 2; // "\r\n", " \n" ("𝜂2 \n𝑝= .013")
     else if (gap === 46 && text.charCodeAt(at + 1) === 32 && isAbbreviatedAdjusted(text, wordStarts[words - 1]!, at)) at += 2; // "adj. R2"
     else break;
   }

@@ -594,11 +594,13 @@ const MATH_GREEK: Readonly<Record<number, string>> = {
   27: 'beta',
   30: 'epsilon',
   32: 'eta',
+  42: 'rho',
   47: 'phi',
   48: 'chi',
   50: 'omega',
   52: 'epsilon',
   55: 'phi',
+  56: 'rho',
 };
 
 /** LaTeX commands spelled the way the scanner reads their glyphs (see REPLACEMENTS). */

@@ -183,6 +183,17 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Chi-squared tests were used. At baseline X(1) = 4.28 and later X(2) = 5.10.\n')).toEqual([]);
   });
 
+  it('reads math-italic letters a PDF\'s text gives ("𝜌 = −0.617, 𝑝 < 0.001") and a partial eta squared whose subscript a line break set apart ("𝜂2 \\n𝑝= .013")', () => {
+    // Sentences as a CC BY 4.0 paper's PDF text gives them (tests/corpus/real/passages/dwga-02.txt and dwgb-01.txt).
+    const text = 'Hint use was negatively correlated with posttest scores (𝜌 = −0.617, 𝑝 < 0.001) in the 277 students.\nThere was no effect of avatar, 𝐹 (1, 23) = 0.311, \n𝑝 = .583, 𝜂2 \n𝑝= .013.\n';
+    const statistics = scanTextJson(text).statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.comparator, statistic.p?.value])).toEqual([
+      ['r', -0.617, '<', 0.001],
+      ['F', 0.311, '=', 0.583],
+    ]);
+    expect(statistics[1]!.effects.map((effect) => [effect.kind, effect.value])).toEqual([['partial-eta-squared', 0.013]]);
+  });
+
   it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
     // F(2, 57) = 12.10 gives p = 4.17e-5 (SciPy 1.10.1 scipy.stats.f.sf(12.10, 2, 57), computed when the test was written).
     const text = 'Groups differed, F(2, 57) = 12.10, p = 4.2 × 10 −5. They did again, F(2, 57) = 12.10, p = 4.2 × 10 − 5. And again, F(2, 57) = 12.10, p < 10 −4.\n';
