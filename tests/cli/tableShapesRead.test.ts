@@ -759,6 +759,14 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('gives a result written in a crushed row\'s cell ("t(58) = 2.12") the p of the p column after it', () => {
+    const text = 'Table 3\nComparison of scores between groups\nMeasure Group A M (SD) Group B M (SD) Test statistic p\nAnxiety 12.3 (4.1) 10.1 (3.9) t(58) = 2.12 .038\nStress 15.2 (5.0) 13.0 (4.8) t(58) = −1.74 .087\n\nNext.\n';
+    expect(scanTextJson(text).statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value])).toEqual([
+      ['t', 2.12, [58], 0.038],
+      ['t', -1.74, [58], 0.087],
+    ]);
+  });
+
   it('gives a footnote\'s df ("a df = 1.") only to the values carrying its marker, never to the other rows', () => {
     const text = [
       'Table 1. Characteristics of the participants by group',

@@ -670,6 +670,13 @@ function splitTokens(text: string): readonly Piece[] {
       index++;
       continue;
     }
+    // "t(58) = 2.12", "χ2(1) = 4.29": a result written in a crushed row's cell, its symbol, sign and value set apart
+    // by spaces, is one cell (not the symbol in the label and "= 2.12" a value).
+    if (previous !== undefined && next !== undefined && /^(?:=|<|>)$/.test(token.text) && WRITTEN_HEAD.test(previous.text) && /^[-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)$/.test(next.text)) {
+      tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
+      index++;
+      continue;
+    }
     // "2 / 180": both df of an F with a slash set apart by spaces.
     if (previous !== undefined && next !== undefined && token.text === '/' && /^\d{1,4}$/.test(previous.text) && /^\d{1,6}(?:\.\d+)?$/.test(next.text)) {
       tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
@@ -709,6 +716,9 @@ function splitTokens(text: string): readonly Piece[] {
   }
   return tokens;
 }
+
+/** A statistic's symbol with its df in brackets: "t(58)", "F(2, 57)" (one token already), "χ2(1)", "r(98)". */
+const WRITTEN_HEAD = /^(?:t|F|r|z|H|U|rs|X2|x2|\u03c72|\u03c7\u00b2|\u03c7 2|chi2)\(\d{1,5}(?:\.\d{1,3})?(?:,\s?\d{1,6}(?:\.\d{1,3})?)?(?:,\s?N\s?=\s?\d{1,6})?\)$/;
 
 /** A value (its stars after it) or a bracketed df, and a p below 1 after "<" glued to it: "241.34<0.0001", "(15)<.001". */
 const GLUED_P = /^([-\u2212]?(?:\d{1,7}(?:\.\d{1,6})?|\.\d{1,6})[*\u2020\u2021]{0,3}|\(\d{1,5}(?:\.\d{1,3})?(?:,\s?\d{1,6}(?:\.\d{1,3})?)?\))((?:<|\u2264|<=)0?\.\d{1,6}[*\u2020\u2021a-h]{0,3})$/;
