@@ -14,6 +14,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { scanTextJson } from './scanDocumentJson.js';
 import { htmlDocumentsData } from '../report/htmlData.js';
 import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
@@ -83,5 +84,20 @@ describe('a table that prints F and p without df', () => {
     const zero = document!.statistics[0]!.findings.map((finding) => finding.rule);
     expect(zero).toContain('p-reported-as-zero');
     expect(document!.tablesNotRead.map((table) => table.reason)).toEqual(['read-without-df']);
+  });
+  it('does not list a table as not read when every result it prints is written out in a cell and read ("χ2(1) = 0.80" under "Statistic")', () => {
+    const rows = [
+      ['Characteristic', 'Intervention (n = 40)', 'Control (n = 40)', 'Statistic', 'p-value'],
+      ['Gender, n (%)', '', '', 'χ2(1) = 0.80', '0.371'],
+      ['Female', '22 (55.0)', '18 (45.0)', '', ''],
+      ['Age, years, mean (SD)', '34.2 (8.1)', '35.0 (7.9)', 't(78) = −0.45', '0.655'],
+    ];
+    const text = `Table 1. Characteristics of the participants by group\n${rows.map((row) => row.join('\t')).join('\n')}\n\nNext.\n`;
+    const document = scanTextJson(text);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([
+      ['chi2', 0.8, 0.371],
+      ['t', -0.45, 0.655],
+    ]);
+    expect(document.tablesNotRead).toEqual([]);
   });
 });

@@ -440,7 +440,13 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     const withP = pColumn < 1 ? 0 : virtualRows.filter((row, index) => !writtenRows.has(index) && readCell(row.cells[pColumn] ?? '', 'either').kind === 'number').length;
     if (withP > 0) return { results: [], unread: unreadTable(table, tableIndex, 'no-statistic-column', withP, 0), completions };
     // A header that mentions a test statistic in words the vocabulary does not know ("F- value", "Chi value (x2)").
-    const withNumbers = rows.filter((row, index) => index >= headerCount && row.slice(1).some((cell) => shapeOf(cell).shape.startsWith('number'))).length;
+    // (Rows whose statistic is written out in a cell, "χ2(1) = 0.80", were read by the text scanner and completed
+    // from their row; numbers count only under a column whose name mentions the statistic, where the header
+    // names one: a row of group means is no unread test.)
+    const mentionedColumns = new Set(rows.slice(0, headerCount).flatMap((row) => row.flatMap((cell, column) => (column > 0 && mentionsStatistic(cell) ? [column] : []))));
+    const withNumbers = virtualRows.filter(
+      (row, index) => !writtenRows.has(index) && row.cells.some((cell, column) => column > 0 && (mentionedColumns.size === 0 || mentionedColumns.has(column)) && shapeOf(cell).shape.startsWith('number')),
+    ).length;
     const mentions = rows.slice(0, headerCount).some((row) => row.some((cell) => mentionsStatistic(cell)));
     return mentions && withNumbers > 0 ? { results: [], unread: unreadTable(table, tableIndex, 'columns-not-recognised', withNumbers, 0), completions } : { ...nothing, completions };
   }
