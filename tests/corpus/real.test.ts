@@ -53,14 +53,20 @@ const scores = scoreCorpus(corpus);
 // prose batch: tune table recall 0.86 -> 0.83 (0.838) and 2 false alarms more (4: a correlation triangle glued to its
 // diagonal, dwhd-01); holdout table recall 0.56 -> 0.54 (0.544); all-labels floors tune 0.58 -> 0.57, holdout 0.43 ->
 // 0.42; silent-miss ceilings tune 56 -> 91, holdout 74 -> 97.
+// 2026-12-05, code-index prose batch: the corpus grew by 12 prose passages (dwja-01..09 from an eLife article's figure
+// legends, dwjb-01..02 from a CHI paper whose italic F and p were lost in extraction, dwjc-01 from a Frontiers article:
+// chi-squares without df; 10 tune, 2 holdout). As measured after them: tune table recall 0.83 -> 0.85 (0.852, the floor
+// had been left below the last measure), tune text recall 0.96 (0.963: dwjb-01's four F with no symbol, dwja-02's
+// lower-case 'f(2,11)' and dwja-09's 'p=5.4 E-5' not read), its fails on consistent results 1 of 231 (dwja-09, the p
+// misread as 5.4: under the ceiling of 0.01); holdout text recall 0.48 -> 0.51 (0.512); holdout table 0.54 kept.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
+    text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
     table: { recall: 0.54, precision: 1, maxFailRate: 0.01 },
-    text: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.51, precision: 1, maxFailRate: 0.01 },
   },
 };
 
@@ -161,7 +167,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 7 passages on 2026-12-05, second batch: tune 0.58 -> 0.57 (0.5796), holdout 0.45 -> 0.49 (0.4907), as measured)
   // (the corpus grew by 7 passages on 2026-12-05, third batch: tune 0.57 kept (0.5890), holdout 0.49 -> 0.44 (0.4432:
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.42 };
+  // (2026-12-05, code-index prose batch, no tables added: tune 0.57 -> 0.58 (0.584), holdout 0.42 kept (0.426), as measured)
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.58, holdout: 0.42 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -174,7 +181,9 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 7 passages on 2026-12-05, second batch: tune 48 -> 44, holdout 74, as measured)
   // (the corpus grew by 7 passages on 2026-12-05, third batch: tune 44 -> 45 (2 of the 13 new misses), holdout 74 kept (73), as measured)
   // (the corpus grew by 2 prose passages on 2026-12-05, prose batch: tune 45 -> 48 (dwec-01's three correlations), holdout 74 kept (73), as measured)
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 91, holdout: 97 }; // (measured 2026-12-05: tune 91, holdout 97)
+  // (2026-12-05, code-index prose batch: tune 91 -> 56 as measured; holdout 97 -> 100, the 3 results of the holdout
+  // prose passage dwjb-02 whose F symbol was lost in extraction)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 56, holdout: 100 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);

@@ -169,8 +169,11 @@ def verdict(kind, df, df_text, value, decimals, exponent, comparator, p, ns, eff
         c = p["comparator"]
         if c == "=":
             hu = half_unit(p["decimals"], p["exponent"])
+            # Float slack scaled to the printed unit: a fixed 1e-15 would pass any p printed below
+            # 1e-15 ('p=1.2×10−44' for an exact p of 1.7e-313).
+            eps = min(1e-15, 1e-6 * hu)
             # Rounded, or truncated (0.0499 printed as .04), both common practice.
-            ok = hi >= v - hu - 1e-15 and lo <= v + 2 * hu + 1e-15
+            ok = hi >= v - hu - eps and lo <= v + 2 * hu + eps
             if v == 0:
                 ok = lo <= 2 * hu + 1e-15
         elif c == "<":
