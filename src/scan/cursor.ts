@@ -209,8 +209,11 @@ export function readScientificNumber(text: string, position: number, decimalComm
       return { number: { value: Number(`1e${bare.power}`), text: written, decimals: 0, exponent: bare.power }, start: position, end: bare.end };
     }
   }
-  // "9.4.E-07": a spreadsheet's scientific notation with a point before its "E" (as some tables print it).
-  const dottedExponent = text.charCodeAt(mantissa.end) === 46 && (text.charCodeAt(mantissa.end + 1) === 69 || text.charCodeAt(mantissa.end + 1) === 101) ? 1 : 0;
+  // "9.4.E-07": a spreadsheet's scientific notation with a point before its "E" (as some tables print it); "5.4
+  // E-5": with a space before its capital "E" and a minus after it (a space and "E5" alone may be a label).
+  const spacedExponent = text.charCodeAt(mantissa.end) === 32 && text.charCodeAt(mantissa.end + 1) === 69 && text.charCodeAt(mantissa.end + 2) === 45 && isAsciiDigit(text.charCodeAt(mantissa.end + 3)) ? 1 : 0;
+  const dottedExponent =
+    spacedExponent === 1 ? 1 : text.charCodeAt(mantissa.end) === 46 && (text.charCodeAt(mantissa.end + 1) === 69 || text.charCodeAt(mantissa.end + 1) === 101) ? 1 : 0;
   const after = text.charCodeAt(mantissa.end + dottedExponent);
   if (after === 101 || after === 69) {
     // "e" / "E"

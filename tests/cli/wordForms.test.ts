@@ -194,6 +194,12 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(statistics[1]!.effects.map((effect) => [effect.kind, effect.value])).toEqual([['partial-eta-squared', 0.013]]);
   });
 
+  it('reads a p in scientific notation with a space before its "E" ("p=5.4 E-5"), never as p = 5.4', () => {
+    // A figure legend's sentence (tests/corpus/real/passages/dwja-09.txt, CC BY 4.0); F(1, 27) = 22.9 gives p = 5.4e-5
+    // (SciPy 1.10.1 scipy.stats.f.sf(22.9, 1, 27) = 5.37e-5, computed when the test was written).
+    expect(readAll('Licking fell after the lesion (F(1,27) = 22.9, p=5.4 E-5).\n')).toEqual([['F', [1, 27], 22.9, '= 5.4e-5']]);
+  });
+
   it('reads a p in scientific notation whose superscript a copy set apart ("4.2 × 10 −5", "4.2 × 10 − 5", "p < 10 −4"), never as p = 4.2', () => {
     // F(2, 57) = 12.10 gives p = 4.17e-5 (SciPy 1.10.1 scipy.stats.f.sf(12.10, 2, 57), computed when the test was written).
     const text = 'Groups differed, F(2, 57) = 12.10, p = 4.2 × 10 −5. They did again, F(2, 57) = 12.10, p = 4.2 × 10 − 5. And again, F(2, 57) = 12.10, p < 10 −4.\n';
