@@ -53,13 +53,20 @@ const scores = scoreCorpus(corpus);
 // prose batch: tune table recall 0.86 -> 0.83 (0.838) and 2 false alarms more (4: a correlation triangle glued to its
 // diagonal, dwhd-01); holdout table recall 0.56 -> 0.54 (0.544); all-labels floors tune 0.58 -> 0.57, holdout 0.43 ->
 // 0.42; silent-miss ceilings tune 56 -> 91, holdout 74 -> 97.
+// The corpus grew by 9 table passages on 2026-12-05 (code-index table batch, dwia-01..dwif-01: 6 tune, 3 holdout;
+// tables from openly licensed papers' full texts stored in public repositories: pipe, crushed, HTML and one-cell-per-
+// line copies), as measured: tune table recall 0.84 (0.845) and 3 false alarms more (5: two p cells of dwib-01 read
+// as z, a lack-of-fit mean square in dwie-02 read as F) and 2 fails on consistent results (dwie-02, of 1178: under the
+// ceiling); tune text recall 0.97 (0.977, reached before this batch); holdout table recall 0.54 (0.543), precision
+// 1 -> 0.96 (0.965: 15 false alarms in the three new holdout passages); all-labels holdout floor 0.42 -> 0.41 (0.418);
+// silent-miss ceilings tune 91 -> 62, holdout 97 -> 111, as measured.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
+    text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.54, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.54, precision: 0.96, maxFailRate: 0.01 },
     text: { recall: 0.48, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -161,7 +168,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 7 passages on 2026-12-05, second batch: tune 0.58 -> 0.57 (0.5796), holdout 0.45 -> 0.49 (0.4907), as measured)
   // (the corpus grew by 7 passages on 2026-12-05, third batch: tune 0.57 kept (0.5890), holdout 0.49 -> 0.44 (0.4432:
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.42 };
+  // (the corpus grew by 9 table passages on 2026-12-05, code-index table batch: tune 0.57 kept (0.579), holdout 0.42 -> 0.41 (0.418), as measured)
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.41 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -174,7 +182,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 7 passages on 2026-12-05, second batch: tune 48 -> 44, holdout 74, as measured)
   // (the corpus grew by 7 passages on 2026-12-05, third batch: tune 44 -> 45 (2 of the 13 new misses), holdout 74 kept (73), as measured)
   // (the corpus grew by 2 prose passages on 2026-12-05, prose batch: tune 45 -> 48 (dwec-01's three correlations), holdout 74 kept (73), as measured)
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 91, holdout: 97 }; // (measured 2026-12-05: tune 91, holdout 97)
+  // (the corpus grew by 9 table passages on 2026-12-05, code-index table batch: tune 91 -> 62, holdout 97 -> 111, as measured)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 62, holdout: 111 }; // (measured 2026-12-05: tune 62, holdout 111)
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
