@@ -759,6 +759,18 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('reads Minitab\'s "Adj SS" and "Adj MS" columns, so a lack-of-fit row\'s mean square is not taken for its F', () => {
+    // Cells one per line as a journal's page gives them (tests/corpus/real/passages/dwie-02.txt, CC BY): the lack-of-fit
+    // row prints DF, SS, Adj SS and Adj MS (735.5) and no F.
+    const cells = ['Source', 'DF', 'SS', 'Adj SS', 'Adj MS', 'F-Value', 'p-Value', 'Linear', '4', '472,732', '171,535', '42,883.7', '62.96', '0.000', 'Square', '4', '178,450', '74,321', '18,580.4', '27.28', '0.000', 'Interaction between factors', '6', '175,332', '175,332', '29,221.9', '42.90', '0.000', 'Residual Error', '365', '248,607', '248,607', '681.1', 'Lack-of-Fit', '338', '248,607', '248,607', '735.5', 'Pure Error', '27', '0', '0', '0.0', 'Total', '379', '1,075,121'];
+    const document = scanTextJson(`Table 2. ANOVA for the full regression model.\n${cells.join('\n')}\n\nNext.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 62.96, [4, 365]],
+      ['F', 27.28, [4, 365]],
+      ['F', 42.9, [6, 365]],
+    ]);
+  });
+
   it('gives a result written in a crushed row\'s cell ("t(58) = 2.12") the p of the p column after it', () => {
     const text = 'Table 3\nComparison of scores between groups\nMeasure Group A M (SD) Group B M (SD) Test statistic p\nAnxiety 12.3 (4.1) 10.1 (3.9) t(58) = 2.12 .038\nStress 15.2 (5.0) 13.0 (4.8) t(58) = −1.74 .087\n\nNext.\n';
     expect(scanTextJson(text).statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value])).toEqual([

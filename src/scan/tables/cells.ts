@@ -288,6 +288,9 @@ put(['df b', 'dfb', 'df between', 'df m', 'dfm', 'df model'], { role: 'df1' });
 put(['df w', 'dfw', 'df within', 'df r', 'dfr', 'df.res'], { role: 'df2' });
 put(['p.value', 'p adj', 'p-adj', 'p.adj', 'padj', 'adjusted p', 'adj. p', 'p adjusted', 'p>|z|', 'p > |z|', 'pr > |z|', 'pr>|z|', 'prob > |z|'], { role: 'p' });
 put(['pes'], { role: 'effect', effect: 'partial-eta-squared' });
+// Minitab's adjusted and sequential sums of squares and mean squares (from memory of its ANOVA output).
+put(['adj ss', 'adj. ss', 'seq ss', 'seq. ss'], { role: 'ss' });
+put(['adj ms', 'adj. ms', 'seq ms', 'seq. ms'], { role: 'ms' });
 put(['g.l.', 'g.l', 'gl.', 'degree of freedom', 'deg. of freedom', 'd.o.f.', 'gdl', 'g.d.l.', 'gradi di libertà'], { role: 'df' });
 // The p of statistics software's chi-square and nonparametric output, and correlation coefficients named in full.
 put(['asymp. sig. (2-sided)', 'asymp. sig. (2-tailed)', 'asymp. sig.', 'asymptotic sig. (2-sided)', 'asymptotic significance (2-sided)', 'asymptotic significance', 'exact sig. (2-sided)', 'exact sig. (2-tailed)', 'exact sig.', 'exact significance (2-sided)', 'sig. asintótica (bilateral)', 'sig. asintotica (bilateral)', 'sig. exacta (bilateral)', 'sig. assintótica (bilateral)', 'asymptotische signifikanz (2-seitig)', 'two-sided p', 'two-tailed p-value', 'p (two-sided)', 'p two-sided'], { role: 'p' });
