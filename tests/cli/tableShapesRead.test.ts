@@ -759,6 +759,16 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  it('reads a regression table with an odds ratio and its interval after the p ("OR [95% CI]"), never a p as the z', () => {
+    // Rows as a journal's text gives them (tests/corpus/real/passages/dwib-01.txt, CC BY 4.0), one row a line.
+    const text = 'Table 6. Logistic regression of the replication\nPredictor Estimate SE Z p OR [95% CI]\nIntercept 0.51 0.09 5.46 <.001 1.67 [1.39, 2.00]\nDefault: No-Default – Opt-In 0.32 0.14 2.37 0.018 1.38 [1.06, 1.80]\nDefault: Opt-Out – Opt-In 0.51 0.14 3.65 <.001 1.67 [1.27, 2.19]\n\nNext.\n';
+    expect(scanTextJson(text).statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.comparator, statistic.p?.value])).toEqual([
+      ['z', 5.46, '<', 0.001],
+      ['z', 2.37, '=', 0.018],
+      ['z', 3.65, '<', 0.001],
+    ]);
+  });
+
   it('reads Minitab\'s "Adj SS" and "Adj MS" columns, so a lack-of-fit row\'s mean square is not taken for its F', () => {
     // Cells one per line as a journal's page gives them (tests/corpus/real/passages/dwie-02.txt, CC BY): the lack-of-fit
     // row prints DF, SS, Adj SS and Adj MS (735.5) and no F.

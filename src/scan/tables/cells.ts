@@ -288,6 +288,8 @@ put(['df b', 'dfb', 'df between', 'df m', 'dfm', 'df model'], { role: 'df1' });
 put(['df w', 'dfw', 'df within', 'df r', 'dfr', 'df.res'], { role: 'df2' });
 put(['p.value', 'p adj', 'p-adj', 'p.adj', 'padj', 'adjusted p', 'adj. p', 'p adjusted', 'p>|z|', 'p > |z|', 'pr > |z|', 'pr>|z|', 'prob > |z|'], { role: 'p' });
 put(['pes'], { role: 'effect', effect: 'partial-eta-squared' });
+// Odds, hazard and rate ratios with their intervals beside a regression's tests (common practice).
+put(['or [95% ci]', 'or (95% ci)', 'or 95% ci', 'odds ratio', 'odds ratio (95% ci)', 'odds ratio [95% ci]', 'aor (95% ci)', 'aor [95% ci]', 'exp(b)', 'exp(beta)', 'irr (95% ci)', 'hr (95% ci)', 'hr [95% ci]', 'rr (95% ci)'], { role: 'descriptive' });
 // Minitab's adjusted and sequential sums of squares and mean squares (from memory of its ANOVA output).
 put(['adj ss', 'adj. ss', 'seq ss', 'seq. ss'], { role: 'ss' });
 put(['adj ms', 'adj. ms', 'seq ms', 'seq. ms'], { role: 'ms' });
