@@ -124,6 +124,8 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
     const df = parseReportedNumber(latex[1] ?? latex[2]!);
     if (df !== null) return { kind: 'chi2', end: position + 3 + latex[0].length, requiresBracketedDf: false, subscriptDf: df };
   }
+  const flattened = flattenedChiDf(text, position + 3);
+  if (flattened !== null) return { kind: 'chi2', end: flattened.end, requiresBracketedDf: false, subscriptDf: flattened.df, requiresP: true };
   let at = position + 3;
   if (text.charCodeAt(at) === 94) at++; // "^"
   // "χ 2(2) = 5.9": the superscript set apart from its χ, as web pages and PDFs give it.
@@ -151,6 +153,27 @@ function chiSquareWord(text: string, position: number): SymbolRead | null {
  */
 const LATEX_CHI_WITH_DF = /^ ?(?:_\{?\(?(\d{1,3})\)?\}?\^\{?2\}?|\^\{?2\}?_\{?\(?(\d{1,3})\)?\}?)(?![\d.])/;
 const MAX_LATEX_CHI = 24;
+
+/**
+ * A χ² whose subscript df and superscript 2 a copy ran onto the symbol, in either order, right before its sign:
+ * "χ32 = 9.96" (χ²₃, the subscript first, as some journals' pages give it) or "χ23 = 9.96" (the superscript first),
+ * both df 3; "χ22" is df 2 either way. A run that both orders read differently ("χ212": df 12 or 21) is not read.
+ * Only with a p after it (the scanner asks for one): "χ23" could otherwise be a χ² with a footnote.
+ */
+function flattenedChiDf(text: string, at: number): { df: ReportedNumber; end: number } | null {
+  let end = at;
+  while (end < text.length && end - at < 4 && isAsciiDigit(text.charCodeAt(end))) end++;
+  const digits = text.slice(at, end);
+  if (digits.length < 2 || isAsciiDigit(text.charCodeAt(end)) || isAsciiLetter(text.charCodeAt(end))) return null;
+  const sign = skipOnlySpace(text, end);
+  if (!'=<>'.includes(text[sign] ?? 'x')) return null;
+  const superscriptFirst = digits.startsWith('2') ? digits.slice(1) : null;
+  const subscriptFirst = digits.endsWith('2') ? digits.slice(0, -1) : null;
+  const readings = new Set([superscriptFirst, subscriptFirst].filter((df): df is string => df !== null && df !== '' && !df.startsWith('0')));
+  if (readings.size !== 1) return null;
+  const df = parseReportedNumber([...readings][0]!);
+  return df === null || df.value > 200 ? null : { df, end };
+}
 
 /**
  * Kruskal-Wallis "H(2) = 7.81" or "H(2, N = 60) = 7.81": tested against the

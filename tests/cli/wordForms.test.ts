@@ -194,6 +194,17 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(statistics[1]!.effects.map((effect) => [effect.kind, effect.value])).toEqual([['partial-eta-squared', 0.013]]);
   });
 
+  it('reads a χ² whose subscript df and superscript 2 a copy ran onto the symbol ("χ32=9.96", "χ23 = 9.96"), only with its p', () => {
+    // chi2(3) = 9.96 gives p = .019 and chi2(2) = 7.81 gives p = .020 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
+    expect(readAll('Use differed by age (χ32=9.96, P=.02) and by sex (χ23 = 9.96, p = .02) and site (χ22 = 7.81, p = .020).\n')).toEqual([
+      ['chi2', [3], 9.96, '= .02'],
+      ['chi2', [3], 9.96, '= .02'],
+      ['chi2', [2], 7.81, '= .020'],
+    ]);
+    // "χ212" reads as df 12 or df 21 (which order the copy kept cannot be told), and without a p "χ23" may carry a footnote.
+    expect(readAll('Use differed (χ212 = 21.0, p = .05); the index was χ23 = 9.96 overall.\n')).toEqual([]);
+  });
+
   it('reads a p in scientific notation with a space before its "E" ("p=5.4 E-5"), never as p = 5.4', () => {
     // A figure legend's sentence (tests/corpus/real/passages/dwja-09.txt, CC BY 4.0); F(1, 27) = 22.9 gives p = 5.4e-5
     // (SciPy 1.10.1 scipy.stats.f.sf(22.9, 1, 27) = 5.37e-5, computed when the test was written).
