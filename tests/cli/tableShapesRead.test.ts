@@ -11,7 +11,8 @@
  * nothing is read with df that belong to another row.
  */
 import { describe, expect, it } from 'vitest';
-import { scanTextJson } from './scanDocumentJson.js';
+import { join } from 'node:path';
+import { scanDocumentJson, scanTextJson } from './scanDocumentJson.js';
 
 type Statistic = ReturnType<typeof scanTextJson>['statistics'][number];
 const readAs = (statistics: Statistic[]) => statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]);
@@ -768,6 +769,20 @@ describe('results tables in the shapes papers print them', () => {
       ['z', 5.46, '<', 0.001],
       ['z', 2.37, '=', 0.018],
     ]);
+  });
+
+  it('never takes a p written as a bound ("<0.001") for the F beside it, and reads the F after it', () => {
+    // A journal's table page as text (tests/corpus/real/passages/dvyc-01.txt, CC BY): the interaction's F (0.3, 6.2)
+    // prints no df, so it is read without them, with its own p.
+    const statistics = scanDocumentJson(join(__dirname, '..', 'corpus', 'real', 'passages', 'dvyc-01.txt')).statistics.map((statistic) => [
+      statistic.value,
+      statistic.df,
+      statistic.p?.comparator,
+      statistic.p?.value,
+    ]);
+    expect(statistics).toContainEqual([0.3, [], '=', 0.595]);
+    expect(statistics).toContainEqual([6.2, [], '<', 0.001]);
+    expect(statistics.filter(([value]) => value === 0.001)).toEqual([]);
   });
 
   it('reads Minitab\'s "Adj SS" and "Adj MS" columns, so a lack-of-fit row\'s mean square is not taken for its F', () => {

@@ -225,9 +225,10 @@ export function fit(role: ColumnRole, cell: CellShape): number {
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;
       }
-      // A bound under 1 ("<.001", "<0.05") under a z, t or r is a p: a table prints a tiny F or chi-square so
-      // ("<0.001" over its p of 0.995), never a z, t or r.
-      if (cell.shape === 'number' && cell.comparator !== '=' && cell.value < 1 && role.kind !== 'F' && role.kind !== 'chi2') return -4;
+      // A bound under 1 ("<.001", "<0.05") is a p: a table prints a tiny F or chi-square so ("<0.001" before its
+      // p of 0.995), never a z, t or r.
+      // (Under an F or chi-square it fits only where no other placement of the row's cells does.)
+      if (cell.shape === 'number' && cell.comparator !== '=' && cell.value < 1) return role.kind === 'F' || role.kind === 'chi2' ? 0.1 : -4;
       // Under "t (df)" the cells carry their df; a bare number there is weak evidence.
       if (role.dfInCell === true) return (role.kind === 'F' || role.kind === 'chi2') && cell.value < 0 ? -4 : 0.5;
       if (role.kind === 'F' || role.kind === 'chi2') return cell.value >= 0 ? 2 : -4;
