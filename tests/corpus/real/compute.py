@@ -66,6 +66,8 @@ def parse_printed(text):
     s = re.sub(r"\s+", "", s)
     for m in MINUS:
         s = s.replace(m, "-")
+    if re.fullmatch(r"-?\d{1,3}(?:,\d{3})+\.\d+", s):
+        s = s.replace(",", "")  # thousands separators before a decimal point ('1,050,284.622')
     if "," in s and "." not in s:
         s = s.replace(",", ".")  # a decimal comma
     if re.fullmatch(r"-?\d*:\d+", s):
