@@ -44,6 +44,7 @@ export interface NormalisedText {
 const NEEDS_WORK = /[^\x00-\x23\x25-\x29\x2B-\x3B\x3D-\x5B\x5D\x5E\x60-\x7F]|-[ \t]*\r?\n/g;
 
 /** An inline tag that only styles its content (HTML, JATS and MathML names), opening or closing, at `lastIndex`. */
+const LINE_BREAK_TAG = /<br\s?\/?>/iy;
 const INLINE_TAG = /<\/?(?:i|b|u|em|strong|italic|bold|sup|sub|span|font|small|sc|mml:[a-z]{1,12}|math|mi|mn|mo|mrow|msup|msub|msubsup|mtext|inline-formula)(?:\s[^<>]{0,200})?\/?>/iy;
 
 /** Single-character replacements (the value may be empty, or longer than one character). */
@@ -370,6 +371,13 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
     if (tag !== null) {
       builder.replace(at, tag[0].length, '');
       return at + tag[0].length;
+    }
+    // "Hypothesis <br> df": a line break a converted table keeps inside a cell reads as a space.
+    LINE_BREAK_TAG.lastIndex = at;
+    const lineBreak = LINE_BREAK_TAG.exec(original);
+    if (lineBreak !== null) {
+      builder.replace(at, lineBreak[0].length, ' ');
+      return at + lineBreak[0].length;
     }
     builder.copy(at, at + 1);
     return at + 1;

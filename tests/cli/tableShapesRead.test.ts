@@ -785,6 +785,20 @@ describe('results tables in the shapes papers print them', () => {
     expect(statistics.filter(([value]) => value === 0.001)).toEqual([]);
   });
 
+  it('reads a converted table\'s header cells broken by "<br>" and values in LaTeX dollars ("$68,527.167$", "$6.979 \\times 10^{-6}$")', () => {
+    // Rows as a paper converted to Markdown gives them (tests/corpus/real/passages/dwka-01.txt, CC BY 4.0), crushed.
+    const text = [
+      'Table 6. Between-subjects effects on weighted objectives.',
+      '',
+      'Source Type III Sum <br> of Squares df Mean Square F Sig. Partial Eta <br> Squared',
+      'Intercept 257.993 1 257.993 $36,964,741.896$ 0.000 1.000',
+      'Methods 0.478 1 0.478 $68,527.167$ 0.000 0.999',
+      'Error 0.000 58 $6.979 \\times 10^{-6}$',
+      '',
+    ].join('\n');
+    expect(scanTextJson(text).statistics.map((statistic) => [statistic.value, statistic.df])).toContainEqual([68527.167, [1, 58]]);
+  });
+
   it('reads Minitab\'s "Adj SS" and "Adj MS" columns, so a lack-of-fit row\'s mean square is not taken for its F', () => {
     // Cells one per line as a journal's page gives them (tests/corpus/real/passages/dwie-02.txt, CC BY): the lack-of-fit
     // row prints DF, SS, Adj SS and Adj MS (735.5) and no F.

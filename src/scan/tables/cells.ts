@@ -41,7 +41,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*([-\u2212+]?\s?\d{1,3}))?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|\+|[a-h]{1,3})?$/;
+  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*\{?([-\u2212+]?\s?\d{1,3})\}?)?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|\+|[a-h]{1,3})?$/;
 
 /** "n.s." after a number ("0.07, n.s.", "0.45 NS", "0.30 (ns)"): a mark that the value is not significant. */
 const NS_AFTER_NUMBER = /(?<=\d[*a-h]{0,3}),?\s*\(?(?:[nN]\.\s?[sS]\.?|ns|NS)\)?$/;
@@ -108,8 +108,11 @@ export function readCell(cell: string, separator: DecimalSeparator = '.'): CellV
   return readPlainCell(cell, separator);
 }
 
-/** Characters that start a garbled (mis-decoded) glyph, spaces a number may hold, or a math font's asterisk ("4.21∗∗"). */
-const GARBLED = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f\u2217\ufe61\uff0a]/;
+/**
+ * Characters that start a garbled (mis-decoded) glyph, spaces a number may hold, a math font's asterisk ("4.21∗∗"),
+ * or LaTeX's dollars around a cell a converted table kept ("$68,527.167$").
+ */
+const GARBLED = /[\u00c2\u00c3\u00e2\u00ce\u00cf\u2009\u202f\u2217\ufe61\uff0a$]/;
 
 function hasDigit(text: string): boolean {
   for (let index = 0; index < text.length; index++) {
@@ -175,7 +178,7 @@ export type ColumnRole =
   | { role: 'unknown' };
 
 /** Printable ASCII without markup characters (which normalisation would remove or rewrite). */
-const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
+const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x3b\x3d-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
 
 /**
  * A header as a comparable key: normalised (Greek spelled out, super- and

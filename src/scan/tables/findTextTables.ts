@@ -658,7 +658,14 @@ function splitTokens(text: string): readonly Piece[] {
     }
     // "5.88 × 10−5": a number in scientific notation written with spaces is one token.
     const next = raw[index + 1];
-    if (previous !== undefined && next !== undefined && /^[x\u00d7*]$/.test(token.text) && /^[-\u2212\u2013]?[\d.,]+$/.test(previous.text) && /^10(?:\^?[-\u2212\u2013+]?\d{1,3})$/.test(next.text)) {
+    // (Also as LaTeX left in a converted table's cell: "$6.979 \times 10^{-6}$".)
+    if (
+      previous !== undefined &&
+      next !== undefined &&
+      /^(?:[x\u00d7*]|\\times)$/.test(token.text) &&
+      /^\$?[-\u2212\u2013]?[\d.,]+$/.test(previous.text) &&
+      /^10(?:\^?\{?[-\u2212\u2013+]?\d{1,3}\}?)\$?$/.test(next.text)
+    ) {
       tokens[tokens.length - 1] = { text: text.slice(previous.start, next.end), start: previous.start, end: next.end };
       index++;
       continue;
