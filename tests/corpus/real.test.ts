@@ -64,9 +64,11 @@ const scores = scoreCorpus(corpus);
 // recall 0.85 -> 0.84 (0.845; 2 false alarms in dwib-01, a p cell taken for z in rows run into the caption), holdout
 // table recall 0.543 and its precision 1 -> 0.96 (0.967: 14 false alarms in the new holdout passages); all-labels
 // holdout floor 0.42 -> 0.41; silent-miss ceilings tune 56 -> 67, holdout 100 -> 114.
-// 2026-12-05, second code-index prose batch: the corpus grew by 1 prose passage (dwla-01, an eLife author response:
-// one chi-square and three t(23), tune), as measured after it: tune text recall 0.963 (4 of 4 new results read), every
-// other score unchanged; floors kept.
+// 2026-12-05, second code-index prose batch: the corpus grew by 13 prose passages (dwla-01..dwlg-02 from seven eLife
+// articles and author responses stored as Markdown; 10 tune, 3 holdout; 62 results in running text). As measured
+// after them: tune text recall 0.963 -> 0.968 (floor 0.96 kept), its fails on consistent results 1 of 269 (dwlf-03, an
+// effect size printed '2⋅10–3' read as 2: under the ceiling of 0.01); holdout text recall 0.51 -> 0.60 (32 of 53);
+// tables, all-labels and silent-miss figures unchanged.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
     table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
@@ -74,7 +76,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
   },
   holdout: {
     table: { recall: 0.54, precision: 0.96, maxFailRate: 0.01 },
-    text: { recall: 0.51, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.6, precision: 1, maxFailRate: 0.01 },
   },
 };
 
