@@ -10,6 +10,7 @@ import {
   isAsciiLetter,
   readComparator,
   readNumber,
+  readScientificNumber,
   skipSpaces,
   startsWord,
   type ReadNumber,
@@ -116,7 +117,8 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
   const comparator = readComparator(text, comparatorAt);
   if (comparator === null) return null;
   const valueAt = skipSpaces(text, comparatorAt + comparator.length);
-  const valueRead = readNumber(text, valueAt, true, 'unlessThousands');
+  // ("ηp2 = 2⋅10–3": an effect size in scientific notation, as the p beside it may be.)
+  const valueRead = readScientificNumber(text, valueAt, 'unlessThousands');
   if (valueRead === null || !endsWord(text, valueRead.end)) return null;
   const value = valueRead.number;
   const end = valueRead.end;

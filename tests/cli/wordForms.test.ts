@@ -205,6 +205,14 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Use differed (χ212 = 21.0, p = .05); the index was χ23 = 9.96 overall.\n')).toEqual([]);
   });
 
+  it('reads an effect size in scientific notation ("ηp2 = 2⋅10–3"), never as 2', () => {
+    // A results sentence of a CC BY paper (tests/corpus/real/passages/dwlf-03.txt); F(2, 4038) = 3.43 gives p = .033
+    // (SciPy 1.10.1 scipy.stats.f.sf(3.43, 2, 4038) = 0.0325, computed when the test was written).
+    const statistics = scanTextJson('Load mattered, F(2,4038)=3.43, p=0.033, ηp2 = 2⋅10–3.\n').statistics;
+    expect(statistics.map((statistic) => [statistic.value, statistic.effects.map((effect) => [effect.kind, effect.value])])).toEqual([[3.43, [['partial-eta-squared', 0.002]]]]);
+    expect(statistics[0]!.findings.filter((finding) => finding.severity === 'fail')).toEqual([]);
+  });
+
   it('reads a p in scientific notation with a space before its "E" ("p=5.4 E-5"), never as p = 5.4', () => {
     // A figure legend's sentence (tests/corpus/real/passages/dwja-09.txt, CC BY 4.0); F(1, 27) = 22.9 gives p = 5.4e-5
     // (SciPy 1.10.1 scipy.stats.f.sf(22.9, 1, 27) = 5.37e-5, computed when the test was written).

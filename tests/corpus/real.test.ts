@@ -68,6 +68,9 @@ const scores = scoreCorpus(corpus);
 // multivariate and between-subjects tables as pipe rows; tune; its 10 F results not read, all in tables the report
 // lists as not read). As measured: tune table recall 0.843, precision 0.999, all-labels 0.578, silent misses 65;
 // holdout unchanged: every floor and ceiling kept.
+// 2026-12-05, second code-index prose batch: 13 passages from seven eLife papers (dwla-01..dwlg-02; 10 tune, 3 holdout),
+// as measured: holdout text recall 0.51 -> 0.60 (0.604), tune text 0.968 with no fail on a consistent result once
+// 'ηp2 = 2⋅10–3' is read in scientific notation; tables unchanged.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
     table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
@@ -75,7 +78,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
   },
   holdout: {
     table: { recall: 0.54, precision: 0.96, maxFailRate: 0.01 },
-    text: { recall: 0.51, precision: 1, maxFailRate: 0.01 },
+    text: { recall: 0.6, precision: 1, maxFailRate: 0.01 },
   },
 };
 
