@@ -178,7 +178,7 @@ export type ColumnRole =
   | { role: 'unknown' };
 
 /** Printable ASCII without markup characters (which normalisation would remove or rewrite). */
-const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x3b\x3d-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
+const PLAIN_HEADER = /^[\x20-\x23\x25-\x29\x2b-\x5b\x5d\x61-\x7a\x7c\x7e]*$/;
 
 /**
  * A header as a comparable key: normalised (Greek spelled out, super- and
@@ -194,7 +194,8 @@ const keptHeaderKey = keepAnswers(headerKeyOf);
 function headerKeyOf(header: string): string {
   // Plain ASCII words need no normalisation; most candidate phrases in running text are such words,
   // and this is called for every word of every line while looking for table headers.
-  if (PLAIN_HEADER.test(header)) return header.toLowerCase().replace(/\s+/g, ' ').trim();
+  // (Except a line break a converted table kept in the cell, "Hypothesis <br> df", which normalisation reads as a space.)
+  if (PLAIN_HEADER.test(header) && !(header.includes('<') && /<br/i.test(header))) return header.toLowerCase().replace(/\s+/g, ' ').trim();
   // (Lower case first: a header in capitals writes its Greek in capitals too, "Η2P", spelled out only in lower case.)
   return normaliseText(header.toLowerCase())
     .text.toLowerCase()
