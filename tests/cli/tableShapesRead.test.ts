@@ -54,9 +54,9 @@ describe('results tables in the shapes papers print them', () => {
   });
 
   it('does not give every column the df a note states for one effect, but gives each block the df stated for it by name', () => {
-    const document = scanTextJson(
-      'Table 3\nANOVA results for each outcome\n\tGroup\t\tTime\t\nOutcome\tF\tp\tF\tp\nAnxiety\t4.21\t.020\t2.11\t.152\nDepression\t6.66\t.002\t1.02\t.317\nNote. df = 2, 57 for Group and 1, 57 for Time.\n\nNext.\n',
-    );
+    const outcomes = (note: string): string =>
+      `Table 3\nANOVA results for each outcome\n\tGroup\t\tTime\t\nOutcome\tF\tp\tF\tp\nAnxiety\t4.21\t.020\t2.11\t.152\nDepression\t6.66\t.002\t1.02\t.317\n${note}\n\nNext.\n`;
+    const document = scanTextJson(outcomes('Note. df = 2, 57 for Group and 1, 57 for Time.'));
     // (The df of Time's F tests are not 2 and 57: each block takes the pair stated for its title.)
     expect(readAs(document.statistics)).toEqual([
       ['F', 4.21, [2, 57]],
@@ -65,9 +65,7 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 1.02, [1, 57]],
     ]);
     // df stated for one effect only: no block takes them (the other's df are not stated).
-    const one = scanTextJson(
-      'Table 3\nANOVA results for each outcome\n\tGroup\t\tTime\t\nOutcome\tF\tp\tF\tp\nAnxiety\t4.21\t.020\t2.11\t.152\nDepression\t6.66\t.002\t1.02\t.317\nNote. df = 2, 57 for Group.\n\nNext.\n',
-    );
+    const one = scanTextJson(outcomes('Note. df = 2, 57 for Group.'));
     expect(readAs(one.statistics).filter((statistic) => (statistic[2] as number[]).length > 0)).toEqual([
       ['F', 4.21, [2, 57]],
       ['F', 6.66, [2, 57]],
