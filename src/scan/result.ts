@@ -416,12 +416,17 @@ function findNearby(text: string, from: number, wantP: boolean): number {
   return -1;
 }
 
+/** Abbreviations whose point stands inside a sentence: "vs", "e.g", "i.e", "cf", "Fig", "approx", "resp", "ca". */
+const ABBREVIATION_BEFORE = /(?:^|[^A-Za-z.])(?:vs|e\.g|i\.e|cf|Fig|Figs|approx|resp|ca)$/;
+
 /** A full stop, "!" or "?" followed by space, or a blank line: parts of a result do not cross it. */
 export function endsSentence(text: string, at: number): boolean {
   const code = text.charCodeAt(at);
   if (code === 46 || code === 33 || code === 63) {
     const after = text.charCodeAt(at + 1);
-    return Number.isNaN(after) || isSpaceCode(after);
+    if (!(Number.isNaN(after) || isSpaceCode(after))) return false;
+    // (The point of an abbreviation inside a sentence, "primary vs. associative", "e.g.", "Fig.", ends nothing.)
+    return code !== 46 || !ABBREVIATION_BEFORE.test(text.slice(Math.max(0, at - 6), at));
   }
   if (code === 10) {
     let cursor = at + 1;

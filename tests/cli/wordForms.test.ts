@@ -205,6 +205,14 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Use differed (χ212 = 21.0, p = .05); the index was χ23 = 9.96 overall.\n')).toEqual([]);
   });
 
+  it('reads a p after group means set in brackets and an abbreviation\'s point ("primary [6.3 ± 1.0] vs. associative [11.1 ± 2.2], p=0.0033")', () => {
+    // A results sentence of a CC BY paper (tests/corpus/real/passages/dwlb-01.txt); F(1, 40) = 9.768 gives p = .0033
+    // (SciPy 1.10.1 scipy.stats.f.sf(9.768, 1, 40) = 0.00330, computed when the test was written).
+    expect(readAll('Errors were fewer (F(1,40) = 9.768, primary [6.3 ± 1.0] vs. associative [11.1 ± 2.2], p=0.0033).\n')).toEqual([['F', [1, 40], 9.768, '= 0.0033']]);
+    // A full stop still ends the search: the next sentence's p is not this test's.
+    expect(readAll('Errors were fewer, F(1,40) = 9.768. Accuracy was higher, p = 0.0033.\n')).toEqual([['F', [1, 40], 9.768, null]]);
+  });
+
   it('reads an effect size in scientific notation ("ηp2 = 2⋅10–3"), never as 2', () => {
     // A results sentence of a CC BY paper (tests/corpus/real/passages/dwlf-03.txt); F(2, 4038) = 3.43 gives p = .033
     // (SciPy 1.10.1 scipy.stats.f.sf(3.43, 2, 4038) = 0.0325, computed when the test was written).
