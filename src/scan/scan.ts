@@ -263,8 +263,9 @@ class ComparatorFinder {
 
 /** Letters a statistic symbol can start with: F t T r R (Rho) z Z c C x X H. */
 function canStartSymbol(code: number): boolean {
-  // F, t, T (a t with its df), r, R, z, Z, c, C, x, X, H, and v ("v2(1)": a symbol font's χ², statistic.ts).
-  return code === 70 || code === 116 || code === 84 || code === 114 || code === 82 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72 || code === 118;
+  // F, f (an F typed small, only with bracketed df), t, T (a t with its df), r, R, z, Z, c, C, x, X, H, and v ("v2(1)":
+  // a symbol font's χ², statistic.ts).
+  return code === 70 || code === 102 || code === 116 || code === 84 || code === 114 || code === 82 || code === 122 || code === 90 || code === 99 || code === 67 || code === 120 || code === 88 || code === 72 || code === 118;
 }
 
 /**

@@ -77,6 +77,10 @@ function readSymbol(text: string, position: number): SymbolRead | null {
     case 70: // F
     case 116: // t
       return singleLetterSymbol(text, position, code === 70 ? 'F' : 't', true);
+    case 102: // f
+      // "f(2,11)=23.5: p=0.008": an F typed in small letters, trusted only with two df in brackets and its p
+      // (a small f alone is Cohen's f, "f(x)" a function).
+      return LOWER_F_WITH_DF.test(text.slice(position, position + 16)) ? { kind: 'F', end: position + 1, requiresBracketedDf: true, requiresP: true } : null;
     case 84: {
       // "T(28) = 2.2", "T28 = 2.2": a t test typed with a capital, trusted only with its df (and its p, as any t).
       // (Not "T2 = 12.3": a one-digit subscript may be Hotelling's T², a time point "T1" has no df.)
@@ -230,6 +234,9 @@ function symbolFontChi(text: string, position: number): SymbolRead | null {
   if (text.charCodeAt(position + 1) !== 50 || text.charCodeAt(position + 2) !== 40) return null;
   return { kind: 'chi2', end: position + 2, requiresBracketedDf: true, acceptsTrailingDf: false };
 }
+
+/** "f(2,11)=", "f (2, 11) =": a small f with a pair of whole-number df in brackets, then "=". */
+const LOWER_F_WITH_DF = /^f ?\(\d{1,3}, ?\d{1,5}\) ?=/;
 
 /** "(1) = ", "(12) =": whole-number df in brackets right after the X, then "=". */
 const LOST_SQUARE_DF = /^\(\d{1,3}\) ?=/;

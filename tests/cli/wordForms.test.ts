@@ -213,6 +213,15 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Errors were fewer, F(1,40) = 9.768. Accuracy was higher, p = 0.0033.\n')).toEqual([['F', [1, 40], 9.768, null]]);
   });
 
+  it('reads an F typed in small letters ("f(2,11)=23.5: p=0.008") only with two df in brackets and its p', () => {
+    // A figure legend of a CC BY paper (tests/corpus/real/passages/dwja-02.txt); F(2, 11) = 23.5 gives p = .0001
+    // (SciPy 1.10.1 scipy.stats.f.sf(23.5, 2, 11) = 0.000107, computed when the test was written), far from the
+    // printed .008, so the reading is flagged, as it should be.
+    expect(readAll('Decoding improved over sessions (f(2,11)=23.5: p=0.008).\n')).toEqual([['F', [2, 11], 23.5, '= 0.008']]);
+    // A function's value, or Cohen's f, is no test.
+    expect(readAll('We define f(2,11) = 23.5 as the score. The effect size f = 0.25 was assumed.\n')).toEqual([]);
+  });
+
   it('reads an effect size in scientific notation ("ηp2 = 2⋅10–3"), never as 2', () => {
     // A results sentence of a CC BY paper (tests/corpus/real/passages/dwlf-03.txt); F(2, 4038) = 3.43 gives p = .033
     // (SciPy 1.10.1 scipy.stats.f.sf(3.43, 2, 4038) = 0.0325, computed when the test was written).
