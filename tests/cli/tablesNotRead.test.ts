@@ -14,7 +14,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { scanTextJson } from './scanDocumentJson.js';
+import { scanDocumentJson, scanTextJson } from './scanDocumentJson.js';
+
+const scanDocumentJsonOf = (passage: string) => scanDocumentJson(join(__dirname, '..', 'corpus', 'real', 'passages', passage));
 import { htmlDocumentsData } from '../report/htmlData.js';
 import { readJsonReport } from '../../src/report/jsonLayoutSchema.js';
 
@@ -99,5 +101,12 @@ describe('a table that prints F and p without df', () => {
       ['t', -0.45, 0.655],
     ]);
     expect(document.tablesNotRead).toEqual([]);
+  });
+  it('lists a titled table of correlations whose long column names run over one line before its rows of numbers', () => {
+    // The table as a journal's table page gives it (tests/corpus/real/passages/dwaa-06.txt, CC BY 4.0): no reader
+    // takes it, and the audit says so instead of skipping its 33 correlations without a word.
+    const document = scanDocumentJsonOf('dwaa-06.txt');
+    expect(document.statistics).toEqual([]);
+    expect(document.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
   });
 });

@@ -167,13 +167,32 @@ function blockAfter(text: string, titleStart: number, titleEnd: number): { start
     const line = text.slice(at, next);
     // The first line under a bare title may be a long caption ("Results of the MANCOVAs, ANCOVAs, and ...").
     const caption = lines.every((earlier) => earlier.trim() === '') && line.length <= MAX_CAPTION_LINE;
-    // A long line is prose, unless it is mostly numbers (a whole table run onto one line).
-    if (TITLE.test(line) || (!caption && line.length > MAX_TABLE_LINE && !(line.length <= 4000 && digitShare(line) >= 0.25))) break;
+    // A long line is prose, unless it is mostly numbers (a whole table run onto one line), or a header of long
+    // column names over a row of numbers ("Relationship between baseline value and program dose (Spearman's rho)
+    // Relationship between …" over "Physical activity (# days/week > 30 min) 0.05 0.06 0.06").
+    if (TITLE.test(line) || (!caption && line.length > MAX_TABLE_LINE && !(line.length <= 4000 && digitShare(line) >= 0.25) && !headsNumbers(text, next))) break;
     lines.push(line);
     if (line.trim() !== '') end = next;
     at = next + 1;
   }
   return { start: titleStart, end, lines };
+}
+
+/** Longest line read as a header of long column names over rows of numbers. */
+const MAX_LONG_HEADER = 600;
+
+/** Whether the line ending at `lineEnd` is followed, after at most one line (a section's name), by a short line with three numbers or more. */
+function headsNumbers(text: string, lineEnd: number): boolean {
+  if (lineEnd - text.lastIndexOf('\n', lineEnd - 1) > MAX_LONG_HEADER) return false;
+  let at = lineEnd + 1;
+  for (let line = 0; line < 2 && at < text.length; line++) {
+    let next = text.indexOf('\n', at);
+    if (next === -1) next = text.length;
+    const row = text.slice(at, next);
+    if (row.length <= MAX_TABLE_LINE && (row.match(/\d*[.,]\d+/g) ?? []).length >= 3) return true;
+    at = next + 1;
+  }
+  return false;
 }
 
 /**
