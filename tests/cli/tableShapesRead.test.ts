@@ -783,6 +783,18 @@ describe('results tables in the shapes papers print them', () => {
     expect(statistics.filter(([value]) => value === 0.001)).toEqual([]);
   });
 
+  it('reads an HTML table left in Markdown whose head holds only its title ("<th>Table 7</th>"), its column names in the body', () => {
+    // The table as a paper stored as Markdown gives it (tests/corpus/real/passages/dwib-02.txt, CC BY 4.0): two models
+    // side by side, each row's z and p read per model.
+    const statistics = scanDocumentJson(join(__dirname, '..', 'corpus', 'real', 'passages', 'dwib-02.txt')).statistics;
+    expect(statistics.slice(0, 4).map((statistic) => [statistic.kind, statistic.value, statistic.p?.comparator, statistic.p?.value])).toEqual([
+      ['z', -7.65, '<', 0.001],
+      ['z', -5.78, '<', 0.001],
+      ['z', 24.14, '<', 0.001],
+      ['z', 12.96, '<', 0.001],
+    ]);
+  });
+
   it('reads a converted table\'s header cells broken by "<br>" and values in LaTeX dollars ("$68,527.167$", "$6.979 \\times 10^{-6}$")', () => {
     // Rows as a paper converted to Markdown gives them (tests/corpus/real/passages/dwka-01.txt, CC BY 4.0), crushed.
     const text = [

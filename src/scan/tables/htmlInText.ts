@@ -159,6 +159,19 @@ function readRows(table: Element, offset: number): ReadRows {
     }
   }
   const laidOut = layOutSpans(rows, { text: '', span: null });
+  // A header of the table's title alone ("<th>Table 7</th>" and empty cells, as converters set a title over the
+  // columns): the title is the caption, and the column names are found in the body's first rows.
+  const titleRows = headerRows > 0 && laidOut.slice(0, headerRows).every((row) => row.filter((cell) => cell.text.trim() !== '').length <= 1);
+  if (titleRows) {
+    const title = laidOut
+      .slice(0, headerRows)
+      .map((row) => row.map((cell) => cell.text.trim()).join(' ').trim())
+      .filter((text) => text !== '')
+      .join(' ');
+    caption ??= title === '' ? null : title;
+    laidOut.splice(0, headerRows);
+    headerRows = 0;
+  }
   return { rows: laidOut.map((row) => row.map((cell) => cell.text)), cells: laidOut.map((row) => row.map((cell) => cell.span)), headerRows, caption, notes };
 }
 
