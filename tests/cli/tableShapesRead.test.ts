@@ -783,6 +783,14 @@ describe('results tables in the shapes papers print them', () => {
     expect(statistics.filter(([value]) => value === 0.001)).toEqual([]);
   });
 
+  it('reads cells in a program\'s scientific notation with the exponent\'s sign set apart ("4.50380E + 0003")', () => {
+    // Rows as a journal's table page gives them (tests/corpus/real/passages/divr-02.txt, CC BY): a regression ANOVA whose
+    // model and lack-of-fit F are tested against the residual and pure error rows below them.
+    const statistics = scanDocumentJson(join(__dirname, '..', 'corpus', 'real', 'passages', 'divr-02.txt')).statistics.map((statistic) => [statistic.value, statistic.df]);
+    expect(statistics).toContainEqual([714.8885, [9, 9]]);
+    expect(statistics).toContainEqual([10.115, [5, 4]]);
+  });
+
   it('reads an HTML table left in Markdown whose head holds only its title ("<th>Table 7</th>"), its column names in the body', () => {
     // The table as a paper stored as Markdown gives it (tests/corpus/real/passages/dwib-02.txt, CC BY 4.0): two models
     // side by side, each row's z and p read per model.

@@ -41,7 +41,7 @@ const NOT_SIGNIFICANT = /^n\.?\s?s\.?$/i;
  * Groups: 1 comparator, 2 sign, 3 digits and separators, 4 exponent.
  */
 const NUMBER_CELL =
-  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*\{?([-\u2212+]?\s?\d{1,3})\}?)?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|\+|[a-h]{1,3})?$/;
+  /^(?:[pP]\s*)?(?:(<=|>=|\u2264|\u2265|<|>|=)\s*)?(?:([-\u2212\u2013+])\s*)?([\d.,]+)(?:\s*(?:[eE]|[x\u00d7]\s*10\^?)\s*\{?([-\u2212+]?\s?\d{1,4})\}?)?\s*(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|\(\*{1,3}\)|\+|[a-h]{1,3})?$/;
 
 /** "n.s." after a number ("0.07, n.s.", "0.45 NS", "0.30 (ns)"): a mark that the value is not significant. */
 const NS_AFTER_NUMBER = /(?<=\d[*a-h]{0,3}),?\s*\(?(?:[nN]\.\s?[sS]\.?|ns|NS)\)?$/;
@@ -136,7 +136,8 @@ function readPlainCell(cell: string, separator: DecimalSeparator): CellValue {
   if (plain === null) return { kind: 'text' };
   const sign = signText === '' || signText === '+' ? '' : '-';
   // (A superscript's minus a copy set apart from its digits, "× 10 − 5", is read as "e-5".)
-  const exponent = exponentText === undefined ? '' : `e${exponentText.replace('\u2212', '-').replace(' ', '')}`;
+  // ("4.50380E + 0003": a program's exponent with its sign set apart and padded with zeros, read as "e3".)
+  const exponent = exponentText === undefined ? '' : `e${exponentText.replace('\u2212', '-').replace(' ', '').replace('+', '').replace(/^(-?)0+(?=\d)/, '$1')}`;
   const number = parseReportedNumber(`${sign}${plain}${exponent}`);
   if (!number) return { kind: 'text' };
   const leading = cell.length - cell.trimStart().length;

@@ -189,7 +189,7 @@ function headsNumbers(text: string, lineEnd: number): boolean {
     let next = text.indexOf('\n', at);
     if (next === -1) next = text.length;
     const row = text.slice(at, next);
-    if (row.length <= MAX_TABLE_LINE && (row.match(/\d*[.,]\d+/g) ?? []).length >= 3) return true;
+    if (row.length <= MAX_TABLE_LINE && (row.match(/[.,]\d/g) ?? []).length >= 3) return true;
     at = next + 1;
   }
   return false;
