@@ -74,10 +74,12 @@ const scores = scoreCorpus(corpus);
 // 2026-12-05: a titled table whose long column names run over one line before its rows is listed as not read
 // (dwaa-06's 33 correlations), and an HTML table whose head holds only its title is read (dwib-02): tune
 // silent-miss ceiling 67 -> 23, as measured.
+// 2026-12-05, end of the session: tune table recall 0.84 -> 0.85 (0.851), tune text 0.96 -> 0.97 (0.971), tune
+// silent-miss ceiling 21, as measured.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
+    text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
     table: { recall: 0.54, precision: 0.96, maxFailRate: 0.01 },
@@ -202,7 +204,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 2 prose passages on 2026-12-05, prose batch: tune 45 -> 48 (dwec-01's three correlations), holdout 74 kept (73), as measured)
   // (2026-12-05, code-index prose batch: tune 91 -> 56 as measured; holdout 97 -> 100, the 3 results of the holdout
   // prose passage dwjb-02 whose F symbol was lost in extraction)
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 23, holdout: 114 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 21, holdout: 114 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
