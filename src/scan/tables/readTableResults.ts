@@ -2486,7 +2486,7 @@ function namesException(name: string, exception: NoteDfException): boolean {
 function withNamedExceptions(noteDf: NoteDf, names: readonly string[]): NoteDf {
   if (noteDf.exceptions === undefined) return noteDf;
   const named = noteDf.exceptions.every((exception) => names.some((name) => namesException(name, exception)));
-  return named ? noteDf : { pair: [], single: null, error: noteDf.error, ...(noteDf.besideTable ? { besideTable: true } : {}) };
+  return named ? noteDf : withoutNotePairs(noteDf);
 }
 
 /** "0.80a", "0.80 a", "χ2a": a cell or header ending in the footnote marker `mark` after a digit. */
