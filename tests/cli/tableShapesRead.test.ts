@@ -1113,4 +1113,31 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it('reads a table one cell per line or crushed whose header leaves a column of the rows without a name, on whichever side the rows fit', () => {
+    // An effect size printed as an image after "p" (its name lost), and a sum of squares without its name before "df".
+    const trailing = [['Source', 'df', 'F', 'p'], ['Group', '1', '3.67', '.066*', '.116'], ['Time', '2', '7.27', '.002**', '.206'], ['Error', '28']];
+    const leading = [['Source', 'df', 'F', 'p'], ['Group', '12.40', '1', '3.67', '.066'], ['Time', '30.12', '2', '7.27', '.002'], ['Error', '95.33', '28']];
+    for (const [name, rows] of [
+      ['unnamed last column', trailing],
+      ['unnamed first column', leading],
+    ] as const) {
+      for (const separator of ['\n\n', ' ']) {
+        const table = rows.map((row) => row.join(separator)).join(separator === ' ' ? '\n' : '\n\n');
+        const document = scanTextJson(`Table 4\n\nMixed ANOVA of the ratings\n\n${table}\n\nThe next section.\n`);
+        expect(readAs(document.statistics), `${name}, ${JSON.stringify(separator)}`).toEqual([
+          ['F', 3.67, [1, 28]],
+          ['F', 7.27, [2, 28]],
+        ]);
+      }
+    }
+  });
+
+  it('reads a crushed header with no name over its labels whose groups are named "Women n (%)" and "Men n (%)"', () => {
+    const document = scanTextJson(
+      'Table 2\nKnowledge of the condition by sex\nWomen n (%) Men n (%) Total N (240) Chi square value p value\nHeard of it\nYes 99 (82.5) 87 (72.5) 186 3.58 0.058\nNo 21 (17.5) 33 (27.5) 54\n\nNext.\n',
+    );
+    // (The group columns hold counts, so the chi-square is the only test, with its own p; its df is not printed.)
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([['chi2', 3.58, 0.058]]);
+  });
 });

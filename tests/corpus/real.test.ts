@@ -110,17 +110,21 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 // tables, join the renderings; crushed and aligned copies lose the four rows labelled "Objs * <br> methods" and one
 // cell per line the between-subjects rows: crushed 0.85 -> 0.84, aligned 0.85 -> 0.84, cell-per-line 0.78 -> 0.77,
 // page-break copies 0.84 -> 0.83, as measured.)
+// (2026-12-05, tenth session: a header that leaves one or two of the rows' columns without a name, in a copy that
+// keeps no positions, takes unnamed columns on the side the rows fit; a crushed header's first group named like the
+// later ones ("Pregnant women n (%)") is a column, not the label's name: crushed 0.846 -> 0.870, cell per line
+// 0.775 -> 0.785, consecutive lines 0.743 -> 0.752, crushed page-break 0.836 -> 0.859, crushed wrapped 0.823 -> 0.846.)
 const RENDERING_FLOORS: Record<Rendering, number> = {
   tabs: 0.99,
-  crushed: 0.84,
-  'cell-per-line': 0.77,
-  'consecutive-lines': 0.73,
+  crushed: 0.86,
+  'cell-per-line': 0.78,
+  'consecutive-lines': 0.75,
   aligned: 0.84,
   'tabs-page-break': 0.99,
-  'crushed-page-break': 0.83,
+  'crushed-page-break': 0.85,
   'aligned-page-break': 0.83,
   'tabs-wrapped-labels': 0.96,
-  'crushed-wrapped-labels': 0.82,
+  'crushed-wrapped-labels': 0.84,
   'aligned-wrapped-labels': 0.82,
 };
 

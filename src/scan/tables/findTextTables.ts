@@ -993,7 +993,8 @@ function readHeaderOf(line: Line): HeaderLine | null {
     index += length;
     // A group's name before what its column holds ("Group A M (SD)", "Men n (%)") is one column's name.
     const previous = columns[columns.length - 1];
-    if (role === 'descriptive' && columns.length > 1 && previous !== undefined && unknownRun === columns.length - 1) {
+    // (A count with its percentage too, "Men n (%)"; a bare "n" after unknown words is a column of its own: "1-β n".)
+    if ((role === 'descriptive' || (role === 'n' && phrase.text.includes('%'))) && columns.length > 1 && previous !== undefined && unknownRun === columns.length - 1) {
       columns[columns.length - 1] = { text: text.slice(previous.start, phrase.end), start: previous.start, end: phrase.end };
       unknownRun = -1;
       unknown--;
@@ -1003,6 +1004,7 @@ function readHeaderOf(line: Line): HeaderLine | null {
     columns.push(phrase);
     named++;
   }
+  withFirstGroupNamed(text, columns);
   // (One column's name is a header after a known label column's name, when it names a statistic: "Variable r (p)".)
   const labelNamed = columns[0]!.text !== '' && classifyHeader(columns[0]!.text).role === 'label';
   const oneStatistic = named === 1 && labelNamed && classifyHeader(columns[columns.length - 1]!.text).role === 'statistic';
@@ -1021,6 +1023,27 @@ function readHeaderOf(line: Line): HeaderLine | null {
   const lastNamesStatistic = classifyHeader(columns[columns.length - 1]!.text).role === 'statistic';
   const groupsThenTest = unknown === 1 && statisticNames >= 1 && (pNames >= 1 || lastNamesStatistic);
   return namesTest && (named >= 3 || statisticNames >= 2 || groupsThenTest) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
+}
+
+/**
+ * A crushed header with no name over its labels, whose first group's name was taken for one: "Pregnant women
+ * n (%) Non-pregnant mothers n (%) Chi square value p value" gave the label "Pregnant women" and a column
+ * "n (%)", while the second group kept its name ("Non-pregnant mothers n (%)"). When the column after the label
+ * is what a later group's column holds (the same words ending a later name), the label's words are the first
+ * group's name: the label column is left unnamed and the group's column named in full. Changes `columns` in place.
+ */
+function withFirstGroupNamed(text: string, columns: Piece[]): void {
+  const [label, first] = [columns[0], columns[1]];
+  if (label === undefined || first === undefined || label.text === '' || classifyHeader(label.text).role === 'label') return;
+  const firstRole = classifyHeader(first.text).role;
+  if (firstRole !== 'descriptive' && !(firstRole === 'n' && first.text.includes('%'))) return;
+  const key = headerKey(first.text);
+  const repeated = columns.slice(2).some((column) => {
+    const own = headerKey(column.text);
+    return own.length > key.length && own.endsWith(` ${key}`) && classifyHeader(column.text).role === 'unknown';
+  });
+  if (!repeated) return;
+  columns.splice(0, 2, { text: '', start: 0, end: 0 }, { text: text.slice(label.start, first.end), start: label.start, end: first.end });
 }
 
 /**

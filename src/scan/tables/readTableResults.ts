@@ -391,6 +391,11 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     rows = dfSplit.rows;
     located = dfSplit.located;
   }
+  const unnamed = dfSplit === null ? withUnnamedColumns(rows, headerCount, located, table.layout) : null;
+  if (unnamed !== null) {
+    rows = unnamed.rows;
+    located = unnamed.located;
+  }
   const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '));
   const families = columnFamilies(rows.slice(headerCount), baseSchema);
   const schema: Schema = families === undefined ? baseSchema : { ...baseSchema, families };
@@ -1119,6 +1124,71 @@ function splitDfHeaderOverPairs(
   return {
     rows: cut.map(({ cells }, index) => (index === headerCount - 1 ? widened : cells)),
     located: cut.map(({ at }, index) => (index === headerCount - 1 && headerAt ? [...headerAt.slice(0, column + 1), null, ...headerAt.slice(column + 1)] : at)),
+  };
+}
+
+/** The name given to a column the header leaves without one (see withUnnamedColumns). */
+const UNNAMED_COLUMN = '(no name)';
+/** How much better per full row one side of the header must fit its rows than the other to take unnamed columns. */
+const UNNAMED_SIDE_MARGIN = 0.75;
+/** Most columns a header may leave without a name and still be read. */
+const MAX_UNNAMED_COLUMNS = 2;
+
+/**
+ * A header that names fewer columns than the rows hold, in a copy that keeps no positions (one cell per line,
+ * crushed): "Source | df | F | p" over "Time 2 7.27 0.002** 0.206", whose last column (an effect size printed
+ * as an image, or a header cell lost in the copy) has no name. The header with as many unnamed columns as the
+ * full rows hold more, at its end or right after its label, whichever side lets every full row's cells fit the
+ * named columns (and only one side does); null otherwise. Rows print one or two values more at most; a header
+ * whose rows mostly hold as many values as it names is left alone.
+ */
+function withUnnamedColumns(
+  rows: string[][],
+  headerCount: number,
+  located: ((LocatedCell | null)[] | null)[],
+  layout: DocumentTable['layout'],
+): { rows: string[][]; located: ((LocatedCell | null)[] | null)[] } | null {
+  if (!UNPLACED_LAYOUTS.has(layout ?? '')) return null;
+  const header = trimTrailingEmpty(rows[headerCount - 1]!);
+  const roles = header.map((cell, column) => (column === 0 ? ({ role: 'label' } as ColumnRole) : classifyHeader(cell)));
+  // Every named column must be known: an unknown name may itself be the column the rows fill.
+  if (header.length < 3 || roles.slice(1).some((role) => role.role === 'unknown' || role.role === 'label' || role.role === 'result')) return null;
+  if (!roles.some((role) => role.role === 'statistic')) return null;
+  const body = rows.slice(headerCount).map(trimTrailingEmpty).filter((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
+  const widths = body.map((row) => row.length);
+  const widest = Math.max(0, ...widths);
+  const extra = widest - header.length;
+  if (extra < 1 || extra > MAX_UNNAMED_COLUMNS) return null;
+  const full = body.filter((row) => row.length === widest);
+  if (full.length < 2 || full.length * 2 < body.length) return null;
+  const padding = new Array<string>(extra).fill(UNNAMED_COLUMN);
+  const sides = [
+    { names: [...header, ...padding], at: header.length },
+    { names: [header[0]!, ...padding, ...header.slice(1)], at: 1 },
+  ];
+  // Each side's fit over the full rows: every cell must fit its named column, and one side must fit clearly
+  // better than the other ("1 3.666 0.066" fits "df F p"; "3.666" under df fits only as a corrected df).
+  const scores = sides.map(({ names }) => {
+    const sideRoles = names.map((cell, column) => (column === 0 || cell === UNNAMED_COLUMN ? null : classifyHeader(cell)));
+    let total = 0;
+    for (const row of full) {
+      for (let column = 1; column < row.length; column++) {
+        const role = sideRoles[column];
+        if (role === null || role === undefined) continue;
+        const score = fit(role, shapeOf(row[column]!));
+        if (score <= 0) return -Infinity;
+        total += score;
+      }
+    }
+    return total;
+  });
+  const best = scores[0]! >= scores[1]! ? 0 : 1;
+  if (!Number.isFinite(scores[best]!) || scores[best]! - scores[1 - best]! < UNNAMED_SIDE_MARGIN * full.length) return null;
+  const { names, at } = sides[best]!;
+  const headerAt = located[headerCount - 1];
+  return {
+    rows: rows.map((row, index) => (index === headerCount - 1 ? names : row)),
+    located: located.map((cells, index) => (index === headerCount - 1 && cells ? [...cells.slice(0, at), ...new Array<LocatedCell | null>(extra).fill(null), ...cells.slice(at)] : cells)),
   };
 }
 
