@@ -445,7 +445,15 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   const named = symbol.symbol === undefined ? statisticWordEnd(text, at, symbol.kind) : -1;
   if (named !== -1) at = named;
   // "F_(1,44)" / "F_{1,44}": a LaTeX-style subscript marker.
-  if (text.charCodeAt(at) === 95) at++;
+  // ("F_{(1, 42)}": the subscript's braces around bracketed df, closed after them.)
+  let subscriptBraces = false;
+  if (text.charCodeAt(at) === 95) {
+    at++;
+    if (text.charCodeAt(at) === 123 && (text.charCodeAt(at + 1) === 40 || text.charCodeAt(at + 1) === 91)) {
+      at++;
+      subscriptBraces = true;
+    }
+  }
 
   let dfRead: DfRead | null = symbol.subscriptDf === undefined ? null : { df: [symbol.subscriptDf], sampleSize: null, end: at, bracketed: false, doubtful: false };
   let brokenOverLines = false;
@@ -475,6 +483,10 @@ export function readStatisticHead(text: string, position: number): StatisticHead
   if (symbol.requiresBracketedDf && (dfRead === null || !dfRead.bracketed)) {
     if (!(symbol.acceptsTrailingDf === true && dfRead === null)) return null;
     needsTrailingDf = true;
+  }
+  if (subscriptBraces) {
+    if (dfRead === null || !dfRead.bracketed || text.charCodeAt(dfRead.end) !== 125) return null;
+    dfRead = { ...dfRead, end: dfRead.end + 1 };
   }
   if (dfRead !== null) at = dfRead.end;
   if (symbol.superscriptAfterDf === true) {
