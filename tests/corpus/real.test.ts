@@ -80,9 +80,13 @@ const scores = scoreCorpus(corpus);
 // Frontiers and PLOS ONE full texts as Markdown or PDF text; 6 tune, 6 holdout), as measured: tune text recall
 // 0.97 -> 0.96 (0.9651: dwnc-03's three display-TeX F with subscript df not read), holdout text recall 0.60 -> 0.59
 // (0.5949); silent-miss ceilings tune 21 -> 24, holdout 114 -> 125; tables unchanged.
+// 2026-12-05, tenth-session batch dwp: the corpus grew by 11 table passages (dwpa-01..dwpj-01, all tune: chi-square,
+// correlation and Wald tables from Hindawi, BMC, PMC and OMICS table pages; 63 readable labels, 12 of them read
+// before any tuning). As measured: tune table recall 0.85 -> 0.83 (0.834), tune table precision 0.99 kept (0.999,
+// 3 false alarms), tune all-labels 0.57 kept (0.574), tune silent-miss ceiling 21 kept (21); holdout unchanged.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
+    table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
     text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
