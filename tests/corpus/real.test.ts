@@ -76,13 +76,23 @@ const scores = scoreCorpus(corpus);
 // silent-miss ceiling 67 -> 23, as measured.
 // 2026-12-05, end of the session: tune table recall 0.84 -> 0.85 (0.851), tune text 0.96 -> 0.97 (0.971), tune
 // silent-miss ceiling 21, as measured.
+// 2026-12-05, tenth-session batch dwo: the corpus grew by 10 table passages (dwoa-01..dwoi-01; 8 tune, 2 holdout),
+// each from a paper not yet in it: BMC, SpringerOpen, PeerJ, PLOS ONE and Scientific Reports table pages and one
+// Scientific Reports PDF text whose tables come out column block by column block. As measured after them: tune table
+// recall 0.85 -> 0.80 (0.807: 141 new correlations in three matrices the scanner does not read, dwod-01, dwof-01,
+// dwoh-01), holdout table recall 0.54 -> 0.52 (0.528: dwog-01's 17 HLM t-ratios with an 'Approximatedf' column),
+// precision floors kept (tune 0.999, holdout 0.963: 2 false alarms more, in dwob-01); all-labels floors tune 0.57 ->
+// 0.56 (0.567), holdout 0.41 -> 0.40 (0.407); silent-miss ceilings tune 21 -> 69 (dwof-01's 48 Spearman cells lie
+// before and after the span of the table listed as not read, whose caption the PDF text prints below its body),
+// holdout 114 -> 121. Text floors and rendering floors unchanged (0.971 and 0.604; the new pipe table, dwoe-01, adds
+// no result read from pipe rows).
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
+    table: { recall: 0.8, precision: 0.99, maxFailRate: 0.01 },
     text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.54, precision: 0.96, maxFailRate: 0.01 },
+    table: { recall: 0.52, precision: 0.96, maxFailRate: 0.01 },
     text: { recall: 0.6, precision: 1, maxFailRate: 0.01 },
   },
 };
@@ -189,7 +199,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 7 passages on 2026-12-05, third batch: tune 0.57 kept (0.5890), holdout 0.49 -> 0.44 (0.4432:
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
   // (2026-12-05, code-index prose batch, no tables added: tune 0.57 -> 0.58 (0.584), holdout 0.42 kept (0.426), as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.41 };
+  // (2026-12-05, tenth-session batch dwo: tune 0.57 -> 0.56 (0.567), holdout 0.41 -> 0.40 (0.407), as measured)
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.56, holdout: 0.4 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -204,7 +215,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 2 prose passages on 2026-12-05, prose batch: tune 45 -> 48 (dwec-01's three correlations), holdout 74 kept (73), as measured)
   // (2026-12-05, code-index prose batch: tune 91 -> 56 as measured; holdout 97 -> 100, the 3 results of the holdout
   // prose passage dwjb-02 whose F symbol was lost in extraction)
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 21, holdout: 114 };
+  // (2026-12-05, tenth-session batch dwo: tune 21 -> 69, holdout 114 -> 121, as measured; see the note above FLOORS)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 69, holdout: 121 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
