@@ -84,14 +84,28 @@ const scores = scoreCorpus(corpus);
 // correlation and Wald tables from Hindawi, BMC, PMC and OMICS table pages; 63 readable labels, 12 of them read
 // before any tuning). As measured: tune table recall 0.85 -> 0.83 (0.834), tune table precision 0.99 kept (0.999,
 // 3 false alarms), tune all-labels 0.57 kept (0.574), tune silent-miss ceiling 21 kept (21); holdout unchanged.
+// 2026-12-05, tenth-session batch dwo: the corpus grew by 10 table passages (dwoa-01..dwoi-01; 8 tune, 2 holdout),
+// each from a paper not yet in it: BMC, SpringerOpen, PeerJ, PLOS ONE and Scientific Reports table pages and one
+// Scientific Reports PDF text whose tables come out column block by column block. As measured after them: tune table
+// recall 0.85 -> 0.80 (0.807: 141 new correlations in three matrices the scanner does not read, dwod-01, dwof-01,
+// dwoh-01), holdout table recall 0.54 -> 0.52 (0.528: dwog-01's 17 HLM t-ratios with an 'Approximatedf' column),
+// precision floors kept (tune 0.999, holdout 0.963: 2 false alarms more, in dwob-01); all-labels floors tune 0.57 ->
+// 0.56 (0.567), holdout 0.41 -> 0.40 (0.407); silent-miss ceilings tune 21 -> 69 (dwof-01's 48 Spearman cells lie
+// before and after the span of the table listed as not read, whose caption the PDF text prints below its body),
+// holdout 114 -> 121. Text floors and rendering floors unchanged (0.971 and 0.604; the new pipe table, dwoe-01, adds
+// no result read from pipe rows).
+// 2026-12-05, tenth session, the three batches merged (dwn, dwp, dwo) and an F's df in "F_{(1, 42)}" read: tune
+// table 0.79 (0.792), tune text 0.97 (0.973), holdout table 0.52 (0.528, precision 0.963), holdout text 0.64 (0.646,
+// precision 0.98 (0.984): one false alarm, a new held-out prose passage); all-labels tune 0.55 (0.559); silent-miss ceilings tune 69, holdout
+// 128, as measured.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.79, precision: 0.99, maxFailRate: 0.01 },
+    text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.54, precision: 0.96, maxFailRate: 0.01 },
-    text: { recall: 0.59, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.52, precision: 0.96, maxFailRate: 0.01 },
+    text: { recall: 0.64, precision: 0.98, maxFailRate: 0.01 },
   },
 };
 
@@ -201,7 +215,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (the corpus grew by 7 passages on 2026-12-05, third batch: tune 0.57 kept (0.5890), holdout 0.49 -> 0.44 (0.4432:
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
   // (2026-12-05, code-index prose batch, no tables added: tune 0.57 -> 0.58 (0.584), holdout 0.42 kept (0.426), as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.41 };
+  // (2026-12-05, tenth-session batch dwo: tune 0.57 -> 0.56 (0.567), holdout 0.41 -> 0.40 (0.407), as measured)
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.55, holdout: 0.4 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -217,7 +232,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (2026-12-05, code-index prose batch: tune 91 -> 56 as measured; holdout 97 -> 100, the 3 results of the holdout
   // prose passage dwjb-02 whose F symbol was lost in extraction)
   // (2026-12-05, tenth-session batch dwn, 12 prose passages: tune 21 -> 24, holdout 114 -> 125, as measured)
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 24, holdout: 125 };
+  // (2026-12-05, tenth-session batch dwo: tune 21 -> 69, holdout 114 -> 121, as measured; see the note above FLOORS)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 69, holdout: 128 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
