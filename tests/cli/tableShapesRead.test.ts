@@ -1140,4 +1140,23 @@ describe('results tables in the shapes papers print them', () => {
     // (The group columns hold counts, so the chi-square is the only test, with its own p; its df is not printed.)
     expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([['chi2', 3.58, 0.058]]);
   });
+
+  it('never reads a row of percentages under the df and chi-square columns when the header names neither of its columns', () => {
+    // Pre and post percentages whose names the copy set on a line of their own; the last category's row prints
+    // only its two percentages (its test is the row above's).
+    const cells = ['Variables', 'Df', 'χ2', 'η2', 'p value', 'Pre (%) Post (%)'];
+    const rows = [
+      ['Good knowledge', '4.1', '31.5', '2', '212.4', '0.51', 'p < 0.001'],
+      ['Good practice', '1.2', '28.7', '2', '61.9', '0.44', 'p < 0.001'],
+      ['Negative attitude', '22.6', '1.3', '1', '98.12', '0.29', 'p < 0.001'],
+      ['Positive attitude', '77.4', '98.7'],
+    ];
+    const table = [...cells, ...rows.flat()].join('\n\n');
+    const document = scanTextJson(`Table 6 Knowledge before and after the campaign\n\n${table}\n\nNext.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 212.4, [2]],
+      ['chi2', 61.9, [2]],
+      ['chi2', 98.12, [1]],
+    ]);
+  });
 });

@@ -160,6 +160,15 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Growth differed between the diets (F2/87 = 4.10, P = 0.020).\n')).toEqual([['F', [2, 87], 4.1, '= 0.020']]);
   });
 
+  it('reads an F whose df stand in brackets inside a LaTeX subscript\'s braces ("$$F_{(1, 42)} = 17.68, p < 0.05$$")', () => {
+    // F(1, 42) = 17.68 gives p = .00013 and F(1, 42) = 2.58 gives p = .116 (SciPy 1.10.1 scipy.stats.f.sf, computed when
+    // the test was written). (The form as a converted article gives it: tests/corpus/real/passages/dwnc-03.txt.)
+    expect(readAll('The main effect of condition was significant [$$F_{(1, 42)} = 17.68, p < 0.05$$], that of week was not [$F_{(1,42)}=2.58$, $p = 0.12$].\n')).toEqual([
+      ['F', [1, 42], 17.68, '< 0.05'],
+      ['F', [1, 42], 2.58, '= 0.12'],
+    ]);
+  });
+
   it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
     // chi2(2) = 7.2 gives p = .027 and chi2(1) = 4.10 gives p = .043 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
     // (The first sentence as a journal's figure page gives it: tests/corpus/real/passages/dwfk-01.txt.)

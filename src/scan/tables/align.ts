@@ -278,21 +278,38 @@ function dfFit(cell: CellShape): number {
  * The form a column's values take: plain numbers, or numbers with a bracket
  * ("0.048* (0.51)", "4.842 (15)", "0.31 [0.12, 0.50]").
  */
-export type ShapeFamily = 'plain' | 'bracketed';
+/**
+ * The form a column's cells take: whole numbers ("2", "57": df, counts), other plain numbers, or numbers with a
+ * bracket ("4.21 (2, 57)"). A column of whole numbers also holds plain ones where some rows print decimals.
+ */
+export type ShapeFamily = 'whole' | 'plain' | 'bracketed';
 
 export function familyOf(shape: CellShape): ShapeFamily | null {
-  if (shape.shape === 'number') return 'plain';
+  if (shape.shape === 'number') return shape.decimals === 0 && shape.comparator === '' ? 'whole' : 'plain';
   if (shape.shape === 'number-bracket' || shape.shape === 'number-interval') return 'bracketed';
   return null;
+}
+
+/** The family of a column whose cells so far were of `before` and now include one of `next` (null: mixed). */
+export function joinFamilies(before: ShapeFamily, next: ShapeFamily): ShapeFamily | null {
+  if (before === next) return before;
+  if (before === 'bracketed' || next === 'bracketed') return null;
+  return 'plain';
 }
 
 /** What a cell of the other family costs in a column whose full rows all hold one family (a column's cells share a form). */
 const OTHER_FAMILY_COST = 3;
 
+/**
+ * A cell's fit to a column's family: a bracketed cell where every full row holds plain numbers, or the reverse,
+ * and a number with decimals where every full row holds whole numbers (a percentage under a df column: "75.2"
+ * under "Df" over "2", "2", "1"), cost OTHER_FAMILY_COST.
+ */
 function familyFit(family: ShapeFamily | null, shape: CellShape): number {
   if (family === null) return 0;
   const own = familyOf(shape);
-  return own !== null && own !== family ? -OTHER_FAMILY_COST : 0;
+  if (own === null || own === family) return 0;
+  return family === 'plain' && own === 'whole' ? 0 : -OTHER_FAMILY_COST;
 }
 
 /** A cell to place, as written, with its shape. */

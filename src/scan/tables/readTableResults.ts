@@ -46,7 +46,7 @@ import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
-import { familyOf, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
+import { familyOf, joinFamilies, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -954,6 +954,8 @@ interface Schema {
   families?: (ShapeFamily | null)[];
   /** Columns whose header names an interval ("95% CI"), when any does. */
   intervals?: boolean[];
+  /** Columns the header left without a name, given one by withUnnamedColumns: value columns wherever they stand. */
+  unnamedColumns?: boolean[];
 }
 
 /** Body rows whose cells are not at the header's positions: rebuilt from crushed text. */
@@ -1083,7 +1085,8 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
   if (positional) splitSpanningDf(roles, named, body);
   calculatedF(roles, headerTexts[headerTexts.length - 1] ?? []);
   const intervals = (headerRows[headerRows.length - 1] ?? []).map((cell) => INTERVAL_HEADER.test(cell) && classifyHeader(cell).role === 'descriptive');
-  return { roles, titles, positional, named, ...(intervals.some(Boolean) ? { intervals } : {}) };
+  const unnamedColumns = (headerRows[headerRows.length - 1] ?? []).map((cell) => cell === UNNAMED_COLUMN);
+  return { roles, titles, positional, named, ...(intervals.some(Boolean) ? { intervals } : {}), ...(unnamedColumns.some(Boolean) ? { unnamedColumns } : {}) };
 }
 
 /** The name given to the second of two df columns under one "df" header (see splitDfHeaderOverPairs). */
@@ -1166,24 +1169,35 @@ function withUnnamedColumns(
     { names: [...header, ...padding], at: header.length },
     { names: [header[0]!, ...padding, ...header.slice(1)], at: 1 },
   ];
-  // Each side's fit over the full rows: every cell must fit its named column, and one side must fit clearly
-  // better than the other ("1 3.666 0.066" fits "df F p"; "3.666" under df fits only as a corrected df).
-  const scores = sides.map(({ names }) => {
+  // Each side's fit over the full rows: the rows whose every cell fits its named column, and their total fit. One
+  // side must fit all full rows but one at most (a cell damaged in the copy, "0. 36"), and fit more of them, or as
+  // many clearly better, than the other ("1 3.666 0.066" fits "df F p"; "3.666" under df fits only as a corrected df).
+  const fits = sides.map(({ names }) => {
     const sideRoles = names.map((cell, column) => (column === 0 || cell === UNNAMED_COLUMN ? null : classifyHeader(cell)));
+    let rows = 0;
     let total = 0;
     for (const row of full) {
-      for (let column = 1; column < row.length; column++) {
+      let rowTotal = 0;
+      let fitsRow = true;
+      for (let column = 1; column < row.length && fitsRow; column++) {
         const role = sideRoles[column];
         if (role === null || role === undefined) continue;
         const score = fit(role, shapeOf(row[column]!));
-        if (score <= 0) return -Infinity;
-        total += score;
+        if (score <= 0) fitsRow = false;
+        rowTotal += score;
       }
+      if (!fitsRow) continue;
+      rows++;
+      total += rowTotal;
     }
-    return total;
+    return { rows, total };
   });
-  const best = scores[0]! >= scores[1]! ? 0 : 1;
-  if (!Number.isFinite(scores[best]!) || scores[best]! - scores[1 - best]! < UNNAMED_SIDE_MARGIN * full.length) return null;
+  const [end, start] = [fits[0]!, fits[1]!];
+  const best = end.rows !== start.rows ? (end.rows > start.rows ? 0 : 1) : end.total >= start.total ? 0 : 1;
+  const winner = fits[best]!;
+  const other = fits[1 - best]!;
+  if (winner.rows < Math.max(2, full.length - 1)) return null;
+  if (winner.rows === other.rows && winner.total - other.total < UNNAMED_SIDE_MARGIN * winner.rows) return null;
   const { names, at } = sides[best]!;
   const headerAt = located[headerCount - 1];
   return {
@@ -1654,7 +1668,7 @@ function valueColumnsOf(schema: Schema): { role: ColumnRole; column: number }[] 
   const firstKnown = schema.roles.findIndex((role, column) => column > 0 && isValueRole(role) && role.role !== 'unknown');
   return schema.roles
     .map((role, column) => ({ role, column }))
-    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || (schema.named[column] && column > firstKnown)));
+    .filter(({ role, column }) => column > 0 && isValueRole(role) && (role.role !== 'unknown' || (schema.named[column] && (column > firstKnown || schema.unnamedColumns?.[column] === true))));
 }
 
 /**
@@ -1681,7 +1695,7 @@ function columnFamilies(body: string[][], schema: Schema): (ShapeFamily | null)[
       const family = familyOf(shape);
       const before = seen[slot]!;
       if (family === null || before === 'mixed') return;
-      seen[slot] = before === null || before === family ? family : 'mixed';
+      seen[slot] = before === null ? family : (joinFamilies(before, family) ?? 'mixed');
     });
   }
   if (fullRows < 2) return undefined;
