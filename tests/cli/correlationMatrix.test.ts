@@ -128,4 +128,39 @@ describe('correlation matrices in other common layouts, from the command line', 
     ].join('\n');
     expect(read(text).map((statistic) => statistic.value)).toEqual([0.12, -0.08, 0.25, 0.31, 0.52]);
   });
+
+  it('reads a crushed matrix numbered in its header ("Factors 1 2 3 4") whose labels carry their number at the end ("Policy (1)")', () => {
+    // The layout of a journal's table page as text (tests/corpus/real/passages/dwod-01.txt, CC BY); the numbers are made up.
+    const text = [
+      'Table 3. Pearson correlation coefficients between the factors.',
+      '',
+      'Factors 1 2 3 4',
+      'School policy (1) 1',
+      'Community links (2) .214** 1',
+      'Health lessons (3) .362** .027 1',
+      'Sport and play (4) .405** .061 .133* 1',
+      '',
+      '*p < 0.05; **p < 0.01.',
+    ].join('\n');
+    const correlations = scanTextJson(`${text}\n`).statistics.filter((statistic) => statistic.kind === 'r');
+    expect(correlations.map((statistic) => [statistic.value, statistic.p?.comparator, statistic.p?.value])).toEqual([
+      [0.214, '<', 0.01],
+      [0.362, '<', 0.01],
+      [0.027, undefined, undefined],
+      [0.405, '<', 0.01],
+      [0.061, undefined, undefined],
+      [0.133, '<', 0.05],
+    ]);
+  });
+
+  it('reads an upper triangle whose rows are labelled by their number alone, its columns numbered and then lettered', () => {
+    // The layout of a journal's table page as text (tests/corpus/real/passages/dwoh-01.txt, CC BY): each row starts
+    // with its diagonal 1 after runs of spaces; the numbers are made up. (This layout once stopped the whole document
+    // with an internal error.)
+    const text = ['Table 4 Spearman correlation coefficients between variables', '', '  1 2 3 a b', '1 1 0.247* 0.303* 0.116* 0.052', '2   1 0.423* 0.098 0.131*', '3    1 0.201* − 0.015', '', '*p < 0.05'].join('\n');
+    const document = scanTextJson(`${text}\n`);
+    expect(document.statistics.filter((statistic) => statistic.kind === 'r').map((statistic) => statistic.value)).toEqual([0.247, 0.303, 0.116, 0.052, 0.423, 0.098, 0.131, 0.201, -0.015]);
+    const numbersOnly = ['Table 4 Spearman correlation coefficients between variables', '', '  1 2 3 4', '1 1 0.247* 0.303* 0.306*', '2   1 0.423* 0.316*', '3    1 0.409*', '4     1', '', '*p < 0.05'].join('\n');
+    expect(scanTextJson(`${numbersOnly}\n`).statistics.map((statistic) => statistic.value)).toEqual([0.247, 0.303, 0.306, 0.423, 0.316, 0.409]);
+  });
 });

@@ -243,6 +243,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   }
   let pendingText: Cell[] = [];
   let index = 0;
+  // (A header that took every cell leaves no body: no table.)
+  if (process.env.DBGC) console.error("bodyStart", bodyStart, cells.length, JSON.stringify(grid));
+  if (bodyStart >= cells.length) return null;
   let lastLine = cells[bodyStart]!.line;
   while (index < body.length) {
     const cell = body[index]!;
@@ -430,6 +433,8 @@ function gridHeader(cells: Cell[], titleLine: number): { first: number; bodyStar
   const labelCount = typicalLabelCount(body);
   if (valueCount < 2) return null;
   const bodyStart = firstValue - labelCount;
+  // (More label cells than stand before the first value: the lines are no grid.)
+  if (bodyStart < 0) return null;
   const header = cells.slice(0, bodyStart).filter((cell) => !cell.empty && !FROM_LINE.test(cell.text) && cell.line > titleLine);
   const names = header.slice(header.length - valueCount);
   if (names.length < valueCount || names.some((cell) => isValueCell(cell))) return null;

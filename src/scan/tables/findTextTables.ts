@@ -1340,6 +1340,35 @@ function withoutTrailingMarks(name: string): string {
   return name.slice(0, end);
 }
 
+/** Fewest numbered columns a correlation block's header names. */
+const MIN_NUMBERED_COLUMNS = 3;
+
+/** Whether the tokens are at most a few words, then the numbers 1, 2, 3, … in order ("Factors 1 2 3 4 5"). */
+function numberedColumns(tokens: readonly Piece[]): boolean {
+  const first = tokens.findIndex((token) => /^\d/.test(token.text));
+  if (first < 0 || first > MAX_LABEL_WORDS || tokens.length - first < MIN_NUMBERED_COLUMNS) return false;
+  // (Numbered columns may go on lettered, "… 12 13 a b c", variables of a second kind.)
+  let letters = 0;
+  return tokens.slice(first).every((token, offset) => {
+    if (letters === 0 && token.text === String(offset + 1)) return true;
+    if (token.text !== String.fromCharCode(97 + letters)) return false;
+    letters++;
+    return true;
+  });
+}
+
+/**
+ * Under numbered (and lettered) columns, a row labelled by its number alone ("2   1 0.423* …"): the label's length in
+ * tokens (1) when the line's first token is the `rowIndex`-th column's name, 0 otherwise.
+ */
+function numberLabelLength(tokens: readonly Piece[], header: readonly string[] | undefined, rowIndex: number): number {
+  if (header === undefined || !numberedColumns(header.filter((text) => text !== '').map((text) => ({ text, start: 0, end: 0 })))) return 0;
+  const names = header.slice(header.findIndex((text) => /^\d/.test(text)));
+  return tokens.length >= 2 && tokens[0]!.text === names[rowIndex] ? 1 : 0;
+}
+
+/** A row label's number in brackets at its end, "School health policy (1)" (group: the number). */
+const TRAILING_NUMBER = /\((\d{1,2})\)$/;
 /** Share of a correlation block's rows whose label names a column too. */
 const MIN_MATRIX_ROW_SHARE = 0.7;
 /** Most rows read for one correlation block. */
@@ -1376,6 +1405,12 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     const tokens = tokenize(line.text);
     // (A label and a dash alone is the matrix's first row, its diagonal: "Anxiety —".)
     const diagonalOnly = tokens.length >= 2 && /^[-\u2013\u2014\u2212]$/.test(tokens[tokens.length - 1]!.text);
+    // (Columns numbered 1, 2, 3, … after the labels' name, "Factors 1 2 3 4", are a header, not a row.)
+    if (numberedColumns(tokens)) {
+      // (Without a name over the labels, the header's first cell is that empty name.)
+      headers.push([...(/^\d/.test(tokens[0]!.text) ? [''] : []), ...tokens.map((token) => token.text)]);
+      continue;
+    }
     if (line.text.length > MAX_ROW_LENGTH || diagonalOnly || tokens.some((token) => isValueToken(token.text) && /\d/.test(token.text))) break;
     // A header with known column names ("r (P value)", "M SD r p") is read by the other readers.
     if (readHeader(line) !== null) return null;
@@ -1392,7 +1427,8 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     if (rows.length > 0 && isPageFurniture(line.text) && rowOfWidthFollows(lines, index, valuesWithoutMarks(rows[rows.length - 1]!.slice(1)))) continue;
     if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
     const tokens = tokenize(line.text);
-    const first = tokens.findIndex((token) => isValueToken(token.text));
+    const numberLabel = numberLabelLength(tokens, headers[headers.length - 1], rows.length);
+    const first = numberLabel > 0 ? numberLabel : tokens.findIndex((token) => isValueToken(token.text));
     // A label the page wrapped over two lines, numbered ("1. SPAS a" / "Total Score - - -") or going on in small
     // letters ("Spatial-temporal parameters Gait" / "speed 0.449 †† 0.430 ††"): one row.
     const wrapped = first === -1 ? wrappedLabelRow(line, lines[index + 1], true) : null;
@@ -1410,7 +1446,8 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   // Without known column names, the structure must show itself: the columns are named by the rows' own labels (a
   // matrix), or the table is left to be listed as not read.
   const named = new Set(header.map(withoutTrailingMarks));
-  const matrixRows = rows.filter((row) => named.has(withoutTrailingMarks(row[0]!.split(' ')[0]!))).length;
+  // (A label may carry its column's number at its end instead, "School health policy (1)" under "Factors 1 2 3".)
+  const matrixRows = rows.filter((row) => named.has(withoutTrailingMarks(row[0]!.split(' ')[0]!)) || named.has(TRAILING_NUMBER.exec(row[0]!)?.[1] ?? '\u0000')).length;
   // Or a rectangle: every row gives the same number k of correlations (marks apart), and the header's last k
   // words name the k columns ("Gait Variables MMSE ACE-R" over "Gait speed 0.449 †† 0.430 ††").
   const rectangle = matrixRows < MIN_MATRIX_ROW_SHARE * rows.length ? rectangleHeader(header, rows) : null;

@@ -49,6 +49,8 @@ export interface MatrixInput {
 const COLUMN_NUMBER = /^\(?(\d{1,2})[.)]?$/;
 /** A row label that starts with the variable's number: "1. GAD", "(2) Age", "3 BDI". */
 const ROW_NUMBER = /^\(?(\d{1,2})[.)]?\s+(\S.*)$/;
+/** A row label that is the variable's number alone: "2". */
+const NUMBER_ALONE = /^(\d{1,2})$/;
 /** The diagonal as printed: a dash, a correlation of 1, or a reliability in brackets ("(.89)"). */
 /** A cell that stands for no value: a dash of any kind. */
 const PLACEHOLDER = /^[-\u2013\u2014\u2212]$/;
@@ -331,11 +333,16 @@ function numberedColumns(row: readonly string[]): ColumnRange | null {
   // A trailing pipe leaves an empty cell after the last number ("| 19 | 20 |").
   let end = row.length;
   while (end > 1 && row[end - 1]!.trim() === '') end--;
-  let first = end;
+  // Columns lettered after the numbered ones ("… 12 13 a b c"), variables of a second kind, go on counting.
+  let lettersFrom = end;
+  while (lettersFrom > 1 && /^[a-z]$/.test(row[lettersFrom - 1]!.trim())) lettersFrom--;
+  const letters = row.slice(lettersFrom, end).map((cell) => cell.trim());
+  if (!letters.every((letter, index) => letter === String.fromCharCode(97 + index))) return null;
+  let first = lettersFrom;
   while (first > 1 && COLUMN_NUMBER.test(row[first - 1]!.trim())) first--;
-  const numbers = row.slice(first, end).map((cell) => Number(COLUMN_NUMBER.exec(cell.trim())![1]));
+  const numbers = row.slice(first, lettersFrom).map((cell) => Number(COLUMN_NUMBER.exec(cell.trim())![1]));
   if (numbers.length < 2 || numbers[0]! < 1 || !numbers.every((number, index) => number === numbers[0]! + index)) return null;
-  return { first: numbers[0]!, last: numbers[numbers.length - 1]! };
+  return { first: numbers[0]!, last: numbers[numbers.length - 1]! + letters.length };
 }
 
 /** The numbered body rows with their value cells (marks standing as cells of their own joined to their value). */
@@ -345,7 +352,8 @@ function matrixRows(input: MatrixInput, headerIndex: number, pInBrackets = false
     if (rowIndex <= headerIndex) return;
     // The variable's number and its name in one cell ("1. Anxiety") or in two ("1 | Anxiety").
     const numberApart = COLUMN_NUMBER.test((row[0] ?? '').trim()) && shapeOf((row[1] ?? '').trim()).shape === 'text';
-    const label = ROW_NUMBER.exec(numberApart ? `${(row[0] ?? '').trim()} ${(row[1] ?? '').trim()}` : (row[0] ?? '').trim());
+    // (Or the number alone, its name given in the notes: "2 | 1 | 0.42*".)
+    const label = ROW_NUMBER.exec(numberApart ? `${(row[0] ?? '').trim()} ${(row[1] ?? '').trim()}` : (row[0] ?? '').trim()) ?? NUMBER_ALONE.exec((row[0] ?? '').trim());
     const at = input.located[rowIndex];
     if (label === null || at === null || at === undefined) return;
     const values: ValueCell[] = [];
@@ -359,7 +367,7 @@ function matrixRows(input: MatrixInput, headerIndex: number, pInBrackets = false
     }
     // Dashes filling the other triangle ("0.58** | – | – | –") stand for no value; a row is read from its end.
     while (values.length > 0 && PLACEHOLDER.test(values[values.length - 1]!.number) && values[values.length - 1]!.marks === '') values.pop();
-    rows.push({ variable: Number(label[1]), name: label[2]!.trim(), rowIndex, values });
+    rows.push({ variable: Number(label[1]), name: (label[2] ?? '').trim(), rowIndex, values });
   });
   return rows;
 }

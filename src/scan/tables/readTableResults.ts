@@ -1157,6 +1157,10 @@ function withUnnamedColumns(
   // Every named column must be known: an unknown name may itself be the column the rows fill.
   if (header.length < 3 || roles.slice(1).some((role) => role.role === 'unknown' || role.role === 'label' || role.role === 'result')) return null;
   if (!roles.some((role) => role.role === 'statistic')) return null;
+  // Only where the header ties df to the statistic (a df column, or df in its name): a value the rows' extra columns
+  // leave without df is too loose a reading ("Measure F p" over "Anxiety 12.1 3.2 4.21 .020").
+  const dfTied = roles.some((role) => role.role === 'df' || role.role === 'df1' || role.role === 'df2' || (role.role === 'statistic' && (role.df.length > 0 || role.dfInCell === true)));
+  if (!dfTied) return null;
   const body = rows.slice(headerCount).map(trimTrailingEmpty).filter((row) => row.slice(1).some((cell) => readCell(cell, 'either').kind === 'number'));
   const widths = body.map((row) => row.length);
   const widest = Math.max(0, ...widths);
