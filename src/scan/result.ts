@@ -88,6 +88,18 @@ function readTail(text: string, draft: ResultDraft): boolean {
         continue;
       }
     }
+    // A statistic alone on its line, as a copy that puts each table cell on its own line gives it, with its p alone
+    // on the next line after a blank one ("F1,24 = 0.08" / "" / "p = 0.78"): the p cell is the result's.
+    if (last === 'head' && draft.p === null) {
+      const below = pCellBelow(text, draft.head.start, position);
+      if (below !== null) {
+        draft.p = below;
+        directP = true;
+        position = draft.end = below.end;
+        last = 'p';
+        continue;
+      }
+    }
     const next = skipSeparators(text, position);
     if (next >= text.length || startsResult(text, next)) break;
 
@@ -276,6 +288,86 @@ function withSampleSizeBefore(text: string, position: number, draft: ResultDraft
 function hasEffectOfKind(draft: ResultDraft, kind: ReportedEffect['kind']): boolean {
   for (const effect of draft.effects) if (effect.kind === kind) return true;
   return false;
+}
+
+/** Most blank lines between a statistic's cell and its p's cell (one cell per line, blank lines between). */
+const MAX_BLANK_LINES_TO_P_CELL = 2;
+/** Longest p cell read below a statistic's cell ("p = 0.0001***"). */
+const MAX_P_CELL = 24;
+
+/**
+ * The p standing alone on a line just below a statistic that stands alone on its own line (from `headStart`
+ * to `valueEnd`, nothing else on the line but spaces and a cell's pipe), blank lines between; null otherwise.
+ * Only a whole line that is a p ("p = 0.78", "P < .001*"): a line of prose after a table is no cell.
+ */
+function pCellBelow(text: string, headStart: number, valueEnd: number): ReportedP | null {
+  const lineStart = text.lastIndexOf('\n', headStart - 1) + 1;
+  if (!onlyCellSpace(text, lineStart, headStart)) return null;
+  let lineEnd = text.indexOf('\n', valueEnd);
+  if (lineEnd < 0 || !onlyCellSpace(text, valueEnd, lineEnd)) return null;
+  let blank = 0;
+  for (;;) {
+    const next = lineEnd + 1;
+    const nextEnd = text.indexOf('\n', next);
+    const end = nextEnd < 0 ? text.length : nextEnd;
+    if (onlyCellSpace(text, next, end)) {
+      if (++blank > MAX_BLANK_LINES_TO_P_CELL || nextEnd < 0) return null;
+      lineEnd = nextEnd;
+      continue;
+    }
+    let first = next;
+    while (first < end && (isSpaceCode(text.charCodeAt(first)) || text.charCodeAt(first) === 124)) first++;
+    if (end - first > MAX_P_CELL || (text.charCodeAt(first) !== 112 && text.charCodeAt(first) !== 80)) return null;
+    const p = readPValue(text, first, true);
+    if (p === null || !onlyCellSpace(text, p.end, end, true)) return null;
+    // Cells alternate, statistic then p, in a row's cells; a run of statistics then a run of p's is a table on its
+    // side (the row of F's, then the row of their p's): the p below the last F is the first F's.
+    const before = neighbourCell(text, lineStart, -1);
+    const after = neighbourCell(text, end, 1);
+    if (before !== null && before.charCodeAt(0) === text.charCodeAt(headStart) && /[=<>]/.test(before)) return null;
+    if (after !== null && /^[pP] ?[=<>\u2264\u2265]/.test(after)) return null;
+    return p;
+  }
+}
+
+/** Most lines looked past for a neighbouring cell (blank lines and lines of a pipe alone). */
+const MAX_LINES_TO_NEIGHBOUR = 4;
+
+/**
+ * The trimmed text of the nearest line with more than spaces and pipes before the line starting at `from`
+ * (`direction` -1) or after the line ending at `from` (1); null when none is near.
+ */
+function neighbourCell(text: string, from: number, direction: -1 | 1): string | null {
+  let at = from;
+  for (let lines = 0; lines < MAX_LINES_TO_NEIGHBOUR; lines++) {
+    let start: number;
+    let end: number;
+    if (direction < 0) {
+      if (at <= 0) return null;
+      end = at - 1;
+      start = text.lastIndexOf('\n', end - 1) + 1;
+      at = start;
+    } else {
+      if (at >= text.length) return null;
+      start = at + 1;
+      const next = text.indexOf('\n', start);
+      end = next < 0 ? text.length : next;
+      at = end;
+    }
+    if (!onlyCellSpace(text, start, end)) return text.slice(start, end).replace(/\|/g, ' ').trim();
+  }
+  return null;
+}
+
+/** Whether text[from, to) holds only spaces and a cell's pipe (and, when `marks`, significance marks). */
+function onlyCellSpace(text: string, from: number, to: number, marks = false): boolean {
+  for (let at = from; at < to; at++) {
+    const code = text.charCodeAt(at);
+    if (isSpaceCode(code) || code === 124 || code === 13) continue;
+    if (marks && (code === 42 || code === 0x2020 || code === 0x2021)) continue;
+    return false;
+  }
+  return true;
 }
 
 /**

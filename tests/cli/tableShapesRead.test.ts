@@ -1159,4 +1159,20 @@ describe('results tables in the shapes papers print them', () => {
       ['chi2', 98.12, [1]],
     ]);
   });
+
+  it('gives a statistic standing alone on its line the p standing alone on the next, one cell per line, but never a line of prose', () => {
+    // The layout of a journal's table page as text (tests/corpus/real/passages/dwmb-01.txt, CC BY): columns named by
+    // conditions no vocabulary knows, each cell "F1,24 = …" then "p = …"; the numbers are made up. (F(1, 24) = 4.31
+    // gives p = .049, F(1, 24) = 0.60 gives p = .446, F(1, 30) = 7.12 gives p = .012: SciPy 1.10.1
+    // scipy.stats.f.sf, computed when the test was written.)
+    const cells = ['Morning', 'Afternoon', 'Cortisol', 'F1,24 = 4.31', 'p = 0.049', 'F1,24 = 0.60', 'p = 0.45', 'F1,30 = 7.12', 'p = 0.012*'];
+    const document = scanTextJson(`Table 1 Results of the assays\n\n${cells.join('\n\n')}\n\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.df, statistic.value, statistic.p?.value])).toEqual([
+      ['F', [1, 24], 4.31, 0.049],
+      ['F', [1, 24], 0.6, 0.45],
+      ['F', [1, 30], 7.12, 0.012],
+    ]);
+    const prose = scanTextJson('The interaction was small, F(1, 24) = 0.60\n\np values below were adjusted.\n');
+    expect(prose.statistics.map((statistic) => statistic.p)).toEqual([null]);
+  });
 });

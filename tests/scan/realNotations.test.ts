@@ -180,9 +180,10 @@ describe('"not significant" written out, and other damage real pages carry', () 
     expect(result.p?.value.text).toBe('.044');
   });
 
-  it('does not take the p of the next table row (a line that ends in a pipe ends the row)', () => {
-    const [first] = scanText('F = 14.272 |\np = 0.001* |').results;
-    expect(first?.p ?? null).toBeNull();
+  it('does not take the p of the next table row (a line that ends in a pipe ends the row; the p row of a table on its side)', () => {
+    // (tests/corpus/real/passages/diva-06.txt: a row of F's, each cell on its line, then the row of their p's.)
+    const results = scanText('F(2, 24) = 43.408 |\nF(2, 24) = 14.272 |\np = 0.001* |\np = 0.022* |').results;
+    expect(results.map((result) => result.p ?? null)).toEqual([null, null]);
   });
 
   it('reads a p with a footnote letter, "p = .12e", and a value with footnote letters after bracketed df', () => {
@@ -208,9 +209,11 @@ describe('a result broken over two cells of a copy with one cell per line', () =
     expect(result?.p?.value.text).toBe('0.05');
   });
 
-  it('does not cross a blank line without the comma, nor two blank lines', () => {
-    expect(scanText('F(2, 24) = 0.21\n\nP > 0.05\n').results[0]?.p).toBeNull();
+  it('does not cross a blank line without the comma, nor three blank lines, unless statistic and p each stand alone on their lines', () => {
+    expect(scanText('The main effect was small, F(2, 24) = 0.21\n\nP > 0.05 held for the rest.\n').results[0]?.p).toBeNull();
     expect(scanText('F(2, 24) = 0.21,\n\n\n\nP > 0.05\n').results[0]?.p ?? null).toBeNull();
+    // (tests/corpus/real/passages/dwmb-01.txt: a table page one cell per line, "F1,24 = 0.08" then "p = 0.78".)
+    expect(scanText('F(2, 24) = 0.21\n\nP > 0.05\n').results[0]?.p?.value.text).toBe('0.05');
   });
 });
 
