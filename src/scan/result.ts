@@ -41,14 +41,17 @@ const MAX_COLUMN_GAP = 200;
  * starts there (or, when `comparatorAt` is given, when the statistic's
  * comparator is not the one at that offset).
  */
-export function readResult(text: string, position: number, comparatorAt = -1, withoutP = false): ResultDraft | null {
+export function readResult(text: string, position: number, comparatorAt = -1, withoutP = false, pWrittenFirst = false): ResultDraft | null {
   const head = readStatisticHead(text, position);
   if (head === null || (comparatorAt !== -1 && head.comparatorAt !== comparatorAt)) return null;
   const draft: ResultDraft = { head, end: head.end, p: null, notSignificant: false, effects: [] };
   withSampleSizeBefore(text, position, draft);
   const directP = readTail(text, draft);
   // (`withoutP`: the caller keeps such a head aside, for a plural p later in the sentence to complete it.)
-  if (head.needsP && !directP && !(withoutP && draft.p === null && !draft.notSignificant)) return null;
+  // (A p written right before the statistic, "(P = 0.99, chi square = 0.462, df = 8)", is as direct as one after it,
+  // once df were read after the value.)
+  const pFirst = pWrittenFirst && draft.p === null && draft.head.df.length > 0;
+  if (head.needsP && !directP && !pFirst && !(withoutP && draft.p === null && !draft.notSignificant)) return null;
   if (head.needsTrailingDf === true && draft.head.df.length === 0) return null;
   return draft;
 }
@@ -202,6 +205,9 @@ function readDfNumber(text: string, at: number): { number: ReportedNumber; end: 
   return number === null ? null : { number, end };
 }
 
+/** The df named in words before "=" or ":" (the longer first). */
+const DF_WORDS = ['degrees of freedom', 'degree of freedom'];
+
 /**
  * "df = 28" or "df = 1, 44" ("dfs", "d.f.", ":" and "/" also read) after a statistic
  * written without df. `count` numbers are needed: two for F, one otherwise;
@@ -210,7 +216,18 @@ function readDfNumber(text: string, at: number): { number: ReportedNumber; end: 
 export function readTrailingDf(text: string, at: number, count: 1 | 2): { df: ReportedNumber[]; end: number } | null {
   const inWords = readDfInWords(text, at, count);
   if (inWords !== null) return inWords;
-  const written = text.startsWith('dfs', at) ? 'dfs' : text.startsWith('df', at) ? 'df' : text.startsWith('d.f.', at) ? 'd.f.' : text.startsWith('gl', at) ? 'gl' : text.startsWith('ddl', at) ? 'ddl' : null;
+  // (Also the words themselves: "degrees of freedom = 8", "degree of freedom: 8".)
+  const written = text.startsWith('dfs', at)
+    ? 'dfs'
+    : text.startsWith('df', at)
+      ? 'df'
+      : text.startsWith('d.f.', at)
+        ? 'd.f.'
+        : text.startsWith('gl', at)
+          ? 'gl'
+          : text.startsWith('ddl', at)
+            ? 'ddl'
+            : (DF_WORDS.find((words) => text.startsWith(words, at) || text.startsWith(words[0]!.toUpperCase() + words.slice(1), at)) ?? null);
   if (written === null) return null;
   let position = at + written.length;
   while (isSpaceCode(text.charCodeAt(position))) position++;

@@ -296,7 +296,7 @@ function readResultEndingHeadAt(source: string, comparatorAt: number, notBefore:
     const code = source.charCodeAt(at);
     if (code >= 128 || HEAD_CHARACTERS[code] === 0) return withoutP ? null : readFWithEffectName(source, comparatorAt, lowest);
     if (!canStartSymbol(code) || !startsWord(source, at)) continue;
-    const draft = readResult(source, at, comparatorAt, withoutP);
+    const draft = readResult(source, at, comparatorAt, withoutP, pWrittenBefore(source, at, notBefore) !== null);
     if (draft !== null) return draft;
     if (++attempts === MAX_SYMBOL_ATTEMPTS) return null;
   }

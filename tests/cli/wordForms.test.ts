@@ -169,6 +169,16 @@ describe('p and df written in further ways after a statistic, from the command l
     ]);
   });
 
+  it('reads df named in words after the value ("degrees of freedom = 8") and a p written before a statistic whose df follow it', () => {
+    // chi2(8) = 5.46 gives p = .707 and t(58) = 2.41 gives p = .019 (SciPy 1.10.1 scipy.stats.chi2.sf and 2 *
+    // scipy.stats.t.sf, computed when the test was written).
+    expect(readAll('The model fitted (chi-square = 5.46, degree of freedom = 8, P = 0.71).\n')).toEqual([['chi2', [8], 5.46, '= 0.71']]);
+    expect(readAll('Scores differed (t = 2.41, degrees of freedom = 58, p = .019).\n')).toEqual([['t', [58], 2.41, '= .019']]);
+    expect(readAll('The model fitted (P = 0.71, chi square = 5.46, df = 8).\n')).toEqual([['chi2', [8], 5.46, '= 0.71']]);
+    // (Without a p before or after, a statistic whose df follow it is not read as a result: nothing ties it to a test.)
+    expect(readAll('The model fitted (chi square = 5.46, df = 8).\n')).toEqual([]);
+  });
+
   it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
     // chi2(2) = 7.2 gives p = .027 and chi2(1) = 4.10 gives p = .043 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
     // (The first sentence as a journal's figure page gives it: tests/corpus/real/passages/dwfk-01.txt.)

@@ -244,7 +244,6 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   let pendingText: Cell[] = [];
   let index = 0;
   // (A header that took every cell leaves no body: no table.)
-  if (process.env.DBGC) console.error("bodyStart", bodyStart, cells.length, JSON.stringify(grid));
   if (bodyStart >= cells.length) return null;
   let lastLine = cells[bodyStart]!.line;
   while (index < body.length) {
