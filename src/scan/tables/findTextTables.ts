@@ -1637,7 +1637,13 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       continue;
     }
     // Under a header of one value column ("Variable r (p)"), a row holds one value ("Age .30 (.020)").
-    const data = readRowLine(line, dataRows === 0) ?? (columns !== null && columns.length === 2 ? singleValueRow(line) : null);
+    // Under a crushed header whose last column holds words ("Pairwise comparisons"), a row may end in that column's
+    // words ("… 10.10 <0.001 Healthy adults = PD-CI > PD-MCI"): the row's values are those before the words.
+    const crushedHeader = header !== null && !header.aligned && !header.tabbed;
+    const data =
+      readRowLine(line, dataRows === 0) ??
+      (columns !== null && columns.length === 2 ? singleValueRow(line) : null) ??
+      (crushedHeader && columns !== null && endsInWordsColumn(columns) ? rowBeforeTrailingWords(line, dataRows === 0) : null);
     if (data !== null) {
       widest = Math.max(widest, data.values.length);
       rows.push({ data, line });
@@ -1829,6 +1835,34 @@ function readRowLineOf(line: Line, first: boolean): DataLine | null {
   // A matrix's first row, its diagonal alone ("1. Anxiety —", "1 Anxiety 1.00").
   if (data.values.length === 1 && NUMBERED_LABEL.test(data.label.text) && DIAGONAL_CELL.test(data.values[0]!.text)) return data;
   return null;
+}
+
+/**
+ * Whether a header's last column is one no vocabulary knows after its test's columns ("… F-value P-value Pairwise
+ * comparisons", "… t p Comments"): a column of words, such as the outcome of comparisons or a remark, that rows
+ * may fill after their values.
+ */
+function endsInWordsColumn(columns: readonly string[]): boolean {
+  const roles = columns.map((column) => classifyHeader(column).role);
+  return roles.length >= 4 && roles[roles.length - 1] === 'unknown' && roles.includes('statistic') && roles.slice(-3, -1).includes('p');
+}
+
+/** Most words a row's trailing cell of words may hold. */
+const MAX_TRAILING_WORDS = 12;
+
+/**
+ * A row whose values are followed by a cell of words (no digits in them): the row as read without those words.
+ * The words must follow a value directly, so a sentence that merely holds numbers is not taken for a row.
+ */
+function rowBeforeTrailingWords(line: Line, first: boolean): DataLine | null {
+  if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) return null;
+  const tokens = tokenize(line.text);
+  let wordsStart = tokens.length;
+  while (wordsStart > 0 && !/\d/.test(tokens[wordsStart - 1]!.text) && !isValueToken(tokens[wordsStart - 1]!.text)) wordsStart--;
+  if (wordsStart === tokens.length || tokens.length - wordsStart > MAX_TRAILING_WORDS || wordsStart < 3) return null;
+  if (!isValueToken(tokens[wordsStart - 1]!.text)) return null;
+  const data = readRowLineOf({ ...line, text: line.text.slice(0, tokens[wordsStart - 1]!.end) }, first);
+  return data !== null && data.values.length >= 2 ? data : null;
 }
 
 /** "ηp" + a following line "2" -> "ηp2" (PDF text puts superscripts on their own line). */

@@ -46,7 +46,7 @@ import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
-import { familyOf, joinFamilies, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
+import { familyOf, joinFamilies, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_COMMA_P, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -2134,7 +2134,12 @@ function readRow(input: RowInput): ReportedResult | null {
   // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
   const withDf = withDfAndP ?? statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
   // "0.11, p > 0.05": the statistic with its p.
-  const withP = withDf === null ? (statisticWithP(row, cellsAt, columns.get('statistic')) ?? (segment.pInCell ? statisticWithBracketP(row, cellsAt, columns.get('statistic'), input.separator) : null)) : null;
+  // ("2.24, .15", "18.31, <.001": the p not named, where the header names it: "F, p value (df 1, 24)".)
+  const withP =
+    withDf === null
+      ? (statisticWithP(row, cellsAt, columns.get('statistic')) ??
+        (segment.pInCell ? (statisticWithP(row, cellsAt, columns.get('statistic'), STATISTIC_COMMA_P) ?? statisticWithBracketP(row, cellsAt, columns.get('statistic'), input.separator)) : null))
+      : null;
   const statistic = withDf?.statistic ?? withP?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
@@ -2303,11 +2308,16 @@ function numberWithInterval(
 }
 
 /** A statistic cell that holds its p, "0.11, p > 0.05", with the offsets of both numbers. */
-function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): { statistic: NumberCell; p: NumberCell } | null {
+function statisticWithP(
+  row: string[],
+  cellsAt: (LocatedCell | null)[] | null,
+  column: number | undefined,
+  pattern: RegExp = STATISTIC_WITH_P,
+): { statistic: NumberCell; p: NumberCell } | null {
   if (column === undefined) return null;
   const cell = row[column] ?? '';
   const normalised = normaliseText(cell);
-  const match = STATISTIC_WITH_P.exec(normalised.text);
+  const match = pattern.exec(normalised.text);
   if (!match) return null;
   const at = cellsAt?.[column] ?? null;
   const located = (written: string, from: number, comparator: Comparator): NumberCell | null => {
@@ -2319,10 +2329,11 @@ function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, c
       record: { ...number, start: at === null ? -1 : at.start + normalised.toOriginal(offset), end: at === null ? -1 : at.start + normalised.toOriginalEnd(offset + written.length) },
     };
   };
-  const statistic = located(match[1]!, 0, '=');
-  const comparatorText = match[2]!;
-  const comparator = (comparatorText === '<=' ? '<=' : comparatorText === '>=' ? '>=' : comparatorText) as Comparator;
-  const p = located(match[3]!, normalised.text.indexOf(comparatorText), comparator);
+  const statistic = located(match[1]!.replace(/\u2212\s?/, '-'), 0, '=');
+  const comparatorText = match[2] ?? '=';
+  const comparator = (comparatorText === '<=' || comparatorText === '\u2264' ? '<=' : comparatorText === '>=' || comparatorText === '\u2265' ? '>=' : comparatorText) as Comparator;
+  // (The p is looked for after the value, whose own digits may repeat it.)
+  const p = located(match[3]!, match[2] === undefined ? normalised.text.indexOf(match[1]!) + match[1]!.length : normalised.text.indexOf(comparatorText), comparator);
   return statistic === null || p === null ? null : { statistic, p };
 }
 
@@ -2354,7 +2365,7 @@ function statisticWithBracketP(
 }
 
 /** "2.71 (41) .010", "4.21 (2, 57) <.001", "2.71 (41), p = .010". Groups: value, df1, df2, comparator, p. */
-const STATISTIC_DF_P = /^ *((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,6}(?:\.\d+)?) ?(?:[,;] ?(\d{1,6}(?:\.\d+)?) ?)?[)\]][*\u2020\u2021]{0,3},? ?(?:p ?)?(<=|>=|<|>|=|\u2264|\u2265)? ?((?:0|1)?\.\d+|0|1)[*\u2020\u2021]{0,3}[a-h]? *$/;
+const STATISTIC_DF_P = /^ *((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,6}(?:\.\d+)?) ?(?:[,;] ?(\d{1,6}(?:\.\d+)?) ?)?[)\]][*\u2020\u2021]{0,3}[,;]? ?(?:p ?)?(<=|>=|<|>|=|\u2264|\u2265)? ?((?:0|1)?\.\d+|0|1)[*\u2020\u2021]{0,3}[a-h]? *$/;
 
 /** A statistic cell that holds its df and its p (under a header "t (df) p"), with the offsets of each number. */
 function statisticWithDfAndP(
