@@ -24,7 +24,8 @@ import { readPValue } from '../pValue.js';
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean }
+  /** `innerThousands`: the pair may be one number with its thousands set apart, "(12,000)". */
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerThousands?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
@@ -115,7 +116,9 @@ export function shapeOf(cell: string): CellShape {
       // "4.21(2,57)": beside a value written with a decimal point, a comma between whole numbers parts a df
       // pair (a decimal comma would be the cell's separator for both numbers).
       if (/\./.test(bracket[1]!) && /^\d{1,4},\d{1,5}$/.test(bracket[3]!.trim())) {
-        return { shape: 'number-bracket', value: outer.number.value, inner: Number(bracket[3]!.split(',')[0]), innerDecimals: 0, innerPair: true };
+        // (Or, for a statistic with one df, one df with its thousands set apart: "30.74 (12,000)"; see fit.)
+        const thousands = /^\d{1,3},\d{3}$/.test(bracket[3]!.trim());
+        return { shape: 'number-bracket', value: outer.number.value, inner: Number(bracket[3]!.split(',')[0]), innerDecimals: 0, innerPair: true, ...(thousands ? { innerThousands: true } : {}) };
       }
       const shape: CellShape = {
         shape: 'number-bracket',
@@ -231,7 +234,9 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       // (A whole number with a whole number in brackets, "7 (24)", is a count and its percentage rather than a test
       // statistic, which tables print with decimals; an F or chi-square is never negative.)
       if (cell.shape === 'number-bracket') {
-        const withDf = role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && (cell.innerPair === true) === (role.kind === 'F');
+        // (Under a statistic with one df, "(12,000)" is that df with its thousands set apart.)
+        const twoDf = cell.innerPair === true && !(cell.innerThousands === true && role.kind !== 'F');
+        const withDf = role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F');
         if (!withDf) return -3;
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;

@@ -1651,6 +1651,15 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       last = index;
       continue;
     }
+    // Under a crushed header, a row whose cells the page wrapped over several lines.
+    const wrappedCells = crushedHeader && columns !== null ? rowWithWrappedCells(lines, index, columns.length - 1) : null;
+    if (wrappedCells !== null) {
+      widest = Math.max(widest, wrappedCells.data.values.length);
+      rows.push({ data: wrappedCells.data, line: wrappedCells.line });
+      dataRows++;
+      last = index = wrappedCells.lastLine;
+      continue;
+    }
     // Under a header, a long line may be several rows run together.
     const runOn = header !== null ? splitRunOnRows(line) : [];
     if (runOn.length > 0) {
@@ -1863,6 +1872,47 @@ function rowBeforeTrailingWords(line: Line, first: boolean): DataLine | null {
   if (!isValueToken(tokens[wordsStart - 1]!.text)) return null;
   const data = readRowLineOf({ ...line, text: line.text.slice(0, tokens[wordsStart - 1]!.end) }, first);
   return data !== null && data.values.length >= 2 ? data : null;
+}
+
+/** Most lines one row's wrapped cells may take. */
+const MAX_WRAPPED_ROW_LINES = 12;
+
+/**
+ * A row whose cells a web page wrapped over lines: a label and one value ("Week –1.24"), the value's interval broken
+ * at its spaces ("(–1.28 to" / "–1.20)"), and the row's other cells on lines of values only ("56.79 (9682) <.001
+ * –1.24"). Lines are joined while a bracket is open, or while the next line starts with a bracket or holds values
+ * only; the joined text keeps every offset (each line break becomes as many spaces). Read as one row only when the
+ * brackets close, and the row has at least three values and no more than `width` (the header's value columns).
+ */
+function rowWithWrappedCells(lines: Line[], first: number, width: number): { data: DataLine; line: Line; lastLine: number } | null {
+  const head = lines[first]!;
+  if (TITLE.test(head.text) || NOTE.test(head.text)) return null;
+  const start = readDataLine(head, 1);
+  if (start === null || start.label.text === '' || start.values.length !== 1) return null;
+  let text = head.text;
+  let last = first;
+  while (last + 1 < lines.length && last + 1 - first < MAX_WRAPPED_ROW_LINES && text.length <= MAX_ROW_LENGTH) {
+    const next = lines[last + 1]!;
+    if (isBlank(next) || TITLE.test(next.text) || NOTE.test(next.text)) break;
+    const takesNext = bracketDepth(text) > 0 || /^\s*[([]/.test(next.text) || continuationValues(next, width) !== null;
+    if (!takesNext) break;
+    text += ' '.repeat(next.start - lines[last]!.end) + next.text;
+    last++;
+  }
+  if (last === first || bracketDepth(text) !== 0) return null;
+  const line: Line = { start: head.start, end: lines[last]!.end, text };
+  const data = readDataLine(line, 3);
+  return data !== null && data.values.length <= width ? { data, line, lastLine: last } : null;
+}
+
+/** Brackets opened and not closed in a text (round and square alike; a stray closing one counts against). */
+function bracketDepth(text: string): number {
+  let depth = 0;
+  for (const character of text) {
+    if (character === '(' || character === '[') depth++;
+    else if (character === ')' || character === ']') depth--;
+  }
+  return depth;
 }
 
 /** "ηp" + a following line "2" -> "ηp2" (PDF text puts superscripts on their own line). */

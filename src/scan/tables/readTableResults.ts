@@ -2367,6 +2367,21 @@ function statisticWithBracketP(
 /** "2.71 (41) .010", "4.21 (2, 57) <.001", "2.71 (41), p = .010". Groups: value, df1, df2, comparator, p. */
 const STATISTIC_DF_P = /^ *((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,6}(?:\.\d+)?) ?(?:[,;] ?(\d{1,6}(?:\.\d+)?) ?)?[)\]][*\u2020\u2021]{0,3}[,;]? ?(?:p ?)?(<=|>=|<|>|=|\u2264|\u2265)? ?((?:0|1)?\.\d+|0|1)[*\u2020\u2021]{0,3}[a-h]? *$/;
 
+/** The comma of a number's thousands: "12,000" (a whole number, three digits after the comma). */
+const THOUSANDS_COMMA = /(?<=^\d{1,3}),(?=\d{3}$)/;
+
+/**
+ * The df texts a cell's brackets hold. For a statistic with one df (t, χ2, r), "(12,000)" is one df with its
+ * thousands set apart by a comma, not two: a comma without a space before exactly three digits, where two df
+ * cannot be meant (a bracket of two df is an F's). An F's "(12,000)" stays two numbers, and is refused for its zero.
+ */
+function oneDfWithThousands(texts: readonly (string | undefined)[], cell: string, kind: StatisticKind): string[] {
+  const dfTexts = texts.filter((text): text is string => text !== undefined);
+  if (kind === 'F' || dfTexts.length !== 2) return dfTexts;
+  const written = `${dfTexts[0]!},${dfTexts[1]!}`;
+  return /^\d{1,3}$/.test(dfTexts[0]!) && /^\d{3}$/.test(dfTexts[1]!) && cell.includes(`(${written})`) ? [written] : dfTexts;
+}
+
 /** A statistic cell that holds its df and its p (under a header "t (df) p"), with the offsets of each number. */
 function statisticWithDfAndP(
   row: string[],
@@ -2378,12 +2393,12 @@ function statisticWithDfAndP(
   const cell = row[column] ?? '';
   const match = STATISTIC_DF_P.exec(normaliseText(cell).text === cell ? cell : cell.replace(/\u2212/g, '-'));
   if (!match) return null;
-  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
-  if (dfTexts.length !== (kind === 'F' ? 2 : 1)) return null;
+  const dfTexts = oneDfWithThousands([match[2], match[3]], cell, kind);
+  if (dfTexts.length !== (kind === 'F' ? 2 : 1) || dfTexts.some((text) => Number(text.replace(',', '')) < 1)) return null;
   const at = cellsAt?.[column] ?? null;
   let from = 0;
   const locate = (written: string, comparator: Comparator): NumberCell | null => {
-    const number = parseReportedNumber(written.replace(/\s/g, '').replace('\u2212', '-').replace('\u2013', '-'));
+    const number = parseReportedNumber(written.replace(/\s/g, '').replace('\u2212', '-').replace('\u2013', '-').replace(THOUSANDS_COMMA, ''));
     if (number === null) return null;
     const offset = cell.indexOf(written, from);
     from = offset + written.length;
@@ -2483,9 +2498,9 @@ function statisticWithDf(
   const cell = row[column] ?? '';
   const match = STATISTIC_WITH_DF.exec(cell);
   if (!match) return null;
-  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  const dfTexts = oneDfWithThousands([match[2], match[3]], cell, kind);
   if (dfTexts.length !== (kind === 'F' ? 2 : 1) || kind === 'z') return null;
-  if (dfTexts.some((text) => Number(text) < 1 || (!dfInCell && text.includes('.')))) return null;
+  if (dfTexts.some((text) => Number(text.replace(THOUSANDS_COMMA, '')) < 1 || (!dfInCell && text.includes('.')))) return null;
   const at = cellsAt?.[column] ?? null;
   const valueText = match[1]!;
   const statisticRead = readCell(valueText, separator);
@@ -2499,7 +2514,7 @@ function statisticWithDf(
   const df = dfTexts.map((text) => {
     const offset = cell.indexOf(text, from);
     from = offset + text.length;
-    return { comparator: '=' as Comparator, record: { ...parseReportedNumber(text)!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + text.length } };
+    return { comparator: '=' as Comparator, record: { ...parseReportedNumber(text.replace(THOUSANDS_COMMA, ''))!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + text.length } };
   });
   return { statistic, df };
 }
@@ -2636,12 +2651,15 @@ function locateRows(text: string, table: DocumentTable, headerCount: number): ((
     const row = table.rows[index]!;
     for (let line = nextLine; line < lines.length && line < nextLine + 8; line++) {
       const from = line === nextLine ? nextFrom : 0;
-      const cells = matchRow(text, lines[line]!, row, from) ?? matchWithLabelAbove(text, lines, line, row);
+      const cells = matchRow(text, lines[line]!, row, from) ?? matchWithLabelAbove(text, lines, line, row) ?? (table.layout === 'crushed' ? matchRowOverLines(text, lines, line, row, from) : null);
       if (cells !== null) {
         located[index] = cells;
         const last = cells.filter((cell): cell is LocatedCell => cell !== null).pop()!;
-        nextLine = line;
-        nextFrom = last.end - lines[line]!.start;
+        // (A row wrapped over lines ends on a later line than it starts.)
+        let lastLine = line;
+        while (lastLine + 1 < lines.length && lines[lastLine]!.end < last.end) lastLine++;
+        nextLine = lastLine;
+        nextFrom = last.end - lines[lastLine]!.start;
         break;
       }
     }
@@ -2680,8 +2698,32 @@ function leadingSpaces(text: string, line: LocatedCell): number {
   return at - line.start;
 }
 
+/** Most lines a crushed row's wrapped cells are looked for over (as findTextTables joins them). */
+const MAX_ROW_LINES = 12;
+
+/**
+ * A crushed row whose cells a page wrapped over lines ("Week –1.24" / "(–1.28 to" / "–1.20)" / "56.79 (9682) <.001"):
+ * its cells in the fewest lines from `first` on, read with their line breaks as spaces (offsets kept), its first
+ * cell on the first of them.
+ */
+function matchRowOverLines(text: string, lines: LocatedCell[], first: number, row: string[], from: number): (LocatedCell | null)[] | null {
+  const firstLine = lines[first]!;
+  for (let last = first + 1; last < lines.length && last - first < MAX_ROW_LINES; last++) {
+    const span = { start: firstLine.start, end: lines[last]!.end };
+    const cells = matchRowIn(text.slice(span.start, span.end).replace(/[\r\n]/g, ' '), span, row, from);
+    if (cells === null) continue;
+    const firstCell = cells.find((cell): cell is LocatedCell => cell !== null);
+    return firstCell !== undefined && firstCell.end <= firstLine.end ? cells : null;
+  }
+  return null;
+}
+
 function matchRow(text: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {
-  const lineText = text.slice(line.start, line.end);
+  return matchRowIn(text.slice(line.start, line.end), line, row, start);
+}
+
+/** The cells of `row` in order in `lineText`, the text of `line`; null unless every non-empty cell is found. */
+function matchRowIn(lineText: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {
   const cells: (LocatedCell | null)[] = [];
   let from = start;
   let any = false;
