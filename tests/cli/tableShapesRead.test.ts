@@ -1175,4 +1175,122 @@ describe('results tables in the shapes papers print them', () => {
     const prose = scanTextJson('The interaction was small, F(1, 24) = 0.60\n\np values below were adjusted.\n');
     expect(prose.statistics.map((statistic) => statistic.p)).toEqual([null]);
   });
+
+  it('reads a crushed table of stacked blocks, each with its own error row, whose rows end in a column of words', () => {
+    // The layout of an ANCOVA table as a journal's page gives it crushed (tests/corpus/real/passages/dwmd-01.txt,
+    // CC BY 4.0): one block per outcome, each closed by its error row, a last column of pairwise comparisons in words.
+    const document = scanTextJson(
+      [
+        'Table 3.',
+        '',
+        'Analysis of covariance on the two scores',
+        '',
+        'Dependent variable Source of variation Sum of squares d.f. Mean square F-value P-value Pairwise comparisons',
+        'Recall Gender 20.00 1 20.00 4.00 0.047',
+        'Group 60.00 2 30.00 6.00 0.003 Control = Low > High',
+        'Error 750.00 150 5.00',
+        'Recognition Gender 9.00 1 9.00 3.00 0.088',
+        'Group 24.00 2 12.00 4.00 0.023 Control > High',
+        'Error 117.00 39 3.00',
+        '',
+        'Next section.',
+        '',
+      ].join('\n'),
+    );
+    // (Each F takes the error df of its own block: 150 for recall, 39 for recognition.)
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 4, [1, 150]],
+      ['F', 6, [2, 150]],
+      ['F', 3, [1, 39]],
+      ['F', 4, [2, 39]],
+    ]);
+  });
+
+  it('reads crushed "t (df)" blocks side by side whose rows the page wrapped over lines, df with thousands commas', () => {
+    // The layout of three models' estimates, t (df) and p side by side, crushed, as a journal's page gives it
+    // (tests/corpus/real/passages/dwmh-01.txt, CC BY 4.0): an interval wrapped at its spaces, the rest of the row
+    // on lines of values, a large df written "12,000".
+    const document = scanTextJson(
+      [
+        'Table 4.',
+        '',
+        'Mixed model results (n=1500).',
+        '',
+        'Model 1 Model 2',
+        '',
+        'Estimate (95% CI) tobsa (df) P value Estimate (95% CI) tobs (df) P value',
+        'Intercept 10.20 (10.00 to 10.40) 98.10 (250) <.001 10.30 (10.10 to 10.50) 97.40 (262) <.001',
+        'Week –0.90',
+        '(–0.95 to',
+        '–0.85)',
+        '40.12 (8800) <.001 –0.91',
+        '(–0.96 to',
+        '–0.86)',
+        '40.55 (8812) <.001',
+        'Sessions 0.04 (0.03 to 0.05) 7.31 (12,000) <.001 0.04 (0.03 to 0.05) 7.02 (11,500) <.001',
+        '',
+        'atobs: observed t.',
+        '',
+      ].join('\n'),
+    );
+    expect(readAs(document.statistics)).toEqual([
+      ['t', 98.1, [250]],
+      ['t', 97.4, [262]],
+      ['t', 40.12, [8800]],
+      ['t', 40.55, [8812]],
+      ['t', 7.31, [12000]],
+      ['t', 7.02, [11500]],
+    ]);
+  });
+
+  it('reads "F, p" cells one per line under headers that give their df ("F, p value (df 1, 24)")', () => {
+    // The layout of a journal's table page, one cell per line (tests/corpus/real/passages/dwmf-01.txt, CC BY 4.0):
+    // three effects side by side, each header naming F and p with their df, each cell "F, p", a notes column in words.
+    const cells = [
+      'Measure',
+      'Group main effect',
+      'Sex main effect',
+      'Group X Sex interaction',
+      'Special notes',
+      ' ',
+      'F, p value (df 1, 24)',
+      'F, p value (df 1, 24)',
+      'F, p value (df 1, 24)',
+      ' ',
+      'Sodium',
+      '3.10, .09',
+      '12.50, .002',
+      '0.40, .53',
+      'Females > Males',
+      'Calcium',
+      '0.02, .89',
+      '21.30, <.001',
+      '1.10, .30',
+      'No interaction',
+    ];
+    const document = scanTextJson(`Skip to main content\n\nTable 5 Blood chemistry by group and sex\n\n${cells.join('\n\n')}\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 3.1, [1, 24]],
+      ['F', 12.5, [1, 24]],
+      ['F', 0.4, [1, 24]],
+      ['F', 0.02, [1, 24]],
+      ['F', 21.3, [1, 24]],
+      ['F', 1.1, [1, 24]],
+    ]);
+    expect(document.statistics.map((statistic) => statistic.p?.text)).toEqual(['.09', '.002', '.53', '.89', '.001', '.30']);
+  });
+
+  it('reads "F (df); p" cells one per line, and no F whose bracket holds a thousands comma', () => {
+    // The layout of a journal's table page, one cell per line (tests/corpus/real/passages/dwmi-01.txt, CC BY 4.0):
+    // joint tests of two outcomes, each cell "F (df1, df2); p".
+    // (The page gives the empty corner cell as a line holding a space.)
+    const cells = [' ', 'Score', 'Status', 'Joint tests', 'F (df); p', 'F (df); p', 'Time', '12.0 (3, 500); < 0.0001', '4.1 (3, 500); 0.007', 'Time X arm', '2.9 (4, 500); 0.021', '6.2 (2,000); < 0.0001'];
+    const document = scanTextJson(`Table 2 Mixed models of the two outcomes\n\n${cells.join('\n\n')}\n\n  1. df = degrees of freedom\n`);
+    // (The last cell's "(2,000)" is no pair of df for an F: its second would be 0.)
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 12, [3, 500]],
+      ['F', 4.1, [3, 500]],
+      ['F', 2.9, [4, 500]],
+    ]);
+  });
 });

@@ -107,9 +107,13 @@ const scores = scoreCorpus(corpus);
 // 2026-12-05, tenth session, after the dwm batch merged and numbered correlation matrices read (dwod-01, dwoh-01):
 // tune table 0.80 (0.803), holdout table 0.52 (0.521), all-labels tune 0.57 (0.572), holdout 0.40 (0.406); silent-miss
 // ceiling holdout 142 (dwm's held-out passage), tabs-page-break 0.98 (0.985), as measured.
+// 2026-12-05, tenth session, helper10-sb: crushed rows ending in a column of words and stacked blocks with their own
+// error rows (dwmd-01), wrapped crushed 't (df)' rows with thousands commas (dwmh-01), 'F, p value (df 1, 24)' and
+// 'F (df); p' cells one per line (dwmf-01, dwmi-01): all 89 of their labels read, no other passage changed. As
+// measured: tune table 0.80 -> 0.83 (0.835), all-labels tune 0.57 -> 0.58 (0.5896); holdout and renderings unchanged.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.8, precision: 0.99, maxFailRate: 0.01 },
+    table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
     text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
@@ -228,7 +232,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
   // (2026-12-05, code-index prose batch, no tables added: tune 0.57 -> 0.58 (0.584), holdout 0.42 kept (0.426), as measured)
   // (2026-12-05, tenth-session batch dwo: tune 0.57 -> 0.56 (0.567), holdout 0.41 -> 0.40 (0.407), as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.57, holdout: 0.4 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.58, holdout: 0.4 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);

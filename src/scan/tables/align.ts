@@ -24,7 +24,8 @@ import { readPValue } from '../pValue.js';
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean }
+  /** `innerThousands`: the pair may be one number with its thousands set apart, "(12,000)". */
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerThousands?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
@@ -59,6 +60,11 @@ const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\
 const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
+/**
+ * A statistic and its p in one cell, the p not named, under a header that names both ("F, p": "18.31, <.001",
+ * "2.24, .15"). Groups: value, comparator, p (below 1, written with its point).
+ */
+export const STATISTIC_COMMA_P = /^ ?((?:[-\u2212] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[,;] ?(?:(<=|>=|<|>|=|\u2264|\u2265) ?)?(0?\.\d+)(?: ?(?:[*\u2020\u2021]{1,4}|[a-h]))? ?$/;
 /** (Either number may have its thousands set apart by commas: "2,396.4 ± 775.8".) */
 const PLUS_MINUS = /^([-\u2212]?(?:\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?))[a-h*]{0,3} ?\u00b1 ?(\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?)[a-h*]{0,3}$/;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
@@ -110,7 +116,9 @@ export function shapeOf(cell: string): CellShape {
       // "4.21(2,57)": beside a value written with a decimal point, a comma between whole numbers parts a df
       // pair (a decimal comma would be the cell's separator for both numbers).
       if (/\./.test(bracket[1]!) && /^\d{1,4},\d{1,5}$/.test(bracket[3]!.trim())) {
-        return { shape: 'number-bracket', value: outer.number.value, inner: Number(bracket[3]!.split(',')[0]), innerDecimals: 0, innerPair: true };
+        // (Or, for a statistic with one df, one df with its thousands set apart: "30.74 (12,000)"; see fit.)
+        const thousands = /^\d{1,3},\d{3}$/.test(bracket[3]!.trim());
+        return { shape: 'number-bracket', value: outer.number.value, inner: Number(bracket[3]!.split(',')[0]), innerDecimals: 0, innerPair: true, ...(thousands ? { innerThousands: true } : {}) };
       }
       const shape: CellShape = {
         shape: 'number-bracket',
@@ -124,6 +132,12 @@ export function shapeOf(cell: string): CellShape {
   }
   const withP = STATISTIC_WITH_P.exec(normaliseText(text).text);
   if (withP) return { shape: 'statistic-p', value: Number(withP[1]) };
+  // "18.31, <.001", "2.24, .15": a value and a bound p, or a non-negative value and a p written without its zero as
+  // journals write p (an interval's bounds printed without brackets, "-0.12, 0.45", stay numeric).
+  const withBareP = STATISTIC_COMMA_P.exec(text);
+  const boundP = withBareP !== null && withBareP[2] !== undefined && withBareP[2] !== '=';
+  const pWithoutZero = withBareP !== null && withBareP[2] === undefined && withBareP[3]!.startsWith('.') && !/^[-\u2212]/.test(withBareP[1]!);
+  if (withBareP !== null && (boundP || pWithoutZero)) return { shape: 'statistic-p', value: Number(withBareP[1]!.replace(/[\u2212]\s?/, '-')) };
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (readsAsWrittenResult(text)) return { shape: 'written' };
     const normalised = normaliseText(text).text;
@@ -160,7 +174,7 @@ export function shapeOf(cell: string): CellShape {
 }
 
 /** A statistic, its df in brackets and a p: "2.71 (41) .010", "4.21 (2, 57) <.001". */
-const STATISTIC_DF_AND_P = /^((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?\d{1,6}(?:\.\d+)?(?: ?[,;] ?\d{1,6}(?:\.\d+)?)? ?[)\]][*\u2020\u2021]{0,3},? ?(?:p ?)?(?:<=|>=|<|>|=|\u2264|\u2265)? ?(?:0|1)?\.\d+[*\u2020\u2021]{0,3}[a-h]?$/;
+const STATISTIC_DF_AND_P = /^((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?\d{1,6}(?:\.\d+)?(?: ?[,;] ?\d{1,6}(?:\.\d+)?)? ?[)\]][*\u2020\u2021]{0,3}[,;]? ?(?:p ?)?(?:<=|>=|<|>|=|\u2264|\u2265)? ?(?:0|1)?\.\d+[*\u2020\u2021]{0,3}[a-h]?$/;
 
 /**
  * Whether a cell holds a written result: one the text scanner reads ("t(46) = 1.06"), or a statistic without df
@@ -220,7 +234,9 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       // (A whole number with a whole number in brackets, "7 (24)", is a count and its percentage rather than a test
       // statistic, which tables print with decimals; an F or chi-square is never negative.)
       if (cell.shape === 'number-bracket') {
-        const withDf = role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && (cell.innerPair === true) === (role.kind === 'F');
+        // (Under a statistic with one df, "(12,000)" is that df with its thousands set apart.)
+        const twoDf = cell.innerPair === true && !(cell.innerThousands === true && role.kind !== 'F');
+        const withDf = role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F');
         if (!withDf) return -3;
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;

@@ -267,7 +267,7 @@ put(['cm', 'mean of squares', 'mean sum of squares', 'msq'], { role: 'ms' });
 put(['f cal', 'f cal.', 'fcal', 'fcal.', 'f-cal', 'f calc', 'f calc.', 'fcalc', 'f-calc', 'f calculated', 'f-calculated', 'calculated f', 'f calculado', 'f calculada', 'f-calculado', 'f obs', 'f obs.', 'f-obs', 'fobs', 'f observed', 'f computed', 'computed f'], { role: 'statistic', kind: 'F', df: [] });
 put(['pr > f', 'pr>f', 'pr. > f', 'p > f', 'p>f', 'prob.>f', 'prob. > f', 'pr > fc', 'pr>fc', 'pr > |t|', 'pr>|t|', 'prob > |t|', 'prob>|t|', 'p > |t|', 'p>|t|', 'pr > chisq', 'pr>chisq', 'pr > chi2', 'pr>chi2', 'prob > chi2', 'prob>chi2', 'prob > chisq', 'prob>chisq', 'p > chi2', 'p>chi2', 'significance level', 'level of significance', 'sig. level', 'sig level', 'p level', 'p-level', 'p valor', 'p-valeur', 'probability', 'prob. level', 'probabilidad', 'probabilidade'], { role: 'p' });
 put(['chi2 value', 'chi-square value', 'chi square value', 'x2 value', 'chi-square statistic', 'chi-square test', 'chi square test', 'chi2 test'], { role: 'statistic', kind: 'chi2', df: [] });
-put(['t stat', 't-stat', 't values', 't-values', 't calculated', 't calc', 'tcalc', 't cal'], { role: 'statistic', kind: 't', df: [] });
+put(['t stat', 't-stat', 't values', 't-values', 't calculated', 't calc', 'tcalc', 't cal', 'tobs', 't obs', 't observed'], { role: 'statistic', kind: 't', df: [] });
 // The labels statistics programs print in those languages' output of a univariate ANOVA (from memory of
 // their localised output; common practice): the type III sum of squares, mean square, partial eta squared
 // and source column in Portuguese, French, Italian, Dutch and Spanish.
@@ -277,7 +277,7 @@ put(['eta parcial ao quadrado', 'eta ao quadrado parcial', 'eta-carré partiel',
 put(['fonte', 'fuente', 'bron', 'origine', 'fonte di variazione', 'fonte di variabilità'], { role: 'label' });
 // Shortened and run-together spellings, and named variants of F and chi-square (common practice, from tables of
 // journals and statistics programs' output).
-put(['f stat', 'f-stat', 'f stat.', 'fvalue', 'fratio', 'f-test value', 'f test value', 'welch f', "welch's f", 'f welch', 'welch-f', 'brown-forsythe f'], { role: 'statistic', kind: 'F', df: [] });
+put(['f stat', 'f-stat', 'f stat.', 'fvalue', 'fratio', 'fobs', 'f obs', 'f observed', 'f-test value', 'f test value', 'welch f', "welch's f", 'f welch', 'welch-f', 'brown-forsythe f'], { role: 'statistic', kind: 'F', df: [] });
 put(['chi-sq', 'chi sq', 'chi-sq.', 'chi.sq', 'chisq.', 'lr chisq', 'lr chi-square', 'lr chi-sq', 'wald chi-square', 'wald chi square', 'wald chisq', 'wald chi-sq', 'likelihood ratio chi-square', 'likelihood-ratio chi-square'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['df1/df2', 'df1 / df2', 'df1; df2', '(df)', '[df]', '(d.f.)', '(dfs)'], { role: 'df' });
 // The side named in brackets after "df" ("df (num)", "df (error)"): the qualifier says which df, unlike one after a
@@ -331,6 +331,9 @@ function findKnownKey(key: string): string | null {
   if (ROLE_BY_KEY.has(bare)) return bare;
   const withoutDf = bare.replace(DF_NAMES_IN_BRACKETS, '');
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
+  // A footnote letter glued on before the df's brackets ("tobsa (df)"): only after a name of two letters or more.
+  const withoutDfMark = withoutDf.replace(/(?<=[a-z0-9.])[a-h]$/, '');
+  if (withoutDf !== bare && withoutDfMark !== withoutDf && withoutDfMark.length >= 2 && ROLE_BY_KEY.get(withoutDfMark)?.role === 'statistic') return withoutDfMark;
   const withoutMark = bare.replace(/(?<=[a-z0-9.)\]])[a-h]$/, '');
   if (withoutMark !== bare && withoutMark.length >= 2 && ROLE_BY_KEY.has(withoutMark)) return withoutMark;
   // A footnote dagger or section mark ("p†", "p-value‡"), and "P" with a footnote letter ("Pa", "Pb").
@@ -348,14 +351,20 @@ function findKnownKey(key: string): string | null {
   return null;
 }
 
+/** "<statistic>, p value (df 1, 24)": groups: the statistic's name, the bracketed df. Bounded pieces, no nested quantifiers. */
+const P_NAMED_BEFORE_DF = /^([a-z][a-z0-9 -]{0,20}?) ?[,;] ?p(?:[- ]?values?)? ?(\((?:d\.?f\.?)[ =:]{0,3}\d{1,5}(?: ?[,;/] ?\d{1,6})?\))$/;
+
 /**
  * The header without a ", p" or "(p)" naming the p its cells hold too ("f(1, 66)d, p" -> "f(1, 66)"), or
  * null. A footnote letter is dropped only after a bracket or digit: "f" and "f value" end in letters too.
  */
 function withoutPSuffix(key: string): string | null {
-  for (const suffix of [', p', ',p', ' (p)', '(p)', ' (p-value)', ' (p value)', '(p-value)']) {
+  for (const suffix of [', p', ',p', '; p', ';p', ' (p)', '(p)', ' (p-value)', ' (p value)', '(p-value)']) {
     if (key.endsWith(suffix) && key.length > suffix.length) return key.slice(0, key.length - suffix.length).replace(/(?<=[0-9)\]])[a-h]$/, '');
   }
+  // "F, p value (df 1, 24)": the statistic and its p named together, their df after both; the df are the statistic's.
+  const pThenDf = P_NAMED_BEFORE_DF.exec(key);
+  if (pThenDf !== null) return `${pThenDf[1]!} ${pThenDf[2]!}`;
   // "t (df) p": the p after the df's brackets.
   if (/\) ?p$/.test(key)) return key.slice(0, key.length - 1).trimEnd();
   return null;

@@ -1637,12 +1637,27 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       continue;
     }
     // Under a header of one value column ("Variable r (p)"), a row holds one value ("Age .30 (.020)").
-    const data = readRowLine(line, dataRows === 0) ?? (columns !== null && columns.length === 2 ? singleValueRow(line) : null);
+    // Under a crushed header whose last column holds words ("Pairwise comparisons"), a row may end in that column's
+    // words ("… 10.10 <0.001 Healthy adults = PD-CI > PD-MCI"): the row's values are those before the words.
+    const crushedHeader = header !== null && !header.aligned && !header.tabbed;
+    const data =
+      readRowLine(line, dataRows === 0) ??
+      (columns !== null && columns.length === 2 ? singleValueRow(line) : null) ??
+      (crushedHeader && columns !== null && endsInWordsColumn(columns) ? rowBeforeTrailingWords(line, dataRows === 0) : null);
     if (data !== null) {
       widest = Math.max(widest, data.values.length);
       rows.push({ data, line });
       dataRows++;
       last = index;
+      continue;
+    }
+    // Under a crushed header, a row whose cells the page wrapped over several lines.
+    const wrappedCells = crushedHeader && columns !== null ? rowWithWrappedCells(lines, index, columns.length - 1) : null;
+    if (wrappedCells !== null) {
+      widest = Math.max(widest, wrappedCells.data.values.length);
+      rows.push({ data: wrappedCells.data, line: wrappedCells.line });
+      dataRows++;
+      last = index = wrappedCells.lastLine;
       continue;
     }
     // Under a header, a long line may be several rows run together.
@@ -1829,6 +1844,75 @@ function readRowLineOf(line: Line, first: boolean): DataLine | null {
   // A matrix's first row, its diagonal alone ("1. Anxiety —", "1 Anxiety 1.00").
   if (data.values.length === 1 && NUMBERED_LABEL.test(data.label.text) && DIAGONAL_CELL.test(data.values[0]!.text)) return data;
   return null;
+}
+
+/**
+ * Whether a header's last column is one no vocabulary knows after its test's columns ("… F-value P-value Pairwise
+ * comparisons", "… t p Comments"): a column of words, such as the outcome of comparisons or a remark, that rows
+ * may fill after their values.
+ */
+function endsInWordsColumn(columns: readonly string[]): boolean {
+  const roles = columns.map((column) => classifyHeader(column).role);
+  return roles.length >= 4 && roles[roles.length - 1] === 'unknown' && roles.includes('statistic') && roles.slice(-3, -1).includes('p');
+}
+
+/** Most words a row's trailing cell of words may hold. */
+const MAX_TRAILING_WORDS = 12;
+
+/**
+ * A row whose values are followed by a cell of words (no digits in them): the row as read without those words.
+ * The words must follow a value directly, so a sentence that merely holds numbers is not taken for a row.
+ */
+function rowBeforeTrailingWords(line: Line, first: boolean): DataLine | null {
+  if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) return null;
+  const tokens = tokenize(line.text);
+  let wordsStart = tokens.length;
+  while (wordsStart > 0 && !/\d/.test(tokens[wordsStart - 1]!.text) && !isValueToken(tokens[wordsStart - 1]!.text)) wordsStart--;
+  if (wordsStart === tokens.length || tokens.length - wordsStart > MAX_TRAILING_WORDS || wordsStart < 3) return null;
+  if (!isValueToken(tokens[wordsStart - 1]!.text)) return null;
+  const data = readRowLineOf({ ...line, text: line.text.slice(0, tokens[wordsStart - 1]!.end) }, first);
+  return data !== null && data.values.length >= 2 ? data : null;
+}
+
+/** Most lines one row's wrapped cells may take. */
+const MAX_WRAPPED_ROW_LINES = 12;
+
+/**
+ * A row whose cells a web page wrapped over lines: a label and one value ("Week –1.24"), the value's interval broken
+ * at its spaces ("(–1.28 to" / "–1.20)"), and the row's other cells on lines of values only ("56.79 (9682) <.001
+ * –1.24"). Lines are joined while a bracket is open, or while the next line starts with a bracket or holds values
+ * only; the joined text keeps every offset (each line break becomes as many spaces). Read as one row only when the
+ * brackets close, and the row has at least three values and no more than `width` (the header's value columns).
+ */
+function rowWithWrappedCells(lines: Line[], first: number, width: number): { data: DataLine; line: Line; lastLine: number } | null {
+  const head = lines[first]!;
+  if (TITLE.test(head.text) || NOTE.test(head.text)) return null;
+  const start = readDataLine(head, 1);
+  if (start === null || start.label.text === '' || start.values.length !== 1) return null;
+  let text = head.text;
+  let last = first;
+  while (last + 1 < lines.length && last + 1 - first < MAX_WRAPPED_ROW_LINES && text.length <= MAX_ROW_LENGTH) {
+    const next = lines[last + 1]!;
+    if (isBlank(next) || TITLE.test(next.text) || NOTE.test(next.text)) break;
+    const takesNext = bracketDepth(text) > 0 || /^\s*[([]/.test(next.text) || continuationValues(next, width) !== null;
+    if (!takesNext) break;
+    text += ' '.repeat(next.start - lines[last]!.end) + next.text;
+    last++;
+  }
+  if (last === first || bracketDepth(text) !== 0) return null;
+  const line: Line = { start: head.start, end: lines[last]!.end, text };
+  const data = readDataLine(line, 3);
+  return data !== null && data.values.length <= width ? { data, line, lastLine: last } : null;
+}
+
+/** Brackets opened and not closed in a text (round and square alike; a stray closing one counts against). */
+function bracketDepth(text: string): number {
+  let depth = 0;
+  for (const character of text) {
+    if (character === '(' || character === '[') depth++;
+    else if (character === ')' || character === ']') depth--;
+  }
+  return depth;
 }
 
 /** "ηp" + a following line "2" -> "ηp2" (PDF text puts superscripts on their own line). */

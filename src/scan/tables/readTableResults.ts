@@ -46,7 +46,7 @@ import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
-import { familyOf, joinFamilies, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_WITH_P, type CellShape } from './align.js';
+import { familyOf, joinFamilies, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_COMMA_P, STATISTIC_WITH_P, type CellShape } from './align.js';
 
 type CellRecord = ReportedNumber & { start: number; end: number };
 type Cells = Partial<Record<TableColumn, CellRecord>>;
@@ -2134,7 +2134,12 @@ function readRow(input: RowInput): ReportedResult | null {
   // "4.842 (15)": the statistic with its df in brackets, in one cell (read as df where the header says "(df)", or whole numbers).
   const withDf = withDfAndP ?? statisticWithDf(row, cellsAt, columns.get('statistic'), kind, input.separator, segment.dfInCell);
   // "0.11, p > 0.05": the statistic with its p.
-  const withP = withDf === null ? (statisticWithP(row, cellsAt, columns.get('statistic')) ?? (segment.pInCell ? statisticWithBracketP(row, cellsAt, columns.get('statistic'), input.separator) : null)) : null;
+  // ("2.24, .15", "18.31, <.001": the p not named, where the header names it: "F, p value (df 1, 24)".)
+  const withP =
+    withDf === null
+      ? (statisticWithP(row, cellsAt, columns.get('statistic')) ??
+        (segment.pInCell ? (statisticWithP(row, cellsAt, columns.get('statistic'), STATISTIC_COMMA_P) ?? statisticWithBracketP(row, cellsAt, columns.get('statistic'), input.separator)) : null))
+      : null;
   const statistic = withDf?.statistic ?? withP?.statistic ?? plainNumber(row, cellsAt, columns.get('statistic'), input.separator);
   if (statistic === null) return null;
   const cells: Cells = {};
@@ -2303,11 +2308,16 @@ function numberWithInterval(
 }
 
 /** A statistic cell that holds its p, "0.11, p > 0.05", with the offsets of both numbers. */
-function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, column: number | undefined): { statistic: NumberCell; p: NumberCell } | null {
+function statisticWithP(
+  row: string[],
+  cellsAt: (LocatedCell | null)[] | null,
+  column: number | undefined,
+  pattern: RegExp = STATISTIC_WITH_P,
+): { statistic: NumberCell; p: NumberCell } | null {
   if (column === undefined) return null;
   const cell = row[column] ?? '';
   const normalised = normaliseText(cell);
-  const match = STATISTIC_WITH_P.exec(normalised.text);
+  const match = pattern.exec(normalised.text);
   if (!match) return null;
   const at = cellsAt?.[column] ?? null;
   const located = (written: string, from: number, comparator: Comparator): NumberCell | null => {
@@ -2319,10 +2329,11 @@ function statisticWithP(row: string[], cellsAt: (LocatedCell | null)[] | null, c
       record: { ...number, start: at === null ? -1 : at.start + normalised.toOriginal(offset), end: at === null ? -1 : at.start + normalised.toOriginalEnd(offset + written.length) },
     };
   };
-  const statistic = located(match[1]!, 0, '=');
-  const comparatorText = match[2]!;
-  const comparator = (comparatorText === '<=' ? '<=' : comparatorText === '>=' ? '>=' : comparatorText) as Comparator;
-  const p = located(match[3]!, normalised.text.indexOf(comparatorText), comparator);
+  const statistic = located(match[1]!.replace(/\u2212\s?/, '-'), 0, '=');
+  const comparatorText = match[2] ?? '=';
+  const comparator = (comparatorText === '<=' || comparatorText === '\u2264' ? '<=' : comparatorText === '>=' || comparatorText === '\u2265' ? '>=' : comparatorText) as Comparator;
+  // (The p is looked for after the value, whose own digits may repeat it.)
+  const p = located(match[3]!, match[2] === undefined ? normalised.text.indexOf(match[1]!) + match[1]!.length : normalised.text.indexOf(comparatorText), comparator);
   return statistic === null || p === null ? null : { statistic, p };
 }
 
@@ -2354,7 +2365,22 @@ function statisticWithBracketP(
 }
 
 /** "2.71 (41) .010", "4.21 (2, 57) <.001", "2.71 (41), p = .010". Groups: value, df1, df2, comparator, p. */
-const STATISTIC_DF_P = /^ *((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,6}(?:\.\d+)?) ?(?:[,;] ?(\d{1,6}(?:\.\d+)?) ?)?[)\]][*\u2020\u2021]{0,3},? ?(?:p ?)?(<=|>=|<|>|=|\u2264|\u2265)? ?((?:0|1)?\.\d+|0|1)[*\u2020\u2021]{0,3}[a-h]? *$/;
+const STATISTIC_DF_P = /^ *((?:[-\u2212\u2013] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,6}(?:\.\d+)?) ?(?:[,;] ?(\d{1,6}(?:\.\d+)?) ?)?[)\]][*\u2020\u2021]{0,3}[,;]? ?(?:p ?)?(<=|>=|<|>|=|\u2264|\u2265)? ?((?:0|1)?\.\d+|0|1)[*\u2020\u2021]{0,3}[a-h]? *$/;
+
+/** The comma of a number's thousands: "12,000" (a whole number, three digits after the comma). */
+const THOUSANDS_COMMA = /(?<=^\d{1,3}),(?=\d{3}$)/;
+
+/**
+ * The df texts a cell's brackets hold. For a statistic with one df (t, χ2, r), "(12,000)" is one df with its
+ * thousands set apart by a comma, not two: a comma without a space before exactly three digits, where two df
+ * cannot be meant (a bracket of two df is an F's). An F's "(12,000)" stays two numbers, and is refused for its zero.
+ */
+function oneDfWithThousands(texts: readonly (string | undefined)[], cell: string, kind: StatisticKind): string[] {
+  const dfTexts = texts.filter((text): text is string => text !== undefined);
+  if (kind === 'F' || dfTexts.length !== 2) return dfTexts;
+  const written = `${dfTexts[0]!},${dfTexts[1]!}`;
+  return /^\d{1,3}$/.test(dfTexts[0]!) && /^\d{3}$/.test(dfTexts[1]!) && cell.includes(`(${written})`) ? [written] : dfTexts;
+}
 
 /** A statistic cell that holds its df and its p (under a header "t (df) p"), with the offsets of each number. */
 function statisticWithDfAndP(
@@ -2367,12 +2393,12 @@ function statisticWithDfAndP(
   const cell = row[column] ?? '';
   const match = STATISTIC_DF_P.exec(normaliseText(cell).text === cell ? cell : cell.replace(/\u2212/g, '-'));
   if (!match) return null;
-  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
-  if (dfTexts.length !== (kind === 'F' ? 2 : 1)) return null;
+  const dfTexts = oneDfWithThousands([match[2], match[3]], cell, kind);
+  if (dfTexts.length !== (kind === 'F' ? 2 : 1) || dfTexts.some((text) => Number(text.replace(',', '')) < 1)) return null;
   const at = cellsAt?.[column] ?? null;
   let from = 0;
   const locate = (written: string, comparator: Comparator): NumberCell | null => {
-    const number = parseReportedNumber(written.replace(/\s/g, '').replace('\u2212', '-').replace('\u2013', '-'));
+    const number = parseReportedNumber(written.replace(/\s/g, '').replace('\u2212', '-').replace('\u2013', '-').replace(THOUSANDS_COMMA, ''));
     if (number === null) return null;
     const offset = cell.indexOf(written, from);
     from = offset + written.length;
@@ -2472,9 +2498,9 @@ function statisticWithDf(
   const cell = row[column] ?? '';
   const match = STATISTIC_WITH_DF.exec(cell);
   if (!match) return null;
-  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  const dfTexts = oneDfWithThousands([match[2], match[3]], cell, kind);
   if (dfTexts.length !== (kind === 'F' ? 2 : 1) || kind === 'z') return null;
-  if (dfTexts.some((text) => Number(text) < 1 || (!dfInCell && text.includes('.')))) return null;
+  if (dfTexts.some((text) => Number(text.replace(THOUSANDS_COMMA, '')) < 1 || (!dfInCell && text.includes('.')))) return null;
   const at = cellsAt?.[column] ?? null;
   const valueText = match[1]!;
   const statisticRead = readCell(valueText, separator);
@@ -2488,7 +2514,7 @@ function statisticWithDf(
   const df = dfTexts.map((text) => {
     const offset = cell.indexOf(text, from);
     from = offset + text.length;
-    return { comparator: '=' as Comparator, record: { ...parseReportedNumber(text)!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + text.length } };
+    return { comparator: '=' as Comparator, record: { ...parseReportedNumber(text.replace(THOUSANDS_COMMA, ''))!, start: at === null ? -1 : at.start + offset, end: at === null ? -1 : at.start + offset + text.length } };
   });
   return { statistic, df };
 }
@@ -2625,12 +2651,15 @@ function locateRows(text: string, table: DocumentTable, headerCount: number): ((
     const row = table.rows[index]!;
     for (let line = nextLine; line < lines.length && line < nextLine + 8; line++) {
       const from = line === nextLine ? nextFrom : 0;
-      const cells = matchRow(text, lines[line]!, row, from) ?? matchWithLabelAbove(text, lines, line, row);
+      const cells = matchRow(text, lines[line]!, row, from) ?? matchWithLabelAbove(text, lines, line, row) ?? (table.layout === 'crushed' ? matchRowOverLines(text, lines, line, row, from) : null);
       if (cells !== null) {
         located[index] = cells;
         const last = cells.filter((cell): cell is LocatedCell => cell !== null).pop()!;
-        nextLine = line;
-        nextFrom = last.end - lines[line]!.start;
+        // (A row wrapped over lines ends on a later line than it starts.)
+        let lastLine = line;
+        while (lastLine + 1 < lines.length && lines[lastLine]!.end < last.end) lastLine++;
+        nextLine = lastLine;
+        nextFrom = last.end - lines[lastLine]!.start;
         break;
       }
     }
@@ -2669,8 +2698,32 @@ function leadingSpaces(text: string, line: LocatedCell): number {
   return at - line.start;
 }
 
+/** Most lines a crushed row's wrapped cells are looked for over (as findTextTables joins them). */
+const MAX_ROW_LINES = 12;
+
+/**
+ * A crushed row whose cells a page wrapped over lines ("Week –1.24" / "(–1.28 to" / "–1.20)" / "56.79 (9682) <.001"):
+ * its cells in the fewest lines from `first` on, read with their line breaks as spaces (offsets kept), its first
+ * cell on the first of them.
+ */
+function matchRowOverLines(text: string, lines: LocatedCell[], first: number, row: string[], from: number): (LocatedCell | null)[] | null {
+  const firstLine = lines[first]!;
+  for (let last = first + 1; last < lines.length && last - first < MAX_ROW_LINES; last++) {
+    const span = { start: firstLine.start, end: lines[last]!.end };
+    const cells = matchRowIn(text.slice(span.start, span.end).replace(/[\r\n]/g, ' '), span, row, from);
+    if (cells === null) continue;
+    const firstCell = cells.find((cell): cell is LocatedCell => cell !== null);
+    return firstCell !== undefined && firstCell.end <= firstLine.end ? cells : null;
+  }
+  return null;
+}
+
 function matchRow(text: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {
-  const lineText = text.slice(line.start, line.end);
+  return matchRowIn(text.slice(line.start, line.end), line, row, start);
+}
+
+/** The cells of `row` in order in `lineText`, the text of `line`; null unless every non-empty cell is found. */
+function matchRowIn(lineText: string, line: LocatedCell, row: string[], start = 0): (LocatedCell | null)[] | null {
   const cells: (LocatedCell | null)[] = [];
   let from = start;
   let any = false;
