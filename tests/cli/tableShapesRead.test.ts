@@ -1133,6 +1133,16 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  it('reads a crushed header whose labels have two names (an outcome over "Source") and whose last column has none', () => {
+    // The layout of tests/corpus/real/passages/divr-05.txt (CC BY) crushed into single spaces; the numbers are made up.
+    const text = ['Table 7.', 'Mixed ANOVA for reading fluency.', 'Reading fluency Source df F p', 'Words per minute Between subjects', 'Method 1 4.12 0.049* 0.128', 'Level 1 40.31 0.000*** 0.590', 'Error 28', 'Within subjects', 'Time 2 7.27 0.002** 0.206', 'Error 56'].join('\n');
+    expect(readAs(scanTextJson(`${text}\n\nNext.\n`).statistics)).toEqual([
+      ['F', 4.12, [1, 28]],
+      ['F', 40.31, [1, 28]],
+      ['F', 7.27, [2, 56]],
+    ]);
+  });
+
   it('reads a crushed header with no name over its labels whose groups are named "Women n (%)" and "Men n (%)"', () => {
     const document = scanTextJson(
       'Table 2\nKnowledge of the condition by sex\nWomen n (%) Men n (%) Total N (240) Chi square value p value\nHeard of it\nYes 99 (82.5) 87 (72.5) 186 3.58 0.058\nNo 21 (17.5) 33 (27.5) 54\n\nNext.\n',

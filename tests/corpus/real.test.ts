@@ -152,18 +152,20 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 // (2026-12-05, tenth-session batch dwm: the pipe rows of dwme-02 and dwmj-01 join the renderings (793 results now);
 // with a running head put in the middle of the tab-separated copy 12 of the 793 are not read: tabs-page-break
 // 0.99 -> 0.98 (0.9849), as measured; the other renderings hold their floors.)
+// (2026-12-05, tenth session, later: a header with two names over its labels takes the unnamed last column too;
+// crushed 0.873 -> 0.881, aligned 0.849 -> 0.858, page-break and wrapped copies alike, as measured.)
 const RENDERING_FLOORS: Record<Rendering, number> = {
   tabs: 0.99,
-  crushed: 0.86,
+  crushed: 0.88,
   'cell-per-line': 0.78,
   'consecutive-lines': 0.75,
-  aligned: 0.84,
+  aligned: 0.85,
   'tabs-page-break': 0.98,
-  'crushed-page-break': 0.85,
-  'aligned-page-break': 0.83,
+  'crushed-page-break': 0.87,
+  'aligned-page-break': 0.84,
   'tabs-wrapped-labels': 0.96,
-  'crushed-wrapped-labels': 0.84,
-  'aligned-wrapped-labels': 0.82,
+  'crushed-wrapped-labels': 0.85,
+  'aligned-wrapped-labels': 0.83,
 };
 
 describe('real corpus: the passages and their labels', () => {

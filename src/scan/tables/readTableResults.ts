@@ -1152,7 +1152,12 @@ function withUnnamedColumns(
   layout: DocumentTable['layout'],
 ): { rows: string[][]; located: ((LocatedCell | null)[] | null)[] } | null {
   if (!UNPLACED_LAYOUTS.has(layout ?? '')) return null;
-  const header = trimTrailingEmpty(rows[headerCount - 1]!);
+  const written = trimTrailingEmpty(rows[headerCount - 1]!);
+  // Names of the label column after the first ("Oral production fluency | Source | df | F | p", a title over the
+  // labels and the labels' own name) are one label column's: the rows print one label.
+  let labelNames = 1;
+  while (labelNames < written.length - 1 && classifyHeader(written[labelNames]!).role === 'label') labelNames++;
+  const header = labelNames === 1 ? written : [written.slice(0, labelNames).join(' / '), ...written.slice(labelNames)];
   const roles = header.map((cell, column) => (column === 0 ? ({ role: 'label' } as ColumnRole) : classifyHeader(cell)));
   // Every named column must be known: an unknown name may itself be the column the rows fill.
   if (header.length < 3 || roles.slice(1).some((role) => role.role === 'unknown' || role.role === 'label' || role.role === 'result')) return null;
@@ -1203,10 +1208,12 @@ function withUnnamedColumns(
   if (winner.rows < Math.max(2, full.length - 1)) return null;
   if (winner.rows === other.rows && winner.total - other.total < UNNAMED_SIDE_MARGIN * winner.rows) return null;
   const { names, at } = sides[best]!;
+  // (The header's located cells: the label names' first stands for the joined label, the others are dropped.)
   const headerAt = located[headerCount - 1];
+  const joinedAt = headerAt ? [headerAt[0] ?? null, ...headerAt.slice(labelNames)] : null;
   return {
     rows: rows.map((row, index) => (index === headerCount - 1 ? names : row)),
-    located: located.map((cells, index) => (index === headerCount - 1 && cells ? [...cells.slice(0, at), ...new Array<LocatedCell | null>(extra).fill(null), ...cells.slice(at)] : cells)),
+    located: located.map((cells, index) => (index === headerCount - 1 && joinedAt ? [...joinedAt.slice(0, at), ...new Array<LocatedCell | null>(extra).fill(null), ...joinedAt.slice(at)] : cells)),
   };
 }
 
