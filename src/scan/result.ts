@@ -91,6 +91,15 @@ function readTail(text: string, draft: ResultDraft): boolean {
         continue;
       }
     }
+    // Unlabelled brackets right after a correlation are its interval ("r = .32 [.19, .44], p < .001"): read past,
+    // the p after it as direct as without it.
+    if (last === 'head' && draft.head.kind === 'r') {
+      const own = readInterval(text, skipOnlySpaces(text, position), true);
+      if (own !== null) {
+        position = own.end;
+        continue;
+      }
+    }
     // A statistic alone on its line, as a copy that puts each table cell on its own line gives it, with its p alone
     // on the next line after a blank one ("F1,24 = 0.08" / "" / "p = 0.78"): the p cell is the result's.
     if (last === 'head' && draft.p === null) {
@@ -141,6 +150,10 @@ function readTail(text: string, draft: ResultDraft): boolean {
       if (last === 'effect') {
         attachInterval(draft, interval.interval, interval.end);
         last = 'interval';
+      } else if (last === 'head' && draft.head.kind === 'r') {
+        // A correlation's own interval right after it ("r = .32 [.19, .44], p < .001"): the p after it is still
+        // the correlation's, as directly as without the interval.
+        last = 'head';
       } else {
         // An interval for something unrecorded (a mean difference): read past it.
         last = 'other';

@@ -179,6 +179,14 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('The model fitted (chi square = 5.46, df = 8).\n')).toEqual([]);
   });
 
+  it('reads a correlation whose interval stands between it and its p ("r = .32 [.19, .44], p < .001"), bracketed or labelled', () => {
+    for (const interval of ['[0.19, 0.44]', '(0.19, 0.44)', ', 95% CI 0.19–0.44', ', 95% CI [0.19, 0.44]']) {
+      expect(readAll(`Anxiety and stress were correlated (r = 0.32 ${interval}, p < .001).\n`), interval).toEqual([['r', [], 0.32, '< .001']]);
+    }
+    // (A citation's number in brackets is no interval: nothing ties the p to the r.)
+    expect(readAll('Anxiety and stress were correlated, r = 0.32 [12], p < .001.\n')).toEqual([]);
+  });
+
   it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
     // chi2(2) = 7.2 gives p = .027 and chi2(1) = 4.10 gives p = .043 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
     // (The first sentence as a journal's figure page gives it: tests/corpus/real/passages/dwfk-01.txt.)
