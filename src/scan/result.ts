@@ -68,6 +68,9 @@ function readTail(text: string, draft: ResultDraft): boolean {
   let last: LastPart = 'head';
   let directP = false;
   let searchedNearby = false;
+  // Whether only effect sizes stood between the head and where the reading is ("t = 2.10, d = 0.77, p = .045": the
+  // p is the test's as directly as without the d).
+  let onlyEffectsBefore = true;
 
   for (let parts = 0; parts < MAX_TAIL_PARTS; parts++) {
     if (last === 'effect') {
@@ -132,7 +135,7 @@ function readTail(text: string, draft: ResultDraft): boolean {
       // A second p-value belongs to something else.
       if (draft.p !== null) break;
       draft.p = p;
-      directP ||= last === 'head';
+      directP ||= last === 'head' || (last === 'effect' && onlyEffectsBefore);
       position = draft.end = p.end;
       last = 'p';
       continue;
@@ -140,7 +143,7 @@ function readTail(text: string, draft: ResultDraft): boolean {
     const notSignificantEnd = readNotSignificant(text, next);
     if (notSignificantEnd !== -1) {
       draft.notSignificant = true;
-      directP ||= last === 'head';
+      directP ||= last === 'head' || (last === 'effect' && onlyEffectsBefore);
       position = draft.end = notSignificantEnd;
       last = 'p';
       continue;
@@ -157,6 +160,7 @@ function readTail(text: string, draft: ResultDraft): boolean {
       } else {
         // An interval for something unrecorded (a mean difference): read past it.
         last = 'other';
+        onlyEffectsBefore = false;
       }
       position = interval.end;
       continue;
@@ -185,11 +189,15 @@ function readTail(text: string, draft: ResultDraft): boolean {
         draft.head = { ...draft.head, df: [plainNumber(String(n - 2), 0)], sampleSize: named.value, dfFromSampleSize: true };
         position = draft.end = named.end;
         // Like df written after the value, it leaves a p that follows directly after the head ("r = .30, n = 90, p = .004").
-        if (last !== 'head') last = 'other';
+        if (last !== 'head') {
+          last = 'other';
+          onlyEffectsBefore = false;
+        }
       } else {
         // "MSE = 12.4", "b = 0.3": reported alongside, not recorded, but the result continues.
         position = named.end;
         last = 'other';
+        onlyEffectsBefore = false;
       }
       continue;
     }
@@ -199,6 +207,7 @@ function readTail(text: string, draft: ResultDraft): boolean {
     if (nearby === -1) break;
     position = nearby;
     last = 'other';
+    onlyEffectsBefore = false;
   }
   return directP;
 }

@@ -179,12 +179,16 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('The model fitted (chi square = 5.46, df = 8).\n')).toEqual([]);
   });
 
-  it('reads a correlation whose interval stands between it and its p ("r = .32 [.19, .44], p < .001"), bracketed or labelled', () => {
+  it('reads a correlation whose interval, or a statistic whose effect size, stands between it and its p ("r = .32 [.19, .44], p < .001")', () => {
     for (const interval of ['[0.19, 0.44]', '(0.19, 0.44)', ', 95% CI 0.19–0.44', ', 95% CI [0.19, 0.44]']) {
       expect(readAll(`Anxiety and stress were correlated (r = 0.32 ${interval}, p < .001).\n`), interval).toEqual([['r', [], 0.32, '< .001']]);
     }
     // (A citation's number in brackets is no interval: nothing ties the p to the r.)
     expect(readAll('Anxiety and stress were correlated, r = 0.32 [12], p < .001.\n')).toEqual([]);
+    // Nor does an effect size keep a p from a statistic printed without df ("t = 2.10, d = 0.77, p = .045"); a value
+    // of something else between them does.
+    expect(readAll('Groups differed (t = 2.10, d = 0.77, p = .045).\n')).toEqual([['t', [], 2.1, '= .045']]);
+    expect(readAll('Groups differed (t = 2.10, MSE = 2.1, d = 0.77, p = .045).\n')).toEqual([]);
   });
 
   it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
