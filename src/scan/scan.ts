@@ -35,7 +35,7 @@ export function scanText(text: string): ScanOutput {
 
 /** All results in document order, with offsets into the original text. */
 export function findResults(normalised: NormalisedText): ReportedResult[] {
-  const source = restoreWordComparators(restoreLostEquals(normalised.text));
+  const source = restoreLostSymbols(restoreWordComparators(restoreLostEquals(normalised.text)));
   const results: ReportedResult[] = [];
   const comparators = new ComparatorFinder(source);
   const spans: number[] = [];
@@ -127,6 +127,39 @@ const LOST_EQUALS = /(?<![\p{L}\d])((?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+
 function restoreLostEquals(text: string): string {
   if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
   return text.replace(LOST_EQUALS, '$1=$2');
+}
+
+/**
+ * A text whose italic symbols a PDF's font lost, leaving their values behind: "( = 4.58, = 0.13)" for a mean and
+ * its SD, "(1, 217) = 4.53, = .035" for an F and its p. In a text that shows this damage again and again
+ * (MIN_LOST_SYMBOLS signs with no name before them), two whole df in brackets with nothing before them but a
+ * space after a bracket or punctuation, then "=" and a value, were an F: the space becomes the "F"; and a lost p
+ * right after that value (", = .035", a value under 1) gets its "p" back in the space before its sign. Only two
+ * df whose first is at most the second (an F's); one df in brackets may be any statistic's and is left alone. The
+ * text keeps its length, so offsets do not move.
+ */
+const LOST_SYMBOL_SIGN = /[(,;] = [-\u2212]?\.?\d/g;
+const MIN_LOST_SYMBOLS = 3;
+const LOST_F = /(?<=[(\[,;] |^ )\((\d{1,4}), ?(\d{1,6})\) ?= ?(\d{1,6}(?:\.\d{1,4})?)(, = (?=0?\.\d))?/gm;
+
+function restoreLostSymbols(text: string): string {
+  if (!text.includes(' = ')) return text;
+  const lost = text.match(LOST_SYMBOL_SIGN)?.length ?? 0;
+  if (lost < MIN_LOST_SYMBOLS) return text;
+  let restored = text;
+  for (const match of text.matchAll(LOST_F)) {
+    const [whole, first, second, , lostP] = match;
+    if (Number(first) < 1 || Number(first) > Number(second)) continue;
+    const at = match.index!;
+    // The space before the bracket becomes the F; the space before the lost p's sign, its "p".
+    let fixed = `${restored.slice(0, at - 1)}F${restored.slice(at)}`;
+    if (lostP !== undefined) {
+      const pSpace = at + whole.length - 2;
+      fixed = `${fixed.slice(0, pSpace)}p${fixed.slice(pSpace + 1)}`;
+    }
+    restored = fixed;
+  }
+  return restored;
 }
 
 /**

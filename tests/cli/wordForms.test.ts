@@ -191,6 +191,20 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('Groups differed (t = 2.10, MSE = 2.1, d = 0.77, p = .045).\n')).toEqual([]);
   });
 
+  it('reads an F and its p whose symbols a PDF font lost ("(1, 217) = 4.53, = .035") in a text that lost its symbols again and again', () => {
+    // The damage as an article's PDF text gives it (tests/corpus/real/passages/dwjb-01.txt, CC BY): the means, SDs, F and
+    // p lost their italic letters; the numbers here are made up. (F(1, 217) = 4.53 gives p = .034 and F(1, 217) = 6.39
+    // gives p = .012: SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written.)
+    const damaged =
+      'Participants rated the adaptive agent ( = 4.58, = 0.13) as more adaptable than the consistent one ( = 4.01, = 0.13), (1, 217) = 4.53, = .034. The complimentary agent ( = 4.97, = 0.11) was rated warmer, (1, 217) = 6.39, = .012.\n';
+    expect(readAll(damaged)).toEqual([
+      ['F', [1, 217], 4.53, '= .034'],
+      ['F', [1, 217], 6.39, '= .012'],
+    ]);
+    // (Without that damage elsewhere, two numbers in brackets and a value are no F: a point's coordinates, a range.)
+    expect(readAll('The target appeared at (1, 217) = 4.53 pixels from the centre.\n')).toEqual([]);
+  });
+
   it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
     // chi2(2) = 7.2 gives p = .027 and chi2(1) = 4.10 gives p = .043 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
     // (The first sentence as a journal's figure page gives it: tests/corpus/real/passages/dwfk-01.txt.)
