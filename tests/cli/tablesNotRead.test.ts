@@ -109,4 +109,15 @@ describe('a table that prints F and p without df', () => {
     expect(document.statistics).toEqual([]);
     expect(document.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
   });
+
+  it('lists a table whose caption the PDF text printed below its body, cells one per line, column block by column block', () => {
+    // The table as an article's PDF text gives it (tests/corpus/real/passages/dwof-01.txt, CC BY 4.0): its cells come
+    // column by column before its caption "Table 4. …"; no reader takes them, and the audit lists them as not read.
+    const document = scanDocumentJsonOf('dwof-01.txt');
+    const beforeCaption = document.tablesNotRead.find((table) => table.caption?.startsWith('Table 4.') && table.location.start === 0);
+    expect(beforeCaption?.reason).toBe('layout-not-recognised');
+    // (A paragraph of prose before a title is no table: the block must be mostly numbers alone on their lines.)
+    const prose = scanTextJson(`${'The results are described in the text below, with each measure in turn. '.repeat(4)}\n\nTable 2. Correlations between the measures.\n\nNo values are given here.\n`);
+    expect(prose.tablesNotRead).toEqual([]);
+  });
 });

@@ -109,6 +109,13 @@ function findTitledTables(text: string, tables: readonly DocumentTable[], result
       // (One result read in the block, a test written out in a cell or the caption, does not make the table read.)
       const readInside = results.filter(overlaps).length;
       const numericRows = block.lines.filter((row) => (row.match(/\d/g) ?? []).length >= 2).length;
+      // A PDF's text may set a table's caption below its body: a block of short lines, most of them numbers alone,
+      // right before the title, that overlaps nothing found or listed, is that table.
+      const before = blockBefore(text, lineStart, unread.length > 0 ? unread[unread.length - 1]!.end : 0);
+      const beforeOverlaps = (span: Span): boolean => before !== null && span.start < before.end && before.start < span.end;
+      if (before !== null && !tables.some(beforeOverlaps) && results.filter(beforeOverlaps).length <= MAX_STRAY_RESULTS && looksLikeResults(before.lines, caption)) {
+        unread.push({ tableIndex: null, caption: line.trim(), start: before.start, end: before.end, rowsWithStatistic: before.numberLines, rowsRead: 0, reason: 'layout-not-recognised' });
+      }
       if (!tables.some(overlaps) && readInside <= MAX_STRAY_RESULTS && numericRows > 2 * readInside && looksLikeResults(block.lines, caption)) {
         unread.push({
           tableIndex: null,
@@ -176,6 +183,43 @@ function blockAfter(text: string, titleStart: number, titleEnd: number): { start
     at = next + 1;
   }
   return { start: titleStart, end, lines };
+}
+
+/** Most lines looked at before a title for a table whose caption stands below it. */
+const MAX_LINES_BEFORE = 400;
+/** Share of a block's lines with text that must be numbers alone ("0.20*", "− 0.71") for it to be a table's cells. */
+const MIN_NUMBER_LINE_SHARE = 0.5;
+/** Fewest such lines. */
+const MIN_NUMBER_LINES = 12;
+/** A line that is one number, with its sign, stars or footnote letter ("− 0.71", "0.20*", "<0.001"). */
+const NUMBER_LINE = /^[-\u2212\u2013<>]? ?(?:\d{1,6}(?:[.,]\d{1,6})?|[.,]\d{1,6})[*\u2020\u2021a-h]{0,3}$/;
+
+/**
+ * The block of short lines (one cell each) right before the line at `titleStart`, back to a long line of prose,
+ * another title or `floor`, when at least MIN_NUMBER_LINES of its lines, and most of those with text, are numbers
+ * alone; null otherwise.
+ */
+function blockBefore(text: string, titleStart: number, floor: number): { start: number; end: number; lines: string[]; numberLines: number } | null {
+  if (titleStart <= floor) return null;
+  const lines: string[] = [];
+  let start = titleStart;
+  let end = -1;
+  let at = titleStart - 1;
+  while (at > floor && lines.length < MAX_LINES_BEFORE) {
+    const lineStart = text.lastIndexOf('\n', at - 1) + 1;
+    const line = text.slice(lineStart, at);
+    if (line.length > MAX_TABLE_LINE || TITLE.test(line) || lineStart < floor) break;
+    if (line.trim() !== '' && end === -1) end = at;
+    lines.push(line);
+    start = lineStart;
+    at = lineStart - 1;
+  }
+  const filled = lines.filter((line) => line.trim() !== '');
+  const numberLines = filled.filter((line) => NUMBER_LINE.test(line.trim())).length;
+  if (end === -1 || numberLines < MIN_NUMBER_LINES || numberLines < MIN_NUMBER_LINE_SHARE * filled.length) return null;
+  // (The block starts at its first line with text.)
+  while (start < end && /\s/.test(text[start]!)) start++;
+  return { start, end, lines: lines.reverse(), numberLines };
 }
 
 /** Longest line read as a header of long column names over rows of numbers. */
