@@ -2476,7 +2476,11 @@ function statisticWithDf(
   const cell = row[column] ?? '';
   const match = STATISTIC_WITH_DF.exec(cell);
   if (!match) return null;
-  const dfTexts = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  const bracketed = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  // A chi-square has one df: a pair of whole numbers after it, the second the larger, is its df and its sample size,
+  // as "χ2(1, N = 141)" prints them without the "N =" ("10.84(1, 141)"); the sample size is not a df.
+  const dfAndN = kind === 'chi2' && bracketed.length === 2 && bracketed.every((text) => /^\d+$/.test(text)) && Number(bracketed[1]) > Number(bracketed[0]);
+  const dfTexts = dfAndN ? bracketed.slice(0, 1) : bracketed;
   if (dfTexts.length !== (kind === 'F' ? 2 : 1) || kind === 'z') return null;
   if (dfTexts.some((text) => Number(text) < 1 || (!dfInCell && text.includes('.')))) return null;
   const at = cellsAt?.[column] ?? null;
