@@ -1159,4 +1159,50 @@ describe('results tables in the shapes papers print them', () => {
       ['chi2', 98.12, [1]],
     ]);
   });
+
+  it('reads cells written "r = 0.586*" with the n the group header states over their column, its cells one short on the left (real corpus dwpc-01), piped and with tabs', () => {
+    const groups = ['Day workers (n = 1,966)', 'Night workers (n = 1,223)'];
+    const names = ['Exhaustion', 'Cynicism', 'Exhaustion', 'Cynicism'];
+    const body = [
+      ['KOSS', 'r = 0.586*', 'r = 0.536*', 'r = 0.569*', 'r = 0.486*'],
+      ['PSQI', 'r = 0.300*', 'r = 0.162', 'r = 0.338*', 'r = 0.238*'],
+    ];
+    const piped = ['| ' + groups.join(' | ') + ' | | | |', '|---|---|---|---|---|', '| ' + names.join(' | ') + ' | |', ...body.map((row) => '| ' + row.join(' | ') + ' |')].join('\n');
+    const tabbed = [groups.join('\t') + '\t\t\t', names.join('\t') + '\t', ...body.map((row) => row.join('\t'))].join('\n');
+    for (const table of [piped, tabbed]) {
+      const document = scanTextJson(`Table 3.\nCorrelations of burnout with stress and sleep in day and night workers.\n${table}\n* p < 0.01.\n\nNext.\n`);
+      // df = n - 2 of each column's group: 1964 under the first group's two columns, 1221 under the second's.
+      expect(readAs(document.statistics)).toEqual([
+        ['r', 0.586, [1964]],
+        ['r', 0.536, [1964]],
+        ['r', 0.569, [1221]],
+        ['r', 0.486, [1221]],
+        ['r', 0.3, [1964]],
+        ['r', 0.162, [1964]],
+        ['r', 0.338, [1221]],
+        ['r', 0.238, [1221]],
+      ]);
+    }
+    // Names that do not repeat group by group do not tie two groups to four columns: nothing is read.
+    const untied = scanTextJson(`Table 3.\nCorrelations of burnout.\n| ${groups.join(' | ')} | | | |\n|---|---|---|---|---|\n| Exhaustion | Cynicism | Efficacy | Sleep | |\n${body.map((row) => '| ' + row.join(' | ') + ' |').join('\n')}\n\nNext.\n`);
+    expect(untied.statistics).toEqual([]);
+    // One N stated in the note for the whole table: every column's.
+    const noted = scanTextJson(`Table 3.\nCorrelations of burnout.\n| | Exhaustion | Cynicism |\n|---|---|---|\n| KOSS | r = 0.586* | r = 0.536* |\n| PSQI | r = 0.300* | r = 0.162 |\nNote. N = 120. * p < 0.01.\n\nNext.\n`);
+    expect(readAs(noted.statistics)).toEqual([
+      ['r', 0.586, [118]],
+      ['r', 0.536, [118]],
+      ['r', 0.3, [118]],
+      ['r', 0.162, [118]],
+    ]);
+  });
+
+  it('reads a chi-square cell "10.84(1, 141)" as the value and its df, never the sample size after the df as a second df (real corpus dwpd-01, with tabs)', () => {
+    const document = scanTextJson("Table 6\nResponders by group\nVariables\tPearson's χ2\tP values\tTreated\tControl\nPain\t10.84(1, 141)\tP = 0.001\t25 (37%)\t9 (13%)\nFunction\t8.34(1, 140)\tP = 0.006\t40 (60%)\t23 (34%)\nMobility\t1.38 (1, 139)\tP = 0.265\t23 (34%)\t17 (25%)\n\nNext.\n");
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 10.84, [1]],
+      ['chi2', 8.34, [1]],
+      ['chi2', 1.38, [1]],
+    ]);
+    expect(document.statistics.map((statistic) => statistic.p?.value)).toEqual([0.001, 0.006, 0.265]);
+  });
 });
