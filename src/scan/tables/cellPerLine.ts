@@ -207,6 +207,16 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
     headerRun = [...unnamed, ...headerRun];
     first = cells.indexOf(unnamed[0]!);
   }
+  // Fewer names than the rows' values, every name known ("Variables" / "Pearson's χ2" / "P values" over rows of four
+  // values): the columns after the last known name are named by the short cells right after it that no vocabulary
+  // knows ("OAK", "Control"), as many as are missing, when a text cell is left for the first row's label.
+  const namedAfter = grid === null && unnamed === null && titled ? unnamedColumnsAfter(body, headerRun) : null;
+  if (namedAfter !== null) {
+    const lastName = namedAfter[namedAfter.length - 1]!;
+    headerRun = [...headerRun, ...namedAfter];
+    bodyStart = cells.indexOf(lastName) + 1;
+    body = body.slice(body.indexOf(lastName) + 1);
+  }
   // Without a title, nothing but the header says where the table starts: its names must match the rows' values
   // one to one (a header cut off above, "MD" / "t (df=29)" / "Sig." over seven values, is not read).
   if (!titled && headerRun.filter((cell) => classifyHeader(cell.text).role !== 'label').length !== valueCount) return null;
@@ -218,6 +228,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
       ? headerRun
       : unnamed !== null
         ? headerRun
+        : namedAfter !== null
+          ? valueNames
         : valueCount >= 2 && headerRun.length > valueCount
           ? headerRun.slice(headerRun.length - valueCount)
           : valueCount >= 2 && valueNames.length === valueCount
@@ -366,6 +378,49 @@ const SAYS_CORRELATIONS = /correlat/i;
 const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric/i;
 /** Longest cell taken as the name of a column no vocabulary knows. */
 const MAX_UNNAMED_COLUMN = 40;
+
+/**
+ * The cells that name the columns after a header's last known name: the short text cells that open `body`, as many
+ * as the rows' values (up to each row's last filled one, in most rows) outnumber the header's names of value
+ * columns, all of which must be known names; null unless there are exactly that many before the first empty or
+ * value cell and a text cell is left after them for the first row's label.
+ */
+function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
+  const valueNames = headerRun.length > 0 && classifyHeader(headerRun[0]!.text).role === 'label' ? headerRun.slice(1) : headerRun;
+  if (valueNames.length < 2 || !valueNames.every((cell) => isColumnName(cell.text) && !['label', 'unknown'].includes(classifyHeader(cell.text).role))) return null;
+  const missing = typicalFilledValues(body) - valueNames.length;
+  if (missing < 1) return null;
+  const names: Cell[] = [];
+  let at = 0;
+  while (at < body.length && names.length < missing && !isValueCell(body[at]!) && body[at]!.text.length <= MAX_UNNAMED_COLUMN && !isColumnName(body[at]!.text)) names.push(body[at++]!);
+  if (names.length !== missing || at >= body.length || (isValueCell(body[at]!) && !body[at]!.empty)) return null;
+  // (The first row's label: a text cell before the first value.)
+  const firstValue = body.findIndex((cell, index) => index >= at && isValueCell(cell) && !cell.empty);
+  return firstValue > at && body.slice(at, firstValue).some((cell) => !cell.empty && !isValueCell(cell)) ? names : null;
+}
+
+/** The number of values most runs of values in `cells` hold up to their last filled one (0 when none). */
+function typicalFilledValues(cells: Cell[]): number {
+  const counts = new Map<number, number>();
+  let index = 0;
+  while (index < cells.length) {
+    if (!isValueCell(cells[index]!)) {
+      index++;
+      continue;
+    }
+    let end = index;
+    let filled = 0;
+    while (end < cells.length && isValueCell(cells[end]!)) {
+      if (!cells[end]!.empty) filled = end - index + 1;
+      end++;
+    }
+    if (filled > 0) counts.set(filled, (counts.get(filled) ?? 0) + 1);
+    index = end;
+  }
+  let best = 0;
+  for (const [count, times] of counts) if (times > (counts.get(best) ?? 0)) best = count;
+  return best;
+}
 
 /**
  * The `missing` cells right before the header's first known name, when each is a short cell on a line of its

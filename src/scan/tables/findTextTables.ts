@@ -105,7 +105,11 @@ export function findTextTables(text: string): DocumentTable[] {
       index = software.lastLine + 1;
       continue;
     }
-    const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
+    // Under a title, a column of lines each closed by a pipe ("10.84(1, 141) |", "|") is a table a web page copied
+    // one cell per line, not a pipe table of one column: the one-cell-per-line reader reads it.
+    const piped = readPipeTable(lines, index);
+    const cellPerLineWithPipes = piped !== null && TITLE.test(lines[index]!.text) && piped.rows.every((row) => row.filter((cell) => cell.trim() !== '').length <= 1);
+    const found = cellPerLineWithPipes ? null : (piped ?? readTabTable(lines, index) ?? readSpacedTable(lines, index));
     if (found === null) {
       const rebuilt =
         (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index) ?? readGluedMatrix(lines, index)) : null) ??
