@@ -1196,13 +1196,29 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
-  it('reads a chi-square cell "10.84(1, 141)" as the value and its df, never the sample size after the df as a second df (real corpus dwpd-01, with tabs)', () => {
-    const document = scanTextJson("Table 6\nResponders by group\nVariables\tPearson's χ2\tP values\tTreated\tControl\nPain\t10.84(1, 141)\tP = 0.001\t25 (37%)\t9 (13%)\nFunction\t8.34(1, 140)\tP = 0.006\t40 (60%)\t23 (34%)\nMobility\t1.38 (1, 139)\tP = 0.265\t23 (34%)\t17 (25%)\n\nNext.\n");
-    expect(readAs(document.statistics)).toEqual([
-      ['chi2', 10.84, [1]],
-      ['chi2', 8.34, [1]],
-      ['chi2', 1.38, [1]],
-    ]);
-    expect(document.statistics.map((statistic) => statistic.p?.value)).toEqual([0.001, 0.006, 0.265]);
+  it('reads a chi-square cell "10.84(1, 141)" as the value and its df, never the sample size after the df as a second df (real corpus dwpd-01), with tabs and one cell per line closed by pipes', () => {
+    const header = ['Variables', "Pearson's χ2", 'P values', 'Treated', 'Control'];
+    const body = [
+      ['Pain', '10.84(1, 141)', 'P = 0.001', '25 (37%)', '9 (13%)'],
+      ['Function', '8.34(1, 140)', 'P ≤ 0.006', '40 (60%)', '23 (34%)'],
+      ['Mobility', '1.38 (1, 139)', 'P = 0.265', '23 (34%)', '17 (25%)'],
+    ];
+    const tabbed = [header, ...body].map((row) => row.join('\t')).join('\n');
+    // As an old table page copies it: each cell on its line closed by " |", a lone "|" after each row, "||||" between
+    // the header and a section row; the header names the two group columns after the known names.
+    const piped = ['Table 6 |', '||||', '|', 'Responders by group |', '||||', '|', ...header.map((cell) => `${cell} |`), '|', '||||', '|', 'At 8 weeks |', '||||', '|', ...body.flatMap((row) => [...row.map((cell) => `${cell} |`), '|'])].join('\n');
+    for (const table of [`Table 6\nResponders by group\n${tabbed}`, piped]) {
+      const document = scanTextJson(`${table}\n\nNext.\n`);
+      expect(readAs(document.statistics)).toEqual([
+        ['chi2', 10.84, [1]],
+        ['chi2', 8.34, [1]],
+        ['chi2', 1.38, [1]],
+      ]);
+      expect(document.statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value])).toEqual([
+        ['=', 0.001],
+        ['<=', 0.006],
+        ['=', 0.265],
+      ]);
+    }
   });
 });
