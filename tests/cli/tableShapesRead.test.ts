@@ -1221,4 +1221,17 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it('reads a table on its side whose chi-square row names its df in a subscript ("Chisquare (χ^{2 })_{df = 3}"), one cell per line (real corpus dwpf-01)', () => {
+    const cells = ['Setting ', 'Site 1^{1} ', 'Site 2^{2} ', '', 'a. Clinic ', '48 (58%) ', '33 (58%) ', 'b. Home ', '35 (42%) ', '24 (42%) ', 'Total ', '83 ', '57 ', 'Chisquare (χ^{2 })_{df = 3} ', '67.6 ', '38.9 ', 'p value ', '<0.0001 ', '<0.0001 '];
+    const document = scanTextJson(`Table 4 \n\nSetting of recruitment by site \n\n${cells.join('\n')}\n\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 67.6, [3]],
+      ['chi2', 38.9, [3]],
+    ]);
+    expect(document.statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value])).toEqual([
+      ['<', 0.0001],
+      ['<', 0.0001],
+    ]);
+  });
 });
