@@ -19,6 +19,7 @@ import { scanText } from '../scan.js';
 import { normaliseText } from '../normalise.js';
 import { readNameAndValue } from '../effects.js';
 import { readPValue } from '../pValue.js';
+import { splitMarks } from './marks.js';
 
 /** What a body cell holds, as far as fitting it to a column goes. */
 export type CellShape =
@@ -126,6 +127,9 @@ export function shapeOf(cell: string): CellShape {
   if (withP) return { shape: 'statistic-p', value: Number(withP[1]) };
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (readsAsWrittenResult(text)) return { shape: 'written' };
+    // A result written with significance marks after it ("r = 0.586*"): the marks do not make it a label.
+    const { number: beforeMarks, marks } = splitMarks(text);
+    if (marks !== '' && readsAsWrittenResult(beforeMarks)) return { shape: 'written' };
     const normalised = normaliseText(text).text;
     const pRead = readPValue(normalised, 0);
     if (pRead !== null && pRead.end >= normalised.trimEnd().length - 1) return { shape: 'p-cell' };

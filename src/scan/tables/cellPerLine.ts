@@ -253,6 +253,13 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
     rows.unshift(['', ...dfTitles.map((cell) => cell.text)]);
     spans.unshift([null, ...dfTitles.map(spanOf1)]);
   }
+  // Titles of groups side by side that state each group's size ("Non-shift workers (n = 1,966)") before a grid's
+  // column names: an upper header row too (the correlations' df come from those sizes), not caption lines.
+  const sizeTitles = grid !== null && dfTitles.length === 0 ? cells.slice(0, first).filter((cell) => !cell.empty && cell.line > titleLine && cell.text.length <= MAX_GROUP_TITLE && GROUP_SIZE.test(cell.text)) : [];
+  if (sizeTitles.length > 0) {
+    rows.unshift(['', ...sizeTitles.map((cell) => cell.text)]);
+    spans.unshift([null, ...sizeTitles.map(spanOf1)]);
+  }
   let pendingText: Cell[] = [];
   let index = 0;
   // (A header that took every cell leaves no body: no table.)
@@ -287,10 +294,10 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
     table: {
       start: title.start + (title.text.length - title.text.trimStart().length),
       end: lastCell.end,
-      caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first)) : title.text.trim(),
+      caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first).filter((cell) => !sizeTitles.includes(cell))) : title.text.trim(),
       notes: [],
       rows,
-      headerRows: dfTitles.length > 0 ? 2 : 1,
+      headerRows: dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1,
       cells: spans,
       layout: 'cell-per-line',
     },
@@ -372,6 +379,11 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
   if (tailEmpties !== null && tailEmpties.at + tailEmpties.run < cells.length) cells.splice(tailEmpties.at, tailEmpties.run);
   return cells;
 }
+
+/** A group's title that states its size: "Non-shift workers (n = 1,966)", "Women, N = 90". */
+const GROUP_SIZE = /\b[nN] ?= ?\d{1,3}(?:,\d{3})*\)?$/;
+/** Longest group title over a grid's columns. */
+const MAX_GROUP_TITLE = 80;
 
 /** A title that says the table holds correlations; and one that says they are of another kind (their df are not N − 2). */
 const SAYS_CORRELATIONS = /correlat/i;

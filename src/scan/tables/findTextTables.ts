@@ -31,7 +31,6 @@ import { EndTags, readHtmlTableInText } from './htmlInText.js';
 import { readSpssCorrelations } from './spssCorrelations.js';
 import { readSpreadsheetTest } from './spreadsheetTests.js';
 import { readTransposedTable } from './transposed.js';
-import { splitMarks } from './marks.js';
 
 interface Line extends TextLine {
   /** Cells are separated by single spaces whatever the gaps look like (see withConsistentSeparators). */
@@ -793,9 +792,6 @@ function readsAsValueToken(text: string): boolean {
   // A range ("0.000-0.048", an interval's bounds), and a result written in a cell ("F(2,75)=0.31"), are values of the row too.
   const shape = shapeOf(text).shape;
   if (shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written') return true;
-  // A result written with its significance marks ("r = 0.586*"): the marks after it keep it a value of the row.
-  const { number: beforeMarks, marks } = splitMarks(text);
-  if (marks !== '' && shapeOf(beforeMarks).shape === 'written') return true;
   // "<0.001 (1, 6)": a p with the next F's df run onto it (the table reader takes the df for that F).
   return P_WITH_DF_AFTER.test(text);
 }
