@@ -127,9 +127,10 @@ export function shapeOf(cell: string): CellShape {
   if (withP) return { shape: 'statistic-p', value: Number(withP[1]) };
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (readsAsWrittenResult(text)) return { shape: 'written' };
-    // A result written with significance marks after it ("r = 0.586*"): the marks do not make it a label.
+    // A result written with significance marks after it ("r = 0.586*"): the marks do not make it a label. (Only a
+    // cell that opens with the statistic: a whole row of cells run together ends with marks too.)
     const { number: beforeMarks, marks } = splitMarks(text);
-    if (marks !== '' && readsAsWrittenResult(beforeMarks)) return { shape: 'written' };
+    if (marks !== '' && OPENS_WITH_SYMBOL.test(beforeMarks) && readsAsWrittenResult(beforeMarks)) return { shape: 'written' };
     const normalised = normaliseText(text).text;
     const pRead = readPValue(normalised, 0);
     if (pRead !== null && pRead.end >= normalised.trimEnd().length - 1) return { shape: 'p-cell' };
@@ -181,6 +182,9 @@ export function readsAsWrittenResult(cell: string): boolean {
 
 /** A statistic's symbol, its df perhaps, then "=": "rs = ", "t = ", "χ2 = ", "F(2, 57) =". */
 const SYMBOL_BEFORE_EQUALS = /(?:^|[^A-Za-z])(?:r|rs|r_s|rho|Rho|\u03c1|t|F|z|Z|H|[\u03c7\u03a7xX]\s?[2\u00b2]|[Cc]hi[-\s^]?(?:2|square[d]?))\s{0,2}(?:\([^()]{0,20}\)\s{0,2})?=/;
+
+/** A cell that opens with a statistic's symbol, its df perhaps, then "=" and no cell separator: "r = ", "F(2, 57) =". */
+const OPENS_WITH_SYMBOL = /^(?:r|rs|r_s|rho|\u03c1|t|F|z|Z|H|[\u03c7\u03a7xX]\s?[2\u00b2]|[Cc]hi[-\s^]?(?:2|square[d]?))\s{0,2}(?:\([^()|]{0,20}\)\s{0,2})?=[^|\t]*$/;
 
 /** Longest cell read as a written result waiting for its row's p. */
 const MAX_WRITTEN_CELL = 80;

@@ -244,7 +244,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (grid === null && (known < (everyCell ? 1 : 2) || names.length < 2 || !(namesTest || holdsResults))) return null;
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
   const startsWithLabel = grid === null && classifyHeader(cells[first]!.text).role === 'label';
-  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));
+  // (In a grid, a group's title that states its size, "Night workers (n = 1,223)", heads its columns, not the labels.)
+  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
   // Block titles that carry their df ("Treatment (num. df = 1)") before the column names: an upper header row.
