@@ -148,7 +148,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const head = collectCells(lines, titleLine + 1, titleLine + MAX_LINES_TO_HEADER, MAX_CELLS_TO_HEADER);
   const headFirstCell = head.find((cell) => !cell.empty);
   if (headerStart(head, titleLine) === -1 && headFirstCell !== undefined && !captionOf(lines, titleLine, titled, headFirstCell).correlations) return null;
-  const cells = collectCells(lines, titleLine + 1);
+  // (Under a title that says correlations, the grid's columns are named by no known name: empty lines among its first
+  // cells are cells too, a copy's empty header cells, "Non-shift workers (n = 1,966)" / "" / "" / "Exhaustion".)
+  const cells = collectCells(lines, titleLine + 1, Infinity, Infinity, captionOf(lines, titleLine, titled, headFirstCell).correlations);
   // The header: from the first known column name, the run of cells up to the first value.
   let first = headerStart(cells, titleLine);
   // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
@@ -311,7 +313,7 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
  * (and, when given, no further than line `lastLine`, and no further than the line that brings the cells with
  * text to `mostTextCells`: the first cells of the same collection, apart from empty cells at its end).
  */
-function collectCells(lines: Line[], from: number, lastLine = Infinity, mostTextCells = Infinity): Cell[] {
+function collectCells(lines: Line[], from: number, lastLine = Infinity, mostTextCells = Infinity, correlations = false): Cell[] {
   const cells: Cell[] = [];
   let textCells = 0;
   let blankRun = 0;
@@ -331,7 +333,7 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
       if (blankRun === 0 && adjacentCells >= MIN_ADJACENT_CELLS && adjacentCells > 3 * separatedCells) {
         const run = emptyCellLines(lines, index);
         // (Only in the header's rows and after them: a caption's blank lines are not cells.)
-        if (run > 0 && (headerSeen || isColumnName(lines[index + run]!.text.trim()))) {
+        if (run > 0 && (headerSeen || correlations || isColumnName(lines[index + run]!.text.trim()))) {
           for (let offset = 0; offset < run; offset++) cells.push({ text: '', start: lines[index + offset]!.start, end: lines[index + offset]!.start, line: index + offset, empty: true });
           tailEmpties = { at: cells.length - run, run };
           index += run - 1;
