@@ -1400,13 +1400,18 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     index++;
   }
   if (!CORRELATIONS_TITLE.test(`${title.text} ${caption}`)) return null;
+  // Cells that write each correlation with its symbol ("r = 0.586*") hold spaces themselves: where the rows set such
+  // cells apart by wide gaps, every line of the block is cut at its gaps, not at its spaces, and the header's lines
+  // are kept as its rows (group titles over the columns' names).
+  const written = writtenCellsApart(lines, index);
+  const cellsOf = (text: string): readonly Piece[] => (written ? alignedCells(text) : tokenize(text));
   const headers: string[][] = [];
   for (; index < lines.length && headers.length < MAX_CORRELATION_HEADER_LINES; index++) {
     const line = lines[index]!;
     if (isBlank(line)) continue;
     // Rows with pipes or tabs are read by the pipe and tab readers.
     if (/[|\t]/.test(line.text)) return null;
-    const tokens = tokenize(line.text);
+    const tokens = cellsOf(line.text);
     // (A label and a dash alone is the matrix's first row, its diagonal: "Anxiety —".)
     const diagonalOnly = tokens.length >= 2 && /^[-\u2013\u2014\u2212]$/.test(tokens[tokens.length - 1]!.text);
     // (Columns numbered 1, 2, 3, … after the labels' name, "Factors 1 2 3 4", are a header, not a row.)
@@ -1428,9 +1433,9 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     const line = lines[index]!;
     if (isBlank(line)) continue;
     // A page's running head or number between two rows of the matrix (the rows go on after it with as many values).
-    if (rows.length > 0 && isPageFurniture(line.text) && rowOfWidthFollows(lines, index, valuesWithoutMarks(rows[rows.length - 1]!.slice(1)))) continue;
+    if (rows.length > 0 && isPageFurniture(line.text) && rowOfWidthFollows(lines, index, valuesWithoutMarks(rows[rows.length - 1]!.slice(1)), cellsOf)) continue;
     if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
-    const tokens = tokenize(line.text);
+    const tokens = cellsOf(line.text);
     const numberLabel = numberLabelLength(tokens, headers[headers.length - 1], rows.length);
     const first = numberLabel > 0 ? numberLabel : tokens.findIndex((token) => isValueToken(token.text));
     // A label the page wrapped over two lines, numbered ("1. SPAS a" / "Total Score - - -") or going on in small
@@ -1446,6 +1451,21 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     last = index;
   }
   if (rows.length < 2) return null;
+  // (Cells that write their symbol say what they hold; which n each takes is left to the reader of such cells.)
+  if (written && headers.length > 0) {
+    return {
+      table: {
+        start: title.start + leadingSpace(title.text),
+        end: lines[last]!.start + lines[last]!.text.trimEnd().length,
+        caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
+        notes: readNotes(lines, last + 1).notes,
+        rows: [...headers, ...rows],
+        headerRows: headers.length,
+        layout: 'aligned',
+      },
+      lastLine: last,
+    };
+  }
   const header = headers.length > 0 ? headers[headers.length - 1]! : [''];
   // Without known column names, the structure must show itself: the columns are named by the rows' own labels (a
   // matrix), or the table is left to be listed as not read.
@@ -1468,6 +1488,24 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     },
     lastLine: last,
   };
+}
+
+/** Lines looked at for a row of written results set apart by wide gaps. */
+const MAX_LINES_TO_WRITTEN_ROW = 6;
+
+/**
+ * Whether one of the first lines from `from` is a row of a label and results written with their symbol, each
+ * apart by two or more spaces ("KOSS   r = 0.586*   r = 0.536*   r = 0.535*").
+ */
+function writtenCellsApart(lines: Line[], from: number): boolean {
+  let seen = 0;
+  for (let index = from; index < lines.length && seen < MAX_LINES_TO_WRITTEN_ROW; index++) {
+    if (isBlank(lines[index])) continue;
+    seen++;
+    const cells = alignedCells(lines[index]!.text);
+    if (cells.length >= 3 && cells.slice(1).every((cell) => shapeOf(cell.text).shape === 'written')) return true;
+  }
+  return false;
 }
 
 /**
@@ -1512,11 +1550,11 @@ function valuesWithoutMarks(cells: readonly string[]): number {
 }
 
 /** Whether, past blank lines and page furniture, the next line is a labelled row of `width` values (marks apart). */
-function rowOfWidthFollows(lines: Line[], index: number, width: number): boolean {
+function rowOfWidthFollows(lines: Line[], index: number, width: number, cellsOf: (text: string) => readonly Piece[] = tokenize): boolean {
   let next = index + 1;
   while (next < lines.length && next - index <= MAX_PAGE_BREAK_LINES && (isBlank(lines[next]) || isPageFurniture(lines[next]!.text))) next++;
   if (next >= lines.length || next - index > MAX_PAGE_BREAK_LINES) return false;
-  const tokens = tokenize(lines[next]!.text);
+  const tokens = cellsOf(lines[next]!.text);
   const first = tokens.findIndex((token) => isValueToken(token.text));
   return first > 0 && valuesWithoutMarks(tokens.slice(first).map((token) => token.text)) === width;
 }
