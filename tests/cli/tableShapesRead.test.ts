@@ -1160,7 +1160,7 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
-  it('reads cells written "r = 0.586*" with the n the group header states over their column, its cells one short on the left (real corpus dwpc-01), piped, with tabs, aligned by spaces and one cell per line (blank lines between cells, or empty cells as empty lines)', () => {
+  it('reads cells written "r = 0.586*" with the n the group header states over their column, its cells one short on the left (real corpus dwpc-01), in every copy: piped, tabs, aligned, crushed, one cell per line (blank lines between cells, or empty cells as empty lines)', () => {
     const groups = ['Day workers (n = 1,966)', 'Night workers (n = 1,223)'];
     const names = ['Exhaustion', 'Cynicism', 'Exhaustion', 'Cynicism'];
     const body = [
@@ -1175,7 +1175,9 @@ describe('results tables in the shapes papers print them', () => {
     const consecutive = [...groups, '', '', '', ...names, '', ...body.flat()].join('\n');
     // Aligned by runs of spaces.
     const aligned = [groups, names, ...body].map((row) => row.join('   ')).join('\n');
-    for (const table of [piped, tabbed, perLine, consecutive, aligned]) {
+    // Crushed into single spaces.
+    const crushed = [groups, names, ...body].map((row) => row.join(' ')).join('\n');
+    for (const table of [piped, tabbed, perLine, consecutive, aligned, crushed]) {
       const document = scanTextJson(`Table 3.\nCorrelations of burnout with stress and sleep in day and night workers.\n${table}\n* p < 0.01.\n\nNext.\n`);
       // df = n - 2 of each column's group: 1964 under the first group's two columns, 1221 under the second's.
       expect(readAs(document.statistics)).toEqual([

@@ -1403,8 +1403,11 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   // Cells that write each correlation with its symbol ("r = 0.586*") hold spaces themselves: where the rows set such
   // cells apart by wide gaps, every line of the block is cut at its gaps, not at its spaces, and the header's lines
   // are kept as its rows (group titles over the columns' names).
-  const written = writtenCellsApart(lines, index);
-  const cellsOf = (text: string): readonly Piece[] => (written ? alignedCells(text) : tokenize(text));
+  // (Crushed into single spaces, the rows are cut before each result's symbol and a header line of group titles after
+  // each group's size, "Non-shift workers (n = 1,966) Regularly rotating shift workers (n = 1,936)".)
+  const written = writtenCellsApart(lines, index) ? 'apart' : writtenCellsCrushed(lines, index) ? 'crushed' : null;
+  const cellsOf = (text: string): readonly Piece[] =>
+    written === 'apart' ? alignedCells(text) : written === 'crushed' ? (writtenRowCells(text) ?? groupTitleCells(text) ?? tokenize(text)) : tokenize(text);
   const headers: string[][] = [];
   for (; index < lines.length && headers.length < MAX_CORRELATION_HEADER_LINES; index++) {
     const line = lines[index]!;
@@ -1452,7 +1455,7 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   }
   if (rows.length < 2) return null;
   // (Cells that write their symbol say what they hold; which n each takes is left to the reader of such cells.)
-  if (written && headers.length > 0) {
+  if (written !== null && headers.length > 0) {
     return {
       table: {
         start: title.start + leadingSpace(title.text),
@@ -1492,6 +1495,56 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
 
 /** Lines looked at for a row of written results set apart by wide gaps. */
 const MAX_LINES_TO_WRITTEN_ROW = 6;
+
+/** A correlation written with its symbol and marks, as a piece of a crushed row: "r = 0.586*", "ρ = −.12". */
+const WRITTEN_R_PIECE = /(?:^|(?<= ))(?:r|\u03c1) ?= ?[-\u2212\u2013]?\d?\.\d{1,4}(?:\*{1,4}|\u2020{1,2}|\u2021{1,2})?(?= |$)/g;
+/** A group's size closing its title: "(n = 1,966)", "n = 90". */
+const GROUP_SIZE_CLOSING = /\(?[nN] ?= ?\d{1,3}(?:,\d{3})*\)?(?= |$)/g;
+
+/** A crushed row of a label and two or more correlations written with their symbol ("KOSS r = 0.586* r = 0.536*"), cut into its cells; null otherwise. */
+function writtenRowCells(text: string): Piece[] | null {
+  const matches = [...text.matchAll(WRITTEN_R_PIECE)];
+  if (matches.length < 2) return null;
+  const labelEnd = matches[0]!.index!;
+  const label = text.slice(0, labelEnd).trim();
+  if (label === '') return null;
+  const start = leadingSpace(text);
+  const cells: Piece[] = [{ text: label, start, end: start + label.length }];
+  let at = labelEnd;
+  for (const match of matches) {
+    // (Nothing but spaces between two results: the row is made of them.)
+    if (text.slice(at, match.index).trim() !== '') return null;
+    cells.push({ text: match[0], start: match.index!, end: match.index! + match[0].length });
+    at = match.index! + match[0].length;
+  }
+  return text.slice(at).trim() === '' ? cells : null;
+}
+
+/** A crushed line of two or more group titles, each closed by its size ("Day workers (n = 1,966) Night workers (n = 1,223)"), cut after each size; null otherwise. */
+function groupTitleCells(text: string): Piece[] | null {
+  const cells: Piece[] = [];
+  let at = leadingSpace(text);
+  for (const match of text.matchAll(GROUP_SIZE_CLOSING)) {
+    const end = match.index! + match[0].length;
+    const title = text.slice(at, end).trim();
+    if (title === match[0]) return null;
+    const start = at + (text.slice(at, end).length - text.slice(at, end).trimStart().length);
+    cells.push({ text: title, start, end });
+    at = end;
+  }
+  return cells.length >= 2 && text.slice(at).trim() === '' ? cells : null;
+}
+
+/** Whether one of the first lines from `from` is a crushed row of a label and correlations written with their symbol. */
+function writtenCellsCrushed(lines: Line[], from: number): boolean {
+  let seen = 0;
+  for (let index = from; index < lines.length && seen < MAX_LINES_TO_WRITTEN_ROW; index++) {
+    if (isBlank(lines[index])) continue;
+    seen++;
+    if (writtenRowCells(lines[index]!.text) !== null) return true;
+  }
+  return false;
+}
 
 /**
  * Whether one of the first lines from `from` is a row of a label and results written with their symbol, each

@@ -137,15 +137,18 @@ function columnSampleSizes(table: DocumentTable, headerCount: number, valueColum
 }
 
 /**
- * Whether the filled cells of the header row under the groups are as many as the value columns and name the same
- * variables in every block of `perGroup` columns ("Exhaustion | Cynicism | Exhaustion | Cynicism"): the layout of
- * groups side by side, each over its own copy of the columns.
+ * Whether the filled cells of the header row under the groups name the same variables group after group
+ * ("Exhaustion | Cynicism | Exhaustion | Cynicism"; or, crushed into words, "Exhaustion Cynicism Professional
+ * efficacy" three times over three groups): the layout of groups side by side, each over its own copy of the
+ * columns, so that each group spans `perGroup` of them.
  */
 function namesRepeat(row: string[] | undefined, valueCount: number, perGroup: number): boolean {
   if (row === undefined) return false;
   const names = row.map((cell) => cell.trim().toLowerCase()).filter((cell) => cell !== '');
-  if (names.length !== valueCount) return false;
-  return names.every((name, index) => name === names[index % perGroup]);
+  const groups = valueCount / perGroup;
+  if (names.length % groups !== 0) return false;
+  const period = names.length / groups;
+  return names.every((name, index) => name === names[index % period]);
 }
 
 /** The one sample size the caption and notes state for the whole table ("N = 214"), as every column's; null when they state none or several. */
