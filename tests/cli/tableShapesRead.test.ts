@@ -1194,6 +1194,8 @@ describe('results tables in the shapes papers print them', () => {
     // Names that do not repeat group by group do not tie two groups to four columns: nothing is read.
     const untied = scanTextJson(`Table 3.\nCorrelations of burnout.\n| ${groups.join(' | ')} | | | |\n|---|---|---|---|---|\n| Exhaustion | Cynicism | Efficacy | Sleep | |\n${body.map((row) => '| ' + row.join(' | ') + ' |').join('\n')}\n\nNext.\n`);
     expect(untied.statistics).toEqual([]);
+    const untiedCrushed = scanTextJson(`Table 3.\nCorrelations of burnout.\n${groups.join(' ')}\nExhaustion Cynicism Efficacy Sleep\n${body.map((row) => row.join(' ')).join('\n')}\n\nNext.\n`);
+    expect(untiedCrushed.statistics).toEqual([]);
     // One N stated in the note for the whole table: every column's.
     const noted = scanTextJson(`Table 3.\nCorrelations of burnout.\n| | Exhaustion | Cynicism |\n|---|---|---|\n| KOSS | r = 0.586* | r = 0.536* |\n| PSQI | r = 0.300* | r = 0.162 |\nNote. N = 120. * p < 0.01.\n\nNext.\n`);
     expect(readAs(noted.statistics)).toEqual([
