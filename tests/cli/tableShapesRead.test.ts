@@ -1230,6 +1230,10 @@ describe('results tables in the shapes papers print them', () => {
         ['=', 0.265],
       ]);
     }
+    // A section's title right after the known names ("Demographics") over rows with one value more, whose first values
+    // do not fit the known columns (a count under χ2, the chi-square under p): no column is named after it, nothing read.
+    const section = scanTextJson('Table 2\nSample by group\n\nVariable\nχ2\np\nDemographics\nAge\n50\n3.21\n.073\nIncome\n48\n1.10\n.294\nSchooling\n52\n0.44\n.507\n\nNext.\n');
+    expect(section.statistics).toEqual([]);
   });
 
   it('reads a table on its side whose chi-square row names its df in a subscript ("Chisquare (χ^{2 })_{df = 3}"), one cell per line (real corpus dwpf-01)', () => {

@@ -28,7 +28,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { classifyHeader, headerKey, isKnownHeader, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
-import { shapeOf } from './align.js';
+import { fit, shapeOf } from './align.js';
 
 type Line = TextLine;
 
@@ -411,12 +411,18 @@ function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
   if (names.length !== missing || at >= body.length || (isValueCell(body[at]!) && !body[at]!.empty)) return null;
   // (The first row's label: a text cell before the first value.)
   const firstValue = body.findIndex((cell, index) => index >= at && isValueCell(cell) && !cell.empty);
-  return firstValue > at && body.slice(at, firstValue).some((cell) => !cell.empty && !isValueCell(cell)) ? names : null;
+  if (firstValue <= at || !body.slice(at, firstValue).some((cell) => !cell.empty && !isValueCell(cell))) return null;
+  // The names stand before the unnamed columns in the header, so the rows' first values are the known columns': each
+  // must fit its column ("10.84(1, 141)" a chi-square, "P = 0.001" a p). A section's title taken for a name, over a
+  // column that stands elsewhere, puts a value under the wrong name, which this refuses.
+  const roles = valueNames.map((cell) => classifyHeader(cell.text));
+  const fullRuns = valueRuns(body).filter((run) => filledLength(run) === valueNames.length + missing);
+  return fullRuns.length > 0 && fullRuns.every((run) => roles.every((role, column) => fit(role, shapeOf(run[column]!.text)) > 0)) ? names : null;
 }
 
-/** The number of values most runs of values in `cells` hold up to their last filled one (0 when none). */
-function typicalFilledValues(cells: Cell[]): number {
-  const counts = new Map<number, number>();
+/** The runs of value cells (a row's values) in `cells`. */
+function valueRuns(cells: Cell[]): Cell[][] {
+  const runs: Cell[][] = [];
   let index = 0;
   while (index < cells.length) {
     if (!isValueCell(cells[index]!)) {
@@ -424,13 +430,26 @@ function typicalFilledValues(cells: Cell[]): number {
       continue;
     }
     let end = index;
-    let filled = 0;
-    while (end < cells.length && isValueCell(cells[end]!)) {
-      if (!cells[end]!.empty) filled = end - index + 1;
-      end++;
-    }
-    if (filled > 0) counts.set(filled, (counts.get(filled) ?? 0) + 1);
+    while (end < cells.length && isValueCell(cells[end]!)) end++;
+    runs.push(cells.slice(index, end));
     index = end;
+  }
+  return runs;
+}
+
+/** How many of a run's values come up to its last filled one. */
+function filledLength(run: Cell[]): number {
+  let length = run.length;
+  while (length > 0 && run[length - 1]!.empty) length--;
+  return length;
+}
+
+/** The number of values most runs of values in `cells` hold up to their last filled one (0 when none). */
+function typicalFilledValues(cells: Cell[]): number {
+  const counts = new Map<number, number>();
+  for (const run of valueRuns(cells)) {
+    const filled = filledLength(run);
+    if (filled > 0) counts.set(filled, (counts.get(filled) ?? 0) + 1);
   }
   let best = 0;
   for (const [count, times] of counts) if (times > (counts.get(best) ?? 0)) best = count;
