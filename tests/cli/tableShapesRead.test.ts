@@ -1303,4 +1303,93 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 2.9, [4, 500]],
     ]);
   });
+
+  it('reads cells written "r = 0.586*" with the n the group header states over their column, its cells one short on the left (real corpus dwpc-01), in every copy: piped, tabs, aligned, crushed, one cell per line (blank lines between cells, or empty cells as empty lines)', () => {
+    const groups = ['Day workers (n = 1,966)', 'Night workers (n = 1,223)'];
+    const names = ['Exhaustion', 'Cynicism', 'Exhaustion', 'Cynicism'];
+    const body = [
+      ['KOSS', 'r = 0.586*', 'r = 0.536*', 'r = 0.569*', 'r = 0.486*'],
+      ['PSQI', 'r = 0.300*', 'r = 0.162', 'r = 0.338*', 'r = 0.238*'],
+    ];
+    const piped = ['| ' + groups.join(' | ') + ' | | | |', '|---|---|---|---|---|', '| ' + names.join(' | ') + ' | |', ...body.map((row) => '| ' + row.join(' | ') + ' |')].join('\n');
+    const tabbed = [groups.join('\t') + '\t\t\t', names.join('\t') + '\t', ...body.map((row) => row.join('\t'))].join('\n');
+    // One cell per line: the groups' titles, then the names, then each row (its cells apart by blank lines).
+    const perLine = [...groups, ...names, ...body.flat()].join('\n\n');
+    // On consecutive lines, the header's empty cells as empty lines.
+    const consecutive = [...groups, '', '', '', ...names, '', ...body.flat()].join('\n');
+    // Aligned by runs of spaces.
+    const aligned = [groups, names, ...body].map((row) => row.join('   ')).join('\n');
+    // Crushed into single spaces.
+    const crushed = [groups, names, ...body].map((row) => row.join(' ')).join('\n');
+    for (const table of [piped, tabbed, perLine, consecutive, aligned, crushed]) {
+      const document = scanTextJson(`Table 3.\nCorrelations of burnout with stress and sleep in day and night workers.\n${table}\n* p < 0.01.\n\nNext.\n`);
+      // df = n - 2 of each column's group: 1964 under the first group's two columns, 1221 under the second's.
+      expect(readAs(document.statistics)).toEqual([
+        ['r', 0.586, [1964]],
+        ['r', 0.536, [1964]],
+        ['r', 0.569, [1221]],
+        ['r', 0.486, [1221]],
+        ['r', 0.3, [1964]],
+        ['r', 0.162, [1964]],
+        ['r', 0.338, [1221]],
+        ['r', 0.238, [1221]],
+      ]);
+    }
+    // Names that do not repeat group by group do not tie two groups to four columns: nothing is read.
+    const untied = scanTextJson(`Table 3.\nCorrelations of burnout.\n| ${groups.join(' | ')} | | | |\n|---|---|---|---|---|\n| Exhaustion | Cynicism | Efficacy | Sleep | |\n${body.map((row) => '| ' + row.join(' | ') + ' |').join('\n')}\n\nNext.\n`);
+    expect(untied.statistics).toEqual([]);
+    const untiedCrushed = scanTextJson(`Table 3.\nCorrelations of burnout.\n${groups.join(' ')}\nExhaustion Cynicism Efficacy Sleep\n${body.map((row) => row.join(' ')).join('\n')}\n\nNext.\n`);
+    expect(untiedCrushed.statistics).toEqual([]);
+    // One N stated in the note for the whole table: every column's.
+    const noted = scanTextJson(`Table 3.\nCorrelations of burnout.\n| | Exhaustion | Cynicism |\n|---|---|---|\n| KOSS | r = 0.586* | r = 0.536* |\n| PSQI | r = 0.300* | r = 0.162 |\nNote. N = 120. * p < 0.01.\n\nNext.\n`);
+    expect(readAs(noted.statistics)).toEqual([
+      ['r', 0.586, [118]],
+      ['r', 0.536, [118]],
+      ['r', 0.3, [118]],
+      ['r', 0.162, [118]],
+    ]);
+  });
+
+  it('reads a chi-square cell "10.84(1, 141)" as the value and its df, never the sample size after the df as a second df (real corpus dwpd-01), with tabs and one cell per line closed by pipes', () => {
+    const header = ['Variables', "Pearson's χ2", 'P values', 'Treated', 'Control'];
+    const body = [
+      ['Pain', '10.84(1, 141)', 'P = 0.001', '25 (37%)', '9 (13%)'],
+      ['Function', '8.34(1, 140)', 'P ≤ 0.006', '40 (60%)', '23 (34%)'],
+      ['Mobility', '1.38 (1, 139)', 'P = 0.265', '23 (34%)', '17 (25%)'],
+    ];
+    const tabbed = [header, ...body].map((row) => row.join('\t')).join('\n');
+    // As an old table page copies it: each cell on its line closed by " |", a lone "|" after each row, "||||" between
+    // the header and a section row; the header names the two group columns after the known names.
+    const piped = ['Table 6 |', '||||', '|', 'Responders by group |', '||||', '|', ...header.map((cell) => `${cell} |`), '|', '||||', '|', 'At 8 weeks |', '||||', '|', ...body.flatMap((row) => [...row.map((cell) => `${cell} |`), '|'])].join('\n');
+    for (const table of [`Table 6\nResponders by group\n${tabbed}`, piped]) {
+      const document = scanTextJson(`${table}\n\nNext.\n`);
+      expect(readAs(document.statistics)).toEqual([
+        ['chi2', 10.84, [1]],
+        ['chi2', 8.34, [1]],
+        ['chi2', 1.38, [1]],
+      ]);
+      expect(document.statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value])).toEqual([
+        ['=', 0.001],
+        ['<=', 0.006],
+        ['=', 0.265],
+      ]);
+    }
+    // A section's title right after the known names ("Demographics") over rows with one value more, whose first values
+    // do not fit the known columns (a count under χ2, the chi-square under p): no column is named after it, nothing read.
+    const section = scanTextJson('Table 2\nSample by group\n\nVariable\nχ2\np\nDemographics\nAge\n50\n3.21\n.073\nIncome\n48\n1.10\n.294\nSchooling\n52\n0.44\n.507\n\nNext.\n');
+    expect(section.statistics).toEqual([]);
+  });
+
+  it('reads a table on its side whose chi-square row names its df in a subscript ("Chisquare (χ^{2 })_{df = 3}"), one cell per line (real corpus dwpf-01)', () => {
+    const cells = ['Setting ', 'Site 1^{1} ', 'Site 2^{2} ', '', 'a. Clinic ', '48 (58%) ', '33 (58%) ', 'b. Home ', '35 (42%) ', '24 (42%) ', 'Total ', '83 ', '57 ', 'Chisquare (χ^{2 })_{df = 3} ', '67.6 ', '38.9 ', 'p value ', '<0.0001 ', '<0.0001 '];
+    const document = scanTextJson(`Table 4 \n\nSetting of recruitment by site \n\n${cells.join('\n')}\n\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['chi2', 67.6, [3]],
+      ['chi2', 38.9, [3]],
+    ]);
+    expect(document.statistics.map((statistic) => [statistic.p?.comparator, statistic.p?.value])).toEqual([
+      ['<', 0.0001],
+      ['<', 0.0001],
+    ]);
+  });
 });

@@ -19,15 +19,16 @@ import { scanText } from '../scan.js';
 import { normaliseText } from '../normalise.js';
 import { readNameAndValue } from '../effects.js';
 import { readPValue } from '../pValue.js';
+import { splitMarks } from './marks.js';
 
 /** What a body cell holds, as far as fitting it to a column goes. */
 export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
-  /** `innerThousands`: the pair may be one number with its thousands set apart, "(12,000)". */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerThousands?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean }
+  /** `innerThousands`: the pair may be one number with its thousands set apart, "(12,000)"; `dfThenSize`: a whole pair, the second larger, "(1, 141)" (a chi-square's df and sample size). */
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerThousands?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean; dfThenSize?: boolean }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
-  | { shape: 'number-interval'; value: number; wholePair?: boolean }
+  | { shape: 'number-interval'; value: number; wholePair?: boolean; dfThenSize?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
   | { shape: 'pair'; first: number; second: number; slash?: boolean; bracketed?: boolean }
   | { shape: 'ns' }
@@ -140,6 +141,10 @@ export function shapeOf(cell: string): CellShape {
   if (withBareP !== null && (boundP || pWithoutZero)) return { shape: 'statistic-p', value: Number(withBareP[1]!.replace(/[\u2212]\s?/, '-')) };
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (readsAsWrittenResult(text)) return { shape: 'written' };
+    // A result written with significance marks after it ("r = 0.586*"): the marks do not make it a label. (Only a
+    // cell that opens with the statistic: a whole row of cells run together ends with marks too.)
+    const { number: beforeMarks, marks } = splitMarks(text);
+    if (marks !== '' && OPENS_WITH_SYMBOL.test(beforeMarks) && readsAsWrittenResult(beforeMarks)) return { shape: 'written' };
     const normalised = normaliseText(text).text;
     const pRead = readPValue(normalised, 0);
     if (pRead !== null && pRead.end >= normalised.trimEnd().length - 1) return { shape: 'p-cell' };
@@ -159,10 +164,12 @@ export function shapeOf(cell: string): CellShape {
       const slack = 10 ** -Math.max(outer.number.decimals, low.number.decimals, high.number.decimals);
       const inside = value >= Math.min(low.number.value, high.number.value) - slack && value <= Math.max(low.number.value, high.number.value) + slack;
       const wholePair = /^\d+$/.test(low.number.text) && /^\d+(?:\.\d+)?$/.test(high.number.text) && /\d\s*[,;]\s*\d/.test(text);
-      if (inside) return wholePair ? { shape: 'number-interval', value, wholePair } : { shape: 'number-interval', value };
+      // Two whole numbers, the second the larger, may be a chi-square's df and sample size: "10.84(1, 141)".
+      const dfThenSize = wholePair && /^\d+$/.test(high.number.text) && low.number.value >= 1 && high.number.value > low.number.value;
+      if (inside) return wholePair ? { shape: 'number-interval', value, wholePair, ...(dfThenSize ? { dfThenSize } : {}) } : { shape: 'number-interval', value };
       // Outside its bracket, a value's two positive numbers are its df, corrected ones too: "1.19 (1.48, 72.71)".
       const correctedPair = /^\d+\.\d+$/.test(low.number.text) && /^\d+(?:\.\d+)?$/.test(high.number.text) && low.number.value <= high.number.value && /\d\s*[,;]\s*\d/.test(text);
-      if (wholePair || correctedPair) return { shape: 'number-bracket', value, inner: low.number.value, innerDecimals: 0, innerPair: true };
+      if (wholePair || correctedPair) return { shape: 'number-bracket', value, inner: low.number.value, innerDecimals: 0, innerPair: true, ...(dfThenSize ? { dfThenSize } : {}) };
       return { shape: 'numeric' };
     }
   }
@@ -189,6 +196,9 @@ export function readsAsWrittenResult(cell: string): boolean {
 
 /** A statistic's symbol, its df perhaps, then "=": "rs = ", "t = ", "χ2 = ", "F(2, 57) =". */
 const SYMBOL_BEFORE_EQUALS = /(?:^|[^A-Za-z])(?:r|rs|r_s|rho|Rho|\u03c1|t|F|z|Z|H|[\u03c7\u03a7xX]\s?[2\u00b2]|[Cc]hi[-\s^]?(?:2|square[d]?))\s{0,2}(?:\([^()]{0,20}\)\s{0,2})?=/;
+
+/** A cell that opens with a statistic's symbol, its df perhaps, then "=" and no cell separator: "r = ", "F(2, 57) =". */
+const OPENS_WITH_SYMBOL = /^(?:r|rs|r_s|rho|\u03c1|t|F|z|Z|H|[\u03c7\u03a7xX]\s?[2\u00b2]|[Cc]hi[-\s^]?(?:2|square[d]?))\s{0,2}(?:\([^()|]{0,20}\)\s{0,2})?=[^|\t]*$/;
 
 /** Longest cell read as a written result waiting for its row's p. */
 const MAX_WRITTEN_CELL = 80;
@@ -224,6 +234,9 @@ export function fit(role: ColumnRole, cell: CellShape): number {
   if (cell.shape === 'range' || cell.shape === 'numeric' || (cell.shape === 'pair' && (cell.slash === true || cell.bracketed === true) && role.role !== 'df')) return role.role === 'descriptive' || role.role === 'unknown' ? 0.5 : -2;
   switch (role.role) {
     case 'statistic': {
+      // Under a chi-square, a whole pair after the value is its one df and the sample size ("10.84(1, 141)", as
+      // "χ2(1, N = 141)" without the "N ="), with or without "(df)" in the header.
+      if ((cell.shape === 'number-interval' || cell.shape === 'number-bracket') && cell.dfThenSize === true && role.kind === 'chi2') return cell.value >= 0 ? 3 : -4;
       if (cell.shape === 'number-interval') return cell.wholePair === true && role.dfInCell === true && role.kind === 'F' ? 3 : -3;
       if (cell.shape === 'ns' || cell.shape === 'pair') return -3;
       // A bracketed number in a statistic column is its df only where the header says so ("t (df)").

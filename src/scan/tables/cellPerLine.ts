@@ -28,7 +28,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { classifyHeader, headerKey, isKnownHeader, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
-import { shapeOf } from './align.js';
+import { fit, shapeOf } from './align.js';
 
 type Line = TextLine;
 
@@ -148,7 +148,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const head = collectCells(lines, titleLine + 1, titleLine + MAX_LINES_TO_HEADER, MAX_CELLS_TO_HEADER);
   const headFirstCell = head.find((cell) => !cell.empty);
   if (headerStart(head, titleLine) === -1 && headFirstCell !== undefined && !captionOf(lines, titleLine, titled, headFirstCell).correlations) return null;
-  const cells = collectCells(lines, titleLine + 1);
+  // (Under a title that says correlations, the grid's columns are named by no known name: empty lines among its first
+  // cells are cells too, a copy's empty header cells, "Non-shift workers (n = 1,966)" / "" / "" / "Exhaustion".)
+  const cells = collectCells(lines, titleLine + 1, Infinity, Infinity, captionOf(lines, titleLine, titled, headFirstCell).correlations);
   // The header: from the first known column name, the run of cells up to the first value.
   let first = headerStart(cells, titleLine);
   // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
@@ -207,6 +209,16 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
     headerRun = [...unnamed, ...headerRun];
     first = cells.indexOf(unnamed[0]!);
   }
+  // Fewer names than the rows' values, every name known ("Variables" / "Pearson's χ2" / "P values" over rows of four
+  // values): the columns after the last known name are named by the short cells right after it that no vocabulary
+  // knows ("OAK", "Control"), as many as are missing, when a text cell is left for the first row's label.
+  const namedAfter = grid === null && unnamed === null && titled ? unnamedColumnsAfter(body, headerRun) : null;
+  if (namedAfter !== null) {
+    const lastName = namedAfter[namedAfter.length - 1]!;
+    headerRun = [...headerRun, ...namedAfter];
+    bodyStart = cells.indexOf(lastName) + 1;
+    body = body.slice(body.indexOf(lastName) + 1);
+  }
   // Without a title, nothing but the header says where the table starts: its names must match the rows' values
   // one to one (a header cut off above, "MD" / "t (df=29)" / "Sig." over seven values, is not read).
   if (!titled && headerRun.filter((cell) => classifyHeader(cell.text).role !== 'label').length !== valueCount) return null;
@@ -218,6 +230,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
       ? headerRun
       : unnamed !== null
         ? headerRun
+        : namedAfter !== null
+          ? valueNames
         : valueCount >= 2 && headerRun.length > valueCount
           ? headerRun.slice(headerRun.length - valueCount)
           : valueCount >= 2 && valueNames.length === valueCount
@@ -232,7 +246,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (grid === null && (known < (everyCell ? 1 : 2) || names.length < 2 || !(namesTest || holdsResults))) return null;
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
   const startsWithLabel = grid === null && classifyHeader(cells[first]!.text).role === 'label';
-  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell));
+  // (In a grid, a group's title that states its size, "Night workers (n = 1,223)", heads its columns, not the labels.)
+  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
   // Block titles that carry their df ("Treatment (num. df = 1)") before the column names: an upper header row.
@@ -240,6 +255,13 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (dfTitles.length > 0) {
     rows.unshift(['', ...dfTitles.map((cell) => cell.text)]);
     spans.unshift([null, ...dfTitles.map(spanOf1)]);
+  }
+  // Titles of groups side by side that state each group's size ("Non-shift workers (n = 1,966)") before a grid's
+  // column names: an upper header row too (the correlations' df come from those sizes), not caption lines.
+  const sizeTitles = grid !== null && dfTitles.length === 0 ? cells.slice(0, first).filter((cell) => !cell.empty && cell.line > titleLine && cell.text.length <= MAX_GROUP_TITLE && GROUP_SIZE.test(cell.text)) : [];
+  if (sizeTitles.length > 0) {
+    rows.unshift(['', ...sizeTitles.map((cell) => cell.text)]);
+    spans.unshift([null, ...sizeTitles.map(spanOf1)]);
   }
   let pendingText: Cell[] = [];
   let index = 0;
@@ -274,10 +296,10 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
     table: {
       start: title.start + (title.text.length - title.text.trimStart().length),
       end: lastCell.end,
-      caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first)) : title.text.trim(),
+      caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first).filter((cell) => !sizeTitles.includes(cell))) : title.text.trim(),
       notes: [],
       rows,
-      headerRows: dfTitles.length > 0 ? 2 : 1,
+      headerRows: dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1,
       cells: spans,
       layout: 'cell-per-line',
     },
@@ -290,7 +312,7 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
  * (and, when given, no further than line `lastLine`, and no further than the line that brings the cells with
  * text to `mostTextCells`: the first cells of the same collection, apart from empty cells at its end).
  */
-function collectCells(lines: Line[], from: number, lastLine = Infinity, mostTextCells = Infinity): Cell[] {
+function collectCells(lines: Line[], from: number, lastLine = Infinity, mostTextCells = Infinity, correlations = false): Cell[] {
   const cells: Cell[] = [];
   let textCells = 0;
   let blankRun = 0;
@@ -310,7 +332,7 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
       if (blankRun === 0 && adjacentCells >= MIN_ADJACENT_CELLS && adjacentCells > 3 * separatedCells) {
         const run = emptyCellLines(lines, index);
         // (Only in the header's rows and after them: a caption's blank lines are not cells.)
-        if (run > 0 && (headerSeen || isColumnName(lines[index + run]!.text.trim()))) {
+        if (run > 0 && (headerSeen || correlations || isColumnName(lines[index + run]!.text.trim()))) {
           for (let offset = 0; offset < run; offset++) cells.push({ text: '', start: lines[index + offset]!.start, end: lines[index + offset]!.start, line: index + offset, empty: true });
           tailEmpties = { at: cells.length - run, run };
           index += run - 1;
@@ -360,11 +382,78 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
   return cells;
 }
 
+/** A group's title that states its size: "Non-shift workers (n = 1,966)", "Women, N = 90". */
+const GROUP_SIZE = /\b[nN] ?= ?\d{1,3}(?:,\d{3})*\)?$/;
+/** Longest group title over a grid's columns. */
+const MAX_GROUP_TITLE = 80;
+
 /** A title that says the table holds correlations; and one that says they are of another kind (their df are not N − 2). */
 const SAYS_CORRELATIONS = /correlat/i;
 const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric/i;
 /** Longest cell taken as the name of a column no vocabulary knows. */
 const MAX_UNNAMED_COLUMN = 40;
+
+/**
+ * The cells that name the columns after a header's last known name: the short text cells that open `body`, as many
+ * as the rows' values (up to each row's last filled one, in most rows) outnumber the header's names of value
+ * columns, all of which must be known names; null unless there are exactly that many before the first empty or
+ * value cell and a text cell is left after them for the first row's label.
+ */
+function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
+  const valueNames = headerRun.length > 0 && classifyHeader(headerRun[0]!.text).role === 'label' ? headerRun.slice(1) : headerRun;
+  if (valueNames.length < 2 || !valueNames.every((cell) => isColumnName(cell.text) && !['label', 'unknown'].includes(classifyHeader(cell.text).role))) return null;
+  const missing = typicalFilledValues(body) - valueNames.length;
+  if (missing < 1) return null;
+  const names: Cell[] = [];
+  let at = 0;
+  while (at < body.length && names.length < missing && !isValueCell(body[at]!) && body[at]!.text.length <= MAX_UNNAMED_COLUMN && !isColumnName(body[at]!.text)) names.push(body[at++]!);
+  if (names.length !== missing || at >= body.length || (isValueCell(body[at]!) && !body[at]!.empty)) return null;
+  // (The first row's label: a text cell before the first value.)
+  const firstValue = body.findIndex((cell, index) => index >= at && isValueCell(cell) && !cell.empty);
+  if (firstValue <= at || !body.slice(at, firstValue).some((cell) => !cell.empty && !isValueCell(cell))) return null;
+  // The names stand before the unnamed columns in the header, so the rows' first values are the known columns': each
+  // must fit its column ("10.84(1, 141)" a chi-square, "P = 0.001" a p). A section's title taken for a name, over a
+  // column that stands elsewhere, puts a value under the wrong name, which this refuses.
+  const roles = valueNames.map((cell) => classifyHeader(cell.text));
+  const fullRuns = valueRuns(body).filter((run) => filledLength(run) === valueNames.length + missing);
+  return fullRuns.length > 0 && fullRuns.every((run) => roles.every((role, column) => fit(role, shapeOf(run[column]!.text)) > 0)) ? names : null;
+}
+
+/** The runs of value cells (a row's values) in `cells`. */
+function valueRuns(cells: Cell[]): Cell[][] {
+  const runs: Cell[][] = [];
+  let index = 0;
+  while (index < cells.length) {
+    if (!isValueCell(cells[index]!)) {
+      index++;
+      continue;
+    }
+    let end = index;
+    while (end < cells.length && isValueCell(cells[end]!)) end++;
+    runs.push(cells.slice(index, end));
+    index = end;
+  }
+  return runs;
+}
+
+/** How many of a run's values come up to its last filled one. */
+function filledLength(run: Cell[]): number {
+  let length = run.length;
+  while (length > 0 && run[length - 1]!.empty) length--;
+  return length;
+}
+
+/** The number of values most runs of values in `cells` hold up to their last filled one (0 when none). */
+function typicalFilledValues(cells: Cell[]): number {
+  const counts = new Map<number, number>();
+  for (const run of valueRuns(cells)) {
+    const filled = filledLength(run);
+    if (filled > 0) counts.set(filled, (counts.get(filled) ?? 0) + 1);
+  }
+  let best = 0;
+  for (const [count, times] of counts) if (times > (counts.get(best) ?? 0)) best = count;
+  return best;
+}
 
 /**
  * The `missing` cells right before the header's first known name, when each is a short cell on a line of its

@@ -278,7 +278,7 @@ put(['fonte', 'fuente', 'bron', 'origine', 'fonte di variazione', 'fonte di vari
 // Shortened and run-together spellings, and named variants of F and chi-square (common practice, from tables of
 // journals and statistics programs' output).
 put(['f stat', 'f-stat', 'f stat.', 'fvalue', 'fratio', 'fobs', 'f obs', 'f observed', 'f-test value', 'f test value', 'welch f', "welch's f", 'f welch', 'welch-f', 'brown-forsythe f'], { role: 'statistic', kind: 'F', df: [] });
-put(['chi-sq', 'chi sq', 'chi-sq.', 'chi.sq', 'chisq.', 'lr chisq', 'lr chi-square', 'lr chi-sq', 'wald chi-square', 'wald chi square', 'wald chisq', 'wald chi-sq', 'likelihood ratio chi-square', 'likelihood-ratio chi-square'], { role: 'statistic', kind: 'chi2', df: [] });
+put(['chisquare', 'chisquared', 'chi-sq', 'chi sq', 'chi-sq.', 'chi.sq', 'chisq.', 'lr chisq', 'lr chi-square', 'lr chi-sq', 'wald chi-square', 'wald chi square', 'wald chisq', 'wald chi-sq', 'likelihood ratio chi-square', 'likelihood-ratio chi-square'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['df1/df2', 'df1 / df2', 'df1; df2', '(df)', '[df]', '(d.f.)', '(dfs)'], { role: 'df' });
 // The side named in brackets after "df" ("df (num)", "df (error)"): the qualifier says which df, unlike one after a
 // statistic's name, which knownKeyOf drops.
@@ -374,6 +374,13 @@ function withoutPSuffix(key: string): string | null {
 export function classifyHeader(header: string): ColumnRole {
   const key = headerKey(header);
   if (key === '') return { role: 'unknown' };
+  // The df as a subscript written out after the name ("Chisquare (χ^{2 })_{df = 3}"): the statistic's one df.
+  const subscriptDf = SUBSCRIPT_DF.exec(header);
+  if (subscriptDf !== null) {
+    const named = classifyHeader(header.slice(0, subscriptDf.index));
+    const df = parseReportedNumber(subscriptDf[1]!);
+    return named.role === 'statistic' && named.kind !== 'F' && named.kind !== 'z' && named.df.length === 0 && df !== null ? { role: 'statistic', kind: named.kind, df: [df] } : { role: 'unknown' };
+  }
   // "F(1, 66), p" or "χ2 (p)": the statistic's cells hold their p too ("0.11, p > 0.05").
   const beforeP = withoutPSuffix(key);
   if (beforeP !== null) {
@@ -430,6 +437,9 @@ export function classifyHeader(header: string): ColumnRole {
   }
   return { role: 'unknown' };
 }
+
+/** A subscript that states one df, ending a header: "_{df = 3}", "_{df=12}". */
+const SUBSCRIPT_DF = /_\{ ?df ?= ?(\d{1,4}) ?\} ?$/;
 
 /**
  * A statistic's name with its df, in the spellings real headers use: "F-value (1, 52)", "F value (2,57)",

@@ -104,7 +104,11 @@ export function findTextTables(text: string): DocumentTable[] {
       index = software.lastLine + 1;
       continue;
     }
-    const found = readPipeTable(lines, index) ?? readTabTable(lines, index) ?? readSpacedTable(lines, index);
+    // Under a title, a column of lines each closed by a pipe ("10.84(1, 141) |", "|") is a table a web page copied
+    // one cell per line, not a pipe table of one column: the one-cell-per-line reader reads it.
+    const piped = readPipeTable(lines, index);
+    const cellPerLineWithPipes = piped !== null && TITLE.test(lines[index]!.text) && piped.rows.every((row) => row.filter((cell) => cell.trim() !== '').length <= 1);
+    const found = cellPerLineWithPipes ? null : (piped ?? readTabTable(lines, index) ?? readSpacedTable(lines, index));
     if (found === null) {
       const rebuilt =
         (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index) ?? readGluedMatrix(lines, index)) : null) ??
@@ -1396,13 +1400,21 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     index++;
   }
   if (!CORRELATIONS_TITLE.test(`${title.text} ${caption}`)) return null;
+  // Cells that write each correlation with its symbol ("r = 0.586*") hold spaces themselves: where the rows set such
+  // cells apart by wide gaps, every line of the block is cut at its gaps, not at its spaces, and the header's lines
+  // are kept as its rows (group titles over the columns' names).
+  // (Crushed into single spaces, the rows are cut before each result's symbol and a header line of group titles after
+  // each group's size, "Non-shift workers (n = 1,966) Regularly rotating shift workers (n = 1,936)".)
+  const written = writtenCellsApart(lines, index) ? 'apart' : writtenCellsCrushed(lines, index) ? 'crushed' : null;
+  const cellsOf = (text: string): readonly Piece[] =>
+    written === 'apart' ? alignedCells(text) : written === 'crushed' ? (writtenRowCells(text) ?? groupTitleCells(text) ?? tokenize(text)) : tokenize(text);
   const headers: string[][] = [];
   for (; index < lines.length && headers.length < MAX_CORRELATION_HEADER_LINES; index++) {
     const line = lines[index]!;
     if (isBlank(line)) continue;
     // Rows with pipes or tabs are read by the pipe and tab readers.
     if (/[|\t]/.test(line.text)) return null;
-    const tokens = tokenize(line.text);
+    const tokens = cellsOf(line.text);
     // (A label and a dash alone is the matrix's first row, its diagonal: "Anxiety —".)
     const diagonalOnly = tokens.length >= 2 && /^[-\u2013\u2014\u2212]$/.test(tokens[tokens.length - 1]!.text);
     // (Columns numbered 1, 2, 3, … after the labels' name, "Factors 1 2 3 4", are a header, not a row.)
@@ -1424,9 +1436,9 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     const line = lines[index]!;
     if (isBlank(line)) continue;
     // A page's running head or number between two rows of the matrix (the rows go on after it with as many values).
-    if (rows.length > 0 && isPageFurniture(line.text) && rowOfWidthFollows(lines, index, valuesWithoutMarks(rows[rows.length - 1]!.slice(1)))) continue;
+    if (rows.length > 0 && isPageFurniture(line.text) && rowOfWidthFollows(lines, index, valuesWithoutMarks(rows[rows.length - 1]!.slice(1)), cellsOf)) continue;
     if (TITLE.test(line.text) || NOTE.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
-    const tokens = tokenize(line.text);
+    const tokens = cellsOf(line.text);
     const numberLabel = numberLabelLength(tokens, headers[headers.length - 1], rows.length);
     const first = numberLabel > 0 ? numberLabel : tokens.findIndex((token) => isValueToken(token.text));
     // A label the page wrapped over two lines, numbered ("1. SPAS a" / "Total Score - - -") or going on in small
@@ -1442,6 +1454,21 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     last = index;
   }
   if (rows.length < 2) return null;
+  // (Cells that write their symbol say what they hold; which n each takes is left to the reader of such cells.)
+  if (written !== null && headers.length > 0) {
+    return {
+      table: {
+        start: title.start + leadingSpace(title.text),
+        end: lines[last]!.start + lines[last]!.text.trimEnd().length,
+        caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
+        notes: readNotes(lines, last + 1).notes,
+        rows: [...headers, ...rows],
+        headerRows: headers.length,
+        layout: 'aligned',
+      },
+      lastLine: last,
+    };
+  }
   const header = headers.length > 0 ? headers[headers.length - 1]! : [''];
   // Without known column names, the structure must show itself: the columns are named by the rows' own labels (a
   // matrix), or the table is left to be listed as not read.
@@ -1464,6 +1491,74 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     },
     lastLine: last,
   };
+}
+
+/** Lines looked at for a row of written results set apart by wide gaps. */
+const MAX_LINES_TO_WRITTEN_ROW = 6;
+
+/** A correlation written with its symbol and marks, as a piece of a crushed row: "r = 0.586*", "ρ = −.12". */
+const WRITTEN_R_PIECE = /(?:^|(?<= ))(?:r|\u03c1) ?= ?[-\u2212\u2013]?\d?\.\d{1,4}(?:\*{1,4}|\u2020{1,2}|\u2021{1,2})?(?= |$)/g;
+/** A group's size closing its title: "(n = 1,966)", "n = 90". */
+const GROUP_SIZE_CLOSING = /\(?[nN] ?= ?\d{1,3}(?:,\d{3})*\)?(?= |$)/g;
+
+/** A crushed row of a label and two or more correlations written with their symbol ("KOSS r = 0.586* r = 0.536*"), cut into its cells; null otherwise. */
+function writtenRowCells(text: string): Piece[] | null {
+  const matches = [...text.matchAll(WRITTEN_R_PIECE)];
+  if (matches.length < 2) return null;
+  const labelEnd = matches[0]!.index!;
+  const label = text.slice(0, labelEnd).trim();
+  if (label === '') return null;
+  const start = leadingSpace(text);
+  const cells: Piece[] = [{ text: label, start, end: start + label.length }];
+  let at = labelEnd;
+  for (const match of matches) {
+    // (Nothing but spaces between two results: the row is made of them.)
+    if (text.slice(at, match.index).trim() !== '') return null;
+    cells.push({ text: match[0], start: match.index!, end: match.index! + match[0].length });
+    at = match.index! + match[0].length;
+  }
+  return text.slice(at).trim() === '' ? cells : null;
+}
+
+/** A crushed line of two or more group titles, each closed by its size ("Day workers (n = 1,966) Night workers (n = 1,223)"), cut after each size; null otherwise. */
+function groupTitleCells(text: string): Piece[] | null {
+  const cells: Piece[] = [];
+  let at = leadingSpace(text);
+  for (const match of text.matchAll(GROUP_SIZE_CLOSING)) {
+    const end = match.index! + match[0].length;
+    const title = text.slice(at, end).trim();
+    if (title === match[0]) return null;
+    const start = at + (text.slice(at, end).length - text.slice(at, end).trimStart().length);
+    cells.push({ text: title, start, end });
+    at = end;
+  }
+  return cells.length >= 2 && text.slice(at).trim() === '' ? cells : null;
+}
+
+/** Whether one of the first lines from `from` is a crushed row of a label and correlations written with their symbol. */
+function writtenCellsCrushed(lines: Line[], from: number): boolean {
+  let seen = 0;
+  for (let index = from; index < lines.length && seen < MAX_LINES_TO_WRITTEN_ROW; index++) {
+    if (isBlank(lines[index])) continue;
+    seen++;
+    if (writtenRowCells(lines[index]!.text) !== null) return true;
+  }
+  return false;
+}
+
+/**
+ * Whether one of the first lines from `from` is a row of a label and results written with their symbol, each
+ * apart by two or more spaces ("KOSS   r = 0.586*   r = 0.536*   r = 0.535*").
+ */
+function writtenCellsApart(lines: Line[], from: number): boolean {
+  let seen = 0;
+  for (let index = from; index < lines.length && seen < MAX_LINES_TO_WRITTEN_ROW; index++) {
+    if (isBlank(lines[index])) continue;
+    seen++;
+    const cells = alignedCells(lines[index]!.text);
+    if (cells.length >= 3 && cells.slice(1).every((cell) => shapeOf(cell.text).shape === 'written')) return true;
+  }
+  return false;
 }
 
 /**
@@ -1508,11 +1603,11 @@ function valuesWithoutMarks(cells: readonly string[]): number {
 }
 
 /** Whether, past blank lines and page furniture, the next line is a labelled row of `width` values (marks apart). */
-function rowOfWidthFollows(lines: Line[], index: number, width: number): boolean {
+function rowOfWidthFollows(lines: Line[], index: number, width: number, cellsOf: (text: string) => readonly Piece[] = tokenize): boolean {
   let next = index + 1;
   while (next < lines.length && next - index <= MAX_PAGE_BREAK_LINES && (isBlank(lines[next]) || isPageFurniture(lines[next]!.text))) next++;
   if (next >= lines.length || next - index > MAX_PAGE_BREAK_LINES) return false;
-  const tokens = tokenize(lines[next]!.text);
+  const tokens = cellsOf(lines[next]!.text);
   const first = tokens.findIndex((token) => isValueToken(token.text));
   return first > 0 && valuesWithoutMarks(tokens.slice(first).map((token) => token.text)) === width;
 }

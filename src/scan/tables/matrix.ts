@@ -57,7 +57,7 @@ const PLACEHOLDER = /^[-\u2013\u2014\u2212]$/;
 const DIAGONAL = /^(?:[-\u2013\u2014\u2212]|1|1\.0{1,3}|\((?:0?\.\d{2,3})\))$/;
 const SAYS_CORRELATIONS = /correlat|\br\s*=|pearson|spearman/i;
 /** The N of the table's note: "N = 60", "n = 1,024". */
-const NOTE_N = /(?:^|[^A-Za-z])[Nn]\s*=\s*(\d{1,3}(?:,\d{3})+|\d{1,7})(?!\d|\.\d)/;
+export const NOTE_N = /(?:^|[^A-Za-z])[Nn]\s*=\s*(\d{1,3}(?:,\d{3})+|\d{1,7})(?!\d|\.\d)/;
 
 /** Row layouts: which triangle, and whether the diagonal is printed. */
 type Layout = { triangle: 'lower' | 'upper'; diagonal: boolean };
@@ -73,13 +73,15 @@ const MIN_FITTING_SHARE = 0.7;
 /** Fewest correlations a matrix must give to be read as one. */
 const MIN_CORRELATIONS = 3;
 
-interface ValueCell {
+export interface ValueCell {
   number: string;
   marks: string;
   start: number;
   end: number;
   /** Offsets of the marks (the cell's end when none). */
   marksStart: number;
+  /** Where the number starts, when the cell writes something before it ("r = 0.586*"); the cell's start otherwise. */
+  numberStart?: number;
   /** The p printed in brackets after the value ("0.45 (<.001)"), where the table says it prints one so. */
   p?: ReportedP;
 }
@@ -149,7 +151,7 @@ export function readCorrelationMatrix(input: MatrixInput): ReportedResult[] | nu
 /** A caption or note that says the correlations are Spearman's rank correlations. */
 const SAYS_SPEARMAN = /spearman|\brho\b|\u03c1|rank[- ]order correlation/i;
 /** Correlations of another kind than Pearson's or Spearman's between two measures: their df are not N − 2. */
-const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric|auto-?correlat/i;
+export const OTHER_CORRELATIONS = /partial|intra-?class|canonical|\bICC|semi-?partial|cross-?lagged|polychoric|tetrachoric|auto-?correlat/i;
 /** Header roles of columns that are not variables of a correlation grid. */
 const NOT_A_VARIABLE: ReadonlySet<string> = new Set(['descriptive', 'n', 'p', 'df', 'df1', 'df2', 'ss', 'ms', 'effect', 'statistic']);
 /** Share of a grid's numbers that must be correlations (the rest: a diagonal of 1s, a stray mean). */
@@ -448,7 +450,7 @@ function bestLayout(rows: MatrixRow[], columns: ColumnRange): Layout | null {
   return best.layout;
 }
 
-function correlationResult(
+export function correlationResult(
   input: MatrixInput,
   row: MatrixRow,
   otherName: string,
@@ -480,7 +482,7 @@ function correlationResult(
       tableIndex: input.tableIndex,
       caption: input.table.caption,
       rowLabel: `${row.name} \u00d7 ${otherName}`,
-      cells: { statistic: { ...value, start: cell.start, end: cell.start + cell.number.length } },
+      cells: { statistic: { ...value, start: cell.numberStart ?? cell.start, end: (cell.numberStart ?? cell.start) + cell.number.length } },
       errorRow: null,
     },
   };

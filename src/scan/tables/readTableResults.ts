@@ -45,6 +45,7 @@ import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumbe
 import { pRangeOverDf } from '../../stats/pOverDf.js';
 import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
+import { readWrittenCorrelations } from './writtenCorrelations.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
 import { familyOf, joinFamilies, placeHeaderCells, fit, type ShapeFamily, isValueRole, placeCells, placementIsClear, readsAsWrittenResult, shapeOf, STATISTIC_COMMA_P, STATISTIC_WITH_P, type CellShape } from './align.js';
 
@@ -372,6 +373,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // A correlation matrix: numbered variables against numbered columns (its header is numbers, so it is read apart).
   const matrix = readCorrelationMatrix({ text, table, tableIndex, located: table.cells ?? locateRows(text, table, 1), notes: [...table.notes, notesAfter(text, table.end)].join(' ') });
   if (matrix !== null) return { results: matrix, unread: null, completions: [] };
+  // Cells that write each correlation with its symbol ("r = 0.586*"), the sample size in the group's header or the note.
+  const written = readWrittenCorrelations({ text, table, tableIndex, located: table.cells ?? locateRows(text, table, 1), notes: [...table.notes, notesAfter(text, table.end)].join(' ') });
+  if (written !== null) return { results: written, unread: null, completions: [] };
   // The header ends at the first row with a value: a number, or a number with its bracket ("−0.06 (.60)",
   // "4.21 (2, 57)", "0.04 (−0.45, 0.54)").
   // (A header name that reads as a bound, "p<.05" over a column of marks, is a name.)
@@ -2505,7 +2509,12 @@ function statisticWithDf(
   const cell = row[column] ?? '';
   const match = STATISTIC_WITH_DF.exec(cell);
   if (!match) return null;
-  const dfTexts = oneDfWithThousands([match[2], match[3]], cell, kind);
+  const bracketed = [match[2], match[3]].filter((text): text is string => text !== undefined);
+  // A chi-square has one df: a pair of whole numbers after it, the second the larger, is its df and its sample size,
+  // as "χ2(1, N = 141)" prints them without the "N =" ("10.84(1, 141)"); the sample size is not a df. Otherwise a
+  // one-df statistic's "(12,000)" is one df with its thousands set apart.
+  const dfAndN = kind === 'chi2' && bracketed.length === 2 && bracketed.every((text) => /^\d+$/.test(text)) && Number(bracketed[1]) > Number(bracketed[0]);
+  const dfTexts = dfAndN ? bracketed.slice(0, 1) : oneDfWithThousands([match[2], match[3]], cell, kind);
   if (dfTexts.length !== (kind === 'F' ? 2 : 1) || kind === 'z') return null;
   if (dfTexts.some((text) => Number(text.replace(THOUSANDS_COMMA, '')) < 1 || (!dfInCell && text.includes('.')))) return null;
   const at = cellsAt?.[column] ?? null;

@@ -185,7 +185,8 @@ function spanOf(cell: Cell): CellSpan {
 
 /** The df printed in a statistic's name, "T (14)", "F (1, 28)", as cells pointing into the name. */
 function dfInName(name: Cell): (Cell | null)[] {
-  const match = /\(\s*(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)/.exec(name.text);
+  // (Or written out as a subscript after the name: "Chisquare (χ^{2 })_{df = 3}".)
+  const match = /\(\s*(\d+(?:\.\d+)?)\s*(?:,\s*(\d+(?:\.\d+)?)\s*)?\)/.exec(name.text) ?? /_\{ ?df ?= ?(\d{1,4}) ?\} ?$/.exec(name.text);
   if (!match) return [];
   const found: Cell[] = [];
   let from = match.index;
