@@ -114,6 +114,12 @@ const scores = scoreCorpus(corpus);
 // 2026-12-05, tenth session, helper10-sa: cells written "r = 0.586*" read with their group header's n (dwpc-01, 27 r),
 // chi-square cells "10.84(1, 141)" one cell per line closed by pipes (dwpd-01, 14) and a side table's "_{df = 3}"
 // (dwpf-01, 3): tune table 0.80 -> 0.81 (0.819), as measured; holdout unchanged.
+// 2026-12-05, tenth-session batch dwq: the corpus grew by 14 passages from five CC BY sources (dwqa-01..dwqe-03: MDPI
+// full texts from Europe PMC XML and PDF text, a bioRxiv preprint with margin line numbers, R ANOVA output from a study's
+// supplementary repository, an Elsevier PDF text; 11 tune, 3 holdout). As measured: holdout text recall 0.64 -> 0.70
+// (0.700), all-labels tune 0.58 -> 0.59 (0.593); silent-miss ceilings tune 69 -> 71 (dwqe-01's t whose minus came out
+// as '(cid:0)', dwqd-02's Intercept row with 'p < 2.2e-16'), holdout 142 -> 141; other floors kept (tune table 0.835,
+// tune text 0.974, holdout table 0.523; precision 0.999, 1, 0.964, 0.986); renderings unchanged (no pipe table added).
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
     table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
@@ -121,7 +127,7 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
   },
   holdout: {
     table: { recall: 0.52, precision: 0.96, maxFailRate: 0.01 },
-    text: { recall: 0.64, precision: 0.98, maxFailRate: 0.01 },
+    text: { recall: 0.7, precision: 0.98, maxFailRate: 0.01 },
   },
 };
 
@@ -243,7 +249,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
   // (2026-12-05, code-index prose batch, no tables added: tune 0.57 -> 0.58 (0.584), holdout 0.42 kept (0.426), as measured)
   // (2026-12-05, tenth-session batch dwo: tune 0.57 -> 0.56 (0.567), holdout 0.41 -> 0.40 (0.407), as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.58, holdout: 0.4 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.4 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -261,7 +267,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (2026-12-05, tenth-session batch dwn, 12 prose passages: tune 21 -> 24, holdout 114 -> 125, as measured)
   // (2026-12-05, tenth-session batch dwo: tune 21 -> 69, holdout 114 -> 121, as measured; see the note above FLOORS)
   // (2026-12-05, tenth-session batch dwm: holdout 114 -> 128, the 14 misses of dwmg-01, as measured; tune 21 kept (21))
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 69, holdout: 142 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 71, holdout: 141 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
