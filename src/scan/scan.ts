@@ -35,7 +35,7 @@ export function scanText(text: string): ScanOutput {
 
 /** All results in document order, with offsets into the original text. */
 export function findResults(normalised: NormalisedText): ReportedResult[] {
-  const source = restoreLostSymbols(restoreWordComparators(restoreLostEquals(normalised.text)));
+  const source = withoutMarginNumbers(restoreLostSymbols(restoreWordComparators(restoreLostEquals(normalised.text))));
   const results: ReportedResult[] = [];
   const comparators = new ComparatorFinder(source);
   const spans: number[] = [];
@@ -127,6 +127,51 @@ const LOST_EQUALS = /(?<![\p{L}\d])((?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+
 function restoreLostEquals(text: string): string {
   if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
   return text.replace(LOST_EQUALS, '$1=$2');
+}
+
+/**
+ * A manuscript's margin line numbers run into its text by a PDF's extraction ("… was at 308 the choice point …",
+ * "F(9,279)=15.53, 321 p=.135"): a run of at least MIN_MARGIN_RUN whole numbers, each the one before plus one (or
+ * two, one number missing),
+ * each standing inside a line between other words, MIN_MARGIN_GAP to MAX_MARGIN_GAP characters apart, is blanked
+ * (spaces for its digits), so a result and its p are read across it and none of them is read as a value. Numbers at
+ * a line's start are left alone (a table's numbered rows). The text keeps its length, so offsets do not move.
+ */
+const MIN_MARGIN_RUN = 8;
+const MIN_MARGIN_GAP = 30;
+const MAX_MARGIN_GAP = 400;
+const INLINE_NUMBER = /(?<=[^\d\s\-\u2212] )\d{1,5}(?= [^\d\s=<>])/g;
+
+function withoutMarginNumbers(text: string): string {
+  const numbers = [...text.matchAll(INLINE_NUMBER)].map((match) => ({ at: match.index!, value: Number(match[0]), length: match[0].length }));
+  if (numbers.length < MIN_MARGIN_RUN) return text;
+  // Runs of numbers counting up one by one, each taken from the nearest next number in reach that continues it.
+  const blanked: { at: number; length: number }[] = [];
+  const used = new Set<number>();
+  for (let first = 0; first < numbers.length; first++) {
+    if (used.has(first)) continue;
+    const run = [first];
+    let last = first;
+    for (let next = first + 1; next < numbers.length; next++) {
+      const gap = numbers[next]!.at - numbers[last]!.at;
+      if (gap > MAX_MARGIN_GAP) break;
+      // (One number of the run may be missing: a line that starts with its number, or the excerpt's first line.)
+      const step = numbers[next]!.value - numbers[last]!.value;
+      if (gap >= MIN_MARGIN_GAP && (step === 1 || (step === 2 && gap >= 2 * MIN_MARGIN_GAP))) {
+        run.push(next);
+        last = next;
+      }
+    }
+    if (run.length < MIN_MARGIN_RUN) continue;
+    for (const index of run) {
+      used.add(index);
+      blanked.push(numbers[index]!);
+    }
+  }
+  if (blanked.length === 0) return text;
+  const characters = text.split('');
+  for (const { at, length } of blanked) for (let offset = 0; offset < length; offset++) characters[at + offset] = ' ';
+  return characters.join('');
 }
 
 /**

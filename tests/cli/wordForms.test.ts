@@ -205,6 +205,16 @@ describe('p and df written in further ways after a statistic, from the command l
     expect(readAll('The target appeared at (1, 217) = 4.53 pixels from the centre.\n')).toEqual([]);
   });
 
+  it('reads a result and its p across a manuscript\'s margin line number that a PDF\'s text ran into it ("F(9,270)=27.36, 324 p=.193")', () => {
+    // The damage as a preprint's PDF text gives it (tests/corpus/real/passages/dwqc-01.txt, CC BY): the line numbers
+    // stand inside the text, a line's width apart; the words and numbers here are made up. (F(9, 270) = 1.42 gives
+    // p = .179: SciPy 1.10.1 scipy.stats.f.sf(1.42, 9, 270), computed when the test was written.)
+    const lines = Array.from({ length: 12 }, (_, index) => `the animals were tested on the maze with the goal arms baited in turn and the choice ${300 + index}`).join(' ');
+    expect(readAll(`${lines} compared across bins, ANOVA: F(9,270)=1.42, 312 p=.179; and the rest 313 of the text.\n`)).toEqual([['F', [9, 270], 1.42, '= .179']]);
+    // (Numbers that do not count up a line apart are no line numbers: the p stays unread rather than guessed.)
+    expect(readAll('The effect held, F(9,270)=1.42, 312 p=.179, in all.\n')).toEqual([['F', [9, 270], 1.42, null]]);
+  });
+
   it('reads a chi-square whose df are a LaTeX subscript left in web text ("\\(\\chi _2^2\\) = 7.2", "\\chi^{2}_{1}"), two in a sentence', () => {
     // chi2(2) = 7.2 gives p = .027 and chi2(1) = 4.10 gives p = .043 (SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
     // (The first sentence as a journal's figure page gives it: tests/corpus/real/passages/dwfk-01.txt.)
