@@ -1392,4 +1392,25 @@ describe('results tables in the shapes papers print them', () => {
       ['<', 0.0001],
     ]);
   });
+
+  it('reads a program\'s aligned ANOVA output whose row carries R\'s "+" mark for p < .1 between its F and its effect size', () => {
+    // afex's layout as a study's supplement prints it (tests/corpus/real/passages/dwqd-01.txt, CC BY 4.0); the numbers
+    // are made up. (F(2.54, 319.72) = 3.31 gives p = .027 and F(8.57, 1079.96) = 1.87 gives p = .056, .055 as printed from the unrounded F: SciPy 1.10.1
+    // scipy.stats.f.sf, computed when the test was written.)
+    const text = [
+      'Anova Table (Type 3 tests)',
+      '',
+      'Response: pos_total',
+      '               Effect            df    MSE          F  pes p.value',
+      '1       task:position  2.54, 319.72  10.71     3.31 * .026    .027',
+      '2 task:sound:position 8.57, 1079.96   2.90     1.87 + .015    .055',
+      '---',
+      "Signif. codes:  0 '***' 0.001 '**' 0.01 '*' 0.05 '+' 0.1 ' ' 1",
+    ].join('\n');
+    const document = scanTextJson(`${text}\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['F', 3.31, [2.54, 319.72], '.027'],
+      ['F', 1.87, [8.57, 1079.96], '.055'],
+    ]);
+  });
 });

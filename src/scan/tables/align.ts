@@ -58,7 +58,8 @@ const PAIR = /^(?:df ?= ?)?(\d{1,5}(?:\.\d+)?)(?:\s*[,;]\s*| and )(\d{1,6}(?:[.,
 const BRACKETED_PAIR = /^[([]\s*([1-9]\d{0,4}(?:\.\d+)?)\s*[,;/]\s*([1-9]\d{0,5}(?:\.\d+)?)\s*[)\]]$/;
 const SLASH_PAIR = /^(\d{1,5}) ?\/ ?(\d{1,6}(?:\.\d+)?)$/;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([](?:df ?= ?)?\s*(?:(<=|>=|<|>|\u2264|\u2265)\s*)?([-\u2212]?[\d.,]+)[a-h]?\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
-const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j])$/;
+// (R's "+" for p < .1 in afex's and emmeans' output, "1.87 + .015", stands alone like the stars.)
+const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j]|\+)$/;
 /** A statistic and its p in one cell, the p named: "0.11, p > 0.05". Groups: value, comparator, p. */
 export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=|<|>|=) *(\d+(?:\.\d+)?|\.\d+)(?: *(?:[*\u2020\u2021]{1,4}|[a-h]))? *$/i;
 /**

@@ -810,7 +810,7 @@ function isNumberToken(text: string): boolean {
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
 function isMarkToken(text: string): boolean {
-  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h])$/.test(text);
+  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]|\+)$/.test(text);
 }
 
 /**
