@@ -1413,4 +1413,30 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 1.87, [8.57, 1079.96], '.055'],
     ]);
   });
+
+  it('reads chi-square cells that name their df ("0.61 (df = 1)") under a plain "Chi-square" header, and a crushed header\'s "Group 1 Group 2" as two columns', () => {
+    // (χ2(1) = 0.61 gives p = .435 and χ2(2) = 5.91 gives p = .052: SciPy 1.10.1 scipy.stats.chi2.sf, computed when
+    // the test was written.) Common practice in tables comparing groups; the numbers are made up.
+    const rows = [
+      ['Variables', 'Group 1', 'Group 2', 'Chi-square', 'P-value'],
+      ['Sex', '', '', '0.61 (df = 1)', '0.44'],
+      ['Male', '12', '15', '', ''],
+      ['Female', '18', '15', '', ''],
+      ['Education', '', '', '5.91 (df = 2)', '0.052'],
+      ['Primary', '10', '15', '', ''],
+      ['Secondary', '30', '28', '', ''],
+    ];
+    const layouts: Record<string, string> = {
+      crushed: rows.map((row) => row.filter((cell) => cell !== '').join(' ')).join('\n'),
+      aligned: rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('   ')).join('\n'),
+      'one cell per line': rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n'),
+    };
+    for (const [layout, table] of Object.entries(layouts)) {
+      const document = scanTextJson(`Table 2. Characteristics of the two groups compared by chi-square tests\n\n${table}\n\nNote. Values are n.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value]), layout).toEqual([
+        ['chi2', 0.61, [1], 0.44],
+        ['chi2', 5.91, [2], 0.052],
+      ]);
+    }
+  });
 });

@@ -26,7 +26,7 @@ export type CellShape =
   | { shape: 'number'; value: number; decimals: number; comparator: string }
   /** A number with a bracketed number after it: "4.842 (15)", "0.59 (0.5)", "6.81(0.078)"; `innerPair`: two df, "9.34 (2, 98)". */
   /** `innerThousands`: the pair may be one number with its thousands set apart, "(12,000)"; `dfThenSize`: a whole pair, the second larger, "(1, 141)" (a chi-square's df and sample size). */
-  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerThousands?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean; dfThenSize?: boolean }
+  | { shape: 'number-bracket'; value: number; inner: number; innerDecimals: number; innerPair?: boolean; innerThousands?: boolean; innerComparator?: string; plusMinus?: boolean; wholeValue?: boolean; dfThenSize?: boolean; namedDf?: boolean }
   /** A number with its interval: "0.04 (–0.45 to 0.54)", "0.31 [0.12, 0.50]"; `wholePair`: whole bounds that may be an F's df, "9.34 (2, 98)". */
   | { shape: 'number-interval'; value: number; wholePair?: boolean; dfThenSize?: boolean }
   /** Two numbers that may be a df pair: "2, 180", "(2, 180)", "2/180" (`slash`: also how counts are written, "12/30"). */
@@ -57,6 +57,8 @@ export type CellShape =
 const PAIR = /^(?:df ?= ?)?(\d{1,5}(?:\.\d+)?)(?:\s*[,;]\s*| and )(\d{1,6}(?:[.,]\d+)?)$/;
 const BRACKETED_PAIR = /^[([]\s*([1-9]\d{0,4}(?:\.\d+)?)\s*[,;/]\s*([1-9]\d{0,5}(?:\.\d+)?)\s*[)\]]$/;
 const SLASH_PAIR = /^(\d{1,5}) ?\/ ?(\d{1,6}(?:\.\d+)?)$/;
+/** A bracket that names what it holds as df: "0.61 (df = 1)", "5.91 [df=2]". */
+const NAMED_DF_BRACKET = /[([] ?df ?= ?\d/i;
 const NUMBER_BRACKET = /^([-\u2212\u2013]?\s*[\d.,]+)\s*(?:[*\u2020\u2021]{1,4}\s*)?[([](?:df ?= ?)?\s*(?:(<=|>=|<|>|\u2264|\u2265)\s*)?([-\u2212]?[\d.,]+)[a-h]?\s*[)\]]\s*(?:[*\u2020\u2021]{1,4}|[a-h])?$/;
 // (R's "+" for p < .1 in afex's and emmeans' output, "1.87 + .015", stands alone like the stars.)
 const MARK = /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-j]|\+)$/;
@@ -128,6 +130,7 @@ export function shapeOf(cell: string): CellShape {
         inner: inner.number.value,
         innerDecimals: inner.number.decimals,
         ...(outer.number.decimals === 0 ? { wholeValue: true } : {}),
+        ...(NAMED_DF_BRACKET.test(text) ? { namedDf: true } : {}),
       };
       return bracket[2] === undefined ? shape : { ...shape, innerComparator: bracket[2] };
     }
@@ -250,7 +253,8 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       if (cell.shape === 'number-bracket') {
         // (Under a statistic with one df, "(12,000)" is that df with its thousands set apart.)
         const twoDf = cell.innerPair === true && !(cell.innerThousands === true && role.kind !== 'F');
-        const withDf = role.dfInCell === true && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F');
+        // (A bracket that says it holds df, "(df = 1)", holds them whatever the header says.)
+        const withDf = (role.dfInCell === true || cell.namedDf === true) && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F');
         if (!withDf) return -3;
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;

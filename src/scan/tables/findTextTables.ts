@@ -977,8 +977,14 @@ function readHeaderOf(line: Line): HeaderLine | null {
       // Groups named with their sizes ("Intervention (n = 60) Control (n = 58)"): a column each, counted as
       // neither known nor unknown (their names say clearly what they are).
       const sized = codes ? null : namesEndingWithSizes(text, tokens.slice(index, end));
+      // Names that repeat their first word ("Group 1 Group 2", "Time 1 Time 2 Time 3"): a column each.
+      const repeated = codes || sized !== null ? null : repeatedNames(tokens.slice(index, end));
       if (sized !== null) {
         columns.push(...sized);
+        unknownRun = -1;
+      } else if (repeated !== null) {
+        // (Counted as neither known nor unknown, like groups named with their sizes: their names say they are columns.)
+        for (const [first, last] of repeated) columns.push(join(text, tokens[index + first]!, tokens[index + last]!));
         unknownRun = -1;
       } else if (codes) {
         for (let at = index; at < end; at++) columns.push(tokens[at]!);
@@ -1027,6 +1033,24 @@ function readHeaderOf(line: Line): HeaderLine | null {
   const lastNamesStatistic = classifyHeader(columns[columns.length - 1]!.text).role === 'statistic';
   const groupsThenTest = unknown === 1 && statisticNames >= 1 && (pNames >= 1 || lastNamesStatistic);
   return namesTest && (named >= 3 || statisticNames >= 2 || groupsThenTest) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
+}
+
+/**
+ * A run of words that names several columns alike, each starting with the same word and as long as the others
+ * ("Group 1 Group 2", "Time 1 Time 2 Time 3", "Wave A Wave B"): each name's first and last token index; null when
+ * the run does not split so.
+ */
+function repeatedNames(tokens: readonly Piece[]): [number, number][] | null {
+  const first = tokens[0]?.text;
+  if (first === undefined || tokens.length < 4) return null;
+  const length = tokens.findIndex((token, index) => index > 0 && token.text === first);
+  if (length < 2 || tokens.length % length !== 0) return null;
+  const names: [number, number][] = [];
+  for (let start = 0; start < tokens.length; start += length) {
+    if (tokens[start]!.text !== first) return null;
+    names.push([start, start + length - 1]);
+  }
+  return names;
 }
 
 /**
