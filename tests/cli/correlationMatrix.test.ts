@@ -163,4 +163,20 @@ describe('correlation matrices in other common layouts, from the command line', 
     const numbersOnly = ['Table 4 Spearman correlation coefficients between variables', '', '  1 2 3 4', '1 1 0.247* 0.303* 0.306*', '2   1 0.423* 0.316*', '3    1 0.409*', '4     1', '', '*p < 0.05'].join('\n');
     expect(scanTextJson(`${numbersOnly}\n`).statistics.map((statistic) => statistic.value)).toEqual([0.247, 0.303, 0.306, 0.423, 0.316, 0.409]);
   });
+
+  it('gives the r of a table with r and p columns df N − 2 from a note that ends its sentence right after N ("Note. N = 120."), whatever the layout', () => {
+    // Common practice: a note states the sample of a correlation table; the numbers are made up.
+    const rows = [['Variable', 'r', 'p'], ['Age', '-.21', '.041'], ['Income', '.33', '<.001']];
+    const layouts: Record<string, string> = {
+      pipe: ['| Variable | r | p |', '|---|---|---|', '| Age | -.21 | .041 |', '| Income | .33 | <.001 |'].join('\n'),
+      'one cell per line': rows.map((row) => row.join('\n\n')).join('\n\n'),
+    };
+    for (const [layout, table] of Object.entries(layouts)) {
+      const document = scanTextJson(`Table 2. Correlations of the measures with age\n\n${table}\n\nNote. N = 120.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]), layout).toEqual([
+        ['r', -0.21, [118]],
+        ['r', 0.33, [118]],
+      ]);
+    }
+  });
 });

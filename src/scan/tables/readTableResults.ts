@@ -493,7 +493,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // (Or the lines right above the table: a copy may leave the block titles "Levene's Test for Equality of
   // Variances | t-test for Equality of Means" out of the table, over its header.)
   const mentionsLevene = /levene/i.test([noteText, ...rows.slice(0, headerCount).flat()].join(' ')) || /levene/i.test(text.slice(Math.max(0, table.start - 300), table.start + 300));
-  const noteN = readNoteSampleSize(noteText);
+  // (A layout that keeps no notes with the table, one cell per line, leaves them as the lines right after it.)
+  const noteN = readNoteSampleSize(noteText) ?? (table.notes.length === 0 ? readNoteSampleSize(notesAfter(text, table.end)) : null);
   const tableNoteDf = withNamedExceptions(noteDf, [...segments.map((segment) => segment.title ?? ''), ...virtualRows.map((row) => row.cells[0] ?? '')]);
   // A footnote's df ("a df = 1.") are the df of the statistics carrying its marker ("0.80a"), when some do and the
   // column's header does not; the other rows take none of the note's df.
@@ -2595,7 +2596,8 @@ function readLabelDf(label: string): ReportedNumber[] {
 }
 
 function readNoteSampleSize(note: string): ReportedNumber | null {
-  const match = /(?:^|[^A-Za-z])N\s*=\s*(\d{1,3}(?:,\d{3})+|\d+)(?![\d.])/.exec(note.slice(0, 2000));
+  // (A full stop may end the note's sentence right after the number, "N = 120."; a decimal is no sample size.)
+  const match = /(?:^|[^A-Za-z])N\s*=\s*(\d{1,3}(?:,\d{3})+|\d+)(?!\d|[.,]\d)/.exec(note.slice(0, 2000));
   return match ? parseReportedNumber(match[1]!.replace(/,/g, '')) : null;
 }
 
