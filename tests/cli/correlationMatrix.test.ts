@@ -166,16 +166,18 @@ describe('correlation matrices in other common layouts, from the command line', 
 
   it('gives the r of a table with r and p columns df N − 2 from a note that ends its sentence right after N ("Note. N = 120."), whatever the layout', () => {
     // Common practice: a note states the sample of a correlation table; the numbers are made up.
-    const rows = [['Variable', 'r', 'p'], ['Age', '-.21', '.041'], ['Income', '.33', '<.001']];
+    // (r(118) = −.21 gives p = .021: SciPy 1.10.1 scipy.stats.pearsonr's t form, 2 * scipy.stats.t.sf, computed when the
+    // test was written.) Without the note's N the r would be checked against the study's N, as a warning at most.
+    const rows = [['Variable', 'r', 'p'], ['Age', '-.21', '.021'], ['Income', '.33', '<.001']];
     const layouts: Record<string, string> = {
-      pipe: ['| Variable | r | p |', '|---|---|---|', '| Age | -.21 | .041 |', '| Income | .33 | <.001 |'].join('\n'),
+      pipe: ['| Variable | r | p |', '|---|---|---|', '| Age | -.21 | .021 |', '| Income | .33 | <.001 |'].join('\n'),
       'one cell per line': rows.map((row) => row.join('\n\n')).join('\n\n'),
     };
     for (const [layout, table] of Object.entries(layouts)) {
       const document = scanTextJson(`Table 2. Correlations of the measures with age\n\n${table}\n\nNote. N = 120.\n`);
-      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]), layout).toEqual([
-        ['r', -0.21, [118]],
-        ['r', 0.33, [118]],
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.dfFrom]), layout).toEqual([
+        ['r', -0.21, [118], 'sample-size'],
+        ['r', 0.33, [118], 'sample-size'],
       ]);
     }
   });

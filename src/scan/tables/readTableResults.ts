@@ -2200,6 +2200,8 @@ function readRow(input: RowInput): ReportedResult | null {
   const df = degreesOfFreedom(kind, dfSources);
   // df that only the text beside the table gives are said to come from there (and weigh at most a warning).
   const dfBesideTable = input.noteDf.besideTable === true && df !== null && !sameNumbers(df, degreesOfFreedom(kind, { ...dfSources, noteDf: NO_NOTE_DF }));
+  // A correlation's df worked out from the N of its row or the table's note (N − 2) are said to be so.
+  const dfFromN = kind === 'r' && df !== null && degreesOfFreedom(kind, { ...dfSources, nCell: null, noteN: null }) === null;
   // A correlation needs no df to be read (as in running text): without an N in its row or the table's note it is
   // checked with the study's stated N, at most as a warning, or left unchecked (checks/documentDf.ts).
   // Without df the statistic is still read as printed (as in running text: "F = 5.60, p = .000"); its p cannot be
@@ -2248,7 +2250,7 @@ function readRow(input: RowInput): ReportedResult | null {
     start,
     end,
     df: readDf,
-    ...(dfBesideTable ? { dfFrom: 'text-beside-table' as const } : {}),
+    ...(dfBesideTable ? { dfFrom: 'text-beside-table' as const } : dfFromN ? { dfFrom: 'sample-size' as const } : {}),
     sampleSize: sampleSize === null ? null : stripOffsets(sampleSize),
     value: stripOffsets(statistic.record),
     valueComparator: statistic.comparator,
