@@ -189,6 +189,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const widest = widestValueCount(body);
   const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
   const valueCount = blocksAlike ? widest : typical;
+  // A column of footnote letters no header names, after the last value ("1.74" / "b", "2.19" / "a", or a cell left
+  // empty): not a value of the row, nor the start of the next row's label.
+  if (grid === null && !blocksAlike) body = withoutFootnoteCells(body, valueCount);
 
   // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
   // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
@@ -745,6 +748,37 @@ function withoutSpanShiftedEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
     index = end;
   }
   return typicalValueCount(kept) === valueNames ? kept : body;
+}
+
+/** A footnote letter or mark standing as a cell of its own ("b", "*", "†"). */
+const FOOTNOTE_CELL = /^(?:[a-h]|[*\u2020\u2021]{1,3})$/;
+
+/**
+ * The body without the cells that close a row of `valueCount` values with a footnote: a lone footnote letter or
+ * mark, or an empty cell, right after the row's last value and before the next row's label (a text cell) or the
+ * end of the table. The body unchanged when no full row is closed so.
+ */
+function withoutFootnoteCells(body: Cell[], valueCount: number): Cell[] {
+  if (valueCount < 2) return body;
+  const dropped = new Set<number>();
+  let index = 0;
+  while (index < body.length) {
+    if (!isValueCell(body[index]!)) {
+      index++;
+      continue;
+    }
+    let end = index;
+    while (end < body.length && isValueCell(body[end]!)) end++;
+    // (A lone letter that reads as a value, "a", ends the run one cell late; one that reads as a column name, "b",
+    // ends it on time and stands before the next label.)
+    const closing = end - index === valueCount + 1 ? end - 1 : end - index === valueCount ? end : -1;
+    const cell = body[closing];
+    const closesRow = cell !== undefined && (cell.empty || FOOTNOTE_CELL.test(cell.text));
+    const next = body[closing + 1];
+    if (closesRow && !body[closing - 1]!.empty && (next === undefined || (!next.empty && !isValueCell(next)))) dropped.add(closing);
+    index = Math.max(end, closing + 1);
+  }
+  return dropped.size === 0 ? body : body.filter((_, at) => !dropped.has(at));
 }
 
 /** The number of text cells most rows have before their values. */
