@@ -193,9 +193,18 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // empty): not a value of the row, nor the start of the next row's label.
   if (grid === null && !blocksAlike) body = withoutFootnoteCells(body, valueCount);
 
+  // A header of two full rows: the columns' names, then what the groups' columns hold ("Item" / "EP group" / "CACP
+  // group" / "Total" / "X 2/t" / "p" over "n (%)" / "n (%)" / "n (%)" / "" / ""). Its lower row's empty cells may
+  // stand after the names, before the first row's label: they are the header's.
+  const twoLevel = grid === null ? twoLevelHeader(cells.slice(first, bodyStart), body, valueCount) : null;
+  if (twoLevel !== null) {
+    headerRun = [cells[first]!, ...twoLevel.upper];
+    body = body.slice(twoLevel.emptiesTaken);
+    bodyStart += twoLevel.emptiesTaken;
+  }
   // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
   // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
-  const window = grid === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
+  const window = grid === null && twoLevel === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
   if (window >= 0 && window + valueCount < headerRun.length) {
     const lastName = headerRun[window + valueCount - 1]!;
     bodyStart = cells.indexOf(lastName) + 1;
@@ -253,6 +262,10 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
+  if (twoLevel !== null) {
+    rows.push(['', ...twoLevel.lower.map((cell) => cell.text)]);
+    spans.push([null, ...twoLevel.lower.map((cell) => (cell.empty ? null : spanOf1(cell)))]);
+  }
   // Block titles that carry their df ("Treatment (num. df = 1)") before the column names: an upper header row.
   const dfTitles = [...cells.slice(0, first), ...headerRun].filter((cell) => !cell.empty && !names.includes(cell) && TITLE_WITH_DF.test(cell.text));
   if (dfTitles.length > 0) {
@@ -302,7 +315,7 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
       caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first).filter((cell) => !sizeTitles.includes(cell))) : title.text.trim(),
       notes: [],
       rows,
-      headerRows: dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1,
+      headerRows: (dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1) + (twoLevel !== null ? 1 : 0),
       cells: spans,
       layout: 'cell-per-line',
     },
@@ -748,6 +761,27 @@ function withoutSpanShiftedEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
     index = end;
   }
   return typicalValueCount(kept) === valueNames ? kept : body;
+}
+
+/**
+ * A header of two full rows after a label column's name: `valueCount` names of columns (a test's or p among them),
+ * then as many cells saying what each group's column holds ("n (%)", "Mean (SD)"), empty under the test's columns;
+ * the lower row's last empty cells may open `body`. Null unless the cells make exactly those two rows.
+ */
+function twoLevelHeader(header: Cell[], body: Cell[], valueCount: number): { upper: Cell[]; lower: Cell[]; emptiesTaken: number } | null {
+  if (valueCount < 2 || header.length < 2 || classifyHeader(header[0]!.text).role !== 'label') return null;
+  let emptiesTaken = 0;
+  while (emptiesTaken < body.length && body[emptiesTaken]!.empty) emptiesTaken++;
+  const after = [...header.slice(1), ...body.slice(0, emptiesTaken)];
+  if (after.length !== 2 * valueCount) return null;
+  const upper = after.slice(0, valueCount);
+  const lower = after.slice(valueCount);
+  if (upper.some((cell) => cell.empty) || lower.every((cell) => cell.empty)) return null;
+  const upperRoles = upper.map((cell) => classifyHeader(cell.text).role);
+  if (!upperRoles.some((role) => role === 'statistic' || role === 'p' || role === 'result')) return null;
+  // (The lower row names what a group's cells hold, under a group's name; the test's columns have no lower name.)
+  const holdsGroupCells = lower.every((cell, column) => cell.empty || (['n', 'descriptive'].includes(classifyHeader(cell.text).role) && ['unknown', 'label'].includes(upperRoles[column]!)));
+  return holdsGroupCells ? { upper, lower, emptiesTaken } : null;
 }
 
 /** A footnote letter or mark standing as a cell of its own ("b", "*", "†"). */

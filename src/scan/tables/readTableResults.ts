@@ -1553,7 +1553,12 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
     const positionsHold =
       schema.positional && pieces.length === 1 && piece.end <= width && values.every((_, offset) => isValueRole(schema.roles[piece.valuesFrom + offset] ?? { role: 'unknown' }));
     // A rebuilt row with exactly one cell (empty ones included) per column keeps its order one to one.
-    const oneToOne = !schema.positional && values.length === valueColumns.length && values.some((cell) => cell.trim() === '');
+    // (So does a full one whose test's cells fit their columns, whatever the groups' columns hold: means ± SDs under a
+    // lower header "n (%)" that names the cells of the categorical rows.)
+    const oneToOne =
+      !schema.positional &&
+      values.length === valueColumns.length &&
+      (values.some((cell) => cell.trim() === '') || fullRowInOrder(values.map((_, offset) => shapes[piece.valuesFrom + offset]!), valueColumns.map(({ role }) => role)));
     if (oneToOne) {
       values.forEach((cell, offset) => {
         const column = valueColumns[offset]!.column;
@@ -1713,6 +1718,18 @@ function keepsMeanSquare(cells: PlacedCells, roles: ColumnRole[], columns: numbe
   const ms = valueIn('ms');
   if (ss === null || df === null || ms === null || df <= 0 || ms <= 0) return true;
   return Math.abs(ss / df - ms) <= MEAN_SQUARE_SLACK * ms + 0.01;
+}
+
+/**
+ * Whether a row with one filled cell per value column keeps its order: every cell under a test's column (statistic,
+ * df, p, effect size) fits it, a statistic among them, and the other cells are values under groups' columns.
+ */
+function fullRowInOrder(shapes: CellShape[], roles: ColumnRole[]): boolean {
+  const testRoles = new Set(['statistic', 'df', 'df1', 'df2', 'p', 'effect']);
+  return (
+    roles.some((role) => role.role === 'statistic') &&
+    roles.every((role, slot) => (testRoles.has(role.role) ? fit(role, shapes[slot]!) > 0 : ['n', 'descriptive', 'unknown'].includes(role.role) && shapes[slot]!.shape !== 'text'))
+  );
 }
 
 /**
