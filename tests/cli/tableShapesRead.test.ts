@@ -1498,4 +1498,23 @@ describe('results tables in the shapes papers print them', () => {
       ['t', 2.31, '0.026'],
     ]);
   });
+
+  it('reads a crushed table whose last column "P value (χ2)" holds each test as "p (χ2, df)", whatever its other columns, and nothing from such a line without a table title (real corpus dvzh-01)', () => {
+    // A journal's web table as text (tests/corpus/real/passages/dvzh-01.txt, CC BY 4.0): rows crushed into single spaces,
+    // a factor's second level on a line of its own, the test's cell last. The numbers are made up. (χ2(1) = 11.20 gives
+    // p = .0008, 4.10 gives .043: SciPy 1.10.1 scipy.stats.chi2.sf.)
+    const rows = [
+      'Variables Condition No. examined dogs No of infested dogs (%) Relative risk (95% confidence interval) P value (χ2)',
+      'Sex Male 210 150 (71) 0.7410 (0.62–0.88) 0.001 (11.20,1)',
+      'Female 90 40 (44)',
+      'Housing Kennel 120 90 (75) 1.210 (1.01–1.45) 0.04 (4.10, 1)',
+      'Yard 180 100 (56)',
+    ].join('\n');
+    const document = scanTextJson(`Table 3.\n\nRisk factors for infestation\n\n${rows}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['chi2', 11.2, [1], '0.001'],
+      ['chi2', 4.1, [1], '0.04'],
+    ]);
+    expect(scanTextJson(`Some prose first.\n\n${rows}\n\nThe next section.\n`).statistics.filter((statistic) => statistic.value === 11.2)).toEqual([]);
+  });
 });
