@@ -1439,4 +1439,108 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it("reads the intercept row of R's MANOVA output, whose every row prints its own numerator and denominator df (real corpus dwqd-02)", () => {
+    // R's car::Anova layout for a multivariate test as a study's supplement prints it (tests/corpus/real/passages/dwqd-02.txt,
+    // CC BY 4.0); the numbers are made up. (p from SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written:
+    // F(1, 96) = 212.40 gives 4.6e-26, F(2, 95) = 6.31 gives .0027, F(4, 93) = 1.42 gives .233.)
+    const text = [
+      'Type III Repeated Measures MANOVA Tests: Pillai test statistic',
+      '            Df test stat approx F num Df den Df    Pr(>F)    ',
+      '(Intercept)  1   0.68871   212.40      1     96 < 2.2e-16 ***',
+      'block        1   0.11726     6.31      2     95 0.0026727 ** ',
+      'block:cue    1   0.05754     1.42      4     93 0.2334749    ',
+      '---',
+      "Signif. codes:  0 '***' 0.001 '**' 0.01 '*' 0.05 '.' 0.1 ' ' 1",
+    ].join('\n');
+    const document = scanTextJson(`${text}\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 212.4, [1, 96]],
+      ['F', 6.31, [2, 95]],
+      ['F', 1.42, [4, 93]],
+    ]);
+  });
+
+  it('reads a "Test Statistics" column whose name carries a footnote letter the note defines as a Wald chi-square, the intercept\'s too, and nothing when the letter names no test (real corpus dwoe-01)', () => {
+    // A logistic regression's table as a journal's web page gives it (tests/corpus/real/passages/dwoe-01.txt, CC BY); the
+    // numbers are made up. (χ2(1) = 18.31 gives p = .00002, 3.95 gives .047, 7.12 gives .0076: SciPy 1.10.1 scipy.stats.chi2.sf.)
+    const table = (note: string): string =>
+      [
+        'Table 3. Logistic regression model for relapse.',
+        'Covariate | Coefficient (SE) | Test Statisticsa | P-valueb | Odds Ratio (95% CI) |',
+        'Intercept | 8.10(1.89) | 18.31 | <0.001 | |',
+        'Age | 0.91(0.46) | 3.95 | 0.047 | 2.48(1.01–6.11) |',
+        'Dose | −0.27(0.10) | 7.12 | 0.008 | 0.76(0.63–0.93) |',
+        'SE: standard error; CI: confidence interval.',
+        note,
+        'b P-values were 2-sided.',
+        '',
+        'The next section.',
+      ].join('\n');
+    const document = scanTextJson(`${table('a Wald chi-square tests.')}\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['chi2', 18.31, [], '0.001'],
+      ['chi2', 3.95, [], '0.047'],
+      ['chi2', 7.12, [], '0.008'],
+    ]);
+    // (A letter its note does not define as a test leaves the column's kind unknown: nothing is read from it.)
+    expect(scanTextJson(`${table('a Estimated by maximum likelihood.')}\n`).statistics).toEqual([]);
+  });
+
+  it('reads rows one cell per line that end in a footnote letter or an empty cell after t, p and d, keeping the next row\'s label its own (real corpus dwoa-01)', () => {
+    // A journal's web table as text (tests/corpus/real/passages/dwoa-01.txt, CC BY 4.0): a two-level header flattened into
+    // cells, a footnote letter ("a", "b") or a blank cell closing each row. The numbers are made up. (t(38) = 4.80 gives
+    // p = .00002, 2.05 gives .047, 1.20 gives .238: SciPy 1.10.1 scipy.stats.t.sf, two-sided.)
+    const cells = [' ', 'Patients', 'Controls', 'Group difference', 'Effect size', 'Mean', 'SD', 'Mean', 'SD', 't', 'p', 'Cohen’s d',
+      'Faces', ' Static', '  % Eye', '31.2', '20.5', '60.4', '18.1', '4.80', '< .001*', '1.52', 'b',
+      '  % Mouth', '15.3', '12.2', '8.4', '9.0', '2.05', '.047', '.65', 'a',
+      ' Dynamic', '  % Eye', '24.1', '19.9', '49.7', '20.2', '4.80', '< .001*', '1.26', 'b',
+      '  % Mouth', '29.5', '25.1', '26.2', '16.0', '1.20', '.238', '.38', ' ',
+      'Objects', '  % Moving', '40.2', '18.0', '55.1', '17.5', '2.05', '.047*', '.84', 'b'];
+    const document = scanTextJson(`Table 2 Fixation percentages by group\n\n${cells.join('\n\n')}\n\n  1. * p < .025\n  2. aModerate effect size\n  3. bHigh effect size\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.text, statistic.effects.map((effect) => effect.value)])).toEqual([
+      ['t', 4.8, '.001', [1.52]],
+      ['t', 2.05, '.047', [0.65]],
+      ['t', 4.8, '.001', [1.26]],
+      ['t', 1.2, '.238', [0.38]],
+      ['t', 2.05, '.047', [0.84]],
+    ]);
+  });
+
+  it('reads a one-cell-per-line table whose header is two full rows (groups, "X 2/t" and p over "n (%)" cells): chi-square for the rows of counts, t for the rows of means ± SD (real corpus dwoi-01)', () => {
+    // A journal's web table as text (tests/corpus/real/passages/dwoi-01.txt, CC BY 4.0): blank lines between cells, lines
+    // of spaces for empty cells, the test named by a letter after each p. The numbers are made up. (χ2(1) = 1.10 gives
+    // p = .29, 0.42 gives .52; t(40) = 0.52 gives .61, 2.31 gives .026: SciPy 1.10.1 scipy.stats.chi2.sf and t.sf.)
+    const cells = ['Item', 'Group A', 'Group B', 'Total', 'X 2/t', 'p', 'n (%)', 'n (%)', 'n (%)', '  ',
+      'Ward type', '   ', '1.10', '0.29 a', '  Medical', '12 (57.1)', '9 (42.9)', '21 (50.0)', '  ', '  Surgical', '9 (42.9)', '12 (57.1)', '21 (50.0)', '  ',
+      'Shift pattern', '   ', '0.42', '0.52 a', '  Fixed', '14 (66.7)', '12 (57.1)', '26 (61.9)', '  ', '  Rotating', '7 (33.3)', '9 (42.9)', '16 (38.1)', '  ',
+      'Age (yr) (means±SD)', '27.10 ± 2.40', '26.72 ± 2.31', '26.91 ± 2.34', '0.52', '0.61 b',
+      'Experience (yr) (means±SD)', '6.80 ± 2.10', '5.31 ± 2.08', '6.06 ± 2.21', '2.31', '0.026 b'];
+    const document = scanTextJson(`Skip to main content\n\nTable 1 Characteristics of the two groups\n\n${cells.join('\n\n')}\n\n  1. a: Chi-square; b: independent 2-sample t test, 2 tailed\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.text])).toEqual([
+      ['chi2', 1.1, '0.29'],
+      ['chi2', 0.42, '0.52'],
+      ['t', 0.52, '0.61'],
+      ['t', 2.31, '0.026'],
+    ]);
+  });
+
+  it('reads a crushed table whose last column "P value (χ2)" holds each test as "p (χ2, df)", whatever its other columns, and nothing from such a line without a table title (real corpus dvzh-01)', () => {
+    // A journal's web table as text (tests/corpus/real/passages/dvzh-01.txt, CC BY 4.0): rows crushed into single spaces,
+    // a factor's second level on a line of its own, the test's cell last. The numbers are made up. (χ2(1) = 11.20 gives
+    // p = .0008, 4.10 gives .043: SciPy 1.10.1 scipy.stats.chi2.sf.)
+    const rows = [
+      'Variables Condition No. examined dogs No of infested dogs (%) Relative risk (95% confidence interval) P value (χ2)',
+      'Sex Male 210 150 (71) 0.7410 (0.62–0.88) 0.001 (11.20,1)',
+      'Female 90 40 (44)',
+      'Housing Kennel 120 90 (75) 1.210 (1.01–1.45) 0.04 (4.10, 1)',
+      'Yard 180 100 (56)',
+    ].join('\n');
+    const document = scanTextJson(`Table 3.\n\nRisk factors for infestation\n\n${rows}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['chi2', 11.2, [1], '0.001'],
+      ['chi2', 4.1, [1], '0.04'],
+    ]);
+    expect(scanTextJson(`Some prose first.\n\n${rows}\n\nThe next section.\n`).statistics.filter((statistic) => statistic.value === 11.2)).toEqual([]);
+  });
 });

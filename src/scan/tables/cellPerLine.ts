@@ -189,10 +189,22 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const widest = widestValueCount(body);
   const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
   const valueCount = blocksAlike ? widest : typical;
+  // A column of footnote letters no header names, after the last value ("1.74" / "b", "2.19" / "a", or a cell left
+  // empty): not a value of the row, nor the start of the next row's label.
+  if (grid === null && !blocksAlike) body = withoutFootnoteCells(body, valueCount);
 
+  // A header of two full rows: the columns' names, then what the groups' columns hold ("Item" / "EP group" / "CACP
+  // group" / "Total" / "X 2/t" / "p" over "n (%)" / "n (%)" / "n (%)" / "" / ""). Its lower row's empty cells may
+  // stand after the names, before the first row's label: they are the header's.
+  const twoLevel = grid === null ? twoLevelHeader(cells.slice(first, bodyStart), body, valueCount) : null;
+  if (twoLevel !== null) {
+    headerRun = [cells[first]!, ...twoLevel.upper];
+    body = body.slice(twoLevel.emptiesTaken);
+    bodyStart += twoLevel.emptiesTaken;
+  }
   // Of the runs of that many header cells, the one with the most known names (the last on a tie): cells after it
   // are a section and the first row's label cells, even when one reads like a name ("Photosynthesis", "Fv/Fm", "N").
-  const window = grid === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
+  const window = grid === null && twoLevel === null && valueCount >= 2 && headerRun.length > valueCount ? bestNameWindow(headerRun, valueCount) : -1;
   if (window >= 0 && window + valueCount < headerRun.length) {
     const lastName = headerRun[window + valueCount - 1]!;
     bodyStart = cells.indexOf(lastName) + 1;
@@ -250,6 +262,10 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
+  if (twoLevel !== null) {
+    rows.push(['', ...twoLevel.lower.map((cell) => cell.text)]);
+    spans.push([null, ...twoLevel.lower.map((cell) => (cell.empty ? null : spanOf1(cell)))]);
+  }
   // Block titles that carry their df ("Treatment (num. df = 1)") before the column names: an upper header row.
   const dfTitles = [...cells.slice(0, first), ...headerRun].filter((cell) => !cell.empty && !names.includes(cell) && TITLE_WITH_DF.test(cell.text));
   if (dfTitles.length > 0) {
@@ -299,7 +315,7 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
       caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first).filter((cell) => !sizeTitles.includes(cell))) : title.text.trim(),
       notes: [],
       rows,
-      headerRows: dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1,
+      headerRows: (dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1) + (twoLevel !== null ? 1 : 0),
       cells: spans,
       layout: 'cell-per-line',
     },
@@ -745,6 +761,58 @@ function withoutSpanShiftedEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
     index = end;
   }
   return typicalValueCount(kept) === valueNames ? kept : body;
+}
+
+/**
+ * A header of two full rows after a label column's name: `valueCount` names of columns (a test's or p among them),
+ * then as many cells saying what each group's column holds ("n (%)", "Mean (SD)"), empty under the test's columns;
+ * the lower row's last empty cells may open `body`. Null unless the cells make exactly those two rows.
+ */
+function twoLevelHeader(header: Cell[], body: Cell[], valueCount: number): { upper: Cell[]; lower: Cell[]; emptiesTaken: number } | null {
+  if (valueCount < 2 || header.length < 2 || classifyHeader(header[0]!.text).role !== 'label') return null;
+  let emptiesTaken = 0;
+  while (emptiesTaken < body.length && body[emptiesTaken]!.empty) emptiesTaken++;
+  const after = [...header.slice(1), ...body.slice(0, emptiesTaken)];
+  if (after.length !== 2 * valueCount) return null;
+  const upper = after.slice(0, valueCount);
+  const lower = after.slice(valueCount);
+  if (upper.some((cell) => cell.empty) || lower.every((cell) => cell.empty)) return null;
+  const upperRoles = upper.map((cell) => classifyHeader(cell.text).role);
+  if (!upperRoles.some((role) => role === 'statistic' || role === 'p' || role === 'result')) return null;
+  // (The lower row names what a group's cells hold, under a group's name; the test's columns have no lower name.)
+  const holdsGroupCells = lower.every((cell, column) => cell.empty || (['n', 'descriptive'].includes(classifyHeader(cell.text).role) && ['unknown', 'label'].includes(upperRoles[column]!)));
+  return holdsGroupCells ? { upper, lower, emptiesTaken } : null;
+}
+
+/** A footnote letter or mark standing as a cell of its own ("b", "*", "†"). */
+const FOOTNOTE_CELL = /^(?:[a-h]|[*\u2020\u2021]{1,3})$/;
+
+/**
+ * The body without the cells that close a row of `valueCount` values with a footnote: a lone footnote letter or
+ * mark, or an empty cell, right after the row's last value and before the next row's label (a text cell) or the
+ * end of the table. The body unchanged when no full row is closed so.
+ */
+function withoutFootnoteCells(body: Cell[], valueCount: number): Cell[] {
+  if (valueCount < 2) return body;
+  const dropped = new Set<number>();
+  let index = 0;
+  while (index < body.length) {
+    if (!isValueCell(body[index]!)) {
+      index++;
+      continue;
+    }
+    let end = index;
+    while (end < body.length && isValueCell(body[end]!)) end++;
+    // (A lone letter that reads as a value, "a", ends the run one cell late; one that reads as a column name, "b",
+    // ends it on time and stands before the next label.)
+    const closing = end - index === valueCount + 1 ? end - 1 : end - index === valueCount ? end : -1;
+    const cell = body[closing];
+    const closesRow = cell !== undefined && (cell.empty || FOOTNOTE_CELL.test(cell.text));
+    const next = body[closing + 1];
+    if (closesRow && !body[closing - 1]!.empty && (next === undefined || (!next.empty && !isValueCell(next)))) dropped.add(closing);
+    index = Math.max(end, closing + 1);
+  }
+  return dropped.size === 0 ? body : body.filter((_, at) => !dropped.has(at));
 }
 
 /** The number of text cells most rows have before their values. */

@@ -351,6 +351,17 @@ function findKnownKey(key: string): string | null {
   return null;
 }
 
+/**
+ * The footnote letter glued onto a known column name ("Test Statisticsa" -> "a"), or null: a header's key
+ * that is no name itself but is one without its last letter, a to h.
+ */
+export function gluedFootnoteLetter(header: string): string | null {
+  const key = headerKey(header).replace(/[.:]$/, '');
+  if (ROLE_BY_KEY.has(key)) return null;
+  const letter = /(?<=[a-z0-9.)\]])[a-h]$/.exec(key)?.[0];
+  return letter !== undefined && key.length > 2 && ROLE_BY_KEY.has(key.slice(0, -1)) ? letter : null;
+}
+
 /** "<statistic>, p value (df 1, 24)": groups: the statistic's name, the bracketed df. Bounded pieces, no nested quantifiers. */
 const P_NAMED_BEFORE_DF = /^([a-z][a-z0-9 -]{0,20}?) ?[,;] ?p(?:[- ]?values?)? ?(\((?:d\.?f\.?)[ =:]{0,3}\d{1,5}(?: ?[,;/] ?\d{1,6})?\))$/;
 

@@ -30,6 +30,7 @@ import { readGluedMatrix } from './gluedMatrix.js';
 import { EndTags, readHtmlTableInText } from './htmlInText.js';
 import { readSpssCorrelations } from './spssCorrelations.js';
 import { readSpreadsheetTest } from './spreadsheetTests.js';
+import { readPThenStatisticTable } from './pThenStatistic.js';
 import { readTransposedTable } from './transposed.js';
 
 interface Line extends TextLine {
@@ -102,6 +103,14 @@ export function findTextTables(text: string): DocumentTable[] {
       const title = readTitle(lines, index, true);
       tables.push(title === null ? software.table : { ...software.table, caption: title.caption, start: lines[title.firstLine]!.start });
       index = software.lastLine + 1;
+      continue;
+    }
+    // A table whose last column holds each test as "p (χ2, df)" under "P value (χ2)": its test cells are read whatever
+    // its other columns are.
+    const pFirst = lines[index]!.text.includes('(') ? readPThenStatisticTable(lines, index) : null;
+    if (pFirst !== null) {
+      tables.push(pFirst.table);
+      index = pFirst.lastLine + 1;
       continue;
     }
     // Under a title, a column of lines each closed by a pipe ("10.84(1, 141) |", "|") is a table a web page copied

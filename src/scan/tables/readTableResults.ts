@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readWrittenCorrelations } from './writtenCorrelations.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
@@ -400,7 +400,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     rows = unnamed.rows;
     located = unnamed.located;
   }
-  const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '));
+  const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '), footnoteTestsOf([...table.notes, ...noteLinesAfter(text, table.end)]));
   const families = columnFamilies(rows.slice(headerCount), baseSchema);
   const schema: Schema = families === undefined ? baseSchema : { ...baseSchema, families };
   const roles = schema.roles;
@@ -530,15 +530,20 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   // The intercept's test is read only where one error row serves every effect (a between-subjects
   // table): in repeated-measures output it is tested against an error term the layout does not show.
   const singleErrorTerm = errorRows.filter(Boolean).length === 1;
-  // (A table of a model's coefficients, tested by z or t with no error rows, tests its intercept like any term.)
-  const coefficientTests = errorRows.every((isError) => !isError) && segments.length > 0 && segments.every((segment) => segment.kind === 'z' || segment.kind === 't');
+  // (A table of a model's coefficients, tested by z, t or a Wald chi-square with no error rows, tests its intercept
+  // like any term: none of these statistics has an error term.)
+  const coefficientTests = errorRows.every((isError) => !isError) && segments.length > 0 && segments.every((segment) => segment.kind === 'z' || segment.kind === 't' || segment.kind === 'chi2');
+  // (Nor does a row that prints its own error df in a denominator df column, as R's MANOVA output does, "(Intercept)
+  // 1 0.77685 438.65 1 126 < 2.2e-16": each row's test, the intercept's too, is complete in its row.)
+  const printsOwnErrorDf = (row: string[]): boolean =>
+    segments.length > 0 && segments.every((segment) => segment.columns.has('df2') && readCell(row[segment.columns.get('df2')!] ?? '', separator).kind === 'number');
   for (let index = 0; index < virtualRows.length; index++) {
     const { cells: row, at: cellsAt, partial, guessed, blockUnknown } = virtualRows[index]!;
     const labelKey = headerKey(row[0] ?? '');
     // A Total row of an ANOVA table prints no statistic; a row named "Total" that does is a measure's ("Total
     // biomass" shortened to "Total" under a section line).
     const totalRow = TOTAL_LABEL.test(labelKey) && !segments.some((segment) => readCell(row[segment.columns.get('statistic')!] ?? '', separator).kind === 'number');
-    if (errorRows[index] || totalRow || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm && !coefficientTests)) continue;
+    if (errorRows[index] || totalRow || (INTERCEPT_LABEL.test(labelKey) && !singleErrorTerm && !coefficientTests && !printsOwnErrorDf(row))) continue;
     // A row its label calls means and SDs ("Self-paced control M SD 38.98 12.92 ...") holds descriptives, not
     // tests; when it also shows a test's marks (stars, "n.s.", "η2 = .59") they are counted as not read.
     // (A variable's name, a comma, then how it is summarised, "Age (y), mean (SD)", "BMI, M ± SD", names the
@@ -785,6 +790,47 @@ function testLegend(notes: string): Map<string, StatisticKind | null> {
   return legend;
 }
 
+/**
+ * The tests footnote lines define by their letter, each line opening with it ("a Wald chi-square tests.",
+ * "1. b: independent t test"): a letter defined twice, or as a test we do not check, names none. (Only lines
+ * that open with the letter: a letter inside running prose, "a t test was run", defines nothing.)
+ */
+function footnoteTestsOf(lines: string[]): Map<string, StatisticKind | null> {
+  const tests = new Map<string, StatisticKind | null>();
+  for (const line of lines) {
+    const match = /^(?:\d{1,2}\.\s{1,3})?([a-h])(?:\s?[.:)=]\s?|\s)([^.;]{3,60})/.exec(line.trim());
+    if (match === null) continue;
+    const letter = match[1]!;
+    const kind = testNamedIn(match[2]!);
+    if (kind === null && !OTHER_TEST.test(match[2]!)) continue;
+    tests.set(letter, tests.has(letter) && tests.get(letter) !== kind ? null : kind);
+  }
+  return tests;
+}
+
+/** The non-blank lines right after a table, up to the next table's title (at most MAX_LEGEND_LINES). */
+function noteLinesAfter(text: string, end: number): string[] {
+  const lines: string[] = [];
+  for (const line of text.slice(end, end + 3000).split('\n')) {
+    if (line.trim() === '') continue;
+    if (TABLE_TITLE.test(line) || lines.length >= MAX_LEGEND_LINES) break;
+    lines.push(line.trim());
+  }
+  return lines;
+}
+
+/**
+ * A column of test statistics of no stated kind ("Test Statistics") whose name carries a footnote letter that
+ * the notes define as one kind of test ("Test Statisticsa" over "a Wald chi-square tests."): a column of that
+ * statistic. Null for any other header.
+ */
+function testNamedByFootnote(header: string, legend: Map<string, StatisticKind | null>): ColumnRole | null {
+  if (classifyHeader(header).role !== 'result') return null;
+  const letter = gluedFootnoteLetter(header);
+  const kind = letter === null ? null : (legend.get(letter) ?? null);
+  return kind === null ? null : { role: 'statistic', kind, df: [] };
+}
+
 /** A value with its df in brackets and perhaps a footnote letter: "0.17 (1)", "18.53 (2,1067)", "0.54 (80)a". */
 const VALUE_WITH_DF = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+)) ?[([] ?(\d{1,5}(?:\.\d{1,2})?)(?: ?[,;] ?(\d{1,6}(?:\.\d{1,2})?))? ?[)\]] ?([a-f])? *$/;
 
@@ -974,7 +1020,7 @@ const UNPLACED_LAYOUTS = new Set(['crushed', 'cell-per-line']);
  * whose label column has no header, a spanning cell that pushes the names
  * after it to the left).
  */
-function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout'], notes = ''): Schema {
+function readSchema(rows: string[][], headerCount: number, layout: DocumentTable['layout'], notes = '', footnoteTests = new Map<string, StatisticKind | null>()): Schema {
   const positional = !UNPLACED_LAYOUTS.has(layout ?? '');
   const body = rows.slice(headerCount);
   const headerRows = rows.slice(0, headerCount).map(trimTrailingEmpty);
@@ -989,7 +1035,7 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
   const assigned = new Array<boolean>(width).fill(false);
   const headerTexts: string[][] = headerRows.map(() => new Array<string>(width).fill(''));
   const levelRoles = headerRows.map((headerRow) =>
-    headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : classifyHeader(cell))),
+    headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : (testNamedByFootnote(cell, footnoteTests) ?? classifyHeader(cell)))),
   );
   // A column name in an upper header row whose cells fit it is a name spanning the rows below (a copy
   // keeps no row spans): the rows below name the columns under that row's titles, not that one.
@@ -1316,13 +1362,7 @@ const MAX_LEGEND_LINES = 8;
 
 /** The lines after a table up to the next table's title (at most MAX_LEGEND_LINES non-blank ones): where its legend stands. */
 function linesAfter(text: string, end: number): string {
-  const lines: string[] = [];
-  for (const line of text.slice(end, end + 3000).split('\n')) {
-    if (line.trim() === '') continue;
-    if (TABLE_TITLE.test(line) || lines.length >= MAX_LEGEND_LINES) break;
-    lines.push(line.trim());
-  }
-  return lines.join(' ');
+  return noteLinesAfter(text, end).join(' ');
 }
 
 /** Non-blank lines (at most this many each side) read for df beside a table whose caption and notes state none. */
@@ -1514,7 +1554,12 @@ function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | nu
     const positionsHold =
       schema.positional && pieces.length === 1 && piece.end <= width && values.every((_, offset) => isValueRole(schema.roles[piece.valuesFrom + offset] ?? { role: 'unknown' }));
     // A rebuilt row with exactly one cell (empty ones included) per column keeps its order one to one.
-    const oneToOne = !schema.positional && values.length === valueColumns.length && values.some((cell) => cell.trim() === '');
+    // (So does a full one whose test's cells fit their columns, whatever the groups' columns hold: means ± SDs under a
+    // lower header "n (%)" that names the cells of the categorical rows.)
+    const oneToOne =
+      !schema.positional &&
+      values.length === valueColumns.length &&
+      (values.some((cell) => cell.trim() === '') || fullRowInOrder(values.map((_, offset) => shapes[piece.valuesFrom + offset]!), valueColumns.map(({ role }) => role)));
     if (oneToOne) {
       values.forEach((cell, offset) => {
         const column = valueColumns[offset]!.column;
@@ -1674,6 +1719,18 @@ function keepsMeanSquare(cells: PlacedCells, roles: ColumnRole[], columns: numbe
   const ms = valueIn('ms');
   if (ss === null || df === null || ms === null || df <= 0 || ms <= 0) return true;
   return Math.abs(ss / df - ms) <= MEAN_SQUARE_SLACK * ms + 0.01;
+}
+
+/**
+ * Whether a row with one filled cell per value column keeps its order: every cell under a test's column (statistic,
+ * df, p, effect size) fits it, a statistic among them, and the other cells are values under groups' columns.
+ */
+function fullRowInOrder(shapes: CellShape[], roles: ColumnRole[]): boolean {
+  const testRoles = new Set(['statistic', 'df', 'df1', 'df2', 'p', 'effect']);
+  return (
+    roles.some((role) => role.role === 'statistic') &&
+    roles.every((role, slot) => (testRoles.has(role.role) ? fit(role, shapes[slot]!) > 0 : ['n', 'descriptive', 'unknown'].includes(role.role) && shapes[slot]!.shape !== 'text'))
+  );
 }
 
 /**
