@@ -1413,4 +1413,22 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 1.87, [8.57, 1079.96], '.055'],
     ]);
   });
+
+  it('keeps the effect size of a result written whole in a crushed cell whose next row\'s label runs onto it', () => {
+    // A table whose cells a PDF's text glued together, each row ending in its test written out
+    // (tests/corpus/real/passages/dwqa-02.txt, CC BY); the numbers are made up.
+    const text = [
+      'Table 5',
+      'Comparison by condition.MetricGroup AGroup B% ChangeStatistical Significance',
+      'Reading Time (Part 1)210 ms250 ms+19.0%t(60) = 2.41, p = 0.019, d = 0.61Reading Time ',
+      '(Part 2)190 ms230 ms+21.1%t(60) = 3.12, p = 0.003, d = 0.79K-Score ',
+      '(Part 1)0.200.31+55.0%t(60) = 1.20, p = 0.235, d = 0.30',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.effects.map((effect) => [effect.kind, effect.value])])).toEqual([
+      ['t', 2.41, [60], [['cohens-d', 0.61]]],
+      ['t', 3.12, [60], [['cohens-d', 0.79]]],
+      ['t', 1.2, [60], [['cohens-d', 0.3]]],
+    ]);
+  });
 });
