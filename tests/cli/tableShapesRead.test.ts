@@ -1431,4 +1431,31 @@ describe('results tables in the shapes papers print them', () => {
       ['t', 1.2, [60], [['cohens-d', 0.3]]],
     ]);
   });
+
+  it('reads each F\'s df pair printed in an unnamed cell right before it ("(1, 6) 43.7 <0.001"), crushed, with tabs or aligned, and gives the F after no such cell no df', () => {
+    // Side-by-side ANOVA blocks whose df stand in brackets before each F under no column name, the interaction's F
+    // without any (tests/corpus/real/passages/dvyc-01.txt, CC BY); the numbers are made up.
+    const rows = [
+      ['', 'Control', 'Biochar', '', 'Treatment', '', '', 'Time', '', 'Interaction', ''],
+      ['Pool', 'mean', 'mean', '', 'F', 'P', '', 'F', 'P', 'F', 'P'],
+      ['Carbon', '18.66', '47.43', '(1, 6)', '48.4', '<0.001', '(2, 12)', '37.5', '<0.001', '2.5', '0.165'],
+      ['Nitrogen', '1.47', '1.64', '(1, 6)', '5.3', '0.062', '(6, 36)', '218.7', '<0.001', '0.3', '0.778'],
+    ];
+    const layouts: Record<string, (row: string[]) => string> = {
+      crushed: (row) => row.filter((cell) => cell !== '').join(' '),
+      tabs: (row) => row.join('\t'),
+      aligned: (row) => row.map((cell) => cell.padEnd(10)).join('  ').trimEnd(),
+    };
+    for (const [layout, render] of Object.entries(layouts)) {
+      const document = scanTextJson(`Table 2. ANOVA of the soil data\n${rows.map(render).join('\n')}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text]), layout).toEqual([
+        ['F', 48.4, [1, 6], '0.001'],
+        ['F', 37.5, [2, 12], '0.001'],
+        ['F', 2.5, [], '0.165'],
+        ['F', 5.3, [1, 6], '0.062'],
+        ['F', 218.7, [6, 36], '0.001'],
+        ['F', 0.3, [], '0.778'],
+      ]);
+    }
+  });
 });

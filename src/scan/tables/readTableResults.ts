@@ -71,6 +71,11 @@ interface Segment {
   kind?: StatisticKind;
   /** The symbol its header names, when not the kind's own (Spearman's "ρ" for an r). */
   symbol?: 'rs';
+  /**
+   * The column right before the statistic when its header cell is empty and no test's column is there: it may
+   * hold the statistic's df pair in brackets, "(1, 6) | 43.7 | 0.001" under " | F | P" (see dfPairCellBefore).
+   */
+  unheadedBefore?: number;
 }
 
 interface LocatedCell {
@@ -477,6 +482,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   );
   if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0), completions };
   titleBlocks(segments, rows.slice(0, headerCount - 1));
+  markUnheadedBefore(segments, rows[headerCount - 1] ?? []);
 
   // A header that states the error's df ("df (error = 57)", "df (error df = 57)") states it as a note would.
   const headerErrorDf = rows
@@ -2068,8 +2074,42 @@ function isMarkedStatistic(cell: string): boolean {
   return match !== null && Number(match[1]) >= 1;
 }
 
-/** A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)". */
-const TRAILING_DF_PAIR = /^([-\u2212<>=]? ?(?:\d{1,6}(?:\.\d{1,6})?|\.\d{1,6})[*a-h]{0,3}) {1,3}\((\d{1,4}(?:\.\d{1,2})?), ?(\d{1,5}(?:\.\d{1,2})?)\)$/;
+/**
+ * Gives each segment the column right before its statistic when that column's name is empty and no segment
+ * reads it: "Treatment | | Time" over " | F | P | | F | P", the unnamed column holding each F's df pair.
+ */
+function markUnheadedBefore(segments: Segment[], namesRow: readonly string[]): void {
+  const taken = new Set(segments.flatMap((segment) => [...segment.columns.values()]));
+  for (const segment of segments) {
+    const statistic = segment.columns.get('statistic');
+    if (statistic === undefined || statistic < 2) continue;
+    const before = statistic - 1;
+    if (!taken.has(before) && (namesRow[before] ?? '').trim() === '') segment.unheadedBefore = before;
+  }
+}
+
+/** A df pair in brackets standing as a cell: "(1, 6)", "(2, 12)"; groups: the two df. Whole numbers only (a decimal pair may be an interval). */
+const DF_PAIR_CELL = /^\((\d{1,4}), ?(\d{1,5})\)$/;
+
+/**
+ * An F's df pair in an unnamed cell of its own right before it ("(1, 6) | 43.7 | 0.001" under " | F | P"): only
+ * whole numbers, the first at least 1 and smaller than the second, as an F's df are.
+ */
+function dfPairCellBefore(row: string[], segment: Segment): [ReportedNumber, ReportedNumber] | null {
+  if (segment.unheadedBefore === undefined) return null;
+  const match = DF_PAIR_CELL.exec((row[segment.unheadedBefore] ?? '').trim());
+  if (match === null) return null;
+  const first = parseReportedNumber(match[1]!);
+  const second = parseReportedNumber(match[2]!);
+  if (first === null || second === null || !(first.value >= 1 && first.value < second.value)) return null;
+  return [first, second];
+}
+
+/**
+ * A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)" (also
+ * apart by a wide gap, "0.001      (2, 12)": an aligned copy whose header names no column over the df).
+ */
+const TRAILING_DF_PAIR = /^([-\u2212<>=]? ?(?:\d{1,6}(?:\.\d{1,6})?|\.\d{1,6})[*a-h]{0,3}) {1,16}\((\d{1,4}(?:\.\d{1,2})?), ?(\d{1,5}(?:\.\d{1,2})?)\)$/;
 
 /**
  * The df pair printed before an F when a crushed copy ran it onto the cell before ("Treatment F P" over
@@ -2183,7 +2223,8 @@ function readRow(input: RowInput): ReportedResult | null {
   }
 
   // "47.43 (1, 6) 43.7": an F's df printed in front of it, run onto the cell before by a crushed copy.
-  const dfBefore = kind === 'F' && dfCell === null && df1Cell === null && df2Cell === null ? dfPairBefore(row, columns) : null;
+  // "(1, 6) | 43.7": the same df in a cell of their own, under no name.
+  const dfBefore = kind === 'F' && dfCell === null && df1Cell === null && df2Cell === null ? (dfPairBefore(row, columns) ?? dfPairCellBefore(row, segment)) : null;
   const dfSources: DfSources = {
     dfCell: dfCell?.record ?? null,
     df1Cell: dfBefore?.[0] ?? df1Cell?.record ?? null,
