@@ -810,7 +810,8 @@ function isNumberToken(text: string): boolean {
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
 function isMarkToken(text: string): boolean {
-  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]|\+)$/.test(text);
+  // (Or arrows, "↘", "↗↗↗": a column saying which way a difference goes and how significant it is.)
+  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]|\+|[\u2190-\u2199]{1,3})$/.test(text);
 }
 
 /**
@@ -1215,6 +1216,20 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, ''));
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || (/[.;:,]$/.test(label.text) && !ABBREVIATION_END.test(label.text)) || (comparison && !band)) return null;
   return { label, values };
+}
+
+/**
+ * A row whose cells are all empty ("2 NA NA NA NA NA", "Girls – – –"): its label (a number too, the phase or
+ * step it stands for) and at least two cells that read as empty. Null for anything else.
+ */
+function rowOfEmptyCells(line: Line): DataLine | null {
+  if (line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text) || NOTE.test(line.text)) return null;
+  const tokens = tokenize(line.text);
+  let first = 1;
+  while (first < tokens.length && readCell(tokens[first]!.text, 'either').kind !== 'empty') first++;
+  const values = tokens.slice(first);
+  if (first > MAX_LABEL_WORDS || values.length < 2 || !values.every((token) => readCell(token.text, 'either').kind === 'empty')) return null;
+  return { label: join(line.text, tokens[0]!, tokens[first - 1]!), values };
 }
 
 /** A label that ends with an abbreviation's point, not a sentence's: "Anger: FLD vs.", "Age (yrs.)", "Dose (approx.". */
@@ -1776,6 +1791,12 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     }
     // A section line, or a blank line (web pages put them between rows), belongs to the table only when a data row follows it.
     const followed = leadsToDataRow(lines, index);
+    // A row of empty cells only ("2 NA NA NA NA NA": a phase with nothing measured) between rows: a row of the table.
+    const emptyRow = header !== null && dataRows > 0 && followed ? rowOfEmptyCells(line) : null;
+    if (emptyRow !== null) {
+      rows.push({ data: emptyRow, line });
+      continue;
+    }
     if (isBlank(line) && followed) continue;
     if (isSectionLine(line) && followed) {
       rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);
