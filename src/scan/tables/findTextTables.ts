@@ -972,6 +972,9 @@ function readHeaderOf(line: Line): HeaderLine | null {
       // unknown meaning, tolerated when the names around it clearly make a header.
       let end = index + 1;
       while (end < tokens.length && knownPhraseLength(tokens, end) === 0) end++;
+      // After a test's p, words to the header's end are one column of remarks, even where a word of them is a known
+      // name ("… Z Df p Behavioural differences between test 1 and test 2": not "test" and "1 and" columns).
+      if (previousRole === 'p' && end < tokens.length && remarksToEnd(tokens, end)) end = tokens.length;
       // Codes with a digit each ("T0\u20131 T0\u20132", "T1 T2 T3", "W0 W12") are a column each; words ("Time 1",
       // "Baseline", "Difficulty accessing dental care,") are one name.
       const codes = end - index >= 2 && tokens.slice(index, end).every((token) => COLUMN_CODE.test(token.text));
@@ -1028,6 +1031,20 @@ function readHeaderOf(line: Line): HeaderLine | null {
   const lastNamesStatistic = classifyHeader(columns[columns.length - 1]!.text).role === 'statistic';
   const groupsThenTest = unknown === 1 && statisticNames >= 1 && (pNames >= 1 || lastNamesStatistic);
   return namesTest && (named >= 3 || statisticNames >= 2 || groupsThenTest) && unknown <= named ? { columns, aligned: false, tabbed: false } : null;
+}
+
+/**
+ * Whether the header's tokens from `start` name no column of a test's (a statistic, df, p, effect size, sums or
+ * mean squares): only words that label rows ("test", "variable") or no known name, with at most two digits among
+ * them ("test 1 and test 2").
+ */
+function remarksToEnd(tokens: readonly Piece[], start: number): boolean {
+  const rest = tokens.slice(start);
+  if (rest.length > MAX_TRAILING_WORDS || rest.filter((token) => /\d/.test(token.text)).length > 2) return false;
+  return rest.every((token) => {
+    const role = classifyHeader(token.text).role;
+    return role === 'label' || role === 'unknown';
+  });
 }
 
 /**
