@@ -1484,4 +1484,26 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it('reads a crushed table whose rows end their label with the test\'s name and hold "4.95, df = 4254.7" beside an n column, a row broken after its statistic', () => {
+    // "Factor | Hypothesis | Test | Statistic | n | p-Value" crushed into single spaces, the rows' cells broken over two
+    // lines after the statistic as the copy gives them (tests/corpus/real/passages/divb-01.txt, CC BY); the numbers
+    // are made up (each p the two-sided p of its t, or of its r with n − 2 df: SciPy 1.17.1, computed when the test was
+    // written). A correlation's df come from its row's n (n − 2).
+    const text = [
+      'Table 3.',
+      'Factor Hypothesis Test Statistic n p-Value',
+      'Fearfulness Older dogs more fearful t-test 3.12, df = 812.4',
+      '830 0.0019',
+      'Activity',
+      'Older dogs less active correlation −0.21 640 <0.0001',
+      'Fearful dogs less active correlation −0.12 830 0.0005',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['t', 3.12, [812.4], '0.0019'],
+      ['r', -0.21, [638], '0.0001'],
+      ['r', -0.12, [828], '0.0005'],
+    ]);
+  });
 });

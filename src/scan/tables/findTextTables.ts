@@ -724,8 +724,19 @@ function splitTokens(text: string): readonly Piece[] {
       tokens[tokens.length - 1] = { text: text.slice(beforeMark.start, token.end), start: beforeMark.start, end: token.end };
     } else if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
     else tokens.push(token);
+    joinNamedDf(text, tokens);
   }
   return tokens;
+}
+
+/**
+ * "4.95, df = 4254.7": a statistic and its df named after it are one cell (tokens "4.95,", "df" and "= 4254.7"
+ * joined at the end of `tokens`, in place), as a "Statistic" column beside a "Test" column holds them.
+ */
+function joinNamedDf(text: string, tokens: Piece[]): void {
+  const [value, name, df] = tokens.slice(-3);
+  if (df === undefined || name!.text.toLowerCase() !== 'df' || !/^= ?\d{1,6}(?:\.\d{1,3})?$/.test(df.text) || !/^[-\u2212]?\d{1,6}(?:\.\d{1,6})?,$/.test(value!.text)) return;
+  tokens.splice(-3, 3, { text: text.slice(value!.start, df.end), start: value!.start, end: df.end });
 }
 
 /** A statistic's symbol with its df in brackets: "t(58)", "F(2, 57)" (one token already), "χ2(1)", "r(98)". */
@@ -793,8 +804,12 @@ function readsAsValueToken(text: string): boolean {
   const shape = shapeOf(text).shape;
   if (shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written') return true;
   // "<0.001 (1, 6)": a p with the next F's df run onto it (the table reader takes the df for that F).
-  return P_WITH_DF_AFTER.test(text);
+  // "4.95, df = 4254.7": a statistic with its df named (see joinNamedDf).
+  return P_WITH_DF_AFTER.test(text) || VALUE_WITH_NAMED_DF.test(text);
 }
+
+/** A statistic and its df named after it: "4.95, df = 4254.7", "−7.63, df = 346.02". */
+const VALUE_WITH_NAMED_DF = /^[-\u2212]?\d{1,6}(?:\.\d{1,6})?, df ?= ?\d{1,6}(?:\.\d{1,3})?$/i;
 
 /** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)" (align.ts reads its shape). */
 function isBracketedPair(text: string): boolean {
@@ -1223,7 +1238,8 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const numberedEmptyRow =
     NUMBERED_LABEL.test(label.text) &&
     ((values.length >= 2 && values.every((token) => /^[-\u2013\u2014]$/.test(token.text))) || (values.length === 1 && DIAGONAL_CELL.test(values[0]!.text)));
-  if (values.length < minimumValues || (!numberedEmptyRow && values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair'))) return null;
+  const holdsNumber = (token: Piece): boolean => shapeOf(token.text).shape.startsWith('number') || shapeOf(token.text).shape === 'pair' || VALUE_WITH_NAMED_DF.test(token.text);
+  if (values.length < minimumValues || (!numberedEmptyRow && !values.some(holdsNumber))) return null;
   // Two numbers in a row inside the label are another row's values: rows run together on one line.
   const labelNumbers = tokens.slice(0, first).some((token, index) => index > 0 && isNumberToken(token.text) && isNumberToken(tokens[index - 1]!.text));
   if (labelNumbers) return null;

@@ -671,6 +671,16 @@ function testKindOf(cell: string): StatisticKind | null {
   return TEST_NAMES.find(([pattern]) => pattern.test(text))?.[1] ?? null;
 }
 
+/**
+ * The kind of the test a row label's last word names ("Older cats less active correlation", "Female cats more
+ * fearful t-test"), or null: one word only, so a label that merely speaks of a test in its words ("t-test
+ * results for boys") names none.
+ */
+function testKindEnding(label: string): StatisticKind | null {
+  const lastWord = /\s(\S{1,20})$/.exec(label.trim())?.[1];
+  return lastWord === undefined ? null : testKindOf(lastWord);
+}
+
 /** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
 const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[,;] *df *= *(\d+(?:\.\d+)?)(?: *, *(\d+(?:\.\d+)?))?)? *$/i;
 
@@ -686,9 +696,11 @@ function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, 
   const results: ReportedResult[] = [];
   body.forEach((row, index) => {
     const cellsAt = located[index] ?? null;
-    const testAt = row.findIndex((cell) => testKindOf(cell) !== null);
+    const cellAt = row.findIndex((cell) => testKindOf(cell) !== null);
+    // (A crushed copy gives the test's name to the end of the row's label: "Female cats more fearful t-test".)
+    const testAt = cellAt >= 0 ? cellAt : testKindEnding(row[0] ?? '') !== null ? 0 : -1;
     if (testAt < 0 || cellsAt === null) return;
-    const kind = testKindOf(row[testAt]!)!;
+    const kind = testKindOf(row[testAt]!) ?? testKindEnding(row[testAt]!)!;
     const statisticText = row[testAt + 1] ?? '';
     const match = STATISTIC_CELL.exec(normaliseText(statisticText).text);
     const statisticAt = cellsAt[testAt + 1] ?? null;
