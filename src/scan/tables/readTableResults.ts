@@ -431,7 +431,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   });
   if (kind === undefined && roles.some((role) => role.role === 'result')) {
     // A "Test" column naming each row's test and a "Statistic" column holding its value ("t-test | 4.95, df = 4254.7").
-    const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount));
+    // (Crushed, a "Test" column's name may end each row's label: only where the header names that column.)
+    const testEndsLabel = table.layout === 'crushed' && rows.slice(0, headerCount).some((row) => row.some((cell) => NAMES_TEST_COLUMN.test(cell)));
+    const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount), testEndsLabel);
     if (perRow.length > 0) return { results: perRow, unread: null, completions };
     // A "Statistic (df)" or "Value (df)" column whose test each row's section ("Chi-square test") or footnote
     // letter ("0.54 (80)a" over "a Independent-samples t test") names.
@@ -681,6 +683,9 @@ function testKindEnding(label: string): StatisticKind | null {
   return lastWord === undefined ? null : testKindOf(lastWord);
 }
 
+/** A header cell naming a column of tests: "Test", "Test Statistic" (a crushed copy's "Test" and "Statistic" as one). */
+const NAMES_TEST_COLUMN = /^\s*tests?(?:\s+statistics?)?\s*$/i;
+
 /** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
 const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[,;] *df *= *(\d+(?:\.\d+)?)(?: *, *(\d+(?:\.\d+)?))?)? *$/i;
 
@@ -692,13 +697,14 @@ const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[
  * can be one. Read from the cells' contents, since such rows are often
  * broken or shifted against the header.
  */
-function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, body: string[][], located: ((LocatedCell | null)[] | null)[]): ReportedResult[] {
+function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, body: string[][], located: ((LocatedCell | null)[] | null)[], testEndsLabel: boolean): ReportedResult[] {
   const results: ReportedResult[] = [];
   body.forEach((row, index) => {
     const cellsAt = located[index] ?? null;
     const cellAt = row.findIndex((cell) => testKindOf(cell) !== null);
-    // (A crushed copy gives the test's name to the end of the row's label: "Female cats more fearful t-test".)
-    const testAt = cellAt >= 0 ? cellAt : testKindEnding(row[0] ?? '') !== null ? 0 : -1;
+    // (A crushed copy gives the test's name to the end of the row's label, "Female cats more fearful t-test", under
+    // a header naming a column of tests.)
+    const testAt = cellAt >= 0 ? cellAt : testEndsLabel && testKindEnding(row[0] ?? '') !== null ? 0 : -1;
     if (testAt < 0 || cellsAt === null) return;
     const kind = testKindOf(row[testAt]!) ?? testKindEnding(row[testAt]!)!;
     const statisticText = row[testAt + 1] ?? '';
