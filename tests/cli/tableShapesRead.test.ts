@@ -1506,4 +1506,19 @@ describe('results tables in the shapes papers print them', () => {
       ['r', -0.12, [828], '0.0005'],
     ]);
   });
+
+  it('reads a corrected df pair run onto the cell before its F whose error df rounding left whole ("0.436 (1.2, 7) 7.2")', () => {
+    // The layout of tests/corpus/real/passages/dvyc-01.txt (CC BY), crushed; the numbers are made up (F(1.2, 7) = 7.2
+    // gives p = .028: SciPy 1.17.1 scipy.stats.f.sf, computed when the test was written).
+    const text = ['Table 2. ANOVA of the soil data', 'Pool Control Biochar Treatment Time Interaction', 'mean mean F P F P F P', 'Water 0.14 0.17 (1, 6) 0.7 0.436 (1.2, 7) 7.2 0.028 1.6 0.246', 'Carbon 18.66 47.43 (1, 6) 48.4 <0.001 (2, 12) 37.5 <0.001 2.5 0.165'].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['F', 0.7, [1, 6], '0.436'],
+      ['F', 7.2, [1.2, 7], '0.028'],
+      ['F', 1.6, [], '0.246'],
+      ['F', 48.4, [1, 6], '0.001'],
+      ['F', 37.5, [2, 12], '0.001'],
+      ['F', 2.5, [], '0.165'],
+    ]);
+  });
 });

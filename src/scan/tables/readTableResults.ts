@@ -2268,7 +2268,8 @@ function readRow(input: RowInput): ReportedResult | null {
   if (readDf.some((value) => !(value.value > 0))) return null;
   // Corrections make df fractional either both together (Greenhouse-Geisser, Huynh-Feldt: both times epsilon) or
   // the error df alone (Welch, Brown-Forsythe); a fractional effect df beside a whole error df is another column's number.
-  if (kind === 'F' && readDf.length === 2 && !Number.isInteger(readDf[0]!.value) && Number.isInteger(readDf[1]!.value)) return null;
+  // (Not a pair printed in one bracket before the F, "(1.2, 7)": a corrected error df whose rounding left no decimals.)
+  if (kind === 'F' && readDf.length === 2 && !Number.isInteger(readDf[0]!.value) && Number.isInteger(readDf[1]!.value) && dfBefore === null) return null;
 
   const printedP = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   // A whole number under p ("0", "1") is not a p as tables print one (with decimals, or "< .001"): it is a count
