@@ -119,7 +119,9 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
   const valueAt = skipSpaces(text, comparatorAt + comparator.length);
   // ("ηp2 = 2⋅10–3": an effect size in scientific notation, as the p beside it may be.)
   const valueRead = readScientificNumber(text, valueAt, 'unlessThousands');
-  if (valueRead === null || !endsWord(text, valueRead.end)) return null;
+  if (valueRead === null) return null;
+  const glued = !endsWord(text, valueRead.end);
+  if (glued && !startsGluedLabel(text, valueRead.end, valueRead.number)) return null;
   const value = valueRead.number;
   const end = valueRead.end;
 
@@ -130,9 +132,24 @@ export function readNameAndValue(text: string, position: number): NameValueRead 
       return { name, kind, comparator: comparator.comparator, value, start: wordStarts[word]!, end };
     }
   }
+  // (A value glued to the next word is taken for effect sizes only: another name's value may go on in a unit.)
+  if (glued) return null;
   const lastWordStart = wordStarts[words - 1]!;
   const name = canonicalName(text.slice(lastWordStart, nameEnd));
   return { name, kind: null, comparator: comparator.comparator, value, start: lastWordStart, end };
+}
+
+/**
+ * Whether the word glued to a value at `position` is the next cell's label run onto it by a crushed table
+ * ("d = 0.52Avg. Fixation Duration", "d = 0.21K-Coefficient"): a capital letter and then a small letter or a
+ * hyphen, after a value with decimals (an effect size is unitless; a whole number glued to a word is a
+ * different token, "2Avg").
+ */
+function startsGluedLabel(text: string, position: number, value: ReportedNumber): boolean {
+  if (value.decimals === 0) return false;
+  const capital = text.charCodeAt(position);
+  const next = text.charCodeAt(position + 1);
+  return capital >= 65 && capital <= 90 && ((next >= 97 && next <= 122) || next === 45);
 }
 
 /** How far before a statistic's symbol a model fit may start: "adjusted R2 = .087, F(...)". */

@@ -1543,4 +1543,112 @@ describe('results tables in the shapes papers print them', () => {
     ]);
     expect(scanTextJson(`Some prose first.\n\n${rows}\n\nThe next section.\n`).statistics.filter((statistic) => statistic.value === 11.2)).toEqual([]);
   });
+
+  it('keeps the effect size of a result written whole in a crushed cell whose next row\'s label runs onto it', () => {
+    // A table whose cells a PDF's text glued together, each row ending in its test written out
+    // (tests/corpus/real/passages/dwqa-02.txt, CC BY); the numbers are made up.
+    const text = [
+      'Table 5',
+      'Comparison by condition.MetricGroup AGroup B% ChangeStatistical Significance',
+      'Reading Time (Part 1)210 ms250 ms+19.0%t(60) = 2.41, p = 0.019, d = 0.61Reading Time ',
+      '(Part 2)190 ms230 ms+21.1%t(60) = 3.12, p = 0.003, d = 0.79K-Score ',
+      '(Part 1)0.200.31+55.0%t(60) = 1.20, p = 0.235, d = 0.30',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.effects.map((effect) => [effect.kind, effect.value])])).toEqual([
+      ['t', 2.41, [60], [['cohens-d', 0.61]]],
+      ['t', 3.12, [60], [['cohens-d', 0.79]]],
+      ['t', 1.2, [60], [['cohens-d', 0.3]]],
+    ]);
+  });
+
+  it('reads each F\'s df pair printed in an unnamed cell right before it ("(1, 6) 43.7 <0.001"), crushed, with tabs or aligned, and gives the F after no such cell no df', () => {
+    // Side-by-side ANOVA blocks whose df stand in brackets before each F under no column name, the interaction's F
+    // without any (tests/corpus/real/passages/dvyc-01.txt, CC BY); the numbers are made up.
+    const rows = [
+      ['', 'Control', 'Biochar', '', 'Treatment', '', '', 'Time', '', 'Interaction', ''],
+      ['Pool', 'mean', 'mean', '', 'F', 'P', '', 'F', 'P', 'F', 'P'],
+      ['Carbon', '18.66', '47.43', '(1, 6)', '48.4', '<0.001', '(2, 12)', '37.5', '<0.001', '2.5', '0.165'],
+      ['Nitrogen', '1.47', '1.64', '(1, 6)', '5.3', '0.062', '(6, 36)', '218.7', '<0.001', '0.3', '0.778'],
+    ];
+    const layouts: Record<string, (row: string[]) => string> = {
+      crushed: (row) => row.filter((cell) => cell !== '').join(' '),
+      tabs: (row) => row.join('\t'),
+      aligned: (row) => row.map((cell) => cell.padEnd(10)).join('  ').trimEnd(),
+    };
+    for (const [layout, render] of Object.entries(layouts)) {
+      const document = scanTextJson(`Table 2. ANOVA of the soil data\n${rows.map(render).join('\n')}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text]), layout).toEqual([
+        ['F', 48.4, [1, 6], '0.001'],
+        ['F', 37.5, [2, 12], '0.001'],
+        ['F', 2.5, [], '0.165'],
+        ['F', 5.3, [1, 6], '0.062'],
+        ['F', 218.7, [6, 36], '0.001'],
+        ['F', 0.3, [], '0.778'],
+      ]);
+    }
+  });
+
+  it('reads an aligned or crushed table whose rows name a phase by a number, end in a column of arrows and hold a row of NA cells', () => {
+    // Post-hoc model tests per phase, "Estimate ± SE | Z | Df | p" and a column of arrows for the direction of each
+    // difference, later rows of a variable starting with the phase's number (tests/corpus/real/passages/dwdc-01.txt,
+    // CC BY, in an aligned copy); the numbers are made up (each p the two-sided normal p of its z, SciPy 1.17.1 scipy.stats.norm.sf, computed when
+    // the test was written).
+    const text = [
+      'Table 2. Model results per phase.',
+      'Variable   Phase   Estimate ± SE   Z   Df   p   Differences between test 1 and test 2',
+      'Control group   Time spent inside   1   0.91 ± 0.36   2.05   1   0.040   ↘',
+      '2   1.04 ± 0.53   1.32   1   0.187   −',
+      'Exploration outside   1   0.09 ± 0.22   0.03   1   0.976   −',
+      '2   NA   NA   NA   NA   NA',
+      '3   0.85 ± 0.24   2.97   1   0.003   ↘↘',
+    ].join('\n');
+    // (Crushed, the header's last column of remarks holds "test", a name of label columns, and numbers: one column still.)
+    for (const layout of [text, text.replace(/ {3}/g, ' ')]) {
+      const document = scanTextJson(`${layout}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.text])).toEqual([
+        ['z', 2.05, '0.040'],
+        ['z', 1.32, '0.187'],
+        ['z', 0.03, '0.976'],
+        ['z', 2.97, '0.003'],
+      ]);
+    }
+  });
+
+  it('reads a crushed table whose rows end their label with the test\'s name and hold "4.95, df = 4254.7" beside an n column, a row broken after its statistic', () => {
+    // "Factor | Hypothesis | Test | Statistic | n | p-Value" crushed into single spaces, the rows' cells broken over two
+    // lines after the statistic as the copy gives them (tests/corpus/real/passages/divb-01.txt, CC BY); the numbers
+    // are made up (each p the two-sided p of its t, or of its r with n − 2 df: SciPy 1.17.1, computed when the test was
+    // written). A correlation's df come from its row's n (n − 2).
+    const text = [
+      'Table 3.',
+      'Factor Hypothesis Test Statistic n p-Value',
+      'Fearfulness Older dogs more fearful t-test 3.12, df = 812.4',
+      '830 0.0019',
+      'Activity',
+      'Older dogs less active correlation −0.21 640 <0.0001',
+      'Fearful dogs less active correlation −0.12 830 0.0005',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['t', 3.12, [812.4], '0.0019'],
+      ['r', -0.21, [638], '0.0001'],
+      ['r', -0.12, [828], '0.0005'],
+    ]);
+  });
+
+  it('reads a corrected df pair run onto the cell before its F whose error df rounding left whole ("0.436 (1.2, 7) 7.2")', () => {
+    // The layout of tests/corpus/real/passages/dvyc-01.txt (CC BY), crushed; the numbers are made up (F(1.2, 7) = 7.2
+    // gives p = .028: SciPy 1.17.1 scipy.stats.f.sf, computed when the test was written).
+    const text = ['Table 2. ANOVA of the soil data', 'Pool Control Biochar Treatment Time Interaction', 'mean mean F P F P F P', 'Water 0.14 0.17 (1, 6) 0.7 0.436 (1.2, 7) 7.2 0.028 1.6 0.246', 'Carbon 18.66 47.43 (1, 6) 48.4 <0.001 (2, 12) 37.5 <0.001 2.5 0.165'].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['F', 0.7, [1, 6], '0.436'],
+      ['F', 7.2, [1.2, 7], '0.028'],
+      ['F', 1.6, [], '0.246'],
+      ['F', 48.4, [1, 6], '0.001'],
+      ['F', 37.5, [2, 12], '0.001'],
+      ['F', 2.5, [], '0.165'],
+    ]);
+  });
 });

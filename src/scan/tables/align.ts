@@ -69,6 +69,8 @@ export const STATISTIC_WITH_P = /^ *(-?(?:\d+(?:\.\d+)?|\.\d+)) *[,;] *p *(<=|>=
  * "2.24, .15"). Groups: value, comparator, p (below 1, written with its point).
  */
 export const STATISTIC_COMMA_P = /^ ?((?:[-\u2212] ?)?(?:\d+(?:\.\d+)?|\.\d+)) ?[,;] ?(?:(<=|>=|<|>|=|\u2264|\u2265) ?)?(0?\.\d+)(?: ?(?:[*\u2020\u2021]{1,4}|[a-h]))? ?$/;
+/** A bound below 1 and a df pair in brackets after it: "<0.001 (1, 6)", "< .001 (1.6, 9.9)". Groups: the bound, the first df. */
+const BOUND_WITH_DF_PAIR = /^(?:<=|>=|<|>|\u2264|\u2265) ?(0?\.\d{1,6}) {1,16}\((\d{1,4}(?:\.\d{1,2})?), ?\d{1,5}(?:\.\d{1,2})?\)$/;
 /** (Either number may have its thousands set apart by commas: "2,396.4 ± 775.8".) */
 const PLUS_MINUS = /^([-\u2212]?(?:\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?))[a-h*]{0,3} ?\u00b1 ?(\d{1,3}(?:,\d{3})+\.\d+|\d+(?:[.,]\d+)?)[a-h*]{0,3}$/;
 const RANGE = /^[-\u2212]?\d+(?:[.,]\d+)?\s*(?:[\u2013\u2014-]|to)\s*[-\u2212]?\d+(?:[.,]\d+)?$/;
@@ -143,6 +145,10 @@ export function shapeOf(cell: string): CellShape {
   const boundP = withBareP !== null && withBareP[2] !== undefined && withBareP[2] !== '=';
   const pWithoutZero = withBareP !== null && withBareP[2] === undefined && withBareP[3]!.startsWith('.') && !/^[-\u2212]/.test(withBareP[1]!);
   if (withBareP !== null && (boundP || pWithoutZero)) return { shape: 'statistic-p', value: Number(withBareP[1]!.replace(/[\u2212]\s?/, '-')) };
+  // "<0.001 (1, 6)": a bound p with the next F's df run onto it by a crushed copy, shaped as "0.001 (1, 6)" is
+  // (readTableResults.ts numberAt reads the bound, dfPairBefore the df).
+  const boundWithPair = BOUND_WITH_DF_PAIR.exec(text);
+  if (boundWithPair) return { shape: 'number-bracket', value: Number(boundWithPair[1]), inner: Number(boundWithPair[2]), innerDecimals: 0, innerPair: true };
   if (/[=<>]/.test(text) && text.length <= 80) {
     if (readsAsWrittenResult(text)) return { shape: 'written' };
     // A result written with significance marks after it ("r = 0.586*"): the marks do not make it a label. (Only a

@@ -733,8 +733,19 @@ function splitTokens(text: string): readonly Piece[] {
       tokens[tokens.length - 1] = { text: text.slice(beforeMark.start, token.end), start: beforeMark.start, end: token.end };
     } else if (joinsPrevious) tokens[tokens.length - 1] = { text: text.slice(previous.start, token.end), start: previous.start, end: token.end };
     else tokens.push(token);
+    joinNamedDf(text, tokens);
   }
   return tokens;
+}
+
+/**
+ * "4.95, df = 4254.7": a statistic and its df named after it are one cell (tokens "4.95,", "df" and "= 4254.7"
+ * joined at the end of `tokens`, in place), as a "Statistic" column beside a "Test" column holds them.
+ */
+function joinNamedDf(text: string, tokens: Piece[]): void {
+  const [value, name, df] = tokens.slice(-3);
+  if (df === undefined || name!.text.toLowerCase() !== 'df' || !/^= ?\d{1,6}(?:\.\d{1,3})?$/.test(df.text) || !/^[-\u2212]?\d{1,6}(?:\.\d{1,6})?,$/.test(value!.text)) return;
+  tokens.splice(-3, 3, { text: text.slice(value!.start, df.end), start: value!.start, end: df.end });
 }
 
 /** A statistic's symbol with its df in brackets: "t(58)", "F(2, 57)" (one token already), "χ2(1)", "r(98)". */
@@ -802,8 +813,12 @@ function readsAsValueToken(text: string): boolean {
   const shape = shapeOf(text).shape;
   if (shape === 'number-bracket' || shape === 'number-interval' || shape === 'pair' || shape === 'range' || shape === 'written') return true;
   // "<0.001 (1, 6)": a p with the next F's df run onto it (the table reader takes the df for that F).
-  return P_WITH_DF_AFTER.test(text);
+  // "4.95, df = 4254.7": a statistic with its df named (see joinNamedDf).
+  return P_WITH_DF_AFTER.test(text) || VALUE_WITH_NAMED_DF.test(text);
 }
+
+/** A statistic and its df named after it: "4.95, df = 4254.7", "−7.63, df = 346.02". */
+const VALUE_WITH_NAMED_DF = /^[-\u2212]?\d{1,6}(?:\.\d{1,6})?, df ?= ?\d{1,6}(?:\.\d{1,3})?$/i;
 
 /** A df pair in brackets standing as a cell: "(2, 57)", "[1; 38]", "(1/38)" (align.ts reads its shape). */
 function isBracketedPair(text: string): boolean {
@@ -819,7 +834,8 @@ function isNumberToken(text: string): boolean {
 
 /** Stars, daggers or one footnote letter standing as a token of their own. */
 function isMarkToken(text: string): boolean {
-  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]|\+)$/.test(text);
+  // (Or arrows, "↘", "↗↗↗": a column saying which way a difference goes and how significant it is.)
+  return /^(?:[*\u2020\u2021\u271d\u00a7\u00b6#\u00a5\u0166\u00aa\u00ba^]{1,4}|[a-h]|\+|[\u2190-\u2199]{1,3})$/.test(text);
 }
 
 /**
@@ -980,6 +996,9 @@ function readHeaderOf(line: Line): HeaderLine | null {
       // unknown meaning, tolerated when the names around it clearly make a header.
       let end = index + 1;
       while (end < tokens.length && knownPhraseLength(tokens, end) === 0) end++;
+      // After a test's p, words to the header's end are one column of remarks, even where a word of them is a known
+      // name ("… Z Df p Behavioural differences between test 1 and test 2": not "test" and "1 and" columns).
+      if (previousRole === 'p' && end < tokens.length && remarksToEnd(tokens, end)) end = tokens.length;
       // Codes with a digit each ("T0\u20131 T0\u20132", "T1 T2 T3", "W0 W12") are a column each; words ("Time 1",
       // "Baseline", "Difficulty accessing dental care,") are one name.
       const codes = end - index >= 2 && tokens.slice(index, end).every((token) => COLUMN_CODE.test(token.text));
@@ -1060,6 +1079,20 @@ function repeatedNames(tokens: readonly Piece[]): [number, number][] | null {
     names.push([start, start + length - 1]);
   }
   return names;
+}
+
+/**
+ * Whether the header's tokens from `start` name no column of a test's (a statistic, df, p, effect size, sums or
+ * mean squares): only words that label rows ("test", "variable") or no known name, with at most two digits among
+ * them ("test 1 and test 2").
+ */
+function remarksToEnd(tokens: readonly Piece[], start: number): boolean {
+  const rest = tokens.slice(start);
+  if (rest.length > MAX_TRAILING_WORDS || rest.filter((token) => /\d/.test(token.text)).length > 2) return false;
+  return rest.every((token) => {
+    const role = classifyHeader(token.text).role;
+    return role === 'label' || role === 'unknown';
+  });
 }
 
 /**
@@ -1238,7 +1271,8 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const numberedEmptyRow =
     NUMBERED_LABEL.test(label.text) &&
     ((values.length >= 2 && values.every((token) => /^[-\u2013\u2014]$/.test(token.text))) || (values.length === 1 && DIAGONAL_CELL.test(values[0]!.text)));
-  if (values.length < minimumValues || (!numberedEmptyRow && values.every((token) => !shapeOf(token.text).shape.startsWith('number') && shapeOf(token.text).shape !== 'pair'))) return null;
+  const holdsNumber = (token: Piece): boolean => shapeOf(token.text).shape.startsWith('number') || shapeOf(token.text).shape === 'pair' || VALUE_WITH_NAMED_DF.test(token.text);
+  if (values.length < minimumValues || (!numberedEmptyRow && !values.some(holdsNumber))) return null;
   // Two numbers in a row inside the label are another row's values: rows run together on one line.
   const labelNumbers = tokens.slice(0, first).some((token, index) => index > 0 && isNumberToken(token.text) && isNumberToken(tokens[index - 1]!.text));
   if (labelNumbers) return null;
@@ -1248,6 +1282,20 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, ''));
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || (/[.;:,]$/.test(label.text) && !ABBREVIATION_END.test(label.text)) || (comparison && !band)) return null;
   return { label, values };
+}
+
+/**
+ * A row whose cells are all empty ("2 NA NA NA NA NA", "Girls – – –"): its label (a number too, the phase or
+ * step it stands for) and at least two cells that read as empty. Null for anything else.
+ */
+function rowOfEmptyCells(line: Line): DataLine | null {
+  if (line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text) || NOTE.test(line.text)) return null;
+  const tokens = tokenize(line.text);
+  let first = 1;
+  while (first < tokens.length && readCell(tokens[first]!.text, 'either').kind !== 'empty') first++;
+  const values = tokens.slice(first);
+  if (first > MAX_LABEL_WORDS || values.length < 2 || !values.every((token) => readCell(token.text, 'either').kind === 'empty')) return null;
+  return { label: join(line.text, tokens[0]!, tokens[first - 1]!), values };
 }
 
 /** A label that ends with an abbreviation's point, not a sentence's: "Anger: FLD vs.", "Age (yrs.)", "Dose (approx.". */
@@ -1809,6 +1857,12 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     }
     // A section line, or a blank line (web pages put them between rows), belongs to the table only when a data row follows it.
     const followed = leadsToDataRow(lines, index);
+    // A row of empty cells only ("2 NA NA NA NA NA": a phase with nothing measured) between rows: a row of the table.
+    const emptyRow = header !== null && dataRows > 0 && followed ? rowOfEmptyCells(line) : null;
+    if (emptyRow !== null) {
+      rows.push({ data: emptyRow, line });
+      continue;
+    }
     if (isBlank(line) && followed) continue;
     if (isSectionLine(line) && followed) {
       rows.push(columns ? [line.text.trim(), ...columns.slice(1).map(() => '')] : [line.text.trim()]);

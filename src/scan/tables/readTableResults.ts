@@ -71,6 +71,11 @@ interface Segment {
   kind?: StatisticKind;
   /** The symbol its header names, when not the kind's own (Spearman's "ρ" for an r). */
   symbol?: 'rs';
+  /**
+   * The column right before the statistic when its header cell is empty and no test's column is there: it may
+   * hold the statistic's df pair in brackets, "(1, 6) | 43.7 | 0.001" under " | F | P" (see dfPairCellBefore).
+   */
+  unheadedBefore?: number;
 }
 
 interface LocatedCell {
@@ -426,7 +431,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   });
   if (kind === undefined && roles.some((role) => role.role === 'result')) {
     // A "Test" column naming each row's test and a "Statistic" column holding its value ("t-test | 4.95, df = 4254.7").
-    const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount));
+    // (Crushed, a "Test" column's name may end each row's label: only where the header names that column.)
+    const testEndsLabel = table.layout === 'crushed' && rows.slice(0, headerCount).some((row) => row.some((cell) => NAMES_TEST_COLUMN.test(cell)));
+    const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount), testEndsLabel);
     if (perRow.length > 0) return { results: perRow, unread: null, completions };
     // A "Statistic (df)" or "Value (df)" column whose test each row's section ("Chi-square test") or footnote
     // letter ("0.54 (80)a" over "a Independent-samples t test") names.
@@ -477,6 +484,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   );
   if (segments.length === 0) return { results: [], unread: unreadTable(table, tableIndex, 'z-without-p', bodyRows, 0), completions };
   titleBlocks(segments, rows.slice(0, headerCount - 1));
+  markUnheadedBefore(segments, rows[headerCount - 1] ?? []);
 
   // A header that states the error's df ("df (error = 57)", "df (error df = 57)") states it as a note would.
   const headerErrorDf = rows
@@ -671,6 +679,19 @@ function testKindOf(cell: string): StatisticKind | null {
   return TEST_NAMES.find(([pattern]) => pattern.test(text))?.[1] ?? null;
 }
 
+/**
+ * The kind of the test a row label's last word names ("Older cats less active correlation", "Female cats more
+ * fearful t-test"), or null: one word only, so a label that merely speaks of a test in its words ("t-test
+ * results for boys") names none.
+ */
+function testKindEnding(label: string): StatisticKind | null {
+  const lastWord = /\s(\S{1,20})$/.exec(label.trim())?.[1];
+  return lastWord === undefined ? null : testKindOf(lastWord);
+}
+
+/** A header cell naming a column of tests: "Test", "Test Statistic" (a crushed copy's "Test" and "Statistic" as one). */
+const NAMES_TEST_COLUMN = /^\s*tests?(?:\s+statistics?)?\s*$/i;
+
 /** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
 const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[,;] *df *= *(\d+(?:\.\d+)?)(?: *, *(\d+(?:\.\d+)?))?)? *$/i;
 
@@ -682,13 +703,16 @@ const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[
  * can be one. Read from the cells' contents, since such rows are often
  * broken or shifted against the header.
  */
-function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, body: string[][], located: ((LocatedCell | null)[] | null)[]): ReportedResult[] {
+function readTestPerRow(text: string, table: DocumentTable, tableIndex: number, body: string[][], located: ((LocatedCell | null)[] | null)[], testEndsLabel: boolean): ReportedResult[] {
   const results: ReportedResult[] = [];
   body.forEach((row, index) => {
     const cellsAt = located[index] ?? null;
-    const testAt = row.findIndex((cell) => testKindOf(cell) !== null);
+    const cellAt = row.findIndex((cell) => testKindOf(cell) !== null);
+    // (A crushed copy gives the test's name to the end of the row's label, "Female cats more fearful t-test", under
+    // a header naming a column of tests.)
+    const testAt = cellAt >= 0 ? cellAt : testEndsLabel && testKindEnding(row[0] ?? '') !== null ? 0 : -1;
     if (testAt < 0 || cellsAt === null) return;
-    const kind = testKindOf(row[testAt]!)!;
+    const kind = testKindOf(row[testAt]!) ?? testKindEnding(row[testAt]!)!;
     const statisticText = row[testAt + 1] ?? '';
     const match = STATISTIC_CELL.exec(normaliseText(statisticText).text);
     const statisticAt = cellsAt[testAt + 1] ?? null;
@@ -2126,8 +2150,42 @@ function isMarkedStatistic(cell: string): boolean {
   return match !== null && Number(match[1]) >= 1;
 }
 
-/** A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)". */
-const TRAILING_DF_PAIR = /^([-\u2212<>=]? ?(?:\d{1,6}(?:\.\d{1,6})?|\.\d{1,6})[*a-h]{0,3}) {1,3}\((\d{1,4}(?:\.\d{1,2})?), ?(\d{1,5}(?:\.\d{1,2})?)\)$/;
+/**
+ * Gives each segment the column right before its statistic when that column's name is empty and no segment
+ * reads it: "Treatment | | Time" over " | F | P | | F | P", the unnamed column holding each F's df pair.
+ */
+function markUnheadedBefore(segments: Segment[], namesRow: readonly string[]): void {
+  const taken = new Set(segments.flatMap((segment) => [...segment.columns.values()]));
+  for (const segment of segments) {
+    const statistic = segment.columns.get('statistic');
+    if (statistic === undefined || statistic < 2) continue;
+    const before = statistic - 1;
+    if (!taken.has(before) && (namesRow[before] ?? '').trim() === '') segment.unheadedBefore = before;
+  }
+}
+
+/** A df pair in brackets standing as a cell: "(1, 6)", "(2, 12)"; groups: the two df. Whole numbers only (a decimal pair may be an interval). */
+const DF_PAIR_CELL = /^\((\d{1,4}), ?(\d{1,5})\)$/;
+
+/**
+ * An F's df pair in an unnamed cell of its own right before it ("(1, 6) | 43.7 | 0.001" under " | F | P"): only
+ * whole numbers, the first at least 1 and smaller than the second, as an F's df are.
+ */
+function dfPairCellBefore(row: string[], segment: Segment): [ReportedNumber, ReportedNumber] | null {
+  if (segment.unheadedBefore === undefined) return null;
+  const match = DF_PAIR_CELL.exec((row[segment.unheadedBefore] ?? '').trim());
+  if (match === null) return null;
+  const first = parseReportedNumber(match[1]!);
+  const second = parseReportedNumber(match[2]!);
+  if (first === null || second === null || !(first.value >= 1 && first.value < second.value)) return null;
+  return [first, second];
+}
+
+/**
+ * A whole-number df pair in brackets at a cell's end, after a number: "47.43 (1, 6)", "0.001 (1.6, 9.9)" (also
+ * apart by a wide gap, "0.001      (2, 12)": an aligned copy whose header names no column over the df).
+ */
+const TRAILING_DF_PAIR = /^([-\u2212<>=]? ?(?:\d{1,6}(?:\.\d{1,6})?|\.\d{1,6})[*a-h]{0,3}) {1,16}\((\d{1,4}(?:\.\d{1,2})?), ?(\d{1,5}(?:\.\d{1,2})?)\)$/;
 
 /**
  * The df pair printed before an F when a crushed copy ran it onto the cell before ("Treatment F P" over
@@ -2241,7 +2299,8 @@ function readRow(input: RowInput): ReportedResult | null {
   }
 
   // "47.43 (1, 6) 43.7": an F's df printed in front of it, run onto the cell before by a crushed copy.
-  const dfBefore = kind === 'F' && dfCell === null && df1Cell === null && df2Cell === null ? dfPairBefore(row, columns) : null;
+  // "(1, 6) | 43.7": the same df in a cell of their own, under no name.
+  const dfBefore = kind === 'F' && dfCell === null && df1Cell === null && df2Cell === null ? (dfPairBefore(row, columns) ?? dfPairCellBefore(row, segment)) : null;
   const dfSources: DfSources = {
     dfCell: dfCell?.record ?? null,
     df1Cell: dfBefore?.[0] ?? df1Cell?.record ?? null,
@@ -2269,7 +2328,8 @@ function readRow(input: RowInput): ReportedResult | null {
   if (readDf.some((value) => !(value.value > 0))) return null;
   // Corrections make df fractional either both together (Greenhouse-Geisser, Huynh-Feldt: both times epsilon) or
   // the error df alone (Welch, Brown-Forsythe); a fractional effect df beside a whole error df is another column's number.
-  if (kind === 'F' && readDf.length === 2 && !Number.isInteger(readDf[0]!.value) && Number.isInteger(readDf[1]!.value)) return null;
+  // (Not a pair printed in one bracket before the F, "(1.2, 7)": a corrected error df whose rounding left no decimals.)
+  if (kind === 'F' && readDf.length === 2 && !Number.isInteger(readDf[0]!.value) && Number.isInteger(readDf[1]!.value) && dfBefore === null) return null;
 
   const printedP = withDfAndP?.p ?? withP?.p ?? numberAt(row, cellsAt, columns.get('p'), input.separator);
   // A whole number under p ("0", "1") is not a p as tables print one (with decimals, or "< .001"): it is a count
