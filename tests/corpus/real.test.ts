@@ -128,10 +128,15 @@ const scores = scoreCorpus(corpus);
 // row whose cells join their lines with '<br>', 26 Spearman correlations '_ρ_= −0.54' without p; dwrc-02: prose
 // '_ρ_ = − 0.69'), none of the 30 read: tune table recall 0.83 -> 0.82 (0.827), tune text 0.96 -> 0.95 (0.959),
 // tune silent-miss ceiling 71 -> 101; holdout and renderings unchanged.
+// 2026-12-05, tenth session's end, all six batches merged (480 passages: 395 tune, 85 holdout) and the scanner
+// work on them: tune table 0.84 (0.848), tune text 0.96 (0.9696), holdout table 0.52 (0.523, precision 0.964),
+// holdout text 0.70 (0.707, precision 0.987); all-labels tune 0.60 (0.605), holdout 0.40 (0.407); silent-miss
+// ceilings tune 50, holdout 141; renderings crushed 0.901, cell per line 0.798, consecutive lines 0.768, aligned
+// 0.877, page-break copies 0.985/0.891/0.867, wrapped 0.971/0.879/0.855, as measured.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.82, precision: 0.99, maxFailRate: 0.01 },
-    text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
+    table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
+    text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
     table: { recall: 0.52, precision: 0.96, maxFailRate: 0.01 },
@@ -179,16 +184,16 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 // 0.844, crushed wrapped 0.855, aligned wrapped 0.832), as measured.)
 const RENDERING_FLOORS: Record<Rendering, number> = {
   tabs: 0.99,
-  crushed: 0.88,
-  'cell-per-line': 0.78,
-  'consecutive-lines': 0.75,
-  aligned: 0.85,
+  crushed: 0.9,
+  'cell-per-line': 0.79,
+  'consecutive-lines': 0.76,
+  aligned: 0.87,
   'tabs-page-break': 0.98,
-  'crushed-page-break': 0.87,
-  'aligned-page-break': 0.84,
-  'tabs-wrapped-labels': 0.96,
-  'crushed-wrapped-labels': 0.85,
-  'aligned-wrapped-labels': 0.83,
+  'crushed-page-break': 0.89,
+  'aligned-page-break': 0.86,
+  'tabs-wrapped-labels': 0.97,
+  'crushed-wrapped-labels': 0.87,
+  'aligned-wrapped-labels': 0.85,
 };
 
 describe('real corpus: the passages and their labels', () => {
@@ -257,7 +262,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   // 89 labels more in dwde-01 and dwdg-01, chi-squares and F printed without df, as measured)
   // (2026-12-05, code-index prose batch, no tables added: tune 0.57 -> 0.58 (0.584), holdout 0.42 kept (0.426), as measured)
   // (2026-12-05, tenth-session batch dwo: tune 0.57 -> 0.56 (0.567), holdout 0.41 -> 0.40 (0.407), as measured)
-  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.59, holdout: 0.4 };
+  const ALL_LABELS_FLOORS: Record<(typeof SPLITS)[number], number> = { tune: 0.6, holdout: 0.4 };
   for (const split of SPLITS) {
     it(`${split} split: labels in tables read with or without df stay at their floor`, () => {
       expect(figures(scores[split], 'table').recallAll).toBeGreaterThanOrEqual(ALL_LABELS_FLOORS[split]);
@@ -275,7 +280,7 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (2026-12-05, tenth-session batch dwn, 12 prose passages: tune 21 -> 24, holdout 114 -> 125, as measured)
   // (2026-12-05, tenth-session batch dwo: tune 21 -> 69, holdout 114 -> 121, as measured; see the note above FLOORS)
   // (2026-12-05, tenth-session batch dwm: holdout 114 -> 128, the 14 misses of dwmg-01, as measured; tune 21 kept (21))
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 71, holdout: 141 };
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 50, holdout: 141 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
