@@ -702,17 +702,7 @@ function bestNameWindow(run: Cell[], size: number): number {
 /** The number of values most rows have (0 when no row has two). */
 function typicalValueCount(body: Cell[]): number {
   const counts = new Map<number, number>();
-  let index = 0;
-  while (index < body.length) {
-    if (!isValueCell(body[index]!)) {
-      index++;
-      continue;
-    }
-    let end = index;
-    while (end < body.length && isValueCell(body[end]!)) end++;
-    if (end - index >= 2) counts.set(end - index, (counts.get(end - index) ?? 0) + 1);
-    index = end;
-  }
+  for (const run of valueRuns(body)) if (run.length >= 2) counts.set(run.length, (counts.get(run.length) ?? 0) + 1);
   let best = 0;
   let bestCount = 0;
   for (const [count, times] of counts) if (times > bestCount || (times === bestCount && count > best)) [best, bestCount] = [count, times];

@@ -1535,21 +1535,20 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
     last = index;
   }
   if (rows.length < 2) return null;
+  const block = (header: string[][], layout: TableLayout): { table: DocumentTable; lastLine: number } => ({
+    table: {
+      start: title.start + leadingSpace(title.text),
+      end: lines[last]!.start + lines[last]!.text.trimEnd().length,
+      caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
+      notes: readNotes(lines, last + 1).notes,
+      rows: [...header, ...rows],
+      headerRows: header.length,
+      layout,
+    },
+    lastLine: last,
+  });
   // (Cells that write their symbol say what they hold; which n each takes is left to the reader of such cells.)
-  if (written !== null && headers.length > 0) {
-    return {
-      table: {
-        start: title.start + leadingSpace(title.text),
-        end: lines[last]!.start + lines[last]!.text.trimEnd().length,
-        caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
-        notes: readNotes(lines, last + 1).notes,
-        rows: [...headers, ...rows],
-        headerRows: headers.length,
-        layout: 'aligned',
-      },
-      lastLine: last,
-    };
-  }
+  if (written !== null && headers.length > 0) return block(headers, 'aligned');
   const header = headers.length > 0 ? headers[headers.length - 1]! : [''];
   // Without known column names, the structure must show itself: the columns are named by the rows' own labels (a
   // matrix), or the table is left to be listed as not read.
@@ -1560,18 +1559,7 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
   // words name the k columns ("Gait Variables MMSE ACE-R" over "Gait speed 0.449 †† 0.430 ††").
   const rectangle = matrixRows < MIN_MATRIX_ROW_SHARE * rows.length ? rectangleHeader(header, rows) : null;
   if (matrixRows < MIN_MATRIX_ROW_SHARE * rows.length && rectangle === null) return null;
-  return {
-    table: {
-      start: title.start + leadingSpace(title.text),
-      end: lines[last]!.start + lines[last]!.text.trimEnd().length,
-      caption: [title.text.trim(), caption].filter((part) => part !== '').join(' '),
-      notes: readNotes(lines, last + 1).notes,
-      rows: [rectangle ?? header, ...rows],
-      headerRows: 1,
-      layout: 'crushed',
-    },
-    lastLine: last,
-  };
+  return block([rectangle ?? header], 'crushed');
 }
 
 /** Lines looked at for a row of written results set apart by wide gaps. */
