@@ -120,4 +120,16 @@ describe('a table that prints F and p without df', () => {
     const prose = scanTextJson(`${'The results are described in the text below, with each measure in turn. '.repeat(4)}\n\nTable 2. Correlations between the measures.\n\nNo values are given here.\n`);
     expect(prose.tablesNotRead).toEqual([]);
   });
+
+  it('lists a table copied one cell per line without a title, whose header cells name a statistic and its p, when no reader takes it', () => {
+    // A web page's table as its text gives it, one cell per line and no "Table 2" above it (common practice); the
+    // rows print one value more than a reader can place. The numbers are made up.
+    const cells = ['Effect', 'df', 'F', 'P', 'Slope', 'Season', '1,176', '12.40***', '<0.001', '0.35', 'Sex', '1,176', '3.10*', '0.047', '-0.12', 'Age', '1,176', '0.52', '0.47', '0.02', 'Site', '1,176', '5.61**', '0.004', '0.21'];
+    const document = scanTextJson(`Some text of the page before the table.\n\n${cells.join('\n\n')}\n\nThe discussion follows.\n`);
+    expect(document.statistics).toEqual([]);
+    expect(document.tablesNotRead.map((table) => table.reason)).toEqual(['layout-not-recognised']);
+    // (A line "F" and a line "P" in prose lists are no header when numbers alone do not follow.)
+    const prose = scanTextJson('The letters used:\n\nF\n\nP\n\nand the rest of the text goes on in sentences, with no table here at all.\n');
+    expect(prose.tablesNotRead).toEqual([]);
+  });
 });

@@ -33,7 +33,9 @@ interface Span {
 /** Titled blocks that look like results tables but overlap no table found and no result read. */
 export function findUnrecognisedTables(text: string, tables: readonly DocumentTable[], results: readonly Span[]): UnreadTable[] {
   const titled = findTitledTables(text, tables, results);
-  return [...titled, ...findUntitledTables(text, [...tables, ...titled], results)].sort((a, b) => a.start - b.start);
+  const untitled = findUntitledTables(text, [...tables, ...titled], results);
+  const perLine = findUntitledCellTables(text, [...tables, ...titled, ...untitled], results);
+  return [...titled, ...untitled, ...perLine].sort((a, b) => a.start - b.start);
 }
 
 /** Cells of a header line: apart by pipes, tabs or spaces. */
@@ -91,6 +93,70 @@ function findUntitledTables(text: string, covered: readonly Span[], results: rea
       unread.push({ tableIndex: null, caption: null, start: block.start, end: block.end, rowsWithStatistic: rows, rowsRead: 0, reason: 'layout-not-recognised' });
       index = last;
     }
+  }
+  return unread;
+}
+
+/** Most non-blank lines between a one-cell-per-line header's statistic name and its p name. */
+const MAX_HEADER_CELL_LINES = 12;
+/** Longest line read as one header cell. */
+const MAX_HEADER_CELL = 40;
+/** Most non-blank lines looked at after such a header. */
+const MAX_CELL_LINES = 600;
+/** Lines looked ahead in all, per line of the text. */
+const LOOK_AHEAD_PER_LINE = 4;
+
+/**
+ * Tables copied one cell per line without a title, that no reader took: a header cell that names a test
+ * statistic alone on its line ("F", "χ2") and one that names p ("P", "Sig."), a few cells apart, followed by lines
+ * most of which are numbers alone (at least MIN_NUMBER_LINES), overlapping no table found or listed and at most
+ * one result read. Listed as not read, so that such a table is never skipped without a word.
+ */
+function findUntitledCellTables(text: string, covered: readonly Span[], results: readonly Span[]): UnreadTable[] {
+  const unread: UnreadTable[] = [];
+  const lines: Span[] = [];
+  for (let start = 0; start <= text.length; ) {
+    let end = text.indexOf('\n', start);
+    if (end === -1) end = text.length;
+    if (end > start && text.slice(start, end).trim() !== '') lines.push({ start, end });
+    start = end + 1;
+  }
+  // (What each line names, worked out once: the header search looks at each line many times.)
+  const names = lines.map((line): 'statistic' | 'p' | null => {
+    if (line.end - line.start > MAX_HEADER_CELL) return null;
+    const cell = text.slice(line.start, line.end).replace(/\|/g, ' ').trim().toLowerCase();
+    return STATISTIC_HEADER.test(cell) ? 'statistic' : P_HEADER.test(cell) ? 'p' : null;
+  });
+  // (The look-ahead is bounded in total, so a text of many lines naming a statistic stays linear.)
+  let budget = LOOK_AHEAD_PER_LINE * lines.length;
+  for (let index = 0; index < lines.length && budget > 0; index++) {
+    if (names[index] !== 'statistic') continue;
+    let pAt = -1;
+    for (let at = Math.max(0, index - MAX_HEADER_CELL_LINES); at <= Math.min(lines.length - 1, index + MAX_HEADER_CELL_LINES); at++) {
+      if (names[at] === 'p') {
+        pAt = at;
+        break;
+      }
+    }
+    if (pAt < 0) continue;
+    const first = Math.min(index, pAt);
+    let numberLines = 0;
+    let last = Math.max(index, pAt);
+    let seen = 0;
+    for (let at = last + 1; at < lines.length && seen < MAX_CELL_LINES && budget > 0; at++, seen++, budget--) {
+      const line = text.slice(lines[at]!.start, lines[at]!.end).replace(/\|/g, ' ').trim();
+      if (line.length > MAX_TABLE_LINE) break;
+      if (NUMBER_LINE.test(line)) {
+        numberLines++;
+        last = at;
+      }
+    }
+    const block = { start: lines[first]!.start, end: lines[last]!.end };
+    const overlaps = (span: Span): boolean => span.start < block.end && block.start < span.end;
+    const cellsAfter = last - Math.max(index, pAt);
+    if (numberLines < MIN_NUMBER_LINES || numberLines < MIN_NUMBER_LINE_SHARE * cellsAfter || covered.some(overlaps) || results.filter(overlaps).length > MAX_STRAY_RESULTS) continue;
+    unread.push({ tableIndex: null, caption: null, start: block.start, end: block.end, rowsWithStatistic: numberLines, rowsRead: 0, reason: 'layout-not-recognised' });
+    while (index < lines.length && lines[index]!.start < block.end) index++;
   }
   return unread;
 }
