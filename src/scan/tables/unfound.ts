@@ -48,6 +48,18 @@ const SENTENCE_END = /[a-z]{3}[.!?]$/;
 const MAX_HEADER_CELLS = 16;
 const P_HEADER = /^(?:p|p-?value|sig\.?|pr\(>f\)|p\s?value)$/;
 
+/** Each line's start and end (its line break left out). */
+function lineSpans(text: string): Span[] {
+  const lines: Span[] = [];
+  for (let start = 0; start <= text.length; ) {
+    let end = text.indexOf('\n', start);
+    if (end === -1) end = text.length;
+    lines.push({ start, end });
+    start = end + 1;
+  }
+  return lines;
+}
+
 /**
  * Blocks without a "Table N" title that look like results tables: a short
  * header line naming a test statistic and p, then at least MIN_ROWS_AFTER
@@ -57,13 +69,7 @@ const P_HEADER = /^(?:p|p-?value|sig\.?|pr\(>f\)|p\s?value)$/;
  */
 function findUntitledTables(text: string, covered: readonly Span[], results: readonly Span[]): UnreadTable[] {
   const unread: UnreadTable[] = [];
-  const lines: Span[] = [];
-  for (let start = 0; start <= text.length; ) {
-    let end = text.indexOf('\n', start);
-    if (end === -1) end = text.length;
-    lines.push({ start, end });
-    start = end + 1;
-  }
+  const lines = lineSpans(text);
   for (let index = 0; index < lines.length; index++) {
     const length = lines[index]!.end - lines[index]!.start;
     if (length === 0 || length > MAX_TABLE_LINE) continue;
@@ -114,13 +120,7 @@ const LOOK_AHEAD_PER_LINE = 4;
  */
 function findUntitledCellTables(text: string, covered: readonly Span[], results: readonly Span[]): UnreadTable[] {
   const unread: UnreadTable[] = [];
-  const lines: Span[] = [];
-  for (let start = 0; start <= text.length; ) {
-    let end = text.indexOf('\n', start);
-    if (end === -1) end = text.length;
-    if (end > start && text.slice(start, end).trim() !== '') lines.push({ start, end });
-    start = end + 1;
-  }
+  const lines = lineSpans(text).filter((line) => line.end > line.start && text.slice(line.start, line.end).trim() !== '');
   // (What each line names, worked out once: the header search looks at each line many times.)
   const names = lines.map((line): 'statistic' | 'p' | null => {
     if (line.end - line.start > MAX_HEADER_CELL) return null;
