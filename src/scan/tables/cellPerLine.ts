@@ -150,7 +150,13 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (headerStart(head, titleLine) === -1 && headFirstCell !== undefined && !captionOf(lines, titleLine, titled, headFirstCell).correlations) return null;
   // (Under a title that says correlations, the grid's columns are named by no known name: empty lines among its first
   // cells are cells too, a copy's empty header cells, "Non-shift workers (n = 1,966)" / "" / "" / "Exhaustion".)
-  const cells = collectCells(lines, titleLine + 1, Infinity, Infinity, captionOf(lines, titleLine, titled, headFirstCell).correlations);
+  const saysCorrelations = captionOf(lines, titleLine, titled, headFirstCell).correlations;
+  // Outside correlations, a header starts within MAX_CELLS_TO_HEADER cells with text and ends at a value within
+  // MAX_HEADER_CELLS more: without a value among that many cells there is no table, and the cells after are not
+  // collected (a text of short lines, every one a column's name, "F" / "P" / "F" / …, would be read up to
+  // MAX_BODY_CELLS cells at each of its lines).
+  if (!saysCorrelations && !collectCells(lines, titleLine + 1, Infinity, MAX_CELLS_TO_HEADER + MAX_HEADER_CELLS + 1).some((cell) => !cell.empty && isValueCell(cell))) return null;
+  const cells = collectCells(lines, titleLine + 1, Infinity, Infinity, saysCorrelations);
   // The header: from the first known column name, the run of cells up to the first value.
   let first = headerStart(cells, titleLine);
   // A table of correlations names its columns by the variables correlated ("BDQ Physical", "Age"), which no
