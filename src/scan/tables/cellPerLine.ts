@@ -443,7 +443,12 @@ function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
 
 /** The runs of value cells (a row's values) in `cells`. */
 function valueRuns(cells: Cell[]): Cell[][] {
-  const runs: Cell[][] = [];
+  return valueRunBounds(cells).map(({ start, end }) => cells.slice(start, end));
+}
+
+/** Where each run of value cells in `cells` starts and ends (its end the index after its last cell). */
+function valueRunBounds(cells: Cell[]): { start: number; end: number }[] {
+  const runs: { start: number; end: number }[] = [];
   let index = 0;
   while (index < cells.length) {
     if (!isValueCell(cells[index]!)) {
@@ -452,7 +457,7 @@ function valueRuns(cells: Cell[]): Cell[][] {
     }
     let end = index;
     while (end < cells.length && isValueCell(cells[end]!)) end++;
-    runs.push(cells.slice(index, end));
+    runs.push({ start: index, end });
     index = end;
   }
   return runs;
@@ -791,14 +796,8 @@ const FOOTNOTE_CELL = /^(?:[a-h]|[*\u2020\u2021]{1,3})$/;
 function withoutFootnoteCells(body: Cell[], valueCount: number): Cell[] {
   if (valueCount < 2) return body;
   const dropped = new Set<number>();
-  let index = 0;
-  while (index < body.length) {
-    if (!isValueCell(body[index]!)) {
-      index++;
-      continue;
-    }
-    let end = index;
-    while (end < body.length && isValueCell(body[end]!)) end++;
+  // (The cell after a run is no value cell, so a footnote closing a row there is never the next run's start.)
+  for (const { start: index, end } of valueRunBounds(body)) {
     // (A lone letter that reads as a value, "a", ends the run one cell late; one that reads as a column name, "b",
     // ends it on time and stands before the next label.)
     const closing = end - index === valueCount + 1 ? end - 1 : end - index === valueCount ? end : -1;
@@ -806,7 +805,6 @@ function withoutFootnoteCells(body: Cell[], valueCount: number): Cell[] {
     const closesRow = cell !== undefined && (cell.empty || FOOTNOTE_CELL.test(cell.text));
     const next = body[closing + 1];
     if (closesRow && !body[closing - 1]!.empty && (next === undefined || (!next.empty && !isValueCell(next)))) dropped.add(closing);
-    index = Math.max(end, closing + 1);
   }
   return dropped.size === 0 ? body : body.filter((_, at) => !dropped.has(at));
 }
