@@ -43,7 +43,7 @@ export { composePages, furnitureRanges, pageAt, pdfDocument, withoutPageFurnitur
  * per line, cells joined by " | " (pdfCompose.ts), which the document's
  * `tables` describe cell by cell, with a caption and a table region each.
  * The rest of the page reads as before, and so does a page that names no
- * table and holds fewer than six numbers standing alone (mayHoldTable), or
+ * table and holds fewer than six numbers standing alone as cells do, in rows or one to a line (mayHoldTable), or
  * whose words cannot be tied to its text: the word boxes are not looked at
  * (with pdftotext, the second run is made only for a PDF with a page that
  * may hold a table).

@@ -55,27 +55,48 @@ function lineOf(starts: readonly number[], offset: number): number {
 
 type Part = { prose: string } | { table: LayoutTable };
 
-/** A number standing alone as a table cell holds it: "4.21", ".018", "12", "<.001", "-0.75", "(3.73)". */
-const CELL_NUMBER = /^\(?[<>\u2264\u2265]?[-\u2212\u2013]?(?:\d+(?:[.,]\d+)?|[.,]\d+)\)?$/u;
+/**
+ * A number standing alone as a table cell holds it: "4.21", ".018", "12", "<.001", "-0.75", "(3.73)". The
+ * brackets come in pairs: a number with only a closing one ends a bracket of running text ("(M = 3.63,
+ * SD = 1.11, n = 36)", "χ2(1, N = 143)"), which result-dense prose holds on every page.
+ */
+const CELL_NUMBER = /^(?:\([<>\u2264\u2265]?[-\u2212\u2013]?(?:\d+(?:[.,]\d+)?|[.,]\d+)\)|[<>\u2264\u2265]?[-\u2212\u2013]?(?:\d+(?:[.,]\d+)?|[.,]\d+))$/u;
 const TABLE_WORD = /^(?:Table|TABLE)$/;
 const TABLE_NUMBER = /^[A-Z]{0,2}\d+[A-Za-z]?[.:]?$/;
-/** Numbers standing alone that make a page worth a look for tables. */
+/** Numbers standing alone as cells that make a page worth a look for tables. */
 const MIN_CELL_NUMBERS = 6;
 
 /**
+ * The numbers standing alone on one line that look like table cells: two or more making at least a third
+ * of the line's words (a row: "Condition 11.87 1 11.87 6.49 .012"), or one that is the whole line (a table
+ * the PDF draws column by column, one cell per line). Numbers among the words of prose ("block 6 on
+ * accuracy", "aged 18 to 65 took part in 2 sessions") are not counted.
+ */
+function cellNumbersOnLine(tokens: readonly string[]): number {
+  let numbers = 0;
+  for (const token of tokens) if (CELL_NUMBER.test(token)) numbers += 1;
+  return (numbers >= 2 && numbers * 3 >= tokens.length) || (numbers === 1 && tokens.length === 1) ? numbers : 0;
+}
+
+/**
  * Whether a page's text may hold a table: it names one ("Table 2") or holds
- * at least six numbers standing alone, as table cells do (a number in running
- * text mostly carries a comma or a bracket). A page without either is read
- * as before without looking at its words; the test reads whitespace-separated
- * words, which both engines give alike.
+ * at least six numbers standing alone as table cells do, in rows or one to a
+ * line (a number in running text mostly carries a comma or a bracket, or
+ * stands alone among words). A page without either is read as before without
+ * looking at its words; the test reads whitespace-separated words line by
+ * line, which both engines give alike.
  */
 export function mayHoldTable(text: string): boolean {
   let numbers = 0;
   let previous = '';
-  for (const token of text.split(/\s+/)) {
-    if (CELL_NUMBER.test(token) && ++numbers >= MIN_CELL_NUMBERS) return true;
-    if (TABLE_WORD.test(previous) && TABLE_NUMBER.test(token)) return true;
-    previous = token;
+  for (const line of text.split('\n')) {
+    const tokens = line.split(/\s+/).filter((token) => token !== '');
+    for (const token of tokens) {
+      if (TABLE_WORD.test(previous) && TABLE_NUMBER.test(token)) return true;
+      previous = token;
+    }
+    numbers += cellNumbersOnLine(tokens);
+    if (numbers >= MIN_CELL_NUMBERS) return true;
   }
   return false;
 }

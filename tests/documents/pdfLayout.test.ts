@@ -15,7 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { findPageTables, groupLines, isNumberish, type PageWord } from '../../src/documents/pdfLayout.js';
 import { BboxWordLocator, pdfjsPageText, locateWords, parseBboxPages, type PdfJsStyles, type PdfJsViewport } from '../../src/documents/pdfWords.js';
-import { composePage, writeTable } from '../../src/documents/pdfCompose.js';
+import { composePage, mayHoldTable, writeTable } from '../../src/documents/pdfCompose.js';
 import { pdfDocument } from '../../src/documents/pdf.js';
 import type { DocumentTable, DocumentText } from '../../src/documents/types.js';
 import { scanDocument } from '../../src/scan/scanDocument.js';
@@ -170,6 +170,25 @@ describe('pdfLayout on words placed by hand', () => {
 });
 
 // --------------------------------------------------------- composition
+
+describe('mayHoldTable (which pages are worth a look at their words)', () => {
+  it('takes a page naming a table, or holding six numbers standing alone as cells do', () => {
+    expect(mayHoldTable('Results are in Table 2 below.')).toBe(true);
+    expect(mayHoldTable('Condition 12.40 2 6.20 4.21 .018\nError 130.22 88 1.48')).toBe(true);
+    expect(mayHoldTable('Fluent 3.4 (1.2) 2.9 (0.8)\nHesitant 4.1 (1.5) 3.3 (1.1)')).toBe(true);
+    // A table drawn column by column comes out one cell per line.
+    expect(mayHoldTable('Condition\nError\n12.40\n130.22\n2\n88\n4.21\n.018')).toBe(true);
+  });
+  it('does not take prose whose numbers end a bracket of running text (common practice: "n = 36)" is not a cell)', () => {
+    // The sentence shape of result-dense prose: every group n and every chi-square N closes a bracket.
+    const prose = Array.from({ length: 4 }, (_, i) =>
+      `Ratings were higher after the cue (M = 3.63, SD = 1.11, n = ${30 + i}) than without it (M = 3.03, SD = 0.94, n = ${30 + i}), t(70) = 2.90, p = .005. Choices differed, chi2(1, N = ${140 + i}) = 3.09, p = .079.`,
+    ).join('\n');
+    expect(mayHoldTable(prose)).toBe(false);
+    // Nor numbers standing alone among words, one to a sentence.
+    expect(mayHoldTable('The effect of block 6 on accuracy was reliable. Participants aged 18 to 65 took part\nin 2 sessions of 40 minutes each, 3 weeks apart, at 4 sites, with 12 raters and 30 items\nin each of 5 blocks.')).toBe(false);
+  });
+});
 
 describe('composePage', () => {
   it('replaces the lines of a table by its rows and keeps the prose and its hyphenation joins', () => {
