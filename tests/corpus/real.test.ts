@@ -133,13 +133,17 @@ const scores = scoreCorpus(corpus);
 // holdout text 0.70 (0.707, precision 0.987); all-labels tune 0.60 (0.605), holdout 0.40 (0.407); silent-miss
 // ceilings tune 50, holdout 141; renderings crushed 0.901, cell per line 0.798, consecutive lines 0.768, aligned
 // 0.877, page-break copies 0.985/0.891/0.867, wrapped 0.971/0.879/0.855, as measured.
+// 2026-12-05, eleventh-session batch dxb: the corpus grew by 3 passages from one CC BY PLOS ONE article's PDF text
+// (dxba-01, dxba-02 tune: a GLMM table of Wald z values, none read, and three inline t-tests, all read; dxba-03
+// holdout: an LMM table with a decimal df column, 22 of 22 read). As measured: holdout table recall 0.52 -> 0.53
+// (0.539); tune table 0.846, tune text 0.970, holdout text 0.707 and all precisions unchanged: floors kept.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
     table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
     text: { recall: 0.96, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.52, precision: 0.96, maxFailRate: 0.01 },
+    table: { recall: 0.53, precision: 0.96, maxFailRate: 0.01 },
     text: { recall: 0.7, precision: 0.98, maxFailRate: 0.01 },
   },
 };
