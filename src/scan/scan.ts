@@ -35,7 +35,7 @@ export function scanText(text: string): ScanOutput {
 
 /** All results in document order, with offsets into the original text. */
 export function findResults(normalised: NormalisedText): ReportedResult[] {
-  const source = withoutMarginNumbers(restoreLostSymbols(restoreWordComparators(restoreLostEquals(normalised.text))));
+  const source = withoutMarginNumbers(restoreLostSymbols(restoreWordComparators(restoreLostEquals(restoreMathFontGlyphs(normalised.text)))));
   const results: ReportedResult[] = [];
   const comparators = new ComparatorFinder(source);
   const spans: number[] = [];
@@ -127,6 +127,36 @@ const LOST_EQUALS = /(?<![\p{L}\d])((?:rho|Rho|ρ|rs|r|t|F|χ2|X2)(?:\s?\(\s?\d+
 function restoreLostEquals(text: string): string {
   if (!text.includes(', p 0') && !text.includes(', p .') && !text.includes(',p 0') && !text.includes(',p .')) return text;
   return text.replace(LOST_EQUALS, '$1=$2');
+}
+
+/**
+ * A PDF whose mathematical font maps its signs onto other letters gives "r ¼ \uFFFD0:627, p ¼ :000" for
+ * "r = -0.627, p = .000", "Fð1; 52Þ ¼ 6:30" for "F(1; 52) = 6.30": the equals sign comes out as "¼", the minus
+ * as U+FFFD, the decimal point as ":" and the brackets as "ð" and "Þ" (common practice: a well-known extraction
+ * damage of some publishers' symbol fonts). Normalisation already reads "¼" as "=" before a plain number
+ * (normalise.ts symbolFontEquals); what it leaves is a "¼" before a lost minus or a ":" point. In a text that
+ * shows that at least MIN_FONT_EQUALS times, each such "¼" becomes "=", the number after it (or after "<", ">")
+ * gets its minus and decimal point back, and "ð" and "Þ" next to digits become brackets. One character each,
+ * so offsets do not move. A text without the damage is returned as it is.
+ */
+const FONT_EQUALS = /(?<=[\p{L}\p{N}\u00de)\]] ?)\u00bc(?= ?[-\u2212\ufffd]? ?[:.]?\d)/gu;
+const MIN_FONT_EQUALS = 2;
+/** A value after a restored sign: its sign, spaces, and the digits around a ":" that stood for the decimal point. */
+const FONT_VALUE = /(?<=[=<>\u2264\u2265] ?)(\ufffd?)( ?)(\d*):(?=\d)/gu;
+const FONT_MINUS = /(?<=[=<>\u2264\u2265] ?)\ufffd(?= ?[.\d])/gu;
+const FONT_OPEN = /\u00f0(?= ?\d)/gu;
+const FONT_CLOSE = /(?<=\d ?)\u00de/gu;
+
+function restoreMathFontGlyphs(text: string): string {
+  if (!text.includes('\u00bc')) return text;
+  const damaged = text.match(FONT_EQUALS)?.length ?? 0;
+  if (damaged < MIN_FONT_EQUALS) return text;
+  return text
+    .replace(FONT_EQUALS, '=')
+    .replace(FONT_VALUE, (_, minus: string, space: string, whole: string) => `${minus === '' ? '' : '-'}${space}${whole}.`)
+    .replace(FONT_MINUS, '-')
+    .replace(FONT_OPEN, '(')
+    .replace(FONT_CLOSE, ')');
 }
 
 /**

@@ -309,3 +309,23 @@ describe('p and df written in further ways after a statistic, from the command l
     ]);
   });
 });
+
+describe('a symbol font that lost its minus, decimal point and brackets, from the command line', () => {
+  it('reads "t(40) ¼ \uFFFD2:60, p ¼ :013" and "Fð1; 52Þ ¼ 6:30, p ¼ :015" in a text that shows the damage, and flags a p the F cannot give', () => {
+    // t(40) = -2.60 gives p = .0130 and F(1, 52) = 6.30 gives p = .0152 (SciPy 1.10.1 2 * scipy.stats.t.sf(2.60, 40)
+    // and scipy.stats.f.sf(6.30, 1, 52), computed when the test was written). The layout follows a corpus passage
+    // (dxbb-01: "r ¼ \uFFFD0:627, p ¼ :000"); the numbers are invented.
+    const text = (p: string): string => `Scores fell after the break, t(40) ¼ \uFFFD2:60, p ¼ :013, and the cue mattered, Fð1; 52Þ ¼ 6:30, p ¼ ${p}.\n`;
+    const right = scanTextJson(text(':015')).statistics;
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([
+      ['t', [40], -2.6],
+      ['F', [1, 52], 6.3],
+    ]);
+    expect(right.flatMap((statistic) => statistic.findings.filter((finding) => finding.severity === 'fail'))).toEqual([]);
+    const wrong = scanTextJson(text(':15')).statistics;
+    expect(wrong.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')).map((statistic) => statistic.kind)).toEqual(['F']);
+  });
+  it('leaves a lone "¼" and quarters alone', () => {
+    expect(scanTextJson('A quarter ¼ of the sample waited 3¼ hours; t ¼ \uFFFD2:60 once.\n').statistics).toEqual([]);
+  });
+});

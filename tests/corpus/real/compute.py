@@ -66,6 +66,10 @@ def parse_printed(text):
     s = re.sub(r"\s+", "", s)
     for m in MINUS:
         s = s.replace(m, "-")
+    if re.fullmatch(r"\ufffd[:.]?\d[\d:.,]*", s):
+        # A minus sign a PDF's symbol font lost (U+FFFD, then the digits): kept in valueText only where the
+        # label's note says the value is negative ('r ¼ \ufffd0:627' after 'turns out to be negative').
+        s = "-" + s[1:]
     if re.fullmatch(r"-?\d{1,3}(?:,\d{3})+\.\d+", s):
         s = s.replace(",", "")  # thousands separators before a decimal point ('1,050,284.622')
     if "," in s and "." not in s:
