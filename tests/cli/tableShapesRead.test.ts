@@ -1651,4 +1651,28 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 2.5, [], '0.165'],
     ]);
   });
+
+  it('reads a crushed table whose caption goes on in a line listing abbreviations ("OR, odds ratio; CI, confidence interval; …"), not taken for its header', () => {
+    // The layout of tests/corpus/real/passages/dxba-01.txt (CC BY), crushed as a PDF's text gives it, the caption
+    // broken inside a word; the numbers are made up (z = 2.10 gives p = .0357, z = -3.00 gives p = .0027: SciPy
+    // 1.10.1 2 * scipy.stats.norm.sf, computed when the test was written).
+    const text = [
+      'Table 2. Logistic model of passing the test. Passing was coded 0 (failed) or 1 (pass-',
+      'ed). OR, odds ratio; CI, confidence interval; LL, lower limit; UL, upper limit; GPA, grade point average. Significance levels:',
+      'p < 0.01, **; p < 0.05, *.',
+      '95% CI z p',
+      'OR LL UL',
+      'Intercept 2.31 1.06 5.01 2.10 0.036 *',
+      'Practice (yes) 0.41 0.23 0.74 −3.00 0.003 **',
+      'GPA (z) 1.12 0.86 1.45 0.85 0.90',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.text])).toEqual([
+      ['z', 2.1, '0.036'],
+      ['z', -3, '0.003'],
+      ['z', 0.85, '0.90'],
+    ]);
+    // The last row's p (.90) is not what z = 0.85 gives (.395).
+    expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
+  });
 });

@@ -900,6 +900,15 @@ interface HeaderLine {
  * headers are read cell by cell; crushed ones are grouped into the longest
  * known phrases ("Sum of squares", "Partial eta squared").
  */
+/** "OR, odds ratio;", "CI, confidence interval;": an abbreviation, a comma and its meaning in lower case, closed by a semicolon. */
+const ABBREVIATION_GLOSS = /(?:^|[\s;.])[\p{Lu}][\p{L}\d]{0,7}, [\p{Ll}][\p{L}\- ]{2,60};/gu;
+
+/** Whether a line lists two or more abbreviations with their meanings, as a caption or note does. */
+function isAbbreviationList(text: string): boolean {
+  if (!text.includes(';')) return false;
+  return (text.match(ABBREVIATION_GLOSS)?.length ?? 0) >= 2;
+}
+
 /**
  * Answers about one line, kept per line: readSpacedTable asks them of a line, of the line after it and of the
  * one after that (readWrappedHeader) as it moves down the text, three times over for every line of prose.
@@ -948,6 +957,9 @@ function readHeaderOf(line: Line): HeaderLine | null {
       return { columns, aligned: true, tabbed: false };
     }
   }
+  // A caption's list of abbreviations ("OR, odds ratio; CI, confidence interval; LL, lower limit; …") names the
+  // columns' words but is no header: a header line does not hold two "name, meaning;" glosses.
+  if (isAbbreviationList(text)) return null;
   const tokens = withGroupSizes(text, tokenize(text));
   if (tokens.length < 2) return null;
   // A crushed header names at least two columns; prose rarely has two words that could begin a name.
