@@ -1675,4 +1675,17 @@ describe('results tables in the shapes papers print them', () => {
     // The last row's p (.90) is not what z = 0.85 gives (.395).
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
   });
+
+  it('reads a crushed header whose df columns are named "df num" and "df den" (each pair one name, not "df", "num df", "den")', () => {
+    // A header form of numerator and denominator df columns (common practice in statistics programs' output); the
+    // numbers are made up (F(3, 96) = 4.10 gives p = .0088, F(1, 96) = 6.50 gives p = .0124: SciPy 1.10.1
+    // scipy.stats.f.sf, computed when the test was written).
+    const text = ['Table 3. Tests of the fixed effects', 'Source df num df den F p', 'Load 3 96 4.10 .009', 'Time 1 96 6.50 .12'].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['F', 4.1, [3, 96], '.009'],
+      ['F', 6.5, [1, 96], '.12'],
+    ]);
+    expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, true]);
+  });
 });

@@ -1161,7 +1161,10 @@ function startsKnownPhrase(tokens: readonly Piece[], index: number): boolean {
 function headerPhraseLength(tokens: readonly Piece[], index: number): number {
   const length = knownPhraseLength(tokens, index);
   const dfFirst = length === 2 && /^d\.?f\.?$/i.test(tokens[index]!.text) && /^d\.?f\.?$/i.test(tokens[index + 2]?.text ?? '');
-  return dfFirst && knownPhraseLength(tokens, index + 1) === 2 ? 1 : length;
+  // "df Error df" is "df" then "Error df"; "df num df den" is "df num" then "df den": the second "df" opens a name
+  // of its own with the word after it, so the first pair is whole.
+  const pairsAfter = knownPhraseLength(tokens, index + 2) === 2;
+  return dfFirst && knownPhraseLength(tokens, index + 1) === 2 && !pairsAfter ? 1 : length;
 }
 
 /** "n = 30" after a group's name in a header ("Group A n = 30"): one token, part of the name, not an "n" column. */
