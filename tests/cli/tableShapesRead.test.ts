@@ -1688,4 +1688,17 @@ describe('results tables in the shapes papers print them', () => {
     ]);
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, true]);
   });
+
+  it('reads an F cell with its df in brackets under a plain "F" in a crushed row of group means ("2.90 (2, 132)")', () => {
+    // A layout of tables comparing groups (common practice: "M (SD)" per group, then the test); the numbers are made
+    // up (F(2, 132) = 2.90 gives p = .0586, F(2, 132) = 9.48 gives p = .00014: SciPy 1.10.1 scipy.stats.f.sf,
+    // computed when the test was written).
+    const text = ['Table 3. Group means and tests', 'Measure Placebo Control Training F p', 'Sleep 6.28 (1.89) 5.46 (0.82) 5.18 (1.77) 2.90 (2, 132) 0.059', 'Mood 6.93 (0.45) 2.10 (0.42) 4.60 (1.18) 9.48 (2, 132) 0.01'].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['F', 2.9, [2, 132], '0.059'],
+      ['F', 9.48, [2, 132], '0.01'],
+    ]);
+    expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, true]);
+  });
 });

@@ -247,7 +247,9 @@ export function fit(role: ColumnRole, cell: CellShape): number {
       // Under a chi-square, a whole pair after the value is its one df and the sample size ("10.84(1, 141)", as
       // "χ2(1, N = 141)" without the "N ="), with or without "(df)" in the header.
       if ((cell.shape === 'number-interval' || cell.shape === 'number-bracket') && cell.dfThenSize === true && role.kind === 'chi2') return cell.value >= 0 ? 3 : -4;
-      if (cell.shape === 'number-interval') return cell.wholePair === true && role.dfInCell === true && role.kind === 'F' ? 3 : -3;
+      // Under an F, a value with two whole numbers in brackets is the F with its df ("2.90 (2, 132)"), as a pipe
+      // table's cell is read, whether or not the header says "(df)" (an interval holds a value's estimate, not an F's).
+      if (cell.shape === 'number-interval') return cell.wholePair === true && role.kind === 'F' ? (role.dfInCell === true ? 3 : 2.5) : -3;
       if (cell.shape === 'ns' || cell.shape === 'pair') return -3;
       // A bracketed number in a statistic column is its df only where the header says so ("t (df)").
       // Whole-number df only: "62.3 (9.64)" beside "1.48 (29)" is a mean and SD.
@@ -260,7 +262,9 @@ export function fit(role: ColumnRole, cell: CellShape): number {
         // (Under a statistic with one df, "(12,000)" is that df with its thousands set apart.)
         const twoDf = cell.innerPair === true && !(cell.innerThousands === true && role.kind !== 'F');
         // (A bracket that says it holds df, "(df = 1)", holds them whatever the header says.)
-        const withDf = (role.dfInCell === true || cell.namedDf === true) && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F');
+        // (Under a plain "F", a pair of whole numbers in brackets: an F's df, as above.)
+        const fPair = role.kind === 'F' && twoDf && cell.innerDecimals === 0 && cell.innerComparator === undefined;
+        const withDf = ((role.dfInCell === true || cell.namedDf === true) && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F')) || fPair;
         if (!withDf) return -3;
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;
