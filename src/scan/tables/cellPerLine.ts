@@ -191,6 +191,10 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // Rows under a spanned first column ("Soil depth" over "WSMacA", "MWD", ...) copied with an empty cell at the
   // end of each row but the first: those empty cells are the spanned column's, shifted, not a value column's.
   if (grid === null) body = withoutSpanShiftedEmpties(body, headerRun);
+  // Rows padded with empty cells past the last column the header names ("NP" / "1.23" / "16.91" / "***" / "" / ""):
+  // a web page's row shorter than its widest row, copied cell by cell. They are no values: counted, they make the
+  // rows wider than the header, whose names then land on the wrong columns.
+  if (grid === null) body = withoutPaddingEmpties(body, headerRun);
   const typical = typicalValueCount(body);
   const widest = widestValueCount(body);
   const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
@@ -762,6 +766,42 @@ function withoutSpanShiftedEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
     index = end;
   }
   return typicalValueCount(kept) === valueNames ? kept : body;
+}
+
+/**
+ * The body without the empty cells that pad rows past their last filled value, when no row fills a cell there
+ * and the header ends in exactly as many names of value columns as rows fill (the cell before them names no
+ * value column, or the names are one block printed again, "F" / "Sig." / "F" / "Sig.", that the cell before is
+ * not part of); the body unchanged otherwise. (A column the header names but no row fills, "F" / "p" / "η2" over
+ * rows of two values, keeps its empty cells: the names then outnumber the filled values by one known name.)
+ */
+function withoutPaddingEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
+  const filled = typicalFilledValues(body);
+  if (filled < 2 || typicalValueCount(body) <= filled || headerRun.length < filled) return body;
+  const runs = valueRunBounds(body);
+  if (runs.some(({ start, end }) => filledLength(body.slice(start, end)) > filled)) return body;
+  const names = headerRun.slice(headerRun.length - filled);
+  if (!names.every((cell) => isValueColumnName(cell.text))) return body;
+  const before = headerRun[headerRun.length - filled - 1];
+  if (before !== undefined && isValueColumnName(before.text) && !endsRepeatedBlock(names, before)) return body;
+  const padding = new Set<number>();
+  for (const { start, end } of runs) for (let at = start + filled; at < end; at++) padding.add(at);
+  const kept = body.filter((_, at) => !padding.has(at));
+  return typicalValueCount(kept) === filled ? kept : body;
+}
+
+/** A known name of a value column: not a label's, not unknown. */
+function isValueColumnName(text: string): boolean {
+  return isColumnName(text) && !['label', 'unknown'].includes(classifyHeader(text).role);
+}
+
+/** Whether `names` are one block of names printed again and again, and `before` is none of the block's names. */
+function endsRepeatedBlock(names: Cell[], before: Cell): boolean {
+  const keys = names.map((cell) => headerKey(cell.text));
+  for (let size = 1; size * 2 <= keys.length; size++) {
+    if (repeatsBlock(keys, size)) return !keys.slice(0, size).includes(headerKey(before.text));
+  }
+  return false;
 }
 
 /**
