@@ -430,6 +430,51 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  // Layout of tune passages dvzi-01 (a title cell over "df" / "F" / "p", rows padded with two empty cells) and
+  // dvzd-03 (groups over "F" / "Sig." printed three times, rows padded with one or two), re-rendered one cell per line.
+  it('reads rows padded with empty cells past the last named column, one cell per line and on consecutive lines (real corpus dvzi-01, dvzd-03)', () => {
+    const padded = [
+      ['Table 2. Analysis of the ratings'],
+      ['Ratings (first block)', '', '', '', '', ''],
+      ['df', 'F', 'p', '', '', ''],
+      ['Group', '1.23', '16.91', '.001', '', ''],
+      ['Time', '2.46', '8.02', '.002', '', ''],
+      ['Group × Time', '2.46', '3.58', '.03', '', ''],
+    ];
+    const blocks = [
+      ['Table 3. Two-way ANOVA of the yields'],
+      ['Parameters', 'S', 'C', 'S*C', '', '', '', '', ''],
+      ['F', 'Sig.', 'F', 'Sig.', 'F', 'Sig.', '', '', ''],
+      ['Yield', '5.819', '0.028', '5.669', '0.008', '24.382', '0.000', ''],
+      ['Height', '37.266', '0.000', '2.716', '0.079', '5.100', '0.011', '', ''],
+      ['Weight', '0.629', '0.439', '5.192', '0.011', '0.774', '0.525', '', ''],
+    ];
+    for (const [layout, render] of [
+      ['one cell per line', (rows: string[][]) => rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n')],
+      ['consecutive lines', (rows: string[][]) => rows.map((row) => row.join('\n')).join('\n')],
+    ] as const) {
+      const first = scanTextJson(`${render(padded)}\n\nNote. Made-up values.\n`);
+      expect(readAs(first.statistics), layout).toEqual([
+        ['F', 16.91, [1, 23]],
+        ['F', 8.02, [2, 46]],
+        ['F', 3.58, [2, 46]],
+      ]);
+      const second = scanTextJson(`${render(blocks)}\n\nNote. Made-up values.\n`);
+      // (Counted, the padding made the rows eight values wide, and the header's names fell on the wrong columns.)
+      expect(second.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value]), layout).toEqual([
+        ['F', 5.819, 0.028],
+        ['F', 5.669, 0.008],
+        ['F', 24.382, 0],
+        ['F', 37.266, 0],
+        ['F', 2.716, 0.079],
+        ['F', 5.1, 0.011],
+        ['F', 0.629, 0.439],
+        ['F', 5.192, 0.011],
+        ['F', 0.774, 0.525],
+      ]);
+    }
+  });
+
   it('reads a table copied one cell per line on consecutive lines, its empty cells empty lines', () => {
     const lines = [
       'Table 3. Repeated measures analysis of the scores',
