@@ -27,7 +27,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, NAMES_TEST_COLUMN, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
 import { fit, shapeOf } from './align.js';
 
 type Line = TextLine;
@@ -178,7 +178,13 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (firstValue >= cells.length || headerCells >= MAX_HEADER_CELLS) return null;
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = grid?.bodyStart ?? firstValue;
-  if (grid === null) while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
+  // (Under a header naming a column of tests, "Test", a test's name that stands before the value in row after row,
+  // "t-test" / "4.95, df = 4254.7", is the first row's cell, not the header's. Only there: elsewhere a name that
+  // recurs before values, "Wald χ2" / "1.240", is a header repeated over a block of rows.)
+  const namesTests = grid === null && cells.slice(first, firstValue).some((cell) => !cell.empty && NAMES_TEST_COLUMN.test(cell.text));
+  const namesBeforeRows = namesTests ? cellsBeforeValueRuns(cells.slice(firstValue)) : new Map<string, number>();
+  const recurs = (cell: Cell): boolean => (namesBeforeRows.get(headerKey(cell.text)) ?? 0) >= MIN_RECURRING_ROW_CELL;
+  if (grid === null) while (bodyStart > first && (!isColumnName(cells[bodyStart - 1]!.text) || recurs(cells[bodyStart - 1]!))) bodyStart--;
   let body = grid !== null && 'numberApart' in grid && grid.numberApart === true ? joinRowNumbers(cells.slice(bodyStart)) : cells.slice(bodyStart);
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
@@ -269,7 +275,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
   const startsWithLabel = grid === null && classifyHeader(cells[first]!.text).role === 'label';
   // (In a grid, a group's title that states its size, "Night workers (n = 1,223)", heads its columns, not the labels.)
-  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
+  // (A column of tests' name, "Test", between the label's and the values' names heads label cells too.)
+  const testColumn = startsWithLabel ? cells.slice(first + 1, bodyStart).filter((cell) => !cell.empty && NAMES_TEST_COLUMN.test(cell.text) && !names.includes(cell)) : [];
+  const labelHeaders = startsWithLabel ? [cells[first]!, ...testColumn] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
   if (twoLevel !== null) {
@@ -443,6 +451,21 @@ function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
   const roles = valueNames.map((cell) => classifyHeader(cell.text));
   const fullRuns = valueRuns(body).filter((run) => filledLength(run) === valueNames.length + missing);
   return fullRuns.length > 0 && fullRuns.every((run) => roles.every((role, column) => fit(role, shapeOf(run[column]!.text)) > 0)) ? names : null;
+}
+
+/** Times a cell must stand right before a row's values, after the first row, to be a row's cell rather than a header's. */
+const MIN_RECURRING_ROW_CELL = 2;
+
+/** How often each text (by its header key) stands right before a run of values in `body`, the first run's excepted. */
+function cellsBeforeValueRuns(body: Cell[]): Map<string, number> {
+  const counts = new Map<string, number>();
+  for (const { start } of valueRunBounds(body)) {
+    const before = body[start - 1];
+    if (before === undefined || before.empty) continue;
+    const key = headerKey(before.text);
+    counts.set(key, (counts.get(key) ?? 0) + 1);
+  }
+  return counts;
 }
 
 /** The runs of value cells (a row's values) in `cells`. */
@@ -684,8 +707,13 @@ function stripPipes(text: string): { text: string; offset: number } | null {
   return { text: text.slice(start, end), offset: start };
 }
 
+/** A statistic with its df written into its cell: "4.95, df = 4254.7", "−7.63; df = 346.02". */
+const STATISTIC_WITH_DF = /^(?:[-\u2212\u2013] ?)?(?:\d{1,6}(?:\.\d{1,4})?|\.\d{1,4}) ?[,;] ?df ?= ?\d{1,6}(?:\.\d{1,3})?(?: ?, ?\d{1,6}(?:\.\d{1,3})?)?$/i;
+
 function isValueCell(cell: Cell): boolean {
   if (cell.empty) return true;
+  // (A "Statistic" column's cell that writes the df after the value is the row's value, not more of its label.)
+  if (STATISTIC_WITH_DF.test(cell.text)) return true;
   // A lone letter that names a column ("d", "z", "p") is a header cell, not a footnote mark.
   if (cell.text.length <= 2 && isColumnName(cell.text)) return false;
   // A footnote letter set apart after the value and its stars ("-.51* a") belongs to the value.
