@@ -475,6 +475,31 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  // Layout of tune passage divb-01: a "Test" column naming each row's test and a "Statistic" column whose cells
+  // write the df after the value, re-rendered one cell per line.
+  it('reads a column of tests beside a "Statistic" column whose cells write their df ("4.12, df = 88.5"), one cell per line (real corpus divb-01)', () => {
+    const rows = [
+      ['Factor', 'Hypothesis', 'Test', 'Statistic', 'n', 'p-Value'],
+      ['Boldness', 'Older birds bolder', 'correlation', '0.21', '152', '0.009'],
+      ['Younger birds less bold', 't-test', '4.12, df = 88.5', '150', '<0.001', ''],
+      ['Birds kept alone bolder', 't-test', '−2.64, df = 120.3', '149', '0.009', ''],
+      ['Calls', 'Louder birds call more', 'correlation', '−0.18', '98', '0.076', ''],
+    ];
+    for (const [layout, render] of [
+      ['one cell per line', (cells: string[][]) => cells.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n')],
+      ['consecutive lines', (cells: string[][]) => cells.map((row) => row.join('\n')).join('\n')],
+    ] as const) {
+      const document = scanTextJson(`Table 3.\n\n${render(rows)}\n\nNote. Made-up values.\n`);
+      // (A correlation's df follow from its row's n, n - 2.)
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value]), layout).toEqual([
+        ['r', 0.21, [150], 0.009],
+        ['t', 4.12, [88.5], 0.001],
+        ['t', -2.64, [120.3], 0.009],
+        ['r', -0.18, [96], 0.076],
+      ]);
+    }
+  });
+
   it('reads a table copied one cell per line on consecutive lines, its empty cells empty lines', () => {
     const lines = [
       'Table 3. Repeated measures analysis of the scores',
