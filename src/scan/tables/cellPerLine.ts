@@ -138,7 +138,16 @@ function captionOf(lines: Line[], titleLine: number, titled: boolean, firstCell:
   return { caption, correlations: SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText) };
 }
 
+/**
+ * The table whose cells follow `titleLine`; under a title that says correlations, read as a grid of variables when
+ * a known column name among the variables' names ("Test", "Age") starts a header that reads no table.
+ */
 function readCells(lines: Line[], titleLine: number, title: Line, titled: boolean): CellPerLineTable | null {
+  return readCellsAs(lines, titleLine, title, titled, false) ?? readCellsAs(lines, titleLine, title, titled, true);
+}
+
+/** The table after `titleLine`, its header found from a known column name, or (`asGrid`, under a title that says correlations) as a grid's. */
+function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: boolean, asGrid: boolean): CellPerLineTable | null {
   // Whether a table starts here is decided by the cells of the lines the header may start on: without a column
   // name there, and without a title that says correlations, there is none, and the cells after (up to
   // MAX_BODY_CELLS of prose, to the next title) are not collected. (Their first cells are the same either way:
@@ -151,6 +160,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // (Under a title that says correlations, the grid's columns are named by no known name: empty lines among its first
   // cells are cells too, a copy's empty header cells, "Non-shift workers (n = 1,966)" / "" / "" / "Exhaustion".)
   const saysCorrelations = captionOf(lines, titleLine, titled, headFirstCell).correlations;
+  // (A grid is read a second time only under such a title, and only when the first reading found no table.)
+  if (asGrid && !saysCorrelations) return null;
   // Outside correlations, a header starts within MAX_CELLS_TO_HEADER cells with text and ends at a value within
   // MAX_HEADER_CELLS more: without a value among that many cells there is no table, and the cells after are not
   // collected (a text of short lines, every one a column's name, "F" / "P" / "F" / …, would be read up to
@@ -165,7 +176,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const firstCell = cells.find((cell) => !cell.empty);
   const { caption, correlations } = captionOf(lines, titleLine, titled, firstCell);
   // (A numbered matrix's label header, "Variables", may read as a column name; its numbers decide.)
-  const grid = correlations ? (numberedHeader(cells) ?? (first === -1 ? gridHeader(cells, titleLine) : null)) : null;
+  const grid = correlations ? (numberedHeader(cells) ?? (first === -1 || asGrid ? gridHeader(cells, titleLine) : null)) : null;
+  if (asGrid && grid === null) return null;
   if (first === -1 && grid === null) return null;
   if (grid !== null) first = grid.first;
   let firstValue = first;
