@@ -375,10 +375,13 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
     const line = lines[index]!;
     const inner = stripPipes(line.text);
     if (inner === null) {
-      if (blankRun === 0 && adjacentCells >= MIN_ADJACENT_CELLS && adjacentCells > 3 * separatedCells) {
+      if (blankRun === 0 && adjacentCells >= 1 && adjacentCells > 3 * separatedCells) {
         const run = emptyCellLines(lines, index);
+        // (After one pair of cells on consecutive lines, a header row's first cells "Means" / "Paired differences",
+        // its empty cells are empty lines when a column's name follows on consecutive lines: the copy goes on so.)
+        const namesFollow = run > 0 && namesOnConsecutiveLines(lines, index + run);
         // (Only in the header's rows and after them: a caption's blank lines are not cells.)
-        if (run > 0 && (headerSeen || correlations || isColumnName(lines[index + run]!.text.trim()))) {
+        if (run > 0 && (adjacentCells >= MIN_ADJACENT_CELLS || namesFollow) && (headerSeen || correlations || namesFollow || isColumnName(lines[index + run]!.text.trim()))) {
           for (let offset = 0; offset < run; offset++) cells.push({ text: '', start: lines[index + offset]!.start, end: lines[index + offset]!.start, line: index + offset, empty: true });
           tailEmpties = { at: cells.length - run, run };
           index += run - 1;
@@ -930,6 +933,25 @@ function emptyCellLines(lines: Line[], index: number): number {
   if (run > MAX_EMPTY_LINES) return 0;
   const next = lines[index + run];
   return next !== undefined && next.text.trim() !== '' && next.text.trim().length <= MAX_CELL_LENGTH ? run : 0;
+}
+
+/** Lines looked at, on consecutive lines from a run of empty lines' end, for a column's name. */
+const NAME_LOOKAHEAD = 8;
+
+/**
+ * Whether the lines from `index` are cells on consecutive lines, at least MIN_ADJACENT_CELLS + 1 of them before a
+ * blank line, one of the first NAME_LOOKAHEAD a known column's name.
+ */
+function namesOnConsecutiveLines(lines: Line[], index: number): boolean {
+  let named = false;
+  let count = 0;
+  for (let at = index; at < lines.length && count < NAME_LOOKAHEAD; at++) {
+    const text = lines[at]!.text.trim();
+    if (text === '' || text.length > MAX_CELL_LENGTH) break;
+    count++;
+    named ||= isColumnName(text);
+  }
+  return named && count > MIN_ADJACENT_CELLS;
 }
 
 /** The number of blank lines right before line `index`. */
