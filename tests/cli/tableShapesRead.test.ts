@@ -500,6 +500,24 @@ describe('results tables in the shapes papers print them', () => {
     }
   });
 
+  // Layout of tune passage divn-08: an upper header row of two group titles and six empty cells over the columns'
+  // names, copied on consecutive lines (its empty cells empty lines).
+  it('reads a table on consecutive lines whose upper header row holds two titles and then empty cells (real corpus divn-08)', () => {
+    const rows = [
+      ['Means', 'Paired differences', '', '', '', '', '', ''],
+      ['Outdoors', 'Indoors', 'Mean', 'Std. dev.', 't-value', 'df', 'Effect size', ''],
+      ['Teacher ratings', '1.20', '0.05', '1.15', '1.79', '2.88', '19', '0.74'],
+      ['Student ratings', '81.01', '79.27', '1.74', '6.56', '1.18', '19', '0.60'],
+      ['Redirects', '3.10', '5.70', '−2.60', '2.62', '4.43', '19', '0.84'],
+    ];
+    const document = scanTextJson(`Table 4.\n${rows.map((row) => row.join('\n')).join('\n')}\nNote. Made-up values.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['t', 2.88, [19]],
+      ['t', 1.18, [19]],
+      ['t', 4.43, [19]],
+    ]);
+  });
+
   it('reads a table copied one cell per line on consecutive lines, its empty cells empty lines', () => {
     const lines = [
       'Table 3. Repeated measures analysis of the scores',
