@@ -324,6 +324,24 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
     let end = index;
     while (end < body.length && isValueCell(body[end]!)) end++;
     const values = body.slice(index, end);
+    // A header printed again partway down under other names ("(x̄ ± s)" / "(x̄ ± s)" / "(x̄ ± s)" / "t" / "p"): a
+    // header row of its own, before the next row's label, or closing with empty cells when none follows.
+    const onlyEmpty = values.every((value) => value.empty);
+    const innerHeader = grid === null ? innerHeaderBefore(pendingText, onlyEmpty ? 0 : labelCount, valueCount) : null;
+    if (innerHeader !== null) {
+      const before = pendingText.slice(0, pendingText.indexOf(innerHeader[0]!));
+      if (before.length > 0) {
+        rows.push([before.map((text) => text.text).join(' ')]);
+        spans.push([spanOf(before)]);
+      }
+      rows.push(['', ...innerHeader.map((name) => name.text)]);
+      spans.push([null, ...innerHeader.map(spanOf1)]);
+      pendingText = pendingText.slice(pendingText.indexOf(innerHeader[innerHeader.length - 1]!) + 1);
+      if (onlyEmpty) {
+        index = end;
+        continue;
+      }
+    }
     const label = pendingText.slice(-labelCount);
     const section = pendingText.slice(0, pendingText.length - label.length);
     if (section.length > 0) {
@@ -466,6 +484,17 @@ function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
   const roles = valueNames.map((cell) => classifyHeader(cell.text));
   const fullRuns = valueRuns(body).filter((run) => filledLength(run) === valueNames.length + missing);
   return fullRuns.length > 0 && fullRuns.every((run) => roles.every((role, column) => fit(role, shapeOf(run[column]!.text)) > 0)) ? names : null;
+}
+
+/**
+ * The `valueCount` text cells before the last `labelCount` of `pending` when they name the columns again, a
+ * statistic's name and a p's among them ("(x̄ ± s)" / "(x̄ ± s)" / "(x̄ ± s)" / "t" / "p"); null otherwise.
+ */
+function innerHeaderBefore(pending: Cell[], labelCount: number, valueCount: number): Cell[] | null {
+  if (valueCount < 2 || pending.length < valueCount + labelCount) return null;
+  const names = pending.slice(pending.length - labelCount - valueCount, pending.length - labelCount);
+  const roles = names.map((cell) => classifyHeader(cell.text).role);
+  return roles.includes('statistic') && roles.includes('p') && names.every((cell) => cell.text.length <= MAX_UNNAMED_COLUMN) ? names : null;
 }
 
 /** Times a cell must stand right before a row's values, after the first row, to be a row's cell rather than a header's. */
