@@ -518,6 +518,28 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  // Layout of tune passage dvze-05: counts with a chi-square column, then the header printed again partway down
+  // ("(x̄ ± s)" ... "t" / "p") over rows of means ± SD, re-rendered one cell per line.
+  it('reads a header printed again partway down under other names as the header of the rows under it, one cell per line (real corpus dvze-05)', () => {
+    const rows = [
+      ['Assessment', 'All', 'Group A', 'Group B', 'χ2', 'p'],
+      ['Smoking', '73 (8.9)', '32 (8.0)', '41 (9.7)', '0.75', '0.390'],
+      ['Drinking', '84 (10.2)', '41 (10.3)', '43 (10.2)', '0.003', '0.958'],
+      ['(x̄ ± s)', '(x̄ ± s)', '(x̄ ± s)', 't', 'p', ''],
+      ['Distress', '76.89 ± 21.42', '74.33 ± 22.60', '79.10 ± 20.11', '−3.56', '<0.001'],
+      ['Hope', '37.05 ± 30.67', '41.09 ± 31.36', '33.56 ± 29.65', '3.84', '<0.001'],
+    ];
+    const table = rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n');
+    const document = scanTextJson(`Table 3.\nComparison of the two groups.\n\n${table}\n\nNote. Made-up values.\n`);
+    // (Before, the repeated header was read as a section and a row labelled "p", and its rows under "χ2".)
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([
+      ['chi2', 0.75, 0.39],
+      ['chi2', 0.003, 0.958],
+      ['t', -3.56, 0.001],
+      ['t', 3.84, 0.001],
+    ]);
+  });
+
   it('reads a table copied one cell per line on consecutive lines, its empty cells empty lines', () => {
     const lines = [
       'Table 3. Repeated measures analysis of the scores',
