@@ -181,4 +181,30 @@ describe('correlation matrices in other common layouts, from the command line', 
       ]);
     }
   });
+  // Layout of tune passage divn-07: side-by-side blocks of correlations under a title that says so, whose variables
+  // include "Test" (a known column name elsewhere), with empty cells as empty lines or spaces.
+  it('reads side-by-side blocks of correlations whose variables include a known column name ("Test"), one cell per line and on consecutive lines (real corpus divn-07)', () => {
+    const rows = [
+      ['Single scales', 'Component scales', '', '', '', ''],
+      ['STAI', 'TAI', 'WA', 'Trait', 'Test', 'Writing', '', ''],
+      ['STAI', '–', '0.50', '−0.26', 'Trait', '–', '0.57', '−0.16'],
+      ['TAI', '–', '−0.41', 'Test', '–', '−0.25', '', ''],
+      ['WA', '–', 'Writing', '–', '', '', '', ''],
+    ];
+    for (const [layout, body] of [
+      ['consecutive lines', rows.map((row) => row.join('\n')).join('\n')],
+      ['one cell per line', rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n')],
+    ] as const) {
+      const document = scanTextJson(`Table 4.\nCorrelations between the anxiety scales.\n${body}\nNote. Correlations in the test sample (N = 280).\n`);
+      // (Each r with df N − 2 from the note's sample size.)
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]), layout).toEqual([
+        ['r', 0.5, [278]],
+        ['r', -0.26, [278]],
+        ['r', 0.57, [278]],
+        ['r', -0.16, [278]],
+        ['r', -0.41, [278]],
+        ['r', -0.25, [278]],
+      ]);
+    }
+  });
 });

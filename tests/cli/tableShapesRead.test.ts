@@ -430,6 +430,116 @@ describe('results tables in the shapes papers print them', () => {
     ]);
   });
 
+  // Layout of tune passages dvzi-01 (a title cell over "df" / "F" / "p", rows padded with two empty cells) and
+  // dvzd-03 (groups over "F" / "Sig." printed three times, rows padded with one or two), re-rendered one cell per line.
+  it('reads rows padded with empty cells past the last named column, one cell per line and on consecutive lines (real corpus dvzi-01, dvzd-03)', () => {
+    const padded = [
+      ['Table 2. Analysis of the ratings'],
+      ['Ratings (first block)', '', '', '', '', ''],
+      ['df', 'F', 'p', '', '', ''],
+      ['Group', '1.23', '16.91', '.001', '', ''],
+      ['Time', '2.46', '8.02', '.002', '', ''],
+      ['Group × Time', '2.46', '3.58', '.03', '', ''],
+    ];
+    const blocks = [
+      ['Table 3. Two-way ANOVA of the yields'],
+      ['Parameters', 'S', 'C', 'S*C', '', '', '', '', ''],
+      ['F', 'Sig.', 'F', 'Sig.', 'F', 'Sig.', '', '', ''],
+      ['Yield', '5.819', '0.028', '5.669', '0.008', '24.382', '0.000', ''],
+      ['Height', '37.266', '0.000', '2.716', '0.079', '5.100', '0.011', '', ''],
+      ['Weight', '0.629', '0.439', '5.192', '0.011', '0.774', '0.525', '', ''],
+    ];
+    for (const [layout, render] of [
+      ['one cell per line', (rows: string[][]) => rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n')],
+      ['consecutive lines', (rows: string[][]) => rows.map((row) => row.join('\n')).join('\n')],
+    ] as const) {
+      const first = scanTextJson(`${render(padded)}\n\nNote. Made-up values.\n`);
+      expect(readAs(first.statistics), layout).toEqual([
+        ['F', 16.91, [1, 23]],
+        ['F', 8.02, [2, 46]],
+        ['F', 3.58, [2, 46]],
+      ]);
+      const second = scanTextJson(`${render(blocks)}\n\nNote. Made-up values.\n`);
+      // (Counted, the padding made the rows eight values wide, and the header's names fell on the wrong columns.)
+      expect(second.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value]), layout).toEqual([
+        ['F', 5.819, 0.028],
+        ['F', 5.669, 0.008],
+        ['F', 24.382, 0],
+        ['F', 37.266, 0],
+        ['F', 2.716, 0.079],
+        ['F', 5.1, 0.011],
+        ['F', 0.629, 0.439],
+        ['F', 5.192, 0.011],
+        ['F', 0.774, 0.525],
+      ]);
+    }
+  });
+
+  // Layout of tune passage divb-01: a "Test" column naming each row's test and a "Statistic" column whose cells
+  // write the df after the value, re-rendered one cell per line.
+  it('reads a column of tests beside a "Statistic" column whose cells write their df ("4.12, df = 88.5"), one cell per line (real corpus divb-01)', () => {
+    const rows = [
+      ['Factor', 'Hypothesis', 'Test', 'Statistic', 'n', 'p-Value'],
+      ['Boldness', 'Older birds bolder', 'correlation', '0.21', '152', '0.009'],
+      ['Younger birds less bold', 't-test', '4.12, df = 88.5', '150', '<0.001', ''],
+      ['Birds kept alone bolder', 't-test', '−2.64, df = 120.3', '149', '0.009', ''],
+      ['Calls', 'Louder birds call more', 'correlation', '−0.18', '98', '0.076', ''],
+    ];
+    for (const [layout, render] of [
+      ['one cell per line', (cells: string[][]) => cells.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n')],
+      ['consecutive lines', (cells: string[][]) => cells.map((row) => row.join('\n')).join('\n')],
+    ] as const) {
+      const document = scanTextJson(`Table 3.\n\n${render(rows)}\n\nNote. Made-up values.\n`);
+      // (A correlation's df follow from its row's n, n - 2.)
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.value]), layout).toEqual([
+        ['r', 0.21, [150], 0.009],
+        ['t', 4.12, [88.5], 0.001],
+        ['t', -2.64, [120.3], 0.009],
+        ['r', -0.18, [96], 0.076],
+      ]);
+    }
+  });
+
+  // Layout of tune passage divn-08: an upper header row of two group titles and six empty cells over the columns'
+  // names, copied on consecutive lines (its empty cells empty lines).
+  it('reads a table on consecutive lines whose upper header row holds two titles and then empty cells (real corpus divn-08)', () => {
+    const rows = [
+      ['Means', 'Paired differences', '', '', '', '', '', ''],
+      ['Outdoors', 'Indoors', 'Mean', 'Std. dev.', 't-value', 'df', 'Effect size', ''],
+      ['Teacher ratings', '1.20', '0.05', '1.15', '1.79', '2.88', '19', '0.74'],
+      ['Student ratings', '81.01', '79.27', '1.74', '6.56', '1.18', '19', '0.60'],
+      ['Redirects', '3.10', '5.70', '−2.60', '2.62', '4.43', '19', '0.84'],
+    ];
+    const document = scanTextJson(`Table 4.\n${rows.map((row) => row.join('\n')).join('\n')}\nNote. Made-up values.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['t', 2.88, [19]],
+      ['t', 1.18, [19]],
+      ['t', 4.43, [19]],
+    ]);
+  });
+
+  // Layout of tune passage dvze-05: counts with a chi-square column, then the header printed again partway down
+  // ("(x̄ ± s)" ... "t" / "p") over rows of means ± SD, re-rendered one cell per line.
+  it('reads a header printed again partway down under other names as the header of the rows under it, one cell per line (real corpus dvze-05)', () => {
+    const rows = [
+      ['Assessment', 'All', 'Group A', 'Group B', 'χ2', 'p'],
+      ['Smoking', '73 (8.9)', '32 (8.0)', '41 (9.7)', '0.75', '0.390'],
+      ['Drinking', '84 (10.2)', '41 (10.3)', '43 (10.2)', '0.003', '0.958'],
+      ['(x̄ ± s)', '(x̄ ± s)', '(x̄ ± s)', 't', 'p', ''],
+      ['Distress', '76.89 ± 21.42', '74.33 ± 22.60', '79.10 ± 20.11', '−3.56', '<0.001'],
+      ['Hope', '37.05 ± 30.67', '41.09 ± 31.36', '33.56 ± 29.65', '3.84', '<0.001'],
+    ];
+    const table = rows.map((row) => row.map((cell) => (cell === '' ? ' ' : cell)).join('\n\n')).join('\n\n');
+    const document = scanTextJson(`Table 3.\nComparison of the two groups.\n\n${table}\n\nNote. Made-up values.\n`);
+    // (Before, the repeated header was read as a section and a row labelled "p", and its rows under "χ2".)
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value])).toEqual([
+      ['chi2', 0.75, 0.39],
+      ['chi2', 0.003, 0.958],
+      ['t', -3.56, 0.001],
+      ['t', 3.84, 0.001],
+    ]);
+  });
+
   it('reads a table copied one cell per line on consecutive lines, its empty cells empty lines', () => {
     const lines = [
       'Table 3. Repeated measures analysis of the scores',

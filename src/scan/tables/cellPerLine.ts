@@ -27,7 +27,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, NAMES_TEST_COLUMN, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
 import { fit, shapeOf } from './align.js';
 
 type Line = TextLine;
@@ -138,7 +138,16 @@ function captionOf(lines: Line[], titleLine: number, titled: boolean, firstCell:
   return { caption, correlations: SAYS_CORRELATIONS.test(titleText) && !OTHER_CORRELATIONS.test(titleText) };
 }
 
+/**
+ * The table whose cells follow `titleLine`; under a title that says correlations, read as a grid of variables when
+ * a known column name among the variables' names ("Test", "Age") starts a header that reads no table.
+ */
 function readCells(lines: Line[], titleLine: number, title: Line, titled: boolean): CellPerLineTable | null {
+  return readCellsAs(lines, titleLine, title, titled, false) ?? readCellsAs(lines, titleLine, title, titled, true);
+}
+
+/** The table after `titleLine`, its header found from a known column name, or (`asGrid`, under a title that says correlations) as a grid's. */
+function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: boolean, asGrid: boolean): CellPerLineTable | null {
   // Whether a table starts here is decided by the cells of the lines the header may start on: without a column
   // name there, and without a title that says correlations, there is none, and the cells after (up to
   // MAX_BODY_CELLS of prose, to the next title) are not collected. (Their first cells are the same either way:
@@ -151,6 +160,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // (Under a title that says correlations, the grid's columns are named by no known name: empty lines among its first
   // cells are cells too, a copy's empty header cells, "Non-shift workers (n = 1,966)" / "" / "" / "Exhaustion".)
   const saysCorrelations = captionOf(lines, titleLine, titled, headFirstCell).correlations;
+  // (A grid is read a second time only under such a title, and only when the first reading found no table.)
+  if (asGrid && !saysCorrelations) return null;
   // Outside correlations, a header starts within MAX_CELLS_TO_HEADER cells with text and ends at a value within
   // MAX_HEADER_CELLS more: without a value among that many cells there is no table, and the cells after are not
   // collected (a text of short lines, every one a column's name, "F" / "P" / "F" / …, would be read up to
@@ -165,7 +176,8 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   const firstCell = cells.find((cell) => !cell.empty);
   const { caption, correlations } = captionOf(lines, titleLine, titled, firstCell);
   // (A numbered matrix's label header, "Variables", may read as a column name; its numbers decide.)
-  const grid = correlations ? (numberedHeader(cells) ?? (first === -1 ? gridHeader(cells, titleLine) : null)) : null;
+  const grid = correlations ? (numberedHeader(cells) ?? (first === -1 || asGrid ? gridHeader(cells, titleLine) : null)) : null;
+  if (asGrid && grid === null) return null;
   if (first === -1 && grid === null) return null;
   if (grid !== null) first = grid.first;
   let firstValue = first;
@@ -178,7 +190,13 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   if (firstValue >= cells.length || headerCells >= MAX_HEADER_CELLS) return null;
   // The header ends with its last column name; text cells after it are the first row's label.
   let bodyStart = grid?.bodyStart ?? firstValue;
-  if (grid === null) while (bodyStart > first && !isColumnName(cells[bodyStart - 1]!.text)) bodyStart--;
+  // (Under a header naming a column of tests, "Test", a test's name that stands before the value in row after row,
+  // "t-test" / "4.95, df = 4254.7", is the first row's cell, not the header's. Only there: elsewhere a name that
+  // recurs before values, "Wald χ2" / "1.240", is a header repeated over a block of rows.)
+  const namesTests = grid === null && cells.slice(first, firstValue).some((cell) => !cell.empty && NAMES_TEST_COLUMN.test(cell.text));
+  const namesBeforeRows = namesTests ? cellsBeforeValueRuns(cells.slice(firstValue)) : new Map<string, number>();
+  const recurs = (cell: Cell): boolean => (namesBeforeRows.get(headerKey(cell.text)) ?? 0) >= MIN_RECURRING_ROW_CELL;
+  if (grid === null) while (bodyStart > first && (!isColumnName(cells[bodyStart - 1]!.text) || recurs(cells[bodyStart - 1]!))) bodyStart--;
   let body = grid !== null && 'numberApart' in grid && grid.numberApart === true ? joinRowNumbers(cells.slice(bodyStart)) : cells.slice(bodyStart);
   // The value columns: when rows have as many values as the header has cells after its label headers, every one
   // of those cells names a column, known or not ("Baseline", "12 weeks", "F(1, 66), p"); otherwise the known names.
@@ -191,6 +209,10 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // Rows under a spanned first column ("Soil depth" over "WSMacA", "MWD", ...) copied with an empty cell at the
   // end of each row but the first: those empty cells are the spanned column's, shifted, not a value column's.
   if (grid === null) body = withoutSpanShiftedEmpties(body, headerRun);
+  // Rows padded with empty cells past the last column the header names ("NP" / "1.23" / "16.91" / "***" / "" / ""):
+  // a web page's row shorter than its widest row, copied cell by cell. They are no values: counted, they make the
+  // rows wider than the header, whose names then land on the wrong columns.
+  if (grid === null) body = withoutPaddingEmpties(body, headerRun);
   const typical = typicalValueCount(body);
   const widest = widestValueCount(body);
   const blocksAlike = grid === null && widest > typical && headerRun.length === widest && repeatsBlock(headerRun.map((cell) => headerKey(cell.text)), typical);
@@ -265,7 +287,9 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
   // Label headers: a label name starting the header ("Source"), or the text cells right before the first column name.
   const startsWithLabel = grid === null && classifyHeader(cells[first]!.text).role === 'label';
   // (In a grid, a group's title that states its size, "Night workers (n = 1,223)", heads its columns, not the labels.)
-  const labelHeaders = startsWithLabel ? [cells[first]!] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
+  // (A column of tests' name, "Test", between the label's and the values' names heads label cells too.)
+  const testColumn = startsWithLabel ? cells.slice(first + 1, bodyStart).filter((cell) => !cell.empty && NAMES_TEST_COLUMN.test(cell.text) && !names.includes(cell)) : [];
+  const labelHeaders = startsWithLabel ? [cells[first]!, ...testColumn] : cells.slice(Math.max(0, first - labelCount), first).filter((cell) => !isValueCell(cell) && !(grid !== null && GROUP_SIZE.test(cell.text)));
   const rows: string[][] = [[labelHeaders.map((cell) => cell.text).join(' / '), ...names.map((cell) => cell.text)]];
   const spans: (CellSpan | null)[][] = [[spanOf(labelHeaders), ...names.map(spanOf1)]];
   if (twoLevel !== null) {
@@ -300,6 +324,24 @@ function readCells(lines: Line[], titleLine: number, title: Line, titled: boolea
     let end = index;
     while (end < body.length && isValueCell(body[end]!)) end++;
     const values = body.slice(index, end);
+    // A header printed again partway down under other names ("(x̄ ± s)" / "(x̄ ± s)" / "(x̄ ± s)" / "t" / "p"): a
+    // header row of its own, before the next row's label, or closing with empty cells when none follows.
+    const onlyEmpty = values.every((value) => value.empty);
+    const innerHeader = grid === null ? innerHeaderBefore(pendingText, onlyEmpty ? 0 : labelCount, valueCount) : null;
+    if (innerHeader !== null) {
+      const before = pendingText.slice(0, pendingText.indexOf(innerHeader[0]!));
+      if (before.length > 0) {
+        rows.push([before.map((text) => text.text).join(' ')]);
+        spans.push([spanOf(before)]);
+      }
+      rows.push(['', ...innerHeader.map((name) => name.text)]);
+      spans.push([null, ...innerHeader.map(spanOf1)]);
+      pendingText = pendingText.slice(pendingText.indexOf(innerHeader[innerHeader.length - 1]!) + 1);
+      if (onlyEmpty) {
+        index = end;
+        continue;
+      }
+    }
     const label = pendingText.slice(-labelCount);
     const section = pendingText.slice(0, pendingText.length - label.length);
     if (section.length > 0) {
@@ -351,10 +393,13 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
     const line = lines[index]!;
     const inner = stripPipes(line.text);
     if (inner === null) {
-      if (blankRun === 0 && adjacentCells >= MIN_ADJACENT_CELLS && adjacentCells > 3 * separatedCells) {
+      if (blankRun === 0 && adjacentCells >= 1 && adjacentCells > 3 * separatedCells) {
         const run = emptyCellLines(lines, index);
+        // (After one pair of cells on consecutive lines, a header row's first cells "Means" / "Paired differences",
+        // its empty cells are empty lines when a column's name follows on consecutive lines: the copy goes on so.)
+        const namesFollow = run > 0 && namesOnConsecutiveLines(lines, index + run);
         // (Only in the header's rows and after them: a caption's blank lines are not cells.)
-        if (run > 0 && (headerSeen || correlations || isColumnName(lines[index + run]!.text.trim()))) {
+        if (run > 0 && (adjacentCells >= MIN_ADJACENT_CELLS || namesFollow) && (headerSeen || correlations || namesFollow || isColumnName(lines[index + run]!.text.trim()))) {
           for (let offset = 0; offset < run; offset++) cells.push({ text: '', start: lines[index + offset]!.start, end: lines[index + offset]!.start, line: index + offset, empty: true });
           tailEmpties = { at: cells.length - run, run };
           index += run - 1;
@@ -439,6 +484,32 @@ function unnamedColumnsAfter(body: Cell[], headerRun: Cell[]): Cell[] | null {
   const roles = valueNames.map((cell) => classifyHeader(cell.text));
   const fullRuns = valueRuns(body).filter((run) => filledLength(run) === valueNames.length + missing);
   return fullRuns.length > 0 && fullRuns.every((run) => roles.every((role, column) => fit(role, shapeOf(run[column]!.text)) > 0)) ? names : null;
+}
+
+/**
+ * The `valueCount` text cells before the last `labelCount` of `pending` when they name the columns again, a
+ * statistic's name and a p's among them ("(x̄ ± s)" / "(x̄ ± s)" / "(x̄ ± s)" / "t" / "p"); null otherwise.
+ */
+function innerHeaderBefore(pending: Cell[], labelCount: number, valueCount: number): Cell[] | null {
+  if (valueCount < 2 || pending.length < valueCount + labelCount) return null;
+  const names = pending.slice(pending.length - labelCount - valueCount, pending.length - labelCount);
+  const roles = names.map((cell) => classifyHeader(cell.text).role);
+  return roles.includes('statistic') && roles.includes('p') && names.every((cell) => cell.text.length <= MAX_UNNAMED_COLUMN) ? names : null;
+}
+
+/** Times a cell must stand right before a row's values, after the first row, to be a row's cell rather than a header's. */
+const MIN_RECURRING_ROW_CELL = 2;
+
+/** How often each text (by its header key) stands right before a run of values in `body`, the first run's excepted. */
+function cellsBeforeValueRuns(body: Cell[]): Map<string, number> {
+  const counts = new Map<string, number>();
+  for (const { start } of valueRunBounds(body)) {
+    const before = body[start - 1];
+    if (before === undefined || before.empty) continue;
+    const key = headerKey(before.text);
+    counts.set(key, (counts.get(key) ?? 0) + 1);
+  }
+  return counts;
 }
 
 /** The runs of value cells (a row's values) in `cells`. */
@@ -680,8 +751,13 @@ function stripPipes(text: string): { text: string; offset: number } | null {
   return { text: text.slice(start, end), offset: start };
 }
 
+/** A statistic with its df written into its cell: "4.95, df = 4254.7", "−7.63; df = 346.02". */
+const STATISTIC_WITH_DF = /^(?:[-\u2212\u2013] ?)?(?:\d{1,6}(?:\.\d{1,4})?|\.\d{1,4}) ?[,;] ?df ?= ?\d{1,6}(?:\.\d{1,3})?(?: ?, ?\d{1,6}(?:\.\d{1,3})?)?$/i;
+
 function isValueCell(cell: Cell): boolean {
   if (cell.empty) return true;
+  // (A "Statistic" column's cell that writes the df after the value is the row's value, not more of its label.)
+  if (STATISTIC_WITH_DF.test(cell.text)) return true;
   // A lone letter that names a column ("d", "z", "p") is a header cell, not a footnote mark.
   if (cell.text.length <= 2 && isColumnName(cell.text)) return false;
   // A footnote letter set apart after the value and its stars ("-.51* a") belongs to the value.
@@ -762,6 +838,42 @@ function withoutSpanShiftedEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
     index = end;
   }
   return typicalValueCount(kept) === valueNames ? kept : body;
+}
+
+/**
+ * The body without the empty cells that pad rows past their last filled value, when no row fills a cell there
+ * and the header ends in exactly as many names of value columns as rows fill (the cell before them names no
+ * value column, or the names are one block printed again, "F" / "Sig." / "F" / "Sig.", that the cell before is
+ * not part of); the body unchanged otherwise. (A column the header names but no row fills, "F" / "p" / "η2" over
+ * rows of two values, keeps its empty cells: the names then outnumber the filled values by one known name.)
+ */
+function withoutPaddingEmpties(body: Cell[], headerRun: Cell[]): Cell[] {
+  const filled = typicalFilledValues(body);
+  if (filled < 2 || typicalValueCount(body) <= filled || headerRun.length < filled) return body;
+  const runs = valueRunBounds(body);
+  if (runs.some(({ start, end }) => filledLength(body.slice(start, end)) > filled)) return body;
+  const names = headerRun.slice(headerRun.length - filled);
+  if (!names.every((cell) => isValueColumnName(cell.text))) return body;
+  const before = headerRun[headerRun.length - filled - 1];
+  if (before !== undefined && isValueColumnName(before.text) && !endsRepeatedBlock(names, before)) return body;
+  const padding = new Set<number>();
+  for (const { start, end } of runs) for (let at = start + filled; at < end; at++) padding.add(at);
+  const kept = body.filter((_, at) => !padding.has(at));
+  return typicalValueCount(kept) === filled ? kept : body;
+}
+
+/** A known name of a value column: not a label's, not unknown. */
+function isValueColumnName(text: string): boolean {
+  return isColumnName(text) && !['label', 'unknown'].includes(classifyHeader(text).role);
+}
+
+/** Whether `names` are one block of names printed again and again, and `before` is none of the block's names. */
+function endsRepeatedBlock(names: Cell[], before: Cell): boolean {
+  const keys = names.map((cell) => headerKey(cell.text));
+  for (let size = 1; size * 2 <= keys.length; size++) {
+    if (repeatsBlock(keys, size)) return !keys.slice(0, size).includes(headerKey(before.text));
+  }
+  return false;
 }
 
 /**
@@ -850,6 +962,25 @@ function emptyCellLines(lines: Line[], index: number): number {
   if (run > MAX_EMPTY_LINES) return 0;
   const next = lines[index + run];
   return next !== undefined && next.text.trim() !== '' && next.text.trim().length <= MAX_CELL_LENGTH ? run : 0;
+}
+
+/** Lines looked at, on consecutive lines from a run of empty lines' end, for a column's name. */
+const NAME_LOOKAHEAD = 8;
+
+/**
+ * Whether the lines from `index` are cells on consecutive lines, at least MIN_ADJACENT_CELLS + 1 of them before a
+ * blank line, one of the first NAME_LOOKAHEAD a known column's name.
+ */
+function namesOnConsecutiveLines(lines: Line[], index: number): boolean {
+  let named = false;
+  let count = 0;
+  for (let at = index; at < lines.length && count < NAME_LOOKAHEAD; at++) {
+    const text = lines[at]!.text.trim();
+    if (text === '' || text.length > MAX_CELL_LENGTH) break;
+    count++;
+    named ||= isColumnName(text);
+  }
+  return named && count > MIN_ADJACENT_CELLS;
 }
 
 /** The number of blank lines right before line `index`. */

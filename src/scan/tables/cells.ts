@@ -633,6 +633,9 @@ export const ERROR_LABEL =
 /** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
 export const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 
+/** A header cell naming a column of tests: "Test", "Test Statistic" (a crushed copy's "Test" and "Statistic" as one). */
+export const NAMES_TEST_COLUMN = /^\s*tests?(?:\s+statistics?)?\s*$/i;
+
 export const TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?(?=[.:\s|]|$)/;
 /** A title line with nothing after the number: the title proper follows on the next line. */
 export const BARE_TABLE_TITLE = /^\s{0,8}(?:#{1,6}\s{1,3}|>\s{0,3}|[-*\u2022]\s{1,3})?(?:\*\*|_)?(?:(?:Supplementary|Supplemental|SUPPLEMENTARY|Suppl\.|Appendix|Online) )?(?:Table|TABLE|Tabla|TABLA|Tabela|TABELA|Tableau|TABLEAU|Tabelle|TABELLE|Tab\.)\s+(?:[A-Z]?\d{1,3}[A-Za-z]?|[IVX]{1,5}(?![A-Za-z]))\.?(?:\*\*|_)?\s*$/;

@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readWrittenCorrelations } from './writtenCorrelations.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
@@ -431,8 +431,11 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
   });
   if (kind === undefined && roles.some((role) => role.role === 'result')) {
     // A "Test" column naming each row's test and a "Statistic" column holding its value ("t-test | 4.95, df = 4254.7").
-    // (Crushed, a "Test" column's name may end each row's label: only where the header names that column.)
-    const testEndsLabel = table.layout === 'crushed' && rows.slice(0, headerCount).some((row) => row.some((cell) => NAMES_TEST_COLUMN.test(cell)));
+    // (Crushed, a "Test" column's name may end each row's label: only where the header names that column. One cell
+    // per line, the row's label cells are joined into one, the test's last; the label column's header names its
+    // columns apart by " / ", "Factor / Test".)
+    const namesTestColumn = (cell: string): boolean => NAMES_TEST_COLUMN.test(cell) || (table.layout === 'cell-per-line' && NAMES_TEST_COLUMN.test(cell.split(' / ').pop()!));
+    const testEndsLabel = (table.layout === 'crushed' || table.layout === 'cell-per-line') && rows.slice(0, headerCount).some((row) => row.some(namesTestColumn));
     const perRow = readTestPerRow(text, table, tableIndex, rows.slice(headerCount), located.slice(headerCount), testEndsLabel);
     if (perRow.length > 0) return { results: perRow, unread: null, completions };
     // A "Statistic (df)" or "Value (df)" column whose test each row's section ("Chi-square test") or footnote
@@ -688,9 +691,6 @@ function testKindEnding(label: string): StatisticKind | null {
   const lastWord = /\s(\S{1,20})$/.exec(label.trim())?.[1];
   return lastWord === undefined ? null : testKindOf(lastWord);
 }
-
-/** A header cell naming a column of tests: "Test", "Test Statistic" (a crushed copy's "Test" and "Statistic" as one). */
-const NAMES_TEST_COLUMN = /^\s*tests?(?:\s+statistics?)?\s*$/i;
 
 /** "4.95, df = 4254.7" or "−0.43": a statistic, with its df when the cell gives them. */
 const STATISTIC_CELL = /^ *((?:[-\u2212\u2013] *)?(?:\d+(?:\.\d+)?|\.\d+))(?: *[,;] *df *= *(\d+(?:\.\d+)?)(?: *, *(\d+(?:\.\d+)?))?)? *$/i;
