@@ -1811,4 +1811,31 @@ describe('results tables in the shapes papers print them', () => {
     ]);
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, true]);
   });
+
+  it('reads a pipe table that runs over a page break (the page\'s lines and the header printed again between its rows), its error df after the break', () => {
+    // A PDF converted to Markdown (as tests/corpus/real/passages/dwrc-02.txt was; common practice of such converters
+    // to keep a page's running head and number); the numbers are made up (F(2, 88) = 4.21 gives p = .0179, F(1, 88)
+    // = 6.80 gives p = .0107, F(2, 88) = 1.12 gives p = .331: SciPy 1.10.1 scipy.stats.f.sf, computed when the test
+    // was written).
+    const text = [
+      'Table 4. Analysis of variance of the recall scores',
+      '| Source | df | F | p |',
+      '|---|---|---|---|',
+      '| Group | 2 | 4.21 | .018 |',
+      '| Cue | 1 | 6.80 | .011 |',
+      'Journal of Invented Studies (2024) 12:345',
+      'Page 7 of 12',
+      '| Source | df | F | p |',
+      '|---|---|---|---|',
+      '| Group × Cue | 2 | 1.12 | .033 |',
+      '| Error | 88 | | |',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['F', 4.21, [2, 88], '.018'],
+      ['F', 6.8, [1, 88], '.011'],
+      ['F', 1.12, [2, 88], '.033'],
+    ]);
+    expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
+  });
 });

@@ -351,6 +351,14 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
           continue;
         }
       }
+      // A page's running head, footer or number where the table runs over a page break (a PDF converted to Markdown
+      // gives the page's lines between two runs of pipe rows): passed over when rows as wide as the header go on
+      // after it, the header printed again there dropped.
+      const resume = rows.length >= 2 && isPageFurniture(lines[index]!.text) ? pipeRowsResumeAfter(lines, index, rows[0]!) : -1;
+      if (resume !== -1) {
+        index = resume - 1;
+        continue;
+      }
       // A section row spanning the table, one cell between two pipes ("| Outcome variable |"), inside it.
       const spanning = rows.length > 0 && SPANNING_PIPE_ROW.test(lines[index]!.text) && lines[index + 1] !== undefined && pipeCells(lines[index + 1]!) !== null;
       if (!spanning) break;
@@ -384,6 +392,26 @@ function readPipeTable(lines: Line[], first: number): FoundRows | null {
     layout: 'pipe',
     cells: merged.map((row) => row.map((cell) => (cell.text === '' ? null : { start: cell.start, end: cell.end }))),
   };
+}
+
+/**
+ * Where a pipe table's rows go on after a page break that starts at `index`: past blank lines and page furniture
+ * (at most MAX_PAGE_BREAK_LINES lines), and past the header printed again with its separator row, the index of
+ * the next row with as many cells as the header; -1 when no such row follows.
+ */
+function pipeRowsResumeAfter(lines: Line[], index: number, header: readonly Piece[]): number {
+  let at = index;
+  while (at < lines.length && at - index < MAX_PAGE_BREAK_LINES && (isBlank(lines[at]) || isPageFurniture(lines[at]!.text))) at++;
+  let cells = lines[at] === undefined ? null : pipeCells(lines[at]!);
+  if (cells !== null && cells.length === header.length && cells.every((cell, column) => cell === header[column]!.text)) {
+    at++;
+    cells = lines[at] === undefined ? null : pipeCells(lines[at]!);
+    if (cells !== null && isSeparatorRow(cells)) {
+      at++;
+      cells = lines[at] === undefined ? null : pipeCells(lines[at]!);
+    }
+  }
+  return cells !== null && cells.length === header.length && !isSeparatorRow(cells) ? at : -1;
 }
 
 // ---------------------------------------------------------------- tab tables

@@ -285,6 +285,7 @@ export type Rendering =
   | 'tabs-page-break'
   | 'crushed-page-break'
   | 'aligned-page-break'
+  | 'pipe-page-break'
   | 'tabs-wrapped-labels'
   | 'crushed-wrapped-labels'
   | 'aligned-wrapped-labels';
@@ -297,6 +298,7 @@ const RENDERINGS: readonly Rendering[] = [
   'tabs-page-break',
   'crushed-page-break',
   'aligned-page-break',
+  'pipe-page-break',
   'tabs-wrapped-labels',
   'crushed-wrapped-labels',
   'aligned-wrapped-labels',
@@ -391,6 +393,36 @@ function withPageBreaks(rows: readonly (string | string[])[], render: (row: stri
 }
 
 /**
+ * Each block of pipe lines with at least four rows under its separator, as it is, with a page's running head
+ * after the middle one of those rows: a PDF converted to Markdown puts the page's lines between two rows of a
+ * table that runs over a page break. The other lines as they are.
+ */
+function withPageBreakInPipes(text: string): string {
+  const out: string[] = [];
+  let block: string[] = [];
+  const flush = (): void => {
+    const separator = block.findIndex((line) => /^\s*\|?\s*:?-{3,}/.test(line));
+    const body = block.length - separator - 1;
+    const middle = separator + 1 + Math.floor(body / 2);
+    block.forEach((line, index) => {
+      out.push(line);
+      if (separator !== -1 && body >= 4 && index === middle) out.push(RUNNING_HEAD);
+    });
+    block = [];
+  };
+  for (const line of text.split('\n')) {
+    if (line.includes('|')) {
+      block.push(line);
+      continue;
+    }
+    flush();
+    out.push(line);
+  }
+  flush();
+  return out.join('\n');
+}
+
+/**
  * A passage's pipe rows rendered another way, moving cells but never
  * changing one (separator rows dropped; other lines kept): web pages and
  * PDFs give the same table in each of these renderings.
@@ -404,6 +436,7 @@ export function rerender(text: string, rendering: Rendering): string {
   if (rendering === 'tabs-page-break') return withPageBreaks(rows, tabbed);
   if (rendering === 'crushed-page-break') return withPageBreaks(rows, crushed);
   if (rendering === 'aligned-page-break') return withPageBreaks(rows, aligned);
+  if (rendering === 'pipe-page-break') return withPageBreakInPipes(text);
   if (rendering === 'tabs-wrapped-labels') return withWrappedLabels(text, tabbed);
   if (rendering === 'crushed-wrapped-labels') return withWrappedLabels(text, crushed);
   if (rendering === 'aligned-wrapped-labels') return withWrappedLabels(text, aligned);
