@@ -1838,4 +1838,19 @@ describe('results tables in the shapes papers print them', () => {
     ]);
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
   });
+
+  it('reads a tab table whose rows put each p under its value, on a line of leading tabs ("\\t\\t(.006)"), and its error row after them', () => {
+    // A layout of tables that print the p on the row under its statistic (tests/corpus/real/README.md,
+    // "table:value-p-two-rows"); the numbers are made up (F(1, 181) = 12.19 gives p = .0006, F(2, 181) = 5.34 gives
+    // p = .0056: SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written). Before, the first such line
+    // ended the table, and the F's took no error df.
+    const text = ['Table 2. Outcomes at follow-up', 'Source\tdf\tF', 'Time\t1\t12.19', '\t\t(<.001)', 'Group × Time\t2\t5.34', '\t\t(.006)', 'Error\t181\t'].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df])).toEqual([
+      ['F', 12.19, [1, 181]],
+      ['F', 5.34, [2, 181]],
+    ]);
+    // The lines of p are no statistics of their own: nothing is listed as not read.
+    expect(document.tablesNotRead).toEqual([]);
+  });
 });

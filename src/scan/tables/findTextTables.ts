@@ -426,6 +426,21 @@ function tabCells(line: Line): Piece[] | null {
   return pieces.length >= 2 ? pieces : null;
 }
 
+/** Longest line read as a row of a tab table whose first cells are empty: longer, it is an indented paragraph. */
+const MAX_LEADING_TAB_ROW = 60;
+
+/**
+ * Inside a tab table, a line whose cells before the last are empty, given as tabs before one cell ("\t\tp < .001",
+ * "\t\t(.006)": a value's p on the row under it, in its column): the empty cells and that one, when they are no
+ * more than the table's first row has. Null otherwise (a line indented by a tab outside a table is prose).
+ */
+function cellsAfterLeadingTabs(line: Line, width: number): Piece[] | null {
+  const text = line.text;
+  if (line.crushed === true || !text.startsWith('\t') || text.trim() === '' || text.trim().length > MAX_LEADING_TAB_ROW || text.trim().includes('\t')) return null;
+  const pieces = splitCells(line, 0, '\t');
+  return pieces.length >= 2 && pieces.length <= width ? pieces : null;
+}
+
 /**
  * Rows whose cells are apart by tabs, as a copy of a web page's table or a
  * spreadsheet gives them: the tabs say where the cells are, as pipes do
@@ -438,7 +453,7 @@ function readTabTable(lines: Line[], first: number): FoundRows | null {
   let index = first;
   let last = first;
   for (; index < lines.length; index++) {
-    const cells = tabCells(lines[index]!);
+    const cells = tabCells(lines[index]!) ?? (rows.length > 0 ? cellsAfterLeadingTabs(lines[index]!, rows[0]!.length) : null);
     if (cells === null) {
       const nextIsRow = lines[index + 1] !== undefined && tabCells(lines[index + 1]!) !== null;
       if (isBlank(lines[index]) && nextIsRow) continue;

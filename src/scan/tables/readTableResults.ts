@@ -570,7 +570,10 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
       rowsWithStatistic++;
       continue;
     }
-    const hasStatistic = segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
+    // (A row with no label whose statistic cell holds a p, "p < .001" or "(.006)", prints the p of the row above
+    // under its value: not a statistic of its own.)
+    const pUnderValue = (row[0] ?? '').trim() === '' && segments.some((segment) => P_UNDER_VALUE.test(row[segment.columns.get('statistic')!] ?? ''));
+    const hasStatistic = !pUnderValue && segments.some((segment) => shapeOf(row[segment.columns.get('statistic')!] ?? '').shape.startsWith('number'));
     if (hasStatistic) rowsWithStatistic++;
     // A lack-of-fit test is against pure error, not the residual (common practice in regression ANOVA tables):
     // the error row below it (pure error), or none when that is the residual or there is none.
@@ -2000,6 +2003,9 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
     row.slice(1).every((cell) => !/[=<>]/.test(cell))
   );
 }
+
+/** A p set under its statistic's value in the same column: "p < .001", "p = .006", "(.006)", "(<.001)", "(p = .02)". */
+const P_UNDER_VALUE = /^\s*(?:[pP]\s?[<=>\u2264\u2265]\s?0?\.\d{1,4}|\(\s?(?:[pP]\s?)?[<=>\u2264\u2265]?\s?0?\.\d{1,4}\s?\))\s*$/;
 
 /** For each row, the nearest error row below it; above it only when the table has a single error row. */
 /** A sphericity correction's name in a row label, as statistics programs print each effect's and error's rows. */
