@@ -1744,6 +1744,9 @@ function isModelFormula(text: string): boolean {
 }
 
 function readSpacedTable(lines: Line[], first: number): FoundRows | null {
+  // A line of block titles each closed by its statistic's df is the upper row of the header under it, read
+  // with that header (the next line's table), not a header of its own.
+  if (statisticTitlesOver(lines, first)) return null;
   const wrapped = readHeader(lines[first]!) === null ? readWrappedHeader(lines, first) : null;
   const header = wrapped ?? readHeader(lines[first]!);
   const titled = readTitle(lines, first) !== null;
@@ -1759,7 +1762,10 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const rows: (string[] | { data: DataLine; line: Line })[] = columns ? [columns] : [];
   // Titles of side-by-side blocks on the line over a crushed header, each closed by its df ("Treatment
   // (num. df = 1) Temperature (num. df = 7)"): an upper header row, cut after each title's df.
-  const blockTitles = header !== null && !header.tabbed ? (dfTitlesOf(lines[first - 1]) ?? capitalisedTitlesOf(lines[first - 1], header)) : null;
+  const blockTitles =
+    header !== null && !header.tabbed
+      ? (dfTitlesOf(lines[first - 1]) ?? (statisticTitlesOver(lines, first - 1) ? dfTitlesOf(lines[first - 1], TITLE_STATISTIC_DF) : null) ?? capitalisedTitlesOf(lines[first - 1], header))
+      : null;
   if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
   let subHeaderLines = 0;
@@ -1940,12 +1946,33 @@ function capitalisedTitlesOf(line: Line | undefined, header: HeaderLine): string
 /** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */
 const TITLE_DF_BRACKET = /\((?:num(?:erator)?\.?\s*)?dfs?\s*=\s*\d+(?:\.\d+)?(?:\s*,\s*\d+(?:\.\d+)?)?\)/gi;
 
-/** The block titles of a line that holds at least two titles each closed by its df, or null. */
-function dfTitlesOf(line: Line | undefined): string[] | null {
+/**
+ * A statistic's symbol with its df closing a block's title: "Group F(1, 58)", "Time F (2, 116)", "Sex χ2(1)",
+ * "Post t(48)". (The symbol stands apart from the word before it.)
+ */
+const TITLE_STATISTIC_DF = /(?<![\p{L}\d])(?:F|t|\u03c7\u00b2|\u03c72|\u03c7 2)\s?[([]\s?\d{1,6}(?:\.\d{1,3})?(?:\s?[,;]\s?\d{1,6}(?:\.\d{1,3})?)?\s?[)\]]/gu;
+
+/**
+ * Whether the line at `first` holds block titles each closed by a statistic with its df (see TITLE_STATISTIC_DF)
+ * over a header line that names as many columns of a statistic: "Group F(1, 58) Time F(2, 116)" over "Outcome F p
+ * F p". One title per statistic column ties each df to one block.
+ */
+function statisticTitlesOver(lines: Line[], first: number): boolean {
+  const titles = dfTitlesOf(lines[first], TITLE_STATISTIC_DF);
+  const next = lines[first + 1];
+  if (titles === null || next === undefined) return false;
+  const header = readHeader(next);
+  if (header === null || header.tabbed) return false;
+  const statistics = header.columns.filter((column) => classifyHeader(column.text).role === 'statistic');
+  return statistics.length === titles.length - 1 && statistics.every((column) => (classifyHeader(column.text) as { df: unknown[] }).df.length === 0);
+}
+
+/** The block titles of a line that holds at least two titles each closed by its df (by `closing`), or null. */
+function dfTitlesOf(line: Line | undefined, closing: RegExp = TITLE_DF_BRACKET): string[] | null {
   if (line === undefined || isBlank(line) || line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text)) return null;
   const titles: string[] = [];
   let from = 0;
-  for (const match of line.text.matchAll(TITLE_DF_BRACKET)) {
+  for (const match of line.text.matchAll(closing)) {
     const end = match.index! + match[0].length;
     titles.push(line.text.slice(from, end).trim());
     from = end;

@@ -1928,6 +1928,7 @@ function isGroupTitle(title: string | null | undefined): boolean {
 function titleBlocks(segments: Segment[], upperRows: string[][]): void {
   for (let level = upperRows.length - 1; level >= 0; level--) {
     const cells = upperRows[level]!.map((cell) => cell.trim()).filter((cell) => cell !== '' && /[a-z]/i.test(cell));
+    if (statisticTitlesGiveDf(segments, cells)) return;
     // A row of column names is not a row of titles.
     if (cells.some((cell) => isValueRole(classifyHeader(cell)) && classifyHeader(cell).role !== 'unknown')) continue;
     if (cells.length < segments.length || (segments.length === 1 && !TITLE_DF.test(cells.join(' ')))) continue;
@@ -1943,6 +1944,26 @@ function titleBlocks(segments: Segment[], upperRows: string[][]): void {
     });
     return;
   }
+}
+
+/**
+ * Titles that each name a block's statistic with its df ("Group F(1, 58) | Time F(2, 116)" over "F | p | F |
+ * p"): one title per block, each of the block's kind with df, over blocks whose own headers give none. Each
+ * block takes its title's df, in order. Any other row (fewer or more such titles, another kind, a block that
+ * has df) is left to the other readings: df are tied only where one title stands for one block.
+ */
+function statisticTitlesGiveDf(segments: Segment[], cells: string[]): boolean {
+  if (cells.length !== segments.length || segments.some((segment) => segment.headerDf.length > 0 || segment.dfInCell)) return false;
+  const titleDf = cells.map((cell, index) => {
+    const role = classifyHeader(cell);
+    return role.role === 'statistic' && role.kind === segments[index]!.kind && role.df.length > 0 && role.dfInCell !== true ? role.df : null;
+  });
+  if (titleDf.some((df) => df === null)) return false;
+  segments.forEach((segment, index) => {
+    segment.headerDf = titleDf[index]!;
+    if (segments.length > 1) segment.title = cells[index]!;
+  });
+  return true;
 }
 
 /** "num. df = 1", "df = 7", "df = 2, 57" in a block's title. */
