@@ -295,6 +295,9 @@ put(['p.value', 'p adj', 'p-adj', 'p.adj', 'padj', 'adjusted p', 'adj. p', 'p ad
 put(['pes'], { role: 'effect', effect: 'partial-eta-squared' });
 // Odds, hazard and rate ratios with their intervals beside a regression's tests (common practice).
 put(['or [95% ci]', 'or (95% ci)', 'or 95% ci', 'odds ratio', 'odds ratio (95% ci)', 'odds ratio [95% ci]', 'aor (95% ci)', 'aor [95% ci]', 'exp(b)', 'exp(beta)', 'irr (95% ci)', 'hr (95% ci)', 'hr [95% ci]', 'rr (95% ci)'], { role: 'descriptive' });
+// The df of a multivariate test's F as tables abbreviate them ("Hyp. df", "Err. df"); common practice.
+put(['hyp. df', 'hyp df', 'hyp.df', 'hypoth. df', 'df hyp.'], { role: 'df1' });
+put(['err. df', 'err df', 'err.df', 'df err', 'df err.'], { role: 'df2' });
 // Minitab's adjusted and sequential sums of squares and mean squares (from memory of its ANOVA output).
 put(['adj ss', 'adj. ss', 'seq ss', 'seq. ss'], { role: 'ss' });
 put(['adj ms', 'adj. ms', 'seq ms', 'seq. ms'], { role: 'ms' });
