@@ -948,7 +948,7 @@ function readHeaderOf(line: Line): HeaderLine | null {
       return { columns, aligned: true, tabbed: false };
     }
   }
-  const tokens = withGroupSizes(text, tokenize(text));
+  const tokens = withDfAfterWith(text, withGroupSizes(text, tokenize(text)));
   if (tokens.length < 2) return null;
   // A crushed header names at least two columns; prose rarely has two words that could begin a name.
   if (tokens.filter((token) => couldStartHeader(token.text)).length < 2) return null;
@@ -1187,6 +1187,38 @@ function namesEndingWithSizes(text: string, tokens: readonly Piece[]): Piece[] |
   });
   return names.length >= 2 && start === tokens.length ? names : null;
 }
+
+/**
+ * "with 2 df", "with 88 d.f.", "with 1 and 52 degrees of freedom" after a statistic's name in a crushed header
+ * ("χ2 with 2 df", "Chi-square (χ2) value with 88 d.f."): one token with the word before it, so that the name and
+ * its df make one column, not a column "with 2" and a df column.
+ */
+function withDfAfterWith(text: string, tokens: readonly Piece[]): Piece[] {
+  const merged: Piece[] = [];
+  for (let index = 0; index < tokens.length; index++) {
+    const length = dfAfterWithLength(tokens, index);
+    if (length > 0 && merged.length > 0) {
+      const before = merged.pop()!;
+      const last = tokens[index + length - 1]!;
+      merged.push({ text: text.slice(before.start, last.end), start: before.start, end: last.end });
+      index += length - 1;
+      continue;
+    }
+    merged.push(tokens[index]!);
+  }
+  return merged;
+}
+
+/** Tokens in "with N df" or "with N and M df" starting at `index` (0 if none there). */
+function dfAfterWithLength(tokens: readonly Piece[], index: number): number {
+  if (!/^with$/i.test(tokens[index]?.text ?? '') || !WHOLE_DF.test(tokens[index + 1]?.text ?? '')) return 0;
+  let at = index + 2;
+  if (/^and$/i.test(tokens[at]?.text ?? '') && WHOLE_DF.test(tokens[at + 1]?.text ?? '')) at += 2;
+  if (/^(?:d\.?f\.?|dfs?)$/i.test(tokens[at]?.text ?? '')) return at + 1 - index;
+  const words = tokens.slice(at, at + 3).map((token) => token.text.toLowerCase());
+  return words.length === 3 && /^degrees?$/.test(words[0]!) && words[1] === 'of' && words[2] === 'freedom' ? at + 3 - index : 0;
+}
+const WHOLE_DF = /^\d{1,5}$/;
 
 function withGroupSizes(text: string, tokens: readonly Piece[]): Piece[] {
   const merged: Piece[] = [];
