@@ -1986,17 +1986,18 @@ const TITLE_STATISTIC_DF = /(?<![\p{L}\d])(?:F|t|\u03c7\u00b2|\u03c72|\u03c7 2)\
 
 /**
  * Whether the line at `first` holds block titles each closed by a statistic with its df (see TITLE_STATISTIC_DF)
- * over a header line that names as many columns of a statistic: "Group F(1, 58) Time F(2, 116)" over "Outcome F p
- * F p". One title per statistic column ties each df to one block.
+ * over a header line of column names: "Group F(1, 58) Time F(2, 116)" over "Outcome F p F p". The titles are the
+ * header's upper row (the table reader ties each df to a block only where one title stands over each statistic
+ * column, readTableResults.ts statisticTitlesGiveDf), never a header of their own over a line of names.
  */
 function statisticTitlesOver(lines: Line[], first: number): boolean {
   const titles = dfTitlesOf(lines[first], TITLE_STATISTIC_DF);
   const next = lines[first + 1];
   if (titles === null || next === undefined) return false;
+  // (A line of names no vocabulary knows, "Outcome Value p Value p", is a header too, one the finder cannot read:
+  // the titles over it are not a header of their own, whose columns the rows' values would be forced under.)
   const header = readHeader(next);
-  if (header === null || header.tabbed) return false;
-  const statistics = header.columns.filter((column) => classifyHeader(column.text).role === 'statistic');
-  return statistics.length === titles.length - 1 && statistics.every((column) => (classifyHeader(column.text) as { df: unknown[] }).df.length === 0);
+  return header !== null ? !header.tabbed : !isBlank(next) && !/\d/.test(next.text) && /\p{L}/u.test(next.text);
 }
 
 /** The block titles of a line that holds at least two titles each closed by its df (by `closing`), or null. */

@@ -152,11 +152,22 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
     return withMark(error ? { pair: [first, error], single: first, error } : { ...none, single: first }, footnoteMarkBefore(rest, single.index));
   }
   const fMatch = statementsOnly ? null : F_WITH_DF.exec(rest);
+  // Two F's with different df ("F(1, 58) for Group, F(2, 116) for Time"): which test takes which is not said for
+  // every test, so neither pair is taken.
+  if (fMatch && writesOtherFPair(rest, fMatch)) return { ...none, error };
   if (fMatch) {
     const [first, second] = fMatch[1] !== undefined ? [fMatch[1], fMatch[2]!] : [fMatch[3]!, fMatch[4]!];
     return withMark({ ...none, pair: [number(first), number(second)], error }, footnoteMarkBefore(rest, fMatch.index));
   }
   return { ...none, error };
+}
+
+/** Whether the text writes another F with df besides the one read, with another pair ("F(1, 58) … F(2, 116)"). */
+function writesOtherFPair(text: string, first: RegExpExecArray): boolean {
+  const pairOf = (match: RegExpExecArray): string => (match[1] !== undefined ? `${Number(match[1])},${Number(match[2])}` : `${Number(match[3])},${Number(match[4])}`);
+  const every = new RegExp(F_WITH_DF.source, 'g');
+  for (let match = every.exec(text); match !== null; match = every.exec(text)) if (pairOf(match) !== pairOf(first)) return true;
+  return false;
 }
 
 function withMark(noteDf: NoteDf, mark: string | undefined): NoteDf {
