@@ -46,6 +46,31 @@ describe('df a table prints outside a df column', () => {
     }
   });
 
+  // Layout of dvzf-03 again, with fewer titles than blocks, or names no vocabulary knows under the titles.
+  it('ties no df where block titles with df do not stand one over each block, crushed or aligned', () => {
+    const threeBlocks = [
+      ['', 'Group F(1, 58)', '', 'Time F(2, 116)', '', '', ''],
+      ['Outcome', 'F', 'p', 'F', 'p', 'F', 'p'],
+      ['Anxiety', '4.21', '.045', '6.10', '.003', '0.52', '.597'],
+    ];
+    const unknownNames = [
+      ['', 'Group F(1, 58)', '', 'Time F(2, 116)', ''],
+      ['Outcome', 'Value', 'p', 'Value', 'p'],
+      ['Anxiety', '4.21', '.045', '6.10', '.003'],
+    ];
+    const aligned = (rows: string[][]): string => rows.map((row) => row.map((cell) => cell.padEnd(16)).join('').trimEnd()).join('\n');
+    for (const table of [layouts(threeBlocks).crushed, aligned(threeBlocks)]) {
+      const document = scanTextJson(`Results follow.\n\nTable 7\nMixed ANOVA by outcome\n${table}\n\nThe next section.\n`);
+      // (Which block the third F is, and so its df, the titles do not say: no F takes a title's df.)
+      expect(document.statistics.filter((statistic) => statistic.df.length > 0), table).toEqual([]);
+    }
+    for (const table of [layouts(unknownNames).crushed, aligned(unknownNames)]) {
+      const document = scanTextJson(`Results follow.\n\nTable 7\nMixed ANOVA by outcome\n${table}\n\nThe next section.\n`);
+      // Never a p read as an F.
+      expect(document.statistics.map((statistic) => statistic.value).filter((value) => value === 0.045 || value === 0.003), table).toEqual([]);
+    }
+  });
+
   // Layout of dvzb-09 (the df stated in words in the note under a crushed table).
   it('reads the one df a note states after its number ("χ2 tests with 1 df"), and none when the note states another for one row', () => {
     const rows = [
