@@ -494,8 +494,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     .filter((written): written is string => written !== undefined);
   const noteText = [...table.notes, table.caption ?? '', ...(new Set(headerErrorDf).size === 1 ? [`Error df = ${headerErrorDf[0]}.`] : [])].join(' ');
   // (A layout that keeps no notes with the table, one cell per line, leaves them as the lines right after it:
-  // those that open as notes are read as the table's notes, "F(2, 96) for all effects" with them.)
-  const statedDf = readNoteDf(table.notes.length === 0 ? `${noteText} ${notesAfter(text, table.end)}` : noteText);
+  // those that open as notes are read as the table's notes, "F(2, 96) for all effects" with them. On a line of
+  // their own, so that a footnote's marker, "a df = 1.", still opens its statement.)
+  const statedDf = readNoteDf(table.notes.length === 0 ? `${noteText}\n${notesAfter(text, table.end)}` : noteText);
   // No df in the caption or notes: the lines just above and below the table may state them (a caption the
   // layout did not tie to the table, a note without "Note.", a sentence under it).
   const noteDf = statesNoDf(statedDf) ? { ...readNoteDf(linesBeside(text, table.start, table.end), true), besideTable: true } : statedDf;
