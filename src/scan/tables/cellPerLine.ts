@@ -298,9 +298,13 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
   }
   // Block titles that carry their df ("Treatment (num. df = 1)") before the column names: an upper header row.
   const dfTitles = [...cells.slice(0, first), ...headerRun].filter((cell) => !cell.empty && !names.includes(cell) && TITLE_WITH_DF.test(cell.text));
-  if (dfTitles.length > 0) {
-    rows.unshift(['', ...dfTitles.map((cell) => cell.text)]);
-    spans.unshift([null, ...dfTitles.map(spanOf1)]);
+  // Or titles that each close with their statistic's df ("Group F(1, 58)" / "Time F(2, 116)" over "F" / "p" / "F" /
+  // "p"): one per statistic column whose name gives no df, before the names.
+  const statisticTitles = dfTitles.length === 0 ? statisticDfTitles(headerRun, names) : [];
+  for (const titles of [dfTitles, statisticTitles]) {
+    if (titles.length === 0) continue;
+    rows.unshift(['', ...titles.map((cell) => cell.text)]);
+    spans.unshift([null, ...titles.map(spanOf1)]);
   }
   // Titles of groups side by side that state each group's size ("Non-shift workers (n = 1,966)") before a grid's
   // column names: an upper header row too (the correlations' df come from those sizes), not caption lines.
@@ -363,7 +367,7 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
       caption: !titled ? null : grid !== null ? captionOfGrid(caption, cells.slice(0, first).filter((cell) => !sizeTitles.includes(cell))) : title.text.trim(),
       notes: [],
       rows,
-      headerRows: (dfTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1) + (twoLevel !== null ? 1 : 0),
+      headerRows: (dfTitles.length > 0 || statisticTitles.length > 0 || sizeTitles.length > 0 ? 2 : 1) + (twoLevel !== null ? 1 : 0),
       cells: spans,
       layout: 'cell-per-line',
     },
@@ -881,6 +885,26 @@ function endsRepeatedBlock(names: Cell[], before: Cell): boolean {
  * then as many cells saying what each group's column holds ("n (%)", "Mean (SD)"), empty under the test's columns;
  * the lower row's last empty cells may open `body`. Null unless the cells make exactly those two rows.
  */
+/**
+ * Header cells before the column names that each name a statistic with its df ("Group F(1, 58)"), one for each
+ * column naming that statistic without df ("F"), all of one kind: the titles of those columns' blocks, in order.
+ * Empty when the cells are not one such title per column.
+ */
+function statisticDfTitles(headerRun: Cell[], names: Cell[]): Cell[] {
+  const firstName = names.length > 0 ? headerRun.indexOf(names[0]!) : -1;
+  if (firstName <= 0) return [];
+  const titles = headerRun.slice(0, firstName).filter((cell) => {
+    const role = classifyHeader(cell.text);
+    return role.role === 'statistic' && role.df.length > 0;
+  });
+  const kinds = new Set(titles.map((cell) => (classifyHeader(cell.text) as { kind: string }).kind));
+  const bareColumns = names.filter((cell) => {
+    const role = classifyHeader(cell.text);
+    return role.role === 'statistic' && kinds.has(role.kind) && role.df.length === 0 && role.dfInCell !== true;
+  });
+  return kinds.size === 1 && titles.length >= 2 && titles.length === bareColumns.length ? titles : [];
+}
+
 function twoLevelHeader(header: Cell[], body: Cell[], valueCount: number): { upper: Cell[]; lower: Cell[]; emptiesTaken: number } | null {
   if (valueCount < 2 || header.length < 2 || classifyHeader(header[0]!.text).role !== 'label') return null;
   let emptiesTaken = 0;

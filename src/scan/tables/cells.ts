@@ -295,6 +295,9 @@ put(['p.value', 'p adj', 'p-adj', 'p.adj', 'padj', 'adjusted p', 'adj. p', 'p ad
 put(['pes'], { role: 'effect', effect: 'partial-eta-squared' });
 // Odds, hazard and rate ratios with their intervals beside a regression's tests (common practice).
 put(['or [95% ci]', 'or (95% ci)', 'or 95% ci', 'odds ratio', 'odds ratio (95% ci)', 'odds ratio [95% ci]', 'aor (95% ci)', 'aor [95% ci]', 'exp(b)', 'exp(beta)', 'irr (95% ci)', 'hr (95% ci)', 'hr [95% ci]', 'rr (95% ci)'], { role: 'descriptive' });
+// The df of a multivariate test's F as tables abbreviate them ("Hyp. df", "Err. df"); common practice.
+put(['hyp. df', 'hyp df', 'hyp.df', 'hypoth. df', 'df hyp.'], { role: 'df1' });
+put(['err. df', 'err df', 'err.df', 'df err', 'df err.'], { role: 'df2' });
 // Minitab's adjusted and sequential sums of squares and mean squares (from memory of its ANOVA output).
 put(['adj ss', 'adj. ss', 'seq ss', 'seq. ss'], { role: 'ss' });
 put(['adj ms', 'adj. ms', 'seq ms', 'seq. ms'], { role: 'ms' });
@@ -459,7 +462,7 @@ const SUBSCRIPT_DF = /_\{ ?df ?= ?(\d{1,4}) ?\} ?$/;
  * (two for F, one otherwise).
  */
 function statisticWithDf(key: string): ColumnRole | null {
-  const parts = NAME_WITH_DF_BRACKETS.exec(key) ?? NAME_WITH_DF_AFTER_COMMA.exec(key);
+  const parts = NAME_WITH_DF_BRACKETS.exec(key) ?? NAME_WITH_DF_AFTER_COMMA.exec(key) ?? NAME_WITH_DF_AFTER_WITH.exec(key);
   if (parts === null) return null;
   const name = parts[1]!.replace(/[- ](?:value|test|ratio|statistic|stat)$/, '');
   const knownName = ROLE_BY_KEY.get(name);
@@ -521,6 +524,14 @@ const NAME_WITH_DF_BRACKETS = new RegExp(
 );
 /** "<name>, df = 1", "<name>, df 1", "<name> df=1". */
 const NAME_WITH_DF_AFTER_COMMA = new RegExp(String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,3})(?: ?, ?| )d\.?f\.? ?[=:]? ?${HEADER_DF_NUMBER}(?: ?[,;/] ?${HEADER_DF_NUMBER})?$`);
+
+/**
+ * "<name> with 88 d.f.", "<name> (χ2) value with 2 df", "<name> with 1 and 52 degrees of freedom": the df after
+ * "with", as a header states them for every cell of its column (the symbol in brackets and "value" dropped).
+ */
+const NAME_WITH_DF_AFTER_WITH = new RegExp(
+  String.raw`^([a-z][a-z0-9'-]{0,20}(?: [a-z0-9'-]{1,20}){0,2}?)(?: \((?:chi2|x2|f|t)\))?(?: values?)? with ${HEADER_DF_NUMBER}(?: and ${HEADER_DF_NUMBER})? (?:d\.?f\.?|dfs?|degrees? of freedom)$`,
+);
 
 /** A generic name for effect sizes with the one the column holds: "effect size (etap2)", "es (d)", "effect size cohen's d". */
 const GENERIC_EFFECT_WITH_NAME = /^(?:effect sizes?|es|eff\. size)(?:\s?\(([^()]{1,20})\)| ([^()]{1,20}))$/;

@@ -1003,7 +1003,7 @@ function readHeaderOf(line: Line): HeaderLine | null {
   // A caption's list of abbreviations ("OR, odds ratio; CI, confidence interval; LL, lower limit; …") names the
   // columns' words but is no header: a header line does not hold two "name, meaning;" glosses.
   if (isAbbreviationList(text)) return null;
-  const tokens = withGroupSizes(text, tokenize(text));
+  const tokens = withDfAfterWith(text, withGroupSizes(text, tokenize(text)));
   if (tokens.length < 2) return null;
   // A crushed header names at least two columns; prose rarely has two words that could begin a name.
   if (tokens.filter((token) => couldStartHeader(token.text)).length < 2) return null;
@@ -1245,6 +1245,38 @@ function namesEndingWithSizes(text: string, tokens: readonly Piece[]): Piece[] |
   });
   return names.length >= 2 && start === tokens.length ? names : null;
 }
+
+/**
+ * "with 2 df", "with 88 d.f.", "with 1 and 52 degrees of freedom" after a statistic's name in a crushed header
+ * ("χ2 with 2 df", "Chi-square (χ2) value with 88 d.f."): one token with the word before it, so that the name and
+ * its df make one column, not a column "with 2" and a df column.
+ */
+function withDfAfterWith(text: string, tokens: readonly Piece[]): Piece[] {
+  const merged: Piece[] = [];
+  for (let index = 0; index < tokens.length; index++) {
+    const length = dfAfterWithLength(tokens, index);
+    if (length > 0 && merged.length > 0) {
+      const before = merged.pop()!;
+      const last = tokens[index + length - 1]!;
+      merged.push({ text: text.slice(before.start, last.end), start: before.start, end: last.end });
+      index += length - 1;
+      continue;
+    }
+    merged.push(tokens[index]!);
+  }
+  return merged;
+}
+
+/** Tokens in "with N df" or "with N and M df" starting at `index` (0 if none there). */
+function dfAfterWithLength(tokens: readonly Piece[], index: number): number {
+  if (!/^with$/i.test(tokens[index]?.text ?? '') || !WHOLE_DF.test(tokens[index + 1]?.text ?? '')) return 0;
+  let at = index + 2;
+  if (/^and$/i.test(tokens[at]?.text ?? '') && WHOLE_DF.test(tokens[at + 1]?.text ?? '')) at += 2;
+  if (/^(?:d\.?f\.?|dfs?)$/i.test(tokens[at]?.text ?? '')) return at + 1 - index;
+  const words = tokens.slice(at, at + 3).map((token) => token.text.toLowerCase());
+  return words.length === 3 && /^degrees?$/.test(words[0]!) && words[1] === 'of' && words[2] === 'freedom' ? at + 3 - index : 0;
+}
+const WHOLE_DF = /^\d{1,5}$/;
 
 function withGroupSizes(text: string, tokens: readonly Piece[]): Piece[] {
   const merged: Piece[] = [];
@@ -1802,6 +1834,9 @@ function isModelFormula(text: string): boolean {
 }
 
 function readSpacedTable(lines: Line[], first: number): FoundRows | null {
+  // A line of block titles each closed by its statistic's df is the upper row of the header under it, read
+  // with that header (the next line's table), not a header of its own.
+  if (statisticTitlesOver(lines, first)) return null;
   const wrapped = readHeader(lines[first]!) === null ? readWrappedHeader(lines, first) : null;
   const header = wrapped ?? readHeader(lines[first]!);
   const titled = readTitle(lines, first) !== null;
@@ -1817,7 +1852,10 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   const rows: (string[] | { data: DataLine; line: Line })[] = columns ? [columns] : [];
   // Titles of side-by-side blocks on the line over a crushed header, each closed by its df ("Treatment
   // (num. df = 1) Temperature (num. df = 7)"): an upper header row, cut after each title's df.
-  const blockTitles = header !== null && !header.tabbed ? (dfTitlesOf(lines[first - 1]) ?? capitalisedTitlesOf(lines[first - 1], header)) : null;
+  const blockTitles =
+    header !== null && !header.tabbed
+      ? (dfTitlesOf(lines[first - 1]) ?? (statisticTitlesOver(lines, first - 1) ? dfTitlesOf(lines[first - 1], TITLE_STATISTIC_DF) : null) ?? capitalisedTitlesOf(lines[first - 1], header))
+      : null;
   if (blockTitles !== null) rows.unshift(blockTitles);
   let dataRows = 0;
   let subHeaderLines = 0;
@@ -1998,12 +2036,34 @@ function capitalisedTitlesOf(line: Line | undefined, header: HeaderLine): string
 /** A title's df in brackets: "(num. df = 7)", "(df = 2, 57)". */
 const TITLE_DF_BRACKET = /\((?:num(?:erator)?\.?\s*)?dfs?\s*=\s*\d+(?:\.\d+)?(?:\s*,\s*\d+(?:\.\d+)?)?\)/gi;
 
-/** The block titles of a line that holds at least two titles each closed by its df, or null. */
-function dfTitlesOf(line: Line | undefined): string[] | null {
+/**
+ * A statistic's symbol with its df closing a block's title: "Group F(1, 58)", "Time F (2, 116)", "Sex χ2(1)",
+ * "Post t(48)". (The symbol stands apart from the word before it.)
+ */
+const TITLE_STATISTIC_DF = /(?<![\p{L}\d])(?:F|t|\u03c7\u00b2|\u03c72|\u03c7 2)\s?[([]\s?\d{1,6}(?:\.\d{1,3})?(?:\s?[,;]\s?\d{1,6}(?:\.\d{1,3})?)?\s?[)\]]/gu;
+
+/**
+ * Whether the line at `first` holds block titles each closed by a statistic with its df (see TITLE_STATISTIC_DF)
+ * over a header line of column names: "Group F(1, 58) Time F(2, 116)" over "Outcome F p F p". The titles are the
+ * header's upper row (the table reader ties each df to a block only where one title stands over each statistic
+ * column, readTableResults.ts statisticTitlesGiveDf), never a header of their own over a line of names.
+ */
+function statisticTitlesOver(lines: Line[], first: number): boolean {
+  const titles = dfTitlesOf(lines[first], TITLE_STATISTIC_DF);
+  const next = lines[first + 1];
+  if (titles === null || next === undefined) return false;
+  // (A line of names no vocabulary knows, "Outcome Value p Value p", is a header too, one the finder cannot read:
+  // the titles over it are not a header of their own, whose columns the rows' values would be forced under.)
+  const header = readHeader(next);
+  return header !== null ? !header.tabbed : !isBlank(next) && !/\d/.test(next.text) && /\p{L}/u.test(next.text);
+}
+
+/** The block titles of a line that holds at least two titles each closed by its df (by `closing`), or null. */
+function dfTitlesOf(line: Line | undefined, closing: RegExp = TITLE_DF_BRACKET): string[] | null {
   if (line === undefined || isBlank(line) || line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text)) return null;
   const titles: string[] = [];
   let from = 0;
-  for (const match of line.text.matchAll(TITLE_DF_BRACKET)) {
+  for (const match of line.text.matchAll(closing)) {
     const end = match.index! + match[0].length;
     titles.push(line.text.slice(from, end).trim());
     from = end;

@@ -73,6 +73,11 @@ const DF_SINGLE = new RegExp(`${DF_WORD}${FOR_ALL} {0,3}[=:] {0,3}\\(? {0,2}${NU
 /** "2 numerator and 57 denominator degrees of freedom". */
 const SIDES_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER} {1,3}(?:numerator|effect|hypothesis) {1,3}(?:and {1,3})?${NUMBER} {1,3}(?:denominator|error) {1,3}(?:degrees of freedom|dfs?|d\\.f\\.)(?![A-Za-z])`, 'i');
 const PAIR_THEN_DF = new RegExp(`(?<![\\d.])${NUMBER}${PAIR_SEPARATOR}${NUMBER} {1,3}${DF_WORD}`, 'i');
+/**
+ * "tests with 1 df", "have 1 degree of freedom", "on 2 d.f.": one df stated after its number. (A word before the
+ * number that gives the df to the tests, so that "1 df" in other words, "the 1 df contrast", is not taken.)
+ */
+const SINGLE_THEN_DF = new RegExp(`(?<![A-Za-z])(?:with|on|have|has|had) {1,3}${NUMBER} {1,3}(?:dfs?|d\\.f\\.|DF|degrees? of freedom)(?![A-Za-z])`, 'i');
 /** "F(2, 57)", "F[2, 57]", "F (2, 57)", "F(2/57)", "Fs(2, 57)", and the subscript run onto the symbol: "F2,57", "F2, 57". */
 const F_WITH_DF = new RegExp(`(?<![A-Za-z])Fs?(?: {0,2}[([] {0,2}${NUMBER} {0,2}[,;/] {0,2}${NUMBER} {0,2}[)\\]]|${NUMBER}, {0,1}${NUMBER}(?!\\.?\\d))`);
 
@@ -137,20 +142,32 @@ export function readNoteDf(note: string, statementsOnly = false): NoteDf {
     return exception === null ? { ...none, error } : { ...none, pair: [number(pair[1]!), number(pair[2]!)], error, exceptions: [exception] };
   }
   if (pair) return withMark({ ...none, pair: [number(pair[1]!), number(pair[2]!)], error }, footnoteMarkBefore(rest, pair.index));
-  const single = DF_SINGLE.exec(rest);
+  const single = DF_SINGLE.exec(rest) ?? SINGLE_THEN_DF.exec(rest);
   // Several different df stated one by one ("df = 1 for sex, df = 2 for education") belong to different rows:
   // which row takes which cannot be told from the note, so none is taken.
-  if (single && statesOtherDf(rest, single)) return { ...none, error };
+  // (As for a pair: a df stated for one effect, "with 1 df for Sex", is that row's.)
+  if (single && (statesOtherDf(rest, single) || statedForOneEffect(rest.slice(single.index + single[0].length)))) return { ...none, error };
   if (single) {
     const first = number(single[1]!);
     return withMark(error ? { pair: [first, error], single: first, error } : { ...none, single: first }, footnoteMarkBefore(rest, single.index));
   }
   const fMatch = statementsOnly ? null : F_WITH_DF.exec(rest);
+  // Two F's with different df ("F(1, 58) for Group, F(2, 116) for Time"): which test takes which is not said for
+  // every test, so neither pair is taken.
+  if (fMatch && writesOtherFPair(rest, fMatch)) return { ...none, error };
   if (fMatch) {
     const [first, second] = fMatch[1] !== undefined ? [fMatch[1], fMatch[2]!] : [fMatch[3]!, fMatch[4]!];
     return withMark({ ...none, pair: [number(first), number(second)], error }, footnoteMarkBefore(rest, fMatch.index));
   }
   return { ...none, error };
+}
+
+/** Whether the text writes another F with df besides the one read, with another pair ("F(1, 58) … F(2, 116)"). */
+function writesOtherFPair(text: string, first: RegExpExecArray): boolean {
+  const pairOf = (match: RegExpExecArray): string => (match[1] !== undefined ? `${Number(match[1])},${Number(match[2])}` : `${Number(match[3])},${Number(match[4])}`);
+  const every = new RegExp(F_WITH_DF.source, 'g');
+  for (let match = every.exec(text); match !== null; match = every.exec(text)) if (pairOf(match) !== pairOf(first)) return true;
+  return false;
 }
 
 function withMark(noteDf: NoteDf, mark: string | undefined): NoteDf {
@@ -166,8 +183,10 @@ function statedForOneEffect(after: string): boolean {
 
 /** Whether the note states another single df besides the one read ("df = 1 … df = 2"). */
 function statesOtherDf(text: string, first: RegExpExecArray): boolean {
-  const every = new RegExp(DF_SINGLE.source, 'gi');
-  for (let match = every.exec(text); match !== null; match = every.exec(text)) if (Number(match[1]) !== Number(first[1])) return true;
+  for (const pattern of [DF_SINGLE, SINGLE_THEN_DF]) {
+    const every = new RegExp(pattern.source, 'gi');
+    for (let match = every.exec(text); match !== null; match = every.exec(text)) if (Number(match[1]) !== Number(first[1])) return true;
+  }
   return false;
 }
 

@@ -496,7 +496,10 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     .map((cell) => HEADER_ERROR_DF.exec(cell)?.[1])
     .filter((written): written is string => written !== undefined);
   const noteText = [...table.notes, table.caption ?? '', ...(new Set(headerErrorDf).size === 1 ? [`Error df = ${headerErrorDf[0]}.`] : [])].join(' ');
-  const statedDf = readNoteDf(noteText);
+  // (A layout that keeps no notes with the table, one cell per line, leaves them as the lines right after it:
+  // those that open as notes are read as the table's notes, "F(2, 96) for all effects" with them. On a line of
+  // their own, so that a footnote's marker, "a df = 1.", still opens its statement.)
+  const statedDf = readNoteDf(table.notes.length === 0 ? `${noteText}\n${notesAfter(text, table.end)}` : noteText);
   // No df in the caption or notes: the lines just above and below the table may state them (a caption the
   // layout did not tie to the table, a note without "Note.", a sentence under it).
   const noteDf = statesNoDf(statedDf) ? { ...readNoteDf(linesBeside(text, table.start, table.end), true), besideTable: true } : statedDf;
@@ -1931,6 +1934,7 @@ function isGroupTitle(title: string | null | undefined): boolean {
 function titleBlocks(segments: Segment[], upperRows: string[][]): void {
   for (let level = upperRows.length - 1; level >= 0; level--) {
     const cells = upperRows[level]!.map((cell) => cell.trim()).filter((cell) => cell !== '' && /[a-z]/i.test(cell));
+    if (statisticTitlesGiveDf(segments, cells)) return;
     // A row of column names is not a row of titles.
     if (cells.some((cell) => isValueRole(classifyHeader(cell)) && classifyHeader(cell).role !== 'unknown')) continue;
     if (cells.length < segments.length || (segments.length === 1 && !TITLE_DF.test(cells.join(' ')))) continue;
@@ -1946,6 +1950,26 @@ function titleBlocks(segments: Segment[], upperRows: string[][]): void {
     });
     return;
   }
+}
+
+/**
+ * Titles that each name a block's statistic with its df ("Group F(1, 58) | Time F(2, 116)" over "F | p | F |
+ * p"): one title per block, each of the block's kind with df, over blocks whose own headers give none. Each
+ * block takes its title's df, in order. Any other row (fewer or more such titles, another kind, a block that
+ * has df) is left to the other readings: df are tied only where one title stands for one block.
+ */
+function statisticTitlesGiveDf(segments: Segment[], cells: string[]): boolean {
+  if (cells.length !== segments.length || segments.some((segment) => segment.headerDf.length > 0 || segment.dfInCell)) return false;
+  const titleDf = cells.map((cell, index) => {
+    const role = classifyHeader(cell);
+    return role.role === 'statistic' && role.kind === segments[index]!.kind && role.df.length > 0 && role.dfInCell !== true ? role.df : null;
+  });
+  if (titleDf.some((df) => df === null)) return false;
+  segments.forEach((segment, index) => {
+    segment.headerDf = titleDf[index]!;
+    if (segments.length > 1) segment.title = cells[index]!;
+  });
+  return true;
 }
 
 /** "num. df = 1", "df = 7", "df = 2, 57" in a block's title. */
