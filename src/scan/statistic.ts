@@ -312,17 +312,28 @@ function skipDfLabel(text: string, position: number): number {
   return at;
 }
 
+/** Most characters of a whole df written with OCR's "l" or "I" for a 1 ("l8", "1l8", "l20"). */
+const MAX_OCR_DF_LENGTH = 6;
+
 /**
- * "l" or "I" standing alone where a df of 1 belongs ("F(l, 57)"): a slip of
- * optical character recognition, read as 1 only when a separator or the
- * closing bracket follows, so no word can be meant.
+ * "l" or "I" where a 1 of a whole df belongs, alone or among digits ("F(l, 57)", "t(l8)", "F(2, l20)"): a
+ * slip of optical character recognition, read as 1 only when a separator or the closing bracket follows the
+ * run, so no word can be meant.
  */
 function readOcrOne(text: string, position: number): { number: ReportedNumber; end: number } | null {
-  const code = text.charCodeAt(position);
-  if (code !== 108 && code !== 73) return null; // l, I
-  const after = text.charCodeAt(skipSpaces(text, position + 1));
+  let end = position;
+  let slips = 0;
+  while (end - position < MAX_OCR_DF_LENGTH) {
+    const code = text.charCodeAt(end);
+    if (code === 108 || code === 73) slips++; // l, I
+    else if (code < 48 || code > 57) break;
+    end++;
+  }
+  if (slips === 0) return null;
+  const after = text.charCodeAt(skipSpaces(text, end));
   if (after !== 44 && after !== 59 && !CLOSING_BRACKETS.has(after)) return null;
-  return { number: plainNumber('1', 0), end: position + 1 };
+  const digits = text.slice(position, end).replace(/[lI]/g, '1');
+  return { number: plainNumber(digits, 0), end };
 }
 
 /** Reads the bracketed df of any statistic: "(2, 57)", "[1, 44]", "(45.3)", "(2, N = 120)". */
@@ -339,7 +350,8 @@ function readBracketedDf(text: string, position: number, kind: StatisticKind): D
     }
   }
   let at = skipDfLabel(text, skipSpaces(text, position + 1));
-  const first = readDf(text, at, kind !== 'F') ?? readOcrOne(text, at);
+  // (An OCR run is tried first: read as digits, "1l8" would stop at its "l".)
+  const first = readOcrOne(text, at) ?? readDf(text, at, kind !== 'F');
   if (first === null) return null;
   const df = [first.number];
   let sampleSize: ReportedNumber | null = null;
@@ -350,7 +362,8 @@ function readBracketedDf(text: string, position: number, kind: StatisticKind): D
   if (separator === 44 || separator === 59 || fSeparator) {
     at = skipSpaces(text, at + 1);
     if (kind === 'F') {
-      const second = readDf(text, skipDfLabel(text, at), false);
+      const secondAt = skipDfLabel(text, at);
+      const second = readOcrOne(text, secondAt) ?? readDf(text, secondAt, false);
       if (second === null) return null;
       df.push(second.number);
       at = skipSpaces(text, second.end);

@@ -329,3 +329,19 @@ describe('a symbol font that lost its minus, decimal point and brackets, from th
     expect(scanTextJson('A quarter ¼ of the sample waited 3¼ hours; t ¼ \uFFFD2:60 once.\n').statistics).toEqual([]);
   });
 });
+
+describe('an OCR "l" or "I" for a 1 inside a df, from the command line', () => {
+  it('reads "t(l8)" as t(18) and "F(2, l20)" as F(2, 120), and flags a p the F cannot give', () => {
+    // t(18) = 2.31 gives p = .0330 and F(2, 120) = 4.40 gives p = .0143 (SciPy 1.10.1 2 * scipy.stats.t.sf(2.31, 18)
+    // and scipy.stats.f.sf(4.40, 2, 120), computed when the test was written); invented numbers.
+    const text = (p: string): string => `Recall improved, t(l8) = 2.31, p = .033, and so did speed, F(2, l20) = 4.40, p = ${p}.\n`;
+    const right = scanTextJson(text('.014')).statistics;
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([
+      ['t', [18], 2.31],
+      ['F', [2, 120], 4.4],
+    ]);
+    expect(right.flatMap((statistic) => statistic.findings.filter((finding) => finding.rule === 'p-value-mismatch'))).toEqual([]);
+    const wrong = scanTextJson(text('.14')).statistics;
+    expect(wrong.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')).map((statistic) => statistic.kind)).toEqual(['F']);
+  });
+});
