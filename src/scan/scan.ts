@@ -246,10 +246,26 @@ function restoreLostSymbols(text: string): string {
 const WORD_COMPARATOR = /(?<![\p{L}\d])((?:F|t|z|Z|\u03c72|chi2|chi-squared?|chi squared?|X2)[- ](?:values?|ratio|statistic|score)) (was|were|is|of|equals|equalled|equal to) (?=[-\u2212]?\.?\d)/gu;
 
 function restoreWordComparators(text: string): string {
-  if (!text.includes('value') && !text.includes('ratio') && !text.includes('statistic') && !text.includes('score')) return text;
-  return text
+  const colons = text.includes(':') ? restoreColonSigns(text) : text;
+  if (!colons.includes('value') && !colons.includes('ratio') && !colons.includes('statistic') && !colons.includes('score')) return colons;
+  return colons
     .replace(WORD_COMPARATOR, (_, named: string, word: string) => `${named} =${' '.repeat(word.length)}`)
     .replace(NAME_COLON_VALUE, '$1=');
+}
+
+/**
+ * A result written with colons for its signs, "(χ2: 4.21, df: 1, p: 0.04)", "t: 2.31; p: 0.03": a statistic's
+ * symbol, a colon and its value, then (after its df written the same way, if any) a p, a colon and a value. Each
+ * colon of the run becomes "=" (one character for one, so offsets do not move); a colon after a symbol with no p
+ * written so after it ("Figure 2: 4 groups", "F: 4.2" alone) is left alone.
+ */
+const COLON_RESULT = /(?<![\p{L}\d])((?:F|t|z|Z|\u03c72|chi2|X2|r|rho|\u03c1)(?:\s?\(\d{1,6}(?:\.\d{1,3})?(?:,\s?\d{1,6}(?:\.\d{1,3})?)?\))?) ?: ?([-\u2212]?\d{0,6}\.?\d{1,6}[,;] ?)(?:(df) ?: ?(\d{1,6}(?:\.\d{1,3})?(?:, ?\d{1,6})?[,;] ?))?([pP]) ?: ?(?=[<>]? ?0?\.\d)/gu;
+
+function restoreColonSigns(text: string): string {
+  return text.replace(COLON_RESULT, (whole: string) => {
+    // The colons of the run, one for each sign: the symbol's, the df's and the p's.
+    return whole.replace(/ ?: ?/g, (colon) => colon.replace(':', '='));
+  });
 }
 
 /**

@@ -345,3 +345,16 @@ describe('an OCR "l" or "I" for a 1 inside a df, from the command line', () => {
     expect(wrong.filter((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')).map((statistic) => statistic.kind)).toEqual(['F']);
   });
 });
+
+describe('a result written with colons for its signs, from the command line', () => {
+  it('reads "(χ2: 4.21, df: 1, p: 0.04)" and flags a p the statistic cannot give; leaves "Figure 2: 4 groups" alone', () => {
+    // χ2(1) = 4.21 gives p = .0402 (SciPy 1.10.1 scipy.stats.chi2.sf(4.21, 1), computed when the test was written);
+    // invented numbers. Colons for signs: common practice in some theses and journals' house styles.
+    const text = (p: string): string => `Women chose the cue more often (χ2: 4.21, df: 1, p: ${p}). Figure 2: 4 groups, p: 0.5 in all.\n`;
+    const right = scanTextJson(text('0.04')).statistics;
+    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value, statistic.p?.text])).toEqual([['chi2', [1], 4.21, '0.04']]);
+    expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
+    const wrong = scanTextJson(text('0.4')).statistics;
+    expect(wrong[0]!.findings.map((finding) => finding.rule)).toContain('p-value-mismatch');
+  });
+});
