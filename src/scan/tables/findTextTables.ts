@@ -1267,6 +1267,9 @@ const NUMBERED_LABEL = /^\d{1,2}\.?\s{1,4}\p{L}/u;
 /** The diagonal of a correlation matrix as printed: a dash, or a correlation of 1. */
 const DIAGONAL_CELL = /^(?:[-\u2013\u2014\u2212]|1|1\.0{1,3})$/;
 
+/** A factor set to one of its levels by name in a row's label: "ROI = R-ant", "Group = Control" (a word on each side). */
+const LEVEL_SET_BY_NAME = /(?<=[\p{L}\d)]) ?= ?(?=\p{L})/gu;
+
 /** A row: a label, then a run of values (numbers, dashes, "ns") to the end of the line. */
 function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const text = line.text;
@@ -1293,8 +1296,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   if (labelNumbers) return null;
   // (A band of a variable as its label, ">70" or "<1000", is not a comparison.)
   const band = /^[<>\u2264\u2265] ?\d{1,6}$/.test(label.text);
-  // (A label may state its df or size in brackets: "Group (df = 2, 57)", "Women (n = 30)".)
-  const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, ''));
+  // (A label may state its df or size in brackets: "Group (df = 2, 57)", "Women (n = 30)", or set a factor to
+  // one of its levels by name, "ROI = R-ant", "Group = Control": a level's name is a word, not a number.)
+  const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, '').replace(LEVEL_SET_BY_NAME, ''));
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || (/[.;:,]$/.test(label.text) && !ABBREVIATION_END.test(label.text)) || (comparison && !band)) return null;
   return { label, values };
 }
