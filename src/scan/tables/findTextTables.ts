@@ -1769,7 +1769,10 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
   let index = header === null ? first : wrapped !== null ? first + 2 : first + 1;
   // Names a PDF's layout copy stacked over the header line ("Sum of" over "Squares", "Partial Eta" over "Squared").
-  const stacked = header !== null && header.aligned && wrapped === null ? stackedHeaderAbove(lines, first, header) : null;
+  // (Not the titles of side-by-side blocks over a header that names a block's columns again, "Confidence   Errors" over
+  // "Source df F p df F p": each title is the whole block's, read below, not a word of its block's first column.)
+  const titlesOverBlocks = header !== null && header.aligned && wrapped === null && repeatsBlockNames(header) ? capitalisedTitlesOf(lines[first - 1], header) : null;
+  const stacked = header !== null && header.aligned && wrapped === null && titlesOverBlocks === null ? stackedHeaderAbove(lines, first, header) : null;
   const columns = stacked?.names ?? header?.columns.map((column) => column.text) ?? null;
   if (header !== null && lines[index] !== undefined && HEADER_CONTINUATION.test(lines[index]!.text)) {
     attachContinuation(columns!, lines[index]!.text.trim().split(/\s+/));
@@ -1942,6 +1945,15 @@ function continuationValues(line: Line, room: number): Piece[] | null {
  * begins with a capital: kept only when that gives one title per statistic column, after the label column's name
  * or none. (A title with a capital inside, "Sperm count DSP", gives one title too many, and the line is not cut.)
  */
+/** Whether a header names its columns after the label in two or more like runs ("df F p df F p", "F p F p"). */
+function repeatsBlockNames(header: HeaderLine): boolean {
+  const names = header.columns.slice(1).map((column) => headerKey(column.text));
+  const blocks = names.filter((name) => name === names[0]).length;
+  if (blocks < 2 || names.length % blocks !== 0) return false;
+  const width = names.length / blocks;
+  return names.every((name, index) => name === names[index % width]);
+}
+
 function capitalisedTitlesOf(line: Line | undefined, header: HeaderLine): string[] | null {
   if (line === undefined || isBlank(line) || line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text) || NOTE.test(line.text) || /\d/.test(line.text)) return null;
   const blocks = header.columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;
