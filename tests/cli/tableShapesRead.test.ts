@@ -1811,4 +1811,70 @@ describe('results tables in the shapes papers print them', () => {
     ]);
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, true]);
   });
+
+  it('reads rows whose label sets a factor to a level by name ("ROI = Anterior Inferred vs. Given"), crushed or apart by runs of spaces', () => {
+    // The layout of corpus passage dvzi-01 (contrasts nested under "ROI = <region>" in the label, a df column then F
+    // and p); the numbers are made up (F(1, 23) = 18.20 gives p = .00029, 4.10 gives .0546, 7.61 gives .0112, 3.53
+    // gives .0730: SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written).
+    const rows = [
+      ['ROI = Anterior', 'Inferred vs. Given', '1, 23', '18.20', '<.001'],
+      ['New vs. Given', '1, 23', '4.10', '.055'],
+      ['ROI = Posterior', 'Inferred vs. Given', '1, 23', '7.61', '.011'],
+      ['New vs. Given', '1, 23', '3.53', '.073'],
+    ];
+    for (const separator of [' ', '   ']) {
+      const table = [['', 'df', 'F', 'p'].filter((cell) => cell !== '' || separator !== ' '), ...rows].map((row) => row.join(separator)).join('\n');
+      const document = scanTextJson(`Table 2. Contrasts of the conditions in each region\n${table}\n\nThe next section.\n`);
+      expect(readAs(document.statistics), JSON.stringify(separator)).toEqual([
+        ['F', 18.2, [1, 23]],
+        ['F', 4.1, [1, 23]],
+        ['F', 7.61, [1, 23]],
+        ['F', 3.53, [1, 23]],
+      ]);
+    }
+  });
+
+  it('reads side-by-side blocks aligned by position whose titles stand over a header that names each block\'s columns again, df from an Error row', () => {
+    // The layout of corpus passage dwdf-01 (a title over each block of "df … F p", an error row under them), as a
+    // PDF's layout copy aligns it by position; the numbers are made up (F(2, 198) = 3.56 gives p = .0303, F(2, 46) =
+    // 15.03 gives p < .001, F(1, 198) = 1.18 gives .279, F(1, 46) = 10.04 gives .0027: SciPy 1.10.1
+    // scipy.stats.f.sf, computed when the test was written).
+    const text = [
+      'Table 1. Analyses of variance of both outcomes',
+      '          Confidence                 Errors',
+      'Source    df           F      p      df       F       p',
+      'Session   2            3.56   .030   2        15.03   .000',
+      'Block     1            1.18   .279   1        10.04   .003',
+      'Error     198                        46',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 3.56, [2, 198]],
+      ['F', 15.03, [2, 46]],
+      ['F', 1.18, [1, 198]],
+      ['F', 10.04, [1, 46]],
+    ]);
+  });
+
+  it('reads a t cell with its df in brackets under a plain "t" in crushed rows of group means ("-2.16 (40)"), not a mean and SD of a row without its t', () => {
+    // A layout of tables comparing two groups (common practice: "M (SD)" per group, then the test); the numbers are
+    // made up (t(40) = -2.16 gives p = .0368, 1.68 gives .1008: SciPy 1.10.1 scipy.stats.t.sf, computed when the
+    // test was written).
+    const rows = [
+      ['Measure', 'Training (n = 21)', 'Control (n = 21)', 't', 'p'],
+      ['Mood', '35.2 (12)', '40.1 (11)', '-2.16 (40)', '.037'],
+      ['Anxiety', '30.2 (10)', '33.1 (9)'],
+      ['Sleep', '7.88 (1.03)', '3.79 (0.55)', '1.68 (40)', '.101'],
+    ];
+    const crushed = rows.map((row) => row.join(' ')).join('\n');
+    const cellPerLine = rows.map((row) => row.join('\n\n')).join('\n\n');
+    for (const table of [crushed, cellPerLine]) {
+      const document = scanTextJson(`Table 2. Group means and tests\n\n${table}\n\nThe next section.\n`);
+      // (The row without its t keeps "40.1 (11)" under Control: it is no t with 11 df.)
+      expect(readAs(document.statistics), table.slice(0, 60)).toEqual([
+        ['t', -2.16, [40]],
+        ['t', 1.68, [40]],
+      ]);
+    }
+  });
 });
