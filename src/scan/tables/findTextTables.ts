@@ -1330,6 +1330,9 @@ function singleValueRow(line: Line): DataLine | null {
   return data !== null && data.values.length === 1 && data.label.text !== '' && /\d/.test(data.values[0]!.text) ? data : null;
 }
 
+/** Most words of one name a layout copy stacks over a header's column ("Partial Eta", "Type III Sum"). */
+const MAX_STACKED_NAME_WORDS = 4;
+
 /** Most lines of names a layout copy stacks over a header line. */
 const MAX_STACKED_HEADER_LINES = 2;
 
@@ -1341,13 +1344,19 @@ const MAX_STACKED_HEADER_LINES = 2;
 function stackedHeaderAbove(lines: Line[], first: number, header: HeaderLine): { names: string[]; firstLine: number } | null {
   const names = header.columns.map((column) => column.text);
   const valuesFrom = header.columns[1]?.start ?? Infinity;
+  // A header line that names no label column and starts with a value column where the rows' labels start ("F (dfM,
+  // dfR)   p   η²" under "Variable   Group   Overall time effect"): a header's second line, or one whose cells stand
+  // apart but not in place; what stands over it is no column name stacked by position.
+  if (header.columns[0]!.text === '' && valuesFrom <= leadingSpace(lines[first]!.text)) return null;
   let above = first - 1;
   for (; above >= 0 && first - above <= MAX_STACKED_HEADER_LINES; above--) {
     const line = lines[above]!;
     if (isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text) || /\d/.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
     const pieces = alignedCells(line.text);
     const targets = pieces.map((piece) => columnUnder(piece, header.columns));
-    if (pieces.length === 0 || pieces.some((piece, index) => piece.start < valuesFrom - 1 || targets[index]! < 1)) break;
+    // (A stacked name is a few words, "Type III", "Sum of": a longer piece is a caption's line.)
+    const long = pieces.some((piece) => piece.text.split(/\s+/).length > MAX_STACKED_NAME_WORDS);
+    if (pieces.length === 0 || long || pieces.some((piece, index) => piece.start < valuesFrom - 1 || targets[index]! < 1)) break;
     pieces.forEach((piece, index) => (names[targets[index]!] = `${piece.text} ${names[targets[index]!]}`));
   }
   return above === first - 1 ? null : { names, firstLine: above + 1 };
