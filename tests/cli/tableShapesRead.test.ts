@@ -1877,4 +1877,26 @@ describe('results tables in the shapes papers print them', () => {
       ]);
     }
   });
+
+  it('reads an aligned header of two lines whose second starts with the F column, under a caption line (not names stacked over the F)', () => {
+    // The layout of corpus passage divf-01 (a caption line, "Variable   Group   Overall time effect   Interaction
+    // …" over "F (dfM, dfR)   p   η² …", the cells apart by runs of spaces); the numbers are made up (F(2, 98) =
+    // 9.34 gives p = .00019, F(4, 98) = 0.57 gives .685, F(2, 98) = 2.81 gives .0651, F(4, 98) = 0.25 gives .909:
+    // SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written).
+    const text = [
+      'Table 2.',
+      'Overall time and group effects and within-group effect sizes for stress and stress-related symptoms',
+      'Variable   Group   Overall time effect   Interaction time × group',
+      'F (dfM, dfR)   p   η²   F (dfM, dfR)   p   η²',
+      'Stress   Training   9.34 (2, 98)   < 0.001   0.16   0.57 (4, 98)   0.687   0.02',
+      'Mood   Training   2.81 (2, 98)   0.065   0.05   0.25 (4, 98)   0.908   0.01',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 9.34, [2, 98]],
+      ['F', 0.57, [4, 98]],
+      ['F', 2.81, [2, 98]],
+      ['F', 0.25, [4, 98]],
+    ]);
+  });
 });
