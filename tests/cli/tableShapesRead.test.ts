@@ -1899,4 +1899,31 @@ describe('results tables in the shapes papers print them', () => {
       ['F', 0.25, [4, 98]],
     ]);
   });
+
+  it('reads partial correlations as software prints them whose "Significance (2-tailed)" a narrow column wrapped over two lines', () => {
+    // The layout of corpus passage divt-05 (per variable a "Correlation", a "Significance (2-tailed)" and a "df" row),
+    // its p row's name wrapped as a PDF's narrow column wraps it; the numbers are made up (r = -0.448 with df 52 gives
+    // p = .00068, -0.361 gives .0073, -0.166 gives .230, -0.255 gives .0628: SciPy 1.10.1, 2 * scipy.stats.t.sf(|r| *
+    // sqrt(52 / (1 - r²)), 52), computed when the test was written).
+    const text = [
+      'Table 3.',
+      'Partial correlations between sleep quality and heart rate variability (n = 56).',
+      'Control Variables: Age and BMI Sleep Latency Daytime Dysfunction',
+      'Stress VLF Correlation −0.448 −0.361',
+      'Significance',
+      '(2-tailed) 0.001 * 0.007 *',
+      'df 52 52',
+      'Stress HF Correlation −0.166 −0.255',
+      'Significance',
+      '(2-tailed) 0.230 0.063',
+      'df 52 52',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['r', -0.448, [52], '0.001'],
+      ['r', -0.361, [52], '0.007'],
+      ['r', -0.166, [52], '0.230'],
+      ['r', -0.255, [52], '0.063'],
+    ]);
+  });
 });
