@@ -1559,7 +1559,9 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
       continue;
     }
     if (first <= 0) break;
-    rows.push([tokens.slice(0, first).map((token) => token.text).join(' '), ...tokens.slice(first).map((token) => token.text)]);
+    // (The label as the line prints it, gaps and all, "Spatial-temporal parameters   Gait speed": the reader finds each
+    // cell in its line, and a label joined with single spaces is not there, so its row would go unread.)
+    rows.push([join(line.text, tokens[0]!, tokens[first - 1]!).text, ...tokens.slice(first).map((token) => token.text)]);
     last = index;
   }
   if (rows.length < 2) return null;
