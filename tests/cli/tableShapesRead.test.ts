@@ -1926,4 +1926,32 @@ describe('results tables in the shapes papers print them', () => {
       ['r', -0.255, [52], '0.063'],
     ]);
   });
+
+  it('reads every row of a correlation table apart by runs of spaces, also those whose label is a group and a variable in two cells', () => {
+    // The layout of corpus passage divq-07 (a caption naming correlations, a group's name and its first variable in
+    // two cells of the first row, the other rows one label); the correlations are made up, read as printed (no n).
+    const text = [
+      'Table 3.',
+      'Spearman’s coefficients for correlations between gait parameters and test scores.',
+      'Gait Variables   MMSE   ACE-R',
+      'Spatial-temporal parameters   Gait speed   0.449   0.430',
+      'Stride length   0.446   0.422',
+      'Cadence   0.199   0.191',
+      'Harmonic Ratio   HR AP direction   0.323   0.303',
+      'HR ML direction   0.213   0.251',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value])).toEqual([
+      ['r', 0.449],
+      ['r', 0.43],
+      ['r', 0.446],
+      ['r', 0.422],
+      ['r', 0.199],
+      ['r', 0.191],
+      ['r', 0.323],
+      ['r', 0.303],
+      ['r', 0.213],
+      ['r', 0.251],
+    ]);
+  });
 });
