@@ -1853,4 +1853,147 @@ describe('results tables in the shapes papers print them', () => {
     // The lines of p are no statistics of their own: nothing is listed as not read.
     expect(document.tablesNotRead).toEqual([]);
   });
+
+  it('reads rows whose label sets a factor to a level by name ("ROI = Anterior Inferred vs. Given"), crushed or apart by runs of spaces', () => {
+    // The layout of corpus passage dvzi-01 (contrasts nested under "ROI = <region>" in the label, a df column then F
+    // and p); the numbers are made up (F(1, 23) = 18.20 gives p = .00029, 4.10 gives .0546, 7.61 gives .0112, 3.53
+    // gives .0730: SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written).
+    const rows = [
+      ['ROI = Anterior', 'Inferred vs. Given', '1, 23', '18.20', '<.001'],
+      ['New vs. Given', '1, 23', '4.10', '.055'],
+      ['ROI = Posterior', 'Inferred vs. Given', '1, 23', '7.61', '.011'],
+      ['New vs. Given', '1, 23', '3.53', '.073'],
+    ];
+    for (const separator of [' ', '   ']) {
+      const table = [['', 'df', 'F', 'p'].filter((cell) => cell !== '' || separator !== ' '), ...rows].map((row) => row.join(separator)).join('\n');
+      const document = scanTextJson(`Table 2. Contrasts of the conditions in each region\n${table}\n\nThe next section.\n`);
+      expect(readAs(document.statistics), JSON.stringify(separator)).toEqual([
+        ['F', 18.2, [1, 23]],
+        ['F', 4.1, [1, 23]],
+        ['F', 7.61, [1, 23]],
+        ['F', 3.53, [1, 23]],
+      ]);
+    }
+  });
+
+  it('reads side-by-side blocks aligned by position whose titles stand over a header that names each block\'s columns again, df from an Error row', () => {
+    // The layout of corpus passage dwdf-01 (a title over each block of "df … F p", an error row under them), as a
+    // PDF's layout copy aligns it by position; the numbers are made up (F(2, 198) = 3.56 gives p = .0303, F(2, 46) =
+    // 15.03 gives p < .001, F(1, 198) = 1.18 gives .279, F(1, 46) = 10.04 gives .0027: SciPy 1.10.1
+    // scipy.stats.f.sf, computed when the test was written).
+    const text = [
+      'Table 1. Analyses of variance of both outcomes',
+      '          Confidence                 Errors',
+      'Source    df           F      p      df       F       p',
+      'Session   2            3.56   .030   2        15.03   .000',
+      'Block     1            1.18   .279   1        10.04   .003',
+      'Error     198                        46',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 3.56, [2, 198]],
+      ['F', 15.03, [2, 46]],
+      ['F', 1.18, [1, 198]],
+      ['F', 10.04, [1, 46]],
+    ]);
+  });
+
+  it('reads a t cell with its df in brackets under a plain "t" in crushed rows of group means ("-2.16 (40)"), not a mean and SD of a row without its t', () => {
+    // A layout of tables comparing two groups (common practice: "M (SD)" per group, then the test); the numbers are
+    // made up (t(40) = -2.16 gives p = .0368, 1.68 gives .1008: SciPy 1.10.1 scipy.stats.t.sf, computed when the
+    // test was written).
+    const rows = [
+      ['Measure', 'Training (n = 21)', 'Control (n = 21)', 't', 'p'],
+      ['Mood', '35.2 (12)', '40.1 (11)', '-2.16 (40)', '.037'],
+      ['Anxiety', '30.2 (10)', '33.1 (9)'],
+      ['Sleep', '7.88 (1.03)', '3.79 (0.55)', '1.68 (40)', '.101'],
+    ];
+    const crushed = rows.map((row) => row.join(' ')).join('\n');
+    const cellPerLine = rows.map((row) => row.join('\n\n')).join('\n\n');
+    for (const table of [crushed, cellPerLine]) {
+      const document = scanTextJson(`Table 2. Group means and tests\n\n${table}\n\nThe next section.\n`);
+      // (The row without its t keeps "40.1 (11)" under Control: it is no t with 11 df.)
+      expect(readAs(document.statistics), table.slice(0, 60)).toEqual([
+        ['t', -2.16, [40]],
+        ['t', 1.68, [40]],
+      ]);
+    }
+  });
+
+  it('reads an aligned header of two lines whose second starts with the F column, under a caption line (not names stacked over the F)', () => {
+    // The layout of corpus passage divf-01 (a caption line, "Variable   Group   Overall time effect   Interaction
+    // …" over "F (dfM, dfR)   p   η² …", the cells apart by runs of spaces); the numbers are made up (F(2, 98) =
+    // 9.34 gives p = .00019, F(4, 98) = 0.57 gives .685, F(2, 98) = 2.81 gives .0651, F(4, 98) = 0.25 gives .909:
+    // SciPy 1.10.1 scipy.stats.f.sf, computed when the test was written).
+    const text = [
+      'Table 2.',
+      'Overall time and group effects and within-group effect sizes for stress and stress-related symptoms',
+      'Variable   Group   Overall time effect   Interaction time × group',
+      'F (dfM, dfR)   p   η²   F (dfM, dfR)   p   η²',
+      'Stress   Training   9.34 (2, 98)   < 0.001   0.16   0.57 (4, 98)   0.687   0.02',
+      'Mood   Training   2.81 (2, 98)   0.065   0.05   0.25 (4, 98)   0.908   0.01',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(readAs(document.statistics)).toEqual([
+      ['F', 9.34, [2, 98]],
+      ['F', 0.57, [4, 98]],
+      ['F', 2.81, [2, 98]],
+      ['F', 0.25, [4, 98]],
+    ]);
+  });
+
+  it('reads partial correlations as software prints them whose "Significance (2-tailed)" a narrow column wrapped over two lines', () => {
+    // The layout of corpus passage divt-05 (per variable a "Correlation", a "Significance (2-tailed)" and a "df" row),
+    // its p row's name wrapped as a PDF's narrow column wraps it; the numbers are made up (r = -0.448 with df 52 gives
+    // p = .00068, -0.361 gives .0073, -0.166 gives .230, -0.255 gives .0628: SciPy 1.10.1, 2 * scipy.stats.t.sf(|r| *
+    // sqrt(52 / (1 - r²)), 52), computed when the test was written).
+    const text = [
+      'Table 3.',
+      'Partial correlations between sleep quality and heart rate variability (n = 56).',
+      'Control Variables: Age and BMI Sleep Latency Daytime Dysfunction',
+      'Stress VLF Correlation −0.448 −0.361',
+      'Significance',
+      '(2-tailed) 0.001 * 0.007 *',
+      'df 52 52',
+      'Stress HF Correlation −0.166 −0.255',
+      'Significance',
+      '(2-tailed) 0.230 0.063',
+      'df 52 52',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text])).toEqual([
+      ['r', -0.448, [52], '0.001'],
+      ['r', -0.361, [52], '0.007'],
+      ['r', -0.166, [52], '0.230'],
+      ['r', -0.255, [52], '0.063'],
+    ]);
+  });
+
+  it('reads every row of a correlation table apart by runs of spaces, also those whose label is a group and a variable in two cells', () => {
+    // The layout of corpus passage divq-07 (a caption naming correlations, a group's name and its first variable in
+    // two cells of the first row, the other rows one label); the correlations are made up, read as printed (no n).
+    const text = [
+      'Table 3.',
+      'Spearman’s coefficients for correlations between gait parameters and test scores.',
+      'Gait Variables   MMSE   ACE-R',
+      'Spatial-temporal parameters   Gait speed   0.449   0.430',
+      'Stride length   0.446   0.422',
+      'Cadence   0.199   0.191',
+      'Harmonic Ratio   HR AP direction   0.323   0.303',
+      'HR ML direction   0.213   0.251',
+    ].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value])).toEqual([
+      ['r', 0.449],
+      ['r', 0.43],
+      ['r', 0.446],
+      ['r', 0.422],
+      ['r', 0.199],
+      ['r', 0.191],
+      ['r', 0.323],
+      ['r', 0.303],
+      ['r', 0.213],
+      ['r', 0.251],
+    ]);
+  });
 });

@@ -1342,6 +1342,9 @@ const NUMBERED_LABEL = /^\d{1,2}\.?\s{1,4}\p{L}/u;
 /** The diagonal of a correlation matrix as printed: a dash, or a correlation of 1. */
 const DIAGONAL_CELL = /^(?:[-\u2013\u2014\u2212]|1|1\.0{1,3})$/;
 
+/** A factor set to one of its levels by name in a row's label: "ROI = R-ant", "Group = Control" (a word on each side). */
+const LEVEL_SET_BY_NAME = /(?<=[\p{L}\d)]) ?= ?(?=\p{L})/gu;
+
 /** A row: a label, then a run of values (numbers, dashes, "ns") to the end of the line. */
 function readDataLine(line: Line, minimumValues: number): DataLine | null {
   const text = line.text;
@@ -1368,8 +1371,9 @@ function readDataLine(line: Line, minimumValues: number): DataLine | null {
   if (labelNumbers) return null;
   // (A band of a variable as its label, ">70" or "<1000", is not a comparison.)
   const band = /^[<>\u2264\u2265] ?\d{1,6}$/.test(label.text);
-  // (A label may state its df or size in brackets: "Group (df = 2, 57)", "Women (n = 30)".)
-  const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, ''));
+  // (A label may state its df or size in brackets: "Group (df = 2, 57)", "Women (n = 30)", or set a factor to
+  // one of its levels by name, "ROI = R-ant", "Group = Control": a level's name is a word, not a number.)
+  const comparison = /[=<>]/.test(label.text.replace(/\((?:df|d\.f\.|n|N)\s?=\s?[\d.,; /]{1,20}\)/g, '').replace(LEVEL_SET_BY_NAME, ''));
   if (label.text.length > MAX_LABEL_LENGTH || first > MAX_LABEL_WORDS || (/[.;:,]$/.test(label.text) && !ABBREVIATION_END.test(label.text)) || (comparison && !band)) return null;
   return { label, values };
 }
@@ -1401,6 +1405,9 @@ function singleValueRow(line: Line): DataLine | null {
   return data !== null && data.values.length === 1 && data.label.text !== '' && /\d/.test(data.values[0]!.text) ? data : null;
 }
 
+/** Most words of one name a layout copy stacks over a header's column ("Partial Eta", "Type III Sum"). */
+const MAX_STACKED_NAME_WORDS = 4;
+
 /** Most lines of names a layout copy stacks over a header line. */
 const MAX_STACKED_HEADER_LINES = 2;
 
@@ -1412,13 +1419,19 @@ const MAX_STACKED_HEADER_LINES = 2;
 function stackedHeaderAbove(lines: Line[], first: number, header: HeaderLine): { names: string[]; firstLine: number } | null {
   const names = header.columns.map((column) => column.text);
   const valuesFrom = header.columns[1]?.start ?? Infinity;
+  // A header line that names no label column and starts with a value column where the rows' labels start ("F (dfM,
+  // dfR)   p   η²" under "Variable   Group   Overall time effect"): a header's second line, or one whose cells stand
+  // apart but not in place; what stands over it is no column name stacked by position.
+  if (header.columns[0]!.text === '' && valuesFrom <= leadingSpace(lines[first]!.text)) return null;
   let above = first - 1;
   for (; above >= 0 && first - above <= MAX_STACKED_HEADER_LINES; above--) {
     const line = lines[above]!;
     if (isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text) || /\d/.test(line.text) || line.text.length > MAX_ROW_LENGTH) break;
     const pieces = alignedCells(line.text);
     const targets = pieces.map((piece) => columnUnder(piece, header.columns));
-    if (pieces.length === 0 || pieces.some((piece, index) => piece.start < valuesFrom - 1 || targets[index]! < 1)) break;
+    // (A stacked name is a few words, "Type III", "Sum of": a longer piece is a caption's line.)
+    const long = pieces.some((piece) => piece.text.split(/\s+/).length > MAX_STACKED_NAME_WORDS);
+    if (pieces.length === 0 || long || pieces.some((piece, index) => piece.start < valuesFrom - 1 || targets[index]! < 1)) break;
     pieces.forEach((piece, index) => (names[targets[index]!] = `${piece.text} ${names[targets[index]!]}`));
   }
   return above === first - 1 ? null : { names, firstLine: above + 1 };
@@ -1621,7 +1634,9 @@ function readCorrelationBlock(lines: Line[], titleIndex: number): { table: Docum
       continue;
     }
     if (first <= 0) break;
-    rows.push([tokens.slice(0, first).map((token) => token.text).join(' '), ...tokens.slice(first).map((token) => token.text)]);
+    // (The label as the line prints it, gaps and all, "Spatial-temporal parameters   Gait speed": the reader finds each
+    // cell in its line, and a label joined with single spaces is not there, so its row would go unread.)
+    rows.push([join(line.text, tokens[0]!, tokens[first - 1]!).text, ...tokens.slice(first).map((token) => token.text)]);
     last = index;
   }
   if (rows.length < 2) return null;
@@ -1843,7 +1858,10 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
   let index = header === null ? first : wrapped !== null ? first + 2 : first + 1;
   // Names a PDF's layout copy stacked over the header line ("Sum of" over "Squares", "Partial Eta" over "Squared").
-  const stacked = header !== null && header.aligned && wrapped === null ? stackedHeaderAbove(lines, first, header) : null;
+  // (Not the titles of side-by-side blocks over a header that names a block's columns again, "Confidence   Errors" over
+  // "Source df F p df F p": each title is the whole block's, read below, not a word of its block's first column.)
+  const titlesOverBlocks = header !== null && header.aligned && wrapped === null && repeatsBlockNames(header) ? capitalisedTitlesOf(lines[first - 1], header) : null;
+  const stacked = header !== null && header.aligned && wrapped === null && titlesOverBlocks === null ? stackedHeaderAbove(lines, first, header) : null;
   const columns = stacked?.names ?? header?.columns.map((column) => column.text) ?? null;
   if (header !== null && lines[index] !== undefined && HEADER_CONTINUATION.test(lines[index]!.text)) {
     attachContinuation(columns!, lines[index]!.text.trim().split(/\s+/));
@@ -2019,6 +2037,15 @@ function continuationValues(line: Line, room: number): Piece[] | null {
  * begins with a capital: kept only when that gives one title per statistic column, after the label column's name
  * or none. (A title with a capital inside, "Sperm count DSP", gives one title too many, and the line is not cut.)
  */
+/** Whether a header names its columns after the label in two or more like runs ("df F p df F p", "F p F p"). */
+function repeatsBlockNames(header: HeaderLine): boolean {
+  const names = header.columns.slice(1).map((column) => headerKey(column.text));
+  const blocks = names.filter((name) => name === names[0]).length;
+  if (blocks < 2 || names.length % blocks !== 0) return false;
+  const width = names.length / blocks;
+  return names.every((name, index) => name === names[index % width]);
+}
+
 function capitalisedTitlesOf(line: Line | undefined, header: HeaderLine): string[] | null {
   if (line === undefined || isBlank(line) || line.text.length > MAX_ROW_LENGTH || TITLE.test(line.text) || NOTE.test(line.text) || /\d/.test(line.text)) return null;
   const blocks = header.columns.filter((column) => classifyHeader(column.text).role === 'statistic').length;

@@ -31,6 +31,10 @@ type Line = TextLine;
 const R_ROW = /(?:Pearson(?:'s)? Correlation|Pearson(?:'s)? r|Correlation Coefficient|\bCorrelation)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
 /** A block's p row: "Sig. (2-tailed)", "Significance (2-tailed)", "p (2-tailed)". */
 const P_ROW = /^[ \t|]{0,12}(?:Sig\.?|Significance|p) ?\((1|2)[- ]tailed\)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
+/** A p row's name alone on its line, its tails wrapped onto the next with the values ("Significance" / "(2-tailed) 0.303 …"). */
+const P_NAME_ALONE = /^[ \t|]{0,12}(?:Sig\.?|Significance)[ \t|]{0,12}$/i;
+/** The wrapped rest of a p row's name, then its values. */
+const P_TAILS_WRAPPED = /^[ \t|]{0,12}\((1|2)[- ]tailed\)[ \t|]{0,12}(?=[-\u2212\u2013.\d|])/i;
 /** A block's N row. */
 const N_ROW = /^[ \t|]{0,12}N[ \t|]{0,12}(?=\d)/i;
 /** A block's df row, as partial correlations print it instead of N ("Correlation / Significance (2-tailed) / df"). */
@@ -106,7 +110,10 @@ export function readSpssCorrelations(lines: Line[], first: number): { table: Doc
     const block: Block = { name, nameSpan: nameAt < 0 ? null : { start: line.start + nameAt, end: line.start + nameAt + name.length }, r, p: null, oneTailed: false, n: null, df: null };
     lastLine = index;
     let next = nextNonBlank(lines, index + 1);
-    const pMatch = next < 0 ? null : P_ROW.exec(lines[next]!.text);
+    // (A narrow column wraps the p row's name, "Significance" over "(2-tailed) 0.303 …": its values are on the second line.)
+    const wrappedP = next >= 0 && P_NAME_ALONE.test(lines[next]!.text) && next + 1 < lines.length ? P_TAILS_WRAPPED.exec(lines[next + 1]!.text) : null;
+    if (wrappedP !== null) next++;
+    const pMatch = wrappedP ?? (next < 0 ? null : P_ROW.exec(lines[next]!.text));
     if (pMatch !== null) {
       block.p = valuesOf(lines[next]!, pMatch[0].length);
       block.oneTailed = pMatch[1] === '1';
