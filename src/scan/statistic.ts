@@ -368,8 +368,7 @@ function readBracketedDf(text: string, position: number, kind: StatisticKind): D
       df.push(second.number);
       at = skipSpaces(text, second.end);
     } else if (kind === 'chi2') {
-      // The sample size with its "N =", or without it: a whole number larger than the df ("χ2(1, 80)").
-      const sample = readSampleSizeLabel(text, at) ?? bareSampleSize(text, at, first.number);
+      const sample = readSampleSizeLabel(text, at);
       if (sample === null) return null;
       sampleSize = sample.number;
       at = skipSpaces(text, sample.end);
@@ -382,13 +381,6 @@ function readBracketedDf(text: string, position: number, kind: StatisticKind): D
   if (!CLOSING_BRACKETS.has(text.charCodeAt(at))) return null;
   if (kind === 'F' && df.length !== 2) return null;
   return { df, sampleSize, end: at + 1, bracketed: true, doubtful: false };
-}
-
-/** A chi-square's sample size written without "N =" after its df ("χ2(1, 80)"): a whole number larger than the df. */
-function bareSampleSize(text: string, position: number, df: ReportedNumber): { number: ReportedNumber; end: number } | null {
-  const read = readNumber(text, position, false);
-  if (read === null || read.number.decimals !== 0 || df.decimals !== 0 || read.number.value <= df.value) return null;
-  return read;
 }
 
 /** "N = 120" / "n = 1,024" inside a chi-square's brackets. */

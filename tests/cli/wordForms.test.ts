@@ -358,16 +358,3 @@ describe('a result written with colons for its signs, from the command line', ()
     expect(wrong[0]!.findings.map((finding) => finding.rule)).toContain('p-value-mismatch');
   });
 });
-
-describe('a chi-square with its sample size written without "N =", from the command line', () => {
-  it('reads "χ2 (2, 150) = 6.10" as χ2(2) with N = 150 and flags a p it cannot give; "χ2(2, 1)" is not read so', () => {
-    // χ2(2) = 6.10 gives p = .0474 (SciPy 1.10.1 scipy.stats.chi2.sf(6.10, 2), computed when the test was written);
-    // invented numbers.
-    const text = (p: string): string => `Choices differed between the sites, χ2 (2, 150) = 6.10, p = ${p}; and χ2(2, 1) = 3.3, p = .19.\n`;
-    const right = scanTextJson(text('.047')).statistics;
-    expect(right.map((statistic) => [statistic.kind, statistic.df, statistic.value])).toEqual([['chi2', [2], 6.1]]);
-    expect(right[0]!.findings.filter((finding) => finding.rule === 'p-value-mismatch')).toEqual([]);
-    const wrong = scanTextJson(text('.47')).statistics;
-    expect(wrong[0]!.findings.map((finding) => finding.rule)).toContain('p-value-mismatch');
-  });
-});
