@@ -1811,4 +1811,27 @@ describe('results tables in the shapes papers print them', () => {
     ]);
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, true]);
   });
+
+  it('reads a chi-square table one cell per line whose p are given by stars only, its group columns named by no vocabulary ("Cases n (%)")', () => {
+    // The layout of a case-control comparison copied one cell per line (generic: "Risk factor" / "Cases n (%)" /
+    // "Controls n (%)" / "χ2 (df = 2)", a note giving the stars' p); the numbers are made up (χ2(2) = 13.55 gives p =
+    // .0011, 7.40 gives .025, 4.10 gives .129: SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
+    for (const labelName of ['Risk factor', 'Characteristic']) {
+      const rows = [
+        [labelName, 'Cases n (%)', 'Controls n (%)', 'χ2 (df = 2)'],
+        ['Smoking', '41 (45.6)', '22 (24.4)', '13.55**'],
+        ['Alcohol use', '30 (33.3)', '18 (20.0)', '7.40*'],
+        ['Region', '25 (27.8)', '17 (18.9)', '4.10*'],
+      ];
+      const text = ['Table 1. Exposures of cases and controls', ...rows.flat(), 'Note. *p < .05. **p < .01. ***p < .001.'].join('\n');
+      const document = scanTextJson(`${text}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.comparator, statistic.p?.value]), labelName).toEqual([
+        ['chi2', 13.55, [2], '<', 0.01],
+        ['chi2', 7.4, [2], '<', 0.05],
+        ['chi2', 4.1, [2], '<', 0.05],
+      ]);
+      // The last row's star (p < .05) is not what χ2(2) = 4.10 gives (.129).
+      expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')), labelName).toEqual([false, false, true]);
+    }
+  });
 });
