@@ -1834,4 +1834,29 @@ describe('results tables in the shapes papers print them', () => {
       expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')), labelName).toEqual([false, false, true]);
     }
   });
+
+  it('reads a table copied one cell per line with a lone "|" closing every cell, a test\'s row ("Z") with its p in the row below ("P")', () => {
+    // The layout of tune passage dxab-01 (a preprint page's table as text: each cell followed by a line holding "|",
+    // two pipes in a row for an empty cell, a header cell over two lines); the numbers are made up (z = -2.10 gives
+    // two-sided p = .036, -3.00 gives .0027, 0.85 gives .395: SciPy 1.10.1 2 * scipy.stats.norm.sf(|z|), computed
+    // when the test was written).
+    const rows = [
+      ['Variables', 'Frequency (n)\n/Percentage (%)', 'Sleep/P50 (P25, P75)', 'Mood/P50 (P25, P75)', 'Stress/P50 (P25, P75)'],
+      ['Gender', '', '', '', ''],
+      ['Male', '402/44.0', '12.00 (11.00, 13.00)', '8.00 (7.00, 9.00)', '3.00 (2.00, 5.00)'],
+      ['Female', '510/56.0', '13.00 (11.00, 14.00)', '9.00 (7.00, 10.00)', '3.00 (2.00, 5.00)'],
+      ['Z', '', '-2.10', '-3.00', '0.85'],
+      ['P', '', '0.036', '0.003', '0.040'],
+    ];
+    const cells = rows.flat().flatMap((cell) => (cell === '' ? ['|'] : [cell, '|']));
+    const text = ['Table 1. Characteristics of the participants (n = 912)', ...cells].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.text])).toEqual([
+      ['z', -2.1, '0.036'],
+      ['z', -3, '0.003'],
+      ['z', 0.85, '0.040'],
+    ]);
+    // The last p (.040) is not what z = 0.85 gives (.395).
+    expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
+  });
 });

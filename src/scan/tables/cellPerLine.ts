@@ -397,6 +397,8 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
   let tailEmpties: { at: number; run: number } | null = null;
   for (let index = from; index < lines.length && index <= lastLine && cells.length < MAX_BODY_CELLS && textCells < mostTextCells; index++) {
     const line = lines[index]!;
+    // (A pipe that closes the cell above it, or a line joined onto it: no cell, and no blank line either.)
+    if (line.closesCell === true) continue;
     const inner = stripPipes(line.text);
     if (inner === null) {
       if (blankRun === 0 && adjacentCells >= 1 && adjacentCells > 3 * separatedCells) {

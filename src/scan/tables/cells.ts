@@ -165,6 +165,8 @@ export interface TextLine {
   start: number;
   end: number;
   text: string;
+  /** A lone "|" that closes the cell above it, or a line joined onto that cell (pipeClosed.ts): no cell, no blank line. */
+  closesCell?: true;
 }
 
 export type ColumnRole =
