@@ -1859,4 +1859,34 @@ describe('results tables in the shapes papers print them', () => {
     // The last p (.040) is not what z = 0.85 gives (.395).
     expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
   });
+
+  it('reads a t cell with its df in brackets under a plain "t", crushed or one cell per line ("2.28 (76)"), but never a group\'s "M (n)" as a t', () => {
+    // A layout of tables comparing two groups (common practice: "M (SD)" per group, then the test); the numbers are
+    // made up (t(76) = -1.29 gives p = .201, 2.28 gives .025, 2.60 gives .011: SciPy 1.10.1 2 * scipy.stats.t.sf,
+    // computed when the test was written).
+    const rows = [
+      ['Measure', 'Control (n = 39)', 'Drug (n = 39)', 't', 'p'],
+      ['Sleep quality', '7.06 (1.03)', '4.82 (1.79)', '−1.29 (76)', '.201'],
+      ['Mood', '3.66 (1.64)', '7.88 (1.62)', '2.28 (76)', '.025'],
+      ['Anxiety', '5.12 (0.90)', '4.40 (1.21)', '2.60 (76)', '.04'],
+    ];
+    for (const layout of ['crushed', 'one cell per line']) {
+      const body = layout === 'crushed' ? rows.map((row) => row.join(' ')) : rows.flat();
+      const document = scanTextJson(['Table 2. Comparison of the groups', ...body, '', 'The next section.', ''].join('\n'));
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text]), layout).toEqual([
+        ['t', -1.29, [76], '.201'],
+        ['t', 2.28, [76], '.025'],
+        ['t', 2.6, [76], '.04'],
+      ]);
+      // The last row's p (.04) is not what t(76) = 2.60 gives (.011).
+      expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')), layout).toEqual([false, false, true]);
+    }
+    // Group columns of a mean with its n ("5.20 (24)") beside a plain t: the t is read without df, no mean as a t.
+    const counts = [['Measure', 'Control M (n)', 'Drug M (n)', 't', 'p'], ['Sleep', '5.20 (24)', '6.10 (25)', '2.28', '.025'], ['Mood', '4.90 (24)', '5.70 (25)', '', '']];
+    for (const layout of ['crushed', 'one cell per line']) {
+      const body = layout === 'crushed' ? counts.map((row) => row.filter((cell) => cell !== '').join(' ')) : counts.flat().filter((cell) => cell !== '');
+      const document = scanTextJson(['Table 2. Comparison of the groups', ...body, '', 'The next section.', ''].join('\n'));
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]), layout).toEqual([['t', 2.28, []]]);
+    }
+  });
 });

@@ -222,6 +222,9 @@ export function isValueShape(shape: CellShape): boolean {
 }
 
 const NEVER = -1e6;
+/** How well "2.28 (76)" fits a plain "t" column: barely, below any other column a value in brackets fits (see fit). */
+const LAST_RESORT_T_DF = 0.1;
+
 /** What leaving out an empty cell costs (see placeFrom): a blank one, and a printed placeholder ("N/A", "—"), which surely holds a column's place. */
 const EMPTY_DROP_COST = 0.5;
 const PLACEHOLDER_DROP_COST = 1;
@@ -265,7 +268,11 @@ export function fit(role: ColumnRole, cell: CellShape): number {
         // (Under a plain "F", a pair of whole numbers in brackets: an F's df, as above.)
         const fPair = role.kind === 'F' && twoDf && cell.innerDecimals === 0 && cell.innerComparator === undefined;
         const withDf = ((role.dfInCell === true || cell.namedDf === true) && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F')) || fPair;
-        if (!withDf) return -3;
+        // (Under a plain "t", one whole number in brackets after a value with decimals, "2.28 (76)", is its df only
+        // where nothing else fits: a mean with its n, "5.20 (24)", fits a group's column better, so the row's cells
+        // must leave this one to the t column, as a row of exactly one cell per column does.)
+        const tDfUnnamed = role.kind === 't' && !twoDf && cell.innerDecimals === 0 && cell.innerComparator === undefined && cell.inner >= 1 && cell.wholeValue !== true;
+        if (!withDf) return tDfUnnamed ? LAST_RESORT_T_DF : -3;
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;
       }
