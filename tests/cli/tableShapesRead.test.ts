@@ -1889,4 +1889,23 @@ describe('results tables in the shapes papers print them', () => {
       expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]), layout).toEqual([['t', 2.28, []]]);
     }
   });
+
+  it('reads the cells of a value with its df ("6.2 (4)") under a "χ2(df)" header in a table copied one cell per line whose rows\' order is lost, each without a p', () => {
+    // The layout of tune passage dxbc-01 (a PDF's text giving a table column block by column block: the column groups'
+    // names, the row groups', the "χ2(df)" / "p-value" sub-headers, then two countries' χ2 cells side by side before
+    // the first country's p); the numbers are made up.
+    const header = ['Region A', 'Region B', 'Region C', 'LRT (block 1)', 'LRT (block 2)', 'R2', 'AIC', 'χ2(df)', 'p-value', 'χ2(df)', 'p-value', 'Model 0', 'Model 1', 'Model 0', 'Model 1'];
+    const scattered = ['8.10 (4)', '120.3 (4)', '0.088', '-', '0.013', '0.091', '139.3', '141.0', '< 0.001', '-', '0.044', '0.196', '1447.5', '1310.0', '21.7 (4)', '< 0.001', '-', '0.045', '0.118', '417.2', '406.0'];
+    const text = ['Table 4 Likelihood ratio tests and fit of the regression models', '', ...header.flatMap((cell) => [cell, '']), ...scattered, '', 'The next section.', ''].join('\n');
+    const document = scanTextJson(text);
+    // Each value with the df its cell holds, none with a p: nothing ties a p to it.
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p])).toEqual([
+      ['chi2', 8.1, [4], null],
+      ['chi2', 120.3, [4], null],
+      ['chi2', 21.7, [4], null],
+    ]);
+    // Where a column of means holds brackets too ("Mean (SD)"), "8.10 (4)" could be a mean and its n: nothing is read.
+    const withMeans = text.replace('R2', 'Mean (SD)');
+    expect(scanTextJson(withMeans).statistics).toEqual([]);
+  });
 });

@@ -33,6 +33,7 @@ import { readSpreadsheetTest } from './spreadsheetTests.js';
 import { readPThenStatisticTable } from './pThenStatistic.js';
 import { readTransposedTable } from './transposed.js';
 import { linesClosedByPipes } from './pipeClosed.js';
+import { readScatteredStatisticCells } from './scatteredCells.js';
 
 interface Line extends TextLine {
   /** Cells are separated by single spaces whatever the gaps look like (see withConsistentSeparators). */
@@ -65,12 +66,14 @@ const COLUMN_CODE = /^[A-Za-z]{1,3}\d{1,3}(?:[\u2013\u2014-]\d{1,3})?[a-z]?$/;
 /** Finds the tables in a text that carries no table markup. */
 /**
  * A table one cell per line under the title at `lines[titleLine]`: its rows, or its statistics' rows when it is on
- * its side, or a correlation block or matrix. A copy that closes each cell with a lone "|" is read with those pipes
+ * its side, or a correlation block or matrix; or, when its rows' order is lost, its cells of a value with its df
+ * (scatteredCells.ts). A copy that closes each cell with a lone "|" is read with those pipes
  * as closers, not empty cells (pipeClosed.ts).
  */
 function readTitledCellPerLine(lines: TextLine[], titleLine: number): { table: DocumentTable; lastLine: number } | null {
   const cells = linesClosedByPipes(lines, titleLine + 1) ?? lines;
-  return readCellPerLineTable(cells, titleLine) ?? readTransposedTable(cells, titleLine) ?? readCorrelationBlock(lines, titleLine) ?? readGluedMatrix(lines, titleLine);
+  // (A block whose rows' order is lost first: read as rows, its cells land in the wrong columns.)
+  return readScatteredStatisticCells(lines, titleLine) ?? readCellPerLineTable(cells, titleLine) ?? readTransposedTable(cells, titleLine) ?? readCorrelationBlock(lines, titleLine) ?? readGluedMatrix(lines, titleLine);
 }
 
 export function findTextTables(text: string): DocumentTable[] {
