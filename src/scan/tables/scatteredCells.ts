@@ -68,7 +68,7 @@ const NUMBER_CELL = /^(?:[<>\u2264\u2265=]\s?)?[-\u2212]?(?:\d|\.\d)|^[-\u2013\u
 /** Column roles whose cells may hold a value with a whole number in brackets, or say the df stand apart. */
 const HEADS_OTHER_BRACKETS = new Set(['descriptive', 'df', 'df1', 'df2', 'result']);
 /** A header's bracket naming what a group's cells hold beside their value: "(%)", "(SD)", "(n)", "(SE)", "(IQR)", "(range)", "(95% CI)". */
-const DESCRIBES_BRACKET = /\((?:%|n\b|n\)|sd|se|iqr|range|95)/;
+const DESCRIBES_BRACKET = /\((?:%|n\b|sd|se|iqr|range|95)/;
 
 /** The cells of a titled block of short lines read as a test's values with their df, or null. */
 export function readScatteredStatisticCells(lines: Line[], titleLine: number): { table: DocumentTable; lastLine: number } | null {
