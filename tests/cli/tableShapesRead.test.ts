@@ -1996,4 +1996,101 @@ describe('results tables in the shapes papers print them', () => {
       ['r', 0.251],
     ]);
   });
+
+  it('reads a chi-square table one cell per line whose p are given by stars only, its group columns named by no vocabulary ("Cases n (%)")', () => {
+    // The layout of a case-control comparison copied one cell per line (generic: "Risk factor" / "Cases n (%)" /
+    // "Controls n (%)" / "χ2 (df = 2)", a note giving the stars' p); the numbers are made up (χ2(2) = 13.55 gives p =
+    // .0011, 7.40 gives .025, 4.10 gives .129: SciPy 1.10.1 scipy.stats.chi2.sf, computed when the test was written).
+    for (const labelName of ['Risk factor', 'Characteristic']) {
+      const rows = [
+        [labelName, 'Cases n (%)', 'Controls n (%)', 'χ2 (df = 2)'],
+        ['Smoking', '41 (45.6)', '22 (24.4)', '13.55**'],
+        ['Alcohol use', '30 (33.3)', '18 (20.0)', '7.40*'],
+        ['Region', '25 (27.8)', '17 (18.9)', '4.10*'],
+      ];
+      const text = ['Table 1. Exposures of cases and controls', ...rows.flat(), 'Note. *p < .05. **p < .01. ***p < .001.'].join('\n');
+      const document = scanTextJson(`${text}\n\nThe next section.\n`);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.comparator, statistic.p?.value]), labelName).toEqual([
+        ['chi2', 13.55, [2], '<', 0.01],
+        ['chi2', 7.4, [2], '<', 0.05],
+        ['chi2', 4.1, [2], '<', 0.05],
+      ]);
+      // The last row's star (p < .05) is not what χ2(2) = 4.10 gives (.129).
+      expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')), labelName).toEqual([false, false, true]);
+    }
+  });
+
+  it('reads a table copied one cell per line with a lone "|" closing every cell, a test\'s row ("Z") with its p in the row below ("P")', () => {
+    // The layout of tune passage dxab-01 (a preprint page's table as text: each cell followed by a line holding "|",
+    // two pipes in a row for an empty cell, a header cell over two lines); the numbers are made up (z = -2.10 gives
+    // two-sided p = .036, -3.00 gives .0027, 0.85 gives .395: SciPy 1.10.1 2 * scipy.stats.norm.sf(|z|), computed
+    // when the test was written).
+    const rows = [
+      ['Variables', 'Frequency (n)\n/Percentage (%)', 'Sleep/P50 (P25, P75)', 'Mood/P50 (P25, P75)', 'Stress/P50 (P25, P75)'],
+      ['Gender', '', '', '', ''],
+      ['Male', '402/44.0', '12.00 (11.00, 13.00)', '8.00 (7.00, 9.00)', '3.00 (2.00, 5.00)'],
+      ['Female', '510/56.0', '13.00 (11.00, 14.00)', '9.00 (7.00, 10.00)', '3.00 (2.00, 5.00)'],
+      ['Z', '', '-2.10', '-3.00', '0.85'],
+      ['P', '', '0.036', '0.003', '0.040'],
+    ];
+    const cells = rows.flat().flatMap((cell) => (cell === '' ? ['|'] : [cell, '|']));
+    const text = ['Table 1. Characteristics of the participants (n = 912)', ...cells].join('\n');
+    const document = scanTextJson(`${text}\n\nThe next section.\n`);
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.text])).toEqual([
+      ['z', -2.1, '0.036'],
+      ['z', -3, '0.003'],
+      ['z', 0.85, '0.040'],
+    ]);
+    // The last p (.040) is not what z = 0.85 gives (.395).
+    expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch'))).toEqual([false, false, true]);
+  });
+
+  it('reads a t cell with its df in brackets under a plain "t", crushed or one cell per line ("2.28 (76)"), but never a group\'s "M (n)" as a t', () => {
+    // A layout of tables comparing two groups (common practice: "M (SD)" per group, then the test); the numbers are
+    // made up (t(76) = -1.29 gives p = .201, 2.28 gives .025, 2.60 gives .011: SciPy 1.10.1 2 * scipy.stats.t.sf,
+    // computed when the test was written).
+    const rows = [
+      ['Measure', 'Control (n = 39)', 'Drug (n = 39)', 't', 'p'],
+      ['Sleep quality', '7.06 (1.03)', '4.82 (1.79)', '−1.29 (76)', '.201'],
+      ['Mood', '3.66 (1.64)', '7.88 (1.62)', '2.28 (76)', '.025'],
+      ['Anxiety', '5.12 (0.90)', '4.40 (1.21)', '2.60 (76)', '.04'],
+    ];
+    for (const layout of ['crushed', 'one cell per line']) {
+      const body = layout === 'crushed' ? rows.map((row) => row.join(' ')) : rows.flat();
+      const document = scanTextJson(['Table 2. Comparison of the groups', ...body, '', 'The next section.', ''].join('\n'));
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text]), layout).toEqual([
+        ['t', -1.29, [76], '.201'],
+        ['t', 2.28, [76], '.025'],
+        ['t', 2.6, [76], '.04'],
+      ]);
+      // The last row's p (.04) is not what t(76) = 2.60 gives (.011).
+      expect(document.statistics.map((statistic) => statistic.findings.some((finding) => finding.rule === 'p-value-mismatch')), layout).toEqual([false, false, true]);
+    }
+    // Group columns of a mean with its n ("5.20 (24)") beside a plain t: the t is read without df, no mean as a t.
+    const counts = [['Measure', 'Control M (n)', 'Drug M (n)', 't', 'p'], ['Sleep', '5.20 (24)', '6.10 (25)', '2.28', '.025'], ['Mood', '4.90 (24)', '5.70 (25)', '', '']];
+    for (const layout of ['crushed', 'one cell per line']) {
+      const body = layout === 'crushed' ? counts.map((row) => row.filter((cell) => cell !== '').join(' ')) : counts.flat().filter((cell) => cell !== '');
+      const document = scanTextJson(['Table 2. Comparison of the groups', ...body, '', 'The next section.', ''].join('\n'));
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df]), layout).toEqual([['t', 2.28, []]]);
+    }
+  });
+
+  it('reads the cells of a value with its df ("6.2 (4)") under a "χ2(df)" header in a table copied one cell per line whose rows\' order is lost, each without a p', () => {
+    // The layout of tune passage dxbc-01 (a PDF's text giving a table column block by column block: the column groups'
+    // names, the row groups', the "χ2(df)" / "p-value" sub-headers, then two countries' χ2 cells side by side before
+    // the first country's p); the numbers are made up.
+    const header = ['Region A', 'Region B', 'Region C', 'LRT (block 1)', 'LRT (block 2)', 'R2', 'AIC', 'χ2(df)', 'p-value', 'χ2(df)', 'p-value', 'Model 0', 'Model 1', 'Model 0', 'Model 1'];
+    const scattered = ['8.10 (4)', '120.3 (4)', '0.088', '-', '0.013', '0.091', '139.3', '141.0', '< 0.001', '-', '0.044', '0.196', '1447.5', '1310.0', '21.7 (4)', '< 0.001', '-', '0.045', '0.118', '417.2', '406.0'];
+    const text = ['Table 4 Likelihood ratio tests and fit of the regression models', '', ...header.flatMap((cell) => [cell, '']), ...scattered, '', 'The next section.', ''].join('\n');
+    const document = scanTextJson(text);
+    // Each value with the df its cell holds, none with a p: nothing ties a p to it.
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p])).toEqual([
+      ['chi2', 8.1, [4], null],
+      ['chi2', 120.3, [4], null],
+      ['chi2', 21.7, [4], null],
+    ]);
+    // Where a column of means holds brackets too ("Mean (SD)"), "8.10 (4)" could be a mean and its n: nothing is read.
+    const withMeans = text.replace('R2', 'Mean (SD)');
+    expect(scanTextJson(withMeans).statistics).toEqual([]);
+  });
 });

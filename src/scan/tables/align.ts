@@ -222,8 +222,8 @@ export function isValueShape(shape: CellShape): boolean {
 }
 
 const NEVER = -1e6;
-/** How well "2.28 (76)" fits under a plain "t": below a group's column's fit of a bracketed value (see fit). */
-const T_DF_UNDER_PLAIN_T = 0.5;
+/** How well "2.28 (76)" fits a plain "t" column: barely, below any other column a value in brackets fits (see fit). */
+const LAST_RESORT_T_DF = 0.1;
 
 /** What leaving out an empty cell costs (see placeFrom): a blank one, and a printed placeholder ("N/A", "—"), which surely holds a column's place. */
 const EMPTY_DROP_COST = 0.5;
@@ -268,11 +268,11 @@ export function fit(role: ColumnRole, cell: CellShape): number {
         // (Under a plain "F", a pair of whole numbers in brackets: an F's df, as above.)
         const fPair = role.kind === 'F' && twoDf && cell.innerDecimals === 0 && cell.innerComparator === undefined;
         const withDf = ((role.dfInCell === true || cell.namedDf === true) && role.kind !== 'r' && cell.innerDecimals === 0 && cell.innerComparator === undefined && twoDf === (role.kind === 'F')) || fPair;
-        // (Under a plain "t", one whole number in brackets after a value with decimals is the t's df, "2.28 (76)", as a
-        // pipe table's cell is read; but a mean with a whole SD, "35.2 (12)", looks the same, so it fits there no better
-        // than under a group's column: a row short of a cell keeps its bracketed values under the groups.)
-        const tDf = role.kind === 't' && !twoDf && cell.innerDecimals === 0 && cell.inner >= 1 && cell.innerComparator === undefined && cell.wholeValue !== true;
-        if (!withDf) return tDf ? T_DF_UNDER_PLAIN_T : -3;
+        // (Under a plain "t", one whole number in brackets after a value with decimals, "2.28 (76)", is its df only
+        // where nothing else fits: a mean with its n, "5.20 (24)", fits a group's column better, so the row's cells
+        // must leave this one to the t column, as a row of exactly one cell per column does.)
+        const tDfUnnamed = role.kind === 't' && !twoDf && cell.innerDecimals === 0 && cell.innerComparator === undefined && cell.inner >= 1 && cell.wholeValue !== true;
+        if (!withDf) return tDfUnnamed ? LAST_RESORT_T_DF : -3;
         if ((role.kind === 'F' || role.kind === 'chi2') && cell.value < 0) return -4;
         return cell.wholeValue === true && cell.innerPair !== true ? -1 : 3;
       }

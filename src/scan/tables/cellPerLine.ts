@@ -244,7 +244,13 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
   // (Only after a run of at least two known names of value columns, "χ2 (1)", "P": one known name alone may be
   // a row's label, "Correlation", with the header further back.)
   const knownRun = headerRun.length >= 2 && headerRun.every((cell) => isColumnName(cell.text) && !['label', 'unknown'].includes(classifyHeader(cell.text).role));
-  const unnamed = grid === null && knownRun && valueCount > headerRun.length ? unnamedColumnsBefore(cells, first, valueCount - headerRun.length, titleLine) : null;
+  // (Or after one known name of a test, "χ2 (df = 2)", whose columns before are named by the header's cells from its
+  // first after the title on, "Risk factor" / "Cases n (%)" / "Controls n (%)": stars give the p, no p column.)
+  const loneTest = grid === null && titled && headerRun.length === 1 && namesTestOtherThanR(headerRun[0]!.text);
+  const unnamed =
+    grid === null && (knownRun || loneTest) && valueCount > headerRun.length
+      ? unnamedColumnsBefore(cells, first, valueCount - headerRun.length, titleLine, loneTest ? labelHeaderOnly : undefined)
+      : null;
   if (unnamed !== null) {
     headerRun = [...unnamed, ...headerRun];
     first = cells.indexOf(unnamed[0]!);
@@ -395,6 +401,8 @@ function collectCells(lines: Line[], from: number, lastLine = Infinity, mostText
   let tailEmpties: { at: number; run: number } | null = null;
   for (let index = from; index < lines.length && index <= lastLine && cells.length < MAX_BODY_CELLS && textCells < mostTextCells; index++) {
     const line = lines[index]!;
+    // (A pipe that closes the cell above it, or a line joined onto it: no cell, and no blank line either.)
+    if (line.closesCell === true) continue;
     const inner = stripPipes(line.text);
     if (inner === null) {
       if (blankRun === 0 && adjacentCells >= 1 && adjacentCells > 3 * separatedCells) {
@@ -562,9 +570,10 @@ function typicalFilledValues(cells: Cell[]): number {
  * own after the title that names a column (a year, a group: "2011", "Intervention"), not a label header
  * ("Question", "Variable") and not a caption line; null when there are not that many.
  */
-function unnamedColumnsBefore(cells: Cell[], first: number, missing: number, titleLine: number): Cell[] | null {
+function unnamedColumnsBefore(cells: Cell[], first: number, missing: number, titleLine: number, before?: (cells: Cell[], at: number, titleLine: number) => boolean): Cell[] | null {
   const names: Cell[] = [];
-  for (let index = first - 1; index >= 0 && names.length < missing; index--) {
+  let index = first - 1;
+  for (; index >= 0 && names.length < missing; index--) {
     const cell = cells[index]!;
     if (cell.empty) continue;
     if (cell.line <= titleLine || cell.text.length > MAX_UNNAMED_COLUMN || FROM_LINE.test(cell.text)) return null;
@@ -572,7 +581,30 @@ function unnamedColumnsBefore(cells: Cell[], first: number, missing: number, tit
     if (classifyHeader(cell.text).role === 'label') return null;
     names.unshift(cell);
   }
-  return names.length === missing ? names : null;
+  if (names.length !== missing) return null;
+  return before === undefined || before(cells, index, titleLine) ? names : null;
+}
+
+/** Whether a test's name other than a correlation's ("χ2 (df = 2)", "t", "F"): "Correlation" alone may be a row's label. */
+function namesTestOtherThanR(text: string): boolean {
+  const role = classifyHeader(text);
+  return isColumnName(text) && role.role === 'statistic' && role.kind !== 'r';
+}
+
+/**
+ * Whether the cells up to `at` are one short text cell, the label column's name, and nothing else after the title
+ * ("Risk factor"): the header then starts right under the title, no caption line or row of another table's cells
+ * before it, so the cells between it and the test's name can only name the columns before the test's.
+ */
+function labelHeaderOnly(cells: Cell[], at: number, titleLine: number): boolean {
+  let textCells = 0;
+  for (let index = at; index >= 0; index--) {
+    const cell = cells[index]!;
+    if (cell.empty) continue;
+    if (cell.line <= titleLine || isValueCell(cell) || cell.text.length > MAX_UNNAMED_COLUMN) return false;
+    textCells++;
+  }
+  return textCells === 1;
 }
 
 /** A year naming a column ("2011", "2012"): a header cell, though it reads as a number. */

@@ -165,6 +165,8 @@ export interface TextLine {
   start: number;
   end: number;
   text: string;
+  /** A lone "|" that closes the cell above it, or a line joined onto that cell (pipeClosed.ts): no cell, no blank line. */
+  closesCell?: true;
 }
 
 export type ColumnRole =
@@ -210,6 +212,9 @@ function put(keys: string[], role: ColumnRole): void {
   for (const key of keys) ROLE_BY_KEY.set(key, role);
 }
 put(['source', 'sources', 'effect', 'effects', 'predictor', 'predictors', 'variable', 'variables', 'term', 'factor', 'source of variation', 'source of variance', 'comparison', 'contrast', 'measure', 'model', 'parameter', 'outcome', 'test', 'variable pair', 'association', 'item'], { role: 'label' });
+// A table of a sample's characteristics by group names its label column so ("Characteristic" / "Cases n (%)" / "Controls
+// n (%)" / "χ2"): common practice in clinical and epidemiological tables.
+put(['characteristic', 'characteristics'], { role: 'label' });
 put(['ss', 'sum of squares', 'sums of squares', 'type iii ss', 'type iii sum of squares', 'type ii ss', 'type ii sum of squares', 'type i ss', 'type i sum of squares', 'sum sq', 'sum sq.', 'sumsq', 'ss effect'], { role: 'ss' });
 put(['df', 'd.f.', 'd.f', 'dfs', 'degrees of freedom', 'dof'], { role: 'df' });
 // Both df of an F named in one column, whose cells hold them as a pair ("1, 10").

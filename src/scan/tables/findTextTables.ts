@@ -32,6 +32,8 @@ import { readSpssCorrelations } from './spssCorrelations.js';
 import { readSpreadsheetTest } from './spreadsheetTests.js';
 import { readPThenStatisticTable } from './pThenStatistic.js';
 import { readTransposedTable } from './transposed.js';
+import { linesClosedByPipes } from './pipeClosed.js';
+import { readScatteredStatisticCells } from './scatteredCells.js';
 
 interface Line extends TextLine {
   /** Cells are separated by single spaces whatever the gaps look like (see withConsistentSeparators). */
@@ -62,6 +64,18 @@ const HEADER_CONTINUATION = /^\s*(?:2|p|g|p2|2p|g2|2g)(?:\s+(?:2|p|g|p2|2p|g2|2g
 const COLUMN_CODE = /^[A-Za-z]{1,3}\d{1,3}(?:[\u2013\u2014-]\d{1,3})?[a-z]?$/;
 
 /** Finds the tables in a text that carries no table markup. */
+/**
+ * A table one cell per line under the title at `lines[titleLine]`: its rows, or its statistics' rows when it is on
+ * its side, or a correlation block or matrix; or, when its rows' order is lost, its cells of a value with its df
+ * (scatteredCells.ts). A copy that closes each cell with a lone "|" is read with those pipes
+ * as closers, not empty cells (pipeClosed.ts).
+ */
+function readTitledCellPerLine(lines: TextLine[], titleLine: number): { table: DocumentTable; lastLine: number } | null {
+  const cells = linesClosedByPipes(lines, titleLine + 1) ?? lines;
+  // (A block whose rows' order is lost first: read as rows, its cells land in the wrong columns.)
+  return readScatteredStatisticCells(lines, titleLine) ?? readCellPerLineTable(cells, titleLine) ?? readTransposedTable(cells, titleLine) ?? readCorrelationBlock(lines, titleLine) ?? readGluedMatrix(lines, titleLine);
+}
+
 export function findTextTables(text: string): DocumentTable[] {
   const lines = splitLines(text).flatMap(splitEmbeddedTable).map(withConsistentSeparators);
   const tables: DocumentTable[] = [];
@@ -120,7 +134,7 @@ export function findTextTables(text: string): DocumentTable[] {
     const found = cellPerLineWithPipes ? null : (piped ?? readTabTable(lines, index) ?? readSpacedTable(lines, index));
     if (found === null) {
       const rebuilt =
-        (TITLE.test(lines[index]!.text) ? (readCellPerLineTable(lines, index) ?? readTransposedTable(lines, index) ?? readCorrelationBlock(lines, index) ?? readGluedMatrix(lines, index)) : null) ??
+        (TITLE.test(lines[index]!.text) ? readTitledCellPerLine(lines, index) : null) ??
         readGluedTable(lines, index) ??
         readUntitledCellPerLineTable(lines, index);
       if (rebuilt !== null) {

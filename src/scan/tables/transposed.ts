@@ -291,8 +291,17 @@ function collectCells(lines: Line[], from: number): (Cell | null)[] {
   const cells: (Cell | null)[] = [];
   let blankRun = 0;
   let statisticSeen = false;
+  let closedCopy = false;
   for (let index = from; index < lines.length && index - from <= MAX_LINES; index++) {
     const line = lines[index]!;
+    // (A pipe that closes the cell above it, or a line joined onto it: no cell, and no blank line either. In such a
+    // copy a lone pipe after one is an empty cell between pipes, which a pipe row's pieces skip too: "Z" / "|" / "|" /
+    // "-4.576" reads as "| Z | | -4.576 |" does.)
+    if (line.closesCell === true) {
+      closedCopy = true;
+      continue;
+    }
+    if (closedCopy && line.text.trim() === '|') continue;
     if (line.text.length === 0) {
       if (++blankRun > MAX_BLANK_RUN) break;
       continue;
