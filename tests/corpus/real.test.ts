@@ -154,7 +154,9 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
   },
   holdout: {
     table: { recall: 0.53, precision: 0.96, maxFailRate: 0.01 },
-    text: { recall: 0.67, precision: 0.98, maxFailRate: 0.01 },
+    // (2026-12-05, eleventh session, end: 0.677 -> 0.719, dxbb-02's correlations in a symbol font that lost its minus
+    // and decimal point, read once the same paper's tune passage was; as measured.)
+    text: { recall: 0.71, precision: 0.98, maxFailRate: 0.01 },
   },
 };
 
@@ -306,7 +308,8 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (2026-12-05, tenth-session batch dwn, 12 prose passages: tune 21 -> 24, holdout 114 -> 125, as measured)
   // (2026-12-05, tenth-session batch dwo: tune 21 -> 69, holdout 114 -> 121, as measured; see the note above FLOORS)
   // (2026-12-05, tenth-session batch dwm: holdout 114 -> 128, the 14 misses of dwmg-01, as measured; tune 21 kept (21))
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 57, holdout: 145 };
+  // (2026-12-05, eleventh session, end: tune 57 -> 55, holdout 145 -> 141, as measured)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 55, holdout: 141 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
