@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, P_UNDER_VALUE, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readWrittenCorrelations } from './writtenCorrelations.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
@@ -2028,8 +2028,6 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
   );
 }
 
-/** A p set under its statistic's value in the same column: "p < .001", "p = .006", "(.006)", "(<.001)", "(p = .02)". */
-const P_UNDER_VALUE = /^\s*(?:[pP]\s?[<=>\u2264\u2265]\s?0?\.\d{1,4}|\(\s?(?:[pP]\s?)?[<=>\u2264\u2265]?\s?0?\.\d{1,4}\s?\))\s*$/;
 
 /** For each row, the nearest error row below it; above it only when the table has a single error row. */
 /** A sphericity correction's name in a row label, as statistics programs print each effect's and error's rows. */
