@@ -2093,4 +2093,41 @@ describe('results tables in the shapes papers print them', () => {
     const withMeans = text.replace('R2', 'Mean (SD)');
     expect(scanTextJson(withMeans).statistics).toEqual([]);
   });
+
+  it('reads each F with the p printed on the line under its value, crushed, aligned or one cell per line, up to the error row', () => {
+    // The layout of the tab copies read already ("Source df F", each F's p on the next line under it, then "Error");
+    // the numbers are made up. p from SciPy 1.x (/usr/bin/python3): f.sf(6.20, 1, 48) = 0.0163, f.sf(4.10, 2, 48) =
+    // 0.0227, f.sf(0.85, 1, 48) = 0.361, f.sf(14.90, 1, 48) = 0.00034.
+    const rows: [string, string, string, string][] = [
+      ['Group', '1', '6.20', 'p = .016'],
+      ['Age', '2', '4.10', '(.023)'],
+      ['Dose', '1', '0.85', '(.361)'],
+      ['Group × Age', '1', '14.90', 'p < .001'],
+    ];
+    const pad = (cell: string, width: number) => cell + ' '.repeat(Math.max(1, width - cell.length));
+    const copies: Record<string, string[]> = {
+      crushed: ['Source df F', ...rows.flatMap(([label, df, f, p]) => [`${label} ${df} ${f}`, p]), 'Error 48'],
+      aligned: [
+        `${pad('Source', 15)}${pad('df', 5)}F`,
+        ...rows.flatMap(([label, df, f, p]) => [`${pad(label, 15)}${pad(df, 5)}${f}`, `${' '.repeat(20)}${p}`]),
+        `${pad('Error', 15)}48`,
+      ],
+      'one cell per line': ['Source', 'df', 'F', ...rows.flat(), 'Error', '48'],
+    };
+    for (const [copy, lines] of Object.entries(copies)) {
+      const text = ['Table 2. Outcomes at follow-up', ...lines, '', 'The next section.', ''].join('\n');
+      const document = scanTextJson(text);
+      expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df, statistic.p?.text]), copy).toEqual([
+        ['F', 6.2, [1, 48], '.016'],
+        ['F', 4.1, [2, 48], '.023'],
+        ['F', 0.85, [1, 48], '.361'],
+        ['F', 14.9, [1, 48], '.001'],
+      ]);
+      // Each p as printed is what its F and df give: nothing is flagged.
+      expect(document.statistics.flatMap((statistic) => statistic.findings.map((finding) => finding.rule)), copy).not.toContain('p-value-mismatch');
+    }
+    // A p line that stands under another column than the F's (here the df's) is not the F's p: no row takes it.
+    const elsewhere = ['Table 2. Outcomes at follow-up', 'Source         df   F', 'Group          1    6.20', '               p = .016', 'Age            2    4.10', 'Error          48', '', 'Next.', ''].join('\n');
+    expect(scanTextJson(elsewhere).statistics.map((statistic) => [statistic.value, statistic.p?.text ?? null])).not.toContainEqual([6.2, '.016']);
+  });
 });

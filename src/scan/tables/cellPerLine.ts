@@ -27,7 +27,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, NAMES_TEST_COLUMN, namesEffectWithTest, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, NAMES_TEST_COLUMN, namesEffectWithTest, P_UNDER_VALUE, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
 import { fit, shapeOf } from './align.js';
 
 type Line = TextLine;
@@ -324,8 +324,23 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
   // (A header that took every cell leaves no body: no table.)
   if (bodyStart >= cells.length) return null;
   let lastLine = cells[bodyStart]!.line;
+  // A p set on the line under a row's last value ("2.80" / "p = .104", "16.64" / "(<.001)"), where no column is the
+  // p's: a row of its own with no label, the p in the last column, for the reader to tie to the value above.
+  const pUnderRows = grid === null && !roles.some((role) => role.role === 'p');
+  const pushPUnder = (cell: Cell): void => {
+    rows.push(['', ...names.slice(1).map(() => ''), cell.text]);
+    spans.push([null, ...names.slice(1).map(() => null), spanOf1(cell)]);
+    lastLine = cell.line;
+  };
   while (index < body.length) {
     const cell = body[index]!;
+    const previousRow = rows[rows.length - 1]!;
+    const underFullRow = pUnderRows && pendingText.length === 0 && rows.length > 1 && previousRow.length === names.length + 1 && previousRow[0] !== '' && previousRow[names.length] !== '';
+    if (underFullRow && !cell.empty && P_UNDER_VALUE.test(cell.text)) {
+      pushPUnder(cell);
+      index++;
+      continue;
+    }
     if (!isValueCell(cell)) {
       pendingText.push(cell);
       index++;
@@ -333,6 +348,10 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
     }
     let end = index;
     while (end < body.length && isValueCell(body[end]!)) end++;
+    // (A run one value longer than the columns whose last value is a p alone: that p is under the row's last value.)
+    const lastValue = body[end - 1]!;
+    const pAfterRow = pUnderRows && end - index === names.length + 1 && !lastValue.empty && P_UNDER_VALUE.test(lastValue.text) && pendingText.length > 0 ? lastValue : null;
+    if (pAfterRow !== null) end--;
     const values = body.slice(index, end);
     // A header printed again partway down under other names ("(x̄ ± s)" / "(x̄ ± s)" / "(x̄ ± s)" / "t" / "p"): a
     // header row of its own, before the next row's label, or closing with empty cells when none follows.
@@ -363,6 +382,10 @@ function readCellsAs(lines: Line[], titleLine: number, title: Line, titled: bool
     lastLine = body[end - 1]!.line;
     pendingText = [];
     index = end;
+    if (pAfterRow !== null) {
+      pushPUnder(pAfterRow);
+      index++;
+    }
   }
   if (rows.length < 2) return null;
   const lastCell = body.filter((cell) => cell.line <= lastLine).pop()!;

@@ -689,3 +689,6 @@ export function statisticOfTwo(name: string, cells: string): ColumnRole | null {
   // ("χ2/t (df)": each cell holds its value and df, "0.56 (1)".)
   return match[5] !== undefined ? { role: 'statistic', kind, df: [], dfInCell: true } : { role: 'statistic', kind, df: [] };
 }
+
+/** A p set under its statistic's value in the same column: "p < .001", "p = .006", "(.006)", "(<.001)", "(p = .02)". */
+export const P_UNDER_VALUE = /^\s*(?:[pP]\s?[<=>\u2264\u2265]\s?0?\.\d{1,4}|\(\s?(?:[pP]\s?)?[<=>\u2264\u2265]?\s?0?\.\d{1,4}\s?\))\s*$/;

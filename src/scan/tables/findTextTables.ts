@@ -20,7 +20,7 @@
  */
 
 import type { CellSpan, DocumentTable, TableLayout } from '../../documents/types.js';
-import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, readCell, TABLE_TITLE, type TextLine } from './cells.js';
+import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, P_UNDER_VALUE, readCell, TABLE_TITLE, type TextLine } from './cells.js';
 import { isBracketedPairCell, shapeOf } from './align.js';
 import { keepAnswers } from '../memo.js';
 import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
@@ -1898,6 +1898,13 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     // A line of values only, under a row that came out short: the rest of that row, broken over lines
     // by the copy ("Contact 0.26 * (0.14, 0.43)" / "0.50 (0.32, 0.74)" / "- 3.60 0.07").
     const previous = rows[rows.length - 1];
+    // A line of nothing but a p under a row of values ("p < .001", "(.006)"): that row's p, set under its value.
+    const pUnder = header !== null && columns !== null && previous !== undefined && !Array.isArray(previous) ? pUnderValueCells(line, previous, header, columns.length) : null;
+    if (pUnder !== null) {
+      rows.push(pUnder);
+      last = index;
+      continue;
+    }
     // (Crushed rows only: their cells are placed by what they hold, not by where they stand on the line.)
     if (header !== null && !header.aligned && !header.tabbed && previous !== undefined && !Array.isArray(previous)) {
       const rest = continuationValues(line, widest - previous.data.values.length);
@@ -2017,6 +2024,32 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   if (widened !== null) rows[headerAt] = widened;
   const firstLine = blockTitles !== null ? first - 1 : stacked !== null ? stacked.firstLine : null;
   return { ...placeRows(rows, header, last), headed: header !== null, ...(firstLine !== null ? { firstLine } : {}) };
+}
+
+/**
+ * The cells of a line that holds nothing but a p ("p < .001", "(.006)", "(<.001)") under a row of values, as
+ * tables print each effect's p on the line under its F: a row with no label and the p in the column of the value
+ * it stands under (aligned: by position, when the row above has a value there; crushed, where positions say
+ * nothing: the last column, when the row above fills every column, so that its last value is the one the p is
+ * under). The reader ties it to the value above or leaves it; it never counts as a row of its own. Null when the
+ * line is anything else or the column cannot be told.
+ */
+function pUnderValueCells(line: Line, previous: { data: DataLine; line: Line }, header: HeaderLine, width: number): string[] | null {
+  if (header.tabbed || !P_UNDER_VALUE.test(line.text)) return null;
+  const text = line.text.trim();
+  const cells = new Array<string>(width).fill('');
+  if (!header.aligned) {
+    if (previous.data.values.length !== width - 1) return null;
+    cells[width - 1] = text;
+    return cells;
+  }
+  const start = leadingSpace(line.text);
+  if (start === 0) return null;
+  const column = columnUnder({ text, start, end: start + text.length }, header.columns);
+  const above = placeRow(previous.data, previous.line, header);
+  if (column < 1 || above === null || !isNumberToken(above[column] ?? '')) return null;
+  cells[column] = text;
+  return cells;
 }
 
 /**

@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, P_UNDER_VALUE, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readWrittenCorrelations } from './writtenCorrelations.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
@@ -590,19 +590,22 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     const resultsBefore = results.length;
     let readWithoutDf = false;
     const leveneWithoutDf: { segment: Segment; result: ReportedResult | null }[] = [];
-    for (const segment of segments) {
+    for (const plainSegment of segments) {
+      // The p set on the line under this row's value, in a table with no p column: read as this row's p.
+      const withPBelow = pUnderValueBelow(virtualRows, index, plainSegment);
+      const segment = withPBelow?.segment ?? plainSegment;
       const result = readRow({
         text,
         table,
         tableIndex,
         kind: segment.kind ?? kind,
-        row,
-        cellsAt,
+        row: withPBelow?.row ?? row,
+        cellsAt: withPBelow?.cellsAt ?? cellsAt,
         segment,
         multiple: segments.length > 1 && blockUnknown !== true,
         errorRow: errorIndex === null ? null : { row: virtualRows[errorIndex]!.cells, cellsAt: virtualRows[errorIndex]!.at },
         noteDf: markScoped && !carriesMark(row[segment.columns.get('statistic') ?? -1]) ? withoutNotePairs(tableNoteDf) : noteDfFor(tableNoteDf, [segment.title ?? '', row[0] ?? '']),
-        lostCommaDf: lostComma.has(segment),
+        lostCommaDf: lostComma.has(plainSegment),
         noteN,
         legend,
         rowSpan,
@@ -1535,6 +1538,15 @@ interface VirtualRow {
   blockUnknown?: boolean;
 }
 
+/** A row with no label and a p alone ("p < .001", "(.006)") in one of its columns, placed as written; null for any other row. */
+function pUnderValueOnly(written: string[], writtenAt: (LocatedCell | null)[] | null, width: number): VirtualRow | null {
+  const filled = written.flatMap((cell, column) => (cell.trim() === '' ? [] : [column]));
+  if (filled.length !== 1 || filled[0]! < 1 || filled[0]! >= width || !P_UNDER_VALUE.test(written[filled[0]!]!)) return null;
+  const cells = Array.from({ length: width }, (_, column) => written[column] ?? '');
+  const at = Array.from({ length: width }, (_, column) => writtenAt?.[column] ?? null);
+  return { cells, at };
+}
+
 /**
  * The rows a body row stands for. A row is cut where a text cell follows
  * value cells ("Between groups | 6.77 | 4 | ... | Within groups | 22.64 |
@@ -1544,6 +1556,10 @@ interface VirtualRow {
  * (align.ts).
  */
 function virtualRowsOf(written: string[], writtenAt: (LocatedCell | null)[] | null, schema: Schema, afterErrorTerm = false): { rows: VirtualRow[]; unplaced: number } {
+  // A row of nothing but a p in one value column ("(<.001)" under an F): kept where it stands, for the row above to
+  // take as its p (pUnderValueBelow); read as text, a bracketed p would become a label.
+  const pOnly = pUnderValueOnly(written, writtenAt, schema.roles.length);
+  if (pOnly !== null) return { rows: [pOnly], unplaced: 0 };
   const split = splitValueAndInterval(written, writtenAt, schema);
   const cellsAt = split.cellsAt;
   let row = split.row;
@@ -2028,8 +2044,31 @@ function isErrorRow(row: string[], segments: Segment[], separator: DecimalSepara
   );
 }
 
-/** A p set under its statistic's value in the same column: "p < .001", "p = .006", "(.006)", "(<.001)", "(p = .02)". */
-const P_UNDER_VALUE = /^\s*(?:[pP]\s?[<=>\u2264\u2265]\s?0?\.\d{1,4}|\(\s?(?:[pP]\s?)?[<=>\u2264\u2265]?\s?0?\.\d{1,4}\s?\))\s*$/;
+
+/**
+ * The row, cells and segment of a row with the p under its value read as a p column of its own: when the segment
+ * has no p column, the row has a label and a number in the statistic column, and the next row holds nothing but a
+ * p ("p < .001", "(.006)") in that same column (how tables print each effect's p under its F). Only the row right
+ * above the p is given it: a p under an empty cell, or after a row of the table's other cells, ties to nothing.
+ */
+function pUnderValueBelow(rows: readonly VirtualRow[], index: number, segment: Segment): { row: string[]; cellsAt: (LocatedCell | null)[] | null; segment: Segment } | null {
+  const column = segment.columns.get('statistic');
+  const below = rows[index + 1];
+  if (column === undefined || segment.columns.has('p') || below === undefined) return null;
+  const { cells: row, at: cellsAt } = rows[index]!;
+  if ((row[0] ?? '').trim() === '' || !shapeOf(row[column] ?? '').shape.startsWith('number')) return null;
+  const pCell = below.cells[column] ?? '';
+  if (!P_UNDER_VALUE.test(pCell) || below.cells.some((cell, at) => at !== column && cell.trim() !== '')) return null;
+  // (Brackets around the p, "(.006)", "(p = .02)", are the layout's, not the p's: read inside them.)
+  const open = pCell.indexOf('(');
+  const inner = open === -1 ? pCell : pCell.slice(open + 1, pCell.lastIndexOf(')'));
+  const offset = open === -1 ? 0 : open + 1;
+  const pAt = below.at?.[column] ?? null;
+  const width = Math.max(row.length, column + 1);
+  const cells = [...row, ...new Array<string>(width - row.length).fill(''), inner];
+  const at = cellsAt === null ? null : [...cellsAt, ...new Array<LocatedCell | null>(width - cellsAt.length).fill(null), pAt === null ? null : { start: pAt.start + offset, end: pAt.start + offset + inner.length }];
+  return { row: cells, cellsAt: at, segment: { ...segment, columns: new Map(segment.columns).set('p', width) } };
+}
 
 /** For each row, the nearest error row below it; above it only when the table has a single error row. */
 /** A sphericity correction's name in a row label, as statistics programs print each effect's and error's rows. */
