@@ -207,4 +207,29 @@ describe('correlation matrices in other common layouts, from the command line', 
       ]);
     }
   });
+
+  it('reads a crushed matrix whose cells carry a caret standing apart ("0.17 ^"), a mark for p < .10, without taking a p from it', () => {
+    // The mark of tests/corpus/real/passages/divt-02.txt (CC BY), crushed; the numbers are made up (r(118) = .17 gives
+    // p = .063, .45 gives p < .001, -.20 gives p = .029: SciPy 1.10.1 2 * scipy.stats.t.sf of r*sqrt(118/(1-r^2)),
+    // computed when the test was written).
+    const text = [
+      'Table 2. Correlations among the measures (N = 120)',
+      'Variable 1 2 3 4',
+      '1. Anxiety -',
+      '2. Stress 0.17 ^ -',
+      '3. Sleep 0.45 ** 0.30 ** -',
+      '4. Mood -0.20 * 0.16 ^ 0.41 ** -',
+      'Note. * p < .05; ** p < .01; ^ p < .10.',
+    ].join('\n');
+    const statistics = scanTextJson(`${text}\n\nThe next section.\n`).statistics;
+    expect(statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df])).toEqual([
+      ['r', 0.17, [118]],
+      ['r', 0.45, [118]],
+      ['r', 0.3, [118]],
+      ['r', -0.2, [118]],
+      ['r', 0.16, [118]],
+      ['r', 0.41, [118]],
+    ]);
+    expect(statistics.flatMap((statistic) => statistic.findings.filter((finding) => finding.severity === 'fail'))).toEqual([]);
+  });
 });

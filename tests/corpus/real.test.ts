@@ -207,21 +207,24 @@ const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision
 // correlation block's "Significance" / "(2-tailed)" wrapped, and a correlation table's label kept with its gaps: crushed
 // 0.901 -> 0.939, aligned 0.877 -> 0.935, crushed page-break 0.891 -> 0.930, aligned page-break 0.867 -> 0.925,
 // crushed wrapped 0.879 -> 0.937, aligned wrapped 0.855 -> 0.930, as measured.)
+// (2026-12-05, eleventh session, end: a caret standing apart after a matrix value ("0.12 ^") is joined to it as a mark:
+// crushed 0.939 -> 0.947, aligned 0.935 -> 0.942, crushed / aligned page-break 0.930 / 0.925 -> 0.937 / 0.932, crushed /
+// aligned wrapped 0.937 / 0.930 -> 0.944 / 0.937, as measured.)
 const RENDERING_FLOORS: Record<Rendering, number> = {
   tabs: 0.99,
-  crushed: 0.93,
+  crushed: 0.94,
   'cell-per-line': 0.94,
   'consecutive-lines': 0.95,
-  aligned: 0.93,
+  aligned: 0.94,
   'tabs-page-break': 0.98,
-  'crushed-page-break': 0.92,
-  'aligned-page-break': 0.92,
+  'crushed-page-break': 0.93,
+  'aligned-page-break': 0.93,
   // 2026-12-05, eleventh session: pipe rows with a page's running head between two of them (a PDF converted to
   // Markdown), new: 0.617 before pipe tables were read across a page break, 0.966 after, as measured.
   'pipe-page-break': 0.96,
   'tabs-wrapped-labels': 0.97,
-  'crushed-wrapped-labels': 0.93,
-  'aligned-wrapped-labels': 0.92,
+  'crushed-wrapped-labels': 0.94,
+  'aligned-wrapped-labels': 0.93,
 };
 
 describe('real corpus: the passages and their labels', () => {

@@ -380,9 +380,12 @@ function valueCellOf(written: string, place: Located): ValueCell {
   return { number, marks, start: place.start, end: place.end, marksStart: marks === '' ? place.end : place.start + written.lastIndexOf(marks) };
 }
 
+/** A caret standing apart after a value ("0.12 ^"), a mark some tables use for p < .10 besides stars. */
+const CARET_MARK = /^\^{1,2}$/;
+
 /** Marks standing as a cell of their own ("0.47 | ***" crushed to "0.47 ***") joined to the value before them; true when joined. */
 function attachMarks(previous: ValueCell | undefined, written: string, place: Located): boolean {
-  if (previous === undefined || previous.marks !== '' || !MARK.test(written)) return false;
+  if (previous === undefined || previous.marks !== '' || !(MARK.test(written) || CARET_MARK.test(written))) return false;
   previous.marks = written;
   previous.marksStart = place.start;
   previous.end = place.end;
