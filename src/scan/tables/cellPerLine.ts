@@ -27,17 +27,12 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, isKnownHeader, NAMES_TEST_COLUMN, namesEffectWithTest, P_UNDER_VALUE, readCell, splitRunTogetherNames, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, isKnownHeader, NAMES_TEST_COLUMN, namesEffectWithTest, P_UNDER_VALUE, readCell, splitRunTogetherNames, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
 import { fit, shapeOf } from './align.js';
 
 type Line = TextLine;
 
-interface Cell {
-  text: string;
-  start: number;
-  end: number;
-  /** Index of its line. */
-  line: number;
+interface Cell extends LineCell {
   /** Spaces only: an empty cell. */
   empty: boolean;
 }

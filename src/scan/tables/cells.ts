@@ -161,6 +161,15 @@ export function isNumberCell(cell: string): boolean {
 
 /** What a column holds, read from its header. */
 /** A line of the text with its offsets, as the table finders cut it. */
+/** A cell of a table copied one cell per line: its text, its offsets in the document, and the index of its line. */
+export interface LineCell {
+  text: string;
+  start: number;
+  end: number;
+  /** Index of its line. */
+  line: number;
+}
+
 export interface TextLine {
   start: number;
   end: number;

@@ -35,16 +35,11 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, TABLE_TITLE, type TextLine } from './cells.js';
+import { classifyHeader, headerKey, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
-interface Cell {
-  text: string;
-  start: number;
-  end: number;
-  line: number;
-}
+type Cell = LineCell;
 
 /** Most lines after the title looked at. */
 const MAX_LINES = 300;

@@ -21,16 +21,11 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, ERROR_LABEL, headerKey, readCell, statisticOfTwo, TABLE_TITLE, TOTAL_LABEL, type ColumnRole, type TextLine } from './cells.js';
+import { classifyHeader, ERROR_LABEL, headerKey, readCell, statisticOfTwo, TABLE_TITLE, TOTAL_LABEL, type ColumnRole, type LineCell, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
-interface Cell {
-  text: string;
-  start: number;
-  end: number;
-  line: number;
-}
+type Cell = LineCell;
 
 /** Most lines after the title looked at. */
 const MAX_LINES = 400;
