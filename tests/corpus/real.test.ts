@@ -147,13 +147,17 @@ const scores = scoreCorpus(corpus);
 // below, none read, and 8 chi-squares without df). As measured: tune table 0.847 (precision 0.9993), tune text
 // 0.9696, holdout table 0.5202 (precision 0.9637), holdout text 0.7065; all-labels tune 0.603, holdout 0.4055;
 // silent misses tune 50, holdout 141 (the new misses sit in tables listed as not read): every floor and ceiling kept.
+// 2026-12-05, twelfth session: glued rows whose columns print their own decimals, header names unknown to the
+// vocabulary cut at capitals, footnote letters set apart on header names, "value" for a lost italic P: tune table
+// 0.847 -> 0.854 (dwhg-01's 16, divx-08's 2), holdout table 0.536 -> 0.569 (as measured, aggregate only); floors
+// raised: tune table 0.85, holdout table 0.56.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.84, precision: 0.99, maxFailRate: 0.01 },
+    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
     text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {
-    table: { recall: 0.53, precision: 0.96, maxFailRate: 0.01 },
+    table: { recall: 0.56, precision: 0.96, maxFailRate: 0.01 },
     // (2026-12-05, eleventh session, end: 0.677 -> 0.719, dxbb-02's correlations in a symbol font that lost its minus
     // and decimal point, read once the same paper's tune passage was; as measured.)
     text: { recall: 0.71, precision: 0.98, maxFailRate: 0.01 },

@@ -78,6 +78,19 @@ function nonNegative(number: ReportedNumber): Interval | null {
   return { low: Math.max(0, low), high };
 }
 
+/**
+ * A printed number within a twentieth of a percent of what the table's other cells give: a last digit
+ * carried from unrounded values (an F computed before the mean squares were rounded), not a mistyped cell.
+ * Reported as a warning rather than a failure (common practice: software computes each column from
+ * unrounded values, so the printed cells need not reproduce each other exactly).
+ */
+const NEAR_MISS = 0.0005;
+
+function nearMiss(printed: Interval, recomputed: Interval): boolean {
+  const gap = Math.max(recomputed.low - printed.high, printed.low - recomputed.high, 0);
+  return gap <= NEAR_MISS * Math.max(Math.abs(recomputed.low), Math.abs(recomputed.high));
+}
+
 /** a / b over the intervals; null when b may be zero. */
 function divide(a: Interval, b: Interval): Interval | null {
   if (!(b.low > 0)) return null;
@@ -136,6 +149,7 @@ function checkMeanSquare(cells: Cells, table: string, row: string): FindingDraft
   if (padded !== null && overlaps(padded, recomputed)) return null;
   return {
     messageId: 'msMismatch',
+    ...(nearMiss(ms, recomputed) ? { severityAtMost: 'warn' as const } : {}),
     data: {
       table,
       row,
@@ -179,6 +193,7 @@ function checkF(
   return {
     messageId: 'fMismatch',
     crossesAlpha: crosses,
+    ...(!crosses && candidates.some((candidate) => nearMiss(printed, candidate)) ? { severityAtMost: 'warn' as const } : {}),
     data: {
       table,
       row: origin.rowLabel,

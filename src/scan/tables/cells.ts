@@ -361,6 +361,15 @@ function findKnownKey(key: string): string | null {
   // symbol with a digit is a name of its own ("T2", a second time point; "F1", a score).
   const withoutDigit = bare.replace(/(?<=[a-z.)\]])\d$/, '');
   if (withoutDigit !== bare && withoutDigit.length >= 3 && ROLE_BY_KEY.has(withoutDigit)) return withoutDigit;
+  // A footnote letter set apart by a space ("df c", "F c", "χ2 b"), after a name of a test's own columns. Not d
+  // or g, which are effect sizes ("t d" may be two columns run together), nor f.
+  const spacedMark = /^(.{1,30}) [abceh]$/.exec(bare);
+  const markedRole = spacedMark === null ? undefined : ROLE_BY_KEY.get(spacedMark[1]!);
+  if (markedRole !== undefined && ['p', 'df', 'df1', 'df2', 'statistic', 'effect', 'ss', 'ms'].includes(markedRole.role)) return spacedMark![1]!;
+  // A Greek letter as the footnote mark, spelled out by the key ("p-valueβ" -> "p-valuebeta"), after a name of
+  // two letters or more.
+  const greekMark = /^(.{2,30}?)(?:alpha|beta|gamma|delta)$/.exec(bare);
+  if (greekMark !== null && ROLE_BY_KEY.has(greekMark[1]!)) return greekMark[1]!;
   // A qualifier in brackets after a known name: "Cohen d (95% CI)", "t (two-tailed)", "p (adjusted)".
   // (Not df: "F(1, 28)" is read with its df below.)
   const withoutQualifier = HEADER_WITH_DF.test(bare) ? bare : bare.replace(/ ?\([^()]{1,30}\)$/, '');
@@ -464,6 +473,23 @@ export function classifyHeader(header: string): ColumnRole {
     return { role: 'statistic', kind, df: [] };
   }
   return { role: 'unknown' };
+}
+
+/** "value" alone after a statistic: a p whose italic P the page lost ("F-value value" for "F-value P value"). */
+const LOST_P = /^[-\s]?values?(?:\s?[a-h])?$/i;
+
+/**
+ * A header row's roles with a lost p symbol restored: a cell "value" (or "-value") right after a statistic's
+ * column, in a row that names no p, is the p column whose italic P a web page's text dropped.
+ */
+export function withLostPSymbol<T extends ColumnRole | null>(names: readonly string[], roles: T[]): T[] {
+  if (roles.some((role) => role?.role === 'p')) return roles;
+  return roles.map((role, index) => {
+    if (!LOST_P.test(names[index]!.trim())) return role;
+    let before = index - 1;
+    while (before >= 0 && roles[before] === null) before--;
+    return roles[before]?.role === 'statistic' ? ({ role: 'p' } as T) : role;
+  });
 }
 
 /** A subscript that states one df, ending a header: "_{df = 3}", "_{df=12}". */

@@ -17,7 +17,8 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, knownHeaderNames, type ColumnRole, type TextLine } from './cells.js';
+import { classifyHeader, ERROR_LABEL, knownHeaderNames, withLostPSymbol, type ColumnRole, type TextLine } from './cells.js';
+import { chooseCuts, cutsOfRun, meanSquareHolds, numberKindOf, type CutNumber, type NumberKind, type RowCuts } from './gluedCuts.js';
 
 type Line = TextLine;
 
@@ -80,80 +81,128 @@ export function splitGluedHeader(text: string): string[] | null {
   return pieces;
 }
 
-interface GluedRow {
-  label: string;
-  labelSpan: CellSpan;
-  blob: string;
-  blobStart: number;
+/**
+ * Where a glued header may be cut between words it does not know: a lower-case letter, digit or closing bracket
+ * before a capital ("varianceSum", "squaresDf"), or a capital before a capitalised word ("FValue", "SEAdj").
+ */
+function isWordJoin(text: string, at: number): boolean {
+  const before = text[at - 1] ?? '';
+  const here = text[at] ?? '';
+  const after = text[at + 1] ?? '';
+  if (/[a-z0-9)\].%²]/.test(before) && /[A-Z]/.test(here)) return true;
+  return /[A-Z]/.test(before) && /[A-Z]/.test(here) && /[a-z]/.test(after);
 }
 
-const ROW = /^(\D*?[^\d\s.<])\s*((?:<\s*)?\.?\d[\d.,a-h<*]*)\s*$/;
-
-function readRow(line: Line): GluedRow | null {
-  if (line.text.length > MAX_LINE) return null;
-  const match = ROW.exec(line.text);
-  if (!match) return null;
-  const label = match[1]!.trim();
-  const labelStart = line.start + line.text.indexOf(label);
-  const blobStart = line.start + line.text.lastIndexOf(match[2]!);
-  return { label, labelSpan: { start: labelStart, end: labelStart + label.length }, blob: match[2]!, blobStart };
-}
-
-/** How a column's numbers are printed. */
-type ColumnFormat = 'decimal' | 'whole';
-
-interface Cut {
-  texts: string[];
-  spans: CellSpan[];
-}
+/** Costs of the cut: a known name costs little, a piece the vocabulary does not know costs its length (the cut reads as much of the header with known names as it can). */
+const KNOWN_PIECE_COST = 0.01;
+const unknownPieceCost = (piece: string): number => 1 + piece.replace(/\s/g, '').length;
 
 /**
- * Every way to cut `blob` into numbers of the given formats, in order (fewer
- * numbers than columns is allowed: the last columns are then empty). A
- * decimal has `decimals` digits after its point, then maybe a footnote
- * letter; a whole number may only be cut where a decimal follows it.
+ * The header's column names when some of them are not known ("Source of varianceSum of squaresDfMean of
+ * squaresValue of calculated F..."): known names where they fit, the rest cut where one word runs into the next
+ * with a capital. At least three known names, two of them joined without a space, and a statistic among them.
  */
-function cutsOf(blob: string, formats: ColumnFormat[], decimals: number): string[][] {
-  const results: string[][] = [];
-  const walk = (at: number, column: number, taken: string[]): void => {
-    if (results.length > 16) return;
-    if (at === blob.length) {
-      results.push([...taken]);
-      return;
+export function splitGluedHeaderLoosely(text: string): string[] | null {
+  if (text.length > MAX_LINE || /\d\.\d/.test(text) || /\s{3,}|\t|\|/.test(text.trim())) return null;
+  vocabulary ??= vocabularyByFirstCharacter();
+  const lower = text.toLowerCase();
+  const n = text.trimEnd().length;
+  const cuttable = (at: number): boolean => at === 0 || at === n || isWordJoin(text, at);
+  // The next place to cut at or after each place (computed once: the line is walked from its end).
+  const nextCut = new Array<number>(n + 1).fill(n);
+  let joins = 0;
+  for (let at = n - 1; at >= 1; at--) {
+    const join = isWordJoin(text, at);
+    if (join) joins++;
+    nextCut[at] = join ? at : nextCut[at + 1]!;
+  }
+  // Cells run together leave words joined without a space: a line with fewer is no glued header.
+  if (joins < 2) return null;
+  const best = new Array<number>(n + 1).fill(Infinity);
+  const from = new Array<number>(n + 1).fill(-1);
+  best[0] = 0;
+  for (let i = 0; i < n; i++) {
+    if (best[i] === Infinity) continue;
+    let at = i;
+    while (lower[at] === ' ') at++;
+    for (const name of vocabulary.get(lower[at] ?? '') ?? []) {
+      if (!lower.startsWith(name, at)) continue;
+      const end = at + name.length;
+      // A known name ends where the text does or where another word starts.
+      if (end !== n && !cuttable(end) && !/[\s.)]/.test(text[end - 1]!) && /[a-z]/i.test(text[end]!)) continue;
+      if (best[i]! + KNOWN_PIECE_COST < best[end]!) {
+        best[end] = best[i]! + KNOWN_PIECE_COST;
+        from[end] = i;
+      }
     }
-    if (column >= formats.length) return;
-    const rest = blob.slice(at);
-    if (formats[column] === 'decimal') {
-      const match = new RegExp(`^(?:<\\s*)?\\d*\\.\\d{${decimals}}[a-h]?\\*{0,3}`).exec(rest);
-      if (match) walk(at + match[0].length, column + 1, [...taken, match[0]]);
-      return;
+    // An unknown piece runs from where the last piece ended to the next join (a join inside it would be a cell
+    // boundary).
+    const end = nextCut[Math.min(at + 1, n)]!;
+    const cost = unknownPieceCost(text.slice(i, end));
+    if (best[i]! + cost < best[end]!) {
+      best[end] = best[i]! + cost;
+      from[end] = i;
     }
-    // A whole number: as many digits as leave a decimal (or nothing) after it.
-    for (let length = 1; length <= 6 && length <= rest.length; length++) {
-      const digits = rest.slice(0, length);
-      if (!/^\d+$/.test(digits)) break;
-      if (length > 1 && digits.startsWith('0')) break;
-      walk(at + length, column + 1, [...taken, digits]);
-    }
-  };
-  walk(0, 0, []);
-  return results;
+  }
+  if (best[n] === Infinity) return null;
+  const pieces: string[] = [];
+  for (let at = n; at > 0; at = from[at]!) pieces.unshift(text.slice(from[at]!, at).trim());
+  const roles = withLostPSymbol(pieces, pieces.map(classifyHeader));
+  const named = roles.filter((role) => role.role !== 'label' && role.role !== 'unknown');
+  if (pieces.length < 4 || named.length < 3 || !roles.some((role) => role.role === 'statistic')) return null;
+  return pieces;
 }
 
-const numberOf = (text: string): number => Number(text.replace(/^< ?/, '').replace(/[a-h*]{1,4}$/, ''));
+interface GluedRow {
+  label: string;
+  labelStart: number;
+  run: string;
+  runStart: number;
+}
 
-/** True when the cut's SS, df and MS agree (MS = SS / df within the rounding of the printed numbers). */
-function arithmeticHolds(cut: string[], roles: ColumnRole[], decimals: number): boolean | null {
-  const at = (role: string): number => roles.findIndex((r) => r.role === role);
-  const ss = at('ss');
-  const df = at('df');
-  const ms = at('ms');
-  if (ss < 0 || df < 0 || ms < 0 || cut[ss] === undefined || cut[df] === undefined) return null;
-  if (cut[ms] === undefined) return null;
-  // Rounding: the printed MS is within half a unit of SS / df, whose own rounding adds half a unit over df.
-  const dfValue = numberOf(cut[df]!);
-  const halfUnit = 0.5 * 10 ** -decimals;
-  return Math.abs(numberOf(cut[ss]!) / dfValue - numberOf(cut[ms]!)) <= halfUnit * (1 + 1 / dfValue) + 1e-12;
+/** Characters of a run of numbers: digits, points, commas, signs, comparators, stars, percent. */
+const RUN_CHARACTER = /[\d.,<%*\u2212\u2013-]/;
+
+/**
+ * Where the run of numbers that ends `text` starts (a footnote letter may sit inside it, "3251.202a12"), or -1.
+ * Found by walking back from the end, so the cost is linear in the line.
+ */
+function runStartOf(text: string): number {
+  let at = text.length;
+  while (at > 0 && (RUN_CHARACTER.test(text[at - 1]!) || (/[a-h]/.test(text[at - 1]!) && /\d/.test(text[at - 2] ?? '') && !/[a-z]/.test(text[at] ?? '')))) at--;
+  // The run starts at a digit, a point before a digit, a comparator or a minus sign.
+  while (at < text.length && !/[\d<\u2212\u2013-]/.test(text[at]!) && !(text[at] === '.' && /\d/.test(text[at + 1] ?? ''))) at++;
+  return at < text.length && /\d/.test(text.slice(at)) ? at : -1;
+}
+
+/** A row: its label, then a run of numbers to the end of the line. */
+function readRow(line: Line): GluedRow | null {
+  const text = line.text.trimEnd();
+  if (text.length > MAX_LINE) return null;
+  const start = runStartOf(text);
+  if (start < 0) return null;
+  const label = text.slice(0, start).trim();
+  // A label is a name: it has a letter (a run alone, or after a bracket, is no row of this kind).
+  if (!/[A-Za-z\u00c0-\u024f\u0370-\u03ff]/.test(label) || /[\d.]\s*$/.test(text.slice(0, start))) return null;
+  return { label, labelStart: line.start + text.indexOf(label), run: text.slice(start), runStart: line.start + start };
+}
+
+/** A label that is a code ("X1", "X1X2", "MVC1") may end in digits glued to the run: how many digits it may take. */
+const CODE_LABEL = /(?:^|[^A-Za-z])[A-Z]{1,4}$/;
+
+function rowCuts(row: GluedRow, kinds: readonly NumberKind[], roles: readonly ColumnRole[]): RowCuts {
+  const cuts: RowCuts['cuts'] = [];
+  let overflow = false;
+  const extensions = CODE_LABEL.test(row.label) ? 2 : 0;
+  // A partial cut whose SS, df and MS are read must have MS = SS / df.
+  const holds = (partial: readonly CutNumber[]): boolean => meanSquareHolds(partial, roles) !== false;
+  for (let taken = 0; taken <= extensions; taken++) {
+    if (taken > 0 && !/^\d$/.test(row.run[taken - 1]!)) break;
+    const found = cutsOfRun(row.run.slice(taken), kinds, holds);
+    if (found === null) overflow = true;
+    else for (const numbers of found) cuts.push({ labelEnd: taken, numbers });
+  }
+  return { cuts, overflow };
 }
 
 export interface GluedTable {
@@ -165,12 +214,12 @@ export interface GluedTable {
 export function readGluedTable(lines: Line[], headerLine: number): GluedTable | null {
   const header = lines[headerLine];
   if (header === undefined) return null;
-  const names = splitGluedHeader(header.text);
+  const names = splitGluedHeader(header.text) ?? splitGluedHeaderLoosely(header.text);
   if (names === null) return null;
-  const roles = names.map(classifyHeader);
-  const labelColumns = roles[0]?.role === 'label' ? 1 : 0;
+  const roles = withLostPSymbol(names, names.map(classifyHeader));
+  const labelColumns = roles[0]?.role === 'label' || roles[0]?.role === 'unknown' ? 1 : 0;
   const valueRoles = roles.slice(labelColumns);
-  const formats: ColumnFormat[] = valueRoles.map((role) => (role.role === 'df' || role.role === 'df1' || role.role === 'df2' || role.role === 'n' ? 'whole' : 'decimal'));
+  const kinds = valueRoles.map(numberKindOf);
   const rows: GluedRow[] = [];
   const rowLines: number[] = [];
   let blanks = 0;
@@ -187,33 +236,28 @@ export function readGluedTable(lines: Line[], headerLine: number): GluedTable | 
     rowLines.push(index);
   }
   if (rows.length === 0) return null;
-  // The number of decimals the software printed: the one that cuts the most rows with their arithmetic right.
-  let best: { decimals: number; cuts: (string[] | null)[]; score: number } | null = null;
-  for (const decimals of [3, 2, 1, 4]) {
-    const cuts = rows.map((row) => {
-      const candidates = cutsOf(row.blob, formats, decimals);
-      if (candidates.length === 1) return candidates[0]!;
-      const agreeing = candidates.filter((cut) => arithmeticHolds(cut, valueRoles, decimals) === true);
-      return agreeing.length === 1 ? agreeing[0]! : null;
-    });
-    const score = cuts.filter((cut) => cut !== null).length;
-    if (best === null || score > best.score) best = { decimals, cuts, score };
-  }
-  if (best === null || best.score === 0) return null;
+  const chosen = chooseCuts(
+    rows.map((row) => rowCuts(row, kinds, valueRoles)),
+    valueRoles,
+    kinds,
+    (index) => ERROR_LABEL.test(rows[index]!.label.toLowerCase()),
+  );
+  if (chosen.every((cut) => cut === null)) return null;
   const tableRows: string[][] = [names];
   const cells: (CellSpan | null)[][] = [names.map(() => null)];
   rows.forEach((row, index) => {
-    const cut = best!.cuts[index];
+    const cut = chosen[index];
     if (cut === null || cut === undefined) return;
     const texts = new Array<string>(names.length).fill('');
     const spans = new Array<CellSpan | null>(names.length).fill(null);
-    texts[0] = row.label;
-    spans[0] = row.labelSpan;
-    let offset = row.blobStart;
-    cut.forEach((text, column) => {
-      texts[labelColumns + column] = text;
-      spans[labelColumns + column] = { start: offset, end: offset + text.length };
-      offset += text.length;
+    const labelEnd = cut.labelEnd > 0 ? row.runStart + cut.labelEnd : row.labelStart + row.label.length;
+    texts[0] = cut.labelEnd > 0 ? `${row.label}${row.run.slice(0, cut.labelEnd)}` : row.label;
+    spans[0] = { start: row.labelStart, end: labelEnd };
+    let offset = row.runStart + cut.labelEnd;
+    cut.numbers.forEach((number, column) => {
+      texts[labelColumns + column] = number.text;
+      spans[labelColumns + column] = { start: offset, end: offset + number.text.length };
+      offset += number.text.length;
     });
     tableRows.push(texts);
     cells.push(spans);

@@ -43,7 +43,7 @@ import type {
 } from '../types.js';
 import { parseReportedNumber, roundingInterval } from '../../stats/reportedNumber.js';
 import { pRangeOverDf } from '../../stats/pOverDf.js';
-import { classifyHeader, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, P_UNDER_VALUE, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
+import { classifyHeader, withLostPSymbol, gluedFootnoteLetter, ERROR_LABEL, NAMES_TEST_COLUMN, TOTAL_LABEL, namesTwoStatistics, statisticOfTwo, twoStatisticsWithDf, decimalSeparatorOf, headerKey, isNumberCell, P_UNDER_VALUE, readCell, TABLE_TITLE, type ColumnRole, type DecimalSeparator } from './cells.js';
 import { readCorrelationGrid, readCorrelationMatrix } from './matrix.js';
 import { readWrittenCorrelations } from './writtenCorrelations.js';
 import { marksOf, readMarkLegend, type MarkBound } from './marks.js';
@@ -1068,7 +1068,10 @@ function readSchema(rows: string[][], headerCount: number, layout: DocumentTable
   const assigned = new Array<boolean>(width).fill(false);
   const headerTexts: string[][] = headerRows.map(() => new Array<string>(width).fill(''));
   const levelRoles = headerRows.map((headerRow) =>
-    headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : (testNamedByFootnote(cell, footnoteTests) ?? classifyHeader(cell)))),
+    withLostPSymbol(
+      headerRow,
+      headerRow.map((cell, column) => (column === 0 && !positional ? ({ role: 'label' } as ColumnRole) : cell.trim() === '' ? null : (testNamedByFootnote(cell, footnoteTests) ?? classifyHeader(cell)))),
+    ),
   );
   // A column name in an upper header row whose cells fit it is a name spanning the rows below (a copy
   // keeps no row spans): the rows below name the columns under that row's titles, not that one.

@@ -91,6 +91,17 @@ describe(`${rule}: must flag`, () => {
     expect(findings.Tone!.filter((f) => f.message.includes("row 'Error'"))).toEqual([]);
   });
 
+  it('a near miss (F 6.253 where 82.840 / 13.2506 = 6.2518: off by 0.02%, p on the same side) is a warning, not a failure', () => {
+    // 516.772 / 39 = 13.2506 (hand arithmetic); the printed F differs in its third decimal only.
+    const findings = tableFindings(['Source | SS | df | MS | F | p', 'Method | 82.840 | 1 | 82.840 | 6.253 | .017', 'Error | 516.772 | 39 | 13.2506 | |']);
+    expect(findings.Method!.map((f) => [f.messageId, f.severity])).toEqual([['fMismatch', 'warn']]);
+  });
+
+  it('an F off by 1% is still a failure (82.840 / 13.2506 = 6.252, printed 6.32)', () => {
+    const findings = tableFindings(['Source | SS | df | MS | F | p', 'Method | 82.840 | 1 | 82.840 | 6.32 | .016', 'Error | 516.772 | 39 | 13.2506 | |']);
+    expect(findings.Method!.map((f) => [f.messageId, f.severity])).toEqual([['fMismatch', 'fail']]);
+  });
+
   it('names an untitled table by its position', () => {
     const findings = tableFindings(['Source | SS | df | MS | F | p', 'Cue | 40.00 | 1 | 20.00 | 5.00 | .031', 'Error | 160.00 | 40 | 4.00 | |']);
     expect(findings.Cue![0]!.message).toMatch(/^In table 1, row 'Cue': MS = 20\.00 but SS \/ df = 40\.00 \/ 1 = 40\.00/);
