@@ -2130,4 +2130,15 @@ describe('results tables in the shapes papers print them', () => {
     const elsewhere = ['Table 2. Outcomes at follow-up', 'Source         df   F', 'Group          1    6.20', '               p = .016', 'Age            2    4.10', 'Error          48', '', 'Next.', ''].join('\n');
     expect(scanTextJson(elsewhere).statistics.map((statistic) => [statistic.value, statistic.p?.text ?? null])).not.toContainEqual([6.2, '.016']);
   });
+
+  it('reads columns headed by a test named with "test statistic" ("Z-test statistic2", "t-test statistic", "Chi-square test statistic")', () => {
+    // Layout as journal pages print it (a footnote digit glued to the header); the numbers are made up.
+    const z = scanTextJson('Table 3\nRegression of bites\n\n| Predictor | IRR [95% CI] | Z-test statistic2 | P-value3 |\n|---|---|---|---|\n| Hour 2 | 1.74 [0.80-3.82] | 1.39 | 0.164 |\n| Hour 3 | 3.71 [1.77-7.78] | 3.47 | 0.001 |\n');
+    expect(z.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value ?? null])).toEqual([
+      ['z', 1.39, 0.164],
+      ['z', 3.47, 0.001],
+    ]);
+    const t = scanTextJson('Table 4\nGroup differences\n\n| Measure | t-test statistic | df | p |\n|---|---|---|---|\n| Recall | 2.31 | 58 | .024 |\n');
+    expect(t.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df])).toEqual([['t', 2.31, [58]]]);
+  });
 });

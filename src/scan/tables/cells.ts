@@ -233,14 +233,14 @@ put(['ddf', 'd.d.f.', 'df2', 'df 2', 'd. df', 'd.df', 'den. df', 'den.df', 'deno
 put(['ms', 'mean square', 'mean squares', 'mean sq', 'mean sq.', 'meansq', 'ms effect'], { role: 'ms' });
 put(['p', 'p value', 'p-value', 'p-values', 'p values', 'sig', 'sig.', 'significance', 'pr(>f)', 'pr(>|t|)', 'pr(>|z|)', 'pr(>z)', 'pr(>t)', 'pr(>chisq)', 'pr(>chi)', 'prob', 'prob.', 'prob > f', 'prob>f', 'p (two-tailed)', 'two-tailed p', 'p two-tailed', 'sig. (2-tailed)', 'p(two-tailed)', 'pvalue'], { role: 'p' });
 put(['n', 'sample size', 'total n'], { role: 'n' });
-put(['f', 'f ratio', 'f-ratio', 'f value', 'f-value', 'f statistic', 'f-statistic', 'f change', 'f-test', 'f test'], { role: 'statistic', kind: 'F', df: [] });
-put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test', 't ratio'], { role: 'statistic', kind: 't', df: [] });
-put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2'], { role: 'statistic', kind: 'chi2', df: [] });
+put(['f', 'f ratio', 'f-ratio', 'f value', 'f-value', 'f statistic', 'f-statistic', 'f change', 'f-test', 'f test', 'f-test statistic', 'f test statistic'], { role: 'statistic', kind: 'F', df: [] });
+put(['t', 't value', 't-value', 't statistic', 't-statistic', 't-test', 't test', 't ratio', 't-test statistic', 't test statistic', 't-ratio'], { role: 'statistic', kind: 't', df: [] });
+put(['chi2', 'chi-square', 'chi square', 'chi-squared', 'chi squared', 'pearson chi2', 'pearson chi-square', 'chisq', 'x2', 'chi^2', 'chi-square test', 'chi square test', 'chi-square test statistic', 'chi2 test', 'chi-square statistic', 'chi2 statistic'], { role: 'statistic', kind: 'chi2', df: [] });
 put(['r', "pearson's r", 'pearson r', 'pearson correlation', 'correlation'], { role: 'statistic', kind: 'r', df: [] });
 // Spearman's rank correlation, tested like r under the t approximation or the exact distribution (see types.ts, 'rs').
 put(['r value', 'r-value', 'r values', 'r-values'], { role: 'statistic', kind: 'r', df: [] });
 put(['rs value', 'rs-value', 'rho value', 'rho-value', 'rho', 'rs', 'r s', 'r_s', 'spearman', "spearman's rho", 'spearman rho', "spearman's r", 'spearman r', 'spearman correlation', "spearman's correlation", 'spearman coefficient', "spearman's rank correlation", 'spearman rank correlation'], { role: 'statistic', kind: 'r', df: [], symbol: 'rs' });
-put(['z', 'z value', 'z-value', 'z statistic', 'wald z', 'z score test', "fisher's z", 'fisher\u2019s z', 'fisher z', 'steiger z', "steiger's z"], { role: 'statistic', kind: 'z', df: [] });
+put(['z', 'z value', 'z-value', 'z statistic', 'z-statistic', 'z test', 'z-test', 'z test statistic', 'z-test statistic', 'z-score', 'wald z', 'z score test', "fisher's z", 'fisher\u2019s z', 'fisher z', 'steiger z', "steiger's z"], { role: 'statistic', kind: 'z', df: [] });
 put(['etap2', 'eta2p', 'eta p2', 'eta2 p', 'etap 2', 'partial eta2', 'partial eta 2', 'partial eta squared', 'partial eta-squared', 'partial eta', 'eta2 partial', 'eta2partial', 'etapartial2', 'eta 2 p', 'eta p 2', 'partial eta squared (etap2)', 'etap', 'eta p'], { role: 'effect', effect: 'partial-eta-squared' });
 put(['eta2', 'eta 2', 'eta squared', 'eta-squared'], { role: 'effect', effect: 'eta-squared' });
 put(['etag2', 'eta2g', 'eta g2', 'eta2 g', 'generalized eta squared', 'generalized eta2', 'generalised eta squared', 'generalised eta2', 'ges'], { role: 'effect', effect: 'generalized-eta-squared' });
