@@ -2141,4 +2141,13 @@ describe('results tables in the shapes papers print them', () => {
     const t = scanTextJson('Table 4\nGroup differences\n\n| Measure | t-test statistic | df | p |\n|---|---|---|---|\n| Recall | 2.31 | 58 | .024 |\n');
     expect(t.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.df])).toEqual([['t', 2.31, [58]]]);
   });
+
+  it('reads a p column headed with the equals sign its cells follow ("Significance P=", "P=")', () => {
+    // Layout as a journal's table page prints it; the numbers are made up.
+    const document = scanTextJson('Table 2.\nFactors associated with cortisol\n\n| Factor | Significance P= | Effect size |\n|---|---|---|\n| Temperature | <0.001 | rs = 0.572 |\n| Humidity | 0.002 | rs = −0.535 |\n');
+    expect(document.statistics.map((statistic) => [statistic.kind, statistic.value, statistic.p?.value ?? null])).toEqual([
+      ['r', 0.572, 0.001],
+      ['r', -0.535, 0.002],
+    ]);
+  });
 });

@@ -346,6 +346,10 @@ function findKnownKey(key: string): string | null {
   const bare = key.replace(/[.:]$/, '');
   if (ROLE_BY_KEY.has(key)) return key;
   if (ROLE_BY_KEY.has(bare)) return bare;
+  // A name written with the equals sign its cells would follow ("P=" over "0.029"), or after the word for it
+  // ("Significance P="): the name.
+  const withoutEquals = /^(?:significance |sig\. )?([a-z][a-z0-9 .-]{0,20}?) ?=$/.exec(key);
+  if (withoutEquals !== null && ROLE_BY_KEY.get(withoutEquals[1]!)?.role === 'p') return withoutEquals[1]!;
   const withoutDf = bare.replace(DF_NAMES_IN_BRACKETS, '');
   if (withoutDf !== bare && ROLE_BY_KEY.get(withoutDf)?.role === 'statistic') return withoutDf;
   // A footnote letter glued on before the df's brackets ("tobsa (df)"): only after a name of two letters or more.
