@@ -34,6 +34,7 @@ import { readPThenStatisticTable } from './pThenStatistic.js';
 import { readTransposedTable } from './transposed.js';
 import { linesClosedByPipes } from './pipeClosed.js';
 import { readScatteredStatisticCells } from './scatteredCells.js';
+import { readTestColumnsTable } from './testColumnsTable.js';
 
 interface Line extends TextLine {
   /** Cells are separated by single spaces whatever the gaps look like (see withConsistentSeparators). */
@@ -141,6 +142,14 @@ export function findTextTables(text: string): DocumentTable[] {
         const title = rebuilt.table.caption === null ? readTitle(lines, index) : null;
         tables.push(title === null ? rebuilt.table : { ...rebuilt.table, caption: title.caption, start: lines[title.firstLine]!.start });
         index = rebuilt.lastLine + 1;
+        continue;
+      }
+      // A group comparison whose header ends with one test's columns and whose rows with a test end with its cells,
+      // between lines no reader of columns places (group headers one per line, categories' counts, descriptives).
+      const testColumns = readTestColumnsTable(lines, index);
+      if (testColumns !== null) {
+        tables.push(testColumns.table);
+        index = testColumns.lastLine + 1;
         continue;
       }
       index++;

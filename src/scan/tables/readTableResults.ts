@@ -405,7 +405,8 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     rows = unnamed.rows;
     located = unnamed.located;
   }
-  const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '), footnoteTestsOf([...table.notes, ...noteLinesAfter(text, table.end)]));
+  const footnoteTests = footnoteTestsOf([...table.notes, ...noteLinesAfter(text, table.end)]);
+  const baseSchema = readSchema(rows, headerCount, table.layout, [...table.notes, table.caption ?? '', notesAfter(text, table.end)].join(' '), footnoteTests);
   const families = columnFamilies(rows.slice(headerCount), baseSchema);
   const schema: Schema = families === undefined ? baseSchema : { ...baseSchema, families };
   const roles = schema.roles;
@@ -591,6 +592,13 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     let readWithoutDf = false;
     const leveneWithoutDf: { segment: Segment; result: ReportedResult | null }[] = [];
     for (const plainSegment of segments) {
+      // A footnote letter on the row's statistic or p that the notes define as a test ("0.117a" over "(a) p for
+      // t-test"): the row's test is that one, not the column's; one we do not check leaves the row unread.
+      const testByFootnote = rowTestByFootnote(row, plainSegment, footnoteTests);
+      if (testByFootnote === null) {
+        if (shapeOf(row[plainSegment.columns.get('statistic')!] ?? '').shape.startsWith('number')) statisticLeft = true;
+        continue;
+      }
       // The p set on the line under this row's value, in a table with no p column: read as this row's p.
       const withPBelow = pUnderValueBelow(virtualRows, index, plainSegment);
       const segment = withPBelow?.segment ?? plainSegment;
@@ -598,7 +606,7 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
         text,
         table,
         tableIndex,
-        kind: segment.kind ?? kind,
+        kind: testByFootnote ?? segment.kind ?? kind,
         row: withPBelow?.row ?? row,
         cellsAt: withPBelow?.cellsAt ?? cellsAt,
         segment,
@@ -825,17 +833,17 @@ function testLegend(notes: string): Map<string, StatisticKind | null> {
 
 /**
  * The tests footnote lines define by their letter, each line opening with it ("a Wald chi-square tests.",
- * "1. b: independent t test"): a letter defined twice, or as a test we do not check, names none. (Only lines
+ * "1. b: independent t test", "1. (a) – p for t-test"): a letter defined twice, or as a test we do not check, names none. (Only lines
  * that open with the letter: a letter inside running prose, "a t test was run", defines nothing.)
  */
 function footnoteTestsOf(lines: string[]): Map<string, StatisticKind | null> {
   const tests = new Map<string, StatisticKind | null>();
   for (const line of lines) {
-    const match = /^(?:\d{1,2}\.\s{1,3})?([a-h])(?:\s?[.:)=]\s?|\s)([^.;]{3,60})/.exec(line.trim());
+    const match = /^(?:\d{1,2}\.\s{1,3})?(?:\(\s?([a-h])\)|([a-h]))(?:\s?[.:)=\u2013\u2014-]\s?|\s)([^.;]{3,60})/.exec(line.trim());
     if (match === null) continue;
-    const letter = match[1]!;
-    const kind = testNamedIn(match[2]!);
-    if (kind === null && !OTHER_TEST.test(match[2]!)) continue;
+    const letter = match[1] ?? match[2]!;
+    const kind = testNamedIn(match[3]!);
+    if (kind === null && !OTHER_TEST.test(match[3]!)) continue;
     tests.set(letter, tests.has(letter) && tests.get(letter) !== kind ? null : kind);
   }
   return tests;
@@ -2810,6 +2818,21 @@ function withNamedExceptions(noteDf: NoteDf, names: readonly string[]): NoteDf {
   if (noteDf.exceptions === undefined) return noteDf;
   const named = noteDf.exceptions.every((exception) => names.some((name) => namesException(name, exception)));
   return named ? noteDf : withoutNotePairs(noteDf);
+}
+
+/**
+ * The test a footnote letter on a row's statistic or p names ("1.573 321 0.117a" over "(a) p for t-test"):
+ * undefined when neither carries a letter the notes define as a test; null when the letter names a test we do not
+ * check (Fisher's exact test, Mann-Whitney) or more than one.
+ */
+function rowTestByFootnote(row: readonly string[], segment: Segment, footnoteTests: Map<string, StatisticKind | null>): StatisticKind | null | undefined {
+  if (footnoteTests.size === 0) return undefined;
+  for (const role of ['statistic', 'p'] as const) {
+    const column = segment.columns.get(role);
+    const letter = column === undefined ? undefined : /\d ?([a-h])$/.exec((row[column] ?? '').trim())?.[1];
+    if (letter !== undefined && footnoteTests.has(letter)) return footnoteTests.get(letter)!;
+  }
+  return undefined;
 }
 
 /** "0.80a", "0.80 a", "χ2a": a cell or header ending in the footnote marker `mark` after a digit. */
