@@ -347,7 +347,7 @@ function rewriteAt(original: string, at: number, builder: NormalisationBuilder):
     }
   }
 
-  if (code === 0x00e2 || code === 0x00c2 || code === 0x00c3 || code === 0x00ce || code === 0x00cf) {
+  if (code === 0x00e2 || code === 0x00c2 || code === 0x00c3 || code === 0x00ce || code === 0x00cf || code === 0x0101 || code === 0x0100 || code === 0x0106 || code === 0x012a || code === 0x013b) {
     const repaired = mojibakeAt(original, at);
     if (repaired !== null) {
       builder.replace(at, repaired.length, repaired.replacement);
@@ -713,13 +713,29 @@ const CP1252_HIGH = [
   0x2013, 0x2014, 0x2dc, 0x2122, 0x161, 0x203a, 0x153, 0x9d, 0x17e, 0x178,
 ];
 
+/**
+ * The lead bytes of those characters as Windows-1257 (Baltic) reads them, where a page's text comes out as
+ * "āˆ’" for "−": the lead byte in the Baltic code page, the bytes after it as in Windows-1252.
+ */
+const CP1257_LEAD: ReadonlyMap<number, number> = new Map([
+  [0xe2, 0x0101],
+  [0xc2, 0x0100],
+  [0xc3, 0x0106],
+  [0xce, 0x012a],
+  [0xcf, 0x013b],
+]);
+
 const MOJIBAKE: ReadonlyMap<string, string> = (() => {
   const table = new Map<string, string>();
   const encoder = new TextEncoder();
+  const asCp1252 = (byte: number): string => String.fromCharCode(byte >= 0x80 && byte <= 0x9f ? CP1252_HIGH[byte - 0x80]! : byte);
   for (const target of MOJIBAKE_TARGETS) {
     const character = String.fromCharCode(target);
-    const garbled = [...encoder.encode(character)].map((byte) => String.fromCharCode(byte >= 0x80 && byte <= 0x9f ? CP1252_HIGH[byte - 0x80]! : byte)).join('');
-    table.set(garbled, REPLACEMENTS.get(target) ?? character);
+    const bytes = [...encoder.encode(character)];
+    const repaired = REPLACEMENTS.get(target) ?? character;
+    table.set(bytes.map(asCp1252).join(''), repaired);
+    const baltic = CP1257_LEAD.get(bytes[0]!);
+    if (baltic !== undefined) table.set(String.fromCharCode(baltic) + bytes.slice(1).map(asCp1252).join(''), repaired);
   }
   return table;
 })();
