@@ -57,4 +57,30 @@ describe('glued table rows', () => {
       [4.21, [2, 57], 0.02],
     ]);
   });
+
+  it('cuts glued rows printed in four styles (fixed three decimals, APA, thousands separators, significant digits) back into their cells', () => {
+    // Made-up tables: each row's MS is its SS / df and its F its MS / MS(error) (worked out by hand), printed in the
+    // style named; the expected F and df are the cells as printed before they were run together. In the last table
+    // "641.71641.727.62" could also be cut MS 641.72, F 7.62, and "207.81207.88.945" MS 207.88, F .945: F = MS / MS
+    // of the residual row decides.
+    const tables = [
+      ['SourceType III sum of squaresdfMean squareFSig.Partial eta squared', 'Group330.2941330.29429.7270.0000.339', 'Dose × Sex1094.7873364.92932.8440.0000.629', 'Error644.4405811.111'],
+      ['SourceSSdfMSFpηp2', 'Age3416.294854.0729.73<.001.70', 'Condition1305.3011305.3045.44<.001.47', 'Error1465.005128.73'],
+      ['Source of varianceSum of squaresdfMean squareF valuep value', 'Treatment64,171.00164,171.0054.66<0.001', 'Block1,427.004356.750.300.878', 'Error331,100.002821,174.11'],
+      ['SourceSum of squaresdfMean squareF-valuep-value', 'Group14852742.531.96<0.0001', 'Time641.71641.727.62<0.0001', 'Dose × Time207.81207.88.9450.0032', 'Residual388016723.23'],
+    ];
+    const text = tables.map((rows, index) => `Table ${index + 1}\n\nANOVA results.\n\n${rows.join('\n')}\n\nNote. Made up.\n`).join('\n');
+    const read = scanTextJson(text).statistics.map((statistic) => [statistic.value, statistic.df]);
+    expect(read).toEqual([
+      [29.727, [1, 58]],
+      [32.844, [3, 58]],
+      [29.73, [4, 51]],
+      [45.44, [1, 51]],
+      [54.66, [1, 282]],
+      [0.3, [4, 282]],
+      [31.96, [2, 167]],
+      [27.62, [1, 167]],
+      [8.945, [1, 167]],
+    ]);
+  });
 });

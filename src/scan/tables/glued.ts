@@ -36,9 +36,20 @@ const MAX_BLANKS = 2;
  */
 let vocabulary: Map<string, string[]> | null = null;
 
+/**
+ * A known name as a page prints it with its Greek letters and superscripts ("etap2" is also "ηp2" and "ηp²"):
+ * the vocabulary holds names spelled out, and a glued header is matched as printed.
+ */
+function printedVariants(name: string): string[] {
+  if (!/eta|chi|omega/.test(name)) return [name];
+  const greek = name.replace(/eta/g, '\u03b7').replace(/chi/g, '\u03c7').replace(/omega/g, '\u03c9');
+  return [...new Set([name, greek, greek.replace(/2/g, '\u00b2')])];
+}
+
 function vocabularyByFirstCharacter(): Map<string, string[]> {
   const byFirst = new Map<string, string[]>();
-  for (const name of knownHeaderNames().filter((name) => name.length >= 1).sort((a, b) => b.length - a.length)) {
+  const names = knownHeaderNames().flatMap(printedVariants);
+  for (const name of names.filter((name) => name.length >= 1).sort((a, b) => b.length - a.length)) {
     const bucket = byFirst.get(name[0]!);
     if (bucket === undefined) byFirst.set(name[0]!, [name]);
     else bucket.push(name);

@@ -158,9 +158,9 @@ export function meanSquareHolds(cut: readonly CutNumber[], roles: readonly Colum
   const df = cut[at('df')] ?? cut[at('df1')];
   const ms = cut[at('ms')];
   if (ss === undefined || df === undefined || ms === undefined || df.value <= 0) return null;
-  // Within rounding, or within 1%: a printed table's MS may be off in its last digits (it decides between cuts
+  // Within rounding, or within 0.1%: a printed table's MS may be off in its last digit (it decides between cuts
   // that differ by a digit moved from one number to the next, which changes a number many times over).
-  const tolerance = Math.max(halfUnit(ms) + halfUnit(ss) / df.value, 0.01 * Math.abs(ms.value));
+  const tolerance = Math.max(halfUnit(ms) + halfUnit(ss) / df.value, 0.001 * Math.abs(ms.value));
   return Math.abs(ss.value / df.value - ms.value) <= tolerance + 1e-12;
 }
 
@@ -173,8 +173,8 @@ export function fRatioHolds(cut: readonly CutNumber[], roles: readonly ColumnRol
   if (ms === undefined || f === undefined || errorMeanSquare.value <= 0) return null;
   const low = Math.max(0, ms.value - halfUnit(ms)) / (errorMeanSquare.value + halfUnit(errorMeanSquare));
   const high = (ms.value + halfUnit(ms)) / Math.max(1e-12, errorMeanSquare.value - halfUnit(errorMeanSquare));
-  // As for MS, within 1% too: F is computed from unrounded mean squares.
-  return f.value >= Math.min(low - halfUnit(f), 0.99 * low) && f.value <= Math.max(high + halfUnit(f), 1.01 * high);
+  // As for MS, within 0.5% too: F is computed from unrounded mean squares.
+  return f.value >= Math.min(low - halfUnit(f), 0.995 * low) && f.value <= Math.max(high + halfUnit(f), 1.005 * high);
 }
 
 /** The cuts of one row, with where its label ends for each (a label may end in digits: "X1", "X12"). */
@@ -211,36 +211,50 @@ export function chooseCuts(rows: readonly RowCuts[], roles: readonly ColumnRole[
   // Sure by kind and by MS = SS / df.
   let open = rows.map((row) => (row.overflow ? [] : row.cuts.filter((cut) => meanSquareHolds(cut.numbers, roles) !== false)));
   const single = (cuts: readonly { numbers: CutNumber[] }[]): boolean => distinctReadings(cuts).length <= 1;
-  // Each column's usual number of decimals; then rows cut to match it.
-  const decimals = usualDecimals(open);
-  open = open.map((cuts) => narrowed(cuts, (cut) => cut.numbers.every((n, column) => decimals[column] === undefined || n.decimals === decimals[column])));
-  // F = MS / MS(error), with the MS of the first error row below, once it is sure.
+  // An error row prints its SS, df and MS and nothing after them (common practice: it has no F of its own).
+  const msColumn = roles.findIndex((r) => r.role === 'ms');
+  // (And a positive MS: an error MS of zero would make every F above it infinite.)
+  if (msColumn >= 0) open = open.map((cuts, row) => (isErrorRow(row) ? narrowed(cuts, (cut) => cut.numbers.length <= msColumn + 1 && (cut.numbers[msColumn]?.value ?? 1) > 0) : cuts));
+  // Leading zeros, as the rest of the row prints them.
+  open = open.map((cuts) => narrowed(cuts, (cut) => cut.numbers.every((n) => !n.leadingDot)));
+  // F = MS / MS(error), with the MS of the first error row below, once it is sure (by its own arithmetic, else by
+  // its column's usual decimals): arithmetic decides before any habit of printing does.
   const msAt = roles.findIndex((r) => r.role === 'ms');
-  const errorMeanSquare = (row: number): CutNumber | undefined => {
-    for (let below = row + 1; below < open.length; below++) {
+  const errorMeanSquare = (row: number, from: readonly { numbers: CutNumber[] }[][]): CutNumber | undefined => {
+    for (let below = row + 1; below < from.length; below++) {
       if (!isErrorRow(below)) continue;
-      const cuts = open[below]!;
+      const cuts = from[below]!;
       return cuts.length > 0 && single(cuts) ? cuts[0]!.numbers[msAt] : undefined;
     }
     return undefined;
   };
-  open = open.map((cuts, row) => {
-    const error = errorMeanSquare(row);
-    return error === undefined || single(cuts) ? cuts : narrowed(cuts, (cut) => fRatioHolds(cut.numbers, roles, error) !== false);
-  });
-  // Leading zeros, as the rest of the row prints them.
-  open = open.map((cuts) => narrowed(cuts, (cut) => cut.numbers.every((n) => !n.leadingDot)));
+  // A row none of whose cuts gives F = MS / MS(error) has a cell off (a mistyped F or MS): only its column's usual
+  // decimals may still decide its cut, not the weaker habits of printing applied last.
+  const arithmeticOff = new Set<number>();
+  const byFRatio = (from: { labelEnd: number; numbers: CutNumber[] }[][]): { labelEnd: number; numbers: CutNumber[] }[][] =>
+    from.map((cuts, row) => {
+      const error = errorMeanSquare(row, from);
+      if (error === undefined || single(cuts)) return cuts;
+      const kept = cuts.filter((cut) => fRatioHolds(cut.numbers, roles, error) !== false);
+      if (kept.length === 0) arithmeticOff.add(row);
+      return kept.length > 0 ? kept : cuts;
+    });
+  open = byFRatio(open);
+  // Each column's usual number of decimals; then rows cut to match it, and F = MS / MS(error) again with error rows
+  // the decimals made sure.
+  const decimals = usualDecimals(open);
+  open = byFRatio(open.map((cuts) => narrowed(cuts, (cut) => cut.numbers.every((n, column) => decimals[column] === undefined || n.decimals === decimals[column]))));
   // The sum of squares and the mean square in one format, as software prints them.
   const ssAt = roles.findIndex((r) => r.role === 'ss');
-  if (ssAt >= 0 && msAt >= 0) open = open.map((cuts) => narrowed(cuts, (cut) => cut.numbers[msAt] === undefined || cut.numbers[ssAt]?.decimals === cut.numbers[msAt]!.decimals));
+  if (ssAt >= 0 && msAt >= 0) open = open.map((cuts, row) => (arithmeticOff.has(row) ? cuts : narrowed(cuts, (cut) => cut.numbers[msAt] === undefined || cut.numbers[ssAt]?.decimals === cut.numbers[msAt]!.decimals)));
   // Last, the fewest different numbers of decimals in the row (common practice: a table prints to fixed decimals),
   // These last preferences only choose how digits are shared between decimals: cuts that differ in a df (a whole
   // number) or in where the label ends are left open ("/MVC139..." is df 1 and 39, or 13 and 9: nothing says).
   const wholeAt = kinds.flatMap((kind, column) => (kind === 'whole' ? [column] : []));
   const sameFrame = (cuts: readonly { labelEnd: number; numbers: CutNumber[] }[]): boolean =>
     new Set(cuts.map((cut) => [cut.labelEnd, ...wholeAt.map((column) => cut.numbers[column]?.value ?? '')].join('|'))).size === 1;
-  open = open.map((cuts) => {
-    if (cuts.length <= 1 || !sameFrame(cuts)) return cuts;
+  open = open.map((cuts, row) => {
+    if (cuts.length <= 1 || !sameFrame(cuts) || arithmeticOff.has(row)) return cuts;
     const spread = (cut: { numbers: CutNumber[] }): number => new Set(cut.numbers.filter((n) => n.decimals > 0).map((n) => n.decimals)).size;
     const least = Math.min(...cuts.map(spread));
     const fewest = cuts.filter((cut) => spread(cut) === least);
@@ -273,6 +287,6 @@ function usualDecimals(open: readonly { numbers: CutNumber[] }[][]): (number | u
     const ranked = [...(map ?? new Map<number, number>())].sort((a, b) => b[1] - a[1]);
     const [decimals, count] = ranked[0] ?? [0, 0];
     const runnerUp = ranked[1]?.[1] ?? 0;
-    return count >= 2 && count > runnerUp && count >= 0.75 * covering[column]! ? decimals : undefined;
+    return count >= 2 && count > runnerUp && count >= 0.8 * covering[column]! ? decimals : undefined;
   });
 }
