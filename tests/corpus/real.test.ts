@@ -153,7 +153,9 @@ const scores = scoreCorpus(corpus);
 // raised: tune table 0.85, holdout table 0.56.
 const FLOORS: Record<Split, Record<'table' | 'text', { recall: number; precision: number; maxFailRate: number }>> = {
   tune: {
-    table: { recall: 0.85, precision: 0.99, maxFailRate: 0.01 },
+    // (2026-12-05, twelfth session: 0.85 -> 0.86, tables whose only test columns state their df in the header and
+    // mark their cells with stars or "n.s." (dwfh-01, divg-01, divg-05), 0.854 -> 0.865 as measured.)
+    table: { recall: 0.86, precision: 0.99, maxFailRate: 0.01 },
     text: { recall: 0.95, precision: 1, maxFailRate: 0.01 },
   },
   holdout: {

@@ -24,6 +24,7 @@ import { BARE_TABLE_TITLE, classifyHeader, couldStartHeader, headerKey, isKnownH
 import { isBracketedPairCell, shapeOf } from './align.js';
 import { keepAnswers } from '../memo.js';
 import { readCellPerLineTable, readUntitledCellPerLineTable } from './cellPerLine.js';
+import { readMarkedStatisticCells } from './markedStatisticCells.js';
 import { extremes } from '../../arrays.js';
 import { readGluedTable } from './glued.js';
 import { readGluedMatrix } from './gluedMatrix.js';
@@ -74,7 +75,7 @@ const COLUMN_CODE = /^[A-Za-z]{1,3}\d{1,3}(?:[\u2013\u2014-]\d{1,3})?[a-z]?$/;
 function readTitledCellPerLine(lines: TextLine[], titleLine: number): { table: DocumentTable; lastLine: number } | null {
   const cells = linesClosedByPipes(lines, titleLine + 1) ?? lines;
   // (A block whose rows' order is lost first: read as rows, its cells land in the wrong columns.)
-  return readScatteredStatisticCells(lines, titleLine) ?? readCellPerLineTable(cells, titleLine) ?? readTransposedTable(cells, titleLine) ?? readCorrelationBlock(lines, titleLine) ?? readGluedMatrix(lines, titleLine);
+  return readScatteredStatisticCells(lines, titleLine) ?? readMarkedStatisticCells(lines, titleLine) ?? readCellPerLineTable(cells, titleLine) ?? readTransposedTable(cells, titleLine) ?? readCorrelationBlock(lines, titleLine) ?? readGluedMatrix(lines, titleLine);
 }
 
 export function findTextTables(text: string): DocumentTable[] {
@@ -1142,6 +1143,97 @@ function readHeaderOf(line: Line): HeaderLine | null {
 }
 
 /**
+ * A crushed header of a label column named in any words and one statistic column that states its df ("Sl. no#
+ * Statements Chi-square (χ2) value with 88 d.f.", "Item χ2 (df = 2)"): the statistic's cells are the table's only
+ * values, their significance given by marks. The df must be in the name (classifyHeader reads them), the label's
+ * words hold no number and name no statistic or p. Null for anything else. (Taken only under a table's title: see
+ * readSpacedTable.)
+ */
+function statisticWithDfHeader(line: Line): HeaderLine | null {
+  const text = line.text;
+  if (text.length > MAX_ROW_LENGTH || isBlank(line) || TITLE.test(text) || NOTE.test(text)) return null;
+  const tokens = withDfAfterWith(text, tokenize(text));
+  const last = tokens[tokens.length - 1];
+  if (last === undefined || tokens.length < 2 || tokens.length - 1 > MAX_LABEL_WORDS) return null;
+  const named = classifyHeader(last.text);
+  if (named.role !== 'statistic' || (named.df ?? []).length === 0) return null;
+  const labelWords = tokens.slice(0, -1);
+  if (labelWords.some((token) => /\d/.test(token.text) || ['statistic', 'p'].includes(classifyHeader(token.text).role))) return null;
+  return { columns: [join(text, labelWords[0]!, labelWords[labelWords.length - 1]!), last], aligned: false, tabbed: false };
+}
+
+/** Most non-blank lines between a table's title and its header ("From: <the article's title>" under a web page's title). */
+const MAX_LINES_TITLE_TO_HEADER = 3;
+
+/** Most lines, blank ones too, looked at above a header for its title. */
+const MAX_LINES_ABOVE_HEADER = 12;
+
+/** Whether a table's title ("Table 5 …") stands a few short lines above `first`, no row of values between. */
+function titleShortlyAbove(lines: Line[], first: number): boolean {
+  let seen = 0;
+  for (let index = first - 1; index >= 0 && first - index <= MAX_LINES_ABOVE_HEADER && seen <= MAX_LINES_TITLE_TO_HEADER; index--) {
+    const line = lines[index]!;
+    if (isBlank(line)) continue;
+    if (TITLE.test(line.text) && line.text.length <= 300) return true;
+    if (line.text.length > 300 || readRowLine(line, true) !== null) return false;
+    seen++;
+  }
+  return false;
+}
+
+/** Most characters of a statement a row may hold before its one value (a questionnaire's item, written out). */
+const MAX_STATEMENT_LENGTH = 200;
+
+/**
+ * A row under a header of one statistic column (statisticWithDfHeader): its label, a statement in any words (a
+ * questionnaire's item, "1. GM crops will lead to reductions in biodiversity"), and its last token, the statistic
+ * with decimals and its marks if any ("40.33*", "3.10 n.s.", "2.45"). The label holds no comparison ("=", "<"): a
+ * sentence reporting a test is prose. Null for anything else.
+ */
+function statementRow(line: Line): DataLine | null {
+  const text = line.text;
+  if (text.length > MAX_ROW_LENGTH || TITLE.test(text) || NOTE.test(text)) return null;
+  const tokens = tokenize(text);
+  let first = tokens.length;
+  while (first > 1 && tokens.length - first < 2 && (isMarkToken(tokens[first - 1]!.text) || readCell(tokens[first - 1]!.text, 'either').kind === 'ns')) first--;
+  first--;
+  // (The statistic prints decimals: a whole number, "… was 58", is a count or a size, and a number closing a
+  // sentence, "… was 5.8.", is prose's.)
+  const value = tokens[first]?.text ?? '';
+  const cell = readCell(value, 'either');
+  if (first < 1 || cell.kind !== 'number' || !/\.\d/.test(cell.number.text) || /\d\.$/.test(value)) return null;
+  const label = join(text, tokens[0]!, tokens[first - 1]!);
+  if (label.text.length > MAX_STATEMENT_LENGTH || !/\p{L}/u.test(label.text) || /[=<>\u2264\u2265]/.test(label.text) || /[;:,]$/.test(label.text)) return null;
+  return { label, values: tokens.slice(first) };
+}
+
+/** Most lines one wrapped statement may take. */
+const MAX_STATEMENT_LINES = 3;
+
+/**
+ * A statement row (statementRow) the page wrapped: lines of words without a value at their end, then a line that
+ * ends in the statistic, no blank line between. Its label runs over the lines; its values are taken from the last
+ * line, where they stand (offsets relative to it, as every row's are). Null when the lines do not make one.
+ */
+function wrappedStatementRow(lines: Line[], first: number): { data: DataLine; lastLine: number } | null {
+  const head = lines[first];
+  if (head === undefined || isBlank(head) || TITLE.test(head.text) || NOTE.test(head.text) || statementRow(head) !== null) return null;
+  let joined = head.text.trim();
+  for (let index = first + 1; index < lines.length && index - first < MAX_STATEMENT_LINES; index++) {
+    const line = lines[index]!;
+    if (isBlank(line) || TITLE.test(line.text) || NOTE.test(line.text)) return null;
+    joined = `${joined} ${line.text.trim()}`;
+    const data = statementRow({ ...line, text: joined });
+    if (data === null) continue;
+    const tokens = tokenize(line.text);
+    const values = tokens.slice(tokens.length - data.values.length);
+    if (values.length === tokens.length) return null;
+    return { data: { label: { text: data.label.text, start: 0, end: 0 }, values }, lastLine: index };
+  }
+  return null;
+}
+
+/**
  * A run of words that names several columns alike, each starting with the same word and as long as the others
  * ("Group 1 Group 2", "Time 1 Time 2 Time 3", "Wave A Wave B"): each name's first and last token index; null when
  * the run does not split so.
@@ -1279,7 +1371,10 @@ function withDfAfterWith(text: string, tokens: readonly Piece[]): Piece[] {
   for (let index = 0; index < tokens.length; index++) {
     const length = dfAfterWithLength(tokens, index);
     if (length > 0 && merged.length > 0) {
-      const before = merged.pop()!;
+      let before = merged.pop()!;
+      // (The name may end in a word saying the column holds its values: "Chi-square (χ2) value with 88 d.f.".)
+      const named = merged[merged.length - 1];
+      if (VALUE_WORD.test(before.text) && named !== undefined && classifyHeader(named.text).role === 'statistic') before = merged.pop()!;
       const last = tokens[index + length - 1]!;
       merged.push({ text: text.slice(before.start, last.end), start: before.start, end: last.end });
       index += length - 1;
@@ -1289,6 +1384,9 @@ function withDfAfterWith(text: string, tokens: readonly Piece[]): Piece[] {
   }
   return merged;
 }
+
+/** A word after a statistic's name saying its column holds the statistic's values ("χ2 value", "F statistic"). */
+const VALUE_WORD = /^(?:values?|statistics?|scores?)$/i;
 
 /** Tokens in "with N df" or "with N and M df" starting at `index` (0 if none there). */
 function dfAfterWithLength(tokens: readonly Piece[], index: number): number {
@@ -1876,7 +1974,11 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   // with that header (the next line's table), not a header of its own.
   if (statisticTitlesOver(lines, first)) return null;
   const wrapped = readHeader(lines[first]!) === null ? readWrappedHeader(lines, first) : null;
-  const header = wrapped ?? readHeader(lines[first]!);
+  // A header of one statistic column that states its df, after a label column named in any words ("Statements
+  // Chi-square (χ2) value with 88 d.f."), only right under a table's title: alone, such a line could be prose.
+  const alone = wrapped === null && readHeader(lines[first]!) === null ? statisticWithDfHeader(lines[first]!) : null;
+  const statisticAlone = alone !== null && titleShortlyAbove(lines, first) ? alone : null;
+  const header = wrapped ?? readHeader(lines[first]!) ?? statisticAlone;
   const titled = readTitle(lines, first) !== null;
   if (header === null && (!titled || readRowLine(lines[first]!, true) === null)) return null;
   let index = header === null ? first : wrapped !== null ? first + 2 : first + 1;
@@ -1948,7 +2050,8 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
     // Under a crushed header whose last column holds words ("Pairwise comparisons"), a row may end in that column's
     // words ("… 10.10 <0.001 Healthy adults = PD-CI > PD-MCI"): the row's values are those before the words.
     const crushedHeader = header !== null && !header.aligned && !header.tabbed;
-    const data =
+    // (Under a header of one statistic column found only by its df, a row is a statement and its statistic alone.)
+    const data = statisticAlone !== null ? statementRow(line) :
       readRowLine(line, dataRows === 0) ??
       (columns !== null && columns.length === 2 ? singleValueRow(line) : null) ??
       (crushedHeader && columns !== null && endsInWordsColumn(columns) ? rowBeforeTrailingWords(line, dataRows === 0) : null);
@@ -1957,6 +2060,15 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
       rows.push({ data, line });
       dataRows++;
       last = index;
+      continue;
+    }
+    // Under a header of one statistic column, a statement the page wrapped over lines, its value on the last.
+    const wrappedStatement = statisticAlone !== null ? wrappedStatementRow(lines, index) : null;
+    if (wrappedStatement !== null) {
+      widest = Math.max(widest, wrappedStatement.data.values.length);
+      rows.push({ data: wrappedStatement.data, line: lines[wrappedStatement.lastLine]! });
+      dataRows++;
+      last = index = wrappedStatement.lastLine;
       continue;
     }
     // Under a crushed header, a row whose cells the page wrapped over several lines.
