@@ -318,7 +318,9 @@ describe('real corpus: plumbline reads what is printed', () => {
   // (2026-12-05, tenth-session batch dwo: tune 21 -> 69, holdout 114 -> 121, as measured; see the note above FLOORS)
   // (2026-12-05, tenth-session batch dwm: holdout 114 -> 128, the 14 misses of dwmg-01, as measured; tune 21 kept (21))
   // (2026-12-05, eleventh session, end: tune 57 -> 55, holdout 145 -> 141, as measured)
-  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 55, holdout: 141 };
+  // (2026-12-05, twelfth session: tune 55 -> 53, holdout 141 -> 134, as measured: tables of one-cell-per-line z tests
+  // named "Z-test statistic" now listed when not read, statement tables read.)
+  const SILENT_CEILINGS: Record<(typeof SPLITS)[number], number> = { tune: 53, holdout: 134 };
   for (const split of SPLITS) {
     it(`${split} split: results missed without the report saying a table was not read stay under their ceiling`, () => {
       expect(figures(scores[split], 'all').silentMisses).toBeLessThanOrEqual(SILENT_CEILINGS[split]);
