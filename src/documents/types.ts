@@ -48,6 +48,11 @@ export interface DocumentTable {
   cells?: (CellSpan | null)[][];
   /** How the table was rebuilt. */
   layout?: TableLayout;
+  /**
+   * Rows with values that the reader saw but could not rebuild into cells (a run of glued digits that cuts more
+   * than one way): left out of `rows`, and counted as not read so the table is listed as not fully read.
+   */
+  rowsNotRebuilt?: number;
 }
 
 export interface DocumentText {

@@ -83,4 +83,14 @@ describe('glued table rows', () => {
       [8.945, [1, 167]],
     ]);
   });
+
+  it('lists a glued table as not fully read when one of its rows cuts two ways, and reads the others', () => {
+    // Made-up rows: "Session1391.270.2667" is df 1 and 39, or 13 and 9; the other rows cut one way only.
+    const document = scanTextJson('Table 4\n\nEffects on recall.\n\nVariabledf1df2Fp\n\nGroup2401.270.29\nSession1391.270.2667\nDose3405.120.004\n\nNote. Made up.\n');
+    expect(document.statistics.map((statistic) => [statistic.value, statistic.df])).toEqual([
+      [1.27, [2, 40]],
+      [5.12, [3, 40]],
+    ]);
+    expect(document.tablesNotRead.map((table) => [table.rowsWithStatistic, table.rowsRead])).toEqual([[3, 2]]);
+  });
 });

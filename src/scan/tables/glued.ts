@@ -274,6 +274,9 @@ export function readGluedTable(lines: Line[], headerLine: number): GluedTable | 
     cells.push(spans);
   });
   const lastLine = rowLines[rowLines.length - 1]!;
+  // Rows whose run cut more than one way, among those whose cells would reach a statistic's column.
+  const statisticAt = valueRoles.findIndex((role) => role.role === 'statistic');
+  const notRebuilt = rows.filter((row, index) => chosen[index] === null && statisticAt >= 0 && rowCuts(row, kinds, valueRoles).cuts.some((cut) => cut.numbers.length > statisticAt)).length;
   return {
     table: {
       start: header.start,
@@ -284,6 +287,7 @@ export function readGluedTable(lines: Line[], headerLine: number): GluedTable | 
       headerRows: 1,
       cells,
       layout: 'glued',
+      ...(notRebuilt > 0 ? { rowsNotRebuilt: notRebuilt } : {}),
     },
     lastLine,
   };

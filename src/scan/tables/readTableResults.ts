@@ -674,6 +674,9 @@ function readTableRows(text: string, table: DocumentTable, tableIndex: number): 
     else if (outcome.hasStatistic && outcome.missingDf) rowsWithoutDf++;
     if (outcome.readWithoutDf) rowsReadWithoutDf++;
   }
+  // (Rows the layout reader could not rebuild are rows with a statistic not read.)
+  const notRebuilt = table.rowsNotRebuilt ?? 0;
+  rowsWithStatistic += notRebuilt;
   const missed = rowsWithStatistic - rowsRead + unplaced;
   if (missed <= 0 && rowsReadWithoutDf > 0) return { results, unread: unreadTable(table, tableIndex, 'read-without-df', rowsWithStatistic, rowsReadWithoutDf), completions };
   if (missed <= 0) return { results, unread: null, completions };
