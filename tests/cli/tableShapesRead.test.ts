@@ -2150,4 +2150,15 @@ describe('results tables in the shapes papers print them', () => {
       ['r', -0.535, 0.002],
     ]);
   });
+
+  it('reads a crushed header a narrow column broke in two after a name ("... Sum of squares d.f. Mean square" / "F-value P-value ...")', () => {
+    // Layout as a PDF's text gives a wrapped header; the numbers are made up (283.26 / 93.62 = 3.03, 157.50 / 93.62 = 1.68).
+    const document = scanTextJson(
+      'Table 3.\n\nAnalysis of covariance\n\nDependent variable Source of variation Sum of squares d.f. Mean square\nF-value P-value Pairwise comparisons\nPDSFS Gender 283.26 1 283.26 3.03 0.083\nAge 157.50 1 157.50 1.68 0.196\nError 2770.16 296 93.62\n',
+    );
+    expect(document.statistics.map((statistic) => [statistic.value, statistic.df, statistic.p?.value ?? null])).toEqual([
+      [3.03, [1, 296], 0.083],
+      [1.68, [1, 296], 0.196],
+    ]);
+  });
 });

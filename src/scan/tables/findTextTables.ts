@@ -1304,6 +1304,30 @@ function readWrappedHeader(lines: Line[], first: number): HeaderLine | null {
   return header === null ? null : { ...header, aligned: false };
 }
 
+/**
+ * A header a PDF's narrow column broke in two after a name, whose first line reads as a header of its own but names
+ * no test ("Dependent variable Source of variation Sum of squares d.f. Mean square" / "F-value P-value Pairwise
+ * comparisons"): the two lines as one header, when the second holds names only, the joined header names the test
+ * and its p, and a row follows.
+ */
+function readHeaderGoingOn(lines: Line[], first: number, header: HeaderLine): HeaderLine | null {
+  const next = lines[first + 1];
+  const after = lines[first + 2];
+  // (Crushed lines only: names stacked over a header laid out in columns are read by where they stand.)
+  if (header.aligned || header.tabbed || next === undefined || after === undefined || isBlank(next) || /\d|\S\s{3,}\S|\t/.test(next.text) || next.text.length > MAX_HEADER_GOING_ON) return null;
+  const roles = (names: readonly string[]): string[] => names.map((name) => classifyHeader(name).role);
+  const named = roles(header.columns.map((column) => column.text));
+  if (named.includes('statistic') || named.includes('p') || readRowLine(after, true) === null) return null;
+  const joined: Line = { start: lines[first]!.start, end: next.end, text: `${lines[first]!.text.trimEnd()} ${next.text.trimStart()}`, crushed: true };
+  const whole = readHeader(joined);
+  if (whole === null) return null;
+  const wholeRoles = roles(whole.columns.map((column) => column.text));
+  return wholeRoles.includes('statistic') && wholeRoles.includes('p') ? { ...whole, aligned: false } : null;
+}
+
+/** Longest second line of a header broken in two. */
+const MAX_HEADER_GOING_ON = 80;
+
 function join(text: string, first: Piece, last: Piece): Piece {
   return { text: text.slice(first.start, last.end), start: first.start, end: last.end };
 }
@@ -1973,7 +1997,8 @@ function readSpacedTable(lines: Line[], first: number): FoundRows | null {
   // A line of block titles each closed by its statistic's df is the upper row of the header under it, read
   // with that header (the next line's table), not a header of its own.
   if (statisticTitlesOver(lines, first)) return null;
-  const wrapped = readHeader(lines[first]!) === null ? readWrappedHeader(lines, first) : null;
+  const firstHeader = readHeader(lines[first]!);
+  const wrapped = firstHeader === null ? readWrappedHeader(lines, first) : readHeaderGoingOn(lines, first, firstHeader);
   // A header of one statistic column that states its df, after a label column named in any words ("Statements
   // Chi-square (χ2) value with 88 d.f."), only right under a table's title: alone, such a line could be prose.
   const alone = wrapped === null && readHeader(lines[first]!) === null ? statisticWithDfHeader(lines[first]!) : null;
