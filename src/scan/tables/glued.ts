@@ -57,6 +57,14 @@ function vocabularyByFirstCharacter(): Map<string, string[]> {
   return byFirst;
 }
 
+/** Where each known name that starts at `from` (after spaces) ends, longest first. */
+function knownNameEnds(lower: string, from: number): number[] {
+  vocabulary ??= vocabularyByFirstCharacter();
+  let at = from;
+  while (lower[at] === ' ') at++;
+  return (vocabulary.get(lower[at] ?? '') ?? []).filter((name) => lower.startsWith(name, at)).map((name) => at + name.length);
+}
+
 /** The header's column names, if the line is made only of known names run together (at least two joined without a space). */
 export function splitGluedHeader(text: string): string[] | null {
   if (text.length > MAX_LINE || /\d\.\d/.test(text)) return null;
@@ -69,11 +77,7 @@ export function splitGluedHeader(text: string): string[] | null {
   best[0] = 0;
   for (let i = 0; i < n; i++) {
     if (best[i] === Infinity) continue;
-    let at = i;
-    while (lower[at] === ' ') at++;
-    for (const name of vocabulary.get(lower[at] ?? '') ?? []) {
-      if (!lower.startsWith(name, at)) continue;
-      const end = at + name.length;
+    for (const end of knownNameEnds(lower, i)) {
       if (best[i]! + 1 < best[end]!) {
         best[end] = best[i]! + 1;
         from[end] = i;
@@ -136,9 +140,7 @@ export function splitGluedHeaderLoosely(text: string): string[] | null {
     if (best[i] === Infinity) continue;
     let at = i;
     while (lower[at] === ' ') at++;
-    for (const name of vocabulary.get(lower[at] ?? '') ?? []) {
-      if (!lower.startsWith(name, at)) continue;
-      const end = at + name.length;
+    for (const end of knownNameEnds(lower, i)) {
       // A known name ends where the text does or where another word starts.
       if (end !== n && !cuttable(end) && !/[\s.)]/.test(text[end - 1]!) && /[a-z]/i.test(text[end]!)) continue;
       if (best[i]! + KNOWN_PIECE_COST < best[end]!) {

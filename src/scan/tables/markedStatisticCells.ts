@@ -34,6 +34,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
+import { tableUnderTitle } from './rebuilt.js';
 import { classifyHeader, readCell, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
 
 type Line = TextLine;
@@ -100,16 +101,7 @@ export function readMarkedStatisticCells(lines: Line[], titleLine: number): { ta
   }
   const lastCell = block.body[block.body.length - 1]!;
   return {
-    table: {
-      start: title.start + (title.text.length - title.text.trimStart().length),
-      end: lastCell.end,
-      caption: title.text.trim(),
-      notes: [],
-      rows,
-      headerRows: 1,
-      cells: spans,
-      layout: 'positions',
-    },
+    table: tableUnderTitle(title, lastCell.end, rows, spans, 'positions'),
     lastLine: lastCell.line,
   };
 }

@@ -19,7 +19,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { TABLE_TITLE, type TextLine } from './cells.js';
-import { tableOverLines } from './rebuilt.js';
+import { captionBetween, tableOverLines, titleLineAbove } from './rebuilt.js';
 
 type Line = TextLine;
 
@@ -37,23 +37,12 @@ const MAX_ROWS = 60;
 /** Longest line read as a header or a row. */
 const MAX_LINE = 400;
 
-/** The title line a few non-blank lines above `header`, or -1. */
-function titleAbove(lines: Line[], header: number): number {
-  let seen = 0;
-  for (let index = header - 1; index >= 0 && seen <= MAX_CAPTION_LINES; index--) {
-    const text = lines[index]!.text;
-    if (text.trim() === '') continue;
-    if (TABLE_TITLE.test(text)) return index;
-    seen++;
-  }
-  return -1;
-}
 
 /** A table whose header is `lines[index]` and ends with "P value (χ2)", or null. */
 export function readPThenStatisticTable(lines: Line[], index: number): { table: DocumentTable; firstLine: number; lastLine: number } | null {
   const header = lines[index]!;
   if (header.text.length > MAX_LINE || !header.text.includes('(') || !P_THEN_CHI_SQUARE.test(header.text)) return null;
-  const title = titleAbove(lines, index);
+  const title = titleLineAbove(lines, index, MAX_CAPTION_LINES);
   if (title < 0) return null;
   const rows: string[][] = [['', 'χ2', 'df', 'p']];
   const cells: (CellSpan | null)[][] = [[null, null, null, null]];
@@ -87,10 +76,5 @@ export function readPThenStatisticTable(lines: Line[], index: number): { table: 
     ]);
   }
   if (rows.length < 2) return null;
-  const caption = lines
-    .slice(title, index)
-    .map((line) => line.text.trim())
-    .filter((text) => text !== '')
-    .join(' ');
-  return { table: tableOverLines(lines[title]!, lines[lastLine]!, caption, rows, cells, 'positions'), firstLine: title, lastLine };
+  return { table: tableOverLines(lines[title]!, lines[lastLine]!, captionBetween(lines, title, index), rows, cells, 'positions'), firstLine: title, lastLine };
 }

@@ -26,7 +26,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { classifyHeader, headerKey, isKnownHeader, LONGEST_HEADER_WORDS, TABLE_TITLE, type ColumnRole, type TextLine } from './cells.js';
-import { tableOverLines } from './rebuilt.js';
+import { captionBetween, tableOverLines, titleLineAbove } from './rebuilt.js';
 
 type Line = TextLine;
 
@@ -70,17 +70,6 @@ const NOTE_LINE = /^\s*(?:\d{1,2}\.\s|Notes?\b|Abbreviations?\b|[*\u2020\u2021]|
 /** A token where a row's values begin: a number, perhaps signed or after a comparator. */
 const NUMBER_START = /^[-\u2212\u2013<>]?\.?\d/;
 
-/** The title line a few non-blank lines above `header`, or -1. */
-function titleAbove(lines: Line[], header: number): number {
-  let seen = 0;
-  for (let index = header - 1; index >= 0 && seen <= MAX_CAPTION_LINES; index--) {
-    const text = lines[index]!.text;
-    if (text.trim() === '') continue;
-    if (TABLE_TITLE.test(text)) return index;
-    seen++;
-  }
-  return -1;
-}
 
 function tokensOf(text: string): Token[] {
   const tokens: Token[] = [];
@@ -224,7 +213,7 @@ export function readTestColumnsTable(lines: Line[], index: number): { table: Doc
   const headerLine = lines[index]!;
   const header = readTestHeader(headerLine.text);
   if (header === null) return null;
-  const title = titleAbove(lines, index);
+  const title = titleLineAbove(lines, index, MAX_CAPTION_LINES);
   if (title < 0) return null;
   const rows: string[][] = [[header.label.text, ...header.names.map((name) => name.text)]];
   const cells: (CellSpan | null)[][] = [[spanIn(headerLine, header.label), ...header.names.map((name) => spanIn(headerLine, name))]];
@@ -249,10 +238,5 @@ export function readTestColumnsTable(lines: Line[], index: number): { table: Doc
     testRows++;
   }
   if (testRows < MIN_TEST_ROWS) return null;
-  const caption = lines
-    .slice(title, index)
-    .map((line) => line.text.trim())
-    .filter((text) => text !== '')
-    .join(' ');
-  return { table: tableOverLines(lines[title]!, lines[lastLine]!, caption, rows, cells, 'positions'), firstLine: title, lastLine };
+  return { table: tableOverLines(lines[title]!, lines[lastLine]!, captionBetween(lines, title, index), rows, cells, 'positions'), firstLine: title, lastLine };
 }

@@ -21,6 +21,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
+import { tableUnderTitle } from './rebuilt.js';
 import { classifyHeader, ERROR_LABEL, headerKey, readCell, statisticOfTwo, TABLE_TITLE, TOTAL_LABEL, type ColumnRole, type LineCell, type TextLine } from './cells.js';
 
 type Line = TextLine;
@@ -115,16 +116,7 @@ export function readTransposedTable(lines: Line[], titleLine: number): { table: 
   });
   if (rows.length < 2) return null;
   return {
-    table: {
-      start: title.start + (title.text.length - title.text.trimStart().length),
-      end: lastCell.end,
-      caption: title.text.trim(),
-      notes: [],
-      rows,
-      headerRows: 1,
-      cells: spans,
-      layout: 'positions',
-    },
+    table: tableUnderTitle(title, lastCell.end, rows, spans, 'positions'),
     lastLine: lastCell.line,
   };
 }
