@@ -685,6 +685,8 @@ export function knownHeaderNames(): readonly string[] {
 // "intra-groupes"; German "Fehler", "Residuen", "innerhalb der Gruppen".
 export const ERROR_LABEL =
   /^(?:error|pure[- ]error|residuals?|within(?:[- ](?:groups?|cells|subjects|treatments?))?|s\/a|subjects within groups|error term|erro|erreur|fehler|residuen|res[ií]duos?|r[ée]sidus?|r[ée]siduelle|dentro de (?:los )?grupos|intragrupos?|intra-groupes?|innerhalb der gruppen|fout|errore|residui|entro i gruppi)(?![a-zà-ÿ])/;
+/** A note line ending a block of cells one per line: "Note.", "*p < .05", "Abbreviations". */
+export const CELL_BLOCK_NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|Abbreviations?\b)/;
 /** A Total row is labelled Total and nothing more ("Total phenolics", "Total score" are measures). */
 export const TOTAL_LABEL = /^(?:total|corrected total|uncorrected total|total \(corrected\)|total corrected|cor total|gesamt|insgesamt|total corrigido|total corregido)(?:[*\u2020\u2021]{1,3}|[a-d])?[.:]?$/;
 

@@ -249,8 +249,9 @@ export function readGluedTable(lines: Line[], headerLine: number): GluedTable | 
     rowLines.push(index);
   }
   if (rows.length === 0) return null;
+  const cutsByRow = rows.map((row) => rowCuts(row, kinds, valueRoles));
   const chosen = chooseCuts(
-    rows.map((row) => rowCuts(row, kinds, valueRoles)),
+    cutsByRow,
     valueRoles,
     kinds,
     (index) => ERROR_LABEL.test(rows[index]!.label.toLowerCase()),
@@ -278,7 +279,7 @@ export function readGluedTable(lines: Line[], headerLine: number): GluedTable | 
   const lastLine = rowLines[rowLines.length - 1]!;
   // Rows whose run cut more than one way, among those whose cells would reach a statistic's column.
   const statisticAt = valueRoles.findIndex((role) => role.role === 'statistic');
-  const notRebuilt = rows.filter((row, index) => chosen[index] === null && statisticAt >= 0 && rowCuts(row, kinds, valueRoles).cuts.some((cut) => cut.numbers.length > statisticAt)).length;
+  const notRebuilt = cutsByRow.filter((cuts, index) => chosen[index] === null && statisticAt >= 0 && cuts.cuts.some((cut) => cut.numbers.length > statisticAt)).length;
   return {
     table: {
       start: header.start,

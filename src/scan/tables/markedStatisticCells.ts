@@ -35,7 +35,7 @@
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
 import { tableUnderTitle } from './rebuilt.js';
-import { classifyHeader, readCell, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
+import { CELL_BLOCK_NOTE, classifyHeader, readCell, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
@@ -50,7 +50,6 @@ const MAX_HEADER_LINE = 400;
 /** Fewest marked statistic cells that make the block worth reading so. */
 const MIN_MARKED_CELLS = 2;
 
-const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|Abbreviations?\b)/;
 /** A statistic's symbol with its df in brackets: "F (1,128)", "F(1, 58)", "t(80)", "χ2(2)". */
 const STATISTIC_WITH_DF = /(?<![\p{L}\d])(?:F|t|\u03c7\u00b2|\u03c72|\u03c7 2|X2)\s?\(\s?\d{1,6}(?:\.\d{1,3})?(?:\s?,\s?\d{1,6}(?:\.\d{1,3})?)?\s?\)/gu;
 /**
@@ -128,7 +127,7 @@ function collectBlock(lines: Line[], from: number): { headerLines: Line[]; body:
       continue;
     }
     blankRun = 0;
-    if (NOTE.test(text) || TABLE_TITLE.test(text)) break;
+    if (CELL_BLOCK_NOTE.test(text) || TABLE_TITLE.test(text)) break;
     const opensValue = OPENS_WITH_NUMBER.test(text) || effectOf(text) !== null;
     if (body.length === 0 && !opensValue) {
       if (text.length > MAX_HEADER_LINE) return null;

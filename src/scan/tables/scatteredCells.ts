@@ -35,7 +35,7 @@
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';
-import { classifyHeader, headerKey, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
+import { CELL_BLOCK_NOTE, classifyHeader, headerKey, TABLE_TITLE, type LineCell, type TextLine } from './cells.js';
 
 type Line = TextLine;
 
@@ -52,7 +52,6 @@ const MAX_HEADER_CELLS = 40;
 /** Fewest cells of a value with its df that make the block worth reading so. */
 const MIN_VALUE_CELLS = 2;
 
-const NOTE = /^\s{0,8}(?:(?:\*|_){0,2}Notes?(?:\*|_){0,2}\s*[.:]|\*{1,3}\s*p\s*[<\u2264=]|Abbreviations?\b)/;
 /** A value with decimals and its df in brackets, one or two whole numbers: "6.2 (4)", "2.90 (2, 132)", "−1.29 (76)**". */
 const VALUE_WITH_DF = /^([-\u2212]?\d{1,4}\.\d{1,4})\*{0,3} ?\( ?(\d{1,5})(?: ?, ?(\d{1,5}))? ?\)\*{0,3}$/;
 /** A number in brackets, or after one: a cell that holds more than one number ("5.20 (1.30)", "12 (40%)", "(1.2, 3.4)"). */
@@ -151,7 +150,7 @@ function collectCells(lines: Line[], from: number): Cell[] {
       continue;
     }
     blankRun = 0;
-    if (NOTE.test(text) || (cells.length > 0 && TABLE_TITLE.test(text))) break;
+    if (CELL_BLOCK_NOTE.test(text) || (cells.length > 0 && TABLE_TITLE.test(text))) break;
     if (text.length > MAX_CELL_LENGTH) {
       // (Caption lines before the first cell; prose after it ends the block.)
       if (cells.length > 0) break;
