@@ -6,14 +6,13 @@
  *     Pretest1854.79511854.795262.3280.0000.662
  *     Error947.4511347.071
  *
- * The header is cut into the known column names it is made of. Each row is
- * its label (the text before its first digit) and a run of digits, cut into
- * numbers by what statistics software prints: every decimal column with
- * the same number of decimals, df whole numbers. Where a df runs into the
- * number after it ("12270.933": 12 and 270.933, or 1 and 2270.933?) the
- * cut is the one for which the mean square is the sum of squares over the
- * df, within rounding; a row whose cut this does not decide is left out
- * rather than guessed. Each row's cells keep their offsets in the text.
+ * The header is cut into the known column names it is made of (or, where some
+ * names are not known, where one word runs into the next with a capital).
+ * Each row is its label and the run of digits that ends its line, cut into
+ * the columns' numbers by gluedCuts.ts (arithmetic first, then what software
+ * prints); a row whose cut nothing sure decides is left out rather than
+ * guessed, and counted so its table is listed as not fully read. Each row's
+ * cells keep their offsets in the text.
  */
 
 import type { CellSpan, DocumentTable } from '../../documents/types.js';

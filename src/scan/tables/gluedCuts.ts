@@ -4,16 +4,19 @@
  * 26.86, 0.0001), when the cells lost their separators and each column
  * may print its own number of decimals.
  *
- * Every way to cut a run is listed, then cut down by what is sure:
- * - each column's kind of number (df whole and without a leading zero, p and
- *   proportions at most 1, F and sums of squares not negative);
- * - the arithmetic of a source table: MS = SS / df, and F = MS / MS(error),
- *   within the rounding of the printed numbers;
- * - each column printing the same number of decimals in every row where its
- *   cut is already sure (common practice: software prints a column with one
- *   format);
- * - numbers below 1 printed with their leading zero when some other cut has
- *   them all that way.
+ * Every way to cut a run is listed, then cut down, in this order, by:
+ * - each column's kind of number (df whole and at least 1, p and proportions
+ *   at most 1, statistics with decimals, sums of squares not negative), and
+ *   an error row that prints nothing after its (positive) MS;
+ * - the arithmetic of a source table: MS = SS / df (within the rounding of
+ *   the printed numbers, or 0.1%), and F = MS / MS(error) of the first error
+ *   row below (or 0.5%: F is computed from unrounded mean squares);
+ * - habits of printing (common practice: software prints a column with one
+ *   format): numbers below 1 with their leading zero, each column's usual
+ *   number of decimals (80% of the rows), SS and MS alike, then the fewest
+ *   different decimals and digits given to decimals rather than whole parts;
+ *   these last never choose between different df or label ends, nor cut a row
+ *   whose cuts all break F = MS / MS(error).
  * Cuts that give the same numbers are one reading. A row left with more than
  * one reading is not read: a cut decided by the p it would make agree is never
  * taken, since that would hide the inconsistencies the audit is for.
